@@ -1,0 +1,6 @@
+/**
+ * The public API of the computation. Everything the app shows or signs about a head's geometry
+ * comes from here. Pure TypeScript: no framework, database or file-system imports.
+ */
+export * from "./errors";
+export * from "./units";
