@@ -4,3 +4,4 @@
  */
 export * from "./errors";
 export * from "./units";
+export * from "./types";
