@@ -9,6 +9,7 @@ export type GeometryErrorCode =
   | "missing_column"
   | "duplicate_column"
   | "bad_number"
+  | "bad_value"
   | "decimal_comma"
   | "ragged_row"
   | "quote"

@@ -44,8 +44,11 @@ export interface TestPartRow {
   readonly characteristic: string;
   readonly nominal: number;
   readonly measured: number;
-  /** Signed tolerance limits relative to nominal (lower usually ≤ 0, upper ≥ 0). */
-  readonly lowerTol: number;
+  /**
+   * Signed tolerance limits relative to nominal (lower usually ≤ 0, upper ≥ 0). `lowerTol` is null
+   * for a one-sided tolerance (upper limit only: flatness, squareness magnitude — ISO 14253-1).
+   */
+  readonly lowerTol: number | null;
   readonly upperTol: number;
   readonly unit: string;
   readonly sourceRow?: number;

@@ -1,0 +1,52 @@
+/**
+ * Sphere-probe CSV: `primary_deg,secondary_deg,x,y,z` (+ optional `point,repeat,temp_c,tool_mm`).
+ * One row per probed pose: the commanded primary and secondary angles (degrees) and the measured
+ * sphere centre in machine coordinates, in the unit the caller chose (mm or in; converted to mm).
+ * `tool_mm` is in mm whatever the coordinate unit (its name carries the unit).
+ */
+import type { SphereProbeData } from "../types";
+import { readTable, type ColumnSpec, type CsvDecimal, type WithWarnings } from "./table";
+import { coordinateFactorToMm, scaleInPlace, type CoordinateUnits } from "./units";
+
+const COLUMNS: readonly ColumnSpec[] = [
+  { name: "primary_deg", kind: "number", required: true },
+  { name: "secondary_deg", kind: "number", required: true },
+  { name: "x", kind: "number", required: true },
+  { name: "y", kind: "number", required: true },
+  { name: "z", kind: "number", required: true },
+  { name: "point", kind: "number", required: false },
+  { name: "repeat", kind: "number", required: false },
+  { name: "temp_c", kind: "number", required: false },
+  { name: "tool_mm", kind: "number", required: false },
+];
+
+export interface SphereProbeCsvOptions {
+  /** Unit of the x, y, z columns. */
+  readonly units: CoordinateUnits;
+  /** Decimal separator; "comma" only with a semicolon delimiter. Default "point". */
+  readonly decimal?: CsvDecimal;
+}
+
+/**
+ * Read a sphere-probe CSV into mm / degree columns. Throws GeometryError (issues name row and
+ * column) on any malformed input; unknown columns come back as warnings on the result.
+ */
+export function readSphereProbeCsv(text: string, options: SphereProbeCsvOptions): WithWarnings<SphereProbeData> {
+  const factor = coordinateFactorToMm(options?.units, "units");
+  const t = readTable(text, COLUMNS, { decimal: options.decimal });
+  const num = (k: string) => t.numbers.get(k);
+  return {
+    rows: t.rows,
+    primaryDeg: num("primary_deg")!,
+    secondaryDeg: num("secondary_deg")!,
+    xMm: scaleInPlace(num("x")!, factor),
+    yMm: scaleInPlace(num("y")!, factor),
+    zMm: scaleInPlace(num("z")!, factor),
+    ...(num("tool_mm") ? { toolMm: num("tool_mm") } : {}),
+    ...(num("point") ? { point: num("point") } : {}),
+    ...(num("repeat") ? { repeat: num("repeat") } : {}),
+    ...(num("temp_c") ? { tempC: num("temp_c") } : {}),
+    sourceRow: t.sourceRow,
+    warnings: t.warnings,
+  };
+}
