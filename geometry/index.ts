@@ -5,3 +5,4 @@
 export * from "./errors";
 export * from "./units";
 export * from "./types";
+export * from "./csv";
