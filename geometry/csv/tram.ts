@@ -26,8 +26,8 @@ export function readTramCsv(text: string, options: TramCsvOptions): WithWarnings
   const note = t.texts.get("note");
   return {
     rows: t.rows,
-    travelMm: scaleInPlace(t.numbers.get("travel")!, travelFactor),
-    readingUm: scaleInPlace(t.numbers.get("reading")!, readingFactor),
+    travelMm: scaleInPlace(t.numbers.get("travel")!, travelFactor, t.sourceRow, t.headerNames.get("travel")!),
+    readingUm: scaleInPlace(t.numbers.get("reading")!, readingFactor, t.sourceRow, t.headerNames.get("reading")!),
     ...(note ? { note: note.map((s) => (s === "" ? undefined : s)) } : {}),
     sourceRow: t.sourceRow,
     warnings: t.warnings,

@@ -1,6 +1,7 @@
 /** Unit options of the CSV readers, checked at run time because the app passes user choices. */
 import { GeometryError } from "../errors";
 import { MM_PER_INCH, UM_PER_MM } from "../units";
+import { fail, MAX_ISSUES, type CodedIssue } from "./table";
 
 export type CoordinateUnits = "mm" | "in";
 export type ReadingUnits = "um" | "mm" | "in";
@@ -23,8 +24,20 @@ export function readingFactorToUm(units: unknown, option: string): number {
   throw new GeometryError("bad_option", `${option} must be "um", "mm" or "in", not '${String(units)}'`);
 }
 
-/** Multiply every element in place (skipping the work for a factor of exactly 1). */
-export function scaleInPlace(a: Float64Array, factor: number): Float64Array {
-  if (factor !== 1) for (let i = 0; i < a.length; i++) a[i] = a[i]! * factor;
+/**
+ * Multiply every element in place (skipping the work for a factor of exactly 1). A value that
+ * overflows to ±Infinity in the conversion is an error naming its row and column.
+ */
+export function scaleInPlace(a: Float64Array, factor: number, sourceRow: Int32Array, column: string): Float64Array {
+  if (factor === 1) return a;
+  const issues: CodedIssue[] = [];
+  for (let i = 0; i < a.length; i++) {
+    const v = a[i]! * factor;
+    if (!Number.isFinite(v) && issues.length < MAX_ISSUES) {
+      issues.push({ code: "bad_number", row: sourceRow[i], column, message: `'${a[i]}' is out of range after unit conversion` });
+    }
+    a[i] = v;
+  }
+  if (issues.length > 0) fail(issues);
   return a;
 }
