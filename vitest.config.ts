@@ -1,8 +1,12 @@
-// Two projects: unit (pure code, no services) and integration (real PostgreSQL started by
-// the test command; DATABASE_URL points at it).
+// Three projects: unit (pure code, no services), integration (real PostgreSQL started by the
+// test command; DATABASE_URL points at it) and e2e (Debian's Chromium against the built app at
+// E2E_BASE_URL). tests/run-all.sh starts what each needs.
 import { defineConfig } from "vitest/config";
 
-const alias = { "@": import.meta.dirname };
+const alias = {
+  "@": import.meta.dirname,
+  "server-only": `${import.meta.dirname}/tests/stubs/server-only.ts`,
+};
 
 export default defineConfig({
   resolve: { alias },
@@ -21,7 +25,19 @@ export default defineConfig({
           fileParallelism: false,
           testTimeout: 30_000,
           hookTimeout: 60_000,
+          globalSetup: ["tests/integration/global-setup.ts"],
           setupFiles: ["tests/integration/setup.ts"],
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: "e2e",
+          include: ["tests/e2e/**/*.test.ts"],
+          environment: "node",
+          fileParallelism: false,
+          testTimeout: 60_000,
+          hookTimeout: 60_000,
         },
       },
     ],

@@ -1,0 +1,100 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { StatusFlow } from "@/components/jobs/status-flow";
+import { Card, Facts } from "@/components/ui/card";
+import { SafetyNote } from "@/components/ui/safety-note";
+import { StatusBadge } from "@/components/ui/status-badge";
+import { getJobDetail } from "@/db/queries/jobs";
+import { requirePageUser } from "@/lib/auth/session";
+import { formatDateTimeUtc, JOB_KIND_LABELS } from "@/lib/format";
+
+type Props = { params: Promise<{ id: string }> };
+
+export const metadata: Metadata = { title: "Job" };
+
+const DECISION_RULES = {
+  simple: "Simple acceptance: a value inside its limits passes; the expanded uncertainty is shown, not subtracted.",
+  guarded: "Guarded acceptance (ISO 14253-1): pass only inside the limits shrunk by U, fail only outside the limits grown by U, undecided between.",
+} as const;
+
+export default async function JobPage({ params }: Props) {
+  const { id } = await params;
+  const user = await requirePageUser(`/jobs/${id}`);
+  // A job the user may not see is "not found", exactly like one that does not exist.
+  const d = await getJobDetail(user, id);
+  if (!d) notFound();
+  const { job, customer, site, machine, head, installer } = d;
+
+  return (
+    <div className="space-y-6">
+      <nav aria-label="Breadcrumb" className="text-sm text-graphite-600">
+        <Link href="/jobs" className="hover:text-graphite-900 hover:underline">
+          Jobs
+        </Link>{" "}
+        / <span className="num">{job.reference}</span>
+      </nav>
+      <div className="flex flex-wrap items-start justify-between gap-4">
+        <div>
+          <p className="num text-sm text-graphite-600">{job.reference}</p>
+          <h1 className="text-2xl font-semibold">{job.title}</h1>
+          <p className="text-graphite-600">
+            {JOB_KIND_LABELS[job.kind]} · {customer.name}, {site.name}
+          </p>
+        </div>
+        <StatusBadge status={job.status} />
+      </div>
+      <Card>
+        <StatusFlow status={job.status} />
+      </Card>
+
+      <div className="grid gap-6 lg:grid-cols-2">
+        <Card title="Host machine">
+          <Facts
+            items={[
+              { label: "Name", value: machine.name },
+              { label: "Kind", value: machine.kind },
+              { label: "Builder and model", value: [machine.builder, machine.model].filter(Boolean).join(" ") || null },
+              { label: "Serial", value: machine.serial, mono: true },
+              { label: "Control", value: machine.control },
+              { label: "Site", value: `${site.name}${site.address ? `, ${site.address}` : ""}` },
+            ]}
+          />
+        </Card>
+        <Card title="Head">
+          <Facts
+            items={[
+              { label: "Serial", value: head.serial, mono: true },
+              { label: "Maker and model", value: [head.maker, head.model].filter(Boolean).join(" ") || null },
+              { label: "Axes", value: `${head.primaryAxis} primary (rotary) / ${head.secondaryAxis} secondary (tilt)` },
+              { label: "Nominal pivot length", value: `${head.nominalPivotLengthMm.toFixed(3)} mm`, mono: true },
+              { label: "Tool-axis offset", value: `${head.toolAxisOffsetMm.toFixed(3)} mm`, mono: true },
+              { label: "Tool direction at zero", value: `(${head.toolDirection.join(", ")})`, mono: true },
+              { label: "Mass", value: head.massKg ? `${head.massKg} kg` : null, mono: true },
+            ]}
+          />
+        </Card>
+        <Card title="Work">
+          <Facts
+            items={[
+              { label: "Installer", value: installer ? installer.name : "Not assigned yet" },
+              { label: "Scheduled", value: formatDateTimeUtc(job.scheduledFor) },
+              { label: "Air temperature", value: job.airTempC != null ? `${job.airTempC.toFixed(1)} °C` : "Not recorded", mono: true },
+              { label: "Decision rule", value: DECISION_RULES[job.decisionRule] },
+              { label: "Last change", value: formatDateTimeUtc(job.updatedAt) },
+            ]}
+          />
+        </Card>
+        <div className="space-y-4">
+          <SafetyNote title="A heavy head is lifted and the spindle is worked on">
+            <p>
+              {head.massKg ? `This head weighs about ${head.massKg} kg. ` : ""}Lift it only with rated gear at its lifting points, keep hands clear of pinch points between head, collar and spindle
+              nose, and lock out the machine before working on the spindle.
+            </p>
+            <p>Axes may move when jogging or probing: keep clear of the head&apos;s sweep. Follow the machine builder&apos;s and head maker&apos;s manuals, local codes and licensed practice.</p>
+          </SafetyNote>
+        </div>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,23 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { listHeads } from "@/db/queries/registers";
+import { canReadRegister } from "@/lib/auth/roles";
+import { requirePageUser } from "@/lib/auth/session";
+import { HeadsTable } from "@/components/registers/heads-table";
+
+export const metadata: Metadata = { title: "Heads" };
+
+export default async function HeadsPage() {
+  const user = await requirePageUser("/registers/heads");
+  if (!canReadRegister(user.role, "heads")) notFound();
+  const heads = await listHeads(user);
+  return (
+    <div className="space-y-5">
+      <div>
+        <h1 className="text-2xl font-semibold">Heads</h1>
+        <p className="text-sm text-graphite-600">Every two-axis head on record, its axis configuration and where it is mounted now.</p>
+      </div>
+      <HeadsTable rows={heads} />
+    </div>
+  );
+}

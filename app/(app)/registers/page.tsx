@@ -1,0 +1,59 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { HeadsTable } from "@/components/registers/heads-table";
+import { SimpleTable } from "@/components/ui/simple-table";
+import { listCustomersWithSites, listHeads, listMachines, listPeople } from "@/db/queries/registers";
+import { canReadRegister, ROLE_LABELS } from "@/lib/auth/roles";
+import { requirePageUser } from "@/lib/auth/session";
+
+export const metadata: Metadata = { title: "Registers" };
+
+export default async function RegistersPage() {
+  const user = await requirePageUser("/registers");
+  if (!canReadRegister(user.role, "customers")) notFound();
+  const [customers, machines, heads, people] = await Promise.all([listCustomersWithSites(user), listMachines(user), listHeads(user), listPeople(user)]);
+  return (
+    <div className="space-y-8">
+      <div>
+        <h1 className="text-2xl font-semibold">Registers</h1>
+        <p className="text-sm text-graphite-600">Customers and their sites, host machines, heads and the people who sign in.</p>
+      </div>
+      <section className="space-y-3" aria-labelledby="customers">
+        <h2 id="customers" className="text-lg font-semibold">Customers</h2>
+        <SimpleTable caption="Customers" rows={customers} columns={[{ header: "Name", cell: (c) => c.name }, { header: "Sites", cell: (c) => c.sites.join(", ") || "—" }, { header: "Contact", cell: (c) => c.contactEmail ?? "—" }]} />
+      </section>
+      <section className="space-y-3" aria-labelledby="machines">
+        <h2 id="machines" className="text-lg font-semibold">Host machines</h2>
+        <SimpleTable
+          caption="Host machines"
+          rows={machines}
+          columns={[
+            { header: "Machine", cell: (m) => m.name },
+            { header: "Kind", cell: (m) => m.kind },
+            { header: "Builder and model", cell: (m) => [m.builder, m.model].filter(Boolean).join(" ") || "—" },
+            { header: "Serial", cell: (m) => <span className="num">{m.serial ?? "—"}</span> },
+            { header: "Customer, site", cell: (m) => `${m.customerName}, ${m.siteName}` },
+          ]}
+        />
+      </section>
+      <section className="space-y-3" aria-labelledby="heads">
+        <h2 id="heads" className="text-lg font-semibold">Heads</h2>
+        <HeadsTable rows={heads} />
+      </section>
+      <section className="space-y-3" aria-labelledby="people">
+        <h2 id="people" className="text-lg font-semibold">People</h2>
+        <SimpleTable
+          caption="People"
+          rows={people}
+          columns={[
+            { header: "Name", cell: (p) => p.name },
+            { header: "E-mail", cell: (p) => p.email },
+            { header: "Role", cell: (p) => ROLE_LABELS[p.role] },
+            { header: "Company", cell: (p) => p.customerName ?? "Service company" },
+            { header: "Account", cell: (p) => (p.disabled ? "Disabled" : "Active") },
+          ]}
+        />
+      </section>
+    </div>
+  );
+}

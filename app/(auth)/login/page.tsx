@@ -1,0 +1,56 @@
+import type { Metadata } from "next";
+import { redirect } from "next/navigation";
+import { LogoMark } from "@/components/brand/logo";
+import { getCurrentUser } from "@/lib/auth/session";
+import { SignInForm } from "./sign-in-form";
+
+export const metadata: Metadata = { title: "Sign in" };
+
+type Props = { searchParams: Promise<{ callbackUrl?: string; error?: string }> };
+
+/** Only same-site paths are followed after sign-in. */
+function safeCallback(url: string | undefined): string {
+  return url && url.startsWith("/") && !url.startsWith("//") ? url : "/jobs";
+}
+
+export default async function LoginPage({ searchParams }: Props) {
+  const { callbackUrl, error } = await searchParams;
+  if (await getCurrentUser()) redirect(safeCallback(callbackUrl));
+  return (
+    <main className="grid min-h-screen lg:grid-cols-[1.1fr_1fr]">
+      <section className="relative hidden overflow-hidden bg-graphite-900 p-12 text-graphite-100 lg:flex lg:flex-col lg:justify-between">
+        <div className="flex items-center gap-3">
+          <LogoMark className="h-10 w-10" />
+          <span className="text-2xl font-semibold tracking-tight text-white">Trammel</span>
+        </div>
+        <div className="max-w-md space-y-4">
+          <p className="text-3xl font-semibold leading-tight text-white">Every reading against its tolerance. Every head proven, signed and accepted.</p>
+          <p className="text-graphite-300">
+            Record the installation of two-axis heads, fit their kinematic errors from probe data, and hand the customer an acceptance report that still verifies years from now.
+          </p>
+        </div>
+        <svg viewBox="0 0 400 160" className="w-full max-w-lg text-graphite-700" aria-hidden="true">
+          <line x1="0" y1="120" x2="400" y2="120" stroke="currentColor" strokeWidth="1" />
+          <path d="M20 120 C 120 112, 220 128, 380 118" fill="none" stroke="#e08e0b" strokeWidth="2.5" />
+          <path d="M20 120 L 380 120" fill="none" stroke="#9fb3c8" strokeWidth="1.5" strokeDasharray="6 5" />
+          {Array.from({ length: 13 }, (_, i) => (
+            <line key={i} x1={20 + i * 30} y1={114} x2={20 + i * 30} y2={126} stroke="currentColor" strokeWidth="1" />
+          ))}
+        </svg>
+      </section>
+      <section className="flex items-center justify-center p-6">
+        <div className="w-full max-w-sm space-y-8">
+          <div className="flex items-center gap-3 lg:hidden">
+            <LogoMark className="h-9 w-9" />
+            <span className="text-xl font-semibold">Trammel</span>
+          </div>
+          <div>
+            <h1 className="text-2xl font-semibold text-graphite-900">Sign in</h1>
+            <p className="mt-1 text-sm text-graphite-600">Use the e-mail address your service company or administrator registered.</p>
+          </div>
+          <SignInForm callbackUrl={safeCallback(callbackUrl)} initialError={error} />
+        </div>
+      </section>
+    </main>
+  );
+}

@@ -1,0 +1,37 @@
+import type { Metadata, Viewport } from "next";
+import localFont from "next/font/local";
+import "./globals.css";
+
+const sans = localFont({
+  src: [
+    { path: "../fonts/IBMPlexSans-Regular.woff2", weight: "400", style: "normal" },
+    { path: "../fonts/IBMPlexSans-Medium.woff2", weight: "500", style: "normal" },
+    { path: "../fonts/IBMPlexSans-SemiBold.woff2", weight: "600", style: "normal" },
+    { path: "../fonts/IBMPlexSans-Bold.woff2", weight: "700", style: "normal" },
+  ],
+  variable: "--font-sans",
+  display: "swap",
+});
+const mono = localFont({
+  src: [
+    { path: "../fonts/IBMPlexMono-Regular.woff2", weight: "400", style: "normal" },
+    { path: "../fonts/IBMPlexMono-Medium.woff2", weight: "500", style: "normal" },
+  ],
+  variable: "--font-mono",
+  display: "swap",
+});
+
+export const metadata: Metadata = {
+  title: { default: "Trammel", template: "%s · Trammel" },
+  description: "Install, align and prove two-axis milling heads: readings, kinematic fits and signed acceptance reports.",
+};
+
+export const viewport: Viewport = { width: "device-width", initialScale: 1, themeColor: "#1d2125" };
+
+export default function RootLayout({ children }: Readonly<{ children: React.ReactNode }>) {
+  return (
+    <html lang="en" className={`${sans.variable} ${mono.variable}`}>
+      <body className="min-h-screen">{children}</body>
+    </html>
+  );
+}

@@ -1,0 +1,19 @@
+import { SimpleTable } from "@/components/ui/simple-table";
+import type { listHeads } from "@/db/queries/registers";
+
+export function HeadsTable({ rows }: { rows: Awaited<ReturnType<typeof listHeads>> }) {
+  return (
+    <SimpleTable
+      caption="Heads"
+      rows={rows}
+      columns={[
+        { header: "Serial", cell: (h) => <span className="num">{h.serial}</span> },
+        { header: "Maker and model", cell: (h) => [h.maker, h.model].filter(Boolean).join(" ") || "—" },
+        { header: "Axes (primary/secondary)", cell: (h) => `${h.primaryAxis}/${h.secondaryAxis}` },
+        { header: "Nominal pivot length", cell: (h) => `${h.nominalPivotLengthMm.toFixed(3)} mm`, numeric: true },
+        { header: "Mass", cell: (h) => (h.massKg ? `${h.massKg} kg` : "—"), numeric: true },
+        { header: "Mounted on", cell: (h) => h.machineName ?? "Not mounted" },
+      ]}
+    />
+  );
+}

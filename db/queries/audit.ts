@@ -1,0 +1,91 @@
+import "server-only";
+import { createHash } from "node:crypto";
+import { asc, desc, eq, sql } from "drizzle-orm";
+import type { NodePgDatabase } from "drizzle-orm/node-postgres";
+import { auditEvents } from "@/db/schema";
+import type * as schema from "@/db/schema";
+import { canonicalJson } from "@/lib/canonical-json";
+
+type Executor = NodePgDatabase<typeof schema>;
+
+export const AUDIT_GENESIS = "0".repeat(64);
+const AUDIT_CHAIN_LOCK = 724_002;
+
+export interface AuditInput {
+  actorId: string | null;
+  actorEmail: string | null;
+  action: string;
+  entityType: string;
+  entityId: string;
+  jobId?: string | null;
+  oldValues?: unknown;
+  newValues?: unknown;
+}
+
+/** hash = SHA-256(prev_hash ‖ canonical JSON of the event's content), hex. */
+export function auditHash(prevHash: string, e: AuditInput & { at: Date }): string {
+  const content = canonicalJson({
+    at: e.at.toISOString(),
+    actorId: e.actorId,
+    actorEmail: e.actorEmail,
+    action: e.action,
+    entityType: e.entityType,
+    entityId: e.entityId,
+    jobId: e.jobId ?? null,
+    oldValues: e.oldValues ?? null,
+    newValues: e.newValues ?? null,
+  });
+  return createHash("sha256").update(prevHash).update("\n").update(content).digest("hex");
+}
+
+/**
+ * Appends one event to the chain. Call inside the transaction that makes the change, so the
+ * change and its record commit together; the advisory lock orders concurrent writers.
+ */
+export async function appendAudit(tx: Executor, input: AuditInput): Promise<void> {
+  await tx.execute(sql`select pg_advisory_xact_lock(${AUDIT_CHAIN_LOCK})`);
+  const [last] = await tx.select({ hash: auditEvents.hash }).from(auditEvents).orderBy(desc(auditEvents.id)).limit(1);
+  const prevHash = last?.hash ?? AUDIT_GENESIS;
+  // Millisecond precision, so the stored timestamp hashes the same when read back.
+  const at = new Date(Math.floor(Date.now()));
+  const hash = auditHash(prevHash, { ...input, at });
+  await tx.insert(auditEvents).values({
+    at,
+    actorId: input.actorId,
+    actorEmail: input.actorEmail,
+    action: input.action,
+    entityType: input.entityType,
+    entityId: input.entityId,
+    jobId: input.jobId ?? null,
+    oldValues: input.oldValues ?? null,
+    newValues: input.newValues ?? null,
+    prevHash,
+    hash,
+  });
+}
+
+/** Checks the whole chain; returns the id of the first event whose link is broken, or null. */
+export async function verifyAuditChain(tx: Executor): Promise<{ checked: number; firstBrokenId: number | null }> {
+  const rows = await tx.select().from(auditEvents).orderBy(asc(auditEvents.id));
+  let prev = AUDIT_GENESIS;
+  for (const r of rows) {
+    const expected = auditHash(prev, {
+      at: r.at,
+      actorId: r.actorId,
+      actorEmail: r.actorEmail,
+      action: r.action,
+      entityType: r.entityType,
+      entityId: r.entityId,
+      jobId: r.jobId,
+      oldValues: r.oldValues,
+      newValues: r.newValues,
+    });
+    if (r.prevHash !== prev || r.hash !== expected) return { checked: rows.length, firstBrokenId: r.id };
+    prev = r.hash;
+  }
+  return { checked: rows.length, firstBrokenId: null };
+}
+
+export async function listJobAudit(tx: Executor, jobId: string) {
+  return tx.select().from(auditEvents).where(eq(auditEvents.jobId, jobId)).orderBy(asc(auditEvents.id));
+}

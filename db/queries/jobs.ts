@@ -1,0 +1,159 @@
+import "server-only";
+import { and, asc, desc, eq, ilike, or, sql, type SQL } from "drizzle-orm";
+import { alias } from "drizzle-orm/pg-core";
+import { db } from "@/db";
+import { customers, heads, jobs, machines, sites, users } from "@/db/schema";
+import { jobScope, type Actor, type JobStatus } from "@/lib/auth/roles";
+
+/** The SQL form of lib/auth/roles.jobScope: every read of jobs goes through it. */
+export function jobAccessCondition(actor: Actor): SQL | undefined {
+  const scope = jobScope(actor);
+  switch (scope.kind) {
+    case "all":
+      return undefined;
+    case "assigned":
+      return eq(jobs.assignedInstallerId, scope.installerId);
+    case "customer":
+      return eq(jobs.customerId, scope.customerId);
+    case "none":
+      return sql`false`;
+  }
+}
+
+export const JOB_SORT_KEYS = ["reference", "title", "status", "customer", "machine", "updated"] as const;
+export type JobSortKey = (typeof JOB_SORT_KEYS)[number];
+
+export interface JobListFilters {
+  status?: JobStatus;
+  q?: string;
+  sort?: JobSortKey;
+  dir?: "asc" | "desc";
+}
+
+const installers = alias(users, "installer");
+
+const listColumns = {
+  id: jobs.id,
+  reference: jobs.reference,
+  title: jobs.title,
+  kind: jobs.kind,
+  status: jobs.status,
+  updatedAt: jobs.updatedAt,
+  scheduledFor: jobs.scheduledFor,
+  customerId: jobs.customerId,
+  customerName: customers.name,
+  siteName: sites.name,
+  machineName: machines.name,
+  headSerial: heads.serial,
+  headAxes: sql<string>`${heads.primaryAxis} || '/' || ${heads.secondaryAxis}`,
+  installerName: installers.name,
+};
+
+export type JobListRow = {
+  id: string;
+  reference: string;
+  title: string;
+  kind: "installation" | "reverification" | "after_crash";
+  status: JobStatus;
+  updatedAt: Date;
+  scheduledFor: Date | null;
+  customerId: string;
+  customerName: string;
+  siteName: string;
+  machineName: string;
+  headSerial: string;
+  headAxes: string;
+  installerName: string | null;
+};
+
+function baseJobQuery() {
+  return db
+    .select(listColumns)
+    .from(jobs)
+    .innerJoin(customers, eq(customers.id, jobs.customerId))
+    .innerJoin(machines, eq(machines.id, jobs.machineId))
+    .innerJoin(sites, eq(sites.id, machines.siteId))
+    .innerJoin(heads, eq(heads.id, jobs.headId))
+    .leftJoin(installers, eq(installers.id, jobs.assignedInstallerId));
+}
+
+/** Jobs the actor may see, filtered and sorted. */
+export async function listJobs(actor: Actor, filters: JobListFilters = {}): Promise<JobListRow[]> {
+  const conditions: (SQL | undefined)[] = [jobAccessCondition(actor)];
+  if (filters.status) conditions.push(eq(jobs.status, filters.status));
+  const q = filters.q?.trim();
+  if (q) {
+    const like = `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    conditions.push(
+      or(ilike(jobs.reference, like), ilike(jobs.title, like), ilike(customers.name, like), ilike(machines.name, like), ilike(heads.serial, like)),
+    );
+  }
+  const sortColumn = {
+    reference: jobs.reference,
+    title: jobs.title,
+    status: jobs.status,
+    customer: customers.name,
+    machine: machines.name,
+    updated: jobs.updatedAt,
+  }[filters.sort ?? "updated"];
+  const order = (filters.dir ?? (filters.sort ? "asc" : "desc")) === "asc" ? asc(sortColumn) : desc(sortColumn);
+  return baseJobQuery()
+    .where(and(...conditions))
+    .orderBy(order, asc(jobs.reference))
+    .limit(500) as Promise<JobListRow[]>;
+}
+
+/** One job with its machine, head and people; null when missing *or* not visible to the actor. */
+export async function getJobDetail(actor: Actor, jobId: string) {
+  if (!/^[0-9a-f-]{36}$/i.test(jobId)) return null;
+  const rows = await db
+    .select({
+      job: jobs,
+      customer: { id: customers.id, name: customers.name },
+      site: { id: sites.id, name: sites.name, address: sites.address },
+      machine: machines,
+      head: heads,
+      installer: { id: installers.id, name: installers.name, email: installers.email },
+    })
+    .from(jobs)
+    .innerJoin(customers, eq(customers.id, jobs.customerId))
+    .innerJoin(machines, eq(machines.id, jobs.machineId))
+    .innerJoin(sites, eq(sites.id, machines.siteId))
+    .innerJoin(heads, eq(heads.id, jobs.headId))
+    .leftJoin(installers, eq(installers.id, jobs.assignedInstallerId))
+    .where(and(eq(jobs.id, jobId), jobAccessCondition(actor)))
+    .limit(1);
+  const row = rows[0];
+  if (!row) return null;
+  return { ...row, installer: row.installer?.id ? row.installer : null };
+}
+export type JobDetail = NonNullable<Awaited<ReturnType<typeof getJobDetail>>>;
+
+/** The API's JSON form of a job detail (no internal columns such as created_by). */
+export function jobDetailJson(d: JobDetail) {
+  return {
+    id: d.job.id,
+    reference: d.job.reference,
+    title: d.job.title,
+    kind: d.job.kind,
+    status: d.job.status,
+    decisionRule: d.job.decisionRule,
+    scheduledFor: d.job.scheduledFor,
+    updatedAt: d.job.updatedAt,
+    customer: d.customer,
+    site: d.site,
+    machine: { id: d.machine.id, name: d.machine.name, builder: d.machine.builder, model: d.machine.model, serial: d.machine.serial, kind: d.machine.kind, control: d.machine.control },
+    head: {
+      id: d.head.id,
+      serial: d.head.serial,
+      maker: d.head.maker,
+      model: d.head.model,
+      primaryAxis: d.head.primaryAxis,
+      secondaryAxis: d.head.secondaryAxis,
+      toolDirection: d.head.toolDirection,
+      nominalPivotLengthMm: d.head.nominalPivotLengthMm,
+      toolAxisOffsetMm: d.head.toolAxisOffsetMm,
+    },
+    installer: d.installer,
+  };
+}

@@ -1,0 +1,48 @@
+import "server-only";
+import { asc, eq, sql } from "drizzle-orm";
+import { db } from "@/db";
+import { customers, heads, machines, sites, users } from "@/db/schema";
+import { canReadRegister, type Actor } from "@/lib/auth/roles";
+import { forbidden } from "@/lib/errors";
+
+function check(actor: Actor, register: Parameters<typeof canReadRegister>[1]) {
+  if (!canReadRegister(actor.role, register)) throw forbidden("Registers are kept by the administrator.");
+}
+
+export async function listCustomersWithSites(actor: Actor) {
+  check(actor, "customers");
+  return db
+    .select({ id: customers.id, name: customers.name, contactEmail: customers.contactEmail, sites: sql<string[]>`coalesce(array_agg(${sites.name} order by ${sites.name}) filter (where ${sites.id} is not null), '{}')` })
+    .from(customers)
+    .leftJoin(sites, eq(sites.customerId, customers.id))
+    .groupBy(customers.id)
+    .orderBy(asc(customers.name));
+}
+
+export async function listMachines(actor: Actor) {
+  check(actor, "machines");
+  return db
+    .select({ id: machines.id, name: machines.name, kind: machines.kind, builder: machines.builder, model: machines.model, serial: machines.serial, siteName: sites.name, customerName: customers.name })
+    .from(machines)
+    .innerJoin(sites, eq(sites.id, machines.siteId))
+    .innerJoin(customers, eq(customers.id, sites.customerId))
+    .orderBy(asc(customers.name), asc(machines.name));
+}
+
+export async function listHeads(actor: Actor) {
+  check(actor, "heads");
+  return db
+    .select({ id: heads.id, serial: heads.serial, maker: heads.maker, model: heads.model, primaryAxis: heads.primaryAxis, secondaryAxis: heads.secondaryAxis, nominalPivotLengthMm: heads.nominalPivotLengthMm, massKg: heads.massKg, machineName: machines.name })
+    .from(heads)
+    .leftJoin(machines, eq(machines.id, heads.machineId))
+    .orderBy(asc(heads.serial));
+}
+
+export async function listPeople(actor: Actor) {
+  check(actor, "people");
+  return db
+    .select({ id: users.id, name: users.name, email: users.email, role: users.role, disabled: users.disabled, customerName: customers.name })
+    .from(users)
+    .leftJoin(customers, eq(customers.id, users.customerId))
+    .orderBy(asc(users.role), asc(users.name));
+}

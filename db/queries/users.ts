@@ -1,0 +1,31 @@
+import "server-only";
+import { eq, sql } from "drizzle-orm";
+import type { Actor } from "@/lib/auth/roles";
+import { db } from "@/db";
+import { users } from "@/db/schema";
+
+/** For sign-in only: the row with its password hash, matched case-insensitively. */
+export async function getUserForSignIn(email: string) {
+  const rows = await db
+    .select()
+    .from(users)
+    .where(sql`lower(${users.email}) = ${email.trim().toLowerCase()}`)
+    .limit(1);
+  return rows[0] ?? null;
+}
+
+/**
+ * The acting user, fresh from the database: a disabled user or a changed role takes effect on
+ * the next request, not when the session token expires.
+ */
+export async function getActor(userId: string): Promise<Actor | null> {
+  if (!/^[0-9a-f-]{36}$/i.test(userId)) return null;
+  const rows = await db
+    .select({ id: users.id, email: users.email, name: users.name, role: users.role, customerId: users.customerId, disabled: users.disabled })
+    .from(users)
+    .where(eq(users.id, userId))
+    .limit(1);
+  const row = rows[0];
+  if (!row || row.disabled) return null;
+  return { id: row.id, email: row.email, name: row.name, role: row.role, customerId: row.customerId };
+}

@@ -1,0 +1,69 @@
+/**
+ * next-auth configuration: e-mail + password credentials, JWT sessions that carry id, role and
+ * company, a short lifetime, and our own sign-in page.
+ */
+import type { NextAuthOptions } from "next-auth";
+import CredentialsProvider from "next-auth/providers/credentials";
+import { clearSignInFailures, isSignInLimited, recordSignInFailure } from "@/db/queries/sign-in";
+import { getUserForSignIn } from "@/db/queries/users";
+import { authSecret, env } from "@/lib/env";
+import { verifyPassword } from "./password";
+import { isRole } from "./roles";
+
+export function clientAddress(headers: Headers | Record<string, string | string[] | undefined> | undefined): string {
+  const get = (name: string): string | undefined => {
+    if (!headers) return undefined;
+    if (headers instanceof Headers) return headers.get(name) ?? undefined;
+    const v = headers[name];
+    return Array.isArray(v) ? v[0] : v;
+  };
+  return (get("x-forwarded-for")?.split(",")[0] ?? get("x-real-ip") ?? "local").trim();
+}
+
+export const authOptions: NextAuthOptions = {
+  secret: authSecret,
+  session: { strategy: "jwt", maxAge: env.SESSION_MAX_AGE_S },
+  jwt: { maxAge: env.SESSION_MAX_AGE_S },
+  pages: { signIn: "/login", error: "/login" },
+  providers: [
+    CredentialsProvider({
+      name: "E-mail and password",
+      credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
+      async authorize(credentials, req) {
+        const email = String(credentials?.email ?? "").trim();
+        const password = String(credentials?.password ?? "");
+        if (!email || !password || email.length > 254 || password.length > 200) return null;
+        const address = clientAddress(req?.headers);
+        // The route handler answers 429 before this point; this check covers direct callers.
+        if (await isSignInLimited(email, address)) return null;
+        const user = await getUserForSignIn(email);
+        const ok = await verifyPassword(password, user?.passwordHash);
+        if (!user || !ok || user.disabled || !isRole(user.role)) {
+          await recordSignInFailure(email, address);
+          return null;
+        }
+        await clearSignInFailures(email);
+        return { id: user.id, email: user.email, name: user.name, role: user.role, customerId: user.customerId };
+      },
+    }),
+  ],
+  callbacks: {
+    jwt({ token, user }) {
+      if (user) {
+        token.role = user.role;
+        token.customerId = user.customerId;
+      }
+      return token;
+    },
+    session({ session, token }) {
+      session.user = {
+        id: token.sub ?? "",
+        email: token.email ?? "",
+        name: token.name ?? "",
+        role: token.role ?? "customer",
+        customerId: token.customerId ?? null,
+      };
+      return session;
+    },
+  },
+};

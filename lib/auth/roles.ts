@@ -1,0 +1,128 @@
+/**
+ * Roles and what each may do. Pure: no database or framework, so every rule is unit-tested.
+ * The server enforces these in db/queries and the route/action wrappers; pages only use them to
+ * decide what to show.
+ */
+export const ROLES = ["admin", "installer", "inspector", "engineer", "customer"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const JOB_STATUSES = ["draft", "measuring", "in_review", "approved", "issued", "accepted", "rejected"] as const;
+export type JobStatus = (typeof JOB_STATUSES)[number];
+
+/** The acting user as the server knows it (fresh from the database on every request). */
+export interface Actor {
+  readonly id: string;
+  readonly email: string;
+  readonly name: string;
+  readonly role: Role;
+  /** Set for customer users only: the one company whose data they may see. */
+  readonly customerId: string | null;
+}
+
+export const ROLE_LABELS: Record<Role, string> = {
+  admin: "Administrator",
+  installer: "Installer",
+  inspector: "Inspector",
+  engineer: "Application engineer",
+  customer: "Customer",
+};
+
+export const STATUS_LABELS: Record<JobStatus, string> = {
+  draft: "Draft",
+  measuring: "Measuring",
+  in_review: "In review",
+  approved: "Approved",
+  issued: "Issued",
+  accepted: "Accepted",
+  rejected: "Rejected",
+};
+
+export function isRole(value: unknown): value is Role {
+  return typeof value === "string" && (ROLES as readonly string[]).includes(value);
+}
+
+/** Staff of the service company see every customer's jobs; installers see theirs; customers their company's. */
+export type JobScope =
+  | { kind: "all" }
+  | { kind: "assigned"; installerId: string }
+  | { kind: "customer"; customerId: string }
+  | { kind: "none" };
+
+export function jobScope(actor: Actor): JobScope {
+  switch (actor.role) {
+    case "admin":
+    case "engineer":
+    case "inspector":
+      return { kind: "all" };
+    case "installer":
+      return { kind: "assigned", installerId: actor.id };
+    case "customer":
+      // A customer user without a company sees nothing rather than everything.
+      return actor.customerId ? { kind: "customer", customerId: actor.customerId } : { kind: "none" };
+  }
+}
+
+/** May this actor see a job with these owner fields? The same rule as jobScope, for one row. */
+export function canSeeJob(actor: Actor, job: { customerId: string; assignedInstallerId: string | null }): boolean {
+  const scope = jobScope(actor);
+  switch (scope.kind) {
+    case "all":
+      return true;
+    case "assigned":
+      return job.assignedInstallerId === scope.installerId;
+    case "customer":
+      return job.customerId === scope.customerId;
+    case "none":
+      return false;
+  }
+}
+
+/**
+ * The status flow: draft → measuring → in review → approved → issued → accepted | rejected,
+ * with "send back" from review to measuring. Who may make each move.
+ */
+const TRANSITIONS: ReadonlyArray<{ from: JobStatus; to: JobStatus; roles: readonly Role[] }> = [
+  { from: "draft", to: "measuring", roles: ["admin", "installer", "engineer"] },
+  { from: "measuring", to: "in_review", roles: ["admin", "installer"] },
+  { from: "in_review", to: "measuring", roles: ["engineer", "inspector"] },
+  { from: "in_review", to: "approved", roles: ["engineer"] },
+  { from: "approved", to: "issued", roles: ["engineer"] },
+  { from: "issued", to: "accepted", roles: ["customer"] },
+  { from: "issued", to: "rejected", roles: ["customer"] },
+];
+
+export function allowedTransitions(role: Role, from: JobStatus): JobStatus[] {
+  return TRANSITIONS.filter((t) => t.from === from && t.roles.includes(role)).map((t) => t.to);
+}
+
+export function canTransition(role: Role, from: JobStatus, to: JobStatus): boolean {
+  return allowedTransitions(role, from).includes(to);
+}
+
+/** Navigation entries per role: what each person needs in their working day. */
+export interface NavItem {
+  readonly href: string;
+  readonly label: string;
+}
+
+export function navigationFor(role: Role): NavItem[] {
+  const jobs: NavItem = { href: "/jobs", label: role === "installer" ? "My jobs" : role === "customer" ? "Our jobs" : "Jobs" };
+  const verify: NavItem = { href: "/verify", label: "Verify a report" };
+  switch (role) {
+    case "admin":
+      return [jobs, { href: "/registers", label: "Registers" }, verify];
+    case "engineer":
+      return [jobs, { href: "/registers/heads", label: "Heads" }, verify];
+    case "inspector":
+    case "installer":
+      return [jobs, verify];
+    case "customer":
+      return [jobs, verify];
+  }
+}
+
+/** Pages under /registers are the administrator's (engineers may read the heads register). */
+export function canReadRegister(role: Role, register: "customers" | "machines" | "heads" | "people"): boolean {
+  if (role === "admin") return true;
+  return role === "engineer" && register === "heads";
+}

@@ -1,0 +1,39 @@
+/**
+ * The one place that reads the session. The token only says who signed in; role, company and
+ * whether the account is still enabled are read fresh from the database on every request.
+ */
+import "server-only";
+import { getServerSession } from "next-auth";
+import { redirect } from "next/navigation";
+import { getActor } from "@/db/queries/users";
+import { forbidden, unauthorized } from "@/lib/errors";
+import { authOptions } from "./options";
+import type { Actor, Role } from "./roles";
+
+export async function getCurrentUser(): Promise<Actor | null> {
+  const session = await getServerSession(authOptions);
+  const id = session?.user?.id;
+  if (!id) return null;
+  return getActor(id);
+}
+
+/** For route handlers and actions: throws 401 when nobody is signed in. */
+export async function requireUser(): Promise<Actor> {
+  const actor = await getCurrentUser();
+  if (!actor) throw unauthorized();
+  return actor;
+}
+
+/** Throws 401 without a session and 403 when the role is not one of `roles`. */
+export async function requireRole(...roles: Role[]): Promise<Actor> {
+  const actor = await requireUser();
+  if (!roles.includes(actor.role)) throw forbidden();
+  return actor;
+}
+
+/** For pages: sends an anonymous visitor to the sign-in page. */
+export async function requirePageUser(callbackPath?: string): Promise<Actor> {
+  const actor = await getCurrentUser();
+  if (!actor) redirect(callbackPath ? `/login?callbackUrl=${encodeURIComponent(callbackPath)}` : "/login");
+  return actor;
+}

@@ -1,0 +1,65 @@
+// The role rules of the product brief (roles table and status flow), checked case by case.
+import { describe, expect, it } from "vitest";
+import { allowedTransitions, canReadRegister, canSeeJob, canTransition, jobScope, navigationFor, ROLES, type Actor } from "@/lib/auth/roles";
+
+const actor = (role: Actor["role"], customerId: string | null = null): Actor => ({ id: "u1", email: "x@y.example", name: "X", role, customerId });
+const jobA = { customerId: "cA", assignedInstallerId: "u1" };
+const jobB = { customerId: "cB", assignedInstallerId: "u2" };
+
+describe("who sees which job", () => {
+  it("staff roles other than installer see every customer's jobs", () => {
+    for (const r of ["admin", "inspector", "engineer"] as const) {
+      expect(canSeeJob(actor(r), jobA)).toBe(true);
+      expect(canSeeJob(actor(r), jobB)).toBe(true);
+    }
+  });
+  it("an installer sees only jobs assigned to them", () => {
+    expect(canSeeJob(actor("installer"), jobA)).toBe(true);
+    expect(canSeeJob(actor("installer"), jobB)).toBe(false);
+  });
+  it("a customer sees only their own company's jobs", () => {
+    expect(canSeeJob(actor("customer", "cA"), jobA)).toBe(true);
+    expect(canSeeJob(actor("customer", "cA"), jobB)).toBe(false);
+  });
+  it("a customer user with no company sees nothing (fails closed)", () => {
+    expect(jobScope(actor("customer", null))).toEqual({ kind: "none" });
+    expect(canSeeJob(actor("customer", null), jobA)).toBe(false);
+  });
+});
+
+describe("status flow", () => {
+  it("follows draft → measuring → in review → approved → issued → accepted | rejected", () => {
+    expect(canTransition("installer", "draft", "measuring")).toBe(true);
+    expect(canTransition("installer", "measuring", "in_review")).toBe(true);
+    expect(canTransition("engineer", "in_review", "approved")).toBe(true);
+    expect(canTransition("engineer", "approved", "issued")).toBe(true);
+    expect(allowedTransitions("customer", "issued").sort()).toEqual(["accepted", "rejected"]);
+  });
+  it("an installer cannot approve or issue", () => {
+    expect(canTransition("installer", "in_review", "approved")).toBe(false);
+    expect(canTransition("installer", "approved", "issued")).toBe(false);
+  });
+  it("nothing leaves accepted or rejected, and nobody skips a step", () => {
+    for (const r of ROLES) {
+      expect(allowedTransitions(r, "accepted")).toEqual([]);
+      expect(allowedTransitions(r, "rejected")).toEqual([]);
+      expect(canTransition(r, "draft", "issued")).toBe(false);
+    }
+  });
+  it("only customers accept or reject an issued report", () => {
+    for (const r of ROLES.filter((x) => x !== "customer")) expect(allowedTransitions(r, "issued")).toEqual([]);
+  });
+});
+
+describe("navigation and registers", () => {
+  it("every role has a jobs entry; only the administrator has the registers", () => {
+    for (const r of ROLES) expect(navigationFor(r).some((n) => n.href === "/jobs")).toBe(true);
+    expect(navigationFor("admin").some((n) => n.href === "/registers")).toBe(true);
+    for (const r of ROLES.filter((x) => x !== "admin")) expect(navigationFor(r).some((n) => n.href === "/registers")).toBe(false);
+  });
+  it("engineers read the heads register only; customers none", () => {
+    expect(canReadRegister("engineer", "heads")).toBe(true);
+    expect(canReadRegister("engineer", "people")).toBe(false);
+    expect(canReadRegister("customer", "heads")).toBe(false);
+  });
+});
