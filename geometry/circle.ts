@@ -1,0 +1,243 @@
+/**
+ * Circle fit per axis: points measured while one rotary axis turns lie on a circle whose normal is
+ * the axis direction and whose centre is a point on the axis. No head model needed.
+ */
+import { Matrix, SVD, solve } from "ml-matrix";
+import { GeometryError } from "./errors";
+import { RAD_PER_ARCSEC } from "./units";
+
+export type Vec3 = readonly [number, number, number];
+
+export interface PointsInput {
+  readonly xMm: ArrayLike<number>;
+  readonly yMm: ArrayLike<number>;
+  readonly zMm: ArrayLike<number>;
+}
+
+export interface CircleFit {
+  readonly n: number;
+  /** Centre of the circle: a point on the fitted axis, mm. */
+  readonly centre_mm: Vec3;
+  /** Unit normal of the circle's plane = axis direction; sign: largest component positive. */
+  readonly normal: Vec3;
+  readonly radius_mm: number;
+  /** RMS and max of each point's 3-D distance to the fitted circle (in-plane and out-of-plane), µm. */
+  readonly rms_um: number;
+  readonly max_um: number;
+  /** RMS of the in-plane radial residuals, µm, and of the distances from the plane, µm. */
+  readonly radial_rms_um: number;
+  readonly plane_rms_um: number;
+  /** Gauss–Newton/Levenberg–Marquardt iterations of the geometric refinement. */
+  readonly iterations: number;
+}
+
+function orientNormal(v: [number, number, number]): Vec3 {
+  let k = 0;
+  if (Math.abs(v[1]) > Math.abs(v[k]!)) k = 1;
+  if (Math.abs(v[2]) > Math.abs(v[k]!)) k = 2;
+  return v[k]! < 0 ? [-v[0], -v[1], -v[2]] : [v[0], v[1], v[2]];
+}
+
+/**
+ * Fit a circle to 3-D points (mm).
+ * 1. Plane: centroid c̄; SVD of the centred n×3 matrix; the right singular vector of the smallest
+ *    singular value is the normal (total least squares plane; e.g. Shakarji, J. Res. NIST 103,
+ *    1998, "Least-squares fitting algorithms of the NIST algorithm testing system"), the other two
+ *    span the plane (u, v).
+ * 2. Circle in the plane on (ξ, η) = ((p − c̄)·u, (p − c̄)·v): algebraic start (Kåsa: linear least
+ *    squares of ξ² + η² + Dξ + Eη + F = 0), then geometric refinement minimising
+ *    Σ (√((ξ−a)² + (η−b)²) − r)² by Levenberg–Marquardt (Gander, Golub & Strebel, BIT 34, 1994).
+ * 3. Centre = c̄ + a·u + b·v.
+ * Needs ≥ 3 points not on one line.
+ */
+export function fitCircle(points: PointsInput): CircleFit {
+  const n = points.xMm.length;
+  if (points.yMm.length !== n || points.zMm.length !== n) throw new GeometryError("bad_option", "x, y, z lengths differ");
+  if (n < 3) throw new GeometryError("too_few_rows", `a circle needs at least 3 points (got ${n})`);
+  let cx = 0;
+  let cy = 0;
+  let cz = 0;
+  for (let i = 0; i < n; i++) {
+    const x = points.xMm[i]!;
+    const y = points.yMm[i]!;
+    const z = points.zMm[i]!;
+    if (!Number.isFinite(x) || !Number.isFinite(y) || !Number.isFinite(z))
+      throw new GeometryError("bad_number", `point ${i + 1} is not finite`);
+    cx += x;
+    cy += y;
+    cz += z;
+  }
+  cx /= n;
+  cy /= n;
+  cz /= n;
+  const centred = new Matrix(n, 3);
+  for (let i = 0; i < n; i++) {
+    centred.set(i, 0, points.xMm[i]! - cx);
+    centred.set(i, 1, points.yMm[i]! - cy);
+    centred.set(i, 2, points.zMm[i]! - cz);
+  }
+  const svd = new SVD(centred, { computeLeftSingularVectors: false, autoTranspose: true });
+  const sv = svd.diagonal;
+  const V = svd.rightSingularVectors;
+  // ml-matrix returns singular values in decreasing order.
+  const order = [0, 1, 2].sort((p, q) => sv[q]! - sv[p]!);
+  const [iu, iv, iw] = order as [number, number, number];
+  if (!(sv[iv]! > 1e-9 * sv[iu]!)) throw new GeometryError("degenerate", "the points lie on a line; no circle or axis can be fitted");
+  const u: Vec3 = [V.get(0, iu), V.get(1, iu), V.get(2, iu)];
+  const v: Vec3 = [V.get(0, iv), V.get(1, iv), V.get(2, iv)];
+  const w = orientNormal([V.get(0, iw), V.get(1, iw), V.get(2, iw)]);
+
+  const xi = new Float64Array(n);
+  const eta = new Float64Array(n);
+  const h = new Float64Array(n);
+  let scale = 0;
+  for (let i = 0; i < n; i++) {
+    const dx = centred.get(i, 0);
+    const dy = centred.get(i, 1);
+    const dz = centred.get(i, 2);
+    xi[i] = dx * u[0] + dy * u[1] + dz * u[2];
+    eta[i] = dx * v[0] + dy * v[1] + dz * v[2];
+    h[i] = dx * w[0] + dy * w[1] + dz * w[2];
+    scale += xi[i]! * xi[i]! + eta[i]! * eta[i]!;
+  }
+  scale = Math.sqrt(scale / n);
+
+  // Algebraic start (Kåsa), on coordinates scaled by their RMS radius for conditioning.
+  const A = new Matrix(3, 3);
+  const rhs = new Matrix(3, 1);
+  for (let i = 0; i < n; i++) {
+    const p = xi[i]! / scale;
+    const q = eta[i]! / scale;
+    const row = [p, q, 1];
+    const t = -(p * p + q * q);
+    for (let r = 0; r < 3; r++) {
+      rhs.set(r, 0, rhs.get(r, 0) + row[r]! * t);
+      for (let c = 0; c < 3; c++) A.set(r, c, A.get(r, c) + row[r]! * row[c]!);
+    }
+  }
+  const sol = solve(A, rhs);
+  let a = (-sol.get(0, 0) / 2) * scale;
+  let b = (-sol.get(1, 0) / 2) * scale;
+  let r = Math.sqrt(Math.max(0, (sol.get(0, 0) ** 2 + sol.get(1, 0) ** 2) / 4 - sol.get(2, 0))) * scale;
+  if (!Number.isFinite(a) || !Number.isFinite(b) || !Number.isFinite(r) || r === 0) {
+    a = 0;
+    b = 0;
+    r = scale;
+  }
+
+  // Geometric refinement: Levenberg–Marquardt on d_i = ρ_i − r, ρ_i = |(ξ_i, η_i) − (a, b)|.
+  const cost = (a0: number, b0: number, r0: number) => {
+    let s = 0;
+    for (let i = 0; i < n; i++) {
+      const d = Math.hypot(xi[i]! - a0, eta[i]! - b0) - r0;
+      s += d * d;
+    }
+    return s;
+  };
+  let f = cost(a, b, r);
+  let lambda = 1e-3;
+  let iterations = 0;
+  for (; iterations < 200; iterations++) {
+    const JtJ = [0, 0, 0, 0, 0, 0, 0, 0, 0];
+    const Jtr = [0, 0, 0];
+    for (let i = 0; i < n; i++) {
+      const dx = xi[i]! - a;
+      const dy = eta[i]! - b;
+      const rho = Math.hypot(dx, dy);
+      const j0 = rho > 0 ? -dx / rho : 0;
+      const j1 = rho > 0 ? -dy / rho : 0;
+      const J = [j0, j1, -1];
+      const d = rho - r;
+      for (let p = 0; p < 3; p++) {
+        Jtr[p]! += J[p]! * d;
+        for (let q = 0; q < 3; q++) JtJ[p * 3 + q]! += J[p]! * J[q]!;
+      }
+    }
+    let accepted = false;
+    let step = 0;
+    for (let tries = 0; tries < 30 && !accepted; tries++) {
+      const M = new Matrix(3, 3);
+      for (let p = 0; p < 3; p++)
+        for (let q = 0; q < 3; q++) M.set(p, q, JtJ[p * 3 + q]! + (p === q ? lambda * JtJ[p * 3 + p]! : 0));
+      const dlt = solve(M, Matrix.columnVector(Jtr.map((g) => -g)));
+      const na = a + dlt.get(0, 0);
+      const nb = b + dlt.get(1, 0);
+      const nr = r + dlt.get(2, 0);
+      const nf = cost(na, nb, nr);
+      if (Number.isFinite(nf) && nf <= f) {
+        step = Math.hypot(dlt.get(0, 0), dlt.get(1, 0), dlt.get(2, 0));
+        a = na;
+        b = nb;
+        r = nr;
+        f = nf;
+        lambda = Math.max(lambda / 10, 1e-12);
+        accepted = true;
+      } else {
+        lambda *= 10;
+      }
+    }
+    if (!accepted || step <= 1e-13 * (Math.abs(r) + scale)) break;
+  }
+  if (r < 0) r = -r;
+
+  let sumD = 0;
+  let maxD = 0;
+  let sumR = 0;
+  let sumH = 0;
+  for (let i = 0; i < n; i++) {
+    const dr = Math.hypot(xi[i]! - a, eta[i]! - b) - r;
+    const d2 = dr * dr + h[i]! * h[i]!;
+    sumD += d2;
+    sumR += dr * dr;
+    sumH += h[i]! * h[i]!;
+    if (d2 > maxD) maxD = d2;
+  }
+  return {
+    n,
+    centre_mm: [cx + a * u[0] + b * v[0], cy + a * u[1] + b * v[1], cz + a * u[2] + b * v[2]],
+    normal: w,
+    radius_mm: r,
+    rms_um: Math.sqrt(sumD / n) * 1000,
+    max_um: Math.sqrt(maxD) * 1000,
+    radial_rms_um: Math.sqrt(sumR / n) * 1000,
+    plane_rms_um: Math.sqrt(sumH / n) * 1000,
+    iterations,
+  };
+}
+
+export interface AxisLine {
+  /** A point on the axis (mm) and its direction (any length > 0). */
+  readonly centre_mm: Vec3;
+  readonly normal: Vec3;
+}
+
+/**
+ * Squareness of two fitted axes: the angle θ between their directions minus 90°, arc seconds,
+ * θ − π/2 = −atan2(d₁·d₂, |d₁ × d₂|) (atan2 keeps full precision near 90°). The sign follows the
+ * directions as given (flip one and the sign flips); `out_of_square_arcsec` is its magnitude.
+ */
+export function axisSquareness(a: Vec3, b: Vec3): { squareness_arcsec: number; out_of_square_arcsec: number } {
+  const dot = a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
+  const cx = a[1] * b[2] - a[2] * b[1];
+  const cy = a[2] * b[0] - a[0] * b[2];
+  const cz = a[0] * b[1] - a[1] * b[0];
+  const cross = Math.hypot(cx, cy, cz);
+  if (!(cross > 0) && !(Math.abs(dot) > 0)) throw new GeometryError("degenerate", "an axis direction is zero");
+  const rad = -Math.atan2(dot, cross);
+  const arcsec = rad / RAD_PER_ARCSEC;
+  return { squareness_arcsec: arcsec, out_of_square_arcsec: Math.abs(arcsec) };
+}
+
+/**
+ * Independent pivot length: distance from the fitted secondary (tilt) axis line to a tip point,
+ * |(P − c) × d| / |d| (mm), c a point on the axis and d its direction.
+ */
+export function pivotLengthMm(axis: AxisLine, tipMm: Vec3): number {
+  const d = axis.normal;
+  const len = Math.hypot(d[0], d[1], d[2]);
+  if (!(len > 0)) throw new GeometryError("degenerate", "the axis direction is zero");
+  const px = tipMm[0] - axis.centre_mm[0];
+  const py = tipMm[1] - axis.centre_mm[1];
+  const pz = tipMm[2] - axis.centre_mm[2];
+  return Math.hypot(py * d[2] - pz * d[1], pz * d[0] - px * d[2], px * d[1] - py * d[0]) / len;
+}

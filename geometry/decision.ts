@@ -1,0 +1,58 @@
+/**
+ * Decision rules for tolerance checks, per ISO 14253-1 (conformity or non-conformity with
+ * specifications). Every check returns pass, fail or undecided together with the measured value,
+ * the limits, the expanded uncertainty U and the rule applied (ISO/IEC 17025 §7.8.6 requires the
+ * rule to be stated). All values in one unit, the caller's (named in `unit` when given).
+ */
+import { GeometryError } from "./errors";
+
+/**
+ * simple: uncertainty shown, not subtracted — pass inside [LSL, USL], fail outside.
+ * guarded (ISO 14253-1): pass only inside [LSL + U, USL − U]; fail only outside [LSL − U, USL + U];
+ * undecided between.
+ */
+export type DecisionRule = "simple" | "guarded";
+export type Decision = "pass" | "fail" | "undecided";
+
+export interface ToleranceCheck {
+  readonly measured: number;
+  /** Lower specification limit; null for a one-sided tolerance (upper limit only). */
+  readonly lower: number | null;
+  readonly upper: number;
+  /** Expanded uncertainty (k = 2), ≥ 0, same unit as the limits. */
+  readonly U: number;
+  readonly rule: DecisionRule;
+  readonly unit?: string;
+}
+
+export interface DecisionResult {
+  readonly decision: Decision;
+  readonly measured: number;
+  readonly lower: number | null;
+  readonly upper: number;
+  readonly U: number;
+  readonly rule: DecisionRule;
+  readonly unit?: string;
+}
+
+/** Apply the decision rule (see DecisionRule). Limits inclusive: a value on a limit conforms. */
+export function decide(check: ToleranceCheck): DecisionResult {
+  const { measured, lower, upper, U, rule } = check;
+  if (rule !== "simple" && rule !== "guarded") throw new GeometryError("bad_option", `rule must be "simple" or "guarded", not '${String(rule)}'`);
+  if (!Number.isFinite(measured)) throw new GeometryError("bad_number", "the measured value must be finite");
+  if (!Number.isFinite(upper) || (lower !== null && !Number.isFinite(lower)))
+    throw new GeometryError("bad_number", "tolerance limits must be finite");
+  if (lower !== null && lower > upper) throw new GeometryError("bad_option", "the lower limit is above the upper limit");
+  if (!Number.isFinite(U) || U < 0) throw new GeometryError("bad_option", "the expanded uncertainty U must be ≥ 0");
+  let decision: Decision;
+  if (rule === "simple") {
+    decision = measured <= upper && (lower === null || measured >= lower) ? "pass" : "fail";
+  } else if (measured > upper + U || (lower !== null && measured < lower - U)) {
+    decision = "fail";
+  } else if (measured <= upper - U && (lower === null || measured >= lower + U)) {
+    decision = "pass";
+  } else {
+    decision = "undecided";
+  }
+  return { decision, measured, lower, upper, U, rule, ...(check.unit !== undefined ? { unit: check.unit } : {}) };
+}
