@@ -107,17 +107,15 @@ export interface NavItem {
 
 export function navigationFor(role: Role): NavItem[] {
   const jobs: NavItem = { href: "/jobs", label: role === "installer" ? "My jobs" : role === "customer" ? "Our jobs" : "Jobs" };
-  const verify: NavItem = { href: "/verify", label: "Verify a report" };
   switch (role) {
     case "admin":
-      return [jobs, { href: "/registers", label: "Registers" }, verify];
+      return [jobs, { href: "/registers", label: "Registers" }];
     case "engineer":
-      return [jobs, { href: "/registers/heads", label: "Heads" }, verify];
+      return [jobs, { href: "/registers/heads", label: "Heads" }];
     case "inspector":
     case "installer":
-      return [jobs, verify];
     case "customer":
-      return [jobs, verify];
+      return [jobs];
   }
 }
 

@@ -30,7 +30,7 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
   return (
     <form onSubmit={onSubmit} className="space-y-5" noValidate>
       {error ? (
-        <p role="alert" className="rounded-card border border-fail-600/40 bg-fail-50 px-4 py-3 text-sm text-fail-700">
+        <p role="alert" data-testid="sign-in-error" className="rounded-card border border-fail-600/40 bg-fail-50 px-4 py-3 text-sm text-fail-700">
           {error}
         </p>
       ) : null}

@@ -1,0 +1,144 @@
+// Journeys of the foundation in Debian's Chromium against the built app: sign in as each role
+// and see that role's navigation; tenant isolation by URL; sign-in errors; sign-out.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { BrowserContext, Page } from "playwright-core";
+import { newContext, screenshotPath, signIn } from "./browser";
+
+let ctx: BrowserContext;
+let page: Page;
+
+beforeAll(async () => {
+  ctx = await newContext();
+});
+afterAll(async () => {
+  await ctx?.close();
+});
+
+async function fresh(): Promise<Page> {
+  await ctx.clearCookies();
+  page = await ctx.newPage();
+  return page;
+}
+
+const ROLES = [
+  { email: "admin@halvard.example", role: "Administrator", nav: ["Jobs", "Registers"], jobs: 4 },
+  { email: "installer@halvard.example", role: "Installer", nav: ["My jobs"], jobs: 3 },
+  { email: "inspector@halvard.example", role: "Inspector", nav: ["Jobs"], jobs: 4 },
+  { email: "engineer@halvard.example", role: "Application engineer", nav: ["Jobs", "Heads"], jobs: 4 },
+  { email: "buyer@marlowcreek.example", role: "Customer", nav: ["Our jobs"], jobs: 3 },
+  { email: "buyer@tollan.example", role: "Customer", nav: ["Our jobs"], jobs: 1 },
+];
+
+describe("sign in as each role", () => {
+  for (const r of ROLES) {
+    it(`${r.email} lands on the jobs table with the ${r.role}'s navigation`, async () => {
+      const p = await fresh();
+      await signIn(p, r.email);
+      await p.waitForURL("**/jobs");
+      await expect.poll(() => p.getByTestId("current-user").innerText()).toContain(r.role);
+      const nav = await p.getByRole("navigation", { name: "Main" }).getByRole("link").allInnerTexts();
+      expect(nav).toEqual(r.nav);
+      expect(await p.locator("tbody tr").count()).toBe(r.jobs);
+      await p.close();
+    });
+  }
+});
+
+describe("tenant isolation and access", () => {
+  it("a customer opening another tenant's job URL gets not-found", async () => {
+    // Find a Marlow Creek job id as the Marlow customer, then try it as Tollan's.
+    const p = await fresh();
+    await signIn(p, "buyer@marlowcreek.example");
+    await p.waitForURL("**/jobs");
+    const href = await p.getByRole("link", { name: "TR-2026-0041" }).getAttribute("href");
+    expect(href).toMatch(/^\/jobs\/[0-9a-f-]{36}$/);
+    await p.close();
+
+    const q = await fresh();
+    await signIn(q, "buyer@tollan.example");
+    await q.waitForURL("**/jobs");
+    const res = await q.goto(href!);
+    expect(res?.status()).toBe(404);
+    await expect.poll(() => q.getByRole("heading", { level: 1 }).innerText()).toBe("Job not found");
+    expect(await q.content()).not.toContain("Marlow");
+    await q.close();
+  });
+
+  it("an anonymous visitor is sent to sign in, and comes back after", async () => {
+    const p = await fresh();
+    await p.goto("/registers");
+    await p.waitForURL(/\/login\?callbackUrl=%2Fregisters/);
+    await signIn(p, "admin@halvard.example");
+    await p.waitForURL("**/registers");
+    await expect.poll(() => p.getByRole("heading", { level: 1 }).innerText()).toBe("Registers");
+    await p.close();
+  });
+
+  it("an installer cannot open the registers", async () => {
+    const p = await fresh();
+    await signIn(p, "installer@halvard.example");
+    await p.waitForURL("**/jobs");
+    const res = await p.goto("/registers");
+    expect(res?.status()).toBe(404);
+    await p.close();
+  });
+});
+
+describe("sign-in page", () => {
+  it("a wrong password shows one message that does not say whether the account exists", async () => {
+    const p = await fresh();
+    await signIn(p, "admin@halvard.example", "not-the-password");
+    const alert = p.getByTestId("sign-in-error");
+    await expect.poll(() => alert.innerText()).toBe("That e-mail and password do not match an active account.");
+    await signIn(p, "nobody@halvard.example", "not-the-password");
+    await expect.poll(() => alert.innerText()).toBe("That e-mail and password do not match an active account.");
+    await p.screenshot({ path: screenshotPath("sign-in-error") });
+    await p.close();
+  });
+
+  it("sign-out ends the session", async () => {
+    const p = await fresh();
+    await signIn(p, "engineer@halvard.example");
+    await p.waitForURL("**/jobs");
+    await p.getByRole("button", { name: "Sign out" }).click();
+    await p.waitForURL("**/login");
+    await p.goto("/jobs");
+    await p.waitForURL(/\/login/);
+    await p.close();
+  });
+});
+
+describe("jobs table and job page", () => {
+  it("sorts, filters and opens a job", async () => {
+    const p = await fresh();
+    await signIn(p, "engineer@halvard.example");
+    await p.waitForURL("**/jobs");
+    await p.getByRole("link", { name: /^Reference/ }).click();
+    await p.waitForURL(/sort=reference&dir=asc/);
+    const refs = await p.locator("tbody tr td:first-child").allInnerTexts();
+    expect(refs).toEqual([...refs].sort());
+    await p.getByLabel("Status").selectOption("in_review");
+    await p.getByRole("button", { name: "Filter" }).click();
+    await p.waitForURL(/status=in_review/);
+    expect(await p.locator("tbody tr").count()).toBe(1);
+    await p.goto("/jobs");
+    await p.screenshot({ path: screenshotPath("jobs-table"), fullPage: true });
+    await p.getByRole("link", { name: "TR-2026-0041" }).click();
+    await p.waitForURL(/\/jobs\/[0-9a-f-]{36}$/);
+    await expect.poll(() => p.getByRole("heading", { level: 1 }).innerText()).toBe("Head installation on gantry mill G-7");
+    expect(await p.getByRole("note").innerText()).toMatch(/machine builder/);
+    await p.screenshot({ path: screenshotPath("job-page"), fullPage: true });
+    await p.close();
+  });
+
+  it("works on a tablet viewport", async () => {
+    const tablet = await newContext({ width: 820, height: 1180 });
+    const p = await tablet.newPage();
+    await p.goto("/login");
+    await p.screenshot({ path: screenshotPath("sign-in-tablet") });
+    await signIn(p, "installer@halvard.example");
+    await p.waitForURL("**/jobs");
+    await p.screenshot({ path: screenshotPath("jobs-tablet"), fullPage: true });
+    await tablet.close();
+  });
+});
