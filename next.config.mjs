@@ -2,6 +2,8 @@
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   poweredByHeader: false,
+  // The test command builds into its own folder so a running demo keeps its build.
+  distDir: process.env.NEXT_DIST_DIR ?? ".next",
   reactStrictMode: true,
   // fonts/ is read at run time by the PDF renderer.
   outputFileTracingIncludes: { "/api/**": ["./fonts/**"] },

@@ -62,7 +62,7 @@ start() {
     for _ in $(seq 20); do run "$PGBIN/pg_ctl" -D "$DATA" status >/dev/null 2>&1 || break; ready && break; sleep .5; done
     ready || run "$PGBIN/pg_ctl" -D "$DATA" -l "$BASE/pg.log" -w -t 60 start >/dev/null
   fi
-  for db in "$DBNAME" "${DBNAME}_test"; do
+  for db in "$DBNAME" "${DBNAME}_test" "${DBNAME}_e2e"; do
     run "$PGBIN/psql" -h "$SOCK" -p "$PORT" -U app -d postgres -tAc "SELECT 1 FROM pg_database WHERE datname='$db'" | grep -q 1 \
       || run "$PGBIN/createdb" -h "$SOCK" -p "$PORT" -U app "$db"
   done

@@ -1,0 +1,29 @@
+#!/usr/bin/env bash
+# The README's first command: from a fresh clone to Trammel with demo data on
+# http://localhost:3000. Installs what is missing, starts the project's own PostgreSQL on
+# loopback, migrates, seeds the invented demo scenario, builds and serves. Ctrl-C stops the app;
+# `bash db/pg.sh stop` stops the database.
+set -euo pipefail
+ROOT=$(cd "$(dirname "$0")/../.." && pwd)
+cd "$ROOT"
+export TMPDIR=$ROOT/.data/tmp XDG_CONFIG_HOME=$ROOT/.data/xdg XDG_CACHE_HOME=$ROOT/.data/xdg-cache
+mkdir -p "$TMPDIR"
+PORT=${PORT:-3000}
+
+bash lib/scripts/ensure-deps.sh
+bash db/pg.sh start
+export DATABASE_URL=${DATABASE_URL:-$(bash db/pg.sh url)}
+npm run -s db:migrate
+npm run -s db:seed
+echo "start-demo: building the app…" >&2
+npx next build >.data/build.log 2>&1 || { tail -40 .data/build.log; exit 1; }
+export NEXTAUTH_URL=${NEXTAUTH_URL:-http://localhost:$PORT}
+cat >&2 <<TXT
+
+  Trammel is starting on http://localhost:$PORT
+  Demo accounts (password trammel-demo, local use only):
+    admin@halvard.example  installer@halvard.example  inspector@halvard.example
+    engineer@halvard.example  buyer@marlowcreek.example  buyer@tollan.example
+
+TXT
+exec npx next start -p "$PORT"

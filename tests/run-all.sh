@@ -1,0 +1,65 @@
+#!/usr/bin/env bash
+# The README's second command: every test from nothing. Installs what is missing, starts a
+# fresh PostgreSQL of its own (port 54339, under .data/test-pg, wiped first), runs the type check
+# and lint, unit tests, integration tests against that PostgreSQL, builds the app, serves it on
+# 127.0.0.1:3100 and runs the browser tests in Debian's Chromium, then stops everything it started.
+set -euo pipefail
+ROOT=$(cd "$(dirname "$0")/.." && pwd)
+cd "$ROOT"
+export TMPDIR=$ROOT/.data/tmp XDG_CONFIG_HOME=$ROOT/.data/xdg XDG_CACHE_HOME=$ROOT/.data/xdg-cache
+mkdir -p "$TMPDIR" .data/screenshots .data/test-results
+export PGPORT=54339 PG_BASE=$ROOT/.data/test-pg
+unset DATABASE_URL
+APP_PORT=3100
+t0=$(date +%s)
+step() { echo; echo "== $* ($(( $(date +%s) - t0 )) s)"; }
+
+cleanup() {
+  [ -f .data/test-app.pid ] && kill -- -"$(cat .data/test-app.pid)" 2>/dev/null || true
+  rm -f .data/test-app.pid
+  bash db/pg.sh stop || true
+}
+trap cleanup EXIT
+
+step "dependencies"
+bash lib/scripts/ensure-deps.sh --browser
+
+step "fresh PostgreSQL on 127.0.0.1:$PGPORT"
+bash db/pg.sh stop >/dev/null 2>&1 || true
+rm -rf "$PG_BASE"
+bash db/pg.sh start
+
+step "type check and lint"
+npx tsc --noEmit -p .
+npx eslint --max-warnings=0 .
+
+step "unit and integration tests"
+DATABASE_URL=$(bash db/pg.sh url trammel_test) npx vitest run --project unit --project integration \
+  --reporter=default --reporter=json --outputFile=.data/test-results/vitest.json
+
+step "build and serve the app for browser tests"
+export DATABASE_URL=$(bash db/pg.sh url trammel_e2e)
+npm run -s db:migrate
+npm run -s db:seed
+NEXT_DIST_DIR=.next-test npx next build >.data/test-build.log 2>&1 || { tail -60 .data/test-build.log; exit 1; }
+NEXT_DIST_DIR=.next-test NEXTAUTH_URL=http://127.0.0.1:$APP_PORT setsid npx next start -p $APP_PORT -H 127.0.0.1 >.data/test-app.log 2>&1 &
+echo $! >.data/test-app.pid
+for _ in $(seq 60); do curl -sf "http://127.0.0.1:$APP_PORT/api/health" >/dev/null && break; sleep 0.5; done
+curl -sf "http://127.0.0.1:$APP_PORT/api/health" >/dev/null || { echo "the app did not start:"; tail -40 .data/test-app.log; exit 1; }
+
+step "browser tests (Debian Chromium)"
+E2E_BASE_URL=http://127.0.0.1:$APP_PORT npx vitest run --project e2e \
+  --reporter=default --reporter=json --outputFile=.data/test-results/e2e.json
+
+step "summary"
+node -e '
+  const fs = require("fs");
+  let p = 0, f = 0, s = 0;
+  for (const file of [".data/test-results/vitest.json", ".data/test-results/e2e.json"]) {
+    const r = JSON.parse(fs.readFileSync(file, "utf8"));
+    p += r.numPassedTests; f += r.numFailedTests; s += r.numPendingTests + (r.numTodoTests || 0);
+  }
+  console.log(`screenshots in .data/screenshots; total time ${process.argv[1]} s`);
+  console.log(`${p} passed, ${f} failed, ${s} skipped`);
+  process.exit(f > 0 ? 1 : 0);
+' "$(( $(date +%s) - t0 ))"
