@@ -17,7 +17,7 @@ step() { echo; echo "== $* ($(( $(date +%s) - t0 )) s)"; }
 cleanup() {
   [ -f .data/test-app.pid ] && kill -- -"$(cat .data/test-app.pid)" 2>/dev/null || true
   rm -f .data/test-app.pid
-  bash db/pg.sh stop || true
+  DATABASE_URL= bash db/pg.sh stop || true
 }
 trap cleanup EXIT
 

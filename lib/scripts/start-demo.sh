@@ -26,4 +26,4 @@ cat >&2 <<TXT
     engineer@halvard.example  buyer@marlowcreek.example  buyer@tollan.example
 
 TXT
-exec npx next start -p "$PORT"
+exec npx next start -p "$PORT" -H "${HOST:-127.0.0.1}"
