@@ -35,7 +35,11 @@ export interface DecisionResult {
   readonly unit?: string;
 }
 
-/** Apply the decision rule (see DecisionRule). Limits inclusive: a value on a limit conforms. */
+/**
+ * Apply the decision rule (see DecisionRule). Limits inclusive: a value on a limit conforms. "On"
+ * allows a few ulps, so that a value written on a limit in decimal (9.985 against 9.98 + 0.005)
+ * is on it despite binary rounding: |Δ| ≤ 8·ε·max(|measured|, |limits|, U).
+ */
 export function decide(check: ToleranceCheck): DecisionResult {
   const { measured, lower, upper, U, rule } = check;
   if (rule !== "simple" && rule !== "guarded") throw new GeometryError("bad_option", `rule must be "simple" or "guarded", not '${String(rule)}'`);
@@ -44,12 +48,14 @@ export function decide(check: ToleranceCheck): DecisionResult {
     throw new GeometryError("bad_number", "tolerance limits must be finite");
   if (lower !== null && lower > upper) throw new GeometryError("bad_option", "the lower limit is above the upper limit");
   if (!Number.isFinite(U) || U < 0) throw new GeometryError("bad_option", "the expanded uncertainty U must be ≥ 0");
+  const eps = 8 * Number.EPSILON * Math.max(Math.abs(measured), Math.abs(upper), Math.abs(lower ?? 0), U);
+  const le = (x: number, y: number) => x <= y + eps;
   let decision: Decision;
   if (rule === "simple") {
-    decision = measured <= upper && (lower === null || measured >= lower) ? "pass" : "fail";
-  } else if (measured > upper + U || (lower !== null && measured < lower - U)) {
+    decision = le(measured, upper) && (lower === null || le(lower, measured)) ? "pass" : "fail";
+  } else if (!le(measured, upper + U) || (lower !== null && !le(lower - U, measured))) {
     decision = "fail";
-  } else if (measured <= upper - U && (lower === null || measured >= lower + U)) {
+  } else if (le(measured, upper - U) && (lower === null || le(lower + U, measured))) {
     decision = "pass";
   } else {
     decision = "undecided";

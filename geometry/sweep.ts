@@ -154,16 +154,15 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
   const { count, sortedIdx } = distinctAngles(theta);
   if (count < 3) throw new GeometryError("too_few_rows", `a sweep needs readings at 3 or more distinct angles (got ${count})`);
 
-  const A = new Matrix(3, 3);
-  const rhs = new Matrix(3, 1);
+  // Least squares by QR of the n×3 design matrix (ml-matrix solves a non-square system by QR),
+  // not normal equations, so a partial sweep is not made worse by squaring its condition number.
+  const X = new Matrix(n, 3);
   for (let i = 0; i < n; i++) {
-    const row = [1, Math.cos(theta[i]!), Math.sin(theta[i]!)];
-    for (let p = 0; p < 3; p++) {
-      rhs.set(p, 0, rhs.get(p, 0) + row[p]! * y[i]!);
-      for (let q = 0; q < 3; q++) A.set(p, q, A.get(p, q) + row[p]! * row[q]!);
-    }
+    X.set(i, 0, 1);
+    X.set(i, 1, Math.cos(theta[i]!));
+    X.set(i, 2, Math.sin(theta[i]!));
   }
-  const s = solve(A, rhs);
+  const s = solve(X, Matrix.columnVector(Array.from(y)));
   const a = s.get(0, 0);
   const b = s.get(1, 0);
   const c = s.get(2, 0);
