@@ -6,10 +6,13 @@
 import { sql } from "drizzle-orm";
 import {
   bigserial,
+  customType,
+  date,
   boolean,
   doublePrecision,
   index,
   integer,
+  type AnyPgColumn,
   jsonb,
   pgEnum,
   pgTable,
@@ -41,6 +44,18 @@ export const jobStatusEnum = pgEnum("job_status", [
 export const axisLetterEnum = pgEnum("axis_letter", ["A", "B", "C"]);
 export const decisionRuleEnum = pgEnum("decision_rule", ["simple", "guarded"]);
 export const unitSystemEnum = pgEnum("unit_system", ["metric", "inch"]);
+export const phaseEnum = pgEnum("phase", ["pre", "post"]);
+/** What a checklist step measures; fixes the canonical unit its values are stored in. */
+export const quantityKindEnum = pgEnum("quantity_kind", ["length", "angle"]);
+/** How a step's value is obtained: read directly, or derived by geometry/ from the inputs. */
+export const stepDerivationEnum = pgEnum("step_derivation", ["direct", "angle_over_distance", "sweep_flatness", "check"]);
+export const limitSourceEnum = pgEnum("limit_source", ["standard", "maker_manual", "common_practice", "customer_spec"]);
+export const datasetKindEnum = pgEnum("dataset_kind", ["sphere_probe", "tram", "sweep", "test_part"]);
+export const datasetStatusEnum = pgEnum("dataset_status", ["stored", "deleted"]);
+export const outboxStatusEnum = pgEnum("outbox_status", ["pending", "sent", "failed"]);
+
+/** bytea: drizzle 0.45 has no built-in type for it. Buffers round-trip exactly. */
+export const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
 
 export const customers = pgTable("customers", {
   id: uuid("id").primaryKey().defaultRandom(),
@@ -62,6 +77,8 @@ export const users = pgTable(
     passwordHash: text("password_hash"),
     disabled: boolean("disabled").notNull().default(false),
     unitSystem: unitSystemEnum("unit_system").notNull().default("metric"),
+    /** Session tokens issued before this instant are refused (sign-out everywhere, disable, role change). */
+    sessionsValidAfter: timestamp("sessions_valid_after", { withTimezone: true }),
     ...timestamps,
   },
   (t) => [
@@ -150,6 +167,8 @@ export const jobs = pgTable(
       .references(() => heads.id, { onDelete: "restrict" }),
     assignedInstallerId: uuid("assigned_installer_id").references(() => users.id, { onDelete: "set null" }),
     decisionRule: decisionRuleEnum("decision_rule").notNull().default("simple"),
+    /** The procedure template version the job started with; later edits of the template do not change it. */
+    templateId: uuid("template_id").references((): AnyPgColumn => procedureTemplates.id, { onDelete: "restrict" }),
     scheduledFor: timestamp("scheduled_for", { withTimezone: true }),
     airTempC: doublePrecision("air_temp_c"),
     notes: text("notes"),
@@ -199,4 +218,199 @@ export const signInFailures = pgTable(
     attempts: integer("attempts").notNull().default(1),
   },
   (t) => [index("sign_in_failures_email_idx").on(t.emailKey, t.at), index("sign_in_failures_address_idx").on(t.address, t.at)],
+);
+
+/** Measuring instruments with their calibration status. Resolution and uncertainty in the canonical unit of their quantity (mm or arcsec). */
+export const instruments = pgTable("instruments", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  kind: text("kind").notNull(),
+  serial: text("serial").notNull().unique(),
+  maker: text("maker"),
+  model: text("model"),
+  quantityKind: quantityKindEnum("quantity_kind").notNull().default("length"),
+  resolution: doublePrecision("resolution").notNull(),
+  standardUncertainty: doublePrecision("standard_uncertainty").notNull(),
+  calibratedOn: date("calibrated_on", { mode: "string" }),
+  calibrationDueOn: date("calibration_due_on", { mode: "string" }).notNull(),
+  certificateRef: text("certificate_ref"),
+  retired: boolean("retired").notNull().default(false),
+  ...timestamps,
+});
+export type Instrument = typeof instruments.$inferSelect;
+
+/** Procedure templates are versioned: editing one makes a new version; jobs keep theirs. */
+export const procedureTemplates = pgTable(
+  "procedure_templates",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    name: text("name").notNull(),
+    version: integer("version").notNull(),
+    description: text("description"),
+    isCurrent: boolean("is_current").notNull().default(true),
+    createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    ...timestamps,
+  },
+  (t) => [uniqueIndex("procedure_templates_name_version_idx").on(t.name, t.version)],
+);
+export type ProcedureTemplate = typeof procedureTemplates.$inferSelect;
+
+/**
+ * One step of a template: what is measured, its limits (canonical unit: mm for length, arcsec
+ * for angle; null = no limit on that side), the decision rule, and where the limit comes from.
+ */
+export const templateSteps = pgTable(
+  "template_steps",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    templateId: uuid("template_id")
+      .notNull()
+      .references(() => procedureTemplates.id, { onDelete: "cascade" }),
+    position: integer("position").notNull(),
+    title: text("title").notNull(),
+    instructions: text("instructions"),
+    quantity: text("quantity").notNull(),
+    quantityKind: quantityKindEnum("quantity_kind").notNull(),
+    derivation: stepDerivationEnum("derivation").notNull().default("direct"),
+    /** For angle_over_distance: the distance the reading is taken over (mm). */
+    distanceMm: doublePrecision("distance_mm"),
+    lowerLimit: doublePrecision("lower_limit"),
+    upperLimit: doublePrecision("upper_limit"),
+    decisionRule: decisionRuleEnum("decision_rule").notNull().default("simple"),
+    limitSource: limitSourceEnum("limit_source").notNull(),
+    limitSourceNote: text("limit_source_note"),
+    safetyNote: text("safety_note"),
+  },
+  (t) => [uniqueIndex("template_steps_position_idx").on(t.templateId, t.position)],
+);
+export type TemplateStep = typeof templateSteps.$inferSelect;
+
+/**
+ * Checklist readings. Values are stored in the canonical unit of the step's quantity (mm or
+ * arcsec) with what was entered kept beside them. A correction is a new row that supersedes the
+ * old one; nothing is overwritten.
+ */
+export const readings = pgTable(
+  "readings",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    stepId: uuid("step_id")
+      .notNull()
+      .references(() => templateSteps.id, { onDelete: "restrict" }),
+    phase: phaseEnum("phase").notNull(),
+    value: doublePrecision("value").notNull(),
+    enteredValue: doublePrecision("entered_value").notNull(),
+    enteredUnit: text("entered_unit").notNull(),
+    /** Inputs of a derived value (e.g. the reading and distance of an angle), as entered. */
+    inputs: jsonb("inputs"),
+    instrumentId: uuid("instrument_id").references(() => instruments.id, { onDelete: "restrict" }),
+    note: text("note"),
+    takenAt: timestamp("taken_at", { withTimezone: true }).notNull().defaultNow(),
+    recordedById: uuid("recorded_by_id").references(() => users.id, { onDelete: "set null" }),
+    supersededById: uuid("superseded_by_id").references((): AnyPgColumn => readings.id, { onDelete: "restrict" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("readings_job_idx").on(t.jobId, t.stepId, t.phase)],
+);
+export type Reading = typeof readings.$inferSelect;
+
+/**
+ * Uploaded datasets. The original file is kept unchanged in object storage under a key we make
+ * (never from the file name); parsed columns are stored in SI-based units in dataset_columns.
+ */
+export const datasets = pgTable(
+  "datasets",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    kind: datasetKindEnum("kind").notNull(),
+    phase: phaseEnum("phase").notNull(),
+    status: datasetStatusEnum("status").notNull().default("stored"),
+    rows: integer("rows").notNull(),
+    sha256: text("sha256").notNull(),
+    storageKey: text("storage_key").notNull(),
+    sizeBytes: integer("size_bytes").notNull(),
+    /** Shown to people only; never used to build a storage key or a path. */
+    originalFilename: text("original_filename").notNull(),
+    contentType: text("content_type").notNull().default("text/csv"),
+    /** The units chosen at upload, e.g. { units: "in" } or { travel_units, reading_units }. */
+    units: jsonb("units").notNull(),
+    options: jsonb("options"),
+    warnings: jsonb("warnings").$type<string[]>().notNull().default([]),
+    summary: jsonb("summary"),
+    uploadedById: uuid("uploaded_by_id").references(() => users.id, { onDelete: "set null" }),
+    uploadedAt: timestamp("uploaded_at", { withTimezone: true }).notNull().defaultNow(),
+    deletedAt: timestamp("deleted_at", { withTimezone: true }),
+    deletedById: uuid("deleted_by_id").references(() => users.id, { onDelete: "set null" }),
+  },
+  (t) => [index("datasets_job_idx").on(t.jobId)],
+);
+export type Dataset = typeof datasets.$inferSelect;
+
+/** Parsed numeric columns of a dataset, each a little-endian Float64Array in bytea. */
+export const datasetColumns = pgTable(
+  "dataset_columns",
+  {
+    datasetId: uuid("dataset_id")
+      .notNull()
+      .references(() => datasets.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    unit: text("unit").notNull(),
+    data: bytea("data").notNull(),
+  },
+  (t) => [uniqueIndex("dataset_columns_pk").on(t.datasetId, t.name)],
+);
+
+/** Stored objects, for the PostgreSQL fallback of the object-storage interface. */
+export const storageObjects = pgTable("storage_objects", {
+  key: text("key").primaryKey(),
+  data: bytea("data").notNull(),
+  sha256: text("sha256").notNull(),
+  sizeBytes: integer("size_bytes").notNull(),
+  contentType: text("content_type").notNull(),
+  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+});
+
+/** E-mail outbox: written in the transaction that causes the message; a worker sends it. */
+export const outbox = pgTable(
+  "outbox",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    /** Makes a message idempotent: the same event never queues the same e-mail twice. */
+    dedupeKey: text("dedupe_key").notNull().unique(),
+    toAddress: text("to_address").notNull(),
+    subject: text("subject").notNull(),
+    textBody: text("text_body").notNull(),
+    htmlBody: text("html_body"),
+    status: outboxStatusEnum("status").notNull().default("pending"),
+    attempts: integer("attempts").notNull().default(0),
+    nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }).notNull().defaultNow(),
+    lastError: text("last_error"),
+    jobId: uuid("job_id").references(() => jobs.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    sentAt: timestamp("sent_at", { withTimezone: true }),
+  },
+  (t) => [index("outbox_pending_idx").on(t.status, t.nextAttemptAt)],
+);
+export type OutboxMessage = typeof outbox.$inferSelect;
+
+/** One-time tokens for invitations and password resets; only a hash of the token is stored. */
+export const userTokens = pgTable(
+  "user_tokens",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    purpose: text("purpose").notNull(),
+    tokenHash: text("token_hash").notNull().unique(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    usedAt: timestamp("used_at", { withTimezone: true }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("user_tokens_user_idx").on(t.userId)],
 );
