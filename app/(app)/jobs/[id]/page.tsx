@@ -1,13 +1,11 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { notFound } from "next/navigation";
 import { StatusFlow } from "@/components/jobs/status-flow";
 import { Card, Facts } from "@/components/ui/card";
 import { SafetyNote } from "@/components/ui/safety-note";
-import { StatusBadge } from "@/components/ui/status-badge";
 import { getJobDetail } from "@/db/queries/jobs";
 import { requirePageUser } from "@/lib/auth/session";
-import { formatDateTimeUtc, JOB_KIND_LABELS } from "@/lib/format";
+import { formatDateTimeUtc } from "@/lib/format";
 
 type Props = { params: Promise<{ id: string }> };
 
@@ -24,26 +22,10 @@ export default async function JobPage({ params }: Props) {
   // A job the user may not see is "not found", exactly like one that does not exist.
   const d = await getJobDetail(user, id);
   if (!d) notFound();
-  const { job, customer, site, machine, head, installer } = d;
+  const { job, site, machine, head, installer } = d;
 
   return (
     <div className="space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm text-graphite-600">
-        <Link href="/jobs" className="hover:text-graphite-900 hover:underline">
-          Jobs
-        </Link>{" "}
-        / <span className="num">{job.reference}</span>
-      </nav>
-      <div className="flex flex-wrap items-start justify-between gap-4">
-        <div>
-          <p className="num text-sm text-graphite-600">{job.reference}</p>
-          <h1 className="text-2xl font-semibold">{job.title}</h1>
-          <p className="text-graphite-600">
-            {JOB_KIND_LABELS[job.kind]} · {customer.name}, {site.name}
-          </p>
-        </div>
-        <StatusBadge status={job.status} />
-      </div>
       <Card>
         <StatusFlow status={job.status} />
       </Card>

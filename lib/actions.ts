@@ -1,0 +1,43 @@
+/**
+ * The server-action wrapper: session first, then zod parsing, then the work. Returns a result
+ * the form can show — `{ ok: true, data }` or `{ ok: false, message, fieldErrors }` — and never
+ * leaks an unexpected error's detail. Call `redirect()` after it, outside any try/catch.
+ */
+import "server-only";
+import { z } from "zod";
+import type { Actor, Role } from "@/lib/auth/roles";
+import { requireRole, requireUser } from "@/lib/auth/session";
+import { AppError } from "./errors";
+
+export type ActionResult<T> = { ok: true; data: T } | { ok: false; message: string; fieldErrors?: Record<string, string[]> };
+
+export function action<S extends z.ZodType, T>(
+  options: { schema: S; roles?: Role[] },
+  fn: (input: z.infer<S>, actor: Actor) => Promise<T>,
+): (raw: unknown) => Promise<ActionResult<T>> {
+  return async (raw) => {
+    try {
+      const actor = options.roles ? await requireRole(...options.roles) : await requireUser();
+      const input = raw instanceof FormData ? Object.fromEntries(raw.entries()) : raw;
+      const parsed = options.schema.safeParse(input);
+      if (!parsed.success) {
+        const fieldErrors: Record<string, string[]> = {};
+        for (const issue of parsed.error.issues) {
+          const key = issue.path.join(".") || "_";
+          (fieldErrors[key] ??= []).push(issue.message);
+        }
+        return { ok: false, message: "Some fields need attention.", fieldErrors };
+      }
+      return { ok: true, data: await fn(parsed.data, actor) };
+    } catch (err) {
+      if (err instanceof AppError) {
+        const fieldErrors = err.issues?.length
+          ? Object.fromEntries(err.issues.map((i) => [i.field ?? i.column ?? "_", [i.message]]))
+          : undefined;
+        return { ok: false, message: err.message, ...(fieldErrors ? { fieldErrors } : {}) };
+      }
+      console.error("[action] unexpected error", err);
+      return { ok: false, message: "Something went wrong on the server; nothing was saved." };
+    }
+  };
+}
