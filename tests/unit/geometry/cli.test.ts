@@ -1,0 +1,105 @@
+// The command line: JSON on stdout, exit code 2 and a message on stderr for bad input. Two runs go
+// through a real child process (`npx tsx lib/cli/geometry.ts`, as a user runs it); the rest call the
+// same `main` in-process with captured output, which keeps the unit suite fast.
+import { execFile } from "node:child_process";
+import { join } from "node:path";
+import { describe, expect, it } from "vitest";
+import { main } from "@/lib/cli/geometry";
+
+const root = join(import.meta.dirname, "../../..");
+const fx = (name: string) => join(root, "tests/fixtures/csv", name);
+
+function run(...args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
+  return new Promise((resolve) => {
+    execFile("npx", ["tsx", "lib/cli/geometry.ts", ...args], { cwd: root, timeout: 60_000 }, (error, stdout, stderr) => {
+      const code = error ? (typeof error.code === "number" ? error.code : -1) : 0;
+      resolve({ code, stdout, stderr });
+    });
+  });
+}
+
+async function inProcess(...args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
+  let stdout = "";
+  let stderr = "";
+  const code = await main(args, (s) => void (stdout += s), (s) => void (stderr += s));
+  return { code, stdout, stderr };
+}
+
+describe("npm run geometry", { timeout: 60_000 }, () => {
+  it("child process: tram prints the documented JSON (NIST Norris); bad input exits 2 with stderr", async () => {
+    const [tram, bad] = await Promise.all([run("tram", fx("tram-norris.csv")), run("tram", fx("sphere-ragged.csv"))]);
+    expect(tram.code).toBe(0);
+    const t = JSON.parse(tram.stdout);
+    expect(Object.keys(t)).toEqual(["slope_um_per_m", "slope_u_um_per_m", "angle_arcsec", "straightness_um", "tir_um"]);
+    // NIST StRD Norris: slope 1.00211681802045 µm/mm = 1002.11681802045 µm/m.
+    expect(t.slope_um_per_m).toBeCloseTo(1002.11681802045, 8);
+    expect(bad.code).toBe(2);
+    expect(bad.stdout).toBe("");
+    expect(bad.stderr).toContain("row 1, column travel: the required column 'travel' is missing");
+  });
+
+  it("circle, tram, sweep, test-part print the documented JSON; bad input exits 2 with a message", async () => {
+    const [circle, circleIn, tram, sweep, part, bad, badNumber, noRadius, unknown, missing] = await Promise.all([
+      inProcess("circle", fx("circle-gander.csv")),
+      inProcess("circle", fx("circle-gander.csv"), "--units", "in"),
+      inProcess("tram", fx("tram-norris.csv")),
+      inProcess("sweep", fx("sweep-good.csv"), "--radius-mm", "100"),
+      inProcess("test-part", fx("test-part-good.csv"), "--rule", "guarded", "--u-mm", "0.003"),
+      inProcess("tram", fx("sphere-ragged.csv")),
+      inProcess("circle", fx("sphere-bad-numbers.csv")),
+      inProcess("sweep", fx("sweep-good.csv")),
+      inProcess("bogus", fx("sweep-good.csv")),
+      inProcess("tram", fx("no-such-file.csv")),
+    ]);
+
+    // Gander, Golub & Strebel (1994) six points in the plane z = 10: centre (4.7398, 2.9835), r 4.7142.
+    expect(circle.code).toBe(0);
+    const c = JSON.parse(circle.stdout);
+    expect(Object.keys(c)).toEqual(["centre_mm", "normal", "radius_mm", "rms_um", "max_um"]);
+    expect(c.centre_mm[0]).toBeCloseTo(4.739782, 5);
+    expect(c.centre_mm[1]).toBeCloseTo(2.983533, 5);
+    expect(c.centre_mm[2]).toBeCloseTo(10, 9);
+    expect(c.radius_mm).toBeCloseTo(4.714226, 5);
+    expect(c.normal[2]).toBeCloseTo(1, 12);
+    // Same numbers read as inches: everything scales by 25.4 (NIST SP 811).
+    const ci = JSON.parse(circleIn.stdout);
+    expect(ci.radius_mm).toBeCloseTo(4.714226 * 25.4, 4);
+
+    // NIST StRD Norris: slope 1.00211681802045 (µm per mm → µm/m × 1000), sd 4.29796848199937e-4.
+    expect(tram.code).toBe(0);
+    const t = JSON.parse(tram.stdout);
+    expect(Object.keys(t)).toEqual(["slope_um_per_m", "slope_u_um_per_m", "angle_arcsec", "straightness_um", "tir_um"]);
+    expect(t.slope_um_per_m).toBeCloseTo(1002.11681802045, 8);
+    expect(t.slope_u_um_per_m).toBeCloseTo(0.429796848199937, 10);
+
+    // tilt = TIR / sweep diameter (trade trigonometry): 20 µm over 200 mm = 100 µm/m, high side at 90°.
+    expect(sweep.code).toBe(0);
+    const s = JSON.parse(sweep.stdout);
+    expect(Object.keys(s)).toEqual(["tilt_um_per_m", "tilt_arcsec", "direction_deg", "tir_um", "flatness_ls_um", "flatness_mz_um"]);
+    expect(s.tilt_um_per_m).toBeCloseTo(100, 9);
+    expect(s.direction_deg).toBeCloseTo(90, 9);
+    expect(s.tir_um).toBe(20);
+
+    // ISO 14253-1 guarded acceptance (see decision.test.ts for the cases).
+    expect(part.code).toBe(0);
+    const p = JSON.parse(part.stdout);
+    expect(p.rule).toBe("guarded");
+    // bore 25.004 in [25.003, 25.018] → pass; flatness 0.008 > 0.01 − 0.003 → undecided; the arcsec
+    // row has no U (a mm default does not apply to angles) → simple comparison 12″ ≤ 20″ → pass.
+    expect(p.rows.map((r: { decision: string }) => r.decision)).toEqual(["pass", "undecided", "pass"]);
+    expect(part.stderr).toContain("no expanded uncertainty given for rows in arcsec");
+
+    expect(bad.code).toBe(2);
+    expect(bad.stdout).toBe("");
+    expect(bad.stderr).toContain("row 1, column travel: the required column 'travel' is missing");
+    expect(badNumber.code).toBe(2);
+    expect(badNumber.stderr).toContain("row 2, column x: 'abc' is not a number");
+    expect(badNumber.stderr).toContain("row 4, column z: 'Infinity' is not a finite number");
+    expect(noRadius.code).toBe(2);
+    expect(noRadius.stderr).toContain("--radius-mm is required");
+    expect(unknown.code).toBe(2);
+    expect(unknown.stderr).toContain("unknown command 'bogus'");
+    expect(missing.code).toBe(2);
+    expect(missing.stderr).toContain("cannot read");
+  });
+});
