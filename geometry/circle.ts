@@ -31,6 +31,7 @@ export interface CircleFit {
   readonly iterations: number;
 }
 
+/** Fix the sign of an axis direction independently of point order: largest component positive. */
 function orientNormal(v: [number, number, number]): Vec3 {
   let k = 0;
   if (Math.abs(v[1]) > Math.abs(v[k]!)) k = 1;

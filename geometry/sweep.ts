@@ -34,6 +34,7 @@ export interface SweepResult {
   readonly notes: readonly string[];
 }
 
+/** Number of distinct angles (radians in [0, 2π), 1e-9 apart; 0 and 2π the same) and the index order by angle. */
 function distinctAngles(thetaRad: Float64Array): { count: number; sortedIdx: number[] } {
   const idx = Array.from(thetaRad.keys()).sort((p, q) => thetaRad[p]! - thetaRad[q]!);
   let count = 0;

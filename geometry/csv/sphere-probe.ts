@@ -33,7 +33,7 @@ export interface SphereProbeCsvOptions {
  */
 export function readSphereProbeCsv(text: string, options: SphereProbeCsvOptions): WithWarnings<SphereProbeData> {
   const factor = coordinateFactorToMm(options?.units, "units");
-  const t = readTable(text, COLUMNS, { decimal: options.decimal });
+  const t = readTable(text, COLUMNS, { decimal: options?.decimal });
   const num = (k: string) => t.numbers.get(k);
   return {
     rows: t.rows,

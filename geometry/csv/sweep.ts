@@ -19,7 +19,7 @@ export interface SweepCsvOptions {
 /** Read an indicator-sweep CSV (angle degrees, reading µm). Throws GeometryError on malformed input. */
 export function readSweepCsv(text: string, options: SweepCsvOptions): WithWarnings<SweepData> {
   const readingFactor = readingFactorToUm(options?.readingUnits, "readingUnits");
-  const t = readTable(text, COLUMNS, { decimal: options.decimal });
+  const t = readTable(text, COLUMNS, { decimal: options?.decimal });
   return {
     rows: t.rows,
     angleDeg: t.numbers.get("angle_deg")!,

@@ -21,8 +21,8 @@ export interface TramCsvOptions {
 /** Read an indicator-tram CSV (travel mm, reading µm). Throws GeometryError on malformed input. */
 export function readTramCsv(text: string, options: TramCsvOptions): WithWarnings<TramData> {
   const travelFactor = coordinateFactorToMm(options?.travelUnits, "travelUnits");
-  const readingFactor = readingFactorToUm(options.readingUnits, "readingUnits");
-  const t = readTable(text, COLUMNS, { decimal: options.decimal });
+  const readingFactor = readingFactorToUm(options?.readingUnits, "readingUnits");
+  const t = readTable(text, COLUMNS, { decimal: options?.decimal });
   const note = t.texts.get("note");
   return {
     rows: t.rows,

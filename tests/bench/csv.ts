@@ -47,6 +47,13 @@ async function main() {
   const tRead0 = performance.now();
   const text = readFileSync(file, "utf8");
   const readBytesS = (performance.now() - tRead0) / 1000;
+  // Memory held by one read's result (typed arrays live outside the JS heap: arrayBuffers).
+  const mem = () => process.memoryUsage();
+  const before = mem();
+  const kept = readSphereProbeCsv(text, { units: "mm" });
+  const after = mem();
+  const resultMb = (after.arrayBuffers - before.arrayBuffers + after.heapUsed - before.heapUsed) / 1e6;
+  if (kept.rows !== rows) throw new Error("row count");
   const ours: number[] = [];
   const papa: number[] = [];
   let rssOurs = 0;
@@ -73,6 +80,7 @@ async function main() {
         papaparse_rows_per_s: Math.round(rows / papaS),
         throughput_vs_papaparse: +(papaS / oursS).toFixed(2),
         target_met: oursS <= 1.2 && papaS / oursS >= 0.7,
+        result_memory_mb: +resultMb.toFixed(1),
         peak_rss_mb_after_ours: Math.round(rssOurs / 1e6),
         peak_rss_mb_overall: Math.round(Math.max(peakRss, rssOurs) / 1e6),
         runs: { ours_s: ours.map((x) => +x.toFixed(3)), papaparse_s: papa.map((x) => +x.toFixed(3)) },
