@@ -1,6 +1,6 @@
 // Tram, sweep and test-part CSV readers against docs/product.md "CSV formats" (RFC 4180 quoting).
 import { describe, expect, it } from "vitest";
-import { readSweepCsv, readTestPartCsv, readTramCsv } from "@/geometry";
+import { readPointsCsv, readSweepCsv, readTestPartCsv, readTramCsv } from "@/geometry";
 import { fixture, thrown } from "./csv-helpers";
 
 describe("readTramCsv", () => {
@@ -95,5 +95,14 @@ describe("readTestPartCsv", () => {
       { row: 3, column: "unit", message: "'cm' is not one of mm, in, um, deg, arcsec, um/m" },
       { row: 3, column: "lower_tol", message: "lower_tol 0.2 is above upper_tol 0.1" },
     ]);
+  });
+});
+
+describe("readPointsCsv", () => {
+  it("reads x, y, z from a sphere-probe file and warns about the columns it does not use", () => {
+    const d = readPointsCsv(fixture("sphere-good.csv"), { units: "in" });
+    expect(d.rows).toBe(3);
+    expect(d.xMm[0]).toBeCloseTo(100.001 * 25.4, 10); // 1 in = 25.4 mm (NIST SP 811)
+    expect(d.warnings.map((w) => w.column)).toEqual(["primary_deg", "secondary_deg", "point", "repeat", "tool_mm"]);
   });
 });

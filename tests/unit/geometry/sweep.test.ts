@@ -21,7 +21,7 @@ describe("fitSweep", () => {
     expect(r.flatness_mz_um).toBeLessThan(1e-9);
   });
 
-  it("recovers a known tilt and direction from a synthetic face with form error (invented data)", () => {
+  it("recovers a known tilt and direction from a synthetic face with form error (answer known by construction)", () => {
     const angles = Array.from({ length: 36 }, (_, k) => k * 10);
     // 30 µm/m at 200 mm radius = 6 µm amplitude, high side at 130°; plus a 1 µm saddle (cos 2θ).
     const r = fitSweep(face(angles, -2, 6, 130, (t) => Math.cos(2 * t)), 200);
