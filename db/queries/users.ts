@@ -18,14 +18,22 @@ export async function getUserForSignIn(email: string) {
  * The acting user, fresh from the database: a disabled user or a changed role takes effect on
  * the next request, not when the session token expires.
  */
-export async function getActor(userId: string): Promise<Actor | null> {
+export async function getActor(userId: string, signedInAtMs = Date.now()): Promise<Actor | null> {
   if (!/^[0-9a-f-]{36}$/i.test(userId)) return null;
   const rows = await db
-    .select({ id: users.id, email: users.email, name: users.name, role: users.role, customerId: users.customerId, disabled: users.disabled })
+    .select({ id: users.id, email: users.email, name: users.name, role: users.role, customerId: users.customerId, disabled: users.disabled, sessionsValidAfter: users.sessionsValidAfter })
     .from(users)
     .where(eq(users.id, userId))
     .limit(1);
   const row = rows[0];
   if (!row || row.disabled) return null;
+  // A session signed in before its account's sessions were revoked is over.
+  if (row.sessionsValidAfter && signedInAtMs < row.sessionsValidAfter.getTime()) return null;
   return { id: row.id, email: row.email, name: row.name, role: row.role, customerId: row.customerId };
+}
+
+/** Ends every session of the account: tokens that signed in before now are refused. */
+export async function revokeSessions(userId: string): Promise<void> {
+  if (!/^[0-9a-f-]{36}$/i.test(userId)) return;
+  await db.update(users).set({ sessionsValidAfter: new Date() }).where(eq(users.id, userId));
 }

@@ -8,7 +8,7 @@ declare module "next-auth" {
     customerId: string | null;
   }
   interface Session {
-    user: { id: string; email: string; name: string; role: Role; customerId: string | null };
+    user: { id: string; email: string; name: string; role: Role; customerId: string | null; signedInAt: number };
   }
 }
 
@@ -16,5 +16,7 @@ declare module "next-auth/jwt" {
   interface JWT {
     role?: Role;
     customerId?: string | null;
+    /** Milliseconds since the epoch when this session signed in. */
+    signedInAt?: number;
   }
 }

@@ -5,7 +5,7 @@
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { clearSignInFailures, isSignInLimited, recordSignInFailure } from "@/db/queries/sign-in";
-import { getUserForSignIn } from "@/db/queries/users";
+import { getUserForSignIn, revokeSessions } from "@/db/queries/users";
 import { authSecret, env } from "@/lib/env";
 import { verifyPassword } from "./password";
 import { isRole } from "./roles";
@@ -47,11 +47,18 @@ export const authOptions: NextAuthOptions = {
       },
     }),
   ],
+  events: {
+    // Signing out ends every session of the account (tokens issued before now are refused).
+    async signOut({ token }) {
+      if (token?.sub) await revokeSessions(token.sub);
+    },
+  },
   callbacks: {
     jwt({ token, user }) {
       if (user) {
         token.role = user.role;
         token.customerId = user.customerId;
+        token.signedInAt = Date.now();
       }
       return token;
     },
@@ -62,6 +69,7 @@ export const authOptions: NextAuthOptions = {
         name: token.name ?? "",
         role: token.role ?? "customer",
         customerId: token.customerId ?? null,
+        signedInAt: token.signedInAt ?? 0,
       };
       return session;
     },

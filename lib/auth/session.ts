@@ -14,7 +14,7 @@ export async function getCurrentUser(): Promise<Actor | null> {
   const session = await getServerSession(authOptions);
   const id = session?.user?.id;
   if (!id) return null;
-  return getActor(id);
+  return getActor(id, session.user.signedInAt ?? 0);
 }
 
 /** For route handlers and actions: throws 401 when nobody is signed in. */

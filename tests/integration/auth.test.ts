@@ -6,6 +6,7 @@ import { POST as authPost } from "@/app/api/auth/[...nextauth]/route";
 import { GET as listJobsRoute } from "@/app/api/jobs/route";
 import { db } from "@/db";
 import { isSignInLimited } from "@/db/queries/sign-in";
+import { revokeSessions } from "@/db/queries/users";
 import { signInFailures, users } from "@/db/schema";
 import { authOptions } from "@/lib/auth/options";
 import { request, signInAs } from "./helpers";
@@ -16,7 +17,7 @@ const authorize = (email: string, password: string, address = "10.0.0.1") => cre
 
 afterEach(async () => {
   await db.delete(signInFailures);
-  await db.update(users).set({ disabled: false, role: "inspector" }).where(eq(users.email, "inspector@halvard.example"));
+  await db.update(users).set({ disabled: false, role: "inspector", sessionsValidAfter: null }).where(eq(users.email, "inspector@halvard.example"));
 });
 
 describe("credentials sign-in", () => {
@@ -82,5 +83,21 @@ describe("sessions follow the database", () => {
     await db.update(users).set({ role: "installer" }).where(eq(users.email, "inspector@halvard.example"));
     const after = (await (await listJobsRoute(request("/api/jobs"), undefined)).json()) as { jobs: unknown[] };
     expect(after.jobs).toHaveLength(0);
+  });
+
+  it("sign-out revokes every earlier session of the account, not later ones", async () => {
+    const signedIn = Date.now() - 1000;
+    const id = await signInAs("inspector@halvard.example", signedIn);
+    expect((await listJobsRoute(request("/api/jobs"), undefined)).status).toBe(200);
+    await revokeSessions(id!);
+    expect((await listJobsRoute(request("/api/jobs"), undefined)).status).toBe(401);
+    await signInAs("inspector@halvard.example", Date.now() + 1000);
+    expect((await listJobsRoute(request("/api/jobs"), undefined)).status).toBe(200);
+  });
+
+  it("next-auth's sign-out event revokes the token's account", async () => {
+    const id = await signInAs("inspector@halvard.example", Date.now() - 1000);
+    await authOptions.events!.signOut!({ token: { sub: id! }, session: null as never });
+    expect((await listJobsRoute(request("/api/jobs"), undefined)).status).toBe(401);
   });
 });

@@ -1,10 +1,11 @@
 import { sql } from "drizzle-orm";
 import { db } from "@/db";
 
-const state = globalThis as unknown as { __testSessionUserId?: string | null };
+const state = globalThis as unknown as { __testSessionUserId?: string | null; __testSignedInAt?: number };
 
 /** Acts as the given demo user (by e-mail) for the following route calls; null = anonymous. */
-export async function signInAs(email: string | null): Promise<string | null> {
+export async function signInAs(email: string | null, signedInAt?: number): Promise<string | null> {
+  state.__testSignedInAt = signedInAt;
   if (email === null) {
     state.__testSessionUserId = null;
     return null;

@@ -3,13 +3,13 @@
 // read from the database, the access checks, the queries — is the real code.
 import { afterAll, beforeAll, vi } from "vitest";
 
-const state = globalThis as unknown as { __testSessionUserId?: string | null };
+const state = globalThis as unknown as { __testSessionUserId?: string | null; __testSignedInAt?: number };
 
 vi.mock("next-auth", async (importOriginal) => {
   const actual = await importOriginal<typeof import("next-auth")>();
   return {
     ...actual,
-    getServerSession: vi.fn(async () => (state.__testSessionUserId ? { user: { id: state.__testSessionUserId } } : null)),
+    getServerSession: vi.fn(async () => (state.__testSessionUserId ? { user: { id: state.__testSessionUserId, signedInAt: state.__testSignedInAt ?? Date.now() } } : null)),
   };
 });
 
