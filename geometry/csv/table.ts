@@ -233,7 +233,10 @@ function detectDelimiter(text: string, start: number): "," | ";" {
   return semicolons > commas ? ";" : ",";
 }
 
-/** Upper bound on the number of records (line breaks + 1), to size the column arrays once. */
+/**
+ * Upper bound on the number of records, to size the column arrays once: every record but the last
+ * ends in LF, CR LF or a lone CR, so (LF count) + (lone CR count) + 1 bounds it for any mix.
+ */
 function estimateRecords(text: string): number {
   let n = 1;
   let p = text.indexOf("\n");
@@ -241,12 +244,10 @@ function estimateRecords(text: string): number {
     n++;
     p = text.indexOf("\n", p + 1);
   }
-  if (n === 1) {
-    p = text.indexOf("\r");
-    while (p !== -1) {
-      n++;
-      p = text.indexOf("\r", p + 1);
-    }
+  p = text.indexOf("\r");
+  while (p !== -1) {
+    if (text.charCodeAt(p + 1) !== LF) n++;
+    p = text.indexOf("\r", p + 1);
   }
   return n;
 }

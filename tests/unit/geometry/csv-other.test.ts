@@ -34,6 +34,12 @@ describe("readTramCsv", () => {
     ]);
   });
 
+  it("mixed line endings (LF, CR LF, lone CR) all end a row; no row is lost", () => {
+    const d = readTramCsv("travel,reading\r0,1\n1,2\r\n2,3\r3,4\r4,5\n", { travelUnits: "mm", readingUnits: "um" });
+    expect(Array.from(d.travelMm)).toEqual([0, 1, 2, 3, 4]);
+    expect(Array.from(d.sourceRow!)).toEqual([2, 3, 4, 5, 6]);
+  });
+
   it("bad reading units option", () => {
     expect(thrown(() => readTramCsv("travel,reading\n0,1\n", { travelUnits: "mm", readingUnits: "nm" as "um" })).code).toBe(
       "bad_option",
