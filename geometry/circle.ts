@@ -43,7 +43,7 @@ function orientNormal(v: [number, number, number]): Vec3 {
  * Fit a circle to 3-D points (mm).
  * 1. Plane: centroid c̄; SVD of the centred n×3 matrix; the right singular vector of the smallest
  *    singular value is the normal (total least squares plane; e.g. Shakarji, J. Res. NIST 103,
- *    1998, "Least-squares fitting algorithms of the NIST algorithm testing system"), the other two
+ *    1998, "Least-squares fitting algorithms of the NIST algorithm testing system" — reference from memory), the other two
  *    span the plane (u, v).
  * 2. Circle in the plane on (ξ, η) = ((p − c̄)·u, (p − c̄)·v): algebraic start (Kåsa: linear least
  *    squares of ξ² + η² + Dξ + Eη + F = 0), then geometric refinement minimising

@@ -58,7 +58,8 @@ function largestGap(thetaRad: Float64Array, sortedIdx: readonly number[]): numbe
  * Minimum-zone (Chebyshev) fit of y ≈ a + b·cosθ + c·sinθ: minimise max |y − p(θ)|; the zone width
  * is twice the minimax error. {1, cos, sin} is a Haar system on the circle, so the optimum is
  * characterised by 4 reference points with alternating errors ±h and found by the exchange
- * (Stiefel / discrete Remez) algorithm (e.g. Cheney, Introduction to Approximation Theory, ch. 2).
+ * (Stiefel / discrete Remez) algorithm (e.g. Cheney, Introduction to Approximation Theory, ch. 2 — reference from memory; the tests
+ * check optimality against a brute-force grid instead).
  * Returns the best width found (never above the least-squares width passed in).
  */
 function minimumZone(theta: Float64Array, y: Float64Array, sortedIdx: readonly number[], lsWidth: number): number {

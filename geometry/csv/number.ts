@@ -11,7 +11,7 @@
  * Correct rounding: when the mantissa has ≤ 15 digits (< 2^53, exact) and the decimal exponent is
  * within ±22 (10^k exact in binary64), one IEEE multiplication or division gives the correctly
  * rounded result (Clinger, "How to read floating point numbers accurately", PLDI 1990, the "fast
- * path"). Every other case falls back to the engine's own `Number()`, which is correctly rounded
+ * path"; reference from memory). Every other case falls back to the engine's own `Number()`, which is correctly rounded
  * per ECMA-262 §7.1.4.1.1.
  */
 

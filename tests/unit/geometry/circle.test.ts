@@ -3,8 +3,9 @@ import { describe, expect, it } from "vitest";
 import { axisSquareness, fitCircle, pivotLengthMm, RAD_PER_ARCSEC, type Vec3 } from "@/geometry";
 
 // Gander, Golub & Strebel, "Least-squares fitting of circles and ellipses", BIT 34 (1994) 558–578:
-// six points; geometric fit centre (4.7398, 2.9835), r 4.7142 (check-values.md: reproduced
-// 4.739782, 2.983533, 4.714226, sum of squared distances 1.22760).
+// six points; geometric fit centre (4.7398, 2.9835), r 4.7142 (the paper's figures from memory;
+// check-values.md has them reproduced with an independent tool: 4.739782, 2.983533, 4.714226,
+// sum of squared distances 1.22760 — the values asserted here).
 const GGS: readonly (readonly [number, number])[] = [
   [1, 7],
   [2, 6],
