@@ -1,0 +1,91 @@
+/**
+ * Report signatures: Ed25519 (node:crypto) over the canonical JSON of a manifest that binds the
+ * report id and revision to the SHA-256 of the exact PDF bytes, the signer, the meaning of the
+ * signature and the UTC time. The key pair lives outside the database (a folder of PEM files,
+ * created on first use), so a database dump alone cannot forge a signature.
+ */
+import { createHash, createPrivateKey, createPublicKey, generateKeyPairSync, sign, verify, type KeyObject } from "node:crypto";
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
+import path from "node:path";
+import { canonicalJson } from "@/lib/canonical-json";
+
+/** What a signature means (21 CFR 11.50: the meaning is part of every signature). */
+export const SIGNATURE_MEANINGS = ["performed", "inspected", "approved", "accepted", "rejected"] as const;
+export type SignatureMeaning = (typeof SIGNATURE_MEANINGS)[number];
+
+export interface SignatureManifest {
+  reportId: string;
+  revision: number;
+  pdfSha256: string;
+  signer: { id: string; name: string; role: string; email: string };
+  meaning: SignatureMeaning;
+  /** ISO 8601 in UTC, e.g. 2026-12-02T07:15:00.000Z. */
+  signedAtUtc: string;
+  keyId: string;
+}
+
+export interface SigningKey {
+  keyId: string;
+  privateKey: KeyObject;
+  publicKey: KeyObject;
+  publicKeyPem: string;
+}
+
+export function sha256Hex(bytes: Uint8Array | string): string {
+  return createHash("sha256").update(bytes).digest("hex");
+}
+
+/** Key id: the first 16 hex digits of the SHA-256 of the public key's SPKI DER encoding. */
+export function keyIdOf(publicKey: KeyObject): string {
+  return sha256Hex(publicKey.export({ type: "spki", format: "der" })).slice(0, 16);
+}
+
+/** Loads the key pair from `dir`, creating it on first use (private key file mode 0600). */
+export function loadOrCreateSigningKey(dir: string): SigningKey {
+  const privPath = path.join(dir, "report-signing-key.pem");
+  const pubPath = path.join(dir, "report-signing-key.pub.pem");
+  if (!existsSync(privPath)) {
+    mkdirSync(dir, { recursive: true, mode: 0o700 });
+    const { privateKey, publicKey } = generateKeyPairSync("ed25519");
+    writeFileSync(privPath, privateKey.export({ type: "pkcs8", format: "pem" }), { mode: 0o600, flag: "wx" });
+    writeFileSync(pubPath, publicKey.export({ type: "spki", format: "pem" }), { mode: 0o644 });
+  }
+  const privateKey = createPrivateKey(readFileSync(privPath));
+  const publicKey = createPublicKey(privateKey);
+  return { keyId: keyIdOf(publicKey), privateKey, publicKey, publicKeyPem: publicKey.export({ type: "spki", format: "pem" }).toString() };
+}
+
+/** The exact bytes that are signed. */
+export function manifestBytes(m: SignatureManifest): Buffer {
+  return Buffer.from(canonicalJson(m), "utf8");
+}
+
+/** Ed25519 signature (base64url). The algorithm argument must be null for Ed25519. */
+export function signManifest(m: SignatureManifest, key: SigningKey): string {
+  if (m.keyId !== key.keyId) throw new Error("manifest names another key");
+  return sign(null, manifestBytes(m), key.privateKey).toString("base64url");
+}
+
+export function verifyManifest(m: SignatureManifest, signature: string, publicKey: KeyObject): boolean {
+  try {
+    if (keyIdOf(publicKey) !== m.keyId) return false;
+    return verify(null, manifestBytes(m), publicKey, Buffer.from(signature, "base64url"));
+  } catch {
+    return false;
+  }
+}
+
+/**
+ * Verifies PDF bytes against a stored signature: the bytes must hash to the manifest's SHA-256
+ * and the signature must verify over the manifest. Returns the reason when it does not.
+ */
+export function verifySignedPdf(
+  pdf: Uint8Array,
+  m: SignatureManifest,
+  signature: string,
+  publicKey: KeyObject,
+): { ok: true } | { ok: false; reason: string } {
+  if (sha256Hex(pdf) !== m.pdfSha256) return { ok: false, reason: "The file's SHA-256 does not match the signed report: it was altered or is another file." };
+  if (!verifyManifest(m, signature, publicKey)) return { ok: false, reason: "The signature does not verify against the published key." };
+  return { ok: true };
+}
