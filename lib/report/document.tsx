@@ -1,0 +1,274 @@
+/**
+ * The acceptance report as a PDF document (@react-pdf/renderer). Contents follow ISO/IEC 17025
+ * §7.8 as far as they apply to field verification of a machine: identification of the report,
+ * the issuer, the customer and the item; dates; the method and the decision rule; instruments and
+ * their calibration status; environment; results with limits and uncertainty; deviations and
+ * remarks; signatures with name, meaning and time; a clear end of report.
+ */
+import { Circle, Document, Image, Line, Page, Path, Rect, StyleSheet, Svg, Text, View } from "@react-pdf/renderer";
+import type { Decision, ReportData } from "./types";
+import { BODY_FONT, MONO_FONT } from "./fonts";
+
+const C = { ink: "#1d2125", muted: "#555d68", rule: "#d5d9de", band: "#f6f7f8", accent: "#b86e05", nominal: "#5f7d99", pass: "#17613a", fail: "#9c2420", undecided: "#553791", none: "#5c6470" };
+
+const s = StyleSheet.create({
+  page: { fontFamily: BODY_FONT as unknown as string, fontSize: 8.5, color: C.ink, paddingTop: 44, paddingBottom: 56, paddingHorizontal: 40 },
+  header: { flexDirection: "row", justifyContent: "space-between", alignItems: "flex-start", borderBottomWidth: 1.5, borderBottomColor: C.ink, paddingBottom: 8, marginBottom: 12 },
+  title: { fontSize: 15, fontWeight: 700, lineHeight: 1.2 },
+  subtitle: { fontSize: 9, color: C.muted, marginTop: 2 },
+  idBox: { alignItems: "flex-end" },
+  mono: { fontFamily: MONO_FONT as unknown as string },
+  h2: { fontSize: 10.5, lineHeight: 1.2, fontWeight: 700, marginTop: 12, marginBottom: 5, paddingBottom: 2, borderBottomWidth: 0.75, borderBottomColor: C.rule },
+  grid: { flexDirection: "row", gap: 16 },
+  col: { flex: 1 },
+  factRow: { flexDirection: "row", marginBottom: 2 },
+  factLabel: { width: 92, color: C.muted },
+  factValue: { flex: 1 },
+  table: { borderWidth: 0.75, borderColor: C.rule },
+  tr: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: C.rule },
+  th: { backgroundColor: C.band, fontWeight: 700, color: C.muted, fontSize: 7.5 },
+  td: { paddingVertical: 3, paddingHorizontal: 4 },
+  num: { fontFamily: MONO_FONT as unknown as string, textAlign: "right" },
+  footerRule: { position: "absolute", bottom: 36, left: 40, right: 40, borderTopWidth: 0.5, borderTopColor: C.rule },
+  // Dynamic (render) text vanishes under a line height: none here, nor on the page.
+  footerText: { position: "absolute", bottom: 24, fontSize: 7, color: C.muted, fontFamily: "PlexSans" },
+  note: { borderWidth: 1.2, borderColor: C.accent, padding: 7, marginTop: 4, backgroundColor: "#fff8eb" },
+  sigBox: { width: "48%", borderWidth: 0.75, borderColor: C.rule, padding: 7, marginBottom: 8 },
+  end: { marginTop: 14, paddingTop: 6, borderTopWidth: 1.5, borderTopColor: C.ink, textAlign: "center", fontWeight: 700 },
+});
+
+const DECISION_TEXT: Record<Decision, string> = { pass: "✓ Pass", fail: "✗ Fail", undecided: "? Undecided", not_measured: "– Not measured" };
+const DECISION_COLOUR: Record<Decision, string> = { pass: C.pass, fail: C.fail, undecided: C.undecided, not_measured: C.none };
+
+function DecisionCell({ d, width }: { d: Decision; width: string }) {
+  return <Text style={[s.td, { width, color: DECISION_COLOUR[d], fontWeight: 700 }]}>{DECISION_TEXT[d]}</Text>;
+}
+
+function Facts({ rows }: { rows: Array<[string, string | undefined]> }) {
+  return (
+    <View>
+      {rows
+        .filter((r): r is [string, string] => Boolean(r[1]))
+        .map(([k, v]) => (
+          <View key={k} style={s.factRow}>
+            <Text style={s.factLabel}>{k}</Text>
+            <Text style={s.factValue}>{v}</Text>
+          </View>
+        ))}
+    </View>
+  );
+}
+
+type Col<T> = { header: string; width: string; cell: (r: T) => string; numeric?: boolean };
+
+function Table<T>({ rows, cols, empty }: { rows: readonly T[]; cols: readonly Col<T>[]; empty: string }) {
+  if (rows.length === 0) return <Text style={{ color: C.muted }}>{empty}</Text>;
+  return (
+    <View style={s.table}>
+      <View style={[s.tr, s.th]} fixed>
+        {cols.map((c) => (
+          <Text key={c.header} style={[s.td, { width: c.width }, c.numeric ? { textAlign: "right" } : {}]}>
+            {c.header}
+          </Text>
+        ))}
+      </View>
+      {rows.map((r, i) => (
+        <View key={i} style={s.tr} wrap={false}>
+          {cols.map((c) => (
+            <Text key={c.header} style={[s.td, { width: c.width }, c.numeric ? s.num : {}]}>
+              {c.cell(r)}
+            </Text>
+          ))}
+        </View>
+      ))}
+    </View>
+  );
+}
+
+function Mark() {
+  return (
+    <Svg width={22} height={22} viewBox="0 0 32 32">
+      <Rect x={1} y={1} width={30} height={30} rx={7} fill="#2d3238" />
+      <Line x1={8} y1={24} x2={24} y2={8} stroke="#9fb3c8" strokeWidth={2.2} />
+      <Line x1={8} y1={8} x2={24} y2={24} stroke="#9fb3c8" strokeWidth={2.2} />
+      <Path d="M9.5 19.5 A 9 9 0 0 1 19.5 9.5" stroke="#e08e0b" strokeWidth={2.6} fill="none" />
+      <Circle cx={16} cy={16} r={2.2} fill="#e08e0b" />
+    </Svg>
+  );
+}
+
+function DecisionWithRowsOf<T extends { decision: Decision }>(rows: readonly T[]) {
+  const count = (d: Decision) => rows.filter((r) => r.decision === d).length;
+  return `${count("pass")} pass · ${count("fail")} fail · ${count("undecided")} undecided${count("not_measured") ? ` · ${count("not_measured")} not measured` : ""}`;
+}
+
+export function ReportDocument({ data, qrDataUrl }: { data: ReportData; qrDataUrl: string }) {
+  const rev = `revision ${data.revision}`;
+  return (
+    <Document title={`Acceptance report ${data.reference} ${rev}`} author={data.issuer.name} subject={`Two-axis head ${data.head.serial}`} creator="Trammel" producer="Trammel">
+      <Page size="A4" style={s.page}>
+        <View style={s.footerRule} fixed />
+        <Text style={[s.footerText, { left: 40, right: 200 }]} fixed>
+          {data.reference} · {rev} · {data.reportId}
+        </Text>
+        <Text style={[s.footerText, { left: 400, right: 40, textAlign: "right" }]} fixed render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
+        <View>
+        <View style={s.header} fixed>
+          <View style={{ flexDirection: "row", gap: 8, alignItems: "center" }}>
+            <Mark />
+            <View>
+              <Text style={s.title}>Acceptance report — two-axis head</Text>
+              <Text style={s.subtitle}>{data.issuer.name}{data.issuer.address ? ` · ${data.issuer.address}` : ""}</Text>
+            </View>
+          </View>
+          <View style={s.idBox}>
+            <Text style={[s.mono, { fontSize: 9, fontWeight: 700 }]}>{data.reference}</Text>
+            <Text style={s.subtitle}>{rev}{data.issuedAtUtc ? ` · issued ${data.issuedAtUtc}` : " · not issued"}</Text>
+            <Text style={[s.mono, { fontSize: 6.5, color: C.muted }]}>{data.reportId}</Text>
+          </View>
+        </View>
+
+        {data.amendment ? (
+          <View style={s.note}>
+            <Text style={{ fontWeight: 700 }}>Amendment: this revision supersedes revision {data.amendment.supersedesRevision}.</Text>
+            <Text>{data.amendment.reason}</Text>
+          </View>
+        ) : null}
+
+        <Text style={s.h2} minPresenceAhead={40}>1 Identification</Text>
+        <View style={s.grid}>
+          <View style={s.col}>
+            <Facts rows={[["Customer", data.customer.name], ["Site", [data.customer.site, data.customer.address].filter(Boolean).join(", ")], ["Host machine", `${data.machine.name} (${data.machine.kind})`], ["Builder, model", data.machine.builderModel], ["Machine serial", data.machine.serial], ["Control", data.machine.control]]} />
+          </View>
+          <View style={s.col}>
+            <Facts rows={[["Head serial", data.head.serial], ["Maker, model", data.head.makerModel], ["Axes", data.head.axes], ["Nominal pivot length", data.head.nominalPivotLength], ["Mass", data.head.mass]] } />
+          </View>
+        </View>
+
+        <Text style={s.h2} minPresenceAhead={40}>2 Work, method and decision rule</Text>
+        <Facts rows={[["Job", `${data.work.title} (${data.work.kind})`], ["Dates of work", data.work.dates], ["Procedure", data.work.procedure], ["Method", data.work.method], ["Decision rule", data.work.decisionRule], ["Environment", data.work.airTemperature]]} />
+
+        <Text style={s.h2} minPresenceAhead={40}>3 Instruments</Text>
+        <Table
+          rows={data.instruments}
+          empty="No instruments were recorded."
+          cols={[
+            { header: "Instrument", width: "26%", cell: (r) => r.kind },
+            { header: "Serial", width: "16%", cell: (r) => r.serial },
+            { header: "Resolution", width: "14%", cell: (r) => r.resolution, numeric: true },
+            { header: "Std. uncertainty", width: "16%", cell: (r) => r.uncertainty, numeric: true },
+            { header: "Calibration due", width: "14%", cell: (r) => r.calibrationDue },
+            { header: "Status", width: "14%", cell: (r) => r.status },
+          ]}
+        />
+
+        <Text style={s.h2} minPresenceAhead={40}>4 Readings before and after adjustment</Text>
+        <Text style={{ color: C.muted, marginBottom: 3 }}>{DecisionWithRowsOf(data.readings)} (judged on the final reading)</Text>
+        <Table
+          rows={data.readings}
+          empty="No checklist readings."
+          cols={[
+            { header: "Step", width: "30%", cell: (r) => r.step },
+            { header: "Limits", width: "17%", cell: (r) => r.limits },
+            { header: "Before", width: "13%", cell: (r) => r.pre ?? "—", numeric: true },
+            { header: "After", width: "13%", cell: (r) => r.post ?? "—", numeric: true },
+            { header: "Change", width: "12%", cell: (r) => r.change ?? "—", numeric: true },
+            { header: "Result", width: "15%", cell: (r) => DECISION_TEXT[r.decision] },
+          ]}
+        />
+
+        <Text style={s.h2} minPresenceAhead={40}>5 Kinematic parameters of the head</Text>
+        <Text style={{ color: C.muted, marginBottom: 3 }}>Fitted from sphere-probe data; U is the expanded uncertainty (k = 2, about 95 %).</Text>
+        <View style={s.table}>
+          <View style={[s.tr, s.th]}>
+            {["Parameter", "ISO 230-1", "Value", "U (k = 2)", "Tolerance", "Identifiable", "Result"].map((h, i) => (
+              <Text key={h} style={[s.td, { width: ["27%", "11%", "14%", "12%", "12%", "11%", "13%"][i] }]}>
+                {h}
+              </Text>
+            ))}
+          </View>
+          {data.parameters.length === 0 ? <Text style={[s.td, { color: C.muted }]}>No kinematic fit is part of this report.</Text> : null}
+          {data.parameters.map((p) => (
+            <View key={p.symbol + p.name} style={s.tr} wrap={false}>
+              <Text style={[s.td, { width: "27%" }]}>{p.name}</Text>
+              <Text style={[s.td, s.mono, { width: "11%" }]}>{p.symbol}</Text>
+              <Text style={[s.td, s.num, { width: "14%" }]}>{p.value}</Text>
+              <Text style={[s.td, s.num, { width: "12%" }]}>± {p.expanded}</Text>
+              <Text style={[s.td, s.num, { width: "12%" }]}>{p.tolerance ?? "—"}</Text>
+              <Text style={[s.td, { width: "11%" }]}>{p.identifiable}</Text>
+              <DecisionCell d={p.decision} width="13%" />
+            </View>
+          ))}
+        </View>
+
+        <Text style={s.h2} minPresenceAhead={40}>6 Test part</Text>
+        <Text style={{ color: C.muted, marginBottom: 3 }}>{DecisionWithRowsOf(data.testPart)}</Text>
+        <Table
+          rows={data.testPart}
+          empty="No test part was measured for this report."
+          cols={[
+            { header: "Feature", width: "17%", cell: (r) => r.feature },
+            { header: "Characteristic", width: "16%", cell: (r) => r.characteristic },
+            { header: "Nominal", width: "12%", cell: (r) => r.nominal, numeric: true },
+            { header: "Measured", width: "12%", cell: (r) => r.measured, numeric: true },
+            { header: "Deviation", width: "11%", cell: (r) => r.deviation, numeric: true },
+            { header: "Limits", width: "11%", cell: (r) => r.limits, numeric: true },
+            { header: "U", width: "8%", cell: (r) => r.expanded, numeric: true },
+            { header: "Result", width: "13%", cell: (r) => DECISION_TEXT[r.decision] },
+          ]}
+        />
+
+        {data.figures.length > 0 ? (
+          <View break>
+            <Text style={s.h2} minPresenceAhead={40}>7 Figures</Text>
+            {data.figures.map((f, i) => (
+              <View key={i} wrap={false} style={{ marginBottom: 10 }}>
+                <Image src={f.png} style={{ width: "100%", maxHeight: 300, objectFit: "contain" }} />
+                <Text style={{ color: C.muted, marginTop: 3 }}>Figure {i + 1}. {f.caption}</Text>
+              </View>
+            ))}
+          </View>
+        ) : null}
+
+        <Text style={s.h2} minPresenceAhead={40}>8 Deviations and remarks</Text>
+        {data.remarks.length ? data.remarks.map((r, i) => <Text key={i}>• {r}</Text>) : <Text style={{ color: C.muted }}>None.</Text>}
+
+        <View wrap={false}>
+          <Text style={s.h2} minPresenceAhead={40}>9 Safety</Text>
+          <View style={s.note}>
+            {data.safety.map((t, i) => (
+              <Text key={i}>⚠ {t}</Text>
+            ))}
+          </View>
+        </View>
+
+        <View wrap={false}>
+          <Text style={s.h2} minPresenceAhead={40}>10 Signatures</Text>
+          <View style={{ flexDirection: "row", flexWrap: "wrap", justifyContent: "space-between" }}>
+            {data.signatures.length === 0 ? <Text style={{ color: C.muted }}>Not signed yet.</Text> : null}
+            {data.signatures.map((g, i) => (
+              <View key={i} style={s.sigBox}>
+                <Text style={{ fontWeight: 700 }}>{g.meaning}</Text>
+                <Text>{g.name} — {g.role}</Text>
+                <Text style={s.mono}>{g.signedAtUtc}</Text>
+                <Text style={{ color: C.muted, fontSize: 7 }}>Signed electronically; the signer re-entered their password at signing.</Text>
+              </View>
+            ))}
+          </View>
+        </View>
+
+        <View wrap={false} style={{ flexDirection: "row", gap: 10, marginTop: 10, alignItems: "center" }}>
+          <Image src={qrDataUrl} style={{ width: 72, height: 72 }} />
+          <View style={{ flex: 1 }}>
+            <Text style={{ fontWeight: 700 }}>Verify this report</Text>
+            <Text>Scan the code or open {data.verifyUrl} and upload this file: the check compares its SHA-256 with the signed record.</Text>
+            <Text style={[s.mono, { fontSize: 7, color: C.muted }]}>content SHA-256 {data.contentSha256}</Text>
+          </View>
+        </View>
+        <Text style={s.end}>END OF REPORT</Text>
+        </View>
+
+      </Page>
+    </Document>
+  );
+}
