@@ -142,3 +142,34 @@ describe("jobs table and job page", () => {
     await tablet.close();
   });
 });
+
+describe("security headers", () => {
+  it("every page and API answer carries the CSP with a nonce, no framing, nosniff and a referrer policy", async () => {
+    const p = await fresh();
+    for (const path of ["/login", "/api/health", "/jobs"]) {
+      const res = await p.request.get(path, { maxRedirects: 0 });
+      const h = res.headers();
+      expect(h["content-security-policy"], path).toMatch(/script-src 'self' 'nonce-[A-Za-z0-9+/=]+' 'strict-dynamic'/);
+      expect(h["content-security-policy"], path).toContain("frame-ancestors 'none'");
+      expect(h["x-content-type-options"], path).toBe("nosniff");
+      expect(h["referrer-policy"], path).toBe("strict-origin-when-cross-origin");
+    }
+    await p.close();
+  });
+
+  it("signed-in pages are not stored by caches, and the policy blocks nothing the app needs", async () => {
+    const p = await fresh();
+    const violations: string[] = [];
+    p.on("console", (m) => {
+      if (/Content Security Policy|Refused to/.test(m.text())) violations.push(m.text());
+    });
+    await signIn(p, "engineer@halvard.example");
+    await p.waitForURL("**/jobs");
+    const res = await p.goto("/jobs");
+    expect(res?.headers()["cache-control"]).toContain("no-store");
+    await p.getByRole("link", { name: "TR-2026-0041" }).click();
+    await p.waitForURL(/\/jobs\/[0-9a-f-]{36}$/);
+    expect(violations).toEqual([]);
+    await p.close();
+  });
+});
