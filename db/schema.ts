@@ -53,6 +53,7 @@ export const limitSourceEnum = pgEnum("limit_source", ["standard", "maker_manual
 export const datasetKindEnum = pgEnum("dataset_kind", ["sphere_probe", "tram", "sweep", "test_part"]);
 export const datasetStatusEnum = pgEnum("dataset_status", ["stored", "deleted"]);
 export const outboxStatusEnum = pgEnum("outbox_status", ["pending", "sent", "failed"]);
+export const signatureMeaningEnum = pgEnum("signature_meaning", ["performed", "inspected", "approved", "accepted", "rejected"]);
 
 /** bytea: drizzle 0.45 has no built-in type for it. Buffers round-trip exactly. */
 export const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
@@ -414,3 +415,60 @@ export const userTokens = pgTable(
   },
   (t) => [index("user_tokens_user_idx").on(t.userId)],
 );
+
+/**
+ * Report revisions. A row is written once, when the revision is issued: the PDF bytes, their
+ * SHA-256 and the content it was rendered from. A trigger (migration 0004) refuses any UPDATE or
+ * DELETE, so an issued revision can never change; a correction is a new row whose
+ * `supersedes_id` names the revision it replaces.
+ */
+export const reports = pgTable(
+  "reports",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    revision: integer("revision").notNull(),
+    supersedesId: uuid("supersedes_id").references((): AnyPgColumn => reports.id, { onDelete: "restrict" }),
+    amendmentReason: text("amendment_reason"),
+    pdf: bytea("pdf").notNull(),
+    pdfSha256: text("pdf_sha256").notNull(),
+    contentSha256: text("content_sha256").notNull(),
+    content: jsonb("content").notNull(),
+    issuedAt: timestamp("issued_at", { withTimezone: true }).notNull().defaultNow(),
+    issuedById: uuid("issued_by_id").references(() => users.id, { onDelete: "restrict" }),
+  },
+  (t) => [uniqueIndex("reports_job_revision_idx").on(t.jobId, t.revision), uniqueIndex("reports_supersedes_idx").on(t.supersedesId)],
+);
+export type Report = typeof reports.$inferSelect;
+
+/**
+ * Electronic signatures (21 CFR 11.50: printed name, date-time and meaning). Before issue they
+ * sign the job's work (performed, inspected, approved) and are printed in the PDF; after issue the
+ * customer's acceptance or rejection signs the issued PDF's hash. Each carries the signed
+ * manifest and its Ed25519 signature. Append-only (migration 0004).
+ */
+export const signatures = pgTable(
+  "signatures",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    reportId: uuid("report_id").references(() => reports.id, { onDelete: "restrict" }),
+    meaning: signatureMeaningEnum("meaning").notNull(),
+    signerId: uuid("signer_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "restrict" }),
+    signerName: text("signer_name").notNull(),
+    signerRole: roleEnum("signer_role").notNull(),
+    signedAt: timestamp("signed_at", { withTimezone: true }).notNull(),
+    comment: text("comment"),
+    manifest: jsonb("manifest").notNull(),
+    signature: text("signature").notNull(),
+    keyId: text("key_id").notNull(),
+  },
+  (t) => [index("signatures_job_idx").on(t.jobId), index("signatures_report_idx").on(t.reportId)],
+);
+export type Signature = typeof signatures.$inferSelect;
