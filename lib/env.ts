@@ -14,6 +14,10 @@ const schema = z.object({
   SIGNIN_MAX_FAILURES: z.coerce.number().int().min(1).default(5),
   SIGNIN_WINDOW_S: z.coerce.number().int().min(1).default(15 * 60),
   TRAMMEL_ALLOW_SEED: z.enum(["0", "1"]).optional(),
+  /** Where the report-signing key pair lives: outside the database, never in git. */
+  REPORT_KEY_DIR: z.string().min(1).default(".data/keys"),
+  /** The address printed on reports and in e-mails (verify links). */
+  PUBLIC_URL: z.string().url().optional(),
 });
 
 export type Env = z.infer<typeof schema>;
@@ -36,3 +40,6 @@ export const env: Env = load();
 
 /** The session-signing secret; a fixed development value outside production. */
 export const authSecret = env.NEXTAUTH_SECRET ?? "trammel-development-secret-not-for-production";
+
+/** Base URL for links that leave the app (PDF QR codes, e-mails). */
+export const publicUrl = (env.PUBLIC_URL ?? env.NEXTAUTH_URL ?? "http://localhost:3000").replace(/\/$/, "");
