@@ -124,3 +124,44 @@ export function canReadRegister(role: Role, register: "customers" | "machines" |
   if (role === "admin") return true;
   return role === "engineer" && register === "heads";
 }
+
+/** Signature meanings and who gives each (21 CFR 11.50: the meaning is part of the signature). */
+export const SIGNATURE_MEANINGS = ["performed", "inspected", "approved", "accepted", "rejected"] as const;
+export type SignatureMeaningKey = (typeof SIGNATURE_MEANINGS)[number];
+
+export const SIGNATURE_LABELS: Record<SignatureMeaningKey, string> = {
+  performed: "Work performed",
+  inspected: "Inspected",
+  approved: "Approved and issued",
+  accepted: "Accepted by the customer",
+  rejected: "Rejected by the customer",
+};
+
+/**
+ * May this actor give this signature on this job now? Performed: the assigned installer;
+ * inspected: an inspector; both while the work is under way or in review. Approved (which issues
+ * the report): an engineer, on an approved job. Accepted or rejected: a user of the job's own
+ * company, on an issued job. Returns the reason when not.
+ */
+export function signatureRefusal(
+  actor: Actor,
+  meaning: SignatureMeaningKey,
+  job: { status: JobStatus; customerId: string; assignedInstallerId: string | null },
+): string | null {
+  const working = job.status === "measuring" || job.status === "in_review" || job.status === "approved";
+  switch (meaning) {
+    case "performed":
+      if (actor.role !== "installer" || job.assignedInstallerId !== actor.id) return "Only the installer assigned to this job signs the work as performed.";
+      return working ? null : "The work can be signed as performed while the job is measuring, in review or approved.";
+    case "inspected":
+      if (actor.role !== "inspector") return "Only an inspector signs as inspected.";
+      return working ? null : "The job can be signed as inspected while it is measuring, in review or approved.";
+    case "approved":
+      if (actor.role !== "engineer") return "Only an application engineer approves and issues the report.";
+      return job.status === "approved" ? null : "The report is issued once the job's parameters are approved.";
+    case "accepted":
+    case "rejected":
+      if (actor.role !== "customer" || actor.customerId !== job.customerId) return "Only the customer's own users accept or reject the report.";
+      return job.status === "issued" ? null : "Only an issued report can be accepted or rejected.";
+  }
+}

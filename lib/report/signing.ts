@@ -9,14 +9,24 @@ import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { canonicalJson } from "@/lib/canonical-json";
 
-/** What a signature means (21 CFR 11.50: the meaning is part of every signature). */
-export const SIGNATURE_MEANINGS = ["performed", "inspected", "approved", "accepted", "rejected"] as const;
-export type SignatureMeaning = (typeof SIGNATURE_MEANINGS)[number];
+import type { SignatureMeaningKey } from "@/lib/auth/roles";
 
+/** What a signature means (21 CFR 11.50: the meaning is part of every signature). */
+export type SignatureMeaning = SignatureMeaningKey;
+
+/**
+ * What one signature binds. Signatures given before issue (performed, inspected) bind the job
+ * and a hash of its recorded state; the approval at issue and the customer's acceptance or
+ * rejection bind the issued revision and the SHA-256 of its exact PDF bytes.
+ */
 export interface SignatureManifest {
-  reportId: string;
-  revision: number;
-  pdfSha256: string;
+  jobId: string;
+  jobReference: string;
+  reportId: string | null;
+  revision: number | null;
+  pdfSha256: string | null;
+  /** SHA-256 of the canonical JSON of the job's recorded state at signing (pre-issue signatures). */
+  stateSha256: string | null;
   signer: { id: string; name: string; role: string; email: string };
   meaning: SignatureMeaning;
   /** ISO 8601 in UTC, e.g. 2026-12-02T07:15:00.000Z. */
@@ -85,7 +95,7 @@ export function verifySignedPdf(
   signature: string,
   publicKey: KeyObject,
 ): { ok: true } | { ok: false; reason: string } {
-  if (sha256Hex(pdf) !== m.pdfSha256) return { ok: false, reason: "The file's SHA-256 does not match the signed report: it was altered or is another file." };
+  if (!m.pdfSha256 || sha256Hex(pdf) !== m.pdfSha256) return { ok: false, reason: "The file's SHA-256 does not match the signed report: it was altered or is another file." };
   if (!verifyManifest(m, signature, publicKey)) return { ok: false, reason: "The signature does not verify against the published key." };
   return { ok: true };
 }

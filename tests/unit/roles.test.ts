@@ -1,6 +1,6 @@
 // The role rules of the product brief (roles table and status flow), checked case by case.
 import { describe, expect, it } from "vitest";
-import { allowedTransitions, canReadRegister, canSeeJob, canTransition, jobScope, navigationFor, ROLES, type Actor } from "@/lib/auth/roles";
+import { allowedTransitions, canReadRegister, canSeeJob, canTransition, jobScope, navigationFor, ROLES, signatureRefusal, type Actor } from "@/lib/auth/roles";
 
 const actor = (role: Actor["role"], customerId: string | null = null): Actor => ({ id: "u1", email: "x@y.example", name: "X", role, customerId });
 const jobA = { customerId: "cA", assignedInstallerId: "u1" };
@@ -61,5 +61,29 @@ describe("navigation and registers", () => {
     expect(canReadRegister("engineer", "heads")).toBe(true);
     expect(canReadRegister("engineer", "people")).toBe(false);
     expect(canReadRegister("customer", "heads")).toBe(false);
+  });
+});
+
+describe("who signs what (21 CFR 11.50 meanings)", () => {
+  const job = (status: import("@/lib/auth/roles").JobStatus) => ({ status, customerId: "cA", assignedInstallerId: "u1" });
+  it("the assigned installer signs performed; another installer cannot", () => {
+    expect(signatureRefusal(actor("installer"), "performed", job("measuring"))).toBeNull();
+    expect(signatureRefusal({ ...actor("installer"), id: "u9" }, "performed", job("measuring"))).toMatch(/assigned/);
+  });
+  it("only an inspector signs inspected, and not after issue", () => {
+    expect(signatureRefusal(actor("inspector"), "inspected", job("in_review"))).toBeNull();
+    expect(signatureRefusal(actor("engineer"), "inspected", job("in_review"))).toMatch(/inspector/);
+    expect(signatureRefusal(actor("inspector"), "inspected", job("issued"))).toMatch(/while/);
+  });
+  it("only an engineer approves, and only an approved job", () => {
+    expect(signatureRefusal(actor("engineer"), "approved", job("approved"))).toBeNull();
+    expect(signatureRefusal(actor("engineer"), "approved", job("in_review"))).toMatch(/approved/);
+    expect(signatureRefusal(actor("installer"), "approved", job("approved"))).toMatch(/engineer/);
+  });
+  it("only the job's own customer accepts or rejects an issued report", () => {
+    expect(signatureRefusal(actor("customer", "cA"), "accepted", job("issued"))).toBeNull();
+    expect(signatureRefusal(actor("customer", "cB"), "accepted", job("issued"))).toMatch(/own users/);
+    expect(signatureRefusal(actor("customer", "cA"), "rejected", job("approved"))).toMatch(/issued/);
+    expect(signatureRefusal(actor("admin"), "accepted", job("issued"))).toMatch(/own users/);
   });
 });

@@ -33,6 +33,9 @@ const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-keys-
 const key = loadOrCreateSigningKey(dir);
 const pdf = Buffer.from("%PDF-1.4\n% a stand-in for rendered bytes\n%%EOF\n");
 const manifest: SignatureManifest = {
+  jobId: "7d9e1b2c-1111-4222-8333-444455556666",
+  jobReference: "TR-2026-0041",
+  stateSha256: null,
   reportId: "3f1c9a4e-1111-4222-8333-444455556666",
   revision: 1,
   pdfSha256: sha256Hex(pdf),
@@ -75,6 +78,9 @@ describe("signed report verification", () => {
   it("fails when any manifest field is edited", () => {
     const edits: Array<Partial<SignatureManifest>> = [
       { reportId: "3f1c9a4e-1111-4222-8333-444455556667" },
+      { jobId: "7d9e1b2c-1111-4222-8333-444455556667" },
+      { jobReference: "TR-2026-0042" },
+      { stateSha256: sha256Hex("state") },
       { revision: 2 },
       { pdfSha256: sha256Hex("other") },
       { signer: { ...manifest.signer, name: "Someone Else" } },

@@ -1,0 +1,364 @@
+import "server-only";
+import { and, asc, desc, eq, inArray, isNull, sql } from "drizzle-orm";
+import { db } from "@/db";
+import { appendAudit } from "@/db/queries/audit";
+import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
+import { datasets, jobs, outbox, readings, reports, signatures, templateSteps, users } from "@/db/schema";
+import { verifyPassword } from "@/lib/auth/password";
+import { ROLE_LABELS, SIGNATURE_LABELS, signatureRefusal, type Actor, type SignatureMeaningKey } from "@/lib/auth/roles";
+import { canonicalJson } from "@/lib/canonical-json";
+import { publicUrl } from "@/lib/env";
+import { forbidden, invalid, notFound } from "@/lib/errors";
+import { formatDateTimeUtc, JOB_KIND_LABELS } from "@/lib/format";
+import { getSigningKey } from "@/lib/report/keys";
+import { renderReportPdf } from "@/lib/report/render";
+import { sha256Hex, signManifest, verifyManifest, type SignatureManifest } from "@/lib/report/signing";
+import type { ReportData, ReportSignature } from "@/lib/report/types";
+
+/** Re-entry of the password at signing (21 CFR 11.200): the signer proves it is them, now. */
+async function requirePasswordReentry(actor: Actor, password: string): Promise<void> {
+  const [row] = await db.select({ hash: users.passwordHash }).from(users).where(eq(users.id, actor.id)).limit(1);
+  if (!password || !(await verifyPassword(password, row?.hash))) {
+    throw invalid("Re-enter your password to sign.", [{ field: "password", message: "The password does not match your account." }]);
+  }
+}
+
+async function visibleJob(actor: Actor, jobId: string): Promise<JobDetail> {
+  const d = await getJobDetail(actor, jobId);
+  if (!d) throw notFound("job");
+  return d;
+}
+
+/** A hash of what has been recorded on the job, so a pre-issue signature says what it covered. */
+async function jobStateSha256(jobId: string): Promise<string> {
+  const [job] = await db.select({ status: jobs.status, updatedAt: jobs.updatedAt }).from(jobs).where(eq(jobs.id, jobId));
+  const rs = await db
+    .select({ id: readings.id, value: readings.value, phase: readings.phase, supersededById: readings.supersededById })
+    .from(readings)
+    .where(eq(readings.jobId, jobId))
+    .orderBy(asc(readings.id));
+  const ds = await db.select({ id: datasets.id, sha256: datasets.sha256, status: datasets.status }).from(datasets).where(eq(datasets.jobId, jobId)).orderBy(asc(datasets.id));
+  return sha256Hex(canonicalJson({ job, readings: rs, datasets: ds }));
+}
+
+function manifestFor(
+  actor: Actor,
+  meaning: SignatureMeaningKey,
+  job: { id: string; reference: string },
+  subject: { reportId: string; revision: number; pdfSha256: string } | { stateSha256: string },
+  signedAt: Date,
+): SignatureManifest {
+  const key = getSigningKey();
+  return {
+    jobId: job.id,
+    jobReference: job.reference,
+    reportId: "reportId" in subject ? subject.reportId : null,
+    revision: "revision" in subject ? subject.revision : null,
+    pdfSha256: "pdfSha256" in subject ? subject.pdfSha256 : null,
+    stateSha256: "stateSha256" in subject ? subject.stateSha256 : null,
+    signer: { id: actor.id, name: actor.name, role: actor.role, email: actor.email },
+    meaning,
+    signedAtUtc: signedAt.toISOString(),
+    keyId: key.keyId,
+  };
+}
+
+/** Signs the job's work before issue: performed (assigned installer) or inspected (inspector). */
+export async function signJobWork(actor: Actor, input: { jobId: string; meaning: "performed" | "inspected"; password: string; comment?: string }) {
+  const d = await visibleJob(actor, input.jobId);
+  const refusal = signatureRefusal(actor, input.meaning, d.job);
+  if (refusal) throw forbidden(refusal);
+  await requirePasswordReentry(actor, input.password);
+  const existing = await db
+    .select({ id: signatures.id })
+    .from(signatures)
+    .where(and(eq(signatures.jobId, d.job.id), eq(signatures.meaning, input.meaning), eq(signatures.signerId, actor.id), isNull(signatures.reportId)));
+  if (existing.length > 0) throw invalid(`You have already signed this job as ${SIGNATURE_LABELS[input.meaning].toLowerCase()}.`);
+  const signedAt = new Date();
+  const manifest = manifestFor(actor, input.meaning, d.job, { stateSha256: await jobStateSha256(d.job.id) }, signedAt);
+  const signature = signManifest(manifest, getSigningKey());
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .insert(signatures)
+      .values({ jobId: d.job.id, meaning: input.meaning, signerId: actor.id, signerName: actor.name, signerRole: actor.role, signedAt, comment: input.comment ?? null, manifest, signature, keyId: manifest.keyId })
+      .returning();
+    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: `signature.${input.meaning}`, entityType: "signature", entityId: row!.id, jobId: d.job.id, newValues: { meaning: input.meaning, signedAtUtc: manifest.signedAtUtc } });
+    return row!;
+  });
+}
+
+function signatureLine(s: { signerName: string; signerRole: string; meaning: SignatureMeaningKey; signedAt: Date }): ReportSignature {
+  return { name: s.signerName, role: ROLE_LABELS[s.signerRole as keyof typeof ROLE_LABELS] ?? s.signerRole, meaning: SIGNATURE_LABELS[s.meaning], signedAtUtc: formatDateTimeUtc(s.signedAt) };
+}
+
+function formatLimit(lower: number | null, upper: number | null, unit: string): string {
+  if (lower != null && upper != null) return lower === -upper ? `± ${upper} ${unit}` : `${lower} to ${upper} ${unit}`;
+  if (upper != null) return `≤ ${upper} ${unit}`;
+  if (lower != null) return `≥ ${lower} ${unit}`;
+  return "—";
+}
+
+/** The checklist readings for the report: the latest reading of each step and phase. */
+async function reportReadings(jobId: string): Promise<ReportData["readings"]> {
+  const rows = await db
+    .select({ stepId: readings.stepId, phase: readings.phase, value: readings.value, title: templateSteps.title, position: templateSteps.position, kind: templateSteps.quantityKind, lower: templateSteps.lowerLimit, upper: templateSteps.upperLimit, source: templateSteps.limitSource })
+    .from(readings)
+    .innerJoin(templateSteps, eq(templateSteps.id, readings.stepId))
+    .where(and(eq(readings.jobId, jobId), isNull(readings.supersededById)))
+    .orderBy(asc(templateSteps.position), desc(readings.takenAt));
+  const bySteps = new Map<string, { title: string; kind: string; lower: number | null; upper: number | null; source: string; pre?: number; post?: number }>();
+  for (const r of rows) {
+    const e = bySteps.get(r.stepId) ?? { title: r.title, kind: r.kind, lower: r.lower, upper: r.upper, source: r.source };
+    if (r.phase === "pre" && e.pre === undefined) e.pre = r.value;
+    if (r.phase === "post" && e.post === undefined) e.post = r.value;
+    bySteps.set(r.stepId, e);
+  }
+  return [...bySteps.values()].map((e) => {
+    const unit = e.kind === "angle" ? "″" : "mm";
+    const fmt = (v: number | undefined) => (v === undefined ? undefined : e.kind === "angle" ? `${v.toFixed(1)}″` : `${v.toFixed(4)} mm`);
+    const final = e.post ?? e.pre;
+    const within = final !== undefined && (e.lower == null || final >= e.lower) && (e.upper == null || final <= e.upper);
+    return {
+      step: e.title,
+      limits: formatLimit(e.lower, e.upper, unit),
+      pre: fmt(e.pre),
+      post: fmt(e.post),
+      change: e.pre !== undefined && e.post !== undefined ? fmt(e.post - e.pre) : undefined,
+      decision: final === undefined ? ("not_measured" as const) : within ? ("pass" as const) : ("fail" as const),
+      source: e.source.replace("_", " "),
+    };
+  });
+}
+
+/** Assembles everything the report shows from the database. */
+export async function buildReportData(d: JobDetail, meta: { reportId: string; revision: number; issuedAt: Date; approval: ReportSignature; amendment?: ReportData["amendment"] }): Promise<ReportData> {
+  const sigs = await db.select().from(signatures).where(and(eq(signatures.jobId, d.job.id), isNull(signatures.reportId))).orderBy(asc(signatures.signedAt));
+  const data: Omit<ReportData, "contentSha256"> = {
+    reportId: meta.reportId,
+    reference: d.job.reference,
+    revision: meta.revision,
+    ...(meta.amendment ? { amendment: meta.amendment } : {}),
+    issuedAtUtc: formatDateTimeUtc(meta.issuedAt),
+    issuer: { name: "Halvard Field Service" },
+    customer: { name: d.customer.name, site: d.site.name, ...(d.site.address ? { address: d.site.address } : {}) },
+    machine: { name: d.machine.name, kind: d.machine.kind, builderModel: [d.machine.builder, d.machine.model].filter(Boolean).join(" ") || undefined, serial: d.machine.serial ?? undefined, control: d.machine.control ?? undefined },
+    head: { serial: d.head.serial, makerModel: [d.head.maker, d.head.model].filter(Boolean).join(" ") || undefined, axes: `${d.head.primaryAxis} primary / ${d.head.secondaryAxis} secondary`, nominalPivotLength: `${d.head.nominalPivotLengthMm.toFixed(3)} mm`, mass: d.head.massKg ? `${d.head.massKg} kg` : undefined },
+    work: {
+      kind: JOB_KIND_LABELS[d.job.kind],
+      title: d.job.title,
+      dates: d.job.scheduledFor ? `from ${formatDateTimeUtc(d.job.scheduledFor)}` : "as recorded in the activity log",
+      airTemperature: d.job.airTempC != null ? `${d.job.airTempC.toFixed(1)} °C air temperature as entered` : undefined,
+      procedure: "Two-axis head checklist as recorded in Trammel",
+      method: "Indicator readings against the checklist limits; kinematic fit from sphere-probe data (geometry model stated in the product documentation)",
+      decisionRule: d.job.decisionRule === "guarded" ? "Guarded acceptance per ISO 14253-1 (limits shrunk by U for pass, grown by U for fail)" : "Simple acceptance: the expanded uncertainty is stated, not subtracted",
+    },
+    instruments: [],
+    readings: await reportReadings(d.job.id),
+    parameters: [],
+    testPart: [],
+    figures: [],
+    remarks: d.job.notes ? [d.job.notes] : [],
+    safety: [
+      "Lift the head only with rated gear at its lifting points; keep hands clear of pinch points between head, collar and spindle nose.",
+      "Lock out the machine before working on the spindle; keep clear of the head's sweep when axes move.",
+      "The machine builder's and head maker's manuals, local codes and licensed practice take precedence over this report.",
+    ],
+    signatures: [...sigs.map(signatureLine), meta.approval],
+    verifyUrl: `${publicUrl}/verify/${meta.reportId}`,
+  };
+  return { ...data, contentSha256: sha256Hex(canonicalJson(data)) };
+}
+
+export interface IssueOptions {
+  /** Test hook: called after the PDF is rendered and before anything is stored. */
+  afterRender?: () => void | Promise<void>;
+}
+
+/**
+ * Issues the job's report: the engineer re-enters the password; the PDF is rendered once; then
+ * in one transaction the report row (bytes and hash), the approval signature over those bytes,
+ * the job's status, the audit event and the customers' e-mails are committed — or nothing is.
+ * With `amendment`, issues a new revision that supersedes the current one.
+ */
+export async function issueReport(actor: Actor, input: { jobId: string; password: string; amendmentReason?: string }, options: IssueOptions = {}) {
+  const d = await visibleJob(actor, input.jobId);
+  const current = await currentReportRow(d.job.id);
+  const amending = Boolean(current);
+  if (amending) {
+    if (actor.role !== "engineer") throw forbidden("Only an application engineer issues an amendment.");
+    if (!input.amendmentReason?.trim()) throw invalid("Say what the amendment corrects.", [{ field: "amendmentReason", message: "Required for a new revision." }]);
+    if (d.job.status !== "issued" && d.job.status !== "rejected") throw forbidden("An amendment follows an issued or rejected report.");
+  } else {
+    const refusal = signatureRefusal(actor, "approved", d.job);
+    if (refusal) throw forbidden(refusal);
+  }
+  await requirePasswordReentry(actor, input.password);
+
+  const reportId = crypto.randomUUID();
+  const revision = (current?.revision ?? 0) + 1;
+  const issuedAt = new Date();
+  const approval = signatureLine({ signerName: actor.name, signerRole: actor.role, meaning: "approved", signedAt: issuedAt });
+  const content = await buildReportData(d, {
+    reportId,
+    revision,
+    issuedAt,
+    approval,
+    ...(current ? { amendment: { supersedesRevision: current.revision, reason: input.amendmentReason!.trim() } } : {}),
+  });
+  const pdf = await renderReportPdf(content);
+  const pdfSha256 = sha256Hex(pdf);
+  const manifest = manifestFor(actor, "approved", d.job, { reportId, revision, pdfSha256 }, issuedAt);
+  const signature = signManifest(manifest, getSigningKey());
+  await options.afterRender?.();
+
+  const customerUsers = await db.select({ id: users.id, email: users.email, name: users.name }).from(users).where(and(eq(users.customerId, d.job.customerId), eq(users.disabled, false)));
+  return db.transaction(async (tx) => {
+    // Lock the job so two engineers cannot issue the same revision.
+    const [locked] = await tx.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, d.job.id)).for("update");
+    if (!locked || locked.status !== d.job.status) throw invalid("The job changed while the report was prepared; open it again.");
+    await tx.insert(reports).values({ id: reportId, jobId: d.job.id, revision, supersedesId: current?.id ?? null, amendmentReason: input.amendmentReason?.trim() || null, pdf, pdfSha256, contentSha256: content.contentSha256, content, issuedAt, issuedById: actor.id });
+    await tx.insert(signatures).values({ jobId: d.job.id, reportId, meaning: "approved", signerId: actor.id, signerName: actor.name, signerRole: actor.role, signedAt: issuedAt, manifest, signature, keyId: manifest.keyId });
+    await tx.update(jobs).set({ status: "issued" }).where(eq(jobs.id, d.job.id));
+    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: amending ? "report.amended" : "report.issued", entityType: "report", entityId: reportId, jobId: d.job.id, oldValues: { status: d.job.status, revision: current?.revision ?? null }, newValues: { status: "issued", revision, pdfSha256 } });
+    for (const u of customerUsers) {
+      await tx.insert(outbox).values({
+        dedupeKey: `report-issued:${reportId}:${u.id}`,
+        toAddress: u.email,
+        subject: `Acceptance report ${d.job.reference} revision ${revision} is ready for you`,
+        textBody: `Hello ${u.name},\n\nThe acceptance report for ${d.job.title} (${d.job.reference}, revision ${revision}) has been issued.\nRead it, download the signed PDF and accept or reject it here:\n${publicUrl}/jobs/${d.job.id}/report\n\nAnyone holding the PDF can check it at ${publicUrl}/verify/${reportId}.\n`,
+        jobId: d.job.id,
+      });
+    }
+    return { reportId, revision, pdfSha256 };
+  });
+}
+
+async function currentReportRow(jobId: string) {
+  const rows = await db.select({ id: reports.id, revision: reports.revision }).from(reports).where(eq(reports.jobId, jobId)).orderBy(desc(reports.revision)).limit(1);
+  return rows[0] ?? null;
+}
+
+/** The customer's counter-signature: accept, or reject with a required comment. */
+export async function respondToReport(actor: Actor, input: { reportId: string; decision: "accepted" | "rejected"; password: string; comment?: string }) {
+  const report = await getReportMeta(actor, input.reportId);
+  if (!report) throw notFound("report");
+  const d = await visibleJob(actor, report.jobId);
+  const refusal = signatureRefusal(actor, input.decision, d.job);
+  if (refusal) throw forbidden(refusal);
+  if (report.supersededById) throw forbidden("A newer revision supersedes this report; respond to that one.");
+  const comment = input.comment?.trim() ?? "";
+  if (input.decision === "rejected" && !comment) throw invalid("Say why the report is rejected.", [{ field: "comment", message: "A comment is required to reject." }]);
+  await requirePasswordReentry(actor, input.password);
+  const signedAt = new Date();
+  const manifest = manifestFor(actor, input.decision, d.job, { reportId: report.id, revision: report.revision, pdfSha256: report.pdfSha256 }, signedAt);
+  const signature = signManifest(manifest, getSigningKey());
+  const engineers = await db.select({ id: users.id, email: users.email }).from(users).where(and(eq(users.role, "engineer"), eq(users.disabled, false)));
+  return db.transaction(async (tx) => {
+    const [locked] = await tx.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, d.job.id)).for("update");
+    if (locked?.status !== "issued") throw invalid("This report has already been answered.");
+    const [row] = await tx.insert(signatures).values({ jobId: d.job.id, reportId: report.id, meaning: input.decision, signerId: actor.id, signerName: actor.name, signerRole: actor.role, signedAt, comment: comment || null, manifest, signature, keyId: manifest.keyId }).returning();
+    await tx.update(jobs).set({ status: input.decision }).where(eq(jobs.id, d.job.id));
+    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: `report.${input.decision}`, entityType: "report", entityId: report.id, jobId: d.job.id, oldValues: { status: "issued" }, newValues: { status: input.decision, comment: comment || null } });
+    for (const e of engineers) {
+      await tx.insert(outbox).values({
+        dedupeKey: `report-${input.decision}:${report.id}:${e.id}`,
+        toAddress: e.email,
+        subject: `${d.customer.name} ${input.decision} report ${d.job.reference} revision ${report.revision}`,
+        textBody: `${actor.name} (${d.customer.name}) ${input.decision} the acceptance report ${d.job.reference} revision ${report.revision} at ${formatDateTimeUtc(signedAt)}.${comment ? `\n\nComment: ${comment}` : ""}\n\n${publicUrl}/jobs/${d.job.id}/report\n`,
+        jobId: d.job.id,
+      });
+    }
+    return row!;
+  });
+}
+
+/** Report metadata for a user who may see its job; null otherwise (including another tenant's). */
+export async function getReportMeta(actor: Actor, reportId: string) {
+  if (!/^[0-9a-f-]{36}$/i.test(reportId)) return null;
+  const [r] = await db
+    .select({ id: reports.id, jobId: reports.jobId, revision: reports.revision, pdfSha256: reports.pdfSha256, contentSha256: reports.contentSha256, issuedAt: reports.issuedAt, supersedesId: reports.supersedesId, amendmentReason: reports.amendmentReason })
+    .from(reports)
+    .where(eq(reports.id, reportId));
+  if (!r) return null;
+  if (!(await getJobDetail(actor, r.jobId))) return null;
+  const [newer] = await db.select({ id: reports.id }).from(reports).where(eq(reports.supersedesId, r.id));
+  return { ...r, supersededById: newer?.id ?? null };
+}
+
+export async function getReportContent(actor: Actor, reportId: string): Promise<ReportData | null> {
+  const meta = await getReportMeta(actor, reportId);
+  if (!meta) return null;
+  const [r] = await db.select({ content: reports.content }).from(reports).where(eq(reports.id, reportId));
+  return r ? (r.content as ReportData) : null;
+}
+
+/** The stored PDF bytes, exactly as issued and signed. */
+export async function getReportPdf(actor: Actor, reportId: string): Promise<{ pdf: Buffer; reference: string; revision: number } | null> {
+  const meta = await getReportMeta(actor, reportId);
+  if (!meta) return null;
+  const [r] = await db.select({ pdf: reports.pdf, reference: jobs.reference, revision: reports.revision }).from(reports).innerJoin(jobs, eq(jobs.id, reports.jobId)).where(eq(reports.id, reportId));
+  return r ?? null;
+}
+
+export async function listJobReports(actor: Actor, jobId: string) {
+  const d = await getJobDetail(actor, jobId);
+  if (!d) return null;
+  return db.select({ id: reports.id, revision: reports.revision, issuedAt: reports.issuedAt, pdfSha256: reports.pdfSha256, supersedesId: reports.supersedesId, amendmentReason: reports.amendmentReason }).from(reports).where(eq(reports.jobId, jobId)).orderBy(desc(reports.revision));
+}
+
+export async function listJobSignatures(actor: Actor, jobId: string) {
+  const d = await getJobDetail(actor, jobId);
+  if (!d) return null;
+  return db.select({ id: signatures.id, reportId: signatures.reportId, meaning: signatures.meaning, signerName: signatures.signerName, signerRole: signatures.signerRole, signedAt: signatures.signedAt, comment: signatures.comment }).from(signatures).where(eq(signatures.jobId, jobId)).orderBy(asc(signatures.signedAt));
+}
+
+export interface VerificationResult {
+  authentic: boolean;
+  reason?: string;
+  report?: { id: string; reference: string; revision: number; issuedAtUtc: string; pdfSha256: string; supersededBy: { id: string; revision: number } | null; amendmentOf: { id: string; revision: number } | null };
+  signatures?: Array<{ meaning: string; name: string; role: string; signedAtUtc: string; valid: boolean; comment: string | null }>;
+  keyId?: string;
+}
+
+/**
+ * Public verification of an issued revision, from the stored bytes (never a re-render): the
+ * stored PDF must still hash to the recorded SHA-256, and every signature over it, and every
+ * signature given before issue, must verify with the published key.
+ */
+export async function verifyReport(reportId: string, exec: Pick<typeof db, "select"> = db): Promise<VerificationResult> {
+  if (!/^[0-9a-f-]{36}$/i.test(reportId)) return { authentic: false, reason: "There is no report with this id." };
+  const [r] = await exec.select({ id: reports.id, jobId: reports.jobId, revision: reports.revision, pdf: reports.pdf, pdfSha256: reports.pdfSha256, issuedAt: reports.issuedAt, supersedesId: reports.supersedesId, reference: jobs.reference }).from(reports).innerJoin(jobs, eq(jobs.id, reports.jobId)).where(eq(reports.id, reportId));
+  if (!r) return { authentic: false, reason: "There is no report with this id." };
+  const key = getSigningKey();
+  const sigs = await exec.select().from(signatures).where(and(eq(signatures.jobId, r.jobId), sql`(${signatures.reportId} = ${r.id} or (${signatures.reportId} is null and ${signatures.signedAt} <= ${r.issuedAt}))`)).orderBy(asc(signatures.signedAt));
+  const checked = sigs.map((s) => {
+    const m = s.manifest as SignatureManifest;
+    const bindsThis = s.reportId ? m.reportId === r.id && m.pdfSha256 === r.pdfSha256 && m.revision === r.revision : m.jobId === r.jobId && m.reportId === null;
+    const consistent = m.meaning === s.meaning && m.signer.id === s.signerId && m.signedAtUtc === s.signedAt.toISOString();
+    return { meaning: SIGNATURE_LABELS[s.meaning], name: s.signerName, role: ROLE_LABELS[s.signerRole], signedAtUtc: formatDateTimeUtc(s.signedAt), valid: bindsThis && consistent && verifyManifest(m, s.signature, key.publicKey), comment: s.comment };
+  });
+  const [newer] = await exec.select({ id: reports.id, revision: reports.revision }).from(reports).where(eq(reports.supersedesId, r.id));
+  const [older] = r.supersedesId ? await exec.select({ id: reports.id, revision: reports.revision }).from(reports).where(eq(reports.id, r.supersedesId)) : [];
+  const bytesIntact = sha256Hex(r.pdf) === r.pdfSha256;
+  const allValid = checked.length > 0 && checked.every((c) => c.valid) && checked.some((c) => c.meaning === SIGNATURE_LABELS.approved);
+  return {
+    authentic: bytesIntact && allValid,
+    ...(bytesIntact ? (allValid ? {} : { reason: "A signature on this report does not verify." }) : { reason: "The stored file no longer matches its recorded SHA-256." }),
+    report: { id: r.id, reference: r.reference, revision: r.revision, issuedAtUtc: formatDateTimeUtc(r.issuedAt), pdfSha256: r.pdfSha256, supersededBy: newer ?? null, amendmentOf: older ?? null },
+    signatures: checked,
+    keyId: key.keyId,
+  };
+}
+
+/** Verification of a PDF someone holds: its bytes must be exactly those of an issued revision. */
+export async function verifyPdfFile(bytes: Uint8Array): Promise<VerificationResult> {
+  const hash = sha256Hex(bytes);
+  const [r] = await db.select({ id: reports.id }).from(reports).where(eq(reports.pdfSha256, hash));
+  if (!r) return { authentic: false, reason: "This file is not, byte for byte, a report issued by this service: it was altered, or it is another file." };
+  return verifyReport(r.id);
+}
+
+export async function reportIdsForJobs(jobIds: string[]) {
+  if (jobIds.length === 0) return [];
+  return db.select({ id: reports.id, jobId: reports.jobId, revision: reports.revision }).from(reports).where(inArray(reports.jobId, jobIds));
+}
