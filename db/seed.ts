@@ -8,6 +8,7 @@ import { db, pool } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { customers, heads, jobs, machines, sites, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
+import { seedReports } from "./seed-reports";
 import type { Role } from "@/lib/auth/roles";
 
 export const DEMO_PASSWORD = "trammel-demo";
@@ -142,6 +143,8 @@ export async function seed(): Promise<void> {
       });
     });
   }
+  // Last: the issued report renders whatever the steps above recorded.
+  await seedReports(DEMO_PASSWORD);
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

@@ -7,7 +7,10 @@ import { usePathname } from "next/navigation";
  * The sections of a job. Each entry is a route under /jobs/{id}; add one here when its page
  * exists (never link to a page that is not built).
  */
-export const JOB_TABS: ReadonlyArray<{ segment: string; label: string }> = [{ segment: "", label: "Overview" }];
+export const JOB_TABS: ReadonlyArray<{ segment: string; label: string }> = [
+  { segment: "", label: "Overview" },
+  { segment: "report", label: "Report" },
+];
 
 export function JobTabs({ jobId }: { jobId: string }) {
   const path = usePathname();

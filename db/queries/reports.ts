@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, inArray, isNull, sql } from "drizzle-orm";
+import { and, asc, desc, eq, isNull, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
@@ -309,7 +309,7 @@ export async function listJobReports(actor: Actor, jobId: string) {
 export async function listJobSignatures(actor: Actor, jobId: string) {
   const d = await getJobDetail(actor, jobId);
   if (!d) return null;
-  return db.select({ id: signatures.id, reportId: signatures.reportId, meaning: signatures.meaning, signerName: signatures.signerName, signerRole: signatures.signerRole, signedAt: signatures.signedAt, comment: signatures.comment }).from(signatures).where(eq(signatures.jobId, jobId)).orderBy(asc(signatures.signedAt));
+  return db.select({ id: signatures.id, reportId: signatures.reportId, meaning: signatures.meaning, signerId: signatures.signerId, signerName: signatures.signerName, signerRole: signatures.signerRole, signedAt: signatures.signedAt, comment: signatures.comment }).from(signatures).where(eq(signatures.jobId, jobId)).orderBy(asc(signatures.signedAt));
 }
 
 export interface VerificationResult {
@@ -358,7 +358,3 @@ export async function verifyPdfFile(bytes: Uint8Array): Promise<VerificationResu
   return verifyReport(r.id);
 }
 
-export async function reportIdsForJobs(jobIds: string[]) {
-  if (jobIds.length === 0) return [];
-  return db.select({ id: reports.id, jobId: reports.jobId, revision: reports.revision }).from(reports).where(inArray(reports.jobId, jobIds));
-}

@@ -21,7 +21,18 @@ const WHO: Record<string, { email: string | null; sees: string[] | "401" }> = {
 };
 
 /** The routes this matrix covers; a route file not listed here fails the last test. */
-const COVERED = new Set(["app/api/health/route.ts", "app/api/jobs/route.ts", "app/api/jobs/[id]/route.ts", "app/api/auth/[...nextauth]/route.ts"]);
+const COVERED = new Set([
+  "app/api/health/route.ts",
+  "app/api/jobs/route.ts",
+  "app/api/jobs/[id]/route.ts",
+  "app/api/auth/[...nextauth]/route.ts",
+  // tests/integration/reports-access.test.ts
+  "app/api/reports/[id]/route.ts",
+  "app/api/reports/[id]/pdf/route.ts",
+  "app/api/verify/route.ts",
+  "app/api/verify/[reportId]/route.ts",
+  "app/api/report-key/route.ts",
+]);
 
 describe("API access matrix", () => {
   for (const [who, { email, sees }] of Object.entries(WHO)) {
@@ -42,8 +53,11 @@ describe("API access matrix", () => {
           return;
         }
         expect(res.status).toBe(200);
-        const body = (await res.json()) as { jobs: { reference: string }[] };
-        expect(body.jobs.map((j) => j.reference).sort()).toEqual([...sees].sort());
+        const body = (await res.json()) as { jobs: { reference: string; customerName: string }[] };
+        // Other test files add jobs of their own; the seeded ones must be exactly these.
+        expect(body.jobs.map((j) => j.reference).filter((r) => ALL.includes(r)).sort()).toEqual([...sees].sort());
+        if (email?.endsWith("marlowcreek.example")) expect(new Set(body.jobs.map((j) => j.customerName))).toEqual(new Set(["Marlow Creek Aerostructures"]));
+        if (email?.endsWith("tollan.example")) expect(new Set(body.jobs.map((j) => j.customerName))).toEqual(new Set(["Tollan Mold Works"]));
       });
 
       for (const ref of ALL) {

@@ -1,0 +1,101 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { ReportView } from "@/components/report/report-view";
+import { SignForm } from "@/components/report/sign-form";
+import { Card } from "@/components/ui/card";
+import { getJobDetail } from "@/db/queries/jobs";
+import { getReportContent, listJobReports, listJobSignatures } from "@/db/queries/reports";
+import { ROLE_LABELS, SIGNATURE_LABELS, signatureRefusal } from "@/lib/auth/roles";
+import { requirePageUser } from "@/lib/auth/session";
+import { formatDateTimeUtc } from "@/lib/format";
+import { issueReportAction, respondAction, signWorkAction } from "./actions";
+
+export const metadata: Metadata = { title: "Report" };
+type Props = { params: Promise<{ id: string }> };
+
+export default async function ReportPage({ params }: Props) {
+  const { id } = await params;
+  const user = await requirePageUser(`/jobs/${id}/report`);
+  const d = await getJobDetail(user, id);
+  if (!d) notFound();
+  const [revisions, sigs] = await Promise.all([listJobReports(user, id), listJobSignatures(user, id)]);
+  const current = revisions?.[0] ?? null;
+  const content = current ? await getReportContent(user, current.id) : null;
+  const mayIssue = !current && !signatureRefusal(user, "approved", d.job);
+  const mayAmend = Boolean(current) && user.role === "engineer" && (d.job.status === "issued" || d.job.status === "rejected");
+  const mayRespond = current && !signatureRefusal(user, "accepted", d.job);
+  const work = (["performed", "inspected"] as const).filter((m) => !signatureRefusal(user, m, d.job) && !sigs?.some((s) => s.meaning === m && s.reportId === null && s.signerId === user.id));
+
+  return (
+    <div className="grid gap-6 xl:grid-cols-[1fr_22rem]">
+      <div className="space-y-4">
+        {content ? (
+          <>
+            <div className="flex flex-wrap items-center justify-between gap-3">
+              <p className="text-sm text-graphite-600">
+                Revision {current!.revision}, issued {formatDateTimeUtc(current!.issuedAt)} · SHA-256 <span className="num">{current!.pdfSha256.slice(0, 16)}…</span>
+              </p>
+              <div className="flex gap-2">
+                <a href={`/api/reports/${current!.id}/pdf`} className="inline-flex min-h-touch items-center rounded-lg bg-graphite-800 px-4 font-semibold text-white hover:bg-graphite-900">
+                  Download signed PDF
+                </a>
+                <a href={`/verify/${current!.id}`} className="inline-flex min-h-touch items-center rounded-lg border border-graphite-300 bg-white px-4 font-semibold">
+                  Verification page
+                </a>
+              </div>
+            </div>
+            <ReportView data={content} />
+          </>
+        ) : (
+          <Card title="No report issued yet">
+            <p className="text-sm text-graphite-600">
+              The report is rendered and signed once, when the application engineer issues it after approving the head&apos;s parameters. Until then the work is signed here as performed and inspected.
+            </p>
+          </Card>
+        )}
+      </div>
+      <aside className="space-y-4" aria-label="Signatures">
+        <Card title="Signatures">
+          {sigs && sigs.length ? (
+            <ul className="space-y-3 text-sm">
+              {sigs.map((s) => (
+                <li key={s.id} className="border-l-4 border-accent-500 pl-3">
+                  <p className="font-semibold">{SIGNATURE_LABELS[s.meaning]}</p>
+                  <p>
+                    {s.signerName} — {ROLE_LABELS[s.signerRole]}
+                  </p>
+                  <p className="num text-graphite-600">{formatDateTimeUtc(s.signedAt)}</p>
+                  {s.comment ? <p className="text-graphite-700">“{s.comment}”</p> : null}
+                </li>
+              ))}
+            </ul>
+          ) : (
+            <p className="text-sm text-graphite-600">No signatures yet.</p>
+          )}
+        </Card>
+        {work.map((m) => (
+          <SignForm
+            key={m}
+            title={`Sign as ${SIGNATURE_LABELS[m].toLowerCase()}`}
+            meaning={m === "performed" ? "You confirm you carried out the recorded work and readings on this machine and head." : "You confirm you inspected the recorded readings and measurements and they are complete."}
+            submitLabel="Sign"
+            hidden={{ jobId: d.job.id, meaning: m }}
+            run={signWorkAction}
+          />
+        ))}
+        {mayIssue ? (
+          <SignForm title="Approve and issue the report" meaning="You approve the results and issue the report to the customer. The PDF is rendered once and its SHA-256 is signed; it can never change afterwards." submitLabel="Approve and issue" hidden={{ jobId: d.job.id }} run={issueReportAction} />
+        ) : null}
+        {mayAmend ? (
+          <SignForm title="Issue an amendment" meaning="A new revision that supersedes the current one; the earlier revision stays on record, marked as superseded." submitLabel="Issue amendment" hidden={{ jobId: d.job.id }} withComment="amendmentReason" commentLabel="What the amendment corrects" commentRequired run={issueReportAction} />
+        ) : null}
+        {mayRespond ? (
+          <>
+            <SignForm title="Accept the report" meaning="Your counter-signature: you accept the head as reported." submitLabel="Accept" hidden={{ jobId: d.job.id, reportId: current!.id, decision: "accepted" }} run={respondAction} />
+            <SignForm title="Reject the report" meaning="Say what is wrong; the application engineer is told and can issue an amendment." submitLabel="Reject" tone="danger" hidden={{ jobId: d.job.id, reportId: current!.id, decision: "rejected" }} withComment="comment" commentLabel="Why you reject it" commentRequired run={respondAction} />
+          </>
+        ) : null}
+      </aside>
+    </div>
+  );
+}

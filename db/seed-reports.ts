@@ -1,0 +1,34 @@
+/**
+ * Demo data: the issued acceptance report of the invented installation job TR-2026-0041, signed
+ * as performed and inspected, then approved and issued through the same code path as the app.
+ */
+import { and, eq } from "drizzle-orm";
+import { db } from "@/db";
+import { issueReport, signJobWork } from "@/db/queries/reports";
+import { getActor } from "@/db/queries/users";
+import { jobs, reports, signatures, users } from "@/db/schema";
+
+async function actorByEmail(email: string) {
+  const [u] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
+  const actor = u ? await getActor(u.id) : null;
+  if (!actor) throw new Error(`seed: no user ${email}`);
+  return actor;
+}
+
+export async function seedReports(password: string): Promise<void> {
+  const [job] = await db.select().from(jobs).where(eq(jobs.reference, "TR-2026-0041"));
+  if (!job) return;
+  const existing = await db.select({ id: reports.id }).from(reports).where(eq(reports.jobId, job.id));
+  if (existing.length > 0) return;
+  const installer = await actorByEmail("installer@halvard.example");
+  const inspector = await actorByEmail("inspector@halvard.example");
+  const engineer = await actorByEmail("engineer@halvard.example");
+  // The job walks the real flow: measuring while the work is signed, approved, then issued.
+  await db.update(jobs).set({ status: "measuring" }).where(eq(jobs.id, job.id));
+  for (const [actor, meaning] of [[installer, "performed"], [inspector, "inspected"]] as const) {
+    const done = await db.select({ id: signatures.id }).from(signatures).where(and(eq(signatures.jobId, job.id), eq(signatures.meaning, meaning)));
+    if (done.length === 0) await signJobWork(actor, { jobId: job.id, meaning, password });
+  }
+  await db.update(jobs).set({ status: "approved" }).where(eq(jobs.id, job.id));
+  await issueReport(engineer, { jobId: job.id, password });
+}
