@@ -143,6 +143,7 @@ export async function seed(): Promise<void> {
       });
     });
   }
+  await (await import("./seed-checklists")).seedChecklists();
   // Last: the issued report renders whatever the steps above recorded.
   await seedReports(DEMO_PASSWORD);
 }

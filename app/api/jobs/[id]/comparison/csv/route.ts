@@ -1,0 +1,22 @@
+import { getComparison } from "@/db/queries/readings";
+import { requireUser } from "@/lib/auth/session";
+import { toCsv } from "@/lib/csv-export";
+import { notFound } from "@/lib/errors";
+import { route } from "@/lib/http";
+
+type Ctx = { params: Promise<{ id: string }> };
+
+/** The comparison as CSV for spreadsheets; every text cell is neutralised against formula injection. */
+export const GET = route<Ctx>(async (_req, ctx) => {
+  const { id } = await ctx.params;
+  const actor = await requireUser();
+  const c = await getComparison(actor, id);
+  if (!c) throw notFound("job");
+  const csv = toCsv(
+    ["step", "title", "quantity", "unit", "lower_limit", "upper_limit", "limit_source", "decision_rule", "pre", "pre_decision", "post", "post_decision", "change", "status"],
+    c.rows.map((r) => [r.position, r.title, r.quantity, r.unit, r.lowerLimit, r.upperLimit, r.limitSource, r.decisionRule, r.pre?.value, r.pre?.decision, r.post?.value, r.post?.decision, r.change, r.status]),
+  );
+  return new Response(csv, {
+    headers: { "Content-Type": "text/csv; charset=utf-8", "Content-Disposition": `attachment; filename="${c.detail.job.reference}-comparison.csv"` },
+  });
+});

@@ -1,0 +1,26 @@
+import { listReadingsJson, recordReading } from "@/db/queries/readings";
+import { requireUser } from "@/lib/auth/session";
+import { invalid } from "@/lib/errors";
+import { route } from "@/lib/http";
+import { readingCreateSchema } from "@/lib/validations/readings";
+
+type Ctx = { params: Promise<{ id: string }> };
+
+/** Every checklist reading of the job (canonical values: mm or arcsec, unit named beside each). */
+export const GET = route<Ctx>(async (_req, ctx) => {
+  const { id } = await ctx.params;
+  const actor = await requireUser();
+  return Response.json(await listReadingsJson(actor, id));
+});
+
+/** Records a reading, or a correction when `supersedesId` is given (the old reading is kept). */
+export const POST = route<Ctx>(async (req, ctx) => {
+  const { id } = await ctx.params;
+  const actor = await requireUser();
+  const body = await req.json().catch(() => {
+    throw invalid("The body must be JSON.");
+  });
+  const input = readingCreateSchema.parse(body);
+  const reading = await recordReading(actor, id, input);
+  return Response.json({ reading }, { status: 201 });
+});

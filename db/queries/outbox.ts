@@ -1,0 +1,77 @@
+import "server-only";
+import { and, desc, eq, inArray, lte, sql } from "drizzle-orm";
+import type { NodePgDatabase } from "drizzle-orm/node-postgres";
+import { db } from "@/db";
+import { outbox } from "@/db/schema";
+import type * as schema from "@/db/schema";
+import type { Actor } from "@/lib/auth/roles";
+import { forbidden } from "@/lib/errors";
+
+type Executor = NodePgDatabase<typeof schema>;
+
+export interface MailInput {
+  dedupeKey: string;
+  to: string;
+  subject: string;
+  text: string;
+  jobId?: string | null;
+}
+
+/** Queues an e-mail in the caller's transaction; the same dedupe key never queues twice. */
+export async function enqueueMail(tx: Executor, m: MailInput): Promise<void> {
+  await tx
+    .insert(outbox)
+    .values({ dedupeKey: m.dedupeKey, toAddress: m.to, subject: m.subject, textBody: m.text, jobId: m.jobId ?? null })
+    .onConflictDoNothing({ target: outbox.dedupeKey });
+}
+
+/** How long a claimed row stays invisible to other workers while it is being sent. */
+export const CLAIM_LEASE_MS = 5 * 60_000;
+export const MAX_ATTEMPTS = 6;
+/** Backoff after the n-th failed attempt: 30 s · 2^(n−1), at most one hour. */
+export function retryDelayMs(attempts: number): number {
+  return Math.min(30_000 * 2 ** Math.max(0, attempts - 1), 3_600_000);
+}
+
+/**
+ * Claims up to `limit` due rows for one worker. `FOR UPDATE SKIP LOCKED` makes concurrent
+ * workers take disjoint rows; the claim moves next_attempt_at past a lease and counts the
+ * attempt, in the same statement, so a row is handed out once until the lease runs out
+ * (which only happens if the worker died mid-send).
+ */
+export async function claimDueMessages(limit: number, now = new Date()) {
+  return db.transaction(async (tx) => {
+    const due = await tx
+      .select({ id: outbox.id })
+      .from(outbox)
+      .where(and(eq(outbox.status, "pending"), lte(outbox.nextAttemptAt, now)))
+      .orderBy(outbox.nextAttemptAt)
+      .limit(limit)
+      .for("update", { skipLocked: true });
+    if (due.length === 0) return [];
+    return tx
+      .update(outbox)
+      .set({ attempts: sql`${outbox.attempts} + 1`, nextAttemptAt: new Date(now.getTime() + CLAIM_LEASE_MS) })
+      .where(inArray(outbox.id, due.map((d) => d.id)))
+      .returning();
+  });
+}
+
+export async function markSent(id: string): Promise<void> {
+  await db.update(outbox).set({ status: "sent", sentAt: new Date(), lastError: null }).where(eq(outbox.id, id));
+}
+
+/** A failed send: retry later with exponential backoff, or give up after MAX_ATTEMPTS. */
+export async function markFailed(id: string, attempts: number, error: string, now = new Date()): Promise<void> {
+  const giveUp = attempts >= MAX_ATTEMPTS;
+  await db
+    .update(outbox)
+    .set({ status: giveUp ? "failed" : "pending", lastError: error.slice(0, 1000), nextAttemptAt: new Date(now.getTime() + retryDelayMs(attempts)) })
+    .where(eq(outbox.id, id));
+}
+
+/** The dev inbox: every queued e-mail, newest first (administrators only). */
+export async function listOutbox(actor: Actor, limit = 200) {
+  if (actor.role !== "admin") throw forbidden("The outbox is kept by the administrator.");
+  return db.select().from(outbox).orderBy(desc(outbox.createdAt)).limit(limit);
+}

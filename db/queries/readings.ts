@@ -1,0 +1,240 @@
+import "server-only";
+import { and, asc, desc, eq, inArray, isNull } from "drizzle-orm";
+import { alias } from "drizzle-orm/pg-core";
+import { db } from "@/db";
+import { appendAudit } from "@/db/queries/audit";
+import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
+import { instruments, jobs, procedureTemplates, readings, templateSteps, users } from "@/db/schema";
+import type { Reading, TemplateStep } from "@/db/schema";
+import { readingsRefusal, type Actor } from "@/lib/auth/roles";
+import { calibrationRefusal, deriveReading, expandedUncertainty, judge, type StepDecision } from "@/lib/checklist";
+import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
+import { CANONICAL_UNIT, toCanonical } from "@/lib/units";
+import type { ReadingCreateInput } from "@/lib/validations/readings";
+
+const recorders = alias(users, "recorder");
+
+async function visibleJob(actor: Actor, jobId: string): Promise<JobDetail> {
+  const d = await getJobDetail(actor, jobId);
+  if (!d) throw notFound("job");
+  return d;
+}
+
+export async function listTemplateSteps(templateId: string | null): Promise<TemplateStep[]> {
+  if (!templateId) return [];
+  return db.select().from(templateSteps).where(eq(templateSteps.templateId, templateId)).orderBy(asc(templateSteps.position));
+}
+
+export type ReadingRow = Reading & { instrumentSerial: string | null; instrumentKind: string | null; recordedByName: string | null; instrumentStdU: number | null };
+
+async function jobReadings(jobId: string): Promise<ReadingRow[]> {
+  const rows = await db
+    .select({ r: readings, instrumentSerial: instruments.serial, instrumentKind: instruments.kind, instrumentStdU: instruments.standardUncertainty, recordedByName: recorders.name })
+    .from(readings)
+    .leftJoin(instruments, eq(instruments.id, readings.instrumentId))
+    .leftJoin(recorders, eq(recorders.id, readings.recordedById))
+    .where(eq(readings.jobId, jobId))
+    .orderBy(asc(readings.takenAt), asc(readings.createdAt));
+  return rows.map((x) => ({ ...x.r, instrumentSerial: x.instrumentSerial, instrumentKind: x.instrumentKind, instrumentStdU: x.instrumentStdU, recordedByName: x.recordedByName }));
+}
+
+/** Instruments that can be chosen, with their calibration state (expired ones are listed, and refused on save). */
+export async function listUsableInstruments() {
+  return db
+    .select({ id: instruments.id, kind: instruments.kind, serial: instruments.serial, quantityKind: instruments.quantityKind, calibrationDueOn: instruments.calibrationDueOn, retired: instruments.retired, resolution: instruments.resolution, standardUncertainty: instruments.standardUncertainty })
+    .from(instruments)
+    .where(eq(instruments.retired, false))
+    .orderBy(asc(instruments.kind), asc(instruments.serial));
+}
+
+/** Everything the checklist page shows: the job, its template version, steps, readings and instruments. */
+export async function getChecklist(actor: Actor, jobId: string) {
+  const d = await getJobDetail(actor, jobId);
+  if (!d) return null;
+  const [template] = d.job.templateId ? await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, d.job.templateId)) : [];
+  const [steps, rs, insts] = await Promise.all([listTemplateSteps(d.job.templateId), jobReadings(d.job.id), listUsableInstruments()]);
+  return { detail: d, template: template ?? null, steps, readings: rs, instruments: insts, refusal: readingsRefusal(actor, d.job) };
+}
+
+/** The API's JSON form of a reading: canonical value with its unit, what was entered, and the decision. */
+function readingJson(r: ReadingRow, step: TemplateStep | undefined) {
+  const U = step ? expandedUncertainty(step, r.instrumentStdU) : 0;
+  return {
+    id: r.id,
+    stepId: r.stepId,
+    step: step ? { position: step.position, title: step.title } : null,
+    phase: r.phase,
+    value: r.value,
+    unit: step ? CANONICAL_UNIT[step.quantityKind] : null,
+    entered: { value: r.enteredValue, unit: r.enteredUnit },
+    inputs: r.inputs,
+    expandedUncertainty: U,
+    decision: step ? judge(step, r.value, U) : "not_measured",
+    instrument: r.instrumentId ? { id: r.instrumentId, serial: r.instrumentSerial, kind: r.instrumentKind } : null,
+    note: r.note,
+    takenAt: r.takenAt,
+    recordedBy: r.recordedByName,
+    supersededById: r.supersededById,
+  };
+}
+
+/** GET /api/jobs/{id}/readings: every reading of the job, superseded ones included and marked. */
+export async function listReadingsJson(actor: Actor, jobId: string) {
+  const d = await visibleJob(actor, jobId);
+  const [steps, rs] = await Promise.all([listTemplateSteps(d.job.templateId), jobReadings(d.job.id)]);
+  const byId = new Map(steps.map((s) => [s.id, s]));
+  return { job: { id: d.job.id, reference: d.job.reference, status: d.job.status }, readings: rs.map((r) => readingJson(r, byId.get(r.stepId))) };
+}
+
+/**
+ * Records a reading (or a correction that supersedes an earlier one). Checks, in order: the job
+ * is visible (404), the actor may write now (403), the step is the job's, the instrument exists,
+ * measures the right kind of quantity and is in calibration on the day of the reading (422 with
+ * the reason), then stores the canonical value with what was entered, and audits it.
+ */
+export async function recordReading(actor: Actor, jobId: string, input: ReadingCreateInput) {
+  const d = await visibleJob(actor, jobId);
+  const refusal = readingsRefusal(actor, d.job);
+  if (refusal) throw forbidden(refusal);
+  const [step] = d.job.templateId ? await db.select().from(templateSteps).where(and(eq(templateSteps.id, input.stepId), eq(templateSteps.templateId, d.job.templateId))) : [];
+  if (!step) throw invalid("That step is not part of this job's checklist.", [{ field: "stepId", message: "Not a step of this job's procedure." }]);
+
+  const takenAt = input.takenAt ?? new Date();
+  if (takenAt.getTime() > Date.now() + 5 * 60_000) throw invalid("A reading cannot be taken in the future.", [{ field: "takenAt", message: "The time is in the future." }]);
+  const [inst] = await db.select().from(instruments).where(eq(instruments.id, input.instrumentId));
+  if (!inst) throw invalid("That instrument is not in the register.", [{ field: "instrumentId", message: "Choose an instrument from the register." }]);
+  const calib = calibrationRefusal(inst, takenAt);
+  if (calib) throw invalid(calib, [{ field: "instrumentId", message: calib }]);
+  const readsKind = step.derivation === "angle_over_distance" ? "length" : step.quantityKind;
+  if (inst.quantityKind !== readsKind) {
+    const m = `Instrument ${inst.serial} measures ${inst.quantityKind === "angle" ? "angles" : "lengths"}; this step needs one that measures ${readsKind === "angle" ? "angles" : "lengths"}.`;
+    throw invalid(m, [{ field: "instrumentId", message: m }]);
+  }
+
+  let derived;
+  try {
+    const travelMm = input.travel != null ? toCanonical(input.travel, input.travelUnit ?? "mm") : null;
+    derived = deriveReading(step, { value: input.value, unit: input.unit, travelMm });
+  } catch (err) {
+    const m = err instanceof Error ? err.message : "The value cannot be used.";
+    throw invalid(m, [{ field: "value", message: m }]);
+  }
+
+  return db.transaction(async (tx) => {
+    // Lock the job row: a submit for review cannot slip between the check and the insert.
+    const [locked] = await tx.select({ status: jobs.status, assignedInstallerId: jobs.assignedInstallerId }).from(jobs).where(eq(jobs.id, d.job.id)).for("update");
+    const again = locked ? readingsRefusal(actor, locked) : "gone";
+    if (again) throw forbidden(again);
+    let old: Reading | undefined;
+    if (input.supersedesId) {
+      [old] = await tx.select().from(readings).where(and(eq(readings.id, input.supersedesId), eq(readings.jobId, d.job.id))).for("update");
+      if (!old) throw invalid("The reading to correct is not on this job.", [{ field: "supersedesId", message: "No such reading on this job." }]);
+      if (old.supersededById) throw new AppError(409, "conflict", "That reading has already been corrected; correct the newest one.");
+      if (old.stepId !== step.id || old.phase !== input.phase) throw invalid("A correction keeps the step and phase of the reading it corrects.", [{ field: "supersedesId", message: "Step or phase differs." }]);
+    }
+    const [row] = await tx
+      .insert(readings)
+      .values({ jobId: d.job.id, stepId: step.id, phase: input.phase, value: derived.value, enteredValue: input.value, enteredUnit: input.unit, inputs: derived.inputs, instrumentId: inst.id, note: input.note ?? null, takenAt, recordedById: actor.id })
+      .returning();
+    if (old) await tx.update(readings).set({ supersededById: row!.id }).where(eq(readings.id, old.id));
+    if (locked!.status === "draft") {
+      await tx.update(jobs).set({ status: "measuring" }).where(eq(jobs.id, d.job.id));
+      await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: "job.status_changed", entityType: "job", entityId: d.job.id, jobId: d.job.id, oldValues: { status: "draft" }, newValues: { status: "measuring", reason: "first reading recorded" } });
+    } else {
+      await tx.update(jobs).set({ updatedAt: new Date() }).where(eq(jobs.id, d.job.id));
+    }
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: old ? "reading.corrected" : "reading.recorded",
+      entityType: "reading",
+      entityId: row!.id,
+      jobId: d.job.id,
+      oldValues: old ? { id: old.id, value: old.value, enteredValue: old.enteredValue, enteredUnit: old.enteredUnit } : null,
+      newValues: { step: step.position, phase: row!.phase, value: row!.value, unit: CANONICAL_UNIT[step.quantityKind], enteredValue: row!.enteredValue, enteredUnit: row!.enteredUnit, instrument: inst.serial, note: row!.note },
+    });
+    return readingJson({ ...row!, instrumentSerial: inst.serial, instrumentKind: inst.kind, instrumentStdU: inst.standardUncertainty, recordedByName: actor.name }, step);
+  });
+}
+
+export interface ComparisonRow {
+  stepId: string;
+  position: number;
+  title: string;
+  quantity: string;
+  quantityKind: "length" | "angle";
+  unit: "mm" | "arcsec";
+  lowerLimit: number | null;
+  upperLimit: number | null;
+  decisionRule: "simple" | "guarded";
+  limitSource: string;
+  limitSourceNote: string | null;
+  pre: { value: number; U: number; decision: StepDecision; readingId: string; instrument: string | null; takenAt: Date } | null;
+  post: { value: number; U: number; decision: StepDecision; readingId: string; instrument: string | null; takenAt: Date } | null;
+  change: number | null;
+  /** The step's result: the post-adjustment reading if there is one, else the pre reading. */
+  status: StepDecision;
+}
+
+/** Pre/post side by side: the latest current (not superseded) reading of each step and phase. */
+export async function getComparison(actor: Actor, jobId: string) {
+  const d = await getJobDetail(actor, jobId);
+  if (!d) return null;
+  const steps = await listTemplateSteps(d.job.templateId);
+  const current = steps.length
+    ? await db
+        .select({ r: readings, serial: instruments.serial, stdU: instruments.standardUncertainty })
+        .from(readings)
+        .leftJoin(instruments, eq(instruments.id, readings.instrumentId))
+        .where(and(eq(readings.jobId, d.job.id), isNull(readings.supersededById), inArray(readings.stepId, steps.map((s) => s.id))))
+        .orderBy(desc(readings.takenAt), desc(readings.createdAt))
+    : [];
+  const rows: ComparisonRow[] = steps.map((s) => {
+    const pick = (phase: "pre" | "post") => {
+      const hit = current.find((c) => c.r.stepId === s.id && c.r.phase === phase);
+      if (!hit) return null;
+      const U = expandedUncertainty(s, hit.stdU);
+      return { value: hit.r.value, U, decision: judge(s, hit.r.value, U), readingId: hit.r.id, instrument: hit.serial, takenAt: hit.r.takenAt };
+    };
+    const pre = pick("pre");
+    const post = pick("post");
+    return {
+      stepId: s.id,
+      position: s.position,
+      title: s.title,
+      quantity: s.quantity,
+      quantityKind: s.quantityKind,
+      unit: CANONICAL_UNIT[s.quantityKind],
+      lowerLimit: s.lowerLimit,
+      upperLimit: s.upperLimit,
+      decisionRule: s.decisionRule,
+      limitSource: s.limitSource,
+      limitSourceNote: s.limitSourceNote,
+      pre,
+      post,
+      change: pre && post ? post.value - pre.value : null,
+      status: (post ?? pre)?.decision ?? "not_measured",
+    };
+  });
+  return { detail: d, rows };
+}
+
+export function comparisonJson(c: NonNullable<Awaited<ReturnType<typeof getComparison>>>) {
+  return {
+    job: { id: c.detail.job.id, reference: c.detail.job.reference, status: c.detail.job.status },
+    steps: c.rows.map((r) => ({
+      position: r.position,
+      title: r.title,
+      quantity: r.quantity,
+      unit: r.unit,
+      lowerLimit: r.lowerLimit,
+      upperLimit: r.upperLimit,
+      decisionRule: r.decisionRule,
+      limitSource: r.limitSource,
+      pre: r.pre ? { value: r.pre.value, expandedUncertainty: r.pre.U, decision: r.pre.decision, instrument: r.pre.instrument, takenAt: r.pre.takenAt } : null,
+      post: r.post ? { value: r.post.value, expandedUncertainty: r.post.U, decision: r.post.decision, instrument: r.post.instrument, takenAt: r.post.takenAt } : null,
+      change: r.change,
+      status: r.status,
+    })),
+  };
+}

@@ -1,0 +1,15 @@
+/**
+ * The SMTP transport: nodemailer to SMTP_URL (a local fake in development and tests,
+ * smtp://127.0.0.1:2525 by default). One transport per process.
+ */
+import "server-only";
+import nodemailer, { type Transporter } from "nodemailer";
+
+export const MAIL_FROM = process.env.MAIL_FROM ?? "Trammel <noreply@halvard.example>";
+
+let cached: Transporter | undefined;
+
+export function mailTransport(): Transporter {
+  cached ??= nodemailer.createTransport(process.env.SMTP_URL ?? "smtp://127.0.0.1:2525", { from: MAIL_FROM });
+  return cached;
+}
