@@ -50,7 +50,7 @@ function Table({ head, rows, numeric = [] }: { head: string[]; rows: React.React
           {rows.map((r, i) => (
             <tr key={i}>
               {r.map((c, j) => (
-                <td key={j} className={`px-3 py-2 ${numeric.includes(j) ? "num text-right" : ""}`}>
+                <td key={j} className={`px-3 py-2 ${numeric.includes(j) ? "num whitespace-nowrap text-right" : ""}`}>
                   {c}
                 </td>
               ))}

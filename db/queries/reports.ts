@@ -91,10 +91,11 @@ function signatureLine(s: { signerName: string; signerRole: string; meaning: Sig
   return { name: s.signerName, role: ROLE_LABELS[s.signerRole as keyof typeof ROLE_LABELS] ?? s.signerRole, meaning: SIGNATURE_LABELS[s.meaning], signedAtUtc: formatDateTimeUtc(s.signedAt) };
 }
 
-function formatLimit(lower: number | null, upper: number | null, unit: string): string {
-  if (lower != null && upper != null) return lower === -upper ? `± ${upper} ${unit}` : `${lower} to ${upper} ${unit}`;
-  if (upper != null) return `≤ ${upper} ${unit}`;
-  if (lower != null) return `≥ ${lower} ${unit}`;
+function formatLimit(lower: number | null, upper: number | null, kind: string): string {
+  const f = (v: number) => (kind === "angle" ? `${v.toFixed(1)}″` : `${v.toFixed(4)} mm`);
+  if (lower != null && upper != null) return lower === -upper ? `± ${f(upper)}` : `${f(lower)} to ${f(upper)}`;
+  if (upper != null) return `≤ ${f(upper)}`;
+  if (lower != null) return `≥ ${f(lower)}`;
   return "—";
 }
 
@@ -114,13 +115,12 @@ async function reportReadings(jobId: string): Promise<ReportData["readings"]> {
     bySteps.set(r.stepId, e);
   }
   return [...bySteps.values()].map((e) => {
-    const unit = e.kind === "angle" ? "″" : "mm";
     const fmt = (v: number | undefined) => (v === undefined ? undefined : e.kind === "angle" ? `${v.toFixed(1)}″` : `${v.toFixed(4)} mm`);
     const final = e.post ?? e.pre;
     const within = final !== undefined && (e.lower == null || final >= e.lower) && (e.upper == null || final <= e.upper);
     return {
       step: e.title,
-      limits: formatLimit(e.lower, e.upper, unit),
+      limits: formatLimit(e.lower, e.upper, e.kind),
       pre: fmt(e.pre),
       post: fmt(e.post),
       change: e.pre !== undefined && e.post !== undefined ? fmt(e.post - e.pre) : undefined,

@@ -11,7 +11,7 @@ let registered = false;
 export const BODY_FONT = ["PlexSans", "DejaVu"];
 export const MONO_FONT = ["PlexMono", "DejaVuMono"];
 
-export function registerReportFonts(fontsDir = path.join(process.cwd(), "fonts")): void {
+export function registerReportFonts(fontsDir = path.join(/*turbopackIgnore: true*/ process.cwd(), "fonts")): void {
   if (registered) return;
   const f = (name: string) => path.join(fontsDir, name);
   Font.register({ family: "PlexSans", fonts: [{ src: f("IBMPlexSans-Regular.woff"), fontWeight: 400 }, { src: f("IBMPlexSans-Bold.woff"), fontWeight: 700 }] });

@@ -1,0 +1,90 @@
+// Journey 3 of the product brief in Debian's Chromium: the customer reads the issued report
+// online, downloads the signed PDF and accepts it with a counter-signature; the engineer sees
+// the acceptance; anyone holding the PDF verifies it on the public page, and a tampered copy fails.
+import { readFileSync, writeFileSync } from "node:fs";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { BrowserContext } from "playwright-core";
+import { newContext, screenshotPath, signIn } from "./browser";
+
+let ctx: BrowserContext;
+let pdfPath = "";
+
+beforeAll(async () => {
+  ctx = await newContext();
+});
+afterAll(async () => {
+  await ctx?.close();
+});
+
+describe("journey 3: the customer accepts the signed report", () => {
+  it("reads the report online and downloads the signed PDF", async () => {
+    await ctx.clearCookies();
+    const p = await ctx.newPage();
+    await signIn(p, "buyer@marlowcreek.example");
+    await p.waitForURL("**/jobs");
+    await p.getByRole("link", { name: "TR-2026-0041" }).click();
+    await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Report" }).click();
+    await p.waitForURL(/\/report$/);
+    const article = p.getByRole("article", { name: "Acceptance report" });
+    await expect.poll(() => article.innerText()).toContain("END OF REPORT");
+    expect(await article.innerText()).toContain("Marlow Creek Aerostructures");
+    expect(await article.innerText()).toMatch(/Approved and issued[\s\S]*Emil Haraldsen[\s\S]*UTC/);
+    const [download] = await Promise.all([p.waitForEvent("download"), p.getByRole("link", { name: "Download signed PDF" }).click()]);
+    pdfPath = screenshotPath("downloaded-report").replace(/\.png$/, ".pdf");
+    await download.saveAs(pdfPath);
+    expect(readFileSync(pdfPath).subarray(0, 5).toString()).toBe("%PDF-");
+    await p.screenshot({ path: screenshotPath("report-customer"), fullPage: true });
+    await p.close();
+  });
+
+  it("refuses to sign without the password, then accepts with it", async () => {
+    await ctx.clearCookies();
+    const p = await ctx.newPage();
+    await signIn(p, "buyer@marlowcreek.example");
+    await p.waitForURL("**/jobs");
+    await p.getByRole("link", { name: "TR-2026-0041" }).click();
+    await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Report" }).click();
+    const accept = p.getByRole("form", { name: "Accept the report" });
+    await accept.getByLabel("Your password").fill("not-my-password");
+    await accept.getByRole("button", { name: "Accept" }).click();
+    await expect.poll(() => accept.getByRole("alert").innerText()).toContain("password");
+    await accept.getByLabel("Your password").fill("trammel-demo");
+    await accept.getByRole("button", { name: "Accept" }).click();
+    await expect.poll(() => p.getByRole("complementary", { name: "Signatures" }).innerText(), { timeout: 15_000 }).toContain("Accepted by the customer");
+    await expect.poll(() => p.locator("main").innerText()).toContain("Accepted");
+    await p.close();
+  });
+
+  it("the engineer sees the acceptance", async () => {
+    await ctx.clearCookies();
+    const p = await ctx.newPage();
+    await signIn(p, "engineer@halvard.example");
+    await p.waitForURL("**/jobs");
+    const row = p.locator("tr", { hasText: "TR-2026-0041" });
+    await expect.poll(() => row.innerText()).toContain("Accepted");
+    await row.getByRole("link", { name: "TR-2026-0041" }).click();
+    await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Report" }).click();
+    const sigs = await p.getByRole("complementary", { name: "Signatures" }).innerText();
+    expect(sigs).toMatch(/Accepted by the customer[\s\S]*Morgan Tate — Customer[\s\S]*UTC/);
+    await p.close();
+  });
+
+  it("anyone holding the PDF verifies it on the public page; a changed byte fails", async () => {
+    await ctx.clearCookies();
+    const p = await ctx.newPage();
+    await p.goto("/verify");
+    await p.getByLabel("Report PDF").setInputFiles(pdfPath);
+    const result = p.getByTestId("verification-result");
+    await expect.poll(() => result.innerText()).toContain("Authentic");
+    expect(await result.innerText()).toMatch(/TR-2026-0041, revision 1/);
+    await p.screenshot({ path: screenshotPath("verify-authentic"), fullPage: true });
+    const bytes = readFileSync(pdfPath);
+    const mid = Math.floor(bytes.length / 2);
+    bytes[mid] = bytes[mid]! ^ 0x20;
+    const tampered = pdfPath.replace(/\.pdf$/, "-tampered.pdf");
+    writeFileSync(tampered, bytes);
+    await p.getByLabel("Report PDF").setInputFiles(tampered);
+    await expect.poll(() => result.innerText()).toContain("Not verified");
+    await p.close();
+  });
+});
