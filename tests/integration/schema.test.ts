@@ -47,3 +47,11 @@ describe("audit trail", () => {
     expect((await verifyAuditChain(db)).firstBrokenId).toBeNull();
   });
 });
+
+describe("npm run audit:verify", () => {
+  it("reports an intact chain with exit code 0", async () => {
+    const { execFileSync } = await import("node:child_process");
+    const out = execFileSync("npx", ["tsx", "--import", "./lib/scripts/allow-server-only.mjs", "db/audit-verify.ts"], { env: process.env, encoding: "utf8" });
+    expect(out).toMatch(/audit trail intact: \d+ events/);
+  });
+});
