@@ -18,6 +18,16 @@ const schema = z.object({
   REPORT_KEY_DIR: z.string().min(1).default(".data/keys"),
   /** The address printed on reports and in e-mails (verify links). */
   PUBLIC_URL: z.string().url().optional(),
+  /** Where uploaded originals are kept: S3-compatible storage (s3rver locally) or the PostgreSQL fallback. */
+  STORAGE_DRIVER: z.enum(["s3", "postgres"]).default("postgres"),
+  S3_ENDPOINT: z.string().url().default("http://127.0.0.1:4569"),
+  S3_BUCKET: z.string().min(3).default("trammel-uploads"),
+  S3_REGION: z.string().min(1).default("us-east-1"),
+  /** The local fake's fixed credentials by default; production sets real ones. */
+  S3_ACCESS_KEY_ID: z.string().min(1).default("S3RVER"),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).default("S3RVER"),
+  /** Largest accepted dataset upload (bytes of the whole multipart body). */
+  UPLOAD_MAX_BYTES: z.coerce.number().int().min(1024).default(64 * 1024 * 1024),
 });
 
 export type Env = z.infer<typeof schema>;

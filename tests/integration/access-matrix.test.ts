@@ -26,6 +26,11 @@ const COVERED = new Set([
   "app/api/jobs/route.ts",
   "app/api/jobs/[id]/route.ts",
   "app/api/auth/[...nextauth]/route.ts",
+  // tests/integration/datasets-access.test.ts
+  "app/api/jobs/[id]/datasets/route.ts",
+  "app/api/datasets/[id]/route.ts",
+  "app/api/datasets/[id]/file/route.ts",
+  "app/api/datasets/[id]/evaluation/route.ts",
   // tests/integration/reports-access.test.ts
   "app/api/reports/[id]/route.ts",
   "app/api/reports/[id]/pdf/route.ts",

@@ -1,0 +1,39 @@
+// Datasets of a job: GET lists them; POST takes one CSV upload (multipart: file, kind, phase and
+// the unit fields of docs/product.md), streamed within the size limit, re-parsed by geometry/'s
+// readers and stored only when valid.
+import { insertDataset, listDatasets, requireUploadableJob } from "@/db/queries/datasets";
+import { requireUser } from "@/lib/auth/session";
+import { env } from "@/lib/env";
+import { invalid, notFound } from "@/lib/errors";
+import { route } from "@/lib/http";
+import { readMultipart } from "@/lib/storage/multipart";
+import { parseDatasetFile, parseUploadForm } from "@/lib/storage/parse-dataset";
+
+export const runtime = "nodejs";
+export const dynamic = "force-dynamic";
+
+type Ctx = { params: Promise<{ id: string }> };
+
+export const GET = route<Ctx>(async (_req, ctx) => {
+  const { id } = await ctx.params;
+  const actor = await requireUser();
+  const rows = await listDatasets(actor, id);
+  if (!rows) throw notFound("job");
+  return Response.json({ datasets: rows });
+});
+
+export const POST = route<Ctx>(async (req, ctx) => {
+  // 1. Who and where, before a byte of the body is read.
+  const { id } = await ctx.params;
+  const actor = await requireUser();
+  await requireUploadableJob(actor, id);
+  // 2. The body, streamed within the limit.
+  const { fields, file } = await readMultipart(req, env.UPLOAD_MAX_BYTES);
+  const form = parseUploadForm(fields);
+  if (!file) throw invalid("Choose a CSV file to upload.", [{ field: "file", message: "no file was sent" }]);
+  // 3. Re-parse with geometry/'s readers: 422 naming row and column on any problem.
+  const parsed = parseDatasetFile(form, file.data);
+  // 4. Store the original unchanged, then the rows, in one transaction.
+  const row = await insertDataset(actor, id, form, file, parsed);
+  return Response.json({ id: row.id, kind: row.kind, rows: row.rows, sha256: row.sha256, warnings: row.warnings }, { status: 201 });
+});

@@ -1,0 +1,250 @@
+/**
+ * Server-side validation of an uploaded dataset: the bytes are decoded as UTF-8 and re-parsed with
+ * geometry/'s CSV readers (never a parser of our own), whatever the browser said about them. The
+ * result is the columns to store in SI-based units (mm, µm, degrees, as the readers give them),
+ * the summary shown to people, and the warnings; anything wrong is a 422 whose issues name the
+ * row (header = row 1) and column.
+ *
+ * Column mapping: when the user renamed columns in the browser, the form carries `header`, the
+ * replacement header line in the file's own delimiter (e.g. `x,y,z,primary_deg,secondary_deg`).
+ * The server swaps it for the file's first line before reading; the stored original is the
+ * uploaded bytes, unchanged, and `options.header_replaced` records the line that was replaced.
+ */
+import { z } from "zod";
+import {
+  fitSweep,
+  fitTram,
+  formatIssue,
+  GeometryError,
+  readSphereProbeCsv,
+  readSweepCsv,
+  readTestPartCsv,
+  readTramCsv,
+  type TestPartRow,
+} from "@/geometry";
+import { AppError, invalid, type FieldIssue } from "@/lib/errors";
+
+export const DATASET_KINDS = ["sphere_probe", "tram", "sweep", "test_part"] as const;
+export type DatasetKind = (typeof DATASET_KINDS)[number];
+export const PHASES = ["pre", "post"] as const;
+
+export interface StoredColumn {
+  readonly name: string;
+  readonly unit: string;
+  readonly values: Float64Array;
+}
+
+export interface ParsedDataset {
+  readonly kind: DatasetKind;
+  readonly rows: number;
+  readonly columns: readonly StoredColumn[];
+  readonly units: Record<string, string | number>;
+  readonly options: Record<string, unknown>;
+  readonly summary: Record<string, unknown>;
+  readonly warnings: string[];
+}
+
+const decimal = z.enum(["point", "comma"]).default("point");
+const headerLine = z
+  .string()
+  .max(4096)
+  .regex(/^[A-Za-z0-9_ ]*([,;][A-Za-z0-9_ ]*)*$/, "only letters, digits, spaces and underscores between the file's delimiters")
+  .optional();
+
+const formSchemas = {
+  sphere_probe: z.object({ units: z.enum(["mm", "in"], { error: "choose mm or in for the x, y, z columns" }), decimal, header: headerLine }),
+  tram: z.object({
+    travel_units: z.enum(["mm", "in"], { error: "choose mm or in for the travel" }),
+    reading_units: z.enum(["um", "mm", "in"], { error: "choose um, mm or in for the readings" }),
+    decimal,
+    header: headerLine,
+  }),
+  sweep: z.object({
+    reading_units: z.enum(["um", "mm", "in"], { error: "choose um, mm or in for the readings" }),
+    radius_mm: z.coerce.number({ error: "the sweep radius must be a number (mm)" }).finite().positive("the sweep radius must be above 0 mm").max(10_000),
+    decimal,
+    header: headerLine,
+  }),
+  test_part: z.object({
+    decimal,
+    header: headerLine,
+    /** Expanded uncertainty U (k = 2) of the part measurement for length rows, mm (converted to in/µm per row). */
+    uncertainty_mm: z.preprocess(
+      (v) => (v === "" ? undefined : v),
+      z.coerce.number({ error: "the expanded uncertainty must be a number (mm)" }).finite().min(0, "the expanded uncertainty must be ≥ 0 mm").max(10).optional(),
+    ),
+  }),
+} as const;
+
+export const uploadFormSchema = z.object({
+  kind: z.enum(DATASET_KINDS, { error: "kind must be sphere_probe, tram, sweep or test_part" }),
+  phase: z.enum(PHASES, { error: "phase must be pre or post" }),
+});
+
+function zodIssues(err: z.ZodError): FieldIssue[] {
+  return err.issues.map((i) => ({ field: i.path.join(".") || "form", message: i.message }));
+}
+
+/** The form fields of an upload (kind, phase, unit fields) checked; 422 naming the field otherwise. */
+export function parseUploadForm(fields: Readonly<Record<string, string>>) {
+  const base = uploadFormSchema.safeParse(fields);
+  if (!base.success) throw invalid("Some fields of the upload need attention.", zodIssues(base.error));
+  const extra = formSchemas[base.data.kind].safeParse(fields);
+  if (!extra.success) throw invalid("Some fields of the upload need attention.", zodIssues(extra.error));
+  return { ...base.data, ...(extra.data as { decimal: "point" | "comma"; header?: string; units?: "mm" | "in"; travel_units?: "mm" | "in"; reading_units?: "um" | "mm" | "in"; radius_mm?: number; uncertainty_mm?: number }) };
+}
+export type UploadForm = ReturnType<typeof parseUploadForm>;
+
+/** UTF-8 text of the file (a BOM is dropped); 422 naming the row of the first invalid byte. */
+export function decodeUtf8(bytes: Uint8Array): string {
+  try {
+    return new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+  } catch {
+    const loose = new TextDecoder("utf-8").decode(bytes);
+    const at = loose.indexOf("\uFFFD");
+    let row = 1;
+    for (let i = 0; i < at; i++) {
+      const c = loose.charCodeAt(i);
+      if (c === 10 || (c === 13 && loose.charCodeAt(i + 1) !== 10)) row++;
+    }
+    throw new AppError(422, "invalid_csv", `row ${row}: the file is not UTF-8 text`, [
+      { row, message: "the file is not valid UTF-8 text; save it as CSV UTF-8" },
+    ]);
+  }
+}
+
+/** Swap the first line of `text` (after a BOM) for `header`. */
+function replaceHeader(text: string, header: string): { text: string; replaced: string } {
+  const start = text.charCodeAt(0) === 0xfeff ? 1 : 0;
+  let end = start;
+  while (end < text.length && text.charCodeAt(end) !== 10 && text.charCodeAt(end) !== 13) end++;
+  return { text: header + text.slice(end), replaced: text.slice(start, end) };
+}
+
+function geometryFailure(err: GeometryError): AppError {
+  const issues = err.issues.map((i) => ({
+    ...(i.row !== undefined ? { row: i.row } : {}),
+    ...(i.column !== undefined ? { column: i.column } : {}),
+    message: i.message,
+  }));
+  return new AppError(422, "invalid_csv", err.message, issues);
+}
+
+function range(values: Float64Array): { min: number; max: number } {
+  let min = Infinity;
+  let max = -Infinity;
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i]!;
+    if (v < min) min = v;
+    if (v > max) max = v;
+  }
+  return { min, max };
+}
+
+function copyColumn(name: string, unit: string, values: ArrayLike<number>): StoredColumn {
+  const out = values instanceof Float64Array ? values : Float64Array.from(values);
+  for (let i = 0; i < out.length; i++) {
+    if (!Number.isFinite(out[i]!)) throw new AppError(422, "invalid_csv", `column ${name}: a value is not a finite number`, [{ column: name, message: "not a finite number" }]);
+  }
+  return { name, unit, values: out };
+}
+
+/** Re-parse and validate the file's text for its kind; throws AppError 422 with row/column issues. */
+export function parseDatasetText(form: UploadForm, input: string): ParsedDataset {
+  const options: Record<string, unknown> = { decimal: form.decimal };
+  let text = input;
+  if (form.header !== undefined && form.header.trim() !== "") {
+    const r = replaceHeader(input, form.header);
+    text = r.text;
+    options.header = form.header;
+    options.header_replaced = r.replaced.slice(0, 4096);
+  }
+  try {
+    switch (form.kind) {
+      case "sphere_probe": {
+        const d = readSphereProbeCsv(text, { units: form.units!, decimal: form.decimal });
+        const columns = [
+          copyColumn("primary_deg", "deg", d.primaryDeg),
+          copyColumn("secondary_deg", "deg", d.secondaryDeg),
+          copyColumn("x_mm", "mm", d.xMm),
+          copyColumn("y_mm", "mm", d.yMm),
+          copyColumn("z_mm", "mm", d.zMm),
+          ...(d.toolMm ? [copyColumn("tool_mm", "mm", d.toolMm)] : []),
+          ...(d.point ? [copyColumn("point", "1", d.point)] : []),
+          ...(d.repeat ? [copyColumn("repeat", "1", d.repeat)] : []),
+          ...(d.tempC ? [copyColumn("temp_c", "degC", d.tempC)] : []),
+        ];
+        return done(form, d.rows, columns, { units: form.units! }, options, {}, d.warnings);
+      }
+      case "tram": {
+        const d = readTramCsv(text, { travelUnits: form.travel_units!, readingUnits: form.reading_units!, decimal: form.decimal });
+        const columns = [copyColumn("travel_mm", "mm", d.travelMm), copyColumn("reading_um", "um", d.readingUm)];
+        const extra: string[] = [];
+        let fit: Record<string, number> | null = null;
+        try {
+          const r = fitTram(d);
+          fit = { slope_um_per_m: r.slope_um_per_m, slope_u_um_per_m: r.slope_u_um_per_m, angle_arcsec: r.angle_arcsec, straightness_um: r.straightness_um, tir_um: r.tir_um };
+        } catch (e) {
+          if (!(e instanceof GeometryError)) throw e;
+          extra.push(`no line fit: ${e.message}`);
+        }
+        return done(form, d.rows, columns, { travel_units: form.travel_units!, reading_units: form.reading_units! }, options, { tram: fit }, d.warnings, extra);
+      }
+      case "sweep": {
+        const d = readSweepCsv(text, { readingUnits: form.reading_units!, decimal: form.decimal });
+        const columns = [copyColumn("angle_deg", "deg", d.angleDeg), copyColumn("reading_um", "um", d.readingUm)];
+        const extra: string[] = [];
+        let fit: Record<string, number | null> | null = null;
+        try {
+          const r = fitSweep(d, form.radius_mm!);
+          fit = { tilt_um_per_m: r.tilt_um_per_m, tilt_arcsec: r.tilt_arcsec, direction_deg: r.direction_deg, tir_um: r.tir_um, flatness_ls_um: r.flatness_ls_um, flatness_mz_um: r.flatness_mz_um };
+        } catch (e) {
+          if (!(e instanceof GeometryError)) throw e;
+          extra.push(`no sweep fit: ${e.message}`);
+        }
+        return done(form, d.rows, columns, { reading_units: form.reading_units!, radius_mm: form.radius_mm! }, options, { sweep: fit }, d.warnings, extra);
+      }
+      case "test_part": {
+        const rows = readTestPartCsv(text, { decimal: form.decimal });
+        const plain: TestPartRow[] = rows.map((r) => ({ ...r }));
+        const units: Record<string, number> = form.uncertainty_mm !== undefined ? { uncertainty_mm: form.uncertainty_mm } : {};
+        return done(form, rows.length, [], units, options, { test_part_rows: plain }, rows.warnings);
+      }
+    }
+  } catch (err) {
+    if (err instanceof GeometryError) throw geometryFailure(err);
+    throw err;
+  }
+}
+
+function done(
+  form: UploadForm,
+  rows: number,
+  columns: StoredColumn[],
+  units: Record<string, string | number>,
+  options: Record<string, unknown>,
+  summary: Record<string, unknown>,
+  warnings: readonly { row?: number; column?: string; message: string }[],
+  extra: string[] = [],
+): ParsedDataset {
+  const ranges = Object.fromEntries(columns.map((c) => [c.name, { unit: c.unit, ...range(c.values) }]));
+  return { kind: form.kind, rows, columns, units, options, summary: { ...summary, columns: ranges }, warnings: [...warnings.map(formatIssue), ...extra] };
+}
+
+/** Bytes → validated dataset (decode, then the readers). */
+export function parseDatasetFile(form: UploadForm, bytes: Uint8Array): ParsedDataset {
+  return parseDatasetText(form, decodeUtf8(bytes));
+}
+
+/** Float64Array ↔ little-endian bytea. */
+export function columnToBytes(values: Float64Array): Buffer {
+  const out = Buffer.allocUnsafe(values.length * 8);
+  for (let i = 0; i < values.length; i++) out.writeDoubleLE(values[i]!, i * 8);
+  return out;
+}
+
+export function bytesToColumn(data: Buffer): Float64Array {
+  const out = new Float64Array(data.length >>> 3);
+  for (let i = 0; i < out.length; i++) out[i] = data.readDoubleLE(i * 8);
+  return out;
+}
