@@ -1,6 +1,7 @@
 import "server-only";
 import { and, asc, desc, eq, ilike, or, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
+import { cache } from "react";
 import { db } from "@/db";
 import { customers, heads, jobs, machines, sites, users } from "@/db/schema";
 import { jobScope, type Actor, type JobStatus } from "@/lib/auth/roles";
@@ -104,7 +105,7 @@ export async function listJobs(actor: Actor, filters: JobListFilters = {}): Prom
 }
 
 /** One job with its machine, head and people; null when missing *or* not visible to the actor. */
-export async function getJobDetail(actor: Actor, jobId: string) {
+export const getJobDetail = cache(async function getJobDetail(actor: Actor, jobId: string) {
   if (!/^[0-9a-f-]{36}$/i.test(jobId)) return null;
   const rows = await db
     .select({
@@ -126,7 +127,7 @@ export async function getJobDetail(actor: Actor, jobId: string) {
   const row = rows[0];
   if (!row) return null;
   return { ...row, installer: row.installer?.id ? row.installer : null };
-}
+});
 export type JobDetail = NonNullable<Awaited<ReturnType<typeof getJobDetail>>>;
 
 /** The API's JSON form of a job detail (no internal columns such as created_by). */

@@ -4,18 +4,20 @@
  */
 import "server-only";
 import { getServerSession } from "next-auth";
+import { cache } from "react";
 import { redirect } from "next/navigation";
 import { getActor } from "@/db/queries/users";
 import { forbidden, unauthorized } from "@/lib/errors";
 import { authOptions } from "./options";
 import type { Actor, Role } from "./roles";
 
-export async function getCurrentUser(): Promise<Actor | null> {
+/** Read once per request (layouts and pages share it through React's request cache). */
+export const getCurrentUser = cache(async (): Promise<Actor | null> => {
   const session = await getServerSession(authOptions);
   const id = session?.user?.id;
   if (!id) return null;
   return getActor(id, session.user.signedInAt ?? 0);
-}
+});
 
 /** For route handlers and actions: throws 401 when nobody is signed in. */
 export async function requireUser(): Promise<Actor> {

@@ -5,6 +5,7 @@ import { readdirSync, statSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { GET as health } from "@/app/api/health/route";
+import { GET as ping } from "@/app/api/ping/route";
 import { GET as listJobsRoute } from "@/app/api/jobs/route";
 import { GET as jobRoute } from "@/app/api/jobs/[id]/route";
 import { jobIdByReference, request, signInAs } from "./helpers";
@@ -26,6 +27,10 @@ const COVERED = new Set([
   "app/api/jobs/route.ts",
   "app/api/jobs/[id]/route.ts",
   "app/api/auth/[...nextauth]/route.ts",
+  // tests/integration/checklist-access.test.ts
+  "app/api/jobs/[id]/readings/route.ts",
+  "app/api/jobs/[id]/comparison/route.ts",
+  "app/api/jobs/[id]/comparison/csv/route.ts",
   // tests/integration/datasets-access.test.ts
   "app/api/jobs/[id]/datasets/route.ts",
   "app/api/datasets/[id]/route.ts",
@@ -37,11 +42,18 @@ const COVERED = new Set([
   "app/api/verify/route.ts",
   "app/api/verify/[reportId]/route.ts",
   "app/api/report-key/route.ts",
+  // public, static: the load benchmark's ceiling
+  "app/api/ping/route.ts",
 ]);
 
 describe("API access matrix", () => {
   for (const [who, { email, sees }] of Object.entries(WHO)) {
     describe(who, () => {
+      it("GET /api/ping answers 200 with static JSON (public)", async () => {
+        await signInAs(email);
+        expect(await ping().json()).toEqual({ ok: true });
+      });
+
       it("GET /api/health answers 200 (public)", async () => {
         await signInAs(email);
         const res = await health();
