@@ -71,7 +71,8 @@ export function arcsecToUmPerM(arcsec: number): number {
 /** A limit pair as text in the display unit: "≤ 0.0005 in", "0.0625 to 0.1250 in", "± 5.0″". */
 export function formatLimits(lower: number | null, upper: number | null, kind: QuantityKind, system: UnitSystem): string {
   const f = (v: number) => formatValue(v, kind, system);
-  if (lower != null && upper != null) return lower === -upper ? `± ${f(upper)}` : `${f(lower)} to ${f(upper)}`;
+  const bare = (v: number) => f(v).replace(/ ?(in|mm|″)$/, "");
+  if (lower != null && upper != null) return lower === -upper ? `± ${f(upper)}` : `${bare(lower)} to ${f(upper)}`;
   if (upper != null) return `≤ ${f(upper)}`;
   if (lower != null) return `≥ ${f(lower)}`;
   return "no limit";

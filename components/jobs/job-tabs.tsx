@@ -9,7 +9,10 @@ import { usePathname } from "next/navigation";
  */
 export const JOB_TABS: ReadonlyArray<{ segment: string; label: string }> = [
   { segment: "", label: "Overview" },
+  { segment: "checklist", label: "Checklist" },
+  { segment: "compare", label: "Compare" },
   { segment: "report", label: "Report" },
+  { segment: "activity", label: "Activity" },
 ];
 
 export function JobTabs({ jobId }: { jobId: string }) {

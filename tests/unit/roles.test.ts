@@ -1,6 +1,6 @@
 // The role rules of the product brief (roles table and status flow), checked case by case.
 import { describe, expect, it } from "vitest";
-import { allowedTransitions, canReadRegister, canSeeJob, canTransition, jobScope, navigationFor, ROLES, signatureRefusal, type Actor } from "@/lib/auth/roles";
+import { allowedTransitions, canReadRegister, canReadRegisterOf, canSeeJob, canTransition, jobScope, navigationFor, readingsRefusal, ROLES, signatureRefusal, type Actor } from "@/lib/auth/roles";
 
 const actor = (role: Actor["role"], customerId: string | null = null): Actor => ({ id: "u1", email: "x@y.example", name: "X", role, customerId });
 const jobA = { customerId: "cA", assignedInstallerId: "u1" };
@@ -85,5 +85,34 @@ describe("who signs what (21 CFR 11.50 meanings)", () => {
     expect(signatureRefusal(actor("customer", "cB"), "accepted", job("issued"))).toMatch(/own users/);
     expect(signatureRefusal(actor("customer", "cA"), "rejected", job("approved"))).toMatch(/issued/);
     expect(signatureRefusal(actor("admin"), "accepted", job("issued"))).toMatch(/own users/);
+  });
+});
+
+describe("checklist readings and the status moves of the checklist", () => {
+  const job = (status: Parameters<typeof readingsRefusal>[1]["status"], assignedInstallerId: string | null = "u1") => ({ status, assignedInstallerId });
+  it("the assigned installer records readings while the job is draft or measuring", () => {
+    expect(readingsRefusal(actor("installer"), job("measuring"))).toBeNull();
+    expect(readingsRefusal(actor("installer"), job("draft"))).toBeNull();
+  });
+  it("readings are locked from review on, including an issued job", () => {
+    for (const s of ["in_review", "approved", "issued", "accepted", "rejected"] as const) expect(readingsRefusal(actor("installer"), job(s))).toMatch(/locked/);
+  });
+  it("another installer, an inspector, an engineer and a customer may not record", () => {
+    expect(readingsRefusal(actor("installer"), job("measuring", "u2"))).toMatch(/assigned/);
+    for (const r of ["inspector", "engineer", "customer"] as const) expect(readingsRefusal(actor(r, "cA"), job("measuring"))).not.toBeNull();
+    expect(readingsRefusal(actor("admin"), job("measuring", "u2"))).toBeNull();
+  });
+  it("an installer submits for review but cannot approve; only an engineer approves", () => {
+    expect(canTransition("installer", "measuring", "in_review")).toBe(true);
+    expect(canTransition("installer", "in_review", "approved")).toBe(false);
+    expect(canTransition("inspector", "in_review", "approved")).toBe(false);
+    expect(canTransition("engineer", "in_review", "approved")).toBe(true);
+  });
+  it("instruments and procedures are readable by staff, the outbox by the administrator only", () => {
+    expect(canReadRegisterOf("installer", "instruments")).toBe(true);
+    expect(canReadRegisterOf("customer", "instruments")).toBe(false);
+    expect(canReadRegisterOf("engineer", "outbox")).toBe(false);
+    expect(canReadRegisterOf("admin", "outbox")).toBe(true);
+    expect(canReadRegisterOf("engineer", "people")).toBe(false);
   });
 });

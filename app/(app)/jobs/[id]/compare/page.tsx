@@ -1,0 +1,127 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { BandChart } from "@/components/charts/band-chart";
+import { UnitToggle } from "@/components/checklist/job-actions";
+import { DecisionBadge, LIMIT_SOURCE_LABELS } from "@/components/readings/decision-badge";
+import { Card } from "@/components/ui/card";
+import { getComparison } from "@/db/queries/readings";
+import { getUnitSystem } from "@/db/queries/user-prefs";
+import { requirePageUser } from "@/lib/auth/session";
+import { arcsecToUmPerM, formatLimits, formatValue } from "@/lib/units";
+
+export const metadata: Metadata = { title: "Before and after" };
+
+type Props = { params: Promise<{ id: string }> };
+
+export default async function ComparePage({ params }: Props) {
+  const { id } = await params;
+  const user = await requirePageUser(`/jobs/${id}/compare`);
+  const [c, unitSystem] = await Promise.all([getComparison(user, id), getUnitSystem(user)]);
+  if (!c) notFound();
+  const counts = { pass: 0, fail: 0, other: 0 };
+  for (const r of c.rows) {
+    if (r.status === "pass") counts.pass++;
+    else if (r.status === "fail") counts.fail++;
+    else counts.other++;
+  }
+  const fmt = (v: number | null | undefined, kind: "length" | "angle", signed = false) => formatValue(v, kind, unitSystem, { signed });
+
+  return (
+    <div className="space-y-6">
+      <div className="flex flex-wrap items-end justify-between gap-4">
+        <div>
+          <h2 className="text-xl font-semibold">Before and after the adjustment</h2>
+          <p className="text-sm text-graphite-600" data-testid="compare-summary">
+            <span className="num">{counts.pass}</span> of <span className="num">{c.rows.length}</span> steps pass on their latest reading
+            {counts.fail ? (
+              <>
+                , <span className="num">{counts.fail}</span> fail
+              </>
+            ) : null}
+            {counts.other ? (
+              <>
+                , <span className="num">{counts.other}</span> not yet judged
+              </>
+            ) : null}
+            . Corrected readings are left out; the latest current reading of each phase is shown.
+          </p>
+        </div>
+        <div className="flex flex-wrap items-center gap-3">
+          <UnitToggle current={unitSystem} path={`/jobs/${id}/compare`} />
+          <a href={`/api/jobs/${id}/comparison/csv`} className="flex min-h-touch items-center rounded-md border border-graphite-300 bg-white px-4 text-sm font-medium hover:bg-graphite-100" download>
+            Download CSV
+          </a>
+        </div>
+      </div>
+
+      <div className="overflow-x-auto rounded-card border border-graphite-200 bg-white shadow-sm">
+        <table className="w-full text-sm" data-testid="compare-table">
+          <caption className="sr-only">Each step with its reading before and after the adjustment, the change, the limits and the result</caption>
+          <thead className="border-b border-graphite-200 bg-graphite-50 text-graphite-600">
+            <tr>
+              <th scope="col" className="px-4 py-3 text-left font-medium">Step</th>
+              <th scope="col" className="px-4 py-3 text-right font-medium">Before</th>
+              <th scope="col" className="px-4 py-3 text-right font-medium">After</th>
+              <th scope="col" className="px-4 py-3 text-right font-medium">Change</th>
+              <th scope="col" className="px-4 py-3 text-right font-medium">Limits</th>
+              <th scope="col" className="px-4 py-3 text-left font-medium">Result</th>
+            </tr>
+          </thead>
+          <tbody className="divide-y divide-graphite-100">
+            {c.rows.map((r) => (
+              <tr key={r.stepId} data-testid={`compare-row-${r.position}`}>
+                <th scope="row" className="px-4 py-3 text-left font-normal">
+                  <span className="num mr-2 text-graphite-500">{r.position}</span>
+                  <span className="font-medium text-graphite-900">{r.title}</span>
+                  <span className="block text-xs text-graphite-500">
+                    {r.quantity} · {LIMIT_SOURCE_LABELS[r.limitSource as keyof typeof LIMIT_SOURCE_LABELS]}
+                  </span>
+                </th>
+                {(["pre", "post"] as const).map((p) => {
+                  const v = r[p];
+                  return (
+                    <td key={p} className="num px-4 py-3 text-right align-top" data-testid={`compare-${p}-${r.position}`}>
+                      {v ? (
+                        <>
+                          <span className="font-semibold">{fmt(v.value, r.quantityKind)}</span>
+                          {r.quantityKind === "angle" ? <span className="block text-xs text-graphite-500">{arcsecToUmPerM(v.value).toFixed(1)} µm/m</span> : null}
+                          {v.U > 0 && r.decisionRule === "guarded" ? <span className="block text-xs text-graphite-500">U = ± {fmt(v.U, r.quantityKind)} (k = 2)</span> : null}
+                          <span className="mt-1 block">
+                            <DecisionBadge decision={v.decision} />
+                          </span>
+                        </>
+                      ) : (
+                        <span className="text-graphite-400">—</span>
+                      )}
+                    </td>
+                  );
+                })}
+                <td className="num px-4 py-3 text-right align-top" data-testid={`compare-change-${r.position}`}>
+                  {r.change != null ? fmt(r.change, r.quantityKind, true) : "—"}
+                </td>
+                <td className="num px-4 py-3 text-right align-top">{formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, unitSystem)}</td>
+                <td className="px-4 py-3 align-top" data-testid={`compare-status-${r.position}`}>
+                  <DecisionBadge decision={r.status} />
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+
+      <Card title="Readings against their limits">
+        <BandChart
+          rows={c.rows.map((r) => ({
+            key: r.stepId,
+            label: `${r.position}. ${r.quantity}`,
+            lower: r.lowerLimit,
+            upper: r.upperLimit,
+            limitText: formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, unitSystem),
+            pre: r.pre ? { value: r.pre.value, decision: r.pre.decision, text: fmt(r.pre.value, r.quantityKind) } : null,
+            post: r.post ? { value: r.post.value, decision: r.post.decision, text: fmt(r.post.value, r.quantityKind) } : null,
+          }))}
+        />
+      </Card>
+    </div>
+  );
+}

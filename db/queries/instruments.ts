@@ -1,0 +1,40 @@
+import "server-only";
+import { asc, eq } from "drizzle-orm";
+import { z } from "zod";
+import { db } from "@/db";
+import { appendAudit } from "@/db/queries/audit";
+import { instruments } from "@/db/schema";
+import { canReadRegisterOf, type Actor } from "@/lib/auth/roles";
+import { forbidden, invalid } from "@/lib/errors";
+import { toCanonical } from "@/lib/units";
+import type { instrumentCreateSchema } from "@/lib/validations/registers";
+
+export async function listInstruments(actor: Actor) {
+  if (!canReadRegisterOf(actor.role, "instruments")) throw forbidden("The instrument register is kept by the service company.");
+  return db.select().from(instruments).orderBy(asc(instruments.retired), asc(instruments.kind), asc(instruments.serial));
+}
+
+/** Adds an instrument (administrator), resolution and uncertainty converted to mm or arcsec; audited. */
+export async function createInstrument(actor: Actor, input: z.infer<typeof instrumentCreateSchema>) {
+  if (actor.role !== "admin") throw forbidden("Instruments are registered by the administrator.");
+  const [dupe] = await db.select({ id: instruments.id }).from(instruments).where(eq(instruments.serial, input.serial));
+  if (dupe) throw invalid("An instrument with that serial is already registered.", [{ field: "serial", message: "Already registered." }]);
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .insert(instruments)
+      .values({
+        kind: input.kind,
+        serial: input.serial,
+        maker: input.maker || null,
+        quantityKind: input.quantityKind,
+        resolution: toCanonical(input.resolution, input.unit),
+        standardUncertainty: toCanonical(input.standardUncertainty, input.unit),
+        calibratedOn: input.calibratedOn || null,
+        calibrationDueOn: input.calibrationDueOn,
+        certificateRef: input.certificateRef || null,
+      })
+      .returning();
+    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: "instrument.created", entityType: "instrument", entityId: row!.id, newValues: { serial: row!.serial, kind: row!.kind, calibrationDueOn: row!.calibrationDueOn } });
+    return row!;
+  });
+}

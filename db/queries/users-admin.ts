@@ -1,0 +1,104 @@
+import "server-only";
+import { createHash, randomBytes } from "node:crypto";
+import { and, asc, eq, gt, isNull, sql } from "drizzle-orm";
+import { z } from "zod";
+import { db } from "@/db";
+import { appendAudit } from "@/db/queries/audit";
+import { enqueueMail } from "@/db/queries/outbox";
+import { customers, userTokens, users } from "@/db/schema";
+import { hashPassword } from "@/lib/auth/password";
+import { ROLE_LABELS, type Actor } from "@/lib/auth/roles";
+import { publicUrl } from "@/lib/env";
+import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
+import type { userInviteSchema, userUpdateSchema } from "@/lib/validations/registers";
+
+export const INVITE_TTL_MS = 72 * 3600_000;
+
+/** Only a SHA-256 of a token is stored; the token itself exists only in the e-mail. */
+export function tokenHash(token: string): string {
+  return createHash("sha256").update(token, "utf8").digest("hex");
+}
+
+function requireAdmin(actor: Actor) {
+  if (actor.role !== "admin") throw forbidden("People are managed by the administrator.");
+}
+
+/**
+ * Invites a person: the account (no password yet), a one-time set-password token (72 h) and the
+ * e-mail with its link, in one transaction, audited. Returns the token only to tests that call
+ * this directly; the UI never shows it.
+ */
+export async function inviteUser(actor: Actor, input: z.infer<typeof userInviteSchema>) {
+  requireAdmin(actor);
+  const email = input.email.trim();
+  const [dupe] = await db.select({ id: users.id }).from(users).where(sql`lower(${users.email}) = ${email.toLowerCase()}`);
+  if (dupe) throw invalid("Someone with that e-mail already has an account.", [{ field: "email", message: "Already in use." }]);
+  if (input.customerId) {
+    const [c] = await db.select({ id: customers.id }).from(customers).where(eq(customers.id, input.customerId));
+    if (!c) throw invalid("No such customer.", [{ field: "customerId", message: "Choose a customer from the register." }]);
+  }
+  const token = randomBytes(32).toString("base64url");
+  return db.transaction(async (tx) => {
+    const [u] = await tx.insert(users).values({ email, name: input.name, role: input.role, customerId: input.customerId ?? null, passwordHash: null }).returning();
+    await tx.insert(userTokens).values({ userId: u!.id, purpose: "invite", tokenHash: tokenHash(token), expiresAt: new Date(Date.now() + INVITE_TTL_MS) });
+    await enqueueMail(tx, {
+      dedupeKey: `invite:${u!.id}`,
+      to: email,
+      subject: "You are invited to Trammel",
+      text: `Hello ${input.name},\n\n${actor.name} invited you to Trammel as ${ROLE_LABELS[input.role].toLowerCase()}.\nSet your password here within 72 hours (the link works once):\n${publicUrl}/set-password?token=${token}\n`,
+    });
+    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: "user.invited", entityType: "user", entityId: u!.id, newValues: { email, name: input.name, role: input.role, customerId: input.customerId ?? null } });
+    return { userId: u!.id, token };
+  });
+}
+
+/**
+ * Sets a password with a one-time token. The token is matched by its hash, must be unused and
+ * unexpired, and is used up in the same transaction that stores the password.
+ */
+export async function setPasswordWithToken(token: string, password: string) {
+  const hash = tokenHash(token);
+  const passwordHash = await hashPassword(password);
+  return db.transaction(async (tx) => {
+    const [t] = await tx
+      .select()
+      .from(userTokens)
+      .where(and(eq(userTokens.tokenHash, hash), isNull(userTokens.usedAt), gt(userTokens.expiresAt, new Date())))
+      .for("update");
+    if (!t) throw new AppError(410, "token_invalid", "This link has expired or has already been used. Ask the administrator for a new invitation.");
+    await tx.update(userTokens).set({ usedAt: new Date() }).where(eq(userTokens.id, t.id));
+    await tx.update(users).set({ passwordHash, sessionsValidAfter: new Date() }).where(eq(users.id, t.userId));
+    const [u] = await tx.select({ email: users.email }).from(users).where(eq(users.id, t.userId));
+    await appendAudit(tx, { actorId: t.userId, actorEmail: u?.email ?? null, action: "user.password_set", entityType: "user", entityId: t.userId, newValues: { purpose: t.purpose } });
+    return { email: u?.email ?? "" };
+  });
+}
+
+/**
+ * Disables/enables an account or changes its role. Either takes effect on the user's next
+ * request (lib/auth/session reads role and disabled from the database each time); setting
+ * sessionsValidAfter also ends the sessions already open.
+ */
+export async function updateUser(actor: Actor, input: z.infer<typeof userUpdateSchema>) {
+  requireAdmin(actor);
+  if (input.userId === actor.id) throw forbidden("You cannot disable yourself or change your own role.");
+  const [before] = await db.select().from(users).where(eq(users.id, input.userId));
+  if (!before) throw notFound("user");
+  const set: Partial<typeof users.$inferInsert> = {};
+  if (input.role && input.role !== before.role) {
+    if ((input.role === "customer") !== Boolean(before.customerId)) throw invalid("Customer users belong to a customer; staff to none. Invite a new account instead.", [{ field: "role", message: "Cannot move between staff and customer." }]);
+    set.role = input.role;
+  }
+  if (input.disabled !== undefined && input.disabled !== before.disabled) set.disabled = input.disabled;
+  if (Object.keys(set).length === 0) return { changed: false };
+  set.sessionsValidAfter = new Date();
+  await db.transaction(async (tx) => {
+    await tx.update(users).set(set).where(eq(users.id, before.id));
+    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: "user.updated", entityType: "user", entityId: before.id, oldValues: { role: before.role, disabled: before.disabled }, newValues: { role: set.role ?? before.role, disabled: set.disabled ?? before.disabled } });
+  });
+  return { changed: true };
+}
+
+export async function listCustomersForSelect() {
+  return db.select({ id: customers.id, name: customers.name }).from(customers).orderBy(asc(customers.name));
+}

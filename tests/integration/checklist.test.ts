@@ -1,0 +1,233 @@
+// Checklist readings, the comparison, status moves, the outbox worker and the invitation flow
+// against the real database. Each test that changes a job's state uses a job of its own.
+import { once } from "node:events";
+import type { AddressInfo } from "node:net";
+import { and, eq, inArray, sql } from "drizzle-orm";
+import { simpleParser, type ParsedMail } from "mailparser";
+import nodemailer from "nodemailer";
+import { SMTPServer } from "smtp-server";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { GET as comparisonRoute } from "@/app/api/jobs/[id]/comparison/route";
+import { GET as comparisonCsvRoute } from "@/app/api/jobs/[id]/comparison/csv/route";
+import { GET as readingsGet, POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
+import { db } from "@/db";
+import { changeJobStatus } from "@/db/queries/job-status";
+import { getActor } from "@/db/queries/users";
+import { inviteUser, setPasswordWithToken, tokenHash, updateUser } from "@/db/queries/users-admin";
+import { auditEvents, instruments, jobs, outbox, readings, templateSteps, userTokens, users } from "@/db/schema";
+import { verifyPassword } from "@/lib/auth/password";
+import type { Actor } from "@/lib/auth/roles";
+import { AppError } from "@/lib/errors";
+import { processOutbox } from "@/lib/mail/worker";
+import { jobIdByReference, request, signInAs } from "./helpers";
+
+let jobId: string;
+const step: Record<number, string> = {};
+const inst: Record<string, string> = {};
+const as: Record<string, Actor> = {};
+
+async function actor(email: string): Promise<Actor> {
+  const [u] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
+  return (await getActor(u!.id))!;
+}
+
+async function post(body: Record<string, unknown>, id = jobId) {
+  const res = await readingsPost(request(`/api/jobs/${id}/readings`, { method: "POST", body: JSON.stringify(body), headers: { "content-type": "application/json" } }), { params: Promise.resolve({ id }) });
+  return { status: res.status, json: await res.json() };
+}
+
+async function failure(p: Promise<unknown>): Promise<AppError> {
+  try {
+    await p;
+  } catch (e) {
+    if (e instanceof AppError) return e;
+    throw e;
+  }
+  throw new Error("expected a refusal");
+}
+
+beforeAll(async () => {
+  for (const e of ["admin@halvard.example", "installer@halvard.example", "engineer@halvard.example"]) as[e.split("@")[0]!] = await actor(e);
+  const [base] = await db.select().from(jobs).where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
+  const [row] = await db
+    .insert(jobs)
+    .values({ reference: `TR-CHK-${Date.now().toString(36)}`, title: "Checklist test job", kind: "reverification", status: "draft", customerId: base!.customerId, machineId: base!.machineId, headId: base!.headId, assignedInstallerId: as.installer!.id, templateId: base!.templateId })
+    .returning();
+  jobId = row!.id;
+  for (const s of await db.select().from(templateSteps).where(eq(templateSteps.templateId, base!.templateId!))) step[s.position] = s.id;
+  for (const i of await db.select().from(instruments)) inst[i.serial] = i.id;
+});
+
+describe("recording readings", () => {
+  it("stores the canonical value (mm) with what was entered (in), and the first reading starts measuring", async () => {
+    await signInAs("installer@halvard.example");
+    const { status, json } = await post({ stepId: step[1], phase: "pre", value: "0.0009", unit: "in", instrumentId: inst["DTI-0112"], note: "before shimming" });
+    expect(status).toBe(201);
+    // 0.0009 in × 25.4 mm/in = 0.02286 mm (NIST SP 811: 1 in = 25.4 mm exactly)
+    expect(json.reading.value).toBeCloseTo(0.02286, 12);
+    expect(json.reading).toMatchObject({ unit: "mm", entered: { value: 0.0009, unit: "in" }, decision: "fail", phase: "pre" });
+    const [j] = await db.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, jobId));
+    expect(j!.status).toBe("measuring");
+    const audit = await db.select().from(auditEvents).where(and(eq(auditEvents.jobId, jobId), eq(auditEvents.action, "reading.recorded")));
+    expect(audit).toHaveLength(1);
+  });
+
+  it("the tilt step turns reading over travel into arc seconds with geometry/ (0.0005 in over 10 in = 10.31″)", async () => {
+    await signInAs("installer@halvard.example");
+    const { status, json } = await post({ stepId: step[5], phase: "pre", value: 0.0005, unit: "in", travel: 10, travelUnit: "in", instrumentId: inst["DTI-0112"] });
+    expect(status).toBe(201);
+    expect(json.reading.unit).toBe("arcsec");
+    expect(json.reading.value).toBeCloseTo(10.31, 2);
+    expect(json.reading.decision).toBe("fail"); // the demo limit is ±10″
+  });
+
+  it("refuses an instrument past its calibration due date, with the reason, and stores nothing", async () => {
+    await signInAs("installer@halvard.example");
+    const before = await db.select().from(readings).where(eq(readings.jobId, jobId));
+    const { status, json } = await post({ stepId: step[1], phase: "post", value: 0.0003, unit: "in", instrumentId: inst["DTI-0417"] });
+    expect(status).toBe(422);
+    expect(json.error.message).toMatch(/DTI-0417 was due for calibration on 2026-09-30/);
+    expect(json.error.issues[0].field).toBe("instrumentId");
+    expect(await db.select().from(readings).where(eq(readings.jobId, jobId))).toHaveLength(before.length);
+  });
+
+  it("refuses an instrument of the wrong kind and bad input, naming the field", async () => {
+    await signInAs("installer@halvard.example");
+    const wrong = await post({ stepId: step[1], phase: "post", value: 0.0003, unit: "in", instrumentId: inst["EL-0007"] });
+    expect(wrong.status).toBe(422);
+    expect(wrong.json.error.message).toMatch(/EL-0007 measures angles/);
+    const bad = await post({ stepId: step[1], phase: "later", value: "abc", unit: "in", instrumentId: inst["DTI-0112"] });
+    expect(bad.status).toBe(422);
+    expect(bad.json.error.issues.map((i: { field: string }) => i.field).sort()).toEqual(["phase", "value"]);
+    const notOurs = await post({ stepId: "00000000-0000-4000-8000-000000000000", phase: "pre", value: 1, unit: "in", instrumentId: inst["DTI-0112"] });
+    expect(notOurs.status).toBe(422);
+    expect(notOurs.json.error.issues[0].field).toBe("stepId");
+  });
+
+  it("a correction supersedes the old reading and keeps it; the old one cannot be corrected twice", async () => {
+    await signInAs("installer@halvard.example");
+    const first = await post({ stepId: step[1], phase: "post", value: 0.0006, unit: "in", instrumentId: inst["DTI-0112"] });
+    const fix = await post({ stepId: step[1], phase: "post", value: 0.0003, unit: "in", instrumentId: inst["DTI-0112"], note: "misread the dial", supersedesId: first.json.reading.id });
+    expect(fix.status).toBe(201);
+    const [old] = await db.select().from(readings).where(eq(readings.id, first.json.reading.id));
+    expect(old!.value).toBeCloseTo(0.01524, 12);
+    expect(old!.supersededById).toBe(fix.json.reading.id);
+    const again = await post({ stepId: step[1], phase: "post", value: 0.0002, unit: "in", instrumentId: inst["DTI-0112"], supersedesId: first.json.reading.id });
+    expect(again.status).toBe(409);
+    const list = await readingsGet(request("/x"), { params: Promise.resolve({ id: jobId }) });
+    const body = await list.json();
+    expect(body.readings.find((r: { id: string }) => r.id === first.json.reading.id).supersededById).toBe(fix.json.reading.id);
+    const audit = await db.select().from(auditEvents).where(and(eq(auditEvents.entityId, fix.json.reading.id), eq(auditEvents.action, "reading.corrected")));
+    expect(audit).toHaveLength(1);
+  });
+
+  it("the comparison shows pre, post, change and status per step, skipping the superseded reading", async () => {
+    await signInAs("buyer@marlowcreek.example");
+    const res = await comparisonRoute(request("/x"), { params: Promise.resolve({ id: jobId }) });
+    expect(res.status).toBe(200);
+    const c = await res.json();
+    const s1 = c.steps.find((s: { position: number }) => s.position === 1);
+    expect(s1.pre.value).toBeCloseTo(0.02286, 12);
+    expect(s1.post.value).toBeCloseTo(0.00762, 12);
+    expect(s1.change).toBeCloseTo(-0.01524, 12);
+    expect(s1).toMatchObject({ unit: "mm", status: "pass", limitSource: "common_practice", pre: { decision: "fail" }, post: { decision: "pass" } });
+    expect(c.steps.find((s: { position: number }) => s.position === 3).status).toBe("not_measured");
+    const csv = await (await comparisonCsvRoute(request("/x"), { params: Promise.resolve({ id: jobId }) })).text();
+    expect(csv.split("\r\n")[0]).toMatch(/^step,title,quantity,unit,lower_limit,upper_limit/);
+    expect(csv).toContain("Mount the adapter collar and prove its face");
+  });
+});
+
+describe("status moves", () => {
+  it("an installer cannot approve; submitting for review notifies engineers and inspectors and locks the readings", async () => {
+    const e = await failure(changeJobStatus(as.installer!, jobId, "approved"));
+    expect(e.status).toBe(403);
+    await changeJobStatus(as.installer!, jobId, "in_review");
+    const mails = await db.select().from(outbox).where(eq(outbox.jobId, jobId));
+    expect(mails.map((m) => m.toAddress).sort()).toEqual(["engineer@halvard.example", "inspector@halvard.example"]);
+    expect(mails[0]!.textBody).toContain(`/jobs/${jobId}/compare`);
+    await signInAs("installer@halvard.example");
+    const locked = await post({ stepId: step[2], phase: "pre", value: 0.09, unit: "in", instrumentId: inst["FG-0031"] });
+    expect(locked.status).toBe(403);
+    expect(locked.json.error.message).toMatch(/in review; its readings are locked/);
+    // Issue goes through the signed report, not a bare status change.
+    await changeJobStatus(as.engineer!, jobId, "approved");
+    expect((await failure(changeJobStatus(as.engineer!, jobId, "issued"))).status).toBe(403);
+  });
+});
+
+describe("outbox worker", () => {
+  let server: SMTPServer;
+  let port: number;
+  const inbox: ParsedMail[] = [];
+
+  beforeAll(async () => {
+    server = new SMTPServer({ authOptional: true, disabledCommands: ["STARTTLS"], logger: false, onData(s, _x, cb) { simpleParser(s).then((m) => { inbox.push(m); cb(); }, cb); } });
+    server.listen(0, "127.0.0.1");
+    await once(server.server, "listening");
+    port = (server.server.address() as AddressInfo).port;
+  });
+  afterAll(async () => {
+    await new Promise<void>((r) => server.close(() => r()));
+  });
+
+  it("two concurrent workers claim disjoint rows: every due message is delivered exactly once", async () => {
+    const tag = Date.now().toString(36);
+    await db.insert(outbox).values(Array.from({ length: 12 }, (_, i) => ({ dedupeKey: `test:${tag}:${i}`, toAddress: `person${i}@halvard.example`, subject: `Test ${tag} ${i}`, textBody: `Message ${i}` })));
+    const due = await db.select({ id: outbox.id }).from(outbox).where(and(eq(outbox.status, "pending"), sql`${outbox.nextAttemptAt} <= now()`));
+    const transport = () => nodemailer.createTransport({ host: "127.0.0.1", port, secure: false, ignoreTLS: true });
+    const [a, b] = await Promise.all([processOutbox({ transport: transport(), limit: 50 }), processOutbox({ transport: transport(), limit: 50 })]);
+    expect(a.claimed + b.claimed).toBe(due.length);
+    expect(a.failed + b.failed).toBe(0);
+    const ids = inbox.map((m) => m.headers.get("x-trammel-outbox-id"));
+    expect(new Set(ids).size).toBe(ids.length);
+    expect(ids.length).toBe(due.length);
+    expect(inbox.filter((m) => m.subject?.startsWith(`Test ${tag}`))).toHaveLength(12);
+    const rows = await db.select().from(outbox).where(inArray(outbox.id, due.map((d) => d.id)));
+    expect(rows.every((r) => r.status === "sent" && r.attempts === 1 && r.sentAt)).toBe(true);
+    // A second run finds nothing left to send.
+    expect((await processOutbox({ transport: transport() })).claimed).toBe(0);
+  });
+
+  it("a failed send is kept pending with the error and retried later (exponential backoff)", async () => {
+    const key = `test-fail:${Date.now().toString(36)}`;
+    await db.insert(outbox).values({ dedupeKey: key, toAddress: "nobody@halvard.example", subject: "Will fail", textBody: "x" });
+    const broken = nodemailer.createTransport({ host: "127.0.0.1", port: 1, secure: false, connectionTimeout: 2000 });
+    const r = await processOutbox({ transport: broken });
+    expect(r.failed).toBeGreaterThanOrEqual(1);
+    const [row] = await db.select().from(outbox).where(eq(outbox.dedupeKey, key));
+    expect(row).toMatchObject({ status: "pending", attempts: 1 });
+    expect(row!.lastError).toBeTruthy();
+    expect(row!.nextAttemptAt.getTime()).toBeGreaterThan(Date.now() + 20_000);
+  });
+});
+
+describe("invitation and set-password", () => {
+  it("invites by e-mail with a one-time link; only the token's SHA-256 is stored; the link sets the password once", async () => {
+    const email = `new.${Date.now().toString(36)}@halvard.example`;
+    const { userId, token } = await inviteUser(as.admin!, { email, name: "New Installer", role: "installer" });
+    const [t] = await db.select().from(userTokens).where(eq(userTokens.userId, userId));
+    expect(t!.tokenHash).toBe(tokenHash(token));
+    expect(t!.tokenHash).not.toContain(token);
+    const [mail] = await db.select().from(outbox).where(eq(outbox.dedupeKey, `invite:${userId}`));
+    expect(mail!.textBody).toContain(`/set-password?token=${token}`);
+    await setPasswordWithToken(token, "a-long-new-password");
+    const [u] = await db.select().from(users).where(eq(users.id, userId));
+    expect(await verifyPassword("a-long-new-password", u!.passwordHash)).toBe(true);
+    expect((await failure(setPasswordWithToken(token, "another-password"))).status).toBe(410);
+    expect((await failure(setPasswordWithToken("x".repeat(43), "another-password"))).status).toBe(410);
+  });
+
+  it("only an administrator invites; disabling and a role change end open sessions", async () => {
+    expect((await failure(inviteUser(as.engineer!, { email: "x@halvard.example", name: "X", role: "installer" }))).status).toBe(403);
+    const { userId } = await inviteUser(as.admin!, { email: `role.${Date.now().toString(36)}@halvard.example`, name: "Role Change", role: "installer" });
+    const signedIn = Date.now() - 1000;
+    expect(await getActor(userId, signedIn)).not.toBeNull();
+    await updateUser(as.admin!, { userId, role: "inspector" });
+    expect(await getActor(userId, signedIn)).toBeNull();
+    expect((await getActor(userId, Date.now() + 1000))!.role).toBe("inspector");
+    await updateUser(as.admin!, { userId, disabled: true });
+    expect(await getActor(userId, Date.now() + 1000)).toBeNull();
+    expect((await failure(updateUser(as.admin!, { userId: as.admin!.id, disabled: true }))).status).toBe(403);
+  });
+});
