@@ -15,7 +15,8 @@
  *   λ ← λ·max(1/3, 1 − (2ρ − 1)³), else λ ← λ·ν, ν ← 2ν;
  * - stop when the scaled step is small, ‖Dδ‖ ≤ xtol·(‖Dθ‖ + xtol); or when the gradient is
  *   orthogonal to every column, maxⱼ |(Jᵀr)ⱼ| / (dⱼ·√S) ≤ gtol; or when the actual and predicted
- *   relative reductions of S are both ≤ ftol.
+ *   relative reductions of S are both ≤ ftol, or the predicted one alone (the step would only move
+ *   θ within the rounding of S).
  * Covariance of the estimate: s²·(JᵀJ)⁻¹ with s² = S / (m − p) (e.g. NIST StRD's certified
  * standard deviations are computed this way).
  */
@@ -139,6 +140,11 @@ export function levenbergMarquardt(problem: LmProblem, initial: ArrayLike<number
         for (let j = 0; j < p; j++) row += jtj[i * p + j]! * step[j]!;
         pred -= 2 * step[i]! * jtr[i]! + step[i]! * row;
       }
+      // A predicted reduction at the level of rounding in S: θ is as good as the data allow.
+      if (pred <= ftol * S) {
+        reason = "cost";
+        break;
+      }
       const Snew = problem.sumOfSquares(trial);
       const actual = S - Snew;
       const rho = pred > 0 && Number.isFinite(Snew) ? actual / pred : -1;
@@ -227,8 +233,8 @@ export function residualProblem(
         const rk = r[k]!;
         for (let i = 0; i < p; i++) {
           const ji = jac[k * p + i]!;
-          jtr[i] += ji * rk;
-          for (let j = i; j < p; j++) jtj[i * p + j] += ji * jac[k * p + j]!;
+          jtr[i] = jtr[i]! + ji * rk;
+          for (let j = i; j < p; j++) jtj[i * p + j] = jtj[i * p + j]! + ji * jac[k * p + j]!;
         }
       }
       for (let i = 0; i < p; i++) for (let j = 0; j < i; j++) jtj[i * p + j] = jtj[j * p + i]!;
