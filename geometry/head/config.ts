@@ -5,7 +5,9 @@
 import { GeometryError, type GeometryIssue } from "../errors";
 
 export type AxisLetter = "A" | "B" | "C";
-export type Vec3 = readonly [number, number, number];
+/** Three components (x, y, z); the unit is in the name of whatever holds it. Same shape as circle.ts's Vec3. */
+export type HeadVec3 = readonly [number, number, number];
+type Vec3 = HeadVec3;
 
 export interface HeadConfig {
   /** Primary rotary axis (the one nearer the host spindle), e.g. "C". */

@@ -19,7 +19,7 @@ import {
   type HeadConfig,
   type HeadParameterKey,
   type HeadParameterUnit,
-  type Vec3,
+  type HeadVec3 as Vec3,
 } from "./config";
 import { analyseHeadIdentifiability, initialFreeSet, type Identifiability, type ParameterSelection } from "./identifiability";
 import { NP } from "./kernel";

@@ -21,7 +21,7 @@
  * The test (tests/unit/geometry/head-model.test.ts) checks these against central differences.
  */
 import { RAD_PER_ARCSEC, RAD_PER_DEG } from "../units";
-import type { HeadAxes, Vec3 } from "./config";
+import type { HeadAxes, HeadVec3 as Vec3 } from "./config";
 
 /** Number of error parameters. */
 export const NP = 10;

@@ -4,7 +4,7 @@
  * in µm and arc seconds as their keys say.
  */
 import { GeometryError } from "../errors";
-import { headAxes, HEAD_PARAMETER_KEYS, type HeadConfig, type HeadErrors, type Vec3 } from "./config";
+import { headAxes, HEAD_PARAMETER_KEYS, type HeadConfig, type HeadErrors, type HeadVec3 as Vec3 } from "./config";
 import { HeadKernel } from "./kernel";
 
 export { rodriguesRotate } from "./kernel";

@@ -5,7 +5,7 @@
  */
 import { GeometryError } from "../errors";
 import type { SphereProbeData } from "../types";
-import { headAxes, type HeadConfig, type HeadErrors, type Vec3 } from "./config";
+import { headAxes, type HeadConfig, type HeadErrors, type HeadVec3 as Vec3 } from "./config";
 import { HeadKernel } from "./kernel";
 import { headErrorVector, type HeadPose } from "./model";
 
