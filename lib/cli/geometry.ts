@@ -25,7 +25,7 @@ import { choiceOption, CliUsageError, numberOption, type CliCommand, type CliCon
 //   `export const headCommands: Record<string, CliCommand> = { "fit-head": …, plan: … }`
 // using the CliCommand type of ./command.ts. To register them, uncomment this import and the
 // `...headCommands` line in `commands` below.
-// import { headCommands } from "./head-commands";
+import { headCommands } from "./head-commands";
 
 const decimalOf = (ctx: CliContext) => choiceOption(ctx, "decimal", ["point", "comma"] as const, "point");
 const passWarnings = (ctx: CliContext, warnings: readonly CsvWarning[]) => warnings.forEach((w) => ctx.warn(formatIssue(w)));
@@ -110,7 +110,7 @@ export const commands: Readonly<Record<string, CliCommand>> = {
   tram,
   sweep,
   "test-part": testPart,
-  // ...headCommands, // HEAD COMMANDS: see the import above.
+  ...headCommands, // HEAD COMMANDS: see the import above.
 };
 
 function help(): string {
