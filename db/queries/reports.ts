@@ -3,7 +3,8 @@ import { and, asc, desc, eq, isNull, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
-import { datasets, jobs, outbox, readings, reports, signatures, templateSteps, users } from "@/db/schema";
+import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
+import { datasets, instruments, jobs, outbox, readings, reports, signatures, templateSteps, users } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
 import { ROLE_LABELS, SIGNATURE_LABELS, signatureRefusal, type Actor, type SignatureMeaningKey } from "@/lib/auth/roles";
 import { canonicalJson } from "@/lib/canonical-json";
@@ -130,8 +131,39 @@ async function reportReadings(jobId: string): Promise<ReportData["readings"]> {
   });
 }
 
+/** Instruments used for the job's current readings, with calibration status on the day of issue. */
+async function reportInstruments(jobId: string, on: Date): Promise<ReportData["instruments"]> {
+  const rows = await db
+    .selectDistinct({ kind: instruments.kind, serial: instruments.serial, quantityKind: instruments.quantityKind, resolution: instruments.resolution, u: instruments.standardUncertainty, due: instruments.calibrationDueOn })
+    .from(readings)
+    .innerJoin(instruments, eq(instruments.id, readings.instrumentId))
+    .where(and(eq(readings.jobId, jobId), isNull(readings.supersededById)))
+    .orderBy(asc(instruments.serial));
+  const day = on.toISOString().slice(0, 10);
+  const fmt = (v: number, kind: string) => (kind === "angle" ? `${v.toFixed(1)}″` : v >= 0.001 ? `${v.toFixed(4)} mm` : `${(v * 1000).toFixed(2)} µm`);
+  return rows.map((r) => ({ kind: r.kind, serial: r.serial, resolution: fmt(r.resolution, r.quantityKind), uncertainty: fmt(r.u, r.quantityKind), calibrationDue: r.due, status: r.due >= day ? "In calibration" : "Past due" }));
+}
+
+const TEST_PART_DECIMALS: Record<string, number> = { mm: 3, in: 4, um: 1, deg: 3, arcsec: 1 };
+
+/** The latest test-part dataset (after adjustment preferred), judged under the job's decision rule. */
+async function reportTestPart(actor: Actor, jobId: string): Promise<ReportData["testPart"]> {
+  const list = ((await listDatasets(actor, jobId)) ?? []).filter((x) => x.kind === "test_part" && x.status === "stored");
+  const pick = list.find((x) => x.phase === "post") ?? list[0];
+  if (!pick) return [];
+  const ev = await getTestPartEvaluation(actor, pick.id);
+  if (!ev?.evaluation) return [];
+  return ev.evaluation.rows.map((r) => {
+    const dp = TEST_PART_DECIMALS[r.unit] ?? 3;
+    const v = (x: number) => `${x.toFixed(dp)} ${r.unit === "um" ? "µm" : r.unit}`;
+    const signed = (x: number) => `${x >= 0 ? "+" : "−"}${Math.abs(x).toFixed(dp)}`;
+    const limits = `${r.lower_limit === null ? "—" : r.lower_limit.toFixed(dp)} / ${r.upper_limit.toFixed(dp)}`;
+    return { feature: r.feature, characteristic: r.characteristic, nominal: v(r.nominal), measured: v(r.measured), deviation: signed(r.deviation), limits, expanded: r.U.toFixed(dp), decision: r.decision };
+  });
+}
+
 /** Assembles everything the report shows from the database. */
-export async function buildReportData(d: JobDetail, meta: { reportId: string; revision: number; issuedAt: Date; approval: ReportSignature; amendment?: ReportData["amendment"] }): Promise<ReportData> {
+export async function buildReportData(actor: Actor, d: JobDetail, meta: { reportId: string; revision: number; issuedAt: Date; approval: ReportSignature; amendment?: ReportData["amendment"] }): Promise<ReportData> {
   const sigs = await db.select().from(signatures).where(and(eq(signatures.jobId, d.job.id), isNull(signatures.reportId))).orderBy(asc(signatures.signedAt));
   const data: Omit<ReportData, "contentSha256"> = {
     reportId: meta.reportId,
@@ -152,10 +184,10 @@ export async function buildReportData(d: JobDetail, meta: { reportId: string; re
       method: "Indicator readings against the checklist limits; kinematic fit from sphere-probe data (geometry model stated in the product documentation)",
       decisionRule: d.job.decisionRule === "guarded" ? "Guarded acceptance per ISO 14253-1 (limits shrunk by U for pass, grown by U for fail)" : "Simple acceptance: the expanded uncertainty is stated, not subtracted",
     },
-    instruments: [],
+    instruments: await reportInstruments(d.job.id, meta.issuedAt),
     readings: await reportReadings(d.job.id),
     parameters: [],
-    testPart: [],
+    testPart: await reportTestPart(actor, d.job.id),
     figures: [],
     remarks: d.job.notes ? [d.job.notes] : [],
     safety: [
@@ -198,7 +230,7 @@ export async function issueReport(actor: Actor, input: { jobId: string; password
   const revision = (current?.revision ?? 0) + 1;
   const issuedAt = new Date();
   const approval = signatureLine({ signerName: actor.name, signerRole: actor.role, meaning: "approved", signedAt: issuedAt });
-  const content = await buildReportData(d, {
+  const content = await buildReportData(actor, d, {
     reportId,
     revision,
     issuedAt,
