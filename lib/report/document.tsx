@@ -207,12 +207,12 @@ export function ReportDocument({ data, qrDataUrl }: { data: ReportData; qrDataUr
           rows={data.testPart}
           empty="No test part was measured for this report."
           cols={[
-            { header: "Feature", width: "17%", cell: (r) => r.feature },
-            { header: "Characteristic", width: "16%", cell: (r) => r.characteristic },
+            { header: "Feature", width: "14%", cell: (r) => r.feature },
+            { header: "Characteristic", width: "15%", cell: (r) => r.characteristic },
             { header: "Nominal", width: "12%", cell: (r) => r.nominal, numeric: true },
             { header: "Measured", width: "12%", cell: (r) => r.measured, numeric: true },
-            { header: "Deviation", width: "11%", cell: (r) => r.deviation, numeric: true },
-            { header: "Limits", width: "11%", cell: (r) => r.limits, numeric: true },
+            { header: "Deviation", width: "10%", cell: (r) => r.deviation, numeric: true },
+            { header: "Limits", width: "19%", cell: (r) => r.limits, numeric: true },
             { header: "U", width: "8%", cell: (r) => r.expanded, numeric: true },
             { header: "Result", width: "13%", cell: (r) => DECISION_TEXT[r.decision] },
           ]}
