@@ -54,6 +54,7 @@ export const datasetKindEnum = pgEnum("dataset_kind", ["sphere_probe", "tram", "
 export const datasetStatusEnum = pgEnum("dataset_status", ["stored", "deleted"]);
 export const outboxStatusEnum = pgEnum("outbox_status", ["pending", "sent", "failed"]);
 export const signatureMeaningEnum = pgEnum("signature_meaning", ["performed", "inspected", "approved", "accepted", "rejected"]);
+export const analysisKindEnum = pgEnum("analysis_kind", ["head_fit"]);
 
 /** bytea: drizzle 0.45 has no built-in type for it. Buffers round-trip exactly. */
 export const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
@@ -472,3 +473,35 @@ export const signatures = pgTable(
   (t) => [index("signatures_job_idx").on(t.jobId), index("signatures_report_idx").on(t.reportId)],
 );
 export type Signature = typeof signatures.$inferSelect;
+
+/**
+ * Computations run on a dataset (the head fit). `input_sha256` is SHA-256 over the dataset's
+ * SHA-256 and the canonical JSON of the options and head configuration, so running the same input
+ * with the same geometry version again finds the stored result instead of adding a copy.
+ * `result` is geometry's JSON of the fit (headFitToJson) plus what the page draws (poses and
+ * residuals per pose). Written once; never updated.
+ */
+export const analyses = pgTable(
+  "analyses",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    datasetId: uuid("dataset_id")
+      .notNull()
+      .references(() => datasets.id, { onDelete: "restrict" }),
+    kind: analysisKindEnum("kind").notNull().default("head_fit"),
+    geometryVersion: text("geometry_version").notNull(),
+    inputSha256: text("input_sha256").notNull(),
+    options: jsonb("options").notNull(),
+    result: jsonb("result").notNull(),
+    createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex("analyses_input_idx").on(t.datasetId, t.inputSha256, t.geometryVersion),
+    index("analyses_job_idx").on(t.jobId, t.createdAt),
+  ],
+);
+export type Analysis = typeof analyses.$inferSelect;

@@ -19,3 +19,4 @@ export * from "./head/identifiability";
 export * from "./head/fit";
 export * from "./head/plan";
 export * from "./head/synth";
+export * from "./version";
