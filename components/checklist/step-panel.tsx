@@ -259,7 +259,7 @@ function ReadingsList({ readings, step, unitSystem, canWrite, onCorrect }: { rea
             return (
               <tr key={r.id} className={old ? "text-graphite-500" : ""} data-superseded={old ? "true" : undefined}>
                 <td className="py-2 pr-3">{PHASE_LABELS[r.phase]}</td>
-                <td className={`num py-2 pr-3 text-right ${old ? "line-through" : "font-semibold"}`}>
+                <td className={`num whitespace-nowrap py-2 pr-3 text-right ${old ? "line-through" : "font-semibold"}`}>
                   {formatValue(r.value, step.quantityKind, unitSystem)}
                   {step.derivation === "angle_over_distance" ? <span className="block text-xs font-normal text-graphite-500">from {r.enteredValue} {r.enteredUnit}</span> : null}
                 </td>

@@ -1,0 +1,131 @@
+// Journey 4 in Debian's Chromium against the built app: the installer records readings before and
+// after shimming the collar on the tablet checklist, sees live pass/fail, is refused an instrument
+// past its calibration date, corrects a reading, and compares before and after side by side.
+// The demo values are invented (db/seed-checklists.ts). Does not change the job's status, so the
+// other browser tests see the seeded statuses.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { BrowserContext, Locator, Page } from "playwright-core";
+import { newContext, screenshotPath, signIn } from "./browser";
+
+let ctx: BrowserContext;
+let jobHref: string;
+
+beforeAll(async () => {
+  ctx = await newContext();
+});
+afterAll(async () => {
+  await ctx?.close();
+});
+
+async function chooseInstrument(step: Locator, serial: string) {
+  const select = step.getByLabel("Instrument");
+  const label = (await select.locator("option", { hasText: serial }).textContent())!.trim();
+  await select.selectOption({ label });
+}
+
+async function openChecklist(p: Page) {
+  await signIn(p, "installer@halvard.example");
+  await p.waitForURL("**/jobs");
+  jobHref = (await p.getByRole("link", { name: "TR-2026-0052" }).getAttribute("href"))!;
+  await p.goto(`${jobHref}/checklist`);
+  await expect.poll(() => p.getByRole("heading", { name: "Procedure checklist" }).isVisible()).toBe(true);
+}
+
+describe("journey 4: readings before and after an adjustment, compared side by side", () => {
+  it("records, refuses an expired instrument, corrects, and compares", async () => {
+    await ctx.clearCookies();
+    const p = await ctx.newPage();
+    await openChecklist(p);
+    const step1 = p.getByTestId("step-1");
+    // The limit is shown in the installer's inch units, with its source.
+    expect(await step1.getByTestId("limits-1").innerText()).toBe("≤ 0.0005 in");
+    expect(await step1.innerText()).toMatch(/Common practice/);
+    expect(await step1.getByRole("note").innerText()).toMatch(/Lock out.*machine builder's manual/s);
+
+    // After shimming: pick the phase, type the value and watch the live result.
+    await step1.getByLabel("After adjustment").check();
+    const value = step1.getByLabel(/Collar face flatness \(TIR\) \(in\)/);
+    await value.fill("0.0009");
+    await expect.poll(() => step1.getByTestId("live-1").innerText()).toMatch(/Fail/);
+    await value.fill("0.0003");
+    await expect.poll(() => step1.getByTestId("live-1").innerText()).toMatch(/Pass/);
+
+    // An indicator past its calibration due date is refused by the server, with the reason.
+    await chooseInstrument(step1, "DTI-0417");
+    await step1.getByRole("button", { name: "Save reading" }).click();
+    await expect.poll(() => step1.getByRole("alert").first().innerText()).toMatch(/DTI-0417 was due for calibration on 2026-09-30/);
+    await p.screenshot({ path: screenshotPath("checklist-expired-instrument") });
+
+    await chooseInstrument(step1, "DTI-0112");
+    await step1.getByLabel(/^Note/).fill("after a 0.0004 in shim at 4 o'clock");
+    await step1.getByRole("button", { name: "Save reading" }).click();
+    await expect.poll(() => step1.getByRole("status").innerText()).toMatch(/Reading saved: pass/);
+    await expect.poll(() => step1.locator("tbody tr").filter({ hasText: "0.0003 in" }).count()).toBeGreaterThan(0);
+
+    // Step 4 before and after setting the secondary zero; the post reading is first mistyped, then corrected.
+    const step4 = p.getByTestId("step-4");
+    const v4 = step4.getByLabel(/Secondary axis: indicator difference across the head \(in\)/);
+    await step4.getByLabel("After adjustment").check();
+    await v4.fill("0.0010");
+    await step4.getByRole("button", { name: "Save reading" }).click();
+    await expect.poll(() => step4.getByRole("status").innerText()).toMatch(/Reading saved: fail/);
+    const wrongRow = step4.locator("tbody tr:not([data-superseded])").filter({ hasText: "0.0010 in" }).first();
+    await wrongRow.getByRole("button", { name: "Correct" }).click();
+    await v4.fill("0.0001");
+    await step4.getByLabel(/^Note/).fill("misread the dial");
+    await step4.getByRole("button", { name: "Save correction" }).click();
+    await expect.poll(() => step4.getByRole("status").innerText()).toMatch(/Correction saved: pass/);
+    // The mistyped reading is kept and marked as corrected, not overwritten.
+    await expect.poll(() => step4.locator('tr[data-superseded="true"]').filter({ hasText: "0.0010 in" }).count()).toBeGreaterThan(0);
+    await p.screenshot({ path: screenshotPath("checklist-desktop"), fullPage: true });
+
+    // Compare: every step with before, after, change, limits and result.
+    await p.getByRole("link", { name: "Compare", exact: true }).click();
+    await p.waitForURL(/\/compare$/);
+    expect(await p.getByTestId("compare-pre-1").innerText()).toMatch(/0\.0007 in[\s\S]*Fail/);
+    expect(await p.getByTestId("compare-post-1").innerText()).toMatch(/0\.0003 in[\s\S]*Pass/);
+    expect(await p.getByTestId("compare-change-1").innerText()).toBe("−0.0004 in");
+    expect(await p.getByTestId("compare-status-1").innerText()).toMatch(/Pass/);
+    expect(await p.getByTestId("compare-pre-4").innerText()).toMatch(/0\.0005 in[\s\S]*Fail/);
+    expect(await p.getByTestId("compare-post-4").innerText()).toMatch(/0\.0001 in[\s\S]*Pass/);
+    expect(await p.getByTestId("compare-change-4").innerText()).toBe("−0.0004 in");
+    expect(await p.getByTestId("compare-status-6").innerText()).toMatch(/Not measured/);
+    expect(await p.getByTestId("band-chart").isVisible()).toBe(true);
+    await p.screenshot({ path: screenshotPath("compare-desktop"), fullPage: true });
+
+    // The same comparison in metric, by the user's choice; stored values are unchanged.
+    await p.getByRole("button", { name: "Metric" }).click();
+    await expect.poll(() => p.getByTestId("compare-post-1").innerText()).toMatch(/0\.008 mm/);
+    await p.getByRole("button", { name: "Inch" }).click();
+    await expect.poll(() => p.getByTestId("compare-post-1").innerText()).toMatch(/0\.0003 in/);
+    await p.close();
+  });
+
+  it("works on a tablet: large targets, the checklist and the comparison fit the screen", async () => {
+    const tablet = await newContext({ width: 820, height: 1180 });
+    try {
+      const p = await tablet.newPage();
+      await openChecklist(p);
+      const save = p.getByTestId("step-2").getByRole("button", { name: "Save reading" });
+      const box = (await save.boundingBox())!;
+      expect(box.height).toBeGreaterThanOrEqual(44);
+      const radio = (await p.getByTestId("step-2").locator("label", { hasText: "Before adjustment" }).boundingBox())!;
+      expect(radio.height).toBeGreaterThanOrEqual(40);
+      // The page does not scroll sideways on the tablet.
+      expect(await p.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth + 1)).toBe(true);
+      await p.screenshot({ path: screenshotPath("checklist-tablet") });
+      await p.getByTestId("step-5").scrollIntoViewIfNeeded();
+      const step5 = p.getByTestId("step-5");
+      await step5.getByLabel(/Change in reading over the travel/).fill("0.0001");
+      // 0.0001 in over the default 4 in of travel: 25 µm/m, 5.2″ (geometry/angle)
+      await expect.poll(() => step5.getByTestId("live-5").innerText()).toMatch(/Pass[\s\S]*5\.2″ \(25\.0 µm\/m\)/);
+      await step5.screenshot({ path: screenshotPath("checklist-tablet-tilt-step") });
+      await p.goto(`${jobHref}/compare`);
+      await expect.poll(() => p.getByTestId("compare-table").isVisible()).toBe(true);
+      await p.screenshot({ path: screenshotPath("compare-tablet"), fullPage: true });
+      await p.close();
+    } finally {
+      await tablet.close();
+    }
+  });
+});
