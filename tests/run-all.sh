@@ -17,6 +17,8 @@ step() { echo; echo "== $* ($(( $(date +%s) - t0 )) s)"; }
 cleanup() {
   [ -f .data/test-app.pid ] && kill -- -"$(cat .data/test-app.pid)" 2>/dev/null || true
   rm -f .data/test-app.pid
+  [ -f .data/test-smtp.pid ] && kill -- -"$(cat .data/test-smtp.pid)" 2>/dev/null || true
+  rm -f .data/test-smtp.pid
   DATABASE_URL= bash db/pg.sh stop || true
 }
 trap cleanup EXIT
@@ -42,7 +44,10 @@ export DATABASE_URL=$(bash db/pg.sh url trammel_e2e)
 npm run -s db:migrate
 npm run -s db:seed
 NEXT_SKIP_TYPECHECK=1 NEXT_DIST_DIR=.next-test npx next build >.data/test-build.log 2>&1 || { tail -60 .data/test-build.log; exit 1; }
-NEXT_DIST_DIR=.next-test NEXTAUTH_URL=http://127.0.0.1:$APP_PORT setsid npx next start -p $APP_PORT -H 127.0.0.1 >.data/test-app.log 2>&1 &
+# The app's outbox worker sends to a local SMTP fake of its own (mail lands in .data/test-mail).
+MAIL_DIR=.data/test-mail SMTP_FAKE_PORT=2526 setsid npx tsx lib/mail/fake-smtp.ts >.data/test-smtp.log 2>&1 &
+echo $! >.data/test-smtp.pid
+SMTP_URL=smtp://127.0.0.1:2526 NEXT_DIST_DIR=.next-test NEXTAUTH_URL=http://127.0.0.1:$APP_PORT setsid npx next start -p $APP_PORT -H 127.0.0.1 >.data/test-app.log 2>&1 &
 echo $! >.data/test-app.pid
 for _ in $(seq 60); do curl -sf "http://127.0.0.1:$APP_PORT/api/health" >/dev/null && break; sleep 0.5; done
 curl -sf "http://127.0.0.1:$APP_PORT/api/health" >/dev/null || { echo "the app did not start:"; tail -40 .data/test-app.log; exit 1; }

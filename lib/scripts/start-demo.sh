@@ -26,4 +26,7 @@ cat >&2 <<TXT
     engineer@halvard.example  buyer@marlowcreek.example  buyer@tollan.example
 
 TXT
+# A local SMTP fake for the outbox (mail lands in .data/mail); Ctrl-C stops it with the app.
+npx tsx lib/mail/fake-smtp.ts >.data/fake-smtp.log 2>&1 &
+export SMTP_URL=${SMTP_URL:-smtp://127.0.0.1:2525}
 exec npx next start -p "$PORT" -H "${HOST:-127.0.0.1}"
