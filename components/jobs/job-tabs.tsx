@@ -11,6 +11,7 @@ export const JOB_TABS: ReadonlyArray<{ segment: string; label: string }> = [
   { segment: "", label: "Overview" },
   { segment: "checklist", label: "Checklist" },
   { segment: "compare", label: "Compare" },
+  { segment: "data", label: "Data" },
   { segment: "report", label: "Report" },
   { segment: "activity", label: "Activity" },
 ];

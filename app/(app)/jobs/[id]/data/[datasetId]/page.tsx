@@ -1,0 +1,152 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { DeleteDatasetButton } from "@/components/datasets/delete-button";
+import { EvaluationTable, RULE_TEXT } from "@/components/datasets/evaluation-table";
+import { KIND_LABELS, PHASE_LABELS } from "@/components/datasets/kinds";
+import { Card, Facts } from "@/components/ui/card";
+import { canDeleteFrom, getTestPartEvaluation } from "@/db/queries/datasets";
+import { requirePageUser } from "@/lib/auth/session";
+import { formatDateTimeUtc } from "@/lib/format";
+
+export const metadata: Metadata = { title: "Dataset" };
+
+type Props = { params: Promise<{ id: string; datasetId: string }> };
+
+const UNIT_WORDS: Record<string, string> = { mm: "mm", in: "inch", um: "µm" };
+
+function unitsText(units: Record<string, unknown>): string {
+  const parts: string[] = [];
+  if (units.units) parts.push(`x, y, z in ${UNIT_WORDS[String(units.units)]}`);
+  if (units.travel_units) parts.push(`travel in ${UNIT_WORDS[String(units.travel_units)]}`);
+  if (units.reading_units) parts.push(`readings in ${UNIT_WORDS[String(units.reading_units)]}`);
+  if (units.radius_mm !== undefined) parts.push(`sweep radius ${Number(units.radius_mm)} mm`);
+  if (units.uncertainty_mm !== undefined) parts.push(`U = ${Number(units.uncertainty_mm)} mm (k = 2)`);
+  return parts.join(" · ") || "as written in each row (mm unless the row says otherwise)";
+}
+
+function num(v: unknown, digits: number, unit: string): string {
+  return typeof v === "number" && Number.isFinite(v) ? `${v.toFixed(digits)} ${unit}` : "—";
+}
+
+export default async function DatasetPage({ params }: Props) {
+  const { id, datasetId } = await params;
+  const user = await requirePageUser(`/jobs/${id}/data/${datasetId}`);
+  const found = await getTestPartEvaluation(user, datasetId);
+  if (!found || found.detail.dataset.jobId !== id) notFound();
+  const { detail, evaluation } = found;
+  const ds = detail.dataset;
+  const summary = (ds.summary ?? {}) as { tram?: Record<string, number> | null; sweep?: Record<string, number | null> | null; columns?: Record<string, { unit: string; min: number; max: number }> };
+  const mayDelete = ds.status === "stored" && canDeleteFrom(user, detail.job.status);
+
+  return (
+    <div className="space-y-6">
+      <nav aria-label="Back" className="text-sm">
+        <Link href={`/jobs/${id}/data`} className="text-graphite-600 hover:text-graphite-900 hover:underline">
+          ← All data of this job
+        </Link>
+      </nav>
+      <div className="flex flex-wrap items-start justify-between gap-4">
+        <div>
+          <h2 className="text-xl font-semibold">
+            {KIND_LABELS[ds.kind]} · {PHASE_LABELS[ds.phase]}
+          </h2>
+          <p className="text-sm text-graphite-600">
+            {ds.status === "deleted" ? `Deleted ${formatDateTimeUtc(ds.deletedAt)} — kept for the record, no longer counted.` : "Stored and checked on the server."}
+          </p>
+        </div>
+        <div className="flex flex-wrap gap-2">
+          <a href={`/api/datasets/${ds.id}/file`} className="flex min-h-touch items-center rounded-lg border border-graphite-300 bg-white px-4 text-sm font-semibold hover:bg-graphite-100">
+            Download the original
+          </a>
+          {evaluation ? (
+            <a href={`/api/datasets/${ds.id}/evaluation?format=csv`} className="flex min-h-touch items-center rounded-lg border border-graphite-300 bg-white px-4 text-sm font-semibold hover:bg-graphite-100">
+              Export results (CSV)
+            </a>
+          ) : null}
+        </div>
+      </div>
+
+      {evaluation ? (
+        <section aria-labelledby="evaluation-title" className="space-y-3">
+          <h3 id="evaluation-title" className="text-base font-semibold">
+            Feature evaluation
+          </h3>
+          <p className="rounded-card border-l-4 border-nominal-500 bg-nominal-100/60 p-3 text-sm text-graphite-900" data-testid="decision-rule">
+            <span className="font-semibold">Decision rule of this job — {detail.job.decisionRule === "guarded" ? "guarded acceptance" : "simple acceptance"}.</span> {RULE_TEXT[detail.job.decisionRule]}
+          </p>
+          {evaluation.warnings.length > 0 ? <p className="text-sm text-accent-800">{evaluation.warnings.join(" ")}</p> : null}
+          <EvaluationTable result={evaluation} />
+        </section>
+      ) : null}
+
+      <div className="grid gap-6 lg:grid-cols-2">
+        <Card title="The file">
+          <Facts
+            items={[
+              { label: "File name", value: ds.originalFilename },
+              { label: "Size", value: `${(ds.sizeBytes / 1024).toFixed(1)} KiB`, mono: true },
+              { label: "SHA-256", value: <span className="break-all">{ds.sha256}</span>, mono: true },
+              { label: "Rows", value: ds.rows.toLocaleString("en-GB"), mono: true },
+              { label: "Units", value: unitsText(ds.units as Record<string, unknown>) },
+              { label: "Uploaded", value: `${formatDateTimeUtc(ds.uploadedAt)} by ${detail.uploaderName ?? "—"}` },
+            ]}
+          />
+        </Card>
+        <Card title="What was read">
+          {summary.tram ? (
+            <Facts
+              items={[
+                { label: "Slope", value: `${num(summary.tram.slope_um_per_m, 1, "µm/m")} ± ${num(summary.tram.slope_u_um_per_m, 1, "µm/m")} (1 s)`, mono: true },
+                { label: "Angle", value: num(summary.tram.angle_arcsec, 1, "″"), mono: true },
+                { label: "Straightness", value: num(summary.tram.straightness_um, 1, "µm"), mono: true },
+                { label: "TIR", value: num(summary.tram.tir_um, 1, "µm"), mono: true },
+              ]}
+            />
+          ) : null}
+          {summary.sweep ? (
+            <Facts
+              items={[
+                { label: "Tilt", value: `${num(summary.sweep.tilt_um_per_m, 1, "µm/m")} (${num(summary.sweep.tilt_arcsec, 1, "″")})`, mono: true },
+                { label: "High side at", value: num(summary.sweep.direction_deg, 1, "°"), mono: true },
+                { label: "TIR", value: num(summary.sweep.tir_um, 1, "µm"), mono: true },
+                { label: "Flatness (least squares)", value: num(summary.sweep.flatness_ls_um, 1, "µm"), mono: true },
+              ]}
+            />
+          ) : null}
+          {summary.columns && Object.keys(summary.columns).length > 0 ? (
+            <table className="mt-3 w-full text-sm">
+              <thead className="text-left text-graphite-600">
+                <tr>
+                  <th scope="col" className="py-1 font-medium">Stored column</th>
+                  <th scope="col" className="py-1 text-right font-medium">From</th>
+                  <th scope="col" className="py-1 text-right font-medium">To</th>
+                  <th scope="col" className="py-1 pl-3 font-medium">Unit</th>
+                </tr>
+              </thead>
+              <tbody>
+                {Object.entries(summary.columns).map(([name, c]) => (
+                  <tr key={name} className="border-t border-graphite-100">
+                    <td className="num py-1">{name}</td>
+                    <td className="num py-1 text-right">{c.min.toFixed(4)}</td>
+                    <td className="num py-1 text-right">{c.max.toFixed(4)}</td>
+                    <td className="py-1 pl-3">{c.unit === "um" ? "µm" : c.unit === "deg" ? "°" : c.unit}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          ) : null}
+          {ds.kind === "test_part" ? <p className="text-sm text-graphite-700">{ds.rows} measured characteristics; judged above.</p> : null}
+          {ds.warnings.length > 0 ? (
+            <ul className="mt-3 list-disc space-y-1 pl-5 text-sm text-accent-800">
+              {ds.warnings.slice(0, 20).map((w, i) => (
+                <li key={i}>{w}</li>
+              ))}
+            </ul>
+          ) : null}
+        </Card>
+      </div>
+      {mayDelete ? <DeleteDatasetButton datasetId={ds.id} jobId={id} /> : null}
+    </div>
+  );
+}
