@@ -187,3 +187,18 @@ export function canReadRegisterOf(role: Role, register: "customers" | "machines"
   if (register === "outbox") return role === "admin";
   return canReadRegister(role, register);
 }
+
+/** Who runs a head fit on a sphere-probe dataset: the people who review data (installers upload, customers read). */
+export const HEAD_FIT_ROLES: readonly Role[] = ["admin", "inspector", "engineer"];
+/** Job statuses in which a new fit may be run; once approved the parameter set is fixed. */
+export const HEAD_FIT_OPEN_STATUSES: readonly JobStatus[] = ["draft", "measuring", "in_review"];
+
+/**
+ * May this actor run a (new) head fit on a dataset of a job in this status? Returns the reason
+ * when not. Visibility of the job is checked separately (404, never 403, for a job one may not see).
+ */
+export function headFitRefusal(role: Role, status: JobStatus): string | null {
+  if (!HEAD_FIT_ROLES.includes(role)) return "Only an application engineer, an inspector or an administrator runs a head fit.";
+  if (!HEAD_FIT_OPEN_STATUSES.includes(status)) return `The job is ${STATUS_LABELS[status].toLowerCase()}; its fitted parameters are fixed.`;
+  return null;
+}
