@@ -145,6 +145,7 @@ export async function seed(): Promise<void> {
   }
   await (await import("./seed-checklists")).seedChecklists();
   await (await import("./seed-datasets")).seedDatasets();
+  await (await import("./seed-analyses")).seedAnalyses();
   // Last: the issued report renders whatever the steps above recorded.
   await seedReports(DEMO_PASSWORD);
 }
