@@ -53,7 +53,7 @@ export default async function ActivityPage({ params }: Props) {
               <span className="num">{formatDateTimeUtc(e.at)}</span> · {e.actorEmail ?? "system"}
             </p>
             {summary(e.newValues) ? <p className="text-sm text-graphite-700">{summary(e.newValues)}</p> : null}
-            <p className="num text-xs text-graphite-400">#{e.id} · {e.hash.slice(0, 12)}…</p>
+            <p className="num text-xs text-graphite-500">#{e.id} · {e.hash.slice(0, 12)}…</p>
           </li>
         ))}
       </ol>
