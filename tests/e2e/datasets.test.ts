@@ -1,0 +1,93 @@
+// Journey 1 of docs/product.md up to the evaluation table, in Debian's Chromium against the built
+// app: the inspector opens a job's Data page, picks a bad test-part CSV and sees its row errors
+// before anything is sent, then a good one: preview, upload with progress, and the per-feature
+// pass/fail table with the job's decision rule stated. Signing "inspected" is a later step.
+import { readFileSync } from "node:fs";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { BrowserContext, Page } from "playwright-core";
+import { newContext, screenshotPath, signIn } from "./browser";
+
+let ctx: BrowserContext;
+let page: Page;
+
+beforeAll(async () => {
+  ctx = await newContext();
+  page = await ctx.newPage();
+});
+afterAll(async () => {
+  await ctx?.close();
+});
+
+const BAD = Buffer.from(
+  [
+    "feature,characteristic,nominal,measured,lower_tol,upper_tol,unit",
+    "Bore A,diameter,20.000,20.0018,-0.005,0.005,mm",
+    "Bore B,diameter,20.000,twenty,-0.005,0.005,mm",
+    "Face 1,flatness,0,0.0035,,0.004",
+    "",
+  ].join("\n"),
+);
+
+describe("inspector: test-part data to a judged table", () => {
+  it("signs in and opens the Data section of job TR-2026-0052", async () => {
+    await signIn(page, "inspector@halvard.example");
+    await page.waitForURL("**/jobs");
+    await page.getByRole("link", { name: "TR-2026-0052" }).click();
+    await page.waitForURL(/\/jobs\/[0-9a-f-]{36}$/);
+    await page.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Data" }).click();
+    await page.waitForURL(/\/data$/);
+    await expect.poll(() => page.getByRole("heading", { name: "Add measurement data" }).isVisible()).toBe(true);
+  });
+
+  it("a bad file shows its row errors in the browser and cannot be sent", async () => {
+    await page.getByLabel("Test-part measurements").check({ force: true });
+    await page.getByLabel("CSV file").setInputFiles({ name: "part-with-typos.csv", mimeType: "text/csv", buffer: BAD });
+    const errors = page.getByTestId("row-errors");
+    await errors.waitFor();
+    const text = await errors.innerText();
+    expect(text).toContain("'twenty' is not a number");
+    expect(text).toContain("has 6 fields, the header has 7");
+    expect(await page.getByRole("button", { name: "Upload and check" }).isDisabled()).toBe(true);
+    await page.screenshot({ path: screenshotPath("datasets-row-errors"), fullPage: true });
+  });
+
+  it("a good file shows the preview, uploads with progress and opens the evaluation", async () => {
+    await page.getByLabel("CSV file").setInputFiles({ name: "test part 7.csv", mimeType: "text/csv", buffer: readFileSync("tests/fixtures/uploads/test-part-good.csv") });
+    await page.getByTestId("chosen-file").filter({ hasText: "test part 7.csv" }).waitFor();
+    const preview = page.getByRole("table", { name: "Preview of the first rows" });
+    await preview.waitFor();
+    expect(await preview.locator("tbody tr").count()).toBe(6);
+    expect(await page.getByTestId("row-errors").count()).toBe(0);
+    await page.getByLabel(/Expanded uncertainty U/).fill("0.002");
+    await page.screenshot({ path: screenshotPath("datasets-preview"), fullPage: true });
+    await page.getByRole("button", { name: "Upload and check" }).click();
+    await page.waitForURL(/\/data\/[0-9a-f-]{36}$/);
+    const table = page.getByRole("table", { name: "Test-part evaluation" });
+    await table.waitFor();
+    const rule = await page.getByTestId("decision-rule").innerText();
+    expect(rule).toContain("guarded acceptance");
+    expect(rule).toContain("ISO 14253-1");
+    // Same decisions as worked by hand in tests/integration/datasets.test.ts (ISO 14253-1, U = 0.002 mm).
+    const rows = await table.locator("tbody tr").evaluateAll((trs) => trs.map((tr) => [tr.children[0]!.textContent, tr.querySelector("[data-decision]")!.getAttribute("data-decision")]));
+    expect(rows).toEqual([
+      ["Bore A", "pass"],
+      ["Bore B", "fail"],
+      ["Face 1", "undecided"],
+      ["Slot C", "pass"],
+      ["Pocket D", "undecided"],
+      ["Side E", "pass"],
+    ]);
+    expect(await page.getByTestId("total-pass").innerText()).toBe("3");
+    expect(await page.getByTestId("total-fail").innerText()).toBe("1");
+    expect(await page.getByTestId("total-undecided").innerText()).toBe("2");
+    await page.screenshot({ path: screenshotPath("datasets-evaluation"), fullPage: true });
+  });
+
+  it("the original downloads byte-identical from the dataset page", async () => {
+    const href = await page.getByRole("link", { name: "Download the original" }).getAttribute("href");
+    const res = await page.request.get(href!);
+    expect(res.status()).toBe(200);
+    expect(Buffer.compare(await res.body(), readFileSync("tests/fixtures/uploads/test-part-good.csv"))).toBe(0);
+    expect(res.headers()["x-content-type-options"]).toBe("nosniff");
+  });
+});
