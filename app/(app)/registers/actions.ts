@@ -1,0 +1,67 @@
+"use server";
+
+import { revalidatePath } from "next/cache";
+import { z } from "zod";
+import { createInstrument } from "@/db/queries/instruments";
+import { createTemplateVersion } from "@/db/queries/templates";
+import { inviteUser, updateUser } from "@/db/queries/users-admin";
+import { action } from "@/lib/actions";
+import { invalid } from "@/lib/errors";
+import { toCanonical } from "@/lib/units";
+import { instrumentCreateSchema, userInviteSchema, userUpdateSchema } from "@/lib/validations/registers";
+
+export const createInstrumentAction = action({ schema: instrumentCreateSchema, roles: ["admin"] }, async (input, actor) => {
+  const row = await createInstrument(actor, input);
+  revalidatePath("/registers/instruments");
+  return { id: row.id };
+});
+
+export const inviteUserAction = action({ schema: userInviteSchema, roles: ["admin"] }, async (input, actor) => {
+  const { userId } = await inviteUser(actor, input);
+  revalidatePath("/registers/people");
+  // The token goes out only in the e-mail.
+  return { userId };
+});
+
+export const updateUserAction = action({ schema: userUpdateSchema, roles: ["admin"] }, async (input, actor) => {
+  const r = await updateUser(actor, input);
+  revalidatePath("/registers/people");
+  return r;
+});
+
+const limit = z.preprocess((v) => (v === "" || v == null ? null : typeof v === "string" ? v.replace(",", ".") : v), z.coerce.number({ message: "Enter a number or leave it empty." }).nullable());
+
+/** Form fields step.<position>.<field>; lengths in `unit` (mm or in), angles in arcsec. */
+const templateVersionSchema = z.object({ templateId: z.uuid(), unit: z.enum(["mm", "in"]) }).catchall(z.unknown());
+
+const LIMIT_SOURCES = ["standard", "maker_manual", "common_practice", "customer_spec"] as const;
+function invalidSource(p: number): never {
+  throw invalid(`Step ${p}: say where the limit comes from.`, [{ field: `step.${p}.limitSource`, message: "Choose a source." }]);
+}
+
+export const createTemplateVersionAction = action({ schema: templateVersionSchema, roles: ["admin"] }, async (input, actor) => {
+  const positions = new Set<number>();
+  for (const k of Object.keys(input)) {
+    const m = /^step\.(\d+)\./.exec(k);
+    if (m) positions.add(Number(m[1]));
+  }
+  const edits = [...positions].map((p) => {
+    const get = (f: string) => (input as Record<string, unknown>)[`step.${p}.${f}`];
+    const kind = get("kind") === "angle" ? "angle" : "length";
+    const conv = (v: number | null) => (v == null ? null : kind === "angle" ? v : toCanonical(v, input.unit));
+    const lo = limit.safeParse(get("lowerLimit"));
+    const hi = limit.safeParse(get("upperLimit"));
+    if (!lo.success || !hi.success) throw invalid(`Step ${p}: a limit is not a number.`, [{ field: `step.${p}.${lo.success ? "upperLimit" : "lowerLimit"}`, message: "Enter a number or leave it empty." }]);
+    return {
+      position: p,
+      lowerLimit: conv(lo.data),
+      upperLimit: conv(hi.data),
+      decisionRule: get("decisionRule") === "guarded" ? ("guarded" as const) : ("simple" as const),
+      limitSource: LIMIT_SOURCES.find((x) => x === get("limitSource")) ?? invalidSource(p),
+      limitSourceNote: typeof get("limitSourceNote") === "string" && (get("limitSourceNote") as string).trim() ? (get("limitSourceNote") as string).trim().slice(0, 500) : null,
+    };
+  });
+  const t = await createTemplateVersion(actor, input.templateId, edits);
+  revalidatePath("/registers/procedures");
+  return { id: t.id, version: t.version };
+});

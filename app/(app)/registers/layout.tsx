@@ -1,0 +1,23 @@
+import { RegisterTabs } from "@/components/registers/register-tabs";
+import { canReadRegisterOf } from "@/lib/auth/roles";
+import { requirePageUser } from "@/lib/auth/session";
+
+const ALL = [
+  { href: "/registers", label: "Customers and machines", key: "customers" },
+  { href: "/registers/heads", label: "Heads", key: "heads" },
+  { href: "/registers/instruments", label: "Instruments", key: "instruments" },
+  { href: "/registers/procedures", label: "Procedures", key: "procedures" },
+  { href: "/registers/people", label: "People", key: "people" },
+  { href: "/registers/outbox", label: "Outbox", key: "outbox" },
+] as const;
+
+export default async function RegistersLayout({ children }: { children: React.ReactNode }) {
+  const user = await requirePageUser("/registers");
+  const items = ALL.filter((i) => canReadRegisterOf(user.role, i.key));
+  return (
+    <div className="space-y-6">
+      <RegisterTabs items={items} />
+      {children}
+    </div>
+  );
+}

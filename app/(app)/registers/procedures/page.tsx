@@ -1,0 +1,70 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { LIMIT_SOURCE_LABELS } from "@/components/readings/decision-badge";
+import { TemplateVersionForm } from "@/components/registers/template-version-form";
+import { Card } from "@/components/ui/card";
+import { listTemplatesWithSteps } from "@/db/queries/templates";
+import { getUnitSystem } from "@/db/queries/user-prefs";
+import { canReadRegisterOf } from "@/lib/auth/roles";
+import { requirePageUser } from "@/lib/auth/session";
+import { formatDateTimeUtc } from "@/lib/format";
+import { fromCanonical, formatLimits } from "@/lib/units";
+
+export const metadata: Metadata = { title: "Procedures" };
+
+export default async function ProceduresPage() {
+  const user = await requirePageUser("/registers/procedures");
+  if (!canReadRegisterOf(user.role, "procedures")) notFound();
+  const [templates, unitSystem] = await Promise.all([listTemplatesWithSteps(user), getUnitSystem(user)]);
+  const unit = unitSystem === "inch" ? "in" : "mm";
+  return (
+    <div className="space-y-6">
+      <div>
+        <h1 className="text-2xl font-semibold">Procedures</h1>
+        <p className="text-sm text-graphite-600">The checklists jobs follow. Each step has its quantity, limits, decision rule and the source of the limit. Editing makes a new version; a job keeps the version it started with.</p>
+      </div>
+      {templates.map((t) => (
+        <Card key={t.id} title={`${t.name} · version ${t.version}${t.isCurrent ? " (current)" : ""}`}>
+          <p className="mb-3 text-sm text-graphite-600">{t.description} Created {formatDateTimeUtc(t.createdAt)}.</p>
+          <div className="overflow-x-auto">
+            <table className="w-full text-sm">
+              <thead className="border-b border-graphite-200 text-left text-graphite-600">
+                <tr>
+                  <th className="py-2 pr-3 font-medium">Step</th>
+                  <th className="py-2 pr-3 font-medium">Quantity</th>
+                  <th className="py-2 pr-3 text-right font-medium">Limits</th>
+                  <th className="py-2 pr-3 font-medium">Rule</th>
+                  <th className="py-2 font-medium">Source</th>
+                </tr>
+              </thead>
+              <tbody className="divide-y divide-graphite-100">
+                {t.steps.map((s) => (
+                  <tr key={s.id}>
+                    <td className="py-2 pr-3"><span className="num text-graphite-500">{s.position}</span> {s.title}{s.safetyNote ? <span className="ml-2 rounded bg-accent-50 px-1.5 text-xs text-accent-800 ring-1 ring-accent-300">caution</span> : null}</td>
+                    <td className="py-2 pr-3">{s.quantity}</td>
+                    <td className="num py-2 pr-3 text-right whitespace-nowrap">{formatLimits(s.lowerLimit, s.upperLimit, s.quantityKind, unitSystem)}</td>
+                    <td className="py-2 pr-3">{s.decisionRule === "guarded" ? "Guarded" : "Simple"}</td>
+                    <td className="py-2" title={s.limitSourceNote ?? undefined}>{LIMIT_SOURCE_LABELS[s.limitSource]}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+          {user.role === "admin" && t.isCurrent ? (
+            <details className="mt-4 rounded-card border border-graphite-200 p-4">
+              <summary className="min-h-touch cursor-pointer py-2 font-medium">Edit limits (makes version {t.version + 1})</summary>
+              <TemplateVersionForm
+                templateId={t.id}
+                unit={unit}
+                steps={t.steps.map((s) => {
+                  const show = (v: number | null) => (v == null ? "" : s.quantityKind === "angle" ? String(v) : String(Number(fromCanonical(v, unit).toPrecision(10))));
+                  return { position: s.position, title: s.title, kind: s.quantityKind, lower: show(s.lowerLimit), upper: show(s.upperLimit), decisionRule: s.decisionRule, limitSource: s.limitSource, limitSourceNote: s.limitSourceNote ?? "" };
+                })}
+              />
+            </details>
+          ) : null}
+        </Card>
+      ))}
+    </div>
+  );
+}

@@ -1,0 +1,72 @@
+"use client";
+
+import { createTemplateVersionAction } from "@/app/(app)/registers/actions";
+import { ActionForm, inputClass } from "./action-form";
+
+export interface EditableStep {
+  position: number;
+  title: string;
+  kind: "length" | "angle";
+  lower: string;
+  upper: string;
+  decisionRule: "simple" | "guarded";
+  limitSource: string;
+  limitSourceNote: string;
+}
+
+const SOURCES = [
+  ["standard", "Standard"],
+  ["maker_manual", "Maker's manual (as entered)"],
+  ["common_practice", "Common practice"],
+  ["customer_spec", "Customer specification"],
+] as const;
+
+/** Edit the limits of a procedure; saving makes a new version, and running jobs keep theirs. */
+export function TemplateVersionForm({ templateId, unit, steps }: { templateId: string; unit: "mm" | "in"; steps: EditableStep[] }) {
+  const cell = "min-h-touch w-full rounded-md border border-graphite-300 bg-white px-2 text-sm";
+  return (
+    <ActionForm action={createTemplateVersionAction} submitLabel="Save as a new version" resetOnSuccess={false} successMessage="New version saved; jobs already started keep the version they began with.">
+      <input type="hidden" name="templateId" value={templateId} />
+      <input type="hidden" name="unit" value={unit} />
+      <div className="overflow-x-auto">
+        <table className="w-full text-sm">
+          <thead className="text-left text-graphite-600">
+            <tr>
+              <th className="py-2 pr-2 font-medium">Step</th>
+              <th className="py-2 pr-2 font-medium">Lower</th>
+              <th className="py-2 pr-2 font-medium">Upper</th>
+              <th className="py-2 pr-2 font-medium">Rule</th>
+              <th className="py-2 pr-2 font-medium">Source of the limit</th>
+              <th className="py-2 font-medium">Note on the source</th>
+            </tr>
+          </thead>
+          <tbody className="divide-y divide-graphite-100">
+            {steps.map((s) => (
+              <tr key={s.position}>
+                <td className="py-2 pr-2">
+                  <span className="num text-graphite-500">{s.position}</span> {s.title}
+                  <input type="hidden" name={`step.${s.position}.kind`} value={s.kind} />
+                  <span className="block text-xs text-graphite-500">in {s.kind === "angle" ? "arc seconds" : unit}</span>
+                </td>
+                <td className="w-28 py-2 pr-2"><input aria-label={`Step ${s.position} lower limit`} name={`step.${s.position}.lowerLimit`} defaultValue={s.lower} inputMode="decimal" className={`${cell} num text-right`} /><span data-error-for={`step.${s.position}.lowerLimit`} className="block text-xs text-fail-700" /></td>
+                <td className="w-28 py-2 pr-2"><input aria-label={`Step ${s.position} upper limit`} name={`step.${s.position}.upperLimit`} defaultValue={s.upper} inputMode="decimal" className={`${cell} num text-right`} /><span data-error-for={`step.${s.position}.upperLimit`} className="block text-xs text-fail-700" /></td>
+                <td className="w-32 py-2 pr-2">
+                  <select aria-label={`Step ${s.position} decision rule`} name={`step.${s.position}.decisionRule`} defaultValue={s.decisionRule} className={cell}>
+                    <option value="simple">Simple</option>
+                    <option value="guarded">Guarded</option>
+                  </select>
+                </td>
+                <td className="w-52 py-2 pr-2">
+                  <select aria-label={`Step ${s.position} limit source`} name={`step.${s.position}.limitSource`} defaultValue={s.limitSource} className={cell}>
+                    {SOURCES.map(([v, l]) => <option key={v} value={v}>{l}</option>)}
+                  </select>
+                </td>
+                <td className="py-2"><input aria-label={`Step ${s.position} note on the source`} name={`step.${s.position}.limitSourceNote`} defaultValue={s.limitSourceNote} className={`${inputClass} text-sm`} /></td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </ActionForm>
+  );
+}

@@ -1,0 +1,52 @@
+import "server-only";
+import { and, asc, desc, eq, max } from "drizzle-orm";
+import { db } from "@/db";
+import { appendAudit } from "@/db/queries/audit";
+import { procedureTemplates, templateSteps } from "@/db/schema";
+import { canReadRegisterOf, type Actor } from "@/lib/auth/roles";
+import { forbidden, invalid, notFound } from "@/lib/errors";
+
+export async function listTemplatesWithSteps(actor: Actor) {
+  if (!canReadRegisterOf(actor.role, "procedures")) throw forbidden("Procedures are kept by the service company.");
+  const ts = await db.select().from(procedureTemplates).orderBy(asc(procedureTemplates.name), desc(procedureTemplates.version));
+  const steps = await db.select().from(templateSteps).orderBy(asc(templateSteps.position));
+  return ts.map((t) => ({ ...t, steps: steps.filter((s) => s.templateId === t.id) }));
+}
+
+export interface StepLimitEdit {
+  position: number;
+  lowerLimit: number | null;
+  upperLimit: number | null;
+  decisionRule: "simple" | "guarded";
+  limitSource: "standard" | "maker_manual" | "common_practice" | "customer_spec";
+  limitSourceNote: string | null;
+}
+
+/**
+ * Editing a procedure makes a new version: the steps are copied with the edits, the new version
+ * becomes current, and jobs keep the version they started with (jobs.template_id). Audited.
+ */
+export async function createTemplateVersion(actor: Actor, templateId: string, edits: readonly StepLimitEdit[]) {
+  if (actor.role !== "admin") throw forbidden("Procedures are edited by the administrator.");
+  const [base] = await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, templateId));
+  if (!base) throw notFound("procedure");
+  const steps = await db.select().from(templateSteps).where(eq(templateSteps.templateId, base.id)).orderBy(asc(templateSteps.position));
+  for (const e of edits) {
+    if (!steps.some((s) => s.position === e.position)) throw invalid(`Step ${e.position} is not in this procedure.`, [{ field: `steps.${e.position}`, message: "No such step." }]);
+    if (e.lowerLimit != null && e.upperLimit != null && e.lowerLimit > e.upperLimit) throw invalid(`Step ${e.position}: the lower limit is above the upper limit.`, [{ field: `steps.${e.position}.lowerLimit`, message: "Above the upper limit." }]);
+    if (e.decisionRule === "guarded" && e.upperLimit == null) throw invalid(`Step ${e.position}: guarded acceptance needs an upper limit.`, [{ field: `steps.${e.position}.upperLimit`, message: "Required for guarded acceptance." }]);
+  }
+  return db.transaction(async (tx) => {
+    const [{ v } = { v: 0 }] = await tx.select({ v: max(procedureTemplates.version) }).from(procedureTemplates).where(eq(procedureTemplates.name, base.name));
+    await tx.update(procedureTemplates).set({ isCurrent: false }).where(and(eq(procedureTemplates.name, base.name), eq(procedureTemplates.isCurrent, true)));
+    const [t] = await tx.insert(procedureTemplates).values({ name: base.name, version: (v ?? 0) + 1, description: base.description, isCurrent: true, createdById: actor.id }).returning();
+    await tx.insert(templateSteps).values(
+      steps.map(({ id: _id, templateId: _t, ...s }) => {
+        const e = edits.find((x) => x.position === s.position);
+        return { ...s, templateId: t!.id, ...(e ? { lowerLimit: e.lowerLimit, upperLimit: e.upperLimit, decisionRule: e.decisionRule, limitSource: e.limitSource, limitSourceNote: e.limitSourceNote } : {}) };
+      }),
+    );
+    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: "template.versioned", entityType: "procedure_template", entityId: t!.id, oldValues: { id: base.id, version: base.version }, newValues: { version: t!.version, edits } });
+    return t!;
+  });
+}
