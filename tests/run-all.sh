@@ -15,6 +15,8 @@ t0=$(date +%s)
 step() { echo; echo "== $* ($(( $(date +%s) - t0 )) s)"; }
 
 cleanup() {
+  [ -f .data/test-s3.pid ] && kill -- -"$(cat .data/test-s3.pid)" 2>/dev/null || true
+  rm -f .data/test-s3.pid
   [ -f .data/test-app.pid ] && kill -- -"$(cat .data/test-app.pid)" 2>/dev/null || true
   rm -f .data/test-app.pid
   [ -f .data/test-smtp.pid ] && kill -- -"$(cat .data/test-smtp.pid)" 2>/dev/null || true
@@ -41,6 +43,12 @@ DATABASE_URL=$(bash db/pg.sh url trammel_test) npx vitest run --project unit --p
 
 step "build and serve the app for browser tests"
 export DATABASE_URL=$(bash db/pg.sh url trammel_e2e)
+# Uploaded originals go to s3rver on loopback (its own port and folder, wiped, so a running demo is untouched).
+rm -rf .data/test-s3
+S3_PORT=4570 S3_DIR=.data/test-s3 setsid npx tsx lib/storage/dev-s3.ts >.data/test-s3.log 2>&1 &
+echo $! >.data/test-s3.pid
+export STORAGE_DRIVER=s3 S3_ENDPOINT=http://127.0.0.1:4570
+for _ in $(seq 60); do curl -s -o /dev/null "$S3_ENDPOINT" && break; sleep 0.25; done
 npm run -s db:migrate
 npm run -s db:seed
 NEXT_SKIP_TYPECHECK=1 NEXT_DIST_DIR=.next-test npx next build >.data/test-build.log 2>&1 || { tail -60 .data/test-build.log; exit 1; }

@@ -13,6 +13,10 @@ PORT=${PORT:-3000}
 bash lib/scripts/ensure-deps.sh
 bash db/pg.sh start
 export DATABASE_URL=${DATABASE_URL:-$(bash db/pg.sh url)}
+# The local S3-compatible store for uploaded originals (s3rver, files in .data/s3); Ctrl-C stops it with the app.
+npx tsx lib/storage/dev-s3.ts >.data/s3.log 2>&1 &
+export STORAGE_DRIVER=${STORAGE_DRIVER:-s3} S3_ENDPOINT=${S3_ENDPOINT:-http://127.0.0.1:4569}
+for _ in $(seq 60); do curl -s -o /dev/null "$S3_ENDPOINT" && break; sleep 0.25; done
 npm run -s db:migrate
 npm run -s db:seed
 echo "start-demo: building the app…" >&2
