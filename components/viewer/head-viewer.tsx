@@ -1,0 +1,276 @@
+"use client";
+
+/**
+ * The 3D view of a head fit: a simplified head from primitives at zero, nominal (blue-grey) and
+ * fitted (amber) axis lines, nominal and actual tool-tip paths over the probed poses, and the
+ * measured tips as instanced spheres coloured by residual. Every error is drawn × k (slider, log
+ * scale ×1 … ×10 000) and k is always printed on the picture. All geometry comes from
+ * geometry/head-scene.ts; this file only draws. Z up (ISO 841 machine frame), lengths in mm.
+ */
+import { Html, Line, OrbitControls } from "@react-three/drei";
+import { Canvas, useThree } from "@react-three/fiber";
+import { useEffect, useLayoutEffect, useMemo, useRef, useState } from "react";
+import * as THREE from "three";
+import type { OrbitControls as OrbitControlsImpl } from "three-stdlib";
+import { headScene, residualColour, type HeadSceneData, type SceneLine } from "@/geometry/head-scene";
+import type { HeadConfig, HeadErrors, HeadPose, HeadVec3 } from "@/geometry";
+
+const NOMINAL = "#5f7d99";
+const FITTED = "#e08e0b";
+const BACKGROUND = "#f3f4f6";
+
+export interface HeadViewerProps {
+  config: HeadConfig;
+  errors: HeadErrors;
+  poses: HeadPose[];
+  residualsUm: HeadVec3[];
+  /** Initial exaggeration factor. */
+  initialFactor?: number;
+}
+
+/** k from the slider position (log10 k, 0…4), rounded to two significant figures so the printed factor is the one used. */
+export function factorFromSlider(v: number): number {
+  return Number((10 ** v).toPrecision(2));
+}
+
+export function formatFactor(k: number): string {
+  return k.toLocaleString("en-GB").replace(/,/g, "\u2009");
+}
+
+function webglAvailable(): boolean {
+  try {
+    const c = document.createElement("canvas");
+    return Boolean(c.getContext("webgl2") ?? c.getContext("webgl"));
+  } catch {
+    return false;
+  }
+}
+
+export function HeadViewer({ config, errors, poses, residualsUm, initialFactor = 1000 }: HeadViewerProps) {
+  const [slider, setSlider] = useState(Math.log10(initialFactor));
+  const [ready, setReady] = useState(false);
+  const [webgl, setWebgl] = useState<boolean | null>(null);
+  const controls = useRef<OrbitControlsImpl | null>(null);
+  const k = factorFromSlider(slider);
+  const scene = useMemo(() => headScene(config, errors, poses, k, residualsUm), [config, errors, poses, k, residualsUm]);
+  const maxRes = useMemo(() => Math.max(1e-9, ...Array.from(scene.residualUm)), [scene.residualUm]);
+  const L = config.pivotLengthMm;
+  const maxTool = Math.max(0, ...poses.map((p) => p.toolMm ?? 0));
+
+  useEffect(() => setWebgl(webglAvailable()), []);
+
+  return (
+    <div className="space-y-3">
+      <div className="relative overflow-hidden rounded-card border border-graphite-200" style={{ background: BACKGROUND }}>
+        <div data-testid="head-viewer" data-ready={ready ? "true" : "false"} data-factor={k} className="h-[30rem] w-full">
+          {webgl === false ? (
+            <NoWebGl />
+          ) : webgl ? (
+            <Canvas
+              gl={{ preserveDrawingBuffer: true, antialias: true }}
+              dpr={[1, 2]}
+              frameloop="demand"
+              camera={{ position: [2.4 * (L + maxTool), -2.9 * (L + maxTool), 1.5 * (L + maxTool)], up: [0, 0, 1], fov: 38, near: 1, far: 20000 }}
+              onCreated={({ gl }) => {
+                gl.setClearColor(BACKGROUND);
+                setReady(true);
+              }}
+              fallback={<NoWebGl />}
+            >
+              <ambientLight intensity={0.8} />
+              <directionalLight position={[400, -300, 800]} intensity={1.6} />
+              <directionalLight position={[-500, 400, 200]} intensity={0.5} />
+              <HeadModel L={L} />
+              <Axes scene={scene} L={L} config={config} />
+              <Paths scene={scene} />
+              <MeasuredPoints scene={scene} maxRes={maxRes} radius={Math.max(0.8, 0.011 * L)} />
+              <OrbitControls ref={controls} makeDefault target={[0, 0, -0.45 * (L + maxTool)]} enableDamping={false} />
+            </Canvas>
+          ) : (
+            <p className="p-6 text-sm text-graphite-600">Starting the 3D view…</p>
+          )}
+        </div>
+        {webgl ? (
+          <>
+            <p className="pointer-events-none absolute left-3 top-3 rounded bg-white/90 px-3 py-1.5 text-sm font-semibold text-graphite-900 shadow-sm" data-testid="factor-label">
+              Errors drawn <span className="num">×{formatFactor(k)}</span> — not to scale
+            </p>
+            <Legend maxRes={maxRes} />
+          </>
+        ) : null}
+      </div>
+      <div className="flex flex-wrap items-center gap-4">
+        <label className="flex flex-1 items-center gap-3 text-sm font-medium text-graphite-800">
+          <span className="whitespace-nowrap">Exaggeration</span>
+          <input
+            type="range"
+            min={0}
+            max={4}
+            step={0.05}
+            value={slider}
+            onChange={(e) => setSlider(Number(e.target.value))}
+            aria-label="Exaggeration factor"
+            aria-valuetext={`×${formatFactor(k)}`}
+            className="h-11 flex-1 accent-accent-500"
+          />
+          <span className="num w-20 text-right">×{formatFactor(k)}</span>
+        </label>
+        <button type="button" onClick={() => controls.current?.reset()} className="min-h-touch rounded-md border border-graphite-300 bg-white px-4 text-sm font-semibold hover:bg-graphite-50">
+          Reset view
+        </button>
+      </div>
+      <p className="text-xs text-graphite-600">Drag to turn, scroll or pinch to zoom, right-drag to move. Z is up; the head is drawn at zero on both axes.</p>
+    </div>
+  );
+}
+
+function NoWebGl() {
+  return (
+    <div role="status" className="flex h-full items-center justify-center p-6 text-center text-sm text-graphite-700">
+      <p>
+        The 3D view needs WebGL, which this browser has turned off or does not offer. The parameters, residuals and control values below are complete without it.
+      </p>
+    </div>
+  );
+}
+
+function Legend({ maxRes }: { maxRes: number }) {
+  const stops = [0, 0.25, 0.5, 0.75, 1].map((f) => {
+    const [r, g, b] = residualColour(f * maxRes, maxRes);
+    return `rgb(${Math.round(r * 255)} ${Math.round(g * 255)} ${Math.round(b * 255)}) ${f * 100}%`;
+  });
+  return (
+    <div className="absolute bottom-3 right-3 w-64 space-y-2 rounded bg-white/95 p-3 text-xs text-graphite-800 shadow-sm" aria-label="Legend">
+      <p className="font-semibold">Measured points: residual |r|</p>
+      <div className="h-3 rounded" style={{ background: `linear-gradient(to right, ${stops.join(", ")})` }} aria-hidden="true" />
+      <div className="num flex justify-between">
+        <span>0</span>
+        <span>{(maxRes / 2).toFixed(2)}</span>
+        <span>{maxRes.toFixed(2)} µm</span>
+      </div>
+      <ul className="space-y-1 pt-1">
+        <li className="flex items-center gap-2">
+          <span className="inline-block h-0.5 w-6" style={{ background: NOMINAL }} aria-hidden="true" /> Nominal axes and tip path (dashed axes)
+        </li>
+        <li className="flex items-center gap-2">
+          <span className="inline-block h-1 w-6" style={{ background: FITTED }} aria-hidden="true" /> Fitted axes and actual tip path
+        </li>
+      </ul>
+    </div>
+  );
+}
+
+/** A simplified head at zero: collar, body, tilt-axis housing, spindle and tool (translucent, so the axes show). */
+function HeadModel({ L }: { L: number }) {
+  const body = { color: "#9aa3ad", transparent: true, opacity: 0.28, roughness: 0.7, metalness: 0.1, depthWrite: false };
+  return (
+    <group>
+      {/* Cylinders are along +Y by default; rotate to Z (primary) or X (tilt axis). */}
+      <mesh position={[0, 0, 1.26 * L]} rotation={[Math.PI / 2, 0, 0]}>
+        <cylinderGeometry args={[0.6 * L, 0.6 * L, 0.12 * L, 48]} />
+        <meshStandardMaterial {...body} color="#6b7280" opacity={0.35} />
+      </mesh>
+      <mesh position={[0, 0, 0.78 * L]} rotation={[Math.PI / 2, 0, 0]}>
+        <cylinderGeometry args={[0.42 * L, 0.46 * L, 0.84 * L, 48]} />
+        <meshStandardMaterial {...body} />
+      </mesh>
+      <mesh rotation={[0, 0, Math.PI / 2]}>
+        <cylinderGeometry args={[0.3 * L, 0.3 * L, 0.84 * L, 40]} />
+        <meshStandardMaterial {...body} />
+      </mesh>
+      <mesh position={[0, 0, -0.36 * L]} rotation={[Math.PI / 2, 0, 0]}>
+        <cylinderGeometry args={[0.16 * L, 0.19 * L, 0.72 * L, 32]} />
+        <meshStandardMaterial {...body} opacity={0.4} />
+      </mesh>
+      <mesh position={[0, 0, -0.86 * L]} rotation={[Math.PI / 2, 0, 0]}>
+        <cylinderGeometry args={[0.045 * L, 0.045 * L, 0.28 * L, 20]} />
+        <meshStandardMaterial color="#4b5563" roughness={0.4} metalness={0.5} />
+      </mesh>
+      <mesh position={[0, 0, -L]}>
+        <sphereGeometry args={[0.035 * L, 20, 14]} />
+        <meshStandardMaterial color="#374151" />
+      </mesh>
+    </group>
+  );
+}
+
+function lineEnds(l: SceneLine, from: number, to: number): [number, number, number][] {
+  const p = l.pointMm;
+  const d = l.direction;
+  return [
+    [p[0] + from * d[0], p[1] + from * d[1], p[2] + from * d[2]],
+    [p[0] + to * d[0], p[1] + to * d[1], p[2] + to * d[2]],
+  ];
+}
+
+function Axes({ scene, L, config }: { scene: HeadSceneData; L: number; config: HeadConfig }) {
+  const a = scene.axes;
+  const pEnd = lineEnds(a.fittedPrimary, -0.5 * L, 1.7 * L)[1]!;
+  const sEnd = lineEnds(a.fittedSecondary, -0.95 * L, 0.95 * L)[1]!;
+  return (
+    <group>
+      <Line points={lineEnds(a.nominalPrimary, -0.5 * L, 1.7 * L)} color={NOMINAL} lineWidth={2} dashed dashSize={0.06 * L} gapSize={0.04 * L} />
+      <Line points={lineEnds(a.fittedPrimary, -0.5 * L, 1.7 * L)} color={FITTED} lineWidth={3} />
+      <Line points={lineEnds(a.nominalSecondary, -0.95 * L, 0.95 * L)} color={NOMINAL} lineWidth={2} dashed dashSize={0.06 * L} gapSize={0.04 * L} />
+      <Line points={lineEnds(a.fittedSecondary, -0.95 * L, 0.95 * L)} color={FITTED} lineWidth={3} />
+      <Html position={pEnd} center zIndexRange={[10, 0]}>
+        <span className="whitespace-nowrap rounded bg-white/90 px-1.5 py-0.5 text-xs font-semibold text-graphite-800">{config.primary} axis</span>
+      </Html>
+      <Html position={sEnd} center zIndexRange={[10, 0]}>
+        <span className="whitespace-nowrap rounded bg-white/90 px-1.5 py-0.5 text-xs font-semibold text-graphite-800">{config.secondary} axis</span>
+      </Html>
+    </group>
+  );
+}
+
+function Segments({ positions, color, opacity }: { positions: Float32Array; color: string; opacity: number }) {
+  const geometry = useMemo(() => {
+    const g = new THREE.BufferGeometry();
+    g.setAttribute("position", new THREE.BufferAttribute(positions, 3));
+    return g;
+  }, [positions]);
+  useEffect(() => () => geometry.dispose(), [geometry]);
+  return (
+    <lineSegments geometry={geometry}>
+      <lineBasicMaterial color={color} transparent opacity={opacity} />
+    </lineSegments>
+  );
+}
+
+function Paths({ scene }: { scene: HeadSceneData }) {
+  return (
+    <group>
+      <Segments positions={scene.nominalPathMm} color={NOMINAL} opacity={0.7} />
+      <Segments positions={scene.actualPathMm} color={FITTED} opacity={0.95} />
+    </group>
+  );
+}
+
+/** One instanced mesh for every measured tip (smooth at 10 000 points), coloured by |residual|. */
+function MeasuredPoints({ scene, maxRes, radius }: { scene: HeadSceneData; maxRes: number; radius: number }) {
+  const ref = useRef<THREE.InstancedMesh>(null);
+  const n = scene.residualUm.length;
+  const invalidate = useThree((s) => s.invalidate);
+  useLayoutEffect(() => {
+    const mesh = ref.current;
+    if (!mesh) return;
+    const m = new THREE.Matrix4();
+    const c = new THREE.Color();
+    for (let i = 0; i < n; i++) {
+      m.makeTranslation(scene.measuredTipsMm[3 * i]!, scene.measuredTipsMm[3 * i + 1]!, scene.measuredTipsMm[3 * i + 2]!);
+      mesh.setMatrixAt(i, m);
+      const [r, g, b] = residualColour(scene.residualUm[i]!, maxRes);
+      mesh.setColorAt(i, c.setRGB(r, g, b, THREE.SRGBColorSpace));
+    }
+    mesh.instanceMatrix.needsUpdate = true;
+    if (mesh.instanceColor) mesh.instanceColor.needsUpdate = true;
+    mesh.computeBoundingSphere();
+    invalidate();
+  }, [scene, maxRes, n, invalidate]);
+  return (
+    <instancedMesh key={n} ref={ref} args={[undefined, undefined, n]}>
+      <sphereGeometry args={[radius, 10, 8]} />
+      <meshStandardMaterial roughness={0.6} />
+    </instancedMesh>
+  );
+}
