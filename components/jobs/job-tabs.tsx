@@ -12,6 +12,7 @@ export const JOB_TABS: ReadonlyArray<{ segment: string; label: string }> = [
   { segment: "checklist", label: "Checklist" },
   { segment: "compare", label: "Compare" },
   { segment: "data", label: "Data" },
+  { segment: "analysis", label: "Analysis" },
   { segment: "report", label: "Report" },
   { segment: "activity", label: "Activity" },
 ];

@@ -1,0 +1,266 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { ApproveButton, RunFitButton } from "@/components/fit/fit-buttons";
+import { controlValues, parameterRows, signed } from "@/components/fit/fit-display";
+import { ResidualChart } from "@/components/fit/residual-chart";
+import { Card } from "@/components/ui/card";
+import { SafetyNote } from "@/components/ui/safety-note";
+import { HeadViewerLoader } from "@/components/viewer/head-viewer-loader";
+import { getApprovedAnalysis, headConfigOf, listJobAnalyses } from "@/db/queries/analyses";
+import { listDatasets } from "@/db/queries/datasets";
+import { getJobDetail } from "@/db/queries/jobs";
+import type { HeadErrors, HeadPose } from "@/geometry";
+import { canTransition, headFitRefusal, STATUS_LABELS } from "@/lib/auth/roles";
+import { requirePageUser } from "@/lib/auth/session";
+import { formatDateTimeUtc } from "@/lib/format";
+
+export const metadata: Metadata = { title: "Analysis" };
+type Props = { params: Promise<{ id: string }>; searchParams: Promise<{ analysis?: string }> };
+
+export default async function AnalysisPage({ params, searchParams }: Props) {
+  const { id } = await params;
+  const { analysis: wanted } = await searchParams;
+  const user = await requirePageUser(`/jobs/${id}/analysis`);
+  const d = await getJobDetail(user, id);
+  if (!d) notFound();
+  const [all, fits, approved] = await Promise.all([listDatasets(user, id), listJobAnalyses(user, id), getApprovedAnalysis(user, id)]);
+  const probes = (all ?? []).filter((x) => x.kind === "sphere_probe" && x.status === "stored");
+  const list = fits ?? [];
+  const shown = (wanted ? list.find((f) => f.analysis.id === wanted) : undefined) ?? (approved ? list.find((f) => f.analysis.id === approved.detail.analysis.id) : undefined) ?? list[0];
+  const mayRun = headFitRefusal(user.role, d.job.status) === null;
+  const config = headConfigOf(d.head);
+
+  return (
+    <div className="space-y-6">
+      <Card title="Sphere-probe datasets">
+        {probes.length === 0 ? (
+          <p className="text-sm text-graphite-600">No sphere-probe data on this job yet. Probe data is uploaded on the job&apos;s data page (CSV: primary_deg, secondary_deg, x, y, z, optional tool_mm).</p>
+        ) : (
+          <ul className="divide-y divide-graphite-100">
+            {probes.map((p) => {
+              const fitted = list.filter((f) => f.analysis.datasetId === p.id);
+              return (
+                <li key={p.id} className="flex flex-wrap items-center justify-between gap-4 py-3">
+                  <div>
+                    <p className="font-medium text-graphite-900">{p.originalFilename}</p>
+                    <p className="text-sm text-graphite-600">
+                      <span className="num">{p.rows}</span> poses · {p.phase === "pre" ? "before adjustment" : "after adjustment"} · uploaded {formatDateTimeUtc(p.uploadedAt)}
+                      {p.uploaderName ? ` by ${p.uploaderName}` : ""} · SHA-256 <span className="num">{p.sha256.slice(0, 12)}…</span>
+                    </p>
+                    <p className="text-sm text-graphite-600">{fitted.length ? `${fitted.length} stored fit${fitted.length > 1 ? "s" : ""}, latest ${formatDateTimeUtc(fitted[0]!.analysis.createdAt)}` : "Not fitted yet"}</p>
+                  </div>
+                  {mayRun ? <RunFitButton jobId={id} datasetId={p.id} label={fitted.length ? "Run fit again" : "Run fit"} /> : null}
+                </li>
+              );
+            })}
+          </ul>
+        )}
+        {!mayRun ? <p className="mt-3 text-sm text-graphite-600">{headFitRefusal(user.role, d.job.status)}</p> : null}
+      </Card>
+
+      {shown ? <FitSection jobId={id} fitRow={shown} config={config} user={user} jobStatus={d.job.status} approved={approved} /> : null}
+    </div>
+  );
+}
+
+type FitRow = NonNullable<Awaited<ReturnType<typeof listJobAnalyses>>>[number];
+
+function FitSection({
+  jobId,
+  fitRow,
+  config,
+  user,
+  jobStatus,
+  approved,
+}: {
+  jobId: string;
+  fitRow: FitRow;
+  config: ReturnType<typeof headConfigOf>;
+  user: { role: Parameters<typeof canTransition>[0] };
+  jobStatus: Parameters<typeof canTransition>[1];
+  approved: Awaited<ReturnType<typeof getApprovedAnalysis>>;
+}) {
+  const a = fitRow.analysis;
+  const r = a.result;
+  const fit = r.fit;
+  const rows = parameterRows(fit);
+  const errors: HeadErrors = Object.fromEntries(fit.parameters.filter((p) => p.U !== null).map((p) => [p.key, p.value]));
+  const poses: HeadPose[] = r.poses.primary_deg.map((P, i) => ({ primaryDeg: P, secondaryDeg: r.poses.secondary_deg[i]!, toolMm: r.poses.tool_mm[i]! }));
+  const isApproved = approved?.detail.analysis.id === a.id;
+  const refusal =
+    user.role !== "engineer"
+      ? "Only an application engineer approves a head's parameters."
+      : approved
+        ? "This job's parameters are already approved from another fit; that fit is the one shown by default."
+        : canTransition(user.role, jobStatus, "approved")
+          ? null
+          : `The job is ${STATUS_LABELS[jobStatus].toLowerCase()}: parameters are approved once the installer has submitted the job for review.`;
+
+  return (
+    <>
+      <section aria-labelledby="fit-title" className="space-y-4">
+        <div className="flex flex-wrap items-baseline justify-between gap-3">
+          <h2 id="fit-title" className="text-xl font-semibold">
+            Head fit {isApproved ? <span className="ml-2 rounded bg-pass-50 px-2 py-0.5 text-sm font-semibold text-pass-700">✓ Approved</span> : null}
+          </h2>
+          <p className="text-sm text-graphite-600">
+            {fitRow.datasetFilename} · run {formatDateTimeUtc(a.createdAt)}
+            {fitRow.createdByName ? ` by ${fitRow.createdByName}` : ""} · computation {a.geometryVersion} · input <span className="num">{a.inputSha256.slice(0, 12)}…</span>
+          </p>
+        </div>
+        <div className="grid gap-6 xl:grid-cols-[1fr_20rem]">
+          <Card title="Pivot and squareness in 3D">
+            <HeadViewerLoader config={config} errors={errors} poses={poses} residualsUm={r.poses.residual_um} />
+          </Card>
+          <Card title="Fit quality">
+            <dl className="grid grid-cols-[1fr_auto] gap-x-4 gap-y-2 text-sm" data-testid="fit-quality">
+              <dt className="text-graphite-600">Residual RMS</dt>
+              <dd className="num text-right">{fit.rms_um.toFixed(2)} µm</dd>
+              <dt className="text-graphite-600">Largest residual</dt>
+              <dd className="num text-right">{fit.max_um.toFixed(2)} µm</dd>
+              <dt className="text-graphite-600">Residual s per coordinate</dt>
+              <dd className="num text-right">{r.s_um.toFixed(2)} µm</dd>
+              <dt className="text-graphite-600">Poses</dt>
+              <dd className="num text-right">{r.poses.row.length}</dd>
+              <dt className="text-graphite-600">Degrees of freedom</dt>
+              <dd className="num text-right">{r.degrees_of_freedom}</dd>
+              <dt className="text-graphite-600">Iterations</dt>
+              <dd className="num text-right">{fit.iterations}</dd>
+              <dt className="text-graphite-600">Outliers (beyond 3 s)</dt>
+              <dd className="num text-right">{fit.outliers.length}</dd>
+              <dt className="text-graphite-600">Sphere centre</dt>
+              <dd className="num text-right">
+                {fit.sphere_centre_mm.map((v) => v.toFixed(4)).join(", ")} mm
+              </dd>
+            </dl>
+            <p className="mt-4 text-xs text-graphite-600">Uncertainties are expanded, U = 2u (k = 2, about 95 %), from the residual scatter s²·(JᵀJ)⁻¹.</p>
+          </Card>
+        </div>
+
+        <Card title="Parameters">
+          <div className="overflow-x-auto">
+            <table className="w-full text-sm" aria-label="Fitted parameters">
+              <thead>
+                <tr className="border-b border-graphite-200 text-left text-graphite-600">
+                  <th className="py-2 pr-3 font-medium">Symbol</th>
+                  <th className="py-2 pr-3 font-medium">Parameter</th>
+                  <th className="py-2 pr-3 text-right font-medium">Value</th>
+                  <th className="py-2 pr-3 text-right font-medium">U (k = 2)</th>
+                  <th className="py-2 font-medium">Identifiable from this data</th>
+                </tr>
+              </thead>
+              <tbody>
+                {rows.map((p) => (
+                  <tr key={p.key} data-key={p.key} className="border-b border-graphite-100">
+                    <td className="num py-2 pr-3 font-semibold">{p.iso}</td>
+                    <td className="py-2 pr-3">
+                      {p.words}
+                      <span className="block text-xs text-graphite-500">{p.key}</span>
+                    </td>
+                    <td className="num py-2 pr-3 text-right" data-value={p.value}>
+                      {p.valueText}
+                    </td>
+                    <td className="num py-2 pr-3 text-right">{p.UText}</td>
+                    <td className="py-2">
+                      <span className={p.identifiable === "yes" ? "text-pass-700" : p.identifiable === "weak" ? "text-accent-700" : "text-fail-700"}>
+                        {p.identifiable === "yes" ? "● " : p.identifiable === "weak" ? "◐ " : "○ "}
+                        {p.identifiableText}
+                      </span>
+                      {p.heldAtZero ? <span className="text-graphite-600"> — held at 0</span> : null}
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+          {fit.warnings.length ? (
+            <div className="mt-4 space-y-2" aria-label="Warnings">
+              <h3 className="text-sm font-semibold">What the data cannot tell apart, and other warnings</h3>
+              <ul className="list-disc space-y-1 pl-5 text-sm text-graphite-800">
+                {fit.warnings.map((w) => (
+                  <li key={w}>{w}</li>
+                ))}
+              </ul>
+            </div>
+          ) : null}
+        </Card>
+
+        <Card title="Residuals per pose">
+          <ResidualChart residuals={r.poses.residual_um} rows={r.poses.row} toolMm={r.poses.tool_mm} sUm={r.s_um} />
+          {fit.outliers.length ? (
+            <table className="mt-4 w-full max-w-2xl text-sm" aria-label="Outliers">
+              <thead>
+                <tr className="border-b border-graphite-200 text-left text-graphite-600">
+                  <th className="py-1.5 pr-3 font-medium">Row</th>
+                  <th className="py-1.5 pr-3 text-right font-medium">Primary</th>
+                  <th className="py-1.5 pr-3 text-right font-medium">Secondary</th>
+                  <th className="py-1.5 pr-3 text-right font-medium">Tool</th>
+                  <th className="py-1.5 text-right font-medium">Residual x, y, z</th>
+                </tr>
+              </thead>
+              <tbody>
+                {fit.outliers.map((o) => {
+                  const i = r.poses.row.indexOf(o.row);
+                  return (
+                    <tr key={o.row} className="border-b border-graphite-100">
+                      <td className="num py-1.5 pr-3">{o.row}</td>
+                      <td className="num py-1.5 pr-3 text-right">{i >= 0 ? `${r.poses.primary_deg[i]}°` : "—"}</td>
+                      <td className="num py-1.5 pr-3 text-right">{i >= 0 ? `${r.poses.secondary_deg[i]}°` : "—"}</td>
+                      <td className="num py-1.5 pr-3 text-right">{i >= 0 ? `${r.poses.tool_mm[i]} mm` : "—"}</td>
+                      <td className="num py-1.5 text-right">{o.residual_um.map((v) => signed(v, 2)).join(", ")} µm</td>
+                    </tr>
+                  );
+                })}
+              </tbody>
+            </table>
+          ) : (
+            <p className="mt-3 text-sm text-graphite-600">No outliers.</p>
+          )}
+        </Card>
+      </section>
+
+      <Card title={isApproved ? "Approved parameters: values for the control" : "Approval"}>
+        {isApproved ? (
+          <div className="space-y-4">
+            <p className="text-sm text-graphite-700">
+              Approved {formatDateTimeUtc(approved!.approvedAt)}
+              {approved!.approvedByEmail ? ` by ${approved!.approvedByEmail}` : ""}. Enter these in the control&apos;s kinematic (tool centre point) settings for this head:
+            </p>
+            <table className="w-full text-sm" aria-label="Values for the control">
+              <tbody>
+                {controlValues(fit, config).map((c) => (
+                  <tr key={c.label} className="border-b border-graphite-100">
+                    <th scope="row" className="py-2 pr-3 text-left font-medium">
+                      {c.label}
+                    </th>
+                    <td className="num py-2 pr-3 text-right text-base font-semibold">{c.text}</td>
+                    <td className="py-2 text-graphite-600">{c.note}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+            <div className="rounded-card border border-graphite-200 bg-graphite-50 p-4 text-sm text-graphite-800">
+              <p className="font-semibold">Units and signs</p>
+              <p>
+                Lengths in millimetres, angles in degrees (arc seconds beside them). Each value is the head as measured minus the head as designed, in the machine frame (right-handed X, Y, Z; both axes at zero). A positive offset points the way named; a
+                positive angle is a right-hand turn about the direction named. Parameters the data could not separate are left out and stay at 0. Controls differ in whether they take the value itself or its correction, and in their own axis
+                names: check the control builder&apos;s documentation before entering anything.
+              </p>
+            </div>
+            <SafetyNote title="Before entering values and moving the axes">
+              <p>
+                Entering kinematic values changes how the control moves the head. Enter them and move the axes only as the machine builder&apos;s manual describes: with the machine locked out while you work at the spindle, and at the reduced speed the
+                manual gives for the first moves, keeping clear of the head&apos;s swing. Check the tool centre point on the reference sphere before cutting. Follow local rules and your company&apos;s procedures.
+              </p>
+            </SafetyNote>
+          </div>
+        ) : (
+          <div className="space-y-3">
+            <p className="text-sm text-graphite-700">Approving fixes this fit as the head&apos;s parameter set for the job and moves the job to approved; the values to enter in the control are then shown here.</p>
+            {user.role === "engineer" ? <ApproveButton jobId={jobId} analysisId={a.id} refusal={refusal} /> : <p className="text-sm text-graphite-600">{refusal}</p>}
+          </div>
+        )}
+      </Card>
+    </>
+  );
+}

@@ -1,0 +1,109 @@
+/**
+ * What the analysis page shows of a stored head fit, as plain data: each parameter with its
+ * symbol, value, expanded uncertainty and identifiability in words, and — once approved — the
+ * values to enter in the control in control-neutral words. Pure; the numbers are geometry's
+ * (headFitToJson), only rounded for display.
+ */
+import { headAxes, type AxisLetter, type HeadConfig, type HeadParameterKey } from "@/geometry";
+import type { HeadFitJson } from "@/geometry";
+
+export const PARAMETER_WORDS: Record<HeadParameterKey, string> = {
+  pivot_length_error_um: "Pivot length error (tilt axis to gauge point, along the tool)",
+  tip_offset_s_um: "Gauge point offset along the tilt axis",
+  tip_offset_n_um: "Gauge point offset across the tilt axis (pivot offset)",
+  secondary_offset_um: "Tilt axis passing beside the primary axis",
+  primary_zero_arcsec: "Zero-position error of the primary axis",
+  secondary_zero_arcsec: "Zero-position error of the tilt axis",
+  secondary_tilt_arcsec: "Squareness of the tilt axis to the primary axis",
+  secondary_yaw_arcsec: "Tilt axis turned about the primary axis",
+  primary_tilt_s_arcsec: "Tilt of the primary axis about the tilt axis",
+  primary_tilt_n_arcsec: "Tilt of the primary axis across the tilt axis",
+};
+
+export const IDENTIFIABILITY_WORDS = { yes: "Yes", weak: "Weak", no: "Not separable" } as const;
+
+const UNIT_TEXT = { um: "µm", arcsec: "″" } as const;
+
+export interface ParameterRow {
+  key: HeadParameterKey;
+  iso: string;
+  words: string;
+  value: number;
+  unit: "um" | "arcsec";
+  /** Displayed value, e.g. "+37.88 µm"; "held at 0" for a pinned parameter. */
+  valueText: string;
+  UText: string;
+  identifiable: "yes" | "weak" | "no";
+  identifiableText: string;
+  heldAtZero: boolean;
+}
+
+/** Signed, fixed decimals, with a real minus sign. */
+export function signed(v: number, digits: number): string {
+  const s = Math.abs(v).toFixed(digits);
+  if (Number(s) === 0) return s;
+  return `${v < 0 ? "−" : "+"}${s}`;
+}
+
+export function parameterRows(fit: HeadFitJson): ParameterRow[] {
+  return fit.parameters.map((p) => {
+    const held = p.U === null;
+    return {
+      key: p.key,
+      iso: p.iso,
+      words: PARAMETER_WORDS[p.key],
+      value: p.value,
+      unit: p.unit,
+      valueText: held ? "held at 0" : `${signed(p.value, 2)} ${UNIT_TEXT[p.unit]}`,
+      UText: held || p.U === null ? "—" : `± ${p.U.toFixed(2)} ${UNIT_TEXT[p.unit]}`,
+      identifiable: p.identifiable,
+      identifiableText: IDENTIFIABILITY_WORDS[p.identifiable],
+      heldAtZero: held,
+    };
+  });
+}
+
+export interface ControlValue {
+  label: string;
+  /** Value as entered, with unit. */
+  text: string;
+  /** How it is made and which way positive points. */
+  note: string;
+}
+
+const DIR: Record<string, string> = { "1,0,0": "+X", "-1,0,0": "−X", "0,1,0": "+Y", "0,-1,0": "−Y", "0,0,1": "+Z", "0,0,-1": "−Z" };
+const dirName = (v: readonly number[]) => DIR[v.map((x) => Math.round(x)).join(",")] ?? `(${v.map((x) => x.toFixed(3)).join(", ")})`;
+
+/**
+ * The approved parameters as values for the control, in the control's usual quantities: the pivot
+ * length as nominal + error in mm, offsets in mm, zero shifts and axis tilts in degrees. Held
+ * parameters are left out (they are 0 by the fit's assumption, said in the warnings).
+ */
+export function controlValues(fit: HeadFitJson, config: HeadConfig): ControlValue[] {
+  const { s, n } = headAxes(config);
+  const v = (k: HeadParameterKey) => fit.parameters.find((p) => p.key === k);
+  const out: ControlValue[] = [];
+  const L = v("pivot_length_error_um");
+  if (L) out.push({ label: "Pivot length", text: `${(config.pivotLengthMm + L.value / 1000).toFixed(4)} mm`, note: `nominal ${config.pivotLengthMm.toFixed(4)} mm ${L.value < 0 ? "−" : "+"} ${Math.abs(L.value / 1000).toFixed(4)} mm; from the tilt axis to the gauge point along the tool` });
+  const mm = (k: HeadParameterKey, label: string, along: string) => {
+    const p = v(k);
+    if (!p || p.U === null) return;
+    out.push({ label, text: `${signed(p.value / 1000, 4)} mm`, note: `positive along ${along} with both axes at zero` });
+  };
+  mm("tip_offset_s_um", "Gauge point offset along the tilt axis", `${dirName(s)} (the ${config.secondary} axis direction)`);
+  mm("tip_offset_n_um", "Gauge point offset across the tilt axis", dirName(n));
+  mm("secondary_offset_um", `${config.secondary} axis line offset from the ${config.primary} axis`, dirName(n));
+  const deg = (k: HeadParameterKey, label: string, about: string) => {
+    const p = v(k);
+    if (!p || p.U === null) return;
+    out.push({ label, text: `${signed(p.value / 3600, 5)}°`, note: `${signed(p.value, 1)}″; positive is a right-hand turn about ${about}` });
+  };
+  const axisLetter = (a: AxisLetter) => `+${({ A: "X", B: "Y", C: "Z" } as const)[a]}`;
+  deg("primary_zero_arcsec", `${config.primary} axis zero shift`, `${axisLetter(config.primary)} (the ${config.primary} axis)`);
+  deg("secondary_zero_arcsec", `${config.secondary} axis zero shift`, `${axisLetter(config.secondary)} (the ${config.secondary} axis)`);
+  deg("secondary_tilt_arcsec", `${config.secondary} axis squareness to ${config.primary}`, dirName(n));
+  deg("secondary_yaw_arcsec", `${config.secondary} axis turned about ${config.primary}`, axisLetter(config.primary));
+  deg("primary_tilt_s_arcsec", `${config.primary} axis tilt about ${dirName(s)}`, dirName(s));
+  deg("primary_tilt_n_arcsec", `${config.primary} axis tilt about ${dirName(n)}`, dirName(n));
+  return out;
+}

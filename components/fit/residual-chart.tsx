@@ -1,0 +1,80 @@
+/**
+ * Residuals per pose: for each pose (in file order) the largest residual component in µm, with
+ * the 3 s line the outlier rule uses. Outliers are drawn as triangles and labelled with their row,
+ * so the chart does not depend on colour alone.
+ */
+export function ResidualChart({ residuals, rows, toolMm, sUm }: { residuals: ReadonlyArray<readonly [number, number, number]>; rows: readonly number[]; toolMm: readonly number[]; sUm: number }) {
+  const W = 880;
+  const H = 240;
+  const m = { l: 52, r: 16, t: 14, b: 34 };
+  const n = residuals.length;
+  const worst = residuals.map((r) => Math.max(Math.abs(r[0]), Math.abs(r[1]), Math.abs(r[2])));
+  const limit = 3 * sUm;
+  const yMax = Math.max(limit * 1.25, ...worst) || 1;
+  const x = (i: number) => m.l + ((i + 0.5) / Math.max(1, n)) * (W - m.l - m.r);
+  const y = (v: number) => H - m.b - (v / yMax) * (H - m.t - m.b);
+  const ticks = niceTicks(yMax);
+  // Where the tool length changes: a separator and a label.
+  const breaks: { i: number; tool: number }[] = [];
+  toolMm.forEach((t, i) => {
+    if (i === 0 || t !== toolMm[i - 1]) breaks.push({ i, tool: t });
+  });
+  return (
+    <figure className="space-y-2">
+      <svg viewBox={`0 0 ${W} ${H}`} className="h-auto w-full" role="img" aria-label={`Largest residual component per pose for ${n} poses; ${worst.filter((w) => w > limit).length} beyond 3 s = ${limit.toFixed(2)} µm`}>
+        {ticks.map((t) => (
+          <g key={t}>
+            <line x1={m.l} x2={W - m.r} y1={y(t)} y2={y(t)} stroke="#e3e6ea" />
+            <text x={m.l - 6} y={y(t) + 4} textAnchor="end" fontSize="11" fill="#4b5563" className="num">
+              {t.toFixed(t < 1 ? 2 : 1)}
+            </text>
+          </g>
+        ))}
+        <text x={12} y={m.t + (H - m.t - m.b) / 2} fontSize="11" fill="#4b5563" transform={`rotate(-90 12 ${m.t + (H - m.t - m.b) / 2})`} textAnchor="middle">
+          µm
+        </text>
+        {breaks.map((b) => (
+          <g key={b.i}>
+            {b.i > 0 ? <line x1={x(b.i) - 0.5 * ((W - m.l - m.r) / n)} x2={x(b.i) - 0.5 * ((W - m.l - m.r) / n)} y1={m.t} y2={H - m.b} stroke="#9aa3ad" strokeDasharray="3 3" /> : null}
+            <text x={x(b.i)} y={H - m.b + 26} fontSize="11" fill="#374151">
+              tool {b.tool} mm
+            </text>
+          </g>
+        ))}
+        {worst.map((w, i) => (
+          <line key={i} x1={x(i)} x2={x(i)} y1={y(0)} y2={y(w)} stroke={w > limit ? "#b45309" : "#5f7d99"} strokeWidth={Math.max(1, Math.min(4, (W - m.l - m.r) / n - 0.5))} />
+        ))}
+        {worst.map((w, i) =>
+          w > limit ? (
+            <g key={`o${i}`}>
+              <path d={`M ${x(i)} ${y(w) - 9} l 5 8 l -10 0 z`} fill="#b45309" />
+              <text x={x(i)} y={y(w) - 12} fontSize="10" textAnchor="middle" fill="#7c2d12" className="num">
+                row {rows[i]}
+              </text>
+            </g>
+          ) : null,
+        )}
+        <line x1={m.l} x2={W - m.r} y1={y(limit)} y2={y(limit)} stroke="#b45309" strokeDasharray="6 4" />
+        <text x={W - m.r} y={y(limit) - 4} fontSize="11" textAnchor="end" fill="#7c2d12">
+          3 s = {limit.toFixed(2)} µm
+        </text>
+        <line x1={m.l} x2={W - m.r} y1={y(0)} y2={y(0)} stroke="#6b7280" />
+        <text x={m.l} y={H - m.b + 13} fontSize="11" fill="#4b5563">
+          poses in file order →
+        </text>
+      </svg>
+      <figcaption className="text-sm text-graphite-600">
+        Largest of the three residual components (measured − modelled sphere centre) at each pose. A pose beyond the dashed 3 s line is listed as an outlier (▲ with its row).
+      </figcaption>
+    </figure>
+  );
+}
+
+function niceTicks(max: number): number[] {
+  const raw = max / 4;
+  const mag = 10 ** Math.floor(Math.log10(raw));
+  const step = [1, 2, 2.5, 5, 10].map((f) => f * mag).find((s) => s >= raw) ?? raw;
+  const out: number[] = [];
+  for (let v = 0; v <= max + 1e-12; v += step) out.push(Number(v.toFixed(10)));
+  return out;
+}
