@@ -42,6 +42,9 @@ const COVERED = new Set([
   "app/api/verify/route.ts",
   "app/api/verify/[reportId]/route.ts",
   "app/api/report-key/route.ts",
+  // tests/integration/analyses-access.test.ts
+  "app/api/datasets/[id]/analyses/route.ts",
+  "app/api/analyses/[id]/route.ts",
   // public, static: the load benchmark's ceiling
   "app/api/ping/route.ts",
 ]);
