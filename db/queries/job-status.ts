@@ -1,10 +1,10 @@
 import "server-only";
-import { and, eq, inArray } from "drizzle-orm";
+import { and, eq, inArray, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { getJobDetail } from "@/db/queries/jobs";
 import { enqueueMail } from "@/db/queries/outbox";
-import { jobs, users } from "@/db/schema";
+import { heads, jobs, machines, procedureTemplates, sites, users } from "@/db/schema";
 import { canTransition, STATUS_LABELS, type Actor, type JobStatus } from "@/lib/auth/roles";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 import { publicUrl } from "@/lib/env";
@@ -41,5 +41,46 @@ export async function changeJobStatus(actor: Actor, jobId: string, to: JobStatus
       });
     }
     return { status: to };
+  });
+}
+
+export interface JobCreateInput {
+  templateId: string;
+  machineId: string;
+  headId: string;
+  kind: "installation" | "reverification" | "after_crash";
+  title: string;
+  assignedInstallerId?: string | undefined;
+  decisionRule: "simple" | "guarded";
+}
+
+/**
+ * Creates a job from a procedure version for a machine and head (administrator or engineer),
+ * optionally assigned to an installer; the job keeps that version. The reference is the next
+ * TR-<year>-<nnnn>. Audited.
+ */
+export async function createJobFromTemplate(actor: Actor, input: JobCreateInput) {
+  if (actor.role !== "admin" && actor.role !== "engineer") throw forbidden("Jobs are opened by the office (administrator or engineer).");
+  const [t] = await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, input.templateId));
+  if (!t) throw invalid("Choose a procedure.", [{ field: "templateId", message: "No such procedure." }]);
+  const [m] = await db.select({ id: machines.id, customerId: sites.customerId }).from(machines).innerJoin(sites, eq(sites.id, machines.siteId)).where(eq(machines.id, input.machineId));
+  if (!m) throw invalid("Choose a host machine.", [{ field: "machineId", message: "No such machine." }]);
+  const [h] = await db.select({ id: heads.id }).from(heads).where(eq(heads.id, input.headId));
+  if (!h) throw invalid("Choose a head.", [{ field: "headId", message: "No such head." }]);
+  if (input.assignedInstallerId) {
+    const [u] = await db.select({ role: users.role, disabled: users.disabled }).from(users).where(eq(users.id, input.assignedInstallerId));
+    if (!u || u.role !== "installer" || u.disabled) throw invalid("Assign an active installer.", [{ field: "assignedInstallerId", message: "Not an active installer." }]);
+  }
+  return db.transaction(async (tx) => {
+    await tx.execute(sql`select pg_advisory_xact_lock(724003)`);
+    const year = new Date().getUTCFullYear();
+    const [{ n } = { n: 0 }] = await tx.select({ n: sql<number>`coalesce(max(substring(${jobs.reference} from '^TR-${sql.raw(String(year))}-(\\d+)$')::int), 0)` }).from(jobs);
+    const reference = `TR-${year}-${String(Number(n) + 1).padStart(4, "0")}`;
+    const [row] = await tx
+      .insert(jobs)
+      .values({ reference, title: input.title, kind: input.kind, status: "draft", customerId: m.customerId, machineId: m.id, headId: h.id, assignedInstallerId: input.assignedInstallerId ?? null, decisionRule: input.decisionRule, templateId: t.id, createdById: actor.id })
+      .returning();
+    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: "job.created", entityType: "job", entityId: row!.id, jobId: row!.id, newValues: { reference, status: "draft", template: `${t.name} v${t.version}`, assignedInstallerId: row!.assignedInstallerId } });
+    return row!;
   });
 }

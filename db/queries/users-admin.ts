@@ -102,3 +102,7 @@ export async function updateUser(actor: Actor, input: z.infer<typeof userUpdateS
 export async function listCustomersForSelect() {
   return db.select({ id: customers.id, name: customers.name }).from(customers).orderBy(asc(customers.name));
 }
+
+export async function listActiveInstallers() {
+  return db.select({ id: users.id, name: users.name }).from(users).where(and(eq(users.role, "installer"), eq(users.disabled, false))).orderBy(asc(users.name));
+}

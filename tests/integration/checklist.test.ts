@@ -231,3 +231,47 @@ describe("invitation and set-password", () => {
     expect((await failure(updateUser(as.admin!, { userId: as.admin!.id, disabled: true }))).status).toBe(403);
   });
 });
+
+describe("registers and jobs from a procedure", () => {
+  it("only an administrator registers an instrument; values are stored in mm", async () => {
+    const { createInstrument } = await import("@/db/queries/instruments");
+    const input = { kind: "Dial test indicator", serial: `T-${Date.now().toString(36)}`, quantityKind: "length" as const, resolution: 0.0001, standardUncertainty: 0.00005, unit: "in" as const, calibrationDueOn: "2027-12-31" };
+    expect((await failure(createInstrument(as.engineer!, input))).status).toBe(403);
+    const row = await createInstrument(as.admin!, input);
+    expect(row.resolution).toBeCloseTo(0.00254, 12);
+    expect((await failure(createInstrument(as.admin!, input))).issues?.[0]?.field).toBe("serial");
+  });
+
+  it("editing a procedure makes a new version; a job keeps the version it started with", async () => {
+    const { createTemplateVersion } = await import("@/db/queries/templates");
+    const [job] = await db.select().from(jobs).where(eq(jobs.id, jobId));
+    const before = await db.select().from(templateSteps).where(eq(templateSteps.templateId, job!.templateId!));
+    expect((await failure(createTemplateVersion(as.engineer!, job!.templateId!, []))).status).toBe(403);
+    const bad = await failure(createTemplateVersion(as.admin!, job!.templateId!, [{ position: 1, lowerLimit: 1, upperLimit: 0.5, decisionRule: "simple", limitSource: "common_practice", limitSourceNote: null }]));
+    expect(bad.issues?.[0]?.field).toBe("steps.1.lowerLimit");
+    const v2 = await createTemplateVersion(as.admin!, job!.templateId!, [{ position: 1, lowerLimit: null, upperLimit: 0.01, decisionRule: "guarded", limitSource: "customer_spec", limitSourceNote: "tighter, per the customer" }]);
+    expect(v2.version).toBeGreaterThan(1);
+    const steps2 = await db.select().from(templateSteps).where(eq(templateSteps.templateId, v2.id));
+    expect(steps2).toHaveLength(before.length);
+    expect(steps2.find((s) => s.position === 1)).toMatchObject({ upperLimit: 0.01, decisionRule: "guarded", limitSource: "customer_spec" });
+    const [after] = await db.select().from(jobs).where(eq(jobs.id, jobId));
+    expect(after!.templateId).toBe(job!.templateId);
+    const unchanged = await db.select().from(templateSteps).where(eq(templateSteps.id, before.find((s) => s.position === 1)!.id));
+    expect(unchanged[0]!.upperLimit).toBeCloseTo(0.0127, 12);
+  });
+
+  it("a job opened from a procedure gets the next reference, the version and a draft status; an installer cannot open one", async () => {
+    const { createJobFromTemplate } = await import("@/db/queries/job-status");
+    const [base] = await db.select().from(jobs).where(eq(jobs.id, jobId));
+    const input = { templateId: base!.templateId!, machineId: base!.machineId, headId: base!.headId, kind: "after_crash" as const, title: "Check after a tool crash", assignedInstallerId: as.installer!.id, decisionRule: "simple" as const };
+    expect((await failure(createJobFromTemplate(as.installer!, input))).status).toBe(403);
+    expect((await failure(createJobFromTemplate(as.admin!, { ...input, assignedInstallerId: as.engineer!.id }))).issues?.[0]?.field).toBe("assignedInstallerId");
+    const job = await createJobFromTemplate(as.admin!, input);
+    expect(job.reference).toMatch(/^TR-\d{4}-\d{4}$/);
+    expect(job).toMatchObject({ status: "draft", templateId: base!.templateId, customerId: base!.customerId });
+    const audit = await db.select().from(auditEvents).where(and(eq(auditEvents.entityId, job.id), eq(auditEvents.action, "job.created")));
+    expect(audit).toHaveLength(1);
+    const next = await createJobFromTemplate(as.admin!, input);
+    expect(Number(next.reference.slice(-4))).toBe(Number(job.reference.slice(-4)) + 1);
+  });
+});

@@ -3,6 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { createInstrument } from "@/db/queries/instruments";
+import { createJobFromTemplate } from "@/db/queries/job-status";
 import { createTemplateVersion } from "@/db/queries/templates";
 import { inviteUser, updateUser } from "@/db/queries/users-admin";
 import { action } from "@/lib/actions";
@@ -64,4 +65,20 @@ export const createTemplateVersionAction = action({ schema: templateVersionSchem
   const t = await createTemplateVersion(actor, input.templateId, edits);
   revalidatePath("/registers/procedures");
   return { id: t.id, version: t.version };
+});
+
+const jobCreateSchema = z.object({
+  templateId: z.uuid({ message: "Choose a procedure." }),
+  machineId: z.uuid({ message: "Choose a host machine." }),
+  headId: z.uuid({ message: "Choose a head." }),
+  kind: z.enum(["installation", "reverification", "after_crash"]),
+  title: z.string().trim().min(3, "Give the job a title.").max(200),
+  assignedInstallerId: z.preprocess((v) => (v === "" ? undefined : v), z.uuid().optional()),
+  decisionRule: z.enum(["simple", "guarded"]),
+});
+
+export const createJobAction = action({ schema: jobCreateSchema, roles: ["admin"] }, async (input, actor) => {
+  const job = await createJobFromTemplate(actor, input);
+  revalidatePath("/jobs");
+  return { id: job.id, reference: job.reference };
 });

@@ -1,9 +1,12 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { LIMIT_SOURCE_LABELS } from "@/components/readings/decision-badge";
+import { JobCreateForm } from "@/components/registers/job-create-form";
 import { TemplateVersionForm } from "@/components/registers/template-version-form";
 import { Card } from "@/components/ui/card";
+import { listHeads, listMachines } from "@/db/queries/registers";
 import { listTemplatesWithSteps } from "@/db/queries/templates";
+import { listActiveInstallers } from "@/db/queries/users-admin";
 import { getUnitSystem } from "@/db/queries/user-prefs";
 import { canReadRegisterOf } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
@@ -17,6 +20,7 @@ export default async function ProceduresPage() {
   if (!canReadRegisterOf(user.role, "procedures")) notFound();
   const [templates, unitSystem] = await Promise.all([listTemplatesWithSteps(user), getUnitSystem(user)]);
   const unit = unitSystem === "inch" ? "in" : "mm";
+  const [machines, heads, installers] = user.role === "admin" ? await Promise.all([listMachines(user), listHeads(user), listActiveInstallers()]) : [[], [], []];
   return (
     <div className="space-y-6">
       <div>
@@ -60,6 +64,17 @@ export default async function ProceduresPage() {
                   const show = (v: number | null) => (v == null ? "" : s.quantityKind === "angle" ? String(v) : String(Number(fromCanonical(v, unit).toPrecision(10))));
                   return { position: s.position, title: s.title, kind: s.quantityKind, lower: show(s.lowerLimit), upper: show(s.upperLimit), decisionRule: s.decisionRule, limitSource: s.limitSource, limitSourceNote: s.limitSourceNote ?? "" };
                 })}
+              />
+            </details>
+          ) : null}
+          {user.role === "admin" && t.isCurrent ? (
+            <details className="mt-4 rounded-card border border-graphite-200 p-4">
+              <summary className="min-h-touch cursor-pointer py-2 font-medium">Open a job with this procedure</summary>
+              <JobCreateForm
+                templateId={t.id}
+                machines={machines.map((m) => ({ id: m.id, label: `${m.name} — ${m.customerName}, ${m.siteName}` }))}
+                heads={heads.map((h) => ({ id: h.id, label: `${h.serial} (${h.primaryAxis}/${h.secondaryAxis})${h.machineName ? ` on ${h.machineName}` : ""}` }))}
+                installers={installers.map((u) => ({ id: u.id, label: u.name }))}
               />
             </details>
           ) : null}
