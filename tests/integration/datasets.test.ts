@@ -6,7 +6,11 @@ import { createHash } from "node:crypto";
 import { sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
+import { insertDataset } from "@/db/queries/datasets";
+import { getActor } from "@/db/queries/users";
 import { env } from "@/lib/env";
+import { getStorage, setStorageForTests, type ObjectStorage } from "@/lib/storage";
+import { parseDatasetText, parseUploadForm } from "@/lib/storage/parse-dataset";
 import { deleteApi, evaluationApi, fileApi, fixture, listDatasetsApi, storedState, summaryApi, upload, uploadRoute } from "./dataset-helpers";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
@@ -206,6 +210,43 @@ describe("rejected uploads: exact issues, nothing stored", () => {
     });
     expect(notMultipart.status).toBe(422);
     expect(await storedState()).toEqual(before);
+  });
+});
+
+describe("a failure after the object is stored", () => {
+  it("removes the object again when the database transaction fails", async () => {
+    const inner = getStorage();
+    const calls: string[] = [];
+    const recording: ObjectStorage = {
+      driver: inner.driver,
+      put: async (k, d, m) => {
+        calls.push(`put ${k}`);
+        await inner.put(k, d, m);
+      },
+      get: (k) => inner.get(k),
+      delete: async (k) => {
+        calls.push(`delete ${k}`);
+        await inner.delete(k);
+      },
+    };
+    setStorageForTests(recording);
+    try {
+      const before = await storedState();
+      const actorId = await signInAs("inspector@halvard.example");
+      const actor = (await getActor(actorId!))!;
+      const form = parseUploadForm(TEST_PART);
+      const text = fixture("test-part-good.csv").toString("utf8");
+      // A job id that does not exist: the dataset row's foreign key fails inside the transaction.
+      const missingJob = "00000000-0000-4000-8000-000000000000";
+      const file = { filename: "x.csv", contentType: "text/csv", data: Buffer.from(text), sha256: sha(Buffer.from(text)) };
+      await expect(insertDataset(actor, missingJob, form, file, parseDatasetText(form, text))).rejects.toThrow();
+      expect(calls).toHaveLength(2);
+      expect(calls[0]).toMatch(new RegExp(`^put datasets/${missingJob}/[0-9a-f-]{36}$`));
+      expect(calls[1]).toBe(calls[0]!.replace("put", "delete"));
+      expect(await storedState()).toEqual(before);
+    } finally {
+      setStorageForTests(null);
+    }
   });
 });
 
