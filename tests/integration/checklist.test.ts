@@ -275,3 +275,17 @@ describe("registers and jobs from a procedure", () => {
     expect(Number(next.reference.slice(-4))).toBe(Number(job.reference.slice(-4)) + 1);
   });
 });
+
+describe("heads register", () => {
+  it("moving a head is kept in its history; only an administrator moves it; an engineer reads it", async () => {
+    const { getHeadWithHistory, mountHead } = await import("@/db/queries/heads-admin");
+    const [base] = await db.select().from(jobs).where(eq(jobs.id, jobId));
+    expect((await failure(mountHead(as.engineer!, base!.headId, null))).status).toBe(403);
+    await mountHead(as.admin!, base!.headId, null);
+    await mountHead(as.admin!, base!.headId, base!.machineId);
+    const h = await getHeadWithHistory(as.engineer!, base!.headId);
+    expect(h!.head.machineId).toBe(base!.machineId);
+    expect(h!.history.slice(-2).map((e) => e.action)).toEqual(["head.removed", "head.mounted"]);
+    expect((await failure(getHeadWithHistory(as.installer!, base!.headId))).status).toBe(403);
+  });
+});

@@ -4,6 +4,7 @@ import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { createInstrument } from "@/db/queries/instruments";
 import { createJobFromTemplate } from "@/db/queries/job-status";
+import { mountHead } from "@/db/queries/heads-admin";
 import { createTemplateVersion } from "@/db/queries/templates";
 import { inviteUser, updateUser } from "@/db/queries/users-admin";
 import { action } from "@/lib/actions";
@@ -81,4 +82,10 @@ export const createJobAction = action({ schema: jobCreateSchema, roles: ["admin"
   const job = await createJobFromTemplate(actor, input);
   revalidatePath("/jobs");
   return { id: job.id, reference: job.reference };
+});
+
+export const mountHeadAction = action({ schema: z.object({ headId: z.uuid(), machineId: z.preprocess((v) => (v === "" ? null : v), z.uuid().nullable()) }), roles: ["admin"] }, async ({ headId, machineId }, actor) => {
+  const r = await mountHead(actor, headId, machineId);
+  revalidatePath(`/registers/heads/${headId}`);
+  return r;
 });

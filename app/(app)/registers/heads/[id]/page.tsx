@@ -1,0 +1,67 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { MountHeadForm } from "@/components/registers/mount-head-form";
+import { Card, Facts } from "@/components/ui/card";
+import { getHeadWithHistory } from "@/db/queries/heads-admin";
+import { listMachines } from "@/db/queries/registers";
+import { canReadRegister } from "@/lib/auth/roles";
+import { requirePageUser } from "@/lib/auth/session";
+import { formatDateTimeUtc } from "@/lib/format";
+
+export const metadata: Metadata = { title: "Head" };
+
+type Props = { params: Promise<{ id: string }> };
+
+export default async function HeadPage({ params }: Props) {
+  const { id } = await params;
+  const user = await requirePageUser(`/registers/heads/${id}`);
+  if (!canReadRegister(user.role, "heads")) notFound();
+  const h = await getHeadWithHistory(user, id);
+  if (!h) notFound();
+  const machines = user.role === "admin" ? await listMachines(user) : [];
+  const { head } = h;
+  return (
+    <div className="space-y-6">
+      <nav aria-label="Breadcrumb" className="text-sm text-graphite-600">
+        <Link href="/registers/heads" className="hover:underline">Heads</Link> / <span className="num">{head.serial}</span>
+      </nav>
+      <h1 className="text-2xl font-semibold">Head <span className="num">{head.serial}</span></h1>
+      <div className="grid gap-6 lg:grid-cols-2">
+        <Card title="Configuration">
+          <Facts
+            items={[
+              { label: "Maker and model", value: [head.maker, head.model].filter(Boolean).join(" ") || null },
+              { label: "Axes", value: `${head.primaryAxis} primary (rotary) / ${head.secondaryAxis} secondary (tilt)` },
+              { label: "Nominal pivot length", value: `${head.nominalPivotLengthMm.toFixed(3)} mm`, mono: true },
+              { label: "Tool-axis offset", value: `${head.toolAxisOffsetMm.toFixed(3)} mm`, mono: true },
+              { label: "Tool direction at zero", value: `(${head.toolDirection.join(", ")})`, mono: true },
+              { label: "Mass", value: head.massKg ? `${head.massKg} kg` : null, mono: true },
+              { label: "Mounted on", value: h.machineName ? `${h.machineName} — ${h.customerName}, ${h.siteName}` : "Not mounted" },
+            ]}
+          />
+        </Card>
+        <Card title="Where it has been">
+          {h.history.length === 0 ? (
+            <p className="text-sm text-graphite-600">No moves recorded since it was registered.</p>
+          ) : (
+            <ol className="space-y-2 text-sm">
+              {h.history.map((e) => (
+                <li key={e.id} className="flex flex-wrap gap-x-3">
+                  <span className="num text-graphite-600">{formatDateTimeUtc(e.at)}</span>
+                  <span>{e.action === "head.removed" ? "Taken off" : `Mounted on ${String((e.newValues as { machine?: string } | null)?.machine ?? "?")}`}</span>
+                  <span className="text-graphite-500">by {e.actorEmail}</span>
+                </li>
+              ))}
+            </ol>
+          )}
+          {user.role === "admin" ? (
+            <div className="mt-4 border-t border-graphite-100 pt-4">
+              <MountHeadForm headId={head.id} current={head.machineId} machines={machines.map((m) => ({ id: m.id, label: `${m.name} — ${m.customerName}, ${m.siteName}` }))} />
+            </div>
+          ) : null}
+        </Card>
+      </div>
+    </div>
+  );
+}
