@@ -74,14 +74,22 @@ export async function readMultipart(req: Request, maxBytes: number, fileField = 
       // A body cut off at the limit ends the part early; that is already reported as a 413.
       stream.on("error", () => undefined);
       const hash = createHash("sha256");
-      const chunks: Buffer[] = [];
+      // One buffer sized from the declared length (grown by doubling otherwise), so a large file
+      // is held once rather than as chunks plus their concatenation.
+      let buf = Buffer.allocUnsafe(Math.max(64 * 1024, Math.min(maxBytes, Number(declared ?? 0) || 0)));
+      let used = 0;
       stream.on("data", (c: Buffer) => {
         hash.update(c);
-        chunks.push(c);
+        if (used + c.length > buf.length) {
+          const grown = Buffer.allocUnsafe(Math.min(Math.max(buf.length * 2, used + c.length), maxBytes + c.length));
+          buf.copy(grown, 0, 0, used);
+          buf = grown;
+        }
+        c.copy(buf, used);
+        used += c.length;
       });
       stream.on("end", () => {
-        file = { filename: info.filename ?? "upload.csv", contentType: info.mimeType || "text/csv", data: Buffer.concat(chunks), sha256: hash.digest("hex") };
-        chunks.length = 0;
+        file = { filename: info.filename ?? "upload.csv", contentType: info.mimeType || "text/csv", data: buf.subarray(0, used), sha256: hash.digest("hex") };
       });
     });
     bb.on("filesLimit", () => fail(invalid("Send one file per upload.", [{ field: fileField, message: "more than one file" }])));

@@ -236,8 +236,11 @@ export function parseDatasetFile(form: UploadForm, bytes: Uint8Array): ParsedDat
   return parseDatasetText(form, decodeUtf8(bytes));
 }
 
-/** Float64Array ↔ little-endian bytea. */
+const LITTLE_ENDIAN = new Uint8Array(new Float64Array([1]).buffer)[7] === 0x3f;
+
+/** Float64Array ↔ little-endian bytea (a view, not a copy, on a little-endian machine). */
 export function columnToBytes(values: Float64Array): Buffer {
+  if (LITTLE_ENDIAN) return Buffer.from(values.buffer, values.byteOffset, values.byteLength);
   const out = Buffer.allocUnsafe(values.length * 8);
   for (let i = 0; i < values.length; i++) out.writeDoubleLE(values[i]!, i * 8);
   return out;
