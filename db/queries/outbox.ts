@@ -39,19 +39,20 @@ export function retryDelayMs(attempts: number): number {
  * attempt, in the same statement, so a row is handed out once until the lease runs out
  * (which only happens if the worker died mid-send).
  */
-export async function claimDueMessages(limit: number, now = new Date()) {
+export async function claimDueMessages(limit: number) {
+  // The database clock decides what is due, the same clock that stamped the rows.
   return db.transaction(async (tx) => {
     const due = await tx
       .select({ id: outbox.id })
       .from(outbox)
-      .where(and(eq(outbox.status, "pending"), lte(outbox.nextAttemptAt, now)))
+      .where(and(eq(outbox.status, "pending"), lte(outbox.nextAttemptAt, sql`now()`)))
       .orderBy(outbox.nextAttemptAt)
       .limit(limit)
       .for("update", { skipLocked: true });
     if (due.length === 0) return [];
     return tx
       .update(outbox)
-      .set({ attempts: sql`${outbox.attempts} + 1`, nextAttemptAt: new Date(now.getTime() + CLAIM_LEASE_MS) })
+      .set({ attempts: sql`${outbox.attempts} + 1`, nextAttemptAt: sql`now() + make_interval(secs => ${CLAIM_LEASE_MS / 1000})` })
       .where(inArray(outbox.id, due.map((d) => d.id)))
       .returning();
   });
@@ -62,11 +63,11 @@ export async function markSent(id: string): Promise<void> {
 }
 
 /** A failed send: retry later with exponential backoff, or give up after MAX_ATTEMPTS. */
-export async function markFailed(id: string, attempts: number, error: string, now = new Date()): Promise<void> {
+export async function markFailed(id: string, attempts: number, error: string): Promise<void> {
   const giveUp = attempts >= MAX_ATTEMPTS;
   await db
     .update(outbox)
-    .set({ status: giveUp ? "failed" : "pending", lastError: error.slice(0, 1000), nextAttemptAt: new Date(now.getTime() + retryDelayMs(attempts)) })
+    .set({ status: giveUp ? "failed" : "pending", lastError: error.slice(0, 1000), nextAttemptAt: sql`now() + make_interval(secs => ${retryDelayMs(attempts) / 1000})` })
     .where(eq(outbox.id, id));
 }
 
