@@ -6,7 +6,7 @@
 export function ResidualChart({ residuals, rows, toolMm, sUm }: { residuals: ReadonlyArray<readonly [number, number, number]>; rows: readonly number[]; toolMm: readonly number[]; sUm: number }) {
   const W = 880;
   const H = 240;
-  const m = { l: 52, r: 16, t: 14, b: 34 };
+  const m = { l: 52, r: 16, t: 30, b: 34 };
   const n = residuals.length;
   const worst = residuals.map((r) => Math.max(Math.abs(r[0]), Math.abs(r[1]), Math.abs(r[2])));
   const limit = 3 * sUm;
@@ -14,6 +14,8 @@ export function ResidualChart({ residuals, rows, toolMm, sUm }: { residuals: Rea
   const x = (i: number) => m.l + ((i + 0.5) / Math.max(1, n)) * (W - m.l - m.r);
   const y = (v: number) => H - m.b - (v / yMax) * (H - m.t - m.b);
   const ticks = niceTicks(yMax);
+  const tickDigits = ticks.some((t) => !Number.isInteger(t * 10)) ? 2 : 1;
+  const outlierIdx = worst.flatMap((w, i) => (w > limit ? [i] : []));
   // Where the tool length changes: a separator and a label.
   const breaks: { i: number; tool: number }[] = [];
   toolMm.forEach((t, i) => {
@@ -26,7 +28,7 @@ export function ResidualChart({ residuals, rows, toolMm, sUm }: { residuals: Rea
           <g key={t}>
             <line x1={m.l} x2={W - m.r} y1={y(t)} y2={y(t)} stroke="#e3e6ea" />
             <text x={m.l - 6} y={y(t) + 4} textAnchor="end" fontSize="11" fill="#4b5563" className="num">
-              {t.toFixed(t < 1 ? 2 : 1)}
+              {t.toFixed(tickDigits)}
             </text>
           </g>
         ))}
@@ -44,18 +46,16 @@ export function ResidualChart({ residuals, rows, toolMm, sUm }: { residuals: Rea
         {worst.map((w, i) => (
           <line key={i} x1={x(i)} x2={x(i)} y1={y(0)} y2={y(w)} stroke={w > limit ? "#b45309" : "#5f7d99"} strokeWidth={Math.max(1, Math.min(4, (W - m.l - m.r) / n - 0.5))} />
         ))}
-        {worst.map((w, i) =>
-          w > limit ? (
-            <g key={`o${i}`}>
-              <path d={`M ${x(i)} ${y(w) - 9} l 5 8 l -10 0 z`} fill="#b45309" />
-              <text x={x(i)} y={y(w) - 12} fontSize="10" textAnchor="middle" fill="#7c2d12" className="num">
-                row {rows[i]}
-              </text>
-            </g>
-          ) : null,
-        )}
+        {outlierIdx.map((i, j) => (
+          <g key={`o${i}`}>
+            <path d={`M ${x(i)} ${y(worst[i]!) - 9} l 5 8 l -10 0 z`} fill="#b45309" />
+            <text x={x(i)} y={y(worst[i]!) - 12 - (j % 2) * 11} fontSize="10" textAnchor="middle" fill="#7c2d12" className="num">
+              row {rows[i]}
+            </text>
+          </g>
+        ))}
         <line x1={m.l} x2={W - m.r} y1={y(limit)} y2={y(limit)} stroke="#b45309" strokeDasharray="6 4" />
-        <text x={W - m.r} y={y(limit) - 4} fontSize="11" textAnchor="end" fill="#7c2d12">
+        <text x={m.l + 6} y={y(limit) - 4} fontSize="11" fill="#7c2d12">
           3 s = {limit.toFixed(2)} µm
         </text>
         <line x1={m.l} x2={W - m.r} y1={y(0)} y2={y(0)} stroke="#6b7280" />

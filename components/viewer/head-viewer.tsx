@@ -46,7 +46,7 @@ function webglAvailable(): boolean {
   }
 }
 
-export function HeadViewer({ config, errors, poses, residualsUm, initialFactor = 1000 }: HeadViewerProps) {
+export function HeadViewer({ config, errors, poses, residualsUm, initialFactor = 300 }: HeadViewerProps) {
   const [slider, setSlider] = useState(Math.log10(initialFactor));
   const [ready, setReady] = useState(false);
   const [webgl, setWebgl] = useState<boolean | null>(null);
@@ -70,7 +70,7 @@ export function HeadViewer({ config, errors, poses, residualsUm, initialFactor =
               gl={{ preserveDrawingBuffer: true, antialias: true }}
               dpr={[1, 2]}
               frameloop="demand"
-              camera={{ position: [2.4 * (L + maxTool), -2.9 * (L + maxTool), 1.5 * (L + maxTool)], up: [0, 0, 1], fov: 38, near: 1, far: 20000 }}
+              camera={{ position: [2.6 * (L + maxTool), -3.1 * (L + maxTool), 1.3 * (L + maxTool)], up: [0, 0, 1], fov: 36, near: 1, far: 20000 }}
               onCreated={({ gl }) => {
                 gl.setClearColor(BACKGROUND);
                 setReady(true);
@@ -83,8 +83,8 @@ export function HeadViewer({ config, errors, poses, residualsUm, initialFactor =
               <HeadModel L={L} />
               <Axes scene={scene} L={L} config={config} />
               <Paths scene={scene} />
-              <MeasuredPoints scene={scene} maxRes={maxRes} radius={Math.max(0.8, 0.011 * L)} />
-              <OrbitControls ref={controls} makeDefault target={[0, 0, -0.45 * (L + maxTool)]} enableDamping={false} />
+              <MeasuredPoints scene={scene} maxRes={maxRes} radius={Math.max(1, 0.017 * L)} />
+              <OrbitControls ref={controls} makeDefault target={[0, 0, -0.05 * (L + maxTool)]} enableDamping={false} />
             </Canvas>
           ) : (
             <p className="p-6 text-sm text-graphite-600">Starting the 3D view…</p>
@@ -205,12 +205,12 @@ function lineEnds(l: SceneLine, from: number, to: number): [number, number, numb
 
 function Axes({ scene, L, config }: { scene: HeadSceneData; L: number; config: HeadConfig }) {
   const a = scene.axes;
-  const pEnd = lineEnds(a.fittedPrimary, -0.5 * L, 1.7 * L)[1]!;
+  const pEnd = lineEnds(a.fittedPrimary, -0.5 * L, 1.55 * L)[1]!;
   const sEnd = lineEnds(a.fittedSecondary, -0.95 * L, 0.95 * L)[1]!;
   return (
     <group>
-      <Line points={lineEnds(a.nominalPrimary, -0.5 * L, 1.7 * L)} color={NOMINAL} lineWidth={2} dashed dashSize={0.06 * L} gapSize={0.04 * L} />
-      <Line points={lineEnds(a.fittedPrimary, -0.5 * L, 1.7 * L)} color={FITTED} lineWidth={3} />
+      <Line points={lineEnds(a.nominalPrimary, -0.5 * L, 1.55 * L)} color={NOMINAL} lineWidth={2} dashed dashSize={0.06 * L} gapSize={0.04 * L} />
+      <Line points={lineEnds(a.fittedPrimary, -0.5 * L, 1.55 * L)} color={FITTED} lineWidth={3} />
       <Line points={lineEnds(a.nominalSecondary, -0.95 * L, 0.95 * L)} color={NOMINAL} lineWidth={2} dashed dashSize={0.06 * L} gapSize={0.04 * L} />
       <Line points={lineEnds(a.fittedSecondary, -0.95 * L, 0.95 * L)} color={FITTED} lineWidth={3} />
       <Html position={pEnd} center zIndexRange={[10, 0]}>

@@ -108,7 +108,7 @@ function FitSection({
             {fitRow.createdByName ? ` by ${fitRow.createdByName}` : ""} · computation {a.geometryVersion} · input <span className="num">{a.inputSha256.slice(0, 12)}…</span>
           </p>
         </div>
-        <div className="grid gap-6 xl:grid-cols-[1fr_20rem]">
+        <div className="grid gap-6 xl:grid-cols-[1fr_23rem]">
           <Card title="Pivot and squareness in 3D">
             <HeadViewerLoader config={config} errors={errors} poses={poses} residualsUm={r.poses.residual_um} />
           </Card>
@@ -128,10 +128,8 @@ function FitSection({
               <dd className="num text-right">{fit.iterations}</dd>
               <dt className="text-graphite-600">Outliers (beyond 3 s)</dt>
               <dd className="num text-right">{fit.outliers.length}</dd>
-              <dt className="text-graphite-600">Sphere centre</dt>
-              <dd className="num text-right">
-                {fit.sphere_centre_mm.map((v) => v.toFixed(4)).join(", ")} mm
-              </dd>
+              <dt className="col-span-2 text-graphite-600">Sphere centre (x, y, z)</dt>
+              <dd className="num col-span-2 text-right">{fit.sphere_centre_mm.map((v) => v.toFixed(4)).join(", ")} mm</dd>
             </dl>
             <p className="mt-4 text-xs text-graphite-600">Uncertainties are expanded, U = 2u (k = 2, about 95 %), from the residual scatter s²·(JᵀJ)⁻¹.</p>
           </Card>
