@@ -91,3 +91,32 @@ describe("inspector: test-part data to a judged table", () => {
     expect(res.headers()["x-content-type-options"]).toBe("nosniff");
   });
 });
+
+describe("customer: their own company's data only", () => {
+  it("the Marlow Creek buyer lists and opens the seeded test-part data of TR-2026-0041 but may not upload", async () => {
+    await ctx.clearCookies();
+    const p = await ctx.newPage();
+    await signIn(p, "buyer@marlowcreek.example");
+    await p.waitForURL("**/jobs");
+    const href = await p.getByRole("link", { name: "TR-2026-0041" }).getAttribute("href");
+    await p.goto(`${href}/data`);
+    await p.getByRole("link", { name: "Test-part measurements" }).first().click();
+    await p.waitForURL(/\/data\/[0-9a-f-]{36}$/);
+    await p.getByRole("table", { name: "Test-part evaluation" }).waitFor();
+    expect(await p.getByTestId("decision-rule").innerText()).toContain("simple acceptance");
+    const dataUrl = p.url();
+    await p.goto(`${href}/data`);
+    expect(await p.getByRole("heading", { name: "Add measurement data" }).count()).toBe(0);
+    await p.screenshot({ path: screenshotPath("datasets-customer-list"), fullPage: true });
+    await p.close();
+
+    await ctx.clearCookies();
+    const q = await ctx.newPage();
+    await signIn(q, "buyer@tollan.example");
+    await q.waitForURL("**/jobs");
+    const res = await q.goto(dataUrl);
+    expect(res?.status()).toBe(404);
+    expect(await q.content()).not.toContain("Bore A");
+    await q.close();
+  });
+});
