@@ -50,6 +50,20 @@ beforeAll(async () => {
   ids.tollan = (await res.json()).id;
 });
 
+describe("demo seed", () => {
+  it("TR-2026-0041 carries a synthesised sphere-probe dataset (120 poses, two tool lengths) and the test-part data", async () => {
+    await signInAs("engineer@halvard.example");
+    const list = (await (await listDatasetsApi(ids.marlowJob)).json()).datasets as { id: string; kind: string; rows: number }[];
+    expect(list.map((d) => [d.kind, d.rows]).sort()).toEqual([
+      ["sphere_probe", 120],
+      ["test_part", 8],
+    ]);
+    const probe = (await (await summaryApi(list.find((d) => d.kind === "sphere_probe")!.id)).json()).dataset;
+    expect(probe.summary.columns.tool_mm).toEqual({ unit: "mm", min: 0, max: 100 });
+    expect(probe.originalFilename).toContain("synthetic demo");
+  });
+});
+
 describe("dataset reads by role and tenant", () => {
   for (const [who, cell] of Object.entries(READ)) {
     for (const tenant of ["marlow", "tollan"] as const) {
