@@ -1,17 +1,21 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { BandChart } from "@/components/charts/band-chart";
-import { UnitToggle } from "@/components/checklist/job-actions";
+import { StatusButtons, UnitToggle } from "@/components/checklist/job-actions";
 import { DecisionBadge, LIMIT_SOURCE_LABELS } from "@/components/readings/decision-badge";
 import { Card } from "@/components/ui/card";
 import { getComparison } from "@/db/queries/readings";
 import { getUnitSystem } from "@/db/queries/user-prefs";
+import { allowedTransitions, type JobStatus } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 import { arcsecToUmPerM, formatLimits, formatValue } from "@/lib/units";
 
 export const metadata: Metadata = { title: "Before and after" };
 
 type Props = { params: Promise<{ id: string }> };
+
+/** Review moves offered beside the comparison; the server checks them again (lib/auth/roles.canTransition). */
+const REVIEW_MOVES: Partial<Record<JobStatus, string>> = { measuring: "Send back for more readings", approved: "Approve the readings" };
 
 export default async function ComparePage({ params }: Props) {
   const { id } = await params;
@@ -24,6 +28,7 @@ export default async function ComparePage({ params }: Props) {
     else if (r.status === "fail") counts.fail++;
     else counts.other++;
   }
+  const moves = c.detail.job.status === "in_review" ? allowedTransitions(user.role, "in_review").filter((to) => REVIEW_MOVES[to]).map((to) => ({ to, label: REVIEW_MOVES[to]! })) : [];
   const fmt = (v: number | null | undefined, kind: "length" | "angle", signed = false) => formatValue(v, kind, unitSystem, { signed });
 
   return (
@@ -51,6 +56,7 @@ export default async function ComparePage({ params }: Props) {
           <a href={`/api/jobs/${id}/comparison/csv`} className="flex min-h-touch items-center rounded-md border border-graphite-300 bg-white px-4 text-sm font-medium hover:bg-graphite-100" download>
             Download CSV
           </a>
+          <StatusButtons jobId={id} moves={moves} />
         </div>
       </div>
 
