@@ -89,7 +89,7 @@ export default async function ComparePage({ params }: Props) {
                     <td key={p} className="num px-4 py-3 text-right align-top" data-testid={`compare-${p}-${r.position}`}>
                       {v ? (
                         <>
-                          <span className="font-semibold">{fmt(v.value, r.quantityKind)}</span>
+                          <span className="whitespace-nowrap font-semibold">{fmt(v.value, r.quantityKind)}</span>
                           {r.quantityKind === "angle" ? <span className="block text-xs text-graphite-500">{arcsecToUmPerM(v.value).toFixed(1)} µm/m</span> : null}
                           {v.U > 0 && r.decisionRule === "guarded" ? <span className="block text-xs text-graphite-500">U = ± {fmt(v.U, r.quantityKind)} (k = 2)</span> : null}
                           <span className="mt-1 block">
@@ -102,7 +102,7 @@ export default async function ComparePage({ params }: Props) {
                     </td>
                   );
                 })}
-                <td className="num px-4 py-3 text-right align-top" data-testid={`compare-change-${r.position}`}>
+                <td className="num whitespace-nowrap px-4 py-3 text-right align-top" data-testid={`compare-change-${r.position}`}>
                   {r.change != null ? fmt(r.change, r.quantityKind, true) : "—"}
                 </td>
                 <td className="num px-4 py-3 text-right align-top">{formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, unitSystem)}</td>
