@@ -17,9 +17,9 @@ const IN = 25.4; // mm per inch, exactly (NIST SP 811)
 export const DEFAULT_TEMPLATE_NAME = "Two-axis head installation";
 
 const LOCKOUT = "Lock out and tag out the machine before working on the spindle nose or collar. Follow the machine builder's manual, local codes and licensed practice.";
-const LIFT = "The head is heavy: lift it only with rated gear at the maker's lifting points, never stand or reach under a suspended load, and keep fingers out of the gap between head and collar while the spline engages (pinch point). The head maker's manual and local lifting rules come first.";
-const JOG = "Axes move under power while you indicate: jog at low feed, keep hands and the indicator stand clear of the head's sweep, and keep the enabling device in reach. Follow the machine builder's manual.";
-const CUT = "The spindle rotates and chips fly: guards closed, eye protection on, nobody inside the machine's working area. Follow the machine builder's manual and the shop's rules.";
+const LIFT = "The head is heavy: lift it only with rated gear at the maker's lifting points, never stand or reach under a suspended load, and keep fingers out of the gap between head and collar while the spline engages (pinch point). The head maker's and machine builder's manuals, local codes and licensed practice come first.";
+const JOG = "Axes move under power while you indicate: jog at low feed, keep hands and the indicator stand clear of the head's sweep, and keep the enabling device in reach. Follow the machine builder's manual, local codes and licensed practice.";
+const CUT = "The spindle rotates and chips fly: guards closed, eye protection on, nobody inside the machine's working area. Follow the machine builder's manual, local codes and licensed practice.";
 
 /** The default steps. Limits in canonical units: mm for length, arcsec for angle. */
 export const DEFAULT_STEPS: ReadonlyArray<Omit<typeof templateSteps.$inferInsert, "templateId">> = [
