@@ -7,7 +7,8 @@
  * browser.
  */
 import { headAxes, HEAD_PARAMETER_KEYS, type HeadConfig, type HeadErrors, type HeadVec3 as Vec3 } from "./head/config";
-import { headTipMm, rodriguesRotate, type HeadPose } from "./head/model";
+import { HeadKernel } from "./head/kernel";
+import { headErrorVector, rodriguesRotate, type HeadPose } from "./head/model";
 
 const RAD_PER_ARCSEC = Math.PI / 648000;
 const RAD_PER_DEG = Math.PI / 180;
@@ -79,6 +80,10 @@ export interface HeadSceneData {
 export function headScene(config: HeadConfig, errors: HeadErrors, poses: readonly HeadPose[], k: number, residualsUm?: readonly Vec3[]): HeadSceneData {
   const ek = exaggerateErrors(errors, k);
   const n = poses.length;
+  // One kernel each for the nominal and the exaggerated model (the same code as headTipMm, without re-building it per pose).
+  const axes = headAxes(config);
+  const k0 = new HeadKernel(axes, headErrorVector({}));
+  const kk = new HeadKernel(axes, headErrorVector(ek));
   const nominal = new Float32Array(3 * n);
   const actual = new Float32Array(3 * n);
   const measured = new Float32Array(3 * n);
@@ -86,8 +91,10 @@ export function headScene(config: HeadConfig, errors: HeadErrors, poses: readonl
   let extent = 0;
   for (let i = 0; i < n; i++) {
     const pose = poses[i]!;
-    const t0 = headTipMm(config, {}, pose);
-    const t = headTipMm(config, ek, pose);
+    k0.eval(pose.primaryDeg, pose.secondaryDeg, pose.toolMm ?? 0, false);
+    kk.eval(pose.primaryDeg, pose.secondaryDeg, pose.toolMm ?? 0, false);
+    const t0 = k0.tip;
+    const t = kk.tip;
     const r = residualsUm?.[i] ?? [0, 0, 0];
     for (let c = 0; c < 3; c++) {
       nominal[3 * i + c] = t0[c]!;
@@ -95,7 +102,7 @@ export function headScene(config: HeadConfig, errors: HeadErrors, poses: readonl
       measured[3 * i + c] = t[c]! - (k * r[c]!) / 1000;
     }
     res[i] = Math.hypot(r[0], r[1], r[2]);
-    extent = Math.max(extent, Math.hypot(t0[0], t0[1], t0[2]), Math.hypot(t[0], t[1], t[2]));
+    extent = Math.max(extent, Math.hypot(t0[0]!, t0[1]!, t0[2]!), Math.hypot(t[0]!, t[1]!, t[2]!));
   }
   // Sweeps: poses with the same primary angle and tool, in increasing secondary angle.
   const groups = new Map<string, number[]>();

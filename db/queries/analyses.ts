@@ -255,7 +255,9 @@ export async function getApprovedAnalysis(actor: Actor, jobId: string) {
   const last = [...events].reverse().find((e) => e.action === "analysis.approved");
   if (!last) return null;
   const a = await getAnalysis(actor, last.entityId);
-  return a ? { detail: a, approvedAt: last.at, approvedByEmail: last.actorEmail } : null;
+  if (!a) return null;
+  const [by] = last.actorId ? await db.select({ name: users.name }).from(users).where(eq(users.id, last.actorId)) : [];
+  return { detail: a, approvedAt: last.at, approvedBy: by?.name ?? last.actorEmail };
 }
 
 /**

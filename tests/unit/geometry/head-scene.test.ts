@@ -4,7 +4,7 @@
 import { multiply, rotationMatrix } from "mathjs";
 import { describe, expect, it } from "vitest";
 import { exaggerateErrors, headAxisLines, headScene, residualColour } from "@/geometry/head-scene";
-import { headPoseGrid, type HeadConfig, type HeadErrors } from "@/geometry";
+import { headPoseGrid, headTipMm, nominalTipMm, type HeadConfig, type HeadErrors } from "@/geometry";
 
 const CA: HeadConfig = { primary: "C", secondary: "A", pivotLengthMm: 152.4 };
 const poses = headPoseGrid({ primarySteps: 12, secondaryDeg: [-90, -45, 0, 45, 90], toolMm: [0, 100] });
@@ -22,6 +22,19 @@ describe("head scene", () => {
       expect(s.axes.fittedPrimary.direction).toEqual(s.axes.nominalPrimary.direction);
       for (let c = 0; c < 3; c++) expect(s.axes.fittedSecondary.direction[c]).toBeCloseTo(s.axes.nominalSecondary.direction[c]!, 15);
     }
+  });
+
+  it("tips equal geometry's public forward model (nominalTipMm, headTipMm with the errors × k)", () => {
+    const errors: HeadErrors = { pivot_length_error_um: 38, secondary_tilt_arcsec: 18, tip_offset_n_um: 21 };
+    const s = headScene(CA, errors, poses, 250);
+    poses.forEach((p, i) => {
+      const t0 = nominalTipMm(CA, p);
+      const t = headTipMm(CA, { pivot_length_error_um: 38 * 250, secondary_tilt_arcsec: 18 * 250, tip_offset_n_um: 21 * 250 }, p);
+      for (let c = 0; c < 3; c++) {
+        expect(s.nominalTipsMm[3 * i + c]).toBeCloseTo(t0[c]!, 4);
+        expect(s.actualTipsMm[3 * i + c]).toBeCloseTo(t[c]!, 4);
+      }
+    });
   });
 
   it("a pure pivot-length error e moves the gauge point along the tool by exactly k·e at every pose", () => {

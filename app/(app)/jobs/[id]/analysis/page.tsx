@@ -222,7 +222,7 @@ function FitSection({
           <div className="space-y-4">
             <p className="text-sm text-graphite-700">
               Approved {formatDateTimeUtc(approved!.approvedAt)}
-              {approved!.approvedByEmail ? ` by ${approved!.approvedByEmail}` : ""}. Enter these in the control&apos;s kinematic (tool centre point) settings for this head:
+              {approved!.approvedBy ? ` by ${approved!.approvedBy}` : ""}. Enter these in the control&apos;s kinematic (tool centre point) settings for this head:
             </p>
             <table className="w-full text-sm" aria-label="Values for the control">
               <tbody>
