@@ -43,3 +43,21 @@ export const setPasswordSchema = z
     confirm: z.string(),
   })
   .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The passwords do not match." });
+
+const optional = (max: number) => z.string().trim().max(max).optional();
+
+export const customerCreateSchema = z.object({ name: z.string().trim().min(2, "Enter the customer's name.").max(200), contactEmail: z.union([z.email({ message: "Enter an e-mail address or leave it empty." }), z.literal("")]).optional() });
+export const siteCreateSchema = z.object({ customerId: z.uuid({ message: "Choose a customer." }), name: z.string().trim().min(1, "Name the site.").max(200), address: optional(400) });
+export const machineCreateSchema = z.object({ siteId: z.uuid({ message: "Choose a site." }), name: z.string().trim().min(1, "Name the machine.").max(200), kind: z.string().trim().min(2, "Say what kind of machine it is.").max(100), builder: optional(200), model: optional(200), serial: optional(100), control: optional(200) });
+export const headCreateSchema = z
+  .object({
+    serial: z.string().trim().min(1, "The serial is required.").max(80),
+    maker: optional(200),
+    model: optional(200),
+    primaryAxis: z.enum(["A", "B", "C"]),
+    secondaryAxis: z.enum(["A", "B", "C"]),
+    nominalPivotLengthMm: z.coerce.number({ message: "Enter the nominal pivot length in mm." }).positive("The pivot length must be positive."),
+    toolAxisOffsetMm: z.coerce.number({ message: "Enter a number (mm)." }).default(0),
+    massKg: z.preprocess((v) => (v === "" ? undefined : v), z.coerce.number().positive("The mass must be positive.").optional()),
+  })
+  .refine((v) => v.primaryAxis !== v.secondaryAxis, { path: ["secondaryAxis"], message: "The secondary axis must differ from the primary." });

@@ -289,3 +289,21 @@ describe("heads register", () => {
     expect((await failure(getHeadWithHistory(as.installer!, base!.headId))).status).toBe(403);
   });
 });
+
+describe("customers, sites, machines and heads", () => {
+  it("an administrator adds each, audited; another role is refused; duplicates name the field", async () => {
+    const r = await import("@/db/queries/registers-admin");
+    const tag = Date.now().toString(36);
+    expect((await failure(r.createCustomer(as.engineer!, { name: `Cust ${tag}` }))).status).toBe(403);
+    const c = await r.createCustomer(as.admin!, { name: `Cust ${tag}`, contactEmail: "" });
+    expect((await failure(r.createCustomer(as.admin!, { name: `cust ${tag}` }))).issues?.[0]?.field).toBe("name");
+    const s = await r.createSite(as.admin!, { customerId: c.id, name: "Plant 9" });
+    const m = await r.createMachine(as.admin!, { siteId: s.id, name: "Mill M-1", kind: "bridge mill" });
+    const h = await r.createHead(as.admin!, { serial: `TH-${tag}`, primaryAxis: "C", secondaryAxis: "B", nominalPivotLengthMm: 127, toolAxisOffsetMm: 0 });
+    expect((await failure(r.createHead(as.admin!, { serial: `TH-${tag}`, primaryAxis: "C", secondaryAxis: "B", nominalPivotLengthMm: 127, toolAxisOffsetMm: 0 }))).issues?.[0]?.field).toBe("serial");
+    for (const [type, id] of [["customer", c.id], ["site", s.id], ["machine", m.id], ["head", h.id]] as const) {
+      const ev = await db.select().from(auditEvents).where(and(eq(auditEvents.entityType, type), eq(auditEvents.entityId, id)));
+      expect(ev.map((e) => e.action)).toEqual([`${type}.created`]);
+    }
+  });
+});

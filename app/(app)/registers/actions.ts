@@ -5,12 +5,13 @@ import { z } from "zod";
 import { createInstrument } from "@/db/queries/instruments";
 import { createJobFromTemplate } from "@/db/queries/job-status";
 import { mountHead } from "@/db/queries/heads-admin";
+import { createCustomer, createHead, createMachine, createSite } from "@/db/queries/registers-admin";
 import { createTemplateVersion } from "@/db/queries/templates";
 import { inviteUser, updateUser } from "@/db/queries/users-admin";
 import { action } from "@/lib/actions";
 import { invalid } from "@/lib/errors";
 import { toCanonical } from "@/lib/units";
-import { instrumentCreateSchema, userInviteSchema, userUpdateSchema } from "@/lib/validations/registers";
+import { customerCreateSchema, headCreateSchema, instrumentCreateSchema, machineCreateSchema, siteCreateSchema, userInviteSchema, userUpdateSchema } from "@/lib/validations/registers";
 
 export const createInstrumentAction = action({ schema: instrumentCreateSchema, roles: ["admin"] }, async (input, actor) => {
   const row = await createInstrument(actor, input);
@@ -88,4 +89,26 @@ export const mountHeadAction = action({ schema: z.object({ headId: z.uuid(), mac
   const r = await mountHead(actor, headId, machineId);
   revalidatePath(`/registers/heads/${headId}`);
   return r;
+});
+
+export const createCustomerAction = action({ schema: customerCreateSchema, roles: ["admin"] }, async (input, actor) => {
+  const r = await createCustomer(actor, input);
+  revalidatePath("/registers");
+  return { id: r.id };
+});
+export const createSiteAction = action({ schema: siteCreateSchema, roles: ["admin"] }, async (input, actor) => {
+  const r = await createSite(actor, input);
+  revalidatePath("/registers");
+  return { id: r.id };
+});
+export const createMachineAction = action({ schema: machineCreateSchema, roles: ["admin"] }, async (input, actor) => {
+  const r = await createMachine(actor, input);
+  revalidatePath("/registers");
+  return { id: r.id };
+});
+export const createHeadAction = action({ schema: headCreateSchema, roles: ["admin"] }, async (input, actor) => {
+  const r = await createHead(actor, input);
+  revalidatePath("/registers");
+  revalidatePath("/registers/heads");
+  return { id: r.id };
 });

@@ -1,6 +1,9 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { HeadsTable } from "@/components/registers/heads-table";
+import { CustomerForm, HeadForm, MachineForm, SiteForm } from "@/components/registers/register-forms";
+import { Card } from "@/components/ui/card";
+import { listSitesForSelect } from "@/db/queries/registers-admin";
 import { SimpleTable } from "@/components/ui/simple-table";
 import { listCustomersWithSites, listHeads, listMachines, listPeople } from "@/db/queries/registers";
 import { canReadRegister, ROLE_LABELS } from "@/lib/auth/roles";
@@ -11,7 +14,7 @@ export const metadata: Metadata = { title: "Registers" };
 export default async function RegistersPage() {
   const user = await requirePageUser("/registers");
   if (!canReadRegister(user.role, "customers")) notFound();
-  const [customers, machines, heads, people] = await Promise.all([listCustomersWithSites(user), listMachines(user), listHeads(user), listPeople(user)]);
+  const [customers, machines, heads, people, siteOptions] = await Promise.all([listCustomersWithSites(user), listMachines(user), listHeads(user), listPeople(user), listSitesForSelect()]);
   return (
     <div className="space-y-8">
       <div>
@@ -40,6 +43,14 @@ export default async function RegistersPage() {
         <h2 id="heads" className="text-lg font-semibold">Heads</h2>
         <HeadsTable rows={heads} />
       </section>
+      {user.role === "admin" ? (
+        <section className="grid gap-6 lg:grid-cols-2" aria-label="Add to the registers">
+          <Card title="Add a customer"><CustomerForm /></Card>
+          <Card title="Add a site"><SiteForm customers={customers.map((c) => ({ id: c.id, label: c.name }))} /></Card>
+          <Card title="Add a host machine" className="lg:col-span-2"><MachineForm sites={siteOptions.map((s) => ({ id: s.id, label: `${s.customerName}, ${s.name}` }))} /></Card>
+          <Card title="Add a head" className="lg:col-span-2"><HeadForm /></Card>
+        </section>
+      ) : null}
       <section className="space-y-3" aria-labelledby="people">
         <h2 id="people" className="text-lg font-semibold">People</h2>
         <SimpleTable
