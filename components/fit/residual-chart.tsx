@@ -1,14 +1,32 @@
 /**
  * Residuals per pose: for each pose (in file order) the largest residual component in µm, with
  * the 3 s line the outlier rule uses. Outliers are drawn as triangles and labelled with their row,
- * so the chart does not depend on colour alone.
+ * so the chart does not depend on colour alone. Beyond MAX_BARS poses, consecutive poses share a
+ * bar that shows the largest of them (so no outlier disappears).
  */
-export function ResidualChart({ residuals, rows, toolMm, sUm }: { residuals: ReadonlyArray<readonly [number, number, number]>; rows: readonly number[]; toolMm: readonly number[]; sUm: number }) {
+const MAX_BARS = 1200;
+
+export function ResidualChart({ residuals, rows: allRows, toolMm: allTool, sUm }: { residuals: ReadonlyArray<readonly [number, number, number]>; rows: readonly number[]; toolMm: readonly number[]; sUm: number }) {
   const W = 880;
   const H = 240;
   const m = { l: 52, r: 16, t: 30, b: 34 };
-  const n = residuals.length;
-  const worst = residuals.map((r) => Math.max(Math.abs(r[0]), Math.abs(r[1]), Math.abs(r[2])));
+  const perBar = Math.max(1, Math.ceil(residuals.length / MAX_BARS));
+  const worst: number[] = [];
+  const rows: number[] = [];
+  const toolMm: number[] = [];
+  residuals.forEach((r, i) => {
+    const w = Math.max(Math.abs(r[0]), Math.abs(r[1]), Math.abs(r[2]));
+    const b = Math.floor(i / perBar);
+    if (b === worst.length) {
+      worst.push(w);
+      rows.push(allRows[i]!);
+      toolMm.push(allTool[i]!);
+    } else if (w > worst[b]!) {
+      worst[b] = w;
+      rows[b] = allRows[i]!;
+    }
+  });
+  const n = worst.length;
   const limit = 3 * sUm;
   const yMax = Math.max(limit * 1.25, ...worst) || 1;
   const x = (i: number) => m.l + ((i + 0.5) / Math.max(1, n)) * (W - m.l - m.r);
@@ -16,6 +34,13 @@ export function ResidualChart({ residuals, rows, toolMm, sUm }: { residuals: Rea
   const ticks = niceTicks(yMax);
   const tickDigits = ticks.some((t) => !Number.isInteger(t * 10)) ? 2 : 1;
   const outlierIdx = worst.flatMap((w, i) => (w > limit ? [i] : []));
+  // Label heights: a label that would touch the previous one goes above it.
+  const labelY: number[] = [];
+  outlierIdx.forEach((i, j) => {
+    let ly = y(worst[i]!) - 12;
+    if (j > 0 && x(i) - x(outlierIdx[j - 1]!) < 44) ly = Math.min(ly, labelY[j - 1]! - 11);
+    labelY.push(ly);
+  });
   // Where the tool length changes: a separator and a label.
   const breaks: { i: number; tool: number }[] = [];
   toolMm.forEach((t, i) => {
@@ -23,7 +48,7 @@ export function ResidualChart({ residuals, rows, toolMm, sUm }: { residuals: Rea
   });
   return (
     <figure className="space-y-2">
-      <svg viewBox={`0 0 ${W} ${H}`} className="h-auto w-full" role="img" aria-label={`Largest residual component per pose for ${n} poses; ${worst.filter((w) => w > limit).length} beyond 3 s = ${limit.toFixed(2)} µm`}>
+      <svg viewBox={`0 0 ${W} ${H}`} className="h-auto w-full" role="img" aria-label={`Largest residual component per pose for ${residuals.length} poses; ${worst.filter((w) => w > limit).length} beyond 3 s = ${limit.toFixed(2)} µm`}>
         {ticks.map((t) => (
           <g key={t}>
             <line x1={m.l} x2={W - m.r} y1={y(t)} y2={y(t)} stroke="#e3e6ea" />
@@ -49,7 +74,7 @@ export function ResidualChart({ residuals, rows, toolMm, sUm }: { residuals: Rea
         {outlierIdx.map((i, j) => (
           <g key={`o${i}`}>
             <path d={`M ${x(i)} ${y(worst[i]!) - 9} l 5 8 l -10 0 z`} fill="#b45309" />
-            <text x={x(i)} y={y(worst[i]!) - 12 - (j % 2) * 11} fontSize="10" textAnchor="middle" fill="#7c2d12" className="num">
+            <text x={x(i)} y={labelY[j]} fontSize="10" textAnchor="middle" fill="#7c2d12" className="num">
               row {rows[i]}
             </text>
           </g>
@@ -64,7 +89,7 @@ export function ResidualChart({ residuals, rows, toolMm, sUm }: { residuals: Rea
         </text>
       </svg>
       <figcaption className="text-sm text-graphite-600">
-        Largest of the three residual components (measured − modelled sphere centre) at each pose. A pose beyond the dashed 3 s line is listed as an outlier (▲ with its row).
+        Largest of the three residual components (measured − modelled sphere centre) at each pose{perBar > 1 ? ` (each bar the largest of ${perBar} consecutive poses)` : ""}. A pose beyond the dashed 3 s line is listed as an outlier (▲ with its row).
       </figcaption>
     </figure>
   );

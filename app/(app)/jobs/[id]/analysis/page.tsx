@@ -63,6 +63,8 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
   );
 }
 
+const VIEW_POSES = 10_000;
+
 type FitRow = NonNullable<Awaited<ReturnType<typeof listJobAnalyses>>>[number];
 
 function FitSection({
@@ -85,7 +87,11 @@ function FitSection({
   const fit = r.fit;
   const rows = parameterRows(fit);
   const errors: HeadErrors = Object.fromEntries(fit.parameters.filter((p) => p.U !== null).map((p) => [p.key, p.value]));
-  const poses: HeadPose[] = r.poses.primary_deg.map((P, i) => ({ primaryDeg: P, secondaryDeg: r.poses.secondary_deg[i]!, toolMm: r.poses.tool_mm[i]! }));
+  // The 3D view draws at most VIEW_POSES poses (every step-th one), so the page stays light for very large datasets.
+  const step = Math.max(1, Math.ceil(r.poses.row.length / VIEW_POSES));
+  const viewIdx = r.poses.row.map((_, i) => i).filter((i) => i % step === 0);
+  const poses: HeadPose[] = viewIdx.map((i) => ({ primaryDeg: r.poses.primary_deg[i]!, secondaryDeg: r.poses.secondary_deg[i]!, toolMm: r.poses.tool_mm[i]! }));
+  const viewResiduals = viewIdx.map((i) => r.poses.residual_um[i]!);
   const isApproved = approved?.detail.analysis.id === a.id;
   const refusal =
     user.role !== "engineer"
@@ -110,7 +116,8 @@ function FitSection({
         </div>
         <div className="grid gap-6 xl:grid-cols-[1fr_23rem]">
           <Card title="Pivot and squareness in 3D">
-            <HeadViewerLoader config={config} errors={errors} poses={poses} residualsUm={r.poses.residual_um} />
+            <HeadViewerLoader config={config} errors={errors} poses={poses} residualsUm={viewResiduals} />
+            {step > 1 ? <p className="mt-2 text-xs text-graphite-600">Showing every {step}th pose: {poses.length} of {r.poses.row.length}.</p> : null}
           </Card>
           <Card title="Fit quality">
             <dl className="grid grid-cols-[1fr_auto] gap-x-4 gap-y-2 text-sm" data-testid="fit-quality">
