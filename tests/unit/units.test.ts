@@ -55,6 +55,9 @@ describe("display rounding: inch to tenths (0.0001 in), metric to 0.001 mm, angl
     expect(formatLimits(1.5875, 3.175, "length", "inch")).toBe("0.0625 to 0.1250 in");
     expect(formatLimits(-10, 10, "angle", "inch")).toBe("± 10.0″");
     expect(formatLimits(null, null, "length", "metric")).toBe("no limit");
+    // Limits are shown exactly: 0.0005 in = 12.7 µm reads 0.0127 mm, 1/16 in = 1.5875 mm.
+    expect(formatLimits(null, 0.0127, "length", "metric")).toBe("≤ 0.0127 mm");
+    expect(formatLimits(1.5875, 3.175, "length", "metric")).toBe("1.5875 to 3.175 mm");
   });
   it("no value is a dash", () => {
     expect(formatValue(null, "length", "inch")).toBe("—");
