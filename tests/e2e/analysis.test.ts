@@ -74,6 +74,17 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     const text = await table.innerText();
     for (const sym of ["ΔL", "EY0A", "EC0C", "EA0A", "EB0A"]) expect(text).toContain(sym);
     expect(text).toContain("Not separable");
+    // The numbers shown are the API's (geometry's headFitToJson), rounded only for display.
+    const analysisId = await p.locator("[data-analysis-id]").getAttribute("data-analysis-id");
+    const api = (await (await p.request.get(`/api/analyses/${analysisId}`)).json()).analysis as { fit: { parameters: { key: string; value: number; U: number | null; unit: string }[] } };
+    expect(api.fit.parameters).toHaveLength(10);
+    for (const q of api.fit.parameters) {
+      const cell = table.locator(`tr[data-key="${q.key}"] td[data-value]`);
+      expect(Number(await cell.getAttribute("data-value"))).toBe(q.value);
+      const shown = (await cell.innerText()).trim();
+      if (q.U === null) expect(shown).toBe("held at 0");
+      else expect(Number(shown.replace("−", "-").replace(/[^\d.+-]/g, ""))).toBeCloseTo(q.value, 2);
+    }
     expect(await p.getByRole("img", { name: /Largest residual component per pose/ }).count()).toBe(1);
     await waitForPicture(p);
     const before = await canvasPixels(p);

@@ -104,7 +104,7 @@ function FitSection({
 
   return (
     <>
-      <section aria-labelledby="fit-title" className="space-y-4">
+      <section aria-labelledby="fit-title" data-analysis-id={a.id} className="space-y-4">
         <div className="flex flex-wrap items-baseline justify-between gap-3">
           <h2 id="fit-title" className="text-xl font-semibold">
             Head fit {isApproved ? <span className="ml-2 rounded bg-pass-50 px-2 py-0.5 text-sm font-semibold text-pass-700">✓ Approved</span> : null}
