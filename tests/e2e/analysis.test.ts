@@ -51,6 +51,12 @@ async function canvasPixels(page: Page): Promise<{ drawn: number; total: number;
   });
 }
 
+/** The 3D view with its printed factor, scrolled to the top so the page's sticky header does not cover it. */
+async function viewerShot(page: Page, name: string) {
+  await page.evaluate(() => window.scrollTo(0, 0));
+  await page.locator('[data-testid="head-viewer"]').screenshot({ path: screenshotPath(name) });
+}
+
 async function openAnalysis(page: Page, reference: string) {
   await page.goto("/jobs");
   await page.getByRole("link", { name: reference }).click();
@@ -91,12 +97,12 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     expect(before.drawn).toBeGreaterThan(5000);
     expect(await p.getByTestId("factor-label").innerText()).toMatch(/×300\b/);
     await p.screenshot({ path: screenshotPath("analysis-engineer"), fullPage: true });
-    await p.locator('[data-testid="head-viewer"]').screenshot({ path: screenshotPath("analysis-3d-x300") });
+    await viewerShot(p, "analysis-3d-x300");
 
     await p.getByLabel("Exaggeration factor").fill("4");
     await expect.poll(() => p.getByTestId("factor-label").innerText()).toMatch(/×10\u2009000/);
     await expect.poll(async () => (await canvasPixels(p)).digest, { timeout: 10_000 }).not.toBe(before.digest);
-    await p.locator('[data-testid="head-viewer"]').screenshot({ path: screenshotPath("analysis-3d-x10000") });
+    await viewerShot(p, "analysis-3d-x10000");
 
     // Approval is refused while the job is measuring: the button is off and says why.
     const approve = p.getByRole("button", { name: "Approve these parameters" });
