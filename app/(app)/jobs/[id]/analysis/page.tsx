@@ -100,7 +100,9 @@ function FitSection({
         ? "This job's parameters are already approved from another fit; that fit is the one shown by default."
         : canTransition(user.role, jobStatus, "approved")
           ? null
-          : `The job is ${STATUS_LABELS[jobStatus].toLowerCase()}: parameters are approved once the installer has submitted the job for review.`;
+          : jobStatus === "draft" || jobStatus === "measuring"
+            ? `The job is ${STATUS_LABELS[jobStatus].toLowerCase()}: parameters are approved once the installer has submitted the job for review.`
+            : `The job is ${STATUS_LABELS[jobStatus].toLowerCase()} without a parameter set approved here, so none is recorded for it; a correction needs the job sent back for review.`;
 
   return (
     <>
