@@ -91,6 +91,7 @@ export function UploadPanel({ jobId }: { jobId: string }) {
   const [serverIssues, setServerIssues] = useState<Issue[]>([]);
   const [message, setMessage] = useState<string | null>(null);
   const [dragging, setDragging] = useState(false);
+  const [mappingOpen, setMappingOpen] = useState(false);
 
   async function pick(f: File | null, k: DatasetKindKey = kind) {
     setFile(f);
@@ -104,7 +105,9 @@ export function UploadPanel({ jobId }: { jobId: string }) {
     try {
       const s = await scanCsv(f, setScanProgress);
       setScan(s);
-      setMapping(guessMapping(k, s.headers));
+      const m = guessMapping(k, s.headers);
+      setMapping(m);
+      setMappingOpen(COLUMNS[k].some((c) => c.required && (m[c.name] ?? -1) < 0));
       setComma(s.looksDecimalComma);
     } catch {
       setMessage("The file could not be read in the browser. Is it a CSV text file?");
@@ -116,7 +119,11 @@ export function UploadPanel({ jobId }: { jobId: string }) {
   function changeKind(k: DatasetKindKey) {
     setKind(k);
     setServerIssues([]);
-    if (scan) setMapping(guessMapping(k, scan.headers));
+    if (scan) {
+      const m = guessMapping(k, scan.headers);
+      setMapping(m);
+      if (COLUMNS[k].some((c) => c.required && (m[c.name] ?? -1) < 0)) setMappingOpen(true);
+    }
   }
 
   const issues = useMemo(() => (scan ? clientIssues(kind, scan, mapping, comma) : []), [kind, scan, mapping, comma]);
@@ -319,7 +326,7 @@ export function UploadPanel({ jobId }: { jobId: string }) {
               </tbody>
             </table>
           </div>
-          <details className="rounded-lg border border-graphite-200 p-3" open={COLUMNS[kind].some((c) => c.required && (mapping[c.name] ?? -1) < 0)}>
+          <details className="rounded-lg border border-graphite-200 p-3" open={mappingOpen} onToggle={(e) => setMappingOpen(e.currentTarget.open)}>
             <summary className="cursor-pointer text-sm font-medium">Columns: matched from the header names — change a match here</summary>
             <div className="mt-3 grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
               {COLUMNS[kind].map((c) => (

@@ -92,6 +92,29 @@ describe("inspector: test-part data to a judged table", () => {
   });
 });
 
+describe("column mapping chosen by hand", () => {
+  it("unmatched columns are listed, matched by hand, and the file is stored unchanged", async () => {
+    const csv = Buffer.from("rot,tilt,X,Y,Z\n0,0,812.5,1460.25,-305\n90,45,812.501,1460.249,-305.002\n");
+    await page.goto(page.url().replace(/\/data\/[0-9a-f-]{36}$/, "/data"));
+    await page.getByLabel("Sphere probing").check({ force: true });
+    await page.getByLabel("inch").check({ force: true });
+    await page.getByLabel("CSV file").setInputFiles({ name: "probe.csv", mimeType: "text/csv", buffer: csv });
+    const errors = page.getByTestId("row-errors");
+    await errors.waitFor();
+    expect(await errors.innerText()).toContain("the required column 'primary_deg' is not mapped");
+    await page.getByLabel("File column for primary_deg").selectOption({ label: "rot" });
+    await page.getByLabel("File column for secondary_deg").selectOption({ label: "tilt" });
+    await expect.poll(() => page.getByTestId("row-errors").count()).toBe(0);
+    await page.screenshot({ path: screenshotPath("datasets-mapping"), fullPage: true });
+    await page.getByRole("button", { name: "Upload and check" }).click();
+    await page.waitForURL(/\/data\/[0-9a-f-]{36}$/);
+    // Inch coordinates stored in mm: 812.5 in × 25.4 = 20637.5 mm (1 in = 25.4 mm exactly, NIST SP 811).
+    await expect.poll(() => page.getByText("20637.5000").count()).toBeGreaterThan(0);
+    const href = await page.getByRole("link", { name: "Download the original" }).getAttribute("href");
+    expect(Buffer.compare(await (await page.request.get(href!)).body(), csv)).toBe(0);
+  });
+});
+
 describe("customer: their own company's data only", () => {
   it("the Marlow Creek buyer lists and opens the seeded test-part data of TR-2026-0041 but may not upload", async () => {
     await ctx.clearCookies();
