@@ -14,6 +14,8 @@ export function route<C = unknown>(fn: Handler<C>): Handler<C> {
       const res = await fn(req, ctx);
       // Authenticated answers must not be kept by shared caches.
       if (!res.headers.has("Cache-Control")) res.headers.set("Cache-Control", "no-store");
+      // Also set here for routes the proxy does not see (the streaming upload).
+      if (!res.headers.has("X-Content-Type-Options")) res.headers.set("X-Content-Type-Options", "nosniff");
       return res;
     } catch (err) {
       return errorResponse(err);
@@ -24,7 +26,7 @@ export function route<C = unknown>(fn: Handler<C>): Handler<C> {
 export function errorResponse(err: unknown): Response {
   if (err instanceof AppError) {
     const body = { error: { code: err.code, message: err.message, ...(err.issues ? { issues: err.issues } : {}) } };
-    return Response.json(body, { status: err.status, headers: { "Cache-Control": "no-store" } });
+    return Response.json(body, { status: err.status, headers: { "Cache-Control": "no-store", "X-Content-Type-Options": "nosniff" } });
   }
   if (err instanceof ZodError) {
     const issues = err.issues.map((i) => ({ field: i.path.join("."), message: i.message }));
