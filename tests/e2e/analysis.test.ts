@@ -1,11 +1,12 @@
 // Journey 2 of the product brief in Debian's Chromium (SwiftShader WebGL): the engineer opens the
 // kinematic fit of TR-2026-0052, sees pivot and squareness error in the 3D view (drawn pixels
 // counted from the canvas), changes the exaggeration and sees the picture change, and is refused
-// approval while the job is still measuring. The approval case uses the seeded Tollan job
-// TR-2026-0048, which the seed leaves in review (no page yet lets an installer submit a measuring
-// job with its probe data in this test's reach without changing TR-2026-0052 for the other
-// browser tests): the engineer uploads sphere-probe data through the datasets API the upload page
-// uses, runs the fit on the Analysis tab, approves, and sees the values for the control.
+// approval while the job is still measuring. The approval case uses the seeded draft TR-2026-0057
+// (so TR-2026-0052, which other browser tests record on, stays measuring): the administrator
+// starts measuring on the checklist page, the engineer uploads sphere-probe data through the
+// datasets API the upload page uses and runs the fit (approval refused: measuring), the
+// administrator submits the job for review on the checklist page, and the engineer approves and
+// sees the values for the control.
 import { mkdirSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -111,12 +112,25 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     await p.close();
   });
 
-  it("approves a fit on a job in review and shows the values for the control", async () => {
+  it("on a job the office moves to review through the checklist page, the engineer fits, is refused while measuring, then approves", async () => {
+    // The seeded draft TR-2026-0057 (same head TH-2241): the administrator starts measuring on the
+    // checklist page, as the office would for an unassigned job.
+    await ctx.clearCookies();
+    const admin = await ctx.newPage();
+    await signIn(admin, "admin@halvard.example");
+    await admin.waitForURL("**/jobs");
+    await admin.getByRole("link", { name: "TR-2026-0057" }).click();
+    await admin.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Checklist" }).click();
+    await admin.getByRole("button", { name: "Start measuring" }).click();
+    await admin.getByRole("button", { name: "Submit for review" }).waitFor({ timeout: 15_000 });
+    const checklistUrl = admin.url();
+    await admin.close();
+
     await ctx.clearCookies();
     const p = await ctx.newPage();
     await signIn(p, "engineer@halvard.example");
     await p.waitForURL("**/jobs");
-    const href = await p.getByRole("link", { name: "TR-2026-0048" }).getAttribute("href");
+    const href = await p.getByRole("link", { name: "TR-2026-0057" }).getAttribute("href");
     const jobId = href!.split("/").pop()!;
     // Invented sphere-probe data from geometry's synthesiser (demo only) for this job's own head, uploaded through the datasets API.
     const job = (await (await p.request.get(`/api/jobs/${jobId}`)).json()).job as { head: { primaryAxis: "A" | "B" | "C"; secondaryAxis: "A" | "B" | "C"; nominalPivotLengthMm: number; toolDirection: [number, number, number] } };
@@ -125,18 +139,40 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     const d = synthesiseSphereProbe(head, { pivot_length_error_um: -25, secondary_tilt_arcsec: 12, tip_offset_n_um: 8 }, poses, { noiseUm: 1, seed: 48 });
     const csv = ["primary_deg,secondary_deg,x,y,z,tool_mm", ...Array.from({ length: d.rows }, (_, i) => [d.primaryDeg[i], d.secondaryDeg[i], d.xMm[i]!.toFixed(5), d.yMm[i]!.toFixed(5), d.zMm[i]!.toFixed(5), d.toolMm![i]].join(","))].join("\n");
     const up = await p.request.post(`/api/jobs/${jobId}/datasets`, {
-      multipart: { kind: "sphere_probe", phase: "pre", units: "mm", file: { name: "probe-0048.csv", mimeType: "text/csv", buffer: Buffer.from(csv) } },
+      multipart: { kind: "sphere_probe", phase: "pre", units: "mm", file: { name: "probe-0057.csv", mimeType: "text/csv", buffer: Buffer.from(csv) } },
     });
     expect(up.status()).toBe(201);
-    await openAnalysis(p, "TR-2026-0048");
-    const row = p.locator("li", { hasText: "probe-0048.csv" });
+    await openAnalysis(p, "TR-2026-0057");
+    const row = p.locator("li", { hasText: "probe-0057.csv" });
     await row.getByRole("button", { name: "Run fit" }).click();
     await expect.poll(() => p.getByRole("table", { name: "Fitted parameters" }).count(), { timeout: 20_000 }).toBe(1);
     await waitForPicture(p);
     const approve = p.getByRole("button", { name: "Approve these parameters" });
-    expect(await approve.isDisabled()).toBe(false);
-    await approve.click();
-    const values = p.getByRole("table", { name: "Values for the control" });
+    expect(await approve.isDisabled()).toBe(true);
+    expect(await p.locator("#approve-refusal").innerText()).toMatch(/measuring/);
+    const analysisUrl = p.url();
+    await p.close();
+
+    // The office submits the job for review on the checklist page.
+    await ctx.clearCookies();
+    const admin2 = await ctx.newPage();
+    await signIn(admin2, "admin@halvard.example");
+    await admin2.waitForURL("**/jobs");
+    await admin2.goto(checklistUrl);
+    await admin2.getByRole("button", { name: "Submit for review" }).click();
+    await expect.poll(() => admin2.getByRole("button", { name: "Submit for review" }).count(), { timeout: 15_000 }).toBe(0);
+    await admin2.close();
+
+    await ctx.clearCookies();
+    const e = await ctx.newPage();
+    await signIn(e, "engineer@halvard.example");
+    await e.waitForURL("**/jobs");
+    await e.goto(analysisUrl);
+    const approve2 = e.getByRole("button", { name: "Approve these parameters" });
+    await approve2.waitFor();
+    expect(await approve2.isDisabled()).toBe(false);
+    await approve2.click();
+    const values = e.getByRole("table", { name: "Values for the control" });
     await values.waitFor({ timeout: 20_000 });
     const v = await values.innerText();
     // Nominal − 25 µm, recovered to well within 1 µm (1 µm noise, 120 poses).
@@ -144,10 +180,10 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     expect(Math.abs(pivot - (head.pivotLengthMm - 0.025))).toBeLessThan(0.001);
     expect(v).toContain("mm");
     expect(v).toContain("°");
-    expect(await p.getByRole("note", { name: /Safety/ }).innerText()).toMatch(/machine builder/);
-    await expect.poll(() => p.locator("main").innerText()).toContain("Approved");
-    await p.evaluate(() => window.scrollTo(0, 0));
-    await p.screenshot({ path: screenshotPath("analysis-approved"), fullPage: true });
-    await p.close();
+    expect(await e.getByRole("note", { name: /Safety/ }).innerText()).toMatch(/machine builder/);
+    await expect.poll(() => e.locator("main").innerText()).toContain("Approved");
+    await e.evaluate(() => window.scrollTo(0, 0));
+    await e.screenshot({ path: screenshotPath("analysis-approved"), fullPage: true });
+    await e.close();
   });
 });
