@@ -5,6 +5,7 @@ const DECISION: Record<Decision, { text: string; cls: string }> = {
   fail: { text: "✗ Fail", cls: "text-fail-700" },
   undecided: { text: "? Undecided", cls: "text-undecided-700" },
   not_measured: { text: "– Not measured", cls: "text-unmeasured-600" },
+  recorded: { text: "• Recorded", cls: "text-unmeasured-600" },
 };
 
 function Section({ n, title, children }: { n: number; title: string; children: React.ReactNode }) {

@@ -4,7 +4,8 @@ import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
-import { datasets, instruments, jobs, outbox, readings, reports, signatures, templateSteps, users } from "@/db/schema";
+import { getComparison } from "@/db/queries/readings";
+import { datasets, instruments, jobs, outbox, readings, reports, signatures, users } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
 import { ROLE_LABELS, SIGNATURE_LABELS, signatureRefusal, type Actor, type SignatureMeaningKey } from "@/lib/auth/roles";
 import { canonicalJson } from "@/lib/canonical-json";
@@ -12,6 +13,7 @@ import { publicUrl } from "@/lib/env";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 import { formatDateTimeUtc, JOB_KIND_LABELS } from "@/lib/format";
 import { getSigningKey } from "@/lib/report/keys";
+import { formatLimits, formatValue } from "@/lib/units";
 import { renderReportPdf } from "@/lib/report/render";
 import { sha256Hex, signManifest, verifyManifest, type SignatureManifest } from "@/lib/report/signing";
 import type { ReportData, ReportSignature } from "@/lib/report/types";
@@ -92,43 +94,25 @@ function signatureLine(s: { signerName: string; signerRole: string; meaning: Sig
   return { name: s.signerName, role: ROLE_LABELS[s.signerRole as keyof typeof ROLE_LABELS] ?? s.signerRole, meaning: SIGNATURE_LABELS[s.meaning], signedAtUtc: formatDateTimeUtc(s.signedAt) };
 }
 
-function formatLimit(lower: number | null, upper: number | null, kind: string): string {
-  const f = (v: number) => (kind === "angle" ? `${v.toFixed(1)}″` : `${v.toFixed(4)} mm`);
-  if (lower != null && upper != null) return lower === -upper ? `± ${f(upper)}` : `${f(lower)} to ${f(upper)}`;
-  if (upper != null) return `≤ ${f(upper)}`;
-  if (lower != null) return `≥ ${f(lower)}`;
-  return "—";
-}
-
-/** The checklist readings for the report: the latest reading of each step and phase. */
-async function reportReadings(jobId: string): Promise<ReportData["readings"]> {
-  const rows = await db
-    .select({ stepId: readings.stepId, phase: readings.phase, value: readings.value, title: templateSteps.title, position: templateSteps.position, kind: templateSteps.quantityKind, lower: templateSteps.lowerLimit, upper: templateSteps.upperLimit, source: templateSteps.limitSource })
-    .from(readings)
-    .innerJoin(templateSteps, eq(templateSteps.id, readings.stepId))
-    .where(and(eq(readings.jobId, jobId), isNull(readings.supersededById)))
-    .orderBy(asc(templateSteps.position), desc(readings.takenAt));
-  const bySteps = new Map<string, { title: string; kind: string; lower: number | null; upper: number | null; source: string; pre?: number; post?: number }>();
-  for (const r of rows) {
-    const e = bySteps.get(r.stepId) ?? { title: r.title, kind: r.kind, lower: r.lower, upper: r.upper, source: r.source };
-    if (r.phase === "pre" && e.pre === undefined) e.pre = r.value;
-    if (r.phase === "post" && e.post === undefined) e.post = r.value;
-    bySteps.set(r.stepId, e);
-  }
-  return [...bySteps.values()].map((e) => {
-    const fmt = (v: number | undefined) => (v === undefined ? undefined : e.kind === "angle" ? `${v.toFixed(1)}″` : `${v.toFixed(4)} mm`);
-    const final = e.post ?? e.pre;
-    const within = final !== undefined && (e.lower == null || final >= e.lower) && (e.upper == null || final <= e.upper);
-    return {
-      step: e.title,
-      limits: formatLimit(e.lower, e.upper, e.kind),
-      pre: fmt(e.pre),
-      post: fmt(e.post),
-      change: e.pre !== undefined && e.post !== undefined ? fmt(e.post - e.pre) : undefined,
-      decision: final === undefined ? ("not_measured" as const) : within ? ("pass" as const) : ("fail" as const),
-      source: e.source.replace("_", " "),
-    };
-  });
+/**
+ * The checklist readings for the report: the comparison the installer and reviewers saw (latest
+ * current reading of each step and phase, judged under the step's decision rule with U from the
+ * instrument), formatted in metric units.
+ */
+async function reportReadings(actor: Actor, jobId: string): Promise<ReportData["readings"]> {
+  const c = await getComparison(actor, jobId);
+  if (!c) return [];
+  return c.rows
+    .filter((r) => r.pre || r.post)
+    .map((r) => ({
+      step: r.title,
+      limits: formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, "metric"),
+      pre: r.pre ? formatValue(r.pre.value, r.quantityKind, "metric") : undefined,
+      post: r.post ? formatValue(r.post.value, r.quantityKind, "metric") : undefined,
+      change: r.change != null ? formatValue(r.change, r.quantityKind, "metric", { signed: true }) : undefined,
+      decision: r.status === "no_limit" ? ("recorded" as const) : r.status,
+      source: r.limitSource.replace("_", " "),
+    }));
 }
 
 /** Instruments used for the job's current readings, with calibration status on the day of issue. */
@@ -185,7 +169,7 @@ export async function buildReportData(actor: Actor, d: JobDetail, meta: { report
       decisionRule: d.job.decisionRule === "guarded" ? "Guarded acceptance per ISO 14253-1 (limits shrunk by U for pass, grown by U for fail)" : "Simple acceptance: the expanded uncertainty is stated, not subtracted",
     },
     instruments: await reportInstruments(d.job.id, meta.issuedAt),
-    readings: await reportReadings(d.job.id),
+    readings: await reportReadings(actor, d.job.id),
     parameters: [],
     testPart: await reportTestPart(actor, d.job.id),
     figures: [],

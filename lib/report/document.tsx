@@ -37,8 +37,8 @@ const s = StyleSheet.create({
   end: { marginTop: 14, paddingTop: 6, borderTopWidth: 1.5, borderTopColor: C.ink, textAlign: "center", fontWeight: 700 },
 });
 
-const DECISION_TEXT: Record<Decision, string> = { pass: "✓ Pass", fail: "✗ Fail", undecided: "? Undecided", not_measured: "– Not measured" };
-const DECISION_COLOUR: Record<Decision, string> = { pass: C.pass, fail: C.fail, undecided: C.undecided, not_measured: C.none };
+const DECISION_TEXT: Record<Decision, string> = { pass: "✓ Pass", fail: "✗ Fail", undecided: "? Undecided", not_measured: "– Not measured", recorded: "• Recorded" };
+const DECISION_COLOUR: Record<Decision, string> = { pass: C.pass, fail: C.fail, undecided: C.undecided, not_measured: C.none, recorded: C.none };
 
 function DecisionCell({ d, width }: { d: Decision; width: string }) {
   return <Text style={[s.td, { width, color: DECISION_COLOUR[d], fontWeight: 700 }]}>{DECISION_TEXT[d]}</Text>;

@@ -4,7 +4,8 @@
  * results; rendered to PDF by lib/report/document.tsx and to HTML by the report page, so the two
  * always say the same thing.
  */
-export type Decision = "pass" | "fail" | "undecided" | "not_measured";
+/** "recorded": a reading kept without a limit to judge it against. */
+export type Decision = "pass" | "fail" | "undecided" | "not_measured" | "recorded";
 
 export interface ReportSignature {
   name: string;
