@@ -4,9 +4,10 @@
  */
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db";
+import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
 import { issueReport, signJobWork } from "@/db/queries/reports";
 import { getActor } from "@/db/queries/users";
-import { jobs, reports, signatures, users } from "@/db/schema";
+import { datasets, jobs, reports, signatures, users } from "@/db/schema";
 
 async function actorByEmail(email: string) {
   const [u] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
@@ -29,6 +30,15 @@ export async function seedReports(password: string): Promise<void> {
     const done = await db.select({ id: signatures.id }).from(signatures).where(and(eq(signatures.jobId, job.id), eq(signatures.meaning, meaning)));
     if (done.length === 0) await signJobWork(actor, { jobId: job.id, meaning, password });
   }
-  await db.update(jobs).set({ status: "approved" }).where(eq(jobs.id, job.id));
+  // The engineer fits the job's sphere-probe data (if the seed has some) and approves the result,
+  // which moves the job from review to approved; otherwise the job is approved directly.
+  await db.update(jobs).set({ status: "in_review" }).where(eq(jobs.id, job.id));
+  const [probe] = await db.select({ id: datasets.id }).from(datasets).where(and(eq(datasets.jobId, job.id), eq(datasets.kind, "sphere_probe"), eq(datasets.status, "stored")));
+  if (probe) {
+    const { analysis } = await runHeadFit(engineer, probe.id);
+    await approveAnalysis(engineer, analysis.id);
+  } else {
+    await db.update(jobs).set({ status: "approved" }).where(eq(jobs.id, job.id));
+  }
   await issueReport(engineer, { jobId: job.id, password });
 }

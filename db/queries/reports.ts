@@ -5,6 +5,8 @@ import { appendAudit } from "@/db/queries/audit";
 import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
 import { getComparison } from "@/db/queries/readings";
+import { getApprovedAnalysis } from "@/db/queries/analyses";
+import { IDENTIFIABILITY_WORDS, PARAMETER_WORDS } from "@/components/fit/fit-display";
 import { datasets, instruments, jobs, outbox, readings, reports, signatures, users } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
 import { ROLE_LABELS, SIGNATURE_LABELS, signatureRefusal, type Actor, type SignatureMeaningKey } from "@/lib/auth/roles";
@@ -146,9 +148,30 @@ async function reportTestPart(actor: Actor, jobId: string): Promise<ReportData["
   });
 }
 
+/** The head parameters of the fit the engineer approved (no tolerance is set for them yet: recorded). */
+async function reportParameters(actor: Actor, jobId: string): Promise<{ rows: ReportData["parameters"]; note?: string }> {
+  const approved = await getApprovedAnalysis(actor, jobId);
+  if (!approved) return { rows: [] };
+  const fit = approved.detail.analysis.result.fit;
+  const rows = fit.parameters.map((p) => {
+    const unit = p.unit === "um" ? " µm" : "″";
+    const value = `${p.value >= 0 ? "+" : "−"}${Math.abs(p.value).toFixed(1)}${unit}`;
+    return {
+      name: PARAMETER_WORDS[p.key],
+      symbol: p.iso,
+      value: p.identifiable === "no" ? `${value} (held)` : value,
+      expanded: p.U == null ? "—" : `${p.U.toFixed(1)}${unit}`,
+      decision: "recorded" as const,
+      identifiable: IDENTIFIABILITY_WORDS[p.identifiable],
+    };
+  });
+  return { rows, note: `Head parameters from the fit approved by ${approved.approvedBy} on ${formatDateTimeUtc(approved.approvedAt)}: residual RMS ${fit.rms_um.toFixed(2)} µm, max ${fit.max_um.toFixed(2)} µm.` };
+}
+
 /** Assembles everything the report shows from the database. */
 export async function buildReportData(actor: Actor, d: JobDetail, meta: { reportId: string; revision: number; issuedAt: Date; approval: ReportSignature; amendment?: ReportData["amendment"] }): Promise<ReportData> {
   const sigs = await db.select().from(signatures).where(and(eq(signatures.jobId, d.job.id), isNull(signatures.reportId))).orderBy(asc(signatures.signedAt));
+  const params = await reportParameters(actor, d.job.id);
   const data: Omit<ReportData, "contentSha256"> = {
     reportId: meta.reportId,
     reference: d.job.reference,
@@ -170,10 +193,10 @@ export async function buildReportData(actor: Actor, d: JobDetail, meta: { report
     },
     instruments: await reportInstruments(d.job.id, meta.issuedAt),
     readings: await reportReadings(actor, d.job.id),
-    parameters: [],
+    parameters: params.rows,
     testPart: await reportTestPart(actor, d.job.id),
     figures: [],
-    remarks: d.job.notes ? [d.job.notes] : [],
+    remarks: [...(params.note ? [params.note] : []), ...(d.job.notes ? [d.job.notes] : [])],
     safety: [
       "Lift the head only with rated gear at its lifting points; keep hands clear of pinch points between head, collar and spindle nose.",
       "Lock out the machine before working on the spindle; keep clear of the head's sweep when axes move.",
