@@ -53,6 +53,7 @@ npm run -s db:migrate
 npm run -s db:seed
 NEXT_SKIP_TYPECHECK=1 NEXT_DIST_DIR=.next-test npx next build >.data/test-build.log 2>&1 || { tail -60 .data/test-build.log; exit 1; }
 # The app's outbox worker sends to a local SMTP fake of its own (mail lands in .data/test-mail).
+rm -rf .data/test-mail
 MAIL_DIR=.data/test-mail SMTP_FAKE_PORT=2526 setsid npx tsx lib/mail/fake-smtp.ts >.data/test-smtp.log 2>&1 &
 echo $! >.data/test-smtp.pid
 SMTP_URL=smtp://127.0.0.1:2526 NEXT_DIST_DIR=.next-test NEXTAUTH_URL=http://127.0.0.1:$APP_PORT setsid npx next start -p $APP_PORT -H 127.0.0.1 >.data/test-app.log 2>&1 &
@@ -61,7 +62,7 @@ for _ in $(seq 60); do curl -sf "http://127.0.0.1:$APP_PORT/api/health" >/dev/nu
 curl -sf "http://127.0.0.1:$APP_PORT/api/health" >/dev/null || { echo "the app did not start:"; tail -40 .data/test-app.log; exit 1; }
 
 step "browser tests (Debian Chromium)"
-E2E_BASE_URL=http://127.0.0.1:$APP_PORT npx vitest run --project e2e \
+E2E_MAIL_DIR=$ROOT/.data/test-mail E2E_BASE_URL=http://127.0.0.1:$APP_PORT npx vitest run --project e2e \
   --reporter=default --reporter=json --outputFile=.data/test-results/e2e.json
 
 step "summary"
