@@ -6,7 +6,7 @@ import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
 import { getComparison } from "@/db/queries/readings";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
-import { IDENTIFIABILITY_WORDS, PARAMETER_WORDS } from "@/components/fit/fit-display";
+import { IDENTIFIABILITY_WORDS, PARAMETER_WORDS } from "@/lib/fit-display";
 import { datasets, instruments, jobs, outbox, readings, reports, signatures, users } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
 import { ROLE_LABELS, SIGNATURE_LABELS, signatureRefusal, type Actor, type SignatureMeaningKey } from "@/lib/auth/roles";

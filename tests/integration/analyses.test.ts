@@ -6,7 +6,7 @@ import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as runRoute } from "@/app/api/datasets/[id]/analyses/route";
 import { GET as getRoute } from "@/app/api/analyses/[id]/route";
-import { parameterRows, signed } from "@/components/fit/fit-display";
+import { parameterRows, signed } from "@/lib/fit-display";
 import { db } from "@/db";
 import { approveAnalysis, getApprovedAnalysis, runHeadFit } from "@/db/queries/analyses";
 import { getDatasetOriginal } from "@/db/queries/datasets";

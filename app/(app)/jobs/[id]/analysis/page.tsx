@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { ApproveButton, RunFitButton } from "@/components/fit/fit-buttons";
-import { controlValues, parameterRows, signed } from "@/components/fit/fit-display";
+import { controlValues, parameterRows, signed } from "@/lib/fit-display";
 import { ResidualChart } from "@/components/fit/residual-chart";
 import { Card } from "@/components/ui/card";
 import { SafetyNote } from "@/components/ui/safety-note";
