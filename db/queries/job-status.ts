@@ -4,7 +4,7 @@ import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { getJobDetail } from "@/db/queries/jobs";
 import { enqueueMail } from "@/db/queries/outbox";
-import { heads, jobs, machines, procedureTemplates, sites, users } from "@/db/schema";
+import { datasets, heads, jobs, machines, procedureTemplates, sites, users } from "@/db/schema";
 import { canTransition, STATUS_LABELS, type Actor, type JobStatus } from "@/lib/auth/roles";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 import { publicUrl } from "@/lib/env";
@@ -23,6 +23,12 @@ export async function changeJobStatus(actor: Actor, jobId: string, to: JobStatus
   if (SIGNED_MOVES.includes(to)) throw forbidden("Issuing, accepting and rejecting are signed on the job's report page.");
   if (!canTransition(actor.role, d.job.status, to)) {
     throw forbidden(`A ${actor.role} may not move a job from ${STATUS_LABELS[d.job.status].toLowerCase()} to ${STATUS_LABELS[to].toLowerCase()}.`);
+  }
+  // A job with sphere-probe data is approved by approving its fitted parameters (Analysis tab),
+  // so the approval always names the parameter set the control will be given.
+  if (to === "approved") {
+    const probe = await db.select({ id: datasets.id }).from(datasets).where(and(eq(datasets.jobId, d.job.id), eq(datasets.kind, "sphere_probe"), eq(datasets.status, "stored"))).limit(1);
+    if (probe.length > 0) throw forbidden("This job has sphere-probe data: approve its fitted head parameters on the Analysis tab.");
   }
   const reviewers = to === "in_review" ? await db.select({ id: users.id, email: users.email, name: users.name }).from(users).where(and(inArray(users.role, ["engineer", "inspector"]), eq(users.disabled, false))) : [];
   return db.transaction(async (tx) => {

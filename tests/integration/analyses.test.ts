@@ -124,6 +124,10 @@ describe("approval", () => {
     expect(await status(approveAnalysis(as.installer!, analysisId))).toBe(403);
     expect(await status(approveAnalysis(as.buyer!, analysisId))).toBe(403);
     expect(await status(approveAnalysis(as["buyer-tollan"]!, analysisId))).toBe(404);
+    // With probe data, a bare status change cannot approve: the approval must name a fit.
+    const bare = await changeJobStatus(as.engineer!, jobId, "approved").then(() => null, (e: AppError) => e);
+    expect(bare?.status).toBe(403);
+    expect(bare?.message).toMatch(/Analysis tab/);
     const [still] = await db.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, jobId));
     expect(still!.status).toBe("in_review");
 
