@@ -5,8 +5,8 @@ import { CustomerForm, HeadForm, MachineForm, SiteForm } from "@/components/regi
 import { Card } from "@/components/ui/card";
 import { listSitesForSelect } from "@/db/queries/registers-admin";
 import { SimpleTable } from "@/components/ui/simple-table";
-import { listCustomersWithSites, listHeads, listMachines, listPeople } from "@/db/queries/registers";
-import { canReadRegister, ROLE_LABELS } from "@/lib/auth/roles";
+import { listCustomersWithSites, listHeads, listMachines } from "@/db/queries/registers";
+import { canReadRegister } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 
 export const metadata: Metadata = { title: "Registers" };
@@ -14,12 +14,12 @@ export const metadata: Metadata = { title: "Registers" };
 export default async function RegistersPage() {
   const user = await requirePageUser("/registers");
   if (!canReadRegister(user.role, "customers")) notFound();
-  const [customers, machines, heads, people, siteOptions] = await Promise.all([listCustomersWithSites(user), listMachines(user), listHeads(user), listPeople(user), listSitesForSelect()]);
+  const [customers, machines, heads, siteOptions] = await Promise.all([listCustomersWithSites(user), listMachines(user), listHeads(user), listSitesForSelect()]);
   return (
     <div className="space-y-8">
       <div>
         <h1 className="text-2xl font-semibold">Registers</h1>
-        <p className="text-sm text-graphite-600">Customers and their sites, host machines, heads and the people who sign in.</p>
+        <p className="text-sm text-graphite-600">Customers and their sites, host machines and heads. People, instruments and procedures have their own tabs.</p>
       </div>
       <section className="space-y-3" aria-labelledby="customers">
         <h2 id="customers" className="text-lg font-semibold">Customers</h2>
@@ -51,20 +51,6 @@ export default async function RegistersPage() {
           <Card title="Add a head" className="lg:col-span-2"><HeadForm /></Card>
         </section>
       ) : null}
-      <section className="space-y-3" aria-labelledby="people">
-        <h2 id="people" className="text-lg font-semibold">People</h2>
-        <SimpleTable
-          caption="People"
-          rows={people}
-          columns={[
-            { header: "Name", cell: (p) => p.name },
-            { header: "E-mail", cell: (p) => p.email },
-            { header: "Role", cell: (p) => ROLE_LABELS[p.role] },
-            { header: "Company", cell: (p) => p.customerName ?? "Service company" },
-            { header: "Account", cell: (p) => (p.disabled ? "Disabled" : "Active") },
-          ]}
-        />
-      </section>
     </div>
   );
 }
