@@ -100,7 +100,7 @@ export function ReportView({ data }: { data: ReportData }) {
         {data.readings.length ? <Table head={["Step", "Limits", "Before", "After", "Change", "Result"]} numeric={[2, 3, 4]} rows={data.readings.map((r) => [r.step, r.limits, r.pre ?? "—", r.post ?? "—", r.change ?? "—", dec(r.decision)])} /> : <p className="text-sm text-graphite-600">No checklist readings.</p>}
       </Section>
       <Section n={5} title="Kinematic parameters of the head">
-        {data.parameters.length ? <Table head={["Parameter", "ISO 230-1", "Value", "U (k = 2)", "Tolerance", "Identifiable", "Result"]} numeric={[2, 3, 4]} rows={data.parameters.map((p) => [p.name, p.symbol, p.value, `± ${p.expanded}`, p.tolerance ?? "—", p.identifiable, dec(p.decision)])} /> : <p className="text-sm text-graphite-600">No kinematic fit is part of this report.</p>}
+        {data.parameters.length ? <Table head={["Parameter", "ISO 230-1", "Value", "U (k = 2)", "Tolerance", "Identifiable", "Result"]} numeric={[2, 3, 4]} rows={data.parameters.map((p) => [p.name, p.symbol, p.value, p.expanded === "—" ? "—" : `± ${p.expanded}`, p.tolerance ?? "—", p.identifiable, dec(p.decision)])} /> : <p className="text-sm text-graphite-600">No kinematic fit is part of this report.</p>}
       </Section>
       <Section n={6} title="Test part">
         {data.testPart.length ? <Table head={["Feature", "Characteristic", "Nominal", "Measured", "Deviation", "Limits", "U", "Result"]} numeric={[2, 3, 4, 5, 6]} rows={data.testPart.map((r) => [r.feature, r.characteristic, r.nominal, r.measured, r.deviation, r.limits, r.expanded, dec(r.decision)])} /> : <p className="text-sm text-graphite-600">No test part was measured for this report.</p>}

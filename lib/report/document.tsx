@@ -193,7 +193,7 @@ export function ReportDocument({ data, qrDataUrl }: { data: ReportData; qrDataUr
               <Text style={[s.td, { width: "27%" }]}>{p.name}</Text>
               <Text style={[s.td, s.mono, { width: "11%" }]}>{p.symbol}</Text>
               <Text style={[s.td, s.num, { width: "14%" }]}>{p.value}</Text>
-              <Text style={[s.td, s.num, { width: "12%" }]}>± {p.expanded}</Text>
+              <Text style={[s.td, s.num, { width: "12%" }]}>{p.expanded === "—" ? "—" : `± ${p.expanded}`}</Text>
               <Text style={[s.td, s.num, { width: "12%" }]}>{p.tolerance ?? "—"}</Text>
               <Text style={[s.td, { width: "11%" }]}>{p.identifiable}</Text>
               <DecisionCell d={p.decision} width="13%" />
