@@ -505,3 +505,58 @@ export const analyses = pgTable(
   ],
 );
 export type Analysis = typeof analyses.$inferSelect;
+
+/**
+ * Limits for the fitted head parameters, per procedure template version (like a step's limits):
+ * in the parameter's own unit (µm for lengths, arcsec for angles; null = no limit on that side),
+ * judged with the decision rule against the fit's expanded uncertainty. `parameter` is
+ * geometry's key (HeadParameterKey). A parameter without a row is printed as recorded.
+ */
+export const templateParameterLimits = pgTable(
+  "template_parameter_limits",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    templateId: uuid("template_id")
+      .notNull()
+      .references(() => procedureTemplates.id, { onDelete: "cascade" }),
+    parameter: text("parameter").notNull(),
+    lowerLimit: doublePrecision("lower_limit"),
+    upperLimit: doublePrecision("upper_limit"),
+    decisionRule: decisionRuleEnum("decision_rule").notNull().default("simple"),
+    limitSource: limitSourceEnum("limit_source").notNull(),
+    limitSourceNote: text("limit_source_note"),
+  },
+  (t) => [uniqueIndex("template_parameter_limits_idx").on(t.templateId, t.parameter)],
+);
+export type TemplateParameterLimit = typeof templateParameterLimits.$inferSelect;
+
+/**
+ * A picture of the 3D view the engineer saved for the report: the PNG in object storage under a
+ * key the server makes, with its SHA-256, the exaggeration factor it was drawn with, and, when
+ * the view overlaid an earlier fit, which one. Written once; a new picture is a new row.
+ */
+export const analysisViews = pgTable(
+  "analysis_views",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    analysisId: uuid("analysis_id")
+      .notNull()
+      .references(() => analyses.id, { onDelete: "restrict" }),
+    /** The earlier fit drawn beside this one (pre/post overlay), if any. */
+    overlayAnalysisId: uuid("overlay_analysis_id").references(() => analyses.id, { onDelete: "restrict" }),
+    storageKey: text("storage_key").notNull(),
+    sha256: text("sha256").notNull(),
+    sizeBytes: integer("size_bytes").notNull(),
+    widthPx: integer("width_px").notNull(),
+    heightPx: integer("height_px").notNull(),
+    factor: doublePrecision("factor").notNull(),
+    caption: text("caption"),
+    createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("analysis_views_job_idx").on(t.jobId, t.createdAt)],
+);
+export type AnalysisView = typeof analysisViews.$inferSelect;
