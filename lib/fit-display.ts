@@ -6,6 +6,8 @@
  */
 import { headAxes, type AxisLetter, type HeadConfig, type HeadParameterKey } from "@/geometry";
 import type { HeadFitJson } from "@/geometry";
+import type { DecisionRule } from "@/geometry/decision";
+import { judge, type StepDecision } from "@/lib/checklist";
 
 export const PARAMETER_WORDS: Record<HeadParameterKey, string> = {
   pivot_length_error_um: "Pivot length error (tilt axis to gauge point, along the tool)",
@@ -36,6 +38,50 @@ export interface ParameterRow {
   identifiable: "yes" | "weak" | "no";
   identifiableText: string;
   heldAtZero: boolean;
+  /** The job's limit for this parameter, e.g. "± 40.0 µm", or null when none is set (recorded). */
+  toleranceText: string | null;
+  /** Where the limit comes from, in words ("Customer specification: …"). */
+  limitSourceText: string | null;
+  decisionRule: DecisionRule | null;
+  /** Pass, fail or undecided by the rule with U; no_limit when none is set; not_measured when the data could not determine it. */
+  decision: StepDecision;
+  decisionText: string;
+}
+
+/** A limit for one fitted parameter (template_parameter_limits), in the parameter's unit (µm or ″). */
+export interface ParameterLimit {
+  readonly parameter: string;
+  readonly lowerLimit: number | null;
+  readonly upperLimit: number | null;
+  readonly decisionRule: DecisionRule;
+  readonly limitSource: "standard" | "maker_manual" | "common_practice" | "customer_spec";
+  readonly limitSourceNote: string | null;
+}
+
+export const LIMIT_SOURCE_WORDS: Record<ParameterLimit["limitSource"], string> = {
+  standard: "Standard",
+  maker_manual: "Maker's manual",
+  common_practice: "Common practice",
+  customer_spec: "Customer specification",
+};
+
+const PARAMETER_DECISION_TEXT: Record<StepDecision, string> = {
+  pass: "Pass",
+  fail: "Fail",
+  undecided: "Undecided",
+  no_limit: "Recorded",
+  not_measured: "Not determined",
+};
+
+/** "± 40.0 µm" for a symmetric limit, "−5.0 … +10.0 µm", "≤ +10.0 µm" or "≥ −5.0 µm" otherwise. */
+export function limitText(lower: number | null, upper: number | null, unit: "um" | "arcsec"): string | null {
+  const u = UNIT_TEXT[unit];
+  const d = 1;
+  if (lower == null && upper == null) return null;
+  if (lower != null && upper != null && Math.abs(lower + upper) <= 1e-12 * Math.max(1, Math.abs(upper))) return `± ${upper.toFixed(d)} ${u}`;
+  if (lower != null && upper != null) return `${signed(lower, d)} … ${signed(upper, d)} ${u}`;
+  if (upper != null) return `≤ ${signed(upper, d)} ${u}`;
+  return `≥ ${signed(lower as number, d)} ${u}`;
 }
 
 /** Signed, fixed decimals, with a real minus sign. */
@@ -45,9 +91,16 @@ export function signed(v: number, digits: number): string {
   return `${v < 0 ? "−" : "+"}${s}`;
 }
 
-export function parameterRows(fit: HeadFitJson): ParameterRow[] {
+/**
+ * The fitted parameters as table rows, each judged against the job's limit for it (if any) with
+ * the limit's decision rule and the parameter's expanded uncertainty U (ISO 14253-1, through
+ * lib/checklist's judge). A parameter the data could not determine (held at 0) is not judged.
+ */
+export function parameterRows(fit: HeadFitJson, limits: readonly ParameterLimit[] = []): ParameterRow[] {
   return fit.parameters.map((p) => {
     const held = p.U === null;
+    const lim = limits.find((l) => l.parameter === p.key);
+    const decision: StepDecision = !lim || (lim.lowerLimit == null && lim.upperLimit == null) ? "no_limit" : held ? "not_measured" : judge({ quantityKind: "length", derivation: "direct", distanceMm: null, lowerLimit: lim.lowerLimit, upperLimit: lim.upperLimit, decisionRule: lim.decisionRule }, p.value, p.U ?? 0);
     return {
       key: p.key,
       iso: p.iso,
@@ -59,6 +112,11 @@ export function parameterRows(fit: HeadFitJson): ParameterRow[] {
       identifiable: p.identifiable,
       identifiableText: IDENTIFIABILITY_WORDS[p.identifiable],
       heldAtZero: held,
+      toleranceText: lim ? limitText(lim.lowerLimit, lim.upperLimit, p.unit) : null,
+      limitSourceText: lim ? `${LIMIT_SOURCE_WORDS[lim.limitSource]}${lim.limitSourceNote ? `: ${lim.limitSourceNote}` : ""}` : null,
+      decisionRule: lim ? lim.decisionRule : null,
+      decision,
+      decisionText: PARAMETER_DECISION_TEXT[decision],
     };
   });
 }

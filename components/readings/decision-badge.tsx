@@ -9,14 +9,14 @@ const STYLES: Record<StepDecision, { cls: string; icon: React.ReactNode }> = {
   not_measured: { cls: "bg-unmeasured-50 text-unmeasured-600 ring-graphite-200", icon: <circle cx="6" cy="6" r="4" fill="none" stroke="currentColor" strokeWidth="1.6" strokeDasharray="2 1.6" /> },
 };
 
-export function DecisionBadge({ decision, size = "md" }: { decision: StepDecision; size?: "md" | "lg" }) {
+export function DecisionBadge({ decision, size = "md", label }: { decision: StepDecision; size?: "md" | "lg"; label?: string }) {
   const s = STYLES[decision];
   return (
     <span data-decision={decision} className={`inline-flex items-center gap-1.5 whitespace-nowrap rounded-full font-semibold ring-1 ring-inset ${size === "lg" ? "px-3 py-1 text-base" : "px-2.5 py-0.5 text-sm"} ${s.cls}`}>
       <svg viewBox="0 0 12 12" className={size === "lg" ? "h-4 w-4" : "h-3 w-3"} aria-hidden="true">
         {s.icon}
       </svg>
-      {DECISION_LABELS[decision]}
+      {label ?? DECISION_LABELS[decision]}
     </span>
   );
 }

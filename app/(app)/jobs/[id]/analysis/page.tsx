@@ -1,13 +1,15 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { ApproveButton, RunFitButton } from "@/components/fit/fit-buttons";
-import { controlValues, parameterRows, signed } from "@/lib/fit-display";
+import { controlValues, parameterRows, signed, type ParameterLimit } from "@/lib/fit-display";
+import { ParameterTable } from "@/components/fit/parameter-table";
 import { ResidualChart } from "@/components/fit/residual-chart";
 import { Card } from "@/components/ui/card";
 import { SafetyNote } from "@/components/ui/safety-note";
 import { HeadViewerLoader } from "@/components/viewer/head-viewer-loader";
 import { getApprovedAnalysis, headConfigOf, listJobAnalyses } from "@/db/queries/analyses";
 import { listDatasets } from "@/db/queries/datasets";
+import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
 import { getJobDetail } from "@/db/queries/jobs";
 import type { HeadErrors, HeadPose } from "@/geometry";
 import { canTransition, headFitRefusal, STATUS_LABELS } from "@/lib/auth/roles";
@@ -23,7 +25,7 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
   const user = await requirePageUser(`/jobs/${id}/analysis`);
   const d = await getJobDetail(user, id);
   if (!d) notFound();
-  const [all, fits, approved] = await Promise.all([listDatasets(user, id), listJobAnalyses(user, id), getApprovedAnalysis(user, id)]);
+  const [all, fits, approved, limits] = await Promise.all([listDatasets(user, id), listJobAnalyses(user, id), getApprovedAnalysis(user, id), parameterLimitsOfTemplate(d.job.templateId)]);
   const probes = (all ?? []).filter((x) => x.kind === "sphere_probe" && x.status === "stored");
   const list = fits ?? [];
   const shown = (wanted ? list.find((f) => f.analysis.id === wanted) : undefined) ?? (approved ? list.find((f) => f.analysis.id === approved.detail.analysis.id) : undefined) ?? list[0];
@@ -58,7 +60,7 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
         {!mayRun ? <p className="mt-3 text-sm text-graphite-600">{headFitRefusal(user.role, d.job.status)}</p> : null}
       </Card>
 
-      {shown ? <FitSection jobId={id} fitRow={shown} config={config} user={user} jobStatus={d.job.status} approved={approved} /> : null}
+      {shown ? <FitSection jobId={id} fitRow={shown} config={config} user={user} jobStatus={d.job.status} approved={approved} limits={limits} /> : null}
     </div>
   );
 }
@@ -74,8 +76,10 @@ function FitSection({
   user,
   jobStatus,
   approved,
+  limits,
 }: {
   jobId: string;
+  limits: readonly ParameterLimit[];
   fitRow: FitRow;
   config: ReturnType<typeof headConfigOf>;
   user: { role: Parameters<typeof canTransition>[0] };
@@ -85,7 +89,7 @@ function FitSection({
   const a = fitRow.analysis;
   const r = a.result;
   const fit = r.fit;
-  const rows = parameterRows(fit);
+  const rows = parameterRows(fit, limits);
   const errors: HeadErrors = Object.fromEntries(fit.parameters.filter((p) => p.U !== null).map((p) => [p.key, p.value]));
   // The 3D view draws at most VIEW_POSES poses (every step-th one), so the page stays light for very large datasets.
   const step = Math.max(1, Math.ceil(r.poses.row.length / VIEW_POSES));
@@ -145,51 +149,7 @@ function FitSection({
         </div>
 
         <Card title="Parameters">
-          <div className="overflow-x-auto">
-            <table className="w-full text-sm" aria-label="Fitted parameters">
-              <thead>
-                <tr className="border-b border-graphite-200 text-left text-graphite-600">
-                  <th className="py-2 pr-3 font-medium">Symbol</th>
-                  <th className="py-2 pr-3 font-medium">Parameter</th>
-                  <th className="py-2 pr-3 text-right font-medium">Value</th>
-                  <th className="py-2 pr-3 text-right font-medium">U (k = 2)</th>
-                  <th className="py-2 font-medium">Identifiable from this data</th>
-                </tr>
-              </thead>
-              <tbody>
-                {rows.map((p) => (
-                  <tr key={p.key} data-key={p.key} className="border-b border-graphite-100">
-                    <td className="num py-2 pr-3 font-semibold">{p.iso}</td>
-                    <td className="py-2 pr-3">
-                      {p.words}
-                      <span className="block text-xs text-graphite-500">{p.key}</span>
-                    </td>
-                    <td className="num py-2 pr-3 text-right" data-value={p.value}>
-                      {p.valueText}
-                    </td>
-                    <td className="num py-2 pr-3 text-right">{p.UText}</td>
-                    <td className="py-2">
-                      <span className={p.identifiable === "yes" ? "text-pass-700" : p.identifiable === "weak" ? "text-accent-700" : "text-fail-700"}>
-                        {p.identifiable === "yes" ? "● " : p.identifiable === "weak" ? "◐ " : "○ "}
-                        {p.identifiableText}
-                      </span>
-                      {p.heldAtZero ? <span className="text-graphite-600"> — held at 0</span> : null}
-                    </td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
-          {fit.warnings.length ? (
-            <div className="mt-4 space-y-2" aria-label="Warnings">
-              <h3 className="text-sm font-semibold">What the data cannot tell apart, and other warnings</h3>
-              <ul className="list-disc space-y-1 pl-5 text-sm text-graphite-800">
-                {fit.warnings.map((w) => (
-                  <li key={w}>{w}</li>
-                ))}
-              </ul>
-            </div>
-          ) : null}
+          <ParameterTable rows={rows} warnings={fit.warnings} />
         </Card>
 
         <Card title="Residuals per pose">

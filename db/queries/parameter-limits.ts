@@ -1,0 +1,25 @@
+/**
+ * Limits for the fitted head parameters, read from the procedure template version a job started
+ * with (template_parameter_limits). A job without a template, or a parameter without a row, has
+ * no limit: its value is recorded, not judged.
+ */
+import "server-only";
+import { asc, eq } from "drizzle-orm";
+import { db } from "@/db";
+import { getJobDetail } from "@/db/queries/jobs";
+import { templateParameterLimits } from "@/db/schema";
+import type { Actor } from "@/lib/auth/roles";
+import type { ParameterLimit } from "@/lib/fit-display";
+
+/** The limits of a template version (no access check: callers have checked the job or register). */
+export async function parameterLimitsOfTemplate(templateId: string | null): Promise<ParameterLimit[]> {
+  if (!templateId) return [];
+  return db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, templateId)).orderBy(asc(templateParameterLimits.parameter));
+}
+
+/** The parameter limits that apply to a job the actor may see; null when the job is not theirs to see. */
+export async function listJobParameterLimits(actor: Actor, jobId: string): Promise<ParameterLimit[] | null> {
+  const d = await getJobDetail(actor, jobId);
+  if (!d) return null;
+  return parameterLimitsOfTemplate(d.job.templateId);
+}
