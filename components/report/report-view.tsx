@@ -1,3 +1,4 @@
+import { ReportFigures } from "@/components/report/report-charts";
 import type { Decision, ReportData } from "@/lib/report/types";
 
 const DECISION: Record<Decision, { text: string; cls: string }> = {
@@ -104,6 +105,9 @@ export function ReportView({ data }: { data: ReportData }) {
       </Section>
       <Section n={6} title="Test part">
         {data.testPart.length ? <Table head={["Feature", "Characteristic", "Nominal", "Measured", "Deviation", "Limits", "U", "Result"]} numeric={[2, 3, 4, 5, 6]} rows={data.testPart.map((r) => [r.feature, r.characteristic, r.nominal, r.measured, r.deviation, r.limits, r.expanded, dec(r.decision)])} /> : <p className="text-sm text-graphite-600">No test part was measured for this report.</p>}
+      </Section>
+      <Section n={7} title="Figures and charts">
+        <ReportFigures data={data} />
       </Section>
       <Section n={8} title="Deviations and remarks">
         {data.remarks.length ? <ul className="list-disc pl-5 text-sm">{data.remarks.map((r, i) => <li key={i}>{r}</li>)}</ul> : <p className="text-sm text-graphite-600">None.</p>}

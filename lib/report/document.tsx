@@ -8,6 +8,8 @@
 import { Circle, Document, Image, Line, Page, Path, Rect, StyleSheet, Svg, Text, View } from "@react-pdf/renderer";
 import type { Decision, ReportData } from "./types";
 import { BODY_FONT, MONO_FONT } from "./fonts";
+import { parameterChartRows, readingRows } from "./chart-data";
+import { LimitRowsChart, ResidualsChart } from "./charts";
 
 const C = { ink: "#1d2125", muted: "#555d68", rule: "#d5d9de", band: "#f6f7f8", accent: "#b86e05", nominal: "#5f7d99", pass: "#17613a", fail: "#9c2420", undecided: "#553791", none: "#5c6470" };
 
@@ -102,7 +104,58 @@ function DecisionWithRowsOf<T extends { decision: Decision }>(rows: readonly T[]
   return `${count("pass")} pass · ${count("fail")} fail · ${count("undecided")} undecided${count("not_measured") ? ` · ${count("not_measured")} not measured` : ""}`;
 }
 
-export function ReportDocument({ data, qrDataUrl }: { data: ReportData; qrDataUrl: string }) {
+/** The picture at its own aspect ratio, as wide as the text (515 pt) and at most 260 pt high. */
+function figureSize(w: number, h: number) {
+  const height = Math.min(260, (515 * h) / Math.max(1, w));
+  return { width: (height * w) / Math.max(1, h), height, alignSelf: "center" as const };
+}
+
+/**
+ * Section 7: the saved pictures of the 3D view, then the charts drawn from the report's numbers.
+ * Figures are numbered in order; a missing picture is said, not skipped silently.
+ */
+function FiguresAndCharts({ data, images }: { data: ReportData; images: ReadonlyMap<string, Buffer> }) {
+  const charts = data.charts ?? {};
+  let n = 0;
+  const caption = (text: string) => <Text style={{ color: C.muted, marginTop: 3, marginBottom: 8 }}>Figure {++n}. {text}</Text>;
+  const none = data.figures.length === 0 && !charts.readings?.length && !charts.parameters?.length && !charts.residuals;
+  return (
+    <View break={!none}>
+      <Text style={s.h2}>7 Figures and charts</Text>
+      {none ? <Text style={{ color: C.muted }}>No figures: nothing measured on this job gives a chart.</Text> : null}
+      {data.figures.map((f) => {
+        const png = images.get(f.sha256);
+        return (
+          <View key={f.sha256} wrap={false}>
+            {png ? <Image src={png} style={figureSize(f.widthPx, f.heightPx)} /> : <Text style={{ color: C.fail }}>The picture with SHA-256 {f.sha256} was not available when this report was rendered.</Text>}
+            {caption(`${f.caption} (${f.widthPx} × ${f.heightPx} px, SHA-256 ${f.sha256.slice(0, 16)}…)`)}
+          </View>
+        );
+      })}
+      {data.figures.length === 0 && data.parameters.length > 0 ? <Text style={{ color: C.muted, marginBottom: 6 }}>No picture of the 3D view was saved for this report.</Text> : null}
+      {charts.readings?.length ? (
+        <View wrap={false}>
+          <LimitRowsChart rows={readingRows(charts.readings)} legend="Hollow ring: before adjustment; filled dot: after; green lines: the limits, shaded between. Each row has its own scale; lengths in µm, angles in arc seconds." />
+          {caption("Checklist readings before and after adjustment against their limits.")}
+        </View>
+      ) : null}
+      {charts.parameters?.length ? (
+        <View wrap={false}>
+          <LimitRowsChart rows={parameterChartRows(charts.parameters)} legend="Dot: the fitted value; bar: ± U (k = 2); green lines: the procedure's limits, shaded between. Each row has its own scale." />
+          {caption("Fitted head parameters against the procedure's limits.")}
+        </View>
+      ) : null}
+      {charts.residuals ? (
+        <View wrap={false}>
+          <ResidualsChart residuals={charts.residuals} />
+          {caption("Residuals of the approved head fit per pose.")}
+        </View>
+      ) : null}
+    </View>
+  );
+}
+
+export function ReportDocument({ data, qrDataUrl, images = new Map() }: { data: ReportData; qrDataUrl: string; images?: ReadonlyMap<string, Buffer> }) {
   const rev = `revision ${data.revision}`;
   return (
     <Document title={`Acceptance report ${data.reference} ${rev}`} author={data.issuer.name} subject={`Two-axis head ${data.head.serial}`} creator="Trammel" producer="Trammel">
@@ -218,20 +271,12 @@ export function ReportDocument({ data, qrDataUrl }: { data: ReportData; qrDataUr
           ]}
         />
 
-        {data.figures.length > 0 ? (
-          <View break>
-            <Text style={s.h2} minPresenceAhead={40}>7 Figures</Text>
-            {data.figures.map((f, i) => (
-              <View key={i} wrap={false} style={{ marginBottom: 10 }}>
-                <Image src={f.png} style={{ width: "100%", maxHeight: 300, objectFit: "contain" }} />
-                <Text style={{ color: C.muted, marginTop: 3 }}>Figure {i + 1}. {f.caption}</Text>
-              </View>
-            ))}
-          </View>
-        ) : null}
+        <FiguresAndCharts data={data} images={images} />
 
-        <Text style={s.h2} minPresenceAhead={40}>8 Deviations and remarks</Text>
-        {data.remarks.length ? data.remarks.map((r, i) => <Text key={i}>• {r}</Text>) : <Text style={{ color: C.muted }}>None.</Text>}
+        <View wrap={false}>
+          <Text style={s.h2}>8 Deviations and remarks</Text>
+          {data.remarks.length ? data.remarks.map((r, i) => <Text key={i}>• {r}</Text>) : <Text style={{ color: C.muted }}>None.</Text>}
+        </View>
 
         <View wrap={false}>
           <Text style={s.h2} minPresenceAhead={40}>9 Safety</Text>

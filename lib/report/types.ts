@@ -28,13 +28,38 @@ export interface ReportData {
   work: { kind: string; title: string; dates: string; airTemperature?: string; procedure: string; method: string; decisionRule: string };
   instruments: Array<{ kind: string; serial: string; resolution: string; uncertainty: string; calibrationDue: string; status: string }>;
   readings: Array<{ step: string; limits: string; pre?: string; post?: string; change?: string; decision: Decision; source: string }>;
-  parameters: Array<{ name: string; symbol: string; value: string; expanded: string; tolerance?: string; decision: Decision; identifiable: string }>;
+  parameters: Array<{ name: string; symbol: string; value: string; expanded: string; tolerance?: string; limitSource?: string; decision: Decision; identifiable: string }>;
   testPart: Array<{ feature: string; characteristic: string; nominal: string; measured: string; deviation: string; limits: string; expanded: string; decision: Decision }>;
-  figures: Array<{ caption: string; png: Buffer }>;
+  /**
+   * Pictures saved by the engineer (the 3D view): named by the SHA-256 of the PNG, whose bytes are
+   * handed to the renderer beside the data, so the signed content hash covers the picture.
+   */
+  figures: ReportFigure[];
+  /** Charts drawn from numbers (vector in the PDF, SVG online); absent in reports issued before charts existed. */
+  charts?: ReportCharts;
   remarks: string[];
   safety: string[];
   signatures: ReportSignature[];
   verifyUrl: string;
   /** SHA-256 of the canonical JSON of this data (the file's own hash cannot be inside the file). */
   contentSha256: string;
+}
+
+export interface ReportFigure {
+  caption: string;
+  /** SHA-256 of the PNG bytes, lower-case hex. */
+  sha256: string;
+  /** The saved view's id (its picture is served at /api/analysis-views/{id}/image). */
+  viewId: string;
+  widthPx: number;
+  heightPx: number;
+}
+
+export interface ReportCharts {
+  /** Each step with limits: the before and after values as a fraction of the limit band (−1 … +1 is inside). */
+  readings?: Array<{ step: string; lower: number | null; upper: number | null; pre: number | null; post: number | null; unit: string }>;
+  /** Each judged head parameter: value and U against its limits, in its own unit. */
+  parameters?: Array<{ symbol: string; value: number; U: number; lower: number | null; upper: number | null; unit: string; decision: Decision }>;
+  /** Residual magnitude per pose (µm), at most a few hundred points (the largest of each bucket), with s and the 3 s outlier line. */
+  residuals?: { valuesUm: number[]; totalPoses: number; sUm: number; perPoint: number };
 }

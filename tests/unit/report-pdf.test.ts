@@ -9,14 +9,14 @@ import jsQR from "jsqr";
 import { PNG } from "pngjs";
 import { beforeAll, describe, expect, it } from "vitest";
 import { renderReportPdf } from "@/lib/report/render";
-import { sampleReport } from "../fixtures/report/sample-report";
+import { samplePng, samplePngSha256, sampleReport } from "../fixtures/report/sample-report";
 
 let pdf: Buffer;
 let text: string;
 const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-pdf-"));
 
 beforeAll(async () => {
-  pdf = await renderReportPdf(sampleReport);
+  pdf = await renderReportPdf(sampleReport, undefined, new Map([[samplePngSha256, samplePng]]));
   writeFileSync(path.join(dir, "r.pdf"), pdf);
   text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"]).toString("utf8");
 }, 30_000);
@@ -58,5 +58,31 @@ describe("report PDF", () => {
     const png = PNG.sync.read(readFileSync(path.join(dir, "last.png")));
     const code = jsQR(new Uint8ClampedArray(png.data), png.width, png.height);
     expect(code?.data).toBe(sampleReport.verifyUrl);
+  });
+
+  it("embeds the saved picture of the 3D view at its own size, with its caption (pdfimages lists it)", () => {
+    const list = execFileSync("pdfimages", ["-list", path.join(dir, "r.pdf")]).toString("utf8");
+    // pdfimages' table: page num type width height …; the QR code is the other image.
+    const sizes = list.split("\n").slice(2).map((l) => l.trim().split(/\s+/)).filter((c) => c.length > 4).map((c) => `${c[3]}x${c[4]}`);
+    expect(sizes).toContain("320x200");
+    expect(text).toContain("The 3D view as saved by the engineer, errors × 300");
+    expect(text).toContain(`SHA-256 ${samplePngSha256.slice(0, 16)}`);
+  });
+
+  it("draws the readings, parameter and residual charts with their captions and values", () => {
+    const flat = text.replace(/\s+/g, " ");
+    expect(text).toContain("Checklist readings before and after adjustment against their limits.");
+    expect(flat).toContain("before +21.6 → after +7.6 µm; limits ≤ +12.7 µm");
+    expect(text).toContain("Fitted head parameters against the procedure's limits.");
+    expect(flat).toContain("+18.4 ± 1.1 µm; limits −25.0 … +25.0 µm; pass");
+    // 3 s = 3.15 µm: one of the eight bars (3.6) is beyond it.
+    expect(text).toContain("3 s = 3.15");
+    expect(flat).toMatch(/1 bar beyond it/);
+  });
+
+  it("refuses a picture whose bytes do not hash to the name the report gives it", async () => {
+    const other = Buffer.from(samplePng);
+    other.writeUInt8(other.readUInt8(other.length - 20) ^ 0xff, other.length - 20);
+    await expect(renderReportPdf(sampleReport, undefined, new Map([[samplePngSha256, other]]))).rejects.toThrow(/other bytes/);
   });
 });

@@ -1,0 +1,75 @@
+/**
+ * The numbers behind the report's charts, shared by the PDF (lib/report/charts.tsx) and the page
+ * (components/report/report-charts.tsx) so both draw the same thing. Pure.
+ */
+import type { Decision, ReportCharts } from "./types";
+
+const DECISION_WORD: Record<Decision, string> = { pass: "pass", fail: "fail", undecided: "undecided", not_measured: "not measured", recorded: "recorded" };
+
+export interface LimitRowMark {
+  value: number;
+  /** Expanded uncertainty drawn as a whisker, same unit. */
+  U?: number;
+  kind: "before" | "after" | "value";
+}
+
+export interface LimitRow {
+  label: string;
+  lower: number | null;
+  upper: number | null;
+  marks: LimitRowMark[];
+  unit: string;
+  note: string;
+}
+
+/**
+ * The domain a row is drawn over: the limits and every value ± U, widened by a third of the band
+ * so that a value on a limit is not on the edge. A one-sided limit takes 0 as its other edge.
+ * Pure; exported for tests.
+ */
+export function rowDomain(row: Pick<LimitRow, "lower" | "upper" | "marks">): { from: number; to: number } {
+  const ends = row.marks.flatMap((m) => [m.value - (m.U ?? 0), m.value + (m.U ?? 0)]);
+  const lo = row.lower ?? Math.min(0, ...ends);
+  const hi = row.upper ?? Math.max(0, ...ends);
+  const span = hi - lo || Math.max(1e-9, ...ends.map(Math.abs)) || 1;
+  return { from: Math.min(lo - span / 3, ...ends), to: Math.max(hi + span / 3, ...ends) };
+}
+
+const fmt = (v: number, d = 1) => `${v < 0 ? "−" : v > 0 ? "+" : ""}${Math.abs(v).toFixed(d)}`;
+const limitsText = (lo: number | null, hi: number | null, unit: string) => (lo != null && hi != null ? `${fmt(lo)} … ${fmt(hi)} ${unit}` : hi != null ? `≤ ${fmt(hi)} ${unit}` : `≥ ${fmt(lo ?? 0)} ${unit}`);
+
+/** The before/after readings as limit rows. */
+export function readingRows(readings: NonNullable<ReportCharts["readings"]>): LimitRow[] {
+  return readings.map((r) => ({
+    label: r.step,
+    lower: r.lower,
+    upper: r.upper,
+    unit: r.unit,
+    marks: [...(r.pre != null ? [{ value: r.pre, kind: "before" as const }] : []), ...(r.post != null ? [{ value: r.post, kind: "after" as const }] : [])],
+    note: `${r.pre != null ? `before ${fmt(r.pre)}` : "no before"} → ${r.post != null ? `after ${fmt(r.post)}` : "no after"} ${r.unit}; limits ${limitsText(r.lower, r.upper, r.unit)}`,
+  }));
+}
+
+/** The judged head parameters as limit rows, with U as the whisker. */
+export function parameterChartRows(params: NonNullable<ReportCharts["parameters"]>): LimitRow[] {
+  return params.map((p) => ({
+    label: p.symbol,
+    lower: p.lower,
+    upper: p.upper,
+    unit: p.unit,
+    marks: [{ value: p.value, U: p.U, kind: "value" as const }],
+    note: `${fmt(p.value)} ± ${p.U.toFixed(1)} ${p.unit}; limits ${limitsText(p.lower, p.upper, p.unit)}; ${DECISION_WORD[p.decision]}`,
+  }));
+}
+
+/** "Nice" tick values 0 … max (1, 2 or 5 × 10^n steps). Pure; exported for tests. */
+export function niceTicks(max: number, count = 4): number[] {
+  if (!(max > 0)) return [0];
+  const raw = max / count;
+  const mag = 10 ** Math.floor(Math.log10(raw));
+  const step = [1, 2, 5, 10].map((f) => f * mag).find((s) => s >= raw) ?? 10 * mag;
+  const out: number[] = [];
+  for (let v = 0; v <= max + step * 1e-9; v += step) out.push(Number(v.toPrecision(12)));
+  return out;
+}
+
