@@ -8,7 +8,7 @@
 import { and, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { instruments, jobs, procedureTemplates, readings, templateSteps, users } from "@/db/schema";
+import { instruments, jobs, procedureTemplates, readings, templateParameterLimits, templateSteps, users } from "@/db/schema";
 import { deriveReading } from "@/lib/checklist";
 import type { EntryUnit } from "@/lib/units";
 
@@ -144,6 +144,32 @@ const READINGS_0052: DemoReading[] = [
   { step: 5, phase: "pre", value: 0.0003, unit: "in", instrument: "DTI-0112", minutes: 70 },
 ];
 
+const DEMO_LIMIT_NOTE = "Demo value, invented for the example scenario";
+
+/**
+ * Limits for the fitted head parameters in the default procedure (µm, arc seconds). Invented demo
+ * values: a real job takes them from the head maker's acceptance sheet or the customer's order.
+ */
+export const DEFAULT_PARAMETER_LIMITS: ReadonlyArray<Omit<typeof templateParameterLimits.$inferInsert, "templateId">> = [
+  { parameter: "pivot_length_error_um", lowerLimit: -50, upperLimit: 50, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
+  { parameter: "tip_offset_s_um", lowerLimit: -20, upperLimit: 20, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
+  { parameter: "tip_offset_n_um", lowerLimit: -20, upperLimit: 20, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
+  { parameter: "secondary_offset_um", lowerLimit: -20, upperLimit: 20, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
+  { parameter: "primary_zero_arcsec", lowerLimit: -30, upperLimit: 30, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
+  { parameter: "secondary_zero_arcsec", lowerLimit: -30, upperLimit: 30, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
+  { parameter: "secondary_tilt_arcsec", lowerLimit: -20, upperLimit: 20, decisionRule: "guarded", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
+  { parameter: "secondary_yaw_arcsec", lowerLimit: -20, upperLimit: 20, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
+  { parameter: "primary_tilt_s_arcsec", lowerLimit: -15, upperLimit: 15, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
+  { parameter: "primary_tilt_n_arcsec", lowerLimit: -15, upperLimit: 15, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
+];
+
+/** Adds the default parameter limits to the demo template version when it has none (demo databases made before they existed). */
+async function ensureParameterLimits(templateId: string) {
+  const [any] = await db.select({ id: templateParameterLimits.id }).from(templateParameterLimits).where(eq(templateParameterLimits.templateId, templateId)).limit(1);
+  if (any) return;
+  await db.insert(templateParameterLimits).values(DEFAULT_PARAMETER_LIMITS.map((l) => ({ ...l, templateId })));
+}
+
 async function ensureTemplate(adminId: string | null) {
   const [found] = await db.select().from(procedureTemplates).where(and(eq(procedureTemplates.name, DEFAULT_TEMPLATE_NAME), eq(procedureTemplates.version, 1)));
   if (found) return found;
@@ -184,6 +210,7 @@ export async function seedChecklists(): Promise<void> {
   const [installer] = await db.select({ id: users.id }).from(users).where(eq(users.email, "installer@halvard.example"));
   for (const i of DEMO_INSTRUMENTS) await db.insert(instruments).values(i).onConflictDoNothing({ target: instruments.serial });
   const template = await ensureTemplate(admin?.id ?? null);
+  await ensureParameterLimits(template.id);
   // Every demo job follows the default procedure, version 1.
   await db.update(jobs).set({ templateId: template.id }).where(isNull(jobs.templateId));
   if (!installer) return;

@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, max } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { procedureTemplates, templateSteps } from "@/db/schema";
+import { procedureTemplates, templateParameterLimits, templateSteps } from "@/db/schema";
 import { canReadRegisterOf, type Actor } from "@/lib/auth/roles";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 
@@ -10,7 +10,8 @@ export async function listTemplatesWithSteps(actor: Actor) {
   if (!canReadRegisterOf(actor.role, "procedures")) throw forbidden("Procedures are kept by the service company.");
   const ts = await db.select().from(procedureTemplates).orderBy(asc(procedureTemplates.name), desc(procedureTemplates.version));
   const steps = await db.select().from(templateSteps).orderBy(asc(templateSteps.position));
-  return ts.map((t) => ({ ...t, steps: steps.filter((s) => s.templateId === t.id) }));
+  const limits = await db.select().from(templateParameterLimits);
+  return ts.map((t) => ({ ...t, steps: steps.filter((s) => s.templateId === t.id), parameterLimits: limits.filter((l) => l.templateId === t.id) }));
 }
 
 export interface StepLimitEdit {
@@ -46,6 +47,9 @@ export async function createTemplateVersion(actor: Actor, templateId: string, ed
         return { ...s, templateId: t!.id, ...(e ? { lowerLimit: e.lowerLimit, upperLimit: e.upperLimit, decisionRule: e.decisionRule, limitSource: e.limitSource, limitSourceNote: e.limitSourceNote } : {}) };
       }),
     );
+    // The head-parameter limits go with the procedure into its new version, unchanged.
+    const limits = await tx.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, base.id));
+    if (limits.length) await tx.insert(templateParameterLimits).values(limits.map(({ id: _id, templateId: _t, ...l }) => ({ ...l, templateId: t!.id })));
     await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: "template.versioned", entityType: "procedure_template", entityId: t!.id, oldValues: { id: base.id, version: base.version }, newValues: { version: t!.version, edits } });
     return t!;
   });

@@ -11,6 +11,8 @@ import { getUnitSystem } from "@/db/queries/user-prefs";
 import { canReadRegisterOf } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
+import { HEAD_PARAMETER_KEYS, headParameterUnit } from "@/geometry";
+import { limitText, PARAMETER_WORDS } from "@/lib/fit-display";
 import { fromCanonical, formatLimits } from "@/lib/units";
 
 export const metadata: Metadata = { title: "Procedures" };
@@ -54,6 +56,37 @@ export default async function ProceduresPage() {
               </tbody>
             </table>
           </div>
+          <h3 className="mb-2 mt-5 text-sm font-semibold">Limits for the fitted head parameters</h3>
+          {t.parameterLimits.length === 0 ? (
+            <p className="text-sm text-graphite-600">None: a head fit on a job with this version is recorded, not judged.</p>
+          ) : (
+            <div className="overflow-x-auto">
+              <table className="w-full text-sm" aria-label={`Head parameter limits, version ${t.version}`}>
+                <thead className="border-b border-graphite-200 text-left text-graphite-600">
+                  <tr>
+                    <th className="py-2 pr-3 font-medium">Parameter</th>
+                    <th className="py-2 pr-3 text-right font-medium">Limits</th>
+                    <th className="py-2 pr-3 font-medium">Rule</th>
+                    <th className="py-2 font-medium">Source</th>
+                  </tr>
+                </thead>
+                <tbody className="divide-y divide-graphite-100">
+                  {HEAD_PARAMETER_KEYS.flatMap((key) => {
+                    const l = t.parameterLimits.find((x) => x.parameter === key);
+                    if (!l) return [];
+                    return [
+                      <tr key={key}>
+                        <td className="py-2 pr-3">{PARAMETER_WORDS[key]}</td>
+                        <td className="num py-2 pr-3 text-right whitespace-nowrap">{limitText(l.lowerLimit, l.upperLimit, headParameterUnit(key)) ?? "—"}</td>
+                        <td className="py-2 pr-3">{l.decisionRule === "guarded" ? "Guarded" : "Simple"}</td>
+                        <td className="py-2" title={l.limitSourceNote ?? undefined}>{LIMIT_SOURCE_LABELS[l.limitSource]}</td>
+                      </tr>,
+                    ];
+                  })}
+                </tbody>
+              </table>
+            </div>
+          )}
           {user.role === "admin" && t.isCurrent ? (
             <details className="mt-4 rounded-card border border-graphite-200 p-4">
               <summary className="min-h-touch cursor-pointer py-2 font-medium">Edit limits (makes version {t.version + 1})</summary>
