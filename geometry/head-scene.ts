@@ -154,3 +154,44 @@ export function residualColour(residualUm: number, maxUm: number): Vec3 {
   const b = stops[i + 1]!;
   return [a[0] + (b[0] - a[0]) * f, a[1] + (b[1] - a[1]) * f, a[2] + (b[2] - a[2]) * f];
 }
+
+/** The other fit drawn beside the shown one (pre/post overlay): its fitted axis lines and actual tip path. */
+export interface HeadOverlayData {
+  /** Fitted primary axis and fitted secondary axis (at primary 0) of the other fit, errors × k. */
+  readonly axes: { readonly primary: SceneLine; readonly secondary: SceneLine };
+  /** Tips of the other fit's model × k over the shown poses, mm, interleaved x, y, z. */
+  readonly actualTipsMm: Float32Array;
+  /** Segment end points of the same sweeps as headScene's paths, mm. */
+  readonly actualPathMm: Float32Array;
+}
+
+/**
+ * The other fit of a pre/post pair at the same exaggeration k, over the *shown* fit's poses, so
+ * both tool-tip paths join the same commanded poses and differ only by the two parameter sets
+ * (the same forward model as headScene: tip = f(errors × k, pose)). Lengths in mm.
+ */
+export function headOverlayScene(config: HeadConfig, errors: HeadErrors, poses: readonly HeadPose[], k: number): HeadOverlayData {
+  const s = headScene(config, errors, poses, k);
+  return { axes: { primary: s.axes.fittedPrimary, secondary: s.axes.fittedSecondary }, actualTipsMm: s.actualTipsMm, actualPathMm: s.actualPathMm };
+}
+
+/**
+ * How far the modelled gauge point moves between two parameter sets over the given poses, real
+ * size (not exaggerated): |tip(b, pose) − tip(a, pose)| per pose, µm; returns the largest and the
+ * RMS. Computed in float64 with the same kernel as headScene.
+ */
+export function tipChangeUm(config: HeadConfig, a: HeadErrors, b: HeadErrors, poses: readonly HeadPose[]): { maxUm: number; rmsUm: number } {
+  const axes = headAxes(config);
+  const ka = new HeadKernel(axes, headErrorVector(a));
+  const kb = new HeadKernel(axes, headErrorVector(b));
+  let max = 0;
+  let sum = 0;
+  for (const pose of poses) {
+    ka.eval(pose.primaryDeg, pose.secondaryDeg, pose.toolMm ?? 0, false);
+    kb.eval(pose.primaryDeg, pose.secondaryDeg, pose.toolMm ?? 0, false);
+    const d = 1000 * Math.hypot(kb.tip[0]! - ka.tip[0]!, kb.tip[1]! - ka.tip[1]!, kb.tip[2]! - ka.tip[2]!);
+    max = Math.max(max, d);
+    sum += d * d;
+  }
+  return { maxUm: max, rmsUm: poses.length ? Math.sqrt(sum / poses.length) : 0 };
+}
