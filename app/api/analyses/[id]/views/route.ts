@@ -1,0 +1,50 @@
+// Saved pictures of an analysis's 3D view: list them (anyone who may see the job) and save one
+// (application engineers; multipart `file` = the PNG, `factor`, optional `overlayAnalysisId`, `caption`).
+import { z } from "zod";
+import { getAnalysis } from "@/db/queries/analyses";
+import { listAnalysisViews, saveAnalysisView, VIEW_CAPTION_MAX, VIEW_MAX_BYTES, viewJson } from "@/db/queries/analysis-views";
+import { requireUser } from "@/lib/auth/session";
+import { forbidden, invalid, notFound } from "@/lib/errors";
+import { route } from "@/lib/http";
+import { readMultipart } from "@/lib/storage/multipart";
+
+export const runtime = "nodejs";
+type Ctx = { params: Promise<{ id: string }> };
+
+/** Room for the form fields and multipart boundaries beside the picture itself. */
+const BODY_OVERHEAD_BYTES = 64 * 1024;
+
+const fieldsSchema = z.object({
+  factor: z.coerce.number({ error: "factor must be a number" }).finite({ error: "factor must be a number" }),
+  overlayAnalysisId: z
+    .string()
+    .optional()
+    .transform((v) => (v ? v : null))
+    .pipe(z.uuid({ error: "overlayAnalysisId must be an analysis id" }).nullable()),
+  caption: z
+    .string()
+    .max(VIEW_CAPTION_MAX, { error: `caption is longer than ${VIEW_CAPTION_MAX} characters` })
+    .optional()
+    .transform((v) => v?.trim() || null),
+});
+
+export const GET = route<Ctx>(async (_req, ctx) => {
+  const { id } = await ctx.params;
+  const actor = await requireUser();
+  const views = await listAnalysisViews(actor, id);
+  if (!views) throw notFound("analysis");
+  return Response.json({ views: views.map(viewJson) });
+});
+
+export const POST = route<Ctx>(async (req, ctx) => {
+  // Steps: who, may they see it, may they save, then read the (capped) body, then store.
+  const { id } = await ctx.params;
+  const actor = await requireUser();
+  if (!(await getAnalysis(actor, id))) throw notFound("analysis");
+  if (actor.role !== "engineer") throw forbidden("Only an application engineer saves views of a fit for the report.");
+  const { fields, file } = await readMultipart(req, VIEW_MAX_BYTES + BODY_OVERHEAD_BYTES);
+  if (!file || file.data.length === 0) throw invalid("Send the picture as the multipart part 'file' (a PNG).", [{ field: "file", message: "no picture was sent" }]);
+  const f = fieldsSchema.parse(fields);
+  const view = await saveAnalysisView(actor, id, { png: file.data, factor: f.factor, overlayAnalysisId: f.overlayAnalysisId, caption: f.caption });
+  return Response.json({ view: viewJson(view) }, { status: 201 });
+});
