@@ -9,7 +9,8 @@ import type { Actor, Role } from "@/lib/auth/roles";
 import { requireRole, requireUser } from "@/lib/auth/session";
 import { AppError } from "./errors";
 
-export type ActionResult<T> = { ok: true; data: T } | { ok: false; message: string; fieldErrors?: Record<string, string[]> };
+/** `code` is the AppError code on failure ("unauthorized", "forbidden", "not_found", "invalid", …), so callers and tests can tell a refusal from a correction to make. */
+export type ActionResult<T> = { ok: true; data: T } | { ok: false; message: string; code: string; fieldErrors?: Record<string, string[]> };
 
 export function action<S extends z.ZodType, T>(
   options: { schema: S; roles?: Role[] },
@@ -26,7 +27,7 @@ export function action<S extends z.ZodType, T>(
           const key = issue.path.join(".") || "_";
           (fieldErrors[key] ??= []).push(issue.message);
         }
-        return { ok: false, message: "Some fields need attention.", fieldErrors };
+        return { ok: false, message: "Some fields need attention.", code: "invalid", fieldErrors };
       }
       return { ok: true, data: await fn(parsed.data, actor) };
     } catch (err) {
@@ -34,10 +35,10 @@ export function action<S extends z.ZodType, T>(
         const fieldErrors = err.issues?.length
           ? Object.fromEntries(err.issues.map((i) => [i.field ?? i.column ?? "_", [i.message]]))
           : undefined;
-        return { ok: false, message: err.message, ...(fieldErrors ? { fieldErrors } : {}) };
+        return { ok: false, message: err.message, code: err.code, ...(fieldErrors ? { fieldErrors } : {}) };
       }
       console.error("[action] unexpected error", err);
-      return { ok: false, message: "Something went wrong on the server; nothing was saved." };
+      return { ok: false, message: "Something went wrong on the server; nothing was saved.", code: "server_error" };
     }
   };
 }

@@ -12,13 +12,13 @@ export async function setPasswordAction(raw: unknown): Promise<ActionResult<{ em
   if (!parsed.success) {
     const fieldErrors: Record<string, string[]> = {};
     for (const i of parsed.error.issues) (fieldErrors[i.path.join(".") || "_"] ??= []).push(i.message);
-    return { ok: false, message: "Some fields need attention.", fieldErrors };
+    return { ok: false, message: "Some fields need attention.", code: "invalid", fieldErrors };
   }
   try {
     return { ok: true, data: await setPasswordWithToken(parsed.data.token, parsed.data.password) };
   } catch (err) {
-    if (err instanceof AppError) return { ok: false, message: err.message };
+    if (err instanceof AppError) return { ok: false, message: err.message, code: err.code };
     console.error("[set-password] unexpected error", err);
-    return { ok: false, message: "Something went wrong on the server; nothing was saved." };
+    return { ok: false, message: "Something went wrong on the server; nothing was saved.", code: "server_error" };
   }
 }

@@ -1,0 +1,203 @@
+// Every server action × every role (anonymous, each staff role, each tenant's customer), against
+// the real database, called exactly as a form calls it. The expected answers are written out by
+// hand from the product's rules (product.md's roles table and the status flow), not computed from
+// lib/auth/roles. "pass" means the call got past every access check: it succeeded, or failed for a
+// reason that is not about who is asking (a field to correct). Each cell that changes something
+// gets a job of its own, so cells never depend on each other's order. The last test fails when an
+// action file exports an action this matrix does not list.
+import { readdirSync, statSync } from "node:fs";
+import path from "node:path";
+import { eq } from "drizzle-orm";
+import { beforeAll, describe, expect, it, vi } from "vitest";
+import { db } from "@/db";
+import { runHeadFit } from "@/db/queries/analyses";
+import { issueReport } from "@/db/queries/reports";
+import { getActor } from "@/db/queries/users";
+import { demoSphereProbeCsv } from "@/db/seed-analyses";
+import { instruments, jobs, templateSteps, users } from "@/db/schema";
+import type { JobStatus } from "@/lib/auth/roles";
+import type { ActionResult } from "@/lib/actions";
+import { upload } from "./dataset-helpers";
+import { jobIdByReference, signInAs } from "./helpers";
+
+// Outside a Next request there is no cache to revalidate; the actions' access checks run unchanged.
+vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn() }));
+
+const checklist = await import("@/app/(app)/jobs/[id]/checklist/actions");
+const report = await import("@/app/(app)/jobs/[id]/report/actions");
+const analysis = await import("@/app/(app)/jobs/[id]/analysis/actions");
+const registers = await import("@/app/(app)/registers/actions");
+const setPassword = await import("@/app/(auth)/set-password/actions");
+
+type Who = "anonymous" | "admin" | "installer" | "inspector" | "engineer" | "customer (Marlow Creek)" | "customer (Tollan)";
+const EMAIL: Record<Who, string | null> = {
+  anonymous: null,
+  admin: "admin@halvard.example",
+  installer: "installer@halvard.example",
+  inspector: "inspector@halvard.example",
+  engineer: "engineer@halvard.example",
+  "customer (Marlow Creek)": "buyer@marlowcreek.example",
+  "customer (Tollan)": "buyer@tollan.example",
+};
+type Outcome = "pass" | "unauthorized" | "forbidden" | "not_found";
+const ACCESS_CODES = new Set(["unauthorized", "forbidden", "not_found"]);
+/** Refusals about the input, not the person: a field to correct, or a one-time link already used. */
+const DOMAIN_CODES = new Set(["invalid", "token_invalid"]);
+
+const PW = "trammel-demo";
+let marlow: { customerId: string; machineId: string; headId: string; templateId: string };
+let installerId = "";
+let stepId = "";
+let instrumentId = "";
+
+/** A job of the Marlow Creek tenant, assigned to the demo installer, in the given status. */
+async function freshJob(status: JobStatus): Promise<string> {
+  const [row] = await db
+    .insert(jobs)
+    .values({ reference: `TR-ACT-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`, title: "Action matrix job", kind: "reverification", status, ...marlow, assignedInstallerId: installerId })
+    .returning();
+  return row!.id;
+}
+
+async function outcome(result: Promise<ActionResult<unknown>>): Promise<Outcome | `error: ${string}`> {
+  const r = await result;
+  if (r.ok) return "pass";
+  if (ACCESS_CODES.has(r.code)) return r.code as Outcome;
+  // Past the access checks, only a field to correct counts; a server error is a failure of its own.
+  return DOMAIN_CODES.has(r.code) ? "pass" : `error: ${r.code} ${r.message}`;
+}
+
+/** The hand-written table: action → who → expected outcome, and how to call it for that person. */
+const MATRIX: Record<string, { expect: Record<Who, Outcome>; call: (who: Who) => Promise<ActionResult<unknown>> }> = {};
+const staffOnly = (allowed: Who[]): Record<Who, Outcome> =>
+  Object.fromEntries((Object.keys(EMAIL) as Who[]).map((w) => [w, w === "anonymous" ? "unauthorized" : allowed.includes(w) ? "pass" : "forbidden"])) as Record<Who, Outcome>;
+/** Job-scoped: like staffOnly, but the other tenant's customer is told the job does not exist. */
+const onMarlowJob = (allowed: Who[]) => ({ ...staffOnly(allowed), "customer (Tollan)": "not_found" as const });
+
+beforeAll(async () => {
+  const [t] = await db.select().from(jobs).where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
+  marlow = { customerId: t!.customerId, machineId: t!.machineId, headId: t!.headId, templateId: t!.templateId! };
+  installerId = (await signInAs("installer@halvard.example"))!;
+  [{ id: stepId }] = (await db.select({ id: templateSteps.id }).from(templateSteps).where(eq(templateSteps.templateId, marlow.templateId)).limit(1)) as [{ id: string }];
+  [{ id: instrumentId }] = (await db.select({ id: instruments.id }).from(instruments).where(eq(instruments.serial, "DTI-0112"))) as [{ id: string }];
+});
+
+// ---- job work ----
+MATRIX.recordReadingAction = {
+  expect: onMarlowJob(["admin", "installer"]),
+  call: async () => checklist.recordReadingAction({ jobId: await freshJob("measuring"), stepId, phase: "pre", value: "0.0004", unit: "in", instrumentId }),
+};
+MATRIX.changeStatusAction = {
+  // measuring → in review: the installer (or the office) submits the work.
+  expect: onMarlowJob(["admin", "installer"]),
+  call: async () => checklist.changeStatusAction({ jobId: await freshJob("measuring"), to: "in_review" }),
+};
+MATRIX.setUnitSystemAction = {
+  // Anyone signed in chooses their own display units.
+  expect: { ...staffOnly(["admin", "installer", "inspector", "engineer", "customer (Marlow Creek)", "customer (Tollan)"]) },
+  call: async (who) => {
+    const email = EMAIL[who];
+    const [u] = email ? await db.select({ unitSystem: users.unitSystem }).from(users).where(eq(users.email, email)) : [];
+    return checklist.setUnitSystemAction({ unitSystem: u?.unitSystem ?? "metric", path: "/jobs/x" });
+  },
+};
+MATRIX.signWorkAction = {
+  // Signing as inspected is the inspector's; a customer of the job's tenant is refused, another's is not told the job exists.
+  expect: onMarlowJob(["inspector"]),
+  call: async () => report.signWorkAction({ jobId: await freshJob("measuring"), meaning: "inspected", password: PW }),
+};
+MATRIX.issueReportAction = {
+  // Engineers only, checked before the job is looked up: everyone else is refused outright.
+  expect: staffOnly(["engineer"]),
+  call: async () => report.issueReportAction({ jobId: await freshJob("approved"), password: PW }),
+};
+MATRIX.respondAction = {
+  // Customers only at the door; then only the job's own tenant finds the report.
+  expect: { ...staffOnly(["customer (Marlow Creek)"]), "customer (Tollan)": "not_found" },
+  call: async (who) => {
+    const jobId = await freshJob("approved");
+    const engineer = (await getActor((await db.select({ id: users.id }).from(users).where(eq(users.email, "engineer@halvard.example")))[0]!.id))!;
+    const { reportId } = await issueReport(engineer, { jobId, password: PW });
+    await signInAs(EMAIL[who]);
+    return report.respondAction({ jobId, reportId, decision: "accepted", password: PW });
+  },
+};
+MATRIX.runFitAction = {
+  expect: onMarlowJob(["admin", "inspector", "engineer"]),
+  call: async (who) => {
+    const jobId = await freshJob("measuring");
+    await signInAs("installer@halvard.example");
+    const up = await upload(jobId, Buffer.from(demoSphereProbeCsv()), { kind: "sphere_probe", phase: "pre", units: "mm" }, "probe.csv");
+    const datasetId = ((await up.json()) as { id: string }).id;
+    await signInAs(EMAIL[who]);
+    return analysis.runFitAction({ jobId, datasetId });
+  },
+};
+MATRIX.approveFitAction = {
+  expect: staffOnly(["engineer"]),
+  call: async (who) => {
+    const jobId = await freshJob("measuring");
+    await signInAs("installer@halvard.example");
+    const up = await upload(jobId, Buffer.from(demoSphereProbeCsv()), { kind: "sphere_probe", phase: "pre", units: "mm" }, "probe.csv");
+    const engineer = (await getActor((await signInAs("engineer@halvard.example"))!))!;
+    const { analysis: a } = await runHeadFit(engineer, ((await up.json()) as { id: string }).id);
+    await db.update(jobs).set({ status: "in_review" }).where(eq(jobs.id, jobId));
+    await signInAs(EMAIL[who]);
+    return analysis.approveFitAction({ jobId, analysisId: a.id });
+  },
+};
+
+// ---- registers: the administrator's. An empty form passes the door for the admin and is then
+// refused for its fields ("invalid"), so nothing is created; everyone else is refused at the door.
+for (const name of ["createInstrumentAction", "inviteUserAction", "updateUserAction", "createTemplateVersionAction", "createJobAction", "mountHeadAction", "createCustomerAction", "createSiteAction", "createMachineAction", "createHeadAction"] as const) {
+  MATRIX[name] = { expect: staffOnly(["admin"]), call: async () => (registers[name] as (raw: unknown) => Promise<ActionResult<unknown>>)({}) };
+}
+
+// ---- set password: anonymous by design, the one-time token is the credential; a wrong token is
+// refused for its field, whoever asks.
+MATRIX.setPasswordAction = {
+  expect: Object.fromEntries((Object.keys(EMAIL) as Who[]).map((w) => [w, "pass"])) as Record<Who, Outcome>,
+  call: async () => setPassword.setPasswordAction({ token: "not-a-real-token-".padEnd(43, "x"), password: "a long enough new password", confirm: "a long enough new password" }),
+};
+
+describe("server action access matrix", () => {
+  for (const [name, { expect: cells, call }] of Object.entries(MATRIX)) {
+    describe(name, () => {
+      for (const who of Object.keys(EMAIL) as Who[]) {
+        it(`${who}: ${cells[who]}`, async () => {
+          await signInAs(EMAIL[who]);
+          const p = call(who);
+          expect(await outcome(p)).toBe(cells[who]);
+        }, 30_000);
+      }
+    });
+  }
+
+  it("a refused call changes nothing: the installer cannot move another installer's job", async () => {
+    const jobId = await freshJob("measuring");
+    await db.update(jobs).set({ assignedInstallerId: null }).where(eq(jobs.id, jobId));
+    await signInAs("installer@halvard.example");
+    expect(await outcome(checklist.changeStatusAction({ jobId, to: "in_review" }))).toBe("not_found");
+    const [j] = await db.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, jobId));
+    expect(j!.status).toBe("measuring");
+  });
+
+  it("covers every action exported from an actions.ts file", async () => {
+    const files: string[] = [];
+    const walk = (dir: string) => {
+      for (const f of readdirSync(dir)) {
+        const p = path.join(dir, f);
+        if (statSync(p).isDirectory()) walk(p);
+        else if (f === "actions.ts") files.push(p);
+      }
+    };
+    walk("app");
+    expect(files.length).toBeGreaterThanOrEqual(5);
+    const exported: string[] = [];
+    for (const f of files) {
+      const mod = (await import(/* @vite-ignore */ path.resolve(f))) as Record<string, unknown>;
+      for (const [k, v] of Object.entries(mod)) if (typeof v === "function") exported.push(k);
+    }
+    expect(exported.filter((k) => !(k in MATRIX))).toEqual([]);
+  });
+});
