@@ -6,8 +6,10 @@ import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
 import { getComparison } from "@/db/queries/readings";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
-import { IDENTIFIABILITY_WORDS, PARAMETER_WORDS } from "@/lib/fit-display";
-import { datasets, instruments, jobs, outbox, readings, reports, signatures, users } from "@/db/schema";
+import { latestJobView } from "@/db/queries/analysis-views";
+import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
+import { parameterRows } from "@/lib/fit-display";
+import { datasets, instruments, jobs, outbox, procedureTemplates, readings, reports, signatures, users } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
 import { ROLE_LABELS, SIGNATURE_LABELS, signatureRefusal, type Actor, type SignatureMeaningKey } from "@/lib/auth/roles";
 import { canonicalJson } from "@/lib/canonical-json";
@@ -18,7 +20,7 @@ import { getSigningKey } from "@/lib/report/keys";
 import { formatLimits, formatValue } from "@/lib/units";
 import { renderReportPdf } from "@/lib/report/render";
 import { sha256Hex, signManifest, verifyManifest, type SignatureManifest } from "@/lib/report/signing";
-import type { ReportData, ReportSignature } from "@/lib/report/types";
+import type { Decision, ReportCharts, ReportData, ReportSignature } from "@/lib/report/types";
 
 /** Re-entry of the password at signing (21 CFR 11.200): the signer proves it is them, now. */
 async function requirePasswordReentry(actor: Actor, password: string): Promise<void> {
@@ -99,22 +101,28 @@ function signatureLine(s: { signerName: string; signerRole: string; meaning: Sig
 /**
  * The checklist readings for the report: the comparison the installer and reviewers saw (latest
  * current reading of each step and phase, judged under the step's decision rule with U from the
- * instrument), formatted in metric units.
+ * instrument), formatted in metric units; and the same numbers for the before/after chart
+ * (lengths in µm, angles in arc seconds).
  */
-async function reportReadings(actor: Actor, jobId: string): Promise<ReportData["readings"]> {
+async function reportReadings(actor: Actor, jobId: string): Promise<{ rows: ReportData["readings"]; chart: NonNullable<ReportCharts["readings"]> }> {
   const c = await getComparison(actor, jobId);
-  if (!c) return [];
-  return c.rows
-    .filter((r) => r.pre || r.post)
-    .map((r) => ({
-      step: r.title,
-      limits: formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, "metric"),
-      pre: r.pre ? formatValue(r.pre.value, r.quantityKind, "metric") : undefined,
-      post: r.post ? formatValue(r.post.value, r.quantityKind, "metric") : undefined,
-      change: r.change != null ? formatValue(r.change, r.quantityKind, "metric", { signed: true }) : undefined,
-      decision: r.status === "no_limit" ? ("recorded" as const) : r.status,
-      source: r.limitSource.replace("_", " "),
-    }));
+  if (!c) return { rows: [], chart: [] };
+  const measured = c.rows.filter((r) => r.pre || r.post);
+  const rows = measured.map((r) => ({
+    step: r.title,
+    limits: formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, "metric"),
+    pre: r.pre ? formatValue(r.pre.value, r.quantityKind, "metric") : undefined,
+    post: r.post ? formatValue(r.post.value, r.quantityKind, "metric") : undefined,
+    change: r.change != null ? formatValue(r.change, r.quantityKind, "metric", { signed: true }) : undefined,
+    decision: r.status === "no_limit" ? ("recorded" as const) : r.status,
+    source: r.limitSource.replace("_", " "),
+  }));
+  const k = (kind: string) => (kind === "length" ? 1000 : 1);
+  const scaled = (v: number | null | undefined, kind: string) => (v == null ? null : v * k(kind));
+  const chart = measured
+    .filter((r) => r.lowerLimit != null || r.upperLimit != null)
+    .map((r) => ({ step: r.title, lower: scaled(r.lowerLimit, r.quantityKind), upper: scaled(r.upperLimit, r.quantityKind), pre: scaled(r.pre?.value, r.quantityKind), post: scaled(r.post?.value, r.quantityKind), unit: r.quantityKind === "length" ? "µm" : "″" }));
+  return { rows, chart };
 }
 
 /** Instruments used for the job's current readings, with calibration status on the day of issue. */
@@ -148,30 +156,88 @@ async function reportTestPart(actor: Actor, jobId: string): Promise<ReportData["
   });
 }
 
-/** The head parameters of the fit the engineer approved (no tolerance is set for them yet: recorded). */
-async function reportParameters(actor: Actor, jobId: string): Promise<{ rows: ReportData["parameters"]; note?: string }> {
-  const approved = await getApprovedAnalysis(actor, jobId);
-  if (!approved) return { rows: [] };
-  const fit = approved.detail.analysis.result.fit;
-  const rows = fit.parameters.map((p) => {
+/** At most this many points in the residual chart: each is the largest residual of its bucket of poses. */
+const RESIDUAL_CHART_POINTS = 240;
+
+/** Bucket maxima of the per-pose residuals (largest component, as the 3 s outlier rule uses), so peaks survive the thinning. */
+export function residualChartValues(valuesUm: readonly number[], maxPoints = RESIDUAL_CHART_POINTS): { valuesUm: number[]; perPoint: number } {
+  const perPoint = Math.max(1, Math.ceil(valuesUm.length / maxPoints));
+  const out: number[] = [];
+  for (let i = 0; i < valuesUm.length; i += perPoint) out.push(Math.max(...valuesUm.slice(i, i + perPoint)));
+  return { valuesUm: out.map((v) => Math.round(v * 1000) / 1000), perPoint };
+}
+
+/**
+ * The head parameters of the fit the engineer approved, judged against the limits of the job's
+ * procedure version (lib/fit-display parameterRows: the decision rule with the fit's U), with the
+ * numbers for the parameter and residual charts.
+ */
+async function reportParameters(actor: Actor, d: JobDetail): Promise<{ rows: ReportData["parameters"]; note?: string; charts: Pick<ReportCharts, "parameters" | "residuals">; analysisId?: string }> {
+  const approved = await getApprovedAnalysis(actor, d.job.id);
+  if (!approved) return { rows: [], charts: {} };
+  const result = approved.detail.analysis.result;
+  const fit = result.fit;
+  const limits = await parameterLimitsOfTemplate(d.job.templateId);
+  const judged = parameterRows(fit, limits);
+  const decisionOf = (x: (typeof judged)[number]["decision"]): Decision => (x === "no_limit" ? "recorded" : x);
+  const rows = judged.map((p) => {
     const unit = p.unit === "um" ? " µm" : "″";
     const value = `${p.value >= 0 ? "+" : "−"}${Math.abs(p.value).toFixed(1)}${unit}`;
     return {
-      name: PARAMETER_WORDS[p.key],
+      name: p.words,
       symbol: p.iso,
-      value: p.identifiable === "no" ? `${value} (held)` : value,
-      expanded: p.U == null ? "—" : `${p.U.toFixed(1)}${unit}`,
-      decision: "recorded" as const,
-      identifiable: IDENTIFIABILITY_WORDS[p.identifiable],
+      value: p.heldAtZero ? `${value} (held)` : value,
+      expanded: p.heldAtZero ? "—" : `${fit.parameters.find((q) => q.key === p.key)!.U!.toFixed(1)}${unit}`,
+      ...(p.toleranceText ? { tolerance: p.toleranceText } : {}),
+      ...(p.limitSourceText ? { limitSource: p.limitSourceText } : {}),
+      decision: decisionOf(p.decision),
+      identifiable: p.identifiableText,
     };
   });
-  return { rows, note: `Head parameters from the fit approved by ${approved.approvedBy} on ${formatDateTimeUtc(approved.approvedAt)}: residual RMS ${fit.rms_um.toFixed(2)} µm, max ${fit.max_um.toFixed(2)} µm.` };
+  const chartParameters = judged
+    .filter((p) => p.toleranceText && !p.heldAtZero)
+    .map((p) => {
+      const lim = limits.find((l) => l.parameter === p.key)!;
+      const U = fit.parameters.find((q) => q.key === p.key)!.U ?? 0;
+      return { symbol: p.iso, value: p.value, U, lower: lim.lowerLimit, upper: lim.upperLimit, unit: p.unit === "um" ? "µm" : "″", decision: decisionOf(p.decision) };
+    });
+  const residuals = { ...residualChartValues(result.poses.residual_um.map((r) => Math.max(Math.abs(r[0]), Math.abs(r[1]), Math.abs(r[2])))), totalPoses: result.poses.row.length, sUm: result.s_um };
+  const judgedCount = judged.filter((p) => p.decision !== "no_limit").length;
+  return {
+    rows,
+    analysisId: approved.detail.analysis.id,
+    charts: { ...(chartParameters.length ? { parameters: chartParameters } : {}), residuals },
+    note: `Head parameters from the fit approved by ${approved.approvedBy} on ${formatDateTimeUtc(approved.approvedAt)}: residual RMS ${fit.rms_um.toFixed(2)} µm, max ${fit.max_um.toFixed(2)} µm; ${judgedCount ? `${judgedCount} of ${judged.length} parameters judged against the procedure's limits` : "the procedure sets no limits for them, so they are recorded"}.`,
+  };
 }
 
 /** Assembles everything the report shows from the database. */
-export async function buildReportData(actor: Actor, d: JobDetail, meta: { reportId: string; revision: number; issuedAt: Date; approval: ReportSignature; amendment?: ReportData["amendment"] }): Promise<ReportData> {
+export async function buildReportData(
+  actor: Actor,
+  d: JobDetail,
+  meta: { reportId: string; revision: number; issuedAt: Date; approval: ReportSignature; amendment?: ReportData["amendment"] },
+): Promise<{ data: ReportData; images: Map<string, Buffer> }> {
   const sigs = await db.select().from(signatures).where(and(eq(signatures.jobId, d.job.id), isNull(signatures.reportId))).orderBy(asc(signatures.signedAt));
-  const params = await reportParameters(actor, d.job.id);
+  const [params, readingsPart, template] = await Promise.all([
+    reportParameters(actor, d),
+    reportReadings(actor, d.job.id),
+    d.job.templateId ? db.select({ name: procedureTemplates.name, version: procedureTemplates.version }).from(procedureTemplates).where(eq(procedureTemplates.id, d.job.templateId)) : Promise.resolve([]),
+  ]);
+  // The latest picture of the 3D view saved for the approved fit (the job's access was checked above).
+  const view = params.analysisId ? await latestJobView(d.job.id) : null;
+  const images = new Map<string, Buffer>();
+  const figures: ReportData["figures"] = [];
+  if (view && view.analysisId === params.analysisId) {
+    const sha = sha256Hex(view.png);
+    images.set(sha, view.png);
+    figures.push({
+      caption: `3D view of the approved head fit, errors drawn × ${view.factor.toLocaleString("en-GB")}, saved by ${view.createdByName ?? "the engineer"} on ${formatDateTimeUtc(view.createdAt)}${view.caption ? `: ${view.caption}` : ""}`,
+      sha256: sha,
+      viewId: view.id,
+      widthPx: view.widthPx,
+      heightPx: view.heightPx,
+    });
+  }
   const data: Omit<ReportData, "contentSha256"> = {
     reportId: meta.reportId,
     reference: d.job.reference,
@@ -187,15 +253,16 @@ export async function buildReportData(actor: Actor, d: JobDetail, meta: { report
       title: d.job.title,
       dates: d.job.scheduledFor ? `from ${formatDateTimeUtc(d.job.scheduledFor)}` : "as recorded in the activity log",
       airTemperature: d.job.airTempC != null ? `${d.job.airTempC.toFixed(1)} °C air temperature as entered` : undefined,
-      procedure: "Two-axis head checklist as recorded in Trammel",
+      procedure: template[0] ? `${template[0].name}, version ${template[0].version}` : "Checklist as recorded on the job (no procedure version)",
       method: "Indicator readings against the checklist limits; kinematic fit from sphere-probe data (geometry model stated in the product documentation)",
       decisionRule: d.job.decisionRule === "guarded" ? "Guarded acceptance per ISO 14253-1 (limits shrunk by U for pass, grown by U for fail)" : "Simple acceptance: the expanded uncertainty is stated, not subtracted",
     },
     instruments: await reportInstruments(d.job.id, meta.issuedAt),
-    readings: await reportReadings(actor, d.job.id),
+    readings: readingsPart.rows,
     parameters: params.rows,
     testPart: await reportTestPart(actor, d.job.id),
-    figures: [],
+    figures,
+    charts: { ...(readingsPart.chart.length ? { readings: readingsPart.chart } : {}), ...params.charts },
     remarks: [...(params.note ? [params.note] : []), ...(d.job.notes ? [d.job.notes] : [])],
     safety: [
       "Lift the head only with rated gear at its lifting points; keep hands clear of pinch points between head, collar and spindle nose.",
@@ -205,7 +272,7 @@ export async function buildReportData(actor: Actor, d: JobDetail, meta: { report
     signatures: [...sigs.map(signatureLine), meta.approval],
     verifyUrl: `${publicUrl}/verify/${meta.reportId}`,
   };
-  return { ...data, contentSha256: sha256Hex(canonicalJson(data)) };
+  return { data: { ...data, contentSha256: sha256Hex(canonicalJson(data)) }, images };
 }
 
 export interface IssueOptions {
@@ -237,14 +304,14 @@ export async function issueReport(actor: Actor, input: { jobId: string; password
   const revision = (current?.revision ?? 0) + 1;
   const issuedAt = new Date();
   const approval = signatureLine({ signerName: actor.name, signerRole: actor.role, meaning: "approved", signedAt: issuedAt });
-  const content = await buildReportData(actor, d, {
+  const { data: content, images } = await buildReportData(actor, d, {
     reportId,
     revision,
     issuedAt,
     approval,
     ...(current ? { amendment: { supersedesRevision: current.revision, reason: input.amendmentReason!.trim() } } : {}),
   });
-  const pdf = await renderReportPdf(content);
+  const pdf = await renderReportPdf(content, undefined, images);
   const pdfSha256 = sha256Hex(pdf);
   const manifest = manifestFor(actor, "approved", d.job, { reportId, revision, pdfSha256 }, issuedAt);
   const signature = signManifest(manifest, getSigningKey());

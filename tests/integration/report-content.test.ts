@@ -1,0 +1,146 @@
+// What the issued report says about a head fit, against the real database: each parameter judged
+// against the limits of the job's procedure version (checked here by hand from the ISO 14253-1
+// rules: simple = inside the limits; guarded = inside the limits narrowed by U, outside the limits
+// widened by U fails), the engineer's saved 3D view embedded byte for byte (pdfimages, from
+// poppler, an independent reader), and the charts' numbers. Job of its own.
+import { execFileSync } from "node:child_process";
+import { createHash } from "node:crypto";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { eq } from "drizzle-orm";
+import { PNG } from "pngjs";
+import { beforeAll, describe, expect, it } from "vitest";
+import { db } from "@/db";
+import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
+import { saveAnalysisView } from "@/db/queries/analysis-views";
+import { changeJobStatus } from "@/db/queries/job-status";
+import { issueReport, signJobWork } from "@/db/queries/reports";
+import { createTemplateVersion } from "@/db/queries/templates";
+import { getActor } from "@/db/queries/users";
+import { demoSphereProbeCsv } from "@/db/seed-analyses";
+import { jobs, procedureTemplates, reports, templateParameterLimits, templateSteps } from "@/db/schema";
+import type { HeadFitJson } from "@/geometry";
+import type { Actor } from "@/lib/auth/roles";
+import type { ReportData } from "@/lib/report/types";
+import { upload } from "./dataset-helpers";
+import { jobIdByReference, signInAs } from "./helpers";
+
+const PW = "trammel-demo";
+const as: Record<string, Actor> = {};
+let jobId = "";
+let templateId = "";
+let fit: HeadFitJson;
+let poseResiduals: number[][];
+let content: ReportData;
+let pdf: Buffer;
+const viewPng = (() => {
+  const png = new PNG({ width: 64, height: 40 });
+  for (let i = 0; i < png.data.length; i += 4) png.data.set([0x5f, 0x7d, 0x99, 255], i);
+  return PNG.sync.write(png);
+})();
+
+beforeAll(async () => {
+  for (const e of ["admin@halvard.example", "installer@halvard.example", "inspector@halvard.example", "engineer@halvard.example"]) {
+    as[e.split("@")[0]!] = (await getActor((await signInAs(e))!))!;
+  }
+  const [t] = await db.select().from(jobs).where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
+  templateId = t!.templateId!;
+  const [row] = await db
+    .insert(jobs)
+    .values({ reference: `TR-RPT-${Date.now().toString(36)}`, title: "Report content test job", kind: "reverification", status: "measuring", customerId: t!.customerId, machineId: t!.machineId, headId: t!.headId, templateId, assignedInstallerId: as.installer!.id })
+    .returning();
+  jobId = row!.id;
+  await signInAs("installer@halvard.example");
+  const up = await upload(jobId, Buffer.from(demoSphereProbeCsv()), { kind: "sphere_probe", phase: "pre", units: "mm" }, "probe.csv");
+  expect(up.status).toBe(201);
+  const { analysis } = await runHeadFit(as.engineer!, (await up.json()).id);
+  fit = analysis.result.fit;
+  poseResiduals = analysis.result.poses.residual_um.map((r) => [...r]);
+  await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
+  await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
+  await changeJobStatus(as.installer!, jobId, "in_review");
+  await approveAnalysis(as.engineer!, analysis.id);
+  await saveAnalysisView(as.engineer!, analysis.id, { png: viewPng, factor: 300, overlayAnalysisId: null, caption: "Looking along −Y" });
+  const { reportId } = await issueReport(as.engineer!, { jobId, password: PW });
+  const [r] = await db.select().from(reports).where(eq(reports.id, reportId));
+  content = r!.content as ReportData;
+  pdf = r!.pdf;
+}, 60_000);
+
+describe("head parameters in the report", () => {
+  it("judges each parameter against the procedure's limit with its rule and U, as ISO 14253-1 says", async () => {
+    const limits = await db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, templateId));
+    expect(limits.length).toBeGreaterThan(0);
+    for (const p of fit.parameters) {
+      const lim = limits.find((l) => l.parameter === p.key);
+      const row = content.parameters.find((r) => r.symbol === p.iso)!;
+      let expected: string;
+      if (!lim) expected = "recorded";
+      else if (p.U === null) expected = "not_measured";
+      else {
+        const lo = lim.lowerLimit!;
+        const hi = lim.upperLimit!;
+        if (lim.decisionRule === "simple") expected = p.value >= lo && p.value <= hi ? "pass" : "fail";
+        else expected = p.value >= lo + p.U && p.value <= hi - p.U ? "pass" : p.value < lo - p.U || p.value > hi + p.U ? "fail" : "undecided";
+      }
+      expect(row.decision, p.key).toBe(expected);
+      if (lim) expect(row.tolerance).toBe(`± ${lim.upperLimit!.toFixed(1)} ${p.unit === "um" ? "µm" : "″"}`);
+    }
+    // The demo limits include a guarded one and the held parameter, so both paths are exercised.
+    expect(limits.some((l) => l.decisionRule === "guarded")).toBe(true);
+    expect(content.parameters.some((r) => r.decision === "not_measured")).toBe(true);
+  });
+
+  it("names the procedure and its version, and the chart carries the same numbers as the table", () => {
+    expect(content.work.procedure).toMatch(/, version \d+$/);
+    const judged = fit.parameters.filter((p) => p.U !== null);
+    expect(content.charts!.parameters!.map((c) => c.value)).toEqual(judged.map((p) => p.value));
+    expect(content.charts!.parameters!.map((c) => c.U)).toEqual(judged.map((p) => p.U));
+  });
+
+  it("keeps the largest residual in the thinned residual chart, and the pose count", () => {
+    const r = content.charts!.residuals!;
+    const worst = Math.max(...poseResiduals.map((v) => Math.max(...v.map(Math.abs))));
+    expect(r.totalPoses).toBe(poseResiduals.length);
+    expect(r.valuesUm.length).toBeLessThanOrEqual(240);
+    expect(Math.max(...r.valuesUm)).toBeCloseTo(worst, 3);
+  });
+});
+
+describe("the saved 3D view in the report", () => {
+  it("names the picture by its SHA-256 in the signed content and embeds it at its size", () => {
+    expect(content.figures).toHaveLength(1);
+    expect(content.figures[0]!.sha256).toBe(createHash("sha256").update(viewPng).digest("hex"));
+    expect(content.figures[0]!.caption).toMatch(/× 300.*Looking along −Y/);
+    const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-report-"));
+    writeFileSync(path.join(dir, "r.pdf"), pdf);
+    const list = execFileSync("pdfimages", ["-list", path.join(dir, "r.pdf")]).toString("utf8");
+    const sizes = list.split("\n").slice(2).map((l) => l.trim().split(/\s+/)).filter((c) => c.length > 4).map((c) => `${c[3]}x${c[4]}`);
+    expect(sizes).toContain("64x40");
+    const text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"]).toString("utf8").replace(/\s+/g, " ");
+    expect(text).toContain("Fitted head parameters against the procedure's limits.");
+    expect(text).toContain("Residuals of the approved head fit per pose.");
+  });
+});
+
+describe("procedure versions", () => {
+  it("carry the head-parameter limits into the new version unchanged", async () => {
+    // A procedure of its own, so the demo procedure's current version is untouched for other tests.
+    const [base] = await db.insert(procedureTemplates).values({ name: `Limits copy test ${Date.now().toString(36)}`, version: 1, createdById: as.admin!.id }).returning();
+    const [step] = await db.select().from(templateSteps).where(eq(templateSteps.templateId, templateId)).limit(1);
+    const { id: _s, templateId: _t, ...stepValues } = step!;
+    await db.insert(templateSteps).values({ ...stepValues, templateId: base!.id });
+    await db.insert(templateParameterLimits).values([
+      { templateId: base!.id, parameter: "pivot_length_error_um", lowerLimit: -30, upperLimit: 30, decisionRule: "guarded", limitSource: "customer_spec", limitSourceNote: "test" },
+      { templateId: base!.id, parameter: "secondary_tilt_arcsec", lowerLimit: null, upperLimit: 12, decisionRule: "simple", limitSource: "common_practice", limitSourceNote: null },
+    ]);
+    const before = await db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, base!.id));
+    const next = await createTemplateVersion(as.admin!, base!.id, []);
+    expect(next.version).toBe(2);
+    const after = await db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, next.id));
+    const strip = ({ id: _i, templateId: _tt, ...l }: (typeof before)[number]) => l;
+    const byKey = (a: { parameter: string }, b: { parameter: string }) => a.parameter.localeCompare(b.parameter);
+    expect(after.map(strip).sort(byKey)).toEqual(before.map(strip).sort(byKey));
+  });
+});
