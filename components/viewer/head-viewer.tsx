@@ -4,20 +4,35 @@
  * The 3D view of a head fit: a simplified head from primitives at zero, nominal (blue-grey) and
  * fitted (amber) axis lines, nominal and actual tool-tip paths over the probed poses, and the
  * measured tips as instanced spheres coloured by residual. Every error is drawn × k (slider, log
- * scale ×1 … ×10 000) and k is always printed on the picture. All geometry comes from
+ * scale ×1 … ×10 000) and k is always printed on the picture. When the job has a fit of the
+ * other phase (before / after adjustment), a checkbox overlays that fit's axes and tip path, dashed
+ * in a second colour, at the same k. "Save view for the report" sends the picture (with k and the
+ * legend printed into it) to POST /api/analyses/{id}/views. All geometry comes from
  * geometry/head-scene.ts; this file only draws. Z up (ISO 841 machine frame), lengths in mm.
  */
 import { Html, Line, OrbitControls } from "@react-three/drei";
 import { Canvas, useThree } from "@react-three/fiber";
+import { useRouter } from "next/navigation";
 import { useEffect, useLayoutEffect, useMemo, useRef, useState } from "react";
 import * as THREE from "three";
 import type { OrbitControls as OrbitControlsImpl } from "three-stdlib";
-import { headScene, residualColour, type HeadSceneData, type SceneLine } from "@/geometry/head-scene";
+import { headOverlayScene, headScene, residualColour, tipChangeUm, type HeadOverlayData, type HeadSceneData, type SceneLine } from "@/geometry/head-scene";
 import type { HeadConfig, HeadErrors, HeadPose, HeadVec3 } from "@/geometry";
+import { factorFromSlider, formatFactor } from "./factor";
 
 const NOMINAL = "#5f7d99";
 const FITTED = "#e08e0b";
+/** The other fit of a pre/post pair: a deep teal, dashed, so it differs from nominal by hue and pattern. */
+const OTHER = "#0f766e";
 const BACKGROUND = "#f3f4f6";
+
+/** One fit as the legend names it: its phase in words and the dataset it was fitted from. */
+export interface ViewerFitLabel {
+  analysisId: string;
+  /** "before adjustment" or "after adjustment". */
+  phaseText: string;
+  dataset: string;
+}
 
 export interface HeadViewerProps {
   config: HeadConfig;
@@ -26,16 +41,15 @@ export interface HeadViewerProps {
   residualsUm: HeadVec3[];
   /** Initial exaggeration factor. */
   initialFactor?: number;
+  /** The fit drawn (for the legend and for saving). */
+  shown?: ViewerFitLabel;
+  /** The fit of the other phase, if the job has one: its errors, drawn over the same poses. */
+  overlay?: (ViewerFitLabel & { errors: HeadErrors }) | null;
+  /** Whether this user may save the view for the report (application engineers). */
+  maySave?: boolean;
 }
 
-/** k from the slider position (log10 k, 0…4), rounded to two significant figures so the printed factor is the one used. */
-export function factorFromSlider(v: number): number {
-  return Number((10 ** v).toPrecision(2));
-}
-
-export function formatFactor(k: number): string {
-  return k.toLocaleString("en-GB").replace(/,/g, "\u2009");
-}
+export { factorFromSlider, formatFactor };
 
 function webglAvailable(): boolean {
   try {
@@ -46,13 +60,19 @@ function webglAvailable(): boolean {
   }
 }
 
-export function HeadViewer({ config, errors, poses, residualsUm, initialFactor = 300 }: HeadViewerProps) {
+export function HeadViewer({ config, errors, poses, residualsUm, initialFactor = 300, shown, overlay = null, maySave = false }: HeadViewerProps) {
   const [slider, setSlider] = useState(Math.log10(initialFactor));
   const [ready, setReady] = useState(false);
   const [webgl, setWebgl] = useState<boolean | null>(null);
+  const [showOverlay, setShowOverlay] = useState(false);
   const controls = useRef<OrbitControlsImpl | null>(null);
+  const canvasRef = useRef<HTMLCanvasElement | null>(null);
   const k = factorFromSlider(slider);
   const scene = useMemo(() => headScene(config, errors, poses, k, residualsUm), [config, errors, poses, k, residualsUm]);
+  const overlayErrors = overlay?.errors;
+  const other = useMemo(() => (overlayErrors ? headOverlayScene(config, overlayErrors, poses, k) : null), [config, overlayErrors, poses, k]);
+  const change = useMemo(() => (overlayErrors ? tipChangeUm(config, overlayErrors, errors, poses) : null), [config, overlayErrors, errors, poses]);
+  const drawOther = Boolean(overlay && showOverlay && other);
   const maxRes = useMemo(() => Math.max(1e-9, ...Array.from(scene.residualUm)), [scene.residualUm]);
   const L = config.pivotLengthMm;
   const maxTool = Math.max(0, ...poses.map((p) => p.toolMm ?? 0));
@@ -73,6 +93,7 @@ export function HeadViewer({ config, errors, poses, residualsUm, initialFactor =
               camera={{ position: [2.6 * (L + maxTool), -3.1 * (L + maxTool), 1.3 * (L + maxTool)], up: [0, 0, 1], fov: 36, near: 1, far: 20000 }}
               onCreated={({ gl }) => {
                 gl.setClearColor(BACKGROUND);
+                canvasRef.current = gl.domElement;
                 setReady(true);
               }}
               fallback={<NoWebGl />}
@@ -83,6 +104,7 @@ export function HeadViewer({ config, errors, poses, residualsUm, initialFactor =
               <HeadModel L={L} />
               <Axes scene={scene} L={L} config={config} />
               <Paths scene={scene} />
+              {drawOther && other ? <OtherFit other={other} L={L} /> : null}
               <MeasuredPoints scene={scene} maxRes={maxRes} radius={Math.max(1, 0.017 * L)} />
               <OrbitControls ref={controls} makeDefault target={[0, 0, -0.05 * (L + maxTool)]} enableDamping={false} />
             </Canvas>
@@ -93,9 +115,10 @@ export function HeadViewer({ config, errors, poses, residualsUm, initialFactor =
         {webgl ? (
           <>
             <p className="pointer-events-none absolute left-3 top-3 rounded bg-white/90 px-3 py-1.5 text-sm font-semibold text-graphite-900 shadow-sm" data-testid="factor-label">
-              Errors drawn <span className="num">×{formatFactor(k)}</span> — not to scale
+              Errors drawn <span className="num">×{formatFactor(k)}</span>
+              {drawOther ? " for both fits" : ""} — not to scale
             </p>
-            <Legend maxRes={maxRes} />
+            <Legend maxRes={maxRes} shown={shown} other={drawOther ? overlay : null} />
           </>
         ) : null}
       </div>
@@ -119,6 +142,20 @@ export function HeadViewer({ config, errors, poses, residualsUm, initialFactor =
           Reset view
         </button>
       </div>
+      {overlay ? (
+        <div className="flex flex-wrap items-center gap-x-4 gap-y-1 rounded-md border border-graphite-200 bg-graphite-50 px-3 py-2">
+          <label className="flex min-h-touch cursor-pointer items-center gap-3 text-sm font-medium text-graphite-800">
+            <input type="checkbox" checked={showOverlay} onChange={(e) => setShowOverlay(e.target.checked)} className="h-5 w-5 accent-[#0f766e]" />
+            Also draw the fit {overlay.phaseText} <span className="font-normal text-graphite-600">({overlay.dataset})</span>
+          </label>
+          {change ? (
+            <p className="text-xs text-graphite-600" data-testid="tip-change">
+              Between the two fits the modelled tip moves by up to <span className="num">{change.maxUm.toFixed(1)} µm</span> (RMS <span className="num">{change.rmsUm.toFixed(1)} µm</span>) over these poses, real size.
+            </p>
+          ) : null}
+        </div>
+      ) : null}
+      {maySave && shown && webgl ? <SaveView canvasRef={canvasRef} k={k} shown={shown} other={drawOther ? overlay : null} /> : null}
       <p className="text-xs text-graphite-600">Drag to turn, scroll or pinch to zoom, right-drag to move. Z is up; the head is drawn at zero on both axes.</p>
     </div>
   );
@@ -134,13 +171,13 @@ function NoWebGl() {
   );
 }
 
-function Legend({ maxRes }: { maxRes: number }) {
+function Legend({ maxRes, shown, other }: { maxRes: number; shown?: ViewerFitLabel; other: ViewerFitLabel | null }) {
   const stops = [0, 0.25, 0.5, 0.75, 1].map((f) => {
     const [r, g, b] = residualColour(f * maxRes, maxRes);
     return `rgb(${Math.round(r * 255)} ${Math.round(g * 255)} ${Math.round(b * 255)}) ${f * 100}%`;
   });
   return (
-    <div className="absolute bottom-3 right-3 w-64 space-y-2 rounded bg-white/95 p-3 text-xs text-graphite-800 shadow-sm" aria-label="Legend">
+    <div className={`absolute bottom-3 right-3 ${other ? "w-80" : "w-64"} space-y-2 rounded bg-white/95 p-3 text-xs text-graphite-800 shadow-sm`} aria-label="Legend">
       <p className="font-semibold">Measured points: residual |r|</p>
       <div className="h-3 rounded" style={{ background: `linear-gradient(to right, ${stops.join(", ")})` }} aria-hidden="true" />
       <div className="num flex justify-between">
@@ -153,8 +190,17 @@ function Legend({ maxRes }: { maxRes: number }) {
           <span className="inline-block h-0.5 w-6" style={{ background: NOMINAL }} aria-hidden="true" /> Nominal axes and tip path (dashed axes)
         </li>
         <li className="flex items-center gap-2">
-          <span className="inline-block h-1 w-6" style={{ background: FITTED }} aria-hidden="true" /> Fitted axes and actual tip path
+          <span className="inline-block h-1 w-6 shrink-0" style={{ background: FITTED }} aria-hidden="true" />
+          <span>Fitted axes and actual tip path{other && shown ? <>, {shown.phaseText} <span className="text-graphite-600">({shown.dataset})</span></> : null}</span>
         </li>
+        {other ? (
+          <li className="flex items-center gap-2" data-testid="legend-other">
+            <span className="inline-block h-1 w-6 shrink-0" style={{ backgroundImage: `repeating-linear-gradient(to right, ${OTHER} 0 4px, transparent 4px 7px)` }} aria-hidden="true" />
+            <span>
+              Dashed: fitted axes and tip path {other.phaseText} <span className="text-graphite-600">({other.dataset})</span>
+            </span>
+          </li>
+        ) : null}
       </ul>
     </div>
   );
@@ -272,5 +318,106 @@ function MeasuredPoints({ scene, maxRes, radius }: { scene: HeadSceneData; maxRe
       <sphereGeometry args={[radius, 10, 8]} />
       <meshStandardMaterial roughness={0.6} />
     </instancedMesh>
+  );
+}
+
+/** The other fit of the pre/post pair: dashed axis lines and tip path in the second colour. */
+function OtherFit({ other, L }: { other: HeadOverlayData; L: number }) {
+  const path = useMemo(() => {
+    const out: [number, number, number][] = [];
+    const a = other.actualPathMm;
+    for (let i = 0; i + 2 < a.length; i += 3) out.push([a[i]!, a[i + 1]!, a[i + 2]!]);
+    return out;
+  }, [other.actualPathMm]);
+  return (
+    <group>
+      <Line points={lineEnds(other.axes.primary, -0.5 * L, 1.55 * L)} color={OTHER} lineWidth={2.5} dashed dashSize={0.035 * L} gapSize={0.025 * L} />
+      <Line points={lineEnds(other.axes.secondary, -0.95 * L, 0.95 * L)} color={OTHER} lineWidth={2.5} dashed dashSize={0.035 * L} gapSize={0.025 * L} />
+      {path.length >= 2 ? <Line points={path} segments color={OTHER} lineWidth={1.5} dashed dashSize={0.02 * L} gapSize={0.015 * L} /> : null}
+    </group>
+  );
+}
+
+/**
+ * The picture as saved: the canvas, with the factor and the legend's words printed into it so the
+ * saved PNG cannot be mistaken for real size, whatever page it ends up on.
+ */
+async function viewPicture(canvas: HTMLCanvasElement, k: number, shown: ViewerFitLabel, other: ViewerFitLabel | null): Promise<Blob> {
+  const band = Math.round(canvas.height * 0.09) + (other ? 28 : 0);
+  const out = document.createElement("canvas");
+  out.width = canvas.width;
+  out.height = canvas.height + band;
+  const g = out.getContext("2d");
+  if (!g) throw new Error("This browser cannot make the picture (no 2D canvas).");
+  g.fillStyle = BACKGROUND;
+  g.fillRect(0, 0, out.width, out.height);
+  g.drawImage(canvas, 0, 0);
+  const px = Math.max(12, Math.round(canvas.width / 70));
+  g.font = `600 ${px}px sans-serif`;
+  const label = `Errors drawn ×${formatFactor(k)}${other ? " for both fits" : ""} — not to scale`;
+  const w = g.measureText(label).width;
+  g.fillStyle = "rgba(255,255,255,0.92)";
+  g.fillRect(px * 0.6, px * 0.6, w + px * 1.2, px * 1.9);
+  g.fillStyle = "#1d2125";
+  g.fillText(label, px * 1.2, px * 1.95);
+  g.fillStyle = "#ffffff";
+  g.fillRect(0, canvas.height, out.width, band);
+  g.font = `${Math.round(px * 0.85)}px sans-serif`;
+  const line = (y: number, colour: string, dashed: boolean, text: string) => {
+    g.strokeStyle = colour;
+    g.lineWidth = Math.max(2, px / 5);
+    g.setLineDash(dashed ? [px * 0.5, px * 0.35] : []);
+    g.beginPath();
+    g.moveTo(px, y);
+    g.lineTo(px * 3, y);
+    g.stroke();
+    g.fillStyle = "#2d3238";
+    g.fillText(text, px * 3.6, y + px * 0.3);
+  };
+  const y0 = canvas.height + px * 1.2;
+  line(y0, NOMINAL, true, "Nominal axes and tip path");
+  line(y0 + px * 1.4, FITTED, false, `Fitted axes and actual tip path, ${shown.phaseText} (${shown.dataset})`);
+  if (other) line(y0 + px * 2.8, OTHER, true, `Fitted axes and tip path ${other.phaseText} (${other.dataset})`);
+  return new Promise((resolve, reject) => out.toBlob((b) => (b ? resolve(b) : reject(new Error("The picture could not be made."))), "image/png"));
+}
+
+function SaveView({ canvasRef, k, shown, other }: { canvasRef: React.RefObject<HTMLCanvasElement | null>; k: number; shown: ViewerFitLabel; other: (ViewerFitLabel & { errors: HeadErrors }) | null }) {
+  const router = useRouter();
+  const [caption, setCaption] = useState("");
+  const [state, setState] = useState<{ kind: "idle" | "saving" | "saved" | "error"; message?: string }>({ kind: "idle" });
+  async function save() {
+    const canvas = canvasRef.current;
+    if (!canvas) return;
+    setState({ kind: "saving" });
+    try {
+      const blob = await viewPicture(canvas, k, shown, other);
+      const form = new FormData();
+      form.set("factor", String(k));
+      if (other) form.set("overlayAnalysisId", other.analysisId);
+      if (caption.trim()) form.set("caption", caption.trim());
+      form.set("file", blob, "view.png");
+      const res = await fetch(`/api/analyses/${shown.analysisId}/views`, { method: "POST", body: form });
+      const body = await res.json().catch(() => null);
+      if (!res.ok) throw new Error(body?.error?.message ?? `The server answered ${res.status}.`);
+      setState({ kind: "saved", message: `Saved at ×${formatFactor(k)}. It is listed under "Saved views" below.` });
+      setCaption("");
+      router.refresh();
+    } catch (e) {
+      setState({ kind: "error", message: e instanceof Error ? e.message : "The view could not be saved." });
+    }
+  }
+  return (
+    <div className="flex flex-wrap items-end gap-3 border-t border-graphite-100 pt-3">
+      <label className="flex min-w-[16rem] flex-1 flex-col gap-1 text-sm font-medium text-graphite-800">
+        Caption (optional)
+        <input type="text" value={caption} maxLength={200} onChange={(e) => setCaption(e.target.value)} placeholder="e.g. Tilt axis squareness before and after shimming" className="min-h-touch rounded-md border border-graphite-300 px-3 font-normal" />
+      </label>
+      <button type="button" onClick={save} disabled={state.kind === "saving"} className="min-h-touch rounded-md bg-accent-600 px-4 text-sm font-semibold text-white hover:bg-accent-700 disabled:opacity-60">
+        {state.kind === "saving" ? "Saving…" : "Save view for the report"}
+      </button>
+      <p role="status" className={`w-full text-sm ${state.kind === "error" ? "text-fail-700" : "text-graphite-700"}`}>
+        {state.message ?? "Saves the picture as shown, with the factor printed on it, for the acceptance report."}
+      </p>
+    </div>
   );
 }

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ApproveButton, RunFitButton } from "@/components/fit/fit-buttons";
 import { controlValues, parameterRows, signed, type ParameterLimit } from "@/lib/fit-display";
@@ -8,6 +9,7 @@ import { Card } from "@/components/ui/card";
 import { SafetyNote } from "@/components/ui/safety-note";
 import { HeadViewerLoader } from "@/components/viewer/head-viewer-loader";
 import { getApprovedAnalysis, headConfigOf, listJobAnalyses } from "@/db/queries/analyses";
+import { listJobViews } from "@/db/queries/analysis-views";
 import { listDatasets } from "@/db/queries/datasets";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
 import { getJobDetail } from "@/db/queries/jobs";
@@ -15,6 +17,7 @@ import type { HeadErrors, HeadPose } from "@/geometry";
 import { canTransition, headFitRefusal, STATUS_LABELS } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
+import { SavedViews } from "./saved-views";
 
 export const metadata: Metadata = { title: "Analysis" };
 type Props = { params: Promise<{ id: string }>; searchParams: Promise<{ analysis?: string }> };
@@ -25,12 +28,16 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
   const user = await requirePageUser(`/jobs/${id}/analysis`);
   const d = await getJobDetail(user, id);
   if (!d) notFound();
-  const [all, fits, approved, limits] = await Promise.all([listDatasets(user, id), listJobAnalyses(user, id), getApprovedAnalysis(user, id), parameterLimitsOfTemplate(d.job.templateId)]);
+  const [all, fits, approved, limits, views] = await Promise.all([listDatasets(user, id), listJobAnalyses(user, id), getApprovedAnalysis(user, id), parameterLimitsOfTemplate(d.job.templateId), listJobViews(user, id)]);
   const probes = (all ?? []).filter((x) => x.kind === "sphere_probe" && x.status === "stored");
   const list = fits ?? [];
   const shown = (wanted ? list.find((f) => f.analysis.id === wanted) : undefined) ?? (approved ? list.find((f) => f.analysis.id === approved.detail.analysis.id) : undefined) ?? list[0];
   const mayRun = headFitRefusal(user.role, d.job.status) === null;
   const config = headConfigOf(d.head);
+  // The pre/post overlay: the latest fit of a dataset of the other phase than the one shown.
+  const phaseOf = new Map((all ?? []).map((x) => [x.id, x.phase]));
+  const shownPhase = shown ? phaseOf.get(shown.analysis.datasetId) : undefined;
+  const other = shown && shownPhase ? list.find((f) => f.analysis.id !== shown.analysis.id && phaseOf.get(f.analysis.datasetId) !== undefined && phaseOf.get(f.analysis.datasetId) !== shownPhase) : undefined;
 
   return (
     <div className="space-y-6">
@@ -49,7 +56,19 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
                       <span className="num">{p.rows}</span> poses · {p.phase === "pre" ? "before adjustment" : "after adjustment"} · uploaded {formatDateTimeUtc(p.uploadedAt)}
                       {p.uploaderName ? ` by ${p.uploaderName}` : ""} · SHA-256 <span className="num">{p.sha256.slice(0, 12)}…</span>
                     </p>
-                    <p className="text-sm text-graphite-600">{fitted.length ? `${fitted.length} stored fit${fitted.length > 1 ? "s" : ""}, latest ${formatDateTimeUtc(fitted[0]!.analysis.createdAt)}` : "Not fitted yet"}</p>
+                    <p className="text-sm text-graphite-600">
+                      {fitted.length ? `${fitted.length} stored fit${fitted.length > 1 ? "s" : ""}, latest ${formatDateTimeUtc(fitted[0]!.analysis.createdAt)}` : "Not fitted yet"}
+                      {fitted.length && shown && fitted[0]!.analysis.id !== shown.analysis.id ? (
+                        <>
+                          {" · "}
+                          <Link href={`/jobs/${id}/analysis?analysis=${fitted[0]!.analysis.id}`} className="font-medium text-accent-700 underline-offset-2 hover:underline">
+                            Show this fit
+                          </Link>
+                        </>
+                      ) : fitted.length && shown ? (
+                        <span className="font-medium text-graphite-800"> · shown below</span>
+                      ) : null}
+                    </p>
                   </div>
                   {mayRun ? <RunFitButton jobId={id} datasetId={p.id} label={fitted.length ? "Run fit again" : "Run fit"} /> : null}
                 </li>
@@ -60,7 +79,9 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
         {!mayRun ? <p className="mt-3 text-sm text-graphite-600">{headFitRefusal(user.role, d.job.status)}</p> : null}
       </Card>
 
-      {shown ? <FitSection jobId={id} fitRow={shown} config={config} user={user} jobStatus={d.job.status} approved={approved} limits={limits} /> : null}
+      {shown ? <FitSection jobId={id} fitRow={shown} otherRow={other} phaseOf={phaseOf} config={config} user={user} jobStatus={d.job.status} approved={approved} limits={limits} /> : null}
+
+      {shown || views.length ? <SavedViews jobId={id} views={views} approvedAnalysisId={approved?.detail.analysis.id ?? null} /> : null}
     </div>
   );
 }
@@ -69,9 +90,13 @@ const VIEW_POSES = 10_000;
 
 type FitRow = NonNullable<Awaited<ReturnType<typeof listJobAnalyses>>>[number];
 
+const PHASE_TEXT = { pre: "before adjustment", post: "after adjustment" } as const;
+
 function FitSection({
   jobId,
   fitRow,
+  otherRow,
+  phaseOf,
   config,
   user,
   jobStatus,
@@ -81,6 +106,8 @@ function FitSection({
   jobId: string;
   limits: readonly ParameterLimit[];
   fitRow: FitRow;
+  otherRow: FitRow | undefined;
+  phaseOf: Map<string, "pre" | "post">;
   config: ReturnType<typeof headConfigOf>;
   user: { role: Parameters<typeof canTransition>[0] };
   jobStatus: Parameters<typeof canTransition>[1];
@@ -97,6 +124,15 @@ function FitSection({
   const poses: HeadPose[] = viewIdx.map((i) => ({ primaryDeg: r.poses.primary_deg[i]!, secondaryDeg: r.poses.secondary_deg[i]!, toolMm: r.poses.tool_mm[i]! }));
   const viewResiduals = viewIdx.map((i) => r.poses.residual_um[i]!);
   const isApproved = approved?.detail.analysis.id === a.id;
+  const shownLabel = { analysisId: a.id, phaseText: PHASE_TEXT[phaseOf.get(a.datasetId) ?? "pre"], dataset: fitRow.datasetFilename };
+  const overlay = otherRow
+    ? {
+        analysisId: otherRow.analysis.id,
+        phaseText: PHASE_TEXT[phaseOf.get(otherRow.analysis.datasetId) ?? "pre"],
+        dataset: otherRow.datasetFilename,
+        errors: Object.fromEntries(otherRow.analysis.result.fit.parameters.filter((p) => p.U !== null).map((p) => [p.key, p.value])) as HeadErrors,
+      }
+    : null;
   const refusal =
     user.role !== "engineer"
       ? "Only an application engineer approves a head's parameters."
@@ -116,13 +152,13 @@ function FitSection({
             Head fit {isApproved ? <span className="ml-2 rounded bg-pass-50 px-2 py-0.5 text-sm font-semibold text-pass-700">✓ Approved</span> : null}
           </h2>
           <p className="text-sm text-graphite-600">
-            {fitRow.datasetFilename} · run {formatDateTimeUtc(a.createdAt)}
+            {fitRow.datasetFilename} ({shownLabel.phaseText}) · run {formatDateTimeUtc(a.createdAt)}
             {fitRow.createdByName ? ` by ${fitRow.createdByName}` : ""} · computation {a.geometryVersion} · input <span className="num">{a.inputSha256.slice(0, 12)}…</span>
           </p>
         </div>
         <div className="grid gap-6 xl:grid-cols-[1fr_23rem]">
           <Card title="Pivot and squareness in 3D">
-            <HeadViewerLoader config={config} errors={errors} poses={poses} residualsUm={viewResiduals} />
+            <HeadViewerLoader config={config} errors={errors} poses={poses} residualsUm={viewResiduals} shown={shownLabel} overlay={overlay} maySave={user.role === "engineer"} />
             {step > 1 ? <p className="mt-2 text-xs text-graphite-600">Showing every {step}th pose: {poses.length} of {r.poses.row.length}.</p> : null}
           </Card>
           <Card title="Fit quality">
