@@ -1,9 +1,12 @@
 import "server-only";
-import { and, asc, eq } from "drizzle-orm";
+import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { auditEvents, customers, heads, machines, sites } from "@/db/schema";
-import { canReadRegister, type Actor } from "@/lib/auth/roles";
+import type { StoredHeadFit } from "@/db/queries/analyses";
+import { jobAccessCondition } from "@/db/queries/jobs";
+import { analyses, auditEvents, customers, datasets, heads, jobs, machines, sites } from "@/db/schema";
+import type { HeadFitJson } from "@/geometry";
+import { canReadRegister, type Actor, type JobStatus } from "@/lib/auth/roles";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 
 /** One head with where it is mounted now and its mounting history (from the audit trail). */
@@ -40,4 +43,109 @@ export async function mountHead(actor: Actor, headId: string, machineId: string 
     await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: machineId ? "head.mounted" : "head.removed", entityType: "head", entityId: headId, oldValues: { machineId: h.machineId, machine: old?.name ?? null }, newValues: { machineId, machine: label } });
   });
   return { changed: true };
+}
+
+/** One job on a head with the fit that stands for it: the approved one, or else the latest. */
+export interface HeadHistoryJob {
+  readonly id: string;
+  readonly reference: string;
+  readonly title: string;
+  readonly kind: "installation" | "reverification" | "after_crash";
+  readonly status: JobStatus;
+  /** When the work was (or is) scheduled, else when the job was created. */
+  readonly date: Date;
+  readonly fit: {
+    readonly analysisId: string;
+    readonly approved: boolean;
+    readonly createdAt: Date;
+    readonly datasetFilename: string;
+    readonly phase: "pre" | "post";
+    readonly geometryVersion: string;
+    readonly fit: HeadFitJson;
+  } | null;
+}
+
+/**
+ * The fitted parameters of every job on a head, oldest first: for each job its approved fit (the
+ * analysis named by its latest "analysis.approved" audit event) or, if none is approved, its
+ * latest fit. Who may read it: the administrator and engineers (who keep and read the heads
+ * register) see every job on the head; a customer sees the head only through their own
+ * company's jobs on it (404 when there is none, as for a head that does not exist); installers
+ * and inspectors, who do not read the heads register, are refused (403).
+ */
+export async function getHeadFitHistory(actor: Actor, headId: string) {
+  const staff = canReadRegister(actor.role, "heads");
+  if (!staff && actor.role !== "customer") throw forbidden("The history of a head is read by engineers, the office and the head's owner.");
+  if (!/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(headId)) return null;
+  const [head] = await db.select().from(heads).where(eq(heads.id, headId));
+  if (!head) return null;
+  const jobRows = await db
+    .select({ id: jobs.id, reference: jobs.reference, title: jobs.title, kind: jobs.kind, status: jobs.status, scheduledFor: jobs.scheduledFor, createdAt: jobs.createdAt })
+    .from(jobs)
+    .where(and(eq(jobs.headId, headId), jobAccessCondition(actor)));
+  if (!staff && jobRows.length === 0) return null;
+  const ids = jobRows.map((j) => j.id);
+  const [fits, approvals] = ids.length
+    ? await Promise.all([
+        db
+          .select({ id: analyses.id, jobId: analyses.jobId, createdAt: analyses.createdAt, result: analyses.result, geometryVersion: analyses.geometryVersion, datasetFilename: datasets.originalFilename, phase: datasets.phase })
+          .from(analyses)
+          .innerJoin(datasets, eq(datasets.id, analyses.datasetId))
+          .where(inArray(analyses.jobId, ids))
+          .orderBy(desc(analyses.createdAt), desc(analyses.id)),
+        db
+          .select({ jobId: auditEvents.jobId, analysisId: auditEvents.entityId })
+          .from(auditEvents)
+          .where(and(inArray(auditEvents.jobId, ids), eq(auditEvents.action, "analysis.approved")))
+          .orderBy(desc(auditEvents.id)),
+      ])
+    : [[], []];
+  const approvedOf = new Map<string, string>();
+  for (const a of approvals) if (a.jobId && !approvedOf.has(a.jobId)) approvedOf.set(a.jobId, a.analysisId);
+  const history: HeadHistoryJob[] = jobRows
+    .map((j) => {
+      const approvedId = approvedOf.get(j.id);
+      const own = fits.filter((f) => f.jobId === j.id);
+      const f = (approvedId ? own.find((x) => x.id === approvedId) : undefined) ?? own[0];
+      return {
+        id: j.id,
+        reference: j.reference,
+        title: j.title,
+        kind: j.kind,
+        status: j.status,
+        date: j.scheduledFor ?? j.createdAt,
+        fit: f ? { analysisId: f.id, approved: f.id === approvedId, createdAt: f.createdAt, datasetFilename: f.datasetFilename, phase: f.phase, geometryVersion: f.geometryVersion, fit: (f.result as StoredHeadFit).fit } : null,
+      };
+    })
+    .sort((a, b) => a.date.getTime() - b.date.getTime() || a.reference.localeCompare(b.reference));
+  return { head, jobs: history };
+}
+export type HeadFitHistory = NonNullable<Awaited<ReturnType<typeof getHeadFitHistory>>>;
+
+/** The API's JSON of a head's history: identification and per job the fitted parameters (geometry's JSON). */
+export function headHistoryJson(h: HeadFitHistory) {
+  const { head } = h;
+  return {
+    head: { id: head.id, serial: head.serial, maker: head.maker, model: head.model, primaryAxis: head.primaryAxis, secondaryAxis: head.secondaryAxis, nominalPivotLengthMm: head.nominalPivotLengthMm },
+    jobs: h.jobs.map((j) => ({
+      id: j.id,
+      reference: j.reference,
+      title: j.title,
+      kind: j.kind,
+      status: j.status,
+      date: j.date,
+      fit: j.fit
+        ? {
+            analysisId: j.fit.analysisId,
+            approved: j.fit.approved,
+            createdAt: j.fit.createdAt,
+            datasetFilename: j.fit.datasetFilename,
+            phase: j.fit.phase,
+            geometryVersion: j.fit.geometryVersion,
+            rms_um: j.fit.fit.rms_um,
+            parameters: j.fit.fit.parameters.map((p) => ({ key: p.key, iso: p.iso, value: p.value, U: p.U, unit: p.unit, identifiable: p.identifiable })),
+          }
+        : null,
+    })),
+  };
 }

@@ -112,6 +112,102 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     await p.close();
   });
 
+  it("overlays the fit before adjustment on TR-2026-0052 (the drawn pixels change) and saves the view, which then appears on the page", async () => {
+    await ctx.clearCookies();
+    const p = await ctx.newPage();
+    await signIn(p, "engineer@halvard.example");
+    await p.waitForURL("**/jobs");
+    await openAnalysis(p, "TR-2026-0052");
+    await waitForPicture(p);
+    const plain = await canvasPixels(p);
+    expect(await p.getByTestId("legend-other").count()).toBe(0);
+    const toggle = p.getByLabel(/Also draw the fit before adjustment/);
+    expect(await toggle.isChecked()).toBe(false);
+    await toggle.check();
+    // The other fit's dashed axes and tip path are drawn: more pixels differ from the background, and the picture changes.
+    await expect.poll(async () => (await canvasPixels(p)).digest, { timeout: 10_000 }).not.toBe(plain.digest);
+    const overlaid = await canvasPixels(p);
+    expect(overlaid.drawn).toBeGreaterThan(plain.drawn);
+    const legend = await p.getByTestId("legend-other").innerText();
+    expect(legend).toContain("before adjustment");
+    expect(legend).toContain("TR-2026-0052 sphere probe (demo, synthetic).csv");
+    expect(await p.getByRole("group", { name: "Legend" }).or(p.locator('[aria-label="Legend"]')).innerText()).toContain("after adjustment");
+    expect(await p.getByTestId("factor-label").innerText()).toMatch(/×300 for both fits/);
+    expect(await p.getByTestId("tip-change").innerText()).toMatch(/up to \d+\.\d µm/);
+    await viewerShot(p, "analysis-3d-overlay");
+    // Unticking takes the overlay away again.
+    await toggle.uncheck();
+    await expect.poll(async () => (await canvasPixels(p)).digest, { timeout: 10_000 }).toBe(plain.digest);
+    await toggle.check();
+    await expect.poll(async () => (await canvasPixels(p)).digest, { timeout: 10_000 }).toBe(overlaid.digest);
+
+    // Save the view: it is stored through the API and listed under "Saved views" with its factor and author.
+    const caption = `Tilt axis before and after shimming ${Date.now().toString(36)}`;
+    await p.getByLabel("Caption (optional)").fill(caption);
+    const saved = p.waitForResponse((r) => /\/api\/analyses\/[0-9a-f-]+\/views$/.test(r.url()) && r.request().method() === "POST");
+    await p.getByRole("button", { name: "Save view for the report" }).click();
+    const res = await saved;
+    expect(res.status()).toBe(201);
+    const view = (await res.json()).view as { id: string; widthPx: number; heightPx: number; factor: number; overlayAnalysisId: string | null };
+    expect(view.factor).toBe(300);
+    expect(view.overlayAnalysisId).not.toBeNull();
+    const canvasSize = await p.evaluate(() => {
+      const c = document.querySelector<HTMLCanvasElement>('[data-testid="head-viewer"] canvas')!;
+      return { w: c.width, h: c.height };
+    });
+    // The saved picture is the canvas plus a legend band underneath.
+    expect(view.widthPx).toBe(canvasSize.w);
+    expect(view.heightPx).toBeGreaterThan(canvasSize.h);
+    const card = p.locator(`[data-view-id="${view.id}"]`);
+    await card.waitFor({ timeout: 15_000 });
+    expect(await card.innerText()).toContain(caption);
+    expect(await card.innerText()).toMatch(/×300/);
+    expect(await card.innerText()).toContain("Emil Haraldsen");
+    // The thumbnail (lazy) loads from the image route once it is in view.
+    await card.scrollIntoViewIfNeeded();
+    await expect.poll(() => card.locator("img").evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth), { timeout: 10_000 }).toBe(view.widthPx);
+    const img = await p.request.get(`/api/analysis-views/${view.id}/image`);
+    expect(img.headers()["content-type"]).toBe("image/png");
+    expect((await img.body()).subarray(1, 4).toString("latin1")).toBe("PNG");
+    await p.getByRole("heading", { name: "Saved views" }).scrollIntoViewIfNeeded();
+    await p.screenshot({ path: screenshotPath("analysis-saved-views") });
+    await p.close();
+  });
+
+  it("the head's page shows every job's fitted parameters side by side and their trend", async () => {
+    await ctx.clearCookies();
+    const p = await ctx.newPage();
+    await signIn(p, "engineer@halvard.example");
+    await p.waitForURL("**/jobs");
+    await p.getByRole("link", { name: "Heads" }).first().click();
+    await p.getByRole("link", { name: "TH-2241" }).click();
+    const table = p.getByRole("table", { name: "Fitted parameters by job" });
+    await table.waitFor();
+    const heads = await table.locator("thead th[data-job]").evaluateAll((ths) => ths.map((t) => t.getAttribute("data-job")));
+    for (const ref of ["TR-2026-0041", "TR-2026-0052", "TR-2026-0057"]) expect(heads).toContain(ref);
+    const text = await table.innerText();
+    expect(text).toContain("✓ approved fit");
+    expect(text).toContain("latest fit, not approved");
+    expect(text).toContain("no fit yet");
+    // The values are the history API's (the stored fits), rounded only for display.
+    const headId = p.url().split("/").pop()!;
+    const api = (await (await p.request.get(`/api/heads/${headId}/history`)).json()) as { jobs: { reference: string; fit: { parameters: { key: string; value: number; U: number | null }[] } | null }[] };
+    const j41 = api.jobs.find((j) => j.reference === "TR-2026-0041")!;
+    const col = heads.indexOf("TR-2026-0041");
+    const pivot = j41.fit!.parameters.find((q) => q.key === "pivot_length_error_um")!;
+    const cell = table.locator('tr[data-key="pivot_length_error_um"] td').nth(col);
+    expect(Number(await cell.getAttribute("data-value"))).toBe(pivot.value);
+    expect((await cell.innerText()).replace("−", "-")).toContain(`${pivot.value >= 0 ? "+" : "-"}${Math.abs(pivot.value).toFixed(2)} ± ${pivot.U!.toFixed(2)} µm`);
+    // The trend: one panel per parameter the fits determined, each an SVG with a title naming it.
+    const panels = p.getByTestId("trend-panel");
+    expect(await panels.count()).toBeGreaterThanOrEqual(5);
+    expect(await p.getByRole("img", { name: /ΔL: Pivot length error/ }).count()).toBe(1);
+    expect(await panels.first().locator("circle").count()).toBeGreaterThanOrEqual(2);
+    await p.evaluate(() => window.scrollTo(0, 0));
+    await p.screenshot({ path: screenshotPath("head-history"), fullPage: true });
+    await p.close();
+  });
+
   it("on a job the office moves to review through the checklist page, the engineer fits, is refused while measuring, then approves", async () => {
     // The seeded draft TR-2026-0057 (same head TH-2241): the administrator starts measuring on the
     // checklist page, as the office would for an unassigned job.

@@ -45,6 +45,10 @@ const COVERED = new Set([
   // tests/integration/analyses-access.test.ts
   "app/api/datasets/[id]/analyses/route.ts",
   "app/api/analyses/[id]/route.ts",
+  // tests/integration/views-history-access.test.ts
+  "app/api/analyses/[id]/views/route.ts",
+  "app/api/analysis-views/[id]/image/route.ts",
+  "app/api/heads/[id]/history/route.ts",
   // public, static: the load benchmark's ceiling
   "app/api/ping/route.ts",
 ]);

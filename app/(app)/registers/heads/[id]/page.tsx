@@ -3,11 +3,12 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { MountHeadForm } from "@/components/registers/mount-head-form";
 import { Card, Facts } from "@/components/ui/card";
-import { getHeadWithHistory } from "@/db/queries/heads-admin";
+import { getHeadFitHistory, getHeadWithHistory } from "@/db/queries/heads-admin";
 import { listMachines } from "@/db/queries/registers";
 import { canReadRegister } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
+import { FitHistory } from "./fit-history";
 
 export const metadata: Metadata = { title: "Head" };
 
@@ -17,8 +18,8 @@ export default async function HeadPage({ params }: Props) {
   const { id } = await params;
   const user = await requirePageUser(`/registers/heads/${id}`);
   if (!canReadRegister(user.role, "heads")) notFound();
-  const h = await getHeadWithHistory(user, id);
-  if (!h) notFound();
+  const [h, fits] = await Promise.all([getHeadWithHistory(user, id), getHeadFitHistory(user, id)]);
+  if (!h || !fits) notFound();
   const machines = user.role === "admin" ? await listMachines(user) : [];
   const { head } = h;
   return (
@@ -62,6 +63,7 @@ export default async function HeadPage({ params }: Props) {
           ) : null}
         </Card>
       </div>
+      <FitHistory history={fits} />
     </div>
   );
 }
