@@ -1,22 +1,21 @@
 /**
  * The one place that reads the session. The token only says who signed in; role, company and
- * whether the account is still enabled are read fresh from the database on every request.
+ * whether the account is still enabled (and the session not revoked) are read fresh from the
+ * database on every request.
  */
 import "server-only";
-import { getServerSession } from "next-auth";
 import { cache } from "react";
 import { redirect } from "next/navigation";
 import { getActor } from "@/db/queries/users";
 import { forbidden, unauthorized } from "@/lib/errors";
-import { authOptions } from "./options";
 import type { Actor, Role } from "./roles";
+import { readSessionIdentity } from "./session-token";
 
 /** Read once per request (layouts and pages share it through React's request cache). */
 export const getCurrentUser = cache(async (): Promise<Actor | null> => {
-  const session = await getServerSession(authOptions);
-  const id = session?.user?.id;
-  if (!id) return null;
-  return getActor(id, session.user.signedInAt ?? 0);
+  const identity = await readSessionIdentity();
+  if (!identity) return null;
+  return getActor(identity.id, identity.signedInAt);
 });
 
 /** For route handlers and actions: throws 401 when nobody is signed in. */

@@ -5,11 +5,12 @@ import { afterAll, beforeAll, vi } from "vitest";
 
 const state = globalThis as unknown as { __testSessionUserId?: string | null; __testSignedInAt?: number };
 
-vi.mock("next-auth", async (importOriginal) => {
-  const actual = await importOriginal<typeof import("next-auth")>();
+// The cookie decoding itself is checked in tests/unit/session-token.test.ts against next-auth's encoder.
+vi.mock("@/lib/auth/session-token", async (importOriginal) => {
+  const actual = await importOriginal<typeof import("@/lib/auth/session-token")>();
   return {
     ...actual,
-    getServerSession: vi.fn(async () => (state.__testSessionUserId ? { user: { id: state.__testSessionUserId, signedInAt: state.__testSignedInAt ?? Date.now() } } : null)),
+    readSessionIdentity: vi.fn(async () => (state.__testSessionUserId ? { id: state.__testSessionUserId, signedInAt: state.__testSignedInAt ?? Date.now() } : null)),
   };
 });
 
