@@ -1,10 +1,11 @@
 /**
  * The route-handler wrapper: every API handler reads as steps and throws; this maps what it
- * throws to the JSON error shape of the API, `{ error: { code, message, issues? } }`.
+ * throws to the JSON error shape of the API, `{ error: { code, message, issues? } }`. A database
+ * that is down or restarting answers 503 `unavailable`; anything unexpected 500, never a stack.
  */
 import "server-only";
 import { ZodError } from "zod";
-import { AppError } from "./errors";
+import { AppError, isDatabaseUnavailable, unavailable } from "./errors";
 
 type Handler<C> = (req: Request, ctx: C) => Promise<Response>;
 
@@ -23,7 +24,20 @@ export function route<C = unknown>(fn: Handler<C>): Handler<C> {
   };
 }
 
+/** The innermost cause's first line (drizzle's own message quotes the SQL). */
+function rootMessage(err: unknown): string {
+  let e = err;
+  while (e instanceof Error && e.cause instanceof Error) e = e.cause;
+  return (e instanceof Error ? e.message : String(e)).split("\n")[0]!.slice(0, 200);
+}
+
 export function errorResponse(err: unknown): Response {
+  if (!(err instanceof AppError) && isDatabaseUnavailable(err)) {
+    // The database is down or restarting: a short generic answer the client may retry, no detail.
+    console.error("[api] database or storage unavailable:", rootMessage(err));
+    const e = unavailable();
+    return Response.json({ error: { code: e.code, message: e.message } }, { status: 503, headers: { "Cache-Control": "no-store", "X-Content-Type-Options": "nosniff", "Retry-After": "2" } });
+  }
   if (err instanceof AppError) {
     const body = { error: { code: err.code, message: err.message, ...(err.issues ? { issues: err.issues } : {}) } };
     return Response.json(body, { status: err.status, headers: { "Cache-Control": "no-store", "X-Content-Type-Options": "nosniff" } });
