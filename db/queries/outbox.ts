@@ -5,6 +5,7 @@ import { db } from "@/db";
 import { outbox } from "@/db/schema";
 import type * as schema from "@/db/schema";
 import type { Actor } from "@/lib/auth/roles";
+import { env } from "@/lib/env";
 import { forbidden } from "@/lib/errors";
 
 type Executor = NodePgDatabase<typeof schema>;
@@ -28,9 +29,9 @@ export async function enqueueMail(tx: Executor, m: MailInput): Promise<void> {
 /** How long a claimed row stays invisible to other workers while it is being sent. */
 export const CLAIM_LEASE_MS = 5 * 60_000;
 export const MAX_ATTEMPTS = 6;
-/** Backoff after the n-th failed attempt: 30 s · 2^(n−1), at most one hour. */
-export function retryDelayMs(attempts: number): number {
-  return Math.min(30_000 * 2 ** Math.max(0, attempts - 1), 3_600_000);
+/** Backoff after the n-th failed attempt: base · 2^(n−1) (base OUTBOX_RETRY_BASE_MS, 30 s by default), at most one hour. */
+export function retryDelayMs(attempts: number, baseMs = env.OUTBOX_RETRY_BASE_MS): number {
+  return Math.min(baseMs * 2 ** Math.max(0, attempts - 1), 3_600_000);
 }
 
 /**

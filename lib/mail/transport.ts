@@ -4,12 +4,13 @@
  */
 import "server-only";
 import nodemailer, { type Transporter } from "nodemailer";
+import { env } from "@/lib/env";
 
 export const MAIL_FROM = process.env.MAIL_FROM ?? "Trammel <noreply@halvard.example>";
 
 let cached: Transporter | undefined;
 
 export function mailTransport(): Transporter {
-  cached ??= nodemailer.createTransport(process.env.SMTP_URL ?? "smtp://127.0.0.1:2525", { from: MAIL_FROM });
+  cached ??= nodemailer.createTransport(env.SMTP_URL, { from: MAIL_FROM });
   return cached;
 }

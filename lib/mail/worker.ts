@@ -3,9 +3,13 @@
  * each through SMTP and records the outcome. Safe to run in several processes at once.
  */
 import "server-only";
+import { hostname } from "node:os";
 import type { Transporter } from "nodemailer";
 import { claimDueMessages, markFailed, markSent } from "@/db/queries/outbox";
 import { MAIL_FROM, mailTransport } from "./transport";
+
+/** Which process sent a message (host/pid), so a duplicate could be traced to its sender. */
+const SENDER = `${hostname()}/${process.pid}`;
 
 export interface OutboxRunResult {
   claimed: number;
@@ -20,7 +24,7 @@ export async function processOutbox(options: { transport?: Transporter; limit?: 
   let failed = 0;
   for (const m of rows) {
     try {
-      await transport.sendMail({ from: MAIL_FROM, to: m.toAddress, subject: m.subject, text: m.textBody, ...(m.htmlBody ? { html: m.htmlBody } : {}), headers: { "X-Trammel-Outbox-Id": m.id } });
+      await transport.sendMail({ from: MAIL_FROM, to: m.toAddress, subject: m.subject, text: m.textBody, ...(m.htmlBody ? { html: m.htmlBody } : {}), headers: { "X-Trammel-Outbox-Id": m.id, "X-Trammel-Sender": SENDER } });
       await markSent(m.id);
       sent++;
     } catch (err) {
