@@ -73,22 +73,22 @@ const PARAMETER_DECISION_TEXT: Record<StepDecision, string> = {
   not_measured: "Not determined",
 };
 
-/** "± 40.0 µm" for a symmetric limit, "−5.0 … +10.0 µm", "≤ +10.0 µm" or "≥ −5.0 µm" otherwise. */
-export function limitText(lower: number | null, upper: number | null, unit: "um" | "arcsec"): string | null {
-  const u = UNIT_TEXT[unit];
-  const d = 1;
-  if (lower == null && upper == null) return null;
-  if (lower != null && upper != null && Math.abs(lower + upper) <= 1e-12 * Math.max(1, Math.abs(upper))) return `± ${upper.toFixed(d)} ${u}`;
-  if (lower != null && upper != null) return `${signed(lower, d)} … ${signed(upper, d)} ${u}`;
-  if (upper != null) return `≤ ${signed(upper, d)} ${u}`;
-  return `≥ ${signed(lower as number, d)} ${u}`;
-}
-
 /** Signed, fixed decimals, with a real minus sign. */
 export function signed(v: number, digits: number): string {
   const s = Math.abs(v).toFixed(digits);
   if (Number(s) === 0) return s;
   return `${v < 0 ? "−" : "+"}${s}`;
+}
+
+/** "± 40.0 µm" (or "± 20.0″") for a symmetric limit, "−5.0 … +10.0 µm", "≤ +10.0 µm" or "≥ −5.0 µm" otherwise. */
+export function limitText(lower: number | null, upper: number | null, unit: "um" | "arcsec"): string | null {
+  const d = 1;
+  const withUnit = (t: string) => (unit === "arcsec" ? `${t}″` : `${t} µm`);
+  if (lower == null && upper == null) return null;
+  if (lower != null && upper != null && Math.abs(lower + upper) <= 1e-12 * Math.max(1, Math.abs(upper))) return withUnit(`± ${upper.toFixed(d)}`);
+  if (lower != null && upper != null) return withUnit(`${signed(lower, d)} … ${signed(upper, d)}`);
+  if (upper != null) return withUnit(`≤ ${signed(upper, d)}`);
+  return withUnit(`≥ ${signed(lower as number, d)}`);
 }
 
 /**

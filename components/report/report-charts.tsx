@@ -27,7 +27,7 @@ export function ReportFigures({ data }: { data: ReportData }) {
       {data.figures.length === 0 && data.parameters.length > 0 ? <p className="text-sm text-graphite-600">No picture of the 3D view was saved for this report.</p> : null}
       {charts.readings?.length ? (
         <figure>
-          <LimitRows rows={readingRows(charts.readings)} title="Readings before and after adjustment" legend="Hollow ring: before adjustment; filled dot: after; green lines: the limits, shaded between. Each row has its own scale; lengths in µm, angles in arc seconds." />
+          <LimitRows rows={readingRows(charts.readings)} title="Readings before and after adjustment" legend="Hollow ring: before adjustment; filled dot: after; green lines: the limits, shaded between. Each row has its own scale; lengths in mm, angles in arc seconds, as in the readings table." />
           {caption("Checklist readings before and after adjustment against their limits.")}
         </figure>
       ) : null}

@@ -102,7 +102,7 @@ function signatureLine(s: { signerName: string; signerRole: string; meaning: Sig
  * The checklist readings for the report: the comparison the installer and reviewers saw (latest
  * current reading of each step and phase, judged under the step's decision rule with U from the
  * instrument), formatted in metric units; and the same numbers for the before/after chart
- * (lengths in µm, angles in arc seconds).
+ * (lengths in mm, angles in arc seconds, as the table).
  */
 async function reportReadings(actor: Actor, jobId: string): Promise<{ rows: ReportData["readings"]; chart: NonNullable<ReportCharts["readings"]> }> {
   const c = await getComparison(actor, jobId);
@@ -117,11 +117,9 @@ async function reportReadings(actor: Actor, jobId: string): Promise<{ rows: Repo
     decision: r.status === "no_limit" ? ("recorded" as const) : r.status,
     source: r.limitSource.replace("_", " "),
   }));
-  const k = (kind: string) => (kind === "length" ? 1000 : 1);
-  const scaled = (v: number | null | undefined, kind: string) => (v == null ? null : v * k(kind));
   const chart = measured
     .filter((r) => r.lowerLimit != null || r.upperLimit != null)
-    .map((r) => ({ step: r.title, lower: scaled(r.lowerLimit, r.quantityKind), upper: scaled(r.upperLimit, r.quantityKind), pre: scaled(r.pre?.value, r.quantityKind), post: scaled(r.post?.value, r.quantityKind), unit: r.quantityKind === "length" ? "µm" : "″" }));
+    .map((r) => ({ step: r.title, lower: r.lowerLimit, upper: r.upperLimit, pre: r.pre?.value ?? null, post: r.post?.value ?? null, unit: r.quantityKind === "length" ? "mm" : "″", digits: r.quantityKind === "length" ? 4 : 1 }));
   return { rows, chart };
 }
 
@@ -202,12 +200,13 @@ async function reportParameters(actor: Actor, d: JobDetail): Promise<{ rows: Rep
       return { symbol: p.iso, value: p.value, U, lower: lim.lowerLimit, upper: lim.upperLimit, unit: p.unit === "um" ? "µm" : "″", decision: decisionOf(p.decision) };
     });
   const residuals = { ...residualChartValues(result.poses.residual_um.map((r) => Math.max(Math.abs(r[0]), Math.abs(r[1]), Math.abs(r[2])))), totalPoses: result.poses.row.length, sUm: result.s_um };
-  const judgedCount = judged.filter((p) => p.decision !== "no_limit").length;
+  const judgedCount = judged.filter((p) => p.decision !== "no_limit" && p.decision !== "not_measured").length;
+  const undetermined = judged.filter((p) => p.decision === "not_measured").length;
   return {
     rows,
     analysisId: approved.detail.analysis.id,
     charts: { ...(chartParameters.length ? { parameters: chartParameters } : {}), residuals },
-    note: `Head parameters from the fit approved by ${approved.approvedBy} on ${formatDateTimeUtc(approved.approvedAt)}: residual RMS ${fit.rms_um.toFixed(2)} µm, max ${fit.max_um.toFixed(2)} µm; ${judgedCount ? `${judgedCount} of ${judged.length} parameters judged against the procedure's limits` : "the procedure sets no limits for them, so they are recorded"}.`,
+    note: `Head parameters from the fit approved by ${approved.approvedBy} on ${formatDateTimeUtc(approved.approvedAt)}: residual RMS ${fit.rms_um.toFixed(2)} µm, max ${fit.max_um.toFixed(2)} µm; ${judgedCount ? `${judgedCount} of ${judged.length} parameters judged against the procedure's limits` : "the procedure sets no limits for them, so they are recorded"}${undetermined ? `; ${undetermined} could not be determined from this data and ${undetermined === 1 ? "is" : "are"} not judged` : ""}.`,
   };
 }
 

@@ -36,7 +36,10 @@ export function rowDomain(row: Pick<LimitRow, "lower" | "upper" | "marks">): { f
 }
 
 const fmt = (v: number, d = 1) => `${v < 0 ? "−" : v > 0 ? "+" : ""}${Math.abs(v).toFixed(d)}`;
-const limitsText = (lo: number | null, hi: number | null, unit: string) => (lo != null && hi != null ? `${fmt(lo)} … ${fmt(hi)} ${unit}` : hi != null ? `≤ ${fmt(hi)} ${unit}` : `≥ ${fmt(lo ?? 0)} ${unit}`);
+/** A value with its unit: arc seconds sit on the number (+5.2″), other units after a space. */
+const withUnit = (text: string, unit: string) => (unit === "″" ? `${text}″` : `${text} ${unit}`);
+const limitsText = (lo: number | null, hi: number | null, unit: string, d = 1) =>
+  withUnit(lo != null && hi != null ? `${fmt(lo, d)} … ${fmt(hi, d)}` : hi != null ? `≤ ${fmt(hi, d)}` : `≥ ${fmt(lo ?? 0, d)}`, unit);
 
 /** The before/after readings as limit rows. */
 export function readingRows(readings: NonNullable<ReportCharts["readings"]>): LimitRow[] {
@@ -46,7 +49,7 @@ export function readingRows(readings: NonNullable<ReportCharts["readings"]>): Li
     upper: r.upper,
     unit: r.unit,
     marks: [...(r.pre != null ? [{ value: r.pre, kind: "before" as const }] : []), ...(r.post != null ? [{ value: r.post, kind: "after" as const }] : [])],
-    note: `${r.pre != null ? `before ${fmt(r.pre)}` : "no before"} → ${r.post != null ? `after ${fmt(r.post)}` : "no after"} ${r.unit}; limits ${limitsText(r.lower, r.upper, r.unit)}`,
+    note: `${r.pre != null ? `before ${withUnit(fmt(r.pre, r.digits ?? 1), r.unit)}` : "no before"} → ${r.post != null ? `after ${withUnit(fmt(r.post, r.digits ?? 1), r.unit)}` : "no after"}; limits ${limitsText(r.lower, r.upper, r.unit, r.digits ?? 1)}`,
   }));
 }
 
@@ -58,7 +61,7 @@ export function parameterChartRows(params: NonNullable<ReportCharts["parameters"
     upper: p.upper,
     unit: p.unit,
     marks: [{ value: p.value, U: p.U, kind: "value" as const }],
-    note: `${fmt(p.value)} ± ${p.U.toFixed(1)} ${p.unit}; limits ${limitsText(p.lower, p.upper, p.unit)}; ${DECISION_WORD[p.decision]}`,
+    note: `${fmt(p.value)} ± ${withUnit(p.U.toFixed(1), p.unit)}; limits ${limitsText(p.lower, p.upper, p.unit)}; ${DECISION_WORD[p.decision]}`,
   }));
 }
 

@@ -11,7 +11,7 @@ import type { ReportCharts } from "./types";
 
 const C = { ink: "#1d2125", muted: "#555d68", rule: "#d5d9de", band: "#e7efe9", limit: "#17613a", before: "#5f7d99", after: "#1d2125", fail: "#9c2420", accent: "#b86e05" };
 
-const ROW_W = 250;
+const ROW_W = 225;
 const ROW_H = 13;
 
 function RowPlot({ row }: { row: LimitRow }) {
@@ -49,7 +49,7 @@ export function LimitRowsChart({ rows, legend }: { rows: readonly LimitRow[]; le
     <View>
       {rows.map((r, i) => (
         <View key={i} style={{ flexDirection: "row", alignItems: "center", borderBottomWidth: 0.4, borderBottomColor: C.rule, paddingVertical: 1.5 }} wrap={false}>
-          <Text style={{ width: 150, fontSize: 7.5, paddingRight: 4 }}>{r.label}</Text>
+          <Text style={{ width: 135, fontSize: 7.5, paddingRight: 4 }}>{r.label}</Text>
           <RowPlot row={r} />
           <Text style={{ flex: 1, fontSize: 7, color: C.muted, paddingLeft: 6 }}>{r.note}</Text>
         </View>

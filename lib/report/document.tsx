@@ -135,7 +135,7 @@ function FiguresAndCharts({ data, images }: { data: ReportData; images: Readonly
       {data.figures.length === 0 && data.parameters.length > 0 ? <Text style={{ color: C.muted, marginBottom: 6 }}>No picture of the 3D view was saved for this report.</Text> : null}
       {charts.readings?.length ? (
         <View wrap={false}>
-          <LimitRowsChart rows={readingRows(charts.readings)} legend="Hollow ring: before adjustment; filled dot: after; green lines: the limits, shaded between. Each row has its own scale; lengths in µm, angles in arc seconds." />
+          <LimitRowsChart rows={readingRows(charts.readings)} legend="Hollow ring: before adjustment; filled dot: after; green lines: the limits, shaded between. Each row has its own scale; lengths in mm, angles in arc seconds, as in the readings table." />
           {caption("Checklist readings before and after adjustment against their limits.")}
         </View>
       ) : null}
@@ -233,7 +233,7 @@ export function ReportDocument({ data, qrDataUrl, images = new Map() }: { data: 
         <Text style={s.h2} minPresenceAhead={40}>5 Kinematic parameters of the head</Text>
         <Text style={{ color: C.muted, marginBottom: 3 }}>Fitted from sphere-probe data; U is the expanded uncertainty (k = 2, about 95 %).</Text>
         <View style={s.table}>
-          <View style={[s.tr, s.th]}>
+          <View style={[s.tr, s.th]} fixed>
             {["Parameter", "ISO 230-1", "Value", "U (k = 2)", "Tolerance", "Identifiable", "Result"].map((h, i) => (
               <Text key={h} style={[s.td, { width: ["27%", "11%", "14%", "12%", "12%", "11%", "13%"][i] }]}>
                 {h}

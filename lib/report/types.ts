@@ -56,8 +56,8 @@ export interface ReportFigure {
 }
 
 export interface ReportCharts {
-  /** Each step with limits: the before and after values as a fraction of the limit band (−1 … +1 is inside). */
-  readings?: Array<{ step: string; lower: number | null; upper: number | null; pre: number | null; post: number | null; unit: string }>;
+  /** Each step with limits: its limits and the before and after values, in the unit the readings table uses (mm or ″). */
+  readings?: Array<{ step: string; lower: number | null; upper: number | null; pre: number | null; post: number | null; unit: string; /** decimals shown (default 1) */ digits?: number }>;
   /** Each judged head parameter: value and U against its limits, in its own unit. */
   parameters?: Array<{ symbol: string; value: number; U: number; lower: number | null; upper: number | null; unit: string; decision: Decision }>;
   /** Residual magnitude per pose (µm), at most a few hundred points (the largest of each bucket), with s and the 3 s outlier line. */

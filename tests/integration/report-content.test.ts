@@ -85,7 +85,7 @@ describe("head parameters in the report", () => {
         else expected = p.value >= lo + p.U && p.value <= hi - p.U ? "pass" : p.value < lo - p.U || p.value > hi + p.U ? "fail" : "undecided";
       }
       expect(row.decision, p.key).toBe(expected);
-      if (lim) expect(row.tolerance).toBe(`± ${lim.upperLimit!.toFixed(1)} ${p.unit === "um" ? "µm" : "″"}`);
+      if (lim) expect(row.tolerance).toBe(p.unit === "um" ? `± ${lim.upperLimit!.toFixed(1)} µm` : `± ${lim.upperLimit!.toFixed(1)}″`);
     }
     // The demo limits include a guarded one and the held parameter, so both paths are exercised.
     expect(limits.some((l) => l.decisionRule === "guarded")).toBe(true);

@@ -72,7 +72,7 @@ describe("report PDF", () => {
   it("draws the readings, parameter and residual charts with their captions and values", () => {
     const flat = text.replace(/\s+/g, " ");
     expect(text).toContain("Checklist readings before and after adjustment against their limits.");
-    expect(flat).toContain("before +21.6 → after +7.6 µm; limits ≤ +12.7 µm");
+    expect(flat).toContain("before +21.6 µm → after +7.6 µm; limits ≤ +12.7 µm");
     expect(text).toContain("Fitted head parameters against the procedure's limits.");
     expect(flat).toContain("+18.4 ± 1.1 µm; limits −25.0 … +25.0 µm; pass");
     // 3 s = 3.15 µm: one of the eight bars (3.6) is beyond it.
