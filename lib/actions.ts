@@ -7,7 +7,7 @@ import "server-only";
 import { z } from "zod";
 import type { Actor, Role } from "@/lib/auth/roles";
 import { requireRole, requireUser } from "@/lib/auth/session";
-import { AppError } from "./errors";
+import { AppError, isDatabaseUnavailable, unavailable } from "./errors";
 
 /** `code` is the AppError code on failure ("unauthorized", "forbidden", "not_found", "invalid", …), so callers and tests can tell a refusal from a correction to make. */
 export type ActionResult<T> = { ok: true; data: T } | { ok: false; message: string; code: string; fieldErrors?: Record<string, string[]> };
@@ -36,6 +36,10 @@ export function action<S extends z.ZodType, T>(
           ? Object.fromEntries(err.issues.map((i) => [i.field ?? i.column ?? "_", [i.message]]))
           : undefined;
         return { ok: false, message: err.message, code: err.code, ...(fieldErrors ? { fieldErrors } : {}) };
+      }
+      if (isDatabaseUnavailable(err)) {
+        console.error("[action] database unavailable:", err instanceof Error ? err.message : String(err));
+        return { ok: false, message: unavailable().message + " Nothing was saved.", code: "unavailable" };
       }
       console.error("[action] unexpected error", err);
       return { ok: false, message: "Something went wrong on the server; nothing was saved.", code: "server_error" };
