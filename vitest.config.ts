@@ -1,6 +1,7 @@
-// Three projects: unit (pure code, no services), integration (real PostgreSQL started by the
-// test command; DATABASE_URL points at it) and e2e (Debian's Chromium against the built app at
-// E2E_BASE_URL). tests/run-all.sh starts what each needs.
+// Four projects: unit (pure code, no services), integration (real PostgreSQL started by the
+// test command; DATABASE_URL points at it), e2e (Debian's Chromium against the built app at
+// E2E_BASE_URL), and faults (the built app, two instances, PostgreSQL restarted). tests/run-all.sh
+// starts what each needs.
 import { defineConfig } from "vitest/config";
 
 const alias = {
@@ -37,6 +38,18 @@ export default defineConfig({
           environment: "node",
           fileParallelism: false,
           testTimeout: 60_000,
+          hookTimeout: 60_000,
+        },
+      },
+      {
+        // Faults and scale-out against the built app (tests/faults/harness.ts lists what it needs).
+        resolve: { alias },
+        test: {
+          name: "faults",
+          include: ["tests/faults/**/*.test.ts"],
+          environment: "node",
+          fileParallelism: false,
+          testTimeout: 120_000,
           hookTimeout: 60_000,
         },
       },
