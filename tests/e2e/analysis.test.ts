@@ -7,6 +7,7 @@
 // datasets API the upload page uses and runs the fit (approval refused: measuring), the
 // administrator submits the job for review on the checklist page, and the engineer approves and
 // sees the values for the control.
+import AxeBuilder from "@axe-core/playwright";
 import { mkdirSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -50,6 +51,12 @@ async function canvasPixels(page: Page): Promise<{ drawn: number; total: number;
     }
     return { drawn, total: d.length / 4, digest: `${h}` };
   });
+}
+
+/** Serious or critical WCAG 2 A/AA violations (axe-core), as in tests/e2e/accessibility.test.ts. */
+async function seriousViolations(page: Page): Promise<string[]> {
+  const result = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
+  return result.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.id}: ${v.help} — ${v.nodes.slice(0, 3).map((n) => n.target.join(" ")).join(", ")}`);
 }
 
 /** The 3D view with its printed factor, scrolled to the top so the page's sticky header does not cover it. */
@@ -171,6 +178,8 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     expect((await img.body()).subarray(1, 4).toString("latin1")).toBe("PNG");
     await p.getByRole("heading", { name: "Saved views" }).scrollIntoViewIfNeeded();
     await p.screenshot({ path: screenshotPath("analysis-saved-views") });
+    // The overlay controls, the save form and the saved pictures pass the same accessibility scan as every page.
+    expect(await seriousViolations(p)).toEqual([]);
     await p.close();
   });
 
@@ -185,10 +194,9 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     await table.waitFor();
     const heads = await table.locator("thead th[data-job]").evaluateAll((ths) => ths.map((t) => t.getAttribute("data-job")));
     for (const ref of ["TR-2026-0041", "TR-2026-0052", "TR-2026-0057"]) expect(heads).toContain(ref);
-    const text = await table.innerText();
-    expect(text).toContain("✓ approved fit");
-    expect(text).toContain("latest fit, not approved");
-    expect(text).toContain("no fit yet");
+    // TR-2026-0041's column shows its approved fit; TR-2026-0052 (measuring) its latest, not approved.
+    expect(await table.locator('thead th[data-job="TR-2026-0041"]').innerText()).toContain("✓ approved fit");
+    expect(await table.locator('thead th[data-job="TR-2026-0052"]').innerText()).toContain("latest fit, not approved");
     // The values are the history API's (the stored fits), rounded only for display.
     const headId = p.url().split("/").pop()!;
     const api = (await (await p.request.get(`/api/heads/${headId}/history`)).json()) as { jobs: { reference: string; fit: { parameters: { key: string; value: number; U: number | null }[] } | null }[] };
@@ -205,6 +213,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     expect(await panels.first().locator("circle").count()).toBeGreaterThanOrEqual(2);
     await p.evaluate(() => window.scrollTo(0, 0));
     await p.screenshot({ path: screenshotPath("head-history"), fullPage: true });
+    expect(await seriousViolations(p)).toEqual([]);
     await p.close();
   });
 
