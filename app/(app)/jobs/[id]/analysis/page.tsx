@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 import { ApproveButton, RunFitButton } from "@/components/fit/fit-buttons";
 import { controlValues, parameterRows, signed, type ParameterLimit } from "@/lib/fit-display";
 import { ParameterTable } from "@/components/fit/parameter-table";
+import { PoseCoverage } from "@/components/fit/pose-coverage";
 import { ResidualChart } from "@/components/fit/residual-chart";
 import { Card } from "@/components/ui/card";
 import { SafetyNote } from "@/components/ui/safety-note";
@@ -17,6 +18,7 @@ import type { HeadErrors, HeadPose } from "@/geometry";
 import { canTransition, headFitRefusal, STATUS_LABELS } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
+import { nextVisitPlan } from "@/lib/pose-coverage";
 import { SavedViews } from "./saved-views";
 
 export const metadata: Metadata = { title: "Analysis" };
@@ -219,6 +221,10 @@ function FitSection({
           ) : (
             <p className="mt-3 text-sm text-graphite-600">No outliers.</p>
           )}
+        </Card>
+
+        <Card title="Probed poses and the next visit">
+          <PoseCoverage visit={nextVisitPlan(config, r.poses.primary_deg, r.poses.secondary_deg, r.poses.tool_mm)} poses={poses} />
         </Card>
       </section>
 
