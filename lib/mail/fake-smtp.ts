@@ -1,6 +1,6 @@
 /**
  * A local SMTP fake for the demo: accepts every message on 127.0.0.1:2525 (SMTP_FAKE_PORT) and
- * stores it under .data/mail as <time>-<subject>.eml plus a .json summary, so e-mail can be read
+ * stores it under .data/mail as <time>-<pid>-<n>-<subject>.eml plus a .json summary, so e-mail can be read
  * without a mail server. Loopback only, no TLS, no auth: never for production.
  *   npx tsx lib/mail/fake-smtp.ts
  */
@@ -12,6 +12,7 @@ import { SMTPServer } from "smtp-server";
 const dir = path.resolve(process.env.MAIL_DIR ?? ".data/mail");
 const port = Number(process.env.SMTP_FAKE_PORT ?? 2525);
 mkdirSync(dir, { recursive: true });
+let seq = 0;
 
 const server = new SMTPServer({
   authOptional: true,
@@ -26,7 +27,8 @@ const server = new SMTPServer({
       simpleParser(raw)
         .then((m) => {
           const slug = (m.subject ?? "no-subject").replace(/[^a-z0-9]+/gi, "-").slice(0, 60).toLowerCase();
-          const base = `${new Date().toISOString().replace(/[:.]/g, "-")}-${slug}`;
+          // A sequence number and the process id keep two messages of the same millisecond apart.
+          const base = `${new Date().toISOString().replace(/[:.]/g, "-")}-${process.pid}-${String(++seq).padStart(6, "0")}-${slug}`;
           writeFileSync(path.join(dir, `${base}.eml`), raw);
           const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(", ") : (m.to?.text ?? "");
           writeFileSync(path.join(dir, `${base}.json`), JSON.stringify({ to, from: m.from?.text, subject: m.subject, date: m.date, text: m.text }, null, 2));
