@@ -7,6 +7,8 @@ import type { ParameterRow } from "@/lib/fit-display";
  */
 export function ParameterTable({ rows, warnings }: { rows: readonly ParameterRow[]; warnings: readonly string[] }) {
   const anyLimit = rows.some((r) => r.toleranceText);
+  // Where the limits come from, said once below the table rather than on every row.
+  const sources = [...new Set(rows.flatMap((r) => (r.limitSourceText ? [r.limitSourceText] : [])))];
   return (
     <>
       <div className="overflow-x-auto">
@@ -30,13 +32,13 @@ export function ParameterTable({ rows, warnings }: { rows: readonly ParameterRow
                   {p.words}
                   <span className="block text-xs text-graphite-500">{p.key}</span>
                 </td>
-                <td className="num py-2 pr-3 text-right" data-value={p.value}>
+                <td className="num whitespace-nowrap py-2 pr-3 text-right" data-value={p.value}>
                   {p.valueText}
                 </td>
-                <td className="num py-2 pr-3 text-right">{p.UText}</td>
-                <td className="num py-2 pr-3 text-right">
+                <td className="num whitespace-nowrap py-2 pr-3 text-right">{p.UText}</td>
+                <td className="num whitespace-nowrap py-2 pr-3 text-right" title={p.limitSourceText ?? undefined}>
                   {p.toleranceText ?? "—"}
-                  {p.limitSourceText ? <span className="block font-sans text-xs text-graphite-500">{p.limitSourceText}{p.decisionRule === "guarded" ? " · guarded" : ""}</span> : null}
+                  {p.limitSourceText ? <span className="block font-sans text-xs text-graphite-500">{p.limitSourceText.split(":")[0]}{p.decisionRule === "guarded" ? " · guarded" : ""}</span> : null}
                 </td>
                 <td className="py-2 pr-3">
                   <DecisionBadge decision={p.decision} label={p.decisionText} />
@@ -57,6 +59,7 @@ export function ParameterTable({ rows, warnings }: { rows: readonly ParameterRow
         {anyLimit
           ? "Limits come from the job's procedure version. Simple acceptance: pass inside the limits, U shown but not subtracted. Guarded acceptance (ISO 14253-1): pass only inside the limits narrowed by U, fail only outside them widened by U, undecided between."
           : "The job's procedure sets no limits for the head parameters: the values are recorded, not judged."}
+        {sources.length ? ` Source of the limits: ${sources.join("; ")}.` : ""}
       </p>
       {warnings.length ? (
         <div className="mt-4 space-y-2" aria-label="Warnings">

@@ -9,7 +9,7 @@ import { PRIMARY_SECTOR_DEG, TILT_REFERENCE_DEG } from "@/lib/pose-coverage";
 export function PoseCoverage({ visit, poses }: { visit: NextVisitPlan; poses: ReadonlyArray<{ primaryDeg: number; secondaryDeg: number; toolMm?: number | undefined }> }) {
   const c = visit.coverage;
   const W = 720;
-  const H = 230;
+  const H = 210;
   const m = { l: 46, r: 12, t: 12, b: 34 };
   const tiltLo = Math.min(-TILT_REFERENCE_DEG, c.secondaryMinDeg);
   const tiltHi = Math.max(TILT_REFERENCE_DEG, c.secondaryMaxDeg);
@@ -31,7 +31,7 @@ export function PoseCoverage({ visit, poses }: { visit: NextVisitPlan; poses: Re
   return (
     <div className="space-y-4">
       <figure>
-        <svg viewBox={`0 0 ${W} ${H}`} className="h-auto w-full" role="img" aria-label={`${c.poses} probed poses: primary at ${c.primaryAnglesDeg.length} angles, ${c.primarySectors.length - missing} of ${c.primarySectors.length} sectors of the turn; tilt from ${c.secondaryMinDeg}° to ${c.secondaryMaxDeg}°; ${c.toolLengthsMm.length} tool length(s)`}>
+        <svg viewBox={`0 0 ${W} ${H}`} className="h-auto w-full max-w-4xl" role="img" aria-label={`${c.poses} probed poses: primary at ${c.primaryAnglesDeg.length} angles, ${c.primarySectors.length - missing} of ${c.primarySectors.length} sectors of the turn; tilt from ${c.secondaryMinDeg}° to ${c.secondaryMaxDeg}°; ${c.toolLengthsMm.length} tool length(s)`}>
           <defs>
             <pattern id="unprobed" width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
               <line x1="0" y1="0" x2="0" y2="6" stroke="#d5d9de" strokeWidth="2" />
@@ -65,7 +65,8 @@ export function PoseCoverage({ visit, poses }: { visit: NextVisitPlan; poses: Re
           </text>
           {marks.map((p, i) => {
             const k = toolIndex(p.toolMm ?? 0) % SHAPES.length;
-            const cx = x(((p.primaryDeg % 360) + 360) % 360);
+            // Tool lengths side by side at the same angles, so one does not hide the other.
+            const cx = x(((p.primaryDeg % 360) + 360) % 360) + (toolIndex(p.toolMm ?? 0) - (c.toolLengthsMm.length - 1) / 2) * 7;
             const cy = y(p.secondaryDeg);
             const fill = COLOURS[k];
             switch (SHAPES[k]) {

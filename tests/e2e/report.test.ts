@@ -1,6 +1,7 @@
 // Journey 3 of the product brief in Debian's Chromium: the customer reads the issued report
 // online, downloads the signed PDF and accepts it with a counter-signature; the engineer sees
 // the acceptance; anyone holding the PDF verifies it on the public page, and a tampered copy fails.
+import { execFileSync } from "node:child_process";
 import { existsSync, readdirSync, readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -51,6 +52,21 @@ describe("journey 3: the customer accepts the signed report", () => {
     pdfPath = screenshotPath("downloaded-report").replace(/\.png$/, ".pdf");
     await download.saveAs(pdfPath);
     expect(readFileSync(pdfPath).subarray(0, 5).toString()).toBe("%PDF-");
+    // The page and the signed file say the same: the same figures with the same captions, and
+    // each parameter's limit and result (pdftotext, poppler's reader, for the file).
+    const pdfText = execFileSync("pdftotext", [pdfPath, "-"]).toString("utf8").replace(/\s+/g, " ");
+    const captions = (await article.locator("figcaption").allInnerTexts()).map((t) => t.replace(/\s+/g, " ").trim());
+    expect(captions.length, "the online report has figures").toBeGreaterThanOrEqual(2);
+    for (const c of captions) expect(pdfText, c).toContain(c.slice(0, 60));
+    expect(pdfText.match(/Figure \d+\./g)?.length).toBe(captions.length);
+    const paramRows = await article.getByRole("table").filter({ hasText: "ISO 230-1" }).locator("tbody tr").allInnerTexts();
+    expect(paramRows.length).toBe(10);
+    for (const r of paramRows) {
+      const [name, symbol, , , tolerance] = r.split("\t").map((x) => x.trim());
+      expect(pdfText).toContain(symbol!);
+      expect(pdfText).toContain(name!.slice(0, 20));
+      if (tolerance && tolerance !== "—") expect(pdfText).toContain(tolerance);
+    }
     await p.screenshot({ path: screenshotPath("report-customer"), fullPage: true });
     await p.close();
   });
