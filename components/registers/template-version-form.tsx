@@ -14,6 +14,17 @@ export interface EditableStep {
   limitSourceNote: string;
 }
 
+export interface EditableParameterLimit {
+  key: string;
+  words: string;
+  unit: "µm" | "″";
+  lower: string;
+  upper: string;
+  decisionRule: "simple" | "guarded";
+  limitSource: string;
+  limitSourceNote: string;
+}
+
 const SOURCES = [
   ["standard", "Standard"],
   ["maker_manual", "Maker's manual (as entered)"],
@@ -22,7 +33,7 @@ const SOURCES = [
 ] as const;
 
 /** Edit the limits of a procedure; saving makes a new version, and running jobs keep theirs. */
-export function TemplateVersionForm({ templateId, unit, steps }: { templateId: string; unit: "mm" | "in"; steps: EditableStep[] }) {
+export function TemplateVersionForm({ templateId, unit, steps, parameters = [] }: { templateId: string; unit: "mm" | "in"; steps: EditableStep[]; parameters?: EditableParameterLimit[] }) {
   const cell = "min-h-touch w-full rounded-md border border-graphite-300 bg-white px-2 text-sm";
   return (
     <ActionForm action={createTemplateVersionAction} submitLabel="Save as a new version" resetOnSuccess={false} successMessage="New version saved; jobs already started keep the version they began with.">
@@ -67,6 +78,48 @@ export function TemplateVersionForm({ templateId, unit, steps }: { templateId: s
           </tbody>
         </table>
       </div>
+      {parameters.length ? (
+        <div className="mt-4 overflow-x-auto">
+          <h4 className="text-sm font-semibold">Limits for the fitted head parameters</h4>
+          <p className="text-xs text-graphite-600">Lengths in µm, angles in arc seconds. Leave both limits empty for a parameter that is recorded, not judged.</p>
+          <table className="mt-2 w-full text-sm">
+            <thead className="text-left text-graphite-600">
+              <tr>
+                <th className="py-2 pr-2 font-medium">Parameter</th>
+                <th className="py-2 pr-2 font-medium">Lower</th>
+                <th className="py-2 pr-2 font-medium">Upper</th>
+                <th className="py-2 pr-2 font-medium">Rule</th>
+                <th className="py-2 pr-2 font-medium">Source of the limit</th>
+                <th className="py-2 font-medium">Note on the source</th>
+              </tr>
+            </thead>
+            <tbody className="divide-y divide-graphite-100">
+              {parameters.map((p) => (
+                <tr key={p.key}>
+                  <td className="py-2 pr-2">
+                    {p.words}
+                    <span className="block text-xs text-graphite-500">in {p.unit === "µm" ? "µm" : "arc seconds"}</span>
+                  </td>
+                  <td className="w-28 py-2 pr-2"><input aria-label={`${p.words}: lower limit`} name={`param.${p.key}.lowerLimit`} defaultValue={p.lower} inputMode="decimal" className={`${cell} num text-right`} /><span data-error-for={`param.${p.key}.lowerLimit`} className="block text-xs text-fail-700" /></td>
+                  <td className="w-28 py-2 pr-2"><input aria-label={`${p.words}: upper limit`} name={`param.${p.key}.upperLimit`} defaultValue={p.upper} inputMode="decimal" className={`${cell} num text-right`} /><span data-error-for={`param.${p.key}.upperLimit`} className="block text-xs text-fail-700" /></td>
+                  <td className="w-32 py-2 pr-2">
+                    <select aria-label={`${p.words}: decision rule`} name={`param.${p.key}.decisionRule`} defaultValue={p.decisionRule} className={cell}>
+                      <option value="simple">Simple</option>
+                      <option value="guarded">Guarded</option>
+                    </select>
+                  </td>
+                  <td className="w-52 py-2 pr-2">
+                    <select aria-label={`${p.words}: limit source`} name={`param.${p.key}.limitSource`} defaultValue={p.limitSource} className={cell}>
+                      {SOURCES.map(([v, l]) => <option key={v} value={v}>{l}</option>)}
+                    </select>
+                  </td>
+                  <td className="py-2"><input aria-label={`${p.words}: note on the source`} name={`param.${p.key}.limitSourceNote`} defaultValue={p.limitSourceNote} className={`${inputClass} text-sm`} /></td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      ) : null}
     </ActionForm>
   );
 }

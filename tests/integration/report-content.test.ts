@@ -143,4 +143,31 @@ describe("procedure versions", () => {
     const byKey = (a: { parameter: string }, b: { parameter: string }) => a.parameter.localeCompare(b.parameter);
     expect(after.map(strip).sort(byKey)).toEqual(before.map(strip).sort(byKey));
   });
+
+  it("apply parameter-limit edits in the new version: changed, removed, added; a bad edit creates nothing", async () => {
+    const [base] = await db.insert(procedureTemplates).values({ name: `Limits edit test ${Date.now().toString(36)}`, version: 1, createdById: as.admin!.id }).returning();
+    await db.insert(templateParameterLimits).values([
+      { templateId: base!.id, parameter: "pivot_length_error_um", lowerLimit: -30, upperLimit: 30, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: null },
+      { templateId: base!.id, parameter: "secondary_tilt_arcsec", lowerLimit: -12, upperLimit: 12, decisionRule: "simple", limitSource: "common_practice", limitSourceNote: null },
+    ]);
+    const refused = await createTemplateVersion(as.admin!, base!.id, [], [{ parameter: "tip_offset_s_um", lowerLimit: 5, upperLimit: -5, decisionRule: "simple", limitSource: "standard", limitSourceNote: null }]).then(
+      () => null,
+      (e: { status?: number; message: string }) => e,
+    );
+    expect(refused?.status).toBe(422);
+    expect(refused?.message).toMatch(/lower limit is above the upper limit/);
+    expect(await db.select().from(procedureTemplates).where(eq(procedureTemplates.name, base!.name))).toHaveLength(1);
+
+    const next = await createTemplateVersion(as.admin!, base!.id, [], [
+      { parameter: "pivot_length_error_um", lowerLimit: -25, upperLimit: 25, decisionRule: "guarded", limitSource: "maker_manual", limitSourceNote: "sheet 4" },
+      { parameter: "secondary_tilt_arcsec", lowerLimit: null, upperLimit: null, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: null },
+      { parameter: "primary_zero_arcsec", lowerLimit: -40, upperLimit: 40, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: null },
+    ]);
+    const after = await db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, next.id));
+    const by = Object.fromEntries(after.map((l) => [l.parameter, l]));
+    expect(Object.keys(by).sort()).toEqual(["pivot_length_error_um", "primary_zero_arcsec"]);
+    expect(by.pivot_length_error_um).toMatchObject({ lowerLimit: -25, upperLimit: 25, decisionRule: "guarded", limitSource: "maker_manual", limitSourceNote: "sheet 4" });
+    // The earlier version keeps its own limits.
+    expect(await db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, base!.id))).toHaveLength(2);
+  });
 });

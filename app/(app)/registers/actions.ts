@@ -1,6 +1,7 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
+import type { HeadParameterKey } from "@/geometry";
 import { z } from "zod";
 import { createInstrument } from "@/db/queries/instruments";
 import { createJobFromTemplate } from "@/db/queries/job-status";
@@ -64,7 +65,28 @@ export const createTemplateVersionAction = action({ schema: templateVersionSchem
       limitSourceNote: typeof get("limitSourceNote") === "string" && (get("limitSourceNote") as string).trim() ? (get("limitSourceNote") as string).trim().slice(0, 500) : null,
     };
   });
-  const t = await createTemplateVersion(actor, input.templateId, edits);
+  // Head parameter limits: fields param.<key>.*, in µm or arc seconds as the key says.
+  const keys = new Set<string>();
+  for (const k of Object.keys(input)) {
+    const m = /^param\.([a-z_]+)\./.exec(k);
+    if (m) keys.add(m[1]!);
+  }
+  const parameterEdits = [...keys].map((key) => {
+    const get = (f: string) => (input as Record<string, unknown>)[`param.${key}.${f}`];
+    const lo = limit.safeParse(get("lowerLimit"));
+    const hi = limit.safeParse(get("upperLimit"));
+    if (!lo.success || !hi.success) throw invalid(`${key}: a limit is not a number.`, [{ field: `param.${key}.${lo.success ? "upperLimit" : "lowerLimit"}`, message: "Enter a number or leave it empty." }]);
+    const note = get("limitSourceNote");
+    return {
+      parameter: key as HeadParameterKey,
+      lowerLimit: lo.data,
+      upperLimit: hi.data,
+      decisionRule: get("decisionRule") === "guarded" ? ("guarded" as const) : ("simple" as const),
+      limitSource: LIMIT_SOURCES.find((x) => x === get("limitSource")) ?? "customer_spec",
+      limitSourceNote: typeof note === "string" && note.trim() ? note.trim().slice(0, 500) : null,
+    };
+  });
+  const t = await createTemplateVersion(actor, input.templateId, edits, parameterEdits);
   revalidatePath("/registers/procedures");
   return { id: t.id, version: t.version };
 });

@@ -97,6 +97,11 @@ export default async function ProceduresPage() {
                   const show = (v: number | null) => (v == null ? "" : s.quantityKind === "angle" ? String(v) : String(Number(fromCanonical(v, unit).toPrecision(10))));
                   return { position: s.position, title: s.title, kind: s.quantityKind, lower: show(s.lowerLimit), upper: show(s.upperLimit), decisionRule: s.decisionRule, limitSource: s.limitSource, limitSourceNote: s.limitSourceNote ?? "" };
                 })}
+                parameters={HEAD_PARAMETER_KEYS.map((key) => {
+                  const l = t.parameterLimits.find((x) => x.parameter === key);
+                  const show = (v: number | null | undefined) => (v == null ? "" : String(v));
+                  return { key, words: PARAMETER_WORDS[key], unit: headParameterUnit(key) === "um" ? ("µm" as const) : ("″" as const), lower: show(l?.lowerLimit), upper: show(l?.upperLimit), decisionRule: l?.decisionRule ?? "simple", limitSource: l?.limitSource ?? "customer_spec", limitSourceNote: l?.limitSourceNote ?? "" };
+                })}
               />
             </details>
           ) : null}
