@@ -4,8 +4,8 @@
  * signature and the UTC time. The key pair lives outside the database (a folder of PEM files,
  * created on first use), so a database dump alone cannot forge a signature.
  */
-import { createHash, createPrivateKey, createPublicKey, generateKeyPairSync, sign, verify, type KeyObject } from "node:crypto";
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
+import { createHash, createPrivateKey, createPublicKey, generateKeyPairSync, randomBytes, sign, verify, type KeyObject } from "node:crypto";
+import { existsSync, linkSync, mkdirSync, readFileSync, unlinkSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { canonicalJson } from "@/lib/canonical-json";
 
@@ -56,13 +56,25 @@ export function loadOrCreateSigningKey(dir: string): SigningKey {
   const pubPath = path.join(dir, "report-signing-key.pub.pem");
   if (!existsSync(privPath)) {
     mkdirSync(dir, { recursive: true, mode: 0o700 });
-    const { privateKey, publicKey } = generateKeyPairSync("ed25519");
-    writeFileSync(privPath, privateKey.export({ type: "pkcs8", format: "pem" }), { mode: 0o600, flag: "wx" });
-    writeFileSync(pubPath, publicKey.export({ type: "spki", format: "pem" }), { mode: 0o644 });
+    const { privateKey } = generateKeyPairSync("ed25519");
+    // Written whole to a file of its own, then linked into place: link() fails if the name exists,
+    // so when several instances start together on an empty folder exactly one key wins and the
+    // others read it, never a half-written file.
+    const tmp = path.join(dir, `.report-signing-key.${process.pid}.${randomBytes(6).toString("hex")}.pem`);
+    writeFileSync(tmp, privateKey.export({ type: "pkcs8", format: "pem" }), { mode: 0o600, flag: "wx" });
+    try {
+      linkSync(tmp, privPath);
+    } catch (e) {
+      if ((e as NodeJS.ErrnoException).code !== "EEXIST") throw e;
+    } finally {
+      unlinkSync(tmp);
+    }
   }
   const privateKey = createPrivateKey(readFileSync(privPath));
   const publicKey = createPublicKey(privateKey);
-  return { keyId: keyIdOf(publicKey), privateKey, publicKey, publicKeyPem: publicKey.export({ type: "spki", format: "pem" }).toString() };
+  const publicKeyPem = publicKey.export({ type: "spki", format: "pem" }).toString();
+  if (!existsSync(pubPath) || readFileSync(pubPath, "utf8") !== publicKeyPem) writeFileSync(pubPath, publicKeyPem, { mode: 0o644 });
+  return { keyId: keyIdOf(publicKey), privateKey, publicKey, publicKeyPem };
 }
 
 /** The exact bytes that are signed. */

@@ -1,7 +1,8 @@
 // Report signing: Ed25519 through node:crypto, checked against the RFC 8032 §7.1 test vectors
 // (an outside reference), then the tamper cases the product must catch.
 import { createPrivateKey, createPublicKey, sign as edSign } from "node:crypto";
-import { mkdtempSync, statSync } from "node:fs";
+import { execFile } from "node:child_process";
+import { mkdtempSync, readdirSync, statSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import fc from "fast-check";
@@ -53,6 +54,21 @@ describe("signing keys", () => {
     expect(statSync(path.join(dir, "report-signing-key.pem")).mode & 0o077).toBe(0);
     expect(keyIdOf(again.publicKey)).toMatch(/^[0-9a-f]{16}$/);
   });
+
+  it("several processes starting together on an empty folder end up with one and the same key", async () => {
+    const shared = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-keys-race-"));
+    const script = path.join(shared, "..", `start-${path.basename(shared)}.ts`);
+    writeFileSync(script, `import { loadOrCreateSigningKey } from ${JSON.stringify(path.resolve("lib/report/signing.ts"))};\nprocess.stdout.write(loadOrCreateSigningKey(${JSON.stringify(shared)}).keyId);\n`);
+    const run = () =>
+      new Promise<string>((resolve, reject) =>
+        execFile("npx", ["tsx", "--tsconfig", "tsconfig.json", script], { cwd: process.cwd() }, (err, out) => (err ? reject(err) : resolve(out.trim()))),
+      );
+    const ids = await Promise.all([run(), run(), run(), run()]);
+    expect(new Set(ids).size).toBe(1);
+    expect(ids[0]).toBe(keyIdOf(loadOrCreateSigningKey(shared).publicKey));
+    // Nothing half-made is left beside the key.
+    expect(readdirSync(shared).sort()).toEqual(["report-signing-key.pem", "report-signing-key.pub.pem"]);
+  }, 60_000);
 });
 
 describe("signed report verification", () => {
