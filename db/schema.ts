@@ -545,7 +545,7 @@ export const analysisViews = pgTable(
     analysisId: uuid("analysis_id")
       .notNull()
       .references(() => analyses.id, { onDelete: "restrict" }),
-    /** The earlier fit drawn beside this one (pre/post overlay), if any. */
+    /** The other phase's fit drawn with this one (before/after overlay), if any. */
     overlayAnalysisId: uuid("overlay_analysis_id").references(() => analyses.id, { onDelete: "restrict" }),
     storageKey: text("storage_key").notNull(),
     sha256: text("sha256").notNull(),

@@ -5,7 +5,7 @@
  * rest on colour. Server-rendered SVG; each panel has its title and description, and the same
  * numbers follow as a table.
  */
-import { niceTicks } from "./ticks";
+import { niceTicks } from "@/lib/chart-ticks";
 
 export interface TrendJob {
   key: string;

@@ -1,3 +1,5 @@
+import { niceTicks } from "@/lib/chart-ticks";
+
 /**
  * Residuals per pose: for each pose (in file order) the largest residual component in µm, with
  * the 3 s line the outlier rule uses. Outliers are drawn as triangles and labelled with their row,
@@ -28,10 +30,11 @@ export function ResidualChart({ residuals, rows: allRows, toolMm: allTool, sUm }
   });
   const n = worst.length;
   const limit = 3 * sUm;
-  const yMax = Math.max(limit * 1.25, ...worst) || 1;
+  const axis = niceTicks(0, Math.max(limit * 1.25, ...worst) || 1);
+  const yMax = axis.max;
   const x = (i: number) => m.l + ((i + 0.5) / Math.max(1, n)) * (W - m.l - m.r);
   const y = (v: number) => H - m.b - (v / yMax) * (H - m.t - m.b);
-  const ticks = niceTicks(yMax);
+  const ticks = axis.ticks;
   const tickDigits = ticks.some((t) => !Number.isInteger(t * 10)) ? 2 : 1;
   const outlierIdx = worst.flatMap((w, i) => (w > limit ? [i] : []));
   // Label heights: a label that would touch the previous one goes above it.
@@ -93,13 +96,4 @@ export function ResidualChart({ residuals, rows: allRows, toolMm: allTool, sUm }
       </figcaption>
     </figure>
   );
-}
-
-function niceTicks(max: number): number[] {
-  const raw = max / 4;
-  const mag = 10 ** Math.floor(Math.log10(raw));
-  const step = [1, 2, 2.5, 5, 10].map((f) => f * mag).find((s) => s >= raw) ?? raw;
-  const out: number[] = [];
-  for (let v = 0; v <= max + 1e-12; v += step) out.push(Number(v.toFixed(10)));
-  return out;
 }

@@ -1,4 +1,5 @@
-import { niceTicks, parameterChartRows, readingRows, rowDomain, type LimitRow } from "@/lib/report/chart-data";
+import { niceTicks } from "@/lib/chart-ticks";
+import { parameterChartRows, readingRows, rowDomain, type LimitRow } from "@/lib/report/chart-data";
 import type { ReportData } from "@/lib/report/types";
 
 /**
@@ -94,8 +95,9 @@ function Residuals({ r }: { r: NonNullable<NonNullable<ReportData["charts"]>["re
   const h = 200;
   const m = { l: 40, r: 10, t: 10, b: 22 };
   const limit = 3 * r.sUm;
-  const yMax = Math.max(limit * 1.25, ...r.valuesUm) || 1;
-  const ticks = niceTicks(yMax);
+  const axis = niceTicks(0, Math.max(limit * 1.25, ...r.valuesUm) || 1);
+  const yMax = axis.max;
+  const ticks = axis.ticks;
   const n = r.valuesUm.length;
   const x = (i: number) => m.l + (i / Math.max(1, n)) * (w - m.l - m.r);
   const y = (v: number) => h - m.b - (v / yMax) * (h - m.t - m.b);

@@ -65,14 +65,4 @@ export function parameterChartRows(params: NonNullable<ReportCharts["parameters"
   }));
 }
 
-/** "Nice" tick values 0 … max (1, 2 or 5 × 10^n steps). Pure; exported for tests. */
-export function niceTicks(max: number, count = 4): number[] {
-  if (!(max > 0)) return [0];
-  const raw = max / count;
-  const mag = 10 ** Math.floor(Math.log10(raw));
-  const step = [1, 2, 5, 10].map((f) => f * mag).find((s) => s >= raw) ?? 10 * mag;
-  const out: number[] = [];
-  for (let v = 0; v <= max + step * 1e-9; v += step) out.push(Number(v.toPrecision(12)));
-  return out;
-}
 

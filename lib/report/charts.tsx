@@ -6,7 +6,8 @@
  * Shape and a word carry every meaning as well as colour (before: hollow ring, after: filled dot).
  */
 import { Circle, Line, Rect, Svg, Text, View } from "@react-pdf/renderer";
-import { niceTicks, rowDomain, type LimitRow } from "./chart-data";
+import { niceTicks } from "@/lib/chart-ticks";
+import { rowDomain, type LimitRow } from "./chart-data";
 import type { ReportCharts } from "./types";
 
 const C = { ink: "#1d2125", muted: "#555d68", rule: "#d5d9de", band: "#e7efe9", limit: "#17613a", before: "#5f7d99", after: "#1d2125", fail: "#9c2420", accent: "#b86e05" };
@@ -66,8 +67,9 @@ export function ResidualsChart({ residuals }: { residuals: NonNullable<ReportCha
   const m = { l: 26, r: 6, t: 6, b: 14 };
   const n = residuals.valuesUm.length;
   const limit = 3 * residuals.sUm;
-  const yMax = Math.max(limit * 1.25, ...residuals.valuesUm) || 1;
-  const ticks = niceTicks(yMax);
+  const axis = niceTicks(0, Math.max(limit * 1.25, ...residuals.valuesUm) || 1);
+  const yMax = axis.max;
+  const ticks = axis.ticks;
   const x = (i: number) => m.l + (i / Math.max(1, n)) * (W - m.l - m.r);
   const y = (v: number) => H - m.b - (v / yMax) * (H - m.t - m.b);
   const bw = Math.max(0.4, ((W - m.l - m.r) / Math.max(1, n)) * 0.7);

@@ -1,7 +1,7 @@
-// Axis ticks of the server-rendered charts (components/charts/ticks.ts): the 1-2-5 rule of chart
+// Axis ticks of the server-rendered charts (lib/chart-ticks.ts, shared by every chart on the pages and in the PDF): the 1-2-5 rule of chart
 // axes (common practice), checked against ranges worked out by hand.
 import { describe, expect, it } from "vitest";
-import { niceTicks } from "@/components/charts/ticks";
+import { niceTicks } from "@/lib/chart-ticks";
 
 describe("niceTicks", () => {
   it("covers the range with steps of 1, 2 or 5 × 10ⁿ (worked by hand)", () => {
