@@ -11,7 +11,8 @@ export function ParameterTable({ rows, warnings }: { rows: readonly ParameterRow
   const sources = [...new Set(rows.flatMap((r) => (r.limitSourceText ? [r.limitSourceText] : [])))];
   return (
     <>
-      <div className="overflow-x-auto">
+      {/* Focusable, so the table can be scrolled sideways from the keyboard on a narrow screen. */}
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Fitted parameters table">
         <table className="w-full text-sm" aria-label="Fitted parameters">
           <thead>
             <tr className="border-b border-graphite-200 text-left text-graphite-600">

@@ -37,7 +37,8 @@ function Rows({ rows }: { rows: Array<[string, string | undefined]> }) {
 
 function Table({ head, rows, numeric = [] }: { head: string[]; rows: React.ReactNode[][]; numeric?: number[] }) {
   return (
-    <div className="overflow-x-auto">
+    // Focusable, so a table wider than a tablet can be scrolled from the keyboard.
+    <div className="overflow-x-auto" tabIndex={0} role="region" aria-label={`Table: ${head.slice(0, 3).join(", ")}`}>
       <table className="w-full text-sm">
         <thead className="bg-graphite-50 text-graphite-600">
           <tr>
