@@ -9,6 +9,7 @@
  * Needs the app running (npm run demo):  npm run bench:load [-- --seconds 10 --url http://127.0.0.1:3000]
  */
 import autocannon from "autocannon";
+import { signIn } from "./sign-in";
 
 const args = process.argv.slice(2);
 const opt = (name: string, dflt: string) => {
@@ -21,29 +22,7 @@ const CONNECTIONS = Number(opt("connections", "16"));
 const UPLOADS = Math.min(2000, Number(opt("uploads", "160")));
 if (!/^https?:\/\/(127\.\d+\.\d+\.\d+|localhost|\[::1\])(:\d+)?$/.test(BASE)) throw new Error("The load benchmark only targets loopback.");
 
-async function signInCookie(email: string, password: string): Promise<string> {
-  const jar = new Map<string, string>();
-  const keep = (res: Response) => {
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(";");
-      const [k, v] = pair!.split("=");
-      jar.set(k!, v ?? "");
-    }
-  };
-  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
-  const csrfRes = await fetch(`${BASE}/api/auth/csrf`);
-  keep(csrfRes);
-  const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
-  const res = await fetch(`${BASE}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: cookie() },
-    body: new URLSearchParams({ csrfToken, email, password, json: "true" }),
-  });
-  keep(res);
-  if (![...jar.keys()].some((k) => k.includes("session-token"))) throw new Error(`sign-in failed (${res.status})`);
-  return cookie();
-}
+const signInCookie = (email: string, password: string) => signIn(BASE, email, password);
 
 function run(title: string, path: string, headers: Record<string, string>, extra: Partial<autocannon.Options> = {}) {
   return new Promise<Record<string, number | string>>((resolve, reject) => {

@@ -10,6 +10,7 @@ import { execFileSync } from "node:child_process";
 import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import autocannon from "autocannon";
+import { signIn } from "./sign-in";
 
 const args = process.argv.slice(2);
 const opt = (name: string, dflt: string) => {
@@ -48,35 +49,13 @@ function backends(): Map<number, number> {
   return m;
 }
 
-async function signIn(): Promise<string> {
-  const jar = new Map<string, string>();
-  const keep = (r: Response) => {
-    for (const c of r.headers.getSetCookie()) {
-      const [pair] = c.split(";");
-      const i = pair!.indexOf("=");
-      jar.set(pair!.slice(0, i), pair!.slice(i + 1));
-    }
-  };
-  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
-  const r1 = await fetch(`${BASE}/api/auth/csrf`);
-  keep(r1);
-  const { csrfToken } = (await r1.json()) as { csrfToken: string };
-  const r2 = await fetch(`${BASE}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: cookie() },
-    body: new URLSearchParams({ csrfToken, email: "engineer@halvard.example", password: "trammel-demo", json: "true" }),
-  });
-  keep(r2);
-  return cookie();
-}
 
 const load = (p: string, headers: Record<string, string>) =>
   new Promise<number>((resolve, reject) =>
     autocannon({ url: `${BASE}${p}`, connections: 16, amount: N, headers }, (err, r) => (err ? reject(err) : resolve(r.errors + r.timeouts + r.non2xx))),
   );
 
-const cookie = await signIn();
+const cookie = await signIn(BASE, "engineer@halvard.example");
 const results = [];
 for (const [route, p, headers] of [["bare static JSON", "/api/ping", {}], ["GET /api/jobs", "/api/jobs", { cookie }]] as const) {
   await load(p, headers); // warm: JIT, pool connections, PostgreSQL's plan cache
