@@ -73,6 +73,12 @@ const PARAMETER_DECISION_TEXT: Record<StepDecision, string> = {
   not_measured: "Not determined",
 };
 
+/** Fixed decimals with a real minus sign, and no sign on a value that rounds to zero (never "−0.0000"). */
+export function fixed(v: number, digits: number): string {
+  const s = Math.abs(v).toFixed(digits);
+  return v < 0 && Number(s) !== 0 ? `−${s}` : s;
+}
+
 /** Signed, fixed decimals, with a real minus sign. */
 export function signed(v: number, digits: number): string {
   const s = Math.abs(v).toFixed(digits);

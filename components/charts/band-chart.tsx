@@ -56,7 +56,8 @@ export function BandChart({ rows }: { rows: BandRow[] }) {
     { key: "post" as const, title: "After adjustment", x0: LABEL_W + PANEL_W + GAP },
   ];
   return (
-    <figure className="overflow-x-auto">
+    // Focusable, so the chart can be scrolled sideways from the keyboard on a narrow screen.
+    <figure className="overflow-x-auto" tabIndex={0} aria-label="Readings against their limits, chart">
       <svg viewBox={`0 0 ${width} ${height}`} className="w-full min-w-[44rem]" role="img" aria-labelledby="band-title band-desc" data-testid="band-chart">
         <title id="band-title">Readings against their limits, before and after the adjustment</title>
         <desc id="band-desc">{rows.map((r) => `${r.label}: limit ${r.limitText}; before ${r.pre?.text ?? "not measured"}; after ${r.post?.text ?? "not measured"}.`).join(" ")}</desc>

@@ -1,5 +1,6 @@
 "use client";
 
+import { ScrollRegion } from "@/components/ui/scroll-region";
 import { useMemo, useState, useTransition } from "react";
 import { useForm } from "react-hook-form";
 import { useRouter } from "next/navigation";
@@ -239,7 +240,7 @@ export function StepPanel({ jobId, step, readings, unitSystem, instruments, canW
 function ReadingsList({ readings, step, unitSystem, canWrite, onCorrect }: { readings: PanelReading[]; step: PanelStep; unitSystem: UnitSystem; canWrite: boolean; onCorrect: (r: PanelReading) => void }) {
   if (readings.length === 0) return <p className="text-sm text-graphite-500">No readings yet.</p>;
   return (
-    <div className="overflow-x-auto">
+    <ScrollRegion label={`Readings of step ${step.position}, table`}>
       <table className="w-full text-sm">
         <caption className="sr-only">Readings of step {step.position}</caption>
         <thead className="text-left text-graphite-600">
@@ -281,6 +282,6 @@ function ReadingsList({ readings, step, unitSystem, canWrite, onCorrect }: { rea
           })}
         </tbody>
       </table>
-    </div>
+    </ScrollRegion>
   );
 }

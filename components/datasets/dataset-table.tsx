@@ -1,3 +1,4 @@
+import { ScrollRegion } from "@/components/ui/scroll-region";
 import Link from "next/link";
 import type { DatasetListRow } from "@/db/queries/datasets";
 import { formatDateTimeUtc } from "@/lib/format";
@@ -9,7 +10,7 @@ export function DatasetTable({ jobId, rows }: { jobId: string; rows: readonly Da
     return <p className="rounded-card border border-dashed border-graphite-300 bg-white p-6 text-center text-sm text-graphite-600">No measurement data has been added to this job yet.</p>;
   }
   return (
-    <div className="overflow-x-auto rounded-card border border-graphite-200 bg-white shadow-sm">
+    <ScrollRegion label="Datasets, table" className="rounded-card border border-graphite-200 bg-white shadow-sm">
       <table className="w-full text-sm">
         <caption className="sr-only">Datasets of this job</caption>
         <thead className="border-b border-graphite-200 bg-graphite-50 text-left text-graphite-600">
@@ -58,6 +59,6 @@ export function DatasetTable({ jobId, rows }: { jobId: string; rows: readonly Da
           ))}
         </tbody>
       </table>
-    </div>
+    </ScrollRegion>
   );
 }

@@ -1,5 +1,6 @@
 "use client";
 
+import { ScrollRegion } from "@/components/ui/scroll-region";
 import { useRouter } from "next/navigation";
 import { useMemo, useRef, useState } from "react";
 import { scanCsv, MAX_LISTED, type CsvScan } from "./csv-scan";
@@ -297,7 +298,7 @@ export function UploadPanel({ jobId }: { jobId: string }) {
           <h3 className="text-sm font-semibold">
             Preview <span className="font-normal text-graphite-600">— <span className="num">{scan.rows.toLocaleString("en-GB")}</span> data rows, separated by “{scan.delimiter}”</span>
           </h3>
-          <div className="overflow-x-auto rounded-lg border border-graphite-200">
+          <ScrollRegion label="Preview of the first rows, table" className="rounded-lg border border-graphite-200">
             <table className="w-full text-sm" aria-label="Preview of the first rows">
               <thead className="bg-graphite-50 text-left">
                 <tr>
@@ -325,7 +326,7 @@ export function UploadPanel({ jobId }: { jobId: string }) {
                 ))}
               </tbody>
             </table>
-          </div>
+          </ScrollRegion>
           <details className="rounded-lg border border-graphite-200 p-3" open={mappingOpen} onToggle={(e) => setMappingOpen(e.currentTarget.open)}>
             <summary className="cursor-pointer text-sm font-medium">Columns: matched from the header names — change a match here</summary>
             <div className="mt-3 grid gap-3 sm:grid-cols-2 lg:grid-cols-3">

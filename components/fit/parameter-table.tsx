@@ -1,3 +1,4 @@
+import { ScrollRegion } from "@/components/ui/scroll-region";
 import { DecisionBadge } from "@/components/readings/decision-badge";
 import type { ParameterRow } from "@/lib/fit-display";
 
@@ -11,8 +12,7 @@ export function ParameterTable({ rows, warnings }: { rows: readonly ParameterRow
   const sources = [...new Set(rows.flatMap((r) => (r.limitSourceText ? [r.limitSourceText] : [])))];
   return (
     <>
-      {/* Focusable, so the table can be scrolled sideways from the keyboard on a narrow screen. */}
-      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Fitted parameters table">
+      <ScrollRegion label="Fitted parameters table">
         <table className="w-full text-sm" aria-label="Fitted parameters">
           <thead>
             <tr className="border-b border-graphite-200 text-left text-graphite-600">
@@ -55,7 +55,7 @@ export function ParameterTable({ rows, warnings }: { rows: readonly ParameterRow
             ))}
           </tbody>
         </table>
-      </div>
+      </ScrollRegion>
       <p className="mt-3 text-xs text-graphite-600">
         {anyLimit
           ? "Limits come from the job's procedure version. Simple acceptance: pass inside the limits, U shown but not subtracted. Guarded acceptance (ISO 14253-1): pass only inside the limits narrowed by U, fail only outside them widened by U, undecided between."

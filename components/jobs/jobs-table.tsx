@@ -1,3 +1,4 @@
+import { ScrollRegion } from "@/components/ui/scroll-region";
 import Link from "next/link";
 import type { JobListRow, JobSortKey } from "@/db/queries/jobs";
 import { StatusBadge } from "@/components/ui/status-badge";
@@ -27,7 +28,7 @@ export function JobsTable({ rows, sort, params, showCustomer }: { rows: JobListR
     return <p className="rounded-card border border-dashed border-graphite-300 bg-white p-8 text-center text-graphite-600">No jobs match. Clear the filter to see every job you may open.</p>;
   }
   return (
-    <div className="overflow-x-auto rounded-card border border-graphite-200 bg-white shadow-sm">
+    <ScrollRegion label="Jobs, table" className="rounded-card border border-graphite-200 bg-white shadow-sm">
       <table className="w-full min-w-[48rem] text-sm">
         <thead className="border-b border-graphite-200 bg-graphite-50 text-graphite-600">
           <tr>
@@ -70,6 +71,6 @@ export function JobsTable({ rows, sort, params, showCustomer }: { rows: JobListR
           ))}
         </tbody>
       </table>
-    </div>
+    </ScrollRegion>
   );
 }

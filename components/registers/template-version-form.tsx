@@ -1,5 +1,6 @@
 "use client";
 
+import { ScrollRegion } from "@/components/ui/scroll-region";
 import { createTemplateVersionAction } from "@/app/(app)/registers/actions";
 import { ActionForm, inputClass } from "./action-form";
 
@@ -77,7 +78,7 @@ export function TemplateVersionForm({ templateId, unit, steps, parameters = [] }
     <ActionForm action={createTemplateVersionAction} submitLabel="Save as a new version" resetOnSuccess={false} successMessage="New version saved; jobs already started keep the version they began with.">
       <input type="hidden" name="templateId" value={templateId} />
       <input type="hidden" name="unit" value={unit} />
-      <div className="overflow-x-auto">
+      <ScrollRegion label="Step limits, table">
         <table className="w-full text-sm">
           <LimitsHead first="Step" />
           <tbody className="divide-y divide-graphite-100">
@@ -93,9 +94,9 @@ export function TemplateVersionForm({ templateId, unit, steps, parameters = [] }
             ))}
           </tbody>
         </table>
-      </div>
+      </ScrollRegion>
       {parameters.length ? (
-        <div className="mt-4 overflow-x-auto">
+        <ScrollRegion label="Limits for the fitted head parameters, table" className="mt-4">
           <h4 className="text-sm font-semibold">Limits for the fitted head parameters</h4>
           <p className="text-xs text-graphite-600">Lengths in µm, angles in arc seconds. Leave both limits empty for a parameter that is recorded, not judged.</p>
           <table className="mt-2 w-full text-sm">
@@ -112,7 +113,7 @@ export function TemplateVersionForm({ templateId, unit, steps, parameters = [] }
               ))}
             </tbody>
           </table>
-        </div>
+        </ScrollRegion>
       ) : null}
     </ActionForm>
   );

@@ -1,3 +1,4 @@
+import { ScrollRegion } from "@/components/ui/scroll-region";
 import { ReportFigures } from "@/components/report/report-charts";
 import type { Decision, ReportData } from "@/lib/report/types";
 
@@ -22,13 +23,13 @@ function Section({ n, title, children }: { n: number; title: string; children: R
 
 function Rows({ rows }: { rows: Array<[string, string | undefined]> }) {
   return (
-    <dl className="grid grid-cols-[minmax(9rem,auto)_1fr] gap-x-6 gap-y-1 text-sm">
+    <dl className="grid grid-cols-[minmax(7rem,auto)_minmax(0,1fr)] gap-x-6 gap-y-1 text-sm">
       {rows
         .filter((r): r is [string, string] => Boolean(r[1]))
         .map(([k, v]) => (
           <div key={k} className="contents">
             <dt className="text-graphite-600">{k}</dt>
-            <dd>{v}</dd>
+            <dd className="break-words">{v}</dd>
           </div>
         ))}
     </dl>
@@ -37,8 +38,7 @@ function Rows({ rows }: { rows: Array<[string, string | undefined]> }) {
 
 function Table({ head, rows, numeric = [] }: { head: string[]; rows: React.ReactNode[][]; numeric?: number[] }) {
   return (
-    // Focusable, so a table wider than a tablet can be scrolled from the keyboard.
-    <div className="overflow-x-auto" tabIndex={0} role="region" aria-label={`Table: ${head.slice(0, 3).join(", ")}`}>
+    <ScrollRegion label={`Table: ${head.slice(0, 3).join(", ")}`}>
       <table className="w-full text-sm">
         <thead className="bg-graphite-50 text-graphite-600">
           <tr>
@@ -61,7 +61,7 @@ function Table({ head, rows, numeric = [] }: { head: string[]; rows: React.React
           ))}
         </tbody>
       </table>
-    </div>
+    </ScrollRegion>
   );
 }
 

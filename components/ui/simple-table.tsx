@@ -1,3 +1,4 @@
+import { ScrollRegion } from "./scroll-region";
 /** A plain, readable table for register lists. Columns right-align when marked numeric. */
 export interface Column<T> {
   header: string;
@@ -7,7 +8,7 @@ export interface Column<T> {
 
 export function SimpleTable<T extends { id: string }>({ rows, columns, caption }: { rows: readonly T[]; columns: readonly Column<T>[]; caption: string }) {
   return (
-    <div className="overflow-x-auto rounded-card border border-graphite-200 bg-white shadow-sm">
+    <ScrollRegion label={`${caption}, table`} className="rounded-card border border-graphite-200 bg-white shadow-sm">
       <table className="w-full text-sm">
         <caption className="sr-only">{caption}</caption>
         <thead className="border-b border-graphite-200 bg-graphite-50 text-graphite-600">
@@ -31,6 +32,6 @@ export function SimpleTable<T extends { id: string }>({ rows, columns, caption }
           ))}
         </tbody>
       </table>
-    </div>
+    </ScrollRegion>
   );
 }

@@ -176,8 +176,9 @@ function Legend({ maxRes, shown, other }: { maxRes: number; shown?: ViewerFitLab
     const [r, g, b] = residualColour(f * maxRes, maxRes);
     return `rgb(${Math.round(r * 255)} ${Math.round(g * 255)} ${Math.round(b * 255)}) ${f * 100}%`;
   });
+  // On a tablet or phone the legend sits under the picture instead of covering part of it.
   return (
-    <div className={`absolute bottom-3 right-3 ${other ? "w-80" : "w-64"} space-y-2 rounded bg-white/95 p-3 text-xs text-graphite-800 shadow-sm`} aria-label="Legend">
+    <div className={`m-3 space-y-2 rounded bg-white/95 p-3 text-xs text-graphite-800 shadow-sm lg:absolute lg:bottom-3 lg:right-3 lg:m-0 ${other ? "lg:w-80" : "lg:w-64"}`} aria-label="Legend">
       <p className="font-semibold">Measured points: residual |r|</p>
       <div className="h-3 rounded" style={{ background: `linear-gradient(to right, ${stops.join(", ")})` }} aria-hidden="true" />
       <div className="num flex justify-between">

@@ -1,3 +1,4 @@
+import { ScrollRegion } from "@/components/ui/scroll-region";
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { LIMIT_SOURCE_LABELS } from "@/components/readings/decision-badge";
@@ -32,7 +33,7 @@ export default async function ProceduresPage() {
       {templates.map((t) => (
         <Card key={t.id} title={`${t.name} · version ${t.version}${t.isCurrent ? " (current)" : ""}`}>
           <p className="mb-3 text-sm text-graphite-600">{t.description} Created {formatDateTimeUtc(t.createdAt)}.</p>
-          <div className="overflow-x-auto">
+          <ScrollRegion label={`Step limits, version ${t.version}, table`}>
             <table className="w-full text-sm">
               <thead className="border-b border-graphite-200 text-left text-graphite-600">
                 <tr>
@@ -55,12 +56,12 @@ export default async function ProceduresPage() {
                 ))}
               </tbody>
             </table>
-          </div>
+          </ScrollRegion>
           <h3 className="mb-2 mt-5 text-sm font-semibold">Limits for the fitted head parameters</h3>
           {t.parameterLimits.length === 0 ? (
             <p className="text-sm text-graphite-600">None: a head fit on a job with this version is recorded, not judged.</p>
           ) : (
-            <div className="overflow-x-auto">
+            <ScrollRegion label={`Head parameter limits, version ${t.version}, table`}>
               <table className="w-full text-sm" aria-label={`Head parameter limits, version ${t.version}`}>
                 <thead className="border-b border-graphite-200 text-left text-graphite-600">
                   <tr>
@@ -85,7 +86,7 @@ export default async function ProceduresPage() {
                   })}
                 </tbody>
               </table>
-            </div>
+            </ScrollRegion>
           )}
           {user.role === "admin" && t.isCurrent ? (
             <details className="mt-4 rounded-card border border-graphite-200 p-4">

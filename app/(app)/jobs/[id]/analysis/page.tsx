@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ApproveButton, RunFitButton } from "@/components/fit/fit-buttons";
-import { controlValues, parameterRows, signed, type ParameterLimit } from "@/lib/fit-display";
+import { controlValues, fixed, parameterRows, signed, type ParameterLimit } from "@/lib/fit-display";
 import { ParameterTable } from "@/components/fit/parameter-table";
 import { PoseCoverage } from "@/components/fit/pose-coverage";
 import { ResidualChart } from "@/components/fit/residual-chart";
@@ -158,7 +158,7 @@ function FitSection({
             {fitRow.createdByName ? ` by ${fitRow.createdByName}` : ""} · computation {a.geometryVersion} · input <span className="num">{a.inputSha256.slice(0, 12)}…</span>
           </p>
         </div>
-        <div className="grid gap-6 xl:grid-cols-[1fr_23rem]">
+        <div className="grid grid-cols-[minmax(0,1fr)] gap-6 xl:grid-cols-[minmax(0,1fr)_23rem]">
           <Card title="Pivot and squareness in 3D">
             <HeadViewerLoader config={config} errors={errors} poses={poses} residualsUm={viewResiduals} shown={shownLabel} overlay={overlay} maySave={user.role === "engineer"} />
             {step > 1 ? <p className="mt-2 text-xs text-graphite-600">Showing every {step}th pose: {poses.length} of {r.poses.row.length}.</p> : null}
@@ -180,7 +180,7 @@ function FitSection({
               <dt className="text-graphite-600">Outliers (beyond 3 s)</dt>
               <dd className="num text-right">{fit.outliers.length}</dd>
               <dt className="col-span-2 text-graphite-600">Sphere centre (x, y, z)</dt>
-              <dd className="num col-span-2 text-right">{fit.sphere_centre_mm.map((v) => v.toFixed(4)).join(", ")} mm</dd>
+              <dd className="num col-span-2 text-right">{fit.sphere_centre_mm.map((v) => fixed(v, 4)).join(", ")} mm</dd>
             </dl>
             <p className="mt-4 text-xs text-graphite-600">Uncertainties are expanded, U = 2u (k = 2, about 95 %), from the residual scatter s²·(JᵀJ)⁻¹.</p>
           </Card>

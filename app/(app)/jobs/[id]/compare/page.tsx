@@ -1,3 +1,4 @@
+import { ScrollRegion } from "@/components/ui/scroll-region";
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { BandChart } from "@/components/charts/band-chart";
@@ -60,7 +61,7 @@ export default async function ComparePage({ params }: Props) {
         </div>
       </div>
 
-      <div className="overflow-x-auto rounded-card border border-graphite-200 bg-white shadow-sm">
+      <ScrollRegion label="Before and after, table" className="rounded-card border border-graphite-200 bg-white shadow-sm">
         <table className="w-full text-sm" data-testid="compare-table">
           <caption className="sr-only">Each step with its reading before and after the adjustment, the change, the limits and the result</caption>
           <thead className="border-b border-graphite-200 bg-graphite-50 text-graphite-600">
@@ -113,7 +114,7 @@ export default async function ComparePage({ params }: Props) {
             ))}
           </tbody>
         </table>
-      </div>
+      </ScrollRegion>
 
       <Card title="Readings against their limits">
         <BandChart

@@ -27,7 +27,7 @@ export default async function ReportPage({ params }: Props) {
   const work = (["performed", "inspected"] as const).filter((m) => !signatureRefusal(user, m, d.job) && !sigs?.some((s) => s.meaning === m && s.reportId === null && s.signerId === user.id));
 
   return (
-    <div className="grid gap-6 xl:grid-cols-[1fr_22rem]">
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-6 xl:grid-cols-[minmax(0,1fr)_22rem]">
       <div className="space-y-4">
         {content ? (
           <>

@@ -1,3 +1,4 @@
+import { ScrollRegion } from "@/components/ui/scroll-region";
 import Link from "next/link";
 import { ParameterTrend, type TrendSeries } from "@/components/charts/parameter-trend";
 import { Card } from "@/components/ui/card";
@@ -35,7 +36,7 @@ export function FitHistory({ history }: { history: HeadFitHistory }) {
           <p className="text-sm text-graphite-600">
             For each job on this head: the approved parameter set, or the latest fit where none is approved yet. Values are the head as measured minus the head as designed, ± U (k = 2).
           </p>
-          <div className="overflow-x-auto">
+          <ScrollRegion label="Fitted parameters by job, table">
             <table className="w-full min-w-[40rem] text-sm" aria-label="Fitted parameters by job" data-testid="head-history">
               <thead>
                 <tr className="border-b border-graphite-200 align-bottom">
@@ -94,7 +95,7 @@ export function FitHistory({ history }: { history: HeadFitHistory }) {
                 </tr>
               </tbody>
             </table>
-          </div>
+          </ScrollRegion>
           {series.length > 0 && fitted.length > 0 ? (
             <div>
               <h3 className="mb-2 text-sm font-semibold text-graphite-900">Trend across jobs</h3>
