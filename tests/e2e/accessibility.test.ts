@@ -1,9 +1,8 @@
 // Accessibility scan (axe-core, WCAG 2 A/AA rules) of every page each role reaches, on desktop
 // and tablet viewports. Fails on serious or critical violations.
-import AxeBuilder from "@axe-core/playwright";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
-import { newContext, signIn } from "./browser";
+import { newContext, seriousViolations, signIn } from "./browser";
 
 let desktop: BrowserContext;
 let tablet: BrowserContext;
@@ -16,13 +15,6 @@ afterAll(async () => {
   await desktop?.close();
   await tablet?.close();
 });
-
-async function serious(page: Page): Promise<string[]> {
-  const result = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
-  return result.violations
-    .filter((v) => v.impact === "serious" || v.impact === "critical")
-    .map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.slice(0, 3).map((n) => n.target.join(" ")).join(", ")}`);
-}
 
 /** The job pages under /jobs/{id} reachable from the tabs, for one job. */
 async function jobPages(page: Page, reference: string): Promise<string[]> {
@@ -48,7 +40,7 @@ for (const [name, get] of [["desktop", () => desktop], ["tablet", () => tablet]]
       const p = await ctx.newPage();
       for (const path of ["/login", "/verify"]) {
         await p.goto(path);
-        expect(await serious(p), path).toEqual([]);
+        expect(await seriousViolations(p), path).toEqual([]);
       }
       await p.close();
     });
@@ -61,12 +53,12 @@ for (const [name, get] of [["desktop", () => desktop], ["tablet", () => tablet]]
         const p = await ctx.newPage();
         await signIn(p, person.email);
         await p.waitForURL("**/jobs");
-        expect(await serious(p), "/jobs").toEqual([]);
+        expect(await seriousViolations(p), "/jobs").toEqual([]);
         const pages = [...(await jobPages(p, person.email.includes("installer") ? "TR-2026-0052" : "TR-2026-0041")), ...person.extra];
         for (const path of pages) {
           await p.goto(path);
           await p.waitForLoadState("load");
-          expect(await serious(p), path).toEqual([]);
+          expect(await seriousViolations(p), path).toEqual([]);
         }
         await p.close();
       });

@@ -7,13 +7,12 @@
 // datasets API the upload page uses and runs the fit (approval refused: measuring), the
 // administrator submits the job for review on the checklist page, and the engineer approves and
 // sees the values for the control.
-import AxeBuilder from "@axe-core/playwright";
 import { mkdirSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
 import { headPoseGrid, synthesiseSphereProbe } from "@/geometry";
-import { newContext, screenshotPath, signIn } from "./browser";
+import { canvasPixels, newContext, screenshotPath, seriousViolations, signIn, waitForPicture } from "./browser";
 
 let ctx: BrowserContext;
 
@@ -24,40 +23,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await ctx?.close();
 });
-
-/** Pixels of the WebGL canvas that differ from its clear colour (#f3f4f6), and a digest of the picture. */
-async function canvasPixels(page: Page): Promise<{ drawn: number; total: number; digest: string }> {
-  return page.evaluate(async () => {
-    const c = document.querySelector<HTMLCanvasElement>('[data-testid="head-viewer"] canvas');
-    if (!c) return { drawn: 0, total: 0, digest: "" };
-    const url = c.toDataURL("image/png");
-    const img = new Image();
-    await new Promise<void>((res, rej) => {
-      img.onload = () => res();
-      img.onerror = () => rej(new Error("image"));
-      img.src = url;
-    });
-    const off = document.createElement("canvas");
-    off.width = img.width;
-    off.height = img.height;
-    const g = off.getContext("2d")!;
-    g.drawImage(img, 0, 0);
-    const d = g.getImageData(0, 0, off.width, off.height).data;
-    let drawn = 0;
-    let h = 0;
-    for (let i = 0; i < d.length; i += 4) {
-      if (Math.abs(d[i]! - 243) + Math.abs(d[i + 1]! - 244) + Math.abs(d[i + 2]! - 246) > 24) drawn++;
-      h = (h * 31 + d[i]! + 7 * d[i + 1]! + 13 * d[i + 2]!) >>> 0;
-    }
-    return { drawn, total: d.length / 4, digest: `${h}` };
-  });
-}
-
-/** Serious or critical WCAG 2 A/AA violations (axe-core), as in tests/e2e/accessibility.test.ts. */
-async function seriousViolations(page: Page): Promise<string[]> {
-  const result = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
-  return result.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.id}: ${v.help} — ${v.nodes.slice(0, 3).map((n) => n.target.join(" ")).join(", ")}`);
-}
 
 /** The 3D view with its printed factor, scrolled to the top so the page's sticky header does not cover it. */
 async function viewerShot(page: Page, name: string) {
@@ -70,11 +35,6 @@ async function openAnalysis(page: Page, reference: string) {
   await page.getByRole("link", { name: reference }).click();
   await page.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Analysis" }).click();
   await page.waitForURL(/\/analysis$/);
-}
-
-async function waitForPicture(page: Page) {
-  await page.locator('[data-testid="head-viewer"][data-ready="true"]').waitFor({ timeout: 30_000 });
-  await expect.poll(async () => (await canvasPixels(page)).drawn, { timeout: 15_000 }).toBeGreaterThan(5000);
 }
 
 describe("journey 2: the engineer reviews and approves the head fit", () => {

@@ -2,10 +2,12 @@
  * Debian's Chromium driven by playwright-core (no downloaded browser). Flags: no sandbox as root,
  * no background networking on a closed network, software WebGL for the 3D view.
  */
-import { mkdtempSync } from "node:fs";
+import AxeBuilder from "@axe-core/playwright";
+import { existsSync, mkdtempSync, readdirSync, readFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
+import { expect } from "vitest";
 
 export const BASE_URL = process.env.E2E_BASE_URL ?? "http://127.0.0.1:3100";
 export const DEMO_PASSWORD = "trammel-demo";
@@ -23,7 +25,11 @@ export const CHROMIUM_ARGS = [
   "--enable-unsafe-swiftshader",
 ];
 
-export async function newContext(viewport = { width: 1366, height: 900 }): Promise<BrowserContext> {
+/** The two devices every journey runs on: an office desktop and the installer's tablet (portrait). */
+export const DESKTOP = { width: 1366, height: 900 };
+export const TABLET = { width: 820, height: 1180 };
+
+export async function newContext(viewport = DESKTOP): Promise<BrowserContext> {
   const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-chromium-"));
   return chromium.launchPersistentContext(dir, {
     executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
@@ -44,4 +50,71 @@ export async function signIn(page: Page, email: string, password = DEMO_PASSWORD
 
 export function screenshotPath(name: string): string {
   return path.join(process.cwd(), ".data", "screenshots", `${name}.png`);
+}
+
+/** Serious or critical WCAG 2 A/AA violations on the page as it is now (axe-core), one line each. */
+export async function seriousViolations(page: Page): Promise<string[]> {
+  const result = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
+  return result.violations
+    .filter((v) => v.impact === "serious" || v.impact === "critical")
+    .map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.slice(0, 3).map((n) => n.target.join(" ")).join(", ")}`);
+}
+
+/** Does the page scroll sideways? (Wide tables scroll inside their own region, never the page.) */
+export async function scrollsSideways(page: Page): Promise<boolean> {
+  return page.evaluate(() => document.documentElement.scrollWidth > window.innerWidth + 1);
+}
+
+/** Pixels of the 3D view's WebGL canvas that differ from its clear colour (#f3f4f6), and a digest of the picture. */
+export async function canvasPixels(page: Page): Promise<{ drawn: number; total: number; digest: string }> {
+  return page.evaluate(async () => {
+    const c = document.querySelector<HTMLCanvasElement>('[data-testid="head-viewer"] canvas');
+    if (!c) return { drawn: 0, total: 0, digest: "" };
+    const url = c.toDataURL("image/png");
+    const img = new Image();
+    await new Promise<void>((res, rej) => {
+      img.onload = () => res();
+      img.onerror = () => rej(new Error("image"));
+      img.src = url;
+    });
+    const off = document.createElement("canvas");
+    off.width = img.width;
+    off.height = img.height;
+    const g = off.getContext("2d")!;
+    g.drawImage(img, 0, 0);
+    const d = g.getImageData(0, 0, off.width, off.height).data;
+    let drawn = 0;
+    let h = 0;
+    for (let i = 0; i < d.length; i += 4) {
+      if (Math.abs(d[i]! - 243) + Math.abs(d[i + 1]! - 244) + Math.abs(d[i + 2]! - 246) > 24) drawn++;
+      h = (h * 31 + d[i]! + 7 * d[i + 1]! + 13 * d[i + 2]!) >>> 0;
+    }
+    return { drawn, total: d.length / 4, digest: `${h}` };
+  });
+}
+
+/** Waits until the 3D view says it is ready and has drawn something. */
+export async function waitForPicture(page: Page): Promise<void> {
+  await page.locator('[data-testid="head-viewer"][data-ready="true"]').waitFor({ timeout: 30_000 });
+  await expect.poll(async () => (await canvasPixels(page)).drawn, { timeout: 15_000 }).toBeGreaterThan(5000);
+}
+
+/** The raw message to this address whose text matches, as delivered to the local SMTP fake the test command runs. */
+export async function mailTo(address: string, match: RegExp): Promise<string> {
+  const dir = process.env.E2E_MAIL_DIR ?? path.join(process.cwd(), ".data", "test-mail");
+  for (let i = 0; i < 60; i++) {
+    if (existsSync(dir)) {
+      for (const f of readdirSync(dir).filter((x) => x.endsWith(".eml"))) {
+        const raw = readFileSync(path.join(dir, f), "utf8");
+        if (raw.includes(address) && match.test(raw)) return raw;
+      }
+    }
+    await new Promise((r) => setTimeout(r, 500));
+  }
+  throw new Error(`no e-mail to ${address} matching ${match} in ${dir}`);
+}
+
+/** The link to a job's report page in a quoted-printable e-mail. */
+export function reportLink(raw: string): string | undefined {
+  return raw.replace(/=\r?\n/g, "").match(/https?:\/\/[^\s]+\/jobs\/[0-9a-f-]{36}\/report/)?.[0];
 }

@@ -1,7 +1,7 @@
 // Journey 1 of docs/product.md up to the evaluation table, in Debian's Chromium against the built
 // app: the inspector opens a job's Data page, picks a bad test-part CSV and sees its row errors
 // before anything is sent, then a good one: preview, upload with progress, and the per-feature
-// pass/fail table with the job's decision rule stated. Signing "inspected" is a later step.
+// pass/fail table with the job's decision rule stated; then signs the job as inspected.
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
@@ -89,6 +89,24 @@ describe("inspector: test-part data to a judged table", () => {
     expect(res.status()).toBe(200);
     expect(Buffer.compare(await res.body(), readFileSync("tests/fixtures/uploads/test-part-good.csv"))).toBe(0);
     expect(res.headers()["x-content-type-options"]).toBe("nosniff");
+  });
+});
+
+describe("inspector: signs the job as inspected", () => {
+  it("a wrong password is refused, then the signature is listed with name, role and UTC time", async () => {
+    await page.goto(page.url().replace(/\/data\/[0-9a-f-]{36}$/, "/report"));
+    const form = page.getByRole("form", { name: "Sign as inspected" });
+    expect(await form.innerText()).toContain("You confirm you inspected the recorded readings and measurements");
+    await form.getByLabel("Your password").fill("not-my-password");
+    await form.getByRole("button", { name: "Sign" }).click();
+    await expect.poll(() => form.getByRole("alert").innerText()).toContain("password");
+    await form.getByLabel("Your password").fill("trammel-demo");
+    await form.getByRole("button", { name: "Sign" }).click();
+    const sigs = page.getByRole("complementary", { name: "Signatures" });
+    await expect.poll(() => sigs.innerText(), { timeout: 15_000 }).toMatch(/Inspected\s+Ines Okafor — Inspector\s+\d{4}-\d{2}-\d{2} \d{2}:\d{2}.*UTC/);
+    // Signed once: the form is gone for this inspector.
+    await expect.poll(() => page.getByRole("form", { name: "Sign as inspected" }).count()).toBe(0);
+    await page.goto(page.url().replace(/\/report$/, "/data"));
   });
 });
 

@@ -2,11 +2,10 @@
 // online, downloads the signed PDF and accepts it with a counter-signature; the engineer sees
 // the acceptance; anyone holding the PDF verifies it on the public page, and a tampered copy fails.
 import { execFileSync } from "node:child_process";
-import { existsSync, readdirSync, readFileSync, writeFileSync } from "node:fs";
-import path from "node:path";
+import { readFileSync, writeFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext } from "playwright-core";
-import { newContext, screenshotPath, signIn } from "./browser";
+import { mailTo, newContext, reportLink, screenshotPath, signIn } from "./browser";
 
 let ctx: BrowserContext;
 let pdfPath = "";
@@ -18,25 +17,10 @@ afterAll(async () => {
   await ctx?.close();
 });
 
-/** The issue e-mail to this address, as delivered to the local SMTP fake the test command runs. */
-async function issueMailTo(address: string): Promise<string> {
-  const dir = process.env.E2E_MAIL_DIR ?? path.join(process.cwd(), ".data", "test-mail");
-  for (let i = 0; i < 60; i++) {
-    if (existsSync(dir)) {
-      for (const f of readdirSync(dir).filter((x) => x.endsWith(".eml"))) {
-        const raw = readFileSync(path.join(dir, f), "utf8");
-        if (raw.includes(address) && /Acceptance report TR-2026-0041/.test(raw)) return raw;
-      }
-    }
-    await new Promise((r) => setTimeout(r, 500));
-  }
-  throw new Error(`no issue e-mail to ${address} in ${dir}`);
-}
-
 describe("journey 3: the customer accepts the signed report", () => {
   it("gets the e-mail, follows its link, reads the report online and downloads the signed PDF", async () => {
-    const mail = await issueMailTo("buyer@marlowcreek.example");
-    const link = mail.replace(/=\r?\n/g, "").match(/https?:\/\/[^\s]+\/jobs\/[0-9a-f-]{36}\/report/)?.[0];
+    const mail = await mailTo("buyer@marlowcreek.example", /Acceptance report TR-2026-0041/);
+    const link = reportLink(mail);
     expect(link, "the e-mail links to the report page").toBeTruthy();
     await ctx.clearCookies();
     const p = await ctx.newPage();
