@@ -2,9 +2,8 @@
 // with a per-request nonce, no framing, no sniffing, a strict referrer policy), and an early
 // redirect of anonymous visitors away from the app's pages. It only redirects: every page,
 // route and query checks the user again on the server.
-import { getToken } from "next-auth/jwt";
 import { NextResponse, type NextRequest } from "next/server";
-import { authSecret } from "@/lib/env";
+import { identityFromCookies, sessionCookieJar } from "@/lib/auth/session-token";
 
 const PROTECTED_PAGES = ["/jobs", "/registers", "/dev"];
 
@@ -39,7 +38,7 @@ function securityHeaders(res: NextResponse, csp: string, signedIn: boolean): Nex
 export default async function proxy(req: NextRequest) {
   const nonce = btoa(crypto.randomUUID());
   const csp = contentSecurityPolicy(nonce, process.env.NODE_ENV === "development");
-  const token = await getToken({ req, secret: authSecret });
+  const token = await identityFromCookies(sessionCookieJar(req.cookies.getAll()));
   const path = req.nextUrl.pathname;
   if (!token && PROTECTED_PAGES.some((p) => path === p || path.startsWith(`${p}/`))) {
     const signIn = new URL("/login", req.url);
