@@ -5,7 +5,7 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { identityFromCookies, sessionCookieJar } from "@/lib/auth/session-token";
 
-const PROTECTED_PAGES = ["/jobs", "/registers", "/dev"];
+const PROTECTED_PAGES = ["/jobs", "/heads", "/registers", "/dev"];
 
 export function contentSecurityPolicy(nonce: string, dev: boolean): string {
   return [

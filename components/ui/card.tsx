@@ -15,11 +15,11 @@ export function Card({ title, actions, children, className = "" }: { title?: str
 /** A label/value list for identification blocks (machine, head, customer). */
 export function Facts({ items }: { items: ReadonlyArray<{ label: string; value: React.ReactNode; mono?: boolean }> }) {
   return (
-    <dl className="grid grid-cols-[minmax(7rem,auto)_1fr] gap-x-6 gap-y-2 text-sm">
+    <dl className="grid grid-cols-[minmax(7rem,auto)_minmax(0,1fr)] gap-x-6 gap-y-2 text-sm">
       {items.map((it) => (
         <div key={it.label} className="contents">
           <dt className="text-graphite-600">{it.label}</dt>
-          <dd className={it.mono ? "num text-graphite-900" : "text-graphite-900"}>{it.value ?? "—"}</dd>
+          <dd className={`break-words text-graphite-900 ${it.mono ? "num" : ""}`}>{it.value ?? "—"}</dd>
         </div>
       ))}
     </dl>

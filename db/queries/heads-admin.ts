@@ -6,7 +6,7 @@ import type { StoredHeadFit } from "@/db/queries/analyses";
 import { jobAccessCondition } from "@/db/queries/jobs";
 import { analyses, auditEvents, customers, datasets, heads, jobs, machines, sites } from "@/db/schema";
 import type { HeadFitJson } from "@/geometry";
-import { canReadRegister, type Actor, type JobStatus } from "@/lib/auth/roles";
+import { canReadHeadHistory, canReadRegister, type Actor, type JobStatus } from "@/lib/auth/roles";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 
 /** One head with where it is mounted now and its mounting history (from the audit trail). */
@@ -75,7 +75,7 @@ export interface HeadHistoryJob {
  */
 export async function getHeadFitHistory(actor: Actor, headId: string) {
   const staff = canReadRegister(actor.role, "heads");
-  if (!staff && actor.role !== "customer") throw forbidden("The history of a head is read by engineers, the office and the head's owner.");
+  if (!canReadHeadHistory(actor.role)) throw forbidden("The history of a head is read by engineers, the office and the head's owner.");
   if (!/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(headId)) return null;
   const [head] = await db.select().from(heads).where(eq(heads.id, headId));
   if (!head) return null;

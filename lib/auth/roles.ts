@@ -181,6 +181,15 @@ export function readingsRefusal(actor: Actor, job: { status: JobStatus; assigned
   return null;
 }
 
+/**
+ * Who reads a head's history of fitted parameters: the administrator and engineers (every job on
+ * the head) and the customer (their own company's jobs on it only). Installers and inspectors
+ * work job by job and do not.
+ */
+export function canReadHeadHistory(role: Role): boolean {
+  return canReadRegister(role, "heads") || role === "customer";
+}
+
 /** Registers an administrator keeps and who else may read them (engineers the heads, staff the instruments and procedures). */
 export function canReadRegisterOf(role: Role, register: "customers" | "machines" | "heads" | "people" | "instruments" | "procedures" | "outbox"): boolean {
   if (register === "instruments" || register === "procedures") return role !== "customer";

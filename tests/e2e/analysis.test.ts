@@ -177,6 +177,46 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     await p.close();
   });
 
+  it("the customer opens the head's history from their job page; other companies, installers and visitors do not", async () => {
+    await ctx.clearCookies();
+    const p = await ctx.newPage();
+    await signIn(p, "buyer@marlowcreek.example");
+    await p.waitForURL("**/jobs");
+    await p.getByRole("link", { name: "TR-2026-0041" }).click();
+    await p.getByRole("link", { name: "This head's fitted parameters, job by job" }).click();
+    await p.waitForURL(/\/heads\/[0-9a-f-]{36}$/);
+    const historyPath = new URL(p.url()).pathname;
+    expect(await p.getByRole("heading", { level: 1 }).innerText()).toContain("TH-2241");
+    const table = p.getByRole("table", { name: "Fitted parameters by job" });
+    await table.waitFor();
+    const heads = await table.locator("thead th[data-job]").evaluateAll((ths) => ths.map((t) => t.getAttribute("data-job")));
+    // The same columns as the history API gives this customer (their own company's jobs only).
+    const api = (await (await p.request.get(`/api${historyPath}/history`)).json()) as { jobs: { reference: string }[] };
+    expect(heads).toEqual(api.jobs.map((j) => j.reference));
+    expect(heads).toContain("TR-2026-0041");
+    expect(await p.getByRole("link", { name: "heads register" }).count()).toBe(0);
+    expect(await p.getByRole("img", { name: /ΔL: Pivot length error/ }).count()).toBe(1);
+    expect(await seriousViolations(p)).toEqual([]);
+    await p.screenshot({ path: screenshotPath("head-history-customer"), fullPage: true });
+    await p.close();
+
+    for (const email of ["buyer@tollan.example", "installer@halvard.example"]) {
+      await ctx.clearCookies();
+      const q = await ctx.newPage();
+      await signIn(q, email);
+      await q.waitForURL("**/jobs");
+      const res = await q.goto(historyPath);
+      expect(res?.status(), email).toBe(404);
+      expect(await q.content()).not.toContain("TR-2026-0041");
+      await q.close();
+    }
+    await ctx.clearCookies();
+    const anon = await ctx.newPage();
+    await anon.goto(historyPath);
+    await anon.waitForURL(/\/login\?callbackUrl=/);
+    await anon.close();
+  });
+
   it("on a job the office moves to review through the checklist page, the engineer fits, is refused while measuring, then approves", async () => {
     // The seeded draft TR-2026-0057 (same head TH-2241): the administrator starts measuring on the
     // checklist page, as the office would for an unassigned job.

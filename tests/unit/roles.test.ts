@@ -1,6 +1,6 @@
 // The role rules of the product brief (roles table and status flow), checked case by case.
 import { describe, expect, it } from "vitest";
-import { allowedTransitions, canReadRegister, canReadRegisterOf, canSeeJob, canTransition, jobScope, navigationFor, readingsRefusal, ROLES, signatureRefusal, type Actor } from "@/lib/auth/roles";
+import { allowedTransitions, canReadHeadHistory, canReadRegister, canReadRegisterOf, canSeeJob, canTransition, jobScope, navigationFor, readingsRefusal, ROLES, signatureRefusal, type Actor } from "@/lib/auth/roles";
 
 const actor = (role: Actor["role"], customerId: string | null = null): Actor => ({ id: "u1", email: "x@y.example", name: "X", role, customerId });
 const jobA = { customerId: "cA", assignedInstallerId: "u1" };
@@ -61,6 +61,9 @@ describe("navigation and registers", () => {
     expect(canReadRegister("engineer", "heads")).toBe(true);
     expect(canReadRegister("engineer", "people")).toBe(false);
     expect(canReadRegister("customer", "heads")).toBe(false);
+  });
+  it("a head's history is read by the office, engineers and its owner, not by installers or inspectors", () => {
+    expect(Object.fromEntries(ROLES.map((r) => [r, canReadHeadHistory(r)]))).toEqual({ admin: true, engineer: true, customer: true, installer: false, inspector: false });
   });
 });
 

@@ -1,9 +1,11 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { notFound } from "next/navigation";
 import { StatusFlow } from "@/components/jobs/status-flow";
 import { Card, Facts } from "@/components/ui/card";
 import { SafetyNote } from "@/components/ui/safety-note";
 import { getJobDetail } from "@/db/queries/jobs";
+import { canReadHeadHistory } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
 
@@ -55,6 +57,13 @@ export default async function JobPage({ params }: Props) {
               { label: "Mass", value: head.massKg ? `${head.massKg} kg` : null, mono: true },
             ]}
           />
+          {canReadHeadHistory(user.role) ? (
+            <p className="mt-4 border-t border-graphite-100 pt-3 text-sm">
+              <Link href={`/heads/${head.id}`} className="font-medium text-accent-700 underline">
+                This head&apos;s fitted parameters, job by job
+              </Link>
+            </p>
+          ) : null}
         </Card>
         <Card title="Work">
           <Facts

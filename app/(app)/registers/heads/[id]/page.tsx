@@ -8,7 +8,7 @@ import { listMachines } from "@/db/queries/registers";
 import { canReadRegister } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
-import { FitHistory } from "./fit-history";
+import { FitHistory } from "@/components/heads/fit-history";
 
 export const metadata: Metadata = { title: "Head" };
 

@@ -1,7 +1,7 @@
-import { ScrollRegion } from "@/components/ui/scroll-region";
 import Link from "next/link";
 import { ParameterTrend, type TrendSeries } from "@/components/charts/parameter-trend";
 import { Card } from "@/components/ui/card";
+import { ScrollRegion } from "@/components/ui/scroll-region";
 import { StatusBadge } from "@/components/ui/status-badge";
 import type { HeadFitHistory } from "@/db/queries/heads-admin";
 import { HEAD_PARAMETER_KEYS } from "@/geometry";
