@@ -66,7 +66,7 @@ export function HeadViewer({ config, errors, poses, residualsUm, initialFactor =
   const [webgl, setWebgl] = useState<boolean | null>(null);
   const [showOverlay, setShowOverlay] = useState(false);
   const controls = useRef<OrbitControlsImpl | null>(null);
-  const canvasRef = useRef<HTMLCanvasElement | null>(null);
+  const captureRef = useRef<(() => HTMLCanvasElement) | null>(null);
   const k = factorFromSlider(slider);
   const scene = useMemo(() => headScene(config, errors, poses, k, residualsUm), [config, errors, poses, k, residualsUm]);
   const overlayErrors = overlay?.errors;
@@ -91,9 +91,12 @@ export function HeadViewer({ config, errors, poses, residualsUm, initialFactor =
               dpr={[1, 2]}
               frameloop="demand"
               camera={{ position: [2.6 * (L + maxTool), -3.1 * (L + maxTool), 1.3 * (L + maxTool)], up: [0, 0, 1], fov: 36, near: 1, far: 20000 }}
-              onCreated={({ gl }) => {
+              onCreated={({ gl, get }) => {
                 gl.setClearColor(BACKGROUND);
-                canvasRef.current = gl.domElement;
+                captureRef.current = () => {
+                  const { scene, camera } = get();
+                  return renderForPrint(gl, scene, camera);
+                };
                 setReady(true);
               }}
               fallback={<NoWebGl />}
@@ -155,7 +158,7 @@ export function HeadViewer({ config, errors, poses, residualsUm, initialFactor =
           ) : null}
         </div>
       ) : null}
-      {maySave && shown && webgl ? <SaveView canvasRef={canvasRef} k={k} shown={shown} other={drawOther ? overlay : null} /> : null}
+      {maySave && shown && webgl ? <SaveView captureRef={captureRef} k={k} shown={shown} other={drawOther ? overlay : null} /> : null}
       <p className="text-xs text-graphite-600">Drag to turn, scroll or pinch to zoom, right-drag to move. Z is up; the head is drawn at zero on both axes.</p>
     </div>
   );
@@ -339,12 +342,38 @@ function OtherFit({ other, L }: { other: HeadOverlayData; L: number }) {
   );
 }
 
+/** Pixels per CSS pixel of a saved picture: twice the screen's at least, so it stays sharp in print (~250 dpi across an A4 page). */
+const PRINT_PIXEL_RATIO = 2;
+
+/**
+ * The scene drawn once more at PRINT_PIXEL_RATIO into a copy, then the screen's own resolution
+ * restored. Fat lines keep their look: their width is set against the CSS size, which does not
+ * change.
+ */
+function renderForPrint(gl: THREE.WebGLRenderer, scene: THREE.Scene, camera: THREE.Camera): HTMLCanvasElement {
+  const screenRatio = gl.getPixelRatio();
+  const out = document.createElement("canvas");
+  try {
+    gl.setPixelRatio(Math.max(PRINT_PIXEL_RATIO, screenRatio));
+    gl.render(scene, camera);
+    out.width = gl.domElement.width;
+    out.height = gl.domElement.height;
+    out.getContext("2d")?.drawImage(gl.domElement, 0, 0);
+  } finally {
+    gl.setPixelRatio(screenRatio);
+    gl.render(scene, camera);
+  }
+  return out;
+}
+
 /**
  * The picture as saved: the canvas, with the factor and the legend's words printed into it so the
  * saved PNG cannot be mistaken for real size, whatever page it ends up on.
  */
 async function viewPicture(canvas: HTMLCanvasElement, k: number, shown: ViewerFitLabel, other: ViewerFitLabel | null): Promise<Blob> {
-  const band = Math.round(canvas.height * 0.09) + (other ? 28 : 0);
+  const px = Math.max(12, Math.round(canvas.width / 70));
+  // Two or three legend lines, 1.4 text heights apart, with a margin below the last.
+  const band = Math.round(px * (other ? 5.2 : 3.8));
   const out = document.createElement("canvas");
   out.width = canvas.width;
   out.height = canvas.height + band;
@@ -353,7 +382,6 @@ async function viewPicture(canvas: HTMLCanvasElement, k: number, shown: ViewerFi
   g.fillStyle = BACKGROUND;
   g.fillRect(0, 0, out.width, out.height);
   g.drawImage(canvas, 0, 0);
-  const px = Math.max(12, Math.round(canvas.width / 70));
   g.font = `600 ${px}px sans-serif`;
   const label = `Errors drawn ×${formatFactor(k)}${other ? " for both fits" : ""} — not to scale`;
   const w = g.measureText(label).width;
@@ -382,16 +410,16 @@ async function viewPicture(canvas: HTMLCanvasElement, k: number, shown: ViewerFi
   return new Promise((resolve, reject) => out.toBlob((b) => (b ? resolve(b) : reject(new Error("The picture could not be made."))), "image/png"));
 }
 
-function SaveView({ canvasRef, k, shown, other }: { canvasRef: React.RefObject<HTMLCanvasElement | null>; k: number; shown: ViewerFitLabel; other: (ViewerFitLabel & { errors: HeadErrors }) | null }) {
+function SaveView({ captureRef, k, shown, other }: { captureRef: React.RefObject<(() => HTMLCanvasElement) | null>; k: number; shown: ViewerFitLabel; other: (ViewerFitLabel & { errors: HeadErrors }) | null }) {
   const router = useRouter();
   const [caption, setCaption] = useState("");
   const [state, setState] = useState<{ kind: "idle" | "saving" | "saved" | "error"; message?: string }>({ kind: "idle" });
   async function save() {
-    const canvas = canvasRef.current;
-    if (!canvas) return;
+    const capture = captureRef.current;
+    if (!capture) return;
     setState({ kind: "saving" });
     try {
-      const blob = await viewPicture(canvas, k, shown, other);
+      const blob = await viewPicture(capture(), k, shown, other);
       const form = new FormData();
       form.set("factor", String(k));
       if (other) form.set("overlayAnalysisId", other.analysisId);

@@ -122,9 +122,10 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
       const c = document.querySelector<HTMLCanvasElement>('[data-testid="head-viewer"] canvas')!;
       return { w: c.width, h: c.height };
     });
-    // The saved picture is the canvas plus a legend band underneath.
-    expect(view.widthPx).toBe(canvasSize.w);
-    expect(view.heightPx).toBeGreaterThan(canvasSize.h);
+    // The saved picture is the scene drawn again at twice the screen's pixels (sharp in print;
+    // this browser draws at 1 device pixel per CSS pixel), plus a legend band underneath.
+    expect(view.widthPx).toBe(2 * canvasSize.w);
+    expect(view.heightPx).toBeGreaterThan(2 * canvasSize.h);
     const card = p.locator(`[data-view-id="${view.id}"]`);
     await card.waitFor({ timeout: 15_000 });
     expect(await card.innerText()).toContain(caption);
