@@ -118,3 +118,20 @@ export async function mailTo(address: string, match: RegExp): Promise<string> {
 export function reportLink(raw: string): string | undefined {
   return raw.replace(/=\r?\n/g, "").match(/https?:\/\/[^\s]+\/jobs\/[0-9a-f-]{36}\/report/)?.[0];
 }
+
+/**
+ * Journey 3's start: the customer opens the report link in their issue e-mail, is sent to the
+ * sign-in page (`atSignIn` may look at it), signs in and lands on the report. Returns that page.
+ */
+export async function followReportMail(ctx: BrowserContext, email: string, reference: string, atSignIn?: (p: Page) => Promise<void>): Promise<Page> {
+  const link = reportLink(await mailTo(email, new RegExp(`Acceptance report ${reference}`)));
+  expect(link, "the e-mail links to the report page").toBeTruthy();
+  await ctx.clearCookies();
+  const p = await ctx.newPage();
+  await p.goto(new URL(link!).pathname);
+  await p.waitForURL(/\/login\?callbackUrl=/);
+  await atSignIn?.(p);
+  await signIn(p, email);
+  await p.waitForURL(/\/report$/);
+  return p;
+}

@@ -18,7 +18,7 @@ import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
 import { headPoseGrid, synthesiseSphereProbe } from "@/geometry";
-import { canvasPixels, mailTo, newContext, reportLink, screenshotPath, scrollsSideways, seriousViolations, signIn, TABLET, waitForPicture } from "./browser";
+import { canvasPixels, followReportMail, mailTo, newContext, screenshotPath, scrollsSideways, seriousViolations, signIn, TABLET, waitForPicture } from "./browser";
 
 let ctx: BrowserContext;
 let jobPath = "";
@@ -171,16 +171,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
   });
 
   it("journey 3: the buyer follows the e-mail, reads the report, downloads the PDF and rejects it with a comment", async () => {
-    const mail = await mailTo("buyer@tollan.example", new RegExp(`Acceptance report ${REF}`));
-    const link = reportLink(mail);
-    expect(link, "the e-mail links to the report page").toBeTruthy();
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await p.goto(new URL(link!).pathname);
-    await p.waitForURL(/\/login\?callbackUrl=/);
-    await fitsTheTablet(p, "sign-in page");
-    await signIn(p, "buyer@tollan.example");
-    await p.waitForURL(/\/report$/);
+    const p = await followReportMail(ctx, "buyer@tollan.example", REF, (page) => fitsTheTablet(page, "sign-in page"));
     const article = p.getByRole("article", { name: "Acceptance report" });
     await expect.poll(() => article.innerText()).toContain("END OF REPORT");
     expect(await article.innerText()).toContain("Tollan Mold Works");

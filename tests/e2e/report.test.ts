@@ -5,7 +5,7 @@ import { execFileSync } from "node:child_process";
 import { readFileSync, writeFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext } from "playwright-core";
-import { mailTo, newContext, reportLink, screenshotPath, signIn } from "./browser";
+import { followReportMail, newContext, screenshotPath, signIn } from "./browser";
 
 let ctx: BrowserContext;
 let pdfPath = "";
@@ -19,15 +19,7 @@ afterAll(async () => {
 
 describe("journey 3: the customer accepts the signed report", () => {
   it("gets the e-mail, follows its link, reads the report online and downloads the signed PDF", async () => {
-    const mail = await mailTo("buyer@marlowcreek.example", /Acceptance report TR-2026-0041/);
-    const link = reportLink(mail);
-    expect(link, "the e-mail links to the report page").toBeTruthy();
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await p.goto(new URL(link!).pathname);
-    await p.waitForURL(/\/login\?callbackUrl=/);
-    await signIn(p, "buyer@marlowcreek.example");
-    await p.waitForURL(/\/report$/);
+    const p = await followReportMail(ctx, "buyer@marlowcreek.example", "TR-2026-0041");
     const article = p.getByRole("article", { name: "Acceptance report" });
     await expect.poll(() => article.innerText()).toContain("END OF REPORT");
     expect(await article.innerText()).toContain("Marlow Creek Aerostructures");
