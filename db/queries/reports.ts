@@ -8,7 +8,7 @@ import { getComparison } from "@/db/queries/readings";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
 import { latestJobView } from "@/db/queries/analysis-views";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
-import { parameterRows } from "@/lib/fit-display";
+import { parameterRows, signed } from "@/lib/fit-display";
 import { datasets, instruments, jobs, outbox, procedureTemplates, readings, reports, signatures, users } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
 import { ROLE_LABELS, SIGNATURE_LABELS, signatureRefusal, type Actor, type SignatureMeaningKey } from "@/lib/auth/roles";
@@ -180,7 +180,7 @@ async function reportParameters(actor: Actor, d: JobDetail): Promise<{ rows: Rep
   const decisionOf = (x: (typeof judged)[number]["decision"]): Decision => (x === "no_limit" ? "recorded" : x);
   const rows = judged.map((p) => {
     const unit = p.unit === "um" ? " µm" : "″";
-    const value = `${p.value >= 0 ? "+" : "−"}${Math.abs(p.value).toFixed(1)}${unit}`;
+    const value = `${signed(p.value, 1)}${unit}`;
     return {
       name: p.words,
       symbol: p.iso,

@@ -2,6 +2,7 @@
  * The numbers behind the report's charts, shared by the PDF (lib/report/charts.tsx) and the page
  * (components/report/report-charts.tsx) so both draw the same thing. Pure.
  */
+import { signed } from "@/lib/fit-display";
 import type { Decision, ReportCharts } from "./types";
 
 const DECISION_WORD: Record<Decision, string> = { pass: "pass", fail: "fail", undecided: "undecided", not_measured: "not measured", recorded: "recorded" };
@@ -35,7 +36,7 @@ export function rowDomain(row: Pick<LimitRow, "lower" | "upper" | "marks">): { f
   return { from: Math.min(lo - span / 3, ...ends), to: Math.max(hi + span / 3, ...ends) };
 }
 
-const fmt = (v: number, d = 1) => `${v < 0 ? "−" : v > 0 ? "+" : ""}${Math.abs(v).toFixed(d)}`;
+const fmt = (v: number, d = 1) => signed(v, d);
 /** A value with its unit: arc seconds sit on the number (+5.2″), other units after a space. */
 const withUnit = (text: string, unit: string) => (unit === "″" ? `${text}″` : `${text} ${unit}`);
 const limitsText = (lo: number | null, hi: number | null, unit: string, d = 1) =>

@@ -3,7 +3,7 @@
  * no background networking on a closed network, software WebGL for the 3D view.
  */
 import AxeBuilder from "@axe-core/playwright";
-import { existsSync, mkdtempSync, readdirSync, readFileSync } from "node:fs";
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
@@ -31,13 +31,16 @@ export const TABLET = { width: 820, height: 1180 };
 
 export async function newContext(viewport = DESKTOP): Promise<BrowserContext> {
   const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-chromium-"));
-  return chromium.launchPersistentContext(dir, {
+  const ctx = await chromium.launchPersistentContext(dir, {
     executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
     headless: true,
     args: CHROMIUM_ARGS,
     viewport,
     baseURL: BASE_URL,
   });
+  // The profile folder goes with the browser, so repeated runs do not fill the temp folder.
+  ctx.on("close", () => rmSync(dir, { recursive: true, force: true }));
+  return ctx;
 }
 
 /** Signs in through the real sign-in page, as a person would. */
