@@ -38,8 +38,17 @@ export async function newContext(viewport = DESKTOP): Promise<BrowserContext> {
     viewport,
     baseURL: BASE_URL,
   });
-  // The profile folder goes with the browser, so repeated runs do not fill the temp folder.
-  ctx.on("close", () => rmSync(dir, { recursive: true, force: true }));
+  // The profile folder goes once the browser has exited (close() waits for that), so repeated
+  // runs do not fill the temp folder; a folder that cannot be removed is left, never a failure.
+  const close = ctx.close.bind(ctx);
+  ctx.close = async (options) => {
+    await close(options);
+    try {
+      rmSync(dir, { recursive: true, force: true, maxRetries: 3 });
+    } catch {
+      /* left for the next clean checkout */
+    }
+  };
   return ctx;
 }
 
