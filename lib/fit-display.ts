@@ -8,6 +8,7 @@ import { headAxes, type AxisLetter, type HeadConfig, type HeadParameterKey } fro
 import type { HeadFitJson } from "@/geometry";
 import type { DecisionRule } from "@/geometry/decision";
 import { judge, type StepDecision } from "@/lib/checklist";
+import { signed } from "@/lib/numbers";
 
 export const PARAMETER_WORDS: Record<HeadParameterKey, string> = {
   pivot_length_error_um: "Pivot length error (tilt axis to gauge point, along the tool)",
@@ -72,19 +73,6 @@ const PARAMETER_DECISION_TEXT: Record<StepDecision, string> = {
   no_limit: "Recorded",
   not_measured: "Not determined",
 };
-
-/** Fixed decimals with a real minus sign, and no sign on a value that rounds to zero (never "−0.0000"). */
-export function fixed(v: number, digits: number): string {
-  const s = Math.abs(v).toFixed(digits);
-  return v < 0 && Number(s) !== 0 ? `−${s}` : s;
-}
-
-/** Signed, fixed decimals, with a real minus sign. */
-export function signed(v: number, digits: number): string {
-  const s = Math.abs(v).toFixed(digits);
-  if (Number(s) === 0) return s;
-  return `${v < 0 ? "−" : "+"}${s}`;
-}
 
 /** "± 40.0 µm" (or "± 20.0″") for a symmetric limit, "−5.0 … +10.0 µm", "≤ +10.0 µm" or "≥ −5.0 µm" otherwise. */
 export function limitText(lower: number | null, upper: number | null, unit: "um" | "arcsec"): string | null {

@@ -2,7 +2,7 @@
  * The numbers behind the report's charts, shared by the PDF (lib/report/charts.tsx) and the page
  * (components/report/report-charts.tsx) so both draw the same thing. Pure.
  */
-import { signed } from "@/lib/fit-display";
+import { signed } from "@/lib/numbers";
 import type { Decision, ReportCharts } from "./types";
 
 const DECISION_WORD: Record<Decision, string> = { pass: "pass", fail: "fail", undecided: "undecided", not_measured: "not measured", recorded: "recorded" };

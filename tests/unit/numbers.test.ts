@@ -2,7 +2,7 @@
 // SIGN, the character ISO 80000-2 gives for negative values (from memory), not the hyphen; a
 // value that rounds to zero carries no sign (common practice: printed tables never show −0).
 import { describe, expect, it } from "vitest";
-import { fixed, signed } from "@/lib/fit-display";
+import { fixed, signed } from "@/lib/numbers";
 
 describe("fixed", () => {
   it("keeps the decimals and uses a real minus sign", () => {
