@@ -4,6 +4,7 @@
  * the limits are ticked and labelled, and the reading is a marker whose shape says its result
  * (circle pass, cross fail, diamond undecided) so colour is never the only signal.
  */
+import { ScrollRegion } from "@/components/ui/scroll-region";
 import type { StepDecision } from "@/lib/checklist";
 
 export interface BandRow {
@@ -56,63 +57,64 @@ export function BandChart({ rows }: { rows: BandRow[] }) {
     { key: "post" as const, title: "After adjustment", x0: LABEL_W + PANEL_W + GAP },
   ];
   return (
-    // Focusable, so the chart can be scrolled sideways from the keyboard on a narrow screen.
-    <figure className="overflow-x-auto" tabIndex={0} aria-label="Readings against their limits, chart">
-      <svg viewBox={`0 0 ${width} ${height}`} className="w-full min-w-[44rem]" role="img" aria-labelledby="band-title band-desc" data-testid="band-chart">
-        <title id="band-title">Readings against their limits, before and after the adjustment</title>
-        <desc id="band-desc">{rows.map((r) => `${r.label}: limit ${r.limitText}; before ${r.pre?.text ?? "not measured"}; after ${r.post?.text ?? "not measured"}.`).join(" ")}</desc>
-        {panels.map((p) => (
-          <text key={p.key} x={p.x0 + PANEL_W / 2} y={18} textAnchor="middle" className="fill-graphite-800" fontSize="13" fontWeight="600">
-            {p.title}
-          </text>
-        ))}
-        {rows.map((row, i) => {
-          const y = TOP + i * ROW_H + ROW_H / 2;
-          const sx = scale(row);
-          return (
-            <g key={row.key}>
-              {i % 2 === 0 ? <rect x={0} y={y - ROW_H / 2} width={width} height={ROW_H} fill="#f6f7f8" /> : null}
-              <text x={8} y={y - 3} fontSize="12" className="fill-graphite-900">
-                {row.label.length > 34 ? `${row.label.slice(0, 33)}…` : row.label}
-              </text>
-              <text x={8} y={y + 13} fontSize="11" className="fill-graphite-600" fontFamily="var(--font-mono), monospace">
-                {row.limitText}
-              </text>
-              {panels.map((p) => {
-                const lo = row.lower ?? (row.upper != null ? Math.min(0, row.upper) : null);
-                const hi = row.upper;
-                const r = row[p.key];
-                return (
-                  <g key={p.key} transform={`translate(${p.x0},0)`}>
-                    <line x1={10} x2={PANEL_W - 10} y1={y} y2={y} stroke="#b3bac3" strokeWidth="1" />
-                    {lo != null && hi != null ? <rect x={sx(lo)} y={y - 9} width={Math.max(1, sx(hi) - sx(lo))} height={18} fill="#e3eaf1" stroke="#5f7d99" strokeWidth="1" rx="2" /> : null}
-                    {row.lower != null ? <line x1={sx(row.lower)} x2={sx(row.lower)} y1={y - 13} y2={y + 13} stroke="#3e5670" strokeWidth="2" /> : null}
-                    {row.upper != null ? <line x1={sx(row.upper)} x2={sx(row.upper)} y1={y - 13} y2={y + 13} stroke="#3e5670" strokeWidth="2" /> : null}
-                    {r ? (
-                      <>
-                        <Marker x={sx(r.value)} y={y} decision={r.decision} />
-                        <text x={Math.min(PANEL_W - 4, Math.max(4, sx(r.value)))} y={y - 14} fontSize="10.5" textAnchor="middle" className="fill-graphite-800" fontFamily="var(--font-mono), monospace">
-                          {r.text}
+    <ScrollRegion label="Readings against their limits, chart">
+      <figure>
+        <svg viewBox={`0 0 ${width} ${height}`} className="w-full min-w-[44rem]" role="img" aria-labelledby="band-title band-desc" data-testid="band-chart">
+          <title id="band-title">Readings against their limits, before and after the adjustment</title>
+          <desc id="band-desc">{rows.map((r) => `${r.label}: limit ${r.limitText}; before ${r.pre?.text ?? "not measured"}; after ${r.post?.text ?? "not measured"}.`).join(" ")}</desc>
+          {panels.map((p) => (
+            <text key={p.key} x={p.x0 + PANEL_W / 2} y={18} textAnchor="middle" className="fill-graphite-800" fontSize="13" fontWeight="600">
+              {p.title}
+            </text>
+          ))}
+          {rows.map((row, i) => {
+            const y = TOP + i * ROW_H + ROW_H / 2;
+            const sx = scale(row);
+            return (
+              <g key={row.key}>
+                {i % 2 === 0 ? <rect x={0} y={y - ROW_H / 2} width={width} height={ROW_H} fill="#f6f7f8" /> : null}
+                <text x={8} y={y - 3} fontSize="12" className="fill-graphite-900">
+                  {row.label.length > 34 ? `${row.label.slice(0, 33)}…` : row.label}
+                </text>
+                <text x={8} y={y + 13} fontSize="11" className="fill-graphite-600" fontFamily="var(--font-mono), monospace">
+                  {row.limitText}
+                </text>
+                {panels.map((p) => {
+                  const lo = row.lower ?? (row.upper != null ? Math.min(0, row.upper) : null);
+                  const hi = row.upper;
+                  const r = row[p.key];
+                  return (
+                    <g key={p.key} transform={`translate(${p.x0},0)`}>
+                      <line x1={10} x2={PANEL_W - 10} y1={y} y2={y} stroke="#b3bac3" strokeWidth="1" />
+                      {lo != null && hi != null ? <rect x={sx(lo)} y={y - 9} width={Math.max(1, sx(hi) - sx(lo))} height={18} fill="#e3eaf1" stroke="#5f7d99" strokeWidth="1" rx="2" /> : null}
+                      {row.lower != null ? <line x1={sx(row.lower)} x2={sx(row.lower)} y1={y - 13} y2={y + 13} stroke="#3e5670" strokeWidth="2" /> : null}
+                      {row.upper != null ? <line x1={sx(row.upper)} x2={sx(row.upper)} y1={y - 13} y2={y + 13} stroke="#3e5670" strokeWidth="2" /> : null}
+                      {r ? (
+                        <>
+                          <Marker x={sx(r.value)} y={y} decision={r.decision} />
+                          <text x={Math.min(PANEL_W - 4, Math.max(4, sx(r.value)))} y={y - 14} fontSize="10.5" textAnchor="middle" className="fill-graphite-800" fontFamily="var(--font-mono), monospace">
+                            {r.text}
+                          </text>
+                        </>
+                      ) : (
+                        <text x={PANEL_W / 2} y={y + 4} fontSize="11" textAnchor="middle" className="fill-graphite-500">
+                          not measured
                         </text>
-                      </>
-                    ) : (
-                      <text x={PANEL_W / 2} y={y + 4} fontSize="11" textAnchor="middle" className="fill-graphite-500">
-                        not measured
-                      </text>
-                    )}
-                  </g>
-                );
-              })}
-            </g>
-          );
-        })}
-      </svg>
-      <figcaption className="mt-2 flex flex-wrap gap-x-5 gap-y-1 text-xs text-graphite-600">
-        <span>Shaded: tolerance band; bars: limits. Each row has its own scale.</span>
-        <span className="inline-flex items-center gap-1"><svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true"><circle cx="6" cy="6" r="5" fill={COLOURS.pass} /></svg> pass</span>
-        <span className="inline-flex items-center gap-1"><svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true"><path d="M1 1l10 10M11 1 1 11" stroke={COLOURS.fail} strokeWidth="2.5" /></svg> fail</span>
-        <span className="inline-flex items-center gap-1"><svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true"><path d="M6 0l6 6-6 6-6-6z" fill={COLOURS.undecided} /></svg> undecided</span>
-      </figcaption>
-    </figure>
+                      )}
+                    </g>
+                  );
+                })}
+              </g>
+            );
+          })}
+        </svg>
+        <figcaption className="mt-2 flex flex-wrap gap-x-5 gap-y-1 text-xs text-graphite-600">
+          <span>Shaded: tolerance band; bars: limits. Each row has its own scale.</span>
+          <span className="inline-flex items-center gap-1"><svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true"><circle cx="6" cy="6" r="5" fill={COLOURS.pass} /></svg> pass</span>
+          <span className="inline-flex items-center gap-1"><svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true"><path d="M1 1l10 10M11 1 1 11" stroke={COLOURS.fail} strokeWidth="2.5" /></svg> fail</span>
+          <span className="inline-flex items-center gap-1"><svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true"><path d="M6 0l6 6-6 6-6-6z" fill={COLOURS.undecided} /></svg> undecided</span>
+        </figcaption>
+      </figure>
+    </ScrollRegion>
   );
 }
