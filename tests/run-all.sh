@@ -38,6 +38,7 @@ bash db/pg.sh start
 step "type check and lint"
 npx tsc --noEmit -p .
 npx eslint --max-warnings=0 .
+npx prettier --check . >/dev/null || { npx prettier --check . | tail -20; echo "formatting differs: run npm run format"; exit 1; }
 
 step "unit and integration tests"
 DATABASE_URL=$(bash db/pg.sh url trammel_test) npx vitest run --project unit --project integration \
