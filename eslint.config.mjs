@@ -17,9 +17,28 @@ export default tseslint.config(
         "error",
         {
           patterns: [
-            { group: ["next", "next/*", "react", "react-dom", "react/*"], message: "geometry/ is pure: no framework code." },
-            { group: ["@/db", "@/db/*", "@/lib", "@/lib/*", "@/app/*", "@/components/*", "drizzle-orm", "drizzle-orm/*", "pg"], message: "geometry/ is pure: no app or database code." },
-            { group: ["zod", "fs", "node:*", "path"], message: "geometry/ is pure: no validation library, file system or Node built-ins." },
+            {
+              group: ["next", "next/*", "react", "react-dom", "react/*"],
+              message: "geometry/ is pure: no framework code.",
+            },
+            {
+              group: [
+                "@/db",
+                "@/db/*",
+                "@/lib",
+                "@/lib/*",
+                "@/app/*",
+                "@/components/*",
+                "drizzle-orm",
+                "drizzle-orm/*",
+                "pg",
+              ],
+              message: "geometry/ is pure: no app or database code.",
+            },
+            {
+              group: ["zod", "fs", "node:*", "path"],
+              message: "geometry/ is pure: no validation library, file system or Node built-ins.",
+            },
           ],
         },
       ],

@@ -5,7 +5,12 @@
  * (or a second app process) never sends a message twice. OUTBOX_WORKER=0 turns it off.
  */
 export async function register() {
-  if (process.env.NEXT_RUNTIME !== "nodejs" || process.env.OUTBOX_WORKER === "0" || process.env.NEXT_PHASE === "phase-production-build") return;
+  if (
+    process.env.NEXT_RUNTIME !== "nodejs" ||
+    process.env.OUTBOX_WORKER === "0" ||
+    process.env.NEXT_PHASE === "phase-production-build"
+  )
+    return;
   const { startOutboxWorker } = await import("@/lib/mail/worker");
   startOutboxWorker(Number(process.env.OUTBOX_INTERVAL_MS ?? 5_000));
 }

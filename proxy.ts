@@ -54,5 +54,7 @@ export default async function proxy(req: NextRequest) {
 
 export const config = {
   // Not the dataset upload: Next buffers (and cuts at 10 MB) any body the proxy sees; that route streams its own.
-  matcher: [{ source: "/((?!_next/static|_next/image|favicon.ico|DejaVuSans.ttf|api/jobs/[^/]+/datasets$).*)" }],
+  matcher: [
+    { source: "/((?!_next/static|_next/image|favicon.ico|DejaVuSans.ttf|api/jobs/[^/]+/datasets$).*)" },
+  ],
 };

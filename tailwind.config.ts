@@ -24,7 +24,15 @@ export default {
           950: "#121518",
         },
         // 600 and darker carry white text at WCAG AA (≥ 4.5:1); 500 is for strokes and fills only.
-        accent: { 50: "#fff8eb", 100: "#feeac7", 300: "#f9c266", 500: "#e08e0b", 600: "#9a5a06", 700: "#7d4907", 800: "#633a0b" },
+        accent: {
+          50: "#fff8eb",
+          100: "#feeac7",
+          300: "#f9c266",
+          500: "#e08e0b",
+          600: "#9a5a06",
+          700: "#7d4907",
+          800: "#633a0b",
+        },
         nominal: { 100: "#e3eaf1", 300: "#9fb3c8", 500: "#5f7d99", 700: "#3e5670" },
         pass: { 50: "#ecf8f0", 600: "#1f7a45", 700: "#17613a" },
         fail: { 50: "#fdeeee", 600: "#c2302b", 700: "#9c2420" },

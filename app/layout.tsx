@@ -24,7 +24,8 @@ const mono = localFont({
 
 export const metadata: Metadata = {
   title: { default: "Trammel", template: "%s · Trammel" },
-  description: "Install, align and prove two-axis milling heads: readings, kinematic fits and signed acceptance reports.",
+  description:
+    "Install, align and prove two-axis milling heads: readings, kinematic fits and signed acceptance reports.",
 };
 
 export const viewport: Viewport = { width: "device-width", initialScale: 1, themeColor: "#1d2125" };

@@ -12,7 +12,9 @@ if (import.meta.url === `file://${process.argv[1]}`) {
     if (firstBrokenId === null) {
       console.log(`audit trail intact: ${checked} events, every link verified`);
     } else {
-      console.log(`audit trail BROKEN at event ${firstBrokenId} (of ${checked}): its hash or its link to the event before does not match`);
+      console.log(
+        `audit trail BROKEN at event ${firstBrokenId} (of ${checked}): its hash or its link to the event before does not match`,
+      );
       process.exitCode = 1;
     }
   } finally {

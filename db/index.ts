@@ -25,12 +25,28 @@ class PlanCachingClient extends pg.Client {
   readonly named = new Set<string>();
 }
 const baseQuery = pg.Client.prototype.query;
-PlanCachingClient.prototype.query = function (this: PlanCachingClient, config: unknown, values?: unknown, callback?: unknown) {
+PlanCachingClient.prototype.query = function (
+  this: PlanCachingClient,
+  config: unknown,
+  values?: unknown,
+  callback?: unknown,
+) {
   // Plain query configs only: a Submittable (cursor, stream) is passed through untouched.
-  if (config && typeof config === "object" && !("submit" in config) && !(config as { name?: string }).name && "text" in config) {
+  if (
+    config &&
+    typeof config === "object" &&
+    !("submit" in config) &&
+    !(config as { name?: string }).name &&
+    "text" in config
+  ) {
     const text = (config as { text: unknown }).text;
     const params = Array.isArray(values) ? values : (config as { values?: unknown }).values;
-    if (typeof text === "string" && Array.isArray(params) && params.length > 0 && text.length <= MAX_NAMED_TEXT) {
+    if (
+      typeof text === "string" &&
+      Array.isArray(params) &&
+      params.length > 0 &&
+      text.length <= MAX_NAMED_TEXT
+    ) {
       const name = `t_${createHash("sha1").update(text).digest("base64url")}`;
       if (this.named.has(name) || this.named.size < MAX_NAMED) {
         this.named.add(name);

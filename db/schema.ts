@@ -48,12 +48,28 @@ export const phaseEnum = pgEnum("phase", ["pre", "post"]);
 /** What a checklist step measures; fixes the canonical unit its values are stored in. */
 export const quantityKindEnum = pgEnum("quantity_kind", ["length", "angle"]);
 /** How a step's value is obtained: read directly, or derived by geometry/ from the inputs. */
-export const stepDerivationEnum = pgEnum("step_derivation", ["direct", "angle_over_distance", "sweep_flatness", "check"]);
-export const limitSourceEnum = pgEnum("limit_source", ["standard", "maker_manual", "common_practice", "customer_spec"]);
+export const stepDerivationEnum = pgEnum("step_derivation", [
+  "direct",
+  "angle_over_distance",
+  "sweep_flatness",
+  "check",
+]);
+export const limitSourceEnum = pgEnum("limit_source", [
+  "standard",
+  "maker_manual",
+  "common_practice",
+  "customer_spec",
+]);
 export const datasetKindEnum = pgEnum("dataset_kind", ["sphere_probe", "tram", "sweep", "test_part"]);
 export const datasetStatusEnum = pgEnum("dataset_status", ["stored", "deleted"]);
 export const outboxStatusEnum = pgEnum("outbox_status", ["pending", "sent", "failed"]);
-export const signatureMeaningEnum = pgEnum("signature_meaning", ["performed", "inspected", "approved", "accepted", "rejected"]);
+export const signatureMeaningEnum = pgEnum("signature_meaning", [
+  "performed",
+  "inspected",
+  "approved",
+  "accepted",
+  "rejected",
+]);
 export const analysisKindEnum = pgEnum("analysis_kind", ["head_fit"]);
 
 /** bytea: drizzle 0.45 has no built-in type for it. Buffers round-trip exactly. */
@@ -170,7 +186,9 @@ export const jobs = pgTable(
     assignedInstallerId: uuid("assigned_installer_id").references(() => users.id, { onDelete: "set null" }),
     decisionRule: decisionRuleEnum("decision_rule").notNull().default("simple"),
     /** The procedure template version the job started with; later edits of the template do not change it. */
-    templateId: uuid("template_id").references((): AnyPgColumn => procedureTemplates.id, { onDelete: "restrict" }),
+    templateId: uuid("template_id").references((): AnyPgColumn => procedureTemplates.id, {
+      onDelete: "restrict",
+    }),
     scheduledFor: timestamp("scheduled_for", { withTimezone: true }),
     airTempC: doublePrecision("air_temp_c"),
     notes: text("notes"),
@@ -205,7 +223,10 @@ export const auditEvents = pgTable(
     prevHash: text("prev_hash").notNull(),
     hash: text("hash").notNull(),
   },
-  (t) => [index("audit_events_job_idx").on(t.jobId), index("audit_events_entity_idx").on(t.entityType, t.entityId)],
+  (t) => [
+    index("audit_events_job_idx").on(t.jobId),
+    index("audit_events_entity_idx").on(t.entityType, t.entityId),
+  ],
 );
 export type AuditEvent = typeof auditEvents.$inferSelect;
 
@@ -219,7 +240,10 @@ export const signInFailures = pgTable(
     address: text("address").notNull(),
     attempts: integer("attempts").notNull().default(1),
   },
-  (t) => [index("sign_in_failures_email_idx").on(t.emailKey, t.at), index("sign_in_failures_address_idx").on(t.address, t.at)],
+  (t) => [
+    index("sign_in_failures_email_idx").on(t.emailKey, t.at),
+    index("sign_in_failures_address_idx").on(t.address, t.at),
+  ],
 );
 
 /** Measuring instruments with their calibration status. Resolution and uncertainty in the canonical unit of their quantity (mm or arcsec). */
@@ -311,7 +335,9 @@ export const readings = pgTable(
     note: text("note"),
     takenAt: timestamp("taken_at", { withTimezone: true }).notNull().defaultNow(),
     recordedById: uuid("recorded_by_id").references(() => users.id, { onDelete: "set null" }),
-    supersededById: uuid("superseded_by_id").references((): AnyPgColumn => readings.id, { onDelete: "restrict" }),
+    supersededById: uuid("superseded_by_id").references((): AnyPgColumn => readings.id, {
+      onDelete: "restrict",
+    }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("readings_job_idx").on(t.jobId, t.stepId, t.phase)],
@@ -440,7 +466,10 @@ export const reports = pgTable(
     issuedAt: timestamp("issued_at", { withTimezone: true }).notNull().defaultNow(),
     issuedById: uuid("issued_by_id").references(() => users.id, { onDelete: "restrict" }),
   },
-  (t) => [uniqueIndex("reports_job_revision_idx").on(t.jobId, t.revision), uniqueIndex("reports_supersedes_idx").on(t.supersedesId)],
+  (t) => [
+    uniqueIndex("reports_job_revision_idx").on(t.jobId, t.revision),
+    uniqueIndex("reports_supersedes_idx").on(t.supersedesId),
+  ],
 );
 export type Report = typeof reports.$inferSelect;
 

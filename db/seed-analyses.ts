@@ -27,7 +27,12 @@ export const DEMO_HEAD_ERRORS: HeadErrors = {
   primary_tilt_s_arcsec: 6.0,
   primary_tilt_n_arcsec: -9.0,
 };
-export const DEMO_HEAD_CONFIG: HeadConfig = { primary: "C", secondary: "A", pivotLengthMm: 152.4, toolDirection: [0, 0, -1] };
+export const DEMO_HEAD_CONFIG: HeadConfig = {
+  primary: "C",
+  secondary: "A",
+  pivotLengthMm: 152.4,
+  toolDirection: [0, 0, -1],
+};
 export const DEMO_PROBE_FILENAME = "TR-2026-0052 sphere probe (demo, synthetic).csv";
 
 /**
@@ -49,11 +54,28 @@ export const DEMO_PROBE_AFTER_FILENAME = "TR-2026-0052 sphere probe after adjust
 
 /** The demo CSV: full primary turn in 15° steps, secondary −90…+90° in 30° steps, tool lengths 0 and 100 mm. */
 export function demoSphereProbeCsv(errors: HeadErrors = DEMO_HEAD_ERRORS, seed = 52): string {
-  const poses = headPoseGrid({ primarySteps: 24, secondaryDeg: [-90, -60, -30, 0, 30, 60, 90], toolMm: [0, 100] });
-  const d = synthesiseSphereProbe(DEMO_HEAD_CONFIG, errors, poses, { noiseUm: 1, seed, centreMm: [612.5, -204.0, 388.25] });
+  const poses = headPoseGrid({
+    primarySteps: 24,
+    secondaryDeg: [-90, -60, -30, 0, 30, 60, 90],
+    toolMm: [0, 100],
+  });
+  const d = synthesiseSphereProbe(DEMO_HEAD_CONFIG, errors, poses, {
+    noiseUm: 1,
+    seed,
+    centreMm: [612.5, -204.0, 388.25],
+  });
   const lines = ["primary_deg,secondary_deg,x,y,z,tool_mm"];
   for (let i = 0; i < d.rows; i++) {
-    lines.push([d.primaryDeg[i]!, d.secondaryDeg[i]!, d.xMm[i]!.toFixed(5), d.yMm[i]!.toFixed(5), d.zMm[i]!.toFixed(5), d.toolMm![i]!].join(","));
+    lines.push(
+      [
+        d.primaryDeg[i]!,
+        d.secondaryDeg[i]!,
+        d.xMm[i]!.toFixed(5),
+        d.yMm[i]!.toFixed(5),
+        d.zMm[i]!.toFixed(5),
+        d.toolMm![i]!,
+      ].join(","),
+    );
   }
   return lines.join("\n") + "\n";
 }
@@ -61,8 +83,14 @@ export function demoSphereProbeCsv(errors: HeadErrors = DEMO_HEAD_ERRORS, seed =
 export async function seedAnalyses(): Promise<void> {
   const [job] = await db.select().from(jobs).where(eq(jobs.reference, "TR-2026-0052"));
   if (!job) return;
-  const [inst] = await db.select({ id: users.id }).from(users).where(eq(users.email, "installer@halvard.example"));
-  const [eng] = await db.select({ id: users.id }).from(users).where(eq(users.email, "engineer@halvard.example"));
+  const [inst] = await db
+    .select({ id: users.id })
+    .from(users)
+    .where(eq(users.email, "installer@halvard.example"));
+  const [eng] = await db
+    .select({ id: users.id })
+    .from(users)
+    .where(eq(users.email, "engineer@halvard.example"));
   const installer = inst ? await getActor(inst.id) : null;
   const engineer = eng ? await getActor(eng.id) : null;
   if (!installer || !engineer) throw new Error("seed: no demo installer or engineer");
@@ -71,14 +99,29 @@ export async function seedAnalyses(): Promise<void> {
     [DEMO_PROBE_FILENAME, "pre", DEMO_HEAD_ERRORS, 52],
     [DEMO_PROBE_AFTER_FILENAME, "post", DEMO_HEAD_ERRORS_AFTER, 53],
   ] as const) {
-    let [ds] = await db.select().from(datasets).where(and(eq(datasets.jobId, job.id), eq(datasets.kind, "sphere_probe"), eq(datasets.originalFilename, filename)));
+    let [ds] = await db
+      .select()
+      .from(datasets)
+      .where(
+        and(
+          eq(datasets.jobId, job.id),
+          eq(datasets.kind, "sphere_probe"),
+          eq(datasets.originalFilename, filename),
+        ),
+      );
     if (!ds) {
       const text = demoSphereProbeCsv(errors, seed);
       const data = Buffer.from(text, "utf8");
       const form = parseUploadForm({ kind: "sphere_probe", phase, units: "mm" });
       const parsed = parseDatasetText(form, text);
       const sha256 = createHash("sha256").update(data).digest("hex");
-      ds = await insertDataset(installer, job.id, form, { filename, contentType: "text/csv", data, sha256 }, parsed);
+      ds = await insertDataset(
+        installer,
+        job.id,
+        form,
+        { filename, contentType: "text/csv", data, sha256 },
+        parsed,
+      );
     }
     // Idempotent: the same input finds the stored analysis.
     await runHeadFit(engineer, ds.id);

@@ -8,7 +8,15 @@
 import { and, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { instruments, jobs, procedureTemplates, readings, templateParameterLimits, templateSteps, users } from "@/db/schema";
+import {
+  instruments,
+  jobs,
+  procedureTemplates,
+  readings,
+  templateParameterLimits,
+  templateSteps,
+  users,
+} from "@/db/schema";
 import { deriveReading } from "@/lib/checklist";
 import type { EntryUnit } from "@/lib/units";
 
@@ -16,17 +24,22 @@ const IN = 25.4; // mm per inch, exactly (NIST SP 811)
 
 export const DEFAULT_TEMPLATE_NAME = "Two-axis head installation";
 
-const LOCKOUT = "Lock out and tag out the machine before working on the spindle nose or collar. Follow the machine builder's manual, local codes and licensed practice.";
-const LIFT = "The head is heavy: lift it only with rated gear at the maker's lifting points, never stand or reach under a suspended load, and keep fingers out of the gap between head and collar while the spline engages (pinch point). The head maker's and machine builder's manuals, local codes and licensed practice come first.";
-const JOG = "Axes move under power while you indicate: jog at low feed, keep hands and the indicator stand clear of the head's sweep, and keep the enabling device in reach. Follow the machine builder's manual, local codes and licensed practice.";
-const CUT = "The spindle rotates and chips fly: guards closed, eye protection on, nobody inside the machine's working area. Follow the machine builder's manual, local codes and licensed practice.";
+const LOCKOUT =
+  "Lock out and tag out the machine before working on the spindle nose or collar. Follow the machine builder's manual, local codes and licensed practice.";
+const LIFT =
+  "The head is heavy: lift it only with rated gear at the maker's lifting points, never stand or reach under a suspended load, and keep fingers out of the gap between head and collar while the spline engages (pinch point). The head maker's and machine builder's manuals, local codes and licensed practice come first.";
+const JOG =
+  "Axes move under power while you indicate: jog at low feed, keep hands and the indicator stand clear of the head's sweep, and keep the enabling device in reach. Follow the machine builder's manual, local codes and licensed practice.";
+const CUT =
+  "The spindle rotates and chips fly: guards closed, eye protection on, nobody inside the machine's working area. Follow the machine builder's manual, local codes and licensed practice.";
 
 /** The default steps. Limits in canonical units: mm for length, arcsec for angle. */
 export const DEFAULT_STEPS: ReadonlyArray<Omit<typeof templateSteps.$inferInsert, "templateId">> = [
   {
     position: 1,
     title: "Mount the adapter collar and prove its face",
-    instructions: "Clean the spindle nose and the collar, fit and torque the collar, then sweep its face with a test indicator one full turn and record the total indicator reading (TIR). Shim or re-seat the collar if it is out.",
+    instructions:
+      "Clean the spindle nose and the collar, fit and torque the collar, then sweep its face with a test indicator one full turn and record the total indicator reading (TIR). Shim or re-seat the collar if it is out.",
     quantity: "Collar face flatness (TIR)",
     quantityKind: "length",
     derivation: "direct",
@@ -34,13 +47,15 @@ export const DEFAULT_STEPS: ReadonlyArray<Omit<typeof templateSteps.$inferInsert
     upperLimit: 0.0005 * IN,
     decisionRule: "simple",
     limitSource: "common_practice",
-    limitSourceNote: "0.0005 in TIR is common practice, an editable default; use the head maker's figure where it gives one.",
+    limitSourceNote:
+      "0.0005 in TIR is common practice, an editable default; use the head maker's figure where it gives one.",
     safetyNote: LOCKOUT,
   },
   {
     position: 2,
     title: "Close the head onto the collar",
-    instructions: "Lower the head until the spline engages and measure the head-to-collar gap with feeler gauges before the bolts draw it closed; then tighten the bolts in the maker's sequence.",
+    instructions:
+      "Lower the head until the spline engages and measure the head-to-collar gap with feeler gauges before the bolts draw it closed; then tighten the bolts in the maker's sequence.",
     quantity: "Head-to-collar gap before the bolts draw it closed",
     quantityKind: "length",
     derivation: "direct",
@@ -54,7 +69,8 @@ export const DEFAULT_STEPS: ReadonlyArray<Omit<typeof templateSteps.$inferInsert
   {
     position: 3,
     title: "Indicate the primary axis to zero across the head",
-    instructions: "Indicate the reference face across the head at the primary axis zero; record the difference end to end (signed). Adjust the zero offset until it is inside the limit.",
+    instructions:
+      "Indicate the reference face across the head at the primary axis zero; record the difference end to end (signed). Adjust the zero offset until it is inside the limit.",
     quantity: "Primary axis: indicator difference across the head",
     quantityKind: "length",
     derivation: "direct",
@@ -68,7 +84,8 @@ export const DEFAULT_STEPS: ReadonlyArray<Omit<typeof templateSteps.$inferInsert
   {
     position: 4,
     title: "Indicate the secondary axis to zero across the head",
-    instructions: "Indicate the reference face across the head at the secondary (tilt) axis zero; record the signed difference end to end.",
+    instructions:
+      "Indicate the reference face across the head at the secondary (tilt) axis zero; record the signed difference end to end.",
     quantity: "Secondary axis: indicator difference across the head",
     quantityKind: "length",
     derivation: "direct",
@@ -82,7 +99,8 @@ export const DEFAULT_STEPS: ReadonlyArray<Omit<typeof templateSteps.$inferInsert
   {
     position: 5,
     title: "Check the tilt axis with a test bar travelled in Z",
-    instructions: "Hold a 1/2 in test bar or drill blank in the head, indicate its side and travel Z over the stated distance; record the change in reading. Trammel converts reading over travel to an angle (arc seconds).",
+    instructions:
+      "Hold a 1/2 in test bar or drill blank in the head, indicate its side and travel Z over the stated distance; record the change in reading. Trammel converts reading over travel to an angle (arc seconds).",
     quantity: "Tilt of the tool axis from Z",
     quantityKind: "angle",
     derivation: "angle_over_distance",
@@ -91,13 +109,15 @@ export const DEFAULT_STEPS: ReadonlyArray<Omit<typeof templateSteps.$inferInsert
     upperLimit: 10,
     decisionRule: "simple",
     limitSource: "maker_manual",
-    limitSourceNote: "As entered from the head maker's manual (figure invented for the demo); the test bar is common practice.",
+    limitSourceNote:
+      "As entered from the head maker's manual (figure invented for the demo); the test bar is common practice.",
     safetyNote: JOG,
   },
   {
     position: 6,
     title: "Cut the test part and measure the step between passes",
-    instructions: "Face a test block in two overlapping passes with the head at its zero and measure the step between the passes with an indicator.",
+    instructions:
+      "Face a test block in two overlapping passes with the head at its zero and measure the step between the passes with an indicator.",
     quantity: "Step between adjacent passes",
     quantityKind: "length",
     derivation: "direct",
@@ -112,32 +132,135 @@ export const DEFAULT_STEPS: ReadonlyArray<Omit<typeof templateSteps.$inferInsert
 
 /** The instrument register (invented). Resolution and standard uncertainty in mm (length) or arcsec (angle). */
 export const DEMO_INSTRUMENTS: ReadonlyArray<typeof instruments.$inferInsert> = [
-  { kind: "Dial test indicator", serial: "DTI-0112", maker: "Invented Gauge Co.", model: "T-1", quantityKind: "length", resolution: 0.0001 * IN, standardUncertainty: 0.0012, calibratedOn: "2026-06-15", calibrationDueOn: "2027-06-15", certificateRef: "CAL-26-0612 (invented)" },
-  { kind: "Digital indicator", serial: "DI-0208", maker: "Invented Gauge Co.", model: "D-12", quantityKind: "length", resolution: 0.001, standardUncertainty: 0.0015, calibratedOn: "2026-03-31", calibrationDueOn: "2027-03-31", certificateRef: "CAL-26-0331 (invented)" },
-  { kind: "Feeler gauge set", serial: "FG-0031", maker: "Invented Gauge Co.", model: "F-26", quantityKind: "length", resolution: 0.01, standardUncertainty: 0.005, calibratedOn: "2026-09-01", calibrationDueOn: "2027-09-01", certificateRef: "CAL-26-0901 (invented)" },
-  { kind: "Electronic level", serial: "EL-0007", maker: "Invented Level Works", model: "L-2", quantityKind: "angle", resolution: 0.2, standardUncertainty: 0.5, calibratedOn: "2026-05-20", calibrationDueOn: "2027-05-20", certificateRef: "CAL-26-0520 (invented)" },
-  { kind: "Dial test indicator", serial: "DTI-0417", maker: "Invented Gauge Co.", model: "T-1", quantityKind: "length", resolution: 0.0001 * IN, standardUncertainty: 0.0012, calibratedOn: "2025-09-30", calibrationDueOn: "2026-09-30", certificateRef: "CAL-25-0930 (invented; past due)" },
+  {
+    kind: "Dial test indicator",
+    serial: "DTI-0112",
+    maker: "Invented Gauge Co.",
+    model: "T-1",
+    quantityKind: "length",
+    resolution: 0.0001 * IN,
+    standardUncertainty: 0.0012,
+    calibratedOn: "2026-06-15",
+    calibrationDueOn: "2027-06-15",
+    certificateRef: "CAL-26-0612 (invented)",
+  },
+  {
+    kind: "Digital indicator",
+    serial: "DI-0208",
+    maker: "Invented Gauge Co.",
+    model: "D-12",
+    quantityKind: "length",
+    resolution: 0.001,
+    standardUncertainty: 0.0015,
+    calibratedOn: "2026-03-31",
+    calibrationDueOn: "2027-03-31",
+    certificateRef: "CAL-26-0331 (invented)",
+  },
+  {
+    kind: "Feeler gauge set",
+    serial: "FG-0031",
+    maker: "Invented Gauge Co.",
+    model: "F-26",
+    quantityKind: "length",
+    resolution: 0.01,
+    standardUncertainty: 0.005,
+    calibratedOn: "2026-09-01",
+    calibrationDueOn: "2027-09-01",
+    certificateRef: "CAL-26-0901 (invented)",
+  },
+  {
+    kind: "Electronic level",
+    serial: "EL-0007",
+    maker: "Invented Level Works",
+    model: "L-2",
+    quantityKind: "angle",
+    resolution: 0.2,
+    standardUncertainty: 0.5,
+    calibratedOn: "2026-05-20",
+    calibrationDueOn: "2027-05-20",
+    certificateRef: "CAL-26-0520 (invented)",
+  },
+  {
+    kind: "Dial test indicator",
+    serial: "DTI-0417",
+    maker: "Invented Gauge Co.",
+    model: "T-1",
+    quantityKind: "length",
+    resolution: 0.0001 * IN,
+    standardUncertainty: 0.0012,
+    calibratedOn: "2025-09-30",
+    calibrationDueOn: "2026-09-30",
+    certificateRef: "CAL-25-0930 (invented; past due)",
+  },
 ];
 
-type DemoReading = { step: number; phase: "pre" | "post"; value: number; unit: EntryUnit; instrument: string; note?: string; minutes: number };
+type DemoReading = {
+  step: number;
+  phase: "pre" | "post";
+  value: number;
+  unit: EntryUnit;
+  instrument: string;
+  note?: string;
+  minutes: number;
+};
 
 /** Before and after shimming the collar and setting the zeros (invented values, entered in inch as the installer works). */
 const READINGS_0041: DemoReading[] = [
-  { step: 1, phase: "pre", value: 0.0009, unit: "in", instrument: "DTI-0112", note: "High spot at 4 o'clock", minutes: 0 },
-  { step: 1, phase: "post", value: 0.0003, unit: "in", instrument: "DTI-0112", note: "After a 0.0005 in shim at 4 o'clock", minutes: 35 },
+  {
+    step: 1,
+    phase: "pre",
+    value: 0.0009,
+    unit: "in",
+    instrument: "DTI-0112",
+    note: "High spot at 4 o'clock",
+    minutes: 0,
+  },
+  {
+    step: 1,
+    phase: "post",
+    value: 0.0003,
+    unit: "in",
+    instrument: "DTI-0112",
+    note: "After a 0.0005 in shim at 4 o'clock",
+    minutes: 35,
+  },
   { step: 2, phase: "pre", value: 0.094, unit: "in", instrument: "FG-0031", minutes: 60 },
   { step: 3, phase: "pre", value: 0.0006, unit: "in", instrument: "DTI-0112", minutes: 90 },
-  { step: 3, phase: "post", value: 0.0001, unit: "in", instrument: "DTI-0112", note: "Zero offset adjusted", minutes: 110 },
+  {
+    step: 3,
+    phase: "post",
+    value: 0.0001,
+    unit: "in",
+    instrument: "DTI-0112",
+    note: "Zero offset adjusted",
+    minutes: 110,
+  },
   { step: 4, phase: "pre", value: -0.0003, unit: "in", instrument: "DTI-0112", minutes: 120 },
   { step: 4, phase: "post", value: -0.0001, unit: "in", instrument: "DTI-0112", minutes: 130 },
-  { step: 5, phase: "pre", value: 0.0008, unit: "in", instrument: "DTI-0112", note: "Over 4 in of Z travel", minutes: 150 },
+  {
+    step: 5,
+    phase: "pre",
+    value: 0.0008,
+    unit: "in",
+    instrument: "DTI-0112",
+    note: "Over 4 in of Z travel",
+    minutes: 150,
+  },
   { step: 5, phase: "post", value: 0.0001, unit: "in", instrument: "DTI-0112", minutes: 175 },
   { step: 6, phase: "post", value: 0.0002, unit: "in", instrument: "DI-0208", minutes: 220 },
 ];
 
 /** The re-verification under way: all pre readings, the collar re-proved after shimming. */
 const READINGS_0052: DemoReading[] = [
-  { step: 1, phase: "pre", value: 0.0007, unit: "in", instrument: "DTI-0112", note: "Collar has settled since installation", minutes: 0 },
+  {
+    step: 1,
+    phase: "pre",
+    value: 0.0007,
+    unit: "in",
+    instrument: "DTI-0112",
+    note: "Collar has settled since installation",
+    minutes: 0,
+  },
   { step: 2, phase: "pre", value: 0.088, unit: "in", instrument: "FG-0031", minutes: 20 },
   { step: 3, phase: "pre", value: 0.0002, unit: "in", instrument: "DTI-0112", minutes: 40 },
   { step: 4, phase: "pre", value: 0.0005, unit: "in", instrument: "DTI-0112", minutes: 55 },
@@ -150,36 +273,130 @@ const DEMO_LIMIT_NOTE = "Demo value, invented for the example scenario";
  * Limits for the fitted head parameters in the default procedure (µm, arc seconds). Invented demo
  * values: a real job takes them from the head maker's acceptance sheet or the customer's order.
  */
-export const DEFAULT_PARAMETER_LIMITS: ReadonlyArray<Omit<typeof templateParameterLimits.$inferInsert, "templateId">> = [
-  { parameter: "pivot_length_error_um", lowerLimit: -50, upperLimit: 50, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
-  { parameter: "tip_offset_s_um", lowerLimit: -20, upperLimit: 20, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
-  { parameter: "tip_offset_n_um", lowerLimit: -20, upperLimit: 20, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
-  { parameter: "secondary_offset_um", lowerLimit: -20, upperLimit: 20, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
-  { parameter: "primary_zero_arcsec", lowerLimit: -30, upperLimit: 30, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
-  { parameter: "secondary_zero_arcsec", lowerLimit: -30, upperLimit: 30, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
-  { parameter: "secondary_tilt_arcsec", lowerLimit: -20, upperLimit: 20, decisionRule: "guarded", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
-  { parameter: "secondary_yaw_arcsec", lowerLimit: -20, upperLimit: 20, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
-  { parameter: "primary_tilt_s_arcsec", lowerLimit: -15, upperLimit: 15, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
-  { parameter: "primary_tilt_n_arcsec", lowerLimit: -15, upperLimit: 15, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: DEMO_LIMIT_NOTE },
+export const DEFAULT_PARAMETER_LIMITS: ReadonlyArray<
+  Omit<typeof templateParameterLimits.$inferInsert, "templateId">
+> = [
+  {
+    parameter: "pivot_length_error_um",
+    lowerLimit: -50,
+    upperLimit: 50,
+    decisionRule: "simple",
+    limitSource: "customer_spec",
+    limitSourceNote: DEMO_LIMIT_NOTE,
+  },
+  {
+    parameter: "tip_offset_s_um",
+    lowerLimit: -20,
+    upperLimit: 20,
+    decisionRule: "simple",
+    limitSource: "customer_spec",
+    limitSourceNote: DEMO_LIMIT_NOTE,
+  },
+  {
+    parameter: "tip_offset_n_um",
+    lowerLimit: -20,
+    upperLimit: 20,
+    decisionRule: "simple",
+    limitSource: "customer_spec",
+    limitSourceNote: DEMO_LIMIT_NOTE,
+  },
+  {
+    parameter: "secondary_offset_um",
+    lowerLimit: -20,
+    upperLimit: 20,
+    decisionRule: "simple",
+    limitSource: "customer_spec",
+    limitSourceNote: DEMO_LIMIT_NOTE,
+  },
+  {
+    parameter: "primary_zero_arcsec",
+    lowerLimit: -30,
+    upperLimit: 30,
+    decisionRule: "simple",
+    limitSource: "customer_spec",
+    limitSourceNote: DEMO_LIMIT_NOTE,
+  },
+  {
+    parameter: "secondary_zero_arcsec",
+    lowerLimit: -30,
+    upperLimit: 30,
+    decisionRule: "simple",
+    limitSource: "customer_spec",
+    limitSourceNote: DEMO_LIMIT_NOTE,
+  },
+  {
+    parameter: "secondary_tilt_arcsec",
+    lowerLimit: -20,
+    upperLimit: 20,
+    decisionRule: "guarded",
+    limitSource: "customer_spec",
+    limitSourceNote: DEMO_LIMIT_NOTE,
+  },
+  {
+    parameter: "secondary_yaw_arcsec",
+    lowerLimit: -20,
+    upperLimit: 20,
+    decisionRule: "simple",
+    limitSource: "customer_spec",
+    limitSourceNote: DEMO_LIMIT_NOTE,
+  },
+  {
+    parameter: "primary_tilt_s_arcsec",
+    lowerLimit: -15,
+    upperLimit: 15,
+    decisionRule: "simple",
+    limitSource: "customer_spec",
+    limitSourceNote: DEMO_LIMIT_NOTE,
+  },
+  {
+    parameter: "primary_tilt_n_arcsec",
+    lowerLimit: -15,
+    upperLimit: 15,
+    decisionRule: "simple",
+    limitSource: "customer_spec",
+    limitSourceNote: DEMO_LIMIT_NOTE,
+  },
 ];
 
 /** Adds the default parameter limits to the demo template version when it has none (demo databases made before they existed). */
 async function ensureParameterLimits(templateId: string) {
-  const [any] = await db.select({ id: templateParameterLimits.id }).from(templateParameterLimits).where(eq(templateParameterLimits.templateId, templateId)).limit(1);
+  const [any] = await db
+    .select({ id: templateParameterLimits.id })
+    .from(templateParameterLimits)
+    .where(eq(templateParameterLimits.templateId, templateId))
+    .limit(1);
   if (any) return;
-  await db.insert(templateParameterLimits).values(DEFAULT_PARAMETER_LIMITS.map((l) => ({ ...l, templateId })));
+  await db
+    .insert(templateParameterLimits)
+    .values(DEFAULT_PARAMETER_LIMITS.map((l) => ({ ...l, templateId })));
 }
 
 async function ensureTemplate(adminId: string | null) {
-  const [found] = await db.select().from(procedureTemplates).where(and(eq(procedureTemplates.name, DEFAULT_TEMPLATE_NAME), eq(procedureTemplates.version, 1)));
+  const [found] = await db
+    .select()
+    .from(procedureTemplates)
+    .where(and(eq(procedureTemplates.name, DEFAULT_TEMPLATE_NAME), eq(procedureTemplates.version, 1)));
   if (found) return found;
   return db.transaction(async (tx) => {
     const [t] = await tx
       .insert(procedureTemplates)
-      .values({ name: DEFAULT_TEMPLATE_NAME, version: 1, description: "Mount the collar, close the head, set both axis zeros, check the tilt axis with a test bar, cut a test part. Limits marked common practice are editable defaults.", createdById: adminId })
+      .values({
+        name: DEFAULT_TEMPLATE_NAME,
+        version: 1,
+        description:
+          "Mount the collar, close the head, set both axis zeros, check the tilt axis with a test bar, cut a test part. Limits marked common practice are editable defaults.",
+        createdById: adminId,
+      })
       .returning();
     await tx.insert(templateSteps).values(DEFAULT_STEPS.map((s) => ({ ...s, templateId: t!.id })));
-    await appendAudit(tx, { actorId: adminId, actorEmail: "admin@halvard.example", action: "template.created", entityType: "procedure_template", entityId: t!.id, newValues: { name: t!.name, version: 1, steps: DEFAULT_STEPS.length, note: "demo data (invented)" } });
+    await appendAudit(tx, {
+      actorId: adminId,
+      actorEmail: "admin@halvard.example",
+      action: "template.created",
+      entityType: "procedure_template",
+      entityId: t!.id,
+      newValues: { name: t!.name, version: 1, steps: DEFAULT_STEPS.length, note: "demo data (invented)" },
+    });
     return t!;
   });
 }
@@ -187,7 +404,11 @@ async function ensureTemplate(adminId: string | null) {
 async function seedReadings(reference: string, start: Date, list: DemoReading[], installerId: string) {
   const [job] = await db.select().from(jobs).where(eq(jobs.reference, reference));
   if (!job?.templateId) return;
-  const existing = await db.select({ id: readings.id }).from(readings).where(eq(readings.jobId, job.id)).limit(1);
+  const existing = await db
+    .select({ id: readings.id })
+    .from(readings)
+    .where(eq(readings.jobId, job.id))
+    .limit(1);
   if (existing.length) return;
   const steps = await db.select().from(templateSteps).where(eq(templateSteps.templateId, job.templateId));
   const insts = await db.select().from(instruments);
@@ -198,17 +419,52 @@ async function seedReadings(reference: string, start: Date, list: DemoReading[],
       const derived = deriveReading(step, { value: r.value, unit: r.unit });
       const [row] = await tx
         .insert(readings)
-        .values({ jobId: job.id, stepId: step.id, phase: r.phase, value: derived.value, enteredValue: r.value, enteredUnit: r.unit, inputs: derived.inputs, instrumentId: inst.id, note: r.note ?? null, takenAt: new Date(start.getTime() + r.minutes * 60_000), recordedById: installerId })
+        .values({
+          jobId: job.id,
+          stepId: step.id,
+          phase: r.phase,
+          value: derived.value,
+          enteredValue: r.value,
+          enteredUnit: r.unit,
+          inputs: derived.inputs,
+          instrumentId: inst.id,
+          note: r.note ?? null,
+          takenAt: new Date(start.getTime() + r.minutes * 60_000),
+          recordedById: installerId,
+        })
         .returning();
-      await appendAudit(tx, { actorId: installerId, actorEmail: "installer@halvard.example", action: "reading.recorded", entityType: "reading", entityId: row!.id, jobId: job.id, newValues: { step: r.step, phase: r.phase, value: derived.value, enteredValue: r.value, enteredUnit: r.unit, instrument: r.instrument, note: "demo data (invented)" } });
+      await appendAudit(tx, {
+        actorId: installerId,
+        actorEmail: "installer@halvard.example",
+        action: "reading.recorded",
+        entityType: "reading",
+        entityId: row!.id,
+        jobId: job.id,
+        newValues: {
+          step: r.step,
+          phase: r.phase,
+          value: derived.value,
+          enteredValue: r.value,
+          enteredUnit: r.unit,
+          instrument: r.instrument,
+          note: "demo data (invented)",
+        },
+      });
     }
   });
 }
 
 export async function seedChecklists(): Promise<void> {
-  const [admin] = await db.select({ id: users.id }).from(users).where(eq(users.email, "admin@halvard.example"));
-  const [installer] = await db.select({ id: users.id }).from(users).where(eq(users.email, "installer@halvard.example"));
-  for (const i of DEMO_INSTRUMENTS) await db.insert(instruments).values(i).onConflictDoNothing({ target: instruments.serial });
+  const [admin] = await db
+    .select({ id: users.id })
+    .from(users)
+    .where(eq(users.email, "admin@halvard.example"));
+  const [installer] = await db
+    .select({ id: users.id })
+    .from(users)
+    .where(eq(users.email, "installer@halvard.example"));
+  for (const i of DEMO_INSTRUMENTS)
+    await db.insert(instruments).values(i).onConflictDoNothing({ target: instruments.serial });
   const template = await ensureTemplate(admin?.id ?? null);
   await ensureParameterLimits(template.id);
   // Every demo job follows the default procedure, version 1.

@@ -42,10 +42,17 @@ export const DEMO_HEAD_ERRORS: HeadErrors = {
 /** Sphere-probe CSV text synthesised from DEMO_HEAD_ERRORS: 12 primary × 5 secondary angles × 2 tool lengths, 1 µm noise. */
 export function demoSphereProbeCsv(): string {
   const poses = headPoseGrid({ primarySteps: 12, secondaryDeg: [-90, -45, 0, 45, 90], toolMm: [0, 100] });
-  const d = synthesiseSphereProbe({ primary: "C", secondary: "A", pivotLengthMm: 152.4 }, DEMO_HEAD_ERRORS, poses, { noiseUm: 1, seed: 41, centreMm: [812.5, 1460.25, -305] });
+  const d = synthesiseSphereProbe(
+    { primary: "C", secondary: "A", pivotLengthMm: 152.4 },
+    DEMO_HEAD_ERRORS,
+    poses,
+    { noiseUm: 1, seed: 41, centreMm: [812.5, 1460.25, -305] },
+  );
   const lines = ["primary_deg,secondary_deg,x,y,z,tool_mm,point"];
   for (let i = 0; i < d.rows; i++) {
-    lines.push(`${d.primaryDeg[i]!.toFixed(3)},${d.secondaryDeg[i]!.toFixed(3)},${d.xMm[i]!.toFixed(5)},${d.yMm[i]!.toFixed(5)},${d.zMm[i]!.toFixed(5)},${(d.toolMm?.[i] ?? 0).toFixed(3)},${i + 1}`);
+    lines.push(
+      `${d.primaryDeg[i]!.toFixed(3)},${d.secondaryDeg[i]!.toFixed(3)},${d.xMm[i]!.toFixed(5)},${d.yMm[i]!.toFixed(5)},${d.zMm[i]!.toFixed(5)},${(d.toolMm?.[i] ?? 0).toFixed(3)},${i + 1}`,
+    );
   }
   return lines.join("\n") + "\n";
 }
@@ -57,19 +64,46 @@ async function actor(email: string) {
   return a;
 }
 
-async function seedOne(jobId: string, email: string, fields: Record<string, string>, text: string, filename: string) {
-  const existing = await db.select({ id: datasets.id }).from(datasets).where(and(eq(datasets.jobId, jobId), eq(datasets.kind, fields.kind as "test_part")));
+async function seedOne(
+  jobId: string,
+  email: string,
+  fields: Record<string, string>,
+  text: string,
+  filename: string,
+) {
+  const existing = await db
+    .select({ id: datasets.id })
+    .from(datasets)
+    .where(and(eq(datasets.jobId, jobId), eq(datasets.kind, fields.kind as "test_part")));
   if (existing.length > 0) return;
   const data = Buffer.from(text, "utf8");
   const form = parseUploadForm(fields);
   const parsed = parseDatasetText(form, text);
   const sha256 = createHash("sha256").update(data).digest("hex");
-  await insertDataset(await actor(email), jobId, form, { filename, contentType: "text/csv", data, sha256 }, parsed);
+  await insertDataset(
+    await actor(email),
+    jobId,
+    form,
+    { filename, contentType: "text/csv", data, sha256 },
+    parsed,
+  );
 }
 
 export async function seedDatasets(): Promise<void> {
   const [job] = await db.select().from(jobs).where(eq(jobs.reference, "TR-2026-0041"));
   if (!job) return;
-  await seedOne(job.id, "installer@halvard.example", { kind: "sphere_probe", phase: "pre", units: "mm" }, demoSphereProbeCsv(), "TR-2026-0041 sphere probing (synthetic demo).csv");
-  await seedOne(job.id, "inspector@halvard.example", { kind: "test_part", phase: "post", uncertainty_mm: "0.0015" }, DEMO_TEST_PART_CSV, "TR-2026-0041 test part (demo).csv");
+  await seedOne(
+    job.id,
+    "installer@halvard.example",
+    { kind: "sphere_probe", phase: "pre", units: "mm" },
+    demoSphereProbeCsv(),
+    "TR-2026-0041 sphere probing (synthetic demo).csv",
+  );
+  await seedOne(
+    job.id,
+    "inspector@halvard.example",
+    { kind: "test_part", phase: "post", uncertainty_mm: "0.0015" },
+    DEMO_TEST_PART_CSV,
+    "TR-2026-0041 test part (demo).csv",
+  );
 }

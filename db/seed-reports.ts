@@ -26,14 +26,23 @@ export async function seedReports(password: string): Promise<void> {
   const engineer = await actorByEmail("engineer@halvard.example");
   // The job walks the real flow: measuring while the work is signed, approved, then issued.
   await db.update(jobs).set({ status: "measuring" }).where(eq(jobs.id, job.id));
-  for (const [actor, meaning] of [[installer, "performed"], [inspector, "inspected"]] as const) {
-    const done = await db.select({ id: signatures.id }).from(signatures).where(and(eq(signatures.jobId, job.id), eq(signatures.meaning, meaning)));
+  for (const [actor, meaning] of [
+    [installer, "performed"],
+    [inspector, "inspected"],
+  ] as const) {
+    const done = await db
+      .select({ id: signatures.id })
+      .from(signatures)
+      .where(and(eq(signatures.jobId, job.id), eq(signatures.meaning, meaning)));
     if (done.length === 0) await signJobWork(actor, { jobId: job.id, meaning, password });
   }
   // The engineer fits the job's sphere-probe data (if the seed has some) and approves the result,
   // which moves the job from review to approved; otherwise the job is approved directly.
   await db.update(jobs).set({ status: "in_review" }).where(eq(jobs.id, job.id));
-  const [probe] = await db.select({ id: datasets.id }).from(datasets).where(and(eq(datasets.jobId, job.id), eq(datasets.kind, "sphere_probe"), eq(datasets.status, "stored")));
+  const [probe] = await db
+    .select({ id: datasets.id })
+    .from(datasets)
+    .where(and(eq(datasets.jobId, job.id), eq(datasets.kind, "sphere_probe"), eq(datasets.status, "stored")));
   if (probe) {
     const { analysis } = await runHeadFit(engineer, probe.id);
     await approveAnalysis(engineer, analysis.id);

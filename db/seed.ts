@@ -19,8 +19,18 @@ export const DEMO_USERS: ReadonlyArray<{ email: string; name: string; role: Role
   { email: "installer@halvard.example", name: "Iver Sandvik", role: "installer" },
   { email: "inspector@halvard.example", name: "Ines Okafor", role: "inspector" },
   { email: "engineer@halvard.example", name: "Emil Haraldsen", role: "engineer" },
-  { email: "buyer@marlowcreek.example", name: "Morgan Tate", role: "customer", customer: "Marlow Creek Aerostructures" },
-  { email: "buyer@tollan.example", name: "Tomasz Lindqvist", role: "customer", customer: "Tollan Mold Works" },
+  {
+    email: "buyer@marlowcreek.example",
+    name: "Morgan Tate",
+    role: "customer",
+    customer: "Marlow Creek Aerostructures",
+  },
+  {
+    email: "buyer@tollan.example",
+    name: "Tomasz Lindqvist",
+    role: "customer",
+    customer: "Tollan Mold Works",
+  },
 ];
 
 async function upsertCustomer(name: string, contactEmail: string) {
@@ -33,21 +43,36 @@ async function upsertCustomer(name: string, contactEmail: string) {
 }
 
 async function ensureSite(customerId: string, name: string, address: string) {
-  const found = await db.select().from(sites).where(and(eq(sites.customerId, customerId), eq(sites.name, name))).limit(1);
+  const found = await db
+    .select()
+    .from(sites)
+    .where(and(eq(sites.customerId, customerId), eq(sites.name, name)))
+    .limit(1);
   if (found[0]) return found[0];
   const [row] = await db.insert(sites).values({ customerId, name, address }).returning();
   return row!;
 }
 
 async function ensureMachine(siteId: string, values: Omit<typeof machines.$inferInsert, "siteId">) {
-  const found = await db.select().from(machines).where(and(eq(machines.siteId, siteId), eq(machines.name, values.name))).limit(1);
+  const found = await db
+    .select()
+    .from(machines)
+    .where(and(eq(machines.siteId, siteId), eq(machines.name, values.name)))
+    .limit(1);
   if (found[0]) return found[0];
-  const [row] = await db.insert(machines).values({ ...values, siteId }).returning();
+  const [row] = await db
+    .insert(machines)
+    .values({ ...values, siteId })
+    .returning();
   return row!;
 }
 
 async function upsertHead(values: typeof heads.$inferInsert) {
-  const [row] = await db.insert(heads).values(values).onConflictDoUpdate({ target: heads.serial, set: { machineId: values.machineId } }).returning();
+  const [row] = await db
+    .insert(heads)
+    .values(values)
+    .onConflictDoUpdate({ target: heads.serial, set: { machineId: values.machineId } })
+    .returning();
   return row!;
 }
 
@@ -62,7 +87,11 @@ export async function seed(): Promise<void> {
   let passwordHash: string | undefined;
   const userIds: Record<string, string> = {};
   for (const u of DEMO_USERS) {
-    const existing = await db.select().from(users).where(sql`lower(${users.email}) = ${u.email}`).limit(1);
+    const existing = await db
+      .select()
+      .from(users)
+      .where(sql`lower(${users.email}) = ${u.email}`)
+      .limit(1);
     if (existing[0]) {
       userIds[u.email] = existing[0].id;
       continue;
@@ -70,7 +99,14 @@ export async function seed(): Promise<void> {
     passwordHash ??= await hashPassword(DEMO_PASSWORD);
     const [row] = await db
       .insert(users)
-      .values({ email: u.email, name: u.name, role: u.role, customerId: u.customer ? byCustomer[u.customer] : null, passwordHash, unitSystem: u.role === "installer" ? "inch" : "metric" })
+      .values({
+        email: u.email,
+        name: u.name,
+        role: u.role,
+        customerId: u.customer ? byCustomer[u.customer] : null,
+        passwordHash,
+        unitSystem: u.role === "installer" ? "inch" : "metric",
+      })
       .returning();
     userIds[u.email] = row!.id;
   }
@@ -122,16 +158,70 @@ export async function seed(): Promise<void> {
   const installer = userIds["installer@halvard.example"]!;
   const engineer = userIds["engineer@halvard.example"]!;
   const demoJobs: Array<typeof jobs.$inferInsert> = [
-    { reference: "TR-2026-0041", title: "Head installation on gantry mill G-7", kind: "installation", status: "issued", customerId: marlow.id, machineId: gantry.id, headId: head.id, assignedInstallerId: installer, decisionRule: "simple", scheduledFor: new Date("2026-10-12T07:00:00Z"), airTempC: 20.6 },
-    { reference: "TR-2026-0052", title: "Six-month re-verification of head TH-2241", kind: "reverification", status: "measuring", customerId: marlow.id, machineId: gantry.id, headId: head.id, assignedInstallerId: installer, decisionRule: "guarded", scheduledFor: new Date("2026-12-03T07:00:00Z"), airTempC: 20.2 },
-    { reference: "TR-2026-0057", title: "Check after spindle collision on G-7", kind: "after_crash", status: "draft", customerId: marlow.id, machineId: gantry.id, headId: head.id, assignedInstallerId: null, decisionRule: "simple", scheduledFor: null },
-    { reference: "TR-2026-0048", title: "Head installation on bridge mill B-2", kind: "installation", status: "in_review", customerId: tollan.id, machineId: vmc.id, headId: tollanHead.id, assignedInstallerId: installer, decisionRule: "simple", scheduledFor: new Date("2026-11-20T07:00:00Z"), airTempC: 21.1 },
+    {
+      reference: "TR-2026-0041",
+      title: "Head installation on gantry mill G-7",
+      kind: "installation",
+      status: "issued",
+      customerId: marlow.id,
+      machineId: gantry.id,
+      headId: head.id,
+      assignedInstallerId: installer,
+      decisionRule: "simple",
+      scheduledFor: new Date("2026-10-12T07:00:00Z"),
+      airTempC: 20.6,
+    },
+    {
+      reference: "TR-2026-0052",
+      title: "Six-month re-verification of head TH-2241",
+      kind: "reverification",
+      status: "measuring",
+      customerId: marlow.id,
+      machineId: gantry.id,
+      headId: head.id,
+      assignedInstallerId: installer,
+      decisionRule: "guarded",
+      scheduledFor: new Date("2026-12-03T07:00:00Z"),
+      airTempC: 20.2,
+    },
+    {
+      reference: "TR-2026-0057",
+      title: "Check after spindle collision on G-7",
+      kind: "after_crash",
+      status: "draft",
+      customerId: marlow.id,
+      machineId: gantry.id,
+      headId: head.id,
+      assignedInstallerId: null,
+      decisionRule: "simple",
+      scheduledFor: null,
+    },
+    {
+      reference: "TR-2026-0048",
+      title: "Head installation on bridge mill B-2",
+      kind: "installation",
+      status: "in_review",
+      customerId: tollan.id,
+      machineId: vmc.id,
+      headId: tollanHead.id,
+      assignedInstallerId: installer,
+      decisionRule: "simple",
+      scheduledFor: new Date("2026-11-20T07:00:00Z"),
+      airTempC: 21.1,
+    },
   ];
   for (const j of demoJobs) {
-    const existing = await db.select({ id: jobs.id }).from(jobs).where(eq(jobs.reference, j.reference)).limit(1);
+    const existing = await db
+      .select({ id: jobs.id })
+      .from(jobs)
+      .where(eq(jobs.reference, j.reference))
+      .limit(1);
     if (existing[0]) continue;
     await db.transaction(async (tx) => {
-      const [row] = await tx.insert(jobs).values({ ...j, createdById: engineer }).returning();
+      const [row] = await tx
+        .insert(jobs)
+        .values({ ...j, createdById: engineer })
+        .returning();
       await appendAudit(tx, {
         actorId: engineer,
         actorEmail: "engineer@halvard.example",

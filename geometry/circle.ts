@@ -53,7 +53,8 @@ function orientNormal(v: [number, number, number]): Vec3 {
  */
 export function fitCircle(points: PointsInput): CircleFit {
   const n = points.xMm.length;
-  if (points.yMm.length !== n || points.zMm.length !== n) throw new GeometryError("bad_option", "x, y, z lengths differ");
+  if (points.yMm.length !== n || points.zMm.length !== n)
+    throw new GeometryError("bad_option", "x, y, z lengths differ");
   if (n < 3) throw new GeometryError("too_few_rows", `a circle needs at least 3 points (got ${n})`);
   let cx = 0;
   let cy = 0;
@@ -83,7 +84,8 @@ export function fitCircle(points: PointsInput): CircleFit {
   // ml-matrix returns singular values in decreasing order.
   const order = [0, 1, 2].sort((p, q) => sv[q]! - sv[p]!);
   const [iu, iv, iw] = order as [number, number, number];
-  if (!(sv[iv]! > 1e-9 * sv[iu]!)) throw new GeometryError("degenerate", "the points lie on a line; no circle or axis can be fitted");
+  if (!(sv[iv]! > 1e-9 * sv[iu]!))
+    throw new GeometryError("degenerate", "the points lie on a line; no circle or axis can be fitted");
   const u: Vec3 = [V.get(0, iu), V.get(1, iu), V.get(2, iu)];
   const v: Vec3 = [V.get(0, iv), V.get(1, iv), V.get(2, iv)];
   const w = orientNormal([V.get(0, iw), V.get(1, iw), V.get(2, iw)]);
@@ -189,7 +191,10 @@ export function fitCircle(points: PointsInput): CircleFit {
     const { JtJ, Jtr } = normalEquations(a, b, r);
     let dlt: Matrix;
     try {
-      dlt = solve(new Matrix([JtJ.slice(0, 3), JtJ.slice(3, 6), JtJ.slice(6, 9)]), Matrix.columnVector(Jtr.map((g) => -g)));
+      dlt = solve(
+        new Matrix([JtJ.slice(0, 3), JtJ.slice(3, 6), JtJ.slice(6, 9)]),
+        Matrix.columnVector(Jtr.map((g) => -g)),
+      );
     } catch {
       break;
     }
@@ -240,13 +245,17 @@ export interface AxisLine {
  * θ − π/2 = −atan2(d₁·d₂, |d₁ × d₂|) (atan2 keeps full precision near 90°). The sign follows the
  * directions as given (flip one and the sign flips); `out_of_square_arcsec` is its magnitude.
  */
-export function axisSquareness(a: Vec3, b: Vec3): { squareness_arcsec: number; out_of_square_arcsec: number } {
+export function axisSquareness(
+  a: Vec3,
+  b: Vec3,
+): { squareness_arcsec: number; out_of_square_arcsec: number } {
   const dot = a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
   const cx = a[1] * b[2] - a[2] * b[1];
   const cy = a[2] * b[0] - a[0] * b[2];
   const cz = a[0] * b[1] - a[1] * b[0];
   const cross = Math.hypot(cx, cy, cz);
-  if (!(cross > 0) && !(Math.abs(dot) > 0)) throw new GeometryError("degenerate", "an axis direction is zero");
+  if (!(cross > 0) && !(Math.abs(dot) > 0))
+    throw new GeometryError("degenerate", "an axis direction is zero");
   const rad = -Math.atan2(dot, cross);
   const arcsec = rad / RAD_PER_ARCSEC;
   return { squareness_arcsec: arcsec, out_of_square_arcsec: Math.abs(arcsec) };

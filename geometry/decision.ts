@@ -42,12 +42,15 @@ export interface DecisionResult {
  */
 export function decide(check: ToleranceCheck): DecisionResult {
   const { measured, lower, upper, U, rule } = check;
-  if (rule !== "simple" && rule !== "guarded") throw new GeometryError("bad_option", `rule must be "simple" or "guarded", not '${String(rule)}'`);
+  if (rule !== "simple" && rule !== "guarded")
+    throw new GeometryError("bad_option", `rule must be "simple" or "guarded", not '${String(rule)}'`);
   if (!Number.isFinite(measured)) throw new GeometryError("bad_number", "the measured value must be finite");
   if (!Number.isFinite(upper) || (lower !== null && !Number.isFinite(lower)))
     throw new GeometryError("bad_number", "tolerance limits must be finite");
-  if (lower !== null && lower > upper) throw new GeometryError("bad_option", "the lower limit is above the upper limit");
-  if (!Number.isFinite(U) || U < 0) throw new GeometryError("bad_option", "the expanded uncertainty U must be ≥ 0");
+  if (lower !== null && lower > upper)
+    throw new GeometryError("bad_option", "the lower limit is above the upper limit");
+  if (!Number.isFinite(U) || U < 0)
+    throw new GeometryError("bad_option", "the expanded uncertainty U must be ≥ 0");
   const eps = 8 * Number.EPSILON * Math.max(Math.abs(measured), Math.abs(upper), Math.abs(lower ?? 0), U);
   const le = (x: number, y: number) => x <= y + eps;
   let decision: Decision;
@@ -60,5 +63,13 @@ export function decide(check: ToleranceCheck): DecisionResult {
   } else {
     decision = "undecided";
   }
-  return { decision, measured, lower, upper, U, rule, ...(check.unit !== undefined ? { unit: check.unit } : {}) };
+  return {
+    decision,
+    measured,
+    lower,
+    upper,
+    U,
+    rule,
+    ...(check.unit !== undefined ? { unit: check.unit } : {}),
+  };
 }

@@ -6,7 +6,13 @@
  * values in µm / arc seconds as their keys say. Pure: no framework; runs on the server or in the
  * browser.
  */
-import { headAxes, HEAD_PARAMETER_KEYS, type HeadConfig, type HeadErrors, type HeadVec3 as Vec3 } from "./head/config";
+import {
+  headAxes,
+  HEAD_PARAMETER_KEYS,
+  type HeadConfig,
+  type HeadErrors,
+  type HeadVec3 as Vec3,
+} from "./head/config";
 import { HeadKernel } from "./head/kernel";
 import { headErrorVector, rodriguesRotate, type HeadPose } from "./head/model";
 
@@ -15,7 +21,8 @@ const RAD_PER_DEG = Math.PI / 180;
 
 /** Every error value multiplied by k (k ≥ 0, finite). */
 export function exaggerateErrors(errors: HeadErrors, k: number): HeadErrors {
-  if (!Number.isFinite(k) || k < 0) throw new RangeError(`the exaggeration factor must be a finite number ≥ 0 (got ${k})`);
+  if (!Number.isFinite(k) || k < 0)
+    throw new RangeError(`the exaggeration factor must be a finite number ≥ 0 (got ${k})`);
   const out: HeadErrors = {};
   for (const key of HEAD_PARAMETER_KEYS) {
     const v = errors[key];
@@ -37,11 +44,28 @@ export interface SceneLine {
  * R(p′, P + primary_zero)·s′ with s′ = R(n, secondary_tilt)·R(p, secondary_yaw)·s. Nominal: p and
  * R(p, P)·s through the origin.
  */
-export function headAxisLines(config: HeadConfig, errors: HeadErrors, primaryDeg = 0): { nominalPrimary: SceneLine; fittedPrimary: SceneLine; nominalSecondary: SceneLine; fittedSecondary: SceneLine } {
+export function headAxisLines(
+  config: HeadConfig,
+  errors: HeadErrors,
+  primaryDeg = 0,
+): {
+  nominalPrimary: SceneLine;
+  fittedPrimary: SceneLine;
+  nominalSecondary: SceneLine;
+  fittedSecondary: SceneLine;
+} {
   const { p, s, n } = headAxes(config);
   const e = (key: keyof HeadErrors) => errors[key] ?? 0;
-  const pPrime = rodriguesRotate(s, e("primary_tilt_s_arcsec") * RAD_PER_ARCSEC, rodriguesRotate(n, e("primary_tilt_n_arcsec") * RAD_PER_ARCSEC, p));
-  const sPrime = rodriguesRotate(n, e("secondary_tilt_arcsec") * RAD_PER_ARCSEC, rodriguesRotate(p, e("secondary_yaw_arcsec") * RAD_PER_ARCSEC, s));
+  const pPrime = rodriguesRotate(
+    s,
+    e("primary_tilt_s_arcsec") * RAD_PER_ARCSEC,
+    rodriguesRotate(n, e("primary_tilt_n_arcsec") * RAD_PER_ARCSEC, p),
+  );
+  const sPrime = rodriguesRotate(
+    n,
+    e("secondary_tilt_arcsec") * RAD_PER_ARCSEC,
+    rodriguesRotate(p, e("secondary_yaw_arcsec") * RAD_PER_ARCSEC, s),
+  );
   const turn = primaryDeg * RAD_PER_DEG + e("primary_zero_arcsec") * RAD_PER_ARCSEC;
   const offMm = e("secondary_offset_um") / 1000;
   const o: Vec3 = [offMm * n[0], offMm * n[1], offMm * n[2]];
@@ -49,7 +73,10 @@ export function headAxisLines(config: HeadConfig, errors: HeadErrors, primaryDeg
     nominalPrimary: { pointMm: [0, 0, 0], direction: p },
     fittedPrimary: { pointMm: [0, 0, 0], direction: pPrime },
     nominalSecondary: { pointMm: [0, 0, 0], direction: rodriguesRotate(p, primaryDeg * RAD_PER_DEG, s) },
-    fittedSecondary: { pointMm: rodriguesRotate(pPrime, turn, o), direction: rodriguesRotate(pPrime, turn, sPrime) },
+    fittedSecondary: {
+      pointMm: rodriguesRotate(pPrime, turn, o),
+      direction: rodriguesRotate(pPrime, turn, sPrime),
+    },
   };
 }
 
@@ -77,7 +104,13 @@ export interface HeadSceneData {
  * (tip − tip₀) − r, drawn × k about the nominal tip: tip₀ + k·((tip − tip₀) − r) to first order,
  * which is actual(k) − k·r.
  */
-export function headScene(config: HeadConfig, errors: HeadErrors, poses: readonly HeadPose[], k: number, residualsUm?: readonly Vec3[]): HeadSceneData {
+export function headScene(
+  config: HeadConfig,
+  errors: HeadErrors,
+  poses: readonly HeadPose[],
+  k: number,
+  residualsUm?: readonly Vec3[],
+): HeadSceneData {
   const ek = exaggerateErrors(errors, k);
   const n = poses.length;
   // One kernel each for the nominal and the exaggerated model (the same code as headTipMm, without re-building it per pose).
@@ -170,9 +203,18 @@ export interface HeadOverlayData {
  * both tool-tip paths join the same commanded poses and differ only by the two parameter sets
  * (the same forward model as headScene: tip = f(errors × k, pose)). Lengths in mm.
  */
-export function headOverlayScene(config: HeadConfig, errors: HeadErrors, poses: readonly HeadPose[], k: number): HeadOverlayData {
+export function headOverlayScene(
+  config: HeadConfig,
+  errors: HeadErrors,
+  poses: readonly HeadPose[],
+  k: number,
+): HeadOverlayData {
   const s = headScene(config, errors, poses, k);
-  return { axes: { primary: s.axes.fittedPrimary, secondary: s.axes.fittedSecondary }, actualTipsMm: s.actualTipsMm, actualPathMm: s.actualPathMm };
+  return {
+    axes: { primary: s.axes.fittedPrimary, secondary: s.axes.fittedSecondary },
+    actualTipsMm: s.actualTipsMm,
+    actualPathMm: s.actualPathMm,
+  };
 }
 
 /**
@@ -180,7 +222,12 @@ export function headOverlayScene(config: HeadConfig, errors: HeadErrors, poses: 
  * size (not exaggerated): |tip(b, pose) − tip(a, pose)| per pose, µm; returns the largest and the
  * RMS. Computed in float64 with the same kernel as headScene.
  */
-export function tipChangeUm(config: HeadConfig, a: HeadErrors, b: HeadErrors, poses: readonly HeadPose[]): { maxUm: number; rmsUm: number } {
+export function tipChangeUm(
+  config: HeadConfig,
+  a: HeadErrors,
+  b: HeadErrors,
+  poses: readonly HeadPose[],
+): { maxUm: number; rmsUm: number } {
   const axes = headAxes(config);
   const ka = new HeadKernel(axes, headErrorVector(a));
   const kb = new HeadKernel(axes, headErrorVector(b));

@@ -67,9 +67,14 @@ export interface LmResult {
  * Minimise Σ r(θ)² from `initial` by Levenberg–Marquardt (method and sources in the file header).
  * Returns `converged: false` with reason "max_iterations" rather than throwing; callers decide.
  */
-export function levenbergMarquardt(problem: LmProblem, initial: ArrayLike<number>, options: LmOptions = {}): LmResult {
+export function levenbergMarquardt(
+  problem: LmProblem,
+  initial: ArrayLike<number>,
+  options: LmOptions = {},
+): LmResult {
   const p = problem.parameters;
-  if (initial.length !== p) throw new GeometryError("bad_option", `the start has ${initial.length} values for ${p} unknowns`);
+  if (initial.length !== p)
+    throw new GeometryError("bad_option", `the start has ${initial.length} values for ${p} unknowns`);
   const maxIterations = options.maxIterations ?? 100;
   const xtol = options.stepTolerance ?? 1e-10;
   const gtol = options.gradientTolerance ?? 1e-10;
@@ -81,7 +86,8 @@ export function levenbergMarquardt(problem: LmProblem, initial: ArrayLike<number
   let jtj = new Float64Array(p * p);
   let jtr = new Float64Array(p);
   let S = problem.normalEquations(theta, jtj, jtr);
-  if (!Number.isFinite(S)) throw new GeometryError("bad_number", "the residuals at the start are not finite numbers");
+  if (!Number.isFinite(S))
+    throw new GeometryError("bad_number", "the residuals at the start are not finite numbers");
   const d = new Float64Array(p);
   const trial = new Float64Array(p);
   const step = new Float64Array(p);
@@ -199,7 +205,8 @@ export function covarianceFromNormal(jtj: Float64Array, p: number, s2: number): 
   for (let i = 0; i < p; i++) for (let j = 0; j < p; j++) a.set(i, j, jtj[i * p + j]! / (d[i]! * d[j]!));
   const inv = inverse(a);
   const out = new Float64Array(p * p);
-  for (let i = 0; i < p; i++) for (let j = 0; j < p; j++) out[i * p + j] = (s2 * inv.get(i, j)) / (d[i]! * d[j]!);
+  for (let i = 0; i < p; i++)
+    for (let j = 0; j < p; j++) out[i * p + j] = (s2 * inv.get(i, j)) / (d[i]! * d[j]!);
   return out;
 }
 

@@ -43,14 +43,16 @@ function distinctAngles(thetaRad: Float64Array): { count: number; sortedIdx: num
     if (!(Math.abs(thetaRad[i]! - prev) < 1e-9)) count++;
     prev = thetaRad[i]!;
   }
-  if (count > 1 && Math.abs(thetaRad[idx[0]!]! + 2 * Math.PI - thetaRad[idx[idx.length - 1]!]!) < 1e-9) count--;
+  if (count > 1 && Math.abs(thetaRad[idx[0]!]! + 2 * Math.PI - thetaRad[idx[idx.length - 1]!]!) < 1e-9)
+    count--;
   return { count, sortedIdx: idx };
 }
 
 /** Largest angular gap between consecutive swept angles (radians), to flag a partial sweep. */
 function largestGap(thetaRad: Float64Array, sortedIdx: readonly number[]): number {
   let gap = 0;
-  for (let k = 1; k < sortedIdx.length; k++) gap = Math.max(gap, thetaRad[sortedIdx[k]!]! - thetaRad[sortedIdx[k - 1]!]!);
+  for (let k = 1; k < sortedIdx.length; k++)
+    gap = Math.max(gap, thetaRad[sortedIdx[k]!]! - thetaRad[sortedIdx[k - 1]!]!);
   return Math.max(gap, thetaRad[sortedIdx[0]!]! + 2 * Math.PI - thetaRad[sortedIdx[sortedIdx.length - 1]!]!);
 }
 
@@ -62,10 +64,20 @@ function largestGap(thetaRad: Float64Array, sortedIdx: readonly number[]): numbe
  * check optimality against a brute-force grid instead).
  * Returns the best width found (never above the least-squares width passed in).
  */
-function minimumZone(theta: Float64Array, y: Float64Array, sortedIdx: readonly number[], lsWidth: number): number {
+function minimumZone(
+  theta: Float64Array,
+  y: Float64Array,
+  sortedIdx: readonly number[],
+  lsWidth: number,
+): number {
   const n = theta.length;
   const m = sortedIdx.length;
-  let ref = [sortedIdx[0]!, sortedIdx[Math.floor(m / 4)]!, sortedIdx[Math.floor(m / 2)]!, sortedIdx[Math.floor((3 * m) / 4)]!];
+  let ref = [
+    sortedIdx[0]!,
+    sortedIdx[Math.floor(m / 4)]!,
+    sortedIdx[Math.floor(m / 2)]!,
+    sortedIdx[Math.floor((3 * m) / 4)]!,
+  ];
   let best = lsWidth;
   let yScale = 0;
   for (let i = 0; i < n; i++) yScale = Math.max(yScale, Math.abs(y[i]!));
@@ -137,8 +149,10 @@ function minimumZone(theta: Float64Array, y: Float64Array, sortedIdx: readonly n
  */
 export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
   const n = input.angleDeg.length;
-  if (input.readingUm.length !== n) throw new GeometryError("bad_option", "angle and reading must have the same length");
-  if (!Number.isFinite(radiusMm) || radiusMm <= 0) throw new GeometryError("bad_option", "the sweep radius must be a positive number of mm");
+  if (input.readingUm.length !== n)
+    throw new GeometryError("bad_option", "angle and reading must have the same length");
+  if (!Number.isFinite(radiusMm) || radiusMm <= 0)
+    throw new GeometryError("bad_option", "the sweep radius must be a positive number of mm");
   const theta = new Float64Array(n);
   const y = new Float64Array(n);
   let ymin = Infinity;
@@ -146,7 +160,8 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
   for (let i = 0; i < n; i++) {
     const d = input.angleDeg[i]!;
     const r = input.readingUm[i]!;
-    if (!Number.isFinite(d) || !Number.isFinite(r)) throw new GeometryError("bad_number", `reading ${i + 1} is not finite`);
+    if (!Number.isFinite(d) || !Number.isFinite(r))
+      throw new GeometryError("bad_number", `reading ${i + 1} is not finite`);
     const t = (((d % 360) + 360) % 360) * RAD_PER_DEG;
     theta[i] = t;
     y[i] = r;
@@ -154,7 +169,11 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
     if (r > ymax) ymax = r;
   }
   const { count, sortedIdx } = distinctAngles(theta);
-  if (count < 3) throw new GeometryError("too_few_rows", `a sweep needs readings at 3 or more distinct angles (got ${count})`);
+  if (count < 3)
+    throw new GeometryError(
+      "too_few_rows",
+      `a sweep needs readings at 3 or more distinct angles (got ${count})`,
+    );
 
   // Least squares by QR of the n×3 design matrix (ml-matrix solves a non-square system by QR),
   // not normal equations, so a partial sweep is not made worse by squaring its condition number.

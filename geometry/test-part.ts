@@ -37,7 +37,12 @@ export interface TestPartResultRow {
 export interface TestPartResult {
   readonly rule: DecisionRule;
   readonly rows: readonly TestPartResultRow[];
-  readonly totals: { readonly pass: number; readonly fail: number; readonly undecided: number; readonly total: number };
+  readonly totals: {
+    readonly pass: number;
+    readonly fail: number;
+    readonly undecided: number;
+    readonly total: number;
+  };
   readonly warnings: readonly string[];
 }
 
@@ -57,7 +62,8 @@ export function evaluateTestPart(rows: readonly TestPartRow[], options: TestPart
   const out: TestPartResultRow[] = rows.map((r, i) => {
     let U = uPerRow?.[i];
     if (U === undefined) U = defaultUByUnit?.[r.unit];
-    if (U === undefined && defaultUMm !== undefined && LENGTH_PER_MM[r.unit] !== undefined) U = defaultUMm * LENGTH_PER_MM[r.unit]!;
+    if (U === undefined && defaultUMm !== undefined && LENGTH_PER_MM[r.unit] !== undefined)
+      U = defaultUMm * LENGTH_PER_MM[r.unit]!;
     if (U === undefined) {
       U = 0;
       noU.add(r.unit);

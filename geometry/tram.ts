@@ -49,7 +49,8 @@ export function fitTram(input: TramInput): TramResult {
   let ymax = -Infinity;
   for (let i = 0; i < n; i++) {
     const yi = y[i]!;
-    if (!Number.isFinite(x[i]!) || !Number.isFinite(yi)) throw new GeometryError("bad_number", `row ${i + 1} is not finite`);
+    if (!Number.isFinite(x[i]!) || !Number.isFinite(yi))
+      throw new GeometryError("bad_number", `row ${i + 1} is not finite`);
     sx += x[i]!;
     sy += yi;
     if (yi < ymin) ymin = yi;
@@ -64,7 +65,8 @@ export function fitTram(input: TramInput): TramResult {
     sxx += dx * dx;
     sxy += dx * (y[i]! - my);
   }
-  if (!(sxx > 0)) throw new GeometryError("degenerate", "all readings are at the same travel; the slope is undefined");
+  if (!(sxx > 0))
+    throw new GeometryError("degenerate", "all readings are at the same travel; the slope is undefined");
   const b = sxy / sxx;
   const a = my - b * mx;
   const residuals = new Float64Array(n);

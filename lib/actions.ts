@@ -10,7 +10,9 @@ import { requireRole, requireUser } from "@/lib/auth/session";
 import { AppError, isDatabaseUnavailable, unavailable } from "./errors";
 
 /** `code` is the AppError code on failure ("unauthorized", "forbidden", "not_found", "invalid", …), so callers and tests can tell a refusal from a correction to make. */
-export type ActionResult<T> = { ok: true; data: T } | { ok: false; message: string; code: string; fieldErrors?: Record<string, string[]> };
+export type ActionResult<T> =
+  | { ok: true; data: T }
+  | { ok: false; message: string; code: string; fieldErrors?: Record<string, string[]> };
 
 export function action<S extends z.ZodType, T>(
   options: { schema: S; roles?: Role[] },
@@ -42,7 +44,11 @@ export function action<S extends z.ZodType, T>(
         return { ok: false, message: unavailable().message + " Nothing was saved.", code: "unavailable" };
       }
       console.error("[action] unexpected error", err);
-      return { ok: false, message: "Something went wrong on the server; nothing was saved.", code: "server_error" };
+      return {
+        ok: false,
+        message: "Something went wrong on the server; nothing was saved.",
+        code: "server_error",
+      };
     }
   };
 }

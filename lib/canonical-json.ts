@@ -4,11 +4,13 @@
  */
 export function canonicalJson(value: unknown): string {
   if (value === null || typeof value !== "object") {
-    if (typeof value === "number" && !Number.isFinite(value)) throw new Error("canonicalJson: non-finite number");
+    if (typeof value === "number" && !Number.isFinite(value))
+      throw new Error("canonicalJson: non-finite number");
     return JSON.stringify(value) ?? "null";
   }
   if (value instanceof Date) return JSON.stringify(value.toISOString());
-  if (Array.isArray(value)) return `[${value.map((v) => (v === undefined ? "null" : canonicalJson(v))).join(",")}]`;
+  if (Array.isArray(value))
+    return `[${value.map((v) => (v === undefined ? "null" : canonicalJson(v))).join(",")}]`;
   const entries = Object.entries(value as Record<string, unknown>)
     .filter(([, v]) => v !== undefined)
     .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));

@@ -2,8 +2,13 @@
  * Axis ticks for the server-rendered charts: "nice" steps of 1, 2 or 5 × 10ⁿ covering [lo, hi]
  * with about `target` intervals (the usual 1-2-5 rule of chart axes).
  */
-export function niceTicks(lo: number, hi: number, target = 4): { min: number; max: number; step: number; ticks: number[] } {
-  if (!Number.isFinite(lo) || !Number.isFinite(hi)) throw new RangeError("niceTicks: the range must be finite");
+export function niceTicks(
+  lo: number,
+  hi: number,
+  target = 4,
+): { min: number; max: number; step: number; ticks: number[] } {
+  if (!Number.isFinite(lo) || !Number.isFinite(hi))
+    throw new RangeError("niceTicks: the range must be finite");
   if (hi < lo) [lo, hi] = [hi, lo];
   if (hi === lo) {
     const d = lo === 0 ? 1 : Math.abs(lo) * 0.1;

@@ -37,15 +37,25 @@ export interface DerivedReading {
 export function deriveReading(step: StepRule, entry: ReadingEntry): DerivedReading {
   if (!Number.isFinite(entry.value)) throw new RangeError("The value must be a number.");
   if (step.derivation === "angle_over_distance") {
-    if (entry.unit === "arcsec") throw new RangeError("Enter the indicator reading as a length (in or mm); the angle is computed from it.");
+    if (entry.unit === "arcsec")
+      throw new RangeError(
+        "Enter the indicator reading as a length (in or mm); the angle is computed from it.",
+      );
     const travelMm = entry.travelMm ?? step.distanceMm;
-    if (travelMm == null || !(travelMm > 0)) throw new RangeError("The travel the reading was taken over must be a positive length.");
+    if (travelMm == null || !(travelMm > 0))
+      throw new RangeError("The travel the reading was taken over must be a positive length.");
     const readingMm = toCanonical(entry.value, entry.unit);
     const a = angleFromReading(readingMm * 1000, travelMm);
-    return { value: a.angle_arcsec, inputs: { reading_mm: readingMm, travel_mm: travelMm, slope_um_per_m: a.slope_um_per_m } };
+    return {
+      value: a.angle_arcsec,
+      inputs: { reading_mm: readingMm, travel_mm: travelMm, slope_um_per_m: a.slope_um_per_m },
+    };
   }
   const kindOfUnit: QuantityKind = entry.unit === "arcsec" ? "angle" : "length";
-  if (kindOfUnit !== step.quantityKind) throw new RangeError(`This step measures ${step.quantityKind === "angle" ? "an angle (arcsec)" : "a length (in or mm)"}, not ${entry.unit}.`);
+  if (kindOfUnit !== step.quantityKind)
+    throw new RangeError(
+      `This step measures ${step.quantityKind === "angle" ? "an angle (arcsec)" : "a length (in or mm)"}, not ${entry.unit}.`,
+    );
   return { value: toCanonical(entry.value, entry.unit), inputs: null };
 }
 
@@ -56,7 +66,8 @@ export function deriveReading(step: StepRule, entry: ReadingEntry): DerivedReadi
  */
 export function expandedUncertainty(step: StepRule, instrumentStdU: number | null | undefined): number {
   if (!instrumentStdU || !(instrumentStdU > 0)) return 0;
-  if (step.derivation === "angle_over_distance" && step.distanceMm) return (2 * instrumentStdU) / step.distanceMm / RAD_PER_ARCSEC;
+  if (step.derivation === "angle_over_distance" && step.distanceMm)
+    return (2 * instrumentStdU) / step.distanceMm / RAD_PER_ARCSEC;
   return 2 * instrumentStdU;
 }
 
@@ -81,9 +92,13 @@ export const DECISION_LABELS: Record<StepDecision, string> = {
 };
 
 /** Is the instrument's calibration still valid on the day of the reading? Dates as YYYY-MM-DD. */
-export function calibrationRefusal(instrument: { serial: string; calibrationDueOn: string; retired: boolean }, takenAt: Date): string | null {
+export function calibrationRefusal(
+  instrument: { serial: string; calibrationDueOn: string; retired: boolean },
+  takenAt: Date,
+): string | null {
   if (instrument.retired) return `Instrument ${instrument.serial} is retired and cannot be used.`;
   const day = takenAt.toISOString().slice(0, 10);
-  if (instrument.calibrationDueOn < day) return `Instrument ${instrument.serial} was due for calibration on ${instrument.calibrationDueOn}; recalibrate it or choose another instrument.`;
+  if (instrument.calibrationDueOn < day)
+    return `Instrument ${instrument.serial} was due for calibration on ${instrument.calibrationDueOn}; recalibrate it or choose another instrument.`;
   return null;
 }

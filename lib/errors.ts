@@ -38,9 +38,22 @@ export const unavailable = (message = "The service is briefly unavailable. Try a
  * 53300 too many connections.
  */
 const UNREACHABLE_SQLSTATES = new Set(["57P01", "57P02", "57P03", "53300"]);
-const UNREACHABLE_NET_CODES = new Set(["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT", "EHOSTUNREACH", "ENOTFOUND", "EAI_AGAIN"]);
+const UNREACHABLE_NET_CODES = new Set([
+  "ECONNREFUSED",
+  "ECONNRESET",
+  "EPIPE",
+  "ETIMEDOUT",
+  "EHOSTUNREACH",
+  "ENOTFOUND",
+  "EAI_AGAIN",
+]);
 /** node-postgres and pg-pool say these in words only, without a code. */
-const UNREACHABLE_MESSAGES = [/connection terminated/i, /timeout exceeded when trying to connect/i, /not queryable/i, /the database system is (starting up|shutting down|in recovery mode)/i];
+const UNREACHABLE_MESSAGES = [
+  /connection terminated/i,
+  /timeout exceeded when trying to connect/i,
+  /not queryable/i,
+  /the database system is (starting up|shutting down|in recovery mode)/i,
+];
 
 /**
  * True when `err` (or an error it wraps: drizzle wraps driver errors in `cause`) says the database
@@ -50,7 +63,11 @@ export function isDatabaseUnavailable(err: unknown): boolean {
   let e: unknown = err;
   for (let depth = 0; depth < 6 && e instanceof Error; depth++) {
     const code = (e as { code?: unknown }).code;
-    if (typeof code === "string" && (code.startsWith("08") || UNREACHABLE_SQLSTATES.has(code) || UNREACHABLE_NET_CODES.has(code))) return true;
+    if (
+      typeof code === "string" &&
+      (code.startsWith("08") || UNREACHABLE_SQLSTATES.has(code) || UNREACHABLE_NET_CODES.has(code))
+    )
+      return true;
     if (e instanceof AggregateError && e.errors.some((x) => isDatabaseUnavailable(x))) return true;
     if (UNREACHABLE_MESSAGES.some((re) => re.test(e instanceof Error ? e.message : ""))) return true;
     e = (e as { cause?: unknown }).cause;

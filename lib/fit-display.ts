@@ -79,7 +79,8 @@ export function limitText(lower: number | null, upper: number | null, unit: "um"
   const d = 1;
   const withUnit = (t: string) => (unit === "arcsec" ? `${t}″` : `${t} µm`);
   if (lower == null && upper == null) return null;
-  if (lower != null && upper != null && Math.abs(lower + upper) <= 1e-12 * Math.max(1, Math.abs(upper))) return withUnit(`± ${upper.toFixed(d)}`);
+  if (lower != null && upper != null && Math.abs(lower + upper) <= 1e-12 * Math.max(1, Math.abs(upper)))
+    return withUnit(`± ${upper.toFixed(d)}`);
   if (lower != null && upper != null) return withUnit(`${signed(lower, d)} … ${signed(upper, d)}`);
   if (upper != null) return withUnit(`≤ ${signed(upper, d)}`);
   return withUnit(`≥ ${signed(lower as number, d)}`);
@@ -94,7 +95,23 @@ export function parameterRows(fit: HeadFitJson, limits: readonly ParameterLimit[
   return fit.parameters.map((p) => {
     const held = p.U === null;
     const lim = limits.find((l) => l.parameter === p.key);
-    const decision: StepDecision = !lim || (lim.lowerLimit == null && lim.upperLimit == null) ? "no_limit" : held ? "not_measured" : judge({ quantityKind: "length", derivation: "direct", distanceMm: null, lowerLimit: lim.lowerLimit, upperLimit: lim.upperLimit, decisionRule: lim.decisionRule }, p.value, p.U ?? 0);
+    const decision: StepDecision =
+      !lim || (lim.lowerLimit == null && lim.upperLimit == null)
+        ? "no_limit"
+        : held
+          ? "not_measured"
+          : judge(
+              {
+                quantityKind: "length",
+                derivation: "direct",
+                distanceMm: null,
+                lowerLimit: lim.lowerLimit,
+                upperLimit: lim.upperLimit,
+                decisionRule: lim.decisionRule,
+              },
+              p.value,
+              p.U ?? 0,
+            );
     return {
       key: p.key,
       iso: p.iso,
@@ -107,7 +124,9 @@ export function parameterRows(fit: HeadFitJson, limits: readonly ParameterLimit[
       identifiableText: IDENTIFIABILITY_WORDS[p.identifiable],
       heldAtZero: held,
       toleranceText: lim ? limitText(lim.lowerLimit, lim.upperLimit, p.unit) : null,
-      limitSourceText: lim ? `${LIMIT_SOURCE_WORDS[lim.limitSource]}${lim.limitSourceNote ? `: ${lim.limitSourceNote}` : ""}` : null,
+      limitSourceText: lim
+        ? `${LIMIT_SOURCE_WORDS[lim.limitSource]}${lim.limitSourceNote ? `: ${lim.limitSourceNote}` : ""}`
+        : null,
       decisionRule: lim ? lim.decisionRule : null,
       decision,
       decisionText: PARAMETER_DECISION_TEXT[decision],
@@ -123,8 +142,16 @@ export interface ControlValue {
   note: string;
 }
 
-const DIR: Record<string, string> = { "1,0,0": "+X", "-1,0,0": "−X", "0,1,0": "+Y", "0,-1,0": "−Y", "0,0,1": "+Z", "0,0,-1": "−Z" };
-const dirName = (v: readonly number[]) => DIR[v.map((x) => Math.round(x)).join(",")] ?? `(${v.map((x) => x.toFixed(3)).join(", ")})`;
+const DIR: Record<string, string> = {
+  "1,0,0": "+X",
+  "-1,0,0": "−X",
+  "0,1,0": "+Y",
+  "0,-1,0": "−Y",
+  "0,0,1": "+Z",
+  "0,0,-1": "−Z",
+};
+const dirName = (v: readonly number[]) =>
+  DIR[v.map((x) => Math.round(x)).join(",")] ?? `(${v.map((x) => x.toFixed(3)).join(", ")})`;
 
 /**
  * The approved parameters as values for the control, in the control's usual quantities: the pivot
@@ -136,25 +163,58 @@ export function controlValues(fit: HeadFitJson, config: HeadConfig): ControlValu
   const v = (k: HeadParameterKey) => fit.parameters.find((p) => p.key === k);
   const out: ControlValue[] = [];
   const L = v("pivot_length_error_um");
-  if (L) out.push({ label: "Pivot length", text: `${(config.pivotLengthMm + L.value / 1000).toFixed(4)} mm`, note: `nominal ${config.pivotLengthMm.toFixed(4)} mm ${L.value < 0 ? "−" : "+"} ${Math.abs(L.value / 1000).toFixed(4)} mm; from the tilt axis to the gauge point along the tool` });
+  if (L)
+    out.push({
+      label: "Pivot length",
+      text: `${(config.pivotLengthMm + L.value / 1000).toFixed(4)} mm`,
+      note: `nominal ${config.pivotLengthMm.toFixed(4)} mm ${L.value < 0 ? "−" : "+"} ${Math.abs(L.value / 1000).toFixed(4)} mm; from the tilt axis to the gauge point along the tool`,
+    });
   const mm = (k: HeadParameterKey, label: string, along: string) => {
     const p = v(k);
     if (!p || p.U === null) return;
-    out.push({ label, text: `${signed(p.value / 1000, 4)} mm`, note: `positive along ${along} with both axes at zero` });
+    out.push({
+      label,
+      text: `${signed(p.value / 1000, 4)} mm`,
+      note: `positive along ${along} with both axes at zero`,
+    });
   };
-  mm("tip_offset_s_um", "Gauge point offset along the tilt axis", `${dirName(s)} (the ${config.secondary} axis direction)`);
+  mm(
+    "tip_offset_s_um",
+    "Gauge point offset along the tilt axis",
+    `${dirName(s)} (the ${config.secondary} axis direction)`,
+  );
   mm("tip_offset_n_um", "Gauge point offset across the tilt axis", dirName(n));
-  mm("secondary_offset_um", `${config.secondary} axis line offset from the ${config.primary} axis`, dirName(n));
+  mm(
+    "secondary_offset_um",
+    `${config.secondary} axis line offset from the ${config.primary} axis`,
+    dirName(n),
+  );
   const deg = (k: HeadParameterKey, label: string, about: string) => {
     const p = v(k);
     if (!p || p.U === null) return;
-    out.push({ label, text: `${signed(p.value / 3600, 5)}°`, note: `${signed(p.value, 1)}″; positive is a right-hand turn about ${about}` });
+    out.push({
+      label,
+      text: `${signed(p.value / 3600, 5)}°`,
+      note: `${signed(p.value, 1)}″; positive is a right-hand turn about ${about}`,
+    });
   };
   const axisLetter = (a: AxisLetter) => `+${({ A: "X", B: "Y", C: "Z" } as const)[a]}`;
-  deg("primary_zero_arcsec", `${config.primary} axis zero shift`, `${axisLetter(config.primary)} (the ${config.primary} axis)`);
-  deg("secondary_zero_arcsec", `${config.secondary} axis zero shift`, `${axisLetter(config.secondary)} (the ${config.secondary} axis)`);
+  deg(
+    "primary_zero_arcsec",
+    `${config.primary} axis zero shift`,
+    `${axisLetter(config.primary)} (the ${config.primary} axis)`,
+  );
+  deg(
+    "secondary_zero_arcsec",
+    `${config.secondary} axis zero shift`,
+    `${axisLetter(config.secondary)} (the ${config.secondary} axis)`,
+  );
   deg("secondary_tilt_arcsec", `${config.secondary} axis squareness to ${config.primary}`, dirName(n));
-  deg("secondary_yaw_arcsec", `${config.secondary} axis turned about ${config.primary}`, axisLetter(config.primary));
+  deg(
+    "secondary_yaw_arcsec",
+    `${config.secondary} axis turned about ${config.primary}`,
+    axisLetter(config.primary),
+  );
   deg("primary_tilt_s_arcsec", `${config.primary} axis tilt about ${dirName(s)}`, dirName(s));
   deg("primary_tilt_n_arcsec", `${config.primary} axis tilt about ${dirName(n)}`, dirName(n));
   return out;

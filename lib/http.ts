@@ -36,16 +36,33 @@ export function errorResponse(err: unknown): Response {
     // The database is down or restarting: a short generic answer the client may retry, no detail.
     console.error("[api] database or storage unavailable:", rootMessage(err));
     const e = unavailable();
-    return Response.json({ error: { code: e.code, message: e.message } }, { status: 503, headers: { "Cache-Control": "no-store", "X-Content-Type-Options": "nosniff", "Retry-After": "2" } });
+    return Response.json(
+      { error: { code: e.code, message: e.message } },
+      {
+        status: 503,
+        headers: { "Cache-Control": "no-store", "X-Content-Type-Options": "nosniff", "Retry-After": "2" },
+      },
+    );
   }
   if (err instanceof AppError) {
-    const body = { error: { code: err.code, message: err.message, ...(err.issues ? { issues: err.issues } : {}) } };
-    return Response.json(body, { status: err.status, headers: { "Cache-Control": "no-store", "X-Content-Type-Options": "nosniff" } });
+    const body = {
+      error: { code: err.code, message: err.message, ...(err.issues ? { issues: err.issues } : {}) },
+    };
+    return Response.json(body, {
+      status: err.status,
+      headers: { "Cache-Control": "no-store", "X-Content-Type-Options": "nosniff" },
+    });
   }
   if (err instanceof ZodError) {
     const issues = err.issues.map((i) => ({ field: i.path.join("."), message: i.message }));
-    return Response.json({ error: { code: "invalid", message: "The request is not valid.", issues } }, { status: 422 });
+    return Response.json(
+      { error: { code: "invalid", message: "The request is not valid.", issues } },
+      { status: 422 },
+    );
   }
   console.error("[api] unexpected error", err);
-  return Response.json({ error: { code: "internal", message: "Something went wrong on the server." } }, { status: 500 });
+  return Response.json(
+    { error: { code: "internal", message: "Something went wrong on the server." } },
+    { status: 500 },
+  );
 }

@@ -41,16 +41,20 @@ export function crc32(bytes: Uint8Array): number {
 
 /** The signature and IHDR of `bytes`; throws PngError saying what is wrong. */
 export function readPngInfo(bytes: Uint8Array): PngInfo {
-  if (bytes.length < 8 || SIGNATURE.some((b, i) => bytes[i] !== b)) throw new PngError("The file is not a PNG image (its first bytes are not the PNG signature).");
+  if (bytes.length < 8 || SIGNATURE.some((b, i) => bytes[i] !== b))
+    throw new PngError("The file is not a PNG image (its first bytes are not the PNG signature).");
   if (bytes.length < 33) throw new PngError("The PNG is cut off before the end of its header (IHDR).");
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const length = view.getUint32(8);
   const type = String.fromCharCode(bytes[12]!, bytes[13]!, bytes[14]!, bytes[15]!);
-  if (type !== "IHDR" || length !== 13) throw new PngError("The PNG does not start with a 13-byte IHDR header chunk.");
+  if (type !== "IHDR" || length !== 13)
+    throw new PngError("The PNG does not start with a 13-byte IHDR header chunk.");
   const crc = view.getUint32(29);
-  if (crc32(bytes.subarray(12, 29)) !== crc) throw new PngError("The PNG header (IHDR) fails its CRC check; the file is damaged.");
+  if (crc32(bytes.subarray(12, 29)) !== crc)
+    throw new PngError("The PNG header (IHDR) fails its CRC check; the file is damaged.");
   const widthPx = view.getUint32(16);
   const heightPx = view.getUint32(20);
-  if (widthPx === 0 || heightPx === 0 || widthPx > MAX_DIMENSION || heightPx > MAX_DIMENSION) throw new PngError(`The PNG says it is ${widthPx} × ${heightPx} pixels, which is not a valid size.`);
+  if (widthPx === 0 || heightPx === 0 || widthPx > MAX_DIMENSION || heightPx > MAX_DIMENSION)
+    throw new PngError(`The PNG says it is ${widthPx} × ${heightPx} pixels, which is not a valid size.`);
   return { widthPx, heightPx, bitDepth: bytes[24]!, colourType: bytes[25]! };
 }

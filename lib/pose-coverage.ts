@@ -33,9 +33,14 @@ export function turnAngle(deg: number): number {
   return round3(r) === 360 ? 0 : round3(r);
 }
 
-export function poseCoverage(primaryDeg: ArrayLike<number>, secondaryDeg: ArrayLike<number>, toolMm: ArrayLike<number>): PoseCoverage {
+export function poseCoverage(
+  primaryDeg: ArrayLike<number>,
+  secondaryDeg: ArrayLike<number>,
+  toolMm: ArrayLike<number>,
+): PoseCoverage {
   const n = primaryDeg.length;
-  if (n === 0 || secondaryDeg.length !== n || toolMm.length !== n) throw new RangeError("poseCoverage: the pose columns must be non-empty and of one length");
+  if (n === 0 || secondaryDeg.length !== n || toolMm.length !== n)
+    throw new RangeError("poseCoverage: the pose columns must be non-empty and of one length");
   const prim = new Set<number>();
   const sec = new Set<number>();
   const tools = new Set<number>();
@@ -50,7 +55,9 @@ export function poseCoverage(primaryDeg: ArrayLike<number>, secondaryDeg: ArrayL
     tools.add(round3(toolMm[i]!));
   }
   const primaryAnglesDeg = [...prim].sort((a, b) => a - b);
-  const primarySectors = Array.from({ length: 360 / PRIMARY_SECTOR_DEG }, (_, k) => primaryAnglesDeg.some((a) => a >= k * PRIMARY_SECTOR_DEG && a < (k + 1) * PRIMARY_SECTOR_DEG));
+  const primarySectors = Array.from({ length: 360 / PRIMARY_SECTOR_DEG }, (_, k) =>
+    primaryAnglesDeg.some((a) => a >= k * PRIMARY_SECTOR_DEG && a < (k + 1) * PRIMARY_SECTOR_DEG),
+  );
   // Gaps between consecutive angles round the circle; one angle leaves a 360° gap.
   let largestPrimaryGapDeg = 360;
   if (primaryAnglesDeg.length > 1) {
@@ -79,12 +86,24 @@ const deg = (v: number) => `${v < 0 ? "−" : ""}${Math.abs(v).toFixed(Number.is
 export function coverageAdvice(c: PoseCoverage): string[] {
   const out: string[] = [];
   const missing = c.primarySectors.flatMap((hit, k) => (hit ? [] : [k]));
-  if (missing.length === c.primarySectors.length - 1 || c.primaryAnglesDeg.length < 3) out.push(`The primary axis was probed at only ${c.primaryAnglesDeg.length} angle${c.primaryAnglesDeg.length === 1 ? "" : "s"}: probe at least 8 angles spread round the full turn.`);
-  else if (missing.length) out.push(`${missing.length} of the ${c.primarySectors.length} ${PRIMARY_SECTOR_DEG}° sectors of the primary turn were not probed (${missing.map((k) => `${k * PRIMARY_SECTOR_DEG}–${(k + 1) * PRIMARY_SECTOR_DEG}°`).join(", ")}); the largest gap is ${c.largestPrimaryGapDeg.toFixed(0)}°. Probing them makes the fit less sensitive to a local error of the rotary axis.`);
+  if (missing.length === c.primarySectors.length - 1 || c.primaryAnglesDeg.length < 3)
+    out.push(
+      `The primary axis was probed at only ${c.primaryAnglesDeg.length} angle${c.primaryAnglesDeg.length === 1 ? "" : "s"}: probe at least 8 angles spread round the full turn.`,
+    );
+  else if (missing.length)
+    out.push(
+      `${missing.length} of the ${c.primarySectors.length} ${PRIMARY_SECTOR_DEG}° sectors of the primary turn were not probed (${missing.map((k) => `${k * PRIMARY_SECTOR_DEG}–${(k + 1) * PRIMARY_SECTOR_DEG}°`).join(", ")}); the largest gap is ${c.largestPrimaryGapDeg.toFixed(0)}°. Probing them makes the fit less sensitive to a local error of the rotary axis.`,
+    );
   const span = c.secondaryMaxDeg - c.secondaryMinDeg;
-  if (c.secondaryAnglesDeg.length < 3) out.push(`The tilt axis was probed at only ${c.secondaryAnglesDeg.length} angle${c.secondaryAnglesDeg.length === 1 ? "" : "s"}: probe at least 3, spread over its working range, to separate its zero from its squareness.`);
+  if (c.secondaryAnglesDeg.length < 3)
+    out.push(
+      `The tilt axis was probed at only ${c.secondaryAnglesDeg.length} angle${c.secondaryAnglesDeg.length === 1 ? "" : "s"}: probe at least 3, spread over its working range, to separate its zero from its squareness.`,
+    );
   // Under half of the ±90° reference span (180°) is narrow.
-  else if (span < TILT_REFERENCE_DEG) out.push(`The tilt axis was probed over ${deg(c.secondaryMinDeg)} … ${deg(c.secondaryMaxDeg)} (${span.toFixed(0)}° of travel); a wider span, towards ±${TILT_REFERENCE_DEG}° where the head allows it (common practice; the maker's travel governs), makes the tilt-axis parameters better determined.`);
+  else if (span < TILT_REFERENCE_DEG)
+    out.push(
+      `The tilt axis was probed over ${deg(c.secondaryMinDeg)} … ${deg(c.secondaryMaxDeg)} (${span.toFixed(0)}° of travel); a wider span, towards ±${TILT_REFERENCE_DEG}° where the head allows it (common practice; the maker's travel governs), makes the tilt-axis parameters better determined.`,
+    );
   return out;
 }
 
@@ -96,14 +115,26 @@ export interface NextVisitPlan {
 }
 
 /** Coverage, the planner's forecast for the same poses, and the combined advice (coverage first, then the planner's, without repeats). */
-export function nextVisitPlan(config: HeadConfig, primaryDeg: ArrayLike<number>, secondaryDeg: ArrayLike<number>, toolMm: ArrayLike<number>): NextVisitPlan {
+export function nextVisitPlan(
+  config: HeadConfig,
+  primaryDeg: ArrayLike<number>,
+  secondaryDeg: ArrayLike<number>,
+  toolMm: ArrayLike<number>,
+): NextVisitPlan {
   const coverage = poseCoverage(primaryDeg, secondaryDeg, toolMm);
   let plan: HeadPlanResult | null = null;
   try {
-    plan = planHeadPoses(config, { rows: primaryDeg.length, primaryDeg: Float64Array.from(primaryDeg), secondaryDeg: Float64Array.from(secondaryDeg), toolMm: Float64Array.from(toolMm) });
+    plan = planHeadPoses(config, {
+      rows: primaryDeg.length,
+      primaryDeg: Float64Array.from(primaryDeg),
+      secondaryDeg: Float64Array.from(secondaryDeg),
+      toolMm: Float64Array.from(toolMm),
+    });
   } catch {
     plan = null;
   }
-  const fromPlan = (plan?.advice ?? []).map((a) => a.charAt(0).toUpperCase() + a.slice(1) + (a.endsWith(".") ? "" : "."));
+  const fromPlan = (plan?.advice ?? []).map(
+    (a) => a.charAt(0).toUpperCase() + a.slice(1) + (a.endsWith(".") ? "" : "."),
+  );
   return { coverage, plan, advice: [...coverageAdvice(coverage), ...fromPlan] };
 }

@@ -54,13 +54,23 @@ export function roundForDisplay(value: number, unit: EntryUnit, extraDecimals = 
 }
 
 /** Canonical value formatted in the display unit with its symbol, e.g. "0.0005 in", "12.700 mm", "10.3″". */
-export function formatValue(canonical: number | null | undefined, kind: QuantityKind, system: UnitSystem, opts: { signed?: boolean; exact?: boolean } = {}): string {
+export function formatValue(
+  canonical: number | null | undefined,
+  kind: QuantityKind,
+  system: UnitSystem,
+  opts: { signed?: boolean; exact?: boolean } = {},
+): string {
   if (canonical == null || !Number.isFinite(canonical)) return "—";
   const unit = displayUnit(kind, system);
   const shown = fromCanonical(canonical, unit);
   // A limit is shown exactly (up to two more decimals) so 12.7 µm reads 0.0127 mm, not 0.013 mm.
   let extra = 0;
-  while (opts.exact && extra < 2 && Math.abs(Number(roundForDisplay(shown, unit, extra)) - shown) > 1e-12 * Math.max(1, Math.abs(shown))) extra++;
+  while (
+    opts.exact &&
+    extra < 2 &&
+    Math.abs(Number(roundForDisplay(shown, unit, extra)) - shown) > 1e-12 * Math.max(1, Math.abs(shown))
+  )
+    extra++;
   let s = roundForDisplay(shown, unit, extra);
   if (opts.signed && !s.startsWith("-") && Number(s) !== 0) s = `+${s}`;
   s = s.replace(/^-/, "−");
@@ -73,10 +83,16 @@ export function arcsecToUmPerM(arcsec: number): number {
 }
 
 /** A limit pair as text in the display unit: "≤ 0.0005 in", "0.0625 to 0.1250 in", "± 5.0″". */
-export function formatLimits(lower: number | null, upper: number | null, kind: QuantityKind, system: UnitSystem): string {
+export function formatLimits(
+  lower: number | null,
+  upper: number | null,
+  kind: QuantityKind,
+  system: UnitSystem,
+): string {
   const f = (v: number) => formatValue(v, kind, system, { exact: true });
   const bare = (v: number) => f(v).replace(/ ?(in|mm|″)$/, "");
-  if (lower != null && upper != null) return lower === -upper ? `± ${f(upper)}` : `${bare(lower)} to ${f(upper)}`;
+  if (lower != null && upper != null)
+    return lower === -upper ? `± ${f(upper)}` : `${bare(lower)} to ${f(upper)}`;
   if (upper != null) return `≤ ${f(upper)}`;
   if (lower != null) return `≥ ${f(lower)}`;
   return "no limit";

@@ -5,7 +5,13 @@ export function LogoMark({ className = "h-7 w-7" }: { className?: string }) {
       <rect x="1" y="1" width="30" height="30" rx="7" fill="#2d3238" />
       <line x1="8" y1="24" x2="24" y2="8" stroke="#9fb3c8" strokeWidth="2.2" strokeLinecap="round" />
       <line x1="8" y1="8" x2="24" y2="24" stroke="#9fb3c8" strokeWidth="2.2" strokeLinecap="round" />
-      <path d="M9.5 19.5 A 9 9 0 0 1 19.5 9.5" fill="none" stroke="#e08e0b" strokeWidth="2.6" strokeLinecap="round" />
+      <path
+        d="M9.5 19.5 A 9 9 0 0 1 19.5 9.5"
+        fill="none"
+        stroke="#e08e0b"
+        strokeWidth="2.6"
+        strokeLinecap="round"
+      />
       <circle cx="16" cy="16" r="2.2" fill="#e08e0b" />
     </svg>
   );

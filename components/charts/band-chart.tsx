@@ -23,10 +23,18 @@ const ROW_H = 46;
 const GAP = 28;
 const TOP = 34;
 
-const COLOURS: Record<StepDecision, string> = { pass: "#1f7a45", fail: "#c2302b", undecided: "#6a45b0", no_limit: "#3e5670", not_measured: "#5c6470" };
+const COLOURS: Record<StepDecision, string> = {
+  pass: "#1f7a45",
+  fail: "#c2302b",
+  undecided: "#6a45b0",
+  no_limit: "#3e5670",
+  not_measured: "#5c6470",
+};
 
 function scale(row: BandRow) {
-  const vals = [row.lower, row.upper, row.pre?.value, row.post?.value].filter((v): v is number => v != null && Number.isFinite(v));
+  const vals = [row.lower, row.upper, row.pre?.value, row.post?.value].filter(
+    (v): v is number => v != null && Number.isFinite(v),
+  );
   // A one-sided limit (flatness, TIR) starts at zero.
   if (row.lower == null && row.upper != null) vals.push(0);
   let lo = Math.min(...vals);
@@ -44,8 +52,23 @@ function scale(row: BandRow) {
 function Marker({ x, y, decision }: { x: number; y: number; decision: StepDecision }) {
   const c = COLOURS[decision];
   if (decision === "fail")
-    return <path d={`M${x - 6} ${y - 6}L${x + 6} ${y + 6}M${x + 6} ${y - 6}L${x - 6} ${y + 6}`} stroke={c} strokeWidth="3" strokeLinecap="round" />;
-  if (decision === "undecided") return <path d={`M${x} ${y - 7}L${x + 7} ${y}L${x} ${y + 7}L${x - 7} ${y}Z`} fill={c} stroke="#fff" strokeWidth="1.5" />;
+    return (
+      <path
+        d={`M${x - 6} ${y - 6}L${x + 6} ${y + 6}M${x + 6} ${y - 6}L${x - 6} ${y + 6}`}
+        stroke={c}
+        strokeWidth="3"
+        strokeLinecap="round"
+      />
+    );
+  if (decision === "undecided")
+    return (
+      <path
+        d={`M${x} ${y - 7}L${x + 7} ${y}L${x} ${y + 7}L${x - 7} ${y}Z`}
+        fill={c}
+        stroke="#fff"
+        strokeWidth="1.5"
+      />
+    );
   return <circle cx={x} cy={y} r="6" fill={c} stroke="#fff" strokeWidth="1.5" />;
 }
 
@@ -59,11 +82,32 @@ export function BandChart({ rows }: { rows: BandRow[] }) {
   return (
     <ScrollRegion label="Readings against their limits, chart">
       <figure>
-        <svg viewBox={`0 0 ${width} ${height}`} className="w-full min-w-[44rem]" role="img" aria-labelledby="band-title band-desc" data-testid="band-chart">
+        <svg
+          viewBox={`0 0 ${width} ${height}`}
+          className="w-full min-w-[44rem]"
+          role="img"
+          aria-labelledby="band-title band-desc"
+          data-testid="band-chart"
+        >
           <title id="band-title">Readings against their limits, before and after the adjustment</title>
-          <desc id="band-desc">{rows.map((r) => `${r.label}: limit ${r.limitText}; before ${r.pre?.text ?? "not measured"}; after ${r.post?.text ?? "not measured"}.`).join(" ")}</desc>
+          <desc id="band-desc">
+            {rows
+              .map(
+                (r) =>
+                  `${r.label}: limit ${r.limitText}; before ${r.pre?.text ?? "not measured"}; after ${r.post?.text ?? "not measured"}.`,
+              )
+              .join(" ")}
+          </desc>
           {panels.map((p) => (
-            <text key={p.key} x={p.x0 + PANEL_W / 2} y={18} textAnchor="middle" className="fill-graphite-800" fontSize="13" fontWeight="600">
+            <text
+              key={p.key}
+              x={p.x0 + PANEL_W / 2}
+              y={18}
+              textAnchor="middle"
+              className="fill-graphite-800"
+              fontSize="13"
+              fontWeight="600"
+            >
               {p.title}
             </text>
           ))}
@@ -72,11 +116,19 @@ export function BandChart({ rows }: { rows: BandRow[] }) {
             const sx = scale(row);
             return (
               <g key={row.key}>
-                {i % 2 === 0 ? <rect x={0} y={y - ROW_H / 2} width={width} height={ROW_H} fill="#f6f7f8" /> : null}
+                {i % 2 === 0 ? (
+                  <rect x={0} y={y - ROW_H / 2} width={width} height={ROW_H} fill="#f6f7f8" />
+                ) : null}
                 <text x={8} y={y - 3} fontSize="12" className="fill-graphite-900">
                   {row.label.length > 34 ? `${row.label.slice(0, 33)}…` : row.label}
                 </text>
-                <text x={8} y={y + 13} fontSize="11" className="fill-graphite-600" fontFamily="var(--font-mono), monospace">
+                <text
+                  x={8}
+                  y={y + 13}
+                  fontSize="11"
+                  className="fill-graphite-600"
+                  fontFamily="var(--font-mono), monospace"
+                >
                   {row.limitText}
                 </text>
                 {panels.map((p) => {
@@ -86,18 +138,60 @@ export function BandChart({ rows }: { rows: BandRow[] }) {
                   return (
                     <g key={p.key} transform={`translate(${p.x0},0)`}>
                       <line x1={10} x2={PANEL_W - 10} y1={y} y2={y} stroke="#b3bac3" strokeWidth="1" />
-                      {lo != null && hi != null ? <rect x={sx(lo)} y={y - 9} width={Math.max(1, sx(hi) - sx(lo))} height={18} fill="#e3eaf1" stroke="#5f7d99" strokeWidth="1" rx="2" /> : null}
-                      {row.lower != null ? <line x1={sx(row.lower)} x2={sx(row.lower)} y1={y - 13} y2={y + 13} stroke="#3e5670" strokeWidth="2" /> : null}
-                      {row.upper != null ? <line x1={sx(row.upper)} x2={sx(row.upper)} y1={y - 13} y2={y + 13} stroke="#3e5670" strokeWidth="2" /> : null}
+                      {lo != null && hi != null ? (
+                        <rect
+                          x={sx(lo)}
+                          y={y - 9}
+                          width={Math.max(1, sx(hi) - sx(lo))}
+                          height={18}
+                          fill="#e3eaf1"
+                          stroke="#5f7d99"
+                          strokeWidth="1"
+                          rx="2"
+                        />
+                      ) : null}
+                      {row.lower != null ? (
+                        <line
+                          x1={sx(row.lower)}
+                          x2={sx(row.lower)}
+                          y1={y - 13}
+                          y2={y + 13}
+                          stroke="#3e5670"
+                          strokeWidth="2"
+                        />
+                      ) : null}
+                      {row.upper != null ? (
+                        <line
+                          x1={sx(row.upper)}
+                          x2={sx(row.upper)}
+                          y1={y - 13}
+                          y2={y + 13}
+                          stroke="#3e5670"
+                          strokeWidth="2"
+                        />
+                      ) : null}
                       {r ? (
                         <>
                           <Marker x={sx(r.value)} y={y} decision={r.decision} />
-                          <text x={Math.min(PANEL_W - 4, Math.max(4, sx(r.value)))} y={y - 14} fontSize="10.5" textAnchor="middle" className="fill-graphite-800" fontFamily="var(--font-mono), monospace">
+                          <text
+                            x={Math.min(PANEL_W - 4, Math.max(4, sx(r.value)))}
+                            y={y - 14}
+                            fontSize="10.5"
+                            textAnchor="middle"
+                            className="fill-graphite-800"
+                            fontFamily="var(--font-mono), monospace"
+                          >
                             {r.text}
                           </text>
                         </>
                       ) : (
-                        <text x={PANEL_W / 2} y={y + 4} fontSize="11" textAnchor="middle" className="fill-graphite-500">
+                        <text
+                          x={PANEL_W / 2}
+                          y={y + 4}
+                          fontSize="11"
+                          textAnchor="middle"
+                          className="fill-graphite-500"
+                        >
                           not measured
                         </text>
                       )}
@@ -110,9 +204,24 @@ export function BandChart({ rows }: { rows: BandRow[] }) {
         </svg>
         <figcaption className="mt-2 flex flex-wrap gap-x-5 gap-y-1 text-xs text-graphite-600">
           <span>Shaded: tolerance band; bars: limits. Each row has its own scale.</span>
-          <span className="inline-flex items-center gap-1"><svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true"><circle cx="6" cy="6" r="5" fill={COLOURS.pass} /></svg> pass</span>
-          <span className="inline-flex items-center gap-1"><svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true"><path d="M1 1l10 10M11 1 1 11" stroke={COLOURS.fail} strokeWidth="2.5" /></svg> fail</span>
-          <span className="inline-flex items-center gap-1"><svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true"><path d="M6 0l6 6-6 6-6-6z" fill={COLOURS.undecided} /></svg> undecided</span>
+          <span className="inline-flex items-center gap-1">
+            <svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true">
+              <circle cx="6" cy="6" r="5" fill={COLOURS.pass} />
+            </svg>{" "}
+            pass
+          </span>
+          <span className="inline-flex items-center gap-1">
+            <svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true">
+              <path d="M1 1l10 10M11 1 1 11" stroke={COLOURS.fail} strokeWidth="2.5" />
+            </svg>{" "}
+            fail
+          </span>
+          <span className="inline-flex items-center gap-1">
+            <svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true">
+              <path d="M6 0l6 6-6 6-6-6z" fill={COLOURS.undecided} />
+            </svg>{" "}
+            undecided
+          </span>
         </figcaption>
       </figure>
     </ScrollRegion>

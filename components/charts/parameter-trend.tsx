@@ -34,36 +34,83 @@ function Panel({ jobs, s, index }: { jobs: TrendJob[]; s: TrendSeries; index: nu
   const ph = H - M.top - M.bottom;
   const x = (i: number) => M.left + (jobs.length === 1 ? pw / 2 : 12 + (i * (pw - 24)) / (jobs.length - 1));
   const y = (v: number) => M.top + ph - ((v - t.min) / (t.max - t.min)) * ph;
-  const pts = s.points.map((p, i) => (p ? { ...p, i } : null)).filter((p): p is NonNullable<typeof p> => p !== null);
+  const pts = s.points
+    .map((p, i) => (p ? { ...p, i } : null))
+    .filter((p): p is NonNullable<typeof p> => p !== null);
   const titleId = `trend-${index}-title`;
   const descId = `trend-${index}-desc`;
   const digits = t.step >= 1 ? 0 : t.step >= 0.1 ? 1 : 2;
   return (
-    <svg viewBox={`0 0 ${W} ${H}`} className="w-full" role="img" aria-labelledby={`${titleId} ${descId}`} data-testid="trend-panel" data-parameter={s.key}>
+    <svg
+      viewBox={`0 0 ${W} ${H}`}
+      className="w-full"
+      role="img"
+      aria-labelledby={`${titleId} ${descId}`}
+      data-testid="trend-panel"
+      data-parameter={s.key}
+    >
       <title id={titleId}>{`${s.symbol}: ${s.words}, per job`}</title>
-      <desc id={descId}>{jobs.map((j, i) => `${j.reference} (${j.dateText}): ${s.points[i]?.text ?? "no value"}`).join("; ")}.</desc>
+      <desc id={descId}>
+        {jobs.map((j, i) => `${j.reference} (${j.dateText}): ${s.points[i]?.text ?? "no value"}`).join("; ")}.
+      </desc>
       <text x={M.left} y={16} fontSize="13" fontWeight="600" className="fill-graphite-900">
         {s.symbol}
-        <tspan fontWeight="400" className="fill-graphite-600">{` ${s.words.length > 36 ? `${s.words.slice(0, 35)}…` : s.words}`}</tspan>
+        <tspan
+          fontWeight="400"
+          className="fill-graphite-600"
+        >{` ${s.words.length > 36 ? `${s.words.slice(0, 35)}…` : s.words}`}</tspan>
       </text>
       {t.ticks.map((v) => (
         <g key={v}>
-          <line x1={M.left} x2={W - M.right} y1={y(v)} y2={y(v)} stroke={v === 0 ? "#8a939e" : "#eceef0"} strokeWidth="1" strokeDasharray={v === 0 ? "4 3" : undefined} />
-          <text x={M.left - 6} y={y(v) + 4} fontSize="10.5" textAnchor="end" className="fill-graphite-600" fontFamily="var(--font-mono), monospace">
+          <line
+            x1={M.left}
+            x2={W - M.right}
+            y1={y(v)}
+            y2={y(v)}
+            stroke={v === 0 ? "#8a939e" : "#eceef0"}
+            strokeWidth="1"
+            strokeDasharray={v === 0 ? "4 3" : undefined}
+          />
+          <text
+            x={M.left - 6}
+            y={y(v) + 4}
+            fontSize="10.5"
+            textAnchor="end"
+            className="fill-graphite-600"
+            fontFamily="var(--font-mono), monospace"
+          >
             {v === 0 ? "0" : `${v < 0 ? "−" : ""}${Math.abs(v).toFixed(digits)}`}
           </text>
         </g>
       ))}
-      <text transform={`translate(13 ${M.top + ph / 2}) rotate(-90)`} fontSize="10.5" textAnchor="middle" className="fill-graphite-700">
+      <text
+        transform={`translate(13 ${M.top + ph / 2}) rotate(-90)`}
+        fontSize="10.5"
+        textAnchor="middle"
+        className="fill-graphite-700"
+      >
         {UNIT_AXIS[s.unit]}
       </text>
       <line x1={M.left} x2={M.left} y1={M.top} y2={M.top + ph} stroke="#b3bac3" />
       {jobs.map((j, i) => (
         <g key={j.key}>
-          <text x={x(i)} y={H - M.bottom + 16} fontSize="10.5" textAnchor="middle" className="fill-graphite-800" fontFamily="var(--font-mono), monospace">
+          <text
+            x={x(i)}
+            y={H - M.bottom + 16}
+            fontSize="10.5"
+            textAnchor="middle"
+            className="fill-graphite-800"
+            fontFamily="var(--font-mono), monospace"
+          >
             {j.reference.replace(/^TR-\d{4}-/, "")}
           </text>
-          <text x={x(i)} y={H - M.bottom + 29} fontSize="9.5" textAnchor="middle" className="fill-graphite-600">
+          <text
+            x={x(i)}
+            y={H - M.bottom + 29}
+            fontSize="9.5"
+            textAnchor="middle"
+            className="fill-graphite-600"
+          >
             {j.dateText}
           </text>
         </g>
@@ -71,20 +118,63 @@ function Panel({ jobs, s, index }: { jobs: TrendJob[]; s: TrendSeries; index: nu
       <text x={M.left + pw / 2} y={H - 4} fontSize="10" textAnchor="middle" className="fill-graphite-600">
         Job (reference, date)
       </text>
-      {pts.length > 1 ? <polyline points={pts.map((p) => `${x(p.i)},${y(p.value)}`).join(" ")} fill="none" stroke="#e08e0b" strokeWidth="1.5" /> : null}
+      {pts.length > 1 ? (
+        <polyline
+          points={pts.map((p) => `${x(p.i)},${y(p.value)}`).join(" ")}
+          fill="none"
+          stroke="#e08e0b"
+          strokeWidth="1.5"
+        />
+      ) : null}
       {pts.map((p) => (
         <g key={p.i}>
-          <line x1={x(p.i)} x2={x(p.i)} y1={y(p.value - p.U)} y2={y(p.value + p.U)} stroke="#633a0b" strokeWidth="1.5" />
-          <line x1={x(p.i) - 5} x2={x(p.i) + 5} y1={y(p.value - p.U)} y2={y(p.value - p.U)} stroke="#633a0b" strokeWidth="1.5" />
-          <line x1={x(p.i) - 5} x2={x(p.i) + 5} y1={y(p.value + p.U)} y2={y(p.value + p.U)} stroke="#633a0b" strokeWidth="1.5" />
-          <circle cx={x(p.i)} cy={y(p.value)} r="5" fill={p.approved ? "#e08e0b" : "#ffffff"} stroke="#633a0b" strokeWidth="2" />
+          <line
+            x1={x(p.i)}
+            x2={x(p.i)}
+            y1={y(p.value - p.U)}
+            y2={y(p.value + p.U)}
+            stroke="#633a0b"
+            strokeWidth="1.5"
+          />
+          <line
+            x1={x(p.i) - 5}
+            x2={x(p.i) + 5}
+            y1={y(p.value - p.U)}
+            y2={y(p.value - p.U)}
+            stroke="#633a0b"
+            strokeWidth="1.5"
+          />
+          <line
+            x1={x(p.i) - 5}
+            x2={x(p.i) + 5}
+            y1={y(p.value + p.U)}
+            y2={y(p.value + p.U)}
+            stroke="#633a0b"
+            strokeWidth="1.5"
+          />
+          <circle
+            cx={x(p.i)}
+            cy={y(p.value)}
+            r="5"
+            fill={p.approved ? "#e08e0b" : "#ffffff"}
+            stroke="#633a0b"
+            strokeWidth="2"
+          />
         </g>
       ))}
     </svg>
   );
 }
 
-export function ParameterTrend({ jobs, series, caption }: { jobs: TrendJob[]; series: TrendSeries[]; caption?: string }) {
+export function ParameterTrend({
+  jobs,
+  series,
+  caption,
+}: {
+  jobs: TrendJob[];
+  series: TrendSeries[];
+  caption?: string;
+}) {
   return (
     <figure data-testid="parameter-trend">
       <div className="grid gap-x-6 gap-y-4 sm:grid-cols-2 xl:grid-cols-3">
@@ -110,11 +200,15 @@ export function ParameterTrend({ jobs, series, caption }: { jobs: TrendJob[]; se
         </span>
       </figcaption>
       <details className="mt-3 text-sm">
-        <summary className="min-h-touch cursor-pointer py-2 font-medium text-graphite-800">The charted values as a table</summary>
+        <summary className="min-h-touch cursor-pointer py-2 font-medium text-graphite-800">
+          The charted values as a table
+        </summary>
         <table className="w-full text-sm" aria-label="Charted parameter values">
           <thead>
             <tr className="border-b border-graphite-200 text-left text-graphite-600">
-              <th scope="col" className="py-1.5 pr-3 font-medium">Parameter</th>
+              <th scope="col" className="py-1.5 pr-3 font-medium">
+                Parameter
+              </th>
               {jobs.map((j) => (
                 <th key={j.key} scope="col" className="py-1.5 pr-3 text-right font-medium">
                   {j.reference} <span className="font-normal">({j.dateText})</span>
@@ -125,7 +219,9 @@ export function ParameterTrend({ jobs, series, caption }: { jobs: TrendJob[]; se
           <tbody>
             {series.map((s) => (
               <tr key={s.key} className="border-b border-graphite-100">
-                <th scope="row" className="py-1.5 pr-3 text-left font-medium">{s.symbol}</th>
+                <th scope="row" className="py-1.5 pr-3 text-left font-medium">
+                  {s.symbol}
+                </th>
                 {s.points.map((p, i) => (
                   <td key={jobs[i]!.key} className="num py-1.5 pr-3 text-right">
                     {p ? p.text : "—"}

@@ -6,7 +6,13 @@ import { changeStatusAction, setUnitSystemAction } from "@/app/(app)/jobs/[id]/c
 import type { JobStatus } from "@/lib/auth/roles";
 
 /** Status moves this user may make from the checklist (checked again on the server). */
-export function StatusButtons({ jobId, moves }: { jobId: string; moves: ReadonlyArray<{ to: JobStatus; label: string }> }) {
+export function StatusButtons({
+  jobId,
+  moves,
+}: {
+  jobId: string;
+  moves: ReadonlyArray<{ to: JobStatus; label: string }>;
+}) {
   const router = useRouter();
   const [pending, start] = useTransition();
   const [error, setError] = useState<string | null>(null);
@@ -31,7 +37,11 @@ export function StatusButtons({ jobId, moves }: { jobId: string; moves: Readonly
           {m.label}
         </button>
       ))}
-      {error ? <p role="alert" className="text-sm text-fail-700">{error}</p> : null}
+      {error ? (
+        <p role="alert" className="text-sm text-fail-700">
+          {error}
+        </p>
+      ) : null}
     </div>
   );
 }
@@ -41,14 +51,23 @@ export function UnitToggle({ current, path }: { current: "metric" | "inch"; path
   const router = useRouter();
   const [pending, start] = useTransition();
   return (
-    <div role="group" aria-label="Units" className="inline-flex rounded-md border border-graphite-300 bg-white p-0.5">
+    <div
+      role="group"
+      aria-label="Units"
+      className="inline-flex rounded-md border border-graphite-300 bg-white p-0.5"
+    >
       {(["inch", "metric"] as const).map((u) => (
         <button
           key={u}
           type="button"
           aria-pressed={current === u}
           disabled={pending}
-          onClick={() => start(async () => { await setUnitSystemAction({ unitSystem: u, path }); router.refresh(); })}
+          onClick={() =>
+            start(async () => {
+              await setUnitSystemAction({ unitSystem: u, path });
+              router.refresh();
+            })
+          }
           className={`min-h-touch rounded px-4 text-sm font-medium ${current === u ? "bg-graphite-900 text-white" : "text-graphite-700 hover:bg-graphite-100"}`}
         >
           {u === "inch" ? "Inch" : "Metric"}

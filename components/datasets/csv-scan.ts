@@ -76,7 +76,11 @@ export function scanCsv(file: File, onProgress: (fraction: number) => void): Pro
       }
       for (const e of errors) {
         if (structural.length >= MAX_LISTED) break;
-        if (e.type === "Quotes") structural.push({ row: base + (e.row ?? 0) + 1, message: "a quote opens here and is never closed" });
+        if (e.type === "Quotes")
+          structural.push({
+            row: base + (e.row ?? 0) + 1,
+            message: "a quote opens here and is never closed",
+          });
       }
       onProgress(file.size ? Math.min(1, cursor / file.size) : 1);
     };

@@ -23,23 +23,43 @@ export function DeleteDatasetButton({ datasetId, jobId }: { datasetId: string; j
   }
   if (!confirming) {
     return (
-      <button type="button" onClick={() => setConfirming(true)} className="min-h-touch rounded-lg border border-fail-600/50 px-4 text-sm font-semibold text-fail-700 hover:bg-fail-50">
+      <button
+        type="button"
+        onClick={() => setConfirming(true)}
+        className="min-h-touch rounded-lg border border-fail-600/50 px-4 text-sm font-semibold text-fail-700 hover:bg-fail-50"
+      >
         Delete this dataset…
       </button>
     );
   }
   return (
     <div className="space-y-2 rounded-lg border border-fail-600/50 bg-fail-50 p-3 text-sm">
-      <p>It stays in the record as deleted (with who and when) and no longer counts for this job. The original file is kept.</p>
+      <p>
+        It stays in the record as deleted (with who and when) and no longer counts for this job. The original
+        file is kept.
+      </p>
       <div className="flex gap-2">
-        <button type="button" disabled={pending} onClick={remove} className="min-h-touch rounded-lg bg-fail-600 px-4 font-semibold text-white hover:bg-fail-700 disabled:opacity-60">
+        <button
+          type="button"
+          disabled={pending}
+          onClick={remove}
+          className="min-h-touch rounded-lg bg-fail-600 px-4 font-semibold text-white hover:bg-fail-700 disabled:opacity-60"
+        >
           Delete
         </button>
-        <button type="button" onClick={() => setConfirming(false)} className="min-h-touch rounded-lg border border-graphite-300 bg-white px-4 font-semibold">
+        <button
+          type="button"
+          onClick={() => setConfirming(false)}
+          className="min-h-touch rounded-lg border border-graphite-300 bg-white px-4 font-semibold"
+        >
           Keep it
         </button>
       </div>
-      {error ? <p role="alert" className="text-fail-700">{error}</p> : null}
+      {error ? (
+        <p role="alert" className="text-fail-700">
+          {error}
+        </p>
+      ) : null}
     </div>
   );
 }

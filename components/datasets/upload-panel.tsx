@@ -11,14 +11,36 @@ type Units = { units: "mm" | "in"; travel: "mm" | "in"; reading: "um" | "mm" | "
 
 const KINDS = Object.keys(KIND_LABELS) as DatasetKindKey[];
 
-function Choice<T extends string>({ legend, name, value, options, onChange }: { legend: string; name: string; value: T; options: ReadonlyArray<{ value: T; label: string }>; onChange: (v: T) => void }) {
+function Choice<T extends string>({
+  legend,
+  name,
+  value,
+  options,
+  onChange,
+}: {
+  legend: string;
+  name: string;
+  value: T;
+  options: ReadonlyArray<{ value: T; label: string }>;
+  onChange: (v: T) => void;
+}) {
   return (
     <fieldset>
       <legend className="mb-1 text-sm font-medium text-graphite-800">{legend}</legend>
       <div className="inline-flex flex-wrap gap-1 rounded-lg border border-graphite-300 bg-graphite-50 p-1">
         {options.map((o) => (
-          <label key={o.value} className={`flex min-h-touch cursor-pointer items-center rounded-md px-3 text-sm ${value === o.value ? "bg-white font-semibold text-graphite-900 shadow-sm ring-1 ring-graphite-300" : "text-graphite-600 hover:text-graphite-900"}`}>
-            <input type="radio" className="sr-only" name={name} value={o.value} checked={value === o.value} onChange={() => onChange(o.value)} />
+          <label
+            key={o.value}
+            className={`flex min-h-touch cursor-pointer items-center rounded-md px-3 text-sm ${value === o.value ? "bg-white font-semibold text-graphite-900 shadow-sm ring-1 ring-graphite-300" : "text-graphite-600 hover:text-graphite-900"}`}
+          >
+            <input
+              type="radio"
+              className="sr-only"
+              name={name}
+              value={o.value}
+              checked={value === o.value}
+              onChange={() => onChange(o.value)}
+            />
             {o.label}
           </label>
         ))}
@@ -35,7 +57,14 @@ function Bar({ label, fraction }: { label: string; fraction: number }) {
         <span>{label}</span>
         <span className="num">{pct} %</span>
       </div>
-      <div role="progressbar" aria-label={label} aria-valuemin={0} aria-valuemax={100} aria-valuenow={pct} className="h-2.5 overflow-hidden rounded-full bg-graphite-200">
+      <div
+        role="progressbar"
+        aria-label={label}
+        aria-valuemin={0}
+        aria-valuemax={100}
+        aria-valuenow={pct}
+        className="h-2.5 overflow-hidden rounded-full bg-graphite-200"
+      >
         <div className="h-full rounded-full bg-accent-500 transition-[width]" style={{ width: `${pct}%` }} />
       </div>
     </div>
@@ -43,30 +72,52 @@ function Bar({ label, fraction }: { label: string; fraction: number }) {
 }
 
 /** Row-level checks of the scan under the chosen mapping and decimal separator (a preview of the server's). */
-function clientIssues(kind: DatasetKindKey, scan: CsvScan, mapping: Record<string, number>, comma: boolean): Issue[] {
+function clientIssues(
+  kind: DatasetKindKey,
+  scan: CsvScan,
+  mapping: Record<string, number>,
+  comma: boolean,
+): Issue[] {
   const out: Issue[] = [];
   if (scan.headers.length === 0) return [{ row: 1, message: "the file is empty; a header row is required" }];
   const used = new Map<number, string>();
   for (const c of COLUMNS[kind]) {
     const i = mapping[c.name] ?? -1;
     if (i < 0) {
-      if (c.required) out.push({ row: 1, column: c.name, message: `the required column '${c.name}' is not mapped to a column of the file` });
+      if (c.required)
+        out.push({
+          row: 1,
+          column: c.name,
+          message: `the required column '${c.name}' is not mapped to a column of the file`,
+        });
       continue;
     }
-    if (used.has(i)) out.push({ row: 1, column: scan.headers[i], message: `mapped to both '${used.get(i)}' and '${c.name}'` });
+    if (used.has(i))
+      out.push({
+        row: 1,
+        column: scan.headers[i],
+        message: `mapped to both '${used.get(i)}' and '${c.name}'`,
+      });
     used.set(i, c.name);
   }
   if (scan.rows === 0) out.push({ row: 1, message: "the file has a header row but no data rows" });
   for (const s of scan.structural) out.push(s);
-  for (const r of scan.ragged) out.push({ row: r.row, message: `has ${r.fields} field${r.fields === 1 ? "" : "s"}, the header has ${scan.headers.length}` });
+  for (const r of scan.ragged)
+    out.push({
+      row: r.row,
+      message: `has ${r.fields} field${r.fields === 1 ? "" : "s"}, the header has ${scan.headers.length}`,
+    });
   for (const c of COLUMNS[kind]) {
     const i = mapping[c.name] ?? -1;
     if (i < 0) continue;
     const col = scan.columns[i]!;
     const shown = scan.headers[i]!;
     if (c.numeric) {
-      for (const b of comma ? col.badComma : col.badPoint) out.push({ row: b.row, column: shown, message: `'${b.value.slice(0, 40)}' is not a number` });
-      if (!c.allowEmpty) for (const r of col.empty) out.push({ row: r, column: shown, message: "empty; a number is required" });
+      for (const b of comma ? col.badComma : col.badPoint)
+        out.push({ row: b.row, column: shown, message: `'${b.value.slice(0, 40)}' is not a number` });
+      if (!c.allowEmpty)
+        for (const r of col.empty)
+          out.push({ row: r, column: shown, message: "empty; a number is required" });
     } else if (c.required) {
       for (const r of col.empty) out.push({ row: r, column: shown, message: `empty; name the ${c.name}` });
     }
@@ -127,7 +178,10 @@ export function UploadPanel({ jobId }: { jobId: string }) {
     }
   }
 
-  const issues = useMemo(() => (scan ? clientIssues(kind, scan, mapping, comma) : []), [kind, scan, mapping, comma]);
+  const issues = useMemo(
+    () => (scan ? clientIssues(kind, scan, mapping, comma) : []),
+    [kind, scan, mapping, comma],
+  );
 
   /** The replacement header line when the mapping renames anything; undefined when the file's own names serve. */
   const header = useMemo(() => {
@@ -142,19 +196,32 @@ export function UploadPanel({ jobId }: { jobId: string }) {
     }
     // A file column that carries a canonical name but is mapped elsewhere must be renamed too.
     scan.headers.forEach((h, i) => {
-      if (names[i]!.startsWith("unused_") && COLUMNS[kind].some((c) => c.name === h.trim().toLowerCase())) renamed = true;
+      if (names[i]!.startsWith("unused_") && COLUMNS[kind].some((c) => c.name === h.trim().toLowerCase()))
+        renamed = true;
     });
     if (!renamed) return undefined;
     scan.headers.forEach((h, i) => {
-      if (names[i]!.startsWith("unused_") && /^[A-Za-z0-9_ ]+$/.test(h) && !COLUMNS[kind].some((c) => c.name === h.trim().toLowerCase())) names[i] = h;
+      if (
+        names[i]!.startsWith("unused_") &&
+        /^[A-Za-z0-9_ ]+$/.test(h) &&
+        !COLUMNS[kind].some((c) => c.name === h.trim().toLowerCase())
+      )
+        names[i] = h;
     });
     return names.join(scan.delimiter === ";" ? ";" : ",");
   }, [scan, mapping, kind]);
 
   const formProblems: string[] = [];
   if (kind === "sweep" && !(Number(radius) > 0)) formProblems.push("Enter the sweep radius in mm.");
-  if (kind === "test_part" && uncertainty !== "" && !(Number(uncertainty) >= 0)) formProblems.push("The expanded uncertainty must be a number ≥ 0 mm.");
-  const canSend = !!file && !!scan && !scanning && issues.length === 0 && formProblems.length === 0 && uploadProgress === null;
+  if (kind === "test_part" && uncertainty !== "" && !(Number(uncertainty) >= 0))
+    formProblems.push("The expanded uncertainty must be a number ≥ 0 mm.");
+  const canSend =
+    !!file &&
+    !!scan &&
+    !scanning &&
+    issues.length === 0 &&
+    formProblems.length === 0 &&
+    uploadProgress === null;
 
   function send() {
     if (!file || !canSend) return;
@@ -182,7 +249,9 @@ export function UploadPanel({ jobId }: { jobId: string }) {
     };
     xhr.onerror = () => {
       setUploadProgress(null);
-      setMessage("The upload did not reach the server; nothing was stored. Check the connection and try again.");
+      setMessage(
+        "The upload did not reach the server; nothing was stored. Check the connection and try again.",
+      );
     };
     xhr.onload = () => {
       const body = xhr.response as { id?: string; error?: { message: string; issues?: Issue[] } } | null;
@@ -193,7 +262,9 @@ export function UploadPanel({ jobId }: { jobId: string }) {
         return;
       }
       setUploadProgress(null);
-      setMessage(body?.error?.message ?? `The server refused the upload (${xhr.status}); nothing was stored.`);
+      setMessage(
+        body?.error?.message ?? `The server refused the upload (${xhr.status}); nothing was stored.`,
+      );
       setServerIssues(body?.error?.issues ?? []);
     };
     setUploadProgress(0);
@@ -205,51 +276,116 @@ export function UploadPanel({ jobId }: { jobId: string }) {
   const listed = serverIssues.length > 0 ? serverIssues : issues;
 
   return (
-    <section aria-labelledby="upload-title" className="space-y-5 rounded-card border border-graphite-200 bg-white p-5 shadow-sm">
+    <section
+      aria-labelledby="upload-title"
+      className="space-y-5 rounded-card border border-graphite-200 bg-white p-5 shadow-sm"
+    >
       <div>
         <h2 id="upload-title" className="text-base font-semibold">
           Add measurement data
         </h2>
-        <p className="text-sm text-graphite-600">The file is checked here first and again on the server; the original is kept unchanged with its SHA-256.</p>
+        <p className="text-sm text-graphite-600">
+          The file is checked here first and again on the server; the original is kept unchanged with its
+          SHA-256.
+        </p>
       </div>
 
       <div className="grid gap-4 lg:grid-cols-2">
-        <Choice legend="What the file holds" name="kind" value={kind} options={KINDS.map((k) => ({ value: k, label: KIND_LABELS[k] }))} onChange={changeKind} />
-        <Choice legend="When it was measured" name="phase" value={phase} options={(["pre", "post"] as const).map((p) => ({ value: p, label: PHASE_LABELS[p] }))} onChange={setPhase} />
+        <Choice
+          legend="What the file holds"
+          name="kind"
+          value={kind}
+          options={KINDS.map((k) => ({ value: k, label: KIND_LABELS[k] }))}
+          onChange={changeKind}
+        />
+        <Choice
+          legend="When it was measured"
+          name="phase"
+          value={phase}
+          options={(["pre", "post"] as const).map((p) => ({ value: p, label: PHASE_LABELS[p] }))}
+          onChange={setPhase}
+        />
       </div>
       <p className="text-sm text-graphite-600">{KIND_HINTS[kind]}</p>
 
       <div className="flex flex-wrap gap-4">
         {kind === "sphere_probe" ? (
-          <Choice legend="Unit of x, y, z" name="units" value={units.units} options={[{ value: "mm", label: "mm" }, { value: "in", label: "inch" }]} onChange={(v) => setUnits({ ...units, units: v })} />
+          <Choice
+            legend="Unit of x, y, z"
+            name="units"
+            value={units.units}
+            options={[
+              { value: "mm", label: "mm" },
+              { value: "in", label: "inch" },
+            ]}
+            onChange={(v) => setUnits({ ...units, units: v })}
+          />
         ) : null}
         {kind === "tram" ? (
-          <Choice legend="Unit of the travel" name="travel_units" value={units.travel} options={[{ value: "mm", label: "mm" }, { value: "in", label: "inch" }]} onChange={(v) => setUnits({ ...units, travel: v })} />
+          <Choice
+            legend="Unit of the travel"
+            name="travel_units"
+            value={units.travel}
+            options={[
+              { value: "mm", label: "mm" },
+              { value: "in", label: "inch" },
+            ]}
+            onChange={(v) => setUnits({ ...units, travel: v })}
+          />
         ) : null}
         {kind === "tram" || kind === "sweep" ? (
           <Choice
             legend="Unit of the readings"
             name="reading_units"
             value={units.reading}
-            options={[{ value: "um", label: "µm" }, { value: "mm", label: "mm" }, { value: "in", label: "inch" }]}
+            options={[
+              { value: "um", label: "µm" },
+              { value: "mm", label: "mm" },
+              { value: "in", label: "inch" },
+            ]}
             onChange={(v) => setUnits({ ...units, reading: v })}
           />
         ) : null}
         {kind === "sweep" ? (
           <label className="block space-y-1">
             <span className="text-sm font-medium text-graphite-800">Sweep radius (mm)</span>
-            <input inputMode="decimal" value={radius} onChange={(e) => setRadius(e.target.value)} className="num block min-h-touch w-40 rounded-lg border border-graphite-300 px-3 text-right" />
+            <input
+              inputMode="decimal"
+              value={radius}
+              onChange={(e) => setRadius(e.target.value)}
+              className="num block min-h-touch w-40 rounded-lg border border-graphite-300 px-3 text-right"
+            />
           </label>
         ) : null}
         {kind === "test_part" ? (
           <label className="block max-w-md space-y-1">
-            <span className="text-sm font-medium text-graphite-800">Expanded uncertainty U (k = 2) of the part measurement, mm</span>
-            <input inputMode="decimal" value={uncertainty} placeholder="e.g. 0.002" onChange={(e) => setUncertainty(e.target.value)} className="num block min-h-touch w-40 rounded-lg border border-graphite-300 px-3 text-right" />
-            <span className="block text-xs text-graphite-600">From the measuring machine&apos;s calibration; converted for rows in inch or µm. Empty counts as 0.</span>
+            <span className="text-sm font-medium text-graphite-800">
+              Expanded uncertainty U (k = 2) of the part measurement, mm
+            </span>
+            <input
+              inputMode="decimal"
+              value={uncertainty}
+              placeholder="e.g. 0.002"
+              onChange={(e) => setUncertainty(e.target.value)}
+              className="num block min-h-touch w-40 rounded-lg border border-graphite-300 px-3 text-right"
+            />
+            <span className="block text-xs text-graphite-600">
+              From the measuring machine&apos;s calibration; converted for rows in inch or µm. Empty counts as
+              0.
+            </span>
           </label>
         ) : null}
         {scan?.delimiter === ";" ? (
-          <Choice legend="Decimal separator" name="decimal" value={comma ? "comma" : "point"} options={[{ value: "point", label: "point 1.5" }, { value: "comma", label: "comma 1,5" }]} onChange={(v) => setComma(v === "comma")} />
+          <Choice
+            legend="Decimal separator"
+            name="decimal"
+            value={comma ? "comma" : "point"}
+            options={[
+              { value: "point", label: "point 1.5" },
+              { value: "comma", label: "comma 1,5" },
+            ]}
+            onChange={(v) => setComma(v === "comma")}
+          />
         ) : null}
       </div>
 
@@ -267,10 +403,21 @@ export function UploadPanel({ jobId }: { jobId: string }) {
         className={`flex flex-col items-center gap-2 rounded-card border-2 border-dashed p-6 text-center ${dragging ? "border-accent-500 bg-accent-50" : "border-graphite-300 bg-graphite-50"}`}
       >
         <svg viewBox="0 0 24 24" className="h-8 w-8 text-graphite-500" aria-hidden="true">
-          <path d="M12 16V4m0 0-4 4m4-4 4 4M4 16v3a1 1 0 0 0 1 1h14a1 1 0 0 0 1-1v-3" fill="none" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" strokeLinejoin="round" />
+          <path
+            d="M12 16V4m0 0-4 4m4-4 4 4M4 16v3a1 1 0 0 0 1 1h14a1 1 0 0 0 1-1v-3"
+            fill="none"
+            stroke="currentColor"
+            strokeWidth="1.8"
+            strokeLinecap="round"
+            strokeLinejoin="round"
+          />
         </svg>
         <p className="text-sm text-graphite-700">Drop a CSV file here, or</p>
-        <button type="button" onClick={() => inputRef.current?.click()} className="min-h-touch rounded-lg border border-graphite-300 bg-white px-4 text-sm font-semibold hover:bg-graphite-100">
+        <button
+          type="button"
+          onClick={() => inputRef.current?.click()}
+          className="min-h-touch rounded-lg border border-graphite-300 bg-white px-4 text-sm font-semibold hover:bg-graphite-100"
+        >
           Choose a file
         </button>
         <input
@@ -286,19 +433,29 @@ export function UploadPanel({ jobId }: { jobId: string }) {
         />
         {file ? (
           <p className="text-sm" data-testid="chosen-file">
-            <span className="font-medium">{file.name}</span> · <span className="num">{(file.size / 1024).toFixed(1)} KiB</span>
+            <span className="font-medium">{file.name}</span> ·{" "}
+            <span className="num">{(file.size / 1024).toFixed(1)} KiB</span>
           </p>
         ) : null}
       </div>
 
-      {scanning || scan ? <Bar label="Reading the file in the browser" fraction={scanning ? scanProgress : 1} /> : null}
+      {scanning || scan ? (
+        <Bar label="Reading the file in the browser" fraction={scanning ? scanProgress : 1} />
+      ) : null}
 
       {scan && scan.headers.length > 0 ? (
         <div className="space-y-3">
           <h3 className="text-sm font-semibold">
-            Preview <span className="font-normal text-graphite-600">— <span className="num">{scan.rows.toLocaleString("en-GB")}</span> data rows, separated by “{scan.delimiter}”</span>
+            Preview{" "}
+            <span className="font-normal text-graphite-600">
+              — <span className="num">{scan.rows.toLocaleString("en-GB")}</span> data rows, separated by “
+              {scan.delimiter}”
+            </span>
           </h3>
-          <ScrollRegion label="Preview of the first rows, table" className="rounded-lg border border-graphite-200">
+          <ScrollRegion
+            label="Preview of the first rows, table"
+            className="rounded-lg border border-graphite-200"
+          >
             <table className="w-full text-sm" aria-label="Preview of the first rows">
               <thead className="bg-graphite-50 text-left">
                 <tr>
@@ -308,7 +465,9 @@ export function UploadPanel({ jobId }: { jobId: string }) {
                   {scan.headers.map((h, i) => (
                     <th key={i} scope="col" className="px-3 py-2 align-top font-medium">
                       <div>{h || <em className="text-graphite-500">no name</em>}</div>
-                      <div className="text-xs font-normal text-graphite-600">{COLUMNS[kind].find((c) => mapping[c.name] === i)?.label ?? "not used"}</div>
+                      <div className="text-xs font-normal text-graphite-600">
+                        {COLUMNS[kind].find((c) => mapping[c.name] === i)?.label ?? "not used"}
+                      </div>
                     </th>
                   ))}
                 </tr>
@@ -327,8 +486,14 @@ export function UploadPanel({ jobId }: { jobId: string }) {
               </tbody>
             </table>
           </ScrollRegion>
-          <details className="rounded-lg border border-graphite-200 p-3" open={mappingOpen} onToggle={(e) => setMappingOpen(e.currentTarget.open)}>
-            <summary className="cursor-pointer text-sm font-medium">Columns: matched from the header names — change a match here</summary>
+          <details
+            className="rounded-lg border border-graphite-200 p-3"
+            open={mappingOpen}
+            onToggle={(e) => setMappingOpen(e.currentTarget.open)}
+          >
+            <summary className="cursor-pointer text-sm font-medium">
+              Columns: matched from the header names — change a match here
+            </summary>
             <div className="mt-3 grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
               {COLUMNS[kind].map((c) => (
                 <label key={c.name} className="block space-y-1">
@@ -352,7 +517,12 @@ export function UploadPanel({ jobId }: { jobId: string }) {
                 </label>
               ))}
             </div>
-            {header ? <p className="mt-2 text-xs text-graphite-600">The server reads the file with the header line <code className="num">{header}</code>; the stored original keeps yours.</p> : null}
+            {header ? (
+              <p className="mt-2 text-xs text-graphite-600">
+                The server reads the file with the header line <code className="num">{header}</code>; the
+                stored original keeps yours.
+              </p>
+            ) : null}
           </details>
         </div>
       ) : null}
@@ -369,7 +539,9 @@ export function UploadPanel({ jobId }: { jobId: string }) {
             <svg viewBox="0 0 12 12" className="h-3.5 w-3.5" aria-hidden="true">
               <path d="M2.5 2.5l7 7M9.5 2.5l-7 7" stroke="currentColor" strokeWidth="2" />
             </svg>
-            {serverIssues.length > 0 ? "The server found problems; nothing was stored:" : `${listed.length}${listed.length >= MAX_LISTED ? "+" : ""} problem${listed.length === 1 ? "" : "s"} to fix before this file can be sent:`}
+            {serverIssues.length > 0
+              ? "The server found problems; nothing was stored:"
+              : `${listed.length}${listed.length >= MAX_LISTED ? "+" : ""} problem${listed.length === 1 ? "" : "s"} to fix before this file can be sent:`}
           </p>
           <table className="w-full text-sm">
             <thead className="text-left text-fail-700">
@@ -397,15 +569,24 @@ export function UploadPanel({ jobId }: { jobId: string }) {
           </table>
         </div>
       ) : null}
-      {formProblems.length > 0 && scan ? <p className="text-sm text-fail-700">{formProblems.join(" ")}</p> : null}
+      {formProblems.length > 0 && scan ? (
+        <p className="text-sm text-fail-700">{formProblems.join(" ")}</p>
+      ) : null}
 
       {uploadProgress !== null ? <Bar label="Sending to the server" fraction={uploadProgress} /> : null}
 
       <div className="flex items-center gap-3">
-        <button type="button" onClick={send} disabled={!canSend} className="min-h-touch rounded-lg bg-accent-600 px-5 font-semibold text-white hover:bg-accent-700 disabled:cursor-not-allowed disabled:opacity-50">
+        <button
+          type="button"
+          onClick={send}
+          disabled={!canSend}
+          className="min-h-touch rounded-lg bg-accent-600 px-5 font-semibold text-white hover:bg-accent-700 disabled:cursor-not-allowed disabled:opacity-50"
+        >
           Upload and check
         </button>
-        {scan && issues.length === 0 ? <span className="text-sm text-pass-700">✓ No problems found in the browser</span> : null}
+        {scan && issues.length === 0 ? (
+          <span className="text-sm text-pass-700">✓ No problems found in the browser</span>
+        ) : null}
       </div>
     </section>
   );

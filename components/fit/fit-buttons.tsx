@@ -4,7 +4,15 @@ import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import { approveFitAction, runFitAction } from "@/app/(app)/jobs/[id]/analysis/actions";
 
-export function RunFitButton({ jobId, datasetId, label = "Run fit" }: { jobId: string; datasetId: string; label?: string }) {
+export function RunFitButton({
+  jobId,
+  datasetId,
+  label = "Run fit",
+}: {
+  jobId: string;
+  datasetId: string;
+  label?: string;
+}) {
   const router = useRouter();
   const [pending, start] = useTransition();
   const [msg, setMsg] = useState<{ ok: boolean; text: string } | null>(null);
@@ -19,7 +27,10 @@ export function RunFitButton({ jobId, datasetId, label = "Run fit" }: { jobId: s
             const r = await runFitAction({ jobId, datasetId });
             if (!r.ok) setMsg({ ok: false, text: r.message });
             else {
-              setMsg({ ok: true, text: r.data.reused ? "Same input as a stored fit: that fit is shown." : "Fit stored." });
+              setMsg({
+                ok: true,
+                text: r.data.reused ? "Same input as a stored fit: that fit is shown." : "Fit stored.",
+              });
               router.refresh();
             }
           })
@@ -29,7 +40,10 @@ export function RunFitButton({ jobId, datasetId, label = "Run fit" }: { jobId: s
         {pending ? "Fitting…" : label}
       </button>
       {msg ? (
-        <p role={msg.ok ? "status" : "alert"} className={`text-sm ${msg.ok ? "text-graphite-700" : "text-fail-700"}`}>
+        <p
+          role={msg.ok ? "status" : "alert"}
+          className={`text-sm ${msg.ok ? "text-graphite-700" : "text-fail-700"}`}
+        >
           {msg.text}
         </p>
       ) : null}
@@ -37,7 +51,15 @@ export function RunFitButton({ jobId, datasetId, label = "Run fit" }: { jobId: s
   );
 }
 
-export function ApproveButton({ jobId, analysisId, refusal }: { jobId: string; analysisId: string; refusal: string | null }) {
+export function ApproveButton({
+  jobId,
+  analysisId,
+  refusal,
+}: {
+  jobId: string;
+  analysisId: string;
+  refusal: string | null;
+}) {
   const router = useRouter();
   const [pending, start] = useTransition();
   const [error, setError] = useState<string | null>(null);

@@ -6,7 +6,13 @@ import type { ParameterRow } from "@/lib/fit-display";
  * The fitted parameters: ISO 230-1 symbol, words, value, expanded uncertainty, the job's limit and
  * its result by the decision rule, and whether this data could separate the parameter at all.
  */
-export function ParameterTable({ rows, warnings }: { rows: readonly ParameterRow[]; warnings: readonly string[] }) {
+export function ParameterTable({
+  rows,
+  warnings,
+}: {
+  rows: readonly ParameterRow[];
+  warnings: readonly string[];
+}) {
   const anyLimit = rows.some((r) => r.toleranceText);
   // Where the limits come from, said once below the table rather than on every row.
   const sources = [...new Set(rows.flatMap((r) => (r.limitSourceText ? [r.limitSourceText] : [])))];
@@ -27,7 +33,12 @@ export function ParameterTable({ rows, warnings }: { rows: readonly ParameterRow
           </thead>
           <tbody>
             {rows.map((p) => (
-              <tr key={p.key} data-key={p.key} data-decision={p.decision} className="border-b border-graphite-100 align-top">
+              <tr
+                key={p.key}
+                data-key={p.key}
+                data-decision={p.decision}
+                className="border-b border-graphite-100 align-top"
+              >
                 <td className="num py-2 pr-3 font-semibold">{p.iso}</td>
                 <td className="py-2 pr-3">
                   {p.words}
@@ -37,15 +48,31 @@ export function ParameterTable({ rows, warnings }: { rows: readonly ParameterRow
                   {p.valueText}
                 </td>
                 <td className="num whitespace-nowrap py-2 pr-3 text-right">{p.UText}</td>
-                <td className="num whitespace-nowrap py-2 pr-3 text-right" title={p.limitSourceText ?? undefined}>
+                <td
+                  className="num whitespace-nowrap py-2 pr-3 text-right"
+                  title={p.limitSourceText ?? undefined}
+                >
                   {p.toleranceText ?? "—"}
-                  {p.limitSourceText ? <span className="block font-sans text-xs text-graphite-500">{p.limitSourceText.split(":")[0]}{p.decisionRule === "guarded" ? " · guarded" : ""}</span> : null}
+                  {p.limitSourceText ? (
+                    <span className="block font-sans text-xs text-graphite-500">
+                      {p.limitSourceText.split(":")[0]}
+                      {p.decisionRule === "guarded" ? " · guarded" : ""}
+                    </span>
+                  ) : null}
                 </td>
                 <td className="py-2 pr-3">
                   <DecisionBadge decision={p.decision} label={p.decisionText} />
                 </td>
                 <td className="py-2">
-                  <span className={p.identifiable === "yes" ? "text-pass-700" : p.identifiable === "weak" ? "text-accent-700" : "text-fail-700"}>
+                  <span
+                    className={
+                      p.identifiable === "yes"
+                        ? "text-pass-700"
+                        : p.identifiable === "weak"
+                          ? "text-accent-700"
+                          : "text-fail-700"
+                    }
+                  >
                     {p.identifiable === "yes" ? "● " : p.identifiable === "weak" ? "◐ " : "○ "}
                     {p.identifiableText}
                   </span>

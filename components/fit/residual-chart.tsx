@@ -8,7 +8,17 @@ import { niceTicks } from "@/lib/chart-ticks";
  */
 const MAX_BARS = 1200;
 
-export function ResidualChart({ residuals, rows: allRows, toolMm: allTool, sUm }: { residuals: ReadonlyArray<readonly [number, number, number]>; rows: readonly number[]; toolMm: readonly number[]; sUm: number }) {
+export function ResidualChart({
+  residuals,
+  rows: allRows,
+  toolMm: allTool,
+  sUm,
+}: {
+  residuals: ReadonlyArray<readonly [number, number, number]>;
+  rows: readonly number[];
+  toolMm: readonly number[];
+  sUm: number;
+}) {
   const W = 880;
   const H = 240;
   const m = { l: 52, r: 16, t: 30, b: 34 };
@@ -51,7 +61,12 @@ export function ResidualChart({ residuals, rows: allRows, toolMm: allTool, sUm }
   });
   return (
     <figure className="space-y-2">
-      <svg viewBox={`0 0 ${W} ${H}`} className="h-auto w-full" role="img" aria-label={`Largest residual component per pose for ${residuals.length} poses; ${worst.filter((w) => w > limit).length} beyond 3 s = ${limit.toFixed(2)} µm`}>
+      <svg
+        viewBox={`0 0 ${W} ${H}`}
+        className="h-auto w-full"
+        role="img"
+        aria-label={`Largest residual component per pose for ${residuals.length} poses; ${worst.filter((w) => w > limit).length} beyond 3 s = ${limit.toFixed(2)} µm`}
+      >
         {ticks.map((t) => (
           <g key={t}>
             <line x1={m.l} x2={W - m.r} y1={y(t)} y2={y(t)} stroke="#e3e6ea" />
@@ -60,19 +75,43 @@ export function ResidualChart({ residuals, rows: allRows, toolMm: allTool, sUm }
             </text>
           </g>
         ))}
-        <text x={12} y={m.t + (H - m.t - m.b) / 2} fontSize="11" fill="#4b5563" transform={`rotate(-90 12 ${m.t + (H - m.t - m.b) / 2})`} textAnchor="middle">
+        <text
+          x={12}
+          y={m.t + (H - m.t - m.b) / 2}
+          fontSize="11"
+          fill="#4b5563"
+          transform={`rotate(-90 12 ${m.t + (H - m.t - m.b) / 2})`}
+          textAnchor="middle"
+        >
           µm
         </text>
         {breaks.map((b) => (
           <g key={b.i}>
-            {b.i > 0 ? <line x1={x(b.i) - 0.5 * ((W - m.l - m.r) / n)} x2={x(b.i) - 0.5 * ((W - m.l - m.r) / n)} y1={m.t} y2={H - m.b} stroke="#9aa3ad" strokeDasharray="3 3" /> : null}
+            {b.i > 0 ? (
+              <line
+                x1={x(b.i) - 0.5 * ((W - m.l - m.r) / n)}
+                x2={x(b.i) - 0.5 * ((W - m.l - m.r) / n)}
+                y1={m.t}
+                y2={H - m.b}
+                stroke="#9aa3ad"
+                strokeDasharray="3 3"
+              />
+            ) : null}
             <text x={x(b.i)} y={H - m.b + 26} fontSize="11" fill="#374151">
               tool {b.tool} mm
             </text>
           </g>
         ))}
         {worst.map((w, i) => (
-          <line key={i} x1={x(i)} x2={x(i)} y1={y(0)} y2={y(w)} stroke={w > limit ? "#b45309" : "#5f7d99"} strokeWidth={Math.max(1, Math.min(4, (W - m.l - m.r) / n - 0.5))} />
+          <line
+            key={i}
+            x1={x(i)}
+            x2={x(i)}
+            y1={y(0)}
+            y2={y(w)}
+            stroke={w > limit ? "#b45309" : "#5f7d99"}
+            strokeWidth={Math.max(1, Math.min(4, (W - m.l - m.r) / n - 0.5))}
+          />
         ))}
         {outlierIdx.map((i, j) => (
           <g key={`o${i}`}>
@@ -92,7 +131,9 @@ export function ResidualChart({ residuals, rows: allRows, toolMm: allTool, sUm }
         </text>
       </svg>
       <figcaption className="text-sm text-graphite-600">
-        Largest of the three residual components (measured − modelled sphere centre) at each pose{perBar > 1 ? ` (each bar the largest of ${perBar} consecutive poses)` : ""}. A pose beyond the dashed 3 s line is listed as an outlier (▲ with its row).
+        Largest of the three residual components (measured − modelled sphere centre) at each pose
+        {perBar > 1 ? ` (each bar the largest of ${perBar} consecutive poses)` : ""}. A pose beyond the dashed
+        3 s line is listed as an outlier (▲ with its row).
       </figcaption>
     </figure>
   );

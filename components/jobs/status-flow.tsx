@@ -13,17 +13,29 @@ export function StatusFlow({ status }: { status: JobStatus }) {
       {steps.map((s, i) => {
         const state = i < at ? "done" : i === at ? "current" : "todo";
         return (
-          <li key={s} className="flex items-center gap-2" aria-current={state === "current" ? "step" : undefined}>
+          <li
+            key={s}
+            className="flex items-center gap-2"
+            aria-current={state === "current" ? "step" : undefined}
+          >
             <span
               className={`inline-flex items-center gap-1.5 rounded-full px-3 py-1 font-medium ${
-                state === "current" ? "bg-accent-600 text-white" : state === "done" ? "bg-graphite-200 text-graphite-800" : "border border-dashed border-graphite-300 text-graphite-500"
+                state === "current"
+                  ? "bg-accent-600 text-white"
+                  : state === "done"
+                    ? "bg-graphite-200 text-graphite-800"
+                    : "border border-dashed border-graphite-300 text-graphite-500"
               }`}
             >
               {state === "done" ? <span aria-hidden="true">✓</span> : null}
               {STATUS_LABELS[s]}
               {state === "current" ? <span className="sr-only"> (current)</span> : null}
             </span>
-            {i < steps.length - 1 ? <span aria-hidden="true" className="text-graphite-300">→</span> : null}
+            {i < steps.length - 1 ? (
+              <span aria-hidden="true" className="text-graphite-300">
+                →
+              </span>
+            ) : null}
           </li>
         );
       })}

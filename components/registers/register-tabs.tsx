@@ -12,7 +12,12 @@ export function RegisterTabs({ items }: { items: ReadonlyArray<{ href: string; l
       {items.map((t) => {
         const active = t.href === "/registers" ? path === "/registers" : path.startsWith(t.href);
         return (
-          <Link key={t.href} href={t.href} aria-current={active ? "page" : undefined} className={`-mb-px flex min-h-touch items-center whitespace-nowrap border-b-2 px-4 text-sm font-medium ${active ? "border-accent-600 text-graphite-900" : "border-transparent text-graphite-600 hover:text-graphite-900"}`}>
+          <Link
+            key={t.href}
+            href={t.href}
+            aria-current={active ? "page" : undefined}
+            className={`-mb-px flex min-h-touch items-center whitespace-nowrap border-b-2 px-4 text-sm font-medium ${active ? "border-accent-600 text-graphite-900" : "border-transparent text-graphite-600 hover:text-graphite-900"}`}
+          >
             {t.label}
           </Link>
         );

@@ -15,26 +15,46 @@ export function ReportFigures({ data }: { data: ReportData }) {
       Figure {++n}. {text}
     </figcaption>
   );
-  const none = data.figures.length === 0 && !charts.readings?.length && !charts.parameters?.length && !charts.residuals;
-  if (none) return <p className="text-sm text-graphite-600">No figures: nothing measured on this job gives a chart.</p>;
+  const none =
+    data.figures.length === 0 && !charts.readings?.length && !charts.parameters?.length && !charts.residuals;
+  if (none)
+    return (
+      <p className="text-sm text-graphite-600">No figures: nothing measured on this job gives a chart.</p>
+    );
   return (
     <div className="space-y-6">
       {data.figures.map((f) => (
         <figure key={f.sha256}>
-          <img src={`/api/analysis-views/${f.viewId}/image`} alt={f.caption} width={f.widthPx} height={f.heightPx} className="mx-auto h-auto max-h-[28rem] w-auto max-w-full rounded border border-graphite-200" />
+          <img
+            src={`/api/analysis-views/${f.viewId}/image`}
+            alt={f.caption}
+            width={f.widthPx}
+            height={f.heightPx}
+            className="mx-auto h-auto max-h-[28rem] w-auto max-w-full rounded border border-graphite-200"
+          />
           {caption(`${f.caption} (${f.widthPx} × ${f.heightPx} px, SHA-256 ${f.sha256.slice(0, 16)}…)`)}
         </figure>
       ))}
-      {data.figures.length === 0 && data.parameters.length > 0 ? <p className="text-sm text-graphite-600">No picture of the 3D view was saved for this report.</p> : null}
+      {data.figures.length === 0 && data.parameters.length > 0 ? (
+        <p className="text-sm text-graphite-600">No picture of the 3D view was saved for this report.</p>
+      ) : null}
       {charts.readings?.length ? (
         <figure>
-          <LimitRows rows={readingRows(charts.readings)} title="Readings before and after adjustment" legend="Hollow ring: before adjustment; filled dot: after; green lines: the limits, shaded between. Each row has its own scale; lengths in mm, angles in arc seconds, as in the readings table." />
+          <LimitRows
+            rows={readingRows(charts.readings)}
+            title="Readings before and after adjustment"
+            legend="Hollow ring: before adjustment; filled dot: after; green lines: the limits, shaded between. Each row has its own scale; lengths in mm, angles in arc seconds, as in the readings table."
+          />
           {caption("Checklist readings before and after adjustment against their limits.")}
         </figure>
       ) : null}
       {charts.parameters?.length ? (
         <figure>
-          <LimitRows rows={parameterChartRows(charts.parameters)} title="Head parameters against limits" legend="Dot: the fitted value; bar: ± U (k = 2); green lines: the procedure's limits, shaded between. Each row has its own scale." />
+          <LimitRows
+            rows={parameterChartRows(charts.parameters)}
+            title="Head parameters against limits"
+            legend="Dot: the fitted value; bar: ± U (k = 2); green lines: the procedure's limits, shaded between. Each row has its own scale."
+          />
           {caption("Fitted head parameters against the procedure's limits.")}
         </figure>
       ) : null}
@@ -67,15 +87,93 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                   {r.label}
                 </th>
                 <td className="py-1 pr-3">
-                  <svg viewBox={`0 0 ${W} ${H}`} className="h-[18px] w-full max-w-[360px]" role="img" aria-label={r.note}>
-                    <rect x={x(r.lower ?? from)} y={2} width={Math.max(0.5, x(r.upper ?? to) - x(r.lower ?? from))} height={H - 4} fill="#e7efe9" />
-                    {r.lower != null ? <line x1={x(r.lower)} x2={x(r.lower)} y1={0} y2={H} stroke="#17613a" strokeWidth={1.4} /> : null}
-                    {r.upper != null ? <line x1={x(r.upper)} x2={x(r.upper)} y1={0} y2={H} stroke="#17613a" strokeWidth={1.4} /> : null}
-                    {from < 0 && to > 0 ? <line x1={x(0)} x2={x(0)} y1={3} y2={H - 3} stroke="#555d68" strokeWidth={0.6} strokeDasharray="2 2" /> : null}
-                    {before && after ? <line x1={x(before.value)} x2={x(after.value)} y1={H / 2} y2={H / 2} stroke="#555d68" strokeWidth={1} /> : null}
-                    {r.marks.map((m, j) => (m.U ? <line key={`u${j}`} x1={x(m.value - m.U)} x2={x(m.value + m.U)} y1={H / 2} y2={H / 2} stroke="#1d2125" strokeWidth={1.4} /> : null))}
+                  <svg
+                    viewBox={`0 0 ${W} ${H}`}
+                    className="h-[18px] w-full max-w-[360px]"
+                    role="img"
+                    aria-label={r.note}
+                  >
+                    <rect
+                      x={x(r.lower ?? from)}
+                      y={2}
+                      width={Math.max(0.5, x(r.upper ?? to) - x(r.lower ?? from))}
+                      height={H - 4}
+                      fill="#e7efe9"
+                    />
+                    {r.lower != null ? (
+                      <line
+                        x1={x(r.lower)}
+                        x2={x(r.lower)}
+                        y1={0}
+                        y2={H}
+                        stroke="#17613a"
+                        strokeWidth={1.4}
+                      />
+                    ) : null}
+                    {r.upper != null ? (
+                      <line
+                        x1={x(r.upper)}
+                        x2={x(r.upper)}
+                        y1={0}
+                        y2={H}
+                        stroke="#17613a"
+                        strokeWidth={1.4}
+                      />
+                    ) : null}
+                    {from < 0 && to > 0 ? (
+                      <line
+                        x1={x(0)}
+                        x2={x(0)}
+                        y1={3}
+                        y2={H - 3}
+                        stroke="#555d68"
+                        strokeWidth={0.6}
+                        strokeDasharray="2 2"
+                      />
+                    ) : null}
+                    {before && after ? (
+                      <line
+                        x1={x(before.value)}
+                        x2={x(after.value)}
+                        y1={H / 2}
+                        y2={H / 2}
+                        stroke="#555d68"
+                        strokeWidth={1}
+                      />
+                    ) : null}
                     {r.marks.map((m, j) =>
-                      m.kind === "before" ? <circle key={j} cx={x(m.value)} cy={H / 2} r={4} fill="#fff" stroke="#5f7d99" strokeWidth={1.6} /> : <circle key={j} cx={x(m.value)} cy={H / 2} r={3.6} fill={m.kind === "after" ? "#1d2125" : "#b86e05"} />,
+                      m.U ? (
+                        <line
+                          key={`u${j}`}
+                          x1={x(m.value - m.U)}
+                          x2={x(m.value + m.U)}
+                          y1={H / 2}
+                          y2={H / 2}
+                          stroke="#1d2125"
+                          strokeWidth={1.4}
+                        />
+                      ) : null,
+                    )}
+                    {r.marks.map((m, j) =>
+                      m.kind === "before" ? (
+                        <circle
+                          key={j}
+                          cx={x(m.value)}
+                          cy={H / 2}
+                          r={4}
+                          fill="#fff"
+                          stroke="#5f7d99"
+                          strokeWidth={1.6}
+                        />
+                      ) : (
+                        <circle
+                          key={j}
+                          cx={x(m.value)}
+                          cy={H / 2}
+                          r={3.6}
+                          fill={m.kind === "after" ? "#1d2125" : "#b86e05"}
+                        />
+                      ),
                     )}
                   </svg>
                 </td>
@@ -105,7 +203,12 @@ function Residuals({ r }: { r: NonNullable<NonNullable<ReportData["charts"]>["re
   const over = r.valuesUm.filter((v) => v > limit).length;
   return (
     <div>
-      <svg viewBox={`0 0 ${w} ${h}`} className="h-auto w-full" role="img" aria-label={`Largest residual component per pose, ${r.totalPoses} poses; ${over} beyond 3 s = ${limit.toFixed(2)} µm`}>
+      <svg
+        viewBox={`0 0 ${w} ${h}`}
+        className="h-auto w-full"
+        role="img"
+        aria-label={`Largest residual component per pose, ${r.totalPoses} poses; ${over} beyond 3 s = ${limit.toFixed(2)} µm`}
+      >
         {ticks.map((t) => (
           <g key={t}>
             <line x1={m.l} x2={w - m.r} y1={y(t)} y2={y(t)} stroke="#e3e6ea" />
@@ -115,15 +218,33 @@ function Residuals({ r }: { r: NonNullable<NonNullable<ReportData["charts"]>["re
           </g>
         ))}
         {r.valuesUm.map((v, i) => (
-          <rect key={i} x={x(i)} y={y(v)} width={bw} height={Math.max(0.5, y(0) - y(v))} fill={v > limit ? "#9c2420" : "#5f7d99"} />
+          <rect
+            key={i}
+            x={x(i)}
+            y={y(v)}
+            width={bw}
+            height={Math.max(0.5, y(0) - y(v))}
+            fill={v > limit ? "#9c2420" : "#5f7d99"}
+          />
         ))}
-        <line x1={m.l} x2={w - m.r} y1={y(limit)} y2={y(limit)} stroke="#b86e05" strokeWidth={1.5} strokeDasharray="6 4" />
+        <line
+          x1={m.l}
+          x2={w - m.r}
+          y1={y(limit)}
+          y2={y(limit)}
+          stroke="#b86e05"
+          strokeWidth={1.5}
+          strokeDasharray="6 4"
+        />
         <text x={w - m.r} y={y(limit) - 4} textAnchor="end" fontSize="11" fill="#8a5204">
           3 s = {limit.toFixed(2)} µm
         </text>
       </svg>
       <p className="text-xs text-graphite-600">
-        Largest residual component per pose in µm, {r.totalPoses} poses in file order{r.perPoint > 1 ? ` (each bar the largest of ${r.perPoint} consecutive poses)` : ""}; dashed line: 3 s, beyond which a pose is reported as an outlier ({over} bar{over === 1 ? "" : "s"} beyond it, drawn in red). s = {r.sUm.toFixed(2)} µm per coordinate.
+        Largest residual component per pose in µm, {r.totalPoses} poses in file order
+        {r.perPoint > 1 ? ` (each bar the largest of ${r.perPoint} consecutive poses)` : ""}; dashed line: 3
+        s, beyond which a pose is reported as an outlier ({over} bar{over === 1 ? "" : "s"} beyond it, drawn
+        in red). s = {r.sUm.toFixed(2)} µm per coordinate.
       </p>
     </div>
   );

@@ -36,14 +36,26 @@ function Rows({ rows }: { rows: Array<[string, string | undefined]> }) {
   );
 }
 
-function Table({ head, rows, numeric = [] }: { head: string[]; rows: React.ReactNode[][]; numeric?: number[] }) {
+function Table({
+  head,
+  rows,
+  numeric = [],
+}: {
+  head: string[];
+  rows: React.ReactNode[][];
+  numeric?: number[];
+}) {
   return (
     <ScrollRegion label={`Table: ${head.slice(0, 3).join(", ")}`}>
       <table className="w-full text-sm">
         <thead className="bg-graphite-50 text-graphite-600">
           <tr>
             {head.map((h, i) => (
-              <th key={h} scope="col" className={`px-3 py-2 font-medium ${numeric.includes(i) ? "text-right" : "text-left"}`}>
+              <th
+                key={h}
+                scope="col"
+                className={`px-3 py-2 font-medium ${numeric.includes(i) ? "text-right" : "text-left"}`}
+              >
                 {h}
               </th>
             ))}
@@ -53,7 +65,10 @@ function Table({ head, rows, numeric = [] }: { head: string[]; rows: React.React
           {rows.map((r, i) => (
             <tr key={i}>
               {r.map((c, j) => (
-                <td key={j} className={`px-3 py-2 ${numeric.includes(j) ? "num whitespace-nowrap text-right" : ""}`}>
+                <td
+                  key={j}
+                  className={`px-3 py-2 ${numeric.includes(j) ? "num whitespace-nowrap text-right" : ""}`}
+                >
                   {c}
                 </td>
               ))}
@@ -69,7 +84,10 @@ function Table({ head, rows, numeric = [] }: { head: string[]; rows: React.React
 export function ReportView({ data }: { data: ReportData }) {
   const dec = (d: Decision) => <span className={`font-semibold ${DECISION[d].cls}`}>{DECISION[d].text}</span>;
   return (
-    <article className="space-y-6 rounded-card border border-graphite-200 bg-white p-6 shadow-sm" aria-label="Acceptance report">
+    <article
+      className="space-y-6 rounded-card border border-graphite-200 bg-white p-6 shadow-sm"
+      aria-label="Acceptance report"
+    >
       <header className="flex flex-wrap items-start justify-between gap-4 border-b-2 border-graphite-900 pb-3">
         <div>
           <h2 className="text-xl font-semibold">Acceptance report — two-axis head</h2>
@@ -77,44 +95,147 @@ export function ReportView({ data }: { data: ReportData }) {
         </div>
         <div className="text-right text-sm">
           <p className="num font-semibold">{data.reference}</p>
-          <p className="text-graphite-600">revision {data.revision} · issued {data.issuedAtUtc ?? "—"}</p>
+          <p className="text-graphite-600">
+            revision {data.revision} · issued {data.issuedAtUtc ?? "—"}
+          </p>
           <p className="num text-xs text-graphite-500">{data.reportId}</p>
         </div>
       </header>
       {data.amendment ? (
         <p className="rounded-card border-2 border-accent-500 bg-accent-50 p-3 text-sm">
-          <strong>Amendment:</strong> supersedes revision {data.amendment.supersedesRevision}. {data.amendment.reason}
+          <strong>Amendment:</strong> supersedes revision {data.amendment.supersedesRevision}.{" "}
+          {data.amendment.reason}
         </p>
       ) : null}
       <Section n={1} title="Identification">
         <div className="grid gap-4 md:grid-cols-2">
-          <Rows rows={[["Customer", data.customer.name], ["Site", [data.customer.site, data.customer.address].filter(Boolean).join(", ")], ["Host machine", `${data.machine.name} (${data.machine.kind})`], ["Builder, model", data.machine.builderModel], ["Machine serial", data.machine.serial]]} />
-          <Rows rows={[["Head serial", data.head.serial], ["Maker, model", data.head.makerModel], ["Axes", data.head.axes], ["Nominal pivot length", data.head.nominalPivotLength], ["Mass", data.head.mass]]} />
+          <Rows
+            rows={[
+              ["Customer", data.customer.name],
+              ["Site", [data.customer.site, data.customer.address].filter(Boolean).join(", ")],
+              ["Host machine", `${data.machine.name} (${data.machine.kind})`],
+              ["Builder, model", data.machine.builderModel],
+              ["Machine serial", data.machine.serial],
+            ]}
+          />
+          <Rows
+            rows={[
+              ["Head serial", data.head.serial],
+              ["Maker, model", data.head.makerModel],
+              ["Axes", data.head.axes],
+              ["Nominal pivot length", data.head.nominalPivotLength],
+              ["Mass", data.head.mass],
+            ]}
+          />
         </div>
       </Section>
       <Section n={2} title="Work, method and decision rule">
-        <Rows rows={[["Job", `${data.work.title} (${data.work.kind})`], ["Dates of work", data.work.dates], ["Procedure", data.work.procedure], ["Method", data.work.method], ["Decision rule", data.work.decisionRule], ["Environment", data.work.airTemperature]]} />
+        <Rows
+          rows={[
+            ["Job", `${data.work.title} (${data.work.kind})`],
+            ["Dates of work", data.work.dates],
+            ["Procedure", data.work.procedure],
+            ["Method", data.work.method],
+            ["Decision rule", data.work.decisionRule],
+            ["Environment", data.work.airTemperature],
+          ]}
+        />
       </Section>
       <Section n={3} title="Instruments">
-        {data.instruments.length ? <Table head={["Instrument", "Serial", "Resolution", "Std. uncertainty", "Calibration due", "Status"]} numeric={[2, 3]} rows={data.instruments.map((r) => [r.kind, r.serial, r.resolution, r.uncertainty, r.calibrationDue, r.status])} /> : <p className="text-sm text-graphite-600">No instruments were recorded.</p>}
+        {data.instruments.length ? (
+          <Table
+            head={["Instrument", "Serial", "Resolution", "Std. uncertainty", "Calibration due", "Status"]}
+            numeric={[2, 3]}
+            rows={data.instruments.map((r) => [
+              r.kind,
+              r.serial,
+              r.resolution,
+              r.uncertainty,
+              r.calibrationDue,
+              r.status,
+            ])}
+          />
+        ) : (
+          <p className="text-sm text-graphite-600">No instruments were recorded.</p>
+        )}
       </Section>
       <Section n={4} title="Readings before and after adjustment">
-        {data.readings.length ? <Table head={["Step", "Limits", "Before", "After", "Change", "Result"]} numeric={[2, 3, 4]} rows={data.readings.map((r) => [r.step, r.limits, r.pre ?? "—", r.post ?? "—", r.change ?? "—", dec(r.decision)])} /> : <p className="text-sm text-graphite-600">No checklist readings.</p>}
+        {data.readings.length ? (
+          <Table
+            head={["Step", "Limits", "Before", "After", "Change", "Result"]}
+            numeric={[2, 3, 4]}
+            rows={data.readings.map((r) => [
+              r.step,
+              r.limits,
+              r.pre ?? "—",
+              r.post ?? "—",
+              r.change ?? "—",
+              dec(r.decision),
+            ])}
+          />
+        ) : (
+          <p className="text-sm text-graphite-600">No checklist readings.</p>
+        )}
       </Section>
       <Section n={5} title="Kinematic parameters of the head">
-        {data.parameters.length ? <Table head={["Parameter", "ISO 230-1", "Value", "U (k = 2)", "Tolerance", "Identifiable", "Result"]} numeric={[2, 3, 4]} rows={data.parameters.map((p) => [p.name, p.symbol, p.value, p.expanded === "—" ? "—" : `± ${p.expanded}`, p.tolerance ?? "—", p.identifiable, dec(p.decision)])} /> : <p className="text-sm text-graphite-600">No kinematic fit is part of this report.</p>}
+        {data.parameters.length ? (
+          <Table
+            head={["Parameter", "ISO 230-1", "Value", "U (k = 2)", "Tolerance", "Identifiable", "Result"]}
+            numeric={[2, 3, 4]}
+            rows={data.parameters.map((p) => [
+              p.name,
+              p.symbol,
+              p.value,
+              p.expanded === "—" ? "—" : `± ${p.expanded}`,
+              p.tolerance ?? "—",
+              p.identifiable,
+              dec(p.decision),
+            ])}
+          />
+        ) : (
+          <p className="text-sm text-graphite-600">No kinematic fit is part of this report.</p>
+        )}
       </Section>
       <Section n={6} title="Test part">
-        {data.testPart.length ? <Table head={["Feature", "Characteristic", "Nominal", "Measured", "Deviation", "Limits", "U", "Result"]} numeric={[2, 3, 4, 5, 6]} rows={data.testPart.map((r) => [r.feature, r.characteristic, r.nominal, r.measured, r.deviation, r.limits, r.expanded, dec(r.decision)])} /> : <p className="text-sm text-graphite-600">No test part was measured for this report.</p>}
+        {data.testPart.length ? (
+          <Table
+            head={["Feature", "Characteristic", "Nominal", "Measured", "Deviation", "Limits", "U", "Result"]}
+            numeric={[2, 3, 4, 5, 6]}
+            rows={data.testPart.map((r) => [
+              r.feature,
+              r.characteristic,
+              r.nominal,
+              r.measured,
+              r.deviation,
+              r.limits,
+              r.expanded,
+              dec(r.decision),
+            ])}
+          />
+        ) : (
+          <p className="text-sm text-graphite-600">No test part was measured for this report.</p>
+        )}
       </Section>
       <Section n={7} title="Figures and charts">
         <ReportFigures data={data} />
       </Section>
       <Section n={8} title="Deviations and remarks">
-        {data.remarks.length ? <ul className="list-disc pl-5 text-sm">{data.remarks.map((r, i) => <li key={i}>{r}</li>)}</ul> : <p className="text-sm text-graphite-600">None.</p>}
+        {data.remarks.length ? (
+          <ul className="list-disc pl-5 text-sm">
+            {data.remarks.map((r, i) => (
+              <li key={i}>{r}</li>
+            ))}
+          </ul>
+        ) : (
+          <p className="text-sm text-graphite-600">None.</p>
+        )}
       </Section>
       <Section n={9} title="Safety">
-        <ul className="space-y-1 rounded-card border-2 border-accent-500 bg-accent-50 p-3 text-sm">{data.safety.map((t, i) => <li key={i}>⚠ {t}</li>)}</ul>
+        <ul className="space-y-1 rounded-card border-2 border-accent-500 bg-accent-50 p-3 text-sm">
+          {data.safety.map((t, i) => (
+            <li key={i}>⚠ {t}</li>
+          ))}
+        </ul>
       </Section>
       <Section n={10} title="Signatures">
         <ul className="grid gap-3 md:grid-cols-2">

@@ -52,27 +52,48 @@ export function SignForm({
     }
   }
 
-  if (done) return <p className="rounded-card border border-pass-600/40 bg-pass-50 p-3 text-sm text-pass-700">✓ Signed.</p>;
+  if (done)
+    return (
+      <p className="rounded-card border border-pass-600/40 bg-pass-50 p-3 text-sm text-pass-700">✓ Signed.</p>
+    );
   return (
-    <form onSubmit={onSubmit} className="space-y-3 rounded-card border border-graphite-200 bg-white p-4" aria-label={title}>
+    <form
+      onSubmit={onSubmit}
+      className="space-y-3 rounded-card border border-graphite-200 bg-white p-4"
+      aria-label={title}
+    >
       <p className="font-semibold">{title}</p>
       <p className="text-sm text-graphite-600">{meaning}</p>
       {withComment ? (
         <label className="block space-y-1">
           <span className="text-sm font-medium">{commentLabel}</span>
-          <textarea name={withComment} required={commentRequired} rows={3} className="block w-full rounded-lg border border-graphite-300 p-2 text-sm" />
+          <textarea
+            name={withComment}
+            required={commentRequired}
+            rows={3}
+            className="block w-full rounded-lg border border-graphite-300 p-2 text-sm"
+          />
         </label>
       ) : null}
       <label className="block space-y-1">
         <span className="text-sm font-medium">Your password</span>
-        <input name="password" type="password" autoComplete="current-password" required className="block min-h-touch w-full rounded-lg border border-graphite-300 px-3" />
+        <input
+          name="password"
+          type="password"
+          autoComplete="current-password"
+          required
+          className="block min-h-touch w-full rounded-lg border border-graphite-300 px-3"
+        />
       </label>
       {error ? (
         <p role="alert" className="text-sm text-fail-700">
           {error}
         </p>
       ) : null}
-      <button disabled={pending} className={`min-h-touch rounded-lg px-4 font-semibold text-white disabled:opacity-60 ${tone === "danger" ? "bg-fail-600 hover:bg-fail-700" : "bg-accent-600 hover:bg-accent-700"}`}>
+      <button
+        disabled={pending}
+        className={`min-h-touch rounded-lg px-4 font-semibold text-white disabled:opacity-60 ${tone === "danger" ? "bg-fail-600 hover:bg-fail-700" : "bg-accent-600 hover:bg-accent-700"}`}
+      >
         {pending ? "Signing…" : submitLabel}
       </button>
     </form>

@@ -1,4 +1,14 @@
-export function Card({ title, actions, children, className = "" }: { title?: string; actions?: React.ReactNode; children: React.ReactNode; className?: string }) {
+export function Card({
+  title,
+  actions,
+  children,
+  className = "",
+}: {
+  title?: string;
+  actions?: React.ReactNode;
+  children: React.ReactNode;
+  className?: string;
+}) {
   return (
     <section className={`rounded-card border border-graphite-200 bg-white shadow-sm ${className}`}>
       {title ? (
@@ -13,7 +23,11 @@ export function Card({ title, actions, children, className = "" }: { title?: str
 }
 
 /** A label/value list for identification blocks (machine, head, customer). */
-export function Facts({ items }: { items: ReadonlyArray<{ label: string; value: React.ReactNode; mono?: boolean }> }) {
+export function Facts({
+  items,
+}: {
+  items: ReadonlyArray<{ label: string; value: React.ReactNode; mono?: boolean }>;
+}) {
   return (
     <dl className="grid grid-cols-[minmax(7rem,auto)_minmax(0,1fr)] gap-x-6 gap-y-2 text-sm">
       {items.map((it) => (

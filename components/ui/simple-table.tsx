@@ -6,15 +6,30 @@ export interface Column<T> {
   numeric?: boolean;
 }
 
-export function SimpleTable<T extends { id: string }>({ rows, columns, caption }: { rows: readonly T[]; columns: readonly Column<T>[]; caption: string }) {
+export function SimpleTable<T extends { id: string }>({
+  rows,
+  columns,
+  caption,
+}: {
+  rows: readonly T[];
+  columns: readonly Column<T>[];
+  caption: string;
+}) {
   return (
-    <ScrollRegion label={`${caption}, table`} className="rounded-card border border-graphite-200 bg-white shadow-sm">
+    <ScrollRegion
+      label={`${caption}, table`}
+      className="rounded-card border border-graphite-200 bg-white shadow-sm"
+    >
       <table className="w-full text-sm">
         <caption className="sr-only">{caption}</caption>
         <thead className="border-b border-graphite-200 bg-graphite-50 text-graphite-600">
           <tr>
             {columns.map((c) => (
-              <th key={c.header} scope="col" className={`px-4 py-3 font-medium ${c.numeric ? "text-right" : "text-left"}`}>
+              <th
+                key={c.header}
+                scope="col"
+                className={`px-4 py-3 font-medium ${c.numeric ? "text-right" : "text-left"}`}
+              >
                 {c.header}
               </th>
             ))}

@@ -16,7 +16,15 @@ import { useRouter } from "next/navigation";
 import { useEffect, useLayoutEffect, useMemo, useRef, useState } from "react";
 import * as THREE from "three";
 import type { OrbitControls as OrbitControlsImpl } from "three-stdlib";
-import { headOverlayScene, headScene, residualColour, tipChangeUm, type HeadOverlayData, type HeadSceneData, type SceneLine } from "@/geometry/head-scene";
+import {
+  headOverlayScene,
+  headScene,
+  residualColour,
+  tipChangeUm,
+  type HeadOverlayData,
+  type HeadSceneData,
+  type SceneLine,
+} from "@/geometry/head-scene";
 import type { HeadConfig, HeadErrors, HeadPose, HeadVec3 } from "@/geometry";
 import { factorFromSlider, formatFactor } from "./factor";
 
@@ -60,7 +68,16 @@ function webglAvailable(): boolean {
   }
 }
 
-export function HeadViewer({ config, errors, poses, residualsUm, initialFactor = 300, shown, overlay = null, maySave = false }: HeadViewerProps) {
+export function HeadViewer({
+  config,
+  errors,
+  poses,
+  residualsUm,
+  initialFactor = 300,
+  shown,
+  overlay = null,
+  maySave = false,
+}: HeadViewerProps) {
   const [slider, setSlider] = useState(Math.log10(initialFactor));
   const [ready, setReady] = useState(false);
   const [webgl, setWebgl] = useState<boolean | null>(null);
@@ -68,10 +85,19 @@ export function HeadViewer({ config, errors, poses, residualsUm, initialFactor =
   const controls = useRef<OrbitControlsImpl | null>(null);
   const captureRef = useRef<(() => HTMLCanvasElement) | null>(null);
   const k = factorFromSlider(slider);
-  const scene = useMemo(() => headScene(config, errors, poses, k, residualsUm), [config, errors, poses, k, residualsUm]);
+  const scene = useMemo(
+    () => headScene(config, errors, poses, k, residualsUm),
+    [config, errors, poses, k, residualsUm],
+  );
   const overlayErrors = overlay?.errors;
-  const other = useMemo(() => (overlayErrors ? headOverlayScene(config, overlayErrors, poses, k) : null), [config, overlayErrors, poses, k]);
-  const change = useMemo(() => (overlayErrors ? tipChangeUm(config, overlayErrors, errors, poses) : null), [config, overlayErrors, errors, poses]);
+  const other = useMemo(
+    () => (overlayErrors ? headOverlayScene(config, overlayErrors, poses, k) : null),
+    [config, overlayErrors, poses, k],
+  );
+  const change = useMemo(
+    () => (overlayErrors ? tipChangeUm(config, overlayErrors, errors, poses) : null),
+    [config, overlayErrors, errors, poses],
+  );
   const drawOther = Boolean(overlay && showOverlay && other);
   const maxRes = useMemo(() => Math.max(1e-9, ...Array.from(scene.residualUm)), [scene.residualUm]);
   const L = config.pivotLengthMm;
@@ -81,8 +107,16 @@ export function HeadViewer({ config, errors, poses, residualsUm, initialFactor =
 
   return (
     <div className="space-y-3">
-      <div className="relative overflow-hidden rounded-card border border-graphite-200" style={{ background: BACKGROUND }}>
-        <div data-testid="head-viewer" data-ready={ready ? "true" : "false"} data-factor={k} className="h-[30rem] w-full">
+      <div
+        className="relative overflow-hidden rounded-card border border-graphite-200"
+        style={{ background: BACKGROUND }}
+      >
+        <div
+          data-testid="head-viewer"
+          data-ready={ready ? "true" : "false"}
+          data-factor={k}
+          className="h-[30rem] w-full"
+        >
           {webgl === false ? (
             <NoWebGl />
           ) : webgl ? (
@@ -90,7 +124,13 @@ export function HeadViewer({ config, errors, poses, residualsUm, initialFactor =
               gl={{ preserveDrawingBuffer: true, antialias: true }}
               dpr={[1, 2]}
               frameloop="demand"
-              camera={{ position: [2.6 * (L + maxTool), -3.1 * (L + maxTool), 1.3 * (L + maxTool)], up: [0, 0, 1], fov: 36, near: 1, far: 20000 }}
+              camera={{
+                position: [2.6 * (L + maxTool), -3.1 * (L + maxTool), 1.3 * (L + maxTool)],
+                up: [0, 0, 1],
+                fov: 36,
+                near: 1,
+                far: 20000,
+              }}
               onCreated={({ gl, get }) => {
                 gl.setClearColor(BACKGROUND);
                 captureRef.current = () => {
@@ -109,7 +149,12 @@ export function HeadViewer({ config, errors, poses, residualsUm, initialFactor =
               <Paths scene={scene} />
               {drawOther && other ? <OtherFit other={other} L={L} /> : null}
               <MeasuredPoints scene={scene} maxRes={maxRes} radius={Math.max(1, 0.017 * L)} />
-              <OrbitControls ref={controls} makeDefault target={[0, 0, -0.05 * (L + maxTool)]} enableDamping={false} />
+              <OrbitControls
+                ref={controls}
+                makeDefault
+                target={[0, 0, -0.05 * (L + maxTool)]}
+                enableDamping={false}
+              />
             </Canvas>
           ) : (
             <p className="p-6 text-sm text-graphite-600">Starting the 3D view…</p>
@@ -117,7 +162,10 @@ export function HeadViewer({ config, errors, poses, residualsUm, initialFactor =
         </div>
         {webgl ? (
           <>
-            <p className="pointer-events-none absolute left-3 top-3 rounded bg-white/90 px-3 py-1.5 text-sm font-semibold text-graphite-900 shadow-sm" data-testid="factor-label">
+            <p
+              className="pointer-events-none absolute left-3 top-3 rounded bg-white/90 px-3 py-1.5 text-sm font-semibold text-graphite-900 shadow-sm"
+              data-testid="factor-label"
+            >
               Errors drawn <span className="num">×{formatFactor(k)}</span>
               {drawOther ? " for both fits" : ""} — not to scale
             </p>
@@ -141,49 +189,85 @@ export function HeadViewer({ config, errors, poses, residualsUm, initialFactor =
           />
           <span className="num w-20 text-right">×{formatFactor(k)}</span>
         </label>
-        <button type="button" onClick={() => controls.current?.reset()} className="min-h-touch rounded-md border border-graphite-300 bg-white px-4 text-sm font-semibold hover:bg-graphite-50">
+        <button
+          type="button"
+          onClick={() => controls.current?.reset()}
+          className="min-h-touch rounded-md border border-graphite-300 bg-white px-4 text-sm font-semibold hover:bg-graphite-50"
+        >
           Reset view
         </button>
       </div>
       {overlay ? (
         <div className="flex flex-wrap items-center gap-x-4 gap-y-1 rounded-md border border-graphite-200 bg-graphite-50 px-3 py-2">
           <label className="flex min-h-touch cursor-pointer items-center gap-3 text-sm font-medium text-graphite-800">
-            <input type="checkbox" checked={showOverlay} onChange={(e) => setShowOverlay(e.target.checked)} className="h-5 w-5 accent-[#0f766e]" />
-            Also draw the fit {overlay.phaseText} <span className="font-normal text-graphite-600">({overlay.dataset})</span>
+            <input
+              type="checkbox"
+              checked={showOverlay}
+              onChange={(e) => setShowOverlay(e.target.checked)}
+              className="h-5 w-5 accent-[#0f766e]"
+            />
+            Also draw the fit {overlay.phaseText}{" "}
+            <span className="font-normal text-graphite-600">({overlay.dataset})</span>
           </label>
           {change ? (
             <p className="text-xs text-graphite-600" data-testid="tip-change">
-              Between the two fits the modelled tip moves by up to <span className="num">{change.maxUm.toFixed(1)} µm</span> (RMS <span className="num">{change.rmsUm.toFixed(1)} µm</span>) over these poses, real size.
+              Between the two fits the modelled tip moves by up to{" "}
+              <span className="num">{change.maxUm.toFixed(1)} µm</span> (RMS{" "}
+              <span className="num">{change.rmsUm.toFixed(1)} µm</span>) over these poses, real size.
             </p>
           ) : null}
         </div>
       ) : null}
-      {maySave && shown && webgl ? <SaveView captureRef={captureRef} k={k} shown={shown} other={drawOther ? overlay : null} /> : null}
-      <p className="text-xs text-graphite-600">Drag to turn, scroll or pinch to zoom, right-drag to move. Z is up; the head is drawn at zero on both axes.</p>
+      {maySave && shown && webgl ? (
+        <SaveView captureRef={captureRef} k={k} shown={shown} other={drawOther ? overlay : null} />
+      ) : null}
+      <p className="text-xs text-graphite-600">
+        Drag to turn, scroll or pinch to zoom, right-drag to move. Z is up; the head is drawn at zero on both
+        axes.
+      </p>
     </div>
   );
 }
 
 function NoWebGl() {
   return (
-    <div role="status" className="flex h-full items-center justify-center p-6 text-center text-sm text-graphite-700">
+    <div
+      role="status"
+      className="flex h-full items-center justify-center p-6 text-center text-sm text-graphite-700"
+    >
       <p>
-        The 3D view needs WebGL, which this browser has turned off or does not offer. The parameters, residuals and control values below are complete without it.
+        The 3D view needs WebGL, which this browser has turned off or does not offer. The parameters,
+        residuals and control values below are complete without it.
       </p>
     </div>
   );
 }
 
-function Legend({ maxRes, shown, other }: { maxRes: number; shown?: ViewerFitLabel; other: ViewerFitLabel | null }) {
+function Legend({
+  maxRes,
+  shown,
+  other,
+}: {
+  maxRes: number;
+  shown?: ViewerFitLabel;
+  other: ViewerFitLabel | null;
+}) {
   const stops = [0, 0.25, 0.5, 0.75, 1].map((f) => {
     const [r, g, b] = residualColour(f * maxRes, maxRes);
     return `rgb(${Math.round(r * 255)} ${Math.round(g * 255)} ${Math.round(b * 255)}) ${f * 100}%`;
   });
   // On a tablet or phone the legend sits under the picture instead of covering part of it.
   return (
-    <div className={`m-3 space-y-2 rounded bg-white/95 p-3 text-xs text-graphite-800 shadow-sm lg:absolute lg:bottom-3 lg:right-3 lg:m-0 ${other ? "lg:w-80" : "lg:w-64"}`} aria-label="Legend">
+    <div
+      className={`m-3 space-y-2 rounded bg-white/95 p-3 text-xs text-graphite-800 shadow-sm lg:absolute lg:bottom-3 lg:right-3 lg:m-0 ${other ? "lg:w-80" : "lg:w-64"}`}
+      aria-label="Legend"
+    >
       <p className="font-semibold">Measured points: residual |r|</p>
-      <div className="h-3 rounded" style={{ background: `linear-gradient(to right, ${stops.join(", ")})` }} aria-hidden="true" />
+      <div
+        className="h-3 rounded"
+        style={{ background: `linear-gradient(to right, ${stops.join(", ")})` }}
+        aria-hidden="true"
+      />
       <div className="num flex justify-between">
         <span>0</span>
         <span>{(maxRes / 2).toFixed(2)}</span>
@@ -191,17 +275,32 @@ function Legend({ maxRes, shown, other }: { maxRes: number; shown?: ViewerFitLab
       </div>
       <ul className="space-y-1 pt-1">
         <li className="flex items-center gap-2">
-          <span className="inline-block h-0.5 w-6" style={{ background: NOMINAL }} aria-hidden="true" /> Nominal axes and tip path (dashed axes)
+          <span className="inline-block h-0.5 w-6" style={{ background: NOMINAL }} aria-hidden="true" />{" "}
+          Nominal axes and tip path (dashed axes)
         </li>
         <li className="flex items-center gap-2">
           <span className="inline-block h-1 w-6 shrink-0" style={{ background: FITTED }} aria-hidden="true" />
-          <span>Fitted axes and actual tip path{other && shown ? <>, {shown.phaseText} <span className="text-graphite-600">({shown.dataset})</span></> : null}</span>
+          <span>
+            Fitted axes and actual tip path
+            {other && shown ? (
+              <>
+                , {shown.phaseText} <span className="text-graphite-600">({shown.dataset})</span>
+              </>
+            ) : null}
+          </span>
         </li>
         {other ? (
           <li className="flex items-center gap-2" data-testid="legend-other">
-            <span className="inline-block h-1 w-6 shrink-0" style={{ backgroundImage: `repeating-linear-gradient(to right, ${OTHER} 0 4px, transparent 4px 7px)` }} aria-hidden="true" />
+            <span
+              className="inline-block h-1 w-6 shrink-0"
+              style={{
+                backgroundImage: `repeating-linear-gradient(to right, ${OTHER} 0 4px, transparent 4px 7px)`,
+              }}
+              aria-hidden="true"
+            />
             <span>
-              Dashed: fitted axes and tip path {other.phaseText} <span className="text-graphite-600">({other.dataset})</span>
+              Dashed: fitted axes and tip path {other.phaseText}{" "}
+              <span className="text-graphite-600">({other.dataset})</span>
             </span>
           </li>
         ) : null}
@@ -212,7 +311,14 @@ function Legend({ maxRes, shown, other }: { maxRes: number; shown?: ViewerFitLab
 
 /** A simplified head at zero: collar, body, tilt-axis housing, spindle and tool (translucent, so the axes show). */
 function HeadModel({ L }: { L: number }) {
-  const body = { color: "#9aa3ad", transparent: true, opacity: 0.28, roughness: 0.7, metalness: 0.1, depthWrite: false };
+  const body = {
+    color: "#9aa3ad",
+    transparent: true,
+    opacity: 0.28,
+    roughness: 0.7,
+    metalness: 0.1,
+    depthWrite: false,
+  };
   return (
     <group>
       {/* Cylinders are along +Y by default; rotate to Z (primary) or X (tilt axis). */}
@@ -259,21 +365,47 @@ function Axes({ scene, L, config }: { scene: HeadSceneData; L: number; config: H
   const sEnd = lineEnds(a.fittedSecondary, -0.95 * L, 0.95 * L)[1]!;
   return (
     <group>
-      <Line points={lineEnds(a.nominalPrimary, -0.5 * L, 1.55 * L)} color={NOMINAL} lineWidth={2} dashed dashSize={0.06 * L} gapSize={0.04 * L} />
+      <Line
+        points={lineEnds(a.nominalPrimary, -0.5 * L, 1.55 * L)}
+        color={NOMINAL}
+        lineWidth={2}
+        dashed
+        dashSize={0.06 * L}
+        gapSize={0.04 * L}
+      />
       <Line points={lineEnds(a.fittedPrimary, -0.5 * L, 1.55 * L)} color={FITTED} lineWidth={3} />
-      <Line points={lineEnds(a.nominalSecondary, -0.95 * L, 0.95 * L)} color={NOMINAL} lineWidth={2} dashed dashSize={0.06 * L} gapSize={0.04 * L} />
+      <Line
+        points={lineEnds(a.nominalSecondary, -0.95 * L, 0.95 * L)}
+        color={NOMINAL}
+        lineWidth={2}
+        dashed
+        dashSize={0.06 * L}
+        gapSize={0.04 * L}
+      />
       <Line points={lineEnds(a.fittedSecondary, -0.95 * L, 0.95 * L)} color={FITTED} lineWidth={3} />
       <Html position={pEnd} center zIndexRange={[10, 0]}>
-        <span className="whitespace-nowrap rounded bg-white/90 px-1.5 py-0.5 text-xs font-semibold text-graphite-800">{config.primary} axis</span>
+        <span className="whitespace-nowrap rounded bg-white/90 px-1.5 py-0.5 text-xs font-semibold text-graphite-800">
+          {config.primary} axis
+        </span>
       </Html>
       <Html position={sEnd} center zIndexRange={[10, 0]}>
-        <span className="whitespace-nowrap rounded bg-white/90 px-1.5 py-0.5 text-xs font-semibold text-graphite-800">{config.secondary} axis</span>
+        <span className="whitespace-nowrap rounded bg-white/90 px-1.5 py-0.5 text-xs font-semibold text-graphite-800">
+          {config.secondary} axis
+        </span>
       </Html>
     </group>
   );
 }
 
-function Segments({ positions, color, opacity }: { positions: Float32Array; color: string; opacity: number }) {
+function Segments({
+  positions,
+  color,
+  opacity,
+}: {
+  positions: Float32Array;
+  color: string;
+  opacity: number;
+}) {
   const geometry = useMemo(() => {
     const g = new THREE.BufferGeometry();
     g.setAttribute("position", new THREE.BufferAttribute(positions, 3));
@@ -307,7 +439,11 @@ function MeasuredPoints({ scene, maxRes, radius }: { scene: HeadSceneData; maxRe
     const m = new THREE.Matrix4();
     const c = new THREE.Color();
     for (let i = 0; i < n; i++) {
-      m.makeTranslation(scene.measuredTipsMm[3 * i]!, scene.measuredTipsMm[3 * i + 1]!, scene.measuredTipsMm[3 * i + 2]!);
+      m.makeTranslation(
+        scene.measuredTipsMm[3 * i]!,
+        scene.measuredTipsMm[3 * i + 1]!,
+        scene.measuredTipsMm[3 * i + 2]!,
+      );
       mesh.setMatrixAt(i, m);
       const [r, g, b] = residualColour(scene.residualUm[i]!, maxRes);
       mesh.setColorAt(i, c.setRGB(r, g, b, THREE.SRGBColorSpace));
@@ -335,9 +471,33 @@ function OtherFit({ other, L }: { other: HeadOverlayData; L: number }) {
   }, [other.actualPathMm]);
   return (
     <group>
-      <Line points={lineEnds(other.axes.primary, -0.5 * L, 1.55 * L)} color={OTHER} lineWidth={2.5} dashed dashSize={0.035 * L} gapSize={0.025 * L} />
-      <Line points={lineEnds(other.axes.secondary, -0.95 * L, 0.95 * L)} color={OTHER} lineWidth={2.5} dashed dashSize={0.035 * L} gapSize={0.025 * L} />
-      {path.length >= 2 ? <Line points={path} segments color={OTHER} lineWidth={1.5} dashed dashSize={0.02 * L} gapSize={0.015 * L} /> : null}
+      <Line
+        points={lineEnds(other.axes.primary, -0.5 * L, 1.55 * L)}
+        color={OTHER}
+        lineWidth={2.5}
+        dashed
+        dashSize={0.035 * L}
+        gapSize={0.025 * L}
+      />
+      <Line
+        points={lineEnds(other.axes.secondary, -0.95 * L, 0.95 * L)}
+        color={OTHER}
+        lineWidth={2.5}
+        dashed
+        dashSize={0.035 * L}
+        gapSize={0.025 * L}
+      />
+      {path.length >= 2 ? (
+        <Line
+          points={path}
+          segments
+          color={OTHER}
+          lineWidth={1.5}
+          dashed
+          dashSize={0.02 * L}
+          gapSize={0.015 * L}
+        />
+      ) : null}
     </group>
   );
 }
@@ -350,7 +510,11 @@ const PRINT_PIXEL_RATIO = 2;
  * restored. Fat lines keep their look: their width is set against the CSS size, which does not
  * change.
  */
-function renderForPrint(gl: THREE.WebGLRenderer, scene: THREE.Scene, camera: THREE.Camera): HTMLCanvasElement {
+function renderForPrint(
+  gl: THREE.WebGLRenderer,
+  scene: THREE.Scene,
+  camera: THREE.Camera,
+): HTMLCanvasElement {
   const screenRatio = gl.getPixelRatio();
   const out = document.createElement("canvas");
   try {
@@ -370,7 +534,12 @@ function renderForPrint(gl: THREE.WebGLRenderer, scene: THREE.Scene, camera: THR
  * The picture as saved: the canvas, with the factor and the legend's words printed into it so the
  * saved PNG cannot be mistaken for real size, whatever page it ends up on.
  */
-async function viewPicture(canvas: HTMLCanvasElement, k: number, shown: ViewerFitLabel, other: ViewerFitLabel | null): Promise<Blob> {
+async function viewPicture(
+  canvas: HTMLCanvasElement,
+  k: number,
+  shown: ViewerFitLabel,
+  other: ViewerFitLabel | null,
+): Promise<Blob> {
   const px = Math.max(12, Math.round(canvas.width / 70));
   // Two or three legend lines, 1.4 text heights apart, with a margin below the last.
   const band = Math.round(px * (other ? 5.2 : 3.8));
@@ -405,15 +574,35 @@ async function viewPicture(canvas: HTMLCanvasElement, k: number, shown: ViewerFi
   };
   const y0 = canvas.height + px * 1.2;
   line(y0, NOMINAL, true, "Nominal axes and tip path");
-  line(y0 + px * 1.4, FITTED, false, `Fitted axes and actual tip path, ${shown.phaseText} (${shown.dataset})`);
-  if (other) line(y0 + px * 2.8, OTHER, true, `Fitted axes and tip path ${other.phaseText} (${other.dataset})`);
-  return new Promise((resolve, reject) => out.toBlob((b) => (b ? resolve(b) : reject(new Error("The picture could not be made."))), "image/png"));
+  line(
+    y0 + px * 1.4,
+    FITTED,
+    false,
+    `Fitted axes and actual tip path, ${shown.phaseText} (${shown.dataset})`,
+  );
+  if (other)
+    line(y0 + px * 2.8, OTHER, true, `Fitted axes and tip path ${other.phaseText} (${other.dataset})`);
+  return new Promise((resolve, reject) =>
+    out.toBlob((b) => (b ? resolve(b) : reject(new Error("The picture could not be made."))), "image/png"),
+  );
 }
 
-function SaveView({ captureRef, k, shown, other }: { captureRef: React.RefObject<(() => HTMLCanvasElement) | null>; k: number; shown: ViewerFitLabel; other: (ViewerFitLabel & { errors: HeadErrors }) | null }) {
+function SaveView({
+  captureRef,
+  k,
+  shown,
+  other,
+}: {
+  captureRef: React.RefObject<(() => HTMLCanvasElement) | null>;
+  k: number;
+  shown: ViewerFitLabel;
+  other: (ViewerFitLabel & { errors: HeadErrors }) | null;
+}) {
   const router = useRouter();
   const [caption, setCaption] = useState("");
-  const [state, setState] = useState<{ kind: "idle" | "saving" | "saved" | "error"; message?: string }>({ kind: "idle" });
+  const [state, setState] = useState<{ kind: "idle" | "saving" | "saved" | "error"; message?: string }>({
+    kind: "idle",
+  });
   async function save() {
     const capture = captureRef.current;
     if (!capture) return;
@@ -428,7 +617,10 @@ function SaveView({ captureRef, k, shown, other }: { captureRef: React.RefObject
       const res = await fetch(`/api/analyses/${shown.analysisId}/views`, { method: "POST", body: form });
       const body = await res.json().catch(() => null);
       if (!res.ok) throw new Error(body?.error?.message ?? `The server answered ${res.status}.`);
-      setState({ kind: "saved", message: `Saved at ×${formatFactor(k)}. It is listed under "Saved views" below.` });
+      setState({
+        kind: "saved",
+        message: `Saved at ×${formatFactor(k)}. It is listed under "Saved views" below.`,
+      });
       setCaption("");
       router.refresh();
     } catch (e) {
@@ -439,13 +631,29 @@ function SaveView({ captureRef, k, shown, other }: { captureRef: React.RefObject
     <div className="flex flex-wrap items-end gap-3 border-t border-graphite-100 pt-3">
       <label className="flex min-w-[16rem] flex-1 flex-col gap-1 text-sm font-medium text-graphite-800">
         Caption (optional)
-        <input type="text" value={caption} maxLength={200} onChange={(e) => setCaption(e.target.value)} placeholder="e.g. Tilt axis squareness before and after shimming" className="min-h-touch rounded-md border border-graphite-300 px-3 font-normal" />
+        <input
+          type="text"
+          value={caption}
+          maxLength={200}
+          onChange={(e) => setCaption(e.target.value)}
+          placeholder="e.g. Tilt axis squareness before and after shimming"
+          className="min-h-touch rounded-md border border-graphite-300 px-3 font-normal"
+        />
       </label>
-      <button type="button" onClick={save} disabled={state.kind === "saving"} className="min-h-touch rounded-md bg-accent-600 px-4 text-sm font-semibold text-white hover:bg-accent-700 disabled:opacity-60">
+      <button
+        type="button"
+        onClick={save}
+        disabled={state.kind === "saving"}
+        className="min-h-touch rounded-md bg-accent-600 px-4 text-sm font-semibold text-white hover:bg-accent-700 disabled:opacity-60"
+      >
         {state.kind === "saving" ? "Saving…" : "Save view for the report"}
       </button>
-      <p role="status" className={`w-full text-sm ${state.kind === "error" ? "text-fail-700" : "text-graphite-700"}`}>
-        {state.message ?? "Saves the picture as shown, with the factor printed on it, for the acceptance report."}
+      <p
+        role="status"
+        className={`w-full text-sm ${state.kind === "error" ? "text-fail-700" : "text-graphite-700"}`}
+      >
+        {state.message ??
+          "Saves the picture as shown, with the factor printed on it, for the acceptance report."}
       </p>
     </div>
   );

@@ -24,7 +24,9 @@ import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /** The head configuration geometry/ needs, from the heads register (lengths in mm). */
-export function headConfigOf(head: Pick<Head, "primaryAxis" | "secondaryAxis" | "nominalPivotLengthMm" | "toolDirection">): HeadConfig {
+export function headConfigOf(
+  head: Pick<Head, "primaryAxis" | "secondaryAxis" | "nominalPivotLengthMm" | "toolDirection">,
+): HeadConfig {
   return {
     primary: head.primaryAxis,
     secondary: head.secondaryAxis,
@@ -61,11 +63,19 @@ export interface StoredHeadFit {
 }
 
 /** Stored dataset columns (mm, degrees) as geometry's SphereProbeData; 422 naming a missing column. */
-export function sphereProbeFromColumns(cols: Map<string, { unit: string; values: Float64Array }>): SphereProbeData {
+export function sphereProbeFromColumns(
+  cols: Map<string, { unit: string; values: Float64Array }>,
+): SphereProbeData {
   const need = (name: string, unit: string) => {
     const c = cols.get(name);
-    if (!c) throw invalid(`The dataset has no ${name} column; it cannot be fitted.`, [{ column: name, message: `column ${name} is missing` }]);
-    if (c.unit !== unit) throw invalid(`Column ${name} is stored in ${c.unit}, not ${unit}.`, [{ column: name, message: `unit ${c.unit}, expected ${unit}` }]);
+    if (!c)
+      throw invalid(`The dataset has no ${name} column; it cannot be fitted.`, [
+        { column: name, message: `column ${name} is missing` },
+      ]);
+    if (c.unit !== unit)
+      throw invalid(`Column ${name} is stored in ${c.unit}, not ${unit}.`, [
+        { column: name, message: `unit ${c.unit}, expected ${unit}` },
+      ]);
     return c.values;
   };
   const primaryDeg = need("primary_deg", "deg");
@@ -88,31 +98,65 @@ export function sphereProbeFromColumns(cols: Map<string, { unit: string; values:
 }
 
 /** SHA-256 over the dataset's SHA-256 and the canonical JSON of the options and head configuration. */
-export function headFitInputSha256(datasetSha256: string, options: HeadFitOptions, config: HeadConfig): string {
-  return createHash("sha256").update(datasetSha256).update("\n").update(canonicalJson({ options, head: config })).digest("hex");
+export function headFitInputSha256(
+  datasetSha256: string,
+  options: HeadFitOptions,
+  config: HeadConfig,
+): string {
+  return createHash("sha256")
+    .update(datasetSha256)
+    .update("\n")
+    .update(canonicalJson({ options, head: config }))
+    .digest("hex");
 }
 
 /** Runs the fit (pure geometry/) and shapes what is stored. GeometryErrors become 422 naming the rows. */
-export function computeHeadFit(config: HeadConfig, data: SphereProbeData, options: HeadFitOptions): StoredHeadFit {
+export function computeHeadFit(
+  config: HeadConfig,
+  data: SphereProbeData,
+  options: HeadFitOptions,
+): StoredHeadFit {
   let r;
   try {
     r = fitHead(config, data, options);
   } catch (err) {
     if (err instanceof GeometryError) {
-      throw new AppError(422, err.code, `The fit could not run: ${err.message}`, err.issues.slice(0, 50).map((i) => ({ ...(i.row ? { row: i.row } : {}), ...(i.column ? { column: i.column } : {}), message: i.message })));
+      throw new AppError(
+        422,
+        err.code,
+        `The fit could not run: ${err.message}`,
+        err.issues
+          .slice(0, 50)
+          .map((i) => ({
+            ...(i.row ? { row: i.row } : {}),
+            ...(i.column ? { column: i.column } : {}),
+            message: i.message,
+          })),
+      );
     }
     throw err;
   }
   const n = data.rows;
   const c = r.sphere_centre_mm;
-  const poses: HeadFitPoses = { row: [], primary_deg: [], secondary_deg: [], tool_mm: [], residual_um: [], measured_deviation_um: [] };
+  const poses: HeadFitPoses = {
+    row: [],
+    primary_deg: [],
+    secondary_deg: [],
+    tool_mm: [],
+    residual_um: [],
+    measured_deviation_um: [],
+  };
   for (let i = 0; i < n; i++) {
     poses.row.push(data.sourceRow ? data.sourceRow[i]! : i + 2);
     poses.primary_deg.push(data.primaryDeg[i]!);
     poses.secondary_deg.push(data.secondaryDeg[i]!);
     poses.tool_mm.push(data.toolMm ? data.toolMm[i]! : 0);
     poses.residual_um.push([r.residuals_um[3 * i]!, r.residuals_um[3 * i + 1]!, r.residuals_um[3 * i + 2]!]);
-    poses.measured_deviation_um.push([1000 * (c[0] - data.xMm[i]!), 1000 * (c[1] - data.yMm[i]!), 1000 * (c[2] - data.zMm[i]!)]);
+    poses.measured_deviation_um.push([
+      1000 * (c[0] - data.xMm[i]!),
+      1000 * (c[1] - data.yMm[i]!),
+      1000 * (c[2] - data.zMm[i]!),
+    ]);
   }
   const t = config.toolDirection ?? [0, 0, -1];
   return {
@@ -120,7 +164,12 @@ export function computeHeadFit(config: HeadConfig, data: SphereProbeData, option
     s_um: r.s_um,
     degrees_of_freedom: r.degrees_of_freedom,
     pinned: r.parameters.filter((p) => p.pinned).map((p) => p.key),
-    head: { primary: config.primary, secondary: config.secondary, pivot_length_mm: config.pivotLengthMm, tool_direction: [t[0], t[1], t[2]] },
+    head: {
+      primary: config.primary,
+      secondary: config.secondary,
+      pivot_length_mm: config.pivotLengthMm,
+      tool_direction: [t[0], t[1], t[2]],
+    },
     poses,
   };
 }
@@ -133,13 +182,24 @@ export type AnalysisRow = Omit<Analysis, "result"> & { result: StoredHeadFit };
  * 404 when the actor may not see the dataset; 403 when their role may not run fits; 409 once the
  * job's parameters are approved; 422 when the data cannot be fitted. Audited when new.
  */
-export async function runHeadFit(actor: Actor, datasetId: string): Promise<{ analysis: AnalysisRow; created: boolean }> {
+export async function runHeadFit(
+  actor: Actor,
+  datasetId: string,
+): Promise<{ analysis: AnalysisRow; created: boolean }> {
   const d = await getDataset(actor, datasetId);
   if (!d) throw notFound("dataset");
   const refusal = headFitRefusal(actor.role, d.job.status);
-  if (refusal) throw !HEAD_FIT_ROLES.includes(actor.role) ? forbidden(refusal) : new AppError(409, "job_closed", refusal);
-  if (d.dataset.status !== "stored") throw new AppError(409, "dataset_deleted", "This dataset is deleted; it cannot be fitted.");
-  if (d.dataset.kind !== "sphere_probe") throw invalid(`A head fit needs a sphere-probe dataset; this one is ${d.dataset.kind.replace("_", " ")}.`, [{ field: "dataset", message: "not a sphere-probe dataset" }]);
+  if (refusal)
+    throw !HEAD_FIT_ROLES.includes(actor.role)
+      ? forbidden(refusal)
+      : new AppError(409, "job_closed", refusal);
+  if (d.dataset.status !== "stored")
+    throw new AppError(409, "dataset_deleted", "This dataset is deleted; it cannot be fitted.");
+  if (d.dataset.kind !== "sphere_probe")
+    throw invalid(
+      `A head fit needs a sphere-probe dataset; this one is ${d.dataset.kind.replace("_", " ")}.`,
+      [{ field: "dataset", message: "not a sphere-probe dataset" }],
+    );
   const job = await getJobDetail(actor, d.dataset.jobId);
   if (!job) throw notFound("dataset");
   const config = headConfigOf(job.head);
@@ -155,7 +215,16 @@ export async function runHeadFit(actor: Actor, datasetId: string): Promise<{ ana
   const row = await db.transaction(async (tx) => {
     const [inserted] = await tx
       .insert(analyses)
-      .values({ jobId: d.dataset.jobId, datasetId, kind: "head_fit", geometryVersion: GEOMETRY_VERSION, inputSha256, options, result, createdById: actor.id })
+      .values({
+        jobId: d.dataset.jobId,
+        datasetId,
+        kind: "head_fit",
+        geometryVersion: GEOMETRY_VERSION,
+        inputSha256,
+        options,
+        result,
+        createdById: actor.id,
+      })
       .onConflictDoNothing()
       .returning();
     if (!inserted) return null;
@@ -190,7 +259,13 @@ async function findAnalysis(datasetId: string, inputSha256: string): Promise<Ana
   const [row] = await db
     .select()
     .from(analyses)
-    .where(and(eq(analyses.datasetId, datasetId), eq(analyses.inputSha256, inputSha256), eq(analyses.geometryVersion, GEOMETRY_VERSION)))
+    .where(
+      and(
+        eq(analyses.datasetId, datasetId),
+        eq(analyses.inputSha256, inputSha256),
+        eq(analyses.geometryVersion, GEOMETRY_VERSION),
+      ),
+    )
     .limit(1);
   return (row as AnalysisRow | undefined) ?? null;
 }
@@ -199,7 +274,17 @@ async function findAnalysis(datasetId: string, inputSha256: string): Promise<Ana
 export async function getAnalysis(actor: Actor, id: string) {
   if (!UUID.test(id)) return null;
   const [row] = await db
-    .select({ analysis: analyses, job: { id: jobs.id, reference: jobs.reference, status: jobs.status }, dataset: { id: datasets.id, sha256: datasets.sha256, originalFilename: datasets.originalFilename, rows: datasets.rows }, createdByName: users.name })
+    .select({
+      analysis: analyses,
+      job: { id: jobs.id, reference: jobs.reference, status: jobs.status },
+      dataset: {
+        id: datasets.id,
+        sha256: datasets.sha256,
+        originalFilename: datasets.originalFilename,
+        rows: datasets.rows,
+      },
+      createdByName: users.name,
+    })
     .from(analyses)
     .innerJoin(jobs, eq(jobs.id, analyses.jobId))
     .innerJoin(datasets, eq(datasets.id, analyses.datasetId))
@@ -256,7 +341,9 @@ export async function getApprovedAnalysis(actor: Actor, jobId: string) {
   if (!last) return null;
   const a = await getAnalysis(actor, last.entityId);
   if (!a) return null;
-  const [by] = last.actorId ? await db.select({ name: users.name }).from(users).where(eq(users.id, last.actorId)) : [];
+  const [by] = last.actorId
+    ? await db.select({ name: users.name }).from(users).where(eq(users.id, last.actorId))
+    : [];
   return { detail: a, approvedAt: last.at, approvedBy: by?.name ?? last.actorEmail };
 }
 
@@ -268,14 +355,24 @@ export async function getApprovedAnalysis(actor: Actor, jobId: string) {
 export async function approveAnalysis(actor: Actor, analysisId: string) {
   const a = await getAnalysis(actor, analysisId);
   if (!a) throw notFound("analysis");
-  if (actor.role !== "engineer") throw forbidden("Only an application engineer approves a head's parameters.");
+  if (actor.role !== "engineer")
+    throw forbidden("Only an application engineer approves a head's parameters.");
   const status = a.job.status;
   if (!canTransition(actor.role, status, "approved")) {
-    throw new AppError(409, "not_in_review", `The job is ${STATUS_LABELS[status].toLowerCase()}; parameters are approved once the installer has submitted it for review.`);
+    throw new AppError(
+      409,
+      "not_in_review",
+      `The job is ${STATUS_LABELS[status].toLowerCase()}; parameters are approved once the installer has submitted it for review.`,
+    );
   }
   return db.transaction(async (tx) => {
-    const [locked] = await tx.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, a.job.id)).for("update");
-    if (locked?.status !== status) throw new AppError(409, "conflict", "The job changed meanwhile; open it again.");
+    const [locked] = await tx
+      .select({ status: jobs.status })
+      .from(jobs)
+      .where(eq(jobs.id, a.job.id))
+      .for("update");
+    if (locked?.status !== status)
+      throw new AppError(409, "conflict", "The job changed meanwhile; open it again.");
     await tx.update(jobs).set({ status: "approved", updatedAt: new Date() }).where(eq(jobs.id, a.job.id));
     const fit = a.analysis.result.fit;
     await appendAudit(tx, {
@@ -285,7 +382,11 @@ export async function approveAnalysis(actor: Actor, analysisId: string) {
       entityType: "analysis",
       entityId: a.analysis.id,
       jobId: a.job.id,
-      newValues: { inputSha256: a.analysis.inputSha256, geometryVersion: a.analysis.geometryVersion, parameters: Object.fromEntries(fit.parameters.map((p) => [p.key, p.value])) },
+      newValues: {
+        inputSha256: a.analysis.inputSha256,
+        geometryVersion: a.analysis.geometryVersion,
+        parameters: Object.fromEntries(fit.parameters.map((p) => [p.key, p.value])),
+      },
     });
     await appendAudit(tx, {
       actorId: actor.id,

@@ -78,11 +78,21 @@ export function viewJson(v: ViewRow) {
  * range or an overlay fit of another job; 413 over VIEW_MAX_BYTES. The object is written first and
  * removed again if the row cannot be stored, so nothing half-saved remains.
  */
-export async function saveAnalysisView(actor: Actor, analysisId: string, input: SaveViewInput): Promise<ViewRow> {
+export async function saveAnalysisView(
+  actor: Actor,
+  analysisId: string,
+  input: SaveViewInput,
+): Promise<ViewRow> {
   const a = await getAnalysis(actor, analysisId);
   if (!a) throw notFound("analysis");
-  if (actor.role !== "engineer") throw forbidden("Only an application engineer saves views of a fit for the report.");
-  if (input.png.length > VIEW_MAX_BYTES) throw new AppError(413, "too_large", `The picture is larger than the limit of ${VIEW_MAX_BYTES / (1024 * 1024)} MiB.`);
+  if (actor.role !== "engineer")
+    throw forbidden("Only an application engineer saves views of a fit for the report.");
+  if (input.png.length > VIEW_MAX_BYTES)
+    throw new AppError(
+      413,
+      "too_large",
+      `The picture is larger than the limit of ${VIEW_MAX_BYTES / (1024 * 1024)} MiB.`,
+    );
   let info;
   try {
     info = readPngInfo(input.png);
@@ -91,14 +101,26 @@ export async function saveAnalysisView(actor: Actor, analysisId: string, input: 
     throw e;
   }
   if (!Number.isFinite(input.factor) || input.factor < 1 || input.factor > VIEW_MAX_FACTOR) {
-    throw invalid(`The exaggeration factor must be a number from 1 to ${VIEW_MAX_FACTOR}.`, [{ field: "factor", message: `got ${input.factor}` }]);
+    throw invalid(`The exaggeration factor must be a number from 1 to ${VIEW_MAX_FACTOR}.`, [
+      { field: "factor", message: `got ${input.factor}` },
+    ]);
   }
   const caption = input.caption?.trim() || null;
-  if (caption && caption.length > VIEW_CAPTION_MAX) throw invalid(`The caption is longer than ${VIEW_CAPTION_MAX} characters.`, [{ field: "caption", message: `${caption.length} characters` }]);
+  if (caption && caption.length > VIEW_CAPTION_MAX)
+    throw invalid(`The caption is longer than ${VIEW_CAPTION_MAX} characters.`, [
+      { field: "caption", message: `${caption.length} characters` },
+    ]);
   if (input.overlayAnalysisId) {
-    const [o] = UUID.test(input.overlayAnalysisId) ? await db.select({ jobId: analyses.jobId }).from(analyses).where(eq(analyses.id, input.overlayAnalysisId)) : [];
+    const [o] = UUID.test(input.overlayAnalysisId)
+      ? await db
+          .select({ jobId: analyses.jobId })
+          .from(analyses)
+          .where(eq(analyses.id, input.overlayAnalysisId))
+      : [];
     if (!o || o.jobId !== a.job.id || input.overlayAnalysisId === analysisId) {
-      throw invalid("The overlaid fit must be another fit of the same job.", [{ field: "overlayAnalysisId", message: "not another fit of this job" }]);
+      throw invalid("The overlaid fit must be another fit of the same job.", [
+        { field: "overlayAnalysisId", message: "not another fit of this job" },
+      ]);
     }
   }
 
@@ -110,7 +132,19 @@ export async function saveAnalysisView(actor: Actor, analysisId: string, input: 
     const id = await db.transaction(async (tx) => {
       const [row] = await tx
         .insert(analysisViews)
-        .values({ jobId: a.job.id, analysisId, overlayAnalysisId: input.overlayAnalysisId, storageKey: key, sha256, sizeBytes: input.png.length, widthPx: info.widthPx, heightPx: info.heightPx, factor: input.factor, caption, createdById: actor.id })
+        .values({
+          jobId: a.job.id,
+          analysisId,
+          overlayAnalysisId: input.overlayAnalysisId,
+          storageKey: key,
+          sha256,
+          sizeBytes: input.png.length,
+          widthPx: info.widthPx,
+          heightPx: info.heightPx,
+          factor: input.factor,
+          caption,
+          createdById: actor.id,
+        })
         .returning({ id: analysisViews.id });
       await appendAudit(tx, {
         actorId: actor.id,
@@ -119,7 +153,16 @@ export async function saveAnalysisView(actor: Actor, analysisId: string, input: 
         entityType: "analysis_view",
         entityId: row!.id,
         jobId: a.job.id,
-        newValues: { analysisId, overlayAnalysisId: input.overlayAnalysisId, sha256, sizeBytes: input.png.length, widthPx: info.widthPx, heightPx: info.heightPx, factor: input.factor, caption },
+        newValues: {
+          analysisId,
+          overlayAnalysisId: input.overlayAnalysisId,
+          sha256,
+          sizeBytes: input.png.length,
+          widthPx: info.widthPx,
+          heightPx: info.heightPx,
+          factor: input.factor,
+          caption,
+        },
       });
       return row!.id;
     });
@@ -132,7 +175,12 @@ export async function saveAnalysisView(actor: Actor, analysisId: string, input: 
 }
 
 function selectViews() {
-  return db.select(viewColumns).from(analysisViews).innerJoin(jobs, eq(jobs.id, analysisViews.jobId)).leftJoin(users, eq(users.id, analysisViews.createdById)).$dynamic();
+  return db
+    .select(viewColumns)
+    .from(analysisViews)
+    .innerJoin(jobs, eq(jobs.id, analysisViews.jobId))
+    .leftJoin(users, eq(users.id, analysisViews.createdById))
+    .$dynamic();
 }
 
 /** Views of one analysis, newest first; null when the actor may not see the analysis. */
@@ -160,7 +208,10 @@ export async function listJobViews(actor: Actor, jobId: string) {
 }
 
 /** One view's PNG for anyone who may see its job; null otherwise (also for a malformed id or a missing object). */
-export async function getViewImage(actor: Actor, viewId: string): Promise<{ view: ViewRow; png: Buffer } | null> {
+export async function getViewImage(
+  actor: Actor,
+  viewId: string,
+): Promise<{ view: ViewRow; png: Buffer } | null> {
   if (!UUID.test(viewId)) return null;
   const [row] = await db
     .select({ ...viewColumns, storageKey: analysisViews.storageKey })

@@ -44,7 +44,11 @@ export function auditHash(prevHash: string, e: AuditInput & { at: Date }): strin
  */
 export async function appendAudit(tx: Executor, input: AuditInput): Promise<void> {
   await tx.execute(sql`select pg_advisory_xact_lock(${AUDIT_CHAIN_LOCK})`);
-  const [last] = await tx.select({ hash: auditEvents.hash }).from(auditEvents).orderBy(desc(auditEvents.id)).limit(1);
+  const [last] = await tx
+    .select({ hash: auditEvents.hash })
+    .from(auditEvents)
+    .orderBy(desc(auditEvents.id))
+    .limit(1);
   const prevHash = last?.hash ?? AUDIT_GENESIS;
   // Millisecond precision, so the stored timestamp hashes the same when read back.
   const at = new Date(Math.floor(Date.now()));
@@ -65,7 +69,9 @@ export async function appendAudit(tx: Executor, input: AuditInput): Promise<void
 }
 
 /** Checks the whole chain; returns the id of the first event whose link is broken, or null. */
-export async function verifyAuditChain(tx: Executor): Promise<{ checked: number; firstBrokenId: number | null }> {
+export async function verifyAuditChain(
+  tx: Executor,
+): Promise<{ checked: number; firstBrokenId: number | null }> {
   const rows = await tx.select().from(auditEvents).orderBy(asc(auditEvents.id));
   let prev = AUDIT_GENESIS;
   for (const r of rows) {

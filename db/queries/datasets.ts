@@ -9,7 +9,12 @@ import type { Actor, JobStatus, Role } from "@/lib/auth/roles";
 import { AppError, forbidden, notFound } from "@/lib/errors";
 import { datasetObjectKey, getStorage } from "@/lib/storage";
 import type { UploadedFile } from "@/lib/storage/multipart";
-import { bytesToColumn, columnToBytes, type ParsedDataset, type UploadForm } from "@/lib/storage/parse-dataset";
+import {
+  bytesToColumn,
+  columnToBytes,
+  type ParsedDataset,
+  type UploadForm,
+} from "@/lib/storage/parse-dataset";
 
 /** Who may upload to a job they can see (installers only see their assigned jobs). */
 export const UPLOAD_ROLES: readonly Role[] = ["admin", "installer", "inspector", "engineer"];
@@ -36,7 +41,11 @@ export async function requireUploadableJob(actor: Actor, jobId: string) {
   if (!d) throw notFound("job");
   if (!UPLOAD_ROLES.includes(actor.role)) throw forbidden("Your role may not upload data.");
   if (!UPLOAD_STATUSES.includes(d.job.status)) {
-    throw new AppError(409, "job_closed", `Data can be added while the job is draft, measuring or in review; this job is ${d.job.status.replace("_", " ")}.`);
+    throw new AppError(
+      409,
+      "job_closed",
+      `Data can be added while the job is draft, measuring or in review; this job is ${d.job.status.replace("_", " ")}.`,
+    );
   }
   return d;
 }
@@ -46,7 +55,13 @@ export async function requireUploadableJob(actor: Actor, jobId: string) {
  * row, its columns and the audit event in one transaction. If the transaction fails the object is
  * removed again, so a failed upload leaves nothing behind.
  */
-export async function insertDataset(actor: Actor, jobId: string, form: UploadForm, file: UploadedFile, parsed: ParsedDataset) {
+export async function insertDataset(
+  actor: Actor,
+  jobId: string,
+  form: UploadForm,
+  file: UploadedFile,
+  parsed: ParsedDataset,
+) {
   const storage = getStorage();
   const key = datasetObjectKey(jobId);
   await storage.put(key, file.data, { contentType: "text/csv", sha256: file.sha256 });
@@ -72,7 +87,9 @@ export async function insertDataset(actor: Actor, jobId: string, form: UploadFor
         })
         .returning();
       for (const c of parsed.columns) {
-        await tx.insert(datasetColumns).values({ datasetId: row!.id, name: c.name, unit: c.unit, data: columnToBytes(c.values) });
+        await tx
+          .insert(datasetColumns)
+          .values({ datasetId: row!.id, name: c.name, unit: c.unit, data: columnToBytes(c.values) });
       }
       await appendAudit(tx, {
         actorId: actor.id,
@@ -81,7 +98,14 @@ export async function insertDataset(actor: Actor, jobId: string, form: UploadFor
         entityType: "dataset",
         entityId: row!.id,
         jobId,
-        newValues: { kind: row!.kind, phase: row!.phase, rows: row!.rows, sha256: row!.sha256, filename: row!.originalFilename, units: parsed.units },
+        newValues: {
+          kind: row!.kind,
+          phase: row!.phase,
+          rows: row!.rows,
+          sha256: row!.sha256,
+          filename: row!.originalFilename,
+          units: parsed.units,
+        },
       });
       return row!;
     });
@@ -152,7 +176,11 @@ export async function listDatasets(actor: Actor, jobId: string): Promise<Dataset
 export async function getDataset(actor: Actor, datasetId: string) {
   if (!UUID.test(datasetId)) return null;
   const [row] = await db
-    .select({ dataset: datasets, job: { id: jobs.id, reference: jobs.reference, status: jobs.status, decisionRule: jobs.decisionRule }, uploaderName: users.name })
+    .select({
+      dataset: datasets,
+      job: { id: jobs.id, reference: jobs.reference, status: jobs.status, decisionRule: jobs.decisionRule },
+      uploaderName: users.name,
+    })
     .from(datasets)
     .innerJoin(jobs, eq(jobs.id, datasets.jobId))
     .leftJoin(users, eq(users.id, datasets.uploadedById))
@@ -196,7 +224,10 @@ export async function getDatasetOriginal(actor: Actor, datasetId: string) {
 }
 
 /** Stored columns of a dataset (SI-based units), by name. */
-export async function getDatasetColumns(actor: Actor, datasetId: string): Promise<Map<string, { unit: string; values: Float64Array }> | null> {
+export async function getDatasetColumns(
+  actor: Actor,
+  datasetId: string,
+): Promise<Map<string, { unit: string; values: Float64Array }> | null> {
   const d = await getDataset(actor, datasetId);
   if (!d) return null;
   const rows = await db.select().from(datasetColumns).where(eq(datasetColumns.datasetId, datasetId));
@@ -208,9 +239,14 @@ export async function deleteDataset(actor: Actor, datasetId: string) {
   const d = await getDataset(actor, datasetId);
   if (!d) throw notFound("dataset");
   if (!UPLOAD_ROLES.includes(actor.role)) throw forbidden("Your role may not delete data.");
-  if (d.dataset.status === "deleted") throw new AppError(409, "already_deleted", "This dataset is already deleted.");
+  if (d.dataset.status === "deleted")
+    throw new AppError(409, "already_deleted", "This dataset is already deleted.");
   if (!DELETE_STATUSES.includes(d.job.status)) {
-    throw new AppError(409, "job_closed", "Data can be deleted only before review, while the job is draft or measuring.");
+    throw new AppError(
+      409,
+      "job_closed",
+      "Data can be deleted only before review, while the job is draft or measuring.",
+    );
   }
   return db.transaction(async (tx) => {
     const [row] = await tx

@@ -11,7 +11,8 @@ import { forbidden, invalid, notFound } from "@/lib/errors";
 
 /** One head with where it is mounted now and its mounting history (from the audit trail). */
 export async function getHeadWithHistory(actor: Actor, headId: string) {
-  if (!canReadRegister(actor.role, "heads")) throw forbidden("The heads register is kept by the service company.");
+  if (!canReadRegister(actor.role, "heads"))
+    throw forbidden("The heads register is kept by the service company.");
   if (!/^[0-9a-f-]{36}$/i.test(headId)) return null;
   const [row] = await db
     .select({ head: heads, machineName: machines.name, siteName: sites.name, customerName: customers.name })
@@ -21,7 +22,11 @@ export async function getHeadWithHistory(actor: Actor, headId: string) {
     .leftJoin(customers, eq(customers.id, sites.customerId))
     .where(eq(heads.id, headId));
   if (!row) return null;
-  const history = await db.select().from(auditEvents).where(and(eq(auditEvents.entityType, "head"), eq(auditEvents.entityId, headId))).orderBy(asc(auditEvents.id));
+  const history = await db
+    .select()
+    .from(auditEvents)
+    .where(and(eq(auditEvents.entityType, "head"), eq(auditEvents.entityId, headId)))
+    .orderBy(asc(auditEvents.id));
   return { ...row, history };
 }
 
@@ -32,15 +37,30 @@ export async function mountHead(actor: Actor, headId: string, machineId: string 
   if (!h) throw notFound("head");
   let label = "not mounted";
   if (machineId) {
-    const [m] = await db.select({ name: machines.name, site: sites.name, customer: customers.name }).from(machines).innerJoin(sites, eq(sites.id, machines.siteId)).innerJoin(customers, eq(customers.id, sites.customerId)).where(eq(machines.id, machineId));
+    const [m] = await db
+      .select({ name: machines.name, site: sites.name, customer: customers.name })
+      .from(machines)
+      .innerJoin(sites, eq(sites.id, machines.siteId))
+      .innerJoin(customers, eq(customers.id, sites.customerId))
+      .where(eq(machines.id, machineId));
     if (!m) throw invalid("Choose a host machine.", [{ field: "machineId", message: "No such machine." }]);
     label = `${m.name} (${m.customer}, ${m.site})`;
   }
   if (h.machineId === machineId) return { changed: false };
-  const [old] = h.machineId ? await db.select({ name: machines.name }).from(machines).where(eq(machines.id, h.machineId)) : [];
+  const [old] = h.machineId
+    ? await db.select({ name: machines.name }).from(machines).where(eq(machines.id, h.machineId))
+    : [];
   await db.transaction(async (tx) => {
     await tx.update(heads).set({ machineId }).where(eq(heads.id, headId));
-    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: machineId ? "head.mounted" : "head.removed", entityType: "head", entityId: headId, oldValues: { machineId: h.machineId, machine: old?.name ?? null }, newValues: { machineId, machine: label } });
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: machineId ? "head.mounted" : "head.removed",
+      entityType: "head",
+      entityId: headId,
+      oldValues: { machineId: h.machineId, machine: old?.name ?? null },
+      newValues: { machineId, machine: label },
+    });
   });
   return { changed: true };
 }
@@ -75,12 +95,21 @@ export interface HeadHistoryJob {
  */
 export async function getHeadFitHistory(actor: Actor, headId: string) {
   const staff = canReadRegister(actor.role, "heads");
-  if (!canReadHeadHistory(actor.role)) throw forbidden("The history of a head is read by engineers, the office and the head's owner.");
+  if (!canReadHeadHistory(actor.role))
+    throw forbidden("The history of a head is read by engineers, the office and the head's owner.");
   if (!/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(headId)) return null;
   const [head] = await db.select().from(heads).where(eq(heads.id, headId));
   if (!head) return null;
   const jobRows = await db
-    .select({ id: jobs.id, reference: jobs.reference, title: jobs.title, kind: jobs.kind, status: jobs.status, scheduledFor: jobs.scheduledFor, createdAt: jobs.createdAt })
+    .select({
+      id: jobs.id,
+      reference: jobs.reference,
+      title: jobs.title,
+      kind: jobs.kind,
+      status: jobs.status,
+      scheduledFor: jobs.scheduledFor,
+      createdAt: jobs.createdAt,
+    })
     .from(jobs)
     .where(and(eq(jobs.headId, headId), jobAccessCondition(actor)));
   if (!staff && jobRows.length === 0) return null;
@@ -88,7 +117,15 @@ export async function getHeadFitHistory(actor: Actor, headId: string) {
   const [fits, approvals] = ids.length
     ? await Promise.all([
         db
-          .select({ id: analyses.id, jobId: analyses.jobId, createdAt: analyses.createdAt, result: analyses.result, geometryVersion: analyses.geometryVersion, datasetFilename: datasets.originalFilename, phase: datasets.phase })
+          .select({
+            id: analyses.id,
+            jobId: analyses.jobId,
+            createdAt: analyses.createdAt,
+            result: analyses.result,
+            geometryVersion: analyses.geometryVersion,
+            datasetFilename: datasets.originalFilename,
+            phase: datasets.phase,
+          })
           .from(analyses)
           .innerJoin(datasets, eq(datasets.id, analyses.datasetId))
           .where(inArray(analyses.jobId, ids))
@@ -114,7 +151,17 @@ export async function getHeadFitHistory(actor: Actor, headId: string) {
         kind: j.kind,
         status: j.status,
         date: j.scheduledFor ?? j.createdAt,
-        fit: f ? { analysisId: f.id, approved: f.id === approvedId, createdAt: f.createdAt, datasetFilename: f.datasetFilename, phase: f.phase, geometryVersion: f.geometryVersion, fit: (f.result as StoredHeadFit).fit } : null,
+        fit: f
+          ? {
+              analysisId: f.id,
+              approved: f.id === approvedId,
+              createdAt: f.createdAt,
+              datasetFilename: f.datasetFilename,
+              phase: f.phase,
+              geometryVersion: f.geometryVersion,
+              fit: (f.result as StoredHeadFit).fit,
+            }
+          : null,
       };
     })
     .sort((a, b) => a.date.getTime() - b.date.getTime() || a.reference.localeCompare(b.reference));
@@ -126,7 +173,15 @@ export type HeadFitHistory = NonNullable<Awaited<ReturnType<typeof getHeadFitHis
 export function headHistoryJson(h: HeadFitHistory) {
   const { head } = h;
   return {
-    head: { id: head.id, serial: head.serial, maker: head.maker, model: head.model, primaryAxis: head.primaryAxis, secondaryAxis: head.secondaryAxis, nominalPivotLengthMm: head.nominalPivotLengthMm },
+    head: {
+      id: head.id,
+      serial: head.serial,
+      maker: head.maker,
+      model: head.model,
+      primaryAxis: head.primaryAxis,
+      secondaryAxis: head.secondaryAxis,
+      nominalPivotLengthMm: head.nominalPivotLengthMm,
+    },
     jobs: h.jobs.map((j) => ({
       id: j.id,
       reference: j.reference,
@@ -143,7 +198,14 @@ export function headHistoryJson(h: HeadFitHistory) {
             phase: j.fit.phase,
             geometryVersion: j.fit.geometryVersion,
             rms_um: j.fit.fit.rms_um,
-            parameters: j.fit.fit.parameters.map((p) => ({ key: p.key, iso: p.iso, value: p.value, U: p.U, unit: p.unit, identifiable: p.identifiable })),
+            parameters: j.fit.fit.parameters.map((p) => ({
+              key: p.key,
+              iso: p.iso,
+              value: p.value,
+              U: p.U,
+              unit: p.unit,
+              identifiable: p.identifiable,
+            })),
           }
         : null,
     })),

@@ -10,15 +10,25 @@ import { toCanonical } from "@/lib/units";
 import type { instrumentCreateSchema } from "@/lib/validations/registers";
 
 export async function listInstruments(actor: Actor) {
-  if (!canReadRegisterOf(actor.role, "instruments")) throw forbidden("The instrument register is kept by the service company.");
-  return db.select().from(instruments).orderBy(asc(instruments.retired), asc(instruments.kind), asc(instruments.serial));
+  if (!canReadRegisterOf(actor.role, "instruments"))
+    throw forbidden("The instrument register is kept by the service company.");
+  return db
+    .select()
+    .from(instruments)
+    .orderBy(asc(instruments.retired), asc(instruments.kind), asc(instruments.serial));
 }
 
 /** Adds an instrument (administrator), resolution and uncertainty converted to mm or arcsec; audited. */
 export async function createInstrument(actor: Actor, input: z.infer<typeof instrumentCreateSchema>) {
   if (actor.role !== "admin") throw forbidden("Instruments are registered by the administrator.");
-  const [dupe] = await db.select({ id: instruments.id }).from(instruments).where(eq(instruments.serial, input.serial));
-  if (dupe) throw invalid("An instrument with that serial is already registered.", [{ field: "serial", message: "Already registered." }]);
+  const [dupe] = await db
+    .select({ id: instruments.id })
+    .from(instruments)
+    .where(eq(instruments.serial, input.serial));
+  if (dupe)
+    throw invalid("An instrument with that serial is already registered.", [
+      { field: "serial", message: "Already registered." },
+    ]);
   return db.transaction(async (tx) => {
     const [row] = await tx
       .insert(instruments)
@@ -34,7 +44,14 @@ export async function createInstrument(actor: Actor, input: z.infer<typeof instr
         certificateRef: input.certificateRef || null,
       })
       .returning();
-    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: "instrument.created", entityType: "instrument", entityId: row!.id, newValues: { serial: row!.serial, kind: row!.kind, calibrationDueOn: row!.calibrationDueOn } });
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: "instrument.created",
+      entityType: "instrument",
+      entityId: row!.id,
+      newValues: { serial: row!.serial, kind: row!.kind, calibrationDueOn: row!.calibrationDueOn },
+    });
     return row!;
   });
 }

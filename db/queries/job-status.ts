@@ -20,23 +20,54 @@ const SIGNED_MOVES: readonly JobStatus[] = ["issued", "accepted", "rejected"];
 export async function changeJobStatus(actor: Actor, jobId: string, to: JobStatus) {
   const d = await getJobDetail(actor, jobId);
   if (!d) throw notFound("job");
-  if (SIGNED_MOVES.includes(to)) throw forbidden("Issuing, accepting and rejecting are signed on the job's report page.");
+  if (SIGNED_MOVES.includes(to))
+    throw forbidden("Issuing, accepting and rejecting are signed on the job's report page.");
   if (!canTransition(actor.role, d.job.status, to)) {
-    throw forbidden(`A ${actor.role} may not move a job from ${STATUS_LABELS[d.job.status].toLowerCase()} to ${STATUS_LABELS[to].toLowerCase()}.`);
+    throw forbidden(
+      `A ${actor.role} may not move a job from ${STATUS_LABELS[d.job.status].toLowerCase()} to ${STATUS_LABELS[to].toLowerCase()}.`,
+    );
   }
   // A job with sphere-probe data is approved by approving its fitted parameters (Analysis tab),
   // so the approval always names the parameter set the control will be given.
   if (to === "approved") {
-    const probe = await db.select({ id: datasets.id }).from(datasets).where(and(eq(datasets.jobId, d.job.id), eq(datasets.kind, "sphere_probe"), eq(datasets.status, "stored"))).limit(1);
-    if (probe.length > 0) throw forbidden("This job has sphere-probe data: approve its fitted head parameters on the Analysis tab.");
+    const probe = await db
+      .select({ id: datasets.id })
+      .from(datasets)
+      .where(
+        and(eq(datasets.jobId, d.job.id), eq(datasets.kind, "sphere_probe"), eq(datasets.status, "stored")),
+      )
+      .limit(1);
+    if (probe.length > 0)
+      throw forbidden(
+        "This job has sphere-probe data: approve its fitted head parameters on the Analysis tab.",
+      );
   }
-  const reviewers = to === "in_review" ? await db.select({ id: users.id, email: users.email, name: users.name }).from(users).where(and(inArray(users.role, ["engineer", "inspector"]), eq(users.disabled, false))) : [];
+  const reviewers =
+    to === "in_review"
+      ? await db
+          .select({ id: users.id, email: users.email, name: users.name })
+          .from(users)
+          .where(and(inArray(users.role, ["engineer", "inspector"]), eq(users.disabled, false)))
+      : [];
   return db.transaction(async (tx) => {
-    const [locked] = await tx.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, d.job.id)).for("update");
+    const [locked] = await tx
+      .select({ status: jobs.status })
+      .from(jobs)
+      .where(eq(jobs.id, d.job.id))
+      .for("update");
     if (locked?.status !== d.job.status) throw invalid("The job changed meanwhile; open it again.");
     const at = new Date();
     await tx.update(jobs).set({ status: to, updatedAt: at }).where(eq(jobs.id, d.job.id));
-    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: "job.status_changed", entityType: "job", entityId: d.job.id, jobId: d.job.id, oldValues: { status: d.job.status }, newValues: { status: to } });
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: "job.status_changed",
+      entityType: "job",
+      entityId: d.job.id,
+      jobId: d.job.id,
+      oldValues: { status: d.job.status },
+      newValues: { status: to },
+    });
     for (const r of reviewers) {
       await enqueueMail(tx, {
         dedupeKey: `review:${d.job.id}:${at.getTime()}:${r.id}`,
@@ -66,27 +97,67 @@ export interface JobCreateInput {
  * TR-<year>-<nnnn>. Audited.
  */
 export async function createJobFromTemplate(actor: Actor, input: JobCreateInput) {
-  if (actor.role !== "admin" && actor.role !== "engineer") throw forbidden("Jobs are opened by the office (administrator or engineer).");
+  if (actor.role !== "admin" && actor.role !== "engineer")
+    throw forbidden("Jobs are opened by the office (administrator or engineer).");
   const [t] = await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, input.templateId));
   if (!t) throw invalid("Choose a procedure.", [{ field: "templateId", message: "No such procedure." }]);
-  const [m] = await db.select({ id: machines.id, customerId: sites.customerId }).from(machines).innerJoin(sites, eq(sites.id, machines.siteId)).where(eq(machines.id, input.machineId));
+  const [m] = await db
+    .select({ id: machines.id, customerId: sites.customerId })
+    .from(machines)
+    .innerJoin(sites, eq(sites.id, machines.siteId))
+    .where(eq(machines.id, input.machineId));
   if (!m) throw invalid("Choose a host machine.", [{ field: "machineId", message: "No such machine." }]);
   const [h] = await db.select({ id: heads.id }).from(heads).where(eq(heads.id, input.headId));
   if (!h) throw invalid("Choose a head.", [{ field: "headId", message: "No such head." }]);
   if (input.assignedInstallerId) {
-    const [u] = await db.select({ role: users.role, disabled: users.disabled }).from(users).where(eq(users.id, input.assignedInstallerId));
-    if (!u || u.role !== "installer" || u.disabled) throw invalid("Assign an active installer.", [{ field: "assignedInstallerId", message: "Not an active installer." }]);
+    const [u] = await db
+      .select({ role: users.role, disabled: users.disabled })
+      .from(users)
+      .where(eq(users.id, input.assignedInstallerId));
+    if (!u || u.role !== "installer" || u.disabled)
+      throw invalid("Assign an active installer.", [
+        { field: "assignedInstallerId", message: "Not an active installer." },
+      ]);
   }
   return db.transaction(async (tx) => {
     await tx.execute(sql`select pg_advisory_xact_lock(724003)`);
     const year = new Date().getUTCFullYear();
-    const [{ n } = { n: 0 }] = await tx.select({ n: sql<number>`coalesce(max(substring(${jobs.reference} from '^TR-${sql.raw(String(year))}-(\\d+)$')::int), 0)` }).from(jobs);
+    const [{ n } = { n: 0 }] = await tx
+      .select({
+        n: sql<number>`coalesce(max(substring(${jobs.reference} from '^TR-${sql.raw(String(year))}-(\\d+)$')::int), 0)`,
+      })
+      .from(jobs);
     const reference = `TR-${year}-${String(Number(n) + 1).padStart(4, "0")}`;
     const [row] = await tx
       .insert(jobs)
-      .values({ reference, title: input.title, kind: input.kind, status: "draft", customerId: m.customerId, machineId: m.id, headId: h.id, assignedInstallerId: input.assignedInstallerId ?? null, decisionRule: input.decisionRule, templateId: t.id, createdById: actor.id })
+      .values({
+        reference,
+        title: input.title,
+        kind: input.kind,
+        status: "draft",
+        customerId: m.customerId,
+        machineId: m.id,
+        headId: h.id,
+        assignedInstallerId: input.assignedInstallerId ?? null,
+        decisionRule: input.decisionRule,
+        templateId: t.id,
+        createdById: actor.id,
+      })
       .returning();
-    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: "job.created", entityType: "job", entityId: row!.id, jobId: row!.id, newValues: { reference, status: "draft", template: `${t.name} v${t.version}`, assignedInstallerId: row!.assignedInstallerId } });
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: "job.created",
+      entityType: "job",
+      entityId: row!.id,
+      jobId: row!.id,
+      newValues: {
+        reference,
+        status: "draft",
+        template: `${t.name} v${t.version}`,
+        assignedInstallerId: row!.assignedInstallerId,
+      },
+    });
     return row!;
   });
 }

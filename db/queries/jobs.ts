@@ -86,7 +86,13 @@ export async function listJobs(actor: Actor, filters: JobListFilters = {}): Prom
   if (q) {
     const like = `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
     conditions.push(
-      or(ilike(jobs.reference, like), ilike(jobs.title, like), ilike(customers.name, like), ilike(machines.name, like), ilike(heads.serial, like)),
+      or(
+        ilike(jobs.reference, like),
+        ilike(jobs.title, like),
+        ilike(customers.name, like),
+        ilike(machines.name, like),
+        ilike(heads.serial, like),
+      ),
     );
   }
   const sortColumn = {
@@ -97,7 +103,8 @@ export async function listJobs(actor: Actor, filters: JobListFilters = {}): Prom
     machine: machines.name,
     updated: jobs.updatedAt,
   }[filters.sort ?? "updated"];
-  const order = (filters.dir ?? (filters.sort ? "asc" : "desc")) === "asc" ? asc(sortColumn) : desc(sortColumn);
+  const order =
+    (filters.dir ?? (filters.sort ? "asc" : "desc")) === "asc" ? asc(sortColumn) : desc(sortColumn);
   return baseJobQuery()
     .where(and(...conditions))
     .orderBy(order, asc(jobs.reference))
@@ -143,7 +150,15 @@ export function jobDetailJson(d: JobDetail) {
     updatedAt: d.job.updatedAt,
     customer: d.customer,
     site: d.site,
-    machine: { id: d.machine.id, name: d.machine.name, builder: d.machine.builder, model: d.machine.model, serial: d.machine.serial, kind: d.machine.kind, control: d.machine.control },
+    machine: {
+      id: d.machine.id,
+      name: d.machine.name,
+      builder: d.machine.builder,
+      model: d.machine.model,
+      serial: d.machine.serial,
+      kind: d.machine.kind,
+      control: d.machine.control,
+    },
     head: {
       id: d.head.id,
       serial: d.head.serial,

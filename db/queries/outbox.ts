@@ -22,7 +22,13 @@ export interface MailInput {
 export async function enqueueMail(tx: Executor, m: MailInput): Promise<void> {
   await tx
     .insert(outbox)
-    .values({ dedupeKey: m.dedupeKey, toAddress: m.to, subject: m.subject, textBody: m.text, jobId: m.jobId ?? null })
+    .values({
+      dedupeKey: m.dedupeKey,
+      toAddress: m.to,
+      subject: m.subject,
+      textBody: m.text,
+      jobId: m.jobId ?? null,
+    })
     .onConflictDoNothing({ target: outbox.dedupeKey });
 }
 
@@ -53,14 +59,25 @@ export async function claimDueMessages(limit: number) {
     if (due.length === 0) return [];
     return tx
       .update(outbox)
-      .set({ attempts: sql`${outbox.attempts} + 1`, nextAttemptAt: sql`now() + make_interval(secs => ${CLAIM_LEASE_MS / 1000})` })
-      .where(inArray(outbox.id, due.map((d) => d.id)))
+      .set({
+        attempts: sql`${outbox.attempts} + 1`,
+        nextAttemptAt: sql`now() + make_interval(secs => ${CLAIM_LEASE_MS / 1000})`,
+      })
+      .where(
+        inArray(
+          outbox.id,
+          due.map((d) => d.id),
+        ),
+      )
       .returning();
   });
 }
 
 export async function markSent(id: string): Promise<void> {
-  await db.update(outbox).set({ status: "sent", sentAt: new Date(), lastError: null }).where(eq(outbox.id, id));
+  await db
+    .update(outbox)
+    .set({ status: "sent", sentAt: new Date(), lastError: null })
+    .where(eq(outbox.id, id));
 }
 
 /** A failed send: retry later with exponential backoff, or give up after MAX_ATTEMPTS. */
@@ -68,7 +85,11 @@ export async function markFailed(id: string, attempts: number, error: string): P
   const giveUp = attempts >= MAX_ATTEMPTS;
   await db
     .update(outbox)
-    .set({ status: giveUp ? "failed" : "pending", lastError: error.slice(0, 1000), nextAttemptAt: sql`now() + make_interval(secs => ${retryDelayMs(attempts) / 1000})` })
+    .set({
+      status: giveUp ? "failed" : "pending",
+      lastError: error.slice(0, 1000),
+      nextAttemptAt: sql`now() + make_interval(secs => ${retryDelayMs(attempts) / 1000})`,
+    })
     .where(eq(outbox.id, id));
 }
 

@@ -14,7 +14,11 @@ import type { ParameterLimit } from "@/lib/fit-display";
 /** The limits of a template version (no access check: callers have checked the job or register). */
 export async function parameterLimitsOfTemplate(templateId: string | null): Promise<ParameterLimit[]> {
   if (!templateId) return [];
-  return db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, templateId)).orderBy(asc(templateParameterLimits.parameter));
+  return db
+    .select()
+    .from(templateParameterLimits)
+    .where(eq(templateParameterLimits.templateId, templateId))
+    .orderBy(asc(templateParameterLimits.parameter));
 }
 
 /** The parameter limits that apply to a job the actor may see; null when the job is not theirs to see. */

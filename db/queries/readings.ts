@@ -7,7 +7,13 @@ import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
 import { instruments, jobs, procedureTemplates, readings, templateSteps, users } from "@/db/schema";
 import type { Reading, TemplateStep } from "@/db/schema";
 import { readingsRefusal, type Actor } from "@/lib/auth/roles";
-import { calibrationRefusal, deriveReading, expandedUncertainty, judge, type StepDecision } from "@/lib/checklist";
+import {
+  calibrationRefusal,
+  deriveReading,
+  expandedUncertainty,
+  judge,
+  type StepDecision,
+} from "@/lib/checklist";
 import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
 import { CANONICAL_UNIT, toCanonical } from "@/lib/units";
 import type { ReadingCreateInput } from "@/lib/validations/readings";
@@ -22,26 +28,56 @@ async function visibleJob(actor: Actor, jobId: string): Promise<JobDetail> {
 
 export async function listTemplateSteps(templateId: string | null): Promise<TemplateStep[]> {
   if (!templateId) return [];
-  return db.select().from(templateSteps).where(eq(templateSteps.templateId, templateId)).orderBy(asc(templateSteps.position));
+  return db
+    .select()
+    .from(templateSteps)
+    .where(eq(templateSteps.templateId, templateId))
+    .orderBy(asc(templateSteps.position));
 }
 
-export type ReadingRow = Reading & { instrumentSerial: string | null; instrumentKind: string | null; recordedByName: string | null; instrumentStdU: number | null };
+export type ReadingRow = Reading & {
+  instrumentSerial: string | null;
+  instrumentKind: string | null;
+  recordedByName: string | null;
+  instrumentStdU: number | null;
+};
 
 async function jobReadings(jobId: string): Promise<ReadingRow[]> {
   const rows = await db
-    .select({ r: readings, instrumentSerial: instruments.serial, instrumentKind: instruments.kind, instrumentStdU: instruments.standardUncertainty, recordedByName: recorders.name })
+    .select({
+      r: readings,
+      instrumentSerial: instruments.serial,
+      instrumentKind: instruments.kind,
+      instrumentStdU: instruments.standardUncertainty,
+      recordedByName: recorders.name,
+    })
     .from(readings)
     .leftJoin(instruments, eq(instruments.id, readings.instrumentId))
     .leftJoin(recorders, eq(recorders.id, readings.recordedById))
     .where(eq(readings.jobId, jobId))
     .orderBy(asc(readings.takenAt), asc(readings.createdAt));
-  return rows.map((x) => ({ ...x.r, instrumentSerial: x.instrumentSerial, instrumentKind: x.instrumentKind, instrumentStdU: x.instrumentStdU, recordedByName: x.recordedByName }));
+  return rows.map((x) => ({
+    ...x.r,
+    instrumentSerial: x.instrumentSerial,
+    instrumentKind: x.instrumentKind,
+    instrumentStdU: x.instrumentStdU,
+    recordedByName: x.recordedByName,
+  }));
 }
 
 /** Instruments that can be chosen, with their calibration state (expired ones are listed, and refused on save). */
 export async function listUsableInstruments() {
   return db
-    .select({ id: instruments.id, kind: instruments.kind, serial: instruments.serial, quantityKind: instruments.quantityKind, calibrationDueOn: instruments.calibrationDueOn, retired: instruments.retired, resolution: instruments.resolution, standardUncertainty: instruments.standardUncertainty })
+    .select({
+      id: instruments.id,
+      kind: instruments.kind,
+      serial: instruments.serial,
+      quantityKind: instruments.quantityKind,
+      calibrationDueOn: instruments.calibrationDueOn,
+      retired: instruments.retired,
+      resolution: instruments.resolution,
+      standardUncertainty: instruments.standardUncertainty,
+    })
     .from(instruments)
     .where(eq(instruments.retired, false))
     .orderBy(asc(instruments.kind), asc(instruments.serial));
@@ -51,9 +87,22 @@ export async function listUsableInstruments() {
 export async function getChecklist(actor: Actor, jobId: string) {
   const d = await getJobDetail(actor, jobId);
   if (!d) return null;
-  const [template] = d.job.templateId ? await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, d.job.templateId)) : [];
-  const [steps, rs, insts] = await Promise.all([listTemplateSteps(d.job.templateId), jobReadings(d.job.id), listUsableInstruments()]);
-  return { detail: d, template: template ?? null, steps, readings: rs, instruments: insts, refusal: readingsRefusal(actor, d.job) };
+  const [template] = d.job.templateId
+    ? await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, d.job.templateId))
+    : [];
+  const [steps, rs, insts] = await Promise.all([
+    listTemplateSteps(d.job.templateId),
+    jobReadings(d.job.id),
+    listUsableInstruments(),
+  ]);
+  return {
+    detail: d,
+    template: template ?? null,
+    steps,
+    readings: rs,
+    instruments: insts,
+    refusal: readingsRefusal(actor, d.job),
+  };
 }
 
 /** The API's JSON form of a reading: canonical value with its unit, what was entered, and the decision. */
@@ -70,7 +119,9 @@ function readingJson(r: ReadingRow, step: TemplateStep | undefined) {
     inputs: r.inputs,
     expandedUncertainty: U,
     decision: step ? judge(step, r.value, U) : "not_measured",
-    instrument: r.instrumentId ? { id: r.instrumentId, serial: r.instrumentSerial, kind: r.instrumentKind } : null,
+    instrument: r.instrumentId
+      ? { id: r.instrumentId, serial: r.instrumentSerial, kind: r.instrumentKind }
+      : null,
     note: r.note,
     takenAt: r.takenAt,
     recordedBy: r.recordedByName,
@@ -83,7 +134,10 @@ export async function listReadingsJson(actor: Actor, jobId: string) {
   const d = await visibleJob(actor, jobId);
   const [steps, rs] = await Promise.all([listTemplateSteps(d.job.templateId), jobReadings(d.job.id)]);
   const byId = new Map(steps.map((s) => [s.id, s]));
-  return { job: { id: d.job.id, reference: d.job.reference, status: d.job.status }, readings: rs.map((r) => readingJson(r, byId.get(r.stepId))) };
+  return {
+    job: { id: d.job.id, reference: d.job.reference, status: d.job.status },
+    readings: rs.map((r) => readingJson(r, byId.get(r.stepId))),
+  };
 }
 
 /**
@@ -96,13 +150,27 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
   const d = await visibleJob(actor, jobId);
   const refusal = readingsRefusal(actor, d.job);
   if (refusal) throw forbidden(refusal);
-  const [step] = d.job.templateId ? await db.select().from(templateSteps).where(and(eq(templateSteps.id, input.stepId), eq(templateSteps.templateId, d.job.templateId))) : [];
-  if (!step) throw invalid("That step is not part of this job's checklist.", [{ field: "stepId", message: "Not a step of this job's procedure." }]);
+  const [step] = d.job.templateId
+    ? await db
+        .select()
+        .from(templateSteps)
+        .where(and(eq(templateSteps.id, input.stepId), eq(templateSteps.templateId, d.job.templateId)))
+    : [];
+  if (!step)
+    throw invalid("That step is not part of this job's checklist.", [
+      { field: "stepId", message: "Not a step of this job's procedure." },
+    ]);
 
   const takenAt = input.takenAt ?? new Date();
-  if (takenAt.getTime() > Date.now() + 5 * 60_000) throw invalid("A reading cannot be taken in the future.", [{ field: "takenAt", message: "The time is in the future." }]);
+  if (takenAt.getTime() > Date.now() + 5 * 60_000)
+    throw invalid("A reading cannot be taken in the future.", [
+      { field: "takenAt", message: "The time is in the future." },
+    ]);
   const [inst] = await db.select().from(instruments).where(eq(instruments.id, input.instrumentId));
-  if (!inst) throw invalid("That instrument is not in the register.", [{ field: "instrumentId", message: "Choose an instrument from the register." }]);
+  if (!inst)
+    throw invalid("That instrument is not in the register.", [
+      { field: "instrumentId", message: "Choose an instrument from the register." },
+    ]);
   const calib = calibrationRefusal(inst, takenAt);
   if (calib) throw invalid(calib, [{ field: "instrumentId", message: calib }]);
   const readsKind = step.derivation === "angle_over_distance" ? "length" : step.quantityKind;
@@ -122,24 +190,64 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
 
   return db.transaction(async (tx) => {
     // Lock the job row: a submit for review cannot slip between the check and the insert.
-    const [locked] = await tx.select({ status: jobs.status, assignedInstallerId: jobs.assignedInstallerId }).from(jobs).where(eq(jobs.id, d.job.id)).for("update");
+    const [locked] = await tx
+      .select({ status: jobs.status, assignedInstallerId: jobs.assignedInstallerId })
+      .from(jobs)
+      .where(eq(jobs.id, d.job.id))
+      .for("update");
     const again = locked ? readingsRefusal(actor, locked) : "gone";
     if (again) throw forbidden(again);
     let old: Reading | undefined;
     if (input.supersedesId) {
-      [old] = await tx.select().from(readings).where(and(eq(readings.id, input.supersedesId), eq(readings.jobId, d.job.id))).for("update");
-      if (!old) throw invalid("The reading to correct is not on this job.", [{ field: "supersedesId", message: "No such reading on this job." }]);
-      if (old.supersededById) throw new AppError(409, "conflict", "That reading has already been corrected; correct the newest one.");
-      if (old.stepId !== step.id || old.phase !== input.phase) throw invalid("A correction keeps the step and phase of the reading it corrects.", [{ field: "supersedesId", message: "Step or phase differs." }]);
+      [old] = await tx
+        .select()
+        .from(readings)
+        .where(and(eq(readings.id, input.supersedesId), eq(readings.jobId, d.job.id)))
+        .for("update");
+      if (!old)
+        throw invalid("The reading to correct is not on this job.", [
+          { field: "supersedesId", message: "No such reading on this job." },
+        ]);
+      if (old.supersededById)
+        throw new AppError(
+          409,
+          "conflict",
+          "That reading has already been corrected; correct the newest one.",
+        );
+      if (old.stepId !== step.id || old.phase !== input.phase)
+        throw invalid("A correction keeps the step and phase of the reading it corrects.", [
+          { field: "supersedesId", message: "Step or phase differs." },
+        ]);
     }
     const [row] = await tx
       .insert(readings)
-      .values({ jobId: d.job.id, stepId: step.id, phase: input.phase, value: derived.value, enteredValue: input.value, enteredUnit: input.unit, inputs: derived.inputs, instrumentId: inst.id, note: input.note ?? null, takenAt, recordedById: actor.id })
+      .values({
+        jobId: d.job.id,
+        stepId: step.id,
+        phase: input.phase,
+        value: derived.value,
+        enteredValue: input.value,
+        enteredUnit: input.unit,
+        inputs: derived.inputs,
+        instrumentId: inst.id,
+        note: input.note ?? null,
+        takenAt,
+        recordedById: actor.id,
+      })
       .returning();
     if (old) await tx.update(readings).set({ supersededById: row!.id }).where(eq(readings.id, old.id));
     if (locked!.status === "draft") {
       await tx.update(jobs).set({ status: "measuring" }).where(eq(jobs.id, d.job.id));
-      await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: "job.status_changed", entityType: "job", entityId: d.job.id, jobId: d.job.id, oldValues: { status: "draft" }, newValues: { status: "measuring", reason: "first reading recorded" } });
+      await appendAudit(tx, {
+        actorId: actor.id,
+        actorEmail: actor.email,
+        action: "job.status_changed",
+        entityType: "job",
+        entityId: d.job.id,
+        jobId: d.job.id,
+        oldValues: { status: "draft" },
+        newValues: { status: "measuring", reason: "first reading recorded" },
+      });
     } else {
       await tx.update(jobs).set({ updatedAt: new Date() }).where(eq(jobs.id, d.job.id));
     }
@@ -150,10 +258,30 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
       entityType: "reading",
       entityId: row!.id,
       jobId: d.job.id,
-      oldValues: old ? { id: old.id, value: old.value, enteredValue: old.enteredValue, enteredUnit: old.enteredUnit } : null,
-      newValues: { step: step.position, phase: row!.phase, value: row!.value, unit: CANONICAL_UNIT[step.quantityKind], enteredValue: row!.enteredValue, enteredUnit: row!.enteredUnit, instrument: inst.serial, note: row!.note },
+      oldValues: old
+        ? { id: old.id, value: old.value, enteredValue: old.enteredValue, enteredUnit: old.enteredUnit }
+        : null,
+      newValues: {
+        step: step.position,
+        phase: row!.phase,
+        value: row!.value,
+        unit: CANONICAL_UNIT[step.quantityKind],
+        enteredValue: row!.enteredValue,
+        enteredUnit: row!.enteredUnit,
+        instrument: inst.serial,
+        note: row!.note,
+      },
     });
-    return readingJson({ ...row!, instrumentSerial: inst.serial, instrumentKind: inst.kind, instrumentStdU: inst.standardUncertainty, recordedByName: actor.name }, step);
+    return readingJson(
+      {
+        ...row!,
+        instrumentSerial: inst.serial,
+        instrumentKind: inst.kind,
+        instrumentStdU: inst.standardUncertainty,
+        recordedByName: actor.name,
+      },
+      step,
+    );
   });
 }
 
@@ -169,8 +297,22 @@ export interface ComparisonRow {
   decisionRule: "simple" | "guarded";
   limitSource: string;
   limitSourceNote: string | null;
-  pre: { value: number; U: number; decision: StepDecision; readingId: string; instrument: string | null; takenAt: Date } | null;
-  post: { value: number; U: number; decision: StepDecision; readingId: string; instrument: string | null; takenAt: Date } | null;
+  pre: {
+    value: number;
+    U: number;
+    decision: StepDecision;
+    readingId: string;
+    instrument: string | null;
+    takenAt: Date;
+  } | null;
+  post: {
+    value: number;
+    U: number;
+    decision: StepDecision;
+    readingId: string;
+    instrument: string | null;
+    takenAt: Date;
+  } | null;
   change: number | null;
   /** The step's result: the post-adjustment reading if there is one, else the pre reading. */
   status: StepDecision;
@@ -186,7 +328,16 @@ export async function getComparison(actor: Actor, jobId: string) {
         .select({ r: readings, serial: instruments.serial, stdU: instruments.standardUncertainty })
         .from(readings)
         .leftJoin(instruments, eq(instruments.id, readings.instrumentId))
-        .where(and(eq(readings.jobId, d.job.id), isNull(readings.supersededById), inArray(readings.stepId, steps.map((s) => s.id))))
+        .where(
+          and(
+            eq(readings.jobId, d.job.id),
+            isNull(readings.supersededById),
+            inArray(
+              readings.stepId,
+              steps.map((s) => s.id),
+            ),
+          ),
+        )
         .orderBy(desc(readings.takenAt), desc(readings.createdAt))
     : [];
   const rows: ComparisonRow[] = steps.map((s) => {
@@ -194,7 +345,14 @@ export async function getComparison(actor: Actor, jobId: string) {
       const hit = current.find((c) => c.r.stepId === s.id && c.r.phase === phase);
       if (!hit) return null;
       const U = expandedUncertainty(s, hit.stdU);
-      return { value: hit.r.value, U, decision: judge(s, hit.r.value, U), readingId: hit.r.id, instrument: hit.serial, takenAt: hit.r.takenAt };
+      return {
+        value: hit.r.value,
+        U,
+        decision: judge(s, hit.r.value, U),
+        readingId: hit.r.id,
+        instrument: hit.serial,
+        takenAt: hit.r.takenAt,
+      };
     };
     const pre = pick("pre");
     const post = pick("post");
@@ -231,8 +389,24 @@ export function comparisonJson(c: NonNullable<Awaited<ReturnType<typeof getCompa
       upperLimit: r.upperLimit,
       decisionRule: r.decisionRule,
       limitSource: r.limitSource,
-      pre: r.pre ? { value: r.pre.value, expandedUncertainty: r.pre.U, decision: r.pre.decision, instrument: r.pre.instrument, takenAt: r.pre.takenAt } : null,
-      post: r.post ? { value: r.post.value, expandedUncertainty: r.post.U, decision: r.post.decision, instrument: r.post.instrument, takenAt: r.post.takenAt } : null,
+      pre: r.pre
+        ? {
+            value: r.pre.value,
+            expandedUncertainty: r.pre.U,
+            decision: r.pre.decision,
+            instrument: r.pre.instrument,
+            takenAt: r.pre.takenAt,
+          }
+        : null,
+      post: r.post
+        ? {
+            value: r.post.value,
+            expandedUncertainty: r.post.U,
+            decision: r.post.decision,
+            instrument: r.post.instrument,
+            takenAt: r.post.takenAt,
+          }
+        : null,
       change: r.change,
       status: r.status,
     })),

@@ -12,7 +12,14 @@ function check(actor: Actor, register: Parameters<typeof canReadRegister>[1]) {
 export async function listCustomersWithSites(actor: Actor) {
   check(actor, "customers");
   return db
-    .select({ id: customers.id, name: customers.name, contactEmail: customers.contactEmail, sites: sql<string[]>`coalesce(array_agg(${sites.name} order by ${sites.name}) filter (where ${sites.id} is not null), '{}')` })
+    .select({
+      id: customers.id,
+      name: customers.name,
+      contactEmail: customers.contactEmail,
+      sites: sql<
+        string[]
+      >`coalesce(array_agg(${sites.name} order by ${sites.name}) filter (where ${sites.id} is not null), '{}')`,
+    })
     .from(customers)
     .leftJoin(sites, eq(sites.customerId, customers.id))
     .groupBy(customers.id)
@@ -22,7 +29,16 @@ export async function listCustomersWithSites(actor: Actor) {
 export async function listMachines(actor: Actor) {
   check(actor, "machines");
   return db
-    .select({ id: machines.id, name: machines.name, kind: machines.kind, builder: machines.builder, model: machines.model, serial: machines.serial, siteName: sites.name, customerName: customers.name })
+    .select({
+      id: machines.id,
+      name: machines.name,
+      kind: machines.kind,
+      builder: machines.builder,
+      model: machines.model,
+      serial: machines.serial,
+      siteName: sites.name,
+      customerName: customers.name,
+    })
     .from(machines)
     .innerJoin(sites, eq(sites.id, machines.siteId))
     .innerJoin(customers, eq(customers.id, sites.customerId))
@@ -32,7 +48,17 @@ export async function listMachines(actor: Actor) {
 export async function listHeads(actor: Actor) {
   check(actor, "heads");
   return db
-    .select({ id: heads.id, serial: heads.serial, maker: heads.maker, model: heads.model, primaryAxis: heads.primaryAxis, secondaryAxis: heads.secondaryAxis, nominalPivotLengthMm: heads.nominalPivotLengthMm, massKg: heads.massKg, machineName: machines.name })
+    .select({
+      id: heads.id,
+      serial: heads.serial,
+      maker: heads.maker,
+      model: heads.model,
+      primaryAxis: heads.primaryAxis,
+      secondaryAxis: heads.secondaryAxis,
+      nominalPivotLengthMm: heads.nominalPivotLengthMm,
+      massKg: heads.massKg,
+      machineName: machines.name,
+    })
     .from(heads)
     .leftJoin(machines, eq(machines.id, heads.machineId))
     .orderBy(asc(heads.serial));
@@ -41,7 +67,14 @@ export async function listHeads(actor: Actor) {
 export async function listPeople(actor: Actor) {
   check(actor, "people");
   return db
-    .select({ id: users.id, name: users.name, email: users.email, role: users.role, disabled: users.disabled, customerName: customers.name })
+    .select({
+      id: users.id,
+      name: users.name,
+      email: users.email,
+      role: users.role,
+      disabled: users.disabled,
+      customerName: customers.name,
+    })
     .from(users)
     .leftJoin(customers, eq(customers.id, users.customerId))
     .orderBy(asc(users.role), asc(users.name));

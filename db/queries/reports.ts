@@ -10,9 +10,25 @@ import { latestJobView } from "@/db/queries/analysis-views";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
 import { parameterRows } from "@/lib/fit-display";
 import { signed } from "@/lib/numbers";
-import { datasets, instruments, jobs, outbox, procedureTemplates, readings, reports, signatures, users } from "@/db/schema";
+import {
+  datasets,
+  instruments,
+  jobs,
+  outbox,
+  procedureTemplates,
+  readings,
+  reports,
+  signatures,
+  users,
+} from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
-import { ROLE_LABELS, SIGNATURE_LABELS, signatureRefusal, type Actor, type SignatureMeaningKey } from "@/lib/auth/roles";
+import {
+  ROLE_LABELS,
+  SIGNATURE_LABELS,
+  signatureRefusal,
+  type Actor,
+  type SignatureMeaningKey,
+} from "@/lib/auth/roles";
 import { canonicalJson } from "@/lib/canonical-json";
 import { publicUrl } from "@/lib/env";
 import { forbidden, invalid, notFound } from "@/lib/errors";
@@ -25,9 +41,15 @@ import type { Decision, ReportCharts, ReportData, ReportSignature } from "@/lib/
 
 /** Re-entry of the password at signing (21 CFR 11.200): the signer proves it is them, now. */
 async function requirePasswordReentry(actor: Actor, password: string): Promise<void> {
-  const [row] = await db.select({ hash: users.passwordHash }).from(users).where(eq(users.id, actor.id)).limit(1);
+  const [row] = await db
+    .select({ hash: users.passwordHash })
+    .from(users)
+    .where(eq(users.id, actor.id))
+    .limit(1);
   if (!password || !(await verifyPassword(password, row?.hash))) {
-    throw invalid("Re-enter your password to sign.", [{ field: "password", message: "The password does not match your account." }]);
+    throw invalid("Re-enter your password to sign.", [
+      { field: "password", message: "The password does not match your account." },
+    ]);
   }
 }
 
@@ -39,13 +61,25 @@ async function visibleJob(actor: Actor, jobId: string): Promise<JobDetail> {
 
 /** A hash of what has been recorded on the job, so a pre-issue signature says what it covered. */
 async function jobStateSha256(jobId: string): Promise<string> {
-  const [job] = await db.select({ status: jobs.status, updatedAt: jobs.updatedAt }).from(jobs).where(eq(jobs.id, jobId));
+  const [job] = await db
+    .select({ status: jobs.status, updatedAt: jobs.updatedAt })
+    .from(jobs)
+    .where(eq(jobs.id, jobId));
   const rs = await db
-    .select({ id: readings.id, value: readings.value, phase: readings.phase, supersededById: readings.supersededById })
+    .select({
+      id: readings.id,
+      value: readings.value,
+      phase: readings.phase,
+      supersededById: readings.supersededById,
+    })
     .from(readings)
     .where(eq(readings.jobId, jobId))
     .orderBy(asc(readings.id));
-  const ds = await db.select({ id: datasets.id, sha256: datasets.sha256, status: datasets.status }).from(datasets).where(eq(datasets.jobId, jobId)).orderBy(asc(datasets.id));
+  const ds = await db
+    .select({ id: datasets.id, sha256: datasets.sha256, status: datasets.status })
+    .from(datasets)
+    .where(eq(datasets.jobId, jobId))
+    .orderBy(asc(datasets.id));
   return sha256Hex(canonicalJson({ job, readings: rs, datasets: ds }));
 }
 
@@ -72,7 +106,10 @@ function manifestFor(
 }
 
 /** Signs the job's work before issue: performed (assigned installer) or inspected (inspector). */
-export async function signJobWork(actor: Actor, input: { jobId: string; meaning: "performed" | "inspected"; password: string; comment?: string }) {
+export async function signJobWork(
+  actor: Actor,
+  input: { jobId: string; meaning: "performed" | "inspected"; password: string; comment?: string },
+) {
   const d = await visibleJob(actor, input.jobId);
   const refusal = signatureRefusal(actor, input.meaning, d.job);
   if (refusal) throw forbidden(refusal);
@@ -80,23 +117,66 @@ export async function signJobWork(actor: Actor, input: { jobId: string; meaning:
   const existing = await db
     .select({ id: signatures.id })
     .from(signatures)
-    .where(and(eq(signatures.jobId, d.job.id), eq(signatures.meaning, input.meaning), eq(signatures.signerId, actor.id), isNull(signatures.reportId)));
-  if (existing.length > 0) throw invalid(`You have already signed this job as ${SIGNATURE_LABELS[input.meaning].toLowerCase()}.`);
+    .where(
+      and(
+        eq(signatures.jobId, d.job.id),
+        eq(signatures.meaning, input.meaning),
+        eq(signatures.signerId, actor.id),
+        isNull(signatures.reportId),
+      ),
+    );
+  if (existing.length > 0)
+    throw invalid(`You have already signed this job as ${SIGNATURE_LABELS[input.meaning].toLowerCase()}.`);
   const signedAt = new Date();
-  const manifest = manifestFor(actor, input.meaning, d.job, { stateSha256: await jobStateSha256(d.job.id) }, signedAt);
+  const manifest = manifestFor(
+    actor,
+    input.meaning,
+    d.job,
+    { stateSha256: await jobStateSha256(d.job.id) },
+    signedAt,
+  );
   const signature = signManifest(manifest, getSigningKey());
   return db.transaction(async (tx) => {
     const [row] = await tx
       .insert(signatures)
-      .values({ jobId: d.job.id, meaning: input.meaning, signerId: actor.id, signerName: actor.name, signerRole: actor.role, signedAt, comment: input.comment ?? null, manifest, signature, keyId: manifest.keyId })
+      .values({
+        jobId: d.job.id,
+        meaning: input.meaning,
+        signerId: actor.id,
+        signerName: actor.name,
+        signerRole: actor.role,
+        signedAt,
+        comment: input.comment ?? null,
+        manifest,
+        signature,
+        keyId: manifest.keyId,
+      })
       .returning();
-    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: `signature.${input.meaning}`, entityType: "signature", entityId: row!.id, jobId: d.job.id, newValues: { meaning: input.meaning, signedAtUtc: manifest.signedAtUtc } });
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: `signature.${input.meaning}`,
+      entityType: "signature",
+      entityId: row!.id,
+      jobId: d.job.id,
+      newValues: { meaning: input.meaning, signedAtUtc: manifest.signedAtUtc },
+    });
     return row!;
   });
 }
 
-function signatureLine(s: { signerName: string; signerRole: string; meaning: SignatureMeaningKey; signedAt: Date }): ReportSignature {
-  return { name: s.signerName, role: ROLE_LABELS[s.signerRole as keyof typeof ROLE_LABELS] ?? s.signerRole, meaning: SIGNATURE_LABELS[s.meaning], signedAtUtc: formatDateTimeUtc(s.signedAt) };
+function signatureLine(s: {
+  signerName: string;
+  signerRole: string;
+  meaning: SignatureMeaningKey;
+  signedAt: Date;
+}): ReportSignature {
+  return {
+    name: s.signerName,
+    role: ROLE_LABELS[s.signerRole as keyof typeof ROLE_LABELS] ?? s.signerRole,
+    meaning: SIGNATURE_LABELS[s.meaning],
+    signedAtUtc: formatDateTimeUtc(s.signedAt),
+  };
 }
 
 /**
@@ -105,7 +185,10 @@ function signatureLine(s: { signerName: string; signerRole: string; meaning: Sig
  * instrument), formatted in metric units; and the same numbers for the before/after chart
  * (lengths in mm, angles in arc seconds, as the table).
  */
-async function reportReadings(actor: Actor, jobId: string): Promise<{ rows: ReportData["readings"]; chart: NonNullable<ReportCharts["readings"]> }> {
+async function reportReadings(
+  actor: Actor,
+  jobId: string,
+): Promise<{ rows: ReportData["readings"]; chart: NonNullable<ReportCharts["readings"]> }> {
   const c = await getComparison(actor, jobId);
   if (!c) return { rows: [], chart: [] };
   const measured = c.rows.filter((r) => r.pre || r.post);
@@ -120,28 +203,53 @@ async function reportReadings(actor: Actor, jobId: string): Promise<{ rows: Repo
   }));
   const chart = measured
     .filter((r) => r.lowerLimit != null || r.upperLimit != null)
-    .map((r) => ({ step: r.title, lower: r.lowerLimit, upper: r.upperLimit, pre: r.pre?.value ?? null, post: r.post?.value ?? null, unit: r.quantityKind === "length" ? "mm" : "″", digits: r.quantityKind === "length" ? 4 : 1 }));
+    .map((r) => ({
+      step: r.title,
+      lower: r.lowerLimit,
+      upper: r.upperLimit,
+      pre: r.pre?.value ?? null,
+      post: r.post?.value ?? null,
+      unit: r.quantityKind === "length" ? "mm" : "″",
+      digits: r.quantityKind === "length" ? 4 : 1,
+    }));
   return { rows, chart };
 }
 
 /** Instruments used for the job's current readings, with calibration status on the day of issue. */
 async function reportInstruments(jobId: string, on: Date): Promise<ReportData["instruments"]> {
   const rows = await db
-    .selectDistinct({ kind: instruments.kind, serial: instruments.serial, quantityKind: instruments.quantityKind, resolution: instruments.resolution, u: instruments.standardUncertainty, due: instruments.calibrationDueOn })
+    .selectDistinct({
+      kind: instruments.kind,
+      serial: instruments.serial,
+      quantityKind: instruments.quantityKind,
+      resolution: instruments.resolution,
+      u: instruments.standardUncertainty,
+      due: instruments.calibrationDueOn,
+    })
     .from(readings)
     .innerJoin(instruments, eq(instruments.id, readings.instrumentId))
     .where(and(eq(readings.jobId, jobId), isNull(readings.supersededById)))
     .orderBy(asc(instruments.serial));
   const day = on.toISOString().slice(0, 10);
-  const fmt = (v: number, kind: string) => (kind === "angle" ? `${v.toFixed(1)}″` : v >= 0.001 ? `${v.toFixed(4)} mm` : `${(v * 1000).toFixed(2)} µm`);
-  return rows.map((r) => ({ kind: r.kind, serial: r.serial, resolution: fmt(r.resolution, r.quantityKind), uncertainty: fmt(r.u, r.quantityKind), calibrationDue: r.due, status: r.due >= day ? "In calibration" : "Past due" }));
+  const fmt = (v: number, kind: string) =>
+    kind === "angle" ? `${v.toFixed(1)}″` : v >= 0.001 ? `${v.toFixed(4)} mm` : `${(v * 1000).toFixed(2)} µm`;
+  return rows.map((r) => ({
+    kind: r.kind,
+    serial: r.serial,
+    resolution: fmt(r.resolution, r.quantityKind),
+    uncertainty: fmt(r.u, r.quantityKind),
+    calibrationDue: r.due,
+    status: r.due >= day ? "In calibration" : "Past due",
+  }));
 }
 
 const TEST_PART_DECIMALS: Record<string, number> = { mm: 3, in: 4, um: 1, deg: 3, arcsec: 1 };
 
 /** The latest test-part dataset (after adjustment preferred), judged under the job's decision rule. */
 async function reportTestPart(actor: Actor, jobId: string): Promise<ReportData["testPart"]> {
-  const list = ((await listDatasets(actor, jobId)) ?? []).filter((x) => x.kind === "test_part" && x.status === "stored");
+  const list = ((await listDatasets(actor, jobId)) ?? []).filter(
+    (x) => x.kind === "test_part" && x.status === "stored",
+  );
   const pick = list.find((x) => x.phase === "post") ?? list[0];
   if (!pick) return [];
   const ev = await getTestPartEvaluation(actor, pick.id);
@@ -151,7 +259,16 @@ async function reportTestPart(actor: Actor, jobId: string): Promise<ReportData["
     const v = (x: number) => `${x.toFixed(dp)} ${r.unit === "um" ? "µm" : r.unit}`;
     const signed = (x: number) => `${x >= 0 ? "+" : "−"}${Math.abs(x).toFixed(dp)}`;
     const limits = `${r.lower_limit === null ? "—" : r.lower_limit.toFixed(dp)} / ${r.upper_limit.toFixed(dp)}`;
-    return { feature: r.feature, characteristic: r.characteristic, nominal: v(r.nominal), measured: v(r.measured), deviation: signed(r.deviation), limits, expanded: r.U.toFixed(dp), decision: r.decision };
+    return {
+      feature: r.feature,
+      characteristic: r.characteristic,
+      nominal: v(r.nominal),
+      measured: v(r.measured),
+      deviation: signed(r.deviation),
+      limits,
+      expanded: r.U.toFixed(dp),
+      decision: r.decision,
+    };
   });
 }
 
@@ -159,7 +276,10 @@ async function reportTestPart(actor: Actor, jobId: string): Promise<ReportData["
 const RESIDUAL_CHART_POINTS = 240;
 
 /** Bucket maxima of the per-pose residuals (largest component, as the 3 s outlier rule uses), so peaks survive the thinning. */
-export function residualChartValues(valuesUm: readonly number[], maxPoints = RESIDUAL_CHART_POINTS): { valuesUm: number[]; perPoint: number } {
+export function residualChartValues(
+  valuesUm: readonly number[],
+  maxPoints = RESIDUAL_CHART_POINTS,
+): { valuesUm: number[]; perPoint: number } {
   const perPoint = Math.max(1, Math.ceil(valuesUm.length / maxPoints));
   const out: number[] = [];
   for (let i = 0; i < valuesUm.length; i += perPoint) out.push(Math.max(...valuesUm.slice(i, i + perPoint)));
@@ -171,14 +291,23 @@ export function residualChartValues(valuesUm: readonly number[], maxPoints = RES
  * procedure version (lib/fit-display parameterRows: the decision rule with the fit's U), with the
  * numbers for the parameter and residual charts.
  */
-async function reportParameters(actor: Actor, d: JobDetail): Promise<{ rows: ReportData["parameters"]; note?: string; charts: Pick<ReportCharts, "parameters" | "residuals">; analysisId?: string }> {
+async function reportParameters(
+  actor: Actor,
+  d: JobDetail,
+): Promise<{
+  rows: ReportData["parameters"];
+  note?: string;
+  charts: Pick<ReportCharts, "parameters" | "residuals">;
+  analysisId?: string;
+}> {
   const approved = await getApprovedAnalysis(actor, d.job.id);
   if (!approved) return { rows: [], charts: {} };
   const result = approved.detail.analysis.result;
   const fit = result.fit;
   const limits = await parameterLimitsOfTemplate(d.job.templateId);
   const judged = parameterRows(fit, limits);
-  const decisionOf = (x: (typeof judged)[number]["decision"]): Decision => (x === "no_limit" ? "recorded" : x);
+  const decisionOf = (x: (typeof judged)[number]["decision"]): Decision =>
+    x === "no_limit" ? "recorded" : x;
   const rows = judged.map((p) => {
     const unit = p.unit === "um" ? " µm" : "″";
     const value = `${signed(p.value, 1)}${unit}`;
@@ -198,9 +327,23 @@ async function reportParameters(actor: Actor, d: JobDetail): Promise<{ rows: Rep
     .map((p) => {
       const lim = limits.find((l) => l.parameter === p.key)!;
       const U = fit.parameters.find((q) => q.key === p.key)!.U ?? 0;
-      return { symbol: p.iso, value: p.value, U, lower: lim.lowerLimit, upper: lim.upperLimit, unit: p.unit === "um" ? "µm" : "″", decision: decisionOf(p.decision) };
+      return {
+        symbol: p.iso,
+        value: p.value,
+        U,
+        lower: lim.lowerLimit,
+        upper: lim.upperLimit,
+        unit: p.unit === "um" ? "µm" : "″",
+        decision: decisionOf(p.decision),
+      };
     });
-  const residuals = { ...residualChartValues(result.poses.residual_um.map((r) => Math.max(Math.abs(r[0]), Math.abs(r[1]), Math.abs(r[2])))), totalPoses: result.poses.row.length, sUm: result.s_um };
+  const residuals = {
+    ...residualChartValues(
+      result.poses.residual_um.map((r) => Math.max(Math.abs(r[0]), Math.abs(r[1]), Math.abs(r[2]))),
+    ),
+    totalPoses: result.poses.row.length,
+    sUm: result.s_um,
+  };
   const judgedCount = judged.filter((p) => p.decision !== "no_limit" && p.decision !== "not_measured").length;
   const undetermined = judged.filter((p) => p.decision === "not_measured").length;
   return {
@@ -215,13 +358,28 @@ async function reportParameters(actor: Actor, d: JobDetail): Promise<{ rows: Rep
 export async function buildReportData(
   actor: Actor,
   d: JobDetail,
-  meta: { reportId: string; revision: number; issuedAt: Date; approval: ReportSignature; amendment?: ReportData["amendment"] },
+  meta: {
+    reportId: string;
+    revision: number;
+    issuedAt: Date;
+    approval: ReportSignature;
+    amendment?: ReportData["amendment"];
+  },
 ): Promise<{ data: ReportData; images: Map<string, Buffer> }> {
-  const sigs = await db.select().from(signatures).where(and(eq(signatures.jobId, d.job.id), isNull(signatures.reportId))).orderBy(asc(signatures.signedAt));
+  const sigs = await db
+    .select()
+    .from(signatures)
+    .where(and(eq(signatures.jobId, d.job.id), isNull(signatures.reportId)))
+    .orderBy(asc(signatures.signedAt));
   const [params, readingsPart, template] = await Promise.all([
     reportParameters(actor, d),
     reportReadings(actor, d.job.id),
-    d.job.templateId ? db.select({ name: procedureTemplates.name, version: procedureTemplates.version }).from(procedureTemplates).where(eq(procedureTemplates.id, d.job.templateId)) : Promise.resolve([]),
+    d.job.templateId
+      ? db
+          .select({ name: procedureTemplates.name, version: procedureTemplates.version })
+          .from(procedureTemplates)
+          .where(eq(procedureTemplates.id, d.job.templateId))
+      : Promise.resolve([]),
   ]);
   // The latest picture of the 3D view saved for the approved fit (the job's access was checked above).
   const view = params.analysisId ? await latestJobView(d.job.id) : null;
@@ -245,17 +403,42 @@ export async function buildReportData(
     ...(meta.amendment ? { amendment: meta.amendment } : {}),
     issuedAtUtc: formatDateTimeUtc(meta.issuedAt),
     issuer: { name: "Halvard Field Service" },
-    customer: { name: d.customer.name, site: d.site.name, ...(d.site.address ? { address: d.site.address } : {}) },
-    machine: { name: d.machine.name, kind: d.machine.kind, builderModel: [d.machine.builder, d.machine.model].filter(Boolean).join(" ") || undefined, serial: d.machine.serial ?? undefined, control: d.machine.control ?? undefined },
-    head: { serial: d.head.serial, makerModel: [d.head.maker, d.head.model].filter(Boolean).join(" ") || undefined, axes: `${d.head.primaryAxis} primary / ${d.head.secondaryAxis} secondary`, nominalPivotLength: `${d.head.nominalPivotLengthMm.toFixed(3)} mm`, mass: d.head.massKg ? `${d.head.massKg} kg` : undefined },
+    customer: {
+      name: d.customer.name,
+      site: d.site.name,
+      ...(d.site.address ? { address: d.site.address } : {}),
+    },
+    machine: {
+      name: d.machine.name,
+      kind: d.machine.kind,
+      builderModel: [d.machine.builder, d.machine.model].filter(Boolean).join(" ") || undefined,
+      serial: d.machine.serial ?? undefined,
+      control: d.machine.control ?? undefined,
+    },
+    head: {
+      serial: d.head.serial,
+      makerModel: [d.head.maker, d.head.model].filter(Boolean).join(" ") || undefined,
+      axes: `${d.head.primaryAxis} primary / ${d.head.secondaryAxis} secondary`,
+      nominalPivotLength: `${d.head.nominalPivotLengthMm.toFixed(3)} mm`,
+      mass: d.head.massKg ? `${d.head.massKg} kg` : undefined,
+    },
     work: {
       kind: JOB_KIND_LABELS[d.job.kind],
       title: d.job.title,
-      dates: d.job.scheduledFor ? `from ${formatDateTimeUtc(d.job.scheduledFor)}` : "as recorded in the activity log",
-      airTemperature: d.job.airTempC != null ? `${d.job.airTempC.toFixed(1)} °C air temperature as entered` : undefined,
-      procedure: template[0] ? `${template[0].name}, version ${template[0].version}` : "Checklist as recorded on the job (no procedure version)",
-      method: "Indicator readings against the checklist limits; kinematic fit from sphere-probe data (geometry model stated in the product documentation)",
-      decisionRule: d.job.decisionRule === "guarded" ? "Guarded acceptance per ISO 14253-1 (limits shrunk by U for pass, grown by U for fail)" : "Simple acceptance: the expanded uncertainty is stated, not subtracted",
+      dates: d.job.scheduledFor
+        ? `from ${formatDateTimeUtc(d.job.scheduledFor)}`
+        : "as recorded in the activity log",
+      airTemperature:
+        d.job.airTempC != null ? `${d.job.airTempC.toFixed(1)} °C air temperature as entered` : undefined,
+      procedure: template[0]
+        ? `${template[0].name}, version ${template[0].version}`
+        : "Checklist as recorded on the job (no procedure version)",
+      method:
+        "Indicator readings against the checklist limits; kinematic fit from sphere-probe data (geometry model stated in the product documentation)",
+      decisionRule:
+        d.job.decisionRule === "guarded"
+          ? "Guarded acceptance per ISO 14253-1 (limits shrunk by U for pass, grown by U for fail)"
+          : "Simple acceptance: the expanded uncertainty is stated, not subtracted",
     },
     instruments: await reportInstruments(d.job.id, meta.issuedAt),
     readings: readingsPart.rows,
@@ -286,14 +469,22 @@ export interface IssueOptions {
  * the job's status, the audit event and the customers' e-mails are committed — or nothing is.
  * With `amendment`, issues a new revision that supersedes the current one.
  */
-export async function issueReport(actor: Actor, input: { jobId: string; password: string; amendmentReason?: string }, options: IssueOptions = {}) {
+export async function issueReport(
+  actor: Actor,
+  input: { jobId: string; password: string; amendmentReason?: string },
+  options: IssueOptions = {},
+) {
   const d = await visibleJob(actor, input.jobId);
   const current = await currentReportRow(d.job.id);
   const amending = Boolean(current);
   if (amending) {
     if (actor.role !== "engineer") throw forbidden("Only an application engineer issues an amendment.");
-    if (!input.amendmentReason?.trim()) throw invalid("Say what the amendment corrects.", [{ field: "amendmentReason", message: "Required for a new revision." }]);
-    if (d.job.status !== "issued" && d.job.status !== "rejected") throw forbidden("An amendment follows an issued or rejected report.");
+    if (!input.amendmentReason?.trim())
+      throw invalid("Say what the amendment corrects.", [
+        { field: "amendmentReason", message: "Required for a new revision." },
+      ]);
+    if (d.job.status !== "issued" && d.job.status !== "rejected")
+      throw forbidden("An amendment follows an issued or rejected report.");
   } else {
     const refusal = signatureRefusal(actor, "approved", d.job);
     if (refusal) throw forbidden(refusal);
@@ -303,13 +494,20 @@ export async function issueReport(actor: Actor, input: { jobId: string; password
   const reportId = crypto.randomUUID();
   const revision = (current?.revision ?? 0) + 1;
   const issuedAt = new Date();
-  const approval = signatureLine({ signerName: actor.name, signerRole: actor.role, meaning: "approved", signedAt: issuedAt });
+  const approval = signatureLine({
+    signerName: actor.name,
+    signerRole: actor.role,
+    meaning: "approved",
+    signedAt: issuedAt,
+  });
   const { data: content, images } = await buildReportData(actor, d, {
     reportId,
     revision,
     issuedAt,
     approval,
-    ...(current ? { amendment: { supersedesRevision: current.revision, reason: input.amendmentReason!.trim() } } : {}),
+    ...(current
+      ? { amendment: { supersedesRevision: current.revision, reason: input.amendmentReason!.trim() } }
+      : {}),
   });
   const pdf = await renderReportPdf(content, undefined, images);
   const pdfSha256 = sha256Hex(pdf);
@@ -317,15 +515,59 @@ export async function issueReport(actor: Actor, input: { jobId: string; password
   const signature = signManifest(manifest, getSigningKey());
   await options.afterRender?.();
 
-  const customerUsers = await db.select({ id: users.id, email: users.email, name: users.name }).from(users).where(and(eq(users.customerId, d.job.customerId), eq(users.disabled, false)));
+  const customerUsers = await db
+    .select({ id: users.id, email: users.email, name: users.name })
+    .from(users)
+    .where(and(eq(users.customerId, d.job.customerId), eq(users.disabled, false)));
   return db.transaction(async (tx) => {
     // Lock the job so two engineers cannot issue the same revision.
-    const [locked] = await tx.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, d.job.id)).for("update");
-    if (!locked || locked.status !== d.job.status) throw invalid("The job changed while the report was prepared; open it again.");
-    await tx.insert(reports).values({ id: reportId, jobId: d.job.id, revision, supersedesId: current?.id ?? null, amendmentReason: input.amendmentReason?.trim() || null, pdf, pdfSha256, contentSha256: content.contentSha256, content, issuedAt, issuedById: actor.id });
-    await tx.insert(signatures).values({ jobId: d.job.id, reportId, meaning: "approved", signerId: actor.id, signerName: actor.name, signerRole: actor.role, signedAt: issuedAt, manifest, signature, keyId: manifest.keyId });
+    const [locked] = await tx
+      .select({ status: jobs.status })
+      .from(jobs)
+      .where(eq(jobs.id, d.job.id))
+      .for("update");
+    if (!locked || locked.status !== d.job.status)
+      throw invalid("The job changed while the report was prepared; open it again.");
+    await tx
+      .insert(reports)
+      .values({
+        id: reportId,
+        jobId: d.job.id,
+        revision,
+        supersedesId: current?.id ?? null,
+        amendmentReason: input.amendmentReason?.trim() || null,
+        pdf,
+        pdfSha256,
+        contentSha256: content.contentSha256,
+        content,
+        issuedAt,
+        issuedById: actor.id,
+      });
+    await tx
+      .insert(signatures)
+      .values({
+        jobId: d.job.id,
+        reportId,
+        meaning: "approved",
+        signerId: actor.id,
+        signerName: actor.name,
+        signerRole: actor.role,
+        signedAt: issuedAt,
+        manifest,
+        signature,
+        keyId: manifest.keyId,
+      });
     await tx.update(jobs).set({ status: "issued" }).where(eq(jobs.id, d.job.id));
-    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: amending ? "report.amended" : "report.issued", entityType: "report", entityId: reportId, jobId: d.job.id, oldValues: { status: d.job.status, revision: current?.revision ?? null }, newValues: { status: "issued", revision, pdfSha256 } });
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: amending ? "report.amended" : "report.issued",
+      entityType: "report",
+      entityId: reportId,
+      jobId: d.job.id,
+      oldValues: { status: d.job.status, revision: current?.revision ?? null },
+      newValues: { status: "issued", revision, pdfSha256 },
+    });
     for (const u of customerUsers) {
       await tx.insert(outbox).values({
         dedupeKey: `report-issued:${reportId}:${u.id}`,
@@ -340,12 +582,20 @@ export async function issueReport(actor: Actor, input: { jobId: string; password
 }
 
 async function currentReportRow(jobId: string) {
-  const rows = await db.select({ id: reports.id, revision: reports.revision }).from(reports).where(eq(reports.jobId, jobId)).orderBy(desc(reports.revision)).limit(1);
+  const rows = await db
+    .select({ id: reports.id, revision: reports.revision })
+    .from(reports)
+    .where(eq(reports.jobId, jobId))
+    .orderBy(desc(reports.revision))
+    .limit(1);
   return rows[0] ?? null;
 }
 
 /** The customer's counter-signature: accept, or reject with a required comment. */
-export async function respondToReport(actor: Actor, input: { reportId: string; decision: "accepted" | "rejected"; password: string; comment?: string }) {
+export async function respondToReport(
+  actor: Actor,
+  input: { reportId: string; decision: "accepted" | "rejected"; password: string; comment?: string },
+) {
   const report = await getReportMeta(actor, input.reportId);
   if (!report) throw notFound("report");
   const d = await visibleJob(actor, report.jobId);
@@ -353,18 +603,58 @@ export async function respondToReport(actor: Actor, input: { reportId: string; d
   if (refusal) throw forbidden(refusal);
   if (report.supersededById) throw forbidden("A newer revision supersedes this report; respond to that one.");
   const comment = input.comment?.trim() ?? "";
-  if (input.decision === "rejected" && !comment) throw invalid("Say why the report is rejected.", [{ field: "comment", message: "A comment is required to reject." }]);
+  if (input.decision === "rejected" && !comment)
+    throw invalid("Say why the report is rejected.", [
+      { field: "comment", message: "A comment is required to reject." },
+    ]);
   await requirePasswordReentry(actor, input.password);
   const signedAt = new Date();
-  const manifest = manifestFor(actor, input.decision, d.job, { reportId: report.id, revision: report.revision, pdfSha256: report.pdfSha256 }, signedAt);
+  const manifest = manifestFor(
+    actor,
+    input.decision,
+    d.job,
+    { reportId: report.id, revision: report.revision, pdfSha256: report.pdfSha256 },
+    signedAt,
+  );
   const signature = signManifest(manifest, getSigningKey());
-  const engineers = await db.select({ id: users.id, email: users.email }).from(users).where(and(eq(users.role, "engineer"), eq(users.disabled, false)));
+  const engineers = await db
+    .select({ id: users.id, email: users.email })
+    .from(users)
+    .where(and(eq(users.role, "engineer"), eq(users.disabled, false)));
   return db.transaction(async (tx) => {
-    const [locked] = await tx.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, d.job.id)).for("update");
+    const [locked] = await tx
+      .select({ status: jobs.status })
+      .from(jobs)
+      .where(eq(jobs.id, d.job.id))
+      .for("update");
     if (locked?.status !== "issued") throw invalid("This report has already been answered.");
-    const [row] = await tx.insert(signatures).values({ jobId: d.job.id, reportId: report.id, meaning: input.decision, signerId: actor.id, signerName: actor.name, signerRole: actor.role, signedAt, comment: comment || null, manifest, signature, keyId: manifest.keyId }).returning();
+    const [row] = await tx
+      .insert(signatures)
+      .values({
+        jobId: d.job.id,
+        reportId: report.id,
+        meaning: input.decision,
+        signerId: actor.id,
+        signerName: actor.name,
+        signerRole: actor.role,
+        signedAt,
+        comment: comment || null,
+        manifest,
+        signature,
+        keyId: manifest.keyId,
+      })
+      .returning();
     await tx.update(jobs).set({ status: input.decision }).where(eq(jobs.id, d.job.id));
-    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: `report.${input.decision}`, entityType: "report", entityId: report.id, jobId: d.job.id, oldValues: { status: "issued" }, newValues: { status: input.decision, comment: comment || null } });
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: `report.${input.decision}`,
+      entityType: "report",
+      entityId: report.id,
+      jobId: d.job.id,
+      oldValues: { status: "issued" },
+      newValues: { status: input.decision, comment: comment || null },
+    });
     for (const e of engineers) {
       await tx.insert(outbox).values({
         dedupeKey: `report-${input.decision}:${report.id}:${e.id}`,
@@ -382,7 +672,16 @@ export async function respondToReport(actor: Actor, input: { reportId: string; d
 export async function getReportMeta(actor: Actor, reportId: string) {
   if (!/^[0-9a-f-]{36}$/i.test(reportId)) return null;
   const [r] = await db
-    .select({ id: reports.id, jobId: reports.jobId, revision: reports.revision, pdfSha256: reports.pdfSha256, contentSha256: reports.contentSha256, issuedAt: reports.issuedAt, supersedesId: reports.supersedesId, amendmentReason: reports.amendmentReason })
+    .select({
+      id: reports.id,
+      jobId: reports.jobId,
+      revision: reports.revision,
+      pdfSha256: reports.pdfSha256,
+      contentSha256: reports.contentSha256,
+      issuedAt: reports.issuedAt,
+      supersedesId: reports.supersedesId,
+      amendmentReason: reports.amendmentReason,
+    })
     .from(reports)
     .where(eq(reports.id, reportId));
   if (!r) return null;
@@ -399,30 +698,76 @@ export async function getReportContent(actor: Actor, reportId: string): Promise<
 }
 
 /** The stored PDF bytes, exactly as issued and signed. */
-export async function getReportPdf(actor: Actor, reportId: string): Promise<{ pdf: Buffer; reference: string; revision: number } | null> {
+export async function getReportPdf(
+  actor: Actor,
+  reportId: string,
+): Promise<{ pdf: Buffer; reference: string; revision: number } | null> {
   const meta = await getReportMeta(actor, reportId);
   if (!meta) return null;
-  const [r] = await db.select({ pdf: reports.pdf, reference: jobs.reference, revision: reports.revision }).from(reports).innerJoin(jobs, eq(jobs.id, reports.jobId)).where(eq(reports.id, reportId));
+  const [r] = await db
+    .select({ pdf: reports.pdf, reference: jobs.reference, revision: reports.revision })
+    .from(reports)
+    .innerJoin(jobs, eq(jobs.id, reports.jobId))
+    .where(eq(reports.id, reportId));
   return r ?? null;
 }
 
 export async function listJobReports(actor: Actor, jobId: string) {
   const d = await getJobDetail(actor, jobId);
   if (!d) return null;
-  return db.select({ id: reports.id, revision: reports.revision, issuedAt: reports.issuedAt, pdfSha256: reports.pdfSha256, supersedesId: reports.supersedesId, amendmentReason: reports.amendmentReason }).from(reports).where(eq(reports.jobId, jobId)).orderBy(desc(reports.revision));
+  return db
+    .select({
+      id: reports.id,
+      revision: reports.revision,
+      issuedAt: reports.issuedAt,
+      pdfSha256: reports.pdfSha256,
+      supersedesId: reports.supersedesId,
+      amendmentReason: reports.amendmentReason,
+    })
+    .from(reports)
+    .where(eq(reports.jobId, jobId))
+    .orderBy(desc(reports.revision));
 }
 
 export async function listJobSignatures(actor: Actor, jobId: string) {
   const d = await getJobDetail(actor, jobId);
   if (!d) return null;
-  return db.select({ id: signatures.id, reportId: signatures.reportId, meaning: signatures.meaning, signerId: signatures.signerId, signerName: signatures.signerName, signerRole: signatures.signerRole, signedAt: signatures.signedAt, comment: signatures.comment }).from(signatures).where(eq(signatures.jobId, jobId)).orderBy(asc(signatures.signedAt));
+  return db
+    .select({
+      id: signatures.id,
+      reportId: signatures.reportId,
+      meaning: signatures.meaning,
+      signerId: signatures.signerId,
+      signerName: signatures.signerName,
+      signerRole: signatures.signerRole,
+      signedAt: signatures.signedAt,
+      comment: signatures.comment,
+    })
+    .from(signatures)
+    .where(eq(signatures.jobId, jobId))
+    .orderBy(asc(signatures.signedAt));
 }
 
 export interface VerificationResult {
   authentic: boolean;
   reason?: string;
-  report?: { id: string; reference: string; revision: number; issuedAtUtc: string; pdfSha256: string; supersededBy: { id: string; revision: number } | null; amendmentOf: { id: string; revision: number } | null };
-  signatures?: Array<{ meaning: string; name: string; role: string; signedAtUtc: string; valid: boolean; comment: string | null }>;
+  report?: {
+    id: string;
+    reference: string;
+    revision: number;
+    issuedAtUtc: string;
+    pdfSha256: string;
+    supersededBy: { id: string; revision: number } | null;
+    amendmentOf: { id: string; revision: number } | null;
+  };
+  signatures?: Array<{
+    meaning: string;
+    name: string;
+    role: string;
+    signedAtUtc: string;
+    valid: boolean;
+    comment: string | null;
+  }>;
   keyId?: string;
 }
 
@@ -431,26 +776,85 @@ export interface VerificationResult {
  * stored PDF must still hash to the recorded SHA-256, and every signature over it, and every
  * signature given before issue, must verify with the published key.
  */
-export async function verifyReport(reportId: string, exec: Pick<typeof db, "select"> = db): Promise<VerificationResult> {
-  if (!/^[0-9a-f-]{36}$/i.test(reportId)) return { authentic: false, reason: "There is no report with this id." };
-  const [r] = await exec.select({ id: reports.id, jobId: reports.jobId, revision: reports.revision, pdf: reports.pdf, pdfSha256: reports.pdfSha256, issuedAt: reports.issuedAt, supersedesId: reports.supersedesId, reference: jobs.reference }).from(reports).innerJoin(jobs, eq(jobs.id, reports.jobId)).where(eq(reports.id, reportId));
+export async function verifyReport(
+  reportId: string,
+  exec: Pick<typeof db, "select"> = db,
+): Promise<VerificationResult> {
+  if (!/^[0-9a-f-]{36}$/i.test(reportId))
+    return { authentic: false, reason: "There is no report with this id." };
+  const [r] = await exec
+    .select({
+      id: reports.id,
+      jobId: reports.jobId,
+      revision: reports.revision,
+      pdf: reports.pdf,
+      pdfSha256: reports.pdfSha256,
+      issuedAt: reports.issuedAt,
+      supersedesId: reports.supersedesId,
+      reference: jobs.reference,
+    })
+    .from(reports)
+    .innerJoin(jobs, eq(jobs.id, reports.jobId))
+    .where(eq(reports.id, reportId));
   if (!r) return { authentic: false, reason: "There is no report with this id." };
   const key = getSigningKey();
-  const sigs = await exec.select().from(signatures).where(and(eq(signatures.jobId, r.jobId), sql`(${signatures.reportId} = ${r.id} or (${signatures.reportId} is null and ${signatures.signedAt} <= ${r.issuedAt}))`)).orderBy(asc(signatures.signedAt));
+  const sigs = await exec
+    .select()
+    .from(signatures)
+    .where(
+      and(
+        eq(signatures.jobId, r.jobId),
+        sql`(${signatures.reportId} = ${r.id} or (${signatures.reportId} is null and ${signatures.signedAt} <= ${r.issuedAt}))`,
+      ),
+    )
+    .orderBy(asc(signatures.signedAt));
   const checked = sigs.map((s) => {
     const m = s.manifest as SignatureManifest;
-    const bindsThis = s.reportId ? m.reportId === r.id && m.pdfSha256 === r.pdfSha256 && m.revision === r.revision : m.jobId === r.jobId && m.reportId === null;
-    const consistent = m.meaning === s.meaning && m.signer.id === s.signerId && m.signedAtUtc === s.signedAt.toISOString();
-    return { meaning: SIGNATURE_LABELS[s.meaning], name: s.signerName, role: ROLE_LABELS[s.signerRole], signedAtUtc: formatDateTimeUtc(s.signedAt), valid: bindsThis && consistent && verifyManifest(m, s.signature, key.publicKey), comment: s.comment };
+    const bindsThis = s.reportId
+      ? m.reportId === r.id && m.pdfSha256 === r.pdfSha256 && m.revision === r.revision
+      : m.jobId === r.jobId && m.reportId === null;
+    const consistent =
+      m.meaning === s.meaning && m.signer.id === s.signerId && m.signedAtUtc === s.signedAt.toISOString();
+    return {
+      meaning: SIGNATURE_LABELS[s.meaning],
+      name: s.signerName,
+      role: ROLE_LABELS[s.signerRole],
+      signedAtUtc: formatDateTimeUtc(s.signedAt),
+      valid: bindsThis && consistent && verifyManifest(m, s.signature, key.publicKey),
+      comment: s.comment,
+    };
   });
-  const [newer] = await exec.select({ id: reports.id, revision: reports.revision }).from(reports).where(eq(reports.supersedesId, r.id));
-  const [older] = r.supersedesId ? await exec.select({ id: reports.id, revision: reports.revision }).from(reports).where(eq(reports.id, r.supersedesId)) : [];
+  const [newer] = await exec
+    .select({ id: reports.id, revision: reports.revision })
+    .from(reports)
+    .where(eq(reports.supersedesId, r.id));
+  const [older] = r.supersedesId
+    ? await exec
+        .select({ id: reports.id, revision: reports.revision })
+        .from(reports)
+        .where(eq(reports.id, r.supersedesId))
+    : [];
   const bytesIntact = sha256Hex(r.pdf) === r.pdfSha256;
-  const allValid = checked.length > 0 && checked.every((c) => c.valid) && checked.some((c) => c.meaning === SIGNATURE_LABELS.approved);
+  const allValid =
+    checked.length > 0 &&
+    checked.every((c) => c.valid) &&
+    checked.some((c) => c.meaning === SIGNATURE_LABELS.approved);
   return {
     authentic: bytesIntact && allValid,
-    ...(bytesIntact ? (allValid ? {} : { reason: "A signature on this report does not verify." }) : { reason: "The stored file no longer matches its recorded SHA-256." }),
-    report: { id: r.id, reference: r.reference, revision: r.revision, issuedAtUtc: formatDateTimeUtc(r.issuedAt), pdfSha256: r.pdfSha256, supersededBy: newer ?? null, amendmentOf: older ?? null },
+    ...(bytesIntact
+      ? allValid
+        ? {}
+        : { reason: "A signature on this report does not verify." }
+      : { reason: "The stored file no longer matches its recorded SHA-256." }),
+    report: {
+      id: r.id,
+      reference: r.reference,
+      revision: r.revision,
+      issuedAtUtc: formatDateTimeUtc(r.issuedAt),
+      pdfSha256: r.pdfSha256,
+      supersededBy: newer ?? null,
+      amendmentOf: older ?? null,
+    },
     signatures: checked,
     keyId: key.keyId,
   };
@@ -460,7 +864,11 @@ export async function verifyReport(reportId: string, exec: Pick<typeof db, "sele
 export async function verifyPdfFile(bytes: Uint8Array): Promise<VerificationResult> {
   const hash = sha256Hex(bytes);
   const [r] = await db.select({ id: reports.id }).from(reports).where(eq(reports.pdfSha256, hash));
-  if (!r) return { authentic: false, reason: "This file is not, byte for byte, a report issued by this service: it was altered, or it is another file." };
+  if (!r)
+    return {
+      authentic: false,
+      reason:
+        "This file is not, byte for byte, a report issued by this service: it was altered, or it is another file.",
+    };
   return verifyReport(r.id);
 }
-

@@ -17,12 +17,21 @@ export async function isSignInLimited(email: string, address: string): Promise<b
   const since = new Date(Date.now() - env.SIGNIN_WINDOW_S * 1000);
   const [row] = await db
     .select({
-      byEmail: sql<number>`count(*) filter (where ${signInFailures.emailKey} = ${emailKey(email)})`.mapWith(Number),
+      byEmail: sql<number>`count(*) filter (where ${signInFailures.emailKey} = ${emailKey(email)})`.mapWith(
+        Number,
+      ),
       byAddress: sql<number>`count(*) filter (where ${signInFailures.address} = ${address})`.mapWith(Number),
     })
     .from(signInFailures)
-    .where(and(gt(signInFailures.at, since), or(eq(signInFailures.emailKey, emailKey(email)), eq(signInFailures.address, address))));
-  return (row?.byEmail ?? 0) >= env.SIGNIN_MAX_FAILURES || (row?.byAddress ?? 0) >= env.SIGNIN_MAX_FAILURES * 4;
+    .where(
+      and(
+        gt(signInFailures.at, since),
+        or(eq(signInFailures.emailKey, emailKey(email)), eq(signInFailures.address, address)),
+      ),
+    );
+  return (
+    (row?.byEmail ?? 0) >= env.SIGNIN_MAX_FAILURES || (row?.byAddress ?? 0) >= env.SIGNIN_MAX_FAILURES * 4
+  );
 }
 
 export async function recordSignInFailure(email: string, address: string): Promise<void> {

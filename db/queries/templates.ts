@@ -8,11 +8,19 @@ import { canReadRegisterOf, type Actor } from "@/lib/auth/roles";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 
 export async function listTemplatesWithSteps(actor: Actor) {
-  if (!canReadRegisterOf(actor.role, "procedures")) throw forbidden("Procedures are kept by the service company.");
-  const ts = await db.select().from(procedureTemplates).orderBy(asc(procedureTemplates.name), desc(procedureTemplates.version));
+  if (!canReadRegisterOf(actor.role, "procedures"))
+    throw forbidden("Procedures are kept by the service company.");
+  const ts = await db
+    .select()
+    .from(procedureTemplates)
+    .orderBy(asc(procedureTemplates.name), desc(procedureTemplates.version));
   const steps = await db.select().from(templateSteps).orderBy(asc(templateSteps.position));
   const limits = await db.select().from(templateParameterLimits);
-  return ts.map((t) => ({ ...t, steps: steps.filter((s) => s.templateId === t.id), parameterLimits: limits.filter((l) => l.templateId === t.id) }));
+  return ts.map((t) => ({
+    ...t,
+    steps: steps.filter((s) => s.templateId === t.id),
+    parameterLimits: limits.filter((l) => l.templateId === t.id),
+  }));
 }
 
 export interface StepLimitEdit {
@@ -38,40 +46,106 @@ export interface ParameterLimitEdit {
  * Editing a procedure makes a new version: the steps are copied with the edits, the new version
  * becomes current, and jobs keep the version they started with (jobs.template_id). Audited.
  */
-export async function createTemplateVersion(actor: Actor, templateId: string, edits: readonly StepLimitEdit[], parameterEdits: readonly ParameterLimitEdit[] = []) {
+export async function createTemplateVersion(
+  actor: Actor,
+  templateId: string,
+  edits: readonly StepLimitEdit[],
+  parameterEdits: readonly ParameterLimitEdit[] = [],
+) {
   if (actor.role !== "admin") throw forbidden("Procedures are edited by the administrator.");
   const [base] = await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, templateId));
   if (!base) throw notFound("procedure");
-  const steps = await db.select().from(templateSteps).where(eq(templateSteps.templateId, base.id)).orderBy(asc(templateSteps.position));
+  const steps = await db
+    .select()
+    .from(templateSteps)
+    .where(eq(templateSteps.templateId, base.id))
+    .orderBy(asc(templateSteps.position));
   for (const e of edits) {
-    if (!steps.some((s) => s.position === e.position)) throw invalid(`Step ${e.position} is not in this procedure.`, [{ field: `steps.${e.position}`, message: "No such step." }]);
-    if (e.lowerLimit != null && e.upperLimit != null && e.lowerLimit > e.upperLimit) throw invalid(`Step ${e.position}: the lower limit is above the upper limit.`, [{ field: `steps.${e.position}.lowerLimit`, message: "Above the upper limit." }]);
-    if (e.decisionRule === "guarded" && e.upperLimit == null) throw invalid(`Step ${e.position}: guarded acceptance needs an upper limit.`, [{ field: `steps.${e.position}.upperLimit`, message: "Required for guarded acceptance." }]);
+    if (!steps.some((s) => s.position === e.position))
+      throw invalid(`Step ${e.position} is not in this procedure.`, [
+        { field: `steps.${e.position}`, message: "No such step." },
+      ]);
+    if (e.lowerLimit != null && e.upperLimit != null && e.lowerLimit > e.upperLimit)
+      throw invalid(`Step ${e.position}: the lower limit is above the upper limit.`, [
+        { field: `steps.${e.position}.lowerLimit`, message: "Above the upper limit." },
+      ]);
+    if (e.decisionRule === "guarded" && e.upperLimit == null)
+      throw invalid(`Step ${e.position}: guarded acceptance needs an upper limit.`, [
+        { field: `steps.${e.position}.upperLimit`, message: "Required for guarded acceptance." },
+      ]);
   }
   for (const e of parameterEdits) {
     const field = `param.${e.parameter}`;
-    if (!(HEAD_PARAMETER_KEYS as readonly string[]).includes(e.parameter)) throw invalid(`${e.parameter} is not a head parameter.`, [{ field, message: "No such parameter." }]);
-    if (e.lowerLimit != null && e.upperLimit != null && e.lowerLimit > e.upperLimit) throw invalid(`${e.parameter}: the lower limit is above the upper limit.`, [{ field: `${field}.lowerLimit`, message: "Above the upper limit." }]);
-    if (e.decisionRule === "guarded" && e.upperLimit == null && e.lowerLimit != null) throw invalid(`${e.parameter}: guarded acceptance needs an upper limit.`, [{ field: `${field}.upperLimit`, message: "Required for guarded acceptance." }]);
+    if (!(HEAD_PARAMETER_KEYS as readonly string[]).includes(e.parameter))
+      throw invalid(`${e.parameter} is not a head parameter.`, [{ field, message: "No such parameter." }]);
+    if (e.lowerLimit != null && e.upperLimit != null && e.lowerLimit > e.upperLimit)
+      throw invalid(`${e.parameter}: the lower limit is above the upper limit.`, [
+        { field: `${field}.lowerLimit`, message: "Above the upper limit." },
+      ]);
+    if (e.decisionRule === "guarded" && e.upperLimit == null && e.lowerLimit != null)
+      throw invalid(`${e.parameter}: guarded acceptance needs an upper limit.`, [
+        { field: `${field}.upperLimit`, message: "Required for guarded acceptance." },
+      ]);
   }
   return db.transaction(async (tx) => {
-    const [{ v } = { v: 0 }] = await tx.select({ v: max(procedureTemplates.version) }).from(procedureTemplates).where(eq(procedureTemplates.name, base.name));
-    await tx.update(procedureTemplates).set({ isCurrent: false }).where(and(eq(procedureTemplates.name, base.name), eq(procedureTemplates.isCurrent, true)));
-    const [t] = await tx.insert(procedureTemplates).values({ name: base.name, version: (v ?? 0) + 1, description: base.description, isCurrent: true, createdById: actor.id }).returning();
-    if (steps.length) await tx.insert(templateSteps).values(
-      steps.map(({ id: _id, templateId: _t, ...s }) => {
-        const e = edits.find((x) => x.position === s.position);
-        return { ...s, templateId: t!.id, ...(e ? { lowerLimit: e.lowerLimit, upperLimit: e.upperLimit, decisionRule: e.decisionRule, limitSource: e.limitSource, limitSourceNote: e.limitSourceNote } : {}) };
-      }),
-    );
+    const [{ v } = { v: 0 }] = await tx
+      .select({ v: max(procedureTemplates.version) })
+      .from(procedureTemplates)
+      .where(eq(procedureTemplates.name, base.name));
+    await tx
+      .update(procedureTemplates)
+      .set({ isCurrent: false })
+      .where(and(eq(procedureTemplates.name, base.name), eq(procedureTemplates.isCurrent, true)));
+    const [t] = await tx
+      .insert(procedureTemplates)
+      .values({
+        name: base.name,
+        version: (v ?? 0) + 1,
+        description: base.description,
+        isCurrent: true,
+        createdById: actor.id,
+      })
+      .returning();
+    if (steps.length)
+      await tx.insert(templateSteps).values(
+        steps.map(({ id: _id, templateId: _t, ...s }) => {
+          const e = edits.find((x) => x.position === s.position);
+          return {
+            ...s,
+            templateId: t!.id,
+            ...(e
+              ? {
+                  lowerLimit: e.lowerLimit,
+                  upperLimit: e.upperLimit,
+                  decisionRule: e.decisionRule,
+                  limitSource: e.limitSource,
+                  limitSourceNote: e.limitSourceNote,
+                }
+              : {}),
+          };
+        }),
+      );
     // The head-parameter limits go with the procedure into its new version, with the edits applied
     // (an edit with both limits empty removes that parameter's limit).
-    const limits = await tx.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, base.id));
-    const kept = limits.filter((l) => !parameterEdits.some((e) => e.parameter === l.parameter)).map(({ id: _id, templateId: _t, ...l }) => l);
+    const limits = await tx
+      .select()
+      .from(templateParameterLimits)
+      .where(eq(templateParameterLimits.templateId, base.id));
+    const kept = limits
+      .filter((l) => !parameterEdits.some((e) => e.parameter === l.parameter))
+      .map(({ id: _id, templateId: _t, ...l }) => l);
     const edited = parameterEdits.filter((e) => e.lowerLimit != null || e.upperLimit != null);
     const next = [...kept, ...edited].map((l) => ({ ...l, templateId: t!.id }));
     if (next.length) await tx.insert(templateParameterLimits).values(next);
-    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: "template.versioned", entityType: "procedure_template", entityId: t!.id, oldValues: { id: base.id, version: base.version }, newValues: { version: t!.version, edits, parameterEdits } });
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: "template.versioned",
+      entityType: "procedure_template",
+      entityId: t!.id,
+      oldValues: { id: base.id, version: base.version },
+      newValues: { version: t!.version, edits, parameterEdits },
+    });
     return t!;
   });
 }

@@ -31,23 +31,58 @@ function requireAdmin(actor: Actor) {
 export async function inviteUser(actor: Actor, input: z.infer<typeof userInviteSchema>) {
   requireAdmin(actor);
   const email = input.email.trim();
-  const [dupe] = await db.select({ id: users.id }).from(users).where(sql`lower(${users.email}) = ${email.toLowerCase()}`);
-  if (dupe) throw invalid("Someone with that e-mail already has an account.", [{ field: "email", message: "Already in use." }]);
+  const [dupe] = await db
+    .select({ id: users.id })
+    .from(users)
+    .where(sql`lower(${users.email}) = ${email.toLowerCase()}`);
+  if (dupe)
+    throw invalid("Someone with that e-mail already has an account.", [
+      { field: "email", message: "Already in use." },
+    ]);
   if (input.customerId) {
-    const [c] = await db.select({ id: customers.id }).from(customers).where(eq(customers.id, input.customerId));
-    if (!c) throw invalid("No such customer.", [{ field: "customerId", message: "Choose a customer from the register." }]);
+    const [c] = await db
+      .select({ id: customers.id })
+      .from(customers)
+      .where(eq(customers.id, input.customerId));
+    if (!c)
+      throw invalid("No such customer.", [
+        { field: "customerId", message: "Choose a customer from the register." },
+      ]);
   }
   const token = randomBytes(32).toString("base64url");
   return db.transaction(async (tx) => {
-    const [u] = await tx.insert(users).values({ email, name: input.name, role: input.role, customerId: input.customerId ?? null, passwordHash: null }).returning();
-    await tx.insert(userTokens).values({ userId: u!.id, purpose: "invite", tokenHash: tokenHash(token), expiresAt: new Date(Date.now() + INVITE_TTL_MS) });
+    const [u] = await tx
+      .insert(users)
+      .values({
+        email,
+        name: input.name,
+        role: input.role,
+        customerId: input.customerId ?? null,
+        passwordHash: null,
+      })
+      .returning();
+    await tx
+      .insert(userTokens)
+      .values({
+        userId: u!.id,
+        purpose: "invite",
+        tokenHash: tokenHash(token),
+        expiresAt: new Date(Date.now() + INVITE_TTL_MS),
+      });
     await enqueueMail(tx, {
       dedupeKey: `invite:${u!.id}`,
       to: email,
       subject: "You are invited to Trammel",
       text: `Hello ${input.name},\n\n${actor.name} invited you to Trammel as ${ROLE_LABELS[input.role].toLowerCase()}.\nSet your password here within 72 hours (the link works once):\n${publicUrl}/set-password?token=${token}\n`,
     });
-    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: "user.invited", entityType: "user", entityId: u!.id, newValues: { email, name: input.name, role: input.role, customerId: input.customerId ?? null } });
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: "user.invited",
+      entityType: "user",
+      entityId: u!.id,
+      newValues: { email, name: input.name, role: input.role, customerId: input.customerId ?? null },
+    });
     return { userId: u!.id, token };
   });
 }
@@ -63,13 +98,30 @@ export async function setPasswordWithToken(token: string, password: string) {
     const [t] = await tx
       .select()
       .from(userTokens)
-      .where(and(eq(userTokens.tokenHash, hash), isNull(userTokens.usedAt), gt(userTokens.expiresAt, new Date())))
+      .where(
+        and(eq(userTokens.tokenHash, hash), isNull(userTokens.usedAt), gt(userTokens.expiresAt, new Date())),
+      )
       .for("update");
-    if (!t) throw new AppError(410, "token_invalid", "This link has expired or has already been used. Ask the administrator for a new invitation.");
+    if (!t)
+      throw new AppError(
+        410,
+        "token_invalid",
+        "This link has expired or has already been used. Ask the administrator for a new invitation.",
+      );
     await tx.update(userTokens).set({ usedAt: new Date() }).where(eq(userTokens.id, t.id));
-    await tx.update(users).set({ passwordHash, sessionsValidAfter: new Date() }).where(eq(users.id, t.userId));
+    await tx
+      .update(users)
+      .set({ passwordHash, sessionsValidAfter: new Date() })
+      .where(eq(users.id, t.userId));
     const [u] = await tx.select({ email: users.email }).from(users).where(eq(users.id, t.userId));
-    await appendAudit(tx, { actorId: t.userId, actorEmail: u?.email ?? null, action: "user.password_set", entityType: "user", entityId: t.userId, newValues: { purpose: t.purpose } });
+    await appendAudit(tx, {
+      actorId: t.userId,
+      actorEmail: u?.email ?? null,
+      action: "user.password_set",
+      entityType: "user",
+      entityId: t.userId,
+      newValues: { purpose: t.purpose },
+    });
     return { email: u?.email ?? "" };
   });
 }
@@ -86,7 +138,10 @@ export async function updateUser(actor: Actor, input: z.infer<typeof userUpdateS
   if (!before) throw notFound("user");
   const set: Partial<typeof users.$inferInsert> = {};
   if (input.role && input.role !== before.role) {
-    if ((input.role === "customer") !== Boolean(before.customerId)) throw invalid("Customer users belong to a customer; staff to none. Invite a new account instead.", [{ field: "role", message: "Cannot move between staff and customer." }]);
+    if ((input.role === "customer") !== Boolean(before.customerId))
+      throw invalid("Customer users belong to a customer; staff to none. Invite a new account instead.", [
+        { field: "role", message: "Cannot move between staff and customer." },
+      ]);
     set.role = input.role;
   }
   if (input.disabled !== undefined && input.disabled !== before.disabled) set.disabled = input.disabled;
@@ -94,7 +149,15 @@ export async function updateUser(actor: Actor, input: z.infer<typeof userUpdateS
   set.sessionsValidAfter = new Date();
   await db.transaction(async (tx) => {
     await tx.update(users).set(set).where(eq(users.id, before.id));
-    await appendAudit(tx, { actorId: actor.id, actorEmail: actor.email, action: "user.updated", entityType: "user", entityId: before.id, oldValues: { role: before.role, disabled: before.disabled }, newValues: { role: set.role ?? before.role, disabled: set.disabled ?? before.disabled } });
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: "user.updated",
+      entityType: "user",
+      entityId: before.id,
+      oldValues: { role: before.role, disabled: before.disabled },
+      newValues: { role: set.role ?? before.role, disabled: set.disabled ?? before.disabled },
+    });
   });
   return { changed: true };
 }
@@ -104,5 +167,9 @@ export async function listCustomersForSelect() {
 }
 
 export async function listActiveInstallers() {
-  return db.select({ id: users.id, name: users.name }).from(users).where(and(eq(users.role, "installer"), eq(users.disabled, false))).orderBy(asc(users.name));
+  return db
+    .select({ id: users.id, name: users.name })
+    .from(users)
+    .where(and(eq(users.role, "installer"), eq(users.disabled, false)))
+    .orderBy(asc(users.name));
 }

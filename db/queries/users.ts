@@ -16,7 +16,15 @@ export async function getUserForSignIn(email: string) {
 
 // Built once: it runs on every signed-in request, so its SQL is not rebuilt each time.
 const actorById = db
-  .select({ id: users.id, email: users.email, name: users.name, role: users.role, customerId: users.customerId, disabled: users.disabled, sessionsValidAfter: users.sessionsValidAfter })
+  .select({
+    id: users.id,
+    email: users.email,
+    name: users.name,
+    role: users.role,
+    customerId: users.customerId,
+    disabled: users.disabled,
+    sessionsValidAfter: users.sessionsValidAfter,
+  })
   .from(users)
   .where(eq(users.id, sql.placeholder("id")))
   .limit(1)

@@ -130,7 +130,8 @@ export function describeBadNumber(raw: string, decimalComma: boolean, delimiter:
     return `'${t}' uses a decimal point, but the decimal-comma option was chosen for this file`;
   }
   if (/^[+-]?(nan|inf|infinity)$/i.test(t)) return `'${t}' is not a finite number`;
-  if (/^[+-]?(\d+([.,]\d*)?|[.,]\d+)[eE][+-]?\d+$/.test(t)) return `'${t}' is not a finite number (out of range)`;
+  if (/^[+-]?(\d+([.,]\d*)?|[.,]\d+)[eE][+-]?\d+$/.test(t))
+    return `'${t}' is not a finite number (out of range)`;
   const shown = t.length > 40 ? `${t.slice(0, 40)}…` : t;
   return `'${shown}' is not a number`;
 }

@@ -20,9 +20,19 @@ export interface PointsData {
 }
 
 /** Read x, y, z columns (mm). Throws GeometryError on malformed input. */
-export function readPointsCsv(text: string, options: { units: CoordinateUnits; decimal?: CsvDecimal }): WithWarnings<PointsData> {
+export function readPointsCsv(
+  text: string,
+  options: { units: CoordinateUnits; decimal?: CsvDecimal },
+): WithWarnings<PointsData> {
   const factor = coordinateFactorToMm(options?.units, "units");
   const t = readTable(text, COLUMNS, { decimal: options?.decimal });
   const col = (k: string) => scaleInPlace(t.numbers.get(k)!, factor, t.sourceRow, t.headerNames.get(k)!);
-  return { rows: t.rows, xMm: col("x"), yMm: col("y"), zMm: col("z"), sourceRow: t.sourceRow, warnings: t.warnings };
+  return {
+    rows: t.rows,
+    xMm: col("x"),
+    yMm: col("y"),
+    zMm: col("z"),
+    sourceRow: t.sourceRow,
+    warnings: t.warnings,
+  };
 }

@@ -31,7 +31,10 @@ export interface SphereProbeCsvOptions {
  * Read a sphere-probe CSV into mm / degree columns. Throws GeometryError (issues name row and
  * column) on any malformed input; unknown columns come back as warnings on the result.
  */
-export function readSphereProbeCsv(text: string, options: SphereProbeCsvOptions): WithWarnings<SphereProbeData> {
+export function readSphereProbeCsv(
+  text: string,
+  options: SphereProbeCsvOptions,
+): WithWarnings<SphereProbeData> {
   const factor = coordinateFactorToMm(options?.units, "units");
   const t = readTable(text, COLUMNS, { decimal: options?.decimal });
   const num = (k: string) => t.numbers.get(k);

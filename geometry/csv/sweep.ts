@@ -23,7 +23,12 @@ export function readSweepCsv(text: string, options: SweepCsvOptions): WithWarnin
   return {
     rows: t.rows,
     angleDeg: t.numbers.get("angle_deg")!,
-    readingUm: scaleInPlace(t.numbers.get("reading")!, readingFactor, t.sourceRow, t.headerNames.get("reading")!),
+    readingUm: scaleInPlace(
+      t.numbers.get("reading")!,
+      readingFactor,
+      t.sourceRow,
+      t.headerNames.get("reading")!,
+    ),
     sourceRow: t.sourceRow,
     warnings: t.warnings,
   };

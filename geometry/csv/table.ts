@@ -72,7 +72,8 @@ export function formatIssue(issue: GeometryIssue): string {
 export function fail(issues: readonly CodedIssue[], truncated = false): never {
   const first = issues[0]!;
   const shown = issues.slice(0, 5).map(formatIssue).join("; ");
-  const more = issues.length > 5 ? ` (and ${issues.length - 5} more${truncated ? ", reading stopped" : ""})` : "";
+  const more =
+    issues.length > 5 ? ` (and ${issues.length - 5} more${truncated ? ", reading stopped" : ""})` : "";
   const message = issues.length === 1 ? shown : `${issues.length} problems in the CSV file: ${shown}${more}`;
   throw new GeometryError(
     first.code,
@@ -280,7 +281,9 @@ export function readTable(
     fail([{ code: "empty", row: 1, message: "the file is empty; a header row is required" }]);
   }
   if (firstNonBlank !== start) {
-    fail([{ code: "header", row: 1, message: "the header row is blank; the first row must name the columns" }]);
+    fail([
+      { code: "header", row: 1, message: "the header row is blank; the first row must name the columns" },
+    ]);
   }
 
   const delimiter = detectDelimiter(text, start);
@@ -291,7 +294,8 @@ export function readTable(
       {
         code: "bad_option",
         row: 1,
-        message: "the decimal-comma option needs a semicolon-separated file; this header is separated by commas",
+        message:
+          "the decimal-comma option needs a semicolon-separated file; this header is separated by commas",
       },
     ]);
   }
@@ -360,7 +364,8 @@ export function readTable(
 
   // Column plan: for each header field, what to do with it.
   const capacity = estimateRecords(text);
-  const numberCols: { field: number; name: string; shown: string; out: Float64Array; allowEmpty: boolean }[] = [];
+  const numberCols: { field: number; name: string; shown: string; out: Float64Array; allowEmpty: boolean }[] =
+    [];
   const textCols: { field: number; out: string[] }[] = [];
   const numbers = new Map<string, Float64Array>();
   const texts = new Map<string, string[]>();
@@ -372,7 +377,13 @@ export function readTable(
     if (spec.kind === "number") {
       const out = new Float64Array(capacity);
       numbers.set(spec.name, out);
-      numberCols.push({ field, name: spec.name, shown: headerNames[field]!, out, allowEmpty: spec.allowEmpty === true });
+      numberCols.push({
+        field,
+        name: spec.name,
+        shown: headerNames[field]!,
+        out,
+        allowEmpty: spec.allowEmpty === true,
+      });
     } else {
       const out: string[] = [];
       texts.set(spec.name, out);
@@ -471,5 +482,13 @@ export function readTable(
   const trim = <A extends Float64Array | Int32Array>(a: A): A =>
     a.length === n ? a : a.length - n <= (n >> 3) + 16 ? (a.subarray(0, n) as A) : (a.slice(0, n) as A);
   for (const [k, a] of numbers) numbers.set(k, trim(a));
-  return { rows: n, numbers, texts, headerNames: shownNames, sourceRow: trim(sourceRow), delimiter, warnings };
+  return {
+    rows: n,
+    numbers,
+    texts,
+    headerNames: shownNames,
+    sourceRow: trim(sourceRow),
+    delimiter,
+    warnings,
+  };
 }

@@ -4,7 +4,15 @@
  * makes the tolerance one-sided (upper limit only), as ISO 14253-1 treats flatness or squareness.
  */
 import type { TestPartRow } from "../types";
-import { fail, MAX_ISSUES, readTable, type CodedIssue, type ColumnSpec, type CsvDecimal, type WithWarnings } from "./table";
+import {
+  fail,
+  MAX_ISSUES,
+  readTable,
+  type CodedIssue,
+  type ColumnSpec,
+  type CsvDecimal,
+  type WithWarnings,
+} from "./table";
 
 const COLUMNS: readonly ColumnSpec[] = [
   { name: "feature", kind: "text", required: true },
@@ -42,9 +50,15 @@ export function readTestPartCsv(text: string, options: TestPartCsvOptions = {}):
   const rows: TestPartRow[] = [];
   for (let i = 0; i < t.rows && issues.length < MAX_ISSUES; i++) {
     const row = t.sourceRow[i]!;
-    if (feature[i] === "") issues.push({ code: "bad_value", row, column: name("feature"), message: "empty; name the feature" });
+    if (feature[i] === "")
+      issues.push({ code: "bad_value", row, column: name("feature"), message: "empty; name the feature" });
     if (characteristic[i] === "")
-      issues.push({ code: "bad_value", row, column: name("characteristic"), message: "empty; name the characteristic" });
+      issues.push({
+        code: "bad_value",
+        row,
+        column: name("characteristic"),
+        message: "empty; name the characteristic",
+      });
     let u = (unit?.[i] ?? "").toLowerCase();
     if (u === "µm" || u === "μm") u = "um";
     if (u === "") u = "mm";
@@ -59,7 +73,12 @@ export function readTestPartCsv(text: string, options: TestPartCsvOptions = {}):
     const lo = lower[i]!;
     const hi = upper[i]!;
     if (lo === lo && lo > hi) {
-      issues.push({ code: "bad_value", row, column: name("lower_tol"), message: `lower_tol ${lo} is above upper_tol ${hi}` });
+      issues.push({
+        code: "bad_value",
+        row,
+        column: name("lower_tol"),
+        message: `lower_tol ${lo} is above upper_tol ${hi}`,
+      });
     }
     rows.push({
       feature: feature[i]!,

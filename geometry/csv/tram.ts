@@ -4,7 +4,13 @@
  */
 import type { TramData } from "../types";
 import { readTable, type ColumnSpec, type CsvDecimal, type WithWarnings } from "./table";
-import { coordinateFactorToMm, readingFactorToUm, scaleInPlace, type CoordinateUnits, type ReadingUnits } from "./units";
+import {
+  coordinateFactorToMm,
+  readingFactorToUm,
+  scaleInPlace,
+  type CoordinateUnits,
+  type ReadingUnits,
+} from "./units";
 
 const COLUMNS: readonly ColumnSpec[] = [
   { name: "travel", kind: "number", required: true },
@@ -27,7 +33,12 @@ export function readTramCsv(text: string, options: TramCsvOptions): WithWarnings
   return {
     rows: t.rows,
     travelMm: scaleInPlace(t.numbers.get("travel")!, travelFactor, t.sourceRow, t.headerNames.get("travel")!),
-    readingUm: scaleInPlace(t.numbers.get("reading")!, readingFactor, t.sourceRow, t.headerNames.get("reading")!),
+    readingUm: scaleInPlace(
+      t.numbers.get("reading")!,
+      readingFactor,
+      t.sourceRow,
+      t.headerNames.get("reading")!,
+    ),
     ...(note ? { note: note.map((s) => (s === "" ? undefined : s)) } : {}),
     sourceRow: t.sourceRow,
     warnings: t.warnings,

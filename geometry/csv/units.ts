@@ -28,13 +28,23 @@ export function readingFactorToUm(units: unknown, option: string): number {
  * Multiply every element in place (skipping the work for a factor of exactly 1). A value that
  * overflows to ±Infinity in the conversion is an error naming its row and column.
  */
-export function scaleInPlace(a: Float64Array, factor: number, sourceRow: Int32Array, column: string): Float64Array {
+export function scaleInPlace(
+  a: Float64Array,
+  factor: number,
+  sourceRow: Int32Array,
+  column: string,
+): Float64Array {
   if (factor === 1) return a;
   const issues: CodedIssue[] = [];
   for (let i = 0; i < a.length; i++) {
     const v = a[i]! * factor;
     if (!Number.isFinite(v) && issues.length < MAX_ISSUES) {
-      issues.push({ code: "bad_number", row: sourceRow[i], column, message: `'${a[i]}' is out of range after unit conversion` });
+      issues.push({
+        code: "bad_number",
+        row: sourceRow[i],
+        column,
+        message: `'${a[i]}' is out of range after unit conversion`,
+      });
     }
     a[i] = v;
   }

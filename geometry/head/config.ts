@@ -72,22 +72,36 @@ export function cross3(a: Vec3, b: Vec3): Vec3 {
  */
 export function headAxes(config: HeadConfig): HeadAxes {
   const { primary, secondary } = config;
-  if (!LETTERS.includes(primary)) throw new GeometryError("bad_config", `primary must be A, B or C, not '${String(primary)}'`);
-  if (!LETTERS.includes(secondary)) throw new GeometryError("bad_config", `secondary must be A, B or C, not '${String(secondary)}'`);
+  if (!LETTERS.includes(primary))
+    throw new GeometryError("bad_config", `primary must be A, B or C, not '${String(primary)}'`);
+  if (!LETTERS.includes(secondary))
+    throw new GeometryError("bad_config", `secondary must be A, B or C, not '${String(secondary)}'`);
   const p = AXIS_VECTOR[primary];
   const s = AXIS_VECTOR[secondary];
   if (p[0] * s[0] + p[1] * s[1] + p[2] * s[2] !== 0) {
-    throw new GeometryError("bad_config", `the primary and secondary axes must be perpendicular (both are ${primary})`);
+    throw new GeometryError(
+      "bad_config",
+      `the primary and secondary axes must be perpendicular (both are ${primary})`,
+    );
   }
   if (!Number.isFinite(config.pivotLengthMm) || config.pivotLengthMm <= 0) {
-    throw new GeometryError("bad_config", `the pivot length must be a positive number of mm (got ${config.pivotLengthMm})`);
+    throw new GeometryError(
+      "bad_config",
+      `the pivot length must be a positive number of mm (got ${config.pivotLengthMm})`,
+    );
   }
   const t0 = config.toolDirection ?? [0, 0, -1];
   const norm = Math.hypot(t0[0], t0[1], t0[2]);
   if (t0.length !== 3 || !t0.every(Number.isFinite) || !(norm > 0)) {
     throw new GeometryError("bad_config", "the tool direction must be three finite numbers, not all zero");
   }
-  return { p, s, n: cross3(p, s), t: [t0[0] / norm, t0[1] / norm, t0[2] / norm], pivotLengthMm: config.pivotLengthMm };
+  return {
+    p,
+    s,
+    n: cross3(p, s),
+    t: [t0[0] / norm, t0[1] / norm, t0[2] / norm],
+    pivotLengthMm: config.pivotLengthMm,
+  };
 }
 
 /** The machine direction letter (X, Y, Z) of a coordinate unit vector, sign ignored. */
@@ -140,40 +154,69 @@ export function headParameterSymbols(config: HeadConfig): Record<HeadParameterKe
  */
 export function parseHeadConfig(json: unknown): HeadConfig {
   if (typeof json !== "object" || json === null || Array.isArray(json)) {
-    throw new GeometryError("bad_config", "the head file must be a JSON object with primary, secondary and pivot_length_mm");
+    throw new GeometryError(
+      "bad_config",
+      "the head file must be a JSON object with primary, secondary and pivot_length_mm",
+    );
   }
   const o = json as Record<string, unknown>;
   const issues: GeometryIssue[] = [];
   const known = ["primary", "secondary", "pivot_length_mm", "tool_direction"];
   for (const k of Object.keys(o)) {
-    if (!known.includes(k)) issues.push({ column: k, message: `unknown field '${k}' (the fields are ${known.join(", ")})` });
+    if (!known.includes(k))
+      issues.push({ column: k, message: `unknown field '${k}' (the fields are ${known.join(", ")})` });
   }
   const letter = (field: "primary" | "secondary"): AxisLetter | undefined => {
     const v = o[field];
-    if (v === undefined) issues.push({ column: field, message: `${field} is missing: give the axis letter A, B or C` });
+    if (v === undefined)
+      issues.push({ column: field, message: `${field} is missing: give the axis letter A, B or C` });
     else if (typeof v !== "string" || !LETTERS.includes(v as AxisLetter))
-      issues.push({ column: field, message: `${field} must be the axis letter "A", "B" or "C" (got ${JSON.stringify(v)})` });
+      issues.push({
+        column: field,
+        message: `${field} must be the axis letter "A", "B" or "C" (got ${JSON.stringify(v)})`,
+      });
     else return v as AxisLetter;
     return undefined;
   };
   const primary = letter("primary");
   const secondary = letter("secondary");
   if (primary !== undefined && primary === secondary) {
-    issues.push({ column: "secondary", message: `secondary must be a different axis from primary (both are ${primary}); the two axes must be perpendicular` });
+    issues.push({
+      column: "secondary",
+      message: `secondary must be a different axis from primary (both are ${primary}); the two axes must be perpendicular`,
+    });
   }
   const L = o.pivot_length_mm;
-  if (L === undefined) issues.push({ column: "pivot_length_mm", message: "pivot_length_mm is missing: the nominal pivot length in mm" });
+  if (L === undefined)
+    issues.push({
+      column: "pivot_length_mm",
+      message: "pivot_length_mm is missing: the nominal pivot length in mm",
+    });
   else if (typeof L !== "number" || !Number.isFinite(L) || L <= 0)
-    issues.push({ column: "pivot_length_mm", message: `pivot_length_mm must be a positive number of mm (got ${JSON.stringify(L)})` });
+    issues.push({
+      column: "pivot_length_mm",
+      message: `pivot_length_mm must be a positive number of mm (got ${JSON.stringify(L)})`,
+    });
   let toolDirection: Vec3 | undefined;
   const t = o.tool_direction;
   if (t !== undefined) {
-    if (!Array.isArray(t) || t.length !== 3 || !t.every((v) => typeof v === "number" && Number.isFinite(v)) || t.every((v) => v === 0)) {
-      issues.push({ column: "tool_direction", message: `tool_direction must be three numbers, not all zero, e.g. [0, 0, -1] (got ${JSON.stringify(t)})` });
+    if (
+      !Array.isArray(t) ||
+      t.length !== 3 ||
+      !t.every((v) => typeof v === "number" && Number.isFinite(v)) ||
+      t.every((v) => v === 0)
+    ) {
+      issues.push({
+        column: "tool_direction",
+        message: `tool_direction must be three numbers, not all zero, e.g. [0, 0, -1] (got ${JSON.stringify(t)})`,
+      });
     } else toolDirection = [t[0] as number, t[1] as number, t[2] as number];
   }
   if (issues.length > 0) {
-    const message = issues.length === 1 ? `head file: ${issues[0]!.message}` : `head file: ${issues.map((i) => i.message).join("; ")}`;
+    const message =
+      issues.length === 1
+        ? `head file: ${issues[0]!.message}`
+        : `head file: ${issues.map((i) => i.message).join("; ")}`;
     throw new GeometryError("bad_config", message, issues);
   }
   const config: HeadConfig = {

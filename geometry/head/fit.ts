@@ -21,7 +21,12 @@ import {
   type HeadParameterUnit,
   type HeadVec3 as Vec3,
 } from "./config";
-import { analyseHeadIdentifiability, initialFreeSet, type Identifiability, type ParameterSelection } from "./identifiability";
+import {
+  analyseHeadIdentifiability,
+  initialFreeSet,
+  type Identifiability,
+  type ParameterSelection,
+} from "./identifiability";
 import { NP } from "./kernel";
 import { headNormalEquations, nominalTips } from "./normal";
 
@@ -95,13 +100,22 @@ function validate(data: SphereProbeData): void {
   const bad: GeometryIssue[] = [];
   for (const [name, a] of cols) {
     if (!a) continue;
-    if (a.length < n) throw new GeometryError("bad_value", `column ${name} has ${a.length} values for ${n} rows`);
+    if (a.length < n)
+      throw new GeometryError("bad_value", `column ${name} has ${a.length} values for ${n} rows`);
     for (let i = 0; i < n && bad.length < 50; i++) {
-      if (!Number.isFinite(a[i]!)) bad.push({ row: rowOf(data, i), column: name, message: `${name} is ${a[i]}, not a finite number` });
+      if (!Number.isFinite(a[i]!))
+        bad.push({ row: rowOf(data, i), column: name, message: `${name} is ${a[i]}, not a finite number` });
     }
   }
   if (bad.length > 0) {
-    throw new GeometryError("bad_number", `${bad.length} non-finite value${bad.length > 1 ? "s" : ""}: ${bad.slice(0, 5).map((b) => `row ${b.row} ${b.message}`).join("; ")}`, bad);
+    throw new GeometryError(
+      "bad_number",
+      `${bad.length} non-finite value${bad.length > 1 ? "s" : ""}: ${bad
+        .slice(0, 5)
+        .map((b) => `row ${b.row} ${b.message}`)
+        .join("; ")}`,
+      bad,
+    );
   }
   const seen = new Map<string, number>();
   const dup: GeometryIssue[] = [];
@@ -117,7 +131,14 @@ function validate(data: SphereProbeData): void {
     }
   }
   if (dup.length > 0) {
-    throw new GeometryError("duplicate_pose", `${dup.length} duplicate pose${dup.length > 1 ? "s" : ""}: ${dup.slice(0, 3).map((d) => d.message).join("; ")}`, dup);
+    throw new GeometryError(
+      "duplicate_pose",
+      `${dup.length} duplicate pose${dup.length > 1 ? "s" : ""}: ${dup
+        .slice(0, 3)
+        .map((d) => d.message)
+        .join("; ")}`,
+      dup,
+    );
   }
 }
 
@@ -127,7 +148,11 @@ function validate(data: SphereProbeData): void {
  * "duplicate_pose" (same primary, secondary, tool and repeat index; rows named), "bad_number"
  * (non-finite input), "no_convergence", "degenerate".
  */
-export function fitHead(config: HeadConfig, data: SphereProbeData, options: HeadFitOptions = {}): HeadFitResult {
+export function fitHead(
+  config: HeadConfig,
+  data: SphereProbeData,
+  options: HeadFitOptions = {},
+): HeadFitResult {
   const axes = headAxes(config);
   const symbols = headParameterSymbols(config);
   const n = data.rows;
@@ -139,7 +164,12 @@ export function fitHead(config: HeadConfig, data: SphereProbeData, options: Head
     );
   }
   validate(data);
-  const poses = { rows: n, primaryDeg: data.primaryDeg, secondaryDeg: data.secondaryDeg, ...(data.toolMm ? { toolMm: data.toolMm } : {}) };
+  const poses = {
+    rows: n,
+    primaryDeg: data.primaryDeg,
+    secondaryDeg: data.secondaryDeg,
+    ...(data.toolMm ? { toolMm: data.toolMm } : {}),
+  };
   const ident = analyseHeadIdentifiability(config, poses, options);
   const free = ident.freeIndices;
   const np = 3 + free.length;
@@ -167,14 +197,23 @@ export function fitHead(config: HeadConfig, data: SphereProbeData, options: Head
   const lm = levenbergMarquardt(
     {
       parameters: np,
-      normalEquations: (theta, jtj, jtr) => headNormalEquations(axes, poses, tip0, meas, free, params10, theta, jtj, jtr),
-      sumOfSquares: (theta) => headNormalEquations(axes, poses, tip0, meas, free, params10, theta, null, null),
+      normalEquations: (theta, jtj, jtr) =>
+        headNormalEquations(axes, poses, tip0, meas, free, params10, theta, jtj, jtr),
+      sumOfSquares: (theta) =>
+        headNormalEquations(axes, poses, tip0, meas, free, params10, theta, null, null),
     },
     new Float64Array(np),
-    { maxIterations: options.maxIterations ?? 50, stepTolerance: options.stepTolerance, gradientTolerance: options.gradientTolerance },
+    {
+      maxIterations: options.maxIterations ?? 50,
+      stepTolerance: options.stepTolerance,
+      gradientTolerance: options.gradientTolerance,
+    },
   );
   if (!lm.converged) {
-    throw new GeometryError("no_convergence", `the fit did not converge in ${lm.iterations} iterations; check the head configuration (axis letters, pivot length, tool direction) against the data`);
+    throw new GeometryError(
+      "no_convergence",
+      `the fit did not converge in ${lm.iterations} iterations; check the head configuration (axis letters, pivot length, tool direction) against the data`,
+    );
   }
   const residuals = new Float64Array(3 * n);
   const S = headNormalEquations(axes, poses, tip0, meas, free, params10, lm.theta, null, null, residuals);
@@ -186,9 +225,28 @@ export function fitHead(config: HeadConfig, data: SphereProbeData, options: Head
     const st = ident.parameters[j]!;
     const col = free.indexOf(j);
     const unit = headParameterUnit(key);
-    if (col < 0) return { key, iso: symbols[key], value: 0, unit, u: null, U: null, identifiable: st.identifiable, pinned: true };
+    if (col < 0)
+      return {
+        key,
+        iso: symbols[key],
+        value: 0,
+        unit,
+        u: null,
+        U: null,
+        identifiable: st.identifiable,
+        pinned: true,
+      };
     const u = Math.sqrt(cov[(3 + col) * np + 3 + col]!);
-    return { key, iso: symbols[key], value: lm.theta[3 + col]!, unit, u, U: 2 * u, identifiable: st.identifiable, pinned: false };
+    return {
+      key,
+      iso: symbols[key],
+      value: lm.theta[3 + col]!,
+      unit,
+      u,
+      U: 2 * u,
+      identifiable: st.identifiable,
+      pinned: false,
+    };
   });
 
   let sumSq = 0;
@@ -248,7 +306,15 @@ export interface HeadFitJson {
 /** A fit result as the `fit-head` JSON of docs/geometry.md. */
 export function headFitToJson(result: HeadFitResult): HeadFitJson {
   return {
-    parameters: result.parameters.map(({ key, iso, value, unit, u, U, identifiable }) => ({ key, iso, value, unit, u, U, identifiable })),
+    parameters: result.parameters.map(({ key, iso, value, unit, u, U, identifiable }) => ({
+      key,
+      iso,
+      value,
+      unit,
+      u,
+      U,
+      identifiable,
+    })),
     sphere_centre_mm: result.sphere_centre_mm,
     rms_um: result.rms_um,
     max_um: result.max_um,

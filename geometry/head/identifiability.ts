@@ -84,17 +84,23 @@ export function initialFreeSet(selection: ParameterSelection = {}): number[] {
   const check = (list: readonly string[] | undefined, name: string) => {
     for (const k of list ?? []) {
       if (!(HEAD_PARAMETER_KEYS as readonly string[]).includes(k)) {
-        throw new GeometryError("bad_option", `${name}: unknown parameter '${k}' (one of ${HEAD_PARAMETER_KEYS.join(", ")})`);
+        throw new GeometryError(
+          "bad_option",
+          `${name}: unknown parameter '${k}' (one of ${HEAD_PARAMETER_KEYS.join(", ")})`,
+        );
       }
     }
   };
   check(selection.pin, "pin");
   check(selection.free, "free");
   const both = (selection.pin ?? []).filter((k) => (selection.free ?? []).includes(k));
-  if (both.length > 0) throw new GeometryError("bad_option", `${both.join(", ")} cannot be both pinned and free`);
+  if (both.length > 0)
+    throw new GeometryError("bad_option", `${both.join(", ")} cannot be both pinned and free`);
   const out: number[] = [];
   HEAD_PARAMETER_KEYS.forEach((k, j) => {
-    const pinned = (selection.pin ?? []).includes(k) || (DEFAULT_PINNED.includes(k) && !(selection.free ?? []).includes(k));
+    const pinned =
+      (selection.pin ?? []).includes(k) ||
+      (DEFAULT_PINNED.includes(k) && !(selection.free ?? []).includes(k));
     if (!pinned) out.push(j);
   });
   return out;
@@ -112,7 +118,8 @@ function spectrum(full: Float64Array, sel: readonly number[]): Spectrum {
   const N = 3 + NP;
   const d = idx.map((a) => Math.sqrt(full[a * N + a]!) || 1);
   const A = new Matrix(m, m);
-  for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) A.set(i, j, full[idx[i]! * N + idx[j]!]! / (d[i]! * d[j]!));
+  for (let i = 0; i < m; i++)
+    for (let j = 0; j < m; j++) A.set(i, j, full[idx[i]! * N + idx[j]!]! / (d[i]! * d[j]!));
   const e = new EigenvalueDecomposition(A, { assumeSymmetric: true });
   const values = e.realEigenvalues;
   const V = e.eigenvectorMatrix;
@@ -140,11 +147,21 @@ function separationAdvice(group: readonly HeadParameterKey[], poses: PoseColumns
   const secSpan = Math.max(...sec) - Math.min(...sec);
   const prim = distinct(poses.primaryDeg.map((v) => ((v % 360) + 360) % 360));
   const parts: string[] = [];
-  const lengthLike = group.some((k) => ["pivot_length_error_um", "tip_offset_n_um", "tip_offset_s_um", "secondary_zero_arcsec", "secondary_offset_um"].includes(k));
-  if (tools < 2 && lengthLike) parts.push("poses with a second tool length (a gauge tool of a different length)");
+  const lengthLike = group.some((k) =>
+    [
+      "pivot_length_error_um",
+      "tip_offset_n_um",
+      "tip_offset_s_um",
+      "secondary_zero_arcsec",
+      "secondary_offset_um",
+    ].includes(k),
+  );
+  if (tools < 2 && lengthLike)
+    parts.push("poses with a second tool length (a gauge tool of a different length)");
   if (sec.length < 3 || secSpan < 90) parts.push("secondary angles over a wider range, e.g. −90° to +90°");
   if (prim.length < 4) parts.push("more primary angles spread around the full turn");
-  if (parts.length === 0) parts.push("more poses at other primary and secondary angles, or a second tool length");
+  if (parts.length === 0)
+    parts.push("more poses at other primary and secondary angles, or a second tool length");
   return parts.join(", and ");
 }
 
@@ -152,14 +169,28 @@ function separationAdvice(group: readonly HeadParameterKey[], poses: PoseColumns
  * Classify every parameter for these poses (method in the file header). Throws GeometryError
  * "degenerate" when the sphere centre itself cannot be determined.
  */
-export function analyseHeadIdentifiability(config: HeadConfig | HeadAxes, poses: PoseColumns, selection: ParameterSelection = {}): IdentifiabilityReport {
+export function analyseHeadIdentifiability(
+  config: HeadConfig | HeadAxes,
+  poses: PoseColumns,
+  selection: ParameterSelection = {},
+): IdentifiabilityReport {
   const axes = "p" in config ? config : headAxes(config);
   const symbols = "p" in config ? undefined : headParameterSymbols(config);
   const label = (k: HeadParameterKey) => (symbols ? `${k} (${symbols[k]})` : k);
   const N = 3 + NP;
   const full = new Float64Array(N * N);
   const all = HEAD_PARAMETER_KEYS.map((_, j) => j);
-  headNormalEquations(axes, poses, null, null, all, new Float64Array(NP), new Float64Array(N), full, new Float64Array(N));
+  headNormalEquations(
+    axes,
+    poses,
+    null,
+    null,
+    all,
+    new Float64Array(NP),
+    new Float64Array(N),
+    full,
+    new Float64Array(N),
+  );
 
   const startFree = initialFreeSet(selection);
   let free = [...startFree];
@@ -174,15 +205,27 @@ export function analyseHeadIdentifiability(config: HeadConfig | HeadAxes, poses:
     if (!(sp.rel[k]! < NOT_IDENTIFIABLE_BELOW)) break;
     const group = participants(sp, k, free);
     if (group.length === 0) {
-      throw new GeometryError("degenerate", "these poses cannot determine the sphere centre; probe at more primary and secondary angles");
+      throw new GeometryError(
+        "degenerate",
+        "these poses cannot determine the sphere centre; probe at more primary and secondary angles",
+      );
     }
     const keys = group.map((j) => HEAD_PARAMETER_KEYS[j]!);
     const pinKey = PIN_ORDER.find((key) => keys.includes(key))!;
     const pinJ = HEAD_PARAMETER_KEYS.indexOf(pinKey);
-    for (const j of group) status.set(j, { key: HEAD_PARAMETER_KEYS[j]!, identifiable: "no", pinned: j === pinJ, ...(j === pinJ ? { pinnedBy: "inseparable" as const } : {}) });
+    for (const j of group)
+      status.set(j, {
+        key: HEAD_PARAMETER_KEYS[j]!,
+        identifiable: "no",
+        pinned: j === pinJ,
+        ...(j === pinJ ? { pinnedBy: "inseparable" as const } : {}),
+      });
     free = free.filter((j) => j !== pinJ);
     const others = keys.filter((key) => key !== pinKey);
-    const carry = others.length > 0 ? `; ${others.map(label).join(" and ")} ${others.length > 1 ? "carry" : "carries"} their combined effect, so ${others.length > 1 ? "their values are" : "its value is"} not ${others.length > 1 ? "theirs" : "its"} alone` : "";
+    const carry =
+      others.length > 0
+        ? `; ${others.map(label).join(" and ")} ${others.length > 1 ? "carry" : "carries"} their combined effect, so ${others.length > 1 ? "their values are" : "its value is"} not ${others.length > 1 ? "theirs" : "its"} alone`
+        : "";
     warnings.push(
       `${keys.map(label).join(" and ")} cannot be separated from this data; ${label(pinKey)} is held at 0${carry}. To separate them: ${separationAdvice(keys, poses)}.`,
     );
@@ -194,7 +237,8 @@ export function analyseHeadIdentifiability(config: HeadConfig | HeadAxes, poses:
     const group = participants(final, k, free).filter((j) => !status.has(j));
     if (group.length === 0) return;
     const keys = group.map((j) => HEAD_PARAMETER_KEYS[j]!);
-    for (const j of group) status.set(j, { key: HEAD_PARAMETER_KEYS[j]!, identifiable: "weak", pinned: false });
+    for (const j of group)
+      status.set(j, { key: HEAD_PARAMETER_KEYS[j]!, identifiable: "weak", pinned: false });
     warnings.push(
       `${keys.map(label).join(" and ")} ${keys.length > 1 ? "are" : "is"} only weakly determined by these poses (relative singular value ${rel.toExponential(1)}): expect large, correlated uncertainties. To strengthen: ${separationAdvice(keys, poses)}.`,
     );

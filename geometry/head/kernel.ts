@@ -136,8 +136,24 @@ export class HeadKernel {
     const J = this.jac;
     const A = RAD_PER_ARCSEC;
     const U = MM_PER_UM;
-    const r0 = Rp[0]!, r1 = Rp[1]!, r2 = Rp[2]!, r3 = Rp[3]!, r4 = Rp[4]!, r5 = Rp[5]!, r6 = Rp[6]!, r7 = Rp[7]!, r8 = Rp[8]!;
-    const s0 = Rs[0]!, s1 = Rs[1]!, s2 = Rs[2]!, s3 = Rs[3]!, s4 = Rs[4]!, s5 = Rs[5]!, s6 = Rs[6]!, s7 = Rs[7]!, s8 = Rs[8]!;
+    const r0 = Rp[0]!,
+      r1 = Rp[1]!,
+      r2 = Rp[2]!,
+      r3 = Rp[3]!,
+      r4 = Rp[4]!,
+      r5 = Rp[5]!,
+      r6 = Rp[6]!,
+      r7 = Rp[7]!,
+      r8 = Rp[8]!;
+    const s0 = Rs[0]!,
+      s1 = Rs[1]!,
+      s2 = Rs[2]!,
+      s3 = Rs[3]!,
+      s4 = Rs[4]!,
+      s5 = Rs[5]!,
+      s6 = Rs[6]!,
+      s7 = Rs[7]!,
+      s8 = Rs[8]!;
     let x0: number, x1: number, x2: number;
     // Column j = f·Rp·(x0, x1, x2).
     // 0: Rp Rs t

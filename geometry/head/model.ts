@@ -4,7 +4,13 @@
  * in µm and arc seconds as their keys say.
  */
 import { GeometryError } from "../errors";
-import { headAxes, HEAD_PARAMETER_KEYS, type HeadConfig, type HeadErrors, type HeadVec3 as Vec3 } from "./config";
+import {
+  headAxes,
+  HEAD_PARAMETER_KEYS,
+  type HeadConfig,
+  type HeadErrors,
+  type HeadVec3 as Vec3,
+} from "./config";
 import { HeadKernel } from "./kernel";
 
 export { rodriguesRotate } from "./kernel";
@@ -25,7 +31,8 @@ export function headErrorVector(errors: HeadErrors = {}): Float64Array {
     v[j] = x;
   });
   for (const k of Object.keys(errors)) {
-    if (!(HEAD_PARAMETER_KEYS as readonly string[]).includes(k)) throw new GeometryError("bad_value", `unknown error parameter '${k}'`);
+    if (!(HEAD_PARAMETER_KEYS as readonly string[]).includes(k))
+      throw new GeometryError("bad_value", `unknown error parameter '${k}'`);
   }
   return v;
 }
@@ -52,8 +59,17 @@ export function nominalTipMm(config: HeadConfig, pose: HeadPose): Vec3 {
  * nominal tip on a fixed sphere of centre c (mm), so a tip error moves the measured centre the
  * other way (docs/geometry.md, "Sphere-probe measurement model").
  */
-export function measuredSphereCentreMm(config: HeadConfig, errors: HeadErrors, centreMm: Vec3, pose: HeadPose): Vec3 {
+export function measuredSphereCentreMm(
+  config: HeadConfig,
+  errors: HeadErrors,
+  centreMm: Vec3,
+  pose: HeadPose,
+): Vec3 {
   const tip = headTipMm(config, errors, pose);
   const tip0 = nominalTipMm(config, pose);
-  return [centreMm[0] - (tip[0] - tip0[0]), centreMm[1] - (tip[1] - tip0[1]), centreMm[2] - (tip[2] - tip0[2])];
+  return [
+    centreMm[0] - (tip[0] - tip0[0]),
+    centreMm[1] - (tip[1] - tip0[1]),
+    centreMm[2] - (tip[2] - tip0[2]),
+  ];
 }

@@ -116,7 +116,8 @@ export function headNormalEquations(
       const a1 = g[f + a]!;
       const a2 = g[2 * f + a]!;
       const row = a * f;
-      for (let b = a; b < f; b++) pp[row + b] = pp[row + b]! + a0 * g[b]! + a1 * g[f + b]! + a2 * g[2 * f + b]!;
+      for (let b = a; b < f; b++)
+        pp[row + b] = pp[row + b]! + a0 * g[b]! + a1 * g[f + b]! + a2 * g[2 * f + b]!;
     }
   }
   if (jtj !== null && jtr !== null) {

@@ -10,8 +10,21 @@
  */
 import { GeometryError } from "../errors";
 import { covarianceFromNormal } from "../lm";
-import { headAxes, headParameterSymbols, headParameterUnit, HEAD_PARAMETER_KEYS, type HeadConfig, type HeadParameterKey, type HeadParameterUnit } from "./config";
-import { analyseHeadIdentifiability, initialFreeSet, type Identifiability, type ParameterSelection } from "./identifiability";
+import {
+  headAxes,
+  headParameterSymbols,
+  headParameterUnit,
+  HEAD_PARAMETER_KEYS,
+  type HeadConfig,
+  type HeadParameterKey,
+  type HeadParameterUnit,
+} from "./config";
+import {
+  analyseHeadIdentifiability,
+  initialFreeSet,
+  type Identifiability,
+  type ParameterSelection,
+} from "./identifiability";
 import { NP } from "./kernel";
 import type { HeadPose } from "./model";
 import type { PoseColumns } from "./normal";
@@ -54,19 +67,34 @@ export function poseColumns(poses: readonly HeadPose[]): PoseColumns {
  * header). Throws GeometryError "too_few_rows" with fewer poses than unknowns, "bad_number" for a
  * non-finite angle or tool length.
  */
-export function planHeadPoses(config: HeadConfig, poses: readonly HeadPose[] | PoseColumns, selection: ParameterSelection = {}): HeadPlanResult {
+export function planHeadPoses(
+  config: HeadConfig,
+  poses: readonly HeadPose[] | PoseColumns,
+  selection: ParameterSelection = {},
+): HeadPlanResult {
   headAxes(config);
   const cols = Array.isArray(poses) ? poseColumns(poses as readonly HeadPose[]) : (poses as PoseColumns);
   const n = cols.rows;
   for (let i = 0; i < n; i++) {
     const t = cols.toolMm ? cols.toolMm[i]! : 0;
-    if (!Number.isFinite(cols.primaryDeg[i]!) || !Number.isFinite(cols.secondaryDeg[i]!) || !Number.isFinite(t)) {
-      throw new GeometryError("bad_number", `pose ${i + 1}: the angles and the tool length must be finite numbers`, [{ row: i + 2, message: "not a finite number" }]);
+    if (
+      !Number.isFinite(cols.primaryDeg[i]!) ||
+      !Number.isFinite(cols.secondaryDeg[i]!) ||
+      !Number.isFinite(t)
+    ) {
+      throw new GeometryError(
+        "bad_number",
+        `pose ${i + 1}: the angles and the tool length must be finite numbers`,
+        [{ row: i + 2, message: "not a finite number" }],
+      );
     }
   }
   const start = initialFreeSet(selection);
   if (n < 3 + start.length) {
-    throw new GeometryError("too_few_rows", `${n} poses for ${3 + start.length} unknowns (the sphere centre and ${start.length} parameters): plan at least ${3 + start.length} poses`);
+    throw new GeometryError(
+      "too_few_rows",
+      `${n} poses for ${3 + start.length} unknowns (the sphere centre and ${start.length} parameters): plan at least ${3 + start.length} poses`,
+    );
   }
   const symbols = headParameterSymbols(config);
   const ident = analyseHeadIdentifiability(config, cols, selection);
@@ -75,7 +103,8 @@ export function planHeadPoses(config: HeadConfig, poses: readonly HeadPose[] | P
   const m = idx.length;
   const N = 3 + NP;
   const sub = new Float64Array(m * m);
-  for (let a = 0; a < m; a++) for (let b = 0; b < m; b++) sub[a * m + b] = ident.fullNormal[idx[a]! * N + idx[b]!]!;
+  for (let a = 0; a < m; a++)
+    for (let b = 0; b < m; b++) sub[a * m + b] = ident.fullNormal[idx[a]! * N + idx[b]!]!;
   const cov = covarianceFromNormal(sub, m, 1);
   const parameters = HEAD_PARAMETER_KEYS.map((key, j): HeadPlanParameter => {
     const st = ident.parameters[j]!;
@@ -93,9 +122,14 @@ export function planHeadPoses(config: HeadConfig, poses: readonly HeadPose[] | P
   const advice = [...ident.warnings];
   const clean = parameters.filter((p) => !p.pinned && p.identifiable === "yes");
   if (clean.length === parameters.filter((p) => !p.pinned).length) {
-    advice.push(`all ${clean.length} fitted parameters are identifiable from these ${n} poses; multiply each u_per_um_noise by the probe's repeatability in µm (and by 2 for U) to forecast the uncertainty`);
+    advice.push(
+      `all ${clean.length} fitted parameters are identifiable from these ${n} poses; multiply each u_per_um_noise by the probe's repeatability in µm (and by 2 for U) to forecast the uncertainty`,
+    );
   }
-  if (tools.length < 2) advice.push("only one tool length: probing a second tool length separates the secondary zero from the gauge point's offset across the tilt plane");
+  if (tools.length < 2)
+    advice.push(
+      "only one tool length: probing a second tool length separates the secondary zero from the gauge point's offset across the tilt plane",
+    );
   advice.push("repeat the first pose at the end (with its own repeat index) to see drift (common practice)");
   return { parameters, poses: n, tool_lengths_mm: tools, advice };
 }

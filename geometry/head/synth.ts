@@ -54,7 +54,8 @@ export function headPoseGrid(options: PoseGridOptions): HeadPose[] {
   const poses: HeadPose[] = [];
   for (const toolMm of options.toolMm ?? [0]) {
     for (let i = 0; i < options.primarySteps; i++) {
-      for (const secondaryDeg of options.secondaryDeg) poses.push({ primaryDeg: (360 * i) / options.primarySteps, secondaryDeg, toolMm });
+      for (const secondaryDeg of options.secondaryDeg)
+        poses.push({ primaryDeg: (360 * i) / options.primarySteps, secondaryDeg, toolMm });
     }
   }
   return poses;
@@ -108,5 +109,14 @@ export function synthesiseSphereProbe(
     z[i] = c[2] - (k.tip[2]! - k0.tip[2]!) + sigmaMm * g();
     sourceRow[i] = i + 2;
   });
-  return { rows: n, primaryDeg: P, secondaryDeg: S, xMm: x, yMm: y, zMm: z, ...(anyTool ? { toolMm: T } : {}), sourceRow };
+  return {
+    rows: n,
+    primaryDeg: P,
+    secondaryDeg: S,
+    xMm: x,
+    yMm: y,
+    zMm: z,
+    ...(anyTool ? { toolMm: T } : {}),
+    sourceRow,
+  };
 }

@@ -8,7 +8,14 @@ declare module "next-auth" {
     customerId: string | null;
   }
   interface Session {
-    user: { id: string; email: string; name: string; role: Role; customerId: string | null; signedInAt: number };
+    user: {
+      id: string;
+      email: string;
+      name: string;
+      role: Role;
+      customerId: string | null;
+      signedInAt: number;
+    };
   }
 }
 

@@ -10,7 +10,9 @@ import { authSecret, env } from "@/lib/env";
 import { verifyPassword } from "./password";
 import { isRole } from "./roles";
 
-export function clientAddress(headers: Headers | Record<string, string | string[] | undefined> | undefined): string {
+export function clientAddress(
+  headers: Headers | Record<string, string | string[] | undefined> | undefined,
+): string {
   const get = (name: string): string | undefined => {
     if (!headers) return undefined;
     if (headers instanceof Headers) return headers.get(name) ?? undefined;
@@ -28,7 +30,10 @@ export const authOptions: NextAuthOptions = {
   providers: [
     CredentialsProvider({
       name: "E-mail and password",
-      credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
+      credentials: {
+        email: { label: "E-mail", type: "email" },
+        password: { label: "Password", type: "password" },
+      },
       async authorize(credentials, req) {
         const email = String(credentials?.email ?? "").trim();
         const password = String(credentials?.password ?? "");
@@ -43,7 +48,13 @@ export const authOptions: NextAuthOptions = {
           return null;
         }
         await clearSignInFailures(email);
-        return { id: user.id, email: user.email, name: user.name, role: user.role, customerId: user.customerId };
+        return {
+          id: user.id,
+          email: user.email,
+          name: user.name,
+          role: user.role,
+          customerId: user.customerId,
+        };
       },
     }),
   ],

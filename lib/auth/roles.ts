@@ -6,7 +6,15 @@
 export const ROLES = ["admin", "installer", "inspector", "engineer", "customer"] as const;
 export type Role = (typeof ROLES)[number];
 
-export const JOB_STATUSES = ["draft", "measuring", "in_review", "approved", "issued", "accepted", "rejected"] as const;
+export const JOB_STATUSES = [
+  "draft",
+  "measuring",
+  "in_review",
+  "approved",
+  "issued",
+  "accepted",
+  "rejected",
+] as const;
 export type JobStatus = (typeof JOB_STATUSES)[number];
 
 /** The acting user as the server knows it (fresh from the database on every request). */
@@ -63,7 +71,10 @@ export function jobScope(actor: Actor): JobScope {
 }
 
 /** May this actor see a job with these owner fields? The same rule as jobScope, for one row. */
-export function canSeeJob(actor: Actor, job: { customerId: string; assignedInstallerId: string | null }): boolean {
+export function canSeeJob(
+  actor: Actor,
+  job: { customerId: string; assignedInstallerId: string | null },
+): boolean {
   const scope = jobScope(actor);
   switch (scope.kind) {
     case "all":
@@ -106,7 +117,10 @@ export interface NavItem {
 }
 
 export function navigationFor(role: Role): NavItem[] {
-  const jobs: NavItem = { href: "/jobs", label: role === "installer" ? "My jobs" : role === "customer" ? "Our jobs" : "Jobs" };
+  const jobs: NavItem = {
+    href: "/jobs",
+    label: role === "installer" ? "My jobs" : role === "customer" ? "Our jobs" : "Jobs",
+  };
   switch (role) {
     case "admin":
       return [jobs, { href: "/registers", label: "Registers" }];
@@ -120,7 +134,10 @@ export function navigationFor(role: Role): NavItem[] {
 }
 
 /** Pages under /registers are the administrator's (engineers may read the heads register). */
-export function canReadRegister(role: Role, register: "customers" | "machines" | "heads" | "people"): boolean {
+export function canReadRegister(
+  role: Role,
+  register: "customers" | "machines" | "heads" | "people",
+): boolean {
   if (role === "admin") return true;
   return role === "engineer" && register === "heads";
 }
@@ -151,17 +168,25 @@ export function signatureRefusal(
   const working = job.status === "measuring" || job.status === "in_review" || job.status === "approved";
   switch (meaning) {
     case "performed":
-      if (actor.role !== "installer" || job.assignedInstallerId !== actor.id) return "Only the installer assigned to this job signs the work as performed.";
-      return working ? null : "The work can be signed as performed while the job is measuring, in review or approved.";
+      if (actor.role !== "installer" || job.assignedInstallerId !== actor.id)
+        return "Only the installer assigned to this job signs the work as performed.";
+      return working
+        ? null
+        : "The work can be signed as performed while the job is measuring, in review or approved.";
     case "inspected":
       if (actor.role !== "inspector") return "Only an inspector signs as inspected.";
-      return working ? null : "The job can be signed as inspected while it is measuring, in review or approved.";
+      return working
+        ? null
+        : "The job can be signed as inspected while it is measuring, in review or approved.";
     case "approved":
       if (actor.role !== "engineer") return "Only an application engineer approves and issues the report.";
-      return job.status === "approved" ? null : "The report is issued once the job's parameters are approved.";
+      return job.status === "approved"
+        ? null
+        : "The report is issued once the job's parameters are approved.";
     case "accepted":
     case "rejected":
-      if (actor.role !== "customer" || actor.customerId !== job.customerId) return "Only the customer's own users accept or reject the report.";
+      if (actor.role !== "customer" || actor.customerId !== job.customerId)
+        return "Only the customer's own users accept or reject the report.";
       return job.status === "issued" ? null : "Only an issued report can be accepted or rejected.";
   }
 }
@@ -174,10 +199,15 @@ export const READINGS_OPEN_STATUSES: readonly JobStatus[] = ["draft", "measuring
  * (and an administrator, for corrections from the office) while the job is draft or measuring;
  * once it is in review, approved or issued the readings are locked. Returns the reason when not.
  */
-export function readingsRefusal(actor: Actor, job: { status: JobStatus; assignedInstallerId: string | null }): string | null {
-  const mayWrite = actor.role === "admin" || (actor.role === "installer" && job.assignedInstallerId === actor.id);
+export function readingsRefusal(
+  actor: Actor,
+  job: { status: JobStatus; assignedInstallerId: string | null },
+): string | null {
+  const mayWrite =
+    actor.role === "admin" || (actor.role === "installer" && job.assignedInstallerId === actor.id);
   if (!mayWrite) return "Only the installer assigned to this job (or an administrator) records readings.";
-  if (!READINGS_OPEN_STATUSES.includes(job.status)) return `The job is ${STATUS_LABELS[job.status].toLowerCase()}; its readings are locked.`;
+  if (!READINGS_OPEN_STATUSES.includes(job.status))
+    return `The job is ${STATUS_LABELS[job.status].toLowerCase()}; its readings are locked.`;
   return null;
 }
 
@@ -191,7 +221,10 @@ export function canReadHeadHistory(role: Role): boolean {
 }
 
 /** Registers an administrator keeps and who else may read them (engineers the heads, staff the instruments and procedures). */
-export function canReadRegisterOf(role: Role, register: "customers" | "machines" | "heads" | "people" | "instruments" | "procedures" | "outbox"): boolean {
+export function canReadRegisterOf(
+  role: Role,
+  register: "customers" | "machines" | "heads" | "people" | "instruments" | "procedures" | "outbox",
+): boolean {
   if (register === "instruments" || register === "procedures") return role !== "customer";
   if (register === "outbox") return role === "admin";
   return canReadRegister(role, register);
@@ -207,7 +240,9 @@ export const HEAD_FIT_OPEN_STATUSES: readonly JobStatus[] = ["draft", "measuring
  * when not. Visibility of the job is checked separately (404, never 403, for a job one may not see).
  */
 export function headFitRefusal(role: Role, status: JobStatus): string | null {
-  if (!HEAD_FIT_ROLES.includes(role)) return "Only an application engineer, an inspector or an administrator runs a head fit.";
-  if (!HEAD_FIT_OPEN_STATUSES.includes(status)) return `The job is ${STATUS_LABELS[status].toLowerCase()}; its fitted parameters are fixed.`;
+  if (!HEAD_FIT_ROLES.includes(role))
+    return "Only an application engineer, an inspector or an administrator runs a head fit.";
+  if (!HEAD_FIT_OPEN_STATUSES.includes(status))
+    return `The job is ${STATUS_LABELS[status].toLowerCase()}; its fitted parameters are fixed.`;
   return null;
 }

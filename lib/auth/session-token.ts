@@ -31,8 +31,14 @@ const decodedBySecret = new Map<string, Map<string, Decoded>>();
  * and once in the handler. Only tokens that decrypted under the secret are remembered, and each
  * is refused again once past its own expiry; revocation stays with the caller's database read.
  */
-export async function identityFromCookies(cookieJar: Record<string, string>, secret = authSecret, now = Date.now()): Promise<SessionIdentity | null> {
-  const names = Object.keys(cookieJar).filter((n) => n.includes("next-auth.session-token")).sort();
+export async function identityFromCookies(
+  cookieJar: Record<string, string>,
+  secret = authSecret,
+  now = Date.now(),
+): Promise<SessionIdentity | null> {
+  const names = Object.keys(cookieJar)
+    .filter((n) => n.includes("next-auth.session-token"))
+    .sort();
   if (!names.length) return null;
   const key = names.map((n) => `${n}=${cookieJar[n]}`).join(";");
   let cache = decodedBySecret.get(secret);
@@ -58,7 +64,9 @@ export async function identityFromCookies(cookieJar: Record<string, string>, sec
 }
 
 /** The session cookies (whole or in numbered chunks, with or without the __Secure- prefix) among a request's cookies. */
-export function sessionCookieJar(all: ReadonlyArray<{ name: string; value: string }>): Record<string, string> {
+export function sessionCookieJar(
+  all: ReadonlyArray<{ name: string; value: string }>,
+): Record<string, string> {
   const jar: Record<string, string> = {};
   for (const c of all) if (c.name.includes("next-auth.session-token")) jar[c.name] = c.value;
   return jar;

@@ -34,11 +34,18 @@ export class CliUsageError extends Error {
 }
 
 /** A string option restricted to a set of values, with a default. */
-export function choiceOption<T extends string>(ctx: CliContext, name: string, choices: readonly T[], fallback: T): T {
+export function choiceOption<T extends string>(
+  ctx: CliContext,
+  name: string,
+  choices: readonly T[],
+  fallback: T,
+): T {
   const v = ctx.options[name];
   if (v === undefined) return fallback;
   if (v === true || !(choices as readonly string[]).includes(v)) {
-    throw new CliUsageError(`--${name} must be one of ${choices.join(", ")}${v === true ? "" : ` (got '${v}')`}`);
+    throw new CliUsageError(
+      `--${name} must be one of ${choices.join(", ")}${v === true ? "" : ` (got '${v}')`}`,
+    );
   }
   return v as T;
 }
@@ -55,7 +62,8 @@ export function numberOption(
     return undefined;
   }
   const n = v === true || v.trim() === "" ? NaN : Number(v);
-  if (!Number.isFinite(n)) throw new CliUsageError(`--${name} needs a finite number (got '${v === true ? "" : v}')`);
+  if (!Number.isFinite(n))
+    throw new CliUsageError(`--${name} needs a finite number (got '${v === true ? "" : v}')`);
   if (opts.positive && !(n > 0)) throw new CliUsageError(`--${name} must be greater than 0 (got ${n})`);
   if (opts.nonNegative && !(n >= 0)) throw new CliUsageError(`--${name} must be 0 or more (got ${n})`);
   return n;

@@ -28,17 +28,27 @@ import { choiceOption, CliUsageError, numberOption, type CliCommand, type CliCon
 import { headCommands } from "./head-commands";
 
 const decimalOf = (ctx: CliContext) => choiceOption(ctx, "decimal", ["point", "comma"] as const, "point");
-const passWarnings = (ctx: CliContext, warnings: readonly CsvWarning[]) => warnings.forEach((w) => ctx.warn(formatIssue(w)));
+const passWarnings = (ctx: CliContext, warnings: readonly CsvWarning[]) =>
+  warnings.forEach((w) => ctx.warn(formatIssue(w)));
 
 const circle: CliCommand = {
   usage: "circle <points.csv> [--units mm|in] [--decimal point|comma]",
   summary: "fit a circle to x,y,z points taken while one axis turns: axis direction, a point on it, radius",
   options: ["units", "decimal"],
   run(ctx) {
-    const data = readPointsCsv(ctx.text, { units: choiceOption(ctx, "units", ["mm", "in"] as const, "mm"), decimal: decimalOf(ctx) });
+    const data = readPointsCsv(ctx.text, {
+      units: choiceOption(ctx, "units", ["mm", "in"] as const, "mm"),
+      decimal: decimalOf(ctx),
+    });
     passWarnings(ctx, data.warnings);
     const f = fitCircle(data);
-    return { centre_mm: f.centre_mm, normal: f.normal, radius_mm: f.radius_mm, rms_um: f.rms_um, max_um: f.max_um };
+    return {
+      centre_mm: f.centre_mm,
+      normal: f.normal,
+      radius_mm: f.radius_mm,
+      rms_um: f.rms_um,
+      max_um: f.max_um,
+    };
   },
 };
 
@@ -118,7 +128,11 @@ function help(): string {
   return `usage: npm run geometry -- <command> <file> [options]\n\ncommands:\n${lines.join("\n")}\n`;
 }
 
-function parseArgs(argv: readonly string[]): { name: string; file: string; options: Record<string, string | true> } {
+function parseArgs(argv: readonly string[]): {
+  name: string;
+  file: string;
+  options: Record<string, string | true>;
+} {
   const [name, ...rest] = argv;
   if (name === undefined) throw new CliUsageError("no command given");
   const positional: string[] = [];
@@ -136,7 +150,8 @@ function parseArgs(argv: readonly string[]): { name: string; file: string; optio
       positional.push(a);
     }
   }
-  if (positional.length !== 1) throw new CliUsageError(`${name} needs exactly one input file (got ${positional.length})`);
+  if (positional.length !== 1)
+    throw new CliUsageError(`${name} needs exactly one input file (got ${positional.length})`);
   return { name, file: positional[0]!, options };
 }
 
@@ -153,9 +168,11 @@ export async function main(
   try {
     const { name, file, options } = parseArgs(argv);
     const command = Object.hasOwn(commands, name) ? commands[name] : undefined;
-    if (!command) throw new CliUsageError(`unknown command '${name}'; one of: ${Object.keys(commands).join(", ")}`);
+    if (!command)
+      throw new CliUsageError(`unknown command '${name}'; one of: ${Object.keys(commands).join(", ")}`);
     for (const key of Object.keys(options)) {
-      if (!command.options.includes(key)) throw new CliUsageError(`${name} has no option --${key} (usage: ${command.usage})`);
+      if (!command.options.includes(key))
+        throw new CliUsageError(`${name} has no option --${key} (usage: ${command.usage})`);
     }
     let text: string;
     try {
@@ -164,11 +181,15 @@ export async function main(
       throw new CliUsageError(`cannot read ${file}: ${(e as NodeJS.ErrnoException).code ?? String(e)}`);
     }
     const result = await command.run({ file, text, options, warn: (m) => err(`warning: ${m}\n`) });
-    out(`${JSON.stringify(result, (_k, v: unknown) => (v instanceof Float64Array ? Array.from(v) : v), 2)}\n`);
+    out(
+      `${JSON.stringify(result, (_k, v: unknown) => (v instanceof Float64Array ? Array.from(v) : v), 2)}\n`,
+    );
     return 0;
   } catch (e) {
     if (e instanceof GeometryError) {
-      err(`error: ${e.issues.length > 1 ? `${e.issues.length} problems in the input` : formatIssue(e.issues[0]!)}\n`);
+      err(
+        `error: ${e.issues.length > 1 ? `${e.issues.length} problems in the input` : formatIssue(e.issues[0]!)}\n`,
+      );
       if (e.issues.length > 1) for (const i of e.issues) err(`  ${formatIssue(i)}\n`);
       return 2;
     }

@@ -21,7 +21,16 @@
  * `"tool_direction":[0,0,-1]`. This module reads files (node:fs); geometry/ does not.
  */
 import { readFileSync } from "node:fs";
-import { fitHead, GeometryError, headFitToJson, parseHeadConfig, planHeadPoses, readSphereProbeCsv, formatIssue, type HeadConfig } from "@/geometry";
+import {
+  fitHead,
+  GeometryError,
+  headFitToJson,
+  parseHeadConfig,
+  planHeadPoses,
+  readSphereProbeCsv,
+  formatIssue,
+  type HeadConfig,
+} from "@/geometry";
 // The pose list uses the shared table reader of geometry/csv (the same tokeniser and number checks
 // as every product CSV); it has no reader of its own in geometry/csv's public index.
 import { readTable } from "@/geometry/csv/table";
@@ -29,7 +38,8 @@ import { choiceOption, CliUsageError, type CliCommand, type CliContext } from ".
 
 function readHead(ctx: CliContext): HeadConfig {
   const path = ctx.options.head;
-  if (path === undefined || path === true) throw new CliUsageError("--head <head.json> is required: the head configuration file");
+  if (path === undefined || path === true)
+    throw new CliUsageError("--head <head.json> is required: the head configuration file");
   let text: string;
   try {
     text = readFileSync(path, "utf8");
@@ -40,7 +50,10 @@ function readHead(ctx: CliContext): HeadConfig {
   try {
     json = JSON.parse(text);
   } catch (e) {
-    throw new GeometryError("bad_config", `the head file ${path} is not valid JSON: ${e instanceof Error ? e.message : String(e)}`);
+    throw new GeometryError(
+      "bad_config",
+      `the head file ${path} is not valid JSON: ${e instanceof Error ? e.message : String(e)}`,
+    );
   }
   return parseHeadConfig(json);
 }
@@ -49,11 +62,15 @@ const decimalOf = (ctx: CliContext) => choiceOption(ctx, "decimal", ["point", "c
 
 const fitHeadCommand: CliCommand = {
   usage: "fit-head <sphere.csv> --head head.json [--units mm|in] [--decimal point|comma]",
-  summary: "fit the head's error parameters (µm, arcsec) with U (k = 2) and identifiability to sphere-probe centres",
+  summary:
+    "fit the head's error parameters (µm, arcsec) with U (k = 2) and identifiability to sphere-probe centres",
   options: ["head", "units", "decimal"],
   run(ctx) {
     const config = readHead(ctx);
-    const data = readSphereProbeCsv(ctx.text, { units: choiceOption(ctx, "units", ["mm", "in"] as const, "mm"), decimal: decimalOf(ctx) });
+    const data = readSphereProbeCsv(ctx.text, {
+      units: choiceOption(ctx, "units", ["mm", "in"] as const, "mm"),
+      decimal: decimalOf(ctx),
+    });
     data.warnings.forEach((w) => ctx.warn(formatIssue(w)));
     return headFitToJson(fitHead(config, data));
   },
@@ -61,7 +78,8 @@ const fitHeadCommand: CliCommand = {
 
 const planCommand: CliCommand = {
   usage: "plan <poses.csv> --head head.json [--decimal point|comma]",
-  summary: "predict which head parameters candidate poses (primary_deg,secondary_deg[,tool_mm]) identify, and u per µm of noise",
+  summary:
+    "predict which head parameters candidate poses (primary_deg,secondary_deg[,tool_mm]) identify, and u per µm of noise",
   options: ["head", "decimal"],
   run(ctx) {
     const config = readHead(ctx);
@@ -82,7 +100,12 @@ const planCommand: CliCommand = {
       secondaryDeg: t.numbers.get("secondary_deg")!,
       ...(toolMm ? { toolMm } : {}),
     });
-    return { poses: plan.poses, tool_lengths_mm: plan.tool_lengths_mm, parameters: plan.parameters, advice: plan.advice };
+    return {
+      poses: plan.poses,
+      tool_lengths_mm: plan.tool_lengths_mm,
+      parameters: plan.parameters,
+      advice: plan.advice,
+    };
   },
 };
 

@@ -25,7 +25,9 @@ try {
 } catch {
   built = 0;
 }
-if (built < Math.max(newestSource(path.join(root, "geometry")), newestSource(path.join(root, "lib", "cli")))) {
+if (
+  built < Math.max(newestSource(path.join(root, "geometry")), newestSource(path.join(root, "lib", "cli")))
+) {
   mkdirSync(path.dirname(out), { recursive: true });
   await build({
     entryPoints: [path.join(root, "lib", "cli", "geometry.ts")],

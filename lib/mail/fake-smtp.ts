@@ -26,12 +26,22 @@ const server = new SMTPServer({
       const raw = Buffer.concat(chunks);
       simpleParser(raw)
         .then((m) => {
-          const slug = (m.subject ?? "no-subject").replace(/[^a-z0-9]+/gi, "-").slice(0, 60).toLowerCase();
+          const slug = (m.subject ?? "no-subject")
+            .replace(/[^a-z0-9]+/gi, "-")
+            .slice(0, 60)
+            .toLowerCase();
           // A sequence number and the process id keep two messages of the same millisecond apart.
           const base = `${new Date().toISOString().replace(/[:.]/g, "-")}-${process.pid}-${String(++seq).padStart(6, "0")}-${slug}`;
           writeFileSync(path.join(dir, `${base}.eml`), raw);
           const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(", ") : (m.to?.text ?? "");
-          writeFileSync(path.join(dir, `${base}.json`), JSON.stringify({ to, from: m.from?.text, subject: m.subject, date: m.date, text: m.text }, null, 2));
+          writeFileSync(
+            path.join(dir, `${base}.json`),
+            JSON.stringify(
+              { to, from: m.from?.text, subject: m.subject, date: m.date, text: m.text },
+              null,
+              2,
+            ),
+          );
           console.log(`fake-smtp: ${to} — ${m.subject}`);
           done();
         })
@@ -40,5 +50,7 @@ const server = new SMTPServer({
   },
 });
 
-server.listen(port, "127.0.0.1", () => console.log(`fake-smtp: listening on 127.0.0.1:${port}, storing mail in ${dir}`));
+server.listen(port, "127.0.0.1", () =>
+  console.log(`fake-smtp: listening on 127.0.0.1:${port}, storing mail in ${dir}`),
+);
 for (const sig of ["SIGINT", "SIGTERM"] as const) process.on(sig, () => server.close(() => process.exit(0)));

@@ -17,14 +17,23 @@ export interface OutboxRunResult {
   failed: number;
 }
 
-export async function processOutbox(options: { transport?: Transporter; limit?: number } = {}): Promise<OutboxRunResult> {
+export async function processOutbox(
+  options: { transport?: Transporter; limit?: number } = {},
+): Promise<OutboxRunResult> {
   const transport = options.transport ?? mailTransport();
   const rows = await claimDueMessages(options.limit ?? 20);
   let sent = 0;
   let failed = 0;
   for (const m of rows) {
     try {
-      await transport.sendMail({ from: MAIL_FROM, to: m.toAddress, subject: m.subject, text: m.textBody, ...(m.htmlBody ? { html: m.htmlBody } : {}), headers: { "X-Trammel-Outbox-Id": m.id, "X-Trammel-Sender": SENDER } });
+      await transport.sendMail({
+        from: MAIL_FROM,
+        to: m.toAddress,
+        subject: m.subject,
+        text: m.textBody,
+        ...(m.htmlBody ? { html: m.htmlBody } : {}),
+        headers: { "X-Trammel-Outbox-Id": m.id, "X-Trammel-Sender": SENDER },
+      });
       await markSent(m.id);
       sent++;
     } catch (err) {

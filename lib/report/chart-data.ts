@@ -5,7 +5,13 @@
 import { signed } from "@/lib/numbers";
 import type { Decision, ReportCharts } from "./types";
 
-const DECISION_WORD: Record<Decision, string> = { pass: "pass", fail: "fail", undecided: "undecided", not_measured: "not measured", recorded: "recorded" };
+const DECISION_WORD: Record<Decision, string> = {
+  pass: "pass",
+  fail: "fail",
+  undecided: "undecided",
+  not_measured: "not measured",
+  recorded: "recorded",
+};
 
 export interface LimitRowMark {
   value: number;
@@ -40,7 +46,14 @@ const fmt = (v: number, d = 1) => signed(v, d);
 /** A value with its unit: arc seconds sit on the number (+5.2″), other units after a space. */
 const withUnit = (text: string, unit: string) => (unit === "″" ? `${text}″` : `${text} ${unit}`);
 const limitsText = (lo: number | null, hi: number | null, unit: string, d = 1) =>
-  withUnit(lo != null && hi != null ? `${fmt(lo, d)} … ${fmt(hi, d)}` : hi != null ? `≤ ${fmt(hi, d)}` : `≥ ${fmt(lo ?? 0, d)}`, unit);
+  withUnit(
+    lo != null && hi != null
+      ? `${fmt(lo, d)} … ${fmt(hi, d)}`
+      : hi != null
+        ? `≤ ${fmt(hi, d)}`
+        : `≥ ${fmt(lo ?? 0, d)}`,
+    unit,
+  );
 
 /** The before/after readings as limit rows. */
 export function readingRows(readings: NonNullable<ReportCharts["readings"]>): LimitRow[] {
@@ -49,7 +62,10 @@ export function readingRows(readings: NonNullable<ReportCharts["readings"]>): Li
     lower: r.lower,
     upper: r.upper,
     unit: r.unit,
-    marks: [...(r.pre != null ? [{ value: r.pre, kind: "before" as const }] : []), ...(r.post != null ? [{ value: r.post, kind: "after" as const }] : [])],
+    marks: [
+      ...(r.pre != null ? [{ value: r.pre, kind: "before" as const }] : []),
+      ...(r.post != null ? [{ value: r.post, kind: "after" as const }] : []),
+    ],
     note: `${r.pre != null ? `before ${withUnit(fmt(r.pre, r.digits ?? 1), r.unit)}` : "no before"} → ${r.post != null ? `after ${withUnit(fmt(r.post, r.digits ?? 1), r.unit)}` : "no after"}; limits ${limitsText(r.lower, r.upper, r.unit, r.digits ?? 1)}`,
   }));
 }
@@ -65,5 +81,3 @@ export function parameterChartRows(params: NonNullable<ReportCharts["parameters"
     note: `${fmt(p.value)} ± ${withUnit(p.U.toFixed(1), p.unit)}; limits ${limitsText(p.lower, p.upper, p.unit)}; ${DECISION_WORD[p.decision]}`,
   }));
 }
-
-

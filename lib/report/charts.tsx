@@ -10,7 +10,17 @@ import { niceTicks } from "@/lib/chart-ticks";
 import { rowDomain, type LimitRow } from "./chart-data";
 import type { ReportCharts } from "./types";
 
-const C = { ink: "#1d2125", muted: "#555d68", rule: "#d5d9de", band: "#e7efe9", limit: "#17613a", before: "#5f7d99", after: "#1d2125", fail: "#9c2420", accent: "#b86e05" };
+const C = {
+  ink: "#1d2125",
+  muted: "#555d68",
+  rule: "#d5d9de",
+  band: "#e7efe9",
+  limit: "#17613a",
+  before: "#5f7d99",
+  after: "#1d2125",
+  fail: "#9c2420",
+  accent: "#b86e05",
+};
 
 const ROW_W = 225;
 const ROW_H = 13;
@@ -26,16 +36,64 @@ function RowPlot({ row }: { row: LimitRow }) {
   return (
     <Svg width={ROW_W} height={ROW_H} viewBox={`0 0 ${ROW_W} ${ROW_H}`}>
       <Rect x={bandFrom} y={1.5} width={Math.max(0.5, bandTo - bandFrom)} height={ROW_H - 3} fill={C.band} />
-      {row.lower != null ? <Line x1={x(row.lower)} x2={x(row.lower)} y1={0.5} y2={ROW_H - 0.5} stroke={C.limit} strokeWidth={0.9} /> : null}
-      {row.upper != null ? <Line x1={x(row.upper)} x2={x(row.upper)} y1={0.5} y2={ROW_H - 0.5} stroke={C.limit} strokeWidth={0.9} /> : null}
-      {from < 0 && to > 0 ? <Line x1={x(0)} x2={x(0)} y1={2} y2={ROW_H - 2} stroke={C.muted} strokeWidth={0.4} strokeDasharray="1 1" /> : null}
-      {before && after ? <Line x1={x(before.value)} x2={x(after.value)} y1={mid} y2={mid} stroke={C.muted} strokeWidth={0.6} /> : null}
+      {row.lower != null ? (
+        <Line
+          x1={x(row.lower)}
+          x2={x(row.lower)}
+          y1={0.5}
+          y2={ROW_H - 0.5}
+          stroke={C.limit}
+          strokeWidth={0.9}
+        />
+      ) : null}
+      {row.upper != null ? (
+        <Line
+          x1={x(row.upper)}
+          x2={x(row.upper)}
+          y1={0.5}
+          y2={ROW_H - 0.5}
+          stroke={C.limit}
+          strokeWidth={0.9}
+        />
+      ) : null}
+      {from < 0 && to > 0 ? (
+        <Line
+          x1={x(0)}
+          x2={x(0)}
+          y1={2}
+          y2={ROW_H - 2}
+          stroke={C.muted}
+          strokeWidth={0.4}
+          strokeDasharray="1 1"
+        />
+      ) : null}
+      {before && after ? (
+        <Line x1={x(before.value)} x2={x(after.value)} y1={mid} y2={mid} stroke={C.muted} strokeWidth={0.6} />
+      ) : null}
       {row.marks.map((m, i) =>
-        m.U ? <Line key={`u${i}`} x1={x(m.value - m.U)} x2={x(m.value + m.U)} y1={mid} y2={mid} stroke={C.ink} strokeWidth={0.8} /> : null,
+        m.U ? (
+          <Line
+            key={`u${i}`}
+            x1={x(m.value - m.U)}
+            x2={x(m.value + m.U)}
+            y1={mid}
+            y2={mid}
+            stroke={C.ink}
+            strokeWidth={0.8}
+          />
+        ) : null,
       )}
       {row.marks.map((m, i) =>
         m.kind === "before" ? (
-          <Circle key={i} cx={x(m.value)} cy={mid} r={2.6} fill="#ffffff" stroke={C.before} strokeWidth={1.1} />
+          <Circle
+            key={i}
+            cx={x(m.value)}
+            cy={mid}
+            r={2.6}
+            fill="#ffffff"
+            stroke={C.before}
+            strokeWidth={1.1}
+          />
         ) : (
           <Circle key={i} cx={x(m.value)} cy={mid} r={2.4} fill={m.kind === "after" ? C.after : C.accent} />
         ),
@@ -49,7 +107,17 @@ export function LimitRowsChart({ rows, legend }: { rows: readonly LimitRow[]; le
   return (
     <View>
       {rows.map((r, i) => (
-        <View key={i} style={{ flexDirection: "row", alignItems: "center", borderBottomWidth: 0.4, borderBottomColor: C.rule, paddingVertical: 1.5 }} wrap={false}>
+        <View
+          key={i}
+          style={{
+            flexDirection: "row",
+            alignItems: "center",
+            borderBottomWidth: 0.4,
+            borderBottomColor: C.rule,
+            paddingVertical: 1.5,
+          }}
+          wrap={false}
+        >
           <Text style={{ width: 135, fontSize: 7.5, paddingRight: 4 }}>{r.label}</Text>
           <RowPlot row={r} />
           <Text style={{ flex: 1, fontSize: 7, color: C.muted, paddingLeft: 6 }}>{r.note}</Text>
@@ -81,14 +149,36 @@ export function ResidualsChart({ residuals }: { residuals: NonNullable<ReportCha
           <Line key={`g${t}`} x1={m.l} x2={W - m.r} y1={y(t)} y2={y(t)} stroke={C.rule} strokeWidth={0.4} />
         ))}
         {ticks.map((t) => (
-          <Text key={`t${t}`} x={m.l - 3} y={y(t) + 2} textAnchor="end" style={{ fontSize: 6 }} fill={C.muted}>
+          <Text
+            key={`t${t}`}
+            x={m.l - 3}
+            y={y(t) + 2}
+            textAnchor="end"
+            style={{ fontSize: 6 }}
+            fill={C.muted}
+          >
             {String(t)}
           </Text>
         ))}
         {residuals.valuesUm.map((v, i) => (
-          <Rect key={i} x={x(i)} y={y(v)} width={bw} height={Math.max(0.3, y(0) - y(v))} fill={v > limit ? C.fail : C.before} />
+          <Rect
+            key={i}
+            x={x(i)}
+            y={y(v)}
+            width={bw}
+            height={Math.max(0.3, y(0) - y(v))}
+            fill={v > limit ? C.fail : C.before}
+          />
         ))}
-        <Line x1={m.l} x2={W - m.r} y1={y(limit)} y2={y(limit)} stroke={C.accent} strokeWidth={0.9} strokeDasharray="3 2" />
+        <Line
+          x1={m.l}
+          x2={W - m.r}
+          y1={y(limit)}
+          y2={y(limit)}
+          stroke={C.accent}
+          strokeWidth={0.9}
+          strokeDasharray="3 2"
+        />
         <Line x1={m.l} x2={W - m.r} y1={y(0)} y2={y(0)} stroke={C.ink} strokeWidth={0.6} />
         <Text x={W - m.r} y={y(limit) - 2} textAnchor="end" style={{ fontSize: 6 }} fill={C.accent}>
           {`3 s = ${limit.toFixed(2)}`}
@@ -96,7 +186,9 @@ export function ResidualsChart({ residuals }: { residuals: NonNullable<ReportCha
       </Svg>
       <Text style={{ fontSize: 7, color: C.muted, marginTop: 2 }}>
         Largest residual component per pose in µm, {residuals.totalPoses} poses in file order
-        {residuals.perPoint > 1 ? ` (each bar the largest of ${residuals.perPoint} consecutive poses)` : ""}; dashed line: 3 s, beyond which a pose is reported as an outlier ({over} bar{over === 1 ? "" : "s"} beyond it, drawn in red). s = {residuals.sUm.toFixed(2)} µm per coordinate.
+        {residuals.perPoint > 1 ? ` (each bar the largest of ${residuals.perPoint} consecutive poses)` : ""};
+        dashed line: 3 s, beyond which a pose is reported as an outlier ({over} bar{over === 1 ? "" : "s"}{" "}
+        beyond it, drawn in red). s = {residuals.sUm.toFixed(2)} µm per coordinate.
       </Text>
     </View>
   );

@@ -5,22 +5,69 @@
  * their calibration status; environment; results with limits and uncertainty; deviations and
  * remarks; signatures with name, meaning and time; a clear end of report.
  */
-import { Circle, Document, Image, Line, Page, Path, Rect, StyleSheet, Svg, Text, View } from "@react-pdf/renderer";
+import {
+  Circle,
+  Document,
+  Image,
+  Line,
+  Page,
+  Path,
+  Rect,
+  StyleSheet,
+  Svg,
+  Text,
+  View,
+} from "@react-pdf/renderer";
 import type { Decision, ReportData } from "./types";
 import { BODY_FONT, MONO_FONT } from "./fonts";
 import { parameterChartRows, readingRows } from "./chart-data";
 import { LimitRowsChart, ResidualsChart } from "./charts";
 
-const C = { ink: "#1d2125", muted: "#555d68", rule: "#d5d9de", band: "#f6f7f8", accent: "#b86e05", nominal: "#5f7d99", pass: "#17613a", fail: "#9c2420", undecided: "#553791", none: "#5c6470" };
+const C = {
+  ink: "#1d2125",
+  muted: "#555d68",
+  rule: "#d5d9de",
+  band: "#f6f7f8",
+  accent: "#b86e05",
+  nominal: "#5f7d99",
+  pass: "#17613a",
+  fail: "#9c2420",
+  undecided: "#553791",
+  none: "#5c6470",
+};
 
 const s = StyleSheet.create({
-  page: { fontFamily: BODY_FONT as unknown as string, fontSize: 8.5, color: C.ink, paddingTop: 44, paddingBottom: 56, paddingHorizontal: 40 },
-  header: { flexDirection: "row", justifyContent: "space-between", alignItems: "flex-start", borderBottomWidth: 1.5, borderBottomColor: C.ink, paddingBottom: 8, marginBottom: 12 },
+  page: {
+    fontFamily: BODY_FONT as unknown as string,
+    fontSize: 8.5,
+    color: C.ink,
+    paddingTop: 44,
+    paddingBottom: 56,
+    paddingHorizontal: 40,
+  },
+  header: {
+    flexDirection: "row",
+    justifyContent: "space-between",
+    alignItems: "flex-start",
+    borderBottomWidth: 1.5,
+    borderBottomColor: C.ink,
+    paddingBottom: 8,
+    marginBottom: 12,
+  },
   title: { fontSize: 15, fontWeight: 700, lineHeight: 1.2 },
   subtitle: { fontSize: 9, color: C.muted, marginTop: 2 },
   idBox: { alignItems: "flex-end" },
   mono: { fontFamily: MONO_FONT as unknown as string },
-  h2: { fontSize: 10.5, lineHeight: 1.2, fontWeight: 700, marginTop: 12, marginBottom: 5, paddingBottom: 2, borderBottomWidth: 0.75, borderBottomColor: C.rule },
+  h2: {
+    fontSize: 10.5,
+    lineHeight: 1.2,
+    fontWeight: 700,
+    marginTop: 12,
+    marginBottom: 5,
+    paddingBottom: 2,
+    borderBottomWidth: 0.75,
+    borderBottomColor: C.rule,
+  },
   grid: { flexDirection: "row", gap: 16 },
   col: { flex: 1 },
   factRow: { flexDirection: "row", marginBottom: 2 },
@@ -31,19 +78,47 @@ const s = StyleSheet.create({
   th: { backgroundColor: C.band, fontWeight: 700, color: C.muted, fontSize: 7.5 },
   td: { paddingVertical: 3, paddingHorizontal: 4 },
   num: { fontFamily: MONO_FONT as unknown as string, textAlign: "right" },
-  footerRule: { position: "absolute", bottom: 36, left: 40, right: 40, borderTopWidth: 0.5, borderTopColor: C.rule },
+  footerRule: {
+    position: "absolute",
+    bottom: 36,
+    left: 40,
+    right: 40,
+    borderTopWidth: 0.5,
+    borderTopColor: C.rule,
+  },
   // Dynamic (render) text vanishes under a line height: none here, nor on the page.
   footerText: { position: "absolute", bottom: 24, fontSize: 7, color: C.muted, fontFamily: "PlexSans" },
   note: { borderWidth: 1.2, borderColor: C.accent, padding: 7, marginTop: 4, backgroundColor: "#fff8eb" },
   sigBox: { width: "48%", borderWidth: 0.75, borderColor: C.rule, padding: 7, marginBottom: 8 },
-  end: { marginTop: 14, paddingTop: 6, borderTopWidth: 1.5, borderTopColor: C.ink, textAlign: "center", fontWeight: 700 },
+  end: {
+    marginTop: 14,
+    paddingTop: 6,
+    borderTopWidth: 1.5,
+    borderTopColor: C.ink,
+    textAlign: "center",
+    fontWeight: 700,
+  },
 });
 
-const DECISION_TEXT: Record<Decision, string> = { pass: "✓ Pass", fail: "✗ Fail", undecided: "? Undecided", not_measured: "– Not measured", recorded: "• Recorded" };
-const DECISION_COLOUR: Record<Decision, string> = { pass: C.pass, fail: C.fail, undecided: C.undecided, not_measured: C.none, recorded: C.none };
+const DECISION_TEXT: Record<Decision, string> = {
+  pass: "✓ Pass",
+  fail: "✗ Fail",
+  undecided: "? Undecided",
+  not_measured: "– Not measured",
+  recorded: "• Recorded",
+};
+const DECISION_COLOUR: Record<Decision, string> = {
+  pass: C.pass,
+  fail: C.fail,
+  undecided: C.undecided,
+  not_measured: C.none,
+  recorded: C.none,
+};
 
 function DecisionCell({ d, width }: { d: Decision; width: string }) {
-  return <Text style={[s.td, { width, color: DECISION_COLOUR[d], fontWeight: 700 }]}>{DECISION_TEXT[d]}</Text>;
+  return (
+    <Text style={[s.td, { width, color: DECISION_COLOUR[d], fontWeight: 700 }]}>{DECISION_TEXT[d]}</Text>
+  );
 }
 
 function Facts({ rows }: { rows: Array<[string, string | undefined]> }) {
@@ -117,31 +192,54 @@ function figureSize(w: number, h: number) {
 function FiguresAndCharts({ data, images }: { data: ReportData; images: ReadonlyMap<string, Buffer> }) {
   const charts = data.charts ?? {};
   let n = 0;
-  const caption = (text: string) => <Text style={{ color: C.muted, marginTop: 3, marginBottom: 8 }}>Figure {++n}. {text}</Text>;
-  const none = data.figures.length === 0 && !charts.readings?.length && !charts.parameters?.length && !charts.residuals;
+  const caption = (text: string) => (
+    <Text style={{ color: C.muted, marginTop: 3, marginBottom: 8 }}>
+      Figure {++n}. {text}
+    </Text>
+  );
+  const none =
+    data.figures.length === 0 && !charts.readings?.length && !charts.parameters?.length && !charts.residuals;
   return (
     <View break={!none}>
       <Text style={s.h2}>7 Figures and charts</Text>
-      {none ? <Text style={{ color: C.muted }}>No figures: nothing measured on this job gives a chart.</Text> : null}
+      {none ? (
+        <Text style={{ color: C.muted }}>No figures: nothing measured on this job gives a chart.</Text>
+      ) : null}
       {data.figures.map((f) => {
         const png = images.get(f.sha256);
         return (
           <View key={f.sha256} wrap={false}>
-            {png ? <Image src={png} style={figureSize(f.widthPx, f.heightPx)} /> : <Text style={{ color: C.fail }}>The picture with SHA-256 {f.sha256} was not available when this report was rendered.</Text>}
+            {png ? (
+              <Image src={png} style={figureSize(f.widthPx, f.heightPx)} />
+            ) : (
+              <Text style={{ color: C.fail }}>
+                The picture with SHA-256 {f.sha256} was not available when this report was rendered.
+              </Text>
+            )}
             {caption(`${f.caption} (${f.widthPx} × ${f.heightPx} px, SHA-256 ${f.sha256.slice(0, 16)}…)`)}
           </View>
         );
       })}
-      {data.figures.length === 0 && data.parameters.length > 0 ? <Text style={{ color: C.muted, marginBottom: 6 }}>No picture of the 3D view was saved for this report.</Text> : null}
+      {data.figures.length === 0 && data.parameters.length > 0 ? (
+        <Text style={{ color: C.muted, marginBottom: 6 }}>
+          No picture of the 3D view was saved for this report.
+        </Text>
+      ) : null}
       {charts.readings?.length ? (
         <View wrap={false}>
-          <LimitRowsChart rows={readingRows(charts.readings)} legend="Hollow ring: before adjustment; filled dot: after; green lines: the limits, shaded between. Each row has its own scale; lengths in mm, angles in arc seconds, as in the readings table." />
+          <LimitRowsChart
+            rows={readingRows(charts.readings)}
+            legend="Hollow ring: before adjustment; filled dot: after; green lines: the limits, shaded between. Each row has its own scale; lengths in mm, angles in arc seconds, as in the readings table."
+          />
           {caption("Checklist readings before and after adjustment against their limits.")}
         </View>
       ) : null}
       {charts.parameters?.length ? (
         <View wrap={false}>
-          <LimitRowsChart rows={parameterChartRows(charts.parameters)} legend="Dot: the fitted value; bar: ± U (k = 2); green lines: the procedure's limits, shaded between. Each row has its own scale." />
+          <LimitRowsChart
+            rows={parameterChartRows(charts.parameters)}
+            legend="Dot: the fitted value; bar: ± U (k = 2); green lines: the procedure's limits, shaded between. Each row has its own scale."
+          />
           {caption("Fitted head parameters against the procedure's limits.")}
         </View>
       ) : null}
@@ -155,164 +253,257 @@ function FiguresAndCharts({ data, images }: { data: ReportData; images: Readonly
   );
 }
 
-export function ReportDocument({ data, qrDataUrl, images = new Map() }: { data: ReportData; qrDataUrl: string; images?: ReadonlyMap<string, Buffer> }) {
+export function ReportDocument({
+  data,
+  qrDataUrl,
+  images = new Map(),
+}: {
+  data: ReportData;
+  qrDataUrl: string;
+  images?: ReadonlyMap<string, Buffer>;
+}) {
   const rev = `revision ${data.revision}`;
   return (
-    <Document title={`Acceptance report ${data.reference} ${rev}`} author={data.issuer.name} subject={`Two-axis head ${data.head.serial}`} creator="Trammel" producer="Trammel">
+    <Document
+      title={`Acceptance report ${data.reference} ${rev}`}
+      author={data.issuer.name}
+      subject={`Two-axis head ${data.head.serial}`}
+      creator="Trammel"
+      producer="Trammel"
+    >
       <Page size="A4" style={s.page}>
         <View style={s.footerRule} fixed />
         <Text style={[s.footerText, { left: 40, right: 200 }]} fixed>
           {data.reference} · {rev} · {data.reportId}
         </Text>
-        <Text style={[s.footerText, { left: 400, right: 40, textAlign: "right" }]} fixed render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
+        <Text
+          style={[s.footerText, { left: 400, right: 40, textAlign: "right" }]}
+          fixed
+          render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`}
+        />
         <View>
-        <View style={s.header} fixed>
-          <View style={{ flexDirection: "row", gap: 8, alignItems: "center" }}>
-            <Mark />
-            <View>
-              <Text style={s.title}>Acceptance report — two-axis head</Text>
-              <Text style={s.subtitle}>{data.issuer.name}{data.issuer.address ? ` · ${data.issuer.address}` : ""}</Text>
+          <View style={s.header} fixed>
+            <View style={{ flexDirection: "row", gap: 8, alignItems: "center" }}>
+              <Mark />
+              <View>
+                <Text style={s.title}>Acceptance report — two-axis head</Text>
+                <Text style={s.subtitle}>
+                  {data.issuer.name}
+                  {data.issuer.address ? ` · ${data.issuer.address}` : ""}
+                </Text>
+              </View>
             </View>
-          </View>
-          <View style={s.idBox}>
-            <Text style={[s.mono, { fontSize: 9, fontWeight: 700 }]}>{data.reference}</Text>
-            <Text style={s.subtitle}>{rev}{data.issuedAtUtc ? ` · issued ${data.issuedAtUtc}` : " · not issued"}</Text>
-            <Text style={[s.mono, { fontSize: 6.5, color: C.muted }]}>{data.reportId}</Text>
-          </View>
-        </View>
-
-        {data.amendment ? (
-          <View style={s.note}>
-            <Text style={{ fontWeight: 700 }}>Amendment: this revision supersedes revision {data.amendment.supersedesRevision}.</Text>
-            <Text>{data.amendment.reason}</Text>
-          </View>
-        ) : null}
-
-        <Text style={s.h2} minPresenceAhead={40}>1 Identification</Text>
-        <View style={s.grid}>
-          <View style={s.col}>
-            <Facts rows={[["Customer", data.customer.name], ["Site", [data.customer.site, data.customer.address].filter(Boolean).join(", ")], ["Host machine", `${data.machine.name} (${data.machine.kind})`], ["Builder, model", data.machine.builderModel], ["Machine serial", data.machine.serial], ["Control", data.machine.control]]} />
-          </View>
-          <View style={s.col}>
-            <Facts rows={[["Head serial", data.head.serial], ["Maker, model", data.head.makerModel], ["Axes", data.head.axes], ["Nominal pivot length", data.head.nominalPivotLength], ["Mass", data.head.mass]] } />
-          </View>
-        </View>
-
-        <Text style={s.h2} minPresenceAhead={40}>2 Work, method and decision rule</Text>
-        <Facts rows={[["Job", `${data.work.title} (${data.work.kind})`], ["Dates of work", data.work.dates], ["Procedure", data.work.procedure], ["Method", data.work.method], ["Decision rule", data.work.decisionRule], ["Environment", data.work.airTemperature]]} />
-
-        <Text style={s.h2} minPresenceAhead={40}>3 Instruments</Text>
-        <Table
-          rows={data.instruments}
-          empty="No instruments were recorded."
-          cols={[
-            { header: "Instrument", width: "26%", cell: (r) => r.kind },
-            { header: "Serial", width: "16%", cell: (r) => r.serial },
-            { header: "Resolution", width: "14%", cell: (r) => r.resolution, numeric: true },
-            { header: "Std. uncertainty", width: "16%", cell: (r) => r.uncertainty, numeric: true },
-            { header: "Calibration due", width: "14%", cell: (r) => r.calibrationDue },
-            { header: "Status", width: "14%", cell: (r) => r.status },
-          ]}
-        />
-
-        <Text style={s.h2} minPresenceAhead={40}>4 Readings before and after adjustment</Text>
-        <Text style={{ color: C.muted, marginBottom: 3 }}>{DecisionWithRowsOf(data.readings)} (judged on the final reading)</Text>
-        <Table
-          rows={data.readings}
-          empty="No checklist readings."
-          cols={[
-            { header: "Step", width: "30%", cell: (r) => r.step },
-            { header: "Limits", width: "17%", cell: (r) => r.limits },
-            { header: "Before", width: "13%", cell: (r) => r.pre ?? "—", numeric: true },
-            { header: "After", width: "13%", cell: (r) => r.post ?? "—", numeric: true },
-            { header: "Change", width: "12%", cell: (r) => r.change ?? "—", numeric: true },
-            { header: "Result", width: "15%", cell: (r) => DECISION_TEXT[r.decision] },
-          ]}
-        />
-
-        <Text style={s.h2} minPresenceAhead={40}>5 Kinematic parameters of the head</Text>
-        <Text style={{ color: C.muted, marginBottom: 3 }}>Fitted from sphere-probe data; U is the expanded uncertainty (k = 2, about 95 %).</Text>
-        <View style={s.table}>
-          <View style={[s.tr, s.th]} fixed>
-            {["Parameter", "ISO 230-1", "Value", "U (k = 2)", "Tolerance", "Identifiable", "Result"].map((h, i) => (
-              <Text key={h} style={[s.td, { width: ["27%", "11%", "14%", "12%", "12%", "11%", "13%"][i] }]}>
-                {h}
+            <View style={s.idBox}>
+              <Text style={[s.mono, { fontSize: 9, fontWeight: 700 }]}>{data.reference}</Text>
+              <Text style={s.subtitle}>
+                {rev}
+                {data.issuedAtUtc ? ` · issued ${data.issuedAtUtc}` : " · not issued"}
               </Text>
-            ))}
-          </View>
-          {data.parameters.length === 0 ? <Text style={[s.td, { color: C.muted }]}>No kinematic fit is part of this report.</Text> : null}
-          {data.parameters.map((p) => (
-            <View key={p.symbol + p.name} style={s.tr} wrap={false}>
-              <Text style={[s.td, { width: "27%" }]}>{p.name}</Text>
-              <Text style={[s.td, s.mono, { width: "11%" }]}>{p.symbol}</Text>
-              <Text style={[s.td, s.num, { width: "14%" }]}>{p.value}</Text>
-              <Text style={[s.td, s.num, { width: "12%" }]}>{p.expanded === "—" ? "—" : `± ${p.expanded}`}</Text>
-              <Text style={[s.td, s.num, { width: "12%" }]}>{p.tolerance ?? "—"}</Text>
-              <Text style={[s.td, { width: "11%" }]}>{p.identifiable}</Text>
-              <DecisionCell d={p.decision} width="13%" />
+              <Text style={[s.mono, { fontSize: 6.5, color: C.muted }]}>{data.reportId}</Text>
             </View>
-          ))}
-        </View>
-
-        <Text style={s.h2} minPresenceAhead={40}>6 Test part</Text>
-        <Text style={{ color: C.muted, marginBottom: 3 }}>{DecisionWithRowsOf(data.testPart)}</Text>
-        <Table
-          rows={data.testPart}
-          empty="No test part was measured for this report."
-          cols={[
-            { header: "Feature", width: "14%", cell: (r) => r.feature },
-            { header: "Characteristic", width: "15%", cell: (r) => r.characteristic },
-            { header: "Nominal", width: "12%", cell: (r) => r.nominal, numeric: true },
-            { header: "Measured", width: "12%", cell: (r) => r.measured, numeric: true },
-            { header: "Deviation", width: "10%", cell: (r) => r.deviation, numeric: true },
-            { header: "Limits", width: "19%", cell: (r) => r.limits, numeric: true },
-            { header: "U", width: "8%", cell: (r) => r.expanded, numeric: true },
-            { header: "Result", width: "13%", cell: (r) => DECISION_TEXT[r.decision] },
-          ]}
-        />
-
-        <FiguresAndCharts data={data} images={images} />
-
-        <View wrap={false}>
-          <Text style={s.h2}>8 Deviations and remarks</Text>
-          {data.remarks.length ? data.remarks.map((r, i) => <Text key={i}>• {r}</Text>) : <Text style={{ color: C.muted }}>None.</Text>}
-        </View>
-
-        <View wrap={false}>
-          <Text style={s.h2} minPresenceAhead={40}>9 Safety</Text>
-          <View style={s.note}>
-            {data.safety.map((t, i) => (
-              <Text key={i}>⚠ {t}</Text>
-            ))}
           </View>
-        </View>
 
-        <View wrap={false}>
-          <Text style={s.h2} minPresenceAhead={40}>10 Signatures</Text>
-          <View style={{ flexDirection: "row", flexWrap: "wrap", justifyContent: "space-between" }}>
-            {data.signatures.length === 0 ? <Text style={{ color: C.muted }}>Not signed yet.</Text> : null}
-            {data.signatures.map((g, i) => (
-              <View key={i} style={s.sigBox}>
-                <Text style={{ fontWeight: 700 }}>{g.meaning}</Text>
-                <Text>{g.name} — {g.role}</Text>
-                <Text style={s.mono}>{g.signedAtUtc}</Text>
-                <Text style={{ color: C.muted, fontSize: 7 }}>Signed electronically; the signer re-entered their password at signing.</Text>
+          {data.amendment ? (
+            <View style={s.note}>
+              <Text style={{ fontWeight: 700 }}>
+                Amendment: this revision supersedes revision {data.amendment.supersedesRevision}.
+              </Text>
+              <Text>{data.amendment.reason}</Text>
+            </View>
+          ) : null}
+
+          <Text style={s.h2} minPresenceAhead={40}>
+            1 Identification
+          </Text>
+          <View style={s.grid}>
+            <View style={s.col}>
+              <Facts
+                rows={[
+                  ["Customer", data.customer.name],
+                  ["Site", [data.customer.site, data.customer.address].filter(Boolean).join(", ")],
+                  ["Host machine", `${data.machine.name} (${data.machine.kind})`],
+                  ["Builder, model", data.machine.builderModel],
+                  ["Machine serial", data.machine.serial],
+                  ["Control", data.machine.control],
+                ]}
+              />
+            </View>
+            <View style={s.col}>
+              <Facts
+                rows={[
+                  ["Head serial", data.head.serial],
+                  ["Maker, model", data.head.makerModel],
+                  ["Axes", data.head.axes],
+                  ["Nominal pivot length", data.head.nominalPivotLength],
+                  ["Mass", data.head.mass],
+                ]}
+              />
+            </View>
+          </View>
+
+          <Text style={s.h2} minPresenceAhead={40}>
+            2 Work, method and decision rule
+          </Text>
+          <Facts
+            rows={[
+              ["Job", `${data.work.title} (${data.work.kind})`],
+              ["Dates of work", data.work.dates],
+              ["Procedure", data.work.procedure],
+              ["Method", data.work.method],
+              ["Decision rule", data.work.decisionRule],
+              ["Environment", data.work.airTemperature],
+            ]}
+          />
+
+          <Text style={s.h2} minPresenceAhead={40}>
+            3 Instruments
+          </Text>
+          <Table
+            rows={data.instruments}
+            empty="No instruments were recorded."
+            cols={[
+              { header: "Instrument", width: "26%", cell: (r) => r.kind },
+              { header: "Serial", width: "16%", cell: (r) => r.serial },
+              { header: "Resolution", width: "14%", cell: (r) => r.resolution, numeric: true },
+              { header: "Std. uncertainty", width: "16%", cell: (r) => r.uncertainty, numeric: true },
+              { header: "Calibration due", width: "14%", cell: (r) => r.calibrationDue },
+              { header: "Status", width: "14%", cell: (r) => r.status },
+            ]}
+          />
+
+          <Text style={s.h2} minPresenceAhead={40}>
+            4 Readings before and after adjustment
+          </Text>
+          <Text style={{ color: C.muted, marginBottom: 3 }}>
+            {DecisionWithRowsOf(data.readings)} (judged on the final reading)
+          </Text>
+          <Table
+            rows={data.readings}
+            empty="No checklist readings."
+            cols={[
+              { header: "Step", width: "30%", cell: (r) => r.step },
+              { header: "Limits", width: "17%", cell: (r) => r.limits },
+              { header: "Before", width: "13%", cell: (r) => r.pre ?? "—", numeric: true },
+              { header: "After", width: "13%", cell: (r) => r.post ?? "—", numeric: true },
+              { header: "Change", width: "12%", cell: (r) => r.change ?? "—", numeric: true },
+              { header: "Result", width: "15%", cell: (r) => DECISION_TEXT[r.decision] },
+            ]}
+          />
+
+          <Text style={s.h2} minPresenceAhead={40}>
+            5 Kinematic parameters of the head
+          </Text>
+          <Text style={{ color: C.muted, marginBottom: 3 }}>
+            Fitted from sphere-probe data; U is the expanded uncertainty (k = 2, about 95 %).
+          </Text>
+          <View style={s.table}>
+            <View style={[s.tr, s.th]} fixed>
+              {["Parameter", "ISO 230-1", "Value", "U (k = 2)", "Tolerance", "Identifiable", "Result"].map(
+                (h, i) => (
+                  <Text
+                    key={h}
+                    style={[s.td, { width: ["27%", "11%", "14%", "12%", "12%", "11%", "13%"][i] }]}
+                  >
+                    {h}
+                  </Text>
+                ),
+              )}
+            </View>
+            {data.parameters.length === 0 ? (
+              <Text style={[s.td, { color: C.muted }]}>No kinematic fit is part of this report.</Text>
+            ) : null}
+            {data.parameters.map((p) => (
+              <View key={p.symbol + p.name} style={s.tr} wrap={false}>
+                <Text style={[s.td, { width: "27%" }]}>{p.name}</Text>
+                <Text style={[s.td, s.mono, { width: "11%" }]}>{p.symbol}</Text>
+                <Text style={[s.td, s.num, { width: "14%" }]}>{p.value}</Text>
+                <Text style={[s.td, s.num, { width: "12%" }]}>
+                  {p.expanded === "—" ? "—" : `± ${p.expanded}`}
+                </Text>
+                <Text style={[s.td, s.num, { width: "12%" }]}>{p.tolerance ?? "—"}</Text>
+                <Text style={[s.td, { width: "11%" }]}>{p.identifiable}</Text>
+                <DecisionCell d={p.decision} width="13%" />
               </View>
             ))}
           </View>
-        </View>
 
-        <View wrap={false} style={{ flexDirection: "row", gap: 10, marginTop: 10, alignItems: "center" }}>
-          <Image src={qrDataUrl} style={{ width: 72, height: 72 }} />
-          <View style={{ flex: 1 }}>
-            <Text style={{ fontWeight: 700 }}>Verify this report</Text>
-            <Text>Scan the code or open {data.verifyUrl} and upload this file: the check compares its SHA-256 with the signed record.</Text>
-            <Text style={[s.mono, { fontSize: 7, color: C.muted }]}>content SHA-256 {data.contentSha256}</Text>
+          <Text style={s.h2} minPresenceAhead={40}>
+            6 Test part
+          </Text>
+          <Text style={{ color: C.muted, marginBottom: 3 }}>{DecisionWithRowsOf(data.testPart)}</Text>
+          <Table
+            rows={data.testPart}
+            empty="No test part was measured for this report."
+            cols={[
+              { header: "Feature", width: "14%", cell: (r) => r.feature },
+              { header: "Characteristic", width: "15%", cell: (r) => r.characteristic },
+              { header: "Nominal", width: "12%", cell: (r) => r.nominal, numeric: true },
+              { header: "Measured", width: "12%", cell: (r) => r.measured, numeric: true },
+              { header: "Deviation", width: "10%", cell: (r) => r.deviation, numeric: true },
+              { header: "Limits", width: "19%", cell: (r) => r.limits, numeric: true },
+              { header: "U", width: "8%", cell: (r) => r.expanded, numeric: true },
+              { header: "Result", width: "13%", cell: (r) => DECISION_TEXT[r.decision] },
+            ]}
+          />
+
+          <FiguresAndCharts data={data} images={images} />
+
+          <View wrap={false}>
+            <Text style={s.h2}>8 Deviations and remarks</Text>
+            {data.remarks.length ? (
+              data.remarks.map((r, i) => <Text key={i}>• {r}</Text>)
+            ) : (
+              <Text style={{ color: C.muted }}>None.</Text>
+            )}
           </View>
-        </View>
-        <Text style={s.end}>END OF REPORT</Text>
-        </View>
 
+          <View wrap={false}>
+            <Text style={s.h2} minPresenceAhead={40}>
+              9 Safety
+            </Text>
+            <View style={s.note}>
+              {data.safety.map((t, i) => (
+                <Text key={i}>⚠ {t}</Text>
+              ))}
+            </View>
+          </View>
+
+          <View wrap={false}>
+            <Text style={s.h2} minPresenceAhead={40}>
+              10 Signatures
+            </Text>
+            <View style={{ flexDirection: "row", flexWrap: "wrap", justifyContent: "space-between" }}>
+              {data.signatures.length === 0 ? <Text style={{ color: C.muted }}>Not signed yet.</Text> : null}
+              {data.signatures.map((g, i) => (
+                <View key={i} style={s.sigBox}>
+                  <Text style={{ fontWeight: 700 }}>{g.meaning}</Text>
+                  <Text>
+                    {g.name} — {g.role}
+                  </Text>
+                  <Text style={s.mono}>{g.signedAtUtc}</Text>
+                  <Text style={{ color: C.muted, fontSize: 7 }}>
+                    Signed electronically; the signer re-entered their password at signing.
+                  </Text>
+                </View>
+              ))}
+            </View>
+          </View>
+
+          <View wrap={false} style={{ flexDirection: "row", gap: 10, marginTop: 10, alignItems: "center" }}>
+            <Image src={qrDataUrl} style={{ width: 72, height: 72 }} />
+            <View style={{ flex: 1 }}>
+              <Text style={{ fontWeight: 700 }}>Verify this report</Text>
+              <Text>
+                Scan the code or open {data.verifyUrl} and upload this file: the check compares its SHA-256
+                with the signed record.
+              </Text>
+              <Text style={[s.mono, { fontSize: 7, color: C.muted }]}>
+                content SHA-256 {data.contentSha256}
+              </Text>
+            </View>
+          </View>
+          <Text style={s.end}>END OF REPORT</Text>
+        </View>
       </Page>
     </Document>
   );

@@ -7,6 +7,8 @@ import { loadOrCreateSigningKey, type SigningKey } from "./signing";
 let cached: SigningKey | undefined;
 
 export function getSigningKey(): SigningKey {
-  cached ??= loadOrCreateSigningKey(path.resolve(/*turbopackIgnore: true*/ process.cwd(), env.REPORT_KEY_DIR));
+  cached ??= loadOrCreateSigningKey(
+    path.resolve(/*turbopackIgnore: true*/ process.cwd(), env.REPORT_KEY_DIR),
+  );
   return cached;
 }

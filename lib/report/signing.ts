@@ -4,7 +4,16 @@
  * signature and the UTC time. The key pair lives outside the database (a folder of PEM files,
  * created on first use), so a database dump alone cannot forge a signature.
  */
-import { createHash, createPrivateKey, createPublicKey, generateKeyPairSync, randomBytes, sign, verify, type KeyObject } from "node:crypto";
+import {
+  createHash,
+  createPrivateKey,
+  createPublicKey,
+  generateKeyPairSync,
+  randomBytes,
+  sign,
+  verify,
+  type KeyObject,
+} from "node:crypto";
 import { existsSync, linkSync, mkdirSync, readFileSync, unlinkSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { canonicalJson } from "@/lib/canonical-json";
@@ -73,7 +82,8 @@ export function loadOrCreateSigningKey(dir: string): SigningKey {
   const privateKey = createPrivateKey(readFileSync(privPath));
   const publicKey = createPublicKey(privateKey);
   const publicKeyPem = publicKey.export({ type: "spki", format: "pem" }).toString();
-  if (!existsSync(pubPath) || readFileSync(pubPath, "utf8") !== publicKeyPem) writeFileSync(pubPath, publicKeyPem, { mode: 0o644 });
+  if (!existsSync(pubPath) || readFileSync(pubPath, "utf8") !== publicKeyPem)
+    writeFileSync(pubPath, publicKeyPem, { mode: 0o644 });
   return { keyId: keyIdOf(publicKey), privateKey, publicKey, publicKeyPem };
 }
 
@@ -107,7 +117,12 @@ export function verifySignedPdf(
   signature: string,
   publicKey: KeyObject,
 ): { ok: true } | { ok: false; reason: string } {
-  if (!m.pdfSha256 || sha256Hex(pdf) !== m.pdfSha256) return { ok: false, reason: "The file's SHA-256 does not match the signed report: it was altered or is another file." };
-  if (!verifyManifest(m, signature, publicKey)) return { ok: false, reason: "The signature does not verify against the published key." };
+  if (!m.pdfSha256 || sha256Hex(pdf) !== m.pdfSha256)
+    return {
+      ok: false,
+      reason: "The file's SHA-256 does not match the signed report: it was altered or is another file.",
+    };
+  if (!verifyManifest(m, signature, publicKey))
+    return { ok: false, reason: "The signature does not verify against the published key." };
   return { ok: true };
 }

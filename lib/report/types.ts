@@ -25,11 +25,52 @@ export interface ReportData {
   customer: { name: string; site: string; address?: string };
   machine: { name: string; kind: string; builderModel?: string; serial?: string; control?: string };
   head: { serial: string; makerModel?: string; axes: string; nominalPivotLength: string; mass?: string };
-  work: { kind: string; title: string; dates: string; airTemperature?: string; procedure: string; method: string; decisionRule: string };
-  instruments: Array<{ kind: string; serial: string; resolution: string; uncertainty: string; calibrationDue: string; status: string }>;
-  readings: Array<{ step: string; limits: string; pre?: string; post?: string; change?: string; decision: Decision; source: string }>;
-  parameters: Array<{ name: string; symbol: string; value: string; expanded: string; tolerance?: string; limitSource?: string; decision: Decision; identifiable: string }>;
-  testPart: Array<{ feature: string; characteristic: string; nominal: string; measured: string; deviation: string; limits: string; expanded: string; decision: Decision }>;
+  work: {
+    kind: string;
+    title: string;
+    dates: string;
+    airTemperature?: string;
+    procedure: string;
+    method: string;
+    decisionRule: string;
+  };
+  instruments: Array<{
+    kind: string;
+    serial: string;
+    resolution: string;
+    uncertainty: string;
+    calibrationDue: string;
+    status: string;
+  }>;
+  readings: Array<{
+    step: string;
+    limits: string;
+    pre?: string;
+    post?: string;
+    change?: string;
+    decision: Decision;
+    source: string;
+  }>;
+  parameters: Array<{
+    name: string;
+    symbol: string;
+    value: string;
+    expanded: string;
+    tolerance?: string;
+    limitSource?: string;
+    decision: Decision;
+    identifiable: string;
+  }>;
+  testPart: Array<{
+    feature: string;
+    characteristic: string;
+    nominal: string;
+    measured: string;
+    deviation: string;
+    limits: string;
+    expanded: string;
+    decision: Decision;
+  }>;
   /**
    * Pictures saved by the engineer (the 3D view): named by the SHA-256 of the PNG, whose bytes are
    * handed to the renderer beside the data, so the signed content hash covers the picture.
@@ -57,9 +98,25 @@ export interface ReportFigure {
 
 export interface ReportCharts {
   /** Each step with limits: its limits and the before and after values, in the unit the readings table uses (mm or ″). */
-  readings?: Array<{ step: string; lower: number | null; upper: number | null; pre: number | null; post: number | null; unit: string; /** decimals shown (default 1) */ digits?: number }>;
+  readings?: Array<{
+    step: string;
+    lower: number | null;
+    upper: number | null;
+    pre: number | null;
+    post: number | null;
+    unit: string;
+    /** decimals shown (default 1) */ digits?: number;
+  }>;
   /** Each judged head parameter: value and U against its limits, in its own unit. */
-  parameters?: Array<{ symbol: string; value: number; U: number; lower: number | null; upper: number | null; unit: string; decision: Decision }>;
+  parameters?: Array<{
+    symbol: string;
+    value: number;
+    U: number;
+    lower: number | null;
+    upper: number | null;
+    unit: string;
+    decision: Decision;
+  }>;
   /** Residual magnitude per pose (µm), at most a few hundred points (the largest of each bucket), with s and the 3 s outlier line. */
   residuals?: { valuesUm: number[]; totalPoses: number; sUm: number; perPoint: number };
 }

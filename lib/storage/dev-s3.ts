@@ -11,7 +11,13 @@ const bucket = process.env.S3_BUCKET ?? "trammel-uploads";
 const directory = process.env.S3_DIR ?? ".data/s3";
 mkdirSync(directory, { recursive: true });
 
-const server = new S3rver({ port, address: "127.0.0.1", directory, silent: true, configureBuckets: [{ name: bucket, configs: [] }] });
+const server = new S3rver({
+  port,
+  address: "127.0.0.1",
+  directory,
+  silent: true,
+  configureBuckets: [{ name: bucket, configs: [] }],
+});
 await server.run();
 console.error(`dev-s3: s3rver on http://127.0.0.1:${port}, bucket ${bucket}, files in ${directory}`);
 const stop = () => {

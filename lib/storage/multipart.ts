@@ -29,10 +29,16 @@ function limitMessage(maxBytes: number): string {
 }
 
 /** Reads `req` (multipart/form-data, one part named `fileField`) within `maxBytes`; throws 413 or 422. */
-export async function readMultipart(req: Request, maxBytes: number, fileField = "file"): Promise<MultipartUpload> {
+export async function readMultipart(
+  req: Request,
+  maxBytes: number,
+  fileField = "file",
+): Promise<MultipartUpload> {
   const contentType = req.headers.get("content-type") ?? "";
   if (!/^multipart\/form-data\s*;/i.test(contentType)) {
-    throw invalid("Send the upload as multipart/form-data.", [{ field: "content-type", message: "expected multipart/form-data with a boundary" }]);
+    throw invalid("Send the upload as multipart/form-data.", [
+      { field: "content-type", message: "expected multipart/form-data with a boundary" },
+    ]);
   }
   const declared = req.headers.get("content-length");
   if (declared !== null && Number(declared) > maxBytes) {
@@ -40,7 +46,8 @@ export async function readMultipart(req: Request, maxBytes: number, fileField = 
     void req.body?.cancel().catch(() => undefined);
     throw tooLarge(limitMessage(maxBytes));
   }
-  if (!req.body) throw invalid("The upload has no body.", [{ field: fileField, message: "no file was sent" }]);
+  if (!req.body)
+    throw invalid("The upload has no body.", [{ field: fileField, message: "no file was sent" }]);
 
   let bb: busboy.Busboy;
   try {
@@ -50,7 +57,9 @@ export async function readMultipart(req: Request, maxBytes: number, fileField = 
       defParamCharset: "utf8",
     });
   } catch {
-    throw invalid("The multipart body has no boundary.", [{ field: "content-type", message: "missing boundary" }]);
+    throw invalid("The multipart body has no boundary.", [
+      { field: "content-type", message: "missing boundary" },
+    ]);
   }
 
   const fields: Record<string, string> = {};
@@ -62,7 +71,12 @@ export async function readMultipart(req: Request, maxBytes: number, fileField = 
 
   const done = new Promise<void>((resolve) => {
     bb.on("field", (name, value, info) => {
-      if (info.valueTruncated) fail(invalid(`The field '${name}' is too long.`, [{ field: name, message: `longer than ${MAX_FIELD_BYTES} bytes` }]));
+      if (info.valueTruncated)
+        fail(
+          invalid(`The field '${name}' is too long.`, [
+            { field: name, message: `longer than ${MAX_FIELD_BYTES} bytes` },
+          ]),
+        );
       else fields[name] = value;
     });
     bb.on("file", (name, stream, info) => {
@@ -81,7 +95,9 @@ export async function readMultipart(req: Request, maxBytes: number, fileField = 
       stream.on("data", (c: Buffer) => {
         hash.update(c);
         if (used + c.length > buf.length) {
-          const grown = Buffer.allocUnsafe(Math.min(Math.max(buf.length * 2, used + c.length), maxBytes + c.length));
+          const grown = Buffer.allocUnsafe(
+            Math.min(Math.max(buf.length * 2, used + c.length), maxBytes + c.length),
+          );
           buf.copy(grown, 0, 0, used);
           buf = grown;
         }
@@ -89,14 +105,29 @@ export async function readMultipart(req: Request, maxBytes: number, fileField = 
         used += c.length;
       });
       stream.on("end", () => {
-        file = { filename: info.filename ?? "upload.csv", contentType: info.mimeType || "text/csv", data: buf.subarray(0, used), sha256: hash.digest("hex") };
+        file = {
+          filename: info.filename ?? "upload.csv",
+          contentType: info.mimeType || "text/csv",
+          data: buf.subarray(0, used),
+          sha256: hash.digest("hex"),
+        };
       });
     });
-    bb.on("filesLimit", () => fail(invalid("Send one file per upload.", [{ field: fileField, message: "more than one file" }])));
-    bb.on("fieldsLimit", () => fail(invalid("Too many form fields.", [{ field: "form", message: `more than ${MAX_FIELDS} fields` }])));
-    bb.on("partsLimit", () => fail(invalid("Too many form parts.", [{ field: "form", message: "too many parts" }])));
+    bb.on("filesLimit", () =>
+      fail(invalid("Send one file per upload.", [{ field: fileField, message: "more than one file" }])),
+    );
+    bb.on("fieldsLimit", () =>
+      fail(invalid("Too many form fields.", [{ field: "form", message: `more than ${MAX_FIELDS} fields` }])),
+    );
+    bb.on("partsLimit", () =>
+      fail(invalid("Too many form parts.", [{ field: "form", message: "too many parts" }])),
+    );
     bb.on("error", (e: unknown) => {
-      fail(invalid("The multipart body is malformed.", [{ field: "form", message: e instanceof Error ? e.message : "malformed multipart body" }]));
+      fail(
+        invalid("The multipart body is malformed.", [
+          { field: "form", message: e instanceof Error ? e.message : "malformed multipart body" },
+        ]),
+      );
       resolve();
     });
     bb.on("close", () => resolve());

@@ -48,11 +48,18 @@ const decimal = z.enum(["point", "comma"]).default("point");
 const headerLine = z
   .string()
   .max(4096)
-  .regex(/^[A-Za-z0-9_ ]*([,;][A-Za-z0-9_ ]*)*$/, "only letters, digits, spaces and underscores between the file's delimiters")
+  .regex(
+    /^[A-Za-z0-9_ ]*([,;][A-Za-z0-9_ ]*)*$/,
+    "only letters, digits, spaces and underscores between the file's delimiters",
+  )
   .optional();
 
 const formSchemas = {
-  sphere_probe: z.object({ units: z.enum(["mm", "in"], { error: "choose mm or in for the x, y, z columns" }), decimal, header: headerLine }),
+  sphere_probe: z.object({
+    units: z.enum(["mm", "in"], { error: "choose mm or in for the x, y, z columns" }),
+    decimal,
+    header: headerLine,
+  }),
   tram: z.object({
     travel_units: z.enum(["mm", "in"], { error: "choose mm or in for the travel" }),
     reading_units: z.enum(["um", "mm", "in"], { error: "choose um, mm or in for the readings" }),
@@ -61,7 +68,11 @@ const formSchemas = {
   }),
   sweep: z.object({
     reading_units: z.enum(["um", "mm", "in"], { error: "choose um, mm or in for the readings" }),
-    radius_mm: z.coerce.number({ error: "the sweep radius must be a number (mm)" }).finite().positive("the sweep radius must be above 0 mm").max(10_000),
+    radius_mm: z.coerce
+      .number({ error: "the sweep radius must be a number (mm)" })
+      .finite()
+      .positive("the sweep radius must be above 0 mm")
+      .max(10_000),
     decimal,
     header: headerLine,
   }),
@@ -71,7 +82,12 @@ const formSchemas = {
     /** Expanded uncertainty U (k = 2) of the part measurement for length rows, mm (converted to in/µm per row). */
     uncertainty_mm: z.preprocess(
       (v) => (v === "" ? undefined : v),
-      z.coerce.number({ error: "the expanded uncertainty must be a number (mm)" }).finite().min(0, "the expanded uncertainty must be ≥ 0 mm").max(10).optional(),
+      z.coerce
+        .number({ error: "the expanded uncertainty must be a number (mm)" })
+        .finite()
+        .min(0, "the expanded uncertainty must be ≥ 0 mm")
+        .max(10)
+        .optional(),
     ),
   }),
 } as const;
@@ -91,7 +107,18 @@ export function parseUploadForm(fields: Readonly<Record<string, string>>) {
   if (!base.success) throw invalid("Some fields of the upload need attention.", zodIssues(base.error));
   const extra = formSchemas[base.data.kind].safeParse(fields);
   if (!extra.success) throw invalid("Some fields of the upload need attention.", zodIssues(extra.error));
-  return { ...base.data, ...(extra.data as { decimal: "point" | "comma"; header?: string; units?: "mm" | "in"; travel_units?: "mm" | "in"; reading_units?: "um" | "mm" | "in"; radius_mm?: number; uncertainty_mm?: number }) };
+  return {
+    ...base.data,
+    ...(extra.data as {
+      decimal: "point" | "comma";
+      header?: string;
+      units?: "mm" | "in";
+      travel_units?: "mm" | "in";
+      reading_units?: "um" | "mm" | "in";
+      radius_mm?: number;
+      uncertainty_mm?: number;
+    }),
+  };
 }
 export type UploadForm = ReturnType<typeof parseUploadForm>;
 
@@ -144,7 +171,10 @@ function range(values: Float64Array): { min: number; max: number } {
 function copyColumn(name: string, unit: string, values: ArrayLike<number>): StoredColumn {
   const out = values instanceof Float64Array ? values : Float64Array.from(values);
   for (let i = 0; i < out.length; i++) {
-    if (!Number.isFinite(out[i]!)) throw new AppError(422, "invalid_csv", `column ${name}: a value is not a finite number`, [{ column: name, message: "not a finite number" }]);
+    if (!Number.isFinite(out[i]!))
+      throw new AppError(422, "invalid_csv", `column ${name}: a value is not a finite number`, [
+        { column: name, message: "not a finite number" },
+      ]);
   }
   return { name, unit, values: out };
 }
@@ -177,37 +207,79 @@ export function parseDatasetText(form: UploadForm, input: string): ParsedDataset
         return done(form, d.rows, columns, { units: form.units! }, options, {}, d.warnings);
       }
       case "tram": {
-        const d = readTramCsv(text, { travelUnits: form.travel_units!, readingUnits: form.reading_units!, decimal: form.decimal });
-        const columns = [copyColumn("travel_mm", "mm", d.travelMm), copyColumn("reading_um", "um", d.readingUm)];
+        const d = readTramCsv(text, {
+          travelUnits: form.travel_units!,
+          readingUnits: form.reading_units!,
+          decimal: form.decimal,
+        });
+        const columns = [
+          copyColumn("travel_mm", "mm", d.travelMm),
+          copyColumn("reading_um", "um", d.readingUm),
+        ];
         const extra: string[] = [];
         let fit: Record<string, number> | null = null;
         try {
           const r = fitTram(d);
-          fit = { slope_um_per_m: r.slope_um_per_m, slope_u_um_per_m: r.slope_u_um_per_m, angle_arcsec: r.angle_arcsec, straightness_um: r.straightness_um, tir_um: r.tir_um };
+          fit = {
+            slope_um_per_m: r.slope_um_per_m,
+            slope_u_um_per_m: r.slope_u_um_per_m,
+            angle_arcsec: r.angle_arcsec,
+            straightness_um: r.straightness_um,
+            tir_um: r.tir_um,
+          };
         } catch (e) {
           if (!(e instanceof GeometryError)) throw e;
           extra.push(`no line fit: ${e.message}`);
         }
-        return done(form, d.rows, columns, { travel_units: form.travel_units!, reading_units: form.reading_units! }, options, { tram: fit }, d.warnings, extra);
+        return done(
+          form,
+          d.rows,
+          columns,
+          { travel_units: form.travel_units!, reading_units: form.reading_units! },
+          options,
+          { tram: fit },
+          d.warnings,
+          extra,
+        );
       }
       case "sweep": {
         const d = readSweepCsv(text, { readingUnits: form.reading_units!, decimal: form.decimal });
-        const columns = [copyColumn("angle_deg", "deg", d.angleDeg), copyColumn("reading_um", "um", d.readingUm)];
+        const columns = [
+          copyColumn("angle_deg", "deg", d.angleDeg),
+          copyColumn("reading_um", "um", d.readingUm),
+        ];
         const extra: string[] = [];
         let fit: Record<string, number | null> | null = null;
         try {
           const r = fitSweep(d, form.radius_mm!);
-          fit = { tilt_um_per_m: r.tilt_um_per_m, tilt_arcsec: r.tilt_arcsec, direction_deg: r.direction_deg, tir_um: r.tir_um, flatness_ls_um: r.flatness_ls_um, flatness_mz_um: r.flatness_mz_um };
+          fit = {
+            tilt_um_per_m: r.tilt_um_per_m,
+            tilt_arcsec: r.tilt_arcsec,
+            direction_deg: r.direction_deg,
+            tir_um: r.tir_um,
+            flatness_ls_um: r.flatness_ls_um,
+            flatness_mz_um: r.flatness_mz_um,
+          };
         } catch (e) {
           if (!(e instanceof GeometryError)) throw e;
           extra.push(`no sweep fit: ${e.message}`);
         }
-        return done(form, d.rows, columns, { reading_units: form.reading_units!, radius_mm: form.radius_mm! }, options, { sweep: fit }, d.warnings, extra);
+        return done(
+          form,
+          d.rows,
+          columns,
+          { reading_units: form.reading_units!, radius_mm: form.radius_mm! },
+          options,
+          { sweep: fit },
+          d.warnings,
+          extra,
+        );
       }
       case "test_part": {
         const rows = readTestPartCsv(text, { decimal: form.decimal });
         const plain: TestPartRow[] = rows.map((r) => ({ ...r }));
-        const units: Record<string, number> = form.uncertainty_mm !== undefined ? { uncertainty_mm: form.uncertainty_mm } : {};
+        const units: Record<string, number> =
+          form.uncertainty_mm !== undefined ? { uncertainty_mm: form.uncertainty_mm } : {};
         return done(form, rows.length, [], units, options, { test_part_rows: plain }, rows.warnings);
       }
     }
@@ -228,7 +300,15 @@ function done(
   extra: string[] = [],
 ): ParsedDataset {
   const ranges = Object.fromEntries(columns.map((c) => [c.name, { unit: c.unit, ...range(c.values) }]));
-  return { kind: form.kind, rows, columns, units, options, summary: { ...summary, columns: ranges }, warnings: [...warnings.map(formatIssue), ...extra] };
+  return {
+    kind: form.kind,
+    rows,
+    columns,
+    units,
+    options,
+    summary: { ...summary, columns: ranges },
+    warnings: [...warnings.map(formatIssue), ...extra],
+  };
 }
 
 /** Bytes → validated dataset (decode, then the readers). */

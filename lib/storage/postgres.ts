@@ -9,10 +9,16 @@ export function createPostgresStorage(): ObjectStorage {
   return {
     driver: "postgres",
     async put(key, data, meta) {
-      await db.insert(storageObjects).values({ key, data, sha256: meta.sha256, sizeBytes: data.length, contentType: meta.contentType });
+      await db
+        .insert(storageObjects)
+        .values({ key, data, sha256: meta.sha256, sizeBytes: data.length, contentType: meta.contentType });
     },
     async get(key) {
-      const [row] = await db.select({ data: storageObjects.data }).from(storageObjects).where(eq(storageObjects.key, key)).limit(1);
+      const [row] = await db
+        .select({ data: storageObjects.data })
+        .from(storageObjects)
+        .where(eq(storageObjects.key, key))
+        .limit(1);
       return row ? row.data : null;
     },
     async delete(key) {

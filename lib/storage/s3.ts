@@ -23,7 +23,14 @@ export function createS3Storage(config: S3StorageConfig): ObjectStorage {
     driver: "s3",
     async put(key, data, meta) {
       await client.send(
-        new PutObjectCommand({ Bucket, Key: key, Body: data, ContentType: meta.contentType, ContentLength: data.length, Metadata: { sha256: meta.sha256 } }),
+        new PutObjectCommand({
+          Bucket,
+          Key: key,
+          Body: data,
+          ContentType: meta.contentType,
+          ContentLength: data.length,
+          Metadata: { sha256: meta.sha256 },
+        }),
       );
     },
     async get(key) {

@@ -4,21 +4,35 @@ import { z } from "zod";
 export const ENTRY_UNITS = ["mm", "in", "um", "arcsec"] as const;
 
 const optionalText = (max: number) =>
-  z.preprocess((v) => (typeof v === "string" && v.trim() === "" ? undefined : v), z.string().trim().max(max, `At most ${max} characters.`).optional());
+  z.preprocess(
+    (v) => (typeof v === "string" && v.trim() === "" ? undefined : v),
+    z.string().trim().max(max, `At most ${max} characters.`).optional(),
+  );
 
-const optionalNumber = z.preprocess((v) => (v === "" || v === null ? undefined : v), z.coerce.number({ message: "Enter a number." }).refine(Number.isFinite, "Enter a number.").optional());
+const optionalNumber = z.preprocess(
+  (v) => (v === "" || v === null ? undefined : v),
+  z.coerce.number({ message: "Enter a number." }).refine(Number.isFinite, "Enter a number.").optional(),
+);
 
 export const readingCreateSchema = z.object({
   stepId: z.uuid({ message: "Choose a checklist step." }),
   phase: z.enum(["pre", "post"], { message: "Say whether this is before or after the adjustment." }),
-  value: z.preprocess((v) => (typeof v === "string" ? v.trim().replace(",", ".") : v), z.coerce.number({ message: "Enter the reading as a number." }).refine(Number.isFinite, "Enter the reading as a number.")),
+  value: z.preprocess(
+    (v) => (typeof v === "string" ? v.trim().replace(",", ".") : v),
+    z.coerce
+      .number({ message: "Enter the reading as a number." })
+      .refine(Number.isFinite, "Enter the reading as a number."),
+  ),
   unit: z.enum(ENTRY_UNITS, { message: "The unit must be mm, in, um or arcsec." }),
   /** angle_over_distance steps: the travel the reading was taken over, in the travelUnit. */
   travel: optionalNumber,
   travelUnit: z.enum(["mm", "in"]).optional(),
   instrumentId: z.uuid({ message: "Choose the instrument used from the register." }),
   note: optionalText(2000),
-  takenAt: z.preprocess((v) => (v === "" ? undefined : v), z.coerce.date({ message: "The time of the reading is not a date." }).optional()),
+  takenAt: z.preprocess(
+    (v) => (v === "" ? undefined : v),
+    z.coerce.date({ message: "The time of the reading is not a date." }).optional(),
+  ),
   /** A correction: the reading this one replaces (it is kept, marked superseded). */
   supersedesId: z.preprocess((v) => (v === "" ? undefined : v), z.uuid().optional()),
 });

@@ -12,14 +12,22 @@ export const instrumentCreateSchema = z
     quantityKind: z.enum(["length", "angle"]),
     /** In the unit below; stored canonically (mm or arcsec). */
     resolution: z.coerce.number({ message: "Enter a number." }).positive("The resolution must be positive."),
-    standardUncertainty: z.coerce.number({ message: "Enter a number." }).positive("The standard uncertainty must be positive."),
+    standardUncertainty: z.coerce
+      .number({ message: "Enter a number." })
+      .positive("The standard uncertainty must be positive."),
     unit: z.enum(["mm", "in", "um", "arcsec"]),
     calibratedOn: isoDate.optional().or(z.literal("")),
     calibrationDueOn: isoDate,
     certificateRef: z.string().trim().max(120).optional(),
   })
-  .refine((v) => (v.quantityKind === "angle") === (v.unit === "arcsec"), { path: ["unit"], message: "Angle instruments use arcsec; length instruments mm, in or µm." })
-  .refine((v) => !v.calibratedOn || v.calibratedOn <= v.calibrationDueOn, { path: ["calibrationDueOn"], message: "The due date is before the calibration date." });
+  .refine((v) => (v.quantityKind === "angle") === (v.unit === "arcsec"), {
+    path: ["unit"],
+    message: "Angle instruments use arcsec; length instruments mm, in or µm.",
+  })
+  .refine((v) => !v.calibratedOn || v.calibratedOn <= v.calibrationDueOn, {
+    path: ["calibrationDueOn"],
+    message: "The due date is before the calibration date.",
+  });
 
 export const userInviteSchema = z
   .object({
@@ -28,7 +36,10 @@ export const userInviteSchema = z
     role: z.enum(ROLES),
     customerId: z.preprocess((v) => (v === "" ? undefined : v), z.uuid().optional()),
   })
-  .refine((v) => (v.role === "customer") === Boolean(v.customerId), { path: ["customerId"], message: "Customer users belong to a customer; staff to none." });
+  .refine((v) => (v.role === "customer") === Boolean(v.customerId), {
+    path: ["customerId"],
+    message: "Customer users belong to a customer; staff to none.",
+  });
 
 export const userUpdateSchema = z.object({
   userId: z.uuid(),
@@ -46,9 +57,26 @@ export const setPasswordSchema = z
 
 const optional = (max: number) => z.string().trim().max(max).optional();
 
-export const customerCreateSchema = z.object({ name: z.string().trim().min(2, "Enter the customer's name.").max(200), contactEmail: z.union([z.email({ message: "Enter an e-mail address or leave it empty." }), z.literal("")]).optional() });
-export const siteCreateSchema = z.object({ customerId: z.uuid({ message: "Choose a customer." }), name: z.string().trim().min(1, "Name the site.").max(200), address: optional(400) });
-export const machineCreateSchema = z.object({ siteId: z.uuid({ message: "Choose a site." }), name: z.string().trim().min(1, "Name the machine.").max(200), kind: z.string().trim().min(2, "Say what kind of machine it is.").max(100), builder: optional(200), model: optional(200), serial: optional(100), control: optional(200) });
+export const customerCreateSchema = z.object({
+  name: z.string().trim().min(2, "Enter the customer's name.").max(200),
+  contactEmail: z
+    .union([z.email({ message: "Enter an e-mail address or leave it empty." }), z.literal("")])
+    .optional(),
+});
+export const siteCreateSchema = z.object({
+  customerId: z.uuid({ message: "Choose a customer." }),
+  name: z.string().trim().min(1, "Name the site.").max(200),
+  address: optional(400),
+});
+export const machineCreateSchema = z.object({
+  siteId: z.uuid({ message: "Choose a site." }),
+  name: z.string().trim().min(1, "Name the machine.").max(200),
+  kind: z.string().trim().min(2, "Say what kind of machine it is.").max(100),
+  builder: optional(200),
+  model: optional(200),
+  serial: optional(100),
+  control: optional(200),
+});
 export const headCreateSchema = z
   .object({
     serial: z.string().trim().min(1, "The serial is required.").max(80),
@@ -56,8 +84,16 @@ export const headCreateSchema = z
     model: optional(200),
     primaryAxis: z.enum(["A", "B", "C"]),
     secondaryAxis: z.enum(["A", "B", "C"]),
-    nominalPivotLengthMm: z.coerce.number({ message: "Enter the nominal pivot length in mm." }).positive("The pivot length must be positive."),
+    nominalPivotLengthMm: z.coerce
+      .number({ message: "Enter the nominal pivot length in mm." })
+      .positive("The pivot length must be positive."),
     toolAxisOffsetMm: z.coerce.number({ message: "Enter a number (mm)." }).default(0),
-    massKg: z.preprocess((v) => (v === "" ? undefined : v), z.coerce.number().positive("The mass must be positive.").optional()),
+    massKg: z.preprocess(
+      (v) => (v === "" ? undefined : v),
+      z.coerce.number().positive("The mass must be positive.").optional(),
+    ),
   })
-  .refine((v) => v.primaryAxis !== v.secondaryAxis, { path: ["secondaryAxis"], message: "The secondary axis must differ from the primary." });
+  .refine((v) => v.primaryAxis !== v.secondaryAxis, {
+    path: ["secondaryAxis"],
+    message: "The secondary axis must differ from the primary.",
+  });

@@ -9,7 +9,15 @@ import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { levenbergMarquardt as mlLm } from "ml-levenberg-marquardt";
-import { fitHead, headPoseGrid, HEAD_PARAMETER_KEYS, synthesiseSphereProbe, type HeadConfig, type HeadErrors, type SphereProbeData } from "@/geometry";
+import {
+  fitHead,
+  headPoseGrid,
+  HEAD_PARAMETER_KEYS,
+  synthesiseSphereProbe,
+  type HeadConfig,
+  type HeadErrors,
+  type SphereProbeData,
+} from "@/geometry";
 import { headAxes } from "@/geometry/head/config";
 import { HeadKernel } from "@/geometry/head/kernel";
 
@@ -29,11 +37,20 @@ const TRUTH: HeadErrors = {
 const FREE = HEAD_PARAMETER_KEYS.filter((k) => k !== "secondary_yaw_arcsec");
 const secondary = [-90, -60, -30, 0, 30, 60, 90];
 const dataFor = (poses: number) =>
-  synthesiseSphereProbe(CA, TRUTH, headPoseGrid({ primarySteps: Math.round(poses / (2 * secondary.length)), secondaryDeg: secondary, toolMm: [0, 100] }), {
-    noiseUm: 1,
-    seed: 42,
-    centreMm: [250, -120, 400],
-  });
+  synthesiseSphereProbe(
+    CA,
+    TRUTH,
+    headPoseGrid({
+      primarySteps: Math.round(poses / (2 * secondary.length)),
+      secondaryDeg: secondary,
+      toolMm: [0, 100],
+    }),
+    {
+      noiseUm: 1,
+      seed: 42,
+      centreMm: [250, -120, 400],
+    },
+  );
 
 let peakRss = 0;
 const sample = setInterval(() => (peakRss = Math.max(peakRss, process.memoryUsage().rss)), 5);
@@ -138,7 +155,9 @@ async function main() {
     const data = dataFor(100000);
     const lines = ["primary_deg,secondary_deg,x,y,z,tool_mm"];
     for (let i = 0; i < data.rows; i++) {
-      lines.push(`${data.primaryDeg[i]},${data.secondaryDeg[i]},${data.xMm[i]!.toFixed(6)},${data.yMm[i]!.toFixed(6)},${data.zMm[i]!.toFixed(6)},${data.toolMm![i]}`);
+      lines.push(
+        `${data.primaryDeg[i]},${data.secondaryDeg[i]},${data.xMm[i]!.toFixed(6)},${data.yMm[i]!.toFixed(6)},${data.zMm[i]!.toFixed(6)},${data.toolMm![i]}`,
+      );
     }
     const csv = join(dir, "sphere.csv");
     const head = join(dir, "head.json");
@@ -146,12 +165,24 @@ async function main() {
     writeFileSync(head, JSON.stringify({ primary: "C", secondary: "A", pivot_length_mm: 152.4 }));
     const root = join(import.meta.dirname, "../..");
     // As `npm run geometry` runs it: node on the cached bundle of lib/cli/geometry.ts (lib/cli/run.mjs).
-    const run = () => execFileSync(process.execPath, ["lib/cli/run.mjs", "fit-head", csv, "--head", head], { cwd: root, encoding: "utf8", maxBuffer: 1 << 28, stdio: ["ignore", "pipe", "ignore"] });
+    const run = () =>
+      execFileSync(process.execPath, ["lib/cli/run.mjs", "fit-head", csv, "--head", head], {
+        cwd: root,
+        encoding: "utf8",
+        maxBuffer: 1 << 28,
+        stdio: ["ignore", "pipe", "ignore"],
+      });
     run();
     let out = "";
     const t = median([0, 1, 2].map(() => seconds(() => (out = run()))));
     // Baseline: the same child process printing the help (node + tsx start-up, module loading).
-    const startup = median([0, 1, 2].map(() => seconds(() => execFileSync(process.execPath, ["lib/cli/run.mjs", "--help"], { cwd: root, stdio: "ignore" }))));
+    const startup = median(
+      [0, 1, 2].map(() =>
+        seconds(() =>
+          execFileSync(process.execPath, ["lib/cli/run.mjs", "--help"], { cwd: root, stdio: "ignore" }),
+        ),
+      ),
+    );
     const parsed = JSON.parse(out) as { parameters: { key: string; value: number }[] };
     cli = {
       poses: data.rows,

@@ -35,7 +35,10 @@ for (let i = 0; i < RENDERS; i++) {
   if (pdf.subarray(0, 5).toString() !== "%PDF-") throw new Error(`render ${i + 1} is not a PDF`);
   bytes = pdf.length;
   if (i % 25 === 0) peak = Math.max(peak, rssMb());
-  if ((i + 1) % 50 === 0) console.error(`pdf-soak: ${i + 1}/${RENDERS} renders, rss ${rssMb().toFixed(1)} MB (started at ${before.toFixed(1)} MB), ${((performance.now() - t0) / (i + 1)).toFixed(0)} ms each`);
+  if ((i + 1) % 50 === 0)
+    console.error(
+      `pdf-soak: ${i + 1}/${RENDERS} renders, rss ${rssMb().toFixed(1)} MB (started at ${before.toFixed(1)} MB), ${((performance.now() - t0) / (i + 1)).toFixed(0)} ms each`,
+    );
 }
 const seconds = (performance.now() - t0) / 1000;
 await settle();

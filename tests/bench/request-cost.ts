@@ -19,7 +19,8 @@ const opt = (name: string, dflt: string) => {
 };
 const BASE = opt("url", process.env.BENCH_URL ?? "http://127.0.0.1:3000");
 const N = Number(opt("requests", "3000"));
-if (!/^https?:\/\/(127\.\d+\.\d+\.\d+|localhost)(:\d+)?$/.test(BASE)) throw new Error("The cost benchmark only targets loopback.");
+if (!/^https?:\/\/(127\.\d+\.\d+\.\d+|localhost)(:\d+)?$/.test(BASE))
+  throw new Error("The cost benchmark only targets loopback.");
 const TICK_MS = 1000 / Number(execFileSync("getconf", ["CLK_TCK"], { encoding: "utf8" }).trim());
 
 const stat = (pid: number) => readFileSync(`/proc/${pid}/stat`, "utf8").split(") ")[1]!.split(" ");
@@ -29,7 +30,11 @@ const ticks = (pid: number) => {
   return Number(f[11]) + Number(f[12]);
 };
 
-const serverPid = Number(/pid=(\d+)/.exec(execFileSync("ss", ["-ltnpH", `sport = :${new URL(BASE).port || "80"}`], { encoding: "utf8" }))?.[1]);
+const serverPid = Number(
+  /pid=(\d+)/.exec(
+    execFileSync("ss", ["-ltnpH", `sport = :${new URL(BASE).port || "80"}`], { encoding: "utf8" }),
+  )?.[1],
+);
 if (!serverPid) throw new Error(`no process listens on ${BASE}`);
 const pgBase = process.env.PG_BASE ?? path.resolve(".data");
 const postmaster = Number(readFileSync(path.join(pgBase, "pg", "postmaster.pid"), "utf8").split("\n")[0]);
@@ -49,22 +54,34 @@ function backends(): Map<number, number> {
   return m;
 }
 
-
 const load = (p: string, headers: Record<string, string>) =>
   new Promise<number>((resolve, reject) =>
-    autocannon({ url: `${BASE}${p}`, connections: 16, amount: N, headers }, (err, r) => (err ? reject(err) : resolve(r.errors + r.timeouts + r.non2xx))),
+    autocannon({ url: `${BASE}${p}`, connections: 16, amount: N, headers }, (err, r) =>
+      err ? reject(err) : resolve(r.errors + r.timeouts + r.non2xx),
+    ),
   );
 
 const cookie = await signIn(BASE, "engineer@halvard.example");
 const results = [];
-for (const [route, p, headers] of [["bare static JSON", "/api/ping", {}], ["GET /api/jobs", "/api/jobs", { cookie }]] as const) {
+for (const [route, p, headers] of [
+  ["bare static JSON", "/api/ping", {}],
+  ["GET /api/jobs", "/api/jobs", { cookie }],
+] as const) {
   await load(p, headers); // warm: JIT, pool connections, PostgreSQL's plan cache
   const app0 = ticks(serverPid);
   const pg0 = backends();
   const errors = await load(p, headers);
   const pg1 = backends();
   const pgTicks = [...pg1].reduce((s, [pid, t]) => s + t - (pg0.get(pid) ?? 0), 0);
-  results.push({ route, requests: N, errors, app_cpu_ms_per_request: +(((ticks(serverPid) - app0) * TICK_MS) / N).toFixed(2), postgres_cpu_ms_per_request: +((pgTicks * TICK_MS) / N).toFixed(2) });
+  results.push({
+    route,
+    requests: N,
+    errors,
+    app_cpu_ms_per_request: +(((ticks(serverPid) - app0) * TICK_MS) / N).toFixed(2),
+    postgres_cpu_ms_per_request: +((pgTicks * TICK_MS) / N).toFixed(2),
+  });
 }
-console.log(JSON.stringify({ base: BASE, server_pid: serverPid, postmaster_pid: postmaster, results }, null, 2));
+console.log(
+  JSON.stringify({ base: BASE, server_pid: serverPid, postmaster_pid: postmaster, results }, null, 2),
+);
 if (results.some((r) => r.errors > 0)) process.exitCode = 1;

@@ -21,6 +21,7 @@ export async function signIn(base: string, email: string, password = "trammel-de
     body: new URLSearchParams({ csrfToken, email, password, json: "true" }),
   });
   keep(res);
-  if (![...jar.keys()].some((k) => k.includes("session-token"))) throw new Error(`sign-in as ${email} on ${base} failed (${res.status})`);
+  if (![...jar.keys()].some((k) => k.includes("session-token")))
+    throw new Error(`sign-in as ${email} on ${base} failed (${res.status})`);
   return cookie();
 }

@@ -51,7 +51,9 @@ function makeCsv(rows: number): Buffer {
   for (let i = 0; i < rows; i++) {
     const p = (i * 7.2) % 360;
     const s = -90 + ((i * 3.6) % 180);
-    parts.push(`${p.toFixed(3)},${s.toFixed(3)},${(250 + rnd()).toFixed(5)},${(400 + rnd()).toFixed(5)},${(-120 + rnd()).toFixed(5)},${i + 1},1`);
+    parts.push(
+      `${p.toFixed(3)},${s.toFixed(3)},${(250 + rnd()).toFixed(5)},${(400 + rnd()).toFixed(5)},${(-120 + rnd()).toFixed(5)},${i + 1},1`,
+    );
   }
   return Buffer.from(parts.join("\n") + "\n");
 }
@@ -62,8 +64,17 @@ async function main() {
   const file = makeCsv(ROWS);
   const generateS = (performance.now() - t0) / 1000;
   const csrf = (await (await call("/api/auth/csrf")).json()) as { csrfToken: string };
-  const form = new URLSearchParams({ csrfToken: csrf.csrfToken, email: "inspector@halvard.example", password: "trammel-demo", json: "true" });
-  await call("/api/auth/callback/credentials", { method: "POST", body: form, headers: { "content-type": "application/x-www-form-urlencoded" } });
+  const form = new URLSearchParams({
+    csrfToken: csrf.csrfToken,
+    email: "inspector@halvard.example",
+    password: "trammel-demo",
+    json: "true",
+  });
+  await call("/api/auth/callback/credentials", {
+    method: "POST",
+    body: form,
+    headers: { "content-type": "application/x-www-form-urlencoded" },
+  });
   const jobs = (await (await call("/api/jobs")).json()) as { jobs: { id: string; reference: string }[] };
   const job = jobs.jobs.find((j) => j.reference === JOB);
   if (!job) throw new Error(`bench: job ${JOB} not visible; is the demo seeded and the sign-in working?`);
@@ -80,7 +91,11 @@ async function main() {
   const timer = pid ? setInterval(() => (peak = Math.max(peak, rssMb(pid))), 25) : null;
   const t1 = performance.now();
   const res = await call(`/api/jobs/${job.id}/datasets`, { method: "POST", body });
-  const answer = (await res.json()) as { id?: string; rows?: number; error?: { code: string; message: string } };
+  const answer = (await res.json()) as {
+    id?: string;
+    rows?: number;
+    error?: { code: string; message: string };
+  };
   const seconds = (performance.now() - t1) / 1000;
   if (timer) clearInterval(timer);
   if (pid) peak = Math.max(peak, rssMb(pid));

@@ -21,7 +21,10 @@ async function jobPages(page: Page, reference: string): Promise<string[]> {
   await page.goto("/jobs");
   const href = await page.getByRole("link", { name: reference }).getAttribute("href");
   await page.goto(href!);
-  const tabs = await page.getByRole("navigation", { name: "Job sections" }).getByRole("link").evaluateAll((els) => els.map((e) => (e as HTMLAnchorElement).getAttribute("href")!));
+  const tabs = await page
+    .getByRole("navigation", { name: "Job sections" })
+    .getByRole("link")
+    .evaluateAll((els) => els.map((e) => (e as HTMLAnchorElement).getAttribute("href")!));
   return tabs;
 }
 
@@ -32,7 +35,10 @@ const PEOPLE = [
   { email: "buyer@marlowcreek.example", extra: [] },
 ];
 
-for (const [name, get] of [["desktop", () => desktop], ["tablet", () => tablet]] as const) {
+for (const [name, get] of [
+  ["desktop", () => desktop],
+  ["tablet", () => tablet],
+] as const) {
   describe(`accessibility on ${name}`, () => {
     it("public pages: sign-in and report verification", async () => {
       const ctx = get();
@@ -54,7 +60,10 @@ for (const [name, get] of [["desktop", () => desktop], ["tablet", () => tablet]]
         await signIn(p, person.email);
         await p.waitForURL("**/jobs");
         expect(await seriousViolations(p), "/jobs").toEqual([]);
-        const pages = [...(await jobPages(p, person.email.includes("installer") ? "TR-2026-0052" : "TR-2026-0041")), ...person.extra];
+        const pages = [
+          ...(await jobPages(p, person.email.includes("installer") ? "TR-2026-0052" : "TR-2026-0041")),
+          ...person.extra,
+        ];
         for (const path of pages) {
           await p.goto(path);
           await p.waitForLoadState("load");

@@ -12,7 +12,14 @@ import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
 import { headPoseGrid, synthesiseSphereProbe } from "@/geometry";
-import { canvasPixels, newContext, screenshotPath, seriousViolations, signIn, waitForPicture } from "./browser";
+import {
+  canvasPixels,
+  newContext,
+  screenshotPath,
+  seriousViolations,
+  signIn,
+  waitForPicture,
+} from "./browser";
 
 let ctx: BrowserContext;
 
@@ -33,7 +40,10 @@ async function viewerShot(page: Page, name: string) {
 async function openAnalysis(page: Page, reference: string) {
   await page.goto("/jobs");
   await page.getByRole("link", { name: reference }).click();
-  await page.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Analysis" }).click();
+  await page
+    .getByRole("navigation", { name: "Job sections" })
+    .getByRole("link", { name: "Analysis" })
+    .click();
   await page.waitForURL(/\/analysis$/);
 }
 
@@ -50,7 +60,9 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     expect(text).toContain("Not separable");
     // The numbers shown are the API's (geometry's headFitToJson), rounded only for display.
     const analysisId = await p.locator("[data-analysis-id]").getAttribute("data-analysis-id");
-    const api = (await (await p.request.get(`/api/analyses/${analysisId}`)).json()).analysis as { fit: { parameters: { key: string; value: number; U: number | null; unit: string }[] } };
+    const api = (await (await p.request.get(`/api/analyses/${analysisId}`)).json()).analysis as {
+      fit: { parameters: { key: string; value: number; U: number | null; unit: string }[] };
+    };
     expect(api.fit.parameters).toHaveLength(10);
     for (const q of api.fit.parameters) {
       const cell = table.locator(`tr[data-key="${q.key}"] td[data-value]`);
@@ -69,7 +81,9 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
 
     await p.getByLabel("Exaggeration factor").fill("4");
     await expect.poll(() => p.getByTestId("factor-label").innerText()).toMatch(/×10\u2009000/);
-    await expect.poll(async () => (await canvasPixels(p)).digest, { timeout: 10_000 }).not.toBe(before.digest);
+    await expect
+      .poll(async () => (await canvasPixels(p)).digest, { timeout: 10_000 })
+      .not.toBe(before.digest);
     await viewerShot(p, "analysis-3d-x10000");
 
     // Approval is refused while the job is measuring: the button is off and says why.
@@ -98,7 +112,9 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     const legend = await p.getByTestId("legend-other").innerText();
     expect(legend).toContain("before adjustment");
     expect(legend).toContain("TR-2026-0052 sphere probe (demo, synthetic).csv");
-    expect(await p.getByRole("group", { name: "Legend" }).or(p.locator('[aria-label="Legend"]')).innerText()).toContain("after adjustment");
+    expect(
+      await p.getByRole("group", { name: "Legend" }).or(p.locator('[aria-label="Legend"]')).innerText(),
+    ).toContain("after adjustment");
     expect(await p.getByTestId("factor-label").innerText()).toMatch(/×300 for both fits/);
     expect(await p.getByTestId("tip-change").innerText()).toMatch(/up to \d+\.\d µm/);
     await viewerShot(p, "analysis-3d-overlay");
@@ -111,11 +127,19 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     // Save the view: it is stored through the API and listed under "Saved views" with its factor and author.
     const caption = `Tilt axis before and after shimming ${Date.now().toString(36)}`;
     await p.getByLabel("Caption (optional)").fill(caption);
-    const saved = p.waitForResponse((r) => /\/api\/analyses\/[0-9a-f-]+\/views$/.test(r.url()) && r.request().method() === "POST");
+    const saved = p.waitForResponse(
+      (r) => /\/api\/analyses\/[0-9a-f-]+\/views$/.test(r.url()) && r.request().method() === "POST",
+    );
     await p.getByRole("button", { name: "Save view for the report" }).click();
     const res = await saved;
     expect(res.status()).toBe(201);
-    const view = (await res.json()).view as { id: string; widthPx: number; heightPx: number; factor: number; overlayAnalysisId: string | null };
+    const view = (await res.json()).view as {
+      id: string;
+      widthPx: number;
+      heightPx: number;
+      factor: number;
+      overlayAnalysisId: string | null;
+    };
     expect(view.factor).toBe(300);
     expect(view.overlayAnalysisId).not.toBeNull();
     const canvasSize = await p.evaluate(() => {
@@ -133,7 +157,11 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     expect(await card.innerText()).toContain("Emil Haraldsen");
     // The thumbnail (lazy) loads from the image route once it is in view.
     await card.scrollIntoViewIfNeeded();
-    await expect.poll(() => card.locator("img").evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth), { timeout: 10_000 }).toBe(view.widthPx);
+    await expect
+      .poll(() => card.locator("img").evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth), {
+        timeout: 10_000,
+      })
+      .toBe(view.widthPx);
     const img = await p.request.get(`/api/analysis-views/${view.id}/image`);
     expect(img.headers()["content-type"]).toBe("image/png");
     expect((await img.body()).subarray(1, 4).toString("latin1")).toBe("PNG");
@@ -153,20 +181,31 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     await p.getByRole("link", { name: "TH-2241" }).click();
     const table = p.getByRole("table", { name: "Fitted parameters by job" });
     await table.waitFor();
-    const heads = await table.locator("thead th[data-job]").evaluateAll((ths) => ths.map((t) => t.getAttribute("data-job")));
+    const heads = await table
+      .locator("thead th[data-job]")
+      .evaluateAll((ths) => ths.map((t) => t.getAttribute("data-job")));
     for (const ref of ["TR-2026-0041", "TR-2026-0052", "TR-2026-0057"]) expect(heads).toContain(ref);
     // TR-2026-0041's column shows its approved fit; TR-2026-0052 (measuring) its latest, not approved.
     expect(await table.locator('thead th[data-job="TR-2026-0041"]').innerText()).toContain("✓ approved fit");
-    expect(await table.locator('thead th[data-job="TR-2026-0052"]').innerText()).toContain("latest fit, not approved");
+    expect(await table.locator('thead th[data-job="TR-2026-0052"]').innerText()).toContain(
+      "latest fit, not approved",
+    );
     // The values are the history API's (the stored fits), rounded only for display.
     const headId = p.url().split("/").pop()!;
-    const api = (await (await p.request.get(`/api/heads/${headId}/history`)).json()) as { jobs: { reference: string; fit: { parameters: { key: string; value: number; U: number | null }[] } | null }[] };
+    const api = (await (await p.request.get(`/api/heads/${headId}/history`)).json()) as {
+      jobs: {
+        reference: string;
+        fit: { parameters: { key: string; value: number; U: number | null }[] } | null;
+      }[];
+    };
     const j41 = api.jobs.find((j) => j.reference === "TR-2026-0041")!;
     const col = heads.indexOf("TR-2026-0041");
     const pivot = j41.fit!.parameters.find((q) => q.key === "pivot_length_error_um")!;
     const cell = table.locator('tr[data-key="pivot_length_error_um"] td').nth(col);
     expect(Number(await cell.getAttribute("data-value"))).toBe(pivot.value);
-    expect((await cell.innerText()).replace("−", "-")).toContain(`${pivot.value >= 0 ? "+" : "-"}${Math.abs(pivot.value).toFixed(2)} ± ${pivot.U!.toFixed(2)} µm`);
+    expect((await cell.innerText()).replace("−", "-")).toContain(
+      `${pivot.value >= 0 ? "+" : "-"}${Math.abs(pivot.value).toFixed(2)} ± ${pivot.U!.toFixed(2)} µm`,
+    );
     // The trend: one panel per parameter the fits determined, each an SVG with a title naming it.
     const panels = p.getByTestId("trend-panel");
     expect(await panels.count()).toBeGreaterThanOrEqual(5);
@@ -190,9 +229,13 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     expect(await p.getByRole("heading", { level: 1 }).innerText()).toContain("TH-2241");
     const table = p.getByRole("table", { name: "Fitted parameters by job" });
     await table.waitFor();
-    const heads = await table.locator("thead th[data-job]").evaluateAll((ths) => ths.map((t) => t.getAttribute("data-job")));
+    const heads = await table
+      .locator("thead th[data-job]")
+      .evaluateAll((ths) => ths.map((t) => t.getAttribute("data-job")));
     // The same columns as the history API gives this customer (their own company's jobs only).
-    const api = (await (await p.request.get(`/api${historyPath}/history`)).json()) as { jobs: { reference: string }[] };
+    const api = (await (await p.request.get(`/api${historyPath}/history`)).json()) as {
+      jobs: { reference: string }[];
+    };
     expect(heads).toEqual(api.jobs.map((j) => j.reference));
     expect(heads).toContain("TR-2026-0041");
     expect(await p.getByRole("link", { name: "heads register" }).count()).toBe(0);
@@ -226,7 +269,10 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     await signIn(admin, "admin@halvard.example");
     await admin.waitForURL("**/jobs");
     await admin.getByRole("link", { name: "TR-2026-0057" }).click();
-    await admin.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Checklist" }).click();
+    await admin
+      .getByRole("navigation", { name: "Job sections" })
+      .getByRole("link", { name: "Checklist" })
+      .click();
     await admin.getByRole("button", { name: "Start measuring" }).click();
     await admin.getByRole("button", { name: "Submit for review" }).waitFor({ timeout: 15_000 });
     const checklistUrl = admin.url();
@@ -239,19 +285,55 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     const href = await p.getByRole("link", { name: "TR-2026-0057" }).getAttribute("href");
     const jobId = href!.split("/").pop()!;
     // Invented sphere-probe data from geometry's synthesiser (demo only) for this job's own head, uploaded through the datasets API.
-    const job = (await (await p.request.get(`/api/jobs/${jobId}`)).json()).job as { head: { primaryAxis: "A" | "B" | "C"; secondaryAxis: "A" | "B" | "C"; nominalPivotLengthMm: number; toolDirection: [number, number, number] } };
-    const head = { primary: job.head.primaryAxis, secondary: job.head.secondaryAxis, pivotLengthMm: job.head.nominalPivotLengthMm, toolDirection: job.head.toolDirection };
+    const job = (await (await p.request.get(`/api/jobs/${jobId}`)).json()).job as {
+      head: {
+        primaryAxis: "A" | "B" | "C";
+        secondaryAxis: "A" | "B" | "C";
+        nominalPivotLengthMm: number;
+        toolDirection: [number, number, number];
+      };
+    };
+    const head = {
+      primary: job.head.primaryAxis,
+      secondary: job.head.secondaryAxis,
+      pivotLengthMm: job.head.nominalPivotLengthMm,
+      toolDirection: job.head.toolDirection,
+    };
     const poses = headPoseGrid({ primarySteps: 12, secondaryDeg: [-90, -45, 0, 45, 90], toolMm: [0, 80] });
-    const d = synthesiseSphereProbe(head, { pivot_length_error_um: -25, secondary_tilt_arcsec: 12, tip_offset_n_um: 8 }, poses, { noiseUm: 1, seed: 48 });
-    const csv = ["primary_deg,secondary_deg,x,y,z,tool_mm", ...Array.from({ length: d.rows }, (_, i) => [d.primaryDeg[i], d.secondaryDeg[i], d.xMm[i]!.toFixed(5), d.yMm[i]!.toFixed(5), d.zMm[i]!.toFixed(5), d.toolMm![i]].join(","))].join("\n");
+    const d = synthesiseSphereProbe(
+      head,
+      { pivot_length_error_um: -25, secondary_tilt_arcsec: 12, tip_offset_n_um: 8 },
+      poses,
+      { noiseUm: 1, seed: 48 },
+    );
+    const csv = [
+      "primary_deg,secondary_deg,x,y,z,tool_mm",
+      ...Array.from({ length: d.rows }, (_, i) =>
+        [
+          d.primaryDeg[i],
+          d.secondaryDeg[i],
+          d.xMm[i]!.toFixed(5),
+          d.yMm[i]!.toFixed(5),
+          d.zMm[i]!.toFixed(5),
+          d.toolMm![i],
+        ].join(","),
+      ),
+    ].join("\n");
     const up = await p.request.post(`/api/jobs/${jobId}/datasets`, {
-      multipart: { kind: "sphere_probe", phase: "pre", units: "mm", file: { name: "probe-0057.csv", mimeType: "text/csv", buffer: Buffer.from(csv) } },
+      multipart: {
+        kind: "sphere_probe",
+        phase: "pre",
+        units: "mm",
+        file: { name: "probe-0057.csv", mimeType: "text/csv", buffer: Buffer.from(csv) },
+      },
     });
     expect(up.status()).toBe(201);
     await openAnalysis(p, "TR-2026-0057");
     const row = p.locator("li", { hasText: "probe-0057.csv" });
     await row.getByRole("button", { name: "Run fit" }).click();
-    await expect.poll(() => p.getByRole("table", { name: "Fitted parameters" }).count(), { timeout: 20_000 }).toBe(1);
+    await expect
+      .poll(() => p.getByRole("table", { name: "Fitted parameters" }).count(), { timeout: 20_000 })
+      .toBe(1);
     await waitForPicture(p);
     const approve = p.getByRole("button", { name: "Approve these parameters" });
     expect(await approve.isDisabled()).toBe(true);
@@ -266,7 +348,9 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     await admin2.waitForURL("**/jobs");
     await admin2.goto(checklistUrl);
     await admin2.getByRole("button", { name: "Submit for review" }).click();
-    await expect.poll(() => admin2.getByRole("button", { name: "Submit for review" }).count(), { timeout: 15_000 }).toBe(0);
+    await expect
+      .poll(() => admin2.getByRole("button", { name: "Submit for review" }).count(), { timeout: 15_000 })
+      .toBe(0);
     await admin2.close();
 
     await ctx.clearCookies();

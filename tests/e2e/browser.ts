@@ -66,10 +66,18 @@ export function screenshotPath(name: string): string {
 
 /** Serious or critical WCAG 2 A/AA violations on the page as it is now (axe-core), one line each. */
 export async function seriousViolations(page: Page): Promise<string[]> {
-  const result = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
+  const result = await new AxeBuilder({ page })
+    .withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"])
+    .analyze();
   return result.violations
     .filter((v) => v.impact === "serious" || v.impact === "critical")
-    .map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.slice(0, 3).map((n) => n.target.join(" ")).join(", ")}`);
+    .map(
+      (v) =>
+        `${v.id} (${v.impact}): ${v.help} — ${v.nodes
+          .slice(0, 3)
+          .map((n) => n.target.join(" "))
+          .join(", ")}`,
+    );
 }
 
 /** Does the page scroll sideways? (Wide tables scroll inside their own region, never the page.) */
@@ -135,7 +143,12 @@ export function reportLink(raw: string): string | undefined {
  * Journey 3's start: the customer opens the report link in their issue e-mail, is sent to the
  * sign-in page (`atSignIn` may look at it), signs in and lands on the report. Returns that page.
  */
-export async function followReportMail(ctx: BrowserContext, email: string, reference: string, atSignIn?: (p: Page) => Promise<void>): Promise<Page> {
+export async function followReportMail(
+  ctx: BrowserContext,
+  email: string,
+  reference: string,
+  atSignIn?: (p: Page) => Promise<void>,
+): Promise<Page> {
   const link = reportLink(await mailTo(email, new RegExp(`Acceptance report ${reference}`)));
   expect(link, "the e-mail links to the report page").toBeTruthy();
   await ctx.clearCookies();

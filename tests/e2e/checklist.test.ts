@@ -54,14 +54,18 @@ describe("journey 4: readings before and after an adjustment, compared side by s
     // An indicator past its calibration due date is refused by the server, with the reason.
     await chooseInstrument(step1, "DTI-0417");
     await step1.getByRole("button", { name: "Save reading" }).click();
-    await expect.poll(() => step1.getByRole("alert").first().innerText()).toMatch(/DTI-0417 was due for calibration on 2026-09-30/);
+    await expect
+      .poll(() => step1.getByRole("alert").first().innerText())
+      .toMatch(/DTI-0417 was due for calibration on 2026-09-30/);
     await p.screenshot({ path: screenshotPath("checklist-expired-instrument") });
 
     await chooseInstrument(step1, "DTI-0112");
     await step1.getByLabel(/^Note/).fill("after a 0.0004 in shim at 4 o'clock");
     await step1.getByRole("button", { name: "Save reading" }).click();
     await expect.poll(() => step1.getByRole("status").innerText()).toMatch(/Reading saved: pass/);
-    await expect.poll(() => step1.locator("tbody tr").filter({ hasText: "0.0003 in" }).count()).toBeGreaterThan(0);
+    await expect
+      .poll(() => step1.locator("tbody tr").filter({ hasText: "0.0003 in" }).count())
+      .toBeGreaterThan(0);
 
     // Step 4 before and after setting the secondary zero; the post reading is first mistyped, then corrected.
     const step4 = p.getByTestId("step-4");
@@ -70,14 +74,19 @@ describe("journey 4: readings before and after an adjustment, compared side by s
     await v4.fill("0.0010");
     await step4.getByRole("button", { name: "Save reading" }).click();
     await expect.poll(() => step4.getByRole("status").innerText()).toMatch(/Reading saved: fail/);
-    const wrongRow = step4.locator("tbody tr:not([data-superseded])").filter({ hasText: "0.0010 in" }).first();
+    const wrongRow = step4
+      .locator("tbody tr:not([data-superseded])")
+      .filter({ hasText: "0.0010 in" })
+      .first();
     await wrongRow.getByRole("button", { name: "Correct" }).click();
     await v4.fill("0.0001");
     await step4.getByLabel(/^Note/).fill("misread the dial");
     await step4.getByRole("button", { name: "Save correction" }).click();
     await expect.poll(() => step4.getByRole("status").innerText()).toMatch(/Correction saved: pass/);
     // The mistyped reading is kept and marked as corrected, not overwritten.
-    await expect.poll(() => step4.locator('tr[data-superseded="true"]').filter({ hasText: "0.0010 in" }).count()).toBeGreaterThan(0);
+    await expect
+      .poll(() => step4.locator('tr[data-superseded="true"]').filter({ hasText: "0.0010 in" }).count())
+      .toBeGreaterThan(0);
     await p.screenshot({ path: screenshotPath("checklist-desktop"), fullPage: true });
 
     // Compare: every step with before, after, change, limits and result.

@@ -36,12 +36,16 @@ describe("inspector: test-part data to a judged table", () => {
     await page.waitForURL(/\/jobs\/[0-9a-f-]{36}$/);
     await page.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Data" }).click();
     await page.waitForURL(/\/data$/);
-    await expect.poll(() => page.getByRole("heading", { name: "Add measurement data" }).isVisible()).toBe(true);
+    await expect
+      .poll(() => page.getByRole("heading", { name: "Add measurement data" }).isVisible())
+      .toBe(true);
   });
 
   it("a bad file shows its row errors in the browser and cannot be sent", async () => {
     await page.getByLabel("Test-part measurements").check({ force: true });
-    await page.getByLabel("CSV file").setInputFiles({ name: "part-with-typos.csv", mimeType: "text/csv", buffer: BAD });
+    await page
+      .getByLabel("CSV file")
+      .setInputFiles({ name: "part-with-typos.csv", mimeType: "text/csv", buffer: BAD });
     const errors = page.getByTestId("row-errors");
     await errors.waitFor();
     const text = await errors.innerText();
@@ -52,7 +56,13 @@ describe("inspector: test-part data to a judged table", () => {
   });
 
   it("a good file shows the preview, uploads with progress and opens the evaluation", async () => {
-    await page.getByLabel("CSV file").setInputFiles({ name: "test part 7.csv", mimeType: "text/csv", buffer: readFileSync("tests/fixtures/uploads/test-part-good.csv") });
+    await page
+      .getByLabel("CSV file")
+      .setInputFiles({
+        name: "test part 7.csv",
+        mimeType: "text/csv",
+        buffer: readFileSync("tests/fixtures/uploads/test-part-good.csv"),
+      });
     await page.getByTestId("chosen-file").filter({ hasText: "test part 7.csv" }).waitFor();
     const preview = page.getByRole("table", { name: "Preview of the first rows" });
     await preview.waitFor();
@@ -68,7 +78,14 @@ describe("inspector: test-part data to a judged table", () => {
     expect(rule).toContain("guarded acceptance");
     expect(rule).toContain("ISO 14253-1");
     // Same decisions as worked by hand in tests/integration/datasets.test.ts (ISO 14253-1, U = 0.002 mm).
-    const rows = await table.locator("tbody tr").evaluateAll((trs) => trs.map((tr) => [tr.children[0]!.textContent, tr.querySelector("[data-decision]")!.getAttribute("data-decision")]));
+    const rows = await table
+      .locator("tbody tr")
+      .evaluateAll((trs) =>
+        trs.map((tr) => [
+          tr.children[0]!.textContent,
+          tr.querySelector("[data-decision]")!.getAttribute("data-decision"),
+        ]),
+      );
     expect(rows).toEqual([
       ["Bore A", "pass"],
       ["Bore B", "fail"],
@@ -87,7 +104,9 @@ describe("inspector: test-part data to a judged table", () => {
     const href = await page.getByRole("link", { name: "Download the original" }).getAttribute("href");
     const res = await page.request.get(href!);
     expect(res.status()).toBe(200);
-    expect(Buffer.compare(await res.body(), readFileSync("tests/fixtures/uploads/test-part-good.csv"))).toBe(0);
+    expect(Buffer.compare(await res.body(), readFileSync("tests/fixtures/uploads/test-part-good.csv"))).toBe(
+      0,
+    );
     expect(res.headers()["x-content-type-options"]).toBe("nosniff");
   });
 });
@@ -96,14 +115,18 @@ describe("inspector: signs the job as inspected", () => {
   it("a wrong password is refused, then the signature is listed with name, role and UTC time", async () => {
     await page.goto(page.url().replace(/\/data\/[0-9a-f-]{36}$/, "/report"));
     const form = page.getByRole("form", { name: "Sign as inspected" });
-    expect(await form.innerText()).toContain("You confirm you inspected the recorded readings and measurements");
+    expect(await form.innerText()).toContain(
+      "You confirm you inspected the recorded readings and measurements",
+    );
     await form.getByLabel("Your password").fill("not-my-password");
     await form.getByRole("button", { name: "Sign" }).click();
     await expect.poll(() => form.getByRole("alert").innerText()).toContain("password");
     await form.getByLabel("Your password").fill("trammel-demo");
     await form.getByRole("button", { name: "Sign" }).click();
     const sigs = page.getByRole("complementary", { name: "Signatures" });
-    await expect.poll(() => sigs.innerText(), { timeout: 15_000 }).toMatch(/Inspected\s+Ines Okafor — Inspector\s+\d{4}-\d{2}-\d{2} \d{2}:\d{2}.*UTC/);
+    await expect
+      .poll(() => sigs.innerText(), { timeout: 15_000 })
+      .toMatch(/Inspected\s+Ines Okafor — Inspector\s+\d{4}-\d{2}-\d{2} \d{2}:\d{2}.*UTC/);
     // Signed once: the form is gone for this inspector.
     await expect.poll(() => page.getByRole("form", { name: "Sign as inspected" }).count()).toBe(0);
     await page.goto(page.url().replace(/\/report$/, "/data"));

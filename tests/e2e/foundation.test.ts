@@ -89,9 +89,13 @@ describe("sign-in page", () => {
     const p = await fresh();
     await signIn(p, "admin@halvard.example", "not-the-password");
     const alert = p.getByTestId("sign-in-error");
-    await expect.poll(() => alert.innerText()).toBe("That e-mail and password do not match an active account.");
+    await expect
+      .poll(() => alert.innerText())
+      .toBe("That e-mail and password do not match an active account.");
     await signIn(p, "nobody@halvard.example", "not-the-password");
-    await expect.poll(() => alert.innerText()).toBe("That e-mail and password do not match an active account.");
+    await expect
+      .poll(() => alert.innerText())
+      .toBe("That e-mail and password do not match an active account.");
     await p.screenshot({ path: screenshotPath("sign-in-error") });
     await p.close();
   });
@@ -129,7 +133,9 @@ describe("jobs table and job page", () => {
     await p.screenshot({ path: screenshotPath("jobs-table"), fullPage: true });
     await p.getByRole("link", { name: "TR-2026-0041" }).click();
     await p.waitForURL(/\/jobs\/[0-9a-f-]{36}$/);
-    await expect.poll(() => p.getByRole("heading", { level: 1 }).innerText()).toBe("Head installation on gantry mill G-7");
+    await expect
+      .poll(() => p.getByRole("heading", { level: 1 }).innerText())
+      .toBe("Head installation on gantry mill G-7");
     expect(await p.getByRole("note").innerText()).toMatch(/machine builder/);
     await p.screenshot({ path: screenshotPath("job-page"), fullPage: true });
     await p.close();
@@ -153,7 +159,9 @@ describe("security headers", () => {
     for (const path of ["/login", "/api/health", "/jobs"]) {
       const res = await p.request.get(path, { maxRedirects: 0 });
       const h = res.headers();
-      expect(h["content-security-policy"], path).toMatch(/script-src 'self' 'nonce-[A-Za-z0-9+/=]+' 'strict-dynamic'/);
+      expect(h["content-security-policy"], path).toMatch(
+        /script-src 'self' 'nonce-[A-Za-z0-9+/=]+' 'strict-dynamic'/,
+      );
       expect(h["content-security-policy"], path).toContain("frame-ancestors 'none'");
       expect(h["x-content-type-options"], path).toBe("nosniff");
       expect(h["referrer-policy"], path).toBe("strict-origin-when-cross-origin");

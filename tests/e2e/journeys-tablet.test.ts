@@ -18,7 +18,18 @@ import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
 import { headPoseGrid, synthesiseSphereProbe } from "@/geometry";
-import { canvasPixels, followReportMail, mailTo, newContext, screenshotPath, scrollsSideways, seriousViolations, signIn, TABLET, waitForPicture } from "./browser";
+import {
+  canvasPixels,
+  followReportMail,
+  mailTo,
+  newContext,
+  screenshotPath,
+  scrollsSideways,
+  seriousViolations,
+  signIn,
+  TABLET,
+  waitForPicture,
+} from "./browser";
 
 let ctx: BrowserContext;
 let jobPath = "";
@@ -59,7 +70,8 @@ async function openSection(p: Page, reference: string, section: string) {
 /** Signs a form on the report page with the demo password (the signer re-enters it). */
 async function signForm(p: Page, form: string, button: string, comment?: string) {
   const f = p.getByRole("form", { name: form });
-  if (comment !== undefined) await f.getByRole("textbox", { name: /Why you reject it|What the amendment corrects/ }).fill(comment);
+  if (comment !== undefined)
+    await f.getByRole("textbox", { name: /Why you reject it|What the amendment corrects/ }).fill(comment);
   await f.getByLabel("Your password").fill("trammel-demo");
   await f.getByRole("button", { name: button }).click();
 }
@@ -71,7 +83,13 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     await openSection(p, REF, "Data");
     await fitsTheTablet(p, "data page");
     await p.getByLabel("Test-part measurements").check({ force: true });
-    await p.getByLabel("CSV file").setInputFiles({ name: "tollan test part.csv", mimeType: "text/csv", buffer: readFileSync("tests/fixtures/uploads/test-part-good.csv") });
+    await p
+      .getByLabel("CSV file")
+      .setInputFiles({
+        name: "tollan test part.csv",
+        mimeType: "text/csv",
+        buffer: readFileSync("tests/fixtures/uploads/test-part-good.csv"),
+      });
     await p.getByRole("table", { name: "Preview of the first rows" }).waitFor();
     await p.getByLabel(/Expanded uncertainty U/).fill("0.002");
     await fitsTheTablet(p, "data page with preview");
@@ -88,7 +106,14 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     // inside their zones (Face 1 0.0035 ≤ 0.004, Pocket D 8.0041 ≤ 8.005), where the guarded rule
     // of TR-2026-0052 leaves those two undecided (datasets.test.ts).
     expect(await p.getByTestId("decision-rule").innerText()).toContain("simple acceptance");
-    const rows = await table.locator("tbody tr").evaluateAll((trs) => trs.map((tr) => [tr.children[0]!.textContent, tr.querySelector("[data-decision]")!.getAttribute("data-decision")]));
+    const rows = await table
+      .locator("tbody tr")
+      .evaluateAll((trs) =>
+        trs.map((tr) => [
+          tr.children[0]!.textContent,
+          tr.querySelector("[data-decision]")!.getAttribute("data-decision"),
+        ]),
+      );
     expect(rows).toEqual([
       ["Bore A", "pass"],
       ["Bore B", "fail"],
@@ -111,7 +136,9 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     await expect.poll(() => form.getByRole("alert").innerText()).toContain("password");
     await signForm(p, "Sign as inspected", "Sign");
     const sigs = p.getByRole("complementary", { name: "Signatures" });
-    await expect.poll(() => sigs.innerText(), { timeout: 15_000 }).toMatch(/Inspected\s+Ines Okafor — Inspector/);
+    await expect
+      .poll(() => sigs.innerText(), { timeout: 15_000 })
+      .toMatch(/Inspected\s+Ines Okafor — Inspector/);
     await p.close();
   });
 
@@ -120,13 +147,45 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     const href = await p.getByRole("link", { name: REF }).getAttribute("href");
     const jobId = href!.split("/").pop()!;
     // Invented sphere-probe data for this job's own head (C/B, tool along −Z), uploaded through the datasets API the upload page uses.
-    const job = (await (await p.request.get(`/api/jobs/${jobId}`)).json()).job as { head: { primaryAxis: "A" | "B" | "C"; secondaryAxis: "A" | "B" | "C"; nominalPivotLengthMm: number; toolDirection: [number, number, number] } };
-    const head = { primary: job.head.primaryAxis, secondary: job.head.secondaryAxis, pivotLengthMm: job.head.nominalPivotLengthMm, toolDirection: job.head.toolDirection };
+    const job = (await (await p.request.get(`/api/jobs/${jobId}`)).json()).job as {
+      head: {
+        primaryAxis: "A" | "B" | "C";
+        secondaryAxis: "A" | "B" | "C";
+        nominalPivotLengthMm: number;
+        toolDirection: [number, number, number];
+      };
+    };
+    const head = {
+      primary: job.head.primaryAxis,
+      secondary: job.head.secondaryAxis,
+      pivotLengthMm: job.head.nominalPivotLengthMm,
+      toolDirection: job.head.toolDirection,
+    };
     const poses = headPoseGrid({ primarySteps: 12, secondaryDeg: [-90, -45, 0, 45, 90], toolMm: [0, 80] });
-    const d = synthesiseSphereProbe(head, { pivot_length_error_um: 18, secondary_tilt_arcsec: -9 }, poses, { noiseUm: 1, seed: 91 });
-    const csv = ["primary_deg,secondary_deg,x,y,z,tool_mm", ...Array.from({ length: d.rows }, (_, i) => [d.primaryDeg[i], d.secondaryDeg[i], d.xMm[i]!.toFixed(5), d.yMm[i]!.toFixed(5), d.zMm[i]!.toFixed(5), d.toolMm![i]].join(","))].join("\n");
+    const d = synthesiseSphereProbe(head, { pivot_length_error_um: 18, secondary_tilt_arcsec: -9 }, poses, {
+      noiseUm: 1,
+      seed: 91,
+    });
+    const csv = [
+      "primary_deg,secondary_deg,x,y,z,tool_mm",
+      ...Array.from({ length: d.rows }, (_, i) =>
+        [
+          d.primaryDeg[i],
+          d.secondaryDeg[i],
+          d.xMm[i]!.toFixed(5),
+          d.yMm[i]!.toFixed(5),
+          d.zMm[i]!.toFixed(5),
+          d.toolMm![i],
+        ].join(","),
+      ),
+    ].join("\n");
     const up = await p.request.post(`/api/jobs/${jobId}/datasets`, {
-      multipart: { kind: "sphere_probe", phase: "pre", units: "mm", file: { name: "probe-0048.csv", mimeType: "text/csv", buffer: Buffer.from(csv) } },
+      multipart: {
+        kind: "sphere_probe",
+        phase: "pre",
+        units: "mm",
+        file: { name: "probe-0048.csv", mimeType: "text/csv", buffer: Buffer.from(csv) },
+      },
     });
     expect(up.status()).toBe(201);
 
@@ -145,7 +204,9 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     expect(legend.y).toBeGreaterThanOrEqual(box.y + box.height - 1);
     await p.getByLabel("Exaggeration factor").fill("4");
     await expect.poll(() => p.getByTestId("factor-label").innerText()).toMatch(/×10\u2009000/);
-    await expect.poll(async () => (await canvasPixels(p)).digest, { timeout: 10_000 }).not.toBe(before.digest);
+    await expect
+      .poll(async () => (await canvasPixels(p)).digest, { timeout: 10_000 })
+      .not.toBe(before.digest);
     await fitsTheTablet(p, "analysis page");
     await p.evaluate(() => window.scrollTo(0, 0));
     await p.screenshot({ path: screenshotPath("tablet-j2-analysis"), fullPage: true });
@@ -164,28 +225,39 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Report" }).click();
     await p.waitForURL(/\/report$/);
     await signForm(p, "Approve and issue the report", "Approve and issue");
-    await expect.poll(() => p.getByRole("link", { name: "Download signed PDF" }).count(), { timeout: 30_000 }).toBe(1);
-    await expect.poll(() => p.getByRole("article", { name: "Acceptance report" }).innerText()).toContain("END OF REPORT");
+    await expect
+      .poll(() => p.getByRole("link", { name: "Download signed PDF" }).count(), { timeout: 30_000 })
+      .toBe(1);
+    await expect
+      .poll(() => p.getByRole("article", { name: "Acceptance report" }).innerText())
+      .toContain("END OF REPORT");
     await fitsTheTablet(p, "issued report, engineer");
     await p.close();
   });
 
   it("journey 3: the buyer follows the e-mail, reads the report, downloads the PDF and rejects it with a comment", async () => {
-    const p = await followReportMail(ctx, "buyer@tollan.example", REF, (page) => fitsTheTablet(page, "sign-in page"));
+    const p = await followReportMail(ctx, "buyer@tollan.example", REF, (page) =>
+      fitsTheTablet(page, "sign-in page"),
+    );
     const article = p.getByRole("article", { name: "Acceptance report" });
     await expect.poll(() => article.innerText()).toContain("END OF REPORT");
     expect(await article.innerText()).toContain("Tollan Mold Works");
     expect(await article.innerText()).toContain("TH-1907");
     await fitsTheTablet(p, "report page, customer");
     await p.screenshot({ path: screenshotPath("tablet-j3-report"), fullPage: true });
-    const [download] = await Promise.all([p.waitForEvent("download"), p.getByRole("link", { name: "Download signed PDF" }).click()]);
+    const [download] = await Promise.all([
+      p.waitForEvent("download"),
+      p.getByRole("link", { name: "Download signed PDF" }).click(),
+    ]);
     pdfPath = screenshotPath("tablet-report").replace(/\.png$/, ".pdf");
     await download.saveAs(pdfPath);
     expect(readFileSync(pdfPath).subarray(0, 5).toString()).toBe("%PDF-");
 
     // A comment of spaces is refused by the server, naming the reason; then the rejection is signed.
     await signForm(p, "Reject the report", "Reject", "   ");
-    await expect.poll(() => p.getByRole("form", { name: "Reject the report" }).getByRole("alert").innerText()).toContain("Say why the report is rejected");
+    await expect
+      .poll(() => p.getByRole("form", { name: "Reject the report" }).getByRole("alert").innerText())
+      .toContain("Say why the report is rejected");
     const why = "Pivot length differs from the head maker's sheet; please re-check before we accept.";
     await signForm(p, "Reject the report", "Reject", why);
     const sigs = p.getByRole("complementary", { name: "Signatures" });
@@ -201,15 +273,24 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     expect(told.replace(/=\r?\n/g, "")).toContain("re-check before we accept");
     const e = await as("engineer@halvard.example");
     await e.goto(`${jobPath}/report`);
-    await signForm(e, "Issue an amendment", "Issue amendment", "Pivot length re-checked against the maker's sheet; the fitted value stands.");
+    await signForm(
+      e,
+      "Issue an amendment",
+      "Issue amendment",
+      "Pivot length re-checked against the maker's sheet; the fitted value stands.",
+    );
     await expect.poll(() => e.getByText(/Revision 2, issued/).count(), { timeout: 30_000 }).toBe(1);
     await e.close();
 
     const b = await as("buyer@tollan.example");
     await b.goto(`${jobPath}/report`);
-    await expect.poll(() => b.getByRole("article", { name: "Acceptance report" }).innerText()).toContain("re-checked against the maker's sheet");
+    await expect
+      .poll(() => b.getByRole("article", { name: "Acceptance report" }).innerText())
+      .toContain("re-checked against the maker's sheet");
     await signForm(b, "Accept the report", "Accept");
-    await expect.poll(() => b.getByRole("complementary", { name: "Signatures" }).innerText(), { timeout: 15_000 }).toContain("Accepted by the customer");
+    await expect
+      .poll(() => b.getByRole("complementary", { name: "Signatures" }).innerText(), { timeout: 15_000 })
+      .toContain("Accepted by the customer");
     await expect.poll(() => b.locator("main").innerText()).toContain("Accepted");
     await fitsTheTablet(b, "report page, accepted");
     await b.close();
@@ -239,16 +320,26 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     // Large targets for a gloved hand beside the machine.
     const step5 = p.getByTestId("step-5");
     await step5.scrollIntoViewIfNeeded();
-    expect((await step5.getByRole("button", { name: "Save reading" }).boundingBox())!.height).toBeGreaterThanOrEqual(44);
-    expect((await step5.locator("label", { hasText: "After adjustment" }).boundingBox())!.height).toBeGreaterThanOrEqual(40);
+    expect(
+      (await step5.getByRole("button", { name: "Save reading" }).boundingBox())!.height,
+    ).toBeGreaterThanOrEqual(44);
+    expect(
+      (await step5.locator("label", { hasText: "After adjustment" }).boundingBox())!.height,
+    ).toBeGreaterThanOrEqual(40);
     await step5.getByLabel("After adjustment").check();
     await step5.getByLabel(/Change in reading over the travel/).fill("0.0001");
     // 0.0001 in over the default 4 in of travel: 25 µm/m, 5.2″ (geometry/angle).
-    await expect.poll(() => step5.getByTestId("live-5").innerText()).toMatch(/Pass[\s\S]*5\.2″ \(25\.0 µm\/m\)/);
+    await expect
+      .poll(() => step5.getByTestId("live-5").innerText())
+      .toMatch(/Pass[\s\S]*5\.2″ \(25\.0 µm\/m\)/);
     const instrument = step5.getByLabel("Instrument");
-    await instrument.selectOption({ label: (await instrument.locator("option", { hasText: "DTI-0112" }).textContent())!.trim() });
+    await instrument.selectOption({
+      label: (await instrument.locator("option", { hasText: "DTI-0112" }).textContent())!.trim(),
+    });
     await step5.getByRole("button", { name: "Save reading" }).click();
-    await expect.poll(() => step5.getByRole("status").innerText(), { timeout: 15_000 }).toMatch(/Reading saved: pass/);
+    await expect
+      .poll(() => step5.getByRole("status").innerText(), { timeout: 15_000 })
+      .toMatch(/Reading saved: pass/);
     await step5.screenshot({ path: screenshotPath("tablet-j4-step5") });
 
     await p.goto(`${jobPath}/compare`);

@@ -24,18 +24,27 @@ describe("journey 3: the customer accepts the signed report", () => {
     await expect.poll(() => article.innerText()).toContain("END OF REPORT");
     expect(await article.innerText()).toContain("Marlow Creek Aerostructures");
     expect(await article.innerText()).toMatch(/Approved and issued[\s\S]*Emil Haraldsen[\s\S]*UTC/);
-    const [download] = await Promise.all([p.waitForEvent("download"), p.getByRole("link", { name: "Download signed PDF" }).click()]);
+    const [download] = await Promise.all([
+      p.waitForEvent("download"),
+      p.getByRole("link", { name: "Download signed PDF" }).click(),
+    ]);
     pdfPath = screenshotPath("downloaded-report").replace(/\.png$/, ".pdf");
     await download.saveAs(pdfPath);
     expect(readFileSync(pdfPath).subarray(0, 5).toString()).toBe("%PDF-");
     // The page and the signed file say the same: the same figures with the same captions, and
     // each parameter's limit and result (pdftotext, poppler's reader, for the file).
     const pdfText = execFileSync("pdftotext", [pdfPath, "-"]).toString("utf8").replace(/\s+/g, " ");
-    const captions = (await article.locator("figcaption").allInnerTexts()).map((t) => t.replace(/\s+/g, " ").trim());
+    const captions = (await article.locator("figcaption").allInnerTexts()).map((t) =>
+      t.replace(/\s+/g, " ").trim(),
+    );
     expect(captions.length, "the online report has figures").toBeGreaterThanOrEqual(2);
     for (const c of captions) expect(pdfText, c).toContain(c.slice(0, 60));
     expect(pdfText.match(/Figure \d+\./g)?.length).toBe(captions.length);
-    const paramRows = await article.getByRole("table").filter({ hasText: "ISO 230-1" }).locator("tbody tr").allInnerTexts();
+    const paramRows = await article
+      .getByRole("table")
+      .filter({ hasText: "ISO 230-1" })
+      .locator("tbody tr")
+      .allInnerTexts();
     expect(paramRows.length).toBe(10);
     for (const r of paramRows) {
       const [name, symbol, , , tolerance] = r.split("\t").map((x) => x.trim());
@@ -60,7 +69,9 @@ describe("journey 3: the customer accepts the signed report", () => {
     await expect.poll(() => accept.getByRole("alert").innerText()).toContain("password");
     await accept.getByLabel("Your password").fill("trammel-demo");
     await accept.getByRole("button", { name: "Accept" }).click();
-    await expect.poll(() => p.getByRole("complementary", { name: "Signatures" }).innerText(), { timeout: 15_000 }).toContain("Accepted by the customer");
+    await expect
+      .poll(() => p.getByRole("complementary", { name: "Signatures" }).innerText(), { timeout: 15_000 })
+      .toContain("Accepted by the customer");
     await expect.poll(() => p.locator("main").innerText()).toContain("Accepted");
     await p.close();
   });

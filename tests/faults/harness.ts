@@ -28,10 +28,20 @@ export interface Child {
 const children: Child[] = [];
 
 /** Starts `cmd` in its own process group (so its children stop with it), output kept in memory. */
-export function start(name: string, cmd: string, args: string[], env: Record<string, string | undefined>): Child {
+export function start(
+  name: string,
+  cmd: string,
+  args: string[],
+  env: Record<string, string | undefined>,
+): Child {
   const cleanEnv = { ...process.env, ...env };
   for (const [k, v] of Object.entries(cleanEnv)) if (v === undefined) delete cleanEnv[k];
-  const proc = spawn(cmd, args, { cwd: ROOT, env: cleanEnv as NodeJS.ProcessEnv, detached: true, stdio: ["ignore", "pipe", "pipe"] });
+  const proc = spawn(cmd, args, {
+    cwd: ROOT,
+    env: cleanEnv as NodeJS.ProcessEnv,
+    detached: true,
+    stdio: ["ignore", "pipe", "pipe"],
+  });
   let out = "";
   let done = false;
   proc.stdout!.on("data", (b: Buffer) => (out = (out + b.toString()).slice(-200_000)));
@@ -67,14 +77,23 @@ export async function stopAll(): Promise<void> {
 export const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** Runs a command to completion; resolves with its exit code and output. */
-export function run(cmd: string, args: string[], env: Record<string, string | undefined> = {}): Promise<{ code: number; out: string }> {
+export function run(
+  cmd: string,
+  args: string[],
+  env: Record<string, string | undefined> = {},
+): Promise<{ code: number; out: string }> {
   return new Promise((resolve) => {
     const c = start(`${cmd} ${args.join(" ")}`, cmd, args, env);
     c.proc.on("exit", (code) => resolve({ code: code ?? -1, out: c.log() }));
   });
 }
 
-export async function waitFor(what: string, check: () => Promise<boolean>, timeoutMs: number, everyMs = 100): Promise<void> {
+export async function waitFor(
+  what: string,
+  check: () => Promise<boolean>,
+  timeoutMs: number,
+  everyMs = 100,
+): Promise<void> {
   const t0 = Date.now();
   while (Date.now() - t0 < timeoutMs) {
     if (await check().catch(() => false)) return;
@@ -85,7 +104,11 @@ export async function waitFor(what: string, check: () => Promise<boolean>, timeo
 
 /** The project's PostgreSQL script, aimed at the test command's cluster (never at DATABASE_URL). */
 export function pgScript(cmd: "start" | "stop") {
-  return run("bash", ["db/pg.sh", cmd], { DATABASE_URL: undefined, PGPORT: required("PGPORT"), PG_BASE: required("PG_BASE") });
+  return run("bash", ["db/pg.sh", cmd], {
+    DATABASE_URL: undefined,
+    PGPORT: required("PGPORT"),
+    PG_BASE: required("PG_BASE"),
+  });
 }
 
 export interface AppInstance {
@@ -96,13 +119,20 @@ export interface AppInstance {
 /** One instance of the built app (next start) on `port`, with its outbox worker on a short timer. */
 export async function startApp(port: number, env: Record<string, string>): Promise<AppInstance> {
   const base = `http://127.0.0.1:${port}`;
-  const child = start(`app:${port}`, "node", ["node_modules/next/dist/bin/next", "start", "-p", String(port), "-H", "127.0.0.1"], {
-    NEXTAUTH_URL: base,
-    ...env,
-  });
-  await waitFor(`the app on ${base}`, async () => (await fetch(`${base}/api/health`)).ok, 30_000, 200).catch((err) => {
-    throw new Error(`${String(err)}\n${child.log().slice(-3000)}`);
-  });
+  const child = start(
+    `app:${port}`,
+    "node",
+    ["node_modules/next/dist/bin/next", "start", "-p", String(port), "-H", "127.0.0.1"],
+    {
+      NEXTAUTH_URL: base,
+      ...env,
+    },
+  );
+  await waitFor(`the app on ${base}`, async () => (await fetch(`${base}/api/health`)).ok, 30_000, 200).catch(
+    (err) => {
+      throw new Error(`${String(err)}\n${child.log().slice(-3000)}`);
+    },
+  );
   return { base, child };
 }
 
@@ -110,7 +140,9 @@ export { signIn } from "../bench/sign-in";
 
 /** Signs out through next-auth's endpoint (which revokes the account's sessions). */
 export async function signOut(base: string, cookie: string): Promise<number> {
-  const { csrfToken } = (await (await fetch(`${base}/api/auth/csrf`, { headers: { cookie } })).json()) as { csrfToken: string };
+  const { csrfToken } = (await (await fetch(`${base}/api/auth/csrf`, { headers: { cookie } })).json()) as {
+    csrfToken: string;
+  };
   const res = await fetch(`${base}/api/auth/signout`, {
     method: "POST",
     redirect: "manual",
@@ -129,7 +161,9 @@ export function probeCsv(rows: number, salt: number): Buffer {
     const x = 250 + 25 * Math.cos(b) * Math.cos(a) + salt * 1e-6;
     const y = 400 + 25 * Math.cos(b) * Math.sin(a);
     const z = -120 + 25 * Math.sin(b);
-    lines.push(`${((i * 7.2) % 360).toFixed(3)},${(-90 + ((i * 3.6) % 180)).toFixed(3)},${x.toFixed(5)},${y.toFixed(5)},${z.toFixed(5)},${i + 1},1`);
+    lines.push(
+      `${((i * 7.2) % 360).toFixed(3)},${(-90 + ((i * 3.6) % 180)).toFixed(3)},${x.toFixed(5)},${y.toFixed(5)},${z.toFixed(5)},${i + 1},1`,
+    );
   }
   return Buffer.from(lines.join("\n") + "\n");
 }
@@ -166,9 +200,16 @@ export function storedMails(dir: string): StoredMail[] {
     return [];
   }
   return names.map((file) => {
-    const head = readFileSync(path.join(dir, file), "utf8").split(/\r?\n\r?\n/)[0]!.replace(/\r?\n[ \t]+/g, " ");
+    const head = readFileSync(path.join(dir, file), "utf8")
+      .split(/\r?\n\r?\n/)[0]!
+      .replace(/\r?\n[ \t]+/g, " ");
     const header = (name: string) => new RegExp(`^${name}:\\s*(.+)$`, "im").exec(head)?.[1]?.trim() ?? null;
-    return { file, outboxId: header("X-Trammel-Outbox-Id"), sender: header("X-Trammel-Sender"), to: header("To") };
+    return {
+      file,
+      outboxId: header("X-Trammel-Outbox-Id"),
+      sender: header("X-Trammel-Sender"),
+      to: header("To"),
+    };
   });
 }
 

@@ -17,7 +17,10 @@ const WHO: Record<string, { email: string | null; sees: string[] | "401" }> = {
   installer: { email: "installer@halvard.example", sees: ["TR-2026-0041", "TR-2026-0048", "TR-2026-0052"] },
   inspector: { email: "inspector@halvard.example", sees: ALL },
   engineer: { email: "engineer@halvard.example", sees: ALL },
-  "customer (Marlow Creek)": { email: "buyer@marlowcreek.example", sees: ["TR-2026-0041", "TR-2026-0052", "TR-2026-0057"] },
+  "customer (Marlow Creek)": {
+    email: "buyer@marlowcreek.example",
+    sees: ["TR-2026-0041", "TR-2026-0052", "TR-2026-0057"],
+  },
   "customer (Tollan)": { email: "buyer@tollan.example", sees: ["TR-2026-0048"] },
 };
 
@@ -79,9 +82,18 @@ describe("API access matrix", () => {
         expect(res.status).toBe(200);
         const body = (await res.json()) as { jobs: { reference: string; customerName: string }[] };
         // Other test files add jobs of their own; the seeded ones must be exactly these.
-        expect(body.jobs.map((j) => j.reference).filter((r) => ALL.includes(r)).sort()).toEqual([...sees].sort());
-        if (email?.endsWith("marlowcreek.example")) expect(new Set(body.jobs.map((j) => j.customerName))).toEqual(new Set(["Marlow Creek Aerostructures"]));
-        if (email?.endsWith("tollan.example")) expect(new Set(body.jobs.map((j) => j.customerName))).toEqual(new Set(["Tollan Mold Works"]));
+        expect(
+          body.jobs
+            .map((j) => j.reference)
+            .filter((r) => ALL.includes(r))
+            .sort(),
+        ).toEqual([...sees].sort());
+        if (email?.endsWith("marlowcreek.example"))
+          expect(new Set(body.jobs.map((j) => j.customerName))).toEqual(
+            new Set(["Marlow Creek Aerostructures"]),
+          );
+        if (email?.endsWith("tollan.example"))
+          expect(new Set(body.jobs.map((j) => j.customerName))).toEqual(new Set(["Tollan Mold Works"]));
       });
 
       for (const ref of ALL) {
@@ -94,7 +106,8 @@ describe("API access matrix", () => {
           const body = await res.json();
           if (expected === 200) expect(body.job.reference).toBe(ref);
           // Another tenant's job is indistinguishable from a missing one.
-          if (expected === 404) expect(body).toEqual({ error: { code: "not_found", message: "No such job." } });
+          if (expected === 404)
+            expect(body).toEqual({ error: { code: "not_found", message: "No such job." } });
         });
       }
     });

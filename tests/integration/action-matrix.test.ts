@@ -29,7 +29,14 @@ const analysis = await import("@/app/(app)/jobs/[id]/analysis/actions");
 const registers = await import("@/app/(app)/registers/actions");
 const setPassword = await import("@/app/(auth)/set-password/actions");
 
-type Who = "anonymous" | "admin" | "installer" | "inspector" | "engineer" | "customer (Marlow Creek)" | "customer (Tollan)";
+type Who =
+  | "anonymous"
+  | "admin"
+  | "installer"
+  | "inspector"
+  | "engineer"
+  | "customer (Marlow Creek)"
+  | "customer (Tollan)";
 const EMAIL: Record<Who, string | null> = {
   anonymous: null,
   admin: "admin@halvard.example",
@@ -54,7 +61,14 @@ let instrumentId = "";
 async function freshJob(status: JobStatus): Promise<string> {
   const [row] = await db
     .insert(jobs)
-    .values({ reference: `TR-ACT-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`, title: "Action matrix job", kind: "reverification", status, ...marlow, assignedInstallerId: installerId })
+    .values({
+      reference: `TR-ACT-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`,
+      title: "Action matrix job",
+      kind: "reverification",
+      status,
+      ...marlow,
+      assignedInstallerId: installerId,
+    })
     .returning();
   return row!.id;
 }
@@ -68,24 +82,58 @@ async function outcome(result: Promise<ActionResult<unknown>>): Promise<Outcome 
 }
 
 /** The hand-written table: action → who → expected outcome, and how to call it for that person. */
-const MATRIX: Record<string, { expect: Record<Who, Outcome>; call: (who: Who) => Promise<ActionResult<unknown>> }> = {};
+const MATRIX: Record<
+  string,
+  { expect: Record<Who, Outcome>; call: (who: Who) => Promise<ActionResult<unknown>> }
+> = {};
 const staffOnly = (allowed: Who[]): Record<Who, Outcome> =>
-  Object.fromEntries((Object.keys(EMAIL) as Who[]).map((w) => [w, w === "anonymous" ? "unauthorized" : allowed.includes(w) ? "pass" : "forbidden"])) as Record<Who, Outcome>;
+  Object.fromEntries(
+    (Object.keys(EMAIL) as Who[]).map((w) => [
+      w,
+      w === "anonymous" ? "unauthorized" : allowed.includes(w) ? "pass" : "forbidden",
+    ]),
+  ) as Record<Who, Outcome>;
 /** Job-scoped: like staffOnly, but the other tenant's customer is told the job does not exist. */
-const onMarlowJob = (allowed: Who[]) => ({ ...staffOnly(allowed), "customer (Tollan)": "not_found" as const });
+const onMarlowJob = (allowed: Who[]) => ({
+  ...staffOnly(allowed),
+  "customer (Tollan)": "not_found" as const,
+});
 
 beforeAll(async () => {
-  const [t] = await db.select().from(jobs).where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
-  marlow = { customerId: t!.customerId, machineId: t!.machineId, headId: t!.headId, templateId: t!.templateId! };
+  const [t] = await db
+    .select()
+    .from(jobs)
+    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
+  marlow = {
+    customerId: t!.customerId,
+    machineId: t!.machineId,
+    headId: t!.headId,
+    templateId: t!.templateId!,
+  };
   installerId = (await signInAs("installer@halvard.example"))!;
-  [{ id: stepId }] = (await db.select({ id: templateSteps.id }).from(templateSteps).where(eq(templateSteps.templateId, marlow.templateId)).limit(1)) as [{ id: string }];
-  [{ id: instrumentId }] = (await db.select({ id: instruments.id }).from(instruments).where(eq(instruments.serial, "DTI-0112"))) as [{ id: string }];
+  [{ id: stepId }] = (await db
+    .select({ id: templateSteps.id })
+    .from(templateSteps)
+    .where(eq(templateSteps.templateId, marlow.templateId))
+    .limit(1)) as [{ id: string }];
+  [{ id: instrumentId }] = (await db
+    .select({ id: instruments.id })
+    .from(instruments)
+    .where(eq(instruments.serial, "DTI-0112"))) as [{ id: string }];
 });
 
 // ---- job work ----
 MATRIX.recordReadingAction = {
   expect: onMarlowJob(["admin", "installer"]),
-  call: async () => checklist.recordReadingAction({ jobId: await freshJob("measuring"), stepId, phase: "pre", value: "0.0004", unit: "in", instrumentId }),
+  call: async () =>
+    checklist.recordReadingAction({
+      jobId: await freshJob("measuring"),
+      stepId,
+      phase: "pre",
+      value: "0.0004",
+      unit: "in",
+      instrumentId,
+    }),
 };
 MATRIX.changeStatusAction = {
   // measuring → in review: the installer (or the office) submits the work.
@@ -94,17 +142,29 @@ MATRIX.changeStatusAction = {
 };
 MATRIX.setUnitSystemAction = {
   // Anyone signed in chooses their own display units.
-  expect: { ...staffOnly(["admin", "installer", "inspector", "engineer", "customer (Marlow Creek)", "customer (Tollan)"]) },
+  expect: {
+    ...staffOnly([
+      "admin",
+      "installer",
+      "inspector",
+      "engineer",
+      "customer (Marlow Creek)",
+      "customer (Tollan)",
+    ]),
+  },
   call: async (who) => {
     const email = EMAIL[who];
-    const [u] = email ? await db.select({ unitSystem: users.unitSystem }).from(users).where(eq(users.email, email)) : [];
+    const [u] = email
+      ? await db.select({ unitSystem: users.unitSystem }).from(users).where(eq(users.email, email))
+      : [];
     return checklist.setUnitSystemAction({ unitSystem: u?.unitSystem ?? "metric", path: "/jobs/x" });
   },
 };
 MATRIX.signWorkAction = {
   // Signing as inspected is the inspector's; a customer of the job's tenant is refused, another's is not told the job exists.
   expect: onMarlowJob(["inspector"]),
-  call: async () => report.signWorkAction({ jobId: await freshJob("measuring"), meaning: "inspected", password: PW }),
+  call: async () =>
+    report.signWorkAction({ jobId: await freshJob("measuring"), meaning: "inspected", password: PW }),
 };
 MATRIX.issueReportAction = {
   // Engineers only, checked before the job is looked up: everyone else is refused outright.
@@ -116,7 +176,10 @@ MATRIX.respondAction = {
   expect: { ...staffOnly(["customer (Marlow Creek)"]), "customer (Tollan)": "not_found" },
   call: async (who) => {
     const jobId = await freshJob("approved");
-    const engineer = (await getActor((await db.select({ id: users.id }).from(users).where(eq(users.email, "engineer@halvard.example")))[0]!.id))!;
+    const engineer = (await getActor(
+      (await db.select({ id: users.id }).from(users).where(eq(users.email, "engineer@halvard.example")))[0]!
+        .id,
+    ))!;
     const { reportId } = await issueReport(engineer, { jobId, password: PW });
     await signInAs(EMAIL[who]);
     return report.respondAction({ jobId, reportId, decision: "accepted", password: PW });
@@ -127,7 +190,12 @@ MATRIX.runFitAction = {
   call: async (who) => {
     const jobId = await freshJob("measuring");
     await signInAs("installer@halvard.example");
-    const up = await upload(jobId, Buffer.from(demoSphereProbeCsv()), { kind: "sphere_probe", phase: "pre", units: "mm" }, "probe.csv");
+    const up = await upload(
+      jobId,
+      Buffer.from(demoSphereProbeCsv()),
+      { kind: "sphere_probe", phase: "pre", units: "mm" },
+      "probe.csv",
+    );
     const datasetId = ((await up.json()) as { id: string }).id;
     await signInAs(EMAIL[who]);
     return analysis.runFitAction({ jobId, datasetId });
@@ -138,7 +206,12 @@ MATRIX.approveFitAction = {
   call: async (who) => {
     const jobId = await freshJob("measuring");
     await signInAs("installer@halvard.example");
-    const up = await upload(jobId, Buffer.from(demoSphereProbeCsv()), { kind: "sphere_probe", phase: "pre", units: "mm" }, "probe.csv");
+    const up = await upload(
+      jobId,
+      Buffer.from(demoSphereProbeCsv()),
+      { kind: "sphere_probe", phase: "pre", units: "mm" },
+      "probe.csv",
+    );
     const engineer = (await getActor((await signInAs("engineer@halvard.example"))!))!;
     const { analysis: a } = await runHeadFit(engineer, ((await up.json()) as { id: string }).id);
     await db.update(jobs).set({ status: "in_review" }).where(eq(jobs.id, jobId));
@@ -149,15 +222,34 @@ MATRIX.approveFitAction = {
 
 // ---- registers: the administrator's. An empty form passes the door for the admin and is then
 // refused for its fields ("invalid"), so nothing is created; everyone else is refused at the door.
-for (const name of ["createInstrumentAction", "inviteUserAction", "updateUserAction", "createTemplateVersionAction", "createJobAction", "mountHeadAction", "createCustomerAction", "createSiteAction", "createMachineAction", "createHeadAction"] as const) {
-  MATRIX[name] = { expect: staffOnly(["admin"]), call: async () => (registers[name] as (raw: unknown) => Promise<ActionResult<unknown>>)({}) };
+for (const name of [
+  "createInstrumentAction",
+  "inviteUserAction",
+  "updateUserAction",
+  "createTemplateVersionAction",
+  "createJobAction",
+  "mountHeadAction",
+  "createCustomerAction",
+  "createSiteAction",
+  "createMachineAction",
+  "createHeadAction",
+] as const) {
+  MATRIX[name] = {
+    expect: staffOnly(["admin"]),
+    call: async () => (registers[name] as (raw: unknown) => Promise<ActionResult<unknown>>)({}),
+  };
 }
 
 // ---- set password: anonymous by design, the one-time token is the credential; a wrong token is
 // refused for its field, whoever asks.
 MATRIX.setPasswordAction = {
   expect: Object.fromEntries((Object.keys(EMAIL) as Who[]).map((w) => [w, "pass"])) as Record<Who, Outcome>,
-  call: async () => setPassword.setPasswordAction({ token: "not-a-real-token-".padEnd(43, "x"), password: "a long enough new password", confirm: "a long enough new password" }),
+  call: async () =>
+    setPassword.setPasswordAction({
+      token: "not-a-real-token-".padEnd(43, "x"),
+      password: "a long enough new password",
+      confirm: "a long enough new password",
+    }),
 };
 
 describe("server action access matrix", () => {

@@ -13,7 +13,8 @@ import { upload } from "./dataset-helpers";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
-const run = (datasetId: string) => runRoute(request(`/api/datasets/${datasetId}/analyses`, { method: "POST" }), p(datasetId));
+const run = (datasetId: string) =>
+  runRoute(request(`/api/datasets/${datasetId}/analyses`, { method: "POST" }), p(datasetId));
 const read = (id: string) => getRoute(request(`/api/analyses/${id}`), p(id));
 
 // POST on the seeded Marlow Creek dataset (TR-2026-0052, measuring; its fit is stored by the seed,
@@ -24,7 +25,12 @@ const CELLS: Record<string, { email: string | null; post: number; getMarlow: num
   installer: { email: "installer@halvard.example", post: 403, getMarlow: 200, getTollan: 200 },
   inspector: { email: "inspector@halvard.example", post: 200, getMarlow: 200, getTollan: 200 },
   engineer: { email: "engineer@halvard.example", post: 200, getMarlow: 200, getTollan: 200 },
-  "customer (Marlow Creek)": { email: "buyer@marlowcreek.example", post: 403, getMarlow: 200, getTollan: 404 },
+  "customer (Marlow Creek)": {
+    email: "buyer@marlowcreek.example",
+    post: 403,
+    getMarlow: 200,
+    getTollan: 404,
+  },
   "customer (Tollan)": { email: "buyer@tollan.example", post: 404, getMarlow: 404, getTollan: 200 },
 };
 
@@ -32,7 +38,10 @@ const ids = { marlowDataset: "", marlowAnalysis: "", tollanDataset: "", tollanAn
 
 beforeAll(async () => {
   const job = await jobIdByReference("TR-2026-0052");
-  const [ds] = await db.select().from(datasets).where(and(eq(datasets.jobId, job), eq(datasets.kind, "sphere_probe")));
+  const [ds] = await db
+    .select()
+    .from(datasets)
+    .where(and(eq(datasets.jobId, job), eq(datasets.kind, "sphere_probe")));
   ids.marlowDataset = ds!.id;
   await signInAs("engineer@halvard.example");
   const first = await run(ids.marlowDataset);
@@ -40,7 +49,12 @@ beforeAll(async () => {
   ids.marlowAnalysis = (await first.json()).analysis.id;
   // A Tollan sphere-probe dataset on TR-2026-0048 (in review), fitted by the engineer.
   const tollanJob = await jobIdByReference("TR-2026-0048");
-  const up = await upload(tollanJob, Buffer.from(demoSphereProbeCsv()), { kind: "sphere_probe", phase: "pre", units: "mm" }, "tollan-probe.csv");
+  const up = await upload(
+    tollanJob,
+    Buffer.from(demoSphereProbeCsv()),
+    { kind: "sphere_probe", phase: "pre", units: "mm" },
+    "tollan-probe.csv",
+  );
   expect(up.status).toBe(201);
   ids.tollanDataset = (await up.json()).id;
   const t = await run(ids.tollanDataset);
@@ -59,7 +73,8 @@ describe("analysis routes by role and tenant", () => {
         expect(body.reused).toBe(true);
         expect(body.analysis.id).toBe(ids.marlowAnalysis);
       }
-      if (cell.post === 404) expect(body).toEqual({ error: { code: "not_found", message: "No such dataset." } });
+      if (cell.post === 404)
+        expect(body).toEqual({ error: { code: "not_found", message: "No such dataset." } });
       if (cell.post === 403) expect(body.error.code).toBe("forbidden");
     });
 
@@ -73,7 +88,8 @@ describe("analysis routes by role and tenant", () => {
         expect(res.status).toBe(expected);
         const body = await res.json();
         if (expected === 200) expect(body.analysis.id).toBe(id);
-        if (expected === 404) expect(body).toEqual({ error: { code: "not_found", message: "No such analysis." } });
+        if (expected === 404)
+          expect(body).toEqual({ error: { code: "not_found", message: "No such analysis." } });
       }
     });
   }

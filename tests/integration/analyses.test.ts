@@ -23,7 +23,8 @@ import { upload } from "./dataset-helpers";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
-const run = (datasetId: string) => runRoute(request(`/api/datasets/${datasetId}/analyses`, { method: "POST" }), p(datasetId));
+const run = (datasetId: string) =>
+  runRoute(request(`/api/datasets/${datasetId}/analyses`, { method: "POST" }), p(datasetId));
 const read = (id: string) => getRoute(request(`/api/analyses/${id}`), p(id));
 
 const as: Record<string, Actor> = {};
@@ -42,18 +43,42 @@ async function status(promise: Promise<unknown>): Promise<number> {
 }
 
 beforeAll(async () => {
-  for (const e of ["admin@halvard.example", "installer@halvard.example", "inspector@halvard.example", "engineer@halvard.example", "buyer@marlowcreek.example", "buyer@tollan.example"]) {
+  for (const e of [
+    "admin@halvard.example",
+    "installer@halvard.example",
+    "inspector@halvard.example",
+    "engineer@halvard.example",
+    "buyer@marlowcreek.example",
+    "buyer@tollan.example",
+  ]) {
     const id = await signInAs(e);
     as[e.split("@")[0]! + (e.includes("tollan") ? "-tollan" : "")] = (await getActor(id!))!;
   }
-  const [t] = await db.select().from(jobs).where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
+  const [t] = await db
+    .select()
+    .from(jobs)
+    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
   const [row] = await db
     .insert(jobs)
-    .values({ reference: `TR-FIT-${Date.now().toString(36)}`, title: "Head fit test job", kind: "reverification", status: "measuring", customerId: t!.customerId, machineId: t!.machineId, headId: t!.headId, assignedInstallerId: as.installer!.id })
+    .values({
+      reference: `TR-FIT-${Date.now().toString(36)}`,
+      title: "Head fit test job",
+      kind: "reverification",
+      status: "measuring",
+      customerId: t!.customerId,
+      machineId: t!.machineId,
+      headId: t!.headId,
+      assignedInstallerId: as.installer!.id,
+    })
     .returning();
   jobId = row!.id;
   await signInAs("installer@halvard.example");
-  const up = await upload(jobId, Buffer.from(demoSphereProbeCsv()), { kind: "sphere_probe", phase: "pre", units: "mm" }, "probe.csv");
+  const up = await upload(
+    jobId,
+    Buffer.from(demoSphereProbeCsv()),
+    { kind: "sphere_probe", phase: "pre", units: "mm" },
+    "probe.csv",
+  );
   expect(up.status).toBe(201);
   datasetId = (await up.json()).id;
 });
@@ -69,7 +94,13 @@ describe("running a fit", () => {
     const fileSha = createHash("sha256").update(demoSphereProbeCsv()).digest("hex");
     expect(a.datasetSha256).toBe(fileSha);
     const head = { primary: "C", secondary: "A", pivotLengthMm: 152.4, toolDirection: [0, 0, -1] };
-    expect(a.inputSha256).toBe(createHash("sha256").update(fileSha).update("\n").update(canonicalJson({ options: { maxIterations: 50 }, head })).digest("hex"));
+    expect(a.inputSha256).toBe(
+      createHash("sha256")
+        .update(fileSha)
+        .update("\n")
+        .update(canonicalJson({ options: { maxIterations: 50 }, head }))
+        .digest("hex"),
+    );
     expect(a.geometryVersion).toBe(GEOMETRY_VERSION);
 
     await signInAs("engineer@halvard.example");
@@ -79,7 +110,10 @@ describe("running a fit", () => {
     expect(b.reused).toBe(true);
     expect(b.analysis.id).toBe(analysisId);
     expect(await db.select().from(analyses).where(eq(analyses.datasetId, datasetId))).toHaveLength(1);
-    const created = await db.select().from(auditEvents).where(and(eq(auditEvents.entityId, analysisId), eq(auditEvents.action, "analysis.created")));
+    const created = await db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.entityId, analysisId), eq(auditEvents.action, "analysis.created")));
     expect(created).toHaveLength(1);
   });
 
@@ -88,14 +122,20 @@ describe("running a fit", () => {
     const api = (await (await read(analysisId)).json()).analysis;
     const original = await getDatasetOriginal(as.engineer!, datasetId);
     const data = readSphereProbeCsv(original!.data.toString("utf8"), { units: "mm" });
-    const own = headFitToJson(fitHead({ primary: "C", secondary: "A", pivotLengthMm: 152.4, toolDirection: [0, 0, -1] }, data, { maxIterations: 50 }));
+    const own = headFitToJson(
+      fitHead({ primary: "C", secondary: "A", pivotLengthMm: 152.4, toolDirection: [0, 0, -1] }, data, {
+        maxIterations: 50,
+      }),
+    );
     expect(api.fit).toEqual(JSON.parse(JSON.stringify(own)));
     const rows = parameterRows(api.fit);
     own.parameters.forEach((q, i) => {
       expect(rows[i]!.key).toBe(q.key);
       expect(rows[i]!.iso).toBe(q.iso);
       expect(rows[i]!.value).toBe(q.value);
-      expect(rows[i]!.valueText).toBe(q.U === null ? "held at 0" : `${signed(q.value, 2)} ${q.unit === "um" ? "µm" : "″"}`);
+      expect(rows[i]!.valueText).toBe(
+        q.U === null ? "held at 0" : `${signed(q.value, 2)} ${q.unit === "um" ? "µm" : "″"}`,
+      );
       expect(rows[i]!.UText).toBe(q.U === null ? "—" : `± ${q.U.toFixed(2)} ${q.unit === "um" ? "µm" : "″"}`);
     });
     // Per-pose residuals beside geometry's JSON, one per row of the file.
@@ -104,7 +144,12 @@ describe("running a fit", () => {
 
   it("refuses a dataset that is not sphere-probe data, naming the reason (422)", async () => {
     await signInAs("installer@halvard.example");
-    const up = await upload(jobId, Buffer.from("feature,characteristic,nominal,measured,lower_tol,upper_tol\nA,d,1,1.001,-0.01,0.01\n"), { kind: "test_part", phase: "post" }, "tp.csv");
+    const up = await upload(
+      jobId,
+      Buffer.from("feature,characteristic,nominal,measured,lower_tol,upper_tol\nA,d,1,1.001,-0.01,0.01\n"),
+      { kind: "test_part", phase: "post" },
+      "tp.csv",
+    );
     expect(up.status).toBe(201);
     await signInAs("engineer@halvard.example");
     const res = await run((await up.json()).id);
@@ -126,7 +171,10 @@ describe("approval", () => {
     expect(await status(approveAnalysis(as.buyer!, analysisId))).toBe(403);
     expect(await status(approveAnalysis(as["buyer-tollan"]!, analysisId))).toBe(404);
     // With probe data, a bare status change cannot approve: the approval must name a fit.
-    const bare = await changeJobStatus(as.engineer!, jobId, "approved").then(() => null, (e: AppError) => e);
+    const bare = await changeJobStatus(as.engineer!, jobId, "approved").then(
+      () => null,
+      (e: AppError) => e,
+    );
     expect(bare?.status).toBe(403);
     expect(bare?.message).toMatch(/Analysis tab/);
     const [still] = await db.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, jobId));
@@ -137,7 +185,9 @@ describe("approval", () => {
     const [now] = await db.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, jobId));
     expect(now!.status).toBe("approved");
     const events = await db.select().from(auditEvents).where(eq(auditEvents.jobId, jobId));
-    expect(events.map((e) => e.action)).toEqual(expect.arrayContaining(["analysis.created", "analysis.approved", "job.status_changed"]));
+    expect(events.map((e) => e.action)).toEqual(
+      expect.arrayContaining(["analysis.created", "analysis.approved", "job.status_changed"]),
+    );
     expect((await getApprovedAnalysis(as.engineer!, jobId))?.detail.analysis.id).toBe(analysisId);
   });
 

@@ -27,13 +27,19 @@ function pngOf(width: number, height: number, seed = 1): Buffer {
   return PNG.sync.write(img);
 }
 
-function saveRequest(analysisId: string, file: Buffer | null, fields: Record<string, string>, type = "image/png"): Request {
+function saveRequest(
+  analysisId: string,
+  file: Buffer | null,
+  fields: Record<string, string>,
+  type = "image/png",
+): Request {
   const form = new FormData();
   for (const [k, v] of Object.entries(fields)) form.set(k, v);
   if (file) form.set("file", new Blob([new Uint8Array(file)], { type }), "view.png");
   return request(`/api/analyses/${analysisId}/views`, { method: "POST", body: form });
 }
-const save = (analysisId: string, file: Buffer | null, fields: Record<string, string>) => saveRoute(saveRequest(analysisId, file, fields), p(analysisId));
+const save = (analysisId: string, file: Buffer | null, fields: Record<string, string>) =>
+  saveRoute(saveRequest(analysisId, file, fields), p(analysisId));
 const image = (viewId: string) => imageRoute(request(`/api/analysis-views/${viewId}/image`), p(viewId));
 const list = (analysisId: string) => listRoute(request(`/api/analyses/${analysisId}/views`), p(analysisId));
 
@@ -42,13 +48,22 @@ const ids = { job: "", pre: "", post: "", tollanAnalysis: "" };
 beforeAll(async () => {
   // The seeded before/after fits of TR-2026-0052 (Marlow Creek, measuring).
   ids.job = await jobIdByReference("TR-2026-0052");
-  const fits = await db.select({ id: analyses.id, phase: datasets.phase }).from(analyses).innerJoin(datasets, eq(datasets.id, analyses.datasetId)).where(eq(analyses.jobId, ids.job));
+  const fits = await db
+    .select({ id: analyses.id, phase: datasets.phase })
+    .from(analyses)
+    .innerJoin(datasets, eq(datasets.id, analyses.datasetId))
+    .where(eq(analyses.jobId, ids.job));
   ids.pre = fits.find((f) => f.phase === "pre")!.id;
   ids.post = fits.find((f) => f.phase === "post")!.id;
   // A Tollan fit on TR-2026-0048 (in review).
   const tollanJob = await jobIdByReference("TR-2026-0048");
   await signInAs("engineer@halvard.example");
-  const up = await upload(tollanJob, Buffer.from(demoSphereProbeCsv()), { kind: "sphere_probe", phase: "pre", units: "mm" }, "tollan-views.csv");
+  const up = await upload(
+    tollanJob,
+    Buffer.from(demoSphereProbeCsv()),
+    { kind: "sphere_probe", phase: "pre", units: "mm" },
+    "tollan-views.csv",
+  );
   expect(up.status).toBe(201);
   const { POST: runRoute } = await import("@/app/api/datasets/[id]/analyses/route");
   const dsId = (await up.json()).id as string;
@@ -61,10 +76,23 @@ describe("saving a view of the 3D view", () => {
   it("an engineer stores a PNG; the image route returns it byte-identical as image/png with nosniff", async () => {
     await signInAs("engineer@halvard.example");
     const png = pngOf(480, 320);
-    const res = await save(ids.post, png, { factor: "300", overlayAnalysisId: ids.pre, caption: "  Before and after shimming  " });
+    const res = await save(ids.post, png, {
+      factor: "300",
+      overlayAnalysisId: ids.pre,
+      caption: "  Before and after shimming  ",
+    });
     expect(res.status).toBe(201);
     const { view } = await res.json();
-    expect(view).toMatchObject({ analysisId: ids.post, overlayAnalysisId: ids.pre, widthPx: 480, heightPx: 320, factor: 300, caption: "Before and after shimming", sizeBytes: png.length, createdByName: "Emil Haraldsen" });
+    expect(view).toMatchObject({
+      analysisId: ids.post,
+      overlayAnalysisId: ids.pre,
+      widthPx: 480,
+      heightPx: 320,
+      factor: 300,
+      caption: "Before and after shimming",
+      sizeBytes: png.length,
+      createdByName: "Emil Haraldsen",
+    });
     expect(view.sha256).toBe(createHash("sha256").update(png).digest("hex"));
 
     const img = await image(view.id);
@@ -80,8 +108,15 @@ describe("saving a view of the 3D view", () => {
     const [row] = await db.select().from(analysisViews).where(eq(analysisViews.id, view.id));
     expect(row!.storageKey).toMatch(new RegExp(`^views/${ids.job}/[0-9a-f-]{36}$`));
     // Audited in the same chain, and the chain still verifies.
-    const [ev] = await db.select().from(auditEvents).where(and(eq(auditEvents.entityId, view.id), eq(auditEvents.action, "analysis_view.saved")));
-    expect(ev).toMatchObject({ jobId: ids.job, entityType: "analysis_view", actorEmail: "engineer@halvard.example" });
+    const [ev] = await db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.entityId, view.id), eq(auditEvents.action, "analysis_view.saved")));
+    expect(ev).toMatchObject({
+      jobId: ids.job,
+      entityType: "analysis_view",
+      actorEmail: "engineer@halvard.example",
+    });
     expect((ev!.newValues as { sha256: string }).sha256).toBe(view.sha256);
     expect((await verifyAuditChain(db)).firstBrokenId).toBeNull();
 
@@ -89,13 +124,18 @@ describe("saving a view of the 3D view", () => {
     await signInAs("buyer@marlowcreek.example");
     const l = await list(ids.post);
     expect(l.status).toBe(200);
-    expect((await l.json()).views[0]).toMatchObject({ id: view.id, imageUrl: `/api/analysis-views/${view.id}/image` });
+    expect((await l.json()).views[0]).toMatchObject({
+      id: view.id,
+      imageUrl: `/api/analysis-views/${view.id}/image`,
+    });
     expect((await image(view.id)).status).toBe(200);
   });
 
   it("a saved view cannot be changed or deleted afterwards (the table refuses it)", async () => {
     const [row] = await db.select().from(analysisViews).limit(1);
-    await expect(db.execute(sql`update analysis_views set factor = 1 where id = ${row!.id}`)).rejects.toThrow();
+    await expect(
+      db.execute(sql`update analysis_views set factor = 1 where id = ${row!.id}`),
+    ).rejects.toThrow();
     await expect(db.execute(sql`delete from analysis_views where id = ${row!.id}`)).rejects.toThrow();
   });
 
@@ -103,7 +143,11 @@ describe("saving a view of the 3D view", () => {
     await signInAs("engineer@halvard.example");
     const before = await db.select({ n: sql<number>`count(*)::int` }).from(analysisViews);
     const objects = await db.execute<{ n: number }>(sql`select count(*)::int as n from storage_objects`);
-    for (const bad of [Buffer.from("GIF89a not a png at all"), Buffer.from("<svg xmlns='http://www.w3.org/2000/svg'/>"), pngOf(10, 10).subarray(0, 20)]) {
+    for (const bad of [
+      Buffer.from("GIF89a not a png at all"),
+      Buffer.from("<svg xmlns='http://www.w3.org/2000/svg'/>"),
+      pngOf(10, 10).subarray(0, 20),
+    ]) {
       const res = await save(ids.post, bad, { factor: "300" });
       expect(res.status).toBe(422);
       const body = await res.json();
@@ -118,11 +162,16 @@ describe("saving a view of the 3D view", () => {
     expect((await badFactor.json()).error.issues[0].field).toBe("factor");
     const zero = await save(ids.post, pngOf(8, 8), { factor: "0" });
     expect(zero.status).toBe(422);
-    const foreign = await save(ids.post, pngOf(8, 8), { factor: "300", overlayAnalysisId: ids.tollanAnalysis });
+    const foreign = await save(ids.post, pngOf(8, 8), {
+      factor: "300",
+      overlayAnalysisId: ids.tollanAnalysis,
+    });
     expect(foreign.status).toBe(422);
     expect((await foreign.json()).error.issues[0].field).toBe("overlayAnalysisId");
     expect(await db.select({ n: sql<number>`count(*)::int` }).from(analysisViews)).toEqual(before);
-    expect((await db.execute<{ n: number }>(sql`select count(*)::int as n from storage_objects`)).rows).toEqual(objects.rows);
+    expect(
+      (await db.execute<{ n: number }>(sql`select count(*)::int as n from storage_objects`)).rows,
+    ).toEqual(objects.rows);
   });
 
   it("a picture over the 4 MiB cap is 413", async () => {
@@ -178,13 +227,29 @@ describe("latestJobView (for the report)", () => {
     const [t] = await db.select().from(jobs).where(eq(jobs.id, ids.job));
     const [job] = await db
       .insert(jobs)
-      .values({ reference: `TR-VIEW-${Date.now().toString(36)}`, title: "Saved view test job", kind: "reverification", status: "measuring", customerId: t!.customerId, machineId: t!.machineId, headId: t!.headId, assignedInstallerId: t!.assignedInstallerId })
+      .values({
+        reference: `TR-VIEW-${Date.now().toString(36)}`,
+        title: "Saved view test job",
+        kind: "reverification",
+        status: "measuring",
+        customerId: t!.customerId,
+        machineId: t!.machineId,
+        headId: t!.headId,
+        assignedInstallerId: t!.assignedInstallerId,
+      })
       .returning();
     await signInAs("engineer@halvard.example");
-    const up = await upload(job!.id, Buffer.from(demoSphereProbeCsv()), { kind: "sphere_probe", phase: "pre", units: "mm" }, "views-probe.csv");
+    const up = await upload(
+      job!.id,
+      Buffer.from(demoSphereProbeCsv()),
+      { kind: "sphere_probe", phase: "pre", units: "mm" },
+      "views-probe.csv",
+    );
     const dsId = (await up.json()).id as string;
     const { POST: runRoute } = await import("@/app/api/datasets/[id]/analyses/route");
-    const analysisId = (await (await runRoute(request(`/api/datasets/${dsId}/analyses`, { method: "POST" }), p(dsId))).json()).analysis.id as string;
+    const analysisId = (
+      await (await runRoute(request(`/api/datasets/${dsId}/analyses`, { method: "POST" }), p(dsId))).json()
+    ).analysis.id as string;
 
     const first = pngOf(40, 30, 1);
     const second = pngOf(64, 48, 2);
@@ -199,10 +264,28 @@ describe("latestJobView (for the report)", () => {
 
     const v = await latestJobView(job!.id);
     expect(v).not.toBeNull();
-    expect(v).toMatchObject({ id: id2, analysisId, factor: 1000, caption: "Report view", widthPx: 64, heightPx: 48, createdByName: "Emil Haraldsen" });
+    expect(v).toMatchObject({
+      id: id2,
+      analysisId,
+      factor: 1000,
+      caption: "Report view",
+      widthPx: 64,
+      heightPx: 48,
+      createdByName: "Emil Haraldsen",
+    });
     expect(v!.png.equals(second)).toBe(true);
     expect(v!.createdAt).toBeInstanceOf(Date);
-    expect(Object.keys(v!).sort()).toEqual(["analysisId", "caption", "createdAt", "createdByName", "factor", "heightPx", "id", "png", "widthPx"]);
+    expect(Object.keys(v!).sort()).toEqual([
+      "analysisId",
+      "caption",
+      "createdAt",
+      "createdByName",
+      "factor",
+      "heightPx",
+      "id",
+      "png",
+      "widthPx",
+    ]);
     expect(await latestJobView("not-a-uuid")).toBeNull();
   });
 });

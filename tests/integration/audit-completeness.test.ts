@@ -20,7 +20,18 @@ import { recordReading } from "@/db/queries/readings";
 import { issueReport, respondToReport, signJobWork } from "@/db/queries/reports";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { analyses, analysisViews, auditEvents, datasets, instruments, jobs, readings, reports, signatures, templateSteps } from "@/db/schema";
+import {
+  analyses,
+  analysisViews,
+  auditEvents,
+  datasets,
+  instruments,
+  jobs,
+  readings,
+  reports,
+  signatures,
+  templateSteps,
+} from "@/db/schema";
 import type { Actor } from "@/lib/auth/roles";
 import { PNG } from "pngjs";
 import { upload } from "./dataset-helpers";
@@ -31,20 +42,74 @@ const as: Record<string, Actor> = {};
 let jobId = "";
 
 beforeAll(async () => {
-  for (const e of ["admin@halvard.example", "installer@halvard.example", "inspector@halvard.example", "engineer@halvard.example", "buyer@marlowcreek.example"]) {
+  for (const e of [
+    "admin@halvard.example",
+    "installer@halvard.example",
+    "inspector@halvard.example",
+    "engineer@halvard.example",
+    "buyer@marlowcreek.example",
+  ]) {
     as[e.split("@")[0]!] = (await getActor((await signInAs(e))!))!;
   }
-  const [t] = await db.select().from(jobs).where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
-  const job = await createJobFromTemplate(as.admin!, { templateId: t!.templateId!, machineId: t!.machineId, headId: t!.headId, kind: "reverification", title: "Audit completeness job", assignedInstallerId: as.installer!.id, decisionRule: "simple" });
+  const [t] = await db
+    .select()
+    .from(jobs)
+    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
+  const job = await createJobFromTemplate(as.admin!, {
+    templateId: t!.templateId!,
+    machineId: t!.machineId,
+    headId: t!.headId,
+    kind: "reverification",
+    title: "Audit completeness job",
+    assignedInstallerId: as.installer!.id,
+    decisionRule: "simple",
+  });
   jobId = job.id;
-  const [step] = await db.select().from(templateSteps).where(eq(templateSteps.templateId, t!.templateId!)).orderBy(asc(templateSteps.position)).limit(1);
+  const [step] = await db
+    .select()
+    .from(templateSteps)
+    .where(eq(templateSteps.templateId, t!.templateId!))
+    .orderBy(asc(templateSteps.position))
+    .limit(1);
   const [inst] = await db.select().from(instruments).where(eq(instruments.serial, "DTI-0112"));
-  const first = await recordReading(as.installer!, jobId, { stepId: step!.id, phase: "pre", value: 0.0006, unit: "in", instrumentId: inst!.id });
-  await recordReading(as.installer!, jobId, { stepId: step!.id, phase: "pre", value: 0.0005, unit: "in", instrumentId: inst!.id, note: "misread", supersedesId: first.id });
-  await recordReading(as.installer!, jobId, { stepId: step!.id, phase: "post", value: 0.0002, unit: "in", instrumentId: inst!.id });
+  const first = await recordReading(as.installer!, jobId, {
+    stepId: step!.id,
+    phase: "pre",
+    value: 0.0006,
+    unit: "in",
+    instrumentId: inst!.id,
+  });
+  await recordReading(as.installer!, jobId, {
+    stepId: step!.id,
+    phase: "pre",
+    value: 0.0005,
+    unit: "in",
+    instrumentId: inst!.id,
+    note: "misread",
+    supersedesId: first.id,
+  });
+  await recordReading(as.installer!, jobId, {
+    stepId: step!.id,
+    phase: "post",
+    value: 0.0002,
+    unit: "in",
+    instrumentId: inst!.id,
+  });
   await signInAs("installer@halvard.example");
-  const probe = await upload(jobId, Buffer.from(demoSphereProbeCsv()), { kind: "sphere_probe", phase: "pre", units: "mm" }, "probe.csv");
-  const extra = await upload(jobId, Buffer.from("feature,characteristic,nominal,measured,lower_tol,upper_tol\nB1,diameter,40,40.01,0,0.025\n"), { kind: "test_part", phase: "post" }, "tp.csv");
+  const probe = await upload(
+    jobId,
+    Buffer.from(demoSphereProbeCsv()),
+    { kind: "sphere_probe", phase: "pre", units: "mm" },
+    "probe.csv",
+  );
+  const extra = await upload(
+    jobId,
+    Buffer.from(
+      "feature,characteristic,nominal,measured,lower_tol,upper_tol\nB1,diameter,40,40.01,0,0.025\n",
+    ),
+    { kind: "test_part", phase: "post" },
+    "tp.csv",
+  );
   await deleteDataset(as.installer!, (await extra.json()).id);
   const { analysis } = await runHeadFit(as.engineer!, (await probe.json()).id);
   await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
@@ -53,7 +118,12 @@ beforeAll(async () => {
   await approveAnalysis(as.engineer!, analysis.id);
   const png = new PNG({ width: 8, height: 8 });
   png.data.fill(200);
-  await saveAnalysisView(as.engineer!, analysis.id, { png: PNG.sync.write(png), factor: 100, overlayAnalysisId: null, caption: null });
+  await saveAnalysisView(as.engineer!, analysis.id, {
+    png: PNG.sync.write(png),
+    factor: 100,
+    overlayAnalysisId: null,
+    caption: null,
+  });
   const { reportId } = await issueReport(as.engineer!, { jobId, password: PW });
   await respondToReport(as.buyer!, { reportId, decision: "accepted", password: PW });
 }, 90_000);
@@ -63,11 +133,21 @@ describe("a whole job's changes are in the audit trail", () => {
     const events = await db.select().from(auditEvents).where(eq(auditEvents.jobId, jobId));
     const rows: Array<[string, string]> = [
       ["job", jobId],
-      ...(await db.select({ id: readings.id }).from(readings).where(eq(readings.jobId, jobId))).map((r) => ["reading", r.id] as [string, string]),
-      ...(await db.select({ id: datasets.id }).from(datasets).where(eq(datasets.jobId, jobId))).map((r) => ["dataset", r.id] as [string, string]),
-      ...(await db.select({ id: analyses.id }).from(analyses).where(eq(analyses.jobId, jobId))).map((r) => ["analysis", r.id] as [string, string]),
-      ...(await db.select({ id: analysisViews.id }).from(analysisViews).where(eq(analysisViews.jobId, jobId))).map((r) => ["analysis_view", r.id] as [string, string]),
-      ...(await db.select({ id: reports.id }).from(reports).where(eq(reports.jobId, jobId))).map((r) => ["report", r.id] as [string, string]),
+      ...(await db.select({ id: readings.id }).from(readings).where(eq(readings.jobId, jobId))).map(
+        (r) => ["reading", r.id] as [string, string],
+      ),
+      ...(await db.select({ id: datasets.id }).from(datasets).where(eq(datasets.jobId, jobId))).map(
+        (r) => ["dataset", r.id] as [string, string],
+      ),
+      ...(await db.select({ id: analyses.id }).from(analyses).where(eq(analyses.jobId, jobId))).map(
+        (r) => ["analysis", r.id] as [string, string],
+      ),
+      ...(
+        await db.select({ id: analysisViews.id }).from(analysisViews).where(eq(analysisViews.jobId, jobId))
+      ).map((r) => ["analysis_view", r.id] as [string, string]),
+      ...(await db.select({ id: reports.id }).from(reports).where(eq(reports.jobId, jobId))).map(
+        (r) => ["report", r.id] as [string, string],
+      ),
     ];
     // 3 readings, 2 datasets, 1 analysis, 1 view, 1 report: the scenario really wrote them.
     expect(rows.length).toBe(1 + 3 + 2 + 1 + 1 + 1);
@@ -86,13 +166,21 @@ describe("a whole job's changes are in the audit trail", () => {
     expect(sigs.map((s) => s.meaning).sort()).toEqual(["accepted", "approved", "inspected", "performed"]);
     for (const s of sigs) {
       const byId = events.some((e) => e.entityId === s.id);
-      const byReport = events.some((e) => e.entityId === s.reportId && (e.action === (s.meaning === "approved" ? "report.issued" : `report.${s.meaning}`)));
+      const byReport = events.some(
+        (e) =>
+          e.entityId === s.reportId &&
+          e.action === (s.meaning === "approved" ? "report.issued" : `report.${s.meaning}`),
+      );
       expect(byId || byReport, `signature ${s.meaning} is audited`).toBe(true);
     }
   });
 
   it("rebuilds the job's status history from the events alone, ending at its current status", async () => {
-    const events = await db.select().from(auditEvents).where(eq(auditEvents.jobId, jobId)).orderBy(asc(auditEvents.id));
+    const events = await db
+      .select()
+      .from(auditEvents)
+      .where(eq(auditEvents.jobId, jobId))
+      .orderBy(asc(auditEvents.id));
     const created = events.find((e) => e.action === "job.created")!;
     let status = (created.newValues as { status: string }).status;
     const seen = [status];
@@ -110,12 +198,25 @@ describe("a whole job's changes are in the audit trail", () => {
   });
 
   it("a correction names the value it replaced, and a deletion the state it ended", async () => {
-    const old = (await db.select().from(readings).where(eq(readings.jobId, jobId))).filter((r) => r.supersededById);
+    const old = (await db.select().from(readings).where(eq(readings.jobId, jobId))).filter(
+      (r) => r.supersededById,
+    );
     expect(old).toHaveLength(1);
-    const [fix] = await db.select().from(auditEvents).where(and(eq(auditEvents.entityId, old[0]!.supersededById!), eq(auditEvents.action, "reading.corrected")));
+    const [fix] = await db
+      .select()
+      .from(auditEvents)
+      .where(
+        and(eq(auditEvents.entityId, old[0]!.supersededById!), eq(auditEvents.action, "reading.corrected")),
+      );
     expect(fix!.oldValues).toMatchObject({ id: old[0]!.id, value: old[0]!.value });
-    const [gone] = await db.select().from(datasets).where(and(eq(datasets.jobId, jobId), eq(datasets.status, "deleted")));
-    const [del] = await db.select().from(auditEvents).where(and(eq(auditEvents.entityId, gone!.id), eq(auditEvents.action, "dataset.deleted")));
+    const [gone] = await db
+      .select()
+      .from(datasets)
+      .where(and(eq(datasets.jobId, jobId), eq(datasets.status, "deleted")));
+    const [del] = await db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.entityId, gone!.id), eq(auditEvents.action, "dataset.deleted")));
     expect(del).toMatchObject({ oldValues: { status: "stored" }, newValues: { status: "deleted" } });
   });
 });
@@ -135,15 +236,28 @@ function sourceFiles(dir: string): string[] {
 /** Top-level functions of a file with their bodies (from one `function`/`export const … =` to the next). */
 function functionsOf(src: string): Array<{ name: string; body: string }> {
   const starts = [...src.matchAll(/^(?:export )?(?:async )?function (\w+)|^export const (\w+) = /gm)];
-  return starts.map((m, i) => ({ name: m[1] ?? m[2]!, body: src.slice(m.index, starts[i + 1]?.index ?? src.length) }));
+  return starts.map((m, i) => ({
+    name: m[1] ?? m[2]!,
+    body: src.slice(m.index, starts[i + 1]?.index ?? src.length),
+  }));
 }
 
 describe("no write path skips the audit trail", () => {
   const files = [...sourceFiles("db/queries"), ...sourceFiles("app"), ...sourceFiles("lib")];
 
   it("finds the known write paths (the scan itself works)", () => {
-    const writers = files.flatMap((f) => functionsOf(readFileSync(f, "utf8")).filter((fn) => fn.body.match(WRITE)).map((fn) => `${f}:${fn.name}`));
-    for (const known of ["db/queries/readings.ts:recordReading", "db/queries/job-status.ts:changeJobStatus", "db/queries/reports.ts:issueReport", "db/queries/datasets.ts:deleteDataset"]) expect(writers).toContain(known);
+    const writers = files.flatMap((f) =>
+      functionsOf(readFileSync(f, "utf8"))
+        .filter((fn) => fn.body.match(WRITE))
+        .map((fn) => `${f}:${fn.name}`),
+    );
+    for (const known of [
+      "db/queries/readings.ts:recordReading",
+      "db/queries/job-status.ts:changeJobStatus",
+      "db/queries/reports.ts:issueReport",
+      "db/queries/datasets.ts:deleteDataset",
+    ])
+      expect(writers).toContain(known);
   });
 
   it("every function that writes an audited table calls appendAudit, and only db/queries writes them", () => {
@@ -152,8 +266,10 @@ describe("no write path skips the audit trail", () => {
       for (const fn of functionsOf(readFileSync(f, "utf8"))) {
         const writes = [...fn.body.matchAll(WRITE)].map((m) => m[0]);
         if (writes.length === 0) continue;
-        if (!f.startsWith(`db${path.sep}queries`)) missing.push(`${f}:${fn.name} writes ${writes.join(", ")} outside db/queries`);
-        else if (!fn.body.includes("appendAudit(")) missing.push(`${f}:${fn.name} writes ${writes.join(", ")} without appendAudit`);
+        if (!f.startsWith(`db${path.sep}queries`))
+          missing.push(`${f}:${fn.name} writes ${writes.join(", ")} outside db/queries`);
+        else if (!fn.body.includes("appendAudit("))
+          missing.push(`${f}:${fn.name} writes ${writes.join(", ")} without appendAudit`);
       }
     }
     expect(missing).toEqual([]);

@@ -13,16 +13,24 @@ import { request, signInAs } from "./helpers";
 
 type Authorize = (c: Record<string, string>, req: { headers: Record<string, string> }) => Promise<unknown>;
 const credentials = authOptions.providers[0] as unknown as { options: { authorize: Authorize } };
-const authorize = (email: string, password: string, address = "10.0.0.1") => credentials.options.authorize({ email, password }, { headers: { "x-forwarded-for": address } });
+const authorize = (email: string, password: string, address = "10.0.0.1") =>
+  credentials.options.authorize({ email, password }, { headers: { "x-forwarded-for": address } });
 
 afterEach(async () => {
   await db.delete(signInFailures);
-  await db.update(users).set({ disabled: false, role: "inspector", sessionsValidAfter: null }).where(eq(users.email, "inspector@halvard.example"));
+  await db
+    .update(users)
+    .set({ disabled: false, role: "inspector", sessionsValidAfter: null })
+    .where(eq(users.email, "inspector@halvard.example"));
 });
 
 describe("credentials sign-in", () => {
   it("accepts the right password and returns id, role and company", async () => {
-    const user = (await authorize("buyer@marlowcreek.example", "trammel-demo")) as { role: string; customerId: string | null; email: string };
+    const user = (await authorize("buyer@marlowcreek.example", "trammel-demo")) as {
+      role: string;
+      customerId: string | null;
+      email: string;
+    };
     expect(user.role).toBe("customer");
     expect(user.customerId).toMatch(/^[0-9a-f-]{36}$/);
     expect(user.email).toBe("buyer@marlowcreek.example");
@@ -38,14 +46,26 @@ describe("credentials sign-in", () => {
   });
 
   it("limits an account after 5 failures and answers 429 with a clear message", async () => {
-    for (let i = 0; i < 5; i++) expect(await authorize("engineer@halvard.example", "wrong", `10.0.1.${i}`)).toBeNull();
+    for (let i = 0; i < 5; i++)
+      expect(await authorize("engineer@halvard.example", "wrong", `10.0.1.${i}`)).toBeNull();
     expect(await isSignInLimited("engineer@halvard.example", "10.9.9.9")).toBe(true);
     // Even the right password is refused while limited.
     expect(await authorize("engineer@halvard.example", "trammel-demo")).toBeNull();
-    const body = new URLSearchParams({ email: "engineer@halvard.example", password: "trammel-demo", csrfToken: "x" });
-    const res = await authPost(request("/api/auth/callback/credentials", { method: "POST", body, headers: { "content-type": "application/x-www-form-urlencoded" } }), {
-      params: Promise.resolve({ nextauth: ["callback", "credentials"] }),
+    const body = new URLSearchParams({
+      email: "engineer@halvard.example",
+      password: "trammel-demo",
+      csrfToken: "x",
     });
+    const res = await authPost(
+      request("/api/auth/callback/credentials", {
+        method: "POST",
+        body,
+        headers: { "content-type": "application/x-www-form-urlencoded" },
+      }),
+      {
+        params: Promise.resolve({ nextauth: ["callback", "credentials"] }),
+      },
+    );
     expect(res.status).toBe(429);
     const json = await res.json();
     expect(json.error.code).toBe("rate_limited");
@@ -77,11 +97,15 @@ describe("sessions follow the database", () => {
 
   it("a role change takes effect on the next request", async () => {
     await signInAs("inspector@halvard.example");
-    const before = (await (await listJobsRoute(request("/api/jobs"), undefined)).json()) as { jobs: unknown[] };
+    const before = (await (await listJobsRoute(request("/api/jobs"), undefined)).json()) as {
+      jobs: unknown[];
+    };
     expect(before.jobs.length).toBeGreaterThanOrEqual(4);
     // Demoted to installer: now only the jobs assigned to them (none).
     await db.update(users).set({ role: "installer" }).where(eq(users.email, "inspector@halvard.example"));
-    const after = (await (await listJobsRoute(request("/api/jobs"), undefined)).json()) as { jobs: unknown[] };
+    const after = (await (await listJobsRoute(request("/api/jobs"), undefined)).json()) as {
+      jobs: unknown[];
+    };
     expect(after.jobs).toHaveLength(0);
   });
 

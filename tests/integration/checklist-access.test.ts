@@ -22,17 +22,73 @@ type Who = keyof typeof WHO;
 
 /** GET of readings, comparison and its CSV: who may read which job. */
 const READ: Record<string, Record<Who, number>> = {
-  "TR-2026-0041": { anonymous: 401, admin: 200, installer: 200, inspector: 200, engineer: 200, "customer (Marlow Creek)": 200, "customer (Tollan)": 404 },
-  "TR-2026-0048": { anonymous: 401, admin: 200, installer: 200, inspector: 200, engineer: 200, "customer (Marlow Creek)": 404, "customer (Tollan)": 200 },
-  "TR-2026-0052": { anonymous: 401, admin: 200, installer: 200, inspector: 200, engineer: 200, "customer (Marlow Creek)": 200, "customer (Tollan)": 404 },
-  "TR-2026-0057": { anonymous: 401, admin: 200, installer: 404, inspector: 200, engineer: 200, "customer (Marlow Creek)": 200, "customer (Tollan)": 404 },
+  "TR-2026-0041": {
+    anonymous: 401,
+    admin: 200,
+    installer: 200,
+    inspector: 200,
+    engineer: 200,
+    "customer (Marlow Creek)": 200,
+    "customer (Tollan)": 404,
+  },
+  "TR-2026-0048": {
+    anonymous: 401,
+    admin: 200,
+    installer: 200,
+    inspector: 200,
+    engineer: 200,
+    "customer (Marlow Creek)": 404,
+    "customer (Tollan)": 200,
+  },
+  "TR-2026-0052": {
+    anonymous: 401,
+    admin: 200,
+    installer: 200,
+    inspector: 200,
+    engineer: 200,
+    "customer (Marlow Creek)": 200,
+    "customer (Tollan)": 404,
+  },
+  "TR-2026-0057": {
+    anonymous: 401,
+    admin: 200,
+    installer: 404,
+    inspector: 200,
+    engineer: 200,
+    "customer (Marlow Creek)": 200,
+    "customer (Tollan)": 404,
+  },
 };
 
 /** POST of a reading: 0052 is measuring (installer assigned), 0048 in review, 0041 issued. */
 const WRITE: Record<string, Record<Who, number>> = {
-  "TR-2026-0052": { anonymous: 401, admin: 201, installer: 201, inspector: 403, engineer: 403, "customer (Marlow Creek)": 403, "customer (Tollan)": 404 },
-  "TR-2026-0048": { anonymous: 401, admin: 403, installer: 403, inspector: 403, engineer: 403, "customer (Marlow Creek)": 404, "customer (Tollan)": 403 },
-  "TR-2026-0041": { anonymous: 401, admin: 403, installer: 403, inspector: 403, engineer: 403, "customer (Marlow Creek)": 403, "customer (Tollan)": 404 },
+  "TR-2026-0052": {
+    anonymous: 401,
+    admin: 201,
+    installer: 201,
+    inspector: 403,
+    engineer: 403,
+    "customer (Marlow Creek)": 403,
+    "customer (Tollan)": 404,
+  },
+  "TR-2026-0048": {
+    anonymous: 401,
+    admin: 403,
+    installer: 403,
+    inspector: 403,
+    engineer: 403,
+    "customer (Marlow Creek)": 404,
+    "customer (Tollan)": 403,
+  },
+  "TR-2026-0041": {
+    anonymous: 401,
+    admin: 403,
+    installer: 403,
+    inspector: 403,
+    engineer: 403,
+    "customer (Marlow Creek)": 403,
+    "customer (Tollan)": 404,
+  },
 };
 
 const ids: Record<string, string> = {};
@@ -40,8 +96,18 @@ let validInstrument: string;
 
 async function bodyFor(ref: string) {
   const [job] = await db.select().from(jobs).where(eq(jobs.id, ids[ref]!));
-  const [step] = await db.select().from(templateSteps).where(and(eq(templateSteps.templateId, job!.templateId!), eq(templateSteps.position, 1)));
-  return { stepId: step!.id, phase: "post", value: 0.0004, unit: "in", instrumentId: validInstrument, note: "matrix cell" };
+  const [step] = await db
+    .select()
+    .from(templateSteps)
+    .where(and(eq(templateSteps.templateId, job!.templateId!), eq(templateSteps.position, 1)));
+  return {
+    stepId: step!.id,
+    phase: "post",
+    value: 0.0004,
+    unit: "in",
+    instrumentId: validInstrument,
+    note: "matrix cell",
+  };
 }
 
 beforeAll(async () => {
@@ -56,10 +122,15 @@ describe("checklist routes: access matrix", () => {
       it(`${who}: GET readings, comparison and CSV of ${ref} answer ${expected}`, async () => {
         await signInAs(WHO[who]);
         const ctx = { params: Promise.resolve({ id: ids[ref]! }) };
-        const responses = [await readingsGet(request(`/api/jobs/${ids[ref]}/readings`), ctx), await comparisonRoute(request(`/api/jobs/${ids[ref]}/comparison`), ctx), await comparisonCsvRoute(request(`/api/jobs/${ids[ref]}/comparison/csv`), ctx)];
+        const responses = [
+          await readingsGet(request(`/api/jobs/${ids[ref]}/readings`), ctx),
+          await comparisonRoute(request(`/api/jobs/${ids[ref]}/comparison`), ctx),
+          await comparisonCsvRoute(request(`/api/jobs/${ids[ref]}/comparison/csv`), ctx),
+        ];
         for (const res of responses) {
           expect(res.status).toBe(expected);
-          if (expected === 404) expect(await res.json()).toEqual({ error: { code: "not_found", message: "No such job." } });
+          if (expected === 404)
+            expect(await res.json()).toEqual({ error: { code: "not_found", message: "No such job." } });
         }
       });
     }
@@ -70,10 +141,18 @@ describe("checklist routes: access matrix", () => {
       it(`${who}: POST a reading to ${ref} answers ${expected}`, async () => {
         await signInAs(WHO[who]);
         const body = await bodyFor(ref);
-        const res = await readingsPost(request(`/api/jobs/${ids[ref]}/readings`, { method: "POST", body: JSON.stringify(body), headers: { "content-type": "application/json" } }), { params: Promise.resolve({ id: ids[ref]! }) });
+        const res = await readingsPost(
+          request(`/api/jobs/${ids[ref]}/readings`, {
+            method: "POST",
+            body: JSON.stringify(body),
+            headers: { "content-type": "application/json" },
+          }),
+          { params: Promise.resolve({ id: ids[ref]! }) },
+        );
         expect(res.status).toBe(expected);
         const json = await res.json();
-        if (expected === 201) expect(json.reading).toMatchObject({ unit: "mm", entered: { value: 0.0004, unit: "in" } });
+        if (expected === 201)
+          expect(json.reading).toMatchObject({ unit: "mm", entered: { value: 0.0004, unit: "in" } });
         if (expected === 404) expect(json).toEqual({ error: { code: "not_found", message: "No such job." } });
         if (expected === 403) expect(json.error.code).toBe("forbidden");
       });

@@ -14,7 +14,16 @@ import { db } from "@/db";
 import { changeJobStatus } from "@/db/queries/job-status";
 import { getActor } from "@/db/queries/users";
 import { inviteUser, setPasswordWithToken, tokenHash, updateUser } from "@/db/queries/users-admin";
-import { auditEvents, instruments, jobs, outbox, readings, templateSteps, userTokens, users } from "@/db/schema";
+import {
+  auditEvents,
+  instruments,
+  jobs,
+  outbox,
+  readings,
+  templateSteps,
+  userTokens,
+  users,
+} from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
 import type { Actor } from "@/lib/auth/roles";
 import { AppError } from "@/lib/errors";
@@ -32,7 +41,14 @@ async function actor(email: string): Promise<Actor> {
 }
 
 async function post(body: Record<string, unknown>, id = jobId) {
-  const res = await readingsPost(request(`/api/jobs/${id}/readings`, { method: "POST", body: JSON.stringify(body), headers: { "content-type": "application/json" } }), { params: Promise.resolve({ id }) });
+  const res = await readingsPost(
+    request(`/api/jobs/${id}/readings`, {
+      method: "POST",
+      body: JSON.stringify(body),
+      headers: { "content-type": "application/json" },
+    }),
+    { params: Promise.resolve({ id }) },
+  );
   return { status: res.status, json: await res.json() };
 }
 
@@ -47,34 +63,75 @@ async function failure(p: Promise<unknown>): Promise<AppError> {
 }
 
 beforeAll(async () => {
-  for (const e of ["admin@halvard.example", "installer@halvard.example", "engineer@halvard.example"]) as[e.split("@")[0]!] = await actor(e);
-  const [base] = await db.select().from(jobs).where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
+  for (const e of ["admin@halvard.example", "installer@halvard.example", "engineer@halvard.example"])
+    as[e.split("@")[0]!] = await actor(e);
+  const [base] = await db
+    .select()
+    .from(jobs)
+    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
   const [row] = await db
     .insert(jobs)
-    .values({ reference: `TR-CHK-${Date.now().toString(36)}`, title: "Checklist test job", kind: "reverification", status: "draft", customerId: base!.customerId, machineId: base!.machineId, headId: base!.headId, assignedInstallerId: as.installer!.id, templateId: base!.templateId })
+    .values({
+      reference: `TR-CHK-${Date.now().toString(36)}`,
+      title: "Checklist test job",
+      kind: "reverification",
+      status: "draft",
+      customerId: base!.customerId,
+      machineId: base!.machineId,
+      headId: base!.headId,
+      assignedInstallerId: as.installer!.id,
+      templateId: base!.templateId,
+    })
     .returning();
   jobId = row!.id;
-  for (const s of await db.select().from(templateSteps).where(eq(templateSteps.templateId, base!.templateId!))) step[s.position] = s.id;
+  for (const s of await db
+    .select()
+    .from(templateSteps)
+    .where(eq(templateSteps.templateId, base!.templateId!)))
+    step[s.position] = s.id;
   for (const i of await db.select().from(instruments)) inst[i.serial] = i.id;
 });
 
 describe("recording readings", () => {
   it("stores the canonical value (mm) with what was entered (in), and the first reading starts measuring", async () => {
     await signInAs("installer@halvard.example");
-    const { status, json } = await post({ stepId: step[1], phase: "pre", value: "0.0009", unit: "in", instrumentId: inst["DTI-0112"], note: "before shimming" });
+    const { status, json } = await post({
+      stepId: step[1],
+      phase: "pre",
+      value: "0.0009",
+      unit: "in",
+      instrumentId: inst["DTI-0112"],
+      note: "before shimming",
+    });
     expect(status).toBe(201);
     // 0.0009 in × 25.4 mm/in = 0.02286 mm (NIST SP 811: 1 in = 25.4 mm exactly)
     expect(json.reading.value).toBeCloseTo(0.02286, 12);
-    expect(json.reading).toMatchObject({ unit: "mm", entered: { value: 0.0009, unit: "in" }, decision: "fail", phase: "pre" });
+    expect(json.reading).toMatchObject({
+      unit: "mm",
+      entered: { value: 0.0009, unit: "in" },
+      decision: "fail",
+      phase: "pre",
+    });
     const [j] = await db.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, jobId));
     expect(j!.status).toBe("measuring");
-    const audit = await db.select().from(auditEvents).where(and(eq(auditEvents.jobId, jobId), eq(auditEvents.action, "reading.recorded")));
+    const audit = await db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.jobId, jobId), eq(auditEvents.action, "reading.recorded")));
     expect(audit).toHaveLength(1);
   });
 
   it("the tilt step turns reading over travel into arc seconds with geometry/ (0.0005 in over 10 in = 10.31″)", async () => {
     await signInAs("installer@halvard.example");
-    const { status, json } = await post({ stepId: step[5], phase: "pre", value: 0.0005, unit: "in", travel: 10, travelUnit: "in", instrumentId: inst["DTI-0112"] });
+    const { status, json } = await post({
+      stepId: step[5],
+      phase: "pre",
+      value: 0.0005,
+      unit: "in",
+      travel: 10,
+      travelUnit: "in",
+      instrumentId: inst["DTI-0112"],
+    });
     expect(status).toBe(201);
     expect(json.reading.unit).toBe("arcsec");
     expect(json.reading.value).toBeCloseTo(10.31, 2);
@@ -84,7 +141,13 @@ describe("recording readings", () => {
   it("refuses an instrument past its calibration due date, with the reason, and stores nothing", async () => {
     await signInAs("installer@halvard.example");
     const before = await db.select().from(readings).where(eq(readings.jobId, jobId));
-    const { status, json } = await post({ stepId: step[1], phase: "post", value: 0.0003, unit: "in", instrumentId: inst["DTI-0417"] });
+    const { status, json } = await post({
+      stepId: step[1],
+      phase: "post",
+      value: 0.0003,
+      unit: "in",
+      instrumentId: inst["DTI-0417"],
+    });
     expect(status).toBe(422);
     expect(json.error.message).toMatch(/DTI-0417 was due for calibration on 2026-09-30/);
     expect(json.error.issues[0].field).toBe("instrumentId");
@@ -93,31 +156,75 @@ describe("recording readings", () => {
 
   it("refuses an instrument of the wrong kind and bad input, naming the field", async () => {
     await signInAs("installer@halvard.example");
-    const wrong = await post({ stepId: step[1], phase: "post", value: 0.0003, unit: "in", instrumentId: inst["EL-0007"] });
+    const wrong = await post({
+      stepId: step[1],
+      phase: "post",
+      value: 0.0003,
+      unit: "in",
+      instrumentId: inst["EL-0007"],
+    });
     expect(wrong.status).toBe(422);
     expect(wrong.json.error.message).toMatch(/EL-0007 measures angles/);
-    const bad = await post({ stepId: step[1], phase: "later", value: "abc", unit: "in", instrumentId: inst["DTI-0112"] });
+    const bad = await post({
+      stepId: step[1],
+      phase: "later",
+      value: "abc",
+      unit: "in",
+      instrumentId: inst["DTI-0112"],
+    });
     expect(bad.status).toBe(422);
     expect(bad.json.error.issues.map((i: { field: string }) => i.field).sort()).toEqual(["phase", "value"]);
-    const notOurs = await post({ stepId: "00000000-0000-4000-8000-000000000000", phase: "pre", value: 1, unit: "in", instrumentId: inst["DTI-0112"] });
+    const notOurs = await post({
+      stepId: "00000000-0000-4000-8000-000000000000",
+      phase: "pre",
+      value: 1,
+      unit: "in",
+      instrumentId: inst["DTI-0112"],
+    });
     expect(notOurs.status).toBe(422);
     expect(notOurs.json.error.issues[0].field).toBe("stepId");
   });
 
   it("a correction supersedes the old reading and keeps it; the old one cannot be corrected twice", async () => {
     await signInAs("installer@halvard.example");
-    const first = await post({ stepId: step[1], phase: "post", value: 0.0006, unit: "in", instrumentId: inst["DTI-0112"] });
-    const fix = await post({ stepId: step[1], phase: "post", value: 0.0003, unit: "in", instrumentId: inst["DTI-0112"], note: "misread the dial", supersedesId: first.json.reading.id });
+    const first = await post({
+      stepId: step[1],
+      phase: "post",
+      value: 0.0006,
+      unit: "in",
+      instrumentId: inst["DTI-0112"],
+    });
+    const fix = await post({
+      stepId: step[1],
+      phase: "post",
+      value: 0.0003,
+      unit: "in",
+      instrumentId: inst["DTI-0112"],
+      note: "misread the dial",
+      supersedesId: first.json.reading.id,
+    });
     expect(fix.status).toBe(201);
     const [old] = await db.select().from(readings).where(eq(readings.id, first.json.reading.id));
     expect(old!.value).toBeCloseTo(0.01524, 12);
     expect(old!.supersededById).toBe(fix.json.reading.id);
-    const again = await post({ stepId: step[1], phase: "post", value: 0.0002, unit: "in", instrumentId: inst["DTI-0112"], supersedesId: first.json.reading.id });
+    const again = await post({
+      stepId: step[1],
+      phase: "post",
+      value: 0.0002,
+      unit: "in",
+      instrumentId: inst["DTI-0112"],
+      supersedesId: first.json.reading.id,
+    });
     expect(again.status).toBe(409);
     const list = await readingsGet(request("/x"), { params: Promise.resolve({ id: jobId }) });
     const body = await list.json();
-    expect(body.readings.find((r: { id: string }) => r.id === first.json.reading.id).supersededById).toBe(fix.json.reading.id);
-    const audit = await db.select().from(auditEvents).where(and(eq(auditEvents.entityId, fix.json.reading.id), eq(auditEvents.action, "reading.corrected")));
+    expect(body.readings.find((r: { id: string }) => r.id === first.json.reading.id).supersededById).toBe(
+      fix.json.reading.id,
+    );
+    const audit = await db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.entityId, fix.json.reading.id), eq(auditEvents.action, "reading.corrected")));
     expect(audit).toHaveLength(1);
   });
 
@@ -130,9 +237,17 @@ describe("recording readings", () => {
     expect(s1.pre.value).toBeCloseTo(0.02286, 12);
     expect(s1.post.value).toBeCloseTo(0.00762, 12);
     expect(s1.change).toBeCloseTo(-0.01524, 12);
-    expect(s1).toMatchObject({ unit: "mm", status: "pass", limitSource: "common_practice", pre: { decision: "fail" }, post: { decision: "pass" } });
+    expect(s1).toMatchObject({
+      unit: "mm",
+      status: "pass",
+      limitSource: "common_practice",
+      pre: { decision: "fail" },
+      post: { decision: "pass" },
+    });
     expect(c.steps.find((s: { position: number }) => s.position === 3).status).toBe("not_measured");
-    const csv = await (await comparisonCsvRoute(request("/x"), { params: Promise.resolve({ id: jobId }) })).text();
+    const csv = await (
+      await comparisonCsvRoute(request("/x"), { params: Promise.resolve({ id: jobId }) })
+    ).text();
     expect(csv.split("\r\n")[0]).toMatch(/^step,title,quantity,unit,lower_limit,upper_limit/);
     expect(csv).toContain("Mount the adapter collar and prove its face");
   });
@@ -144,10 +259,19 @@ describe("status moves", () => {
     expect(e.status).toBe(403);
     await changeJobStatus(as.installer!, jobId, "in_review");
     const mails = await db.select().from(outbox).where(eq(outbox.jobId, jobId));
-    expect(mails.map((m) => m.toAddress).sort()).toEqual(["engineer@halvard.example", "inspector@halvard.example"]);
+    expect(mails.map((m) => m.toAddress).sort()).toEqual([
+      "engineer@halvard.example",
+      "inspector@halvard.example",
+    ]);
     expect(mails[0]!.textBody).toContain(`/jobs/${jobId}/compare`);
     await signInAs("installer@halvard.example");
-    const locked = await post({ stepId: step[2], phase: "pre", value: 0.09, unit: "in", instrumentId: inst["FG-0031"] });
+    const locked = await post({
+      stepId: step[2],
+      phase: "pre",
+      value: 0.09,
+      unit: "in",
+      instrumentId: inst["FG-0031"],
+    });
     expect(locked.status).toBe(403);
     expect(locked.json.error.message).toMatch(/in review; its readings are locked/);
     // Issue goes through the signed report, not a bare status change.
@@ -162,7 +286,17 @@ describe("outbox worker", () => {
   const inbox: ParsedMail[] = [];
 
   beforeAll(async () => {
-    server = new SMTPServer({ authOptional: true, disabledCommands: ["STARTTLS"], logger: false, onData(s, _x, cb) { simpleParser(s).then((m) => { inbox.push(m); cb(); }, cb); } });
+    server = new SMTPServer({
+      authOptional: true,
+      disabledCommands: ["STARTTLS"],
+      logger: false,
+      onData(s, _x, cb) {
+        simpleParser(s).then((m) => {
+          inbox.push(m);
+          cb();
+        }, cb);
+      },
+    });
     server.listen(0, "127.0.0.1");
     await once(server.server, "listening");
     port = (server.server.address() as AddressInfo).port;
@@ -173,17 +307,41 @@ describe("outbox worker", () => {
 
   it("two concurrent workers claim disjoint rows: every due message is delivered exactly once", async () => {
     const tag = Date.now().toString(36);
-    await db.insert(outbox).values(Array.from({ length: 12 }, (_, i) => ({ dedupeKey: `test:${tag}:${i}`, toAddress: `person${i}@halvard.example`, subject: `Test ${tag} ${i}`, textBody: `Message ${i}` })));
-    const due = await db.select({ id: outbox.id }).from(outbox).where(and(eq(outbox.status, "pending"), sql`${outbox.nextAttemptAt} <= now()`));
-    const transport = () => nodemailer.createTransport({ host: "127.0.0.1", port, secure: false, ignoreTLS: true });
-    const [a, b] = await Promise.all([processOutbox({ transport: transport(), limit: 50 }), processOutbox({ transport: transport(), limit: 50 })]);
+    await db
+      .insert(outbox)
+      .values(
+        Array.from({ length: 12 }, (_, i) => ({
+          dedupeKey: `test:${tag}:${i}`,
+          toAddress: `person${i}@halvard.example`,
+          subject: `Test ${tag} ${i}`,
+          textBody: `Message ${i}`,
+        })),
+      );
+    const due = await db
+      .select({ id: outbox.id })
+      .from(outbox)
+      .where(and(eq(outbox.status, "pending"), sql`${outbox.nextAttemptAt} <= now()`));
+    const transport = () =>
+      nodemailer.createTransport({ host: "127.0.0.1", port, secure: false, ignoreTLS: true });
+    const [a, b] = await Promise.all([
+      processOutbox({ transport: transport(), limit: 50 }),
+      processOutbox({ transport: transport(), limit: 50 }),
+    ]);
     expect(a.claimed + b.claimed).toBe(due.length);
     expect(a.failed + b.failed).toBe(0);
     const ids = inbox.map((m) => m.headers.get("x-trammel-outbox-id"));
     expect(new Set(ids).size).toBe(ids.length);
     expect(ids.length).toBe(due.length);
     expect(inbox.filter((m) => m.subject?.startsWith(`Test ${tag}`))).toHaveLength(12);
-    const rows = await db.select().from(outbox).where(inArray(outbox.id, due.map((d) => d.id)));
+    const rows = await db
+      .select()
+      .from(outbox)
+      .where(
+        inArray(
+          outbox.id,
+          due.map((d) => d.id),
+        ),
+      );
     expect(rows.every((r) => r.status === "sent" && r.attempts === 1 && r.sentAt)).toBe(true);
     // A second run finds nothing left to send.
     expect((await processOutbox({ transport: transport() })).claimed).toBe(0);
@@ -191,8 +349,15 @@ describe("outbox worker", () => {
 
   it("a failed send is kept pending with the error and retried later (exponential backoff)", async () => {
     const key = `test-fail:${Date.now().toString(36)}`;
-    await db.insert(outbox).values({ dedupeKey: key, toAddress: "nobody@halvard.example", subject: "Will fail", textBody: "x" });
-    const broken = nodemailer.createTransport({ host: "127.0.0.1", port: 1, secure: false, connectionTimeout: 2000 });
+    await db
+      .insert(outbox)
+      .values({ dedupeKey: key, toAddress: "nobody@halvard.example", subject: "Will fail", textBody: "x" });
+    const broken = nodemailer.createTransport({
+      host: "127.0.0.1",
+      port: 1,
+      secure: false,
+      connectionTimeout: 2000,
+    });
     const r = await processOutbox({ transport: broken });
     expect(r.failed).toBeGreaterThanOrEqual(1);
     const [row] = await db.select().from(outbox).where(eq(outbox.dedupeKey, key));
@@ -205,11 +370,18 @@ describe("outbox worker", () => {
 describe("invitation and set-password", () => {
   it("invites by e-mail with a one-time link; only the token's SHA-256 is stored; the link sets the password once", async () => {
     const email = `new.${Date.now().toString(36)}@halvard.example`;
-    const { userId, token } = await inviteUser(as.admin!, { email, name: "New Installer", role: "installer" });
+    const { userId, token } = await inviteUser(as.admin!, {
+      email,
+      name: "New Installer",
+      role: "installer",
+    });
     const [t] = await db.select().from(userTokens).where(eq(userTokens.userId, userId));
     expect(t!.tokenHash).toBe(tokenHash(token));
     expect(t!.tokenHash).not.toContain(token);
-    const [mail] = await db.select().from(outbox).where(eq(outbox.dedupeKey, `invite:${userId}`));
+    const [mail] = await db
+      .select()
+      .from(outbox)
+      .where(eq(outbox.dedupeKey, `invite:${userId}`));
     expect(mail!.textBody).toContain(`/set-password?token=${token}`);
     await setPasswordWithToken(token, "a-long-new-password");
     const [u] = await db.select().from(users).where(eq(users.id, userId));
@@ -219,8 +391,15 @@ describe("invitation and set-password", () => {
   });
 
   it("only an administrator invites; disabling and a role change end open sessions", async () => {
-    expect((await failure(inviteUser(as.engineer!, { email: "x@halvard.example", name: "X", role: "installer" }))).status).toBe(403);
-    const { userId } = await inviteUser(as.admin!, { email: `role.${Date.now().toString(36)}@halvard.example`, name: "Role Change", role: "installer" });
+    expect(
+      (await failure(inviteUser(as.engineer!, { email: "x@halvard.example", name: "X", role: "installer" })))
+        .status,
+    ).toBe(403);
+    const { userId } = await inviteUser(as.admin!, {
+      email: `role.${Date.now().toString(36)}@halvard.example`,
+      name: "Role Change",
+      role: "installer",
+    });
     const signedIn = Date.now() - 1000;
     expect(await getActor(userId, signedIn)).not.toBeNull();
     await updateUser(as.admin!, { userId, role: "inspector" });
@@ -235,7 +414,15 @@ describe("invitation and set-password", () => {
 describe("registers and jobs from a procedure", () => {
   it("only an administrator registers an instrument; values are stored in mm", async () => {
     const { createInstrument } = await import("@/db/queries/instruments");
-    const input = { kind: "Dial test indicator", serial: `T-${Date.now().toString(36)}`, quantityKind: "length" as const, resolution: 0.0001, standardUncertainty: 0.00005, unit: "in" as const, calibrationDueOn: "2027-12-31" };
+    const input = {
+      kind: "Dial test indicator",
+      serial: `T-${Date.now().toString(36)}`,
+      quantityKind: "length" as const,
+      resolution: 0.0001,
+      standardUncertainty: 0.00005,
+      unit: "in" as const,
+      calibrationDueOn: "2027-12-31",
+    };
     expect((await failure(createInstrument(as.engineer!, input))).status).toBe(403);
     const row = await createInstrument(as.admin!, input);
     expect(row.resolution).toBeCloseTo(0.00254, 12);
@@ -245,31 +432,79 @@ describe("registers and jobs from a procedure", () => {
   it("editing a procedure makes a new version; a job keeps the version it started with", async () => {
     const { createTemplateVersion } = await import("@/db/queries/templates");
     const [job] = await db.select().from(jobs).where(eq(jobs.id, jobId));
-    const before = await db.select().from(templateSteps).where(eq(templateSteps.templateId, job!.templateId!));
+    const before = await db
+      .select()
+      .from(templateSteps)
+      .where(eq(templateSteps.templateId, job!.templateId!));
     expect((await failure(createTemplateVersion(as.engineer!, job!.templateId!, []))).status).toBe(403);
-    const bad = await failure(createTemplateVersion(as.admin!, job!.templateId!, [{ position: 1, lowerLimit: 1, upperLimit: 0.5, decisionRule: "simple", limitSource: "common_practice", limitSourceNote: null }]));
+    const bad = await failure(
+      createTemplateVersion(as.admin!, job!.templateId!, [
+        {
+          position: 1,
+          lowerLimit: 1,
+          upperLimit: 0.5,
+          decisionRule: "simple",
+          limitSource: "common_practice",
+          limitSourceNote: null,
+        },
+      ]),
+    );
     expect(bad.issues?.[0]?.field).toBe("steps.1.lowerLimit");
-    const v2 = await createTemplateVersion(as.admin!, job!.templateId!, [{ position: 1, lowerLimit: null, upperLimit: 0.01, decisionRule: "guarded", limitSource: "customer_spec", limitSourceNote: "tighter, per the customer" }]);
+    const v2 = await createTemplateVersion(as.admin!, job!.templateId!, [
+      {
+        position: 1,
+        lowerLimit: null,
+        upperLimit: 0.01,
+        decisionRule: "guarded",
+        limitSource: "customer_spec",
+        limitSourceNote: "tighter, per the customer",
+      },
+    ]);
     expect(v2.version).toBeGreaterThan(1);
     const steps2 = await db.select().from(templateSteps).where(eq(templateSteps.templateId, v2.id));
     expect(steps2).toHaveLength(before.length);
-    expect(steps2.find((s) => s.position === 1)).toMatchObject({ upperLimit: 0.01, decisionRule: "guarded", limitSource: "customer_spec" });
+    expect(steps2.find((s) => s.position === 1)).toMatchObject({
+      upperLimit: 0.01,
+      decisionRule: "guarded",
+      limitSource: "customer_spec",
+    });
     const [after] = await db.select().from(jobs).where(eq(jobs.id, jobId));
     expect(after!.templateId).toBe(job!.templateId);
-    const unchanged = await db.select().from(templateSteps).where(eq(templateSteps.id, before.find((s) => s.position === 1)!.id));
+    const unchanged = await db
+      .select()
+      .from(templateSteps)
+      .where(eq(templateSteps.id, before.find((s) => s.position === 1)!.id));
     expect(unchanged[0]!.upperLimit).toBeCloseTo(0.0127, 12);
   });
 
   it("a job opened from a procedure gets the next reference, the version and a draft status; an installer cannot open one", async () => {
     const { createJobFromTemplate } = await import("@/db/queries/job-status");
     const [base] = await db.select().from(jobs).where(eq(jobs.id, jobId));
-    const input = { templateId: base!.templateId!, machineId: base!.machineId, headId: base!.headId, kind: "after_crash" as const, title: "Check after a tool crash", assignedInstallerId: as.installer!.id, decisionRule: "simple" as const };
+    const input = {
+      templateId: base!.templateId!,
+      machineId: base!.machineId,
+      headId: base!.headId,
+      kind: "after_crash" as const,
+      title: "Check after a tool crash",
+      assignedInstallerId: as.installer!.id,
+      decisionRule: "simple" as const,
+    };
     expect((await failure(createJobFromTemplate(as.installer!, input))).status).toBe(403);
-    expect((await failure(createJobFromTemplate(as.admin!, { ...input, assignedInstallerId: as.engineer!.id }))).issues?.[0]?.field).toBe("assignedInstallerId");
+    expect(
+      (await failure(createJobFromTemplate(as.admin!, { ...input, assignedInstallerId: as.engineer!.id })))
+        .issues?.[0]?.field,
+    ).toBe("assignedInstallerId");
     const job = await createJobFromTemplate(as.admin!, input);
     expect(job.reference).toMatch(/^TR-\d{4}-\d{4}$/);
-    expect(job).toMatchObject({ status: "draft", templateId: base!.templateId, customerId: base!.customerId });
-    const audit = await db.select().from(auditEvents).where(and(eq(auditEvents.entityId, job.id), eq(auditEvents.action, "job.created")));
+    expect(job).toMatchObject({
+      status: "draft",
+      templateId: base!.templateId,
+      customerId: base!.customerId,
+    });
+    const audit = await db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.entityId, job.id), eq(auditEvents.action, "job.created")));
     expect(audit).toHaveLength(1);
     const next = await createJobFromTemplate(as.admin!, input);
     expect(Number(next.reference.slice(-4))).toBe(Number(job.reference.slice(-4)) + 1);
@@ -296,13 +531,41 @@ describe("customers, sites, machines and heads", () => {
     const tag = Date.now().toString(36);
     expect((await failure(r.createCustomer(as.engineer!, { name: `Cust ${tag}` }))).status).toBe(403);
     const c = await r.createCustomer(as.admin!, { name: `Cust ${tag}`, contactEmail: "" });
-    expect((await failure(r.createCustomer(as.admin!, { name: `cust ${tag}` }))).issues?.[0]?.field).toBe("name");
+    expect((await failure(r.createCustomer(as.admin!, { name: `cust ${tag}` }))).issues?.[0]?.field).toBe(
+      "name",
+    );
     const s = await r.createSite(as.admin!, { customerId: c.id, name: "Plant 9" });
     const m = await r.createMachine(as.admin!, { siteId: s.id, name: "Mill M-1", kind: "bridge mill" });
-    const h = await r.createHead(as.admin!, { serial: `TH-${tag}`, primaryAxis: "C", secondaryAxis: "B", nominalPivotLengthMm: 127, toolAxisOffsetMm: 0 });
-    expect((await failure(r.createHead(as.admin!, { serial: `TH-${tag}`, primaryAxis: "C", secondaryAxis: "B", nominalPivotLengthMm: 127, toolAxisOffsetMm: 0 }))).issues?.[0]?.field).toBe("serial");
-    for (const [type, id] of [["customer", c.id], ["site", s.id], ["machine", m.id], ["head", h.id]] as const) {
-      const ev = await db.select().from(auditEvents).where(and(eq(auditEvents.entityType, type), eq(auditEvents.entityId, id)));
+    const h = await r.createHead(as.admin!, {
+      serial: `TH-${tag}`,
+      primaryAxis: "C",
+      secondaryAxis: "B",
+      nominalPivotLengthMm: 127,
+      toolAxisOffsetMm: 0,
+    });
+    expect(
+      (
+        await failure(
+          r.createHead(as.admin!, {
+            serial: `TH-${tag}`,
+            primaryAxis: "C",
+            secondaryAxis: "B",
+            nominalPivotLengthMm: 127,
+            toolAxisOffsetMm: 0,
+          }),
+        )
+      ).issues?.[0]?.field,
+    ).toBe("serial");
+    for (const [type, id] of [
+      ["customer", c.id],
+      ["site", s.id],
+      ["machine", m.id],
+      ["head", h.id],
+    ] as const) {
+      const ev = await db
+        .select()
+        .from(auditEvents)
+        .where(and(eq(auditEvents.entityType, type), eq(auditEvents.entityId, id)));
       expect(ev.map((e) => e.action)).toEqual([`${type}.created`]);
     }
   });

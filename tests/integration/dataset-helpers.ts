@@ -11,29 +11,47 @@ import { request } from "./helpers";
 
 export const fixture = (name: string): Buffer => readFileSync(`tests/fixtures/uploads/${name}`);
 
-export function uploadRequest(jobId: string, file: Uint8Array | null, fields: Record<string, string>, filename = "data.csv"): Request {
+export function uploadRequest(
+  jobId: string,
+  file: Uint8Array | null,
+  fields: Record<string, string>,
+  filename = "data.csv",
+): Request {
   const form = new FormData();
   for (const [k, v] of Object.entries(fields)) form.set(k, v);
   if (file) form.set("file", new Blob([new Uint8Array(file)], { type: "text/csv" }), filename);
   return request(`/api/jobs/${jobId}/datasets`, { method: "POST", body: form });
 }
 
-export async function upload(jobId: string, file: Uint8Array | null, fields: Record<string, string>, filename?: string): Promise<Response> {
-  return uploadRoute(uploadRequest(jobId, file, fields, filename), { params: Promise.resolve({ id: jobId }) });
+export async function upload(
+  jobId: string,
+  file: Uint8Array | null,
+  fields: Record<string, string>,
+  filename?: string,
+): Promise<Response> {
+  return uploadRoute(uploadRequest(jobId, file, fields, filename), {
+    params: Promise.resolve({ id: jobId }),
+  });
 }
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
 export const listDatasetsApi = (jobId: string) => listRoute(request(`/api/jobs/${jobId}/datasets`), p(jobId));
 export const summaryApi = (id: string) => summaryRoute(request(`/api/datasets/${id}`), p(id));
 export const fileApi = (id: string) => fileRoute(request(`/api/datasets/${id}/file`), p(id));
-export const deleteApi = (id: string) => deleteRoute(request(`/api/datasets/${id}`, { method: "DELETE" }), p(id));
-export const evaluationApi = (id: string, query = "") => evaluationRoute(request(`/api/datasets/${id}/evaluation${query}`), p(id));
+export const deleteApi = (id: string) =>
+  deleteRoute(request(`/api/datasets/${id}`, { method: "DELETE" }), p(id));
+export const evaluationApi = (id: string, query = "") =>
+  evaluationRoute(request(`/api/datasets/${id}/evaluation${query}`), p(id));
 export { uploadRoute };
 
 /** What is stored: dataset rows, their columns and the stored objects (counts and keys). */
 export async function storedState() {
-  const ds = await db.execute<{ id: string; status: string; sha256: string }>(sql`select id, status, sha256 from datasets order by id`);
+  const ds = await db.execute<{ id: string; status: string; sha256: string }>(
+    sql`select id, status, sha256 from datasets order by id`,
+  );
   const cols = await db.execute<{ n: string }>(sql`select count(*)::text as n from dataset_columns`);
-  const objs = await db.execute<{ key: string; sha256: string }>(sql`select key, sha256 from storage_objects order by key`);
+  const objs = await db.execute<{ key: string; sha256: string }>(
+    sql`select key, sha256 from storage_objects order by key`,
+  );
   return { datasets: ds.rows, columns: Number(cols.rows[0]!.n), objects: objs.rows };
 }

@@ -3,7 +3,15 @@
 // job, the installer their assigned ones, a customer only their own company's; another tenant's
 // record is 404, exactly like a missing one.
 import { beforeAll, describe, expect, it } from "vitest";
-import { deleteApi, evaluationApi, fileApi, fixture, listDatasetsApi, summaryApi, upload } from "./dataset-helpers";
+import {
+  deleteApi,
+  evaluationApi,
+  fileApi,
+  fixture,
+  listDatasetsApi,
+  summaryApi,
+  upload,
+} from "./dataset-helpers";
 import { jobIdByReference, signInAs } from "./helpers";
 
 const TEST_PART = { kind: "test_part", phase: "post", uncertainty_mm: "0.002" };
@@ -43,7 +51,10 @@ beforeAll(async () => {
   ids.tollanJob = await jobIdByReference("TR-2026-0048");
   ids.measuring = await jobIdByReference("TR-2026-0052");
   await signInAs("admin@halvard.example");
-  const seeded = (await (await listDatasetsApi(ids.marlowJob)).json()).datasets as { id: string; kind: string }[];
+  const seeded = (await (await listDatasetsApi(ids.marlowJob)).json()).datasets as {
+    id: string;
+    kind: string;
+  }[];
   ids.marlow = seeded.find((d) => d.kind === "test_part")!.id;
   const res = await upload(ids.tollanJob, fixture("test-part-good.csv"), TEST_PART);
   expect(res.status).toBe(201);
@@ -53,7 +64,11 @@ beforeAll(async () => {
 describe("demo seed", () => {
   it("TR-2026-0041 carries a synthesised sphere-probe dataset (120 poses, two tool lengths) and the test-part data", async () => {
     await signInAs("engineer@halvard.example");
-    const list = (await (await listDatasetsApi(ids.marlowJob)).json()).datasets as { id: string; kind: string; rows: number }[];
+    const list = (await (await listDatasetsApi(ids.marlowJob)).json()).datasets as {
+      id: string;
+      kind: string;
+      rows: number;
+    }[];
     expect(list.map((d) => [d.kind, d.rows]).sort()).toEqual([
       ["sphere_probe", 120],
       ["test_part", 8],
@@ -72,11 +87,18 @@ describe("dataset reads by role and tenant", () => {
         await signInAs(cell.email);
         const job = tenant === "marlow" ? ids.marlowJob : ids.tollanJob;
         const id = ids[tenant];
-        const answers = [await listDatasetsApi(job), await summaryApi(id), await fileApi(id), await evaluationApi(id)];
+        const answers = [
+          await listDatasetsApi(job),
+          await summaryApi(id),
+          await fileApi(id),
+          await evaluationApi(id),
+        ];
         expect(answers.map((r) => r.status)).toEqual([expected, expected, expected, expected]);
         if (expected === 404) {
           expect(await answers[0]!.json()).toEqual({ error: { code: "not_found", message: "No such job." } });
-          expect(await answers[1]!.json()).toEqual({ error: { code: "not_found", message: "No such dataset." } });
+          expect(await answers[1]!.json()).toEqual({
+            error: { code: "not_found", message: "No such dataset." },
+          });
         }
         if (expected === 200) {
           const list = (await answers[0]!.json()).datasets as { id: string }[];
@@ -98,9 +120,23 @@ describe("dataset writes by role and tenant", () => {
   for (const [who, cell] of Object.entries(WRITE)) {
     it(`${who}: upload → ${cell.upload}, delete → ${cell.del}`, async () => {
       await signInAs(cell.email);
-      expect((await upload(ids.measuring, fixture("sweep-good.csv"), { kind: "sweep", phase: "pre", reading_units: "um", radius_mm: "40" })).status).toBe(cell.upload);
+      expect(
+        (
+          await upload(ids.measuring, fixture("sweep-good.csv"), {
+            kind: "sweep",
+            phase: "pre",
+            reading_units: "um",
+            radius_mm: "40",
+          })
+        ).status,
+      ).toBe(cell.upload);
       await signInAs("admin@halvard.example");
-      const made = await upload(ids.measuring, fixture("tram-good.csv"), { kind: "tram", phase: "pre", travel_units: "mm", reading_units: "um" });
+      const made = await upload(ids.measuring, fixture("tram-good.csv"), {
+        kind: "tram",
+        phase: "pre",
+        travel_units: "mm",
+        reading_units: "um",
+      });
       const { id } = await made.json();
       await signInAs(cell.email);
       expect((await deleteApi(id)).status).toBe(cell.del);

@@ -24,7 +24,27 @@ const HEADERS: Record<string, string[]> = {
 const token = fc.oneof(
   fc.double({ noNaN: false }).map(String),
   fc.integer().map(String),
-  fc.constantFrom("", " ", "NaN", "Infinity", "-0", "1e309", "1,5", '"', '""', "mm", "um", "µm", "in", "deg", "x", "\t3", "1e-400", "0x10", "=1+1"),
+  fc.constantFrom(
+    "",
+    " ",
+    "NaN",
+    "Infinity",
+    "-0",
+    "1e309",
+    "1,5",
+    '"',
+    '""',
+    "mm",
+    "um",
+    "µm",
+    "in",
+    "deg",
+    "x",
+    "\t3",
+    "1e-400",
+    "0x10",
+    "=1+1",
+  ),
   fc.string({ maxLength: 6 }),
 );
 
@@ -38,30 +58,49 @@ const csvLike = (kind: string) =>
       eol: fc.constantFrom("\n", "\r\n", "\r"),
       bom: fc.boolean(),
     })
-    .map(({ header, rows, sep, eol, bom }) => Buffer.from(`${bom ? "\uFEFF" : ""}${[header.join(sep), ...rows.map((r) => r.join(sep))].join(eol)}`, "utf8"));
+    .map(({ header, rows, sep, eol, bom }) =>
+      Buffer.from(
+        `${bom ? "\uFEFF" : ""}${[header.join(sep), ...rows.map((r) => r.join(sep))].join(eol)}`,
+        "utf8",
+      ),
+    );
 
 const TEXT_COLUMNS = new Set(["feature", "characteristic", "note", "unit"]);
 /** Nearly valid files: every column of the kind, numbers mostly finite, now and then a bad token. */
 const nearlyValid = (kind: string) =>
-  fc.shuffledSubarray(HEADERS[kind]!, { minLength: HEADERS[kind]!.length }).chain((header) =>
-    fc
-      .array(
-        fc.tuple(
-          ...header.map((h) =>
-            h === "unit"
-              ? fc.constantFrom("mm", "in", "um", "", "deg")
-              : TEXT_COLUMNS.has(h)
-                ? fc.constantFrom("Bore A", "face", "x")
-                : fc.oneof({ arbitrary: fc.double({ min: -1e6, max: 1e6, noNaN: true }).map(String), weight: 12 }, { arbitrary: token, weight: 1 }),
+  fc
+    .shuffledSubarray(HEADERS[kind]!, { minLength: HEADERS[kind]!.length })
+    .chain((header) =>
+      fc
+        .array(
+          fc.tuple(
+            ...header.map((h) =>
+              h === "unit"
+                ? fc.constantFrom("mm", "in", "um", "", "deg")
+                : TEXT_COLUMNS.has(h)
+                  ? fc.constantFrom("Bore A", "face", "x")
+                  : fc.oneof(
+                      { arbitrary: fc.double({ min: -1e6, max: 1e6, noNaN: true }).map(String), weight: 12 },
+                      { arbitrary: token, weight: 1 },
+                    ),
+            ),
           ),
+          { minLength: 1, maxLength: 6 },
+        )
+        .map((rows) =>
+          Buffer.from([header.join(","), ...rows.map((r) => r.join(","))].join("\n") + "\n", "utf8"),
         ),
-        { minLength: 1, maxLength: 6 },
-      )
-      .map((rows) => Buffer.from([header.join(","), ...rows.map((r) => r.join(","))].join("\n") + "\n", "utf8")),
-  );
+    );
 
 const input = fc.constantFrom(...Object.keys(FORMS)).chain((kind) =>
-  fc.record({ kind: fc.constant(kind), bytes: fc.oneof(fc.uint8Array({ maxLength: 200 }).map((a) => Buffer.from(a)), csvLike(kind), nearlyValid(kind)) }),
+  fc.record({
+    kind: fc.constant(kind),
+    bytes: fc.oneof(
+      fc.uint8Array({ maxLength: 200 }).map((a) => Buffer.from(a)),
+      csvLike(kind),
+      nearlyValid(kind),
+    ),
+  }),
 );
 
 let jobId: string;
@@ -81,7 +120,9 @@ describe("any byte string as an upload", () => {
         expect([201, 422]).toContain(res.status);
         if (res.status === 201) {
           accepted++;
-          const cols = await db.execute<{ data: Buffer }>(sql`select data from dataset_columns where dataset_id = ${body.id}`);
+          const cols = await db.execute<{ data: Buffer }>(
+            sql`select data from dataset_columns where dataset_id = ${body.id}`,
+          );
           for (const c of cols.rows) {
             const buf = Buffer.from(c.data);
             for (let i = 0; i < buf.length; i += 8) expect(Number.isFinite(buf.readDoubleLE(i))).toBe(true);
@@ -89,7 +130,8 @@ describe("any byte string as an upload", () => {
         } else {
           refused++;
           expect(body.error.issues.length).toBeGreaterThan(0);
-          for (const issue of body.error.issues) expect(typeof issue.row === "number" || typeof issue.column === "string").toBe(true);
+          for (const issue of body.error.issues)
+            expect(typeof issue.row === "number" || typeof issue.column === "string").toBe(true);
         }
       }),
       { numRuns: 150, seed: 20261202 },

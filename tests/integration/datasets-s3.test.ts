@@ -20,9 +20,21 @@ let storage: ObjectStorage;
 
 beforeAll(async () => {
   dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-s3-"));
-  server = new S3rver({ port: 0, address: "127.0.0.1", directory: dir, silent: true, configureBuckets: [{ name: "trammel-test", configs: [] }] });
+  server = new S3rver({
+    port: 0,
+    address: "127.0.0.1",
+    directory: dir,
+    silent: true,
+    configureBuckets: [{ name: "trammel-test", configs: [] }],
+  });
   const { port } = await server.run();
-  storage = createS3Storage({ endpoint: `http://127.0.0.1:${port}`, bucket: "trammel-test", region: "us-east-1", accessKeyId: "S3RVER", secretAccessKey: "S3RVER" });
+  storage = createS3Storage({
+    endpoint: `http://127.0.0.1:${port}`,
+    bucket: "trammel-test",
+    region: "us-east-1",
+    accessKeyId: "S3RVER",
+    secretAccessKey: "S3RVER",
+  });
   setStorageForTests(storage);
 });
 
@@ -46,11 +58,18 @@ describe("S3 driver (s3rver)", () => {
     await signInAs("inspector@halvard.example");
     const job = await jobIdByReference("TR-2026-0052");
     const bytes = fixture("sphere-bom.csv");
-    const res = await upload(job, bytes, { kind: "sphere_probe", phase: "post", units: "mm" }, "../../evil\r\nname.csv");
+    const res = await upload(
+      job,
+      bytes,
+      { kind: "sphere_probe", phase: "post", units: "mm" },
+      "../../evil\r\nname.csv",
+    );
     expect(res.status).toBe(201);
     const { id, sha256 } = await res.json();
     expect(sha256).toBe(createHash("sha256").update(bytes).digest("hex"));
-    const row = await db.execute<{ storage_key: string; original_filename: string }>(sql`select storage_key, original_filename from datasets where id = ${id}`);
+    const row = await db.execute<{ storage_key: string; original_filename: string }>(
+      sql`select storage_key, original_filename from datasets where id = ${id}`,
+    );
     const key = row.rows[0]!.storage_key;
     // The key is ours (job uuid / random uuid), never built from the file name.
     expect(key).toMatch(new RegExp(`^datasets/${job}/[0-9a-f-]{36}$`));
@@ -60,6 +79,8 @@ describe("S3 driver (s3rver)", () => {
     expect(Buffer.compare((await storage.get(key))!, bytes)).toBe(0);
     const file = await fileApi(id);
     expect(Buffer.compare(Buffer.from(await file.arrayBuffer()), bytes)).toBe(0);
-    expect(file.headers.get("content-disposition")).toBe(`attachment; filename="evil%0D%0Aname.csv"; filename*=UTF-8''evil%250D%250Aname.csv`);
+    expect(file.headers.get("content-disposition")).toBe(
+      `attachment; filename="evil%0D%0Aname.csv"; filename*=UTF-8''evil%250D%250Aname.csv`,
+    );
   });
 });

@@ -11,7 +11,17 @@ import { getActor } from "@/db/queries/users";
 import { env } from "@/lib/env";
 import { getStorage, setStorageForTests, type ObjectStorage } from "@/lib/storage";
 import { parseDatasetText, parseUploadForm } from "@/lib/storage/parse-dataset";
-import { deleteApi, evaluationApi, fileApi, fixture, listDatasetsApi, storedState, summaryApi, upload, uploadRoute } from "./dataset-helpers";
+import {
+  deleteApi,
+  evaluationApi,
+  fileApi,
+  fixture,
+  listDatasetsApi,
+  storedState,
+  summaryApi,
+  upload,
+  uploadRoute,
+} from "./dataset-helpers";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
 const sha = (b: Uint8Array) => createHash("sha256").update(b).digest("hex");
@@ -36,7 +46,13 @@ describe("accepted uploads", () => {
     const res = await upload(measuring, bytes, TEST_PART, "part 7 results.csv");
     expect(res.status).toBe(201);
     const body = await res.json();
-    expect(body).toEqual({ id: expect.stringMatching(/^[0-9a-f-]{36}$/), kind: "test_part", rows: 6, sha256: sha(bytes), warnings: [] });
+    expect(body).toEqual({
+      id: expect.stringMatching(/^[0-9a-f-]{36}$/),
+      kind: "test_part",
+      rows: 6,
+      sha256: sha(bytes),
+      warnings: [],
+    });
     goodId = body.id;
   });
 
@@ -48,7 +64,9 @@ describe("accepted uploads", () => {
     expect(Buffer.compare(Buffer.from(got), fixture("test-part-good.csv"))).toBe(0);
     expect(sha(got)).toBe(sha(fixture("test-part-good.csv")));
     expect(res.headers.get("x-content-type-options")).toBe("nosniff");
-    expect(res.headers.get("content-disposition")).toBe(`attachment; filename="part 7 results.csv"; filename*=UTF-8''part%207%20results.csv`);
+    expect(res.headers.get("content-disposition")).toBe(
+      `attachment; filename="part 7 results.csv"; filename*=UTF-8''part%207%20results.csv`,
+    );
   });
 
   it("a UTF-8 file with a BOM is accepted and stored with its BOM (the original is unchanged)", async () => {
@@ -69,32 +87,58 @@ describe("accepted uploads", () => {
     const res = await upload(measuring, Buffer.from(csv), { ...SPHERE, units: "in" });
     expect(res.status).toBe(201);
     const { id } = await res.json();
-    const cols = await db.execute<{ name: string; unit: string; data: Buffer }>(sql`select name, unit, data from dataset_columns where dataset_id = ${id} order by name`);
-    const byName = Object.fromEntries(cols.rows.map((r) => [r.name, { unit: r.unit, v: [...new Float64Array(new Uint8Array(r.data).buffer)] }]));
+    const cols = await db.execute<{ name: string; unit: string; data: Buffer }>(
+      sql`select name, unit, data from dataset_columns where dataset_id = ${id} order by name`,
+    );
+    const byName = Object.fromEntries(
+      cols.rows.map((r) => [
+        r.name,
+        { unit: r.unit, v: [...new Float64Array(new Uint8Array(r.data).buffer)] },
+      ]),
+    );
     expect(Object.keys(byName).sort()).toEqual(["primary_deg", "secondary_deg", "x_mm", "y_mm", "z_mm"]);
     expect(byName.x_mm).toEqual({ unit: "mm", v: [25.4, 1.0001 * 25.4] });
     expect(byName.z_mm!.v).toEqual([-12.7, -12.7]);
     expect(byName.secondary_deg).toEqual({ unit: "deg", v: [0, 45] });
     const summary = await (await summaryApi(id)).json();
-    expect(summary.dataset).toMatchObject({ kind: "sphere_probe", phase: "pre", status: "stored", rows: 2, units: { units: "in" } });
+    expect(summary.dataset).toMatchObject({
+      kind: "sphere_probe",
+      phase: "pre",
+      status: "stored",
+      rows: 2,
+      units: { units: "in" },
+    });
     expect(summary.dataset.summary.columns.x_mm).toEqual({ unit: "mm", min: 25.4, max: 1.0001 * 25.4 });
   });
 
   it("a semicolon file with decimal commas is accepted when the decimal-comma option is chosen", async () => {
     await signInAs("inspector@halvard.example");
-    const res = await upload(measuring, fixture("sphere-semicolon-decimal-comma.csv"), { ...SPHERE, decimal: "comma" });
+    const res = await upload(measuring, fixture("sphere-semicolon-decimal-comma.csv"), {
+      ...SPHERE,
+      decimal: "comma",
+    });
     expect(res.status).toBe(201);
     expect((await res.json()).rows).toBe(2);
   });
 
   it("tram and sweep files are stored with their line and sweep fits in the summary", async () => {
     await signInAs("installer@halvard.example");
-    const tram = await upload(measuring, fixture("tram-good.csv"), { kind: "tram", phase: "pre", travel_units: "mm", reading_units: "um" });
+    const tram = await upload(measuring, fixture("tram-good.csv"), {
+      kind: "tram",
+      phase: "pre",
+      travel_units: "mm",
+      reading_units: "um",
+    });
     expect(tram.status).toBe(201);
     const t = await (await summaryApi((await tram.json()).id)).json();
     // Least-squares slope of (0,0) (100,1.2) (200,2.3) (300,3.7): Σ(x−x̄)(y−ȳ)/Σ(x−x̄)² = 610/50000 µm/mm, by hand.
     expect(t.dataset.summary.tram.slope_um_per_m).toBeCloseTo(12.2, 10);
-    const sweep = await upload(measuring, fixture("sweep-good.csv"), { kind: "sweep", phase: "pre", reading_units: "um", radius_mm: "50" });
+    const sweep = await upload(measuring, fixture("sweep-good.csv"), {
+      kind: "sweep",
+      phase: "pre",
+      reading_units: "um",
+      radius_mm: "50",
+    });
     expect(sweep.status).toBe(201);
     const s = await (await summaryApi((await sweep.json()).id)).json();
     // a + b cosθ + c sinθ through 2, 0.5, −2, −0.5 at 0/90/180/270°: b = 2, c = 0.5 µm; tilt √(b²+c²)/r (docs/geometry.md) = 2.0616 µm / 50 mm.
@@ -111,19 +155,36 @@ describe("accepted uploads", () => {
     const { id } = await res.json();
     expect(Buffer.compare(Buffer.from(await (await fileApi(id)).arrayBuffer()), bytes)).toBe(0);
     const s = await (await summaryApi(id)).json();
-    expect(s.dataset.options).toEqual({ decimal: "point", header: "primary_deg;secondary_deg;x;y;z", header_replaced: "C angle;A angle;X;Y;Z" });
+    expect(s.dataset.options).toEqual({
+      decimal: "point",
+      header: "primary_deg;secondary_deg;x;y;z",
+      header_replaced: "C angle;A angle;X;Y;Z",
+    });
   });
 });
 
 describe("rejected uploads: exact issues, nothing stored", () => {
   const cases: Array<{ file: string; fields?: Record<string, string>; issues: unknown[] }> = [
     { file: "empty.csv", issues: [{ row: 1, message: "the file is empty; a header row is required" }] },
-    { file: "test-part-header-only.csv", fields: TEST_PART, issues: [{ row: 1, message: "the file has a header row but no data rows" }] },
+    {
+      file: "test-part-header-only.csv",
+      fields: TEST_PART,
+      issues: [{ row: 1, message: "the file has a header row but no data rows" }],
+    },
     {
       file: "sphere-missing-column.csv",
-      issues: [{ row: 1, column: "z", message: "the required column 'z' is missing (expected: primary_deg, secondary_deg, x, y, z)" }],
+      issues: [
+        {
+          row: 1,
+          column: "z",
+          message: "the required column 'z' is missing (expected: primary_deg, secondary_deg, x, y, z)",
+        },
+      ],
     },
-    { file: "sphere-duplicate-column.csv", issues: [{ row: 1, column: "x", message: "the column 'x' appears more than once in the header" }] },
+    {
+      file: "sphere-duplicate-column.csv",
+      issues: [{ row: 1, column: "x", message: "the column 'x' appears more than once in the header" }],
+    },
     {
       file: "sphere-text-nan-infinity.csv",
       issues: [
@@ -137,12 +198,22 @@ describe("rejected uploads: exact issues, nothing stored", () => {
       file: "sphere-ragged.csv",
       issues: [
         { row: 3, message: "has 4 fields, the header has 5" },
-        { row: 4, message: "has 6 fields, the header has 5; a decimal comma in a comma-separated file splits a number in two — use a decimal point" },
+        {
+          row: 4,
+          message:
+            "has 6 fields, the header has 5; a decimal comma in a comma-separated file splits a number in two — use a decimal point",
+        },
       ],
     },
     {
       file: "sphere-decimal-comma-in-comma-file.csv",
-      issues: [{ row: 2, message: "has 6 fields, the header has 5; a decimal comma in a comma-separated file splits a number in two — use a decimal point" }],
+      issues: [
+        {
+          row: 2,
+          message:
+            "has 6 fields, the header has 5; a decimal comma in a comma-separated file splits a number in two — use a decimal point",
+        },
+      ],
     },
     {
       // Semicolons with decimal commas, but the decimal-comma option not chosen.
@@ -151,16 +222,46 @@ describe("rejected uploads: exact issues, nothing stored", () => {
         {
           row: 2,
           column: "x",
-          message: "'100,001' uses a decimal comma; write a decimal point (100.001) or choose the decimal-comma option for this semicolon-separated file",
+          message:
+            "'100,001' uses a decimal comma; write a decimal point (100.001) or choose the decimal-comma option for this semicolon-separated file",
         },
-        { row: 2, column: "y", message: "'200,002' uses a decimal comma; write a decimal point (200.002) or choose the decimal-comma option for this semicolon-separated file" },
-        { row: 2, column: "z", message: "'50,000' uses a decimal comma; write a decimal point (50.000) or choose the decimal-comma option for this semicolon-separated file" },
-        { row: 3, column: "x", message: "'100,0012' uses a decimal comma; write a decimal point (100.0012) or choose the decimal-comma option for this semicolon-separated file" },
-        { row: 3, column: "y", message: "'200,0018' uses a decimal comma; write a decimal point (200.0018) or choose the decimal-comma option for this semicolon-separated file" },
-        { row: 3, column: "z", message: "'50,0003' uses a decimal comma; write a decimal point (50.0003) or choose the decimal-comma option for this semicolon-separated file" },
+        {
+          row: 2,
+          column: "y",
+          message:
+            "'200,002' uses a decimal comma; write a decimal point (200.002) or choose the decimal-comma option for this semicolon-separated file",
+        },
+        {
+          row: 2,
+          column: "z",
+          message:
+            "'50,000' uses a decimal comma; write a decimal point (50.000) or choose the decimal-comma option for this semicolon-separated file",
+        },
+        {
+          row: 3,
+          column: "x",
+          message:
+            "'100,0012' uses a decimal comma; write a decimal point (100.0012) or choose the decimal-comma option for this semicolon-separated file",
+        },
+        {
+          row: 3,
+          column: "y",
+          message:
+            "'200,0018' uses a decimal comma; write a decimal point (200.0018) or choose the decimal-comma option for this semicolon-separated file",
+        },
+        {
+          row: 3,
+          column: "z",
+          message:
+            "'50,0003' uses a decimal comma; write a decimal point (50.0003) or choose the decimal-comma option for this semicolon-separated file",
+        },
       ],
     },
-    { file: "test-part-unclosed-quote.csv", fields: TEST_PART, issues: [{ row: 2, column: "characteristic", message: "a quote opens here and is never closed" }] },
+    {
+      file: "test-part-unclosed-quote.csv",
+      fields: TEST_PART,
+      issues: [{ row: 2, column: "characteristic", message: "a quote opens here and is never closed" }],
+    },
   ];
 
   for (const c of cases) {
@@ -182,10 +283,16 @@ describe("rejected uploads: exact issues, nothing stored", () => {
 
   it("bytes that are not UTF-8 → 422 naming the row of the first bad byte", async () => {
     await signInAs("inspector@halvard.example");
-    const bytes = Buffer.concat([Buffer.from("primary_deg,secondary_deg,x,y,z\n0,0,1,2,3\n0,0,"), Buffer.from([0xff, 0xfe]), Buffer.from(",2,3\n")]);
+    const bytes = Buffer.concat([
+      Buffer.from("primary_deg,secondary_deg,x,y,z\n0,0,1,2,3\n0,0,"),
+      Buffer.from([0xff, 0xfe]),
+      Buffer.from(",2,3\n"),
+    ]);
     const res = await upload(measuring, bytes, SPHERE);
     expect(res.status).toBe(422);
-    expect((await res.json()).error.issues).toEqual([{ row: 3, message: "the file is not valid UTF-8 text; save it as CSV UTF-8" }]);
+    expect((await res.json()).error.issues).toEqual([
+      { row: 3, message: "the file is not valid UTF-8 text; save it as CSV UTF-8" },
+    ]);
   });
 
   it("missing or wrong form fields → 422 naming the field, nothing stored", async () => {
@@ -194,20 +301,36 @@ describe("rejected uploads: exact issues, nothing stored", () => {
     const bytes = fixture("sphere-bom.csv");
     const noUnits = await upload(measuring, bytes, { kind: "sphere_probe", phase: "pre" });
     expect(noUnits.status).toBe(422);
-    expect((await noUnits.json()).error.issues).toEqual([{ field: "units", message: "choose mm or in for the x, y, z columns" }]);
+    expect((await noUnits.json()).error.issues).toEqual([
+      { field: "units", message: "choose mm or in for the x, y, z columns" },
+    ]);
     const badKind = await upload(measuring, bytes, { kind: "photo", phase: "during" });
     expect((await badKind.json()).error.issues).toEqual([
       { field: "kind", message: "kind must be sphere_probe, tram, sweep or test_part" },
       { field: "phase", message: "phase must be pre or post" },
     ]);
-    const noRadius = await upload(measuring, fixture("sweep-good.csv"), { kind: "sweep", phase: "pre", reading_units: "um", radius_mm: "-3" });
-    expect((await noRadius.json()).error.issues).toEqual([{ field: "radius_mm", message: "the sweep radius must be above 0 mm" }]);
+    const noRadius = await upload(measuring, fixture("sweep-good.csv"), {
+      kind: "sweep",
+      phase: "pre",
+      reading_units: "um",
+      radius_mm: "-3",
+    });
+    expect((await noRadius.json()).error.issues).toEqual([
+      { field: "radius_mm", message: "the sweep radius must be above 0 mm" },
+    ]);
     const noFile = await upload(measuring, null, SPHERE);
     expect(noFile.status).toBe(422);
     expect((await noFile.json()).error.issues).toEqual([{ field: "file", message: "no file was sent" }]);
-    const notMultipart = await uploadRoute(request(`/api/jobs/${measuring}/datasets`, { method: "POST", body: "x,y\n1,2\n", headers: { "content-type": "text/csv" } }), {
-      params: Promise.resolve({ id: measuring }),
-    });
+    const notMultipart = await uploadRoute(
+      request(`/api/jobs/${measuring}/datasets`, {
+        method: "POST",
+        body: "x,y\n1,2\n",
+        headers: { "content-type": "text/csv" },
+      }),
+      {
+        params: Promise.resolve({ id: measuring }),
+      },
+    );
     expect(notMultipart.status).toBe(422);
     expect(await storedState()).toEqual(before);
   });
@@ -238,8 +361,15 @@ describe("a failure after the object is stored", () => {
       const text = fixture("test-part-good.csv").toString("utf8");
       // A job id that does not exist: the dataset row's foreign key fails inside the transaction.
       const missingJob = "00000000-0000-4000-8000-000000000000";
-      const file = { filename: "x.csv", contentType: "text/csv", data: Buffer.from(text), sha256: sha(Buffer.from(text)) };
-      await expect(insertDataset(actor, missingJob, form, file, parseDatasetText(form, text))).rejects.toThrow();
+      const file = {
+        filename: "x.csv",
+        contentType: "text/csv",
+        data: Buffer.from(text),
+        sha256: sha(Buffer.from(text)),
+      };
+      await expect(
+        insertDataset(actor, missingJob, form, file, parseDatasetText(form, text)),
+      ).rejects.toThrow();
       expect(calls).toHaveLength(2);
       expect(calls[0]).toMatch(new RegExp(`^put datasets/${missingJob}/[0-9a-f-]{36}$`));
       expect(calls[1]).toBe(calls[0]!.replace("put", "delete"));
@@ -266,7 +396,10 @@ describe("size limit", () => {
     const req = new Request(`http://localhost/api/jobs/${measuring}/datasets`, {
       method: "POST",
       body,
-      headers: { "content-type": "multipart/form-data; boundary=xyz", "content-length": String(env.UPLOAD_MAX_BYTES + 1) },
+      headers: {
+        "content-type": "multipart/form-data; boundary=xyz",
+        "content-length": String(env.UPLOAD_MAX_BYTES + 1),
+      },
       duplex: "half",
     } as RequestInit);
     const res = await uploadRoute(req, { params: Promise.resolve({ id: measuring }) });
@@ -280,7 +413,9 @@ describe("size limit", () => {
     const before = await storedState();
     const chunk = 1024 * 1024;
     let sent = 0;
-    const head = new TextEncoder().encode('--xyz\r\nContent-Disposition: form-data; name="file"; filename="big.csv"\r\nContent-Type: text/csv\r\n\r\nprimary_deg,secondary_deg,x,y,z\n');
+    const head = new TextEncoder().encode(
+      '--xyz\r\nContent-Disposition: form-data; name="file"; filename="big.csv"\r\nContent-Type: text/csv\r\n\r\nprimary_deg,secondary_deg,x,y,z\n',
+    );
     const body = new ReadableStream<Uint8Array>(
       {
         pull(c) {
@@ -344,7 +479,12 @@ describe("who may upload and delete", () => {
 
   it("delete is a soft delete, audited, while the job is measuring; refused after review and for customers", async () => {
     await signInAs("inspector@halvard.example");
-    const res = await upload(measuring, fixture("tram-good.csv"), { kind: "tram", phase: "post", travel_units: "in", reading_units: "in" });
+    const res = await upload(measuring, fixture("tram-good.csv"), {
+      kind: "tram",
+      phase: "post",
+      travel_units: "in",
+      reading_units: "in",
+    });
     const { id } = await res.json();
     await signInAs("buyer@marlowcreek.example");
     expect((await deleteApi(id)).status).toBe(403);
@@ -355,11 +495,18 @@ describe("who may upload and delete", () => {
     expect(del.status).toBe(200);
     expect((await del.json()).status).toBe("deleted");
     expect((await deleteApi(id)).status).toBe(409);
-    const audit = await db.execute<{ action: string }>(sql`select action from audit_events where entity_id = ${id} order by id`);
+    const audit = await db.execute<{ action: string }>(
+      sql`select action from audit_events where entity_id = ${id} order by id`,
+    );
     expect(audit.rows.map((r) => r.action)).toEqual(["dataset.uploaded", "dataset.deleted"]);
     // Still listed, marked deleted; the original is kept.
     const list = await (await listDatasetsApi(measuring)).json();
-    expect(list.datasets.find((d: { id: string }) => d.id === id)).toMatchObject({ status: "deleted", kind: "tram", phase: "post", uploaderName: "Ines Okafor" });
+    expect(list.datasets.find((d: { id: string }) => d.id === id)).toMatchObject({
+      status: "deleted",
+      kind: "tram",
+      phase: "post",
+      uploaderName: "Ines Okafor",
+    });
     expect((await fileApi(id)).status).toBe(200);
     // The issued job's seeded dataset cannot be deleted.
     await signInAs("admin@halvard.example");
@@ -389,21 +536,31 @@ describe("test-part evaluation", () => {
       ["Side E", "pass"],
     ]);
     expect(ev.totals).toEqual({ pass: 3, fail: 1, undecided: 2, total: 6 });
-    expect(ev.rows[1]).toMatchObject({ nominal: 20, measured: 20.0085, lower_limit: 19.995, upper_limit: 20.005, U: 0.002, unit: "mm" });
+    expect(ev.rows[1]).toMatchObject({
+      nominal: 20,
+      measured: 20.0085,
+      lower_limit: 19.995,
+      upper_limit: 20.005,
+      U: 0.002,
+      unit: "mm",
+    });
     expect(ev.rows[1].deviation).toBeCloseTo(0.0085, 12);
     expect(ev.rows[2].lower_limit).toBeNull();
   });
 
   it("the CSV export neutralises cells that a spreadsheet would run as a formula", async () => {
     await signInAs("inspector@halvard.example");
-    const csv = 'feature,characteristic,nominal,measured,lower_tol,upper_tol\n=HYPERLINK("http://x"),+diameter,1,1,-0.1,0.1\n@SUM(A1),-width,2,2,-0.1,0.1\n';
+    const csv =
+      'feature,characteristic,nominal,measured,lower_tol,upper_tol\n=HYPERLINK("http://x"),+diameter,1,1,-0.1,0.1\n@SUM(A1),-width,2,2,-0.1,0.1\n';
     const up = await upload(measuring, Buffer.from(csv), TEST_PART);
     expect(up.status).toBe(201);
     const res = await evaluationApi((await up.json()).id, "?format=csv");
     expect(res.status).toBe(200);
     expect(res.headers.get("content-type")).toBe("text/csv; charset=utf-8");
     const lines = (await res.text()).split("\r\n");
-    expect(lines[0]).toBe("feature,characteristic,unit,nominal,measured,deviation,lower_limit,upper_limit,U_k2,decision,decision_rule,source_row");
+    expect(lines[0]).toBe(
+      "feature,characteristic,unit,nominal,measured,deviation,lower_limit,upper_limit,U_k2,decision,decision_rule,source_row",
+    );
     expect(lines[1]).toBe(`"'=HYPERLINK(""http://x"")",'+diameter,mm,1,1,0,0.9,1.1,0.002,pass,guarded,2`);
     expect(lines[2]).toBe("'@SUM(A1),'-width,mm,2,2,0,1.9,2.1,0.002,pass,guarded,3");
   });

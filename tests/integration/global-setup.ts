@@ -9,10 +9,15 @@ let admin: { url: URL; name: string } | undefined;
 export default async function setup() {
   const raw = process.env.DATABASE_URL;
   if (!raw || !new URL(raw).pathname.includes("test")) {
-    throw new Error("Integration tests need DATABASE_URL pointing at a test database (its name must contain 'test'); tests/run-all.sh sets it.");
+    throw new Error(
+      "Integration tests need DATABASE_URL pointing at a test database (its name must contain 'test'); tests/run-all.sh sets it.",
+    );
   }
   const url = new URL(raw);
-  const name = `${url.pathname.slice(1)}_${process.pid}_${Date.now().toString(36)}`.replace(/[^a-z0-9_]/gi, "_");
+  const name = `${url.pathname.slice(1)}_${process.pid}_${Date.now().toString(36)}`.replace(
+    /[^a-z0-9_]/gi,
+    "_",
+  );
   const client = new Client({ connectionString: raw });
   await client.connect();
   await client.query(`CREATE DATABASE "${name}"`);

@@ -12,8 +12,24 @@ import { DEMO_HEAD_ERRORS as ERRORS_0041 } from "@/db/seed-datasets";
 import { DEMO_HEAD_ERRORS_AFTER } from "@/db/seed-analyses";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
-const history = (id: string) => historyRoute(request(`/api/heads/${id}/history`), { params: Promise.resolve({ id }) });
-type Body = { head: { serial: string }; jobs: { id: string; reference: string; kind: string; status: string; date: string; fit: null | { analysisId: string; approved: boolean; phase: string; parameters: { key: string; value: number; U: number | null }[] } }[] };
+const history = (id: string) =>
+  historyRoute(request(`/api/heads/${id}/history`), { params: Promise.resolve({ id }) });
+type Body = {
+  head: { serial: string };
+  jobs: {
+    id: string;
+    reference: string;
+    kind: string;
+    status: string;
+    date: string;
+    fit: null | {
+      analysisId: string;
+      approved: boolean;
+      phase: string;
+      parameters: { key: string; value: number; U: number | null }[];
+    };
+  }[];
+};
 
 let headId = "";
 beforeAll(async () => {
@@ -34,12 +50,22 @@ describe("head history", () => {
     // TR-2026-0041: issued, its fit approved by the seed; the analysis is the one the approval event names.
     const j41 = byRef.get("TR-2026-0041")!;
     expect(j41).toMatchObject({ kind: "installation", status: "issued" });
-    const [approval] = await db.select({ entityId: auditEvents.entityId }).from(auditEvents).where(and(eq(auditEvents.jobId, j41.id), eq(auditEvents.action, "analysis.approved"))).orderBy(desc(auditEvents.id)).limit(1);
+    const [approval] = await db
+      .select({ entityId: auditEvents.entityId })
+      .from(auditEvents)
+      .where(and(eq(auditEvents.jobId, j41.id), eq(auditEvents.action, "analysis.approved")))
+      .orderBy(desc(auditEvents.id))
+      .limit(1);
     expect(j41.fit).toMatchObject({ analysisId: approval!.entityId, approved: true, phase: "pre" });
 
     // TR-2026-0052: measuring, nothing approved; the latest fit is the after-adjustment one.
     const j52 = byRef.get("TR-2026-0052")!;
-    const [latest] = await db.select().from(analyses).where(eq(analyses.jobId, j52.id)).orderBy(desc(analyses.createdAt), desc(analyses.id)).limit(1);
+    const [latest] = await db
+      .select()
+      .from(analyses)
+      .where(eq(analyses.jobId, j52.id))
+      .orderBy(desc(analyses.createdAt), desc(analyses.id))
+      .limit(1);
     expect(j52.fit).toMatchObject({ analysisId: latest!.id, approved: false, phase: "post" });
 
     // TR-2026-0057: a draft with no data yet.
@@ -49,19 +75,40 @@ describe("head history", () => {
     for (const j of [j41, j52]) {
       const [a] = await db.select().from(analyses).where(eq(analyses.id, j.fit!.analysisId));
       const stored = (a!.result as StoredHeadFit).fit.parameters;
-      expect(j.fit!.parameters.map((q) => [q.key, q.value, q.U])).toEqual(stored.map((q) => [q.key, q.value, q.U]));
+      expect(j.fit!.parameters.map((q) => [q.key, q.value, q.U])).toEqual(
+        stored.map((q) => [q.key, q.value, q.U]),
+      );
     }
     // And the fits find the invented errors the demo data was synthesised from (1 µm noise):
     // pivot length error within 3 U of the input (a check of the trend's numbers, not of the fit).
     const pivot = (j: typeof j41) => j.fit!.parameters.find((q) => q.key === "pivot_length_error_um")!;
     expect(Math.abs(pivot(j41).value - ERRORS_0041.pivot_length_error_um!)).toBeLessThan(3 * pivot(j41).U!);
-    expect(Math.abs(pivot(j52).value - DEMO_HEAD_ERRORS_AFTER.pivot_length_error_um!)).toBeLessThan(3 * pivot(j52).U!);
+    expect(Math.abs(pivot(j52).value - DEMO_HEAD_ERRORS_AFTER.pivot_length_error_um!)).toBeLessThan(
+      3 * pivot(j52).U!,
+    );
   });
 
   it("after the head moves to another company, each customer sees only their own jobs on it", async () => {
-    const tollanMachine = (await db.select({ id: machines.id, customerId: customers.id }).from(machines).innerJoin(sites, eq(sites.id, machines.siteId)).innerJoin(customers, eq(customers.id, sites.customerId)).where(eq(customers.name, "Tollan Mold Works")))[0]!;
+    const tollanMachine = (
+      await db
+        .select({ id: machines.id, customerId: customers.id })
+        .from(machines)
+        .innerJoin(sites, eq(sites.id, machines.siteId))
+        .innerJoin(customers, eq(customers.id, sites.customerId))
+        .where(eq(customers.name, "Tollan Mold Works"))
+    )[0]!;
     const ref = `TR-MOVED-${Date.now().toString(36)}`;
-    await db.insert(jobs).values({ reference: ref, title: "Head TH-2241 on loan at Tollan", kind: "reverification", status: "draft", customerId: tollanMachine.customerId, machineId: tollanMachine.id, headId });
+    await db
+      .insert(jobs)
+      .values({
+        reference: ref,
+        title: "Head TH-2241 on loan at Tollan",
+        kind: "reverification",
+        status: "draft",
+        customerId: tollanMachine.customerId,
+        machineId: tollanMachine.id,
+        headId,
+      });
 
     await signInAs("buyer@tollan.example");
     const t = (await (await history(headId)).json()) as Body;
@@ -72,7 +119,9 @@ describe("head history", () => {
     expect(m.jobs.map((j) => j.reference)).toContain("TR-2026-0041");
     await signInAs("admin@halvard.example");
     const a = (await (await history(headId)).json()) as Body;
-    expect(a.jobs.map((j) => j.reference)).toEqual(expect.arrayContaining([ref, "TR-2026-0041", "TR-2026-0052"]));
+    expect(a.jobs.map((j) => j.reference)).toEqual(
+      expect.arrayContaining([ref, "TR-2026-0041", "TR-2026-0052"]),
+    );
     await db.delete(jobs).where(eq(jobs.reference, ref));
     expect(await jobIdByReference("TR-2026-0041")).toBeTruthy();
   });

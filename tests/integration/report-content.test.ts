@@ -41,18 +41,41 @@ const viewPng = (() => {
 })();
 
 beforeAll(async () => {
-  for (const e of ["admin@halvard.example", "installer@halvard.example", "inspector@halvard.example", "engineer@halvard.example"]) {
+  for (const e of [
+    "admin@halvard.example",
+    "installer@halvard.example",
+    "inspector@halvard.example",
+    "engineer@halvard.example",
+  ]) {
     as[e.split("@")[0]!] = (await getActor((await signInAs(e))!))!;
   }
-  const [t] = await db.select().from(jobs).where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
+  const [t] = await db
+    .select()
+    .from(jobs)
+    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
   templateId = t!.templateId!;
   const [row] = await db
     .insert(jobs)
-    .values({ reference: `TR-RPT-${Date.now().toString(36)}`, title: "Report content test job", kind: "reverification", status: "measuring", customerId: t!.customerId, machineId: t!.machineId, headId: t!.headId, templateId, assignedInstallerId: as.installer!.id })
+    .values({
+      reference: `TR-RPT-${Date.now().toString(36)}`,
+      title: "Report content test job",
+      kind: "reverification",
+      status: "measuring",
+      customerId: t!.customerId,
+      machineId: t!.machineId,
+      headId: t!.headId,
+      templateId,
+      assignedInstallerId: as.installer!.id,
+    })
     .returning();
   jobId = row!.id;
   await signInAs("installer@halvard.example");
-  const up = await upload(jobId, Buffer.from(demoSphereProbeCsv()), { kind: "sphere_probe", phase: "pre", units: "mm" }, "probe.csv");
+  const up = await upload(
+    jobId,
+    Buffer.from(demoSphereProbeCsv()),
+    { kind: "sphere_probe", phase: "pre", units: "mm" },
+    "probe.csv",
+  );
   expect(up.status).toBe(201);
   const { analysis } = await runHeadFit(as.engineer!, (await up.json()).id);
   fit = analysis.result.fit;
@@ -61,7 +84,12 @@ beforeAll(async () => {
   await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
   await changeJobStatus(as.installer!, jobId, "in_review");
   await approveAnalysis(as.engineer!, analysis.id);
-  await saveAnalysisView(as.engineer!, analysis.id, { png: viewPng, factor: 300, overlayAnalysisId: null, caption: "Looking along −Y" });
+  await saveAnalysisView(as.engineer!, analysis.id, {
+    png: viewPng,
+    factor: 300,
+    overlayAnalysisId: null,
+    caption: "Looking along −Y",
+  });
   const { reportId } = await issueReport(as.engineer!, { jobId, password: PW });
   const [r] = await db.select().from(reports).where(eq(reports.id, reportId));
   content = r!.content as ReportData;
@@ -70,7 +98,10 @@ beforeAll(async () => {
 
 describe("head parameters in the report", () => {
   it("judges each parameter against the procedure's limit with its rule and U, as ISO 14253-1 says", async () => {
-    const limits = await db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, templateId));
+    const limits = await db
+      .select()
+      .from(templateParameterLimits)
+      .where(eq(templateParameterLimits.templateId, templateId));
     expect(limits.length).toBeGreaterThan(0);
     for (const p of fit.parameters) {
       const lim = limits.find((l) => l.parameter === p.key);
@@ -82,10 +113,19 @@ describe("head parameters in the report", () => {
         const lo = lim.lowerLimit!;
         const hi = lim.upperLimit!;
         if (lim.decisionRule === "simple") expected = p.value >= lo && p.value <= hi ? "pass" : "fail";
-        else expected = p.value >= lo + p.U && p.value <= hi - p.U ? "pass" : p.value < lo - p.U || p.value > hi + p.U ? "fail" : "undecided";
+        else
+          expected =
+            p.value >= lo + p.U && p.value <= hi - p.U
+              ? "pass"
+              : p.value < lo - p.U || p.value > hi + p.U
+                ? "fail"
+                : "undecided";
       }
       expect(row.decision, p.key).toBe(expected);
-      if (lim) expect(row.tolerance).toBe(p.unit === "um" ? `± ${lim.upperLimit!.toFixed(1)} µm` : `± ${lim.upperLimit!.toFixed(1)}″`);
+      if (lim)
+        expect(row.tolerance).toBe(
+          p.unit === "um" ? `± ${lim.upperLimit!.toFixed(1)} µm` : `± ${lim.upperLimit!.toFixed(1)}″`,
+        );
     }
     // The demo limits include a guarded one and the held parameter, so both paths are exercised.
     expect(limits.some((l) => l.decisionRule === "guarded")).toBe(true);
@@ -116,9 +156,16 @@ describe("the saved 3D view in the report", () => {
     const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-report-"));
     writeFileSync(path.join(dir, "r.pdf"), pdf);
     const list = execFileSync("pdfimages", ["-list", path.join(dir, "r.pdf")]).toString("utf8");
-    const sizes = list.split("\n").slice(2).map((l) => l.trim().split(/\s+/)).filter((c) => c.length > 4).map((c) => `${c[3]}x${c[4]}`);
+    const sizes = list
+      .split("\n")
+      .slice(2)
+      .map((l) => l.trim().split(/\s+/))
+      .filter((c) => c.length > 4)
+      .map((c) => `${c[3]}x${c[4]}`);
     expect(sizes).toContain("64x40");
-    const text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"]).toString("utf8").replace(/\s+/g, " ");
+    const text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"])
+      .toString("utf8")
+      .replace(/\s+/g, " ");
     expect(text).toContain("Fitted head parameters against the procedure's limits.");
     expect(text).toContain("Residuals of the approved head fit per pose.");
   });
@@ -127,47 +174,149 @@ describe("the saved 3D view in the report", () => {
 describe("procedure versions", () => {
   it("carry the head-parameter limits into the new version unchanged", async () => {
     // A procedure of its own, so the demo procedure's current version is untouched for other tests.
-    const [base] = await db.insert(procedureTemplates).values({ name: `Limits copy test ${Date.now().toString(36)}`, version: 1, createdById: as.admin!.id }).returning();
-    const [step] = await db.select().from(templateSteps).where(eq(templateSteps.templateId, templateId)).limit(1);
+    const [base] = await db
+      .insert(procedureTemplates)
+      .values({ name: `Limits copy test ${Date.now().toString(36)}`, version: 1, createdById: as.admin!.id })
+      .returning();
+    const [step] = await db
+      .select()
+      .from(templateSteps)
+      .where(eq(templateSteps.templateId, templateId))
+      .limit(1);
     const { id: _s, templateId: _t, ...stepValues } = step!;
     await db.insert(templateSteps).values({ ...stepValues, templateId: base!.id });
     await db.insert(templateParameterLimits).values([
-      { templateId: base!.id, parameter: "pivot_length_error_um", lowerLimit: -30, upperLimit: 30, decisionRule: "guarded", limitSource: "customer_spec", limitSourceNote: "test" },
-      { templateId: base!.id, parameter: "secondary_tilt_arcsec", lowerLimit: null, upperLimit: 12, decisionRule: "simple", limitSource: "common_practice", limitSourceNote: null },
+      {
+        templateId: base!.id,
+        parameter: "pivot_length_error_um",
+        lowerLimit: -30,
+        upperLimit: 30,
+        decisionRule: "guarded",
+        limitSource: "customer_spec",
+        limitSourceNote: "test",
+      },
+      {
+        templateId: base!.id,
+        parameter: "secondary_tilt_arcsec",
+        lowerLimit: null,
+        upperLimit: 12,
+        decisionRule: "simple",
+        limitSource: "common_practice",
+        limitSourceNote: null,
+      },
     ]);
-    const before = await db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, base!.id));
+    const before = await db
+      .select()
+      .from(templateParameterLimits)
+      .where(eq(templateParameterLimits.templateId, base!.id));
     const next = await createTemplateVersion(as.admin!, base!.id, []);
     expect(next.version).toBe(2);
-    const after = await db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, next.id));
+    const after = await db
+      .select()
+      .from(templateParameterLimits)
+      .where(eq(templateParameterLimits.templateId, next.id));
     const strip = ({ id: _i, templateId: _tt, ...l }: (typeof before)[number]) => l;
-    const byKey = (a: { parameter: string }, b: { parameter: string }) => a.parameter.localeCompare(b.parameter);
+    const byKey = (a: { parameter: string }, b: { parameter: string }) =>
+      a.parameter.localeCompare(b.parameter);
     expect(after.map(strip).sort(byKey)).toEqual(before.map(strip).sort(byKey));
   });
 
   it("apply parameter-limit edits in the new version: changed, removed, added; a bad edit creates nothing", async () => {
-    const [base] = await db.insert(procedureTemplates).values({ name: `Limits edit test ${Date.now().toString(36)}`, version: 1, createdById: as.admin!.id }).returning();
+    const [base] = await db
+      .insert(procedureTemplates)
+      .values({ name: `Limits edit test ${Date.now().toString(36)}`, version: 1, createdById: as.admin!.id })
+      .returning();
     await db.insert(templateParameterLimits).values([
-      { templateId: base!.id, parameter: "pivot_length_error_um", lowerLimit: -30, upperLimit: 30, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: null },
-      { templateId: base!.id, parameter: "secondary_tilt_arcsec", lowerLimit: -12, upperLimit: 12, decisionRule: "simple", limitSource: "common_practice", limitSourceNote: null },
+      {
+        templateId: base!.id,
+        parameter: "pivot_length_error_um",
+        lowerLimit: -30,
+        upperLimit: 30,
+        decisionRule: "simple",
+        limitSource: "customer_spec",
+        limitSourceNote: null,
+      },
+      {
+        templateId: base!.id,
+        parameter: "secondary_tilt_arcsec",
+        lowerLimit: -12,
+        upperLimit: 12,
+        decisionRule: "simple",
+        limitSource: "common_practice",
+        limitSourceNote: null,
+      },
     ]);
-    const refused = await createTemplateVersion(as.admin!, base!.id, [], [{ parameter: "tip_offset_s_um", lowerLimit: 5, upperLimit: -5, decisionRule: "simple", limitSource: "standard", limitSourceNote: null }]).then(
+    const refused = await createTemplateVersion(
+      as.admin!,
+      base!.id,
+      [],
+      [
+        {
+          parameter: "tip_offset_s_um",
+          lowerLimit: 5,
+          upperLimit: -5,
+          decisionRule: "simple",
+          limitSource: "standard",
+          limitSourceNote: null,
+        },
+      ],
+    ).then(
       () => null,
       (e: { status?: number; message: string }) => e,
     );
     expect(refused?.status).toBe(422);
     expect(refused?.message).toMatch(/lower limit is above the upper limit/);
-    expect(await db.select().from(procedureTemplates).where(eq(procedureTemplates.name, base!.name))).toHaveLength(1);
+    expect(
+      await db.select().from(procedureTemplates).where(eq(procedureTemplates.name, base!.name)),
+    ).toHaveLength(1);
 
-    const next = await createTemplateVersion(as.admin!, base!.id, [], [
-      { parameter: "pivot_length_error_um", lowerLimit: -25, upperLimit: 25, decisionRule: "guarded", limitSource: "maker_manual", limitSourceNote: "sheet 4" },
-      { parameter: "secondary_tilt_arcsec", lowerLimit: null, upperLimit: null, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: null },
-      { parameter: "primary_zero_arcsec", lowerLimit: -40, upperLimit: 40, decisionRule: "simple", limitSource: "customer_spec", limitSourceNote: null },
-    ]);
-    const after = await db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, next.id));
+    const next = await createTemplateVersion(
+      as.admin!,
+      base!.id,
+      [],
+      [
+        {
+          parameter: "pivot_length_error_um",
+          lowerLimit: -25,
+          upperLimit: 25,
+          decisionRule: "guarded",
+          limitSource: "maker_manual",
+          limitSourceNote: "sheet 4",
+        },
+        {
+          parameter: "secondary_tilt_arcsec",
+          lowerLimit: null,
+          upperLimit: null,
+          decisionRule: "simple",
+          limitSource: "customer_spec",
+          limitSourceNote: null,
+        },
+        {
+          parameter: "primary_zero_arcsec",
+          lowerLimit: -40,
+          upperLimit: 40,
+          decisionRule: "simple",
+          limitSource: "customer_spec",
+          limitSourceNote: null,
+        },
+      ],
+    );
+    const after = await db
+      .select()
+      .from(templateParameterLimits)
+      .where(eq(templateParameterLimits.templateId, next.id));
     const by = Object.fromEntries(after.map((l) => [l.parameter, l]));
     expect(Object.keys(by).sort()).toEqual(["pivot_length_error_um", "primary_zero_arcsec"]);
-    expect(by.pivot_length_error_um).toMatchObject({ lowerLimit: -25, upperLimit: 25, decisionRule: "guarded", limitSource: "maker_manual", limitSourceNote: "sheet 4" });
+    expect(by.pivot_length_error_um).toMatchObject({
+      lowerLimit: -25,
+      upperLimit: 25,
+      decisionRule: "guarded",
+      limitSource: "maker_manual",
+      limitSourceNote: "sheet 4",
+    });
     // The earlier version keeps its own limits.
-    expect(await db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, base!.id))).toHaveLength(2);
+    expect(
+      await db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, base!.id)),
+    ).toHaveLength(2);
   });
 });

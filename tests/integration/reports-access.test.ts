@@ -34,24 +34,35 @@ describe("report routes", () => {
     it(`${who}: GET /api/reports/{id} and /pdf answer ${status}`, async () => {
       const r = await seededReport();
       await signInAs(email);
-      const meta = await reportMeta(request(`/api/reports/${r.id}`), { params: Promise.resolve({ id: r.id }) });
+      const meta = await reportMeta(request(`/api/reports/${r.id}`), {
+        params: Promise.resolve({ id: r.id }),
+      });
       expect(meta.status).toBe(status);
-      const pdf = await reportPdf(request(`/api/reports/${r.id}/pdf`), { params: Promise.resolve({ id: r.id }) });
+      const pdf = await reportPdf(request(`/api/reports/${r.id}/pdf`), {
+        params: Promise.resolve({ id: r.id }),
+      });
       expect(pdf.status).toBe(status);
       if (status === 200) {
         const bytes = Buffer.from(await pdf.arrayBuffer());
         expect(sha256Hex(bytes)).toBe(r.pdfSha256);
         expect(pdf.headers.get("content-type")).toBe("application/pdf");
         const body = await meta.json();
-        expect(body.signatures.map((s: { meaning: string }) => s.meaning)).toEqual(["performed", "inspected", "approved"]);
+        expect(body.signatures.map((s: { meaning: string }) => s.meaning)).toEqual([
+          "performed",
+          "inspected",
+          "approved",
+        ]);
       }
-      if (status === 404) expect(await meta.json()).toEqual({ error: { code: "not_found", message: "No such report." } });
+      if (status === 404)
+        expect(await meta.json()).toEqual({ error: { code: "not_found", message: "No such report." } });
     });
 
     it(`${who}: verification and the public key are public`, async () => {
       const r = await seededReport();
       await signInAs(email);
-      const byId = await verifyById(request(`/api/verify/${r.id}`), { params: Promise.resolve({ reportId: r.id }) });
+      const byId = await verifyById(request(`/api/verify/${r.id}`), {
+        params: Promise.resolve({ reportId: r.id }),
+      });
       expect(byId.status).toBe(200);
       expect((await byId.json()).authentic).toBe(true);
       const form = new FormData();
@@ -65,9 +76,19 @@ describe("report routes", () => {
   }
 
   it("POST /api/verify refuses an empty upload with a reason, and an oversized one with 413", async () => {
-    const empty = await verifyUpload(request("/api/verify", { method: "POST", body: new Uint8Array(0) }), undefined);
+    const empty = await verifyUpload(
+      request("/api/verify", { method: "POST", body: new Uint8Array(0) }),
+      undefined,
+    );
     expect(empty.status).toBe(422);
-    const big = await verifyUpload(request("/api/verify", { method: "POST", headers: { "content-length": String(21 * 1024 * 1024) }, body: new Uint8Array(8) }), undefined);
+    const big = await verifyUpload(
+      request("/api/verify", {
+        method: "POST",
+        headers: { "content-length": String(21 * 1024 * 1024) },
+        body: new Uint8Array(8),
+      }),
+      undefined,
+    );
     expect(big.status).toBe(413);
   });
 

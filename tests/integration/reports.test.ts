@@ -41,13 +41,32 @@ async function dbError(p: Promise<unknown>): Promise<string> {
 }
 
 beforeAll(async () => {
-  for (const e of ["installer@halvard.example", "inspector@halvard.example", "engineer@halvard.example", "buyer@marlowcreek.example", "buyer@tollan.example"]) as[e.split("@")[0]! + (e.includes("tollan") ? "-tollan" : "")] = await actor(e);
+  for (const e of [
+    "installer@halvard.example",
+    "inspector@halvard.example",
+    "engineer@halvard.example",
+    "buyer@marlowcreek.example",
+    "buyer@tollan.example",
+  ])
+    as[e.split("@")[0]! + (e.includes("tollan") ? "-tollan" : "")] = await actor(e);
   // A job of its own, so other tests' data is untouched.
-  const template = await db.select().from(jobs).where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
+  const template = await db
+    .select()
+    .from(jobs)
+    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
   const t = template[0]!;
   const [row] = await db
     .insert(jobs)
-    .values({ reference: `TR-TEST-${Date.now().toString(36)}`, title: "Report test job", kind: "reverification", status: "measuring", customerId: t.customerId, machineId: t.machineId, headId: t.headId, assignedInstallerId: as.installer!.id })
+    .values({
+      reference: `TR-TEST-${Date.now().toString(36)}`,
+      title: "Report test job",
+      kind: "reverification",
+      status: "measuring",
+      customerId: t.customerId,
+      machineId: t.machineId,
+      headId: t.headId,
+      assignedInstallerId: as.installer!.id,
+    })
     .returning();
   jobId = row!.id;
 });
@@ -69,8 +88,12 @@ describe("signing before issue", () => {
   });
 
   it("refuses the wrong role and a second identical signature", async () => {
-    expect((await failure(signJobWork(as.engineer!, { jobId, meaning: "inspected", password: PW }))).status).toBe(403);
-    expect((await failure(signJobWork(as.installer!, { jobId, meaning: "performed", password: PW }))).status).toBe(422);
+    expect(
+      (await failure(signJobWork(as.engineer!, { jobId, meaning: "inspected", password: PW }))).status,
+    ).toBe(403);
+    expect(
+      (await failure(signJobWork(as.installer!, { jobId, meaning: "performed", password: PW }))).status,
+    ).toBe(422);
   });
 
   it("another tenant's customer cannot even see the job (404)", async () => {
@@ -87,7 +110,17 @@ describe("issuing the report", () => {
   });
 
   it("leaves nothing behind when it fails between rendering and commit", async () => {
-    await expect(issueReport(as.engineer!, { jobId, password: PW }, { afterRender: () => { throw new Error("injected crash"); } })).rejects.toThrow("injected crash");
+    await expect(
+      issueReport(
+        as.engineer!,
+        { jobId, password: PW },
+        {
+          afterRender: () => {
+            throw new Error("injected crash");
+          },
+        },
+      ),
+    ).rejects.toThrow("injected crash");
     expect(await db.select().from(reports).where(eq(reports.jobId, jobId))).toHaveLength(0);
     expect(await db.select().from(outbox).where(eq(outbox.jobId, jobId))).toHaveLength(0);
     expect((await db.select({ s: jobs.status }).from(jobs).where(eq(jobs.id, jobId)))[0]!.s).toBe("approved");
@@ -102,16 +135,24 @@ describe("issuing the report", () => {
     expect(mail.every((m) => m.textBody.includes(`/jobs/${jobId}/report`))).toBe(true);
     const v = await verifyReport(reportId);
     expect(v.authentic).toBe(true);
-    expect(v.signatures!.map((s) => s.meaning)).toEqual(["Work performed", "Inspected", "Approved and issued"]);
+    expect(v.signatures!.map((s) => s.meaning)).toEqual([
+      "Work performed",
+      "Inspected",
+      "Approved and issued",
+    ]);
     expect(v.signatures!.every((s) => s.valid && /UTC$/.test(s.signedAtUtc))).toBe(true);
   });
 });
 
 describe("an issued revision cannot change", () => {
   it("PostgreSQL refuses UPDATE and DELETE of reports and signatures", async () => {
-    expect(await dbError(db.execute(sql`update reports set revision = 9 where job_id = ${jobId}`))).toMatch(/immutable/);
+    expect(await dbError(db.execute(sql`update reports set revision = 9 where job_id = ${jobId}`))).toMatch(
+      /immutable/,
+    );
     expect(await dbError(db.execute(sql`delete from reports where job_id = ${jobId}`))).toMatch(/immutable/);
-    expect(await dbError(db.execute(sql`update signatures set signer_name = 'x' where job_id = ${jobId}`))).toMatch(/immutable/);
+    expect(
+      await dbError(db.execute(sql`update signatures set signer_name = 'x' where job_id = ${jobId}`)),
+    ).toMatch(/immutable/);
   });
 });
 
@@ -131,7 +172,11 @@ describe("verification of a PDF someone holds", () => {
 
   it("detects an edited manifest field or a signature swapped in from another report (simulated by a superuser)", async () => {
     const [r] = await db.select().from(reports).where(eq(reports.jobId, jobId));
-    const edits = [sql`manifest = jsonb_set(manifest, '{signer,name}', '"Someone Else"')`, sql`manifest = jsonb_set(manifest, '{revision}', '2')`, sql`signature = (select signature from signatures s2 where s2.id <> signatures.id and s2.job_id = signatures.job_id limit 1)`];
+    const edits = [
+      sql`manifest = jsonb_set(manifest, '{signer,name}', '"Someone Else"')`,
+      sql`manifest = jsonb_set(manifest, '{revision}', '2')`,
+      sql`signature = (select signature from signatures s2 where s2.id <> signatures.id and s2.job_id = signatures.job_id limit 1)`,
+    ];
     for (const edit of edits) {
       await db
         .transaction(async (tx) => {
@@ -155,28 +200,65 @@ describe("verification of a PDF someone holds", () => {
 describe("customer response and amendment", () => {
   it("only the job's own customer responds; a rejection needs a comment and the password", async () => {
     const [r] = await db.select().from(reports).where(eq(reports.jobId, jobId));
-    expect((await failure(respondToReport(as["buyer-tollan"]!, { reportId: r!.id, decision: "accepted", password: PW }))).status).toBe(404);
-    expect((await failure(respondToReport(as.buyer!, { reportId: r!.id, decision: "rejected", password: PW }))).status).toBe(422);
-    expect((await failure(respondToReport(as.buyer!, { reportId: r!.id, decision: "rejected", password: "nope", comment: "Bore out of round" }))).status).toBe(422);
-    await respondToReport(as.buyer!, { reportId: r!.id, decision: "rejected", password: PW, comment: "The test bore was measured on the wrong machine." });
+    expect(
+      (
+        await failure(
+          respondToReport(as["buyer-tollan"]!, { reportId: r!.id, decision: "accepted", password: PW }),
+        )
+      ).status,
+    ).toBe(404);
+    expect(
+      (await failure(respondToReport(as.buyer!, { reportId: r!.id, decision: "rejected", password: PW })))
+        .status,
+    ).toBe(422);
+    expect(
+      (
+        await failure(
+          respondToReport(as.buyer!, {
+            reportId: r!.id,
+            decision: "rejected",
+            password: "nope",
+            comment: "Bore out of round",
+          }),
+        )
+      ).status,
+    ).toBe(422);
+    await respondToReport(as.buyer!, {
+      reportId: r!.id,
+      decision: "rejected",
+      password: PW,
+      comment: "The test bore was measured on the wrong machine.",
+    });
     expect((await db.select({ s: jobs.status }).from(jobs).where(eq(jobs.id, jobId)))[0]!.s).toBe("rejected");
-    const toEngineer = await db.select().from(outbox).where(and(eq(outbox.jobId, jobId), eq(outbox.toAddress, "engineer@halvard.example")));
+    const toEngineer = await db
+      .select()
+      .from(outbox)
+      .where(and(eq(outbox.jobId, jobId), eq(outbox.toAddress, "engineer@halvard.example")));
     expect(toEngineer[0]!.textBody).toContain("wrong machine");
   });
 
   it("an amendment is a new revision that names and supersedes the earlier one", async () => {
     const [r1] = await db.select().from(reports).where(eq(reports.jobId, jobId));
     expect((await failure(issueReport(as.engineer!, { jobId, password: PW }))).status).toBe(422);
-    const { reportId, revision } = await issueReport(as.engineer!, { jobId, password: PW, amendmentReason: "Test bore re-measured on the customer's machine." });
+    const { reportId, revision } = await issueReport(as.engineer!, {
+      jobId,
+      password: PW,
+      amendmentReason: "Test bore re-measured on the customer's machine.",
+    });
     expect(revision).toBe(2);
     const v1 = await verifyReport(r1!.id);
     expect(v1.authentic).toBe(true);
     expect(v1.report!.supersededBy).toEqual({ id: reportId, revision: 2 });
     const v2 = await verifyReport(reportId);
     expect(v2.report!.amendmentOf).toEqual({ id: r1!.id, revision: 1 });
-    expect((await failure(respondToReport(as.buyer!, { reportId: r1!.id, decision: "accepted", password: PW }))).status).toBe(403);
+    expect(
+      (await failure(respondToReport(as.buyer!, { reportId: r1!.id, decision: "accepted", password: PW })))
+        .status,
+    ).toBe(403);
     await respondToReport(as.buyer!, { reportId, decision: "accepted", password: PW });
     expect((await db.select({ s: jobs.status }).from(jobs).where(eq(jobs.id, jobId)))[0]!.s).toBe("accepted");
-    expect((await verifyReport(reportId)).signatures!.map((s) => s.meaning)).toContain("Accepted by the customer");
+    expect((await verifyReport(reportId)).signatures!.map((s) => s.meaning)).toContain(
+      "Accepted by the customer",
+    );
   });
 });

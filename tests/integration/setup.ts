@@ -10,7 +10,11 @@ vi.mock("@/lib/auth/session-token", async (importOriginal) => {
   const actual = await importOriginal<typeof import("@/lib/auth/session-token")>();
   return {
     ...actual,
-    readSessionIdentity: vi.fn(async () => (state.__testSessionUserId ? { id: state.__testSessionUserId, signedInAt: state.__testSignedInAt ?? Date.now() } : null)),
+    readSessionIdentity: vi.fn(async () =>
+      state.__testSessionUserId
+        ? { id: state.__testSessionUserId, signedInAt: state.__testSignedInAt ?? Date.now() }
+        : null,
+    ),
   };
 });
 

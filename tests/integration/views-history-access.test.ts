@@ -23,36 +23,112 @@ function save(analysisId: string) {
   const form = new FormData();
   form.set("factor", "300");
   form.set("file", new Blob([new Uint8Array(png())], { type: "image/png" }), "view.png");
-  return saveRoute(request(`/api/analyses/${analysisId}/views`, { method: "POST", body: form }), p(analysisId));
+  return saveRoute(
+    request(`/api/analyses/${analysisId}/views`, { method: "POST", body: form }),
+    p(analysisId),
+  );
 }
 const list = (id: string) => listRoute(request(`/api/analyses/${id}/views`), p(id));
 const image = (id: string) => imageRoute(request(`/api/analysis-views/${id}/image`), p(id));
 const history = (id: string) => historyRoute(request(`/api/heads/${id}/history`), p(id));
 
-type Cell = { email: string | null; save: number; listMarlow: number; imageMarlow: number; imageTollan: number; historyMarlowHead: number; historyTollanHead: number };
+type Cell = {
+  email: string | null;
+  save: number;
+  listMarlow: number;
+  imageMarlow: number;
+  imageTollan: number;
+  historyMarlowHead: number;
+  historyTollanHead: number;
+};
 const CELLS: Record<string, Cell> = {
-  anonymous: { email: null, save: 401, listMarlow: 401, imageMarlow: 401, imageTollan: 401, historyMarlowHead: 401, historyTollanHead: 401 },
-  admin: { email: "admin@halvard.example", save: 403, listMarlow: 200, imageMarlow: 200, imageTollan: 200, historyMarlowHead: 200, historyTollanHead: 200 },
+  anonymous: {
+    email: null,
+    save: 401,
+    listMarlow: 401,
+    imageMarlow: 401,
+    imageTollan: 401,
+    historyMarlowHead: 401,
+    historyTollanHead: 401,
+  },
+  admin: {
+    email: "admin@halvard.example",
+    save: 403,
+    listMarlow: 200,
+    imageMarlow: 200,
+    imageTollan: 200,
+    historyMarlowHead: 200,
+    historyTollanHead: 200,
+  },
   // The installer is assigned to TR-2026-0052 (Marlow) and TR-2026-0048 (Tollan).
-  installer: { email: "installer@halvard.example", save: 403, listMarlow: 200, imageMarlow: 200, imageTollan: 200, historyMarlowHead: 403, historyTollanHead: 403 },
-  inspector: { email: "inspector@halvard.example", save: 403, listMarlow: 200, imageMarlow: 200, imageTollan: 200, historyMarlowHead: 403, historyTollanHead: 403 },
-  engineer: { email: "engineer@halvard.example", save: 201, listMarlow: 200, imageMarlow: 200, imageTollan: 200, historyMarlowHead: 200, historyTollanHead: 200 },
-  "customer (Marlow Creek)": { email: "buyer@marlowcreek.example", save: 403, listMarlow: 200, imageMarlow: 200, imageTollan: 404, historyMarlowHead: 200, historyTollanHead: 404 },
-  "customer (Tollan)": { email: "buyer@tollan.example", save: 404, listMarlow: 404, imageMarlow: 404, imageTollan: 200, historyMarlowHead: 404, historyTollanHead: 200 },
+  installer: {
+    email: "installer@halvard.example",
+    save: 403,
+    listMarlow: 200,
+    imageMarlow: 200,
+    imageTollan: 200,
+    historyMarlowHead: 403,
+    historyTollanHead: 403,
+  },
+  inspector: {
+    email: "inspector@halvard.example",
+    save: 403,
+    listMarlow: 200,
+    imageMarlow: 200,
+    imageTollan: 200,
+    historyMarlowHead: 403,
+    historyTollanHead: 403,
+  },
+  engineer: {
+    email: "engineer@halvard.example",
+    save: 201,
+    listMarlow: 200,
+    imageMarlow: 200,
+    imageTollan: 200,
+    historyMarlowHead: 200,
+    historyTollanHead: 200,
+  },
+  "customer (Marlow Creek)": {
+    email: "buyer@marlowcreek.example",
+    save: 403,
+    listMarlow: 200,
+    imageMarlow: 200,
+    imageTollan: 404,
+    historyMarlowHead: 200,
+    historyTollanHead: 404,
+  },
+  "customer (Tollan)": {
+    email: "buyer@tollan.example",
+    save: 404,
+    listMarlow: 404,
+    imageMarlow: 404,
+    imageTollan: 200,
+    historyMarlowHead: 404,
+    historyTollanHead: 200,
+  },
 };
 
 const ids = { marlowAnalysis: "", marlowView: "", tollanView: "", marlowHead: "", tollanHead: "" };
 
 beforeAll(async () => {
   const job = await jobIdByReference("TR-2026-0052");
-  const [a] = await db.select({ id: analyses.id }).from(analyses).innerJoin(datasets, eq(datasets.id, analyses.datasetId)).where(eq(analyses.jobId, job));
+  const [a] = await db
+    .select({ id: analyses.id })
+    .from(analyses)
+    .innerJoin(datasets, eq(datasets.id, analyses.datasetId))
+    .where(eq(analyses.jobId, job));
   ids.marlowAnalysis = a!.id;
   await signInAs("engineer@halvard.example");
   const m = await save(ids.marlowAnalysis);
   expect(m.status).toBe(201);
   ids.marlowView = (await m.json()).view.id;
   const tollanJob = await jobIdByReference("TR-2026-0048");
-  const up = await upload(tollanJob, Buffer.from(demoSphereProbeCsv()), { kind: "sphere_probe", phase: "pre", units: "mm" }, "tollan-matrix.csv");
+  const up = await upload(
+    tollanJob,
+    Buffer.from(demoSphereProbeCsv()),
+    { kind: "sphere_probe", phase: "pre", units: "mm" },
+    "tollan-matrix.csv",
+  );
   const dsId = (await up.json()).id as string;
   const run = await runRoute(request(`/api/datasets/${dsId}/analyses`, { method: "POST" }), p(dsId));
   const t = await save((await run.json()).analysis.id);
@@ -68,11 +144,13 @@ describe("saved views and head history by role and tenant", () => {
       await signInAs(cell.email);
       const s = await save(ids.marlowAnalysis);
       expect(s.status).toBe(cell.save);
-      if (cell.save === 404) expect(await s.json()).toEqual({ error: { code: "not_found", message: "No such analysis." } });
+      if (cell.save === 404)
+        expect(await s.json()).toEqual({ error: { code: "not_found", message: "No such analysis." } });
       if (cell.save === 403) expect((await s.json()).error.code).toBe("forbidden");
       const l = await list(ids.marlowAnalysis);
       expect(l.status).toBe(cell.listMarlow);
-      if (cell.listMarlow === 200) expect((await l.json()).views.map((v: { id: string }) => v.id)).toContain(ids.marlowView);
+      if (cell.listMarlow === 200)
+        expect((await l.json()).views.map((v: { id: string }) => v.id)).toContain(ids.marlowView);
       for (const [id, expected] of [
         [ids.marlowView, cell.imageMarlow],
         [ids.tollanView, cell.imageTollan],
@@ -80,7 +158,8 @@ describe("saved views and head history by role and tenant", () => {
         const res = await image(id);
         expect(res.status).toBe(expected);
         if (expected === 200) expect(res.headers.get("content-type")).toBe("image/png");
-        if (expected === 404) expect(await res.json()).toEqual({ error: { code: "not_found", message: "No such view." } });
+        if (expected === 404)
+          expect(await res.json()).toEqual({ error: { code: "not_found", message: "No such view." } });
       }
     });
 
@@ -96,17 +175,20 @@ describe("saved views and head history by role and tenant", () => {
         if (expected === 200) {
           expect(body.head.id).toBe(id);
           const refs = body.jobs.map((j: { reference: string }) => j.reference);
-          if (customer === "marlow") expect(refs).toEqual(expect.arrayContaining(["TR-2026-0041", "TR-2026-0052", "TR-2026-0057"]));
+          if (customer === "marlow")
+            expect(refs).toEqual(expect.arrayContaining(["TR-2026-0041", "TR-2026-0052", "TR-2026-0057"]));
           else expect(refs).toContain("TR-2026-0048");
           expect(refs).not.toContain(customer === "marlow" ? "TR-2026-0048" : "TR-2026-0041");
         }
-        if (expected === 404) expect(body).toEqual({ error: { code: "not_found", message: "No such head." } });
+        if (expected === 404)
+          expect(body).toEqual({ error: { code: "not_found", message: "No such head." } });
       }
     });
   }
 
   it("a malformed or unknown head id is 404", async () => {
     await signInAs("engineer@halvard.example");
-    for (const id of ["00000000-0000-4000-8000-000000000000", "not-a-uuid"]) expect((await history(id)).status).toBe(404);
+    for (const id of ["00000000-0000-4000-8000-000000000000", "not-a-uuid"])
+      expect((await history(id)).status).toBe(404);
   });
 });

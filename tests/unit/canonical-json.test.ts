@@ -4,7 +4,9 @@ import { canonicalJson } from "@/lib/canonical-json";
 
 describe("canonical JSON", () => {
   it("sorts keys recursively and drops undefined", () => {
-    expect(canonicalJson({ b: 1, a: { d: [1, { z: 1, y: 2 }], c: undefined } })).toBe('{"a":{"d":[1,{"y":2,"z":1}]},"b":1}');
+    expect(canonicalJson({ b: 1, a: { d: [1, { z: 1, y: 2 }], c: undefined } })).toBe(
+      '{"a":{"d":[1,{"y":2,"z":1}]},"b":1}',
+    );
   });
   it("is independent of key insertion order and parses back to an equal value (property)", () => {
     fc.assert(

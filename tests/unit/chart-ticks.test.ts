@@ -22,7 +22,12 @@ describe("niceTicks", () => {
   });
 
   it("the ticks always include both ends of the data", () => {
-    for (const [lo, hi] of [[-0.7, 51.3], [3.2, 3.9], [-1234, -2], [0.001, 0.0043]] as const) {
+    for (const [lo, hi] of [
+      [-0.7, 51.3],
+      [3.2, 3.9],
+      [-1234, -2],
+      [0.001, 0.0043],
+    ] as const) {
       const t = niceTicks(lo, hi);
       expect(t.min).toBeLessThanOrEqual(lo);
       expect(t.max).toBeGreaterThanOrEqual(hi);

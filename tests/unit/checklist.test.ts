@@ -1,12 +1,32 @@
 // Judging a checklist reading against its step's limits with geometry's ISO 14253-1 decision
 // rules, and deriving the tilt angle from an indicator reading over a travel.
 import { describe, expect, it } from "vitest";
-import { calibrationRefusal, deriveReading, expandedUncertainty, judge, type StepRule } from "@/lib/checklist";
+import {
+  calibrationRefusal,
+  deriveReading,
+  expandedUncertainty,
+  judge,
+  type StepRule,
+} from "@/lib/checklist";
 
 const IN = 25.4;
-const collar: StepRule = { quantityKind: "length", derivation: "direct", distanceMm: null, lowerLimit: null, upperLimit: 0.0005 * IN, decisionRule: "simple" };
+const collar: StepRule = {
+  quantityKind: "length",
+  derivation: "direct",
+  distanceMm: null,
+  lowerLimit: null,
+  upperLimit: 0.0005 * IN,
+  decisionRule: "simple",
+};
 const gap: StepRule = { ...collar, lowerLimit: IN / 16, upperLimit: IN / 8 };
-const tilt: StepRule = { quantityKind: "angle", derivation: "angle_over_distance", distanceMm: 10 * IN, lowerLimit: -15, upperLimit: 15, decisionRule: "simple" };
+const tilt: StepRule = {
+  quantityKind: "angle",
+  derivation: "angle_over_distance",
+  distanceMm: 10 * IN,
+  lowerLimit: -15,
+  upperLimit: 15,
+  decisionRule: "simple",
+};
 
 describe("decision against limits (ISO 14253-1 via geometry/decision)", () => {
   it("collar TIR ≤ 0.0005 in (common practice): 0.0003 in passes, 0.0009 in fails, exactly on the limit conforms", () => {
@@ -66,7 +86,9 @@ describe("calibration", () => {
   const inst = { serial: "DTI-0417", calibrationDueOn: "2026-09-30", retired: false };
   it("an instrument is usable up to and including its due date, and refused the day after with the reason", () => {
     expect(calibrationRefusal(inst, new Date("2026-09-30T23:00:00Z"))).toBeNull();
-    expect(calibrationRefusal(inst, new Date("2026-10-01T07:00:00Z"))).toMatch(/DTI-0417 was due for calibration on 2026-09-30/);
+    expect(calibrationRefusal(inst, new Date("2026-10-01T07:00:00Z"))).toMatch(
+      /DTI-0417 was due for calibration on 2026-09-30/,
+    );
     expect(calibrationRefusal({ ...inst, retired: true }, new Date("2026-01-01"))).toMatch(/retired/);
   });
 });

@@ -12,7 +12,17 @@ describe("guessMapping", () => {
   it("maps common other spellings, with units in brackets ignored", () => {
     const m = guessMapping("sphere_probe", ["C (deg)", "A (deg)", "X [mm]", "Y [mm]", "Z [mm]", "Pt"]);
     expect(m).toMatchObject({ primary_deg: 0, secondary_deg: 1, x: 2, y: 3, z: 4, point: 5 });
-    expect(guessMapping("test_part", ["Feature", "Characteristic", "Nom", "Actual", "Lower Tol", "Upper Tol", "Units"])).toEqual({
+    expect(
+      guessMapping("test_part", [
+        "Feature",
+        "Characteristic",
+        "Nom",
+        "Actual",
+        "Lower Tol",
+        "Upper Tol",
+        "Units",
+      ]),
+    ).toEqual({
       feature: 0,
       characteristic: 1,
       nominal: 2,
@@ -40,7 +50,14 @@ describe("guessMapping", () => {
     expect(required("sphere_probe")).toEqual(["primary_deg", "secondary_deg", "x", "y", "z"]);
     expect(required("tram")).toEqual(["travel", "reading"]);
     expect(required("sweep")).toEqual(["angle_deg", "reading"]);
-    expect(required("test_part")).toEqual(["feature", "characteristic", "nominal", "measured", "lower_tol", "upper_tol"]);
+    expect(required("test_part")).toEqual([
+      "feature",
+      "characteristic",
+      "nominal",
+      "measured",
+      "lower_tol",
+      "upper_tol",
+    ]);
     expect(normaliseHeader("Lower-Tol (mm)")).toBe("lowertol");
   });
 });

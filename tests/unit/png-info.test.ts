@@ -5,7 +5,11 @@ import { PNG } from "pngjs";
 import { describe, expect, it } from "vitest";
 import { crc32, PngError, readPngInfo } from "@/lib/png-info";
 
-function pngOf(width: number, height: number, opts: { colorType?: 0 | 2 | 4 | 6; bitDepth?: 8 | 16 } = {}): Buffer {
+function pngOf(
+  width: number,
+  height: number,
+  opts: { colorType?: 0 | 2 | 4 | 6; bitDepth?: 8 | 16 } = {},
+): Buffer {
   const img = new PNG({ width, height });
   for (let i = 0; i < img.data.length; i++) img.data[i] = (i * 37) & 0xff;
   return PNG.sync.write(img, { colorType: opts.colorType ?? 6, bitDepth: opts.bitDepth ?? 8 });
@@ -45,7 +49,8 @@ describe("readPngInfo", () => {
   it("crc32 equals zlib's CRC-32 on the IHDR chunk and on arbitrary bytes", () => {
     const bytes = pngOf(9, 7);
     expect(crc32(bytes.subarray(12, 29))).toBe(bytes.readUInt32BE(29));
-    for (const s of ["", "a", "123456789", "Trammel saved view"]) expect(crc32(Buffer.from(s))).toBe(zlibCrc32(Buffer.from(s)));
+    for (const s of ["", "a", "123456789", "Trammel saved view"])
+      expect(crc32(Buffer.from(s))).toBe(zlibCrc32(Buffer.from(s)));
     // The check value of CRC-32/ISO-HDLC for "123456789" (from the CRC catalogue, from memory): 0xCBF43926.
     expect(crc32(Buffer.from("123456789"))).toBe(0xcbf43926);
   });

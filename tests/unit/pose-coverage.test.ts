@@ -27,7 +27,9 @@ describe("pose coverage", () => {
   });
 
   it("counts the twelve 30° sectors, the largest gap and the tilt span of a full grid", () => {
-    const c = poseCoverage(...grid([0, 30, 60, 90, 120, 150, 180, 210, 240, 270, 300, 330], [-60, -30, 0, 30, 60], [100, 180]));
+    const c = poseCoverage(
+      ...grid([0, 30, 60, 90, 120, 150, 180, 210, 240, 270, 300, 330], [-60, -30, 0, 30, 60], [100, 180]),
+    );
     expect(c.poses).toBe(120);
     expect(c.primarySectors.every(Boolean)).toBe(true);
     expect(c.largestPrimaryGapDeg).toBe(30);
@@ -36,7 +38,9 @@ describe("pose coverage", () => {
     // Every sector, a 30° gap and 120° of tilt: nothing to add.
     expect(coverageAdvice(c)).toEqual([]);
     // A tilt span under half of ±90° (here 60°) earns advice.
-    const narrow = coverageAdvice(poseCoverage(...grid([0, 30, 60, 90, 120, 150, 180, 210, 240, 270, 300, 330], [-30, 0, 30], [100])));
+    const narrow = coverageAdvice(
+      poseCoverage(...grid([0, 30, 60, 90, 120, 150, 180, 210, 240, 270, 300, 330], [-30, 0, 30], [100])),
+    );
     expect(narrow).toHaveLength(1);
     expect(narrow[0]).toMatch(/−30° … 30° \(60° of travel\)/);
   });

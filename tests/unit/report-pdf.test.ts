@@ -34,7 +34,11 @@ describe("report PDF", () => {
   });
 
   it("numbers its pages as page x of y", () => {
-    const pages = Number(execFileSync("pdfinfo", [path.join(dir, "r.pdf")]).toString().match(/Pages:\s+(\d+)/)![1]);
+    const pages = Number(
+      execFileSync("pdfinfo", [path.join(dir, "r.pdf")])
+        .toString()
+        .match(/Pages:\s+(\d+)/)![1],
+    );
     expect(text).toContain(`Page 1 of ${pages}`);
     expect(text).toContain(`Page ${pages} of ${pages}`);
   });
@@ -53,8 +57,23 @@ describe("report PDF", () => {
   });
 
   it("carries a QR code that decodes to the verify URL", () => {
-    const pages = Number(execFileSync("pdfinfo", [path.join(dir, "r.pdf")]).toString().match(/Pages:\s+(\d+)/)![1]);
-    execFileSync("pdftoppm", ["-png", "-r", "150", "-f", String(pages), "-l", String(pages), "-singlefile", path.join(dir, "r.pdf"), path.join(dir, "last")]);
+    const pages = Number(
+      execFileSync("pdfinfo", [path.join(dir, "r.pdf")])
+        .toString()
+        .match(/Pages:\s+(\d+)/)![1],
+    );
+    execFileSync("pdftoppm", [
+      "-png",
+      "-r",
+      "150",
+      "-f",
+      String(pages),
+      "-l",
+      String(pages),
+      "-singlefile",
+      path.join(dir, "r.pdf"),
+      path.join(dir, "last"),
+    ]);
     const png = PNG.sync.read(readFileSync(path.join(dir, "last.png")));
     const code = jsQR(new Uint8ClampedArray(png.data), png.width, png.height);
     expect(code?.data).toBe(sampleReport.verifyUrl);
@@ -63,7 +82,12 @@ describe("report PDF", () => {
   it("embeds the saved picture of the 3D view at its own size, with its caption (pdfimages lists it)", () => {
     const list = execFileSync("pdfimages", ["-list", path.join(dir, "r.pdf")]).toString("utf8");
     // pdfimages' table: page num type width height …; the QR code is the other image.
-    const sizes = list.split("\n").slice(2).map((l) => l.trim().split(/\s+/)).filter((c) => c.length > 4).map((c) => `${c[3]}x${c[4]}`);
+    const sizes = list
+      .split("\n")
+      .slice(2)
+      .map((l) => l.trim().split(/\s+/))
+      .filter((c) => c.length > 4)
+      .map((c) => `${c[3]}x${c[4]}`);
     expect(sizes).toContain("320x200");
     expect(text).toContain("The 3D view as saved by the engineer, errors × 300");
     expect(text).toContain(`SHA-256 ${samplePngSha256.slice(0, 16)}`);
@@ -83,6 +107,8 @@ describe("report PDF", () => {
   it("refuses a picture whose bytes do not hash to the name the report gives it", async () => {
     const other = Buffer.from(samplePng);
     other.writeUInt8(other.readUInt8(other.length - 20) ^ 0xff, other.length - 20);
-    await expect(renderReportPdf(sampleReport, undefined, new Map([[samplePngSha256, other]]))).rejects.toThrow(/other bytes/);
+    await expect(
+      renderReportPdf(sampleReport, undefined, new Map([[samplePngSha256, other]])),
+    ).rejects.toThrow(/other bytes/);
   });
 });

@@ -1,8 +1,27 @@
 // The role rules of the product brief (roles table and status flow), checked case by case.
 import { describe, expect, it } from "vitest";
-import { allowedTransitions, canReadHeadHistory, canReadRegister, canReadRegisterOf, canSeeJob, canTransition, jobScope, navigationFor, readingsRefusal, ROLES, signatureRefusal, type Actor } from "@/lib/auth/roles";
+import {
+  allowedTransitions,
+  canReadHeadHistory,
+  canReadRegister,
+  canReadRegisterOf,
+  canSeeJob,
+  canTransition,
+  jobScope,
+  navigationFor,
+  readingsRefusal,
+  ROLES,
+  signatureRefusal,
+  type Actor,
+} from "@/lib/auth/roles";
 
-const actor = (role: Actor["role"], customerId: string | null = null): Actor => ({ id: "u1", email: "x@y.example", name: "X", role, customerId });
+const actor = (role: Actor["role"], customerId: string | null = null): Actor => ({
+  id: "u1",
+  email: "x@y.example",
+  name: "X",
+  role,
+  customerId,
+});
 const jobA = { customerId: "cA", assignedInstallerId: "u1" };
 const jobB = { customerId: "cB", assignedInstallerId: "u2" };
 
@@ -47,7 +66,8 @@ describe("status flow", () => {
     }
   });
   it("only customers accept or reject an issued report", () => {
-    for (const r of ROLES.filter((x) => x !== "customer")) expect(allowedTransitions(r, "issued")).toEqual([]);
+    for (const r of ROLES.filter((x) => x !== "customer"))
+      expect(allowedTransitions(r, "issued")).toEqual([]);
   });
 });
 
@@ -55,7 +75,8 @@ describe("navigation and registers", () => {
   it("every role has a jobs entry; only the administrator has the registers", () => {
     for (const r of ROLES) expect(navigationFor(r).some((n) => n.href === "/jobs")).toBe(true);
     expect(navigationFor("admin").some((n) => n.href === "/registers")).toBe(true);
-    for (const r of ROLES.filter((x) => x !== "admin")) expect(navigationFor(r).some((n) => n.href === "/registers")).toBe(false);
+    for (const r of ROLES.filter((x) => x !== "admin"))
+      expect(navigationFor(r).some((n) => n.href === "/registers")).toBe(false);
   });
   it("engineers read the heads register only; customers none", () => {
     expect(canReadRegister("engineer", "heads")).toBe(true);
@@ -63,15 +84,27 @@ describe("navigation and registers", () => {
     expect(canReadRegister("customer", "heads")).toBe(false);
   });
   it("a head's history is read by the office, engineers and its owner, not by installers or inspectors", () => {
-    expect(Object.fromEntries(ROLES.map((r) => [r, canReadHeadHistory(r)]))).toEqual({ admin: true, engineer: true, customer: true, installer: false, inspector: false });
+    expect(Object.fromEntries(ROLES.map((r) => [r, canReadHeadHistory(r)]))).toEqual({
+      admin: true,
+      engineer: true,
+      customer: true,
+      installer: false,
+      inspector: false,
+    });
   });
 });
 
 describe("who signs what (21 CFR 11.50 meanings)", () => {
-  const job = (status: import("@/lib/auth/roles").JobStatus) => ({ status, customerId: "cA", assignedInstallerId: "u1" });
+  const job = (status: import("@/lib/auth/roles").JobStatus) => ({
+    status,
+    customerId: "cA",
+    assignedInstallerId: "u1",
+  });
   it("the assigned installer signs performed; another installer cannot", () => {
     expect(signatureRefusal(actor("installer"), "performed", job("measuring"))).toBeNull();
-    expect(signatureRefusal({ ...actor("installer"), id: "u9" }, "performed", job("measuring"))).toMatch(/assigned/);
+    expect(signatureRefusal({ ...actor("installer"), id: "u9" }, "performed", job("measuring"))).toMatch(
+      /assigned/,
+    );
   });
   it("only an inspector signs inspected, and not after issue", () => {
     expect(signatureRefusal(actor("inspector"), "inspected", job("in_review"))).toBeNull();
@@ -92,17 +125,22 @@ describe("who signs what (21 CFR 11.50 meanings)", () => {
 });
 
 describe("checklist readings and the status moves of the checklist", () => {
-  const job = (status: Parameters<typeof readingsRefusal>[1]["status"], assignedInstallerId: string | null = "u1") => ({ status, assignedInstallerId });
+  const job = (
+    status: Parameters<typeof readingsRefusal>[1]["status"],
+    assignedInstallerId: string | null = "u1",
+  ) => ({ status, assignedInstallerId });
   it("the assigned installer records readings while the job is draft or measuring", () => {
     expect(readingsRefusal(actor("installer"), job("measuring"))).toBeNull();
     expect(readingsRefusal(actor("installer"), job("draft"))).toBeNull();
   });
   it("readings are locked from review on, including an issued job", () => {
-    for (const s of ["in_review", "approved", "issued", "accepted", "rejected"] as const) expect(readingsRefusal(actor("installer"), job(s))).toMatch(/locked/);
+    for (const s of ["in_review", "approved", "issued", "accepted", "rejected"] as const)
+      expect(readingsRefusal(actor("installer"), job(s))).toMatch(/locked/);
   });
   it("another installer, an inspector, an engineer and a customer may not record", () => {
     expect(readingsRefusal(actor("installer"), job("measuring", "u2"))).toMatch(/assigned/);
-    for (const r of ["inspector", "engineer", "customer"] as const) expect(readingsRefusal(actor(r, "cA"), job("measuring"))).not.toBeNull();
+    for (const r of ["inspector", "engineer", "customer"] as const)
+      expect(readingsRefusal(actor(r, "cA"), job("measuring"))).not.toBeNull();
     expect(readingsRefusal(actor("admin"), job("measuring", "u2"))).toBeNull();
   });
   it("an installer submits for review but cannot approve; only an engineer approves", () => {

@@ -18,7 +18,10 @@ const signedInAt = 1_764_000_000_000;
 describe("session cookie reader", () => {
   it("reads the id and sign-in time from a token next-auth encoded", async () => {
     const token = await encode({ token: { sub: id, role: "engineer", signedInAt }, secret });
-    expect(await identityFromCookies({ "next-auth.session-token": token }, secret)).toEqual({ id, signedInAt });
+    expect(await identityFromCookies({ "next-auth.session-token": token }, secret)).toEqual({
+      id,
+      signedInAt,
+    });
   });
 
   it("refuses a token made with another secret, a tampered one and an expired one", async () => {
@@ -45,13 +48,19 @@ describe("session cookie reader", () => {
   it("joins a cookie next-auth split into numbered chunks", async () => {
     const token = await encode({ token: { sub: id, signedInAt }, secret });
     const half = Math.floor(token.length / 2);
-    const jar = { "next-auth.session-token.1": token.slice(half), "next-auth.session-token.0": token.slice(0, half) };
+    const jar = {
+      "next-auth.session-token.1": token.slice(half),
+      "next-auth.session-token.0": token.slice(0, half),
+    };
     expect(await identityFromCookies(jar, secret)).toEqual({ id, signedInAt });
   });
 
   it("a token without a sign-in time counts as signed in at 0, so any revocation ends it", async () => {
     const token = await encode({ token: { sub: id }, secret });
-    expect(await identityFromCookies({ "next-auth.session-token": token }, secret)).toEqual({ id, signedInAt: 0 });
+    expect(await identityFromCookies({ "next-auth.session-token": token }, secret)).toEqual({
+      id,
+      signedInAt: 0,
+    });
   });
 });
 
@@ -76,7 +85,10 @@ describe("decoded tokens are remembered by their text", () => {
   });
 
   it("does not remember what failed: the same forged cookie is decrypted, and refused, every time", async () => {
-    const forged = await encode({ token: { sub: id, signedInAt }, secret: "another-secret-0123456789abcdef" });
+    const forged = await encode({
+      token: { sub: id, signedInAt },
+      secret: "another-secret-0123456789abcdef",
+    });
     const jar = { "next-auth.session-token": forged };
     const before = decodes();
     expect(await identityFromCookies(jar, secret)).toBeNull();
@@ -95,7 +107,10 @@ describe("decoded tokens are remembered by their text", () => {
     const first = { "next-auth.session-token": await encode({ token: { sub: id, signedInAt }, secret }) };
     await identityFromCookies(first, secret);
     for (let i = 0; i < MAX_CACHED_TOKENS; i++) {
-      await identityFromCookies({ "next-auth.session-token": await encode({ token: { sub: id, signedInAt: i }, secret }) }, secret);
+      await identityFromCookies(
+        { "next-auth.session-token": await encode({ token: { sub: id, signedInAt: i }, secret }) },
+        secret,
+      );
     }
     const before = decodes();
     expect(await identityFromCookies(first, secret)).toEqual({ id, signedInAt });

@@ -7,7 +7,15 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { keyIdOf, loadOrCreateSigningKey, sha256Hex, signManifest, verifyManifest, verifySignedPdf, type SignatureManifest } from "@/lib/report/signing";
+import {
+  keyIdOf,
+  loadOrCreateSigningKey,
+  sha256Hex,
+  signManifest,
+  verifyManifest,
+  verifySignedPdf,
+  type SignatureManifest,
+} from "@/lib/report/signing";
 
 const PKCS8_ED25519_PREFIX = "302e020100300506032b657004220420";
 const SPKI_ED25519_PREFIX = "302a300506032b6570032100";
@@ -15,9 +23,15 @@ const SPKI_ED25519_PREFIX = "302a300506032b6570032100";
 describe("Ed25519 (RFC 8032 §7.1)", () => {
   it("TEST 1: empty message gives the published signature and public key", () => {
     const secret = "9d61b19deffd5a60ba844af492ec2cc44449c5697b326919703bac031cae7f60";
-    const key = createPrivateKey({ key: Buffer.from(PKCS8_ED25519_PREFIX + secret, "hex"), format: "der", type: "pkcs8" });
+    const key = createPrivateKey({
+      key: Buffer.from(PKCS8_ED25519_PREFIX + secret, "hex"),
+      format: "der",
+      type: "pkcs8",
+    });
     const pub = createPublicKey(key).export({ type: "spki", format: "der" }).toString("hex");
-    expect(pub).toBe(SPKI_ED25519_PREFIX + "d75a980182b10ab7d54bfed3c964073a0ee172f3daa62325af021a68f707511a");
+    expect(pub).toBe(
+      SPKI_ED25519_PREFIX + "d75a980182b10ab7d54bfed3c964073a0ee172f3daa62325af021a68f707511a",
+    );
     expect(edSign(null, Buffer.alloc(0), key).toString("hex")).toBe(
       "e5564300c360ac729086e2cc806e828a84877f1eb8e5d974d873e065224901555fb8821590a33bacc61e39701cf9b46bd25bf5f0595bbe24655141438e7a100b",
     );
@@ -58,10 +72,15 @@ describe("signing keys", () => {
   it("several processes starting together on an empty folder end up with one and the same key", async () => {
     const shared = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-keys-race-"));
     const script = path.join(shared, "..", `start-${path.basename(shared)}.ts`);
-    writeFileSync(script, `import { loadOrCreateSigningKey } from ${JSON.stringify(path.resolve("lib/report/signing.ts"))};\nprocess.stdout.write(loadOrCreateSigningKey(${JSON.stringify(shared)}).keyId);\n`);
+    writeFileSync(
+      script,
+      `import { loadOrCreateSigningKey } from ${JSON.stringify(path.resolve("lib/report/signing.ts"))};\nprocess.stdout.write(loadOrCreateSigningKey(${JSON.stringify(shared)}).keyId);\n`,
+    );
     const run = () =>
       new Promise<string>((resolve, reject) =>
-        execFile("npx", ["tsx", "--tsconfig", "tsconfig.json", script], { cwd: process.cwd() }, (err, out) => (err ? reject(err) : resolve(out.trim()))),
+        execFile("npx", ["tsx", "--tsconfig", "tsconfig.json", script], { cwd: process.cwd() }, (err, out) =>
+          err ? reject(err) : resolve(out.trim()),
+        ),
       );
     const ids = await Promise.all([run(), run(), run(), run()]);
     expect(new Set(ids).size).toBe(1);
@@ -87,8 +106,12 @@ describe("signed report verification", () => {
   });
 
   it("fails when the PDF is truncated or appended to", () => {
-    expect(verifySignedPdf(pdf.subarray(0, pdf.length - 1), manifest, signature, key.publicKey).ok).toBe(false);
-    expect(verifySignedPdf(Buffer.concat([pdf, Buffer.from("\n")]), manifest, signature, key.publicKey).ok).toBe(false);
+    expect(verifySignedPdf(pdf.subarray(0, pdf.length - 1), manifest, signature, key.publicKey).ok).toBe(
+      false,
+    );
+    expect(
+      verifySignedPdf(Buffer.concat([pdf, Buffer.from("\n")]), manifest, signature, key.publicKey).ok,
+    ).toBe(false);
   });
 
   it("fails when any manifest field is edited", () => {
@@ -104,7 +127,8 @@ describe("signed report verification", () => {
       { meaning: "inspected" },
       { signedAtUtc: "2026-12-02T07:15:01.000Z" },
     ];
-    for (const e of edits) expect(verifyManifest({ ...manifest, ...e }, signature, key.publicKey)).toBe(false);
+    for (const e of edits)
+      expect(verifyManifest({ ...manifest, ...e }, signature, key.publicKey)).toBe(false);
   });
 
   it("fails when signatures are swapped between reports", () => {
@@ -115,7 +139,9 @@ describe("signed report verification", () => {
   });
 
   it("fails against another key pair", () => {
-    const stranger = loadOrCreateSigningKey(mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-keys-")));
+    const stranger = loadOrCreateSigningKey(
+      mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-keys-")),
+    );
     expect(verifyManifest({ ...manifest, keyId: stranger.keyId }, signature, stranger.publicKey)).toBe(false);
     expect(verifyManifest(manifest, signature, stranger.publicKey)).toBe(false);
   });

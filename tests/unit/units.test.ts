@@ -2,7 +2,15 @@
 // Pound Agreement 1959; NIST SP 811, B.8), so a tenth (0.0001 in) is 2.54 µm; 1″ = π/648000 rad
 // (definition), so 1″ ≈ 4.8481 µm/m (check-values.md, "Exact definitions").
 import { describe, expect, it } from "vitest";
-import { arcsecToUmPerM, displayUnit, formatLimits, formatValue, fromCanonical, roundForDisplay, toCanonical } from "@/lib/units";
+import {
+  arcsecToUmPerM,
+  displayUnit,
+  formatLimits,
+  formatValue,
+  fromCanonical,
+  roundForDisplay,
+  toCanonical,
+} from "@/lib/units";
 
 describe("conversions (NIST SP 811: 1 in = 25.4 mm exactly)", () => {
   it("1 in is 25.4 mm and a tenth is 0.00254 mm", () => {

@@ -19,10 +19,17 @@ type Props = { searchParams: Promise<Record<string, string | string[] | undefine
 export default async function JobsPage({ searchParams }: Props) {
   const user = await requirePageUser("/jobs");
   const raw = await searchParams;
-  const filters = paramsSchema.parse(Object.fromEntries(Object.entries(raw).map(([k, v]) => [k, Array.isArray(v) ? v[0] : v])));
+  const filters = paramsSchema.parse(
+    Object.fromEntries(Object.entries(raw).map(([k, v]) => [k, Array.isArray(v) ? v[0] : v])),
+  );
   const rows = await listJobs(user, filters);
-  const params = new URLSearchParams(Object.entries(filters).filter((e): e is [string, string] => typeof e[1] === "string"));
-  const sort = { sort: filters.sort ?? "updated", dir: filters.dir ?? (filters.sort ? "asc" : "desc") } as const;
+  const params = new URLSearchParams(
+    Object.entries(filters).filter((e): e is [string, string] => typeof e[1] === "string"),
+  );
+  const sort = {
+    sort: filters.sort ?? "updated",
+    dir: filters.dir ?? (filters.sort ? "asc" : "desc"),
+  } as const;
   const heading = user.role === "installer" ? "My jobs" : user.role === "customer" ? "Our jobs" : "Jobs";
 
   return (
@@ -32,17 +39,30 @@ export default async function JobsPage({ searchParams }: Props) {
           <h1 className="text-2xl font-semibold">{heading}</h1>
           <p className="text-sm text-graphite-600">
             {rows.length} {rows.length === 1 ? "job" : "jobs"}
-            {user.role === "installer" ? " assigned to you" : user.role === "customer" ? " for your company" : ""}
+            {user.role === "installer"
+              ? " assigned to you"
+              : user.role === "customer"
+                ? " for your company"
+                : ""}
           </p>
         </div>
         <form className="flex flex-wrap items-end gap-2" role="search" aria-label="Filter jobs">
           <label className="space-y-1">
             <span className="block text-xs font-medium text-graphite-600">Search</span>
-            <input name="q" defaultValue={filters.q ?? ""} placeholder="Reference, machine, head…" className="min-h-touch w-56 rounded-lg border border-graphite-300 bg-white px-3 text-sm" />
+            <input
+              name="q"
+              defaultValue={filters.q ?? ""}
+              placeholder="Reference, machine, head…"
+              className="min-h-touch w-56 rounded-lg border border-graphite-300 bg-white px-3 text-sm"
+            />
           </label>
           <label className="space-y-1">
             <span className="block text-xs font-medium text-graphite-600">Status</span>
-            <select name="status" defaultValue={filters.status ?? ""} className="min-h-touch rounded-lg border border-graphite-300 bg-white px-3 text-sm">
+            <select
+              name="status"
+              defaultValue={filters.status ?? ""}
+              className="min-h-touch rounded-lg border border-graphite-300 bg-white px-3 text-sm"
+            >
               <option value="">Any status</option>
               {JOB_STATUSES.map((s) => (
                 <option key={s} value={s}>
@@ -53,7 +73,9 @@ export default async function JobsPage({ searchParams }: Props) {
           </label>
           {filters.sort ? <input type="hidden" name="sort" value={filters.sort} /> : null}
           {filters.dir ? <input type="hidden" name="dir" value={filters.dir} /> : null}
-          <button className="min-h-touch rounded-lg bg-graphite-800 px-4 text-sm font-semibold text-white hover:bg-graphite-900">Filter</button>
+          <button className="min-h-touch rounded-lg bg-graphite-800 px-4 text-sm font-semibold text-white hover:bg-graphite-900">
+            Filter
+          </button>
         </form>
       </div>
       <JobsTable rows={rows} sort={sort} params={params} showCustomer={user.role !== "customer"} />

@@ -12,84 +12,127 @@ import { inviteUser, updateUser } from "@/db/queries/users-admin";
 import { action } from "@/lib/actions";
 import { invalid } from "@/lib/errors";
 import { toCanonical } from "@/lib/units";
-import { customerCreateSchema, headCreateSchema, instrumentCreateSchema, machineCreateSchema, siteCreateSchema, userInviteSchema, userUpdateSchema } from "@/lib/validations/registers";
+import {
+  customerCreateSchema,
+  headCreateSchema,
+  instrumentCreateSchema,
+  machineCreateSchema,
+  siteCreateSchema,
+  userInviteSchema,
+  userUpdateSchema,
+} from "@/lib/validations/registers";
 
-export const createInstrumentAction = action({ schema: instrumentCreateSchema, roles: ["admin"] }, async (input, actor) => {
-  const row = await createInstrument(actor, input);
-  revalidatePath("/registers/instruments");
-  return { id: row.id };
-});
+export const createInstrumentAction = action(
+  { schema: instrumentCreateSchema, roles: ["admin"] },
+  async (input, actor) => {
+    const row = await createInstrument(actor, input);
+    revalidatePath("/registers/instruments");
+    return { id: row.id };
+  },
+);
 
-export const inviteUserAction = action({ schema: userInviteSchema, roles: ["admin"] }, async (input, actor) => {
-  const { userId } = await inviteUser(actor, input);
-  revalidatePath("/registers/people");
-  // The token goes out only in the e-mail.
-  return { userId };
-});
+export const inviteUserAction = action(
+  { schema: userInviteSchema, roles: ["admin"] },
+  async (input, actor) => {
+    const { userId } = await inviteUser(actor, input);
+    revalidatePath("/registers/people");
+    // The token goes out only in the e-mail.
+    return { userId };
+  },
+);
 
-export const updateUserAction = action({ schema: userUpdateSchema, roles: ["admin"] }, async (input, actor) => {
-  const r = await updateUser(actor, input);
-  revalidatePath("/registers/people");
-  return r;
-});
+export const updateUserAction = action(
+  { schema: userUpdateSchema, roles: ["admin"] },
+  async (input, actor) => {
+    const r = await updateUser(actor, input);
+    revalidatePath("/registers/people");
+    return r;
+  },
+);
 
-const limit = z.preprocess((v) => (v === "" || v == null ? null : typeof v === "string" ? v.replace(",", ".") : v), z.coerce.number({ message: "Enter a number or leave it empty." }).nullable());
+const limit = z.preprocess(
+  (v) => (v === "" || v == null ? null : typeof v === "string" ? v.replace(",", ".") : v),
+  z.coerce.number({ message: "Enter a number or leave it empty." }).nullable(),
+);
 
 /** Form fields step.<position>.<field>; lengths in `unit` (mm or in), angles in arcsec. */
-const templateVersionSchema = z.object({ templateId: z.uuid(), unit: z.enum(["mm", "in"]) }).catchall(z.unknown());
+const templateVersionSchema = z
+  .object({ templateId: z.uuid(), unit: z.enum(["mm", "in"]) })
+  .catchall(z.unknown());
 
 const LIMIT_SOURCES = ["standard", "maker_manual", "common_practice", "customer_spec"] as const;
 function invalidSource(p: number): never {
-  throw invalid(`Step ${p}: say where the limit comes from.`, [{ field: `step.${p}.limitSource`, message: "Choose a source." }]);
+  throw invalid(`Step ${p}: say where the limit comes from.`, [
+    { field: `step.${p}.limitSource`, message: "Choose a source." },
+  ]);
 }
 
-export const createTemplateVersionAction = action({ schema: templateVersionSchema, roles: ["admin"] }, async (input, actor) => {
-  const positions = new Set<number>();
-  for (const k of Object.keys(input)) {
-    const m = /^step\.(\d+)\./.exec(k);
-    if (m) positions.add(Number(m[1]));
-  }
-  const edits = [...positions].map((p) => {
-    const get = (f: string) => (input as Record<string, unknown>)[`step.${p}.${f}`];
-    const kind = get("kind") === "angle" ? "angle" : "length";
-    const conv = (v: number | null) => (v == null ? null : kind === "angle" ? v : toCanonical(v, input.unit));
-    const lo = limit.safeParse(get("lowerLimit"));
-    const hi = limit.safeParse(get("upperLimit"));
-    if (!lo.success || !hi.success) throw invalid(`Step ${p}: a limit is not a number.`, [{ field: `step.${p}.${lo.success ? "upperLimit" : "lowerLimit"}`, message: "Enter a number or leave it empty." }]);
-    return {
-      position: p,
-      lowerLimit: conv(lo.data),
-      upperLimit: conv(hi.data),
-      decisionRule: get("decisionRule") === "guarded" ? ("guarded" as const) : ("simple" as const),
-      limitSource: LIMIT_SOURCES.find((x) => x === get("limitSource")) ?? invalidSource(p),
-      limitSourceNote: typeof get("limitSourceNote") === "string" && (get("limitSourceNote") as string).trim() ? (get("limitSourceNote") as string).trim().slice(0, 500) : null,
-    };
-  });
-  // Head parameter limits: fields param.<key>.*, in µm or arc seconds as the key says.
-  const keys = new Set<string>();
-  for (const k of Object.keys(input)) {
-    const m = /^param\.([a-z_]+)\./.exec(k);
-    if (m) keys.add(m[1]!);
-  }
-  const parameterEdits = [...keys].map((key) => {
-    const get = (f: string) => (input as Record<string, unknown>)[`param.${key}.${f}`];
-    const lo = limit.safeParse(get("lowerLimit"));
-    const hi = limit.safeParse(get("upperLimit"));
-    if (!lo.success || !hi.success) throw invalid(`${key}: a limit is not a number.`, [{ field: `param.${key}.${lo.success ? "upperLimit" : "lowerLimit"}`, message: "Enter a number or leave it empty." }]);
-    const note = get("limitSourceNote");
-    return {
-      parameter: key as HeadParameterKey,
-      lowerLimit: lo.data,
-      upperLimit: hi.data,
-      decisionRule: get("decisionRule") === "guarded" ? ("guarded" as const) : ("simple" as const),
-      limitSource: LIMIT_SOURCES.find((x) => x === get("limitSource")) ?? "customer_spec",
-      limitSourceNote: typeof note === "string" && note.trim() ? note.trim().slice(0, 500) : null,
-    };
-  });
-  const t = await createTemplateVersion(actor, input.templateId, edits, parameterEdits);
-  revalidatePath("/registers/procedures");
-  return { id: t.id, version: t.version };
-});
+export const createTemplateVersionAction = action(
+  { schema: templateVersionSchema, roles: ["admin"] },
+  async (input, actor) => {
+    const positions = new Set<number>();
+    for (const k of Object.keys(input)) {
+      const m = /^step\.(\d+)\./.exec(k);
+      if (m) positions.add(Number(m[1]));
+    }
+    const edits = [...positions].map((p) => {
+      const get = (f: string) => (input as Record<string, unknown>)[`step.${p}.${f}`];
+      const kind = get("kind") === "angle" ? "angle" : "length";
+      const conv = (v: number | null) =>
+        v == null ? null : kind === "angle" ? v : toCanonical(v, input.unit);
+      const lo = limit.safeParse(get("lowerLimit"));
+      const hi = limit.safeParse(get("upperLimit"));
+      if (!lo.success || !hi.success)
+        throw invalid(`Step ${p}: a limit is not a number.`, [
+          {
+            field: `step.${p}.${lo.success ? "upperLimit" : "lowerLimit"}`,
+            message: "Enter a number or leave it empty.",
+          },
+        ]);
+      return {
+        position: p,
+        lowerLimit: conv(lo.data),
+        upperLimit: conv(hi.data),
+        decisionRule: get("decisionRule") === "guarded" ? ("guarded" as const) : ("simple" as const),
+        limitSource: LIMIT_SOURCES.find((x) => x === get("limitSource")) ?? invalidSource(p),
+        limitSourceNote:
+          typeof get("limitSourceNote") === "string" && (get("limitSourceNote") as string).trim()
+            ? (get("limitSourceNote") as string).trim().slice(0, 500)
+            : null,
+      };
+    });
+    // Head parameter limits: fields param.<key>.*, in µm or arc seconds as the key says.
+    const keys = new Set<string>();
+    for (const k of Object.keys(input)) {
+      const m = /^param\.([a-z_]+)\./.exec(k);
+      if (m) keys.add(m[1]!);
+    }
+    const parameterEdits = [...keys].map((key) => {
+      const get = (f: string) => (input as Record<string, unknown>)[`param.${key}.${f}`];
+      const lo = limit.safeParse(get("lowerLimit"));
+      const hi = limit.safeParse(get("upperLimit"));
+      if (!lo.success || !hi.success)
+        throw invalid(`${key}: a limit is not a number.`, [
+          {
+            field: `param.${key}.${lo.success ? "upperLimit" : "lowerLimit"}`,
+            message: "Enter a number or leave it empty.",
+          },
+        ]);
+      const note = get("limitSourceNote");
+      return {
+        parameter: key as HeadParameterKey,
+        lowerLimit: lo.data,
+        upperLimit: hi.data,
+        decisionRule: get("decisionRule") === "guarded" ? ("guarded" as const) : ("simple" as const),
+        limitSource: LIMIT_SOURCES.find((x) => x === get("limitSource")) ?? "customer_spec",
+        limitSourceNote: typeof note === "string" && note.trim() ? note.trim().slice(0, 500) : null,
+      };
+    });
+    const t = await createTemplateVersion(actor, input.templateId, edits, parameterEdits);
+    revalidatePath("/registers/procedures");
+    return { id: t.id, version: t.version };
+  },
+);
 
 const jobCreateSchema = z.object({
   templateId: z.uuid({ message: "Choose a procedure." }),
@@ -107,30 +150,51 @@ export const createJobAction = action({ schema: jobCreateSchema, roles: ["admin"
   return { id: job.id, reference: job.reference };
 });
 
-export const mountHeadAction = action({ schema: z.object({ headId: z.uuid(), machineId: z.preprocess((v) => (v === "" ? null : v), z.uuid().nullable()) }), roles: ["admin"] }, async ({ headId, machineId }, actor) => {
-  const r = await mountHead(actor, headId, machineId);
-  revalidatePath(`/registers/heads/${headId}`);
-  return r;
-});
+export const mountHeadAction = action(
+  {
+    schema: z.object({
+      headId: z.uuid(),
+      machineId: z.preprocess((v) => (v === "" ? null : v), z.uuid().nullable()),
+    }),
+    roles: ["admin"],
+  },
+  async ({ headId, machineId }, actor) => {
+    const r = await mountHead(actor, headId, machineId);
+    revalidatePath(`/registers/heads/${headId}`);
+    return r;
+  },
+);
 
-export const createCustomerAction = action({ schema: customerCreateSchema, roles: ["admin"] }, async (input, actor) => {
-  const r = await createCustomer(actor, input);
-  revalidatePath("/registers");
-  return { id: r.id };
-});
-export const createSiteAction = action({ schema: siteCreateSchema, roles: ["admin"] }, async (input, actor) => {
-  const r = await createSite(actor, input);
-  revalidatePath("/registers");
-  return { id: r.id };
-});
-export const createMachineAction = action({ schema: machineCreateSchema, roles: ["admin"] }, async (input, actor) => {
-  const r = await createMachine(actor, input);
-  revalidatePath("/registers");
-  return { id: r.id };
-});
-export const createHeadAction = action({ schema: headCreateSchema, roles: ["admin"] }, async (input, actor) => {
-  const r = await createHead(actor, input);
-  revalidatePath("/registers");
-  revalidatePath("/registers/heads");
-  return { id: r.id };
-});
+export const createCustomerAction = action(
+  { schema: customerCreateSchema, roles: ["admin"] },
+  async (input, actor) => {
+    const r = await createCustomer(actor, input);
+    revalidatePath("/registers");
+    return { id: r.id };
+  },
+);
+export const createSiteAction = action(
+  { schema: siteCreateSchema, roles: ["admin"] },
+  async (input, actor) => {
+    const r = await createSite(actor, input);
+    revalidatePath("/registers");
+    return { id: r.id };
+  },
+);
+export const createMachineAction = action(
+  { schema: machineCreateSchema, roles: ["admin"] },
+  async (input, actor) => {
+    const r = await createMachine(actor, input);
+    revalidatePath("/registers");
+    return { id: r.id };
+  },
+);
+export const createHeadAction = action(
+  { schema: headCreateSchema, roles: ["admin"] },
+  async (input, actor) => {
+    const r = await createHead(actor, input);
+    revalidatePath("/registers");
+    revalidatePath("/registers/heads");
+    return { id: r.id };
+  },
+);

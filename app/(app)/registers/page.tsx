@@ -14,41 +14,76 @@ export const metadata: Metadata = { title: "Registers" };
 export default async function RegistersPage() {
   const user = await requirePageUser("/registers");
   if (!canReadRegister(user.role, "customers")) notFound();
-  const [customers, machines, heads, siteOptions] = await Promise.all([listCustomersWithSites(user), listMachines(user), listHeads(user), listSitesForSelect()]);
+  const [customers, machines, heads, siteOptions] = await Promise.all([
+    listCustomersWithSites(user),
+    listMachines(user),
+    listHeads(user),
+    listSitesForSelect(),
+  ]);
   return (
     <div className="space-y-8">
       <div>
         <h1 className="text-2xl font-semibold">Registers</h1>
-        <p className="text-sm text-graphite-600">Customers and their sites, host machines and heads. People, instruments and procedures have their own tabs.</p>
+        <p className="text-sm text-graphite-600">
+          Customers and their sites, host machines and heads. People, instruments and procedures have their
+          own tabs.
+        </p>
       </div>
       <section className="space-y-3" aria-labelledby="customers">
-        <h2 id="customers" className="text-lg font-semibold">Customers</h2>
-        <SimpleTable caption="Customers" rows={customers} columns={[{ header: "Name", cell: (c) => c.name }, { header: "Sites", cell: (c) => c.sites.join(", ") || "—" }, { header: "Contact", cell: (c) => c.contactEmail ?? "—" }]} />
+        <h2 id="customers" className="text-lg font-semibold">
+          Customers
+        </h2>
+        <SimpleTable
+          caption="Customers"
+          rows={customers}
+          columns={[
+            { header: "Name", cell: (c) => c.name },
+            { header: "Sites", cell: (c) => c.sites.join(", ") || "—" },
+            { header: "Contact", cell: (c) => c.contactEmail ?? "—" },
+          ]}
+        />
       </section>
       <section className="space-y-3" aria-labelledby="machines">
-        <h2 id="machines" className="text-lg font-semibold">Host machines</h2>
+        <h2 id="machines" className="text-lg font-semibold">
+          Host machines
+        </h2>
         <SimpleTable
           caption="Host machines"
           rows={machines}
           columns={[
             { header: "Machine", cell: (m) => m.name },
             { header: "Kind", cell: (m) => m.kind },
-            { header: "Builder and model", cell: (m) => [m.builder, m.model].filter(Boolean).join(" ") || "—" },
+            {
+              header: "Builder and model",
+              cell: (m) => [m.builder, m.model].filter(Boolean).join(" ") || "—",
+            },
             { header: "Serial", cell: (m) => <span className="num">{m.serial ?? "—"}</span> },
             { header: "Customer, site", cell: (m) => `${m.customerName}, ${m.siteName}` },
           ]}
         />
       </section>
       <section className="space-y-3" aria-labelledby="heads">
-        <h2 id="heads" className="text-lg font-semibold">Heads</h2>
+        <h2 id="heads" className="text-lg font-semibold">
+          Heads
+        </h2>
         <HeadsTable rows={heads} />
       </section>
       {user.role === "admin" ? (
         <section className="grid gap-6 lg:grid-cols-2" aria-label="Add to the registers">
-          <Card title="Add a customer"><CustomerForm /></Card>
-          <Card title="Add a site"><SiteForm customers={customers.map((c) => ({ id: c.id, label: c.name }))} /></Card>
-          <Card title="Add a host machine" className="lg:col-span-2"><MachineForm sites={siteOptions.map((s) => ({ id: s.id, label: `${s.customerName}, ${s.name}` }))} /></Card>
-          <Card title="Add a head" className="lg:col-span-2"><HeadForm /></Card>
+          <Card title="Add a customer">
+            <CustomerForm />
+          </Card>
+          <Card title="Add a site">
+            <SiteForm customers={customers.map((c) => ({ id: c.id, label: c.name }))} />
+          </Card>
+          <Card title="Add a host machine" className="lg:col-span-2">
+            <MachineForm
+              sites={siteOptions.map((s) => ({ id: s.id, label: `${s.customerName}, ${s.name}` }))}
+            />
+          </Card>
+          <Card title="Add a head" className="lg:col-span-2">
+            <HeadForm />
+          </Card>
         </section>
       ) : null}
     </div>

@@ -24,9 +24,12 @@ export default async function LoginPage({ searchParams }: Props) {
           <span className="text-2xl font-semibold tracking-tight text-white">Trammel</span>
         </div>
         <div className="max-w-md space-y-4">
-          <p className="text-3xl font-semibold leading-tight text-white">Every reading against its tolerance. Every head proven, signed and accepted.</p>
+          <p className="text-3xl font-semibold leading-tight text-white">
+            Every reading against its tolerance. Every head proven, signed and accepted.
+          </p>
           <p className="text-graphite-300">
-            Record the installation of two-axis heads, fit their kinematic errors from probe data, and hand the customer an acceptance report that still verifies years from now.
+            Record the installation of two-axis heads, fit their kinematic errors from probe data, and hand
+            the customer an acceptance report that still verifies years from now.
           </p>
         </div>
         <svg viewBox="0 0 400 160" className="w-full max-w-lg text-graphite-700" aria-hidden="true">
@@ -34,7 +37,15 @@ export default async function LoginPage({ searchParams }: Props) {
           <path d="M20 120 C 120 112, 220 128, 380 118" fill="none" stroke="#e08e0b" strokeWidth="2.5" />
           <path d="M20 120 L 380 120" fill="none" stroke="#9fb3c8" strokeWidth="1.5" strokeDasharray="6 5" />
           {Array.from({ length: 13 }, (_, i) => (
-            <line key={i} x1={20 + i * 30} y1={114} x2={20 + i * 30} y2={126} stroke="currentColor" strokeWidth="1" />
+            <line
+              key={i}
+              x1={20 + i * 30}
+              y1={114}
+              x2={20 + i * 30}
+              y2={126}
+              stroke="currentColor"
+              strokeWidth="1"
+            />
           ))}
         </svg>
       </section>
@@ -46,7 +57,9 @@ export default async function LoginPage({ searchParams }: Props) {
           </div>
           <div>
             <h1 className="text-2xl font-semibold text-graphite-900">Sign in</h1>
-            <p className="mt-1 text-sm text-graphite-600">Use the e-mail address your service company or administrator registered.</p>
+            <p className="mt-1 text-sm text-graphite-600">
+              Use the e-mail address your service company or administrator registered.
+            </p>
           </div>
           <SignInForm callbackUrl={safeCallback(callbackUrl)} initialError={error} />
         </div>

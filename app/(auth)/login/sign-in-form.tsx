@@ -5,12 +5,15 @@ import { useState } from "react";
 
 const MESSAGES: Record<string, string> = {
   CredentialsSignin: "That e-mail and password do not match an active account.",
-  RateLimited: "Too many failed sign-ins for this account or from this address. Wait 15 minutes and try again, or ask your administrator to reset the password.",
+  RateLimited:
+    "Too many failed sign-ins for this account or from this address. Wait 15 minutes and try again, or ask your administrator to reset the password.",
   SessionRequired: "Sign in to continue.",
 };
 
 export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string; initialError?: string }) {
-  const [error, setError] = useState<string | null>(initialError ? (MESSAGES[initialError] ?? MESSAGES.CredentialsSignin!) : null);
+  const [error, setError] = useState<string | null>(
+    initialError ? (MESSAGES[initialError] ?? MESSAGES.CredentialsSignin!) : null,
+  );
   const [pending, setPending] = useState(false);
 
   async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
@@ -18,7 +21,12 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
     const form = new FormData(e.currentTarget);
     setPending(true);
     setError(null);
-    const res = await signIn("credentials", { email: String(form.get("email") ?? ""), password: String(form.get("password") ?? ""), redirect: false, callbackUrl });
+    const res = await signIn("credentials", {
+      email: String(form.get("email") ?? ""),
+      password: String(form.get("password") ?? ""),
+      redirect: false,
+      callbackUrl,
+    });
     if (res?.ok && !res.error) {
       window.location.assign(callbackUrl);
       return;
@@ -30,19 +38,39 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
   return (
     <form onSubmit={onSubmit} className="space-y-5" noValidate>
       {error ? (
-        <p role="alert" data-testid="sign-in-error" className="rounded-card border border-fail-600/40 bg-fail-50 px-4 py-3 text-sm text-fail-700">
+        <p
+          role="alert"
+          data-testid="sign-in-error"
+          className="rounded-card border border-fail-600/40 bg-fail-50 px-4 py-3 text-sm text-fail-700"
+        >
           {error}
         </p>
       ) : null}
       <label className="block space-y-1.5">
         <span className="text-sm font-medium text-graphite-800">E-mail</span>
-        <input name="email" type="email" autoComplete="username" required className="block min-h-touch w-full rounded-lg border border-graphite-300 bg-white px-3 text-base text-graphite-900 shadow-sm focus:border-accent-500" />
+        <input
+          name="email"
+          type="email"
+          autoComplete="username"
+          required
+          className="block min-h-touch w-full rounded-lg border border-graphite-300 bg-white px-3 text-base text-graphite-900 shadow-sm focus:border-accent-500"
+        />
       </label>
       <label className="block space-y-1.5">
         <span className="text-sm font-medium text-graphite-800">Password</span>
-        <input name="password" type="password" autoComplete="current-password" required className="block min-h-touch w-full rounded-lg border border-graphite-300 bg-white px-3 text-base text-graphite-900 shadow-sm focus:border-accent-500" />
+        <input
+          name="password"
+          type="password"
+          autoComplete="current-password"
+          required
+          className="block min-h-touch w-full rounded-lg border border-graphite-300 bg-white px-3 text-base text-graphite-900 shadow-sm focus:border-accent-500"
+        />
       </label>
-      <button type="submit" disabled={pending} className="flex min-h-touch w-full items-center justify-center rounded-lg bg-accent-600 px-4 text-base font-semibold text-white shadow-sm hover:bg-accent-700 disabled:opacity-60">
+      <button
+        type="submit"
+        disabled={pending}
+        className="flex min-h-touch w-full items-center justify-center rounded-lg bg-accent-600 px-4 text-base font-semibold text-white shadow-sm hover:bg-accent-700 disabled:opacity-60"
+      >
         {pending ? "Signing in…" : "Sign in"}
       </button>
     </form>

@@ -19,6 +19,10 @@ export async function setPasswordAction(raw: unknown): Promise<ActionResult<{ em
   } catch (err) {
     if (err instanceof AppError) return { ok: false, message: err.message, code: err.code };
     console.error("[set-password] unexpected error", err);
-    return { ok: false, message: "Something went wrong on the server; nothing was saved.", code: "server_error" };
+    return {
+      ok: false,
+      message: "Something went wrong on the server; nothing was saved.",
+      code: "server_error",
+    };
   }
 }

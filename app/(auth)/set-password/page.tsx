@@ -15,7 +15,11 @@ export default async function SetPasswordPage({ searchParams }: Props) {
           <LogoMark className="h-9 w-9" />
           <h1 className="text-xl font-semibold">Set your Trammel password</h1>
         </div>
-        {token ? <SetPasswordForm token={token} /> : <p className="text-sm text-graphite-700">This page needs the link from your invitation e-mail.</p>}
+        {token ? (
+          <SetPasswordForm token={token} />
+        ) : (
+          <p className="text-sm text-graphite-700">This page needs the link from your invitation e-mail.</p>
+        )}
       </div>
     </main>
   );

@@ -12,5 +12,8 @@ export async function GET() {
   } catch {
     dbOk = false;
   }
-  return Response.json({ ok: dbOk, db: dbOk ? "up" : "down" }, { status: dbOk ? 200 : 503, headers: { "Cache-Control": "no-store" } });
+  return Response.json(
+    { ok: dbOk, db: dbOk ? "up" : "down" },
+    { status: dbOk ? 200 : 503, headers: { "Cache-Control": "no-store" } },
+  );
 }

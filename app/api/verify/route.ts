@@ -12,7 +12,8 @@ export const POST = route(async (req) => {
   let bytes: Uint8Array;
   if ((req.headers.get("content-type") ?? "").startsWith("multipart/form-data")) {
     const file = (await req.formData()).get("file");
-    if (!(file instanceof File)) throw invalid("Attach the PDF as the field 'file'.", [{ field: "file", message: "Required." }]);
+    if (!(file instanceof File))
+      throw invalid("Attach the PDF as the field 'file'.", [{ field: "file", message: "Required." }]);
     bytes = new Uint8Array(await file.arrayBuffer());
   } else {
     bytes = new Uint8Array(await req.arrayBuffer());

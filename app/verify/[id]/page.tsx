@@ -16,7 +16,12 @@ export default async function VerifyIdPage({ params }: Props) {
       <div>
         <h1 className="text-2xl font-semibold">Report verification</h1>
         <p className="text-graphite-600">
-          This is the record held for report id <span className="num break-all">{id}</span>. To check a copy you hold, <Link href="/verify" className="text-accent-700 underline">upload the PDF</Link>: its bytes must match the SHA-256 below.
+          This is the record held for report id <span className="num break-all">{id}</span>. To check a copy
+          you hold,{" "}
+          <Link href="/verify" className="text-accent-700 underline">
+            upload the PDF
+          </Link>
+          : its bytes must match the SHA-256 below.
         </p>
       </div>
       <VerificationResultView result={result} />

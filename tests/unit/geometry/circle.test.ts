@@ -17,7 +17,14 @@ const GGS: readonly (readonly [number, number])[] = [
 
 type M3 = readonly [Vec3, Vec3, Vec3];
 function rotation(ax: number, ay: number, az: number): M3 {
-  const [ca, sa, cb, sb, cc, sc] = [Math.cos(ax), Math.sin(ax), Math.cos(ay), Math.sin(ay), Math.cos(az), Math.sin(az)];
+  const [ca, sa, cb, sb, cc, sc] = [
+    Math.cos(ax),
+    Math.sin(ax),
+    Math.cos(ay),
+    Math.sin(ay),
+    Math.cos(az),
+    Math.sin(az),
+  ];
   // Rz·Ry·Rx
   return [
     [cc * cb, cc * sb * sa - sc * ca, cc * sb * ca + sc * sa],
@@ -30,7 +37,11 @@ const apply = (R: M3, p: Vec3, t: Vec3): Vec3 => [
   R[1][0] * p[0] + R[1][1] * p[1] + R[1][2] * p[2] + t[1],
   R[2][0] * p[0] + R[2][1] * p[1] + R[2][2] * p[2] + t[2],
 ];
-const cols = (pts: readonly Vec3[]) => ({ xMm: pts.map((p) => p[0]), yMm: pts.map((p) => p[1]), zMm: pts.map((p) => p[2]) });
+const cols = (pts: readonly Vec3[]) => ({
+  xMm: pts.map((p) => p[0]),
+  yMm: pts.map((p) => p[1]),
+  zMm: pts.map((p) => p[2]),
+});
 
 describe("fitCircle", () => {
   it("Gander, Golub & Strebel (1994): geometric fit centre (4.7398, 2.9835), r 4.7142, in the plane z = 0", () => {
@@ -47,8 +58,16 @@ describe("fitCircle", () => {
   it("the same six points rotated and translated in 3-D give the same centre (mapped) and radius", () => {
     fc.assert(
       fc.property(
-        fc.tuple(fc.double({ min: -3, max: 3, noNaN: true }), fc.double({ min: -3, max: 3, noNaN: true }), fc.double({ min: -3, max: 3, noNaN: true })),
-        fc.tuple(fc.double({ min: -500, max: 500, noNaN: true }), fc.double({ min: -500, max: 500, noNaN: true }), fc.double({ min: -500, max: 500, noNaN: true })),
+        fc.tuple(
+          fc.double({ min: -3, max: 3, noNaN: true }),
+          fc.double({ min: -3, max: 3, noNaN: true }),
+          fc.double({ min: -3, max: 3, noNaN: true }),
+        ),
+        fc.tuple(
+          fc.double({ min: -500, max: 500, noNaN: true }),
+          fc.double({ min: -500, max: 500, noNaN: true }),
+          fc.double({ min: -500, max: 500, noNaN: true }),
+        ),
         (ang, t) => {
           const R = rotation(...ang);
           const f = fitCircle(cols(GGS.map(([x, y]) => apply(R, [x, y, 0], t))));
@@ -56,7 +75,9 @@ describe("fitCircle", () => {
           for (let k = 0; k < 3; k++) expect(Math.abs(f.centre_mm[k]! - c[k]!)).toBeLessThan(2e-6);
           expect(Math.abs(f.radius_mm - 4.714226)).toBeLessThan(2e-6);
           const nz = R.map((row) => row[2]);
-          expect(Math.abs(Math.abs(f.normal[0] * nz[0]! + f.normal[1] * nz[1]! + f.normal[2] * nz[2]!) - 1)).toBeLessThan(1e-12);
+          expect(
+            Math.abs(Math.abs(f.normal[0] * nz[0]! + f.normal[1] * nz[1]! + f.normal[2] * nz[2]!) - 1),
+          ).toBeLessThan(1e-12);
         },
       ),
       { numRuns: 50 },
@@ -79,9 +100,16 @@ describe("fitCircle", () => {
   it("row order does not change the fit (property, within 1e-9)", () => {
     fc.assert(
       fc.property(fc.integer({ min: 0, max: 1000 }), (seed) => {
-        const pts: Vec3[] = GGS.map(([x, y], i) => [x * 10 + Math.sin(seed + i), y * 10, 0.01 * Math.cos(seed * i)]);
+        const pts: Vec3[] = GGS.map(([x, y], i) => [
+          x * 10 + Math.sin(seed + i),
+          y * 10,
+          0.01 * Math.cos(seed * i),
+        ]);
         const a = fitCircle(cols(pts));
-        const perm = pts.map((p, i) => ({ p, k: Math.sin(seed * 7.1 + i * 3.3) })).sort((u, v) => u.k - v.k).map((e) => e.p);
+        const perm = pts
+          .map((p, i) => ({ p, k: Math.sin(seed * 7.1 + i * 3.3) }))
+          .sort((u, v) => u.k - v.k)
+          .map((e) => e.p);
         const b = fitCircle(cols(perm));
         for (let k = 0; k < 3; k++) {
           expect(Math.abs(a.centre_mm[k]! - b.centre_mm[k]!)).toBeLessThan(1e-9);
@@ -95,7 +123,16 @@ describe("fitCircle", () => {
   });
 
   it("refuses collinear points", () => {
-    expect(() => fitCircle(cols([[0, 0, 0], [1, 1, 1], [2, 2, 2], [3, 3, 3]]))).toThrow(/line/);
+    expect(() =>
+      fitCircle(
+        cols([
+          [0, 0, 0],
+          [1, 1, 1],
+          [2, 2, 2],
+          [3, 3, 3],
+        ]),
+      ),
+    ).toThrow(/line/);
   });
 });
 
@@ -107,7 +144,10 @@ describe("axisSquareness and pivotLengthMm", () => {
     expect(axisSquareness([0, 0, 1], [1, 0, 0]).out_of_square_arcsec).toBe(0);
   });
   it("pivot length is the distance from the fitted tilt axis to the tip point", () => {
-    expect(pivotLengthMm({ centre_mm: [0, 5, 200], normal: [1, 0, 0] }, [33, 5, 47.6])).toBeCloseTo(152.4, 12);
+    expect(pivotLengthMm({ centre_mm: [0, 5, 200], normal: [1, 0, 0] }, [33, 5, 47.6])).toBeCloseTo(
+      152.4,
+      12,
+    );
   });
   it("fitted secondary axis from a circle of tip points gives the pivot length back", () => {
     // Tip points of a 152.4 mm pivot swung about an axis along X through (0, 0, 300).

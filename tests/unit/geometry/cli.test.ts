@@ -11,26 +11,44 @@ const fx = (name: string) => join(root, "tests/fixtures/csv", name);
 
 function run(...args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
   return new Promise((resolve) => {
-    execFile("npx", ["tsx", "lib/cli/geometry.ts", ...args], { cwd: root, timeout: 60_000 }, (error, stdout, stderr) => {
-      const code = error ? (typeof error.code === "number" ? error.code : -1) : 0;
-      resolve({ code, stdout, stderr });
-    });
+    execFile(
+      "npx",
+      ["tsx", "lib/cli/geometry.ts", ...args],
+      { cwd: root, timeout: 60_000 },
+      (error, stdout, stderr) => {
+        const code = error ? (typeof error.code === "number" ? error.code : -1) : 0;
+        resolve({ code, stdout, stderr });
+      },
+    );
   });
 }
 
 async function inProcess(...args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
   let stdout = "";
   let stderr = "";
-  const code = await main(args, (s) => void (stdout += s), (s) => void (stderr += s));
+  const code = await main(
+    args,
+    (s) => void (stdout += s),
+    (s) => void (stderr += s),
+  );
   return { code, stdout, stderr };
 }
 
 describe("npm run geometry", { timeout: 60_000 }, () => {
   it("child process: tram prints the documented JSON (NIST Norris); bad input exits 2 with stderr", async () => {
-    const [tram, bad] = await Promise.all([run("tram", fx("tram-norris.csv")), run("tram", fx("sphere-ragged.csv"))]);
+    const [tram, bad] = await Promise.all([
+      run("tram", fx("tram-norris.csv")),
+      run("tram", fx("sphere-ragged.csv")),
+    ]);
     expect(tram.code).toBe(0);
     const t = JSON.parse(tram.stdout);
-    expect(Object.keys(t)).toEqual(["slope_um_per_m", "slope_u_um_per_m", "angle_arcsec", "straightness_um", "tir_um"]);
+    expect(Object.keys(t)).toEqual([
+      "slope_um_per_m",
+      "slope_u_um_per_m",
+      "angle_arcsec",
+      "straightness_um",
+      "tir_um",
+    ]);
     // NIST StRD Norris: slope 1.00211681802045 µm/mm = 1002.11681802045 µm/m.
     expect(t.slope_um_per_m).toBeCloseTo(1002.11681802045, 8);
     expect(bad.code).toBe(2);
@@ -39,18 +57,19 @@ describe("npm run geometry", { timeout: 60_000 }, () => {
   });
 
   it("circle, tram, sweep, test-part print the documented JSON; bad input exits 2 with a message", async () => {
-    const [circle, circleIn, tram, sweep, part, bad, badNumber, noRadius, unknown, missing] = await Promise.all([
-      inProcess("circle", fx("circle-gander.csv")),
-      inProcess("circle", fx("circle-gander.csv"), "--units", "in"),
-      inProcess("tram", fx("tram-norris.csv")),
-      inProcess("sweep", fx("sweep-good.csv"), "--radius-mm", "100"),
-      inProcess("test-part", fx("test-part-good.csv"), "--rule", "guarded", "--u-mm", "0.003"),
-      inProcess("tram", fx("sphere-ragged.csv")),
-      inProcess("circle", fx("sphere-bad-numbers.csv")),
-      inProcess("sweep", fx("sweep-good.csv")),
-      inProcess("bogus", fx("sweep-good.csv")),
-      inProcess("tram", fx("no-such-file.csv")),
-    ]);
+    const [circle, circleIn, tram, sweep, part, bad, badNumber, noRadius, unknown, missing] =
+      await Promise.all([
+        inProcess("circle", fx("circle-gander.csv")),
+        inProcess("circle", fx("circle-gander.csv"), "--units", "in"),
+        inProcess("tram", fx("tram-norris.csv")),
+        inProcess("sweep", fx("sweep-good.csv"), "--radius-mm", "100"),
+        inProcess("test-part", fx("test-part-good.csv"), "--rule", "guarded", "--u-mm", "0.003"),
+        inProcess("tram", fx("sphere-ragged.csv")),
+        inProcess("circle", fx("sphere-bad-numbers.csv")),
+        inProcess("sweep", fx("sweep-good.csv")),
+        inProcess("bogus", fx("sweep-good.csv")),
+        inProcess("tram", fx("no-such-file.csv")),
+      ]);
 
     // Gander, Golub & Strebel (1994) six points in the plane z = 10: centre (4.7398, 2.9835), r 4.7142.
     expect(circle.code).toBe(0);
@@ -68,14 +87,27 @@ describe("npm run geometry", { timeout: 60_000 }, () => {
     // NIST StRD Norris: slope 1.00211681802045 (µm per mm → µm/m × 1000), sd 4.29796848199937e-4.
     expect(tram.code).toBe(0);
     const t = JSON.parse(tram.stdout);
-    expect(Object.keys(t)).toEqual(["slope_um_per_m", "slope_u_um_per_m", "angle_arcsec", "straightness_um", "tir_um"]);
+    expect(Object.keys(t)).toEqual([
+      "slope_um_per_m",
+      "slope_u_um_per_m",
+      "angle_arcsec",
+      "straightness_um",
+      "tir_um",
+    ]);
     expect(t.slope_um_per_m).toBeCloseTo(1002.11681802045, 8);
     expect(t.slope_u_um_per_m).toBeCloseTo(0.429796848199937, 10);
 
     // tilt = TIR / sweep diameter (trade trigonometry): 20 µm over 200 mm = 100 µm/m, high side at 90°.
     expect(sweep.code).toBe(0);
     const s = JSON.parse(sweep.stdout);
-    expect(Object.keys(s)).toEqual(["tilt_um_per_m", "tilt_arcsec", "direction_deg", "tir_um", "flatness_ls_um", "flatness_mz_um"]);
+    expect(Object.keys(s)).toEqual([
+      "tilt_um_per_m",
+      "tilt_arcsec",
+      "direction_deg",
+      "tir_um",
+      "flatness_ls_um",
+      "flatness_mz_um",
+    ]);
     expect(s.tilt_um_per_m).toBeCloseTo(100, 9);
     expect(s.direction_deg).toBeCloseTo(90, 9);
     expect(s.tir_um).toBe(20);

@@ -27,23 +27,33 @@ describe("readTramCsv", () => {
   });
 
   it("text after a closing quote is an error", () => {
-    const e = thrown(() => readTramCsv('travel,reading,note\n0,1,"a"b\n', { travelUnits: "mm", readingUnits: "um" }));
+    const e = thrown(() =>
+      readTramCsv('travel,reading,note\n0,1,"a"b\n', { travelUnits: "mm", readingUnits: "um" }),
+    );
     expect(e.code).toBe("quote");
     expect(e.issues).toEqual([
-      { row: 2, column: "note", message: "text after the closing quote; quote the whole field and double any quote inside it" },
+      {
+        row: 2,
+        column: "note",
+        message: "text after the closing quote; quote the whole field and double any quote inside it",
+      },
     ]);
   });
 
   it("mixed line endings (LF, CR LF, lone CR) all end a row; no row is lost", () => {
-    const d = readTramCsv("travel,reading\r0,1\n1,2\r\n2,3\r3,4\r4,5\n", { travelUnits: "mm", readingUnits: "um" });
+    const d = readTramCsv("travel,reading\r0,1\n1,2\r\n2,3\r3,4\r4,5\n", {
+      travelUnits: "mm",
+      readingUnits: "um",
+    });
     expect(Array.from(d.travelMm)).toEqual([0, 1, 2, 3, 4]);
     expect(Array.from(d.sourceRow!)).toEqual([2, 3, 4, 5, 6]);
   });
 
   it("bad reading units option", () => {
-    expect(thrown(() => readTramCsv("travel,reading\n0,1\n", { travelUnits: "mm", readingUnits: "nm" as "um" })).code).toBe(
-      "bad_option",
-    );
+    expect(
+      thrown(() => readTramCsv("travel,reading\n0,1\n", { travelUnits: "mm", readingUnits: "nm" as "um" }))
+        .code,
+    ).toBe("bad_option");
   });
 });
 
@@ -56,7 +66,11 @@ describe("readSweepCsv", () => {
   it("missing reading column", () => {
     const e = thrown(() => readSweepCsv("angle_deg,value\n0,1\n", { readingUnits: "um" }));
     expect(e.issues).toEqual([
-      { row: 1, column: "reading", message: "the required column 'reading' is missing (expected: angle_deg, reading)" },
+      {
+        row: 1,
+        column: "reading",
+        message: "the required column 'reading' is missing (expected: angle_deg, reading)",
+      },
     ]);
   });
 });
@@ -81,7 +95,9 @@ describe("readTestPartCsv", () => {
     expect(rows.warnings).toEqual([]);
   });
   it("unit column is optional", () => {
-    const rows = readTestPartCsv("feature,characteristic,nominal,measured,lower_tol,upper_tol\nA,len,1,1,-0.1,0.1\n");
+    const rows = readTestPartCsv(
+      "feature,characteristic,nominal,measured,lower_tol,upper_tol\nA,len,1,1,-0.1,0.1\n",
+    );
     expect(rows[0]!.unit).toBe("mm");
   });
   it("empty names, an unknown unit, an empty upper_tol and lower above upper are errors", () => {
@@ -92,7 +108,9 @@ describe("readTestPartCsv", () => {
     );
     expect(e.issues).toEqual([{ row: 4, column: "upper_tol", message: "empty; a number is required" }]);
     const f = thrown(() =>
-      readTestPartCsv("feature,characteristic,nominal,measured,lower_tol,upper_tol,unit\n,len,1,1,-0.1,0.1,mm\nA,,1,1,0.2,0.1,cm\n"),
+      readTestPartCsv(
+        "feature,characteristic,nominal,measured,lower_tol,upper_tol,unit\n,len,1,1,-0.1,0.1,mm\nA,,1,1,0.2,0.1,cm\n",
+      ),
     );
     expect(f.code).toBe("bad_value");
     expect(f.issues).toEqual([
@@ -109,6 +127,12 @@ describe("readPointsCsv", () => {
     const d = readPointsCsv(fixture("sphere-good.csv"), { units: "in" });
     expect(d.rows).toBe(3);
     expect(d.xMm[0]).toBeCloseTo(100.001 * 25.4, 10); // 1 in = 25.4 mm (NIST SP 811)
-    expect(d.warnings.map((w) => w.column)).toEqual(["primary_deg", "secondary_deg", "point", "repeat", "tool_mm"]);
+    expect(d.warnings.map((w) => w.column)).toEqual([
+      "primary_deg",
+      "secondary_deg",
+      "point",
+      "repeat",
+      "tool_mm",
+    ]);
   });
 });

@@ -5,7 +5,26 @@ import { describe, expect, it } from "vitest";
 import { GeometryError, readSphereProbeCsv, readTestPartCsv, readTramCsv } from "@/geometry";
 
 const HEADER = "primary_deg,secondary_deg,x,y,z";
-const piece = fc.constantFrom(",", ";", '"', '""', "\n", "\r\n", "\r", " ", "1", "-2.5", "1,5", "1e3", "NaN", "Infinity", "x", "\ufeff", "", "0.");
+const piece = fc.constantFrom(
+  ",",
+  ";",
+  '"',
+  '""',
+  "\n",
+  "\r\n",
+  "\r",
+  " ",
+  "1",
+  "-2.5",
+  "1,5",
+  "1e3",
+  "NaN",
+  "Infinity",
+  "x",
+  "\ufeff",
+  "",
+  "0.",
+);
 const csvish = fc.oneof(
   fc.string({ maxLength: 80 }),
   fc.array(piece, { maxLength: 40 }).map((a) => a.join("")),
@@ -36,15 +55,25 @@ describe("CSV readers on arbitrary text", () => {
     fc.assert(
       fc.property(csvish, fc.constantFrom("point" as const, "comma" as const), (text, decimal) => {
         check(() => readSphereProbeCsv(text, { units: "in", decimal }));
-        check(() => readTramCsv(text.replace(HEADER, "travel,reading,note"), { travelUnits: "mm", readingUnits: "um", decimal }));
-        try {
-          const rows = readTestPartCsv(text.replace(HEADER, "feature,characteristic,nominal,measured,lower_tol,upper_tol"), {
+        check(() =>
+          readTramCsv(text.replace(HEADER, "travel,reading,note"), {
+            travelUnits: "mm",
+            readingUnits: "um",
             decimal,
-          });
+          }),
+        );
+        try {
+          const rows = readTestPartCsv(
+            text.replace(HEADER, "feature,characteristic,nominal,measured,lower_tol,upper_tol"),
+            {
+              decimal,
+            },
+          );
           for (const r of rows) expect(Number.isFinite(r.measured) && Number.isFinite(r.upperTol)).toBe(true);
         } catch (e) {
           expect(e).toBeInstanceOf(GeometryError);
-          for (const i of (e as GeometryError).issues) expect(i.row !== undefined || i.column !== undefined).toBe(true);
+          for (const i of (e as GeometryError).issues)
+            expect(i.row !== undefined || i.column !== undefined).toBe(true);
         }
       }),
       { numRuns: 400 },
@@ -53,12 +82,18 @@ describe("CSV readers on arbitrary text", () => {
 
   it("round-trips every double written by JavaScript (correctly rounded parsing, ECMA-262 Number)", () => {
     fc.assert(
-      fc.property(fc.array(fc.double({ noNaN: true, noDefaultInfinity: true }), { minLength: 5, maxLength: 5 }), (v) => {
-        const d = readSphereProbeCsv(`${HEADER}\n${v.map((x) => (Object.is(x, -0) ? "-0" : String(x))).join(",")}\n`, {
-          units: "mm",
-        });
-        expect([d.primaryDeg[0], d.secondaryDeg[0], d.xMm[0], d.yMm[0], d.zMm[0]]).toEqual(v);
-      }),
+      fc.property(
+        fc.array(fc.double({ noNaN: true, noDefaultInfinity: true }), { minLength: 5, maxLength: 5 }),
+        (v) => {
+          const d = readSphereProbeCsv(
+            `${HEADER}\n${v.map((x) => (Object.is(x, -0) ? "-0" : String(x))).join(",")}\n`,
+            {
+              units: "mm",
+            },
+          );
+          expect([d.primaryDeg[0], d.secondaryDeg[0], d.xMm[0], d.yMm[0], d.zMm[0]]).toEqual(v);
+        },
+      ),
       { numRuns: 300 },
     );
   });

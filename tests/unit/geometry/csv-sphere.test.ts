@@ -19,7 +19,9 @@ describe("readSphereProbeCsv", () => {
   });
 
   it("converts inch coordinates exactly (1 in = 25.4 mm, NIST SP 811); tool_mm stays mm", () => {
-    const d = readSphereProbeCsv("primary_deg,secondary_deg,x,y,z,tool_mm\n0,0,1,-2.5,0.0001,10\n", { units: "in" });
+    const d = readSphereProbeCsv("primary_deg,secondary_deg,x,y,z,tool_mm\n0,0,1,-2.5,0.0001,10\n", {
+      units: "in",
+    });
     expect(Array.from(d.xMm)).toEqual([25.4]);
     expect(Array.from(d.yMm)).toEqual([-63.5]);
     expect(d.zMm[0]).toBeCloseTo(0.00254, 15);
@@ -27,7 +29,10 @@ describe("readSphereProbeCsv", () => {
   });
 
   it("UTF-8 BOM, semicolons, mixed-case padded header, CRLF, trailing blank lines, decimal comma allowed", () => {
-    const d = readSphereProbeCsv(fixture("sphere-bom-semicolon-decimal-comma.csv"), { units: "mm", decimal: "comma" });
+    const d = readSphereProbeCsv(fixture("sphere-bom-semicolon-decimal-comma.csv"), {
+      units: "mm",
+      decimal: "comma",
+    });
     expect(d.rows).toBe(2);
     expect(Array.from(d.xMm)).toEqual([100.001, 0.001]);
     expect(Array.from(d.yMm)).toEqual([200.002, -0.25]);
@@ -36,7 +41,9 @@ describe("readSphereProbeCsv", () => {
   });
 
   it("decimal comma in a semicolon file without the option is an error naming row and column", () => {
-    const e = thrown(() => readSphereProbeCsv(fixture("sphere-bom-semicolon-decimal-comma.csv"), { units: "mm" }));
+    const e = thrown(() =>
+      readSphereProbeCsv(fixture("sphere-bom-semicolon-decimal-comma.csv"), { units: "mm" }),
+    );
     expect(e.code).toBe("decimal_comma");
     expect(e.issues).toEqual([
       {
@@ -68,10 +75,14 @@ describe("readSphereProbeCsv", () => {
   });
 
   it("decimal comma (quoted) in a comma file is an error", () => {
-    const e = thrown(() => readSphereProbeCsv(fixture("sphere-decimal-comma-in-comma-file.csv"), { units: "mm" }));
+    const e = thrown(() =>
+      readSphereProbeCsv(fixture("sphere-decimal-comma-in-comma-file.csv"), { units: "mm" }),
+    );
     expect(e.code).toBe("decimal_comma");
     expect(e.message).toBe("row 5, column x: '1,25' uses a decimal comma; write a decimal point (1.25)");
-    expect(e.issues).toEqual([{ row: 5, column: "x", message: "'1,25' uses a decimal comma; write a decimal point (1.25)" }]);
+    expect(e.issues).toEqual([
+      { row: 5, column: "x", message: "'1,25' uses a decimal comma; write a decimal point (1.25)" },
+    ]);
   });
 
   it("the decimal-comma option with a comma-separated file is refused", () => {
@@ -85,7 +96,11 @@ describe("readSphereProbeCsv", () => {
       readSphereProbeCsv("primary_deg;secondary_deg;x;y;z\n0;0;1.5;2;3\n", { units: "mm", decimal: "comma" }),
     );
     expect(e.issues).toEqual([
-      { row: 2, column: "x", message: "'1.5' uses a decimal point, but the decimal-comma option was chosen for this file" },
+      {
+        row: 2,
+        column: "x",
+        message: "'1.5' uses a decimal point, but the decimal-comma option was chosen for this file",
+      },
     ]);
   });
 
@@ -104,7 +119,9 @@ describe("readSphereProbeCsv", () => {
   it("duplicated column (case-insensitive)", () => {
     const e = thrown(() => readSphereProbeCsv(fixture("sphere-duplicate-column.csv"), { units: "mm" }));
     expect(e.code).toBe("duplicate_column");
-    expect(e.issues).toEqual([{ row: 1, column: "X", message: "the column 'x' appears more than once in the header" }]);
+    expect(e.issues).toEqual([
+      { row: 1, column: "X", message: "the column 'x' appears more than once in the header" },
+    ]);
   });
 
   it("text, NaN, Infinity, empty and overflowing numbers: all collected", () => {
@@ -149,7 +166,9 @@ describe("readSphereProbeCsv", () => {
   });
 
   it("unknown columns and interior blank rows are warnings, not errors", () => {
-    const d = readSphereProbeCsv("primary_deg,secondary_deg,x,y,z,probe\n0,0,1,2,3,a\n\n90,0,1,2,3,b\n", { units: "mm" });
+    const d = readSphereProbeCsv("primary_deg,secondary_deg,x,y,z,probe\n0,0,1,2,3,a\n\n90,0,1,2,3,b\n", {
+      units: "mm",
+    });
     expect(d.rows).toBe(2);
     expect(Array.from(d.sourceRow!)).toEqual([2, 4]);
     expect(d.warnings).toEqual([
@@ -159,9 +178,12 @@ describe("readSphereProbeCsv", () => {
   });
 
   it("accepts the number grammar: signs, exponents, leading/trailing point, spaces, quoted numbers", () => {
-    const d = readSphereProbeCsv('primary_deg,secondary_deg,x,y,z\n+1, -2 ,.5,5.,"1.5e-3"\n-0,1E+2,12345678901234567890,0.1,-1e-310\n', {
-      units: "mm",
-    });
+    const d = readSphereProbeCsv(
+      'primary_deg,secondary_deg,x,y,z\n+1, -2 ,.5,5.,"1.5e-3"\n-0,1E+2,12345678901234567890,0.1,-1e-310\n',
+      {
+        units: "mm",
+      },
+    );
     expect(Array.from(d.primaryDeg)).toEqual([1, -0]);
     expect(Array.from(d.secondaryDeg)).toEqual([-2, 100]);
     expect(Array.from(d.xMm)).toEqual([0.5, 12345678901234567890]);
@@ -170,12 +192,16 @@ describe("readSphereProbeCsv", () => {
   });
 
   it("rejects hexadecimal, thousands separators and stray signs", () => {
-    const e = thrown(() => readSphereProbeCsv("primary_deg,secondary_deg,x,y,z\n0x10,1 000,-,1e,+-1\n", { units: "mm" }));
+    const e = thrown(() =>
+      readSphereProbeCsv("primary_deg,secondary_deg,x,y,z\n0x10,1 000,-,1e,+-1\n", { units: "mm" }),
+    );
     expect(e.issues.map((i) => i.column)).toEqual(["primary_deg", "secondary_deg", "x", "y", "z"]);
   });
 
   it("bad units option", () => {
-    expect(thrown(() => readSphereProbeCsv(fixture("sphere-good.csv"), { units: "cm" as "mm" })).code).toBe("bad_option");
+    expect(thrown(() => readSphereProbeCsv(fixture("sphere-good.csv"), { units: "cm" as "mm" })).code).toBe(
+      "bad_option",
+    );
   });
 
   it("stops after 50 issues and says so", () => {

@@ -45,13 +45,17 @@ describe("decide (ISO 14253-1)", () => {
   });
 
   it("U larger than half the tolerance leaves no pass zone (guarded)", () => {
-    expect(decide({ measured: 10, lower: 9.99, upper: 10.01, U: 0.02, rule: "guarded" }).decision).toBe("undecided");
+    expect(decide({ measured: 10, lower: 9.99, upper: 10.01, U: 0.02, rule: "guarded" }).decision).toBe(
+      "undecided",
+    );
   });
 
   it("refuses impossible input", () => {
     expect(() => decide({ measured: 1, lower: 2, upper: 1, U: 0, rule: "simple" })).toThrow(GeometryError);
     expect(() => decide({ measured: 1, lower: 0, upper: 2, U: -1, rule: "guarded" })).toThrow(GeometryError);
     expect(() => decide({ measured: NaN, lower: 0, upper: 2, U: 0, rule: "guarded" })).toThrow(GeometryError);
-    expect(() => decide({ measured: 1, lower: 0, upper: 2, U: 0, rule: "strict" as "simple" })).toThrow(GeometryError);
+    expect(() => decide({ measured: 1, lower: 0, upper: 2, U: 0, rule: "strict" as "simple" })).toThrow(
+      GeometryError,
+    );
   });
 });

@@ -11,9 +11,19 @@ const dir = mkdtempSync(join(tmpdir(), "trammel-head-cli-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 const cfg = { primary: "C", secondary: "A", pivotLengthMm: 152.4 } as const;
 const poses = headPoseGrid({ primarySteps: 6, secondaryDeg: [-90, -45, 0, 45, 90], toolMm: [0, 100] });
-const data = synthesiseSphereProbe(cfg, { pivot_length_error_um: 40, primary_zero_arcsec: -70 }, poses, { noiseUm: 0.5, seed: 9, centreMm: [300, 100, 200] });
+const data = synthesiseSphereProbe(cfg, { pivot_length_error_um: 40, primary_zero_arcsec: -70 }, poses, {
+  noiseUm: 0.5,
+  seed: 9,
+  centreMm: [300, 100, 200],
+});
 const csv = (scale: number) =>
-  ["primary_deg,secondary_deg,x,y,z,tool_mm", ...poses.map((p, i) => `${p.primaryDeg},${p.secondaryDeg},${data.xMm[i]! / scale},${data.yMm[i]! / scale},${data.zMm[i]! / scale},${p.toolMm}`)].join("\n");
+  [
+    "primary_deg,secondary_deg,x,y,z,tool_mm",
+    ...poses.map(
+      (p, i) =>
+        `${p.primaryDeg},${p.secondaryDeg},${data.xMm[i]! / scale},${data.yMm[i]! / scale},${data.zMm[i]! / scale},${p.toolMm}`,
+    ),
+  ].join("\n");
 const file = (name: string, text: string) => {
   const f = join(dir, name);
   writeFileSync(f, text);
@@ -23,29 +33,56 @@ const mm = file("sphere.csv", csv(1));
 const inch = file("sphere-in.csv", csv(MM_PER_INCH));
 const head = file("head.json", JSON.stringify({ primary: "C", secondary: "A", pivot_length_mm: 152.4 }));
 const badHead = file("bad.json", JSON.stringify({ primary: "C", secondary: "C", pivot_length_mm: 152.4 }));
-const plan = file("poses.csv", ["primary_deg,secondary_deg", ...poses.filter((p) => p.toolMm === 0).map((p) => `${p.primaryDeg},${p.secondaryDeg}`)].join("\n"));
+const plan = file(
+  "poses.csv",
+  [
+    "primary_deg,secondary_deg",
+    ...poses.filter((p) => p.toolMm === 0).map((p) => `${p.primaryDeg},${p.secondaryDeg}`),
+  ].join("\n"),
+);
 
 async function run(...args: string[]) {
   let stdout = "";
   let stderr = "";
-  const code = await main(args, (s) => void (stdout += s), (s) => void (stderr += s));
+  const code = await main(
+    args,
+    (s) => void (stdout += s),
+    (s) => void (stderr += s),
+  );
   return { code, stdout, stderr };
 }
 
 describe("head commands", () => {
   it("fit-head prints the documented JSON and gives the synthetic errors back, mm or inch input", async () => {
-    const [a, b] = await Promise.all([run("fit-head", mm, "--head", head), run("fit-head", inch, "--head", head, "--units", "in")]);
+    const [a, b] = await Promise.all([
+      run("fit-head", mm, "--head", head),
+      run("fit-head", inch, "--head", head, "--units", "in"),
+    ]);
     expect(a.code).toBe(0);
     const j = JSON.parse(a.stdout);
-    expect(Object.keys(j)).toEqual(["parameters", "sphere_centre_mm", "rms_um", "max_um", "outliers", "iterations", "warnings"]);
+    expect(Object.keys(j)).toEqual([
+      "parameters",
+      "sphere_centre_mm",
+      "rms_um",
+      "max_um",
+      "outliers",
+      "iterations",
+      "warnings",
+    ]);
     const L = j.parameters.find((p: { key: string }) => p.key === "pivot_length_error_um");
     expect(Math.abs(L.value - 40)).toBeLessThan(2 * L.U);
     const k = JSON.parse(b.stdout);
-    j.parameters.forEach((p: { value: number }, i: number) => expect(Math.abs(p.value - k.parameters[i].value)).toBeLessThan(1e-6));
+    j.parameters.forEach((p: { value: number }, i: number) =>
+      expect(Math.abs(p.value - k.parameters[i].value)).toBeLessThan(1e-6),
+    );
   });
 
   it("plan prints identifiability and u per µm of noise; bad head file and missing --head exit 2", async () => {
-    const [p, bad, none] = await Promise.all([run("plan", plan, "--head", head), run("fit-head", mm, "--head", badHead), run("fit-head", mm)]);
+    const [p, bad, none] = await Promise.all([
+      run("plan", plan, "--head", head),
+      run("fit-head", mm, "--head", badHead),
+      run("fit-head", mm),
+    ]);
     expect(p.code).toBe(0);
     const j = JSON.parse(p.stdout);
     expect(j.poses).toBe(30);

@@ -20,7 +20,8 @@ import {
 } from "@/geometry";
 
 const CA: HeadConfig = { primary: "C", secondary: "A", pivotLengthMm: 152.4 };
-const grid = (tools: number[], primarySteps = 8) => headPoseGrid({ primarySteps, secondaryDeg: [-90, -45, 0, 45, 90], toolMm: tools });
+const grid = (tools: number[], primarySteps = 8) =>
+  headPoseGrid({ primarySteps, secondaryDeg: [-90, -45, 0, 45, 90], toolMm: tools });
 const ERR: HeadErrors = {
   pivot_length_error_um: 50,
   tip_offset_s_um: -30,
@@ -54,27 +55,45 @@ describe("fitHead against ml-levenberg-marquardt (independent general-purpose pa
     // our public measuredSphereCentreMm, so it shares no Jacobian or solver code with fitHead.
     const n = data.rows;
     const y = new Float64Array(3 * n);
-    for (let i = 0; i < n; i++) [y[3 * i], y[3 * i + 1], y[3 * i + 2]] = [data.xMm[i]! * 1000, data.yMm[i]! * 1000, data.zMm[i]! * 1000];
+    for (let i = 0; i < n; i++)
+      [y[3 * i], y[3 * i + 1], y[3 * i + 2]] = [
+        data.xMm[i]! * 1000,
+        data.yMm[i]! * 1000,
+        data.zMm[i]! * 1000,
+      ];
     const model = (params: number[]) => {
       const errs: HeadErrors = Object.fromEntries(freeKeys.map((k, j) => [k, params[3 + j]!]));
       const out = new Float64Array(3 * n);
       for (let i = 0; i < n; i++) {
-        const m = measuredSphereCentreMm(CA, errs, [params[0]! / 1000, params[1]! / 1000, params[2]! / 1000], {
-          primaryDeg: data.primaryDeg[i]!,
-          secondaryDeg: data.secondaryDeg[i]!,
-          toolMm: data.toolMm![i]!,
-        });
-        out.set(m.map((v) => v * 1000), 3 * i);
+        const m = measuredSphereCentreMm(
+          CA,
+          errs,
+          [params[0]! / 1000, params[1]! / 1000, params[2]! / 1000],
+          {
+            primaryDeg: data.primaryDeg[i]!,
+            secondaryDeg: data.secondaryDeg[i]!,
+            toolMm: data.toolMm![i]!,
+          },
+        );
+        out.set(
+          m.map((v) => v * 1000),
+          3 * i,
+        );
       }
       return (x: number) => out[x]!;
     };
-    const theirs = mlLm(
-      { x: Array.from({ length: 3 * n }, (_, i) => i), y },
-      model,
-      { initialValues: [10000, -20000, 30000, ...freeKeys.map(() => 0)], maxIterations: 30, centralDifference: true, gradientDifference: 1e-2, errorTolerance: 1e-9 },
+    const theirs = mlLm({ x: Array.from({ length: 3 * n }, (_, i) => i), y }, model, {
+      initialValues: [10000, -20000, 30000, ...freeKeys.map(() => 0)],
+      maxIterations: 30,
+      centralDifference: true,
+      gradientDifference: 1e-2,
+      errorTolerance: 1e-9,
+    });
+    freeKeys.forEach((k, j) =>
+      expect(Math.abs(value(ours, k).value - theirs.parameterValues[3 + j]!)).toBeLessThan(1e-4),
     );
-    freeKeys.forEach((k, j) => expect(Math.abs(value(ours, k).value - theirs.parameterValues[3 + j]!)).toBeLessThan(1e-4));
-    for (let c = 0; c < 3; c++) expect(Math.abs(ours.sphere_centre_mm[c]! * 1000 - theirs.parameterValues[c]!)).toBeLessThan(1e-4);
+    for (let c = 0; c < 3; c++)
+      expect(Math.abs(ours.sphere_centre_mm[c]! * 1000 - theirs.parameterValues[c]!)).toBeLessThan(1e-4);
   });
 });
 
@@ -97,7 +116,11 @@ describe("fitHead properties (fast-check, synthetic data)", () => {
         (vals, noise, seed) => {
           const keys = HEAD_PARAMETER_KEYS.filter((k) => k !== "secondary_yaw_arcsec");
           const truth: HeadErrors = Object.fromEntries(keys.map((k, j) => [k, vals[j]!]));
-          const data = synthesiseSphereProbe(CA, truth, grid([0, 100], 6), { noiseUm: noise, seed, centreMm: [250, -40, 600] });
+          const data = synthesiseSphereProbe(CA, truth, grid([0, 100], 6), {
+            noiseUm: noise,
+            seed,
+            centreMm: [250, -40, 600],
+          });
           const r = fitHead(CA, data);
           for (const p of r.parameters) {
             if (p.pinned) continue;
@@ -118,15 +141,31 @@ describe("fitHead properties (fast-check, synthetic data)", () => {
   it("translating the data moves only the sphere centre; permuting rows changes nothing beyond 1e-9; re-runs are bit-identical", () => {
     fc.assert(
       fc.property(
-        fc.tuple(fc.double({ min: -500, max: 500, noNaN: true }), fc.double({ min: -500, max: 500, noNaN: true }), fc.double({ min: -500, max: 500, noNaN: true })),
+        fc.tuple(
+          fc.double({ min: -500, max: 500, noNaN: true }),
+          fc.double({ min: -500, max: 500, noNaN: true }),
+          fc.double({ min: -500, max: 500, noNaN: true }),
+        ),
         fc.integer({ min: 1, max: 1e6 }),
         (shift, seed) => {
           const data = synthesiseSphereProbe(CA, ERR, grid([0, 80], 5), { noiseUm: 1, seed });
           const base = fitHead(CA, data);
-          const moved = fitHead(CA, { ...data, xMm: data.xMm.map((v) => v + shift[0]), yMm: data.yMm.map((v) => v + shift[1]), zMm: data.zMm.map((v) => v + shift[2]) });
-          base.parameters.forEach((p, j) => expect(Math.abs(p.value - moved.parameters[j]!.value)).toBeLessThan(1e-7));
-          for (let c = 0; c < 3; c++) expect(Math.abs(moved.sphere_centre_mm[c]! - base.sphere_centre_mm[c]! - shift[c]!)).toBeLessThan(1e-9);
-          const order = Array.from({ length: data.rows }, (_, i) => i).sort((a, b) => ((a * 7919 + seed) % 101) - ((b * 7919 + seed) % 101));
+          const moved = fitHead(CA, {
+            ...data,
+            xMm: data.xMm.map((v) => v + shift[0]),
+            yMm: data.yMm.map((v) => v + shift[1]),
+            zMm: data.zMm.map((v) => v + shift[2]),
+          });
+          base.parameters.forEach((p, j) =>
+            expect(Math.abs(p.value - moved.parameters[j]!.value)).toBeLessThan(1e-7),
+          );
+          for (let c = 0; c < 3; c++)
+            expect(Math.abs(moved.sphere_centre_mm[c]! - base.sphere_centre_mm[c]! - shift[c]!)).toBeLessThan(
+              1e-9,
+            );
+          const order = Array.from({ length: data.rows }, (_, i) => i).sort(
+            (a, b) => ((a * 7919 + seed) % 101) - ((b * 7919 + seed) % 101),
+          );
           const pick = (a: Float64Array) => Float64Array.from(order, (i) => a[i]!);
           const perm: SphereProbeData = {
             rows: data.rows,
@@ -155,9 +194,16 @@ describe("identifiability is computed (docs/geometry.md known facts)", () => {
   it("primary_zero and secondary_yaw cannot be separated: freed together both are 'no', with a warning", () => {
     const data = synthesiseSphereProbe(CA, ERR, grid([0, 100]), { noiseUm: 1, seed: 1 });
     const def = fitHead(CA, data);
-    expect(value(def, "secondary_yaw_arcsec")).toMatchObject({ identifiable: "no", pinned: true, value: 0, u: null });
+    expect(value(def, "secondary_yaw_arcsec")).toMatchObject({
+      identifiable: "no",
+      pinned: true,
+      value: 0,
+      u: null,
+    });
     expect(value(def, "primary_zero_arcsec").identifiable).toBe("yes");
-    expect(def.warnings.some((w) => w.includes("secondary_yaw_arcsec") && w.includes("primary_zero_arcsec"))).toBe(true);
+    expect(
+      def.warnings.some((w) => w.includes("secondary_yaw_arcsec") && w.includes("primary_zero_arcsec")),
+    ).toBe(true);
     const freed = fitHead(CA, data, { free: ["secondary_yaw_arcsec"] });
     expect(value(freed, "secondary_yaw_arcsec").identifiable).toBe("no");
     expect(value(freed, "primary_zero_arcsec").identifiable).toBe("no");
@@ -165,16 +211,30 @@ describe("identifiability is computed (docs/geometry.md known facts)", () => {
   });
 
   it("primary_zero carries the combined orientation when the truth has a yaw (C/A, tool along the primary axis)", () => {
-    const data = synthesiseSphereProbe(CA, { primary_zero_arcsec: 30, secondary_yaw_arcsec: 20 }, grid([0, 100]), { noiseUm: 0.5, seed: 4 });
+    const data = synthesiseSphereProbe(
+      CA,
+      { primary_zero_arcsec: 30, secondary_yaw_arcsec: 20 },
+      grid([0, 100]),
+      { noiseUm: 0.5, seed: 4 },
+    );
     const r = fitHead(CA, data);
-    expect(Math.abs(value(r, "primary_zero_arcsec").value - 50)).toBeLessThan(2 * value(r, "primary_zero_arcsec").U!);
+    expect(Math.abs(value(r, "primary_zero_arcsec").value - 50)).toBeLessThan(
+      2 * value(r, "primary_zero_arcsec").U!,
+    );
   });
 
   it("secondary_zero and tip_offset_n cannot be separated with one tool length; two tool lengths separate them", () => {
     const one = fitHead(CA, synthesiseSphereProbe(CA, ERR, grid([0]), { noiseUm: 1, seed: 2 }));
     expect(value(one, "secondary_zero_arcsec").identifiable).toBe("no");
     expect(value(one, "tip_offset_n_um").identifiable).toBe("no");
-    expect(one.warnings.some((w) => w.includes("tip_offset_n_um") && w.includes("secondary_zero_arcsec") && w.includes("second tool length"))).toBe(true);
+    expect(
+      one.warnings.some(
+        (w) =>
+          w.includes("tip_offset_n_um") &&
+          w.includes("secondary_zero_arcsec") &&
+          w.includes("second tool length"),
+      ),
+    ).toBe(true);
     const two = fitHead(CA, synthesiseSphereProbe(CA, ERR, grid([0, 100]), { noiseUm: 1, seed: 2 }));
     expect(value(two, "secondary_zero_arcsec").identifiable).toBe("yes");
     expect(value(two, "tip_offset_n_um").identifiable).toBe("yes");
@@ -199,7 +259,8 @@ describe("other configurations", () => {
   it("C/B recovers the identifiable parameters", () => {
     const cfg: HeadConfig = { primary: "C", secondary: "B", pivotLengthMm: 120 };
     const r = fitHead(cfg, synthesiseSphereProbe(cfg, ERR, grid([0, 100]), { noiseUm: 1, seed: 3 }));
-    for (const p of r.parameters) if (!p.pinned) expect(Math.abs(p.value - (ERR[p.key] ?? 0))).toBeLessThanOrEqual(2 * p.U!);
+    for (const p of r.parameters)
+      if (!p.pinned) expect(Math.abs(p.value - (ERR[p.key] ?? 0))).toBeLessThanOrEqual(2 * p.U!);
     expect(r.parameters.filter((p) => p.identifiable === "yes").length).toBe(9);
   });
 
@@ -209,7 +270,8 @@ describe("other configurations", () => {
     const r = fitHead(cfg, synthesiseSphereProbe(cfg, truth, grid([0, 100]), { noiseUm: 1, seed: 6 }));
     expect(value(r, "tip_offset_n_um")).toMatchObject({ identifiable: "no", pinned: true });
     expect(value(r, "pivot_length_error_um").identifiable).toBe("no");
-    for (const p of r.parameters) if (!p.pinned) expect(Math.abs(p.value - (truth[p.key] ?? 0))).toBeLessThanOrEqual(2 * p.U!);
+    for (const p of r.parameters)
+      if (!p.pinned) expect(Math.abs(p.value - (truth[p.key] ?? 0))).toBeLessThanOrEqual(2 * p.U!);
   });
 });
 
@@ -242,7 +304,9 @@ describe("bad input gives a typed GeometryError naming what is wrong", () => {
     expect(e.issues[0]).toMatchObject({ row: 9 });
     expect(e.message).toContain("row 9 repeats the pose of row 4");
     // The same pose with distinct repeat indices is fine.
-    expect(() => fitHead(CA, { ...d, repeat: Float64Array.from({ length: 20 }, (_, i) => (i === 7 ? 2 : 1)) })).not.toThrow();
+    expect(() =>
+      fitHead(CA, { ...d, repeat: Float64Array.from({ length: 20 }, (_, i) => (i === 7 ? 2 : 1)) }),
+    ).not.toThrow();
   });
 
   it("NaN names the row and column", () => {
@@ -264,7 +328,15 @@ describe("bad input gives a typed GeometryError naming what is wrong", () => {
 
   it("the CLI JSON has exactly the documented keys (docs/geometry.md, command line)", () => {
     const j = headFitToJson(fitHead(CA, data));
-    expect(Object.keys(j)).toEqual(["parameters", "sphere_centre_mm", "rms_um", "max_um", "outliers", "iterations", "warnings"]);
+    expect(Object.keys(j)).toEqual([
+      "parameters",
+      "sphere_centre_mm",
+      "rms_um",
+      "max_um",
+      "outliers",
+      "iterations",
+      "warnings",
+    ]);
     expect(Object.keys(j.parameters[0]!)).toEqual(["key", "iso", "value", "unit", "u", "U", "identifiable"]);
   });
 });

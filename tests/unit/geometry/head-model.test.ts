@@ -19,7 +19,12 @@ import { headAxes } from "@/geometry/head/config";
 import { HeadKernel } from "@/geometry/head/kernel";
 
 const CA: HeadConfig = { primary: "C", secondary: "A", pivotLengthMm: 152.4 };
-const configs: HeadConfig[] = [CA, { primary: "C", secondary: "B", pivotLengthMm: 120 }, { primary: "B", secondary: "A", pivotLengthMm: 200, toolDirection: [0, 0, -1] }, { primary: "A", secondary: "C", pivotLengthMm: 90, toolDirection: [1, 0, -1] }];
+const configs: HeadConfig[] = [
+  CA,
+  { primary: "C", secondary: "B", pivotLengthMm: 120 },
+  { primary: "B", secondary: "A", pivotLengthMm: 200, toolDirection: [0, 0, -1] },
+  { primary: "A", secondary: "C", pivotLengthMm: 90, toolDirection: [1, 0, -1] },
+];
 const axisOf = { A: [1, 0, 0], B: [0, 1, 0], C: [0, 0, 1] } as const;
 
 /** mathjs rotationMatrix(θ, axis) applied to x: an independent library's rotation (right-hand rule). */
@@ -31,9 +36,19 @@ describe("Rodrigues' rotation formula", () => {
   it("agrees with mathjs rotationMatrix for random axes, angles and vectors (independent library)", () => {
     fc.assert(
       fc.property(
-        fc.tuple(fc.double({ min: -1, max: 1, noNaN: true }), fc.double({ min: -1, max: 1, noNaN: true }), fc.double({ min: -1, max: 1, noNaN: true })).filter((a) => Math.hypot(...a) > 0.1),
+        fc
+          .tuple(
+            fc.double({ min: -1, max: 1, noNaN: true }),
+            fc.double({ min: -1, max: 1, noNaN: true }),
+            fc.double({ min: -1, max: 1, noNaN: true }),
+          )
+          .filter((a) => Math.hypot(...a) > 0.1),
         fc.double({ min: -7, max: 7, noNaN: true }),
-        fc.tuple(fc.double({ min: -500, max: 500, noNaN: true }), fc.double({ min: -500, max: 500, noNaN: true }), fc.double({ min: -500, max: 500, noNaN: true })),
+        fc.tuple(
+          fc.double({ min: -500, max: 500, noNaN: true }),
+          fc.double({ min: -500, max: 500, noNaN: true }),
+          fc.double({ min: -500, max: 500, noNaN: true }),
+        ),
         (a0, phi, x) => {
           const n = Math.hypot(...a0);
           const a = [a0[0] / n, a0[1] / n, a0[2] / n] as const;
@@ -58,11 +73,20 @@ describe("forward model (docs/geometry.md, exact forward model)", () => {
     for (const cfg of configs) {
       const t0 = cfg.toolDirection ?? [0, 0, -1];
       const tn = Math.hypot(...t0);
-      for (const [P, S, tool] of [[0, 0, 0], [37, -62, 25], [270, 90, 100], [-123.4, 12.5, 0]] as const) {
+      for (const [P, S, tool] of [
+        [0, 0, 0],
+        [37, -62, 25],
+        [270, 90, 100],
+        [-123.4, 12.5, 0],
+      ] as const) {
         const tip = headTipMm(cfg, {}, { primaryDeg: P, secondaryDeg: S, toolMm: tool });
         const nom = nominalTipMm(cfg, { primaryDeg: P, secondaryDeg: S, toolMm: tool });
         const q = t0.map((v) => (v / tn) * (cfg.pivotLengthMm + tool));
-        const ref = mathjsRotate(axisOf[cfg.primary], P * RAD_PER_DEG, mathjsRotate(axisOf[cfg.secondary], S * RAD_PER_DEG, q));
+        const ref = mathjsRotate(
+          axisOf[cfg.primary],
+          P * RAD_PER_DEG,
+          mathjsRotate(axisOf[cfg.secondary], S * RAD_PER_DEG, q),
+        );
         for (let k = 0; k < 3; k++) {
           expect(tip[k]).toBe(nom[k]);
           expect(Math.abs(tip[k]! - ref[k]!)).toBeLessThan(1e-12);
@@ -73,7 +97,14 @@ describe("forward model (docs/geometry.md, exact forward model)", () => {
 
   it("pure rotation errors match an independent construction with mathjs (rotated axes, then rotations)", () => {
     const arc = Math.PI / 648000; // 1″ in rad, by definition
-    const e: HeadErrors = { primary_zero_arcsec: 120, secondary_zero_arcsec: -80, secondary_tilt_arcsec: 60, secondary_yaw_arcsec: -40, primary_tilt_s_arcsec: 150, primary_tilt_n_arcsec: -90 };
+    const e: HeadErrors = {
+      primary_zero_arcsec: 120,
+      secondary_zero_arcsec: -80,
+      secondary_tilt_arcsec: 60,
+      secondary_yaw_arcsec: -40,
+      primary_tilt_s_arcsec: 150,
+      primary_tilt_n_arcsec: -90,
+    };
     const P = 33;
     const S = -47;
     const p = [0, 0, 1];
@@ -82,13 +113,22 @@ describe("forward model (docs/geometry.md, exact forward model)", () => {
     const sp = mathjsRotate(n, 60 * arc, mathjsRotate(p, -40 * arc, s));
     const pp = mathjsRotate(s, 150 * arc, mathjsRotate(n, -90 * arc, p));
     const q = [0, 0, -152.4];
-    const ref = mathjsRotate(pp, P * RAD_PER_DEG + 120 * arc, mathjsRotate(sp, S * RAD_PER_DEG - 80 * arc, q));
+    const ref = mathjsRotate(
+      pp,
+      P * RAD_PER_DEG + 120 * arc,
+      mathjsRotate(sp, S * RAD_PER_DEG - 80 * arc, q),
+    );
     const tip = headTipMm(CA, e, { primaryDeg: P, secondaryDeg: S });
     for (let k = 0; k < 3; k++) expect(Math.abs(tip[k]! - ref[k]!)).toBeLessThan(1e-12);
   });
 
   it("offsets: pivot length along t, tip offsets along s and n, secondary axis through e·n (docs/geometry.md)", () => {
-    const e: HeadErrors = { pivot_length_error_um: 100, tip_offset_s_um: 20, tip_offset_n_um: -30, secondary_offset_um: 50 };
+    const e: HeadErrors = {
+      pivot_length_error_um: 100,
+      tip_offset_s_um: 20,
+      tip_offset_n_um: -30,
+      secondary_offset_um: 50,
+    };
     // At P = S = 0 no rotation acts: tip = q = (L0 + 0.1)·t + 0.02·s − 0.03·n (o cancels).
     const tip = headTipMm(CA, e, { primaryDeg: 0, secondaryDeg: 0 });
     expect(tip[0]).toBeCloseTo(0.02, 12);
@@ -110,7 +150,14 @@ describe("forward model (docs/geometry.md, exact forward model)", () => {
 
 describe("analytic Jacobian", () => {
   it("matches central finite differences for random configs, errors and poses (numerical differentiation)", () => {
-    const letters = fc.constantFrom<[HeadConfig["primary"], HeadConfig["secondary"]]>(["C", "A"], ["C", "B"], ["B", "A"], ["A", "C"], ["B", "C"], ["A", "B"]);
+    const letters = fc.constantFrom<[HeadConfig["primary"], HeadConfig["secondary"]]>(
+      ["C", "A"],
+      ["C", "B"],
+      ["B", "A"],
+      ["A", "C"],
+      ["B", "C"],
+      ["A", "B"],
+    );
     fc.assert(
       fc.property(
         letters,
@@ -151,7 +198,12 @@ describe("head configuration", () => {
     expect(c).toEqual({ primary: "C", secondary: "A", pivotLengthMm: 152.4 });
     expect(headAxes(c).t).toEqual([0, 0, -1]);
     expect(headAxes(c).n).toEqual([0, 1, 0]);
-    const d = parseHeadConfig({ primary: "C", secondary: "A", pivot_length_mm: 152.4, tool_direction: [0, 0, -2] });
+    const d = parseHeadConfig({
+      primary: "C",
+      secondary: "A",
+      pivot_length_mm: 152.4,
+      tool_direction: [0, 0, -2],
+    });
     expect(headAxes(d).t).toEqual([0, 0, -1]);
   });
 
@@ -170,7 +222,9 @@ describe("head configuration", () => {
     expect(fail({ primary: "D", secondary: "A", pivot_length_mm: 1 })).toEqual(["primary"]);
     expect(fail({ primary: "C", secondary: "A", pivot_length_mm: -5 })).toEqual(["pivot_length_mm"]);
     expect(fail({ primary: "C", secondary: "A" })).toEqual(["pivot_length_mm"]);
-    expect(fail({ primary: "C", secondary: "A", pivot_length_mm: 1, tool_direction: [0, 0] })).toEqual(["tool_direction"]);
+    expect(fail({ primary: "C", secondary: "A", pivot_length_mm: 1, tool_direction: [0, 0] })).toEqual([
+      "tool_direction",
+    ]);
     expect(fail({ primary: "C", secondary: "A", pivot_length_mm: 1, pivot: 2 })).toEqual(["pivot"]);
     expect(fail([1, 2])).toEqual([undefined]);
     expect(() => headAxes({ primary: "C", secondary: "C", pivotLengthMm: 1 })).toThrow(GeometryError);

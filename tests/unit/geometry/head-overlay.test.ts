@@ -73,11 +73,15 @@ describe("pre/post overlay geometry", () => {
   it("tip change: a tilt-axis offset e carried round the tilt axis by θ moves the tip by the chord 2·e·sin(θ/2)", () => {
     const e = 9;
     for (const theta of [45, 90, -90, 135]) {
-      const c = tipChangeUm(CA, { secondary_offset_um: e }, {}, [{ primaryDeg: 30, secondaryDeg: theta, toolMm: 0 }]);
+      const c = tipChangeUm(CA, { secondary_offset_um: e }, {}, [
+        { primaryDeg: 30, secondaryDeg: theta, toolMm: 0 },
+      ]);
       expect(c.maxUm).toBeCloseTo(2 * e * Math.abs(Math.sin((theta * Math.PI) / 360)), 9);
     }
     // At θ = 0 the offset line still passes through the tip's lever: no change.
-    expect(tipChangeUm(CA, { secondary_offset_um: e }, {}, [{ primaryDeg: 0, secondaryDeg: 0, toolMm: 0 }]).maxUm).toBeCloseTo(0, 9);
+    expect(
+      tipChangeUm(CA, { secondary_offset_um: e }, {}, [{ primaryDeg: 0, secondaryDeg: 0, toolMm: 0 }]).maxUm,
+    ).toBeCloseTo(0, 9);
   });
 
   it("refuses a negative exaggeration like headScene", () => {

@@ -11,7 +11,9 @@ const poses = headPoseGrid({ primarySteps: 12, secondaryDeg: [-90, -45, 0, 45, 9
 const ARCSEC = Math.PI / 648000;
 
 const mathjsRotate = (angleRad: number, axis: readonly number[], v: readonly number[]): number[] =>
-  (multiply(rotationMatrix(angleRad, [...axis]) as unknown as number[][], [...v]) as unknown as number[]).map(Number);
+  (multiply(rotationMatrix(angleRad, [...axis]) as unknown as number[][], [...v]) as unknown as number[]).map(
+    Number,
+  );
 
 describe("head scene", () => {
   it("zero errors: the actual tips, paths and axes equal the nominal ones at every k", () => {
@@ -20,7 +22,8 @@ describe("head scene", () => {
       expect(Array.from(s.actualTipsMm)).toEqual(Array.from(s.nominalTipsMm));
       expect(Array.from(s.actualPathMm)).toEqual(Array.from(s.nominalPathMm));
       expect(s.axes.fittedPrimary.direction).toEqual(s.axes.nominalPrimary.direction);
-      for (let c = 0; c < 3; c++) expect(s.axes.fittedSecondary.direction[c]).toBeCloseTo(s.axes.nominalSecondary.direction[c]!, 15);
+      for (let c = 0; c < 3; c++)
+        expect(s.axes.fittedSecondary.direction[c]).toBeCloseTo(s.axes.nominalSecondary.direction[c]!, 15);
     }
   });
 
@@ -29,7 +32,11 @@ describe("head scene", () => {
     const s = headScene(CA, errors, poses, 250);
     poses.forEach((p, i) => {
       const t0 = nominalTipMm(CA, p);
-      const t = headTipMm(CA, { pivot_length_error_um: 38 * 250, secondary_tilt_arcsec: 18 * 250, tip_offset_n_um: 21 * 250 }, p);
+      const t = headTipMm(
+        CA,
+        { pivot_length_error_um: 38 * 250, secondary_tilt_arcsec: 18 * 250, tip_offset_n_um: 21 * 250 },
+        p,
+      );
       for (let c = 0; c < 3; c++) {
         expect(s.nominalTipsMm[3 * i + c]).toBeCloseTo(t0[c]!, 4);
         expect(s.actualTipsMm[3 * i + c]).toBeCloseTo(t[c]!, 4);
@@ -57,7 +64,14 @@ describe("head scene", () => {
   });
 
   it("fitted axis directions agree with an independent construction by mathjs rotationMatrix", () => {
-    const errors: HeadErrors = { primary_tilt_s_arcsec: 6, primary_tilt_n_arcsec: -9, secondary_tilt_arcsec: 18, secondary_yaw_arcsec: 4, primary_zero_arcsec: 14, secondary_offset_um: 9 };
+    const errors: HeadErrors = {
+      primary_tilt_s_arcsec: 6,
+      primary_tilt_n_arcsec: -9,
+      secondary_tilt_arcsec: 18,
+      secondary_yaw_arcsec: 4,
+      primary_zero_arcsec: 14,
+      secondary_offset_um: 9,
+    };
     const k = 5000;
     const a = headAxisLines(CA, exaggerateErrors(errors, k), 30);
     // C/A: p = +Z, s = +X, n = p × s = +Y.
@@ -83,7 +97,11 @@ describe("head scene", () => {
     const res = poses.map((_, i) => [i % 3 === 0 ? 2 : 0, 0, i % 3 === 1 ? -1 : 0] as const);
     const s = headScene(CA, { tip_offset_n_um: 20 }, poses, 100, res);
     poses.forEach((_, i) => {
-      for (let c = 0; c < 3; c++) expect(s.measuredTipsMm[3 * i + c]! - s.actualTipsMm[3 * i + c]!).toBeCloseTo((-100 * res[i]![c]!) / 1000, 4);
+      for (let c = 0; c < 3; c++)
+        expect(s.measuredTipsMm[3 * i + c]! - s.actualTipsMm[3 * i + c]!).toBeCloseTo(
+          (-100 * res[i]![c]!) / 1000,
+          4,
+        );
       expect(s.residualUm[i]).toBeCloseTo(Math.hypot(...res[i]!), 6);
     });
     // 12 primary angles × 2 tools sweeps of 5 secondary angles: 4 segments each.

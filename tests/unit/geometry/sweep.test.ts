@@ -4,8 +4,17 @@ import { fitSweep } from "@/geometry";
 
 const deg = (d: number) => (d * Math.PI) / 180;
 
-function face(angles: number[], mean: number, amp: number, dirDeg: number, form: (t: number) => number = () => 0) {
-  return { angleDeg: angles, readingUm: angles.map((a) => mean + amp * Math.cos(deg(a - dirDeg)) + form(deg(a))) };
+function face(
+  angles: number[],
+  mean: number,
+  amp: number,
+  dirDeg: number,
+  form: (t: number) => number = () => 0,
+) {
+  return {
+    angleDeg: angles,
+    readingUm: angles.map((a) => mean + amp * Math.cos(deg(a - dirDeg)) + form(deg(a))),
+  };
 }
 
 describe("fitSweep", () => {
@@ -24,7 +33,10 @@ describe("fitSweep", () => {
   it("recovers a known tilt and direction from a synthetic face with form error (answer known by construction)", () => {
     const angles = Array.from({ length: 36 }, (_, k) => k * 10);
     // 30 µm/m at 200 mm radius = 6 µm amplitude, high side at 130°; plus a 1 µm saddle (cos 2θ).
-    const r = fitSweep(face(angles, -2, 6, 130, (t) => Math.cos(2 * t)), 200);
+    const r = fitSweep(
+      face(angles, -2, 6, 130, (t) => Math.cos(2 * t)),
+      200,
+    );
     expect(r.tilt_um_per_m).toBeCloseTo(30, 9);
     expect(r.direction_deg).toBeCloseTo(130, 8);
     expect(r.flatness_ls_um).toBeCloseTo(2, 9);
@@ -73,9 +85,18 @@ describe("fitSweep", () => {
         (angles, seed) => {
           const y = angles.map((a, i) => 5 * Math.cos(deg(a - 40)) + Math.sin(seed + i));
           const a = fitSweep({ angleDeg: angles, readingUm: y }, 150);
-          const idx = angles.map((_, i) => i).sort((p, q) => Math.sin(seed + p * 3.7) - Math.sin(seed + q * 3.7));
+          const idx = angles
+            .map((_, i) => i)
+            .sort((p, q) => Math.sin(seed + p * 3.7) - Math.sin(seed + q * 3.7));
           const b = fitSweep({ angleDeg: idx.map((i) => angles[i]!), readingUm: idx.map((i) => y[i]!) }, 150);
-          for (const k of ["tilt_um_per_m", "tilt_arcsec", "direction_deg", "tir_um", "flatness_ls_um", "flatness_mz_um"] as const)
+          for (const k of [
+            "tilt_um_per_m",
+            "tilt_arcsec",
+            "direction_deg",
+            "tir_um",
+            "flatness_ls_um",
+            "flatness_mz_um",
+          ] as const)
             expect(Math.abs((a[k] ?? 0) - (b[k] ?? 0))).toBeLessThan(1e-9);
         },
       ),
@@ -90,7 +111,9 @@ describe("fitSweep", () => {
     expect(three.notes.join(" ")).toMatch(/4 or more distinct angles/);
     const arc = fitSweep({ angleDeg: [0, 20, 40, 60], readingUm: [1, 2, 3, 3.5] }, 100);
     expect(arc.notes.join(" ")).toMatch(/gap of 300°/);
-    expect(() => fitSweep({ angleDeg: [0, 360, 90], readingUm: [1, 1, 2] }, 100)).toThrow(/3 or more distinct angles/);
+    expect(() => fitSweep({ angleDeg: [0, 360, 90], readingUm: [1, 1, 2] }, 100)).toThrow(
+      /3 or more distinct angles/,
+    );
     expect(() => fitSweep({ angleDeg: [0, 90, 180], readingUm: [1, 1, 2] }, 0)).toThrow(/radius/);
   });
 });

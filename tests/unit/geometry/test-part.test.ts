@@ -9,7 +9,13 @@ describe("evaluateTestPart", () => {
   it("simple rule: deviations, absolute limits, decisions, totals", () => {
     const r = evaluateTestPart(rows, { rule: "simple", defaultUMm: 0.002, defaultUByUnit: { arcsec: 3 } });
     expect(r.rows.map((x) => x.decision)).toEqual(["pass", "pass", "pass"]);
-    expect(r.rows[0]).toMatchObject({ feature: "bore A", unit: "mm", lower_limit: 25, upper_limit: 25.021, U: 0.002 });
+    expect(r.rows[0]).toMatchObject({
+      feature: "bore A",
+      unit: "mm",
+      lower_limit: 25,
+      upper_limit: 25.021,
+      U: 0.002,
+    });
     expect(r.rows[0]!.deviation).toBeCloseTo(0.004, 12);
     expect(r.rows[1]!.lower_limit).toBeNull();
     expect(r.rows[2]!.U).toBe(3);
@@ -18,7 +24,11 @@ describe("evaluateTestPart", () => {
   });
 
   it("guarded rule (ISO 14253-1): the flatness row in its guard band is undecided; per-row U wins", () => {
-    const r = evaluateTestPart(rows, { rule: "guarded", defaultUMm: 0.003, uPerRow: [undefined, undefined, 10] });
+    const r = evaluateTestPart(rows, {
+      rule: "guarded",
+      defaultUMm: 0.003,
+      uPerRow: [undefined, undefined, 10],
+    });
     // bore: 25.004 vs [25.003, 25.018] → pass; flatness 0.008 vs ≤ 0.007 → undecided; squareness 12″ vs ≤ 10″ → undecided.
     expect(r.rows.map((x) => x.decision)).toEqual(["pass", "undecided", "undecided"]);
     expect(r.totals).toEqual({ pass: 1, fail: 0, undecided: 2, total: 3 });

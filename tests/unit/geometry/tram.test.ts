@@ -6,12 +6,14 @@ import { angleFromReading, fitTram, RAD_PER_ARCSEC, sineBarAngleDeg, sineBarHeig
 // difficulty): y = B0 + B1·x. Here x is read as travel (mm) and y as reading (µm), so the slope in
 // µm/mm is B1 and slope_um_per_m = 1000·B1.
 const NORRIS_X = [
-  0.2, 337.4, 118.2, 884.6, 10.1, 226.5, 666.3, 996.3, 448.6, 777.0, 558.2, 0.4, 0.6, 775.5, 666.9, 338.0, 447.5, 11.6, 556.0,
-  228.1, 995.8, 887.6, 120.2, 0.3, 0.3, 556.8, 339.1, 887.2, 999.0, 779.0, 11.1, 118.3, 229.2, 669.1, 448.9, 0.5,
+  0.2, 337.4, 118.2, 884.6, 10.1, 226.5, 666.3, 996.3, 448.6, 777.0, 558.2, 0.4, 0.6, 775.5, 666.9, 338.0,
+  447.5, 11.6, 556.0, 228.1, 995.8, 887.6, 120.2, 0.3, 0.3, 556.8, 339.1, 887.2, 999.0, 779.0, 11.1, 118.3,
+  229.2, 669.1, 448.9, 0.5,
 ];
 const NORRIS_Y = [
-  0.1, 338.8, 118.1, 888.0, 9.2, 228.1, 668.5, 998.5, 449.1, 778.9, 559.2, 0.3, 0.1, 778.1, 668.8, 339.3, 448.9, 10.8, 557.7,
-  228.3, 998.0, 888.8, 119.6, 0.3, 0.6, 557.6, 339.3, 888.0, 998.5, 778.9, 10.2, 117.6, 228.9, 668.4, 449.2, 0.2,
+  0.1, 338.8, 118.1, 888.0, 9.2, 228.1, 668.5, 998.5, 449.1, 778.9, 559.2, 0.3, 0.1, 778.1, 668.8, 339.3,
+  448.9, 10.8, 557.7, 228.3, 998.0, 888.8, 119.6, 0.3, 0.6, 557.6, 339.3, 888.0, 998.5, 778.9, 10.2, 117.6,
+  228.9, 668.4, 449.2, 0.2,
 ];
 
 describe("fitTram", () => {
@@ -47,18 +49,33 @@ describe("fitTram", () => {
   it("row order does not change the result (property, within 1e-9)", () => {
     fc.assert(
       fc.property(
-        fc.array(fc.tuple(fc.double({ min: -500, max: 500, noNaN: true }), fc.double({ min: -50, max: 50, noNaN: true })), {
-          minLength: 3,
-          maxLength: 30,
-        }),
+        fc.array(
+          fc.tuple(
+            fc.double({ min: -500, max: 500, noNaN: true }),
+            fc.double({ min: -50, max: 50, noNaN: true }),
+          ),
+          {
+            minLength: 3,
+            maxLength: 30,
+          },
+        ),
         fc.integer(),
         (pts, seed) => {
           const xs = pts.map((p) => p[0]);
           if (Math.max(...xs) - Math.min(...xs) < 1) return;
           const a = fitTram({ travelMm: xs, readingUm: pts.map((p) => p[1]) });
-          const perm = pts.map((p, i) => ({ p, k: Math.sin(seed + i * 12.9898) })).sort((u, v) => u.k - v.k).map((e) => e.p);
+          const perm = pts
+            .map((p, i) => ({ p, k: Math.sin(seed + i * 12.9898) }))
+            .sort((u, v) => u.k - v.k)
+            .map((e) => e.p);
           const b = fitTram({ travelMm: perm.map((p) => p[0]), readingUm: perm.map((p) => p[1]) });
-          for (const key of ["slope_um_per_m", "slope_u_um_per_m", "angle_arcsec", "straightness_um", "tir_um"] as const)
+          for (const key of [
+            "slope_um_per_m",
+            "slope_u_um_per_m",
+            "angle_arcsec",
+            "straightness_um",
+            "tir_um",
+          ] as const)
             expect(Math.abs(a[key] - b[key])).toBeLessThan(1e-9 * Math.max(1, Math.abs(a[key])));
         },
       ),

@@ -2,7 +2,16 @@
 // 1″ = π/648000 rad (definition of the arc second), 1° = π/180 rad.
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { fromMm, fromRad, MM_PER_INCH, RAD_PER_ARCSEC, RAD_PER_DEG, slopeToUmPerM, toMm, toRad } from "@/geometry";
+import {
+  fromMm,
+  fromRad,
+  MM_PER_INCH,
+  RAD_PER_ARCSEC,
+  RAD_PER_DEG,
+  slopeToUmPerM,
+  toMm,
+  toRad,
+} from "@/geometry";
 
 describe("units", () => {
   it("1 in = 25.4 mm exactly (NIST SP 811); a tenth is 2.54 µm; 1 in = 25 400 µm", () => {
@@ -23,18 +32,21 @@ describe("units", () => {
   });
   it("round trips: exact for mm and rad, within one ulp for in, µm, deg, arcsec on normal doubles (property)", () => {
     fc.assert(
-      fc.property(fc.double({ min: -1e6, max: 1e6, noNaN: true }).filter((x) => x === 0 || Math.abs(x) > 1e-300), (v) => {
-        expect(fromMm(toMm(v, "mm"), "mm")).toBe(v);
-        expect(toRad(fromRad(v, "rad"), "rad")).toBe(v);
-        for (const u of ["in", "um"] as const) {
-          const back = fromMm(toMm(v, u), u);
-          expect(Math.abs(back - v)).toBeLessThanOrEqual(Math.abs(v) * Number.EPSILON);
-        }
-        for (const u of ["deg", "arcsec"] as const) {
-          const back = fromRad(toRad(v, u), u);
-          expect(Math.abs(back - v)).toBeLessThanOrEqual(Math.abs(v) * Number.EPSILON);
-        }
-      }),
+      fc.property(
+        fc.double({ min: -1e6, max: 1e6, noNaN: true }).filter((x) => x === 0 || Math.abs(x) > 1e-300),
+        (v) => {
+          expect(fromMm(toMm(v, "mm"), "mm")).toBe(v);
+          expect(toRad(fromRad(v, "rad"), "rad")).toBe(v);
+          for (const u of ["in", "um"] as const) {
+            const back = fromMm(toMm(v, u), u);
+            expect(Math.abs(back - v)).toBeLessThanOrEqual(Math.abs(v) * Number.EPSILON);
+          }
+          for (const u of ["deg", "arcsec"] as const) {
+            const back = fromRad(toRad(v, u), u);
+            expect(Math.abs(back - v)).toBeLessThanOrEqual(Math.abs(v) * Number.EPSILON);
+          }
+        },
+      ),
       { numRuns: 500 },
     );
   });

@@ -38,7 +38,8 @@ export default async function HeadHistoryPage({ params }: Props) {
         <p className="text-sm text-graphite-600">
           {[head.maker, head.model].filter(Boolean).join(" ")}
           {head.maker || head.model ? " · " : ""}
-          {head.primaryAxis} primary (rotary) / {head.secondaryAxis} secondary (tilt) · nominal pivot length <span className="num">{head.nominalPivotLengthMm.toFixed(3)} mm</span>
+          {head.primaryAxis} primary (rotary) / {head.secondaryAxis} secondary (tilt) · nominal pivot length{" "}
+          <span className="num">{head.nominalPivotLengthMm.toFixed(3)} mm</span>
         </p>
         <p className="text-sm text-graphite-600">
           {staff ? (

@@ -14,8 +14,10 @@ type Props = { params: Promise<{ id: string }> };
 export const metadata: Metadata = { title: "Job" };
 
 const DECISION_RULES = {
-  simple: "Simple acceptance: a value inside its limits passes; the expanded uncertainty is shown, not subtracted.",
-  guarded: "Guarded acceptance (ISO 14253-1): pass only inside the limits shrunk by U, fail only outside the limits grown by U, undecided between.",
+  simple:
+    "Simple acceptance: a value inside its limits passes; the expanded uncertainty is shown, not subtracted.",
+  guarded:
+    "Guarded acceptance (ISO 14253-1): pass only inside the limits shrunk by U, fail only outside the limits grown by U, undecided between.",
 } as const;
 
 export default async function JobPage({ params }: Props) {
@@ -38,7 +40,10 @@ export default async function JobPage({ params }: Props) {
             items={[
               { label: "Name", value: machine.name },
               { label: "Kind", value: machine.kind },
-              { label: "Builder and model", value: [machine.builder, machine.model].filter(Boolean).join(" ") || null },
+              {
+                label: "Builder and model",
+                value: [machine.builder, machine.model].filter(Boolean).join(" ") || null,
+              },
               { label: "Serial", value: machine.serial, mono: true },
               { label: "Control", value: machine.control },
               { label: "Site", value: `${site.name}${site.address ? `, ${site.address}` : ""}` },
@@ -50,8 +55,15 @@ export default async function JobPage({ params }: Props) {
             items={[
               { label: "Serial", value: head.serial, mono: true },
               { label: "Maker and model", value: [head.maker, head.model].filter(Boolean).join(" ") || null },
-              { label: "Axes", value: `${head.primaryAxis} primary (rotary) / ${head.secondaryAxis} secondary (tilt)` },
-              { label: "Nominal pivot length", value: `${head.nominalPivotLengthMm.toFixed(3)} mm`, mono: true },
+              {
+                label: "Axes",
+                value: `${head.primaryAxis} primary (rotary) / ${head.secondaryAxis} secondary (tilt)`,
+              },
+              {
+                label: "Nominal pivot length",
+                value: `${head.nominalPivotLengthMm.toFixed(3)} mm`,
+                mono: true,
+              },
               { label: "Tool-axis offset", value: `${head.toolAxisOffsetMm.toFixed(3)} mm`, mono: true },
               { label: "Tool direction at zero", value: `(${head.toolDirection.join(", ")})`, mono: true },
               { label: "Mass", value: head.massKg ? `${head.massKg} kg` : null, mono: true },
@@ -70,7 +82,11 @@ export default async function JobPage({ params }: Props) {
             items={[
               { label: "Installer", value: installer ? installer.name : "Not assigned yet" },
               { label: "Scheduled", value: formatDateTimeUtc(job.scheduledFor) },
-              { label: "Air temperature", value: job.airTempC != null ? `${job.airTempC.toFixed(1)} °C` : "Not recorded", mono: true },
+              {
+                label: "Air temperature",
+                value: job.airTempC != null ? `${job.airTempC.toFixed(1)} °C` : "Not recorded",
+                mono: true,
+              },
               { label: "Decision rule", value: DECISION_RULES[job.decisionRule] },
               { label: "Last change", value: formatDateTimeUtc(job.updatedAt) },
             ]}
@@ -79,10 +95,14 @@ export default async function JobPage({ params }: Props) {
         <div className="space-y-4">
           <SafetyNote title="A heavy head is lifted and the spindle is worked on">
             <p>
-              {head.massKg ? `This head weighs about ${head.massKg} kg. ` : ""}Lift it only with rated gear at its lifting points, keep hands clear of pinch points between head, collar and spindle
-              nose, and lock out the machine before working on the spindle.
+              {head.massKg ? `This head weighs about ${head.massKg} kg. ` : ""}Lift it only with rated gear at
+              its lifting points, keep hands clear of pinch points between head, collar and spindle nose, and
+              lock out the machine before working on the spindle.
             </p>
-            <p>Axes may move when jogging or probing: keep clear of the head&apos;s sweep. Follow the machine builder&apos;s and head maker&apos;s manuals, local codes and licensed practice.</p>
+            <p>
+              Axes may move when jogging or probing: keep clear of the head&apos;s sweep. Follow the machine
+              builder&apos;s and head maker&apos;s manuals, local codes and licensed practice.
+            </p>
           </SafetyNote>
         </div>
       </div>

@@ -15,7 +15,9 @@ export default async function HeadsPage() {
     <div className="space-y-5">
       <div>
         <h1 className="text-2xl font-semibold">Heads</h1>
-        <p className="text-sm text-graphite-600">Every two-axis head on record, its axis configuration and where it is mounted now.</p>
+        <p className="text-sm text-graphite-600">
+          Every two-axis head on record, its axis configuration and where it is mounted now.
+        </p>
       </div>
       <HeadsTable rows={heads} />
     </div>

@@ -21,12 +21,24 @@ export const metadata: Metadata = { title: "Instruments" };
 function CalibrationState({ due, today }: { due: string; today: string }) {
   const past = due < today;
   const soon = !past && new Date(due).getTime() - new Date(today).getTime() < 30 * 86_400_000;
-  const cls = past ? "bg-fail-50 text-fail-700 ring-fail-600/40" : soon ? "bg-accent-50 text-accent-800 ring-accent-300" : "bg-pass-50 text-pass-700 ring-pass-600/40";
+  const cls = past
+    ? "bg-fail-50 text-fail-700 ring-fail-600/40"
+    : soon
+      ? "bg-accent-50 text-accent-800 ring-accent-300"
+      : "bg-pass-50 text-pass-700 ring-pass-600/40";
   const word = past ? "Past due — refused" : soon ? "Due within 30 days" : "In calibration";
   return (
-    <span className={`inline-flex items-center gap-1.5 whitespace-nowrap rounded-full px-2.5 py-0.5 text-sm font-medium ring-1 ring-inset ${cls}`}>
+    <span
+      className={`inline-flex items-center gap-1.5 whitespace-nowrap rounded-full px-2.5 py-0.5 text-sm font-medium ring-1 ring-inset ${cls}`}
+    >
       <svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true">
-        {past ? <path d="M2.5 2.5l7 7M9.5 2.5l-7 7" stroke="currentColor" strokeWidth="1.8" /> : soon ? <path d="M6 2v4.5l2.5 1.5" fill="none" stroke="currentColor" strokeWidth="1.6" /> : <path d="M2 6.2 4.8 9 10 3" fill="none" stroke="currentColor" strokeWidth="1.8" />}
+        {past ? (
+          <path d="M2.5 2.5l7 7M9.5 2.5l-7 7" stroke="currentColor" strokeWidth="1.8" />
+        ) : soon ? (
+          <path d="M6 2v4.5l2.5 1.5" fill="none" stroke="currentColor" strokeWidth="1.6" />
+        ) : (
+          <path d="M2 6.2 4.8 9 10 3" fill="none" stroke="currentColor" strokeWidth="1.8" />
+        )}
       </svg>
       {word}
     </span>
@@ -42,7 +54,10 @@ export default async function InstrumentsPage() {
     <div className="space-y-6">
       <div>
         <h1 className="text-2xl font-semibold">Instruments</h1>
-        <p className="text-sm text-graphite-600">Every instrument a reading may name, with its resolution, standard uncertainty and calibration. A reading with an instrument past its due date is refused.</p>
+        <p className="text-sm text-graphite-600">
+          Every instrument a reading may name, with its resolution, standard uncertainty and calibration. A
+          reading with an instrument past its due date is refused.
+        </p>
       </div>
       <SimpleTable
         caption="Instruments"
@@ -50,11 +65,23 @@ export default async function InstrumentsPage() {
         columns={[
           { header: "Serial", cell: (i) => <span className="num">{i.serial}</span> },
           { header: "Kind", cell: (i) => `${i.kind}${i.maker ? ` (${i.maker})` : ""}` },
-          { header: "Resolution", cell: (i) => small(i.resolution, i.quantityKind, unitSystem), numeric: true },
-          { header: "Std. uncertainty", cell: (i) => small(i.standardUncertainty, i.quantityKind, unitSystem), numeric: true },
+          {
+            header: "Resolution",
+            cell: (i) => small(i.resolution, i.quantityKind, unitSystem),
+            numeric: true,
+          },
+          {
+            header: "Std. uncertainty",
+            cell: (i) => small(i.standardUncertainty, i.quantityKind, unitSystem),
+            numeric: true,
+          },
           { header: "Calibrated", cell: (i) => <span className="num">{i.calibratedOn ?? "—"}</span> },
           { header: "Due", cell: (i) => <span className="num">{i.calibrationDueOn}</span> },
-          { header: "State", cell: (i) => (i.retired ? "Retired" : <CalibrationState due={i.calibrationDueOn} today={today} />) },
+          {
+            header: "State",
+            cell: (i) =>
+              i.retired ? "Retired" : <CalibrationState due={i.calibrationDueOn} today={today} />,
+          },
         ]}
       />
       {user.role === "admin" ? (

@@ -18,7 +18,10 @@ export default async function PeoplePage() {
     <div className="space-y-6">
       <div>
         <h1 className="text-2xl font-semibold">People</h1>
-        <p className="text-sm text-graphite-600">Who signs in, in which role. A role change or disabling takes effect on the person&apos;s next request and ends their open sessions.</p>
+        <p className="text-sm text-graphite-600">
+          Who signs in, in which role. A role change or disabling takes effect on the person&apos;s next
+          request and ends their open sessions.
+        </p>
       </div>
       <SimpleTable
         caption="People"
@@ -29,7 +32,20 @@ export default async function PeoplePage() {
           { header: "Role", cell: (p) => ROLE_LABELS[p.role] },
           { header: "Company", cell: (p) => p.customerName ?? "Service company" },
           { header: "Account", cell: (p) => (p.disabled ? "Disabled" : "Active") },
-          { header: "Change", cell: (p) => (p.id === user.id ? <span className="text-xs text-graphite-500">You</span> : <PersonControls userId={p.id} role={p.role} disabled={p.disabled} isCustomer={p.role === "customer"} />) },
+          {
+            header: "Change",
+            cell: (p) =>
+              p.id === user.id ? (
+                <span className="text-xs text-graphite-500">You</span>
+              ) : (
+                <PersonControls
+                  userId={p.id}
+                  role={p.role}
+                  disabled={p.disabled}
+                  isCustomer={p.role === "customer"}
+                />
+              ),
+          },
         ]}
       />
       <Card title="Invite someone">

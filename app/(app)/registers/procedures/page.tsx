@@ -23,16 +23,24 @@ export default async function ProceduresPage() {
   if (!canReadRegisterOf(user.role, "procedures")) notFound();
   const [templates, unitSystem] = await Promise.all([listTemplatesWithSteps(user), getUnitSystem(user)]);
   const unit = unitSystem === "inch" ? "in" : "mm";
-  const [machines, heads, installers] = user.role === "admin" ? await Promise.all([listMachines(user), listHeads(user), listActiveInstallers()]) : [[], [], []];
+  const [machines, heads, installers] =
+    user.role === "admin"
+      ? await Promise.all([listMachines(user), listHeads(user), listActiveInstallers()])
+      : [[], [], []];
   return (
     <div className="space-y-6">
       <div>
         <h1 className="text-2xl font-semibold">Procedures</h1>
-        <p className="text-sm text-graphite-600">The checklists jobs follow. Each step has its quantity, limits, decision rule and the source of the limit. Editing makes a new version; a job keeps the version it started with.</p>
+        <p className="text-sm text-graphite-600">
+          The checklists jobs follow. Each step has its quantity, limits, decision rule and the source of the
+          limit. Editing makes a new version; a job keeps the version it started with.
+        </p>
       </div>
       {templates.map((t) => (
         <Card key={t.id} title={`${t.name} · version ${t.version}${t.isCurrent ? " (current)" : ""}`}>
-          <p className="mb-3 text-sm text-graphite-600">{t.description} Created {formatDateTimeUtc(t.createdAt)}.</p>
+          <p className="mb-3 text-sm text-graphite-600">
+            {t.description} Created {formatDateTimeUtc(t.createdAt)}.
+          </p>
           <ScrollRegion label={`Step limits, version ${t.version}, table`}>
             <table className="w-full text-sm">
               <thead className="border-b border-graphite-200 text-left text-graphite-600">
@@ -47,11 +55,22 @@ export default async function ProceduresPage() {
               <tbody className="divide-y divide-graphite-100">
                 {t.steps.map((s) => (
                   <tr key={s.id}>
-                    <td className="py-2 pr-3"><span className="num text-graphite-500">{s.position}</span> {s.title}{s.safetyNote ? <span className="ml-2 rounded bg-accent-50 px-1.5 text-xs text-accent-800 ring-1 ring-accent-300">caution</span> : null}</td>
+                    <td className="py-2 pr-3">
+                      <span className="num text-graphite-500">{s.position}</span> {s.title}
+                      {s.safetyNote ? (
+                        <span className="ml-2 rounded bg-accent-50 px-1.5 text-xs text-accent-800 ring-1 ring-accent-300">
+                          caution
+                        </span>
+                      ) : null}
+                    </td>
                     <td className="py-2 pr-3">{s.quantity}</td>
-                    <td className="num py-2 pr-3 text-right whitespace-nowrap">{formatLimits(s.lowerLimit, s.upperLimit, s.quantityKind, unitSystem)}</td>
+                    <td className="num py-2 pr-3 text-right whitespace-nowrap">
+                      {formatLimits(s.lowerLimit, s.upperLimit, s.quantityKind, unitSystem)}
+                    </td>
                     <td className="py-2 pr-3">{s.decisionRule === "guarded" ? "Guarded" : "Simple"}</td>
-                    <td className="py-2" title={s.limitSourceNote ?? undefined}>{LIMIT_SOURCE_LABELS[s.limitSource]}</td>
+                    <td className="py-2" title={s.limitSourceNote ?? undefined}>
+                      {LIMIT_SOURCE_LABELS[s.limitSource]}
+                    </td>
                   </tr>
                 ))}
               </tbody>
@@ -59,7 +78,9 @@ export default async function ProceduresPage() {
           </ScrollRegion>
           <h3 className="mb-2 mt-5 text-sm font-semibold">Limits for the fitted head parameters</h3>
           {t.parameterLimits.length === 0 ? (
-            <p className="text-sm text-graphite-600">None: a head fit on a job with this version is recorded, not judged.</p>
+            <p className="text-sm text-graphite-600">
+              None: a head fit on a job with this version is recorded, not judged.
+            </p>
           ) : (
             <ScrollRegion label={`Head parameter limits, version ${t.version}, table`}>
               <table className="w-full text-sm" aria-label={`Head parameter limits, version ${t.version}`}>
@@ -78,9 +99,13 @@ export default async function ProceduresPage() {
                     return [
                       <tr key={key}>
                         <td className="py-2 pr-3">{PARAMETER_WORDS[key]}</td>
-                        <td className="num py-2 pr-3 text-right whitespace-nowrap">{limitText(l.lowerLimit, l.upperLimit, headParameterUnit(key)) ?? "—"}</td>
+                        <td className="num py-2 pr-3 text-right whitespace-nowrap">
+                          {limitText(l.lowerLimit, l.upperLimit, headParameterUnit(key)) ?? "—"}
+                        </td>
                         <td className="py-2 pr-3">{l.decisionRule === "guarded" ? "Guarded" : "Simple"}</td>
-                        <td className="py-2" title={l.limitSourceNote ?? undefined}>{LIMIT_SOURCE_LABELS[l.limitSource]}</td>
+                        <td className="py-2" title={l.limitSourceNote ?? undefined}>
+                          {LIMIT_SOURCE_LABELS[l.limitSource]}
+                        </td>
                       </tr>,
                     ];
                   })}
@@ -90,29 +115,62 @@ export default async function ProceduresPage() {
           )}
           {user.role === "admin" && t.isCurrent ? (
             <details className="mt-4 rounded-card border border-graphite-200 p-4">
-              <summary className="min-h-touch cursor-pointer py-2 font-medium">Edit limits (makes version {t.version + 1})</summary>
+              <summary className="min-h-touch cursor-pointer py-2 font-medium">
+                Edit limits (makes version {t.version + 1})
+              </summary>
               <TemplateVersionForm
                 templateId={t.id}
                 unit={unit}
                 steps={t.steps.map((s) => {
-                  const show = (v: number | null) => (v == null ? "" : s.quantityKind === "angle" ? String(v) : String(Number(fromCanonical(v, unit).toPrecision(10))));
-                  return { position: s.position, title: s.title, kind: s.quantityKind, lower: show(s.lowerLimit), upper: show(s.upperLimit), decisionRule: s.decisionRule, limitSource: s.limitSource, limitSourceNote: s.limitSourceNote ?? "" };
+                  const show = (v: number | null) =>
+                    v == null
+                      ? ""
+                      : s.quantityKind === "angle"
+                        ? String(v)
+                        : String(Number(fromCanonical(v, unit).toPrecision(10)));
+                  return {
+                    position: s.position,
+                    title: s.title,
+                    kind: s.quantityKind,
+                    lower: show(s.lowerLimit),
+                    upper: show(s.upperLimit),
+                    decisionRule: s.decisionRule,
+                    limitSource: s.limitSource,
+                    limitSourceNote: s.limitSourceNote ?? "",
+                  };
                 })}
                 parameters={HEAD_PARAMETER_KEYS.map((key) => {
                   const l = t.parameterLimits.find((x) => x.parameter === key);
                   const show = (v: number | null | undefined) => (v == null ? "" : String(v));
-                  return { key, words: PARAMETER_WORDS[key], unit: headParameterUnit(key) === "um" ? ("µm" as const) : ("″" as const), lower: show(l?.lowerLimit), upper: show(l?.upperLimit), decisionRule: l?.decisionRule ?? "simple", limitSource: l?.limitSource ?? "customer_spec", limitSourceNote: l?.limitSourceNote ?? "" };
+                  return {
+                    key,
+                    words: PARAMETER_WORDS[key],
+                    unit: headParameterUnit(key) === "um" ? ("µm" as const) : ("″" as const),
+                    lower: show(l?.lowerLimit),
+                    upper: show(l?.upperLimit),
+                    decisionRule: l?.decisionRule ?? "simple",
+                    limitSource: l?.limitSource ?? "customer_spec",
+                    limitSourceNote: l?.limitSourceNote ?? "",
+                  };
                 })}
               />
             </details>
           ) : null}
           {user.role === "admin" && t.isCurrent ? (
             <details className="mt-4 rounded-card border border-graphite-200 p-4">
-              <summary className="min-h-touch cursor-pointer py-2 font-medium">Open a job with this procedure</summary>
+              <summary className="min-h-touch cursor-pointer py-2 font-medium">
+                Open a job with this procedure
+              </summary>
               <JobCreateForm
                 templateId={t.id}
-                machines={machines.map((m) => ({ id: m.id, label: `${m.name} — ${m.customerName}, ${m.siteName}` }))}
-                heads={heads.map((h) => ({ id: h.id, label: `${h.serial} (${h.primaryAxis}/${h.secondaryAxis})${h.machineName ? ` on ${h.machineName}` : ""}` }))}
+                machines={machines.map((m) => ({
+                  id: m.id,
+                  label: `${m.name} — ${m.customerName}, ${m.siteName}`,
+                }))}
+                heads={heads.map((h) => ({
+                  id: h.id,
+                  label: `${h.serial} (${h.primaryAxis}/${h.secondaryAxis})${h.machineName ? ` on ${h.machineName}` : ""}`,
+                }))}
                 installers={installers.map((u) => ({ id: u.id, label: u.name }))}
               />
             </details>

@@ -14,11 +14,17 @@ type Ctx = { params: Promise<{ nextauth: string[] }> };
 async function POST(req: Request, ctx: Ctx) {
   const { nextauth } = await ctx.params;
   if (nextauth.join("/") === "callback/credentials") {
-    const form = await req.clone().formData().catch(() => null);
+    const form = await req
+      .clone()
+      .formData()
+      .catch(() => null);
     const email = String(form?.get("email") ?? "");
     if (email && (await isSignInLimited(email, clientAddress(req.headers)))) {
       const url = new URL("/login?error=RateLimited", req.url).toString();
-      return Response.json({ url, error: { code: "rate_limited", message: RATE_LIMIT_MESSAGE } }, { status: 429, headers: { "Retry-After": "900" } });
+      return Response.json(
+        { url, error: { code: "rate_limited", message: RATE_LIMIT_MESSAGE } },
+        { status: 429, headers: { "Retry-After": "900" } },
+      );
     }
   }
   return handler(req, ctx);

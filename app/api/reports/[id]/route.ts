@@ -14,6 +14,8 @@ export const GET = route<Ctx>(async (_req, ctx) => {
   const sigs = (await listJobSignatures(actor, meta.jobId)) ?? [];
   return Response.json({
     report: { ...meta, issuedAt: meta.issuedAt.toISOString() },
-    signatures: sigs.filter((s) => s.reportId === null || s.reportId === id).map((s) => ({ ...s, signedAt: s.signedAt.toISOString() })),
+    signatures: sigs
+      .filter((s) => s.reportId === null || s.reportId === id)
+      .map((s) => ({ ...s, signedAt: s.signedAt.toISOString() })),
   });
 });

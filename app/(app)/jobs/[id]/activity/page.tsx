@@ -42,18 +42,26 @@ export default async function ActivityPage({ params }: Props) {
   return (
     <Card title="Activity">
       <p className="mb-4 text-sm text-graphite-600">
-        Every change to this job, its readings, data, signatures and reports, with who and when (UTC). The record is append-only and each entry is chained to the one before by its SHA-256.
+        Every change to this job, its readings, data, signatures and reports, with who and when (UTC). The
+        record is append-only and each entry is chained to the one before by its SHA-256.
       </p>
       <ol className="relative space-y-4 border-l-2 border-graphite-200 pl-5">
         {events.map((e) => (
           <li key={e.id} className="relative">
-            <span aria-hidden="true" className="absolute -left-[1.6rem] top-1.5 h-3 w-3 rounded-full border-2 border-white bg-accent-600" />
+            <span
+              aria-hidden="true"
+              className="absolute -left-[1.6rem] top-1.5 h-3 w-3 rounded-full border-2 border-white bg-accent-600"
+            />
             <p className="font-medium">{describe(e.action)}</p>
             <p className="text-sm text-graphite-600">
               <span className="num">{formatDateTimeUtc(e.at)}</span> · {e.actorEmail ?? "system"}
             </p>
-            {summary(e.newValues) ? <p className="text-sm text-graphite-700">{summary(e.newValues)}</p> : null}
-            <p className="num text-xs text-graphite-500">#{e.id} · {e.hash.slice(0, 12)}…</p>
+            {summary(e.newValues) ? (
+              <p className="text-sm text-graphite-700">{summary(e.newValues)}</p>
+            ) : null}
+            <p className="num text-xs text-graphite-500">
+              #{e.id} · {e.hash.slice(0, 12)}…
+            </p>
           </li>
         ))}
       </ol>

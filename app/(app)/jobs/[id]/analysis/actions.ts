@@ -6,15 +6,32 @@ import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
 import { action } from "@/lib/actions";
 
 /** Runs (or finds the stored) head fit of a sphere-probe dataset; the role and tenant checks are in runHeadFit. */
-export const runFitAction = action({ schema: z.object({ jobId: z.uuid({ error: "jobId must be a job id" }), datasetId: z.uuid({ error: "datasetId must be a dataset id" }) }) }, async ({ jobId, datasetId }, actor) => {
-  const { analysis, created } = await runHeadFit(actor, datasetId);
-  revalidatePath(`/jobs/${jobId}/analysis`);
-  return { id: analysis.id, reused: !created };
-});
+export const runFitAction = action(
+  {
+    schema: z.object({
+      jobId: z.uuid({ error: "jobId must be a job id" }),
+      datasetId: z.uuid({ error: "datasetId must be a dataset id" }),
+    }),
+  },
+  async ({ jobId, datasetId }, actor) => {
+    const { analysis, created } = await runHeadFit(actor, datasetId);
+    revalidatePath(`/jobs/${jobId}/analysis`);
+    return { id: analysis.id, reused: !created };
+  },
+);
 
 /** An engineer approves a fit as the job's parameter set (in review → approved; audited). */
-export const approveFitAction = action({ schema: z.object({ jobId: z.uuid({ error: "jobId must be a job id" }), analysisId: z.uuid({ error: "analysisId must be an analysis id" }) }), roles: ["engineer"] }, async ({ jobId, analysisId }, actor) => {
-  const r = await approveAnalysis(actor, analysisId);
-  revalidatePath(`/jobs/${jobId}`, "layout");
-  return r;
-});
+export const approveFitAction = action(
+  {
+    schema: z.object({
+      jobId: z.uuid({ error: "jobId must be a job id" }),
+      analysisId: z.uuid({ error: "analysisId must be an analysis id" }),
+    }),
+    roles: ["engineer"],
+  },
+  async ({ jobId, analysisId }, actor) => {
+    const r = await approveAnalysis(actor, analysisId);
+    revalidatePath(`/jobs/${jobId}`, "layout");
+    return r;
+  },
+);

@@ -31,22 +31,42 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
   const user = await requirePageUser(`/jobs/${id}/analysis`);
   const d = await getJobDetail(user, id);
   if (!d) notFound();
-  const [all, fits, approved, limits, views] = await Promise.all([listDatasets(user, id), listJobAnalyses(user, id), getApprovedAnalysis(user, id), parameterLimitsOfTemplate(d.job.templateId), listJobViews(user, id)]);
+  const [all, fits, approved, limits, views] = await Promise.all([
+    listDatasets(user, id),
+    listJobAnalyses(user, id),
+    getApprovedAnalysis(user, id),
+    parameterLimitsOfTemplate(d.job.templateId),
+    listJobViews(user, id),
+  ]);
   const probes = (all ?? []).filter((x) => x.kind === "sphere_probe" && x.status === "stored");
   const list = fits ?? [];
-  const shown = (wanted ? list.find((f) => f.analysis.id === wanted) : undefined) ?? (approved ? list.find((f) => f.analysis.id === approved.detail.analysis.id) : undefined) ?? list[0];
+  const shown =
+    (wanted ? list.find((f) => f.analysis.id === wanted) : undefined) ??
+    (approved ? list.find((f) => f.analysis.id === approved.detail.analysis.id) : undefined) ??
+    list[0];
   const mayRun = headFitRefusal(user.role, d.job.status) === null;
   const config = headConfigOf(d.head);
   // The pre/post overlay: the latest fit of a dataset of the other phase than the one shown.
   const phaseOf = new Map((all ?? []).map((x) => [x.id, x.phase]));
   const shownPhase = shown ? phaseOf.get(shown.analysis.datasetId) : undefined;
-  const other = shown && shownPhase ? list.find((f) => f.analysis.id !== shown.analysis.id && phaseOf.get(f.analysis.datasetId) !== undefined && phaseOf.get(f.analysis.datasetId) !== shownPhase) : undefined;
+  const other =
+    shown && shownPhase
+      ? list.find(
+          (f) =>
+            f.analysis.id !== shown.analysis.id &&
+            phaseOf.get(f.analysis.datasetId) !== undefined &&
+            phaseOf.get(f.analysis.datasetId) !== shownPhase,
+        )
+      : undefined;
 
   return (
     <div className="space-y-6">
       <Card title="Sphere-probe datasets">
         {probes.length === 0 ? (
-          <p className="text-sm text-graphite-600">No sphere-probe data on this job yet. Probe data is uploaded on the job&apos;s data page (CSV: primary_deg, secondary_deg, x, y, z, optional tool_mm).</p>
+          <p className="text-sm text-graphite-600">
+            No sphere-probe data on this job yet. Probe data is uploaded on the job&apos;s data page (CSV:
+            primary_deg, secondary_deg, x, y, z, optional tool_mm).
+          </p>
         ) : (
           <ul className="divide-y divide-graphite-100">
             {probes.map((p) => {
@@ -56,15 +76,23 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
                   <div>
                     <p className="font-medium text-graphite-900">{p.originalFilename}</p>
                     <p className="text-sm text-graphite-600">
-                      <span className="num">{p.rows}</span> poses · {p.phase === "pre" ? "before adjustment" : "after adjustment"} · uploaded {formatDateTimeUtc(p.uploadedAt)}
-                      {p.uploaderName ? ` by ${p.uploaderName}` : ""} · SHA-256 <span className="num">{p.sha256.slice(0, 12)}…</span>
+                      <span className="num">{p.rows}</span> poses ·{" "}
+                      {p.phase === "pre" ? "before adjustment" : "after adjustment"} · uploaded{" "}
+                      {formatDateTimeUtc(p.uploadedAt)}
+                      {p.uploaderName ? ` by ${p.uploaderName}` : ""} · SHA-256{" "}
+                      <span className="num">{p.sha256.slice(0, 12)}…</span>
                     </p>
                     <p className="text-sm text-graphite-600">
-                      {fitted.length ? `${fitted.length} stored fit${fitted.length > 1 ? "s" : ""}, latest ${formatDateTimeUtc(fitted[0]!.analysis.createdAt)}` : "Not fitted yet"}
+                      {fitted.length
+                        ? `${fitted.length} stored fit${fitted.length > 1 ? "s" : ""}, latest ${formatDateTimeUtc(fitted[0]!.analysis.createdAt)}`
+                        : "Not fitted yet"}
                       {fitted.length && shown && fitted[0]!.analysis.id !== shown.analysis.id ? (
                         <>
                           {" · "}
-                          <Link href={`/jobs/${id}/analysis?analysis=${fitted[0]!.analysis.id}`} className="font-medium text-accent-700 underline-offset-2 hover:underline">
+                          <Link
+                            href={`/jobs/${id}/analysis?analysis=${fitted[0]!.analysis.id}`}
+                            className="font-medium text-accent-700 underline-offset-2 hover:underline"
+                          >
                             Show this fit
                           </Link>
                         </>
@@ -73,18 +101,40 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
                       ) : null}
                     </p>
                   </div>
-                  {mayRun ? <RunFitButton jobId={id} datasetId={p.id} label={fitted.length ? "Run fit again" : "Run fit"} /> : null}
+                  {mayRun ? (
+                    <RunFitButton
+                      jobId={id}
+                      datasetId={p.id}
+                      label={fitted.length ? "Run fit again" : "Run fit"}
+                    />
+                  ) : null}
                 </li>
               );
             })}
           </ul>
         )}
-        {!mayRun ? <p className="mt-3 text-sm text-graphite-600">{headFitRefusal(user.role, d.job.status)}</p> : null}
+        {!mayRun ? (
+          <p className="mt-3 text-sm text-graphite-600">{headFitRefusal(user.role, d.job.status)}</p>
+        ) : null}
       </Card>
 
-      {shown ? <FitSection jobId={id} fitRow={shown} otherRow={other} phaseOf={phaseOf} config={config} user={user} jobStatus={d.job.status} approved={approved} limits={limits} /> : null}
+      {shown ? (
+        <FitSection
+          jobId={id}
+          fitRow={shown}
+          otherRow={other}
+          phaseOf={phaseOf}
+          config={config}
+          user={user}
+          jobStatus={d.job.status}
+          approved={approved}
+          limits={limits}
+        />
+      ) : null}
 
-      {shown || views.length ? <SavedViews jobId={id} views={views} approvedAnalysisId={approved?.detail.analysis.id ?? null} /> : null}
+      {shown || views.length ? (
+        <SavedViews jobId={id} views={views} approvedAnalysisId={approved?.detail.analysis.id ?? null} />
+      ) : null}
     </div>
   );
 }
@@ -120,20 +170,32 @@ function FitSection({
   const r = a.result;
   const fit = r.fit;
   const rows = parameterRows(fit, limits);
-  const errors: HeadErrors = Object.fromEntries(fit.parameters.filter((p) => p.U !== null).map((p) => [p.key, p.value]));
+  const errors: HeadErrors = Object.fromEntries(
+    fit.parameters.filter((p) => p.U !== null).map((p) => [p.key, p.value]),
+  );
   // The 3D view draws at most VIEW_POSES poses (every step-th one), so the page stays light for very large datasets.
   const step = Math.max(1, Math.ceil(r.poses.row.length / VIEW_POSES));
   const viewIdx = r.poses.row.map((_, i) => i).filter((i) => i % step === 0);
-  const poses: HeadPose[] = viewIdx.map((i) => ({ primaryDeg: r.poses.primary_deg[i]!, secondaryDeg: r.poses.secondary_deg[i]!, toolMm: r.poses.tool_mm[i]! }));
+  const poses: HeadPose[] = viewIdx.map((i) => ({
+    primaryDeg: r.poses.primary_deg[i]!,
+    secondaryDeg: r.poses.secondary_deg[i]!,
+    toolMm: r.poses.tool_mm[i]!,
+  }));
   const viewResiduals = viewIdx.map((i) => r.poses.residual_um[i]!);
   const isApproved = approved?.detail.analysis.id === a.id;
-  const shownLabel = { analysisId: a.id, phaseText: PHASE_TEXT[phaseOf.get(a.datasetId) ?? "pre"], dataset: fitRow.datasetFilename };
+  const shownLabel = {
+    analysisId: a.id,
+    phaseText: PHASE_TEXT[phaseOf.get(a.datasetId) ?? "pre"],
+    dataset: fitRow.datasetFilename,
+  };
   const overlay = otherRow
     ? {
         analysisId: otherRow.analysis.id,
         phaseText: PHASE_TEXT[phaseOf.get(otherRow.analysis.datasetId) ?? "pre"],
         dataset: otherRow.datasetFilename,
-        errors: Object.fromEntries(otherRow.analysis.result.fit.parameters.filter((p) => p.U !== null).map((p) => [p.key, p.value])) as HeadErrors,
+        errors: Object.fromEntries(
+          otherRow.analysis.result.fit.parameters.filter((p) => p.U !== null).map((p) => [p.key, p.value]),
+        ) as HeadErrors,
       }
     : null;
   const refusal =
@@ -152,17 +214,35 @@ function FitSection({
       <section aria-labelledby="fit-title" data-analysis-id={a.id} className="space-y-4">
         <div className="flex flex-wrap items-baseline justify-between gap-3">
           <h2 id="fit-title" className="text-xl font-semibold">
-            Head fit {isApproved ? <span className="ml-2 rounded bg-pass-50 px-2 py-0.5 text-sm font-semibold text-pass-700">✓ Approved</span> : null}
+            Head fit{" "}
+            {isApproved ? (
+              <span className="ml-2 rounded bg-pass-50 px-2 py-0.5 text-sm font-semibold text-pass-700">
+                ✓ Approved
+              </span>
+            ) : null}
           </h2>
           <p className="text-sm text-graphite-600">
             {fitRow.datasetFilename} ({shownLabel.phaseText}) · run {formatDateTimeUtc(a.createdAt)}
-            {fitRow.createdByName ? ` by ${fitRow.createdByName}` : ""} · computation {a.geometryVersion} · input <span className="num">{a.inputSha256.slice(0, 12)}…</span>
+            {fitRow.createdByName ? ` by ${fitRow.createdByName}` : ""} · computation {a.geometryVersion} ·
+            input <span className="num">{a.inputSha256.slice(0, 12)}…</span>
           </p>
         </div>
         <div className="grid grid-cols-[minmax(0,1fr)] gap-6 xl:grid-cols-[minmax(0,1fr)_23rem]">
           <Card title="Pivot and squareness in 3D">
-            <HeadViewerLoader config={config} errors={errors} poses={poses} residualsUm={viewResiduals} shown={shownLabel} overlay={overlay} maySave={user.role === "engineer"} />
-            {step > 1 ? <p className="mt-2 text-xs text-graphite-600">Showing every {step}th pose: {poses.length} of {r.poses.row.length}.</p> : null}
+            <HeadViewerLoader
+              config={config}
+              errors={errors}
+              poses={poses}
+              residualsUm={viewResiduals}
+              shown={shownLabel}
+              overlay={overlay}
+              maySave={user.role === "engineer"}
+            />
+            {step > 1 ? (
+              <p className="mt-2 text-xs text-graphite-600">
+                Showing every {step}th pose: {poses.length} of {r.poses.row.length}.
+              </p>
+            ) : null}
           </Card>
           <Card title="Fit quality">
             <dl className="grid grid-cols-[1fr_auto] gap-x-4 gap-y-2 text-sm" data-testid="fit-quality">
@@ -181,9 +261,13 @@ function FitSection({
               <dt className="text-graphite-600">Outliers (beyond 3 s)</dt>
               <dd className="num text-right">{fit.outliers.length}</dd>
               <dt className="col-span-2 text-graphite-600">Sphere centre (x, y, z)</dt>
-              <dd className="num col-span-2 text-right">{fit.sphere_centre_mm.map((v) => fixed(v, 4)).join(", ")} mm</dd>
+              <dd className="num col-span-2 text-right">
+                {fit.sphere_centre_mm.map((v) => fixed(v, 4)).join(", ")} mm
+              </dd>
             </dl>
-            <p className="mt-4 text-xs text-graphite-600">Uncertainties are expanded, U = 2u (k = 2, about 95 %), from the residual scatter s²·(JᵀJ)⁻¹.</p>
+            <p className="mt-4 text-xs text-graphite-600">
+              Uncertainties are expanded, U = 2u (k = 2, about 95 %), from the residual scatter s²·(JᵀJ)⁻¹.
+            </p>
           </Card>
         </div>
 
@@ -192,7 +276,12 @@ function FitSection({
         </Card>
 
         <Card title="Residuals per pose">
-          <ResidualChart residuals={r.poses.residual_um} rows={r.poses.row} toolMm={r.poses.tool_mm} sUm={r.s_um} />
+          <ResidualChart
+            residuals={r.poses.residual_um}
+            rows={r.poses.row}
+            toolMm={r.poses.tool_mm}
+            sUm={r.s_um}
+          />
           {fit.outliers.length ? (
             <table className="mt-4 w-full max-w-2xl text-sm" aria-label="Outliers">
               <thead>
@@ -210,10 +299,18 @@ function FitSection({
                   return (
                     <tr key={o.row} className="border-b border-graphite-100">
                       <td className="num py-1.5 pr-3">{o.row}</td>
-                      <td className="num py-1.5 pr-3 text-right">{i >= 0 ? `${r.poses.primary_deg[i]}°` : "—"}</td>
-                      <td className="num py-1.5 pr-3 text-right">{i >= 0 ? `${r.poses.secondary_deg[i]}°` : "—"}</td>
-                      <td className="num py-1.5 pr-3 text-right">{i >= 0 ? `${r.poses.tool_mm[i]} mm` : "—"}</td>
-                      <td className="num py-1.5 text-right">{o.residual_um.map((v) => signed(v, 2)).join(", ")} µm</td>
+                      <td className="num py-1.5 pr-3 text-right">
+                        {i >= 0 ? `${r.poses.primary_deg[i]}°` : "—"}
+                      </td>
+                      <td className="num py-1.5 pr-3 text-right">
+                        {i >= 0 ? `${r.poses.secondary_deg[i]}°` : "—"}
+                      </td>
+                      <td className="num py-1.5 pr-3 text-right">
+                        {i >= 0 ? `${r.poses.tool_mm[i]} mm` : "—"}
+                      </td>
+                      <td className="num py-1.5 text-right">
+                        {o.residual_um.map((v) => signed(v, 2)).join(", ")} µm
+                      </td>
                     </tr>
                   );
                 })}
@@ -225,7 +322,10 @@ function FitSection({
         </Card>
 
         <Card title="Probed poses and the next visit">
-          <PoseCoverage visit={nextVisitPlan(config, r.poses.primary_deg, r.poses.secondary_deg, r.poses.tool_mm)} poses={poses} />
+          <PoseCoverage
+            visit={nextVisitPlan(config, r.poses.primary_deg, r.poses.secondary_deg, r.poses.tool_mm)}
+            poses={poses}
+          />
         </Card>
       </section>
 
@@ -234,7 +334,8 @@ function FitSection({
           <div className="space-y-4">
             <p className="text-sm text-graphite-700">
               Approved {formatDateTimeUtc(approved!.approvedAt)}
-              {approved!.approvedBy ? ` by ${approved!.approvedBy}` : ""}. Enter these in the control&apos;s kinematic (tool centre point) settings for this head:
+              {approved!.approvedBy ? ` by ${approved!.approvedBy}` : ""}. Enter these in the control&apos;s
+              kinematic (tool centre point) settings for this head:
             </p>
             <table className="w-full text-sm" aria-label="Values for the control">
               <tbody>
@@ -252,22 +353,35 @@ function FitSection({
             <div className="rounded-card border border-graphite-200 bg-graphite-50 p-4 text-sm text-graphite-800">
               <p className="font-semibold">Units and signs</p>
               <p>
-                Lengths in millimetres, angles in degrees (arc seconds beside them). Each value is the head as measured minus the head as designed, in the machine frame (right-handed X, Y, Z; both axes at zero). A positive offset points the way named; a
-                positive angle is a right-hand turn about the direction named. Parameters the data could not separate are left out and stay at 0. Controls differ in whether they take the value itself or its correction, and in their own axis
-                names: check the control builder&apos;s documentation before entering anything.
+                Lengths in millimetres, angles in degrees (arc seconds beside them). Each value is the head as
+                measured minus the head as designed, in the machine frame (right-handed X, Y, Z; both axes at
+                zero). A positive offset points the way named; a positive angle is a right-hand turn about the
+                direction named. Parameters the data could not separate are left out and stay at 0. Controls
+                differ in whether they take the value itself or its correction, and in their own axis names:
+                check the control builder&apos;s documentation before entering anything.
               </p>
             </div>
             <SafetyNote title="Before entering values and moving the axes">
               <p>
-                Entering kinematic values changes how the control moves the head. Enter them and move the axes only as the machine builder&apos;s manual describes: with the machine locked out while you work at the spindle, and at the reduced speed the
-                manual gives for the first moves, keeping clear of the head&apos;s swing. Check the tool centre point on the reference sphere before cutting. Follow local rules and your company&apos;s procedures.
+                Entering kinematic values changes how the control moves the head. Enter them and move the axes
+                only as the machine builder&apos;s manual describes: with the machine locked out while you
+                work at the spindle, and at the reduced speed the manual gives for the first moves, keeping
+                clear of the head&apos;s swing. Check the tool centre point on the reference sphere before
+                cutting. Follow local rules and your company&apos;s procedures.
               </p>
             </SafetyNote>
           </div>
         ) : (
           <div className="space-y-3">
-            <p className="text-sm text-graphite-700">Approving fixes this fit as the head&apos;s parameter set for the job and moves the job to approved; the values to enter in the control are then shown here.</p>
-            {user.role === "engineer" ? <ApproveButton jobId={jobId} analysisId={a.id} refusal={refusal} /> : <p className="text-sm text-graphite-600">{refusal}</p>}
+            <p className="text-sm text-graphite-700">
+              Approving fixes this fit as the head&apos;s parameter set for the job and moves the job to
+              approved; the values to enter in the control are then shown here.
+            </p>
+            {user.role === "engineer" ? (
+              <ApproveButton jobId={jobId} analysisId={a.id} refusal={refusal} />
+            ) : (
+              <p className="text-sm text-graphite-600">{refusal}</p>
+            )}
           </div>
         )}
       </Card>

@@ -7,30 +7,68 @@ type Views = Awaited<ReturnType<typeof listJobViews>>;
 const PHASE_TEXT = { pre: "before adjustment", post: "after adjustment" } as const;
 
 /** The pictures of the 3D view saved for the report, newest first; the one the report uses is marked. */
-export function SavedViews({ views, approvedAnalysisId }: { jobId: string; views: Views; approvedAnalysisId: string | null }) {
-  const forReport = approvedAnalysisId ? views.find((v) => v.analysisId === approvedAnalysisId)?.id : undefined;
+export function SavedViews({
+  views,
+  approvedAnalysisId,
+}: {
+  jobId: string;
+  views: Views;
+  approvedAnalysisId: string | null;
+}) {
+  const forReport = approvedAnalysisId
+    ? views.find((v) => v.analysisId === approvedAnalysisId)?.id
+    : undefined;
   return (
     <Card title="Saved views">
       {views.length === 0 ? (
-        <p className="text-sm text-graphite-600">No view saved yet. An application engineer saves the 3D view as shown with &ldquo;Save view for the report&rdquo;; the latest view of the approved fit goes into the acceptance report.</p>
+        <p className="text-sm text-graphite-600">
+          No view saved yet. An application engineer saves the 3D view as shown with &ldquo;Save view for the
+          report&rdquo;; the latest view of the approved fit goes into the acceptance report.
+        </p>
       ) : (
         <>
-          <p className="mb-4 text-sm text-graphite-600">The latest view saved of the approved fit goes into the acceptance report. Saved views are kept as they were taken.</p>
+          <p className="mb-4 text-sm text-graphite-600">
+            The latest view saved of the approved fit goes into the acceptance report. Saved views are kept as
+            they were taken.
+          </p>
           <ul className="grid gap-4 sm:grid-cols-2 xl:grid-cols-4" aria-label="Saved views">
             {views.map((v) => (
-              <li key={v.id} className={`overflow-hidden rounded-card border ${v.id === forReport ? "border-accent-500 ring-1 ring-accent-500" : "border-graphite-200"} bg-white`} data-view-id={v.id}>
-                <a href={`/api/analysis-views/${v.id}/image`} target="_blank" rel="noreferrer" className="block bg-graphite-50">
-                  <img src={`/api/analysis-views/${v.id}/image`} width={v.widthPx} height={v.heightPx} alt={`Saved 3D view, errors drawn ×${formatFactor(v.factor)}${v.caption ? `: ${v.caption}` : ""}`} className="h-auto w-full" loading="lazy" />
+              <li
+                key={v.id}
+                className={`overflow-hidden rounded-card border ${v.id === forReport ? "border-accent-500 ring-1 ring-accent-500" : "border-graphite-200"} bg-white`}
+                data-view-id={v.id}
+              >
+                <a
+                  href={`/api/analysis-views/${v.id}/image`}
+                  target="_blank"
+                  rel="noreferrer"
+                  className="block bg-graphite-50"
+                >
+                  <img
+                    src={`/api/analysis-views/${v.id}/image`}
+                    width={v.widthPx}
+                    height={v.heightPx}
+                    alt={`Saved 3D view, errors drawn ×${formatFactor(v.factor)}${v.caption ? `: ${v.caption}` : ""}`}
+                    className="h-auto w-full"
+                    loading="lazy"
+                  />
                 </a>
                 <div className="space-y-1 p-3 text-sm">
-                  {v.id === forReport ? <p className="text-xs font-semibold text-accent-700">★ Used in the report</p> : null}
+                  {v.id === forReport ? (
+                    <p className="text-xs font-semibold text-accent-700">★ Used in the report</p>
+                  ) : null}
                   {v.caption ? <p className="font-medium text-graphite-900">{v.caption}</p> : null}
                   <p className="text-graphite-700">
                     Errors ×<span className="num">{formatFactor(v.factor)}</span> · fit {PHASE_TEXT[v.phase]}
                     {v.overlayAnalysisId ? " with the other fit overlaid" : ""}
                   </p>
                   <p className="text-xs text-graphite-600">
-                    {v.createdByName ?? "Unknown"} · <span className="num">{formatDateTimeUtc(v.createdAt)}</span> · <span className="num">{v.widthPx} × {v.heightPx}</span> px
+                    {v.createdByName ?? "Unknown"} ·{" "}
+                    <span className="num">{formatDateTimeUtc(v.createdAt)}</span> ·{" "}
+                    <span className="num">
+                      {v.widthPx} × {v.heightPx}
+                    </span>{" "}
+                    px
                   </p>
                 </div>
               </li>

@@ -11,21 +11,30 @@ import { action } from "@/lib/actions";
 import { JOB_STATUSES } from "@/lib/auth/roles";
 import { readingCreateSchema } from "@/lib/validations/readings";
 
-export const recordReadingAction = action({ schema: readingCreateSchema.extend({ jobId: z.uuid() }) }, async ({ jobId, ...input }, actor) => {
-  const reading = await recordReading(actor, jobId, input);
-  revalidatePath(`/jobs/${jobId}`, "layout");
-  return { id: reading.id, decision: reading.decision };
-});
+export const recordReadingAction = action(
+  { schema: readingCreateSchema.extend({ jobId: z.uuid() }) },
+  async ({ jobId, ...input }, actor) => {
+    const reading = await recordReading(actor, jobId, input);
+    revalidatePath(`/jobs/${jobId}`, "layout");
+    return { id: reading.id, decision: reading.decision };
+  },
+);
 
-export const changeStatusAction = action({ schema: z.object({ jobId: z.uuid(), to: z.enum(JOB_STATUSES) }) }, async ({ jobId, to }, actor) => {
-  const r = await changeJobStatus(actor, jobId, to);
-  revalidatePath(`/jobs/${jobId}`, "layout");
-  return r;
-});
+export const changeStatusAction = action(
+  { schema: z.object({ jobId: z.uuid(), to: z.enum(JOB_STATUSES) }) },
+  async ({ jobId, to }, actor) => {
+    const r = await changeJobStatus(actor, jobId, to);
+    revalidatePath(`/jobs/${jobId}`, "layout");
+    return r;
+  },
+);
 
 /** The signed-in user's own display units (inch or metric); stored values do not change. */
-export const setUnitSystemAction = action({ schema: z.object({ unitSystem: z.enum(["metric", "inch"]), path: z.string().startsWith("/jobs/") }) }, async ({ unitSystem, path }, actor) => {
-  await db.update(users).set({ unitSystem }).where(eq(users.id, actor.id));
-  revalidatePath(path);
-  return { unitSystem };
-});
+export const setUnitSystemAction = action(
+  { schema: z.object({ unitSystem: z.enum(["metric", "inch"]), path: z.string().startsWith("/jobs/") }) },
+  async ({ unitSystem, path }, actor) => {
+    await db.update(users).set({ unitSystem }).where(eq(users.id, actor.id));
+    revalidatePath(path);
+    return { unitSystem };
+  },
+);

@@ -16,7 +16,10 @@ export const metadata: Metadata = { title: "Checklist" };
 
 type Props = { params: Promise<{ id: string }> };
 
-const MOVE_LABELS: Partial<Record<JobStatus, string>> = { measuring: "Start measuring", in_review: "Submit for review" };
+const MOVE_LABELS: Partial<Record<JobStatus, string>> = {
+  measuring: "Start measuring",
+  in_review: "Submit for review",
+};
 
 /** A short title for a step's caution, from what the note is about. */
 function safetyTitle(note: string): string {
@@ -37,7 +40,9 @@ export default async function ChecklistPage({ params }: Props) {
   const canWrite = refusal === null;
   const today = new Date().toISOString().slice(0, 10);
   const moves = allowedTransitions(user.role, detail.job.status)
-    .filter((to) => MOVE_LABELS[to] && (user.role !== "installer" || detail.job.assignedInstallerId === user.id))
+    .filter(
+      (to) => MOVE_LABELS[to] && (user.role !== "installer" || detail.job.assignedInstallerId === user.id),
+    )
     .map((to) => ({ to, label: MOVE_LABELS[to]! }));
 
   return (
@@ -48,7 +53,9 @@ export default async function ChecklistPage({ params }: Props) {
           <p className="text-sm text-graphite-600">
             {template ? (
               <>
-                {template.name}, version <span className="num">{template.version}</span> · values stored in mm and arc seconds, shown in {unitSystem === "inch" ? "inch (to 0.0001 in)" : "millimetres (to 0.001 mm)"}
+                {template.name}, version <span className="num">{template.version}</span> · values stored in mm
+                and arc seconds, shown in{" "}
+                {unitSystem === "inch" ? "inch (to 0.0001 in)" : "millimetres (to 0.001 mm)"}
               </>
             ) : (
               "This job has no procedure yet."
@@ -57,14 +64,20 @@ export default async function ChecklistPage({ params }: Props) {
         </div>
         <div className="flex flex-wrap items-center gap-3">
           <UnitToggle current={unitSystem} path={`/jobs/${id}/checklist`} />
-          <Link href={`/jobs/${id}/compare`} className="flex min-h-touch items-center rounded-md border border-graphite-300 bg-white px-4 text-sm font-medium hover:bg-graphite-100">
+          <Link
+            href={`/jobs/${id}/compare`}
+            className="flex min-h-touch items-center rounded-md border border-graphite-300 bg-white px-4 text-sm font-medium hover:bg-graphite-100"
+          >
             Compare before and after
           </Link>
           <StatusButtons jobId={id} moves={moves} />
         </div>
       </div>
       {!canWrite ? (
-        <p className="rounded-md border border-graphite-200 bg-white px-4 py-3 text-sm text-graphite-700" data-testid="readings-locked">
+        <p
+          className="rounded-md border border-graphite-200 bg-white px-4 py-3 text-sm text-graphite-700"
+          data-testid="readings-locked"
+        >
           {refusal} Job status: {STATUS_LABELS[detail.job.status]}.
         </p>
       ) : null}
@@ -74,16 +87,25 @@ export default async function ChecklistPage({ params }: Props) {
           const current = [...mine].reverse();
           const latest = (p: "pre" | "post") => current.find((r) => r.phase === p && !r.supersededById);
           const final = latest("post") ?? latest("pre");
-          const finalDecision = final ? judge(s, final.value, expandedUncertainty(s, final.instrumentStdU)) : "not_measured";
+          const finalDecision = final
+            ? judge(s, final.value, expandedUncertainty(s, final.instrumentStdU))
+            : "not_measured";
           return (
-            <li key={s.id} id={`step-${s.position}`} className="rounded-card border border-graphite-200 bg-white shadow-sm" data-testid={`step-${s.position}`}>
+            <li
+              key={s.id}
+              id={`step-${s.position}`}
+              className="rounded-card border border-graphite-200 bg-white shadow-sm"
+              data-testid={`step-${s.position}`}
+            >
               <header className="flex flex-wrap items-start justify-between gap-3 border-b border-graphite-100 px-5 py-4">
                 <div className="min-w-0 flex-1">
                   <p className="text-sm text-graphite-500">
                     Step <span className="num">{s.position}</span>
                   </p>
                   <h3 className="text-lg font-semibold">{s.title}</h3>
-                  {s.instructions ? <p className="mt-1 max-w-3xl text-sm text-graphite-700">{s.instructions}</p> : null}
+                  {s.instructions ? (
+                    <p className="mt-1 max-w-3xl text-sm text-graphite-700">{s.instructions}</p>
+                  ) : null}
                 </div>
                 <div className="space-y-1 text-right">
                   <p className="text-sm text-graphite-600">{s.quantity}</p>
@@ -91,7 +113,8 @@ export default async function ChecklistPage({ params }: Props) {
                     {formatLimits(s.lowerLimit, s.upperLimit, s.quantityKind, unitSystem)}
                   </p>
                   <p className="text-xs text-graphite-500" title={s.limitSourceNote ?? undefined}>
-                    Limit: {LIMIT_SOURCE_LABELS[s.limitSource]} · {s.decisionRule === "guarded" ? "guarded acceptance (ISO 14253-1)" : "simple acceptance"}
+                    Limit: {LIMIT_SOURCE_LABELS[s.limitSource]} ·{" "}
+                    {s.decisionRule === "guarded" ? "guarded acceptance (ISO 14253-1)" : "simple acceptance"}
                   </p>
                   <DecisionBadge decision={finalDecision} />
                 </div>
@@ -105,7 +128,18 @@ export default async function ChecklistPage({ params }: Props) {
                 {s.limitSourceNote ? <p className="text-xs text-graphite-500">{s.limitSourceNote}</p> : null}
                 <StepPanel
                   jobId={id}
-                  step={{ id: s.id, position: s.position, title: s.title, quantity: s.quantity, quantityKind: s.quantityKind, derivation: s.derivation, distanceMm: s.distanceMm, lowerLimit: s.lowerLimit, upperLimit: s.upperLimit, decisionRule: s.decisionRule }}
+                  step={{
+                    id: s.id,
+                    position: s.position,
+                    title: s.title,
+                    quantity: s.quantity,
+                    quantityKind: s.quantityKind,
+                    derivation: s.derivation,
+                    distanceMm: s.distanceMm,
+                    lowerLimit: s.lowerLimit,
+                    upperLimit: s.upperLimit,
+                    decisionRule: s.decisionRule,
+                  }}
                   readings={mine.map((r) => ({
                     id: r.id,
                     phase: r.phase,
@@ -120,7 +154,14 @@ export default async function ChecklistPage({ params }: Props) {
                     supersededById: r.supersededById,
                   }))}
                   unitSystem={unitSystem}
-                  instruments={instruments.map((i) => ({ id: i.id, kind: i.kind, serial: i.serial, quantityKind: i.quantityKind, calibrationDueOn: i.calibrationDueOn, standardUncertainty: i.standardUncertainty }))}
+                  instruments={instruments.map((i) => ({
+                    id: i.id,
+                    kind: i.kind,
+                    serial: i.serial,
+                    quantityKind: i.quantityKind,
+                    calibrationDueOn: i.calibrationDueOn,
+                    standardUncertainty: i.standardUncertainty,
+                  }))}
                   canWrite={canWrite}
                   today={today}
                 />

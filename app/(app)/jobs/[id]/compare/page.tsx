@@ -16,7 +16,10 @@ export const metadata: Metadata = { title: "Before and after" };
 type Props = { params: Promise<{ id: string }> };
 
 /** Review moves offered beside the comparison; the server checks them again (lib/auth/roles.canTransition). */
-const REVIEW_MOVES: Partial<Record<JobStatus, string>> = { measuring: "Send back for more readings", approved: "Approve the readings" };
+const REVIEW_MOVES: Partial<Record<JobStatus, string>> = {
+  measuring: "Send back for more readings",
+  approved: "Approve the readings",
+};
 
 export default async function ComparePage({ params }: Props) {
   const { id } = await params;
@@ -29,8 +32,14 @@ export default async function ComparePage({ params }: Props) {
     else if (r.status === "fail") counts.fail++;
     else counts.other++;
   }
-  const moves = c.detail.job.status === "in_review" ? allowedTransitions(user.role, "in_review").filter((to) => REVIEW_MOVES[to]).map((to) => ({ to, label: REVIEW_MOVES[to]! })) : [];
-  const fmt = (v: number | null | undefined, kind: "length" | "angle", signed = false) => formatValue(v, kind, unitSystem, { signed });
+  const moves =
+    c.detail.job.status === "in_review"
+      ? allowedTransitions(user.role, "in_review")
+          .filter((to) => REVIEW_MOVES[to])
+          .map((to) => ({ to, label: REVIEW_MOVES[to]! }))
+      : [];
+  const fmt = (v: number | null | undefined, kind: "length" | "angle", signed = false) =>
+    formatValue(v, kind, unitSystem, { signed });
 
   return (
     <div className="space-y-6">
@@ -38,7 +47,8 @@ export default async function ComparePage({ params }: Props) {
         <div>
           <h2 className="text-xl font-semibold">Before and after the adjustment</h2>
           <p className="text-sm text-graphite-600" data-testid="compare-summary">
-            <span className="num">{counts.pass}</span> of <span className="num">{c.rows.length}</span> steps pass on their latest reading
+            <span className="num">{counts.pass}</span> of <span className="num">{c.rows.length}</span> steps
+            pass on their latest reading
             {counts.fail ? (
               <>
                 , <span className="num">{counts.fail}</span> fail
@@ -54,24 +64,45 @@ export default async function ComparePage({ params }: Props) {
         </div>
         <div className="flex flex-wrap items-center gap-3">
           <UnitToggle current={unitSystem} path={`/jobs/${id}/compare`} />
-          <a href={`/api/jobs/${id}/comparison/csv`} className="flex min-h-touch items-center rounded-md border border-graphite-300 bg-white px-4 text-sm font-medium hover:bg-graphite-100" download>
+          <a
+            href={`/api/jobs/${id}/comparison/csv`}
+            className="flex min-h-touch items-center rounded-md border border-graphite-300 bg-white px-4 text-sm font-medium hover:bg-graphite-100"
+            download
+          >
             Download CSV
           </a>
           <StatusButtons jobId={id} moves={moves} />
         </div>
       </div>
 
-      <ScrollRegion label="Before and after, table" className="rounded-card border border-graphite-200 bg-white shadow-sm">
+      <ScrollRegion
+        label="Before and after, table"
+        className="rounded-card border border-graphite-200 bg-white shadow-sm"
+      >
         <table className="w-full text-sm" data-testid="compare-table">
-          <caption className="sr-only">Each step with its reading before and after the adjustment, the change, the limits and the result</caption>
+          <caption className="sr-only">
+            Each step with its reading before and after the adjustment, the change, the limits and the result
+          </caption>
           <thead className="border-b border-graphite-200 bg-graphite-50 text-graphite-600">
             <tr>
-              <th scope="col" className="px-4 py-3 text-left font-medium">Step</th>
-              <th scope="col" className="px-4 py-3 text-right font-medium">Before</th>
-              <th scope="col" className="px-4 py-3 text-right font-medium">After</th>
-              <th scope="col" className="px-4 py-3 text-right font-medium">Change</th>
-              <th scope="col" className="px-4 py-3 text-right font-medium">Limits</th>
-              <th scope="col" className="px-4 py-3 text-left font-medium">Result</th>
+              <th scope="col" className="px-4 py-3 text-left font-medium">
+                Step
+              </th>
+              <th scope="col" className="px-4 py-3 text-right font-medium">
+                Before
+              </th>
+              <th scope="col" className="px-4 py-3 text-right font-medium">
+                After
+              </th>
+              <th scope="col" className="px-4 py-3 text-right font-medium">
+                Change
+              </th>
+              <th scope="col" className="px-4 py-3 text-right font-medium">
+                Limits
+              </th>
+              <th scope="col" className="px-4 py-3 text-left font-medium">
+                Result
+              </th>
             </tr>
           </thead>
           <tbody className="divide-y divide-graphite-100">
@@ -87,12 +118,26 @@ export default async function ComparePage({ params }: Props) {
                 {(["pre", "post"] as const).map((p) => {
                   const v = r[p];
                   return (
-                    <td key={p} className="num px-4 py-3 text-right align-top" data-testid={`compare-${p}-${r.position}`}>
+                    <td
+                      key={p}
+                      className="num px-4 py-3 text-right align-top"
+                      data-testid={`compare-${p}-${r.position}`}
+                    >
                       {v ? (
                         <>
-                          <span className="whitespace-nowrap font-semibold">{fmt(v.value, r.quantityKind)}</span>
-                          {r.quantityKind === "angle" ? <span className="block text-xs text-graphite-500">{arcsecToUmPerM(v.value).toFixed(1)} µm/m</span> : null}
-                          {v.U > 0 && r.decisionRule === "guarded" ? <span className="block text-xs text-graphite-500">U = ± {fmt(v.U, r.quantityKind)} (k = 2)</span> : null}
+                          <span className="whitespace-nowrap font-semibold">
+                            {fmt(v.value, r.quantityKind)}
+                          </span>
+                          {r.quantityKind === "angle" ? (
+                            <span className="block text-xs text-graphite-500">
+                              {arcsecToUmPerM(v.value).toFixed(1)} µm/m
+                            </span>
+                          ) : null}
+                          {v.U > 0 && r.decisionRule === "guarded" ? (
+                            <span className="block text-xs text-graphite-500">
+                              U = ± {fmt(v.U, r.quantityKind)} (k = 2)
+                            </span>
+                          ) : null}
                           <span className="mt-1 block">
                             <DecisionBadge decision={v.decision} />
                           </span>
@@ -103,10 +148,15 @@ export default async function ComparePage({ params }: Props) {
                     </td>
                   );
                 })}
-                <td className="num whitespace-nowrap px-4 py-3 text-right align-top" data-testid={`compare-change-${r.position}`}>
+                <td
+                  className="num whitespace-nowrap px-4 py-3 text-right align-top"
+                  data-testid={`compare-change-${r.position}`}
+                >
                   {r.change != null ? fmt(r.change, r.quantityKind, true) : "—"}
                 </td>
-                <td className="num px-4 py-3 text-right align-top">{formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, unitSystem)}</td>
+                <td className="num px-4 py-3 text-right align-top">
+                  {formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, unitSystem)}
+                </td>
                 <td className="px-4 py-3 align-top" data-testid={`compare-status-${r.position}`}>
                   <DecisionBadge decision={r.status} />
                 </td>
@@ -124,8 +174,12 @@ export default async function ComparePage({ params }: Props) {
             lower: r.lowerLimit,
             upper: r.upperLimit,
             limitText: formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, unitSystem),
-            pre: r.pre ? { value: r.pre.value, decision: r.pre.decision, text: fmt(r.pre.value, r.quantityKind) } : null,
-            post: r.post ? { value: r.post.value, decision: r.post.decision, text: fmt(r.post.value, r.quantityKind) } : null,
+            pre: r.pre
+              ? { value: r.pre.value, decision: r.pre.decision, text: fmt(r.pre.value, r.quantityKind) }
+              : null,
+            post: r.post
+              ? { value: r.post.value, decision: r.post.decision, text: fmt(r.post.value, r.quantityKind) }
+              : null,
           }))}
         />
       </Card>

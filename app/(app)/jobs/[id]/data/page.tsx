@@ -26,7 +26,8 @@ export default async function DataPage({ params }: Props) {
         <UploadPanel jobId={id} />
       ) : user.role !== "customer" ? (
         <p className="rounded-card border border-graphite-200 bg-white p-4 text-sm text-graphite-700">
-          This job is {d.job.status.replace("_", " ")}: its data is fixed. New data goes on a new job or a correction of the report.
+          This job is {d.job.status.replace("_", " ")}: its data is fixed. New data goes on a new job or a
+          correction of the report.
         </p>
       ) : null}
     </div>

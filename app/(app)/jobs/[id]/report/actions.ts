@@ -17,18 +17,39 @@ export const signWorkAction = action(
 );
 
 export const issueReportAction = action(
-  { schema: z.object({ jobId: z.uuid(), password, amendmentReason: z.string().max(2000).optional() }), roles: ["engineer"] },
+  {
+    schema: z.object({ jobId: z.uuid(), password, amendmentReason: z.string().max(2000).optional() }),
+    roles: ["engineer"],
+  },
   async (input, actor) => {
-    const r = await issueReport(actor, { jobId: input.jobId, password: input.password, ...(input.amendmentReason ? { amendmentReason: input.amendmentReason } : {}) });
+    const r = await issueReport(actor, {
+      jobId: input.jobId,
+      password: input.password,
+      ...(input.amendmentReason ? { amendmentReason: input.amendmentReason } : {}),
+    });
     revalidatePath(`/jobs/${input.jobId}`, "layout");
     return r;
   },
 );
 
 export const respondAction = action(
-  { schema: z.object({ jobId: z.uuid(), reportId: z.uuid(), decision: z.enum(["accepted", "rejected"]), password, comment: z.string().max(4000).optional() }), roles: ["customer"] },
+  {
+    schema: z.object({
+      jobId: z.uuid(),
+      reportId: z.uuid(),
+      decision: z.enum(["accepted", "rejected"]),
+      password,
+      comment: z.string().max(4000).optional(),
+    }),
+    roles: ["customer"],
+  },
   async (input, actor) => {
-    await respondToReport(actor, { reportId: input.reportId, decision: input.decision, password: input.password, ...(input.comment ? { comment: input.comment } : {}) });
+    await respondToReport(actor, {
+      reportId: input.reportId,
+      decision: input.decision,
+      password: input.password,
+      ...(input.comment ? { comment: input.comment } : {}),
+    });
     revalidatePath(`/jobs/${input.jobId}`, "layout");
     return { decision: input.decision };
   },

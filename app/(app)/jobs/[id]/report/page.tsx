@@ -22,9 +22,16 @@ export default async function ReportPage({ params }: Props) {
   const current = revisions?.[0] ?? null;
   const content = current ? await getReportContent(user, current.id) : null;
   const mayIssue = !current && !signatureRefusal(user, "approved", d.job);
-  const mayAmend = Boolean(current) && user.role === "engineer" && (d.job.status === "issued" || d.job.status === "rejected");
+  const mayAmend =
+    Boolean(current) &&
+    user.role === "engineer" &&
+    (d.job.status === "issued" || d.job.status === "rejected");
   const mayRespond = current && !signatureRefusal(user, "accepted", d.job);
-  const work = (["performed", "inspected"] as const).filter((m) => !signatureRefusal(user, m, d.job) && !sigs?.some((s) => s.meaning === m && s.reportId === null && s.signerId === user.id));
+  const work = (["performed", "inspected"] as const).filter(
+    (m) =>
+      !signatureRefusal(user, m, d.job) &&
+      !sigs?.some((s) => s.meaning === m && s.reportId === null && s.signerId === user.id),
+  );
 
   return (
     <div className="grid grid-cols-[minmax(0,1fr)] gap-6 xl:grid-cols-[minmax(0,1fr)_22rem]">
@@ -33,13 +40,20 @@ export default async function ReportPage({ params }: Props) {
           <>
             <div className="flex flex-wrap items-center justify-between gap-3">
               <p className="text-sm text-graphite-600">
-                Revision {current!.revision}, issued {formatDateTimeUtc(current!.issuedAt)} · SHA-256 <span className="num">{current!.pdfSha256.slice(0, 16)}…</span>
+                Revision {current!.revision}, issued {formatDateTimeUtc(current!.issuedAt)} · SHA-256{" "}
+                <span className="num">{current!.pdfSha256.slice(0, 16)}…</span>
               </p>
               <div className="flex gap-2">
-                <a href={`/api/reports/${current!.id}/pdf`} className="inline-flex min-h-touch items-center rounded-lg bg-graphite-800 px-4 font-semibold text-white hover:bg-graphite-900">
+                <a
+                  href={`/api/reports/${current!.id}/pdf`}
+                  className="inline-flex min-h-touch items-center rounded-lg bg-graphite-800 px-4 font-semibold text-white hover:bg-graphite-900"
+                >
                   Download signed PDF
                 </a>
-                <a href={`/verify/${current!.id}`} className="inline-flex min-h-touch items-center rounded-lg border border-graphite-300 bg-white px-4 font-semibold">
+                <a
+                  href={`/verify/${current!.id}`}
+                  className="inline-flex min-h-touch items-center rounded-lg border border-graphite-300 bg-white px-4 font-semibold"
+                >
                   Verification page
                 </a>
               </div>
@@ -49,7 +63,8 @@ export default async function ReportPage({ params }: Props) {
         ) : (
           <Card title="No report issued yet">
             <p className="text-sm text-graphite-600">
-              The report is rendered and signed once, when the application engineer issues it after approving the head&apos;s parameters. Until then the work is signed here as performed and inspected.
+              The report is rendered and signed once, when the application engineer issues it after approving
+              the head&apos;s parameters. Until then the work is signed here as performed and inspected.
             </p>
           </Card>
         )}
@@ -77,22 +92,57 @@ export default async function ReportPage({ params }: Props) {
           <SignForm
             key={m}
             title={`Sign as ${SIGNATURE_LABELS[m].toLowerCase()}`}
-            meaning={m === "performed" ? "You confirm you carried out the recorded work and readings on this machine and head." : "You confirm you inspected the recorded readings and measurements and they are complete."}
+            meaning={
+              m === "performed"
+                ? "You confirm you carried out the recorded work and readings on this machine and head."
+                : "You confirm you inspected the recorded readings and measurements and they are complete."
+            }
             submitLabel="Sign"
             hidden={{ jobId: d.job.id, meaning: m }}
             run={signWorkAction}
           />
         ))}
         {mayIssue ? (
-          <SignForm title="Approve and issue the report" meaning="You approve the results and issue the report to the customer. The PDF is rendered once and its SHA-256 is signed; it can never change afterwards." submitLabel="Approve and issue" hidden={{ jobId: d.job.id }} run={issueReportAction} />
+          <SignForm
+            title="Approve and issue the report"
+            meaning="You approve the results and issue the report to the customer. The PDF is rendered once and its SHA-256 is signed; it can never change afterwards."
+            submitLabel="Approve and issue"
+            hidden={{ jobId: d.job.id }}
+            run={issueReportAction}
+          />
         ) : null}
         {mayAmend ? (
-          <SignForm title="Issue an amendment" meaning="A new revision that supersedes the current one; the earlier revision stays on record, marked as superseded." submitLabel="Issue amendment" hidden={{ jobId: d.job.id }} withComment="amendmentReason" commentLabel="What the amendment corrects" commentRequired run={issueReportAction} />
+          <SignForm
+            title="Issue an amendment"
+            meaning="A new revision that supersedes the current one; the earlier revision stays on record, marked as superseded."
+            submitLabel="Issue amendment"
+            hidden={{ jobId: d.job.id }}
+            withComment="amendmentReason"
+            commentLabel="What the amendment corrects"
+            commentRequired
+            run={issueReportAction}
+          />
         ) : null}
         {mayRespond ? (
           <>
-            <SignForm title="Accept the report" meaning="Your counter-signature: you accept the head as reported." submitLabel="Accept" hidden={{ jobId: d.job.id, reportId: current!.id, decision: "accepted" }} run={respondAction} />
-            <SignForm title="Reject the report" meaning="Say what is wrong; the application engineer is told and can issue an amendment." submitLabel="Reject" tone="danger" hidden={{ jobId: d.job.id, reportId: current!.id, decision: "rejected" }} withComment="comment" commentLabel="Why you reject it" commentRequired run={respondAction} />
+            <SignForm
+              title="Accept the report"
+              meaning="Your counter-signature: you accept the head as reported."
+              submitLabel="Accept"
+              hidden={{ jobId: d.job.id, reportId: current!.id, decision: "accepted" }}
+              run={respondAction}
+            />
+            <SignForm
+              title="Reject the report"
+              meaning="Say what is wrong; the application engineer is told and can issue an amendment."
+              submitLabel="Reject"
+              tone="danger"
+              hidden={{ jobId: d.job.id, reportId: current!.id, decision: "rejected" }}
+              withComment="comment"
+              commentLabel="Why you reject it"
+              commentRequired
+              run={respondAction}
+            />
           </>
         ) : null}
       </aside>

@@ -25,20 +25,35 @@ export default async function HeadPage({ params }: Props) {
   return (
     <div className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm text-graphite-600">
-        <Link href="/registers/heads" className="hover:underline">Heads</Link> / <span className="num">{head.serial}</span>
+        <Link href="/registers/heads" className="hover:underline">
+          Heads
+        </Link>{" "}
+        / <span className="num">{head.serial}</span>
       </nav>
-      <h1 className="text-2xl font-semibold">Head <span className="num">{head.serial}</span></h1>
+      <h1 className="text-2xl font-semibold">
+        Head <span className="num">{head.serial}</span>
+      </h1>
       <div className="grid gap-6 lg:grid-cols-2">
         <Card title="Configuration">
           <Facts
             items={[
               { label: "Maker and model", value: [head.maker, head.model].filter(Boolean).join(" ") || null },
-              { label: "Axes", value: `${head.primaryAxis} primary (rotary) / ${head.secondaryAxis} secondary (tilt)` },
-              { label: "Nominal pivot length", value: `${head.nominalPivotLengthMm.toFixed(3)} mm`, mono: true },
+              {
+                label: "Axes",
+                value: `${head.primaryAxis} primary (rotary) / ${head.secondaryAxis} secondary (tilt)`,
+              },
+              {
+                label: "Nominal pivot length",
+                value: `${head.nominalPivotLengthMm.toFixed(3)} mm`,
+                mono: true,
+              },
               { label: "Tool-axis offset", value: `${head.toolAxisOffsetMm.toFixed(3)} mm`, mono: true },
               { label: "Tool direction at zero", value: `(${head.toolDirection.join(", ")})`, mono: true },
               { label: "Mass", value: head.massKg ? `${head.massKg} kg` : null, mono: true },
-              { label: "Mounted on", value: h.machineName ? `${h.machineName} — ${h.customerName}, ${h.siteName}` : "Not mounted" },
+              {
+                label: "Mounted on",
+                value: h.machineName ? `${h.machineName} — ${h.customerName}, ${h.siteName}` : "Not mounted",
+              },
             ]}
           />
         </Card>
@@ -50,7 +65,11 @@ export default async function HeadPage({ params }: Props) {
               {h.history.map((e) => (
                 <li key={e.id} className="flex flex-wrap gap-x-3">
                   <span className="num text-graphite-600">{formatDateTimeUtc(e.at)}</span>
-                  <span>{e.action === "head.removed" ? "Taken off" : `Mounted on ${String((e.newValues as { machine?: string } | null)?.machine ?? "?")}`}</span>
+                  <span>
+                    {e.action === "head.removed"
+                      ? "Taken off"
+                      : `Mounted on ${String((e.newValues as { machine?: string } | null)?.machine ?? "?")}`}
+                  </span>
                   <span className="text-graphite-500">by {e.actorEmail}</span>
                 </li>
               ))}
@@ -58,7 +77,14 @@ export default async function HeadPage({ params }: Props) {
           )}
           {user.role === "admin" ? (
             <div className="mt-4 border-t border-graphite-100 pt-4">
-              <MountHeadForm headId={head.id} current={head.machineId} machines={machines.map((m) => ({ id: m.id, label: `${m.name} — ${m.customerName}, ${m.siteName}` }))} />
+              <MountHeadForm
+                headId={head.id}
+                current={head.machineId}
+                machines={machines.map((m) => ({
+                  id: m.id,
+                  label: `${m.name} — ${m.customerName}, ${m.siteName}`,
+                }))}
+              />
             </div>
           ) : null}
         </Card>

@@ -2,7 +2,13 @@
 // (application engineers; multipart `file` = the PNG, `factor`, optional `overlayAnalysisId`, `caption`).
 import { z } from "zod";
 import { getAnalysis } from "@/db/queries/analyses";
-import { listAnalysisViews, saveAnalysisView, VIEW_CAPTION_MAX, VIEW_MAX_BYTES, viewJson } from "@/db/queries/analysis-views";
+import {
+  listAnalysisViews,
+  saveAnalysisView,
+  VIEW_CAPTION_MAX,
+  VIEW_MAX_BYTES,
+  viewJson,
+} from "@/db/queries/analysis-views";
 import { requireUser } from "@/lib/auth/session";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 import { route } from "@/lib/http";
@@ -41,10 +47,19 @@ export const POST = route<Ctx>(async (req, ctx) => {
   const { id } = await ctx.params;
   const actor = await requireUser();
   if (!(await getAnalysis(actor, id))) throw notFound("analysis");
-  if (actor.role !== "engineer") throw forbidden("Only an application engineer saves views of a fit for the report.");
+  if (actor.role !== "engineer")
+    throw forbidden("Only an application engineer saves views of a fit for the report.");
   const { fields, file } = await readMultipart(req, VIEW_MAX_BYTES + BODY_OVERHEAD_BYTES);
-  if (!file || file.data.length === 0) throw invalid("Send the picture as the multipart part 'file' (a PNG).", [{ field: "file", message: "no picture was sent" }]);
+  if (!file || file.data.length === 0)
+    throw invalid("Send the picture as the multipart part 'file' (a PNG).", [
+      { field: "file", message: "no picture was sent" },
+    ]);
   const f = fieldsSchema.parse(fields);
-  const view = await saveAnalysisView(actor, id, { png: file.data, factor: f.factor, overlayAnalysisId: f.overlayAnalysisId, caption: f.caption });
+  const view = await saveAnalysisView(actor, id, {
+    png: file.data,
+    factor: f.factor,
+    overlayAnalysisId: f.overlayAnalysisId,
+    caption: f.caption,
+  });
   return Response.json({ view: viewJson(view) }, { status: 201 });
 });

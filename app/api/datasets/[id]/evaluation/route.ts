@@ -15,13 +15,40 @@ export const GET = route<Ctx>(async (req, ctx) => {
   const found = await getTestPartEvaluation(actor, id);
   if (!found) throw notFound("dataset");
   const { detail, evaluation } = found;
-  if (!evaluation) throw new AppError(422, "not_test_part", "Only a test-part dataset has a feature evaluation.");
+  if (!evaluation)
+    throw new AppError(422, "not_test_part", "Only a test-part dataset has a feature evaluation.");
   if (new URL(req.url).searchParams.get("format") !== "csv") {
     return Response.json({ datasetId: detail.dataset.id, jobReference: detail.job.reference, ...evaluation });
   }
   const csv = toCsv(
-    ["feature", "characteristic", "unit", "nominal", "measured", "deviation", "lower_limit", "upper_limit", "U_k2", "decision", "decision_rule", "source_row"],
-    evaluation.rows.map((r) => [r.feature, r.characteristic, r.unit, r.nominal, r.measured, r.deviation, r.lower_limit, r.upper_limit, r.U, r.decision, evaluation.rule, r.sourceRow]),
+    [
+      "feature",
+      "characteristic",
+      "unit",
+      "nominal",
+      "measured",
+      "deviation",
+      "lower_limit",
+      "upper_limit",
+      "U_k2",
+      "decision",
+      "decision_rule",
+      "source_row",
+    ],
+    evaluation.rows.map((r) => [
+      r.feature,
+      r.characteristic,
+      r.unit,
+      r.nominal,
+      r.measured,
+      r.deviation,
+      r.lower_limit,
+      r.upper_limit,
+      r.U,
+      r.decision,
+      evaluation.rule,
+      r.sourceRow,
+    ]),
   );
   const name = `${detail.job.reference}-test-part-evaluation.csv`.replace(/[^A-Za-z0-9._-]/g, "_");
   return new Response(csv, {

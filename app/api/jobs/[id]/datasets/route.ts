@@ -35,5 +35,8 @@ export const POST = route<Ctx>(async (req, ctx) => {
   const parsed = parseDatasetFile(form, file.data);
   // 4. Store the original unchanged, then the rows, in one transaction.
   const row = await insertDataset(actor, id, form, file, parsed);
-  return Response.json({ id: row.id, kind: row.kind, rows: row.rows, sha256: row.sha256, warnings: row.warnings }, { status: 201 });
+  return Response.json(
+    { id: row.id, kind: row.kind, rows: row.rows, sha256: row.sha256, warnings: row.warnings },
+    { status: 201 },
+  );
 });

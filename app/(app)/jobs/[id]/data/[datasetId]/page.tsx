@@ -36,7 +36,11 @@ export default async function DatasetPage({ params }: Props) {
   if (!found || found.detail.dataset.jobId !== id) notFound();
   const { detail, evaluation } = found;
   const ds = detail.dataset;
-  const summary = (ds.summary ?? {}) as { tram?: Record<string, number> | null; sweep?: Record<string, number | null> | null; columns?: Record<string, { unit: string; min: number; max: number }> };
+  const summary = (ds.summary ?? {}) as {
+    tram?: Record<string, number> | null;
+    sweep?: Record<string, number | null> | null;
+    columns?: Record<string, { unit: string; min: number; max: number }>;
+  };
   const mayDelete = ds.status === "stored" && canDeleteFrom(user, detail.job.status);
 
   return (
@@ -52,15 +56,23 @@ export default async function DatasetPage({ params }: Props) {
             {KIND_LABELS[ds.kind]} · {PHASE_LABELS[ds.phase]}
           </h2>
           <p className="text-sm text-graphite-600">
-            {ds.status === "deleted" ? `Deleted ${formatDateTimeUtc(ds.deletedAt)} — kept for the record, no longer counted.` : "Stored and checked on the server."}
+            {ds.status === "deleted"
+              ? `Deleted ${formatDateTimeUtc(ds.deletedAt)} — kept for the record, no longer counted.`
+              : "Stored and checked on the server."}
           </p>
         </div>
         <div className="flex flex-wrap gap-2">
-          <a href={`/api/datasets/${ds.id}/file`} className="flex min-h-touch items-center rounded-lg border border-graphite-300 bg-white px-4 text-sm font-semibold hover:bg-graphite-100">
+          <a
+            href={`/api/datasets/${ds.id}/file`}
+            className="flex min-h-touch items-center rounded-lg border border-graphite-300 bg-white px-4 text-sm font-semibold hover:bg-graphite-100"
+          >
             Download the original
           </a>
           {evaluation ? (
-            <a href={`/api/datasets/${ds.id}/evaluation?format=csv`} className="flex min-h-touch items-center rounded-lg border border-graphite-300 bg-white px-4 text-sm font-semibold hover:bg-graphite-100">
+            <a
+              href={`/api/datasets/${ds.id}/evaluation?format=csv`}
+              className="flex min-h-touch items-center rounded-lg border border-graphite-300 bg-white px-4 text-sm font-semibold hover:bg-graphite-100"
+            >
               Export results (CSV)
             </a>
           ) : null}
@@ -72,10 +84,19 @@ export default async function DatasetPage({ params }: Props) {
           <h3 id="evaluation-title" className="text-base font-semibold">
             Feature evaluation
           </h3>
-          <p className="rounded-card border-l-4 border-nominal-500 bg-nominal-100/60 p-3 text-sm text-graphite-900" data-testid="decision-rule">
-            <span className="font-semibold">Decision rule of this job — {detail.job.decisionRule === "guarded" ? "guarded acceptance" : "simple acceptance"}.</span> {RULE_TEXT[detail.job.decisionRule]}
+          <p
+            className="rounded-card border-l-4 border-nominal-500 bg-nominal-100/60 p-3 text-sm text-graphite-900"
+            data-testid="decision-rule"
+          >
+            <span className="font-semibold">
+              Decision rule of this job —{" "}
+              {detail.job.decisionRule === "guarded" ? "guarded acceptance" : "simple acceptance"}.
+            </span>{" "}
+            {RULE_TEXT[detail.job.decisionRule]}
           </p>
-          {evaluation.warnings.length > 0 ? <p className="text-sm text-accent-800">{evaluation.warnings.join(" ")}</p> : null}
+          {evaluation.warnings.length > 0 ? (
+            <p className="text-sm text-accent-800">{evaluation.warnings.join(" ")}</p>
+          ) : null}
           <EvaluationTable result={evaluation} />
         </section>
       ) : null}
@@ -89,7 +110,10 @@ export default async function DatasetPage({ params }: Props) {
               { label: "SHA-256", value: <span className="break-all">{ds.sha256}</span>, mono: true },
               { label: "Rows", value: ds.rows.toLocaleString("en-GB"), mono: true },
               { label: "Units", value: unitsText(ds.units as Record<string, unknown>) },
-              { label: "Uploaded", value: `${formatDateTimeUtc(ds.uploadedAt)} by ${detail.uploaderName ?? "—"}` },
+              {
+                label: "Uploaded",
+                value: `${formatDateTimeUtc(ds.uploadedAt)} by ${detail.uploaderName ?? "—"}`,
+              },
             ]}
           />
         </Card>
@@ -97,7 +121,11 @@ export default async function DatasetPage({ params }: Props) {
           {summary.tram ? (
             <Facts
               items={[
-                { label: "Slope", value: `${num(summary.tram.slope_um_per_m, 1, "µm/m")} ± ${num(summary.tram.slope_u_um_per_m, 1, "µm/m")} (1 s)`, mono: true },
+                {
+                  label: "Slope",
+                  value: `${num(summary.tram.slope_um_per_m, 1, "µm/m")} ± ${num(summary.tram.slope_u_um_per_m, 1, "µm/m")} (1 s)`,
+                  mono: true,
+                },
                 { label: "Angle", value: num(summary.tram.angle_arcsec, 1, "″"), mono: true },
                 { label: "Straightness", value: num(summary.tram.straightness_um, 1, "µm"), mono: true },
                 { label: "TIR", value: num(summary.tram.tir_um, 1, "µm"), mono: true },
@@ -107,10 +135,18 @@ export default async function DatasetPage({ params }: Props) {
           {summary.sweep ? (
             <Facts
               items={[
-                { label: "Tilt", value: `${num(summary.sweep.tilt_um_per_m, 1, "µm/m")} (${num(summary.sweep.tilt_arcsec, 1, "″")})`, mono: true },
+                {
+                  label: "Tilt",
+                  value: `${num(summary.sweep.tilt_um_per_m, 1, "µm/m")} (${num(summary.sweep.tilt_arcsec, 1, "″")})`,
+                  mono: true,
+                },
                 { label: "High side at", value: num(summary.sweep.direction_deg, 1, "°"), mono: true },
                 { label: "TIR", value: num(summary.sweep.tir_um, 1, "µm"), mono: true },
-                { label: "Flatness (least squares)", value: num(summary.sweep.flatness_ls_um, 1, "µm"), mono: true },
+                {
+                  label: "Flatness (least squares)",
+                  value: num(summary.sweep.flatness_ls_um, 1, "µm"),
+                  mono: true,
+                },
               ]}
             />
           ) : null}
@@ -118,10 +154,18 @@ export default async function DatasetPage({ params }: Props) {
             <table className="mt-3 w-full text-sm">
               <thead className="text-left text-graphite-600">
                 <tr>
-                  <th scope="col" className="py-1 font-medium">Stored column</th>
-                  <th scope="col" className="py-1 text-right font-medium">From</th>
-                  <th scope="col" className="py-1 text-right font-medium">To</th>
-                  <th scope="col" className="py-1 pl-3 font-medium">Unit</th>
+                  <th scope="col" className="py-1 font-medium">
+                    Stored column
+                  </th>
+                  <th scope="col" className="py-1 text-right font-medium">
+                    From
+                  </th>
+                  <th scope="col" className="py-1 text-right font-medium">
+                    To
+                  </th>
+                  <th scope="col" className="py-1 pl-3 font-medium">
+                    Unit
+                  </th>
                 </tr>
               </thead>
               <tbody>
@@ -136,7 +180,9 @@ export default async function DatasetPage({ params }: Props) {
               </tbody>
             </table>
           ) : null}
-          {ds.kind === "test_part" ? <p className="text-sm text-graphite-700">{ds.rows} measured characteristics; judged above.</p> : null}
+          {ds.kind === "test_part" ? (
+            <p className="text-sm text-graphite-700">{ds.rows} measured characteristics; judged above.</p>
+          ) : null}
           {ds.warnings.length > 0 ? (
             <ul className="mt-3 list-disc space-y-1 pl-5 text-sm text-accent-800">
               {ds.warnings.slice(0, 20).map((w, i) => (
