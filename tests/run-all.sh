@@ -10,9 +10,13 @@ ROOT=$(cd "$(dirname "$0")/.." && pwd)
 cd "$ROOT"
 export TMPDIR=$ROOT/.data/tmp XDG_CONFIG_HOME=$ROOT/.data/xdg XDG_CACHE_HOME=$ROOT/.data/xdg-cache
 mkdir -p "$TMPDIR" .data/screenshots .data/test-results
-export PGPORT=54339 PG_BASE=$ROOT/.data/test-pg
+# TEST_PORT_OFFSET moves every port (PostgreSQL, app, S3 and SMTP fakes) so that several
+# checkouts on one machine can run their suites side by side; CI leaves it at 0.
+OFF=${TEST_PORT_OFFSET:-0}
+export PGPORT=$((54339 + OFF)) PG_BASE=$ROOT/.data/test-pg
 unset DATABASE_URL
-APP_PORT=3100
+APP_PORT=$((3100 + OFF))
+S3_PORT=$((4570 + OFF)) SMTP_PORT=$((2526 + OFF))
 t0=$(date +%s)
 step() { echo; echo "== $* ($(( $(date +%s) - t0 )) s)"; }
 
@@ -48,18 +52,18 @@ step "build and serve the app for browser tests"
 export DATABASE_URL=$(bash db/pg.sh url trammel_e2e)
 # Uploaded originals go to s3rver on loopback (its own port and folder, wiped, so a running demo is untouched).
 rm -rf .data/test-s3
-S3_PORT=4570 S3_DIR=.data/test-s3 setsid npx tsx lib/storage/dev-s3.ts >.data/test-s3.log 2>&1 &
+S3_PORT=$S3_PORT S3_DIR=.data/test-s3 setsid npx tsx lib/storage/dev-s3.ts >.data/test-s3.log 2>&1 &
 echo $! >.data/test-s3.pid
-export STORAGE_DRIVER=s3 S3_ENDPOINT=http://127.0.0.1:4570
+export STORAGE_DRIVER=s3 S3_ENDPOINT=http://127.0.0.1:$S3_PORT
 for _ in $(seq 60); do curl -s -o /dev/null "$S3_ENDPOINT" && break; sleep 0.25; done
 npm run -s db:migrate
 npm run -s db:seed
 NEXT_SKIP_TYPECHECK=1 NEXT_DIST_DIR=.next-test npx next build >.data/test-build.log 2>&1 || { tail -60 .data/test-build.log; exit 1; }
 # The app's outbox worker sends to a local SMTP fake of its own (mail lands in .data/test-mail).
 rm -rf .data/test-mail
-MAIL_DIR=.data/test-mail SMTP_FAKE_PORT=2526 setsid npx tsx lib/mail/fake-smtp.ts >.data/test-smtp.log 2>&1 &
+MAIL_DIR=.data/test-mail SMTP_FAKE_PORT=$SMTP_PORT setsid npx tsx lib/mail/fake-smtp.ts >.data/test-smtp.log 2>&1 &
 echo $! >.data/test-smtp.pid
-SMTP_URL=smtp://127.0.0.1:2526 NEXT_DIST_DIR=.next-test NEXTAUTH_URL=http://127.0.0.1:$APP_PORT setsid npx next start -p $APP_PORT -H 127.0.0.1 >.data/test-app.log 2>&1 &
+SMTP_URL=smtp://127.0.0.1:$SMTP_PORT NEXT_DIST_DIR=.next-test NEXTAUTH_URL=http://127.0.0.1:$APP_PORT setsid npx next start -p $APP_PORT -H 127.0.0.1 >.data/test-app.log 2>&1 &
 echo $! >.data/test-app.pid
 for _ in $(seq 60); do curl -sf "http://127.0.0.1:$APP_PORT/api/health" >/dev/null && break; sleep 0.5; done
 curl -sf "http://127.0.0.1:$APP_PORT/api/health" >/dev/null || { echo "the app did not start:"; tail -40 .data/test-app.log; exit 1; }
@@ -76,7 +80,7 @@ kill -- -"$(cat .data/test-app.pid)" 2>/dev/null || true; rm -f .data/test-app.p
 kill -- -"$(cat .data/test-smtp.pid)" 2>/dev/null || true; rm -f .data/test-smtp.pid
 rm -f .data/test-results/faults.json
 faults_t0=$(date +%s)
-FAULTS_DB_URL=$(DATABASE_URL= bash db/pg.sh url trammel_faults) FAULTS_PORTS=$APP_PORT,$((APP_PORT + 1)) FAULTS_SMTP_PORT=2527 \
+FAULTS_DB_URL=$(DATABASE_URL= bash db/pg.sh url trammel_faults) FAULTS_PORTS=$APP_PORT,$((APP_PORT + 1)) FAULTS_SMTP_PORT=$((SMTP_PORT + 1)) \
   NEXT_DIST_DIR=.next-test npx vitest run --project faults \
   --reporter=default --reporter=json --outputFile=.data/test-results/faults.json || true
 # PDF renderer soak: a short run here (a leak of 0.4 MB per render fails it); npm run bench:pdf-soak runs the full 500.
