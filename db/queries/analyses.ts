@@ -125,13 +125,11 @@ export function computeHeadFit(
         422,
         err.code,
         `The fit could not run: ${err.message}`,
-        err.issues
-          .slice(0, 50)
-          .map((i) => ({
-            ...(i.row ? { row: i.row } : {}),
-            ...(i.column ? { column: i.column } : {}),
-            message: i.message,
-          })),
+        err.issues.slice(0, 50).map((i) => ({
+          ...(i.row ? { row: i.row } : {}),
+          ...(i.column ? { column: i.column } : {}),
+          message: i.message,
+        })),
       );
     }
     throw err;

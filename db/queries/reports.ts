@@ -528,35 +528,31 @@ export async function issueReport(
       .for("update");
     if (!locked || locked.status !== d.job.status)
       throw invalid("The job changed while the report was prepared; open it again.");
-    await tx
-      .insert(reports)
-      .values({
-        id: reportId,
-        jobId: d.job.id,
-        revision,
-        supersedesId: current?.id ?? null,
-        amendmentReason: input.amendmentReason?.trim() || null,
-        pdf,
-        pdfSha256,
-        contentSha256: content.contentSha256,
-        content,
-        issuedAt,
-        issuedById: actor.id,
-      });
-    await tx
-      .insert(signatures)
-      .values({
-        jobId: d.job.id,
-        reportId,
-        meaning: "approved",
-        signerId: actor.id,
-        signerName: actor.name,
-        signerRole: actor.role,
-        signedAt: issuedAt,
-        manifest,
-        signature,
-        keyId: manifest.keyId,
-      });
+    await tx.insert(reports).values({
+      id: reportId,
+      jobId: d.job.id,
+      revision,
+      supersedesId: current?.id ?? null,
+      amendmentReason: input.amendmentReason?.trim() || null,
+      pdf,
+      pdfSha256,
+      contentSha256: content.contentSha256,
+      content,
+      issuedAt,
+      issuedById: actor.id,
+    });
+    await tx.insert(signatures).values({
+      jobId: d.job.id,
+      reportId,
+      meaning: "approved",
+      signerId: actor.id,
+      signerName: actor.name,
+      signerRole: actor.role,
+      signedAt: issuedAt,
+      manifest,
+      signature,
+      keyId: manifest.keyId,
+    });
     await tx.update(jobs).set({ status: "issued" }).where(eq(jobs.id, d.job.id));
     await appendAudit(tx, {
       actorId: actor.id,

@@ -61,14 +61,12 @@ export async function inviteUser(actor: Actor, input: z.infer<typeof userInviteS
         passwordHash: null,
       })
       .returning();
-    await tx
-      .insert(userTokens)
-      .values({
-        userId: u!.id,
-        purpose: "invite",
-        tokenHash: tokenHash(token),
-        expiresAt: new Date(Date.now() + INVITE_TTL_MS),
-      });
+    await tx.insert(userTokens).values({
+      userId: u!.id,
+      purpose: "invite",
+      tokenHash: tokenHash(token),
+      expiresAt: new Date(Date.now() + INVITE_TTL_MS),
+    });
     await enqueueMail(tx, {
       dedupeKey: `invite:${u!.id}`,
       to: email,

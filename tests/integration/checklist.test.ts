@@ -307,16 +307,14 @@ describe("outbox worker", () => {
 
   it("two concurrent workers claim disjoint rows: every due message is delivered exactly once", async () => {
     const tag = Date.now().toString(36);
-    await db
-      .insert(outbox)
-      .values(
-        Array.from({ length: 12 }, (_, i) => ({
-          dedupeKey: `test:${tag}:${i}`,
-          toAddress: `person${i}@halvard.example`,
-          subject: `Test ${tag} ${i}`,
-          textBody: `Message ${i}`,
-        })),
-      );
+    await db.insert(outbox).values(
+      Array.from({ length: 12 }, (_, i) => ({
+        dedupeKey: `test:${tag}:${i}`,
+        toAddress: `person${i}@halvard.example`,
+        subject: `Test ${tag} ${i}`,
+        textBody: `Message ${i}`,
+      })),
+    );
     const due = await db
       .select({ id: outbox.id })
       .from(outbox)
