@@ -25,7 +25,7 @@ import {
   users,
 } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
-import type { Actor } from "@/lib/auth/roles";
+import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import { processOutbox } from "@/lib/mail/worker";
 import { jobIdByReference, request, signInAs } from "./helpers";
@@ -307,16 +307,14 @@ describe("outbox worker", () => {
 
   it("two concurrent workers claim disjoint rows: every due message is delivered exactly once", async () => {
     const tag = Date.now().toString(36);
-    await db
-      .insert(outbox)
-      .values(
-        Array.from({ length: 12 }, (_, i) => ({
-          dedupeKey: `test:${tag}:${i}`,
-          toAddress: `person${i}@halvard.example`,
-          subject: `Test ${tag} ${i}`,
-          textBody: `Message ${i}`,
-        })),
-      );
+    await db.insert(outbox).values(
+      Array.from({ length: 12 }, (_, i) => ({
+        dedupeKey: `test:${tag}:${i}`,
+        toAddress: `person${i}@halvard.example`,
+        subject: `Test ${tag} ${i}`,
+        textBody: `Message ${i}`,
+      })),
+    );
     const due = await db
       .select({ id: outbox.id })
       .from(outbox)
