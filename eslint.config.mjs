@@ -1,13 +1,70 @@
-// Lint rules that guard the architecture. The important one: geometry/ stays pure, so the
-// numbers the product signs can be tested and re-run anywhere.
+// Lint rules that guard the architecture. geometry/ stays pure, so the numbers the product signs
+// can be tested and re-run anywhere; pages and components read data only through db/queries;
+// settings are read only in lib/env.ts. tests/unit/lint-rules.test.ts plants a violation of each.
 import tseslint from "typescript-eslint";
+import reactHooks from "eslint-plugin-react-hooks";
+import nextPlugin from "@next/eslint-plugin-next";
+import prettier from "eslint-config-prettier/flat";
+
+/** The database client, the schema and the query builder: only db/queries may use them directly. */
+const databaseInternals = {
+  regex: "^(@/db(/index|/schema)?|drizzle-orm(/.*)?)$",
+  message: "Pages and components read and write through db/queries, never the client, schema or drizzle.",
+};
 
 export default tseslint.config(
   { ignores: [".next/**", ".next-*/**", "node_modules/**", ".data/**", "next-env.d.ts"] },
   ...tseslint.configs.recommended,
+  reactHooks.configs.flat.recommended,
+  nextPlugin.configs["core-web-vitals"],
   {
     rules: {
       "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_" }],
+    },
+  },
+  {
+    // Settings come from the validated env module; config files, scripts and tests are outside the app.
+    files: ["**/*.{ts,tsx,mjs,js}"],
+    ignores: [
+      "lib/env.ts",
+      "*.config.{ts,mjs,js}",
+      "lib/scripts/**",
+      "lib/cli/**",
+      "lib/mail/fake-smtp.ts",
+      "lib/storage/dev-s3.ts",
+      "tests/**",
+      "db/migrate.ts",
+      "db/seed.ts",
+      "db/audit-verify.ts",
+    ],
+    rules: {
+      "no-restricted-properties": [
+        "error",
+        { object: "process", property: "env", message: "Read settings through lib/env.ts." },
+      ],
+    },
+  },
+  {
+    // Pages, layouts and their private pieces (route handlers and actions call db/queries too).
+    files: ["app/**/*.{ts,tsx}"],
+    ignores: ["app/**/route.ts", "app/**/actions.ts"],
+    rules: { "no-restricted-imports": ["error", { patterns: [databaseInternals] }] },
+  },
+  {
+    files: ["components/**/*.{ts,tsx}"],
+    rules: {
+      "no-restricted-imports": [
+        "error",
+        {
+          patterns: [
+            {
+              regex: "^(@/db(/.*)?|drizzle-orm(/.*)?)$",
+              message:
+                "Components take their types from lib/domain and their data from props, never from db/.",
+            },
+          ],
+        },
+      ],
     },
   },
   {
@@ -44,4 +101,5 @@ export default tseslint.config(
       ],
     },
   },
+  prettier,
 );

@@ -5,12 +5,12 @@
  * (or a second app process) never sends a message twice. OUTBOX_WORKER=0 turns it off.
  */
 export async function register() {
-  if (
-    process.env.NEXT_RUNTIME !== "nodejs" ||
-    process.env.OUTBOX_WORKER === "0" ||
-    process.env.NEXT_PHASE === "phase-production-build"
-  )
-    return;
+  // Next.js sets NEXT_RUNTIME per bundle and inlines it, so the Node-only import below is dropped
+  // from the edge bundle; it has to be read literally here, before lib/env can be loaded.
+  // eslint-disable-next-line no-restricted-properties
+  if (process.env.NEXT_RUNTIME !== "nodejs") return;
+  const { env, building } = await import("@/lib/env");
+  if (env.OUTBOX_WORKER === "0" || building) return;
   const { startOutboxWorker } = await import("@/lib/mail/worker");
-  startOutboxWorker(Number(process.env.OUTBOX_INTERVAL_MS ?? 5_000));
+  startOutboxWorker(env.OUTBOX_INTERVAL_MS);
 }

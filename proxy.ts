@@ -4,6 +4,7 @@
 // route and query checks the user again on the server.
 import { NextResponse, type NextRequest } from "next/server";
 import { identityFromCookies, sessionCookieJar } from "@/lib/auth/session-token";
+import { env } from "@/lib/env";
 
 const PROTECTED_PAGES = ["/jobs", "/heads", "/registers", "/dev"];
 
@@ -37,7 +38,7 @@ function securityHeaders(res: NextResponse, csp: string, signedIn: boolean): Nex
 
 export default async function proxy(req: NextRequest) {
   const nonce = btoa(crypto.randomUUID());
-  const csp = contentSecurityPolicy(nonce, process.env.NODE_ENV === "development");
+  const csp = contentSecurityPolicy(nonce, env.NODE_ENV === "development");
   const token = await identityFromCookies(sessionCookieJar(req.cookies.getAll()));
   const path = req.nextUrl.pathname;
   if (!token && PROTECTED_PAGES.some((p) => path === p || path.startsWith(`${p}/`))) {

@@ -9,7 +9,7 @@ import { appendAudit } from "@/db/queries/audit";
 import { customers, heads, jobs, machines, sites, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import { seedReports } from "./seed-reports";
-import type { Role } from "@/lib/auth/roles";
+import type { Role } from "@/lib/domain/roles";
 
 export const DEMO_PASSWORD = "trammel-demo";
 export const SERVICE_COMPANY = "Halvard Field Service";

@@ -5,7 +5,7 @@
  */
 import "server-only";
 import { z } from "zod";
-import type { Actor, Role } from "@/lib/auth/roles";
+import type { Actor, Role } from "@/lib/domain/roles";
 import { requireRole, requireUser } from "@/lib/auth/session";
 import { AppError, isDatabaseUnavailable, unavailable } from "./errors";
 

@@ -45,9 +45,18 @@ const schema = z.object({
   SMTP_URL: z.string().url().default("smtp://127.0.0.1:2525"),
   /** First retry delay after a failed send; each later one doubles, up to an hour. Short in fault tests. */
   OUTBOX_RETRY_BASE_MS: z.coerce.number().int().min(100).max(3_600_000).default(30_000),
+  /** The sender of every e-mail the outbox sends. */
+  MAIL_FROM: z.string().min(3).default("Trammel <noreply@halvard.example>"),
+  /** "0" turns off the outbox worker that instrumentation.ts starts inside the server. */
+  OUTBOX_WORKER: z.enum(["0", "1"]).default("1"),
+  /** How often the outbox worker looks for due messages. Short in fault tests. */
+  OUTBOX_INTERVAL_MS: z.coerce.number().int().min(50).max(3_600_000).default(5_000),
 });
 
 export type Env = z.infer<typeof schema>;
+
+/** True while `next build` runs (pages are prerendered, no server is started). */
+export const building = process.env.NEXT_PHASE === "phase-production-build";
 
 function load(): Env {
   const parsed = schema.safeParse(process.env);
@@ -56,7 +65,6 @@ function load(): Env {
     throw new Error(`Invalid environment:\n${lines}`);
   }
   // The build runs in production mode too; the secret is only needed when the server runs.
-  const building = process.env.NEXT_PHASE === "phase-production-build";
   if (parsed.data.NODE_ENV === "production" && !parsed.data.NEXTAUTH_SECRET && !building) {
     throw new Error("Invalid environment:\n  NEXTAUTH_SECRET: required in production");
   }

@@ -2,7 +2,8 @@ import Link from "next/link";
 import { LogoMark } from "@/components/brand/logo";
 import { MainNav } from "@/components/shell/main-nav";
 import { SignOutButton } from "@/components/shell/sign-out-button";
-import { navigationFor, ROLE_LABELS } from "@/lib/auth/roles";
+import { ROLE_LABELS } from "@/lib/domain/roles";
+import { navigationFor } from "@/lib/policy/navigation";
 import { requirePageUser } from "@/lib/auth/session";
 
 export default async function AppLayout({ children }: { children: React.ReactNode }) {
@@ -15,7 +16,7 @@ export default async function AppLayout({ children }: { children: React.ReactNod
             <LogoMark />
             <span className="text-lg font-semibold tracking-tight">Trammel</span>
           </Link>
-          <MainNav items={navigationFor(user.role)} />
+          <MainNav items={navigationFor(user)} />
           <div className="ml-auto flex items-center gap-3">
             <div className="text-right leading-tight" data-testid="current-user">
               <p className="text-sm font-medium">{user.name}</p>

@@ -3,7 +3,7 @@
 import { useState, useTransition } from "react";
 import { useRouter } from "next/navigation";
 import { changeStatusAction, setUnitSystemAction } from "@/app/(app)/jobs/[id]/checklist/actions";
-import type { JobStatus } from "@/lib/auth/roles";
+import type { JobStatus } from "@/lib/domain/jobs";
 
 /** Status moves this user may make from the checklist (checked again on the server). */
 export function StatusButtons({

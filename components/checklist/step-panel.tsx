@@ -2,7 +2,7 @@
 
 import { ScrollRegion } from "@/components/ui/scroll-region";
 import { useMemo, useState, useTransition } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { useRouter } from "next/navigation";
 import { recordReadingAction } from "@/app/(app)/jobs/[id]/checklist/actions";
 import { DecisionBadge } from "@/components/readings/decision-badge";
@@ -93,7 +93,7 @@ export function StepPanel({
   const choosable = instruments.filter((i) => i.quantityKind === readsKind);
   const hasPre = readings.some((r) => r.phase === "pre" && !r.supersededById);
 
-  const { register, handleSubmit, watch, reset, setValue } = useForm<FormValues>({
+  const { register, handleSubmit, control, reset, setValue } = useForm<FormValues>({
     defaultValues: {
       phase: hasPre ? "post" : "pre",
       value: "",
@@ -103,7 +103,10 @@ export function StepPanel({
       takenAt: localNow(),
     },
   });
-  const [value, travel, instrumentId, phase] = watch(["value", "travel", "instrumentId", "phase"]);
+  const [value, travel, instrumentId, phase] = useWatch({
+    control,
+    name: ["value", "travel", "instrumentId", "phase"],
+  });
   const instrument = instruments.find((i) => i.id === instrumentId);
   const expired = instrument && instrument.calibrationDueOn < today;
 

@@ -1,6 +1,6 @@
 import { ScrollRegion } from "@/components/ui/scroll-region";
 import Link from "next/link";
-import type { DatasetListRow } from "@/db/queries/datasets";
+import type { DatasetListRow } from "@/lib/domain/datasets";
 import { formatDateTimeUtc } from "@/lib/format";
 import { KIND_LABELS, PHASE_LABELS } from "./kinds";
 

@@ -3,7 +3,7 @@ import { ParameterTrend, type TrendSeries } from "@/components/charts/parameter-
 import { Card } from "@/components/ui/card";
 import { ScrollRegion } from "@/components/ui/scroll-region";
 import { StatusBadge } from "@/components/ui/status-badge";
-import type { HeadFitHistory } from "@/db/queries/heads-admin";
+import type { HeadHistoryJob } from "@/lib/domain/heads";
 import { HEAD_PARAMETER_KEYS } from "@/geometry";
 import { parameterRows, PARAMETER_WORDS, type ParameterRow } from "@/lib/fit-display";
 import { formatDate, formatDateTimeUtc, JOB_KIND_LABELS } from "@/lib/format";
@@ -11,7 +11,7 @@ import { formatDate, formatDateTimeUtc, JOB_KIND_LABELS } from "@/lib/format";
 const UNIT_TEXT = { um: "µm", arcsec: "″" } as const;
 
 /** The fitted parameters of every job on the head side by side (one column per job), then their trend. */
-export function FitHistory({ history }: { history: HeadFitHistory }) {
+export function FitHistory({ history }: { history: { readonly jobs: readonly HeadHistoryJob[] } }) {
   const jobs = history.jobs;
   const rowsByJob = jobs.map((j) =>
     j.fit ? new Map(parameterRows(j.fit.fit).map((r) => [r.key, r])) : null,

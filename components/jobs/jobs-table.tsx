@@ -1,6 +1,6 @@
 import { ScrollRegion } from "@/components/ui/scroll-region";
 import Link from "next/link";
-import type { JobListRow, JobSortKey } from "@/db/queries/jobs";
+import type { JobListRow, JobSortKey } from "@/lib/domain/jobs";
 import { StatusBadge } from "@/components/ui/status-badge";
 import { formatDate, JOB_KIND_LABELS } from "@/lib/format";
 

@@ -1,5 +1,5 @@
-import type { JobStatus } from "@/lib/auth/roles";
-import { STATUS_LABELS } from "@/lib/auth/roles";
+import type { JobStatus } from "@/lib/domain/jobs";
+import { STATUS_LABELS } from "@/lib/domain/jobs";
 
 const MAIN: JobStatus[] = ["draft", "measuring", "in_review", "approved", "issued"];
 

@@ -1,8 +1,8 @@
 import Link from "next/link";
 import { SimpleTable } from "@/components/ui/simple-table";
-import type { listHeads } from "@/db/queries/registers";
+import type { HeadListRow } from "@/lib/domain/heads";
 
-export function HeadsTable({ rows }: { rows: Awaited<ReturnType<typeof listHeads>> }) {
+export function HeadsTable({ rows }: { rows: readonly HeadListRow[] }) {
   return (
     <SimpleTable
       caption="Heads"

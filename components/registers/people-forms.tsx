@@ -1,7 +1,7 @@
 "use client";
 
 import { inviteUserAction, updateUserAction } from "@/app/(app)/registers/actions";
-import { ROLE_LABELS, ROLES, type Role } from "@/lib/auth/roles";
+import { ROLE_LABELS, ROLES, type Role } from "@/lib/domain/roles";
 import { ActionForm, Field, inputClass } from "./action-form";
 
 export function InviteForm({ customers }: { customers: ReadonlyArray<{ id: string; name: string }> }) {

@@ -2,7 +2,7 @@
 
 import Link from "next/link";
 import { usePathname } from "next/navigation";
-import type { NavItem } from "@/lib/auth/roles";
+import type { NavItem } from "@/lib/policy/navigation";
 
 export function MainNav({ items }: { items: readonly NavItem[] }) {
   const path = usePathname();

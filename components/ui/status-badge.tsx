@@ -1,5 +1,5 @@
-import type { JobStatus } from "@/lib/auth/roles";
-import { STATUS_LABELS } from "@/lib/auth/roles";
+import type { JobStatus } from "@/lib/domain/jobs";
+import { STATUS_LABELS } from "@/lib/domain/jobs";
 
 /** Job status as an icon and a word: colour is never the only signal. */
 const STYLES: Record<JobStatus, { cls: string; icon: React.ReactNode }> = {

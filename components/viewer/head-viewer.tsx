@@ -13,7 +13,7 @@
 import { Html, Line, OrbitControls } from "@react-three/drei";
 import { Canvas, useThree } from "@react-three/fiber";
 import { useRouter } from "next/navigation";
-import { useEffect, useLayoutEffect, useMemo, useRef, useState } from "react";
+import { useEffect, useLayoutEffect, useMemo, useRef, useState, useSyncExternalStore } from "react";
 import * as THREE from "three";
 import type { OrbitControls as OrbitControlsImpl } from "three-stdlib";
 import {
@@ -59,14 +59,23 @@ export interface HeadViewerProps {
 
 export { factorFromSlider, formatFactor };
 
+let webglCached: boolean | undefined;
+
+/** Whether this browser can draw WebGL, probed once per page load (it does not change). */
 function webglAvailable(): boolean {
-  try {
-    const c = document.createElement("canvas");
-    return Boolean(c.getContext("webgl2") ?? c.getContext("webgl"));
-  } catch {
-    return false;
+  if (webglCached === undefined) {
+    try {
+      const c = document.createElement("canvas");
+      webglCached = Boolean(c.getContext("webgl2") ?? c.getContext("webgl"));
+    } catch {
+      webglCached = false;
+    }
   }
+  return webglCached;
 }
+const noSubscription = () => () => {};
+/** On the server and during hydration it is not known yet (null), so both renders agree. */
+const webglUnknown = () => null;
 
 export function HeadViewer({
   config,
@@ -80,7 +89,7 @@ export function HeadViewer({
 }: HeadViewerProps) {
   const [slider, setSlider] = useState(Math.log10(initialFactor));
   const [ready, setReady] = useState(false);
-  const [webgl, setWebgl] = useState<boolean | null>(null);
+  const webgl = useSyncExternalStore<boolean | null>(noSubscription, webglAvailable, webglUnknown);
   const [showOverlay, setShowOverlay] = useState(false);
   const controls = useRef<OrbitControlsImpl | null>(null);
   const captureRef = useRef<(() => HTMLCanvasElement) | null>(null);
@@ -102,8 +111,6 @@ export function HeadViewer({
   const maxRes = useMemo(() => Math.max(1e-9, ...Array.from(scene.residualUm)), [scene.residualUm]);
   const L = config.pivotLengthMm;
   const maxTool = Math.max(0, ...poses.map((p) => p.toolMm ?? 0));
-
-  useEffect(() => setWebgl(webglAvailable()), []);
 
   return (
     <div className="space-y-3">

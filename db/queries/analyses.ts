@@ -18,7 +18,14 @@ import {
   type SphereProbeData,
 } from "@/geometry";
 import { canonicalJson } from "@/lib/canonical-json";
-import { canTransition, HEAD_FIT_ROLES, headFitRefusal, STATUS_LABELS, type Actor } from "@/lib/auth/roles";
+
+import { type Actor } from "@/lib/domain/roles";
+import {
+  fitApprovalRefusal,
+  fitApproverRefusal,
+  headFitRefusal,
+  headFitterRefusal,
+} from "@/lib/policy/analyses";
 import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
@@ -186,11 +193,10 @@ export async function runHeadFit(
 ): Promise<{ analysis: AnalysisRow; created: boolean }> {
   const d = await getDataset(actor, datasetId);
   if (!d) throw notFound("dataset");
-  const refusal = headFitRefusal(actor.role, d.job.status);
-  if (refusal)
-    throw !HEAD_FIT_ROLES.includes(actor.role)
-      ? forbidden(refusal)
-      : new AppError(409, "job_closed", refusal);
+  const who = headFitterRefusal(actor);
+  if (who) throw forbidden(who);
+  const refusal = headFitRefusal(actor, d.job);
+  if (refusal) throw new AppError(409, "job_closed", refusal);
   if (d.dataset.status !== "stored")
     throw new AppError(409, "dataset_deleted", "This dataset is deleted; it cannot be fitted.");
   if (d.dataset.kind !== "sphere_probe")
@@ -347,22 +353,16 @@ export async function getApprovedAnalysis(actor: Actor, jobId: string) {
 
 /**
  * An engineer approves a stored fit as the job's parameter set: the job moves in review →
- * approved (lib/auth/roles.canTransition) and both the approval and the status change are audited
+ * approved (lib/policy/analyses.fitApprovalRefusal) and both the approval and the status change are audited
  * in one transaction. 404 when not visible; 403 for any other role; 409 when the job is not in review.
  */
 export async function approveAnalysis(actor: Actor, analysisId: string) {
   const a = await getAnalysis(actor, analysisId);
   if (!a) throw notFound("analysis");
-  if (actor.role !== "engineer")
-    throw forbidden("Only an application engineer approves a head's parameters.");
-  const status = a.job.status;
-  if (!canTransition(actor.role, status, "approved")) {
-    throw new AppError(
-      409,
-      "not_in_review",
-      `The job is ${STATUS_LABELS[status].toLowerCase()}; parameters are approved once the installer has submitted it for review.`,
-    );
-  }
+  const who = fitApproverRefusal(actor);
+  if (who) throw forbidden(who);
+  const refusal = fitApprovalRefusal(actor, a.job);
+  if (refusal) throw new AppError(409, "not_in_review", refusal);
   return db.transaction(async (tx) => {
     const [locked] = await tx
       .select({ status: jobs.status })

@@ -12,7 +12,8 @@ import { appendAudit } from "@/db/queries/audit";
 import { getAnalysis } from "@/db/queries/analyses";
 import { jobAccessCondition } from "@/db/queries/jobs";
 import { analyses, analysisViews, auditEvents, datasets, jobs, users } from "@/db/schema";
-import type { Actor } from "@/lib/auth/roles";
+import type { Actor } from "@/lib/domain/roles";
+import { viewSaveRefusal } from "@/lib/policy/analyses";
 import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
 import { PngError, readPngInfo } from "@/lib/png-info";
 import { getStorage } from "@/lib/storage";
@@ -85,8 +86,8 @@ export async function saveAnalysisView(
 ): Promise<ViewRow> {
   const a = await getAnalysis(actor, analysisId);
   if (!a) throw notFound("analysis");
-  if (actor.role !== "engineer")
-    throw forbidden("Only an application engineer saves views of a fit for the report.");
+  const refusal = viewSaveRefusal(actor);
+  if (refusal) throw forbidden(refusal);
   if (input.png.length > VIEW_MAX_BYTES)
     throw new AppError(
       413,

@@ -3,9 +3,11 @@ import { and, desc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { getJobDetail, jobAccessCondition } from "@/db/queries/jobs";
-import { datasetColumns, datasets, jobs, users, type Dataset } from "@/db/schema";
+import { datasetColumns, datasets, jobs, users } from "@/db/schema";
 import { evaluateTestPart, type TestPartRow } from "@/geometry";
-import type { Actor, JobStatus, Role } from "@/lib/auth/roles";
+import type { DatasetListRow } from "@/lib/domain/datasets";
+import type { Actor } from "@/lib/domain/roles";
+import { dataHandlerRefusal, datasetDeleteRefusal, uploadRefusal } from "@/lib/policy/datasets";
 import { AppError, forbidden, notFound } from "@/lib/errors";
 import { datasetObjectKey, getStorage } from "@/lib/storage";
 import type { UploadedFile } from "@/lib/storage/multipart";
@@ -16,21 +18,7 @@ import {
   type UploadForm,
 } from "@/lib/storage/parse-dataset";
 
-/** Who may upload to a job they can see (installers only see their assigned jobs). */
-export const UPLOAD_ROLES: readonly Role[] = ["admin", "installer", "inspector", "engineer"];
-/** Uploads are taken while the work is open; once approved the record is fixed. */
-export const UPLOAD_STATUSES: readonly JobStatus[] = ["draft", "measuring", "in_review"];
-/** Deletion only before review. */
-export const DELETE_STATUSES: readonly JobStatus[] = ["draft", "measuring"];
-
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
-export function canUploadTo(actor: Actor, status: JobStatus): boolean {
-  return UPLOAD_ROLES.includes(actor.role) && UPLOAD_STATUSES.includes(status);
-}
-export function canDeleteFrom(actor: Actor, status: JobStatus): boolean {
-  return UPLOAD_ROLES.includes(actor.role) && DELETE_STATUSES.includes(status);
-}
 
 /**
  * The job an upload goes to, checked before the body is read: 404 when the actor may not see it,
@@ -39,14 +27,10 @@ export function canDeleteFrom(actor: Actor, status: JobStatus): boolean {
 export async function requireUploadableJob(actor: Actor, jobId: string) {
   const d = await getJobDetail(actor, jobId);
   if (!d) throw notFound("job");
-  if (!UPLOAD_ROLES.includes(actor.role)) throw forbidden("Your role may not upload data.");
-  if (!UPLOAD_STATUSES.includes(d.job.status)) {
-    throw new AppError(
-      409,
-      "job_closed",
-      `Data can be added while the job is draft, measuring or in review; this job is ${d.job.status.replace("_", " ")}.`,
-    );
-  }
+  const who = dataHandlerRefusal(actor, "upload");
+  if (who) throw forbidden(who);
+  const when = uploadRefusal(actor, d.job);
+  if (when) throw new AppError(409, "job_closed", when);
   return d;
 }
 
@@ -143,22 +127,7 @@ const listColumns = {
   deletedAt: datasets.deletedAt,
   uploaderName: users.name,
 };
-export type DatasetListRow = {
-  id: string;
-  jobId: string;
-  kind: Dataset["kind"];
-  phase: Dataset["phase"];
-  status: Dataset["status"];
-  rows: number;
-  sha256: string;
-  sizeBytes: number;
-  originalFilename: string;
-  units: unknown;
-  warnings: string[];
-  uploadedAt: Date;
-  deletedAt: Date | null;
-  uploaderName: string | null;
-};
+export type { DatasetListRow };
 
 /** The datasets of a job the actor may see, newest first; null when the job is not visible. */
 export async function listDatasets(actor: Actor, jobId: string): Promise<DatasetListRow[] | null> {
@@ -238,16 +207,12 @@ export async function getDatasetColumns(
 export async function deleteDataset(actor: Actor, datasetId: string) {
   const d = await getDataset(actor, datasetId);
   if (!d) throw notFound("dataset");
-  if (!UPLOAD_ROLES.includes(actor.role)) throw forbidden("Your role may not delete data.");
+  const who = dataHandlerRefusal(actor, "delete");
+  if (who) throw forbidden(who);
   if (d.dataset.status === "deleted")
     throw new AppError(409, "already_deleted", "This dataset is already deleted.");
-  if (!DELETE_STATUSES.includes(d.job.status)) {
-    throw new AppError(
-      409,
-      "job_closed",
-      "Data can be deleted only before review, while the job is draft or measuring.",
-    );
-  }
+  const when = datasetDeleteRefusal(actor, d.job);
+  if (when) throw new AppError(409, "job_closed", when);
   return db.transaction(async (tx) => {
     const [row] = await tx
       .update(datasets)

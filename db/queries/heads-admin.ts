@@ -5,14 +5,16 @@ import { appendAudit } from "@/db/queries/audit";
 import type { StoredHeadFit } from "@/db/queries/analyses";
 import { jobAccessCondition } from "@/db/queries/jobs";
 import { analyses, auditEvents, customers, datasets, heads, jobs, machines, sites } from "@/db/schema";
-import type { HeadFitJson } from "@/geometry";
-import { canReadHeadHistory, canReadRegister, type Actor, type JobStatus } from "@/lib/auth/roles";
+import type { HeadHistoryJob } from "@/lib/domain/heads";
+import { type Actor } from "@/lib/domain/roles";
+import { headHistoryRefusal, headHistoryScope } from "@/lib/policy/heads";
+import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 
 /** One head with where it is mounted now and its mounting history (from the audit trail). */
 export async function getHeadWithHistory(actor: Actor, headId: string) {
-  if (!canReadRegister(actor.role, "heads"))
-    throw forbidden("The heads register is kept by the service company.");
+  const refusal = registerReadRefusal(actor, "heads");
+  if (refusal) throw forbidden(refusal);
   if (!/^[0-9a-f-]{36}$/i.test(headId)) return null;
   const [row] = await db
     .select({ head: heads, machineName: machines.name, siteName: sites.name, customerName: customers.name })
@@ -32,7 +34,8 @@ export async function getHeadWithHistory(actor: Actor, headId: string) {
 
 /** Mounts the head on a machine (or takes it off with null); audited so the history can be read back. */
 export async function mountHead(actor: Actor, headId: string, machineId: string | null) {
-  if (actor.role !== "admin") throw forbidden("Heads are moved in the register by the administrator.");
+  const refusal = registerEditRefusal(actor, "heads");
+  if (refusal) throw forbidden(refusal);
   const [h] = await db.select().from(heads).where(eq(heads.id, headId));
   if (!h) throw notFound("head");
   let label = "not mounted";
@@ -65,25 +68,7 @@ export async function mountHead(actor: Actor, headId: string, machineId: string 
   return { changed: true };
 }
 
-/** One job on a head with the fit that stands for it: the approved one, or else the latest. */
-export interface HeadHistoryJob {
-  readonly id: string;
-  readonly reference: string;
-  readonly title: string;
-  readonly kind: "installation" | "reverification" | "after_crash";
-  readonly status: JobStatus;
-  /** When the work was (or is) scheduled, else when the job was created. */
-  readonly date: Date;
-  readonly fit: {
-    readonly analysisId: string;
-    readonly approved: boolean;
-    readonly createdAt: Date;
-    readonly datasetFilename: string;
-    readonly phase: "pre" | "post";
-    readonly geometryVersion: string;
-    readonly fit: HeadFitJson;
-  } | null;
-}
+export type { HeadHistoryJob };
 
 /**
  * The fitted parameters of every job on a head, oldest first: for each job its approved fit (the
@@ -94,9 +79,9 @@ export interface HeadHistoryJob {
  * and inspectors, who do not read the heads register, are refused (403).
  */
 export async function getHeadFitHistory(actor: Actor, headId: string) {
-  const staff = canReadRegister(actor.role, "heads");
-  if (!canReadHeadHistory(actor.role))
-    throw forbidden("The history of a head is read by engineers, the office and the head's owner.");
+  const refusal = headHistoryRefusal(actor);
+  if (refusal) throw forbidden(refusal);
+  const staff = headHistoryScope(actor) === "all";
   if (!/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(headId)) return null;
   const [head] = await db.select().from(heads).where(eq(heads.id, headId));
   if (!head) return null;

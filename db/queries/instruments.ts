@@ -4,14 +4,15 @@ import { z } from "zod";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { instruments } from "@/db/schema";
-import { canReadRegisterOf, type Actor } from "@/lib/auth/roles";
+import { type Actor } from "@/lib/domain/roles";
+import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { forbidden, invalid } from "@/lib/errors";
 import { toCanonical } from "@/lib/units";
 import type { instrumentCreateSchema } from "@/lib/validations/registers";
 
 export async function listInstruments(actor: Actor) {
-  if (!canReadRegisterOf(actor.role, "instruments"))
-    throw forbidden("The instrument register is kept by the service company.");
+  const refusal = registerReadRefusal(actor, "instruments");
+  if (refusal) throw forbidden(refusal);
   return db
     .select()
     .from(instruments)
@@ -20,7 +21,8 @@ export async function listInstruments(actor: Actor) {
 
 /** Adds an instrument (administrator), resolution and uncertainty converted to mm or arcsec; audited. */
 export async function createInstrument(actor: Actor, input: z.infer<typeof instrumentCreateSchema>) {
-  if (actor.role !== "admin") throw forbidden("Instruments are registered by the administrator.");
+  const refusal = registerEditRefusal(actor, "instruments");
+  if (refusal) throw forbidden(refusal);
   const [dupe] = await db
     .select({ id: instruments.id })
     .from(instruments)

@@ -5,7 +5,9 @@ import { appendAudit } from "@/db/queries/audit";
 import { getJobDetail } from "@/db/queries/jobs";
 import { enqueueMail } from "@/db/queries/outbox";
 import { datasets, heads, jobs, machines, procedureTemplates, sites, users } from "@/db/schema";
-import { canTransition, STATUS_LABELS, type Actor, type JobStatus } from "@/lib/auth/roles";
+import type { JobStatus } from "@/lib/domain/jobs";
+import { type Actor } from "@/lib/domain/roles";
+import { jobCreateRefusal, transitionRefusal } from "@/lib/policy/jobs";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 import { publicUrl } from "@/lib/env";
 
@@ -13,7 +15,7 @@ import { publicUrl } from "@/lib/env";
 const SIGNED_MOVES: readonly JobStatus[] = ["issued", "accepted", "rejected"];
 
 /**
- * Changes a job's status if lib/auth/roles.canTransition allows this role the move; an installer
+ * Changes a job's status if lib/policy/jobs.transitionRefusal allows this actor the move; an installer
  * may only move jobs assigned to them (visibility already limits that). Submitting for review
  * queues an e-mail to every engineer and inspector in the same transaction.
  */
@@ -22,11 +24,8 @@ export async function changeJobStatus(actor: Actor, jobId: string, to: JobStatus
   if (!d) throw notFound("job");
   if (SIGNED_MOVES.includes(to))
     throw forbidden("Issuing, accepting and rejecting are signed on the job's report page.");
-  if (!canTransition(actor.role, d.job.status, to)) {
-    throw forbidden(
-      `A ${actor.role} may not move a job from ${STATUS_LABELS[d.job.status].toLowerCase()} to ${STATUS_LABELS[to].toLowerCase()}.`,
-    );
-  }
+  const refusal = transitionRefusal(actor, { job: d.job, to });
+  if (refusal) throw forbidden(refusal);
   // A job with sphere-probe data is approved by approving its fitted parameters (Analysis tab),
   // so the approval always names the parameter set the control will be given.
   if (to === "approved") {
@@ -97,8 +96,8 @@ export interface JobCreateInput {
  * TR-<year>-<nnnn>. Audited.
  */
 export async function createJobFromTemplate(actor: Actor, input: JobCreateInput) {
-  if (actor.role !== "admin" && actor.role !== "engineer")
-    throw forbidden("Jobs are opened by the office (administrator or engineer).");
+  const refusal = jobCreateRefusal(actor);
+  if (refusal) throw forbidden(refusal);
   const [t] = await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, input.templateId));
   if (!t) throw invalid("Choose a procedure.", [{ field: "templateId", message: "No such procedure." }]);
   const [m] = await db

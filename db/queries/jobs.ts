@@ -4,9 +4,11 @@ import { alias } from "drizzle-orm/pg-core";
 import { cache } from "react";
 import { db } from "@/db";
 import { customers, heads, jobs, machines, sites, users } from "@/db/schema";
-import { jobScope, type Actor, type JobStatus } from "@/lib/auth/roles";
+import { JOB_SORT_KEYS, type JobListRow, type JobSortKey, type JobStatus } from "@/lib/domain/jobs";
+import { type Actor } from "@/lib/domain/roles";
+import { jobScope } from "@/lib/policy/jobs";
 
-/** The SQL form of lib/auth/roles.jobScope: every read of jobs goes through it. */
+/** The SQL form of lib/policy/jobs.jobScope: every read of jobs goes through it. */
 export function jobAccessCondition(actor: Actor): SQL | undefined {
   const scope = jobScope(actor);
   switch (scope.kind) {
@@ -21,8 +23,7 @@ export function jobAccessCondition(actor: Actor): SQL | undefined {
   }
 }
 
-export const JOB_SORT_KEYS = ["reference", "title", "status", "customer", "machine", "updated"] as const;
-export type JobSortKey = (typeof JOB_SORT_KEYS)[number];
+export { JOB_SORT_KEYS, type JobSortKey };
 
 export interface JobListFilters {
   status?: JobStatus;
@@ -50,22 +51,7 @@ const listColumns = {
   installerName: installers.name,
 };
 
-export type JobListRow = {
-  id: string;
-  reference: string;
-  title: string;
-  kind: "installation" | "reverification" | "after_crash";
-  status: JobStatus;
-  updatedAt: Date;
-  scheduledFor: Date | null;
-  customerId: string;
-  customerName: string;
-  siteName: string;
-  machineName: string;
-  headSerial: string;
-  headAxes: string;
-  installerName: string | null;
-};
+export type { JobListRow };
 
 function baseJobQuery() {
   return db

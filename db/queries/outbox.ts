@@ -4,8 +4,9 @@ import type { NodePgDatabase } from "drizzle-orm/node-postgres";
 import { db } from "@/db";
 import { outbox } from "@/db/schema";
 import type * as schema from "@/db/schema";
-import type { Actor } from "@/lib/auth/roles";
+import type { Actor } from "@/lib/domain/roles";
 import { env } from "@/lib/env";
+import { registerEditRefusal } from "@/lib/policy/registers";
 import { forbidden } from "@/lib/errors";
 
 type Executor = NodePgDatabase<typeof schema>;
@@ -95,6 +96,7 @@ export async function markFailed(id: string, attempts: number, error: string): P
 
 /** The dev inbox: every queued e-mail, newest first (administrators only). */
 export async function listOutbox(actor: Actor, limit = 200) {
-  if (actor.role !== "admin") throw forbidden("The outbox is kept by the administrator.");
+  const refusal = registerEditRefusal(actor, "outbox");
+  if (refusal) throw forbidden(refusal);
   return db.select().from(outbox).orderBy(desc(outbox.createdAt)).limit(limit);
 }

@@ -8,7 +8,7 @@ import { asc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { getJobDetail } from "@/db/queries/jobs";
 import { templateParameterLimits } from "@/db/schema";
-import type { Actor } from "@/lib/auth/roles";
+import type { Actor } from "@/lib/domain/roles";
 import type { ParameterLimit } from "@/lib/fit-display";
 
 /** The limits of a template version (no access check: callers have checked the job or register). */

@@ -6,7 +6,8 @@ import { appendAudit } from "@/db/queries/audit";
 import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
 import { instruments, jobs, procedureTemplates, readings, templateSteps, users } from "@/db/schema";
 import type { Reading, TemplateStep } from "@/db/schema";
-import { readingsRefusal, type Actor } from "@/lib/auth/roles";
+import { type Actor } from "@/lib/domain/roles";
+import { readingsRefusal } from "@/lib/policy/readings";
 import {
   calibrationRefusal,
   deriveReading,

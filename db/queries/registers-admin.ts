@@ -4,7 +4,8 @@ import { z } from "zod";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { customers, heads, machines, sites } from "@/db/schema";
-import type { Actor } from "@/lib/auth/roles";
+import type { Actor } from "@/lib/domain/roles";
+import { registerEditRefusal } from "@/lib/policy/registers";
 import { forbidden, invalid } from "@/lib/errors";
 import type {
   customerCreateSchema,
@@ -14,7 +15,8 @@ import type {
 } from "@/lib/validations/registers";
 
 function requireAdmin(actor: Actor) {
-  if (actor.role !== "admin") throw forbidden("Registers are kept by the administrator.");
+  const refusal = registerEditRefusal(actor, "customers");
+  if (refusal) throw forbidden(refusal);
 }
 
 const audit = (actor: Actor, entityType: string, entityId: string, newValues: unknown) => ({

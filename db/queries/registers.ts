@@ -2,11 +2,12 @@ import "server-only";
 import { asc, eq, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { customers, heads, machines, sites, users } from "@/db/schema";
-import { canReadRegister, type Actor } from "@/lib/auth/roles";
+import { type Actor } from "@/lib/domain/roles";
+import { registerReadRefusal, type Register } from "@/lib/policy/registers";
 import { forbidden } from "@/lib/errors";
 
-function check(actor: Actor, register: Parameters<typeof canReadRegister>[1]) {
-  if (!canReadRegister(actor.role, register)) throw forbidden("Registers are kept by the administrator.");
+function check(actor: Actor, register: Register) {
+  if (registerReadRefusal(actor, register)) throw forbidden("Registers are kept by the administrator.");
 }
 
 export async function listCustomersWithSites(actor: Actor) {

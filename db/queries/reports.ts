@@ -22,13 +22,11 @@ import {
   users,
 } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
-import {
-  ROLE_LABELS,
-  SIGNATURE_LABELS,
-  signatureRefusal,
-  type Actor,
-  type SignatureMeaningKey,
-} from "@/lib/auth/roles";
+import type { VerificationResult } from "@/lib/domain/reports";
+import { ROLE_LABELS, type Actor } from "@/lib/domain/roles";
+import { SIGNATURE_LABELS, type SignatureMeaningKey } from "@/lib/domain/signatures";
+import { amenderRefusal, amendmentRefusal } from "@/lib/policy/reports";
+import { signatureRefusal } from "@/lib/policy/signatures";
 import { canonicalJson } from "@/lib/canonical-json";
 import { publicUrl } from "@/lib/env";
 import { forbidden, invalid, notFound } from "@/lib/errors";
@@ -111,7 +109,7 @@ export async function signJobWork(
   input: { jobId: string; meaning: "performed" | "inspected"; password: string; comment?: string },
 ) {
   const d = await visibleJob(actor, input.jobId);
-  const refusal = signatureRefusal(actor, input.meaning, d.job);
+  const refusal = signatureRefusal(actor, { meaning: input.meaning, job: d.job });
   if (refusal) throw forbidden(refusal);
   await requirePasswordReentry(actor, input.password);
   const existing = await db
@@ -478,15 +476,16 @@ export async function issueReport(
   const current = await currentReportRow(d.job.id);
   const amending = Boolean(current);
   if (amending) {
-    if (actor.role !== "engineer") throw forbidden("Only an application engineer issues an amendment.");
+    const who = amenderRefusal(actor);
+    if (who) throw forbidden(who);
     if (!input.amendmentReason?.trim())
       throw invalid("Say what the amendment corrects.", [
         { field: "amendmentReason", message: "Required for a new revision." },
       ]);
-    if (d.job.status !== "issued" && d.job.status !== "rejected")
-      throw forbidden("An amendment follows an issued or rejected report.");
+    const when = amendmentRefusal(actor, d.job);
+    if (when) throw forbidden(when);
   } else {
-    const refusal = signatureRefusal(actor, "approved", d.job);
+    const refusal = signatureRefusal(actor, { meaning: "approved", job: d.job });
     if (refusal) throw forbidden(refusal);
   }
   await requirePasswordReentry(actor, input.password);
@@ -595,7 +594,7 @@ export async function respondToReport(
   const report = await getReportMeta(actor, input.reportId);
   if (!report) throw notFound("report");
   const d = await visibleJob(actor, report.jobId);
-  const refusal = signatureRefusal(actor, input.decision, d.job);
+  const refusal = signatureRefusal(actor, { meaning: input.decision, job: d.job });
   if (refusal) throw forbidden(refusal);
   if (report.supersededById) throw forbidden("A newer revision supersedes this report; respond to that one.");
   const comment = input.comment?.trim() ?? "";
@@ -744,28 +743,7 @@ export async function listJobSignatures(actor: Actor, jobId: string) {
     .orderBy(asc(signatures.signedAt));
 }
 
-export interface VerificationResult {
-  authentic: boolean;
-  reason?: string;
-  report?: {
-    id: string;
-    reference: string;
-    revision: number;
-    issuedAtUtc: string;
-    pdfSha256: string;
-    supersededBy: { id: string; revision: number } | null;
-    amendmentOf: { id: string; revision: number } | null;
-  };
-  signatures?: Array<{
-    meaning: string;
-    name: string;
-    role: string;
-    signedAtUtc: string;
-    valid: boolean;
-    comment: string | null;
-  }>;
-  keyId?: string;
-}
+export type { VerificationResult };
 
 /**
  * Public verification of an issued revision, from the stored bytes (never a re-render): the

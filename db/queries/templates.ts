@@ -4,12 +4,13 @@ import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { procedureTemplates, templateParameterLimits, templateSteps } from "@/db/schema";
 import { HEAD_PARAMETER_KEYS, type HeadParameterKey } from "@/geometry";
-import { canReadRegisterOf, type Actor } from "@/lib/auth/roles";
+import { type Actor } from "@/lib/domain/roles";
+import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 
 export async function listTemplatesWithSteps(actor: Actor) {
-  if (!canReadRegisterOf(actor.role, "procedures"))
-    throw forbidden("Procedures are kept by the service company.");
+  const refusal = registerReadRefusal(actor, "procedures");
+  if (refusal) throw forbidden(refusal);
   const ts = await db
     .select()
     .from(procedureTemplates)
@@ -52,7 +53,8 @@ export async function createTemplateVersion(
   edits: readonly StepLimitEdit[],
   parameterEdits: readonly ParameterLimitEdit[] = [],
 ) {
-  if (actor.role !== "admin") throw forbidden("Procedures are edited by the administrator.");
+  const refusal = registerEditRefusal(actor, "procedures");
+  if (refusal) throw forbidden(refusal);
   const [base] = await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, templateId));
   if (!base) throw notFound("procedure");
   const steps = await db

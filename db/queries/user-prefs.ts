@@ -2,7 +2,7 @@ import "server-only";
 import { eq } from "drizzle-orm";
 import { db } from "@/db";
 import { users } from "@/db/schema";
-import type { Actor } from "@/lib/auth/roles";
+import type { Actor } from "@/lib/domain/roles";
 
 /** The acting user's display unit system (inch or metric). */
 export async function getUnitSystem(actor: Actor): Promise<"metric" | "inch"> {

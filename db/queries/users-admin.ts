@@ -7,8 +7,9 @@ import { appendAudit } from "@/db/queries/audit";
 import { enqueueMail } from "@/db/queries/outbox";
 import { customers, userTokens, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
-import { ROLE_LABELS, type Actor } from "@/lib/auth/roles";
+import { ROLE_LABELS, type Actor } from "@/lib/domain/roles";
 import { publicUrl } from "@/lib/env";
+import { registerEditRefusal } from "@/lib/policy/registers";
 import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
 import type { userInviteSchema, userUpdateSchema } from "@/lib/validations/registers";
 
@@ -20,7 +21,8 @@ export function tokenHash(token: string): string {
 }
 
 function requireAdmin(actor: Actor) {
-  if (actor.role !== "admin") throw forbidden("People are managed by the administrator.");
+  const refusal = registerEditRefusal(actor, "people");
+  if (refusal) throw forbidden(refusal);
 }
 
 /**

@@ -1,5 +1,5 @@
 // The session and token carry the user's id, role and (customer users) company id.
-import type { Role } from "@/lib/auth/roles";
+import type { Role } from "@/lib/domain/roles";
 
 declare module "next-auth" {
   interface User {

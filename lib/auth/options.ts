@@ -8,7 +8,7 @@ import { clearSignInFailures, isSignInLimited, recordSignInFailure } from "@/db/
 import { getUserForSignIn, revokeSessions } from "@/db/queries/users";
 import { authSecret, env } from "@/lib/env";
 import { verifyPassword } from "./password";
-import { isRole } from "./roles";
+import { isRole } from "@/lib/domain/roles";
 
 export function clientAddress(
   headers: Headers | Record<string, string | string[] | undefined> | undefined,

@@ -8,7 +8,8 @@ import { cache } from "react";
 import { redirect } from "next/navigation";
 import { getActor } from "@/db/queries/users";
 import { forbidden, unauthorized } from "@/lib/errors";
-import type { Actor, Role } from "./roles";
+import type { Actor, Role } from "@/lib/domain/roles";
+import { roleRefusal } from "@/lib/policy/roles";
 import { readSessionIdentity } from "./session-token";
 
 /** Read once per request (layouts and pages share it through React's request cache). */
@@ -28,7 +29,7 @@ export async function requireUser(): Promise<Actor> {
 /** Throws 401 without a session and 403 when the role is not one of `roles`. */
 export async function requireRole(...roles: Role[]): Promise<Actor> {
   const actor = await requireUser();
-  if (!roles.includes(actor.role)) throw forbidden();
+  if (roleRefusal(actor, roles)) throw forbidden();
   return actor;
 }
 

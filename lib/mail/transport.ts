@@ -6,7 +6,7 @@ import "server-only";
 import nodemailer, { type Transporter } from "nodemailer";
 import { env } from "@/lib/env";
 
-export const MAIL_FROM = process.env.MAIL_FROM ?? "Trammel <noreply@halvard.example>";
+export const MAIL_FROM = env.MAIL_FROM;
 
 let cached: Transporter | undefined;
 

@@ -18,7 +18,7 @@ import { existsSync, linkSync, mkdirSync, readFileSync, unlinkSync, writeFileSyn
 import path from "node:path";
 import { canonicalJson } from "@/lib/canonical-json";
 
-import type { SignatureMeaningKey } from "@/lib/auth/roles";
+import type { SignatureMeaningKey } from "@/lib/domain/signatures";
 
 /** What a signature means (21 CFR 11.50: the meaning is part of every signature). */
 export type SignatureMeaning = SignatureMeaningKey;

@@ -1,6 +1,6 @@
 /** Register forms (administrator): instruments, users. Numbers from forms are coerced. */
 import { z } from "zod";
-import { ROLES } from "@/lib/auth/roles";
+import { ROLES } from "@/lib/domain/roles";
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use a date like 2027-03-31.");
 

@@ -1,6 +1,6 @@
 // Every API route × every role (anonymous, each staff role, each tenant's customer), against the
 // real database. The expected answers are written out by hand from the product's rules, not
-// computed from lib/auth/roles, so removing a check anywhere on the path makes a cell fail.
+// computed from lib/policy, so removing a check anywhere on the path makes a cell fail.
 import { readdirSync, statSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";

@@ -1,7 +1,7 @@
 // Every server action × every role (anonymous, each staff role, each tenant's customer), against
 // the real database, called exactly as a form calls it. The expected answers are written out by
 // hand from the product's rules (product.md's roles table and the status flow), not computed from
-// lib/auth/roles. "pass" means the call got past every access check: it succeeded, or failed for a
+// lib/policy. "pass" means the call got past every access check: it succeeded, or failed for a
 // reason that is not about who is asking (a field to correct). Each cell that changes something
 // gets a job of its own, so cells never depend on each other's order. The last test fails when an
 // action file exports an action this matrix does not list.
@@ -15,7 +15,7 @@ import { issueReport } from "@/db/queries/reports";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { instruments, jobs, templateSteps, users } from "@/db/schema";
-import type { JobStatus } from "@/lib/auth/roles";
+import type { JobStatus } from "@/lib/domain/jobs";
 import type { ActionResult } from "@/lib/actions";
 import { upload } from "./dataset-helpers";
 import { jobIdByReference, signInAs } from "./helpers";

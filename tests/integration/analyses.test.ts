@@ -16,7 +16,7 @@ import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { analyses, auditEvents, jobs } from "@/db/schema";
 import { fitHead, GEOMETRY_VERSION, headFitToJson, readSphereProbeCsv } from "@/geometry";
-import type { Actor } from "@/lib/auth/roles";
+import type { Actor } from "@/lib/domain/roles";
 import { canonicalJson } from "@/lib/canonical-json";
 import { AppError } from "@/lib/errors";
 import { upload } from "./dataset-helpers";

@@ -32,7 +32,7 @@ import {
   signatures,
   templateSteps,
 } from "@/db/schema";
-import type { Actor } from "@/lib/auth/roles";
+import type { Actor } from "@/lib/domain/roles";
 import { PNG } from "pngjs";
 import { upload } from "./dataset-helpers";
 import { jobIdByReference, signInAs } from "./helpers";

@@ -25,7 +25,7 @@ import {
   users,
 } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
-import type { Actor } from "@/lib/auth/roles";
+import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import { processOutbox } from "@/lib/mail/worker";
 import { jobIdByReference, request, signInAs } from "./helpers";

@@ -21,7 +21,7 @@ import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { jobs, procedureTemplates, reports, templateParameterLimits, templateSteps } from "@/db/schema";
 import type { HeadFitJson } from "@/geometry";
-import type { Actor } from "@/lib/auth/roles";
+import type { Actor } from "@/lib/domain/roles";
 import type { ReportData } from "@/lib/report/types";
 import { upload } from "./dataset-helpers";
 import { jobIdByReference, signInAs } from "./helpers";

@@ -7,7 +7,7 @@ import { db } from "@/db";
 import { getActor } from "@/db/queries/users";
 import { issueReport, respondToReport, signJobWork, verifyPdfFile, verifyReport } from "@/db/queries/reports";
 import { jobs, outbox, reports, signatures, users } from "@/db/schema";
-import type { Actor } from "@/lib/auth/roles";
+import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import { jobIdByReference } from "./helpers";
 

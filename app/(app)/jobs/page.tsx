@@ -2,7 +2,8 @@ import type { Metadata } from "next";
 import { z } from "zod";
 import { JobsTable } from "@/components/jobs/jobs-table";
 import { JOB_SORT_KEYS, listJobs } from "@/db/queries/jobs";
-import { JOB_STATUSES, STATUS_LABELS } from "@/lib/auth/roles";
+import { JOB_STATUSES, STATUS_LABELS } from "@/lib/domain/jobs";
+import { jobListWords } from "@/lib/policy/navigation";
 import { requirePageUser } from "@/lib/auth/session";
 
 export const metadata: Metadata = { title: "Jobs" };
@@ -30,20 +31,16 @@ export default async function JobsPage({ searchParams }: Props) {
     sort: filters.sort ?? "updated",
     dir: filters.dir ?? (filters.sort ? "asc" : "desc"),
   } as const;
-  const heading = user.role === "installer" ? "My jobs" : user.role === "customer" ? "Our jobs" : "Jobs";
+  const words = jobListWords(user.role);
 
   return (
     <div className="space-y-5">
       <div className="flex flex-wrap items-end justify-between gap-4">
         <div>
-          <h1 className="text-2xl font-semibold">{heading}</h1>
+          <h1 className="text-2xl font-semibold">{words.heading}</h1>
           <p className="text-sm text-graphite-600">
             {rows.length} {rows.length === 1 ? "job" : "jobs"}
-            {user.role === "installer"
-              ? " assigned to you"
-              : user.role === "customer"
-                ? " for your company"
-                : ""}
+            {words.scope}
           </p>
         </div>
         <form className="flex flex-wrap items-end gap-2" role="search" aria-label="Filter jobs">
@@ -78,7 +75,7 @@ export default async function JobsPage({ searchParams }: Props) {
           </button>
         </form>
       </div>
-      <JobsTable rows={rows} sort={sort} params={params} showCustomer={user.role !== "customer"} />
+      <JobsTable rows={rows} sort={sort} params={params} showCustomer={words.showCustomer} />
     </div>
   );
 }

@@ -1,5 +1,5 @@
 import { RegisterTabs } from "@/components/registers/register-tabs";
-import { canReadRegisterOf } from "@/lib/auth/roles";
+import { registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
 
 const ALL = [
@@ -13,7 +13,7 @@ const ALL = [
 
 export default async function RegistersLayout({ children }: { children: React.ReactNode }) {
   const user = await requirePageUser("/registers");
-  const items = ALL.filter((i) => canReadRegisterOf(user.role, i.key));
+  const items = ALL.filter((i) => registerReadRefusal(user, i.key) === null);
   return (
     <div className="space-y-6">
       <RegisterTabs items={items} />

@@ -6,14 +6,15 @@ import { Card } from "@/components/ui/card";
 import { listSitesForSelect } from "@/db/queries/registers-admin";
 import { SimpleTable } from "@/components/ui/simple-table";
 import { listCustomersWithSites, listHeads, listMachines } from "@/db/queries/registers";
-import { canReadRegister } from "@/lib/auth/roles";
+import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
 
 export const metadata: Metadata = { title: "Registers" };
 
 export default async function RegistersPage() {
   const user = await requirePageUser("/registers");
-  if (!canReadRegister(user.role, "customers")) notFound();
+  if (registerReadRefusal(user, "customers")) notFound();
+  const mayEdit = registerEditRefusal(user, "customers") === null;
   const [customers, machines, heads, siteOptions] = await Promise.all([
     listCustomersWithSites(user),
     listMachines(user),
@@ -68,7 +69,7 @@ export default async function RegistersPage() {
         </h2>
         <HeadsTable rows={heads} />
       </section>
-      {user.role === "admin" ? (
+      {mayEdit ? (
         <section className="grid gap-6 lg:grid-cols-2" aria-label="Add to the registers">
           <Card title="Add a customer">
             <CustomerForm />

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { JOB_SORT_KEYS, listJobs } from "@/db/queries/jobs";
-import { JOB_STATUSES } from "@/lib/auth/roles";
+import { JOB_STATUSES } from "@/lib/domain/jobs";
 import { requireUser } from "@/lib/auth/session";
 import { route } from "@/lib/http";
 

@@ -3,7 +3,8 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { FitHistory } from "@/components/heads/fit-history";
 import { getHeadFitHistory } from "@/db/queries/heads-admin";
-import { canReadHeadHistory, canReadRegister } from "@/lib/auth/roles";
+import { headHistoryRefusal } from "@/lib/policy/heads";
+import { registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
 
 export const metadata: Metadata = { title: "Head history" };
@@ -18,11 +19,11 @@ type Props = { params: Promise<{ id: string }> };
 export default async function HeadHistoryPage({ params }: Props) {
   const { id } = await params;
   const user = await requirePageUser(`/heads/${id}`);
-  if (!canReadHeadHistory(user.role)) notFound();
+  if (headHistoryRefusal(user)) notFound();
   const history = await getHeadFitHistory(user, id);
   if (!history) notFound();
   const { head } = history;
-  const staff = canReadRegister(user.role, "heads");
+  const staff = registerReadRefusal(user, "heads") === null;
   return (
     <div className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm text-graphite-600">

@@ -5,7 +5,7 @@ import { StatusFlow } from "@/components/jobs/status-flow";
 import { Card, Facts } from "@/components/ui/card";
 import { SafetyNote } from "@/components/ui/safety-note";
 import { getJobDetail } from "@/db/queries/jobs";
-import { canReadHeadHistory } from "@/lib/auth/roles";
+import { headHistoryRefusal } from "@/lib/policy/heads";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
 
@@ -69,7 +69,7 @@ export default async function JobPage({ params }: Props) {
               { label: "Mass", value: head.massKg ? `${head.massKg} kg` : null, mono: true },
             ]}
           />
-          {canReadHeadHistory(user.role) ? (
+          {headHistoryRefusal(user) === null ? (
             <p className="mt-4 border-t border-graphite-100 pt-3 text-sm">
               <Link href={`/heads/${head.id}`} className="font-medium text-accent-700 underline">
                 This head&apos;s fitted parameters, job by job

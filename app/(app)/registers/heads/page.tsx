@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { listHeads } from "@/db/queries/registers";
-import { canReadRegister } from "@/lib/auth/roles";
+import { registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
 import { HeadsTable } from "@/components/registers/heads-table";
 
@@ -9,7 +9,7 @@ export const metadata: Metadata = { title: "Heads" };
 
 export default async function HeadsPage() {
   const user = await requirePageUser("/registers/heads");
-  if (!canReadRegister(user.role, "heads")) notFound();
+  if (registerReadRefusal(user, "heads")) notFound();
   const heads = await listHeads(user);
   return (
     <div className="space-y-5">

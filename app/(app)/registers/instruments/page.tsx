@@ -5,7 +5,7 @@ import { Card } from "@/components/ui/card";
 import { SimpleTable } from "@/components/ui/simple-table";
 import { listInstruments } from "@/db/queries/instruments";
 import { getUnitSystem } from "@/db/queries/user-prefs";
-import { canReadRegisterOf } from "@/lib/auth/roles";
+import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatValue, fromCanonical, type UnitSystem } from "@/lib/units";
 
@@ -47,7 +47,8 @@ function CalibrationState({ due, today }: { due: string; today: string }) {
 
 export default async function InstrumentsPage() {
   const user = await requirePageUser("/registers/instruments");
-  if (!canReadRegisterOf(user.role, "instruments")) notFound();
+  if (registerReadRefusal(user, "instruments")) notFound();
+  const mayEdit = registerEditRefusal(user, "instruments") === null;
   const [rows, unitSystem] = await Promise.all([listInstruments(user), getUnitSystem(user)]);
   const today = new Date().toISOString().slice(0, 10);
   return (
@@ -84,7 +85,7 @@ export default async function InstrumentsPage() {
           },
         ]}
       />
-      {user.role === "admin" ? (
+      {mayEdit ? (
         <Card title="Add an instrument">
           <InstrumentForm />
         </Card>

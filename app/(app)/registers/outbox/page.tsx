@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { listOutbox } from "@/db/queries/outbox";
-import { canReadRegisterOf } from "@/lib/auth/roles";
+import { registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
 
@@ -12,7 +12,7 @@ const STATE = { pending: "Waiting to send", sent: "Sent", failed: "Gave up" } as
 /** The dev inbox: every e-mail the app has queued, with its delivery state. */
 export default async function OutboxPage() {
   const user = await requirePageUser("/registers/outbox");
-  if (!canReadRegisterOf(user.role, "outbox")) notFound();
+  if (registerReadRefusal(user, "outbox")) notFound();
   const rows = await listOutbox(user);
   return (
     <div className="space-y-6">

@@ -5,14 +5,15 @@ import { Card } from "@/components/ui/card";
 import { SimpleTable } from "@/components/ui/simple-table";
 import { listPeople } from "@/db/queries/registers";
 import { listCustomersForSelect } from "@/db/queries/users-admin";
-import { canReadRegisterOf, ROLE_LABELS } from "@/lib/auth/roles";
+import { ROLE_LABELS } from "@/lib/domain/roles";
+import { registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
 
 export const metadata: Metadata = { title: "People" };
 
 export default async function PeoplePage() {
   const user = await requirePageUser("/registers/people");
-  if (!canReadRegisterOf(user.role, "people")) notFound();
+  if (registerReadRefusal(user, "people")) notFound();
   const [people, customers] = await Promise.all([listPeople(user), listCustomersForSelect()]);
   return (
     <div className="space-y-6">

@@ -9,7 +9,7 @@ import { listHeads, listMachines } from "@/db/queries/registers";
 import { listTemplatesWithSteps } from "@/db/queries/templates";
 import { listActiveInstallers } from "@/db/queries/users-admin";
 import { getUnitSystem } from "@/db/queries/user-prefs";
-import { canReadRegisterOf } from "@/lib/auth/roles";
+import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
 import { HEAD_PARAMETER_KEYS, headParameterUnit } from "@/geometry";
@@ -20,13 +20,13 @@ export const metadata: Metadata = { title: "Procedures" };
 
 export default async function ProceduresPage() {
   const user = await requirePageUser("/registers/procedures");
-  if (!canReadRegisterOf(user.role, "procedures")) notFound();
+  if (registerReadRefusal(user, "procedures")) notFound();
+  const mayEdit = registerEditRefusal(user, "procedures") === null;
   const [templates, unitSystem] = await Promise.all([listTemplatesWithSteps(user), getUnitSystem(user)]);
   const unit = unitSystem === "inch" ? "in" : "mm";
-  const [machines, heads, installers] =
-    user.role === "admin"
-      ? await Promise.all([listMachines(user), listHeads(user), listActiveInstallers()])
-      : [[], [], []];
+  const [machines, heads, installers] = mayEdit
+    ? await Promise.all([listMachines(user), listHeads(user), listActiveInstallers()])
+    : [[], [], []];
   return (
     <div className="space-y-6">
       <div>
@@ -113,7 +113,7 @@ export default async function ProceduresPage() {
               </table>
             </ScrollRegion>
           )}
-          {user.role === "admin" && t.isCurrent ? (
+          {mayEdit && t.isCurrent ? (
             <details className="mt-4 rounded-card border border-graphite-200 p-4">
               <summary className="min-h-touch cursor-pointer py-2 font-medium">
                 Edit limits (makes version {t.version + 1})
@@ -156,7 +156,7 @@ export default async function ProceduresPage() {
               />
             </details>
           ) : null}
-          {user.role === "admin" && t.isCurrent ? (
+          {mayEdit && t.isCurrent ? (
             <details className="mt-4 rounded-card border border-graphite-200 p-4">
               <summary className="min-h-touch cursor-pointer py-2 font-medium">
                 Open a job with this procedure

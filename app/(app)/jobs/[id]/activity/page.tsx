@@ -1,9 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { Card } from "@/components/ui/card";
-import { db } from "@/db";
-import { listJobAudit } from "@/db/queries/audit";
-import { getJobDetail } from "@/db/queries/jobs";
+import { getJobActivity } from "@/db/queries/activity";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
 
@@ -36,9 +34,8 @@ function summary(values: unknown): string {
 export default async function ActivityPage({ params }: Props) {
   const { id } = await params;
   const user = await requirePageUser(`/jobs/${id}/activity`);
-  const d = await getJobDetail(user, id);
-  if (!d) notFound();
-  const events = await listJobAudit(db, d.job.id);
+  const events = await getJobActivity(user, id);
+  if (!events) notFound();
   return (
     <Card title="Activity">
       <p className="mb-4 text-sm text-graphite-600">

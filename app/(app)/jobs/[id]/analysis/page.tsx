@@ -16,7 +16,11 @@ import { listDatasets } from "@/db/queries/datasets";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
 import { getJobDetail } from "@/db/queries/jobs";
 import type { HeadErrors, HeadPose } from "@/geometry";
-import { canTransition, headFitRefusal, STATUS_LABELS } from "@/lib/auth/roles";
+import { approvalNote, chooseShownFit, otherPhaseFit, thinPoses } from "@/lib/analysis/fit-view";
+import { phaseText } from "@/lib/domain/datasets";
+import type { JobStatus } from "@/lib/domain/jobs";
+import type { Actor } from "@/lib/domain/roles";
+import { fitApproverRefusal, headFitRefusal, viewSaveRefusal } from "@/lib/policy/analyses";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
 import { nextVisitPlan } from "@/lib/pose-coverage";
@@ -40,24 +44,13 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
   ]);
   const probes = (all ?? []).filter((x) => x.kind === "sphere_probe" && x.status === "stored");
   const list = fits ?? [];
-  const shown =
-    (wanted ? list.find((f) => f.analysis.id === wanted) : undefined) ??
-    (approved ? list.find((f) => f.analysis.id === approved.detail.analysis.id) : undefined) ??
-    list[0];
-  const mayRun = headFitRefusal(user.role, d.job.status) === null;
+  const shown = chooseShownFit(list, wanted, approved?.detail.analysis.id);
+  const runRefusal = headFitRefusal(user, d.job);
+  const mayRun = runRefusal === null;
   const config = headConfigOf(d.head);
   // The pre/post overlay: the latest fit of a dataset of the other phase than the one shown.
   const phaseOf = new Map((all ?? []).map((x) => [x.id, x.phase]));
-  const shownPhase = shown ? phaseOf.get(shown.analysis.datasetId) : undefined;
-  const other =
-    shown && shownPhase
-      ? list.find(
-          (f) =>
-            f.analysis.id !== shown.analysis.id &&
-            phaseOf.get(f.analysis.datasetId) !== undefined &&
-            phaseOf.get(f.analysis.datasetId) !== shownPhase,
-        )
-      : undefined;
+  const other = otherPhaseFit(list, shown, phaseOf);
 
   return (
     <div className="space-y-6">
@@ -113,9 +106,7 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
             })}
           </ul>
         )}
-        {!mayRun ? (
-          <p className="mt-3 text-sm text-graphite-600">{headFitRefusal(user.role, d.job.status)}</p>
-        ) : null}
+        {!mayRun ? <p className="mt-3 text-sm text-graphite-600">{runRefusal}</p> : null}
       </Card>
 
       {shown ? (
@@ -139,11 +130,7 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
   );
 }
 
-const VIEW_POSES = 10_000;
-
 type FitRow = NonNullable<Awaited<ReturnType<typeof listJobAnalyses>>>[number];
-
-const PHASE_TEXT = { pre: "before adjustment", post: "after adjustment" } as const;
 
 function FitSection({
   jobId,
@@ -162,8 +149,8 @@ function FitSection({
   otherRow: FitRow | undefined;
   phaseOf: Map<string, "pre" | "post">;
   config: ReturnType<typeof headConfigOf>;
-  user: { role: Parameters<typeof canTransition>[0] };
-  jobStatus: Parameters<typeof canTransition>[1];
+  user: Actor;
+  jobStatus: JobStatus;
   approved: Awaited<ReturnType<typeof getApprovedAnalysis>>;
 }) {
   const a = fitRow.analysis;
@@ -173,9 +160,7 @@ function FitSection({
   const errors: HeadErrors = Object.fromEntries(
     fit.parameters.filter((p) => p.U !== null).map((p) => [p.key, p.value]),
   );
-  // The 3D view draws at most VIEW_POSES poses (every step-th one), so the page stays light for very large datasets.
-  const step = Math.max(1, Math.ceil(r.poses.row.length / VIEW_POSES));
-  const viewIdx = r.poses.row.map((_, i) => i).filter((i) => i % step === 0);
+  const { step, indices: viewIdx } = thinPoses(r.poses.row.length);
   const poses: HeadPose[] = viewIdx.map((i) => ({
     primaryDeg: r.poses.primary_deg[i]!,
     secondaryDeg: r.poses.secondary_deg[i]!,
@@ -185,29 +170,21 @@ function FitSection({
   const isApproved = approved?.detail.analysis.id === a.id;
   const shownLabel = {
     analysisId: a.id,
-    phaseText: PHASE_TEXT[phaseOf.get(a.datasetId) ?? "pre"],
+    phaseText: phaseText(phaseOf.get(a.datasetId) ?? "pre"),
     dataset: fitRow.datasetFilename,
   };
   const overlay = otherRow
     ? {
         analysisId: otherRow.analysis.id,
-        phaseText: PHASE_TEXT[phaseOf.get(otherRow.analysis.datasetId) ?? "pre"],
+        phaseText: phaseText(phaseOf.get(otherRow.analysis.datasetId) ?? "pre"),
         dataset: otherRow.datasetFilename,
         errors: Object.fromEntries(
           otherRow.analysis.result.fit.parameters.filter((p) => p.U !== null).map((p) => [p.key, p.value]),
         ) as HeadErrors,
       }
     : null;
-  const refusal =
-    user.role !== "engineer"
-      ? "Only an application engineer approves a head's parameters."
-      : approved
-        ? "This job's parameters are already approved from another fit; that fit is the one shown by default."
-        : canTransition(user.role, jobStatus, "approved")
-          ? null
-          : jobStatus === "draft" || jobStatus === "measuring"
-            ? `The job is ${STATUS_LABELS[jobStatus].toLowerCase()}: parameters are approved once the installer has submitted the job for review.`
-            : `The job is ${STATUS_LABELS[jobStatus].toLowerCase()} without a parameter set approved here, so none is recorded for it; a correction needs the job sent back for review.`;
+  const refusal = approvalNote(user, { status: jobStatus }, approved?.detail.analysis.id);
+  const mayApprove = fitApproverRefusal(user) === null;
 
   return (
     <>
@@ -236,7 +213,7 @@ function FitSection({
               residualsUm={viewResiduals}
               shown={shownLabel}
               overlay={overlay}
-              maySave={user.role === "engineer"}
+              maySave={viewSaveRefusal(user) === null}
             />
             {step > 1 ? (
               <p className="mt-2 text-xs text-graphite-600">
@@ -377,7 +354,7 @@ function FitSection({
               Approving fixes this fit as the head&apos;s parameter set for the job and moves the job to
               approved; the values to enter in the control are then shown here.
             </p>
-            {user.role === "engineer" ? (
+            {mayApprove ? (
               <ApproveButton jobId={jobId} analysisId={a.id} refusal={refusal} />
             ) : (
               <p className="text-sm text-graphite-600">{refusal}</p>

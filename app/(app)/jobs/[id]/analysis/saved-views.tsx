@@ -44,6 +44,8 @@ export function SavedViews({
                   rel="noreferrer"
                   className="block bg-graphite-50"
                 >
+                  {/* The stored picture of a signed record, behind the session: served as is, not through the image optimizer. */}
+                  {/* eslint-disable-next-line @next/next/no-img-element */}
                   <img
                     src={`/api/analysis-views/${v.id}/image`}
                     width={v.widthPx}

@@ -8,7 +8,7 @@ import { changeJobStatus } from "@/db/queries/job-status";
 import { recordReading } from "@/db/queries/readings";
 import { users } from "@/db/schema";
 import { action } from "@/lib/actions";
-import { JOB_STATUSES } from "@/lib/auth/roles";
+import { JOB_STATUSES } from "@/lib/domain/jobs";
 import { readingCreateSchema } from "@/lib/validations/readings";
 
 export const recordReadingAction = action(

@@ -7,7 +7,8 @@ import { DecisionBadge, LIMIT_SOURCE_LABELS } from "@/components/readings/decisi
 import { SafetyNote } from "@/components/ui/safety-note";
 import { getChecklist } from "@/db/queries/readings";
 import { getUnitSystem } from "@/db/queries/user-prefs";
-import { allowedTransitions, STATUS_LABELS, type JobStatus } from "@/lib/auth/roles";
+import { STATUS_LABELS, type JobStatus } from "@/lib/domain/jobs";
+import { allowedTransitions } from "@/lib/policy/jobs";
 import { requirePageUser } from "@/lib/auth/session";
 import { expandedUncertainty, judge } from "@/lib/checklist";
 import { formatLimits } from "@/lib/units";
@@ -39,10 +40,8 @@ export default async function ChecklistPage({ params }: Props) {
   const { detail, template, steps, readings, instruments, refusal } = c;
   const canWrite = refusal === null;
   const today = new Date().toISOString().slice(0, 10);
-  const moves = allowedTransitions(user.role, detail.job.status)
-    .filter(
-      (to) => MOVE_LABELS[to] && (user.role !== "installer" || detail.job.assignedInstallerId === user.id),
-    )
+  const moves = allowedTransitions(user, detail.job)
+    .filter((to) => MOVE_LABELS[to])
     .map((to) => ({ to, label: MOVE_LABELS[to]! }));
 
   return (

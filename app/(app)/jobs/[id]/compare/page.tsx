@@ -7,7 +7,8 @@ import { DecisionBadge, LIMIT_SOURCE_LABELS } from "@/components/readings/decisi
 import { Card } from "@/components/ui/card";
 import { getComparison } from "@/db/queries/readings";
 import { getUnitSystem } from "@/db/queries/user-prefs";
-import { allowedTransitions, type JobStatus } from "@/lib/auth/roles";
+import { type JobStatus } from "@/lib/domain/jobs";
+import { allowedTransitions } from "@/lib/policy/jobs";
 import { requirePageUser } from "@/lib/auth/session";
 import { arcsecToUmPerM, formatLimits, formatValue } from "@/lib/units";
 
@@ -15,7 +16,7 @@ export const metadata: Metadata = { title: "Before and after" };
 
 type Props = { params: Promise<{ id: string }> };
 
-/** Review moves offered beside the comparison; the server checks them again (lib/auth/roles.canTransition). */
+/** Review moves offered beside the comparison; the server checks them again (lib/policy/jobs.transitionRefusal). */
 const REVIEW_MOVES: Partial<Record<JobStatus, string>> = {
   measuring: "Send back for more readings",
   approved: "Approve the readings",
@@ -34,7 +35,7 @@ export default async function ComparePage({ params }: Props) {
   }
   const moves =
     c.detail.job.status === "in_review"
-      ? allowedTransitions(user.role, "in_review")
+      ? allowedTransitions(user, c.detail.job)
           .filter((to) => REVIEW_MOVES[to])
           .map((to) => ({ to, label: REVIEW_MOVES[to]! }))
       : [];

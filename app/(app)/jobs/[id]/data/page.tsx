@@ -2,7 +2,8 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { DatasetTable } from "@/components/datasets/dataset-table";
 import { UploadPanel } from "@/components/datasets/upload-panel";
-import { canUploadTo, listDatasets } from "@/db/queries/datasets";
+import { listDatasets } from "@/db/queries/datasets";
+import { dataHandlerRefusal, uploadRefusal } from "@/lib/policy/datasets";
 import { getJobDetail } from "@/db/queries/jobs";
 import { requirePageUser } from "@/lib/auth/session";
 
@@ -15,7 +16,7 @@ export default async function DataPage({ params }: Props) {
   const user = await requirePageUser(`/jobs/${id}/data`);
   const [d, rows] = await Promise.all([getJobDetail(user, id), listDatasets(user, id)]);
   if (!d || !rows) notFound();
-  const mayUpload = canUploadTo(user, d.job.status);
+  const mayUpload = uploadRefusal(user, d.job) === null;
   return (
     <div className="space-y-6">
       <div className="space-y-3">
@@ -24,7 +25,7 @@ export default async function DataPage({ params }: Props) {
       </div>
       {mayUpload ? (
         <UploadPanel jobId={id} />
-      ) : user.role !== "customer" ? (
+      ) : dataHandlerRefusal(user, "upload") === null ? (
         <p className="rounded-card border border-graphite-200 bg-white p-4 text-sm text-graphite-700">
           This job is {d.job.status.replace("_", " ")}: its data is fixed. New data goes on a new job or a
           correction of the report.

@@ -5,7 +5,10 @@ import { SignForm } from "@/components/report/sign-form";
 import { Card } from "@/components/ui/card";
 import { getJobDetail } from "@/db/queries/jobs";
 import { getReportContent, listJobReports, listJobSignatures } from "@/db/queries/reports";
-import { ROLE_LABELS, SIGNATURE_LABELS, signatureRefusal } from "@/lib/auth/roles";
+import { ROLE_LABELS } from "@/lib/domain/roles";
+import { SIGNATURE_LABELS } from "@/lib/domain/signatures";
+import { amendmentRefusal } from "@/lib/policy/reports";
+import { signatureRefusal } from "@/lib/policy/signatures";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
 import { issueReportAction, respondAction, signWorkAction } from "./actions";
@@ -21,15 +24,12 @@ export default async function ReportPage({ params }: Props) {
   const [revisions, sigs] = await Promise.all([listJobReports(user, id), listJobSignatures(user, id)]);
   const current = revisions?.[0] ?? null;
   const content = current ? await getReportContent(user, current.id) : null;
-  const mayIssue = !current && !signatureRefusal(user, "approved", d.job);
-  const mayAmend =
-    Boolean(current) &&
-    user.role === "engineer" &&
-    (d.job.status === "issued" || d.job.status === "rejected");
-  const mayRespond = current && !signatureRefusal(user, "accepted", d.job);
+  const mayIssue = !current && !signatureRefusal(user, { meaning: "approved", job: d.job });
+  const mayAmend = Boolean(current) && amendmentRefusal(user, d.job) === null;
+  const mayRespond = current && !signatureRefusal(user, { meaning: "accepted", job: d.job });
   const work = (["performed", "inspected"] as const).filter(
     (m) =>
-      !signatureRefusal(user, m, d.job) &&
+      !signatureRefusal(user, { meaning: m, job: d.job }) &&
       !sigs?.some((s) => s.meaning === m && s.reportId === null && s.signerId === user.id),
   );
 

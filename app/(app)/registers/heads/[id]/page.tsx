@@ -5,7 +5,7 @@ import { MountHeadForm } from "@/components/registers/mount-head-form";
 import { Card, Facts } from "@/components/ui/card";
 import { getHeadFitHistory, getHeadWithHistory } from "@/db/queries/heads-admin";
 import { listMachines } from "@/db/queries/registers";
-import { canReadRegister } from "@/lib/auth/roles";
+import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
 import { FitHistory } from "@/components/heads/fit-history";
@@ -17,10 +17,11 @@ type Props = { params: Promise<{ id: string }> };
 export default async function HeadPage({ params }: Props) {
   const { id } = await params;
   const user = await requirePageUser(`/registers/heads/${id}`);
-  if (!canReadRegister(user.role, "heads")) notFound();
+  if (registerReadRefusal(user, "heads")) notFound();
+  const mayEdit = registerEditRefusal(user, "heads") === null;
   const [h, fits] = await Promise.all([getHeadWithHistory(user, id), getHeadFitHistory(user, id)]);
   if (!h || !fits) notFound();
-  const machines = user.role === "admin" ? await listMachines(user) : [];
+  const machines = mayEdit ? await listMachines(user) : [];
   const { head } = h;
   return (
     <div className="space-y-6">
@@ -75,7 +76,7 @@ export default async function HeadPage({ params }: Props) {
               ))}
             </ol>
           )}
-          {user.role === "admin" ? (
+          {mayEdit ? (
             <div className="mt-4 border-t border-graphite-100 pt-4">
               <MountHeadForm
                 headId={head.id}

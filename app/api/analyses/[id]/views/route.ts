@@ -11,6 +11,7 @@ import {
 } from "@/db/queries/analysis-views";
 import { requireUser } from "@/lib/auth/session";
 import { forbidden, invalid, notFound } from "@/lib/errors";
+import { viewSaveRefusal } from "@/lib/policy/analyses";
 import { route } from "@/lib/http";
 import { readMultipart } from "@/lib/storage/multipart";
 
@@ -47,8 +48,8 @@ export const POST = route<Ctx>(async (req, ctx) => {
   const { id } = await ctx.params;
   const actor = await requireUser();
   if (!(await getAnalysis(actor, id))) throw notFound("analysis");
-  if (actor.role !== "engineer")
-    throw forbidden("Only an application engineer saves views of a fit for the report.");
+  const refusal = viewSaveRefusal(actor);
+  if (refusal) throw forbidden(refusal);
   const { fields, file } = await readMultipart(req, VIEW_MAX_BYTES + BODY_OVERHEAD_BYTES);
   if (!file || file.data.length === 0)
     throw invalid("Send the picture as the multipart part 'file' (a PNG).", [

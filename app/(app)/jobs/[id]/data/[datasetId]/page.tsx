@@ -5,7 +5,8 @@ import { DeleteDatasetButton } from "@/components/datasets/delete-button";
 import { EvaluationTable, RULE_TEXT } from "@/components/datasets/evaluation-table";
 import { KIND_LABELS, PHASE_LABELS } from "@/components/datasets/kinds";
 import { Card, Facts } from "@/components/ui/card";
-import { canDeleteFrom, getTestPartEvaluation } from "@/db/queries/datasets";
+import { getTestPartEvaluation } from "@/db/queries/datasets";
+import { datasetDeleteRefusal } from "@/lib/policy/datasets";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
 
@@ -41,7 +42,7 @@ export default async function DatasetPage({ params }: Props) {
     sweep?: Record<string, number | null> | null;
     columns?: Record<string, { unit: string; min: number; max: number }>;
   };
-  const mayDelete = ds.status === "stored" && canDeleteFrom(user, detail.job.status);
+  const mayDelete = ds.status === "stored" && datasetDeleteRefusal(user, detail.job) === null;
 
   return (
     <div className="space-y-6">

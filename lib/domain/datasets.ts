@@ -1,0 +1,42 @@
+/** Uploaded datasets: their four kinds, the two phases of the work, and the list row pages show. */
+export const DATASET_KINDS = ["sphere_probe", "tram", "sweep", "test_part"] as const;
+export type DatasetKind = (typeof DATASET_KINDS)[number];
+
+export const DATASET_KIND_LABELS: Record<DatasetKind, string> = {
+  sphere_probe: "Sphere probing",
+  tram: "Indicator tram",
+  sweep: "Indicator sweep",
+  test_part: "Test-part measurements",
+};
+
+export const DATASET_STATUSES = ["stored", "deleted"] as const;
+export type DatasetStatus = (typeof DATASET_STATUSES)[number];
+
+/** Before or after the adjustment: readings, datasets and fits each belong to one. */
+export const PHASES = ["pre", "post"] as const;
+export type Phase = (typeof PHASES)[number];
+
+export const PHASE_LABELS: Record<Phase, string> = { pre: "Before adjustment", post: "After adjustment" };
+
+/** The same in running text ("the before adjustment reading"). */
+export function phaseText(phase: Phase): string {
+  return PHASE_LABELS[phase].toLowerCase();
+}
+
+/** One dataset as the job's data page lists it. */
+export interface DatasetListRow {
+  id: string;
+  jobId: string;
+  kind: DatasetKind;
+  phase: Phase;
+  status: DatasetStatus;
+  rows: number;
+  sha256: string;
+  sizeBytes: number;
+  originalFilename: string;
+  units: unknown;
+  warnings: string[];
+  uploadedAt: Date;
+  deletedAt: Date | null;
+  uploaderName: string | null;
+}

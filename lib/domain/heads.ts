@@ -1,0 +1,40 @@
+/** Heads: their axis letters and what the heads register and a head's history show. */
+import type { HeadFitJson } from "@/geometry";
+import type { JobKind, JobStatus } from "./jobs";
+import type { Phase } from "./datasets";
+
+export const AXIS_LETTERS = ["A", "B", "C"] as const;
+export type AxisLetter = (typeof AXIS_LETTERS)[number];
+
+/** One row of the heads register. */
+export interface HeadListRow {
+  id: string;
+  serial: string;
+  maker: string | null;
+  model: string | null;
+  primaryAxis: AxisLetter;
+  secondaryAxis: AxisLetter;
+  nominalPivotLengthMm: number;
+  massKg: number | null;
+  machineName: string | null;
+}
+
+/** One job on a head with the fit that stands for it: the approved one, or else the latest. */
+export interface HeadHistoryJob {
+  readonly id: string;
+  readonly reference: string;
+  readonly title: string;
+  readonly kind: JobKind;
+  readonly status: JobStatus;
+  /** When the work was (or is) scheduled, else when the job was created. */
+  readonly date: Date;
+  readonly fit: {
+    readonly analysisId: string;
+    readonly approved: boolean;
+    readonly createdAt: Date;
+    readonly datasetFilename: string;
+    readonly phase: Phase;
+    readonly geometryVersion: string;
+    readonly fit: HeadFitJson;
+  } | null;
+}

@@ -1,0 +1,52 @@
+/** A job's closed sets: its status flow and its kind, with one label each. */
+export const JOB_STATUSES = [
+  "draft",
+  "measuring",
+  "in_review",
+  "approved",
+  "issued",
+  "accepted",
+  "rejected",
+] as const;
+export type JobStatus = (typeof JOB_STATUSES)[number];
+
+export const STATUS_LABELS: Record<JobStatus, string> = {
+  draft: "Draft",
+  measuring: "Measuring",
+  in_review: "In review",
+  approved: "Approved",
+  issued: "Issued",
+  accepted: "Accepted",
+  rejected: "Rejected",
+};
+
+export const JOB_KINDS = ["installation", "reverification", "after_crash"] as const;
+export type JobKind = (typeof JOB_KINDS)[number];
+
+export const JOB_KIND_LABELS: Record<JobKind, string> = {
+  installation: "Installation",
+  reverification: "Re-verification",
+  after_crash: "Check after a crash",
+};
+
+/** The columns the jobs list sorts by (the API's `sort` parameter). */
+export const JOB_SORT_KEYS = ["reference", "title", "status", "customer", "machine", "updated"] as const;
+export type JobSortKey = (typeof JOB_SORT_KEYS)[number];
+
+/** One job as the jobs list shows it. */
+export interface JobListRow {
+  id: string;
+  reference: string;
+  title: string;
+  kind: JobKind;
+  status: JobStatus;
+  updatedAt: Date;
+  scheduledFor: Date | null;
+  customerId: string;
+  customerName: string;
+  siteName: string;
+  machineName: string;
+  headSerial: string;
+  headAxes: string;
+  installerName: string | null;
+}

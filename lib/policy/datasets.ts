@@ -1,0 +1,31 @@
+/** Datasets: who uploads and deletes measurement data, and while the job is in which status. */
+import type { JobStatus } from "@/lib/domain/jobs";
+import type { Actor } from "@/lib/domain/roles";
+
+/** Uploads are taken while the work is open; once approved the record is fixed. */
+export const UPLOAD_STATUSES: readonly JobStatus[] = ["draft", "measuring", "in_review"];
+/** Deletion only before review. */
+export const DELETE_STATUSES: readonly JobStatus[] = ["draft", "measuring"];
+
+/** Who handles measurement data: the service company's people (customers read it). */
+export function dataHandlerRefusal(actor: Actor, action: "upload" | "delete"): string | null {
+  return actor.role === "customer" ? `Your role may not ${action} data.` : null;
+}
+
+/** May this actor upload to a job (they can see) in this status now? */
+export function uploadRefusal(actor: Actor, job: { status: JobStatus }): string | null {
+  const who = dataHandlerRefusal(actor, "upload");
+  if (who) return who;
+  return UPLOAD_STATUSES.includes(job.status)
+    ? null
+    : `Data can be added while the job is draft, measuring or in review; this job is ${job.status.replace("_", " ")}.`;
+}
+
+/** May this actor delete a dataset of a job in this status now? */
+export function datasetDeleteRefusal(actor: Actor, job: { status: JobStatus }): string | null {
+  const who = dataHandlerRefusal(actor, "delete");
+  if (who) return who;
+  return DELETE_STATUSES.includes(job.status)
+    ? null
+    : "Data can be deleted only before review, while the job is draft or measuring.";
+}

@@ -1,0 +1,236 @@
+// The access rules of lib/policy (who uses the product, and the status flow), checked case by case.
+import { describe, expect, it } from "vitest";
+import { ROLES, type Actor } from "@/lib/domain/roles";
+import { headHistoryRefusal } from "@/lib/policy/heads";
+import { datasetDeleteRefusal, uploadRefusal } from "@/lib/policy/datasets";
+import {
+  allowedTransitions,
+  jobCreateRefusal,
+  jobRefusal,
+  jobScope,
+  transitionRefusal,
+} from "@/lib/policy/jobs";
+import { navigationFor } from "@/lib/policy/navigation";
+import { readingsRefusal } from "@/lib/policy/readings";
+import { REGISTERS, registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
+import { amendmentRefusal } from "@/lib/policy/reports";
+import { signatureRefusal } from "@/lib/policy/signatures";
+
+const actor = (role: Actor["role"], customerId: string | null = null): Actor => ({
+  id: "u1",
+  email: "x@y.example",
+  name: "X",
+  role,
+  customerId,
+});
+const jobA = { customerId: "cA", assignedInstallerId: "u1" };
+const jobB = { customerId: "cB", assignedInstallerId: "u2" };
+
+describe("who sees which job", () => {
+  it("staff roles other than installer see every customer's jobs", () => {
+    for (const r of ["admin", "inspector", "engineer"] as const) {
+      expect(jobRefusal(actor(r), jobA)).toBeNull();
+      expect(jobRefusal(actor(r), jobB)).toBeNull();
+    }
+  });
+  it("an installer sees only jobs assigned to them", () => {
+    expect(jobRefusal(actor("installer"), jobA)).toBeNull();
+    expect(jobRefusal(actor("installer"), jobB)).not.toBeNull();
+  });
+  it("a customer sees only their own company's jobs", () => {
+    expect(jobRefusal(actor("customer", "cA"), jobA)).toBeNull();
+    expect(jobRefusal(actor("customer", "cA"), jobB)).not.toBeNull();
+  });
+  it("a customer user with no company sees nothing (fails closed)", () => {
+    expect(jobScope(actor("customer", null))).toEqual({ kind: "none" });
+    expect(jobRefusal(actor("customer", null), jobA)).not.toBeNull();
+  });
+});
+
+describe("status flow", () => {
+  it("follows draft → measuring → in review → approved → issued → accepted | rejected", () => {
+    expect(
+      transitionRefusal(actor("installer"), { job: { status: "draft" }, to: "measuring" }) === null,
+    ).toBe(true);
+    expect(
+      transitionRefusal(actor("installer"), { job: { status: "measuring" }, to: "in_review" }) === null,
+    ).toBe(true);
+    expect(
+      transitionRefusal(actor("engineer"), { job: { status: "in_review" }, to: "approved" }) === null,
+    ).toBe(true);
+    expect(transitionRefusal(actor("engineer"), { job: { status: "approved" }, to: "issued" }) === null).toBe(
+      true,
+    );
+    expect(allowedTransitions(actor("customer"), { status: "issued" }).sort()).toEqual([
+      "accepted",
+      "rejected",
+    ]);
+  });
+  it("an installer cannot approve or issue", () => {
+    expect(
+      transitionRefusal(actor("installer"), { job: { status: "in_review" }, to: "approved" }) === null,
+    ).toBe(false);
+    expect(
+      transitionRefusal(actor("installer"), { job: { status: "approved" }, to: "issued" }) === null,
+    ).toBe(false);
+  });
+  it("nothing leaves accepted or rejected, and nobody skips a step", () => {
+    for (const r of ROLES) {
+      expect(allowedTransitions(actor(r), { status: "accepted" })).toEqual([]);
+      expect(allowedTransitions(actor(r), { status: "rejected" })).toEqual([]);
+      expect(transitionRefusal(actor(r), { job: { status: "draft" }, to: "issued" }) === null).toBe(false);
+    }
+  });
+  it("only customers accept or reject an issued report", () => {
+    for (const r of ROLES.filter((x) => x !== "customer"))
+      expect(allowedTransitions(actor(r), { status: "issued" })).toEqual([]);
+  });
+});
+
+describe("navigation and registers", () => {
+  it("every role has a jobs entry; only the administrator has the registers", () => {
+    for (const r of ROLES) expect(navigationFor(actor(r)).some((n) => n.href === "/jobs")).toBe(true);
+    expect(navigationFor(actor("admin")).some((n) => n.href === "/registers")).toBe(true);
+    for (const r of ROLES.filter((x) => x !== "admin"))
+      expect(navigationFor(actor(r)).some((n) => n.href === "/registers")).toBe(false);
+  });
+  it("engineers read the heads register only; customers none", () => {
+    expect(registerReadRefusal(actor("engineer"), "heads") === null).toBe(true);
+    expect(registerReadRefusal(actor("engineer"), "people") === null).toBe(false);
+    expect(registerReadRefusal(actor("customer"), "heads") === null).toBe(false);
+  });
+  it("a head's history is read by the office, engineers and its owner, not by installers or inspectors", () => {
+    expect(Object.fromEntries(ROLES.map((r) => [r, headHistoryRefusal(actor(r)) === null]))).toEqual({
+      admin: true,
+      engineer: true,
+      customer: true,
+      installer: false,
+      inspector: false,
+    });
+  });
+});
+
+describe("who signs what (21 CFR 11.50 meanings)", () => {
+  const job = (status: import("@/lib/domain/jobs").JobStatus) => ({
+    status,
+    customerId: "cA",
+    assignedInstallerId: "u1",
+  });
+  it("the assigned installer signs performed; another installer cannot", () => {
+    expect(signatureRefusal(actor("installer"), { meaning: "performed", job: job("measuring") })).toBeNull();
+    expect(
+      signatureRefusal({ ...actor("installer"), id: "u9" }, { meaning: "performed", job: job("measuring") }),
+    ).toMatch(/assigned/);
+  });
+  it("only an inspector signs inspected, and not after issue", () => {
+    expect(signatureRefusal(actor("inspector"), { meaning: "inspected", job: job("in_review") })).toBeNull();
+    expect(signatureRefusal(actor("engineer"), { meaning: "inspected", job: job("in_review") })).toMatch(
+      /inspector/,
+    );
+    expect(signatureRefusal(actor("inspector"), { meaning: "inspected", job: job("issued") })).toMatch(
+      /while/,
+    );
+  });
+  it("only an engineer approves, and only an approved job", () => {
+    expect(signatureRefusal(actor("engineer"), { meaning: "approved", job: job("approved") })).toBeNull();
+    expect(signatureRefusal(actor("engineer"), { meaning: "approved", job: job("in_review") })).toMatch(
+      /approved/,
+    );
+    expect(signatureRefusal(actor("installer"), { meaning: "approved", job: job("approved") })).toMatch(
+      /engineer/,
+    );
+  });
+  it("only the job's own customer accepts or rejects an issued report", () => {
+    expect(signatureRefusal(actor("customer", "cA"), { meaning: "accepted", job: job("issued") })).toBeNull();
+    expect(signatureRefusal(actor("customer", "cB"), { meaning: "accepted", job: job("issued") })).toMatch(
+      /own users/,
+    );
+    expect(signatureRefusal(actor("customer", "cA"), { meaning: "rejected", job: job("approved") })).toMatch(
+      /issued/,
+    );
+    expect(signatureRefusal(actor("admin"), { meaning: "accepted", job: job("issued") })).toMatch(
+      /own users/,
+    );
+  });
+});
+
+describe("checklist readings and the status moves of the checklist", () => {
+  const job = (
+    status: Parameters<typeof readingsRefusal>[1]["status"],
+    assignedInstallerId: string | null = "u1",
+  ) => ({ status, assignedInstallerId });
+  it("the assigned installer records readings while the job is draft or measuring", () => {
+    expect(readingsRefusal(actor("installer"), job("measuring"))).toBeNull();
+    expect(readingsRefusal(actor("installer"), job("draft"))).toBeNull();
+  });
+  it("readings are locked from review on, including an issued job", () => {
+    for (const s of ["in_review", "approved", "issued", "accepted", "rejected"] as const)
+      expect(readingsRefusal(actor("installer"), job(s))).toMatch(/locked/);
+  });
+  it("another installer, an inspector, an engineer and a customer may not record", () => {
+    expect(readingsRefusal(actor("installer"), job("measuring", "u2"))).toMatch(/assigned/);
+    for (const r of ["inspector", "engineer", "customer"] as const)
+      expect(readingsRefusal(actor(r, "cA"), job("measuring"))).not.toBeNull();
+    expect(readingsRefusal(actor("admin"), job("measuring", "u2"))).toBeNull();
+  });
+  it("an installer submits for review but cannot approve; only an engineer approves", () => {
+    expect(
+      transitionRefusal(actor("installer"), { job: { status: "measuring" }, to: "in_review" }) === null,
+    ).toBe(true);
+    expect(
+      transitionRefusal(actor("installer"), { job: { status: "in_review" }, to: "approved" }) === null,
+    ).toBe(false);
+    expect(
+      transitionRefusal(actor("inspector"), { job: { status: "in_review" }, to: "approved" }) === null,
+    ).toBe(false);
+    expect(
+      transitionRefusal(actor("engineer"), { job: { status: "in_review" }, to: "approved" }) === null,
+    ).toBe(true);
+  });
+  it("instruments and procedures are readable by staff, the outbox by the administrator only", () => {
+    expect(registerReadRefusal(actor("installer"), "instruments") === null).toBe(true);
+    expect(registerReadRefusal(actor("customer"), "instruments") === null).toBe(false);
+    expect(registerReadRefusal(actor("engineer"), "outbox") === null).toBe(false);
+    expect(registerReadRefusal(actor("admin"), "outbox") === null).toBe(true);
+    expect(registerReadRefusal(actor("engineer"), "people") === null).toBe(false);
+  });
+});
+
+describe("moves on someone else's job, amendments, data and registers", () => {
+  it("an installer moves only jobs assigned to them", () => {
+    const theirs = { status: "measuring" as const, assignedInstallerId: "u1" };
+    const others = { status: "measuring" as const, assignedInstallerId: "u2" };
+    expect(transitionRefusal(actor("installer"), { job: theirs, to: "in_review" })).toBeNull();
+    expect(transitionRefusal(actor("installer"), { job: others, to: "in_review" })).toMatch(/may not move/);
+    expect(allowedTransitions(actor("installer"), others)).toEqual([]);
+  });
+  it("an amendment is issued by an engineer after an issued or rejected report", () => {
+    expect(amendmentRefusal(actor("engineer"), { status: "issued" })).toBeNull();
+    expect(amendmentRefusal(actor("engineer"), { status: "rejected" })).toBeNull();
+    expect(amendmentRefusal(actor("engineer"), { status: "approved" })).toMatch(/follows an issued/);
+    expect(amendmentRefusal(actor("admin"), { status: "issued" })).toMatch(/application engineer/);
+  });
+  it("the service company's people upload while the job is open and delete before review", () => {
+    for (const r of ["admin", "installer", "inspector", "engineer"] as const) {
+      expect(uploadRefusal(actor(r), { status: "in_review" })).toBeNull();
+      expect(datasetDeleteRefusal(actor(r), { status: "measuring" })).toBeNull();
+      expect(datasetDeleteRefusal(actor(r), { status: "in_review" })).toMatch(/before review/);
+      expect(uploadRefusal(actor(r), { status: "approved" })).toMatch(/draft, measuring or in review/);
+    }
+    expect(uploadRefusal(actor("customer", "cA"), { status: "measuring" })).toMatch(/may not upload/);
+    expect(datasetDeleteRefusal(actor("customer", "cA"), { status: "measuring" })).toMatch(/may not delete/);
+  });
+  it("only the administrator keeps registers", () => {
+    for (const reg of REGISTERS) {
+      expect(registerEditRefusal(actor("admin"), reg)).toBeNull();
+      for (const r of ["installer", "inspector", "engineer", "customer"] as const)
+        expect(registerEditRefusal(actor(r, "cA"), reg)).not.toBeNull();
+    }
+  });
+  it("opening a job is the office's", () => {
+    expect(jobCreateRefusal(actor("admin"))).toBeNull();
+    expect(jobCreateRefusal(actor("engineer"))).toBeNull();
+    for (const r of ["installer", "inspector", "customer"] as const)
+      expect(jobCreateRefusal(actor(r))).toMatch(/office/);
+  });
+});
