@@ -10,7 +10,13 @@ import { ResidualChart } from "@/components/fit/residual-chart";
 import { Card } from "@/components/ui/card";
 import { SafetyNote } from "@/components/ui/safety-note";
 import { HeadViewerLoader } from "@/components/viewer/head-viewer-loader";
-import { getApprovedAnalysis, headConfigOf, listJobAnalyses } from "@/db/queries/analyses";
+import {
+  getApprovedAnalysis,
+  headConfigOf,
+  listJobAnalyses,
+  withPoses,
+  type AnalysisListRow,
+} from "@/db/queries/analyses";
 import { listJobViews } from "@/db/queries/analysis-views";
 import { listDatasets } from "@/db/queries/datasets";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
@@ -58,6 +64,8 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
             phaseOf.get(f.analysis.datasetId) !== shownPhase,
         )
       : undefined;
+  // Only the fit shown needs its per-pose arrays (the 3D view, the residual chart, the coverage).
+  const shownWithPoses = shown ? await withPoses(shown) : undefined;
 
   return (
     <div className="space-y-6">
@@ -118,10 +126,10 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
         ) : null}
       </Card>
 
-      {shown ? (
+      {shownWithPoses ? (
         <FitSection
           jobId={id}
-          fitRow={shown}
+          fitRow={shownWithPoses}
           otherRow={other}
           phaseOf={phaseOf}
           config={config}
@@ -141,7 +149,7 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
 
 const VIEW_POSES = 10_000;
 
-type FitRow = NonNullable<Awaited<ReturnType<typeof listJobAnalyses>>>[number];
+type FitRow = Awaited<ReturnType<typeof withPoses<AnalysisListRow>>>;
 
 const PHASE_TEXT = { pre: "before adjustment", post: "after adjustment" } as const;
 
@@ -159,7 +167,7 @@ function FitSection({
   jobId: string;
   limits: readonly ParameterLimit[];
   fitRow: FitRow;
-  otherRow: FitRow | undefined;
+  otherRow: AnalysisListRow | undefined;
   phaseOf: Map<string, "pre" | "post">;
   config: ReturnType<typeof headConfigOf>;
   user: { role: Parameters<typeof canTransition>[0] };
