@@ -1,11 +1,11 @@
 import "server-only";
 import { createHash } from "node:crypto";
-import { and, desc, eq } from "drizzle-orm";
+import { and, desc, eq, getTableColumns, sql } from "drizzle-orm";
 import { db } from "@/db";
-import { appendAudit, listJobAudit } from "@/db/queries/audit";
+import { appendAudit } from "@/db/queries/audit";
 import { getDataset, getDatasetColumns } from "@/db/queries/datasets";
 import { getJobDetail, jobAccessCondition } from "@/db/queries/jobs";
-import { analyses, datasets, jobs, users, type Analysis, type Head } from "@/db/schema";
+import { analyses, auditEvents, datasets, jobs, users, type Analysis, type Head } from "@/db/schema";
 import {
   fitHead,
   GEOMETRY_VERSION,
@@ -319,36 +319,68 @@ export function analysisJson(d: AnalysisDetail) {
   };
 }
 
-/** Analyses of a job, newest first (with the dataset's file name); null when the job is not visible. */
+/** A stored fit without its per-pose arrays: what lists and overlays need. */
+export type StoredHeadFitSummary = Omit<StoredHeadFit, "poses">;
+export type AnalysisSummaryRow = Omit<Analysis, "result"> & { result: StoredHeadFitSummary };
+
+/**
+ * Analyses of a job, newest first (with the dataset's file name), without the per-pose arrays,
+ * which grow with the dataset (about 150 bytes a pose) and are read for the fit shown only
+ * (withPoses); null when the job is not visible.
+ */
 export async function listJobAnalyses(actor: Actor, jobId: string) {
   const d = await getJobDetail(actor, jobId);
   if (!d) return null;
+  const { result: _result, ...columns } = getTableColumns(analyses);
   const rows = await db
-    .select({ analysis: analyses, datasetFilename: datasets.originalFilename, createdByName: users.name })
+    .select({
+      analysis: { ...columns, result: sql<StoredHeadFitSummary>`${analyses.result} - 'poses'` },
+      datasetFilename: datasets.originalFilename,
+      createdByName: users.name,
+    })
     .from(analyses)
     .innerJoin(datasets, eq(datasets.id, analyses.datasetId))
     .leftJoin(users, eq(users.id, analyses.createdById))
     .where(eq(analyses.jobId, jobId))
     .orderBy(desc(analyses.createdAt), desc(analyses.id));
-  return rows.map((r) => ({ ...r, analysis: r.analysis as AnalysisRow }));
+  return rows.map((r) => ({ ...r, analysis: r.analysis as AnalysisSummaryRow }));
+}
+export type AnalysisListRow = NonNullable<Awaited<ReturnType<typeof listJobAnalyses>>>[number];
+
+/** A row of listJobAnalyses with its per-pose arrays read back (the row came through the job's access check). */
+export async function withPoses<R extends AnalysisListRow>(row: R): Promise<R & { analysis: AnalysisRow }> {
+  const [p] = await db
+    .select({ poses: sql<HeadFitPoses>`${analyses.result} -> 'poses'` })
+    .from(analyses)
+    .where(eq(analyses.id, row.analysis.id));
+  if (!p) throw notFound("analysis");
+  return { ...row, analysis: { ...row.analysis, result: { ...row.analysis.result, poses: p.poses } } };
 }
 
 /**
  * The approved parameter set of a job: the analysis named by the latest "analysis.approved" audit
  * event (the approval lives in the hash-chained trail with the status change; no column records it).
+ * One indexed read of that event with its actor's name, not the job's whole trail.
  */
 export async function getApprovedAnalysis(actor: Actor, jobId: string) {
   const d = await getJobDetail(actor, jobId);
   if (!d) return null;
-  const events = await listJobAudit(db, jobId);
-  const last = [...events].reverse().find((e) => e.action === "analysis.approved");
+  const [last] = await db
+    .select({
+      entityId: auditEvents.entityId,
+      at: auditEvents.at,
+      actorEmail: auditEvents.actorEmail,
+      actorName: users.name,
+    })
+    .from(auditEvents)
+    .leftJoin(users, eq(users.id, auditEvents.actorId))
+    .where(and(eq(auditEvents.jobId, jobId), eq(auditEvents.action, "analysis.approved")))
+    .orderBy(desc(auditEvents.id))
+    .limit(1);
   if (!last) return null;
   const a = await getAnalysis(actor, last.entityId);
   if (!a) return null;
-  const [by] = last.actorId
-    ? await db.select({ name: users.name }).from(users).where(eq(users.id, last.actorId))
-    : [];
-  return { detail: a, approvedAt: last.at, approvedBy: by?.name ?? last.actorEmail };
+  return { detail: a, approvedAt: last.at, approvedBy: last.actorName ?? last.actorEmail };
 }
 
 /**

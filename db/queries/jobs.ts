@@ -64,8 +64,44 @@ function baseJobQuery() {
     .leftJoin(installers, eq(installers.id, jobs.assignedInstallerId));
 }
 
+/**
+ * The unfiltered list (what GET /api/jobs and the jobs page ask for most), built once per scope
+ * kind with the scope's id as a placeholder: the same SQL as listJobs' general path, without
+ * rebuilding it on every request.
+ */
+const defaultOrder = [desc(jobs.updatedAt), asc(jobs.reference)] as const;
+const defaultListAll = baseJobQuery()
+  .orderBy(...defaultOrder)
+  .limit(500)
+  .prepare("jobs_list_all");
+const defaultListAssigned = baseJobQuery()
+  .where(eq(jobs.assignedInstallerId, sql.placeholder("id")))
+  .orderBy(...defaultOrder)
+  .limit(500)
+  .prepare("jobs_list_assigned");
+const defaultListCustomer = baseJobQuery()
+  .where(eq(jobs.customerId, sql.placeholder("id")))
+  .orderBy(...defaultOrder)
+  .limit(500)
+  .prepare("jobs_list_customer");
+
+function defaultJobList(actor: Actor): Promise<JobListRow[]> {
+  const scope = jobScope(actor);
+  switch (scope.kind) {
+    case "all":
+      return defaultListAll.execute() as Promise<JobListRow[]>;
+    case "assigned":
+      return defaultListAssigned.execute({ id: scope.installerId }) as Promise<JobListRow[]>;
+    case "customer":
+      return defaultListCustomer.execute({ id: scope.customerId }) as Promise<JobListRow[]>;
+    case "none":
+      return Promise.resolve([]);
+  }
+}
+
 /** Jobs the actor may see, filtered and sorted. */
 export async function listJobs(actor: Actor, filters: JobListFilters = {}): Promise<JobListRow[]> {
+  if (!filters.status && !filters.q?.trim() && !filters.sort && !filters.dir) return defaultJobList(actor);
   const conditions: (SQL | undefined)[] = [jobAccessCondition(actor)];
   if (filters.status) conditions.push(eq(jobs.status, filters.status));
   const q = filters.q?.trim();

@@ -88,10 +88,11 @@ export async function listUsableInstruments() {
 export async function getChecklist(actor: Actor, jobId: string) {
   const d = await getJobDetail(actor, jobId);
   if (!d) return null;
-  const [template] = d.job.templateId
-    ? await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, d.job.templateId))
-    : [];
-  const [steps, rs, insts] = await Promise.all([
+  // Four independent reads, side by side once the job is known to be visible.
+  const [[template], steps, rs, insts] = await Promise.all([
+    d.job.templateId
+      ? db.select().from(procedureTemplates).where(eq(procedureTemplates.id, d.job.templateId))
+      : Promise.resolve([]),
     listTemplateSteps(d.job.templateId),
     jobReadings(d.job.id),
     listUsableInstruments(),

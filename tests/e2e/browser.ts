@@ -8,22 +8,10 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
 import { expect } from "vitest";
+import { CHROMIUM_ARGS } from "./chromium-args";
 
 export const BASE_URL = process.env.E2E_BASE_URL ?? "http://127.0.0.1:3100";
 export const DEMO_PASSWORD = "trammel-demo";
-
-export const CHROMIUM_ARGS = [
-  "--no-sandbox",
-  "--disable-gpu",
-  "--disable-quic",
-  "--no-first-run",
-  "--disable-background-networking",
-  "--disable-component-update",
-  "--disable-sync",
-  "--disable-dev-shm-usage",
-  "--use-angle=swiftshader",
-  "--enable-unsafe-swiftshader",
-];
 
 /** The two devices every journey runs on: an office desktop and the installer's tablet (portrait). */
 export const DESKTOP = { width: 1366, height: 900 };

@@ -10,7 +10,13 @@ import { ResidualChart } from "@/components/fit/residual-chart";
 import { Card } from "@/components/ui/card";
 import { SafetyNote } from "@/components/ui/safety-note";
 import { HeadViewerLoader } from "@/components/viewer/head-viewer-loader";
-import { getApprovedAnalysis, headConfigOf, listJobAnalyses } from "@/db/queries/analyses";
+import {
+  getApprovedAnalysis,
+  headConfigOf,
+  listJobAnalyses,
+  withPoses,
+  type AnalysisListRow,
+} from "@/db/queries/analyses";
 import { listJobViews } from "@/db/queries/analysis-views";
 import { listDatasets } from "@/db/queries/datasets";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
@@ -51,6 +57,8 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
   // The pre/post overlay: the latest fit of a dataset of the other phase than the one shown.
   const phaseOf = new Map((all ?? []).map((x) => [x.id, x.phase]));
   const other = otherPhaseFit(list, shown, phaseOf);
+  // Only the fit shown needs its per-pose arrays (the 3D view, the residual chart, the coverage).
+  const shownWithPoses = shown ? await withPoses(shown) : undefined;
 
   return (
     <div className="space-y-6">
@@ -109,10 +117,10 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
         {!mayRun ? <p className="mt-3 text-sm text-graphite-600">{runRefusal}</p> : null}
       </Card>
 
-      {shown ? (
+      {shownWithPoses ? (
         <FitSection
           jobId={id}
-          fitRow={shown}
+          fitRow={shownWithPoses}
           otherRow={other}
           phaseOf={phaseOf}
           config={config}
@@ -130,7 +138,7 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
   );
 }
 
-type FitRow = NonNullable<Awaited<ReturnType<typeof listJobAnalyses>>>[number];
+type FitRow = Awaited<ReturnType<typeof withPoses<AnalysisListRow>>>;
 
 function FitSection({
   jobId,
@@ -146,7 +154,7 @@ function FitSection({
   jobId: string;
   limits: readonly ParameterLimit[];
   fitRow: FitRow;
-  otherRow: FitRow | undefined;
+  otherRow: AnalysisListRow | undefined;
   phaseOf: Map<string, "pre" | "post">;
   config: ReturnType<typeof headConfigOf>;
   user: Actor;

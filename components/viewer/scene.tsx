@@ -1,0 +1,249 @@
+/**
+ * What the 3D view draws inside its canvas: a simplified head from primitives at zero, nominal and
+ * fitted axis lines, nominal and actual tool-tip paths, the measured tips as instanced spheres
+ * coloured by residual, and optionally the other fit of a pre/post pair. Geometry comes from
+ * geometry/head-scene.ts; this file only draws. Z up, lengths in mm.
+ */
+import { Html, Line, OrbitControls } from "@react-three/drei";
+import { useThree } from "@react-three/fiber";
+import { useEffect, useLayoutEffect, useMemo, useRef, type RefObject } from "react";
+import * as THREE from "three";
+import type { OrbitControls as OrbitControlsImpl } from "three-stdlib";
+import {
+  residualColour,
+  type HeadOverlayData,
+  type HeadSceneData,
+  type SceneLine,
+} from "@/geometry/head-scene";
+import type { HeadConfig } from "@/geometry";
+import { FITTED, NOMINAL, OTHER } from "./palette";
+
+/** Lights, head, axes, paths, measured points, the other fit when asked, and the orbit controls. */
+export function HeadScene({
+  scene,
+  other,
+  config,
+  maxRes,
+  maxTool,
+  controls,
+}: {
+  scene: HeadSceneData;
+  other: HeadOverlayData | null;
+  config: HeadConfig;
+  maxRes: number;
+  maxTool: number;
+  controls: RefObject<OrbitControlsImpl | null>;
+}) {
+  const L = config.pivotLengthMm;
+  return (
+    <>
+      <ambientLight intensity={0.8} />
+      <directionalLight position={[400, -300, 800]} intensity={1.6} />
+      <directionalLight position={[-500, 400, 200]} intensity={0.5} />
+      <HeadModel L={L} />
+      <Axes scene={scene} L={L} config={config} />
+      <Paths scene={scene} />
+      {other ? <OtherFit other={other} L={L} /> : null}
+      <MeasuredPoints scene={scene} maxRes={maxRes} radius={Math.max(1, 0.017 * L)} />
+      <OrbitControls
+        ref={controls}
+        makeDefault
+        target={[0, 0, -0.05 * (L + maxTool)]}
+        enableDamping={false}
+      />
+    </>
+  );
+}
+
+/** A simplified head at zero: collar, body, tilt-axis housing, spindle and tool (translucent, so the axes show). */
+function HeadModel({ L }: { L: number }) {
+  const body = {
+    color: "#9aa3ad",
+    transparent: true,
+    opacity: 0.28,
+    roughness: 0.7,
+    metalness: 0.1,
+    depthWrite: false,
+  };
+  return (
+    <group>
+      {/* Cylinders are along +Y by default; rotate to Z (primary) or X (tilt axis). */}
+      <mesh position={[0, 0, 1.26 * L]} rotation={[Math.PI / 2, 0, 0]}>
+        <cylinderGeometry args={[0.6 * L, 0.6 * L, 0.12 * L, 48]} />
+        <meshStandardMaterial {...body} color="#6b7280" opacity={0.35} />
+      </mesh>
+      <mesh position={[0, 0, 0.78 * L]} rotation={[Math.PI / 2, 0, 0]}>
+        <cylinderGeometry args={[0.42 * L, 0.46 * L, 0.84 * L, 48]} />
+        <meshStandardMaterial {...body} />
+      </mesh>
+      <mesh rotation={[0, 0, Math.PI / 2]}>
+        <cylinderGeometry args={[0.3 * L, 0.3 * L, 0.84 * L, 40]} />
+        <meshStandardMaterial {...body} />
+      </mesh>
+      <mesh position={[0, 0, -0.36 * L]} rotation={[Math.PI / 2, 0, 0]}>
+        <cylinderGeometry args={[0.16 * L, 0.19 * L, 0.72 * L, 32]} />
+        <meshStandardMaterial {...body} opacity={0.4} />
+      </mesh>
+      <mesh position={[0, 0, -0.86 * L]} rotation={[Math.PI / 2, 0, 0]}>
+        <cylinderGeometry args={[0.045 * L, 0.045 * L, 0.28 * L, 20]} />
+        <meshStandardMaterial color="#4b5563" roughness={0.4} metalness={0.5} />
+      </mesh>
+      <mesh position={[0, 0, -L]}>
+        <sphereGeometry args={[0.035 * L, 20, 14]} />
+        <meshStandardMaterial color="#374151" />
+      </mesh>
+    </group>
+  );
+}
+
+function lineEnds(l: SceneLine, from: number, to: number): [number, number, number][] {
+  const p = l.pointMm;
+  const d = l.direction;
+  return [
+    [p[0] + from * d[0], p[1] + from * d[1], p[2] + from * d[2]],
+    [p[0] + to * d[0], p[1] + to * d[1], p[2] + to * d[2]],
+  ];
+}
+
+function Axes({ scene, L, config }: { scene: HeadSceneData; L: number; config: HeadConfig }) {
+  const a = scene.axes;
+  const pEnd = lineEnds(a.fittedPrimary, -0.5 * L, 1.55 * L)[1]!;
+  const sEnd = lineEnds(a.fittedSecondary, -0.95 * L, 0.95 * L)[1]!;
+  return (
+    <group>
+      <Line
+        points={lineEnds(a.nominalPrimary, -0.5 * L, 1.55 * L)}
+        color={NOMINAL}
+        lineWidth={2}
+        dashed
+        dashSize={0.06 * L}
+        gapSize={0.04 * L}
+      />
+      <Line points={lineEnds(a.fittedPrimary, -0.5 * L, 1.55 * L)} color={FITTED} lineWidth={3} />
+      <Line
+        points={lineEnds(a.nominalSecondary, -0.95 * L, 0.95 * L)}
+        color={NOMINAL}
+        lineWidth={2}
+        dashed
+        dashSize={0.06 * L}
+        gapSize={0.04 * L}
+      />
+      <Line points={lineEnds(a.fittedSecondary, -0.95 * L, 0.95 * L)} color={FITTED} lineWidth={3} />
+      <Html position={pEnd} center zIndexRange={[10, 0]}>
+        <span className="whitespace-nowrap rounded bg-white/90 px-1.5 py-0.5 text-xs font-semibold text-graphite-800">
+          {config.primary} axis
+        </span>
+      </Html>
+      <Html position={sEnd} center zIndexRange={[10, 0]}>
+        <span className="whitespace-nowrap rounded bg-white/90 px-1.5 py-0.5 text-xs font-semibold text-graphite-800">
+          {config.secondary} axis
+        </span>
+      </Html>
+    </group>
+  );
+}
+
+function Segments({
+  positions,
+  color,
+  opacity,
+}: {
+  positions: Float32Array;
+  color: string;
+  opacity: number;
+}) {
+  const geometry = useMemo(() => {
+    const g = new THREE.BufferGeometry();
+    g.setAttribute("position", new THREE.BufferAttribute(positions, 3));
+    return g;
+  }, [positions]);
+  useEffect(() => () => geometry.dispose(), [geometry]);
+  return (
+    <lineSegments geometry={geometry}>
+      <lineBasicMaterial color={color} transparent opacity={opacity} />
+    </lineSegments>
+  );
+}
+
+function Paths({ scene }: { scene: HeadSceneData }) {
+  return (
+    <group>
+      <Segments positions={scene.nominalPathMm} color={NOMINAL} opacity={0.7} />
+      <Segments positions={scene.actualPathMm} color={FITTED} opacity={0.95} />
+    </group>
+  );
+}
+
+/** One instanced mesh for every measured tip (smooth at 10 000 points), coloured by |residual|. */
+function MeasuredPoints({ scene, maxRes, radius }: { scene: HeadSceneData; maxRes: number; radius: number }) {
+  const ref = useRef<THREE.InstancedMesh>(null);
+  const n = scene.residualUm.length;
+  const invalidate = useThree((s) => s.invalidate);
+  useLayoutEffect(() => {
+    const mesh = ref.current;
+    if (!mesh) return;
+    const m = new THREE.Matrix4();
+    const c = new THREE.Color();
+    for (let i = 0; i < n; i++) {
+      m.makeTranslation(
+        scene.measuredTipsMm[3 * i]!,
+        scene.measuredTipsMm[3 * i + 1]!,
+        scene.measuredTipsMm[3 * i + 2]!,
+      );
+      mesh.setMatrixAt(i, m);
+      const [r, g, b] = residualColour(scene.residualUm[i]!, maxRes);
+      mesh.setColorAt(i, c.setRGB(r, g, b, THREE.SRGBColorSpace));
+    }
+    mesh.instanceMatrix.needsUpdate = true;
+    if (mesh.instanceColor) mesh.instanceColor.needsUpdate = true;
+    mesh.computeBoundingSphere();
+    invalidate();
+  }, [scene, maxRes, n, invalidate]);
+  return (
+    <instancedMesh key={n} ref={ref} args={[undefined, undefined, n]}>
+      <sphereGeometry args={[radius, 10, 8]} />
+      <meshStandardMaterial roughness={0.6} />
+    </instancedMesh>
+  );
+}
+
+/** The other fit of the pre/post pair: dashed axis lines and tip path in the second colour. */
+function OtherFit({ other, L }: { other: HeadOverlayData; L: number }) {
+  const path = useMemo(() => {
+    const out: [number, number, number][] = [];
+    const a = other.actualPathMm;
+    for (let i = 0; i + 2 < a.length; i += 3) out.push([a[i]!, a[i + 1]!, a[i + 2]!]);
+    return out;
+  }, [other.actualPathMm]);
+  return (
+    <group>
+      <Line
+        points={lineEnds(other.axes.primary, -0.5 * L, 1.55 * L)}
+        color={OTHER}
+        lineWidth={2.5}
+        dashed
+        dashSize={0.035 * L}
+        gapSize={0.025 * L}
+      />
+      <Line
+        points={lineEnds(other.axes.secondary, -0.95 * L, 0.95 * L)}
+        color={OTHER}
+        lineWidth={2.5}
+        dashed
+        dashSize={0.035 * L}
+        gapSize={0.025 * L}
+      />
+      {path.length >= 2 ? (
+        <Line
+          points={path}
+          segments
+          color={OTHER}
+          lineWidth={1.5}
+          dashed
+          dashSize={0.02 * L}
+          gapSize={0.015 * L}
+        />
+      ) : null}
+    </group>
+  );
+}
