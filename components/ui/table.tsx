@@ -11,6 +11,7 @@ import {
   getCoreRowModel,
   getSortedRowModel,
   type ColumnDef,
+  type ColumnMeta,
   type Header,
   type RowData,
   type SortingState,
@@ -40,10 +41,10 @@ export type { ColumnDef, SortingState };
 export type ColumnFactory<T> = (
   header: string,
   cell: (row: T) => React.ReactNode,
-  opts?: Meta & { id?: string; sortBy?: (row: T) => string | number | null },
+  opts?: ColumnOptions<T>,
 ) => ColumnDef<T, unknown>;
 
-type Meta = NonNullable<ColumnDef<unknown, unknown>["meta"]>;
+type ColumnOptions<T> = ColumnMeta<T, unknown> & { id?: string; sortBy?: (row: T) => string | number | null };
 
 /**
  * A column from a header and a cell renderer: the short form most tables need. Give `sortBy` to
@@ -52,13 +53,9 @@ type Meta = NonNullable<ColumnDef<unknown, unknown>["meta"]>;
 export function column<T>(
   header: string,
   cell: (row: T) => React.ReactNode,
-  opts: Meta & { id?: string; sortBy?: (row: T) => string | number | null } = {},
+  opts: ColumnOptions<T> = {},
 ): ColumnDef<T, unknown> {
-  const {
-    id = header,
-    sortBy,
-    ...meta
-  } = opts as Meta & { id?: string; sortBy?: (row: T) => string | number | null };
+  const { id = header, sortBy, ...meta } = opts;
   return {
     id,
     header,
