@@ -24,7 +24,7 @@ export function ParameterTable({
         bare
         data={rows}
         getRowId={(p) => p.key}
-        rowProps={(p) => ({ "data-key": p.key, "data-decision": p.decision })}
+        rowProps={(p) => ({ "data-key": p.key, "data-decision": p.decision, className: "align-top" })}
         columns={(column) => [
           column("Symbol", (p) => p.iso, { className: "num font-semibold" }),
           column("Parameter", (p) => (

@@ -27,6 +27,11 @@ declare module "@tanstack/react-table" {
     numeric?: boolean;
     /** Never wrapped: references, dates, serials such as "TR-2026-0041". */
     nowrap?: boolean;
+    /** This column names the row: its cells are row headers (<th scope="row">). */
+    rowHeader?: boolean;
+    /** Attributes and extra classes for the column's header cell. */
+    headerProps?: Record<string, string | undefined>;
+    headerClassName?: string;
     /** The label in card layout when the header is not plain text. */
     label?: string;
     /** Extra classes for this column's cells. */
@@ -78,7 +83,7 @@ export interface TableProps<T> {
   /** "cards" (default): one card per row below 900 px. "scroll": stays a table and scrolls sideways. */
   layout?: "cards" | "scroll";
   getRowId?: (row: T) => string;
-  rowProps?: (row: T) => React.HTMLAttributes<HTMLTableRowElement> & Record<`data-${string}`, string>;
+  rowProps?: (row: T) => React.HTMLAttributes<HTMLTableRowElement> & Record<`data-${string}`, string | undefined>;
   sorting?: SortingState;
   /** Browser-side sorting: called with the new order when a header is pressed. */
   onSortingChange?: (next: SortingState) => void;
@@ -87,6 +92,8 @@ export interface TableProps<T> {
   className?: string;
   /** Classes for the <table> itself (a minimum width for a wide table, for instance). */
   tableClassName?: string;
+  /** Attributes for the <table> element (a test id, for instance). */
+  tableProps?: Record<`data-${string}`, string>;
   /** Inside a Card: no border or shadow of its own. */
   bare?: boolean;
 }
@@ -197,7 +204,7 @@ export function Table<T>(props: TableProps<T>) {
         label={`${caption}, table`}
         className={`${bare ? "" : "rounded-card border border-graphite-200 bg-white shadow-sm"} ${k.frame}`}
       >
-        <table className={`w-full text-sm ${tableClassName} ${k.table}`}>
+        <table {...props.tableProps} className={`w-full text-sm ${tableClassName} ${k.table}`}>
           <caption className="sr-only">{caption}</caption>
           <thead
             className={`border-b border-graphite-200 text-graphite-600 ${bare ? "" : "bg-graphite-50"} ${k.head}`}
@@ -211,6 +218,7 @@ export function Table<T>(props: TableProps<T>) {
                     <th
                       key={h.id}
                       scope="col"
+                      {...meta?.headerProps}
                       aria-sort={
                         h.column.getCanSort()
                           ? dir === "asc"
@@ -220,7 +228,7 @@ export function Table<T>(props: TableProps<T>) {
                               : "none"
                           : undefined
                       }
-                      className={`${bare ? "py-2 pr-3" : "px-4 py-3"} font-medium ${meta?.numeric ? "text-right" : "text-left"}`}
+                      className={`${bare ? "py-2 pr-3" : "px-4 py-3"} font-medium ${meta?.numeric ? "text-right" : "text-left"} ${meta?.headerClassName ?? ""}`}
                     >
                       {h.isPlaceholder ? null : h.column.getCanSort() ? (
                         <SortControl header={h} sortHref={props.sortHref} />
@@ -244,15 +252,17 @@ export function Table<T>(props: TableProps<T>) {
                   const meta = cell.column.columnDef.meta;
                   const h = cell.column.columnDef.header;
                   const label = meta?.label ?? (typeof h === "string" ? h : cell.column.id);
+                  const Cell = meta?.rowHeader ? "th" : "td";
                   return (
-                    <td
+                    <Cell
                       key={cell.id}
+                      scope={meta?.rowHeader ? "row" : undefined}
                       data-label={label}
                       {...meta?.cellProps?.(row.original)}
-                      className={`${bare ? "py-2 pr-3" : "px-4 py-3"} align-top ${meta?.numeric ? "num text-right" : ""} ${meta?.nowrap || meta?.numeric ? "whitespace-nowrap" : ""} ${meta?.className ?? ""} ${k.cell}`}
+                      className={`${bare ? "py-2 pr-3" : "px-4 py-3"} ${meta?.rowHeader ? "text-left font-normal" : ""} ${meta?.numeric ? "num text-right" : ""} ${meta?.nowrap || meta?.numeric ? "whitespace-nowrap" : ""} ${meta?.className ?? ""} ${k.cell}`}
                     >
                       {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                    </td>
+                    </Cell>
                   );
                 })}
               </tr>
