@@ -6,6 +6,7 @@
  * numbers follow as a table.
  */
 import { niceTicks } from "@/lib/chart-ticks";
+import { Table, type ColumnDef } from "@/components/ui/table";
 
 export interface TrendJob {
   key: string;
@@ -203,34 +204,32 @@ export function ParameterTrend({
         <summary className="min-h-touch cursor-pointer py-2 font-medium text-graphite-800">
           The charted values as a table
         </summary>
-        <table className="w-full text-sm" aria-label="Charted parameter values">
-          <thead>
-            <tr className="border-b border-graphite-200 text-left text-graphite-600">
-              <th scope="col" className="py-1.5 pr-3 font-medium">
-                Parameter
-              </th>
-              {jobs.map((j) => (
-                <th key={j.key} scope="col" className="py-1.5 pr-3 text-right font-medium">
+        <Table
+          caption="Charted parameter values"
+          empty="Nothing charted."
+          bare
+          layout="scroll"
+          data={series}
+          getRowId={(s) => s.key}
+          columns={[
+            {
+              id: "parameter",
+              header: "Parameter",
+              cell: ({ row }) => <span className="font-medium">{row.original.symbol}</span>,
+              meta: { rowHeader: true },
+            },
+            ...jobs.map((j, i): ColumnDef<TrendSeries, unknown> => ({
+              id: j.key,
+              header: () => (
+                <>
                   {j.reference} <span className="font-normal">({j.dateText})</span>
-                </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            {series.map((s) => (
-              <tr key={s.key} className="border-b border-graphite-100">
-                <th scope="row" className="py-1.5 pr-3 text-left font-medium">
-                  {s.symbol}
-                </th>
-                {s.points.map((p, i) => (
-                  <td key={jobs[i]!.key} className="num py-1.5 pr-3 text-right">
-                    {p ? p.text : "—"}
-                  </td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </table>
+                </>
+              ),
+              cell: ({ row }) => row.original.points[i]?.text ?? "—",
+              meta: { numeric: true, label: `${j.reference} (${j.dateText})` },
+            })),
+          ]}
+        />
       </details>
     </figure>
   );

@@ -1,9 +1,11 @@
-import { ScrollRegion } from "@/components/ui/scroll-region";
 import { DecisionBadge } from "@/components/readings/decision-badge";
+import { Table } from "@/components/ui/table";
 import type { TestPartResult } from "@/geometry";
 
 const UNIT_SHOWN: Record<string, string> = { um: "µm", "um/m": "µm/m", deg: "°", arcsec: "″" };
 const DIGITS: Record<string, number> = { mm: 4, in: 5, um: 1, deg: 4, arcsec: 1, "um/m": 1 };
+
+const ROW_TINT: Record<string, string> = { fail: "bg-fail-50/60", undecided: "bg-undecided-50/60" };
 
 function fmt(v: number | null, unit: string, signed = false): string {
   if (v === null) return "—";
@@ -39,76 +41,30 @@ export function EvaluationTable({ result }: { result: TestPartResult }) {
           Features checked <span className="num text-lg font-semibold text-graphite-900">{totals.total}</span>
         </div>
       </div>
-      <ScrollRegion
-        label="Test-part evaluation, table"
-        className="rounded-card border border-graphite-200 bg-white shadow-sm"
-      >
-        <table className="w-full text-sm" aria-label="Test-part evaluation">
-          <thead className="border-b border-graphite-200 bg-graphite-50 text-graphite-600">
-            <tr>
-              <th scope="col" className="px-2 py-3 lg:px-4 text-left font-medium">
-                Feature
-              </th>
-              <th scope="col" className="px-2 py-3 lg:px-4 text-left font-medium">
-                Characteristic
-              </th>
-              <th scope="col" className="px-2 py-3 lg:px-4 text-right font-medium">
-                Nominal
-              </th>
-              <th scope="col" className="px-2 py-3 lg:px-4 text-right font-medium">
-                Measured
-              </th>
-              <th scope="col" className="px-2 py-3 lg:px-4 text-right font-medium">
-                Deviation
-              </th>
-              <th scope="col" className="px-2 py-3 lg:px-4 text-right font-medium">
-                Limits
-              </th>
-              <th scope="col" className="px-2 py-3 lg:px-4 text-right font-medium">
-                ± U (k = 2)
-              </th>
-              <th scope="col" className="px-2 py-3 lg:px-4 text-left font-medium">
-                Unit
-              </th>
-              <th scope="col" className="px-2 py-3 lg:px-4 text-left font-medium">
-                Decision
-              </th>
-            </tr>
-          </thead>
-          <tbody className="divide-y divide-graphite-100">
-            {result.rows.map((r, i) => (
-              <tr
-                key={i}
-                className={
-                  r.decision === "fail"
-                    ? "bg-fail-50/60"
-                    : r.decision === "undecided"
-                      ? "bg-undecided-50/60"
-                      : ""
-                }
-              >
-                <td className="px-2 py-2.5 lg:px-4 font-medium">{r.feature}</td>
-                <td className="px-2 py-2.5 lg:px-4">{r.characteristic}</td>
-                <td className="num px-2 py-2.5 lg:px-4 text-right">{fmt(r.nominal, r.unit)}</td>
-                <td className="num px-2 py-2.5 lg:px-4 text-right font-semibold">
-                  {fmt(r.measured, r.unit)}
-                </td>
-                <td className="num px-2 py-2.5 lg:px-4 text-right">{fmt(r.deviation, r.unit, true)}</td>
-                <td className="num px-2 py-2.5 lg:px-4 text-right whitespace-nowrap">
-                  {r.lower_limit === null
-                    ? `≤ ${fmt(r.upper_limit, r.unit)}`
-                    : `${fmt(r.lower_limit, r.unit)} … ${fmt(r.upper_limit, r.unit)}`}
-                </td>
-                <td className="num px-2 py-2.5 lg:px-4 text-right">{fmt(r.U, r.unit)}</td>
-                <td className="px-2 py-2.5 lg:px-4">{UNIT_SHOWN[r.unit] ?? r.unit}</td>
-                <td className="px-2 py-2.5 lg:px-4">
-                  <DecisionBadge decision={r.decision} />
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </ScrollRegion>
+      <Table
+        caption="Test-part evaluation"
+        empty="The file named no features to evaluate."
+        data={result.rows}
+        rowProps={(r) => ({ className: ROW_TINT[r.decision] ?? "" })}
+        columns={(column) => [
+          column("Feature", (r) => r.feature, { className: "font-medium" }),
+          column("Characteristic", (r) => r.characteristic),
+          column("Nominal", (r) => fmt(r.nominal, r.unit), { numeric: true }),
+          column("Measured", (r) => fmt(r.measured, r.unit), { numeric: true, className: "font-semibold" }),
+          column("Deviation", (r) => fmt(r.deviation, r.unit, true), { numeric: true }),
+          column(
+            "Limits",
+            (r) =>
+              r.lower_limit === null
+                ? `≤ ${fmt(r.upper_limit, r.unit)}`
+                : `${fmt(r.lower_limit, r.unit)} … ${fmt(r.upper_limit, r.unit)}`,
+            { numeric: true },
+          ),
+          column("± U (k = 2)", (r) => fmt(r.U, r.unit), { numeric: true }),
+          column("Unit", (r) => UNIT_SHOWN[r.unit] ?? r.unit),
+          column("Decision", (r) => <DecisionBadge decision={r.decision} />),
+        ]}
+      />
     </div>
   );
 }

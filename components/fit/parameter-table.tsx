@@ -1,4 +1,4 @@
-import { ScrollRegion } from "@/components/ui/scroll-region";
+import { Table } from "@/components/ui/table";
 import { DecisionBadge } from "@/components/readings/decision-badge";
 import type { ParameterRow } from "@/lib/fit-display";
 
@@ -18,71 +18,34 @@ export function ParameterTable({
   const sources = [...new Set(rows.flatMap((r) => (r.limitSourceText ? [r.limitSourceText] : [])))];
   return (
     <>
-      <ScrollRegion label="Fitted parameters table">
-        <table className="w-full text-sm" aria-label="Fitted parameters">
-          <thead>
-            <tr className="border-b border-graphite-200 text-left text-graphite-600">
-              <th className="py-2 pr-3 font-medium">Symbol</th>
-              <th className="py-2 pr-3 font-medium">Parameter</th>
-              <th className="py-2 pr-3 text-right font-medium">Value</th>
-              <th className="py-2 pr-3 text-right font-medium">U (k = 2)</th>
-              <th className="py-2 pr-3 text-right font-medium">Limit</th>
-              <th className="py-2 pr-3 font-medium">Result</th>
-              <th className="py-2 font-medium">Identifiable from this data</th>
-            </tr>
-          </thead>
-          <tbody>
-            {rows.map((p) => (
-              <tr
-                key={p.key}
-                data-key={p.key}
-                data-decision={p.decision}
-                className="border-b border-graphite-100 align-top"
-              >
-                <td className="num py-2 pr-3 font-semibold">{p.iso}</td>
-                <td className="py-2 pr-3">
-                  {p.words}
-                  <span className="block text-xs text-graphite-500">{p.key}</span>
-                </td>
-                <td className="num whitespace-nowrap py-2 pr-3 text-right" data-value={p.value}>
-                  {p.valueText}
-                </td>
-                <td className="num whitespace-nowrap py-2 pr-3 text-right">{p.UText}</td>
-                <td
-                  className="num whitespace-nowrap py-2 pr-3 text-right"
-                  title={p.limitSourceText ?? undefined}
-                >
-                  {p.toleranceText ?? "—"}
-                  {p.limitSourceText ? (
-                    <span className="block font-sans text-xs text-graphite-500">
-                      {p.limitSourceText.split(":")[0]}
-                      {p.decisionRule === "guarded" ? " · guarded" : ""}
-                    </span>
-                  ) : null}
-                </td>
-                <td className="py-2 pr-3">
-                  <DecisionBadge decision={p.decision} label={p.decisionText} />
-                </td>
-                <td className="py-2">
-                  <span
-                    className={
-                      p.identifiable === "yes"
-                        ? "text-pass-700"
-                        : p.identifiable === "weak"
-                          ? "text-accent-700"
-                          : "text-fail-700"
-                    }
-                  >
-                    {p.identifiable === "yes" ? "● " : p.identifiable === "weak" ? "◐ " : "○ "}
-                    {p.identifiableText}
-                  </span>
-                  {p.heldAtZero ? <span className="text-graphite-600"> — held at 0</span> : null}
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </ScrollRegion>
+      <Table
+        caption="Fitted parameters"
+        empty="The fit gave no parameters."
+        bare
+        data={rows}
+        getRowId={(p) => p.key}
+        rowProps={(p) => ({ "data-key": p.key, "data-decision": p.decision, className: "align-top" })}
+        columns={(column) => [
+          column("Symbol", (p) => p.iso, { className: "num font-semibold" }),
+          column("Parameter", (p) => (
+            <>
+              {p.words}
+              <span className="block text-xs text-graphite-500">{p.key}</span>
+            </>
+          )),
+          column("Value", (p) => p.valueText, {
+            numeric: true,
+            cellProps: (p) => ({ "data-value": p.value }),
+          }),
+          column("U (k = 2)", (p) => p.UText, { numeric: true }),
+          column("Limit", (p) => <LimitCell row={p} />, {
+            numeric: true,
+            cellProps: (p) => ({ title: p.limitSourceText ?? undefined }),
+          }),
+          column("Result", (p) => <DecisionBadge decision={p.decision} label={p.decisionText} />),
+          column("Identifiable from this data", (p) => <Identifiable row={p} />),
+        ]}
+      />
       <p className="mt-3 text-xs text-graphite-600">
         {anyLimit
           ? "Limits come from the job's procedure version. Simple acceptance: pass inside the limits, U shown but not subtracted. Guarded acceptance (ISO 14253-1): pass only inside the limits narrowed by U, fail only outside them widened by U, undecided between."
@@ -99,6 +62,39 @@ export function ParameterTable({
           </ul>
         </div>
       ) : null}
+    </>
+  );
+}
+
+function LimitCell({ row: p }: { row: ParameterRow }) {
+  return (
+    <>
+      {p.toleranceText ?? "—"}
+      {p.limitSourceText ? (
+        <span className="block font-sans text-xs text-graphite-500">
+          {p.limitSourceText.split(":")[0]}
+          {p.decisionRule === "guarded" ? " · guarded" : ""}
+        </span>
+      ) : null}
+    </>
+  );
+}
+
+const IDENTIFIABLE = {
+  yes: ["text-pass-700", "● "],
+  weak: ["text-accent-700", "◐ "],
+  no: ["text-fail-700", "○ "],
+} as const;
+
+function Identifiable({ row: p }: { row: ParameterRow }) {
+  const [cls, mark] = IDENTIFIABLE[p.identifiable as keyof typeof IDENTIFIABLE] ?? IDENTIFIABLE.no;
+  return (
+    <>
+      <span className={cls}>
+        {mark}
+        {p.identifiableText}
+      </span>
+      {p.heldAtZero ? <span className="text-graphite-600"> — held at 0</span> : null}
     </>
   );
 }

@@ -1,14 +1,17 @@
 import Link from "next/link";
 import { ParameterTrend, type TrendSeries } from "@/components/charts/parameter-trend";
 import { Card } from "@/components/ui/card";
-import { ScrollRegion } from "@/components/ui/scroll-region";
 import { StatusBadge } from "@/components/ui/status-badge";
+import { Table, type ColumnDef } from "@/components/ui/table";
 import type { HeadHistoryJob } from "@/lib/domain/heads";
 import { HEAD_PARAMETER_KEYS } from "@/geometry";
 import { parameterRows, PARAMETER_WORDS, type ParameterRow } from "@/lib/fit-display";
 import { formatDate, formatDateTimeUtc, JOB_KIND_LABELS } from "@/lib/format";
 
 const UNIT_TEXT = { um: "µm", arcsec: "″" } as const;
+
+type HistoryJob = HeadHistoryJob;
+type HistoryRow = { key: (typeof HEAD_PARAMETER_KEYS)[number] | "rms" };
 
 /** The fitted parameters of every job on the head side by side (one column per job), then their trend. */
 export function FitHistory({ history }: { history: { readonly jobs: readonly HeadHistoryJob[] } }) {
@@ -42,94 +45,50 @@ export function FitHistory({ history }: { history: { readonly jobs: readonly Hea
             For each job on this head: the approved parameter set, or the latest fit where none is approved
             yet. Values are the head as measured minus the head as designed, ± U (k = 2).
           </p>
-          <ScrollRegion label="Fitted parameters by job, table">
-            <table
-              className="w-full min-w-[40rem] text-sm"
-              aria-label="Fitted parameters by job"
-              data-testid="head-history"
-            >
-              <thead>
-                <tr className="border-b border-graphite-200 align-bottom">
-                  <th scope="col" className="py-2 pr-4 text-left font-medium text-graphite-600">
-                    Parameter
-                  </th>
-                  {jobs.map((j) => (
-                    <th
-                      key={j.id}
-                      scope="col"
-                      className="min-w-[11rem] py-2 pr-4 text-right align-bottom font-normal"
-                      data-job={j.reference}
-                    >
-                      <Link
-                        href={j.fit ? `/jobs/${j.id}/analysis?analysis=${j.fit.analysisId}` : `/jobs/${j.id}`}
-                        className="num font-semibold text-accent-700 underline-offset-2 hover:underline"
-                      >
-                        {j.reference}
-                      </Link>
-                      <span className="block text-graphite-800">{JOB_KIND_LABELS[j.kind]}</span>
-                      <span className="num block text-graphite-600">{formatDate(j.date)}</span>
-                      <span className="mt-1 inline-block">
-                        <StatusBadge status={j.status} />
-                      </span>
-                      <span className="block text-xs text-graphite-600">
-                        {j.fit
-                          ? j.fit.approved
-                            ? "✓ approved fit"
-                            : `latest fit, not approved (${formatDateTimeUtc(j.fit.createdAt)})`
-                          : "no fit yet"}
-                      </span>
-                    </th>
-                  ))}
-                </tr>
-              </thead>
-              <tbody>
-                {HEAD_PARAMETER_KEYS.map((key) => (
-                  <tr key={key} className="border-b border-graphite-100" data-key={key}>
-                    <th scope="row" className="py-2 pr-4 text-left font-normal">
-                      <span className="num font-semibold text-graphite-900">{symbolOf(key)}</span>{" "}
-                      <span className="text-graphite-700">{PARAMETER_WORDS[key]}</span>
-                    </th>
-                    {jobs.map((j, i) => {
-                      const r = rowsByJob[i]?.get(key);
-                      return (
-                        <td
-                          key={j.id}
-                          className="num py-2 pr-4 text-right"
-                          data-value={r && !r.heldAtZero ? r.value : undefined}
-                        >
-                          {!r ? (
-                            <span className="text-graphite-500">—</span>
-                          ) : r.heldAtZero ? (
-                            <span className="text-graphite-600">held at 0</span>
-                          ) : (
-                            valuePlusMinus(r)
-                          )}
-                        </td>
-                      );
-                    })}
-                  </tr>
-                ))}
-                <tr>
-                  <th scope="row" className="py-2 pr-4 text-left font-normal text-graphite-700">
-                    Residual RMS · dataset
-                  </th>
-                  {jobs.map((j) => (
-                    <td key={j.id} className="py-2 pr-4 text-right text-xs text-graphite-600">
-                      {j.fit ? (
-                        <>
-                          <span className="num">{j.fit.fit.rms_um.toFixed(2)} µm</span> ·{" "}
-                          {j.fit.phase === "pre" ? "before" : "after"} adjustment
-                          <span className="block">{j.fit.datasetFilename}</span>
-                        </>
-                      ) : (
-                        "—"
-                      )}
-                    </td>
-                  ))}
-                </tr>
-              </tbody>
-            </table>
-          </ScrollRegion>
+          <Table
+            caption="Fitted parameters by job"
+            empty="No jobs on this head yet."
+            bare
+            layout="scroll"
+            tableClassName="min-w-[40rem]"
+            tableProps={{ "data-testid": "head-history" }}
+            data={[...HEAD_PARAMETER_KEYS.map((key) => ({ key })), { key: "rms" as const }]}
+            getRowId={(r) => r.key}
+            rowProps={(r) => (r.key === "rms" ? {} : { "data-key": r.key })}
+            columns={[
+              {
+                id: "parameter",
+                header: "Parameter",
+                cell: ({ row: { original: r } }) =>
+                  r.key === "rms" ? (
+                    <span className="text-graphite-700">Residual RMS · dataset</span>
+                  ) : (
+                    <>
+                      <span className="num font-semibold text-graphite-900">{symbolOf(r.key)}</span>{" "}
+                      <span className="text-graphite-700">{PARAMETER_WORDS[r.key]}</span>
+                    </>
+                  ),
+                meta: { rowHeader: true, className: "pr-4", headerClassName: "text-graphite-600" },
+              },
+              ...jobs.map((j, i): ColumnDef<HistoryRow, unknown> => ({
+                id: j.id,
+                header: () => <JobHeading job={j} />,
+                cell: ({ row: { original: r } }) =>
+                  r.key === "rms" ? <RmsCell job={j} /> : <ValueCell row={rowsByJob[i]?.get(r.key)} />,
+                meta: {
+                  numeric: true,
+                  label: j.reference,
+                  className: "pr-4 whitespace-normal",
+                  headerClassName: "min-w-[11rem] pr-4 align-bottom font-normal",
+                  headerProps: { "data-job": j.reference },
+                  cellProps: (r) => {
+                    const v = r.key === "rms" ? undefined : rowsByJob[i]?.get(r.key);
+                    return { "data-value": v && !v.heldAtZero ? v.value : undefined };
+                  },
+                },
+              })),
+            ]}
+          />
           {series.length > 0 && fitted.length > 0 ? (
             <div>
               <h3 className="mb-2 text-sm font-semibold text-graphite-900">Trend across jobs</h3>
@@ -155,4 +114,46 @@ export function FitHistory({ history }: { history: { readonly jobs: readonly Hea
 
 function valuePlusMinus(r: ParameterRow): string {
   return `${r.valueText.replace(` ${UNIT_TEXT[r.unit]}`, "")} ${r.UText}`.trim();
+}
+
+function JobHeading({ job: j }: { job: HistoryJob }) {
+  return (
+    <>
+      <Link
+        href={j.fit ? `/jobs/${j.id}/analysis?analysis=${j.fit.analysisId}` : `/jobs/${j.id}`}
+        className="num font-semibold text-accent-700 underline-offset-2 hover:underline"
+      >
+        {j.reference}
+      </Link>
+      <span className="block text-graphite-800">{JOB_KIND_LABELS[j.kind]}</span>
+      <span className="num block text-graphite-600">{formatDate(j.date)}</span>
+      <span className="mt-1 inline-block">
+        <StatusBadge status={j.status} />
+      </span>
+      <span className="block text-xs text-graphite-600">
+        {j.fit
+          ? j.fit.approved
+            ? "✓ approved fit"
+            : `latest fit, not approved (${formatDateTimeUtc(j.fit.createdAt)})`
+          : "no fit yet"}
+      </span>
+    </>
+  );
+}
+
+function ValueCell({ row: r }: { row: ParameterRow | undefined }) {
+  if (!r) return <span className="text-graphite-500">—</span>;
+  if (r.heldAtZero) return <span className="text-graphite-600">held at 0</span>;
+  return <span className="whitespace-nowrap">{valuePlusMinus(r)}</span>;
+}
+
+function RmsCell({ job: j }: { job: HistoryJob }) {
+  if (!j.fit) return <span className="text-xs text-graphite-600">—</span>;
+  return (
+    <span className="font-sans text-xs text-graphite-600">
+      <span className="num">{j.fit.fit.rms_um.toFixed(2)} µm</span> ·{" "}
+      {j.fit.phase === "pre" ? "before" : "after"} adjustment
+      <span className="block">{j.fit.datasetFilename}</span>
+    </span>
+  );
 }

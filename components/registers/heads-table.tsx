@@ -1,33 +1,27 @@
 import Link from "next/link";
-import { SimpleTable } from "@/components/ui/simple-table";
+import { Table } from "@/components/ui/table";
 import type { HeadListRow } from "@/lib/domain/heads";
 
 export function HeadsTable({ rows }: { rows: readonly HeadListRow[] }) {
   return (
-    <SimpleTable
+    <Table
       caption="Heads"
-      rows={rows}
-      columns={[
-        {
-          header: "Serial",
-          cell: (h) => (
-            <Link
-              href={`/registers/heads/${h.id}`}
-              className="num font-medium text-graphite-900 underline decoration-graphite-300 underline-offset-2 hover:decoration-accent-500"
-            >
-              {h.serial}
-            </Link>
-          ),
-        },
-        { header: "Maker and model", cell: (h) => [h.maker, h.model].filter(Boolean).join(" ") || "—" },
-        { header: "Axes (primary/secondary)", cell: (h) => `${h.primaryAxis}/${h.secondaryAxis}` },
-        {
-          header: "Nominal pivot length",
-          cell: (h) => `${h.nominalPivotLengthMm.toFixed(3)} mm`,
-          numeric: true,
-        },
-        { header: "Mass", cell: (h) => (h.massKg ? `${h.massKg} kg` : "—"), numeric: true },
-        { header: "Mounted on", cell: (h) => h.machineName ?? "Not mounted" },
+      empty="No heads in the register yet."
+      data={rows}
+      columns={(column) => [
+        column("Serial", (h) => (
+          <Link
+            href={`/registers/heads/${h.id}`}
+            className="num font-medium text-graphite-900 underline decoration-graphite-300 underline-offset-2 hover:decoration-accent-500"
+          >
+            {h.serial}
+          </Link>
+        )),
+        column("Maker and model", (h) => [h.maker, h.model].filter(Boolean).join(" ") || "—"),
+        column("Axes (primary/secondary)", (h) => `${h.primaryAxis}/${h.secondaryAxis}`),
+        column("Nominal pivot length", (h) => `${h.nominalPivotLengthMm.toFixed(3)} mm`, { numeric: true }),
+        column("Mass", (h) => (h.massKg ? `${h.massKg} kg` : "—"), { numeric: true }),
+        column("Mounted on", (h) => h.machineName ?? "Not mounted"),
       ]}
     />
   );

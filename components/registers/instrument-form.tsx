@@ -1,12 +1,15 @@
 "use client";
 
 import { createInstrumentAction } from "@/app/(app)/registers/actions";
-import { ActionForm, Field, inputClass } from "./action-form";
+import { Field, inputClass } from "@/components/ui/field";
+import { Form } from "@/components/ui/form";
+import { instrumentCreateSchema } from "@/lib/validations/registers";
 
 export function InstrumentForm() {
   return (
-    <ActionForm
+    <Form
       action={createInstrumentAction}
+      schema={instrumentCreateSchema}
       submitLabel="Add instrument"
       successMessage="Instrument added to the register."
     >
@@ -50,6 +53,6 @@ export function InstrumentForm() {
           <input name="calibrationDueOn" type="date" className={inputClass} />
         </Field>
       </div>
-    </ActionForm>
+    </Form>
   );
 }

@@ -1,7 +1,8 @@
 "use client";
 
 import { createJobAction } from "@/app/(app)/registers/actions";
-import { ActionForm, Field, inputClass } from "./action-form";
+import { Field, inputClass } from "@/components/ui/field";
+import { Form } from "@/components/ui/form";
 
 type Opt = { id: string; label: string };
 
@@ -18,7 +19,7 @@ export function JobCreateForm({
   installers: Opt[];
 }) {
   return (
-    <ActionForm
+    <Form
       action={createJobAction}
       submitLabel="Open the job"
       successMessage="Job opened as a draft; it is on the jobs list."
@@ -72,6 +73,6 @@ export function JobCreateForm({
           </select>
         </Field>
       </div>
-    </ActionForm>
+    </Form>
   );
 }

@@ -1,7 +1,8 @@
 "use client";
 
 import { mountHeadAction } from "@/app/(app)/registers/actions";
-import { ActionForm, Field, inputClass } from "./action-form";
+import { Field, inputClass } from "@/components/ui/field";
+import { Form } from "@/components/ui/form";
 
 export function MountHeadForm({
   headId,
@@ -13,7 +14,7 @@ export function MountHeadForm({
   machines: ReadonlyArray<{ id: string; label: string }>;
 }) {
   return (
-    <ActionForm
+    <Form
       action={mountHeadAction}
       submitLabel="Record the move"
       resetOnSuccess={false}
@@ -34,6 +35,6 @@ export function MountHeadForm({
           ))}
         </select>
       </Field>
-    </ActionForm>
+    </Form>
   );
 }

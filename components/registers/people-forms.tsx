@@ -2,12 +2,15 @@
 
 import { inviteUserAction, updateUserAction } from "@/app/(app)/registers/actions";
 import { ROLE_LABELS, ROLES, type Role } from "@/lib/domain/roles";
-import { ActionForm, Field, inputClass } from "./action-form";
+import { Field, inputClass } from "@/components/ui/field";
+import { Form } from "@/components/ui/form";
+import { userInviteSchema, userUpdateSchema } from "@/lib/validations/registers";
 
 export function InviteForm({ customers }: { customers: ReadonlyArray<{ id: string; name: string }> }) {
   return (
-    <ActionForm
+    <Form
       action={inviteUserAction}
+      schema={userInviteSchema}
       submitLabel="Send invitation"
       successMessage="Invitation queued; the e-mail carries a one-time link to set a password."
     >
@@ -38,7 +41,7 @@ export function InviteForm({ customers }: { customers: ReadonlyArray<{ id: strin
           </select>
         </Field>
       </div>
-    </ActionForm>
+    </Form>
   );
 }
 
@@ -56,8 +59,9 @@ export function PersonControls({
   return (
     <div className="flex flex-nowrap items-start gap-2">
       {!isCustomer ? (
-        <ActionForm
+        <Form
           action={updateUserAction}
+          schema={userUpdateSchema}
           submitLabel="Change role"
           variant="secondary"
           resetOnSuccess={false}
@@ -80,10 +84,11 @@ export function PersonControls({
               </option>
             ))}
           </select>
-        </ActionForm>
+        </Form>
       ) : null}
-      <ActionForm
+      <Form
         action={updateUserAction}
+        schema={userUpdateSchema}
         submitLabel={disabled ? "Enable" : "Disable"}
         variant="secondary"
         resetOnSuccess={false}
@@ -92,7 +97,7 @@ export function PersonControls({
       >
         <input type="hidden" name="userId" value={userId} />
         <input type="hidden" name="disabled" value={disabled ? "false" : "true"} />
-      </ActionForm>
+      </Form>
     </div>
   );
 }

@@ -6,13 +6,25 @@ import {
   createMachineAction,
   createSiteAction,
 } from "@/app/(app)/registers/actions";
-import { ActionForm, Field, inputClass } from "./action-form";
+import { Field, inputClass } from "@/components/ui/field";
+import { Form } from "@/components/ui/form";
+import {
+  customerCreateSchema,
+  headCreateSchema,
+  machineCreateSchema,
+  siteCreateSchema,
+} from "@/lib/validations/registers";
 
 type Opt = { id: string; label: string };
 
 export function CustomerForm() {
   return (
-    <ActionForm action={createCustomerAction} submitLabel="Add customer" successMessage="Customer added.">
+    <Form
+      action={createCustomerAction}
+      schema={customerCreateSchema}
+      submitLabel="Add customer"
+      successMessage="Customer added."
+    >
       <div className="grid gap-4 sm:grid-cols-2">
         <Field name="name" label="Customer name">
           <input name="name" className={inputClass} />
@@ -21,13 +33,18 @@ export function CustomerForm() {
           <input name="contactEmail" type="email" className={inputClass} />
         </Field>
       </div>
-    </ActionForm>
+    </Form>
   );
 }
 
 export function SiteForm({ customers }: { customers: Opt[] }) {
   return (
-    <ActionForm action={createSiteAction} submitLabel="Add site" successMessage="Site added.">
+    <Form
+      action={createSiteAction}
+      schema={siteCreateSchema}
+      submitLabel="Add site"
+      successMessage="Site added."
+    >
       <div className="grid gap-4 sm:grid-cols-3">
         <Field name="customerId" label="Customer">
           <select name="customerId" className={inputClass} defaultValue="">
@@ -46,13 +63,18 @@ export function SiteForm({ customers }: { customers: Opt[] }) {
           <input name="address" className={inputClass} />
         </Field>
       </div>
-    </ActionForm>
+    </Form>
   );
 }
 
 export function MachineForm({ sites }: { sites: Opt[] }) {
   return (
-    <ActionForm action={createMachineAction} submitLabel="Add host machine" successMessage="Machine added.">
+    <Form
+      action={createMachineAction}
+      schema={machineCreateSchema}
+      submitLabel="Add host machine"
+      successMessage="Machine added."
+    >
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
         <Field name="siteId" label="Site">
           <select name="siteId" className={inputClass} defaultValue="">
@@ -83,15 +105,16 @@ export function MachineForm({ sites }: { sites: Opt[] }) {
           <input name="control" className={inputClass} />
         </Field>
       </div>
-    </ActionForm>
+    </Form>
   );
 }
 
 export function HeadForm() {
   const axes = ["A", "B", "C"] as const;
   return (
-    <ActionForm
+    <Form
       action={createHeadAction}
+      schema={headCreateSchema}
       submitLabel="Add head"
       successMessage="Head added; record where it is mounted on its page."
     >
@@ -134,6 +157,6 @@ export function HeadForm() {
           />
         </Field>
       </div>
-    </ActionForm>
+    </Form>
   );
 }

@@ -2,7 +2,8 @@
 
 import { ScrollRegion } from "@/components/ui/scroll-region";
 import { createTemplateVersionAction } from "@/app/(app)/registers/actions";
-import { ActionForm, inputClass } from "./action-form";
+import { FieldError, inputClass } from "@/components/ui/field";
+import { Form } from "@/components/ui/form";
 
 export interface EditableStep {
   position: number;
@@ -78,7 +79,7 @@ function LimitCells({
           inputMode="decimal"
           className={`${CELL} num text-right`}
         />
-        <span data-error-for={`${name}.lowerLimit`} className="block text-xs text-fail-700" />
+        <FieldError name={`${name}.lowerLimit`} className="text-xs" />
       </td>
       <td className="w-28 py-2 pr-2">
         <input
@@ -88,7 +89,7 @@ function LimitCells({
           inputMode="decimal"
           className={`${CELL} num text-right`}
         />
-        <span data-error-for={`${name}.upperLimit`} className="block text-xs text-fail-700" />
+        <FieldError name={`${name}.upperLimit`} className="text-xs" />
       </td>
       <td className="w-32 py-2 pr-2">
         <select
@@ -140,7 +141,7 @@ export function TemplateVersionForm({
   parameters?: EditableParameterLimit[];
 }) {
   return (
-    <ActionForm
+    <Form
       action={createTemplateVersionAction}
       submitLabel="Save as a new version"
       resetOnSuccess={false}
@@ -208,6 +209,6 @@ export function TemplateVersionForm({
           </table>
         </ScrollRegion>
       ) : null}
-    </ActionForm>
+    </Form>
   );
 }

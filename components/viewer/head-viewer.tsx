@@ -13,7 +13,7 @@
  * save-view.tsx. Z up (ISO 841 machine frame), lengths in mm.
  */
 import { Canvas } from "@react-three/fiber";
-import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from "react";
+import { useMemo, useRef, useState, useSyncExternalStore } from "react";
 import type { OrbitControls as OrbitControlsImpl } from "three-stdlib";
 import { headOverlayScene, headScene, tipChangeUm } from "@/geometry/head-scene";
 import type { HeadConfig, HeadErrors, HeadPose, HeadVec3 } from "@/geometry";

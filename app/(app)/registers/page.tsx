@@ -4,7 +4,7 @@ import { HeadsTable } from "@/components/registers/heads-table";
 import { CustomerForm, HeadForm, MachineForm, SiteForm } from "@/components/registers/register-forms";
 import { Card } from "@/components/ui/card";
 import { listSitesForSelect } from "@/db/queries/registers-admin";
-import { SimpleTable } from "@/components/ui/simple-table";
+import { Table } from "@/components/ui/table";
 import { listCustomersWithSites, listHeads, listMachines } from "@/db/queries/registers";
 import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
@@ -34,13 +34,14 @@ export default async function RegistersPage() {
         <h2 id="customers" className="text-lg font-semibold">
           Customers
         </h2>
-        <SimpleTable
+        <Table
           caption="Customers"
-          rows={customers}
-          columns={[
-            { header: "Name", cell: (c) => c.name },
-            { header: "Sites", cell: (c) => c.sites.join(", ") || "—" },
-            { header: "Contact", cell: (c) => c.contactEmail ?? "—" },
+          empty="No customers yet."
+          data={customers}
+          columns={(column) => [
+            column("Name", (c) => c.name),
+            column("Sites", (c) => c.sites.join(", ") || "—"),
+            column("Contact", (c) => c.contactEmail ?? "—"),
           ]}
         />
       </section>
@@ -48,18 +49,16 @@ export default async function RegistersPage() {
         <h2 id="machines" className="text-lg font-semibold">
           Host machines
         </h2>
-        <SimpleTable
+        <Table
           caption="Host machines"
-          rows={machines}
-          columns={[
-            { header: "Machine", cell: (m) => m.name },
-            { header: "Kind", cell: (m) => m.kind },
-            {
-              header: "Builder and model",
-              cell: (m) => [m.builder, m.model].filter(Boolean).join(" ") || "—",
-            },
-            { header: "Serial", cell: (m) => <span className="num">{m.serial ?? "—"}</span> },
-            { header: "Customer, site", cell: (m) => `${m.customerName}, ${m.siteName}` },
+          empty="No host machines yet."
+          data={machines}
+          columns={(column) => [
+            column("Machine", (m) => m.name),
+            column("Kind", (m) => m.kind),
+            column("Builder and model", (m) => [m.builder, m.model].filter(Boolean).join(" ") || "—"),
+            column("Serial", (m) => <span className="num">{m.serial ?? "—"}</span>),
+            column("Customer, site", (m) => `${m.customerName}, ${m.siteName}`),
           ]}
         />
       </section>

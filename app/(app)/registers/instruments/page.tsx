@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { InstrumentForm } from "@/components/registers/instrument-form";
 import { Card } from "@/components/ui/card";
-import { SimpleTable } from "@/components/ui/simple-table";
+import { Table } from "@/components/ui/table";
 import { listInstruments } from "@/db/queries/instruments";
 import { getUnitSystem } from "@/db/queries/user-prefs";
 import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
@@ -60,29 +60,22 @@ export default async function InstrumentsPage() {
           reading with an instrument past its due date is refused.
         </p>
       </div>
-      <SimpleTable
+      <Table
         caption="Instruments"
-        rows={rows}
-        columns={[
-          { header: "Serial", cell: (i) => <span className="num">{i.serial}</span> },
-          { header: "Kind", cell: (i) => `${i.kind}${i.maker ? ` (${i.maker})` : ""}` },
-          {
-            header: "Resolution",
-            cell: (i) => small(i.resolution, i.quantityKind, unitSystem),
+        empty="No instruments in the register yet."
+        data={rows}
+        columns={(column) => [
+          column("Serial", (i) => <span className="num">{i.serial}</span>),
+          column("Kind", (i) => `${i.kind}${i.maker ? ` (${i.maker})` : ""}`),
+          column("Resolution", (i) => small(i.resolution, i.quantityKind, unitSystem), { numeric: true }),
+          column("Std. uncertainty", (i) => small(i.standardUncertainty, i.quantityKind, unitSystem), {
             numeric: true,
-          },
-          {
-            header: "Std. uncertainty",
-            cell: (i) => small(i.standardUncertainty, i.quantityKind, unitSystem),
-            numeric: true,
-          },
-          { header: "Calibrated", cell: (i) => <span className="num">{i.calibratedOn ?? "—"}</span> },
-          { header: "Due", cell: (i) => <span className="num">{i.calibrationDueOn}</span> },
-          {
-            header: "State",
-            cell: (i) =>
-              i.retired ? "Retired" : <CalibrationState due={i.calibrationDueOn} today={today} />,
-          },
+          }),
+          column("Calibrated", (i) => <span className="num">{i.calibratedOn ?? "—"}</span>),
+          column("Due", (i) => <span className="num">{i.calibrationDueOn}</span>),
+          column("State", (i) =>
+            i.retired ? "Retired" : <CalibrationState due={i.calibrationDueOn} today={today} />,
+          ),
         ]}
       />
       {mayEdit ? (

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { InviteForm, PersonControls } from "@/components/registers/people-forms";
 import { Card } from "@/components/ui/card";
-import { SimpleTable } from "@/components/ui/simple-table";
+import { Table } from "@/components/ui/table";
 import { listPeople } from "@/db/queries/registers";
 import { listCustomersForSelect } from "@/db/queries/users-admin";
 import { ROLE_LABELS } from "@/lib/domain/roles";
@@ -24,29 +24,28 @@ export default async function PeoplePage() {
           request and ends their open sessions.
         </p>
       </div>
-      <SimpleTable
+      <Table
         caption="People"
-        rows={people}
-        columns={[
-          { header: "Name", cell: (p) => p.name },
-          { header: "E-mail", cell: (p) => p.email },
-          { header: "Role", cell: (p) => ROLE_LABELS[p.role] },
-          { header: "Company", cell: (p) => p.customerName ?? "Service company" },
-          { header: "Account", cell: (p) => (p.disabled ? "Disabled" : "Active") },
-          {
-            header: "Change",
-            cell: (p) =>
-              p.id === user.id ? (
-                <span className="text-xs text-graphite-500">You</span>
-              ) : (
-                <PersonControls
-                  userId={p.id}
-                  role={p.role}
-                  disabled={p.disabled}
-                  isCustomer={p.role === "customer"}
-                />
-              ),
-          },
+        empty="Nobody has an account yet."
+        data={people}
+        columns={(column) => [
+          column("Name", (p) => p.name),
+          column("E-mail", (p) => p.email),
+          column("Role", (p) => ROLE_LABELS[p.role]),
+          column("Company", (p) => p.customerName ?? "Service company"),
+          column("Account", (p) => (p.disabled ? "Disabled" : "Active")),
+          column("Change", (p) =>
+            p.id === user.id ? (
+              <span className="text-xs text-graphite-500">You</span>
+            ) : (
+              <PersonControls
+                userId={p.id}
+                role={p.role}
+                disabled={p.disabled}
+                isCustomer={p.role === "customer"}
+              />
+            ),
+          ),
         ]}
       />
       <Card title="Invite someone">

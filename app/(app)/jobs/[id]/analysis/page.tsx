@@ -3,7 +3,8 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ApproveButton, RunFitButton } from "@/components/fit/fit-buttons";
 import { controlValues, parameterRows, type ParameterLimit } from "@/lib/fit-display";
-import { fixed, signed } from "@/lib/numbers";
+import { fixed } from "@/lib/numbers";
+import { ControlValuesTable, OutlierTable } from "@/components/fit/fit-tables";
 import { ParameterTable } from "@/components/fit/parameter-table";
 import { PoseCoverage } from "@/components/fit/pose-coverage";
 import { ResidualChart } from "@/components/fit/residual-chart";
@@ -268,39 +269,7 @@ function FitSection({
             sUm={r.s_um}
           />
           {fit.outliers.length ? (
-            <table className="mt-4 w-full max-w-2xl text-sm" aria-label="Outliers">
-              <thead>
-                <tr className="border-b border-graphite-200 text-left text-graphite-600">
-                  <th className="py-1.5 pr-3 font-medium">Row</th>
-                  <th className="py-1.5 pr-3 text-right font-medium">Primary</th>
-                  <th className="py-1.5 pr-3 text-right font-medium">Secondary</th>
-                  <th className="py-1.5 pr-3 text-right font-medium">Tool</th>
-                  <th className="py-1.5 text-right font-medium">Residual x, y, z</th>
-                </tr>
-              </thead>
-              <tbody>
-                {fit.outliers.map((o) => {
-                  const i = r.poses.row.indexOf(o.row);
-                  return (
-                    <tr key={o.row} className="border-b border-graphite-100">
-                      <td className="num py-1.5 pr-3">{o.row}</td>
-                      <td className="num py-1.5 pr-3 text-right">
-                        {i >= 0 ? `${r.poses.primary_deg[i]}°` : "—"}
-                      </td>
-                      <td className="num py-1.5 pr-3 text-right">
-                        {i >= 0 ? `${r.poses.secondary_deg[i]}°` : "—"}
-                      </td>
-                      <td className="num py-1.5 pr-3 text-right">
-                        {i >= 0 ? `${r.poses.tool_mm[i]} mm` : "—"}
-                      </td>
-                      <td className="num py-1.5 text-right">
-                        {o.residual_um.map((v) => signed(v, 2)).join(", ")} µm
-                      </td>
-                    </tr>
-                  );
-                })}
-              </tbody>
-            </table>
+            <OutlierTable outliers={fit.outliers} poses={r.poses} />
           ) : (
             <p className="mt-3 text-sm text-graphite-600">No outliers.</p>
           )}
@@ -322,19 +291,7 @@ function FitSection({
               {approved!.approvedBy ? ` by ${approved!.approvedBy}` : ""}. Enter these in the control&apos;s
               kinematic (tool centre point) settings for this head:
             </p>
-            <table className="w-full text-sm" aria-label="Values for the control">
-              <tbody>
-                {controlValues(fit, config).map((c) => (
-                  <tr key={c.label} className="border-b border-graphite-100">
-                    <th scope="row" className="py-2 pr-3 text-left font-medium">
-                      {c.label}
-                    </th>
-                    <td className="num py-2 pr-3 text-right text-base font-semibold">{c.text}</td>
-                    <td className="py-2 text-graphite-600">{c.note}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
+            <ControlValuesTable values={controlValues(fit, config)} />
             <div className="rounded-card border border-graphite-200 bg-graphite-50 p-4 text-sm text-graphite-800">
               <p className="font-semibold">Units and signs</p>
               <p>

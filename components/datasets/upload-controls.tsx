@@ -1,0 +1,211 @@
+"use client";
+
+import { useRef, useState } from "react";
+import { buttonClass } from "@/components/ui/button";
+import type { UploadState } from "./upload-state";
+
+export function Choice<T extends string>({
+  legend,
+  name,
+  value,
+  options,
+  onChange,
+}: {
+  legend: string;
+  name: string;
+  value: T;
+  options: ReadonlyArray<{ value: T; label: string }>;
+  onChange: (v: T) => void;
+}) {
+  return (
+    <fieldset>
+      <legend className="mb-1 text-sm font-medium text-graphite-800">{legend}</legend>
+      <div className="inline-flex flex-wrap gap-1 rounded-lg border border-graphite-300 bg-graphite-50 p-1">
+        {options.map((o) => (
+          <label
+            key={o.value}
+            className={`flex min-h-touch cursor-pointer items-center rounded-md px-3 text-sm ${value === o.value ? "bg-white font-semibold text-graphite-900 shadow-sm ring-1 ring-graphite-300" : "text-graphite-600 hover:text-graphite-900"}`}
+          >
+            <input
+              type="radio"
+              className="sr-only"
+              name={name}
+              value={o.value}
+              checked={value === o.value}
+              onChange={() => onChange(o.value)}
+            />
+            {o.label}
+          </label>
+        ))}
+      </div>
+    </fieldset>
+  );
+}
+
+export function Bar({ label, fraction }: { label: string; fraction: number }) {
+  const pct = Math.round(fraction * 100);
+  return (
+    <div className="space-y-1">
+      <div className="flex justify-between text-sm text-graphite-700">
+        <span>{label}</span>
+        <span className="num">{pct} %</span>
+      </div>
+      <div
+        role="progressbar"
+        aria-label={label}
+        aria-valuemin={0}
+        aria-valuemax={100}
+        aria-valuenow={pct}
+        className="h-2.5 overflow-hidden rounded-full bg-graphite-200"
+      >
+        <div className="h-full rounded-full bg-accent-500 transition-[width]" style={{ width: `${pct}%` }} />
+      </div>
+    </div>
+  );
+}
+
+/** The settings that depend on the kind of data: units, the sweep radius, U, the decimal separator. */
+export function KindOptions({
+  state,
+  set,
+}: {
+  state: UploadState;
+  set: (patch: Partial<Pick<UploadState, "units" | "radius" | "uncertainty" | "comma">>) => void;
+}) {
+  const { kind, units, radius, uncertainty, scan, comma } = state;
+  return (
+    <div className="flex flex-wrap gap-4">
+      {kind === "sphere_probe" ? (
+        <Choice
+          legend="Unit of x, y, z"
+          name="units"
+          value={units.units}
+          options={[
+            { value: "mm", label: "mm" },
+            { value: "in", label: "inch" },
+          ]}
+          onChange={(v) => set({ units: { ...units, units: v } })}
+        />
+      ) : null}
+      {kind === "tram" ? (
+        <Choice
+          legend="Unit of the travel"
+          name="travel_units"
+          value={units.travel}
+          options={[
+            { value: "mm", label: "mm" },
+            { value: "in", label: "inch" },
+          ]}
+          onChange={(v) => set({ units: { ...units, travel: v } })}
+        />
+      ) : null}
+      {kind === "tram" || kind === "sweep" ? (
+        <Choice
+          legend="Unit of the readings"
+          name="reading_units"
+          value={units.reading}
+          options={[
+            { value: "um", label: "µm" },
+            { value: "mm", label: "mm" },
+            { value: "in", label: "inch" },
+          ]}
+          onChange={(v) => set({ units: { ...units, reading: v } })}
+        />
+      ) : null}
+      {kind === "sweep" ? (
+        <label className="block space-y-1">
+          <span className="text-sm font-medium text-graphite-800">Sweep radius (mm)</span>
+          <input
+            inputMode="decimal"
+            value={radius}
+            onChange={(e) => set({ radius: e.target.value })}
+            className="num block min-h-touch w-40 rounded-lg border border-graphite-300 px-3 text-right"
+          />
+        </label>
+      ) : null}
+      {kind === "test_part" ? (
+        <label className="block max-w-md space-y-1">
+          <span className="text-sm font-medium text-graphite-800">
+            Expanded uncertainty U (k = 2) of the part measurement, mm
+          </span>
+          <input
+            inputMode="decimal"
+            value={uncertainty}
+            placeholder="e.g. 0.002"
+            onChange={(e) => set({ uncertainty: e.target.value })}
+            className="num block min-h-touch w-40 rounded-lg border border-graphite-300 px-3 text-right"
+          />
+          <span className="block text-xs text-graphite-600">
+            From the measuring machine&apos;s calibration; converted for rows in inch or µm. Empty counts as
+            0.
+          </span>
+        </label>
+      ) : null}
+      {scan?.delimiter === ";" ? (
+        <Choice
+          legend="Decimal separator"
+          name="decimal"
+          value={comma ? "comma" : "point"}
+          options={[
+            { value: "point", label: "point 1.5" },
+            { value: "comma", label: "comma 1,5" },
+          ]}
+          onChange={(v) => set({ comma: v === "comma" })}
+        />
+      ) : null}
+    </div>
+  );
+}
+
+/** Drop a CSV here or choose one; shows the chosen file's name and size. */
+export function DropZone({ file, onPick }: { file: File | null; onPick: (f: File | null) => void }) {
+  const inputRef = useRef<HTMLInputElement>(null);
+  const [dragging, setDragging] = useState(false);
+  return (
+    <div
+      onDragOver={(e) => {
+        e.preventDefault();
+        setDragging(true);
+      }}
+      onDragLeave={() => setDragging(false)}
+      onDrop={(e) => {
+        e.preventDefault();
+        setDragging(false);
+        onPick(e.dataTransfer.files[0] ?? null);
+      }}
+      className={`flex flex-col items-center gap-2 rounded-card border-2 border-dashed p-6 text-center ${dragging ? "border-accent-500 bg-accent-50" : "border-graphite-300 bg-graphite-50"}`}
+    >
+      <svg viewBox="0 0 24 24" className="h-8 w-8 text-graphite-500" aria-hidden="true">
+        <path
+          d="M12 16V4m0 0-4 4m4-4 4 4M4 16v3a1 1 0 0 0 1 1h14a1 1 0 0 0 1-1v-3"
+          fill="none"
+          stroke="currentColor"
+          strokeWidth="1.8"
+          strokeLinecap="round"
+          strokeLinejoin="round"
+        />
+      </svg>
+      <p className="text-sm text-graphite-700">Drop a CSV file here, or</p>
+      <button type="button" onClick={() => inputRef.current?.click()} className={buttonClass("secondary")}>
+        Choose a file
+      </button>
+      <input
+        ref={inputRef}
+        type="file"
+        accept=".csv,text/csv,text/plain"
+        aria-label="CSV file"
+        className="sr-only"
+        onChange={(e) => {
+          onPick(e.target.files?.[0] ?? null);
+          e.target.value = "";
+        }}
+      />
+      {file ? (
+        <p className="text-sm" data-testid="chosen-file">
+          <span className="font-medium">{file.name}</span> ·{" "}
+          <span className="num">{(file.size / 1024).toFixed(1)} KiB</span>
+        </p>
+      ) : null}
+    </div>
+  );
+}

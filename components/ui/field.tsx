@@ -1,0 +1,87 @@
+"use client";
+
+import { cloneElement, isValidElement, useId } from "react";
+import { useFormContext, get, type FieldErrors } from "react-hook-form";
+
+export const inputClass =
+  "block min-h-touch w-full rounded-md border border-graphite-300 bg-white px-3 text-base focus:border-accent-500 focus:outline-none focus:ring-2 focus:ring-accent-500/40 aria-[invalid=true]:border-fail-600";
+
+/** The message for one field, from the surrounding form; `undefined` outside a form or when valid. */
+export function useFieldError(name: string): string | undefined {
+  const form = useFormContext();
+  const err = (form ? get(form.formState.errors as FieldErrors, name) : undefined) as
+    { message?: unknown } | undefined;
+  return typeof err?.message === "string" && err.message ? err.message : undefined;
+}
+
+/** A field's inline error, kept in the page (empty when valid) so its id can always be referenced. */
+export function FieldError({
+  name,
+  id,
+  className = "text-sm",
+}: {
+  name: string;
+  id?: string;
+  className?: string;
+}) {
+  const message = useFieldError(name);
+  return (
+    <span id={id} data-error-for={name} className={`block text-fail-700 ${className}`}>
+      {message ?? ""}
+    </span>
+  );
+}
+
+type ControlProps = {
+  id?: string;
+  name?: string;
+  "aria-describedby"?: string;
+  "aria-invalid"?: boolean;
+};
+
+/**
+ * A labelled form control with an optional hint and its inline error. The single child (an input,
+ * select or textarea) gets the id, the name, `aria-describedby` (hint and error) and
+ * `aria-invalid`; inside a `Form` it is registered with react-hook-form.
+ */
+export function Field({
+  name,
+  label,
+  hint,
+  children,
+  className = "",
+}: {
+  name: string;
+  label: string;
+  hint?: string;
+  children: React.ReactElement<ControlProps>;
+  className?: string;
+}) {
+  const id = `${useId()}-${name}`;
+  const form = useFormContext();
+  const error = useFieldError(name);
+  const hintId = hint ? `${id}-hint` : undefined;
+  const errorId = `${id}-error`;
+  const control = isValidElement(children)
+    ? cloneElement(children, {
+        id,
+        ...(form ? form.register(name) : { name }),
+        "aria-describedby": [hintId, errorId].filter(Boolean).join(" "),
+        "aria-invalid": error ? true : undefined,
+      })
+    : children;
+  return (
+    <div className={`space-y-1 ${className}`}>
+      <label htmlFor={id} className="block text-sm font-medium text-graphite-700">
+        {label}
+      </label>
+      {control}
+      {hint ? (
+        <span id={hintId} className="block text-xs text-graphite-500">
+          {hint}
+        </span>
+      ) : null}
+      <FieldError name={name} id={errorId} />
+    </div>
+  );
+}

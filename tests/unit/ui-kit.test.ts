@@ -1,0 +1,140 @@
+// The UI kit's pure parts: the Table's sorting, empty state and card labels (rendered to HTML on
+// the server, as a server page renders them), and how a server action's refusal maps onto a form.
+import { createElement } from "react";
+import { renderToString } from "react-dom/server";
+import { describe, expect, it } from "vitest";
+import { mapActionErrors } from "@/components/ui/form-errors";
+import { buildTable, column, Table, type ColumnDef } from "@/components/ui/table";
+
+type Row = { id: string; ref: string; n: number | null };
+const rows: Row[] = [
+  { id: "a", ref: "TR-2026-0052", n: 3 },
+  { id: "b", ref: "TR-2026-0041", n: null },
+  { id: "c", ref: "TR-2026-0057", n: 11 },
+];
+const columns: ColumnDef<Row, unknown>[] = [
+  column<Row>("Reference", (r) => r.ref, { id: "ref", sortBy: (r) => r.ref, nowrap: true }),
+  column<Row>("Count", (r) => r.n ?? "—", { id: "n", sortBy: (r) => r.n, numeric: true }),
+  column<Row>("Note", () => "x"),
+];
+const order = (sorting: { id: string; desc: boolean }[]) =>
+  buildTable({ data: rows, columns, sorting, onSortingChange: () => {} })
+    .getRowModel()
+    .rows.map((r) => r.original.id);
+
+describe("Table", () => {
+  it("keeps the data's order when nothing is sorted", () => {
+    expect(order([])).toEqual(["a", "b", "c"]);
+  });
+  it("sorts text both ways", () => {
+    expect(order([{ id: "ref", desc: false }])).toEqual(["b", "a", "c"]);
+    expect(order([{ id: "ref", desc: true }])).toEqual(["c", "a", "b"]);
+  });
+  it("sorts numbers as numbers (11 after 3) and puts missing values last either way", () => {
+    expect(order([{ id: "n", desc: false }])).toEqual(["a", "c", "b"]);
+    expect(order([{ id: "n", desc: true }])).toEqual(["c", "a", "b"]);
+  });
+  it("leaves the order to the server when it sorts by links", () => {
+    const t = buildTable({ data: rows, columns, sorting: [{ id: "ref", desc: false }], sortHref: () => "?" });
+    expect(t.getRowModel().rows.map((r) => r.original.id)).toEqual(["a", "b", "c"]);
+  });
+  it("only columns with a sort value can be sorted, and only when the table is sortable", () => {
+    const sortable = buildTable({ data: rows, columns, onSortingChange: () => {} });
+    expect(sortable.getAllLeafColumns().map((c) => c.getCanSort())).toEqual([true, true, false]);
+    const fixed = buildTable({ data: rows, columns });
+    expect(fixed.getAllLeafColumns().some((c) => c.getCanSort())).toBe(false);
+  });
+
+  it("says the empty message instead of drawing an empty table", () => {
+    const html = renderToString(
+      createElement(Table<Row>, { data: [], columns, caption: "Jobs", empty: "No jobs match." }),
+    );
+    expect(html).toContain("No jobs match.");
+    expect(html).not.toContain("<table");
+  });
+  it("names the table by its caption, labels each cell for the card layout and marks the sort", () => {
+    const html = renderToString(
+      createElement(Table<Row>, {
+        data: rows,
+        columns,
+        caption: "Jobs",
+        empty: "none",
+        sorting: [{ id: "ref", desc: true }],
+        sortHref: (id, desc) => `?sort=${id}&dir=${desc ? "desc" : "asc"}`,
+      }),
+    );
+    expect(html).toMatch(/<caption[^>]*>Jobs<\/caption>/);
+    expect(html).toContain('data-label="Reference"');
+    expect(html).toContain('data-label="Count"');
+    expect(html).toContain('aria-sort="descending"');
+    // Pressing the header of the column sorted descending asks for ascending.
+    expect(html).toContain('href="?sort=ref&amp;dir=asc"');
+    // References never break mid-word; numbers are right-aligned tabular figures.
+    expect(html).toMatch(/<td[^>]*data-label="Reference"[^>]*class="[^"]*whitespace-nowrap/);
+    expect(html).toMatch(/<td[^>]*data-label="Count"[^>]*class="[^"]*num text-right/);
+    // The server sorted: the rows stay as given.
+    expect(html.indexOf("TR-2026-0052")).toBeLessThan(html.indexOf("TR-2026-0041"));
+  });
+  it("sorted in the browser, the rows come in order and the headers are buttons", () => {
+    const html = renderToString(
+      createElement(Table<Row>, {
+        data: rows,
+        columns,
+        caption: "Jobs",
+        empty: "none",
+        sorting: [{ id: "ref", desc: true }],
+        onSortingChange: () => {},
+      }),
+    );
+    expect(html).toMatch(/<th[^>]*aria-sort="descending"[^>]*><button type="button"/);
+    expect(html.indexOf("TR-2026-0057")).toBeLessThan(html.indexOf("TR-2026-0052"));
+    expect(html.indexOf("TR-2026-0052")).toBeLessThan(html.indexOf("TR-2026-0041"));
+  });
+  it("a table that must stay a table gets no card classes", () => {
+    const html = renderToString(
+      createElement(Table<Row>, { data: rows, columns, caption: "Wide", empty: "none", layout: "scroll" }),
+    );
+    expect(html).not.toContain("max-[900px]:");
+  });
+});
+
+describe("mapActionErrors", () => {
+  const fields = new Set(["serial", "calibrationDueOn"]);
+  const isField = (n: string) => fields.has(n);
+  it("puts each field's first message beside its field and the message once", () => {
+    const r = mapActionErrors(
+      {
+        ok: false,
+        code: "invalid",
+        message: "Some fields need attention.",
+        fieldErrors: { serial: ["The serial is required.", "second"], calibrationDueOn: ["Use a date."] },
+      },
+      isField,
+    );
+    expect(r.message).toBe("Some fields need attention.");
+    expect(r.fields).toEqual([
+      ["serial", "The serial is required."],
+      ["calibrationDueOn", "Use a date."],
+    ]);
+  });
+  it("adds errors that name no field of the form to the message, without repeating it", () => {
+    const r = mapActionErrors(
+      {
+        ok: false,
+        code: "invalid",
+        message: "The file was refused.",
+        fieldErrors: { _: ["The file was refused."], x_mm: ["row 4: not a number"], serial: ["taken"] },
+      },
+      isField,
+    );
+    expect(r.message).toBe("The file was refused. row 4: not a number");
+    expect(r.fields).toEqual([["serial", "taken"]]);
+  });
+  it("a refusal without field errors is the message alone", () => {
+    const r = mapActionErrors(
+      { ok: false, code: "forbidden", message: "Only an administrator may." },
+      isField,
+    );
+    expect(r).toEqual({ message: "Only an administrator may.", fields: [] });
+  });
+});
