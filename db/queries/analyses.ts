@@ -20,8 +20,7 @@ import {
 import { canonicalJson } from "@/lib/canonical-json";
 import { canTransition, HEAD_FIT_ROLES, headFitRefusal, STATUS_LABELS, type Actor } from "@/lib/auth/roles";
 import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+import { isUuid } from "@/lib/domain/uuid";
 
 /** The head configuration geometry/ needs, from the heads register (lengths in mm). */
 export function headConfigOf(
@@ -125,13 +124,11 @@ export function computeHeadFit(
         422,
         err.code,
         `The fit could not run: ${err.message}`,
-        err.issues
-          .slice(0, 50)
-          .map((i) => ({
-            ...(i.row ? { row: i.row } : {}),
-            ...(i.column ? { column: i.column } : {}),
-            message: i.message,
-          })),
+        err.issues.slice(0, 50).map((i) => ({
+          ...(i.row ? { row: i.row } : {}),
+          ...(i.column ? { column: i.column } : {}),
+          message: i.message,
+        })),
       );
     }
     throw err;
@@ -272,7 +269,7 @@ async function findAnalysis(datasetId: string, inputSha256: string): Promise<Ana
 
 /** One analysis the actor may see (through its job's tenant rule); null otherwise, also for a malformed id. */
 export async function getAnalysis(actor: Actor, id: string) {
-  if (!UUID.test(id)) return null;
+  if (!isUuid(id)) return null;
   const [row] = await db
     .select({
       analysis: analyses,

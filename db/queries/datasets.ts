@@ -15,6 +15,7 @@ import {
   type ParsedDataset,
   type UploadForm,
 } from "@/lib/storage/parse-dataset";
+import { isUuid } from "@/lib/domain/uuid";
 
 /** Who may upload to a job they can see (installers only see their assigned jobs). */
 export const UPLOAD_ROLES: readonly Role[] = ["admin", "installer", "inspector", "engineer"];
@@ -22,8 +23,6 @@ export const UPLOAD_ROLES: readonly Role[] = ["admin", "installer", "inspector",
 export const UPLOAD_STATUSES: readonly JobStatus[] = ["draft", "measuring", "in_review"];
 /** Deletion only before review. */
 export const DELETE_STATUSES: readonly JobStatus[] = ["draft", "measuring"];
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export function canUploadTo(actor: Actor, status: JobStatus): boolean {
   return UPLOAD_ROLES.includes(actor.role) && UPLOAD_STATUSES.includes(status);
@@ -174,7 +173,7 @@ export async function listDatasets(actor: Actor, jobId: string): Promise<Dataset
 
 /** One dataset with its job's owner fields; null when missing or not visible to the actor. */
 export async function getDataset(actor: Actor, datasetId: string) {
-  if (!UUID.test(datasetId)) return null;
+  if (!isUuid(datasetId)) return null;
   const [row] = await db
     .select({
       dataset: datasets,

@@ -8,12 +8,13 @@ import { analyses, auditEvents, customers, datasets, heads, jobs, machines, site
 import type { HeadFitJson } from "@/geometry";
 import { canReadHeadHistory, canReadRegister, type Actor, type JobStatus } from "@/lib/auth/roles";
 import { forbidden, invalid, notFound } from "@/lib/errors";
+import { isUuid } from "@/lib/domain/uuid";
 
 /** One head with where it is mounted now and its mounting history (from the audit trail). */
 export async function getHeadWithHistory(actor: Actor, headId: string) {
   if (!canReadRegister(actor.role, "heads"))
     throw forbidden("The heads register is kept by the service company.");
-  if (!/^[0-9a-f-]{36}$/i.test(headId)) return null;
+  if (!isUuid(headId)) return null;
   const [row] = await db
     .select({ head: heads, machineName: machines.name, siteName: sites.name, customerName: customers.name })
     .from(heads)
@@ -97,7 +98,7 @@ export async function getHeadFitHistory(actor: Actor, headId: string) {
   const staff = canReadRegister(actor.role, "heads");
   if (!canReadHeadHistory(actor.role))
     throw forbidden("The history of a head is read by engineers, the office and the head's owner.");
-  if (!/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(headId)) return null;
+  if (!isUuid(headId)) return null;
   const [head] = await db.select().from(heads).where(eq(heads.id, headId));
   if (!head) return null;
   const jobRows = await db

@@ -5,6 +5,7 @@ import { cache } from "react";
 import { db } from "@/db";
 import { customers, heads, jobs, machines, sites, users } from "@/db/schema";
 import { jobScope, type Actor, type JobStatus } from "@/lib/auth/roles";
+import { isUuid } from "@/lib/domain/uuid";
 
 /** The SQL form of lib/auth/roles.jobScope: every read of jobs goes through it. */
 export function jobAccessCondition(actor: Actor): SQL | undefined {
@@ -113,7 +114,7 @@ export async function listJobs(actor: Actor, filters: JobListFilters = {}): Prom
 
 /** One job with its machine, head and people; null when missing *or* not visible to the actor. */
 export const getJobDetail = cache(async function getJobDetail(actor: Actor, jobId: string) {
-  if (!/^[0-9a-f-]{36}$/i.test(jobId)) return null;
+  if (!isUuid(jobId)) return null;
   const rows = await db
     .select({
       job: jobs,

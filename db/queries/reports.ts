@@ -38,6 +38,7 @@ import { formatLimits, formatValue } from "@/lib/units";
 import { renderReportPdf } from "@/lib/report/render";
 import { sha256Hex, signManifest, verifyManifest, type SignatureManifest } from "@/lib/report/signing";
 import type { Decision, ReportCharts, ReportData, ReportSignature } from "@/lib/report/types";
+import { isUuid } from "@/lib/domain/uuid";
 
 /** Re-entry of the password at signing (21 CFR 11.200): the signer proves it is them, now. */
 async function requirePasswordReentry(actor: Actor, password: string): Promise<void> {
@@ -528,35 +529,31 @@ export async function issueReport(
       .for("update");
     if (!locked || locked.status !== d.job.status)
       throw invalid("The job changed while the report was prepared; open it again.");
-    await tx
-      .insert(reports)
-      .values({
-        id: reportId,
-        jobId: d.job.id,
-        revision,
-        supersedesId: current?.id ?? null,
-        amendmentReason: input.amendmentReason?.trim() || null,
-        pdf,
-        pdfSha256,
-        contentSha256: content.contentSha256,
-        content,
-        issuedAt,
-        issuedById: actor.id,
-      });
-    await tx
-      .insert(signatures)
-      .values({
-        jobId: d.job.id,
-        reportId,
-        meaning: "approved",
-        signerId: actor.id,
-        signerName: actor.name,
-        signerRole: actor.role,
-        signedAt: issuedAt,
-        manifest,
-        signature,
-        keyId: manifest.keyId,
-      });
+    await tx.insert(reports).values({
+      id: reportId,
+      jobId: d.job.id,
+      revision,
+      supersedesId: current?.id ?? null,
+      amendmentReason: input.amendmentReason?.trim() || null,
+      pdf,
+      pdfSha256,
+      contentSha256: content.contentSha256,
+      content,
+      issuedAt,
+      issuedById: actor.id,
+    });
+    await tx.insert(signatures).values({
+      jobId: d.job.id,
+      reportId,
+      meaning: "approved",
+      signerId: actor.id,
+      signerName: actor.name,
+      signerRole: actor.role,
+      signedAt: issuedAt,
+      manifest,
+      signature,
+      keyId: manifest.keyId,
+    });
     await tx.update(jobs).set({ status: "issued" }).where(eq(jobs.id, d.job.id));
     await appendAudit(tx, {
       actorId: actor.id,
@@ -670,7 +667,7 @@ export async function respondToReport(
 
 /** Report metadata for a user who may see its job; null otherwise (including another tenant's). */
 export async function getReportMeta(actor: Actor, reportId: string) {
-  if (!/^[0-9a-f-]{36}$/i.test(reportId)) return null;
+  if (!isUuid(reportId)) return null;
   const [r] = await db
     .select({
       id: reports.id,
@@ -780,8 +777,7 @@ export async function verifyReport(
   reportId: string,
   exec: Pick<typeof db, "select"> = db,
 ): Promise<VerificationResult> {
-  if (!/^[0-9a-f-]{36}$/i.test(reportId))
-    return { authentic: false, reason: "There is no report with this id." };
+  if (!isUuid(reportId)) return { authentic: false, reason: "There is no report with this id." };
   const [r] = await exec
     .select({
       id: reports.id,

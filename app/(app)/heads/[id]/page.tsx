@@ -5,6 +5,7 @@ import { FitHistory } from "@/components/heads/fit-history";
 import { getHeadFitHistory } from "@/db/queries/heads-admin";
 import { canReadHeadHistory, canReadRegister } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
+import { pageUuid } from "@/lib/domain/uuid";
 
 export const metadata: Metadata = { title: "Head history" };
 
@@ -16,7 +17,7 @@ type Props = { params: Promise<{ id: string }> };
  * head the person may not read is "not found", like one that does not exist.
  */
 export default async function HeadHistoryPage({ params }: Props) {
-  const { id } = await params;
+  const id = pageUuid((await params).id);
   const user = await requirePageUser(`/heads/${id}`);
   if (!canReadHeadHistory(user.role)) notFound();
   const history = await getHeadFitHistory(user, id);

@@ -8,6 +8,7 @@ import { Card, Facts } from "@/components/ui/card";
 import { canDeleteFrom, getTestPartEvaluation } from "@/db/queries/datasets";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
+import { pageUuid } from "@/lib/domain/uuid";
 
 export const metadata: Metadata = { title: "Dataset" };
 
@@ -30,7 +31,8 @@ function num(v: unknown, digits: number, unit: string): string {
 }
 
 export default async function DatasetPage({ params }: Props) {
-  const { id, datasetId } = await params;
+  const { id: rawId, datasetId: rawDatasetId } = await params;
+  const [id, datasetId] = [pageUuid(rawId), pageUuid(rawDatasetId)];
   const user = await requirePageUser(`/jobs/${id}/data/${datasetId}`);
   const found = await getTestPartEvaluation(user, datasetId);
   if (!found || found.detail.dataset.jobId !== id) notFound();
