@@ -3,7 +3,8 @@
 import { useState, useTransition } from "react";
 import { setPasswordAction } from "@/app/(auth)/set-password/actions";
 
-export function SetPasswordForm({ token }: { token: string }) {
+/** `signInHref`: where "Sign in" goes once the password is set (the page makes it from a checked callbackUrl). */
+export function SetPasswordForm({ token, signInHref = "/login" }: { token: string; signInHref?: string }) {
   const [pending, start] = useTransition();
   const [state, setState] = useState<{
     ok: boolean;
@@ -16,7 +17,7 @@ export function SetPasswordForm({ token }: { token: string }) {
     return (
       <p role="status" className="rounded-card border border-pass-600/40 bg-pass-50 p-4 text-pass-700">
         {state.message}{" "}
-        <a href="/login" className="font-semibold underline">
+        <a href={signInHref} className="font-semibold underline">
           Sign in
         </a>
       </p>

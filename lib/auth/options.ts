@@ -8,6 +8,7 @@ import { clearSignInFailures, isSignInLimited, recordSignInFailure } from "@/db/
 import { getUserForSignIn, revokeSessions } from "@/db/queries/users";
 import { authSecret, env } from "@/lib/env";
 import { verifyPassword } from "./password";
+import { DEFAULT_AFTER_SIGN_IN, sameOriginPath } from "./redirect";
 import { isRole } from "./roles";
 
 export function clientAddress(
@@ -65,6 +66,10 @@ export const authOptions: NextAuthOptions = {
     },
   },
   callbacks: {
+    // Every callbackUrl next-auth follows goes through the one same-origin check.
+    redirect({ url, baseUrl }) {
+      return `${baseUrl}${sameOriginPath(url, baseUrl) ?? DEFAULT_AFTER_SIGN_IN}`;
+    },
     jwt({ token, user }) {
       if (user) {
         token.role = user.role;

@@ -9,6 +9,7 @@ import { redirect } from "next/navigation";
 import { getActor } from "@/db/queries/users";
 import { forbidden, unauthorized } from "@/lib/errors";
 import type { Actor, Role } from "./roles";
+import { sameOriginPath } from "./redirect";
 import { readSessionIdentity } from "./session-token";
 
 /** Read once per request (layouts and pages share it through React's request cache). */
@@ -35,6 +36,9 @@ export async function requireRole(...roles: Role[]): Promise<Actor> {
 /** For pages: sends an anonymous visitor to the sign-in page. */
 export async function requirePageUser(callbackPath?: string): Promise<Actor> {
   const actor = await getCurrentUser();
-  if (!actor) redirect(callbackPath ? `/login?callbackUrl=${encodeURIComponent(callbackPath)}` : "/login");
+  if (!actor) {
+    const back = sameOriginPath(callbackPath);
+    redirect(back ? `/login?callbackUrl=${encodeURIComponent(back)}` : "/login");
+  }
   return actor;
 }
