@@ -71,20 +71,21 @@ async function checkIdParams(ctx: unknown): Promise<void> {
 
 export function route<C = unknown>(fn: Handler<C>): Handler<C> {
   return async (req, ctx) => {
+    let res: Response;
     try {
       const refusal = crossSiteRefusal(req);
       if (refusal) throw forbidden(refusal);
       await checkIdParams(ctx);
-      const res = await fn(req, ctx);
-      // Authenticated answers must not be kept by shared caches.
-      if (!res.headers.has("Cache-Control")) res.headers.set("Cache-Control", "no-store");
-      // Also set here for routes the proxy does not see (the streaming upload): the same headers.
-      for (const [name, value] of securityHeaderEntries())
-        if (!res.headers.has(name)) res.headers.set(name, value);
-      return res;
+      res = await fn(req, ctx);
     } catch (err) {
-      return errorResponse(err);
+      res = errorResponse(err);
     }
+    // Authenticated answers must not be kept by shared caches.
+    if (!res.headers.has("Cache-Control")) res.headers.set("Cache-Control", "no-store");
+    // Also set here for routes the proxy does not see (the streaming upload): the same headers.
+    for (const [name, value] of securityHeaderEntries())
+      if (!res.headers.has(name)) res.headers.set(name, value);
+    return res;
   };
 }
 

@@ -141,3 +141,19 @@ describe("dataset pages", () => {
     expect(await render("99")).toContain(">bore 250<");
   });
 });
+
+describe("headers on routes the proxy does not see", () => {
+  it("the upload route answers with CSP, frame, referrer and nosniff headers, refused or not", async () => {
+    await signInAs("inspector@halvard.example");
+    const res = await uploadRoute(garbageMultipart(`/api/jobs/${measuring}/datasets`), {
+      params: Promise.resolve({ id: measuring }),
+    });
+    expect(res.headers.get("content-security-policy")).toContain("frame-ancestors 'none'");
+    expect(res.headers.get("x-frame-options")).toBe("DENY");
+    expect(res.headers.get("referrer-policy")).toBe("strict-origin-when-cross-origin");
+    expect(res.headers.get("x-content-type-options")).toBe("nosniff");
+    const ok = await upload(measuring, fixture("test-part-good.csv"), TEST_PART);
+    expect(ok.status).toBe(201);
+    expect(ok.headers.get("x-frame-options")).toBe("DENY");
+  });
+});

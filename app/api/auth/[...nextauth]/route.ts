@@ -3,6 +3,8 @@
 import NextAuth from "next-auth";
 import { isSignInLimited } from "@/db/queries/sign-in";
 import { authOptions, clientAddress } from "@/lib/auth/options";
+import { forbidden } from "@/lib/errors";
+import { crossSiteRefusal, errorResponse } from "@/lib/http";
 
 const handler = NextAuth(authOptions);
 
@@ -12,6 +14,9 @@ export const RATE_LIMIT_MESSAGE =
 type Ctx = { params: Promise<{ nextauth: string[] }> };
 
 async function POST(req: Request, ctx: Ctx) {
+  // Sign-in and sign-out are writes too: a page elsewhere may not post them (next-auth's CSRF token aside).
+  const refusal = crossSiteRefusal(req);
+  if (refusal) return errorResponse(forbidden(refusal));
   const { nextauth } = await ctx.params;
   if (nextauth.join("/") === "callback/credentials") {
     const form = await req
