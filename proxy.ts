@@ -22,6 +22,9 @@ export default async function proxy(req: NextRequest) {
   const path = req.nextUrl.pathname;
   if (!token && PROTECTED_PAGES.some((p) => path === p || path.startsWith(`${p}/`))) {
     const signIn = new URL("/login", req.url);
+    // A session cookie that no longer decodes (expired, or signed with an old secret): say so.
+    if (Object.keys(sessionCookieJar(req.cookies.getAll())).length)
+      signIn.searchParams.set("error", "SessionEnded");
     signIn.searchParams.set("callbackUrl", `${path}${req.nextUrl.search}`);
     return securityHeaders(NextResponse.redirect(signIn), csp, false);
   }

@@ -7,10 +7,10 @@ import { SignInForm } from "./sign-in-form";
 
 export const metadata: Metadata = { title: "Sign in" };
 
-type Props = { searchParams: Promise<{ callbackUrl?: string; error?: string }> };
+type Props = { searchParams: Promise<{ callbackUrl?: string; error?: string; wait?: string }> };
 
 export default async function LoginPage({ searchParams }: Props) {
-  const { callbackUrl, error } = await searchParams;
+  const { callbackUrl, error, wait } = await searchParams;
   if (await getCurrentUser()) redirect(safeRedirectPath(callbackUrl));
   return (
     <main className="grid min-h-screen lg:grid-cols-[1.1fr_1fr]">
@@ -57,7 +57,11 @@ export default async function LoginPage({ searchParams }: Props) {
               Use the e-mail address your service company or administrator registered.
             </p>
           </div>
-          <SignInForm callbackUrl={safeRedirectPath(callbackUrl)} initialError={error} />
+          <SignInForm
+            callbackUrl={safeRedirectPath(callbackUrl)}
+            initialError={error}
+            initialWaitS={Number(wait) > 0 ? Math.min(Number(wait), 86_400) : undefined}
+          />
         </div>
       </section>
     </main>
