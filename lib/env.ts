@@ -22,6 +22,19 @@ const schema = z.object({
     .int()
     .min(1)
     .default(15 * 60),
+  /**
+   * Which X-Forwarded-For hops to believe for the client address used by the sign-in limits: a
+   * number of proxies in front of the app (1 for one load balancer), or a comma-separated list of
+   * the proxies' own addresses. Unset: the header is not trusted (see lib/auth/throttle).
+   */
+  TRUSTED_PROXIES: z
+    .string()
+    .trim()
+    .regex(
+      /^(\d+|[0-9A-Fa-f:.]+(\s*,\s*[0-9A-Fa-f:.]+)*)?$/,
+      "a number of hops or a comma-separated list of addresses",
+    )
+    .default(""),
   TRAMMEL_ALLOW_SEED: z.enum(["0", "1"]).optional(),
   /** Where the report-signing key pair lives: outside the database, never in git. */
   REPORT_KEY_DIR: z.string().min(1).default(".data/keys"),

@@ -9,13 +9,14 @@ import { setPasswordSchema } from "@/lib/validations/registers";
 const cls =
   "block min-h-touch w-full rounded-lg border border-graphite-300 bg-white px-3 text-base shadow-sm focus:border-accent-500";
 
-export function SetPasswordForm({ token }: { token: string }) {
+/** `signInHref`: where "Sign in" goes once the password is set (the page makes it from a checked callbackUrl). */
+export function SetPasswordForm({ token, signInHref = "/login" }: { token: string; signInHref?: string }) {
   const [done, setDone] = useState(false);
   if (done)
     return (
       <p role="status" className="rounded-card border border-pass-600/40 bg-pass-50 p-4 text-pass-700">
         Your password is set.{" "}
-        <a href="/login" className="font-semibold underline">
+        <a href={signInHref} className="font-semibold underline">
           Sign in
         </a>
       </p>

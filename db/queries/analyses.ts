@@ -27,8 +27,7 @@ import {
   headFitterRefusal,
 } from "@/lib/policy/analyses";
 import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+import { isUuid } from "@/lib/domain/uuid";
 
 /** The head configuration geometry/ needs, from the heads register (lengths in mm). */
 export function headConfigOf(
@@ -276,7 +275,7 @@ async function findAnalysis(datasetId: string, inputSha256: string): Promise<Ana
 
 /** One analysis the actor may see (through its job's tenant rule); null otherwise, also for a malformed id. */
 export async function getAnalysis(actor: Actor, id: string) {
-  if (!UUID.test(id)) return null;
+  if (!isUuid(id)) return null;
   const [row] = await db
     .select({
       analysis: analyses,

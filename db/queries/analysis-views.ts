@@ -17,6 +17,7 @@ import { viewSaveRefusal } from "@/lib/policy/analyses";
 import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
 import { PngError, readPngInfo } from "@/lib/png-info";
 import { getStorage } from "@/lib/storage";
+import { isUuid } from "@/lib/domain/uuid";
 
 /** Largest picture accepted, bytes (a 1440 × 960 canvas at device pixel ratio 2 is well below this). */
 export const VIEW_MAX_BYTES = 4 * 1024 * 1024;
@@ -24,11 +25,9 @@ export const VIEW_MAX_BYTES = 4 * 1024 * 1024;
 export const VIEW_MAX_FACTOR = 100_000;
 export const VIEW_CAPTION_MAX = 200;
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
 /** `views/<job uuid>/<random uuid>`: nothing in it comes from the request. */
 export function viewObjectKey(jobId: string): string {
-  if (!UUID.test(jobId)) throw new Error("viewObjectKey: job id must be a uuid");
+  if (!isUuid(jobId)) throw new Error("viewObjectKey: job id must be a uuid");
   return `views/${jobId.toLowerCase()}/${randomUUID()}`;
 }
 
@@ -112,7 +111,7 @@ export async function saveAnalysisView(
       { field: "caption", message: `${caption.length} characters` },
     ]);
   if (input.overlayAnalysisId) {
-    const [o] = UUID.test(input.overlayAnalysisId)
+    const [o] = isUuid(input.overlayAnalysisId)
       ? await db
           .select({ jobId: analyses.jobId })
           .from(analyses)
@@ -195,7 +194,7 @@ export async function listAnalysisViews(actor: Actor, analysisId: string): Promi
 
 /** Views of every fit of a job, newest first, with the dataset each fit came from (empty when the job is not visible). */
 export async function listJobViews(actor: Actor, jobId: string) {
-  if (!UUID.test(jobId)) return [];
+  if (!isUuid(jobId)) return [];
   return db
     .select({ ...viewColumns, datasetFilename: datasets.originalFilename, phase: datasets.phase })
     .from(analysisViews)
@@ -213,7 +212,7 @@ export async function getViewImage(
   actor: Actor,
   viewId: string,
 ): Promise<{ view: ViewRow; png: Buffer } | null> {
-  if (!UUID.test(viewId)) return null;
+  if (!isUuid(viewId)) return null;
   const [row] = await db
     .select({ ...viewColumns, storageKey: analysisViews.storageKey })
     .from(analysisViews)
@@ -253,7 +252,7 @@ export interface LatestJobView {
  * job (getJobDetail / jobAccessCondition). Do not call it with a job id straight from a request.
  */
 export async function latestJobView(jobId: string): Promise<LatestJobView | null> {
-  if (!UUID.test(jobId)) return null;
+  if (!isUuid(jobId)) return null;
   const [approval] = await db
     .select({ analysisId: auditEvents.entityId })
     .from(auditEvents)

@@ -17,8 +17,7 @@ import {
   type ParsedDataset,
   type UploadForm,
 } from "@/lib/storage/parse-dataset";
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+import { isUuid } from "@/lib/domain/uuid";
 
 /**
  * The job an upload goes to, checked before the body is read: 404 when the actor may not see it,
@@ -143,7 +142,7 @@ export async function listDatasets(actor: Actor, jobId: string): Promise<Dataset
 
 /** One dataset with its job's owner fields; null when missing or not visible to the actor. */
 export async function getDataset(actor: Actor, datasetId: string) {
-  if (!UUID.test(datasetId)) return null;
+  if (!isUuid(datasetId)) return null;
   const [row] = await db
     .select({
       dataset: datasets,

@@ -10,12 +10,13 @@ import { type Actor } from "@/lib/domain/roles";
 import { headHistoryRefusal, headHistoryScope } from "@/lib/policy/heads";
 import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { forbidden, invalid, notFound } from "@/lib/errors";
+import { isUuid } from "@/lib/domain/uuid";
 
 /** One head with where it is mounted now and its mounting history (from the audit trail). */
 export async function getHeadWithHistory(actor: Actor, headId: string) {
   const refusal = registerReadRefusal(actor, "heads");
   if (refusal) throw forbidden(refusal);
-  if (!/^[0-9a-f-]{36}$/i.test(headId)) return null;
+  if (!isUuid(headId)) return null;
   const [row] = await db
     .select({ head: heads, machineName: machines.name, siteName: sites.name, customerName: customers.name })
     .from(heads)
@@ -82,7 +83,7 @@ export async function getHeadFitHistory(actor: Actor, headId: string) {
   const refusal = headHistoryRefusal(actor);
   if (refusal) throw forbidden(refusal);
   const staff = headHistoryScope(actor) === "all";
-  if (!/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(headId)) return null;
+  if (!isUuid(headId)) return null;
   const [head] = await db.select().from(heads).where(eq(heads.id, headId));
   if (!head) return null;
   const jobRows = await db

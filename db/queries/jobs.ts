@@ -7,6 +7,7 @@ import { customers, heads, jobs, machines, sites, users } from "@/db/schema";
 import { JOB_SORT_KEYS, type JobListRow, type JobSortKey, type JobStatus } from "@/lib/domain/jobs";
 import { type Actor } from "@/lib/domain/roles";
 import { jobScope } from "@/lib/policy/jobs";
+import { isUuid } from "@/lib/domain/uuid";
 
 /** The SQL form of lib/policy/jobs.jobScope: every read of jobs goes through it. */
 export function jobAccessCondition(actor: Actor): SQL | undefined {
@@ -135,7 +136,7 @@ export async function listJobs(actor: Actor, filters: JobListFilters = {}): Prom
 
 /** One job with its machine, head and people; null when missing *or* not visible to the actor. */
 export const getJobDetail = cache(async function getJobDetail(actor: Actor, jobId: string) {
-  if (!/^[0-9a-f-]{36}$/i.test(jobId)) return null;
+  if (!isUuid(jobId)) return null;
   const rows = await db
     .select({
       job: jobs,

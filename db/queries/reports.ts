@@ -36,6 +36,7 @@ import { formatLimits, formatValue } from "@/lib/units";
 import { renderReportPdf } from "@/lib/report/render";
 import { sha256Hex, signManifest, verifyManifest, type SignatureManifest } from "@/lib/report/signing";
 import type { Decision, ReportCharts, ReportData, ReportSignature } from "@/lib/report/types";
+import { isUuid } from "@/lib/domain/uuid";
 
 /** Re-entry of the password at signing (21 CFR 11.200): the signer proves it is them, now. */
 async function requirePasswordReentry(actor: Actor, password: string): Promise<void> {
@@ -665,7 +666,7 @@ export async function respondToReport(
 
 /** Report metadata for a user who may see its job; null otherwise (including another tenant's). */
 export async function getReportMeta(actor: Actor, reportId: string) {
-  if (!/^[0-9a-f-]{36}$/i.test(reportId)) return null;
+  if (!isUuid(reportId)) return null;
   const [r] = await db
     .select({
       id: reports.id,
@@ -754,8 +755,7 @@ export async function verifyReport(
   reportId: string,
   exec: Pick<typeof db, "select"> = db,
 ): Promise<VerificationResult> {
-  if (!/^[0-9a-f-]{36}$/i.test(reportId))
-    return { authentic: false, reason: "There is no report with this id." };
+  if (!isUuid(reportId)) return { authentic: false, reason: "There is no report with this id." };
   const [r] = await exec
     .select({
       id: reports.id,

@@ -3,6 +3,7 @@ import { eq, sql } from "drizzle-orm";
 import type { Actor } from "@/lib/domain/roles";
 import { db } from "@/db";
 import { users } from "@/db/schema";
+import { isUuid } from "@/lib/domain/uuid";
 
 /** For sign-in only: the row with its password hash, matched case-insensitively. */
 export async function getUserForSignIn(email: string) {
@@ -35,7 +36,7 @@ const actorById = db
  * the next request, not when the session token expires.
  */
 export async function getActor(userId: string, signedInAtMs = Date.now()): Promise<Actor | null> {
-  if (!/^[0-9a-f-]{36}$/i.test(userId)) return null;
+  if (!isUuid(userId)) return null;
   const rows = await actorById.execute({ id: userId });
   const row = rows[0];
   if (!row || row.disabled) return null;
@@ -46,6 +47,6 @@ export async function getActor(userId: string, signedInAtMs = Date.now()): Promi
 
 /** Ends every session of the account: tokens that signed in before now are refused. */
 export async function revokeSessions(userId: string): Promise<void> {
-  if (!/^[0-9a-f-]{36}$/i.test(userId)) return;
+  if (!isUuid(userId)) return;
   await db.update(users).set({ sessionsValidAfter: new Date() }).where(eq(users.id, userId));
 }

@@ -4,22 +4,24 @@
  */
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
-import { clearSignInFailures, isSignInLimited, recordSignInFailure } from "@/db/queries/sign-in";
+import { clearSignInFailures, recordSignInFailure, signInLimit } from "@/db/queries/sign-in";
 import { getUserForSignIn, revokeSessions } from "@/db/queries/users";
 import { authSecret, env } from "@/lib/env";
 import { verifyPassword } from "./password";
 import { isRole } from "@/lib/domain/roles";
+import { DEFAULT_AFTER_SIGN_IN, sameOriginPath } from "./redirect";
+import { clientAddressFrom } from "./throttle";
 
+/** The client address the sign-in limits count, from X-Forwarded-For as far as TRUSTED_PROXIES trusts it. */
 export function clientAddress(
   headers: Headers | Record<string, string | string[] | undefined> | undefined,
 ): string {
-  const get = (name: string): string | undefined => {
-    if (!headers) return undefined;
-    if (headers instanceof Headers) return headers.get(name) ?? undefined;
-    const v = headers[name];
-    return Array.isArray(v) ? v[0] : v;
-  };
-  return (get("x-forwarded-for")?.split(",")[0] ?? get("x-real-ip") ?? "local").trim();
+  const raw = !headers
+    ? undefined
+    : headers instanceof Headers
+      ? headers.get("x-forwarded-for")
+      : headers["x-forwarded-for"];
+  return clientAddressFrom(Array.isArray(raw) ? raw.join(",") : raw, env.TRUSTED_PROXIES);
 }
 
 export const authOptions: NextAuthOptions = {
@@ -40,14 +42,14 @@ export const authOptions: NextAuthOptions = {
         if (!email || !password || email.length > 254 || password.length > 200) return null;
         const address = clientAddress(req?.headers);
         // The route handler answers 429 before this point; this check covers direct callers.
-        if (await isSignInLimited(email, address)) return null;
+        if ((await signInLimit(email, address)).limited) return null;
         const user = await getUserForSignIn(email);
         const ok = await verifyPassword(password, user?.passwordHash);
         if (!user || !ok || user.disabled || !isRole(user.role)) {
           await recordSignInFailure(email, address);
           return null;
         }
-        await clearSignInFailures(email);
+        await clearSignInFailures(email, address);
         return {
           id: user.id,
           email: user.email,
@@ -65,6 +67,10 @@ export const authOptions: NextAuthOptions = {
     },
   },
   callbacks: {
+    // Every callbackUrl next-auth follows goes through the one same-origin check.
+    redirect({ url, baseUrl }) {
+      return `${baseUrl}${sameOriginPath(url, baseUrl) ?? DEFAULT_AFTER_SIGN_IN}`;
+    },
     jwt({ token, user }) {
       if (user) {
         token.role = user.role;

@@ -9,6 +9,7 @@ import { randomUUID } from "node:crypto";
 import { env } from "@/lib/env";
 import { createPostgresStorage } from "./postgres";
 import { createS3Storage } from "./s3";
+import { isUuid } from "@/lib/domain/uuid";
 
 export interface StoredObjectMeta {
   readonly contentType: string;
@@ -27,7 +28,7 @@ export interface ObjectStorage {
 
 /** `datasets/<job uuid>/<random uuid>`: nothing in it comes from the uploader. */
 export function datasetObjectKey(jobId: string): string {
-  if (!/^[0-9a-f-]{36}$/i.test(jobId)) throw new Error("datasetObjectKey: job id must be a uuid");
+  if (!isUuid(jobId)) throw new Error("datasetObjectKey: job id must be a uuid");
   return `datasets/${jobId.toLowerCase()}/${randomUUID()}`;
 }
 

@@ -140,6 +140,106 @@ export function decodeUtf8(bytes: Uint8Array): string {
   }
 }
 
+/** The limits every uploaded CSV file is held to before a reader sees it. */
+export const CSV_MAX_COLUMNS = 200;
+export const CSV_MAX_CELL_CHARS = 1000;
+const MAX_LIMIT_ISSUES = 20;
+
+/** "x" for a named header cell, "column 7" otherwise (1-based, as a spreadsheet counts). */
+function columnName(names: readonly string[], index: number): string {
+  const n = names[index]?.trim();
+  return n ? n : `column ${index + 1}`;
+}
+
+/**
+ * One pass over the text (RFC 4180 quoting: delimiters and line breaks inside quotes are data)
+ * that refuses, naming row and column, what no reader should be handed: a NUL or other control
+ * character in a cell (PostgreSQL cannot store NUL in text or jsonb, and no number or name holds
+ * one), a cell longer than CSV_MAX_CELL_CHARS, a record with more than CSV_MAX_COLUMNS cells.
+ * Tab, carriage return and line feed are allowed. Reading stops at the first record that is too
+ * wide, so a file with a million columns costs one line's scan. Rows count as in a spreadsheet:
+ * the header is row 1.
+ */
+export function checkCsvLimits(text: string): void {
+  const start = text.charCodeAt(0) === 0xfeff ? 1 : 0;
+  let firstEnd = start;
+  while (firstEnd < text.length && text.charCodeAt(firstEnd) !== 10 && text.charCodeAt(firstEnd) !== 13)
+    firstEnd++;
+  const header = text.slice(start, Math.min(firstEnd, start + 64 * 1024));
+  const delim = header.split(";").length > header.split(",").length ? 59 : 44;
+  const issues: FieldIssue[] = [];
+  const names: string[] = [];
+  let row = 1;
+  let col = 0;
+  let cellStart = start;
+  /** Inside a quoted field; `blank` while the cell so far is only spaces (a quote may open it). */
+  let inQuotes = false;
+  let blank = true;
+  let reported = false;
+  const nextCell = (at: number) => {
+    if (row === 1 && names.length < CSV_MAX_COLUMNS)
+      names.push(text.slice(cellStart, at).trim().replace(/^"|"$/g, ""));
+    cellStart = at + 1;
+    blank = true;
+    reported = false;
+  };
+  for (let i = start; i < text.length && issues.length < MAX_LIMIT_ISSUES; i++) {
+    const c = text.charCodeAt(i);
+    if (inQuotes) {
+      if (c === 34) {
+        if (text.charCodeAt(i + 1) === 34) i++;
+        else inQuotes = false;
+      }
+    } else if (c === delim) {
+      nextCell(i);
+      if (++col >= CSV_MAX_COLUMNS) {
+        issues.push({
+          row,
+          message: `more than ${CSV_MAX_COLUMNS} columns; a file may have at most ${CSV_MAX_COLUMNS}`,
+        });
+        break;
+      }
+      continue;
+    } else if (c === 10 || c === 13) {
+      nextCell(i);
+      if (c === 13 && text.charCodeAt(i + 1) === 10) i++;
+      cellStart = i + 1;
+      row++;
+      col = 0;
+      continue;
+    } else if (c === 34 && blank) {
+      inQuotes = true;
+      continue;
+    } else if (c !== 32) blank = false;
+    if (reported) continue;
+    const control = (c < 32 && c !== 9 && c !== 10 && c !== 13) || (c >= 127 && c < 160);
+    if (control) {
+      const what =
+        c === 0 ? "a NUL byte" : `a control character (U+${c.toString(16).toUpperCase().padStart(4, "0")})`;
+      issues.push({
+        row,
+        column: columnName(names, col),
+        message: `the cell holds ${what}; remove it and upload again`,
+      });
+      reported = true;
+    } else if (i - cellStart >= CSV_MAX_CELL_CHARS) {
+      issues.push({
+        row,
+        column: columnName(names, col),
+        message: `the cell is longer than ${CSV_MAX_CELL_CHARS} characters`,
+      });
+      reported = true;
+    }
+  }
+  if (issues.length === 0) return;
+  const first = issues[0]!;
+  const where = [`row ${first.row}`, first.column ? `column ${first.column}` : null]
+    .filter(Boolean)
+    .join(", ");
+  const more = issues.length > 1 ? ` (and ${issues.length - 1} more)` : "";
+  throw new AppError(422, "invalid_csv", `${where}: ${first.message}${more}`, issues);
+}
+
 /** Swap the first line of `text` (after a BOM) for `header`. */
 function replaceHeader(text: string, header: string): { text: string; replaced: string } {
   const start = text.charCodeAt(0) === 0xfeff ? 1 : 0;
@@ -311,9 +411,11 @@ function done(
   };
 }
 
-/** Bytes → validated dataset (decode, then the readers). */
+/** Bytes → validated dataset (decode, the limits, then the readers). */
 export function parseDatasetFile(form: UploadForm, bytes: Uint8Array): ParsedDataset {
-  return parseDatasetText(form, decodeUtf8(bytes));
+  const text = decodeUtf8(bytes);
+  checkCsvLimits(text);
+  return parseDatasetText(form, text);
 }
 
 const LITTLE_ENDIAN = new Uint8Array(new Float64Array([1]).buffer)[7] === 0x3f;

@@ -1,21 +1,17 @@
 import type { Metadata } from "next";
 import { redirect } from "next/navigation";
 import { LogoMark } from "@/components/brand/logo";
+import { safeRedirectPath } from "@/lib/auth/redirect";
 import { getCurrentUser } from "@/lib/auth/session";
 import { SignInForm } from "./sign-in-form";
 
 export const metadata: Metadata = { title: "Sign in" };
 
-type Props = { searchParams: Promise<{ callbackUrl?: string; error?: string }> };
-
-/** Only same-site paths are followed after sign-in. */
-function safeCallback(url: string | undefined): string {
-  return url && url.startsWith("/") && !url.startsWith("//") ? url : "/jobs";
-}
+type Props = { searchParams: Promise<{ callbackUrl?: string; error?: string; wait?: string }> };
 
 export default async function LoginPage({ searchParams }: Props) {
-  const { callbackUrl, error } = await searchParams;
-  if (await getCurrentUser()) redirect(safeCallback(callbackUrl));
+  const { callbackUrl, error, wait } = await searchParams;
+  if (await getCurrentUser()) redirect(safeRedirectPath(callbackUrl));
   return (
     <main className="grid min-h-screen lg:grid-cols-[1.1fr_1fr]">
       <section className="relative hidden overflow-hidden bg-graphite-900 p-12 text-graphite-100 lg:flex lg:flex-col lg:justify-between">
@@ -61,7 +57,11 @@ export default async function LoginPage({ searchParams }: Props) {
               Use the e-mail address your service company or administrator registered.
             </p>
           </div>
-          <SignInForm callbackUrl={safeCallback(callbackUrl)} initialError={error} />
+          <SignInForm
+            callbackUrl={safeRedirectPath(callbackUrl)}
+            initialError={error}
+            initialWaitS={Number(wait) > 0 ? Math.min(Number(wait), 86_400) : undefined}
+          />
         </div>
       </section>
     </main>

@@ -1,18 +1,39 @@
 "use client";
 
 import { signIn } from "next-auth/react";
+import Link from "next/link";
 import { useState } from "react";
+import { rateLimitMessage } from "@/lib/auth/throttle";
 
 const MESSAGES: Record<string, string> = {
   CredentialsSignin: "That e-mail and password do not match an active account.",
-  RateLimited:
-    "Too many failed sign-ins for this account or from this address. Wait 15 minutes and try again, or ask your administrator to reset the password.",
   SessionRequired: "Sign in to continue.",
+  SessionEnded:
+    "Your session has ended (signed out, the account changed, or 12 hours passed). Sign in again.",
 };
 
-export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string; initialError?: string }) {
+/** Seconds to wait named by a 429's redirect URL (`wait=`), or the counting window when it does not say. */
+function waitFrom(url: string | null | undefined): number {
+  const n = Number(url ? new URL(url, "http://x").searchParams.get("wait") : NaN);
+  return Number.isFinite(n) && n > 0 ? n : 900;
+}
+
+function messageFor(code: string, waitS?: number): string {
+  if (code === "RateLimited") return rateLimitMessage(waitS ?? 900);
+  return MESSAGES[code] ?? MESSAGES.CredentialsSignin!;
+}
+
+export function SignInForm({
+  callbackUrl,
+  initialError,
+  initialWaitS,
+}: {
+  callbackUrl: string;
+  initialError?: string;
+  initialWaitS?: number;
+}) {
   const [error, setError] = useState<string | null>(
-    initialError ? (MESSAGES[initialError] ?? MESSAGES.CredentialsSignin!) : null,
+    initialError ? messageFor(initialError, initialWaitS) : null,
   );
   const [pending, setPending] = useState(false);
 
@@ -32,7 +53,9 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
       return;
     }
     setPending(false);
-    setError(res?.status === 429 ? MESSAGES.RateLimited! : MESSAGES.CredentialsSignin!);
+    setError(
+      res?.status === 429 ? messageFor("RateLimited", waitFrom(res.url)) : MESSAGES.CredentialsSignin!,
+    );
   }
 
   return (
@@ -73,6 +96,11 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
       >
         {pending ? "Signing in…" : "Sign in"}
       </button>
+      <p className="text-sm">
+        <Link href="/forgot-password" className="text-accent-700 underline">
+          Forgot your password?
+        </Link>
+      </p>
     </form>
   );
 }

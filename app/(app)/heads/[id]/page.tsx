@@ -6,6 +6,7 @@ import { getHeadFitHistory } from "@/db/queries/heads-admin";
 import { headHistoryRefusal } from "@/lib/policy/heads";
 import { registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
+import { pageUuid } from "@/lib/domain/uuid";
 
 export const metadata: Metadata = { title: "Head history" };
 
@@ -17,7 +18,7 @@ type Props = { params: Promise<{ id: string }> };
  * head the person may not read is "not found", like one that does not exist.
  */
 export default async function HeadHistoryPage({ params }: Props) {
-  const { id } = await params;
+  const id = pageUuid((await params).id);
   const user = await requirePageUser(`/heads/${id}`);
   if (headHistoryRefusal(user)) notFound();
   const history = await getHeadFitHistory(user, id);

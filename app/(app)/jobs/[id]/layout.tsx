@@ -5,12 +5,13 @@ import { StatusBadge } from "@/components/ui/status-badge";
 import { getJobDetail } from "@/db/queries/jobs";
 import { requirePageUser } from "@/lib/auth/session";
 import { JOB_KIND_LABELS } from "@/lib/format";
+import { pageUuid } from "@/lib/domain/uuid";
 
 type Props = { params: Promise<{ id: string }>; children: React.ReactNode };
 
 /** Header and section tabs shared by every page of a job; the access check runs here and again in each page's query. */
 export default async function JobLayout({ params, children }: Props) {
-  const { id } = await params;
+  const id = pageUuid((await params).id);
   const user = await requirePageUser(`/jobs/${id}`);
   const d = await getJobDetail(user, id);
   if (!d) notFound();

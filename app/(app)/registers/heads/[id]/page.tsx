@@ -9,13 +9,14 @@ import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
 import { FitHistory } from "@/components/heads/fit-history";
+import { pageUuid } from "@/lib/domain/uuid";
 
 export const metadata: Metadata = { title: "Head" };
 
 type Props = { params: Promise<{ id: string }> };
 
 export default async function HeadPage({ params }: Props) {
-  const { id } = await params;
+  const id = pageUuid((await params).id);
   const user = await requirePageUser(`/registers/heads/${id}`);
   if (registerReadRefusal(user, "heads")) notFound();
   const mayEdit = registerEditRefusal(user, "heads") === null;

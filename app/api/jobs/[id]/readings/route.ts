@@ -1,7 +1,6 @@
 import { listReadingsJson, recordReading } from "@/db/queries/readings";
 import { requireUser } from "@/lib/auth/session";
-import { invalid } from "@/lib/errors";
-import { route } from "@/lib/http";
+import { readJson, route } from "@/lib/http";
 import { readingCreateSchema } from "@/lib/validations/readings";
 
 type Ctx = { params: Promise<{ id: string }> };
@@ -17,10 +16,7 @@ export const GET = route<Ctx>(async (_req, ctx) => {
 export const POST = route<Ctx>(async (req, ctx) => {
   const { id } = await ctx.params;
   const actor = await requireUser();
-  const body = await req.json().catch(() => {
-    throw invalid("The body must be JSON.");
-  });
-  const input = readingCreateSchema.parse(body);
+  const input = readingCreateSchema.parse(await readJson(req));
   const reading = await recordReading(actor, id, input);
   return Response.json({ reading }, { status: 201 });
 });

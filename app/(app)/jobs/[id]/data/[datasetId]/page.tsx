@@ -9,10 +9,17 @@ import { getTestPartEvaluation } from "@/db/queries/datasets";
 import { datasetDeleteRefusal } from "@/lib/policy/datasets";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
+import { pageUuid } from "@/lib/domain/uuid";
 
 export const metadata: Metadata = { title: "Dataset" };
 
-type Props = { params: Promise<{ id: string; datasetId: string }> };
+type Props = {
+  params: Promise<{ id: string; datasetId: string }>;
+  searchParams: Promise<{ page?: string }>;
+};
+
+/** Rows of the evaluation shown per page: a file of many thousand features stays a light page. */
+const ROWS_PER_PAGE = 100;
 
 const UNIT_WORDS: Record<string, string> = { mm: "mm", in: "inch", um: "µm" };
 
@@ -30,12 +37,19 @@ function num(v: unknown, digits: number, unit: string): string {
   return typeof v === "number" && Number.isFinite(v) ? `${v.toFixed(digits)} ${unit}` : "—";
 }
 
-export default async function DatasetPage({ params }: Props) {
-  const { id, datasetId } = await params;
+export default async function DatasetPage({ params, searchParams }: Props) {
+  const { id: rawId, datasetId: rawDatasetId } = await params;
+  const [id, datasetId] = [pageUuid(rawId), pageUuid(rawDatasetId)];
   const user = await requirePageUser(`/jobs/${id}/data/${datasetId}`);
   const found = await getTestPartEvaluation(user, datasetId);
   if (!found || found.detail.dataset.jobId !== id) notFound();
-  const { detail, evaluation } = found;
+  const { detail, evaluation: whole } = found;
+  const pages = Math.max(1, Math.ceil((whole?.rows.length ?? 0) / ROWS_PER_PAGE));
+  const requested = Number((await searchParams)?.page ?? 1);
+  const page = Number.isInteger(requested) ? Math.min(Math.max(requested, 1), pages) : 1;
+  const evaluation = whole
+    ? { ...whole, rows: whole.rows.slice((page - 1) * ROWS_PER_PAGE, page * ROWS_PER_PAGE) }
+    : null;
   const ds = detail.dataset;
   const summary = (ds.summary ?? {}) as {
     tram?: Record<string, number> | null;
@@ -99,6 +113,28 @@ export default async function DatasetPage({ params }: Props) {
             <p className="text-sm text-accent-800">{evaluation.warnings.join(" ")}</p>
           ) : null}
           <EvaluationTable result={evaluation} />
+          {pages > 1 ? (
+            <nav
+              aria-label="Evaluation pages"
+              className="flex items-center gap-3 text-sm"
+              data-testid="row-pages"
+            >
+              {page > 1 ? (
+                <Link href={`?page=${page - 1}`} className="text-accent-700 underline">
+                  Previous {ROWS_PER_PAGE}
+                </Link>
+              ) : null}
+              <span className="text-graphite-700">
+                Rows {(page - 1) * ROWS_PER_PAGE + 1}–{Math.min(page * ROWS_PER_PAGE, whole!.rows.length)} of{" "}
+                {whole!.rows.length} (page {page} of {pages})
+              </span>
+              {page < pages ? (
+                <Link href={`?page=${page + 1}`} className="text-accent-700 underline">
+                  Next {ROWS_PER_PAGE}
+                </Link>
+              ) : null}
+            </nav>
+          ) : null}
         </section>
       ) : null}
 

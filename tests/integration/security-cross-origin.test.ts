@@ -1,0 +1,179 @@
+// Cross-site writes: the probe's DELETE /api/datasets/{id} and uploads with `Origin: http://evil.example`
+// were accepted, and POST …/readings took JSON sent as text/plain (a form a page elsewhere can
+// send without a preflight). Every state-changing route is tried here from another origin, from
+// another port of the same host and with `Sec-Fetch-Site: cross-site`: each is 403 before the
+// handler runs; the same request from the app's own origin is not.
+// OWASP ASVS v4.0.3 4.2.2 (protection against cross-site request forgery) and 13.2.5 (the
+// Content-Type of a request is checked: JSON routes take application/json only).
+import { readdirSync, readFileSync, statSync } from "node:fs";
+import path from "node:path";
+import { beforeAll, describe, expect, it } from "vitest";
+import { POST as runFit } from "@/app/api/datasets/[id]/analyses/route";
+import { DELETE as deleteDataset } from "@/app/api/datasets/[id]/route";
+import { POST as saveView } from "@/app/api/analyses/[id]/views/route";
+import { POST as authPost } from "@/app/api/auth/[...nextauth]/route";
+import { POST as upload } from "@/app/api/jobs/[id]/datasets/route";
+import { POST as recordReading } from "@/app/api/jobs/[id]/readings/route";
+import { POST as verifyUpload } from "@/app/api/verify/route";
+import { NextRequest } from "next/server";
+import { db } from "@/db";
+import { sql } from "drizzle-orm";
+import { jobIdByReference, signInAs } from "./helpers";
+
+type Handler = (req: Request, ctx: unknown) => Promise<Response>;
+const ROOT = path.resolve(import.meta.dirname, "../..");
+const ids = { job: "", dataset: "", analysis: "" };
+
+/** Every write route (method + file), with a handler and params to call it with. */
+const WRITES: { name: string; file: string; method: string; handler: Handler; params: () => object }[] = [
+  {
+    name: "DELETE /api/datasets/{id}",
+    file: "app/api/datasets/[id]/route.ts",
+    method: "DELETE",
+    handler: deleteDataset as Handler,
+    params: () => ({ id: ids.dataset }),
+  },
+  {
+    name: "POST /api/jobs/{id}/datasets",
+    file: "app/api/jobs/[id]/datasets/route.ts",
+    method: "POST",
+    handler: upload as Handler,
+    params: () => ({ id: ids.job }),
+  },
+  {
+    name: "POST /api/jobs/{id}/readings",
+    file: "app/api/jobs/[id]/readings/route.ts",
+    method: "POST",
+    handler: recordReading as Handler,
+    params: () => ({ id: ids.job }),
+  },
+  {
+    name: "POST /api/datasets/{id}/analyses",
+    file: "app/api/datasets/[id]/analyses/route.ts",
+    method: "POST",
+    handler: runFit as Handler,
+    params: () => ({ id: ids.dataset }),
+  },
+  {
+    name: "POST /api/analyses/{id}/views",
+    file: "app/api/analyses/[id]/views/route.ts",
+    method: "POST",
+    handler: saveView as Handler,
+    params: () => ({ id: ids.analysis }),
+  },
+  {
+    name: "POST /api/verify",
+    file: "app/api/verify/route.ts",
+    method: "POST",
+    handler: verifyUpload as Handler,
+    params: () => ({}),
+  },
+  {
+    name: "POST /api/auth/callback/credentials",
+    file: "app/api/auth/[...nextauth]/route.ts",
+    method: "POST",
+    handler: authPost as Handler,
+    params: () => ({ nextauth: ["callback", "credentials"] }),
+  },
+];
+
+function call(
+  w: (typeof WRITES)[number],
+  headers: Record<string, string>,
+  params: object = w.params(),
+  body?: BodyInit,
+) {
+  // A NextRequest, as Next hands to route handlers (next-auth reads its nextUrl).
+  const req = new NextRequest("http://app.test/api/auth/callback/credentials", {
+    method: w.method,
+    headers: { host: "app.test", ...headers },
+    ...(w.method === "DELETE" ? {} : { body: body ?? "{}" }),
+  });
+  return w.handler(req, { params: Promise.resolve(params) });
+}
+
+beforeAll(async () => {
+  ids.job = await jobIdByReference("TR-2026-0052");
+  const [row] = (
+    await db.execute<{ dataset: string; analysis: string }>(
+      sql`select a.dataset_id as dataset, a.id as analysis from analyses a where a.job_id = ${ids.job} limit 1`,
+    )
+  ).rows;
+  ids.dataset = row!.dataset;
+  ids.analysis = row!.analysis;
+});
+
+describe("cross-origin writes are refused with 403", () => {
+  it("the list above is every route that exports POST, PUT, PATCH or DELETE", () => {
+    const walk = (d: string): string[] =>
+      readdirSync(d).flatMap((e) => {
+        const p = path.join(d, e);
+        return statSync(p).isDirectory() ? walk(p) : e === "route.ts" ? [p] : [];
+      });
+    const found = walk(path.join(ROOT, "app/api")).flatMap((f) => {
+      const src = readFileSync(f, "utf8");
+      return ["POST", "PUT", "PATCH", "DELETE"]
+        .filter((m) =>
+          new RegExp(`export (const|async function|function) ${m}\\b|export \\{[^}]*\\b${m}\\b`).test(src),
+        )
+        .map((m) => `${m} ${path.relative(ROOT, f)}`);
+    });
+    expect(found.sort()).toEqual(WRITES.map((w) => `${w.method} ${w.file}`).sort());
+  });
+
+  for (const w of WRITES) {
+    describe(w.name, () => {
+      for (const [label, headers] of [
+        ["another site's Origin", { origin: "http://evil.example" }],
+        ["another port of the same host", { origin: "http://app.test:8080" }],
+        ["a sandboxed page (Origin: null)", { origin: "null" }],
+        ["Sec-Fetch-Site: cross-site", { "sec-fetch-site": "cross-site" }],
+        ["Sec-Fetch-Site: same-site", { "sec-fetch-site": "same-site" }],
+      ] as const) {
+        it(`${label} → 403 forbidden`, async () => {
+          await signInAs("admin@halvard.example");
+          const res = await call(w, headers);
+          expect(res.status).toBe(403);
+          expect((await res.json()).error).toMatchObject({ code: "forbidden" });
+        });
+      }
+
+      it("the app's own origin gets past the check (whatever the handler then says, not that 403)", async () => {
+        await signInAs("admin@halvard.example");
+        // next-auth's own handler needs Next's request scope, absent here: reaching it (and throwing) is past the check.
+        const res = await call(w, { origin: "http://app.test", "sec-fetch-site": "same-origin" }).catch(
+          () => null,
+        );
+        if (!res) return expect(w.file).toContain("nextauth");
+        const body = res.headers.get("content-type")?.includes("json") ? await res.json() : {};
+        expect(body?.error?.message ?? "").not.toMatch(/another (site|origin)/);
+      });
+    });
+  }
+});
+
+describe("JSON routes take application/json only", () => {
+  it("POST …/readings with a JSON body sent as text/plain is 415 and records nothing", async () => {
+    await signInAs("installer@halvard.example");
+    const before = await db.execute<{ n: string }>(sql`select count(*)::text as n from readings`);
+    for (const type of [
+      "text/plain",
+      "application/x-www-form-urlencoded",
+      "multipart/form-data; boundary=x",
+      "",
+    ]) {
+      const res = await recordReading(
+        new Request(`http://app.test/api/jobs/${ids.job}/readings`, {
+          method: "POST",
+          headers: type ? { "content-type": type } : {},
+          body: JSON.stringify({ stepId: "x", value: 1 }),
+        }),
+        { params: Promise.resolve({ id: ids.job }) },
+      );
+      expect(res.status).toBe(415);
+      expect((await res.json()).error.code).toBe("unsupported_media_type");
+    }
+    const after = await db.execute<{ n: string }>(sql`select count(*)::text as n from readings`);
+    expect(after.rows[0]!.n).toBe(before.rows[0]!.n);
+  });
+});
