@@ -1,0 +1,41 @@
+"use client";
+
+import { useEffect } from "react";
+
+/**
+ * Registers the service worker (public/sw.js) and asks it to keep this job on the tablet: its
+ * checklist and comparison pages, its JSON and readings, and the scripts this page has loaded.
+ */
+export function KeepJobOffline({ jobId }: { jobId: string }) {
+  useEffect(() => {
+    if (!("serviceWorker" in navigator)) return;
+    let cancelled = false;
+    void (async () => {
+      try {
+        await navigator.serviceWorker.register("/sw.js", { scope: "/" });
+        const reg = await navigator.serviceWorker.ready;
+        if (cancelled || !reg.active) return;
+        const assets = performance
+          .getEntriesByType("resource")
+          .map((e) => e.name)
+          .filter((u) => u.startsWith(`${location.origin}/_next/static/`));
+        reg.active.postMessage({
+          type: "keep-job",
+          urls: [
+            `/jobs/${jobId}/checklist`,
+            `/jobs/${jobId}/compare`,
+            `/api/jobs/${jobId}`,
+            `/api/jobs/${jobId}/readings`,
+            ...assets,
+          ],
+        });
+      } catch {
+        // No service worker (private window, old browser): the queue in IndexedDB still keeps readings.
+      }
+    })();
+    return () => {
+      cancelled = true;
+    };
+  }, [jobId]);
+  return null;
+}
