@@ -170,9 +170,16 @@ export function EntryForm({
         </div>
         <div>
           <label htmlFor={id("taken")} className={labelCls}>
-            Taken at (this tablet&apos;s time)
+            Taken at (24-hour, this tablet&apos;s time)
           </label>
-          <input id={id("taken")} type="datetime-local" className={inputCls} {...register("takenAt")} />
+          <input
+            id={id("taken")}
+            inputMode="numeric"
+            autoComplete="off"
+            placeholder="YYYY-MM-DD HH:MM"
+            className={`${inputCls} num`}
+            {...register("takenAt")}
+          />
         </div>
         <div className="sm:col-span-2">
           <label htmlFor={id("note")} className={labelCls}>

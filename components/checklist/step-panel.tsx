@@ -33,10 +33,19 @@ export interface PanelStep extends StepRule {
   quantity: string;
 }
 
+/** This tablet's time now as "YYYY-MM-DD HH:MM" (24-hour), the one format the app writes times in. */
 function localNow(): string {
   const d = new Date();
   d.setMinutes(d.getMinutes() - d.getTimezoneOffset());
-  return d.toISOString().slice(0, 16);
+  return d.toISOString().slice(0, 16).replace("T", " ");
+}
+
+/** "YYYY-MM-DD HH:MM" in this tablet's zone → the instant, or null when it is not such a time. */
+function parseLocal(text: string): Date | null {
+  const t = text.trim();
+  if (!/^\d{4}-\d{2}-\d{2}[ T]\d{2}:\d{2}$/.test(t)) return null;
+  const d = new Date(t.replace(" ", "T"));
+  return Number.isNaN(d.getTime()) ? null : d;
 }
 
 const num = (s: string) => Number(String(s).trim().replace(",", "."));
@@ -94,7 +103,13 @@ export function StepPanel({
       takenAt: localNow(),
     },
   });
-  const [value, travel, instrumentId] = form.watch(["value", "travel", "instrumentId"]);
+  const [value, travel, instrumentId, takenAtText] = form.watch([
+    "value",
+    "travel",
+    "instrumentId",
+    "takenAt",
+  ]);
+  const takenAt = parseLocal(takenAtText);
   const instrument = choosable.find((i) => i.id === instrumentId);
 
   const problem = useMemo(() => {
@@ -121,7 +136,9 @@ export function StepPanel({
 
   const blocked = !instrument
     ? "Choose the instrument used."
-    : (problem ?? live?.error ?? (live ? null : "Enter the value read."));
+    : !takenAt
+      ? "Write the time taken as YYYY-MM-DD HH:MM (24-hour)."
+      : (problem ?? live?.error ?? (live ? null : "Enter the value read."));
 
   const onSubmit = form.handleSubmit(async (f) => {
     if (blocked || pending) return;
@@ -138,7 +155,7 @@ export function StepPanel({
       ...(isAngleFromReading ? { travel: f.travel, travelUnit } : {}),
       instrumentId: f.instrumentId,
       note: f.note,
-      takenAt: f.takenAt ? new Date(f.takenAt).toISOString() : new Date().toISOString(),
+      takenAt: (parseLocal(f.takenAt) ?? new Date()).toISOString(),
       clientId,
       deviceTime: new Date().toISOString(),
       ...(correcting?.kind === "stored" ? { supersedesId: correcting.id } : {}),

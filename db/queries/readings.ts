@@ -42,15 +42,18 @@ export type ReadingRow = Reading & {
   instrumentStdU: number | null;
 };
 
+/** A reading with its instrument's serial, kind and uncertainty and its recorder's name. */
+const readingWithNames = {
+  r: readings,
+  instrumentSerial: instruments.serial,
+  instrumentKind: instruments.kind,
+  instrumentStdU: instruments.standardUncertainty,
+  recordedByName: recorders.name,
+};
+
 async function jobReadings(jobId: string): Promise<ReadingRow[]> {
   const rows = await db
-    .select({
-      r: readings,
-      instrumentSerial: instruments.serial,
-      instrumentKind: instruments.kind,
-      instrumentStdU: instruments.standardUncertainty,
-      recordedByName: recorders.name,
-    })
+    .select(readingWithNames)
     .from(readings)
     .leftJoin(instruments, eq(instruments.id, readings.instrumentId))
     .leftJoin(recorders, eq(recorders.id, readings.recordedById))
@@ -151,14 +154,7 @@ async function storedByClientId(
 ): Promise<ReturnType<typeof readingJson> | null> {
   if (!input.clientId) return null;
   const rows = await q
-    .select({
-      r: readings,
-      instrumentSerial: instruments.serial,
-      instrumentKind: instruments.kind,
-      instrumentStdU: instruments.standardUncertainty,
-      recordedByName: recorders.name,
-      step: templateSteps,
-    })
+    .select({ ...readingWithNames, step: templateSteps })
     .from(readings)
     .innerJoin(templateSteps, eq(templateSteps.id, readings.stepId))
     .leftJoin(instruments, eq(instruments.id, readings.instrumentId))
