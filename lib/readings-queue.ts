@@ -9,6 +9,8 @@ import { classifyAnswer, NO_CONNECTION, type SendOutcome } from "@/lib/readings-
 export interface QueuedReading {
   clientId: string;
   jobId: string;
+  /** Who typed it: only their own sign-in ever sends it, so the server records the right person. */
+  userId: string;
   /** Order of entry on this device; the queue is sent in this order. */
   seq: number;
   /** The body of POST /api/jobs/{jobId}/readings, clientId and deviceTime included. */
@@ -35,10 +37,12 @@ function database() {
   return opened;
 }
 
-/** The job's queued readings in the order they were entered. */
-export async function listQueued(jobId: string): Promise<QueuedReading[]> {
+/** The job's readings queued by this user, in the order they were entered. */
+export async function listQueued(jobId: string, userId: string): Promise<QueuedReading[]> {
   const range = IDBKeyRange.bound([jobId, -Infinity], [jobId, Infinity]);
-  return (await database()).getAllFromIndex("readings", "byJob", range);
+  return (await (await database()).getAllFromIndex("readings", "byJob", range)).filter(
+    (i) => i.userId === userId,
+  );
 }
 
 export async function putQueued(item: QueuedReading): Promise<void> {

@@ -10,7 +10,7 @@ interface QueueApi {
   items: QueuedReading[];
   /** Keeps the reading on the device, then tries to send everything waiting, in order. */
   enqueue: (
-    item: Omit<QueuedReading, "seq" | "state" | "reason" | "attempts" | "nextAttemptAt">,
+    item: Omit<QueuedReading, "seq" | "state" | "reason" | "attempts" | "nextAttemptAt" | "userId">,
   ) => Promise<SendOutcome | null>;
   discard: (clientId: string) => Promise<void>;
   sendNow: () => Promise<void>;
@@ -31,7 +31,16 @@ export function useReadingQueue(): QueueApi {
  * the browser says the connection is back, and after a failed try with a growing wait. A reading
  * the server refuses stays in the queue with the reason until the installer edits or discards it.
  */
-export function ReadingQueueProvider({ jobId, children }: { jobId: string; children: React.ReactNode }) {
+export function ReadingQueueProvider({
+  jobId,
+  userId,
+  children,
+}: {
+  jobId: string;
+  /** The signed-in user: readings typed under another sign-in on this tablet are neither shown nor sent. */
+  userId: string;
+  children: React.ReactNode;
+}) {
   const router = useRouter();
   const [items, setItems] = useState<QueuedReading[]>([]);
   const [signedOut, setSignedOut] = useState(false);
@@ -39,14 +48,14 @@ export function ReadingQueueProvider({ jobId, children }: { jobId: string; child
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
   const flushRef = useRef<() => Promise<Map<string, SendOutcome>>>(async () => new Map());
 
-  const reload = useCallback(async () => setItems(await listQueued(jobId)), [jobId]);
+  const reload = useCallback(async () => setItems(await listQueued(jobId, userId)), [jobId, userId]);
 
   const flush = useCallback(async (): Promise<Map<string, SendOutcome>> => {
     while (running.current) await running.current;
     const run = (async () => {
       const outcomes = new Map<string, SendOutcome>();
       let sent = false;
-      for (const item of await listQueued(jobId)) {
+      for (const item of await listQueued(jobId, userId)) {
         if (item.state === "refused") continue;
         // In order: a reading waiting for its next try holds back the ones entered after it.
         if (item.nextAttemptAt > Date.now()) break;
@@ -66,7 +75,7 @@ export function ReadingQueueProvider({ jobId, children }: { jobId: string; child
         }
         setSignedOut(false);
       }
-      const left = await listQueued(jobId);
+      const left = await listQueued(jobId, userId);
       setItems(left);
       if (sent) router.refresh();
       const next = left.filter((i) => i.state === "waiting").map((i) => i.nextAttemptAt);
@@ -84,7 +93,7 @@ export function ReadingQueueProvider({ jobId, children }: { jobId: string; child
     } finally {
       if (running.current === run) running.current = null;
     }
-  }, [jobId, router]);
+  }, [jobId, userId, router]);
 
   useEffect(() => {
     flushRef.current = flush;
@@ -92,10 +101,10 @@ export function ReadingQueueProvider({ jobId, children }: { jobId: string; child
 
   /** Everything waiting becomes due now (the connection is back, or the user asked). */
   const sendNow = useCallback(async () => {
-    for (const i of await listQueued(jobId))
+    for (const i of await listQueued(jobId, userId))
       if (i.state === "waiting") await putQueued({ ...i, nextAttemptAt: 0 });
     await flush();
-  }, [jobId, flush]);
+  }, [jobId, userId, flush]);
 
   useEffect(() => {
     void reload().then(() => flush());
@@ -109,14 +118,22 @@ export function ReadingQueueProvider({ jobId, children }: { jobId: string; child
 
   const enqueue = useCallback<QueueApi["enqueue"]>(
     async (item) => {
-      const all = await listQueued(jobId);
+      const all = await listQueued(jobId, userId);
       const seq = Math.max(Date.now(), ...all.map((i) => i.seq + 1));
-      await putQueued({ ...item, seq, state: "waiting", reason: null, attempts: 0, nextAttemptAt: 0 });
+      await putQueued({
+        ...item,
+        userId,
+        seq,
+        state: "waiting",
+        reason: null,
+        attempts: 0,
+        nextAttemptAt: 0,
+      });
       await reload();
       const outcomes = await flush();
       return outcomes.get(item.clientId) ?? null;
     },
-    [jobId, reload, flush],
+    [jobId, userId, reload, flush],
   );
 
   const discard = useCallback(

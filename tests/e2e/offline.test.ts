@@ -35,9 +35,8 @@ async function openChecklist(): Promise<Page> {
   await expect.poll(() => p.getByRole("heading", { name: "Procedure checklist" }).isVisible()).toBe(true);
   // The service worker controls the page and has kept this job's checklist.
   await p.waitForFunction(() => navigator.serviceWorker.controller !== null, null, { timeout: 20_000 });
-  await p.waitForFunction(async () => Boolean(await caches.match(location.pathname)), null, {
-    timeout: 20_000,
-  });
+  await p.getByTestId("offline-ready").waitFor({ timeout: 30_000 });
+  expect(await p.evaluate(async () => Boolean(await caches.match(location.pathname)))).toBe(true);
   return p;
 }
 
@@ -109,7 +108,9 @@ describe("offline capture on the tablet", () => {
 
     // Reload with no connection: the page comes from the service worker, the readings from IndexedDB.
     await p.reload();
-    await expect.poll(() => p.getByRole("heading", { name: "Procedure checklist" }).isVisible()).toBe(true);
+    await expect
+      .poll(() => p.getByRole("heading", { name: "Procedure checklist" }).isVisible(), { timeout: 10_000 })
+      .toBe(true);
     await expect.poll(() => p.getByTestId("queue-count").innerText()).toBe("4");
     expect(await p.getByTestId("step-2").locator('tr[data-queued="waiting"]').count()).toBe(2);
     expect(await p.getByTestId("step-3").locator('tr[data-queued="waiting"]').count()).toBe(2);

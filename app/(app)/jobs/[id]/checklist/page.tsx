@@ -59,8 +59,7 @@ export default async function ChecklistPage({ params }: Props) {
     lines.find((l) => l.decision === "not_measured")?.position ?? lines[0]?.position ?? null;
 
   return (
-    <ReadingQueueProvider jobId={id}>
-      <KeepJobOffline jobId={id} />
+    <ReadingQueueProvider jobId={id} userId={user.id}>
       <StepAccordion first={canWrite ? nextToMeasure : null}>
         <div className="space-y-4">
           <div className="flex flex-wrap items-end justify-between gap-4">
@@ -96,6 +95,7 @@ export default async function ChecklistPage({ params }: Props) {
             </div>
           </div>
           {canWrite ? <QueueStatus /> : null}
+          <KeepJobOffline jobId={id} />
           {!canWrite ? (
             <p
               className="rounded-md border border-graphite-200 bg-white px-4 py-3 text-sm text-graphite-700"
