@@ -339,8 +339,15 @@ export const readings = pgTable(
       onDelete: "restrict",
     }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    /** The id the tablet gave the reading when it was typed: a repeated send finds it instead of storing twice. */
+    clientId: uuid("client_id"),
+    /** The device's clock when the reading was entered; orders readings of one step from several tablets. */
+    deviceTime: timestamp("device_time", { withTimezone: true }),
   },
-  (t) => [index("readings_job_idx").on(t.jobId, t.stepId, t.phase)],
+  (t) => [
+    index("readings_job_idx").on(t.jobId, t.stepId, t.phase),
+    uniqueIndex("readings_job_client_uq").on(t.jobId, t.clientId),
+  ],
 );
 export type Reading = typeof readings.$inferSelect;
 

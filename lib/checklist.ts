@@ -102,3 +102,38 @@ export function calibrationRefusal(
     return `Instrument ${instrument.serial} was due for calibration on ${instrument.calibrationDueOn}; recalibrate it or choose another instrument.`;
   return null;
 }
+
+/** Decimals an instrument resolves in a unit: 0.0001 in → 4; 0.001 mm shown in inch (0.0000394 in) → 5. */
+export function resolutionDecimals(resolutionInUnit: number): number {
+  if (!(resolutionInUnit > 0)) return Infinity;
+  return Math.max(0, Math.ceil(-Math.log10(resolutionInUnit) - 1e-9));
+}
+
+/**
+ * What is wrong with a value as it is being typed, or null: not a number, or more decimals than
+ * the instrument can read (a misplaced digit, most often). `decimals` comes from
+ * resolutionDecimals(); an empty field is not an error yet.
+ */
+export function entryProblem(text: string, decimals: number, serial?: string): string | null {
+  const t = text.trim().replace(",", ".");
+  if (t === "") return null;
+  if (!/^[+-]?(\d+\.?\d*|\.\d+)$/.test(t))
+    return "Not a number: use digits, a minus sign and one decimal point.";
+  const typed = t.includes(".") ? t.split(".")[1]!.length : 0;
+  if (typed > decimals)
+    return `More decimals than ${serial ?? "the instrument"} can read (at most ${decimals}); check the value.`;
+  return null;
+}
+
+/**
+ * A short title for a step's caution, from what the note is about, and whether it is shown in full
+ * every time (a suspended load or a running spindle) or compact (lock-out, jogging at low feed).
+ */
+export function cautionOf(note: string): { title: string; severe: boolean } {
+  const n = note.toLowerCase();
+  if (n.includes("lift")) return { title: "Lifting the head and pinch points", severe: true };
+  if (n.includes("spindle rotates")) return { title: "Cutting with the spindle running", severe: true };
+  if (n.includes("lock out")) return { title: "Lock out before working on the spindle", severe: false };
+  if (n.includes("axes move")) return { title: "Axes move while you indicate", severe: false };
+  return { title: "Caution", severe: true };
+}

@@ -1,19 +1,50 @@
-/** Display helpers shared by pages and the report: dates with their zone, job kinds. */
+/**
+ * Display helpers shared by pages, exports and the report: one date-time format everywhere —
+ * "2026-12-04 06:12 GMT+1", 24-hour, with the zone always shown — in the reader's zone on screen
+ * and in UTC in exports and the PDF.
+ */
 export const JOB_KIND_LABELS = {
   installation: "Installation",
   reverification: "Re-verification",
   after_crash: "Check after a crash",
 } as const;
 
+const toDate = (d: Date | string) => (typeof d === "string" ? new Date(d) : d);
+
 /** Date and time in UTC with the zone spelled out, so a printed value is never ambiguous. */
 export function formatDateTimeUtc(d: Date | string | null | undefined): string {
   if (!d) return "—";
-  const date = typeof d === "string" ? new Date(d) : d;
-  return `${date.toISOString().slice(0, 16).replace("T", " ")} UTC`;
+  return `${toDate(d).toISOString().slice(0, 16).replace("T", " ")} UTC`;
+}
+
+/**
+ * Date and time in the given IANA zone (the reader's), in the same shape as formatDateTimeUtc
+ * with the offset named: "2026-12-04 07:12 GMT+1". Falls back to UTC for an unknown zone.
+ */
+export function formatDateTime(d: Date | string | null | undefined, timeZone: string): string {
+  if (!d) return "—";
+  const date = toDate(d);
+  if (timeZone === "UTC" || timeZone === "Etc/UTC") return formatDateTimeUtc(date);
+  let parts: Intl.DateTimeFormatPart[];
+  try {
+    parts = new Intl.DateTimeFormat("en-GB", {
+      timeZone,
+      year: "numeric",
+      month: "2-digit",
+      day: "2-digit",
+      hour: "2-digit",
+      minute: "2-digit",
+      hourCycle: "h23",
+      timeZoneName: "shortOffset",
+    }).formatToParts(date);
+  } catch {
+    return formatDateTimeUtc(date);
+  }
+  const p = (t: Intl.DateTimeFormatPartTypes) => parts.find((x) => x.type === t)?.value ?? "";
+  return `${p("year")}-${p("month")}-${p("day")} ${p("hour")}:${p("minute")} ${p("timeZoneName")}`;
 }
 
 export function formatDate(d: Date | string | null | undefined): string {
   if (!d) return "—";
-  const date = typeof d === "string" ? new Date(d) : d;
-  return date.toISOString().slice(0, 10);
+  return toDate(d).toISOString().slice(0, 10);
 }

@@ -43,15 +43,18 @@ export type ReadingRow = Reading & {
   instrumentStdU: number | null;
 };
 
+/** A reading with its instrument's serial, kind and uncertainty and its recorder's name. */
+const readingWithNames = {
+  r: readings,
+  instrumentSerial: instruments.serial,
+  instrumentKind: instruments.kind,
+  instrumentStdU: instruments.standardUncertainty,
+  recordedByName: recorders.name,
+};
+
 async function jobReadings(jobId: string): Promise<ReadingRow[]> {
   const rows = await db
-    .select({
-      r: readings,
-      instrumentSerial: instruments.serial,
-      instrumentKind: instruments.kind,
-      instrumentStdU: instruments.standardUncertainty,
-      recordedByName: recorders.name,
-    })
+    .select(readingWithNames)
     .from(readings)
     .leftJoin(instruments, eq(instruments.id, readings.instrumentId))
     .leftJoin(recorders, eq(recorders.id, readings.recordedById))
@@ -128,6 +131,8 @@ function readingJson(r: ReadingRow, step: TemplateStep | undefined) {
     takenAt: r.takenAt,
     recordedBy: r.recordedByName,
     supersededById: r.supersededById,
+    clientId: r.clientId,
+    deviceTime: r.deviceTime,
   };
 }
 
@@ -142,14 +147,49 @@ export async function listReadingsJson(actor: Actor, jobId: string) {
   };
 }
 
+/** The stored reading a repeated send of `clientId` refers to, if this actor stored it. */
+async function storedByClientId(
+  q: Pick<typeof db, "select">,
+  actor: Actor,
+  jobId: string,
+  input: ReadingCreateInput,
+): Promise<ReturnType<typeof readingJson> | null> {
+  if (!input.clientId) return null;
+  const rows = await q
+    .select({ ...readingWithNames, step: templateSteps })
+    .from(readings)
+    .innerJoin(templateSteps, eq(templateSteps.id, readings.stepId))
+    .leftJoin(instruments, eq(instruments.id, readings.instrumentId))
+    .leftJoin(recorders, eq(recorders.id, readings.recordedById))
+    .where(and(eq(readings.jobId, jobId), eq(readings.clientId, input.clientId)));
+  const hit = rows[0];
+  if (!hit) return null;
+  if (hit.r.recordedById !== actor.id || hit.r.stepId !== input.stepId || hit.r.phase !== input.phase)
+    throw new AppError(
+      409,
+      "conflict",
+      "Another reading on this job already carries that clientId; make a new one on the device.",
+    );
+  const { r, step, ...names } = hit;
+  return readingJson({ ...r, ...names }, step);
+}
+
+/** The time that orders readings of one step and phase: the device's clock, else when it was stored. */
+const orderKey = (r: Pick<Reading, "deviceTime" | "createdAt">) => (r.deviceTime ?? r.createdAt).getTime();
+
 /**
  * Records a reading (or a correction that supersedes an earlier one). Checks, in order: the job
- * is visible (404), the actor may write now (403), the step is the job's, the instrument exists,
+ * is visible (404); a `clientId` already stored answers with that reading (`replay: true`, nothing
+ * written); the actor may write now (403), the step is the job's, the instrument exists,
  * measures the right kind of quantity and is in calibration on the day of the reading (422 with
  * the reason), then stores the canonical value with what was entered, and audits it.
+ * Several readings of one step and phase (two tablets, or a re-measurement) are all kept; the one
+ * with the latest device time is current and the others are marked superseded by it.
  */
 export async function recordReading(actor: Actor, jobId: string, input: ReadingCreateInput) {
   const d = await visibleJob(actor, jobId);
+  const replayed = await storedByClientId(db, actor, d.job.id, input);
+  if (replayed) return { ...replayed, replay: true };
   const refusal = readingsRefusal(actor, d.job);
   if (refusal) throw forbidden(refusal);
   const [step] = d.job.templateId
@@ -164,9 +204,14 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
     ]);
 
   const takenAt = input.takenAt ?? new Date();
+  const deviceTime = input.deviceTime ?? new Date();
   if (takenAt.getTime() > Date.now() + 5 * 60_000)
     throw invalid("A reading cannot be taken in the future.", [
       { field: "takenAt", message: "The time is in the future." },
+    ]);
+  if (deviceTime.getTime() > Date.now() + 5 * 60_000)
+    throw invalid("The device's clock is ahead of the server's; set the tablet's date and time.", [
+      { field: "deviceTime", message: "The device time is in the future." },
     ]);
   const [inst] = await db.select().from(instruments).where(eq(instruments.id, input.instrumentId));
   if (!inst)
@@ -191,20 +236,30 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
   }
 
   return db.transaction(async (tx) => {
-    // Lock the job row: a submit for review cannot slip between the check and the insert.
+    // Lock the job row: a submit for review cannot slip between the check and the insert, and
+    // two sends of one clientId are served one after the other.
     const [locked] = await tx
       .select({ status: jobs.status, assignedInstallerId: jobs.assignedInstallerId })
       .from(jobs)
       .where(eq(jobs.id, d.job.id))
       .for("update");
-    const again = locked ? readingsRefusal(actor, locked) : "gone";
-    if (again) throw forbidden(again);
+    const again = await storedByClientId(tx, actor, d.job.id, input);
+    if (again) return { ...again, replay: true };
+    const refused = locked ? readingsRefusal(actor, locked) : "gone";
+    if (refused) throw forbidden(refused);
     let old: Reading | undefined;
-    if (input.supersedesId) {
+    if (input.supersedesId || input.supersedesClientId) {
       [old] = await tx
         .select()
         .from(readings)
-        .where(and(eq(readings.id, input.supersedesId), eq(readings.jobId, d.job.id)))
+        .where(
+          and(
+            eq(readings.jobId, d.job.id),
+            input.supersedesId
+              ? eq(readings.id, input.supersedesId)
+              : eq(readings.clientId, input.supersedesClientId!),
+          ),
+        )
         .for("update");
       if (!old)
         throw invalid("The reading to correct is not on this job.", [
@@ -221,6 +276,26 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
           { field: "supersedesId", message: "Step or phase differs." },
         ]);
     }
+    // Other current readings of the same step and phase (another tablet, or a re-measurement):
+    // the latest by device time stays current.
+    const others = old
+      ? []
+      : await tx
+          .select()
+          .from(readings)
+          .where(
+            and(
+              eq(readings.jobId, d.job.id),
+              eq(readings.stepId, step.id),
+              eq(readings.phase, input.phase),
+              isNull(readings.supersededById),
+            ),
+          )
+          .for("update");
+    const later = others
+      .filter((o) => orderKey(o) > deviceTime.getTime())
+      .sort((a, b) => orderKey(b) - orderKey(a))[0];
+    const earlier = others.filter((o) => orderKey(o) <= deviceTime.getTime());
     const [row] = await tx
       .insert(readings)
       .values({
@@ -235,9 +310,22 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
         note: input.note ?? null,
         takenAt,
         recordedById: actor.id,
+        clientId: input.clientId ?? null,
+        deviceTime,
+        supersededById: later?.id ?? null,
       })
       .returning();
-    if (old) await tx.update(readings).set({ supersededById: row!.id }).where(eq(readings.id, old.id));
+    const replaced = old ? [old] : later ? [] : earlier;
+    if (replaced.length)
+      await tx
+        .update(readings)
+        .set({ supersededById: row!.id })
+        .where(
+          inArray(
+            readings.id,
+            replaced.map((r) => r.id),
+          ),
+        );
     if (locked!.status === "draft") {
       await tx.update(jobs).set({ status: "measuring" }).where(eq(jobs.id, d.job.id));
       await appendAudit(tx, {
@@ -272,9 +360,13 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
         enteredUnit: row!.enteredUnit,
         instrument: inst.serial,
         note: row!.note,
+        clientId: row!.clientId,
+        deviceTime: deviceTime.toISOString(),
+        ...(!old && replaced.length ? { supersedes: replaced.map((r) => r.id) } : {}),
+        ...(later ? { supersededBy: later.id } : {}),
       },
     });
-    return readingJson(
+    const reading = readingJson(
       {
         ...row!,
         instrumentSerial: inst.serial,
@@ -284,6 +376,7 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
       },
       step,
     );
+    return { ...reading, replay: false };
   });
 }
 

@@ -35,5 +35,20 @@ export const readingCreateSchema = z.object({
   ),
   /** A correction: the reading this one replaces (it is kept, marked superseded). */
   supersedesId: z.preprocess((v) => (v === "" ? undefined : v), z.uuid().optional()),
+  /**
+   * A correction made on the tablet of a reading that was itself still waiting to send: the
+   * replaced reading named by its clientId (the queue sends in order, so it is stored first).
+   */
+  supersedesClientId: z.preprocess((v) => (v === "" ? undefined : v), z.uuid().optional()),
+  /** The id the device made when the reading was typed; sending it again returns the stored reading. */
+  clientId: z.preprocess(
+    (v) => (v === "" ? undefined : v),
+    z.uuid({ message: "clientId must be a UUID made on the device." }).optional(),
+  ),
+  /** The device's clock when the reading was entered (orders readings of one step from several devices). */
+  deviceTime: z.preprocess(
+    (v) => (v === "" ? undefined : v),
+    z.coerce.date({ message: "deviceTime is not a date." }).optional(),
+  ),
 });
 export type ReadingCreateInput = z.infer<typeof readingCreateSchema>;

@@ -348,9 +348,11 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     await admin2.waitForURL("**/jobs");
     await admin2.goto(checklistUrl);
     await admin2.getByRole("button", { name: "Submit for review" }).click();
-    await expect
-      .poll(() => admin2.getByRole("button", { name: "Submit for review" }).count(), { timeout: 15_000 })
-      .toBe(0);
+    // A summary first (steps not measured, FAILs, readings waiting on this device), then submit.
+    await admin2.getByTestId("review-summary").waitFor();
+    await admin2.getByRole("button", { name: "Submit now" }).click();
+    await expect.poll(() => admin2.getByTestId("review-summary").count(), { timeout: 15_000 }).toBe(0);
+    expect(await admin2.getByRole("button", { name: "Submit for review" }).count()).toBe(0);
     await admin2.close();
 
     await ctx.clearCookies();

@@ -24,6 +24,14 @@ async function chooseInstrument(step: Locator, serial: string) {
   await select.selectOption({ label });
 }
 
+/** One step is open at a time: open this one (its header button) unless it already is. */
+async function openStep(p: Page, n: number): Promise<Locator> {
+  const step = p.getByTestId(`step-${n}`);
+  const header = step.getByRole("button", { name: new RegExp(`^Step ${n}`) });
+  if ((await header.getAttribute("aria-expanded")) !== "true") await header.click();
+  return step;
+}
+
 async function openChecklist(p: Page) {
   await signIn(p, "installer@halvard.example");
   await p.waitForURL("**/jobs");
@@ -37,7 +45,7 @@ describe("journey 4: readings before and after an adjustment, compared side by s
     await ctx.clearCookies();
     const p = await ctx.newPage();
     await openChecklist(p);
-    const step1 = p.getByTestId("step-1");
+    const step1 = await openStep(p, 1);
     // The limit is shown in the installer's inch units, with its source.
     expect(await step1.getByTestId("limits-1").innerText()).toBe("≤ 0.0005 in");
     expect(await step1.innerText()).toMatch(/Common practice/);
@@ -51,15 +59,27 @@ describe("journey 4: readings before and after an adjustment, compared side by s
     await value.fill("0.0003");
     await expect.poll(() => step1.getByTestId("live-1").innerText()).toMatch(/Pass/);
 
-    // An indicator past its calibration due date is refused by the server, with the reason.
-    await chooseInstrument(step1, "DTI-0417");
-    await step1.getByRole("button", { name: "Save reading" }).click();
-    await expect
-      .poll(() => step1.getByRole("alert").first().innerText())
-      .toMatch(/DTI-0417 was due for calibration on 2026-09-30/);
+    // An indicator past its calibration due date is listed with its due date but cannot be chosen
+    // (the server refuses it too: tests/integration/readings-sync.test.ts).
+    const expired = step1.getByLabel("Instrument").locator("option", { hasText: "DTI-0417" });
+    expect(await expired.isDisabled()).toBe(true);
+    expect(await expired.textContent()).toMatch(/past due since 2026-09-30/);
     await p.screenshot({ path: screenshotPath("checklist-expired-instrument") });
 
+    // Checked as you type: not a number, or finer than the instrument reads; Save waits.
     await chooseInstrument(step1, "DTI-0112");
+    const save = step1.getByRole("button", { name: "Save reading" });
+    await value.fill("abc");
+    await expect.poll(() => step1.getByTestId("problem-1").innerText()).toMatch(/Not a number/);
+    expect(await save.isDisabled()).toBe(true);
+    await value.fill("0.00031");
+    await expect
+      .poll(() => step1.getByTestId("problem-1").innerText())
+      .toMatch(/More decimals than DTI-0112/);
+    expect(await save.isDisabled()).toBe(true);
+    await value.fill("0.0003");
+    await expect.poll(() => step1.getByTestId("problem-1").innerText()).toBe("");
+
     await step1.getByLabel(/^Note/).fill("after a 0.0004 in shim at 4 o'clock");
     await step1.getByRole("button", { name: "Save reading" }).click();
     await expect.poll(() => step1.getByRole("status").innerText()).toMatch(/Reading saved: pass/);
@@ -68,9 +88,10 @@ describe("journey 4: readings before and after an adjustment, compared side by s
       .toBeGreaterThan(0);
 
     // Step 4 before and after setting the secondary zero; the post reading is first mistyped, then corrected.
-    const step4 = p.getByTestId("step-4");
+    const step4 = await openStep(p, 4);
     const v4 = step4.getByLabel(/Secondary axis: indicator difference across the head \(in\)/);
     await step4.getByLabel("After adjustment").check();
+    await chooseInstrument(step4, "DTI-0112");
     await v4.fill("0.0010");
     await step4.getByRole("button", { name: "Save reading" }).click();
     await expect.poll(() => step4.getByRole("status").innerText()).toMatch(/Reading saved: fail/);

@@ -156,7 +156,15 @@ export default async function ComparePage({ params }: Props) {
                   {r.change != null ? fmt(r.change, r.quantityKind, true) : "—"}
                 </td>
                 <td className="num px-4 py-3 text-right align-top">
-                  {formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, unitSystem)}
+                  {/* A value never parts from its unit: a range may break only at "to". */}
+                  {formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, unitSystem)
+                    .split(" to ")
+                    .map((part, i) => (
+                      <span key={i} className="whitespace-nowrap">
+                        {i > 0 ? " to " : ""}
+                        {part}
+                      </span>
+                    ))}
                 </td>
                 <td className="px-4 py-3 align-top" data-testid={`compare-status-${r.position}`}>
                   <DecisionBadge decision={r.status} />

@@ -12,11 +12,14 @@ export const GET = route<Ctx>(async (_req, ctx) => {
   return Response.json(await listReadingsJson(actor, id));
 });
 
-/** Records a reading, or a correction when `supersedesId` is given (the old reading is kept). */
+/**
+ * Records a reading, or a correction when `supersedesId` is given (the old reading is kept).
+ * 201 with the new reading; 200 with the stored one when its `clientId` was already sent.
+ */
 export const POST = route<Ctx>(async (req, ctx) => {
   const { id } = await ctx.params;
   const actor = await requireUser();
   const input = readingCreateSchema.parse(await readJson(req));
-  const reading = await recordReading(actor, id, input);
-  return Response.json({ reading }, { status: 201 });
+  const { replay, ...reading } = await recordReading(actor, id, input);
+  return Response.json({ reading }, { status: replay ? 200 : 201 });
 });

@@ -1,0 +1,243 @@
+"use client";
+
+import type { UseFormReturn } from "react-hook-form";
+import { DecisionBadge } from "@/components/readings/decision-badge";
+import { PHASE_LABELS, type CorrectionTarget } from "@/components/checklist/readings-table";
+import type { StepDecision } from "@/lib/checklist";
+import { arcsecToUmPerM, formatValue, UNIT_SYMBOL, type EntryUnit, type UnitSystem } from "@/lib/units";
+import type { PanelStep } from "@/components/checklist/step-panel";
+
+export interface PanelInstrument {
+  id: string;
+  kind: string;
+  serial: string;
+  quantityKind: "length" | "angle";
+  calibrationDueOn: string;
+  standardUncertainty: number;
+  /** Smallest step the instrument reads, canonical (mm or arcsec). */
+  resolution: number;
+}
+
+export interface EntryValues {
+  phase: "pre" | "post";
+  value: string;
+  travel: string;
+  instrumentId: string;
+  note: string;
+  takenAt: string;
+}
+
+const inputCls =
+  "min-h-touch w-full rounded-md border border-graphite-300 bg-white px-3 text-base focus:border-accent-500 focus:outline-none focus:ring-2 focus:ring-accent-500/40";
+const labelCls = "mb-1 block text-sm font-medium text-graphite-700";
+
+/** The entry form of one step: phase, value with its checks as you type, instrument, time, note. */
+export function EntryForm({
+  form,
+  onSubmit,
+  step,
+  entryUnit,
+  travelUnit,
+  instruments,
+  today,
+  correcting,
+  onCancelCorrection,
+  problem,
+  live,
+  blocked,
+  pending,
+  refusal,
+  saved,
+  unitSystem,
+}: {
+  form: UseFormReturn<EntryValues>;
+  onSubmit: (e?: React.BaseSyntheticEvent) => Promise<void>;
+  step: PanelStep;
+  entryUnit: EntryUnit;
+  travelUnit: "in" | "mm";
+  instruments: PanelInstrument[];
+  today: string;
+  correcting: CorrectionTarget | null;
+  onCancelCorrection: () => void;
+  problem: string | null;
+  live: { value: number; decision: StepDecision; error: string | null } | null;
+  blocked: string | null;
+  pending: boolean;
+  refusal: string | null;
+  saved: string | null;
+  unitSystem: UnitSystem;
+}) {
+  const { register, watch } = form;
+  const [phase, value] = watch(["phase", "value"]);
+  const isAngleFromReading = step.derivation === "angle_over_distance";
+  const id = (what: string) => `${what}-${step.id}`;
+  return (
+    <form
+      onSubmit={onSubmit}
+      className="space-y-4 rounded-card border border-graphite-200 bg-graphite-50 p-4"
+      aria-label={`Record a reading for step ${step.position}`}
+      noValidate
+    >
+      {correcting ? (
+        <div className="flex flex-wrap items-center justify-between gap-2 rounded-md border border-accent-300 bg-accent-50 px-3 py-2 text-sm">
+          <span>
+            Correcting the {PHASE_LABELS[correcting.phase].toLowerCase()} reading of{" "}
+            <span className="num">{correcting.shown}</span>. The old reading is kept and marked as replaced.
+          </span>
+          <button
+            type="button"
+            className="min-h-touch rounded-md px-3 font-medium text-graphite-700 underline"
+            onClick={onCancelCorrection}
+          >
+            Cancel correction
+          </button>
+        </div>
+      ) : (
+        <fieldset>
+          <legend className="mb-2 text-sm font-medium text-graphite-700">Phase</legend>
+          <div className="grid grid-cols-2 gap-2">
+            {(["pre", "post"] as const).map((p) => (
+              <label
+                key={p}
+                className={`flex min-h-touch cursor-pointer items-center justify-center gap-2 rounded-md border-2 px-3 text-base font-medium ${phase === p ? "border-accent-600 bg-white text-graphite-900" : "border-graphite-200 bg-white text-graphite-600"}`}
+              >
+                <input type="radio" value={p} {...register("phase")} className="h-5 w-5 accent-accent-600" />
+                {PHASE_LABELS[p]}
+              </label>
+            ))}
+          </div>
+        </fieldset>
+      )}
+      <div className="grid gap-4 sm:grid-cols-2">
+        <div>
+          <label htmlFor={id("value")} className={labelCls}>
+            {isAngleFromReading ? "Change in reading over the travel" : step.quantity} (
+            {UNIT_SYMBOL[entryUnit]})
+          </label>
+          <div className="flex items-center gap-2">
+            <input
+              id={id("value")}
+              inputMode="decimal"
+              autoComplete="off"
+              className={`${inputCls} num text-right text-lg`}
+              aria-invalid={Boolean(problem)}
+              aria-describedby={`${id("problem")} ${id("live")}`}
+              {...register("value")}
+            />
+            <span className="num w-10 text-graphite-600">{UNIT_SYMBOL[entryUnit]}</span>
+          </div>
+          <p
+            id={id("problem")}
+            className="mt-1 text-sm text-fail-700"
+            data-testid={`problem-${step.position}`}
+          >
+            {problem ?? ""}
+          </p>
+        </div>
+        {isAngleFromReading ? (
+          <div>
+            <label htmlFor={id("travel")} className={labelCls}>
+              Z travel ({travelUnit})
+            </label>
+            <div className="flex items-center gap-2">
+              <input
+                id={id("travel")}
+                inputMode="decimal"
+                autoComplete="off"
+                className={`${inputCls} num text-right text-lg`}
+                {...register("travel")}
+              />
+              <span className="num w-10 text-graphite-600">{travelUnit}</span>
+            </div>
+          </div>
+        ) : null}
+        <div>
+          <label htmlFor={id("instrument")} className={labelCls}>
+            Instrument
+          </label>
+          <select id={id("instrument")} className={inputCls} {...register("instrumentId")}>
+            <option value="">Choose from the register…</option>
+            {instruments.map((i) => {
+              const pastDue = i.calibrationDueOn < today;
+              return (
+                <option key={i.id} value={i.id} disabled={pastDue}>
+                  {i.serial} · {i.kind} ·{" "}
+                  {pastDue ? `calibration past due since ${i.calibrationDueOn}` : `due ${i.calibrationDueOn}`}
+                </option>
+              );
+            })}
+          </select>
+        </div>
+        <div>
+          <label htmlFor={id("taken")} className={labelCls}>
+            Taken at (24-hour, this tablet&apos;s time)
+          </label>
+          <input
+            id={id("taken")}
+            inputMode="numeric"
+            autoComplete="off"
+            placeholder="YYYY-MM-DD HH:MM"
+            className={`${inputCls} num`}
+            {...register("takenAt")}
+          />
+        </div>
+        <div className="sm:col-span-2">
+          <label htmlFor={id("note")} className={labelCls}>
+            Note {correcting ? "(say why it is corrected)" : "(optional)"}
+          </label>
+          <input id={id("note")} className={inputCls} maxLength={2000} {...register("note")} />
+        </div>
+      </div>
+      <div className="flex flex-wrap items-center gap-4">
+        <div
+          id={id("live")}
+          aria-live="polite"
+          className="flex min-h-touch flex-1 flex-wrap items-center gap-3"
+          data-testid={`live-${step.position}`}
+        >
+          {live?.error ? (
+            <span className="text-sm text-fail-700">{live.error}</span>
+          ) : live ? (
+            <>
+              <DecisionBadge decision={live.decision} size="lg" />
+              {isAngleFromReading ? (
+                <span className="num text-graphite-700">
+                  = {formatValue(live.value, "angle", unitSystem)} ({arcsecToUmPerM(live.value).toFixed(1)}{" "}
+                  µm/m)
+                </span>
+              ) : null}
+              {blocked ? <span className="text-sm text-graphite-600">{blocked}</span> : null}
+            </>
+          ) : (
+            <span className="text-sm text-graphite-500">
+              {String(value).trim() && blocked
+                ? blocked
+                : "Enter a value to see pass or fail against the limits."}
+            </span>
+          )}
+        </div>
+        <button
+          type="submit"
+          disabled={pending || Boolean(blocked)}
+          title={blocked ?? undefined}
+          className="min-h-touch min-w-touch rounded-md bg-accent-600 px-6 text-base font-semibold text-white shadow-sm hover:bg-accent-700 disabled:cursor-not-allowed disabled:bg-graphite-400"
+        >
+          {pending ? "Saving…" : correcting ? "Save correction" : "Save reading"}
+        </button>
+      </div>
+      {refusal ? (
+        <p
+          role="alert"
+          className="rounded-md border border-fail-600/40 bg-fail-50 px-3 py-2 text-sm text-fail-700"
+        >
+          Not saved: {refusal} Your value is still in the form.
+        </p>
+      ) : null}
+      {saved ? (
+        <p role="status" className="text-sm font-medium text-pass-700">
+          {saved}
+        </p>
+      ) : null}
+    </form>
+  );
+}

@@ -1,0 +1,84 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useState, useTransition } from "react";
+import { changeStatusAction } from "@/app/(app)/jobs/[id]/checklist/actions";
+import { useReadingQueue } from "@/components/readings/queue-provider";
+
+const list = (xs: number[]) => xs.map((x) => `step ${x}`).join(", ");
+
+/**
+ * "Submit for review" in two taps: the first shows what the reviewer will find (steps not
+ * measured, FAILs, readings still on this tablet); the second submits, and is refused while any
+ * reading still waits to send.
+ */
+export function SubmitForReview({
+  jobId,
+  unmeasured,
+  fails,
+}: {
+  jobId: string;
+  unmeasured: number[];
+  fails: number[];
+}) {
+  const router = useRouter();
+  const { items } = useReadingQueue();
+  const [open, setOpen] = useState(false);
+  const [pending, start] = useTransition();
+  const [error, setError] = useState<string | null>(null);
+  const onTablet = items.length;
+  const btn = "min-h-touch rounded-md px-5 text-base font-semibold disabled:opacity-60";
+  if (!open)
+    return (
+      <button type="button" onClick={() => setOpen(true)} className={`${btn} bg-graphite-900 text-white`}>
+        Submit for review
+      </button>
+    );
+  return (
+    <section
+      aria-label="Before you submit for review"
+      className="w-full space-y-2 rounded-card border border-graphite-300 bg-white p-4 text-sm"
+      data-testid="review-summary"
+    >
+      <h3 className="text-base font-semibold">Before you submit for review</h3>
+      <ul className="list-disc space-y-1 pl-5">
+        <li>{unmeasured.length ? `Not measured: ${list(unmeasured)}.` : "Every step is measured."}</li>
+        <li>{fails.length ? `FAIL: ${list(fails)}.` : "No step fails."}</li>
+        <li className={onTablet ? "font-semibold text-fail-700" : ""}>
+          {onTablet
+            ? `${onTablet} ${onTablet === 1 ? "reading is" : "readings are"} still on this tablet (waiting to send or refused): send, correct or discard them first.`
+            : "No reading is waiting on this tablet."}
+        </li>
+      </ul>
+      <div className="flex flex-wrap gap-2 pt-1">
+        <button
+          type="button"
+          disabled={pending || onTablet > 0}
+          onClick={() =>
+            start(async () => {
+              setError(null);
+              const res = await changeStatusAction({ jobId, to: "in_review" });
+              if (!res.ok) setError(res.message);
+              else router.refresh();
+            })
+          }
+          className={`${btn} bg-graphite-900 text-white`}
+        >
+          Submit now
+        </button>
+        <button
+          type="button"
+          onClick={() => setOpen(false)}
+          className={`${btn} border border-graphite-300 bg-white text-graphite-800`}
+        >
+          Not yet
+        </button>
+      </div>
+      {error ? (
+        <p role="alert" className="text-fail-700">
+          {error}
+        </p>
+      ) : null}
+    </section>
+  );
+}
