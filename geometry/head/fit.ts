@@ -28,7 +28,11 @@ import {
   type ParameterSelection,
 } from "./identifiability";
 import { NP } from "./kernel";
-import { headNormalEquations, nominalTips } from "./normal";
+import { headNormalEquations, poseTrig } from "./normal";
+
+const ALL = HEAD_PARAMETER_KEYS.map((_, j) => j);
+/** At most this many outliers are listed (the worst); all are counted. */
+export const MAX_LISTED_OUTLIERS = 50;
 
 export interface HeadFitOptions extends ParameterSelection {
   /** Maximum LM iterations (default 50). */
@@ -75,8 +79,10 @@ export interface HeadFitResult {
   readonly degrees_of_freedom: number;
   /** Residual vectors per pose, µm, interleaved x, y, z (3·rows). */
   readonly residuals_um: Float64Array;
-  /** Poses with a residual component beyond 3 s. */
+  /** The worst (at most MAX_LISTED_OUTLIERS) poses with a residual component beyond 3 s, worst first. */
   readonly outliers: readonly HeadFitOutlier[];
+  /** How many poses have a residual component beyond 3 s (all of them, listed or not). */
+  readonly outlier_count: number;
   readonly iterations: number;
   readonly warnings: readonly string[];
   /** Covariance of the free unknowns [c (µm), free parameters], row-major, and their keys. */
@@ -84,6 +90,53 @@ export interface HeadFitResult {
 }
 
 const rowOf = (data: SphereProbeData, i: number) => (data.sourceRow ? data.sourceRow[i]! : i + 2);
+
+/**
+ * For each row, the first row with the same pose (primary, secondary, tool, repeat; exact values,
+ * −0 = 0): an open-addressing hash table on typed arrays, no string or object per row.
+ */
+function firstEqualPose(
+  n: number,
+  P: Float64Array,
+  S: Float64Array,
+  T: Float64Array | undefined,
+  R: Float64Array | undefined,
+): Int32Array {
+  let size = 16;
+  while (size < 2 * n) size *= 2;
+  const mask = size - 1;
+  const table = new Int32Array(size).fill(-1);
+  const out = new Int32Array(n);
+  const f = new Float64Array(1);
+  const w = new Uint32Array(f.buffer);
+  const mix = (h: number, x: number) => {
+    f[0] = x + 0; // −0 → 0
+    h = Math.imul(h ^ w[0]!, 0x9e3779b1);
+    h = Math.imul(h ^ w[1]!, 0x85ebca6b);
+    return h ^ (h >>> 15);
+  };
+  for (let i = 0; i < n; i++) {
+    const p = P[i]!;
+    const s = S[i]!;
+    const t = T ? T[i]! : 0;
+    const r = R ? R[i]! : 0;
+    let k = mix(mix(mix(mix(0x12345, p), s), t), r) & mask;
+    for (;;) {
+      const j = table[k]!;
+      if (j === -1) {
+        table[k] = i;
+        out[i] = i;
+        break;
+      }
+      if (P[j] === p && S[j] === s && (T ? T[j] : 0) === t && (R ? R[j] : 0) === r) {
+        out[i] = j;
+        break;
+      }
+      k = (k + 1) & mask;
+    }
+  }
+  return out;
+}
 
 /** Non-finite inputs and duplicate poses, as GeometryErrors naming the rows. */
 function validate(data: SphereProbeData): void {
@@ -117,18 +170,19 @@ function validate(data: SphereProbeData): void {
       bad,
     );
   }
-  const seen = new Map<string, number>();
+  const P = data.primaryDeg;
+  const Sd = data.secondaryDeg;
+  const T = data.toolMm;
+  const R = data.repeat;
   const dup: GeometryIssue[] = [];
-  for (let i = 0; i < n; i++) {
-    const key = `${data.primaryDeg[i]}|${data.secondaryDeg[i]}|${data.toolMm ? data.toolMm[i] : 0}|${data.repeat ? data.repeat[i] : ""}`;
-    const first = seen.get(key);
-    if (first === undefined) seen.set(key, i);
-    else if (dup.length < 50) {
-      dup.push({
-        row: rowOf(data, i),
-        message: `row ${rowOf(data, i)} repeats the pose of row ${rowOf(data, first)} (primary ${data.primaryDeg[i]}°, secondary ${data.secondaryDeg[i]}°, tool ${data.toolMm ? data.toolMm[i] : 0} mm${data.repeat ? `, repeat ${data.repeat[i]}` : ""}); give repeated poses a distinct repeat index or remove one`,
-      });
-    }
+  const firstOf = firstEqualPose(n, P, Sd, T, R);
+  for (let i = 0; i < n && dup.length < 50; i++) {
+    const first = firstOf[i]!;
+    if (first === i) continue;
+    dup.push({
+      row: rowOf(data, i),
+      message: `row ${rowOf(data, i)} repeats the pose of row ${rowOf(data, first)} (primary ${P[i]}°, secondary ${Sd[i]}°, tool ${T ? T[i] : 0} mm${R ? `, repeat ${R[i]}` : ""}); give repeated poses a distinct repeat index or remove one`,
+    });
   }
   if (dup.length > 0) {
     throw new GeometryError(
@@ -156,25 +210,21 @@ export function fitHead(
   const axes = headAxes(config);
   const symbols = headParameterSymbols(config);
   const n = data.rows;
-  const start = initialFreeSet(options);
-  if (n < 3 + start.length) {
+  const startFree = initialFreeSet(options);
+  if (n < 3 + startFree.length) {
     throw new GeometryError(
       "too_few_rows",
-      `${n} pose${n === 1 ? "" : "s"} for ${3 + start.length} unknowns (the sphere centre and ${start.length} parameters): probe at least ${3 + start.length} poses, and many more for a useful uncertainty`,
+      `${n} pose${n === 1 ? "" : "s"} for ${3 + startFree.length} unknowns (the sphere centre and ${startFree.length} parameters): probe at least ${3 + startFree.length} poses, and many more for a useful uncertainty`,
     );
   }
   validate(data);
-  const poses = {
+  const posesPlain = {
     rows: n,
     primaryDeg: data.primaryDeg,
     secondaryDeg: data.secondaryDeg,
     ...(data.toolMm ? { toolMm: data.toolMm } : {}),
   };
-  const ident = analyseHeadIdentifiability(config, poses, options);
-  const free = ident.freeIndices;
-  const np = 3 + free.length;
-  const dof = 3 * n - np;
-  if (dof <= 0) throw new GeometryError("too_few_rows", `${n} poses leave no redundancy for ${np} unknowns`);
+  const poses = { ...posesPlain, trig: poseTrig(posesPlain) };
 
   // Start c₀ = mean measured centre; measurements centred on it, in µm.
   let cx = 0;
@@ -192,17 +242,97 @@ export function fitHead(
     meas[3 * i + 1] = 1000 * (data.yMm[i]! - c0[1]);
     meas[3 * i + 2] = 1000 * (data.zMm[i]! - c0[2]);
   }
-  const tip0 = nominalTips(axes, poses);
+
+  // First pass, at zero error over [c, all ten parameters]: the nominal tips tip₀, JᵀJ for the
+  // identifiability analysis, and the normal equations of the start θ = 0 (r = meas there).
+  const N = 3 + NP;
+  const fullJtj = new Float64Array(N * N);
+  const fullJtr = new Float64Array(N);
+  const tip0 = new Float64Array(3 * n);
+  const bufA = new Float64Array(3 * n);
+  const S0 = headNormalEquations(
+    axes,
+    poses,
+    null,
+    meas,
+    ALL,
+    new Float64Array(NP),
+    new Float64Array(N),
+    fullJtj,
+    fullJtr,
+    bufA,
+    tip0,
+  );
+  const ident = analyseHeadIdentifiability(config, posesPlain, options, fullJtj);
+  const free = ident.freeIndices;
+  if (free.length === 0)
+    throw new GeometryError(
+      "degenerate",
+      "no error parameter can be determined from these poses; probe over the full primary turn, the secondary over a wide range (e.g. −90° to +90°) and two tool lengths",
+    );
+  const np = 3 + free.length;
+  const dof = 3 * n - np;
+  if (dof <= 0) throw new GeometryError("too_few_rows", `${n} poses leave no redundancy for ${np} unknowns`);
+
+  // The solver asks for S at a trial point and, when it accepts it, for the normal equations there;
+  // each pass computes both (and the residuals), so an accepted step costs one pass, not two.
   const params10 = new Float64Array(NP);
+  interface Evaluation {
+    theta: Float64Array;
+    S: number;
+    jtj: Float64Array;
+    jtr: Float64Array;
+    residuals: Float64Array;
+  }
+  const idx = [0, 1, 2, ...free.map((j) => 3 + j)];
+  const start: Evaluation = {
+    theta: new Float64Array(np),
+    S: S0,
+    jtj: Float64Array.from(
+      { length: np * np },
+      (_, k) => fullJtj[idx[Math.floor(k / np)]! * N + idx[k % np]!]!,
+    ),
+    jtr: Float64Array.from(idx, (a) => fullJtr[a]!),
+    residuals: bufA,
+  };
+  let current = start;
+  let trial: Evaluation | null = null;
+  let spare: Float64Array = new Float64Array(3 * n);
+  const same = (a: Float64Array, b: Float64Array) => a.every((v, k) => v === b[k]);
+  const evaluate = (theta: Float64Array): Evaluation => {
+    const e: Evaluation = {
+      theta: Float64Array.from(theta),
+      S: 0,
+      jtj: new Float64Array(np * np),
+      jtr: new Float64Array(np),
+      residuals: spare,
+    };
+    e.S = headNormalEquations(axes, poses, tip0, meas, free, params10, theta, e.jtj, e.jtr, spare);
+    return e;
+  };
   const lm = levenbergMarquardt(
     {
       parameters: np,
-      normalEquations: (theta, jtj, jtr) =>
-        headNormalEquations(axes, poses, tip0, meas, free, params10, theta, jtj, jtr),
-      sumOfSquares: (theta) =>
-        headNormalEquations(axes, poses, tip0, meas, free, params10, theta, null, null),
+      normalEquations: (theta, jtj, jtr) => {
+        let e: Evaluation;
+        if (same(current.theta, theta)) e = current;
+        else if (trial !== null && same(trial.theta, theta)) e = trial;
+        else e = evaluate(theta);
+        if (e !== current) {
+          spare = current.residuals;
+          current = e;
+          trial = null;
+        }
+        jtj.set(e.jtj);
+        jtr.set(e.jtr);
+        return e.S;
+      },
+      sumOfSquares: (theta) => {
+        trial = evaluate(theta);
+        return trial.S;
+      },
     },
-    new Float64Array(np),
+    start.theta,
     {
       maxIterations: options.maxIterations ?? 50,
       stepTolerance: options.stepTolerance,
@@ -215,8 +345,9 @@ export function fitHead(
       `the fit did not converge in ${lm.iterations} iterations; check the head configuration (axis letters, pivot length, tool direction) against the data`,
     );
   }
-  const residuals = new Float64Array(3 * n);
-  const S = headNormalEquations(axes, poses, tip0, meas, free, params10, lm.theta, null, null, residuals);
+  const final = same(current.theta, lm.theta) ? current : evaluate(lm.theta);
+  const residuals = final.residuals;
+  const S = final.S;
   const s2 = S / dof;
   const s = Math.sqrt(s2);
   const cov = covarianceFromNormal(lm.jtj, np, s2);
@@ -251,7 +382,26 @@ export function fitHead(
 
   let sumSq = 0;
   let max = 0;
-  const outliers: HeadFitOutlier[] = [];
+  // Outliers: all counted, the worst MAX_LISTED_OUTLIERS kept (a min-heap on the normalised size),
+  // so 10^6 poses with Gaussian noise (about 8 000 beyond 3 s by chance) list 50, not 8 000.
+  let outlierCount = 0;
+  const heap: number[] = []; // pose indices, heap-ordered by worstOf
+  const worstOf = (i: number) =>
+    Math.max(Math.abs(residuals[3 * i]!), Math.abs(residuals[3 * i + 1]!), Math.abs(residuals[3 * i + 2]!)) /
+    s;
+  const worse = (a: number, b: number) => worstOf(a) < worstOf(b) || (worstOf(a) === worstOf(b) && a > b);
+  const siftDown = (k: number) => {
+    for (;;) {
+      const l = 2 * k + 1;
+      const r = l + 1;
+      let m = k;
+      if (l < heap.length && worse(heap[l]!, heap[m]!)) m = l;
+      if (r < heap.length && worse(heap[r]!, heap[m]!)) m = r;
+      if (m === k) return;
+      [heap[k], heap[m]] = [heap[m]!, heap[k]!];
+      k = m;
+    }
+  };
   for (let i = 0; i < n; i++) {
     const r0 = residuals[3 * i]!;
     const r1 = residuals[3 * i + 1]!;
@@ -259,13 +409,34 @@ export function fitHead(
     const len2 = r0 * r0 + r1 * r1 + r2 * r2;
     sumSq += len2;
     max = Math.max(max, Math.sqrt(len2));
-    const worst = Math.max(Math.abs(r0), Math.abs(r1), Math.abs(r2)) / s;
-    if (worst > 3) outliers.push({ row: rowOf(data, i), residual_um: [r0, r1, r2], normalised: worst });
+    if (Math.max(Math.abs(r0), Math.abs(r1), Math.abs(r2)) / s > 3) {
+      outlierCount++;
+      if (heap.length < MAX_LISTED_OUTLIERS) {
+        heap.push(i);
+        for (let k = heap.length - 1; k > 0;) {
+          const parent = (k - 1) >> 1;
+          if (!worse(heap[k]!, heap[parent]!)) break;
+          [heap[k], heap[parent]] = [heap[parent]!, heap[k]!];
+          k = parent;
+        }
+      } else if (worse(heap[0]!, i)) {
+        heap[0] = i;
+        siftDown(0);
+      }
+    }
   }
+  const outliers: HeadFitOutlier[] = heap
+    .sort((a, b) => worstOf(b) - worstOf(a) || a - b)
+    .map((i) => ({
+      row: rowOf(data, i),
+      residual_um: [residuals[3 * i]!, residuals[3 * i + 1]!, residuals[3 * i + 2]!],
+      normalised: worstOf(i),
+    }));
   const warnings = [...ident.warnings];
-  if (outliers.length > 0) {
+  if (outlierCount > 0) {
+    const rows = outliers.map((o) => o.row).sort((a, b) => a - b);
     warnings.push(
-      `${outliers.length} pose${outliers.length > 1 ? "s have" : " has"} a residual beyond 3 s (s = ${s.toPrecision(3)} µm)${outliers.length <= 5 ? `: row${outliers.length > 1 ? "s" : ""} ${outliers.map((o) => o.row).join(", ")}` : ""}; with Gaussian noise about 0.8 % of poses exceed it by chance`,
+      `${outlierCount} pose${outlierCount > 1 ? "s have" : " has"} a residual beyond 3 s (s = ${s.toPrecision(3)} µm)${outlierCount <= 5 ? `: row${outlierCount > 1 ? "s" : ""} ${rows.join(", ")}` : outlierCount > MAX_LISTED_OUTLIERS ? `; the worst ${MAX_LISTED_OUTLIERS} are listed` : ""}; with Gaussian noise about 0.8 % of poses exceed it by chance`,
     );
   }
   const covKeys = ["centre_x_um", "centre_y_um", "centre_z_um", ...free.map((j) => HEAD_PARAMETER_KEYS[j]!)];
@@ -278,6 +449,7 @@ export function fitHead(
     degrees_of_freedom: dof,
     residuals_um: residuals,
     outliers,
+    outlier_count: outlierCount,
     iterations: lm.iterations,
     warnings,
     covariance: { keys: covKeys, values: cov },
@@ -299,6 +471,7 @@ export interface HeadFitJson {
   readonly rms_um: number;
   readonly max_um: number;
   readonly outliers: readonly { readonly row: number; readonly residual_um: Vec3 }[];
+  readonly outlier_count: number;
   readonly iterations: number;
   readonly warnings: readonly string[];
 }
@@ -319,6 +492,7 @@ export function headFitToJson(result: HeadFitResult): HeadFitJson {
     rms_um: result.rms_um,
     max_um: result.max_um,
     outliers: result.outliers.map(({ row, residual_um }) => ({ row, residual_um })),
+    outlier_count: result.outlier_count,
     iterations: result.iterations,
     warnings: result.warnings,
   };

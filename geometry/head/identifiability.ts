@@ -167,30 +167,35 @@ function separationAdvice(group: readonly HeadParameterKey[], poses: PoseColumns
 
 /**
  * Classify every parameter for these poses (method in the file header). Throws GeometryError
- * "degenerate" when the sphere centre itself cannot be determined.
+ * "degenerate" when the sphere centre itself cannot be determined. `zeroErrorNormal`, when given,
+ * is JᵀJ at zero error over [c, all ten parameters] (13×13 row-major) for these poses.
  */
 export function analyseHeadIdentifiability(
   config: HeadConfig | HeadAxes,
   poses: PoseColumns,
   selection: ParameterSelection = {},
+  zeroErrorNormal?: Float64Array,
 ): IdentifiabilityReport {
   const axes = "p" in config ? config : headAxes(config);
   const symbols = "p" in config ? undefined : headParameterSymbols(config);
   const label = (k: HeadParameterKey) => (symbols ? `${k} (${symbols[k]})` : k);
   const N = 3 + NP;
-  const full = new Float64Array(N * N);
   const all = HEAD_PARAMETER_KEYS.map((_, j) => j);
-  headNormalEquations(
-    axes,
-    poses,
-    null,
-    null,
-    all,
-    new Float64Array(NP),
-    new Float64Array(N),
-    full,
-    new Float64Array(N),
-  );
+  // The fit passes JᵀJ at zero error from its own first pass (the same matrix: it does not depend
+  // on the measurements), saving a pass over the poses.
+  const full = zeroErrorNormal ?? new Float64Array(N * N);
+  if (!zeroErrorNormal)
+    headNormalEquations(
+      axes,
+      poses,
+      null,
+      null,
+      all,
+      new Float64Array(NP),
+      new Float64Array(N),
+      full,
+      new Float64Array(N),
+    );
 
   const startFree = initialFreeSet(selection);
   let free = [...startFree];
