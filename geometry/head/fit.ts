@@ -24,6 +24,7 @@ import {
 import {
   analyseHeadIdentifiability,
   initialFreeSet,
+  separationAdvice,
   type Identifiability,
   type ParameterSelection,
 } from "./identifiability";
@@ -33,16 +34,37 @@ import { headNormalEquations, poseTrig } from "./normal";
 const ALL = HEAD_PARAMETER_KEYS.map((_, j) => j);
 /** Initial damping of the scaled system (unit diagonal): small, so the first step is nearly Gauss–Newton. */
 const INITIAL_DAMPING = 1e-9;
+/** Input ranges: beyond them the data are not a head on a machine (and the algebra would overflow). */
+const MAX_ANGLE_DEG = 1e5;
+const MAX_COORDINATE_MM = 1e6;
+/** Tool lengths outside 0 … 2 000 mm are refused (a gauge tool's length added to the pivot length). */
+export const MAX_TOOL_MM = 2000;
+/** Iteration cap of the solver (weak data may need hundreds of small steps). */
+const MAX_ITERATIONS = 200;
+/**
+ * Statistically settled: when the cap is reached but S fell by less than SETTLED_FRACTION·s² over
+ * the last SETTLED_STEPS accepted steps, the estimates are within about √0.01 = 0.1 standard
+ * uncertainty of the minimum (ΔS ≈ s²·ΔθᵀC⁻¹Δθ near it), so the result stands with a warning.
+ */
+const SETTLED_STEPS = 10;
+const SETTLED_FRACTION = 1e-2;
+/** Scale below which U must lie for "yes" where no limit is given (µm, arcsec). */
+export const IDENTIFIABLE_SCALE = 10;
 /** At most this many outliers are listed (the worst); all are counted. */
 export const MAX_LISTED_OUTLIERS = 50;
 
 export interface HeadFitOptions extends ParameterSelection {
-  /** Maximum LM iterations (default 50). */
+  /** Maximum LM iterations (default 200); past it, a statistically settled fit still stands. */
   readonly maxIterations?: number;
   /** Relative scaled-step tolerance (default 1e-10). */
   readonly stepTolerance?: number;
   /** Gradient (cosine) tolerance (default 1e-10). */
   readonly gradientTolerance?: number;
+  /**
+   * Limits per parameter (µm or arcsec, as its key says): "yes" needs U at or below it; without one
+   * the scale IDENTIFIABLE_SCALE (10 µm / 10″) applies.
+   */
+  readonly limits?: Partial<Record<HeadParameterKey, number>>;
 }
 
 export interface HeadFitParameter {
@@ -162,6 +184,37 @@ function validate(data: SphereProbeData): void {
         bad.push({ row: rowOf(data, i), column: name, message: `${name} is ${a[i]}, not a finite number` });
     }
   }
+  if (bad.length === 0) {
+    const ranges: [string, Float64Array | undefined, number, number, string][] = [
+      ["primary_deg", data.primaryDeg, -MAX_ANGLE_DEG, MAX_ANGLE_DEG, "°"],
+      ["secondary_deg", data.secondaryDeg, -MAX_ANGLE_DEG, MAX_ANGLE_DEG, "°"],
+      ["x", data.xMm, -MAX_COORDINATE_MM, MAX_COORDINATE_MM, " mm"],
+      ["y", data.yMm, -MAX_COORDINATE_MM, MAX_COORDINATE_MM, " mm"],
+      ["z", data.zMm, -MAX_COORDINATE_MM, MAX_COORDINATE_MM, " mm"],
+      ["tool_mm", data.toolMm, 0, MAX_TOOL_MM, " mm"],
+    ];
+    for (const [name, a, lo, hi, unit] of ranges) {
+      if (!a) continue;
+      for (let i = 0; i < n && bad.length < 50; i++) {
+        const v = a[i]!;
+        if (v < lo || v > hi)
+          bad.push({
+            row: rowOf(data, i),
+            column: name,
+            message: `${name} is ${v}${unit}, outside ${lo} … ${hi}${unit}${name === "tool_mm" ? " (the tool length added to the pivot length; it cannot be negative)" : ""}`,
+          });
+      }
+    }
+    if (bad.length > 0)
+      throw new GeometryError(
+        "bad_value",
+        `${bad.length} value${bad.length > 1 ? "s" : ""} out of range: ${bad
+          .slice(0, 5)
+          .map((b) => `row ${b.row} ${b.message}`)
+          .join("; ")}`,
+        bad,
+      );
+  }
   if (bad.length > 0) {
     throw new GeometryError(
       "bad_number",
@@ -198,6 +251,27 @@ function validate(data: SphereProbeData): void {
   }
 }
 
+/** All rows at one pose (same primary, secondary and tool; repeats aside): an error naming what is missing. */
+function requireSpread(data: SphereProbeData): void {
+  const n = data.rows;
+  const P = data.primaryDeg;
+  const S = data.secondaryDeg;
+  const T = data.toolMm;
+  let sameP = true;
+  let sameS = true;
+  let sameT = true;
+  for (let i = 1; i < n; i++) {
+    if (P[i] !== P[0]) sameP = false;
+    if (S[i] !== S[0]) sameS = false;
+    if (T && T[i] !== T[0]) sameT = false;
+  }
+  if (sameP && sameS && sameT)
+    throw new GeometryError(
+      "degenerate",
+      `all ${n} rows are at one pose (primary ${P[0]}°, secondary ${S[0]}°${T ? `, tool ${T[0]} mm` : ""}); repeats of one pose cannot show the head's errors: probe at primary angles around the full turn, secondary angles over a wide range (e.g. −90° to +90°) and two tool lengths`,
+    );
+}
+
 /**
  * Fit the head's error parameters and the sphere centre to sphere-probe data (mm, degrees; method
  * in the file header). Throws GeometryError: "too_few_rows" (fewer poses than unknowns),
@@ -209,6 +283,40 @@ export function fitHead(
   data: SphereProbeData,
   options: HeadFitOptions = {},
 ): HeadFitResult {
+  let result: HeadFitResult;
+  try {
+    result = fitHeadUnchecked(config, data, options);
+  } catch (e) {
+    if (e instanceof GeometryError) throw e;
+    // A fault of the algebra on extreme but finite input: a clear error, never a stack trace.
+    throw new GeometryError(
+      "degenerate",
+      `the fit could not be computed from these data (${e instanceof Error ? e.message : String(e)}); check that the poses are spread over the primary turn and the secondary's range and that the coordinates are in the stated unit`,
+    );
+  }
+  requireFinite(result);
+  return result;
+}
+
+/** Every number the fit reports is finite, or a GeometryError naming the first that is not. */
+function requireFinite(r: HeadFitResult): void {
+  const bad = (name: string, v: number | null) => {
+    if (v !== null && !Number.isFinite(v))
+      throw new GeometryError(
+        "degenerate",
+        `the fit gave a non-finite ${name} (${v}); the data do not determine it — spread the poses over the primary turn, the secondary's range and two tool lengths`,
+      );
+  };
+  for (const p of r.parameters) {
+    bad(`${p.key} value`, p.value);
+    bad(`${p.key} uncertainty`, p.u);
+  }
+  r.sphere_centre_mm.forEach((v, k) => bad(`sphere centre ${"xyz"[k]}`, v));
+  bad("residual RMS", r.rms_um);
+  bad("largest residual", r.max_um);
+}
+
+function fitHeadUnchecked(config: HeadConfig, data: SphereProbeData, options: HeadFitOptions): HeadFitResult {
   const axes = headAxes(config);
   const symbols = headParameterSymbols(config);
   const n = data.rows;
@@ -220,6 +328,7 @@ export function fitHead(
     );
   }
   validate(data);
+  requireSpread(data);
   const posesPlain = {
     rows: n,
     primaryDeg: data.primaryDeg,
@@ -299,6 +408,7 @@ export function fitHead(
   };
   let current = start;
   let trial: Evaluation | null = null;
+  const acceptedS: number[] = [start.S];
   let spare: Float64Array = new Float64Array(3 * n);
   const same = (a: Float64Array, b: Float64Array) => a.every((v, k) => v === b[k]);
   const evaluate = (theta: Float64Array): Evaluation => {
@@ -324,6 +434,7 @@ export function fitHead(
           spare = current.residuals;
           current = e;
           trial = null;
+          acceptedS.push(e.S);
         }
         jtj.set(e.jtj);
         jtr.set(e.jtr);
@@ -336,7 +447,7 @@ export function fitHead(
     },
     start.theta,
     {
-      maxIterations: options.maxIterations ?? 50,
+      maxIterations: options.maxIterations ?? MAX_ITERATIONS,
       stepTolerance: options.stepTolerance,
       gradientTolerance: options.gradientTolerance,
       // A Gauss–Newton-like first step: this model is nearly linear in the errors, so from θ = 0
@@ -345,19 +456,40 @@ export function fitHead(
       initialDamping: INITIAL_DAMPING,
     },
   );
-  if (!lm.converged) {
-    throw new GeometryError(
-      "no_convergence",
-      `the fit did not converge in ${lm.iterations} iterations; check the head configuration (axis letters, pivot length, tool direction) against the data`,
-    );
-  }
   const final = same(current.theta, lm.theta) ? current : evaluate(lm.theta);
   const residuals = final.residuals;
   const S = final.S;
   const s2 = S / dof;
   const s = Math.sqrt(s2);
+  const warnings = [...ident.warnings];
+  const weakKeys = free
+    .filter((j) => ident.parameters[j]!.identifiable !== "yes")
+    .map((j) => HEAD_PARAMETER_KEYS[j]!);
+  if (!lm.converged) {
+    // Valid but weakly conditioned data: the solver creeps along a flat valley. If the last steps
+    // could no longer move the estimates by more than a few per cent of their u, the result stands.
+    const k = acceptedS.length;
+    const settled =
+      k > SETTLED_STEPS && acceptedS[k - 1 - SETTLED_STEPS]! - acceptedS[k - 1]! <= SETTLED_FRACTION * s2;
+    if (!settled) {
+      const rmsUm = Math.sqrt(S / n);
+      throw new GeometryError(
+        "no_convergence",
+        `the fit was still improving after ${lm.iterations} iterations (residual RMS ${rmsUm.toPrecision(3)} µm)${
+          weakKeys.length > 0
+            ? `: ${weakKeys.join(" and ")} ${weakKeys.length > 1 ? "are" : "is"} only weakly determined by these poses; to strengthen: ${separationAdvice(weakKeys, posesPlain)}`
+            : ""
+        }${rmsUm > 1000 ? "; a residual RMS above 1 mm also suggests the head configuration (axis letters, pivot length, tool direction) does not match the data" : ""}`,
+      );
+    }
+    warnings.push(
+      `the solver reached its cap of ${lm.iterations} iterations while still creeping along a flat direction of these data; the last ${SETTLED_STEPS} steps lowered the residual sum by less than ${SETTLED_FRACTION} s², i.e. the estimates are within about a tenth of their standard uncertainty of the least-squares minimum: the result stands; its weak parameters carry large U, and with data this weak the linearised U may understate their scatter`,
+    );
+  }
   const cov = covarianceFromNormal(lm.jtj, np, s2);
 
+  const largeU: string[] = [];
+  const largeUKeys: HeadParameterKey[] = [];
   const parameters: HeadFitParameter[] = HEAD_PARAMETER_KEYS.map((key, j) => {
     const st = ident.parameters[j]!;
     const col = free.indexOf(j);
@@ -374,6 +506,16 @@ export function fitHead(
         pinned: true,
       };
     const u = Math.sqrt(cov[(3 + col) * np + 3 + col]!);
+    // "yes" needs the singular-value test and U within the parameter's limit (or the scale).
+    const limit = options.limits?.[key] ?? IDENTIFIABLE_SCALE;
+    let identifiable = st.identifiable;
+    if (identifiable === "yes" && !(2 * u <= limit)) {
+      identifiable = "weak";
+      largeU.push(
+        `${key} (${symbols[key]}): U = ${+(2 * u).toPrecision(3)} ${unit === "um" ? "µm" : "″"} exceeds ${limit} ${unit === "um" ? "µm" : "″"}${options.limits?.[key] !== undefined ? " (its limit)" : " (the scale used where no limit is given)"}`,
+      );
+      largeUKeys.push(key);
+    }
     return {
       key,
       iso: symbols[key],
@@ -381,10 +523,14 @@ export function fitHead(
       unit,
       u,
       U: 2 * u,
-      identifiable: st.identifiable,
+      identifiable,
       pinned: false,
     };
   });
+  if (largeU.length > 0)
+    warnings.push(
+      `weak, although the poses separate ${largeU.length > 1 ? "them" : "it"}: ${largeU.join("; ")}. To strengthen: ${separationAdvice(largeUKeys, posesPlain)}.`,
+    );
 
   let sumSq = 0;
   let max = 0;
@@ -438,7 +584,6 @@ export function fitHead(
       residual_um: [residuals[3 * i]!, residuals[3 * i + 1]!, residuals[3 * i + 2]!],
       normalised: worstOf(i),
     }));
-  const warnings = [...ident.warnings];
   if (outlierCount > 0) {
     const rows = outliers.map((o) => o.row).sort((a, b) => a - b);
     warnings.push(

@@ -131,21 +131,36 @@ function spectrum(full: Float64Array, sel: readonly number[]): Spectrum {
   };
 }
 
-/** Distinct values (exact) of a column, or [0] when absent. */
-function distinct(a: Float64Array | undefined): number[] {
-  return a ? [...new Set(a)] : [0];
+/** Number of distinct values (exact) of a column (1 when absent), and their span. */
+function spread(a: Float64Array | undefined, wrap360 = false): { count: number; span: number } {
+  if (!a) return { count: 1, span: 0 };
+  const seen = new Set<number>();
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let i = 0; i < a.length; i++) {
+    const v = wrap360 ? ((a[i]! % 360) + 360) % 360 : a[i]!;
+    seen.add(v);
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
+  }
+  return { count: seen.size, span: seen.size > 0 ? hi - lo : 0 };
 }
 
+/** Tool lengths closer than this (mm) separate the length-like parameters only weakly (common practice: ≥ 50 mm apart). */
+const TOOL_SPREAD_MM = 50;
+
 /** Plain-words advice on what data would separate a group, from the group and the poses. */
-function separationAdvice(group: readonly HeadParameterKey[], poses: PoseColumns): string {
+export function separationAdvice(group: readonly HeadParameterKey[], poses: PoseColumns): string {
   const has = (k: HeadParameterKey) => group.includes(k);
   if (group.length === 2 && has("primary_zero_arcsec") && has("secondary_yaw_arcsec")) {
     return "no sphere-probe pose separates them (both turn the tilt plane about the primary axis); only a reference outside this data, such as the tilt axis indicated against a machine axis with the primary at zero, would";
   }
-  const tools = distinct(poses.toolMm).length;
-  const sec = distinct(poses.secondaryDeg);
-  const secSpan = Math.max(...sec) - Math.min(...sec);
-  const prim = distinct(poses.primaryDeg.map((v) => ((v % 360) + 360) % 360));
+  const toolSpread = spread(poses.toolMm);
+  const tools = toolSpread.count;
+  const secSpread = spread(poses.secondaryDeg);
+  const sec = { length: secSpread.count };
+  const secSpan = secSpread.span;
+  const prim = { length: spread(poses.primaryDeg, true).count };
   const parts: string[] = [];
   const lengthLike = group.some((k) =>
     [
@@ -158,7 +173,14 @@ function separationAdvice(group: readonly HeadParameterKey[], poses: PoseColumns
   );
   if (tools < 2 && lengthLike)
     parts.push("poses with a second tool length (a gauge tool of a different length)");
-  if (sec.length < 3 || secSpan < 90) parts.push("secondary angles over a wider range, e.g. −90° to +90°");
+  else if (lengthLike && toolSpread.span < TOOL_SPREAD_MM)
+    parts.push(
+      `tool lengths further apart (these span only ${+toolSpread.span.toPrecision(3)} mm; ${TOOL_SPREAD_MM} mm or more is common practice)`,
+    );
+  if (sec.length < 3 || secSpan < 90)
+    parts.push(
+      `secondary angles over a wider range, e.g. −90° to +90° (these span ${+secSpan.toPrecision(3)}°)`,
+    );
   if (prim.length < 4) parts.push("more primary angles spread around the full turn");
   if (parts.length === 0)
     parts.push("more poses at other primary and secondary angles, or a second tool length");
