@@ -354,12 +354,12 @@ function fitHeadUnchecked(config: HeadConfig, data: SphereProbeData, options: He
     meas[3 * i + 2] = 1000 * (data.zMm[i]! - c0[2]);
   }
 
-  // First pass, at zero error over [c, all ten parameters]: the nominal tips tip₀, JᵀJ for the
-  // identifiability analysis, and the normal equations of the start θ = 0 (r = meas there).
+  // First pass, at zero error over [c, all ten parameters]: JᵀJ for the identifiability analysis
+  // and the normal equations of the start θ = 0 (r = meas there); it folds the nominal tips into
+  // meas (meas − 1000·tip₀) for the later passes.
   const N = 3 + NP;
   const fullJtj = new Float64Array(N * N);
   const fullJtr = new Float64Array(N);
-  const tip0 = new Float64Array(3 * n);
   const bufA = new Float64Array(3 * n);
   const S0 = headNormalEquations(
     axes,
@@ -372,7 +372,7 @@ function fitHeadUnchecked(config: HeadConfig, data: SphereProbeData, options: He
     fullJtj,
     fullJtr,
     bufA,
-    tip0,
+    true,
   );
   const ident = analyseHeadIdentifiability(config, posesPlain, options, fullJtj);
   const free = ident.freeIndices;
@@ -419,7 +419,7 @@ function fitHeadUnchecked(config: HeadConfig, data: SphereProbeData, options: He
       jtr: new Float64Array(np),
       residuals: spare,
     };
-    e.S = headNormalEquations(axes, poses, tip0, meas, free, params10, theta, e.jtj, e.jtr, spare);
+    e.S = headNormalEquations(axes, poses, "folded", meas, free, params10, theta, e.jtj, e.jtr, spare);
     return e;
   };
   const lm = levenbergMarquardt(

@@ -68,13 +68,15 @@ export function nominalTips(axes: HeadAxes, poses: PoseColumns): Float64Array {
  * the residuals are taken as 0 (planner and identifiability: only JᵀJ matters). `residuals`, when
  * given (length 3·rows), receives r. With `jtj` null only S is computed (no Jacobian).
  * With `meas` given and `tip0` null, the parameters must all be 0 (the nominal head): the tips are
- * then the nominal tips, r = meas − δc, and `tipsOut` (length 3·rows), when given, receives them —
- * the fit's first pass, which gives tip₀, the start's normal equations and identifiability at once.
+ * then the nominal tips and r = meas − δc; with `fold` the pass then rewrites meas in place as
+ * meas − 1000·tip₀ — the fit's first pass, which gives the start's normal equations and
+ * identifiability at once. Later passes take `tip0` = "folded" (r = meas − δc + 1000·tip), so the
+ * fit holds no separate tip₀ array (24 MB at 10^6 poses).
  */
 export function headNormalEquations(
   axes: HeadAxes,
   poses: PoseColumns,
-  tip0: Float64Array | null,
+  tip0: Float64Array | "folded" | null,
   meas: CentredMeasurements | null,
   free: readonly number[],
   params10: Float64Array,
@@ -82,7 +84,7 @@ export function headNormalEquations(
   jtj: Float64Array | null,
   jtr: Float64Array | null,
   residuals?: Float64Array,
-  tipsOut?: Float64Array,
+  fold = false,
 ): number {
   const f = free.length;
   const np = 3 + f;
@@ -123,7 +125,11 @@ export function headNormalEquations(
     let r2 = 0;
     if (meas !== null) {
       const b = 3 * i;
-      if (tip0 !== null) {
+      if (tip0 === "folded") {
+        r0 = meas[b]! - dc0 + 1000 * tip[0]!;
+        r1 = meas[b + 1]! - dc1 + 1000 * tip[1]!;
+        r2 = meas[b + 2]! - dc2 + 1000 * tip[2]!;
+      } else if (tip0 !== null) {
         r0 = meas[b]! - dc0 + 1000 * (tip[0]! - tip0[b]!);
         r1 = meas[b + 1]! - dc1 + 1000 * (tip[1]! - tip0[b + 1]!);
         r2 = meas[b + 2]! - dc2 + 1000 * (tip[2]! - tip0[b + 2]!);
@@ -131,10 +137,10 @@ export function headNormalEquations(
         r0 = meas[b]! - dc0;
         r1 = meas[b + 1]! - dc1;
         r2 = meas[b + 2]! - dc2;
-        if (tipsOut) {
-          tipsOut[b] = tip[0]!;
-          tipsOut[b + 1] = tip[1]!;
-          tipsOut[b + 2] = tip[2]!;
+        if (fold) {
+          meas[b] = meas[b]! - 1000 * tip[0]!;
+          meas[b + 1] = meas[b + 1]! - 1000 * tip[1]!;
+          meas[b + 2] = meas[b + 2]! - 1000 * tip[2]!;
         }
       }
       S += r0 * r0 + r1 * r1 + r2 * r2;
