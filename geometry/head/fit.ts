@@ -162,6 +162,15 @@ function firstEqualPose(
   return out;
 }
 
+/** Index of the first value not in [lo, hi] (NaN and ±Infinity are never in a finite range), or n. */
+function firstOutside(a: Float64Array, n: number, lo: number, hi: number): number {
+  for (let i = 0; i < n; i++) {
+    const v = a[i]!;
+    if (!(v >= lo && v <= hi) || v - v !== 0) return i;
+  }
+  return n;
+}
+
 /** Non-finite inputs and duplicate poses, as GeometryErrors naming the rows. */
 function validate(data: SphereProbeData): void {
   const n = data.rows;
@@ -179,6 +188,7 @@ function validate(data: SphereProbeData): void {
     if (!a) continue;
     if (a.length < n)
       throw new GeometryError("bad_value", `column ${name} has ${a.length} values for ${n} rows`);
+    if (firstOutside(a, n, -Infinity, Infinity) === n) continue;
     for (let i = 0; i < n && bad.length < 50; i++) {
       if (!Number.isFinite(a[i]!))
         bad.push({ row: rowOf(data, i), column: name, message: `${name} is ${a[i]}, not a finite number` });
@@ -194,7 +204,7 @@ function validate(data: SphereProbeData): void {
       ["tool_mm", data.toolMm, 0, MAX_TOOL_MM, " mm"],
     ];
     for (const [name, a, lo, hi, unit] of ranges) {
-      if (!a) continue;
+      if (!a || firstOutside(a, n, lo, hi) === n) continue;
       for (let i = 0; i < n && bad.length < 50; i++) {
         const v = a[i]!;
         if (v < lo || v > hi)
@@ -533,7 +543,6 @@ function fitHeadUnchecked(config: HeadConfig, data: SphereProbeData, options: He
     );
 
   let sumSq = 0;
-  let max = 0;
   // Outliers: all counted, the worst MAX_LISTED_OUTLIERS kept (a min-heap on the normalised size),
   // so 10^6 poses with Gaussian noise (about 8 000 beyond 3 s by chance) list 50, not 8 000.
   let outlierCount = 0;
@@ -554,14 +563,16 @@ function fitHeadUnchecked(config: HeadConfig, data: SphereProbeData, options: He
       k = m;
     }
   };
+  const beyond = 3 * s;
+  let maxLen2 = 0;
   for (let i = 0; i < n; i++) {
     const r0 = residuals[3 * i]!;
     const r1 = residuals[3 * i + 1]!;
     const r2 = residuals[3 * i + 2]!;
     const len2 = r0 * r0 + r1 * r1 + r2 * r2;
     sumSq += len2;
-    max = Math.max(max, Math.sqrt(len2));
-    if (Math.max(Math.abs(r0), Math.abs(r1), Math.abs(r2)) / s > 3) {
+    if (len2 > maxLen2) maxLen2 = len2;
+    if (r0 > beyond || r0 < -beyond || r1 > beyond || r1 < -beyond || r2 > beyond || r2 < -beyond) {
       outlierCount++;
       if (heap.length < MAX_LISTED_OUTLIERS) {
         heap.push(i);
@@ -595,7 +606,7 @@ function fitHeadUnchecked(config: HeadConfig, data: SphereProbeData, options: He
     parameters,
     sphere_centre_mm: [c0[0] + lm.theta[0]! / 1000, c0[1] + lm.theta[1]! / 1000, c0[2] + lm.theta[2]! / 1000],
     rms_um: Math.sqrt(sumSq / n),
-    max_um: max,
+    max_um: Math.sqrt(maxLen2),
     s_um: s,
     degrees_of_freedom: dof,
     residuals_um: residuals,
