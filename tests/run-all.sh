@@ -34,6 +34,9 @@ trap cleanup EXIT
 step "dependencies"
 bash lib/scripts/ensure-deps.sh --browser
 
+# The geometry CLI runs from a bundle made at build time (lib/cli/build.mjs), never at run time.
+npm run -s build:cli
+
 step "fresh PostgreSQL on 127.0.0.1:$PGPORT"
 bash db/pg.sh stop >/dev/null 2>&1 || true
 rm -rf "$PG_BASE"

@@ -131,21 +131,36 @@ function spectrum(full: Float64Array, sel: readonly number[]): Spectrum {
   };
 }
 
-/** Distinct values (exact) of a column, or [0] when absent. */
-function distinct(a: Float64Array | undefined): number[] {
-  return a ? [...new Set(a)] : [0];
+/** Number of distinct values (exact) of a column (1 when absent), and their span. */
+function spread(a: Float64Array | undefined, wrap360 = false): { count: number; span: number } {
+  if (!a) return { count: 1, span: 0 };
+  const seen = new Set<number>();
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let i = 0; i < a.length; i++) {
+    const v = wrap360 ? ((a[i]! % 360) + 360) % 360 : a[i]!;
+    seen.add(v);
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
+  }
+  return { count: seen.size, span: seen.size > 0 ? hi - lo : 0 };
 }
 
+/** Tool lengths closer than this (mm) separate the length-like parameters only weakly (common practice: ≥ 50 mm apart). */
+const TOOL_SPREAD_MM = 50;
+
 /** Plain-words advice on what data would separate a group, from the group and the poses. */
-function separationAdvice(group: readonly HeadParameterKey[], poses: PoseColumns): string {
+export function separationAdvice(group: readonly HeadParameterKey[], poses: PoseColumns): string {
   const has = (k: HeadParameterKey) => group.includes(k);
   if (group.length === 2 && has("primary_zero_arcsec") && has("secondary_yaw_arcsec")) {
     return "no sphere-probe pose separates them (both turn the tilt plane about the primary axis); only a reference outside this data, such as the tilt axis indicated against a machine axis with the primary at zero, would";
   }
-  const tools = distinct(poses.toolMm).length;
-  const sec = distinct(poses.secondaryDeg);
-  const secSpan = Math.max(...sec) - Math.min(...sec);
-  const prim = distinct(poses.primaryDeg.map((v) => ((v % 360) + 360) % 360));
+  const toolSpread = spread(poses.toolMm);
+  const tools = toolSpread.count;
+  const secSpread = spread(poses.secondaryDeg);
+  const sec = { length: secSpread.count };
+  const secSpan = secSpread.span;
+  const prim = { length: spread(poses.primaryDeg, true).count };
   const parts: string[] = [];
   const lengthLike = group.some((k) =>
     [
@@ -158,7 +173,14 @@ function separationAdvice(group: readonly HeadParameterKey[], poses: PoseColumns
   );
   if (tools < 2 && lengthLike)
     parts.push("poses with a second tool length (a gauge tool of a different length)");
-  if (sec.length < 3 || secSpan < 90) parts.push("secondary angles over a wider range, e.g. −90° to +90°");
+  else if (lengthLike && toolSpread.span < TOOL_SPREAD_MM)
+    parts.push(
+      `tool lengths further apart (these span only ${+toolSpread.span.toPrecision(3)} mm; ${TOOL_SPREAD_MM} mm or more is common practice)`,
+    );
+  if (sec.length < 3 || secSpan < 90)
+    parts.push(
+      `secondary angles over a wider range, e.g. −90° to +90° (these span ${+secSpan.toPrecision(3)}°)`,
+    );
   if (prim.length < 4) parts.push("more primary angles spread around the full turn");
   if (parts.length === 0)
     parts.push("more poses at other primary and secondary angles, or a second tool length");
@@ -167,30 +189,35 @@ function separationAdvice(group: readonly HeadParameterKey[], poses: PoseColumns
 
 /**
  * Classify every parameter for these poses (method in the file header). Throws GeometryError
- * "degenerate" when the sphere centre itself cannot be determined.
+ * "degenerate" when the sphere centre itself cannot be determined. `zeroErrorNormal`, when given,
+ * is JᵀJ at zero error over [c, all ten parameters] (13×13 row-major) for these poses.
  */
 export function analyseHeadIdentifiability(
   config: HeadConfig | HeadAxes,
   poses: PoseColumns,
   selection: ParameterSelection = {},
+  zeroErrorNormal?: Float64Array,
 ): IdentifiabilityReport {
   const axes = "p" in config ? config : headAxes(config);
   const symbols = "p" in config ? undefined : headParameterSymbols(config);
   const label = (k: HeadParameterKey) => (symbols ? `${k} (${symbols[k]})` : k);
   const N = 3 + NP;
-  const full = new Float64Array(N * N);
   const all = HEAD_PARAMETER_KEYS.map((_, j) => j);
-  headNormalEquations(
-    axes,
-    poses,
-    null,
-    null,
-    all,
-    new Float64Array(NP),
-    new Float64Array(N),
-    full,
-    new Float64Array(N),
-  );
+  // The fit passes JᵀJ at zero error from its own first pass (the same matrix: it does not depend
+  // on the measurements), saving a pass over the poses.
+  const full = zeroErrorNormal ?? new Float64Array(N * N);
+  if (!zeroErrorNormal)
+    headNormalEquations(
+      axes,
+      poses,
+      null,
+      null,
+      all,
+      new Float64Array(NP),
+      new Float64Array(N),
+      full,
+      new Float64Array(N),
+    );
 
   const startFree = initialFreeSet(selection);
   let free = [...startFree];

@@ -43,6 +43,34 @@ export function rotationMatrix(ax: number, ay: number, az: number, phi: number, 
   out[8] = c + az * az * k;
 }
 
+/**
+ * R(a, φ₀ + ε) as in rotationMatrix, from cos φ₀ and sin φ₀ (precomputed once per pose) and ε's own
+ * cosine and sine, by the angle-addition formulas: the per-pose loops then need no trigonometry.
+ */
+export function rotationMatrixSum(
+  ax: number,
+  ay: number,
+  az: number,
+  c0: number,
+  s0: number,
+  ce: number,
+  se: number,
+  out: Float64Array,
+): void {
+  const c = c0 * ce - s0 * se;
+  const s = s0 * ce + c0 * se;
+  const k = 1 - c;
+  out[0] = c + ax * ax * k;
+  out[1] = ax * ay * k - az * s;
+  out[2] = ax * az * k + ay * s;
+  out[3] = ay * ax * k + az * s;
+  out[4] = c + ay * ay * k;
+  out[5] = ay * az * k - ax * s;
+  out[6] = az * ax * k - ay * s;
+  out[7] = az * ay * k + ax * s;
+  out[8] = c + az * az * k;
+}
+
 /** Rodrigues' formula applied to one vector: R(a, φ)·x (a unit; φ rad). */
 export function rodriguesRotate(a: Vec3, phi: number, x: Vec3): Vec3 {
   const c = Math.cos(phi);
@@ -72,6 +100,10 @@ export class HeadKernel {
   private readonly uPtn: Vec3;
   private readonly zp: number;
   private readonly zs: number;
+  private readonly czp: number;
+  private readonly szp: number;
+  private readonly czs: number;
+  private readonly szs: number;
   private readonly Rs = new Float64Array(9);
   private readonly Rp = new Float64Array(9);
 
@@ -89,6 +121,10 @@ export class HeadKernel {
     this.o = Float64Array.of(e * n[0], e * n[1], e * n[2]);
     this.zp = rad(4);
     this.zs = rad(5);
+    this.czp = Math.cos(this.zp);
+    this.szp = Math.sin(this.zp);
+    this.czs = Math.cos(this.zs);
+    this.szs = Math.sin(this.zs);
     const st = rad(6);
     const sy = rad(7);
     const pts = rad(8);
@@ -104,13 +140,38 @@ export class HeadKernel {
    * `withJacobian`, `jac`.
    */
   eval(primaryDeg: number, secondaryDeg: number, toolMm: number, withJacobian: boolean): void {
+    const sp = this.sp;
+    const pp = this.pp;
+    rotationMatrix(sp[0], sp[1], sp[2], secondaryDeg * RAD_PER_DEG + this.zs, this.Rs);
+    rotationMatrix(pp[0], pp[1], pp[2], primaryDeg * RAD_PER_DEG + this.zp, this.Rp);
+    this.evalRotated(toolMm, withJacobian);
+  }
+
+  /**
+   * As eval, from the cosines and sines of the commanded angles (see poseTrig in normal.ts): the
+   * fit's passes over 10^5–10^6 poses compute them once instead of once per pass.
+   */
+  evalTrig(
+    cosPrimary: number,
+    sinPrimary: number,
+    cosSecondary: number,
+    sinSecondary: number,
+    toolMm: number,
+    withJacobian: boolean,
+  ): void {
+    const sp = this.sp;
+    const pp = this.pp;
+    rotationMatrixSum(sp[0], sp[1], sp[2], cosSecondary, sinSecondary, this.czs, this.szs, this.Rs);
+    rotationMatrixSum(pp[0], pp[1], pp[2], cosPrimary, sinPrimary, this.czp, this.szp, this.Rp);
+    this.evalRotated(toolMm, withJacobian);
+  }
+
+  private evalRotated(toolMm: number, withJacobian: boolean): void {
     const { t, s, n } = this.ax;
     const Rs = this.Rs;
     const Rp = this.Rp;
     const sp = this.sp;
     const pp = this.pp;
-    rotationMatrix(sp[0], sp[1], sp[2], secondaryDeg * RAD_PER_DEG + this.zs, Rs);
-    rotationMatrix(pp[0], pp[1], pp[2], primaryDeg * RAD_PER_DEG + this.zp, Rp);
     const len = this.L + toolMm;
     const o0 = this.o[0]!;
     const o1 = this.o[1]!;

@@ -9,6 +9,7 @@
  * i.e. measured minus modelled centre, with the model m = c − (tip − tip₀).
  * So ∂r_ik/∂δc_l = −[k = l] and ∂r_ik/∂θ_j = 1000·∂tip_k/∂θ_j.
  */
+import { RAD_PER_DEG } from "../units";
 import type { HeadAxes } from "./config";
 import { HeadKernel, NP } from "./kernel";
 
@@ -18,6 +19,27 @@ export interface PoseColumns {
   readonly primaryDeg: Float64Array;
   readonly secondaryDeg: Float64Array;
   readonly toolMm?: Float64Array;
+  /** Optional poseTrig(this): the passes then use it instead of evaluating cos and sin per pass. */
+  readonly trig?: Float64Array;
+}
+
+/**
+ * cos and sin of the commanded angles, interleaved per pose [cos P, sin P, cos S, sin S] (4·rows),
+ * computed once per fit: trigonometry was most of a pass's cost when done in every pass.
+ */
+export function poseTrig(poses: PoseColumns): Float64Array {
+  const out = new Float64Array(4 * poses.rows);
+  const P = poses.primaryDeg;
+  const S = poses.secondaryDeg;
+  for (let i = 0; i < poses.rows; i++) {
+    const a = P[i]! * RAD_PER_DEG;
+    const b = S[i]! * RAD_PER_DEG;
+    out[4 * i] = Math.cos(a);
+    out[4 * i + 1] = Math.sin(a);
+    out[4 * i + 2] = Math.cos(b);
+    out[4 * i + 3] = Math.sin(b);
+  }
+  return out;
 }
 
 /** Measured centres minus the start c₀, in µm, interleaved x, y, z per pose. */
@@ -27,8 +49,11 @@ export type CentredMeasurements = Float64Array;
 export function nominalTips(axes: HeadAxes, poses: PoseColumns): Float64Array {
   const k = new HeadKernel(axes, new Float64Array(NP));
   const out = new Float64Array(3 * poses.rows);
+  const trig = poses.trig;
   for (let i = 0; i < poses.rows; i++) {
-    k.eval(poses.primaryDeg[i]!, poses.secondaryDeg[i]!, poses.toolMm ? poses.toolMm[i]! : 0, false);
+    const tool = poses.toolMm ? poses.toolMm[i]! : 0;
+    if (trig) k.evalTrig(trig[4 * i]!, trig[4 * i + 1]!, trig[4 * i + 2]!, trig[4 * i + 3]!, tool, false);
+    else k.eval(poses.primaryDeg[i]!, poses.secondaryDeg[i]!, tool, false);
     out[3 * i] = k.tip[0]!;
     out[3 * i + 1] = k.tip[1]!;
     out[3 * i + 2] = k.tip[2]!;
@@ -42,11 +67,16 @@ export function nominalTips(axes: HeadAxes, poses: PoseColumns): Float64Array {
  * overwritten with θ's free values; `free` lists the free parameters' indices. With `meas` null
  * the residuals are taken as 0 (planner and identifiability: only JᵀJ matters). `residuals`, when
  * given (length 3·rows), receives r. With `jtj` null only S is computed (no Jacobian).
+ * With `meas` given and `tip0` null, the parameters must all be 0 (the nominal head): the tips are
+ * then the nominal tips and r = meas − δc; with `fold` the pass then rewrites meas in place as
+ * meas − 1000·tip₀ — the fit's first pass, which gives the start's normal equations and
+ * identifiability at once. Later passes take `tip0` = "folded" (r = meas − δc + 1000·tip), so the
+ * fit holds no separate tip₀ array (24 MB at 10^6 poses).
  */
 export function headNormalEquations(
   axes: HeadAxes,
   poses: PoseColumns,
-  tip0: Float64Array | null,
+  tip0: Float64Array | "folded" | null,
   meas: CentredMeasurements | null,
   free: readonly number[],
   params10: Float64Array,
@@ -54,6 +84,7 @@ export function headNormalEquations(
   jtj: Float64Array | null,
   jtr: Float64Array | null,
   residuals?: Float64Array,
+  fold = false,
 ): number {
   const f = free.length;
   const np = 3 + f;
@@ -77,16 +108,41 @@ export function headNormalEquations(
   const T = poses.toolMm;
   const P = poses.primaryDeg;
   const Sd = poses.secondaryDeg;
+  const trig = poses.trig;
   for (let i = 0; i < poses.rows; i++) {
-    kernel.eval(P[i]!, Sd[i]!, T ? T[i]! : 0, withJ);
+    if (trig)
+      kernel.evalTrig(
+        trig[4 * i]!,
+        trig[4 * i + 1]!,
+        trig[4 * i + 2]!,
+        trig[4 * i + 3]!,
+        T ? T[i]! : 0,
+        withJ,
+      );
+    else kernel.eval(P[i]!, Sd[i]!, T ? T[i]! : 0, withJ);
     let r0 = 0;
     let r1 = 0;
     let r2 = 0;
-    if (meas !== null && tip0 !== null) {
+    if (meas !== null) {
       const b = 3 * i;
-      r0 = meas[b]! - dc0 + 1000 * (tip[0]! - tip0[b]!);
-      r1 = meas[b + 1]! - dc1 + 1000 * (tip[1]! - tip0[b + 1]!);
-      r2 = meas[b + 2]! - dc2 + 1000 * (tip[2]! - tip0[b + 2]!);
+      if (tip0 === "folded") {
+        r0 = meas[b]! - dc0 + 1000 * tip[0]!;
+        r1 = meas[b + 1]! - dc1 + 1000 * tip[1]!;
+        r2 = meas[b + 2]! - dc2 + 1000 * tip[2]!;
+      } else if (tip0 !== null) {
+        r0 = meas[b]! - dc0 + 1000 * (tip[0]! - tip0[b]!);
+        r1 = meas[b + 1]! - dc1 + 1000 * (tip[1]! - tip0[b + 1]!);
+        r2 = meas[b + 2]! - dc2 + 1000 * (tip[2]! - tip0[b + 2]!);
+      } else {
+        r0 = meas[b]! - dc0;
+        r1 = meas[b + 1]! - dc1;
+        r2 = meas[b + 2]! - dc2;
+        if (fold) {
+          meas[b] = meas[b]! - 1000 * tip[0]!;
+          meas[b + 1] = meas[b + 1]! - 1000 * tip[1]!;
+          meas[b + 2] = meas[b + 2]! - 1000 * tip[2]!;
+        }
+      }
       S += r0 * r0 + r1 * r1 + r2 * r2;
       if (residuals) {
         residuals[b] = r0;

@@ -1,45 +1,40 @@
-// Runs the geometry CLI (lib/cli/geometry.ts) from a bundle that esbuild makes on first use and
-// whenever a source file is newer, so each call starts Node in about a tenth of a second instead
-// of compiling TypeScript on the fly. Packages stay external and load from node_modules.
-import { build } from "esbuild";
-import { mkdirSync, readdirSync, statSync } from "node:fs";
+// Runs the geometry CLI (lib/cli/geometry.ts) from the bundle that `npm run build:cli` makes at
+// build time (lib/cli/build.mjs; `npm run build`, the test command and the demo script run it).
+// Nothing is compiled here: a missing or out-of-date bundle is an error that says how to make it,
+// so the CLI never runs code older than its sources.
+import { readdirSync, statSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
-const out = path.join(root, ".data", "cli", "geometry.mjs");
+const bundle = path.join(root, ".data", "cli", "geometry.mjs");
 
-function newestSource(dir) {
-  let t = 0;
+/** The newest .ts/.mjs source under dir (mtime, ms) and its path. */
+function newestSource(dir, best = { t: 0, file: "" }) {
   for (const e of readdirSync(dir, { withFileTypes: true })) {
     const p = path.join(dir, e.name);
-    if (e.isDirectory()) t = Math.max(t, newestSource(p));
-    else if (/\.(ts|mjs)$/.test(e.name)) t = Math.max(t, statSync(p).mtimeMs);
+    if (e.isDirectory()) newestSource(p, best);
+    else if (/\.(ts|mjs)$/.test(e.name)) {
+      const t = statSync(p).mtimeMs;
+      if (t > best.t) Object.assign(best, { t, file: p });
+    }
   }
-  return t;
+  return best;
 }
 
 let built = 0;
 try {
-  built = statSync(out).mtimeMs;
+  built = statSync(bundle).mtimeMs;
 } catch {
   built = 0;
 }
-if (
-  built < Math.max(newestSource(path.join(root, "geometry")), newestSource(path.join(root, "lib", "cli")))
-) {
-  mkdirSync(path.dirname(out), { recursive: true });
-  await build({
-    entryPoints: [path.join(root, "lib", "cli", "geometry.ts")],
-    outfile: out,
-    bundle: true,
-    platform: "node",
-    format: "esm",
-    target: "node20",
-    packages: "external",
-    tsconfig: path.join(root, "tsconfig.json"),
-    logLevel: "error",
-  });
+const newest = newestSource(path.join(root, "geometry"), newestSource(path.join(root, "lib", "cli")));
+if (built === 0 || built < newest.t) {
+  process.stderr.write(
+    `error: the geometry CLI bundle ${built === 0 ? "has not been built" : `is older than ${path.relative(root, newest.file)}`}; run \`npm run build:cli\` (npm run build, npm test and the demo script do it)\n`,
+  );
+  process.exitCode = 2;
+} else {
+  const { main } = await import(pathToFileURL(bundle).href);
+  process.exitCode = await main(process.argv.slice(2));
 }
-const { main } = await import(pathToFileURL(out).href);
-process.exitCode = await main(process.argv.slice(2));

@@ -11,6 +11,8 @@ mkdir -p "$TMPDIR"
 PORT=${PORT:-3000}
 
 bash lib/scripts/ensure-deps.sh
+# The geometry CLI (`npm run geometry`) runs from a bundle made here, at build time.
+npm run -s build:cli
 bash db/pg.sh start
 export DATABASE_URL=${DATABASE_URL:-$(bash db/pg.sh url)}
 # The local S3-compatible store for uploaded originals (s3rver, files in .data/s3); Ctrl-C stops it with the app.

@@ -66,6 +66,7 @@ describe("head commands", () => {
       "rms_um",
       "max_um",
       "outliers",
+      "outlier_count",
       "iterations",
       "warnings",
     ]);

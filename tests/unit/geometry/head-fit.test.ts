@@ -334,6 +334,7 @@ describe("bad input gives a typed GeometryError naming what is wrong", () => {
       "rms_um",
       "max_um",
       "outliers",
+      "outlier_count",
       "iterations",
       "warnings",
     ]);
