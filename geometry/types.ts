@@ -53,3 +53,16 @@ export interface TestPartRow {
   readonly unit: string;
   readonly sourceRow?: number;
 }
+
+/** Rotary positioning (ISO 230-2): each row one approach of a target angle from one direction. */
+export interface RotaryPositioningData {
+  readonly rows: number;
+  readonly targetDeg: Float64Array;
+  readonly run: Float64Array;
+  /** "pos": approached in the positive sense; "neg": in the negative sense. */
+  readonly direction: readonly ("pos" | "neg")[];
+  readonly measuredDeg: Float64Array;
+  /** The axis letter when the file names it (one axis per file). */
+  readonly axis?: string;
+  readonly sourceRow?: Int32Array;
+}

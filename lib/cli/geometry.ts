@@ -26,6 +26,7 @@ import { choiceOption, CliUsageError, numberOption, type CliCommand, type CliCon
 // using the CliCommand type of ./command.ts. To register them, uncomment this import and the
 // `...headCommands` line in `commands` below.
 import { headCommands } from "./head-commands";
+import { checkCommands } from "./check-commands";
 
 const decimalOf = (ctx: CliContext) => choiceOption(ctx, "decimal", ["point", "comma"] as const, "point");
 const passWarnings = (ctx: CliContext, warnings: readonly CsvWarning[]) =>
@@ -121,6 +122,7 @@ export const commands: Readonly<Record<string, CliCommand>> = {
   sweep,
   "test-part": testPart,
   ...headCommands, // HEAD COMMANDS: see the import above.
+  ...checkCommands, // rotary-positioning, tcp-check: ./check-commands.ts
 };
 
 function help(): string {
