@@ -117,8 +117,10 @@ describe("npm run geometry", { timeout: 60_000 }, () => {
     const p = JSON.parse(part.stdout);
     expect(p.rule).toBe("guarded");
     // bore 25.004 in [25.003, 25.018] → pass; flatness 0.008 > 0.01 − 0.003 → undecided; the arcsec
-    // row has no U (a mm default does not apply to angles) → simple comparison 12″ ≤ 20″ → pass.
-    expect(p.rows.map((r: { decision: string }) => r.decision)).toEqual(["pass", "undecided", "pass"]);
+    // row has no U (a mm default does not apply to angles) → the guarded rule cannot decide it:
+    // undecided — U missing (ISO 14253-1 needs U to prove conformance; never a silent simple rule).
+    expect(p.rows.map((r: { decision: string }) => r.decision)).toEqual(["pass", "undecided", "undecided"]);
+    expect(p.rows[2].reason).toBe("U missing");
     expect(part.stderr).toContain("no expanded uncertainty given for rows in arcsec");
 
     expect(bad.code).toBe(2);
