@@ -43,12 +43,16 @@ const circle: CliCommand = {
     });
     passWarnings(ctx, data.warnings);
     const f = fitCircle(data);
+    f.warnings.forEach((w) => ctx.warn(w));
     return {
       centre_mm: f.centre_mm,
       normal: f.normal,
       radius_mm: f.radius_mm,
       rms_um: f.rms_um,
       max_um: f.max_um,
+      radius_U_mm: f.radius_U_mm,
+      centre_U_mm: f.centre_U_mm,
+      normal_U_arcsec: f.normal_U_arcsec,
     };
   },
 };

@@ -74,7 +74,18 @@ describe("npm run geometry", { timeout: 60_000 }, () => {
     // Gander, Golub & Strebel (1994) six points in the plane z = 10: centre (4.7398, 2.9835), r 4.7142.
     expect(circle.code).toBe(0);
     const c = JSON.parse(circle.stdout);
-    expect(Object.keys(c)).toEqual(["centre_mm", "normal", "radius_mm", "rms_um", "max_um"]);
+    expect(Object.keys(c)).toEqual([
+      "centre_mm",
+      "normal",
+      "radius_mm",
+      "rms_um",
+      "max_um",
+      "radius_U_mm",
+      "centre_U_mm",
+      "normal_U_arcsec",
+    ]);
+    expect(c.radius_U_mm).toBeGreaterThan(0);
+    expect(c.centre_U_mm).toHaveLength(3);
     expect(c.centre_mm[0]).toBeCloseTo(4.739782, 5);
     expect(c.centre_mm[1]).toBeCloseTo(2.983533, 5);
     expect(c.centre_mm[2]).toBeCloseTo(10, 9);
