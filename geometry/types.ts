@@ -27,6 +27,9 @@ export interface TramData {
   readonly travelMm: Float64Array;
   readonly readingUm: Float64Array;
   readonly note?: readonly (string | undefined)[];
+  /** Optional plane of each row (XZ or YZ) and bar position (0 or 180°): tram in two planes. */
+  readonly plane?: readonly ("XZ" | "YZ")[];
+  readonly barDeg?: Float64Array;
   readonly sourceRow?: Int32Array;
 }
 

@@ -11,6 +11,7 @@ import {
   fitCircle,
   fitSweep,
   fitTram,
+  fitTramPlanes,
   formatIssue,
   GeometryError,
   readPointsCsv,
@@ -68,6 +69,19 @@ const tram: CliCommand = {
       decimal: decimalOf(ctx),
     });
     passWarnings(ctx, data.warnings);
+    if (data.plane) {
+      const p = fitTramPlanes({ ...data, plane: data.plane });
+      p.warnings.forEach((w) => ctx.warn(w));
+      return {
+        planes: p.planes.map((q) => ({
+          plane: q.plane,
+          slope_um_per_m: q.slope_um_per_m,
+          slope_U_um_per_m: q.slope_U_um_per_m,
+          angle_arcsec: q.angle_arcsec,
+          ...(q.bar_um_per_m !== undefined ? { bar_um_per_m: q.bar_um_per_m } : {}),
+        })),
+      };
+    }
     const r = fitTram(data);
     return {
       slope_um_per_m: r.slope_um_per_m,
