@@ -2,7 +2,7 @@
  * Circle fit per axis: points measured while one rotary axis turns lie on a circle whose normal is
  * the axis direction and whose centre is a point on the axis. No head model needed.
  */
-import { Matrix, SVD, solve } from "ml-matrix";
+import { inverse, Matrix, SVD, solve } from "ml-matrix";
 import { GeometryError } from "./errors";
 import { RAD_PER_ARCSEC } from "./units";
 
@@ -29,6 +29,18 @@ export interface CircleFit {
   readonly plane_rms_um: number;
   /** Gauss–Newton/Levenberg–Marquardt iterations of the geometric refinement. */
   readonly iterations: number;
+  /**
+   * Expanded uncertainties (k = 2, JCGM 100) from the fit's covariance s²·(JᵀJ)⁻¹ scaled by the
+   * residual variance (Type A only): radius (mm), centre per machine axis (mm), and the normal's
+   * direction (arc seconds, 2·√(u_α² + u_β²) for its tilts α, β about the two in-plane axes).
+   * null with exactly 3 points (a circle through 3 points has no residual to estimate s from).
+   */
+  readonly radius_U_mm: number | null;
+  readonly centre_U_mm: Vec3 | null;
+  readonly normal_U_arcsec: number | null;
+  /** Angle covered by the points around the fitted centre (360° minus the largest gap), degrees. */
+  readonly arc_deg: number;
+  readonly warnings: readonly string[];
 }
 
 /** Fix the sign of an axis direction independently of point order: largest component positive. */
@@ -56,6 +68,8 @@ export function fitCircle(points: PointsInput): CircleFit {
   if (points.yMm.length !== n || points.zMm.length !== n)
     throw new GeometryError("bad_option", "x, y, z lengths differ");
   if (n < 3) throw new GeometryError("too_few_rows", `a circle needs at least 3 points (got ${n})`);
+  // Centroid by sums of x/n (no overflow for any finite input), then coordinates relative to it
+  // scaled by their largest magnitude L, so the algebra never squares a huge number.
   let cx = 0;
   let cy = 0;
   let cz = 0;
@@ -65,18 +79,27 @@ export function fitCircle(points: PointsInput): CircleFit {
     const z = points.zMm[i]!;
     if (!Number.isFinite(x) || !Number.isFinite(y) || !Number.isFinite(z))
       throw new GeometryError("bad_number", `point ${i + 1} is not finite`);
-    cx += x;
-    cy += y;
-    cz += z;
+    cx += x / n;
+    cy += y / n;
+    cz += z / n;
   }
-  cx /= n;
-  cy /= n;
-  cz /= n;
+  let L = 0;
+  for (let i = 0; i < n; i++) {
+    L = Math.max(
+      L,
+      Math.abs(points.xMm[i]! - cx),
+      Math.abs(points.yMm[i]! - cy),
+      Math.abs(points.zMm[i]! - cz),
+    );
+  }
+  if (!Number.isFinite(L))
+    throw new GeometryError("bad_number", "the points span more than the number range; check the units");
+  if (!(L > 0)) throw new GeometryError("degenerate", "all points coincide; no circle or axis can be fitted");
   const centred = new Matrix(n, 3);
   for (let i = 0; i < n; i++) {
-    centred.set(i, 0, points.xMm[i]! - cx);
-    centred.set(i, 1, points.yMm[i]! - cy);
-    centred.set(i, 2, points.zMm[i]! - cz);
+    centred.set(i, 0, (points.xMm[i]! - cx) / L);
+    centred.set(i, 1, (points.yMm[i]! - cy) / L);
+    centred.set(i, 2, (points.zMm[i]! - cz) / L);
   }
   const svd = new SVD(centred, { computeLeftSingularVectors: false, autoTranspose: true });
   const sv = svd.diagonal;
@@ -85,7 +108,10 @@ export function fitCircle(points: PointsInput): CircleFit {
   const order = [0, 1, 2].sort((p, q) => sv[q]! - sv[p]!);
   const [iu, iv, iw] = order as [number, number, number];
   if (!(sv[iv]! > 1e-9 * sv[iu]!))
-    throw new GeometryError("degenerate", "the points lie on a line; no circle or axis can be fitted");
+    throw new GeometryError(
+      "degenerate",
+      "the points lie on a line (no spread across it); no circle or axis can be fitted — take points around the turn",
+    );
   const u: Vec3 = [V.get(0, iu), V.get(1, iu), V.get(2, iu)];
   const v: Vec3 = [V.get(0, iv), V.get(1, iv), V.get(2, iv)];
   const w = orientNormal([V.get(0, iw), V.get(1, iw), V.get(2, iw)]);
@@ -221,17 +247,123 @@ export function fitCircle(points: PointsInput): CircleFit {
     sumH += h[i]! * h[i]!;
     if (d2 > maxD) maxD = d2;
   }
-  return {
+  const unc = n > 3 ? circleUncertainty(xi, eta, a, b, r, sumR, sumH) : null;
+  const arcDeg = coveredArcDeg(xi, eta, a, b);
+  const warnings: string[] = [];
+  if (n === 3)
+    warnings.push("3 points fit a circle exactly: no uncertainty can be estimated; take 4 or more");
+  if (arcDeg < 90)
+    warnings.push(
+      `the points cover only ${arcDeg.toFixed(0)}° of arc: centre and radius are weakly determined ` +
+        "(their uncertainty grows roughly as 1/arc² as the arc shortens); turn the axis through 90° or more",
+    );
+  const k = 1000 * L; // scaled units → µm
+  const result: CircleFit = {
     n,
-    centre_mm: [cx + a * u[0] + b * v[0], cy + a * u[1] + b * v[1], cz + a * u[2] + b * v[2]],
+    centre_mm: [
+      cx + L * (a * u[0] + b * v[0]),
+      cy + L * (a * u[1] + b * v[1]),
+      cz + L * (a * u[2] + b * v[2]),
+    ],
     normal: w,
-    radius_mm: r,
-    rms_um: Math.sqrt(sumD / n) * 1000,
-    max_um: Math.sqrt(maxD) * 1000,
-    radial_rms_um: Math.sqrt(sumR / n) * 1000,
-    plane_rms_um: Math.sqrt(sumH / n) * 1000,
+    radius_mm: L * r,
+    rms_um: Math.sqrt(sumD / n) * k,
+    max_um: Math.sqrt(maxD) * k,
+    radial_rms_um: Math.sqrt(sumR / n) * k,
+    plane_rms_um: Math.sqrt(sumH / n) * k,
     iterations,
+    radius_U_mm: unc ? 2 * L * Math.sqrt(unc.varR) : null,
+    centre_U_mm: unc
+      ? ([0, 1, 2].map(
+          (c) =>
+            2 *
+            L *
+            Math.sqrt(
+              u[c]! * u[c]! * unc.cab[0] +
+                2 * u[c]! * v[c]! * unc.cab[1] +
+                v[c]! * v[c]! * unc.cab[2] +
+                w[c]! * w[c]! * unc.varW,
+            ),
+        ) as unknown as Vec3)
+      : null,
+    normal_U_arcsec: unc ? (2 * Math.sqrt(unc.varTilt)) / RAD_PER_ARCSEC : null,
+    arc_deg: arcDeg,
+    warnings,
   };
+  for (const [key, val] of Object.entries(result)) {
+    const nums =
+      typeof val === "number" ? [val] : Array.isArray(val) ? val.filter((x) => typeof x === "number") : [];
+    if (!nums.every(Number.isFinite))
+      throw new GeometryError(
+        "bad_number",
+        `the circle's ${key} is beyond the number range; check the units`,
+      );
+  }
+  return result;
+}
+
+/**
+ * Type A covariance of the circle (scaled units): in-plane (a, b, r) from s²·(JᵀJ)⁻¹ of the
+ * geometric fit (J rows −(ξ−a)/ρ, −(η−b)/ρ, −1; s² = Σd²/(n − 3)); out of plane from the plane as a
+ * regression h = h₀ + αξ + βη on the centred coordinates (s_h² = Σh²/(n − 3)): tilts (α, β) with
+ * covariance s_h²·(XᵀX)⁻¹, and the plane's height at the centre, var = s_h²·(1/n + [a b](XᵀX)⁻¹[a b]ᵀ).
+ * Returns var(r), the (a, b) covariance [aa, ab, bb], var of the centre along the normal, and
+ * u_α² + u_β².
+ */
+function circleUncertainty(
+  xi: Float64Array,
+  eta: Float64Array,
+  a: number,
+  b: number,
+  r: number,
+  sumR: number,
+  sumH: number,
+): { varR: number; cab: [number, number, number]; varW: number; varTilt: number } {
+  const n = xi.length;
+  const JtJ = new Matrix(3, 3);
+  let sxx = 0;
+  let sxy = 0;
+  let syy = 0;
+  for (let i = 0; i < n; i++) {
+    const dx = xi[i]! - a;
+    const dy = eta[i]! - b;
+    const rho = Math.hypot(dx, dy);
+    const J = [rho > 0 ? -dx / rho : 0, rho > 0 ? -dy / rho : 0, -1];
+    for (let p = 0; p < 3; p++) for (let q = 0; q < 3; q++) JtJ.set(p, q, JtJ.get(p, q) + J[p]! * J[q]!);
+    sxx += xi[i]! * xi[i]!;
+    sxy += xi[i]! * eta[i]!;
+    syy += eta[i]! * eta[i]!;
+  }
+  const s2 = sumR / (n - 3);
+  let cov: Matrix;
+  try {
+    cov = inverse(JtJ).mul(s2);
+  } catch {
+    throw new GeometryError(
+      "degenerate",
+      "the circle's centre and radius cannot be separated from these points",
+    );
+  }
+  const sh2 = sumH / (n - 3);
+  // (XᵀX)⁻¹ for X = [ξ η] (ξ, η are centred: the plane's SVD axes through the centroid).
+  const det = sxx * syy - sxy * sxy;
+  const i11 = syy / det;
+  const i12 = -sxy / det;
+  const i22 = sxx / det;
+  return {
+    varR: Math.max(0, cov.get(2, 2)),
+    cab: [Math.max(0, cov.get(0, 0)), cov.get(0, 1), Math.max(0, cov.get(1, 1))],
+    varW: sh2 * (1 / n + a * a * i11 + 2 * a * b * i12 + b * b * i22),
+    varTilt: sh2 * (i11 + i22),
+  };
+}
+
+/** Arc covered by the points around (a, b): 360° minus the largest angular gap, degrees. */
+function coveredArcDeg(xi: Float64Array, eta: Float64Array, a: number, b: number): number {
+  const ang = Array.from(xi, (x, i) => Math.atan2(eta[i]! - b, x - a)).sort((p, q) => p - q);
+  let gap = ang[0]! + 2 * Math.PI - ang[ang.length - 1]!;
+  for (let k = 1; k < ang.length; k++) gap = Math.max(gap, ang[k]! - ang[k - 1]!);
+  return ((2 * Math.PI - gap) * 180) / Math.PI;
 }
 
 export interface AxisLine {

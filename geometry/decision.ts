@@ -19,20 +19,29 @@ export interface ToleranceCheck {
   /** Lower specification limit; null for a one-sided tolerance (upper limit only). */
   readonly lower: number | null;
   readonly upper: number;
-  /** Expanded uncertainty (k = 2), ≥ 0, same unit as the limits. */
-  readonly U: number;
+  /**
+   * Expanded uncertainty (k = 2), ≥ 0, same unit as the limits; null when no uncertainty is known.
+   * The guarded rule cannot decide without it: the result is "undecided" with reason "U missing"
+   * (never a silent simple decision). The simple rule does not need U.
+   */
+  readonly U: number | null;
   readonly rule: DecisionRule;
   readonly unit?: string;
 }
+
+/** Why a decision is undecided for a reason other than the guard band. */
+export type DecisionReason = "U missing";
 
 export interface DecisionResult {
   readonly decision: Decision;
   readonly measured: number;
   readonly lower: number | null;
   readonly upper: number;
-  readonly U: number;
+  readonly U: number | null;
   readonly rule: DecisionRule;
   readonly unit?: string;
+  /** Present when the decision could not be made by the rule: guarded without U. */
+  readonly reason?: DecisionReason;
 }
 
 /**
@@ -49,27 +58,27 @@ export function decide(check: ToleranceCheck): DecisionResult {
     throw new GeometryError("bad_number", "tolerance limits must be finite");
   if (lower !== null && lower > upper)
     throw new GeometryError("bad_option", "the lower limit is above the upper limit");
-  if (!Number.isFinite(U) || U < 0)
+  if (U !== null && (!Number.isFinite(U) || U < 0))
     throw new GeometryError("bad_option", "the expanded uncertainty U must be ≥ 0");
-  const eps = 8 * Number.EPSILON * Math.max(Math.abs(measured), Math.abs(upper), Math.abs(lower ?? 0), U);
+  const base = { measured, lower, upper, U, rule, ...(check.unit !== undefined ? { unit: check.unit } : {}) };
+  if (U === null && rule === "guarded") return { decision: "undecided", ...base, reason: "U missing" };
+  const u = U ?? 0;
+  const eps = 8 * Number.EPSILON * Math.max(Math.abs(measured), Math.abs(upper), Math.abs(lower ?? 0), u);
   const le = (x: number, y: number) => x <= y + eps;
   let decision: Decision;
   if (rule === "simple") {
     decision = le(measured, upper) && (lower === null || le(lower, measured)) ? "pass" : "fail";
-  } else if (!le(measured, upper + U) || (lower !== null && !le(lower - U, measured))) {
+  } else if (!le(measured, upper + u) || (lower !== null && !le(lower - u, measured))) {
     decision = "fail";
-  } else if (le(measured, upper - U) && (lower === null || le(lower + U, measured))) {
+  } else if (le(measured, upper - u) && (lower === null || le(lower + u, measured))) {
     decision = "pass";
   } else {
     decision = "undecided";
   }
-  return {
-    decision,
-    measured,
-    lower,
-    upper,
-    U,
-    rule,
-    ...(check.unit !== undefined ? { unit: check.unit } : {}),
-  };
+  return { decision, ...base };
+}
+
+/** "undecided — U missing" for a guarded decision without U; otherwise the decision itself. */
+export function decisionText(d: Pick<DecisionResult, "decision" | "reason">): string {
+  return d.reason ? `${d.decision} — ${d.reason}` : d.decision;
 }

@@ -2,7 +2,7 @@
  * Test-part evaluation: each measured characteristic against its tolerance, with the expanded
  * uncertainty and the decision rule of ISO 14253-1 (see decision.ts).
  */
-import { decide, type Decision, type DecisionRule } from "./decision";
+import { decide, type Decision, type DecisionReason, type DecisionRule } from "./decision";
 import { GeometryError } from "./errors";
 import type { TestPartRow } from "./types";
 import { MM_PER_INCH } from "./units";
@@ -29,8 +29,11 @@ export interface TestPartResultRow {
   /** Absolute limits nominal + lower_tol, nominal + upper_tol; lower null for a one-sided tolerance. */
   readonly lower_limit: number | null;
   readonly upper_limit: number;
+  /** The row's U; 0 when none was given (then `reason` says so under the guarded rule). */
   readonly U: number;
   readonly decision: Decision;
+  /** "U missing": the guarded rule had no U for this row, so it is undecided. */
+  readonly reason?: DecisionReason;
   readonly sourceRow?: number;
 }
 
@@ -50,8 +53,10 @@ const LENGTH_PER_MM: Readonly<Record<string, number>> = { mm: 1, in: 1 / MM_PER_
 
 /**
  * Evaluate rows: deviation = measured − nominal; limits nominal + tolerances; U per row, else the
- * default for the row's unit (a mm default converted to in by ÷ 25.4, to µm by × 1000), else 0
- * with a warning; decision by the chosen rule (ISO 14253-1 simple or guarded acceptance).
+ * default for the row's unit (a mm default converted to in by ÷ 25.4, to µm by × 1000), else none
+ * with a warning; decision by the chosen rule (ISO 14253-1 simple or guarded acceptance). Without U
+ * the simple rule decides as usual (U shown as 0) and the guarded rule gives "undecided" with
+ * reason "U missing".
  */
 export function evaluateTestPart(rows: readonly TestPartRow[], options: TestPartOptions): TestPartResult {
   const warnings: string[] = [];
@@ -64,13 +69,11 @@ export function evaluateTestPart(rows: readonly TestPartRow[], options: TestPart
     if (U === undefined) U = defaultUByUnit?.[r.unit];
     if (U === undefined && defaultUMm !== undefined && LENGTH_PER_MM[r.unit] !== undefined)
       U = defaultUMm * LENGTH_PER_MM[r.unit]!;
-    if (U === undefined) {
-      U = 0;
-      noU.add(r.unit);
-    }
+    const missing = U === undefined;
+    if (missing) noU.add(r.unit);
     const lower = r.lowerTol === null ? null : r.nominal + r.lowerTol;
     const upper = r.nominal + r.upperTol;
-    const d = decide({ measured: r.measured, lower, upper, U, rule: options.rule, unit: r.unit });
+    const d = decide({ measured: r.measured, lower, upper, U: U ?? null, rule: options.rule, unit: r.unit });
     return {
       feature: r.feature,
       characteristic: r.characteristic,
@@ -80,12 +83,18 @@ export function evaluateTestPart(rows: readonly TestPartRow[], options: TestPart
       deviation: r.measured - r.nominal,
       lower_limit: lower,
       upper_limit: upper,
-      U,
+      U: U ?? 0,
       decision: d.decision,
+      ...(d.reason ? { reason: d.reason } : {}),
       ...(r.sourceRow !== undefined ? { sourceRow: r.sourceRow } : {}),
     };
   });
-  for (const u of noU) warnings.push(`no expanded uncertainty given for rows in ${u}; U taken as 0`);
+  for (const u of noU)
+    warnings.push(
+      options.rule === "guarded"
+        ? `no expanded uncertainty given for rows in ${u}; the guarded rule cannot decide them: undecided — U missing`
+        : `no expanded uncertainty given for rows in ${u}; U taken as 0`,
+    );
   const count = (k: Decision) => out.filter((r) => r.decision === k).length;
   return {
     rule: options.rule,

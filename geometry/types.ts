@@ -27,6 +27,9 @@ export interface TramData {
   readonly travelMm: Float64Array;
   readonly readingUm: Float64Array;
   readonly note?: readonly (string | undefined)[];
+  /** Optional plane of each row (XZ or YZ) and bar position (0 or 180°): tram in two planes. */
+  readonly plane?: readonly ("XZ" | "YZ")[];
+  readonly barDeg?: Float64Array;
   readonly sourceRow?: Int32Array;
 }
 
@@ -52,4 +55,17 @@ export interface TestPartRow {
   readonly upperTol: number;
   readonly unit: string;
   readonly sourceRow?: number;
+}
+
+/** Rotary positioning (ISO 230-2): each row one approach of a target angle from one direction. */
+export interface RotaryPositioningData {
+  readonly rows: number;
+  readonly targetDeg: Float64Array;
+  readonly run: Float64Array;
+  /** "pos": approached in the positive sense; "neg": in the negative sense. */
+  readonly direction: readonly ("pos" | "neg")[];
+  readonly measuredDeg: Float64Array;
+  /** The axis letter when the file names it (one axis per file). */
+  readonly axis?: string;
+  readonly sourceRow?: Int32Array;
 }

@@ -74,13 +74,17 @@ export function expandedUncertainty(step: StepRule, instrumentStdU: number | nul
 /**
  * Judges a canonical value against the step's limits with geometry's decide(). A lower-only
  * limit is judged by mirroring (x ≥ L ⇔ −x ≤ −L), since decide() needs an upper limit.
+ * A U of 0 or none means no uncertainty is known (expandedUncertainty gives 0 without an
+ * instrument's uncertainty): the guarded rule then gives "undecided" (U missing), never a silent
+ * simple decision.
  */
-export function judge(step: StepRule, value: number | null | undefined, U = 0): StepDecision {
+export function judge(step: StepRule, value: number | null | undefined, U: number | null = 0): StepDecision {
   if (value == null || !Number.isFinite(value)) return "not_measured";
   const { lowerLimit: lo, upperLimit: hi, decisionRule: rule } = step;
   if (lo == null && hi == null) return "no_limit";
-  if (hi != null) return decide({ measured: value, lower: lo, upper: hi, U, rule }).decision;
-  return decide({ measured: -value, lower: null, upper: -(lo as number), U, rule }).decision;
+  const u = U != null && U > 0 ? U : null;
+  if (hi != null) return decide({ measured: value, lower: lo, upper: hi, U: u, rule }).decision;
+  return decide({ measured: -value, lower: null, upper: -(lo as number), U: u, rule }).decision;
 }
 
 export const DECISION_LABELS: Record<StepDecision, string> = {

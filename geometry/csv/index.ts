@@ -8,5 +8,6 @@ export { readTramCsv, type TramCsvOptions } from "./tram";
 export { readSweepCsv, type SweepCsvOptions } from "./sweep";
 export { readTestPartCsv, TEST_PART_UNITS, type TestPartUnit, type TestPartCsvOptions } from "./test-part";
 export { formatIssue, MAX_ISSUES, type CsvDecimal, type CsvWarning, type WithWarnings } from "./table";
+export { readRotaryPositioningCsv } from "./rotary-positioning";
 export { readPointsCsv, type PointsData } from "./points";
 export type { CoordinateUnits, ReadingUnits } from "./units";

@@ -11,6 +11,7 @@ import {
   fitCircle,
   fitSweep,
   fitTram,
+  fitTramPlanes,
   formatIssue,
   GeometryError,
   readPointsCsv,
@@ -26,6 +27,7 @@ import { choiceOption, CliUsageError, numberOption, type CliCommand, type CliCon
 // using the CliCommand type of ./command.ts. To register them, uncomment this import and the
 // `...headCommands` line in `commands` below.
 import { headCommands } from "./head-commands";
+import { checkCommands } from "./check-commands";
 
 const decimalOf = (ctx: CliContext) => choiceOption(ctx, "decimal", ["point", "comma"] as const, "point");
 const passWarnings = (ctx: CliContext, warnings: readonly CsvWarning[]) =>
@@ -42,12 +44,16 @@ const circle: CliCommand = {
     });
     passWarnings(ctx, data.warnings);
     const f = fitCircle(data);
+    f.warnings.forEach((w) => ctx.warn(w));
     return {
       centre_mm: f.centre_mm,
       normal: f.normal,
       radius_mm: f.radius_mm,
       rms_um: f.rms_um,
       max_um: f.max_um,
+      radius_U_mm: f.radius_U_mm,
+      centre_U_mm: f.centre_U_mm,
+      normal_U_arcsec: f.normal_U_arcsec,
     };
   },
 };
@@ -63,6 +69,19 @@ const tram: CliCommand = {
       decimal: decimalOf(ctx),
     });
     passWarnings(ctx, data.warnings);
+    if (data.plane) {
+      const p = fitTramPlanes({ ...data, plane: data.plane });
+      p.warnings.forEach((w) => ctx.warn(w));
+      return {
+        planes: p.planes.map((q) => ({
+          plane: q.plane,
+          slope_um_per_m: q.slope_um_per_m,
+          slope_U_um_per_m: q.slope_U_um_per_m,
+          angle_arcsec: q.angle_arcsec,
+          ...(q.bar_um_per_m !== undefined ? { bar_um_per_m: q.bar_um_per_m } : {}),
+        })),
+      };
+    }
     const r = fitTram(data);
     return {
       slope_um_per_m: r.slope_um_per_m,
@@ -121,6 +140,7 @@ export const commands: Readonly<Record<string, CliCommand>> = {
   sweep,
   "test-part": testPart,
   ...headCommands, // HEAD COMMANDS: see the import above.
+  ...checkCommands, // rotary-positioning, tcp-check: ./check-commands.ts
 };
 
 function help(): string {

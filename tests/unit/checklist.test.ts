@@ -46,6 +46,10 @@ describe("decision against limits (ISO 14253-1 via geometry/decision)", () => {
     expect(judge(guarded, 0.011, U)).toBe("undecided");
     expect(judge(guarded, 0.014, U)).toBe("undecided");
     expect(judge(guarded, 0.016, U)).toBe("fail");
+    // No instrument uncertainty (U 0 or none): the guarded rule cannot decide — U missing (ISO 14253-1).
+    expect(judge(guarded, 0.009)).toBe("undecided");
+    expect(judge(guarded, 0.009, expandedUncertainty(guarded, null))).toBe("undecided");
+    expect(judge(collar, 0.009)).not.toBe("undecided");
   });
   it("a lower-only limit is judged by mirroring", () => {
     const atLeast: StepRule = { ...collar, lowerLimit: 1, upperLimit: null };

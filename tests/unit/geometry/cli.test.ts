@@ -74,7 +74,18 @@ describe("npm run geometry", { timeout: 60_000 }, () => {
     // Gander, Golub & Strebel (1994) six points in the plane z = 10: centre (4.7398, 2.9835), r 4.7142.
     expect(circle.code).toBe(0);
     const c = JSON.parse(circle.stdout);
-    expect(Object.keys(c)).toEqual(["centre_mm", "normal", "radius_mm", "rms_um", "max_um"]);
+    expect(Object.keys(c)).toEqual([
+      "centre_mm",
+      "normal",
+      "radius_mm",
+      "rms_um",
+      "max_um",
+      "radius_U_mm",
+      "centre_U_mm",
+      "normal_U_arcsec",
+    ]);
+    expect(c.radius_U_mm).toBeGreaterThan(0);
+    expect(c.centre_U_mm).toHaveLength(3);
     expect(c.centre_mm[0]).toBeCloseTo(4.739782, 5);
     expect(c.centre_mm[1]).toBeCloseTo(2.983533, 5);
     expect(c.centre_mm[2]).toBeCloseTo(10, 9);
@@ -117,8 +128,10 @@ describe("npm run geometry", { timeout: 60_000 }, () => {
     const p = JSON.parse(part.stdout);
     expect(p.rule).toBe("guarded");
     // bore 25.004 in [25.003, 25.018] → pass; flatness 0.008 > 0.01 − 0.003 → undecided; the arcsec
-    // row has no U (a mm default does not apply to angles) → simple comparison 12″ ≤ 20″ → pass.
-    expect(p.rows.map((r: { decision: string }) => r.decision)).toEqual(["pass", "undecided", "pass"]);
+    // row has no U (a mm default does not apply to angles) → the guarded rule cannot decide it:
+    // undecided — U missing (ISO 14253-1 needs U to prove conformance; never a silent simple rule).
+    expect(p.rows.map((r: { decision: string }) => r.decision)).toEqual(["pass", "undecided", "undecided"]);
+    expect(p.rows[2].reason).toBe("U missing");
     expect(part.stderr).toContain("no expanded uncertainty given for rows in arcsec");
 
     expect(bad.code).toBe(2);

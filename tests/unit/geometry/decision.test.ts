@@ -2,7 +2,7 @@
 // (conformance proven inside [LSL + U, USL − U], non-conformance outside [LSL − U, USL + U],
 // neither between); one-sided tolerances have only the upper limit.
 import { describe, expect, it } from "vitest";
-import { decide, GeometryError } from "@/geometry";
+import { decide, decisionText, GeometryError } from "@/geometry";
 
 const two = { lower: 9.98, upper: 10.02, U: 0.005 };
 
@@ -57,5 +57,25 @@ describe("decide (ISO 14253-1)", () => {
     expect(() => decide({ measured: 1, lower: 0, upper: 2, U: 0, rule: "strict" as "simple" })).toThrow(
       GeometryError,
     );
+  });
+
+  it("guarded without U is undecided — U missing, never a silent simple decision (ISO 14253-1)", () => {
+    // 19.5″ against a 20″ limit: passes by the simple rule, cannot be proven by the guarded rule.
+    const r = decide({ measured: 19.5, lower: null, upper: 20, U: null, rule: "guarded", unit: "arcsec" });
+    expect(r.decision).toBe("undecided");
+    expect(r.reason).toBe("U missing");
+    expect(decisionText(r)).toBe("undecided — U missing");
+    // Even far outside the limits: without U the guarded rule states what is missing.
+    expect(decide({ measured: 50, lower: null, upper: 20, U: null, rule: "guarded" }).reason).toBe(
+      "U missing",
+    );
+    const simple = decide({ measured: 19.5, lower: null, upper: 20, U: null, rule: "simple" });
+    expect(simple.decision).toBe("pass");
+    expect(simple.reason).toBeUndefined();
+    expect(decisionText(simple)).toBe("pass");
+    expect(decide({ measured: 19.5, lower: null, upper: 20, U: 1, rule: "guarded" }).decision).toBe(
+      "undecided",
+    );
+    expect(decide({ measured: 18.5, lower: null, upper: 20, U: 1, rule: "guarded" }).decision).toBe("pass");
   });
 });

@@ -42,6 +42,17 @@ describe("evaluateTestPart", () => {
     expect(r.rows[0]!.U).toBeCloseTo(0.0001, 15);
     expect(r.rows[0]!.decision).toBe("undecided");
     expect(r.rows[1]!.U).toBe(0);
-    expect(r.warnings).toEqual(["no expanded uncertainty given for rows in deg; U taken as 0"]);
+    // Guarded without U (ISO 14253-1 needs U to prove conformance): undecided — U missing, not a pass.
+    expect(r.rows[1]!.decision).toBe("undecided");
+    expect(r.rows[1]!.reason).toBe("U missing");
+    expect(r.rows[0]!.reason).toBeUndefined();
+    expect(r.warnings).toEqual([
+      "no expanded uncertainty given for rows in deg; the guarded rule cannot decide them: undecided — U missing",
+    ]);
+    // The simple rule does not use U: the same row passes, U shown as 0 with a warning.
+    const s = evaluateTestPart(inch, { rule: "simple", defaultUMm: 0.00254 });
+    expect(s.rows[1]!.decision).toBe("pass");
+    expect(s.rows[1]!.reason).toBeUndefined();
+    expect(s.warnings).toEqual(["no expanded uncertainty given for rows in deg; U taken as 0"]);
   });
 });
