@@ -20,6 +20,15 @@ export default tseslint.config(
   {
     rules: {
       "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_" }],
+      // The DOM's window globals (status, name, …) type-check anywhere, so a lost local of the same
+      // name compiles and fails only at run time on the server. Refuse the common ones.
+      "no-restricted-globals": [
+        "error",
+        ...["status", "name", "length", "event", "origin", "parent", "top", "closed"].map((name) => ({
+          name,
+          message: `'${name}' here is the browser's window.${name}; declare a local or use window.${name}.`,
+        })),
+      ],
     },
   },
   {
