@@ -29,18 +29,8 @@ const MM_PER_UM = 1e-3;
 
 /** R(a, φ) as a row-major 3×3 into out (Rodrigues). a must be a unit vector. */
 export function rotationMatrix(ax: number, ay: number, az: number, phi: number, out: Float64Array): void {
-  const c = Math.cos(phi);
-  const s = Math.sin(phi);
-  const k = 1 - c;
-  out[0] = c + ax * ax * k;
-  out[1] = ax * ay * k - az * s;
-  out[2] = ax * az * k + ay * s;
-  out[3] = ay * ax * k + az * s;
-  out[4] = c + ay * ay * k;
-  out[5] = ay * az * k - ax * s;
-  out[6] = az * ax * k - ay * s;
-  out[7] = az * ay * k + ax * s;
-  out[8] = c + az * az * k;
+  // cos(φ + 0) = cos φ·1 − sin φ·0 exactly, so this is the same matrix bit for bit.
+  rotationMatrixSum(ax, ay, az, Math.cos(phi), Math.sin(phi), 1, 0, out);
 }
 
 /**

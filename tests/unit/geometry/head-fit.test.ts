@@ -6,7 +6,6 @@ import { levenbergMarquardt as mlLm } from "ml-levenberg-marquardt";
 import { describe, expect, it } from "vitest";
 import {
   fitHead,
-  GeometryError,
   headFitToJson,
   headPoseGrid,
   HEAD_PARAMETER_KEYS,
@@ -18,31 +17,11 @@ import {
   type HeadFitResult,
   type SphereProbeData,
 } from "@/geometry";
+import { CA, ERR, thrown } from "./head-helpers";
 
-const CA: HeadConfig = { primary: "C", secondary: "A", pivotLengthMm: 152.4 };
 const grid = (tools: number[], primarySteps = 8) =>
   headPoseGrid({ primarySteps, secondaryDeg: [-90, -45, 0, 45, 90], toolMm: tools });
-const ERR: HeadErrors = {
-  pivot_length_error_um: 50,
-  tip_offset_s_um: -30,
-  tip_offset_n_um: 80,
-  secondary_offset_um: 20,
-  primary_zero_arcsec: 100,
-  secondary_zero_arcsec: -60,
-  secondary_tilt_arcsec: 40,
-  primary_tilt_s_arcsec: -25,
-  primary_tilt_n_arcsec: 15,
-};
 const value = (r: HeadFitResult, k: string) => r.parameters.find((p) => p.key === k)!;
-const thrown = (f: () => unknown): GeometryError => {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof GeometryError) return e;
-    throw e;
-  }
-  throw new Error("expected a GeometryError");
-};
 
 describe("fitHead against ml-levenberg-marquardt (independent general-purpose package)", () => {
   it("both reach the same estimates on the same synthetic data", () => {

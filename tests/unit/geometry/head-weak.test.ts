@@ -15,26 +15,13 @@ import {
   HEAD_PARAMETER_KEYS,
   measuredSphereCentreMm,
   synthesiseSphereProbe,
-  type HeadConfig,
   type HeadErrors,
   type HeadFitResult,
   type SphereProbeData,
 } from "@/geometry";
+import { CA, ERR, thrown } from "./head-helpers";
 import { main } from "@/lib/cli/geometry";
 
-const CA: HeadConfig = { primary: "C", secondary: "A", pivotLengthMm: 152.4 };
-// Invented error values for the tests only.
-const ERR: HeadErrors = {
-  pivot_length_error_um: 50,
-  tip_offset_s_um: -30,
-  tip_offset_n_um: 80,
-  secondary_offset_um: 20,
-  primary_zero_arcsec: 100,
-  secondary_zero_arcsec: -60,
-  secondary_tilt_arcsec: 40,
-  primary_tilt_s_arcsec: -25,
-  primary_tilt_n_arcsec: 15,
-};
 const synth = (secondaryDeg: number[], toolMm: number[], seed = 7) =>
   synthesiseSphereProbe(CA, ERR, headPoseGrid({ primarySteps: 24, secondaryDeg, toolMm }), {
     noiseUm: 1,
@@ -42,15 +29,6 @@ const synth = (secondaryDeg: number[], toolMm: number[], seed = 7) =>
     centreMm: [250, -120, 400],
   });
 const param = (r: HeadFitResult, key: string) => r.parameters.find((p) => p.key === key)!;
-const thrown = (f: () => unknown): GeometryError => {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof GeometryError) return e;
-    throw e;
-  }
-  throw new Error("expected a GeometryError");
-};
 /** No parameter is "yes" with U above the 10 µm / 10″ scale. */
 const noLargeYes = (r: HeadFitResult) =>
   r.parameters.filter((p) => p.identifiable === "yes" && p.U !== null && p.U > 10).map((p) => p.key);
