@@ -14,6 +14,7 @@ import {
   getApprovedAnalysis,
   headConfigOf,
   listJobAnalyses,
+  visitPlanOf,
   withPoses,
   type AnalysisListRow,
 } from "@/db/queries/analyses";
@@ -25,7 +26,6 @@ import type { HeadErrors, HeadPose } from "@/geometry";
 import { canTransition, headFitRefusal, STATUS_LABELS } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
-import { nextVisitPlan } from "@/lib/pose-coverage";
 import { SavedViews } from "./saved-views";
 
 export const metadata: Metadata = { title: "Analysis" };
@@ -330,10 +330,7 @@ function FitSection({
         </Card>
 
         <Card title="Probed poses and the next visit">
-          <PoseCoverage
-            visit={nextVisitPlan(config, r.poses.primary_deg, r.poses.secondary_deg, r.poses.tool_mm)}
-            poses={poses}
-          />
+          <PoseCoverage visit={visitPlanOf(a, config)} poses={poses} />
         </Card>
       </section>
 
