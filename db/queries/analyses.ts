@@ -18,6 +18,7 @@ import {
   type SphereProbeData,
 } from "@/geometry";
 import { canonicalJson } from "@/lib/canonical-json";
+import { nextVisitPlan, type NextVisitPlan } from "@/lib/pose-coverage";
 
 import { type Actor } from "@/lib/domain/roles";
 import {
@@ -354,6 +355,27 @@ export async function withPoses<R extends AnalysisListRow>(row: R): Promise<R & 
     .where(eq(analyses.id, row.analysis.id));
   if (!p) throw notFound("analysis");
   return { ...row, analysis: { ...row.analysis, result: { ...row.analysis.result, poses: p.poses } } };
+}
+
+/** How many visit plans each process keeps (one per fit recently shown; the oldest goes first). */
+const MAX_CACHED_PLANS = 64;
+const plans = new Map<string, NextVisitPlan>();
+
+/**
+ * The coverage and pose-planner advice of a stored fit for the head configuration shown: the
+ * planner's work grows with the poses (about 0.1–0.3 s at 100 000), and a stored analysis never
+ * changes (no query updates or deletes one), so each process computes it once per fit and
+ * configuration and then reuses the same result.
+ */
+export function visitPlanOf(a: Pick<AnalysisRow, "id" | "result">, config: HeadConfig): NextVisitPlan {
+  const key = `${a.id}\n${canonicalJson(config)}`;
+  const hit = plans.get(key);
+  if (hit) return hit;
+  const p = a.result.poses;
+  const plan = nextVisitPlan(config, p.primary_deg, p.secondary_deg, p.tool_mm);
+  if (plans.size >= MAX_CACHED_PLANS) plans.delete(plans.keys().next().value!);
+  plans.set(key, plan);
+  return plan;
 }
 
 /**

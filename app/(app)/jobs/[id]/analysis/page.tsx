@@ -15,6 +15,7 @@ import {
   getApprovedAnalysis,
   headConfigOf,
   listJobAnalyses,
+  visitPlanOf,
   withPoses,
   type AnalysisListRow,
 } from "@/db/queries/analyses";
@@ -30,7 +31,6 @@ import type { Actor } from "@/lib/domain/roles";
 import { fitApproverRefusal, headFitRefusal, viewSaveRefusal } from "@/lib/policy/analyses";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
-import { nextVisitPlan } from "@/lib/pose-coverage";
 import { SavedViews } from "./saved-views";
 
 export const metadata: Metadata = { title: "Analysis" };
@@ -276,10 +276,7 @@ function FitSection({
         </Card>
 
         <Card title="Probed poses and the next visit">
-          <PoseCoverage
-            visit={nextVisitPlan(config, r.poses.primary_deg, r.poses.secondary_deg, r.poses.tool_mm)}
-            poses={poses}
-          />
+          <PoseCoverage visit={visitPlanOf(a, config)} poses={poses} />
         </Card>
       </section>
 
