@@ -5,7 +5,8 @@
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
-import { issueReport, signJobWork } from "@/db/queries/reports";
+import { issueReport } from "@/db/queries/reports";
+import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
 import { datasets, jobs, reports, signatures, users } from "@/db/schema";
 

@@ -1,4 +1,4 @@
-import type { VerificationResult } from "@/db/queries/reports";
+import type { VerificationResult } from "@/lib/report/types";
 
 /** What a verification found, in plain words, with icon and word as well as colour. */
 export function VerificationResultView({ result }: { result: VerificationResult }) {

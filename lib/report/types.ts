@@ -120,3 +120,27 @@ export interface ReportCharts {
   /** Residual magnitude per pose (µm), at most a few hundred points (the largest of each bucket), with s and the 3 s outlier line. */
   residuals?: { valuesUm: number[]; totalPoses: number; sUm: number; perPoint: number };
 }
+
+/** What the public verification says of a report id or a checked file. */
+export interface VerificationResult {
+  authentic: boolean;
+  reason?: string;
+  report?: {
+    id: string;
+    reference: string;
+    revision: number;
+    issuedAtUtc: string;
+    pdfSha256: string;
+    supersededBy: { id: string; revision: number } | null;
+    amendmentOf: { id: string; revision: number } | null;
+  };
+  signatures?: Array<{
+    meaning: string;
+    name: string;
+    role: string;
+    signedAtUtc: string;
+    valid: boolean;
+    comment: string | null;
+  }>;
+  keyId?: string;
+}

@@ -17,7 +17,8 @@ import { saveAnalysisView } from "@/db/queries/analysis-views";
 import { deleteDataset } from "@/db/queries/datasets";
 import { changeJobStatus, createJobFromTemplate } from "@/db/queries/job-status";
 import { recordReading } from "@/db/queries/readings";
-import { issueReport, respondToReport, signJobWork } from "@/db/queries/reports";
+import { issueReport, respondToReport } from "@/db/queries/reports";
+import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import {

@@ -1,4 +1,4 @@
-import { verifyPdfFile } from "@/db/queries/reports";
+import { verifyPdfFile } from "@/db/queries/verification";
 import { invalid, tooLarge } from "@/lib/errors";
 import { route } from "@/lib/http";
 

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { VerificationResultView } from "@/components/report/verification-result";
-import { verifyReport } from "@/db/queries/reports";
+import { verifyReport } from "@/db/queries/verification";
 
 export const metadata: Metadata = { title: "Report verification" };
 

@@ -2,7 +2,8 @@
 
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
-import { issueReport, respondToReport, signJobWork } from "@/db/queries/reports";
+import { issueReport, respondToReport } from "@/db/queries/reports";
+import { signJobWork } from "@/db/queries/signatures";
 import { action } from "@/lib/actions";
 
 const password = z.string().min(1, "Re-enter your password to sign.");

@@ -4,10 +4,12 @@ import { ReportView } from "@/components/report/report-view";
 import { SignForm } from "@/components/report/sign-form";
 import { Card } from "@/components/ui/card";
 import { getJobDetail } from "@/db/queries/jobs";
-import { getReportContent, listJobReports, listJobSignatures } from "@/db/queries/reports";
+import { getReportContent, listJobReports } from "@/db/queries/reports";
+import { listJobSignatures } from "@/db/queries/signatures";
 import { ROLE_LABELS, SIGNATURE_LABELS, signatureRefusal } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
+import { amendRefusal } from "@/lib/policy/reports";
 import { issueReportAction, respondAction, signWorkAction } from "./actions";
 
 export const metadata: Metadata = { title: "Report" };
@@ -22,10 +24,7 @@ export default async function ReportPage({ params }: Props) {
   const current = revisions?.[0] ?? null;
   const content = current ? await getReportContent(user, current.id) : null;
   const mayIssue = !current && !signatureRefusal(user, "approved", d.job);
-  const mayAmend =
-    Boolean(current) &&
-    user.role === "engineer" &&
-    (d.job.status === "issued" || d.job.status === "rejected");
+  const mayAmend = !amendRefusal(user, { status: d.job.status, hasIssuedRevision: Boolean(current) });
   const mayRespond = current && !signatureRefusal(user, "accepted", d.job);
   const work = (["performed", "inspected"] as const).filter(
     (m) =>
