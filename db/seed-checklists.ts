@@ -225,6 +225,15 @@ const READINGS_0041: DemoReading[] = [
     minutes: 35,
   },
   { step: 2, phase: "pre", value: 0.094, unit: "in", instrument: "FG-0031", minutes: 60 },
+  {
+    step: 2,
+    phase: "post",
+    value: 0.093,
+    unit: "in",
+    instrument: "FG-0031",
+    note: "Gap checked again after the collar was shimmed",
+    minutes: 140,
+  },
   { step: 3, phase: "pre", value: 0.0006, unit: "in", instrument: "DTI-0112", minutes: 90 },
   {
     step: 3,

@@ -8,7 +8,14 @@ import { getComparison } from "@/db/queries/readings";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
 import { latestJobView } from "@/db/queries/analysis-views";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
-import { manifestFor, preIssueSignatures, requirePasswordReentry, visibleJob } from "@/db/queries/signatures";
+import { countingTestPart, readinessInput } from "@/db/queries/readiness";
+import {
+  jobStateSha256,
+  manifestFor,
+  preIssueSignatures,
+  requirePasswordReentry,
+  visibleJob,
+} from "@/db/queries/signatures";
 import {
   instruments,
   jobs,
@@ -34,8 +41,9 @@ import {
   testPartRows,
 } from "@/lib/report/build";
 import { getSigningKey } from "@/lib/report/keys";
+import { NotReadyError, readiness } from "@/lib/report/readiness";
 import { renderReportPdf } from "@/lib/report/render";
-import { sha256Hex, signManifest } from "@/lib/report/signing";
+import { sha256Hex, signManifest, type SignatureManifest } from "@/lib/report/signing";
 import type { ReportData, ReportSignature } from "@/lib/report/types";
 
 /**
@@ -63,10 +71,7 @@ async function jobInstruments(jobId: string) {
 
 /** The latest test-part dataset (after adjustment preferred), judged under the job's decision rule. */
 async function jobTestPart(actor: Actor, jobId: string): Promise<ReportData["testPart"]> {
-  const list = ((await listDatasets(actor, jobId)) ?? []).filter(
-    (x) => x.kind === "test_part" && x.status === "stored",
-  );
-  const pick = list.find((x) => x.phase === "post") ?? list[0];
+  const pick = countingTestPart((await listDatasets(actor, jobId)) ?? []);
   if (!pick) return [];
   const ev = await getTestPartEvaluation(actor, pick.id);
   return ev?.evaluation ? testPartRows(ev.evaluation.rows) : [];
@@ -102,8 +107,9 @@ export async function buildReportData(
     amendment?: ReportData["amendment"];
   },
 ): Promise<{ data: ReportData; images: Map<string, Buffer> }> {
-  const [sigs, params, comparison, template, instrumentList, testPart] = await Promise.all([
+  const [sigs, state, params, comparison, template, instrumentList, testPart] = await Promise.all([
     preIssueSignatures(d.job.id),
+    jobStateSha256(d.job.id),
     approvedParameters(actor, d),
     getComparison(actor, d.job.id),
     d.job.templateId
@@ -134,7 +140,10 @@ export async function buildReportData(
     parameters: params?.section ?? null,
     testPart,
     figures,
-    signatures: sigs.map(signatureLine),
+    // The pre-issue signatures that cover the record as issued (a stale one was signed again).
+    signatures: sigs
+      .filter((s) => (s.manifest as SignatureManifest).stateSha256 === state)
+      .map(signatureLine),
     verifyUrl: `${publicUrl}/verify/${meta.reportId}`,
   });
   return { data, images };
@@ -171,6 +180,8 @@ export async function issueReport(
     if (refusal) throw forbidden(refusal);
   }
   await requirePasswordReentry(actor, input.password);
+  const ready = readiness(await readinessInput(actor, d));
+  if (!ready.ready) throw new NotReadyError(ready.blockers);
 
   const reportId = crypto.randomUUID();
   const revision = (current?.revision ?? 0) + 1;

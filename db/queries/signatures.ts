@@ -3,7 +3,7 @@ import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
-import { datasets, jobs, readings, signatures, users } from "@/db/schema";
+import { datasets, readings, signatures, users } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
 import { SIGNATURE_LABELS, signatureRefusal, type Actor, type SignatureMeaningKey } from "@/lib/auth/roles";
 import { canonicalJson } from "@/lib/canonical-json";
@@ -38,17 +38,19 @@ export async function visibleJob(actor: Actor, jobId: string): Promise<JobDetail
   return d;
 }
 
-/** A hash of what has been recorded on the job, so a pre-issue signature says what it covered. */
+/**
+ * A hash of what has been recorded on the job (its current and superseded readings, with value,
+ * phase and instrument, and its datasets with their SHA-256 and status), so a pre-issue signature
+ * says what it covered: a reading or dataset recorded later changes it, and the readiness check
+ * (lib/report/readiness.ts) then asks for the signature again. Status changes do not change it.
+ */
 export async function jobStateSha256(jobId: string): Promise<string> {
-  const [job] = await db
-    .select({ status: jobs.status, updatedAt: jobs.updatedAt })
-    .from(jobs)
-    .where(eq(jobs.id, jobId));
   const rs = await db
     .select({
       id: readings.id,
       value: readings.value,
       phase: readings.phase,
+      instrumentId: readings.instrumentId,
       supersededById: readings.supersededById,
     })
     .from(readings)
@@ -59,7 +61,7 @@ export async function jobStateSha256(jobId: string): Promise<string> {
     .from(datasets)
     .where(eq(datasets.jobId, jobId))
     .orderBy(asc(datasets.id));
-  return sha256Hex(canonicalJson({ job, readings: rs, datasets: ds }));
+  return sha256Hex(canonicalJson({ state: 2, readings: rs, datasets: ds }));
 }
 
 /** What a signature signs: who, meaning, when, and the report bytes or the job state it covers. */
@@ -94,8 +96,10 @@ export async function signJobWork(
   const refusal = signatureRefusal(actor, input.meaning, d.job);
   if (refusal) throw forbidden(refusal);
   await requirePasswordReentry(actor, input.password);
+  // One current signature per signer and meaning; a stale one (the record changed after it) is signed again.
+  const stateSha256 = await jobStateSha256(d.job.id);
   const existing = await db
-    .select({ id: signatures.id })
+    .select({ manifest: signatures.manifest })
     .from(signatures)
     .where(
       and(
@@ -105,16 +109,10 @@ export async function signJobWork(
         isNull(signatures.reportId),
       ),
     );
-  if (existing.length > 0)
+  if (existing.some((s) => (s.manifest as SignatureManifest).stateSha256 === stateSha256))
     throw invalid(`You have already signed this job as ${SIGNATURE_LABELS[input.meaning].toLowerCase()}.`);
   const signedAt = new Date();
-  const manifest = manifestFor(
-    actor,
-    input.meaning,
-    d.job,
-    { stateSha256: await jobStateSha256(d.job.id) },
-    signedAt,
-  );
+  const manifest = manifestFor(actor, input.meaning, d.job, { stateSha256 }, signedAt);
   const signature = signManifest(manifest, getSigningKey());
   return db.transaction(async (tx) => {
     const [row] = await tx

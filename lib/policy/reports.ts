@@ -22,3 +22,19 @@ export function amendRefusal(actor: Pick<Actor, "role">, subject: AmendSubject):
     return "An amendment follows an issued or rejected report.";
   return null;
 }
+
+/**
+ * A FAIL or undecided result is carried into the report as a deviation by an application
+ * engineer, while the job is in review or approved (before the report is issued).
+ */
+export function deviationRefusal(actor: Pick<Actor, "role">, subject: { status: string }): string | null {
+  if (actor.role !== "engineer") return "Only an application engineer records a deviation.";
+  if (subject.status !== "in_review" && subject.status !== "approved")
+    return "Deviations are recorded while the job is in review or approved, before the report is issued.";
+  return null;
+}
+
+/** The readiness check (the blockers before issue) is the issuer's working list: staff see it, customers do not. */
+export function readinessRefusal(actor: Pick<Actor, "role">): string | null {
+  return actor.role === "customer" ? "The readiness of a report is for the service company's staff." : null;
+}

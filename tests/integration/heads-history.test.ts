@@ -56,7 +56,8 @@ describe("head history", () => {
       .where(and(eq(auditEvents.jobId, j41.id), eq(auditEvents.action, "analysis.approved")))
       .orderBy(desc(auditEvents.id))
       .limit(1);
-    expect(j41.fit).toMatchObject({ analysisId: approval!.entityId, approved: true, phase: "pre" });
+    // The seed probes TR-2026-0041 after adjustment: the issued report vouches for the head as left.
+    expect(j41.fit).toMatchObject({ analysisId: approval!.entityId, approved: true, phase: "post" });
 
     // TR-2026-0052: measuring, nothing approved; the latest fit is the after-adjustment one.
     const j52 = byRef.get("TR-2026-0052")!;
@@ -98,17 +99,15 @@ describe("head history", () => {
         .where(eq(customers.name, "Tollan Mold Works"))
     )[0]!;
     const ref = `TR-MOVED-${Date.now().toString(36)}`;
-    await db
-      .insert(jobs)
-      .values({
-        reference: ref,
-        title: "Head TH-2241 on loan at Tollan",
-        kind: "reverification",
-        status: "draft",
-        customerId: tollanMachine.customerId,
-        machineId: tollanMachine.id,
-        headId,
-      });
+    await db.insert(jobs).values({
+      reference: ref,
+      title: "Head TH-2241 on loan at Tollan",
+      kind: "reverification",
+      status: "draft",
+      customerId: tollanMachine.customerId,
+      machineId: tollanMachine.id,
+      headId,
+    });
 
     await signInAs("buyer@tollan.example");
     const t = (await (await history(headId)).json()) as Body;
