@@ -19,8 +19,14 @@ export async function verifyReport(
   reportId: string,
   exec: Pick<typeof db, "select"> = db,
 ): Promise<VerificationResult> {
-  if (!/^[0-9a-f-]{36}$/i.test(reportId))
-    return { authentic: false, reason: "There is no report with this id." };
+  const none: VerificationResult = {
+    checked: "record",
+    authentic: false,
+    recordIntact: false,
+    statement: NO_RECORD,
+    reason: "There is no report with this id.",
+  };
+  if (!/^[0-9a-f-]{36}$/i.test(reportId)) return none;
   const [r] = await exec
     .select({
       id: reports.id,
@@ -28,6 +34,7 @@ export async function verifyReport(
       revision: reports.revision,
       pdf: reports.pdf,
       pdfSha256: reports.pdfSha256,
+      contentSha256: reports.contentSha256,
       issuedAt: reports.issuedAt,
       supersedesId: reports.supersedesId,
       reference: jobs.reference,
@@ -35,7 +42,7 @@ export async function verifyReport(
     .from(reports)
     .innerJoin(jobs, eq(jobs.id, reports.jobId))
     .where(eq(reports.id, reportId));
-  if (!r) return { authentic: false, reason: "There is no report with this id." };
+  if (!r) return none;
   const key = getSigningKey();
   const sigs = await exec
     .select()
@@ -60,7 +67,8 @@ export async function verifyReport(
       role: ROLE_LABELS[s.signerRole],
       signedAtUtc: formatDateTimeUtc(s.signedAt),
       valid: bindsThis && consistent && verifyManifest(m, s.signature, key.publicKey),
-      comment: s.comment,
+      answer:
+        s.reportId === r.id && (s.meaning === "accepted" || s.meaning === "rejected") ? s.meaning : null,
     };
   });
   const [newer] = await exec
@@ -78,8 +86,13 @@ export async function verifyReport(
     checked.length > 0 &&
     checked.every((c) => c.valid) &&
     checked.some((c) => c.meaning === SIGNATURE_LABELS.approved);
+  const recordIntact = bytesIntact && allValid;
+  const answer = checked.find((c) => c.answer)?.answer ?? "awaiting";
   return {
-    authentic: bytesIntact && allValid,
+    checked: "record",
+    authentic: false,
+    recordIntact,
+    statement: recordIntact ? RECORD_HELD : RECORD_BROKEN,
     ...(bytesIntact
       ? allValid
         ? {}
@@ -91,23 +104,47 @@ export async function verifyReport(
       revision: r.revision,
       issuedAtUtc: formatDateTimeUtc(r.issuedAt),
       pdfSha256: r.pdfSha256,
+      contentSha256: r.contentSha256,
       supersededBy: newer ?? null,
       amendmentOf: older ?? null,
+      acceptance: answer,
     },
-    signatures: checked,
+    signatures: checked.map(({ answer: _answer, ...c }) => c),
     keyId: key.keyId,
   };
 }
 
-/** Verification of a PDF someone holds: its bytes must be exactly those of an issued revision. */
+const NO_RECORD = "The service holds no issued report with this id.";
+const RECORD_HELD =
+  "This is what the service holds for this report id. It vouches for no file by itself: a copy is authentic only when its bytes are checked here (upload the PDF) and match the SHA-256 of the PDF below.";
+const RECORD_BROKEN =
+  "The record held for this id does not verify; no copy of it can be vouched for. Contact the issuer.";
+
+/**
+ * Verification of a PDF someone holds: its bytes must be exactly those of an issued revision whose
+ * stored record verifies. Only this answer says "authentic", with the checked file's SHA-256.
+ */
 export async function verifyPdfFile(bytes: Uint8Array): Promise<VerificationResult> {
   const hash = sha256Hex(bytes);
   const [r] = await db.select({ id: reports.id }).from(reports).where(eq(reports.pdfSha256, hash));
   if (!r)
     return {
+      checked: "file",
       authentic: false,
+      recordIntact: false,
+      fileSha256: hash,
+      statement: "The file was checked and is not vouched for.",
       reason:
         "This file is not, byte for byte, a report issued by this service: it was altered, or it is another file.",
     };
-  return verifyReport(r.id);
+  const held = await verifyReport(r.id);
+  return {
+    ...held,
+    checked: "file",
+    authentic: held.recordIntact,
+    fileSha256: hash,
+    statement: held.recordIntact
+      ? "The file was checked: its SHA-256 is that of the issued revision below, and every signature over it verifies."
+      : held.statement,
+  };
 }

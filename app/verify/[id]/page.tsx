@@ -16,12 +16,12 @@ export default async function VerifyIdPage({ params }: Props) {
       <div>
         <h1 className="text-2xl font-semibold">Report verification</h1>
         <p className="text-graphite-600">
-          This is the record held for report id <span className="num break-all">{id}</span>. To check a copy
-          you hold,{" "}
+          This is what the service holds for report id <span className="num break-all">{id}</span>. It vouches
+          for no file by itself: to check a copy you hold,{" "}
           <Link href="/verify" className="text-accent-700 underline">
             upload the PDF
           </Link>
-          : its bytes must match the SHA-256 below.
+          ; its bytes must match the SHA-256 of the PDF file below.
         </p>
       </div>
       <VerificationResultView result={result} />

@@ -26,7 +26,7 @@ export default async function ReportPage({ params }: Props) {
   const [revisions, sigs] = await Promise.all([listJobReports(user, id), listJobSignatures(user, id)]);
   const current = revisions?.[0] ?? null;
   const content = current ? await getReportContent(user, current.id) : null;
-  const mayIssue = !current && !signatureRefusal(user, "approved", d.job);
+  const mayIssueRole = !current && !signatureRefusal(user, "approved", d.job);
   const mayAmend = !amendRefusal(user, { status: d.job.status, hasIssuedRevision: Boolean(current) });
   const mayRespond = current && !signatureRefusal(user, "accepted", d.job);
   // Before issue, staff see what still stands in the way; a signature the record has moved past is stale.
@@ -40,6 +40,8 @@ export default async function ReportPage({ params }: Props) {
       ),
   );
   const openResults = view?.nonConforming.filter((r) => !r.deviation) ?? [];
+  // The issue form appears once nothing stands in the way (issueReport refuses otherwise, 409).
+  const mayIssue = mayIssueRole && Boolean(view?.readiness.ready);
   const mayRecordDeviation = Boolean(view) && !deviationRefusal(user, d.job) && openResults.length > 0;
 
   return (
