@@ -8,7 +8,7 @@ import { getComparison } from "@/db/queries/readings";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
 import { latestJobView } from "@/db/queries/analysis-views";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
-import { countingTestPart, readinessInput } from "@/db/queries/readiness";
+import { countingTestPart, listDeviations, readinessInput } from "@/db/queries/readiness";
 import {
   jobStateSha256,
   manifestFor,
@@ -107,7 +107,7 @@ export async function buildReportData(
     amendment?: ReportData["amendment"];
   },
 ): Promise<{ data: ReportData; images: Map<string, Buffer> }> {
-  const [sigs, state, params, comparison, template, instrumentList, testPart] = await Promise.all([
+  const [sigs, state, params, comparison, template, instrumentList, testPart, carried] = await Promise.all([
     preIssueSignatures(d.job.id),
     jobStateSha256(d.job.id),
     approvedParameters(actor, d),
@@ -120,6 +120,7 @@ export async function buildReportData(
       : Promise.resolve([]),
     jobInstruments(d.job.id),
     jobTestPart(actor, d.job.id),
+    listDeviations(d.job.id),
   ]);
   // The latest picture of the 3D view saved for the approved fit (the job's access was checked above).
   const view = params ? await latestJobView(d.job.id) : null;
@@ -144,6 +145,7 @@ export async function buildReportData(
     signatures: sigs
       .filter((s) => (s.manifest as SignatureManifest).stateSha256 === state)
       .map(signatureLine),
+    deviations: carried,
     verifyUrl: `${publicUrl}/verify/${meta.reportId}`,
   });
   return { data, images };

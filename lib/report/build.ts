@@ -271,6 +271,57 @@ export interface JobInput {
   };
 }
 
+/** A deviation as recorded (db deviations row). */
+export interface DeviationInput {
+  subjectLabel: string;
+  decision: string;
+  justification: string;
+  approvedByName: string;
+  createdAt: Date;
+}
+
+const NOT_CONFORMING: ReadonlySet<Decision> = new Set(["fail", "undecided"]);
+
+/**
+ * The statement of conformity (ISO/IEC 17025:2017 §7.8.6.1): conforms when every judged result
+ * passes; conforms with the listed deviations accepted when each FAIL or undecided result is
+ * carried as a deviation; does not conform otherwise. The decision rule is stated with it.
+ */
+export function conformityStatement(
+  decisions: readonly Decision[],
+  deviationCount: number,
+  decisionRule: string,
+): NonNullable<ReportData["conformity"]> {
+  const judged = decisions.filter((x) => x !== "recorded" && x !== "not_measured");
+  const open = judged.filter((x) => NOT_CONFORMING.has(x)).length;
+  if (judged.length === 0)
+    return { verdict: "not_judged", text: "No result was judged against a limit; the values are recorded." };
+  if (open === 0)
+    return {
+      verdict: "conforms",
+      text: `Conforms: all ${judged.length} judged results are within their limits. Decision rule: ${decisionRule}.`,
+    };
+  if (deviationCount >= open)
+    return {
+      verdict: "conforms_with_deviations",
+      text: `Conforms with the listed deviations accepted: ${open} of ${judged.length} judged results are outside their limits or undecided and are carried as deviations (section 8). Decision rule: ${decisionRule}.`,
+    };
+  return {
+    verdict: "does_not_conform",
+    text: `Does not conform: ${open} of ${judged.length} judged results are outside their limits or undecided. Decision rule: ${decisionRule}.`,
+  };
+}
+
+export function deviationRows(list: readonly DeviationInput[]): NonNullable<ReportData["deviations"]> {
+  return list.map((x) => ({
+    result: x.subjectLabel,
+    decision: x.decision === "fail" ? "FAIL" : x.decision,
+    justification: x.justification,
+    approvedBy: x.approvedByName,
+    recordedAtUtc: formatDateTimeUtc(x.createdAt),
+  }));
+}
+
 export interface ReportInputs {
   meta: {
     reportId: string;
@@ -289,12 +340,22 @@ export interface ReportInputs {
   figures: ReportData["figures"];
   /** Pre-issue signatures, oldest first. */
   signatures: ReportSignature[];
+  deviations: readonly DeviationInput[];
   verifyUrl: string;
 }
 
 /** Assembles the report's content and names it by the SHA-256 of its canonical JSON. */
 export function buildReportContent(i: ReportInputs): ReportData {
   const { d, meta } = i;
+  const decisionRule =
+    d.job.decisionRule === "guarded"
+      ? "Guarded acceptance per ISO 14253-1 (limits shrunk by U for pass, grown by U for fail)"
+      : "Simple acceptance: the expanded uncertainty is stated, not subtracted";
+  const decisions = [
+    ...i.readings.rows.map((r) => r.decision),
+    ...(i.parameters?.rows ?? []).map((r) => r.decision),
+    ...i.testPart.map((r) => r.decision),
+  ];
   const data: Omit<ReportData, "contentSha256"> = {
     reportId: meta.reportId,
     reference: d.job.reference,
@@ -334,10 +395,7 @@ export function buildReportContent(i: ReportInputs): ReportData {
         : "Checklist as recorded on the job (no procedure version)",
       method:
         "Indicator readings against the checklist limits; kinematic fit from sphere-probe data (geometry model stated in the product documentation)",
-      decisionRule:
-        d.job.decisionRule === "guarded"
-          ? "Guarded acceptance per ISO 14253-1 (limits shrunk by U for pass, grown by U for fail)"
-          : "Simple acceptance: the expanded uncertainty is stated, not subtracted",
+      decisionRule,
     },
     instruments: i.instruments,
     readings: i.readings.rows,
@@ -348,6 +406,8 @@ export function buildReportContent(i: ReportInputs): ReportData {
       ...(i.readings.chart.length ? { readings: i.readings.chart } : {}),
       ...(i.parameters?.charts ?? {}),
     },
+    conformity: conformityStatement(decisions, i.deviations.length, decisionRule),
+    deviations: deviationRows(i.deviations),
     remarks: [...(i.parameters ? [i.parameters.note] : []), ...(d.job.notes ? [d.job.notes] : [])],
     safety: [...SAFETY_NOTES],
     signatures: [...i.signatures, meta.approval],

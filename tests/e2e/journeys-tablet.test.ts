@@ -279,6 +279,10 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     await expect
       .poll(() => e.getByRole("article", { name: "Acceptance report" }).innerText())
       .toContain("END OF REPORT");
+    // ISO/IEC 17025:2017 §7.8.6.1, §7.8.2.1 p: the statement of conformity and the deviation as recorded.
+    const article = await e.getByRole("article", { name: "Acceptance report" }).innerText();
+    expect(article).toContain("Conforms with the listed deviations accepted");
+    expect(article).toMatch(/Deviation: Test part Bore B, diameter \(FAIL\) is carried into this report/);
     await fitsTheTablet(e, "issued report, engineer");
     await e.close();
   });

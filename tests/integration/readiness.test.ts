@@ -5,6 +5,10 @@
 // accurately and unambiguously), §7.8.2.1 b/e/p (method, item and deviations identified),
 // §7.8.4.1 with §6.4/§6.5 (calibrated equipment, traceability) and §7.8.6 (statement of
 // conformity) are the clauses these gates protect.
+import { execFileSync } from "node:child_process";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
 import { and, asc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
@@ -19,6 +23,7 @@ import { auditEvents, deviations, instruments, jobs, readings, reports, template
 import type { Actor } from "@/lib/auth/roles";
 import { AppError } from "@/lib/errors";
 import type { BlockerCode } from "@/lib/report/readiness";
+import type { ReportData } from "@/lib/report/types";
 import { upload } from "./dataset-helpers";
 import { jobIdByReference, signInAs } from "./helpers";
 import { carryOpenResults, measureEveryStep } from "./ready-job";
@@ -222,8 +227,22 @@ describe("issue is refused while any blocker stands", () => {
       db.update(deviations).set({ justification: "edited" }).where(eq(deviations.id, dev!.id)),
     ).rejects.toThrow();
     expect(await getReadiness(as.engineer!, jobId)).toEqual({ ready: true, blockers: [] });
-    const { revision } = await issueReport(as.engineer!, { jobId, password: PW });
+    const { reportId, revision } = await issueReport(as.engineer!, { jobId, password: PW });
     expect(revision).toBe(1);
+    // ISO/IEC 17025:2017 §7.8.6.1 and §7.8.2.1 p: the issued PDF opens with the statement of
+    // conformity and lists the deviation with its justification and approver (read by pdftotext).
+    const [r] = await db.select().from(reports).where(eq(reports.id, reportId));
+    expect((r!.content as ReportData).conformity?.verdict).toBe("conforms_with_deviations");
+    const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-rdy-"));
+    writeFileSync(path.join(dir, "r.pdf"), r!.pdf);
+    const text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"])
+      .toString("utf8")
+      .replace(/\s+/g, " ");
+    expect(text).toContain("Statement of conformity Conforms with the listed deviations accepted");
+    expect(text).toMatch(
+      /Deviation: Step 1: .+ \(FAIL\) is carried into this report\. Justification: Collar face run-out/,
+    );
+    expect(text).toContain(`Approved by ${as.engineer!.name}`);
   });
 });
 

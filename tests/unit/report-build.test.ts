@@ -8,6 +8,8 @@ import { canonicalJson } from "@/lib/canonical-json";
 import { amendRefusal } from "@/lib/policy/reports";
 import {
   buildReportContent,
+  conformityStatement,
+  deviationRows,
   figureOf,
   instrumentRows,
   parameterSection,
@@ -225,6 +227,7 @@ describe("buildReportContent", () => {
     testPart: [],
     figures: [],
     signatures: [],
+    deviations: [],
     verifyUrl: "https://example.test/verify/r1",
   });
   it("names its content by the SHA-256 of the canonical JSON without the hash", () => {
@@ -271,5 +274,52 @@ describe("amendRefusal", () => {
     expect(amendRefusal(engineer, { status: "approved", hasIssuedRevision: false })).toMatch(
       /no issued revision/,
     );
+  });
+});
+
+// ISO/IEC 17025:2017 §7.8.6.1: a statement of conformity names the decision rule it applies; the
+// three verdicts follow the judged rows and the deviations recorded for the FAIL or undecided ones.
+describe("conformityStatement", () => {
+  const rule = "Simple acceptance";
+  it("conforms when every judged row passes (recorded and undetermined rows are not judged)", () => {
+    const c = conformityStatement(["pass", "pass", "recorded", "not_measured"], 0, rule);
+    expect(c.verdict).toBe("conforms");
+    expect(c.text).toBe(
+      "Conforms: all 2 judged results are within their limits. Decision rule: Simple acceptance.",
+    );
+  });
+  it("conforms with the listed deviations when each FAIL or undecided row is carried", () => {
+    expect(conformityStatement(["pass", "fail", "undecided"], 2, rule).verdict).toBe(
+      "conforms_with_deviations",
+    );
+  });
+  it("does not conform when a FAIL is not carried", () => {
+    const c = conformityStatement(["pass", "fail", "undecided"], 1, rule);
+    expect(c.verdict).toBe("does_not_conform");
+    expect(c.text).toContain("2 of 3 judged results");
+  });
+  it("says nothing was judged when no row has a limit", () => {
+    expect(conformityStatement(["recorded"], 0, rule).verdict).toBe("not_judged");
+  });
+  it("prints a deviation with its justification, decision in capitals and the approving engineer", () => {
+    expect(
+      deviationRows([
+        {
+          subjectLabel: "Test part Bore B, diameter",
+          decision: "fail",
+          justification: "Re-machined by the customer.",
+          approvedByName: "Emil Haraldsen",
+          createdAt: new Date("2026-11-21T09:00:00Z"),
+        },
+      ]),
+    ).toEqual([
+      {
+        result: "Test part Bore B, diameter",
+        decision: "FAIL",
+        justification: "Re-machined by the customer.",
+        approvedBy: "Emil Haraldsen",
+        recordedAtUtc: expect.stringContaining("2026-11-21"),
+      },
+    ]);
   });
 });
