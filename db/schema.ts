@@ -596,3 +596,31 @@ export const analysisViews = pgTable(
   (t) => [index("analysis_views_job_idx").on(t.jobId, t.createdAt)],
 );
 export type AnalysisView = typeof analysisViews.$inferSelect;
+
+/**
+ * A result that does not conform (FAIL) or cannot be decided, carried into the report as a
+ * deviation: what it concerns (`subject`: "step:{stepId}", "parameter:{key}" or
+ * "test_part:{datasetId}:{row}"), the decision when it was recorded, the written justification
+ * and the application engineer who approved carrying it. Written once; never updated.
+ */
+export const deviations = pgTable(
+  "deviations",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    subject: text("subject").notNull(),
+    /** The result as the report names it, e.g. "Bore B, diameter" or "EC0C". */
+    subjectLabel: text("subject_label").notNull(),
+    decision: text("decision").notNull(),
+    justification: text("justification").notNull(),
+    approvedById: uuid("approved_by_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "restrict" }),
+    approvedByName: text("approved_by_name").notNull(),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("deviations_subject_idx").on(t.jobId, t.subject)],
+);
+export type Deviation = typeof deviations.$inferSelect;

@@ -1,7 +1,8 @@
 /**
  * Demo data for checklists (invented): the default procedure for installing a two-axis head,
  * the instrument register (one indicator past its calibration due date, to show the refusal),
- * and pre/post-adjustment readings on the Marlow Creek jobs TR-2026-0041 and TR-2026-0052.
+ * pre/post-adjustment readings on the Marlow Creek jobs TR-2026-0041 and TR-2026-0052, and the
+ * readings of the Tollan job TR-2026-0048.
  * Idempotent: the template and instruments are matched by natural keys; readings are added to a
  * job only while it has none.
  */
@@ -225,6 +226,15 @@ const READINGS_0041: DemoReading[] = [
     minutes: 35,
   },
   { step: 2, phase: "pre", value: 0.094, unit: "in", instrument: "FG-0031", minutes: 60 },
+  {
+    step: 2,
+    phase: "post",
+    value: 0.093,
+    unit: "in",
+    instrument: "FG-0031",
+    note: "Gap checked again after the collar was shimmed",
+    minutes: 140,
+  },
   { step: 3, phase: "pre", value: 0.0006, unit: "in", instrument: "DTI-0112", minutes: 90 },
   {
     step: 3,
@@ -454,6 +464,24 @@ async function seedReadings(reference: string, start: Date, list: DemoReading[],
   });
 }
 
+/** The Tollan installation, measured once (no adjustment needed on the checklist; invented values, in inch). */
+const READINGS_0048: DemoReading[] = [
+  { step: 1, phase: "pre", value: 0.0003, unit: "in", instrument: "DTI-0112", minutes: 0 },
+  { step: 2, phase: "pre", value: 0.09, unit: "in", instrument: "FG-0031", minutes: 40 },
+  { step: 3, phase: "pre", value: 0.0002, unit: "in", instrument: "DTI-0112", minutes: 70 },
+  { step: 4, phase: "pre", value: -0.0002, unit: "in", instrument: "DTI-0112", minutes: 90 },
+  {
+    step: 5,
+    phase: "pre",
+    value: 0.0002,
+    unit: "in",
+    instrument: "DTI-0112",
+    note: "Over 4 in of Z travel",
+    minutes: 120,
+  },
+  { step: 6, phase: "pre", value: 0.0003, unit: "in", instrument: "DI-0208", minutes: 200 },
+];
+
 export async function seedChecklists(): Promise<void> {
   const [admin] = await db
     .select({ id: users.id })
@@ -472,4 +500,5 @@ export async function seedChecklists(): Promise<void> {
   if (!installer) return;
   await seedReadings("TR-2026-0041", new Date("2026-10-12T07:30:00Z"), READINGS_0041, installer.id);
   await seedReadings("TR-2026-0052", new Date("2026-12-01T07:30:00Z"), READINGS_0052, installer.id);
+  await seedReadings("TR-2026-0048", new Date("2026-11-20T07:30:00Z"), READINGS_0048, installer.id);
 }

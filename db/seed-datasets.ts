@@ -95,9 +95,10 @@ export async function seedDatasets(): Promise<void> {
   await seedOne(
     job.id,
     "installer@halvard.example",
-    { kind: "sphere_probe", phase: "pre", units: "mm" },
+    // Probed after the adjustment: the acceptance report vouches for the head as left.
+    { kind: "sphere_probe", phase: "post", units: "mm" },
     demoSphereProbeCsv(),
-    "TR-2026-0041 sphere probing (synthetic demo).csv",
+    "TR-2026-0041 sphere probing after adjustment (synthetic demo).csv",
   );
   await seedOne(
     job.id,

@@ -1,7 +1,7 @@
 "use client";
 
 import { useState } from "react";
-import type { VerificationResult } from "@/db/queries/reports";
+import type { VerificationResult } from "@/lib/domain/reports";
 import { VerificationResultView } from "@/components/report/verification-result";
 
 export function VerifyUpload() {

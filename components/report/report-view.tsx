@@ -107,6 +107,16 @@ export function ReportView({ data }: { data: ReportData }) {
           {data.amendment.reason}
         </p>
       ) : null}
+      {data.conformity ? (
+        <section
+          aria-label="Statement of conformity"
+          data-verdict={data.conformity.verdict}
+          className="rounded-card border-2 border-graphite-900 bg-white p-3 text-sm"
+        >
+          <p className="font-semibold">Statement of conformity</p>
+          <p>{data.conformity.text}</p>
+        </section>
+      ) : null}
       <Section n={1} title="Identification">
         <div className="grid gap-4 md:grid-cols-2">
           <Rows
@@ -220,8 +230,14 @@ export function ReportView({ data }: { data: ReportData }) {
         <ReportFigures data={data} />
       </Section>
       <Section n={8} title="Deviations and remarks">
-        {data.remarks.length ? (
+        {data.remarks.length || data.deviations?.length ? (
           <ul className="list-disc pl-5 text-sm">
+            {(data.deviations ?? []).map((x, i) => (
+              <li key={`d${i}`}>
+                <strong>Deviation:</strong> {x.result} ({x.decision}) is carried into this report.
+                Justification: {x.justification} Approved by {x.approvedBy}, {x.recordedAtUtc}.
+              </li>
+            ))}
             {data.remarks.map((r, i) => (
               <li key={i}>{r}</li>
             ))}

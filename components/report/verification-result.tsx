@@ -2,20 +2,38 @@ import type { VerificationResult } from "@/lib/domain/reports";
 
 /** What a verification found, in plain words, with icon and word as well as colour. */
 export function VerificationResultView({ result }: { result: VerificationResult }) {
-  const ok = result.authentic;
+  // Green only for a checked file; the record held for an id is stated, neutrally, never "authentic".
+  const tone = result.authentic
+    ? "pass"
+    : result.checked === "record" && result.recordIntact
+      ? "held"
+      : "fail";
+  const box = {
+    pass: "border-pass-600 bg-pass-50",
+    held: "border-graphite-300 bg-white",
+    fail: "border-fail-600 bg-fail-50",
+  }[tone];
+  const text = { pass: "text-pass-700", held: "text-graphite-900", fail: "text-fail-700" }[tone];
+  const headline = {
+    pass: "Authentic: this file is the report as issued and signed.",
+    held: "Record held by the service. No file has been checked.",
+    fail: "Not verified.",
+  }[tone];
   return (
     <div className="space-y-4" data-testid="verification-result">
-      <div
-        className={`flex items-start gap-3 rounded-card border-2 p-4 ${ok ? "border-pass-600 bg-pass-50" : "border-fail-600 bg-fail-50"}`}
-      >
-        <span aria-hidden="true" className={`text-2xl font-bold ${ok ? "text-pass-700" : "text-fail-700"}`}>
-          {ok ? "✓" : "✗"}
+      <div className={`flex items-start gap-3 rounded-card border-2 p-4 ${box}`}>
+        <span aria-hidden="true" className={`text-2xl font-bold ${text}`}>
+          {tone === "pass" ? "✓" : tone === "held" ? "ⓘ" : "✗"}
         </span>
-        <div>
-          <p className={`text-lg font-semibold ${ok ? "text-pass-700" : "text-fail-700"}`}>
-            {ok ? "Authentic: this is the report as issued and signed." : "Not verified."}
-          </p>
+        <div className="space-y-1">
+          <p className={`text-lg font-semibold ${text}`}>{headline}</p>
+          <p className="text-graphite-800">{result.statement}</p>
           {result.reason ? <p className="text-graphite-800">{result.reason}</p> : null}
+          {result.fileSha256 ? (
+            <p className="text-sm text-graphite-700">
+              SHA-256 of the checked file: <span className="num break-all">{result.fileSha256}</span>
+            </p>
+          ) : null}
         </div>
       </div>
       {result.report ? (
@@ -26,8 +44,26 @@ export function VerificationResultView({ result }: { result: VerificationResult 
           </dd>
           <dt className="text-graphite-600">Issued</dt>
           <dd className="num">{result.report.issuedAtUtc}</dd>
-          <dt className="text-graphite-600">SHA-256 of the PDF</dt>
+          <dt className="text-graphite-600">SHA-256 of the PDF file</dt>
           <dd className="num break-all">{result.report.pdfSha256}</dd>
+          <dt className="text-graphite-600">Content SHA-256</dt>
+          <dd>
+            <span className="num break-all">{result.report.contentSha256}</span>
+            <p className="text-xs text-graphite-600">
+              Printed inside the PDF: it covers the report&apos;s content (a file cannot contain its own
+              hash). A copy is checked against the SHA-256 of the PDF file above.
+            </p>
+          </dd>
+          <dt className="text-graphite-600">Customer&apos;s answer</dt>
+          <dd>
+            {
+              {
+                awaiting: "Awaiting the customer's answer",
+                accepted: "Accepted by the customer",
+                rejected: "Rejected by the customer",
+              }[result.report.acceptance]
+            }
+          </dd>
           <dt className="text-graphite-600">Newer revision</dt>
           <dd>
             {result.report.supersededBy ? (
@@ -72,10 +108,7 @@ export function VerificationResultView({ result }: { result: VerificationResult 
           <tbody className="divide-y divide-graphite-100">
             {result.signatures.map((s, i) => (
               <tr key={i}>
-                <td className="px-4 py-2 font-medium">
-                  {s.meaning}
-                  {s.comment ? <p className="font-normal text-graphite-600">“{s.comment}”</p> : null}
-                </td>
+                <td className="px-4 py-2 font-medium">{s.meaning}</td>
                 <td className="px-4 py-2">
                   {s.name} — {s.role}
                 </td>

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, isNull, sql } from "drizzle-orm";
+import { and, asc, desc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
@@ -8,10 +8,15 @@ import { getComparison } from "@/db/queries/readings";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
 import { latestJobView } from "@/db/queries/analysis-views";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
-import { parameterRows } from "@/lib/fit-display";
-import { signed } from "@/lib/numbers";
+import { countingTestPart, listDeviations, readinessInput } from "@/db/queries/readiness";
 import {
-  datasets,
+  jobStateSha256,
+  manifestFor,
+  preIssueSignatures,
+  requirePasswordReentry,
+  visibleJob,
+} from "@/db/queries/signatures";
+import {
   instruments,
   jobs,
   outbox,
@@ -21,202 +26,36 @@ import {
   signatures,
   users,
 } from "@/db/schema";
-import { verifyPassword } from "@/lib/auth/password";
-import type { VerificationResult } from "@/lib/domain/reports";
-import { ROLE_LABELS, type Actor } from "@/lib/domain/roles";
-import { SIGNATURE_LABELS, type SignatureMeaningKey } from "@/lib/domain/signatures";
-import { amenderRefusal, amendmentRefusal } from "@/lib/policy/reports";
+import type { Actor } from "@/lib/domain/roles";
 import { signatureRefusal } from "@/lib/policy/signatures";
-import { canonicalJson } from "@/lib/canonical-json";
 import { publicUrl } from "@/lib/env";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 import { formatDateTimeUtc, JOB_KIND_LABELS } from "@/lib/format";
+import { amendRefusal } from "@/lib/policy/reports";
+import {
+  buildReportContent,
+  figureOf,
+  instrumentRows,
+  parameterSection,
+  readingSection,
+  signatureLine,
+  testPartRows,
+} from "@/lib/report/build";
 import { getSigningKey } from "@/lib/report/keys";
-import { formatLimits, formatValue } from "@/lib/units";
+import { NotReadyError, readiness } from "@/lib/report/readiness";
 import { renderReportPdf } from "@/lib/report/render";
-import { sha256Hex, signManifest, verifyManifest, type SignatureManifest } from "@/lib/report/signing";
-import type { Decision, ReportCharts, ReportData, ReportSignature } from "@/lib/report/types";
-import { isUuid } from "@/lib/domain/uuid";
-
-/** Re-entry of the password at signing (21 CFR 11.200): the signer proves it is them, now. */
-async function requirePasswordReentry(actor: Actor, password: string): Promise<void> {
-  const [row] = await db
-    .select({ hash: users.passwordHash })
-    .from(users)
-    .where(eq(users.id, actor.id))
-    .limit(1);
-  if (!password || !(await verifyPassword(password, row?.hash))) {
-    throw invalid("Re-enter your password to sign.", [
-      { field: "password", message: "The password does not match your account." },
-    ]);
-  }
-}
-
-async function visibleJob(actor: Actor, jobId: string): Promise<JobDetail> {
-  const d = await getJobDetail(actor, jobId);
-  if (!d) throw notFound("job");
-  return d;
-}
-
-/** A hash of what has been recorded on the job, so a pre-issue signature says what it covered. */
-async function jobStateSha256(jobId: string): Promise<string> {
-  const [job] = await db
-    .select({ status: jobs.status, updatedAt: jobs.updatedAt })
-    .from(jobs)
-    .where(eq(jobs.id, jobId));
-  const rs = await db
-    .select({
-      id: readings.id,
-      value: readings.value,
-      phase: readings.phase,
-      supersededById: readings.supersededById,
-    })
-    .from(readings)
-    .where(eq(readings.jobId, jobId))
-    .orderBy(asc(readings.id));
-  const ds = await db
-    .select({ id: datasets.id, sha256: datasets.sha256, status: datasets.status })
-    .from(datasets)
-    .where(eq(datasets.jobId, jobId))
-    .orderBy(asc(datasets.id));
-  return sha256Hex(canonicalJson({ job, readings: rs, datasets: ds }));
-}
-
-function manifestFor(
-  actor: Actor,
-  meaning: SignatureMeaningKey,
-  job: { id: string; reference: string },
-  subject: { reportId: string; revision: number; pdfSha256: string } | { stateSha256: string },
-  signedAt: Date,
-): SignatureManifest {
-  const key = getSigningKey();
-  return {
-    jobId: job.id,
-    jobReference: job.reference,
-    reportId: "reportId" in subject ? subject.reportId : null,
-    revision: "revision" in subject ? subject.revision : null,
-    pdfSha256: "pdfSha256" in subject ? subject.pdfSha256 : null,
-    stateSha256: "stateSha256" in subject ? subject.stateSha256 : null,
-    signer: { id: actor.id, name: actor.name, role: actor.role, email: actor.email },
-    meaning,
-    signedAtUtc: signedAt.toISOString(),
-    keyId: key.keyId,
-  };
-}
-
-/** Signs the job's work before issue: performed (assigned installer) or inspected (inspector). */
-export async function signJobWork(
-  actor: Actor,
-  input: { jobId: string; meaning: "performed" | "inspected"; password: string; comment?: string },
-) {
-  const d = await visibleJob(actor, input.jobId);
-  const refusal = signatureRefusal(actor, { meaning: input.meaning, job: d.job });
-  if (refusal) throw forbidden(refusal);
-  await requirePasswordReentry(actor, input.password);
-  const existing = await db
-    .select({ id: signatures.id })
-    .from(signatures)
-    .where(
-      and(
-        eq(signatures.jobId, d.job.id),
-        eq(signatures.meaning, input.meaning),
-        eq(signatures.signerId, actor.id),
-        isNull(signatures.reportId),
-      ),
-    );
-  if (existing.length > 0)
-    throw invalid(`You have already signed this job as ${SIGNATURE_LABELS[input.meaning].toLowerCase()}.`);
-  const signedAt = new Date();
-  const manifest = manifestFor(
-    actor,
-    input.meaning,
-    d.job,
-    { stateSha256: await jobStateSha256(d.job.id) },
-    signedAt,
-  );
-  const signature = signManifest(manifest, getSigningKey());
-  return db.transaction(async (tx) => {
-    const [row] = await tx
-      .insert(signatures)
-      .values({
-        jobId: d.job.id,
-        meaning: input.meaning,
-        signerId: actor.id,
-        signerName: actor.name,
-        signerRole: actor.role,
-        signedAt,
-        comment: input.comment ?? null,
-        manifest,
-        signature,
-        keyId: manifest.keyId,
-      })
-      .returning();
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
-      action: `signature.${input.meaning}`,
-      entityType: "signature",
-      entityId: row!.id,
-      jobId: d.job.id,
-      newValues: { meaning: input.meaning, signedAtUtc: manifest.signedAtUtc },
-    });
-    return row!;
-  });
-}
-
-function signatureLine(s: {
-  signerName: string;
-  signerRole: string;
-  meaning: SignatureMeaningKey;
-  signedAt: Date;
-}): ReportSignature {
-  return {
-    name: s.signerName,
-    role: ROLE_LABELS[s.signerRole as keyof typeof ROLE_LABELS] ?? s.signerRole,
-    meaning: SIGNATURE_LABELS[s.meaning],
-    signedAtUtc: formatDateTimeUtc(s.signedAt),
-  };
-}
+import { sha256Hex, signManifest, type SignatureManifest } from "@/lib/report/signing";
+import type { ReportData, ReportSignature } from "@/lib/report/types";
 
 /**
- * The checklist readings for the report: the comparison the installer and reviewers saw (latest
- * current reading of each step and phase, judged under the step's decision rule with U from the
- * instrument), formatted in metric units; and the same numbers for the before/after chart
- * (lengths in mm, angles in arc seconds, as the table).
+ * Reports: what goes into one (fetched here, shaped by lib/report/build.ts), issuing a revision,
+ * the customer's answer, and reading issued reports back. Pre-issue signatures live in
+ * db/queries/signatures.ts, public verification in db/queries/verification.ts.
  */
-async function reportReadings(
-  actor: Actor,
-  jobId: string,
-): Promise<{ rows: ReportData["readings"]; chart: NonNullable<ReportCharts["readings"]> }> {
-  const c = await getComparison(actor, jobId);
-  if (!c) return { rows: [], chart: [] };
-  const measured = c.rows.filter((r) => r.pre || r.post);
-  const rows = measured.map((r) => ({
-    step: r.title,
-    limits: formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, "metric"),
-    pre: r.pre ? formatValue(r.pre.value, r.quantityKind, "metric") : undefined,
-    post: r.post ? formatValue(r.post.value, r.quantityKind, "metric") : undefined,
-    change: r.change != null ? formatValue(r.change, r.quantityKind, "metric", { signed: true }) : undefined,
-    decision: r.status === "no_limit" ? ("recorded" as const) : r.status,
-    source: r.limitSource.replace("_", " "),
-  }));
-  const chart = measured
-    .filter((r) => r.lowerLimit != null || r.upperLimit != null)
-    .map((r) => ({
-      step: r.title,
-      lower: r.lowerLimit,
-      upper: r.upperLimit,
-      pre: r.pre?.value ?? null,
-      post: r.post?.value ?? null,
-      unit: r.quantityKind === "length" ? "mm" : "″",
-      digits: r.quantityKind === "length" ? 4 : 1,
-    }));
-  return { rows, chart };
-}
 
-/** Instruments used for the job's current readings, with calibration status on the day of issue. */
-async function reportInstruments(jobId: string, on: Date): Promise<ReportData["instruments"]> {
-  const rows = await db
+/** Instruments used for the job's current readings. */
+async function jobInstruments(jobId: string) {
+  return db
     .selectDistinct({
       kind: instruments.kind,
       serial: instruments.serial,
@@ -229,131 +68,35 @@ async function reportInstruments(jobId: string, on: Date): Promise<ReportData["i
     .innerJoin(instruments, eq(instruments.id, readings.instrumentId))
     .where(and(eq(readings.jobId, jobId), isNull(readings.supersededById)))
     .orderBy(asc(instruments.serial));
-  const day = on.toISOString().slice(0, 10);
-  const fmt = (v: number, kind: string) =>
-    kind === "angle" ? `${v.toFixed(1)}″` : v >= 0.001 ? `${v.toFixed(4)} mm` : `${(v * 1000).toFixed(2)} µm`;
-  return rows.map((r) => ({
-    kind: r.kind,
-    serial: r.serial,
-    resolution: fmt(r.resolution, r.quantityKind),
-    uncertainty: fmt(r.u, r.quantityKind),
-    calibrationDue: r.due,
-    status: r.due >= day ? "In calibration" : "Past due",
-  }));
 }
-
-const TEST_PART_DECIMALS: Record<string, number> = { mm: 3, in: 4, um: 1, deg: 3, arcsec: 1 };
 
 /** The latest test-part dataset (after adjustment preferred), judged under the job's decision rule. */
-async function reportTestPart(actor: Actor, jobId: string): Promise<ReportData["testPart"]> {
-  const list = ((await listDatasets(actor, jobId)) ?? []).filter(
-    (x) => x.kind === "test_part" && x.status === "stored",
-  );
-  const pick = list.find((x) => x.phase === "post") ?? list[0];
+async function jobTestPart(actor: Actor, jobId: string): Promise<ReportData["testPart"]> {
+  const pick = countingTestPart((await listDatasets(actor, jobId)) ?? []);
   if (!pick) return [];
   const ev = await getTestPartEvaluation(actor, pick.id);
-  if (!ev?.evaluation) return [];
-  return ev.evaluation.rows.map((r) => {
-    const dp = TEST_PART_DECIMALS[r.unit] ?? 3;
-    const v = (x: number) => `${x.toFixed(dp)} ${r.unit === "um" ? "µm" : r.unit}`;
-    const signed = (x: number) => `${x >= 0 ? "+" : "−"}${Math.abs(x).toFixed(dp)}`;
-    const limits = `${r.lower_limit === null ? "—" : r.lower_limit.toFixed(dp)} / ${r.upper_limit.toFixed(dp)}`;
-    return {
-      feature: r.feature,
-      characteristic: r.characteristic,
-      nominal: v(r.nominal),
-      measured: v(r.measured),
-      deviation: signed(r.deviation),
-      limits,
-      expanded: r.U.toFixed(dp),
-      decision: r.decision,
-    };
-  });
+  return ev?.evaluation ? testPartRows(ev.evaluation.rows) : [];
 }
 
-/** At most this many points in the residual chart: each is the largest residual of its bucket of poses. */
-const RESIDUAL_CHART_POINTS = 240;
-
-/** Bucket maxima of the per-pose residuals (largest component, as the 3 s outlier rule uses), so peaks survive the thinning. */
-export function residualChartValues(
-  valuesUm: readonly number[],
-  maxPoints = RESIDUAL_CHART_POINTS,
-): { valuesUm: number[]; perPoint: number } {
-  const perPoint = Math.max(1, Math.ceil(valuesUm.length / maxPoints));
-  const out: number[] = [];
-  for (let i = 0; i < valuesUm.length; i += perPoint) out.push(Math.max(...valuesUm.slice(i, i + perPoint)));
-  return { valuesUm: out.map((v) => Math.round(v * 1000) / 1000), perPoint };
-}
-
-/**
- * The head parameters of the fit the engineer approved, judged against the limits of the job's
- * procedure version (lib/fit-display parameterRows: the decision rule with the fit's U), with the
- * numbers for the parameter and residual charts.
- */
-async function reportParameters(
-  actor: Actor,
-  d: JobDetail,
-): Promise<{
-  rows: ReportData["parameters"];
-  note?: string;
-  charts: Pick<ReportCharts, "parameters" | "residuals">;
-  analysisId?: string;
-}> {
+/** The fit the engineer approved with the procedure's limits, shaped for the report. */
+async function approvedParameters(actor: Actor, d: JobDetail) {
   const approved = await getApprovedAnalysis(actor, d.job.id);
-  if (!approved) return { rows: [], charts: {} };
+  if (!approved) return null;
   const result = approved.detail.analysis.result;
-  const fit = result.fit;
-  const limits = await parameterLimitsOfTemplate(d.job.templateId);
-  const judged = parameterRows(fit, limits);
-  const decisionOf = (x: (typeof judged)[number]["decision"]): Decision =>
-    x === "no_limit" ? "recorded" : x;
-  const rows = judged.map((p) => {
-    const unit = p.unit === "um" ? " µm" : "″";
-    const value = `${signed(p.value, 1)}${unit}`;
-    return {
-      name: p.words,
-      symbol: p.iso,
-      value: p.heldAtZero ? `${value} (held)` : value,
-      expanded: p.heldAtZero ? "—" : `${fit.parameters.find((q) => q.key === p.key)!.U!.toFixed(1)}${unit}`,
-      ...(p.toleranceText ? { tolerance: p.toleranceText } : {}),
-      ...(p.limitSourceText ? { limitSource: p.limitSourceText } : {}),
-      decision: decisionOf(p.decision),
-      identifiable: p.identifiableText,
-    };
-  });
-  const chartParameters = judged
-    .filter((p) => p.toleranceText && !p.heldAtZero)
-    .map((p) => {
-      const lim = limits.find((l) => l.parameter === p.key)!;
-      const U = fit.parameters.find((q) => q.key === p.key)!.U ?? 0;
-      return {
-        symbol: p.iso,
-        value: p.value,
-        U,
-        lower: lim.lowerLimit,
-        upper: lim.upperLimit,
-        unit: p.unit === "um" ? "µm" : "″",
-        decision: decisionOf(p.decision),
-      };
-    });
-  const residuals = {
-    ...residualChartValues(
-      result.poses.residual_um.map((r) => Math.max(Math.abs(r[0]), Math.abs(r[1]), Math.abs(r[2]))),
-    ),
-    totalPoses: result.poses.row.length,
-    sUm: result.s_um,
-  };
-  const judgedCount = judged.filter((p) => p.decision !== "no_limit" && p.decision !== "not_measured").length;
-  const undetermined = judged.filter((p) => p.decision === "not_measured").length;
-  return {
-    rows,
-    analysisId: approved.detail.analysis.id,
-    charts: { ...(chartParameters.length ? { parameters: chartParameters } : {}), residuals },
-    note: `Head parameters from the fit approved by ${approved.approvedBy} on ${formatDateTimeUtc(approved.approvedAt)}: residual RMS ${fit.rms_um.toFixed(2)} µm, max ${fit.max_um.toFixed(2)} µm; ${judgedCount ? `${judgedCount} of ${judged.length} parameters judged against the procedure's limits` : "the procedure sets no limits for them, so they are recorded"}${undetermined ? `; ${undetermined} could not be determined from this data and ${undetermined === 1 ? "is" : "are"} not judged` : ""}.`,
-  };
+  const section = parameterSection(
+    {
+      fit: result.fit,
+      residualsUm: result.poses.residual_um,
+      sUm: result.s_um,
+      approvedBy: approved.approvedBy,
+      approvedAt: approved.approvedAt,
+    },
+    await parameterLimitsOfTemplate(d.job.templateId),
+  );
+  return { section, analysisId: approved.detail.analysis.id };
 }
 
-/** Assembles everything the report shows from the database. */
+/** Fetches everything the report shows and assembles it (lib/report/build.ts). */
 export async function buildReportData(
   actor: Actor,
   d: JobDetail,
@@ -365,96 +108,48 @@ export async function buildReportData(
     amendment?: ReportData["amendment"];
   },
 ): Promise<{ data: ReportData; images: Map<string, Buffer> }> {
-  const sigs = await db
-    .select()
-    .from(signatures)
-    .where(and(eq(signatures.jobId, d.job.id), isNull(signatures.reportId)))
-    .orderBy(asc(signatures.signedAt));
-  const [params, readingsPart, template] = await Promise.all([
-    reportParameters(actor, d),
-    reportReadings(actor, d.job.id),
+  const [sigs, state, params, comparison, template, instrumentList, testPart, carried] = await Promise.all([
+    preIssueSignatures(d.job.id),
+    jobStateSha256(d.job.id),
+    approvedParameters(actor, d),
+    getComparison(actor, d.job.id),
     d.job.templateId
       ? db
           .select({ name: procedureTemplates.name, version: procedureTemplates.version })
           .from(procedureTemplates)
           .where(eq(procedureTemplates.id, d.job.templateId))
       : Promise.resolve([]),
+    jobInstruments(d.job.id),
+    jobTestPart(actor, d.job.id),
+    listDeviations(d.job.id),
   ]);
   // The latest picture of the 3D view saved for the approved fit (the job's access was checked above).
-  const view = params.analysisId ? await latestJobView(d.job.id) : null;
+  const view = params ? await latestJobView(d.job.id) : null;
   const images = new Map<string, Buffer>();
   const figures: ReportData["figures"] = [];
-  if (view && view.analysisId === params.analysisId) {
-    const sha = sha256Hex(view.png);
-    images.set(sha, view.png);
-    figures.push({
-      caption: `3D view of the approved head fit, errors drawn × ${view.factor.toLocaleString("en-GB")}, saved by ${view.createdByName ?? "the engineer"} on ${formatDateTimeUtc(view.createdAt)}${view.caption ? `: ${view.caption}` : ""}`,
-      sha256: sha,
-      viewId: view.id,
-      widthPx: view.widthPx,
-      heightPx: view.heightPx,
-    });
+  if (view && view.analysisId === params?.analysisId) {
+    const sha256 = sha256Hex(view.png);
+    images.set(sha256, view.png);
+    figures.push(figureOf({ ...view, sha256 }));
   }
-  const data: Omit<ReportData, "contentSha256"> = {
-    reportId: meta.reportId,
-    reference: d.job.reference,
-    revision: meta.revision,
-    ...(meta.amendment ? { amendment: meta.amendment } : {}),
-    issuedAtUtc: formatDateTimeUtc(meta.issuedAt),
-    issuer: { name: "Halvard Field Service" },
-    customer: {
-      name: d.customer.name,
-      site: d.site.name,
-      ...(d.site.address ? { address: d.site.address } : {}),
-    },
-    machine: {
-      name: d.machine.name,
-      kind: d.machine.kind,
-      builderModel: [d.machine.builder, d.machine.model].filter(Boolean).join(" ") || undefined,
-      serial: d.machine.serial ?? undefined,
-      control: d.machine.control ?? undefined,
-    },
-    head: {
-      serial: d.head.serial,
-      makerModel: [d.head.maker, d.head.model].filter(Boolean).join(" ") || undefined,
-      axes: `${d.head.primaryAxis} primary / ${d.head.secondaryAxis} secondary`,
-      nominalPivotLength: `${d.head.nominalPivotLengthMm.toFixed(3)} mm`,
-      mass: d.head.massKg ? `${d.head.massKg} kg` : undefined,
-    },
-    work: {
-      kind: JOB_KIND_LABELS[d.job.kind],
-      title: d.job.title,
-      dates: d.job.scheduledFor
-        ? `from ${formatDateTimeUtc(d.job.scheduledFor)}`
-        : "as recorded in the activity log",
-      airTemperature:
-        d.job.airTempC != null ? `${d.job.airTempC.toFixed(1)} °C air temperature as entered` : undefined,
-      procedure: template[0]
-        ? `${template[0].name}, version ${template[0].version}`
-        : "Checklist as recorded on the job (no procedure version)",
-      method:
-        "Indicator readings against the checklist limits; kinematic fit from sphere-probe data (geometry model stated in the product documentation)",
-      decisionRule:
-        d.job.decisionRule === "guarded"
-          ? "Guarded acceptance per ISO 14253-1 (limits shrunk by U for pass, grown by U for fail)"
-          : "Simple acceptance: the expanded uncertainty is stated, not subtracted",
-    },
-    instruments: await reportInstruments(d.job.id, meta.issuedAt),
-    readings: readingsPart.rows,
-    parameters: params.rows,
-    testPart: await reportTestPart(actor, d.job.id),
+  const data = buildReportContent({
+    meta,
+    d,
+    jobKindLabel: JOB_KIND_LABELS[d.job.kind],
+    template: template[0] ?? null,
+    instruments: instrumentRows(instrumentList, meta.issuedAt),
+    readings: readingSection(comparison?.rows ?? []),
+    parameters: params?.section ?? null,
+    testPart,
     figures,
-    charts: { ...(readingsPart.chart.length ? { readings: readingsPart.chart } : {}), ...params.charts },
-    remarks: [...(params.note ? [params.note] : []), ...(d.job.notes ? [d.job.notes] : [])],
-    safety: [
-      "Lift the head only with rated gear at its lifting points; keep hands clear of pinch points between head, collar and spindle nose.",
-      "Lock out the machine before working on the spindle; keep clear of the head's sweep when axes move.",
-      "The machine builder's and head maker's manuals, local codes and licensed practice take precedence over this report.",
-    ],
-    signatures: [...sigs.map(signatureLine), meta.approval],
+    // The pre-issue signatures that cover the record as issued (a stale one was signed again).
+    signatures: sigs
+      .filter((s) => (s.manifest as SignatureManifest).stateSha256 === state)
+      .map(signatureLine),
+    deviations: carried,
     verifyUrl: `${publicUrl}/verify/${meta.reportId}`,
-  };
-  return { data: { ...data, contentSha256: sha256Hex(canonicalJson(data)) }, images };
+  });
+  return { data, images };
 }
 
 export interface IssueOptions {
@@ -477,19 +172,19 @@ export async function issueReport(
   const current = await currentReportRow(d.job.id);
   const amending = Boolean(current);
   if (amending) {
-    const who = amenderRefusal(actor);
-    if (who) throw forbidden(who);
+    const refusal = amendRefusal(actor, { status: d.job.status, hasIssuedRevision: true });
+    if (refusal) throw forbidden(refusal);
     if (!input.amendmentReason?.trim())
       throw invalid("Say what the amendment corrects.", [
         { field: "amendmentReason", message: "Required for a new revision." },
       ]);
-    const when = amendmentRefusal(actor, d.job);
-    if (when) throw forbidden(when);
   } else {
     const refusal = signatureRefusal(actor, { meaning: "approved", job: d.job });
     if (refusal) throw forbidden(refusal);
   }
   await requirePasswordReentry(actor, input.password);
+  const ready = readiness(await readinessInput(actor, d));
+  if (!ready.ready) throw new NotReadyError(ready.blockers);
 
   const reportId = crypto.randomUUID();
   const revision = (current?.revision ?? 0) + 1;
@@ -666,7 +361,7 @@ export async function respondToReport(
 
 /** Report metadata for a user who may see its job; null otherwise (including another tenant's). */
 export async function getReportMeta(actor: Actor, reportId: string) {
-  if (!isUuid(reportId)) return null;
+  if (!/^[0-9a-f-]{36}$/i.test(reportId)) return null;
   const [r] = await db
     .select({
       id: reports.id,
@@ -723,126 +418,4 @@ export async function listJobReports(actor: Actor, jobId: string) {
     .from(reports)
     .where(eq(reports.jobId, jobId))
     .orderBy(desc(reports.revision));
-}
-
-export async function listJobSignatures(actor: Actor, jobId: string) {
-  const d = await getJobDetail(actor, jobId);
-  if (!d) return null;
-  return db
-    .select({
-      id: signatures.id,
-      reportId: signatures.reportId,
-      meaning: signatures.meaning,
-      signerId: signatures.signerId,
-      signerName: signatures.signerName,
-      signerRole: signatures.signerRole,
-      signedAt: signatures.signedAt,
-      comment: signatures.comment,
-    })
-    .from(signatures)
-    .where(eq(signatures.jobId, jobId))
-    .orderBy(asc(signatures.signedAt));
-}
-
-export type { VerificationResult };
-
-/**
- * Public verification of an issued revision, from the stored bytes (never a re-render): the
- * stored PDF must still hash to the recorded SHA-256, and every signature over it, and every
- * signature given before issue, must verify with the published key.
- */
-export async function verifyReport(
-  reportId: string,
-  exec: Pick<typeof db, "select"> = db,
-): Promise<VerificationResult> {
-  if (!isUuid(reportId)) return { authentic: false, reason: "There is no report with this id." };
-  const [r] = await exec
-    .select({
-      id: reports.id,
-      jobId: reports.jobId,
-      revision: reports.revision,
-      pdf: reports.pdf,
-      pdfSha256: reports.pdfSha256,
-      issuedAt: reports.issuedAt,
-      supersedesId: reports.supersedesId,
-      reference: jobs.reference,
-    })
-    .from(reports)
-    .innerJoin(jobs, eq(jobs.id, reports.jobId))
-    .where(eq(reports.id, reportId));
-  if (!r) return { authentic: false, reason: "There is no report with this id." };
-  const key = getSigningKey();
-  const sigs = await exec
-    .select()
-    .from(signatures)
-    .where(
-      and(
-        eq(signatures.jobId, r.jobId),
-        sql`(${signatures.reportId} = ${r.id} or (${signatures.reportId} is null and ${signatures.signedAt} <= ${r.issuedAt}))`,
-      ),
-    )
-    .orderBy(asc(signatures.signedAt));
-  const checked = sigs.map((s) => {
-    const m = s.manifest as SignatureManifest;
-    const bindsThis = s.reportId
-      ? m.reportId === r.id && m.pdfSha256 === r.pdfSha256 && m.revision === r.revision
-      : m.jobId === r.jobId && m.reportId === null;
-    const consistent =
-      m.meaning === s.meaning && m.signer.id === s.signerId && m.signedAtUtc === s.signedAt.toISOString();
-    return {
-      meaning: SIGNATURE_LABELS[s.meaning],
-      name: s.signerName,
-      role: ROLE_LABELS[s.signerRole],
-      signedAtUtc: formatDateTimeUtc(s.signedAt),
-      valid: bindsThis && consistent && verifyManifest(m, s.signature, key.publicKey),
-      comment: s.comment,
-    };
-  });
-  const [newer] = await exec
-    .select({ id: reports.id, revision: reports.revision })
-    .from(reports)
-    .where(eq(reports.supersedesId, r.id));
-  const [older] = r.supersedesId
-    ? await exec
-        .select({ id: reports.id, revision: reports.revision })
-        .from(reports)
-        .where(eq(reports.id, r.supersedesId))
-    : [];
-  const bytesIntact = sha256Hex(r.pdf) === r.pdfSha256;
-  const allValid =
-    checked.length > 0 &&
-    checked.every((c) => c.valid) &&
-    checked.some((c) => c.meaning === SIGNATURE_LABELS.approved);
-  return {
-    authentic: bytesIntact && allValid,
-    ...(bytesIntact
-      ? allValid
-        ? {}
-        : { reason: "A signature on this report does not verify." }
-      : { reason: "The stored file no longer matches its recorded SHA-256." }),
-    report: {
-      id: r.id,
-      reference: r.reference,
-      revision: r.revision,
-      issuedAtUtc: formatDateTimeUtc(r.issuedAt),
-      pdfSha256: r.pdfSha256,
-      supersededBy: newer ?? null,
-      amendmentOf: older ?? null,
-    },
-    signatures: checked,
-    keyId: key.keyId,
-  };
-}
-
-/** Verification of a PDF someone holds: its bytes must be exactly those of an issued revision. */
-export async function verifyPdfFile(bytes: Uint8Array): Promise<VerificationResult> {
-  const hash = sha256Hex(bytes);
-  const [r] = await db.select({ id: reports.id }).from(reports).where(eq(reports.pdfSha256, hash));
-  if (!r)
-    return {
-      authentic: false,
-      reason:
-        "This file is not, byte for byte, a report issued by this service: it was altered, or it is another file.",
-    };
-  return verifyReport(r.id);
 }

@@ -312,6 +312,13 @@ export function ReportDocument({
             </View>
           ) : null}
 
+          {data.conformity ? (
+            <View style={s.note} wrap={false}>
+              <Text style={{ fontWeight: 700 }}>Statement of conformity</Text>
+              <Text>{data.conformity.text}</Text>
+            </View>
+          ) : null}
+
           <Text style={s.h2} minPresenceAhead={40}>
             1 Identification
           </Text>
@@ -450,9 +457,16 @@ export function ReportDocument({
 
           <View wrap={false}>
             <Text style={s.h2}>8 Deviations and remarks</Text>
-            {data.remarks.length ? (
-              data.remarks.map((r, i) => <Text key={i}>• {r}</Text>)
-            ) : (
+            {(data.deviations ?? []).map((x, i) => (
+              <Text key={`d${i}`}>
+                • Deviation: {x.result} ({x.decision}) is carried into this report. Justification:{" "}
+                {x.justification} Approved by {x.approvedBy}, {x.recordedAtUtc}.
+              </Text>
+            ))}
+            {data.remarks.map((r, i) => (
+              <Text key={i}>• {r}</Text>
+            ))}
+            {data.remarks.length || data.deviations?.length ? null : (
               <Text style={{ color: C.muted }}>None.</Text>
             )}
           </View>

@@ -78,6 +78,22 @@ export interface ReportData {
   figures: ReportFigure[];
   /** Charts drawn from numbers (vector in the PDF, SVG online); absent in reports issued before charts existed. */
   charts?: ReportCharts;
+  /**
+   * The statement of conformity (ISO/IEC 17025:2017 §7.8.6), from the judged rows and the recorded
+   * deviations; absent in reports issued before it existed.
+   */
+  conformity?: {
+    verdict: "conforms" | "conforms_with_deviations" | "does_not_conform" | "not_judged";
+    text: string;
+  };
+  /** Results carried as deviations, each with its written justification and the approving engineer. */
+  deviations?: Array<{
+    result: string;
+    decision: string;
+    justification: string;
+    approvedBy: string;
+    recordedAtUtc: string;
+  }>;
   remarks: string[];
   safety: string[];
   signatures: ReportSignature[];
@@ -120,3 +136,5 @@ export interface ReportCharts {
   /** Residual magnitude per pose (µm), at most a few hundred points (the largest of each bucket), with s and the 3 s outlier line. */
   residuals?: { valuesUm: number[]; totalPoses: number; sUm: number; perPoint: number };
 }
+
+export type { VerificationResult } from "@/lib/domain/reports";

@@ -2,6 +2,7 @@
 // online, downloads the signed PDF and accepts it with a counter-signature; the engineer sees
 // the acceptance; anyone holding the PDF verifies it on the public page, and a tampered copy fails.
 import { execFileSync } from "node:child_process";
+import { createHash } from "node:crypto";
 import { readFileSync, writeFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext } from "playwright-core";
@@ -98,6 +99,9 @@ describe("journey 3: the customer accepts the signed report", () => {
     const result = p.getByTestId("verification-result");
     await expect.poll(() => result.innerText()).toContain("Authentic");
     expect(await result.innerText()).toMatch(/TR-2026-0041, revision 1/);
+    // Only a checked file is vouched for, and the page names that file by its SHA-256.
+    const fileSha = createHash("sha256").update(readFileSync(pdfPath)).digest("hex");
+    expect(await result.innerText()).toContain(`SHA-256 of the checked file: ${fileSha}`);
     await p.screenshot({ path: screenshotPath("verify-authentic"), fullPage: true });
     const bytes = readFileSync(pdfPath);
     const mid = Math.floor(bytes.length / 2);
@@ -106,6 +110,16 @@ describe("journey 3: the customer accepts the signed report", () => {
     writeFileSync(tampered, bytes);
     await p.getByLabel("Report PDF").setInputFiles(tampered);
     await expect.poll(() => result.innerText()).toContain("Not verified");
+    // The QR code's page states what the service holds and vouches for no file by itself; the
+    // customer's comments are not part of the public answer.
+    const text = execFileSync("pdftotext", [pdfPath, "-"]).toString("utf8");
+    const id = /\/verify\/([0-9a-f-]{36})/.exec(text.replace(/\s+/g, ""))![1]!;
+    await p.goto(`/verify/${id}`);
+    const held = p.getByTestId("verification-result");
+    await held.waitFor();
+    expect(await held.innerText()).toContain("Record held by the service. No file has been checked.");
+    expect(await held.innerText()).not.toContain("Authentic");
+    expect(await held.innerText()).toContain("Accepted by the customer");
     await p.close();
   });
 });

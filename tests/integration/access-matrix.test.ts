@@ -8,6 +8,7 @@ import { GET as health } from "@/app/api/health/route";
 import { GET as ping } from "@/app/api/ping/route";
 import { GET as listJobsRoute } from "@/app/api/jobs/route";
 import { GET as jobRoute } from "@/app/api/jobs/[id]/route";
+import { GET as readinessRoute } from "@/app/api/jobs/[id]/readiness/route";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
 const ALL = ["TR-2026-0041", "TR-2026-0048", "TR-2026-0052", "TR-2026-0057"];
@@ -29,6 +30,7 @@ const COVERED = new Set([
   "app/api/health/route.ts",
   "app/api/jobs/route.ts",
   "app/api/jobs/[id]/route.ts",
+  "app/api/jobs/[id]/readiness/route.ts",
   "app/api/auth/[...nextauth]/route.ts",
   // tests/integration/checklist-access.test.ts
   "app/api/jobs/[id]/readings/route.ts",
@@ -106,6 +108,29 @@ describe("API access matrix", () => {
           const body = await res.json();
           if (expected === 200) expect(body.job.reference).toBe(ref);
           // Another tenant's job is indistinguishable from a missing one.
+          if (expected === 404)
+            expect(body).toEqual({ error: { code: "not_found", message: "No such job." } });
+        });
+      }
+
+      // The blockers before issue are the service company's working list: staff who see the job
+      // get them, a customer is refused on its own job and sees nothing of another tenant's.
+      for (const ref of ALL) {
+        const expected =
+          sees === "401" ? 401 : !sees.includes(ref) ? 404 : who.startsWith("customer") ? 403 : 200;
+        it(`GET /api/jobs/{${ref}}/readiness answers ${expected}`, async () => {
+          await signInAs(email);
+          const id = await jobIdByReference(ref);
+          const res = await readinessRoute(request(`/api/jobs/${id}/readiness`), {
+            params: Promise.resolve({ id }),
+          });
+          expect(res.status).toBe(expected);
+          const body = await res.json();
+          if (expected === 200) {
+            expect(typeof body.ready).toBe("boolean");
+            expect(Array.isArray(body.blockers)).toBe(true);
+            for (const b of body.blockers) expect(b.href).toMatch(new RegExp(`^/jobs/${id}/`));
+          }
           if (expected === 404)
             expect(body).toEqual({ error: { code: "not_found", message: "No such job." } });
         });

@@ -7,11 +7,13 @@
 // action file exports an action this matrix does not list.
 import { readdirSync, statSync } from "node:fs";
 import path from "node:path";
-import { eq } from "drizzle-orm";
+import { asc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 import { db } from "@/db";
 import { runHeadFit } from "@/db/queries/analyses";
+import { recordReading } from "@/db/queries/readings";
 import { issueReport } from "@/db/queries/reports";
+import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { instruments, jobs, templateSteps, users } from "@/db/schema";
@@ -48,8 +50,8 @@ const EMAIL: Record<Who, string | null> = {
 };
 type Outcome = "pass" | "unauthorized" | "forbidden" | "not_found";
 const ACCESS_CODES = new Set(["unauthorized", "forbidden", "not_found"]);
-/** Refusals about the input, not the person: a field to correct, or a one-time link already used. */
-const DOMAIN_CODES = new Set(["invalid", "token_invalid"]);
+/** Refusals about the input, not the person: a field to correct, a one-time link already used, or a job not yet ready for its report. */
+const DOMAIN_CODES = new Set(["invalid", "token_invalid", "not_ready"]);
 
 const PW = "trammel-demo";
 let marlow: { customerId: string; machineId: string; headId: string; templateId: string };
@@ -71,6 +73,11 @@ async function freshJob(status: JobStatus): Promise<string> {
     })
     .returning();
   return row!.id;
+}
+
+async function actorOf(email: string) {
+  const [u] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
+  return (await getActor(u!.id))!;
 }
 
 async function outcome(result: Promise<ActionResult<unknown>>): Promise<Outcome | `error: ${string}`> {
@@ -115,6 +122,7 @@ beforeAll(async () => {
     .select({ id: templateSteps.id })
     .from(templateSteps)
     .where(eq(templateSteps.templateId, marlow.templateId))
+    .orderBy(asc(templateSteps.position))
     .limit(1)) as [{ id: string }];
   [{ id: instrumentId }] = (await db
     .select({ id: instruments.id })
@@ -175,14 +183,46 @@ MATRIX.respondAction = {
   // Customers only at the door; then only the job's own tenant finds the report.
   expect: { ...staffOnly(["customer (Marlow Creek)"]), "customer (Tollan)": "not_found" },
   call: async (who) => {
+    // A job without a procedure: ready for issue once the work is signed as performed and inspected.
     const jobId = await freshJob("approved");
-    const engineer = (await getActor(
-      (await db.select({ id: users.id }).from(users).where(eq(users.email, "engineer@halvard.example")))[0]!
-        .id,
-    ))!;
-    const { reportId } = await issueReport(engineer, { jobId, password: PW });
+    await db.update(jobs).set({ templateId: null }).where(eq(jobs.id, jobId));
+    await signJobWork(await actorOf("installer@halvard.example"), {
+      jobId,
+      meaning: "performed",
+      password: PW,
+    });
+    await signJobWork(await actorOf("inspector@halvard.example"), {
+      jobId,
+      meaning: "inspected",
+      password: PW,
+    });
+    const { reportId } = await issueReport(await actorOf("engineer@halvard.example"), {
+      jobId,
+      password: PW,
+    });
     await signInAs(EMAIL[who]);
     return report.respondAction({ jobId, reportId, decision: "accepted", password: PW });
+  },
+};
+MATRIX.recordDeviationAction = {
+  // Engineers only, checked at the door; the engineer carries a FAIL reading of a job in review.
+  expect: staffOnly(["engineer"]),
+  call: async (who) => {
+    const jobId = await freshJob("measuring");
+    await recordReading(await actorOf("installer@halvard.example"), jobId, {
+      stepId,
+      phase: "pre",
+      value: 0.5,
+      unit: "mm",
+      instrumentId,
+    });
+    await db.update(jobs).set({ status: "in_review" }).where(eq(jobs.id, jobId));
+    await signInAs(EMAIL[who]);
+    return report.recordDeviationAction({
+      jobId,
+      subject: `step:${stepId}`,
+      justification: "Accepted by the customer's engineer on site for this test.",
+    });
   },
 };
 MATRIX.runFitAction = {

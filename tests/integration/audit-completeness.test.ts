@@ -17,12 +17,14 @@ import { saveAnalysisView } from "@/db/queries/analysis-views";
 import { deleteDataset } from "@/db/queries/datasets";
 import { changeJobStatus, createJobFromTemplate } from "@/db/queries/job-status";
 import { recordReading } from "@/db/queries/readings";
-import { issueReport, respondToReport, signJobWork } from "@/db/queries/reports";
+import { issueReport, respondToReport } from "@/db/queries/reports";
+import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import {
   analyses,
   analysisViews,
+  deviations,
   auditEvents,
   datasets,
   instruments,
@@ -35,6 +37,7 @@ import {
 import type { Actor } from "@/lib/domain/roles";
 import { PNG } from "pngjs";
 import { upload } from "./dataset-helpers";
+import { carryOpenResults, measureEveryStep } from "./ready-job";
 import { jobIdByReference, signInAs } from "./helpers";
 
 const PW = "trammel-demo";
@@ -99,7 +102,8 @@ beforeAll(async () => {
   const probe = await upload(
     jobId,
     Buffer.from(demoSphereProbeCsv()),
-    { kind: "sphere_probe", phase: "pre", units: "mm" },
+    // After adjustment: the job has after-adjustment readings, so that is the state the report vouches for.
+    { kind: "sphere_probe", phase: "post", units: "mm" },
     "probe.csv",
   );
   const extra = await upload(
@@ -112,10 +116,16 @@ beforeAll(async () => {
   );
   await deleteDataset(as.installer!, (await extra.json()).id);
   const { analysis } = await runHeadFit(as.engineer!, (await probe.json()).id);
+  await measureEveryStep(as.installer!, jobId, "post");
   await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
   await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
   await changeJobStatus(as.installer!, jobId, "in_review");
   await approveAnalysis(as.engineer!, analysis.id);
+  await carryOpenResults(
+    as.engineer!,
+    jobId,
+    "Carried for this test: the issue path must be audited end to end.",
+  );
   const png = new PNG({ width: 8, height: 8 });
   png.data.fill(200);
   await saveAnalysisView(as.engineer!, analysis.id, {
@@ -149,8 +159,13 @@ describe("a whole job's changes are in the audit trail", () => {
         (r) => ["report", r.id] as [string, string],
       ),
     ];
-    // 3 readings, 2 datasets, 1 analysis, 1 view, 1 report: the scenario really wrote them.
-    expect(rows.length).toBe(1 + 3 + 2 + 1 + 1 + 1);
+    const carried = (
+      await db.select({ id: deviations.id }).from(deviations).where(eq(deviations.jobId, jobId))
+    ).map((r) => ["deviation", r.id] as [string, string]);
+    rows.push(...carried);
+    // 3 readings and 6 after adjustment (every step), 2 datasets, 1 analysis, 1 view, 1 report, and
+    // a deviation for each FAIL or undecided parameter: the scenario really wrote them.
+    expect(rows.length).toBe(1 + 3 + 6 + 2 + 1 + 1 + 1 + carried.length);
     for (const [type, id] of rows) {
       const mine = events.filter((e) => e.entityId === id);
       expect(mine.length, `${type} ${id} has no audit event`).toBeGreaterThan(0);
@@ -223,7 +238,16 @@ describe("a whole job's changes are in the audit trail", () => {
 
 // ---- 2. the source scan --------------------------------------------------------------------
 
-const AUDITED_TABLES = ["jobs", "readings", "datasets", "analyses", "analysisViews", "signatures", "reports"];
+const AUDITED_TABLES = [
+  "jobs",
+  "readings",
+  "datasets",
+  "analyses",
+  "analysisViews",
+  "signatures",
+  "reports",
+  "deviations",
+];
 const WRITE = new RegExp(`\\.(insert|update|delete)\\((${AUDITED_TABLES.join("|")})\\)`, "g");
 
 function sourceFiles(dir: string): string[] {

@@ -56,7 +56,8 @@ describe("head history", () => {
       .where(and(eq(auditEvents.jobId, j41.id), eq(auditEvents.action, "analysis.approved")))
       .orderBy(desc(auditEvents.id))
       .limit(1);
-    expect(j41.fit).toMatchObject({ analysisId: approval!.entityId, approved: true, phase: "pre" });
+    // The seed probes TR-2026-0041 after adjustment: the issued report vouches for the head as left.
+    expect(j41.fit).toMatchObject({ analysisId: approval!.entityId, approved: true, phase: "post" });
 
     // TR-2026-0052: measuring, nothing approved; the latest fit is the after-adjustment one.
     const j52 = byRef.get("TR-2026-0052")!;

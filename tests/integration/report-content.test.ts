@@ -15,7 +15,8 @@ import { db } from "@/db";
 import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
 import { saveAnalysisView } from "@/db/queries/analysis-views";
 import { changeJobStatus } from "@/db/queries/job-status";
-import { issueReport, signJobWork } from "@/db/queries/reports";
+import { issueReport } from "@/db/queries/reports";
+import { signJobWork } from "@/db/queries/signatures";
 import { createTemplateVersion } from "@/db/queries/templates";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
@@ -25,6 +26,7 @@ import type { Actor } from "@/lib/domain/roles";
 import type { ReportData } from "@/lib/report/types";
 import { upload } from "./dataset-helpers";
 import { jobIdByReference, signInAs } from "./helpers";
+import { carryOpenResults, measureEveryStep } from "./ready-job";
 
 const PW = "trammel-demo";
 const as: Record<string, Actor> = {};
@@ -80,10 +82,14 @@ beforeAll(async () => {
   const { analysis } = await runHeadFit(as.engineer!, (await up.json()).id);
   fit = analysis.result.fit;
   poseResiduals = analysis.result.poses.residual_um.map((r) => [...r]);
+  // The gates before issue (lib/report/readiness.ts): every step measured, signed over that record,
+  // and each FAIL or undecided parameter carried as a deviation.
+  await measureEveryStep(as.installer!, jobId);
   await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
   await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
   await changeJobStatus(as.installer!, jobId, "in_review");
   await approveAnalysis(as.engineer!, analysis.id);
+  await carryOpenResults(as.engineer!, jobId, "Within the machine builder's acceptance for this demo head.");
   await saveAnalysisView(as.engineer!, analysis.id, {
     png: viewPng,
     factor: 300,

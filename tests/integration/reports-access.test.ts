@@ -64,12 +64,15 @@ describe("report routes", () => {
         params: Promise.resolve({ reportId: r.id }),
       });
       expect(byId.status).toBe(200);
-      expect((await byId.json()).authentic).toBe(true);
+      // What the service holds, vouching for no file; only the uploaded file below is authentic.
+      expect(await byId.json()).toMatchObject({ checked: "record", recordIntact: true, authentic: false });
       const form = new FormData();
       form.set("file", new File([new Uint8Array(r.pdf)], "report.pdf", { type: "application/pdf" }));
       const up = await verifyUpload(request("/api/verify", { method: "POST", body: form }), undefined);
       expect(up.status).toBe(200);
-      expect((await up.json()).report.revision).toBe(1);
+      const checked = await up.json();
+      expect(checked.report.revision).toBe(1);
+      expect(checked).toMatchObject({ checked: "file", authentic: true, fileSha256: r.pdfSha256 });
       const key = await reportKey();
       expect((await key.json()).algorithm).toBe("Ed25519");
     });

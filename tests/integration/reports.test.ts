@@ -5,7 +5,9 @@ import { and, eq, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { getActor } from "@/db/queries/users";
-import { issueReport, respondToReport, signJobWork, verifyPdfFile, verifyReport } from "@/db/queries/reports";
+import { issueReport, respondToReport } from "@/db/queries/reports";
+import { signJobWork } from "@/db/queries/signatures";
+import { verifyPdfFile, verifyReport } from "@/db/queries/verification";
 import { jobs, outbox, reports, signatures, users } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
@@ -134,7 +136,10 @@ describe("issuing the report", () => {
     expect(mail.map((m) => m.toAddress)).toContain("buyer@marlowcreek.example");
     expect(mail.every((m) => m.textBody.includes(`/jobs/${jobId}/report`))).toBe(true);
     const v = await verifyReport(reportId);
-    expect(v.authentic).toBe(true);
+    // The record held for an id is intact, but no file was checked, so nothing is called authentic.
+    expect(v).toMatchObject({ checked: "record", recordIntact: true, authentic: false });
+    expect(v.statement).toMatch(/vouches for no file/);
+    expect(v.report!.acceptance).toBe("awaiting");
     expect(v.signatures!.map((s) => s.meaning)).toEqual([
       "Work performed",
       "Inspected",
@@ -160,7 +165,8 @@ describe("verification of a PDF someone holds", () => {
   it("accepts the exact bytes and refuses a flipped byte, a truncation or an appended byte", async () => {
     const [r] = await db.select().from(reports).where(eq(reports.jobId, jobId));
     const pdf = r!.pdf;
-    expect((await verifyPdfFile(pdf)).authentic).toBe(true);
+    const ok = await verifyPdfFile(pdf);
+    expect(ok).toMatchObject({ checked: "file", authentic: true, fileSha256: r!.pdfSha256 });
     for (const i of [0, 100, Math.floor(pdf.length / 2), pdf.length - 1]) {
       const copy = Buffer.from(pdf);
       copy[i] = copy[i]! ^ 0x01;
@@ -183,16 +189,19 @@ describe("verification of a PDF someone holds", () => {
           await tx.execute(sql`alter table signatures disable trigger signatures_immutable`);
           await tx.execute(sql`update signatures set ${edit} where report_id = ${r!.id}`);
           const v = await verifyReport(r!.id, tx);
-          expect(v.authentic).toBe(false);
+          expect(v.recordIntact).toBe(false);
           throw new Error("rollback");
         })
         .catch((e: Error) => expect(e.message).toBe("rollback"));
     }
-    expect((await verifyReport(r!.id)).authentic).toBe(true);
+    expect((await verifyReport(r!.id)).recordIntact).toBe(true);
   });
 
   it("says so for an unknown id or a foreign file", async () => {
-    expect((await verifyReport("00000000-0000-4000-8000-000000000000")).authentic).toBe(false);
+    expect(await verifyReport("00000000-0000-4000-8000-000000000000")).toMatchObject({
+      authentic: false,
+      recordIntact: false,
+    });
     expect((await verifyPdfFile(Buffer.from("%PDF-1.4 not ours"))).reason).toMatch(/not, byte for byte/);
   });
 });
@@ -247,7 +256,10 @@ describe("customer response and amendment", () => {
     });
     expect(revision).toBe(2);
     const v1 = await verifyReport(r1!.id);
-    expect(v1.authentic).toBe(true);
+    expect(v1.recordIntact).toBe(true);
+    // The customer's rejection is stated, its comment is not: the public answer carries no comments.
+    expect(v1.report!.acceptance).toBe("rejected");
+    expect(JSON.stringify(v1)).not.toContain("measured on the wrong machine");
     expect(v1.report!.supersededBy).toEqual({ id: reportId, revision: 2 });
     const v2 = await verifyReport(reportId);
     expect(v2.report!.amendmentOf).toEqual({ id: r1!.id, revision: 1 });

@@ -13,7 +13,7 @@ import {
 import { navigationFor } from "@/lib/policy/navigation";
 import { readingsRefusal } from "@/lib/policy/readings";
 import { REGISTERS, registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
-import { amendmentRefusal } from "@/lib/policy/reports";
+import { amendRefusal } from "@/lib/policy/reports";
 import { signatureRefusal } from "@/lib/policy/signatures";
 
 const actor = (role: Actor["role"], customerId: string | null = null): Actor => ({
@@ -205,10 +205,16 @@ describe("moves on someone else's job, amendments, data and registers", () => {
     expect(allowedTransitions(actor("installer"), others)).toEqual([]);
   });
   it("an amendment is issued by an engineer after an issued or rejected report", () => {
-    expect(amendmentRefusal(actor("engineer"), { status: "issued" })).toBeNull();
-    expect(amendmentRefusal(actor("engineer"), { status: "rejected" })).toBeNull();
-    expect(amendmentRefusal(actor("engineer"), { status: "approved" })).toMatch(/follows an issued/);
-    expect(amendmentRefusal(actor("admin"), { status: "issued" })).toMatch(/application engineer/);
+    const issued = { status: "issued", hasIssuedRevision: true };
+    expect(amendRefusal(actor("engineer"), issued)).toBeNull();
+    expect(amendRefusal(actor("engineer"), { status: "rejected", hasIssuedRevision: true })).toBeNull();
+    expect(amendRefusal(actor("engineer"), { status: "approved", hasIssuedRevision: true })).toMatch(
+      /follows an issued/,
+    );
+    expect(amendRefusal(actor("engineer"), { status: "issued", hasIssuedRevision: false })).toMatch(
+      /no issued revision/,
+    );
+    expect(amendRefusal(actor("admin"), issued)).toMatch(/application engineer/);
   });
   it("the service company's people upload while the job is open and delete before review", () => {
     for (const r of ["admin", "installer", "inspector", "engineer"] as const) {

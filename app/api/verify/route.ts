@@ -1,4 +1,4 @@
-import { verifyPdfFile } from "@/db/queries/reports";
+import { verifyPdfFile } from "@/db/queries/verification";
 import { invalid, tooLarge } from "@/lib/errors";
 import { readBodyCapped, route } from "@/lib/http";
 import { readMultipart } from "@/lib/storage/multipart";

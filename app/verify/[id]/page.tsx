@@ -1,8 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { VerificationResultView } from "@/components/report/verification-result";
-import { verifyReport } from "@/db/queries/reports";
-import { pageUuid } from "@/lib/domain/uuid";
+import { verifyReport } from "@/db/queries/verification";
 
 export const metadata: Metadata = { title: "Report verification" };
 
@@ -10,19 +9,19 @@ type Props = { params: Promise<{ id: string }> };
 
 /** The page the report's QR code opens: what the service signed for this id. */
 export default async function VerifyIdPage({ params }: Props) {
-  const id = pageUuid((await params).id);
+  const { id } = await params;
   const result = await verifyReport(id);
   return (
     <>
       <div>
         <h1 className="text-2xl font-semibold">Report verification</h1>
         <p className="text-graphite-600">
-          This is the record held for report id <span className="num break-all">{id}</span>. To check a copy
-          you hold,{" "}
+          This is what the service holds for report id <span className="num break-all">{id}</span>. It vouches
+          for no file by itself: to check a copy you hold,{" "}
           <Link href="/verify" className="text-accent-700 underline">
             upload the PDF
           </Link>
-          : its bytes must match the SHA-256 below.
+          ; its bytes must match the SHA-256 of the PDF file below.
         </p>
       </div>
       <VerificationResultView result={result} />

@@ -1,4 +1,5 @@
-import { getReportMeta, listJobSignatures } from "@/db/queries/reports";
+import { getReportMeta } from "@/db/queries/reports";
+import { listJobSignatures } from "@/db/queries/signatures";
 import { requireUser } from "@/lib/auth/session";
 import { notFound } from "@/lib/errors";
 import { route } from "@/lib/http";

@@ -1,4 +1,4 @@
-import { verifyReport } from "@/db/queries/reports";
+import { verifyReport } from "@/db/queries/verification";
 import { route } from "@/lib/http";
 
 type Ctx = { params: Promise<{ reportId: string }> };

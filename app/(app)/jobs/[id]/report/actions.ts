@@ -2,7 +2,9 @@
 
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
-import { issueReport, respondToReport, signJobWork } from "@/db/queries/reports";
+import { issueReport, respondToReport } from "@/db/queries/reports";
+import { recordDeviation } from "@/db/queries/readiness";
+import { signJobWork } from "@/db/queries/signatures";
 import { action } from "@/lib/actions";
 
 const password = z.string().min(1, "Re-enter your password to sign.");
@@ -52,5 +54,21 @@ export const respondAction = action(
     });
     revalidatePath(`/jobs/${input.jobId}`, "layout");
     return { decision: input.decision };
+  },
+);
+
+export const recordDeviationAction = action(
+  {
+    schema: z.object({
+      jobId: z.uuid(),
+      subject: z.string().min(1).max(200),
+      justification: z.string().max(4000),
+    }),
+    roles: ["engineer"],
+  },
+  async (input, actor) => {
+    const row = await recordDeviation(actor, input);
+    revalidatePath(`/jobs/${input.jobId}`, "layout");
+    return { id: row.id };
   },
 );

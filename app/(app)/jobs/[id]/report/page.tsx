@@ -1,17 +1,21 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { DeviationForm } from "@/components/report/deviation-form";
+import { ReadinessList } from "@/components/report/readiness-list";
 import { ReportView } from "@/components/report/report-view";
 import { SignForm } from "@/components/report/sign-form";
 import { Card } from "@/components/ui/card";
 import { getJobDetail } from "@/db/queries/jobs";
-import { getReportContent, listJobReports, listJobSignatures } from "@/db/queries/reports";
+import { getReadinessView } from "@/db/queries/readiness";
+import { getReportContent, listJobReports } from "@/db/queries/reports";
+import { listJobSignatures } from "@/db/queries/signatures";
 import { ROLE_LABELS } from "@/lib/domain/roles";
 import { SIGNATURE_LABELS } from "@/lib/domain/signatures";
-import { amendmentRefusal } from "@/lib/policy/reports";
 import { signatureRefusal } from "@/lib/policy/signatures";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
-import { issueReportAction, respondAction, signWorkAction } from "./actions";
+import { amendRefusal, deviationRefusal, readinessRefusal } from "@/lib/policy/reports";
+import { issueReportAction, recordDeviationAction, respondAction, signWorkAction } from "./actions";
 
 export const metadata: Metadata = { title: "Report" };
 type Props = { params: Promise<{ id: string }> };
@@ -24,14 +28,23 @@ export default async function ReportPage({ params }: Props) {
   const [revisions, sigs] = await Promise.all([listJobReports(user, id), listJobSignatures(user, id)]);
   const current = revisions?.[0] ?? null;
   const content = current ? await getReportContent(user, current.id) : null;
-  const mayIssue = !current && !signatureRefusal(user, { meaning: "approved", job: d.job });
-  const mayAmend = Boolean(current) && amendmentRefusal(user, d.job) === null;
+  const mayIssueRole = !current && !signatureRefusal(user, { meaning: "approved", job: d.job });
+  const mayAmend = !amendRefusal(user, { status: d.job.status, hasIssuedRevision: Boolean(current) });
   const mayRespond = current && !signatureRefusal(user, { meaning: "accepted", job: d.job });
+  // Before issue, staff see what still stands in the way; a signature the record has moved past is stale.
+  const view = !current && !readinessRefusal(user) ? await getReadinessView(user, id) : null;
+  const stale = new Set(view?.staleSignatureIds ?? []);
   const work = (["performed", "inspected"] as const).filter(
     (m) =>
       !signatureRefusal(user, { meaning: m, job: d.job }) &&
-      !sigs?.some((s) => s.meaning === m && s.reportId === null && s.signerId === user.id),
+      !sigs?.some(
+        (s) => s.meaning === m && s.reportId === null && s.signerId === user.id && !stale.has(s.id),
+      ),
   );
+  const openResults = view?.nonConforming.filter((r) => !r.deviation) ?? [];
+  // The issue form appears once nothing stands in the way (issueReport refuses otherwise, 409).
+  const mayIssue = mayIssueRole && Boolean(view?.readiness.ready);
+  const mayRecordDeviation = Boolean(view) && !deviationRefusal(user, d.job) && openResults.length > 0;
 
   return (
     <div className="grid grid-cols-[minmax(0,1fr)] gap-6 xl:grid-cols-[minmax(0,1fr)_22rem]">
@@ -61,12 +74,48 @@ export default async function ReportPage({ params }: Props) {
             <ReportView data={content} />
           </>
         ) : (
-          <Card title="No report issued yet">
-            <p className="text-sm text-graphite-600">
-              The report is rendered and signed once, when the application engineer issues it after approving
-              the head&apos;s parameters. Until then the work is signed here as performed and inspected.
-            </p>
-          </Card>
+          <>
+            <Card title="No report issued yet">
+              <p className="text-sm text-graphite-600">
+                The report is rendered and signed once, when the application engineer issues it after
+                approving the head&apos;s parameters. Until then the work is signed here as performed and
+                inspected.
+              </p>
+            </Card>
+            {view ? (
+              <section aria-label="Readiness" id="readiness">
+                <Card title="Before issue">
+                  <ReadinessList blockers={view.readiness.blockers} />
+                </Card>
+              </section>
+            ) : null}
+            {view && (view.nonConforming.length > 0 || mayRecordDeviation) ? (
+              <section aria-label="Deviations" id="deviations" className="space-y-3">
+                <Card title="FAIL and undecided results">
+                  <ul className="space-y-2 text-sm">
+                    {view.nonConforming.map((r) => (
+                      <li key={r.subject} className="border-l-4 border-graphite-300 pl-3">
+                        <p className="font-semibold">
+                          {r.label} — {r.decision === "fail" ? "FAIL" : "undecided"}
+                        </p>
+                        {r.deviation ? (
+                          <p className="text-graphite-700">
+                            Carried as a deviation by {r.deviation.approvedByName},{" "}
+                            {formatDateTimeUtc(r.deviation.createdAt)}: {r.deviation.justification}
+                          </p>
+                        ) : (
+                          <p className="text-graphite-600">Open: measure again or record a deviation.</p>
+                        )}
+                      </li>
+                    ))}
+                  </ul>
+                </Card>
+                {mayRecordDeviation ? (
+                  <DeviationForm jobId={d.job.id} results={openResults} run={recordDeviationAction} />
+                ) : null}
+              </section>
+            ) : null}
+          </>
         )}
       </div>
       <aside className="space-y-4" aria-label="Signatures">
@@ -80,6 +129,11 @@ export default async function ReportPage({ params }: Props) {
                     {s.signerName} — {ROLE_LABELS[s.signerRole]}
                   </p>
                   <p className="num text-graphite-600">{formatDateTimeUtc(s.signedAt)}</p>
+                  {stale.has(s.id) ? (
+                    <p className="text-fail-700" data-testid="signature-stale">
+                      Stale: the record changed after this signature; sign again.
+                    </p>
+                  ) : null}
                   {s.comment ? <p className="text-graphite-700">“{s.comment}”</p> : null}
                 </li>
               ))}
@@ -88,20 +142,22 @@ export default async function ReportPage({ params }: Props) {
             <p className="text-sm text-graphite-600">No signatures yet.</p>
           )}
         </Card>
-        {work.map((m) => (
-          <SignForm
-            key={m}
-            title={`Sign as ${SIGNATURE_LABELS[m].toLowerCase()}`}
-            meaning={
-              m === "performed"
-                ? "You confirm you carried out the recorded work and readings on this machine and head."
-                : "You confirm you inspected the recorded readings and measurements and they are complete."
-            }
-            submitLabel="Sign"
-            hidden={{ jobId: d.job.id, meaning: m }}
-            run={signWorkAction}
-          />
-        ))}
+        <div id="sign" className="space-y-4">
+          {work.map((m) => (
+            <SignForm
+              key={m}
+              title={`Sign as ${SIGNATURE_LABELS[m].toLowerCase()}`}
+              meaning={
+                m === "performed"
+                  ? "You confirm you carried out the recorded work and readings on this machine and head."
+                  : "You confirm you inspected the recorded readings and measurements and they are complete."
+              }
+              submitLabel="Sign"
+              hidden={{ jobId: d.job.id, meaning: m }}
+              run={signWorkAction}
+            />
+          ))}
+        </div>
         {mayIssue ? (
           <SignForm
             title="Approve and issue the report"

@@ -1,0 +1,174 @@
+import "server-only";
+import { and, asc, eq, isNull } from "drizzle-orm";
+import { db } from "@/db";
+import { appendAudit } from "@/db/queries/audit";
+import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
+import { datasets, readings, signatures, users } from "@/db/schema";
+import { verifyPassword } from "@/lib/auth/password";
+import type { Actor } from "@/lib/domain/roles";
+import { SIGNATURE_LABELS, type SignatureMeaningKey } from "@/lib/domain/signatures";
+import { signatureRefusal } from "@/lib/policy/signatures";
+import { canonicalJson } from "@/lib/canonical-json";
+import { forbidden, invalid, notFound } from "@/lib/errors";
+import { getSigningKey } from "@/lib/report/keys";
+import { sha256Hex, signManifest, type SignatureManifest } from "@/lib/report/signing";
+
+/**
+ * Signatures on a job: the password re-entry every signature asks for, the manifest each one
+ * signs, the pre-issue signatures (performed, inspected) over a hash of the job's recorded state,
+ * and the list of a job's signatures. Issue and the customer's answer sign inside
+ * db/queries/reports.ts, in the same transaction as the report they bind to.
+ */
+
+/** Re-entry of the password at signing (21 CFR 11.200): the signer proves it is them, now. */
+export async function requirePasswordReentry(actor: Actor, password: string): Promise<void> {
+  const [row] = await db
+    .select({ hash: users.passwordHash })
+    .from(users)
+    .where(eq(users.id, actor.id))
+    .limit(1);
+  if (!password || !(await verifyPassword(password, row?.hash))) {
+    throw invalid("Re-enter your password to sign.", [
+      { field: "password", message: "The password does not match your account." },
+    ]);
+  }
+}
+
+export async function visibleJob(actor: Actor, jobId: string): Promise<JobDetail> {
+  const d = await getJobDetail(actor, jobId);
+  if (!d) throw notFound("job");
+  return d;
+}
+
+/**
+ * A hash of what has been recorded on the job (its current and superseded readings, with value,
+ * phase and instrument, and its datasets with their SHA-256 and status), so a pre-issue signature
+ * says what it covered: a reading or dataset recorded later changes it, and the readiness check
+ * (lib/report/readiness.ts) then asks for the signature again. Status changes do not change it.
+ */
+export async function jobStateSha256(jobId: string): Promise<string> {
+  const rs = await db
+    .select({
+      id: readings.id,
+      value: readings.value,
+      phase: readings.phase,
+      instrumentId: readings.instrumentId,
+      supersededById: readings.supersededById,
+    })
+    .from(readings)
+    .where(eq(readings.jobId, jobId))
+    .orderBy(asc(readings.id));
+  const ds = await db
+    .select({ id: datasets.id, sha256: datasets.sha256, status: datasets.status })
+    .from(datasets)
+    .where(eq(datasets.jobId, jobId))
+    .orderBy(asc(datasets.id));
+  return sha256Hex(canonicalJson({ state: 2, readings: rs, datasets: ds }));
+}
+
+/** What a signature signs: who, meaning, when, and the report bytes or the job state it covers. */
+export function manifestFor(
+  actor: Actor,
+  meaning: SignatureMeaningKey,
+  job: { id: string; reference: string },
+  subject: { reportId: string; revision: number; pdfSha256: string } | { stateSha256: string },
+  signedAt: Date,
+): SignatureManifest {
+  const key = getSigningKey();
+  return {
+    jobId: job.id,
+    jobReference: job.reference,
+    reportId: "reportId" in subject ? subject.reportId : null,
+    revision: "revision" in subject ? subject.revision : null,
+    pdfSha256: "pdfSha256" in subject ? subject.pdfSha256 : null,
+    stateSha256: "stateSha256" in subject ? subject.stateSha256 : null,
+    signer: { id: actor.id, name: actor.name, role: actor.role, email: actor.email },
+    meaning,
+    signedAtUtc: signedAt.toISOString(),
+    keyId: key.keyId,
+  };
+}
+
+/** Signs the job's work before issue: performed (assigned installer) or inspected (inspector). */
+export async function signJobWork(
+  actor: Actor,
+  input: { jobId: string; meaning: "performed" | "inspected"; password: string; comment?: string },
+) {
+  const d = await visibleJob(actor, input.jobId);
+  const refusal = signatureRefusal(actor, { meaning: input.meaning, job: d.job });
+  if (refusal) throw forbidden(refusal);
+  await requirePasswordReentry(actor, input.password);
+  // One current signature per signer and meaning; a stale one (the record changed after it) is signed again.
+  const stateSha256 = await jobStateSha256(d.job.id);
+  const existing = await db
+    .select({ manifest: signatures.manifest })
+    .from(signatures)
+    .where(
+      and(
+        eq(signatures.jobId, d.job.id),
+        eq(signatures.meaning, input.meaning),
+        eq(signatures.signerId, actor.id),
+        isNull(signatures.reportId),
+      ),
+    );
+  if (existing.some((s) => (s.manifest as SignatureManifest).stateSha256 === stateSha256))
+    throw invalid(`You have already signed this job as ${SIGNATURE_LABELS[input.meaning].toLowerCase()}.`);
+  const signedAt = new Date();
+  const manifest = manifestFor(actor, input.meaning, d.job, { stateSha256 }, signedAt);
+  const signature = signManifest(manifest, getSigningKey());
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .insert(signatures)
+      .values({
+        jobId: d.job.id,
+        meaning: input.meaning,
+        signerId: actor.id,
+        signerName: actor.name,
+        signerRole: actor.role,
+        signedAt,
+        comment: input.comment ?? null,
+        manifest,
+        signature,
+        keyId: manifest.keyId,
+      })
+      .returning();
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: `signature.${input.meaning}`,
+      entityType: "signature",
+      entityId: row!.id,
+      jobId: d.job.id,
+      newValues: { meaning: input.meaning, signedAtUtc: manifest.signedAtUtc },
+    });
+    return row!;
+  });
+}
+
+/** The signatures given before issue (performed, inspected), oldest first. */
+export async function preIssueSignatures(jobId: string) {
+  return db
+    .select()
+    .from(signatures)
+    .where(and(eq(signatures.jobId, jobId), isNull(signatures.reportId)))
+    .orderBy(asc(signatures.signedAt));
+}
+
+export async function listJobSignatures(actor: Actor, jobId: string) {
+  const d = await getJobDetail(actor, jobId);
+  if (!d) return null;
+  return db
+    .select({
+      id: signatures.id,
+      reportId: signatures.reportId,
+      meaning: signatures.meaning,
+      signerId: signatures.signerId,
+      signerName: signatures.signerName,
+      signerRole: signatures.signerRole,
+      signedAt: signatures.signedAt,
+      comment: signatures.comment,
+    })
+    .from(signatures)
+    .where(eq(signatures.jobId, jobId))
+    .orderBy(asc(signatures.signedAt));
+}

@@ -1,0 +1,418 @@
+/**
+ * The report's content as a pure view model: db/queries/reports.ts fetches the job, its readings,
+ * instruments, test part, approved fit and saved view; the functions here shape them into the
+ * ReportData that the PDF (lib/report/document.tsx) and the report page render. No database, no
+ * clock: everything the content depends on is an argument, so it is unit-tested on plain values.
+ */
+import type { HeadFitJson } from "@/geometry";
+import type { TestPartResultRow } from "@/geometry/test-part";
+import { ROLE_LABELS } from "@/lib/domain/roles";
+import { SIGNATURE_LABELS, type SignatureMeaningKey } from "@/lib/domain/signatures";
+import { canonicalJson } from "@/lib/canonical-json";
+import type { StepDecision } from "@/lib/checklist";
+import { parameterRows, type ParameterLimit } from "@/lib/fit-display";
+import { formatDateTimeUtc } from "@/lib/format";
+import { signed } from "@/lib/numbers";
+import { formatLimits, formatValue, type QuantityKind } from "@/lib/units";
+import { sha256Hex } from "@/lib/report/signing";
+import type { Decision, ReportCharts, ReportData, ReportSignature } from "@/lib/report/types";
+
+/** A step's result as the report names it: a reading without a limit is "recorded". */
+export function reportDecision(d: StepDecision): Decision {
+  return d === "no_limit" ? "recorded" : d;
+}
+
+/** One signature as the report prints it: name, role and meaning in words, time in UTC. */
+export function signatureLine(s: {
+  signerName: string;
+  signerRole: string;
+  meaning: SignatureMeaningKey;
+  signedAt: Date;
+}): ReportSignature {
+  return {
+    name: s.signerName,
+    role: ROLE_LABELS[s.signerRole as keyof typeof ROLE_LABELS] ?? s.signerRole,
+    meaning: SIGNATURE_LABELS[s.meaning],
+    signedAtUtc: formatDateTimeUtc(s.signedAt),
+  };
+}
+
+/** At most this many points in the residual chart: each is the largest residual of its bucket of poses. */
+const RESIDUAL_CHART_POINTS = 240;
+
+/** Bucket maxima of the per-pose residuals (largest component, as the 3 s outlier rule uses), so peaks survive the thinning. */
+export function residualChartValues(
+  valuesUm: readonly number[],
+  maxPoints = RESIDUAL_CHART_POINTS,
+): { valuesUm: number[]; perPoint: number } {
+  const perPoint = Math.max(1, Math.ceil(valuesUm.length / maxPoints));
+  const out: number[] = [];
+  for (let i = 0; i < valuesUm.length; i += perPoint) out.push(Math.max(...valuesUm.slice(i, i + perPoint)));
+  return { valuesUm: out.map((v) => Math.round(v * 1000) / 1000), perPoint };
+}
+
+/** What the report needs of one checklist step's comparison row (db/queries/readings ComparisonRow). */
+export interface ComparisonInput {
+  title: string;
+  quantityKind: QuantityKind;
+  lowerLimit: number | null;
+  upperLimit: number | null;
+  limitSource: string;
+  pre: { value: number } | null;
+  post: { value: number } | null;
+  change: number | null;
+  status: StepDecision;
+}
+
+/**
+ * The checklist readings for the report: the latest current reading of each step and phase,
+ * judged under the step's decision rule, formatted in metric units; and the same numbers for the
+ * before/after chart (lengths in mm, angles in arc seconds, as the table).
+ */
+export function readingSection(rows: readonly ComparisonInput[]): {
+  rows: ReportData["readings"];
+  chart: NonNullable<ReportCharts["readings"]>;
+} {
+  const measured = rows.filter((r) => r.pre || r.post);
+  return {
+    rows: measured.map((r) => ({
+      step: r.title,
+      limits: formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, "metric"),
+      pre: r.pre ? formatValue(r.pre.value, r.quantityKind, "metric") : undefined,
+      post: r.post ? formatValue(r.post.value, r.quantityKind, "metric") : undefined,
+      change:
+        r.change != null ? formatValue(r.change, r.quantityKind, "metric", { signed: true }) : undefined,
+      decision: reportDecision(r.status),
+      source: r.limitSource.replace("_", " "),
+    })),
+    chart: measured
+      .filter((r) => r.lowerLimit != null || r.upperLimit != null)
+      .map((r) => ({
+        step: r.title,
+        lower: r.lowerLimit,
+        upper: r.upperLimit,
+        pre: r.pre?.value ?? null,
+        post: r.post?.value ?? null,
+        unit: r.quantityKind === "length" ? "mm" : "″",
+        digits: r.quantityKind === "length" ? 4 : 1,
+      })),
+  };
+}
+
+/** An instrument used for the job's current readings. */
+export interface InstrumentInput {
+  kind: string;
+  serial: string;
+  quantityKind: string;
+  resolution: number;
+  u: number;
+  /** Calibration due date, YYYY-MM-DD. */
+  due: string;
+}
+
+/** Instruments with their calibration status on the day `on` (the day of issue). */
+export function instrumentRows(rows: readonly InstrumentInput[], on: Date): ReportData["instruments"] {
+  const day = on.toISOString().slice(0, 10);
+  const fmt = (v: number, kind: string) =>
+    kind === "angle" ? `${v.toFixed(1)}″` : v >= 0.001 ? `${v.toFixed(4)} mm` : `${(v * 1000).toFixed(2)} µm`;
+  return rows.map((r) => ({
+    kind: r.kind,
+    serial: r.serial,
+    resolution: fmt(r.resolution, r.quantityKind),
+    uncertainty: fmt(r.u, r.quantityKind),
+    calibrationDue: r.due,
+    status: r.due >= day ? "In calibration" : "Past due",
+  }));
+}
+
+const TEST_PART_DECIMALS: Record<string, number> = { mm: 3, in: 4, um: 1, deg: 3, arcsec: 1 };
+
+/** The test part's evaluated rows, each in its own unit and decimals. */
+export function testPartRows(rows: readonly TestPartResultRow[]): ReportData["testPart"] {
+  return rows.map((r) => {
+    const dp = TEST_PART_DECIMALS[r.unit] ?? 3;
+    const v = (x: number) => `${x.toFixed(dp)} ${r.unit === "um" ? "µm" : r.unit}`;
+    const sign = (x: number) => `${x >= 0 ? "+" : "−"}${Math.abs(x).toFixed(dp)}`;
+    const limits = `${r.lower_limit === null ? "—" : r.lower_limit.toFixed(dp)} / ${r.upper_limit.toFixed(dp)}`;
+    return {
+      feature: r.feature,
+      characteristic: r.characteristic,
+      nominal: v(r.nominal),
+      measured: v(r.measured),
+      deviation: sign(r.deviation),
+      limits,
+      expanded: r.U.toFixed(dp),
+      decision: r.decision,
+    };
+  });
+}
+
+/** The approved fit as the report needs it. */
+export interface ApprovedFitInput {
+  fit: HeadFitJson;
+  /** Per-pose residual vectors (µm), in pose order. */
+  residualsUm: ReadonlyArray<readonly number[]>;
+  sUm: number;
+  approvedBy: string | null;
+  approvedAt: Date;
+}
+
+/**
+ * The head parameters of the approved fit, judged against the limits of the job's procedure
+ * version (lib/fit-display parameterRows: the decision rule with the fit's U), with the numbers
+ * for the parameter and residual charts and a remark that says where they come from.
+ */
+export function parameterSection(
+  approved: ApprovedFitInput,
+  limits: readonly ParameterLimit[],
+): { rows: ReportData["parameters"]; note: string; charts: Pick<ReportCharts, "parameters" | "residuals"> } {
+  const fit = approved.fit;
+  const judged = parameterRows(fit, limits);
+  const rows = judged.map((p) => {
+    const unit = p.unit === "um" ? " µm" : "″";
+    const value = `${signed(p.value, 1)}${unit}`;
+    return {
+      name: p.words,
+      symbol: p.iso,
+      value: p.heldAtZero ? `${value} (held)` : value,
+      expanded: p.heldAtZero ? "—" : `${fit.parameters.find((q) => q.key === p.key)!.U!.toFixed(1)}${unit}`,
+      ...(p.toleranceText ? { tolerance: p.toleranceText } : {}),
+      ...(p.limitSourceText ? { limitSource: p.limitSourceText } : {}),
+      decision: reportDecision(p.decision),
+      identifiable: p.identifiableText,
+    };
+  });
+  const chartParameters = judged
+    .filter((p) => p.toleranceText && !p.heldAtZero)
+    .map((p) => {
+      const lim = limits.find((l) => l.parameter === p.key)!;
+      return {
+        symbol: p.iso,
+        value: p.value,
+        U: fit.parameters.find((q) => q.key === p.key)!.U ?? 0,
+        lower: lim.lowerLimit,
+        upper: lim.upperLimit,
+        unit: p.unit === "um" ? "µm" : "″",
+        decision: reportDecision(p.decision),
+      };
+    });
+  const residuals = {
+    ...residualChartValues(
+      approved.residualsUm.map((r) => Math.max(Math.abs(r[0]!), Math.abs(r[1]!), Math.abs(r[2]!))),
+    ),
+    totalPoses: approved.residualsUm.length,
+    sUm: approved.sUm,
+  };
+  const judgedCount = judged.filter((p) => p.decision !== "no_limit" && p.decision !== "not_measured").length;
+  const undetermined = judged.filter((p) => p.decision === "not_measured").length;
+  return {
+    rows,
+    charts: { ...(chartParameters.length ? { parameters: chartParameters } : {}), residuals },
+    note: `Head parameters from the fit approved by ${approved.approvedBy ?? "an engineer"} on ${formatDateTimeUtc(approved.approvedAt)}: residual RMS ${fit.rms_um.toFixed(2)} µm, max ${fit.max_um.toFixed(2)} µm; ${judgedCount ? `${judgedCount} of ${judged.length} parameters judged against the procedure's limits` : "the procedure sets no limits for them, so they are recorded"}${undetermined ? `; ${undetermined} could not be determined from this data and ${undetermined === 1 ? "is" : "are"} not judged` : ""}.`,
+  };
+}
+
+/** A saved 3D view of the approved fit, as the report's figure. */
+export interface ViewInput {
+  id: string;
+  sha256: string;
+  factor: number;
+  caption: string | null;
+  widthPx: number;
+  heightPx: number;
+  createdAt: Date;
+  createdByName: string | null;
+}
+
+export function figureOf(view: ViewInput): ReportData["figures"][number] {
+  return {
+    caption: `3D view of the approved head fit, errors drawn × ${view.factor.toLocaleString("en-GB")}, saved by ${view.createdByName ?? "the engineer"} on ${formatDateTimeUtc(view.createdAt)}${view.caption ? `: ${view.caption}` : ""}`,
+    sha256: view.sha256,
+    viewId: view.id,
+    widthPx: view.widthPx,
+    heightPx: view.heightPx,
+  };
+}
+
+export const SAFETY_NOTES: readonly string[] = [
+  "Lift the head only with rated gear at its lifting points; keep hands clear of pinch points between head, collar and spindle nose.",
+  "Lock out the machine before working on the spindle; keep clear of the head's sweep when axes move.",
+  "The machine builder's and head maker's manuals, local codes and licensed practice take precedence over this report.",
+];
+
+/** What the job page knows of the job, machine, head, customer and site (db/queries/jobs JobDetail). */
+export interface JobInput {
+  job: {
+    reference: string;
+    kind: string;
+    title: string;
+    scheduledFor: Date | null;
+    airTempC: number | null;
+    decisionRule: string;
+    notes: string | null;
+  };
+  customer: { name: string };
+  site: { name: string; address: string | null };
+  machine: {
+    name: string;
+    kind: string;
+    builder: string | null;
+    model: string | null;
+    serial: string | null;
+    control: string | null;
+  };
+  head: {
+    serial: string;
+    maker: string | null;
+    model: string | null;
+    primaryAxis: string;
+    secondaryAxis: string;
+    nominalPivotLengthMm: number;
+    massKg: number | null;
+  };
+}
+
+/** A deviation as recorded (db deviations row). */
+export interface DeviationInput {
+  subjectLabel: string;
+  decision: string;
+  justification: string;
+  approvedByName: string;
+  createdAt: Date;
+}
+
+const NOT_CONFORMING: ReadonlySet<Decision> = new Set(["fail", "undecided"]);
+
+/**
+ * The statement of conformity (ISO/IEC 17025:2017 §7.8.6.1): conforms when every judged result
+ * passes; conforms with the listed deviations accepted when each FAIL or undecided result is
+ * carried as a deviation; does not conform otherwise. The decision rule is stated with it.
+ */
+export function conformityStatement(
+  decisions: readonly Decision[],
+  deviationCount: number,
+  decisionRule: string,
+): NonNullable<ReportData["conformity"]> {
+  const judged = decisions.filter((x) => x !== "recorded" && x !== "not_measured");
+  const open = judged.filter((x) => NOT_CONFORMING.has(x)).length;
+  if (judged.length === 0)
+    return { verdict: "not_judged", text: "No result was judged against a limit; the values are recorded." };
+  if (open === 0)
+    return {
+      verdict: "conforms",
+      text: `Conforms: all ${judged.length} judged results are within their limits. Decision rule: ${decisionRule}.`,
+    };
+  if (deviationCount >= open)
+    return {
+      verdict: "conforms_with_deviations",
+      text: `Conforms with the listed deviations accepted: ${open} of ${judged.length} judged results are outside their limits or undecided and are carried as deviations (section 8). Decision rule: ${decisionRule}.`,
+    };
+  return {
+    verdict: "does_not_conform",
+    text: `Does not conform: ${open} of ${judged.length} judged results are outside their limits or undecided. Decision rule: ${decisionRule}.`,
+  };
+}
+
+export function deviationRows(list: readonly DeviationInput[]): NonNullable<ReportData["deviations"]> {
+  return list.map((x) => ({
+    result: x.subjectLabel,
+    decision: x.decision === "fail" ? "FAIL" : x.decision,
+    justification: x.justification,
+    approvedBy: x.approvedByName,
+    recordedAtUtc: formatDateTimeUtc(x.createdAt),
+  }));
+}
+
+export interface ReportInputs {
+  meta: {
+    reportId: string;
+    revision: number;
+    issuedAt: Date;
+    approval: ReportSignature;
+    amendment?: ReportData["amendment"];
+  };
+  d: JobInput;
+  jobKindLabel: string;
+  template: { name: string; version: number } | null;
+  instruments: ReportData["instruments"];
+  readings: ReturnType<typeof readingSection>;
+  parameters: ReturnType<typeof parameterSection> | null;
+  testPart: ReportData["testPart"];
+  figures: ReportData["figures"];
+  /** Pre-issue signatures, oldest first. */
+  signatures: ReportSignature[];
+  deviations: readonly DeviationInput[];
+  verifyUrl: string;
+}
+
+/** Assembles the report's content and names it by the SHA-256 of its canonical JSON. */
+export function buildReportContent(i: ReportInputs): ReportData {
+  const { d, meta } = i;
+  const decisionRule =
+    d.job.decisionRule === "guarded"
+      ? "Guarded acceptance per ISO 14253-1 (limits shrunk by U for pass, grown by U for fail)"
+      : "Simple acceptance: the expanded uncertainty is stated, not subtracted";
+  const decisions = [
+    ...i.readings.rows.map((r) => r.decision),
+    ...(i.parameters?.rows ?? []).map((r) => r.decision),
+    ...i.testPart.map((r) => r.decision),
+  ];
+  const data: Omit<ReportData, "contentSha256"> = {
+    reportId: meta.reportId,
+    reference: d.job.reference,
+    revision: meta.revision,
+    ...(meta.amendment ? { amendment: meta.amendment } : {}),
+    issuedAtUtc: formatDateTimeUtc(meta.issuedAt),
+    issuer: { name: "Halvard Field Service" },
+    customer: {
+      name: d.customer.name,
+      site: d.site.name,
+      ...(d.site.address ? { address: d.site.address } : {}),
+    },
+    machine: {
+      name: d.machine.name,
+      kind: d.machine.kind,
+      builderModel: [d.machine.builder, d.machine.model].filter(Boolean).join(" ") || undefined,
+      serial: d.machine.serial ?? undefined,
+      control: d.machine.control ?? undefined,
+    },
+    head: {
+      serial: d.head.serial,
+      makerModel: [d.head.maker, d.head.model].filter(Boolean).join(" ") || undefined,
+      axes: `${d.head.primaryAxis} primary / ${d.head.secondaryAxis} secondary`,
+      nominalPivotLength: `${d.head.nominalPivotLengthMm.toFixed(3)} mm`,
+      mass: d.head.massKg ? `${d.head.massKg} kg` : undefined,
+    },
+    work: {
+      kind: i.jobKindLabel,
+      title: d.job.title,
+      dates: d.job.scheduledFor
+        ? `from ${formatDateTimeUtc(d.job.scheduledFor)}`
+        : "as recorded in the activity log",
+      airTemperature:
+        d.job.airTempC != null ? `${d.job.airTempC.toFixed(1)} °C air temperature as entered` : undefined,
+      procedure: i.template
+        ? `${i.template.name}, version ${i.template.version}`
+        : "Checklist as recorded on the job (no procedure version)",
+      method:
+        "Indicator readings against the checklist limits; kinematic fit from sphere-probe data (geometry model stated in the product documentation)",
+      decisionRule,
+    },
+    instruments: i.instruments,
+    readings: i.readings.rows,
+    parameters: i.parameters?.rows ?? [],
+    testPart: i.testPart,
+    figures: i.figures,
+    charts: {
+      ...(i.readings.chart.length ? { readings: i.readings.chart } : {}),
+      ...(i.parameters?.charts ?? {}),
+    },
+    conformity: conformityStatement(decisions, i.deviations.length, decisionRule),
+    deviations: deviationRows(i.deviations),
+    remarks: [...(i.parameters ? [i.parameters.note] : []), ...(d.job.notes ? [d.job.notes] : [])],
+    safety: [...SAFETY_NOTES],
+    signatures: [...i.signatures, meta.approval],
+    verifyUrl: i.verifyUrl,
+  };
+  return { ...data, contentSha256: sha256Hex(canonicalJson(data)) };
+}
