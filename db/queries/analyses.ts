@@ -361,7 +361,8 @@ export async function approveAnalysis(actor: Actor, analysisId: string) {
   if (!a) throw notFound("analysis");
   const who = fitApproverRefusal(actor);
   if (who) throw forbidden(who);
-  const refusal = fitApprovalRefusal(actor, a.job);
+  const status = a.job.status;
+  const refusal = fitApprovalRefusal(actor, { status });
   if (refusal) throw new AppError(409, "not_in_review", refusal);
   return db.transaction(async (tx) => {
     const [locked] = await tx
