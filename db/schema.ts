@@ -21,6 +21,13 @@ import {
   uniqueIndex,
   uuid,
 } from "drizzle-orm/pg-core";
+// Relative imports: drizzle-kit loads this file without the app's path alias.
+import { DATASET_KINDS, DATASET_STATUSES, PHASES } from "../lib/domain/datasets";
+import { DECISION_RULES } from "../lib/domain/decisions";
+import { AXIS_LETTERS } from "../lib/domain/heads";
+import { JOB_KINDS, JOB_STATUSES } from "../lib/domain/jobs";
+import { ROLES } from "../lib/domain/roles";
+import { SIGNATURE_MEANINGS } from "../lib/domain/signatures";
 
 const timestamps = {
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
@@ -30,21 +37,14 @@ const timestamps = {
     .$onUpdate(() => new Date()),
 };
 
-export const roleEnum = pgEnum("role", ["admin", "installer", "inspector", "engineer", "customer"]);
-export const jobKindEnum = pgEnum("job_kind", ["installation", "reverification", "after_crash"]);
-export const jobStatusEnum = pgEnum("job_status", [
-  "draft",
-  "measuring",
-  "in_review",
-  "approved",
-  "issued",
-  "accepted",
-  "rejected",
-]);
-export const axisLetterEnum = pgEnum("axis_letter", ["A", "B", "C"]);
-export const decisionRuleEnum = pgEnum("decision_rule", ["simple", "guarded"]);
+// Closed sets come from lib/domain, so the database, the zod schemas and the labels agree.
+export const roleEnum = pgEnum("role", ROLES);
+export const jobKindEnum = pgEnum("job_kind", JOB_KINDS);
+export const jobStatusEnum = pgEnum("job_status", JOB_STATUSES);
+export const axisLetterEnum = pgEnum("axis_letter", AXIS_LETTERS);
+export const decisionRuleEnum = pgEnum("decision_rule", DECISION_RULES);
 export const unitSystemEnum = pgEnum("unit_system", ["metric", "inch"]);
-export const phaseEnum = pgEnum("phase", ["pre", "post"]);
+export const phaseEnum = pgEnum("phase", PHASES);
 /** What a checklist step measures; fixes the canonical unit its values are stored in. */
 export const quantityKindEnum = pgEnum("quantity_kind", ["length", "angle"]);
 /** How a step's value is obtained: read directly, or derived by geometry/ from the inputs. */
@@ -60,16 +60,10 @@ export const limitSourceEnum = pgEnum("limit_source", [
   "common_practice",
   "customer_spec",
 ]);
-export const datasetKindEnum = pgEnum("dataset_kind", ["sphere_probe", "tram", "sweep", "test_part"]);
-export const datasetStatusEnum = pgEnum("dataset_status", ["stored", "deleted"]);
+export const datasetKindEnum = pgEnum("dataset_kind", DATASET_KINDS);
+export const datasetStatusEnum = pgEnum("dataset_status", DATASET_STATUSES);
 export const outboxStatusEnum = pgEnum("outbox_status", ["pending", "sent", "failed"]);
-export const signatureMeaningEnum = pgEnum("signature_meaning", [
-  "performed",
-  "inspected",
-  "approved",
-  "accepted",
-  "rejected",
-]);
+export const signatureMeaningEnum = pgEnum("signature_meaning", SIGNATURE_MEANINGS);
 export const analysisKindEnum = pgEnum("analysis_kind", ["head_fit"]);
 
 /** bytea: drizzle 0.45 has no built-in type for it. Buffers round-trip exactly. */

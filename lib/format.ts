@@ -1,9 +1,4 @@
-/** Display helpers shared by pages and the report: dates with their zone, job kinds. */
-export const JOB_KIND_LABELS = {
-  installation: "Installation",
-  reverification: "Re-verification",
-  after_crash: "Check after a crash",
-} as const;
+/** Display helpers shared by pages and the report: dates with their zone. */
 
 /** Date and time in UTC with the zone spelled out, so a printed value is never ambiguous. */
 export function formatDateTimeUtc(d: Date | string | null | undefined): string {

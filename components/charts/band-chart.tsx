@@ -4,6 +4,7 @@
  * the limits are ticked and labelled, and the reading is a marker whose shape says its result
  * (circle pass, cross fail, diamond undecided) so colour is never the only signal.
  */
+import { PHASE_LABELS } from "@/lib/domain/datasets";
 import { ScrollRegion } from "@/components/ui/scroll-region";
 import type { StepDecision } from "@/lib/checklist";
 
@@ -76,8 +77,8 @@ export function BandChart({ rows }: { rows: BandRow[] }) {
   const width = LABEL_W + 2 * PANEL_W + GAP;
   const height = TOP + rows.length * ROW_H + 8;
   const panels = [
-    { key: "pre" as const, title: "Before adjustment", x0: LABEL_W },
-    { key: "post" as const, title: "After adjustment", x0: LABEL_W + PANEL_W + GAP },
+    { key: "pre" as const, title: PHASE_LABELS.pre, x0: LABEL_W },
+    { key: "post" as const, title: PHASE_LABELS.post, x0: LABEL_W + PANEL_W + GAP },
   ];
   return (
     <ScrollRegion label="Readings against their limits, chart">

@@ -3,6 +3,7 @@
 import { ScrollRegion } from "@/components/ui/scroll-region";
 import { useMemo, useState, useTransition } from "react";
 import { useForm, useWatch } from "react-hook-form";
+import { PHASE_LABELS } from "@/lib/domain/datasets";
 import { useRouter } from "next/navigation";
 import { recordReadingAction } from "@/app/(app)/jobs/[id]/checklist/actions";
 import { DecisionBadge } from "@/components/readings/decision-badge";
@@ -47,8 +48,6 @@ interface FormValues {
   note: string;
   takenAt: string;
 }
-
-const PHASE_LABELS = { pre: "Before adjustment", post: "After adjustment" } as const;
 
 function localNow(): string {
   const d = new Date();

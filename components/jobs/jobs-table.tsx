@@ -2,7 +2,8 @@ import { ScrollRegion } from "@/components/ui/scroll-region";
 import Link from "next/link";
 import type { JobListRow, JobSortKey } from "@/lib/domain/jobs";
 import { StatusBadge } from "@/components/ui/status-badge";
-import { formatDate, JOB_KIND_LABELS } from "@/lib/format";
+import { JOB_KIND_LABELS } from "@/lib/domain/jobs";
+import { formatDate } from "@/lib/format";
 
 type Sort = { sort: JobSortKey; dir: "asc" | "desc" };
 

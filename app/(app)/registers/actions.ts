@@ -10,6 +10,8 @@ import { createCustomer, createHead, createMachine, createSite } from "@/db/quer
 import { createTemplateVersion } from "@/db/queries/templates";
 import { inviteUser, updateUser } from "@/db/queries/users-admin";
 import { action } from "@/lib/actions";
+import { DECISION_RULES } from "@/lib/domain/decisions";
+import { JOB_KINDS } from "@/lib/domain/jobs";
 import { invalid } from "@/lib/errors";
 import { toCanonical } from "@/lib/units";
 import {
@@ -138,10 +140,10 @@ const jobCreateSchema = z.object({
   templateId: z.uuid({ message: "Choose a procedure." }),
   machineId: z.uuid({ message: "Choose a host machine." }),
   headId: z.uuid({ message: "Choose a head." }),
-  kind: z.enum(["installation", "reverification", "after_crash"]),
+  kind: z.enum(JOB_KINDS),
   title: z.string().trim().min(3, "Give the job a title.").max(200),
   assignedInstallerId: z.preprocess((v) => (v === "" ? undefined : v), z.uuid().optional()),
-  decisionRule: z.enum(["simple", "guarded"]),
+  decisionRule: z.enum(DECISION_RULES),
 });
 
 export const createJobAction = action({ schema: jobCreateSchema, roles: ["admin"] }, async (input, actor) => {
