@@ -1,7 +1,10 @@
 /**
  * The database schema (Drizzle). Migrations in db/migrations are generated from this file by
- * `npm run db:generate` and committed. Lengths are stored in mm and angles in degrees (SI-based,
- * the unit in the column name); display units are a user preference.
+ * `npm run db:generate` and committed. Units: a column with a fixed unit says it in its name
+ * (`nominal_pivot_length_mm`, `mass_kg`, `air_temp_c`, `distance_mm`); checklist values, step
+ * limits and instrument figures are stored in the canonical unit of their quantity, mm for a
+ * length and arc seconds for an angle (`quantity_kind`); head-parameter limits in µm or arc
+ * seconds by the parameter key's suffix. Display units are a user preference (lib/units.ts).
  */
 import { sql } from "drizzle-orm";
 import {
