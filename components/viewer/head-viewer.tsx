@@ -10,6 +10,7 @@
  * legend printed into it) to POST /api/analyses/{id}/views. All geometry comes from
  * geometry/head-scene.ts; this file only draws. Z up (ISO 841 machine frame), lengths in mm.
  */
+import { drawing, palette } from "@/lib/domain/theme";
 import { Html, Line, OrbitControls } from "@react-three/drei";
 import { Canvas, useThree } from "@react-three/fiber";
 import { useRouter } from "next/navigation";
@@ -28,11 +29,11 @@ import {
 import type { HeadConfig, HeadErrors, HeadPose, HeadVec3 } from "@/geometry";
 import { factorFromSlider, formatFactor } from "./factor";
 
-const NOMINAL = "#5f7d99";
-const FITTED = "#e08e0b";
+const NOMINAL = palette.nominal[500];
+const FITTED = palette.accent[500];
 /** The other fit of a pre/post pair: a deep teal, dashed, so it differs from nominal by hue and pattern. */
-const OTHER = "#0f766e";
-const BACKGROUND = "#f3f4f6";
+const OTHER = drawing.overlay;
+const BACKGROUND = drawing.sceneBackground;
 
 /** One fit as the legend names it: its phase in words and the dataset it was fitted from. */
 export interface ViewerFitLabel {
@@ -211,7 +212,8 @@ export function HeadViewer({
               type="checkbox"
               checked={showOverlay}
               onChange={(e) => setShowOverlay(e.target.checked)}
-              className="h-5 w-5 accent-[#0f766e]"
+              className="h-5 w-5"
+              style={{ accentColor: drawing.overlay }}
             />
             Also draw the fit {overlay.phaseText}{" "}
             <span className="font-normal text-graphite-600">({overlay.dataset})</span>
@@ -319,7 +321,7 @@ function Legend({
 /** A simplified head at zero: collar, body, tilt-axis housing, spindle and tool (translucent, so the axes show). */
 function HeadModel({ L }: { L: number }) {
   const body = {
-    color: "#9aa3ad",
+    color: drawing.faint,
     transparent: true,
     opacity: 0.28,
     roughness: 0.7,
@@ -331,7 +333,7 @@ function HeadModel({ L }: { L: number }) {
       {/* Cylinders are along +Y by default; rotate to Z (primary) or X (tilt axis). */}
       <mesh position={[0, 0, 1.26 * L]} rotation={[Math.PI / 2, 0, 0]}>
         <cylinderGeometry args={[0.6 * L, 0.6 * L, 0.12 * L, 48]} />
-        <meshStandardMaterial {...body} color="#6b7280" opacity={0.35} />
+        <meshStandardMaterial {...body} color={drawing.zeroLine} opacity={0.35} />
       </mesh>
       <mesh position={[0, 0, 0.78 * L]} rotation={[Math.PI / 2, 0, 0]}>
         <cylinderGeometry args={[0.42 * L, 0.46 * L, 0.84 * L, 48]} />
@@ -347,11 +349,11 @@ function HeadModel({ L }: { L: number }) {
       </mesh>
       <mesh position={[0, 0, -0.86 * L]} rotation={[Math.PI / 2, 0, 0]}>
         <cylinderGeometry args={[0.045 * L, 0.045 * L, 0.28 * L, 20]} />
-        <meshStandardMaterial color="#4b5563" roughness={0.4} metalness={0.5} />
+        <meshStandardMaterial color={drawing.axisText} roughness={0.4} metalness={0.5} />
       </mesh>
       <mesh position={[0, 0, -L]}>
         <sphereGeometry args={[0.035 * L, 20, 14]} />
-        <meshStandardMaterial color="#374151" />
+        <meshStandardMaterial color={drawing.labelText} />
       </mesh>
     </group>
   );
@@ -563,9 +565,9 @@ async function viewPicture(
   const w = g.measureText(label).width;
   g.fillStyle = "rgba(255,255,255,0.92)";
   g.fillRect(px * 0.6, px * 0.6, w + px * 1.2, px * 1.9);
-  g.fillStyle = "#1d2125";
+  g.fillStyle = palette.graphite[900];
   g.fillText(label, px * 1.2, px * 1.95);
-  g.fillStyle = "#ffffff";
+  g.fillStyle = palette.white;
   g.fillRect(0, canvas.height, out.width, band);
   g.font = `${Math.round(px * 0.85)}px sans-serif`;
   const line = (y: number, colour: string, dashed: boolean, text: string) => {
@@ -576,7 +578,7 @@ async function viewPicture(
     g.moveTo(px, y);
     g.lineTo(px * 3, y);
     g.stroke();
-    g.fillStyle = "#2d3238";
+    g.fillStyle = palette.graphite[800];
     g.fillText(text, px * 3.6, y + px * 0.3);
   };
   const y0 = canvas.height + px * 1.2;
