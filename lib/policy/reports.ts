@@ -15,3 +15,15 @@ export function amendmentRefusal(actor: Actor, job: { status: JobStatus }): stri
     return "An amendment follows an issued or rejected report.";
   return null;
 }
+
+/** Who approves and issues a report: an application engineer (the signature "approved"). */
+export function reportIssuerRefusal(actor: Actor): string | null {
+  return actor.role === "engineer" ? null : "Only an application engineer approves and issues the report.";
+}
+
+/** Who accepts or rejects a report: a user of a customer company (their own jobs only, checked on the job). */
+export function reportResponderRefusal(actor: Actor): string | null {
+  return actor.role === "customer" && actor.customerId
+    ? null
+    : "Only the customer's own users accept or reject the report.";
+}

@@ -1,5 +1,6 @@
 "use server";
 
+import { reportIssuerRefusal, reportResponderRefusal } from "@/lib/policy/reports";
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { issueReport, respondToReport, signJobWork } from "@/db/queries/reports";
@@ -19,7 +20,7 @@ export const signWorkAction = action(
 export const issueReportAction = action(
   {
     schema: z.object({ jobId: z.uuid(), password, amendmentReason: z.string().max(2000).optional() }),
-    roles: ["engineer"],
+    refusal: reportIssuerRefusal,
   },
   async (input, actor) => {
     const r = await issueReport(actor, {
@@ -41,7 +42,7 @@ export const respondAction = action(
       password,
       comment: z.string().max(4000).optional(),
     }),
-    roles: ["customer"],
+    refusal: reportResponderRefusal,
   },
   async (input, actor) => {
     await respondToReport(actor, {
