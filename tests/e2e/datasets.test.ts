@@ -56,13 +56,11 @@ describe("inspector: test-part data to a judged table", () => {
   });
 
   it("a good file shows the preview, uploads with progress and opens the evaluation", async () => {
-    await page
-      .getByLabel("CSV file")
-      .setInputFiles({
-        name: "test part 7.csv",
-        mimeType: "text/csv",
-        buffer: readFileSync("tests/fixtures/uploads/test-part-good.csv"),
-      });
+    await page.getByLabel("CSV file").setInputFiles({
+      name: "test part 7.csv",
+      mimeType: "text/csv",
+      buffer: readFileSync("tests/fixtures/uploads/test-part-good.csv"),
+    });
     await page.getByTestId("chosen-file").filter({ hasText: "test part 7.csv" }).waitFor();
     const preview = page.getByRole("table", { name: "Preview of the first rows" });
     await preview.waitFor();

@@ -83,13 +83,11 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     await openSection(p, REF, "Data");
     await fitsTheTablet(p, "data page");
     await p.getByLabel("Test-part measurements").check({ force: true });
-    await p
-      .getByLabel("CSV file")
-      .setInputFiles({
-        name: "tollan test part.csv",
-        mimeType: "text/csv",
-        buffer: readFileSync("tests/fixtures/uploads/test-part-good.csv"),
-      });
+    await p.getByLabel("CSV file").setInputFiles({
+      name: "tollan test part.csv",
+      mimeType: "text/csv",
+      buffer: readFileSync("tests/fixtures/uploads/test-part-good.csv"),
+    });
     await p.getByRole("table", { name: "Preview of the first rows" }).waitFor();
     await p.getByLabel(/Expanded uncertainty U/).fill("0.002");
     await fitsTheTablet(p, "data page with preview");

@@ -98,17 +98,15 @@ describe("head history", () => {
         .where(eq(customers.name, "Tollan Mold Works"))
     )[0]!;
     const ref = `TR-MOVED-${Date.now().toString(36)}`;
-    await db
-      .insert(jobs)
-      .values({
-        reference: ref,
-        title: "Head TH-2241 on loan at Tollan",
-        kind: "reverification",
-        status: "draft",
-        customerId: tollanMachine.customerId,
-        machineId: tollanMachine.id,
-        headId,
-      });
+    await db.insert(jobs).values({
+      reference: ref,
+      title: "Head TH-2241 on loan at Tollan",
+      kind: "reverification",
+      status: "draft",
+      customerId: tollanMachine.customerId,
+      machineId: tollanMachine.id,
+      headId,
+    });
 
     await signInAs("buyer@tollan.example");
     const t = (await (await history(headId)).json()) as Body;
