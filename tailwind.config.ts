@@ -1,43 +1,23 @@
 /**
- * Trammel's design tokens. Graphite and slate neutrals, one warm accent (amber) for actions and
- * fitted geometry, a cool blue-grey for nominal geometry, and status colours that always come
- * with an icon and a word. Contrast pairs chosen for WCAG AA on white and on graphite.
+ * Trammel's design tokens for Tailwind. The colours come from lib/domain/theme.ts, which the PDF
+ * and the 3D view use too, so the three never drift apart.
  */
 import type { Config } from "tailwindcss";
+// Relative: the config is loaded without the app's path alias.
+import { palette } from "./lib/domain/theme";
 
 export default {
   content: ["./app/**/*.{ts,tsx}", "./components/**/*.{ts,tsx}"],
   theme: {
     extend: {
       colors: {
-        graphite: {
-          50: "#f6f7f8",
-          100: "#eceef0",
-          200: "#d5d9de",
-          300: "#b3bac3",
-          400: "#8a939e",
-          500: "#5f6873",
-          600: "#555d68",
-          700: "#434a53",
-          800: "#2d3238",
-          900: "#1d2125",
-          950: "#121518",
-        },
-        // 600 and darker carry white text at WCAG AA (≥ 4.5:1); 500 is for strokes and fills only.
-        accent: {
-          50: "#fff8eb",
-          100: "#feeac7",
-          300: "#f9c266",
-          500: "#e08e0b",
-          600: "#9a5a06",
-          700: "#7d4907",
-          800: "#633a0b",
-        },
-        nominal: { 100: "#e3eaf1", 300: "#9fb3c8", 500: "#5f7d99", 700: "#3e5670" },
-        pass: { 50: "#ecf8f0", 600: "#1f7a45", 700: "#17613a" },
-        fail: { 50: "#fdeeee", 600: "#c2302b", 700: "#9c2420" },
-        undecided: { 50: "#f3effb", 600: "#6a45b0", 700: "#553791" },
-        unmeasured: { 50: "#f1f2f4", 600: "#5c6470" },
+        graphite: palette.graphite,
+        accent: palette.accent,
+        nominal: palette.nominal,
+        pass: palette.pass,
+        fail: palette.fail,
+        undecided: palette.undecided,
+        unmeasured: palette.unmeasured,
       },
       fontFamily: {
         sans: ["var(--font-sans)", "system-ui", "sans-serif"],

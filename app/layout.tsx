@@ -1,3 +1,4 @@
+import { palette } from "@/lib/domain/theme";
 import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
 import { headers } from "next/headers";
@@ -28,7 +29,11 @@ export const metadata: Metadata = {
     "Install, align and prove two-axis milling heads: readings, kinematic fits and signed acceptance reports.",
 };
 
-export const viewport: Viewport = { width: "device-width", initialScale: 1, themeColor: "#1d2125" };
+export const viewport: Viewport = {
+  width: "device-width",
+  initialScale: 1,
+  themeColor: palette.graphite[900],
+};
 
 export default async function RootLayout({ children }: Readonly<{ children: React.ReactNode }>) {
   // Every page renders per request so that Next.js can put the CSP nonce (set in proxy.ts) on

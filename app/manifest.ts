@@ -1,3 +1,4 @@
+import { palette } from "@/lib/domain/theme";
 import type { MetadataRoute } from "next";
 
 /** Lets the tablet add Trammel to its home screen and open it full screen, like an app. */
@@ -10,8 +11,8 @@ export default function manifest(): MetadataRoute.Manifest {
     scope: "/",
     display: "standalone",
     orientation: "any",
-    background_color: "#f6f7f8",
-    theme_color: "#1d2125",
+    background_color: palette.graphite[50],
+    theme_color: palette.graphite[900],
     icons: [{ src: "/icon.svg", sizes: "any", type: "image/svg+xml", purpose: "any" }],
   };
 }

@@ -1,7 +1,10 @@
 /**
  * The database schema (Drizzle). Migrations in db/migrations are generated from this file by
- * `npm run db:generate` and committed. Lengths are stored in mm and angles in degrees (SI-based,
- * the unit in the column name); display units are a user preference.
+ * `npm run db:generate` and committed. Units: a column with a fixed unit says it in its name
+ * (`nominal_pivot_length_mm`, `mass_kg`, `air_temp_c`, `distance_mm`); checklist values, step
+ * limits and instrument figures are stored in the canonical unit of their quantity, mm for a
+ * length and arc seconds for an angle (`quantity_kind`); head-parameter limits in µm or arc
+ * seconds by the parameter key's suffix. Display units are a user preference (lib/units.ts).
  */
 import { sql } from "drizzle-orm";
 import {
@@ -21,6 +24,13 @@ import {
   uniqueIndex,
   uuid,
 } from "drizzle-orm/pg-core";
+// Relative imports: drizzle-kit loads this file without the app's path alias.
+import { DATASET_KINDS, DATASET_STATUSES, PHASES } from "../lib/domain/datasets";
+import { DECISION_RULES } from "../lib/domain/decisions";
+import { AXIS_LETTERS } from "../lib/domain/heads";
+import { JOB_KINDS, JOB_STATUSES } from "../lib/domain/jobs";
+import { ROLES } from "../lib/domain/roles";
+import { SIGNATURE_MEANINGS } from "../lib/domain/signatures";
 
 const timestamps = {
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
@@ -30,21 +40,14 @@ const timestamps = {
     .$onUpdate(() => new Date()),
 };
 
-export const roleEnum = pgEnum("role", ["admin", "installer", "inspector", "engineer", "customer"]);
-export const jobKindEnum = pgEnum("job_kind", ["installation", "reverification", "after_crash"]);
-export const jobStatusEnum = pgEnum("job_status", [
-  "draft",
-  "measuring",
-  "in_review",
-  "approved",
-  "issued",
-  "accepted",
-  "rejected",
-]);
-export const axisLetterEnum = pgEnum("axis_letter", ["A", "B", "C"]);
-export const decisionRuleEnum = pgEnum("decision_rule", ["simple", "guarded"]);
+// Closed sets come from lib/domain, so the database, the zod schemas and the labels agree.
+export const roleEnum = pgEnum("role", ROLES);
+export const jobKindEnum = pgEnum("job_kind", JOB_KINDS);
+export const jobStatusEnum = pgEnum("job_status", JOB_STATUSES);
+export const axisLetterEnum = pgEnum("axis_letter", AXIS_LETTERS);
+export const decisionRuleEnum = pgEnum("decision_rule", DECISION_RULES);
 export const unitSystemEnum = pgEnum("unit_system", ["metric", "inch"]);
-export const phaseEnum = pgEnum("phase", ["pre", "post"]);
+export const phaseEnum = pgEnum("phase", PHASES);
 /** What a checklist step measures; fixes the canonical unit its values are stored in. */
 export const quantityKindEnum = pgEnum("quantity_kind", ["length", "angle"]);
 /** How a step's value is obtained: read directly, or derived by geometry/ from the inputs. */
@@ -60,16 +63,10 @@ export const limitSourceEnum = pgEnum("limit_source", [
   "common_practice",
   "customer_spec",
 ]);
-export const datasetKindEnum = pgEnum("dataset_kind", ["sphere_probe", "tram", "sweep", "test_part"]);
-export const datasetStatusEnum = pgEnum("dataset_status", ["stored", "deleted"]);
+export const datasetKindEnum = pgEnum("dataset_kind", DATASET_KINDS);
+export const datasetStatusEnum = pgEnum("dataset_status", DATASET_STATUSES);
 export const outboxStatusEnum = pgEnum("outbox_status", ["pending", "sent", "failed"]);
-export const signatureMeaningEnum = pgEnum("signature_meaning", [
-  "performed",
-  "inspected",
-  "approved",
-  "accepted",
-  "rejected",
-]);
+export const signatureMeaningEnum = pgEnum("signature_meaning", SIGNATURE_MEANINGS);
 export const analysisKindEnum = pgEnum("analysis_kind", ["head_fit"]);
 
 /** bytea: drizzle 0.45 has no built-in type for it. Buffers round-trip exactly. */

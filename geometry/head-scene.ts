@@ -1,5 +1,5 @@
 /**
- * What the 3D view of a head fit draws, computed from the head model (docs/geometry.md, "Head
+ * What the 3D view of a head fit draws, computed from the head model (geometry/README.md, "Head
  * model"): nominal and fitted axis lines, nominal and actual tool-tip paths over the probed poses,
  * and the measured tip positions, with every error multiplied by an exaggeration factor k so that
  * µm and arc-second errors become visible. Lengths in mm, angles at this edge in degrees, error

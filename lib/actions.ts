@@ -5,9 +5,9 @@
  */
 import "server-only";
 import { z } from "zod";
-import type { Actor, Role } from "@/lib/domain/roles";
-import { requireRole, requireUser } from "@/lib/auth/session";
-import { AppError, isDatabaseUnavailable, unavailable } from "./errors";
+import type { Actor } from "@/lib/domain/roles";
+import { requireUser } from "@/lib/auth/session";
+import { AppError, forbidden, isDatabaseUnavailable, unavailable } from "./errors";
 
 /** `code` is the AppError code on failure ("unauthorized", "forbidden", "not_found", "invalid", …), so callers and tests can tell a refusal from a correction to make. */
 export type ActionResult<T> =
@@ -15,12 +15,15 @@ export type ActionResult<T> =
   | { ok: false; message: string; code: string; fieldErrors?: Record<string, string[]> };
 
 export function action<S extends z.ZodType, T>(
-  options: { schema: S; roles?: Role[] },
+  /** `refusal`: a rule from lib/policy checked on the actor before anything else (403 with its reason). */
+  options: { schema: S; refusal?: (actor: Actor) => string | null },
   fn: (input: z.infer<S>, actor: Actor) => Promise<T>,
 ): (raw: unknown) => Promise<ActionResult<T>> {
   return async (raw) => {
     try {
-      const actor = options.roles ? await requireRole(...options.roles) : await requireUser();
+      const actor = await requireUser();
+      const refused = options.refusal?.(actor);
+      if (refused) throw forbidden(refused);
       const input = raw instanceof FormData ? Object.fromEntries(raw.entries()) : raw;
       const parsed = options.schema.safeParse(input);
       if (!parsed.success) {

@@ -4,7 +4,8 @@
  * computes an angle itself — and the decision is geometry's ISO 14253-1 rule.
  */
 import { angleFromReading } from "@/geometry/angle";
-import { decide, type Decision, type DecisionRule } from "@/geometry/decision";
+import { decide } from "@/geometry/decision";
+import type { Decision, DecisionRule } from "@/lib/domain/decisions";
 import { RAD_PER_ARCSEC } from "@/geometry/units";
 import { toCanonical, type EntryUnit, type QuantityKind } from "@/lib/units";
 

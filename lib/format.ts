@@ -3,11 +3,6 @@
  * "2026-12-04 06:12 GMT+1", 24-hour, with the zone always shown — in the reader's zone on screen
  * and in UTC in exports and the PDF.
  */
-export const JOB_KIND_LABELS = {
-  installation: "Installation",
-  reverification: "Re-verification",
-  after_crash: "Check after a crash",
-} as const;
 
 const toDate = (d: Date | string) => (typeof d === "string" ? new Date(d) : d);
 

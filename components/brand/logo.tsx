@@ -1,18 +1,35 @@
+import { palette } from "@/lib/domain/theme";
 /** Trammel's mark: two crossed axes with an arc swept between them. */
 export function LogoMark({ className = "h-7 w-7" }: { className?: string }) {
   return (
     <svg viewBox="0 0 32 32" className={className} aria-hidden="true" focusable="false">
-      <rect x="1" y="1" width="30" height="30" rx="7" fill="#2d3238" />
-      <line x1="8" y1="24" x2="24" y2="8" stroke="#9fb3c8" strokeWidth="2.2" strokeLinecap="round" />
-      <line x1="8" y1="8" x2="24" y2="24" stroke="#9fb3c8" strokeWidth="2.2" strokeLinecap="round" />
+      <rect x="1" y="1" width="30" height="30" rx="7" fill={palette.graphite[800]} />
+      <line
+        x1="8"
+        y1="24"
+        x2="24"
+        y2="8"
+        stroke={palette.nominal[300]}
+        strokeWidth="2.2"
+        strokeLinecap="round"
+      />
+      <line
+        x1="8"
+        y1="8"
+        x2="24"
+        y2="24"
+        stroke={palette.nominal[300]}
+        strokeWidth="2.2"
+        strokeLinecap="round"
+      />
       <path
         d="M9.5 19.5 A 9 9 0 0 1 19.5 9.5"
         fill="none"
-        stroke="#e08e0b"
+        stroke={palette.accent[500]}
         strokeWidth="2.6"
         strokeLinecap="round"
       />
-      <circle cx="16" cy="16" r="2.2" fill="#e08e0b" />
+      <circle cx="16" cy="16" r="2.2" fill={palette.accent[500]} />
     </svg>
   );
 }

@@ -4,6 +4,8 @@
  * the limits are ticked and labelled, and the reading is a marker whose shape says its result
  * (circle pass, cross fail, diamond undecided) so colour is never the only signal.
  */
+import { palette } from "@/lib/domain/theme";
+import { PHASE_LABELS } from "@/lib/domain/datasets";
 import { ScrollRegion } from "@/components/ui/scroll-region";
 import type { StepDecision } from "@/lib/checklist";
 
@@ -24,11 +26,11 @@ const GAP = 28;
 const TOP = 34;
 
 const COLOURS: Record<StepDecision, string> = {
-  pass: "#1f7a45",
-  fail: "#c2302b",
-  undecided: "#6a45b0",
-  no_limit: "#3e5670",
-  not_measured: "#5c6470",
+  pass: palette.pass[600],
+  fail: palette.fail[600],
+  undecided: palette.undecided[600],
+  no_limit: palette.nominal[700],
+  not_measured: palette.unmeasured[600],
 };
 
 function scale(row: BandRow) {
@@ -65,19 +67,19 @@ function Marker({ x, y, decision }: { x: number; y: number; decision: StepDecisi
       <path
         d={`M${x} ${y - 7}L${x + 7} ${y}L${x} ${y + 7}L${x - 7} ${y}Z`}
         fill={c}
-        stroke="#fff"
+        stroke={palette.white}
         strokeWidth="1.5"
       />
     );
-  return <circle cx={x} cy={y} r="6" fill={c} stroke="#fff" strokeWidth="1.5" />;
+  return <circle cx={x} cy={y} r="6" fill={c} stroke={palette.white} strokeWidth="1.5" />;
 }
 
 export function BandChart({ rows }: { rows: BandRow[] }) {
   const width = LABEL_W + 2 * PANEL_W + GAP;
   const height = TOP + rows.length * ROW_H + 8;
   const panels = [
-    { key: "pre" as const, title: "Before adjustment", x0: LABEL_W },
-    { key: "post" as const, title: "After adjustment", x0: LABEL_W + PANEL_W + GAP },
+    { key: "pre" as const, title: PHASE_LABELS.pre, x0: LABEL_W },
+    { key: "post" as const, title: PHASE_LABELS.post, x0: LABEL_W + PANEL_W + GAP },
   ];
   return (
     <ScrollRegion label="Readings against their limits, chart">
@@ -117,7 +119,7 @@ export function BandChart({ rows }: { rows: BandRow[] }) {
             return (
               <g key={row.key}>
                 {i % 2 === 0 ? (
-                  <rect x={0} y={y - ROW_H / 2} width={width} height={ROW_H} fill="#f6f7f8" />
+                  <rect x={0} y={y - ROW_H / 2} width={width} height={ROW_H} fill={palette.graphite[50]} />
                 ) : null}
                 <text x={8} y={y - 3} fontSize="12" className="fill-graphite-900">
                   {row.label.length > 34 ? `${row.label.slice(0, 33)}…` : row.label}
@@ -137,15 +139,22 @@ export function BandChart({ rows }: { rows: BandRow[] }) {
                   const r = row[p.key];
                   return (
                     <g key={p.key} transform={`translate(${p.x0},0)`}>
-                      <line x1={10} x2={PANEL_W - 10} y1={y} y2={y} stroke="#b3bac3" strokeWidth="1" />
+                      <line
+                        x1={10}
+                        x2={PANEL_W - 10}
+                        y1={y}
+                        y2={y}
+                        stroke={palette.graphite[300]}
+                        strokeWidth="1"
+                      />
                       {lo != null && hi != null ? (
                         <rect
                           x={sx(lo)}
                           y={y - 9}
                           width={Math.max(1, sx(hi) - sx(lo))}
                           height={18}
-                          fill="#e3eaf1"
-                          stroke="#5f7d99"
+                          fill={palette.nominal[100]}
+                          stroke={palette.nominal[500]}
                           strokeWidth="1"
                           rx="2"
                         />
@@ -156,7 +165,7 @@ export function BandChart({ rows }: { rows: BandRow[] }) {
                           x2={sx(row.lower)}
                           y1={y - 13}
                           y2={y + 13}
-                          stroke="#3e5670"
+                          stroke={palette.nominal[700]}
                           strokeWidth="2"
                         />
                       ) : null}
@@ -166,7 +175,7 @@ export function BandChart({ rows }: { rows: BandRow[] }) {
                           x2={sx(row.upper)}
                           y1={y - 13}
                           y2={y + 13}
-                          stroke="#3e5670"
+                          stroke={palette.nominal[700]}
                           strokeWidth="2"
                         />
                       ) : null}

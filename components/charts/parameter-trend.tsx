@@ -5,6 +5,7 @@
  * rest on colour. Server-rendered SVG; each panel has its title and description, and the same
  * numbers follow as a table.
  */
+import { palette } from "@/lib/domain/theme";
 import { niceTicks } from "@/lib/chart-ticks";
 import { Table, type ColumnDef } from "@/components/ui/table";
 
@@ -68,7 +69,7 @@ function Panel({ jobs, s, index }: { jobs: TrendJob[]; s: TrendSeries; index: nu
             x2={W - M.right}
             y1={y(v)}
             y2={y(v)}
-            stroke={v === 0 ? "#8a939e" : "#eceef0"}
+            stroke={v === 0 ? palette.graphite[400] : palette.graphite[100]}
             strokeWidth="1"
             strokeDasharray={v === 0 ? "4 3" : undefined}
           />
@@ -92,7 +93,7 @@ function Panel({ jobs, s, index }: { jobs: TrendJob[]; s: TrendSeries; index: nu
       >
         {UNIT_AXIS[s.unit]}
       </text>
-      <line x1={M.left} x2={M.left} y1={M.top} y2={M.top + ph} stroke="#b3bac3" />
+      <line x1={M.left} x2={M.left} y1={M.top} y2={M.top + ph} stroke={palette.graphite[300]} />
       {jobs.map((j, i) => (
         <g key={j.key}>
           <text
@@ -123,7 +124,7 @@ function Panel({ jobs, s, index }: { jobs: TrendJob[]; s: TrendSeries; index: nu
         <polyline
           points={pts.map((p) => `${x(p.i)},${y(p.value)}`).join(" ")}
           fill="none"
-          stroke="#e08e0b"
+          stroke={palette.accent[500]}
           strokeWidth="1.5"
         />
       ) : null}
@@ -134,7 +135,7 @@ function Panel({ jobs, s, index }: { jobs: TrendJob[]; s: TrendSeries; index: nu
             x2={x(p.i)}
             y1={y(p.value - p.U)}
             y2={y(p.value + p.U)}
-            stroke="#633a0b"
+            stroke={palette.accent[800]}
             strokeWidth="1.5"
           />
           <line
@@ -142,7 +143,7 @@ function Panel({ jobs, s, index }: { jobs: TrendJob[]; s: TrendSeries; index: nu
             x2={x(p.i) + 5}
             y1={y(p.value - p.U)}
             y2={y(p.value - p.U)}
-            stroke="#633a0b"
+            stroke={palette.accent[800]}
             strokeWidth="1.5"
           />
           <line
@@ -150,15 +151,15 @@ function Panel({ jobs, s, index }: { jobs: TrendJob[]; s: TrendSeries; index: nu
             x2={x(p.i) + 5}
             y1={y(p.value + p.U)}
             y2={y(p.value + p.U)}
-            stroke="#633a0b"
+            stroke={palette.accent[800]}
             strokeWidth="1.5"
           />
           <circle
             cx={x(p.i)}
             cy={y(p.value)}
             r="5"
-            fill={p.approved ? "#e08e0b" : "#ffffff"}
-            stroke="#633a0b"
+            fill={p.approved ? palette.accent[500] : palette.white}
+            stroke={palette.accent[800]}
             strokeWidth="2"
           />
         </g>
@@ -189,13 +190,27 @@ export function ParameterTrend({
         <span>{caption ?? "Each panel has its own scale; bars are ± U (k = 2); dashed: zero."}</span>
         <span className="inline-flex items-center gap-1">
           <svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true">
-            <circle cx="6" cy="6" r="4.5" fill="#e08e0b" stroke="#633a0b" strokeWidth="1.5" />
+            <circle
+              cx="6"
+              cy="6"
+              r="4.5"
+              fill={palette.accent[500]}
+              stroke={palette.accent[800]}
+              strokeWidth="1.5"
+            />
           </svg>
           approved fit
         </span>
         <span className="inline-flex items-center gap-1">
           <svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true">
-            <circle cx="6" cy="6" r="4.5" fill="#fff" stroke="#633a0b" strokeWidth="1.5" />
+            <circle
+              cx="6"
+              cy="6"
+              r="4.5"
+              fill={palette.white}
+              stroke={palette.accent[800]}
+              strokeWidth="1.5"
+            />
           </svg>
           latest fit, not approved
         </span>

@@ -1,9 +1,14 @@
 /**
- * What the browser needs to know about the four dataset formats (docs/product.md, "CSV formats"):
- * their columns, which are numbers, the unit questions, and header names to map from
- * automatically. The server does not use this: it re-reads every file with geometry/'s readers.
+ * What the browser needs to know about the four dataset formats (geometry/README.md, "CSV
+ * formats"): their columns (geometry/csv/columns.ts, the readers' own list), which are numbers, and
+ * header names to map from automatically. The server does not use this: it re-reads every file
+ * with geometry/'s readers.
  */
-export type DatasetKindKey = "sphere_probe" | "tram" | "sweep" | "test_part";
+import { CSV_COLUMNS } from "@/geometry/csv/columns";
+import type { DatasetKind } from "@/lib/domain/datasets";
+
+export { DATASET_KIND_LABELS as KIND_LABELS, PHASE_LABELS } from "@/lib/domain/datasets";
+export type DatasetKindKey = DatasetKind;
 
 export interface ColumnInfo {
   readonly name: string;
@@ -16,13 +21,6 @@ export interface ColumnInfo {
   readonly aliases: readonly string[];
 }
 
-export const KIND_LABELS: Record<DatasetKindKey, string> = {
-  sphere_probe: "Sphere probing",
-  tram: "Indicator tram",
-  sweep: "Indicator sweep",
-  test_part: "Test-part measurements",
-};
-
 export const KIND_HINTS: Record<DatasetKindKey, string> = {
   sphere_probe:
     "One row per probed pose: the commanded primary and secondary angles and the measured sphere centre.",
@@ -31,141 +29,68 @@ export const KIND_HINTS: Record<DatasetKindKey, string> = {
   test_part: "Each measured characteristic of the cut test part with its nominal and tolerance.",
 };
 
-export const PHASE_LABELS = { pre: "Before adjustment", post: "After adjustment" } as const;
-
-export const COLUMNS: Record<DatasetKindKey, readonly ColumnInfo[]> = {
-  sphere_probe: [
-    {
-      name: "primary_deg",
+/** What the form shows for each column: a label and other header spellings that map to it. */
+export const PRESENTATION: Record<DatasetKindKey, Readonly<Record<string, Presentation>>> = {
+  sphere_probe: {
+    primary_deg: {
       label: "Primary angle (°)",
-      required: true,
-      numeric: true,
       aliases: ["primary", "primaryangle", "c", "cdeg", "c_deg", "rotary"],
     },
-    {
-      name: "secondary_deg",
+    secondary_deg: {
       label: "Secondary angle (°)",
-      required: true,
-      numeric: true,
       aliases: ["secondary", "secondaryangle", "a", "b", "adeg", "bdeg", "tilt"],
     },
-    {
-      name: "x",
-      label: "Centre x",
-      required: true,
-      numeric: true,
-      aliases: ["xmm", "xin", "centrex", "centerx", "xcoord"],
-    },
-    {
-      name: "y",
-      label: "Centre y",
-      required: true,
-      numeric: true,
-      aliases: ["ymm", "yin", "centrey", "centery", "ycoord"],
-    },
-    {
-      name: "z",
-      label: "Centre z",
-      required: true,
-      numeric: true,
-      aliases: ["zmm", "zin", "centrez", "centerz", "zcoord"],
-    },
-    {
-      name: "point",
-      label: "Point number",
-      required: false,
-      numeric: true,
-      aliases: ["pt", "pose", "no", "nr"],
-    },
-    { name: "repeat", label: "Repeat", required: false, numeric: true, aliases: ["rep", "run"] },
-    {
-      name: "temp_c",
-      label: "Temperature (°C)",
-      required: false,
-      numeric: true,
-      aliases: ["temp", "temperature", "tempc"],
-    },
-    {
-      name: "tool_mm",
-      label: "Tool length (mm)",
-      required: false,
-      numeric: true,
-      aliases: ["tool", "toollength", "toolmm"],
-    },
-  ],
-  tram: [
-    {
-      name: "travel",
-      label: "Travel",
-      required: true,
-      numeric: true,
-      aliases: ["position", "pos", "distance", "x", "z"],
-    },
-    {
-      name: "reading",
-      label: "Reading",
-      required: true,
-      numeric: true,
-      aliases: ["indicator", "dial", "value", "tir"],
-    },
-    { name: "note", label: "Note", required: false, numeric: false, aliases: ["comment", "remark"] },
-  ],
-  sweep: [
-    {
-      name: "angle_deg",
-      label: "Angle (°)",
-      required: true,
-      numeric: true,
-      aliases: ["angle", "deg", "theta", "position"],
-    },
-    {
-      name: "reading",
-      label: "Reading",
-      required: true,
-      numeric: true,
-      aliases: ["indicator", "dial", "value"],
-    },
-  ],
-  test_part: [
-    {
-      name: "feature",
-      label: "Feature",
-      required: true,
-      numeric: false,
-      aliases: ["name", "element", "featurename"],
-    },
-    {
-      name: "characteristic",
-      label: "Characteristic",
-      required: true,
-      numeric: false,
-      aliases: ["property", "check", "quantity"],
-    },
-    { name: "nominal", label: "Nominal", required: true, numeric: true, aliases: ["nom", "target"] },
-    {
-      name: "measured",
-      label: "Measured",
-      required: true,
-      numeric: true,
-      aliases: ["actual", "meas", "value"],
-    },
-    {
-      name: "lower_tol",
-      label: "Lower tolerance",
-      required: true,
-      numeric: true,
-      allowEmpty: true,
-      aliases: ["lowertol", "lowtol", "tolminus", "mintol", "lower"],
-    },
-    {
-      name: "upper_tol",
-      label: "Upper tolerance",
-      required: true,
-      numeric: true,
-      aliases: ["uppertol", "uptol", "tolplus", "maxtol", "upper"],
-    },
-    { name: "unit", label: "Unit", required: false, numeric: false, aliases: ["units", "uom"] },
-  ],
+    x: { label: "Centre x", aliases: ["xmm", "xin", "centrex", "centerx", "xcoord"] },
+    y: { label: "Centre y", aliases: ["ymm", "yin", "centrey", "centery", "ycoord"] },
+    z: { label: "Centre z", aliases: ["zmm", "zin", "centrez", "centerz", "zcoord"] },
+    point: { label: "Point number", aliases: ["pt", "pose", "no", "nr"] },
+    repeat: { label: "Repeat", aliases: ["rep", "run"] },
+    temp_c: { label: "Temperature (°C)", aliases: ["temp", "temperature", "tempc"] },
+    tool_mm: { label: "Tool length (mm)", aliases: ["tool", "toollength", "toolmm"] },
+  },
+  tram: {
+    travel: { label: "Travel", aliases: ["position", "pos", "distance", "x", "z"] },
+    reading: { label: "Reading", aliases: ["indicator", "dial", "value", "tir"] },
+    note: { label: "Note", aliases: ["comment", "remark"] },
+  },
+  sweep: {
+    angle_deg: { label: "Angle (°)", aliases: ["angle", "deg", "theta", "position"] },
+    reading: { label: "Reading", aliases: ["indicator", "dial", "value"] },
+  },
+  test_part: {
+    feature: { label: "Feature", aliases: ["name", "element", "featurename"] },
+    characteristic: { label: "Characteristic", aliases: ["property", "check", "quantity"] },
+    nominal: { label: "Nominal", aliases: ["nom", "target"] },
+    measured: { label: "Measured", aliases: ["actual", "meas", "value"] },
+    lower_tol: { label: "Lower tolerance", aliases: ["lowertol", "lowtol", "tolminus", "mintol", "lower"] },
+    upper_tol: { label: "Upper tolerance", aliases: ["uppertol", "uptol", "tolplus", "maxtol", "upper"] },
+    unit: { label: "Unit", aliases: ["units", "uom"] },
+  },
+};
+
+interface Presentation {
+  readonly label: string;
+  readonly aliases: readonly string[];
+}
+
+function columnsOf(kind: DatasetKindKey): readonly ColumnInfo[] {
+  const shown = PRESENTATION[kind];
+  return CSV_COLUMNS[kind].map((c) => ({
+    name: c.name,
+    label: shown[c.name]!.label,
+    required: c.required,
+    numeric: c.kind === "number",
+    ...(c.allowEmpty ? { allowEmpty: true } : {}),
+    aliases: shown[c.name]!.aliases,
+  }));
+}
+
+/** The columns of each format, in geometry's order, with the form's labels and aliases. */
+export const COLUMNS: Record<DatasetKindKey, readonly ColumnInfo[]> = {
+  sphere_probe: columnsOf("sphere_probe"),
+  tram: columnsOf("tram"),
+  sweep: columnsOf("sweep"),
+  test_part: columnsOf("test_part"),
 };
 
 export function normaliseHeader(h: string): string {

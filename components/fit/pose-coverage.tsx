@@ -1,3 +1,4 @@
+import { drawing, palette } from "@/lib/domain/theme";
 import type { NextVisitPlan } from "@/lib/pose-coverage";
 import { PRIMARY_SECTOR_DEG, TILT_REFERENCE_DEG } from "@/lib/pose-coverage";
 
@@ -30,7 +31,7 @@ export function PoseCoverage({
   });
   const toolIndex = (t: number) => Math.max(0, c.toolLengthsMm.indexOf(Math.round(t * 1000) / 1000));
   const SHAPES = ["circle", "square", "triangle", "diamond"] as const;
-  const COLOURS = ["#5f7d99", "#b86e05", "#1d2125", "#17613a"];
+  const COLOURS = [palette.nominal[500], drawing.accentLine, palette.graphite[900], palette.pass[700]];
   const primaryTicks = [0, 60, 120, 180, 240, 300, 360];
   const tiltTicks = [tiltLo, tiltLo / 2, 0, tiltHi / 2, tiltHi].map((v) => Math.round(v));
   const missing = c.primarySectors.filter((s) => !s).length;
@@ -51,7 +52,7 @@ export function PoseCoverage({
               patternUnits="userSpaceOnUse"
               patternTransform="rotate(45)"
             >
-              <line x1="0" y1="0" x2="0" y2="6" stroke="#d5d9de" strokeWidth="2" />
+              <line x1="0" y1="0" x2="0" y2="6" stroke={palette.graphite[200]} strokeWidth="2" />
             </pattern>
           </defs>
           {c.primarySectors.map((hit, k) =>
@@ -71,33 +72,33 @@ export function PoseCoverage({
             y={y(c.secondaryMaxDeg)}
             width={W - m.l - m.r}
             height={Math.max(1, y(c.secondaryMinDeg) - y(c.secondaryMaxDeg))}
-            fill="#e7efe9"
+            fill={drawing.limitBand}
             opacity={0.6}
           />
           {tiltTicks.map((t) => (
             <g key={`t${t}`}>
-              <line x1={m.l} x2={W - m.r} y1={y(t)} y2={y(t)} stroke="#e3e6ea" />
-              <text x={m.l - 6} y={y(t) + 4} textAnchor="end" fontSize="11" fill="#4b5563">
+              <line x1={m.l} x2={W - m.r} y1={y(t)} y2={y(t)} stroke={drawing.grid} />
+              <text x={m.l - 6} y={y(t) + 4} textAnchor="end" fontSize="11" fill={drawing.axisText}>
                 {t}°
               </text>
             </g>
           ))}
           {primaryTicks.map((p) => (
             <g key={`p${p}`}>
-              <line x1={x(p)} x2={x(p)} y1={m.t} y2={H - m.b} stroke="#e3e6ea" />
-              <text x={x(p)} y={H - m.b + 14} textAnchor="middle" fontSize="11" fill="#4b5563">
+              <line x1={x(p)} x2={x(p)} y1={m.t} y2={H - m.b} stroke={drawing.grid} />
+              <text x={x(p)} y={H - m.b + 14} textAnchor="middle" fontSize="11" fill={drawing.axisText}>
                 {p}°
               </text>
             </g>
           ))}
-          <text x={(m.l + W - m.r) / 2} y={H - 4} textAnchor="middle" fontSize="11" fill="#4b5563">
+          <text x={(m.l + W - m.r) / 2} y={H - 4} textAnchor="middle" fontSize="11" fill={drawing.axisText}>
             primary axis angle (full turn)
           </text>
           <text
             x={12}
             y={(m.t + H - m.b) / 2}
             fontSize="11"
-            fill="#4b5563"
+            fill={drawing.axisText}
             textAnchor="middle"
             transform={`rotate(-90 12 ${(m.t + H - m.b) / 2})`}
           >

@@ -1,3 +1,4 @@
+import { drawing, palette } from "@/lib/domain/theme";
 import { niceTicks } from "@/lib/chart-ticks";
 
 /**
@@ -69,8 +70,15 @@ export function ResidualChart({
       >
         {ticks.map((t) => (
           <g key={t}>
-            <line x1={m.l} x2={W - m.r} y1={y(t)} y2={y(t)} stroke="#e3e6ea" />
-            <text x={m.l - 6} y={y(t) + 4} textAnchor="end" fontSize="11" fill="#4b5563" className="num">
+            <line x1={m.l} x2={W - m.r} y1={y(t)} y2={y(t)} stroke={drawing.grid} />
+            <text
+              x={m.l - 6}
+              y={y(t) + 4}
+              textAnchor="end"
+              fontSize="11"
+              fill={drawing.axisText}
+              className="num"
+            >
               {t.toFixed(tickDigits)}
             </text>
           </g>
@@ -79,7 +87,7 @@ export function ResidualChart({
           x={12}
           y={m.t + (H - m.t - m.b) / 2}
           fontSize="11"
-          fill="#4b5563"
+          fill={drawing.axisText}
           transform={`rotate(-90 12 ${m.t + (H - m.t - m.b) / 2})`}
           textAnchor="middle"
         >
@@ -93,11 +101,11 @@ export function ResidualChart({
                 x2={x(b.i) - 0.5 * ((W - m.l - m.r) / n)}
                 y1={m.t}
                 y2={H - m.b}
-                stroke="#9aa3ad"
+                stroke={drawing.faint}
                 strokeDasharray="3 3"
               />
             ) : null}
-            <text x={x(b.i)} y={H - m.b + 26} fontSize="11" fill="#374151">
+            <text x={x(b.i)} y={H - m.b + 26} fontSize="11" fill={drawing.labelText}>
               tool {b.tool} mm
             </text>
           </g>
@@ -109,24 +117,38 @@ export function ResidualChart({
             x2={x(i)}
             y1={y(0)}
             y2={y(w)}
-            stroke={w > limit ? "#b45309" : "#5f7d99"}
+            stroke={w > limit ? drawing.warning : palette.nominal[500]}
             strokeWidth={Math.max(1, Math.min(4, (W - m.l - m.r) / n - 0.5))}
           />
         ))}
         {outlierIdx.map((i, j) => (
           <g key={`o${i}`}>
-            <path d={`M ${x(i)} ${y(worst[i]!) - 9} l 5 8 l -10 0 z`} fill="#b45309" />
-            <text x={x(i)} y={labelY[j]} fontSize="10" textAnchor="middle" fill="#7c2d12" className="num">
+            <path d={`M ${x(i)} ${y(worst[i]!) - 9} l 5 8 l -10 0 z`} fill={drawing.warning} />
+            <text
+              x={x(i)}
+              y={labelY[j]}
+              fontSize="10"
+              textAnchor="middle"
+              fill={drawing.warningText}
+              className="num"
+            >
               row {rows[i]}
             </text>
           </g>
         ))}
-        <line x1={m.l} x2={W - m.r} y1={y(limit)} y2={y(limit)} stroke="#b45309" strokeDasharray="6 4" />
-        <text x={m.l + 6} y={y(limit) - 4} fontSize="11" fill="#7c2d12">
+        <line
+          x1={m.l}
+          x2={W - m.r}
+          y1={y(limit)}
+          y2={y(limit)}
+          stroke={drawing.warning}
+          strokeDasharray="6 4"
+        />
+        <text x={m.l + 6} y={y(limit) - 4} fontSize="11" fill={drawing.warningText}>
           3 s = {limit.toFixed(2)} µm
         </text>
-        <line x1={m.l} x2={W - m.r} y1={y(0)} y2={y(0)} stroke="#6b7280" />
-        <text x={m.l} y={H - m.b + 13} fontSize="11" fill="#4b5563">
+        <line x1={m.l} x2={W - m.r} y1={y(0)} y2={y(0)} stroke={drawing.zeroLine} />
+        <text x={m.l} y={H - m.b + 13} fontSize="11" fill={drawing.axisText}>
           poses in file order →
         </text>
       </svg>

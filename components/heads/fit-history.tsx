@@ -6,7 +6,8 @@ import { Table, type ColumnDef } from "@/components/ui/table";
 import type { HeadHistoryJob } from "@/lib/domain/heads";
 import { HEAD_PARAMETER_KEYS } from "@/geometry";
 import { parameterRows, PARAMETER_WORDS, type ParameterRow } from "@/lib/fit-display";
-import { formatDate, formatDateTimeUtc, JOB_KIND_LABELS } from "@/lib/format";
+import { JOB_KIND_LABELS } from "@/lib/domain/jobs";
+import { formatDate, formatDateTimeUtc } from "@/lib/format";
 
 const UNIT_TEXT = { um: "µm", arcsec: "″" } as const;
 

@@ -2,7 +2,8 @@ import Link from "next/link";
 import type { JobListRow, JobSortKey } from "@/lib/domain/jobs";
 import { StatusBadge } from "@/components/ui/status-badge";
 import { Table } from "@/components/ui/table";
-import { formatDate, JOB_KIND_LABELS } from "@/lib/format";
+import { JOB_KIND_LABELS } from "@/lib/domain/jobs";
+import { formatDate } from "@/lib/format";
 
 type Sort = { sort: JobSortKey; dir: "asc" | "desc" };
 

@@ -1,3 +1,4 @@
+import { drawing, palette } from "@/lib/domain/theme";
 import { niceTicks } from "@/lib/chart-ticks";
 import { parameterChartRows, readingRows, rowDomain, type LimitRow } from "@/lib/report/chart-data";
 import type { ReportData } from "@/lib/report/types";
@@ -100,7 +101,7 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                       y={2}
                       width={Math.max(0.5, x(r.upper ?? to) - x(r.lower ?? from))}
                       height={H - 4}
-                      fill="#e7efe9"
+                      fill={drawing.limitBand}
                     />
                     {r.lower != null ? (
                       <line
@@ -108,7 +109,7 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                         x2={x(r.lower)}
                         y1={0}
                         y2={H}
-                        stroke="#17613a"
+                        stroke={palette.pass[700]}
                         strokeWidth={1.4}
                       />
                     ) : null}
@@ -118,7 +119,7 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                         x2={x(r.upper)}
                         y1={0}
                         y2={H}
-                        stroke="#17613a"
+                        stroke={palette.pass[700]}
                         strokeWidth={1.4}
                       />
                     ) : null}
@@ -128,7 +129,7 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                         x2={x(0)}
                         y1={3}
                         y2={H - 3}
-                        stroke="#555d68"
+                        stroke={palette.graphite[600]}
                         strokeWidth={0.6}
                         strokeDasharray="2 2"
                       />
@@ -139,7 +140,7 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                         x2={x(after.value)}
                         y1={H / 2}
                         y2={H / 2}
-                        stroke="#555d68"
+                        stroke={palette.graphite[600]}
                         strokeWidth={1}
                       />
                     ) : null}
@@ -151,7 +152,7 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                           x2={x(m.value + m.U)}
                           y1={H / 2}
                           y2={H / 2}
-                          stroke="#1d2125"
+                          stroke={palette.graphite[900]}
                           strokeWidth={1.4}
                         />
                       ) : null,
@@ -163,8 +164,8 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                           cx={x(m.value)}
                           cy={H / 2}
                           r={4}
-                          fill="#fff"
-                          stroke="#5f7d99"
+                          fill={palette.white}
+                          stroke={palette.nominal[500]}
                           strokeWidth={1.6}
                         />
                       ) : (
@@ -173,7 +174,7 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                           cx={x(m.value)}
                           cy={H / 2}
                           r={3.6}
-                          fill={m.kind === "after" ? "#1d2125" : "#b86e05"}
+                          fill={m.kind === "after" ? palette.graphite[900] : drawing.accentLine}
                         />
                       ),
                     )}
@@ -213,8 +214,8 @@ function Residuals({ r }: { r: NonNullable<NonNullable<ReportData["charts"]>["re
       >
         {ticks.map((t) => (
           <g key={t}>
-            <line x1={m.l} x2={w - m.r} y1={y(t)} y2={y(t)} stroke="#e3e6ea" />
-            <text x={m.l - 6} y={y(t) + 4} textAnchor="end" fontSize="11" fill="#4b5563">
+            <line x1={m.l} x2={w - m.r} y1={y(t)} y2={y(t)} stroke={drawing.grid} />
+            <text x={m.l - 6} y={y(t) + 4} textAnchor="end" fontSize="11" fill={drawing.axisText}>
               {t}
             </text>
           </g>
@@ -226,7 +227,7 @@ function Residuals({ r }: { r: NonNullable<NonNullable<ReportData["charts"]>["re
             y={y(v)}
             width={bw}
             height={Math.max(0.5, y(0) - y(v))}
-            fill={v > limit ? "#9c2420" : "#5f7d99"}
+            fill={v > limit ? palette.fail[700] : palette.nominal[500]}
           />
         ))}
         <line
@@ -234,11 +235,11 @@ function Residuals({ r }: { r: NonNullable<NonNullable<ReportData["charts"]>["re
           x2={w - m.r}
           y1={y(limit)}
           y2={y(limit)}
-          stroke="#b86e05"
+          stroke={drawing.accentLine}
           strokeWidth={1.5}
           strokeDasharray="6 4"
         />
-        <text x={w - m.r} y={y(limit) - 4} textAnchor="end" fontSize="11" fill="#8a5204">
+        <text x={w - m.r} y={y(limit) - 4} textAnchor="end" fontSize="11" fill={drawing.accentText}>
           3 s = {limit.toFixed(2)} µm
         </text>
       </svg>

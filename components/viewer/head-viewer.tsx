@@ -19,6 +19,7 @@ import { headOverlayScene, headScene, tipChangeUm } from "@/geometry/head-scene"
 import type { HeadConfig, HeadErrors, HeadPose, HeadVec3 } from "@/geometry";
 import { factorFromSlider, formatFactor } from "./factor";
 import { Legend, NoWebGl } from "./legend";
+import { drawing } from "@/lib/domain/theme";
 import { BACKGROUND, type ViewerFitLabel } from "./palette";
 import { renderForPrint } from "./picture";
 import { SaveView } from "./save-view";
@@ -187,7 +188,8 @@ export function HeadViewer({
               type="checkbox"
               checked={showOverlay}
               onChange={(e) => setShowOverlay(e.target.checked)}
-              className="h-5 w-5 accent-[#0f766e]"
+              className="h-5 w-5"
+              style={{ accentColor: drawing.overlay }}
             />
             Also draw the fit {overlay.phaseText}{" "}
             <span className="font-normal text-graphite-600">({overlay.dataset})</span>

@@ -1,4 +1,5 @@
 /** The saved picture: the scene re-rendered at print resolution, with the factor and legend printed into it. */
+import { palette } from "@/lib/domain/theme";
 import type * as THREE from "three";
 import { formatFactor } from "./factor";
 import { BACKGROUND, FITTED, NOMINAL, OTHER, type ViewerFitLabel } from "./palette";
@@ -57,9 +58,9 @@ export async function viewPicture(
   const w = g.measureText(label).width;
   g.fillStyle = "rgba(255,255,255,0.92)";
   g.fillRect(px * 0.6, px * 0.6, w + px * 1.2, px * 1.9);
-  g.fillStyle = "#1d2125";
+  g.fillStyle = palette.graphite[900];
   g.fillText(label, px * 1.2, px * 1.95);
-  g.fillStyle = "#ffffff";
+  g.fillStyle = palette.white;
   g.fillRect(0, canvas.height, out.width, band);
   g.font = `${Math.round(px * 0.85)}px sans-serif`;
   const line = (y: number, colour: string, dashed: boolean, text: string) => {
@@ -70,7 +71,7 @@ export async function viewPicture(
     g.moveTo(px, y);
     g.lineTo(px * 3, y);
     g.stroke();
-    g.fillStyle = "#2d3238";
+    g.fillStyle = palette.graphite[800];
     g.fillText(text, px * 3.6, y + px * 0.3);
   };
   const y0 = canvas.height + px * 1.2;

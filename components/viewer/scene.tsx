@@ -4,6 +4,7 @@
  * coloured by residual, and optionally the other fit of a pre/post pair. Geometry comes from
  * geometry/head-scene.ts; this file only draws. Z up, lengths in mm.
  */
+import { drawing } from "@/lib/domain/theme";
 import { Html, Line, OrbitControls } from "@react-three/drei";
 import { useThree } from "@react-three/fiber";
 import { useEffect, useLayoutEffect, useMemo, useRef, type RefObject } from "react";
@@ -58,7 +59,7 @@ export function HeadScene({
 /** A simplified head at zero: collar, body, tilt-axis housing, spindle and tool (translucent, so the axes show). */
 function HeadModel({ L }: { L: number }) {
   const body = {
-    color: "#9aa3ad",
+    color: drawing.faint,
     transparent: true,
     opacity: 0.28,
     roughness: 0.7,
@@ -70,7 +71,7 @@ function HeadModel({ L }: { L: number }) {
       {/* Cylinders are along +Y by default; rotate to Z (primary) or X (tilt axis). */}
       <mesh position={[0, 0, 1.26 * L]} rotation={[Math.PI / 2, 0, 0]}>
         <cylinderGeometry args={[0.6 * L, 0.6 * L, 0.12 * L, 48]} />
-        <meshStandardMaterial {...body} color="#6b7280" opacity={0.35} />
+        <meshStandardMaterial {...body} color={drawing.zeroLine} opacity={0.35} />
       </mesh>
       <mesh position={[0, 0, 0.78 * L]} rotation={[Math.PI / 2, 0, 0]}>
         <cylinderGeometry args={[0.42 * L, 0.46 * L, 0.84 * L, 48]} />
@@ -86,11 +87,11 @@ function HeadModel({ L }: { L: number }) {
       </mesh>
       <mesh position={[0, 0, -0.86 * L]} rotation={[Math.PI / 2, 0, 0]}>
         <cylinderGeometry args={[0.045 * L, 0.045 * L, 0.28 * L, 20]} />
-        <meshStandardMaterial color="#4b5563" roughness={0.4} metalness={0.5} />
+        <meshStandardMaterial color={drawing.axisText} roughness={0.4} metalness={0.5} />
       </mesh>
       <mesh position={[0, 0, -L]}>
         <sphereGeometry args={[0.035 * L, 20, 14]} />
-        <meshStandardMaterial color="#374151" />
+        <meshStandardMaterial color={drawing.labelText} />
       </mesh>
     </group>
   );

@@ -10,6 +10,7 @@ import { type Actor } from "@/lib/domain/roles";
 import { jobCreateRefusal, transitionRefusal } from "@/lib/policy/jobs";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 import { publicUrl } from "@/lib/env";
+import { reviewRequestMessage } from "@/lib/mail/messages";
 
 /** Moves that carry signatures go through the report flow (db/queries/reports.ts), not here. */
 const SIGNED_MOVES: readonly JobStatus[] = ["issued", "accepted", "rejected"];
@@ -71,8 +72,13 @@ export async function changeJobStatus(actor: Actor, jobId: string, to: JobStatus
       await enqueueMail(tx, {
         dedupeKey: `review:${d.job.id}:${at.getTime()}:${r.id}`,
         to: r.email,
-        subject: `${d.job.reference} is ready for review`,
-        text: `Hello ${r.name},\n\n${actor.name} submitted ${d.job.title} (${d.job.reference}, ${d.customer.name}) for review.\nThe readings and the before/after comparison are here:\n${publicUrl}/jobs/${d.job.id}/compare\n`,
+        ...reviewRequestMessage({
+          baseUrl: publicUrl,
+          recipientName: r.name,
+          submittedBy: actor.name,
+          job: d.job,
+          customerName: d.customer.name,
+        }),
         jobId: d.job.id,
       });
     }

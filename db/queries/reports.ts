@@ -30,7 +30,8 @@ import type { Actor } from "@/lib/domain/roles";
 import { signatureRefusal } from "@/lib/policy/signatures";
 import { publicUrl } from "@/lib/env";
 import { forbidden, invalid, notFound } from "@/lib/errors";
-import { formatDateTimeUtc, JOB_KIND_LABELS } from "@/lib/format";
+import { JOB_KIND_LABELS } from "@/lib/domain/jobs";
+import { formatDateTimeUtc } from "@/lib/format";
 import { amendRefusal } from "@/lib/policy/reports";
 import {
   buildReportContent,

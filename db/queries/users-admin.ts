@@ -7,7 +7,8 @@ import { appendAudit } from "@/db/queries/audit";
 import { enqueueMail } from "@/db/queries/outbox";
 import { customers, userTokens, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
-import { ROLE_LABELS, type Actor } from "@/lib/domain/roles";
+import type { Actor } from "@/lib/domain/roles";
+import { invitationMessage } from "@/lib/mail/messages";
 import { publicUrl } from "@/lib/env";
 import { registerEditRefusal } from "@/lib/policy/registers";
 import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
@@ -72,8 +73,13 @@ export async function inviteUser(actor: Actor, input: z.infer<typeof userInviteS
     await enqueueMail(tx, {
       dedupeKey: `invite:${u!.id}`,
       to: email,
-      subject: "You are invited to Trammel",
-      text: `Hello ${input.name},\n\n${actor.name} invited you to Trammel as ${ROLE_LABELS[input.role].toLowerCase()}.\nSet your password here within 72 hours (the link works once):\n${publicUrl}/set-password?token=${token}\n`,
+      ...invitationMessage({
+        baseUrl: publicUrl,
+        name: input.name,
+        role: input.role,
+        invitedBy: actor.name,
+        token,
+      }),
     });
     await appendAudit(tx, {
       actorId: actor.id,

@@ -1,5 +1,5 @@
 /**
- * CSV readers for the product's four formats (see docs/product.md, "CSV formats"). Each takes the
+ * CSV readers for the product's four formats (geometry/README.md, "CSV formats"). Each takes the
  * file's text and returns its data shape with `warnings` attached (`WithWarnings<T>`), or throws a
  * GeometryError whose issues name the file row (header = row 1) and the column.
  */
@@ -10,4 +10,5 @@ export { readTestPartCsv, TEST_PART_UNITS, type TestPartUnit, type TestPartCsvOp
 export { formatIssue, MAX_ISSUES, type CsvDecimal, type CsvWarning, type WithWarnings } from "./table";
 export { readRotaryPositioningCsv } from "./rotary-positioning";
 export { readPointsCsv, type PointsData } from "./points";
+export { CSV_COLUMNS, type ColumnSpec } from "./columns";
 export type { CoordinateUnits, ReadingUnits } from "./units";

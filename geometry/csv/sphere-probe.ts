@@ -5,20 +5,9 @@
  * `tool_mm` is in mm whatever the coordinate unit (its name carries the unit).
  */
 import type { SphereProbeData } from "../types";
-import { readTable, type ColumnSpec, type CsvDecimal, type WithWarnings } from "./table";
+import { SPHERE_PROBE_COLUMNS } from "./columns";
+import { readTable, type CsvDecimal, type WithWarnings } from "./table";
 import { coordinateFactorToMm, scaleInPlace, type CoordinateUnits } from "./units";
-
-const COLUMNS: readonly ColumnSpec[] = [
-  { name: "primary_deg", kind: "number", required: true },
-  { name: "secondary_deg", kind: "number", required: true },
-  { name: "x", kind: "number", required: true },
-  { name: "y", kind: "number", required: true },
-  { name: "z", kind: "number", required: true },
-  { name: "point", kind: "number", required: false },
-  { name: "repeat", kind: "number", required: false },
-  { name: "temp_c", kind: "number", required: false },
-  { name: "tool_mm", kind: "number", required: false },
-];
 
 export interface SphereProbeCsvOptions {
   /** Unit of the x, y, z columns. */
@@ -36,7 +25,7 @@ export function readSphereProbeCsv(
   options: SphereProbeCsvOptions,
 ): WithWarnings<SphereProbeData> {
   const factor = coordinateFactorToMm(options?.units, "units");
-  const t = readTable(text, COLUMNS, { decimal: options?.decimal });
+  const t = readTable(text, SPHERE_PROBE_COLUMNS, { decimal: options?.decimal });
   const num = (k: string) => t.numbers.get(k);
   return {
     rows: t.rows,

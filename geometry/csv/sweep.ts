@@ -3,13 +3,9 @@
  * to µm); the sweep radius is entered separately.
  */
 import type { SweepData } from "../types";
-import { readTable, type ColumnSpec, type CsvDecimal, type WithWarnings } from "./table";
+import { SWEEP_COLUMNS } from "./columns";
+import { readTable, type CsvDecimal, type WithWarnings } from "./table";
 import { readingFactorToUm, scaleInPlace, type ReadingUnits } from "./units";
-
-const COLUMNS: readonly ColumnSpec[] = [
-  { name: "angle_deg", kind: "number", required: true },
-  { name: "reading", kind: "number", required: true },
-];
 
 export interface SweepCsvOptions {
   readonly readingUnits: ReadingUnits;
@@ -19,7 +15,7 @@ export interface SweepCsvOptions {
 /** Read an indicator-sweep CSV (angle degrees, reading µm). Throws GeometryError on malformed input. */
 export function readSweepCsv(text: string, options: SweepCsvOptions): WithWarnings<SweepData> {
   const readingFactor = readingFactorToUm(options?.readingUnits, "readingUnits");
-  const t = readTable(text, COLUMNS, { decimal: options?.decimal });
+  const t = readTable(text, SWEEP_COLUMNS, { decimal: options?.decimal });
   return {
     rows: t.rows,
     angleDeg: t.numbers.get("angle_deg")!,

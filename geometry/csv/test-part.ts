@@ -4,25 +4,8 @@
  * makes the tolerance one-sided (upper limit only), as ISO 14253-1 treats flatness or squareness.
  */
 import type { TestPartRow } from "../types";
-import {
-  fail,
-  MAX_ISSUES,
-  readTable,
-  type CodedIssue,
-  type ColumnSpec,
-  type CsvDecimal,
-  type WithWarnings,
-} from "./table";
-
-const COLUMNS: readonly ColumnSpec[] = [
-  { name: "feature", kind: "text", required: true },
-  { name: "characteristic", kind: "text", required: true },
-  { name: "nominal", kind: "number", required: true },
-  { name: "measured", kind: "number", required: true },
-  { name: "lower_tol", kind: "number", required: true, allowEmpty: true },
-  { name: "upper_tol", kind: "number", required: true },
-  { name: "unit", kind: "text", required: false },
-];
+import { fail, MAX_ISSUES, readTable, type CodedIssue, type CsvDecimal, type WithWarnings } from "./table";
+import { TEST_PART_COLUMNS } from "./columns";
 
 /** Units a test-part row may state (lower case as written; "µm" is read as "um"). */
 export const TEST_PART_UNITS = ["mm", "in", "um", "deg", "arcsec", "um/m"] as const;
@@ -37,7 +20,7 @@ export interface TestPartCsvOptions {
  * an empty feature or characteristic, an unknown unit, or lower_tol above upper_tol.
  */
 export function readTestPartCsv(text: string, options: TestPartCsvOptions = {}): WithWarnings<TestPartRow[]> {
-  const t = readTable(text, COLUMNS, { decimal: options.decimal });
+  const t = readTable(text, TEST_PART_COLUMNS, { decimal: options.decimal });
   const feature = t.texts.get("feature")!;
   const characteristic = t.texts.get("characteristic")!;
   const unit = t.texts.get("unit");

@@ -3,15 +3,8 @@
  * or in, as the caller chose; converted to travel mm and reading µm.
  */
 import type { TramData } from "../types";
-import {
-  fail,
-  MAX_ISSUES,
-  readTable,
-  type CodedIssue,
-  type ColumnSpec,
-  type CsvDecimal,
-  type WithWarnings,
-} from "./table";
+import { TRAM_COLUMNS } from "./columns";
+import { fail, MAX_ISSUES, readTable, type CodedIssue, type CsvDecimal, type WithWarnings } from "./table";
 import {
   coordinateFactorToMm,
   readingFactorToUm,
@@ -19,14 +12,6 @@ import {
   type CoordinateUnits,
   type ReadingUnits,
 } from "./units";
-
-const COLUMNS: readonly ColumnSpec[] = [
-  { name: "travel", kind: "number", required: true },
-  { name: "reading", kind: "number", required: true },
-  { name: "note", kind: "text", required: false },
-  { name: "plane", kind: "text", required: false },
-  { name: "bar_deg", kind: "number", required: false },
-];
 
 export interface TramCsvOptions {
   readonly travelUnits: CoordinateUnits;
@@ -38,7 +23,7 @@ export interface TramCsvOptions {
 export function readTramCsv(text: string, options: TramCsvOptions): WithWarnings<TramData> {
   const travelFactor = coordinateFactorToMm(options?.travelUnits, "travelUnits");
   const readingFactor = readingFactorToUm(options?.readingUnits, "readingUnits");
-  const t = readTable(text, COLUMNS, { decimal: options?.decimal });
+  const t = readTable(text, TRAM_COLUMNS, { decimal: options?.decimal });
   const note = t.texts.get("note");
   const planeText = t.texts.get("plane");
   const barDeg = t.numbers.get("bar_deg");

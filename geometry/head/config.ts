@@ -1,5 +1,5 @@
 /**
- * Configuration of a two-axis head and its ten error parameters (docs/geometry.md, "Head model").
+ * Configuration of a two-axis head and its ten error parameters (geometry/README.md, "The head model").
  * Machine frame X, Y, Z right-handed (ISO 841); A, B, C rotate about +X, +Y, +Z.
  */
 import { GeometryError, type GeometryIssue } from "../errors";
@@ -30,7 +30,7 @@ export interface HeadAxes {
   readonly pivotLengthMm: number;
 }
 
-/** The error parameters, in the order used everywhere (API keys of docs/geometry.md). */
+/** The error parameters, in the order used everywhere (API keys of geometry/README.md). */
 export const HEAD_PARAMETER_KEYS = [
   "pivot_length_error_um",
   "tip_offset_s_um",
@@ -120,7 +120,7 @@ function rotationLetter(v: Vec3): AxisLetter {
  * axis line, not a function of its angle): a linear offset of the axis line along X/Y/Z gives
  * E(X|Y|Z)0<axis>; an orientation (squareness) error about X/Y/Z gives E(A|B|C)0<axis>; the
  * zero-position error of an axis is the rotation about itself, E<axis>0<axis>. For C/A this gives
- * EY0A, EB0A, EC0A, EA0C, EB0C, EC0C, EA0A as docs/geometry.md lists (EC0A for secondary_yaw follows
+ * EY0A, EB0A, EC0A, EA0C, EB0C, EC0C, EA0A as geometry/README.md lists (EC0A for secondary_yaw follows
  * the same rule). The symbol carries no sign: the sign of a value follows this model's definition.
  *
  * The pivot length error and the two gauge-point offsets are not errors of an axis line in ISO

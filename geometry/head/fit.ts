@@ -1,5 +1,5 @@
 /**
- * Fit of the head's error parameters to sphere-probe data (docs/geometry.md, "Fit").
+ * Fit of the head's error parameters to sphere-probe data (geometry/README.md, "The fit").
  *
  * Nonlinear least squares over the sphere centre c and the free parameters by Levenberg–Marquardt
  * (geometry/lm.ts): residuals in µm (measured minus modelled sphere centre, model
@@ -618,7 +618,7 @@ function fitHeadUnchecked(config: HeadConfig, data: SphereProbeData, options: He
   };
 }
 
-/** The JSON `fit-head` prints (docs/geometry.md, "Command line"), exactly these keys. */
+/** The JSON `fit-head` prints (geometry/README.md, "Command line"), exactly these keys. */
 export interface HeadFitJson {
   readonly parameters: readonly {
     readonly key: HeadParameterKey;
@@ -638,7 +638,7 @@ export interface HeadFitJson {
   readonly warnings: readonly string[];
 }
 
-/** A fit result as the `fit-head` JSON of docs/geometry.md. */
+/** A fit result as the `fit-head` JSON of geometry/README.md. */
 export function headFitToJson(result: HeadFitResult): HeadFitJson {
   return {
     parameters: result.parameters.map(({ key, iso, value, unit, u, U, identifiable }) => ({

@@ -1,5 +1,5 @@
 /**
- * Which error parameters a set of poses can determine (docs/geometry.md, "Identifiability is
+ * Which error parameters a set of poses can determine (geometry/README.md, "Identifiability
  * computed, never assumed").
  *
  * Method: the Jacobian J of the sphere-centre residuals with respect to [c, parameters] is built at

@@ -1,6 +1,6 @@
 /**
  * The head's forward model and its analytic Jacobian, on plain numbers for the per-pose loops of
- * the fit and the planner (docs/geometry.md, "Exact forward model"). Internal to geometry/head;
+ * the fit and the planner (geometry/README.md, "The head model"). Internal to geometry/head;
  * model.ts wraps it for callers.
  *
  * All lengths mm, all angles rad inside; parameter values come in as µm and arcsec (the API units)

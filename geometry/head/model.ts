@@ -1,5 +1,5 @@
 /**
- * The head's forward model for callers (docs/geometry.md, "Exact forward model" and
+ * The head's forward model for callers (geometry/README.md, "The head model" and
  * "Sphere-probe measurement model"). Angles at this edge in degrees, lengths in mm, error values
  * in µm and arc seconds as their keys say.
  */
@@ -41,7 +41,7 @@ export function headErrorVector(errors: HeadErrors = {}): Float64Array {
  * Gauge-point (tip) position in mm, machine frame, at a pose:
  * tip(P, S) = R(p′, P + primary_zero)·(o + R(s′, S + secondary_zero)·(q − o)), with
  * q = (L0 + pivot_length_error + tool)·t + tip_offset_s·s + tip_offset_n·n and o = secondary_offset·n
- * (docs/geometry.md; rotations by Rodrigues' formula). With no errors this is the nominal tip₀.
+ * (geometry/README.md; rotations by Rodrigues' formula). With no errors this is the nominal tip₀.
  */
 export function headTipMm(config: HeadConfig, errors: HeadErrors, pose: HeadPose): Vec3 {
   const k = new HeadKernel(headAxes(config), headErrorVector(errors));
@@ -57,7 +57,7 @@ export function nominalTipMm(config: HeadConfig, pose: HeadPose): Vec3 {
 /**
  * Sphere centre the probe reports at a pose, mm: m = c − (tip − tip₀). The control keeps the
  * nominal tip on a fixed sphere of centre c (mm), so a tip error moves the measured centre the
- * other way (docs/geometry.md, "Sphere-probe measurement model").
+ * other way (geometry/README.md, "The head model").
  */
 export function measuredSphereCentreMm(
   config: HeadConfig,

@@ -1,6 +1,6 @@
 /**
  * Normal equations of the sphere-probe fit, built in one pass over the poses on Float64Array with
- * the analytic Jacobian of kernel.ts (docs/geometry.md, "Fit" and "Performance"). Internal to
+ * the analytic Jacobian of kernel.ts (geometry/README.md, "The fit" and "Performance"). Internal to
  * geometry/head.
  *
  * Unknowns θ = [δc_x, δc_y, δc_z (µm, the sphere centre minus a start c₀), free parameters (µm or

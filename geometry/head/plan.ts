@@ -1,5 +1,5 @@
 /**
- * Pose planning before anyone probes (docs/geometry.md, "Fit": the pose-plan helper): for a head
+ * Pose planning before anyone probes (geometry/README.md, "The fit": the pose-plan helper): for a head
  * config and candidate poses (with optional tool lengths), which parameters the sphere-probe fit
  * will identify, and each one's predicted standard uncertainty per 1 µm of probing noise.
  *

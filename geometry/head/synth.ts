@@ -71,7 +71,7 @@ export interface SynthOptions {
 
 /**
  * Sphere-probe data for known errors: mᵢ = c − (tip(Pᵢ, Sᵢ) − tip₀(Pᵢ, Sᵢ)) + noise (mm), the
- * measurement model of docs/geometry.md. Rows are numbered as a CSV file would number them
+ * measurement model of geometry/README.md. Rows are numbered as a CSV file would number them
  * (header row 1, first pose row 2); `toolMm` is present when any pose gives a tool length.
  */
 export function synthesiseSphereProbe(

@@ -4,7 +4,7 @@
  *   fit-head <sphere.csv> --head head.json [--units mm|in] [--decimal point|comma]
  *     Fit the ten error parameters of the head and the sphere centre to sphere-probe data
  *     (columns primary_deg, secondary_deg, x, y, z, optional point, repeat, temp_c, tool_mm).
- *     Prints the JSON of docs/geometry.md: parameters (key, iso, value, unit, u, U, identifiable),
+ *     Prints the JSON of geometry/README.md: parameters (key, iso, value, unit, u, U, identifiable),
  *     sphere_centre_mm, rms_um, max_um, outliers, iterations, warnings.
  *
  *   plan <poses.csv> --head head.json [--decimal point|comma]

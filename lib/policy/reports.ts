@@ -28,13 +28,31 @@ export function amendRefusal(actor: Pick<Actor, "role">, subject: AmendSubject):
  * engineer, while the job is in review or approved (before the report is issued).
  */
 export function deviationRefusal(actor: Pick<Actor, "role">, subject: { status: string }): string | null {
-  if (actor.role !== "engineer") return "Only an application engineer records a deviation.";
+  const who = deviationRecorderRefusal(actor);
+  if (who) return who;
   if (subject.status !== "in_review" && subject.status !== "approved")
     return "Deviations are recorded while the job is in review or approved, before the report is issued.";
   return null;
 }
 
+/** Who records a deviation at all: an application engineer (the job's status is checked by deviationRefusal). */
+export function deviationRecorderRefusal(actor: Pick<Actor, "role">): string | null {
+  return actor.role === "engineer" ? null : "Only an application engineer records a deviation.";
+}
+
 /** The readiness check (the blockers before issue) is the issuer's working list: staff see it, customers do not. */
 export function readinessRefusal(actor: Pick<Actor, "role">): string | null {
   return actor.role === "customer" ? "The readiness of a report is for the service company's staff." : null;
+}
+
+/** Who approves and issues a report: an application engineer (the signature "approved"). */
+export function reportIssuerRefusal(actor: Actor): string | null {
+  return actor.role === "engineer" ? null : "Only an application engineer approves and issues the report.";
+}
+
+/** Who accepts or rejects a report: a user of a customer company (their own jobs only, checked on the job). */
+export function reportResponderRefusal(actor: Actor): string | null {
+  return actor.role === "customer" && actor.customerId
+    ? null
+    : "Only the customer's own users accept or reject the report.";
 }

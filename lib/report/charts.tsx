@@ -5,21 +5,22 @@
  *  - residuals: the largest residual component per pose with the 3 s line of the outlier rule.
  * Shape and a word carry every meaning as well as colour (before: hollow ring, after: filled dot).
  */
+import { drawing, palette } from "@/lib/domain/theme";
 import { Circle, Line, Rect, Svg, Text, View } from "@react-pdf/renderer";
 import { niceTicks } from "@/lib/chart-ticks";
 import { rowDomain, type LimitRow } from "./chart-data";
 import type { ReportCharts } from "./types";
 
 const C = {
-  ink: "#1d2125",
-  muted: "#555d68",
-  rule: "#d5d9de",
-  band: "#e7efe9",
-  limit: "#17613a",
-  before: "#5f7d99",
-  after: "#1d2125",
-  fail: "#9c2420",
-  accent: "#b86e05",
+  ink: palette.graphite[900],
+  muted: palette.graphite[600],
+  rule: palette.graphite[200],
+  band: drawing.limitBand,
+  limit: palette.pass[700],
+  before: palette.nominal[500],
+  after: palette.graphite[900],
+  fail: palette.fail[700],
+  accent: drawing.accentLine,
 };
 
 const ROW_W = 225;
@@ -90,7 +91,7 @@ function RowPlot({ row }: { row: LimitRow }) {
             cx={x(m.value)}
             cy={mid}
             r={2.6}
-            fill="#ffffff"
+            fill={palette.white}
             stroke={C.before}
             strokeWidth={1.1}
           />

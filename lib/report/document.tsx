@@ -5,6 +5,7 @@
  * their calibration status; environment; results with limits and uncertainty; deviations and
  * remarks; signatures with name, meaning and time; a clear end of report.
  */
+import { drawing, palette } from "@/lib/domain/theme";
 import {
   Circle,
   Document,
@@ -24,16 +25,16 @@ import { parameterChartRows, readingRows } from "./chart-data";
 import { LimitRowsChart, ResidualsChart } from "./charts";
 
 const C = {
-  ink: "#1d2125",
-  muted: "#555d68",
-  rule: "#d5d9de",
-  band: "#f6f7f8",
-  accent: "#b86e05",
-  nominal: "#5f7d99",
-  pass: "#17613a",
-  fail: "#9c2420",
-  undecided: "#553791",
-  none: "#5c6470",
+  ink: palette.graphite[900],
+  muted: palette.graphite[600],
+  rule: palette.graphite[200],
+  band: palette.graphite[50],
+  accent: drawing.accentLine,
+  nominal: palette.nominal[500],
+  pass: palette.pass[700],
+  fail: palette.fail[700],
+  undecided: palette.undecided[700],
+  none: palette.unmeasured[600],
 };
 
 const s = StyleSheet.create({
@@ -88,7 +89,13 @@ const s = StyleSheet.create({
   },
   // Dynamic (render) text vanishes under a line height: none here, nor on the page.
   footerText: { position: "absolute", bottom: 24, fontSize: 7, color: C.muted, fontFamily: "PlexSans" },
-  note: { borderWidth: 1.2, borderColor: C.accent, padding: 7, marginTop: 4, backgroundColor: "#fff8eb" },
+  note: {
+    borderWidth: 1.2,
+    borderColor: C.accent,
+    padding: 7,
+    marginTop: 4,
+    backgroundColor: palette.accent[50],
+  },
   sigBox: { width: "48%", borderWidth: 0.75, borderColor: C.rule, padding: 7, marginBottom: 8 },
   end: {
     marginTop: 14,
@@ -165,11 +172,11 @@ function Table<T>({ rows, cols, empty }: { rows: readonly T[]; cols: readonly Co
 function Mark() {
   return (
     <Svg width={22} height={22} viewBox="0 0 32 32">
-      <Rect x={1} y={1} width={30} height={30} rx={7} fill="#2d3238" />
-      <Line x1={8} y1={24} x2={24} y2={8} stroke="#9fb3c8" strokeWidth={2.2} />
-      <Line x1={8} y1={8} x2={24} y2={24} stroke="#9fb3c8" strokeWidth={2.2} />
-      <Path d="M9.5 19.5 A 9 9 0 0 1 19.5 9.5" stroke="#e08e0b" strokeWidth={2.6} fill="none" />
-      <Circle cx={16} cy={16} r={2.2} fill="#e08e0b" />
+      <Rect x={1} y={1} width={30} height={30} rx={7} fill={palette.graphite[800]} />
+      <Line x1={8} y1={24} x2={24} y2={8} stroke={palette.nominal[300]} strokeWidth={2.2} />
+      <Line x1={8} y1={8} x2={24} y2={24} stroke={palette.nominal[300]} strokeWidth={2.2} />
+      <Path d="M9.5 19.5 A 9 9 0 0 1 19.5 9.5" stroke={palette.accent[500]} strokeWidth={2.6} fill="none" />
+      <Circle cx={16} cy={16} r={2.2} fill={palette.accent[500]} />
     </Svg>
   );
 }

@@ -4,8 +4,10 @@
  * results; rendered to PDF by lib/report/document.tsx and to HTML by the report page, so the two
  * always say the same thing.
  */
-/** "recorded": a reading kept without a limit to judge it against. */
-export type Decision = "pass" | "fail" | "undecided" | "not_measured" | "recorded";
+import type { RecordedDecision } from "@/lib/domain/decisions";
+
+/** geometry's decision, or "not_measured", or "recorded": a reading kept without a limit to judge it against. */
+export type Decision = RecordedDecision;
 
 export interface ReportSignature {
   name: string;

@@ -22,11 +22,10 @@ import {
   readTramCsv,
   type TestPartRow,
 } from "@/geometry";
+import { DATASET_KINDS, PHASES, type DatasetKind } from "@/lib/domain/datasets";
 import { AppError, invalid, type FieldIssue } from "@/lib/errors";
 
-export const DATASET_KINDS = ["sphere_probe", "tram", "sweep", "test_part"] as const;
-export type DatasetKind = (typeof DATASET_KINDS)[number];
-export const PHASES = ["pre", "post"] as const;
+export { DATASET_KINDS, PHASES, type DatasetKind };
 
 export interface StoredColumn {
   readonly name: string;

@@ -1,5 +1,6 @@
 /** Input of a checklist reading, shared by the API, the server action and the tablet form. */
 import { z } from "zod";
+import { PHASES } from "@/lib/domain/datasets";
 
 export const ENTRY_UNITS = ["mm", "in", "um", "arcsec"] as const;
 
@@ -16,7 +17,7 @@ const optionalNumber = z.preprocess(
 
 export const readingCreateSchema = z.object({
   stepId: z.uuid({ message: "Choose a checklist step." }),
-  phase: z.enum(["pre", "post"], { message: "Say whether this is before or after the adjustment." }),
+  phase: z.enum(PHASES, { message: "Say whether this is before or after the adjustment." }),
   value: z.preprocess(
     (v) => (typeof v === "string" ? v.trim().replace(",", ".") : v),
     z.coerce

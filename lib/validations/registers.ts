@@ -1,5 +1,6 @@
 /** Register forms (administrator): instruments, users. Numbers from forms are coerced. */
 import { z } from "zod";
+import { AXIS_LETTERS } from "@/lib/domain/heads";
 import { ROLES } from "@/lib/domain/roles";
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use a date like 2027-03-31.");
@@ -82,8 +83,8 @@ export const headCreateSchema = z
     serial: z.string().trim().min(1, "The serial is required.").max(80),
     maker: optional(200),
     model: optional(200),
-    primaryAxis: z.enum(["A", "B", "C"]),
-    secondaryAxis: z.enum(["A", "B", "C"]),
+    primaryAxis: z.enum(AXIS_LETTERS),
+    secondaryAxis: z.enum(AXIS_LETTERS),
     nominalPivotLengthMm: z.coerce
       .number({ message: "Enter the nominal pivot length in mm." })
       .positive("The pivot length must be positive."),

@@ -1,4 +1,4 @@
-// Journey 1 of docs/product.md up to the evaluation table, in Debian's Chromium against the built
+// Journey 1 of README.md ("Journeys") up to the evaluation table, in Debian's Chromium against the built
 // app: the inspector opens a job's Data page, picks a bad test-part CSV and sees its row errors
 // before anything is sent, then a good one: preview, upload with progress, and the per-feature
 // pass/fail table with the job's decision rule stated; then signs the job as inspected.

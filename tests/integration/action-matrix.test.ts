@@ -1,6 +1,6 @@
 // Every server action × every role (anonymous, each staff role, each tenant's customer), against
 // the real database, called exactly as a form calls it. The expected answers are written out by
-// hand from the product's rules (product.md's roles table and the status flow), not computed from
+// hand from the product's rules (README.md, "Who uses it", and the status flow), not computed from
 // lib/policy. "pass" means the call got past every access check: it succeeded, or failed for a
 // reason that is not about who is asking (a field to correct). Each cell that changes something
 // gets a job of its own, so cells never depend on each other's order. The last test fails when an

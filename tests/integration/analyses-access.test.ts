@@ -1,5 +1,5 @@
 // The analysis routes × every role and tenant, against the real database. Expected answers are
-// written out by hand from the product's rules (docs/product.md, "Who uses it"): inspectors and
+// written out by hand from the product's rules (README.md, "Who uses it"): inspectors and
 // engineers (and the office) run fits, installers upload but do not fit, a customer reads only
 // their own company's records; another tenant's record is 404, exactly like a missing one.
 import { and, eq } from "drizzle-orm";

@@ -1,5 +1,5 @@
 // The dataset routes × every role and tenant, against the real database. Expected answers are
-// written out by hand from the product's rules (docs/product.md, "Who uses it"): staff see every
+// written out by hand from the product's rules (README.md, "Who uses it"): staff see every
 // job, the installer their assigned ones, a customer only their own company's; another tenant's
 // record is 404, exactly like a missing one.
 import { beforeAll, describe, expect, it } from "vitest";

@@ -141,7 +141,7 @@ describe("accepted uploads", () => {
     });
     expect(sweep.status).toBe(201);
     const s = await (await summaryApi((await sweep.json()).id)).json();
-    // a + b cosθ + c sinθ through 2, 0.5, −2, −0.5 at 0/90/180/270°: b = 2, c = 0.5 µm; tilt √(b²+c²)/r (docs/geometry.md) = 2.0616 µm / 50 mm.
+    // a + b cosθ + c sinθ through 2, 0.5, −2, −0.5 at 0/90/180/270°: b = 2, c = 0.5 µm; tilt √(b²+c²)/r (geometry/README.md) = 2.0616 µm / 50 mm.
     expect(s.dataset.summary.sweep.tilt_um_per_m).toBeCloseTo((Math.sqrt(4.25) / 50) * 1000, 9);
     expect(s.dataset.units).toEqual({ reading_units: "um", radius_mm: 50 });
   });

@@ -1,5 +1,5 @@
 // The saved-view and head-history routes × every role and tenant, against the real database.
-// Expected answers are written out by hand from the product's rules (docs/product.md, "Who uses
+// Expected answers are written out by hand from the product's rules (README.md, "Who uses
 // it"): engineers save views of a fit; anyone who may see the job reads them (installers only
 // their assigned jobs, customers only their own company's); the head history is read by the office
 // and engineers (who keep and read the heads register) and by a customer through their own jobs on

@@ -69,7 +69,7 @@ describe("decision against limits (ISO 14253-1 via geometry/decision)", () => {
 });
 
 describe("tilt from a reading over a travel (geometry/angle)", () => {
-  it("0.0005 in over 10 in is 50 µm/m, 10.31″ (check-values.md, trigonometry of the trade)", () => {
+  it("0.0005 in over 10 in is 50 µm/m, 10.31″ (common practice: trigonometry of the trade)", () => {
     const d = deriveReading(tilt, { value: 0.0005, unit: "in" });
     expect(d.value).toBeCloseTo(10.31, 2);
     expect(d.inputs?.slope_um_per_m).toBeCloseTo(50, 9);

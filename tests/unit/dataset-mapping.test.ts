@@ -1,7 +1,21 @@
 // The browser's automatic column matching for uploads (components/datasets/kinds.ts). The column
-// names are the product's own CSV formats (docs/product.md, "CSV formats").
+// names are the product's own CSV formats (geometry/README.md, "CSV formats").
 import { describe, expect, it } from "vitest";
-import { COLUMNS, guessMapping, normaliseHeader } from "@/components/datasets/kinds";
+import { COLUMNS, guessMapping, normaliseHeader, PRESENTATION } from "@/components/datasets/kinds";
+import { CSV_COLUMNS } from "@/geometry/csv/columns";
+import { DATASET_KINDS } from "@/lib/domain/datasets";
+
+describe("the form's columns are geometry's", () => {
+  it("lists exactly the readers' columns, in their order, with their required and number flags", () => {
+    for (const kind of DATASET_KINDS) {
+      expect(COLUMNS[kind].map((c) => [c.name, c.required, c.numeric, Boolean(c.allowEmpty)])).toEqual(
+        CSV_COLUMNS[kind].map((c) => [c.name, c.required, c.kind === "number", Boolean(c.allowEmpty)]),
+      );
+      // A label for a column the readers no longer have would be dead text.
+      expect(Object.keys(PRESENTATION[kind]).sort()).toEqual(CSV_COLUMNS[kind].map((c) => c.name).sort());
+    }
+  });
+});
 
 describe("guessMapping", () => {
   it("maps the format's own header names exactly, in any order and case", () => {

@@ -18,6 +18,7 @@ const CHECKS: ReadonlyArray<{ name: string; pattern: RegExp }> = [
   { name: "list membership of a role", pattern: /\.includes\(\s*(?:(?:actor|user)\.)?role\s*\)/ },
   { name: "a list of roles", pattern: /\b[A-Z][A-Z0-9]*_ROLES\b/ },
   { name: "a switch on the role", pattern: /switch\s*\(\s*(?:(?:actor|user)\.)?role\s*\)/ },
+  { name: "a list of roles given to a wrapper", pattern: /\broles\s*:\s*\[/ },
 ];
 
 /** The role checks in one file's text, as "line: what". */
@@ -53,6 +54,7 @@ describe("role checks live only in lib/policy", () => {
     expect(roleChecks(`if (!roles.includes(actor.role)) throw forbidden();`)).toHaveLength(1);
     expect(roleChecks(`const UPLOAD_ROLES: readonly Role[] = ["admin"];`)).toHaveLength(1);
     expect(roleChecks(`switch (actor.role) {`)).toHaveLength(1);
+    expect(roleChecks(`action({ schema, roles: ["admin"] }, async () => {})`)).toHaveLength(1);
   });
 
   it("leaves data about other people alone (a listed person's role is not an access check)", () => {

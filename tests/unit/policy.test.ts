@@ -6,6 +6,7 @@ import { datasetDeleteRefusal, uploadRefusal } from "@/lib/policy/datasets";
 import {
   allowedTransitions,
   jobCreateRefusal,
+  jobOpenFormRefusal,
   jobRefusal,
   jobScope,
   transitionRefusal,
@@ -13,7 +14,7 @@ import {
 import { navigationFor } from "@/lib/policy/navigation";
 import { readingsRefusal } from "@/lib/policy/readings";
 import { REGISTERS, registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
-import { amendRefusal } from "@/lib/policy/reports";
+import { amendRefusal, reportIssuerRefusal, reportResponderRefusal } from "@/lib/policy/reports";
 import { signatureRefusal } from "@/lib/policy/signatures";
 
 const actor = (role: Actor["role"], customerId: string | null = null): Actor => ({
@@ -238,5 +239,22 @@ describe("moves on someone else's job, amendments, data and registers", () => {
     expect(jobCreateRefusal(actor("engineer"))).toBeNull();
     for (const r of ["installer", "inspector", "customer"] as const)
       expect(jobCreateRefusal(actor(r))).toMatch(/office/);
+  });
+});
+
+describe("the rules server actions check before anything else", () => {
+  it("reports are issued by engineers and answered by a customer company's users", () => {
+    expect(reportIssuerRefusal(actor("engineer"))).toBeNull();
+    for (const r of ["admin", "installer", "inspector", "customer"] as const)
+      expect(reportIssuerRefusal(actor(r, "cA"))).toMatch(/application engineer/);
+    expect(reportResponderRefusal(actor("customer", "cA"))).toBeNull();
+    expect(reportResponderRefusal(actor("customer", null))).toMatch(/customer's own users/);
+    for (const r of ["admin", "installer", "inspector", "engineer"] as const)
+      expect(reportResponderRefusal(actor(r))).toMatch(/customer's own users/);
+  });
+  it("the registers' job form is the administrator's", () => {
+    expect(jobOpenFormRefusal(actor("admin"))).toBeNull();
+    for (const r of ["installer", "inspector", "engineer", "customer"] as const)
+      expect(jobOpenFormRefusal(actor(r))).toMatch(/administrator/);
   });
 });

@@ -1,6 +1,6 @@
 // Display units of checklist values. Exact definitions: 1 in = 25.4 mm (International Yard and
 // Pound Agreement 1959; NIST SP 811, B.8), so a tenth (0.0001 in) is 2.54 µm; 1″ = π/648000 rad
-// (definition), so 1″ ≈ 4.8481 µm/m (check-values.md, "Exact definitions").
+// (definition), so 1″ ≈ 4.8481 µm/m (follows from the two definitions).
 import { describe, expect, it } from "vitest";
 import {
   arcsecToUmPerM,
@@ -55,7 +55,7 @@ describe("display rounding: inch to tenths (0.0001 in), metric to 0.001 mm, angl
     expect(formatValue(0.00254, "length", "inch", { signed: true })).toBe("+0.0001 in");
     expect(formatValue(0, "length", "inch", { signed: true })).toBe("0.0000 in");
   });
-  it("angles show to 0.1″: 0.0005 in over 10 in is 10.3″ (check-values.md, trigonometry of the trade)", () => {
+  it("angles show to 0.1″: 0.0005 in over 10 in is 10.3″ (common practice: trigonometry of the trade)", () => {
     expect(formatValue(10.3132, "angle", "metric")).toBe("10.3″");
   });
   it("limits read as the trade writes them", () => {

@@ -10,6 +10,10 @@ import { createCustomer, createHead, createMachine, createSite } from "@/db/quer
 import { createTemplateVersion } from "@/db/queries/templates";
 import { inviteUser, updateUser } from "@/db/queries/users-admin";
 import { action } from "@/lib/actions";
+import { DECISION_RULES } from "@/lib/domain/decisions";
+import { JOB_KINDS } from "@/lib/domain/jobs";
+import { jobOpenFormRefusal } from "@/lib/policy/jobs";
+import { registerEditRefusal } from "@/lib/policy/registers";
 import { invalid } from "@/lib/errors";
 import { toCanonical } from "@/lib/units";
 import {
@@ -23,7 +27,7 @@ import {
 } from "@/lib/validations/registers";
 
 export const createInstrumentAction = action(
-  { schema: instrumentCreateSchema, roles: ["admin"] },
+  { schema: instrumentCreateSchema, refusal: (a) => registerEditRefusal(a, "instruments") },
   async (input, actor) => {
     const row = await createInstrument(actor, input);
     revalidatePath("/registers/instruments");
@@ -32,7 +36,7 @@ export const createInstrumentAction = action(
 );
 
 export const inviteUserAction = action(
-  { schema: userInviteSchema, roles: ["admin"] },
+  { schema: userInviteSchema, refusal: (a) => registerEditRefusal(a, "people") },
   async (input, actor) => {
     const { userId } = await inviteUser(actor, input);
     revalidatePath("/registers/people");
@@ -42,7 +46,7 @@ export const inviteUserAction = action(
 );
 
 export const updateUserAction = action(
-  { schema: userUpdateSchema, roles: ["admin"] },
+  { schema: userUpdateSchema, refusal: (a) => registerEditRefusal(a, "people") },
   async (input, actor) => {
     const r = await updateUser(actor, input);
     revalidatePath("/registers/people");
@@ -68,7 +72,7 @@ function invalidSource(p: number): never {
 }
 
 export const createTemplateVersionAction = action(
-  { schema: templateVersionSchema, roles: ["admin"] },
+  { schema: templateVersionSchema, refusal: (a) => registerEditRefusal(a, "procedures") },
   async (input, actor) => {
     const positions = new Set<number>();
     for (const k of Object.keys(input)) {
@@ -138,17 +142,20 @@ const jobCreateSchema = z.object({
   templateId: z.uuid({ message: "Choose a procedure." }),
   machineId: z.uuid({ message: "Choose a host machine." }),
   headId: z.uuid({ message: "Choose a head." }),
-  kind: z.enum(["installation", "reverification", "after_crash"]),
+  kind: z.enum(JOB_KINDS),
   title: z.string().trim().min(3, "Give the job a title.").max(200),
   assignedInstallerId: z.preprocess((v) => (v === "" ? undefined : v), z.uuid().optional()),
-  decisionRule: z.enum(["simple", "guarded"]),
+  decisionRule: z.enum(DECISION_RULES),
 });
 
-export const createJobAction = action({ schema: jobCreateSchema, roles: ["admin"] }, async (input, actor) => {
-  const job = await createJobFromTemplate(actor, input);
-  revalidatePath("/jobs");
-  return { id: job.id, reference: job.reference };
-});
+export const createJobAction = action(
+  { schema: jobCreateSchema, refusal: jobOpenFormRefusal },
+  async (input, actor) => {
+    const job = await createJobFromTemplate(actor, input);
+    revalidatePath("/jobs");
+    return { id: job.id, reference: job.reference };
+  },
+);
 
 export const mountHeadAction = action(
   {
@@ -156,7 +163,7 @@ export const mountHeadAction = action(
       headId: z.uuid(),
       machineId: z.preprocess((v) => (v === "" ? null : v), z.uuid().nullable()),
     }),
-    roles: ["admin"],
+    refusal: (a) => registerEditRefusal(a, "heads"),
   },
   async ({ headId, machineId }, actor) => {
     const r = await mountHead(actor, headId, machineId);
@@ -166,7 +173,7 @@ export const mountHeadAction = action(
 );
 
 export const createCustomerAction = action(
-  { schema: customerCreateSchema, roles: ["admin"] },
+  { schema: customerCreateSchema, refusal: (a) => registerEditRefusal(a, "customers") },
   async (input, actor) => {
     const r = await createCustomer(actor, input);
     revalidatePath("/registers");
@@ -174,7 +181,7 @@ export const createCustomerAction = action(
   },
 );
 export const createSiteAction = action(
-  { schema: siteCreateSchema, roles: ["admin"] },
+  { schema: siteCreateSchema, refusal: (a) => registerEditRefusal(a, "customers") },
   async (input, actor) => {
     const r = await createSite(actor, input);
     revalidatePath("/registers");
@@ -182,7 +189,7 @@ export const createSiteAction = action(
   },
 );
 export const createMachineAction = action(
-  { schema: machineCreateSchema, roles: ["admin"] },
+  { schema: machineCreateSchema, refusal: (a) => registerEditRefusal(a, "machines") },
   async (input, actor) => {
     const r = await createMachine(actor, input);
     revalidatePath("/registers");
@@ -190,7 +197,7 @@ export const createMachineAction = action(
   },
 );
 export const createHeadAction = action(
-  { schema: headCreateSchema, roles: ["admin"] },
+  { schema: headCreateSchema, refusal: (a) => registerEditRefusal(a, "heads") },
   async (input, actor) => {
     const r = await createHead(actor, input);
     revalidatePath("/registers");

@@ -1,3 +1,4 @@
+import { palette } from "@/lib/domain/theme";
 import type { Metadata } from "next";
 import { redirect } from "next/navigation";
 import { LogoMark } from "@/components/brand/logo";
@@ -30,8 +31,19 @@ export default async function LoginPage({ searchParams }: Props) {
         </div>
         <svg viewBox="0 0 400 160" className="w-full max-w-lg text-graphite-700" aria-hidden="true">
           <line x1="0" y1="120" x2="400" y2="120" stroke="currentColor" strokeWidth="1" />
-          <path d="M20 120 C 120 112, 220 128, 380 118" fill="none" stroke="#e08e0b" strokeWidth="2.5" />
-          <path d="M20 120 L 380 120" fill="none" stroke="#9fb3c8" strokeWidth="1.5" strokeDasharray="6 5" />
+          <path
+            d="M20 120 C 120 112, 220 128, 380 118"
+            fill="none"
+            stroke={palette.accent[500]}
+            strokeWidth="2.5"
+          />
+          <path
+            d="M20 120 L 380 120"
+            fill="none"
+            stroke={palette.nominal[300]}
+            strokeWidth="1.5"
+            strokeDasharray="6 5"
+          />
           {Array.from({ length: 13 }, (_, i) => (
             <line
               key={i}

@@ -4,7 +4,7 @@ import { axisSquareness, fitCircle, pivotLengthMm, RAD_PER_ARCSEC, type Vec3 } f
 
 // Gander, Golub & Strebel, "Least-squares fitting of circles and ellipses", BIT 34 (1994) 558–578:
 // six points; geometric fit centre (4.7398, 2.9835), r 4.7142 (the paper's figures from memory;
-// check-values.md has them reproduced with an independent tool: 4.739782, 2.983533, 4.714226,
+// reproduced to more digits with an independent least-squares tool: 4.739782, 2.983533, 4.714226,
 // sum of squared distances 1.22760 — the values asserted here).
 const GGS: readonly (readonly [number, number])[] = [
   [1, 7],
@@ -51,7 +51,7 @@ describe("fitCircle", () => {
     expect(f.centre_mm[2]).toBeCloseTo(0, 12);
     expect(f.radius_mm).toBeCloseTo(4.714226, 5);
     expect(f.normal).toEqual([0, 0, 1].map((v) => expect.closeTo(v, 12)));
-    // Sum of squared distances 1.22760 (reproduced value in check-values.md).
+    // Sum of squared distances 1.22760 (the independently reproduced value above).
     expect((f.rms_um / 1000) ** 2 * 6).toBeCloseTo(1.2276, 4);
   });
 

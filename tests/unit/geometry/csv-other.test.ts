@@ -1,4 +1,4 @@
-// Tram, sweep and test-part CSV readers against docs/product.md "CSV formats" (RFC 4180 quoting).
+// Tram, sweep and test-part CSV readers against geometry/README.md "CSV formats" (RFC 4180 quoting).
 import { describe, expect, it } from "vitest";
 import { readPointsCsv, readSweepCsv, readTestPartCsv, readTramCsv } from "@/geometry";
 import { fixture, thrown } from "./csv-helpers";

@@ -1,4 +1,4 @@
-// Sphere-probe CSV reader against the rules of docs/product.md "CSV formats" (RFC 4180 quoting).
+// Sphere-probe CSV reader against the rules of geometry/README.md "CSV formats" (RFC 4180 quoting).
 import { describe, expect, it } from "vitest";
 import { readSphereProbeCsv } from "@/geometry";
 import { fixture, thrown } from "./csv-helpers";

@@ -1,6 +1,6 @@
 // The head fit: cross-checked against an independent general-purpose solver (ml-levenberg-marquardt
 // from the npm registry), property tests on synthetic data (fast-check), identifiability facts of
-// docs/geometry.md, and bad input.
+// geometry/README.md, and bad input.
 import fc from "fast-check";
 import { levenbergMarquardt as mlLm } from "ml-levenberg-marquardt";
 import { describe, expect, it } from "vitest";
@@ -169,7 +169,7 @@ describe("fitHead properties (fast-check, synthetic data)", () => {
   });
 });
 
-describe("identifiability is computed (docs/geometry.md known facts)", () => {
+describe("identifiability is computed (geometry/README.md known facts)", () => {
   it("primary_zero and secondary_yaw cannot be separated: freed together both are 'no', with a warning", () => {
     const data = synthesiseSphereProbe(CA, ERR, grid([0, 100]), { noiseUm: 1, seed: 1 });
     const def = fitHead(CA, data);
@@ -305,7 +305,7 @@ describe("bad input gives a typed GeometryError naming what is wrong", () => {
     expect(thrown(() => fitHead(CA, data, { pin: ["bogus" as never] })).code).toBe("bad_option");
   });
 
-  it("the CLI JSON has exactly the documented keys (docs/geometry.md, command line)", () => {
+  it("the CLI JSON has exactly the documented keys (geometry/README.md, command line)", () => {
     const j = headFitToJson(fitHead(CA, data));
     expect(Object.keys(j)).toEqual([
       "parameters",

@@ -68,7 +68,7 @@ describe("Rodrigues' rotation formula", () => {
   });
 });
 
-describe("forward model (docs/geometry.md, exact forward model)", () => {
+describe("forward model (geometry/README.md, exact forward model)", () => {
   it("zero errors: tip equals the nominal tip, which equals R(p,P)·R(s,S)·(L0 + tool)·t built with mathjs", () => {
     for (const cfg of configs) {
       const t0 = cfg.toolDirection ?? [0, 0, -1];
@@ -122,7 +122,7 @@ describe("forward model (docs/geometry.md, exact forward model)", () => {
     for (let k = 0; k < 3; k++) expect(Math.abs(tip[k]! - ref[k]!)).toBeLessThan(1e-12);
   });
 
-  it("offsets: pivot length along t, tip offsets along s and n, secondary axis through e·n (docs/geometry.md)", () => {
+  it("offsets: pivot length along t, tip offsets along s and n, secondary axis through e·n (geometry/README.md)", () => {
     const e: HeadErrors = {
       pivot_length_error_um: 100,
       tip_offset_s_um: 20,
@@ -230,7 +230,7 @@ describe("head configuration", () => {
     expect(() => headAxes({ primary: "C", secondary: "C", pivotLengthMm: 1 })).toThrow(GeometryError);
   });
 
-  it("ISO 230-1 style symbols: C/A gives EY0A, EB0A, EA0C, EB0C, EC0C, EA0A as docs/geometry.md lists", () => {
+  it("ISO 230-1 style symbols: C/A gives EY0A, EB0A, EA0C, EB0C, EC0C, EA0A as geometry/README.md lists", () => {
     const s = headParameterSymbols(CA);
     expect(s.secondary_offset_um).toBe("EY0A");
     expect(s.secondary_tilt_arcsec).toBe("EB0A");

@@ -1,5 +1,5 @@
 // The 3D view's scene from the head model (geometry/head-scene.ts). Outside references: the
-// definitions of docs/geometry.md's head model, and mathjs's rotationMatrix (an independent
+// definitions of the head model of geometry/README.md, and mathjs's rotationMatrix (an independent
 // implementation of the axis–angle rotation) for the fitted axis directions.
 import { multiply, rotationMatrix } from "mathjs";
 import { describe, expect, it } from "vitest";
@@ -45,7 +45,7 @@ describe("head scene", () => {
   });
 
   it("a pure pivot-length error e moves the gauge point along the tool by exactly k·e at every pose", () => {
-    // By definition (docs/geometry.md): L = L0 + pivot_length_error, along the tool direction t
+    // By definition (geometry/README.md): L = L0 + pivot_length_error, along the tool direction t
     // carried through both rotations; the nominal tip is (L0 + tool)·R·t, so the move is k·e·R·t.
     const e = 38; // µm
     for (const k of [1, 1000, 10_000]) {

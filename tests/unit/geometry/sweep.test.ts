@@ -18,7 +18,7 @@ function face(
 }
 
 describe("fitSweep", () => {
-  it("tilt = TIR / sweep diameter: 0.0005 in over 10 in is 50 µm/m, 10.31″ (check-values.md, trade trigonometry)", () => {
+  it("tilt = TIR / sweep diameter: 0.0005 in over 10 in is 50 µm/m, 10.31″ (common practice: trade trigonometry)", () => {
     // Sweep radius 5 in = 127 mm; a flat face tilted so the TIR is 0.0005 in = 12.7 µm (1 in = 25.4 mm exactly).
     const angles = Array.from({ length: 8 }, (_, k) => k * 45);
     const r = fitSweep(face(angles, 3, 6.35, 0), 127);

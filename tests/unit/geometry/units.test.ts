@@ -27,7 +27,7 @@ describe("units", () => {
     expect(RAD_PER_DEG).toBe(Math.PI / 180);
     expect(fromRad(toRad(1, "deg"), "arcsec")).toBeCloseTo(3600, 9);
   });
-  it("1″ as a slope is 4.8481 µm/m (check-values.md)", () => {
+  it("1″ as a slope is 4.8481 µm/m (definition: 1″ = π/648000 rad)", () => {
     expect(slopeToUmPerM(Math.tan(RAD_PER_ARCSEC))).toBeCloseTo(4.8481, 4);
   });
   it("round trips: exact for mm and rad, within one ulp for in, µm, deg, arcsec on normal doubles (property)", () => {

@@ -4,7 +4,7 @@ import { JobTabs } from "@/components/jobs/job-tabs";
 import { StatusBadge } from "@/components/ui/status-badge";
 import { getJobDetail } from "@/db/queries/jobs";
 import { requirePageUser } from "@/lib/auth/session";
-import { JOB_KIND_LABELS } from "@/lib/format";
+import { JOB_KIND_LABELS } from "@/lib/domain/jobs";
 import { pageUuid } from "@/lib/domain/uuid";
 
 type Props = { params: Promise<{ id: string }>; children: React.ReactNode };

@@ -1,5 +1,6 @@
 "use server";
 
+import { fitApproverRefusal } from "@/lib/policy/analyses";
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
@@ -27,7 +28,7 @@ export const approveFitAction = action(
       jobId: z.uuid({ error: "jobId must be a job id" }),
       analysisId: z.uuid({ error: "analysisId must be an analysis id" }),
     }),
-    roles: ["engineer"],
+    refusal: fitApproverRefusal,
   },
   async ({ jobId, analysisId }, actor) => {
     const r = await approveAnalysis(actor, analysisId);

@@ -78,8 +78,7 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
                   <div>
                     <p className="font-medium text-graphite-900">{p.originalFilename}</p>
                     <p className="text-sm text-graphite-600">
-                      <span className="num">{p.rows}</span> poses ·{" "}
-                      {p.phase === "pre" ? "before adjustment" : "after adjustment"} · uploaded{" "}
+                      <span className="num">{p.rows}</span> poses · {phaseText(p.phase)} · uploaded{" "}
                       {formatDateTimeUtc(p.uploadedAt)}
                       {p.uploaderName ? ` by ${p.uploaderName}` : ""} · SHA-256{" "}
                       <span className="num">{p.sha256.slice(0, 12)}…</span>

@@ -1,10 +1,10 @@
 import { Card } from "@/components/ui/card";
 import type { listJobViews } from "@/db/queries/analysis-views";
+import { phaseText } from "@/lib/domain/datasets";
 import { formatDateTimeUtc } from "@/lib/format";
 import { formatFactor } from "@/components/viewer/factor";
 
 type Views = Awaited<ReturnType<typeof listJobViews>>;
-const PHASE_TEXT = { pre: "before adjustment", post: "after adjustment" } as const;
 
 /** The pictures of the 3D view saved for the report, newest first; the one the report uses is marked. */
 export function SavedViews({
@@ -61,7 +61,7 @@ export function SavedViews({
                   ) : null}
                   {v.caption ? <p className="font-medium text-graphite-900">{v.caption}</p> : null}
                   <p className="text-graphite-700">
-                    Errors ×<span className="num">{formatFactor(v.factor)}</span> · fit {PHASE_TEXT[v.phase]}
+                    Errors ×<span className="num">{formatFactor(v.factor)}</span> · fit {phaseText(v.phase)}
                     {v.overlayAnalysisId ? " with the other fit overlaid" : ""}
                   </p>
                   <p className="text-xs text-graphite-600">

@@ -1,5 +1,6 @@
 "use server";
 
+import { deviationRecorderRefusal, reportIssuerRefusal, reportResponderRefusal } from "@/lib/policy/reports";
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { issueReport, respondToReport } from "@/db/queries/reports";
@@ -21,7 +22,7 @@ export const signWorkAction = action(
 export const issueReportAction = action(
   {
     schema: z.object({ jobId: z.uuid(), password, amendmentReason: z.string().max(2000).optional() }),
-    roles: ["engineer"],
+    refusal: reportIssuerRefusal,
   },
   async (input, actor) => {
     const r = await issueReport(actor, {
@@ -43,7 +44,7 @@ export const respondAction = action(
       password,
       comment: z.string().max(4000).optional(),
     }),
-    roles: ["customer"],
+    refusal: reportResponderRefusal,
   },
   async (input, actor) => {
     await respondToReport(actor, {
@@ -64,7 +65,7 @@ export const recordDeviationAction = action(
       subject: z.string().min(1).max(200),
       justification: z.string().max(4000),
     }),
-    roles: ["engineer"],
+    refusal: deviationRecorderRefusal,
   },
   async (input, actor) => {
     const row = await recordDeviation(actor, input);

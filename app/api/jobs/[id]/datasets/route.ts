@@ -1,5 +1,5 @@
 // Datasets of a job: GET lists them; POST takes one CSV upload (multipart: file, kind, phase and
-// the unit fields of docs/product.md), streamed within the size limit, re-parsed by geometry/'s
+// the unit fields of geometry/README.md, "CSV formats"), streamed within the size limit, re-parsed by geometry/'s
 // readers and stored only when valid.
 import { insertDataset, listDatasets, requireUploadableJob } from "@/db/queries/datasets";
 import { requireUser } from "@/lib/auth/session";
