@@ -151,3 +151,21 @@ export function budgetToJson(b: Budget) {
     U: r.U,
   }));
 }
+
+/**
+ * The budget of a head fit: its parameters (pinned ones, u null, left out) with the pose plan's
+ * sensitivity to probing noise per parameter key (`uPerUmNoise`, parameter unit per µm).
+ */
+export function headFitBudget(
+  parameters: readonly { readonly key: string; readonly unit: "um" | "arcsec"; readonly u: number | null }[],
+  uPerUmNoise: Readonly<Record<string, number | null | undefined>>,
+  typeB: BudgetTypeB,
+): Budget {
+  const inputs: BudgetParameterInput[] = [];
+  for (const p of parameters) {
+    if (p.u === null) continue;
+    const c = uPerUmNoise[p.key];
+    inputs.push({ key: p.key, unit: p.unit, uTypeA: p.u, ...(c != null ? { uPerUmNoise: c } : {}) });
+  }
+  return uncertaintyBudget(inputs, typeB);
+}
