@@ -15,6 +15,7 @@ export * from "./test-part";
 export * from "./positioning";
 export * from "./rotary-positioning";
 export * from "./tcp-check";
+export * from "./budget";
 export * from "./lm";
 export * from "./head/config";
 export * from "./head/model";

@@ -49,6 +49,12 @@ export interface LmOptions {
   readonly costTolerance?: number;
   /** Initial damping λ of the scaled system (unit diagonal). Default 1e-3. */
   readonly initialDamping?: number;
+  /**
+   * After a stop on a flat cost, polish with undamped Gauss–Newton steps (see levenbergMarquardt).
+   * Default true. It costs one more normal-equations pass when it runs; a caller whose figures
+   * need no more than ~1e-8 relative may turn it off.
+   */
+  readonly polish?: boolean;
 }
 
 export type LmStopReason = "step" | "gradient" | "cost" | "exact" | "max_iterations";
@@ -193,7 +199,7 @@ export function levenbergMarquardt(
       }
     }
   }
-  if (reason === "cost") {
+  if (reason === "cost" && options.polish !== false) {
     // Polish: near the minimum of a long, flat valley (e.g. Misra1a from its first start) S is
     // constant to its rounding while θ is still 1e-9 off, so the cost test stops early. The
     // gradient still locates the minimiser: take undamped Gauss–Newton steps while they contract,

@@ -183,10 +183,15 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
     X.set(i, 1, Math.cos(theta[i]!));
     X.set(i, 2, Math.sin(theta[i]!));
   }
-  const s = solve(X, Matrix.columnVector(Array.from(y)));
-  const a = s.get(0, 0);
-  const b = s.get(1, 0);
-  const c = s.get(2, 0);
+  // Readings scaled by a power of two near their largest magnitude (exact), so QR never squares a
+  // huge number; the coefficients are scaled back.
+  let yAbs = 0;
+  for (let i = 0; i < n; i++) yAbs = Math.max(yAbs, Math.abs(y[i]!));
+  const Ly = yAbs > 0 ? 2 ** Math.min(1023, Math.ceil(Math.log2(yAbs))) : 1;
+  const s = solve(X, Matrix.columnVector(Array.from(y, (v) => v / Ly)));
+  const a = s.get(0, 0) * Ly;
+  const b = s.get(1, 0) * Ly;
+  const c = s.get(2, 0) * Ly;
   const residuals = new Float64Array(n);
   let rmin = Infinity;
   let rmax = -Infinity;
@@ -198,6 +203,8 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
   }
   const notes: string[] = [];
   const amp = Math.hypot(b, c);
+  if (!Number.isFinite(rmax - rmin) || !Number.isFinite(ymax - ymin))
+    throw new GeometryError("bad_number", "the readings span more than the number range; check the units");
   const gap = largestGap(theta, sortedIdx);
   if (gap > Math.PI) {
     notes.push(
@@ -210,12 +217,18 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
     flatnessLs = null;
     notes.push("3 angles always fit a plane exactly: flatness needs readings at 4 or more distinct angles");
   } else {
-    flatnessMz = minimumZone(theta, y, sortedIdx, rmax - rmin);
+    flatnessMz =
+      minimumZone(
+        theta,
+        y.map((v) => v / Ly),
+        sortedIdx,
+        (rmax - rmin) / Ly,
+      ) * Ly;
   }
   let dir = Math.atan2(c, b) / RAD_PER_DEG;
   if (dir < 0) dir += 360;
   if (amp === 0) dir = 0;
-  return {
+  const result: SweepResult = {
     n,
     tilt_um_per_m: (amp / radiusMm) * 1000,
     tilt_arcsec: Math.atan(amp / (radiusMm * 1000)) / RAD_PER_ARCSEC,
@@ -229,4 +242,8 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
     residuals_um: residuals,
     notes,
   };
+  for (const [key, v] of Object.entries(result))
+    if (typeof v === "number" && !Number.isFinite(v))
+      throw new GeometryError("bad_number", `the sweep's ${key} is beyond the number range; check the units`);
+  return result;
 }

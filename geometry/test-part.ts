@@ -73,6 +73,22 @@ export function evaluateTestPart(rows: readonly TestPartRow[], options: TestPart
     if (missing) noU.add(r.unit);
     const lower = r.lowerTol === null ? null : r.nominal + r.lowerTol;
     const upper = r.nominal + r.upperTol;
+    const where = r.sourceRow ?? i + 1;
+    if (
+      !Number.isFinite(r.measured - r.nominal) ||
+      !Number.isFinite(upper) ||
+      (lower !== null && !Number.isFinite(lower))
+    )
+      throw new GeometryError(
+        "bad_number",
+        `row ${where}: the deviation or a limit is beyond the number range`,
+        [
+          {
+            row: where,
+            message: "nominal, measured and tolerances give a deviation or a limit beyond the number range",
+          },
+        ],
+      );
     const d = decide({ measured: r.measured, lower, upper, U: U ?? null, rule: options.rule, unit: r.unit });
     return {
       feature: r.feature,

@@ -3,7 +3,7 @@
  * file's text and returns its data shape with `warnings` attached (`WithWarnings<T>`), or throws a
  * GeometryError whose issues name the file row (header = row 1) and the column.
  */
-export { readSphereProbeCsv, type SphereProbeCsvOptions } from "./sphere-probe";
+export { readSphereProbeCsv, TOOL_MM_MAX, TOOL_MM_MIN, type SphereProbeCsvOptions } from "./sphere-probe";
 export { readTramCsv, type TramCsvOptions } from "./tram";
 export { readSweepCsv, type SweepCsvOptions } from "./sweep";
 export { readTestPartCsv, TEST_PART_UNITS, type TestPartUnit, type TestPartCsvOptions } from "./test-part";

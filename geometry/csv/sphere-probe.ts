@@ -6,8 +6,12 @@
  */
 import type { SphereProbeData } from "../types";
 import { SPHERE_PROBE_COLUMNS } from "./columns";
-import { readTable, type CsvDecimal, type WithWarnings } from "./table";
+import { fail, MAX_ISSUES, readTable, type CodedIssue, type CsvDecimal, type WithWarnings } from "./table";
 import { coordinateFactorToMm, scaleInPlace, type CoordinateUnits } from "./units";
+
+/** Tool lengths a row may state, mm (a tool outside this range is a typing or unit error). */
+export const TOOL_MM_MIN = 0;
+export const TOOL_MM_MAX = 2000;
 
 export interface SphereProbeCsvOptions {
   /** Unit of the x, y, z columns. */
@@ -27,6 +31,19 @@ export function readSphereProbeCsv(
   const factor = coordinateFactorToMm(options?.units, "units");
   const t = readTable(text, SPHERE_PROBE_COLUMNS, { decimal: options?.decimal });
   const num = (k: string) => t.numbers.get(k);
+  const tool = num("tool_mm");
+  if (tool) {
+    const issues: CodedIssue[] = [];
+    for (let i = 0; i < tool.length && issues.length < MAX_ISSUES; i++)
+      if (!(tool[i]! >= TOOL_MM_MIN && tool[i]! <= TOOL_MM_MAX))
+        issues.push({
+          code: "bad_value",
+          row: t.sourceRow[i],
+          column: t.headerNames.get("tool_mm"),
+          message: `tool length ${tool[i]} mm is outside ${TOOL_MM_MIN} … ${TOOL_MM_MAX} mm`,
+        });
+    if (issues.length > 0) fail(issues);
+  }
   return {
     rows: t.rows,
     primaryDeg: num("primary_deg")!,

@@ -22,7 +22,9 @@
  */
 import { readFileSync } from "node:fs";
 import {
+  budgetToJson,
   fitHead,
+  headFitBudget,
   GeometryError,
   headFitToJson,
   parseHeadConfig,
@@ -34,7 +36,7 @@ import {
 // The pose list uses the shared table reader of geometry/csv (the same tokeniser and number checks
 // as every product CSV); it has no reader of its own in geometry/csv's public index.
 import { readTable } from "@/geometry/csv/table";
-import { choiceOption, CliUsageError, type CliCommand, type CliContext } from "./command";
+import { choiceOption, CliUsageError, numberOption, type CliCommand, type CliContext } from "./command";
 
 function readHead(ctx: CliContext): HeadConfig {
   const path = ctx.options.head;
@@ -61,10 +63,11 @@ function readHead(ctx: CliContext): HeadConfig {
 const decimalOf = (ctx: CliContext) => choiceOption(ctx, "decimal", ["point", "comma"] as const, "point");
 
 const fitHeadCommand: CliCommand = {
-  usage: "fit-head <sphere.csv> --head head.json [--units mm|in] [--decimal point|comma]",
+  usage:
+    "fit-head <sphere.csv> --head head.json [--units mm|in] [--decimal point|comma] [--u-probe-um u] [--u-tool-um u] [--delta-t-k ΔT]",
   summary:
     "fit the head's error parameters (µm, arcsec) with U (k = 2) and identifiability to sphere-probe centres",
-  options: ["head", "units", "decimal"],
+  options: ["head", "units", "decimal", "u-probe-um", "u-tool-um", "delta-t-k"],
   run(ctx) {
     const config = readHead(ctx);
     const data = readSphereProbeCsv(ctx.text, {
@@ -72,7 +75,21 @@ const fitHeadCommand: CliCommand = {
       decimal: decimalOf(ctx),
     });
     data.warnings.forEach((w) => ctx.warn(formatIssue(w)));
-    return headFitToJson(fitHead(config, data));
+    const json = headFitToJson(fitHead(config, data));
+    // JCGM 100 budget (geometry/budget.ts) when Type B inputs are given.
+    const typeB = {
+      uProbeUm: numberOption(ctx, "u-probe-um", { nonNegative: true }),
+      uToolUm: numberOption(ctx, "u-tool-um", { nonNegative: true }),
+      deltaTK: numberOption(ctx, "delta-t-k", { nonNegative: true }),
+      lengthMm: config.pivotLengthMm,
+    };
+    if (typeB.uProbeUm === undefined && typeB.uToolUm === undefined && typeB.deltaTK === undefined) {
+      ctx.warn("U holds the fit's Type A only; give --u-probe-um, --u-tool-um or --delta-t-k for a budget");
+      return json;
+    }
+    const plan = planHeadPoses(config, data);
+    const sens = Object.fromEntries(plan.parameters.map((p) => [p.key, p.u_per_um_noise]));
+    return { ...json, budget: budgetToJson(headFitBudget(json.parameters, sens, typeB)) };
   },
 };
 
