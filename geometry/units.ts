@@ -1,23 +1,25 @@
 /**
  * Units at the module's edges. Internally geometry/ works in mm and radians.
- * Conversions go through mathjs's unit system so that the definitions are a library's, not ours:
+ * The factors are the definitions themselves, written once here:
  * 1 in = 25.4 mm exactly (International Yard and Pound Agreement 1959; NIST SP 811 B.8),
- * 1″ = π/648000 rad (definition of the arc second).
+ * 1° = π/180 rad and 1″ = π/648000 rad (definitions of the degree and the arc second).
+ * tests/unit/geometry/units.test.ts checks each against mathjs's unit system, an independent
+ * library, so no table of ours goes unchecked; importing mathjs here instead would put all of it
+ * into every page and the CLI's start-up for four numbers.
  */
-import { unit } from "mathjs";
 
 export type LengthUnit = "mm" | "in" | "um";
 export type AngleUnit = "deg" | "rad" | "arcsec";
 
 const lengthFactorToMm: Record<LengthUnit, number> = {
   mm: 1,
-  in: unit(1, "inch").toNumber("mm"),
-  um: unit(1, "um").toNumber("mm"),
+  in: 25.4,
+  um: 1e-3,
 };
 const angleFactorToRad: Record<AngleUnit, number> = {
   rad: 1,
-  deg: unit(1, "deg").toNumber("rad"),
-  arcsec: unit(1, "arcsec").toNumber("rad"),
+  deg: Math.PI / 180,
+  arcsec: Math.PI / 648000,
 };
 
 /** Exact factors as numbers, for the tight loops that cannot call mathjs per element. */

@@ -11,11 +11,20 @@ type Poses = {
 };
 
 /** The poses the fit flagged as outliers: where the head was and how far off the probe was. */
-export function OutlierTable({ outliers, poses }: { outliers: readonly Outlier[]; poses: Poses }) {
+/** The listed outliers (the fit keeps the worst 50, worst first) out of `total` counted. */
+export function OutlierTable({
+  outliers,
+  total,
+  poses,
+}: {
+  outliers: readonly Outlier[];
+  total: number;
+  poses: Poses;
+}) {
   const at = (o: Outlier) => poses.row.indexOf(o.row);
   return (
     <Table
-      caption="Outliers"
+      caption={total > outliers.length ? `Outliers: the worst ${outliers.length} of ${total}` : "Outliers"}
       empty="No outliers."
       bare
       className="mt-4 max-w-2xl"

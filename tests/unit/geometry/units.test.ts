@@ -1,6 +1,7 @@
 // Exact unit definitions: 1 in = 25.4 mm (International Yard and Pound Agreement 1959; NIST SP 811),
 // 1″ = π/648000 rad (definition of the arc second), 1° = π/180 rad.
 import fc from "fast-check";
+import { unit } from "mathjs";
 import { describe, expect, it } from "vitest";
 import {
   fromMm,
@@ -14,6 +15,12 @@ import {
 } from "@/geometry";
 
 describe("units", () => {
+  it("every factor agrees with mathjs's unit system (an independent library)", () => {
+    expect(toMm(1, "in")).toBe(unit(1, "inch").toNumber("mm"));
+    expect(toMm(1, "um")).toBe(unit(1, "um").toNumber("mm"));
+    expect(toRad(1, "deg")).toBe(unit(1, "deg").toNumber("rad"));
+    expect(toRad(1, "arcsec")).toBe(unit(1, "arcsec").toNumber("rad"));
+  });
   it("1 in = 25.4 mm exactly (NIST SP 811); a tenth is 2.54 µm; 1 in = 25 400 µm", () => {
     expect(MM_PER_INCH).toBe(25.4);
     expect(toMm(1, "in")).toBe(25.4);

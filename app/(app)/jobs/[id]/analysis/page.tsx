@@ -244,7 +244,7 @@ function FitSection({
               <dt className="text-graphite-600">Iterations</dt>
               <dd className="num text-right">{fit.iterations}</dd>
               <dt className="text-graphite-600">Outliers (beyond 3 s)</dt>
-              <dd className="num text-right">{fit.outliers.length}</dd>
+              <dd className="num text-right">{fit.outlier_count ?? fit.outliers.length}</dd>
               <dt className="col-span-2 text-graphite-600">Sphere centre (x, y, z)</dt>
               <dd className="num col-span-2 text-right">
                 {fit.sphere_centre_mm.map((v) => fixed(v, 4)).join(", ")} mm
@@ -268,7 +268,11 @@ function FitSection({
             sUm={r.s_um}
           />
           {fit.outliers.length ? (
-            <OutlierTable outliers={fit.outliers} poses={r.poses} />
+            <OutlierTable
+              outliers={fit.outliers}
+              total={fit.outlier_count ?? fit.outliers.length}
+              poses={r.poses}
+            />
           ) : (
             <p className="mt-3 text-sm text-graphite-600">No outliers.</p>
           )}
