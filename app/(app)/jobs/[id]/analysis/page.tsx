@@ -268,11 +268,18 @@ function FitSection({
             sUm={r.s_um}
           />
           {fit.outliers.length ? (
-            <OutlierTable
-              outliers={fit.outliers}
-              total={fit.outlier_count ?? fit.outliers.length}
-              poses={r.poses}
-            />
+            <>
+              <OutlierTable
+                outliers={fit.outliers}
+                total={fit.outlier_count ?? fit.outliers.length}
+                poses={r.poses}
+              />
+              {(fit.outlier_count ?? 0) > fit.outliers.length ? (
+                <p className="mt-2 text-sm text-graphite-600">
+                  The worst {fit.outliers.length} of {fit.outlier_count} outliers are listed.
+                </p>
+              ) : null}
+            </>
           ) : (
             <p className="mt-3 text-sm text-graphite-600">No outliers.</p>
           )}
