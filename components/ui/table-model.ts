@@ -18,7 +18,7 @@ declare module "@tanstack/react-table" {
   interface ColumnMeta<TData extends RowData, TValue> {
     /** Right-aligned tabular figures (measured values, counts). */
     numeric?: boolean;
-    /** Never wrapped: references, dates, serials such as "TR-2026-0041". */
+    /** Never wrapped: references, dates, serials such as "TR-2026-0041" (numeric columns too, unless false). */
     nowrap?: boolean;
     /** This column names the row: its cells are row headers (<th scope="row">). */
     rowHeader?: boolean;
