@@ -25,6 +25,8 @@ declare module "@tanstack/react-table" {
     /** Attributes and extra classes for the column's header cell. */
     headerProps?: Record<string, string | undefined>;
     headerClassName?: string;
+    /** In card layout this cell takes the card's whole width (controls, long text). */
+    wide?: boolean;
     /** The label in card layout when the header is not plain text. */
     label?: string;
     /** Extra classes for this column's cells. */

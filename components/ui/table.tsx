@@ -150,7 +150,7 @@ export function Table<T>(props: TableProps<T>) {
                       scope={meta?.rowHeader ? "row" : undefined}
                       data-label={label}
                       {...meta?.cellProps?.(row.original)}
-                      className={`${bare ? "py-2 pr-3" : "px-4 py-3"} ${meta?.rowHeader ? "text-left font-normal" : ""} ${meta?.numeric ? "num text-right" : ""} ${(meta?.nowrap ?? meta?.numeric) ? "whitespace-nowrap" : ""} ${meta?.className ?? ""} ${k.cell}`}
+                      className={`${bare ? "py-2 pr-3" : "px-4 py-3"} ${meta?.rowHeader ? "text-left font-normal" : ""} ${meta?.numeric ? "num text-right" : ""} ${(meta?.nowrap ?? meta?.numeric) ? "whitespace-nowrap" : ""} ${meta?.className ?? ""} ${k.cell} ${cards && meta?.wide ? "min-[560px]:max-[900px]:col-span-2" : ""}`}
                     >
                       <div className={cards ? "contents max-[900px]:block max-[900px]:min-w-0" : "contents"}>
                         {flexRender(cell.column.columnDef.cell, cell.getContext())}
