@@ -21,7 +21,7 @@ const CARDS = {
   head: "max-[900px]:sr-only",
   body: "max-[900px]:block max-[900px]:space-y-3 max-[900px]:divide-y-0",
   row: "max-[900px]:grid max-[900px]:gap-x-8 min-[560px]:max-[900px]:grid-cols-2 max-[900px]:rounded-card max-[900px]:border max-[900px]:border-graphite-200 max-[900px]:bg-white max-[900px]:px-4 max-[900px]:py-2 max-[900px]:shadow-sm",
-  cell: "max-[900px]:grid max-[900px]:grid-cols-[minmax(6rem,40%)_minmax(0,1fr)] max-[900px]:items-baseline max-[900px]:gap-3 max-[900px]:px-0 max-[900px]:py-1.5 max-[900px]:text-left max-[900px]:before:text-graphite-600 max-[900px]:before:content-[attr(data-label)]",
+  cell: "max-[900px]:grid max-[900px]:grid-cols-[minmax(6rem,40%)_minmax(0,1fr)] max-[900px]:items-baseline max-[900px]:gap-3 max-[900px]:px-0 max-[900px]:py-1.5 max-[900px]:text-left max-[900px]:before:font-sans max-[900px]:before:whitespace-normal max-[900px]:before:text-graphite-600 max-[900px]:before:content-[attr(data-label)]",
 };
 const NO_CARDS = { frame: "", table: "", head: "", body: "", row: "", cell: "" };
 
