@@ -2,7 +2,8 @@
 
 import { useRef, useState } from "react";
 import { buttonClass } from "@/components/ui/button";
-import type { UploadState } from "./upload-state";
+import type { DatasetKindKey } from "./kinds";
+import type { Units, UploadState } from "./upload-state";
 
 export function Choice<T extends string>({
   legend,
@@ -64,6 +65,30 @@ export function Bar({ label, fraction }: { label: string; fraction: number }) {
   );
 }
 
+const LENGTH = [
+  { value: "mm", label: "mm" },
+  { value: "in", label: "inch" },
+] as const;
+
+/** Which unit each kind of file asks for, and the form field the upload route reads it from. */
+const UNIT_CHOICES: ReadonlyArray<{
+  kinds: readonly DatasetKindKey[];
+  legend: string;
+  name: string;
+  field: keyof Units;
+  options: ReadonlyArray<{ value: string; label: string }>;
+}> = [
+  { kinds: ["sphere_probe"], legend: "Unit of x, y, z", name: "units", field: "units", options: LENGTH },
+  { kinds: ["tram"], legend: "Unit of the travel", name: "travel_units", field: "travel", options: LENGTH },
+  {
+    kinds: ["tram", "sweep"],
+    legend: "Unit of the readings",
+    name: "reading_units",
+    field: "reading",
+    options: [{ value: "um", label: "µm" }, ...LENGTH],
+  },
+];
+
 /** The settings that depend on the kind of data: units, the sweep radius, U, the decimal separator. */
 export function KindOptions({
   state,
@@ -75,43 +100,16 @@ export function KindOptions({
   const { kind, units, radius, uncertainty, scan, comma } = state;
   return (
     <div className="flex flex-wrap gap-4">
-      {kind === "sphere_probe" ? (
+      {UNIT_CHOICES.filter((c) => c.kinds.includes(kind)).map((c) => (
         <Choice
-          legend="Unit of x, y, z"
-          name="units"
-          value={units.units}
-          options={[
-            { value: "mm", label: "mm" },
-            { value: "in", label: "inch" },
-          ]}
-          onChange={(v) => set({ units: { ...units, units: v } })}
+          key={c.name}
+          legend={c.legend}
+          name={c.name}
+          value={units[c.field]}
+          options={c.options}
+          onChange={(v) => set({ units: { ...units, [c.field]: v } })}
         />
-      ) : null}
-      {kind === "tram" ? (
-        <Choice
-          legend="Unit of the travel"
-          name="travel_units"
-          value={units.travel}
-          options={[
-            { value: "mm", label: "mm" },
-            { value: "in", label: "inch" },
-          ]}
-          onChange={(v) => set({ units: { ...units, travel: v } })}
-        />
-      ) : null}
-      {kind === "tram" || kind === "sweep" ? (
-        <Choice
-          legend="Unit of the readings"
-          name="reading_units"
-          value={units.reading}
-          options={[
-            { value: "um", label: "µm" },
-            { value: "mm", label: "mm" },
-            { value: "in", label: "inch" },
-          ]}
-          onChange={(v) => set({ units: { ...units, reading: v } })}
-        />
-      ) : null}
+      ))}
       {kind === "sweep" ? (
         <label className="block space-y-1">
           <span className="text-sm font-medium text-graphite-800">Sweep radius (mm)</span>

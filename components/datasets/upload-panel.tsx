@@ -164,7 +164,7 @@ export function UploadPanel({ jobId }: { jobId: string }) {
       ) : null}
       {uploadProgress !== null ? <Bar label="Sending to the server" fraction={uploadProgress} /> : null}
       <div className="flex items-center gap-3">
-        <Button onClick={() => void send()} disabled={!canSend} className="px-5 text-base">
+        <Button onClick={() => void send()} disabled={!canSend} size="lg">
           Upload and check
         </Button>
         {scan && issues.length === 0 ? (

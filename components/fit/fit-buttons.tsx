@@ -2,6 +2,7 @@
 
 import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
+import { ActionNotice, Button } from "@/components/ui/button";
 import { approveFitAction, runFitAction } from "@/app/(app)/jobs/[id]/analysis/actions";
 
 export function RunFitButton({
@@ -18,9 +19,9 @@ export function RunFitButton({
   const [msg, setMsg] = useState<{ ok: boolean; text: string } | null>(null);
   return (
     <div className="flex flex-col items-end gap-1">
-      <button
-        type="button"
-        disabled={pending}
+      <Button
+        pending={pending}
+        pendingLabel="Fitting…"
         onClick={() =>
           start(async () => {
             setMsg(null);
@@ -35,17 +36,15 @@ export function RunFitButton({
             }
           })
         }
-        className="min-h-touch rounded-md bg-accent-500 px-5 text-sm font-semibold text-graphite-900 hover:bg-accent-300 disabled:opacity-60"
+        variant="amber"
+        className="px-5"
       >
-        {pending ? "Fitting…" : label}
-      </button>
+        {label}
+      </Button>
       {msg ? (
-        <p
-          role={msg.ok ? "status" : "alert"}
-          className={`text-sm ${msg.ok ? "text-graphite-700" : "text-fail-700"}`}
-        >
+        <ActionNotice ok={msg.ok} className={msg.ok ? "text-graphite-700" : ""}>
           {msg.text}
-        </p>
+        </ActionNotice>
       ) : null}
     </div>
   );
@@ -86,11 +85,7 @@ export function ApproveButton({
           {refusal}
         </p>
       ) : null}
-      {error ? (
-        <p role="alert" className="text-sm text-fail-700">
-          {error}
-        </p>
-      ) : null}
+      {error ? <ActionNotice ok={false}>{error}</ActionNotice> : null}
     </div>
   );
 }

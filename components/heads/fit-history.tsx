@@ -79,7 +79,8 @@ export function FitHistory({ history }: { history: { readonly jobs: readonly Hea
                 meta: {
                   numeric: true,
                   label: j.reference,
-                  className: "pr-4 whitespace-normal",
+                  nowrap: false,
+                  className: "pr-4",
                   headerClassName: "min-w-[11rem] pr-4 align-bottom font-normal",
                   headerProps: { "data-job": j.reference },
                   cellProps: (r) => {

@@ -1,9 +1,20 @@
 "use client";
 
 import { createInstrumentAction } from "@/app/(app)/registers/actions";
-import { Field, inputClass } from "@/components/ui/field";
+import { SelectField, TextField } from "@/components/ui/field";
 import { Form } from "@/components/ui/form";
 import { instrumentCreateSchema } from "@/lib/validations/registers";
+
+const QUANTITIES = [
+  { value: "length", label: "Length" },
+  { value: "angle", label: "Angle" },
+];
+const UNITS = [
+  { value: "mm", label: "mm" },
+  { value: "in", label: "in" },
+  { value: "um", label: "µm" },
+  { value: "arcsec", label: "arcsec" },
+];
 
 export function InstrumentForm() {
   return (
@@ -14,44 +25,21 @@ export function InstrumentForm() {
       successMessage="Instrument added to the register."
     >
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-        <Field name="kind" label="Kind">
-          <input name="kind" className={inputClass} placeholder="Dial test indicator" />
-        </Field>
-        <Field name="serial" label="Serial">
-          <input name="serial" className={`${inputClass} num`} />
-        </Field>
-        <Field name="maker" label="Maker">
-          <input name="maker" className={inputClass} />
-        </Field>
-        <Field name="quantityKind" label="Measures">
-          <select name="quantityKind" className={inputClass} defaultValue="length">
-            <option value="length">Length</option>
-            <option value="angle">Angle</option>
-          </select>
-        </Field>
-        <Field name="resolution" label="Resolution">
-          <input name="resolution" inputMode="decimal" className={`${inputClass} num`} />
-        </Field>
-        <Field name="standardUncertainty" label="Standard uncertainty (k = 1)">
-          <input name="standardUncertainty" inputMode="decimal" className={`${inputClass} num`} />
-        </Field>
-        <Field name="unit" label="Unit of both">
-          <select name="unit" className={inputClass} defaultValue="mm">
-            <option value="mm">mm</option>
-            <option value="in">in</option>
-            <option value="um">µm</option>
-            <option value="arcsec">arcsec</option>
-          </select>
-        </Field>
-        <Field name="certificateRef" label="Certificate">
-          <input name="certificateRef" className={inputClass} />
-        </Field>
-        <Field name="calibratedOn" label="Calibrated on">
-          <input name="calibratedOn" type="date" className={inputClass} />
-        </Field>
-        <Field name="calibrationDueOn" label="Calibration due">
-          <input name="calibrationDueOn" type="date" className={inputClass} />
-        </Field>
+        <TextField name="kind" label="Kind" placeholder="Dial test indicator" />
+        <TextField name="serial" label="Serial" numeric />
+        <TextField name="maker" label="Maker" />
+        <SelectField name="quantityKind" label="Measures" options={QUANTITIES} defaultValue="length" />
+        <TextField name="resolution" label="Resolution" inputMode="decimal" numeric />
+        <TextField
+          name="standardUncertainty"
+          label="Standard uncertainty (k = 1)"
+          inputMode="decimal"
+          numeric
+        />
+        <SelectField name="unit" label="Unit of both" options={UNITS} defaultValue="mm" />
+        <TextField name="certificateRef" label="Certificate" />
+        <TextField name="calibratedOn" label="Calibrated on" type="date" />
+        <TextField name="calibrationDueOn" label="Calibration due" type="date" />
       </div>
     </Form>
   );

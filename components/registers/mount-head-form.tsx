@@ -1,7 +1,7 @@
 "use client";
 
 import { mountHeadAction } from "@/app/(app)/registers/actions";
-import { Field, inputClass } from "@/components/ui/field";
+import { optionsOf, SelectField } from "@/components/ui/field";
 import { Form } from "@/components/ui/form";
 
 export function MountHeadForm({
@@ -21,20 +21,14 @@ export function MountHeadForm({
       successMessage="Recorded in the head's history."
     >
       <input type="hidden" name="headId" value={headId} />
-      <Field
+      <SelectField
         name="machineId"
         label="Mounted on"
         hint="Record where the head is now; the move is kept in its history."
-      >
-        <select name="machineId" className={inputClass} defaultValue={current ?? ""}>
-          <option value="">Not mounted (in the shop or in transit)</option>
-          {machines.map((m) => (
-            <option key={m.id} value={m.id}>
-              {m.label}
-            </option>
-          ))}
-        </select>
-      </Field>
+        placeholder="Not mounted (in the shop or in transit)"
+        options={optionsOf(machines)}
+        defaultValue={current ?? ""}
+      />
     </Form>
   );
 }

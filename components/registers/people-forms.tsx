@@ -2,9 +2,11 @@
 
 import { inviteUserAction, updateUserAction } from "@/app/(app)/registers/actions";
 import { ROLE_LABELS, ROLES, type Role } from "@/lib/domain/roles";
-import { Field, inputClass } from "@/components/ui/field";
+import { SelectField, TextField } from "@/components/ui/field";
 import { Form } from "@/components/ui/form";
 import { userInviteSchema, userUpdateSchema } from "@/lib/validations/registers";
+
+const ROLE_OPTIONS = ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }));
 
 export function InviteForm({ customers }: { customers: ReadonlyArray<{ id: string; name: string }> }) {
   return (
@@ -15,31 +17,15 @@ export function InviteForm({ customers }: { customers: ReadonlyArray<{ id: strin
       successMessage="Invitation queued; the e-mail carries a one-time link to set a password."
     >
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-        <Field name="name" label="Name">
-          <input name="name" className={inputClass} />
-        </Field>
-        <Field name="email" label="E-mail">
-          <input name="email" type="email" className={inputClass} />
-        </Field>
-        <Field name="role" label="Role">
-          <select name="role" className={inputClass} defaultValue="installer">
-            {ROLES.map((r) => (
-              <option key={r} value={r}>
-                {ROLE_LABELS[r]}
-              </option>
-            ))}
-          </select>
-        </Field>
-        <Field name="customerId" label="Company (customer users only)">
-          <select name="customerId" className={inputClass} defaultValue="">
-            <option value="">Service company (staff)</option>
-            {customers.map((c) => (
-              <option key={c.id} value={c.id}>
-                {c.name}
-              </option>
-            ))}
-          </select>
-        </Field>
+        <TextField name="name" label="Name" />
+        <TextField name="email" label="E-mail" type="email" />
+        <SelectField name="role" label="Role" options={ROLE_OPTIONS} defaultValue="installer" />
+        <SelectField
+          name="customerId"
+          label="Company (customer users only)"
+          placeholder="Service company (staff)"
+          options={customers.map((c) => ({ value: c.id, label: c.name }))}
+        />
       </div>
     </Form>
   );

@@ -29,7 +29,7 @@ export function SetPasswordForm({ token, signInHref = "/login" }: { token: strin
       resetOnSuccess={false}
       onSuccess={() => setDone(true)}
       className="space-y-5"
-      submitClassName="w-full text-base"
+      submitClassName="w-full"
     >
       <input type="hidden" name="token" value={token} />
       <Field name="password" label="New password (at least 10 characters)">

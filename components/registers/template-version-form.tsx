@@ -1,6 +1,6 @@
 "use client";
 
-import { ScrollRegion } from "@/components/ui/scroll-region";
+import { column, Table, type ColumnDef } from "@/components/ui/table";
 import { createTemplateVersionAction } from "@/app/(app)/registers/actions";
 import { FieldError, inputClass } from "@/components/ui/field";
 import { Form } from "@/components/ui/form";
@@ -36,77 +36,62 @@ const SOURCES = [
 
 const CELL = "min-h-touch w-full rounded-md border border-graphite-300 bg-white px-2 text-sm";
 
-function LimitsHead({ first }: { first: string }) {
-  return (
-    <thead className="text-left text-graphite-600">
-      <tr>
-        <th className="py-2 pr-2 font-medium">{first}</th>
-        <th className="py-2 pr-2 font-medium">Lower</th>
-        <th className="py-2 pr-2 font-medium">Upper</th>
-        <th className="py-2 pr-2 font-medium">Rule</th>
-        <th className="py-2 pr-2 font-medium">Source of the limit</th>
-        <th className="py-2 font-medium">Note on the source</th>
-      </tr>
-    </thead>
-  );
-}
-
-/** The five editable cells of one limit: fields `${name}.lowerLimit` … `${name}.limitSourceNote`, labelled "`label` lower limit" etc. */
-function LimitCells({
-  name,
-  label,
-  lower,
-  upper,
-  decisionRule,
-  limitSource,
-  limitSourceNote,
-}: {
+/** One editable limit: fields `${name}.lowerLimit` … `${name}.limitSourceNote`, labelled "`label` lower limit" etc. */
+type LimitRow = {
   name: string;
   label: string;
+  first: React.ReactNode;
   lower: string;
   upper: string;
   decisionRule: string;
   limitSource: string;
   limitSourceNote: string;
-}) {
-  return (
-    <>
-      <td className="w-28 py-2 pr-2">
-        <input
-          aria-label={`${label} lower limit`}
-          name={`${name}.lowerLimit`}
-          defaultValue={lower}
-          inputMode="decimal"
-          className={`${CELL} num text-right`}
-        />
-        <FieldError name={`${name}.lowerLimit`} className="text-xs" />
-      </td>
-      <td className="w-28 py-2 pr-2">
-        <input
-          aria-label={`${label} upper limit`}
-          name={`${name}.upperLimit`}
-          defaultValue={upper}
-          inputMode="decimal"
-          className={`${CELL} num text-right`}
-        />
-        <FieldError name={`${name}.upperLimit`} className="text-xs" />
-      </td>
-      <td className="w-32 py-2 pr-2">
+};
+
+function limitColumns(first: string): ColumnDef<LimitRow, unknown>[] {
+  const limit = (which: "lower" | "upper") =>
+    column<LimitRow>(
+      which === "lower" ? "Lower" : "Upper",
+      (r) => (
+        <>
+          <input
+            aria-label={`${r.label} ${which} limit`}
+            name={`${r.name}.${which}Limit`}
+            defaultValue={r[which]}
+            inputMode="decimal"
+            className={`${CELL} num text-right`}
+          />
+          <FieldError name={`${r.name}.${which}Limit`} className="text-xs" />
+        </>
+      ),
+      { className: "w-28" },
+    );
+  return [
+    column<LimitRow>(first, (r) => r.first),
+    limit("lower"),
+    limit("upper"),
+    column<LimitRow>(
+      "Rule",
+      (r) => (
         <select
-          aria-label={`${label} decision rule`}
-          name={`${name}.decisionRule`}
-          defaultValue={decisionRule}
+          aria-label={`${r.label} decision rule`}
+          name={`${r.name}.decisionRule`}
+          defaultValue={r.decisionRule}
           className={CELL}
         >
           <option value="simple">Simple</option>
           <option value="guarded">Guarded</option>
         </select>
-      </td>
-      <td className="w-52 py-2 pr-2">
+      ),
+      { className: "w-32" },
+    ),
+    column<LimitRow>(
+      "Source of the limit",
+      (r) => (
         <select
-          aria-label={`${label} limit source`}
-          name={`${name}.limitSource`}
-          defaultValue={limitSource}
+          aria-label={`${r.label} limit source`}
+          name={`${r.name}.limitSource`}
+          defaultValue={r.limitSource}
           className={CELL}
         >
           {SOURCES.map(([v, l]) => (
@@ -115,18 +100,22 @@ function LimitCells({
             </option>
           ))}
         </select>
-      </td>
-      <td className="py-2">
-        <input
-          aria-label={`${label} note on the source`}
-          name={`${name}.limitSourceNote`}
-          defaultValue={limitSourceNote}
-          className={`${inputClass} text-sm`}
-        />
-      </td>
-    </>
-  );
+      ),
+      { className: "w-52" },
+    ),
+    column<LimitRow>("Note on the source", (r) => (
+      <input
+        aria-label={`${r.label} note on the source`}
+        name={`${r.name}.limitSourceNote`}
+        defaultValue={r.limitSourceNote}
+        className={`${inputClass} text-sm`}
+      />
+    )),
+  ];
 }
+
+const STEP_COLUMNS = limitColumns("Step");
+const PARAMETER_COLUMNS = limitColumns("Parameter");
 
 /** Edit the limits of a procedure; saving makes a new version, and running jobs keep theirs. */
 export function TemplateVersionForm({
@@ -149,65 +138,56 @@ export function TemplateVersionForm({
     >
       <input type="hidden" name="templateId" value={templateId} />
       <input type="hidden" name="unit" value={unit} />
-      <ScrollRegion label="Step limits, table">
-        <table className="w-full text-sm">
-          <LimitsHead first="Step" />
-          <tbody className="divide-y divide-graphite-100">
-            {steps.map((s) => (
-              <tr key={s.position}>
-                <td className="py-2 pr-2">
-                  <span className="num text-graphite-500">{s.position}</span> {s.title}
-                  <input type="hidden" name={`step.${s.position}.kind`} value={s.kind} />
-                  <span className="block text-xs text-graphite-500">
-                    in {s.kind === "angle" ? "arc seconds" : unit}
-                  </span>
-                </td>
-                <LimitCells
-                  name={`step.${s.position}`}
-                  label={`Step ${s.position}`}
-                  lower={s.lower}
-                  upper={s.upper}
-                  decisionRule={s.decisionRule}
-                  limitSource={s.limitSource}
-                  limitSourceNote={s.limitSourceNote}
-                />
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </ScrollRegion>
+      <Table
+        caption="Step limits"
+        empty="This version has no steps."
+        bare
+        data={steps.map((s): LimitRow => ({
+          name: `step.${s.position}`,
+          label: `Step ${s.position}`,
+          first: (
+            <>
+              <span className="num text-graphite-500">{s.position}</span> {s.title}
+              <input type="hidden" name={`step.${s.position}.kind`} value={s.kind} />
+              <span className="block text-xs text-graphite-500">
+                in {s.kind === "angle" ? "arc seconds" : unit}
+              </span>
+            </>
+          ),
+          ...s,
+        }))}
+        getRowId={(r) => r.name}
+        columns={STEP_COLUMNS}
+      />
       {parameters.length ? (
-        <ScrollRegion label="Limits for the fitted head parameters, table" className="mt-4">
+        <div className="mt-4">
           <h4 className="text-sm font-semibold">Limits for the fitted head parameters</h4>
           <p className="text-xs text-graphite-600">
             Lengths in µm, angles in arc seconds. Leave both limits empty for a parameter that is recorded,
             not judged.
           </p>
-          <table className="mt-2 w-full text-sm">
-            <LimitsHead first="Parameter" />
-            <tbody className="divide-y divide-graphite-100">
-              {parameters.map((p) => (
-                <tr key={p.key}>
-                  <td className="py-2 pr-2">
-                    {p.words}
-                    <span className="block text-xs text-graphite-500">
-                      in {p.unit === "µm" ? "µm" : "arc seconds"}
-                    </span>
-                  </td>
-                  <LimitCells
-                    name={`param.${p.key}`}
-                    label={`${p.words}:`}
-                    lower={p.lower}
-                    upper={p.upper}
-                    decisionRule={p.decisionRule}
-                    limitSource={p.limitSource}
-                    limitSourceNote={p.limitSourceNote}
-                  />
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </ScrollRegion>
+          <Table
+            caption="Limits for the fitted head parameters"
+            empty={null}
+            bare
+            className="mt-2"
+            data={parameters.map((p): LimitRow => ({
+              name: `param.${p.key}`,
+              label: `${p.words}:`,
+              first: (
+                <>
+                  {p.words}
+                  <span className="block text-xs text-graphite-500">
+                    in {p.unit === "µm" ? "µm" : "arc seconds"}
+                  </span>
+                </>
+              ),
+              ...p,
+            }))}
+            getRowId={(r) => r.name}
+            columns={PARAMETER_COLUMNS}
+          />
+        </div>
       ) : null}
     </Form>
   );

@@ -85,3 +85,60 @@ export function Field({
     </div>
   );
 }
+
+/** A labelled text input; `numeric` for serials and numbers (tabular figures). */
+export function TextField({
+  name,
+  label,
+  hint,
+  numeric = false,
+  className = "",
+  ...input
+}: {
+  name: string;
+  label: string;
+  hint?: string;
+  numeric?: boolean;
+} & Omit<React.InputHTMLAttributes<HTMLInputElement>, "name">) {
+  return (
+    <Field name={name} label={label} hint={hint}>
+      <input className={`${inputClass} ${numeric ? "num" : ""} ${className}`} {...input} />
+    </Field>
+  );
+}
+
+export type Option = { value: string; label: string };
+
+/** A labelled select; `placeholder` adds a first, empty choice ("Choose…", "Not assigned yet"). */
+export function SelectField({
+  name,
+  label,
+  hint,
+  options,
+  placeholder,
+  defaultValue = "",
+}: {
+  name: string;
+  label: string;
+  hint?: string;
+  options: readonly Option[];
+  placeholder?: string;
+  defaultValue?: string;
+}) {
+  return (
+    <Field name={name} label={label} hint={hint}>
+      <select className={inputClass} defaultValue={defaultValue}>
+        {placeholder !== undefined ? <option value="">{placeholder}</option> : null}
+        {options.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
+      </select>
+    </Field>
+  );
+}
+
+/** Options from `{ id, label }` rows, as the register lists give them. */
+export const optionsOf = (rows: ReadonlyArray<{ id: string; label: string }>): Option[] =>
+  rows.map((r) => ({ value: r.id, label: r.label }));

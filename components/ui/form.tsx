@@ -6,7 +6,7 @@ import { FormProvider, useForm, type FieldValues, type Resolver } from "react-ho
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import type { ActionResult } from "@/lib/actions";
-import { Button, type ButtonVariant } from "./button";
+import { ActionNotice, Button, type ButtonVariant } from "./button";
 import { INVALID_MESSAGE, mapActionErrors } from "./form-errors";
 
 type Notice = { ok: boolean; message: string };
@@ -87,14 +87,7 @@ export function Form<T>({
           <Button type="submit" variant={variant} pending={pending} className={submitClassName}>
             {submitLabel}
           </Button>
-          {notice ? (
-            <p
-              role={notice.ok ? "status" : "alert"}
-              className={`text-sm ${notice.ok ? "text-pass-700" : "text-fail-700"}`}
-            >
-              {notice.message}
-            </p>
-          ) : null}
+          {notice ? <ActionNotice ok={notice.ok}>{notice.message}</ActionNotice> : null}
         </div>
       </form>
     </FormProvider>

@@ -3,124 +3,15 @@
  * links for a list the server sorts), an empty state, and below 900 px a card per row with each
  * value under its column's label. Wide tables that must stay tables (`layout="scroll"`) scroll
  * sideways inside a ScrollRegion instead. No hooks here, so server pages can render it directly;
- * `SortableTable` adds the browser-side sorting state.
+ * a client component that sorts in the browser keeps `sorting` in its own state.
  */
-import {
-  createTable,
-  flexRender,
-  getCoreRowModel,
-  getSortedRowModel,
-  type ColumnDef,
-  type ColumnMeta,
-  type Header,
-  type RowData,
-  type SortingState,
-  type Table as TanTable,
-} from "@tanstack/react-table";
+import { flexRender, type Header } from "@tanstack/react-table";
 import Link from "next/link";
 import { ScrollRegion } from "./scroll-region";
+import { buildTable, type TableProps } from "./table-model";
 
-declare module "@tanstack/react-table" {
-  // eslint-disable-next-line @typescript-eslint/no-unused-vars
-  interface ColumnMeta<TData extends RowData, TValue> {
-    /** Right-aligned tabular figures (measured values, counts). */
-    numeric?: boolean;
-    /** Never wrapped: references, dates, serials such as "TR-2026-0041". */
-    nowrap?: boolean;
-    /** This column names the row: its cells are row headers (<th scope="row">). */
-    rowHeader?: boolean;
-    /** Attributes and extra classes for the column's header cell. */
-    headerProps?: Record<string, string | undefined>;
-    headerClassName?: string;
-    /** The label in card layout when the header is not plain text. */
-    label?: string;
-    /** Extra classes for this column's cells. */
-    className?: string;
-    /** Attributes for each cell (for example data-value for tests and tools). */
-    cellProps?: (row: TData) => Record<string, string | number | undefined>;
-  }
-}
-
-export type { ColumnDef, SortingState };
-
-export type ColumnFactory<T> = (
-  header: string,
-  cell: (row: T) => React.ReactNode,
-  opts?: ColumnOptions<T>,
-) => ColumnDef<T, unknown>;
-
-type ColumnOptions<T> = ColumnMeta<T, unknown> & { id?: string; sortBy?: (row: T) => string | number | null };
-
-/**
- * A column from a header and a cell renderer: the short form most tables need. Give `sortBy` to
- * make it sortable (the value rows are ordered by) and `id` when the header is not unique.
- */
-export function column<T>(
-  header: string,
-  cell: (row: T) => React.ReactNode,
-  opts: ColumnOptions<T> = {},
-): ColumnDef<T, unknown> {
-  const { id = header, sortBy, ...meta } = opts;
-  return {
-    id,
-    header,
-    ...(sortBy
-      ? { accessorFn: (r: T) => sortBy(r) ?? undefined, enableSorting: true, sortUndefined: "last" as const }
-      : { enableSorting: false }),
-    cell: ({ row }) => cell(row.original),
-    meta,
-  };
-}
-
-export interface TableProps<T> {
-  data: readonly T[];
-  /** Column definitions, or a function given the `column` helper already typed for these rows. */
-  columns: ColumnDef<T, unknown>[] | ((col: ColumnFactory<T>) => ColumnDef<T, unknown>[]);
-  /** The table's accessible name (a caption read by screen readers). */
-  caption: string;
-  /** Said instead of the table when there are no rows. */
-  empty: React.ReactNode;
-  /** "cards" (default): one card per row below 900 px. "scroll": stays a table and scrolls sideways. */
-  layout?: "cards" | "scroll";
-  getRowId?: (row: T) => string;
-  rowProps?: (row: T) => React.HTMLAttributes<HTMLTableRowElement> & Record<`data-${string}`, string | undefined>;
-  sorting?: SortingState;
-  /** Browser-side sorting: called with the new order when a header is pressed. */
-  onSortingChange?: (next: SortingState) => void;
-  /** Server-side sorting: the link a header goes to for the given column and direction. */
-  sortHref?: (columnId: string, desc: boolean) => string;
-  className?: string;
-  /** Classes for the <table> itself (a minimum width for a wide table, for instance). */
-  tableClassName?: string;
-  /** Attributes for the <table> element (a test id, for instance). */
-  tableProps?: Record<`data-${string}`, string>;
-  /** Inside a Card: no border or shadow of its own. */
-  bare?: boolean;
-}
-
-/** Builds the TanStack table without React state, so it works in server and client components alike. */
-export function buildTable<T>(
-  props: Pick<TableProps<T>, "data" | "columns" | "getRowId" | "sorting" | "onSortingChange" | "sortHref">,
-): TanTable<T> {
-  const sorting = props.sorting ?? [];
-  const table = createTable<T>({
-    data: props.data as T[],
-    columns: typeof props.columns === "function" ? props.columns(column) : props.columns,
-    getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-    manualSorting: Boolean(props.sortHref),
-    enableSorting: Boolean(props.sortHref || props.onSortingChange),
-    enableSortingRemoval: false,
-    ...(props.getRowId ? { getRowId: (row: T) => props.getRowId!(row) } : {}),
-    state: {},
-    onStateChange: () => {},
-    onSortingChange: (updater) =>
-      props.onSortingChange?.(typeof updater === "function" ? updater(sorting) : updater),
-    renderFallbackValue: null,
-  });
-  table.setOptions((prev) => ({ ...prev, state: { ...table.initialState, sorting } }));
-  return table;
-}
+export { buildTable, column } from "./table-model";
+export type { ColumnDef, ColumnFactory, SortingState, TableProps } from "./table-model";
 
 // Below 900 px a "cards" table turns each row into a card (Tailwind needs the class names written out).
 const CARDS = {
@@ -129,8 +20,8 @@ const CARDS = {
   table: "max-[900px]:block",
   head: "max-[900px]:sr-only",
   body: "max-[900px]:block max-[900px]:space-y-3 max-[900px]:divide-y-0",
-  row: "max-[900px]:block max-[900px]:rounded-card max-[900px]:border max-[900px]:border-graphite-200 max-[900px]:bg-white max-[900px]:px-4 max-[900px]:py-2 max-[900px]:shadow-sm",
-  cell: "max-[900px]:grid max-[900px]:grid-cols-[minmax(7rem,38%)_minmax(0,1fr)] max-[900px]:items-baseline max-[900px]:gap-3 max-[900px]:px-0 max-[900px]:py-1.5 max-[900px]:text-left max-[900px]:before:text-graphite-600 max-[900px]:before:content-[attr(data-label)]",
+  row: "max-[900px]:grid max-[900px]:gap-x-8 min-[560px]:max-[900px]:grid-cols-2 max-[900px]:rounded-card max-[900px]:border max-[900px]:border-graphite-200 max-[900px]:bg-white max-[900px]:px-4 max-[900px]:py-2 max-[900px]:shadow-sm",
+  cell: "max-[900px]:grid max-[900px]:grid-cols-[minmax(6rem,40%)_minmax(0,1fr)] max-[900px]:items-baseline max-[900px]:gap-3 max-[900px]:px-0 max-[900px]:py-1.5 max-[900px]:text-left max-[900px]:before:font-sans max-[900px]:before:whitespace-normal max-[900px]:before:text-graphite-600 max-[900px]:before:content-[attr(data-label)]",
 };
 const NO_CARDS = { frame: "", table: "", head: "", body: "", row: "", cell: "" };
 
@@ -259,9 +150,11 @@ export function Table<T>(props: TableProps<T>) {
                       scope={meta?.rowHeader ? "row" : undefined}
                       data-label={label}
                       {...meta?.cellProps?.(row.original)}
-                      className={`${bare ? "py-2 pr-3" : "px-4 py-3"} ${meta?.rowHeader ? "text-left font-normal" : ""} ${meta?.numeric ? "num text-right" : ""} ${meta?.nowrap || meta?.numeric ? "whitespace-nowrap" : ""} ${meta?.className ?? ""} ${k.cell}`}
+                      className={`${bare ? "py-2 pr-3" : "px-4 py-3"} ${meta?.rowHeader ? "text-left font-normal" : ""} ${meta?.numeric ? "num text-right" : ""} ${(meta?.nowrap ?? meta?.numeric) ? "whitespace-nowrap" : ""} ${meta?.className ?? ""} ${k.cell} ${cards && meta?.wide ? "min-[560px]:max-[900px]:col-span-2" : ""}`}
                     >
-                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                      <div className={cards ? "contents max-[900px]:block max-[900px]:min-w-0" : "contents"}>
+                        {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                      </div>
                     </Cell>
                   );
                 })}

@@ -4,7 +4,7 @@ import { createElement } from "react";
 import { renderToString } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import { mapActionErrors } from "@/components/ui/form-errors";
-import { buildTable, column, Table, type ColumnDef } from "@/components/ui/table";
+import { buildTable, column, Table, type ColumnDef, type TableProps } from "@/components/ui/table";
 
 type Row = { id: string; ref: string; n: number | null };
 const rows: Row[] = [
@@ -17,6 +17,10 @@ const columns: ColumnDef<Row, unknown>[] = [
   column<Row>("Count", (r) => r.n ?? "—", { id: "n", sortBy: (r) => r.n, numeric: true }),
   column<Row>("Note", () => "x"),
 ];
+const render = (props: Partial<TableProps<Row>>) =>
+  renderToString(
+    createElement(Table<Row>, { data: rows, columns, caption: "Jobs", empty: "none", ...props }),
+  );
 const order = (sorting: { id: string; desc: boolean }[]) =>
   buildTable({ data: rows, columns, sorting, onSortingChange: () => {} })
     .getRowModel()
@@ -53,16 +57,10 @@ describe("Table", () => {
     expect(html).not.toContain("<table");
   });
   it("names the table by its caption, labels each cell for the card layout and marks the sort", () => {
-    const html = renderToString(
-      createElement(Table<Row>, {
-        data: rows,
-        columns,
-        caption: "Jobs",
-        empty: "none",
-        sorting: [{ id: "ref", desc: true }],
-        sortHref: (id, desc) => `?sort=${id}&dir=${desc ? "desc" : "asc"}`,
-      }),
-    );
+    const html = render({
+      sorting: [{ id: "ref", desc: true }],
+      sortHref: (id, desc) => `?sort=${id}&dir=${desc ? "desc" : "asc"}`,
+    });
     expect(html).toMatch(/<caption[^>]*>Jobs<\/caption>/);
     expect(html).toContain('data-label="Reference"');
     expect(html).toContain('data-label="Count"');
@@ -76,24 +74,13 @@ describe("Table", () => {
     expect(html.indexOf("TR-2026-0052")).toBeLessThan(html.indexOf("TR-2026-0041"));
   });
   it("sorted in the browser, the rows come in order and the headers are buttons", () => {
-    const html = renderToString(
-      createElement(Table<Row>, {
-        data: rows,
-        columns,
-        caption: "Jobs",
-        empty: "none",
-        sorting: [{ id: "ref", desc: true }],
-        onSortingChange: () => {},
-      }),
-    );
+    const html = render({ sorting: [{ id: "ref", desc: true }], onSortingChange: () => {} });
     expect(html).toMatch(/<th[^>]*aria-sort="descending"[^>]*><button type="button"/);
     expect(html.indexOf("TR-2026-0057")).toBeLessThan(html.indexOf("TR-2026-0052"));
     expect(html.indexOf("TR-2026-0052")).toBeLessThan(html.indexOf("TR-2026-0041"));
   });
   it("a table that must stay a table gets no card classes", () => {
-    const html = renderToString(
-      createElement(Table<Row>, { data: rows, columns, caption: "Wide", empty: "none", layout: "scroll" }),
-    );
+    const html = render({ layout: "scroll" });
     expect(html).not.toContain("max-[900px]:");
   });
 });

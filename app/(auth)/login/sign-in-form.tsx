@@ -4,6 +4,11 @@ import { signIn } from "next-auth/react";
 import Link from "next/link";
 import { useState } from "react";
 import { rateLimitMessage } from "@/lib/auth/throttle";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+
+const INPUT =
+  "block min-h-touch w-full rounded-lg border border-graphite-300 bg-white px-3 text-base text-graphite-900 shadow-sm focus:border-accent-500";
 
 const MESSAGES: Record<string, string> = {
   CredentialsSignin: "That e-mail and password do not match an active account.",
@@ -69,33 +74,15 @@ export function SignInForm({
           {error}
         </p>
       ) : null}
-      <label className="block space-y-1.5">
-        <span className="text-sm font-medium text-graphite-800">E-mail</span>
-        <input
-          name="email"
-          type="email"
-          autoComplete="username"
-          required
-          className="block min-h-touch w-full rounded-lg border border-graphite-300 bg-white px-3 text-base text-graphite-900 shadow-sm focus:border-accent-500"
-        />
-      </label>
-      <label className="block space-y-1.5">
-        <span className="text-sm font-medium text-graphite-800">Password</span>
-        <input
-          name="password"
-          type="password"
-          autoComplete="current-password"
-          required
-          className="block min-h-touch w-full rounded-lg border border-graphite-300 bg-white px-3 text-base text-graphite-900 shadow-sm focus:border-accent-500"
-        />
-      </label>
-      <button
-        type="submit"
-        disabled={pending}
-        className="flex min-h-touch w-full items-center justify-center rounded-lg bg-accent-600 px-4 text-base font-semibold text-white shadow-sm hover:bg-accent-700 disabled:opacity-60"
-      >
-        {pending ? "Signing in…" : "Sign in"}
-      </button>
+      <Field name="email" label="E-mail">
+        <input type="email" autoComplete="username" required className={INPUT} />
+      </Field>
+      <Field name="password" label="Password">
+        <input type="password" autoComplete="current-password" required className={INPUT} />
+      </Field>
+      <Button type="submit" pending={pending} pendingLabel="Signing in…" size="lg" className="w-full">
+        Sign in
+      </Button>
       <p className="text-sm">
         <Link href="/forgot-password" className="text-accent-700 underline">
           Forgot your password?

@@ -34,17 +34,20 @@ export default async function PeoplePage() {
           column("Role", (p) => ROLE_LABELS[p.role]),
           column("Company", (p) => p.customerName ?? "Service company"),
           column("Account", (p) => (p.disabled ? "Disabled" : "Active")),
-          column("Change", (p) =>
-            p.id === user.id ? (
-              <span className="text-xs text-graphite-500">You</span>
-            ) : (
-              <PersonControls
-                userId={p.id}
-                role={p.role}
-                disabled={p.disabled}
-                isCustomer={p.role === "customer"}
-              />
-            ),
+          column(
+            "Change",
+            (p) =>
+              p.id === user.id ? (
+                <span className="text-xs text-graphite-500">You</span>
+              ) : (
+                <PersonControls
+                  userId={p.id}
+                  role={p.role}
+                  disabled={p.disabled}
+                  isCustomer={p.role === "customer"}
+                />
+              ),
+            { wide: true },
           ),
         ]}
       />

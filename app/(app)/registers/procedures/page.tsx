@@ -1,10 +1,10 @@
-import { ScrollRegion } from "@/components/ui/scroll-region";
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { LIMIT_SOURCE_LABELS } from "@/components/readings/decision-badge";
 import { JobCreateForm } from "@/components/registers/job-create-form";
 import { TemplateVersionForm } from "@/components/registers/template-version-form";
 import { Card } from "@/components/ui/card";
+import { Table } from "@/components/ui/table";
 import { listHeads, listMachines } from "@/db/queries/registers";
 import { listTemplatesWithSteps } from "@/db/queries/templates";
 import { listActiveInstallers } from "@/db/queries/users-admin";
@@ -41,77 +41,63 @@ export default async function ProceduresPage() {
           <p className="mb-3 text-sm text-graphite-600">
             {t.description} Created {formatDateTimeUtc(t.createdAt)}.
           </p>
-          <ScrollRegion label={`Step limits, version ${t.version}, table`}>
-            <table className="w-full text-sm">
-              <thead className="border-b border-graphite-200 text-left text-graphite-600">
-                <tr>
-                  <th className="py-2 pr-3 font-medium">Step</th>
-                  <th className="py-2 pr-3 font-medium">Quantity</th>
-                  <th className="py-2 pr-3 text-right font-medium">Limits</th>
-                  <th className="py-2 pr-3 font-medium">Rule</th>
-                  <th className="py-2 font-medium">Source</th>
-                </tr>
-              </thead>
-              <tbody className="divide-y divide-graphite-100">
-                {t.steps.map((s) => (
-                  <tr key={s.id}>
-                    <td className="py-2 pr-3">
-                      <span className="num text-graphite-500">{s.position}</span> {s.title}
-                      {s.safetyNote ? (
-                        <span className="ml-2 rounded bg-accent-50 px-1.5 text-xs text-accent-800 ring-1 ring-accent-300">
-                          caution
-                        </span>
-                      ) : null}
-                    </td>
-                    <td className="py-2 pr-3">{s.quantity}</td>
-                    <td className="num py-2 pr-3 text-right whitespace-nowrap">
-                      {formatLimits(s.lowerLimit, s.upperLimit, s.quantityKind, unitSystem)}
-                    </td>
-                    <td className="py-2 pr-3">{s.decisionRule === "guarded" ? "Guarded" : "Simple"}</td>
-                    <td className="py-2" title={s.limitSourceNote ?? undefined}>
-                      {LIMIT_SOURCE_LABELS[s.limitSource]}
-                    </td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </ScrollRegion>
+          <Table
+            caption={`Step limits, version ${t.version}`}
+            empty="This version has no steps."
+            bare
+            data={t.steps}
+            getRowId={(s) => s.id}
+            columns={(column) => [
+              column("Step", (s) => (
+                <>
+                  <span className="num text-graphite-500">{s.position}</span> {s.title}
+                  {s.safetyNote ? (
+                    <span className="ml-2 rounded bg-accent-50 px-1.5 text-xs text-accent-800 ring-1 ring-accent-300">
+                      caution
+                    </span>
+                  ) : null}
+                </>
+              )),
+              column("Quantity", (s) => s.quantity),
+              column("Limits", (s) => formatLimits(s.lowerLimit, s.upperLimit, s.quantityKind, unitSystem), {
+                numeric: true,
+              }),
+              column("Rule", (s) => (s.decisionRule === "guarded" ? "Guarded" : "Simple")),
+              column("Source", (s) => LIMIT_SOURCE_LABELS[s.limitSource], {
+                cellProps: (s) => ({ title: s.limitSourceNote ?? undefined }),
+              }),
+            ]}
+          />
           <h3 className="mb-2 mt-5 text-sm font-semibold">Limits for the fitted head parameters</h3>
           {t.parameterLimits.length === 0 ? (
             <p className="text-sm text-graphite-600">
               None: a head fit on a job with this version is recorded, not judged.
             </p>
           ) : (
-            <ScrollRegion label={`Head parameter limits, version ${t.version}, table`}>
-              <table className="w-full text-sm" aria-label={`Head parameter limits, version ${t.version}`}>
-                <thead className="border-b border-graphite-200 text-left text-graphite-600">
-                  <tr>
-                    <th className="py-2 pr-3 font-medium">Parameter</th>
-                    <th className="py-2 pr-3 text-right font-medium">Limits</th>
-                    <th className="py-2 pr-3 font-medium">Rule</th>
-                    <th className="py-2 font-medium">Source</th>
-                  </tr>
-                </thead>
-                <tbody className="divide-y divide-graphite-100">
-                  {HEAD_PARAMETER_KEYS.flatMap((key) => {
-                    const l = t.parameterLimits.find((x) => x.parameter === key);
-                    if (!l) return [];
-                    return [
-                      <tr key={key}>
-                        <td className="py-2 pr-3">{PARAMETER_WORDS[key]}</td>
-                        <td className="num py-2 pr-3 text-right whitespace-nowrap">
-                          {limitText(l.lowerLimit, l.upperLimit, headParameterUnit(key)) ?? "—"}
-                        </td>
-                        <td className="py-2 pr-3">{l.decisionRule === "guarded" ? "Guarded" : "Simple"}</td>
-                        <td className="py-2" title={l.limitSourceNote ?? undefined}>
-                          {LIMIT_SOURCE_LABELS[l.limitSource]}
-                        </td>
-                      </tr>,
-                    ];
-                  })}
-                </tbody>
-              </table>
-            </ScrollRegion>
+            <Table
+              caption={`Head parameter limits, version ${t.version}`}
+              empty={null}
+              bare
+              data={HEAD_PARAMETER_KEYS.flatMap((key) => {
+                const l = t.parameterLimits.find((x) => x.parameter === key);
+                return l ? [{ key, ...l }] : [];
+              })}
+              getRowId={(l) => l.key}
+              columns={(column) => [
+                column("Parameter", (l) => PARAMETER_WORDS[l.key]),
+                column(
+                  "Limits",
+                  (l) => limitText(l.lowerLimit, l.upperLimit, headParameterUnit(l.key)) ?? "—",
+                  {
+                    numeric: true,
+                  },
+                ),
+                column("Rule", (l) => (l.decisionRule === "guarded" ? "Guarded" : "Simple")),
+                column("Source", (l) => LIMIT_SOURCE_LABELS[l.limitSource], {
+                  cellProps: (l) => ({ title: l.limitSourceNote ?? undefined }),
+                }),
+              ]}
+            />
           )}
           {mayEdit && t.isCurrent ? (
             <details className="mt-4 rounded-card border border-graphite-200 p-4">

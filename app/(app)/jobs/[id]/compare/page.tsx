@@ -1,10 +1,10 @@
-import { ScrollRegion } from "@/components/ui/scroll-region";
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { BandChart } from "@/components/charts/band-chart";
 import { StatusButtons, UnitToggle } from "@/components/checklist/job-actions";
 import { DecisionBadge, LIMIT_SOURCE_LABELS } from "@/components/readings/decision-badge";
 import { Card } from "@/components/ui/card";
+import { Table } from "@/components/ui/table";
 import { getComparison } from "@/db/queries/readings";
 import { getUnitSystem } from "@/db/queries/user-prefs";
 import { type JobStatus } from "@/lib/domain/jobs";
@@ -76,104 +76,78 @@ export default async function ComparePage({ params }: Props) {
         </div>
       </div>
 
-      <ScrollRegion
-        label="Before and after, table"
-        className="rounded-card border border-graphite-200 bg-white shadow-sm"
-      >
-        <table className="w-full text-sm" data-testid="compare-table">
-          <caption className="sr-only">
-            Each step with its reading before and after the adjustment, the change, the limits and the result
-          </caption>
-          <thead className="border-b border-graphite-200 bg-graphite-50 text-graphite-600">
-            <tr>
-              <th scope="col" className="px-4 py-3 text-left font-medium">
-                Step
-              </th>
-              <th scope="col" className="px-4 py-3 text-right font-medium">
-                Before
-              </th>
-              <th scope="col" className="px-4 py-3 text-right font-medium">
-                After
-              </th>
-              <th scope="col" className="px-4 py-3 text-right font-medium">
-                Change
-              </th>
-              <th scope="col" className="px-4 py-3 text-right font-medium">
-                Limits
-              </th>
-              <th scope="col" className="px-4 py-3 text-left font-medium">
-                Result
-              </th>
-            </tr>
-          </thead>
-          <tbody className="divide-y divide-graphite-100">
-            {c.rows.map((r) => (
-              <tr key={r.stepId} data-testid={`compare-row-${r.position}`}>
-                <th scope="row" className="px-4 py-3 text-left font-normal">
-                  <span className="num mr-2 text-graphite-500">{r.position}</span>
-                  <span className="font-medium text-graphite-900">{r.title}</span>
-                  <span className="block text-xs text-graphite-500">
-                    {r.quantity} · {LIMIT_SOURCE_LABELS[r.limitSource as keyof typeof LIMIT_SOURCE_LABELS]}
-                  </span>
-                </th>
-                {(["pre", "post"] as const).map((p) => {
-                  const v = r[p];
-                  return (
-                    <td
-                      key={p}
-                      className="num px-4 py-3 text-right align-top"
-                      data-testid={`compare-${p}-${r.position}`}
-                    >
-                      {v ? (
-                        <>
-                          <span className="whitespace-nowrap font-semibold">
-                            {fmt(v.value, r.quantityKind)}
-                          </span>
-                          {r.quantityKind === "angle" ? (
-                            <span className="block text-xs text-graphite-500">
-                              {arcsecToUmPerM(v.value).toFixed(1)} µm/m
-                            </span>
-                          ) : null}
-                          {v.U > 0 && r.decisionRule === "guarded" ? (
-                            <span className="block text-xs text-graphite-500">
-                              U = ± {fmt(v.U, r.quantityKind)} (k = 2)
-                            </span>
-                          ) : null}
-                          <span className="mt-1 block">
-                            <DecisionBadge decision={v.decision} />
-                          </span>
-                        </>
-                      ) : (
-                        <span className="text-graphite-400">—</span>
-                      )}
-                    </td>
-                  );
-                })}
-                <td
-                  className="num whitespace-nowrap px-4 py-3 text-right align-top"
-                  data-testid={`compare-change-${r.position}`}
-                >
-                  {r.change != null ? fmt(r.change, r.quantityKind, true) : "—"}
-                </td>
-                <td className="num px-4 py-3 text-right align-top">
-                  {/* A value never parts from its unit: a range may break only at "to". */}
-                  {formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, unitSystem)
-                    .split(" to ")
-                    .map((part, i) => (
-                      <span key={i} className="whitespace-nowrap">
-                        {i > 0 ? " to " : ""}
-                        {part}
+      <Table
+        caption="Each step with its reading before and after the adjustment, the change, the limits and the result"
+        empty="The job's procedure has no steps to compare."
+        tableProps={{ "data-testid": "compare-table" }}
+        data={c.rows}
+        getRowId={(r) => r.stepId}
+        rowProps={(r) => ({ "data-testid": `compare-row-${r.position}`, className: "align-top" })}
+        columns={(column) => [
+          column(
+            "Step",
+            (r) => (
+              <>
+                <span className="num mr-2 text-graphite-500">{r.position}</span>
+                <span className="font-medium text-graphite-900">{r.title}</span>
+                <span className="block text-xs text-graphite-500">
+                  {r.quantity} · {LIMIT_SOURCE_LABELS[r.limitSource as keyof typeof LIMIT_SOURCE_LABELS]}
+                </span>
+              </>
+            ),
+            { rowHeader: true },
+          ),
+          ...(["pre", "post"] as const).map((p) =>
+            column(
+              p === "pre" ? "Before" : "After",
+              (r) => {
+                const v = r[p];
+                if (!v) return <span className="text-graphite-400">—</span>;
+                return (
+                  <>
+                    <span className="whitespace-nowrap font-semibold">{fmt(v.value, r.quantityKind)}</span>
+                    {r.quantityKind === "angle" ? (
+                      <span className="block text-xs text-graphite-500">
+                        {arcsecToUmPerM(v.value).toFixed(1)} µm/m
                       </span>
-                    ))}
-                </td>
-                <td className="px-4 py-3 align-top" data-testid={`compare-status-${r.position}`}>
-                  <DecisionBadge decision={r.status} />
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </ScrollRegion>
+                    ) : null}
+                    {v.U > 0 && r.decisionRule === "guarded" ? (
+                      <span className="block text-xs text-graphite-500">
+                        U = ± {fmt(v.U, r.quantityKind)} (k = 2)
+                      </span>
+                    ) : null}
+                    <span className="mt-1 block">
+                      <DecisionBadge decision={v.decision} />
+                    </span>
+                  </>
+                );
+              },
+              { numeric: true, cellProps: (r) => ({ "data-testid": `compare-${p}-${r.position}` }) },
+            ),
+          ),
+          column("Change", (r) => (r.change != null ? fmt(r.change, r.quantityKind, true) : "—"), {
+            numeric: true,
+            cellProps: (r) => ({ "data-testid": `compare-change-${r.position}` }),
+          }),
+          column(
+            "Limits",
+            // A value never parts from its unit: a range may break only at "to".
+            (r) =>
+              formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, unitSystem)
+                .split(" to ")
+                .map((part, i) => (
+                  <span key={i} className="whitespace-nowrap">
+                    {i > 0 ? " to " : ""}
+                    {part}
+                  </span>
+                )),
+            { numeric: true },
+          ),
+          column("Result", (r) => <DecisionBadge decision={r.status} />, {
+            cellProps: (r) => ({ "data-testid": `compare-status-${r.position}` }),
+          }),
+        ]}
+      />
 
       <Card title="Readings against their limits">
         <BandChart

@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 import { DeleteDatasetButton } from "@/components/datasets/delete-button";
 import { EvaluationTable, RULE_TEXT } from "@/components/datasets/evaluation-table";
 import { KIND_LABELS, PHASE_LABELS } from "@/components/datasets/kinds";
+import { Table } from "@/components/ui/table";
 import { Card, Facts } from "@/components/ui/card";
 import { getTestPartEvaluation } from "@/db/queries/datasets";
 import { datasetDeleteRefusal } from "@/lib/policy/datasets";
@@ -188,34 +189,20 @@ export default async function DatasetPage({ params, searchParams }: Props) {
             />
           ) : null}
           {summary.columns && Object.keys(summary.columns).length > 0 ? (
-            <table className="mt-3 w-full text-sm">
-              <thead className="text-left text-graphite-600">
-                <tr>
-                  <th scope="col" className="py-1 font-medium">
-                    Stored column
-                  </th>
-                  <th scope="col" className="py-1 text-right font-medium">
-                    From
-                  </th>
-                  <th scope="col" className="py-1 text-right font-medium">
-                    To
-                  </th>
-                  <th scope="col" className="py-1 pl-3 font-medium">
-                    Unit
-                  </th>
-                </tr>
-              </thead>
-              <tbody>
-                {Object.entries(summary.columns).map(([name, c]) => (
-                  <tr key={name} className="border-t border-graphite-100">
-                    <td className="num py-1">{name}</td>
-                    <td className="num py-1 text-right">{c.min.toFixed(4)}</td>
-                    <td className="num py-1 text-right">{c.max.toFixed(4)}</td>
-                    <td className="py-1 pl-3">{c.unit === "um" ? "µm" : c.unit === "deg" ? "°" : c.unit}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
+            <Table
+              caption="Range of each stored column"
+              empty={null}
+              bare
+              className="mt-3"
+              data={Object.entries(summary.columns).map(([name, c]) => ({ name, ...c }))}
+              getRowId={(c) => c.name}
+              columns={(column) => [
+                column("Stored column", (c) => c.name, { className: "num" }),
+                column("From", (c) => c.min.toFixed(4), { numeric: true }),
+                column("To", (c) => c.max.toFixed(4), { numeric: true }),
+                column("Unit", (c) => (c.unit === "um" ? "µm" : c.unit === "deg" ? "°" : c.unit)),
+              ]}
+            />
           ) : null}
           {ds.kind === "test_part" ? (
             <p className="text-sm text-graphite-700">{ds.rows} measured characteristics; judged above.</p>

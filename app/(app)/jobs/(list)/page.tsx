@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { z } from "zod";
+import { Button } from "@/components/ui/button";
 import { JobsTable } from "@/components/jobs/jobs-table";
 import { JOB_SORT_KEYS, listJobs } from "@/db/queries/jobs";
 import { JOB_STATUSES, STATUS_LABELS } from "@/lib/domain/jobs";
@@ -70,9 +71,9 @@ export default async function JobsPage({ searchParams }: Props) {
           </label>
           {filters.sort ? <input type="hidden" name="sort" value={filters.sort} /> : null}
           {filters.dir ? <input type="hidden" name="dir" value={filters.dir} /> : null}
-          <button className="min-h-touch rounded-lg bg-graphite-800 px-4 text-sm font-semibold text-white hover:bg-graphite-900">
+          <Button type="submit" variant="dark">
             Filter
-          </button>
+          </Button>
         </form>
       </div>
       <JobsTable rows={rows} sort={sort} params={params} showCustomer={words.showCustomer} />
