@@ -8,6 +8,7 @@ import { getComparison } from "@/db/queries/readings";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
 import { latestJobView } from "@/db/queries/analysis-views";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
+import { checkPasswordReentry } from "@/db/queries/sign-in";
 import { parameterRows } from "@/lib/fit-display";
 import { signed } from "@/lib/numbers";
 import {
@@ -21,7 +22,6 @@ import {
   signatures,
   users,
 } from "@/db/schema";
-import { verifyPassword } from "@/lib/auth/password";
 import {
   ROLE_LABELS,
   SIGNATURE_LABELS,
@@ -40,18 +40,9 @@ import { sha256Hex, signManifest, verifyManifest, type SignatureManifest } from 
 import type { Decision, ReportCharts, ReportData, ReportSignature } from "@/lib/report/types";
 import { isUuid } from "@/lib/domain/uuid";
 
-/** Re-entry of the password at signing (21 CFR 11.200): the signer proves it is them, now. */
+/** Re-entry of the password at signing (21 CFR 11.200), counted by the sign-in limiter (db/queries/sign-in). */
 async function requirePasswordReentry(actor: Actor, password: string): Promise<void> {
-  const [row] = await db
-    .select({ hash: users.passwordHash })
-    .from(users)
-    .where(eq(users.id, actor.id))
-    .limit(1);
-  if (!password || !(await verifyPassword(password, row?.hash))) {
-    throw invalid("Re-enter your password to sign.", [
-      { field: "password", message: "The password does not match your account." },
-    ]);
-  }
+  await checkPasswordReentry(actor, password);
 }
 
 async function visibleJob(actor: Actor, jobId: string): Promise<JobDetail> {
