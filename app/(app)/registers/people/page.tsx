@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { AccountRecoveryButtons } from "@/components/registers/account-recovery-buttons";
 import { InviteForm, PersonControls } from "@/components/registers/people-forms";
 import { Card } from "@/components/ui/card";
 import { SimpleTable } from "@/components/ui/simple-table";
@@ -45,6 +46,10 @@ export default async function PeoplePage() {
                   isCustomer={p.role === "customer"}
                 />
               ),
+          },
+          {
+            header: "Sign-in help",
+            cell: (p) => <AccountRecoveryButtons userId={p.id} disabled={p.disabled} />,
           },
         ]}
       />
