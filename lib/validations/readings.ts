@@ -1,5 +1,6 @@
 /** Input of a checklist reading, shared by the API, the server action and the tablet form. */
 import { z } from "zod";
+import { zUuid } from "@/lib/domain/uuid";
 
 export const ENTRY_UNITS = ["mm", "in", "um", "arcsec"] as const;
 
@@ -15,7 +16,7 @@ const optionalNumber = z.preprocess(
 );
 
 export const readingCreateSchema = z.object({
-  stepId: z.uuid({ message: "Choose a checklist step." }),
+  stepId: zUuid("Choose a checklist step."),
   phase: z.enum(["pre", "post"], { message: "Say whether this is before or after the adjustment." }),
   value: z.preprocess(
     (v) => (typeof v === "string" ? v.trim().replace(",", ".") : v),
@@ -27,13 +28,13 @@ export const readingCreateSchema = z.object({
   /** angle_over_distance steps: the travel the reading was taken over, in the travelUnit. */
   travel: optionalNumber,
   travelUnit: z.enum(["mm", "in"]).optional(),
-  instrumentId: z.uuid({ message: "Choose the instrument used from the register." }),
+  instrumentId: zUuid("Choose the instrument used from the register."),
   note: optionalText(2000),
   takenAt: z.preprocess(
     (v) => (v === "" ? undefined : v),
     z.coerce.date({ message: "The time of the reading is not a date." }).optional(),
   ),
   /** A correction: the reading this one replaces (it is kept, marked superseded). */
-  supersedesId: z.preprocess((v) => (v === "" ? undefined : v), z.uuid().optional()),
+  supersedesId: z.preprocess((v) => (v === "" ? undefined : v), zUuid().optional()),
 });
 export type ReadingCreateInput = z.infer<typeof readingCreateSchema>;

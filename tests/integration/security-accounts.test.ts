@@ -8,8 +8,8 @@
 import { createHash } from "node:crypto";
 import { and, desc, eq, sql } from "drizzle-orm";
 import nodemailer from "nodemailer";
-import { afterAll, describe, expect, it } from "vitest";
-import { RESET_REQUESTED_MESSAGE, requestPasswordResetAction } from "@/app/(auth)/forgot-password/actions";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { requestPasswordResetAction } from "@/app/(auth)/forgot-password/actions";
 import { db } from "@/db";
 import { isSignInLimited, recordSignInFailure } from "@/db/queries/sign-in";
 import { getActor } from "@/db/queries/users";
@@ -47,8 +47,18 @@ async function storedText(): Promise<string> {
   return [...a.rows, ...b.rows].map((r) => String((r as { row: string }).row)).join("\n");
 }
 
+// Some tests here set new passwords; the demo accounts get their own back for the files that follow.
+let saved: { id: string; passwordHash: string | null }[] = [];
+beforeAll(async () => {
+  saved = await db.select({ id: users.id, passwordHash: users.passwordHash }).from(users);
+});
 afterAll(async () => {
   await db.delete(signInFailures);
+  for (const u of saved)
+    await db
+      .update(users)
+      .set({ passwordHash: u.passwordHash, sessionsValidAfter: null })
+      .where(eq(users.id, u.id));
 });
 
 describe("forgot password", () => {
@@ -85,7 +95,10 @@ describe("forgot password", () => {
     const before = (await db.select({ n: sql<number>`count(*)`.mapWith(Number) }).from(outbox))[0]!.n;
     const unknown = await requestPasswordResetAction({ email: "nobody@halvard.example" });
     const known = await requestPasswordResetAction({ email: "admin@halvard.example" });
-    expect(unknown).toEqual({ ok: true, data: { message: RESET_REQUESTED_MESSAGE } });
+    expect(unknown).toEqual({
+      ok: true,
+      data: { message: expect.stringMatching(/^If that address belongs/) },
+    });
     expect(known).toEqual(unknown);
     const after = (await db.select({ n: sql<number>`count(*)`.mapWith(Number) }).from(outbox))[0]!.n;
     expect(after).toBe(before + 1);
@@ -134,7 +147,7 @@ describe("the administrator helps someone back in", () => {
 describe("tokens at rest", () => {
   it("an invitation's token is in no stored row once its e-mail is sent; the e-mail had it", async () => {
     const admin = await actorOf("admin@halvard.example");
-    const { token } = await inviteUser(admin, {
+    const { token, userId } = await inviteUser(admin, {
       email: `invitee-${Date.now()}@halvard.example`,
       name: "Invitee",
       role: "inspector",
@@ -150,5 +163,7 @@ describe("tokens at rest", () => {
     expect(text).not.toContain(reset!);
     expect(text).toContain(sha256(token));
     expect(text).toContain("token=(removed once sent)");
+    // Other files count the inspectors a job notifies: the invitee leaves no account behind.
+    await db.delete(users).where(eq(users.id, userId));
   });
 });

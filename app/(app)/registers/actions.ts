@@ -21,6 +21,7 @@ import {
   userInviteSchema,
   userUpdateSchema,
 } from "@/lib/validations/registers";
+import { zUuid } from "@/lib/domain/uuid";
 
 export const createInstrumentAction = action(
   { schema: instrumentCreateSchema, roles: ["admin"] },
@@ -57,7 +58,7 @@ const limit = z.preprocess(
 
 /** Form fields step.<position>.<field>; lengths in `unit` (mm or in), angles in arcsec. */
 const templateVersionSchema = z
-  .object({ templateId: z.uuid(), unit: z.enum(["mm", "in"]) })
+  .object({ templateId: zUuid(), unit: z.enum(["mm", "in"]) })
   .catchall(z.unknown());
 
 const LIMIT_SOURCES = ["standard", "maker_manual", "common_practice", "customer_spec"] as const;
@@ -135,12 +136,12 @@ export const createTemplateVersionAction = action(
 );
 
 const jobCreateSchema = z.object({
-  templateId: z.uuid({ message: "Choose a procedure." }),
-  machineId: z.uuid({ message: "Choose a host machine." }),
-  headId: z.uuid({ message: "Choose a head." }),
+  templateId: zUuid("Choose a procedure."),
+  machineId: zUuid("Choose a host machine."),
+  headId: zUuid("Choose a head."),
   kind: z.enum(["installation", "reverification", "after_crash"]),
   title: z.string().trim().min(3, "Give the job a title.").max(200),
-  assignedInstallerId: z.preprocess((v) => (v === "" ? undefined : v), z.uuid().optional()),
+  assignedInstallerId: z.preprocess((v) => (v === "" ? undefined : v), zUuid().optional()),
   decisionRule: z.enum(["simple", "guarded"]),
 });
 
@@ -153,8 +154,8 @@ export const createJobAction = action({ schema: jobCreateSchema, roles: ["admin"
 export const mountHeadAction = action(
   {
     schema: z.object({
-      headId: z.uuid(),
-      machineId: z.preprocess((v) => (v === "" ? null : v), z.uuid().nullable()),
+      headId: zUuid(),
+      machineId: z.preprocess((v) => (v === "" ? null : v), zUuid().nullable()),
     }),
     roles: ["admin"],
   },

@@ -9,7 +9,7 @@ const schema = z.object({
 });
 
 /** The same answer whether or not the address has an account, so the form tells nobody who is registered. */
-export const RESET_REQUESTED_MESSAGE =
+const RESET_REQUESTED_MESSAGE =
   "If that address belongs to an active account, a link to choose a new password is on its way. It works once, for one hour.";
 
 /** Anonymous by design: asks for a reset link by e-mail. */

@@ -4,8 +4,9 @@ import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { clearSignInDelay, sendResetLink } from "@/db/queries/users-admin";
 import { action } from "@/lib/actions";
+import { zUuid } from "@/lib/domain/uuid";
 
-const person = z.object({ userId: z.uuid() });
+const person = z.object({ userId: zUuid() });
 
 /** The administrator lifts the sign-in delay on an account (lib/policy/account-recovery decides who may). */
 export const clearSignInDelayAction = action({ schema: person }, async ({ userId }, actor) => {

@@ -4,11 +4,12 @@ import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { issueReport, respondToReport, signJobWork } from "@/db/queries/reports";
 import { action } from "@/lib/actions";
+import { zUuid } from "@/lib/domain/uuid";
 
 const password = z.string().min(1, "Re-enter your password to sign.");
 
 export const signWorkAction = action(
-  { schema: z.object({ jobId: z.uuid(), meaning: z.enum(["performed", "inspected"]), password }) },
+  { schema: z.object({ jobId: zUuid(), meaning: z.enum(["performed", "inspected"]), password }) },
   async (input, actor) => {
     await signJobWork(actor, input);
     revalidatePath(`/jobs/${input.jobId}/report`);
@@ -18,7 +19,7 @@ export const signWorkAction = action(
 
 export const issueReportAction = action(
   {
-    schema: z.object({ jobId: z.uuid(), password, amendmentReason: z.string().max(2000).optional() }),
+    schema: z.object({ jobId: zUuid(), password, amendmentReason: z.string().max(2000).optional() }),
     roles: ["engineer"],
   },
   async (input, actor) => {
@@ -35,8 +36,8 @@ export const issueReportAction = action(
 export const respondAction = action(
   {
     schema: z.object({
-      jobId: z.uuid(),
-      reportId: z.uuid(),
+      jobId: zUuid(),
+      reportId: zUuid(),
       decision: z.enum(["accepted", "rejected"]),
       password,
       comment: z.string().max(4000).optional(),
