@@ -37,8 +37,13 @@ export default async function proxy(req: NextRequest) {
 }
 
 export const config = {
-  // Not the dataset upload: Next buffers (and cuts at 10 MB) any body the proxy sees; that route streams its own.
+  // Not the dataset upload nor the PDF check: Next buffers (and silently cuts at 10 MB) any body the
+  // proxy sees; those routes read their own bodies within their limits (413 past them), and
+  // lib/http's route() gives them the same security headers.
   matcher: [
-    { source: "/((?!_next/static|_next/image|favicon.ico|DejaVuSans.ttf|api/jobs/[^/]+/datasets$).*)" },
+    {
+      source:
+        "/((?!_next/static|_next/image|favicon.ico|DejaVuSans.ttf|api/jobs/[^/]+/datasets$|api/verify$).*)",
+    },
   ],
 };

@@ -74,10 +74,24 @@ export async function claimDueMessages(limit: number) {
   });
 }
 
+/**
+ * A one-time link's token (`token=` in a set-password or reset link) in a stored body. Once the
+ * message is sent the e-mail is the only copy: the token is replaced in the outbox, and the
+ * database keeps only its SHA-256 (user_tokens).
+ */
+const TOKEN_IN_LINK = "([?&]token=)[A-Za-z0-9_-]+";
+export const TOKEN_REMOVED = "(removed once sent)";
+
 export async function markSent(id: string): Promise<void> {
   await db
     .update(outbox)
-    .set({ status: "sent", sentAt: new Date(), lastError: null })
+    .set({
+      status: "sent",
+      sentAt: new Date(),
+      lastError: null,
+      textBody: sql`regexp_replace(${outbox.textBody}, ${TOKEN_IN_LINK}, ${`\\1${TOKEN_REMOVED}`}, 'g')`,
+      htmlBody: sql`regexp_replace(${outbox.htmlBody}, ${TOKEN_IN_LINK}, ${`\\1${TOKEN_REMOVED}`}, 'g')`,
+    })
     .where(eq(outbox.id, id));
 }
 

@@ -1,9 +1,13 @@
 import "server-only";
 import { and, eq, lt, sql } from "drizzle-orm";
 import { db } from "@/db";
-import { signInFailures } from "@/db/schema";
-import { limitDecision, type LimitDecision } from "@/lib/auth/throttle";
+import { appendAudit } from "@/db/queries/audit";
+import { signInFailures, users } from "@/db/schema";
+import { verifyPassword } from "@/lib/auth/password";
+import type { Actor } from "@/lib/domain/roles";
+import { limitDecision, waitText, type LimitDecision } from "@/lib/auth/throttle";
 import { env } from "@/lib/env";
+import { invalid, tooManyRequests } from "@/lib/errors";
 
 /**
  * Password guessing limits, kept in PostgreSQL so that every app instance sees the same counts.
@@ -62,4 +66,45 @@ export async function clearSignInFailures(email: string, address?: string): Prom
   await db
     .delete(signInFailures)
     .where(address === undefined ? byAccount : and(byAccount, eq(signInFailures.address, address)));
+}
+
+/** The "address" under which wrong passwords at signing are counted, beside the account's sign-in failures. */
+export const SIGNING_REENTRY_KEY = "password re-entry at signing";
+
+/**
+ * The password re-entry at signing (21 CFR 11.200: the signer proves it is them, now), counted by
+ * the sign-in limiter: wrong passwords are failures of the account, so a session cannot be used
+ * as an oracle for guessing its password. Past the limit signing is refused with 429 for the
+ * delay, and the refusal is written to the audit trail.
+ */
+export async function checkPasswordReentry(actor: Actor, password: string, jobId?: string): Promise<void> {
+  const limit = await signInLimit(actor.email, SIGNING_REENTRY_KEY);
+  if (limit.limited) {
+    await db.transaction(async (tx) => {
+      await appendAudit(tx, {
+        actorId: actor.id,
+        actorEmail: actor.email,
+        action: "signature.password_limited",
+        entityType: "user",
+        entityId: actor.id,
+        jobId: jobId ?? null,
+        newValues: { retryAfterS: limit.retryAfterS },
+      });
+    });
+    throw tooManyRequests(
+      `Too many wrong passwords. Signing is paused for ${waitText(limit.retryAfterS)}; this was recorded.`,
+    );
+  }
+  const [row] = await db
+    .select({ hash: users.passwordHash })
+    .from(users)
+    .where(eq(users.id, actor.id))
+    .limit(1);
+  if (!password || !(await verifyPassword(password, row?.hash))) {
+    await recordSignInFailure(actor.email, SIGNING_REENTRY_KEY);
+    throw invalid("Re-enter your password to sign.", [
+      { field: "password", message: "The password does not match your account." },
+    ]);
+  }
+  await clearSignInFailures(actor.email, SIGNING_REENTRY_KEY);
 }

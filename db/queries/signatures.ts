@@ -1,4 +1,5 @@
 import "server-only";
+import { checkPasswordReentry } from "@/db/queries/sign-in";
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
@@ -22,16 +23,7 @@ import { sha256Hex, signManifest, type SignatureManifest } from "@/lib/report/si
 
 /** Re-entry of the password at signing (21 CFR 11.200): the signer proves it is them, now. */
 export async function requirePasswordReentry(actor: Actor, password: string): Promise<void> {
-  const [row] = await db
-    .select({ hash: users.passwordHash })
-    .from(users)
-    .where(eq(users.id, actor.id))
-    .limit(1);
-  if (!password || !(await verifyPassword(password, row?.hash))) {
-    throw invalid("Re-enter your password to sign.", [
-      { field: "password", message: "The password does not match your account." },
-    ]);
-  }
+  await checkPasswordReentry(actor, password);
 }
 
 export async function visibleJob(actor: Actor, jobId: string): Promise<JobDetail> {

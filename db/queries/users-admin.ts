@@ -5,16 +5,22 @@ import { z } from "zod";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { enqueueMail } from "@/db/queries/outbox";
-import { customers, userTokens, users } from "@/db/schema";
+import { emailKey } from "@/db/queries/sign-in";
+import { customers, signInFailures, userTokens, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import type { Actor } from "@/lib/domain/roles";
 import { invitationMessage } from "@/lib/mail/messages";
 import { publicUrl } from "@/lib/env";
 import { registerEditRefusal } from "@/lib/policy/registers";
 import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
+import { accountRecoveryRefusal } from "@/lib/policy/account-recovery";
 import type { userInviteSchema, userUpdateSchema } from "@/lib/validations/registers";
 
 export const INVITE_TTL_MS = 72 * 3600_000;
+/** A reset link works for one hour, once. */
+export const RESET_TTL_MS = 3600_000;
+/** At most this many reset e-mails per account per hour, however often the form is sent. */
+export const RESET_MAX_PER_HOUR = 3;
 
 /** Only a SHA-256 of a token is stored; the token itself exists only in the e-mail. */
 export function tokenHash(token: string): string {
@@ -114,12 +120,18 @@ export async function setPasswordWithToken(token: string, password: string) {
         "token_invalid",
         "This link has expired or has already been used. Ask the administrator for a new invitation.",
       );
-    await tx.update(userTokens).set({ usedAt: new Date() }).where(eq(userTokens.id, t.id));
+    // This token and every other open link of the account are used up together.
+    await tx
+      .update(userTokens)
+      .set({ usedAt: new Date() })
+      .where(and(eq(userTokens.userId, t.userId), isNull(userTokens.usedAt)));
     await tx
       .update(users)
       .set({ passwordHash, sessionsValidAfter: new Date() })
       .where(eq(users.id, t.userId));
     const [u] = await tx.select({ email: users.email }).from(users).where(eq(users.id, t.userId));
+    // A new password also lifts any sign-in delay on the account.
+    if (u) await tx.delete(signInFailures).where(eq(signInFailures.emailKey, emailKey(u.email)));
     await appendAudit(tx, {
       actorId: t.userId,
       actorEmail: u?.email ?? null,
@@ -178,4 +190,111 @@ export async function listActiveInstallers() {
     .from(users)
     .where(and(eq(users.role, "installer"), eq(users.disabled, false)))
     .orderBy(asc(users.name));
+}
+
+type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
+/**
+ * Makes a one-hour reset token for `user` and queues its e-mail in `tx`. Only the token's
+ * SHA-256 is stored; the outbox body holds the link until it is sent (db/queries/outbox markSent).
+ */
+async function queueResetLink(tx: Tx, user: { id: string; email: string; name: string }, why: string) {
+  const token = randomBytes(32).toString("base64url");
+  const hash = tokenHash(token);
+  await tx.insert(userTokens).values({
+    userId: user.id,
+    purpose: "reset",
+    tokenHash: hash,
+    expiresAt: new Date(Date.now() + RESET_TTL_MS),
+  });
+  await enqueueMail(tx, {
+    dedupeKey: `reset:${user.id}:${hash.slice(0, 16)}`,
+    to: user.email,
+    subject: "Reset your Trammel password",
+    text: `Hello ${user.name},\n\n${why}\nChoose a new password here within one hour (the link works once):\n${publicUrl}/set-password?token=${token}\n\nIf you did not ask for this, ignore this e-mail; your password stays as it is.\n`,
+  });
+  return token;
+}
+
+/**
+ * "Forgot password": anyone may ask, by e-mail address. The answer is the same whether or not the
+ * address has an account (no enumeration); an active account gets a reset link, at most
+ * RESET_MAX_PER_HOUR an hour. Returns the token to tests only.
+ */
+export async function requestPasswordReset(email: string): Promise<{ token: string | null }> {
+  const [u] = await db
+    .select({ id: users.id, email: users.email, name: users.name, disabled: users.disabled })
+    .from(users)
+    .where(sql`lower(${users.email}) = ${emailKey(email)}`);
+  if (!u || u.disabled) return { token: null };
+  const [recent] = await db
+    .select({ n: sql<number>`count(*)`.mapWith(Number) })
+    .from(userTokens)
+    .where(
+      and(
+        eq(userTokens.userId, u.id),
+        eq(userTokens.purpose, "reset"),
+        gt(userTokens.createdAt, new Date(Date.now() - 3600_000)),
+      ),
+    );
+  if ((recent?.n ?? 0) >= RESET_MAX_PER_HOUR) return { token: null };
+  return db.transaction(async (tx) => {
+    const token = await queueResetLink(tx, u, "Someone (we hope you) asked to reset your password.");
+    await appendAudit(tx, {
+      actorId: null,
+      actorEmail: null,
+      action: "user.password_reset_requested",
+      entityType: "user",
+      entityId: u.id,
+    });
+    return { token };
+  });
+}
+
+async function recoverable(actor: Actor, userId: string) {
+  const refusal = accountRecoveryRefusal(actor, { userId });
+  if (refusal) throw forbidden(refusal);
+  const [u] = await db
+    .select({ id: users.id, email: users.email, name: users.name, disabled: users.disabled })
+    .from(users)
+    .where(eq(users.id, userId));
+  if (!u) throw notFound("user");
+  return u;
+}
+
+/** The administrator sends a person a reset link (audited). */
+export async function sendResetLink(actor: Actor, userId: string): Promise<{ token: string }> {
+  const u = await recoverable(actor, userId);
+  if (u.disabled) throw invalid("This account is disabled; enable it before sending a reset link.");
+  return db.transaction(async (tx) => {
+    const token = await queueResetLink(tx, u, `${actor.name} sent you a link to choose a new password.`);
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: "user.password_reset_sent",
+      entityType: "user",
+      entityId: u.id,
+    });
+    return { token };
+  });
+}
+
+/** The administrator lifts the sign-in delay on a person's account, from every address (audited). */
+export async function clearSignInDelay(actor: Actor, userId: string): Promise<{ cleared: number }> {
+  const u = await recoverable(actor, userId);
+  return db.transaction(async (tx) => {
+    const gone = await tx
+      .delete(signInFailures)
+      .where(eq(signInFailures.emailKey, emailKey(u.email)))
+      .returning({ id: signInFailures.id });
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: "user.sign_in_delay_cleared",
+      entityType: "user",
+      entityId: u.id,
+      oldValues: { failures: gone.length },
+    });
+    return { cleared: gone.length };
+  });
 }

@@ -6,6 +6,7 @@
  * probe learns nothing from the shape of its guess.
  */
 import { notFound as pageNotFound } from "next/navigation";
+import { z } from "zod";
 import { notFound } from "@/lib/errors";
 
 /** RFC 9562 text form: 8-4-4-4-12 hexadecimal digits, either case, nothing before or after. */
@@ -25,4 +26,9 @@ export function uuidOr404(value: unknown, what = "record"): string {
 export function pageUuid(value: unknown): string {
   if (!isUuid(value)) pageNotFound();
   return value;
+}
+
+/** The same check for zod schemas (form fields and JSON bodies that carry ids). */
+export function zUuid(message = "Not a valid id.") {
+  return z.string().refine(isUuid, { message });
 }

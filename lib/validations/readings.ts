@@ -1,6 +1,7 @@
 /** Input of a checklist reading, shared by the API, the server action and the tablet form. */
 import { z } from "zod";
 import { PHASES } from "@/lib/domain/datasets";
+import { zUuid } from "@/lib/domain/uuid";
 
 export const ENTRY_UNITS = ["mm", "in", "um", "arcsec"] as const;
 
@@ -16,7 +17,7 @@ const optionalNumber = z.preprocess(
 );
 
 export const readingCreateSchema = z.object({
-  stepId: z.uuid({ message: "Choose a checklist step." }),
+  stepId: zUuid("Choose a checklist step."),
   phase: z.enum(PHASES, { message: "Say whether this is before or after the adjustment." }),
   value: z.preprocess(
     (v) => (typeof v === "string" ? v.trim().replace(",", ".") : v),
@@ -28,23 +29,23 @@ export const readingCreateSchema = z.object({
   /** angle_over_distance steps: the travel the reading was taken over, in the travelUnit. */
   travel: optionalNumber,
   travelUnit: z.enum(["mm", "in"]).optional(),
-  instrumentId: z.uuid({ message: "Choose the instrument used from the register." }),
+  instrumentId: zUuid("Choose the instrument used from the register."),
   note: optionalText(2000),
   takenAt: z.preprocess(
     (v) => (v === "" ? undefined : v),
     z.coerce.date({ message: "The time of the reading is not a date." }).optional(),
   ),
   /** A correction: the reading this one replaces (it is kept, marked superseded). */
-  supersedesId: z.preprocess((v) => (v === "" ? undefined : v), z.uuid().optional()),
+  supersedesId: z.preprocess((v) => (v === "" ? undefined : v), zUuid().optional()),
   /**
    * A correction made on the tablet of a reading that was itself still waiting to send: the
    * replaced reading named by its clientId (the queue sends in order, so it is stored first).
    */
-  supersedesClientId: z.preprocess((v) => (v === "" ? undefined : v), z.uuid().optional()),
+  supersedesClientId: z.preprocess((v) => (v === "" ? undefined : v), zUuid().optional()),
   /** The id the device made when the reading was typed; sending it again returns the stored reading. */
   clientId: z.preprocess(
     (v) => (v === "" ? undefined : v),
-    z.uuid({ message: "clientId must be a UUID made on the device." }).optional(),
+    zUuid("clientId must be a UUID made on the device.").optional(),
   ),
   /** The device's clock when the reading was entered (orders readings of one step from several devices). */
   deviceTime: z.preprocess(

@@ -2,6 +2,7 @@
 import { z } from "zod";
 import { AXIS_LETTERS } from "@/lib/domain/heads";
 import { ROLES } from "@/lib/domain/roles";
+import { zUuid } from "@/lib/domain/uuid";
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use a date like 2027-03-31.");
 
@@ -35,7 +36,7 @@ export const userInviteSchema = z
     email: z.email({ message: "Enter an e-mail address." }).max(254),
     name: z.string().trim().min(2, "Enter the person's name.").max(120),
     role: z.enum(ROLES),
-    customerId: z.preprocess((v) => (v === "" ? undefined : v), z.uuid().optional()),
+    customerId: z.preprocess((v) => (v === "" ? undefined : v), zUuid().optional()),
   })
   .refine((v) => (v.role === "customer") === Boolean(v.customerId), {
     path: ["customerId"],
@@ -43,7 +44,7 @@ export const userInviteSchema = z
   });
 
 export const userUpdateSchema = z.object({
-  userId: z.uuid(),
+  userId: zUuid(),
   role: z.enum(ROLES).optional(),
   disabled: z.preprocess((v) => (v === "true" ? true : v === "false" ? false : v), z.boolean().optional()),
 });
@@ -65,12 +66,12 @@ export const customerCreateSchema = z.object({
     .optional(),
 });
 export const siteCreateSchema = z.object({
-  customerId: z.uuid({ message: "Choose a customer." }),
+  customerId: zUuid("Choose a customer."),
   name: z.string().trim().min(1, "Name the site.").max(200),
   address: optional(400),
 });
 export const machineCreateSchema = z.object({
-  siteId: z.uuid({ message: "Choose a site." }),
+  siteId: zUuid("Choose a site."),
   name: z.string().trim().min(1, "Name the machine.").max(200),
   kind: z.string().trim().min(2, "Say what kind of machine it is.").max(100),
   builder: optional(200),

@@ -30,6 +30,8 @@ const report = await import("@/app/(app)/jobs/[id]/report/actions");
 const analysis = await import("@/app/(app)/jobs/[id]/analysis/actions");
 const registers = await import("@/app/(app)/registers/actions");
 const setPassword = await import("@/app/(auth)/set-password/actions");
+const people = await import("@/app/(app)/registers/people/actions");
+const forgotPassword = await import("@/app/(auth)/forgot-password/actions");
 
 type Who =
   | "anonymous"
@@ -290,6 +292,28 @@ MATRIX.setPasswordAction = {
       password: "a long enough new password",
       confirm: "a long enough new password",
     }),
+};
+
+// ---- account recovery: only the administrator clears a sign-in delay or sends a reset link.
+async function engineerId(): Promise<string> {
+  const [u] = await db
+    .select({ id: users.id })
+    .from(users)
+    .where(eq(users.email, "engineer@halvard.example"));
+  return u!.id;
+}
+MATRIX.clearSignInDelayAction = {
+  expect: staffOnly(["admin"]),
+  call: async () => people.clearSignInDelayAction({ userId: await engineerId() }),
+};
+MATRIX.sendResetLinkAction = {
+  expect: staffOnly(["admin"]),
+  call: async () => people.sendResetLinkAction({ userId: await engineerId() }),
+};
+// ---- forgot password: anonymous by design, the same answer for every address.
+MATRIX.requestPasswordResetAction = {
+  expect: Object.fromEntries((Object.keys(EMAIL) as Who[]).map((w) => [w, "pass"])) as Record<Who, Outcome>,
+  call: async () => forgotPassword.requestPasswordResetAction({ email: "nobody@halvard.example" }),
 };
 
 describe("server action access matrix", () => {

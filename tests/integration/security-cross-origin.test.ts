@@ -92,6 +92,15 @@ function call(
   return w.handler(req, { params: Promise.resolve(params) });
 }
 
+/** The route's params with every id replaced by a UUID of no record. */
+const noRecord = (w: (typeof WRITES)[number]) =>
+  Object.fromEntries(
+    Object.entries(w.params()).map(([k, v]) => [
+      k,
+      k === "nextauth" ? v : "00000000-0000-4000-8000-000000000000",
+    ]),
+  );
+
 beforeAll(async () => {
   ids.job = await jobIdByReference("TR-2026-0052");
   const [row] = (
@@ -132,7 +141,9 @@ describe("cross-origin writes are refused with 403", () => {
       ] as const) {
         it(`${label} → 403 forbidden`, async () => {
           await signInAs("admin@halvard.example");
-          const res = await call(w, headers);
+          // Ids of no record: a refused request must not reach the handler, and a broken check
+          // would show as a 404 here, never as a change to data other files rely on.
+          const res = await call(w, headers, noRecord(w));
           expect(res.status).toBe(403);
           expect((await res.json()).error).toMatchObject({ code: "forbidden" });
         });
@@ -141,9 +152,12 @@ describe("cross-origin writes are refused with 403", () => {
       it("the app's own origin gets past the check (whatever the handler then says, not that 403)", async () => {
         await signInAs("admin@halvard.example");
         // next-auth's own handler needs Next's request scope, absent here: reaching it (and throwing) is past the check.
-        const res = await call(w, { origin: "http://app.test", "sec-fetch-site": "same-origin" }).catch(
-          () => null,
-        );
+        // Ids of no record, so that nothing the other test files rely on is changed.
+        const res = await call(
+          w,
+          { origin: "http://app.test", "sec-fetch-site": "same-origin" },
+          noRecord(w),
+        ).catch(() => null);
         if (!res) return expect(w.file).toContain("nextauth");
         const body = res.headers.get("content-type")?.includes("json") ? await res.json() : {};
         expect(body?.error?.message ?? "").not.toMatch(/another (site|origin)/);

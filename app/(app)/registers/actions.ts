@@ -25,6 +25,7 @@ import {
   userInviteSchema,
   userUpdateSchema,
 } from "@/lib/validations/registers";
+import { zUuid } from "@/lib/domain/uuid";
 
 export const createInstrumentAction = action(
   { schema: instrumentCreateSchema, refusal: (a) => registerEditRefusal(a, "instruments") },
@@ -61,7 +62,7 @@ const limit = z.preprocess(
 
 /** Form fields step.<position>.<field>; lengths in `unit` (mm or in), angles in arcsec. */
 const templateVersionSchema = z
-  .object({ templateId: z.uuid(), unit: z.enum(["mm", "in"]) })
+  .object({ templateId: zUuid(), unit: z.enum(["mm", "in"]) })
   .catchall(z.unknown());
 
 const LIMIT_SOURCES = ["standard", "maker_manual", "common_practice", "customer_spec"] as const;
@@ -139,12 +140,12 @@ export const createTemplateVersionAction = action(
 );
 
 const jobCreateSchema = z.object({
-  templateId: z.uuid({ message: "Choose a procedure." }),
-  machineId: z.uuid({ message: "Choose a host machine." }),
-  headId: z.uuid({ message: "Choose a head." }),
+  templateId: zUuid("Choose a procedure."),
+  machineId: zUuid("Choose a host machine."),
+  headId: zUuid("Choose a head."),
   kind: z.enum(JOB_KINDS),
   title: z.string().trim().min(3, "Give the job a title.").max(200),
-  assignedInstallerId: z.preprocess((v) => (v === "" ? undefined : v), z.uuid().optional()),
+  assignedInstallerId: z.preprocess((v) => (v === "" ? undefined : v), zUuid().optional()),
   decisionRule: z.enum(DECISION_RULES),
 });
 
@@ -160,8 +161,8 @@ export const createJobAction = action(
 export const mountHeadAction = action(
   {
     schema: z.object({
-      headId: z.uuid(),
-      machineId: z.preprocess((v) => (v === "" ? null : v), z.uuid().nullable()),
+      headId: zUuid(),
+      machineId: z.preprocess((v) => (v === "" ? null : v), zUuid().nullable()),
     }),
     refusal: (a) => registerEditRefusal(a, "heads"),
   },

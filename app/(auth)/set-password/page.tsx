@@ -22,7 +22,9 @@ export default async function SetPasswordPage({ searchParams }: Props) {
         {token ? (
           <SetPasswordForm token={token} signInHref={signInHref} />
         ) : (
-          <p className="text-sm text-graphite-700">This page needs the link from your invitation e-mail.</p>
+          <p className="text-sm text-graphite-700">
+            This page needs the link from your invitation or password reset e-mail.
+          </p>
         )}
       </div>
     </main>

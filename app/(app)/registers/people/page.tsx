@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { AccountRecoveryButtons } from "@/components/registers/account-recovery-buttons";
 import { InviteForm, PersonControls } from "@/components/registers/people-forms";
 import { Card } from "@/components/ui/card";
 import { Table } from "@/components/ui/table";
@@ -49,6 +50,7 @@ export default async function PeoplePage() {
               ),
             { wide: true },
           ),
+          column("Sign-in help", (p) => <AccountRecoveryButtons userId={p.id} disabled={p.disabled} />),
         ]}
       />
       <Card title="Invite someone">

@@ -5,13 +5,14 @@ import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
 import { action } from "@/lib/actions";
+import { zUuid } from "@/lib/domain/uuid";
 
 /** Runs (or finds the stored) head fit of a sphere-probe dataset; the role and tenant checks are in runHeadFit. */
 export const runFitAction = action(
   {
     schema: z.object({
-      jobId: z.uuid({ error: "jobId must be a job id" }),
-      datasetId: z.uuid({ error: "datasetId must be a dataset id" }),
+      jobId: zUuid("jobId must be a job id"),
+      datasetId: zUuid("datasetId must be a dataset id"),
     }),
   },
   async ({ jobId, datasetId }, actor) => {
@@ -25,8 +26,8 @@ export const runFitAction = action(
 export const approveFitAction = action(
   {
     schema: z.object({
-      jobId: z.uuid({ error: "jobId must be a job id" }),
-      analysisId: z.uuid({ error: "analysisId must be an analysis id" }),
+      jobId: zUuid("jobId must be a job id"),
+      analysisId: zUuid("analysisId must be an analysis id"),
     }),
     refusal: fitApproverRefusal,
   },

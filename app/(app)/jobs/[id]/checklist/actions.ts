@@ -10,9 +10,10 @@ import { users } from "@/db/schema";
 import { action } from "@/lib/actions";
 import { JOB_STATUSES } from "@/lib/domain/jobs";
 import { readingCreateSchema } from "@/lib/validations/readings";
+import { zUuid } from "@/lib/domain/uuid";
 
 export const recordReadingAction = action(
-  { schema: readingCreateSchema.extend({ jobId: z.uuid() }) },
+  { schema: readingCreateSchema.extend({ jobId: zUuid() }) },
   async ({ jobId, ...input }, actor) => {
     const reading = await recordReading(actor, jobId, input);
     revalidatePath(`/jobs/${jobId}`, "layout");
@@ -21,7 +22,7 @@ export const recordReadingAction = action(
 );
 
 export const changeStatusAction = action(
-  { schema: z.object({ jobId: z.uuid(), to: z.enum(JOB_STATUSES) }) },
+  { schema: z.object({ jobId: zUuid(), to: z.enum(JOB_STATUSES) }) },
   async ({ jobId, to }, actor) => {
     const r = await changeJobStatus(actor, jobId, to);
     revalidatePath(`/jobs/${jobId}`, "layout");

@@ -7,11 +7,12 @@ import { issueReport, respondToReport } from "@/db/queries/reports";
 import { recordDeviation } from "@/db/queries/readiness";
 import { signJobWork } from "@/db/queries/signatures";
 import { action } from "@/lib/actions";
+import { zUuid } from "@/lib/domain/uuid";
 
 const password = z.string().min(1, "Re-enter your password to sign.");
 
 export const signWorkAction = action(
-  { schema: z.object({ jobId: z.uuid(), meaning: z.enum(["performed", "inspected"]), password }) },
+  { schema: z.object({ jobId: zUuid(), meaning: z.enum(["performed", "inspected"]), password }) },
   async (input, actor) => {
     await signJobWork(actor, input);
     revalidatePath(`/jobs/${input.jobId}/report`);
@@ -21,7 +22,7 @@ export const signWorkAction = action(
 
 export const issueReportAction = action(
   {
-    schema: z.object({ jobId: z.uuid(), password, amendmentReason: z.string().max(2000).optional() }),
+    schema: z.object({ jobId: zUuid(), password, amendmentReason: z.string().max(2000).optional() }),
     refusal: reportIssuerRefusal,
   },
   async (input, actor) => {
@@ -38,8 +39,8 @@ export const issueReportAction = action(
 export const respondAction = action(
   {
     schema: z.object({
-      jobId: z.uuid(),
-      reportId: z.uuid(),
+      jobId: zUuid(),
+      reportId: zUuid(),
       decision: z.enum(["accepted", "rejected"]),
       password,
       comment: z.string().max(4000).optional(),
@@ -61,7 +62,7 @@ export const respondAction = action(
 export const recordDeviationAction = action(
   {
     schema: z.object({
-      jobId: z.uuid(),
+      jobId: zUuid(),
       subject: z.string().min(1).max(200),
       justification: z.string().max(4000),
     }),

@@ -14,6 +14,7 @@ import { forbidden, invalid, notFound } from "@/lib/errors";
 import { viewSaveRefusal } from "@/lib/policy/analyses";
 import { route } from "@/lib/http";
 import { readMultipart } from "@/lib/storage/multipart";
+import { zUuid } from "@/lib/domain/uuid";
 
 export const runtime = "nodejs";
 type Ctx = { params: Promise<{ id: string }> };
@@ -27,7 +28,7 @@ const fieldsSchema = z.object({
     .string()
     .optional()
     .transform((v) => (v ? v : null))
-    .pipe(z.uuid({ error: "overlayAnalysisId must be an analysis id" }).nullable()),
+    .pipe(zUuid("overlayAnalysisId must be an analysis id").nullable()),
   caption: z
     .string()
     .max(VIEW_CAPTION_MAX, { error: `caption is longer than ${VIEW_CAPTION_MAX} characters` })
