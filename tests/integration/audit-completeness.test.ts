@@ -213,9 +213,11 @@ describe("a whole job's changes are in the audit trail", () => {
   });
 
   it("a correction names the value it replaced, and a deletion the state it ended", async () => {
-    const old = (await db.select().from(readings).where(eq(readings.jobId, jobId))).filter(
-      (r) => r.supersededById,
-    );
+    // The explicit correction (note "misread"); a later reading of the same step and phase also
+    // supersedes the current one, so pick the reading this correction replaced.
+    const all = await db.select().from(readings).where(eq(readings.jobId, jobId));
+    const correction = all.find((r) => r.note === "misread");
+    const old = all.filter((r) => correction && r.supersededById === correction.id);
     expect(old).toHaveLength(1);
     const [fix] = await db
       .select()

@@ -1,3 +1,4 @@
+import { pageUuid } from "@/lib/domain/uuid";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { VerificationResultView } from "@/components/report/verification-result";
@@ -9,7 +10,7 @@ type Props = { params: Promise<{ id: string }> };
 
 /** The page the report's QR code opens: what the service signed for this id. */
 export default async function VerifyIdPage({ params }: Props) {
-  const { id } = await params;
+  const id = pageUuid((await params).id);
   const result = await verifyReport(id);
   return (
     <>
