@@ -1,7 +1,7 @@
 "use client";
 
 import { useMemo, useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { EntryForm, type EntryValues, type PanelInstrument } from "@/components/checklist/entry-form";
 import {
   ReadingsTable,
@@ -103,12 +103,10 @@ export function StepPanel({
       takenAt: localNow(),
     },
   });
-  const [value, travel, instrumentId, takenAtText] = form.watch([
-    "value",
-    "travel",
-    "instrumentId",
-    "takenAt",
-  ]);
+  const [value, travel, instrumentId, takenAtText] = useWatch({
+    control: form.control,
+    name: ["value", "travel", "instrumentId", "takenAt"],
+  });
   const takenAt = parseLocal(takenAtText);
   const instrument = choosable.find((i) => i.id === instrumentId);
 

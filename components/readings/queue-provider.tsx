@@ -107,14 +107,21 @@ export function ReadingQueueProvider({
   }, [jobId, userId, flush]);
 
   useEffect(() => {
-    void reload().then(() => flush());
+    // Read what this tablet kept (the state is set in the read's callback), then try to send it.
+    let live = true;
+    void listQueued(jobId, userId)
+      .then((kept) => {
+        if (live) setItems(kept);
+      })
+      .then(() => (live ? flush() : undefined));
     const online = () => void sendNow();
     window.addEventListener("online", online);
     return () => {
+      live = false;
       window.removeEventListener("online", online);
       if (timer.current) clearTimeout(timer.current);
     };
-  }, [reload, flush, sendNow]);
+  }, [jobId, userId, flush, sendNow]);
 
   const enqueue = useCallback<QueueApi["enqueue"]>(
     async (item) => {
