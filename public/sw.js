@@ -34,6 +34,11 @@ async function keep(cacheName, request, response) {
 async function networkFirst(request) {
   try {
     const res = await fetch(request);
+    // Signed out (the server sent the sign-in page): nothing of the last person's jobs stays here.
+    if (res.redirected && new URL(res.url).pathname === "/login") {
+      await caches.delete(PAGES);
+      return res;
+    }
     if (res.status >= 500) {
       const kept = await caches.match(request, { ignoreVary: true });
       if (kept) return kept;

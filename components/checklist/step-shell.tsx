@@ -99,6 +99,9 @@ export function StepShell({ line, children }: { line: StepLine; children: React.
           onClick={() => setOpen(isOpen ? null : line.position)}
           className="flex min-h-touch w-full flex-wrap items-center gap-x-3 gap-y-1 px-4 py-3 text-left"
         >
+          <span aria-hidden="true" className="text-graphite-500">
+            {isOpen ? "▲" : "▼"}
+          </span>
           <span className="num text-sm text-graphite-500">Step {line.position}</span>
           <span className="min-w-0 flex-1 basis-64 text-base font-semibold">{line.title}</span>
           {line.value ? <span className="num font-semibold">{line.value}</span> : null}
@@ -110,9 +113,6 @@ export function StepShell({ line, children }: { line: StepLine; children: React.
             </span>
           ) : null}
           <Waiting stepId={line.stepId} />
-          <span aria-hidden="true" className="text-graphite-500">
-            {isOpen ? "▲" : "▼"}
-          </span>
         </button>
       </h3>
       <div id={`step-body-${line.position}`} hidden={!isOpen} className="border-t border-graphite-100">
