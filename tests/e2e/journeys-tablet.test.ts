@@ -371,6 +371,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     await fitsTheTablet(p, "checklist");
     // Large targets for a gloved hand beside the machine.
     const step5 = p.getByTestId("step-5");
+    await step5.getByRole("button", { name: /^Step 5/ }).click();
     await step5.scrollIntoViewIfNeeded();
     expect(
       (await step5.getByRole("button", { name: "Save reading" }).boundingBox())!.height,
