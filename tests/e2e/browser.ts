@@ -6,7 +6,7 @@ import AxeBuilder from "@axe-core/playwright";
 import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import { chromium, type BrowserContext, type Page } from "playwright-core";
+import { chromium, type BrowserContext, type Locator, type Page } from "playwright-core";
 import { expect } from "vitest";
 import { CHROMIUM_ARGS } from "./chromium-args";
 
@@ -147,4 +147,18 @@ export async function followReportMail(
   await signIn(p, email);
   await p.waitForURL(/\/report$/);
   return p;
+}
+
+/**
+ * Chooses a visually hidden radio or checkbox whose label is drawn as a tile. Forcing the check
+ * skips Playwright's visibility wait, so first wait until the streamed page has revealed it: a
+ * section behind a loading skeleton arrives in a hidden container that React swaps in shortly
+ * after the load event.
+ */
+export async function choose(scope: Page | Locator, label: string | RegExp): Promise<void> {
+  const input = scope.getByLabel(label);
+  await expect
+    .poll(() => input.evaluate((el) => el.closest("[hidden]") === null), { timeout: 15_000 })
+    .toBe(true);
+  await input.check({ force: true });
 }

@@ -5,7 +5,7 @@
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
-import { newContext, screenshotPath, signIn } from "./browser";
+import { newContext, screenshotPath, signIn, choose } from "./browser";
 
 let ctx: BrowserContext;
 let page: Page;
@@ -42,7 +42,7 @@ describe("inspector: test-part data to a judged table", () => {
   });
 
   it("a bad file shows its row errors in the browser and cannot be sent", async () => {
-    await page.getByLabel("Test-part measurements").check({ force: true });
+    await choose(page, "Test-part measurements");
     await page
       .getByLabel("CSV file")
       .setInputFiles({ name: "part-with-typos.csv", mimeType: "text/csv", buffer: BAD });
@@ -135,8 +135,8 @@ describe("column mapping chosen by hand", () => {
   it("unmatched columns are listed, matched by hand, and the file is stored unchanged", async () => {
     const csv = Buffer.from("rot,tilt,X,Y,Z\n0,0,812.5,1460.25,-305\n90,45,812.501,1460.249,-305.002\n");
     await page.goto(page.url().replace(/\/data\/[0-9a-f-]{36}$/, "/data"));
-    await page.getByLabel("Sphere probing").check({ force: true });
-    await page.getByLabel("inch").check({ force: true });
+    await choose(page, "Sphere probing");
+    await choose(page, "inch");
     await page.getByLabel("CSV file").setInputFiles({ name: "probe.csv", mimeType: "text/csv", buffer: csv });
     const errors = page.getByTestId("row-errors");
     await errors.waitFor();

@@ -29,6 +29,7 @@ import {
   signIn,
   TABLET,
   waitForPicture,
+  choose,
 } from "./browser";
 
 let ctx: BrowserContext;
@@ -82,9 +83,9 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     await fitsTheTablet(p, "/jobs");
     await openSection(p, REF, "Data");
     await fitsTheTablet(p, "data page");
-    await p.getByLabel("Test-part measurements").check({ force: true });
+    await choose(p, "Test-part measurements");
     // TR-2026-0048 needed no adjustment: everything on it is measured as found, before adjustment.
-    await p.getByLabel("Before adjustment").check({ force: true });
+    await choose(p, "Before adjustment");
     await p.getByLabel("CSV file").setInputFiles({
       name: "tollan test part.csv",
       mimeType: "text/csv",
