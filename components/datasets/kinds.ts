@@ -52,6 +52,8 @@ export const PRESENTATION: Record<DatasetKindKey, Readonly<Record<string, Presen
     travel: { label: "Travel", aliases: ["position", "pos", "distance", "x", "z"] },
     reading: { label: "Reading", aliases: ["indicator", "dial", "value", "tir"] },
     note: { label: "Note", aliases: ["comment", "remark"] },
+    plane: { label: "Plane (XZ or YZ)", aliases: ["tramplane"] },
+    bar_deg: { label: "Bar angle (°)", aliases: ["bar", "barangle", "bardeg"] },
   },
   sweep: {
     angle_deg: { label: "Angle (°)", aliases: ["angle", "deg", "theta", "position"] },

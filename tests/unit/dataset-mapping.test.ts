@@ -50,7 +50,7 @@ describe("guessMapping", () => {
   it("never maps one file column to two of ours; an exact name wins over another column's alias", () => {
     // "x" is tram's alias for travel, but here a column is literally named travel.
     const m = guessMapping("tram", ["x", "travel", "reading"]);
-    expect(m).toEqual({ travel: 1, reading: 2, note: -1 });
+    expect(m).toEqual({ travel: 1, reading: 2, note: -1, plane: -1, bar_deg: -1 });
     const values = Object.values(guessMapping("sphere_probe", ["a", "b", "c"])).filter((i) => i >= 0);
     expect(new Set(values).size).toBe(values.length);
   });
