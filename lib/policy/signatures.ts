@@ -2,6 +2,7 @@
 import type { JobStatus } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
 import type { SignatureMeaningKey } from "@/lib/domain/signatures";
+import { fitApprovalRefusal } from "@/lib/policy/analyses";
 
 export interface SignatureSubject {
   readonly meaning: SignatureMeaningKey;
@@ -10,7 +11,8 @@ export interface SignatureSubject {
 
 /**
  * May this actor give this signature on this job now? Performed: the assigned installer;
- * inspected: an inspector; both while the work is under way or in review. Approved (which issues
+ * inspected: an inspector; both while the work is under way or in review. Parameters approved:
+ * an engineer, on a job in review (lib/policy/analyses.fitApprovalRefusal). Approved (which issues
  * the report): an engineer, on an approved job. Accepted or rejected: a user of the job's own
  * company, on an issued job. Returns the reason when not.
  */
@@ -28,6 +30,8 @@ export function signatureRefusal(actor: Actor, { meaning, job }: SignatureSubjec
       return working
         ? null
         : "The job can be signed as inspected while it is measuring, in review or approved.";
+    case "parameters_approved":
+      return fitApprovalRefusal(actor, job);
     case "approved":
       if (actor.role !== "engineer") return "Only an application engineer approves and issues the report.";
       return job.status === "approved"

@@ -256,7 +256,7 @@ MATRIX.approveFitAction = {
     const { analysis: a } = await runHeadFit(engineer, ((await up.json()) as { id: string }).id);
     await db.update(jobs).set({ status: "in_review" }).where(eq(jobs.id, jobId));
     await signInAs(EMAIL[who]);
-    return analysis.approveFitAction({ jobId, analysisId: a.id });
+    return analysis.approveFitAction({ jobId, analysisId: a.id, password: PW });
   },
 };
 

@@ -196,7 +196,7 @@ describe("issue is refused while any blocker stands", () => {
   });
 
   it("deviations are the engineer's, need a justification, and clear the FAIL; then the report issues", async () => {
-    await approveAnalysis(as.engineer!, analysisId);
+    await approveAnalysis(as.engineer!, analysisId, PW);
     const view = await getReadinessView(as.engineer!, jobId);
     const step = view!.nonConforming.find((r) => r.subject === `step:${step1}`)!;
     expect(step.decision).toBe("fail");

@@ -88,7 +88,7 @@ beforeAll(async () => {
   await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
   await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
   await changeJobStatus(as.installer!, jobId, "in_review");
-  await approveAnalysis(as.engineer!, analysis.id);
+  await approveAnalysis(as.engineer!, analysis.id, PW);
   await carryOpenResults(as.engineer!, jobId, "Within the machine builder's acceptance for this demo head.");
   await saveAnalysisView(as.engineer!, analysis.id, {
     png: viewPng,
