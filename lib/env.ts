@@ -38,6 +38,14 @@ const schema = z.object({
   TRAMMEL_ALLOW_SEED: z.enum(["0", "1"]).optional(),
   /** Where the report-signing key pair lives: outside the database, never in git. */
   REPORT_KEY_DIR: z.string().min(1).default(".data/keys"),
+  /**
+   * Segregation of duties: "1" lets the person who signed a job's work as performed also approve
+   * its parameters or issue its report. Off by default (lib/policy/signatures.sameSignerRefusal).
+   */
+  ALLOW_SAME_SIGNER: z
+    .enum(["0", "1", "false", "true"])
+    .default("0")
+    .transform((v) => v === "1" || v === "true"),
   /** The address printed on reports and in e-mails (verify links). */
   PUBLIC_URL: z.string().url().optional(),
   /** Where uploaded originals are kept: S3-compatible storage (s3rver locally) or the PostgreSQL fallback. */

@@ -6,7 +6,13 @@ import { appendAudit } from "@/db/queries/audit";
 import { getDataset, getDatasetColumns } from "@/db/queries/datasets";
 import { getJobDetail, jobAccessCondition } from "@/db/queries/jobs";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
-import { jobStateSha256, manifestFor, requirePasswordReentry, visibleJob } from "@/db/queries/signatures";
+import {
+  jobStateSha256,
+  manifestFor,
+  refuseSameSigner,
+  requirePasswordReentry,
+  visibleJob,
+} from "@/db/queries/signatures";
 import {
   analyses,
   auditEvents,
@@ -436,6 +442,7 @@ export async function approveAnalysis(actor: Actor, analysisId: string, password
   const status = a.job.status;
   const refusal = fitApprovalRefusal(actor, { status });
   if (refusal) throw new AppError(409, "not_in_review", refusal);
+  await refuseSameSigner(actor, a.job.id, "parameters_approved");
   await requirePasswordReentry(actor, password);
   const job = (await visibleJob(actor, a.job.id)).job;
   const fit = a.analysis.result.fit;

@@ -13,6 +13,7 @@ import {
   jobStateSha256,
   manifestFor,
   preIssueSignatures,
+  refuseSameSigner,
   requirePasswordReentry,
   visibleJob,
 } from "@/db/queries/signatures";
@@ -183,6 +184,7 @@ export async function issueReport(
     const refusal = signatureRefusal(actor, { meaning: "approved", job: d.job });
     if (refusal) throw forbidden(refusal);
   }
+  await refuseSameSigner(actor, d.job.id, "approved");
   await requirePasswordReentry(actor, input.password);
   const ready = readiness(await readinessInput(actor, d));
   if (!ready.ready) throw new NotReadyError(ready.blockers);

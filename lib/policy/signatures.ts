@@ -44,3 +44,31 @@ export function signatureRefusal(actor: Actor, { meaning, job }: SignatureSubjec
       return job.status === "issued" ? null : "Only an issued report can be accepted or rejected.";
   }
 }
+
+/**
+ * Segregation of duties: the person who signed the work as performed may not also approve its
+ * parameters or approve and issue its report, and the reverse, unless the company allows it
+ * (ALLOW_SAME_SIGNER in lib/env.ts, off by default). `given`: the job's signatures so far.
+ */
+export const CONFLICTING_MEANINGS: Partial<Record<SignatureMeaningKey, readonly SignatureMeaningKey[]>> = {
+  performed: ["parameters_approved", "approved"],
+  parameters_approved: ["performed"],
+  approved: ["performed"],
+};
+
+export function sameSignerRefusal(
+  actor: Pick<Actor, "id">,
+  subject: {
+    meaning: SignatureMeaningKey;
+    given: ReadonlyArray<{ meaning: SignatureMeaningKey; signerId: string }>;
+    allowSameSigner: boolean;
+  },
+): string | null {
+  if (subject.allowSameSigner) return null;
+  const conflicts = CONFLICTING_MEANINGS[subject.meaning] ?? [];
+  const clash = subject.given.find((s) => s.signerId === actor.id && conflicts.includes(s.meaning));
+  if (!clash) return null;
+  return clash.meaning === "performed"
+    ? "You signed this work as performed; another person approves it (the company does not allow one person to sign both)."
+    : "You approved this job; another person signs the work as performed (the company does not allow one person to sign both).";
+}

@@ -132,7 +132,8 @@ beforeAll(async () => {
 
 // ---- job work ----
 MATRIX.recordReadingAction = {
-  expect: onMarlowJob(["admin", "installer"]),
+  // The assigned installer or an engineer; never the office (segregation of duties, ISO/IEC 17025:2017 §7.5.1).
+  expect: onMarlowJob(["installer", "engineer"]),
   call: async () =>
     checklist.recordReadingAction({
       jobId: await freshJob("measuring"),
