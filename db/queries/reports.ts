@@ -33,13 +33,14 @@ import { publicUrl } from "@/lib/env";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 import { JOB_KIND_LABELS } from "@/lib/domain/jobs";
 import { formatDateTimeUtc } from "@/lib/format";
-import { amendRefusal } from "@/lib/policy/reports";
+import { amendRefusal, provisionalConformityRefusal } from "@/lib/policy/reports";
 import {
   buildReportContent,
   figureOf,
   instrumentRows,
   parameterSection,
   readingSection,
+  reportConformity,
   signatureLine,
   testPartRows,
 } from "@/lib/report/build";
@@ -73,11 +74,11 @@ async function jobInstruments(jobId: string) {
 }
 
 /** The latest test-part dataset (after adjustment preferred), judged under the job's decision rule. */
-async function jobTestPart(actor: Actor, jobId: string): Promise<ReportData["testPart"]> {
+async function jobTestPart(actor: Actor, jobId: string, rule: string): Promise<ReportData["testPart"]> {
   const pick = countingTestPart((await listDatasets(actor, jobId)) ?? []);
   if (!pick) return [];
   const ev = await getTestPartEvaluation(actor, pick.id);
-  return ev?.evaluation ? testPartRows(ev.evaluation.rows) : [];
+  return ev?.evaluation ? testPartRows(ev.evaluation.rows, rule) : [];
 }
 
 /** The fit the engineer approved with the procedure's limits, shaped for the report. */
@@ -122,7 +123,7 @@ export async function buildReportData(
           .where(eq(procedureTemplates.id, d.job.templateId))
       : Promise.resolve([]),
     jobInstruments(d.job.id),
-    jobTestPart(actor, d.job.id),
+    jobTestPart(actor, d.job.id, d.job.decisionRule),
     listDeviations(d.job.id),
   ]);
   // The latest picture of the 3D view saved for the approved fit (the job's access was checked above).
@@ -152,6 +153,45 @@ export async function buildReportData(
     verifyUrl: `${publicUrl}/verify/${meta.reportId}`,
   });
   return { data, images };
+}
+
+/**
+ * The job's statement of conformity for its overview page, computed by the report's own function
+ * (lib/report/build.reportConformity) over the same rows: the issued revision's statement once a
+ * report is issued, otherwise the record as it stands (provisional). Null when the job is not
+ * visible, or when the statement is provisional and the actor may not see it (customers see the
+ * issued statement only: lib/policy/reports.provisionalConformityRefusal).
+ */
+export async function getJobConformity(
+  actor: Actor,
+  jobId: string,
+): Promise<{ conformity: NonNullable<ReportData["conformity"]>; issuedRevision: number | null } | null> {
+  const d = await getJobDetail(actor, jobId);
+  if (!d) return null;
+  const current = await currentReportRow(d.job.id);
+  if (current) {
+    const content = await getReportContent(actor, current.id);
+    return content?.conformity ? { conformity: content.conformity, issuedRevision: current.revision } : null;
+  }
+  if (provisionalConformityRefusal(actor)) return null;
+  const [params, comparison, testPart, carried] = await Promise.all([
+    approvedParameters(actor, d),
+    getComparison(actor, d.job.id),
+    jobTestPart(actor, d.job.id, d.job.decisionRule),
+    listDeviations(d.job.id),
+  ]);
+  return {
+    conformity: reportConformity(
+      {
+        readings: readingSection(comparison?.rows ?? []),
+        parameters: params?.section ?? null,
+        testPart,
+        deviations: carried,
+      },
+      d.job.decisionRule,
+    ),
+    issuedRevision: null,
+  };
 }
 
 export interface IssueOptions {

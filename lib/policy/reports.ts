@@ -56,3 +56,13 @@ export function reportResponderRefusal(actor: Actor): string | null {
     ? null
     : "Only the customer's own users accept or reject the report.";
 }
+
+/**
+ * The statement of conformity before issue is provisional (the record may still change): staff
+ * see it on the job's page; a customer sees the statement of the issued report only.
+ */
+export function provisionalConformityRefusal(actor: Pick<Actor, "role">): string | null {
+  return actor.role === "customer"
+    ? "The statement of conformity is shown to the customer once the report is issued."
+    : null;
+}

@@ -122,9 +122,13 @@ const DECISION_COLOUR: Record<Decision, string> = {
   recorded: C.none,
 };
 
-function DecisionCell({ d, width }: { d: Decision; width: string }) {
+/** The decision, and under it the rule and limit source it was judged by (ISO/IEC 17025:2017 §7.8.6.1). */
+function DecisionCell({ d, width, basis }: { d: Decision; width: string; basis?: string | undefined }) {
   return (
-    <Text style={[s.td, { width, color: DECISION_COLOUR[d], fontWeight: 700 }]}>{DECISION_TEXT[d]}</Text>
+    <View style={[s.td, { width }]}>
+      <Text style={{ color: DECISION_COLOUR[d], fontWeight: 700 }}>{DECISION_TEXT[d]}</Text>
+      {basis ? <Text style={{ color: C.muted, fontSize: 6.5 }}>{basis}</Text> : null}
+    </View>
   );
 }
 
@@ -143,7 +147,14 @@ function Facts({ rows }: { rows: Array<[string, string | undefined]> }) {
   );
 }
 
-type Col<T> = { header: string; width: string; cell: (r: T) => string; numeric?: boolean };
+type Col<T> = {
+  header: string;
+  width: string;
+  cell: (r: T) => string;
+  numeric?: boolean;
+  /** Renders the cell itself (e.g. a decision with its basis) instead of the text of `cell`. */
+  node?: (r: T, width: string) => React.ReactElement;
+};
 
 function Table<T>({ rows, cols, empty }: { rows: readonly T[]; cols: readonly Col<T>[]; empty: string }) {
   if (rows.length === 0) return <Text style={{ color: C.muted }}>{empty}</Text>;
@@ -158,11 +169,17 @@ function Table<T>({ rows, cols, empty }: { rows: readonly T[]; cols: readonly Co
       </View>
       {rows.map((r, i) => (
         <View key={i} style={s.tr} wrap={false}>
-          {cols.map((c) => (
-            <Text key={c.header} style={[s.td, { width: c.width }, c.numeric ? s.num : {}]}>
-              {c.cell(r)}
-            </Text>
-          ))}
+          {cols.map((c) =>
+            c.node ? (
+              <View key={c.header} style={{ width: c.width }}>
+                {c.node(r, "100%")}
+              </View>
+            ) : (
+              <Text key={c.header} style={[s.td, { width: c.width }, c.numeric ? s.num : {}]}>
+                {c.cell(r)}
+              </Text>
+            ),
+          )}
         </View>
       ))}
     </View>
@@ -400,7 +417,12 @@ export function ReportDocument({
               { header: "Before", width: "13%", cell: (r) => r.pre ?? "—", numeric: true },
               { header: "After", width: "13%", cell: (r) => r.post ?? "—", numeric: true },
               { header: "Change", width: "12%", cell: (r) => r.change ?? "—", numeric: true },
-              { header: "Result", width: "15%", cell: (r) => DECISION_TEXT[r.decision] },
+              {
+                header: "Result",
+                width: "15%",
+                cell: (r) => DECISION_TEXT[r.decision],
+                node: (r, w) => <DecisionCell d={r.decision} width={w} basis={r.basis} />,
+              },
             ]}
           />
 
@@ -436,7 +458,7 @@ export function ReportDocument({
                 </Text>
                 <Text style={[s.td, s.num, { width: "12%" }]}>{p.tolerance ?? "—"}</Text>
                 <Text style={[s.td, { width: "11%" }]}>{p.identifiable}</Text>
-                <DecisionCell d={p.decision} width="13%" />
+                <DecisionCell d={p.decision} width="13%" basis={p.basis} />
               </View>
             ))}
           </View>
@@ -456,7 +478,12 @@ export function ReportDocument({
               { header: "Deviation", width: "10%", cell: (r) => r.deviation, numeric: true },
               { header: "Limits", width: "19%", cell: (r) => r.limits, numeric: true },
               { header: "U", width: "8%", cell: (r) => r.expanded, numeric: true },
-              { header: "Result", width: "13%", cell: (r) => DECISION_TEXT[r.decision] },
+              {
+                header: "Result",
+                width: "13%",
+                cell: (r) => DECISION_TEXT[r.decision],
+                node: (r, w) => <DecisionCell d={r.decision} width={w} basis={r.basis} />,
+              },
             ]}
           />
 
