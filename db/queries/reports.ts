@@ -33,7 +33,7 @@ import { publicUrl } from "@/lib/env";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 import { JOB_KIND_LABELS } from "@/lib/domain/jobs";
 import { formatDateTimeUtc } from "@/lib/format";
-import { amendRefusal, provisionalConformityRefusal } from "@/lib/policy/reports";
+import { amendRefusal, draftPreviewRefusal, provisionalConformityRefusal } from "@/lib/policy/reports";
 import {
   buildReportContent,
   figureOf,
@@ -107,7 +107,8 @@ export async function buildReportData(
     reportId: string;
     revision: number;
     issuedAt: Date;
-    approval: ReportSignature;
+    approval?: ReportSignature;
+    draft?: boolean;
     amendment?: ReportData["amendment"];
   },
 ): Promise<{ data: ReportData; images: Map<string, Buffer> }> {
@@ -192,6 +193,30 @@ export async function getJobConformity(
     ),
     issuedRevision: null,
   };
+}
+
+/**
+ * The draft preview of the job's report: the PDF as it would be issued now, watermarked DRAFT,
+ * with no signature and no verification block, rendered on request and never stored (so nothing
+ * is audited: it changes no record). Null when the job is not visible; 403 for a customer
+ * (lib/policy/reports.draftPreviewRefusal).
+ */
+export async function renderDraftReport(
+  actor: Actor,
+  jobId: string,
+): Promise<{ pdf: Buffer; reference: string } | null> {
+  const d = await getJobDetail(actor, jobId);
+  if (!d) return null;
+  const refusal = draftPreviewRefusal(actor);
+  if (refusal) throw forbidden(refusal);
+  const current = await currentReportRow(d.job.id);
+  const { data, images } = await buildReportData(actor, d, {
+    reportId: "draft (no report id until issue)",
+    revision: (current?.revision ?? 0) + 1,
+    issuedAt: new Date(),
+    draft: true,
+  });
+  return { pdf: await renderReportPdf(data, undefined, images), reference: d.job.reference };
 }
 
 export interface IssueOptions {

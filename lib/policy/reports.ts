@@ -66,3 +66,11 @@ export function provisionalConformityRefusal(actor: Pick<Actor, "role">): string
     ? "The statement of conformity is shown to the customer once the report is issued."
     : null;
 }
+
+/**
+ * The draft preview (the PDF as it would be issued now, watermarked DRAFT, unsigned) is the
+ * service company's working copy: staff see it, customers never (they receive the issued report).
+ */
+export function draftPreviewRefusal(actor: Pick<Actor, "role">): string | null {
+  return actor.role === "customer" ? "The draft of a report is for the service company's staff." : null;
+}

@@ -390,7 +390,9 @@ export interface ReportInputs {
     reportId: string;
     revision: number;
     issuedAt: Date;
-    approval: ReportSignature;
+    /** The approval that issues the report; absent in a draft preview (`draft`), which has no signature. */
+    approval?: ReportSignature;
+    draft?: boolean;
     amendment?: ReportData["amendment"];
   };
   d: JobInput;
@@ -412,11 +414,12 @@ export function buildReportContent(i: ReportInputs): ReportData {
   const { d, meta } = i;
   const decisionRule = decisionRuleText(d.job.decisionRule);
   const data: Omit<ReportData, "contentSha256"> = {
+    ...(meta.draft ? { draft: true } : {}),
     reportId: meta.reportId,
     reference: d.job.reference,
     revision: meta.revision,
     ...(meta.amendment ? { amendment: meta.amendment } : {}),
-    issuedAtUtc: formatDateTimeUtc(meta.issuedAt),
+    issuedAtUtc: meta.draft ? null : formatDateTimeUtc(meta.issuedAt),
     issuer: { name: "Halvard Field Service" },
     customer: {
       name: d.customer.name,
@@ -465,7 +468,7 @@ export function buildReportContent(i: ReportInputs): ReportData {
     deviations: deviationRows(i.deviations),
     remarks: [...(i.parameters ? [i.parameters.note] : []), ...(d.job.notes ? [d.job.notes] : [])],
     safety: [...SAFETY_NOTES],
-    signatures: [...i.signatures, meta.approval],
+    signatures: meta.draft || !meta.approval ? [] : [...i.signatures, meta.approval],
     verifyUrl: i.verifyUrl,
   };
   return { ...data, contentSha256: sha256Hex(canonicalJson(data)) };

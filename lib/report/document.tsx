@@ -296,6 +296,23 @@ export function ReportDocument({
       producer="Trammel"
     >
       <Page size="A4" style={s.page}>
+        {data.draft ? (
+          <Text
+            fixed
+            style={{
+              position: "absolute",
+              top: 360,
+              left: 70,
+              fontSize: 120,
+              fontWeight: 700,
+              color: C.muted,
+              opacity: 0.18,
+              transform: "rotate(-35deg)",
+            }}
+          >
+            DRAFT
+          </Text>
+        ) : null}
         <View style={s.footerRule} fixed />
         <Text style={[s.footerText, { left: 40, right: 200 }]} fixed>
           {data.reference} · {rev} · {data.reportId}
@@ -321,7 +338,11 @@ export function ReportDocument({
               <Text style={[s.mono, { fontSize: 9, fontWeight: 700 }]}>{data.reference}</Text>
               <Text style={s.subtitle}>
                 {rev}
-                {data.issuedAtUtc ? ` · issued ${data.issuedAtUtc}` : " · not issued"}
+                {data.draft
+                  ? " · DRAFT, not issued"
+                  : data.issuedAtUtc
+                    ? ` · issued ${data.issuedAtUtc}`
+                    : " · not issued"}
               </Text>
               <Text style={[s.mono, { fontSize: 6.5, color: C.muted }]}>{data.reportId}</Text>
             </View>
@@ -516,40 +537,57 @@ export function ReportDocument({
             </View>
           </View>
 
-          <View wrap={false}>
-            <Text style={s.h2} minPresenceAhead={40}>
-              10 Signatures
-            </Text>
-            <View style={{ flexDirection: "row", flexWrap: "wrap", justifyContent: "space-between" }}>
-              {data.signatures.length === 0 ? <Text style={{ color: C.muted }}>Not signed yet.</Text> : null}
-              {data.signatures.map((g, i) => (
-                <View key={i} style={s.sigBox}>
-                  <Text style={{ fontWeight: 700 }}>{g.meaning}</Text>
+          {data.draft ? (
+            <View wrap={false} style={s.note}>
+              <Text style={{ fontWeight: 700 }}>DRAFT: not signed, not issued, not valid as a report</Text>
+              <Text>
+                This preview shows the record as it stands. The report is signed and given its identity and
+                verification code only when an application engineer approves and issues it.
+              </Text>
+            </View>
+          ) : (
+            <>
+              <View wrap={false}>
+                <Text style={s.h2} minPresenceAhead={40}>
+                  10 Signatures
+                </Text>
+                <View style={{ flexDirection: "row", flexWrap: "wrap", justifyContent: "space-between" }}>
+                  {data.signatures.length === 0 ? (
+                    <Text style={{ color: C.muted }}>Not signed yet.</Text>
+                  ) : null}
+                  {data.signatures.map((g, i) => (
+                    <View key={i} style={s.sigBox}>
+                      <Text style={{ fontWeight: 700 }}>{g.meaning}</Text>
+                      <Text>
+                        {g.name} — {g.role}
+                      </Text>
+                      <Text style={s.mono}>{g.signedAtUtc}</Text>
+                      <Text style={{ color: C.muted, fontSize: 7 }}>
+                        Signed electronically; the signer re-entered their password at signing.
+                      </Text>
+                    </View>
+                  ))}
+                </View>
+              </View>
+
+              <View
+                wrap={false}
+                style={{ flexDirection: "row", gap: 10, marginTop: 10, alignItems: "center" }}
+              >
+                <Image src={qrDataUrl} style={{ width: 72, height: 72 }} />
+                <View style={{ flex: 1 }}>
+                  <Text style={{ fontWeight: 700 }}>Verify this report</Text>
                   <Text>
-                    {g.name} — {g.role}
+                    Scan the code or open {data.verifyUrl} and upload this file: the check compares its
+                    SHA-256 with the signed record.
                   </Text>
-                  <Text style={s.mono}>{g.signedAtUtc}</Text>
-                  <Text style={{ color: C.muted, fontSize: 7 }}>
-                    Signed electronically; the signer re-entered their password at signing.
+                  <Text style={[s.mono, { fontSize: 7, color: C.muted }]}>
+                    content SHA-256 {data.contentSha256}
                   </Text>
                 </View>
-              ))}
-            </View>
-          </View>
-
-          <View wrap={false} style={{ flexDirection: "row", gap: 10, marginTop: 10, alignItems: "center" }}>
-            <Image src={qrDataUrl} style={{ width: 72, height: 72 }} />
-            <View style={{ flex: 1 }}>
-              <Text style={{ fontWeight: 700 }}>Verify this report</Text>
-              <Text>
-                Scan the code or open {data.verifyUrl} and upload this file: the check compares its SHA-256
-                with the signed record.
-              </Text>
-              <Text style={[s.mono, { fontSize: 7, color: C.muted }]}>
-                content SHA-256 {data.contentSha256}
-              </Text>
-            </View>
-          </View>
+              </View>
+            </>
+          )}
           <Text style={s.end}>END OF REPORT</Text>
         </View>
       </Page>

@@ -18,6 +18,8 @@ export interface ReportSignature {
 }
 
 export interface ReportData {
+  /** A draft preview: printed with a DRAFT watermark, no signatures and no verification block; never stored. */
+  draft?: boolean;
   reportId: string;
   reference: string;
   revision: number;

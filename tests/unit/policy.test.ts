@@ -14,7 +14,13 @@ import {
 import { navigationFor } from "@/lib/policy/navigation";
 import { readingsRefusal } from "@/lib/policy/readings";
 import { REGISTERS, registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
-import { amendRefusal, reportIssuerRefusal, reportResponderRefusal } from "@/lib/policy/reports";
+import {
+  amendRefusal,
+  draftPreviewRefusal,
+  provisionalConformityRefusal,
+  reportIssuerRefusal,
+  reportResponderRefusal,
+} from "@/lib/policy/reports";
 import { sameSignerRefusal, signatureRefusal } from "@/lib/policy/signatures";
 
 const actor = (role: Actor["role"], customerId: string | null = null): Actor => ({
@@ -196,6 +202,17 @@ describe("parameters approved, and one person not signing both performed and an 
     expect(
       sameSignerRefusal(actor("inspector"), { meaning: "inspected", given, allowSameSigner: false }),
     ).toBeNull();
+  });
+});
+
+describe("report drafts and the provisional statement of conformity", () => {
+  it("staff preview the draft and see the provisional statement; customers never", () => {
+    for (const r of ["admin", "installer", "inspector", "engineer"] as const) {
+      expect(draftPreviewRefusal(actor(r))).toBeNull();
+      expect(provisionalConformityRefusal(actor(r))).toBeNull();
+    }
+    expect(draftPreviewRefusal(actor("customer", "cA"))).toMatch(/staff/);
+    expect(provisionalConformityRefusal(actor("customer", "cA"))).toMatch(/once the report is issued/);
   });
 });
 
