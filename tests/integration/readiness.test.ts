@@ -25,8 +25,8 @@ import { AppError } from "@/lib/errors";
 import type { BlockerCode } from "@/lib/report/readiness";
 import type { ReportData } from "@/lib/report/types";
 import { upload } from "./dataset-helpers";
-import { jobIdByReference, signInAs } from "./helpers";
-import { carryOpenResults, measureEveryStep } from "./ready-job";
+import { signInAs } from "./helpers";
+import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
 const PW = "trammel-demo";
 const as: Record<string, Actor> = {};
@@ -66,16 +66,7 @@ async function refusedCodes(jobId: string): Promise<BlockerCode[]> {
 beforeAll(async () => {
   for (const e of ["installer", "inspector", "engineer", "admin"])
     as[e] = (await getActor((await signInAs(`${e}@halvard.example`))!))!;
-  const [t] = await db
-    .select()
-    .from(jobs)
-    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
-  base = {
-    customerId: t!.customerId,
-    machineId: t!.machineId,
-    headId: t!.headId,
-    templateId: t!.templateId!,
-  };
+  base = await jobBaseOf("TR-2026-0052");
 });
 
 describe("issue is refused while any blocker stands", () => {

@@ -8,6 +8,7 @@ import { getReadinessView, recordDeviation } from "@/db/queries/readiness";
 import { recordReading } from "@/db/queries/readings";
 import { instruments, jobs, readings, templateSteps } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
+import { jobIdByReference } from "./helpers";
 
 /** Records a conforming reading (the middle of the step's limits) for every step of the job's procedure. */
 export async function measureEveryStep(installer: Actor, jobId: string, phase: "pre" | "post" = "pre") {
@@ -50,4 +51,18 @@ export async function carryOpenResults(engineer: Actor, jobId: string, justifica
   const open = view!.nonConforming.filter((r) => !r.deviation);
   for (const r of open) await recordDeviation(engineer, { jobId, subject: r.subject, justification });
   return open;
+}
+
+/** The customer, machine, head and procedure of a seeded job, to create test jobs of one's own on. */
+export async function jobBaseOf(reference: string) {
+  const [t] = await db
+    .select()
+    .from(jobs)
+    .where(eq(jobs.id, await jobIdByReference(reference)));
+  return {
+    customerId: t!.customerId,
+    machineId: t!.machineId,
+    headId: t!.headId,
+    templateId: t!.templateId!,
+  };
 }

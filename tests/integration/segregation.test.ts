@@ -19,7 +19,8 @@ import type { Actor } from "@/lib/domain/roles";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
 import { upload } from "./dataset-helpers";
-import { jobIdByReference, signInAs } from "./helpers";
+import { signInAs } from "./helpers";
+import { jobBaseOf } from "./ready-job";
 
 const PW = "trammel-demo";
 const as: Record<string, Actor> = {};
@@ -51,16 +52,7 @@ const refusal = (p: Promise<unknown>) =>
 beforeAll(async () => {
   for (const e of ["installer", "inspector", "engineer", "admin"])
     as[e] = (await getActor((await signInAs(`${e}@halvard.example`))!))!;
-  const [t] = await db
-    .select()
-    .from(jobs)
-    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
-  base = {
-    customerId: t!.customerId,
-    machineId: t!.machineId,
-    headId: t!.headId,
-    templateId: t!.templateId!,
-  };
+  base = await jobBaseOf("TR-2026-0052");
   const [step] = await db
     .select()
     .from(templateSteps)
