@@ -51,7 +51,7 @@ export async function seedReports(password: string): Promise<void> {
     .where(and(eq(datasets.jobId, job.id), eq(datasets.kind, "sphere_probe"), eq(datasets.status, "stored")));
   if (probe) {
     const { analysis } = await runHeadFit(engineer, probe.id);
-    await approveAnalysis(engineer, analysis.id);
+    await approveAnalysis(engineer, analysis.id, password);
   } else {
     await db.update(jobs).set({ status: "approved" }).where(eq(jobs.id, job.id));
   }

@@ -38,7 +38,15 @@ const schema = z.object({
   TRAMMEL_ALLOW_SEED: z.enum(["0", "1"]).optional(),
   /** Where the report-signing key pair lives: outside the database, never in git. */
   REPORT_KEY_DIR: z.string().min(1).default(".data/keys"),
-  /** The address printed on reports and in e-mails (verify links). */
+  /**
+   * Segregation of duties: "1" lets the person who signed a job's work as performed also approve
+   * its parameters or issue its report. Off by default (lib/policy/signatures.sameSignerRefusal).
+   */
+  ALLOW_SAME_SIGNER: z
+    .enum(["0", "1", "false", "true"])
+    .default("0")
+    .transform((v) => v === "1" || v === "true"),
+  /** The address printed on reports, in their QR codes and in e-mails (verify links); required in production. */
   PUBLIC_URL: z.string().url().optional(),
   /** Where uploaded originals are kept: S3-compatible storage (s3rver locally) or the PostgreSQL fallback. */
   STORAGE_DRIVER: z.enum(["s3", "postgres"]).default("postgres"),
@@ -81,6 +89,12 @@ function load(): Env {
   if (parsed.data.NODE_ENV === "production" && !parsed.data.NEXTAUTH_SECRET && !building) {
     throw new Error("Invalid environment:\n  NEXTAUTH_SECRET: required in production");
   }
+  // Every report prints this address and encodes it in its QR code: a guessed one would point nowhere.
+  if (parsed.data.NODE_ENV === "production" && !parsed.data.PUBLIC_URL && !building) {
+    throw new Error(
+      "Invalid environment:\n  PUBLIC_URL: required in production (the address printed on reports and in their QR codes)",
+    );
+  }
   return parsed.data;
 }
 
@@ -89,5 +103,5 @@ export const env: Env = load();
 /** The session-signing secret; a fixed development value outside production. */
 export const authSecret = env.NEXTAUTH_SECRET ?? "trammel-development-secret-not-for-production";
 
-/** Base URL for links that leave the app (PDF QR codes, e-mails). */
+/** Base URL for links that leave the app (PDF QR codes, e-mails): PUBLIC_URL (required in production). */
 export const publicUrl = (env.PUBLIC_URL ?? env.NEXTAUTH_URL ?? "http://localhost:3000").replace(/\/$/, "");

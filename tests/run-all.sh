@@ -53,6 +53,8 @@ DATABASE_URL=$(bash db/pg.sh url trammel_test) npx vitest run --project unit --p
 
 step "build and serve the app for browser tests"
 export DATABASE_URL=$(bash db/pg.sh url trammel_e2e)
+# The address printed on the seeded and issued reports (and required by next start in production).
+export PUBLIC_URL=http://127.0.0.1:$APP_PORT
 # Uploaded originals go to s3rver on loopback (its own port and folder, wiped, so a running demo is untouched).
 rm -rf .data/test-s3
 S3_PORT=$S3_PORT S3_DIR=.data/test-s3 setsid npx tsx lib/storage/dev-s3.ts >.data/test-s3.log 2>&1 &

@@ -52,8 +52,11 @@ export const PRESENTATION: Record<DatasetKindKey, Readonly<Record<string, Presen
     travel: { label: "Travel", aliases: ["position", "pos", "distance", "x", "z"] },
     reading: { label: "Reading", aliases: ["indicator", "dial", "value", "tir"] },
     note: { label: "Note", aliases: ["comment", "remark"] },
-    plane: { label: "Plane (XZ or YZ)", aliases: ["plane_name"] },
-    bar_deg: { label: "Test bar turned (0 or 180°)", aliases: ["bar", "bar_angle", "bar_rotation"] },
+    plane: { label: "Plane (XZ or YZ)", aliases: ["plane_name", "tramplane"] },
+    bar_deg: {
+      label: "Test bar turned (0 or 180°)",
+      aliases: ["bar", "bar_angle", "bar_rotation", "barangle", "bardeg"],
+    },
   },
   sweep: {
     angle_deg: { label: "Angle (°)", aliases: ["angle", "deg", "theta", "position"] },

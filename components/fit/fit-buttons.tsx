@@ -3,6 +3,7 @@
 import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import { ActionNotice, Button } from "@/components/ui/button";
+import { SignForm } from "@/components/report/sign-form";
 import { approveFitAction, runFitAction } from "@/app/(app)/jobs/[id]/analysis/actions";
 
 export function RunFitButton({
@@ -50,42 +51,81 @@ export function RunFitButton({
   );
 }
 
+/** A parameter the engineer is about to approve although it is FAIL or undecided, in words. */
+export interface NonConformingParameter {
+  key: string;
+  label: string;
+  decisionText: string;
+  valueText: string;
+  toleranceText: string | null;
+}
+
 export function ApproveButton({
   jobId,
   analysisId,
   refusal,
+  nonConforming,
 }: {
   jobId: string;
   analysisId: string;
   refusal: string | null;
+  nonConforming: readonly NonConformingParameter[];
 }) {
-  const router = useRouter();
-  const [pending, start] = useTransition();
-  const [error, setError] = useState<string | null>(null);
+  const [open, setOpen] = useState(false);
   return (
-    <div className="space-y-2">
+    <div className="space-y-3">
       <button
         type="button"
-        disabled={pending || refusal !== null}
+        disabled={refusal !== null || open}
         aria-describedby={refusal ? "approve-refusal" : undefined}
-        onClick={() =>
-          start(async () => {
-            setError(null);
-            const r = await approveFitAction({ jobId, analysisId });
-            if (!r.ok) setError(r.message);
-            else router.refresh();
-          })
-        }
+        aria-expanded={open}
+        onClick={() => setOpen(true)}
         className="min-h-touch rounded-md bg-graphite-900 px-5 font-semibold text-white hover:bg-graphite-800 disabled:cursor-not-allowed disabled:bg-graphite-300 disabled:text-graphite-700"
       >
-        {pending ? "Approving…" : "Approve these parameters"}
+        Approve these parameters
       </button>
       {refusal ? (
         <p id="approve-refusal" className="text-sm text-graphite-700">
           {refusal}
         </p>
       ) : null}
-      {error ? <ActionNotice ok={false}>{error}</ActionNotice> : null}
+      {open ? (
+        <SignForm
+          title="Sign: parameters approved"
+          meaning="You approve this fit as the head's parameter set for the job. The job moves to approved and no other fit can be run; the report is issued separately."
+          submitLabel="Sign the approval"
+          hidden={{ jobId, analysisId }}
+          run={approveFitAction}
+        >
+          {nonConforming.length > 0 ? (
+            <div
+              role="note"
+              aria-label="Results that do not conform"
+              className="rounded-card border border-fail-600/40 bg-fail-50 p-3 text-sm text-fail-700"
+            >
+              <p className="font-semibold">
+                {nonConforming.length === 1
+                  ? "One parameter does not conform:"
+                  : `${nonConforming.length} parameters do not conform:`}
+              </p>
+              <ul className="mt-1 list-disc pl-5">
+                {nonConforming.map((p) => (
+                  <li key={p.key}>
+                    {p.label}: {p.decisionText.toUpperCase()}, {p.valueText}
+                    {p.toleranceText ? ` against ${p.toleranceText}` : ""}
+                  </li>
+                ))}
+              </ul>
+              <p className="mt-1">
+                Approving does not make them conform: before the report is issued each is measured again or
+                carried as a deviation with a written justification.
+              </p>
+            </div>
+          ) : (
+            <p className="text-sm text-graphite-700">Every parameter with a limit is within it.</p>
+          )}
+        </SignForm>
+      ) : null}
     </div>
   );
 }

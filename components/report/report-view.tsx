@@ -1,4 +1,5 @@
 import { ScrollRegion } from "@/components/ui/scroll-region";
+import { ConformityStatement } from "@/components/report/conformity-statement";
 import { ReportFigures } from "@/components/report/report-charts";
 import type { Decision, ReportData } from "@/lib/report/types";
 
@@ -82,7 +83,13 @@ function Table({
 
 /** The report read online: the same content, in the same order, as the signed PDF. */
 export function ReportView({ data }: { data: ReportData }) {
-  const dec = (d: Decision) => <span className={`font-semibold ${DECISION[d].cls}`}>{DECISION[d].text}</span>;
+  // The decision, and under it the rule and limit source it was judged by (ISO/IEC 17025:2017 §7.8.6.1).
+  const dec = (d: Decision, basis?: string) => (
+    <>
+      <span className={`font-semibold ${DECISION[d].cls}`}>{DECISION[d].text}</span>
+      {basis ? <span className="block text-xs font-normal text-graphite-600">{basis}</span> : null}
+    </>
+  );
   return (
     <article
       className="space-y-6 rounded-card border border-graphite-200 bg-white p-6 shadow-sm"
@@ -107,16 +114,7 @@ export function ReportView({ data }: { data: ReportData }) {
           {data.amendment.reason}
         </p>
       ) : null}
-      {data.conformity ? (
-        <section
-          aria-label="Statement of conformity"
-          data-verdict={data.conformity.verdict}
-          className="rounded-card border-2 border-graphite-900 bg-white p-3 text-sm"
-        >
-          <p className="font-semibold">Statement of conformity</p>
-          <p>{data.conformity.text}</p>
-        </section>
-      ) : null}
+      {data.conformity ? <ConformityStatement conformity={data.conformity} /> : null}
       <Section n={1} title="Identification">
         <div className="grid gap-4 md:grid-cols-2">
           <Rows
@@ -180,7 +178,7 @@ export function ReportView({ data }: { data: ReportData }) {
               r.pre ?? "—",
               r.post ?? "—",
               r.change ?? "—",
-              dec(r.decision),
+              dec(r.decision, r.basis),
             ])}
           />
         ) : (
@@ -199,7 +197,7 @@ export function ReportView({ data }: { data: ReportData }) {
               p.expanded === "—" ? "—" : `± ${p.expanded}`,
               p.tolerance ?? "—",
               p.identifiable,
-              dec(p.decision),
+              dec(p.decision, p.basis),
             ])}
           />
         ) : (
@@ -219,7 +217,7 @@ export function ReportView({ data }: { data: ReportData }) {
               r.deviation,
               r.limits,
               r.expanded,
-              dec(r.decision),
+              dec(r.decision, r.basis),
             ])}
           />
         ) : (

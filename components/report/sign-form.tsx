@@ -18,6 +18,7 @@ export function SignForm({
   commentRequired,
   tone = "accent",
   run,
+  children,
 }: {
   title: string;
   meaning: string;
@@ -28,6 +29,8 @@ export function SignForm({
   commentRequired?: boolean;
   tone?: "accent" | "danger";
   run: (data: Record<string, string>) => Promise<ActionResult<unknown>>;
+  /** What the signer must see before signing (e.g. the results that do not conform). */
+  children?: React.ReactNode;
 }) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(null);
@@ -64,6 +67,7 @@ export function SignForm({
     >
       <p className="font-semibold">{title}</p>
       <p className="text-sm text-graphite-600">{meaning}</p>
+      {children}
       {withComment ? (
         <label className="block space-y-1">
           <span className="text-sm font-medium">{commentLabel}</span>

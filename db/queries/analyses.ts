@@ -5,7 +5,24 @@ import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { getDataset, getDatasetColumns } from "@/db/queries/datasets";
 import { getJobDetail, jobAccessCondition } from "@/db/queries/jobs";
-import { analyses, auditEvents, datasets, jobs, users, type Analysis, type Head } from "@/db/schema";
+import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
+import {
+  jobStateSha256,
+  manifestFor,
+  refuseSameSigner,
+  requirePasswordReentry,
+  visibleJob,
+} from "@/db/queries/signatures";
+import {
+  analyses,
+  auditEvents,
+  datasets,
+  jobs,
+  signatures,
+  users,
+  type Analysis,
+  type Head,
+} from "@/db/schema";
 import {
   fitHead,
   GEOMETRY_VERSION,
@@ -19,6 +36,9 @@ import {
 } from "@/geometry";
 import { canonicalJson } from "@/lib/canonical-json";
 import { nextVisitPlan, type NextVisitPlan } from "@/lib/pose-coverage";
+import { parameterRows } from "@/lib/fit-display";
+import { getSigningKey } from "@/lib/report/keys";
+import { signManifest } from "@/lib/report/signing";
 
 import { type Actor } from "@/lib/domain/roles";
 import {
@@ -405,11 +425,16 @@ export async function getApprovedAnalysis(actor: Actor, jobId: string) {
 }
 
 /**
- * An engineer approves a stored fit as the job's parameter set: the job moves in review →
- * approved (lib/policy/analyses.fitApprovalRefusal) and both the approval and the status change are audited
- * in one transaction. 404 when not visible; 403 for any other role; 409 when the job is not in review.
+ * An engineer approves a stored fit as the job's parameter set, and the approval is a signature
+ * (meaning "parameters approved", 21 CFR 11.50 and 11.200: the password is entered again). The
+ * job moves in review → approved (lib/policy/analyses.fitApprovalRefusal); the signature, the
+ * approval and the status change are written and audited in one transaction. The signature's
+ * manifest names the analysis (its input SHA-256 and computation version) and the parameters
+ * judged FAIL or undecided that the engineer confirmed. 404 when not visible; 403 for any other
+ * role (or when the same person signed the work as performed and the company does not allow
+ * it); 409 when the job is not in review; a wrong password is refused for its field.
  */
-export async function approveAnalysis(actor: Actor, analysisId: string) {
+export async function approveAnalysis(actor: Actor, analysisId: string, password: string) {
   const a = await getAnalysis(actor, analysisId);
   if (!a) throw notFound("analysis");
   const who = fitApproverRefusal(actor);
@@ -417,6 +442,30 @@ export async function approveAnalysis(actor: Actor, analysisId: string) {
   const status = a.job.status;
   const refusal = fitApprovalRefusal(actor, { status });
   if (refusal) throw new AppError(409, "not_in_review", refusal);
+  await refuseSameSigner(actor, a.job.id, "parameters_approved");
+  await requirePasswordReentry(actor, password);
+  const job = (await visibleJob(actor, a.job.id)).job;
+  const fit = a.analysis.result.fit;
+  const nonConforming = parameterRows(fit, await parameterLimitsOfTemplate(job.templateId))
+    .filter((p) => p.decision === "fail" || p.decision === "undecided")
+    .map((p) => ({ key: p.key, decision: p.decision }));
+  const signedAt = new Date();
+  const manifest = {
+    ...manifestFor(
+      actor,
+      "parameters_approved",
+      job,
+      { stateSha256: await jobStateSha256(job.id) },
+      signedAt,
+    ),
+    analysis: {
+      id: a.analysis.id,
+      inputSha256: a.analysis.inputSha256,
+      geometryVersion: a.analysis.geometryVersion,
+      nonConforming,
+    },
+  };
+  const signature = signManifest(manifest, getSigningKey());
   return db.transaction(async (tx) => {
     const [locked] = await tx
       .select({ status: jobs.status })
@@ -426,7 +475,34 @@ export async function approveAnalysis(actor: Actor, analysisId: string) {
     if (locked?.status !== status)
       throw new AppError(409, "conflict", "The job changed meanwhile; open it again.");
     await tx.update(jobs).set({ status: "approved", updatedAt: new Date() }).where(eq(jobs.id, a.job.id));
-    const fit = a.analysis.result.fit;
+    const [sig] = await tx
+      .insert(signatures)
+      .values({
+        jobId: job.id,
+        meaning: "parameters_approved",
+        signerId: actor.id,
+        signerName: actor.name,
+        signerRole: actor.role,
+        signedAt,
+        comment: null,
+        manifest,
+        signature,
+        keyId: manifest.keyId,
+      })
+      .returning({ id: signatures.id });
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: "signature.parameters_approved",
+      entityType: "signature",
+      entityId: sig!.id,
+      jobId: job.id,
+      newValues: {
+        meaning: "parameters_approved",
+        signedAtUtc: manifest.signedAtUtc,
+        analysisId: a.analysis.id,
+      },
+    });
     await appendAudit(tx, {
       actorId: actor.id,
       actorEmail: actor.email,
@@ -438,6 +514,8 @@ export async function approveAnalysis(actor: Actor, analysisId: string) {
         inputSha256: a.analysis.inputSha256,
         geometryVersion: a.analysis.geometryVersion,
         parameters: Object.fromEntries(fit.parameters.map((p) => [p.key, p.value])),
+        nonConforming,
+        signatureId: sig!.id,
       },
     });
     await appendAudit(tx, {
@@ -450,6 +528,6 @@ export async function approveAnalysis(actor: Actor, analysisId: string) {
       oldValues: { status },
       newValues: { status: "approved", analysisId: a.analysis.id },
     });
-    return { status: "approved" as const, analysisId: a.analysis.id };
+    return { status: "approved" as const, analysisId: a.analysis.id, signatureId: sig!.id };
   });
 }

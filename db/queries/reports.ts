@@ -13,6 +13,7 @@ import {
   jobStateSha256,
   manifestFor,
   preIssueSignatures,
+  refuseSameSigner,
   requirePasswordReentry,
   visibleJob,
 } from "@/db/queries/signatures";
@@ -32,13 +33,14 @@ import { publicUrl } from "@/lib/env";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 import { JOB_KIND_LABELS } from "@/lib/domain/jobs";
 import { formatDateTimeUtc } from "@/lib/format";
-import { amendRefusal } from "@/lib/policy/reports";
+import { amendRefusal, draftPreviewRefusal, provisionalConformityRefusal } from "@/lib/policy/reports";
 import {
   buildReportContent,
   figureOf,
   instrumentRows,
   parameterSection,
   readingSection,
+  reportConformity,
   signatureLine,
   testPartRows,
 } from "@/lib/report/build";
@@ -72,11 +74,11 @@ async function jobInstruments(jobId: string) {
 }
 
 /** The latest test-part dataset (after adjustment preferred), judged under the job's decision rule. */
-async function jobTestPart(actor: Actor, jobId: string): Promise<ReportData["testPart"]> {
+async function jobTestPart(actor: Actor, jobId: string, rule: string): Promise<ReportData["testPart"]> {
   const pick = countingTestPart((await listDatasets(actor, jobId)) ?? []);
   if (!pick) return [];
   const ev = await getTestPartEvaluation(actor, pick.id);
-  return ev?.evaluation ? testPartRows(ev.evaluation.rows) : [];
+  return ev?.evaluation ? testPartRows(ev.evaluation.rows, rule) : [];
 }
 
 /** The fit the engineer approved with the procedure's limits, shaped for the report. */
@@ -105,7 +107,8 @@ export async function buildReportData(
     reportId: string;
     revision: number;
     issuedAt: Date;
-    approval: ReportSignature;
+    approval?: ReportSignature;
+    draft?: boolean;
     amendment?: ReportData["amendment"];
   },
 ): Promise<{ data: ReportData; images: Map<string, Buffer> }> {
@@ -121,7 +124,7 @@ export async function buildReportData(
           .where(eq(procedureTemplates.id, d.job.templateId))
       : Promise.resolve([]),
     jobInstruments(d.job.id),
-    jobTestPart(actor, d.job.id),
+    jobTestPart(actor, d.job.id, d.job.decisionRule),
     listDeviations(d.job.id),
   ]);
   // The latest picture of the 3D view saved for the approved fit (the job's access was checked above).
@@ -151,6 +154,69 @@ export async function buildReportData(
     verifyUrl: `${publicUrl}/verify/${meta.reportId}`,
   });
   return { data, images };
+}
+
+/**
+ * The job's statement of conformity for its overview page, computed by the report's own function
+ * (lib/report/build.reportConformity) over the same rows: the issued revision's statement once a
+ * report is issued, otherwise the record as it stands (provisional). Null when the job is not
+ * visible, or when the statement is provisional and the actor may not see it (customers see the
+ * issued statement only: lib/policy/reports.provisionalConformityRefusal).
+ */
+export async function getJobConformity(
+  actor: Actor,
+  jobId: string,
+): Promise<{ conformity: NonNullable<ReportData["conformity"]>; issuedRevision: number | null } | null> {
+  const d = await getJobDetail(actor, jobId);
+  if (!d) return null;
+  const current = await currentReportRow(d.job.id);
+  if (current) {
+    const content = await getReportContent(actor, current.id);
+    return content?.conformity ? { conformity: content.conformity, issuedRevision: current.revision } : null;
+  }
+  if (provisionalConformityRefusal(actor)) return null;
+  const [params, comparison, testPart, carried] = await Promise.all([
+    approvedParameters(actor, d),
+    getComparison(actor, d.job.id),
+    jobTestPart(actor, d.job.id, d.job.decisionRule),
+    listDeviations(d.job.id),
+  ]);
+  return {
+    conformity: reportConformity(
+      {
+        readings: readingSection(comparison?.rows ?? []),
+        parameters: params?.section ?? null,
+        testPart,
+        deviations: carried,
+      },
+      d.job.decisionRule,
+    ),
+    issuedRevision: null,
+  };
+}
+
+/**
+ * The draft preview of the job's report: the PDF as it would be issued now, watermarked DRAFT,
+ * with no signature and no verification block, rendered on request and never stored (so nothing
+ * is audited: it changes no record). Null when the job is not visible; 403 for a customer
+ * (lib/policy/reports.draftPreviewRefusal).
+ */
+export async function renderDraftReport(
+  actor: Actor,
+  jobId: string,
+): Promise<{ pdf: Buffer; reference: string } | null> {
+  const d = await getJobDetail(actor, jobId);
+  if (!d) return null;
+  const refusal = draftPreviewRefusal(actor);
+  if (refusal) throw forbidden(refusal);
+  const current = await currentReportRow(d.job.id);
+  const { data, images } = await buildReportData(actor, d, {
+    reportId: "draft (no report id until issue)",
+    revision: (current?.revision ?? 0) + 1,
+    issuedAt: new Date(),
+    draft: true,
+  });
+  return { pdf: await renderReportPdf(data, undefined, images), reference: d.job.reference };
 }
 
 export interface IssueOptions {
@@ -183,6 +249,7 @@ export async function issueReport(
     const refusal = signatureRefusal(actor, { meaning: "approved", job: d.job });
     if (refusal) throw forbidden(refusal);
   }
+  await refuseSameSigner(actor, d.job.id, "approved");
   await requirePasswordReentry(actor, input.password);
   const ready = readiness(await readinessInput(actor, d));
   if (!ready.ready) throw new NotReadyError(ready.blockers);

@@ -7,7 +7,8 @@ import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
 import { datasets, readings, signatures } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
 import { SIGNATURE_LABELS, type SignatureMeaningKey } from "@/lib/domain/signatures";
-import { signatureRefusal } from "@/lib/policy/signatures";
+import { sameSignerRefusal, signatureRefusal } from "@/lib/policy/signatures";
+import { env } from "@/lib/env";
 import { canonicalJson } from "@/lib/canonical-json";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 import { getSigningKey } from "@/lib/report/keys";
@@ -80,6 +81,19 @@ export function manifestFor(
   };
 }
 
+/**
+ * Refuses (403) a signature the same person may not give because they gave a conflicting one on
+ * this job (performed against parameters approved or approved), unless ALLOW_SAME_SIGNER.
+ */
+export async function refuseSameSigner(actor: Actor, jobId: string, meaning: SignatureMeaningKey) {
+  const given = await db
+    .select({ meaning: signatures.meaning, signerId: signatures.signerId })
+    .from(signatures)
+    .where(eq(signatures.jobId, jobId));
+  const refusal = sameSignerRefusal(actor, { meaning, given, allowSameSigner: env.ALLOW_SAME_SIGNER });
+  if (refusal) throw forbidden(refusal);
+}
+
 /** Signs the job's work before issue: performed (assigned installer) or inspected (inspector). */
 export async function signJobWork(
   actor: Actor,
@@ -88,6 +102,7 @@ export async function signJobWork(
   const d = await visibleJob(actor, input.jobId);
   const refusal = signatureRefusal(actor, { meaning: input.meaning, job: d.job });
   if (refusal) throw forbidden(refusal);
+  await refuseSameSigner(actor, d.job.id, input.meaning);
   await requirePasswordReentry(actor, input.password);
   // One current signature per signer and meaning; a stale one (the record changed after it) is signed again.
   const stateSha256 = await jobStateSha256(d.job.id);

@@ -56,3 +56,21 @@ export function reportResponderRefusal(actor: Actor): string | null {
     ? null
     : "Only the customer's own users accept or reject the report.";
 }
+
+/**
+ * The statement of conformity before issue is provisional (the record may still change): staff
+ * see it on the job's page; a customer sees the statement of the issued report only.
+ */
+export function provisionalConformityRefusal(actor: Pick<Actor, "role">): string | null {
+  return actor.role === "customer"
+    ? "The statement of conformity is shown to the customer once the report is issued."
+    : null;
+}
+
+/**
+ * The draft preview (the PDF as it would be issued now, watermarked DRAFT, unsigned) is the
+ * service company's working copy: staff see it, customers never (they receive the issued report).
+ */
+export function draftPreviewRefusal(actor: Pick<Actor, "role">): string | null {
+  return actor.role === "customer" ? "The draft of a report is for the service company's staff." : null;
+}

@@ -10,7 +10,7 @@ import { ROLE_LABELS } from "@/lib/domain/roles";
 import { SIGNATURE_LABELS, type SignatureMeaningKey } from "@/lib/domain/signatures";
 import { canonicalJson } from "@/lib/canonical-json";
 import type { StepDecision } from "@/lib/checklist";
-import { parameterRows, type ParameterLimit } from "@/lib/fit-display";
+import { LIMIT_SOURCE_WORDS, parameterRows, type ParameterLimit } from "@/lib/fit-display";
 import { formatDateTimeUtc } from "@/lib/format";
 import { signed } from "@/lib/numbers";
 import { formatLimits, formatValue, type QuantityKind } from "@/lib/units";
@@ -58,10 +58,44 @@ export interface ComparisonInput {
   lowerLimit: number | null;
   upperLimit: number | null;
   limitSource: string;
+  limitSourceNote?: string | null;
+  decisionRule?: string;
   pre: { value: number } | null;
   post: { value: number } | null;
   change: number | null;
   status: StepDecision;
+}
+
+/** A decision rule in the few words printed beside each judged row. */
+export const RULE_WORDS: Record<string, string> = {
+  simple: "simple",
+  guarded: "guarded (ISO 14253-1)",
+};
+
+/** The job's decision rule as the report's method states it. */
+export function decisionRuleText(rule: string): string {
+  return rule === "guarded"
+    ? "Guarded acceptance per ISO 14253-1 (limits shrunk by U for pass, grown by U for fail)"
+    : "Simple acceptance: the expanded uncertainty is stated, not subtracted";
+}
+
+/**
+ * What a judged row was judged by (ISO/IEC 17025:2017 §7.8.6.1: the decision rule applied, and
+ * where the limit comes from): "Rule: simple; limit: Standard: ISO 230-1". Undefined
+ * for a row that was not judged (no limit, nothing measured).
+ */
+export function judgementBasis(
+  decision: Decision,
+  rule: string,
+  source: string | null | undefined,
+): string | undefined {
+  if (decision === "recorded" || decision === "not_measured") return undefined;
+  return `Rule: ${RULE_WORDS[rule] ?? rule}${source ? `; limit: ${source}` : ""}`;
+}
+
+function limitSourceWords(source: string, note: string | null | undefined): string {
+  const words = LIMIT_SOURCE_WORDS[source as keyof typeof LIMIT_SOURCE_WORDS] ?? source.replace("_", " ");
+  return `${words}${note ? `: ${note}` : ""}`;
 }
 
 /**
@@ -76,6 +110,13 @@ export function readingSection(rows: readonly ComparisonInput[]): {
   const measured = rows.filter((r) => r.pre || r.post);
   return {
     rows: measured.map((r) => ({
+      ...withBasis(
+        judgementBasis(
+          reportDecision(r.status),
+          r.decisionRule ?? "simple",
+          limitSourceWords(r.limitSource, r.limitSourceNote),
+        ),
+      ),
       step: r.title,
       limits: formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, "metric"),
       pre: r.pre ? formatValue(r.pre.value, r.quantityKind, "metric") : undefined,
@@ -128,7 +169,10 @@ export function instrumentRows(rows: readonly InstrumentInput[], on: Date): Repo
 const TEST_PART_DECIMALS: Record<string, number> = { mm: 3, in: 4, um: 1, deg: 3, arcsec: 1 };
 
 /** The test part's evaluated rows, each in its own unit and decimals. */
-export function testPartRows(rows: readonly TestPartResultRow[]): ReportData["testPart"] {
+const withBasis = (basis: string | undefined) => (basis ? { basis } : {});
+
+/** The test part's rows, judged under the job's rule against the tolerances in the uploaded file. */
+export function testPartRows(rows: readonly TestPartResultRow[], rule = "simple"): ReportData["testPart"] {
   return rows.map((r) => {
     const dp = TEST_PART_DECIMALS[r.unit] ?? 3;
     const v = (x: number) => `${x.toFixed(dp)} ${r.unit === "um" ? "µm" : r.unit}`;
@@ -143,6 +187,7 @@ export function testPartRows(rows: readonly TestPartResultRow[]): ReportData["te
       limits,
       expanded: r.U.toFixed(dp),
       decision: r.decision,
+      ...withBasis(judgementBasis(r.decision, rule, "test-part file")),
     };
   });
 }
@@ -178,6 +223,7 @@ export function parameterSection(
       expanded: p.heldAtZero ? "—" : `${fit.parameters.find((q) => q.key === p.key)!.U!.toFixed(1)}${unit}`,
       ...(p.toleranceText ? { tolerance: p.toleranceText } : {}),
       ...(p.limitSourceText ? { limitSource: p.limitSourceText } : {}),
+      ...withBasis(judgementBasis(reportDecision(p.decision), p.decisionRule ?? "simple", p.limitSourceText)),
       decision: reportDecision(p.decision),
       identifiable: p.identifiableText,
     };
@@ -313,6 +359,22 @@ export function conformityStatement(
   };
 }
 
+/**
+ * The statement of conformity of a job's judged rows (readings, head parameters, test part) and
+ * recorded deviations: one function for the issued report and the job's overview page.
+ */
+export function reportConformity(
+  i: Pick<ReportInputs, "readings" | "parameters" | "testPart" | "deviations">,
+  rule: string,
+): NonNullable<ReportData["conformity"]> {
+  const decisions = [
+    ...i.readings.rows.map((r) => r.decision),
+    ...(i.parameters?.rows ?? []).map((r) => r.decision),
+    ...i.testPart.map((r) => r.decision),
+  ];
+  return conformityStatement(decisions, i.deviations.length, decisionRuleText(rule));
+}
+
 export function deviationRows(list: readonly DeviationInput[]): NonNullable<ReportData["deviations"]> {
   return list.map((x) => ({
     result: x.subjectLabel,
@@ -328,7 +390,9 @@ export interface ReportInputs {
     reportId: string;
     revision: number;
     issuedAt: Date;
-    approval: ReportSignature;
+    /** The approval that issues the report; absent in a draft preview (`draft`), which has no signature. */
+    approval?: ReportSignature;
+    draft?: boolean;
     amendment?: ReportData["amendment"];
   };
   d: JobInput;
@@ -348,21 +412,14 @@ export interface ReportInputs {
 /** Assembles the report's content and names it by the SHA-256 of its canonical JSON. */
 export function buildReportContent(i: ReportInputs): ReportData {
   const { d, meta } = i;
-  const decisionRule =
-    d.job.decisionRule === "guarded"
-      ? "Guarded acceptance per ISO 14253-1 (limits shrunk by U for pass, grown by U for fail)"
-      : "Simple acceptance: the expanded uncertainty is stated, not subtracted";
-  const decisions = [
-    ...i.readings.rows.map((r) => r.decision),
-    ...(i.parameters?.rows ?? []).map((r) => r.decision),
-    ...i.testPart.map((r) => r.decision),
-  ];
+  const decisionRule = decisionRuleText(d.job.decisionRule);
   const data: Omit<ReportData, "contentSha256"> = {
+    ...(meta.draft ? { draft: true } : {}),
     reportId: meta.reportId,
     reference: d.job.reference,
     revision: meta.revision,
     ...(meta.amendment ? { amendment: meta.amendment } : {}),
-    issuedAtUtc: formatDateTimeUtc(meta.issuedAt),
+    issuedAtUtc: meta.draft ? null : formatDateTimeUtc(meta.issuedAt),
     issuer: { name: "Halvard Field Service" },
     customer: {
       name: d.customer.name,
@@ -407,11 +464,11 @@ export function buildReportContent(i: ReportInputs): ReportData {
       ...(i.readings.chart.length ? { readings: i.readings.chart } : {}),
       ...(i.parameters?.charts ?? {}),
     },
-    conformity: conformityStatement(decisions, i.deviations.length, decisionRule),
+    conformity: reportConformity(i, d.job.decisionRule),
     deviations: deviationRows(i.deviations),
     remarks: [...(i.parameters ? [i.parameters.note] : []), ...(d.job.notes ? [d.job.notes] : [])],
     safety: [...SAFETY_NOTES],
-    signatures: [...i.signatures, meta.approval],
+    signatures: meta.draft || !meta.approval ? [] : [...i.signatures, meta.approval],
     verifyUrl: i.verifyUrl,
   };
   return { ...data, contentSha256: sha256Hex(canonicalJson(data)) };

@@ -122,9 +122,13 @@ const DECISION_COLOUR: Record<Decision, string> = {
   recorded: C.none,
 };
 
-function DecisionCell({ d, width }: { d: Decision; width: string }) {
+/** The decision, and under it the rule and limit source it was judged by (ISO/IEC 17025:2017 §7.8.6.1). */
+function DecisionCell({ d, width, basis }: { d: Decision; width: string; basis?: string | undefined }) {
   return (
-    <Text style={[s.td, { width, color: DECISION_COLOUR[d], fontWeight: 700 }]}>{DECISION_TEXT[d]}</Text>
+    <View style={[s.td, { width }]}>
+      <Text style={{ color: DECISION_COLOUR[d], fontWeight: 700 }}>{DECISION_TEXT[d]}</Text>
+      {basis ? <Text style={{ color: C.muted, fontSize: 6.5 }}>{basis}</Text> : null}
+    </View>
   );
 }
 
@@ -143,7 +147,14 @@ function Facts({ rows }: { rows: Array<[string, string | undefined]> }) {
   );
 }
 
-type Col<T> = { header: string; width: string; cell: (r: T) => string; numeric?: boolean };
+type Col<T> = {
+  header: string;
+  width: string;
+  cell: (r: T) => string;
+  numeric?: boolean;
+  /** Renders the cell itself (e.g. a decision with its basis) instead of the text of `cell`. */
+  node?: (r: T, width: string) => React.ReactElement;
+};
 
 function Table<T>({ rows, cols, empty }: { rows: readonly T[]; cols: readonly Col<T>[]; empty: string }) {
   if (rows.length === 0) return <Text style={{ color: C.muted }}>{empty}</Text>;
@@ -158,11 +169,17 @@ function Table<T>({ rows, cols, empty }: { rows: readonly T[]; cols: readonly Co
       </View>
       {rows.map((r, i) => (
         <View key={i} style={s.tr} wrap={false}>
-          {cols.map((c) => (
-            <Text key={c.header} style={[s.td, { width: c.width }, c.numeric ? s.num : {}]}>
-              {c.cell(r)}
-            </Text>
-          ))}
+          {cols.map((c) =>
+            c.node ? (
+              <View key={c.header} style={{ width: c.width }}>
+                {c.node(r, "100%")}
+              </View>
+            ) : (
+              <Text key={c.header} style={[s.td, { width: c.width }, c.numeric ? s.num : {}]}>
+                {c.cell(r)}
+              </Text>
+            ),
+          )}
         </View>
       ))}
     </View>
@@ -279,6 +296,23 @@ export function ReportDocument({
       producer="Trammel"
     >
       <Page size="A4" style={s.page}>
+        {data.draft ? (
+          <Text
+            fixed
+            style={{
+              position: "absolute",
+              top: 360,
+              left: 70,
+              fontSize: 120,
+              fontWeight: 700,
+              color: C.muted,
+              opacity: 0.18,
+              transform: "rotate(-35deg)",
+            }}
+          >
+            DRAFT
+          </Text>
+        ) : null}
         <View style={s.footerRule} fixed />
         <Text style={[s.footerText, { left: 40, right: 200 }]} fixed>
           {data.reference} · {rev} · {data.reportId}
@@ -304,7 +338,11 @@ export function ReportDocument({
               <Text style={[s.mono, { fontSize: 9, fontWeight: 700 }]}>{data.reference}</Text>
               <Text style={s.subtitle}>
                 {rev}
-                {data.issuedAtUtc ? ` · issued ${data.issuedAtUtc}` : " · not issued"}
+                {data.draft
+                  ? " · DRAFT, not issued"
+                  : data.issuedAtUtc
+                    ? ` · issued ${data.issuedAtUtc}`
+                    : " · not issued"}
               </Text>
               <Text style={[s.mono, { fontSize: 6.5, color: C.muted }]}>{data.reportId}</Text>
             </View>
@@ -400,7 +438,12 @@ export function ReportDocument({
               { header: "Before", width: "13%", cell: (r) => r.pre ?? "—", numeric: true },
               { header: "After", width: "13%", cell: (r) => r.post ?? "—", numeric: true },
               { header: "Change", width: "12%", cell: (r) => r.change ?? "—", numeric: true },
-              { header: "Result", width: "15%", cell: (r) => DECISION_TEXT[r.decision] },
+              {
+                header: "Result",
+                width: "15%",
+                cell: (r) => DECISION_TEXT[r.decision],
+                node: (r, w) => <DecisionCell d={r.decision} width={w} basis={r.basis} />,
+              },
             ]}
           />
 
@@ -436,7 +479,7 @@ export function ReportDocument({
                 </Text>
                 <Text style={[s.td, s.num, { width: "12%" }]}>{p.tolerance ?? "—"}</Text>
                 <Text style={[s.td, { width: "11%" }]}>{p.identifiable}</Text>
-                <DecisionCell d={p.decision} width="13%" />
+                <DecisionCell d={p.decision} width="13%" basis={p.basis} />
               </View>
             ))}
           </View>
@@ -456,7 +499,12 @@ export function ReportDocument({
               { header: "Deviation", width: "10%", cell: (r) => r.deviation, numeric: true },
               { header: "Limits", width: "19%", cell: (r) => r.limits, numeric: true },
               { header: "U", width: "8%", cell: (r) => r.expanded, numeric: true },
-              { header: "Result", width: "13%", cell: (r) => DECISION_TEXT[r.decision] },
+              {
+                header: "Result",
+                width: "13%",
+                cell: (r) => DECISION_TEXT[r.decision],
+                node: (r, w) => <DecisionCell d={r.decision} width={w} basis={r.basis} />,
+              },
             ]}
           />
 
@@ -489,40 +537,57 @@ export function ReportDocument({
             </View>
           </View>
 
-          <View wrap={false}>
-            <Text style={s.h2} minPresenceAhead={40}>
-              10 Signatures
-            </Text>
-            <View style={{ flexDirection: "row", flexWrap: "wrap", justifyContent: "space-between" }}>
-              {data.signatures.length === 0 ? <Text style={{ color: C.muted }}>Not signed yet.</Text> : null}
-              {data.signatures.map((g, i) => (
-                <View key={i} style={s.sigBox}>
-                  <Text style={{ fontWeight: 700 }}>{g.meaning}</Text>
+          {data.draft ? (
+            <View wrap={false} style={s.note}>
+              <Text style={{ fontWeight: 700 }}>DRAFT: not signed, not issued, not valid as a report</Text>
+              <Text>
+                This preview shows the record as it stands. The report is signed and given its identity and
+                verification code only when an application engineer approves and issues it.
+              </Text>
+            </View>
+          ) : (
+            <>
+              <View wrap={false}>
+                <Text style={s.h2} minPresenceAhead={40}>
+                  10 Signatures
+                </Text>
+                <View style={{ flexDirection: "row", flexWrap: "wrap", justifyContent: "space-between" }}>
+                  {data.signatures.length === 0 ? (
+                    <Text style={{ color: C.muted }}>Not signed yet.</Text>
+                  ) : null}
+                  {data.signatures.map((g, i) => (
+                    <View key={i} style={s.sigBox}>
+                      <Text style={{ fontWeight: 700 }}>{g.meaning}</Text>
+                      <Text>
+                        {g.name} — {g.role}
+                      </Text>
+                      <Text style={s.mono}>{g.signedAtUtc}</Text>
+                      <Text style={{ color: C.muted, fontSize: 7 }}>
+                        Signed electronically; the signer re-entered their password at signing.
+                      </Text>
+                    </View>
+                  ))}
+                </View>
+              </View>
+
+              <View
+                wrap={false}
+                style={{ flexDirection: "row", gap: 10, marginTop: 10, alignItems: "center" }}
+              >
+                <Image src={qrDataUrl} style={{ width: 72, height: 72 }} />
+                <View style={{ flex: 1 }}>
+                  <Text style={{ fontWeight: 700 }}>Verify this report</Text>
                   <Text>
-                    {g.name} — {g.role}
+                    Scan the code or open {data.verifyUrl} and upload this file: the check compares its
+                    SHA-256 with the signed record.
                   </Text>
-                  <Text style={s.mono}>{g.signedAtUtc}</Text>
-                  <Text style={{ color: C.muted, fontSize: 7 }}>
-                    Signed electronically; the signer re-entered their password at signing.
+                  <Text style={[s.mono, { fontSize: 7, color: C.muted }]}>
+                    content SHA-256 {data.contentSha256}
                   </Text>
                 </View>
-              ))}
-            </View>
-          </View>
-
-          <View wrap={false} style={{ flexDirection: "row", gap: 10, marginTop: 10, alignItems: "center" }}>
-            <Image src={qrDataUrl} style={{ width: 72, height: 72 }} />
-            <View style={{ flex: 1 }}>
-              <Text style={{ fontWeight: 700 }}>Verify this report</Text>
-              <Text>
-                Scan the code or open {data.verifyUrl} and upload this file: the check compares its SHA-256
-                with the signed record.
-              </Text>
-              <Text style={[s.mono, { fontSize: 7, color: C.muted }]}>
-                content SHA-256 {data.contentSha256}
-              </Text>
-            </View>
-          </View>
+              </View>
+            </>
+          )}
           <Text style={s.end}>END OF REPORT</Text>
         </View>
       </Page>

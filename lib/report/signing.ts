@@ -38,6 +38,13 @@ export interface SignatureManifest {
   stateSha256: string | null;
   signer: { id: string; name: string; role: string; email: string };
   meaning: SignatureMeaning;
+  /** "parameters approved": the fit approved, and its parameters judged FAIL or undecided that the signer confirmed. */
+  analysis?: {
+    id: string;
+    inputSha256: string;
+    geometryVersion: string;
+    nonConforming: ReadonlyArray<{ key: string; decision: string }>;
+  };
   /** ISO 8601 in UTC, e.g. 2026-12-02T07:15:00.000Z. */
   signedAtUtc: string;
   keyId: string;

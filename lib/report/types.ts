@@ -18,6 +18,8 @@ export interface ReportSignature {
 }
 
 export interface ReportData {
+  /** A draft preview: printed with a DRAFT watermark, no signatures and no verification block; never stored. */
+  draft?: boolean;
   reportId: string;
   reference: string;
   revision: number;
@@ -52,6 +54,8 @@ export interface ReportData {
     change?: string;
     decision: Decision;
     source: string;
+    /** The decision rule and limit source of a judged row; absent in reports issued before it was printed. */
+    basis?: string;
   }>;
   parameters: Array<{
     name: string;
@@ -62,6 +66,7 @@ export interface ReportData {
     limitSource?: string;
     decision: Decision;
     identifiable: string;
+    basis?: string;
   }>;
   testPart: Array<{
     feature: string;
@@ -72,6 +77,7 @@ export interface ReportData {
     limits: string;
     expanded: string;
     decision: Decision;
+    basis?: string;
   }>;
   /**
    * Pictures saved by the engineer (the 3D view): named by the SHA-256 of the PNG, whose bytes are

@@ -19,6 +19,8 @@ export DATABASE_URL=${DATABASE_URL:-$(bash db/pg.sh url)}
 npx tsx lib/storage/dev-s3.ts >.data/s3.log 2>&1 &
 export STORAGE_DRIVER=${STORAGE_DRIVER:-s3} S3_ENDPOINT=${S3_ENDPOINT:-http://127.0.0.1:4569}
 for _ in $(seq 60); do curl -s -o /dev/null "$S3_ENDPOINT" && break; sleep 0.25; done
+# The address printed on reports and in their QR codes (required in production; the seed issues reports).
+export PUBLIC_URL=${PUBLIC_URL:-http://localhost:$PORT}
 npm run -s db:migrate
 npm run -s db:seed
 echo "start-demo: building the app…" >&2

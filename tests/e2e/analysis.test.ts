@@ -364,6 +364,11 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     await approve2.waitFor();
     expect(await approve2.isDisabled()).toBe(false);
     await approve2.click();
+    // Approval is a signature: the form names what does not conform and asks for the password
+    // again (21 CFR 11.200; ISO/IEC 17025:2017 §7.8.2.1 o).
+    const sign = e.getByRole("form", { name: "Sign: parameters approved" });
+    await sign.getByLabel("Your password").fill("trammel-demo");
+    await sign.getByRole("button", { name: "Sign the approval" }).click();
     const values = e.getByRole("table", { name: "Values for the control" });
     await values.waitFor({ timeout: 20_000 });
     const v = await values.innerText();

@@ -125,6 +125,7 @@ export async function startApp(port: number, env: Record<string, string>): Promi
     ["node_modules/next/dist/bin/next", "start", "-p", String(port), "-H", "127.0.0.1"],
     {
       NEXTAUTH_URL: base,
+      PUBLIC_URL: base,
       ...env,
     },
   );

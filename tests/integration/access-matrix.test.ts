@@ -9,6 +9,7 @@ import { GET as ping } from "@/app/api/ping/route";
 import { GET as listJobsRoute } from "@/app/api/jobs/route";
 import { GET as jobRoute } from "@/app/api/jobs/[id]/route";
 import { GET as readinessRoute } from "@/app/api/jobs/[id]/readiness/route";
+import { GET as draftRoute } from "@/app/api/jobs/[id]/report/draft/route";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
 const ALL = ["TR-2026-0041", "TR-2026-0048", "TR-2026-0052", "TR-2026-0057"];
@@ -31,6 +32,7 @@ const COVERED = new Set([
   "app/api/jobs/route.ts",
   "app/api/jobs/[id]/route.ts",
   "app/api/jobs/[id]/readiness/route.ts",
+  "app/api/jobs/[id]/report/draft/route.ts",
   "app/api/auth/[...nextauth]/route.ts",
   // tests/integration/checklist-access.test.ts
   "app/api/jobs/[id]/readings/route.ts",
@@ -134,6 +136,29 @@ describe("API access matrix", () => {
           if (expected === 404)
             expect(body).toEqual({ error: { code: "not_found", message: "No such job." } });
         });
+      }
+
+      // The draft preview is the staff's working copy: customers never get it (403 on their own
+      // job, 404 on one they may not see), anonymous 401.
+      for (const ref of ALL) {
+        const expected =
+          sees === "401" ? 401 : !sees.includes(ref) ? 404 : who.startsWith("customer") ? 403 : 200;
+        it(`GET /api/jobs/{${ref}}/report/draft answers ${expected}`, async () => {
+          await signInAs(email);
+          const id = await jobIdByReference(ref);
+          const res = await draftRoute(request(`/api/jobs/${id}/report/draft`), {
+            params: Promise.resolve({ id }),
+          });
+          expect(res.status).toBe(expected);
+          if (expected === 200) {
+            expect(res.headers.get("content-type")).toBe("application/pdf");
+            expect(
+              Buffer.from(await res.arrayBuffer())
+                .subarray(0, 5)
+                .toString(),
+            ).toBe("%PDF-");
+          } else await res.body?.cancel();
+        }, 30_000);
       }
     });
   }

@@ -134,7 +134,8 @@ beforeAll(async () => {
 
 // ---- job work ----
 MATRIX.recordReadingAction = {
-  expect: onMarlowJob(["admin", "installer"]),
+  // The assigned installer or an engineer; never the office (segregation of duties, ISO/IEC 17025:2017 §7.5.1).
+  expect: onMarlowJob(["installer", "engineer"]),
   call: async () =>
     checklist.recordReadingAction({
       jobId: await freshJob("measuring"),
@@ -258,7 +259,7 @@ MATRIX.approveFitAction = {
     const { analysis: a } = await runHeadFit(engineer, ((await up.json()) as { id: string }).id);
     await db.update(jobs).set({ status: "in_review" }).where(eq(jobs.id, jobId));
     await signInAs(EMAIL[who]);
-    return analysis.approveFitAction({ jobId, analysisId: a.id });
+    return analysis.approveFitAction({ jobId, analysisId: a.id, password: PW });
   },
 };
 

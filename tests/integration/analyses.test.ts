@@ -14,7 +14,7 @@ import { getDatasetOriginal } from "@/db/queries/datasets";
 import { changeJobStatus } from "@/db/queries/job-status";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { analyses, auditEvents, jobs } from "@/db/schema";
+import { analyses, auditEvents, jobs, signatures } from "@/db/schema";
 import { fitHead, GEOMETRY_VERSION, headFitToJson, readSphereProbeCsv } from "@/geometry";
 import type { Actor } from "@/lib/domain/roles";
 import { canonicalJson } from "@/lib/canonical-json";
@@ -160,16 +160,16 @@ describe("running a fit", () => {
 
 describe("approval", () => {
   it("is refused while the job is measuring, even for an engineer (409)", async () => {
-    expect(await status(approveAnalysis(as.engineer!, analysisId))).toBe(409);
+    expect(await status(approveAnalysis(as.engineer!, analysisId, "trammel-demo"))).toBe(409);
   });
 
   it("in review: only an engineer approves; other roles 403, another tenant's customer 404", async () => {
     await changeJobStatus(as.installer!, jobId, "in_review");
-    expect(await status(approveAnalysis(as.admin!, analysisId))).toBe(403);
-    expect(await status(approveAnalysis(as.inspector!, analysisId))).toBe(403);
-    expect(await status(approveAnalysis(as.installer!, analysisId))).toBe(403);
-    expect(await status(approveAnalysis(as.buyer!, analysisId))).toBe(403);
-    expect(await status(approveAnalysis(as["buyer-tollan"]!, analysisId))).toBe(404);
+    expect(await status(approveAnalysis(as.admin!, analysisId, "trammel-demo"))).toBe(403);
+    expect(await status(approveAnalysis(as.inspector!, analysisId, "trammel-demo"))).toBe(403);
+    expect(await status(approveAnalysis(as.installer!, analysisId, "trammel-demo"))).toBe(403);
+    expect(await status(approveAnalysis(as.buyer!, analysisId, "trammel-demo"))).toBe(403);
+    expect(await status(approveAnalysis(as["buyer-tollan"]!, analysisId, "trammel-demo"))).toBe(404);
     // With probe data, a bare status change cannot approve: the approval must name a fit.
     const bare = await changeJobStatus(as.engineer!, jobId, "approved").then(
       () => null,
@@ -180,20 +180,53 @@ describe("approval", () => {
     const [still] = await db.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, jobId));
     expect(still!.status).toBe("in_review");
 
-    const r = await approveAnalysis(as.engineer!, analysisId);
-    expect(r).toEqual({ status: "approved", analysisId });
+    // Approval is a signature (21 CFR 11.200: the signer enters the password again; ISO/IEC
+    // 17025:2017 §7.8.2.1 o, the person authorizing is identified): without the password, or with
+    // a wrong one, it is refused for that field and nothing changes.
+    const approvalsBefore = await db
+      .select({ id: signatures.id })
+      .from(signatures)
+      .where(and(eq(signatures.jobId, jobId), eq(signatures.meaning, "parameters_approved")));
+    for (const pw of ["", "not-the-password"]) {
+      const e = await approveAnalysis(as.engineer!, analysisId, pw).then(
+        () => null,
+        (err: AppError) => err,
+      );
+      expect(e?.status).toBe(422);
+      expect(e?.issues?.[0]?.field).toBe("password");
+    }
+    const [unchanged] = await db.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, jobId));
+    expect(unchanged!.status).toBe("in_review");
+    expect(await getApprovedAnalysis(as.engineer!, jobId)).toBeNull();
+    expect(
+      await db
+        .select({ id: signatures.id })
+        .from(signatures)
+        .where(and(eq(signatures.jobId, jobId), eq(signatures.meaning, "parameters_approved"))),
+    ).toEqual(approvalsBefore);
+
+    const r = await approveAnalysis(as.engineer!, analysisId, "trammel-demo");
+    expect(r).toEqual({ status: "approved", analysisId, signatureId: expect.any(String) });
+    const [sig] = await db.select().from(signatures).where(eq(signatures.id, r.signatureId));
+    expect(sig).toMatchObject({ meaning: "parameters_approved", signerId: as.engineer!.id, reportId: null });
+    expect((sig!.manifest as { analysis?: { id: string } }).analysis?.id).toBe(analysisId);
     const [now] = await db.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, jobId));
     expect(now!.status).toBe("approved");
     const events = await db.select().from(auditEvents).where(eq(auditEvents.jobId, jobId));
     expect(events.map((e) => e.action)).toEqual(
-      expect.arrayContaining(["analysis.created", "analysis.approved", "job.status_changed"]),
+      expect.arrayContaining([
+        "analysis.created",
+        "signature.parameters_approved",
+        "analysis.approved",
+        "job.status_changed",
+      ]),
     );
     expect((await getApprovedAnalysis(as.engineer!, jobId))?.detail.analysis.id).toBe(analysisId);
   });
 
   it("after approval no new fit is run (409) and a second approval is refused", async () => {
     expect(await status(runHeadFit(as.engineer!, datasetId))).toBe(409);
-    expect(await status(approveAnalysis(as.engineer!, analysisId))).toBe(409);
+    expect(await status(approveAnalysis(as.engineer!, analysisId, "trammel-demo"))).toBe(409);
   });
 
   it("another tenant's customer gets 404 for the analysis and its dataset", async () => {

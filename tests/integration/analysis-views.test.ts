@@ -260,7 +260,7 @@ describe("latestJobView (for the report)", () => {
 
     await db.update(jobs).set({ status: "in_review" }).where(eq(jobs.id, job!.id));
     const engineer = (await getActor((await signInAs("engineer@halvard.example"))!))!;
-    await approveAnalysis(engineer, analysisId);
+    await approveAnalysis(engineer, analysisId, "trammel-demo");
 
     const v = await latestJobView(job!.id);
     expect(v).not.toBeNull();

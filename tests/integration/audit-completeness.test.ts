@@ -120,7 +120,7 @@ beforeAll(async () => {
   await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
   await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
   await changeJobStatus(as.installer!, jobId, "in_review");
-  await approveAnalysis(as.engineer!, analysis.id);
+  await approveAnalysis(as.engineer!, analysis.id, PW);
   await carryOpenResults(
     as.engineer!,
     jobId,
@@ -163,9 +163,10 @@ describe("a whole job's changes are in the audit trail", () => {
       await db.select({ id: deviations.id }).from(deviations).where(eq(deviations.jobId, jobId))
     ).map((r) => ["deviation", r.id] as [string, string]);
     rows.push(...carried);
-    // 3 readings and 6 after adjustment (every step), 2 datasets, 1 analysis, 1 view, 1 report, and
-    // a deviation for each FAIL or undecided parameter: the scenario really wrote them.
-    expect(rows.length).toBe(1 + 3 + 6 + 2 + 1 + 1 + 1 + carried.length);
+    // 3 readings and 5 after adjustment (the steps not yet measured after adjustment), 2 datasets,
+    // 1 analysis, 1 view, 1 report, and a deviation for each FAIL or undecided parameter: the
+    // scenario really wrote them.
+    expect(rows.length).toBe(1 + 3 + 5 + 2 + 1 + 1 + 1 + carried.length);
     for (const [type, id] of rows) {
       const mine = events.filter((e) => e.entityId === id);
       expect(mine.length, `${type} ${id} has no audit event`).toBeGreaterThan(0);
@@ -178,7 +179,13 @@ describe("a whole job's changes are in the audit trail", () => {
     // Signatures: each is announced by an event carrying its meaning (pre-issue signatures by id;
     // the approval and the acceptance by the report events that wrote them in the same transaction).
     const sigs = await db.select().from(signatures).where(eq(signatures.jobId, jobId));
-    expect(sigs.map((s) => s.meaning).sort()).toEqual(["accepted", "approved", "inspected", "performed"]);
+    expect(sigs.map((s) => s.meaning).sort()).toEqual([
+      "accepted",
+      "approved",
+      "inspected",
+      "parameters_approved",
+      "performed",
+    ]);
     for (const s of sigs) {
       const byId = events.some((e) => e.entityId === s.id);
       const byReport = events.some(

@@ -60,14 +60,18 @@ const READ: Record<string, Record<Who, number>> = {
   },
 };
 
-/** POST of a reading: 0052 is measuring (installer assigned), 0048 in review, 0041 issued. */
+/**
+ * POST of a reading: 0052 is measuring (installer assigned), 0048 in review, 0041 issued. The
+ * office never records readings (segregation of duties, ISO/IEC 17025:2017 §7.5.1); the assigned
+ * installer and an application engineer do.
+ */
 const WRITE: Record<string, Record<Who, number>> = {
   "TR-2026-0052": {
     anonymous: 401,
-    admin: 201,
+    admin: 403,
     installer: 201,
     inspector: 403,
-    engineer: 403,
+    engineer: 201,
     "customer (Marlow Creek)": 403,
     "customer (Tollan)": 404,
   },

@@ -25,8 +25,8 @@ import { AppError } from "@/lib/errors";
 import type { BlockerCode } from "@/lib/report/readiness";
 import type { ReportData } from "@/lib/report/types";
 import { upload } from "./dataset-helpers";
-import { jobIdByReference, signInAs } from "./helpers";
-import { carryOpenResults, measureEveryStep } from "./ready-job";
+import { signInAs } from "./helpers";
+import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
 const PW = "trammel-demo";
 const as: Record<string, Actor> = {};
@@ -66,16 +66,7 @@ async function refusedCodes(jobId: string): Promise<BlockerCode[]> {
 beforeAll(async () => {
   for (const e of ["installer", "inspector", "engineer", "admin"])
     as[e] = (await getActor((await signInAs(`${e}@halvard.example`))!))!;
-  const [t] = await db
-    .select()
-    .from(jobs)
-    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
-  base = {
-    customerId: t!.customerId,
-    machineId: t!.machineId,
-    headId: t!.headId,
-    templateId: t!.templateId!,
-  };
+  base = await jobBaseOf("TR-2026-0052");
 });
 
 describe("issue is refused while any blocker stands", () => {
@@ -196,7 +187,7 @@ describe("issue is refused while any blocker stands", () => {
   });
 
   it("deviations are the engineer's, need a justification, and clear the FAIL; then the report issues", async () => {
-    await approveAnalysis(as.engineer!, analysisId);
+    await approveAnalysis(as.engineer!, analysisId, PW);
     const view = await getReadinessView(as.engineer!, jobId);
     const step = view!.nonConforming.find((r) => r.subject === `step:${step1}`)!;
     expect(step.decision).toBe("fail");

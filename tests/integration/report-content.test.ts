@@ -15,7 +15,7 @@ import { db } from "@/db";
 import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
 import { saveAnalysisView } from "@/db/queries/analysis-views";
 import { changeJobStatus } from "@/db/queries/job-status";
-import { issueReport } from "@/db/queries/reports";
+import { getJobConformity, issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
 import { createTemplateVersion } from "@/db/queries/templates";
 import { getActor } from "@/db/queries/users";
@@ -36,6 +36,8 @@ let fit: HeadFitJson;
 let poseResiduals: number[][];
 let content: ReportData;
 let pdf: Buffer;
+let provisional: Awaited<ReturnType<typeof getJobConformity>>;
+let provisionalForCustomer: Awaited<ReturnType<typeof getJobConformity>>;
 const viewPng = (() => {
   const png = new PNG({ width: 64, height: 40 });
   for (let i = 0; i < png.data.length; i += 4) png.data.set([0x5f, 0x7d, 0x99, 255], i);
@@ -48,8 +50,12 @@ beforeAll(async () => {
     "installer@halvard.example",
     "inspector@halvard.example",
     "engineer@halvard.example",
+    "buyer@marlowcreek.example",
+    "buyer@tollan.example",
   ]) {
-    as[e.split("@")[0]!] = (await getActor((await signInAs(e))!))!;
+    as[e.endsWith("tollan.example") ? "buyer-tollan" : e.split("@")[0]!] = (await getActor(
+      (await signInAs(e))!,
+    ))!;
   }
   const [t] = await db
     .select()
@@ -88,7 +94,7 @@ beforeAll(async () => {
   await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
   await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
   await changeJobStatus(as.installer!, jobId, "in_review");
-  await approveAnalysis(as.engineer!, analysis.id);
+  await approveAnalysis(as.engineer!, analysis.id, PW);
   await carryOpenResults(as.engineer!, jobId, "Within the machine builder's acceptance for this demo head.");
   await saveAnalysisView(as.engineer!, analysis.id, {
     png: viewPng,
@@ -96,11 +102,35 @@ beforeAll(async () => {
     overlayAnalysisId: null,
     caption: "Looking along −Y",
   });
+  provisional = await getJobConformity(as.engineer!, jobId);
+  provisionalForCustomer = await getJobConformity(as.buyer!, jobId);
   const { reportId } = await issueReport(as.engineer!, { jobId, password: PW });
   const [r] = await db.select().from(reports).where(eq(reports.id, reportId));
   content = r!.content as ReportData;
   pdf = r!.pdf;
 }, 60_000);
+
+describe("the statement of conformity on the job's page (ISO/IEC 17025:2017 §7.8.6)", () => {
+  it("before issue: staff see the provisional statement, the same the report then prints; customers none", async () => {
+    expect(provisional).toEqual({ conformity: content.conformity, issuedRevision: null });
+    expect(provisionalForCustomer).toBeNull();
+  });
+  it("after issue: everyone who sees the job sees the issued revision's statement", async () => {
+    for (const who of ["engineer", "buyer"])
+      expect(await getJobConformity(as[who]!, jobId)).toEqual({
+        conformity: content.conformity,
+        issuedRevision: 1,
+      });
+    expect(await getJobConformity(as["buyer-tollan"]!, jobId)).toBeNull();
+  });
+  it("prints the decision rule and limit source on every judged row (§7.8.6.1)", () => {
+    const rows = [...content.readings, ...content.parameters, ...content.testPart];
+    const judged = rows.filter((r) => r.decision !== "recorded" && r.decision !== "not_measured");
+    expect(judged.length).toBeGreaterThan(0);
+    for (const r of judged) expect(r.basis).toMatch(/^Rule: (simple|guarded \(ISO 14253-1\))(; limit: .+)?$/);
+    for (const r of rows.filter((x) => !judged.includes(x))) expect(r.basis).toBeUndefined();
+  });
+});
 
 describe("head parameters in the report", () => {
   it("judges each parameter against the procedure's limit with its rule and U, as ISO 14253-1 says", async () => {

@@ -50,6 +50,7 @@ describe("report routes", () => {
         expect(body.signatures.map((s: { meaning: string }) => s.meaning)).toEqual([
           "performed",
           "inspected",
+          "parameters_approved",
           "approved",
         ]);
       }

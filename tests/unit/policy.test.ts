@@ -14,8 +14,14 @@ import {
 import { navigationFor } from "@/lib/policy/navigation";
 import { readingsRefusal } from "@/lib/policy/readings";
 import { REGISTERS, registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
-import { amendRefusal, reportIssuerRefusal, reportResponderRefusal } from "@/lib/policy/reports";
-import { signatureRefusal } from "@/lib/policy/signatures";
+import {
+  amendRefusal,
+  draftPreviewRefusal,
+  provisionalConformityRefusal,
+  reportIssuerRefusal,
+  reportResponderRefusal,
+} from "@/lib/policy/reports";
+import { sameSignerRefusal, signatureRefusal } from "@/lib/policy/signatures";
 
 const actor = (role: Actor["role"], customerId: string | null = null): Actor => ({
   id: "u1",
@@ -155,6 +161,61 @@ describe("who signs what (21 CFR 11.50 meanings)", () => {
   });
 });
 
+describe("parameters approved, and one person not signing both performed and an approval", () => {
+  const job = (status: import("@/lib/domain/jobs").JobStatus) => ({
+    status,
+    customerId: "cA",
+    assignedInstallerId: "u1",
+  });
+  it("only an engineer approves parameters, and only while the job is in review", () => {
+    expect(
+      signatureRefusal(actor("engineer"), { meaning: "parameters_approved", job: job("in_review") }),
+    ).toBeNull();
+    expect(
+      signatureRefusal(actor("engineer"), { meaning: "parameters_approved", job: job("measuring") }),
+    ).toMatch(/submitted it for review/);
+    for (const r of ["admin", "inspector", "installer"] as const)
+      expect(signatureRefusal(actor(r), { meaning: "parameters_approved", job: job("in_review") })).toMatch(
+        /engineer/,
+      );
+  });
+  // Segregation of duties (ISO/IEC 17025:2017 §7.8.2.1 o; 21 CFR 11.50): common practice.
+  const given = [{ meaning: "performed" as const, signerId: "u1" }];
+  it("the performer may not approve the parameters or issue the report unless the company allows it", () => {
+    for (const meaning of ["parameters_approved", "approved"] as const) {
+      expect(sameSignerRefusal(actor("engineer"), { meaning, given, allowSameSigner: false })).toMatch(
+        /signed this work as performed/,
+      );
+      expect(sameSignerRefusal(actor("engineer"), { meaning, given, allowSameSigner: true })).toBeNull();
+      expect(sameSignerRefusal({ id: "u2" }, { meaning, given, allowSameSigner: false })).toBeNull();
+    }
+  });
+  it("the approver may not sign the work as performed; other meanings do not clash", () => {
+    const approved = [{ meaning: "parameters_approved" as const, signerId: "u1" }];
+    expect(
+      sameSignerRefusal(actor("installer"), {
+        meaning: "performed",
+        given: approved,
+        allowSameSigner: false,
+      }),
+    ).toMatch(/You approved this job/);
+    expect(
+      sameSignerRefusal(actor("inspector"), { meaning: "inspected", given, allowSameSigner: false }),
+    ).toBeNull();
+  });
+});
+
+describe("report drafts and the provisional statement of conformity", () => {
+  it("staff preview the draft and see the provisional statement; customers never", () => {
+    for (const r of ["admin", "installer", "inspector", "engineer"] as const) {
+      expect(draftPreviewRefusal(actor(r))).toBeNull();
+      expect(provisionalConformityRefusal(actor(r))).toBeNull();
+    }
+    expect(draftPreviewRefusal(actor("customer", "cA"))).toMatch(/staff/);
+    expect(provisionalConformityRefusal(actor("customer", "cA"))).toMatch(/once the report is issued/);
+  });
+});
+
 describe("checklist readings and the status moves of the checklist", () => {
   const job = (
     status: Parameters<typeof readingsRefusal>[1]["status"],
@@ -168,11 +229,15 @@ describe("checklist readings and the status moves of the checklist", () => {
     for (const s of ["in_review", "approved", "issued", "accepted", "rejected"] as const)
       expect(readingsRefusal(actor("installer"), job(s))).toMatch(/locked/);
   });
-  it("another installer, an inspector, an engineer and a customer may not record", () => {
+  it("another installer, an inspector, a customer and the office may not record; an engineer may", () => {
+    // Segregation of duties (ISO/IEC 17025:2017 §7.5.1): a reading is the record of the person who took it.
     expect(readingsRefusal(actor("installer"), job("measuring", "u2"))).toMatch(/assigned/);
-    for (const r of ["inspector", "engineer", "customer"] as const)
+    for (const r of ["inspector", "customer"] as const)
       expect(readingsRefusal(actor(r, "cA"), job("measuring"))).not.toBeNull();
-    expect(readingsRefusal(actor("admin"), job("measuring", "u2"))).toBeNull();
+    expect(readingsRefusal(actor("admin"), job("measuring", "u2"))).toMatch(/never from the office/);
+    expect(readingsRefusal(actor("admin"), job("measuring", "u1"))).toMatch(/never from the office/);
+    expect(readingsRefusal(actor("engineer"), job("measuring", "u2"))).toBeNull();
+    expect(readingsRefusal(actor("engineer"), job("approved", "u2"))).toMatch(/locked/);
   });
   it("an installer submits for review but cannot approve; only an engineer approves", () => {
     expect(

@@ -56,8 +56,17 @@ describe("readingSection", () => {
       { step: "Spindle run-out", lower: null, upper: 0.01, pre: 0.014, post: 0.004, unit: "mm", digits: 4 },
     ]);
   });
+  it("prints the step's own decision rule and limit source beside a judged row (ISO/IEC 17025:2017 §7.8.6.1)", () => {
+    const s = readingSection([
+      { ...row, decisionRule: "guarded", limitSourceNote: "HC-40 manual §4.2" },
+      { ...row, title: "Tram", status: "fail", limitSource: "standard", limitSourceNote: null },
+    ]);
+    expect(s.rows[0]!.basis).toBe("Rule: guarded (ISO 14253-1); limit: Maker's manual: HC-40 manual §4.2");
+    expect(s.rows[1]!.basis).toBe("Rule: simple; limit: Standard");
+  });
   it("calls a reading without a limit 'recorded' and draws no chart for it", () => {
     const s = readingSection([{ ...row, upperLimit: null, status: "no_limit" }]);
+    expect(s.rows[0]!.basis).toBeUndefined();
     expect(s.rows[0]!.decision).toBe("recorded");
     expect(s.chart).toEqual([]);
   });

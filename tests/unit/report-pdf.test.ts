@@ -52,6 +52,15 @@ describe("report PDF", () => {
     expect(text).toMatch(/\d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC/);
   });
 
+  it("prints the decision rule and limit source beside each judged row (ISO/IEC 17025:2017 §7.8.6.1)", () => {
+    const flat = text.replace(/\s+/g, " ");
+    const judged = [...sampleReport.readings, ...sampleReport.parameters, ...sampleReport.testPart].filter(
+      (r) => r.basis,
+    );
+    expect(judged.length).toBeGreaterThanOrEqual(4);
+    for (const r of judged) expect(flat).toContain(r.basis!.replace(/\s+/g, " "));
+  });
+
   it("ends with a clear end-of-report mark", () => {
     expect(text).toContain("END OF REPORT");
   });

@@ -4,7 +4,9 @@ import { notFound } from "next/navigation";
 import { StatusFlow } from "@/components/jobs/status-flow";
 import { Card, Facts } from "@/components/ui/card";
 import { SafetyNote } from "@/components/ui/safety-note";
+import { ConformityStatement } from "@/components/report/conformity-statement";
 import { getJobDetail } from "@/db/queries/jobs";
+import { getJobConformity } from "@/db/queries/reports";
 import { headHistoryRefusal } from "@/lib/policy/heads";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
@@ -27,12 +29,23 @@ export default async function JobPage({ params }: Props) {
   const d = await getJobDetail(user, id);
   if (!d) notFound();
   const { job, site, machine, head, installer } = d;
+  const statement = await getJobConformity(user, id);
 
   return (
     <div className="space-y-6">
       <Card>
         <StatusFlow status={job.status} />
       </Card>
+      {statement ? (
+        <ConformityStatement
+          conformity={statement.conformity}
+          note={
+            statement.issuedRevision !== null
+              ? `As issued in the report, revision ${statement.issuedRevision}.`
+              : "Provisional: the record as it stands now, by the rule the report will use; it is final when the report is issued."
+          }
+        />
+      ) : null}
 
       <div className="grid gap-6 lg:grid-cols-2">
         <Card title="Host machine">

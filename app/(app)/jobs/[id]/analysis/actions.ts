@@ -22,17 +22,23 @@ export const runFitAction = action(
   },
 );
 
-/** An engineer approves a fit as the job's parameter set (in review → approved; audited). */
+/**
+ * An engineer approves a fit as the job's parameter set: a signature ("parameters approved") given
+ * with the password entered again (in review → approved; signed and audited together).
+ */
 export const approveFitAction = action(
   {
     schema: z.object({
       jobId: zUuid("jobId must be a job id"),
       analysisId: zUuid("analysisId must be an analysis id"),
+      password: z
+        .string({ error: "Re-enter your password to sign." })
+        .min(1, "Re-enter your password to sign."),
     }),
     refusal: fitApproverRefusal,
   },
-  async ({ jobId, analysisId }, actor) => {
-    const r = await approveAnalysis(actor, analysisId);
+  async ({ jobId, analysisId, password }, actor) => {
+    const r = await approveAnalysis(actor, analysisId, password);
     revalidatePath(`/jobs/${jobId}`, "layout");
     return r;
   },

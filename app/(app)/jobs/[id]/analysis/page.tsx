@@ -327,7 +327,20 @@ function FitSection({
               approved; the values to enter in the control are then shown here.
             </p>
             {mayApprove ? (
-              <ApproveButton jobId={jobId} analysisId={a.id} refusal={refusal} />
+              <ApproveButton
+                jobId={jobId}
+                analysisId={a.id}
+                refusal={refusal}
+                nonConforming={parameterRows(fit, limits)
+                  .filter((p) => p.decision === "fail" || p.decision === "undecided")
+                  .map((p) => ({
+                    key: p.key,
+                    label: `${p.iso} (${p.words})`,
+                    decisionText: p.decisionText,
+                    valueText: p.valueText,
+                    toleranceText: p.toleranceText,
+                  }))}
+              />
             ) : (
               <p className="text-sm text-graphite-600">{refusal}</p>
             )}

@@ -14,7 +14,7 @@ import { SIGNATURE_LABELS } from "@/lib/domain/signatures";
 import { signatureRefusal } from "@/lib/policy/signatures";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
-import { amendRefusal, deviationRefusal, readinessRefusal } from "@/lib/policy/reports";
+import { amendRefusal, deviationRefusal, draftPreviewRefusal, readinessRefusal } from "@/lib/policy/reports";
 import { issueReportAction, recordDeviationAction, respondAction, signWorkAction } from "./actions";
 
 export const metadata: Metadata = { title: "Report" };
@@ -81,6 +81,21 @@ export default async function ReportPage({ params }: Props) {
                 approving the head&apos;s parameters. Until then the work is signed here as performed and
                 inspected.
               </p>
+              {draftPreviewRefusal(user) === null ? (
+                <p className="mt-3">
+                  <a
+                    href={`/api/jobs/${d.job.id}/report/draft`}
+                    target="_blank"
+                    rel="noopener"
+                    className="inline-flex min-h-touch items-center rounded-lg border border-graphite-300 bg-white px-4 font-semibold"
+                  >
+                    Preview the draft (PDF)
+                  </a>
+                  <span className="ml-3 text-sm text-graphite-600">
+                    Watermarked DRAFT, unsigned and not stored.
+                  </span>
+                </p>
+              ) : null}
             </Card>
             {view ? (
               <section aria-label="Readiness" id="readiness">

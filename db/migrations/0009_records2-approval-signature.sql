@@ -1,0 +1,1 @@
+ALTER TYPE "public"."signature_meaning" ADD VALUE 'parameters_approved' BEFORE 'approved';
