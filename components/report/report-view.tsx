@@ -1,85 +1,7 @@
-import { ScrollRegion } from "@/components/ui/scroll-region";
+import { DECISION, ReportTable, Rows, Section } from "@/components/report/report-parts";
 import { ConformityStatement } from "@/components/report/conformity-statement";
 import { ReportFigures } from "@/components/report/report-charts";
 import type { Decision, ReportData } from "@/lib/report/types";
-
-const DECISION: Record<Decision, { text: string; cls: string }> = {
-  pass: { text: "✓ Pass", cls: "text-pass-700" },
-  fail: { text: "✗ Fail", cls: "text-fail-700" },
-  undecided: { text: "? Undecided", cls: "text-undecided-700" },
-  not_measured: { text: "– Not measured", cls: "text-unmeasured-600" },
-  recorded: { text: "• Recorded", cls: "text-unmeasured-600" },
-};
-
-function Section({ n, title, children }: { n: number; title: string; children: React.ReactNode }) {
-  return (
-    <section className="space-y-2">
-      <h3 className="border-b border-graphite-200 pb-1 text-base font-semibold">
-        {n} {title}
-      </h3>
-      {children}
-    </section>
-  );
-}
-
-function Rows({ rows }: { rows: Array<[string, string | undefined]> }) {
-  return (
-    <dl className="grid grid-cols-[minmax(7rem,auto)_minmax(0,1fr)] gap-x-6 gap-y-1 text-sm">
-      {rows
-        .filter((r): r is [string, string] => Boolean(r[1]))
-        .map(([k, v]) => (
-          <div key={k} className="contents">
-            <dt className="text-graphite-600">{k}</dt>
-            <dd className="break-words">{v}</dd>
-          </div>
-        ))}
-    </dl>
-  );
-}
-
-function Table({
-  head,
-  rows,
-  numeric = [],
-}: {
-  head: string[];
-  rows: React.ReactNode[][];
-  numeric?: number[];
-}) {
-  return (
-    <ScrollRegion label={`Table: ${head.slice(0, 3).join(", ")}`}>
-      <table className="w-full text-sm">
-        <thead className="bg-graphite-50 text-graphite-600">
-          <tr>
-            {head.map((h, i) => (
-              <th
-                key={h}
-                scope="col"
-                className={`px-3 py-2 font-medium ${numeric.includes(i) ? "text-right" : "text-left"}`}
-              >
-                {h}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody className="divide-y divide-graphite-100">
-          {rows.map((r, i) => (
-            <tr key={i}>
-              {r.map((c, j) => (
-                <td
-                  key={j}
-                  className={`px-3 py-2 ${numeric.includes(j) ? "num whitespace-nowrap text-right" : ""}`}
-                >
-                  {c}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </ScrollRegion>
-  );
-}
 
 /** The report read online: the same content, in the same order, as the signed PDF. */
 export function ReportView({ data }: { data: ReportData }) {
@@ -151,7 +73,7 @@ export function ReportView({ data }: { data: ReportData }) {
       </Section>
       <Section n={3} title="Instruments">
         {data.instruments.length ? (
-          <Table
+          <ReportTable
             head={["Instrument", "Serial", "Resolution", "Std. uncertainty", "Calibration due", "Status"]}
             numeric={[2, 3]}
             rows={data.instruments.map((r) => [
@@ -169,7 +91,7 @@ export function ReportView({ data }: { data: ReportData }) {
       </Section>
       <Section n={4} title="Readings before and after adjustment">
         {data.readings.length ? (
-          <Table
+          <ReportTable
             head={["Step", "Limits", "Before", "After", "Change", "Result"]}
             numeric={[2, 3, 4]}
             rows={data.readings.map((r) => [
@@ -187,7 +109,7 @@ export function ReportView({ data }: { data: ReportData }) {
       </Section>
       <Section n={5} title="Kinematic parameters of the head">
         {data.parameters.length ? (
-          <Table
+          <ReportTable
             head={["Parameter", "ISO 230-1", "Value", "U (k = 2)", "Tolerance", "Identifiable", "Result"]}
             numeric={[2, 3, 4]}
             rows={data.parameters.map((p) => [
@@ -206,7 +128,7 @@ export function ReportView({ data }: { data: ReportData }) {
       </Section>
       <Section n={6} title="Test part">
         {data.testPart.length ? (
-          <Table
+          <ReportTable
             head={["Feature", "Characteristic", "Nominal", "Measured", "Deviation", "Limits", "U", "Result"]}
             numeric={[2, 3, 4, 5, 6]}
             rows={data.testPart.map((r) => [

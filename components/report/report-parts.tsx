@@ -1,0 +1,81 @@
+/** The report's building blocks on the page: numbered sections, label/value rows, tables, decision text. */
+import { ScrollRegion } from "@/components/ui/scroll-region";
+import type { Decision } from "@/lib/report/types";
+
+export const DECISION: Record<Decision, { text: string; cls: string }> = {
+  pass: { text: "✓ Pass", cls: "text-pass-700" },
+  fail: { text: "✗ Fail", cls: "text-fail-700" },
+  undecided: { text: "? Undecided", cls: "text-undecided-700" },
+  not_measured: { text: "– Not measured", cls: "text-unmeasured-600" },
+  recorded: { text: "• Recorded", cls: "text-unmeasured-600" },
+};
+
+export function Section({ n, title, children }: { n: number; title: string; children: React.ReactNode }) {
+  return (
+    <section className="space-y-2">
+      <h3 className="border-b border-graphite-200 pb-1 text-base font-semibold">
+        {n} {title}
+      </h3>
+      {children}
+    </section>
+  );
+}
+
+export function Rows({ rows }: { rows: Array<[string, string | undefined]> }) {
+  return (
+    <dl className="grid grid-cols-[minmax(7rem,auto)_minmax(0,1fr)] gap-x-6 gap-y-1 text-sm">
+      {rows
+        .filter((r): r is [string, string] => Boolean(r[1]))
+        .map(([k, v]) => (
+          <div key={k} className="contents">
+            <dt className="text-graphite-600">{k}</dt>
+            <dd className="break-words">{v}</dd>
+          </div>
+        ))}
+    </dl>
+  );
+}
+
+export function ReportTable({
+  head,
+  rows,
+  numeric = [],
+}: {
+  head: string[];
+  rows: React.ReactNode[][];
+  numeric?: number[];
+}) {
+  return (
+    <ScrollRegion label={`Table: ${head.slice(0, 3).join(", ")}`}>
+      <table className="w-full text-sm">
+        <thead className="bg-graphite-50 text-graphite-600">
+          <tr>
+            {head.map((h, i) => (
+              <th
+                key={h}
+                scope="col"
+                className={`px-3 py-2 font-medium ${numeric.includes(i) ? "text-right" : "text-left"}`}
+              >
+                {h}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody className="divide-y divide-graphite-100">
+          {rows.map((r, i) => (
+            <tr key={i}>
+              {r.map((c, j) => (
+                <td
+                  key={j}
+                  className={`px-3 py-2 ${numeric.includes(j) ? "num whitespace-nowrap text-right" : ""}`}
+                >
+                  {c}
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </ScrollRegion>
+  );
+}
