@@ -2,6 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
+import { refuseRetired } from "@/db/queries/registers-admin";
 import type { StoredHeadFit } from "@/db/queries/analyses";
 import { jobAccessCondition } from "@/db/queries/jobs";
 import { analyses, auditEvents, customers, datasets, heads, jobs, machines, sites } from "@/db/schema";
@@ -42,12 +43,18 @@ export async function mountHead(actor: Actor, headId: string, machineId: string 
   let label = "not mounted";
   if (machineId) {
     const [m] = await db
-      .select({ name: machines.name, site: sites.name, customer: customers.name })
+      .select({
+        name: machines.name,
+        site: sites.name,
+        customer: customers.name,
+        retiredAt: machines.retiredAt,
+      })
       .from(machines)
       .innerJoin(sites, eq(sites.id, machines.siteId))
       .innerJoin(customers, eq(customers.id, sites.customerId))
       .where(eq(machines.id, machineId));
     if (!m) throw invalid("Choose a host machine.", [{ field: "machineId", message: "No such machine." }]);
+    refuseRetired(m, "machineId", "host machine");
     label = `${m.name} (${m.customer}, ${m.site})`;
   }
   if (h.machineId === machineId) return { changed: false };

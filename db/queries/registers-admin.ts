@@ -1,5 +1,5 @@
 import "server-only";
-import { and, eq, ne, sql } from "drizzle-orm";
+import { and, eq, isNull, ne, sql } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
@@ -55,8 +55,12 @@ export async function createCustomer(actor: Actor, input: z.infer<typeof custome
 
 export async function createSite(actor: Actor, input: z.infer<typeof siteCreateSchema>) {
   requireAdmin(actor);
-  const [c] = await db.select({ id: customers.id }).from(customers).where(eq(customers.id, input.customerId));
+  const [c] = await db
+    .select({ id: customers.id, retiredAt: customers.retiredAt })
+    .from(customers)
+    .where(eq(customers.id, input.customerId));
   if (!c) throw invalid("Choose a customer.", [{ field: "customerId", message: "No such customer." }]);
+  refuseRetired(c, "customerId", "customer");
   const [dupe] = await db
     .select({ id: sites.id })
     .from(sites)
@@ -77,8 +81,12 @@ export async function createSite(actor: Actor, input: z.infer<typeof siteCreateS
 
 export async function createMachine(actor: Actor, input: z.infer<typeof machineCreateSchema>) {
   requireAdmin(actor);
-  const [s] = await db.select({ id: sites.id }).from(sites).where(eq(sites.id, input.siteId));
+  const [s] = await db
+    .select({ id: sites.id, retiredAt: sites.retiredAt })
+    .from(sites)
+    .where(eq(sites.id, input.siteId));
   if (!s) throw invalid("Choose a site.", [{ field: "siteId", message: "No such site." }]);
+  refuseRetired(s, "siteId", "site");
   return db.transaction(async (tx) => {
     const [row] = await tx
       .insert(machines)
@@ -130,11 +138,13 @@ export async function createHead(actor: Actor, input: z.infer<typeof headCreateS
   });
 }
 
+/** Sites that take new work (neither the site nor its customer retired), for pickers. */
 export async function listSitesForSelect() {
   return db
     .select({ id: sites.id, name: sites.name, customerName: customers.name })
     .from(sites)
     .innerJoin(customers, eq(customers.id, sites.customerId))
+    .where(and(isNull(sites.retiredAt), isNull(customers.retiredAt)))
     .orderBy(customers.name, sites.name);
 }
 
@@ -147,9 +157,11 @@ export function assertRegisterEdit(actor: Actor, register: Register) {
 type RegisterTable = typeof customers | typeof sites | typeof machines | typeof heads | typeof instruments;
 
 /**
- * Applies a correction to one register row and audits what changed (`<entity>.updated`, old and
- * new values of the changed fields only), in one transaction. Returns null when there is no such
- * row (the route answers 404), the row unchanged when nothing differs.
+ * Applies a correction to one register row and audits what changed, in one transaction: the old
+ * and new values of the changed fields only, as `<entity>.updated` — or `<entity>.retired` /
+ * `<entity>.restored` when the only change is `retired` (retired_at stamped now, or cleared; an
+ * instrument's `retired` flag follows). Returns null when there is no such row (the route answers
+ * 404), the row unchanged when nothing differs.
  */
 export async function updateRegisterRow<T extends RegisterTable>(
   actor: Actor,
@@ -158,6 +170,7 @@ export async function updateRegisterRow<T extends RegisterTable>(
   entityType: string,
   id: string,
   set: Partial<T["$inferInsert"]>,
+  retired?: boolean,
 ): Promise<T["$inferSelect"] | null> {
   assertRegisterEdit(actor, register);
   if (!isUuid(id)) return null;
@@ -168,16 +181,22 @@ export async function updateRegisterRow<T extends RegisterTable>(
       unknown
     >[];
     if (!before) return null;
-    const changed = Object.entries(set).filter(
+    const changed: [string, unknown][] = Object.entries(set).filter(
       ([k, v]) => v !== undefined && JSON.stringify(before[k] ?? null) !== JSON.stringify(v),
     );
+    const retiring = retired !== undefined && (before.retiredAt != null) !== retired;
+    if (retiring) {
+      changed.push(["retiredAt", retired ? new Date() : null]);
+      if (table === instruments) changed.push(["retired", retired]);
+    }
     if (changed.length === 0) return before as T["$inferSelect"];
     const next = Object.fromEntries(changed);
     const [row] = await tx.update(t).set(next).where(eq(t.id, id)).returning();
+    const onlyRetirement = retiring && changed.every(([k]) => k === "retiredAt" || k === "retired");
     await appendAudit(tx, {
       actorId: actor.id,
       actorEmail: actor.email,
-      action: `${entityType}.updated`,
+      action: `${entityType}.${onlyRetirement ? (retired ? "retired" : "restored") : "updated"}`,
       entityType,
       entityId: id,
       oldValues: Object.fromEntries(changed.map(([k]) => [k, before[k] ?? null])),
@@ -185,6 +204,14 @@ export async function updateRegisterRow<T extends RegisterTable>(
     });
     return row as T["$inferSelect"];
   });
+}
+
+/** Refuses (422, naming the field) a new row under a retired parent: retired rows take no new work. */
+export function refuseRetired(parent: { retiredAt: Date | null } | undefined, field: string, what: string) {
+  if (parent?.retiredAt)
+    throw invalid(`The ${what} is retired; bring it back in the register first.`, [
+      { field, message: `This ${what} is retired.` },
+    ]);
 }
 
 /** Turns a PostgreSQL unique violation on `column` into a 422 naming the field; rethrows anything else. */
@@ -204,10 +231,18 @@ const blankToNull = (v: string | undefined) => (v === undefined ? undefined : v.
 
 export function updateCustomer(actor: Actor, id: string, input: z.infer<typeof customerPatchSchema>) {
   return uniqueAs("name", "A customer with that name is already registered.", () =>
-    updateRegisterRow(actor, "customers", customers, "customer", id, {
-      name: input.name,
-      contactEmail: blankToNull(input.contactEmail),
-    }),
+    updateRegisterRow(
+      actor,
+      "customers",
+      customers,
+      "customer",
+      id,
+      {
+        name: input.name,
+        contactEmail: blankToNull(input.contactEmail),
+      },
+      input.retired,
+    ),
   );
 }
 
@@ -226,32 +261,56 @@ export async function updateSite(actor: Actor, id: string, input: z.infer<typeof
         { field: "name", message: "Already registered." },
       ]);
   }
-  return updateRegisterRow(actor, "customers", sites, "site", id, {
-    name: input.name,
-    address: blankToNull(input.address),
-  });
+  return updateRegisterRow(
+    actor,
+    "customers",
+    sites,
+    "site",
+    id,
+    {
+      name: input.name,
+      address: blankToNull(input.address),
+    },
+    input.retired,
+  );
 }
 
 export function updateMachine(actor: Actor, id: string, input: z.infer<typeof machinePatchSchema>) {
-  return updateRegisterRow(actor, "machines", machines, "machine", id, {
-    name: input.name,
-    kind: input.kind,
-    builder: blankToNull(input.builder),
-    model: blankToNull(input.model),
-    serial: blankToNull(input.serial),
-    control: blankToNull(input.control),
-  });
+  return updateRegisterRow(
+    actor,
+    "machines",
+    machines,
+    "machine",
+    id,
+    {
+      name: input.name,
+      kind: input.kind,
+      builder: blankToNull(input.builder),
+      model: blankToNull(input.model),
+      serial: blankToNull(input.serial),
+      control: blankToNull(input.control),
+    },
+    input.retired,
+  );
 }
 
 export function updateHead(actor: Actor, id: string, input: z.infer<typeof headPatchSchema>) {
   return uniqueAs("serial", "A head with that serial is already registered.", () =>
-    updateRegisterRow(actor, "heads", heads, "head", id, {
-      serial: input.serial,
-      maker: blankToNull(input.maker),
-      model: blankToNull(input.model),
-      nominalPivotLengthMm: input.nominalPivotLengthMm,
-      toolAxisOffsetMm: input.toolAxisOffsetMm,
-      massKg: input.massKg,
-    }),
+    updateRegisterRow(
+      actor,
+      "heads",
+      heads,
+      "head",
+      id,
+      {
+        serial: input.serial,
+        maker: blankToNull(input.maker),
+        model: blankToNull(input.model),
+        nominalPivotLengthMm: input.nominalPivotLengthMm,
+        toolAxisOffsetMm: input.toolAxisOffsetMm,
+        massKg: input.massKg,
+      },
+      input.retired,
+    ),
   );
 }

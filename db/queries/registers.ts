@@ -17,6 +17,7 @@ export async function listCustomersWithSites(actor: Actor) {
       id: customers.id,
       name: customers.name,
       contactEmail: customers.contactEmail,
+      retiredAt: customers.retiredAt,
       sites: sql<
         string[]
       >`coalesce(array_agg(${sites.name} order by ${sites.name}) filter (where ${sites.id} is not null), '{}')`,
@@ -37,6 +38,7 @@ export async function listMachines(actor: Actor) {
       builder: machines.builder,
       model: machines.model,
       serial: machines.serial,
+      retiredAt: machines.retiredAt,
       siteName: sites.name,
       customerName: customers.name,
     })
@@ -58,6 +60,7 @@ export async function listHeads(actor: Actor) {
       secondaryAxis: heads.secondaryAxis,
       nominalPivotLengthMm: heads.nominalPivotLengthMm,
       massKg: heads.massKg,
+      retiredAt: heads.retiredAt,
       machineName: machines.name,
     })
     .from(heads)
@@ -72,6 +75,7 @@ export async function listSites(actor: Actor) {
       id: sites.id,
       name: sites.name,
       address: sites.address,
+      retiredAt: sites.retiredAt,
       customerId: sites.customerId,
       customerName: customers.name,
     })

@@ -101,12 +101,13 @@ export const headCreateSchema = headFields.refine((v) => v.primaryAxis !== v.sec
 /**
  * Corrections through the office's API (`PATCH /api/<register>/{id}`): any subset of the fields
  * a row was created with, except what ties it to other records (a site's customer, a machine's
- * site, a head's axes, an instrument's quantity). Unknown fields are refused by name, so a typo
+ * site, a head's axes, an instrument's quantity), and `retired: true | false`. Unknown fields are refused by name, so a typo
  * is not silently ignored; an empty body changes nothing and is refused too.
  */
 const patch = <T extends z.ZodRawShape>(fields: z.ZodObject<T>) => {
-  const known = new Set(Object.keys(fields.shape));
+  const known = new Set([...Object.keys(fields.shape), "retired"]);
   return fields
+    .extend({ retired: z.boolean({ message: "Say true to retire the row, false to bring it back." }) })
     .partial()
     .catchall(z.unknown())
     .superRefine((v, ctx) => {
@@ -149,3 +150,17 @@ export const instrumentPatchSchema = patch(
 
 /** `GET /api/users?role=`: the people register, optionally one role. */
 export const userListQuerySchema = z.object({ role: z.enum(ROLES).optional() });
+
+/** `POST /api/instruments/{id}/calibrations`: one calibration, as its certificate states it. */
+export const calibrationCreateSchema = z
+  .object({
+    calibratedOn: isoDate,
+    dueOn: isoDate,
+    certificateRef: z.string().trim().min(1, "Give the certificate number.").max(120),
+    laboratory: z.string().trim().min(2, "Name the laboratory that calibrated it.").max(200),
+  })
+  .strict()
+  .refine((v) => v.calibratedOn < v.dueOn, {
+    path: ["dueOn"],
+    message: "The due date must follow the calibration.",
+  });

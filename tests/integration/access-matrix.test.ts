@@ -63,6 +63,7 @@ const COVERED = new Set([
   "app/api/heads/[id]/route.ts",
   "app/api/instruments/route.ts",
   "app/api/instruments/[id]/route.ts",
+  "app/api/instruments/[id]/calibrations/route.ts",
   "app/api/users/route.ts",
   "app/api/procedures/route.ts",
   "app/api/procedures/[id]/route.ts",

@@ -18,8 +18,21 @@ import { PATCH as instrumentPatch } from "@/app/api/instruments/[id]/route";
 import { GET as usersGet } from "@/app/api/users/route";
 import { GET as proceduresGet } from "@/app/api/procedures/route";
 import { GET as procedureGet } from "@/app/api/procedures/[id]/route";
+import { POST as calibrationPost } from "@/app/api/instruments/[id]/calibrations/route";
+import { GET as jobGet } from "@/app/api/jobs/[id]/route";
+import { createJobFromTemplate } from "@/db/queries/job-status";
+import { getActor } from "@/db/queries/users";
 import { db } from "@/db";
-import { auditEvents, customers, heads, instruments, machines, procedureTemplates, sites } from "@/db/schema";
+import {
+  auditEvents,
+  customers,
+  heads,
+  instrumentCalibrations,
+  instruments,
+  machines,
+  procedureTemplates,
+  sites,
+} from "@/db/schema";
 import { request, signInAs } from "./helpers";
 
 type Handler = (req: Request, ctx: { params: Promise<{ id: string }> }) => Promise<Response>;
@@ -93,12 +106,38 @@ beforeAll(async () => {
     (await db.select({ id: customers.id }).from(customers).where(eq(customers.name, name)))[0]!.id;
   ids.marlow = await byName("Marlow Creek Aerostructures");
   ids.tollan = await byName("Tollan Mold Works");
-  ids.site = (await db.select({ id: sites.id }).from(sites).where(eq(sites.customerId, ids.tollan)))[0]!.id;
-  ids.machine = (
-    await db.select({ id: machines.id }).from(machines).where(eq(machines.siteId, ids.site))
+  // Rows of this file's own, so the corrections below change nothing other test files rely on.
+  const u = uniq();
+  ids.site = (
+    await db
+      .insert(sites)
+      .values({ customerId: ids.tollan, name: `Site ${u}` })
+      .returning()
   )[0]!.id;
-  ids.head = (await db.select({ id: heads.id }).from(heads).where(eq(heads.serial, "TH-1907")))[0]!.id;
-  ids.instrument = (await db.select({ id: instruments.id }).from(instruments).limit(1))[0]!.id;
+  ids.machine = (
+    await db
+      .insert(machines)
+      .values({ siteId: ids.site, name: `Mill ${u}` })
+      .returning()
+  )[0]!.id;
+  ids.head = (
+    await db
+      .insert(heads)
+      .values({ serial: `H-${u}`, primaryAxis: "C", secondaryAxis: "A", nominalPivotLengthMm: 200 })
+      .returning()
+  )[0]!.id;
+  ids.instrument = (
+    await db
+      .insert(instruments)
+      .values({
+        kind: "dial test indicator",
+        serial: `I-${u}`,
+        resolution: 0.001,
+        standardUncertainty: 0.001,
+        calibrationDueOn: "2027-06-30",
+      })
+      .returning()
+  )[0]!.id;
   ids.procedure = (await db.select({ id: procedureTemplates.id }).from(procedureTemplates).limit(1))[0]!.id;
 });
 
@@ -166,14 +205,33 @@ describe("register API access matrix", () => {
         expect(answers.map((r) => r.status)).toEqual([created, created, created, created, created]);
       });
 
+      const calibrated = cells.write === 200 ? 201 : cells.write;
+      it(`POST /api/instruments/{id}/calibrations answers ${calibrated}`, async () => {
+        await signInAs(email);
+        const res = await calibrationPost(
+          request(
+            `/api/instruments/${ids.instrument}/calibrations`,
+            json("POST", {
+              calibratedOn: "2026-01-15",
+              dueOn: "2027-01-15",
+              certificateRef: `CERT-${uniq()}`,
+              laboratory: "Invented Metrology Lab",
+            }),
+          ),
+          p(ids.instrument),
+        );
+        expect(res.status).toBe(calibrated);
+      });
+
       it(`PATCH on a row of every register answers ${cells.write}`, async () => {
         await signInAs(email);
         const answers = [
-          // A customer user correcting their own company's row is refused like any other.
+          // A customer user correcting their own company's row is refused like any other. (The
+          // administrator's correction repeats the seeded address: 200, and nothing changes.)
           await patch(customerPatch, "/api/customers", ids.marlow, {
-            contactEmail: "office@marlowcreek.example",
+            contactEmail: "buyer@marlowcreek.example",
           }),
-          await patch(customerPatch, "/api/customers", ids.tollan, { contactEmail: "office@tollan.example" }),
+          await patch(customerPatch, "/api/customers", ids.tollan, { contactEmail: "buyer@tollan.example" }),
           await patch(sitePatch, "/api/sites", ids.site, { address: "Unit 4, Tollan Road" }),
           await patch(machinePatch, "/api/machines", ids.machine, { control: "five-axis control" }),
           await patch(headPatch, "/api/heads", ids.head, { massKg: 410 }),
@@ -333,5 +391,207 @@ describe("register API: creating, correcting and refusing bad input (administrat
     const bad = await get(usersGet, "/api/users?role=boss");
     expect(bad.status).toBe(422);
     expect((await bad.json()).error.issues[0].field).toBe("role");
+  });
+});
+
+describe("retiring register rows and recalibrating instruments (administrator)", () => {
+  beforeAll(async () => {
+    await signInAs("admin@halvard.example");
+  });
+  const events = async (id: string) =>
+    (await db.select().from(auditEvents).where(eq(auditEvents.entityId, id))).map((e) => e.action);
+
+  it("a retired head and machine stay readable on their old job, and take no new job", async () => {
+    const admin = (await getActor((await signInAs("admin@halvard.example"))!))!;
+    const u = uniq();
+    const machine = (
+      await (
+        await post(machinesPost, "/api/machines", {
+          siteId: ids.site,
+          name: `Old mill ${u}`,
+          kind: "bridge mill",
+        })
+      ).json()
+    ).machine;
+    const head = (
+      await (
+        await post(headsPost, "/api/heads", {
+          serial: `OLD-${u}`,
+          primaryAxis: "C",
+          secondaryAxis: "A",
+          nominalPivotLengthMm: 220,
+        })
+      ).json()
+    ).head;
+    const jobInput = {
+      templateId: ids.procedure,
+      machineId: machine.id as string,
+      headId: head.id as string,
+      kind: "installation" as const,
+      title: `Job before retirement ${u}`,
+      decisionRule: "simple" as const,
+    };
+    const job = await createJobFromTemplate(admin, jobInput);
+
+    const retired = await patch(headPatch, "/api/heads", head.id, { retired: true });
+    expect(retired.status).toBe(200);
+    expect((await retired.json()).head.retiredAt).not.toBeNull();
+    expect((await patch(machinePatch, "/api/machines", machine.id, { retired: true })).status).toBe(200);
+    // Retiring again changes nothing and adds no event.
+    expect((await patch(headPatch, "/api/heads", head.id, { retired: true })).status).toBe(200);
+    expect((await events(head.id)).filter((a) => a === "head.retired")).toHaveLength(1);
+    expect(await events(machine.id)).toContain("machine.retired");
+
+    const detail = await jobGet(request(`/api/jobs/${job.id}`), p(job.id));
+    expect(detail.status).toBe(200);
+    expect((await detail.json()).job.head.serial).toBe(`OLD-${u}`);
+    const list = await (await get(headsGet, "/api/heads")).json();
+    expect(list.heads.find((h: { id: string }) => h.id === head.id).retiredAt).not.toBeNull();
+
+    await expect(createJobFromTemplate(admin, { ...jobInput, title: "New work" })).rejects.toMatchObject({
+      status: 422,
+      issues: [{ field: "machineId", message: "This host machine is retired." }],
+    });
+    expect((await patch(machinePatch, "/api/machines", machine.id, { retired: false })).status).toBe(200);
+    expect(await events(machine.id)).toContain("machine.restored");
+    await expect(createJobFromTemplate(admin, { ...jobInput, title: "New work" })).rejects.toMatchObject({
+      status: 422,
+      issues: [{ field: "headId", message: "This head is retired." }],
+    });
+  });
+
+  it("a retired customer takes no new site, and a retired site no new machine (422 naming the field)", async () => {
+    const u = uniq();
+    const customer = (
+      await (await post(customersPost, "/api/customers", { name: `Closed Works ${u}` })).json()
+    ).customer;
+    const site = (
+      await (await post(sitesPost, "/api/sites", { customerId: customer.id, name: "Hall 1" })).json()
+    ).site;
+    expect((await patch(sitePatch, "/api/sites", site.id, { retired: true })).status).toBe(200);
+    const m = await post(machinesPost, "/api/machines", {
+      siteId: site.id,
+      name: "Mill",
+      kind: "gantry mill",
+    });
+    expect(m.status).toBe(422);
+    expect((await m.json()).error.issues[0].field).toBe("siteId");
+    expect((await patch(customerPatch, "/api/customers", customer.id, { retired: true })).status).toBe(200);
+    const s2 = await post(sitesPost, "/api/sites", { customerId: customer.id, name: "Hall 2" });
+    expect(s2.status).toBe(422);
+    expect((await s2.json()).error.issues[0].field).toBe("customerId");
+    const bad = await patch(customerPatch, "/api/customers", customer.id, { retired: "yes" });
+    expect((await bad.json()).error.issues[0].field).toBe("retired");
+  });
+
+  it("a recalibration is a new record with the history kept, and brings a retired instrument back", async () => {
+    const u = uniq();
+    const created = await (
+      await post(instrumentsPost, "/api/instruments", {
+        kind: "electronic level",
+        serial: `LVL-${u}`,
+        quantityKind: "angle",
+        resolution: 1,
+        standardUncertainty: 2,
+        unit: "arcsec",
+        calibratedOn: "2025-01-10",
+        calibrationDueOn: "2026-01-10",
+        certificateRef: "C-1",
+      })
+    ).json();
+    const id = created.instrument.id as string;
+    const retired = await (await patch(instrumentPatch, "/api/instruments", id, { retired: true })).json();
+    expect(retired.instrument).toMatchObject({ retired: true });
+    expect(retired.instrument.retiredAt).not.toBeNull();
+
+    const cal = (body: unknown) =>
+      calibrationPost(request(`/api/instruments/${id}/calibrations`, json("POST", body)), p(id));
+    const first = await cal({
+      calibratedOn: "2026-02-01",
+      dueOn: "2027-02-01",
+      certificateRef: "C-2",
+      laboratory: "Invented Lab",
+    });
+    expect(first.status).toBe(201);
+    const body = await first.json();
+    expect(body.instrument).toMatchObject({
+      retired: false,
+      retiredAt: null,
+      calibratedOn: "2026-02-01",
+      calibrationDueOn: "2027-02-01",
+      certificateRef: "C-2",
+    });
+    expect(body.calibration).toMatchObject({ laboratory: "Invented Lab", certificateRef: "C-2" });
+    expect(
+      (
+        await cal({
+          calibratedOn: "2026-03-01",
+          dueOn: "2027-03-01",
+          certificateRef: "C-3",
+          laboratory: "Invented Lab",
+        })
+      ).status,
+    ).toBe(201);
+    const history = await db
+      .select({ ref: instrumentCalibrations.certificateRef })
+      .from(instrumentCalibrations)
+      .where(eq(instrumentCalibrations.instrumentId, id))
+      .orderBy(instrumentCalibrations.calibratedOn);
+    expect(history.map((h) => h.ref)).toEqual(["C-2", "C-3"]);
+    expect((await events(id)).filter((a) => a === "instrument.calibrated")).toHaveLength(2);
+
+    const fields = async (r: Response) => {
+      expect(r.status).toBe(422);
+      return (await r.json()).error.issues.map((i: { field: string }) => i.field);
+    };
+    // Before the last calibration, due before calibrated, in the future, or missing the laboratory.
+    expect(
+      await fields(
+        await cal({
+          calibratedOn: "2026-02-15",
+          dueOn: "2027-02-15",
+          certificateRef: "C-4",
+          laboratory: "Lab",
+        }),
+      ),
+    ).toEqual(["calibratedOn"]);
+    expect(
+      await fields(
+        await cal({
+          calibratedOn: "2026-04-01",
+          dueOn: "2026-03-01",
+          certificateRef: "C-4",
+          laboratory: "Lab",
+        }),
+      ),
+    ).toEqual(["dueOn"]);
+    expect(
+      await fields(
+        await cal({
+          calibratedOn: "2999-01-01",
+          dueOn: "2999-06-01",
+          certificateRef: "C-4",
+          laboratory: "Lab",
+        }),
+      ),
+    ).toEqual(["calibratedOn"]);
+    expect(
+      await fields(await cal({ calibratedOn: "2026-04-01", dueOn: "2027-04-01", certificateRef: "C-4" })),
+    ).toEqual(["laboratory"]);
+    expect(history).toHaveLength(2);
+    const none = "00000000-0000-4000-8000-000000000000";
+    const missing = await calibrationPost(
+      request(
+        `/api/instruments/${none}/calibrations`,
+        json("POST", {
+          calibratedOn: "2026-01-01",
+          dueOn: "2027-01-01",
+          certificateRef: "X",
+          laboratory: "Lab",
+        }),
+      ),
+      p(none),
+    );
+    expect(missing.status).toBe(404);
   });
 });

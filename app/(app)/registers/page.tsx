@@ -74,7 +74,9 @@ export default async function RegistersPage() {
             <CustomerForm />
           </Card>
           <Card title="Add a site">
-            <SiteForm customers={customers.map((c) => ({ id: c.id, label: c.name }))} />
+            <SiteForm
+              customers={customers.filter((c) => !c.retiredAt).map((c) => ({ id: c.id, label: c.name }))}
+            />
           </Card>
           <Card title="Add a host machine" className="lg:col-span-2">
             <MachineForm
