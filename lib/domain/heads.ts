@@ -17,6 +17,8 @@ export interface HeadListRow {
   nominalPivotLengthMm: number;
   massKg: number | null;
   machineName: string | null;
+  /** Set when the head is retired: it stays on its old jobs and takes no new work. */
+  retiredAt?: Date | null;
 }
 
 /** One job on a head with the fit that stands for it: the approved one, or else the latest. */

@@ -151,16 +151,26 @@ export const instrumentPatchSchema = patch(
 /** `GET /api/users?role=`: the people register, optionally one role. */
 export const userListQuerySchema = z.object({ role: z.enum(ROLES).optional() });
 
+const calibrationFields = z.object({
+  calibratedOn: isoDate,
+  dueOn: isoDate,
+  certificateRef: z.string().trim().min(1, "Give the certificate number.").max(120),
+  laboratory: z.string().trim().min(2, "Name the laboratory that calibrated it.").max(200),
+});
+const dueAfter = (v: { calibratedOn: string; dueOn: string }) => v.calibratedOn < v.dueOn;
+const dueAfterMessage = { path: ["dueOn"], message: "The due date must follow the calibration." };
+
 /** `POST /api/instruments/{id}/calibrations`: one calibration, as its certificate states it. */
-export const calibrationCreateSchema = z
-  .object({
-    calibratedOn: isoDate,
-    dueOn: isoDate,
-    certificateRef: z.string().trim().min(1, "Give the certificate number.").max(120),
-    laboratory: z.string().trim().min(2, "Name the laboratory that calibrated it.").max(200),
-  })
-  .strict()
-  .refine((v) => v.calibratedOn < v.dueOn, {
-    path: ["dueOn"],
-    message: "The due date must follow the calibration.",
-  });
+export const calibrationCreateSchema = calibrationFields.strict().refine(dueAfter, dueAfterMessage);
+/** The register page's recalibration form: the same fields and the instrument. */
+export const calibrationFormSchema = calibrationFields
+  .extend({ instrumentId: z.uuid() })
+  .refine(dueAfter, dueAfterMessage);
+
+/** The register pages' retire / bring back control. */
+export const RETIRABLE_REGISTERS = ["customers", "sites", "machines", "heads", "instruments"] as const;
+export const retireFormSchema = z.object({
+  register: z.enum(RETIRABLE_REGISTERS),
+  id: z.uuid(),
+  retired: z.enum(["true", "false"]).transform((v) => v === "true"),
+});
