@@ -30,6 +30,8 @@ export interface HeadHistoryJob {
   readonly status: JobStatus;
   /** When the work was (or is) scheduled, else when the job was created. */
   readonly date: Date;
+  /** May the reader open this job? (An installer reads a head's whole history, opens only their jobs.) */
+  readonly open?: boolean;
   readonly fit: {
     readonly analysisId: string;
     readonly approved: boolean;
