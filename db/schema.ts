@@ -76,6 +76,8 @@ export const customers = pgTable("customers", {
   id: uuid("id").primaryKey().defaultRandom(),
   name: text("name").notNull().unique(),
   contactEmail: text("contact_email"),
+  /** Retired rows stay readable on the jobs that name them and are left out of pickers for new work. */
+  retiredAt: timestamp("retired_at", { withTimezone: true }),
   ...timestamps,
 });
 export type Customer = typeof customers.$inferSelect;
@@ -112,6 +114,8 @@ export const sites = pgTable(
       .references(() => customers.id, { onDelete: "restrict" }),
     name: text("name").notNull(),
     address: text("address"),
+    /** Retired rows stay readable on the jobs that name them and are left out of pickers for new work. */
+    retiredAt: timestamp("retired_at", { withTimezone: true }),
     ...timestamps,
   },
   (t) => [index("sites_customer_idx").on(t.customerId)],
@@ -132,6 +136,8 @@ export const machines = pgTable(
     serial: text("serial"),
     kind: text("kind").notNull().default("machining centre"),
     control: text("control"),
+    /** Retired rows stay readable on the jobs that name them and are left out of pickers for new work. */
+    retiredAt: timestamp("retired_at", { withTimezone: true }),
     ...timestamps,
   },
   (t) => [index("machines_site_idx").on(t.siteId)],
@@ -155,6 +161,8 @@ export const heads = pgTable(
     massKg: doublePrecision("mass_kg"),
     /** Where the head is mounted now (null: in the shop or in transit). */
     machineId: uuid("machine_id").references(() => machines.id, { onDelete: "set null" }),
+    /** Retired rows stay readable on the jobs that name them and are left out of pickers for new work. */
+    retiredAt: timestamp("retired_at", { withTimezone: true }),
     ...timestamps,
   },
   (t) => [index("heads_machine_idx").on(t.machineId)],
@@ -256,10 +264,35 @@ export const instruments = pgTable("instruments", {
   calibratedOn: date("calibrated_on", { mode: "string" }),
   calibrationDueOn: date("calibration_due_on", { mode: "string" }).notNull(),
   certificateRef: text("certificate_ref"),
+  /** Kept in step with retired_at (set together by db/queries/instruments.ts). */
   retired: boolean("retired").notNull().default(false),
+  /** Retired rows stay readable on the jobs that name them and are left out of pickers for new work. */
+  retiredAt: timestamp("retired_at", { withTimezone: true }),
   ...timestamps,
 });
 export type Instrument = typeof instruments.$inferSelect;
+
+/**
+ * Calibrations of an instrument, oldest first: each recalibration is a new row (the history is
+ * kept) and copies its dates and certificate onto the instrument, which brings it back into use.
+ */
+export const instrumentCalibrations = pgTable(
+  "instrument_calibrations",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    instrumentId: uuid("instrument_id")
+      .notNull()
+      .references(() => instruments.id, { onDelete: "restrict" }),
+    calibratedOn: date("calibrated_on", { mode: "string" }).notNull(),
+    dueOn: date("due_on", { mode: "string" }).notNull(),
+    certificateRef: text("certificate_ref").notNull(),
+    laboratory: text("laboratory").notNull(),
+    recordedById: uuid("recorded_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("instrument_calibrations_instrument_idx").on(t.instrumentId, t.calibratedOn)],
+);
+export type InstrumentCalibration = typeof instrumentCalibrations.$inferSelect;
 
 /** Procedure templates are versioned: editing one makes a new version; jobs keep theirs. */
 export const procedureTemplates = pgTable(

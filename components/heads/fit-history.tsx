@@ -121,12 +121,16 @@ function valuePlusMinus(r: ParameterRow): string {
 function JobHeading({ job: j }: { job: HistoryJob }) {
   return (
     <>
-      <Link
-        href={j.fit ? `/jobs/${j.id}/analysis?analysis=${j.fit.analysisId}` : `/jobs/${j.id}`}
-        className="num font-semibold text-accent-700 underline-offset-2 hover:underline"
-      >
-        {j.reference}
-      </Link>
+      {j.open === false ? (
+        <span className="num font-semibold text-graphite-900">{j.reference}</span>
+      ) : (
+        <Link
+          href={j.fit ? `/jobs/${j.id}/analysis?analysis=${j.fit.analysisId}` : `/jobs/${j.id}`}
+          className="num font-semibold text-accent-700 underline-offset-2 hover:underline"
+        >
+          {j.reference}
+        </Link>
+      )}
       <span className="block text-graphite-800">{JOB_KIND_LABELS[j.kind]}</span>
       <span className="num block text-graphite-600">{formatDate(j.date)}</span>
       <span className="mt-1 inline-block">

@@ -1,8 +1,16 @@
 import Link from "next/link";
 import { Table } from "@/components/ui/table";
+import { RetireButton } from "@/components/registers/retire-controls";
 import type { HeadListRow } from "@/lib/domain/heads";
 
-export function HeadsTable({ rows }: { rows: readonly HeadListRow[] }) {
+/** `mayRetire`: the administrator sees a retire / bring back control on each row. */
+export function HeadsTable({
+  rows,
+  mayRetire = false,
+}: {
+  rows: readonly HeadListRow[];
+  mayRetire?: boolean;
+}) {
   return (
     <Table
       caption="Heads"
@@ -21,7 +29,19 @@ export function HeadsTable({ rows }: { rows: readonly HeadListRow[] }) {
         column("Axes (primary/secondary)", (h) => `${h.primaryAxis}/${h.secondaryAxis}`),
         column("Nominal pivot length", (h) => `${h.nominalPivotLengthMm.toFixed(3)} mm`, { numeric: true }),
         column("Mass", (h) => (h.massKg ? `${h.massKg} kg` : "—"), { numeric: true }),
-        column("Mounted on", (h) => h.machineName ?? "Not mounted"),
+        column("Mounted on", (h) => (h.retiredAt ? "Retired" : (h.machineName ?? "Not mounted"))),
+        ...(mayRetire
+          ? [
+              column("Retirement", (h) => (
+                <RetireButton
+                  register="heads"
+                  id={h.id}
+                  retired={Boolean(h.retiredAt)}
+                  label={`head ${h.serial}`}
+                />
+              )),
+            ]
+          : []),
       ]}
     />
   );

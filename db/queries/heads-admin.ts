@@ -2,6 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
+import { refuseRetired } from "@/db/queries/registers-admin";
 import type { StoredHeadFit } from "@/db/queries/analyses";
 import { jobAccessCondition } from "@/db/queries/jobs";
 import { analyses, auditEvents, customers, datasets, heads, jobs, machines, sites } from "@/db/schema";
@@ -42,12 +43,18 @@ export async function mountHead(actor: Actor, headId: string, machineId: string 
   let label = "not mounted";
   if (machineId) {
     const [m] = await db
-      .select({ name: machines.name, site: sites.name, customer: customers.name })
+      .select({
+        name: machines.name,
+        site: sites.name,
+        customer: customers.name,
+        retiredAt: machines.retiredAt,
+      })
       .from(machines)
       .innerJoin(sites, eq(sites.id, machines.siteId))
       .innerJoin(customers, eq(customers.id, sites.customerId))
       .where(eq(machines.id, machineId));
     if (!m) throw invalid("Choose a host machine.", [{ field: "machineId", message: "No such machine." }]);
+    refuseRetired(m, "machineId", "host machine");
     label = `${m.name} (${m.customer}, ${m.site})`;
   }
   if (h.machineId === machineId) return { changed: false };
@@ -74,31 +81,34 @@ export type { HeadHistoryJob };
 /**
  * The fitted parameters of every job on a head, oldest first: for each job its approved fit (the
  * analysis named by its latest "analysis.approved" audit event) or, if none is approved, its
- * latest fit. Who may read it: the administrator and engineers (who keep and read the heads
- * register) see every job on the head; a customer sees the head only through their own
- * company's jobs on it (404 when there is none, as for a head that does not exist); installers
- * and inspectors, who do not read the heads register, are refused (403).
+ * latest fit. Which jobs, by lib/policy/heads.ts `headHistoryScope`: the administrator and
+ * engineers see every job on any head; installers and inspectors every job on a head that one of
+ * the jobs they may see is on (404 otherwise, as for a head that does not exist); a customer only
+ * their own company's jobs on it (404 when there is none).
  */
 export async function getHeadFitHistory(actor: Actor, headId: string) {
   const refusal = headHistoryRefusal(actor);
   if (refusal) throw forbidden(refusal);
-  const staff = headHistoryScope(actor) === "all";
+  const scope = headHistoryScope(actor);
   if (!isUuid(headId)) return null;
   const [head] = await db.select().from(heads).where(eq(heads.id, headId));
   if (!head) return null;
-  const jobRows = await db
-    .select({
-      id: jobs.id,
-      reference: jobs.reference,
-      title: jobs.title,
-      kind: jobs.kind,
-      status: jobs.status,
-      scheduledFor: jobs.scheduledFor,
-      createdAt: jobs.createdAt,
-    })
+  const jobColumns = {
+    id: jobs.id,
+    reference: jobs.reference,
+    title: jobs.title,
+    kind: jobs.kind,
+    status: jobs.status,
+    scheduledFor: jobs.scheduledFor,
+    createdAt: jobs.createdAt,
+  };
+  const visible = await db
+    .select(jobColumns)
     .from(jobs)
     .where(and(eq(jobs.headId, headId), jobAccessCondition(actor)));
-  if (!staff && jobRows.length === 0) return null;
+  if (scope !== "all" && visible.length === 0) return null;
+  const jobRows =
+    scope === "own" ? visible : await db.select(jobColumns).from(jobs).where(eq(jobs.headId, headId));
   const ids = jobRows.map((j) => j.id);
   const [fits, approvals] = ids.length
     ? await Promise.all([
@@ -137,6 +147,7 @@ export async function getHeadFitHistory(actor: Actor, headId: string) {
         kind: j.kind,
         status: j.status,
         date: j.scheduledFor ?? j.createdAt,
+        open: scope === "all" || visible.some((v) => v.id === j.id),
         fit: f
           ? {
               analysisId: f.id,

@@ -2,6 +2,7 @@ import "server-only";
 import { and, eq, inArray, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
+import { refuseRetired } from "@/db/queries/registers-admin";
 import { getJobDetail } from "@/db/queries/jobs";
 import { enqueueMail } from "@/db/queries/outbox";
 import { datasets, heads, jobs, machines, procedureTemplates, sites, users } from "@/db/schema";
@@ -107,13 +108,18 @@ export async function createJobFromTemplate(actor: Actor, input: JobCreateInput)
   const [t] = await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, input.templateId));
   if (!t) throw invalid("Choose a procedure.", [{ field: "templateId", message: "No such procedure." }]);
   const [m] = await db
-    .select({ id: machines.id, customerId: sites.customerId })
+    .select({ id: machines.id, customerId: sites.customerId, retiredAt: machines.retiredAt })
     .from(machines)
     .innerJoin(sites, eq(sites.id, machines.siteId))
     .where(eq(machines.id, input.machineId));
   if (!m) throw invalid("Choose a host machine.", [{ field: "machineId", message: "No such machine." }]);
-  const [h] = await db.select({ id: heads.id }).from(heads).where(eq(heads.id, input.headId));
+  refuseRetired(m, "machineId", "host machine");
+  const [h] = await db
+    .select({ id: heads.id, retiredAt: heads.retiredAt })
+    .from(heads)
+    .where(eq(heads.id, input.headId));
   if (!h) throw invalid("Choose a head.", [{ field: "headId", message: "No such head." }]);
+  refuseRetired(h, "headId", "head");
   if (input.assignedInstallerId) {
     const [u] = await db
       .select({ role: users.role, disabled: users.disabled })

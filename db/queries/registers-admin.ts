@@ -1,17 +1,22 @@
 import "server-only";
-import { and, eq, sql } from "drizzle-orm";
+import { and, eq, isNull, ne, sql } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { customers, heads, machines, sites } from "@/db/schema";
+import { customers, heads, instruments, machines, sites } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
-import { registerEditRefusal } from "@/lib/policy/registers";
+import { isUuid } from "@/lib/domain/uuid";
+import { registerEditRefusal, type Register } from "@/lib/policy/registers";
 import { forbidden, invalid } from "@/lib/errors";
 import type {
   customerCreateSchema,
+  customerPatchSchema,
   headCreateSchema,
+  headPatchSchema,
   machineCreateSchema,
+  machinePatchSchema,
   siteCreateSchema,
+  sitePatchSchema,
 } from "@/lib/validations/registers";
 
 function requireAdmin(actor: Actor) {
@@ -50,8 +55,12 @@ export async function createCustomer(actor: Actor, input: z.infer<typeof custome
 
 export async function createSite(actor: Actor, input: z.infer<typeof siteCreateSchema>) {
   requireAdmin(actor);
-  const [c] = await db.select({ id: customers.id }).from(customers).where(eq(customers.id, input.customerId));
+  const [c] = await db
+    .select({ id: customers.id, retiredAt: customers.retiredAt })
+    .from(customers)
+    .where(eq(customers.id, input.customerId));
   if (!c) throw invalid("Choose a customer.", [{ field: "customerId", message: "No such customer." }]);
+  refuseRetired(c, "customerId", "customer");
   const [dupe] = await db
     .select({ id: sites.id })
     .from(sites)
@@ -72,8 +81,12 @@ export async function createSite(actor: Actor, input: z.infer<typeof siteCreateS
 
 export async function createMachine(actor: Actor, input: z.infer<typeof machineCreateSchema>) {
   requireAdmin(actor);
-  const [s] = await db.select({ id: sites.id }).from(sites).where(eq(sites.id, input.siteId));
+  const [s] = await db
+    .select({ id: sites.id, retiredAt: sites.retiredAt })
+    .from(sites)
+    .where(eq(sites.id, input.siteId));
   if (!s) throw invalid("Choose a site.", [{ field: "siteId", message: "No such site." }]);
+  refuseRetired(s, "siteId", "site");
   return db.transaction(async (tx) => {
     const [row] = await tx
       .insert(machines)
@@ -125,10 +138,179 @@ export async function createHead(actor: Actor, input: z.infer<typeof headCreateS
   });
 }
 
+/** Sites that take new work (neither the site nor its customer retired), for pickers. */
 export async function listSitesForSelect() {
   return db
     .select({ id: sites.id, name: sites.name, customerName: customers.name })
     .from(sites)
     .innerJoin(customers, eq(customers.id, sites.customerId))
+    .where(and(isNull(sites.retiredAt), isNull(customers.retiredAt)))
     .orderBy(customers.name, sites.name);
+}
+
+/** Refuses (403) an actor who may not change this register; call before reading a request body. */
+export function assertRegisterEdit(actor: Actor, register: Register) {
+  const refusal = registerEditRefusal(actor, register);
+  if (refusal) throw forbidden(refusal);
+}
+
+type RegisterTable = typeof customers | typeof sites | typeof machines | typeof heads | typeof instruments;
+
+/**
+ * Applies a correction to one register row and audits what changed, in one transaction: the old
+ * and new values of the changed fields only, as `<entity>.updated` — or `<entity>.retired` /
+ * `<entity>.restored` when the only change is `retired` (retired_at stamped now, or cleared; an
+ * instrument's `retired` flag follows). Returns null when there is no such row (the route answers
+ * 404), the row unchanged when nothing differs.
+ */
+export async function updateRegisterRow<T extends RegisterTable>(
+  actor: Actor,
+  register: Register,
+  table: T,
+  entityType: string,
+  id: string,
+  set: Partial<T["$inferInsert"]>,
+  retired?: boolean,
+): Promise<T["$inferSelect"] | null> {
+  assertRegisterEdit(actor, register);
+  if (!isUuid(id)) return null;
+  const t = table as typeof customers;
+  return db.transaction(async (tx) => {
+    const [before] = (await tx.select().from(t).where(eq(t.id, id)).for("update")) as Record<
+      string,
+      unknown
+    >[];
+    if (!before) return null;
+    const changed: [string, unknown][] = Object.entries(set).filter(
+      ([k, v]) => v !== undefined && JSON.stringify(before[k] ?? null) !== JSON.stringify(v),
+    );
+    const retiring = retired !== undefined && (before.retiredAt != null) !== retired;
+    if (retiring) {
+      changed.push(["retiredAt", retired ? new Date() : null]);
+      if (table === instruments) changed.push(["retired", retired]);
+    }
+    if (changed.length === 0) return before as T["$inferSelect"];
+    const next = Object.fromEntries(changed);
+    const [row] = await tx.update(t).set(next).where(eq(t.id, id)).returning();
+    const onlyRetirement = retiring && changed.every(([k]) => k === "retiredAt" || k === "retired");
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: `${entityType}.${onlyRetirement ? (retired ? "retired" : "restored") : "updated"}`,
+      entityType,
+      entityId: id,
+      oldValues: Object.fromEntries(changed.map(([k]) => [k, before[k] ?? null])),
+      newValues: next,
+    });
+    return row as T["$inferSelect"];
+  });
+}
+
+/** Refuses (422, naming the field) a new row under a retired parent: retired rows take no new work. */
+export function refuseRetired(parent: { retiredAt: Date | null } | undefined, field: string, what: string) {
+  if (parent?.retiredAt)
+    throw invalid(`The ${what} is retired; bring it back in the register first.`, [
+      { field, message: `This ${what} is retired.` },
+    ]);
+}
+
+/** Turns a PostgreSQL unique violation on `column` into a 422 naming the field; rethrows anything else. */
+export async function uniqueAs<R>(field: string, message: string, work: () => Promise<R>): Promise<R> {
+  try {
+    return await work();
+  } catch (err) {
+    let e: unknown = err;
+    while (e instanceof Error && (e as { code?: string }).code !== "23505" && e.cause) e = e.cause;
+    if ((e as { code?: string })?.code === "23505")
+      throw invalid(message, [{ field, message: "Already registered." }]);
+    throw err;
+  }
+}
+
+const blankToNull = (v: string | undefined) => (v === undefined ? undefined : v.trim() || null);
+
+export function updateCustomer(actor: Actor, id: string, input: z.infer<typeof customerPatchSchema>) {
+  return uniqueAs("name", "A customer with that name is already registered.", () =>
+    updateRegisterRow(
+      actor,
+      "customers",
+      customers,
+      "customer",
+      id,
+      {
+        name: input.name,
+        contactEmail: blankToNull(input.contactEmail),
+      },
+      input.retired,
+    ),
+  );
+}
+
+export async function updateSite(actor: Actor, id: string, input: z.infer<typeof sitePatchSchema>) {
+  assertRegisterEdit(actor, "customers");
+  if (input.name !== undefined && isUuid(id)) {
+    const [own] = await db.select({ customerId: sites.customerId }).from(sites).where(eq(sites.id, id));
+    const [dupe] = own
+      ? await db
+          .select({ id: sites.id })
+          .from(sites)
+          .where(and(eq(sites.customerId, own.customerId), eq(sites.name, input.name), ne(sites.id, id)))
+      : [];
+    if (dupe)
+      throw invalid("That customer already has a site of that name.", [
+        { field: "name", message: "Already registered." },
+      ]);
+  }
+  return updateRegisterRow(
+    actor,
+    "customers",
+    sites,
+    "site",
+    id,
+    {
+      name: input.name,
+      address: blankToNull(input.address),
+    },
+    input.retired,
+  );
+}
+
+export function updateMachine(actor: Actor, id: string, input: z.infer<typeof machinePatchSchema>) {
+  return updateRegisterRow(
+    actor,
+    "machines",
+    machines,
+    "machine",
+    id,
+    {
+      name: input.name,
+      kind: input.kind,
+      builder: blankToNull(input.builder),
+      model: blankToNull(input.model),
+      serial: blankToNull(input.serial),
+      control: blankToNull(input.control),
+    },
+    input.retired,
+  );
+}
+
+export function updateHead(actor: Actor, id: string, input: z.infer<typeof headPatchSchema>) {
+  return uniqueAs("serial", "A head with that serial is already registered.", () =>
+    updateRegisterRow(
+      actor,
+      "heads",
+      heads,
+      "head",
+      id,
+      {
+        serial: input.serial,
+        maker: blankToNull(input.maker),
+        model: blankToNull(input.model),
+        nominalPivotLengthMm: input.nominalPivotLengthMm,
+        toolAxisOffsetMm: input.toolAxisOffsetMm,
+        massKg: input.massKg,
+      },
+      input.retired,
+    ),
+  );
 }

@@ -2,7 +2,7 @@ import "server-only";
 import { asc, eq, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { customers, heads, machines, sites, users } from "@/db/schema";
-import { type Actor } from "@/lib/domain/roles";
+import { type Actor, type Role } from "@/lib/domain/roles";
 import { registerReadRefusal, type Register } from "@/lib/policy/registers";
 import { forbidden } from "@/lib/errors";
 
@@ -17,6 +17,7 @@ export async function listCustomersWithSites(actor: Actor) {
       id: customers.id,
       name: customers.name,
       contactEmail: customers.contactEmail,
+      retiredAt: customers.retiredAt,
       sites: sql<
         string[]
       >`coalesce(array_agg(${sites.name} order by ${sites.name}) filter (where ${sites.id} is not null), '{}')`,
@@ -37,6 +38,7 @@ export async function listMachines(actor: Actor) {
       builder: machines.builder,
       model: machines.model,
       serial: machines.serial,
+      retiredAt: machines.retiredAt,
       siteName: sites.name,
       customerName: customers.name,
     })
@@ -58,6 +60,7 @@ export async function listHeads(actor: Actor) {
       secondaryAxis: heads.secondaryAxis,
       nominalPivotLengthMm: heads.nominalPivotLengthMm,
       massKg: heads.massKg,
+      retiredAt: heads.retiredAt,
       machineName: machines.name,
     })
     .from(heads)
@@ -65,7 +68,24 @@ export async function listHeads(actor: Actor) {
     .orderBy(asc(heads.serial));
 }
 
-export async function listPeople(actor: Actor) {
+export async function listSites(actor: Actor) {
+  check(actor, "customers");
+  return db
+    .select({
+      id: sites.id,
+      name: sites.name,
+      address: sites.address,
+      retiredAt: sites.retiredAt,
+      customerId: sites.customerId,
+      customerName: customers.name,
+    })
+    .from(sites)
+    .innerJoin(customers, eq(customers.id, sites.customerId))
+    .orderBy(asc(customers.name), asc(sites.name));
+}
+
+/** The people register, optionally one role only (the office's pickers ask for installers). */
+export async function listPeople(actor: Actor, role?: Role) {
   check(actor, "people");
   return db
     .select({
@@ -78,5 +98,6 @@ export async function listPeople(actor: Actor) {
     })
     .from(users)
     .leftJoin(customers, eq(customers.id, users.customerId))
+    .where(role ? eq(users.role, role) : undefined)
     .orderBy(asc(users.role), asc(users.name));
 }

@@ -5,6 +5,7 @@ import { appendAudit } from "@/db/queries/audit";
 import { procedureTemplates, templateParameterLimits, templateSteps } from "@/db/schema";
 import { HEAD_PARAMETER_KEYS, type HeadParameterKey } from "@/geometry";
 import { type Actor } from "@/lib/domain/roles";
+import { isUuid } from "@/lib/domain/uuid";
 import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 
@@ -22,6 +23,24 @@ export async function listTemplatesWithSteps(actor: Actor) {
     steps: steps.filter((s) => s.templateId === t.id),
     parameterLimits: limits.filter((l) => l.templateId === t.id),
   }));
+}
+
+/** One procedure version with its steps and head-parameter limits; null when there is none (404). */
+export async function getTemplate(actor: Actor, id: string) {
+  const refusal = registerReadRefusal(actor, "procedures");
+  if (refusal) throw forbidden(refusal);
+  if (!isUuid(id)) return null;
+  const [t] = await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, id));
+  if (!t) return null;
+  const [steps, parameterLimits] = await Promise.all([
+    db
+      .select()
+      .from(templateSteps)
+      .where(eq(templateSteps.templateId, id))
+      .orderBy(asc(templateSteps.position)),
+    db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, id)),
+  ]);
+  return { ...t, steps, parameterLimits };
 }
 
 export interface StepLimitEdit {

@@ -181,7 +181,11 @@ export async function updateUser(actor: Actor, input: z.infer<typeof userUpdateS
 }
 
 export async function listCustomersForSelect() {
-  return db.select({ id: customers.id, name: customers.name }).from(customers).orderBy(asc(customers.name));
+  return db
+    .select({ id: customers.id, name: customers.name })
+    .from(customers)
+    .where(isNull(customers.retiredAt))
+    .orderBy(asc(customers.name));
 }
 
 export async function listActiveInstallers() {

@@ -17,6 +17,8 @@ export interface HeadListRow {
   nominalPivotLengthMm: number;
   massKg: number | null;
   machineName: string | null;
+  /** Set when the head is retired: it stays on its old jobs and takes no new work. */
+  retiredAt?: Date | null;
 }
 
 /** One job on a head with the fit that stands for it: the approved one, or else the latest. */
@@ -28,6 +30,8 @@ export interface HeadHistoryJob {
   readonly status: JobStatus;
   /** When the work was (or is) scheduled, else when the job was created. */
   readonly date: Date;
+  /** May the reader open this job? (An installer reads a head's whole history, opens only their jobs.) */
+  readonly open?: boolean;
   readonly fit: {
     readonly analysisId: string;
     readonly approved: boolean;

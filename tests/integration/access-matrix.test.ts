@@ -56,6 +56,21 @@ const COVERED = new Set([
   "app/api/analyses/[id]/views/route.ts",
   "app/api/analysis-views/[id]/image/route.ts",
   "app/api/heads/[id]/history/route.ts",
+  // tests/integration/registers-access.test.ts
+  "app/api/customers/route.ts",
+  "app/api/customers/[id]/route.ts",
+  "app/api/sites/route.ts",
+  "app/api/sites/[id]/route.ts",
+  "app/api/machines/route.ts",
+  "app/api/machines/[id]/route.ts",
+  "app/api/heads/route.ts",
+  "app/api/heads/[id]/route.ts",
+  "app/api/instruments/route.ts",
+  "app/api/instruments/[id]/route.ts",
+  "app/api/instruments/[id]/calibrations/route.ts",
+  "app/api/users/route.ts",
+  "app/api/procedures/route.ts",
+  "app/api/procedures/[id]/route.ts",
   // public, static: the load benchmark's ceiling
   "app/api/ping/route.ts",
 ]);

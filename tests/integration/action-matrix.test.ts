@@ -276,6 +276,8 @@ for (const name of [
   "createSiteAction",
   "createMachineAction",
   "createHeadAction",
+  "retireRegisterRowAction",
+  "recordCalibrationAction",
 ] as const) {
   MATRIX[name] = {
     expect: staffOnly(["admin"]),

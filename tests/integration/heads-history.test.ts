@@ -10,6 +10,8 @@ import type { StoredHeadFit } from "@/db/queries/analyses";
 import { analyses, auditEvents, customers, heads, jobs, machines, sites } from "@/db/schema";
 import { DEMO_HEAD_ERRORS as ERRORS_0041 } from "@/db/seed-datasets";
 import { DEMO_HEAD_ERRORS_AFTER } from "@/db/seed-analyses";
+import { getHeadFitHistory } from "@/db/queries/heads-admin";
+import { getActor } from "@/db/queries/users";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
 const history = (id: string) =>
@@ -123,5 +125,44 @@ describe("head history", () => {
     );
     await db.delete(jobs).where(eq(jobs.reference, ref));
     expect(await jobIdByReference("TR-2026-0041")).toBeTruthy();
+  });
+
+  it("an installer reads every job on a head one of their jobs is on, and no other head (404)", async () => {
+    // The installer is assigned TR-2026-0041 and TR-2026-0052 on this head; TR-2026-0057 on it is
+    // assigned to nobody, and an after-crash re-check needs its figures too.
+    await signInAs("installer@halvard.example");
+    const res = await history(headId);
+    expect(res.status).toBe(200);
+    const body = (await res.json()) as Body;
+    const refs = body.jobs.map((j) => j.reference);
+    expect(refs).toEqual(expect.arrayContaining(["TR-2026-0041", "TR-2026-0052", "TR-2026-0057"]));
+    const h = await getHeadFitHistory(
+      (await getActor((await signInAs("installer@halvard.example"))!))!,
+      headId,
+    );
+    const open = Object.fromEntries(h!.jobs.map((j) => [j.reference, j.open]));
+    expect([open["TR-2026-0041"], open["TR-2026-0052"], open["TR-2026-0057"]]).toEqual([true, true, false]);
+    // A head with no job of theirs is answered like one that does not exist.
+    const [spare] = await db
+      .insert(heads)
+      .values({
+        serial: `SPARE-${Date.now().toString(36)}`,
+        primaryAxis: "C",
+        secondaryAxis: "A",
+        nominalPivotLengthMm: 250,
+      })
+      .returning();
+    const none = await history(spare!.id);
+    expect(none.status).toBe(404);
+    expect(await none.json()).toEqual({ error: { code: "not_found", message: "No such head." } });
+    // The inspector sees every job, so every head with a job on it; the spare head has none.
+    await signInAs("inspector@halvard.example");
+    expect((await history(headId)).status).toBe(200);
+    expect((await history(spare!.id)).status).toBe(404);
+    // The office reads the spare head's (empty) history.
+    await signInAs("admin@halvard.example");
+    const admin = await history(spare!.id);
+    expect(admin.status).toBe(200);
+    expect(((await admin.json()) as Body).jobs).toEqual([]);
   });
 });

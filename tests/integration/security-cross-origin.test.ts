@@ -15,6 +15,17 @@ import { POST as authPost } from "@/app/api/auth/[...nextauth]/route";
 import { POST as upload } from "@/app/api/jobs/[id]/datasets/route";
 import { POST as recordReading } from "@/app/api/jobs/[id]/readings/route";
 import { POST as verifyUpload } from "@/app/api/verify/route";
+import { POST as postCustomers } from "@/app/api/customers/route";
+import { PATCH as patchCustomersItem } from "@/app/api/customers/[id]/route";
+import { POST as postSites } from "@/app/api/sites/route";
+import { PATCH as patchSitesItem } from "@/app/api/sites/[id]/route";
+import { POST as postMachines } from "@/app/api/machines/route";
+import { PATCH as patchMachinesItem } from "@/app/api/machines/[id]/route";
+import { POST as postHeads } from "@/app/api/heads/route";
+import { PATCH as patchHeadsItem } from "@/app/api/heads/[id]/route";
+import { POST as postInstruments } from "@/app/api/instruments/route";
+import { PATCH as patchInstrumentsItem } from "@/app/api/instruments/[id]/route";
+import { POST as postCalibration } from "@/app/api/instruments/[id]/calibrations/route";
 import { NextRequest } from "next/server";
 import { db } from "@/db";
 import { sql } from "drizzle-orm";
@@ -23,6 +34,8 @@ import { jobIdByReference, signInAs } from "./helpers";
 type Handler = (req: Request, ctx: unknown) => Promise<Response>;
 const ROOT = path.resolve(import.meta.dirname, "../..");
 const ids = { job: "", dataset: "", analysis: "" };
+/** The office's register routes are tried on an id of no row: the check comes before any lookup. */
+const NO_ROW = "00000000-0000-4000-8000-000000000000";
 
 /** Every write route (method + file), with a handler and params to call it with. */
 const WRITES: { name: string; file: string; method: string; handler: Handler; params: () => object }[] = [
@@ -74,6 +87,83 @@ const WRITES: { name: string; file: string; method: string; handler: Handler; pa
     method: "POST",
     handler: authPost as Handler,
     params: () => ({ nextauth: ["callback", "credentials"] }),
+  },
+  {
+    name: "POST /api/customers",
+    file: "app/api/customers/route.ts",
+    method: "POST",
+    handler: postCustomers as Handler,
+    params: () => ({}),
+  },
+  {
+    name: "PATCH /api/customers/{id}",
+    file: "app/api/customers/[id]/route.ts",
+    method: "PATCH",
+    handler: patchCustomersItem as Handler,
+    params: () => ({ id: NO_ROW }),
+  },
+  {
+    name: "POST /api/sites",
+    file: "app/api/sites/route.ts",
+    method: "POST",
+    handler: postSites as Handler,
+    params: () => ({}),
+  },
+  {
+    name: "PATCH /api/sites/{id}",
+    file: "app/api/sites/[id]/route.ts",
+    method: "PATCH",
+    handler: patchSitesItem as Handler,
+    params: () => ({ id: NO_ROW }),
+  },
+  {
+    name: "POST /api/machines",
+    file: "app/api/machines/route.ts",
+    method: "POST",
+    handler: postMachines as Handler,
+    params: () => ({}),
+  },
+  {
+    name: "PATCH /api/machines/{id}",
+    file: "app/api/machines/[id]/route.ts",
+    method: "PATCH",
+    handler: patchMachinesItem as Handler,
+    params: () => ({ id: NO_ROW }),
+  },
+  {
+    name: "POST /api/heads",
+    file: "app/api/heads/route.ts",
+    method: "POST",
+    handler: postHeads as Handler,
+    params: () => ({}),
+  },
+  {
+    name: "PATCH /api/heads/{id}",
+    file: "app/api/heads/[id]/route.ts",
+    method: "PATCH",
+    handler: patchHeadsItem as Handler,
+    params: () => ({ id: NO_ROW }),
+  },
+  {
+    name: "POST /api/instruments",
+    file: "app/api/instruments/route.ts",
+    method: "POST",
+    handler: postInstruments as Handler,
+    params: () => ({}),
+  },
+  {
+    name: "PATCH /api/instruments/{id}",
+    file: "app/api/instruments/[id]/route.ts",
+    method: "PATCH",
+    handler: patchInstrumentsItem as Handler,
+    params: () => ({ id: NO_ROW }),
+  },
+  {
+    name: "POST /api/instruments/{id}/calibrations",
+    file: "app/api/instruments/[id]/calibrations/route.ts",
+    method: "POST",
+    handler: postCalibration as Handler,
+    params: () => ({ id: NO_ROW }),
   },
 ];
 

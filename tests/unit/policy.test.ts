@@ -1,7 +1,7 @@
 // The access rules of lib/policy (who uses the product, and the status flow), checked case by case.
 import { describe, expect, it } from "vitest";
 import { ROLES, type Actor } from "@/lib/domain/roles";
-import { headHistoryRefusal } from "@/lib/policy/heads";
+import { headHistoryRefusal, headHistoryScope } from "@/lib/policy/heads";
 import { datasetDeleteRefusal, uploadRefusal } from "@/lib/policy/datasets";
 import {
   allowedTransitions,
@@ -106,13 +106,20 @@ describe("navigation and registers", () => {
     expect(registerReadRefusal(actor("engineer"), "people") === null).toBe(false);
     expect(registerReadRefusal(actor("customer"), "heads") === null).toBe(false);
   });
-  it("a head's history is read by the office, engineers and its owner, not by installers or inspectors", () => {
+  it("a head's history is read by the office, engineers, installers, inspectors and its owner, each in a scope", () => {
     expect(Object.fromEntries(ROLES.map((r) => [r, headHistoryRefusal(actor(r)) === null]))).toEqual({
       admin: true,
       engineer: true,
       customer: true,
-      installer: false,
-      inspector: false,
+      installer: true,
+      inspector: true,
+    });
+    expect(Object.fromEntries(ROLES.map((r) => [r, headHistoryScope(actor(r))]))).toEqual({
+      admin: "all",
+      engineer: "all",
+      installer: "through-jobs",
+      inspector: "through-jobs",
+      customer: "own",
     });
   });
 });

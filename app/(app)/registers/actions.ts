@@ -3,10 +3,19 @@
 import { revalidatePath } from "next/cache";
 import type { HeadParameterKey } from "@/geometry";
 import { z } from "zod";
-import { createInstrument } from "@/db/queries/instruments";
+import { createInstrument, recordCalibration, updateInstrument } from "@/db/queries/instruments";
 import { createJobFromTemplate } from "@/db/queries/job-status";
 import { mountHead } from "@/db/queries/heads-admin";
-import { createCustomer, createHead, createMachine, createSite } from "@/db/queries/registers-admin";
+import {
+  createCustomer,
+  createHead,
+  createMachine,
+  createSite,
+  updateCustomer,
+  updateHead,
+  updateMachine,
+  updateSite,
+} from "@/db/queries/registers-admin";
 import { createTemplateVersion } from "@/db/queries/templates";
 import { inviteUser, updateUser } from "@/db/queries/users-admin";
 import { action } from "@/lib/actions";
@@ -14,10 +23,12 @@ import { DECISION_RULES } from "@/lib/domain/decisions";
 import { JOB_KINDS } from "@/lib/domain/jobs";
 import { jobOpenFormRefusal } from "@/lib/policy/jobs";
 import { registerEditRefusal } from "@/lib/policy/registers";
-import { invalid } from "@/lib/errors";
+import { invalid, notFound } from "@/lib/errors";
 import { toCanonical } from "@/lib/units";
 import {
+  calibrationFormSchema,
   customerCreateSchema,
+  retireFormSchema,
   headCreateSchema,
   instrumentCreateSchema,
   machineCreateSchema,
@@ -204,5 +215,34 @@ export const createHeadAction = action(
     revalidatePath("/registers");
     revalidatePath("/registers/heads");
     return { id: r.id };
+  },
+);
+
+/** Retire a register row, or bring it back: the same correction as `PATCH …/{id}` `{ retired }`. */
+export const retireRegisterRowAction = action(
+  { schema: retireFormSchema, refusal: (a) => registerEditRefusal(a, "customers") },
+  async ({ register, id, retired }, actor) => {
+    const update = {
+      customers: updateCustomer,
+      sites: updateSite,
+      machines: updateMachine,
+      heads: updateHead,
+      instruments: updateInstrument,
+    }[register];
+    const row = await update(actor, id, { retired });
+    if (!row) throw notFound("record");
+    revalidatePath("/registers", "layout");
+    return { retired };
+  },
+);
+
+/** Record a recalibration from the instruments page; the instrument is back in use. */
+export const recordCalibrationAction = action(
+  { schema: calibrationFormSchema, refusal: (a) => registerEditRefusal(a, "instruments") },
+  async ({ instrumentId, ...input }, actor) => {
+    const r = await recordCalibration(actor, instrumentId, input);
+    if (!r) throw notFound("instrument");
+    revalidatePath("/registers/instruments");
+    return { id: r.calibration.id };
   },
 );

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { HeadsTable } from "@/components/registers/heads-table";
+import { RetireButton } from "@/components/registers/retire-controls";
 import { CustomerForm, HeadForm, MachineForm, SiteForm } from "@/components/registers/register-forms";
 import { Card } from "@/components/ui/card";
 import { listSitesForSelect } from "@/db/queries/registers-admin";
@@ -41,7 +42,19 @@ export default async function RegistersPage() {
           columns={(column) => [
             column("Name", (c) => c.name),
             column("Sites", (c) => c.sites.join(", ") || "—"),
-            column("Contact", (c) => c.contactEmail ?? "—"),
+            column("Contact", (c) => (c.retiredAt ? "Retired" : (c.contactEmail ?? "—"))),
+            ...(mayEdit
+              ? [
+                  column("Retirement", (c) => (
+                    <RetireButton
+                      register="customers"
+                      id={c.id}
+                      retired={Boolean(c.retiredAt)}
+                      label={c.name}
+                    />
+                  )),
+                ]
+              : []),
           ]}
         />
       </section>
@@ -58,7 +71,21 @@ export default async function RegistersPage() {
             column("Kind", (m) => m.kind),
             column("Builder and model", (m) => [m.builder, m.model].filter(Boolean).join(" ") || "—"),
             column("Serial", (m) => <span className="num">{m.serial ?? "—"}</span>),
-            column("Customer, site", (m) => `${m.customerName}, ${m.siteName}`),
+            column("Customer, site", (m) =>
+              m.retiredAt ? `${m.customerName}, ${m.siteName} (retired)` : `${m.customerName}, ${m.siteName}`,
+            ),
+            ...(mayEdit
+              ? [
+                  column("Retirement", (m) => (
+                    <RetireButton
+                      register="machines"
+                      id={m.id}
+                      retired={Boolean(m.retiredAt)}
+                      label={m.name}
+                    />
+                  )),
+                ]
+              : []),
           ]}
         />
       </section>
@@ -66,7 +93,7 @@ export default async function RegistersPage() {
         <h2 id="heads" className="text-lg font-semibold">
           Heads
         </h2>
-        <HeadsTable rows={heads} />
+        <HeadsTable rows={heads} mayRetire={mayEdit} />
       </section>
       {mayEdit ? (
         <section className="grid gap-6 lg:grid-cols-2" aria-label="Add to the registers">
@@ -74,7 +101,9 @@ export default async function RegistersPage() {
             <CustomerForm />
           </Card>
           <Card title="Add a site">
-            <SiteForm customers={customers.map((c) => ({ id: c.id, label: c.name }))} />
+            <SiteForm
+              customers={customers.filter((c) => !c.retiredAt).map((c) => ({ id: c.id, label: c.name }))}
+            />
           </Card>
           <Card title="Add a host machine" className="lg:col-span-2">
             <MachineForm

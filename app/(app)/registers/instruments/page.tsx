@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { InstrumentForm } from "@/components/registers/instrument-form";
+import { CalibrationForm, RetireButton } from "@/components/registers/retire-controls";
 import { Card } from "@/components/ui/card";
 import { Table } from "@/components/ui/table";
 import { listInstruments } from "@/db/queries/instruments";
@@ -76,12 +77,35 @@ export default async function InstrumentsPage() {
           column("State", (i) =>
             i.retired ? "Retired" : <CalibrationState due={i.calibrationDueOn} today={today} />,
           ),
+          ...(mayEdit
+            ? [
+                column("Retirement", (i) => (
+                  <RetireButton
+                    register="instruments"
+                    id={i.id}
+                    retired={i.retired}
+                    label={`instrument ${i.serial}`}
+                  />
+                )),
+              ]
+            : []),
         ]}
       />
       {mayEdit ? (
-        <Card title="Add an instrument">
-          <InstrumentForm />
-        </Card>
+        <>
+          <Card title="Record a recalibration">
+            <p className="mb-3 text-sm text-graphite-600">
+              Each calibration is kept in the instrument&apos;s history; recording one brings a retired or
+              past-due instrument back into use.
+            </p>
+            <CalibrationForm
+              instruments={rows.map((i) => ({ id: i.id, label: `${i.serial} · ${i.kind}` }))}
+            />
+          </Card>
+          <Card title="Add an instrument">
+            <InstrumentForm />
+          </Card>
+        </>
       ) : null}
     </div>
   );

@@ -24,8 +24,13 @@ export default async function ProceduresPage() {
   const mayEdit = registerEditRefusal(user, "procedures") === null;
   const [templates, unitSystem] = await Promise.all([listTemplatesWithSteps(user), getUnitSystem(user)]);
   const unit = unitSystem === "inch" ? "in" : "mm";
+  // Retired machines and heads are left out of the pickers for new work.
   const [machines, heads, installers] = mayEdit
-    ? await Promise.all([listMachines(user), listHeads(user), listActiveInstallers()])
+    ? await Promise.all([
+        listMachines(user).then((rows) => rows.filter((m) => !m.retiredAt)),
+        listHeads(user).then((rows) => rows.filter((h) => !h.retiredAt)),
+        listActiveInstallers(),
+      ])
     : [[], [], []];
   return (
     <div className="space-y-6">

@@ -22,7 +22,7 @@ export default async function HeadPage({ params }: Props) {
   const mayEdit = registerEditRefusal(user, "heads") === null;
   const [h, fits] = await Promise.all([getHeadWithHistory(user, id), getHeadFitHistory(user, id)]);
   if (!h || !fits) notFound();
-  const machines = mayEdit ? await listMachines(user) : [];
+  const machines = mayEdit ? (await listMachines(user)).filter((m) => !m.retiredAt) : [];
   const { head } = h;
   return (
     <div className="space-y-6">

@@ -1,6 +1,7 @@
 // A head's fitted parameters across its jobs (installation, re-verification, after-crash), oldest
-// first: the office and engineers see every job on the head; a customer only their own company's
-// jobs on it (404 when none); installers and inspectors do not read the heads register (403).
+// first: the office and engineers see every job on the head; installers and inspectors every job on
+// a head that one of their jobs is on (404 otherwise); a customer only their own company's jobs on
+// it (404 when none).
 import { getHeadFitHistory, headHistoryJson } from "@/db/queries/heads-admin";
 import { requireUser } from "@/lib/auth/session";
 import { notFound } from "@/lib/errors";
