@@ -107,6 +107,8 @@ export async function seedAnalyses(): Promise<void> {
           eq(datasets.jobId, job.id),
           eq(datasets.kind, "sphere_probe"),
           eq(datasets.originalFilename, filename),
+          // A test may have deleted the demo file (deletion is soft): then it is uploaded again.
+          eq(datasets.status, "stored"),
         ),
       );
     if (!ds) {
