@@ -39,11 +39,7 @@ export default tseslint.config(
       "*.config.{ts,mjs,js}",
       "lib/scripts/**",
       "lib/cli/**",
-      "lib/mail/fake-smtp.ts",
-      "lib/storage/dev-s3.ts",
       "tests/**",
-      "db/migrate.ts",
-      "db/seed.ts",
       "db/audit-verify.ts",
     ],
     rules: {

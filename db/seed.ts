@@ -3,6 +3,7 @@
  * number below is made up. Idempotent (upserts by natural keys); refused in production.
  *   npm run db:seed
  */
+import { env } from "@/lib/env";
 import { and, eq, sql } from "drizzle-orm";
 import { db, pool } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
@@ -77,7 +78,7 @@ async function upsertHead(values: typeof heads.$inferInsert) {
 }
 
 export async function seed(): Promise<void> {
-  if (process.env.NODE_ENV === "production" && process.env.TRAMMEL_ALLOW_SEED !== "1") {
+  if (env.NODE_ENV === "production" && env.TRAMMEL_ALLOW_SEED !== "1") {
     throw new Error("Refusing to seed demo data into a production database.");
   }
   const marlow = await upsertCustomer("Marlow Creek Aerostructures", "buyer@marlowcreek.example");

@@ -51,6 +51,11 @@ const schema = z.object({
   /** Where uploaded originals are kept: S3-compatible storage (s3rver locally) or the PostgreSQL fallback. */
   STORAGE_DRIVER: z.enum(["s3", "postgres"]).default("postgres"),
   S3_ENDPOINT: z.string().url().default("http://127.0.0.1:4569"),
+  /** The local fakes of the demo and the test command (lib/storage/dev-s3.ts, lib/mail/fake-smtp.ts). */
+  S3_PORT: z.coerce.number().int().min(1).max(65535).default(4569),
+  S3_DIR: z.string().min(1).default(".data/s3"),
+  SMTP_FAKE_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+  MAIL_DIR: z.string().min(1).default(".data/mail"),
   S3_BUCKET: z.string().min(3).default("trammel-uploads"),
   S3_REGION: z.string().min(1).default("us-east-1"),
   /** The local fake's fixed credentials by default; production sets real ones. */

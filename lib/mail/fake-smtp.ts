@@ -4,13 +4,14 @@
  * without a mail server. Loopback only, no TLS, no auth: never for production.
  *   npx tsx lib/mail/fake-smtp.ts
  */
+import { env } from "@/lib/env";
 import { mkdirSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { simpleParser } from "mailparser";
 import { SMTPServer } from "smtp-server";
 
-const dir = path.resolve(process.env.MAIL_DIR ?? ".data/mail");
-const port = Number(process.env.SMTP_FAKE_PORT ?? 2525);
+const dir = path.resolve(env.MAIL_DIR);
+const port = env.SMTP_FAKE_PORT;
 mkdirSync(dir, { recursive: true });
 let seq = 0;
 

@@ -3,12 +3,13 @@
  *   npx tsx lib/storage/dev-s3.ts            (127.0.0.1:4569, bucket trammel-uploads, .data/s3)
  * S3_PORT, S3_BUCKET and S3_DIR override. Runs until it gets SIGTERM or SIGINT.
  */
+import { env } from "@/lib/env";
 import { mkdirSync } from "node:fs";
 import S3rver from "s3rver";
 
-const port = Number(process.env.S3_PORT ?? 4569);
-const bucket = process.env.S3_BUCKET ?? "trammel-uploads";
-const directory = process.env.S3_DIR ?? ".data/s3";
+const port = env.S3_PORT;
+const bucket = env.S3_BUCKET;
+const directory = env.S3_DIR;
 mkdirSync(directory, { recursive: true });
 
 const server = new S3rver({
