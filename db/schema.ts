@@ -29,6 +29,7 @@ import { DATASET_KINDS, DATASET_STATUSES, PHASES } from "../lib/domain/datasets"
 import { DECISION_RULES } from "../lib/domain/decisions";
 import { AXIS_LETTERS } from "../lib/domain/heads";
 import { JOB_KINDS, JOB_STATUSES } from "../lib/domain/jobs";
+import { MULTI_POINT_RESULTS, STEP_KINDS } from "../lib/domain/procedures";
 import { ROLES } from "../lib/domain/roles";
 import { SIGNATURE_MEANINGS } from "../lib/domain/signatures";
 
@@ -51,12 +52,8 @@ export const phaseEnum = pgEnum("phase", PHASES);
 /** What a checklist step measures; fixes the canonical unit its values are stored in. */
 export const quantityKindEnum = pgEnum("quantity_kind", ["length", "angle"]);
 /** How a step's value is obtained: read directly, or derived by geometry/ from the inputs. */
-export const stepDerivationEnum = pgEnum("step_derivation", [
-  "direct",
-  "angle_over_distance",
-  "sweep_flatness",
-  "check",
-]);
+export const stepDerivationEnum = pgEnum("step_derivation", STEP_KINDS);
+export const multiPointResultEnum = pgEnum("multi_point_result", MULTI_POINT_RESULTS);
 export const limitSourceEnum = pgEnum("limit_source", [
   "standard",
   "maker_manual",
@@ -195,8 +192,18 @@ export const jobs = pgTable(
       onDelete: "restrict",
     }),
     scheduledFor: timestamp("scheduled_for", { withTimezone: true }),
+    /** IANA zone the schedule was given in (e.g. Europe/Berlin); times are stored in UTC. */
+    timeZone: text("time_zone"),
     airTempC: doublePrecision("air_temp_c"),
     notes: text("notes"),
+    /** The customer's order or purchase-order reference, printed on the report. */
+    orderReference: text("order_reference"),
+    customerContactName: text("customer_contact_name"),
+    customerContactEmail: text("customer_contact_email"),
+    /** The condition of the item as received, in words (printed on the report). */
+    conditionAsFound: text("condition_as_found"),
+    /** When the head should next be re-checked (printed on the report). */
+    nextRecheckOn: date("next_recheck_on", { mode: "string" }),
     createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
     ...timestamps,
   },
@@ -303,6 +310,12 @@ export const procedureTemplates = pgTable(
     version: integer("version").notNull(),
     description: text("description"),
     isCurrent: boolean("is_current").notNull().default(true),
+    /** The job kinds this procedure applies to; null = every kind. */
+    jobKinds: jobKindEnum("job_kinds").array(),
+    /** The head model it is written for; null = every model. */
+    headModel: text("head_model"),
+    /** Retired procedures are not offered for new jobs; jobs that use them keep them. */
+    retiredAt: timestamp("retired_at", { withTimezone: true }),
     createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
     ...timestamps,
   },
@@ -335,6 +348,14 @@ export const templateSteps = pgTable(
     limitSource: limitSourceEnum("limit_source").notNull(),
     limitSourceNote: text("limit_source_note"),
     safetyNote: text("safety_note"),
+    /** multi_point: the named points in entry order (e.g. ["12","3","6","9"]). */
+    points: jsonb("points").$type<string[]>(),
+    /** multi_point: what the judged value is derived from the points. */
+    pointResult: multiPointResultEnum("point_result"),
+    /** record: the unit the value is written in (e.g. "N·m", "mm"); stored as entered. */
+    recordUnit: text("record_unit"),
+    /** The step is not complete without a photo (dial face, set-up, shims). */
+    photoRequired: boolean("photo_required").notNull().default(false),
   },
   (t) => [uniqueIndex("template_steps_position_idx").on(t.templateId, t.position)],
 );
@@ -359,8 +380,16 @@ export const readings = pgTable(
     value: doublePrecision("value").notNull(),
     enteredValue: doublePrecision("entered_value").notNull(),
     enteredUnit: text("entered_unit").notNull(),
-    /** Inputs of a derived value (e.g. the reading and distance of an angle), as entered. */
+    /**
+     * Inputs of a derived value, as entered: the reading and distance of an angle, or for a
+     * multi_point step `{ points: { "12": v, "3": v, … } }` in the entered unit.
+     */
     inputs: jsonb("inputs"),
+    /**
+     * Text answers: "yes"/"no" for a check step (value 1/0), the text of a note step (value 0),
+     * or where a recorded value applies (shim positions) for a record step.
+     */
+    textValue: text("text_value"),
     instrumentId: uuid("instrument_id").references(() => instruments.id, { onDelete: "restrict" }),
     note: text("note"),
     takenAt: timestamp("taken_at", { withTimezone: true }).notNull().defaultNow(),
@@ -654,3 +683,31 @@ export const deviations = pgTable(
   (t) => [uniqueIndex("deviations_subject_idx").on(t.jobId, t.subject)],
 );
 export type Deviation = typeof deviations.$inferSelect;
+
+/**
+ * The environment at the machine while the work was done: air and machine temperature, entered
+ * with the readings (several per job and phase). Appended, never edited.
+ */
+export const environmentRecords = pgTable(
+  "environment_records",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    phase: phaseEnum("phase").notNull(),
+    airTempC: doublePrecision("air_temp_c"),
+    machineTempC: doublePrecision("machine_temp_c"),
+    note: text("note"),
+    takenAt: timestamp("taken_at", { withTimezone: true }).notNull().defaultNow(),
+    recordedById: uuid("recorded_by_id").references(() => users.id, { onDelete: "set null" }),
+    /** The id the tablet gave the record: a repeated send finds it instead of storing twice. */
+    clientId: uuid("client_id"),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    index("environment_records_job_idx").on(t.jobId, t.takenAt),
+    uniqueIndex("environment_records_job_client_uq").on(t.jobId, t.clientId),
+  ],
+);
+export type EnvironmentRecord = typeof environmentRecords.$inferSelect;

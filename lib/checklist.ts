@@ -6,6 +6,7 @@
 import { angleFromReading } from "@/geometry/angle";
 import { decide } from "@/geometry/decision";
 import type { Decision, DecisionRule } from "@/lib/domain/decisions";
+import type { StepKind } from "@/lib/domain/procedures";
 import { RAD_PER_ARCSEC } from "@/geometry/units";
 import { toCanonical, type EntryUnit, type QuantityKind } from "@/lib/units";
 
@@ -13,7 +14,7 @@ export type StepDecision = Decision | "no_limit" | "not_measured";
 
 export interface StepRule {
   readonly quantityKind: QuantityKind;
-  readonly derivation: "direct" | "angle_over_distance" | "sweep_flatness" | "check";
+  readonly derivation: StepKind;
   readonly distanceMm: number | null;
   readonly lowerLimit: number | null;
   readonly upperLimit: number | null;
