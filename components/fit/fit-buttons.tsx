@@ -120,6 +120,17 @@ export function ApproveButton({
                 Approving does not make them conform: before the report is issued each is measured again or
                 carried as a deviation with a written justification.
               </p>
+              <label className="mt-2 flex min-h-touch items-center gap-2 font-semibold">
+                <input
+                  type="checkbox"
+                  name="acknowledged"
+                  value={nonConforming.map((p) => p.key).join(",")}
+                  required
+                  className="size-5"
+                />
+                I have read {nonConforming.length === 1 ? "this result" : "these results"} and approve
+                nonetheless
+              </label>
             </div>
           ) : (
             <p className="text-sm text-graphite-700">Every parameter with a limit is within it.</p>

@@ -424,6 +424,23 @@ export async function getApprovedAnalysis(actor: Actor, jobId: string) {
   return { detail: a, approvedAt: last.at, approvedBy: last.actorName ?? last.actorEmail };
 }
 
+function nonConformingOf(
+  fit: Parameters<typeof parameterRows>[0],
+  limits: Parameters<typeof parameterRows>[1],
+) {
+  return parameterRows(fit, limits)
+    .filter((p) => p.decision === "fail" || p.decision === "undecided")
+    .map((p) => ({ key: p.key, decision: p.decision }));
+}
+
+/** The fitted parameters judged FAIL or undecided against the job's limits: what approval must confirm. */
+export async function nonConformingParameters(actor: Actor, analysisId: string) {
+  const a = await getAnalysis(actor, analysisId);
+  if (!a) throw notFound("analysis");
+  const job = (await visibleJob(actor, a.job.id)).job;
+  return nonConformingOf(a.analysis.result.fit, await parameterLimitsOfTemplate(job.templateId));
+}
+
 /**
  * An engineer approves a stored fit as the job's parameter set, and the approval is a signature
  * (meaning "parameters approved", 21 CFR 11.50 and 11.200: the password is entered again). The
@@ -432,9 +449,16 @@ export async function getApprovedAnalysis(actor: Actor, jobId: string) {
  * manifest names the analysis (its input SHA-256 and computation version) and the parameters
  * judged FAIL or undecided that the engineer confirmed. 404 when not visible; 403 for any other
  * role (or when the same person signed the work as performed and the company does not allow
- * it); 409 when the job is not in review; a wrong password is refused for its field.
+ * it); 409 when the job is not in review; 422 naming the field `acknowledged` when a FAIL or
+ * undecided parameter was not confirmed; a wrong password is refused for its field.
  */
-export async function approveAnalysis(actor: Actor, analysisId: string, password: string) {
+export async function approveAnalysis(
+  actor: Actor,
+  analysisId: string,
+  password: string,
+  /** The keys of the FAIL or undecided parameters the engineer confirmed having read. */
+  acknowledged: readonly string[] = [],
+) {
   const a = await getAnalysis(actor, analysisId);
   if (!a) throw notFound("analysis");
   const who = fitApproverRefusal(actor);
@@ -443,12 +467,18 @@ export async function approveAnalysis(actor: Actor, analysisId: string, password
   const refusal = fitApprovalRefusal(actor, { status });
   if (refusal) throw new AppError(409, "not_in_review", refusal);
   await refuseSameSigner(actor, a.job.id, "parameters_approved");
-  await requirePasswordReentry(actor, password);
   const job = (await visibleJob(actor, a.job.id)).job;
   const fit = a.analysis.result.fit;
-  const nonConforming = parameterRows(fit, await parameterLimitsOfTemplate(job.templateId))
-    .filter((p) => p.decision === "fail" || p.decision === "undecided")
-    .map((p) => ({ key: p.key, decision: p.decision }));
+  const nonConforming = nonConformingOf(fit, await parameterLimitsOfTemplate(job.templateId));
+  const unconfirmed = nonConforming.filter((p) => !acknowledged.includes(p.key));
+  if (unconfirmed.length > 0)
+    throw invalid("Confirm that you have read the parameters that do not conform before signing.", [
+      {
+        field: "acknowledged",
+        message: `Not confirmed: ${unconfirmed.map((p) => `${p.key} (${p.decision})`).join(", ")}.`,
+      },
+    ]);
+  await requirePasswordReentry(actor, password);
   const signedAt = new Date();
   const manifest = {
     ...manifestFor(

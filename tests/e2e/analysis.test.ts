@@ -19,6 +19,7 @@ import {
   seriousViolations,
   signIn,
   waitForPicture,
+  signApproval,
 } from "./browser";
 
 let ctx: BrowserContext;
@@ -374,9 +375,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     await approve2.click();
     // Approval is a signature: the form names what does not conform and asks for the password
     // again (21 CFR 11.200; ISO/IEC 17025:2017 §7.8.2.1 o).
-    const sign = e.getByRole("form", { name: "Sign: parameters approved" });
-    await sign.getByLabel("Your password").fill("trammel-demo");
-    await sign.getByRole("button", { name: "Sign the approval" }).click();
+    await signApproval(e);
     const values = e.getByRole("table", { name: "Values for the control" });
     await values.waitFor({ timeout: 20_000 });
     const v = await values.innerText();

@@ -162,3 +162,18 @@ export async function choose(scope: Page | Locator, label: string | RegExp): Pro
     .toBe(true);
   await input.check({ force: true });
 }
+
+/**
+ * Signs an open "parameters approved" form: when the fit has parameters that do not conform, the
+ * form names them and the server refuses until the engineer ticks that they were read (the
+ * signing button does nothing before, as the box is required). Returns how many were named.
+ */
+export async function signApproval(page: Page): Promise<number> {
+  const sign = page.getByRole("form", { name: "Sign: parameters approved" });
+  const named = sign.getByRole("note", { name: "Results that do not conform" }).getByRole("listitem");
+  const count = await named.count();
+  if (count > 0) await sign.getByRole("checkbox", { name: /I have read/ }).check();
+  await sign.getByLabel("Your password").fill(DEMO_PASSWORD);
+  await sign.getByRole("button", { name: "Sign the approval" }).click();
+  return count;
+}

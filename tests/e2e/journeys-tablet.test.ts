@@ -30,6 +30,7 @@ import {
   TABLET,
   waitForPicture,
   choose,
+  signApproval,
 } from "./browser";
 
 let ctx: BrowserContext;
@@ -217,9 +218,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     await approve.click();
     // Approval is a signature: the form names what does not conform and asks for the password
     // again (21 CFR 11.200; ISO/IEC 17025:2017 §7.8.2.1 o).
-    const sign = p.getByRole("form", { name: "Sign: parameters approved" });
-    await sign.getByLabel("Your password").fill("trammel-demo");
-    await sign.getByRole("button", { name: "Sign the approval" }).click();
+    await signApproval(p);
     const values = p.getByRole("table", { name: "Values for the control" });
     await values.waitFor({ timeout: 20_000 });
     // Nominal + 18 µm, recovered to well within 1 µm (1 µm noise, 120 poses).

@@ -12,7 +12,7 @@ import path from "node:path";
 import { and, asc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
+import { approveAnalysis, nonConformingParameters, runHeadFit } from "@/db/queries/analyses";
 import { getReadiness, getReadinessView, recordDeviation } from "@/db/queries/readiness";
 import { recordReading } from "@/db/queries/readings";
 import { issueReport } from "@/db/queries/reports";
@@ -187,7 +187,22 @@ describe("issue is refused while any blocker stands", () => {
   });
 
   it("deviations are the engineer's, need a justification, and clear the FAIL; then the report issues", async () => {
-    await approveAnalysis(as.engineer!, analysisId, PW);
+    // The approval names the parameters that do not conform and refuses until each is confirmed.
+    const open = await nonConformingParameters(as.engineer!, analysisId);
+    expect(open.length).toBeGreaterThan(0);
+    const unconfirmed = await approveAnalysis(as.engineer!, analysisId, PW).then(
+      () => null,
+      (e: AppError) => e,
+    );
+    expect(unconfirmed?.status).toBe(422);
+    expect(unconfirmed?.issues?.[0]?.field).toBe("acknowledged");
+    expect(unconfirmed?.issues?.[0]?.message).toContain(open[0]!.key);
+    await approveAnalysis(
+      as.engineer!,
+      analysisId,
+      PW,
+      open.map((p) => p.key),
+    );
     const view = await getReadinessView(as.engineer!, jobId);
     const step = view!.nonConforming.find((r) => r.subject === `step:${step1}`)!;
     expect(step.decision).toBe("fail");

@@ -12,7 +12,7 @@ import { eq } from "drizzle-orm";
 import { PNG } from "pngjs";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
+import { approveAnalysis, nonConformingParameters, runHeadFit } from "@/db/queries/analyses";
 import { saveAnalysisView } from "@/db/queries/analysis-views";
 import { changeJobStatus } from "@/db/queries/job-status";
 import { getJobConformity, issueReport } from "@/db/queries/reports";
@@ -94,7 +94,12 @@ beforeAll(async () => {
   await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
   await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
   await changeJobStatus(as.installer!, jobId, "in_review");
-  await approveAnalysis(as.engineer!, analysis.id, PW);
+  await approveAnalysis(
+    as.engineer!,
+    analysis.id,
+    PW,
+    (await nonConformingParameters(as.engineer!, analysis.id)).map((p) => p.key),
+  );
   await carryOpenResults(as.engineer!, jobId, "Within the machine builder's acceptance for this demo head.");
   await saveAnalysisView(as.engineer!, analysis.id, {
     png: viewPng,

@@ -7,7 +7,7 @@
 import { and, asc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
+import { approveAnalysis, nonConformingParameters, runHeadFit } from "@/db/queries/analyses";
 import { recordReading } from "@/db/queries/readings";
 import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
@@ -144,7 +144,12 @@ describe("one person does not sign both 'performed' and an approval", () => {
     ).toEqual([]);
 
     // Another engineer approves; the one who performed the work still may not issue the report.
-    await approveAnalysis(as.engineer!, analysis.id, PW);
+    await approveAnalysis(
+      as.engineer!,
+      analysis.id,
+      PW,
+      (await nonConformingParameters(as.engineer!, analysis.id)).map((p) => p.key),
+    );
     const issue = await refusal(issueReport(asEngineer, { jobId, password: PW }));
     expect(issue?.status).toBe(403);
     expect(issue?.message).toMatch(/signed this work as performed/);

@@ -34,11 +34,14 @@ export const approveFitAction = action(
       password: z
         .string({ error: "Re-enter your password to sign." })
         .min(1, "Re-enter your password to sign."),
+      /** Comma-separated keys of the non-conforming parameters the engineer confirmed (a checkbox). */
+      acknowledged: z.string().optional(),
     }),
     refusal: fitApproverRefusal,
   },
-  async ({ jobId, analysisId, password }, actor) => {
-    const r = await approveAnalysis(actor, analysisId, password);
+  async ({ jobId, analysisId, password, acknowledged }, actor) => {
+    const keys = (acknowledged ?? "").split(",").filter((k) => k !== "");
+    const r = await approveAnalysis(actor, analysisId, password, keys);
     revalidatePath(`/jobs/${jobId}`, "layout");
     return r;
   },
