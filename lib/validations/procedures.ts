@@ -30,6 +30,9 @@ const text = (max: number) =>
     (v) => (typeof v === "string" && v.trim() === "" ? null : v),
     z.string().trim().max(max).nullish(),
   );
+/** An optional choice: a form's empty option ("") means none. */
+const choice = <T extends z.ZodType>(schema: T) =>
+  z.preprocess((v) => (v === "" ? null : v), schema.nullish());
 const limit = z.preprocess(
   (v) => (v === "" ? null : typeof v === "string" ? Number(v) : v),
   z.number({ message: "Enter a number." }).finite("Enter a finite number.").nullish(),
@@ -42,17 +45,33 @@ export const procedureStepSchema = z.object({
   safety: text(2000),
   quantity: text(200),
   /** The unit the limits (and the readings of a multi-point step) are written in. */
-  unit: z.enum(LIMIT_UNITS).nullish(),
+  unit: choice(z.enum(LIMIT_UNITS)),
   lower: limit,
   upper: limit,
-  decisionRule: z.enum(["simple", "guarded"]).nullish(),
-  limitSource: z.enum(LIMIT_SOURCES).nullish(),
+  decisionRule: choice(z.enum(["simple", "guarded"])),
+  limitSource: choice(z.enum(LIMIT_SOURCES)),
   limitSourceNote: text(1000),
   /** multi_point: the named points in entry order. */
-  points: z.array(z.string().trim().min(1, "A point needs a name.").max(12)).max(24).nullish(),
-  pointResult: z.enum(MULTI_POINT_RESULTS).nullish(),
+  points: z.preprocess(
+    // A form writes the points as one line: "12, 3, 6, 9".
+    (v) =>
+      typeof v === "string"
+        ? v
+            .split(",")
+            .map((x) => x.trim())
+            .filter(Boolean)
+        : v,
+    z
+      .array(z.string().trim().min(1, "A point needs a name.").max(12))
+      .max(24, "At most 24 points.")
+      .nullish(),
+  ),
+  pointResult: choice(z.enum(MULTI_POINT_RESULTS)),
   /** angle_over_distance: the distance the reading is taken over, mm. */
-  distanceMm: z.number().positive("The distance must be positive.").nullish(),
+  distanceMm: z.preprocess(
+    (v) => (v === "" ? null : typeof v === "string" ? Number(v) : v),
+    z.number({ message: "Enter a number." }).positive("The distance must be positive.").nullish(),
+  ),
   /** record: the unit the value is written in ("N·m", "mm"). */
   recordUnit: text(20),
   photoRequired: z.boolean().nullish(),
@@ -64,7 +83,11 @@ export const procedureSchema = z.object({
   description: text(2000),
   /** One job kind (the API's short form) or several; none = every kind. */
   jobKind: z.enum(API_JOB_KINDS).nullish(),
-  jobKinds: z.array(z.enum(API_JOB_KINDS)).max(JOB_KINDS.length).nullish(),
+  jobKinds: z.preprocess(
+    // Form check boxes give false (none ticked), one value, or a list.
+    (v) => (v === false ? null : typeof v === "string" ? [v] : v),
+    z.array(z.enum(API_JOB_KINDS)).max(API_JOB_KINDS.length).nullish(),
+  ),
   headModel: text(120),
   steps: z.array(procedureStepSchema).min(1, "A procedure needs at least one step.").max(80),
 });
