@@ -4,7 +4,7 @@
 // read them, customers neither); field-named 422s; versioning that keeps a job on its version;
 // retiring; and the new-job query proceduresFor.
 import { and, asc, eq } from "drizzle-orm";
-import { beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 import { GET as rawList, POST as rawCreate } from "@/app/api/procedures/route";
 import { GET as itemGet, PATCH as itemPatch } from "@/app/api/procedures/[id]/route";
 import { POST as versionPost } from "@/app/api/procedures/[id]/versions/route";
@@ -14,6 +14,10 @@ import { proceduresFor } from "@/db/queries/procedures";
 import { getActor } from "@/db/queries/users";
 import { auditEvents, jobs, procedureTemplates, templateSteps } from "@/db/schema";
 import { jobIdByReference, request, signInAs } from "./helpers";
+
+// Outside a Next request there is no cache to revalidate.
+vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn() }));
+const actions = await import("@/app/(app)/registers/procedures/actions");
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
 const json = (method: string, body: unknown): RequestInit => ({
@@ -277,5 +281,28 @@ describe("versions", () => {
     res = await itemPatch(request(`/api/procedures/${t.id}`, json("PATCH", { retired: false })), p(t.id));
     expect(res.status).toBe(200);
     expect(await names("installation", "HX-77")).toContain(name);
+  });
+});
+
+describe("builder actions", () => {
+  it("name each step's field on refusal, create, save in place and retire", async () => {
+    await signInAs("engineer@halvard.example");
+    const name = `Action ${uniq()}`;
+    const bad = body(name);
+    (bad.steps[1] as Record<string, unknown>).limitSource = "";
+    const refused = await actions.createProcedureAction(bad);
+    expect(refused.ok).toBe(false);
+    if (refused.ok) return;
+    expect(Object.keys(refused.fieldErrors ?? {})).toEqual(["steps.1.limitSource"]);
+    expect(await db.select().from(procedureTemplates).where(eq(procedureTemplates.name, name))).toEqual([]);
+
+    const made = await actions.createProcedureAction(body(name));
+    expect(made.ok).toBe(true);
+    if (!made.ok) return;
+    const saved = await actions.saveProcedureVersionAction({ ...body(name), id: made.data.id });
+    expect(saved).toEqual({ ok: true, data: { id: made.data.id, version: 1, replaced: true } });
+    const retired = await actions.setProcedureRetiredAction({ id: made.data.id, retired: "true" });
+    expect(retired).toEqual({ ok: true, data: { id: made.data.id, retired: true } });
+    expect((await proceduresFor("installation", "HX-40")).map((x) => x.name)).not.toContain(name);
   });
 });
