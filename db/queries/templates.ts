@@ -113,6 +113,9 @@ export async function createTemplateVersion(
         name: base.name,
         version: (v ?? 0) + 1,
         description: base.description,
+        // What the procedure applies to goes with it into the new version.
+        jobKinds: base.jobKinds,
+        headModel: base.headModel,
         isCurrent: true,
         createdById: actor.id,
       })
