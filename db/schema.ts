@@ -354,6 +354,8 @@ export const templateSteps = pgTable(
     pointResult: multiPointResultEnum("point_result"),
     /** record: the unit the value is written in (e.g. "N·m", "mm"); stored as entered. */
     recordUnit: text("record_unit"),
+    /** The unit the procedure writes this step's limits in (mm, um, in, arcsec); stored values stay canonical. */
+    limitUnit: text("limit_unit"),
     /** The step is not complete without a photo (dial face, set-up, shims). */
     photoRequired: boolean("photo_required").notNull().default(false),
   },

@@ -234,6 +234,8 @@ export async function seed(): Promise<void> {
       });
     });
   }
+  // The starter procedures every install has (not demo data), beside the demo's own.
+  await (await import("./library")).loadStarterLibrary();
   await (await import("./seed-checklists")).seedChecklists();
   await (await import("./seed-datasets")).seedDatasets();
   await (await import("./seed-analyses")).seedAnalyses();

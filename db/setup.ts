@@ -2,7 +2,8 @@
  * First start of a production install: `npm run setup -- --admin-email someone@example.com
  * [--admin-name "Full Name"]`. Applies the migrations, then on a database with no account yet
  * creates the first administrator and prints a one-time set-password link (also queued by e-mail
- * through the outbox). Loads no demo data. Exit status 1, with the reason, when it cannot.
+ * through the outbox), and loads the starter library of procedures (db/library, idempotent).
+ * Loads no demo data. Exit status 1, with the reason, when it cannot.
  */
 import { env } from "../lib/env";
 import { runMigrations } from "./migrate";
@@ -20,7 +21,15 @@ let code = 0;
 await runMigrations(env.DATABASE_URL);
 const { pool } = await import("./index");
 try {
-  const { createFirstAdmin } = await import("./queries/setup");
+  const { createFirstAdmin, firstAdminSchema } = await import("./queries/setup");
+  firstAdminSchema.parse({ email, name });
+  // The starter procedures (not demo data), so the first job can be opened; idempotent.
+  const loaded = await (await import("./library")).loadStarterLibrary();
+  console.log(
+    loaded.length
+      ? `Starter procedures loaded: ${loaded.join("; ")}.`
+      : "The starter procedures are already in place.",
+  );
   const { link } = await createFirstAdmin({ email, name });
   console.log(`Administrator ${email} created. Set the password within 72 hours (the link works once):`);
   console.log(link);

@@ -9,6 +9,7 @@ export * from "./csv";
 export * from "./circle";
 export * from "./tram";
 export * from "./sweep";
+export * from "./multi-point";
 export * from "./angle";
 export * from "./decision";
 export * from "./test-part";

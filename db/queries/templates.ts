@@ -1,7 +1,8 @@
 import "server-only";
-import { and, asc, desc, eq, max } from "drizzle-orm";
+import { and, asc, eq, max } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
+import { listProcedures } from "@/db/queries/procedures";
 import { procedureTemplates, templateParameterLimits, templateSteps } from "@/db/schema";
 import { HEAD_PARAMETER_KEYS, type HeadParameterKey } from "@/geometry";
 import { type Actor } from "@/lib/domain/roles";
@@ -9,20 +10,9 @@ import { isUuid } from "@/lib/domain/uuid";
 import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 
+/** Every procedure version with its steps and head-parameter limits (see listProcedures). */
 export async function listTemplatesWithSteps(actor: Actor) {
-  const refusal = registerReadRefusal(actor, "procedures");
-  if (refusal) throw forbidden(refusal);
-  const ts = await db
-    .select()
-    .from(procedureTemplates)
-    .orderBy(asc(procedureTemplates.name), desc(procedureTemplates.version));
-  const steps = await db.select().from(templateSteps).orderBy(asc(templateSteps.position));
-  const limits = await db.select().from(templateParameterLimits);
-  return ts.map((t) => ({
-    ...t,
-    steps: steps.filter((s) => s.templateId === t.id),
-    parameterLimits: limits.filter((l) => l.templateId === t.id),
-  }));
+  return listProcedures(actor);
 }
 
 /** One procedure version with its steps and head-parameter limits; null when there is none (404). */
@@ -123,6 +113,9 @@ export async function createTemplateVersion(
         name: base.name,
         version: (v ?? 0) + 1,
         description: base.description,
+        // What the procedure applies to goes with it into the new version.
+        jobKinds: base.jobKinds,
+        headModel: base.headModel,
         isCurrent: true,
         createdById: actor.id,
       })

@@ -71,6 +71,8 @@ const COVERED = new Set([
   "app/api/users/route.ts",
   "app/api/procedures/route.ts",
   "app/api/procedures/[id]/route.ts",
+  // tests/integration/procedures-access.test.ts
+  "app/api/procedures/[id]/versions/route.ts",
   // public, static: the load benchmark's ceiling
   "app/api/ping/route.ts",
 ]);

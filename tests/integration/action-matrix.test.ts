@@ -32,6 +32,7 @@ const registers = await import("@/app/(app)/registers/actions");
 const setPassword = await import("@/app/(auth)/set-password/actions");
 const people = await import("@/app/(app)/registers/people/actions");
 const forgotPassword = await import("@/app/(auth)/forgot-password/actions");
+const procedures = await import("@/app/(app)/registers/procedures/actions");
 
 type Who =
   | "anonymous"
@@ -282,6 +283,19 @@ for (const name of [
   MATRIX[name] = {
     expect: staffOnly(["admin"]),
     call: async () => (registers[name] as (raw: unknown) => Promise<ActionResult<unknown>>)({}),
+  };
+}
+
+// ---- procedure builder: the office and the application engineers write procedures; an empty
+// body gets past the access check to a field to correct.
+for (const name of [
+  "createProcedureAction",
+  "saveProcedureVersionAction",
+  "setProcedureRetiredAction",
+] as const) {
+  MATRIX[name] = {
+    expect: staffOnly(["admin", "engineer"]),
+    call: async () => (procedures[name] as (raw: unknown) => Promise<ActionResult<unknown>>)({}),
   };
 }
 

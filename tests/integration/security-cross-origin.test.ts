@@ -26,6 +26,9 @@ import { PATCH as patchHeadsItem } from "@/app/api/heads/[id]/route";
 import { POST as postInstruments } from "@/app/api/instruments/route";
 import { PATCH as patchInstrumentsItem } from "@/app/api/instruments/[id]/route";
 import { POST as postCalibration } from "@/app/api/instruments/[id]/calibrations/route";
+import { POST as postProcedures } from "@/app/api/procedures/route";
+import { PATCH as patchProceduresItem } from "@/app/api/procedures/[id]/route";
+import { POST as postProcedureVersion } from "@/app/api/procedures/[id]/versions/route";
 import { NextRequest } from "next/server";
 import { db } from "@/db";
 import { sql } from "drizzle-orm";
@@ -163,6 +166,27 @@ const WRITES: { name: string; file: string; method: string; handler: Handler; pa
     file: "app/api/instruments/[id]/calibrations/route.ts",
     method: "POST",
     handler: postCalibration as Handler,
+    params: () => ({ id: NO_ROW }),
+  },
+  {
+    name: "POST /api/procedures",
+    file: "app/api/procedures/route.ts",
+    method: "POST",
+    handler: postProcedures as Handler,
+    params: () => ({}),
+  },
+  {
+    name: "PATCH /api/procedures/{id}",
+    file: "app/api/procedures/[id]/route.ts",
+    method: "PATCH",
+    handler: patchProceduresItem as Handler,
+    params: () => ({ id: NO_ROW }),
+  },
+  {
+    name: "POST /api/procedures/{id}/versions",
+    file: "app/api/procedures/[id]/versions/route.ts",
+    method: "POST",
+    handler: postProcedureVersion as Handler,
     params: () => ({ id: NO_ROW }),
   },
 ];

@@ -67,8 +67,62 @@ describe("npm run setup", () => {
         const n = await c.query(`select count(*)::int as n from ${table}`);
         expect(n.rows[0].n, table).toBe(0);
       }
-      const audit = await c.query("select action from audit_events");
-      expect(audit.rows.map((a) => a.action)).toEqual(["user.first_admin_created"]);
+      // The starter library and nothing else: three procedures, version 1, current, one per job
+      // kind, with the installation's full sequence; none of the demo's own procedure.
+      const procs = await c.query(
+        `select t.name, t.version, t.is_current, t.job_kinds::text as kinds, count(s.id)::int as steps
+           from procedure_templates t join template_steps s on s.template_id = t.id
+          group by t.id order by t.name`,
+      );
+      expect(procs.rows).toEqual([
+        {
+          name: "Starter: check a two-axis head after a crash",
+          version: 1,
+          is_current: true,
+          kinds: "{after_crash}",
+          steps: 11,
+        },
+        {
+          name: "Starter: install a two-axis head",
+          version: 1,
+          is_current: true,
+          kinds: "{installation}",
+          steps: 25,
+        },
+        {
+          name: "Starter: periodic re-check of a two-axis head",
+          version: 1,
+          is_current: true,
+          kinds: "{reverification}",
+          steps: 8,
+        },
+      ]);
+      const kinds = await c.query(
+        `select derivation::text as d, count(*)::int as n from template_steps s
+           join procedure_templates t on t.id = s.template_id
+          where t.name = 'Starter: install a two-axis head' group by 1 order by 1`,
+      );
+      expect(Object.fromEntries(kinds.rows.map((r) => [r.d, r.n]))).toEqual({
+        angle_over_distance: 2,
+        check: 10,
+        direct: 2,
+        multi_point: 2,
+        note: 1,
+        record: 8,
+      });
+      // Every judged step names its limit's source; every multi-point step its points.
+      const unsourced = await c.query(
+        `select title from template_steps where derivation in ('direct','angle_over_distance','multi_point')
+            and (limit_source_note is null or (lower_limit is null and upper_limit is null))`,
+      );
+      expect(unsourced.rows).toEqual([]);
+      const audit = await c.query("select action from audit_events order by id");
+      expect(audit.rows.map((a) => a.action)).toEqual([
+        "procedure.library_loaded",
+        "procedure.library_loaded",
+        "procedure.library_loaded",
+        "user.first_admin_created",
+      ]);
     });
   }, 120_000);
 
@@ -81,6 +135,8 @@ describe("npm run setup", () => {
     expect(bad.stderr).toContain("--admin-email");
     await onServer(target, async (c) => {
       expect((await c.query("select count(*)::int as n from users")).rows[0].n).toBe(1);
+      // Loading the library again adds nothing (idempotent by name and version).
+      expect((await c.query("select count(*)::int as n from procedure_templates")).rows[0].n).toBe(3);
     });
   }, 120_000);
 });

@@ -1,14 +1,17 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { notFound } from "next/navigation";
 import { LIMIT_SOURCE_LABELS } from "@/components/readings/decision-badge";
 import { JobCreateForm } from "@/components/registers/job-create-form";
 import { TemplateVersionForm } from "@/components/registers/template-version-form";
+import { buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { Table } from "@/components/ui/table";
 import { listHeads, listMachines } from "@/db/queries/registers";
 import { listTemplatesWithSteps } from "@/db/queries/templates";
 import { listActiveInstallers } from "@/db/queries/users-admin";
 import { getUnitSystem } from "@/db/queries/user-prefs";
+import { procedureEditRefusal } from "@/lib/policy/procedures";
 import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
@@ -22,6 +25,7 @@ export default async function ProceduresPage() {
   const user = await requirePageUser("/registers/procedures");
   if (registerReadRefusal(user, "procedures")) notFound();
   const mayEdit = registerEditRefusal(user, "procedures") === null;
+  const mayBuild = procedureEditRefusal(user, null) === null;
   const [templates, unitSystem] = await Promise.all([listTemplatesWithSteps(user), getUnitSystem(user)]);
   const unit = unitSystem === "inch" ? "in" : "mm";
   // Retired machines and heads are left out of the pickers for new work.
@@ -40,9 +44,26 @@ export default async function ProceduresPage() {
           The checklists jobs follow. Each step has its quantity, limits, decision rule and the source of the
           limit. Editing makes a new version; a job keeps the version it started with.
         </p>
+        {mayBuild ? (
+          <Link href="/registers/procedures/new" className={buttonClass("primary", "mt-3")}>
+            New procedure
+          </Link>
+        ) : null}
       </div>
       {templates.map((t) => (
-        <Card key={t.id} title={`${t.name} · version ${t.version}${t.isCurrent ? " (current)" : ""}`}>
+        <Card
+          key={t.id}
+          title={`${t.name} · version ${t.version}${t.isCurrent ? " (current)" : ""}${t.retiredAt ? " · retired" : ""}`}
+          actions={
+            <Link href={`/registers/procedures/${t.id}`} className={buttonClass("secondary")}>
+              {mayBuild && t.isCurrent && !t.retiredAt ? "Open and edit steps" : "Open"}
+              <span className="sr-only">
+                {" "}
+                {t.name}, version {t.version}
+              </span>
+            </Link>
+          }
+        >
           <p className="mb-3 text-sm text-graphite-600">
             {t.description} Created {formatDateTimeUtc(t.createdAt)}.
           </p>

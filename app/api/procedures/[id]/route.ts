@@ -1,8 +1,12 @@
 // One procedure version with its steps and head-parameter limits; 404 when there is none.
+// PATCH `{ retired: true|false }` retires the procedure (every version) or brings it back.
+import { z } from "zod";
+import { setProcedureRetired } from "@/db/queries/procedures";
 import { getTemplate } from "@/db/queries/templates";
 import { requireUser } from "@/lib/auth/session";
-import { notFound } from "@/lib/errors";
-import { route } from "@/lib/http";
+import { forbidden, notFound } from "@/lib/errors";
+import { readJson, route } from "@/lib/http";
+import { procedureRetireRefusal } from "@/lib/policy/procedures";
 
 export const runtime = "nodejs";
 type Ctx = { params: Promise<{ id: string }> };
@@ -12,5 +16,16 @@ export const GET = route<Ctx>(async (_req, ctx) => {
   const actor = await requireUser();
   const procedure = await getTemplate(actor, id);
   if (!procedure) throw notFound("procedure");
+  return Response.json({ procedure });
+});
+
+const patchSchema = z.object({ retired: z.boolean() });
+
+export const PATCH = route<Ctx>(async (req, ctx) => {
+  const { id } = await ctx.params;
+  const actor = await requireUser();
+  const refusal = procedureRetireRefusal(actor);
+  if (refusal) throw forbidden(refusal);
+  const procedure = await setProcedureRetired(actor, id, patchSchema.parse(await readJson(req)).retired);
   return Response.json({ procedure });
 });

@@ -1,0 +1,47 @@
+/** Stored procedure rows → the builder's form values (every field a string, limits in the step's unit). */
+import type { BuilderStep, BuilderValues } from "@/components/procedures/procedure-builder";
+import { stepInputFromRow, type StepRow } from "@/lib/validations/procedures";
+
+const str = (v: string | number | null | undefined) => (v == null ? "" : String(v));
+
+export function builderValuesFrom(t: {
+  name: string;
+  description: string | null;
+  jobKinds: string[] | null;
+  headModel: string | null;
+  steps: (Omit<StepRow, "limitUnit" | "limitSource" | "derivation" | "pointResult" | "quantityKind"> & {
+    limitUnit: string | null;
+    limitSource: string;
+    derivation: string;
+    pointResult: string | null;
+    quantityKind: string;
+  })[];
+}): BuilderValues {
+  return {
+    name: t.name,
+    description: str(t.description),
+    jobKinds: t.jobKinds ?? [],
+    headModel: str(t.headModel),
+    steps: t.steps.map((row): BuilderStep => {
+      const s = stepInputFromRow(row as StepRow);
+      return {
+        title: s.title,
+        kind: s.kind,
+        instructions: str(s.instructions),
+        safety: str(s.safety),
+        quantity: str(s.quantity),
+        unit: s.unit ?? "mm",
+        lower: str(s.lower),
+        upper: str(s.upper),
+        decisionRule: s.decisionRule,
+        limitSource: s.limitSource,
+        limitSourceNote: str(s.limitSourceNote),
+        points: (s.points ?? []).join(", "),
+        pointResult: s.pointResult ?? "tir",
+        distanceMm: str(s.distanceMm),
+        recordUnit: str(s.recordUnit),
+        photoRequired: s.photoRequired,
+      };
+    }),
+  };
+}

@@ -1,0 +1,37 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { ProcedureBuilder, EMPTY_STEP } from "@/components/procedures/procedure-builder";
+import { BuilderCaution } from "@/components/procedures/builder-caution";
+import { requirePageUser } from "@/lib/auth/session";
+import { procedureEditRefusal } from "@/lib/policy/procedures";
+import { createProcedureAction } from "../actions";
+
+export const metadata: Metadata = { title: "New procedure" };
+
+export default async function NewProcedurePage() {
+  const user = await requirePageUser("/registers/procedures/new");
+  if (procedureEditRefusal(user, null)) notFound();
+  return (
+    <div className="space-y-6">
+      <div>
+        <p className="text-sm">
+          <Link href="/registers/procedures" className="underline">
+            Procedures
+          </Link>
+        </p>
+        <h1 className="text-2xl font-semibold">New procedure</h1>
+        <p className="text-sm text-graphite-600">
+          Write the steps in the order the installer works. Nothing is stored until you create it.
+        </p>
+      </div>
+      <BuilderCaution />
+      <ProcedureBuilder
+        mode="new"
+        initial={{ name: "", description: "", jobKinds: [], headModel: "", steps: [{ ...EMPTY_STEP }] }}
+        submitLabel="Create procedure"
+        action={createProcedureAction}
+      />
+    </div>
+  );
+}

@@ -1,0 +1,1 @@
+ALTER TABLE "template_steps" ADD COLUMN "limit_unit" text;

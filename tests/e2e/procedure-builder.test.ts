@@ -1,0 +1,118 @@
+// The administrator builds a procedure in the browser: a multi-point step at 12/3/6/9, a yes/no
+// step whose missing limit source is named beside its field, and a photo-required record step;
+// moves a step with the keyboard (focus follows it), creates the procedure, saves the version,
+// retires it and brings it back. Screenshots at 1440×900 and on the tablet (820×1180).
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { BrowserContext, Page } from "playwright-core";
+import { newContext, screenshotPath, seriousViolations, signIn, TABLET } from "./browser";
+
+let ctx: BrowserContext;
+beforeAll(async () => {
+  ctx = await newContext({ width: 1440, height: 900 });
+});
+afterAll(async () => {
+  await ctx?.close();
+});
+
+const step = (p: Page, n: number) => p.getByRole("listitem", { name: new RegExp(`^Step ${n}:`) });
+
+describe("procedure builder (administrator)", () => {
+  it("builds, reorders, creates, saves, retires and brings back a procedure", async () => {
+    const p = await ctx.newPage();
+    await signIn(p, "admin@halvard.example");
+    await p.waitForURL("**/jobs");
+    await p.goto("/registers/procedures");
+    await p.getByRole("link", { name: "New procedure" }).click();
+    await p.waitForURL("**/registers/procedures/new");
+    const name = `Collar and dowels ${Date.now().toString(36)}`;
+    await p.getByLabel("Name").fill(name);
+    await p.getByLabel("Installation").check();
+    await p.getByLabel("Head model").fill("HX-40");
+
+    // Step 1: readings at four clock positions, judged by their TIR.
+    const s1 = step(p, 1);
+    await s1.getByLabel("Title").fill("Collar run-out");
+    await s1.getByLabel("Kind of step").selectOption("multi_point");
+    await s1.getByRole("button", { name: "12 · 3 · 6 · 9" }).click();
+    expect(await s1.getByLabel("Points, in the order they are read").inputValue()).toBe("12, 3, 6, 9");
+    await s1.getByLabel("Unit of the limits").selectOption("in");
+    await s1.getByLabel("Upper limit").fill("0.0005");
+    await s1.getByLabel("Value judged from the points").selectOption("tir");
+    await s1.getByLabel("Where the limit comes from").selectOption("common_practice");
+    await s1.getByLabel("Source note").fill("The trade's usual collar figure.");
+
+    // Step 2: a yes/no check, first without its limit source.
+    await p.getByRole("button", { name: "Add a step" }).click();
+    const s2 = step(p, 2);
+    await s2.getByLabel("Title").fill("Motor plate on its dowels");
+    await s2.getByLabel("Kind of step").selectOption("check");
+
+    // Step 3: a value for the record that needs a photo.
+    await p.getByRole("button", { name: "Add a step" }).click();
+    const s3 = step(p, 3);
+    await s3.getByLabel("Title").fill("Shims under the collar");
+    await s3.getByLabel("Kind of step").selectOption("record");
+    await s3.getByLabel("Unit of the recorded value").fill("mm");
+    await s3.getByLabel("Photo required").check();
+    await s3.getByLabel("Safety note").fill("Lock out before hands go near the spindle nose.");
+
+    await p.getByRole("button", { name: "Create procedure" }).click();
+    // The server names the missing source beside step 2's field.
+    await expect
+      .poll(() => p.locator('[data-error-for="steps.1.limitSource"]').innerText())
+      .toMatch(/where the limit comes from/i);
+    expect(await p.getByRole("alert").first().innerText()).toMatch(/where the limit comes from|attention/i);
+    await s2.getByLabel("Where the limit comes from").selectOption("maker_manual");
+    await s2.getByLabel("Source note").fill("Head maker's manual, mounting section.");
+
+    // Move step 3 up with the keyboard; focus stays on the moved step's button.
+    await s3.getByRole("button", { name: "Move step 3 up" }).focus();
+    await p.keyboard.press("Enter");
+    await expect.poll(() => step(p, 2).getByLabel("Title").inputValue()).toBe("Shims under the collar");
+    await expect
+      .poll(() => p.evaluate(() => document.activeElement?.getAttribute("aria-label")))
+      .toBe("Move step 2 up");
+    expect(await seriousViolations(p)).toEqual([]);
+    await p.screenshot({ path: screenshotPath("procedure-builder"), fullPage: true });
+
+    await p.getByRole("button", { name: "Create procedure" }).click();
+    await p.waitForURL(/\/registers\/procedures\/[0-9a-f-]{36}$/);
+    await expect.poll(() => p.getByRole("heading", { level: 1 }).innerText()).toContain(name);
+    const rows = p.locator("table").first().locator("tbody tr");
+    await expect.poll(() => rows.count()).toBe(3);
+    expect(await rows.nth(0).innerText()).toMatch(/Collar run-out[\s\S]*12 · 3 · 6 · 9[\s\S]*≤ 0.0005 in/);
+    expect(await rows.nth(1).innerText()).toMatch(/Shims under the collar[\s\S]*photo/);
+    expect(await rows.nth(2).innerText()).toMatch(/Motor plate on its dowels[\s\S]*Maker's figure/);
+    expect(await p.getByText("0 jobs follow this version").count()).toBe(1);
+
+    // No job follows version 1 yet: saving changes it in place.
+    await step(p, 3).getByLabel("Title").fill("Motor plate home on its dowels");
+    await p.getByRole("button", { name: "Save version 1" }).click();
+    await expect
+      .poll(() => p.locator("table").first().locator("tbody tr").nth(2).innerText())
+      .toMatch(/Motor plate home on its dowels/);
+    expect(await p.getByRole("heading", { level: 1 }).innerText()).toMatch(/version 1/);
+
+    await p.getByRole("button", { name: "Retire this procedure" }).click();
+    await expect.poll(() => p.getByRole("button", { name: "Bring back into use" }).count()).toBe(1);
+    await p.getByRole("button", { name: "Bring back into use" }).click();
+    await expect.poll(() => p.getByRole("button", { name: "Retire this procedure" }).count()).toBe(1);
+    await p.screenshot({ path: screenshotPath("procedure-detail"), fullPage: true });
+    const url = p.url();
+    await p.close();
+
+    const tablet = await newContext(TABLET);
+    try {
+      const t = await tablet.newPage();
+      await signIn(t, "admin@halvard.example");
+      await t.waitForURL("**/jobs");
+      await t.goto(url);
+      await expect.poll(() => t.getByRole("heading", { level: 1 }).innerText()).toContain(name);
+      await t.screenshot({ path: screenshotPath("procedure-detail-tablet"), fullPage: true });
+      await t.goto("/registers/procedures/new");
+      await t.screenshot({ path: screenshotPath("procedure-builder-tablet"), fullPage: true });
+    } finally {
+      await tablet.close();
+    }
+  }, 180_000);
+});
