@@ -4,6 +4,7 @@
  */
 import { Matrix, solve } from "ml-matrix";
 import { GeometryError } from "./errors";
+import { ColumnQr } from "./qr";
 import { RAD_PER_ARCSEC, RAD_PER_DEG } from "./units";
 
 export interface SweepInput {
@@ -35,8 +36,11 @@ export interface SweepResult {
 }
 
 /** Number of distinct angles (radians in [0, 2π), 1e-9 apart; 0 and 2π the same) and the index order by angle. */
-function distinctAngles(thetaRad: Float64Array): { count: number; sortedIdx: number[] } {
-  const idx = Array.from(thetaRad.keys()).sort((p, q) => thetaRad[p]! - thetaRad[q]!);
+function distinctAngles(thetaRad: Float64Array): { count: number; sortedIdx: Uint32Array } {
+  // A typed index array (4 bytes a row) sorted stably, as Array#sort would order the same indices.
+  const idx = new Uint32Array(thetaRad.length);
+  for (let i = 0; i < idx.length; i++) idx[i] = i;
+  idx.sort((p, q) => thetaRad[p]! - thetaRad[q]!);
   let count = 0;
   let prev = NaN;
   for (const i of idx) {
@@ -49,7 +53,7 @@ function distinctAngles(thetaRad: Float64Array): { count: number; sortedIdx: num
 }
 
 /** Largest angular gap between consecutive swept angles (radians), to flag a partial sweep. */
-function largestGap(thetaRad: Float64Array, sortedIdx: readonly number[]): number {
+function largestGap(thetaRad: Float64Array, sortedIdx: Uint32Array): number {
   let gap = 0;
   for (let k = 1; k < sortedIdx.length; k++)
     gap = Math.max(gap, thetaRad[sortedIdx[k]!]! - thetaRad[sortedIdx[k - 1]!]!);
@@ -64,12 +68,7 @@ function largestGap(thetaRad: Float64Array, sortedIdx: readonly number[]): numbe
  * check optimality against a brute-force grid instead).
  * Returns the best width found (never above the least-squares width passed in).
  */
-function minimumZone(
-  theta: Float64Array,
-  y: Float64Array,
-  sortedIdx: readonly number[],
-  lsWidth: number,
-): number {
+function minimumZone(theta: Float64Array, y: Float64Array, sortedIdx: Uint32Array, lsWidth: number): number {
   const n = theta.length;
   const m = sortedIdx.length;
   let ref = [
@@ -175,23 +174,26 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
       `a sweep needs readings at 3 or more distinct angles (got ${count})`,
     );
 
-  // Least squares by QR of the n×3 design matrix (ml-matrix solves a non-square system by QR),
-  // not normal equations, so a partial sweep is not made worse by squaring its condition number.
-  const X = new Matrix(n, 3);
+  // Least squares by Householder QR of the n×3 design matrix (./qr.ts: the arithmetic of
+  // ml-matrix's QR solve on three columns instead of n row arrays), not normal equations, so a
+  // partial sweep is not made worse by squaring its condition number.
+  const ones = new Float64Array(n).fill(1);
+  const cosT = new Float64Array(n);
+  const sinT = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    X.set(i, 0, 1);
-    X.set(i, 1, Math.cos(theta[i]!));
-    X.set(i, 2, Math.sin(theta[i]!));
+    cosT[i] = Math.cos(theta[i]!);
+    sinT[i] = Math.sin(theta[i]!);
   }
   // Readings scaled by a power of two near their largest magnitude (exact), so QR never squares a
   // huge number; the coefficients are scaled back.
   let yAbs = 0;
   for (let i = 0; i < n; i++) yAbs = Math.max(yAbs, Math.abs(y[i]!));
   const Ly = yAbs > 0 ? 2 ** Math.min(1023, Math.ceil(Math.log2(yAbs))) : 1;
-  const s = solve(X, Matrix.columnVector(Array.from(y, (v) => v / Ly)));
-  const a = s.get(0, 0) * Ly;
-  const b = s.get(1, 0) * Ly;
-  const c = s.get(2, 0) * Ly;
+  const yScaled = y.map((v) => v / Ly);
+  const s = new ColumnQr([ones, cosT, sinT], n).solve(yScaled);
+  const a = s[0]! * Ly;
+  const b = s[1]! * Ly;
+  const c = s[2]! * Ly;
   const residuals = new Float64Array(n);
   let rmin = Infinity;
   let rmax = -Infinity;
@@ -217,13 +219,7 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
     flatnessLs = null;
     notes.push("3 angles always fit a plane exactly: flatness needs readings at 4 or more distinct angles");
   } else {
-    flatnessMz =
-      minimumZone(
-        theta,
-        y.map((v) => v / Ly),
-        sortedIdx,
-        (rmax - rmin) / Ly,
-      ) * Ly;
+    flatnessMz = minimumZone(theta, yScaled, sortedIdx, (rmax - rmin) / Ly) * Ly;
   }
   let dir = Math.atan2(c, b) / RAD_PER_DEG;
   if (dir < 0) dir += 360;
