@@ -35,29 +35,38 @@ export interface SweepResult {
   readonly notes: readonly string[];
 }
 
-/** Number of distinct angles (radians in [0, 2π), 1e-9 apart; 0 and 2π the same) and the index order by angle. */
-function distinctAngles(thetaRad: Float64Array): { count: number; sortedIdx: Uint32Array } {
-  // A typed index array (4 bytes a row) sorted stably, as Array#sort would order the same indices.
-  const idx = new Uint32Array(thetaRad.length);
-  for (let i = 0; i < idx.length; i++) idx[i] = i;
-  idx.sort((p, q) => thetaRad[p]! - thetaRad[q]!);
+/** Number of distinct angles (radians in [0, 2π), 1e-9 apart; 0 and 2π the same) and the angles in order. */
+function distinctAngles(thetaRad: Float64Array): { count: number; sorted: Float64Array } {
+  // A numeric sort of a copy (no index array, no comparator): the angles are finite and never −0.
+  const sorted = thetaRad.slice().sort();
   let count = 0;
   let prev = NaN;
-  for (const i of idx) {
-    if (!(Math.abs(thetaRad[i]! - prev) < 1e-9)) count++;
-    prev = thetaRad[i]!;
+  for (const t of sorted) {
+    if (!(Math.abs(t - prev) < 1e-9)) count++;
+    prev = t;
   }
-  if (count > 1 && Math.abs(thetaRad[idx[0]!]! + 2 * Math.PI - thetaRad[idx[idx.length - 1]!]!) < 1e-9)
-    count--;
-  return { count, sortedIdx: idx };
+  if (count > 1 && Math.abs(sorted[0]! + 2 * Math.PI - sorted[sorted.length - 1]!) < 1e-9) count--;
+  return { count, sorted };
+}
+
+/**
+ * The row at position k of the rows ordered by angle, ties in row order (the order a stable sort
+ * of the row indices by angle gives).
+ */
+function rowAtSortedPosition(thetaRad: Float64Array, sorted: Float64Array, k: number): number {
+  const v = sorted[k]!;
+  let first = k;
+  while (first > 0 && sorted[first - 1] === v) first--;
+  let skip = k - first;
+  for (let i = 0; i < thetaRad.length; i++) if (thetaRad[i] === v && skip-- === 0) return i;
+  throw new Error("angle not found");
 }
 
 /** Largest angular gap between consecutive swept angles (radians), to flag a partial sweep. */
-function largestGap(thetaRad: Float64Array, sortedIdx: Uint32Array): number {
+function largestGap(sorted: Float64Array): number {
   let gap = 0;
-  for (let k = 1; k < sortedIdx.length; k++)
-    gap = Math.max(gap, thetaRad[sortedIdx[k]!]! - thetaRad[sortedIdx[k - 1]!]!);
-  return Math.max(gap, thetaRad[sortedIdx[0]!]! + 2 * Math.PI - thetaRad[sortedIdx[sortedIdx.length - 1]!]!);
+  for (let k = 1; k < sorted.length; k++) gap = Math.max(gap, sorted[k]! - sorted[k - 1]!);
+  return Math.max(gap, sorted[0]! + 2 * Math.PI - sorted[sorted.length - 1]!);
 }
 
 /**
@@ -68,15 +77,19 @@ function largestGap(thetaRad: Float64Array, sortedIdx: Uint32Array): number {
  * check optimality against a brute-force grid instead).
  * Returns the best width found (never above the least-squares width passed in).
  */
-function minimumZone(theta: Float64Array, y: Float64Array, sortedIdx: Uint32Array, lsWidth: number): number {
+function minimumZone(
+  theta: Float64Array,
+  cosT: Float64Array,
+  sinT: Float64Array,
+  y: Float64Array,
+  sorted: Float64Array,
+  lsWidth: number,
+): number {
   const n = theta.length;
-  const m = sortedIdx.length;
-  let ref = [
-    sortedIdx[0]!,
-    sortedIdx[Math.floor(m / 4)]!,
-    sortedIdx[Math.floor(m / 2)]!,
-    sortedIdx[Math.floor((3 * m) / 4)]!,
-  ];
+  const m = sorted.length;
+  let ref = [0, Math.floor(m / 4), Math.floor(m / 2), Math.floor((3 * m) / 4)].map((k) =>
+    rowAtSortedPosition(theta, sorted, k),
+  );
   let best = lsWidth;
   let yScale = 0;
   for (let i = 0; i < n; i++) yScale = Math.max(yScale, Math.abs(y[i]!));
@@ -113,7 +126,7 @@ function minimumZone(theta: Float64Array, y: Float64Array, sortedIdx: Uint32Arra
     let worst = -1;
     let worstAbs = -1;
     for (let i = 0; i < n; i++) {
-      const e = y[i]! - (a + b * Math.cos(theta[i]!) + c * Math.sin(theta[i]!));
+      const e = y[i]! - (a + b * cosT[i]! + c * sinT[i]!);
       if (e > emax) emax = e;
       if (e < emin) emin = e;
       if (Math.abs(e) > worstAbs) {
@@ -167,7 +180,7 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
     if (r < ymin) ymin = r;
     if (r > ymax) ymax = r;
   }
-  const { count, sortedIdx } = distinctAngles(theta);
+  const { count, sorted } = distinctAngles(theta);
   if (count < 3)
     throw new GeometryError(
       "too_few_rows",
@@ -190,7 +203,7 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
   for (let i = 0; i < n; i++) yAbs = Math.max(yAbs, Math.abs(y[i]!));
   const Ly = yAbs > 0 ? 2 ** Math.min(1023, Math.ceil(Math.log2(yAbs))) : 1;
   const yScaled = y.map((v) => v / Ly);
-  const s = new ColumnQr([ones, cosT, sinT], n).solve(yScaled);
+  const s = new ColumnQr([ones, cosT.slice(), sinT.slice()], n).solve(yScaled);
   const a = s[0]! * Ly;
   const b = s[1]! * Ly;
   const c = s[2]! * Ly;
@@ -198,7 +211,7 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
   let rmin = Infinity;
   let rmax = -Infinity;
   for (let i = 0; i < n; i++) {
-    const e = y[i]! - (a + b * Math.cos(theta[i]!) + c * Math.sin(theta[i]!));
+    const e = y[i]! - (a + b * cosT[i]! + c * sinT[i]!);
     residuals[i] = e;
     if (e < rmin) rmin = e;
     if (e > rmax) rmax = e;
@@ -207,7 +220,7 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
   const amp = Math.hypot(b, c);
   if (!Number.isFinite(rmax - rmin) || !Number.isFinite(ymax - ymin))
     throw new GeometryError("bad_number", "the readings span more than the number range; check the units");
-  const gap = largestGap(theta, sortedIdx);
+  const gap = largestGap(sorted);
   if (gap > Math.PI) {
     notes.push(
       `the sweep leaves a gap of ${(gap / RAD_PER_DEG).toFixed(0)}°; tilt is weakly determined — sweep the full circle`,
@@ -219,7 +232,7 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
     flatnessLs = null;
     notes.push("3 angles always fit a plane exactly: flatness needs readings at 4 or more distinct angles");
   } else {
-    flatnessMz = minimumZone(theta, yScaled, sortedIdx, (rmax - rmin) / Ly) * Ly;
+    flatnessMz = minimumZone(theta, cosT, sinT, yScaled, sorted, (rmax - rmin) / Ly) * Ly;
   }
   let dir = Math.atan2(c, b) / RAD_PER_DEG;
   if (dir < 0) dir += 360;
