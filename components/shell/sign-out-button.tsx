@@ -44,7 +44,7 @@ export function SignOutButton() {
       </button>
       {failed ? (
         <span role="alert" className="text-xs text-graphite-200">
-          Not signed out: no answer from the server. Try again.
+          Not signed out: no answer. Try again.
         </span>
       ) : null}
     </>
