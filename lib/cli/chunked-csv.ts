@@ -18,6 +18,7 @@
  */
 import { closeSync, openSync, readSync } from "node:fs";
 import { GeometryError } from "@/geometry";
+import type { CliContext } from "./command";
 
 /** What the readers of geometry/csv return: columns of equal length, rows, warnings. */
 interface ReaderResult {
@@ -181,4 +182,9 @@ export function readCsvInBlocks<T extends ReaderResult>(
   } finally {
     closeSync(fd);
   }
+}
+
+/** A command's input file read block by block into typed columns, else (see above) its whole text. */
+export function readLarge<T extends ReaderResult>(ctx: CliContext, read: (text: string) => T): T {
+  return readCsvInBlocks(ctx.file, read) ?? read(ctx.text);
 }

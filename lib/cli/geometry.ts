@@ -20,7 +20,7 @@ import {
   readTramCsv,
   type CsvWarning,
 } from "@/geometry";
-import { readCsvInBlocks } from "./chunked-csv";
+import { readLarge } from "./chunked-csv";
 import { choiceOption, CliUsageError, numberOption, type CliCommand, type CliContext } from "./command";
 // ── HEAD COMMANDS (fit-head, plan) ─────────────────────────────────────────────────────────────
 // ./head-commands.ts (owned by the head-model work) exports
@@ -33,11 +33,6 @@ import { checkCommands } from "./check-commands";
 const decimalOf = (ctx: CliContext) => choiceOption(ctx, "decimal", ["point", "comma"] as const, "point");
 const passWarnings = (ctx: CliContext, warnings: readonly CsvWarning[]) =>
   warnings.forEach((w) => ctx.warn(formatIssue(w)));
-/** The file read block by block into typed columns (./chunked-csv.ts), else its whole text. */
-const readLarge = <T extends { rows: number; warnings: readonly CsvWarning[] }>(
-  ctx: CliContext,
-  read: (text: string) => T,
-): T => readCsvInBlocks(ctx.file, read) ?? read(ctx.text);
 
 const circle: CliCommand = {
   usage: "circle <points.csv> [--units mm|in] [--decimal point|comma]",

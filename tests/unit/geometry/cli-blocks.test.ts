@@ -7,7 +7,15 @@ import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
-import { fitCircle, fitSweep, fitTram, readPointsCsv, readSweepCsv, readTramCsv } from "@/geometry";
+import {
+  fitCircle,
+  fitSweep,
+  fitTram,
+  readPointsCsv,
+  readSphereProbeCsv,
+  readSweepCsv,
+  readTramCsv,
+} from "@/geometry";
 import { readCsvInBlocks } from "@/lib/cli/chunked-csv";
 import { main } from "@/lib/cli/geometry";
 
@@ -65,6 +73,14 @@ describe("readCsvInBlocks", () => {
     const joined = readCsvInBlocks(file(tram), read, 512);
     expect(joined).toBeDefined();
     expect(plain(joined!)).toEqual(plain(read(tram)));
+  });
+
+  it("keeps every optional sphere-probe column (fit-head reads its file this way too)", () => {
+    const text = `primary_deg,secondary_deg,x,y,z,point,repeat,temp_c,tool_mm\n${rows(700, (i, r) => `${i % 360},${(i % 7) * 15 - 45},${(r() * 10).toFixed(5)},${(r() * 10).toFixed(5)},${(r() * 10).toFixed(5)},${i % 9},${i % 3},${(20 + r()).toFixed(2)},${i % 2 ? 0 : 100}`).join("\n")}\n`;
+    const read = (t: string) => readSphereProbeCsv(t, { units: "in" });
+    const joined = readCsvInBlocks(file(text), read, 700);
+    expect(joined).toBeDefined();
+    expect(plain(joined!)).toEqual(plain(read(text)));
   });
 
   it("hands back to the whole-file reader for quotes, interior blank rows, lone CRs and bad input", () => {
