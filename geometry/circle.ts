@@ -4,6 +4,7 @@
  */
 import { inverse, Matrix, SVD, solve } from "ml-matrix";
 import { GeometryError } from "./errors";
+import { ColumnQr } from "./qr";
 import { RAD_PER_ARCSEC } from "./units";
 
 export type Vec3 = readonly [number, number, number];
@@ -95,13 +96,27 @@ export function fitCircle(points: PointsInput): CircleFit {
   if (!Number.isFinite(L))
     throw new GeometryError("bad_number", "the points span more than the number range; check the units");
   if (!(L > 0)) throw new GeometryError("degenerate", "all points coincide; no circle or axis can be fitted");
-  const centred = new Matrix(n, 3);
+  // The centred, scaled coordinates as three columns (8 bytes a point; an n×3 ml-matrix Matrix
+  // holds a typed array per row). The SVD is taken of R from their QR (./qr.ts), a 3×3 matrix with
+  // the same singular values and right singular vectors as the n×3 matrix (A = QR, Q orthonormal),
+  // as LAPACK does for tall matrices, so memory does not grow with a row array per point.
+  const centred = [new Float64Array(n), new Float64Array(n), new Float64Array(n)] as const;
   for (let i = 0; i < n; i++) {
-    centred.set(i, 0, (points.xMm[i]! - cx) / L);
-    centred.set(i, 1, (points.yMm[i]! - cy) / L);
-    centred.set(i, 2, (points.zMm[i]! - cz) / L);
+    centred[0][i] = (points.xMm[i]! - cx) / L;
+    centred[1][i] = (points.yMm[i]! - cy) / L;
+    centred[2][i] = (points.zMm[i]! - cz) / L;
   }
-  const svd = new SVD(centred, { computeLeftSingularVectors: false, autoTranspose: true });
+  const R = new ColumnQr(
+    centred.map((c) => c.slice()),
+    n,
+  ).upperTriangular();
+  const svd = new SVD(
+    new Matrix([Array.from(R.subarray(0, 3)), Array.from(R.subarray(3, 6)), Array.from(R.subarray(6, 9))]),
+    {
+      computeLeftSingularVectors: false,
+      autoTranspose: true,
+    },
+  );
   const sv = svd.diagonal;
   const V = svd.rightSingularVectors;
   // ml-matrix returns singular values in decreasing order.
@@ -121,9 +136,9 @@ export function fitCircle(points: PointsInput): CircleFit {
   const h = new Float64Array(n);
   let scale = 0;
   for (let i = 0; i < n; i++) {
-    const dx = centred.get(i, 0);
-    const dy = centred.get(i, 1);
-    const dz = centred.get(i, 2);
+    const dx = centred[0][i]!;
+    const dy = centred[1][i]!;
+    const dz = centred[2][i]!;
     xi[i] = dx * u[0] + dy * u[1] + dz * u[2];
     eta[i] = dx * v[0] + dy * v[1] + dz * v[2];
     h[i] = dx * w[0] + dy * w[1] + dz * w[2];
@@ -360,7 +375,7 @@ function circleUncertainty(
 
 /** Arc covered by the points around (a, b): 360° minus the largest angular gap, degrees. */
 function coveredArcDeg(xi: Float64Array, eta: Float64Array, a: number, b: number): number {
-  const ang = Array.from(xi, (x, i) => Math.atan2(eta[i]! - b, x - a)).sort((p, q) => p - q);
+  const ang = xi.map((x, i) => Math.atan2(eta[i]! - b, x - a)).sort();
   let gap = ang[0]! + 2 * Math.PI - ang[ang.length - 1]!;
   for (let k = 1; k < ang.length; k++) gap = Math.max(gap, ang[k]! - ang[k - 1]!);
   return ((2 * Math.PI - gap) * 180) / Math.PI;

@@ -4,6 +4,7 @@
  */
 import { Matrix, solve } from "ml-matrix";
 import { GeometryError } from "./errors";
+import { ColumnQr } from "./qr";
 import { RAD_PER_ARCSEC, RAD_PER_DEG } from "./units";
 
 export interface SweepInput {
@@ -34,26 +35,38 @@ export interface SweepResult {
   readonly notes: readonly string[];
 }
 
-/** Number of distinct angles (radians in [0, 2π), 1e-9 apart; 0 and 2π the same) and the index order by angle. */
-function distinctAngles(thetaRad: Float64Array): { count: number; sortedIdx: number[] } {
-  const idx = Array.from(thetaRad.keys()).sort((p, q) => thetaRad[p]! - thetaRad[q]!);
+/** Number of distinct angles (radians in [0, 2π), 1e-9 apart; 0 and 2π the same) and the angles in order. */
+function distinctAngles(thetaRad: Float64Array): { count: number; sorted: Float64Array } {
+  // A numeric sort of a copy (no index array, no comparator): the angles are finite and never −0.
+  const sorted = thetaRad.slice().sort();
   let count = 0;
   let prev = NaN;
-  for (const i of idx) {
-    if (!(Math.abs(thetaRad[i]! - prev) < 1e-9)) count++;
-    prev = thetaRad[i]!;
+  for (const t of sorted) {
+    if (!(Math.abs(t - prev) < 1e-9)) count++;
+    prev = t;
   }
-  if (count > 1 && Math.abs(thetaRad[idx[0]!]! + 2 * Math.PI - thetaRad[idx[idx.length - 1]!]!) < 1e-9)
-    count--;
-  return { count, sortedIdx: idx };
+  if (count > 1 && Math.abs(sorted[0]! + 2 * Math.PI - sorted[sorted.length - 1]!) < 1e-9) count--;
+  return { count, sorted };
+}
+
+/**
+ * The row at position k of the rows ordered by angle, ties in row order (the order a stable sort
+ * of the row indices by angle gives).
+ */
+function rowAtSortedPosition(thetaRad: Float64Array, sorted: Float64Array, k: number): number {
+  const v = sorted[k]!;
+  let first = k;
+  while (first > 0 && sorted[first - 1] === v) first--;
+  let skip = k - first;
+  for (let i = 0; i < thetaRad.length; i++) if (thetaRad[i] === v && skip-- === 0) return i;
+  throw new Error("angle not found");
 }
 
 /** Largest angular gap between consecutive swept angles (radians), to flag a partial sweep. */
-function largestGap(thetaRad: Float64Array, sortedIdx: readonly number[]): number {
+function largestGap(sorted: Float64Array): number {
   let gap = 0;
-  for (let k = 1; k < sortedIdx.length; k++)
-    gap = Math.max(gap, thetaRad[sortedIdx[k]!]! - thetaRad[sortedIdx[k - 1]!]!);
-  return Math.max(gap, thetaRad[sortedIdx[0]!]! + 2 * Math.PI - thetaRad[sortedIdx[sortedIdx.length - 1]!]!);
+  for (let k = 1; k < sorted.length; k++) gap = Math.max(gap, sorted[k]! - sorted[k - 1]!);
+  return Math.max(gap, sorted[0]! + 2 * Math.PI - sorted[sorted.length - 1]!);
 }
 
 /**
@@ -66,18 +79,17 @@ function largestGap(thetaRad: Float64Array, sortedIdx: readonly number[]): numbe
  */
 function minimumZone(
   theta: Float64Array,
+  cosT: Float64Array,
+  sinT: Float64Array,
   y: Float64Array,
-  sortedIdx: readonly number[],
+  sorted: Float64Array,
   lsWidth: number,
 ): number {
   const n = theta.length;
-  const m = sortedIdx.length;
-  let ref = [
-    sortedIdx[0]!,
-    sortedIdx[Math.floor(m / 4)]!,
-    sortedIdx[Math.floor(m / 2)]!,
-    sortedIdx[Math.floor((3 * m) / 4)]!,
-  ];
+  const m = sorted.length;
+  let ref = [0, Math.floor(m / 4), Math.floor(m / 2), Math.floor((3 * m) / 4)].map((k) =>
+    rowAtSortedPosition(theta, sorted, k),
+  );
   let best = lsWidth;
   let yScale = 0;
   for (let i = 0; i < n; i++) yScale = Math.max(yScale, Math.abs(y[i]!));
@@ -114,7 +126,7 @@ function minimumZone(
     let worst = -1;
     let worstAbs = -1;
     for (let i = 0; i < n; i++) {
-      const e = y[i]! - (a + b * Math.cos(theta[i]!) + c * Math.sin(theta[i]!));
+      const e = y[i]! - (a + b * cosT[i]! + c * sinT[i]!);
       if (e > emax) emax = e;
       if (e < emin) emin = e;
       if (Math.abs(e) > worstAbs) {
@@ -168,35 +180,38 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
     if (r < ymin) ymin = r;
     if (r > ymax) ymax = r;
   }
-  const { count, sortedIdx } = distinctAngles(theta);
+  const { count, sorted } = distinctAngles(theta);
   if (count < 3)
     throw new GeometryError(
       "too_few_rows",
       `a sweep needs readings at 3 or more distinct angles (got ${count})`,
     );
 
-  // Least squares by QR of the n×3 design matrix (ml-matrix solves a non-square system by QR),
-  // not normal equations, so a partial sweep is not made worse by squaring its condition number.
-  const X = new Matrix(n, 3);
+  // Least squares by Householder QR of the n×3 design matrix (./qr.ts: the arithmetic of
+  // ml-matrix's QR solve on three columns instead of n row arrays), not normal equations, so a
+  // partial sweep is not made worse by squaring its condition number.
+  const ones = new Float64Array(n).fill(1);
+  const cosT = new Float64Array(n);
+  const sinT = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    X.set(i, 0, 1);
-    X.set(i, 1, Math.cos(theta[i]!));
-    X.set(i, 2, Math.sin(theta[i]!));
+    cosT[i] = Math.cos(theta[i]!);
+    sinT[i] = Math.sin(theta[i]!);
   }
   // Readings scaled by a power of two near their largest magnitude (exact), so QR never squares a
   // huge number; the coefficients are scaled back.
   let yAbs = 0;
   for (let i = 0; i < n; i++) yAbs = Math.max(yAbs, Math.abs(y[i]!));
   const Ly = yAbs > 0 ? 2 ** Math.min(1023, Math.ceil(Math.log2(yAbs))) : 1;
-  const s = solve(X, Matrix.columnVector(Array.from(y, (v) => v / Ly)));
-  const a = s.get(0, 0) * Ly;
-  const b = s.get(1, 0) * Ly;
-  const c = s.get(2, 0) * Ly;
+  const yScaled = y.map((v) => v / Ly);
+  const s = new ColumnQr([ones, cosT.slice(), sinT.slice()], n).solve(yScaled);
+  const a = s[0]! * Ly;
+  const b = s[1]! * Ly;
+  const c = s[2]! * Ly;
   const residuals = new Float64Array(n);
   let rmin = Infinity;
   let rmax = -Infinity;
   for (let i = 0; i < n; i++) {
-    const e = y[i]! - (a + b * Math.cos(theta[i]!) + c * Math.sin(theta[i]!));
+    const e = y[i]! - (a + b * cosT[i]! + c * sinT[i]!);
     residuals[i] = e;
     if (e < rmin) rmin = e;
     if (e > rmax) rmax = e;
@@ -205,7 +220,7 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
   const amp = Math.hypot(b, c);
   if (!Number.isFinite(rmax - rmin) || !Number.isFinite(ymax - ymin))
     throw new GeometryError("bad_number", "the readings span more than the number range; check the units");
-  const gap = largestGap(theta, sortedIdx);
+  const gap = largestGap(sorted);
   if (gap > Math.PI) {
     notes.push(
       `the sweep leaves a gap of ${(gap / RAD_PER_DEG).toFixed(0)}°; tilt is weakly determined — sweep the full circle`,
@@ -217,13 +232,7 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
     flatnessLs = null;
     notes.push("3 angles always fit a plane exactly: flatness needs readings at 4 or more distinct angles");
   } else {
-    flatnessMz =
-      minimumZone(
-        theta,
-        y.map((v) => v / Ly),
-        sortedIdx,
-        (rmax - rmin) / Ly,
-      ) * Ly;
+    flatnessMz = minimumZone(theta, cosT, sinT, yScaled, sorted, (rmax - rmin) / Ly) * Ly;
   }
   let dir = Math.atan2(c, b) / RAD_PER_DEG;
   if (dir < 0) dir += 360;

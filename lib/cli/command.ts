@@ -7,7 +7,7 @@
 export interface CliContext {
   /** Path of the input file as given. */
   readonly file: string;
-  /** The file's text (UTF-8). */
+  /** The file's text (UTF-8), read on first use (a command may read the file in blocks instead). */
   readonly text: string;
   /** Options without the leading dashes; a bare flag is `true`. */
   readonly options: Readonly<Record<string, string | true>>;

@@ -4,7 +4,7 @@
  * code 2 for bad input or a wrong command line (1 only for an internal fault).
  * Commands live in one table; each is { usage, summary, options, run } (see ./command.ts).
  */
-import { readFileSync } from "node:fs";
+import { closeSync, fstatSync, openSync, readFileSync } from "node:fs";
 import { pathToFileURL } from "node:url";
 import {
   evaluateTestPart,
@@ -20,6 +20,7 @@ import {
   readTramCsv,
   type CsvWarning,
 } from "@/geometry";
+import { readLarge } from "./chunked-csv";
 import { choiceOption, CliUsageError, numberOption, type CliCommand, type CliContext } from "./command";
 // ── HEAD COMMANDS (fit-head, plan) ─────────────────────────────────────────────────────────────
 // ./head-commands.ts (owned by the head-model work) exports
@@ -38,10 +39,11 @@ const circle: CliCommand = {
   summary: "fit a circle to x,y,z points taken while one axis turns: axis direction, a point on it, radius",
   options: ["units", "decimal"],
   run(ctx) {
-    const data = readPointsCsv(ctx.text, {
+    const options = {
       units: choiceOption(ctx, "units", ["mm", "in"] as const, "mm"),
       decimal: decimalOf(ctx),
-    });
+    };
+    const data = readLarge(ctx, (text) => readPointsCsv(text, options));
     passWarnings(ctx, data.warnings);
     const f = fitCircle(data);
     f.warnings.forEach((w) => ctx.warn(w));
@@ -63,11 +65,12 @@ const tram: CliCommand = {
   summary: "least-squares line of indicator reading vs travel: slope, angle, straightness, TIR",
   options: ["travel-units", "reading-units", "decimal"],
   run(ctx) {
-    const data = readTramCsv(ctx.text, {
+    const options = {
       travelUnits: choiceOption(ctx, "travel-units", ["mm", "in"] as const, "mm"),
       readingUnits: choiceOption(ctx, "reading-units", ["um", "mm", "in"] as const, "um"),
       decimal: decimalOf(ctx),
-    });
+    };
+    const data = readLarge(ctx, (text) => readTramCsv(text, options));
     passWarnings(ctx, data.warnings);
     if (data.plane) {
       const p = fitTramPlanes({ ...data, plane: data.plane });
@@ -99,10 +102,11 @@ const sweep: CliCommand = {
   options: ["radius-mm", "reading-units", "decimal"],
   run(ctx) {
     const radius = numberOption(ctx, "radius-mm", { required: true, positive: true })!;
-    const data = readSweepCsv(ctx.text, {
+    const options = {
       readingUnits: choiceOption(ctx, "reading-units", ["um", "mm", "in"] as const, "um"),
       decimal: decimalOf(ctx),
-    });
+    };
+    const data = readLarge(ctx, (text) => readSweepCsv(text, options));
     passWarnings(ctx, data.warnings);
     const r = fitSweep(data, radius);
     r.notes.forEach((n) => ctx.warn(n));
@@ -194,13 +198,31 @@ export async function main(
       if (!command.options.includes(key))
         throw new CliUsageError(`${name} has no option --${key} (usage: ${command.usage})`);
     }
-    let text: string;
+    const cannotRead = (e: unknown) =>
+      new CliUsageError(`cannot read ${file}: ${(e as NodeJS.ErrnoException).code ?? String(e)}`);
     try {
-      text = readFileSync(file, "utf8");
+      const fd = openSync(file, "r");
+      const isDirectory = fstatSync(fd).isDirectory();
+      closeSync(fd);
+      if (isDirectory) throw Object.assign(new Error("a directory"), { code: "EISDIR" });
     } catch (e) {
-      throw new CliUsageError(`cannot read ${file}: ${(e as NodeJS.ErrnoException).code ?? String(e)}`);
+      throw cannotRead(e);
     }
-    const result = await command.run({ file, text, options, warn: (m) => err(`warning: ${m}\n`) });
+    // The text is read when a command asks for it: sweep, circle and tram read large files in blocks.
+    let text: string | undefined;
+    const ctx: CliContext = {
+      file,
+      get text() {
+        try {
+          return (text ??= readFileSync(file, "utf8"));
+        } catch (e) {
+          throw cannotRead(e);
+        }
+      },
+      options,
+      warn: (m) => err(`warning: ${m}\n`),
+    };
+    const result = await command.run(ctx);
     out(
       `${JSON.stringify(result, (_k, v: unknown) => (v instanceof Float64Array ? Array.from(v) : v), 2)}\n`,
     );

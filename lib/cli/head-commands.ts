@@ -36,6 +36,7 @@ import {
 // The pose list uses the shared table reader of geometry/csv (the same tokeniser and number checks
 // as every product CSV); it has no reader of its own in geometry/csv's public index.
 import { readTable } from "@/geometry/csv/table";
+import { readLarge } from "./chunked-csv";
 import { choiceOption, CliUsageError, numberOption, type CliCommand, type CliContext } from "./command";
 
 function readHead(ctx: CliContext): HeadConfig {
@@ -70,10 +71,11 @@ const fitHeadCommand: CliCommand = {
   options: ["head", "units", "decimal", "u-probe-um", "u-tool-um", "delta-t-k"],
   run(ctx) {
     const config = readHead(ctx);
-    const data = readSphereProbeCsv(ctx.text, {
+    const options = {
       units: choiceOption(ctx, "units", ["mm", "in"] as const, "mm"),
       decimal: decimalOf(ctx),
-    });
+    };
+    const data = readLarge(ctx, (text) => readSphereProbeCsv(text, options));
     data.warnings.forEach((w) => ctx.warn(formatIssue(w)));
     const json = headFitToJson(fitHead(config, data));
     // JCGM 100 budget (geometry/budget.ts) when Type B inputs are given.

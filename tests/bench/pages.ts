@@ -1,7 +1,7 @@
 /**
  * Page benchmark in Debian's Chromium (playwright-core, the browser tests' launch flags) at
  * 1440×900: every main page as each role, signed in through next-auth's real endpoint, with the
- * browser cache off so every load transfers its JavaScript. Per page (median of --runs loads after
+ * browser cache and service workers off so every load transfers its JavaScript. Per page (median of --runs loads after
  * one warm-up): first byte and load event (ms from navigation start, Navigation Timing), the
  * server's answer time for the HTML alone (first byte minus request start), the compressed
  * JavaScript transferred by the load event and after it (the 3D chunk comes after), and the
@@ -74,7 +74,10 @@ interface Load {
 }
 
 async function contextFor(email: string): Promise<BrowserContext> {
-  const ctx = await browser.newContext({ viewport: VIEWPORT, baseURL: BASE });
+  // Service workers blocked: the checklist page registers one (keeping a job for offline use),
+  // which would then answer every later load of the context from its cache, unseen by this page's
+  // network events (0 bytes counted for every page after it).
+  const ctx = await browser.newContext({ viewport: VIEWPORT, baseURL: BASE, serviceWorkers: "block" });
   const cookie = await signIn(BASE, email);
   const host = new URL(BASE).hostname;
   await ctx.addCookies(
@@ -92,6 +95,7 @@ async function loadOnce(ctx: BrowserContext, path: string): Promise<Load> {
   await cdp.send("Network.enable");
   await cdp.send("Page.enable");
   await cdp.send("Network.setCacheDisabled", { cacheDisabled: true });
+  await cdp.send("Network.setBypassServiceWorker", { bypass: true });
   // Bytes on the wire per script (compressed, headers included), and when each was requested
   // relative to the load event (CDP's monotonic timestamps, seconds).
   const scriptUrls = new Map<string, { url: string; sentAt: number }>();
@@ -214,6 +218,13 @@ const results = measured.map(({ role, page, loads }) => {
 });
 
 const answered = results.filter((r) => r.status === 200);
+// Every page that answered loads the framework's scripts: none counted means the counting failed
+// (as it did when a service worker answered from its cache), not a page without JavaScript.
+const uncounted = answered.filter((r) => Number(r.js_by_load_kb) === 0);
+if (uncounted.length > 0)
+  throw new Error(
+    `no JavaScript counted on ${uncounted.length} pages (e.g. ${uncounted[0]!.page} as ${uncounted[0]!.role}): the byte counting is broken`,
+  );
 const worst = (k: string) =>
   answered.reduce(
     (a, r) => (Number(r[k]) > Number(a[k] ?? -Infinity) ? r : a),
