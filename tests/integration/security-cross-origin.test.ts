@@ -26,6 +26,8 @@ import { PATCH as patchHeadsItem } from "@/app/api/heads/[id]/route";
 import { POST as postInstruments } from "@/app/api/instruments/route";
 import { PATCH as patchInstrumentsItem } from "@/app/api/instruments/[id]/route";
 import { POST as postCalibration } from "@/app/api/instruments/[id]/calibrations/route";
+import { POST as postJobs } from "@/app/api/jobs/route";
+import { PATCH as patchJob } from "@/app/api/jobs/[id]/route";
 import { NextRequest } from "next/server";
 import { db } from "@/db";
 import { sql } from "drizzle-orm";
@@ -39,6 +41,20 @@ const NO_ROW = "00000000-0000-4000-8000-000000000000";
 
 /** Every write route (method + file), with a handler and params to call it with. */
 const WRITES: { name: string; file: string; method: string; handler: Handler; params: () => object }[] = [
+  {
+    name: "POST /api/jobs",
+    file: "app/api/jobs/route.ts",
+    method: "POST",
+    handler: postJobs as Handler,
+    params: () => ({}),
+  },
+  {
+    name: "PATCH /api/jobs/{id}",
+    file: "app/api/jobs/[id]/route.ts",
+    method: "PATCH",
+    handler: patchJob as Handler,
+    params: () => ({ id: NO_ROW }),
+  },
   {
     name: "DELETE /api/datasets/{id}",
     file: "app/api/datasets/[id]/route.ts",
