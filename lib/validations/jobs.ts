@@ -105,38 +105,41 @@ export const jobOpenSchema = z
 export type JobOpenInput = z.infer<typeof jobOpenSchema>;
 
 /** Editing a job's record fields (PATCH /api/jobs/{id} and the job page): absent = unchanged. */
-export const jobRecordSchema = z
-  .object({
-    title: z
-      .string()
-      .trim()
-      .min(3, "Give the job a title.")
-      .max(200, "Use at most 200 characters.")
-      .optional(),
-    ...recordFields,
-    conditionAsFound: optionalText(2000),
-    nextRecheckOn: z.preprocess(blankToNull, isoDate.nullable().optional()),
-  })
+const editFields = {
+  title: z.string().trim().min(3, "Give the job a title.").max(200, "Use at most 200 characters.").optional(),
+  ...recordFields,
+  conditionAsFound: optionalText(2000),
+  nextRecheckOn: z.preprocess(blankToNull, isoDate.nullable().optional()),
+};
+export const jobRecordSchema = z.object(editFields).strict().superRefine(checkSchedule);
+/** The job page's edit forms: the same fields, with the job they are about. */
+export const jobRecordFormSchema = z
+  .object({ jobId: zUuid(), ...editFields })
   .strict()
   .superRefine(checkSchedule);
 export type JobRecordInput = z.infer<typeof jobRecordSchema>;
 
 /** Hold, release and cancel: a reason is required to cancel, optional to hold. */
-export const jobMoveSchema = z.discriminatedUnion("action", [
-  z.object({ action: z.literal("hold"), reason: optionalText(500) }).strict(),
-  z.object({ action: z.literal("release") }).strict(),
-  z
-    .object({
-      action: z.literal("cancel"),
-      reason: z
-        .string({ message: "Say why the job is cancelled." })
-        .trim()
-        .min(5, "Say why the job is cancelled (at least 5 characters).")
-        .max(500, "Use at most 500 characters."),
-    })
-    .strict(),
-]);
+const moveVariants = <T extends z.ZodRawShape>(extra: T) =>
+  z.discriminatedUnion("action", [
+    z.object({ ...extra, action: z.literal("hold"), reason: optionalText(500) }).strict(),
+    z.object({ ...extra, action: z.literal("release") }).strict(),
+    z
+      .object({
+        ...extra,
+        action: z.literal("cancel"),
+        reason: z
+          .string({ message: "Say why the job is cancelled." })
+          .trim()
+          .min(5, "Say why the job is cancelled (at least 5 characters).")
+          .max(500, "Use at most 500 characters."),
+      })
+      .strict(),
+  ]);
+export const jobMoveSchema = moveVariants({});
 export type JobMoveInput = z.infer<typeof jobMoveSchema>;
+/** The job page's hold / release / cancel buttons. */
+export const jobMoveFormSchema = moveVariants({ jobId: zUuid() });
 
 /** The jobs board's URL (and GET /api/jobs): filters, sort, search, the role's queue and the page. */
 export const jobBoardQuerySchema = z.object({
