@@ -4,6 +4,7 @@ import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { queueAssignmentMails } from "@/db/queries/job-mail";
 import { getJobDetail } from "@/db/queries/jobs";
+import { listActiveInstallers } from "@/db/queries/users-admin";
 import { createJobFromTemplate } from "@/db/queries/job-status";
 import { customers, heads, jobs, machines, procedureTemplates, sites, users } from "@/db/schema";
 import type { JobStatus } from "@/lib/domain/jobs";
@@ -67,11 +68,7 @@ export async function newJobChoices(actor: Actor) {
       .from(procedureTemplates)
       .where(and(eq(procedureTemplates.isCurrent, true), isNull(procedureTemplates.retiredAt)))
       .orderBy(asc(procedureTemplates.name)),
-    db
-      .select({ id: users.id, name: users.name })
-      .from(users)
-      .where(and(eq(users.role, "installer"), eq(users.disabled, false)))
-      .orderBy(asc(users.name)),
+    listActiveInstallers(),
   ]);
   return {
     customers: customerRows,
