@@ -107,7 +107,9 @@ export function JobRecordCard({
       {mayEdit || mayAssign || moves.mayHold || moves.mayRelease || moves.mayCancel ? (
         <div className="mt-5 space-y-5 border-t border-graphite-100 pt-4">
           {mayAssign ? (
-            <AssignInstallerForm jobId={job.id} current={job.assignedInstallerId} installers={installers} />
+            <div className="max-w-md">
+              <AssignInstallerForm jobId={job.id} current={job.assignedInstallerId} installers={installers} />
+            </div>
           ) : null}
           {mayEdit ? (
             <details>

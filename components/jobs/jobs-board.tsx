@@ -61,7 +61,7 @@ export function JobsBoard({
   const pathname = usePathname();
   const params = useSearchParams();
   const query = boardQuery(new URLSearchParams(params.toString()));
-  const { data, error, isValidating } = useSWR(`/api/jobs?${query}`, fetchBoard, {
+  const { data, error, isValidating, isLoading } = useSWR(`/api/jobs?${query}`, fetchBoard, {
     fallbackData: query === fallback.query ? fallback.data : undefined,
     keepPreviousData: true,
     refreshInterval: REFRESH_MS,
@@ -188,7 +188,10 @@ export function JobsBoard({
         </p>
       ) : null}
 
-      <JobsTable rows={board.jobs} sort={sort} params={linkParams} showCustomer={showCustomer} />
+      {/* While another filter's answer is on its way, the previous rows stay, dimmed and marked busy. */}
+      <div aria-busy={isLoading} className={isLoading ? "opacity-50 transition-opacity" : undefined}>
+        <JobsTable rows={board.jobs} sort={sort} params={linkParams} showCustomer={showCustomer} />
+      </div>
 
       {pages > 1 ? (
         <nav aria-label="Pages" className="flex items-center justify-between gap-3 text-sm">

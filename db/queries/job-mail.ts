@@ -1,7 +1,11 @@
 import "server-only";
+import { eq } from "drizzle-orm";
 import type { NodePgDatabase } from "drizzle-orm/node-postgres";
+import { db } from "@/db";
 import { enqueueMail } from "@/db/queries/outbox";
+import { users } from "@/db/schema";
 import type * as schema from "@/db/schema";
+import { invalid } from "@/lib/errors";
 import type { Actor } from "@/lib/domain/roles";
 import { publicUrl } from "@/lib/env";
 import { formatDateTime } from "@/lib/format";
@@ -9,6 +13,19 @@ import { assignmentMessage, unassignmentMessage } from "@/lib/mail/messages";
 
 type Executor = NodePgDatabase<typeof schema>;
 type Person = { id: string; name: string; email: string };
+
+/** The installer a job is being given to: an active installer, or 422 naming `assignedInstallerId`. */
+export async function activeInstaller(id: string): Promise<Person> {
+  const [u] = await db
+    .select({ id: users.id, name: users.name, email: users.email, role: users.role, disabled: users.disabled })
+    .from(users)
+    .where(eq(users.id, id));
+  if (!u || u.role !== "installer" || u.disabled)
+    throw invalid("Assign an active installer.", [
+      { field: "assignedInstallerId", message: "Not an active installer." },
+    ]);
+  return u;
+}
 
 /**
  * Queues, in the caller's transaction, the e-mails an assignment change sends: the new installer

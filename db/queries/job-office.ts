@@ -2,11 +2,11 @@ import "server-only";
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { queueAssignmentMails } from "@/db/queries/job-mail";
+import { activeInstaller, queueAssignmentMails } from "@/db/queries/job-mail";
 import { getJobDetail } from "@/db/queries/jobs";
 import { listActiveInstallers } from "@/db/queries/users-admin";
 import { createJobFromTemplate } from "@/db/queries/job-status";
-import { customers, heads, jobs, machines, procedureTemplates, sites, users } from "@/db/schema";
+import { customers, heads, jobs, machines, procedureTemplates, sites } from "@/db/schema";
 import type { JobStatus } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
 import { forbidden, invalid, notFound } from "@/lib/errors";
@@ -180,23 +180,7 @@ export async function updateJobRecord(actor: Actor, jobId: string, input: JobRec
   if (reassigning) {
     const assignRefusal = jobAssignRefusal(actor, d.job);
     if (assignRefusal) throw forbidden(assignRefusal);
-    if (input.assignedInstallerId) {
-      const [u] = await db
-        .select({
-          id: users.id,
-          name: users.name,
-          email: users.email,
-          role: users.role,
-          disabled: users.disabled,
-        })
-        .from(users)
-        .where(eq(users.id, input.assignedInstallerId));
-      if (!u || u.role !== "installer" || u.disabled)
-        throw invalid("Assign an active installer.", [
-          { field: "assignedInstallerId", message: "Not an active installer." },
-        ]);
-      to = u;
-    }
+    if (input.assignedInstallerId) to = await activeInstaller(input.assignedInstallerId);
     changes.assignedInstallerId = input.assignedInstallerId;
   }
   const oldValues: Record<string, unknown> = {};

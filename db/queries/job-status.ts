@@ -5,7 +5,7 @@ import { appendAudit } from "@/db/queries/audit";
 import { refuseRetired } from "@/db/queries/registers-admin";
 import { getJobDetail } from "@/db/queries/jobs";
 import { enqueueMail } from "@/db/queries/outbox";
-import { queueAssignmentMails } from "@/db/queries/job-mail";
+import { activeInstaller, queueAssignmentMails } from "@/db/queries/job-mail";
 import { customers, datasets, heads, jobs, machines, procedureTemplates, sites, users } from "@/db/schema";
 import type { JobStatus } from "@/lib/domain/jobs";
 import { type Actor } from "@/lib/domain/roles";
@@ -136,24 +136,7 @@ export async function createJobFromTemplate(actor: Actor, input: JobCreateInput)
     .where(eq(heads.id, input.headId));
   if (!h) throw invalid("Choose a head.", [{ field: "headId", message: "No such head." }]);
   refuseRetired(h, "headId", "head");
-  let installer: { id: string; name: string; email: string } | null = null;
-  if (input.assignedInstallerId) {
-    const [u] = await db
-      .select({
-        id: users.id,
-        name: users.name,
-        email: users.email,
-        role: users.role,
-        disabled: users.disabled,
-      })
-      .from(users)
-      .where(eq(users.id, input.assignedInstallerId));
-    if (!u || u.role !== "installer" || u.disabled)
-      throw invalid("Assign an active installer.", [
-        { field: "assignedInstallerId", message: "Not an active installer." },
-      ]);
-    installer = u;
-  }
+  const installer = input.assignedInstallerId ? await activeInstaller(input.assignedInstallerId) : null;
   return db.transaction(async (tx) => {
     await tx.execute(sql`select pg_advisory_xact_lock(724003)`);
     const year = new Date().getUTCFullYear();
