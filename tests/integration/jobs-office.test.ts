@@ -412,6 +412,38 @@ describe("hold, release and cancel", () => {
     expect(row).toMatchObject({ status: "cancelled", title: "Head installation, office test" });
   });
 
+  it("a cancelled job refuses a saved 3D view too (nothing stored)", async () => {
+    const { saveAnalysisView } = await import("@/db/queries/analysis-views");
+    const { getActor } = await import("@/db/queries/users");
+    const [a] = (
+      await db.execute<{ id: string; job_id: string; status: string }>(
+        sql`select a.id, a.job_id, j.status from analyses a join jobs j on j.id = a.job_id limit 1`,
+      )
+    ).rows;
+    const engineer = (await getActor((await signInAs("engineer@halvard.example"))!))!;
+    const count = async () =>
+      (
+        await db.execute<{ n: number }>(
+          sql`select count(*)::int as n from analysis_views where job_id = ${a!.job_id}`,
+        )
+      ).rows[0]!.n;
+    const before = await count();
+    await db.execute(sql`update jobs set status = 'cancelled' where id = ${a!.job_id}`);
+    try {
+      await expect(
+        saveAnalysisView(engineer, a!.id, {
+          png: Buffer.alloc(10),
+          factor: 1,
+          overlayAnalysisId: null,
+          caption: null,
+        }),
+      ).rejects.toMatchObject({ status: 403 });
+      expect(await count()).toBe(before);
+    } finally {
+      await db.execute(sql`update jobs set status = ${a!.status}::job_status where id = ${a!.job_id}`);
+    }
+  });
+
   it("an issued job cannot be cancelled or put on hold (its report is amended instead)", async () => {
     await signInAs("admin@halvard.example");
     const issued = (
