@@ -62,11 +62,12 @@ export function JobsBoard({
   const params = useSearchParams();
   const query = boardQuery(new URLSearchParams(params.toString()));
   const { data, error, isValidating, isLoading } = useSWR(`/api/jobs?${query}`, fetchBoard, {
+    // The server's answer for this very URL; SWR's keepPreviousData would ignore it, so it is not used.
     fallbackData: query === fallback.query ? fallback.data : undefined,
-    keepPreviousData: true,
     refreshInterval: REFRESH_MS,
     revalidateOnFocus: true,
   });
+  // Until a new filter's answer arrives, the server's first rows stay on screen, dimmed and marked busy.
   const board = data ?? fallback.data;
 
   /** Changes the URL (and so the SWR key) without a server round trip; page goes back to 1 unless given. */
@@ -188,7 +189,6 @@ export function JobsBoard({
         </p>
       ) : null}
 
-      {/* While another filter's answer is on its way, the previous rows stay, dimmed and marked busy. */}
       <div aria-busy={isLoading} className={isLoading ? "opacity-50 transition-opacity" : undefined}>
         <JobsTable rows={board.jobs} sort={sort} params={linkParams} showCustomer={showCustomer} />
       </div>
