@@ -61,14 +61,16 @@ export function JobsBoard({
   const pathname = usePathname();
   const params = useSearchParams();
   const query = boardQuery(new URLSearchParams(params.toString()));
-  const { data, error, isValidating, isLoading } = useSWR(`/api/jobs?${query}`, fetchBoard, {
+  const { data, error, isValidating } = useSWR(`/api/jobs?${query}`, fetchBoard, {
     // The server's answer for this very URL; SWR's keepPreviousData would ignore it, so it is not used.
     fallbackData: query === fallback.query ? fallback.data : undefined,
     refreshInterval: REFRESH_MS,
     revalidateOnFocus: true,
   });
   // Until a new filter's answer arrives, the server's first rows stay on screen, dimmed and marked busy.
+  // (SWR's isLoading is true on the first check even when the server's answer is shown, so it is not used.)
   const board = data ?? fallback.data;
+  const busy = data === undefined && !error;
 
   /** Changes the URL (and so the SWR key) without a server round trip; page goes back to 1 unless given. */
   const setParams = (changes: Record<string, string | null>) => {
@@ -189,7 +191,7 @@ export function JobsBoard({
         </p>
       ) : null}
 
-      <div aria-busy={isLoading} className={isLoading ? "opacity-50 transition-opacity" : undefined}>
+      <div aria-busy={busy} className={busy ? "opacity-50 transition-opacity" : undefined}>
         <JobsTable rows={board.jobs} sort={sort} params={linkParams} showCustomer={showCustomer} />
       </div>
 
