@@ -54,11 +54,12 @@ type ScheduleFields = {
   timeZone?: string | null | undefined;
 };
 
-/** The schedule's fields go together, and the time must exist in that zone on that day. */
+/**
+ * The schedule's fields go together: a date and a time need the zone they are in, and the time
+ * must exist in that zone on that day. A zone alone (the form fills in the browser's) is no schedule.
+ */
 function checkSchedule(v: ScheduleFields, ctx: z.RefinementCtx) {
-  const given = [v.scheduledDate, v.scheduledTime, v.timeZone];
-  if (given.every((x) => x === undefined)) return;
-  if (given.every((x) => x === null || x === undefined)) return;
+  if (!v.scheduledDate && !v.scheduledTime) return;
   if (!v.scheduledDate)
     ctx.addIssue({ code: "custom", path: ["scheduledDate"], message: "Give the date too." });
   if (!v.scheduledTime)
@@ -78,12 +79,14 @@ function checkSchedule(v: ScheduleFields, ctx: z.RefinementCtx) {
     });
 }
 
-/** The schedule as stored: the UTC instant and the zone, both null to clear; undefined = unchanged. */
+/**
+ * The schedule as stored: the UTC instant and the zone, both null to clear (date and time given
+ * empty); undefined = unchanged (neither date nor time given).
+ */
 export function scheduleOf(
   v: ScheduleFields,
 ): { scheduledFor: Date | null; timeZone: string | null } | undefined {
-  if (v.scheduledDate === undefined && v.scheduledTime === undefined && v.timeZone === undefined)
-    return undefined;
+  if (v.scheduledDate === undefined && v.scheduledTime === undefined) return undefined;
   if (!v.scheduledDate || !v.scheduledTime || !v.timeZone) return { scheduledFor: null, timeZone: null };
   return { scheduledFor: zonedToUtc(v.scheduledDate, v.scheduledTime, v.timeZone), timeZone: v.timeZone };
 }

@@ -94,6 +94,17 @@ describe("job schemas", () => {
     expect(scheduleOf(good)?.scheduledFor?.toISOString()).toBe("2027-03-28T01:30:00.000Z");
   });
 
+  it("a zone alone (the form fills in the browser's) is no schedule: the job opens unscheduled", () => {
+    const v = jobOpenSchema.parse({
+      ...open,
+      scheduledDate: "",
+      scheduledTime: "",
+      timeZone: "Europe/Berlin",
+    });
+    expect(scheduleOf(v)).toEqual({ scheduledFor: null, timeZone: null });
+    expect(scheduleOf(jobRecordSchema.parse({ timeZone: "Europe/Berlin" }))).toBeUndefined();
+  });
+
   it("an edit leaves absent fields unchanged, clears blank ones and refuses unknown ones", () => {
     expect(scheduleOf(jobRecordSchema.parse({ title: "New title" }))).toBeUndefined();
     expect(scheduleOf(jobRecordSchema.parse({ scheduledDate: "", scheduledTime: "", timeZone: "" }))).toEqual(
