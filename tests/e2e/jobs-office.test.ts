@@ -117,4 +117,42 @@ describe("jobs office journey", () => {
     await p.screenshot({ path: screenshotPath("jobs-board-admin-820"), fullPage: true });
     await p.close();
   });
+
+  it("the office puts the job on hold, releases it and cancels it with a reason; it stays readable", async () => {
+    await office.clearCookies();
+    const p = await office.newPage();
+    await signIn(p, "admin@halvard.example");
+    await p.waitForURL("**/jobs");
+    await p.getByRole("link", { name: reference }).click();
+    await p.waitForURL(/\/jobs\/[0-9a-f-]{36}$/);
+    const status = () =>
+      p
+        .locator("main")
+        .getByText(/^(Draft|On hold|Cancelled)$/)
+        .first()
+        .innerText();
+    await p.getByRole("button", { name: "Put on hold…" }).click();
+    await p.getByLabel("Why (optional)").fill("Crane out of service until Monday");
+    await p.getByRole("button", { name: "Put on hold", exact: true }).click();
+    await expect.poll(status).toBe("On hold");
+    expect(await p.getByRole("status").first().innerText()).toMatch(/Crane out of service until Monday/);
+    await p.getByRole("button", { name: "Release from hold" }).click();
+    await expect.poll(status).toBe("Draft");
+    await p.getByRole("button", { name: "Cancel the job…" }).click();
+    await p.getByRole("button", { name: "Cancel the job", exact: true }).click();
+    // The reason is required and named beside its field.
+    await expect.poll(() => p.locator('[data-error-for="reason"]').innerText()).not.toBe("");
+    await p.getByLabel("Reason (required)").fill("Customer postponed the machine move");
+    await p.getByRole("button", { name: "Cancel the job", exact: true }).click();
+    await expect.poll(status).toBe("Cancelled");
+    expect(await p.locator("section", { hasText: "Order and schedule" }).innerText()).toMatch(
+      /Cancelled: Customer postponed the machine move/,
+    );
+    // No more office controls on a cancelled job.
+    expect(
+      await p.getByRole("button", { name: /Put on hold|Cancel the job|Change the installer/ }).count(),
+    ).toBe(0);
+    await p.screenshot({ path: screenshotPath("jobs-cancelled-1440"), fullPage: true });
+    await p.close();
+  });
 });
