@@ -17,7 +17,13 @@ type Person = { id: string; name: string; email: string };
 /** The installer a job is being given to: an active installer, or 422 naming `assignedInstallerId`. */
 export async function activeInstaller(id: string): Promise<Person> {
   const [u] = await db
-    .select({ id: users.id, name: users.name, email: users.email, role: users.role, disabled: users.disabled })
+    .select({
+      id: users.id,
+      name: users.name,
+      email: users.email,
+      role: users.role,
+      disabled: users.disabled,
+    })
     .from(users)
     .where(eq(users.id, id));
   if (!u || u.role !== "installer" || u.disabled)
