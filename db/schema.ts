@@ -204,6 +204,11 @@ export const jobs = pgTable(
     conditionAsFound: text("condition_as_found"),
     /** When the head should next be re-checked (printed on the report). */
     nextRecheckOn: date("next_recheck_on", { mode: "string" }),
+    /** While on hold: the status the job left, restored on release. */
+    heldFromStatus: jobStatusEnum("held_from_status"),
+    holdReason: text("hold_reason"),
+    /** Why the job was cancelled (required to cancel; the audit trail keeps who and when). */
+    cancelReason: text("cancel_reason"),
     createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
     ...timestamps,
   },

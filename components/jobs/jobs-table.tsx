@@ -3,7 +3,7 @@ import type { JobListRow, JobSortKey } from "@/lib/domain/jobs";
 import { StatusBadge } from "@/components/ui/status-badge";
 import { Table } from "@/components/ui/table";
 import { JOB_KIND_LABELS } from "@/lib/domain/jobs";
-import { formatDate } from "@/lib/format";
+import { LocalTime } from "@/components/readings/local-time";
 
 type Sort = { sort: JobSortKey; dir: "asc" | "desc" };
 
@@ -21,6 +21,7 @@ export function JobsTable({
 }) {
   const sortHref = (column: string, desc: boolean) => {
     const next = new URLSearchParams(params);
+    next.delete("page");
     next.set("sort", column);
     next.set("dir", column === sort.sort && desc ? "desc" : "asc");
     return `?${next.toString()}`;
@@ -87,7 +88,19 @@ export function JobsTable({
           { id: "head" },
         ),
         column("Status", (r) => <StatusBadge status={r.status} />, { id: "status", sortBy: (r) => r.status }),
-        column("Updated", (r) => formatDate(r.updatedAt), {
+        column(
+          "Scheduled",
+          (r) =>
+            r.scheduledFor ? (
+              <span title={r.timeZone ? `Given in ${r.timeZone}` : undefined}>
+                <LocalTime at={r.scheduledFor} />
+              </span>
+            ) : (
+              <span className="text-graphite-500">Not scheduled</span>
+            ),
+          { id: "scheduled", numeric: true },
+        ),
+        column("Updated", (r) => <LocalTime at={r.updatedAt} />, {
           id: "updated",
           sortBy: (r) => r.updatedAt.toISOString(),
           numeric: true,

@@ -46,6 +46,19 @@ const STYLES: Record<JobStatus, { cls: string; icon: React.ReactNode }> = {
     cls: "bg-fail-50 text-fail-700 ring-fail-600/30",
     icon: <path d="M2.5 2.5l7 7M9.5 2.5l-7 7" stroke="currentColor" strokeWidth="1.8" />,
   },
+  on_hold: {
+    cls: "bg-white text-graphite-800 ring-graphite-400",
+    icon: <path d="M4 2.5v7M8 2.5v7" stroke="currentColor" strokeWidth="1.8" />,
+  },
+  cancelled: {
+    cls: "bg-graphite-100 text-graphite-600 ring-graphite-300 line-through decoration-graphite-400",
+    icon: (
+      <>
+        <circle cx="6" cy="6" r="4" fill="none" stroke="currentColor" strokeWidth="1.5" />
+        <path d="M3.2 8.8 8.8 3.2" stroke="currentColor" strokeWidth="1.5" />
+      </>
+    ),
+  },
 };
 
 export function StatusBadge({ status }: { status: JobStatus }) {

@@ -87,6 +87,8 @@ export async function saveAnalysisView(
   if (!a) throw notFound("analysis");
   const refusal = viewSaveRefusal(actor);
   if (refusal) throw forbidden(refusal);
+  if (a.job.status === "cancelled")
+    throw forbidden("The job is cancelled; it stays readable and takes no more changes.");
   if (input.png.length > VIEW_MAX_BYTES)
     throw new AppError(
       413,

@@ -5,7 +5,8 @@ import { appendAudit } from "@/db/queries/audit";
 import { refuseRetired } from "@/db/queries/registers-admin";
 import { getJobDetail } from "@/db/queries/jobs";
 import { enqueueMail } from "@/db/queries/outbox";
-import { datasets, heads, jobs, machines, procedureTemplates, sites, users } from "@/db/schema";
+import { activeInstaller, queueAssignmentMails } from "@/db/queries/job-mail";
+import { customers, datasets, heads, jobs, machines, procedureTemplates, sites, users } from "@/db/schema";
 import type { JobStatus } from "@/lib/domain/jobs";
 import { type Actor } from "@/lib/domain/roles";
 import { jobCreateRefusal, transitionRefusal } from "@/lib/policy/jobs";
@@ -95,12 +96,19 @@ export interface JobCreateInput {
   title: string;
   assignedInstallerId?: string | undefined;
   decisionRule: "simple" | "guarded";
+  /** The office's record fields (db/queries/job-office.ts openJob checks and fills them). */
+  orderReference?: string | null | undefined;
+  customerContactName?: string | null | undefined;
+  customerContactEmail?: string | null | undefined;
+  scheduledFor?: Date | null | undefined;
+  timeZone?: string | null | undefined;
+  notes?: string | null | undefined;
 }
 
 /**
  * Creates a job from a procedure version for a machine and head (administrator or engineer),
  * optionally assigned to an installer; the job keeps that version. The reference is the next
- * TR-<year>-<nnnn>. Audited.
+ * TR-<year>-<nnnn>. Audited; an assigned installer is e-mailed in the same transaction.
  */
 export async function createJobFromTemplate(actor: Actor, input: JobCreateInput) {
   const refusal = jobCreateRefusal(actor);
@@ -108,9 +116,17 @@ export async function createJobFromTemplate(actor: Actor, input: JobCreateInput)
   const [t] = await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, input.templateId));
   if (!t) throw invalid("Choose a procedure.", [{ field: "templateId", message: "No such procedure." }]);
   const [m] = await db
-    .select({ id: machines.id, customerId: sites.customerId, retiredAt: machines.retiredAt })
+    .select({
+      id: machines.id,
+      customerId: sites.customerId,
+      retiredAt: machines.retiredAt,
+      machineName: machines.name,
+      siteName: sites.name,
+      customerName: customers.name,
+    })
     .from(machines)
     .innerJoin(sites, eq(sites.id, machines.siteId))
+    .innerJoin(customers, eq(customers.id, sites.customerId))
     .where(eq(machines.id, input.machineId));
   if (!m) throw invalid("Choose a host machine.", [{ field: "machineId", message: "No such machine." }]);
   refuseRetired(m, "machineId", "host machine");
@@ -120,16 +136,7 @@ export async function createJobFromTemplate(actor: Actor, input: JobCreateInput)
     .where(eq(heads.id, input.headId));
   if (!h) throw invalid("Choose a head.", [{ field: "headId", message: "No such head." }]);
   refuseRetired(h, "headId", "head");
-  if (input.assignedInstallerId) {
-    const [u] = await db
-      .select({ role: users.role, disabled: users.disabled })
-      .from(users)
-      .where(eq(users.id, input.assignedInstallerId));
-    if (!u || u.role !== "installer" || u.disabled)
-      throw invalid("Assign an active installer.", [
-        { field: "assignedInstallerId", message: "Not an active installer." },
-      ]);
-  }
+  const installer = input.assignedInstallerId ? await activeInstaller(input.assignedInstallerId) : null;
   return db.transaction(async (tx) => {
     await tx.execute(sql`select pg_advisory_xact_lock(724003)`);
     const year = new Date().getUTCFullYear();
@@ -152,6 +159,12 @@ export async function createJobFromTemplate(actor: Actor, input: JobCreateInput)
         assignedInstallerId: input.assignedInstallerId ?? null,
         decisionRule: input.decisionRule,
         templateId: t.id,
+        orderReference: input.orderReference ?? null,
+        customerContactName: input.customerContactName ?? null,
+        customerContactEmail: input.customerContactEmail ?? null,
+        scheduledFor: input.scheduledFor ?? null,
+        timeZone: input.scheduledFor ? (input.timeZone ?? null) : null,
+        notes: input.notes ?? null,
         createdById: actor.id,
       })
       .returning();
@@ -167,7 +180,19 @@ export async function createJobFromTemplate(actor: Actor, input: JobCreateInput)
         status: "draft",
         template: `${t.name} v${t.version}`,
         assignedInstallerId: row!.assignedInstallerId,
+        orderReference: row!.orderReference,
+        scheduledFor: row!.scheduledFor?.toISOString() ?? null,
+        timeZone: row!.timeZone,
       },
+    });
+    await queueAssignmentMails(tx, actor, {
+      job: row!,
+      where: m,
+      scheduledFor: row!.scheduledFor,
+      timeZone: row!.timeZone,
+      from: null,
+      to: installer,
+      at: row!.createdAt,
     });
     return row!;
   });

@@ -43,6 +43,7 @@ const listColumns = {
   status: jobs.status,
   updatedAt: jobs.updatedAt,
   scheduledFor: jobs.scheduledFor,
+  timeZone: jobs.timeZone,
   customerId: jobs.customerId,
   customerName: customers.name,
   siteName: sites.name,
@@ -50,6 +51,7 @@ const listColumns = {
   headSerial: heads.serial,
   headAxes: sql<string>`${heads.primaryAxis} || '/' || ${heads.secondaryAxis}`,
   installerName: installers.name,
+  assignedInstallerId: jobs.assignedInstallerId,
 };
 
 export type { JobListRow };
@@ -170,6 +172,15 @@ export function jobDetailJson(d: JobDetail) {
     status: d.job.status,
     decisionRule: d.job.decisionRule,
     scheduledFor: d.job.scheduledFor,
+    timeZone: d.job.timeZone,
+    orderReference: d.job.orderReference,
+    customerContact: { name: d.job.customerContactName, email: d.job.customerContactEmail },
+    notes: d.job.notes,
+    conditionAsFound: d.job.conditionAsFound,
+    nextRecheckOn: d.job.nextRecheckOn,
+    heldFromStatus: d.job.heldFromStatus,
+    holdReason: d.job.holdReason,
+    cancelReason: d.job.cancelReason,
     updatedAt: d.job.updatedAt,
     customer: d.customer,
     site: d.site,

@@ -7,6 +7,10 @@ export const JOB_STATUSES = [
   "issued",
   "accepted",
   "rejected",
+  /** Paused by the office; the job remembers the status it left (jobs.held_from_status). */
+  "on_hold",
+  /** Stopped for good with a reason; kept and readable, every write refused. */
+  "cancelled",
 ] as const;
 export type JobStatus = (typeof JOB_STATUSES)[number];
 
@@ -18,7 +22,17 @@ export const STATUS_LABELS: Record<JobStatus, string> = {
   issued: "Issued",
   accepted: "Accepted",
   rejected: "Rejected",
+  on_hold: "On hold",
+  cancelled: "Cancelled",
 };
+
+/** Statuses after which the job's record fields (title, order, contact, schedule…) are fixed. */
+export const JOB_RECORD_CLOSED_STATUSES: readonly JobStatus[] = [
+  "issued",
+  "accepted",
+  "rejected",
+  "cancelled",
+];
 
 export const JOB_KINDS = ["installation", "reverification", "after_crash"] as const;
 export type JobKind = (typeof JOB_KINDS)[number];
@@ -42,6 +56,8 @@ export interface JobListRow {
   status: JobStatus;
   updatedAt: Date;
   scheduledFor: Date | null;
+  /** The IANA zone the schedule was given in (shown beside the time). */
+  timeZone: string | null;
   customerId: string;
   customerName: string;
   siteName: string;
@@ -49,4 +65,5 @@ export interface JobListRow {
   headSerial: string;
   headAxes: string;
   installerName: string | null;
+  assignedInstallerId: string | null;
 }

@@ -76,3 +76,37 @@ export function reportResponseMessage(m: {
     text: `${m.signerName} (${m.customerName}) ${m.decision} the acceptance report ${m.job.reference} revision ${m.revision} at ${formatDateTimeUtc(m.signedAt)}.${m.comment ? `\n\nComment: ${m.comment}` : ""}\n\n${m.baseUrl}/jobs/${m.job.id}/report\n`,
   };
 }
+
+/**
+ * The office assigns a job to an installer (or moves it to another one): the new installer gets
+ * the job, where and when, and the link; the installer it was taken from is told it is no longer theirs.
+ */
+export function assignmentMessage(m: {
+  baseUrl: string;
+  recipientName: string;
+  assignedBy: string;
+  job: JobRef;
+  customerName: string;
+  siteName: string;
+  machineName: string;
+  /** The schedule as the reader should see it (with its zone), or null when not yet scheduled. */
+  scheduled: string | null;
+}): MailText {
+  return {
+    subject: `${m.job.reference} is assigned to you`,
+    text: `Hello ${m.recipientName},\n\n${m.assignedBy} assigned ${m.job.title} (${m.job.reference}) to you.\nWhere: ${m.machineName}, ${m.siteName}, ${m.customerName}\nWhen: ${m.scheduled ?? "not scheduled yet"}\n\nThe procedure and its safety notes are here:\n${m.baseUrl}/jobs/${m.job.id}\n\nFollow the machine builder's manual and your site's lock-out rules before working on the head.\n`,
+  };
+}
+
+export function unassignmentMessage(m: {
+  baseUrl: string;
+  recipientName: string;
+  changedBy: string;
+  job: JobRef;
+  newInstallerName: string | null;
+}): MailText {
+  return {
+    subject: `${m.job.reference} is no longer assigned to you`,
+    text: `Hello ${m.recipientName},\n\n${m.changedBy} took ${m.job.title} (${m.job.reference}) off your list${m.newInstallerName ? ` and assigned it to ${m.newInstallerName}` : ""}.\nReadings you already recorded stay with the job under your name. Nothing else is needed from you.\n`,
+  };
+}

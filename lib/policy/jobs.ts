@@ -2,7 +2,13 @@
  * Jobs: who sees which, who opens them, and who moves them along the status flow. Pure, so every
  * rule is unit-tested (tests/unit/policy.test.ts); db/queries/jobs.ts turns jobScope into SQL.
  */
-import { JOB_STATUSES, STATUS_LABELS, type JobStatus } from "@/lib/domain/jobs";
+import {
+  JOB_RECORD_CLOSED_STATUSES,
+  JOB_STATUSES,
+  STATUS_LABELS,
+  type JobKind,
+  type JobStatus,
+} from "@/lib/domain/jobs";
 import type { Actor, Role } from "@/lib/domain/roles";
 
 /** Staff of the service company see every customer's jobs; installers see theirs; customers their company's. */
@@ -90,4 +96,78 @@ export function transitionRefusal(actor: Actor, move: JobMove): string | null {
 /** The moves this actor may make from the job's status now (pages offer these as buttons). */
 export function allowedTransitions(actor: Actor, job: JobMove["job"]): JobStatus[] {
   return JOB_STATUSES.filter((to) => transitionRefusal(actor, { job, to }) === null);
+}
+
+// ---- The office's moves: record fields, assignment, hold, release, cancel ----------------------
+
+const OFFICE_WORDS = "the office (administrator or engineer)";
+const isOffice = (actor: Actor) => actor.role === "admin" || actor.role === "engineer";
+const statusWord = (s: JobStatus) => STATUS_LABELS[s].toLowerCase();
+
+/** Statuses in which the installer may be assigned or changed (before the readings go to review). */
+export const ASSIGN_STATUSES: readonly JobStatus[] = ["draft", "measuring", "on_hold"];
+/** Statuses from which a job may be put on hold. */
+export const HOLD_STATUSES: readonly JobStatus[] = ["draft", "measuring", "in_review"];
+/** Statuses from which a job may be cancelled: anything not yet issued (issued reports are amended, never cancelled). */
+export const CANCEL_STATUSES: readonly JobStatus[] = [
+  "draft",
+  "measuring",
+  "in_review",
+  "approved",
+  "on_hold",
+];
+
+/** May this actor edit the job's record fields (title, order, contact, schedule, notes, condition, re-check)? */
+export function jobRecordEditRefusal(actor: Actor, job: { status: JobStatus }): string | null {
+  if (!isOffice(actor)) return `A job's record is kept by ${OFFICE_WORDS}.`;
+  if (job.status === "cancelled") return "The job is cancelled; it stays readable and takes no more changes.";
+  if (JOB_RECORD_CLOSED_STATUSES.includes(job.status))
+    return `The job is ${statusWord(job.status)}; its record is fixed (amend the report instead).`;
+  return null;
+}
+
+export function jobAssignRefusal(actor: Actor, job: { status: JobStatus }): string | null {
+  if (!isOffice(actor)) return `Installers are assigned by ${OFFICE_WORDS}.`;
+  if (!ASSIGN_STATUSES.includes(job.status))
+    return `The job is ${statusWord(job.status)}; the installer can be changed only while it is draft, measuring or on hold.`;
+  return null;
+}
+
+export function jobHoldRefusal(actor: Actor, job: { status: JobStatus }): string | null {
+  if (!isOffice(actor)) return `Jobs are put on hold by ${OFFICE_WORDS}.`;
+  if (!HOLD_STATUSES.includes(job.status))
+    return `The job is ${statusWord(job.status)}; only a draft, measuring or in-review job can be put on hold.`;
+  return null;
+}
+
+export function jobReleaseRefusal(actor: Actor, job: { status: JobStatus }): string | null {
+  if (!isOffice(actor)) return `Jobs are released from hold by ${OFFICE_WORDS}.`;
+  if (job.status !== "on_hold") return `The job is ${statusWord(job.status)}, not on hold.`;
+  return null;
+}
+
+export function jobCancelRefusal(actor: Actor, job: { status: JobStatus }): string | null {
+  if (!isOffice(actor)) return `Jobs are cancelled by ${OFFICE_WORDS}.`;
+  if (job.status === "cancelled") return "The job is already cancelled.";
+  if (!CANCEL_STATUSES.includes(job.status))
+    return `The job is ${statusWord(job.status)}; an issued report is amended, never cancelled.`;
+  return null;
+}
+
+/** Does this procedure version fit a new job of this kind on a head of this model? */
+export function procedureApplies(
+  t: {
+    isCurrent: boolean;
+    retiredAt: Date | null;
+    jobKinds: readonly JobKind[] | null;
+    headModel: string | null;
+  },
+  kind: JobKind,
+  headModel: string | null,
+): boolean {
+  if (!t.isCurrent || t.retiredAt) return false;
+  if (t.jobKinds && t.jobKinds.length > 0 && !t.jobKinds.includes(kind)) return false;
+  if (t.headModel && t.headModel.trim().toLowerCase() !== (headModel ?? "").trim().toLowerCase())
+    return false;
+  return true;
 }

@@ -34,6 +34,7 @@ const COVERED = new Set([
   "app/api/jobs/[id]/readiness/route.ts",
   "app/api/jobs/[id]/report/draft/route.ts",
   "app/api/auth/[...nextauth]/route.ts",
+  // POST app/api/jobs/route.ts and PATCH app/api/jobs/[id]/route.ts: tests/integration/jobs-office.test.ts
   // tests/integration/checklist-access.test.ts
   "app/api/jobs/[id]/readings/route.ts",
   "app/api/jobs/[id]/comparison/route.ts",

@@ -33,6 +33,7 @@ const setPassword = await import("@/app/(auth)/set-password/actions");
 const people = await import("@/app/(app)/registers/people/actions");
 const forgotPassword = await import("@/app/(auth)/forgot-password/actions");
 const procedures = await import("@/app/(app)/registers/procedures/actions");
+const jobOffice = await import("@/app/(app)/jobs/actions");
 
 type Who =
   | "anonymous"
@@ -326,6 +327,29 @@ MATRIX.clearSignInDelayAction = {
 MATRIX.sendResetLinkAction = {
   expect: staffOnly(["admin"]),
   call: async () => people.sendResetLinkAction({ userId: await engineerId() }),
+};
+// ---- the office's job actions (app/(app)/jobs/actions.ts): the office opens, edits, holds and
+// cancels; the job's installer and customer see the job but may not change it; the other tenant is not told it exists.
+MATRIX.openJobAction = {
+  expect: staffOnly(["admin", "engineer"]),
+  call: async () =>
+    jobOffice.openJobAction({
+      machineId: marlow.machineId,
+      headId: marlow.headId,
+      kind: "reverification",
+      title: "Opened from the action matrix",
+      templateId: marlow.templateId,
+      decisionRule: "simple",
+    }),
+};
+MATRIX.updateJobAction = {
+  expect: onMarlowJob(["admin", "engineer"]),
+  call: async () => jobOffice.updateJobAction({ jobId: await freshJob("draft"), orderReference: "PO-ACT-1" }),
+};
+MATRIX.moveJobAction = {
+  expect: onMarlowJob(["admin", "engineer"]),
+  call: async () =>
+    jobOffice.moveJobAction({ jobId: await freshJob("measuring"), action: "cancel", reason: "Matrix check" }),
 };
 // ---- forgot password: anonymous by design, the same answer for every address.
 MATRIX.requestPasswordResetAction = {

@@ -29,6 +29,8 @@ import { POST as postCalibration } from "@/app/api/instruments/[id]/calibrations
 import { POST as postProcedures } from "@/app/api/procedures/route";
 import { PATCH as patchProceduresItem } from "@/app/api/procedures/[id]/route";
 import { POST as postProcedureVersion } from "@/app/api/procedures/[id]/versions/route";
+import { POST as postJobs } from "@/app/api/jobs/route";
+import { PATCH as patchJob } from "@/app/api/jobs/[id]/route";
 import { NextRequest } from "next/server";
 import { db } from "@/db";
 import { sql } from "drizzle-orm";
@@ -42,6 +44,20 @@ const NO_ROW = "00000000-0000-4000-8000-000000000000";
 
 /** Every write route (method + file), with a handler and params to call it with. */
 const WRITES: { name: string; file: string; method: string; handler: Handler; params: () => object }[] = [
+  {
+    name: "POST /api/jobs",
+    file: "app/api/jobs/route.ts",
+    method: "POST",
+    handler: postJobs as Handler,
+    params: () => ({}),
+  },
+  {
+    name: "PATCH /api/jobs/{id}",
+    file: "app/api/jobs/[id]/route.ts",
+    method: "PATCH",
+    handler: patchJob as Handler,
+    params: () => ({ id: NO_ROW }),
+  },
   {
     name: "DELETE /api/datasets/{id}",
     file: "app/api/datasets/[id]/route.ts",

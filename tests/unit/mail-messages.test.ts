@@ -2,10 +2,12 @@
 // need, and a customer's comment reaches the engineers word for word. Product rules, by hand.
 import { describe, expect, it } from "vitest";
 import {
+  assignmentMessage,
   invitationMessage,
   reportIssuedMessage,
   reportResponseMessage,
   reviewRequestMessage,
+  unassignmentMessage,
 } from "@/lib/mail/messages";
 
 const baseUrl = "https://trammel.example";
@@ -68,5 +70,50 @@ describe("e-mail texts", () => {
     expect(rejected.text).toContain("\n\nComment: Pivot value looks off\n");
     const accepted = reportResponseMessage({ ...common, decision: "accepted", comment: null });
     expect(accepted.text).not.toContain("Comment:");
+  });
+
+  it("an assignment names the job, where and when (with its zone), links to it and defers to the manuals", () => {
+    const m = assignmentMessage({
+      baseUrl,
+      recipientName: "Iver",
+      assignedBy: "Ada",
+      job,
+      customerName: "Tollan Mold Works",
+      siteName: "Main shop",
+      machineName: "Bridge mill B-2",
+      scheduled: "2027-07-14 07:30 GMT+2 (Europe/Berlin)",
+    });
+    expect(m.subject).toBe("TR-2026-0048 is assigned to you");
+    expect(m.text).toContain("Ada assigned Head install, bay 3 (TR-2026-0048) to you.");
+    expect(m.text).toContain("Where: Bridge mill B-2, Main shop, Tollan Mold Works");
+    expect(m.text).toContain("When: 2027-07-14 07:30 GMT+2 (Europe/Berlin)");
+    expect(m.text).toContain("https://trammel.example/jobs/j-1\n");
+    expect(m.text).toMatch(/machine builder's manual/);
+    expect(
+      assignmentMessage({
+        ...{ baseUrl, recipientName: "I", assignedBy: "A", job },
+        customerName: "C",
+        siteName: "S",
+        machineName: "M",
+        scheduled: null,
+      }).text,
+    ).toContain("When: not scheduled yet");
+  });
+
+  it("the installer a job is taken from is told, with who has it now", () => {
+    const m = unassignmentMessage({
+      baseUrl,
+      recipientName: "Iver",
+      changedBy: "Ada",
+      job,
+      newInstallerName: "Sofie",
+    });
+    expect(m.subject).toBe("TR-2026-0048 is no longer assigned to you");
+    expect(m.text).toContain(
+      "Ada took Head install, bay 3 (TR-2026-0048) off your list and assigned it to Sofie.",
+    );
+    expect(
+      unassignmentMessage({ baseUrl, recipientName: "I", changedBy: "A", job, newInstallerName: null }).text,
+    ).toContain("off your list.\n");
   });
 });

@@ -1,20 +1,28 @@
-import { z } from "zod";
-import { JOB_SORT_KEYS, listJobs } from "@/db/queries/jobs";
-import { JOB_STATUSES } from "@/lib/domain/jobs";
+import { jobBoard } from "@/db/queries/job-board";
+import { openJob } from "@/db/queries/job-office";
 import { requireUser } from "@/lib/auth/session";
-import { route } from "@/lib/http";
+import { forbidden } from "@/lib/errors";
+import { readJson, route } from "@/lib/http";
+import { jobCreateRefusal } from "@/lib/policy/jobs";
+import { jobBoardQuerySchema, jobOpenSchema } from "@/lib/validations/jobs";
 
-const querySchema = z.object({
-  status: z.enum(JOB_STATUSES).optional(),
-  q: z.string().max(100).optional(),
-  sort: z.enum(JOB_SORT_KEYS).optional(),
-  dir: z.enum(["asc", "desc"]).optional(),
-});
-
+/** The jobs the caller may see: `{ jobs, total, page, pageSize, queues }` (filters, queue and paging in the query). */
 export const GET = route(async (req) => {
   // 1. who is asking; 2. what they asked for; 3. the query applies their scope.
   const actor = await requireUser();
-  const filters = querySchema.parse(Object.fromEntries(new URL(req.url).searchParams));
-  const rows = await listJobs(actor, filters);
-  return Response.json({ jobs: rows });
+  const query = jobBoardQuerySchema.parse(Object.fromEntries(new URL(req.url).searchParams));
+  return Response.json(await jobBoard(actor, query));
+});
+
+/** Opens a job (administrator or engineer) → 201 `{ job }`; 422 names the field at fault. */
+export const POST = route(async (req) => {
+  const actor = await requireUser();
+  const refusal = jobCreateRefusal(actor);
+  if (refusal) throw forbidden(refusal);
+  const input = jobOpenSchema.parse(await readJson(req));
+  const job = await openJob(actor, input);
+  return Response.json(
+    { job: { id: job.id, reference: job.reference, status: job.status } },
+    { status: 201 },
+  );
 });

@@ -1,82 +1,45 @@
 import type { Metadata } from "next";
-import { z } from "zod";
-import { Button } from "@/components/ui/button";
-import { JobsTable } from "@/components/jobs/jobs-table";
-import { JOB_SORT_KEYS, listJobs } from "@/db/queries/jobs";
-import { JOB_STATUSES, STATUS_LABELS } from "@/lib/domain/jobs";
-import { jobListWords } from "@/lib/policy/navigation";
+import { JobsBoard } from "@/components/jobs/jobs-board";
+import { jobBoard } from "@/db/queries/job-board";
 import { requirePageUser } from "@/lib/auth/session";
+import { BOARD_PAGE_SIZE, boardQuery } from "@/lib/jobs-board-query";
+import { jobCreateRefusal } from "@/lib/policy/jobs";
+import { jobListWords } from "@/lib/policy/navigation";
+import { jobBoardQuerySchema, type JobBoardQuery } from "@/lib/validations/jobs";
 
 export const metadata: Metadata = { title: "Jobs" };
 
-const paramsSchema = z.object({
-  status: z.enum(JOB_STATUSES).optional().catch(undefined),
-  q: z.string().max(100).optional().catch(undefined),
-  sort: z.enum(JOB_SORT_KEYS).optional().catch(undefined),
-  dir: z.enum(["asc", "desc"]).optional().catch(undefined),
-});
-
 type Props = { searchParams: Promise<Record<string, string | string[] | undefined>> };
+
+/** The URL's parameters, each kept only if valid (a bad one is ignored here; the API names it). */
+function lenientQuery(raw: URLSearchParams): JobBoardQuery {
+  const out: Record<string, unknown> = {};
+  for (const [k, v] of raw) {
+    const field = jobBoardQuerySchema.shape[k as keyof typeof jobBoardQuerySchema.shape];
+    const parsed = field?.safeParse(v);
+    if (parsed?.success) out[k] = parsed.data;
+  }
+  return out as JobBoardQuery;
+}
 
 export default async function JobsPage({ searchParams }: Props) {
   const user = await requirePageUser("/jobs");
   const raw = await searchParams;
-  const filters = paramsSchema.parse(
-    Object.fromEntries(Object.entries(raw).map(([k, v]) => [k, Array.isArray(v) ? v[0] : v])),
+  const url = new URLSearchParams(
+    Object.entries(raw).flatMap(([k, v]) =>
+      typeof v === "string" ? [[k, v]] : Array.isArray(v) ? [[k, v[0]!]] : [],
+    ),
   );
-  const rows = await listJobs(user, filters);
-  const params = new URLSearchParams(
-    Object.entries(filters).filter((e): e is [string, string] => typeof e[1] === "string"),
-  );
-  const sort = {
-    sort: filters.sort ?? "updated",
-    dir: filters.dir ?? (filters.sort ? "asc" : "desc"),
-  } as const;
+  const query = boardQuery(url);
+  const data = await jobBoard(user, { ...lenientQuery(url), pageSize: BOARD_PAGE_SIZE });
   const words = jobListWords(user.role);
-
   return (
-    <div className="space-y-5">
-      <div className="flex flex-wrap items-end justify-between gap-4">
-        <div>
-          <h1 className="text-2xl font-semibold">{words.heading}</h1>
-          <p className="text-sm text-graphite-600">
-            {rows.length} {rows.length === 1 ? "job" : "jobs"}
-            {words.scope}
-          </p>
-        </div>
-        <form className="flex flex-wrap items-end gap-2" role="search" aria-label="Filter jobs">
-          <label className="space-y-1">
-            <span className="block text-xs font-medium text-graphite-600">Search</span>
-            <input
-              name="q"
-              defaultValue={filters.q ?? ""}
-              placeholder="Reference, machine, head…"
-              className="min-h-touch w-56 rounded-lg border border-graphite-300 bg-white px-3 text-sm"
-            />
-          </label>
-          <label className="space-y-1">
-            <span className="block text-xs font-medium text-graphite-600">Status</span>
-            <select
-              name="status"
-              defaultValue={filters.status ?? ""}
-              className="min-h-touch rounded-lg border border-graphite-300 bg-white px-3 text-sm"
-            >
-              <option value="">Any status</option>
-              {JOB_STATUSES.map((s) => (
-                <option key={s} value={s}>
-                  {STATUS_LABELS[s]}
-                </option>
-              ))}
-            </select>
-          </label>
-          {filters.sort ? <input type="hidden" name="sort" value={filters.sort} /> : null}
-          {filters.dir ? <input type="hidden" name="dir" value={filters.dir} /> : null}
-          <Button type="submit" variant="dark">
-            Filter
-          </Button>
-        </form>
-      </div>
-      <JobsTable rows={rows} sort={sort} params={params} showCustomer={words.showCustomer} />
-    </div>
+    <JobsBoard
+      fallback={{ query, data }}
+      heading={words.heading}
+      scope={words.scope}
+      showCustomer={words.showCustomer}
+      newJob={jobCreateRefusal(user) === null}
+    />
   );
 }

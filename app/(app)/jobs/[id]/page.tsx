@@ -10,6 +10,8 @@ import { getJobConformity } from "@/db/queries/reports";
 import { headHistoryRefusal } from "@/lib/policy/heads";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
+import { JobRecordCard, jobOfficeControls } from "@/components/jobs/job-record-card";
+import { listActiveInstallers } from "@/db/queries/users-admin";
 
 type Props = { params: Promise<{ id: string }> };
 
@@ -34,8 +36,14 @@ export default async function JobPage({ params }: Props) {
   return (
     <div className="space-y-6">
       <Card>
-        <StatusFlow status={job.status} />
+        <StatusFlow status={job.status} heldFrom={job.heldFromStatus} />
       </Card>
+      <JobRecordCard
+        user={user}
+        job={job}
+        installerName={installer?.name ?? null}
+        installers={jobOfficeControls(user, job).mayAssign ? await listActiveInstallers() : []}
+      />
       {statement ? (
         <ConformityStatement
           conformity={statement.conformity}
@@ -93,8 +101,6 @@ export default async function JobPage({ params }: Props) {
         <Card title="Work">
           <Facts
             items={[
-              { label: "Installer", value: installer ? installer.name : "Not assigned yet" },
-              { label: "Scheduled", value: formatDateTimeUtc(job.scheduledFor) },
               {
                 label: "Air temperature",
                 value: job.airTempC != null ? `${job.airTempC.toFixed(1)} °C` : "Not recorded",

@@ -1,7 +1,9 @@
 import { getJobDetail, jobDetailJson } from "@/db/queries/jobs";
+import { moveJob, updateJobRecord } from "@/db/queries/job-office";
 import { requireUser } from "@/lib/auth/session";
 import { notFound } from "@/lib/errors";
-import { route } from "@/lib/http";
+import { readJson, route } from "@/lib/http";
+import { jobMoveSchema, jobRecordSchema } from "@/lib/validations/jobs";
 
 type Ctx = { params: Promise<{ id: string }> };
 
@@ -9,6 +11,22 @@ export const GET = route<Ctx>(async (_req, ctx) => {
   const { id } = await ctx.params;
   const actor = await requireUser();
   // Another tenant's job is "not found", exactly like a missing one.
+  const detail = await getJobDetail(actor, id);
+  if (!detail) throw notFound("job");
+  return Response.json({ job: jobDetailJson(detail) });
+});
+
+/**
+ * The office's changes to a job: a body with `action` ("hold" | "release" | "cancel", with a
+ * `reason`) moves it; any other body edits record fields and/or the installer. → 200 `{ job }`.
+ */
+export const PATCH = route<Ctx>(async (req, ctx) => {
+  const { id } = await ctx.params;
+  const actor = await requireUser();
+  const body = await readJson(req);
+  if (body && typeof body === "object" && "action" in body)
+    await moveJob(actor, id, jobMoveSchema.parse(body));
+  else await updateJobRecord(actor, id, jobRecordSchema.parse(body));
   const detail = await getJobDetail(actor, id);
   if (!detail) throw notFound("job");
   return Response.json({ job: jobDetailJson(detail) });

@@ -1,0 +1,186 @@
+"use client";
+
+import { useState } from "react";
+import { moveJobAction, updateJobAction } from "@/app/(app)/jobs/actions";
+import { Field, inputClass, SelectField, TextField } from "@/components/ui/field";
+import { Form } from "@/components/ui/form";
+import { jobMoveFormSchema, jobRecordFormSchema } from "@/lib/validations/jobs";
+
+export interface JobRecordValues {
+  jobId: string;
+  title: string;
+  orderReference: string;
+  customerContactName: string;
+  customerContactEmail: string;
+  scheduledDate: string;
+  scheduledTime: string;
+  timeZone: string;
+  notes: string;
+  conditionAsFound: string;
+  nextRecheckOn: string;
+}
+
+/** The office edits the job's record: title, order, contact, schedule (with its zone), notes, condition as found, next re-check. */
+export function JobRecordForm({ v }: { v: JobRecordValues }) {
+  return (
+    <Form
+      action={updateJobAction}
+      schema={jobRecordFormSchema}
+      submitLabel="Save the record"
+      successMessage="Saved."
+      resetOnSuccess={false}
+      aria-label="Edit the job's record"
+    >
+      <input type="hidden" name="jobId" value={v.jobId} />
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField name="title" label="Title" defaultValue={v.title} />
+        <TextField name="orderReference" label="Order reference" defaultValue={v.orderReference} numeric />
+        <TextField name="customerContactName" label="Customer contact" defaultValue={v.customerContactName} />
+        <TextField
+          name="customerContactEmail"
+          label="Contact e-mail"
+          type="email"
+          defaultValue={v.customerContactEmail}
+        />
+      </div>
+      <div className="grid gap-4 sm:grid-cols-3">
+        <TextField name="scheduledDate" label="Date" type="date" defaultValue={v.scheduledDate} />
+        <TextField name="scheduledTime" label="Time (24 h)" type="time" defaultValue={v.scheduledTime} />
+        <TextField
+          name="timeZone"
+          label="Time zone"
+          defaultValue={v.timeZone}
+          hint="Where the machine stands, e.g. Europe/Berlin."
+          spellCheck={false}
+        />
+      </div>
+      <Field name="conditionAsFound" label="Condition as found" hint="Printed on the report.">
+        <textarea className={`${inputClass} py-2`} rows={2} defaultValue={v.conditionAsFound} />
+      </Field>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField name="nextRecheckOn" label="Next re-check" type="date" defaultValue={v.nextRecheckOn} />
+      </div>
+      <Field name="notes" label="Notes for the installer">
+        <textarea className={`${inputClass} py-2`} rows={3} defaultValue={v.notes} />
+      </Field>
+    </Form>
+  );
+}
+
+/** Assign or change the installer; both the new and the previous installer are e-mailed. */
+export function AssignInstallerForm({
+  jobId,
+  current,
+  installers,
+}: {
+  jobId: string;
+  current: string | null;
+  installers: { id: string; name: string }[];
+}) {
+  return (
+    <Form
+      action={updateJobAction}
+      submitLabel={current ? "Change the installer" : "Assign"}
+      successMessage="Saved; the installer is e-mailed."
+      resetOnSuccess={false}
+      variant="secondary"
+      aria-label="Assign the installer"
+    >
+      <input type="hidden" name="jobId" value={jobId} />
+      <SelectField
+        name="assignedInstallerId"
+        label="Installer"
+        placeholder="Not assigned"
+        defaultValue={current ?? ""}
+        options={installers.map((i) => ({ value: i.id, label: i.name }))}
+      />
+    </Form>
+  );
+}
+
+/** Put on hold (reason optional), release, or cancel (reason required; final). */
+export function JobMoveControls({
+  jobId,
+  mayHold,
+  mayRelease,
+  mayCancel,
+}: {
+  jobId: string;
+  mayHold: boolean;
+  mayRelease: boolean;
+  mayCancel: boolean;
+}) {
+  const [open, setOpen] = useState<"hold" | "cancel" | null>(null);
+  return (
+    <div className="space-y-3">
+      <div className="flex flex-wrap gap-2">
+        {mayRelease ? (
+          <Form
+            action={moveJobAction}
+            submitLabel="Release from hold"
+            successMessage="Released."
+            aria-label="Release from hold"
+          >
+            <input type="hidden" name="jobId" value={jobId} />
+            <input type="hidden" name="action" value="release" />
+          </Form>
+        ) : null}
+        {mayHold ? (
+          <button
+            type="button"
+            className="min-h-touch rounded-md px-3 text-sm font-medium text-graphite-800 ring-1 ring-graphite-300"
+            aria-expanded={open === "hold"}
+            onClick={() => setOpen(open === "hold" ? null : "hold")}
+          >
+            Put on hold…
+          </button>
+        ) : null}
+        {mayCancel ? (
+          <button
+            type="button"
+            className="min-h-touch rounded-md px-3 text-sm font-medium text-fail-700 ring-1 ring-fail-600/40"
+            aria-expanded={open === "cancel"}
+            onClick={() => setOpen(open === "cancel" ? null : "cancel")}
+          >
+            Cancel the job…
+          </button>
+        ) : null}
+      </div>
+      {open === "hold" ? (
+        <Form
+          action={moveJobAction}
+          schema={jobMoveFormSchema}
+          submitLabel="Put on hold"
+          successMessage="On hold."
+          variant="secondary"
+          aria-label="Put on hold"
+        >
+          <input type="hidden" name="jobId" value={jobId} />
+          <input type="hidden" name="action" value="hold" />
+          <TextField name="reason" label="Why (optional)" placeholder="Crane out of service until …" />
+        </Form>
+      ) : null}
+      {open === "cancel" ? (
+        <Form
+          action={moveJobAction}
+          schema={jobMoveFormSchema}
+          submitLabel="Cancel the job"
+          successMessage="Cancelled."
+          variant="danger"
+          aria-label="Cancel the job"
+        >
+          <input type="hidden" name="jobId" value={jobId} />
+          <input type="hidden" name="action" value="cancel" />
+          <TextField
+            name="reason"
+            label="Reason (required)"
+            placeholder="Customer postponed the machine move"
+          />
+          <p className="text-sm text-graphite-600">
+            A cancelled job is kept and stays readable, with its readings; it takes no more changes.
+          </p>
+        </Form>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,80 @@
+/**
+ * What waits on whom: each role's queues on the jobs board ("to measure", "to inspect", …), as a
+ * pure predicate over one list row, so the board's tabs, their counts and GET /api/jobs?queue= all
+ * agree (unit-tested in tests/unit/jobs-office.test.ts).
+ */
+import type { JobStatus } from "@/lib/domain/jobs";
+import type { Actor, Role } from "@/lib/domain/roles";
+
+export const JOB_QUEUES = [
+  "to_schedule",
+  "to_measure",
+  "to_inspect",
+  "to_approve",
+  "to_issue",
+  "to_accept",
+] as const;
+export type JobQueue = (typeof JOB_QUEUES)[number];
+
+export const QUEUE_LABELS: Record<JobQueue, string> = {
+  to_schedule: "To schedule",
+  to_measure: "To measure",
+  to_inspect: "To inspect",
+  to_approve: "To approve",
+  to_issue: "To issue",
+  to_accept: "To accept",
+};
+
+const ROLE_QUEUES: Record<Role, readonly JobQueue[]> = {
+  admin: ["to_schedule"],
+  installer: ["to_measure"],
+  inspector: ["to_inspect"],
+  engineer: ["to_approve", "to_issue"],
+  customer: ["to_accept"],
+};
+
+/** The queues a role is shown, in order. */
+export function queuesFor(role: Role): readonly JobQueue[] {
+  return ROLE_QUEUES[role];
+}
+
+export interface QueueRow {
+  readonly status: JobStatus;
+  readonly assignedInstallerId: string | null;
+  readonly scheduledFor: Date | string | null;
+  readonly customerId: string;
+}
+
+/** Does this job wait on this actor in this queue? A queue not offered to the actor's role holds nothing. */
+export function inQueue(
+  queue: JobQueue,
+  actor: Pick<Actor, "id" | "role" | "customerId">,
+  row: QueueRow,
+): boolean {
+  if (!ROLE_QUEUES[actor.role].includes(queue)) return false;
+  switch (queue) {
+    case "to_schedule":
+      return row.status === "draft" && (row.assignedInstallerId === null || row.scheduledFor === null);
+    case "to_measure":
+      return (row.status === "draft" || row.status === "measuring") && row.assignedInstallerId === actor.id;
+    case "to_inspect":
+    case "to_approve":
+      return row.status === "in_review";
+    case "to_issue":
+      return row.status === "approved";
+    case "to_accept":
+      return row.status === "issued" && row.customerId === actor.customerId;
+  }
+}
+
+/** How many of these rows wait in each of the actor's queues. */
+export function queueCounts(
+  actor: Pick<Actor, "id" | "role" | "customerId">,
+  rows: readonly QueueRow[],
+): { queue: JobQueue; label: string; count: number }[] {
+  return queuesFor(actor.role).map((queue) => ({
+    queue,
+    label: QUEUE_LABELS[queue],
+    count: rows.filter((r) => inQueue(queue, actor, r)).length,
+  }));
+}
