@@ -8,6 +8,7 @@ import type { Actor } from "@/lib/domain/roles";
 import { isUuid } from "@/lib/domain/uuid";
 import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
 import { procedureEditRefusal, procedureRetireRefusal } from "@/lib/policy/procedures";
+import { procedureApplies } from "@/lib/policy/jobs";
 import { registerReadRefusal } from "@/lib/policy/registers";
 import {
   procedureRows,
@@ -35,8 +36,11 @@ async function insertSteps(tx: Tx, templateId: string, rows: ProcedureRows) {
   await tx.insert(templateSteps).values(rows.steps.map((s) => ({ ...s, templateId })));
 }
 
-/** Does a procedure with this name apply to this job kind and head model? (null = every one) */
-function appliesTo(
+/**
+ * The list filter of the API and the builder: a null filter value matches every procedure. Which
+ * procedures a new job may follow is the stricter rule procedureApplies (lib/policy/jobs.ts).
+ */
+function matchesFilter(
   t: { jobKinds: JobKind[] | null; headModel: string | null },
   jobKind: JobKind | null,
   headModel: string | null,
@@ -50,7 +54,7 @@ function appliesTo(
 /**
  * The procedures a new job may follow: the current version of every procedure that is not
  * retired and applies to the job kind and the head model (a procedure for every kind or every
- * model applies too). Procedures written for this head model come first. The caller has checked
+ * model applies too; one written for a model does not apply to a head whose model is not recorded). Procedures written for this head model come first. The caller has checked
  * that the actor may open a job.
  */
 export async function proceduresFor(jobKind: JobKind, headModel: string | null) {
@@ -62,12 +66,14 @@ export async function proceduresFor(jobKind: JobKind, headModel: string | null) 
       description: procedureTemplates.description,
       jobKinds: procedureTemplates.jobKinds,
       headModel: procedureTemplates.headModel,
+      isCurrent: procedureTemplates.isCurrent,
+      retiredAt: procedureTemplates.retiredAt,
     })
     .from(procedureTemplates)
     .where(and(eq(procedureTemplates.isCurrent, true), isNull(procedureTemplates.retiredAt)))
     .orderBy(asc(procedureTemplates.name));
   return rows
-    .filter((t) => appliesTo(t, jobKind, headModel))
+    .filter((t) => procedureApplies(t, jobKind, headModel))
     .sort((a, b) => Number(Boolean(b.headModel)) - Number(Boolean(a.headModel)));
 }
 
@@ -85,7 +91,7 @@ export async function listProcedures(
     .select()
     .from(procedureTemplates)
     .orderBy(asc(procedureTemplates.name), desc(procedureTemplates.version));
-  const chosen = ts.filter((t) => appliesTo(t, filter.jobKind ?? null, filter.headModel ?? null));
+  const chosen = ts.filter((t) => matchesFilter(t, filter.jobKind ?? null, filter.headModel ?? null));
   const ids = chosen.map((t) => t.id);
   if (ids.length === 0) return [];
   const [steps, limits, used] = await Promise.all([

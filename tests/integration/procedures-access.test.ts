@@ -268,6 +268,9 @@ describe("versions", () => {
     expect(await names("installation", "hx-77")).toContain(name);
     expect(await names("installation", "HX-77")).toContain("Starter: install a two-axis head");
     expect(await names("installation", "Other")).not.toContain(name);
+    // A procedure written for one model is not offered for a head whose model is not recorded.
+    expect(await names("installation", null)).not.toContain(name);
+    expect(await names("installation", null)).toContain("Starter: install a two-axis head");
     expect(await names("after_crash", "HX-77")).not.toContain(name);
     // The head model's own procedure comes first.
     expect((await names("installation", "HX-77"))[0]).toBe(name);
