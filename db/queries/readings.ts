@@ -8,14 +8,9 @@ import { instruments, jobs, procedureTemplates, readings, templateSteps, users }
 import type { Reading, TemplateStep } from "@/db/schema";
 import { type Actor } from "@/lib/domain/roles";
 import { readingsRefusal } from "@/lib/policy/readings";
-import {
-  calibrationRefusal,
-  deriveReading,
-  expandedUncertainty,
-  judge,
-  type StepDecision,
-} from "@/lib/checklist";
+import { calibrationRefusal, expandedUncertainty, judge, type StepDecision } from "@/lib/checklist";
 import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
+import { needsInstrument, rangeProblem, stepEntry } from "@/lib/step-kinds";
 import { CANONICAL_UNIT, toCanonical } from "@/lib/units";
 import type { ReadingCreateInput } from "@/lib/validations/readings";
 
@@ -110,6 +105,13 @@ export async function getChecklist(actor: Actor, jobId: string) {
   };
 }
 
+/** The unit `value` is in: canonical for readings, the step's own for a record, none for answers and notes. */
+function readingUnit(step: TemplateStep): string | null {
+  if (step.derivation === "record") return step.recordUnit;
+  if (step.derivation === "check" || step.derivation === "note") return null;
+  return CANONICAL_UNIT[step.quantityKind];
+}
+
 /** The API's JSON form of a reading: canonical value with its unit, what was entered, and the decision. */
 function readingJson(r: ReadingRow, step: TemplateStep | undefined) {
   const U = step ? expandedUncertainty(step, r.instrumentStdU) : 0;
@@ -118,10 +120,12 @@ function readingJson(r: ReadingRow, step: TemplateStep | undefined) {
     stepId: r.stepId,
     step: step ? { position: step.position, title: step.title } : null,
     phase: r.phase,
+    kind: step?.derivation ?? null,
     value: r.value,
-    unit: step ? CANONICAL_UNIT[step.quantityKind] : null,
+    unit: step ? readingUnit(step) : null,
     entered: { value: r.enteredValue, unit: r.enteredUnit },
     inputs: r.inputs,
+    textValue: r.textValue,
     expandedUncertainty: U,
     decision: step ? judge(step, r.value, U) : "not_measured",
     instrument: r.instrumentId
@@ -213,26 +217,48 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
     throw invalid("The device's clock is ahead of the server's; set the tablet's date and time.", [
       { field: "deviceTime", message: "The device time is in the future." },
     ]);
-  const [inst] = await db.select().from(instruments).where(eq(instruments.id, input.instrumentId));
-  if (!inst)
+  // What this kind of step takes (a yes/no, the points, a note…), checked before the instrument.
+  const entry = stepEntry(step, {
+    value: input.value ?? null,
+    unit: input.unit,
+    travelMm: input.travel != null ? toCanonical(input.travel, input.travelUnit ?? "mm") : null,
+    answer: input.answer ?? null,
+    points: input.points ?? null,
+    text: input.text ?? null,
+  });
+  if (!entry.ok) throw invalid(entry.problems[0]!.message, [...entry.problems]);
+  const derived = entry.stored;
+
+  if (!input.instrumentId && needsInstrument(step.derivation))
+    throw invalid("Choose the instrument used from the register.", [
+      { field: "instrumentId", message: "Choose the instrument used from the register." },
+    ]);
+  const [inst] = input.instrumentId
+    ? await db.select().from(instruments).where(eq(instruments.id, input.instrumentId))
+    : [];
+  if (input.instrumentId && !inst)
     throw invalid("That instrument is not in the register.", [
       { field: "instrumentId", message: "Choose an instrument from the register." },
     ]);
-  const calib = calibrationRefusal(inst, takenAt);
-  if (calib) throw invalid(calib, [{ field: "instrumentId", message: calib }]);
+  if (inst) {
+    const calib = calibrationRefusal(inst, takenAt);
+    if (calib) throw invalid(calib, [{ field: "instrumentId", message: calib }]);
+  }
   const readsKind = step.derivation === "angle_over_distance" ? "length" : step.quantityKind;
-  if (inst.quantityKind !== readsKind) {
+  if (inst && needsInstrument(step.derivation) && inst.quantityKind !== readsKind) {
     const m = `Instrument ${inst.serial} measures ${inst.quantityKind === "angle" ? "angles" : "lengths"}; this step needs one that measures ${readsKind === "angle" ? "angles" : "lengths"}.`;
     throw invalid(m, [{ field: "instrumentId", message: m }]);
   }
-
-  let derived;
-  try {
-    const travelMm = input.travel != null ? toCanonical(input.travel, input.travelUnit ?? "mm") : null;
-    derived = deriveReading(step, { value: input.value, unit: input.unit, travelMm });
-  } catch (err) {
-    const m = err instanceof Error ? err.message : "The value cannot be used.";
-    throw invalid(m, [{ field: "value", message: m }]);
+  if (inst) {
+    const outside = rangeProblem(
+      inst,
+      derived.instrumentReadings,
+      step.derivation === "multi_point" ? step.points : null,
+    );
+    if (outside)
+      throw invalid(outside.message, [
+        { field: outside.point ? `points.${outside.point}` : "value", message: outside.message },
+      ]);
   }
 
   return db.transaction(async (tx) => {
@@ -303,10 +329,11 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
         stepId: step.id,
         phase: input.phase,
         value: derived.value,
-        enteredValue: input.value,
-        enteredUnit: input.unit,
+        enteredValue: derived.enteredValue,
+        enteredUnit: derived.enteredUnit,
         inputs: derived.inputs,
-        instrumentId: inst.id,
+        textValue: derived.textValue,
+        instrumentId: inst?.id ?? null,
         note: input.note ?? null,
         takenAt,
         recordedById: actor.id,
@@ -355,10 +382,12 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
         step: step.position,
         phase: row!.phase,
         value: row!.value,
-        unit: CANONICAL_UNIT[step.quantityKind],
+        unit: readingUnit(step),
         enteredValue: row!.enteredValue,
         enteredUnit: row!.enteredUnit,
-        instrument: inst.serial,
+        ...(row!.textValue != null ? { textValue: row!.textValue } : {}),
+        ...(row!.inputs != null ? { inputs: row!.inputs } : {}),
+        instrument: inst?.serial ?? null,
         note: row!.note,
         clientId: row!.clientId,
         deviceTime: deviceTime.toISOString(),
@@ -369,9 +398,9 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
     const reading = readingJson(
       {
         ...row!,
-        instrumentSerial: inst.serial,
-        instrumentKind: inst.kind,
-        instrumentStdU: inst.standardUncertainty,
+        instrumentSerial: inst?.serial ?? null,
+        instrumentKind: inst?.kind ?? null,
+        instrumentStdU: inst?.standardUncertainty ?? null,
         recordedByName: actor.name,
       },
       step,
