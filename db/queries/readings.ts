@@ -76,6 +76,8 @@ export async function listUsableInstruments() {
       retired: instruments.retired,
       resolution: instruments.resolution,
       standardUncertainty: instruments.standardUncertainty,
+      rangeMin: instruments.rangeMin,
+      rangeMax: instruments.rangeMax,
     })
     .from(instruments)
     .where(eq(instruments.retired, false))

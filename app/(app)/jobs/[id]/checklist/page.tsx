@@ -16,7 +16,8 @@ import { STATUS_LABELS, type JobStatus } from "@/lib/domain/jobs";
 import { allowedTransitions } from "@/lib/policy/jobs";
 import { requirePageUser } from "@/lib/auth/session";
 import { cautionOf, expandedUncertainty, judge } from "@/lib/checklist";
-import { formatLimits, formatValue } from "@/lib/units";
+import { shownValue } from "@/lib/step-kinds";
+import { formatLimits } from "@/lib/units";
 
 export const metadata: Metadata = { title: "Checklist" };
 
@@ -48,7 +49,7 @@ export default async function ChecklistPage({ params }: Props) {
       stepId: s.id,
       title: s.title,
       decision: final ? judge(s, final.value, expandedUncertainty(s, final.instrumentStdU)) : "not_measured",
-      value: final ? formatValue(final.value, s.quantityKind, unitSystem) : null,
+      value: final ? shownValue(s, final, unitSystem) : null,
       by: final?.recordedByName ?? null,
       at: final ? final.takenAt.toISOString() : null,
     };
@@ -145,6 +146,10 @@ export default async function ChecklistPage({ params }: Props) {
                       lowerLimit: s.lowerLimit,
                       upperLimit: s.upperLimit,
                       decisionRule: s.decisionRule,
+                      points: s.points,
+                      pointResult: s.pointResult,
+                      recordUnit: s.recordUnit,
+                      photoRequired: s.photoRequired,
                     }}
                     readings={mine.map((r) => ({
                       id: r.id,
@@ -152,6 +157,8 @@ export default async function ChecklistPage({ params }: Props) {
                       value: r.value,
                       enteredValue: r.enteredValue,
                       enteredUnit: r.enteredUnit,
+                      inputs: r.inputs,
+                      textValue: r.textValue,
                       decision: judge(s, r.value, expandedUncertainty(s, r.instrumentStdU)),
                       instrumentId: r.instrumentId,
                       instrumentSerial: r.instrumentSerial,
@@ -169,6 +176,8 @@ export default async function ChecklistPage({ params }: Props) {
                       calibrationDueOn: i.calibrationDueOn,
                       standardUncertainty: i.standardUncertainty,
                       resolution: i.resolution,
+                      rangeMin: i.rangeMin,
+                      rangeMax: i.rangeMax,
                     }))}
                     canWrite={canWrite}
                     today={today}
