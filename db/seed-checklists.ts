@@ -245,9 +245,6 @@ export const DEMO_INSTRUMENTS: ReadonlyArray<typeof instruments.$inferInsert> = 
     quantityKind: "length",
     resolution: 0.0001 * IN,
     standardUncertainty: 0.0012,
-    // A test indicator reads ±0.015 in either side of its zero (invented demo figure).
-    rangeMin: -0.015 * IN,
-    rangeMax: 0.015 * IN,
     calibratedOn: "2026-06-15",
     calibrationDueOn: "2027-06-15",
     certificateRef: "CAL-26-0612 (invented)",
@@ -260,6 +257,9 @@ export const DEMO_INSTRUMENTS: ReadonlyArray<typeof instruments.$inferInsert> = 
     quantityKind: "length",
     resolution: 0.001,
     standardUncertainty: 0.0015,
+    // Its display reads ±12.7 mm about the zero set (invented demo figure).
+    rangeMin: -12.7,
+    rangeMax: 12.7,
     calibratedOn: "2026-03-31",
     calibrationDueOn: "2027-03-31",
     certificateRef: "CAL-26-0331 (invented)",

@@ -71,6 +71,10 @@ const COVERED = new Set([
   "app/api/users/route.ts",
   "app/api/procedures/route.ts",
   "app/api/procedures/[id]/route.ts",
+  // tests/integration/photos.test.ts
+  "app/api/jobs/[id]/photos/route.ts",
+  "app/api/photos/[id]/route.ts",
+  "app/api/photos/[id]/thumb/route.ts",
   // public, static: the load benchmark's ceiling
   "app/api/ping/route.ts",
 ]);
