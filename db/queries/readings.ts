@@ -415,6 +415,8 @@ export interface ComparisonRow {
   stepId: string;
   position: number;
   title: string;
+  derivation: TemplateStep["derivation"];
+  photoRequired: boolean;
   quantity: string;
   quantityKind: "length" | "angle";
   unit: "mm" | "arcsec";
@@ -486,6 +488,8 @@ export async function getComparison(actor: Actor, jobId: string) {
       stepId: s.id,
       position: s.position,
       title: s.title,
+      derivation: s.derivation,
+      photoRequired: s.photoRequired,
       quantity: s.quantity,
       quantityKind: s.quantityKind,
       unit: CANONICAL_UNIT[s.quantityKind],

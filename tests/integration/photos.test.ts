@@ -8,6 +8,7 @@ import { GET as listRoute, POST as uploadRoute } from "@/app/api/jobs/[id]/photo
 import { GET as imageRoute } from "@/app/api/photos/[id]/route";
 import { GET as thumbRoute } from "@/app/api/photos/[id]/thumb/route";
 import { POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
+import { GET as readinessRoute } from "@/app/api/jobs/[id]/readiness/route";
 import { db } from "@/db";
 import { auditEvents, jobs, photos, templateSteps, users } from "@/db/schema";
 import { jobIdByReference, request, signInAs } from "./helpers";
@@ -150,6 +151,38 @@ describe("adding a photo", () => {
     expect((await noFile.json()).error.issues[0].field).toBe("file");
     const wrongReading = await upload(jobId, png, { stepId, phase: "pre", readingId: crypto.randomUUID() });
     expect((await wrongReading.json()).error.issues[0].field).toBe("readingId");
+  });
+});
+
+describe("a step that asks for a photo", () => {
+  it("blocks the report until the step has a photo", async () => {
+    await signInAs("installer@halvard.example");
+    const [collar] = await db
+      .select()
+      .from(templateSteps)
+      .where(
+        eq(
+          templateSteps.templateId,
+          (await db.select().from(jobs).where(eq(jobs.id, jobId)))[0]!.templateId!,
+        ),
+      );
+    const steps = await db
+      .select()
+      .from(templateSteps)
+      .where(eq(templateSteps.templateId, collar!.templateId));
+    const needs = steps.filter((s) => s.photoRequired).sort((a, b) => a.position - b.position);
+    expect(needs.map((s) => s.position)).toEqual([2, 4]);
+    const blockers = async () => {
+      await signInAs("engineer@halvard.example");
+      const res = await readinessRoute(request(`/api/jobs/${jobId}/readiness`), p(jobId));
+      return ((await res.json()).blockers as { code: string; message: string }[])
+        .filter((b) => b.code === "photo_missing")
+        .map((b) => b.message.slice(0, 7));
+    };
+    expect(await blockers()).toEqual(["Step 2 ", "Step 4 "]);
+    await signInAs("installer@halvard.example");
+    expect((await upload(jobId, png, { stepId: needs[0]!.id, phase: "pre" })).status).toBe(201);
+    expect(await blockers()).toEqual(["Step 4 "]);
   });
 });
 
