@@ -186,7 +186,7 @@ export function ReadingsTable({
               </td>
               {canWrite ? (
                 <td className="space-x-1 whitespace-nowrap py-1 text-right">
-                  {q.state === "refused" ? (
+                  {q.photo ? null : q.state === "refused" ? (
                     <button type="button" className={btn} onClick={() => onEdit(q)}>
                       Edit
                     </button>

@@ -8,6 +8,7 @@ import {
   type CorrectionTarget,
   type PanelReading,
 } from "@/components/checklist/readings-table";
+import { StepPhotos, type PanelPhoto } from "@/components/checklist/step-photos";
 import { useReadingQueue } from "@/components/readings/queue-provider";
 import {
   DECISION_LABELS,
@@ -58,6 +59,7 @@ export function StepPanel({
   jobId,
   step,
   readings,
+  photos,
   unitSystem,
   instruments,
   canWrite,
@@ -66,6 +68,7 @@ export function StepPanel({
   jobId: string;
   step: PanelStep;
   readings: PanelReading[];
+  photos: PanelPhoto[];
   unitSystem: UnitSystem;
   instruments: PanelInstrument[];
   canWrite: boolean;
@@ -251,6 +254,16 @@ export function StepPanel({
     setSaved(null);
   };
 
+  // A new photo shows the step's latest reading: one still on this tablet, else the latest stored.
+  const lastQueued = [...queued].reverse().find((q) => !q.photo);
+  const lastStored = [...readings].reverse().find((r) => !r.supersededById);
+  const attachTo = lastQueued
+    ? { readingClientId: lastQueued.clientId }
+    : lastStored
+      ? { readingId: lastStored.id }
+      : null;
+  const photoPhase = lastQueued?.body.phase ?? lastStored?.phase ?? form.getValues("phase");
+
   return (
     <div className="space-y-4">
       <ReadingsTable
@@ -270,6 +283,16 @@ export function StepPanel({
           if (window.confirm(`Discard the reading ${q.shown.value}? It has not reached the server.`))
             void queue.discard(q.clientId);
         }}
+      />
+      <StepPhotos
+        jobId={jobId}
+        stepId={step.id}
+        position={step.position}
+        photos={photos}
+        required={step.photoRequired}
+        canWrite={canWrite}
+        phase={photoPhase}
+        attachTo={attachTo}
       />
       {canWrite ? (
         <EntryForm

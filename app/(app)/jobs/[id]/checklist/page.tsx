@@ -10,6 +10,7 @@ import { LIMIT_SOURCE_LABELS } from "@/components/readings/decision-badge";
 import { KeepJobOffline } from "@/components/readings/keep-offline";
 import { ReadingQueueProvider } from "@/components/readings/queue-provider";
 import { QueueStatus } from "@/components/readings/queue-status";
+import { listPhotos } from "@/db/queries/photos";
 import { getChecklist } from "@/db/queries/readings";
 import { getUnitSystem } from "@/db/queries/user-prefs";
 import { STATUS_LABELS, type JobStatus } from "@/lib/domain/jobs";
@@ -30,7 +31,11 @@ const MOVE_LABELS: Partial<Record<JobStatus, string>> = {
 export default async function ChecklistPage({ params }: Props) {
   const { id } = await params;
   const user = await requirePageUser(`/jobs/${id}/checklist`);
-  const [c, unitSystem] = await Promise.all([getChecklist(user, id), getUnitSystem(user)]);
+  const [c, unitSystem, photos] = await Promise.all([
+    getChecklist(user, id),
+    getUnitSystem(user),
+    listPhotos(user, id),
+  ]);
   if (!c) notFound();
   const { detail, template, steps, readings, instruments, refusal } = c;
   const canWrite = refusal === null;
@@ -167,6 +172,7 @@ export default async function ChecklistPage({ params }: Props) {
                       recordedByName: r.recordedByName,
                       supersededById: r.supersededById,
                     }))}
+                    photos={photos.filter((p) => p.stepId === s.id)}
                     unitSystem={unitSystem}
                     instruments={instruments.map((i) => ({
                       id: i.id,
