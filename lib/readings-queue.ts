@@ -19,6 +19,8 @@ export interface QueuedReading {
   shown: { value: string; instrument: string; takenAt: string; note: string | null; correcting: boolean };
   /** A photo of the step (body: stepId, phase, clientId, takenAt, readingId or readingClientId). */
   photo?: Blob;
+  /** Where it is sent when it is not a reading: the temperature records (body without a step). */
+  endpoint?: "environment";
   state: "waiting" | "refused";
   reason: string | null;
   attempts: number;
@@ -74,7 +76,7 @@ export async function sendQueued(item: QueuedReading): Promise<SendOutcome> {
           credentials: "same-origin",
           cache: "no-store",
         })
-      : await fetch(`/api/jobs/${item.jobId}/readings`, {
+      : await fetch(`/api/jobs/${item.jobId}/${item.endpoint ?? "readings"}`, {
           method: "POST",
           headers: { "content-type": "application/json" },
           body: JSON.stringify(item.body),

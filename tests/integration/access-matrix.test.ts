@@ -71,6 +71,8 @@ const COVERED = new Set([
   "app/api/users/route.ts",
   "app/api/procedures/route.ts",
   "app/api/procedures/[id]/route.ts",
+  // tests/integration/environment.test.ts
+  "app/api/jobs/[id]/environment/route.ts",
   // tests/integration/photos.test.ts
   "app/api/jobs/[id]/photos/route.ts",
   "app/api/photos/[id]/route.ts",

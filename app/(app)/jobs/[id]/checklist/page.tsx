@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { StatusButtons, UnitToggle } from "@/components/checklist/job-actions";
+import { EnvironmentPanel } from "@/components/checklist/environment-form";
 import { StepCaution } from "@/components/checklist/step-caution";
 import { StepPanel } from "@/components/checklist/step-panel";
 import { StepAccordion, StepJumpList, StepShell, type StepLine } from "@/components/checklist/step-shell";
@@ -10,6 +11,7 @@ import { LIMIT_SOURCE_LABELS } from "@/components/readings/decision-badge";
 import { KeepJobOffline } from "@/components/readings/keep-offline";
 import { ReadingQueueProvider } from "@/components/readings/queue-provider";
 import { QueueStatus } from "@/components/readings/queue-status";
+import { listEnvironment } from "@/db/queries/environment";
 import { listPhotos } from "@/db/queries/photos";
 import { getChecklist } from "@/db/queries/readings";
 import { getUnitSystem } from "@/db/queries/user-prefs";
@@ -31,10 +33,11 @@ const MOVE_LABELS: Partial<Record<JobStatus, string>> = {
 export default async function ChecklistPage({ params }: Props) {
   const { id } = await params;
   const user = await requirePageUser(`/jobs/${id}/checklist`);
-  const [c, unitSystem, photos] = await Promise.all([
+  const [c, unitSystem, photos, environment] = await Promise.all([
     getChecklist(user, id),
     getUnitSystem(user),
     listPhotos(user, id),
+    listEnvironment(user, id),
   ]);
   if (!c) notFound();
   const { detail, template, steps, readings, instruments, refusal } = c;
@@ -110,6 +113,7 @@ export default async function ChecklistPage({ params }: Props) {
               {refusal} Job status: {STATUS_LABELS[detail.job.status]}.
             </p>
           ) : null}
+          <EnvironmentPanel jobId={id} records={environment ?? []} canWrite={canWrite} />
           <StepJumpList lines={lines} />
           <ol className="space-y-3">
             {rows.map(({ s, mine, line }) => (
