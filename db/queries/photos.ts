@@ -236,3 +236,21 @@ export async function getPhotoBytes(actor: Actor, photoId: string, which: "image
   if (!data) throw new AppError(500, "missing_object", "The stored photo is missing.");
   return { photo: row.p, data };
 }
+
+/** The job's photos for its report (the caller has checked the job's access). */
+export async function jobPhotosForReport(jobId: string) {
+  return db
+    .select({
+      stepId: photos.stepId,
+      phase: photos.phase,
+      takenAt: photos.takenAt,
+      uploadedBy: users.name,
+      width: photos.width,
+      height: photos.height,
+      sha256: photos.sha256,
+    })
+    .from(photos)
+    .leftJoin(users, eq(users.id, photos.uploadedById))
+    .where(eq(photos.jobId, jobId))
+    .orderBy(asc(photos.takenAt));
+}

@@ -400,6 +400,8 @@ export interface ReportInputs {
   template: { name: string; version: number } | null;
   instruments: ReportData["instruments"];
   readings: ReturnType<typeof readingSection>;
+  /** The appendix of photos (sections/photos.tsx); absent or empty when no step asks for one. */
+  photos?: ReportData["photos"];
   parameters: ReturnType<typeof parameterSection> | null;
   testPart: ReportData["testPart"];
   figures: ReportData["figures"];
@@ -467,6 +469,7 @@ export function buildReportContent(i: ReportInputs): ReportData {
     conformity: reportConformity(i, d.job.decisionRule),
     deviations: deviationRows(i.deviations),
     remarks: [...(i.parameters ? [i.parameters.note] : []), ...(d.job.notes ? [d.job.notes] : [])],
+    ...(i.photos?.length ? { photos: i.photos } : {}),
     safety: [...SAFETY_NOTES],
     signatures: meta.draft || !meta.approval ? [] : [...i.signatures, meta.approval],
     verifyUrl: i.verifyUrl,
