@@ -16,8 +16,9 @@ export interface PanelEnvironment {
   recordedBy: string | null;
 }
 
-const inputCls =
-  "min-h-touch w-full rounded-md border border-graphite-300 bg-white px-3 text-right text-base focus:border-accent-500 focus:outline-none focus:ring-2 focus:ring-accent-500/40";
+const fieldCls =
+  "min-h-touch w-full rounded-md border border-graphite-300 bg-white px-3 text-base focus:border-accent-500 focus:outline-none focus:ring-2 focus:ring-accent-500/40";
+const inputCls = `${fieldCls} text-right`;
 const deg = (t: number | null) => (t == null ? "—" : `${t.toFixed(1)} °C`);
 
 /**
@@ -100,7 +101,7 @@ export function EnvironmentPanel({
         </p>
       </div>
       {canWrite ? (
-        <form onSubmit={save} className="mt-3 grid grid-cols-2 items-end gap-3 sm:grid-cols-4" noValidate>
+        <form onSubmit={save} className="mt-3 grid grid-cols-2 items-end gap-3 lg:grid-cols-4" noValidate>
           <label className="text-sm font-medium text-graphite-700">
             Air (°C)
             <input
@@ -124,7 +125,7 @@ export function EnvironmentPanel({
           <label className="text-sm font-medium text-graphite-700">
             Phase
             <select
-              className={`${inputCls} mt-1 text-left`}
+              className={`${fieldCls} mt-1`}
               value={phase}
               onChange={(e) => setPhase(e.target.value as "pre" | "post")}
             >
