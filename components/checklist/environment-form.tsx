@@ -97,7 +97,9 @@ export function EnvironmentPanel({
           ) : (
             "None recorded yet. Readings are best taken once the machine and the air have settled."
           )}
-          {waiting.length ? ` · ${waiting.length} waiting to send` : ""}
+          {waiting.some((q) => q.state === "waiting")
+            ? ` · ${waiting.filter((q) => q.state === "waiting").length} waiting to send`
+            : ""}
         </p>
       </div>
       {canWrite ? (
@@ -140,6 +142,24 @@ export function EnvironmentPanel({
             Save temperatures
           </button>
         </form>
+      ) : null}
+      {waiting.some((q) => q.state === "refused") ? (
+        <ul className="mt-2 space-y-1 text-sm">
+          {waiting
+            .filter((q) => q.state === "refused")
+            .map((q) => (
+              <li key={q.clientId} className="flex flex-wrap items-center gap-2 text-fail-700" role="alert">
+                Refused: {q.shown.value}. {q.reason}
+                <button
+                  type="button"
+                  className="min-h-touch rounded-md border border-graphite-300 bg-white px-3 font-medium text-graphite-800"
+                  onClick={() => void queue.discard(q.clientId)}
+                >
+                  Discard
+                </button>
+              </li>
+            ))}
+        </ul>
       ) : null}
       {message ? (
         <p
