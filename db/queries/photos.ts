@@ -4,7 +4,8 @@ import { and, asc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { getJobDetail, jobAccessCondition } from "@/db/queries/jobs";
-import { jobs, photos, readings, templateSteps, users, type Photo } from "@/db/schema";
+import { stepOfJob } from "@/db/queries/readings";
+import { jobs, photos, readings, users, type Photo } from "@/db/schema";
 import { PHASES } from "@/lib/domain/datasets";
 import type { Actor } from "@/lib/domain/roles";
 import { isUuid } from "@/lib/domain/uuid";
@@ -114,16 +115,7 @@ export async function addPhoto(
   }
   const refusal = readingsRefusal(actor, d.job);
   if (refusal) throw forbidden(refusal);
-  const [step] = d.job.templateId
-    ? await db
-        .select()
-        .from(templateSteps)
-        .where(and(eq(templateSteps.id, form.stepId), eq(templateSteps.templateId, d.job.templateId)))
-    : [];
-  if (!step)
-    throw invalid("That step is not part of this job's checklist.", [
-      { field: "stepId", message: "Not a step of this job's procedure." },
-    ]);
+  const step = await stepOfJob(d.job.templateId, form.stepId);
   let readingId: string | null = null;
   if (form.readingId || form.readingClientId) {
     const [r] = await db

@@ -180,6 +180,21 @@ async function storedByClientId(
   return readingJson({ ...r, ...names }, step);
 }
 
+/** A step of the job's procedure, or a 422 naming stepId (a step of another procedure is not this job's). */
+export async function stepOfJob(templateId: string | null, stepId: string): Promise<TemplateStep> {
+  const [step] = templateId
+    ? await db
+        .select()
+        .from(templateSteps)
+        .where(and(eq(templateSteps.id, stepId), eq(templateSteps.templateId, templateId)))
+    : [];
+  if (!step)
+    throw invalid("That step is not part of this job's checklist.", [
+      { field: "stepId", message: "Not a step of this job's procedure." },
+    ]);
+  return step;
+}
+
 /** The time that orders readings of one step and phase: the device's clock, else when it was stored. */
 const orderKey = (r: Pick<Reading, "deviceTime" | "createdAt">) => (r.deviceTime ?? r.createdAt).getTime();
 
@@ -198,16 +213,7 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
   if (replayed) return { ...replayed, replay: true };
   const refusal = readingsRefusal(actor, d.job);
   if (refusal) throw forbidden(refusal);
-  const [step] = d.job.templateId
-    ? await db
-        .select()
-        .from(templateSteps)
-        .where(and(eq(templateSteps.id, input.stepId), eq(templateSteps.templateId, d.job.templateId)))
-    : [];
-  if (!step)
-    throw invalid("That step is not part of this job's checklist.", [
-      { field: "stepId", message: "Not a step of this job's procedure." },
-    ]);
+  const step = await stepOfJob(d.job.templateId, input.stepId);
 
   const takenAt = input.takenAt ?? new Date();
   const deviceTime = input.deviceTime ?? new Date();

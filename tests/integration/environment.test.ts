@@ -5,8 +5,9 @@ import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET as listRoute, POST as postRoute } from "@/app/api/jobs/[id]/environment/route";
 import { db } from "@/db";
-import { auditEvents, environmentRecords, jobs, users } from "@/db/schema";
-import { jobIdByReference, request, signInAs } from "./helpers";
+import { auditEvents, environmentRecords } from "@/db/schema";
+import { request, signInAs } from "./helpers";
+import { jobLike } from "./tablet-helpers";
 
 let jobId: string; // measuring, Marlow Creek, the demo installer assigned
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
@@ -24,26 +25,7 @@ async function post(body: Record<string, unknown>, id = jobId) {
 }
 
 beforeAll(async () => {
-  const [base] = await db
-    .select()
-    .from(jobs)
-    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
-  const [installer] = await db.select().from(users).where(eq(users.email, "installer@halvard.example"));
-  const [row] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-ENV-${Date.now().toString(36)}`,
-      title: "Environment test job",
-      kind: "reverification",
-      status: "measuring",
-      customerId: base!.customerId,
-      machineId: base!.machineId,
-      headId: base!.headId,
-      assignedInstallerId: installer!.id,
-      templateId: base!.templateId,
-    })
-    .returning();
-  jobId = row!.id;
+  jobId = (await jobLike("TR-2026-0052", "measuring", "TR-ENV")).id;
 });
 
 describe("temperatures at the machine", () => {

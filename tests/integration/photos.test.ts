@@ -10,8 +10,9 @@ import { GET as thumbRoute } from "@/app/api/photos/[id]/thumb/route";
 import { POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
 import { GET as readinessRoute } from "@/app/api/jobs/[id]/readiness/route";
 import { db } from "@/db";
-import { auditEvents, jobs, photos, templateSteps, users } from "@/db/schema";
+import { auditEvents, jobs, photos, templateSteps } from "@/db/schema";
 import { jobIdByReference, request, signInAs } from "./helpers";
+import { jobLike } from "./tablet-helpers";
 
 let jobId: string; // measuring, Marlow Creek, the demo installer assigned
 let issuedJobId: string; // TR-2026-0041, issued, Marlow Creek
@@ -31,27 +32,8 @@ const upload = (id: string, file: Buffer | null, fields: Record<string, string>,
   uploadRoute(photoRequest(id, file, fields, type), p(id));
 
 async function newJob(templateRef: string, status: "measuring" | "issued") {
-  const [base] = await db
-    .select()
-    .from(jobs)
-    .where(eq(jobs.id, await jobIdByReference(templateRef)));
-  const [installer] = await db.select().from(users).where(eq(users.email, "installer@halvard.example"));
-  const [row] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-PHO-${status}-${Date.now().toString(36)}`,
-      title: "Photo test job",
-      kind: "after_crash",
-      status,
-      customerId: base!.customerId,
-      machineId: base!.machineId,
-      headId: base!.headId,
-      assignedInstallerId: installer!.id,
-      templateId: base!.templateId,
-    })
-    .returning();
-  const [s] = await db.select().from(templateSteps).where(eq(templateSteps.templateId, base!.templateId!));
-  return { id: row!.id, stepId: s!.id };
+  const job = await jobLike(templateRef, status, "TR-PHO");
+  return { id: job.id, stepId: job.steps[1]! };
 }
 
 beforeAll(async () => {

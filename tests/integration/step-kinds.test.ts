@@ -5,8 +5,9 @@ import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as readingsPost, GET as readingsGet } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
-import { auditEvents, instruments, jobs, readings, templateSteps, users } from "@/db/schema";
-import { jobIdByReference, request, signInAs } from "./helpers";
+import { auditEvents, instruments, readings } from "@/db/schema";
+import { request, signInAs } from "./helpers";
+import { jobLike } from "./tablet-helpers";
 
 let jobId: string;
 const step: Record<number, string> = {};
@@ -26,31 +27,9 @@ async function post(body: Record<string, unknown>) {
 }
 
 beforeAll(async () => {
-  const [base] = await db
-    .select()
-    .from(jobs)
-    .where(eq(jobs.id, await jobIdByReference("TR-2026-0057")));
-  const [installer] = await db.select().from(users).where(eq(users.email, "installer@halvard.example"));
-  const [row] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-KND-${Date.now().toString(36)}`,
-      title: "Step kinds test job",
-      kind: "after_crash",
-      status: "measuring",
-      customerId: base!.customerId,
-      machineId: base!.machineId,
-      headId: base!.headId,
-      assignedInstallerId: installer!.id,
-      templateId: base!.templateId,
-    })
-    .returning();
-  jobId = row!.id;
-  for (const s of await db
-    .select()
-    .from(templateSteps)
-    .where(eq(templateSteps.templateId, base!.templateId!)))
-    step[s.position] = s.id;
+  const job = await jobLike("TR-2026-0057", "measuring", "TR-KND");
+  jobId = job.id;
+  Object.assign(step, job.steps);
   dti = (await db.select().from(instruments).where(eq(instruments.serial, "DTI-0112")))[0]!.id;
   // An indicator of our own with a narrow range (±0.05 mm), so the range refusal is shown.
   const [n] = await db
