@@ -60,6 +60,8 @@ export type EntryOutcome =
 /** Kinds read with an instrument from the register (the others are answers, records and notes). */
 export const INSTRUMENT_KINDS: readonly StepKind[] = ["direct", "angle_over_distance", "multi_point"];
 export const needsInstrument = (kind: StepKind) => INSTRUMENT_KINDS.includes(kind);
+/** Kinds whose value is not a length or an angle (no change, no chart, no unit conversion). */
+export const TEXT_KINDS: readonly StepKind[] = ["check", "record", "note"];
 
 export const MULTI_POINT_SHORT: Record<MultiPointResult, string> = {
   tir: "TIR",

@@ -10,7 +10,14 @@ import { type Actor } from "@/lib/domain/roles";
 import { readingsRefusal } from "@/lib/policy/readings";
 import { calibrationRefusal, expandedUncertainty, judge, type StepDecision } from "@/lib/checklist";
 import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
-import { needsInstrument, rangeProblem, stepEntry } from "@/lib/step-kinds";
+import {
+  needsInstrument,
+  rangeProblem,
+  stepEntry,
+  TEXT_KINDS,
+  type KindStep,
+  type ShownReading,
+} from "@/lib/step-kinds";
 import { CANONICAL_UNIT, toCanonical } from "@/lib/units";
 import type { ReadingCreateInput } from "@/lib/validations/readings";
 
@@ -417,12 +424,25 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
   });
 }
 
+export interface ComparedReading {
+  value: number;
+  U: number;
+  decision: StepDecision;
+  readingId: string;
+  instrument: string | null;
+  takenAt: Date;
+  /** What shownValue() needs for answers, records, notes and multi-point readings. */
+  shown: ShownReading;
+}
+
 export interface ComparisonRow {
   stepId: string;
   position: number;
   title: string;
   derivation: TemplateStep["derivation"];
   photoRequired: boolean;
+  /** The step as its kind needs it to show a reading (points, derived result, record unit). */
+  kindStep: KindStep;
   quantity: string;
   quantityKind: "length" | "angle";
   unit: "mm" | "arcsec";
@@ -431,22 +451,8 @@ export interface ComparisonRow {
   decisionRule: "simple" | "guarded";
   limitSource: string;
   limitSourceNote: string | null;
-  pre: {
-    value: number;
-    U: number;
-    decision: StepDecision;
-    readingId: string;
-    instrument: string | null;
-    takenAt: Date;
-  } | null;
-  post: {
-    value: number;
-    U: number;
-    decision: StepDecision;
-    readingId: string;
-    instrument: string | null;
-    takenAt: Date;
-  } | null;
+  pre: ComparedReading | null;
+  post: ComparedReading | null;
   change: number | null;
   /** The step's result: the post-adjustment reading if there is one, else the pre reading. */
   status: StepDecision;
@@ -486,6 +492,7 @@ export async function getComparison(actor: Actor, jobId: string) {
         readingId: hit.r.id,
         instrument: hit.serial,
         takenAt: hit.r.takenAt,
+        shown: hit.r,
       };
     };
     const pre = pick("pre");
@@ -496,6 +503,7 @@ export async function getComparison(actor: Actor, jobId: string) {
       title: s.title,
       derivation: s.derivation,
       photoRequired: s.photoRequired,
+      kindStep: s,
       quantity: s.quantity,
       quantityKind: s.quantityKind,
       unit: CANONICAL_UNIT[s.quantityKind],
@@ -506,7 +514,8 @@ export async function getComparison(actor: Actor, jobId: string) {
       limitSourceNote: s.limitSourceNote,
       pre,
       post,
-      change: pre && post ? post.value - pre.value : null,
+      // A change is a difference of lengths or angles: none for answers, records and notes.
+      change: pre && post && !TEXT_KINDS.includes(s.derivation) ? post.value - pre.value : null,
       status: (post ?? pre)?.decision ?? "not_measured",
     };
   });
@@ -519,6 +528,7 @@ export function comparisonJson(c: NonNullable<Awaited<ReturnType<typeof getCompa
     steps: c.rows.map((r) => ({
       position: r.position,
       title: r.title,
+      kind: r.derivation,
       quantity: r.quantity,
       unit: r.unit,
       lowerLimit: r.lowerLimit,

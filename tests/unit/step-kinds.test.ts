@@ -6,6 +6,7 @@ import { lusolve, multiply, transpose } from "mathjs";
 import { describe, expect, it } from "vitest";
 import { multiPointValue } from "@/geometry/multi-point";
 import { judge } from "@/lib/checklist";
+import { readingSection } from "@/lib/report/build";
 import { rangeProblem, shownPoints, shownValue, stepEntry, type KindStep } from "@/lib/step-kinds";
 
 const base: KindStep = {
@@ -189,5 +190,31 @@ describe("single readings and the instrument's range", () => {
         ["12", "3"],
       ),
     ).toBe("12: 0 · 3: −0.002 mm");
+  });
+});
+
+describe("the report's readings per kind", () => {
+  it("prints a check as Yes, a record in its own unit, and keeps both off the chart of lengths", () => {
+    const check: KindStep = { ...base, derivation: "check", upperLimit: null };
+    const torque: KindStep = { ...base, derivation: "record", recordUnit: "N·m", upperLimit: null };
+    const row = (step: KindStep, value: number, textValue: string | null, unit: string) => ({
+      title: step.derivation,
+      quantityKind: "length" as const,
+      lowerLimit: null,
+      upperLimit: step.upperLimit,
+      limitSource: "common_practice",
+      pre: { value, shown: { value, enteredValue: value, enteredUnit: unit, inputs: null, textValue } },
+      post: null,
+      change: null,
+      status: judge(step, value),
+      kindStep: step,
+    });
+    const s = readingSection([
+      row(check, 1, "yes", "yes/no"),
+      row(torque, 85, null, "N·m"),
+      row(base, 0.005, null, "mm"),
+    ]);
+    expect(s.rows.map((r) => r.pre)).toEqual(["Yes", "85 N·m", "0.005 mm"]);
+    expect(s.chart.map((c) => c.step)).toEqual(["direct"]);
   });
 });
