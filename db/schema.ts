@@ -380,6 +380,10 @@ export const readings = pgTable(
       .notNull()
       .references(() => templateSteps.id, { onDelete: "restrict" }),
     phase: phaseEnum("phase").notNull(),
+    /**
+     * Canonical value (mm or arcsec); for a multi-point step the value derived from its points; for
+     * a check 1 = yes and 0 = no; for a record the value in the step's own unit; for a note 0.
+     */
     value: doublePrecision("value").notNull(),
     enteredValue: doublePrecision("entered_value").notNull(),
     enteredUnit: text("entered_unit").notNull(),

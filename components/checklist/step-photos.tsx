@@ -104,6 +104,12 @@ export function StepPhotos({
           </label>
         ) : null}
       </div>
+      {canWrite ? (
+        <p className="text-xs text-graphite-600">
+          Take photos with the spindle stopped and the axes at rest, never reaching in while the machine can
+          move; the machine builder&apos;s manual and local rules come first.
+        </p>
+      ) : null}
       {problem ? (
         <p role="alert" className="text-sm text-fail-700">
           Photo not kept: {problem}

@@ -99,6 +99,9 @@ export default async function ChecklistPage({ params }: Props) {
                   jobId={id}
                   unmeasured={lines.filter((l) => l.decision === "not_measured").map((l) => l.position)}
                   fails={lines.filter((l) => l.decision === "fail").map((l) => l.position)}
+                  missingPhotos={steps
+                    .filter((s) => s.photoRequired && !photos.some((p) => p.stepId === s.id))
+                    .map((s) => s.position)}
                 />
               ) : null}
             </div>
