@@ -129,7 +129,13 @@ export default async function ChecklistPage({ params }: Props) {
                     <div className="space-y-1 text-right">
                       <p className="text-sm text-graphite-600">{s.quantity}</p>
                       <p className="num text-base font-semibold" data-testid={`limits-${s.position}`}>
-                        {formatLimits(s.lowerLimit, s.upperLimit, s.quantityKind, unitSystem)}
+                        {s.derivation === "check"
+                          ? "Expected: yes"
+                          : s.derivation === "record"
+                            ? `For the record${s.recordUnit ? ` (${s.recordUnit})` : ""}`
+                            : s.derivation === "note"
+                              ? "Not judged"
+                              : formatLimits(s.lowerLimit, s.upperLimit, s.quantityKind, unitSystem)}
                       </p>
                       <p className="text-xs text-graphite-500" title={s.limitSourceNote ?? undefined}>
                         Limit: {LIMIT_SOURCE_LABELS[s.limitSource]} ·{" "}
