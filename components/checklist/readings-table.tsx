@@ -117,7 +117,10 @@ export function ReadingsTable({
                     </span>
                   ) : null}
                   {points ? (
-                    <span className="block text-xs font-normal text-graphite-500" data-testid="points">
+                    <span
+                      className="block max-w-56 whitespace-normal text-xs font-normal text-graphite-500"
+                      data-testid="points"
+                    >
                       {points}
                     </span>
                   ) : null}
