@@ -276,6 +276,9 @@ export const instruments = pgTable("instruments", {
   calibratedOn: date("calibrated_on", { mode: "string" }),
   calibrationDueOn: date("calibration_due_on", { mode: "string" }).notNull(),
   certificateRef: text("certificate_ref"),
+  /** The span the instrument reads over, in its canonical unit (mm or arcsec); null = not stated. */
+  rangeMin: doublePrecision("range_min"),
+  rangeMax: doublePrecision("range_max"),
   /** Kept in step with retired_at (set together by db/queries/instruments.ts). */
   retired: boolean("retired").notNull().default(false),
   /** Retired rows stay readable on the jobs that name them and are left out of pickers for new work. */
@@ -384,6 +387,10 @@ export const readings = pgTable(
       .notNull()
       .references(() => templateSteps.id, { onDelete: "restrict" }),
     phase: phaseEnum("phase").notNull(),
+    /**
+     * Canonical value (mm or arcsec); for a multi-point step the value derived from its points; for
+     * a check 1 = yes and 0 = no; for a record the value in the step's own unit; for a note 0.
+     */
     value: doublePrecision("value").notNull(),
     enteredValue: doublePrecision("entered_value").notNull(),
     enteredUnit: text("entered_unit").notNull(),
@@ -718,3 +725,41 @@ export const environmentRecords = pgTable(
   ],
 );
 export type EnvironmentRecord = typeof environmentRecords.$inferSelect;
+
+/**
+ * Photos of a step (dial faces, set-ups, shims), taken on the tablet. The image is re-encoded by
+ * the server (metadata stripped, turned upright) and stored with a thumbnail through lib/storage;
+ * sha256 is of the stored image. Appended, never edited.
+ */
+export const photos = pgTable(
+  "photos",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    stepId: uuid("step_id")
+      .notNull()
+      .references(() => templateSteps.id, { onDelete: "restrict" }),
+    /** The reading it shows, when it was taken with one (null: a photo of the step itself). */
+    readingId: uuid("reading_id").references(() => readings.id, { onDelete: "restrict" }),
+    phase: phaseEnum("phase").notNull(),
+    storageKey: text("storage_key").notNull(),
+    thumbKey: text("thumb_key").notNull(),
+    sha256: text("sha256").notNull(),
+    contentType: text("content_type").notNull(),
+    sizeBytes: integer("size_bytes").notNull(),
+    width: integer("width").notNull(),
+    height: integer("height").notNull(),
+    takenAt: timestamp("taken_at", { withTimezone: true }).notNull(),
+    uploadedById: uuid("uploaded_by_id").references(() => users.id, { onDelete: "set null" }),
+    /** The id the tablet gave the photo: a repeated send finds it instead of storing twice. */
+    clientId: uuid("client_id"),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    index("photos_job_idx").on(t.jobId, t.stepId),
+    uniqueIndex("photos_job_client_uq").on(t.jobId, t.clientId),
+  ],
+);
+export type Photo = typeof photos.$inferSelect;

@@ -131,6 +131,110 @@ export const DEFAULT_STEPS: ReadonlyArray<Omit<typeof templateSteps.$inferInsert
   },
 ];
 
+export const COLLISION_TEMPLATE_NAME = "Two-axis head check after a collision";
+
+/**
+ * A demo procedure with every kind of step the tablet takes (invented): a yes/no check, readings
+ * at clock positions with their TIR and a photo of the dial, values for the record, a reading
+ * over a travel and a note. The after-collision draft TR-2026-0057 follows it.
+ */
+export const COLLISION_STEPS: ReadonlyArray<Omit<typeof templateSteps.$inferInsert, "templateId">> = [
+  {
+    position: 1,
+    title: "Lock out the machine before touching the head",
+    instructions:
+      "Isolate and lock out the machine's power, and check that the head is supported, before anyone reaches to the couplers or the collar.",
+    quantity: "Machine locked out and head supported",
+    quantityKind: "length",
+    derivation: "check",
+    lowerLimit: null,
+    upperLimit: null,
+    decisionRule: "simple",
+    limitSource: "common_practice",
+    limitSourceNote: "Lock-out before hands go near drives is common practice; local codes decide how.",
+    safetyNote: LOCKOUT,
+  },
+  {
+    position: 2,
+    title: "Indicate the collar at four clock positions",
+    instructions:
+      "Sweep the collar's outside diameter with a test indicator and read it at 12, 3, 6 and 9 o'clock as seen from the front of the machine; the run-out is the largest minus the smallest reading. Photograph the dial at the high point.",
+    quantity: "Collar run-out (TIR)",
+    quantityKind: "length",
+    derivation: "multi_point",
+    points: ["12", "3", "6", "9"],
+    pointResult: "tir",
+    lowerLimit: null,
+    upperLimit: 0.0005 * IN,
+    decisionRule: "simple",
+    limitSource: "common_practice",
+    limitSourceNote: "0.0005 in TIR is common practice, an editable default.",
+    photoRequired: true,
+    safetyNote: LOCKOUT,
+  },
+  {
+    position: 3,
+    title: "Torque the collar bolts",
+    instructions:
+      "Torque the collar bolts in a cross pattern to the head maker's figure and record the torque applied.",
+    quantity: "Collar bolt torque applied",
+    quantityKind: "length",
+    derivation: "record",
+    recordUnit: "N·m",
+    lowerLimit: null,
+    upperLimit: null,
+    decisionRule: "simple",
+    limitSource: "maker_manual",
+    limitSourceNote: "The torque comes from the head maker's manual.",
+  },
+  {
+    position: 4,
+    title: "Record the shims fitted under the collar",
+    instructions:
+      "Record the total shim thickness and where the shims sit (clock positions). Photograph them before the collar goes back.",
+    quantity: "Shim thickness fitted",
+    quantityKind: "length",
+    derivation: "record",
+    recordUnit: "mm",
+    lowerLimit: null,
+    upperLimit: null,
+    decisionRule: "simple",
+    limitSource: "common_practice",
+    limitSourceNote: "Kept for the record; not judged.",
+    photoRequired: true,
+    safetyNote: LOCKOUT,
+  },
+  {
+    position: 5,
+    title: "Check the tilt axis with a test bar travelled in Z",
+    instructions:
+      "Hold a test bar in the head, indicate its side and travel Z over the stated distance; record the change in reading.",
+    quantity: "Tilt of the tool axis from Z",
+    quantityKind: "angle",
+    derivation: "angle_over_distance",
+    distanceMm: 4 * IN,
+    lowerLimit: -10,
+    upperLimit: 10,
+    decisionRule: "simple",
+    limitSource: "maker_manual",
+    limitSourceNote: "As entered from the head maker's manual (figure invented for the demo).",
+    safetyNote: JOG,
+  },
+  {
+    position: 6,
+    title: "Describe the damage found",
+    instructions: "Write what was found: marks on the collar, the spline, the couplers; anything replaced.",
+    quantity: "Condition after the collision",
+    quantityKind: "length",
+    derivation: "note",
+    lowerLimit: null,
+    upperLimit: null,
+    decisionRule: "simple",
+    limitSource: "common_practice",
+    limitSourceNote: "Not judged.",
+  },
+];
+
 /** The instrument register (invented). Resolution and standard uncertainty in mm (length) or arcsec (angle). */
 export const DEMO_INSTRUMENTS: ReadonlyArray<typeof instruments.$inferInsert> = [
   {
@@ -153,6 +257,9 @@ export const DEMO_INSTRUMENTS: ReadonlyArray<typeof instruments.$inferInsert> = 
     quantityKind: "length",
     resolution: 0.001,
     standardUncertainty: 0.0015,
+    // Its display reads ±12.7 mm about the zero set (invented demo figure).
+    rangeMin: -12.7,
+    rangeMax: 12.7,
     calibratedOn: "2026-03-31",
     calibrationDueOn: "2027-03-31",
     certificateRef: "CAL-26-0331 (invented)",
@@ -381,31 +488,35 @@ async function ensureParameterLimits(templateId: string) {
     .values(DEFAULT_PARAMETER_LIMITS.map((l) => ({ ...l, templateId })));
 }
 
-async function ensureTemplate(adminId: string | null) {
+async function ensureTemplate(
+  adminId: string | null,
+  name = DEFAULT_TEMPLATE_NAME,
+  steps = DEFAULT_STEPS,
+  description = "Mount the collar, close the head, set both axis zeros, check the tilt axis with a test bar, cut a test part. Limits marked common practice are editable defaults.",
+) {
   const [found] = await db
     .select()
     .from(procedureTemplates)
-    .where(and(eq(procedureTemplates.name, DEFAULT_TEMPLATE_NAME), eq(procedureTemplates.version, 1)));
+    .where(and(eq(procedureTemplates.name, name), eq(procedureTemplates.version, 1)));
   if (found) return found;
   return db.transaction(async (tx) => {
     const [t] = await tx
       .insert(procedureTemplates)
       .values({
-        name: DEFAULT_TEMPLATE_NAME,
+        name,
         version: 1,
-        description:
-          "Mount the collar, close the head, set both axis zeros, check the tilt axis with a test bar, cut a test part. Limits marked common practice are editable defaults.",
+        description,
         createdById: adminId,
       })
       .returning();
-    await tx.insert(templateSteps).values(DEFAULT_STEPS.map((s) => ({ ...s, templateId: t!.id })));
+    await tx.insert(templateSteps).values(steps.map((s) => ({ ...s, templateId: t!.id })));
     await appendAudit(tx, {
       actorId: adminId,
       actorEmail: "admin@halvard.example",
       action: "template.created",
       entityType: "procedure_template",
       entityId: t!.id,
-      newValues: { name: t!.name, version: 1, steps: DEFAULT_STEPS.length, note: "demo data (invented)" },
+      newValues: { name: t!.name, version: 1, steps: steps.length, note: "demo data (invented)" },
     });
     return t!;
   });
@@ -495,7 +606,18 @@ export async function seedChecklists(): Promise<void> {
     await db.insert(instruments).values(i).onConflictDoNothing({ target: instruments.serial });
   const template = await ensureTemplate(admin?.id ?? null);
   await ensureParameterLimits(template.id);
-  // Every demo job follows the default procedure, version 1.
+  // The after-collision draft follows the procedure with every kind of step; the other demo jobs
+  // follow the default procedure, version 1.
+  const collision = await ensureTemplate(
+    admin?.id ?? null,
+    COLLISION_TEMPLATE_NAME,
+    COLLISION_STEPS,
+    "Lock out, indicate the collar at clock positions, record torque and shims, check the tilt axis, describe the damage.",
+  );
+  await db
+    .update(jobs)
+    .set({ templateId: collision.id })
+    .where(and(eq(jobs.reference, "TR-2026-0057"), isNull(jobs.templateId)));
   await db.update(jobs).set({ templateId: template.id }).where(isNull(jobs.templateId));
   if (!installer) return;
   await seedReadings("TR-2026-0041", new Date("2026-10-12T07:30:00Z"), READINGS_0041, installer.id);

@@ -82,6 +82,9 @@ export function expandedUncertainty(step: StepRule, instrumentStdU: number | nul
  */
 export function judge(step: StepRule, value: number | null | undefined, U: number | null = 0): StepDecision {
   if (value == null || !Number.isFinite(value)) return "not_measured";
+  // A check is written so that yes (stored 1) is the expected answer; records and notes are not judged.
+  if (step.derivation === "check") return value === 1 ? "pass" : "fail";
+  if (step.derivation === "record" || step.derivation === "note") return "no_limit";
   const { lowerLimit: lo, upperLimit: hi, decisionRule: rule } = step;
   if (lo == null && hi == null) return "no_limit";
   const u = U != null && U > 0 ? U : null;

@@ -17,6 +17,10 @@ export interface QueuedReading {
   body: Record<string, unknown> & { stepId: string; phase: "pre" | "post" };
   /** What the list shows while it waits. */
   shown: { value: string; instrument: string; takenAt: string; note: string | null; correcting: boolean };
+  /** A photo of the step (body: stepId, phase, clientId, takenAt, readingId or readingClientId). */
+  photo?: Blob;
+  /** Where it is sent when it is not a reading: the temperature records (body without a step). */
+  endpoint?: "environment";
   state: "waiting" | "refused";
   reason: string | null;
   attempts: number;
@@ -53,17 +57,32 @@ export async function removeQueued(clientId: string): Promise<void> {
   await (await database()).delete("readings", clientId);
 }
 
-/** One send of a queued reading; never throws (no connection is an outcome like any other). */
+/** The multipart body of a queued photo: its fields, then the image. */
+function photoForm(item: QueuedReading): FormData {
+  const form = new FormData();
+  for (const [k, v] of Object.entries(item.body)) if (v != null && v !== "") form.set(k, String(v));
+  form.set("file", item.photo!, "photo");
+  return form;
+}
+
+/** One send of a queued reading or photo; never throws (no connection is an outcome like any other). */
 export async function sendQueued(item: QueuedReading): Promise<SendOutcome> {
   let res: Response;
   try {
-    res = await fetch(`/api/jobs/${item.jobId}/readings`, {
-      method: "POST",
-      headers: { "content-type": "application/json" },
-      body: JSON.stringify(item.body),
-      credentials: "same-origin",
-      cache: "no-store",
-    });
+    res = item.photo
+      ? await fetch(`/api/jobs/${item.jobId}/photos`, {
+          method: "POST",
+          body: photoForm(item),
+          credentials: "same-origin",
+          cache: "no-store",
+        })
+      : await fetch(`/api/jobs/${item.jobId}/${item.endpoint ?? "readings"}`, {
+          method: "POST",
+          headers: { "content-type": "application/json" },
+          body: JSON.stringify(item.body),
+          credentials: "same-origin",
+          cache: "no-store",
+        });
   } catch {
     return { kind: "retry", reason: NO_CONNECTION };
   }

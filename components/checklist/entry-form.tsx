@@ -6,6 +6,8 @@ import { PHASE_LABELS, type CorrectionTarget } from "@/components/checklist/read
 import type { StepDecision } from "@/lib/checklist";
 import { arcsecToUmPerM, formatValue, UNIT_SYMBOL, type EntryUnit, type UnitSystem } from "@/lib/units";
 import type { PanelStep } from "@/components/checklist/step-panel";
+import { NoteInput, PointGrid, RecordInputs, YesNo } from "@/components/checklist/kind-inputs";
+import { MULTI_POINT_SHORT, needsInstrument } from "@/lib/step-kinds";
 
 export interface PanelInstrument {
   id: string;
@@ -16,11 +18,20 @@ export interface PanelInstrument {
   standardUncertainty: number;
   /** Smallest step the instrument reads, canonical (mm or arcsec). */
   resolution: number;
+  /** The span it reads over, canonical; null = not stated. */
+  rangeMin: number | null;
+  rangeMax: number | null;
 }
 
 export interface EntryValues {
   phase: "pre" | "post";
   value: string;
+  /** check steps: "yes" or "no" ("" until answered). */
+  answer: "" | "yes" | "no";
+  /** multi_point steps: the reading at each point, in the procedure's order. */
+  pointValues: string[];
+  /** note steps: the note; record steps: where the value applies. */
+  text: string;
   travel: string;
   instrumentId: string;
   note: string;
@@ -43,6 +54,7 @@ export function EntryForm({
   correcting,
   onCancelCorrection,
   problem,
+  pointProblems,
   live,
   blocked,
   pending,
@@ -60,6 +72,7 @@ export function EntryForm({
   correcting: CorrectionTarget | null;
   onCancelCorrection: () => void;
   problem: string | null;
+  pointProblems: Record<string, string>;
   live: { value: number; decision: StepDecision; error: string | null } | null;
   blocked: string | null;
   pending: boolean;
@@ -70,6 +83,8 @@ export function EntryForm({
   const { register, watch } = form;
   const [phase, value] = watch(["phase", "value"]);
   const isAngleFromReading = step.derivation === "angle_over_distance";
+  const kind = step.derivation;
+  const single = kind === "direct" || kind === "angle_over_distance" || kind === "sweep_flatness";
   const id = (what: string) => `${what}-${step.id}`;
   return (
     <form
@@ -109,31 +124,39 @@ export function EntryForm({
         </fieldset>
       )}
       <div className="grid gap-4 sm:grid-cols-2">
-        <div>
-          <label htmlFor={id("value")} className={labelCls}>
-            {isAngleFromReading ? "Change in reading over the travel" : step.quantity} (
-            {UNIT_SYMBOL[entryUnit]})
-          </label>
-          <div className="flex items-center gap-2">
-            <input
-              id={id("value")}
-              inputMode="decimal"
-              autoComplete="off"
-              className={`${inputCls} num text-right text-lg`}
-              aria-invalid={Boolean(problem)}
-              aria-describedby={`${id("problem")} ${id("live")}`}
-              {...register("value")}
-            />
-            <span className="num w-10 text-graphite-600">{UNIT_SYMBOL[entryUnit]}</span>
+        {kind === "multi_point" ? (
+          <PointGrid form={form} step={step} entryUnit={entryUnit} pointProblems={pointProblems} />
+        ) : null}
+        {kind === "check" ? <YesNo form={form} step={step} /> : null}
+        {kind === "record" ? <RecordInputs form={form} step={step} problem={problem} /> : null}
+        {kind === "note" ? <NoteInput form={form} step={step} /> : null}
+        {single ? (
+          <div>
+            <label htmlFor={id("value")} className={labelCls}>
+              {isAngleFromReading ? "Change in reading over the travel" : step.quantity} (
+              {UNIT_SYMBOL[entryUnit]})
+            </label>
+            <div className="flex items-center gap-2">
+              <input
+                id={id("value")}
+                inputMode="decimal"
+                autoComplete="off"
+                className={`${inputCls} num text-right text-lg`}
+                aria-invalid={Boolean(problem)}
+                aria-describedby={`${id("problem")} ${id("live")}`}
+                {...register("value")}
+              />
+              <span className="num w-10 text-graphite-600">{UNIT_SYMBOL[entryUnit]}</span>
+            </div>
+            <p
+              id={id("problem")}
+              className="mt-1 text-sm text-fail-700"
+              data-testid={`problem-${step.position}`}
+            >
+              {problem ?? ""}
+            </p>
           </div>
-          <p
-            id={id("problem")}
-            className="mt-1 text-sm text-fail-700"
-            data-testid={`problem-${step.position}`}
-          >
-            {problem ?? ""}
-          </p>
-        </div>
+        ) : null}
         {isAngleFromReading ? (
           <div>
             <label htmlFor={id("travel")} className={labelCls}>
@@ -151,23 +174,27 @@ export function EntryForm({
             </div>
           </div>
         ) : null}
-        <div>
-          <label htmlFor={id("instrument")} className={labelCls}>
-            Instrument
-          </label>
-          <select id={id("instrument")} className={inputCls} {...register("instrumentId")}>
-            <option value="">Choose from the register…</option>
-            {instruments.map((i) => {
-              const pastDue = i.calibrationDueOn < today;
-              return (
-                <option key={i.id} value={i.id} disabled={pastDue}>
-                  {i.serial} · {i.kind} ·{" "}
-                  {pastDue ? `calibration past due since ${i.calibrationDueOn}` : `due ${i.calibrationDueOn}`}
-                </option>
-              );
-            })}
-          </select>
-        </div>
+        {needsInstrument(kind) ? (
+          <div>
+            <label htmlFor={id("instrument")} className={labelCls}>
+              Instrument
+            </label>
+            <select id={id("instrument")} className={inputCls} {...register("instrumentId")}>
+              <option value="">Choose from the register…</option>
+              {instruments.map((i) => {
+                const pastDue = i.calibrationDueOn < today;
+                return (
+                  <option key={i.id} value={i.id} disabled={pastDue}>
+                    {i.serial} · {i.kind} ·{" "}
+                    {pastDue
+                      ? `calibration past due since ${i.calibrationDueOn}`
+                      : `due ${i.calibrationDueOn}`}
+                  </option>
+                );
+              })}
+            </select>
+          </div>
+        ) : null}
         <div>
           <label htmlFor={id("taken")} className={labelCls}>
             Taken at (24-hour, this tablet&apos;s time)
@@ -200,6 +227,12 @@ export function EntryForm({
           ) : live ? (
             <>
               <DecisionBadge decision={live.decision} size="lg" />
+              {kind === "multi_point" ? (
+                <span className="num text-graphite-700">
+                  {MULTI_POINT_SHORT[step.pointResult ?? "tir"]} ={" "}
+                  {formatValue(live.value, step.quantityKind, unitSystem)}
+                </span>
+              ) : null}
               {isAngleFromReading ? (
                 <span className="num text-graphite-700">
                   = {formatValue(live.value, "angle", unitSystem)} ({arcsecToUmPerM(live.value).toFixed(1)}{" "}
@@ -210,9 +243,15 @@ export function EntryForm({
             </>
           ) : (
             <span className="text-sm text-graphite-500">
-              {String(value).trim() && blocked
+              {blocked && (String(value).trim() || kind === "multi_point")
                 ? blocked
-                : "Enter a value to see pass or fail against the limits."}
+                : kind === "check"
+                  ? "Answer yes or no."
+                  : kind === "note"
+                    ? "Write the note."
+                    : kind === "record"
+                      ? "Kept for the record; not judged."
+                      : "Enter a value to see pass or fail against the limits."}
             </span>
           )}
         </div>
@@ -222,7 +261,15 @@ export function EntryForm({
           title={blocked ?? undefined}
           className="min-h-touch min-w-touch rounded-md bg-accent-600 px-6 text-base font-semibold text-white shadow-sm hover:bg-accent-700 disabled:cursor-not-allowed disabled:bg-graphite-400"
         >
-          {pending ? "Saving…" : correcting ? "Save correction" : "Save reading"}
+          {pending
+            ? "Saving…"
+            : correcting
+              ? "Save correction"
+              : kind === "note"
+                ? "Save note"
+                : kind === "check"
+                  ? "Save answer"
+                  : "Save reading"}
         </button>
       </div>
       {refusal ? (

@@ -3,9 +3,10 @@
 import { ScrollRegion } from "@/components/ui/scroll-region";
 import { DecisionBadge } from "@/components/readings/decision-badge";
 import { LocalTime } from "@/components/readings/local-time";
-import type { StepDecision, StepRule } from "@/lib/checklist";
+import type { StepDecision } from "@/lib/checklist";
+import { shownPoints, shownValue, type KindStep } from "@/lib/step-kinds";
 import type { QueuedReading } from "@/lib/readings-queue";
-import { formatValue, type UnitSystem } from "@/lib/units";
+import type { UnitSystem } from "@/lib/units";
 
 export const PHASE_LABELS = { pre: "Before adjustment", post: "After adjustment" } as const;
 
@@ -15,6 +16,8 @@ export interface PanelReading {
   value: number;
   enteredValue: number;
   enteredUnit: string;
+  inputs: unknown;
+  textValue: string | null;
   decision: StepDecision;
   instrumentId: string | null;
   instrumentSerial: string | null;
@@ -47,7 +50,7 @@ export function ReadingsTable({
 }: {
   readings: PanelReading[];
   queued: QueuedReading[];
-  step: StepRule;
+  step: KindStep;
   position: number;
   unitSystem: UnitSystem;
   canWrite: boolean;
@@ -55,6 +58,9 @@ export function ReadingsTable({
   onEdit: (q: QueuedReading) => void;
   onDiscard: (q: QueuedReading) => void;
 }) {
+  // A note's text wraps like prose; numbers stay on one line, right-aligned.
+  const valueCls =
+    step.derivation === "note" ? "min-w-48 whitespace-normal text-left" : "num whitespace-nowrap text-right";
   if (readings.length === 0 && queued.length === 0)
     return <p className="text-sm text-graphite-500">No readings yet.</p>;
   return (
@@ -94,7 +100,8 @@ export function ReadingsTable({
         <tbody className="divide-y divide-graphite-100">
           {readings.map((r) => {
             const old = Boolean(r.supersededById);
-            const shown = formatValue(r.value, step.quantityKind, unitSystem);
+            const shown = shownValue(step, r, unitSystem);
+            const points = shownPoints(r, step.points);
             return (
               <tr
                 key={r.id}
@@ -102,13 +109,24 @@ export function ReadingsTable({
                 data-superseded={old ? "true" : undefined}
               >
                 <td className="py-2 pr-3">{PHASE_LABELS[r.phase]}</td>
-                <td
-                  className={`num whitespace-nowrap py-2 pr-3 text-right ${old ? "line-through" : "font-semibold"}`}
-                >
+                <td className={`py-2 pr-3 ${valueCls} ${old ? "line-through" : "font-semibold"}`}>
                   {shown}
                   {step.derivation === "angle_over_distance" ? (
                     <span className="block text-xs font-normal text-graphite-500">
                       from {r.enteredValue} {r.enteredUnit}
+                    </span>
+                  ) : null}
+                  {points ? (
+                    <span
+                      className="block max-w-56 whitespace-normal text-xs font-normal text-graphite-500"
+                      data-testid="points"
+                    >
+                      {points}
+                    </span>
+                  ) : null}
+                  {step.derivation === "record" && r.textValue ? (
+                    <span className="block whitespace-normal text-xs font-normal text-graphite-600">
+                      {r.textValue}
                     </span>
                   ) : null}
                 </td>
@@ -144,7 +162,7 @@ export function ReadingsTable({
           {queued.map((q) => (
             <tr key={q.clientId} data-queued={q.state} className="bg-accent-50/60">
               <td className="py-2 pr-3">{PHASE_LABELS[q.body.phase]}</td>
-              <td className="num whitespace-nowrap py-2 pr-3 text-right font-semibold">{q.shown.value}</td>
+              <td className={`py-2 pr-3 font-semibold ${valueCls}`}>{q.shown.value}</td>
               <td className="py-2 pr-3">
                 <span
                   className={`inline-flex whitespace-nowrap rounded px-2 py-0.5 text-xs font-semibold ring-1 ${q.state === "refused" ? "bg-fail-50 text-fail-700 ring-fail-600/40" : "bg-white text-graphite-800 ring-graphite-300"}`}
@@ -171,7 +189,7 @@ export function ReadingsTable({
               </td>
               {canWrite ? (
                 <td className="space-x-1 whitespace-nowrap py-1 text-right">
-                  {q.state === "refused" ? (
+                  {q.photo ? null : q.state === "refused" ? (
                     <button type="button" className={btn} onClick={() => onEdit(q)}>
                       Edit
                     </button>

@@ -8,26 +8,27 @@ import {
   type CorrectionTarget,
   type PanelReading,
 } from "@/components/checklist/readings-table";
+import { StepPhotos, type PanelPhoto } from "@/components/checklist/step-photos";
 import { useReadingQueue } from "@/components/readings/queue-provider";
 import {
-  deriveReading,
   DECISION_LABELS,
   entryProblem,
   expandedUncertainty,
   judge,
   resolutionDecimals,
   type StepDecision,
-  type StepRule,
 } from "@/lib/checklist";
+import { needsInstrument, rangeProblem, shownValue, stepEntry, type KindStep } from "@/lib/step-kinds";
 import type { QueuedReading } from "@/lib/readings-queue";
 import { newClientId } from "@/lib/readings-sync";
-import { displayUnit, fromCanonical, UNIT_SYMBOL, type UnitSystem } from "@/lib/units";
+import { displayUnit, fromCanonical, type UnitSystem } from "@/lib/units";
 
 export type { PanelInstrument } from "@/components/checklist/entry-form";
 export type { PanelReading } from "@/components/checklist/readings-table";
 
-export interface PanelStep extends StepRule {
+export interface PanelStep extends KindStep {
   id: string;
+  photoRequired: boolean;
   position: number;
   title: string;
   quantity: string;
@@ -48,8 +49,6 @@ function parseLocal(text: string): Date | null {
   return Number.isNaN(d.getTime()) ? null : d;
 }
 
-const num = (s: string) => Number(String(s).trim().replace(",", "."));
-
 /**
  * One checklist step on the tablet: its readings (stored and still on this tablet) and the entry
  * form with live checks. A save goes into the tablet's queue first and is then sent; a value the
@@ -60,6 +59,7 @@ export function StepPanel({
   jobId,
   step,
   readings,
+  photos,
   unitSystem,
   instruments,
   canWrite,
@@ -68,6 +68,7 @@ export function StepPanel({
   jobId: string;
   step: PanelStep;
   readings: PanelReading[];
+  photos: PanelPhoto[];
   unitSystem: UnitSystem;
   instruments: PanelInstrument[];
   canWrite: boolean;
@@ -85,6 +86,9 @@ export function StepPanel({
   const travelUnit = unitSystem === "inch" ? "in" : "mm";
   const defaultTravel =
     step.distanceMm != null ? (unitSystem === "inch" ? step.distanceMm / 25.4 : step.distanceMm) : null;
+  const kind = step.derivation;
+  const withInstrument = needsInstrument(kind);
+  const pointNames = useMemo(() => step.points ?? [], [step.points]);
   const readsKind = isAngleFromReading ? "length" : step.quantityKind;
   const choosable = instruments.filter((i) => i.quantityKind === readsKind);
   const usable = choosable.filter((i) => i.calibrationDueOn >= today);
@@ -97,46 +101,77 @@ export function StepPanel({
     defaultValues: {
       phase: hasPre ? "post" : "pre",
       value: "",
+      answer: "",
+      pointValues: pointNames.map(() => ""),
+      text: "",
       travel: defaultTravel != null ? String(Number(defaultTravel.toFixed(4))) : "",
       instrumentId: defaultInstrument,
       note: "",
       takenAt: localNow(),
     },
   });
-  const [value, travel, instrumentId, takenAtText] = useWatch({
+  const [value, travel, instrumentId, takenAtText, answer, pointValues, text] = useWatch({
     control: form.control,
-    name: ["value", "travel", "instrumentId", "takenAt"],
+    name: ["value", "travel", "instrumentId", "takenAt", "answer", "pointValues", "text"],
   });
   const takenAt = parseLocal(takenAtText);
-  const instrument = choosable.find((i) => i.id === instrumentId);
+  const instrument = withInstrument ? choosable.find((i) => i.id === instrumentId) : undefined;
+  const pointsTyped = useMemo(
+    () => Object.fromEntries(pointNames.map((p, i) => [p, String(pointValues?.[i] ?? "")])),
+    [pointNames, pointValues],
+  );
 
-  const problem = useMemo(() => {
-    const decimals = instrument
-      ? resolutionDecimals(fromCanonical(instrument.resolution, entryUnit))
-      : Infinity;
-    return entryProblem(String(value), decimals, instrument?.serial);
-  }, [value, instrument, entryUnit]);
-
-  const live = useMemo(() => {
-    if (problem || String(value).trim() === "") return null;
-    try {
-      const t = num(travel);
-      const travelMm =
-        isAngleFromReading && Number.isFinite(t) && t > 0 ? (travelUnit === "in" ? t * 25.4 : t) : null;
-      const d = deriveReading(step, { value: num(value), unit: entryUnit, travelMm });
-      const U = expandedUncertainty(step, instrument?.standardUncertainty);
-      return { value: d.value, decision: judge(step, d.value, U), error: null as string | null };
-    } catch (err) {
-      const error = err instanceof Error ? err.message : "Not a usable value.";
-      return { value: NaN, decision: "not_measured" as StepDecision, error };
+  // What is wrong as it is typed: not a number, or finer than the instrument reads.
+  const decimals = instrument
+    ? resolutionDecimals(fromCanonical(instrument.resolution, entryUnit))
+    : Infinity;
+  const pointProblems = useMemo(() => {
+    const out: Record<string, string> = {};
+    if (kind !== "multi_point") return out;
+    for (const p of pointNames) {
+      const m = entryProblem(pointsTyped[p] ?? "", decimals, instrument?.serial);
+      if (m) out[p] = m;
     }
-  }, [problem, value, travel, instrument, step, entryUnit, isAngleFromReading, travelUnit]);
+    return out;
+  }, [kind, pointNames, pointsTyped, decimals, instrument]);
+  const problem = useMemo(() => {
+    if (kind === "check" || kind === "note") return null;
+    if (kind === "multi_point") {
+      const first = pointNames.find((p) => pointProblems[p]);
+      return first ? `At ${first}: ${pointProblems[first]}` : null;
+    }
+    return entryProblem(String(value), kind === "record" ? Infinity : decimals, instrument?.serial);
+  }, [kind, pointNames, pointProblems, value, decimals, instrument]);
 
-  const blocked = !instrument
-    ? "Choose the instrument used."
-    : !takenAt
-      ? "Write the time taken as YYYY-MM-DD HH:MM (24-hour)."
-      : (problem ?? live?.error ?? (live ? null : "Enter the value read."));
+  // The same per-kind check the server makes, so what the tablet accepts the server stores.
+  const outcome = useMemo(() => {
+    const t = Number(String(travel).trim().replace(",", "."));
+    const travelMm =
+      isAngleFromReading && Number.isFinite(t) && t > 0 ? (travelUnit === "in" ? t * 25.4 : t) : null;
+    return stepEntry(step, { value, unit: entryUnit, travelMm, answer, points: pointsTyped, text });
+  }, [step, value, entryUnit, travel, isAngleFromReading, travelUnit, answer, pointsTyped, text]);
+
+  const outside =
+    outcome.ok && instrument
+      ? rangeProblem(
+          instrument,
+          outcome.stored.instrumentReadings,
+          kind === "multi_point" ? pointNames : null,
+        )
+      : null;
+  const live = useMemo(() => {
+    if (problem || !outcome.ok) return null;
+    const U = expandedUncertainty(step, instrument?.standardUncertainty);
+    const v = outcome.stored.value;
+    return { value: v, decision: judge(step, v, U), error: null as string | null };
+  }, [problem, outcome, step, instrument]);
+
+  const blocked =
+    withInstrument && !instrument
+      ? "Choose the instrument used."
+      : !takenAt
+        ? "Write the time taken as YYYY-MM-DD HH:MM (24-hour)."
+        : (problem ?? outside?.message ?? (outcome.ok ? null : outcome.problems[0]!.message));
 
   const onSubmit = form.handleSubmit(async (f) => {
     if (blocked || pending) return;
@@ -148,10 +183,15 @@ export function StepPanel({
     const body = {
       stepId: step.id,
       phase,
-      value: f.value.trim().replace(",", "."),
       unit: entryUnit,
+      ...(kind === "check" ? { answer: f.answer } : {}),
+      ...(kind === "note" || kind === "record" ? { text: f.text } : {}),
+      ...(kind === "multi_point" ? { points: pointsTyped } : {}),
+      ...(kind !== "check" && kind !== "note" && kind !== "multi_point"
+        ? { value: f.value.trim().replace(",", ".") }
+        : {}),
       ...(isAngleFromReading ? { travel: f.travel, travelUnit } : {}),
-      instrumentId: f.instrumentId,
+      ...(withInstrument ? { instrumentId: f.instrumentId } : {}),
       note: f.note,
       takenAt: (parseLocal(f.takenAt) ?? new Date()).toISOString(),
       clientId,
@@ -160,37 +200,49 @@ export function StepPanel({
       ...(correcting?.kind === "queued" ? { supersedesClientId: correcting.clientId } : {}),
     };
     const shown = {
-      value: `${body.value} ${UNIT_SYMBOL[entryUnit]}`,
-      instrument: instrument!.serial,
+      value: outcome.ok ? shownValue(step, outcome.stored, unitSystem) : "",
+      instrument: instrument?.serial ?? "—",
       takenAt: body.takenAt,
       note: f.note.trim() || null,
       correcting: Boolean(correcting),
     };
-    const outcome = await queue.enqueue({ clientId, jobId, body, shown });
+    const sent = await queue.enqueue({ clientId, jobId, body, shown });
     setPending(false);
-    if (outcome?.kind === "refused") {
+    if (sent?.kind === "refused") {
       // Refused while the installer is here: the value stays in the form with the reason.
       await queue.discard(clientId);
-      setRefusal(outcome.reason);
+      setRefusal(sent.reason);
       return;
     }
     if (replacing) await queue.discard(replacing);
     const what = correcting ? "Correction" : "Reading";
     setSaved(
-      outcome?.kind === "sent"
-        ? `${what} saved: ${DECISION_LABELS[(outcome.decision ?? "not_measured") as StepDecision].toLowerCase()}.`
-        : `${what} kept on this tablet, waiting to send. ${outcome && "reason" in outcome ? outcome.reason : "Earlier readings go first."}`,
+      sent?.kind === "sent"
+        ? `${what} saved: ${DECISION_LABELS[(sent.decision ?? "not_measured") as StepDecision].toLowerCase()}.`
+        : `${what} kept on this tablet, waiting to send. ${sent && "reason" in sent ? sent.reason : "Earlier readings go first."}`,
     );
     setCorrecting(null);
     setReplacing(null);
-    form.reset({ ...f, value: "", note: "", takenAt: localNow() });
+    form.reset({
+      ...f,
+      value: "",
+      answer: "",
+      text: "",
+      pointValues: pointNames.map(() => ""),
+      note: "",
+      takenAt: localNow(),
+    });
   });
 
   const edit = (q: QueuedReading) => {
     const b = q.body as Record<string, string>;
+    const pts = (q.body.points ?? {}) as Record<string, string>;
     form.reset({
       phase: q.body.phase,
       value: b.value ?? "",
+      answer: b.answer === "yes" || b.answer === "no" ? b.answer : "",
+      text: b.text ?? "",
+      pointValues: pointNames.map((p) => String(pts[p] ?? "")),
       travel: b.travel ?? form.getValues("travel"),
       instrumentId: b.instrumentId ?? "",
       note: b.note ?? "",
@@ -201,6 +253,16 @@ export function StepPanel({
     setRefusal(q.reason);
     setSaved(null);
   };
+
+  // A new photo shows the step's latest reading: one still on this tablet, else the latest stored.
+  const lastQueued = [...queued].reverse().find((q) => !q.photo);
+  const lastStored = [...readings].reverse().find((r) => !r.supersededById);
+  const attachTo = lastQueued
+    ? { readingClientId: lastQueued.clientId }
+    : lastStored
+      ? { readingId: lastStored.id }
+      : null;
+  const photoPhase = lastQueued?.body.phase ?? lastStored?.phase ?? form.getValues("phase");
 
   return (
     <div className="space-y-4">
@@ -222,6 +284,16 @@ export function StepPanel({
             void queue.discard(q.clientId);
         }}
       />
+      <StepPhotos
+        jobId={jobId}
+        stepId={step.id}
+        position={step.position}
+        photos={photos}
+        required={step.photoRequired}
+        canWrite={canWrite}
+        phase={photoPhase}
+        attachTo={attachTo}
+      />
       {canWrite ? (
         <EntryForm
           form={form}
@@ -234,6 +306,7 @@ export function StepPanel({
           correcting={correcting}
           onCancelCorrection={() => setCorrecting(null)}
           problem={problem}
+          pointProblems={pointProblems}
           live={live}
           blocked={blocked}
           pending={pending}

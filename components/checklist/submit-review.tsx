@@ -16,10 +16,13 @@ export function SubmitForReview({
   jobId,
   unmeasured,
   fails,
+  missingPhotos = [],
 }: {
   jobId: string;
   unmeasured: number[];
   fails: number[];
+  /** Steps whose procedure asks for a photo and that have none on the server yet. */
+  missingPhotos?: number[];
 }) {
   const router = useRouter();
   const { items } = useReadingQueue();
@@ -44,6 +47,7 @@ export function SubmitForReview({
       <ul className="list-disc space-y-1 pl-5">
         <li>{unmeasured.length ? `Not measured: ${list(unmeasured)}.` : "Every step is measured."}</li>
         <li>{fails.length ? `FAIL: ${list(fails)}.` : "No step fails."}</li>
+        {missingPhotos.length ? <li>Photo still needed: {list(missingPhotos)}.</li> : null}
         <li className={onTablet ? "font-semibold text-fail-700" : ""}>
           {onTablet
             ? `${onTablet} ${onTablet === 1 ? "reading is" : "readings are"} still on this tablet (waiting to send or refused): send, correct or discard them first.`

@@ -28,7 +28,16 @@ export function QueueStatus() {
           <span className="num" data-testid="queue-count">
             {waiting.length}
           </span>{" "}
-          {waiting.length === 1 ? "reading" : "readings"} waiting to send
+          {waiting.every((i) => i.photo)
+            ? waiting.length === 1
+              ? "photo"
+              : "photos"
+            : waiting.some((i) => i.photo)
+              ? "readings and photos"
+              : waiting.length === 1
+                ? "reading"
+                : "readings"}{" "}
+          waiting to send
         </span>
       ) : null}
       {refused.length ? (

@@ -36,7 +36,9 @@ export function InstrumentForm() {
           inputMode="decimal"
           numeric
         />
-        <SelectField name="unit" label="Unit of both" options={UNITS} defaultValue="mm" />
+        <SelectField name="unit" label="Unit of these numbers" options={UNITS} defaultValue="mm" />
+        <TextField name="rangeMin" label="Reads from (optional)" inputMode="decimal" numeric />
+        <TextField name="rangeMax" label="Reads to (optional)" inputMode="decimal" numeric />
         <TextField name="certificateRef" label="Certificate" />
         <TextField name="calibratedOn" label="Calibrated on" type="date" />
         <TextField name="calibrationDueOn" label="Calibration due" type="date" />

@@ -50,6 +50,8 @@ export async function createInstrument(actor: Actor, input: z.infer<typeof instr
         calibratedOn: input.calibratedOn || null,
         calibrationDueOn: input.calibrationDueOn,
         certificateRef: input.certificateRef || null,
+        rangeMin: input.rangeMin !== undefined ? toCanonical(input.rangeMin, input.unit) : null,
+        rangeMax: input.rangeMax !== undefined ? toCanonical(input.rangeMax, input.unit) : null,
       })
       .returning();
     await appendAudit(tx, {
@@ -103,6 +105,8 @@ export async function updateInstrument(
           unit && input.standardUncertainty !== undefined
             ? toCanonical(input.standardUncertainty, unit)
             : undefined,
+        rangeMin: unit && input.rangeMin !== undefined ? toCanonical(input.rangeMin, unit) : undefined,
+        rangeMax: unit && input.rangeMax !== undefined ? toCanonical(input.rangeMax, unit) : undefined,
       },
       input.retired,
     ),

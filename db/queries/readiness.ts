@@ -8,7 +8,8 @@ import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
 import { getComparison } from "@/db/queries/readings";
 import { jobStateSha256, preIssueSignatures, visibleJob } from "@/db/queries/signatures";
-import { deviations, instruments, readings } from "@/db/schema";
+import { deviations, instruments, photos, readings } from "@/db/schema";
+import { needsInstrument } from "@/lib/step-kinds";
 import type { Actor } from "@/lib/domain/roles";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 import { parameterRows } from "@/lib/fit-display";
@@ -39,27 +40,34 @@ export function countingTestPart<T extends { kind: string; status: string; phase
 
 export async function readinessInput(actor: Actor, d: JobDetail): Promise<ReadinessInput> {
   const jobId = d.job.id;
-  const [comparison, used, list, analysesList, limits, approved, sigs, state, carried] = await Promise.all([
-    getComparison(actor, jobId),
-    db
-      .select({
-        serial: instruments.serial,
-        calibrationDueOn: instruments.calibrationDueOn,
-        lastUsedOn: sql<string>`to_char(max(${readings.takenAt}) at time zone 'UTC', 'YYYY-MM-DD')`,
-      })
-      .from(readings)
-      .innerJoin(instruments, eq(instruments.id, readings.instrumentId))
-      .where(and(eq(readings.jobId, jobId), isNull(readings.supersededById)))
-      .groupBy(instruments.serial, instruments.calibrationDueOn)
-      .orderBy(asc(instruments.serial)),
-    listDatasets(actor, jobId),
-    listJobAnalyses(actor, jobId),
-    parameterLimitsOfTemplate(d.job.templateId),
-    getApprovedAnalysis(actor, jobId),
-    preIssueSignatures(jobId),
-    jobStateSha256(jobId),
-    db.select({ subject: deviations.subject }).from(deviations).where(eq(deviations.jobId, jobId)),
-  ]);
+  const [comparison, used, list, analysesList, limits, approved, sigs, state, carried, photoRows] =
+    await Promise.all([
+      getComparison(actor, jobId),
+      db
+        .select({
+          serial: instruments.serial,
+          calibrationDueOn: instruments.calibrationDueOn,
+          lastUsedOn: sql<string>`to_char(max(${readings.takenAt}) at time zone 'UTC', 'YYYY-MM-DD')`,
+        })
+        .from(readings)
+        .innerJoin(instruments, eq(instruments.id, readings.instrumentId))
+        .where(and(eq(readings.jobId, jobId), isNull(readings.supersededById)))
+        .groupBy(instruments.serial, instruments.calibrationDueOn)
+        .orderBy(asc(instruments.serial)),
+      listDatasets(actor, jobId),
+      listJobAnalyses(actor, jobId),
+      parameterLimitsOfTemplate(d.job.templateId),
+      getApprovedAnalysis(actor, jobId),
+      preIssueSignatures(jobId),
+      jobStateSha256(jobId),
+      db.select({ subject: deviations.subject }).from(deviations).where(eq(deviations.jobId, jobId)),
+      db
+        .select({ stepId: photos.stepId, n: sql<number>`count(*)::int` })
+        .from(photos)
+        .where(eq(photos.jobId, jobId))
+        .groupBy(photos.stepId),
+    ]);
+  const photoCounts = new Map(photoRows.map((p) => [p.stepId, p.n]));
   const stored = (list ?? []).filter((x) => x.status === "stored");
   const fitted = new Set((analysesList ?? []).map((a) => a.analysis.datasetId));
   const testPart = countingTestPart(stored);
@@ -99,6 +107,9 @@ export async function readinessInput(actor: Actor, d: JobDetail): Promise<Readin
       title: r.title,
       pre: step(r.pre),
       post: step(r.post),
+      needsInstrument: needsInstrument(r.derivation),
+      photoRequired: r.photoRequired,
+      photoCount: photoCounts.get(r.stepId) ?? 0,
     })),
     instruments: used,
     datasets: stored.map((x) => ({

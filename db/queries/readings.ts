@@ -8,14 +8,16 @@ import { instruments, jobs, procedureTemplates, readings, templateSteps, users }
 import type { Reading, TemplateStep } from "@/db/schema";
 import { type Actor } from "@/lib/domain/roles";
 import { readingsRefusal } from "@/lib/policy/readings";
-import {
-  calibrationRefusal,
-  deriveReading,
-  expandedUncertainty,
-  judge,
-  type StepDecision,
-} from "@/lib/checklist";
+import { calibrationRefusal, expandedUncertainty, judge, type StepDecision } from "@/lib/checklist";
 import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
+import {
+  needsInstrument,
+  rangeProblem,
+  stepEntry,
+  TEXT_KINDS,
+  type KindStep,
+  type ShownReading,
+} from "@/lib/step-kinds";
 import { CANONICAL_UNIT, toCanonical } from "@/lib/units";
 import type { ReadingCreateInput } from "@/lib/validations/readings";
 
@@ -81,6 +83,8 @@ export async function listUsableInstruments() {
       retired: instruments.retired,
       resolution: instruments.resolution,
       standardUncertainty: instruments.standardUncertainty,
+      rangeMin: instruments.rangeMin,
+      rangeMax: instruments.rangeMax,
     })
     .from(instruments)
     .where(eq(instruments.retired, false))
@@ -110,6 +114,13 @@ export async function getChecklist(actor: Actor, jobId: string) {
   };
 }
 
+/** The unit `value` is in: canonical for readings, the step's own for a record, none for answers and notes. */
+function readingUnit(step: TemplateStep): string | null {
+  if (step.derivation === "record") return step.recordUnit;
+  if (step.derivation === "check" || step.derivation === "note") return null;
+  return CANONICAL_UNIT[step.quantityKind];
+}
+
 /** The API's JSON form of a reading: canonical value with its unit, what was entered, and the decision. */
 function readingJson(r: ReadingRow, step: TemplateStep | undefined) {
   const U = step ? expandedUncertainty(step, r.instrumentStdU) : 0;
@@ -118,10 +129,12 @@ function readingJson(r: ReadingRow, step: TemplateStep | undefined) {
     stepId: r.stepId,
     step: step ? { position: step.position, title: step.title } : null,
     phase: r.phase,
+    kind: step?.derivation ?? null,
     value: r.value,
-    unit: step ? CANONICAL_UNIT[step.quantityKind] : null,
+    unit: step ? readingUnit(step) : null,
     entered: { value: r.enteredValue, unit: r.enteredUnit },
     inputs: r.inputs,
+    textValue: r.textValue,
     expandedUncertainty: U,
     decision: step ? judge(step, r.value, U) : "not_measured",
     instrument: r.instrumentId
@@ -174,6 +187,21 @@ async function storedByClientId(
   return readingJson({ ...r, ...names }, step);
 }
 
+/** A step of the job's procedure, or a 422 naming stepId (a step of another procedure is not this job's). */
+export async function stepOfJob(templateId: string | null, stepId: string): Promise<TemplateStep> {
+  const [step] = templateId
+    ? await db
+        .select()
+        .from(templateSteps)
+        .where(and(eq(templateSteps.id, stepId), eq(templateSteps.templateId, templateId)))
+    : [];
+  if (!step)
+    throw invalid("That step is not part of this job's checklist.", [
+      { field: "stepId", message: "Not a step of this job's procedure." },
+    ]);
+  return step;
+}
+
 /** The time that orders readings of one step and phase: the device's clock, else when it was stored. */
 const orderKey = (r: Pick<Reading, "deviceTime" | "createdAt">) => (r.deviceTime ?? r.createdAt).getTime();
 
@@ -192,16 +220,7 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
   if (replayed) return { ...replayed, replay: true };
   const refusal = readingsRefusal(actor, d.job);
   if (refusal) throw forbidden(refusal);
-  const [step] = d.job.templateId
-    ? await db
-        .select()
-        .from(templateSteps)
-        .where(and(eq(templateSteps.id, input.stepId), eq(templateSteps.templateId, d.job.templateId)))
-    : [];
-  if (!step)
-    throw invalid("That step is not part of this job's checklist.", [
-      { field: "stepId", message: "Not a step of this job's procedure." },
-    ]);
+  const step = await stepOfJob(d.job.templateId, input.stepId);
 
   const takenAt = input.takenAt ?? new Date();
   const deviceTime = input.deviceTime ?? new Date();
@@ -213,26 +232,48 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
     throw invalid("The device's clock is ahead of the server's; set the tablet's date and time.", [
       { field: "deviceTime", message: "The device time is in the future." },
     ]);
-  const [inst] = await db.select().from(instruments).where(eq(instruments.id, input.instrumentId));
-  if (!inst)
+  // What this kind of step takes (a yes/no, the points, a note…), checked before the instrument.
+  const entry = stepEntry(step, {
+    value: input.value ?? null,
+    unit: input.unit,
+    travelMm: input.travel != null ? toCanonical(input.travel, input.travelUnit ?? "mm") : null,
+    answer: input.answer ?? null,
+    points: input.points ?? null,
+    text: input.text ?? null,
+  });
+  if (!entry.ok) throw invalid(entry.problems[0]!.message, [...entry.problems]);
+  const derived = entry.stored;
+
+  if (!input.instrumentId && needsInstrument(step.derivation))
+    throw invalid("Choose the instrument used from the register.", [
+      { field: "instrumentId", message: "Choose the instrument used from the register." },
+    ]);
+  const [inst] = input.instrumentId
+    ? await db.select().from(instruments).where(eq(instruments.id, input.instrumentId))
+    : [];
+  if (input.instrumentId && !inst)
     throw invalid("That instrument is not in the register.", [
       { field: "instrumentId", message: "Choose an instrument from the register." },
     ]);
-  const calib = calibrationRefusal(inst, takenAt);
-  if (calib) throw invalid(calib, [{ field: "instrumentId", message: calib }]);
+  if (inst) {
+    const calib = calibrationRefusal(inst, takenAt);
+    if (calib) throw invalid(calib, [{ field: "instrumentId", message: calib }]);
+  }
   const readsKind = step.derivation === "angle_over_distance" ? "length" : step.quantityKind;
-  if (inst.quantityKind !== readsKind) {
+  if (inst && needsInstrument(step.derivation) && inst.quantityKind !== readsKind) {
     const m = `Instrument ${inst.serial} measures ${inst.quantityKind === "angle" ? "angles" : "lengths"}; this step needs one that measures ${readsKind === "angle" ? "angles" : "lengths"}.`;
     throw invalid(m, [{ field: "instrumentId", message: m }]);
   }
-
-  let derived;
-  try {
-    const travelMm = input.travel != null ? toCanonical(input.travel, input.travelUnit ?? "mm") : null;
-    derived = deriveReading(step, { value: input.value, unit: input.unit, travelMm });
-  } catch (err) {
-    const m = err instanceof Error ? err.message : "The value cannot be used.";
-    throw invalid(m, [{ field: "value", message: m }]);
+  if (inst) {
+    const outside = rangeProblem(
+      inst,
+      derived.instrumentReadings,
+      step.derivation === "multi_point" ? step.points : null,
+    );
+    if (outside)
+      throw invalid(outside.message, [
+        { field: outside.point ? `points.${outside.point}` : "value", message: outside.message },
+      ]);
   }
 
   return db.transaction(async (tx) => {
@@ -303,10 +344,11 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
         stepId: step.id,
         phase: input.phase,
         value: derived.value,
-        enteredValue: input.value,
-        enteredUnit: input.unit,
+        enteredValue: derived.enteredValue,
+        enteredUnit: derived.enteredUnit,
         inputs: derived.inputs,
-        instrumentId: inst.id,
+        textValue: derived.textValue,
+        instrumentId: inst?.id ?? null,
         note: input.note ?? null,
         takenAt,
         recordedById: actor.id,
@@ -355,10 +397,12 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
         step: step.position,
         phase: row!.phase,
         value: row!.value,
-        unit: CANONICAL_UNIT[step.quantityKind],
+        unit: readingUnit(step),
         enteredValue: row!.enteredValue,
         enteredUnit: row!.enteredUnit,
-        instrument: inst.serial,
+        ...(row!.textValue != null ? { textValue: row!.textValue } : {}),
+        ...(row!.inputs != null ? { inputs: row!.inputs } : {}),
+        instrument: inst?.serial ?? null,
         note: row!.note,
         clientId: row!.clientId,
         deviceTime: deviceTime.toISOString(),
@@ -369,9 +413,9 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
     const reading = readingJson(
       {
         ...row!,
-        instrumentSerial: inst.serial,
-        instrumentKind: inst.kind,
-        instrumentStdU: inst.standardUncertainty,
+        instrumentSerial: inst?.serial ?? null,
+        instrumentKind: inst?.kind ?? null,
+        instrumentStdU: inst?.standardUncertainty ?? null,
         recordedByName: actor.name,
       },
       step,
@@ -380,10 +424,25 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
   });
 }
 
+export interface ComparedReading {
+  value: number;
+  U: number;
+  decision: StepDecision;
+  readingId: string;
+  instrument: string | null;
+  takenAt: Date;
+  /** What shownValue() needs for answers, records, notes and multi-point readings. */
+  shown: ShownReading;
+}
+
 export interface ComparisonRow {
   stepId: string;
   position: number;
   title: string;
+  derivation: TemplateStep["derivation"];
+  photoRequired: boolean;
+  /** The step as its kind needs it to show a reading (points, derived result, record unit). */
+  kindStep: KindStep;
   quantity: string;
   quantityKind: "length" | "angle";
   unit: "mm" | "arcsec";
@@ -392,22 +451,8 @@ export interface ComparisonRow {
   decisionRule: "simple" | "guarded";
   limitSource: string;
   limitSourceNote: string | null;
-  pre: {
-    value: number;
-    U: number;
-    decision: StepDecision;
-    readingId: string;
-    instrument: string | null;
-    takenAt: Date;
-  } | null;
-  post: {
-    value: number;
-    U: number;
-    decision: StepDecision;
-    readingId: string;
-    instrument: string | null;
-    takenAt: Date;
-  } | null;
+  pre: ComparedReading | null;
+  post: ComparedReading | null;
   change: number | null;
   /** The step's result: the post-adjustment reading if there is one, else the pre reading. */
   status: StepDecision;
@@ -447,6 +492,7 @@ export async function getComparison(actor: Actor, jobId: string) {
         readingId: hit.r.id,
         instrument: hit.serial,
         takenAt: hit.r.takenAt,
+        shown: hit.r,
       };
     };
     const pre = pick("pre");
@@ -455,6 +501,9 @@ export async function getComparison(actor: Actor, jobId: string) {
       stepId: s.id,
       position: s.position,
       title: s.title,
+      derivation: s.derivation,
+      photoRequired: s.photoRequired,
+      kindStep: s,
       quantity: s.quantity,
       quantityKind: s.quantityKind,
       unit: CANONICAL_UNIT[s.quantityKind],
@@ -465,7 +514,8 @@ export async function getComparison(actor: Actor, jobId: string) {
       limitSourceNote: s.limitSourceNote,
       pre,
       post,
-      change: pre && post ? post.value - pre.value : null,
+      // A change is a difference of lengths or angles: none for answers, records and notes.
+      change: pre && post && !TEXT_KINDS.includes(s.derivation) ? post.value - pre.value : null,
       status: (post ?? pre)?.decision ?? "not_measured",
     };
   });
@@ -478,6 +528,7 @@ export function comparisonJson(c: NonNullable<Awaited<ReturnType<typeof getCompa
     steps: c.rows.map((r) => ({
       position: r.position,
       title: r.title,
+      kind: r.derivation,
       quantity: r.quantity,
       unit: r.unit,
       lowerLimit: r.lowerLimit,

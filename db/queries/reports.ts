@@ -49,6 +49,8 @@ import { NotReadyError, readiness } from "@/lib/report/readiness";
 import { renderReportPdf } from "@/lib/report/render";
 import { sha256Hex, signManifest, type SignatureManifest } from "@/lib/report/signing";
 import type { ReportData, ReportSignature } from "@/lib/report/types";
+import { photoAppendixRows } from "@/lib/report/sections/photos";
+import { jobPhotosForReport } from "@/db/queries/photos";
 
 /**
  * Reports: what goes into one (fetched here, shaped by lib/report/build.ts), issuing a revision,
@@ -143,6 +145,7 @@ export async function buildReportData(
     template: template[0] ?? null,
     instruments: instrumentRows(instrumentList, meta.issuedAt),
     readings: readingSection(comparison?.rows ?? []),
+    photos: photoAppendixRows(comparison?.rows ?? [], await jobPhotosForReport(d.job.id)),
     parameters: params?.section ?? null,
     testPart,
     figures,

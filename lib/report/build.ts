@@ -14,6 +14,7 @@ import { LIMIT_SOURCE_WORDS, parameterRows, type ParameterLimit } from "@/lib/fi
 import { formatDateTimeUtc } from "@/lib/format";
 import { signed } from "@/lib/numbers";
 import { formatLimits, formatValue, type QuantityKind } from "@/lib/units";
+import { shownValue, TEXT_KINDS, type KindStep, type ShownReading } from "@/lib/step-kinds";
 import { sha256Hex } from "@/lib/report/signing";
 import type { Decision, ReportCharts, ReportData, ReportSignature } from "@/lib/report/types";
 
@@ -60,10 +61,12 @@ export interface ComparisonInput {
   limitSource: string;
   limitSourceNote?: string | null;
   decisionRule?: string;
-  pre: { value: number } | null;
-  post: { value: number } | null;
+  pre: { value: number; shown?: ShownReading } | null;
+  post: { value: number; shown?: ShownReading } | null;
   change: number | null;
   status: StepDecision;
+  /** Answers, records, notes and multi-point readings are shown as their kind (lib/step-kinds). */
+  kindStep?: KindStep;
 }
 
 /** A decision rule in the few words printed beside each judged row. */
@@ -98,6 +101,13 @@ function limitSourceWords(source: string, note: string | null | undefined): stri
   return `${words}${note ? `: ${note}` : ""}`;
 }
 
+/** A reading in the report's metric units, or as its kind says (Yes/No, a value in its own unit, a note). */
+function readingText(r: ComparisonInput, x: { value: number; shown?: ShownReading }): string {
+  return r.kindStep && x.shown
+    ? shownValue(r.kindStep, x.shown, "metric")
+    : formatValue(x.value, r.quantityKind, "metric");
+}
+
 /**
  * The checklist readings for the report: the latest current reading of each step and phase,
  * judged under the step's decision rule, formatted in metric units; and the same numbers for the
@@ -119,14 +129,15 @@ export function readingSection(rows: readonly ComparisonInput[]): {
       ),
       step: r.title,
       limits: formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, "metric"),
-      pre: r.pre ? formatValue(r.pre.value, r.quantityKind, "metric") : undefined,
-      post: r.post ? formatValue(r.post.value, r.quantityKind, "metric") : undefined,
+      pre: r.pre ? readingText(r, r.pre) : undefined,
+      post: r.post ? readingText(r, r.post) : undefined,
       change:
         r.change != null ? formatValue(r.change, r.quantityKind, "metric", { signed: true }) : undefined,
       decision: reportDecision(r.status),
       source: r.limitSource.replace("_", " "),
     })),
     chart: measured
+      .filter((r) => !r.kindStep || !TEXT_KINDS.includes(r.kindStep.derivation))
       .filter((r) => r.lowerLimit != null || r.upperLimit != null)
       .map((r) => ({
         step: r.title,
@@ -400,6 +411,8 @@ export interface ReportInputs {
   template: { name: string; version: number } | null;
   instruments: ReportData["instruments"];
   readings: ReturnType<typeof readingSection>;
+  /** The appendix of photos (sections/photos.tsx); absent or empty when no step asks for one. */
+  photos?: ReportData["photos"];
   parameters: ReturnType<typeof parameterSection> | null;
   testPart: ReportData["testPart"];
   figures: ReportData["figures"];
@@ -467,6 +480,7 @@ export function buildReportContent(i: ReportInputs): ReportData {
     conformity: reportConformity(i, d.job.decisionRule),
     deviations: deviationRows(i.deviations),
     remarks: [...(i.parameters ? [i.parameters.note] : []), ...(d.job.notes ? [d.job.notes] : [])],
+    ...(i.photos?.length ? { photos: i.photos } : {}),
     safety: [...SAFETY_NOTES],
     signatures: meta.draft || !meta.approval ? [] : [...i.signatures, meta.approval],
     verifyUrl: i.verifyUrl,

@@ -23,6 +23,7 @@ import type { Decision, ReportData } from "./types";
 import { BODY_FONT, MONO_FONT } from "./fonts";
 import { parameterChartRows, readingRows } from "./chart-data";
 import { LimitRowsChart, ResidualsChart } from "./charts";
+import { PhotoAppendix } from "./sections/photos";
 
 const C = {
   ink: palette.graphite[900],
@@ -536,6 +537,8 @@ export function ReportDocument({
               ))}
             </View>
           </View>
+
+          <PhotoAppendix rows={data.photos} h2={s.h2} />
 
           {data.draft ? (
             <View wrap={false} style={s.note}>

@@ -6,7 +6,8 @@
  * - The phase that counts: once anything was recorded after adjustment, the as-left (after)
  *   state is what the report vouches for, so every step needs an after-adjustment reading and the
  *   fit must come from after-adjustment data; otherwise the before-adjustment (as-found) state.
- * - Each counting reading names its instrument, and each instrument was in calibration when used.
+ * - Each counting reading names its instrument (answers, records and notes need none), and each
+ *   instrument was in calibration when used; a step that asks for a photo has one.
  * - Each dataset the procedure asks for (sphere-probe data when it sets limits for the head
  *   parameters) is present in the phase that counts and evaluated; every test part is evaluated.
  * - The fit is approved; the "performed" and "inspected" signatures are present and still match
@@ -28,6 +29,7 @@ export const BLOCKER_CODES = [
   "signature_missing",
   "signature_stale",
   "result_not_conforming",
+  "photo_missing",
 ] as const;
 export type BlockerCode = (typeof BLOCKER_CODES)[number];
 
@@ -61,6 +63,11 @@ export interface ReadinessInput {
     title: string;
     pre: { decision: Decision; instrumentSerial: string | null } | null;
     post: { decision: Decision; instrumentSerial: string | null } | null;
+    /** False for answers, records and notes (taken without an instrument); default true. */
+    needsInstrument?: boolean;
+    /** The procedure asks for a photo of this step; photoCount is how many the job has of it. */
+    photoRequired?: boolean;
+    photoCount?: number;
   }>;
   /** Every instrument named by a current reading, with the day (YYYY-MM-DD, UTC) of its latest such reading. */
   instruments: ReadonlyArray<{ serial: string; calibrationDueOn: string; lastUsedOn: string }>;
@@ -123,13 +130,20 @@ export function readiness(input: ReadinessInput): Readiness {
         `Step ${s.position} "${s.title}" has no reading ${words}.`,
         `${job}/checklist`,
       );
-    else if (!r.instrumentSerial)
+    else if (!r.instrumentSerial && s.needsInstrument !== false)
       add(
         "reading_without_instrument",
         `Step ${s.position} "${s.title}": the reading ${words} names no instrument.`,
         `${job}/checklist`,
       );
   }
+  for (const s of input.steps)
+    if (s.photoRequired && !(s.photoCount && s.photoCount > 0))
+      add(
+        "photo_missing",
+        `Step ${s.position} "${s.title}" needs a photo (the dial, the set-up or the shims); add it on the checklist.`,
+        `${job}/checklist#step-${s.position}`,
+      );
   for (const i of input.instruments)
     if (i.calibrationDueOn < i.lastUsedOn)
       add(

@@ -5,6 +5,7 @@
  * always say the same thing.
  */
 import type { RecordedDecision } from "@/lib/domain/decisions";
+import type { PhotoAppendixRow } from "./sections/photos";
 
 /** geometry's decision, or "not_measured", or "recorded": a reading kept without a limit to judge it against. */
 export type Decision = RecordedDecision;
@@ -103,6 +104,8 @@ export interface ReportData {
     recordedAtUtc: string;
   }>;
   remarks: string[];
+  /** Photos of the steps that ask for one (lib/report/sections/photos.tsx); absent when none. */
+  photos?: PhotoAppendixRow[];
   safety: string[];
   signatures: ReportSignature[];
   verifyUrl: string;

@@ -19,17 +19,36 @@ const optionalNumber = z.preprocess(
 export const readingCreateSchema = z.object({
   stepId: zUuid("Choose a checklist step."),
   phase: z.enum(PHASES, { message: "Say whether this is before or after the adjustment." }),
+  /** The value read (direct, angle over a distance, record steps); other kinds send none. */
   value: z.preprocess(
-    (v) => (typeof v === "string" ? v.trim().replace(",", ".") : v),
+    (v) => (typeof v === "string" ? (v.trim() === "" ? undefined : v.trim().replace(",", ".")) : v),
     z.coerce
       .number({ message: "Enter the reading as a number." })
-      .refine(Number.isFinite, "Enter the reading as a number."),
+      .refine(Number.isFinite, "Enter the reading as a number.")
+      .optional(),
   ),
+  /** Yes/no check steps: the answer. */
+  answer: z.preprocess(
+    (v) => (v === "" || v === null ? undefined : typeof v === "string" ? v.trim().toLowerCase() : v),
+    z.enum(["yes", "no"], { message: "Answer yes or no." }).optional(),
+  ),
+  /** Multi-point steps: the reading at each named point, in `unit` (checked per point on the server). */
+  points: z
+    .record(z.string().max(20), z.union([z.number(), z.string().max(40), z.null()]), {
+      message: "points must map each point's name to its reading.",
+    })
+    .optional(),
+  /** Note steps: the note; record steps: where the value applies (shim positions). */
+  text: optionalText(2000),
   unit: z.enum(ENTRY_UNITS, { message: "The unit must be mm, in, um or arcsec." }),
   /** angle_over_distance steps: the travel the reading was taken over, in the travelUnit. */
   travel: optionalNumber,
   travelUnit: z.enum(["mm", "in"]).optional(),
-  instrumentId: zUuid("Choose the instrument used from the register."),
+  /** Required for steps read with an instrument (direct, angle over a distance, multi-point). */
+  instrumentId: z.preprocess(
+    (v) => (v === "" || v === null ? undefined : v),
+    zUuid("Choose the instrument used from the register.").optional(),
+  ),
   note: optionalText(2000),
   takenAt: z.preprocess(
     (v) => (v === "" ? undefined : v),

@@ -6,6 +6,11 @@ import { zUuid } from "@/lib/domain/uuid";
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use a date like 2027-03-31.");
 
+const optionalNumber = z.preprocess(
+  (v) => (v === "" || v === null ? undefined : typeof v === "string" ? v.trim().replace(",", ".") : v),
+  z.coerce.number({ message: "Enter a number." }).refine(Number.isFinite, "Enter a number.").optional(),
+);
+
 const instrumentFields = z.object({
   kind: z.string().trim().min(2, "Say what kind of instrument it is.").max(120),
   serial: z.string().trim().min(1, "The serial is required.").max(80),
@@ -20,9 +25,17 @@ const instrumentFields = z.object({
   calibratedOn: isoDate.optional().or(z.literal("")),
   calibrationDueOn: isoDate,
   certificateRef: z.string().trim().max(120).optional(),
+  /** The span it reads over, in the unit above (empty: not stated, not checked on entry). */
+  rangeMin: optionalNumber,
+  rangeMax: optionalNumber,
 });
 
+const rangeInOrder = (v: { rangeMin?: number; rangeMax?: number }) =>
+  v.rangeMin === undefined || v.rangeMax === undefined || v.rangeMin < v.rangeMax;
+const rangeMessage = { path: ["rangeMax"], message: "The top of the range must be above its bottom." };
+
 export const instrumentCreateSchema = instrumentFields
+  .refine(rangeInOrder, rangeMessage)
   .refine((v) => (v.quantityKind === "angle") === (v.unit === "arcsec"), {
     path: ["unit"],
     message: "Angle instruments use arcsec; length instruments mm, in or µm.",
@@ -144,11 +157,23 @@ export const instrumentPatchSchema = patch(
     resolution: true,
     standardUncertainty: true,
     unit: true,
+    rangeMin: true,
+    rangeMax: true,
   }),
-).refine((v) => (v.resolution === undefined && v.standardUncertainty === undefined) || v.unit !== undefined, {
-  path: ["unit"],
-  message: "Give the unit of the resolution and uncertainty.",
-});
+)
+  .refine(rangeInOrder, rangeMessage)
+  .refine(
+    (v) =>
+      (v.resolution === undefined &&
+        v.standardUncertainty === undefined &&
+        v.rangeMin === undefined &&
+        v.rangeMax === undefined) ||
+      v.unit !== undefined,
+    {
+      path: ["unit"],
+      message: "Give the unit of the resolution and uncertainty.",
+    },
+  );
 
 /** `GET /api/users?role=`: the people register, optionally one role. */
 export const userListQuerySchema = z.object({ role: z.enum(ROLES).optional() });

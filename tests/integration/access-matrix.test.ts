@@ -74,6 +74,12 @@ const COVERED = new Set([
   "app/api/procedures/[id]/route.ts",
   // tests/integration/procedures-access.test.ts
   "app/api/procedures/[id]/versions/route.ts",
+  // tests/integration/environment.test.ts
+  "app/api/jobs/[id]/environment/route.ts",
+  // tests/integration/photos.test.ts
+  "app/api/jobs/[id]/photos/route.ts",
+  "app/api/photos/[id]/route.ts",
+  "app/api/photos/[id]/thumb/route.ts",
   // public, static: the load benchmark's ceiling
   "app/api/ping/route.ts",
 ]);

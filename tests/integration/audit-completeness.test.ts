@@ -261,6 +261,8 @@ const AUDITED_TABLES = [
   "signatures",
   "reports",
   "deviations",
+  "photos",
+  "environmentRecords",
 ];
 const WRITE = new RegExp(`\\.(insert|update|delete)\\((${AUDITED_TABLES.join("|")})\\)`, "g");
 

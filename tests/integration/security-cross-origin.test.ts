@@ -14,6 +14,8 @@ import { POST as saveView } from "@/app/api/analyses/[id]/views/route";
 import { POST as authPost } from "@/app/api/auth/[...nextauth]/route";
 import { POST as upload } from "@/app/api/jobs/[id]/datasets/route";
 import { POST as recordReading } from "@/app/api/jobs/[id]/readings/route";
+import { POST as postPhoto } from "@/app/api/jobs/[id]/photos/route";
+import { POST as postEnvironment } from "@/app/api/jobs/[id]/environment/route";
 import { POST as verifyUpload } from "@/app/api/verify/route";
 import { POST as postCustomers } from "@/app/api/customers/route";
 import { PATCH as patchCustomersItem } from "@/app/api/customers/[id]/route";
@@ -70,6 +72,20 @@ const WRITES: { name: string; file: string; method: string; handler: Handler; pa
     file: "app/api/jobs/[id]/datasets/route.ts",
     method: "POST",
     handler: upload as Handler,
+    params: () => ({ id: ids.job }),
+  },
+  {
+    name: "POST /api/jobs/{id}/photos",
+    file: "app/api/jobs/[id]/photos/route.ts",
+    method: "POST",
+    handler: postPhoto as Handler,
+    params: () => ({ id: ids.job }),
+  },
+  {
+    name: "POST /api/jobs/{id}/environment",
+    file: "app/api/jobs/[id]/environment/route.ts",
+    method: "POST",
+    handler: postEnvironment as Handler,
     params: () => ({ id: ids.job }),
   },
   {

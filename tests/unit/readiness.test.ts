@@ -31,6 +31,27 @@ describe("readiness", () => {
     expect(readiness(ready())).toEqual({ ready: true, blockers: [] });
   });
 
+  it("a step that asks for a photo blocks until it has one; answers and notes need no instrument", () => {
+    const i = ready();
+    const answer = { decision: "pass" as const, instrumentSerial: null };
+    i.steps = [
+      ...i.steps,
+      { id: "s2", position: 2, title: "Locked out", pre: answer, post: null, needsInstrument: false },
+      { id: "s3", position: 3, title: "Collar", pre: ok, post: null, photoRequired: true, photoCount: 0 },
+    ];
+    const b = readiness(i).blockers;
+    expect(b.map((x) => x.code)).toEqual(["photo_missing"]);
+    expect(b[0]!.message).toBe(
+      'Step 3 "Collar" needs a photo (the dial, the set-up or the shims); add it on the checklist.',
+    );
+    expect(b[0]!.href).toBe("/jobs/j/checklist#step-3");
+    i.steps = i.steps.map((s) => (s.id === "s3" ? { ...s, photoCount: 1 } : s));
+    expect(readiness(i).ready).toBe(true);
+    // A reading of a step read with an instrument still needs one.
+    i.steps = i.steps.map((s) => (s.id === "s2" ? { ...s, needsInstrument: true } : s));
+    expect(codes(i)).toEqual(["reading_without_instrument"]);
+  });
+
   it("once anything is recorded after adjustment, every step needs its after-adjustment reading", () => {
     const i = ready();
     i.steps = [...i.steps, { id: "s2", position: 2, title: "Tram", pre: ok, post: ok }];

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { StatusButtons, UnitToggle } from "@/components/checklist/job-actions";
+import { EnvironmentPanel } from "@/components/checklist/environment-form";
 import { StepCaution } from "@/components/checklist/step-caution";
 import { StepPanel } from "@/components/checklist/step-panel";
 import { StepAccordion, StepJumpList, StepShell, type StepLine } from "@/components/checklist/step-shell";
@@ -10,13 +11,16 @@ import { LIMIT_SOURCE_LABELS } from "@/components/readings/decision-badge";
 import { KeepJobOffline } from "@/components/readings/keep-offline";
 import { ReadingQueueProvider } from "@/components/readings/queue-provider";
 import { QueueStatus } from "@/components/readings/queue-status";
+import { listEnvironment } from "@/db/queries/environment";
+import { listPhotos } from "@/db/queries/photos";
 import { getChecklist } from "@/db/queries/readings";
 import { getUnitSystem } from "@/db/queries/user-prefs";
 import { STATUS_LABELS, type JobStatus } from "@/lib/domain/jobs";
 import { allowedTransitions } from "@/lib/policy/jobs";
 import { requirePageUser } from "@/lib/auth/session";
 import { cautionOf, expandedUncertainty, judge } from "@/lib/checklist";
-import { formatLimits, formatValue } from "@/lib/units";
+import { shownValue } from "@/lib/step-kinds";
+import { formatLimits } from "@/lib/units";
 
 export const metadata: Metadata = { title: "Checklist" };
 
@@ -29,7 +33,12 @@ const MOVE_LABELS: Partial<Record<JobStatus, string>> = {
 export default async function ChecklistPage({ params }: Props) {
   const { id } = await params;
   const user = await requirePageUser(`/jobs/${id}/checklist`);
-  const [c, unitSystem] = await Promise.all([getChecklist(user, id), getUnitSystem(user)]);
+  const [c, unitSystem, photos, environment] = await Promise.all([
+    getChecklist(user, id),
+    getUnitSystem(user),
+    listPhotos(user, id),
+    listEnvironment(user, id),
+  ]);
   if (!c) notFound();
   const { detail, template, steps, readings, instruments, refusal } = c;
   const canWrite = refusal === null;
@@ -48,7 +57,7 @@ export default async function ChecklistPage({ params }: Props) {
       stepId: s.id,
       title: s.title,
       decision: final ? judge(s, final.value, expandedUncertainty(s, final.instrumentStdU)) : "not_measured",
-      value: final ? formatValue(final.value, s.quantityKind, unitSystem) : null,
+      value: final ? shownValue(s, final, unitSystem) : null,
       by: final?.recordedByName ?? null,
       at: final ? final.takenAt.toISOString() : null,
     };
@@ -90,6 +99,9 @@ export default async function ChecklistPage({ params }: Props) {
                   jobId={id}
                   unmeasured={lines.filter((l) => l.decision === "not_measured").map((l) => l.position)}
                   fails={lines.filter((l) => l.decision === "fail").map((l) => l.position)}
+                  missingPhotos={steps
+                    .filter((s) => s.photoRequired && !photos.some((p) => p.stepId === s.id))
+                    .map((s) => s.position)}
                 />
               ) : null}
             </div>
@@ -104,6 +116,7 @@ export default async function ChecklistPage({ params }: Props) {
               {refusal} Job status: {STATUS_LABELS[detail.job.status]}.
             </p>
           ) : null}
+          <EnvironmentPanel jobId={id} records={environment ?? []} canWrite={canWrite} />
           <StepJumpList lines={lines} />
           <ol className="space-y-3">
             {rows.map(({ s, mine, line }) => (
@@ -116,7 +129,13 @@ export default async function ChecklistPage({ params }: Props) {
                     <div className="space-y-1 text-right">
                       <p className="text-sm text-graphite-600">{s.quantity}</p>
                       <p className="num text-base font-semibold" data-testid={`limits-${s.position}`}>
-                        {formatLimits(s.lowerLimit, s.upperLimit, s.quantityKind, unitSystem)}
+                        {s.derivation === "check"
+                          ? "Expected: yes"
+                          : s.derivation === "record"
+                            ? `For the record${s.recordUnit ? ` (${s.recordUnit})` : ""}`
+                            : s.derivation === "note"
+                              ? "Not judged"
+                              : formatLimits(s.lowerLimit, s.upperLimit, s.quantityKind, unitSystem)}
                       </p>
                       <p className="text-xs text-graphite-500" title={s.limitSourceNote ?? undefined}>
                         Limit: {LIMIT_SOURCE_LABELS[s.limitSource]} ·{" "}
@@ -145,6 +164,10 @@ export default async function ChecklistPage({ params }: Props) {
                       lowerLimit: s.lowerLimit,
                       upperLimit: s.upperLimit,
                       decisionRule: s.decisionRule,
+                      points: s.points,
+                      pointResult: s.pointResult,
+                      recordUnit: s.recordUnit,
+                      photoRequired: s.photoRequired,
                     }}
                     readings={mine.map((r) => ({
                       id: r.id,
@@ -152,6 +175,8 @@ export default async function ChecklistPage({ params }: Props) {
                       value: r.value,
                       enteredValue: r.enteredValue,
                       enteredUnit: r.enteredUnit,
+                      inputs: r.inputs,
+                      textValue: r.textValue,
                       decision: judge(s, r.value, expandedUncertainty(s, r.instrumentStdU)),
                       instrumentId: r.instrumentId,
                       instrumentSerial: r.instrumentSerial,
@@ -160,6 +185,7 @@ export default async function ChecklistPage({ params }: Props) {
                       recordedByName: r.recordedByName,
                       supersededById: r.supersededById,
                     }))}
+                    photos={photos.filter((p) => p.stepId === s.id)}
                     unitSystem={unitSystem}
                     instruments={instruments.map((i) => ({
                       id: i.id,
@@ -169,6 +195,8 @@ export default async function ChecklistPage({ params }: Props) {
                       calibrationDueOn: i.calibrationDueOn,
                       standardUncertainty: i.standardUncertainty,
                       resolution: i.resolution,
+                      rangeMin: i.rangeMin,
+                      rangeMax: i.rangeMax,
                     }))}
                     canWrite={canWrite}
                     today={today}

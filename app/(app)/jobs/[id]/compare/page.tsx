@@ -10,6 +10,7 @@ import { getUnitSystem } from "@/db/queries/user-prefs";
 import { type JobStatus } from "@/lib/domain/jobs";
 import { allowedTransitions } from "@/lib/policy/jobs";
 import { requirePageUser } from "@/lib/auth/session";
+import { shownValue, TEXT_KINDS } from "@/lib/step-kinds";
 import { arcsecToUmPerM, formatLimits, formatValue } from "@/lib/units";
 
 export const metadata: Metadata = { title: "Before and after" };
@@ -105,7 +106,11 @@ export default async function ComparePage({ params }: Props) {
                 if (!v) return <span className="text-graphite-400">—</span>;
                 return (
                   <>
-                    <span className="whitespace-nowrap font-semibold">{fmt(v.value, r.quantityKind)}</span>
+                    <span
+                      className={`font-semibold ${r.derivation === "note" ? "whitespace-normal" : "whitespace-nowrap"}`}
+                    >
+                      {shownValue(r.kindStep, v.shown, unitSystem)}
+                    </span>
                     {r.quantityKind === "angle" ? (
                       <span className="block text-xs text-graphite-500">
                         {arcsecToUmPerM(v.value).toFixed(1)} µm/m
@@ -151,19 +156,22 @@ export default async function ComparePage({ params }: Props) {
 
       <Card title="Readings against their limits">
         <BandChart
-          rows={c.rows.map((r) => ({
-            key: r.stepId,
-            label: `${r.position}. ${r.quantity}`,
-            lower: r.lowerLimit,
-            upper: r.upperLimit,
-            limitText: formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, unitSystem),
-            pre: r.pre
-              ? { value: r.pre.value, decision: r.pre.decision, text: fmt(r.pre.value, r.quantityKind) }
-              : null,
-            post: r.post
-              ? { value: r.post.value, decision: r.post.decision, text: fmt(r.post.value, r.quantityKind) }
-              : null,
-          }))}
+          rows={c.rows
+            .map((r) => ({
+              key: r.stepId,
+              label: `${r.position}. ${r.quantity}`,
+              lower: r.lowerLimit,
+              upper: r.upperLimit,
+              limitText: formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, unitSystem),
+              pre: r.pre
+                ? { value: r.pre.value, decision: r.pre.decision, text: fmt(r.pre.value, r.quantityKind) }
+                : null,
+              post: r.post
+                ? { value: r.post.value, decision: r.post.decision, text: fmt(r.post.value, r.quantityKind) }
+                : null,
+            }))
+            // Answers, records and notes have no place on a scale of lengths.
+            .filter((_, i) => !TEXT_KINDS.includes(c.rows[i]!.derivation))}
         />
       </Card>
     </div>

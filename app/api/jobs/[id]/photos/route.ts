@@ -1,0 +1,38 @@
+// Photos of a job's steps. GET lists those the caller may see; POST takes one photo (multipart:
+// file, stepId, phase, and optionally readingId or readingClientId, clientId, takenAt), checked by
+// its content and re-encoded by the server. 201 with the photo; 200 with the stored one when its
+// clientId was already sent.
+import { addPhoto, listPhotos, parsePhotoForm, requirePhotoJob } from "@/db/queries/photos";
+import { getJobDetail } from "@/db/queries/jobs";
+import { requireUser } from "@/lib/auth/session";
+import { invalid, notFound } from "@/lib/errors";
+import { route } from "@/lib/http";
+import { PHOTO_MAX_BYTES } from "@/lib/photos";
+import { readMultipart } from "@/lib/storage/multipart";
+
+export const runtime = "nodejs";
+export const dynamic = "force-dynamic";
+
+type Ctx = { params: Promise<{ id: string }> };
+
+export const GET = route<Ctx>(async (_req, ctx) => {
+  const { id } = await ctx.params;
+  const actor = await requireUser();
+  if (!(await getJobDetail(actor, id))) throw notFound("job");
+  return Response.json({ photos: await listPhotos(actor, id) });
+});
+
+export const POST = route<Ctx>(async (req, ctx) => {
+  const { id } = await ctx.params;
+  const actor = await requireUser();
+  // Who and where before a byte of the body is read (a repeated send is still answered below).
+  await requirePhotoJob(actor, id).catch(async (err) => {
+    await req.body?.cancel().catch(() => undefined);
+    throw err;
+  });
+  const { fields, file } = await readMultipart(req, PHOTO_MAX_BYTES);
+  if (!file) throw invalid("Choose a photo to send.", [{ field: "file", message: "no file was sent" }]);
+  const form = parsePhotoForm(fields);
+  const { photo, replay } = await addPhoto(actor, id, form, file.data);
+  return Response.json({ photo }, { status: replay ? 200 : 201 });
+});

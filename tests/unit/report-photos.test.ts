@@ -1,0 +1,60 @@
+// The report's appendix of photos: only steps that ask for a photo, in step order, times in UTC;
+// rendered into the PDF (read back with poppler's pdftotext, an independent reader).
+import { execFileSync } from "node:child_process";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { describe, expect, it } from "vitest";
+import { renderReportPdf } from "@/lib/report/render";
+import { photoAppendixRows } from "@/lib/report/sections/photos";
+import { samplePng, samplePngSha256, sampleReport } from "../fixtures/report/sample-report";
+
+const steps = [
+  { stepId: "b", position: 4, title: "Shims", photoRequired: true },
+  { stepId: "a", position: 2, title: "Collar", photoRequired: true },
+  { stepId: "c", position: 1, title: "Lock-out", photoRequired: false },
+];
+const photo = (stepId: string, iso: string, sha256: string) => ({
+  stepId,
+  phase: "pre" as const,
+  takenAt: new Date(iso),
+  uploadedBy: "Iver Sandvik",
+  width: 800,
+  height: 600,
+  sha256,
+});
+
+describe("photo appendix", () => {
+  it("lists the photos of steps that ask for one, by step then time, in UTC", () => {
+    const rows = photoAppendixRows(steps, [
+      photo("b", "2026-12-04T09:10:00Z", "s3"),
+      photo("a", "2026-12-04T09:05:00Z", "s2"),
+      photo("a", "2026-12-04T09:00:00Z", "s1"),
+      photo("c", "2026-12-04T08:00:00Z", "not-listed"),
+    ]);
+    expect(rows.map((r) => r.sha256)).toEqual(["s1", "s2", "s3"]);
+    expect(rows[0]).toMatchObject({
+      step: "2 Collar",
+      phase: "before adjustment",
+      by: "Iver Sandvik",
+      size: "800 × 600 px",
+    });
+    expect(rows[0]!.takenAtUtc).toMatch(/^2026-12-04 09:00/);
+    expect(rows[0]!.takenAtUtc).toMatch(/UTC/);
+  });
+
+  it("is printed in the PDF with each photo's SHA-256", async () => {
+    const sha = "9f".repeat(32);
+    const pdf = await renderReportPdf(
+      { ...sampleReport, photos: photoAppendixRows(steps, [photo("a", "2026-12-04T09:00:00Z", sha)]) },
+      undefined,
+      new Map([[samplePngSha256, samplePng]]),
+    );
+    const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-pdf-"));
+    writeFileSync(path.join(dir, "r.pdf"), pdf);
+    const text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"]).toString("utf8");
+    expect(text).toContain("Appendix: photos kept with the record");
+    expect(text).toContain("Step 2 Collar, before adjustment");
+    expect(text.replace(/\s+/g, "")).toContain(`SHA-256${sha}`);
+  }, 30_000);
+});
