@@ -26,19 +26,15 @@ import {
 } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
 import type { Actor } from "@/lib/domain/roles";
-import { AppError } from "@/lib/errors";
 import { processOutbox } from "@/lib/mail/worker";
-import { jobIdByReference, request, signInAs } from "./helpers";
+import { actorsOf, BASE_JOB, insertTestJob, refusalOf } from "./fixtures";
+import { request, signInAs } from "./helpers";
+import { jobBaseOf } from "./ready-job";
 
 let jobId: string;
 const step: Record<number, string> = {};
 const inst: Record<string, string> = {};
 const as: Record<string, Actor> = {};
-
-async function actor(email: string): Promise<Actor> {
-  const [u] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
-  return (await getActor(u!.id))!;
-}
 
 async function post(body: Record<string, unknown>, id = jobId) {
   const res = await readingsPost(
@@ -52,42 +48,21 @@ async function post(body: Record<string, unknown>, id = jobId) {
   return { status: res.status, json: await res.json() };
 }
 
-async function failure(p: Promise<unknown>): Promise<AppError> {
-  try {
-    await p;
-  } catch (e) {
-    if (e instanceof AppError) return e;
-    throw e;
-  }
-  throw new Error("expected a refusal");
-}
-
 beforeAll(async () => {
-  for (const e of ["admin@halvard.example", "installer@halvard.example", "engineer@halvard.example"])
-    as[e.split("@")[0]!] = await actor(e);
-  const [base] = await db
-    .select()
-    .from(jobs)
-    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
-  const [row] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-CHK-${Date.now().toString(36)}`,
-      title: "Checklist test job",
-      kind: "reverification",
-      status: "draft",
-      customerId: base!.customerId,
-      machineId: base!.machineId,
-      headId: base!.headId,
-      assignedInstallerId: as.installer!.id,
-      templateId: base!.templateId,
-    })
-    .returning();
-  jobId = row!.id;
-  for (const s of await db
-    .select()
-    .from(templateSteps)
-    .where(eq(templateSteps.templateId, base!.templateId!)))
+  Object.assign(
+    as,
+    await actorsOf(["admin@halvard.example", "installer@halvard.example", "engineer@halvard.example"]),
+  );
+  const base = await jobBaseOf(BASE_JOB);
+  jobId = await insertTestJob({
+    tag: "CHK",
+    title: "Checklist test job",
+    status: "draft",
+    template: true,
+    base,
+    assignedInstallerId: as.installer!.id,
+  });
+  for (const s of await db.select().from(templateSteps).where(eq(templateSteps.templateId, base.templateId)))
     step[s.position] = s.id;
   for (const i of await db.select().from(instruments)) inst[i.serial] = i.id;
 });
@@ -255,7 +230,7 @@ describe("recording readings", () => {
 
 describe("status moves", () => {
   it("an installer cannot approve; submitting for review notifies engineers and inspectors and locks the readings", async () => {
-    const e = await failure(changeJobStatus(as.installer!, jobId, "approved"));
+    const e = await refusalOf(changeJobStatus(as.installer!, jobId, "approved"));
     expect(e.status).toBe(403);
     await changeJobStatus(as.installer!, jobId, "in_review");
     const mails = await db.select().from(outbox).where(eq(outbox.jobId, jobId));
@@ -276,7 +251,7 @@ describe("status moves", () => {
     expect(locked.json.error.message).toMatch(/in review; its readings are locked/);
     // Issue goes through the signed report, not a bare status change.
     await changeJobStatus(as.engineer!, jobId, "approved");
-    expect((await failure(changeJobStatus(as.engineer!, jobId, "issued"))).status).toBe(403);
+    expect((await refusalOf(changeJobStatus(as.engineer!, jobId, "issued"))).status).toBe(403);
   });
 });
 
@@ -384,14 +359,17 @@ describe("invitation and set-password", () => {
     await setPasswordWithToken(token, "a-long-new-password");
     const [u] = await db.select().from(users).where(eq(users.id, userId));
     expect(await verifyPassword("a-long-new-password", u!.passwordHash)).toBe(true);
-    expect((await failure(setPasswordWithToken(token, "another-password"))).status).toBe(410);
-    expect((await failure(setPasswordWithToken("x".repeat(43), "another-password"))).status).toBe(410);
+    expect((await refusalOf(setPasswordWithToken(token, "another-password"))).status).toBe(410);
+    expect((await refusalOf(setPasswordWithToken("x".repeat(43), "another-password"))).status).toBe(410);
   });
 
   it("only an administrator invites; disabling and a role change end open sessions", async () => {
     expect(
-      (await failure(inviteUser(as.engineer!, { email: "x@halvard.example", name: "X", role: "installer" })))
-        .status,
+      (
+        await refusalOf(
+          inviteUser(as.engineer!, { email: "x@halvard.example", name: "X", role: "installer" }),
+        )
+      ).status,
     ).toBe(403);
     const { userId } = await inviteUser(as.admin!, {
       email: `role.${Date.now().toString(36)}@halvard.example`,
@@ -405,7 +383,9 @@ describe("invitation and set-password", () => {
     expect((await getActor(userId, Date.now() + 1000))!.role).toBe("inspector");
     await updateUser(as.admin!, { userId, disabled: true });
     expect(await getActor(userId, Date.now() + 1000)).toBeNull();
-    expect((await failure(updateUser(as.admin!, { userId: as.admin!.id, disabled: true }))).status).toBe(403);
+    expect((await refusalOf(updateUser(as.admin!, { userId: as.admin!.id, disabled: true }))).status).toBe(
+      403,
+    );
   });
 });
 
@@ -421,10 +401,10 @@ describe("registers and jobs from a procedure", () => {
       unit: "in" as const,
       calibrationDueOn: "2027-12-31",
     };
-    expect((await failure(createInstrument(as.engineer!, input))).status).toBe(403);
+    expect((await refusalOf(createInstrument(as.engineer!, input))).status).toBe(403);
     const row = await createInstrument(as.admin!, input);
     expect(row.resolution).toBeCloseTo(0.00254, 12);
-    expect((await failure(createInstrument(as.admin!, input))).issues?.[0]?.field).toBe("serial");
+    expect((await refusalOf(createInstrument(as.admin!, input))).issues?.[0]?.field).toBe("serial");
   });
 
   it("editing a procedure makes a new version; a job keeps the version it started with", async () => {
@@ -434,8 +414,8 @@ describe("registers and jobs from a procedure", () => {
       .select()
       .from(templateSteps)
       .where(eq(templateSteps.templateId, job!.templateId!));
-    expect((await failure(createTemplateVersion(as.engineer!, job!.templateId!, []))).status).toBe(403);
-    const bad = await failure(
+    expect((await refusalOf(createTemplateVersion(as.engineer!, job!.templateId!, []))).status).toBe(403);
+    const bad = await refusalOf(
       createTemplateVersion(as.admin!, job!.templateId!, [
         {
           position: 1,
@@ -487,9 +467,9 @@ describe("registers and jobs from a procedure", () => {
       assignedInstallerId: as.installer!.id,
       decisionRule: "simple" as const,
     };
-    expect((await failure(createJobFromTemplate(as.installer!, input))).status).toBe(403);
+    expect((await refusalOf(createJobFromTemplate(as.installer!, input))).status).toBe(403);
     expect(
-      (await failure(createJobFromTemplate(as.admin!, { ...input, assignedInstallerId: as.engineer!.id })))
+      (await refusalOf(createJobFromTemplate(as.admin!, { ...input, assignedInstallerId: as.engineer!.id })))
         .issues?.[0]?.field,
     ).toBe("assignedInstallerId");
     const job = await createJobFromTemplate(as.admin!, input);
@@ -513,13 +493,13 @@ describe("heads register", () => {
   it("moving a head is kept in its history; only an administrator moves it; an engineer reads it", async () => {
     const { getHeadWithHistory, mountHead } = await import("@/db/queries/heads-admin");
     const [base] = await db.select().from(jobs).where(eq(jobs.id, jobId));
-    expect((await failure(mountHead(as.engineer!, base!.headId, null))).status).toBe(403);
+    expect((await refusalOf(mountHead(as.engineer!, base!.headId, null))).status).toBe(403);
     await mountHead(as.admin!, base!.headId, null);
     await mountHead(as.admin!, base!.headId, base!.machineId);
     const h = await getHeadWithHistory(as.engineer!, base!.headId);
     expect(h!.head.machineId).toBe(base!.machineId);
     expect(h!.history.slice(-2).map((e) => e.action)).toEqual(["head.removed", "head.mounted"]);
-    expect((await failure(getHeadWithHistory(as.installer!, base!.headId))).status).toBe(403);
+    expect((await refusalOf(getHeadWithHistory(as.installer!, base!.headId))).status).toBe(403);
   });
 });
 
@@ -527,9 +507,9 @@ describe("customers, sites, machines and heads", () => {
   it("an administrator adds each, audited; another role is refused; duplicates name the field", async () => {
     const r = await import("@/db/queries/registers-admin");
     const tag = Date.now().toString(36);
-    expect((await failure(r.createCustomer(as.engineer!, { name: `Cust ${tag}` }))).status).toBe(403);
+    expect((await refusalOf(r.createCustomer(as.engineer!, { name: `Cust ${tag}` }))).status).toBe(403);
     const c = await r.createCustomer(as.admin!, { name: `Cust ${tag}`, contactEmail: "" });
-    expect((await failure(r.createCustomer(as.admin!, { name: `cust ${tag}` }))).issues?.[0]?.field).toBe(
+    expect((await refusalOf(r.createCustomer(as.admin!, { name: `cust ${tag}` }))).issues?.[0]?.field).toBe(
       "name",
     );
     const s = await r.createSite(as.admin!, { customerId: c.id, name: "Plant 9" });
@@ -543,7 +523,7 @@ describe("customers, sites, machines and heads", () => {
     });
     expect(
       (
-        await failure(
+        await refusalOf(
           r.createHead(as.admin!, {
             serial: `TH-${tag}`,
             primaryAxis: "C",

@@ -17,35 +17,30 @@ import { getReadiness, getReadinessView, recordDeviation } from "@/db/queries/re
 import { recordReading } from "@/db/queries/readings";
 import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
-import { getActor } from "@/db/queries/users";
-import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { auditEvents, deviations, instruments, jobs, readings, reports, templateSteps } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import type { BlockerCode } from "@/lib/report/readiness";
 import type { ReportData } from "@/lib/report/types";
 import { upload } from "./dataset-helpers";
+import { actorsOf, BASE_JOB, DEMO_PASSWORD, insertTestJob, uploadDemoProbe } from "./fixtures";
 import { signInAs } from "./helpers";
 import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
-const PW = "trammel-demo";
+const PW = DEMO_PASSWORD;
 const as: Record<string, Actor> = {};
 let base: { customerId: string; machineId: string; headId: string; templateId: string };
 
-async function newJob(status: "measuring" | "approved" = "measuring"): Promise<string> {
-  const [row] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-RDY-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`,
-      title: "Readiness test job",
-      kind: "installation",
-      status,
-      ...base,
-      assignedInstallerId: as.installer!.id,
-    })
-    .returning();
-  return row!.id;
-}
+const newJob = (status: "measuring" | "approved" = "measuring") =>
+  insertTestJob({
+    tag: "RDY",
+    title: "Readiness test job",
+    kind: "installation",
+    status,
+    template: true,
+    base,
+    assignedInstallerId: as.installer!.id,
+  });
 
 const setStatus = (jobId: string, status: "measuring" | "in_review" | "approved") =>
   db.update(jobs).set({ status }).where(eq(jobs.id, jobId));
@@ -64,9 +59,11 @@ async function refusedCodes(jobId: string): Promise<BlockerCode[]> {
 }
 
 beforeAll(async () => {
-  for (const e of ["installer", "inspector", "engineer", "admin"])
-    as[e] = (await getActor((await signInAs(`${e}@halvard.example`))!))!;
-  base = await jobBaseOf("TR-2026-0052");
+  Object.assign(
+    as,
+    await actorsOf(["installer", "inspector", "engineer", "admin"].map((e) => `${e}@halvard.example`)),
+  );
+  base = await jobBaseOf(BASE_JOB);
 });
 
 describe("issue is refused while any blocker stands", () => {
@@ -108,15 +105,7 @@ describe("issue is refused while any blocker stands", () => {
       instrumentId: inst!.id,
       supersedesId: current!.id,
     });
-    await signInAs("installer@halvard.example");
-    const up = await upload(
-      jobId,
-      Buffer.from(demoSphereProbeCsv()),
-      { kind: "sphere_probe", phase: "pre", units: "mm" },
-      "probe.csv",
-    );
-    expect(up.status).toBe(201);
-    const datasetId = ((await up.json()) as { id: string }).id;
+    const datasetId = await uploadDemoProbe(jobId);
     await setStatus(jobId, "approved");
     const codes = await refusedCodes(jobId);
     expect(codes).toContain("dataset_not_evaluated");

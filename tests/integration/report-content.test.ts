@@ -18,17 +18,14 @@ import { changeJobStatus } from "@/db/queries/job-status";
 import { getJobConformity, issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
 import { createTemplateVersion } from "@/db/queries/templates";
-import { getActor } from "@/db/queries/users";
-import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { jobs, procedureTemplates, reports, templateParameterLimits, templateSteps } from "@/db/schema";
+import { procedureTemplates, reports, templateParameterLimits, templateSteps } from "@/db/schema";
 import type { HeadFitJson } from "@/geometry";
 import type { Actor } from "@/lib/domain/roles";
 import type { ReportData } from "@/lib/report/types";
-import { upload } from "./dataset-helpers";
-import { jobIdByReference, signInAs } from "./helpers";
-import { carryOpenResults, measureEveryStep } from "./ready-job";
+import { actorsOf, BASE_JOB, DEMO_PASSWORD, insertTestJob, uploadDemoProbe } from "./fixtures";
+import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
-const PW = "trammel-demo";
+const PW = DEMO_PASSWORD;
 const as: Record<string, Actor> = {};
 let jobId = "";
 let templateId = "";
@@ -45,47 +42,26 @@ const viewPng = (() => {
 })();
 
 beforeAll(async () => {
-  for (const e of [
-    "admin@halvard.example",
-    "installer@halvard.example",
-    "inspector@halvard.example",
-    "engineer@halvard.example",
-    "buyer@marlowcreek.example",
-    "buyer@tollan.example",
-  ]) {
-    as[e.endsWith("tollan.example") ? "buyer-tollan" : e.split("@")[0]!] = (await getActor(
-      (await signInAs(e))!,
-    ))!;
-  }
-  const [t] = await db
-    .select()
-    .from(jobs)
-    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
-  templateId = t!.templateId!;
-  const [row] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-RPT-${Date.now().toString(36)}`,
-      title: "Report content test job",
-      kind: "reverification",
-      status: "measuring",
-      customerId: t!.customerId,
-      machineId: t!.machineId,
-      headId: t!.headId,
-      templateId,
-      assignedInstallerId: as.installer!.id,
-    })
-    .returning();
-  jobId = row!.id;
-  await signInAs("installer@halvard.example");
-  const up = await upload(
-    jobId,
-    Buffer.from(demoSphereProbeCsv()),
-    { kind: "sphere_probe", phase: "pre", units: "mm" },
-    "probe.csv",
+  Object.assign(
+    as,
+    await actorsOf([
+      "admin@halvard.example",
+      "installer@halvard.example",
+      "inspector@halvard.example",
+      "engineer@halvard.example",
+      "buyer@marlowcreek.example",
+      "buyer@tollan.example",
+    ]),
   );
-  expect(up.status).toBe(201);
-  const { analysis } = await runHeadFit(as.engineer!, (await up.json()).id);
+  templateId = (await jobBaseOf(BASE_JOB)).templateId;
+  jobId = await insertTestJob({
+    tag: "RPT",
+    title: "Report content test job",
+    status: "measuring",
+    template: true,
+    assignedInstallerId: as.installer!.id,
+  });
+  const { analysis } = await runHeadFit(as.engineer!, await uploadDemoProbe(jobId));
   fit = analysis.result.fit;
   poseResiduals = analysis.result.poses.residual_um.map((r) => [...r]);
   // The gates before issue (lib/report/readiness.ts): every step measured, signed over that record,
