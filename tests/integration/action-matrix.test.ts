@@ -25,6 +25,8 @@ import {
   insertTestJob,
   instrumentIdBySerial,
   signInActor,
+  WHO,
+  type Who,
   uploadDemoProbe,
   type JobBase,
 } from "./fixtures";
@@ -42,23 +44,7 @@ const setPassword = await import("@/app/(auth)/set-password/actions");
 const people = await import("@/app/(app)/registers/people/actions");
 const forgotPassword = await import("@/app/(auth)/forgot-password/actions");
 
-type Who =
-  | "anonymous"
-  | "admin"
-  | "installer"
-  | "inspector"
-  | "engineer"
-  | "customer (Marlow Creek)"
-  | "customer (Tollan)";
-const EMAIL: Record<Who, string | null> = {
-  anonymous: null,
-  admin: "admin@halvard.example",
-  installer: "installer@halvard.example",
-  inspector: "inspector@halvard.example",
-  engineer: "engineer@halvard.example",
-  "customer (Marlow Creek)": "buyer@marlowcreek.example",
-  "customer (Tollan)": "buyer@tollan.example",
-};
+const EMAIL = WHO;
 type Outcome = "pass" | "unauthorized" | "forbidden" | "not_found";
 const ACCESS_CODES = new Set(["unauthorized", "forbidden", "not_found"]);
 /** Refusals about the input, not the person: a field to correct, a one-time link already used, or a job not yet ready for its report. */

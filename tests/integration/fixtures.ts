@@ -17,6 +17,21 @@ import { upload } from "./dataset-helpers";
 import { signInAs } from "./helpers";
 import { jobBaseOf } from "./ready-job";
 
+/**
+ * Who the access tables ask about: anonymous, each staff role and each tenant's customer, with the
+ * demo user's e-mail (db/seed.ts). The expected outcome for each stays written by hand in the test.
+ */
+export const WHO = {
+  anonymous: null,
+  admin: "admin@halvard.example",
+  installer: "installer@halvard.example",
+  inspector: "inspector@halvard.example",
+  engineer: "engineer@halvard.example",
+  "customer (Marlow Creek)": "buyer@marlowcreek.example",
+  "customer (Tollan)": "buyer@tollan.example",
+} as const;
+export type Who = keyof typeof WHO;
+
 /** The demo users' password (db/seed.ts). */
 export const DEMO_PASSWORD = "trammel-demo";
 /** The seeded Marlow Creek job (measuring) whose customer, machine, head and procedure test jobs borrow. */
