@@ -19,7 +19,7 @@ import type { Actor } from "@/lib/domain/roles";
 import { canonicalJson } from "@/lib/canonical-json";
 import { AppError } from "@/lib/errors";
 import { upload } from "./dataset-helpers";
-import { actorsOf, insertTestJob, uploadDemoProbe } from "./fixtures";
+import { allActors, insertTestJob, uploadDemoProbe } from "./fixtures";
 import { request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
@@ -43,17 +43,7 @@ async function status(promise: Promise<unknown>): Promise<number> {
 }
 
 beforeAll(async () => {
-  Object.assign(
-    as,
-    await actorsOf([
-      "admin@halvard.example",
-      "installer@halvard.example",
-      "inspector@halvard.example",
-      "engineer@halvard.example",
-      "buyer@marlowcreek.example",
-      "buyer@tollan.example",
-    ]),
-  );
+  Object.assign(as, await allActors());
   jobId = await insertTestJob({
     tag: "FIT",
     title: "Head fit test job",

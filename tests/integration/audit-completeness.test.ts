@@ -34,7 +34,7 @@ import type { Actor } from "@/lib/domain/roles";
 import { PNG } from "pngjs";
 import { upload } from "./dataset-helpers";
 import {
-  actorsOf,
+  allActors,
   BASE_JOB,
   DEMO_PASSWORD,
   firstStepOf,
@@ -48,16 +48,7 @@ const as: Record<string, Actor> = {};
 let jobId = "";
 
 beforeAll(async () => {
-  Object.assign(
-    as,
-    await actorsOf([
-      "admin@halvard.example",
-      "installer@halvard.example",
-      "inspector@halvard.example",
-      "engineer@halvard.example",
-      "buyer@marlowcreek.example",
-    ]),
-  );
+  Object.assign(as, await allActors());
   const t = await jobBaseOf(BASE_JOB);
   const job = await createJobFromTemplate(as.admin!, {
     templateId: t.templateId,

@@ -14,20 +14,18 @@ import { db } from "@/db";
 import { changeJobStatus } from "@/db/queries/job-status";
 import { getActor } from "@/db/queries/users";
 import { inviteUser, setPasswordWithToken, tokenHash, updateUser } from "@/db/queries/users-admin";
-import {
-  auditEvents,
-  instruments,
-  jobs,
-  outbox,
-  readings,
-  templateSteps,
-  userTokens,
-  users,
-} from "@/db/schema";
+import { auditEvents, jobs, outbox, readings, templateSteps, userTokens, users } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
 import type { Actor } from "@/lib/domain/roles";
 import { processOutbox } from "@/lib/mail/worker";
-import { actorsOf, BASE_JOB, insertTestJob, refusalOf } from "./fixtures";
+import {
+  allActors,
+  BASE_JOB,
+  insertTestJob,
+  refusalOf,
+  instrumentIdsBySerial,
+  stepIdsByPosition,
+} from "./fixtures";
 import { request, signInAs } from "./helpers";
 import { jobBaseOf } from "./ready-job";
 
@@ -49,10 +47,7 @@ async function post(body: Record<string, unknown>, id = jobId) {
 }
 
 beforeAll(async () => {
-  Object.assign(
-    as,
-    await actorsOf(["admin@halvard.example", "installer@halvard.example", "engineer@halvard.example"]),
-  );
+  Object.assign(as, await allActors());
   const base = await jobBaseOf(BASE_JOB);
   jobId = await insertTestJob({
     tag: "CHK",
@@ -62,9 +57,8 @@ beforeAll(async () => {
     base,
     assignedInstallerId: as.installer!.id,
   });
-  for (const s of await db.select().from(templateSteps).where(eq(templateSteps.templateId, base.templateId)))
-    step[s.position] = s.id;
-  for (const i of await db.select().from(instruments)) inst[i.serial] = i.id;
+  Object.assign(step, await stepIdsByPosition(base.templateId));
+  Object.assign(inst, await instrumentIdsBySerial());
 });
 
 describe("recording readings", () => {

@@ -31,6 +31,8 @@ export const WHO = {
   "customer (Tollan)": "buyer@tollan.example",
 } as const;
 export type Who = keyof typeof WHO;
+/** Every demo person who signs in: the four staff roles and both tenants' customers. */
+export const PEOPLE = Object.values(WHO).filter((e) => e !== null);
 
 /** The demo users' password (db/seed.ts). */
 export const DEMO_PASSWORD = "trammel-demo";
@@ -55,6 +57,9 @@ export async function actorsOf(emails: readonly string[]): Promise<Record<string
     as[e.split("@")[0]! + (e.endsWith("@tollan.example") ? "-tollan" : "")] = await signInActor(e);
   return as;
 }
+
+/** actorsOf every demo person: admin, installer, inspector, engineer, buyer, buyer-tollan. */
+export const allActors = () => actorsOf(PEOPLE);
 
 export type JobBase = Awaited<ReturnType<typeof jobBaseOf>>;
 
@@ -139,6 +144,18 @@ export async function firstStepOf(templateId: string): Promise<string> {
     .orderBy(asc(templateSteps.position))
     .limit(1);
   return step!.id;
+}
+
+/** The ids of a procedure's steps by their position (1, 2, …). */
+export async function stepIdsByPosition(templateId: string): Promise<Record<number, string>> {
+  const rows = await db.select().from(templateSteps).where(eq(templateSteps.templateId, templateId));
+  return Object.fromEntries(rows.map((s) => [s.position, s.id]));
+}
+
+/** The ids of every registered instrument by serial. */
+export async function instrumentIdsBySerial(): Promise<Record<string, string>> {
+  const rows = await db.select({ id: instruments.id, serial: instruments.serial }).from(instruments);
+  return Object.fromEntries(rows.map((i) => [i.serial, i.id]));
 }
 
 /** The id of a registered instrument by serial (the seed's dial indicator is "DTI-0112"). */

@@ -5,10 +5,6 @@
 // accurately and unambiguously), §7.8.2.1 b/e/p (method, item and deviations identified),
 // §7.8.4.1 with §6.4/§6.5 (calibrated equipment, traceability) and §7.8.6 (statement of
 // conformity) are the clauses these gates protect.
-import { execFileSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import path from "node:path";
 import { and, asc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
@@ -22,8 +18,9 @@ import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import type { BlockerCode } from "@/lib/report/readiness";
 import type { ReportData } from "@/lib/report/types";
+import { pdfText } from "../pdf-tools";
 import { upload } from "./dataset-helpers";
-import { actorsOf, BASE_JOB, DEMO_PASSWORD, insertTestJob, uploadDemoProbe } from "./fixtures";
+import { allActors, BASE_JOB, DEMO_PASSWORD, insertTestJob, uploadDemoProbe } from "./fixtures";
 import { signInAs } from "./helpers";
 import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
@@ -59,10 +56,7 @@ async function refusedCodes(jobId: string): Promise<BlockerCode[]> {
 }
 
 beforeAll(async () => {
-  Object.assign(
-    as,
-    await actorsOf(["installer", "inspector", "engineer", "admin"].map((e) => `${e}@halvard.example`)),
-  );
+  Object.assign(as, await allActors());
   base = await jobBaseOf(BASE_JOB);
 });
 
@@ -213,11 +207,7 @@ describe("issue is refused while any blocker stands", () => {
     // conformity and lists the deviation with its justification and approver (read by pdftotext).
     const [r] = await db.select().from(reports).where(eq(reports.id, reportId));
     expect((r!.content as ReportData).conformity?.verdict).toBe("conforms_with_deviations");
-    const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-rdy-"));
-    writeFileSync(path.join(dir, "r.pdf"), r!.pdf);
-    const text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"])
-      .toString("utf8")
-      .replace(/\s+/g, " ");
+    const text = pdfText(r!.pdf, true);
     expect(text).toContain("Statement of conformity Conforms with the listed deviations accepted");
     expect(text).toMatch(
       /Deviation: Step 1: .+ \(FAIL\) is carried into this report\. Justification: Collar face run-out/,

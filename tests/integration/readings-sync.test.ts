@@ -7,8 +7,8 @@ import { and, asc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
-import { auditEvents, instruments, jobs, readings, templateSteps, users } from "@/db/schema";
-import { BASE_JOB, insertTestJob, type JobBase } from "./fixtures";
+import { auditEvents, jobs, readings, users } from "@/db/schema";
+import { BASE_JOB, insertTestJob, type JobBase, instrumentIdsBySerial, stepIdsByPosition } from "./fixtures";
 import { request, signInAs } from "./helpers";
 import { jobBaseOf } from "./ready-job";
 
@@ -58,9 +58,8 @@ beforeAll(async () => {
   base = await jobBaseOf(BASE_JOB);
   const [u] = await db.select().from(users).where(eq(users.email, "installer@halvard.example"));
   installerId = u!.id;
-  for (const s of await db.select().from(templateSteps).where(eq(templateSteps.templateId, base.templateId)))
-    step[s.position] = s.id;
-  for (const i of await db.select().from(instruments)) inst[i.serial] = i.id;
+  Object.assign(step, await stepIdsByPosition(base.templateId));
+  Object.assign(inst, await instrumentIdsBySerial());
   await signInAs("installer@halvard.example");
 });
 

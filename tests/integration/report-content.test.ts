@@ -3,11 +3,7 @@
 // rules: simple = inside the limits; guarded = inside the limits narrowed by U, outside the limits
 // widened by U fails), the engineer's saved 3D view embedded byte for byte (pdfimages, from
 // poppler, an independent reader), and the charts' numbers. Job of its own.
-import { execFileSync } from "node:child_process";
 import { createHash } from "node:crypto";
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import path from "node:path";
 import { eq } from "drizzle-orm";
 import { PNG } from "pngjs";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -22,7 +18,8 @@ import { procedureTemplates, reports, templateParameterLimits, templateSteps } f
 import type { HeadFitJson } from "@/geometry";
 import type { Actor } from "@/lib/domain/roles";
 import type { ReportData } from "@/lib/report/types";
-import { actorsOf, BASE_JOB, DEMO_PASSWORD, insertTestJob, uploadDemoProbe } from "./fixtures";
+import { pdfFile, pdfImageSizes, pdfText } from "../pdf-tools";
+import { allActors, BASE_JOB, DEMO_PASSWORD, insertTestJob, uploadDemoProbe } from "./fixtures";
 import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
 const PW = DEMO_PASSWORD;
@@ -42,17 +39,7 @@ const viewPng = (() => {
 })();
 
 beforeAll(async () => {
-  Object.assign(
-    as,
-    await actorsOf([
-      "admin@halvard.example",
-      "installer@halvard.example",
-      "inspector@halvard.example",
-      "engineer@halvard.example",
-      "buyer@marlowcreek.example",
-      "buyer@tollan.example",
-    ]),
-  );
+  Object.assign(as, await allActors());
   templateId = (await jobBaseOf(BASE_JOB)).templateId;
   jobId = await insertTestJob({
     tag: "RPT",
@@ -165,19 +152,9 @@ describe("the saved 3D view in the report", () => {
     expect(content.figures).toHaveLength(1);
     expect(content.figures[0]!.sha256).toBe(createHash("sha256").update(viewPng).digest("hex"));
     expect(content.figures[0]!.caption).toMatch(/× 300.*Looking along −Y/);
-    const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-report-"));
-    writeFileSync(path.join(dir, "r.pdf"), pdf);
-    const list = execFileSync("pdfimages", ["-list", path.join(dir, "r.pdf")]).toString("utf8");
-    const sizes = list
-      .split("\n")
-      .slice(2)
-      .map((l) => l.trim().split(/\s+/))
-      .filter((c) => c.length > 4)
-      .map((c) => `${c[3]}x${c[4]}`);
-    expect(sizes).toContain("64x40");
-    const text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"])
-      .toString("utf8")
-      .replace(/\s+/g, " ");
+    const file = pdfFile(pdf);
+    expect(pdfImageSizes(file)).toContain("64x40");
+    const text = pdfText(file, true);
     expect(text).toContain("Fitted head parameters against the procedure's limits.");
     expect(text).toContain("Residuals of the approved head fit per pose.");
   });

@@ -9,23 +9,14 @@ import { signJobWork } from "@/db/queries/signatures";
 import { verifyPdfFile, verifyReport } from "@/db/queries/verification";
 import { jobs, outbox, reports, signatures } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
-import { actorsOf, dbError, DEMO_PASSWORD, refusalOf, insertTestJob } from "./fixtures";
+import { allActors, dbError, DEMO_PASSWORD, refusalOf, insertTestJob } from "./fixtures";
 
 const PW = DEMO_PASSWORD;
 let jobId: string;
 const as: Record<string, Actor> = {};
 
 beforeAll(async () => {
-  Object.assign(
-    as,
-    await actorsOf([
-      "installer@halvard.example",
-      "inspector@halvard.example",
-      "engineer@halvard.example",
-      "buyer@marlowcreek.example",
-      "buyer@tollan.example",
-    ]),
-  );
+  Object.assign(as, await allActors());
   // A job of its own, so other tests' data is untouched.
   jobId = await insertTestJob({
     tag: "TEST",

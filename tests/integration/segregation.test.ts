@@ -17,7 +17,7 @@ import { hashPassword } from "@/lib/auth/password";
 import type { Actor } from "@/lib/domain/roles";
 import { env } from "@/lib/env";
 import {
-  actorsOf,
+  allActors,
   BASE_JOB,
   DEMO_PASSWORD,
   firstStepOf,
@@ -46,10 +46,7 @@ const newJob = (installerId: string) =>
   });
 
 beforeAll(async () => {
-  Object.assign(
-    as,
-    await actorsOf(["installer", "inspector", "engineer", "admin"].map((e) => `${e}@halvard.example`)),
-  );
+  Object.assign(as, await allActors());
   base = await jobBaseOf(BASE_JOB);
   stepId = await firstStepOf(base.templateId);
   instrumentId = await instrumentIdBySerial();
