@@ -9,18 +9,8 @@
 import "server-only";
 import type { z } from "zod";
 import { createInstrument, listInstruments, updateInstrument } from "@/db/queries/instruments";
-import { listCustomersWithSites, listHeads, listMachines, listSites } from "@/db/queries/registers";
-import {
-  assertRegisterEdit,
-  createCustomer,
-  createHead,
-  createMachine,
-  createSite,
-  updateCustomer,
-  updateHead,
-  updateMachine,
-  updateSite,
-} from "@/db/queries/registers-admin";
+import * as lists from "@/db/queries/registers";
+import * as admin from "@/db/queries/registers-admin";
 import { requireUser } from "@/lib/auth/session";
 import type { Actor } from "@/lib/domain/roles";
 import { notFound } from "@/lib/errors";
@@ -46,7 +36,7 @@ export function registerCollection<S extends z.ZodType>(o: {
     }),
     POST: route(async (req) => {
       const actor = await requireUser();
-      assertRegisterEdit(actor, o.register);
+      admin.assertRegisterEdit(actor, o.register);
       const input = o.schema.parse(await readJson(req));
       return Response.json({ [o.singular]: await o.create(actor, input) }, { status: 201 });
     }),
@@ -64,7 +54,7 @@ export function registerItem<S extends z.ZodType>(o: {
     PATCH: route<IdCtx>(async (req, ctx) => {
       const { id } = await ctx.params;
       const actor = await requireUser();
-      assertRegisterEdit(actor, o.register);
+      admin.assertRegisterEdit(actor, o.register);
       const input = o.schema.parse(await readJson(req));
       const row = await o.update(actor, id, input);
       if (!row) throw notFound(o.singular);
@@ -93,17 +83,17 @@ const corrects = <S extends z.ZodType>(schema: S, update: Update<S>) => ({
 });
 
 const ADD = {
-  customers: adds(listCustomersWithSites, v.customerCreateSchema, createCustomer),
-  sites: adds(listSites, v.siteCreateSchema, createSite),
-  machines: adds(listMachines, v.machineCreateSchema, createMachine),
-  heads: adds(listHeads, v.headCreateSchema, createHead),
+  customers: adds(lists.listCustomersWithSites, v.customerCreateSchema, admin.createCustomer),
+  sites: adds(lists.listSites, v.siteCreateSchema, admin.createSite),
+  machines: adds(lists.listMachines, v.machineCreateSchema, admin.createMachine),
+  heads: adds(lists.listHeads, v.headCreateSchema, admin.createHead),
   instruments: adds(listInstruments, v.instrumentCreateSchema, createInstrument),
 };
 const CORRECT: Record<RegisterApi, ReturnType<typeof corrects>> = {
-  customers: corrects(v.customerPatchSchema, updateCustomer),
-  sites: corrects(v.sitePatchSchema, updateSite),
-  machines: corrects(v.machinePatchSchema, updateMachine),
-  heads: corrects(v.headPatchSchema, updateHead),
+  customers: corrects(v.customerPatchSchema, admin.updateCustomer),
+  sites: corrects(v.sitePatchSchema, admin.updateSite),
+  machines: corrects(v.machinePatchSchema, admin.updateMachine),
+  heads: corrects(v.headPatchSchema, admin.updateHead),
   instruments: corrects(v.instrumentPatchSchema, updateInstrument),
 };
 /** Whose rule decides a change: sites belong to the customers register. */
