@@ -90,3 +90,12 @@ export const SWEEP_JSON_KEYS = [
   "flatness_ls_um",
   "flatness_mz_um",
 ] as const;
+
+/** The keys of tram's JSON, in order (geometry/README.md, command line). */
+export const TRAM_JSON_KEYS = [
+  "slope_um_per_m",
+  "slope_u_um_per_m",
+  "angle_arcsec",
+  "straightness_um",
+  "tir_um",
+] as const;

@@ -2,7 +2,7 @@
 // through a real child process (`npx tsx lib/cli/geometry.ts`, as a user runs it); the rest call the
 // same `main` in-process with captured output, which keeps the unit suite fast.
 import { describe, expect, it } from "vitest";
-import { csvFixturePath, runCli, runCliProcess, SWEEP_JSON_KEYS } from "./cli-helpers";
+import { csvFixturePath, runCli, runCliProcess, SWEEP_JSON_KEYS, TRAM_JSON_KEYS } from "./cli-helpers";
 
 const fx = csvFixturePath;
 const run = runCliProcess;
@@ -16,13 +16,7 @@ describe("npm run geometry", { timeout: 60_000 }, () => {
     ]);
     expect(tram.code).toBe(0);
     const t = JSON.parse(tram.stdout);
-    expect(Object.keys(t)).toEqual([
-      "slope_um_per_m",
-      "slope_u_um_per_m",
-      "angle_arcsec",
-      "straightness_um",
-      "tir_um",
-    ]);
+    expect(Object.keys(t)).toEqual(TRAM_JSON_KEYS);
     // NIST StRD Norris: slope 1.00211681802045 µm/mm = 1002.11681802045 µm/m.
     expect(t.slope_um_per_m).toBeCloseTo(1002.11681802045, 8);
     expect(bad.code).toBe(2);
@@ -72,13 +66,7 @@ describe("npm run geometry", { timeout: 60_000 }, () => {
     // NIST StRD Norris: slope 1.00211681802045 (µm per mm → µm/m × 1000), sd 4.29796848199937e-4.
     expect(tram.code).toBe(0);
     const t = JSON.parse(tram.stdout);
-    expect(Object.keys(t)).toEqual([
-      "slope_um_per_m",
-      "slope_u_um_per_m",
-      "angle_arcsec",
-      "straightness_um",
-      "tir_um",
-    ]);
+    expect(Object.keys(t)).toEqual(TRAM_JSON_KEYS);
     expect(t.slope_um_per_m).toBeCloseTo(1002.11681802045, 8);
     expect(t.slope_u_um_per_m).toBeCloseTo(0.429796848199937, 10);
 

@@ -2,6 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { angleFromReading, fitTram, RAD_PER_ARCSEC, sineBarAngleDeg, sineBarHeightMm } from "@/geometry";
 import { NORRIS_X, NORRIS_Y } from "./reference-data";
+import { TRAM_JSON_KEYS } from "./cli-helpers";
 
 // NIST Statistical Reference Datasets, linear regression, "Norris" (certified values, lower
 // difficulty): y = B0 + B1·x. Here x is read as travel (mm) and y as reading (µm), so the slope in
@@ -60,13 +61,7 @@ describe("fitTram", () => {
             .sort((u, v) => u.k - v.k)
             .map((e) => e.p);
           const b = fitTram({ travelMm: perm.map((p) => p[0]), readingUm: perm.map((p) => p[1]) });
-          for (const key of [
-            "slope_um_per_m",
-            "slope_u_um_per_m",
-            "angle_arcsec",
-            "straightness_um",
-            "tir_um",
-          ] as const)
+          for (const key of TRAM_JSON_KEYS)
             expect(Math.abs(a[key] - b[key])).toBeLessThan(1e-9 * Math.max(1, Math.abs(a[key])));
         },
       ),
