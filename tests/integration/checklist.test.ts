@@ -34,6 +34,14 @@ const step: Record<number, string> = {};
 const inst: Record<string, string> = {};
 const as: Record<string, Actor> = {};
 
+/** A reading in inches on step 1 with the seed's dial indicator, unless `over` says otherwise. */
+const reading = (over: Record<string, unknown>) => ({
+  stepId: step[1],
+  unit: "in",
+  instrumentId: inst["DTI-0112"],
+  ...over,
+});
+
 async function post(body: Record<string, unknown>, id = jobId) {
   const res = await readingsPost(
     request(`/api/jobs/${id}/readings`, {
@@ -64,14 +72,7 @@ beforeAll(async () => {
 describe("recording readings", () => {
   it("stores the canonical value (mm) with what was entered (in), and the first reading starts measuring", async () => {
     await signInAs("installer@halvard.example");
-    const { status, json } = await post({
-      stepId: step[1],
-      phase: "pre",
-      value: "0.0009",
-      unit: "in",
-      instrumentId: inst["DTI-0112"],
-      note: "before shimming",
-    });
+    const { status, json } = await post(reading({ phase: "pre", value: "0.0009", note: "before shimming" }));
     expect(status).toBe(201);
     // 0.0009 in × 25.4 mm/in = 0.02286 mm (NIST SP 811: 1 in = 25.4 mm exactly)
     expect(json.reading.value).toBeCloseTo(0.02286, 12);
@@ -92,15 +93,9 @@ describe("recording readings", () => {
 
   it("the tilt step turns reading over travel into arc seconds with geometry/ (0.0005 in over 10 in = 10.31″)", async () => {
     await signInAs("installer@halvard.example");
-    const { status, json } = await post({
-      stepId: step[5],
-      phase: "pre",
-      value: 0.0005,
-      unit: "in",
-      travel: 10,
-      travelUnit: "in",
-      instrumentId: inst["DTI-0112"],
-    });
+    const { status, json } = await post(
+      reading({ stepId: step[5], phase: "pre", value: 0.0005, travel: 10, travelUnit: "in" }),
+    );
     expect(status).toBe(201);
     expect(json.reading.unit).toBe("arcsec");
     expect(json.reading.value).toBeCloseTo(10.31, 2);
@@ -110,13 +105,9 @@ describe("recording readings", () => {
   it("refuses an instrument past its calibration due date, with the reason, and stores nothing", async () => {
     await signInAs("installer@halvard.example");
     const before = await db.select().from(readings).where(eq(readings.jobId, jobId));
-    const { status, json } = await post({
-      stepId: step[1],
-      phase: "post",
-      value: 0.0003,
-      unit: "in",
-      instrumentId: inst["DTI-0417"],
-    });
+    const { status, json } = await post(
+      reading({ phase: "post", value: 0.0003, instrumentId: inst["DTI-0417"] }),
+    );
     expect(status).toBe(422);
     expect(json.error.message).toMatch(/DTI-0417 was due for calibration on 2026-09-30/);
     expect(json.error.issues[0].field).toBe("instrumentId");
@@ -125,65 +116,35 @@ describe("recording readings", () => {
 
   it("refuses an instrument of the wrong kind and bad input, naming the field", async () => {
     await signInAs("installer@halvard.example");
-    const wrong = await post({
-      stepId: step[1],
-      phase: "post",
-      value: 0.0003,
-      unit: "in",
-      instrumentId: inst["EL-0007"],
-    });
+    const wrong = await post(reading({ phase: "post", value: 0.0003, instrumentId: inst["EL-0007"] }));
     expect(wrong.status).toBe(422);
     expect(wrong.json.error.message).toMatch(/EL-0007 measures angles/);
-    const bad = await post({
-      stepId: step[1],
-      phase: "later",
-      value: "abc",
-      unit: "in",
-      instrumentId: inst["DTI-0112"],
-    });
+    const bad = await post(reading({ phase: "later", value: "abc" }));
     expect(bad.status).toBe(422);
     expect(bad.json.error.issues.map((i: { field: string }) => i.field).sort()).toEqual(["phase", "value"]);
-    const notOurs = await post({
-      stepId: "00000000-0000-4000-8000-000000000000",
-      phase: "pre",
-      value: 1,
-      unit: "in",
-      instrumentId: inst["DTI-0112"],
-    });
+    const notOurs = await post(
+      reading({ stepId: "00000000-0000-4000-8000-000000000000", phase: "pre", value: 1 }),
+    );
     expect(notOurs.status).toBe(422);
     expect(notOurs.json.error.issues[0].field).toBe("stepId");
   });
 
   it("a correction supersedes the old reading and keeps it; the old one cannot be corrected twice", async () => {
     await signInAs("installer@halvard.example");
-    const first = await post({
-      stepId: step[1],
-      phase: "post",
-      value: 0.0006,
-      unit: "in",
-      instrumentId: inst["DTI-0112"],
-    });
-    const fix = await post({
-      stepId: step[1],
-      phase: "post",
-      value: 0.0003,
-      unit: "in",
-      instrumentId: inst["DTI-0112"],
-      note: "misread the dial",
-      supersedesId: first.json.reading.id,
-    });
+    const first = await post(reading({ phase: "post", value: 0.0006 }));
+    const fix = await post(
+      reading({
+        phase: "post",
+        value: 0.0003,
+        note: "misread the dial",
+        supersedesId: first.json.reading.id,
+      }),
+    );
     expect(fix.status).toBe(201);
     const [old] = await db.select().from(readings).where(eq(readings.id, first.json.reading.id));
     expect(old!.value).toBeCloseTo(0.01524, 12);
     expect(old!.supersededById).toBe(fix.json.reading.id);
-    const again = await post({
-      stepId: step[1],
-      phase: "post",
-      value: 0.0002,
-      unit: "in",
-      instrumentId: inst["DTI-0112"],
-      supersedesId: first.json.reading.id,
-    });
+    const again = await post(reading({ phase: "post", value: 0.0002, supersedesId: first.json.reading.id }));
     expect(again.status).toBe(409);
     const list = await readingsGet(request("/x"), { params: Promise.resolve({ id: jobId }) });
     const body = await list.json();
@@ -234,13 +195,9 @@ describe("status moves", () => {
     ]);
     expect(mails[0]!.textBody).toContain(`/jobs/${jobId}/compare`);
     await signInAs("installer@halvard.example");
-    const locked = await post({
-      stepId: step[2],
-      phase: "pre",
-      value: 0.09,
-      unit: "in",
-      instrumentId: inst["FG-0031"],
-    });
+    const locked = await post(
+      reading({ stepId: step[2], phase: "pre", value: 0.09, instrumentId: inst["FG-0031"] }),
+    );
     expect(locked.status).toBe(403);
     expect(locked.json.error.message).toMatch(/in review; its readings are locked/);
     // Issue goes through the signed report, not a bare status change.
