@@ -4,24 +4,19 @@ export function LogoMark({ className = "h-7 w-7" }: { className?: string }) {
   return (
     <svg viewBox="0 0 32 32" className={className} aria-hidden="true" focusable="false">
       <rect x="1" y="1" width="30" height="30" rx="7" fill={palette.graphite[800]} />
-      <line
-        x1="8"
-        y1="24"
-        x2="24"
-        y2="8"
-        stroke={palette.nominal[300]}
-        strokeWidth="2.2"
-        strokeLinecap="round"
-      />
-      <line
-        x1="8"
-        y1="8"
-        x2="24"
-        y2="24"
-        stroke={palette.nominal[300]}
-        strokeWidth="2.2"
-        strokeLinecap="round"
-      />
+      {/* The two axes, crossed. */}
+      {[24, 8].map((y1) => (
+        <line
+          key={y1}
+          x1="8"
+          y1={y1}
+          x2="24"
+          y2={32 - y1}
+          stroke={palette.nominal[300]}
+          strokeWidth="2.2"
+          strokeLinecap="round"
+        />
+      ))}
       <path
         d="M9.5 19.5 A 9 9 0 0 1 19.5 9.5"
         fill="none"

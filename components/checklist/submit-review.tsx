@@ -4,6 +4,7 @@ import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import { changeStatusAction } from "@/app/(app)/jobs/[id]/checklist/actions";
 import { useReadingQueue } from "@/components/readings/queue-provider";
+import { ActionNotice, Button } from "@/components/ui/button";
 
 const list = (xs: number[]) => xs.map((x) => `step ${x}`).join(", ");
 
@@ -30,12 +31,11 @@ export function SubmitForReview({
   const [pending, start] = useTransition();
   const [error, setError] = useState<string | null>(null);
   const onTablet = items.length;
-  const btn = "min-h-touch rounded-md px-5 text-base font-semibold disabled:opacity-60";
   if (!open)
     return (
-      <button type="button" onClick={() => setOpen(true)} className={`${btn} bg-graphite-900 text-white`}>
+      <Button variant="dark" size="lg" onClick={() => setOpen(true)}>
         Submit for review
-      </button>
+      </Button>
     );
   return (
     <section
@@ -55,9 +55,12 @@ export function SubmitForReview({
         </li>
       </ul>
       <div className="flex flex-wrap gap-2 pt-1">
-        <button
-          type="button"
-          disabled={pending || onTablet > 0}
+        <Button
+          variant="dark"
+          size="lg"
+          pending={pending}
+          pendingLabel="Submitting…"
+          disabled={onTablet > 0}
           onClick={() =>
             start(async () => {
               setError(null);
@@ -66,23 +69,14 @@ export function SubmitForReview({
               else router.refresh();
             })
           }
-          className={`${btn} bg-graphite-900 text-white`}
         >
           Submit now
-        </button>
-        <button
-          type="button"
-          onClick={() => setOpen(false)}
-          className={`${btn} border border-graphite-300 bg-white text-graphite-800`}
-        >
+        </Button>
+        <Button variant="secondary" size="lg" onClick={() => setOpen(false)}>
           Not yet
-        </button>
+        </Button>
       </div>
-      {error ? (
-        <p role="alert" className="text-fail-700">
-          {error}
-        </p>
-      ) : null}
+      {error ? <ActionNotice ok={false}>{error}</ActionNotice> : null}
     </section>
   );
 }

@@ -2,6 +2,7 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import { ActionNotice, Button } from "@/components/ui/button";
 
 /** Marks a dataset deleted (kept for the record) after the person confirms in place. */
 export function DeleteDatasetButton({ datasetId, jobId }: { datasetId: string; jobId: string }) {
@@ -39,27 +40,14 @@ export function DeleteDatasetButton({ datasetId, jobId }: { datasetId: string; j
         file is kept.
       </p>
       <div className="flex gap-2">
-        <button
-          type="button"
-          disabled={pending}
-          onClick={remove}
-          className="min-h-touch rounded-lg bg-fail-600 px-4 font-semibold text-white hover:bg-fail-700 disabled:opacity-60"
-        >
+        <Button variant="danger" pending={pending} pendingLabel="Deleting…" onClick={remove}>
           Delete
-        </button>
-        <button
-          type="button"
-          onClick={() => setConfirming(false)}
-          className="min-h-touch rounded-lg border border-graphite-300 bg-white px-4 font-semibold"
-        >
+        </Button>
+        <Button variant="secondary" onClick={() => setConfirming(false)}>
           Keep it
-        </button>
+        </Button>
       </div>
-      {error ? (
-        <p role="alert" className="text-fail-700">
-          {error}
-        </p>
-      ) : null}
+      {error ? <ActionNotice ok={false}>{error}</ActionNotice> : null}
     </div>
   );
 }

@@ -1,14 +1,15 @@
+import { badgeMark, IconBadge } from "@/components/ui/badge";
 import { DECISION_LABELS, type StepDecision } from "@/lib/checklist";
 
 /** A reading's result as an icon and a word; colour is never the only signal. */
 const STYLES: Record<StepDecision, { cls: string; icon: React.ReactNode }> = {
   pass: {
     cls: "bg-pass-50 text-pass-700 ring-pass-600/40",
-    icon: <path d="M2 6.2 4.8 9 10 3" fill="none" stroke="currentColor" strokeWidth="2" />,
+    icon: badgeMark.tick(),
   },
   fail: {
     cls: "bg-fail-50 text-fail-700 ring-fail-600/40",
-    icon: <path d="M2.5 2.5l7 7M9.5 2.5l-7 7" stroke="currentColor" strokeWidth="2" />,
+    icon: badgeMark.cross(),
   },
   undecided: {
     cls: "bg-undecided-50 text-undecided-700 ring-undecided-600/40",
@@ -30,17 +31,7 @@ const STYLES: Record<StepDecision, { cls: string; icon: React.ReactNode }> = {
   },
   not_measured: {
     cls: "bg-unmeasured-50 text-unmeasured-600 ring-graphite-200",
-    icon: (
-      <circle
-        cx="6"
-        cy="6"
-        r="4"
-        fill="none"
-        stroke="currentColor"
-        strokeWidth="1.6"
-        strokeDasharray="2 1.6"
-      />
-    ),
+    icon: badgeMark.dashedCircle(),
   },
 };
 
@@ -55,15 +46,14 @@ export function DecisionBadge({
 }) {
   const s = STYLES[decision];
   return (
-    <span
+    <IconBadge
       data-decision={decision}
-      className={`inline-flex items-center gap-1.5 whitespace-nowrap rounded-full font-semibold ring-1 ring-inset ${size === "lg" ? "px-3 py-1 text-base" : "px-2.5 py-0.5 text-sm"} ${s.cls}`}
+      icon={s.icon}
+      iconClassName={size === "lg" ? "h-4 w-4" : "h-3 w-3"}
+      className={`font-semibold ${size === "lg" ? "px-3 py-1 text-base" : "px-2.5 py-0.5 text-sm"} ${s.cls}`}
     >
-      <svg viewBox="0 0 12 12" className={size === "lg" ? "h-4 w-4" : "h-3 w-3"} aria-hidden="true">
-        {s.icon}
-      </svg>
       {label ?? DECISION_LABELS[decision]}
-    </span>
+    </IconBadge>
   );
 }
 

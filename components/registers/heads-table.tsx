@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { Table } from "@/components/ui/table";
-import { RetireButton } from "@/components/registers/retire-controls";
 import type { HeadListRow } from "@/lib/domain/heads";
+import { retireColumn } from "@/components/registers/retire-column";
 
 /** `mayRetire`: the administrator sees a retire / bring back control on each row. */
 export function HeadsTable({
@@ -30,18 +30,11 @@ export function HeadsTable({
         column("Nominal pivot length", (h) => `${h.nominalPivotLengthMm.toFixed(3)} mm`, { numeric: true }),
         column("Mass", (h) => (h.massKg ? `${h.massKg} kg` : "—"), { numeric: true }),
         column("Mounted on", (h) => (h.retiredAt ? "Retired" : (h.machineName ?? "Not mounted"))),
-        ...(mayRetire
-          ? [
-              column("Retirement", (h) => (
-                <RetireButton
-                  register="heads"
-                  id={h.id}
-                  retired={Boolean(h.retiredAt)}
-                  label={`head ${h.serial}`}
-                />
-              )),
-            ]
-          : []),
+        ...retireColumn(column, mayRetire, "heads", (h) => ({
+          id: h.id,
+          retired: Boolean(h.retiredAt),
+          label: `head ${h.serial}`,
+        })),
       ]}
     />
   );

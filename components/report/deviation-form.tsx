@@ -2,6 +2,9 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import { ActionNotice, Button } from "@/components/ui/button";
+import { Field, inputClass } from "@/components/ui/field";
+import { refusalText } from "@/components/ui/form-errors";
 import type { ActionResult } from "@/lib/actions";
 
 /**
@@ -37,8 +40,7 @@ export function DeviationForm({
       formEl.reset();
       router.refresh();
     } else {
-      const fe = res.fieldErrors ? Object.values(res.fieldErrors).flat().join(" ") : "";
-      setError(`${res.message}${fe ? ` ${fe}` : ""}`);
+      setError(refusalText(res));
     }
   }
 
@@ -53,41 +55,22 @@ export function DeviationForm({
         The result stays as measured and is printed under &ldquo;Deviations&rdquo; with your justification and
         your name. Measure it again instead if the cause can be corrected.
       </p>
-      <label className="block space-y-1">
-        <span className="text-sm font-medium">Result</span>
-        <select
-          name="subject"
-          required
-          className="block min-h-touch w-full rounded-lg border border-graphite-300 bg-white px-3 text-sm"
-        >
+      <Field name="subject" label="Result">
+        <select required className={inputClass}>
           {results.map((r) => (
             <option key={r.subject} value={r.subject}>
               {r.label} — {r.decision === "fail" ? "FAIL" : "undecided"}
             </option>
           ))}
         </select>
-      </label>
-      <label className="block space-y-1">
-        <span className="text-sm font-medium">Justification</span>
-        <textarea
-          name="justification"
-          required
-          minLength={10}
-          rows={3}
-          className="block w-full rounded-lg border border-graphite-300 p-2 text-sm"
-        />
-      </label>
-      {error ? (
-        <p role="alert" className="text-sm text-fail-700">
-          {error}
-        </p>
-      ) : null}
-      <button
-        disabled={pending}
-        className="min-h-touch rounded-lg bg-accent-600 px-4 font-semibold text-white hover:bg-accent-700 disabled:opacity-60"
-      >
-        {pending ? "Recording…" : "Record deviation"}
-      </button>
+      </Field>
+      <Field name="justification" label="Justification">
+        <textarea required minLength={10} rows={3} className={`${inputClass} py-2`} />
+      </Field>
+      {error ? <ActionNotice ok={false}>{error}</ActionNotice> : null}
+      <Button type="submit" pending={pending} pendingLabel="Recording…">
+        Record deviation
+      </Button>
     </form>
   );
 }

@@ -1,6 +1,7 @@
 import { DECISION, ReportTable, Rows, Section } from "@/components/report/report-parts";
 import { ConformityStatement } from "@/components/report/conformity-statement";
 import { ReportFigures } from "@/components/report/report-charts";
+import { reportFacts } from "@/lib/report/build";
 import type { Decision, ReportData } from "@/lib/report/types";
 
 /** The report read online: the same content, in the same order, as the signed PDF. */
@@ -12,6 +13,7 @@ export function ReportView({ data }: { data: ReportData }) {
       {basis ? <span className="block text-xs font-normal text-graphite-600">{basis}</span> : null}
     </>
   );
+  const facts = reportFacts(data);
   return (
     <article
       className="space-y-6 rounded-card border border-graphite-200 bg-white p-6 shadow-sm"
@@ -39,37 +41,12 @@ export function ReportView({ data }: { data: ReportData }) {
       {data.conformity ? <ConformityStatement conformity={data.conformity} /> : null}
       <Section n={1} title="Identification">
         <div className="grid gap-4 md:grid-cols-2">
-          <Rows
-            rows={[
-              ["Customer", data.customer.name],
-              ["Site", [data.customer.site, data.customer.address].filter(Boolean).join(", ")],
-              ["Host machine", `${data.machine.name} (${data.machine.kind})`],
-              ["Builder, model", data.machine.builderModel],
-              ["Machine serial", data.machine.serial],
-            ]}
-          />
-          <Rows
-            rows={[
-              ["Head serial", data.head.serial],
-              ["Maker, model", data.head.makerModel],
-              ["Axes", data.head.axes],
-              ["Nominal pivot length", data.head.nominalPivotLength],
-              ["Mass", data.head.mass],
-            ]}
-          />
+          <Rows rows={facts.machine} />
+          <Rows rows={facts.head} />
         </div>
       </Section>
       <Section n={2} title="Work, method and decision rule">
-        <Rows
-          rows={[
-            ["Job", `${data.work.title} (${data.work.kind})`],
-            ["Dates of work", data.work.dates],
-            ["Procedure", data.work.procedure],
-            ["Method", data.work.method],
-            ["Decision rule", data.work.decisionRule],
-            ["Environment", data.work.airTemperature],
-          ]}
-        />
+        <Rows rows={facts.work} />
       </Section>
       <Section n={3} title="Instruments">
         {data.instruments.length ? (

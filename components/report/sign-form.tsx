@@ -2,6 +2,9 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import { ActionNotice, Button } from "@/components/ui/button";
+import { Field, inputClass } from "@/components/ui/field";
+import { refusalText } from "@/components/ui/form-errors";
 import type { ActionResult } from "@/lib/actions";
 
 /**
@@ -50,8 +53,7 @@ export function SignForm({
       setDone(true);
       router.refresh();
     } else {
-      const fe = res.fieldErrors ? Object.values(res.fieldErrors).flat().join(" ") : "";
-      setError(`${res.message}${fe ? ` ${fe}` : ""}`);
+      setError(refusalText(res));
     }
   }
 
@@ -69,37 +71,22 @@ export function SignForm({
       <p className="text-sm text-graphite-600">{meaning}</p>
       {children}
       {withComment ? (
-        <label className="block space-y-1">
-          <span className="text-sm font-medium">{commentLabel}</span>
-          <textarea
-            name={withComment}
-            required={commentRequired}
-            rows={3}
-            className="block w-full rounded-lg border border-graphite-300 p-2 text-sm"
-          />
-        </label>
+        <Field name={withComment} label={commentLabel ?? "Comment"}>
+          <textarea required={commentRequired} rows={3} className={`${inputClass} py-2`} />
+        </Field>
       ) : null}
-      <label className="block space-y-1">
-        <span className="text-sm font-medium">Your password</span>
-        <input
-          name="password"
-          type="password"
-          autoComplete="current-password"
-          required
-          className="block min-h-touch w-full rounded-lg border border-graphite-300 px-3"
-        />
-      </label>
-      {error ? (
-        <p role="alert" className="text-sm text-fail-700">
-          {error}
-        </p>
-      ) : null}
-      <button
-        disabled={pending}
-        className={`min-h-touch rounded-lg px-4 font-semibold text-white disabled:opacity-60 ${tone === "danger" ? "bg-fail-600 hover:bg-fail-700" : "bg-accent-600 hover:bg-accent-700"}`}
+      <Field name="password" label="Your password">
+        <input type="password" autoComplete="current-password" required className={inputClass} />
+      </Field>
+      {error ? <ActionNotice ok={false}>{error}</ActionNotice> : null}
+      <Button
+        type="submit"
+        pending={pending}
+        pendingLabel="Signing…"
+        variant={tone === "danger" ? "danger" : "primary"}
       >
-        {pending ? "Signing…" : submitLabel}
-      </button>
+        {submitLabel}
+      </Button>
     </form>
   );
 }

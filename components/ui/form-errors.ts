@@ -10,6 +10,12 @@ export type ActionFailure = Extract<ActionResult<unknown>, { ok: false }>;
 /** What the client shows when its own zod check fails: the server's wording for the same case. */
 export const INVALID_MESSAGE = "Some fields need attention.";
 
+/** A refusal as one line for a form that shows no field errors of its own: the message, then every field's. */
+export function refusalText(failure: ActionFailure): string {
+  const fe = failure.fieldErrors ? Object.values(failure.fieldErrors).flat().join(" ") : "";
+  return `${failure.message}${fe ? ` ${fe}` : ""}`;
+}
+
 export function mapActionErrors(
   failure: ActionFailure,
   isField: (name: string) => boolean,

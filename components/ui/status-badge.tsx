@@ -1,21 +1,12 @@
 import type { JobStatus } from "@/lib/domain/jobs";
+import { badgeMark, IconBadge } from "./badge";
 import { STATUS_LABELS } from "@/lib/domain/jobs";
 
 /** Job status as an icon and a word: colour is never the only signal. */
 const STYLES: Record<JobStatus, { cls: string; icon: React.ReactNode }> = {
   draft: {
     cls: "bg-unmeasured-50 text-unmeasured-600 ring-graphite-200",
-    icon: (
-      <circle
-        cx="6"
-        cy="6"
-        r="4"
-        fill="none"
-        stroke="currentColor"
-        strokeWidth="1.6"
-        strokeDasharray="2 1.6"
-      />
-    ),
+    icon: badgeMark.dashedCircle(),
   },
   measuring: {
     cls: "bg-nominal-100 text-nominal-700 ring-nominal-300",
@@ -32,7 +23,7 @@ const STYLES: Record<JobStatus, { cls: string; icon: React.ReactNode }> = {
   },
   approved: {
     cls: "bg-pass-50 text-pass-700 ring-pass-600/30",
-    icon: <path d="M2 6.2 4.8 9 10 3" fill="none" stroke="currentColor" strokeWidth="1.8" />,
+    icon: badgeMark.tick(1.8),
   },
   issued: {
     cls: "bg-graphite-800 text-white ring-graphite-800",
@@ -40,11 +31,11 @@ const STYLES: Record<JobStatus, { cls: string; icon: React.ReactNode }> = {
   },
   accepted: {
     cls: "bg-pass-600 text-white ring-pass-600",
-    icon: <path d="M2 6.2 4.8 9 10 3" fill="none" stroke="currentColor" strokeWidth="2" />,
+    icon: badgeMark.tick(),
   },
   rejected: {
     cls: "bg-fail-50 text-fail-700 ring-fail-600/30",
-    icon: <path d="M2.5 2.5l7 7M9.5 2.5l-7 7" stroke="currentColor" strokeWidth="1.8" />,
+    icon: badgeMark.cross(1.8),
   },
   on_hold: {
     cls: "bg-white text-graphite-800 ring-graphite-400",
@@ -64,13 +55,8 @@ const STYLES: Record<JobStatus, { cls: string; icon: React.ReactNode }> = {
 export function StatusBadge({ status }: { status: JobStatus }) {
   const s = STYLES[status];
   return (
-    <span
-      className={`inline-flex items-center gap-1.5 whitespace-nowrap rounded-full px-2.5 py-0.5 text-sm font-medium ring-1 ring-inset ${s.cls}`}
-    >
-      <svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true">
-        {s.icon}
-      </svg>
+    <IconBadge icon={s.icon} className={`px-2.5 py-0.5 text-sm font-medium ${s.cls}`}>
       {STATUS_LABELS[status]}
-    </span>
+    </IconBadge>
   );
 }

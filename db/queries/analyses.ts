@@ -49,6 +49,7 @@ import {
 } from "@/lib/policy/analyses";
 import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
 import { isUuid } from "@/lib/domain/uuid";
+import { lockJob } from "./locks";
 
 /** The head configuration geometry/ needs, from the heads register (lengths in mm). */
 export function headConfigOf(
@@ -497,11 +498,7 @@ export async function approveAnalysis(
   };
   const signature = signManifest(manifest, getSigningKey());
   return db.transaction(async (tx) => {
-    const [locked] = await tx
-      .select({ status: jobs.status })
-      .from(jobs)
-      .where(eq(jobs.id, a.job.id))
-      .for("update");
+    const locked = await lockJob(tx, a.job.id);
     if (locked?.status !== status)
       throw new AppError(409, "conflict", "The job changed meanwhile; open it again.");
     await tx.update(jobs).set({ status: "approved", updatedAt: new Date() }).where(eq(jobs.id, a.job.id));

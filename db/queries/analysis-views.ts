@@ -130,23 +130,22 @@ export async function saveAnalysisView(
   const key = viewObjectKey(a.job.id);
   const sha256 = createHash("sha256").update(input.png).digest("hex");
   await storage.put(key, input.png, { contentType: "image/png", sha256 });
+  // What the row holds about the picture, and what the audit event records of it.
+  const picture = {
+    analysisId,
+    overlayAnalysisId: input.overlayAnalysisId,
+    sha256,
+    sizeBytes: input.png.length,
+    widthPx: info.widthPx,
+    heightPx: info.heightPx,
+    factor: input.factor,
+    caption,
+  };
   try {
     const id = await db.transaction(async (tx) => {
       const [row] = await tx
         .insert(analysisViews)
-        .values({
-          jobId: a.job.id,
-          analysisId,
-          overlayAnalysisId: input.overlayAnalysisId,
-          storageKey: key,
-          sha256,
-          sizeBytes: input.png.length,
-          widthPx: info.widthPx,
-          heightPx: info.heightPx,
-          factor: input.factor,
-          caption,
-          createdById: actor.id,
-        })
+        .values({ jobId: a.job.id, ...picture, storageKey: key, createdById: actor.id })
         .returning({ id: analysisViews.id });
       await appendAudit(tx, {
         actorId: actor.id,
@@ -155,16 +154,7 @@ export async function saveAnalysisView(
         entityType: "analysis_view",
         entityId: row!.id,
         jobId: a.job.id,
-        newValues: {
-          analysisId,
-          overlayAnalysisId: input.overlayAnalysisId,
-          sha256,
-          sizeBytes: input.png.length,
-          widthPx: info.widthPx,
-          heightPx: info.heightPx,
-          factor: input.factor,
-          caption,
-        },
+        newValues: picture,
       });
       return row!.id;
     });

@@ -13,6 +13,7 @@ import { jobCreateRefusal, transitionRefusal } from "@/lib/policy/jobs";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 import { publicUrl } from "@/lib/env";
 import { reviewRequestMessage } from "@/lib/mail/messages";
+import { activeUsers, lockJob } from "./locks";
 
 /** Moves that carry signatures go through the report flow (db/queries/reports.ts), not here. */
 const SIGNED_MOVES: readonly JobStatus[] = ["issued", "accepted", "rejected"];
@@ -45,18 +46,9 @@ export async function changeJobStatus(actor: Actor, jobId: string, to: JobStatus
       );
   }
   const reviewers =
-    to === "in_review"
-      ? await db
-          .select({ id: users.id, email: users.email, name: users.name })
-          .from(users)
-          .where(and(inArray(users.role, ["engineer", "inspector"]), eq(users.disabled, false)))
-      : [];
+    to === "in_review" ? await activeUsers(inArray(users.role, ["engineer", "inspector"])) : [];
   return db.transaction(async (tx) => {
-    const [locked] = await tx
-      .select({ status: jobs.status })
-      .from(jobs)
-      .where(eq(jobs.id, d.job.id))
-      .for("update");
+    const locked = await lockJob(tx, d.job.id);
     if (locked?.status !== d.job.status) throw invalid("The job changed meanwhile; open it again.");
     const at = new Date();
     await tx.update(jobs).set({ status: to, updatedAt: at }).where(eq(jobs.id, d.job.id));

@@ -20,6 +20,7 @@ import {
 } from "@/lib/step-kinds";
 import { CANONICAL_UNIT, toCanonical } from "@/lib/units";
 import type { ReadingCreateInput } from "@/lib/validations/readings";
+import { lockJob } from "./locks";
 
 const recorders = alias(users, "recorder");
 
@@ -279,11 +280,7 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
   return db.transaction(async (tx) => {
     // Lock the job row: a submit for review cannot slip between the check and the insert, and
     // two sends of one clientId are served one after the other.
-    const [locked] = await tx
-      .select({ status: jobs.status, assignedInstallerId: jobs.assignedInstallerId })
-      .from(jobs)
-      .where(eq(jobs.id, d.job.id))
-      .for("update");
+    const locked = await lockJob(tx, d.job.id);
     const again = await storedByClientId(tx, actor, d.job.id, input);
     if (again) return { ...again, replay: true };
     const refused = locked ? readingsRefusal(actor, locked) : "gone";
@@ -424,7 +421,8 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
   });
 }
 
-export interface ComparedReading {
+/** The current reading of a step in one phase, as the comparison shows it. */
+export interface PhaseReading {
   value: number;
   U: number;
   decision: StepDecision;
@@ -451,8 +449,8 @@ export interface ComparisonRow {
   decisionRule: "simple" | "guarded";
   limitSource: string;
   limitSourceNote: string | null;
-  pre: ComparedReading | null;
-  post: ComparedReading | null;
+  pre: PhaseReading | null;
+  post: PhaseReading | null;
   change: number | null;
   /** The step's result: the post-adjustment reading if there is one, else the pre reading. */
   status: StepDecision;

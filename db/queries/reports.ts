@@ -43,14 +43,16 @@ import {
   reportConformity,
   signatureLine,
   testPartRows,
+  type ReportInputs,
 } from "@/lib/report/build";
 import { getSigningKey } from "@/lib/report/keys";
 import { NotReadyError, readiness } from "@/lib/report/readiness";
 import { renderReportPdf } from "@/lib/report/render";
 import { sha256Hex, signManifest, type SignatureManifest } from "@/lib/report/signing";
-import type { ReportData, ReportSignature } from "@/lib/report/types";
+import type { ReportData } from "@/lib/report/types";
 import { photoAppendixRows } from "@/lib/report/sections/photos";
 import { jobPhotosForReport } from "@/db/queries/photos";
+import { activeUsers, lockJob } from "./locks";
 
 /**
  * Reports: what goes into one (fetched here, shaped by lib/report/build.ts), issuing a revision,
@@ -105,14 +107,7 @@ async function approvedParameters(actor: Actor, d: JobDetail) {
 export async function buildReportData(
   actor: Actor,
   d: JobDetail,
-  meta: {
-    reportId: string;
-    revision: number;
-    issuedAt: Date;
-    approval?: ReportSignature;
-    draft?: boolean;
-    amendment?: ReportData["amendment"];
-  },
+  meta: ReportInputs["meta"],
 ): Promise<{ data: ReportData; images: Map<string, Buffer> }> {
   const [sigs, state, params, comparison, template, instrumentList, testPart, carried] = await Promise.all([
     preIssueSignatures(d.job.id),
@@ -281,17 +276,10 @@ export async function issueReport(
   const signature = signManifest(manifest, getSigningKey());
   await options.afterRender?.();
 
-  const customerUsers = await db
-    .select({ id: users.id, email: users.email, name: users.name })
-    .from(users)
-    .where(and(eq(users.customerId, d.job.customerId), eq(users.disabled, false)));
+  const customerUsers = await activeUsers(eq(users.customerId, d.job.customerId));
   return db.transaction(async (tx) => {
     // Lock the job so two engineers cannot issue the same revision.
-    const [locked] = await tx
-      .select({ status: jobs.status })
-      .from(jobs)
-      .where(eq(jobs.id, d.job.id))
-      .for("update");
+    const locked = await lockJob(tx, d.job.id);
     if (!locked || locked.status !== d.job.status)
       throw invalid("The job changed while the report was prepared; open it again.");
     await tx.insert(reports).values({
@@ -379,16 +367,9 @@ export async function respondToReport(
     signedAt,
   );
   const signature = signManifest(manifest, getSigningKey());
-  const engineers = await db
-    .select({ id: users.id, email: users.email })
-    .from(users)
-    .where(and(eq(users.role, "engineer"), eq(users.disabled, false)));
+  const engineers = await activeUsers(eq(users.role, "engineer"));
   return db.transaction(async (tx) => {
-    const [locked] = await tx
-      .select({ status: jobs.status })
-      .from(jobs)
-      .where(eq(jobs.id, d.job.id))
-      .for("update");
+    const locked = await lockJob(tx, d.job.id);
     if (locked?.status !== "issued") throw invalid("This report has already been answered.");
     const [row] = await tx
       .insert(signatures)

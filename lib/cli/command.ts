@@ -68,3 +68,8 @@ export function numberOption(
   if (opts.nonNegative && !(n >= 0)) throw new CliUsageError(`--${name} must be 0 or more (got ${n})`);
   return n;
 }
+
+/** The named fields of a result, in the order given: a command's documented JSON. */
+export function pick<T, K extends keyof T>(result: T, keys: readonly K[]): Pick<T, K> {
+  return Object.fromEntries(keys.map((k) => [k, result[k]])) as Pick<T, K>;
+}

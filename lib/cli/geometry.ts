@@ -21,7 +21,7 @@ import {
   type CsvWarning,
 } from "@/geometry";
 import { readLarge } from "./chunked-csv";
-import { choiceOption, CliUsageError, numberOption, type CliCommand, type CliContext } from "./command";
+import { choiceOption, CliUsageError, numberOption, pick, type CliCommand, type CliContext } from "./command";
 // ── HEAD COMMANDS (fit-head, plan) ─────────────────────────────────────────────────────────────
 // ./head-commands.ts (owned by the head-model work) exports
 //   `export const headCommands: Record<string, CliCommand> = { "fit-head": …, plan: … }`
@@ -47,16 +47,16 @@ const circle: CliCommand = {
     passWarnings(ctx, data.warnings);
     const f = fitCircle(data);
     f.warnings.forEach((w) => ctx.warn(w));
-    return {
-      centre_mm: f.centre_mm,
-      normal: f.normal,
-      radius_mm: f.radius_mm,
-      rms_um: f.rms_um,
-      max_um: f.max_um,
-      radius_U_mm: f.radius_U_mm,
-      centre_U_mm: f.centre_U_mm,
-      normal_U_arcsec: f.normal_U_arcsec,
-    };
+    return pick(f, [
+      "centre_mm",
+      "normal",
+      "radius_mm",
+      "rms_um",
+      "max_um",
+      "radius_U_mm",
+      "centre_U_mm",
+      "normal_U_arcsec",
+    ]);
   },
 };
 
@@ -86,13 +86,7 @@ const tram: CliCommand = {
       };
     }
     const r = fitTram(data);
-    return {
-      slope_um_per_m: r.slope_um_per_m,
-      slope_u_um_per_m: r.slope_u_um_per_m,
-      angle_arcsec: r.angle_arcsec,
-      straightness_um: r.straightness_um,
-      tir_um: r.tir_um,
-    };
+    return pick(r, ["slope_um_per_m", "slope_u_um_per_m", "angle_arcsec", "straightness_um", "tir_um"]);
   },
 };
 
@@ -110,14 +104,14 @@ const sweep: CliCommand = {
     passWarnings(ctx, data.warnings);
     const r = fitSweep(data, radius);
     r.notes.forEach((n) => ctx.warn(n));
-    return {
-      tilt_um_per_m: r.tilt_um_per_m,
-      tilt_arcsec: r.tilt_arcsec,
-      direction_deg: r.direction_deg,
-      tir_um: r.tir_um,
-      flatness_ls_um: r.flatness_ls_um,
-      flatness_mz_um: r.flatness_mz_um,
-    };
+    return pick(r, [
+      "tilt_um_per_m",
+      "tilt_arcsec",
+      "direction_deg",
+      "tir_um",
+      "flatness_ls_um",
+      "flatness_mz_um",
+    ]);
   },
 };
 

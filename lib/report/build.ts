@@ -487,3 +487,38 @@ export function buildReportContent(i: ReportInputs): ReportData {
   };
   return { ...data, contentSha256: sha256Hex(canonicalJson(data)) };
 }
+
+/** A label and its value; a row without a value is left out where it is shown. */
+export type FactRow = [label: string, value: string | undefined];
+
+/**
+ * The report's identification and work facts as label–value rows: the page
+ * (components/report/report-view.tsx) and the PDF (lib/report/document.tsx) both show these.
+ */
+export function reportFacts(data: ReportData): { machine: FactRow[]; head: FactRow[]; work: FactRow[] } {
+  return {
+    machine: [
+      ["Customer", data.customer.name],
+      ["Site", [data.customer.site, data.customer.address].filter(Boolean).join(", ")],
+      ["Host machine", `${data.machine.name} (${data.machine.kind})`],
+      ["Builder, model", data.machine.builderModel],
+      ["Machine serial", data.machine.serial],
+      ["Control", data.machine.control],
+    ],
+    head: [
+      ["Head serial", data.head.serial],
+      ["Maker, model", data.head.makerModel],
+      ["Axes", data.head.axes],
+      ["Nominal pivot length", data.head.nominalPivotLength],
+      ["Mass", data.head.mass],
+    ],
+    work: [
+      ["Job", `${data.work.title} (${data.work.kind})`],
+      ["Dates of work", data.work.dates],
+      ["Procedure", data.work.procedure],
+      ["Method", data.work.method],
+      ["Decision rule", data.work.decisionRule],
+      ["Environment", data.work.airTemperature],
+    ],
+  };
+}

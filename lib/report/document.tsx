@@ -19,6 +19,7 @@ import {
   Text,
   View,
 } from "@react-pdf/renderer";
+import { reportFacts } from "./build";
 import type { Decision, ReportData } from "./types";
 import { BODY_FONT, MONO_FONT } from "./fonts";
 import { parameterChartRows, readingRows } from "./chart-data";
@@ -288,6 +289,7 @@ export function ReportDocument({
   images?: ReadonlyMap<string, Buffer>;
 }) {
   const rev = `revision ${data.revision}`;
+  const facts = reportFacts(data);
   return (
     <Document
       title={`Acceptance report ${data.reference} ${rev}`}
@@ -370,43 +372,17 @@ export function ReportDocument({
           </Text>
           <View style={s.grid}>
             <View style={s.col}>
-              <Facts
-                rows={[
-                  ["Customer", data.customer.name],
-                  ["Site", [data.customer.site, data.customer.address].filter(Boolean).join(", ")],
-                  ["Host machine", `${data.machine.name} (${data.machine.kind})`],
-                  ["Builder, model", data.machine.builderModel],
-                  ["Machine serial", data.machine.serial],
-                  ["Control", data.machine.control],
-                ]}
-              />
+              <Facts rows={facts.machine} />
             </View>
             <View style={s.col}>
-              <Facts
-                rows={[
-                  ["Head serial", data.head.serial],
-                  ["Maker, model", data.head.makerModel],
-                  ["Axes", data.head.axes],
-                  ["Nominal pivot length", data.head.nominalPivotLength],
-                  ["Mass", data.head.mass],
-                ]}
-              />
+              <Facts rows={facts.head} />
             </View>
           </View>
 
           <Text style={s.h2} minPresenceAhead={40}>
             2 Work, method and decision rule
           </Text>
-          <Facts
-            rows={[
-              ["Job", `${data.work.title} (${data.work.kind})`],
-              ["Dates of work", data.work.dates],
-              ["Procedure", data.work.procedure],
-              ["Method", data.work.method],
-              ["Decision rule", data.work.decisionRule],
-              ["Environment", data.work.airTemperature],
-            ]}
-          />
+          <Facts rows={facts.work} />
 
           <Text style={s.h2} minPresenceAhead={40}>
             3 Instruments

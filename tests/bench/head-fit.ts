@@ -20,27 +20,15 @@ import {
   headPoseGrid,
   HEAD_PARAMETER_KEYS,
   synthesiseSphereProbe,
-  type HeadConfig,
-  type HeadErrors,
   type SphereProbeData,
 } from "@/geometry";
 import { headAxes } from "@/geometry/head/config";
 import { HeadKernel } from "@/geometry/head/kernel";
 import { cpuLoopSeconds, median, round, timedChild } from "./machine";
+import { CA, ERR } from "../unit/geometry/head-helpers";
 
-const CA: HeadConfig = { primary: "C", secondary: "A", pivotLengthMm: 152.4 };
-// Invented error values for the benchmark only.
-const TRUTH: HeadErrors = {
-  pivot_length_error_um: 50,
-  tip_offset_s_um: -30,
-  tip_offset_n_um: 80,
-  secondary_offset_um: 20,
-  primary_zero_arcsec: 100,
-  secondary_zero_arcsec: -60,
-  secondary_tilt_arcsec: 40,
-  primary_tilt_s_arcsec: -25,
-  primary_tilt_n_arcsec: 15,
-};
+// The C/A head and the invented error values the head-fit tests use.
+const TRUTH = ERR;
 const FREE = HEAD_PARAMETER_KEYS.filter((k) => k !== "secondary_yaw_arcsec");
 const secondary = [-90, -60, -30, 0, 30, 60, 90];
 const dataFor = (poses: number) =>

@@ -11,7 +11,6 @@ import { mkdirSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
-import { headPoseGrid, synthesiseSphereProbe } from "@/geometry";
 import {
   canvasPixels,
   newContext,
@@ -21,6 +20,7 @@ import {
   waitForPicture,
   signApproval,
 } from "./browser";
+import { uploadSyntheticProbe } from "./steps";
 
 let ctx: BrowserContext;
 
@@ -294,49 +294,11 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     const href = await p.getByRole("link", { name: "TR-2026-0057" }).getAttribute("href");
     const jobId = href!.split("/").pop()!;
     // Invented sphere-probe data from geometry's synthesiser (demo only) for this job's own head, uploaded through the datasets API.
-    const job = (await (await p.request.get(`/api/jobs/${jobId}`)).json()).job as {
-      head: {
-        primaryAxis: "A" | "B" | "C";
-        secondaryAxis: "A" | "B" | "C";
-        nominalPivotLengthMm: number;
-        toolDirection: [number, number, number];
-      };
-    };
-    const head = {
-      primary: job.head.primaryAxis,
-      secondary: job.head.secondaryAxis,
-      pivotLengthMm: job.head.nominalPivotLengthMm,
-      toolDirection: job.head.toolDirection,
-    };
-    const poses = headPoseGrid({ primarySteps: 12, secondaryDeg: [-90, -45, 0, 45, 90], toolMm: [0, 80] });
-    const d = synthesiseSphereProbe(
-      head,
-      { pivot_length_error_um: -25, secondary_tilt_arcsec: 12, tip_offset_n_um: 8 },
-      poses,
-      { noiseUm: 1, seed: 48 },
-    );
-    const csv = [
-      "primary_deg,secondary_deg,x,y,z,tool_mm",
-      ...Array.from({ length: d.rows }, (_, i) =>
-        [
-          d.primaryDeg[i],
-          d.secondaryDeg[i],
-          d.xMm[i]!.toFixed(5),
-          d.yMm[i]!.toFixed(5),
-          d.zMm[i]!.toFixed(5),
-          d.toolMm![i],
-        ].join(","),
-      ),
-    ].join("\n");
-    const up = await p.request.post(`/api/jobs/${jobId}/datasets`, {
-      multipart: {
-        kind: "sphere_probe",
-        phase: "pre",
-        units: "mm",
-        file: { name: "probe-0057.csv", mimeType: "text/csv", buffer: Buffer.from(csv) },
-      },
+    const head = await uploadSyntheticProbe(p, jobId, {
+      errors: { pivot_length_error_um: -25, secondary_tilt_arcsec: 12, tip_offset_n_um: 8 },
+      seed: 48,
+      filename: "probe-0057.csv",
     });
-    expect(up.status()).toBe(201);
     await openAnalysis(p, "TR-2026-0057");
     const row = p.locator("li", { hasText: "probe-0057.csv" });
     await row.getByRole("button", { name: "Run fit" }).click();

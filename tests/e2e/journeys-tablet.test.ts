@@ -17,7 +17,6 @@
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
-import { headPoseGrid, synthesiseSphereProbe } from "@/geometry";
 import {
   canvasPixels,
   followReportMail,
@@ -32,6 +31,7 @@ import {
   choose,
   signApproval,
 } from "./browser";
+import { uploadSyntheticProbe } from "./steps";
 
 let ctx: BrowserContext;
 let jobPath = "";
@@ -149,47 +149,11 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     const href = await p.getByRole("link", { name: REF }).getAttribute("href");
     const jobId = href!.split("/").pop()!;
     // Invented sphere-probe data for this job's own head (C/B, tool along −Z), uploaded through the datasets API the upload page uses.
-    const job = (await (await p.request.get(`/api/jobs/${jobId}`)).json()).job as {
-      head: {
-        primaryAxis: "A" | "B" | "C";
-        secondaryAxis: "A" | "B" | "C";
-        nominalPivotLengthMm: number;
-        toolDirection: [number, number, number];
-      };
-    };
-    const head = {
-      primary: job.head.primaryAxis,
-      secondary: job.head.secondaryAxis,
-      pivotLengthMm: job.head.nominalPivotLengthMm,
-      toolDirection: job.head.toolDirection,
-    };
-    const poses = headPoseGrid({ primarySteps: 12, secondaryDeg: [-90, -45, 0, 45, 90], toolMm: [0, 80] });
-    const d = synthesiseSphereProbe(head, { pivot_length_error_um: 18, secondary_tilt_arcsec: -9 }, poses, {
-      noiseUm: 1,
+    const head = await uploadSyntheticProbe(p, jobId, {
+      errors: { pivot_length_error_um: 18, secondary_tilt_arcsec: -9 },
       seed: 91,
+      filename: "probe-0048.csv",
     });
-    const csv = [
-      "primary_deg,secondary_deg,x,y,z,tool_mm",
-      ...Array.from({ length: d.rows }, (_, i) =>
-        [
-          d.primaryDeg[i],
-          d.secondaryDeg[i],
-          d.xMm[i]!.toFixed(5),
-          d.yMm[i]!.toFixed(5),
-          d.zMm[i]!.toFixed(5),
-          d.toolMm![i],
-        ].join(","),
-      ),
-    ].join("\n");
-    const up = await p.request.post(`/api/jobs/${jobId}/datasets`, {
-      multipart: {
-        kind: "sphere_probe",
-        phase: "pre",
-        units: "mm",
-        file: { name: "probe-0048.csv", mimeType: "text/csv", buffer: Buffer.from(csv) },
-      },
-    });
-    expect(up.status()).toBe(201);
 
     await openSection(p, REF, "Analysis");
     await p.locator("li", { hasText: "probe-0048.csv" }).getByRole("button", { name: "Run fit" }).click();

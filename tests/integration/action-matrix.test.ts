@@ -7,7 +7,7 @@
 // action file exports an action this matrix does not list.
 import { readdirSync, statSync } from "node:fs";
 import path from "node:path";
-import { asc, eq } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 import { db } from "@/db";
 import { runHeadFit } from "@/db/queries/analyses";
@@ -15,12 +15,23 @@ import { recordReading } from "@/db/queries/readings";
 import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
-import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { instruments, jobs, templateSteps, users } from "@/db/schema";
+import { jobs, users } from "@/db/schema";
 import type { JobStatus } from "@/lib/domain/jobs";
 import type { ActionResult } from "@/lib/actions";
-import { upload } from "./dataset-helpers";
-import { jobIdByReference, signInAs } from "./helpers";
+import {
+  BASE_JOB,
+  DEMO_PASSWORD,
+  firstStepOf,
+  insertTestJob,
+  instrumentIdBySerial,
+  signInActor,
+  WHO,
+  type Who,
+  uploadDemoProbe,
+  type JobBase,
+} from "./fixtures";
+import { signInAs } from "./helpers";
+import { jobBaseOf } from "./ready-job";
 
 // Outside a Next request there is no cache to revalidate; the actions' access checks run unchanged.
 vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn() }));
@@ -35,49 +46,28 @@ const forgotPassword = await import("@/app/(auth)/forgot-password/actions");
 const procedures = await import("@/app/(app)/registers/procedures/actions");
 const jobOffice = await import("@/app/(app)/jobs/actions");
 
-type Who =
-  | "anonymous"
-  | "admin"
-  | "installer"
-  | "inspector"
-  | "engineer"
-  | "customer (Marlow Creek)"
-  | "customer (Tollan)";
-const EMAIL: Record<Who, string | null> = {
-  anonymous: null,
-  admin: "admin@halvard.example",
-  installer: "installer@halvard.example",
-  inspector: "inspector@halvard.example",
-  engineer: "engineer@halvard.example",
-  "customer (Marlow Creek)": "buyer@marlowcreek.example",
-  "customer (Tollan)": "buyer@tollan.example",
-};
+const EMAIL = WHO;
 type Outcome = "pass" | "unauthorized" | "forbidden" | "not_found";
 const ACCESS_CODES = new Set(["unauthorized", "forbidden", "not_found"]);
 /** Refusals about the input, not the person: a field to correct, a one-time link already used, or a job not yet ready for its report. */
 const DOMAIN_CODES = new Set(["invalid", "token_invalid", "not_ready"]);
 
-const PW = "trammel-demo";
-let marlow: { customerId: string; machineId: string; headId: string; templateId: string };
+const PW = DEMO_PASSWORD;
+let marlow: JobBase;
 let installerId = "";
 let stepId = "";
 let instrumentId = "";
 
 /** A job of the Marlow Creek tenant, assigned to the demo installer, in the given status. */
-async function freshJob(status: JobStatus): Promise<string> {
-  const [row] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-ACT-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`,
-      title: "Action matrix job",
-      kind: "reverification",
-      status,
-      ...marlow,
-      assignedInstallerId: installerId,
-    })
-    .returning();
-  return row!.id;
-}
+const freshJob = (status: JobStatus) =>
+  insertTestJob({
+    tag: "ACT",
+    title: "Action matrix job",
+    status,
+    template: true,
+    base: marlow,
+    assignedInstallerId: installerId,
+  });
 
 async function actorOf(email: string) {
   const [u] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
@@ -111,27 +101,10 @@ const onMarlowJob = (allowed: Who[]) => ({
 });
 
 beforeAll(async () => {
-  const [t] = await db
-    .select()
-    .from(jobs)
-    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
-  marlow = {
-    customerId: t!.customerId,
-    machineId: t!.machineId,
-    headId: t!.headId,
-    templateId: t!.templateId!,
-  };
+  marlow = await jobBaseOf(BASE_JOB);
   installerId = (await signInAs("installer@halvard.example"))!;
-  [{ id: stepId }] = (await db
-    .select({ id: templateSteps.id })
-    .from(templateSteps)
-    .where(eq(templateSteps.templateId, marlow.templateId))
-    .orderBy(asc(templateSteps.position))
-    .limit(1)) as [{ id: string }];
-  [{ id: instrumentId }] = (await db
-    .select({ id: instruments.id })
-    .from(instruments)
-    .where(eq(instruments.serial, "DTI-0112"))) as [{ id: string }];
+  stepId = await firstStepOf(marlow.templateId);
+  instrumentId = await instrumentIdBySerial();
 });
 
 // ---- job work ----
@@ -234,14 +207,7 @@ MATRIX.runFitAction = {
   expect: onMarlowJob(["admin", "inspector", "engineer"]),
   call: async (who) => {
     const jobId = await freshJob("measuring");
-    await signInAs("installer@halvard.example");
-    const up = await upload(
-      jobId,
-      Buffer.from(demoSphereProbeCsv()),
-      { kind: "sphere_probe", phase: "pre", units: "mm" },
-      "probe.csv",
-    );
-    const datasetId = ((await up.json()) as { id: string }).id;
+    const datasetId = await uploadDemoProbe(jobId);
     await signInAs(EMAIL[who]);
     return analysis.runFitAction({ jobId, datasetId });
   },
@@ -250,15 +216,8 @@ MATRIX.approveFitAction = {
   expect: staffOnly(["engineer"]),
   call: async (who) => {
     const jobId = await freshJob("measuring");
-    await signInAs("installer@halvard.example");
-    const up = await upload(
-      jobId,
-      Buffer.from(demoSphereProbeCsv()),
-      { kind: "sphere_probe", phase: "pre", units: "mm" },
-      "probe.csv",
-    );
-    const engineer = (await getActor((await signInAs("engineer@halvard.example"))!))!;
-    const { analysis: a } = await runHeadFit(engineer, ((await up.json()) as { id: string }).id);
+    const datasetId = await uploadDemoProbe(jobId);
+    const { analysis: a } = await runHeadFit(await signInActor("engineer@halvard.example"), datasetId);
     await db.update(jobs).set({ status: "in_review" }).where(eq(jobs.id, jobId));
     await signInAs(EMAIL[who]);
     return analysis.approveFitAction({ jobId, analysisId: a.id, password: PW });

@@ -7,9 +7,8 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { POST as runRoute } from "@/app/api/datasets/[id]/analyses/route";
 import { GET as getRoute } from "@/app/api/analyses/[id]/route";
 import { db } from "@/db";
-import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { datasets } from "@/db/schema";
-import { upload } from "./dataset-helpers";
+import { uploadDemoProbe } from "./fixtures";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
@@ -49,14 +48,10 @@ beforeAll(async () => {
   ids.marlowAnalysis = (await first.json()).analysis.id;
   // A Tollan sphere-probe dataset on TR-2026-0048 (in review), fitted by the engineer.
   const tollanJob = await jobIdByReference("TR-2026-0048");
-  const up = await upload(
-    tollanJob,
-    Buffer.from(demoSphereProbeCsv()),
-    { kind: "sphere_probe", phase: "pre", units: "mm" },
-    "tollan-probe.csv",
-  );
-  expect(up.status).toBe(201);
-  ids.tollanDataset = (await up.json()).id;
+  ids.tollanDataset = await uploadDemoProbe(tollanJob, {
+    email: "engineer@halvard.example",
+    filename: "tollan-probe.csv",
+  });
   const t = await run(ids.tollanDataset);
   expect(t.status).toBe(201);
   ids.tollanAnalysis = (await t.json()).analysis.id;

@@ -12,7 +12,6 @@ import { db } from "@/db";
 import { approveAnalysis, getApprovedAnalysis, runHeadFit } from "@/db/queries/analyses";
 import { getDatasetOriginal } from "@/db/queries/datasets";
 import { changeJobStatus } from "@/db/queries/job-status";
-import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { analyses, auditEvents, jobs, signatures } from "@/db/schema";
 import { fitHead, GEOMETRY_VERSION, headFitToJson, readSphereProbeCsv } from "@/geometry";
@@ -20,7 +19,8 @@ import type { Actor } from "@/lib/domain/roles";
 import { canonicalJson } from "@/lib/canonical-json";
 import { AppError } from "@/lib/errors";
 import { upload } from "./dataset-helpers";
-import { jobIdByReference, request, signInAs } from "./helpers";
+import { allActors, insertTestJob, uploadDemoProbe } from "./fixtures";
+import { request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
 const run = (datasetId: string) =>
@@ -43,44 +43,14 @@ async function status(promise: Promise<unknown>): Promise<number> {
 }
 
 beforeAll(async () => {
-  for (const e of [
-    "admin@halvard.example",
-    "installer@halvard.example",
-    "inspector@halvard.example",
-    "engineer@halvard.example",
-    "buyer@marlowcreek.example",
-    "buyer@tollan.example",
-  ]) {
-    const id = await signInAs(e);
-    as[e.split("@")[0]! + (e.includes("tollan") ? "-tollan" : "")] = (await getActor(id!))!;
-  }
-  const [t] = await db
-    .select()
-    .from(jobs)
-    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
-  const [row] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-FIT-${Date.now().toString(36)}`,
-      title: "Head fit test job",
-      kind: "reverification",
-      status: "measuring",
-      customerId: t!.customerId,
-      machineId: t!.machineId,
-      headId: t!.headId,
-      assignedInstallerId: as.installer!.id,
-    })
-    .returning();
-  jobId = row!.id;
-  await signInAs("installer@halvard.example");
-  const up = await upload(
-    jobId,
-    Buffer.from(demoSphereProbeCsv()),
-    { kind: "sphere_probe", phase: "pre", units: "mm" },
-    "probe.csv",
-  );
-  expect(up.status).toBe(201);
-  datasetId = (await up.json()).id;
+  Object.assign(as, await allActors());
+  jobId = await insertTestJob({
+    tag: "FIT",
+    title: "Head fit test job",
+    status: "measuring",
+    assignedInstallerId: as.installer!.id,
+  });
+  datasetId = await uploadDemoProbe(jobId);
 });
 
 describe("running a fit", () => {

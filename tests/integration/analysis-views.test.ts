@@ -13,10 +13,8 @@ import { db } from "@/db";
 import { approveAnalysis } from "@/db/queries/analyses";
 import { latestJobView, VIEW_MAX_BYTES } from "@/db/queries/analysis-views";
 import { verifyAuditChain } from "@/db/queries/audit";
-import { getActor } from "@/db/queries/users";
 import { analyses, analysisViews, auditEvents, datasets, jobs } from "@/db/schema";
-import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { upload } from "./dataset-helpers";
+import { insertTestJob, signInActor, uploadDemoProbe } from "./fixtures";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
@@ -57,16 +55,11 @@ beforeAll(async () => {
   ids.post = fits.find((f) => f.phase === "post")!.id;
   // A Tollan fit on TR-2026-0048 (in review).
   const tollanJob = await jobIdByReference("TR-2026-0048");
-  await signInAs("engineer@halvard.example");
-  const up = await upload(
-    tollanJob,
-    Buffer.from(demoSphereProbeCsv()),
-    { kind: "sphere_probe", phase: "pre", units: "mm" },
-    "tollan-views.csv",
-  );
-  expect(up.status).toBe(201);
   const { POST: runRoute } = await import("@/app/api/datasets/[id]/analyses/route");
-  const dsId = (await up.json()).id as string;
+  const dsId = await uploadDemoProbe(tollanJob, {
+    email: "engineer@halvard.example",
+    filename: "tollan-views.csv",
+  });
   const run = await runRoute(request(`/api/datasets/${dsId}/analyses`, { method: "POST" }), p(dsId));
   expect([200, 201]).toContain(run.status);
   ids.tollanAnalysis = (await run.json()).analysis.id;
@@ -225,27 +218,16 @@ describe("latestJobView (for the report)", () => {
   it("is null until a fit is approved, then the latest view of the approved fit with its bytes", async () => {
     // A job of its own on the same head, so the seeded jobs keep their states.
     const [t] = await db.select().from(jobs).where(eq(jobs.id, ids.job));
-    const [job] = await db
-      .insert(jobs)
-      .values({
-        reference: `TR-VIEW-${Date.now().toString(36)}`,
-        title: "Saved view test job",
-        kind: "reverification",
-        status: "measuring",
-        customerId: t!.customerId,
-        machineId: t!.machineId,
-        headId: t!.headId,
-        assignedInstallerId: t!.assignedInstallerId,
-      })
-      .returning();
-    await signInAs("engineer@halvard.example");
-    const up = await upload(
-      job!.id,
-      Buffer.from(demoSphereProbeCsv()),
-      { kind: "sphere_probe", phase: "pre", units: "mm" },
-      "views-probe.csv",
-    );
-    const dsId = (await up.json()).id as string;
+    const jobId = await insertTestJob({
+      tag: "VIEW",
+      title: "Saved view test job",
+      status: "measuring",
+      assignedInstallerId: t!.assignedInstallerId,
+    });
+    const dsId = await uploadDemoProbe(jobId, {
+      email: "engineer@halvard.example",
+      filename: "views-probe.csv",
+    });
     const { POST: runRoute } = await import("@/app/api/datasets/[id]/analyses/route");
     const analysisId = (
       await (await runRoute(request(`/api/datasets/${dsId}/analyses`, { method: "POST" }), p(dsId))).json()
@@ -254,15 +236,15 @@ describe("latestJobView (for the report)", () => {
     const first = pngOf(40, 30, 1);
     const second = pngOf(64, 48, 2);
     expect((await save(analysisId, first, { factor: "100" })).status).toBe(201);
-    expect(await latestJobView(job!.id)).toBeNull(); // not approved yet
+    expect(await latestJobView(jobId)).toBeNull(); // not approved yet
     const res2 = await save(analysisId, second, { factor: "1000", caption: "Report view" });
     const id2 = (await res2.json()).view.id as string;
 
-    await db.update(jobs).set({ status: "in_review" }).where(eq(jobs.id, job!.id));
-    const engineer = (await getActor((await signInAs("engineer@halvard.example"))!))!;
+    await db.update(jobs).set({ status: "in_review" }).where(eq(jobs.id, jobId));
+    const engineer = await signInActor("engineer@halvard.example");
     await approveAnalysis(engineer, analysisId, "trammel-demo");
 
-    const v = await latestJobView(job!.id);
+    const v = await latestJobView(jobId);
     expect(v).not.toBeNull();
     expect(v).toMatchObject({
       id: id2,

@@ -19,93 +19,74 @@ import { changeJobStatus, createJobFromTemplate } from "@/db/queries/job-status"
 import { recordReading } from "@/db/queries/readings";
 import { issueReport, respondToReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
-import { getActor } from "@/db/queries/users";
-import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import {
   analyses,
   analysisViews,
   deviations,
   auditEvents,
   datasets,
-  instruments,
   jobs,
   readings,
   reports,
   signatures,
-  templateSteps,
 } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
 import { PNG } from "pngjs";
 import { upload } from "./dataset-helpers";
-import { carryOpenResults, measureEveryStep } from "./ready-job";
-import { jobIdByReference, signInAs } from "./helpers";
+import {
+  allActors,
+  BASE_JOB,
+  DEMO_PASSWORD,
+  firstStepOf,
+  instrumentIdBySerial,
+  uploadDemoProbe,
+} from "./fixtures";
+import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
-const PW = "trammel-demo";
+const PW = DEMO_PASSWORD;
 const as: Record<string, Actor> = {};
 let jobId = "";
 
 beforeAll(async () => {
-  for (const e of [
-    "admin@halvard.example",
-    "installer@halvard.example",
-    "inspector@halvard.example",
-    "engineer@halvard.example",
-    "buyer@marlowcreek.example",
-  ]) {
-    as[e.split("@")[0]!] = (await getActor((await signInAs(e))!))!;
-  }
-  const [t] = await db
-    .select()
-    .from(jobs)
-    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
+  Object.assign(as, await allActors());
+  const t = await jobBaseOf(BASE_JOB);
   const job = await createJobFromTemplate(as.admin!, {
-    templateId: t!.templateId!,
-    machineId: t!.machineId,
-    headId: t!.headId,
+    templateId: t.templateId,
+    machineId: t.machineId,
+    headId: t.headId,
     kind: "reverification",
     title: "Audit completeness job",
     assignedInstallerId: as.installer!.id,
     decisionRule: "simple",
   });
   jobId = job.id;
-  const [step] = await db
-    .select()
-    .from(templateSteps)
-    .where(eq(templateSteps.templateId, t!.templateId!))
-    .orderBy(asc(templateSteps.position))
-    .limit(1);
-  const [inst] = await db.select().from(instruments).where(eq(instruments.serial, "DTI-0112"));
+  const stepId = await firstStepOf(t.templateId);
+  const instrumentId = await instrumentIdBySerial();
   const first = await recordReading(as.installer!, jobId, {
-    stepId: step!.id,
+    stepId,
     phase: "pre",
     value: 0.0006,
     unit: "in",
-    instrumentId: inst!.id,
+    instrumentId,
   });
   await recordReading(as.installer!, jobId, {
-    stepId: step!.id,
+    stepId,
     phase: "pre",
     value: 0.0005,
     unit: "in",
-    instrumentId: inst!.id,
+    instrumentId,
     note: "misread",
     supersedesId: first.id,
   });
   await recordReading(as.installer!, jobId, {
-    stepId: step!.id,
+    stepId,
     phase: "post",
     value: 0.0002,
     unit: "in",
-    instrumentId: inst!.id,
+    instrumentId,
   });
-  await signInAs("installer@halvard.example");
-  const probe = await upload(
-    jobId,
-    Buffer.from(demoSphereProbeCsv()),
-    // After adjustment: the job has after-adjustment readings, so that is the state the report vouches for.
-    { kind: "sphere_probe", phase: "post", units: "mm" },
-    "probe.csv",
-  );
+  // After adjustment: the job has after-adjustment readings, so that is the state the report vouches for.
+  const probeId = await uploadDemoProbe(jobId, { phase: "post" });
   const extra = await upload(
     jobId,
     Buffer.from(
@@ -115,7 +96,7 @@ beforeAll(async () => {
     "tp.csv",
   );
   await deleteDataset(as.installer!, (await extra.json()).id);
-  const { analysis } = await runHeadFit(as.engineer!, (await probe.json()).id);
+  const { analysis } = await runHeadFit(as.engineer!, probeId);
   await measureEveryStep(as.installer!, jobId, "post");
   await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
   await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });

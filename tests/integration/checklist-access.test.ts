@@ -7,18 +7,8 @@ import { GET as comparisonRoute } from "@/app/api/jobs/[id]/comparison/route";
 import { GET as readingsGet, POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
 import { instruments, jobs, templateSteps } from "@/db/schema";
+import { WHO, type Who } from "./fixtures";
 import { jobIdByReference, request, signInAs } from "./helpers";
-
-const WHO = {
-  anonymous: null,
-  admin: "admin@halvard.example",
-  installer: "installer@halvard.example",
-  inspector: "inspector@halvard.example",
-  engineer: "engineer@halvard.example",
-  "customer (Marlow Creek)": "buyer@marlowcreek.example",
-  "customer (Tollan)": "buyer@tollan.example",
-} as const;
-type Who = keyof typeof WHO;
 
 /** GET of readings, comparison and its CSV: who may read which job. */
 const READ: Record<string, Record<Who, number>> = {

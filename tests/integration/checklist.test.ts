@@ -14,31 +14,33 @@ import { db } from "@/db";
 import { changeJobStatus } from "@/db/queries/job-status";
 import { getActor } from "@/db/queries/users";
 import { inviteUser, setPasswordWithToken, tokenHash, updateUser } from "@/db/queries/users-admin";
-import {
-  auditEvents,
-  instruments,
-  jobs,
-  outbox,
-  readings,
-  templateSteps,
-  userTokens,
-  users,
-} from "@/db/schema";
+import { auditEvents, jobs, outbox, readings, templateSteps, userTokens, users } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
 import type { Actor } from "@/lib/domain/roles";
-import { AppError } from "@/lib/errors";
 import { processOutbox } from "@/lib/mail/worker";
-import { jobIdByReference, request, signInAs } from "./helpers";
+import {
+  allActors,
+  BASE_JOB,
+  insertTestJob,
+  refusalOf,
+  instrumentIdsBySerial,
+  stepIdsByPosition,
+} from "./fixtures";
+import { request, signInAs } from "./helpers";
+import { jobBaseOf } from "./ready-job";
 
 let jobId: string;
 const step: Record<number, string> = {};
 const inst: Record<string, string> = {};
 const as: Record<string, Actor> = {};
 
-async function actor(email: string): Promise<Actor> {
-  const [u] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
-  return (await getActor(u!.id))!;
-}
+/** A reading in inches on step 1 with the seed's dial indicator, unless `over` says otherwise. */
+const reading = (over: Record<string, unknown>) => ({
+  stepId: step[1],
+  unit: "in",
+  instrumentId: inst["DTI-0112"],
+  ...over,
+});
 
 async function post(body: Record<string, unknown>, id = jobId) {
   const res = await readingsPost(
@@ -52,57 +54,25 @@ async function post(body: Record<string, unknown>, id = jobId) {
   return { status: res.status, json: await res.json() };
 }
 
-async function failure(p: Promise<unknown>): Promise<AppError> {
-  try {
-    await p;
-  } catch (e) {
-    if (e instanceof AppError) return e;
-    throw e;
-  }
-  throw new Error("expected a refusal");
-}
-
 beforeAll(async () => {
-  for (const e of ["admin@halvard.example", "installer@halvard.example", "engineer@halvard.example"])
-    as[e.split("@")[0]!] = await actor(e);
-  const [base] = await db
-    .select()
-    .from(jobs)
-    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
-  const [row] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-CHK-${Date.now().toString(36)}`,
-      title: "Checklist test job",
-      kind: "reverification",
-      status: "draft",
-      customerId: base!.customerId,
-      machineId: base!.machineId,
-      headId: base!.headId,
-      assignedInstallerId: as.installer!.id,
-      templateId: base!.templateId,
-    })
-    .returning();
-  jobId = row!.id;
-  for (const s of await db
-    .select()
-    .from(templateSteps)
-    .where(eq(templateSteps.templateId, base!.templateId!)))
-    step[s.position] = s.id;
-  for (const i of await db.select().from(instruments)) inst[i.serial] = i.id;
+  Object.assign(as, await allActors());
+  const base = await jobBaseOf(BASE_JOB);
+  jobId = await insertTestJob({
+    tag: "CHK",
+    title: "Checklist test job",
+    status: "draft",
+    template: true,
+    base,
+    assignedInstallerId: as.installer!.id,
+  });
+  Object.assign(step, await stepIdsByPosition(base.templateId));
+  Object.assign(inst, await instrumentIdsBySerial());
 });
 
 describe("recording readings", () => {
   it("stores the canonical value (mm) with what was entered (in), and the first reading starts measuring", async () => {
     await signInAs("installer@halvard.example");
-    const { status, json } = await post({
-      stepId: step[1],
-      phase: "pre",
-      value: "0.0009",
-      unit: "in",
-      instrumentId: inst["DTI-0112"],
-      note: "before shimming",
-    });
+    const { status, json } = await post(reading({ phase: "pre", value: "0.0009", note: "before shimming" }));
     expect(status).toBe(201);
     // 0.0009 in × 25.4 mm/in = 0.02286 mm (NIST SP 811: 1 in = 25.4 mm exactly)
     expect(json.reading.value).toBeCloseTo(0.02286, 12);
@@ -123,15 +93,9 @@ describe("recording readings", () => {
 
   it("the tilt step turns reading over travel into arc seconds with geometry/ (0.0005 in over 10 in = 10.31″)", async () => {
     await signInAs("installer@halvard.example");
-    const { status, json } = await post({
-      stepId: step[5],
-      phase: "pre",
-      value: 0.0005,
-      unit: "in",
-      travel: 10,
-      travelUnit: "in",
-      instrumentId: inst["DTI-0112"],
-    });
+    const { status, json } = await post(
+      reading({ stepId: step[5], phase: "pre", value: 0.0005, travel: 10, travelUnit: "in" }),
+    );
     expect(status).toBe(201);
     expect(json.reading.unit).toBe("arcsec");
     expect(json.reading.value).toBeCloseTo(10.31, 2);
@@ -141,13 +105,9 @@ describe("recording readings", () => {
   it("refuses an instrument past its calibration due date, with the reason, and stores nothing", async () => {
     await signInAs("installer@halvard.example");
     const before = await db.select().from(readings).where(eq(readings.jobId, jobId));
-    const { status, json } = await post({
-      stepId: step[1],
-      phase: "post",
-      value: 0.0003,
-      unit: "in",
-      instrumentId: inst["DTI-0417"],
-    });
+    const { status, json } = await post(
+      reading({ phase: "post", value: 0.0003, instrumentId: inst["DTI-0417"] }),
+    );
     expect(status).toBe(422);
     expect(json.error.message).toMatch(/DTI-0417 was due for calibration on 2026-09-30/);
     expect(json.error.issues[0].field).toBe("instrumentId");
@@ -156,65 +116,35 @@ describe("recording readings", () => {
 
   it("refuses an instrument of the wrong kind and bad input, naming the field", async () => {
     await signInAs("installer@halvard.example");
-    const wrong = await post({
-      stepId: step[1],
-      phase: "post",
-      value: 0.0003,
-      unit: "in",
-      instrumentId: inst["EL-0007"],
-    });
+    const wrong = await post(reading({ phase: "post", value: 0.0003, instrumentId: inst["EL-0007"] }));
     expect(wrong.status).toBe(422);
     expect(wrong.json.error.message).toMatch(/EL-0007 measures angles/);
-    const bad = await post({
-      stepId: step[1],
-      phase: "later",
-      value: "abc",
-      unit: "in",
-      instrumentId: inst["DTI-0112"],
-    });
+    const bad = await post(reading({ phase: "later", value: "abc" }));
     expect(bad.status).toBe(422);
     expect(bad.json.error.issues.map((i: { field: string }) => i.field).sort()).toEqual(["phase", "value"]);
-    const notOurs = await post({
-      stepId: "00000000-0000-4000-8000-000000000000",
-      phase: "pre",
-      value: 1,
-      unit: "in",
-      instrumentId: inst["DTI-0112"],
-    });
+    const notOurs = await post(
+      reading({ stepId: "00000000-0000-4000-8000-000000000000", phase: "pre", value: 1 }),
+    );
     expect(notOurs.status).toBe(422);
     expect(notOurs.json.error.issues[0].field).toBe("stepId");
   });
 
   it("a correction supersedes the old reading and keeps it; the old one cannot be corrected twice", async () => {
     await signInAs("installer@halvard.example");
-    const first = await post({
-      stepId: step[1],
-      phase: "post",
-      value: 0.0006,
-      unit: "in",
-      instrumentId: inst["DTI-0112"],
-    });
-    const fix = await post({
-      stepId: step[1],
-      phase: "post",
-      value: 0.0003,
-      unit: "in",
-      instrumentId: inst["DTI-0112"],
-      note: "misread the dial",
-      supersedesId: first.json.reading.id,
-    });
+    const first = await post(reading({ phase: "post", value: 0.0006 }));
+    const fix = await post(
+      reading({
+        phase: "post",
+        value: 0.0003,
+        note: "misread the dial",
+        supersedesId: first.json.reading.id,
+      }),
+    );
     expect(fix.status).toBe(201);
     const [old] = await db.select().from(readings).where(eq(readings.id, first.json.reading.id));
     expect(old!.value).toBeCloseTo(0.01524, 12);
     expect(old!.supersededById).toBe(fix.json.reading.id);
-    const again = await post({
-      stepId: step[1],
-      phase: "post",
-      value: 0.0002,
-      unit: "in",
-      instrumentId: inst["DTI-0112"],
-      supersedesId: first.json.reading.id,
-    });
+    const again = await post(reading({ phase: "post", value: 0.0002, supersedesId: first.json.reading.id }));
     expect(again.status).toBe(409);
     const list = await readingsGet(request("/x"), { params: Promise.resolve({ id: jobId }) });
     const body = await list.json();
@@ -255,7 +185,7 @@ describe("recording readings", () => {
 
 describe("status moves", () => {
   it("an installer cannot approve; submitting for review notifies engineers and inspectors and locks the readings", async () => {
-    const e = await failure(changeJobStatus(as.installer!, jobId, "approved"));
+    const e = await refusalOf(changeJobStatus(as.installer!, jobId, "approved"));
     expect(e.status).toBe(403);
     await changeJobStatus(as.installer!, jobId, "in_review");
     const mails = await db.select().from(outbox).where(eq(outbox.jobId, jobId));
@@ -265,18 +195,14 @@ describe("status moves", () => {
     ]);
     expect(mails[0]!.textBody).toContain(`/jobs/${jobId}/compare`);
     await signInAs("installer@halvard.example");
-    const locked = await post({
-      stepId: step[2],
-      phase: "pre",
-      value: 0.09,
-      unit: "in",
-      instrumentId: inst["FG-0031"],
-    });
+    const locked = await post(
+      reading({ stepId: step[2], phase: "pre", value: 0.09, instrumentId: inst["FG-0031"] }),
+    );
     expect(locked.status).toBe(403);
     expect(locked.json.error.message).toMatch(/in review; its readings are locked/);
     // Issue goes through the signed report, not a bare status change.
     await changeJobStatus(as.engineer!, jobId, "approved");
-    expect((await failure(changeJobStatus(as.engineer!, jobId, "issued"))).status).toBe(403);
+    expect((await refusalOf(changeJobStatus(as.engineer!, jobId, "issued"))).status).toBe(403);
   });
 });
 
@@ -384,14 +310,17 @@ describe("invitation and set-password", () => {
     await setPasswordWithToken(token, "a-long-new-password");
     const [u] = await db.select().from(users).where(eq(users.id, userId));
     expect(await verifyPassword("a-long-new-password", u!.passwordHash)).toBe(true);
-    expect((await failure(setPasswordWithToken(token, "another-password"))).status).toBe(410);
-    expect((await failure(setPasswordWithToken("x".repeat(43), "another-password"))).status).toBe(410);
+    expect((await refusalOf(setPasswordWithToken(token, "another-password"))).status).toBe(410);
+    expect((await refusalOf(setPasswordWithToken("x".repeat(43), "another-password"))).status).toBe(410);
   });
 
   it("only an administrator invites; disabling and a role change end open sessions", async () => {
     expect(
-      (await failure(inviteUser(as.engineer!, { email: "x@halvard.example", name: "X", role: "installer" })))
-        .status,
+      (
+        await refusalOf(
+          inviteUser(as.engineer!, { email: "x@halvard.example", name: "X", role: "installer" }),
+        )
+      ).status,
     ).toBe(403);
     const { userId } = await inviteUser(as.admin!, {
       email: `role.${Date.now().toString(36)}@halvard.example`,
@@ -405,7 +334,9 @@ describe("invitation and set-password", () => {
     expect((await getActor(userId, Date.now() + 1000))!.role).toBe("inspector");
     await updateUser(as.admin!, { userId, disabled: true });
     expect(await getActor(userId, Date.now() + 1000)).toBeNull();
-    expect((await failure(updateUser(as.admin!, { userId: as.admin!.id, disabled: true }))).status).toBe(403);
+    expect((await refusalOf(updateUser(as.admin!, { userId: as.admin!.id, disabled: true }))).status).toBe(
+      403,
+    );
   });
 });
 
@@ -421,10 +352,10 @@ describe("registers and jobs from a procedure", () => {
       unit: "in" as const,
       calibrationDueOn: "2027-12-31",
     };
-    expect((await failure(createInstrument(as.engineer!, input))).status).toBe(403);
+    expect((await refusalOf(createInstrument(as.engineer!, input))).status).toBe(403);
     const row = await createInstrument(as.admin!, input);
     expect(row.resolution).toBeCloseTo(0.00254, 12);
-    expect((await failure(createInstrument(as.admin!, input))).issues?.[0]?.field).toBe("serial");
+    expect((await refusalOf(createInstrument(as.admin!, input))).issues?.[0]?.field).toBe("serial");
   });
 
   it("editing a procedure makes a new version; a job keeps the version it started with", async () => {
@@ -434,8 +365,8 @@ describe("registers and jobs from a procedure", () => {
       .select()
       .from(templateSteps)
       .where(eq(templateSteps.templateId, job!.templateId!));
-    expect((await failure(createTemplateVersion(as.engineer!, job!.templateId!, []))).status).toBe(403);
-    const bad = await failure(
+    expect((await refusalOf(createTemplateVersion(as.engineer!, job!.templateId!, []))).status).toBe(403);
+    const bad = await refusalOf(
       createTemplateVersion(as.admin!, job!.templateId!, [
         {
           position: 1,
@@ -487,9 +418,9 @@ describe("registers and jobs from a procedure", () => {
       assignedInstallerId: as.installer!.id,
       decisionRule: "simple" as const,
     };
-    expect((await failure(createJobFromTemplate(as.installer!, input))).status).toBe(403);
+    expect((await refusalOf(createJobFromTemplate(as.installer!, input))).status).toBe(403);
     expect(
-      (await failure(createJobFromTemplate(as.admin!, { ...input, assignedInstallerId: as.engineer!.id })))
+      (await refusalOf(createJobFromTemplate(as.admin!, { ...input, assignedInstallerId: as.engineer!.id })))
         .issues?.[0]?.field,
     ).toBe("assignedInstallerId");
     const job = await createJobFromTemplate(as.admin!, input);
@@ -513,13 +444,13 @@ describe("heads register", () => {
   it("moving a head is kept in its history; only an administrator moves it; an engineer reads it", async () => {
     const { getHeadWithHistory, mountHead } = await import("@/db/queries/heads-admin");
     const [base] = await db.select().from(jobs).where(eq(jobs.id, jobId));
-    expect((await failure(mountHead(as.engineer!, base!.headId, null))).status).toBe(403);
+    expect((await refusalOf(mountHead(as.engineer!, base!.headId, null))).status).toBe(403);
     await mountHead(as.admin!, base!.headId, null);
     await mountHead(as.admin!, base!.headId, base!.machineId);
     const h = await getHeadWithHistory(as.engineer!, base!.headId);
     expect(h!.head.machineId).toBe(base!.machineId);
     expect(h!.history.slice(-2).map((e) => e.action)).toEqual(["head.removed", "head.mounted"]);
-    expect((await failure(getHeadWithHistory(as.installer!, base!.headId))).status).toBe(403);
+    expect((await refusalOf(getHeadWithHistory(as.installer!, base!.headId))).status).toBe(403);
   });
 });
 
@@ -527,9 +458,9 @@ describe("customers, sites, machines and heads", () => {
   it("an administrator adds each, audited; another role is refused; duplicates name the field", async () => {
     const r = await import("@/db/queries/registers-admin");
     const tag = Date.now().toString(36);
-    expect((await failure(r.createCustomer(as.engineer!, { name: `Cust ${tag}` }))).status).toBe(403);
+    expect((await refusalOf(r.createCustomer(as.engineer!, { name: `Cust ${tag}` }))).status).toBe(403);
     const c = await r.createCustomer(as.admin!, { name: `Cust ${tag}`, contactEmail: "" });
-    expect((await failure(r.createCustomer(as.admin!, { name: `cust ${tag}` }))).issues?.[0]?.field).toBe(
+    expect((await refusalOf(r.createCustomer(as.admin!, { name: `cust ${tag}` }))).issues?.[0]?.field).toBe(
       "name",
     );
     const s = await r.createSite(as.admin!, { customerId: c.id, name: "Plant 9" });
@@ -543,7 +474,7 @@ describe("customers, sites, machines and heads", () => {
     });
     expect(
       (
-        await failure(
+        await refusalOf(
           r.createHead(as.admin!, {
             serial: `TH-${tag}`,
             primaryAxis: "C",

@@ -5,10 +5,6 @@
 // accurately and unambiguously), §7.8.2.1 b/e/p (method, item and deviations identified),
 // §7.8.4.1 with §6.4/§6.5 (calibrated equipment, traceability) and §7.8.6 (statement of
 // conformity) are the clauses these gates protect.
-import { execFileSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import path from "node:path";
 import { and, asc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
@@ -17,35 +13,31 @@ import { getReadiness, getReadinessView, recordDeviation } from "@/db/queries/re
 import { recordReading } from "@/db/queries/readings";
 import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
-import { getActor } from "@/db/queries/users";
-import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { auditEvents, deviations, instruments, jobs, readings, reports, templateSteps } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import type { BlockerCode } from "@/lib/report/readiness";
 import type { ReportData } from "@/lib/report/types";
+import { pdfText } from "../pdf-tools";
 import { upload } from "./dataset-helpers";
+import { allActors, BASE_JOB, DEMO_PASSWORD, insertTestJob, uploadDemoProbe } from "./fixtures";
 import { signInAs } from "./helpers";
 import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
-const PW = "trammel-demo";
+const PW = DEMO_PASSWORD;
 const as: Record<string, Actor> = {};
 let base: { customerId: string; machineId: string; headId: string; templateId: string };
 
-async function newJob(status: "measuring" | "approved" = "measuring"): Promise<string> {
-  const [row] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-RDY-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`,
-      title: "Readiness test job",
-      kind: "installation",
-      status,
-      ...base,
-      assignedInstallerId: as.installer!.id,
-    })
-    .returning();
-  return row!.id;
-}
+const newJob = (status: "measuring" | "approved" = "measuring") =>
+  insertTestJob({
+    tag: "RDY",
+    title: "Readiness test job",
+    kind: "installation",
+    status,
+    template: true,
+    base,
+    assignedInstallerId: as.installer!.id,
+  });
 
 const setStatus = (jobId: string, status: "measuring" | "in_review" | "approved") =>
   db.update(jobs).set({ status }).where(eq(jobs.id, jobId));
@@ -64,9 +56,8 @@ async function refusedCodes(jobId: string): Promise<BlockerCode[]> {
 }
 
 beforeAll(async () => {
-  for (const e of ["installer", "inspector", "engineer", "admin"])
-    as[e] = (await getActor((await signInAs(`${e}@halvard.example`))!))!;
-  base = await jobBaseOf("TR-2026-0052");
+  Object.assign(as, await allActors());
+  base = await jobBaseOf(BASE_JOB);
 });
 
 describe("issue is refused while any blocker stands", () => {
@@ -108,15 +99,7 @@ describe("issue is refused while any blocker stands", () => {
       instrumentId: inst!.id,
       supersedesId: current!.id,
     });
-    await signInAs("installer@halvard.example");
-    const up = await upload(
-      jobId,
-      Buffer.from(demoSphereProbeCsv()),
-      { kind: "sphere_probe", phase: "pre", units: "mm" },
-      "probe.csv",
-    );
-    expect(up.status).toBe(201);
-    const datasetId = ((await up.json()) as { id: string }).id;
+    const datasetId = await uploadDemoProbe(jobId);
     await setStatus(jobId, "approved");
     const codes = await refusedCodes(jobId);
     expect(codes).toContain("dataset_not_evaluated");
@@ -239,11 +222,7 @@ describe("issue is refused while any blocker stands", () => {
     // conformity and lists the deviation with its justification and approver (read by pdftotext).
     const [r] = await db.select().from(reports).where(eq(reports.id, reportId));
     expect((r!.content as ReportData).conformity?.verdict).toBe("conforms_with_deviations");
-    const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-rdy-"));
-    writeFileSync(path.join(dir, "r.pdf"), r!.pdf);
-    const text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"])
-      .toString("utf8")
-      .replace(/\s+/g, " ");
+    const text = pdfText(r!.pdf, true);
     expect(text).toContain("Statement of conformity Conforms with the listed deviations accepted");
     expect(text).toMatch(
       /Deviation: Step 1: .+ \(FAIL\) is carried into this report\. Justification: Collar face run-out/,

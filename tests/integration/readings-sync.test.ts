@@ -7,31 +7,25 @@ import { and, asc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
-import { auditEvents, instruments, jobs, readings, templateSteps, users } from "@/db/schema";
-import { jobIdByReference, request, signInAs } from "./helpers";
+import { auditEvents, jobs, readings, users } from "@/db/schema";
+import { BASE_JOB, insertTestJob, type JobBase, instrumentIdsBySerial, stepIdsByPosition } from "./fixtures";
+import { request, signInAs } from "./helpers";
+import { jobBaseOf } from "./ready-job";
 
 const step: Record<number, string> = {};
 const inst: Record<string, string> = {};
 let installerId: string;
-let base: typeof jobs.$inferSelect;
+let base: JobBase;
 
-async function newJob(status: "draft" | "measuring" | "in_review" = "measuring"): Promise<string> {
-  const [row] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-SYNC-${randomUUID().slice(0, 8)}`,
-      title: "Sync test job",
-      kind: "reverification",
-      status,
-      customerId: base.customerId,
-      machineId: base.machineId,
-      headId: base.headId,
-      assignedInstallerId: installerId,
-      templateId: base.templateId,
-    })
-    .returning();
-  return row!.id;
-}
+const newJob = (status: "draft" | "measuring" | "in_review" = "measuring") =>
+  insertTestJob({
+    tag: "SYNC",
+    title: "Sync test job",
+    status,
+    template: true,
+    base,
+    assignedInstallerId: installerId,
+  });
 
 async function post(jobId: string, body: Record<string, unknown>) {
   const res = await readingsPost(
@@ -61,15 +55,11 @@ async function stored(jobId: string) {
 }
 
 beforeAll(async () => {
-  [base] = (await db
-    .select()
-    .from(jobs)
-    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")))) as [typeof jobs.$inferSelect];
+  base = await jobBaseOf(BASE_JOB);
   const [u] = await db.select().from(users).where(eq(users.email, "installer@halvard.example"));
   installerId = u!.id;
-  for (const s of await db.select().from(templateSteps).where(eq(templateSteps.templateId, base.templateId!)))
-    step[s.position] = s.id;
-  for (const i of await db.select().from(instruments)) inst[i.serial] = i.id;
+  Object.assign(step, await stepIdsByPosition(base.templateId));
+  Object.assign(inst, await instrumentIdsBySerial());
   await signInAs("installer@halvard.example");
 });
 

@@ -33,6 +33,7 @@ import {
   procedureTemplates,
   sites,
 } from "@/db/schema";
+import { WHO } from "./fixtures";
 import { request, signInAs } from "./helpers";
 
 type Handler = (req: Request, ctx: { params: Promise<{ id: string }> }) => Promise<Response>;
@@ -48,16 +49,6 @@ const post = (h: (req: Request, ctx: never) => Promise<Response>, path: string, 
   h(request(path, json("POST", body)), undefined as never);
 const patch = (h: Handler, path: string, id: string, body: unknown) =>
   h(request(`${path}/${id}`, json("PATCH", body)), p(id));
-
-const WHO: Record<string, string | null> = {
-  anonymous: null,
-  admin: "admin@halvard.example",
-  installer: "installer@halvard.example",
-  inspector: "inspector@halvard.example",
-  engineer: "engineer@halvard.example",
-  "customer (Marlow Creek)": "buyer@marlowcreek.example",
-  "customer (Tollan)": "buyer@tollan.example",
-};
 
 /** Per role: [customers, sites, machines, heads, instruments, users, procedures] for read; write is the admin's alone. */
 type Cells = { read: Record<string, number>; write: number };

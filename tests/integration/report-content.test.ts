@@ -3,11 +3,7 @@
 // rules: simple = inside the limits; guarded = inside the limits narrowed by U, outside the limits
 // widened by U fails), the engineer's saved 3D view embedded byte for byte (pdfimages, from
 // poppler, an independent reader), and the charts' numbers. Job of its own.
-import { execFileSync } from "node:child_process";
 import { createHash } from "node:crypto";
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import path from "node:path";
 import { eq } from "drizzle-orm";
 import { PNG } from "pngjs";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -18,17 +14,15 @@ import { changeJobStatus } from "@/db/queries/job-status";
 import { getJobConformity, issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
 import { createTemplateVersion } from "@/db/queries/templates";
-import { getActor } from "@/db/queries/users";
-import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { jobs, procedureTemplates, reports, templateParameterLimits, templateSteps } from "@/db/schema";
+import { procedureTemplates, reports, templateParameterLimits, templateSteps } from "@/db/schema";
 import type { HeadFitJson } from "@/geometry";
 import type { Actor } from "@/lib/domain/roles";
 import type { ReportData } from "@/lib/report/types";
-import { upload } from "./dataset-helpers";
-import { jobIdByReference, signInAs } from "./helpers";
-import { carryOpenResults, measureEveryStep } from "./ready-job";
+import { pdfFile, pdfImageSizes, pdfText } from "../pdf-tools";
+import { allActors, BASE_JOB, DEMO_PASSWORD, insertTestJob, uploadDemoProbe } from "./fixtures";
+import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
-const PW = "trammel-demo";
+const PW = DEMO_PASSWORD;
 const as: Record<string, Actor> = {};
 let jobId = "";
 let templateId = "";
@@ -45,47 +39,16 @@ const viewPng = (() => {
 })();
 
 beforeAll(async () => {
-  for (const e of [
-    "admin@halvard.example",
-    "installer@halvard.example",
-    "inspector@halvard.example",
-    "engineer@halvard.example",
-    "buyer@marlowcreek.example",
-    "buyer@tollan.example",
-  ]) {
-    as[e.endsWith("tollan.example") ? "buyer-tollan" : e.split("@")[0]!] = (await getActor(
-      (await signInAs(e))!,
-    ))!;
-  }
-  const [t] = await db
-    .select()
-    .from(jobs)
-    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
-  templateId = t!.templateId!;
-  const [row] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-RPT-${Date.now().toString(36)}`,
-      title: "Report content test job",
-      kind: "reverification",
-      status: "measuring",
-      customerId: t!.customerId,
-      machineId: t!.machineId,
-      headId: t!.headId,
-      templateId,
-      assignedInstallerId: as.installer!.id,
-    })
-    .returning();
-  jobId = row!.id;
-  await signInAs("installer@halvard.example");
-  const up = await upload(
-    jobId,
-    Buffer.from(demoSphereProbeCsv()),
-    { kind: "sphere_probe", phase: "pre", units: "mm" },
-    "probe.csv",
-  );
-  expect(up.status).toBe(201);
-  const { analysis } = await runHeadFit(as.engineer!, (await up.json()).id);
+  Object.assign(as, await allActors());
+  templateId = (await jobBaseOf(BASE_JOB)).templateId;
+  jobId = await insertTestJob({
+    tag: "RPT",
+    title: "Report content test job",
+    status: "measuring",
+    template: true,
+    assignedInstallerId: as.installer!.id,
+  });
+  const { analysis } = await runHeadFit(as.engineer!, await uploadDemoProbe(jobId));
   fit = analysis.result.fit;
   poseResiduals = analysis.result.poses.residual_um.map((r) => [...r]);
   // The gates before issue (lib/report/readiness.ts): every step measured, signed over that record,
@@ -194,19 +157,9 @@ describe("the saved 3D view in the report", () => {
     expect(content.figures).toHaveLength(1);
     expect(content.figures[0]!.sha256).toBe(createHash("sha256").update(viewPng).digest("hex"));
     expect(content.figures[0]!.caption).toMatch(/× 300.*Looking along −Y/);
-    const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-report-"));
-    writeFileSync(path.join(dir, "r.pdf"), pdf);
-    const list = execFileSync("pdfimages", ["-list", path.join(dir, "r.pdf")]).toString("utf8");
-    const sizes = list
-      .split("\n")
-      .slice(2)
-      .map((l) => l.trim().split(/\s+/))
-      .filter((c) => c.length > 4)
-      .map((c) => `${c[3]}x${c[4]}`);
-    expect(sizes).toContain("64x40");
-    const text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"])
-      .toString("utf8")
-      .replace(/\s+/g, " ");
+    const file = pdfFile(pdf);
+    expect(pdfImageSizes(file)).toContain("64x40");
+    const text = pdfText(file, true);
     expect(text).toContain("Fitted head parameters against the procedure's limits.");
     expect(text).toContain("Residuals of the approved head fit per pose.");
   });

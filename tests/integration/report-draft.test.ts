@@ -2,19 +2,14 @@
 // says DRAFT and carries no signature and no verification block, even on a job whose issued
 // report is signed, and it stores nothing. ISO/IEC 17025:2017 §7.8.1.1 (only an authorized,
 // issued report is a report) and 21 CFR 11.50 (a signature is never implied where none was given).
-import { execFileSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import path from "node:path";
 import { eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { GET as draftRoute } from "@/app/api/jobs/[id]/report/draft/route";
 import { db } from "@/db";
 import { auditEvents, reports, signatures } from "@/db/schema";
 import { SIGNATURE_LABELS } from "@/lib/domain/signatures";
+import { pdfText } from "../pdf-tools";
 import { jobIdByReference, request, signInAs } from "./helpers";
-
-const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-draft-"));
 
 async function draftText(ref: string): Promise<string> {
   await signInAs("engineer@halvard.example");
@@ -22,9 +17,7 @@ async function draftText(ref: string): Promise<string> {
   const res = await draftRoute(request(`/api/jobs/${id}/report/draft`), { params: Promise.resolve({ id }) });
   expect(res.status).toBe(200);
   expect(res.headers.get("content-disposition")).toContain("DRAFT");
-  const file = path.join(dir, `${ref}.pdf`);
-  writeFileSync(file, Buffer.from(await res.arrayBuffer()));
-  return execFileSync("pdftotext", [file, "-"]).toString("utf8");
+  return pdfText(Buffer.from(await res.arrayBuffer()));
 }
 
 describe("the draft preview (GET /api/jobs/{id}/report/draft)", () => {

@@ -4,78 +4,31 @@
 import { and, eq, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { getActor } from "@/db/queries/users";
 import { issueReport, respondToReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
 import { verifyPdfFile, verifyReport } from "@/db/queries/verification";
-import { jobs, outbox, reports, signatures, users } from "@/db/schema";
+import { jobs, outbox, reports, signatures } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
-import { AppError } from "@/lib/errors";
-import { jobIdByReference } from "./helpers";
+import { allActors, dbError, DEMO_PASSWORD, refusalOf, insertTestJob } from "./fixtures";
 
-const PW = "trammel-demo";
+const PW = DEMO_PASSWORD;
 let jobId: string;
 const as: Record<string, Actor> = {};
 
-async function actor(email: string): Promise<Actor> {
-  const [u] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
-  return (await getActor(u!.id))!;
-}
-
-async function failure(p: Promise<unknown>): Promise<AppError> {
-  try {
-    await p;
-  } catch (e) {
-    if (e instanceof AppError) return e;
-    throw e;
-  }
-  throw new Error("expected a refusal");
-}
-
-async function dbError(p: Promise<unknown>): Promise<string> {
-  try {
-    await p;
-  } catch (e) {
-    const err = e as Error & { cause?: Error };
-    return err.cause?.message ?? err.message;
-  }
-  return "no error";
-}
-
 beforeAll(async () => {
-  for (const e of [
-    "installer@halvard.example",
-    "inspector@halvard.example",
-    "engineer@halvard.example",
-    "buyer@marlowcreek.example",
-    "buyer@tollan.example",
-  ])
-    as[e.split("@")[0]! + (e.includes("tollan") ? "-tollan" : "")] = await actor(e);
+  Object.assign(as, await allActors());
   // A job of its own, so other tests' data is untouched.
-  const template = await db
-    .select()
-    .from(jobs)
-    .where(eq(jobs.id, await jobIdByReference("TR-2026-0052")));
-  const t = template[0]!;
-  const [row] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-TEST-${Date.now().toString(36)}`,
-      title: "Report test job",
-      kind: "reverification",
-      status: "measuring",
-      customerId: t.customerId,
-      machineId: t.machineId,
-      headId: t.headId,
-      assignedInstallerId: as.installer!.id,
-    })
-    .returning();
-  jobId = row!.id;
+  jobId = await insertTestJob({
+    tag: "TEST",
+    title: "Report test job",
+    status: "measuring",
+    assignedInstallerId: as.installer!.id,
+  });
 });
 
 describe("signing before issue", () => {
   it("refuses a signature without the right password", async () => {
-    const e = await failure(signJobWork(as.installer!, { jobId, meaning: "performed", password: "wrong" }));
+    const e = await refusalOf(signJobWork(as.installer!, { jobId, meaning: "performed", password: "wrong" }));
     expect(e.status).toBe(422);
     expect(e.issues?.[0]).toMatchObject({ field: "password" });
     expect(await db.select().from(signatures).where(eq(signatures.jobId, jobId))).toHaveLength(0);
@@ -91,24 +44,24 @@ describe("signing before issue", () => {
 
   it("refuses the wrong role and a second identical signature", async () => {
     expect(
-      (await failure(signJobWork(as.engineer!, { jobId, meaning: "inspected", password: PW }))).status,
+      (await refusalOf(signJobWork(as.engineer!, { jobId, meaning: "inspected", password: PW }))).status,
     ).toBe(403);
     expect(
-      (await failure(signJobWork(as.installer!, { jobId, meaning: "performed", password: PW }))).status,
+      (await refusalOf(signJobWork(as.installer!, { jobId, meaning: "performed", password: PW }))).status,
     ).toBe(422);
   });
 
   it("another tenant's customer cannot even see the job (404)", async () => {
-    expect((await failure(issueReport(as["buyer-tollan"]!, { jobId, password: PW }))).status).toBe(404);
+    expect((await refusalOf(issueReport(as["buyer-tollan"]!, { jobId, password: PW }))).status).toBe(404);
   });
 });
 
 describe("issuing the report", () => {
   it("is refused before the parameters are approved, and for anyone but an engineer", async () => {
-    expect((await failure(issueReport(as.engineer!, { jobId, password: PW }))).status).toBe(403);
+    expect((await refusalOf(issueReport(as.engineer!, { jobId, password: PW }))).status).toBe(403);
     await db.update(jobs).set({ status: "approved" }).where(eq(jobs.id, jobId));
-    expect((await failure(issueReport(as.inspector!, { jobId, password: PW }))).status).toBe(403);
-    expect((await failure(issueReport(as.engineer!, { jobId, password: "wrong" }))).status).toBe(422);
+    expect((await refusalOf(issueReport(as.inspector!, { jobId, password: PW }))).status).toBe(403);
+    expect((await refusalOf(issueReport(as.engineer!, { jobId, password: "wrong" }))).status).toBe(422);
   });
 
   it("leaves nothing behind when it fails between rendering and commit", async () => {
@@ -211,18 +164,18 @@ describe("customer response and amendment", () => {
     const [r] = await db.select().from(reports).where(eq(reports.jobId, jobId));
     expect(
       (
-        await failure(
+        await refusalOf(
           respondToReport(as["buyer-tollan"]!, { reportId: r!.id, decision: "accepted", password: PW }),
         )
       ).status,
     ).toBe(404);
     expect(
-      (await failure(respondToReport(as.buyer!, { reportId: r!.id, decision: "rejected", password: PW })))
+      (await refusalOf(respondToReport(as.buyer!, { reportId: r!.id, decision: "rejected", password: PW })))
         .status,
     ).toBe(422);
     expect(
       (
-        await failure(
+        await refusalOf(
           respondToReport(as.buyer!, {
             reportId: r!.id,
             decision: "rejected",
@@ -248,7 +201,7 @@ describe("customer response and amendment", () => {
 
   it("an amendment is a new revision that names and supersedes the earlier one", async () => {
     const [r1] = await db.select().from(reports).where(eq(reports.jobId, jobId));
-    expect((await failure(issueReport(as.engineer!, { jobId, password: PW }))).status).toBe(422);
+    expect((await refusalOf(issueReport(as.engineer!, { jobId, password: PW }))).status).toBe(422);
     const { reportId, revision } = await issueReport(as.engineer!, {
       jobId,
       password: PW,
@@ -264,7 +217,7 @@ describe("customer response and amendment", () => {
     const v2 = await verifyReport(reportId);
     expect(v2.report!.amendmentOf).toEqual({ id: r1!.id, revision: 1 });
     expect(
-      (await failure(respondToReport(as.buyer!, { reportId: r1!.id, decision: "accepted", password: PW })))
+      (await refusalOf(respondToReport(as.buyer!, { reportId: r1!.id, decision: "accepted", password: PW })))
         .status,
     ).toBe(403);
     await respondToReport(as.buyer!, { reportId, decision: "accepted", password: PW });

@@ -3,17 +3,7 @@ import { sql } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { appendAudit, verifyAuditChain } from "@/db/queries/audit";
-
-/** Drizzle wraps the driver's error; the database's own message is in `cause`. */
-async function dbError(p: Promise<unknown>): Promise<string> {
-  try {
-    await p;
-  } catch (e) {
-    const err = e as Error & { cause?: Error };
-    return err.cause?.message ?? err.message;
-  }
-  return "no error";
-}
+import { dbError } from "./fixtures";
 
 describe("audit trail", () => {
   it("refuses UPDATE and DELETE in the database itself", async () => {

@@ -269,7 +269,10 @@ describe("cross-origin writes are refused with 403", () => {
       const src = readFileSync(f, "utf8");
       return ["POST", "PUT", "PATCH", "DELETE"]
         .filter((m) =>
-          new RegExp(`export (const|async function|function) ${m}\\b|export \\{[^}]*\\b${m}\\b`).test(src),
+          new RegExp(
+            // export const POST = …, export function POST, export { POST }, export const { POST } = …
+            `export (const|async function|function) ${m}\\b|export (const )?\\{[^}]*\\b${m}\\b`,
+          ).test(src),
         )
         .map((m) => `${m} ${path.relative(ROOT, f)}`);
     });

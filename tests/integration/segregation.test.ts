@@ -4,70 +4,58 @@
 // work as performed does not also approve its parameters or issue its report (21 CFR 11.50: each
 // signature's meaning is its signer's) unless the company setting ALLOW_SAME_SIGNER allows it
 // (off here, the default).
-import { and, asc, eq } from "drizzle-orm";
-import { beforeAll, describe, expect, it } from "vitest";
+import { and, eq } from "drizzle-orm";
+import { beforeAll, describe, expect, it, onTestFinished } from "vitest";
 import { db } from "@/db";
 import { approveAnalysis, nonConformingParameters, runHeadFit } from "@/db/queries/analyses";
 import { recordReading } from "@/db/queries/readings";
 import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
-import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { instruments, jobs, readings, signatures, templateSteps, users } from "@/db/schema";
+import { jobs, readings, signatures, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import type { Actor } from "@/lib/domain/roles";
 import { env } from "@/lib/env";
-import { AppError } from "@/lib/errors";
-import { upload } from "./dataset-helpers";
-import { signInAs } from "./helpers";
+import {
+  allActors,
+  BASE_JOB,
+  DEMO_PASSWORD,
+  firstStepOf,
+  insertTestJob,
+  instrumentIdBySerial,
+  refusalOf,
+  uploadDemoProbe,
+} from "./fixtures";
 import { jobBaseOf } from "./ready-job";
 
-const PW = "trammel-demo";
+const PW = DEMO_PASSWORD;
 const as: Record<string, Actor> = {};
 let base: { customerId: string; machineId: string; headId: string; templateId: string };
 let stepId: string;
 let instrumentId: string;
 
-async function newJob(installerId: string): Promise<string> {
-  const [row] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-SOD-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`,
-      title: "Segregation test job",
-      kind: "installation",
-      status: "measuring",
-      ...base,
-      assignedInstallerId: installerId,
-    })
-    .returning();
-  return row!.id;
-}
-
-const refusal = (p: Promise<unknown>) =>
-  p.then(
-    () => null,
-    (e: AppError) => e,
-  );
+const newJob = (installerId: string) =>
+  insertTestJob({
+    tag: "SOD",
+    title: "Segregation test job",
+    kind: "installation",
+    status: "measuring",
+    template: true,
+    base,
+    assignedInstallerId: installerId,
+  });
 
 beforeAll(async () => {
-  for (const e of ["installer", "inspector", "engineer", "admin"])
-    as[e] = (await getActor((await signInAs(`${e}@halvard.example`))!))!;
-  base = await jobBaseOf("TR-2026-0052");
-  const [step] = await db
-    .select()
-    .from(templateSteps)
-    .where(eq(templateSteps.templateId, base.templateId))
-    .orderBy(asc(templateSteps.position))
-    .limit(1);
-  stepId = step!.id;
-  const [inst] = await db.select().from(instruments).where(eq(instruments.serial, "DTI-0112"));
-  instrumentId = inst!.id;
+  Object.assign(as, await allActors());
+  base = await jobBaseOf(BASE_JOB);
+  stepId = await firstStepOf(base.templateId);
+  instrumentId = await instrumentIdBySerial();
 });
 
 describe("who records readings", () => {
   it("the office (administrator) is refused (403, with the reason) and nothing is stored", async () => {
     const jobId = await newJob(as.installer!.id);
-    const e = await refusal(
+    const e = await refusalOf(
       recordReading(as.admin!, jobId, { stepId, phase: "pre", value: 0.0004, unit: "in", instrumentId }),
     );
     expect(e?.status).toBe(403);
@@ -114,24 +102,23 @@ describe("one person does not sign both 'performed' and an approval", () => {
         passwordHash: await hashPassword(PW),
       })
       .returning();
+    // Other files count the company's active engineers (review notifications): leave none behind.
+    onTestFinished(async () => {
+      await db.update(users).set({ disabled: true }).where(eq(users.id, u!.id));
+    });
     const jobId = await newJob(u!.id);
     const asInstaller = (await getActor(u!.id))!;
-    await signInAs(asInstaller.email);
-    const up = await upload(
-      jobId,
-      Buffer.from(demoSphereProbeCsv()),
-      { kind: "sphere_probe", phase: "pre", units: "mm" },
-      "probe.csv",
+    const { analysis } = await runHeadFit(
+      as.engineer!,
+      await uploadDemoProbe(jobId, { email: asInstaller.email }),
     );
-    expect(up.status).toBe(201);
-    const { analysis } = await runHeadFit(as.engineer!, ((await up.json()) as { id: string }).id);
     await signJobWork(asInstaller, { jobId, meaning: "performed", password: PW });
     await db.update(jobs).set({ status: "in_review" }).where(eq(jobs.id, jobId));
     await db.update(users).set({ role: "engineer" }).where(eq(users.id, u!.id));
     const asEngineer = (await getActor(u!.id))!;
     expect(asEngineer.role).toBe("engineer");
 
-    const e = await refusal(approveAnalysis(asEngineer, analysis.id, PW));
+    const e = await refusalOf(approveAnalysis(asEngineer, analysis.id, PW));
     expect(e?.status).toBe(403);
     expect(e?.message).toMatch(/signed this work as performed/);
     const [still] = await db.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, jobId));
@@ -150,7 +137,7 @@ describe("one person does not sign both 'performed' and an approval", () => {
       PW,
       (await nonConformingParameters(as.engineer!, analysis.id)).map((p) => p.key),
     );
-    const issue = await refusal(issueReport(asEngineer, { jobId, password: PW }));
+    const issue = await refusalOf(issueReport(asEngineer, { jobId, password: PW }));
     expect(issue?.status).toBe(403);
     expect(issue?.message).toMatch(/signed this work as performed/);
   });

@@ -10,6 +10,7 @@ import { PNG } from "pngjs";
 import { beforeAll, describe, expect, it } from "vitest";
 import { renderReportPdf } from "@/lib/report/render";
 import { samplePng, samplePngSha256, sampleReport } from "../fixtures/report/sample-report";
+import { pdfImageSizes, pdfText } from "../pdf-tools";
 
 let pdf: Buffer;
 let text: string;
@@ -18,7 +19,7 @@ const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-pdf-"
 beforeAll(async () => {
   pdf = await renderReportPdf(sampleReport, undefined, new Map([[samplePngSha256, samplePng]]));
   writeFileSync(path.join(dir, "r.pdf"), pdf);
-  text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"]).toString("utf8");
+  text = pdfText(path.join(dir, "r.pdf"));
 }, 30_000);
 
 describe("report PDF", () => {
@@ -89,15 +90,8 @@ describe("report PDF", () => {
   });
 
   it("embeds the saved picture of the 3D view at its own size, with its caption (pdfimages lists it)", () => {
-    const list = execFileSync("pdfimages", ["-list", path.join(dir, "r.pdf")]).toString("utf8");
-    // pdfimages' table: page num type width height …; the QR code is the other image.
-    const sizes = list
-      .split("\n")
-      .slice(2)
-      .map((l) => l.trim().split(/\s+/))
-      .filter((c) => c.length > 4)
-      .map((c) => `${c[3]}x${c[4]}`);
-    expect(sizes).toContain("320x200");
+    // The QR code is the other image.
+    expect(pdfImageSizes(path.join(dir, "r.pdf"))).toContain("320x200");
     expect(text).toContain("The 3D view as saved by the engineer, errors × 300");
     expect(text).toContain(`SHA-256 ${samplePngSha256.slice(0, 16)}`);
   });

@@ -1,7 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { HeadsTable } from "@/components/registers/heads-table";
-import { RetireButton } from "@/components/registers/retire-controls";
 import { CustomerForm, HeadForm, MachineForm, SiteForm } from "@/components/registers/register-forms";
 import { Card } from "@/components/ui/card";
 import { listSitesForSelect } from "@/db/queries/registers-admin";
@@ -9,6 +8,7 @@ import { Table } from "@/components/ui/table";
 import { listCustomersWithSites, listHeads, listMachines } from "@/db/queries/registers";
 import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
+import { retireColumn } from "@/components/registers/retire-column";
 
 export const metadata: Metadata = { title: "Registers" };
 
@@ -43,18 +43,11 @@ export default async function RegistersPage() {
             column("Name", (c) => c.name),
             column("Sites", (c) => c.sites.join(", ") || "—"),
             column("Contact", (c) => (c.retiredAt ? "Retired" : (c.contactEmail ?? "—"))),
-            ...(mayEdit
-              ? [
-                  column("Retirement", (c) => (
-                    <RetireButton
-                      register="customers"
-                      id={c.id}
-                      retired={Boolean(c.retiredAt)}
-                      label={c.name}
-                    />
-                  )),
-                ]
-              : []),
+            ...retireColumn(column, mayEdit, "customers", (c) => ({
+              id: c.id,
+              retired: Boolean(c.retiredAt),
+              label: c.name,
+            })),
           ]}
         />
       </section>
@@ -74,18 +67,11 @@ export default async function RegistersPage() {
             column("Customer, site", (m) =>
               m.retiredAt ? `${m.customerName}, ${m.siteName} (retired)` : `${m.customerName}, ${m.siteName}`,
             ),
-            ...(mayEdit
-              ? [
-                  column("Retirement", (m) => (
-                    <RetireButton
-                      register="machines"
-                      id={m.id}
-                      retired={Boolean(m.retiredAt)}
-                      label={m.name}
-                    />
-                  )),
-                ]
-              : []),
+            ...retireColumn(column, mayEdit, "machines", (m) => ({
+              id: m.id,
+              retired: Boolean(m.retiredAt),
+              label: m.name,
+            })),
           ]}
         />
       </section>

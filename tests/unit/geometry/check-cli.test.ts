@@ -1,22 +1,11 @@
 // The rotary-positioning and tcp-check commands of `npm run geometry`, in-process through `main`.
 // rotary-positioning-iso230.csv holds the public ISO 230-2 worked data set of
 // paulscherrerinstitute/ecmccfg (examples/test/fat_sat/report.md), its millimetres read as degrees.
-import { join } from "node:path";
 import { describe, expect, it } from "vitest";
-import { main } from "@/lib/cli/geometry";
+import { csvFixturePath, runCli } from "./cli-helpers";
 
-const fx = (name: string) => join(import.meta.dirname, "../../fixtures/csv", name);
-
-async function cli(...args: string[]) {
-  let stdout = "";
-  let stderr = "";
-  const code = await main(
-    args,
-    (s) => void (stdout += s),
-    (s) => void (stderr += s),
-  );
-  return { code, stdout, stderr };
-}
+const fx = csvFixturePath;
+const cli = runCli;
 
 describe("rotary-positioning and tcp-check commands", () => {
   it("rotary-positioning prints the ISO 230-2 figures in arc seconds (report's mm ×3600)", async () => {

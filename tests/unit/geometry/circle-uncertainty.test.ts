@@ -6,15 +6,7 @@ import { inv, multiply, transpose } from "mathjs";
 import { levenbergMarquardt as mlLm } from "ml-levenberg-marquardt";
 import { describe, expect, it } from "vitest";
 import { fitCircle, GeometryError } from "@/geometry";
-
-const GGS = [
-  [1, 7],
-  [2, 6],
-  [5, 8],
-  [7, 7],
-  [9, 5],
-  [3, 7],
-] as const;
+import { GGS } from "./reference-data";
 
 /** Small deterministic generator (mulberry32) and Box–Muller normals for the Monte Carlo check. */
 function rng(seed: number) {

@@ -1,19 +1,12 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { axisSquareness, fitCircle, pivotLengthMm, RAD_PER_ARCSEC, type Vec3 } from "@/geometry";
+import { GGS } from "./reference-data";
 
 // Gander, Golub & Strebel, "Least-squares fitting of circles and ellipses", BIT 34 (1994) 558–578:
 // six points; geometric fit centre (4.7398, 2.9835), r 4.7142 (the paper's figures from memory;
 // reproduced to more digits with an independent least-squares tool: 4.739782, 2.983533, 4.714226,
 // sum of squared distances 1.22760 — the values asserted here).
-const GGS: readonly (readonly [number, number])[] = [
-  [1, 7],
-  [2, 6],
-  [5, 8],
-  [7, 7],
-  [9, 5],
-  [3, 7],
-];
 
 type M3 = readonly [Vec3, Vec3, Vec3];
 function rotation(ax: number, ay: number, az: number): M3 {

@@ -3,13 +3,10 @@
 // repeats and single poses) ends in exit 0 with JSON whose numbers are all finite (null only where
 // the JSON shape documents it), or exit 2 with a message — never an internal error (exit 1).
 import fc from "fast-check";
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
 import { describe, expect, it } from "vitest";
-import { main } from "@/lib/cli/geometry";
+import { runCli, tempFiles } from "./cli-helpers";
 
-const dir = mkdtempSync(join(tmpdir(), "geometry-prop-"));
+const { file } = tempFiles("geometry-prop");
 let k = 0;
 
 /** Keys whose value may be null by the documented JSON shape. */
@@ -33,19 +30,11 @@ function checkJson(v: unknown, key = ""): void {
   }
 }
 
-async function runCli(command: string, csv: string, ...opts: string[]) {
-  const f = join(dir, `${k++}.csv`);
-  writeFileSync(f, csv);
-  let out = "";
-  let err = "";
-  const code = await main(
-    [command, f, ...opts],
-    (s) => void (out += s),
-    (s) => void (err += s),
-  );
-  expect(code, err).not.toBe(1);
-  if (code === 0) checkJson(JSON.parse(out));
-  else expect(err).toMatch(/^error: /);
+async function checkCommand(command: string, csv: string, ...opts: string[]) {
+  const { code, stdout, stderr } = await runCli(command, file(`${k++}.csv`, csv), ...opts);
+  expect(code, stderr).not.toBe(1);
+  if (code === 0) checkJson(JSON.parse(stdout));
+  else expect(stderr).toMatch(/^error: /);
 }
 
 // Finite doubles of every magnitude, with a bias to small integers and repeats.
@@ -65,13 +54,13 @@ const RUNS = { numRuns: 150 };
 describe("no finite input crashes a command (fast-check)", { timeout: 120_000 }, () => {
   it("circle", async () => {
     await fc.assert(
-      fc.asyncProperty(rows(3), (rs) => runCli("circle", csv("x,y,z", rs))),
+      fc.asyncProperty(rows(3), (rs) => checkCommand("circle", csv("x,y,z", rs))),
       RUNS,
     );
   });
   it("tram, single plane and two planes", async () => {
     await fc.assert(
-      fc.asyncProperty(rows(2), (rs) => runCli("tram", csv("travel,reading", rs))),
+      fc.asyncProperty(rows(2), (rs) => checkCommand("tram", csv("travel,reading", rs))),
       RUNS,
     );
     await fc.assert(
@@ -80,7 +69,7 @@ describe("no finite input crashes a command (fast-check)", { timeout: 120_000 },
           minLength: 1,
           maxLength: 16,
         }),
-        (rs) => runCli("tram", csv("travel,reading,plane,bar_deg", rs)),
+        (rs) => checkCommand("tram", csv("travel,reading,plane,bar_deg", rs)),
       ),
       RUNS,
     );
@@ -88,7 +77,7 @@ describe("no finite input crashes a command (fast-check)", { timeout: 120_000 },
   it("sweep", async () => {
     await fc.assert(
       fc.asyncProperty(rows(2), fc.double({ min: 1e-300, max: 1e300, noNaN: true }), (rs, r) =>
-        runCli("sweep", csv("angle_deg,reading", rs), "--radius-mm", String(r)),
+        checkCommand("sweep", csv("angle_deg,reading", rs), "--radius-mm", String(r)),
       ),
       RUNS,
     );
@@ -108,21 +97,23 @@ describe("no finite input crashes a command (fast-check)", { timeout: 120_000 },
             maxLength: 24,
           },
         ),
-        (rs) => runCli("rotary-positioning", csv("target_deg,run,direction,measured_deg", rs)),
+        (rs) => checkCommand("rotary-positioning", csv("target_deg,run,direction,measured_deg", rs)),
       ),
       RUNS,
     );
   });
   it("tcp-check", async () => {
     await fc.assert(
-      fc.asyncProperty(rows(5), (rs) => runCli("tcp-check", csv("primary_deg,secondary_deg,x,y,z", rs))),
+      fc.asyncProperty(rows(5), (rs) =>
+        checkCommand("tcp-check", csv("primary_deg,secondary_deg,x,y,z", rs)),
+      ),
       RUNS,
     );
   });
   it("test-part, both rules", async () => {
     await fc.assert(
       fc.asyncProperty(rows(4), fc.constantFrom("simple", "guarded"), (rs, rule) =>
-        runCli(
+        checkCommand(
           "test-part",
           csv(
             "feature,characteristic,nominal,measured,lower_tol,upper_tol",

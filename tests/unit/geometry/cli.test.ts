@@ -1,38 +1,12 @@
 // The command line: JSON on stdout, exit code 2 and a message on stderr for bad input. Two runs go
 // through a real child process (`npx tsx lib/cli/geometry.ts`, as a user runs it); the rest call the
 // same `main` in-process with captured output, which keeps the unit suite fast.
-import { execFile } from "node:child_process";
-import { join } from "node:path";
 import { describe, expect, it } from "vitest";
-import { main } from "@/lib/cli/geometry";
+import { csvFixturePath, runCli, runCliProcess, SWEEP_JSON_KEYS, TRAM_JSON_KEYS } from "./cli-helpers";
 
-const root = join(import.meta.dirname, "../../..");
-const fx = (name: string) => join(root, "tests/fixtures/csv", name);
-
-function run(...args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  return new Promise((resolve) => {
-    execFile(
-      "npx",
-      ["tsx", "lib/cli/geometry.ts", ...args],
-      { cwd: root, timeout: 60_000 },
-      (error, stdout, stderr) => {
-        const code = error ? (typeof error.code === "number" ? error.code : -1) : 0;
-        resolve({ code, stdout, stderr });
-      },
-    );
-  });
-}
-
-async function inProcess(...args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = "";
-  let stderr = "";
-  const code = await main(
-    args,
-    (s) => void (stdout += s),
-    (s) => void (stderr += s),
-  );
-  return { code, stdout, stderr };
-}
+const fx = csvFixturePath;
+const run = runCliProcess;
+const inProcess = runCli;
 
 describe("npm run geometry", { timeout: 60_000 }, () => {
   it("child process: tram prints the documented JSON (NIST Norris); bad input exits 2 with stderr", async () => {
@@ -42,13 +16,7 @@ describe("npm run geometry", { timeout: 60_000 }, () => {
     ]);
     expect(tram.code).toBe(0);
     const t = JSON.parse(tram.stdout);
-    expect(Object.keys(t)).toEqual([
-      "slope_um_per_m",
-      "slope_u_um_per_m",
-      "angle_arcsec",
-      "straightness_um",
-      "tir_um",
-    ]);
+    expect(Object.keys(t)).toEqual(TRAM_JSON_KEYS);
     // NIST StRD Norris: slope 1.00211681802045 µm/mm = 1002.11681802045 µm/m.
     expect(t.slope_um_per_m).toBeCloseTo(1002.11681802045, 8);
     expect(bad.code).toBe(2);
@@ -98,27 +66,14 @@ describe("npm run geometry", { timeout: 60_000 }, () => {
     // NIST StRD Norris: slope 1.00211681802045 (µm per mm → µm/m × 1000), sd 4.29796848199937e-4.
     expect(tram.code).toBe(0);
     const t = JSON.parse(tram.stdout);
-    expect(Object.keys(t)).toEqual([
-      "slope_um_per_m",
-      "slope_u_um_per_m",
-      "angle_arcsec",
-      "straightness_um",
-      "tir_um",
-    ]);
+    expect(Object.keys(t)).toEqual(TRAM_JSON_KEYS);
     expect(t.slope_um_per_m).toBeCloseTo(1002.11681802045, 8);
     expect(t.slope_u_um_per_m).toBeCloseTo(0.429796848199937, 10);
 
     // tilt = TIR / sweep diameter (trade trigonometry): 20 µm over 200 mm = 100 µm/m, high side at 90°.
     expect(sweep.code).toBe(0);
     const s = JSON.parse(sweep.stdout);
-    expect(Object.keys(s)).toEqual([
-      "tilt_um_per_m",
-      "tilt_arcsec",
-      "direction_deg",
-      "tir_um",
-      "flatness_ls_um",
-      "flatness_mz_um",
-    ]);
+    expect(Object.keys(s)).toEqual(SWEEP_JSON_KEYS);
     expect(s.tilt_um_per_m).toBeCloseTo(100, 9);
     expect(s.direction_deg).toBeCloseTo(90, 9);
     expect(s.tir_um).toBe(20);

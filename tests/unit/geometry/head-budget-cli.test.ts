@@ -2,39 +2,18 @@
 // (its own u), the probe through the pose plan's u per µm of noise, and on the pivot length the
 // presetter and the temperature band ΔT·α·L (rectangular, u = a/√3, GUM 4.3.7; α of steel
 // 11.5e-6 /K, Swyt 1994). Hand-derivable figures are recomputed from the printed components.
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { headPoseGrid, synthesiseSphereProbe } from "@/geometry";
-import { main } from "@/lib/cli/geometry";
+import { runCli, sphereProbeCsvText, tempFiles } from "./cli-helpers";
 
-const dir = mkdtempSync(join(tmpdir(), "trammel-budget-cli-"));
+const { file } = tempFiles("budget-cli");
 const cfg = { primary: "C", secondary: "A", pivotLengthMm: 152.4 } as const;
 const poses = headPoseGrid({ primarySteps: 6, secondaryDeg: [-90, -45, 0, 45, 90], toolMm: [0, 100] });
 const data = synthesiseSphereProbe(cfg, { pivot_length_error_um: 40 }, poses, { noiseUm: 1, seed: 3 });
-const lines = ["primary_deg,secondary_deg,x,y,z,tool_mm"];
-for (let i = 0; i < data.rows; i++)
-  lines.push(
-    [data.primaryDeg[i], data.secondaryDeg[i], data.xMm[i], data.yMm[i], data.zMm[i], data.toolMm![i]].join(
-      ",",
-    ),
-  );
-const sphere = join(dir, "sphere.csv");
-writeFileSync(sphere, lines.join("\n"));
-const head = join(dir, "head.json");
-writeFileSync(head, JSON.stringify({ primary: "C", secondary: "A", pivot_length_mm: 152.4 }));
+const sphere = file("sphere.csv", sphereProbeCsvText(data));
+const head = file("head.json", JSON.stringify({ primary: "C", secondary: "A", pivot_length_mm: 152.4 }));
 
-async function cli(...args: string[]) {
-  let out = "";
-  let err = "";
-  const code = await main(
-    args,
-    (s) => void (out += s),
-    (s) => void (err += s),
-  );
-  return { code, out, err };
-}
+const cli = runCli;
 
 describe("fit-head budget", () => {
   it("prints budget rows whose u_c is the root sum of squares of the printed contributions", async () => {
@@ -51,7 +30,7 @@ describe("fit-head budget", () => {
       "1",
     );
     expect(r.code).toBe(0);
-    const j = JSON.parse(r.out);
+    const j = JSON.parse(r.stdout);
     const pivot = j.budget.find((b: { key: string }) => b.key === "pivot_length_error_um");
     const names = pivot.components.map((c: { name: string }) => c.name);
     expect(names).toEqual([
@@ -75,8 +54,8 @@ describe("fit-head budget", () => {
   it("without Type B inputs the JSON is unchanged and stderr says U is Type A only", async () => {
     const r = await cli("fit-head", sphere, "--head", head);
     expect(r.code).toBe(0);
-    expect(JSON.parse(r.out).budget).toBeUndefined();
-    expect(r.err).toMatch(/Type A only/);
+    expect(JSON.parse(r.stdout).budget).toBeUndefined();
+    expect(r.stderr).toMatch(/Type A only/);
     const bad = await cli("fit-head", sphere, "--head", head, "--u-probe-um", "-1");
     expect(bad.code).toBe(2);
   });

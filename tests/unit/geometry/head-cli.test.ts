@@ -1,14 +1,11 @@
 // `npm run geometry -- fit-head | plan`, in-process through the dispatcher's main (as cli.test.ts
 // does for the other commands). Data synthesised from known errors; the fit must give them back.
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
-import { afterAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { headPoseGrid, MM_PER_INCH, synthesiseSphereProbe } from "@/geometry";
-import { main } from "@/lib/cli/geometry";
+import { runCli, sphereProbeCsvText, tempFiles } from "./cli-helpers";
+import { HEAD_FIT_JSON_KEYS } from "./head-helpers";
 
-const dir = mkdtempSync(join(tmpdir(), "trammel-head-cli-"));
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
+const { file } = tempFiles("head-cli");
 const cfg = { primary: "C", secondary: "A", pivotLengthMm: 152.4 } as const;
 const poses = headPoseGrid({ primarySteps: 6, secondaryDeg: [-90, -45, 0, 45, 90], toolMm: [0, 100] });
 const data = synthesiseSphereProbe(cfg, { pivot_length_error_um: 40, primary_zero_arcsec: -70 }, poses, {
@@ -16,21 +13,8 @@ const data = synthesiseSphereProbe(cfg, { pivot_length_error_um: 40, primary_zer
   seed: 9,
   centreMm: [300, 100, 200],
 });
-const csv = (scale: number) =>
-  [
-    "primary_deg,secondary_deg,x,y,z,tool_mm",
-    ...poses.map(
-      (p, i) =>
-        `${p.primaryDeg},${p.secondaryDeg},${data.xMm[i]! / scale},${data.yMm[i]! / scale},${data.zMm[i]! / scale},${p.toolMm}`,
-    ),
-  ].join("\n");
-const file = (name: string, text: string) => {
-  const f = join(dir, name);
-  writeFileSync(f, text);
-  return f;
-};
-const mm = file("sphere.csv", csv(1));
-const inch = file("sphere-in.csv", csv(MM_PER_INCH));
+const mm = file("sphere.csv", sphereProbeCsvText(data));
+const inch = file("sphere-in.csv", sphereProbeCsvText(data, MM_PER_INCH));
 const head = file("head.json", JSON.stringify({ primary: "C", secondary: "A", pivot_length_mm: 152.4 }));
 const badHead = file("bad.json", JSON.stringify({ primary: "C", secondary: "C", pivot_length_mm: 152.4 }));
 const plan = file(
@@ -41,16 +25,7 @@ const plan = file(
   ].join("\n"),
 );
 
-async function run(...args: string[]) {
-  let stdout = "";
-  let stderr = "";
-  const code = await main(
-    args,
-    (s) => void (stdout += s),
-    (s) => void (stderr += s),
-  );
-  return { code, stdout, stderr };
-}
+const run = runCli;
 
 describe("head commands", () => {
   it("fit-head prints the documented JSON and gives the synthetic errors back, mm or inch input", async () => {
@@ -60,16 +35,7 @@ describe("head commands", () => {
     ]);
     expect(a.code).toBe(0);
     const j = JSON.parse(a.stdout);
-    expect(Object.keys(j)).toEqual([
-      "parameters",
-      "sphere_centre_mm",
-      "rms_um",
-      "max_um",
-      "outliers",
-      "outlier_count",
-      "iterations",
-      "warnings",
-    ]);
+    expect(Object.keys(j)).toEqual(HEAD_FIT_JSON_KEYS);
     const L = j.parameters.find((p: { key: string }) => p.key === "pivot_length_error_um");
     expect(Math.abs(L.value - 40)).toBeLessThan(2 * L.U);
     const k = JSON.parse(b.stdout);

@@ -17,7 +17,7 @@ import {
   type HeadFitResult,
   type SphereProbeData,
 } from "@/geometry";
-import { CA, ERR, thrown } from "./head-helpers";
+import { CA, ERR, thrown, HEAD_FIT_JSON_KEYS } from "./head-helpers";
 
 const grid = (tools: number[], primarySteps = 8) =>
   headPoseGrid({ primarySteps, secondaryDeg: [-90, -45, 0, 45, 90], toolMm: tools });
@@ -307,16 +307,7 @@ describe("bad input gives a typed GeometryError naming what is wrong", () => {
 
   it("the CLI JSON has exactly the documented keys (geometry/README.md, command line)", () => {
     const j = headFitToJson(fitHead(CA, data));
-    expect(Object.keys(j)).toEqual([
-      "parameters",
-      "sphere_centre_mm",
-      "rms_um",
-      "max_um",
-      "outliers",
-      "outlier_count",
-      "iterations",
-      "warnings",
-    ]);
+    expect(Object.keys(j)).toEqual(HEAD_FIT_JSON_KEYS);
     expect(Object.keys(j.parameters[0]!)).toEqual(["key", "iso", "value", "unit", "u", "U", "identifiable"]);
   });
 });

@@ -1,6 +1,6 @@
 // Shared by the head-fit tests: the C/A head, invented error values (for tests only), and a helper
 // that returns the GeometryError a call throws.
-import { GeometryError, type HeadConfig, type HeadErrors } from "@/geometry";
+import type { HeadConfig, HeadErrors } from "@/geometry";
 
 export const CA: HeadConfig = { primary: "C", secondary: "A", pivotLengthMm: 152.4 };
 export const ERR: HeadErrors = {
@@ -16,12 +16,16 @@ export const ERR: HeadErrors = {
 };
 
 /** The GeometryError f throws; any other outcome fails the test. */
-export function thrown(f: () => unknown): GeometryError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof GeometryError) return e;
-    throw e;
-  }
-  throw new Error("expected a GeometryError");
-}
+export { thrown } from "./csv-helpers";
+
+/** The keys of fit-head's JSON, in order (geometry/README.md, command line). */
+export const HEAD_FIT_JSON_KEYS = [
+  "parameters",
+  "sphere_centre_mm",
+  "rms_um",
+  "max_um",
+  "outliers",
+  "outlier_count",
+  "iterations",
+  "warnings",
+];

@@ -4,18 +4,11 @@
 // U = 2·½·√(u₀² + u₁₈₀²) (JCGM 100, two independent inputs with sensitivity ½).
 import { describe, expect, it } from "vitest";
 import { fitTram, fitTramPlanes, GeometryError, readTramCsv } from "@/geometry";
-import { main } from "@/lib/cli/geometry";
+import { runCli, tempFiles } from "./cli-helpers";
+import { NORRIS_X, NORRIS_Y } from "./reference-data";
 
-const NORRIS_X = [
-  0.2, 337.4, 118.2, 884.6, 10.1, 226.5, 666.3, 996.3, 448.6, 777.0, 558.2, 0.4, 0.6, 775.5, 666.9, 338.0,
-  447.5, 11.6, 556.0, 228.1, 995.8, 887.6, 120.2, 0.3, 0.3, 556.8, 339.1, 887.2, 999.0, 779.0, 11.1, 118.3,
-  229.2, 669.1, 448.9, 0.5,
-];
-const NORRIS_Y = [
-  0.1, 338.8, 118.1, 888.0, 9.2, 228.1, 668.5, 998.5, 449.1, 778.9, 559.2, 0.3, 0.1, 778.1, 668.8, 339.3,
-  448.9, 10.8, 557.7, 228.3, 998.0, 888.8, 119.6, 0.3, 0.6, 557.6, 339.3, 888.0, 998.5, 778.9, 10.2, 117.6,
-  228.9, 668.4, 449.2, 0.2,
-];
+const { file } = tempFiles("tram");
+
 const B1 = 1.00211681802045; // µm/mm
 const SD_B1 = 4.29796848199937e-4;
 
@@ -67,22 +60,13 @@ describe("fitTramPlanes", () => {
     expect(() =>
       fitTramPlanes({ travelMm: [1, 1, 1], readingUm: [1, 2, 3], plane: ["XZ", "XZ", "XZ"] }),
     ).toThrow(GeometryError);
-    let out = "";
-    const { writeFileSync, mkdtempSync } = await import("node:fs");
-    const { join } = await import("node:path");
-    const { tmpdir } = await import("node:os");
-    const f = join(mkdtempSync(join(tmpdir(), "tram-")), "t.csv");
-    writeFileSync(
-      f,
+    const f = file(
+      "t.csv",
       "travel,reading,plane,bar_deg\n0,0,XZ,0\n100,3,XZ,0\n200,6.1,XZ,0\n0,0,XZ,180\n100,1,XZ,180\n200,2,XZ,180\n",
     );
-    const code = await main(
-      ["tram", f],
-      (s) => void (out += s),
-      () => undefined,
-    );
+    const { code, stdout } = await runCli("tram", f);
     expect(code).toBe(0);
-    const j = JSON.parse(out);
+    const j = JSON.parse(stdout);
     expect(Object.keys(j.planes[0])).toEqual([
       "plane",
       "slope_um_per_m",

@@ -1,20 +1,12 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { angleFromReading, fitTram, RAD_PER_ARCSEC, sineBarAngleDeg, sineBarHeightMm } from "@/geometry";
+import { NORRIS_X, NORRIS_Y } from "./reference-data";
+import { TRAM_JSON_KEYS } from "./cli-helpers";
 
 // NIST Statistical Reference Datasets, linear regression, "Norris" (certified values, lower
 // difficulty): y = B0 + B1·x. Here x is read as travel (mm) and y as reading (µm), so the slope in
 // µm/mm is B1 and slope_um_per_m = 1000·B1.
-const NORRIS_X = [
-  0.2, 337.4, 118.2, 884.6, 10.1, 226.5, 666.3, 996.3, 448.6, 777.0, 558.2, 0.4, 0.6, 775.5, 666.9, 338.0,
-  447.5, 11.6, 556.0, 228.1, 995.8, 887.6, 120.2, 0.3, 0.3, 556.8, 339.1, 887.2, 999.0, 779.0, 11.1, 118.3,
-  229.2, 669.1, 448.9, 0.5,
-];
-const NORRIS_Y = [
-  0.1, 338.8, 118.1, 888.0, 9.2, 228.1, 668.5, 998.5, 449.1, 778.9, 559.2, 0.3, 0.1, 778.1, 668.8, 339.3,
-  448.9, 10.8, 557.7, 228.3, 998.0, 888.8, 119.6, 0.3, 0.6, 557.6, 339.3, 888.0, 998.5, 778.9, 10.2, 117.6,
-  228.9, 668.4, 449.2, 0.2,
-];
 
 describe("fitTram", () => {
   it("NIST StRD Norris: certified intercept, slope, their sd and residual sd", () => {
@@ -69,13 +61,7 @@ describe("fitTram", () => {
             .sort((u, v) => u.k - v.k)
             .map((e) => e.p);
           const b = fitTram({ travelMm: perm.map((p) => p[0]), readingUm: perm.map((p) => p[1]) });
-          for (const key of [
-            "slope_um_per_m",
-            "slope_u_um_per_m",
-            "angle_arcsec",
-            "straightness_um",
-            "tir_um",
-          ] as const)
+          for (const key of TRAM_JSON_KEYS)
             expect(Math.abs(a[key] - b[key])).toBeLessThan(1e-9 * Math.max(1, Math.abs(a[key])));
         },
       ),

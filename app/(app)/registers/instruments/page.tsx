@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { InstrumentForm } from "@/components/registers/instrument-form";
-import { CalibrationForm, RetireButton } from "@/components/registers/retire-controls";
+import { CalibrationForm } from "@/components/registers/retire-controls";
 import { Card } from "@/components/ui/card";
 import { Table } from "@/components/ui/table";
 import { listInstruments } from "@/db/queries/instruments";
@@ -9,6 +9,7 @@ import { getUnitSystem } from "@/db/queries/user-prefs";
 import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatValue, fromCanonical, type UnitSystem } from "@/lib/units";
+import { retireColumn } from "@/components/registers/retire-column";
 
 /** Resolution and uncertainty are small: micrometres (and tenths for inch users), not rounded to the display step. */
 function small(v: number, kind: "length" | "angle", system: UnitSystem): string {
@@ -77,18 +78,11 @@ export default async function InstrumentsPage() {
           column("State", (i) =>
             i.retired ? "Retired" : <CalibrationState due={i.calibrationDueOn} today={today} />,
           ),
-          ...(mayEdit
-            ? [
-                column("Retirement", (i) => (
-                  <RetireButton
-                    register="instruments"
-                    id={i.id}
-                    retired={i.retired}
-                    label={`instrument ${i.serial}`}
-                  />
-                )),
-              ]
-            : []),
+          ...retireColumn(column, mayEdit, "instruments", (i) => ({
+            id: i.id,
+            retired: i.retired,
+            label: `instrument ${i.serial}`,
+          })),
         ]}
       />
       {mayEdit ? (

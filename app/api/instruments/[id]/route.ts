@@ -1,12 +1,5 @@
 // Correct one row of the instruments register (administrator); audited.
-import { updateInstrument } from "@/db/queries/instruments";
-import { registerItem } from "@/lib/register-routes";
-import { instrumentPatchSchema } from "@/lib/validations/registers";
+import { registerItemApi } from "@/lib/register-routes";
 
 export const runtime = "nodejs";
-export const PATCH = registerItem({
-  register: "instruments",
-  singular: "instrument",
-  schema: instrumentPatchSchema,
-  update: updateInstrument,
-}).PATCH;
+export const { PATCH } = registerItemApi("instruments");

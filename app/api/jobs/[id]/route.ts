@@ -3,18 +3,13 @@ import { moveJob, updateJobRecord } from "@/db/queries/job-office";
 import { requireUser } from "@/lib/auth/session";
 import { notFound } from "@/lib/errors";
 import { readJson, route } from "@/lib/http";
+import { readRoute } from "@/lib/read-route";
 import { jobMoveSchema, jobRecordSchema } from "@/lib/validations/jobs";
 
 type Ctx = { params: Promise<{ id: string }> };
 
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const { id } = await ctx.params;
-  const actor = await requireUser();
-  // Another tenant's job is "not found", exactly like a missing one.
-  const detail = await getJobDetail(actor, id);
-  if (!detail) throw notFound("job");
-  return Response.json({ job: jobDetailJson(detail) });
-});
+// Another tenant's job is "not found", exactly like a missing one.
+export const GET = readRoute("job", getJobDetail, (detail) => Response.json({ job: jobDetailJson(detail) }));
 
 /**
  * The office's changes to a job: a body with `action` ("hold" | "release" | "cancel", with a

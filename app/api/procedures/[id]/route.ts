@@ -4,20 +4,15 @@ import { z } from "zod";
 import { setProcedureRetired } from "@/db/queries/procedures";
 import { getTemplate } from "@/db/queries/templates";
 import { requireUser } from "@/lib/auth/session";
-import { forbidden, notFound } from "@/lib/errors";
+import { forbidden } from "@/lib/errors";
 import { readJson, route } from "@/lib/http";
 import { procedureRetireRefusal } from "@/lib/policy/procedures";
+import { readRoute } from "@/lib/read-route";
 
 export const runtime = "nodejs";
 type Ctx = { params: Promise<{ id: string }> };
 
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const { id } = await ctx.params;
-  const actor = await requireUser();
-  const procedure = await getTemplate(actor, id);
-  if (!procedure) throw notFound("procedure");
-  return Response.json({ procedure });
-});
+export const GET = readRoute("procedure", getTemplate, (procedure) => Response.json({ procedure }));
 
 const patchSchema = z.object({ retired: z.boolean() });
 

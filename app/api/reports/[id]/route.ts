@@ -1,17 +1,9 @@
 import { getReportMeta } from "@/db/queries/reports";
 import { listJobSignatures } from "@/db/queries/signatures";
-import { requireUser } from "@/lib/auth/session";
-import { notFound } from "@/lib/errors";
-import { route } from "@/lib/http";
-
-type Ctx = { params: Promise<{ id: string }> };
+import { readRoute } from "@/lib/read-route";
 
 /** Report metadata and its signatures, for users who may see the job. */
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const { id } = await ctx.params;
-  const actor = await requireUser();
-  const meta = await getReportMeta(actor, id);
-  if (!meta) throw notFound("report");
+export const GET = readRoute("report", getReportMeta, async (meta, { actor, id }) => {
   const sigs = (await listJobSignatures(actor, meta.jobId)) ?? [];
   return Response.json({
     report: { ...meta, issuedAt: meta.issuedAt.toISOString() },

@@ -1,12 +1,5 @@
 // Correct one row of the sites register (administrator); audited.
-import { updateSite } from "@/db/queries/registers-admin";
-import { registerItem } from "@/lib/register-routes";
-import { sitePatchSchema } from "@/lib/validations/registers";
+import { registerItemApi } from "@/lib/register-routes";
 
 export const runtime = "nodejs";
-export const PATCH = registerItem({
-  register: "customers",
-  singular: "site",
-  schema: sitePatchSchema,
-  update: updateSite,
-}).PATCH;
+export const { PATCH } = registerItemApi("sites");

@@ -1,20 +1,12 @@
 // A test-part dataset judged under the job's decision rule: JSON, or CSV with ?format=csv (cells
 // neutralised against spreadsheet formula injection by lib/csv-export).
 import { getTestPartEvaluation } from "@/db/queries/datasets";
-import { requireUser } from "@/lib/auth/session";
 import { toCsv } from "@/lib/csv-export";
-import { AppError, notFound } from "@/lib/errors";
-import { route } from "@/lib/http";
+import { AppError } from "@/lib/errors";
+import { readRoute } from "@/lib/read-route";
 
 export const runtime = "nodejs";
-type Ctx = { params: Promise<{ id: string }> };
-
-export const GET = route<Ctx>(async (req, ctx) => {
-  const { id } = await ctx.params;
-  const actor = await requireUser();
-  const found = await getTestPartEvaluation(actor, id);
-  if (!found) throw notFound("dataset");
-  const { detail, evaluation } = found;
+export const GET = readRoute("dataset", getTestPartEvaluation, ({ detail, evaluation }, { req }) => {
   if (!evaluation)
     throw new AppError(422, "not_test_part", "Only a test-part dataset has a feature evaluation.");
   if (new URL(req.url).searchParams.get("format") !== "csv") {

@@ -3,17 +3,7 @@
 // a head that one of their jobs is on (404 otherwise); a customer only their own company's jobs on
 // it (404 when none).
 import { getHeadFitHistory, headHistoryJson } from "@/db/queries/heads-admin";
-import { requireUser } from "@/lib/auth/session";
-import { notFound } from "@/lib/errors";
-import { route } from "@/lib/http";
+import { readRoute } from "@/lib/read-route";
 
 export const runtime = "nodejs";
-type Ctx = { params: Promise<{ id: string }> };
-
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const { id } = await ctx.params;
-  const actor = await requireUser();
-  const h = await getHeadFitHistory(actor, id);
-  if (!h) throw notFound("head");
-  return Response.json(headHistoryJson(h));
-});
+export const GET = readRoute("head", getHeadFitHistory, (h) => Response.json(headHistoryJson(h)));

@@ -4,23 +4,18 @@
 import { insertDataset, listDatasets, requireUploadableJob } from "@/db/queries/datasets";
 import { requireUser } from "@/lib/auth/session";
 import { env } from "@/lib/env";
-import { invalid, notFound } from "@/lib/errors";
+import { invalid } from "@/lib/errors";
 import { route } from "@/lib/http";
 import { readMultipart } from "@/lib/storage/multipart";
 import { parseDatasetFile, parseUploadForm } from "@/lib/storage/parse-dataset";
+import { readRoute } from "@/lib/read-route";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
 type Ctx = { params: Promise<{ id: string }> };
 
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const { id } = await ctx.params;
-  const actor = await requireUser();
-  const rows = await listDatasets(actor, id);
-  if (!rows) throw notFound("job");
-  return Response.json({ datasets: rows });
-});
+export const GET = readRoute("job", listDatasets, (rows) => Response.json({ datasets: rows }));
 
 export const POST = route<Ctx>(async (req, ctx) => {
   // 1. Who and where, before a byte of the body is read.

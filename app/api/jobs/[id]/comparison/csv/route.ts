@@ -1,17 +1,9 @@
 import { getComparison } from "@/db/queries/readings";
-import { requireUser } from "@/lib/auth/session";
 import { toCsv } from "@/lib/csv-export";
-import { notFound } from "@/lib/errors";
-import { route } from "@/lib/http";
-
-type Ctx = { params: Promise<{ id: string }> };
+import { readRoute } from "@/lib/read-route";
 
 /** The comparison as CSV for spreadsheets; every text cell is neutralised against formula injection. */
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const { id } = await ctx.params;
-  const actor = await requireUser();
-  const c = await getComparison(actor, id);
-  if (!c) throw notFound("job");
+export const GET = readRoute("job", getComparison, (c) => {
   const csv = toCsv(
     [
       "step",

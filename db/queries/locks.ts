@@ -1,0 +1,30 @@
+import "server-only";
+import { and, eq, type SQL } from "drizzle-orm";
+import type { NodePgDatabase } from "drizzle-orm/node-postgres";
+import { db } from "@/db";
+import { jobs, users } from "@/db/schema";
+import type * as schema from "@/db/schema";
+
+type Executor = NodePgDatabase<typeof schema>;
+
+/**
+ * Locks the job's row until the transaction ends (SELECT … FOR UPDATE), so a status move or a
+ * write that depends on the status cannot slip in between, and returns the job's status and
+ * assigned installer as they are now (undefined when the job is gone).
+ */
+export async function lockJob(tx: Executor, jobId: string) {
+  const [locked] = await tx
+    .select({ status: jobs.status, assignedInstallerId: jobs.assignedInstallerId })
+    .from(jobs)
+    .where(eq(jobs.id, jobId))
+    .for("update");
+  return locked;
+}
+
+/** The users matching `where` whose accounts are not disabled: id, e-mail and name, to notify them. */
+export function activeUsers(where: SQL | undefined) {
+  return db
+    .select({ id: users.id, email: users.email, name: users.name })
+    .from(users)
+    .where(and(where, eq(users.disabled, false)));
+}

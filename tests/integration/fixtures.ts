@@ -1,0 +1,168 @@
+// Shared set-ups for the integration tests: who is acting, a job of the test's own on a seeded
+// job's customer, machine and head, the demo sphere-probe data uploaded through the real route,
+// and the refusal a call ended in. Each goes through the same code the app uses; nothing here
+// decides an outcome a test checks. Before writing a set-up into a test file, look here, in
+// helpers.ts (session and requests), dataset-helpers.ts (upload routes) and ready-job.ts
+// (bringing a job to the state its report needs).
+import { asc, eq } from "drizzle-orm";
+import { expect } from "vitest";
+import { db } from "@/db";
+import { getActor } from "@/db/queries/users";
+import { demoSphereProbeCsv } from "@/db/seed-analyses";
+import { instruments, jobs, templateSteps } from "@/db/schema";
+import type { JobKind, JobStatus } from "@/lib/domain/jobs";
+import type { Actor } from "@/lib/domain/roles";
+import { AppError } from "@/lib/errors";
+import { upload } from "./dataset-helpers";
+import { signInAs } from "./helpers";
+import { jobBaseOf } from "./ready-job";
+
+/**
+ * Who the access tables ask about: anonymous, each staff role and each tenant's customer, with the
+ * demo user's e-mail (db/seed.ts). The expected outcome for each stays written by hand in the test.
+ */
+export const WHO = {
+  anonymous: null,
+  admin: "admin@halvard.example",
+  installer: "installer@halvard.example",
+  inspector: "inspector@halvard.example",
+  engineer: "engineer@halvard.example",
+  "customer (Marlow Creek)": "buyer@marlowcreek.example",
+  "customer (Tollan)": "buyer@tollan.example",
+} as const;
+export type Who = keyof typeof WHO;
+/** Every demo person who signs in: the four staff roles and both tenants' customers. */
+export const PEOPLE = Object.values(WHO).filter((e) => e !== null);
+
+/** The demo users' password (db/seed.ts). */
+export const DEMO_PASSWORD = "trammel-demo";
+/** The seeded Marlow Creek job (measuring) whose customer, machine, head and procedure test jobs borrow. */
+export const BASE_JOB = "TR-2026-0052";
+
+/** Signs in as the demo user and returns the actor the app reads for them (role and company). */
+export async function signInActor(email: string): Promise<Actor> {
+  const id = await signInAs(email);
+  const actor = await getActor(id!);
+  if (!actor) throw new Error(`no actor for ${email}`);
+  return actor;
+}
+
+/**
+ * Signs in as each demo user in turn (the last one stays signed in) and returns their actors by the
+ * part of the e-mail before "@"; the Tollan buyer is "buyer-tollan".
+ */
+export async function actorsOf(emails: readonly string[]): Promise<Record<string, Actor>> {
+  const as: Record<string, Actor> = {};
+  for (const e of emails)
+    as[e.split("@")[0]! + (e.endsWith("@tollan.example") ? "-tollan" : "")] = await signInActor(e);
+  return as;
+}
+
+/** actorsOf every demo person: admin, installer, inspector, engineer, buyer, buyer-tollan. */
+export const allActors = () => actorsOf(PEOPLE);
+
+export type JobBase = Awaited<ReturnType<typeof jobBaseOf>>;
+
+/**
+ * Inserts a job of the test's own on a seeded job's customer, machine and head (and its procedure
+ * when `template` is set), so the seeded jobs keep their states. The reference is `TR-<tag>-…`, unique.
+ */
+export async function insertTestJob(opts: {
+  tag: string;
+  title: string;
+  status: JobStatus;
+  assignedInstallerId: string | null;
+  kind?: JobKind;
+  template?: boolean;
+  base?: JobBase;
+}): Promise<string> {
+  const base = opts.base ?? (await jobBaseOf(BASE_JOB));
+  const [row] = await db
+    .insert(jobs)
+    .values({
+      reference: `TR-${opts.tag}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`,
+      title: opts.title,
+      kind: opts.kind ?? "reverification",
+      status: opts.status,
+      customerId: base.customerId,
+      machineId: base.machineId,
+      headId: base.headId,
+      ...(opts.template ? { templateId: base.templateId } : {}),
+      assignedInstallerId: opts.assignedInstallerId,
+    })
+    .returning();
+  return row!.id;
+}
+
+/**
+ * Uploads the demo sphere-probe CSV to the job through the upload route, signed in as `email`
+ * (the demo installer unless told), checks it was stored (201) and returns the dataset's id.
+ */
+export async function uploadDemoProbe(
+  jobId: string,
+  opts: { email?: string; phase?: "pre" | "post"; filename?: string } = {},
+): Promise<string> {
+  await signInAs(opts.email ?? "installer@halvard.example");
+  const res = await upload(
+    jobId,
+    Buffer.from(demoSphereProbeCsv()),
+    { kind: "sphere_probe", phase: opts.phase ?? "pre", units: "mm" },
+    opts.filename ?? "probe.csv",
+  );
+  expect(res.status).toBe(201);
+  return ((await res.json()) as { id: string }).id;
+}
+
+/** The AppError a call was refused with; fails the test if it succeeded or threw something else. */
+export async function refusalOf(p: Promise<unknown>): Promise<AppError> {
+  try {
+    await p;
+  } catch (e) {
+    if (e instanceof AppError) return e;
+    throw e;
+  }
+  throw new Error("expected a refusal");
+}
+
+/** Drizzle wraps the driver's error; the database's own message is in `cause`. */
+export async function dbError(p: Promise<unknown>): Promise<string> {
+  try {
+    await p;
+  } catch (e) {
+    const err = e as Error & { cause?: Error };
+    return err.cause?.message ?? err.message;
+  }
+  return "no error";
+}
+
+/** The id of the first step of a procedure (by position). */
+export async function firstStepOf(templateId: string): Promise<string> {
+  const [step] = await db
+    .select({ id: templateSteps.id })
+    .from(templateSteps)
+    .where(eq(templateSteps.templateId, templateId))
+    .orderBy(asc(templateSteps.position))
+    .limit(1);
+  return step!.id;
+}
+
+/** The ids of a procedure's steps by their position (1, 2, …). */
+export async function stepIdsByPosition(templateId: string): Promise<Record<number, string>> {
+  const rows = await db.select().from(templateSteps).where(eq(templateSteps.templateId, templateId));
+  return Object.fromEntries(rows.map((s) => [s.position, s.id]));
+}
+
+/** The ids of every registered instrument by serial. */
+export async function instrumentIdsBySerial(): Promise<Record<string, string>> {
+  const rows = await db.select({ id: instruments.id, serial: instruments.serial }).from(instruments);
+  return Object.fromEntries(rows.map((i) => [i.serial, i.id]));
+}
+
+/** The id of a registered instrument by serial (the seed's dial indicator is "DTI-0112"). */
+export async function instrumentIdBySerial(serial = "DTI-0112"): Promise<string> {
+  const [inst] = await db
+    .select({ id: instruments.id })
+    .from(instruments)
+    .where(eq(instruments.serial, serial));
+  return inst!.id;
+}
