@@ -9,6 +9,7 @@
 import { sql } from "drizzle-orm";
 import {
   bigserial,
+  check,
   customType,
   date,
   boolean,
@@ -711,3 +712,26 @@ export const environmentRecords = pgTable(
   ],
 );
 export type EnvironmentRecord = typeof environmentRecords.$inferSelect;
+
+/**
+ * The company that issues the reports (ISO/IEC 17025:2017 §7.8.2.1 b): one row (id 1), kept by the
+ * administrator at /registers/settings. Empty name or address blocks issuing a report.
+ */
+export const issuerSettings = pgTable(
+  "issuer_settings",
+  {
+    id: integer("id").primaryKey().default(1),
+    name: text("name").notNull().default(""),
+    address: text("address").notNull().default(""),
+    contactEmail: text("contact_email").notNull().default(""),
+    contactPhone: text("contact_phone").notNull().default(""),
+    /** Accreditation body, number and scope as the issuer states it; empty when not accredited. */
+    accreditation: text("accreditation").notNull().default(""),
+    /** The statement about reproducing the report only in full. */
+    reproductionStatement: text("reproduction_statement").notNull().default(""),
+    updatedById: uuid("updated_by_id").references(() => users.id, { onDelete: "set null" }),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [check("issuer_settings_single_row", sql`${t.id} = 1`)],
+);
+export type IssuerSettings = typeof issuerSettings.$inferSelect;

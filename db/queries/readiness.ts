@@ -4,6 +4,7 @@ import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { getApprovedAnalysis, listJobAnalyses } from "@/db/queries/analyses";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
+import { getIssuer } from "@/db/queries/issuer";
 import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
 import { getComparison } from "@/db/queries/readings";
@@ -12,6 +13,7 @@ import { deviations, instruments, readings } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 import { parameterRows } from "@/lib/fit-display";
+import { issuerDetailsMissing } from "@/lib/policy/issuer";
 import { deviationRefusal } from "@/lib/policy/reports";
 import { reportDecision } from "@/lib/report/build";
 import {
@@ -39,27 +41,29 @@ export function countingTestPart<T extends { kind: string; status: string; phase
 
 export async function readinessInput(actor: Actor, d: JobDetail): Promise<ReadinessInput> {
   const jobId = d.job.id;
-  const [comparison, used, list, analysesList, limits, approved, sigs, state, carried] = await Promise.all([
-    getComparison(actor, jobId),
-    db
-      .select({
-        serial: instruments.serial,
-        calibrationDueOn: instruments.calibrationDueOn,
-        lastUsedOn: sql<string>`to_char(max(${readings.takenAt}) at time zone 'UTC', 'YYYY-MM-DD')`,
-      })
-      .from(readings)
-      .innerJoin(instruments, eq(instruments.id, readings.instrumentId))
-      .where(and(eq(readings.jobId, jobId), isNull(readings.supersededById)))
-      .groupBy(instruments.serial, instruments.calibrationDueOn)
-      .orderBy(asc(instruments.serial)),
-    listDatasets(actor, jobId),
-    listJobAnalyses(actor, jobId),
-    parameterLimitsOfTemplate(d.job.templateId),
-    getApprovedAnalysis(actor, jobId),
-    preIssueSignatures(jobId),
-    jobStateSha256(jobId),
-    db.select({ subject: deviations.subject }).from(deviations).where(eq(deviations.jobId, jobId)),
-  ]);
+  const [comparison, used, list, analysesList, limits, approved, sigs, state, carried, issuer] =
+    await Promise.all([
+      getComparison(actor, jobId),
+      db
+        .select({
+          serial: instruments.serial,
+          calibrationDueOn: instruments.calibrationDueOn,
+          lastUsedOn: sql<string>`to_char(max(${readings.takenAt}) at time zone 'UTC', 'YYYY-MM-DD')`,
+        })
+        .from(readings)
+        .innerJoin(instruments, eq(instruments.id, readings.instrumentId))
+        .where(and(eq(readings.jobId, jobId), isNull(readings.supersededById)))
+        .groupBy(instruments.serial, instruments.calibrationDueOn)
+        .orderBy(asc(instruments.serial)),
+      listDatasets(actor, jobId),
+      listJobAnalyses(actor, jobId),
+      parameterLimitsOfTemplate(d.job.templateId),
+      getApprovedAnalysis(actor, jobId),
+      preIssueSignatures(jobId),
+      jobStateSha256(jobId),
+      db.select({ subject: deviations.subject }).from(deviations).where(eq(deviations.jobId, jobId)),
+      getIssuer(),
+    ]);
   const stored = (list ?? []).filter((x) => x.status === "stored");
   const fitted = new Set((analysesList ?? []).map((a) => a.analysis.datasetId));
   const testPart = countingTestPart(stored);
@@ -117,6 +121,7 @@ export async function readinessInput(actor: Actor, d: JobDetail): Promise<Readin
         }
       : null,
     results,
+    issuerMissing: issuerDetailsMissing(issuer),
     signatures: sigs.flatMap((s) =>
       s.meaning === "performed" || s.meaning === "inspected"
         ? [

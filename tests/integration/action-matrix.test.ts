@@ -32,6 +32,7 @@ const registers = await import("@/app/(app)/registers/actions");
 const setPassword = await import("@/app/(auth)/set-password/actions");
 const people = await import("@/app/(app)/registers/people/actions");
 const forgotPassword = await import("@/app/(auth)/forgot-password/actions");
+const settings = await import("@/app/(app)/registers/settings/actions");
 
 type Who =
   | "anonymous"
@@ -284,6 +285,13 @@ for (const name of [
     call: async () => (registers[name] as (raw: unknown) => Promise<ActionResult<unknown>>)({}),
   };
 }
+
+// ---- issuer details: the administrator's. An empty form passes the door for the admin and is then
+// refused for its fields, so nothing is saved; everyone else is refused at the door.
+MATRIX.updateIssuerSettingsAction = {
+  expect: staffOnly(["admin"]),
+  call: async () => settings.updateIssuerSettingsAction({ contactEmail: 42 }),
+};
 
 // ---- set password: anonymous by design, the one-time token is the credential; a wrong token is
 // refused for its field, whoever asks.
