@@ -258,6 +258,7 @@ export async function seed(): Promise<void> {
   await (await import("./seed-checklists")).seedChecklists();
   await (await import("./seed-datasets")).seedDatasets();
   await (await import("./seed-analyses")).seedAnalyses();
+  await (await import("./seed-records")).seedRecords();
   // Last: the issued report renders whatever the steps above recorded.
   await seedReports(DEMO_PASSWORD);
 }

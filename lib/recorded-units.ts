@@ -29,7 +29,8 @@ export function recordedUnitSystem(enteredUnits: readonly string[]): UnitSystem 
 
 /**
  * Decimals that show one step of the instrument's resolution in the display unit: 0.0001 in → 4,
- * 0.001 mm → 3, 0.0005 mm → 4, 0.01 mm → 2, 0.1″ → 1. Without a resolution, the unit's usual
+ * 0.001 mm → 3, 0.0005 mm → 4, 0.01 mm → 2 (and 0.000394 in → 4 when that gauge is read in inch),
+ * 0.1″ → 1. Without a resolution, the unit's usual
  * decimals (lib/units UNIT_DECIMALS). Clamped to 0…6.
  */
 export function decimalsForResolution(
@@ -38,10 +39,9 @@ export function decimalsForResolution(
 ): number {
   if (resolutionCanonical == null || !(resolutionCanonical > 0) || !Number.isFinite(resolutionCanonical))
     return UNIT_DECIMALS[unit];
+  // The decimal place of the resolution's first significant digit: 0.01 mm = 0.000394 in → 4.
   const r = Number(fromCanonical(resolutionCanonical, unit).toPrecision(12));
-  let d = 0;
-  while (d < 6 && Math.abs(Math.round(r * 10 ** d) - r * 10 ** d) > 1e-9 * 10 ** d) d++;
-  return d;
+  return Math.min(6, Math.max(0, -Math.floor(Math.log10(r) + 1e-9)));
 }
 
 /** mm decimals shown beside an inch value: one fewer than the inch decimals (0.0001 in ≈ 0.003 mm), at least 3. */

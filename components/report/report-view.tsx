@@ -1,6 +1,7 @@
 import { DECISION, ReportTable, Rows, Section } from "@/components/report/report-parts";
 import { ConformityStatement } from "@/components/report/conformity-statement";
 import { ReportFigures } from "@/components/report/report-charts";
+import { ClosingStatements, RecordsSection } from "@/components/report/records-section";
 import type { Decision, ReportData } from "@/lib/report/types";
 
 /** The report read online: the same content, in the same order, as the signed PDF. */
@@ -20,7 +21,9 @@ export function ReportView({ data }: { data: ReportData }) {
       <header className="flex flex-wrap items-start justify-between gap-4 border-b-2 border-graphite-900 pb-3">
         <div>
           <h2 className="text-xl font-semibold">Acceptance report — two-axis head</h2>
-          <p className="text-sm text-graphite-600">{data.issuer.name}</p>
+          <p className="text-sm text-graphite-600">
+            {[data.issuer.name, data.issuer.address, data.issuer.contact].filter(Boolean).join(" · ")}
+          </p>
         </div>
         <div className="text-right text-sm">
           <p className="num font-semibold">{data.reference}</p>
@@ -71,6 +74,7 @@ export function ReportView({ data }: { data: ReportData }) {
           ]}
         />
       </Section>
+      {data.records ? <RecordsSection r={data.records} /> : null}
       <Section n={3} title="Instruments">
         {data.instruments.length ? (
           <ReportTable
@@ -92,14 +96,15 @@ export function ReportView({ data }: { data: ReportData }) {
       <Section n={4} title="Readings before and after adjustment">
         {data.readings.length ? (
           <ReportTable
-            head={["Step", "Limits", "Before", "After", "Change", "Result"]}
-            numeric={[2, 3, 4]}
+            head={["Step", "Limits", "Before", "After", "Change", "U (k = 2)", "Result"]}
+            numeric={[2, 3, 4, 5]}
             rows={data.readings.map((r) => [
               r.step,
               r.limits,
               r.pre ?? "—",
               r.post ?? "—",
               r.change ?? "—",
+              r.expanded ?? "—",
               dec(r.decision, r.basis),
             ])}
           />
@@ -186,6 +191,7 @@ export function ReportView({ data }: { data: ReportData }) {
           ))}
         </ul>
       </Section>
+      {data.records ? <ClosingStatements r={data.records} /> : null}
       <p className="border-t-2 border-graphite-900 pt-2 text-center text-sm font-semibold">END OF REPORT</p>
     </article>
   );

@@ -398,6 +398,8 @@ export interface ComparisonRow {
     decision: StepDecision;
     readingId: string;
     instrument: string | null;
+    /** The instrument's resolution (canonical unit), which sets the decimals printed. */
+    resolution: number | null;
     takenAt: Date;
   } | null;
   post: {
@@ -406,6 +408,8 @@ export interface ComparisonRow {
     decision: StepDecision;
     readingId: string;
     instrument: string | null;
+    /** The instrument's resolution (canonical unit), which sets the decimals printed. */
+    resolution: number | null;
     takenAt: Date;
   } | null;
   change: number | null;
@@ -420,7 +424,12 @@ export async function getComparison(actor: Actor, jobId: string) {
   const steps = await listTemplateSteps(d.job.templateId);
   const current = steps.length
     ? await db
-        .select({ r: readings, serial: instruments.serial, stdU: instruments.standardUncertainty })
+        .select({
+          r: readings,
+          serial: instruments.serial,
+          stdU: instruments.standardUncertainty,
+          resolution: instruments.resolution,
+        })
         .from(readings)
         .leftJoin(instruments, eq(instruments.id, readings.instrumentId))
         .where(
@@ -446,6 +455,7 @@ export async function getComparison(actor: Actor, jobId: string) {
         decision: judge(s, hit.r.value, U),
         readingId: hit.r.id,
         instrument: hit.serial,
+        resolution: hit.resolution,
         takenAt: hit.r.takenAt,
       };
     };

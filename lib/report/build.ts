@@ -13,7 +13,14 @@ import type { StepDecision } from "@/lib/checklist";
 import { LIMIT_SOURCE_WORDS, parameterRows, type ParameterLimit } from "@/lib/fit-display";
 import { formatDateTimeUtc } from "@/lib/format";
 import { signed } from "@/lib/numbers";
-import { formatLimits, formatValue, type QuantityKind } from "@/lib/units";
+import type { QuantityKind, UnitSystem } from "@/lib/units";
+import {
+  formatAngleExpandedArcsec,
+  formatExpanded,
+  formatRecorded,
+  formatRecordedLimits,
+} from "@/lib/recorded-units";
+import type { ReportRecords } from "@/lib/report/sections/records";
 import { sha256Hex } from "@/lib/report/signing";
 import type { Decision, ReportCharts, ReportData, ReportSignature } from "@/lib/report/types";
 
@@ -60,8 +67,9 @@ export interface ComparisonInput {
   limitSource: string;
   limitSourceNote?: string | null;
   decisionRule?: string;
-  pre: { value: number } | null;
-  post: { value: number } | null;
+  /** U: the reading's expanded uncertainty (0 when no instrument gives one); resolution of its instrument (canonical). */
+  pre: { value: number; U?: number; resolution?: number | null; instrument?: string | null } | null;
+  post: { value: number; U?: number; resolution?: number | null; instrument?: string | null } | null;
   change: number | null;
   status: StepDecision;
 }
@@ -100,32 +108,59 @@ function limitSourceWords(source: string, note: string | null | undefined): stri
 
 /**
  * The checklist readings for the report: the latest current reading of each step and phase,
- * judged under the step's decision rule, formatted in metric units; and the same numbers for the
- * before/after chart (lengths in mm, angles in arc seconds, as the table).
+ * judged under the step's decision rule, in the unit system the job recorded them in (an inch job
+ * in inch with mm beside, ISO/IEC 17025:2017 §7.8.2.1), at the instrument's resolution, with the
+ * counting reading's U; and the same numbers for the before/after chart (lengths in mm, angles in
+ * arc seconds).
  */
-export function readingSection(rows: readonly ComparisonInput[]): {
+export function readingSection(
+  rows: readonly ComparisonInput[],
+  system: UnitSystem = "metric",
+): {
   rows: ReportData["readings"];
   chart: NonNullable<ReportCharts["readings"]>;
 } {
   const measured = rows.filter((r) => r.pre || r.post);
   return {
-    rows: measured.map((r) => ({
-      ...withBasis(
-        judgementBasis(
-          reportDecision(r.status),
-          r.decisionRule ?? "simple",
-          limitSourceWords(r.limitSource, r.limitSourceNote),
+    rows: measured.map((r) => {
+      const counting = r.post ?? r.pre!;
+      // A length instrument's resolution sets a length step's decimals; an angle derived from a
+      // length reading over a travel keeps the angle's usual 0.1″.
+      const resOf = (x: { resolution?: number | null } | null) =>
+        r.quantityKind === "length" ? (x?.resolution ?? null) : null;
+      const res = resOf(counting);
+      return {
+        ...withBasis(
+          judgementBasis(
+            reportDecision(r.status),
+            r.decisionRule ?? "simple",
+            limitSourceWords(r.limitSource, r.limitSourceNote),
+          ),
         ),
-      ),
-      step: r.title,
-      limits: formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, "metric"),
-      pre: r.pre ? formatValue(r.pre.value, r.quantityKind, "metric") : undefined,
-      post: r.post ? formatValue(r.post.value, r.quantityKind, "metric") : undefined,
-      change:
-        r.change != null ? formatValue(r.change, r.quantityKind, "metric", { signed: true }) : undefined,
-      decision: reportDecision(r.status),
-      source: r.limitSource.replace("_", " "),
-    })),
+        step: r.title,
+        limits: formatRecordedLimits(r.lowerLimit, r.upperLimit, r.quantityKind, system),
+        pre: r.pre
+          ? formatRecorded(r.pre.value, r.quantityKind, system, { resolution: resOf(r.pre) })
+          : undefined,
+        post: r.post
+          ? formatRecorded(r.post.value, r.quantityKind, system, { resolution: resOf(r.post) })
+          : undefined,
+        change:
+          r.change != null
+            ? formatRecorded(r.change, r.quantityKind, system, { signed: true, resolution: res })
+            : undefined,
+        ...(counting.U !== undefined
+          ? {
+              expanded: formatExpanded(counting.U, r.quantityKind, system, {
+                resolution: res,
+                reason: counting.instrument ? "the instrument states no uncertainty" : "no instrument named",
+              }),
+            }
+          : {}),
+        decision: reportDecision(r.status),
+        source: r.limitSource.replace("_", " "),
+      };
+    }),
     chart: measured
       .filter((r) => r.lowerLimit != null || r.upperLimit != null)
       .map((r) => ({
@@ -151,11 +186,24 @@ export interface InstrumentInput {
   due: string;
 }
 
-/** Instruments with their calibration status on the day `on` (the day of issue). */
-export function instrumentRows(rows: readonly InstrumentInput[], on: Date): ReportData["instruments"] {
+/**
+ * Instruments with their calibration status on the day `on` (the day of issue); on an inch job
+ * (`system`) the figures of a length instrument print in inch with mm beside.
+ */
+export function instrumentRows(
+  rows: readonly InstrumentInput[],
+  on: Date,
+  system: UnitSystem = "metric",
+): ReportData["instruments"] {
   const day = on.toISOString().slice(0, 10);
   const fmt = (v: number, kind: string) =>
-    kind === "angle" ? `${v.toFixed(1)}″` : v >= 0.001 ? `${v.toFixed(4)} mm` : `${(v * 1000).toFixed(2)} µm`;
+    kind === "angle"
+      ? `${v.toFixed(1)}″`
+      : system === "inch"
+        ? formatRecorded(v, "length", "inch", { resolution: v })
+        : v >= 0.001
+          ? `${v.toFixed(4)} mm`
+          : `${(v * 1000).toFixed(2)} µm`;
   return rows.map((r) => ({
     kind: r.kind,
     serial: r.serial,
@@ -185,7 +233,13 @@ export function testPartRows(rows: readonly TestPartResultRow[], rule = "simple"
       measured: v(r.measured),
       deviation: sign(r.deviation),
       limits,
-      expanded: r.U.toFixed(dp),
+      // Angles' U in arc seconds; an undefined U is a dash with its reason, never "0.000".
+      expanded:
+        r.unit === "deg" || r.unit === "arcsec"
+          ? formatAngleExpandedArcsec(r.U, r.unit)
+          : Number.isFinite(r.U) && r.U > 0
+            ? r.U.toFixed(dp)
+            : "— (not stated)",
       decision: r.decision,
       ...withBasis(judgementBasis(r.decision, rule, "test-part file")),
     };
@@ -407,6 +461,10 @@ export interface ReportInputs {
   signatures: ReportSignature[];
   deviations: readonly DeviationInput[];
   verifyUrl: string;
+  /** The issuer as the settings held it at issue (lib/report/sections/records for the rest). */
+  issuer: ReportData["issuer"];
+  /** The record details (ISO/IEC 17025:2017 §7.8.2.1); absent only where a caller has none to give. */
+  records?: ReportRecords;
 }
 
 /** Assembles the report's content and names it by the SHA-256 of its canonical JSON. */
@@ -420,7 +478,7 @@ export function buildReportContent(i: ReportInputs): ReportData {
     revision: meta.revision,
     ...(meta.amendment ? { amendment: meta.amendment } : {}),
     issuedAtUtc: meta.draft ? null : formatDateTimeUtc(meta.issuedAt),
-    issuer: { name: "Halvard Field Service" },
+    issuer: i.issuer,
     customer: {
       name: d.customer.name,
       site: d.site.name,
@@ -470,6 +528,7 @@ export function buildReportContent(i: ReportInputs): ReportData {
     safety: [...SAFETY_NOTES],
     signatures: meta.draft || !meta.approval ? [] : [...i.signatures, meta.approval],
     verifyUrl: i.verifyUrl,
+    ...(i.records ? { records: i.records } : {}),
   };
   return { ...data, contentSha256: sha256Hex(canonicalJson(data)) };
 }

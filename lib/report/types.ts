@@ -5,6 +5,7 @@
  * always say the same thing.
  */
 import type { RecordedDecision } from "@/lib/domain/decisions";
+import type { ReportRecords } from "@/lib/report/sections/records";
 
 /** geometry's decision, or "not_measured", or "recorded": a reading kept without a limit to judge it against. */
 export type Decision = RecordedDecision;
@@ -25,7 +26,7 @@ export interface ReportData {
   revision: number;
   amendment?: { supersedesRevision: number; reason: string };
   issuedAtUtc: string | null;
-  issuer: { name: string; address?: string };
+  issuer: { name: string; address?: string; contact?: string };
   customer: { name: string; site: string; address?: string };
   machine: { name: string; kind: string; builderModel?: string; serial?: string; control?: string };
   head: { serial: string; makerModel?: string; axes: string; nominalPivotLength: string; mass?: string };
@@ -56,6 +57,8 @@ export interface ReportData {
     source: string;
     /** The decision rule and limit source of a judged row; absent in reports issued before it was printed. */
     basis?: string;
+    /** The counting reading's expanded uncertainty, or "—" with the reason; absent in older reports. */
+    expanded?: string;
   }>;
   parameters: Array<{
     name: string;
@@ -102,6 +105,8 @@ export interface ReportData {
     approvedBy: string;
     recordedAtUtc: string;
   }>;
+  /** Record details and traceability (ISO/IEC 17025:2017 §7.8.2.1); absent in reports issued before them. */
+  records?: ReportRecords;
   remarks: string[];
   safety: string[];
   signatures: ReportSignature[];

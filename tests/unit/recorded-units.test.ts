@@ -31,6 +31,10 @@ describe("decimalsForResolution", () => {
     expect(decimalsForResolution(0.01, "mm")).toBe(2);
     expect(decimalsForResolution(0.1, "arcsec")).toBe(1);
     expect(decimalsForResolution(1, "arcsec")).toBe(0);
+    // A metric gauge (0.01 mm) read on an inch job: 0.01 / 25.4 = 0.000394 in, shown to 0.0001 in.
+    expect(decimalsForResolution(0.01, "in")).toBe(4);
+    // An inch indicator (0.0001 in = 0.00254 mm) shown in mm: to 0.001 mm.
+    expect(decimalsForResolution(0.00254, "mm")).toBe(3);
   });
   it("falls back to the unit's usual decimals without a resolution", () => {
     expect(decimalsForResolution(null, "in")).toBe(4);
