@@ -735,3 +735,25 @@ export const issuerSettings = pgTable(
   (t) => [check("issuer_settings_single_row", sql`${t.id} = 1`)],
 );
 export type IssuerSettings = typeof issuerSettings.$inferSelect;
+
+/**
+ * The engineer's choice of saved 3D views for the report: one row per view (included or not),
+ * changed by upsert with an audit event. Only views of the approved fit of at least 600 × 400 px
+ * may be included (lib/report/view-choice.ts); analysis_views itself is written once.
+ */
+export const reportViews = pgTable(
+  "report_views",
+  {
+    viewId: uuid("view_id")
+      .primaryKey()
+      .references(() => analysisViews.id, { onDelete: "restrict" }),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    included: boolean("included").notNull(),
+    chosenById: uuid("chosen_by_id").references(() => users.id, { onDelete: "set null" }),
+    chosenAt: timestamp("chosen_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("report_views_job_idx").on(t.jobId)],
+);
+export type ReportView = typeof reportViews.$inferSelect;

@@ -6,7 +6,7 @@ import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
 import { getComparison } from "@/db/queries/readings";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
-import { latestJobView } from "@/db/queries/analysis-views";
+import { reportFigureViews } from "@/db/queries/report-views";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
 import { countingTestPart, listDeviations, readinessInput } from "@/db/queries/readiness";
 import {
@@ -145,11 +145,12 @@ export async function buildReportData(
       listDeviations(d.job.id),
       recordsInputOf(d),
     ]);
-  // The latest picture of the 3D view saved for the approved fit (the job's access was checked above).
-  const view = params ? await latestJobView(d.job.id) : null;
+  // The saved 3D views the engineer ticked for the report, of the approved fit and large enough
+  // (lib/report/view-choice; the job's access was checked above).
   const images = new Map<string, Buffer>();
   const figures: ReportData["figures"] = [];
-  if (view && view.analysisId === params?.analysisId) {
+  for (const view of params ? await reportFigureViews(d.job.id) : []) {
+    if (view.analysisId !== params?.analysisId) continue;
     const sha256 = sha256Hex(view.png);
     images.set(sha256, view.png);
     figures.push(figureOf({ ...view, sha256 }));

@@ -11,6 +11,7 @@ import { asc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 import { db } from "@/db";
 import { runHeadFit } from "@/db/queries/analyses";
+import { saveAnalysisView } from "@/db/queries/analysis-views";
 import { recordReading } from "@/db/queries/readings";
 import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
@@ -19,6 +20,7 @@ import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { instruments, jobs, templateSteps, users } from "@/db/schema";
 import type { JobStatus } from "@/lib/domain/jobs";
 import type { ActionResult } from "@/lib/actions";
+import { PNG } from "pngjs";
 import { upload } from "./dataset-helpers";
 import { jobIdByReference, signInAs } from "./helpers";
 
@@ -261,6 +263,38 @@ MATRIX.approveFitAction = {
     await db.update(jobs).set({ status: "in_review" }).where(eq(jobs.id, jobId));
     await signInAs(EMAIL[who]);
     return analysis.approveFitAction({ jobId, analysisId: a.id, password: PW });
+  },
+};
+
+/** A saved 3D view (600 × 400 px) of a fresh fit on a fresh Marlow Creek job, saved by the engineer. */
+async function freshView(): Promise<{ jobId: string; viewId: string }> {
+  const jobId = await freshJob("measuring");
+  await signInAs("installer@halvard.example");
+  const up = await upload(
+    jobId,
+    Buffer.from(demoSphereProbeCsv()),
+    { kind: "sphere_probe", phase: "pre", units: "mm" },
+    "probe.csv",
+  );
+  const engineer = (await getActor((await signInAs("engineer@halvard.example"))!))!;
+  const { analysis: a } = await runHeadFit(engineer, ((await up.json()) as { id: string }).id);
+  const png = PNG.sync.write(new PNG({ width: 600, height: 400 }));
+  const v = await saveAnalysisView(engineer, a.id, {
+    png,
+    factor: 1000,
+    overlayAnalysisId: null,
+    caption: null,
+  });
+  return { jobId, viewId: v.id };
+}
+// The engineer who saves the views ticks them for the report; leaving a view out passes the door
+// whatever the fit's state, so the cell is about who asks.
+MATRIX.chooseReportViewAction = {
+  expect: onMarlowJob(["engineer"]),
+  call: async (who) => {
+    const { jobId, viewId } = await freshView();
+    await signInAs(EMAIL[who]);
+    return analysis.chooseReportViewAction({ jobId, viewId, include: false });
   },
 };
 

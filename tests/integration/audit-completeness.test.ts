@@ -253,6 +253,7 @@ const AUDITED_TABLES = [
   "datasets",
   "analyses",
   "analysisViews",
+  "reportViews",
   "signatures",
   "reports",
   "deviations",

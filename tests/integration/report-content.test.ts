@@ -14,6 +14,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
 import { saveAnalysisView } from "@/db/queries/analysis-views";
+import { chooseReportView } from "@/db/queries/report-views";
 import { changeJobStatus } from "@/db/queries/job-status";
 import { getJobConformity, issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
@@ -39,7 +40,8 @@ let pdf: Buffer;
 let provisional: Awaited<ReturnType<typeof getJobConformity>>;
 let provisionalForCustomer: Awaited<ReturnType<typeof getJobConformity>>;
 const viewPng = (() => {
-  const png = new PNG({ width: 64, height: 40 });
+  // At the report's least size for a view (lib/report/view-choice: 600 × 400 px).
+  const png = new PNG({ width: 600, height: 400 });
   for (let i = 0; i < png.data.length; i += 4) png.data.set([0x5f, 0x7d, 0x99, 255], i);
   return PNG.sync.write(png);
 })();
@@ -96,12 +98,13 @@ beforeAll(async () => {
   await changeJobStatus(as.installer!, jobId, "in_review");
   await approveAnalysis(as.engineer!, analysis.id, PW);
   await carryOpenResults(as.engineer!, jobId, "Within the machine builder's acceptance for this demo head.");
-  await saveAnalysisView(as.engineer!, analysis.id, {
+  const saved = await saveAnalysisView(as.engineer!, analysis.id, {
     png: viewPng,
     factor: 300,
     overlayAnalysisId: null,
     caption: "Looking along −Y",
   });
+  await chooseReportView(as.engineer!, { viewId: saved.id, include: true });
   provisional = await getJobConformity(as.engineer!, jobId);
   provisionalForCustomer = await getJobConformity(as.buyer!, jobId);
   const { reportId } = await issueReport(as.engineer!, { jobId, password: PW });
@@ -198,7 +201,7 @@ describe("the saved 3D view in the report", () => {
       .map((l) => l.trim().split(/\s+/))
       .filter((c) => c.length > 4)
       .map((c) => `${c[3]}x${c[4]}`);
-    expect(sizes).toContain("64x40");
+    expect(sizes).toContain("600x400");
     const text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"])
       .toString("utf8")
       .replace(/\s+/g, " ");
