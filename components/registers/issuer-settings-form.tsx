@@ -42,9 +42,9 @@ export function IssuerSettingsForm({ current }: { current: IssuerSettingsInput }
         <Field
           name="reproductionStatement"
           label="Statement about partial reproduction"
-          hint="Printed on every page's end of report."
+          hint="Printed at the end of every report."
         >
-          <textarea className={inputClass} rows={2} defaultValue={current.reproductionStatement} />
+          <textarea className={inputClass} rows={3} defaultValue={current.reproductionStatement} />
         </Field>
       </div>
     </Form>

@@ -4,6 +4,19 @@ import { ReportFigures } from "@/components/report/report-charts";
 import { ClosingStatements, RecordsSection } from "@/components/report/records-section";
 import type { Decision, ReportData } from "@/lib/report/types";
 
+/** A value as recorded over the mm beside it: "0.0003 in (0.008 mm)" as two lines, as in the PDF. */
+function UnitLines({ v }: { v: string | undefined }) {
+  if (!v) return <>—</>;
+  const at = v.indexOf(" (");
+  if (at < 0) return <>{v}</>;
+  return (
+    <>
+      {v.slice(0, at)}
+      <span className="block text-xs text-graphite-600">{v.slice(at + 1)}</span>
+    </>
+  );
+}
+
 /** The report read online: the same content, in the same order, as the signed PDF. */
 export function ReportView({ data }: { data: ReportData }) {
   // The decision, and under it the rule and limit source it was judged by (ISO/IEC 17025:2017 §7.8.6.1).
@@ -100,11 +113,11 @@ export function ReportView({ data }: { data: ReportData }) {
             numeric={[2, 3, 4, 5]}
             rows={data.readings.map((r) => [
               r.step,
-              r.limits,
-              r.pre ?? "—",
-              r.post ?? "—",
-              r.change ?? "—",
-              r.expanded ?? "—",
+              <UnitLines key="l" v={r.limits} />,
+              <UnitLines key="b" v={r.pre} />,
+              <UnitLines key="a" v={r.post} />,
+              <UnitLines key="c" v={r.change} />,
+              <UnitLines key="u" v={r.expanded} />,
               dec(r.decision, r.basis),
             ])}
           />

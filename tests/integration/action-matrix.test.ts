@@ -250,24 +250,16 @@ MATRIX.runFitAction = {
 MATRIX.approveFitAction = {
   expect: staffOnly(["engineer"]),
   call: async (who) => {
-    const jobId = await freshJob("measuring");
-    await signInAs("installer@halvard.example");
-    const up = await upload(
-      jobId,
-      Buffer.from(demoSphereProbeCsv()),
-      { kind: "sphere_probe", phase: "pre", units: "mm" },
-      "probe.csv",
-    );
-    const engineer = (await getActor((await signInAs("engineer@halvard.example"))!))!;
-    const { analysis: a } = await runHeadFit(engineer, ((await up.json()) as { id: string }).id);
+    const { jobId, analysisId } = await freshFit();
+    const a = { id: analysisId };
     await db.update(jobs).set({ status: "in_review" }).where(eq(jobs.id, jobId));
     await signInAs(EMAIL[who]);
     return analysis.approveFitAction({ jobId, analysisId: a.id, password: PW });
   },
 };
 
-/** A saved 3D view (600 × 400 px) of a fresh fit on a fresh Marlow Creek job, saved by the engineer. */
-async function freshView(): Promise<{ jobId: string; viewId: string }> {
+/** A fresh Marlow Creek job with sphere-probe data uploaded by the installer and fitted by the engineer. */
+async function freshFit() {
   const jobId = await freshJob("measuring");
   await signInAs("installer@halvard.example");
   const up = await upload(
@@ -278,8 +270,14 @@ async function freshView(): Promise<{ jobId: string; viewId: string }> {
   );
   const engineer = (await getActor((await signInAs("engineer@halvard.example"))!))!;
   const { analysis: a } = await runHeadFit(engineer, ((await up.json()) as { id: string }).id);
+  return { jobId, analysisId: a.id, engineer };
+}
+
+/** A saved 3D view (600 × 400 px) of a fresh fit on a fresh Marlow Creek job, saved by the engineer. */
+async function freshView(): Promise<{ jobId: string; viewId: string }> {
+  const { jobId, analysisId, engineer } = await freshFit();
   const png = PNG.sync.write(new PNG({ width: 600, height: 400 }));
-  const v = await saveAnalysisView(engineer, a.id, {
+  const v = await saveAnalysisView(engineer, analysisId, {
     png,
     factor: 1000,
     overlayAnalysisId: null,
