@@ -272,6 +272,8 @@ export const instruments = pgTable("instruments", {
   calibratedOn: date("calibrated_on", { mode: "string" }),
   calibrationDueOn: date("calibration_due_on", { mode: "string" }).notNull(),
   certificateRef: text("certificate_ref"),
+  /** A reference sphere's calibrated diameter in mm, as its certificate states it (printed on the report). */
+  calibratedSizeMm: doublePrecision("calibrated_size_mm"),
   /** Kept in step with retired_at (set together by db/queries/instruments.ts). */
   retired: boolean("retired").notNull().default(false),
   /** Retired rows stay readable on the jobs that name them and are left out of pickers for new work. */
@@ -757,3 +759,26 @@ export const reportViews = pgTable(
   (t) => [index("report_views_job_idx").on(t.jobId)],
 );
 export type ReportView = typeof reportViews.$inferSelect;
+
+/**
+ * Instruments used for a job's measurement data rather than for a checklist reading: the touch
+ * probe, the reference sphere and any CMM (lib/domain/instruments DATA_INSTRUMENT_USES). Written
+ * once, audited; printed with their calibration on the report.
+ */
+export const jobInstruments = pgTable(
+  "job_instruments",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    instrumentId: uuid("instrument_id")
+      .notNull()
+      .references(() => instruments.id, { onDelete: "restrict" }),
+    use: text("use").notNull(),
+    recordedById: uuid("recorded_by_id").references(() => users.id, { onDelete: "set null" }),
+    recordedAt: timestamp("recorded_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("job_instruments_uq").on(t.jobId, t.instrumentId, t.use)],
+);
+export type JobInstrument = typeof jobInstruments.$inferSelect;

@@ -4,6 +4,8 @@ import { db } from "@/db";
 import { getIssuer } from "@/db/queries/issuer";
 import type { JobDetail } from "@/db/queries/jobs";
 import { datasets, environmentRecords, instrumentCalibrations, instruments, readings } from "@/db/schema";
+import { listJobInstruments } from "@/db/queries/job-instruments";
+import { DATA_INSTRUMENT_USE_LABELS, type DataInstrumentUse } from "@/lib/domain/instruments";
 import { recordedUnitSystem } from "@/lib/recorded-units";
 import type { Phase } from "@/lib/report/readiness";
 import type { RecordsInput } from "@/lib/report/sections/records";
@@ -24,9 +26,10 @@ export async function jobUnitSystem(jobId: string) {
 }
 
 /**
- * The instruments behind the current readings with the calibration in force when each was last
- * used: the latest calibration row dated on or before that day (certificate, date, laboratory),
- * else the certificate and date kept on the instrument itself.
+ * The instruments behind the current readings, then those recorded for the measurement data
+ * (probe, reference sphere with its calibrated diameter, CMM), each with the calibration in force
+ * when it was last used: the latest calibration row dated on or before that day (certificate,
+ * date, laboratory), else the certificate and date kept on the instrument itself.
  */
 async function traceability(jobId: string): Promise<RecordsInput["instruments"]> {
   const used = await db
@@ -44,22 +47,39 @@ async function traceability(jobId: string): Promise<RecordsInput["instruments"]>
     .where(and(eq(readings.jobId, jobId), isNull(readings.supersededById)))
     .groupBy(instruments.id)
     .orderBy(asc(instruments.serial));
-  if (used.length === 0) return [];
+  const forData = await listJobInstruments(jobId);
+  const all = [
+    ...used.map((u) => ({ ...u, label: u.kind })),
+    ...forData.map((x) => ({
+      id: x.instrumentId,
+      label: `${x.kind}: ${DATA_INSTRUMENT_USE_LABELS[x.use as DataInstrumentUse] ?? x.use}${
+        x.use === "reference_sphere" && x.calibratedSizeMm
+          ? `, calibrated diameter ${x.calibratedSizeMm.toFixed(4)} mm`
+          : ""
+      }`,
+      serial: x.serial,
+      certificateRef: x.certificateRef,
+      calibratedOn: x.calibratedOn,
+      dueOn: x.calibrationDueOn,
+      lastUsedOn: x.recordedAt.toISOString().slice(0, 10),
+    })),
+  ];
+  if (all.length === 0) return [];
   const cals = await db
     .select()
     .from(instrumentCalibrations)
     .where(
       inArray(
         instrumentCalibrations.instrumentId,
-        used.map((u) => u.id),
+        all.map((u) => u.id),
       ),
     )
     .orderBy(asc(instrumentCalibrations.calibratedOn), asc(instrumentCalibrations.createdAt));
-  return used.map((u) => {
+  return all.map((u) => {
     const inForce = cals.filter((c) => c.instrumentId === u.id && c.calibratedOn <= u.lastUsedOn).at(-1);
     return inForce
       ? {
-          kind: u.kind,
+          kind: u.label,
           serial: u.serial,
           certificateRef: inForce.certificateRef,
           calibratedOn: inForce.calibratedOn,
@@ -67,7 +87,7 @@ async function traceability(jobId: string): Promise<RecordsInput["instruments"]>
           dueOn: inForce.dueOn,
         }
       : {
-          kind: u.kind,
+          kind: u.label,
           serial: u.serial,
           certificateRef: u.certificateRef,
           calibratedOn: u.calibratedOn,

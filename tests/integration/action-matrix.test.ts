@@ -285,6 +285,13 @@ async function freshView(): Promise<{ jobId: string; viewId: string }> {
   });
   return { jobId, viewId: v.id };
 }
+// The people who measured record the probe, sphere or CMM behind the data; not the office, not customers.
+MATRIX.recordJobInstrumentAction = {
+  expect: { ...onMarlowJob(["installer", "inspector", "engineer"]) },
+  call: async () =>
+    report.recordJobInstrumentAction({ jobId: await freshJob("measuring"), instrumentId, use: "probe" }),
+};
+
 // The engineer who saves the views ticks them for the report; leaving a view out passes the door
 // whatever the fit's state, so the cell is about who asks.
 MATRIX.chooseReportViewAction = {

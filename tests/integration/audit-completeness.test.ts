@@ -254,6 +254,7 @@ const AUDITED_TABLES = [
   "analyses",
   "analysisViews",
   "reportViews",
+  "jobInstruments",
   "signatures",
   "reports",
   "deviations",

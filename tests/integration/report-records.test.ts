@@ -106,6 +106,13 @@ describe("the demo's issued report carries every §7.8 item (ISO/IEC 17025:2017)
     expect(flat).toContain("2027-06-15");
     expect(flat).toContain("Invented Dimensional Lab");
   });
+  it("§7.8.4.1 and §6.5: the probe, the reference sphere with its calibrated diameter and the CMM behind the data", () => {
+    expect(flat).toContain("Touch probe: Touch probe for the sphere probing");
+    expect(flat).toContain("Reference sphere: Reference sphere, calibrated diameter 25.4012 mm");
+    expect(flat).toContain("Coordinate measuring machine: Coordinate measuring machine for the test part");
+    for (const cert of ["CAL-26-0701 (invented)", "CAL-26-0210 (invented)", "CAL-26-0415 (invented)"])
+      expect(flat).toContain(cert);
+  });
   it("§7.8.2.1 b and §7.11.2: each fit names its data file, SHA-256, phase and computation version; the software version", async () => {
     const [a] = await db
       .select({ sha: datasets.sha256, file: datasets.originalFilename, v: analyses.geometryVersion })
