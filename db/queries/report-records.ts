@@ -5,7 +5,7 @@ import { getIssuer } from "@/db/queries/issuer";
 import type { JobDetail } from "@/db/queries/jobs";
 import { datasets, environmentRecords, instrumentCalibrations, instruments, readings } from "@/db/schema";
 import { listJobInstruments } from "@/db/queries/job-instruments";
-import { DATA_INSTRUMENT_USE_LABELS, type DataInstrumentUse } from "@/lib/domain/instruments";
+import { DATA_INSTRUMENT_PURPOSE, type DataInstrumentUse } from "@/lib/domain/instruments";
 import { recordedUnitSystem } from "@/lib/recorded-units";
 import type { Phase } from "@/lib/report/readiness";
 import type { RecordsInput } from "@/lib/report/sections/records";
@@ -52,7 +52,7 @@ async function traceability(jobId: string): Promise<RecordsInput["instruments"]>
     ...used.map((u) => ({ ...u, label: u.kind })),
     ...forData.map((x) => ({
       id: x.instrumentId,
-      label: `${x.kind}: ${DATA_INSTRUMENT_USE_LABELS[x.use as DataInstrumentUse] ?? x.use}${
+      label: `${x.kind} (${DATA_INSTRUMENT_PURPOSE[x.use as DataInstrumentUse] ?? x.use})${
         x.use === "reference_sphere" && x.calibratedSizeMm
           ? `, calibrated diameter ${x.calibratedSizeMm.toFixed(4)} mm`
           : ""

@@ -12,6 +12,13 @@ export const DATA_INSTRUMENT_USE_LABELS: Record<DataInstrumentUse, string> = {
   cmm: "Coordinate measuring machine for the test part",
 };
 
+/** What the instrument served, as the report's traceability table says it after the instrument's kind. */
+export const DATA_INSTRUMENT_PURPOSE: Record<DataInstrumentUse, string> = {
+  probe: "sphere probing",
+  reference_sphere: "reference for the sphere probing",
+  cmm: "test part measurement",
+};
+
 export function isDataInstrumentUse(v: unknown): v is DataInstrumentUse {
   return typeof v === "string" && (DATA_INSTRUMENT_USES as readonly string[]).includes(v);
 }

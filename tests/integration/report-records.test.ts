@@ -107,9 +107,11 @@ describe("the demo's issued report carries every §7.8 item (ISO/IEC 17025:2017)
     expect(flat).toContain("Invented Dimensional Lab");
   });
   it("§7.8.4.1 and §6.5: the probe, the reference sphere with its calibrated diameter and the CMM behind the data", () => {
-    expect(flat).toContain("Touch probe: Touch probe for the sphere probing");
-    expect(flat).toContain("Reference sphere: Reference sphere, calibrated diameter 25.4012 mm");
-    expect(flat).toContain("Coordinate measuring machine: Coordinate measuring machine for the test part");
+    expect(flat).toContain("Touch probe (sphere probing)");
+    expect(flat).toContain(
+      "Reference sphere (reference for the sphere probing), calibrated diameter 25.4012 mm",
+    );
+    expect(flat).toContain("Coordinate measuring machine (test part measurement)");
     for (const cert of ["CAL-26-0701 (invented)", "CAL-26-0210 (invented)", "CAL-26-0415 (invented)"])
       expect(flat).toContain(cert);
   });
