@@ -42,7 +42,8 @@ export function DataInstruments({
         </ul>
       ) : (
         <p className="mb-3 text-sm text-graphite-600">
-          None recorded: the report says the probe, reference sphere and CMM were not recorded.
+          None recorded yet. Add the touch probe, the reference sphere and any CMM used for the data, so the
+          report traces their calibration.
         </p>
       )}
       {register ? (
