@@ -14,3 +14,8 @@ export function jobInstrumentRefusal(actor: Actor, job: { status: JobStatus }): 
     ? null
     : `Instruments can be added while the job is draft, measuring or in review; this job is ${job.status.replace("_", " ")}.`;
 }
+
+/** Who sees the list on the Report tab: the service company's people (customers read it in the report). */
+export function jobInstrumentsListRefusal(actor: Actor): string | null {
+  return actor.role === "customer" ? "Customers read the instruments used in the issued report." : null;
+}

@@ -17,7 +17,7 @@ import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
 import { amendRefusal, deviationRefusal, draftPreviewRefusal, readinessRefusal } from "@/lib/policy/reports";
 import { listInstrumentsForPicker, listJobInstruments } from "@/db/queries/job-instruments";
-import { jobInstrumentRefusal } from "@/lib/policy/job-instruments";
+import { jobInstrumentRefusal, jobInstrumentsListRefusal } from "@/lib/policy/job-instruments";
 import {
   issueReportAction,
   recordDeviationAction,
@@ -55,7 +55,7 @@ export default async function ReportPage({ params }: Props) {
   const mayIssue = mayIssueRole && Boolean(view?.readiness.ready);
   const mayRecordDeviation = Boolean(view) && !deviationRefusal(user, d.job) && openResults.length > 0;
   // The probe, reference sphere and CMM behind the data (staff only; added while the work is open).
-  const dataInstruments = user.role === "customer" ? null : await listJobInstruments(d.job.id);
+  const dataInstruments = jobInstrumentsListRefusal(user) ? null : await listJobInstruments(d.job.id);
   const pickable = !current && !jobInstrumentRefusal(user, d.job) ? await listInstrumentsForPicker() : null;
 
   return (
