@@ -9,6 +9,7 @@
 import { sql } from "drizzle-orm";
 import {
   bigserial,
+  check,
   customType,
   date,
   boolean,
@@ -279,6 +280,8 @@ export const instruments = pgTable("instruments", {
   /** The span the instrument reads over, in its canonical unit (mm or arcsec); null = not stated. */
   rangeMin: doublePrecision("range_min"),
   rangeMax: doublePrecision("range_max"),
+  /** A reference sphere's calibrated diameter in mm, as its certificate states it (printed on the report). */
+  calibratedSizeMm: doublePrecision("calibrated_size_mm"),
   /** Kept in step with retired_at (set together by db/queries/instruments.ts). */
   retired: boolean("retired").notNull().default(false),
   /** Retired rows stay readable on the jobs that name them and are left out of pickers for new work. */
@@ -763,3 +766,71 @@ export const photos = pgTable(
   ],
 );
 export type Photo = typeof photos.$inferSelect;
+
+/**
+ * The company that issues the reports (ISO/IEC 17025:2017 §7.8.2.1 b): one row (id 1), kept by the
+ * administrator at /registers/settings. Empty name or address blocks issuing a report.
+ */
+export const issuerSettings = pgTable(
+  "issuer_settings",
+  {
+    id: integer("id").primaryKey().default(1),
+    name: text("name").notNull().default(""),
+    address: text("address").notNull().default(""),
+    contactEmail: text("contact_email").notNull().default(""),
+    contactPhone: text("contact_phone").notNull().default(""),
+    /** Accreditation body, number and scope as the issuer states it; empty when not accredited. */
+    accreditation: text("accreditation").notNull().default(""),
+    /** The statement about reproducing the report only in full. */
+    reproductionStatement: text("reproduction_statement").notNull().default(""),
+    updatedById: uuid("updated_by_id").references(() => users.id, { onDelete: "set null" }),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [check("issuer_settings_single_row", sql`${t.id} = 1`)],
+);
+export type IssuerSettings = typeof issuerSettings.$inferSelect;
+
+/**
+ * The engineer's choice of saved 3D views for the report: one row per view (included or not),
+ * changed by upsert with an audit event. Only views of the approved fit of at least 600 × 400 px
+ * may be included (lib/report/view-choice.ts); analysis_views itself is written once.
+ */
+export const reportViews = pgTable(
+  "report_views",
+  {
+    viewId: uuid("view_id")
+      .primaryKey()
+      .references(() => analysisViews.id, { onDelete: "restrict" }),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    included: boolean("included").notNull(),
+    chosenById: uuid("chosen_by_id").references(() => users.id, { onDelete: "set null" }),
+    chosenAt: timestamp("chosen_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("report_views_job_idx").on(t.jobId)],
+);
+export type ReportView = typeof reportViews.$inferSelect;
+
+/**
+ * Instruments used for a job's measurement data rather than for a checklist reading: the touch
+ * probe, the reference sphere and any CMM (lib/domain/instruments DATA_INSTRUMENT_USES). Written
+ * once, audited; printed with their calibration on the report.
+ */
+export const jobInstruments = pgTable(
+  "job_instruments",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    instrumentId: uuid("instrument_id")
+      .notNull()
+      .references(() => instruments.id, { onDelete: "restrict" }),
+    use: text("use").notNull(),
+    recordedById: uuid("recorded_by_id").references(() => users.id, { onDelete: "set null" }),
+    recordedAt: timestamp("recorded_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("job_instruments_uq").on(t.jobId, t.instrumentId, t.use)],
+);
+export type JobInstrument = typeof jobInstruments.$inferSelect;

@@ -7,7 +7,7 @@ import { env } from "@/lib/env";
 import { and, eq, sql } from "drizzle-orm";
 import { db, pool } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { customers, heads, jobs, machines, sites, users } from "@/db/schema";
+import { customers, heads, issuerSettings, jobs, machines, sites, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import { seedReports } from "./seed-reports";
 import type { Role } from "@/lib/domain/roles";
@@ -81,6 +81,20 @@ export async function seed(): Promise<void> {
   if (env.NODE_ENV === "production" && env.TRAMMEL_ALLOW_SEED !== "1") {
     throw new Error("Refusing to seed demo data into a production database.");
   }
+  // The issuer printed on the demo's reports (invented); only where none is set yet.
+  await db
+    .insert(issuerSettings)
+    .values({
+      id: 1,
+      name: SERVICE_COMPANY,
+      address: "7 Tinker's Yard, Halvard Industrial Estate, Halvard HV3 9QT (invented)",
+      contactEmail: "reports@halvard.example",
+      contactPhone: "+44 1632 960 417",
+      accreditation: "",
+      reproductionStatement:
+        "This report shall not be reproduced except in full without the written approval of Halvard Field Service.",
+    })
+    .onConflictDoNothing();
   const marlow = await upsertCustomer("Marlow Creek Aerostructures", "buyer@marlowcreek.example");
   const tollan = await upsertCustomer("Tollan Mold Works", "buyer@tollan.example");
   const byCustomer: Record<string, string> = { [marlow.name]: marlow.id, [tollan.name]: tollan.id };
@@ -170,7 +184,14 @@ export async function seed(): Promise<void> {
       assignedInstallerId: installer,
       decisionRule: "simple",
       scheduledFor: new Date("2026-10-12T07:00:00Z"),
+      timeZone: "Europe/London",
       airTempC: 20.6,
+      orderReference: "PO 4500-7781 (invented)",
+      customerContactName: "Dana Okafor (invented)",
+      customerContactEmail: "quality@marlowcreek.example",
+      conditionAsFound:
+        "Head delivered crated, seals intact; mounted on the gantry ram, not yet aligned. No visible damage.",
+      nextRecheckOn: "2027-04-12",
     },
     {
       reference: "TR-2026-0052",
@@ -239,6 +260,7 @@ export async function seed(): Promise<void> {
   await (await import("./seed-checklists")).seedChecklists();
   await (await import("./seed-datasets")).seedDatasets();
   await (await import("./seed-analyses")).seedAnalyses();
+  await (await import("./seed-records")).seedRecords();
   // Last: the issued report renders whatever the steps above recorded.
   await seedReports(DEMO_PASSWORD);
 }

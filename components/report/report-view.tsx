@@ -2,7 +2,21 @@ import { DECISION, ReportTable, Rows, Section } from "@/components/report/report
 import { ConformityStatement } from "@/components/report/conformity-statement";
 import { ReportFigures } from "@/components/report/report-charts";
 import { reportFacts } from "@/lib/report/build";
+import { ClosingStatements, RecordsSection } from "@/components/report/records-section";
 import type { Decision, ReportData } from "@/lib/report/types";
+
+/** A value as recorded over the mm beside it: "0.0003 in (0.008 mm)" as two lines, as in the PDF. */
+function UnitLines({ v }: { v: string | undefined }) {
+  if (!v) return <>—</>;
+  const at = v.indexOf(" (");
+  if (at < 0) return <>{v}</>;
+  return (
+    <>
+      {v.slice(0, at)}
+      <span className="block text-xs text-graphite-600">{v.slice(at + 1)}</span>
+    </>
+  );
+}
 
 /** The report read online: the same content, in the same order, as the signed PDF. */
 export function ReportView({ data }: { data: ReportData }) {
@@ -22,7 +36,9 @@ export function ReportView({ data }: { data: ReportData }) {
       <header className="flex flex-wrap items-start justify-between gap-4 border-b-2 border-graphite-900 pb-3">
         <div>
           <h2 className="text-xl font-semibold">Acceptance report — two-axis head</h2>
-          <p className="text-sm text-graphite-600">{data.issuer.name}</p>
+          <p className="text-sm text-graphite-600">
+            {[data.issuer.name, data.issuer.address, data.issuer.contact].filter(Boolean).join(" · ")}
+          </p>
         </div>
         <div className="text-right text-sm">
           <p className="num font-semibold">{data.reference}</p>
@@ -48,6 +64,7 @@ export function ReportView({ data }: { data: ReportData }) {
       <Section n={2} title="Work, method and decision rule">
         <Rows rows={facts.work} />
       </Section>
+      {data.records ? <RecordsSection r={data.records} /> : null}
       <Section n={3} title="Instruments">
         {data.instruments.length ? (
           <ReportTable
@@ -69,14 +86,15 @@ export function ReportView({ data }: { data: ReportData }) {
       <Section n={4} title="Readings before and after adjustment">
         {data.readings.length ? (
           <ReportTable
-            head={["Step", "Limits", "Before", "After", "Change", "Result"]}
-            numeric={[2, 3, 4]}
+            head={["Step", "Limits", "Before", "After", "Change", "U (k = 2)", "Result"]}
+            numeric={[2, 3, 4, 5]}
             rows={data.readings.map((r) => [
               r.step,
-              r.limits,
-              r.pre ?? "—",
-              r.post ?? "—",
-              r.change ?? "—",
+              <UnitLines key="l" v={r.limits} />,
+              <UnitLines key="b" v={r.pre} />,
+              <UnitLines key="a" v={r.post} />,
+              <UnitLines key="c" v={r.change} />,
+              <UnitLines key="u" v={r.expanded} />,
               dec(r.decision, r.basis),
             ])}
           />
@@ -163,6 +181,7 @@ export function ReportView({ data }: { data: ReportData }) {
           ))}
         </ul>
       </Section>
+      {data.records ? <ClosingStatements r={data.records} /> : null}
       <p className="border-t-2 border-graphite-900 pt-2 text-center text-sm font-semibold">END OF REPORT</p>
     </article>
   );

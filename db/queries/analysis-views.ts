@@ -235,6 +235,20 @@ export interface LatestJobView {
 }
 
 /**
+ * The id of the job's approved fit: the analysis named by its latest "analysis.approved" audit
+ * event (as getApprovedAnalysis reads it). No actor: callers have checked the job's access.
+ */
+export async function approvedAnalysisIdOf(jobId: string): Promise<string | null> {
+  const [approval] = await db
+    .select({ analysisId: auditEvents.entityId })
+    .from(auditEvents)
+    .where(and(eq(auditEvents.jobId, jobId), eq(auditEvents.action, "analysis.approved")))
+    .orderBy(desc(auditEvents.id))
+    .limit(1);
+  return approval?.analysisId ?? null;
+}
+
+/**
  * The latest saved view of the job's *approved* fit (the analysis named by the job's latest
  * "analysis.approved" audit event, as getApprovedAnalysis reads it), with its PNG bytes; null
  * when no fit is approved, the approved fit has no saved view, or the stored object is missing.
@@ -245,13 +259,9 @@ export interface LatestJobView {
  */
 export async function latestJobView(jobId: string): Promise<LatestJobView | null> {
   if (!isUuid(jobId)) return null;
-  const [approval] = await db
-    .select({ analysisId: auditEvents.entityId })
-    .from(auditEvents)
-    .where(and(eq(auditEvents.jobId, jobId), eq(auditEvents.action, "analysis.approved")))
-    .orderBy(desc(auditEvents.id))
-    .limit(1);
-  if (!approval) return null;
+  const approved = await approvedAnalysisIdOf(jobId);
+  if (!approved) return null;
+  const approval = { analysisId: approved };
   const [row] = await db
     .select({
       id: analysisViews.id,

@@ -4,6 +4,7 @@ import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { getApprovedAnalysis, listJobAnalyses } from "@/db/queries/analyses";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
+import { getIssuer } from "@/db/queries/issuer";
 import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
 import { getComparison } from "@/db/queries/readings";
@@ -13,6 +14,7 @@ import { needsInstrument } from "@/lib/step-kinds";
 import type { Actor } from "@/lib/domain/roles";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 import { parameterRows } from "@/lib/fit-display";
+import { issuerDetailsMissing } from "@/lib/policy/issuer";
 import { deviationRefusal } from "@/lib/policy/reports";
 import { reportDecision } from "@/lib/report/build";
 import {
@@ -40,7 +42,7 @@ export function countingTestPart<T extends { kind: string; status: string; phase
 
 export async function readinessInput(actor: Actor, d: JobDetail): Promise<ReadinessInput> {
   const jobId = d.job.id;
-  const [comparison, used, list, analysesList, limits, approved, sigs, state, carried, photoRows] =
+  const [comparison, used, list, analysesList, limits, approved, sigs, state, carried, photoRows, issuer] =
     await Promise.all([
       getComparison(actor, jobId),
       db
@@ -66,6 +68,7 @@ export async function readinessInput(actor: Actor, d: JobDetail): Promise<Readin
         .from(photos)
         .where(eq(photos.jobId, jobId))
         .groupBy(photos.stepId),
+      getIssuer(),
     ]);
   const photoCounts = new Map(photoRows.map((p) => [p.stepId, p.n]));
   const stored = (list ?? []).filter((x) => x.status === "stored");
@@ -128,6 +131,7 @@ export async function readinessInput(actor: Actor, d: JobDetail): Promise<Readin
         }
       : null,
     results,
+    issuerMissing: issuerDetailsMissing(issuer),
     signatures: sigs.flatMap((s) =>
       s.meaning === "performed" || s.meaning === "inspected"
         ? [

@@ -428,6 +428,8 @@ export interface PhaseReading {
   decision: StepDecision;
   readingId: string;
   instrument: string | null;
+  /** The instrument's resolution (canonical unit), which sets the decimals printed. */
+  resolution: number | null;
   takenAt: Date;
   /** What shownValue() needs for answers, records, notes and multi-point readings. */
   shown: ShownReading;
@@ -463,7 +465,12 @@ export async function getComparison(actor: Actor, jobId: string) {
   const steps = await listTemplateSteps(d.job.templateId);
   const current = steps.length
     ? await db
-        .select({ r: readings, serial: instruments.serial, stdU: instruments.standardUncertainty })
+        .select({
+          r: readings,
+          serial: instruments.serial,
+          stdU: instruments.standardUncertainty,
+          resolution: instruments.resolution,
+        })
         .from(readings)
         .leftJoin(instruments, eq(instruments.id, readings.instrumentId))
         .where(
@@ -489,6 +496,7 @@ export async function getComparison(actor: Actor, jobId: string) {
         decision: judge(s, hit.r.value, U),
         readingId: hit.r.id,
         instrument: hit.serial,
+        resolution: hit.resolution,
         takenAt: hit.r.takenAt,
         shown: hit.r,
       };

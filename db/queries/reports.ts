@@ -6,7 +6,7 @@ import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
 import { getComparison } from "@/db/queries/readings";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
-import { latestJobView } from "@/db/queries/analysis-views";
+import { reportFigureViews } from "@/db/queries/report-views";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
 import { countingTestPart, listDeviations, readinessInput } from "@/db/queries/readiness";
 import {
@@ -18,6 +18,7 @@ import {
   visibleJob,
 } from "@/db/queries/signatures";
 import {
+  datasets,
   instruments,
   jobs,
   outbox,
@@ -48,6 +49,8 @@ import {
 import { getSigningKey } from "@/lib/report/keys";
 import { NotReadyError, readiness } from "@/lib/report/readiness";
 import { renderReportPdf } from "@/lib/report/render";
+import { NOT_RECORDED, recordsSection } from "@/lib/report/sections/records";
+import { recordsInputOf } from "@/db/queries/report-records";
 import { sha256Hex, signManifest, type SignatureManifest } from "@/lib/report/signing";
 import type { ReportData } from "@/lib/report/types";
 import { photoAppendixRows } from "@/lib/report/sections/photos";
@@ -100,7 +103,20 @@ async function approvedParameters(actor: Actor, d: JobDetail) {
     },
     await parameterLimitsOfTemplate(d.job.templateId),
   );
-  return { section, analysisId: approved.detail.analysis.id };
+  const [source] = await db
+    .select({ phase: datasets.phase })
+    .from(datasets)
+    .where(eq(datasets.id, approved.detail.analysis.datasetId));
+  return {
+    section,
+    analysisId: approved.detail.analysis.id,
+    source: {
+      filename: approved.detail.dataset.originalFilename,
+      sha256: approved.detail.dataset.sha256,
+      phase: source?.phase ?? "pre",
+      geometryVersion: approved.detail.analysis.geometryVersion,
+    },
+  };
 }
 
 /** Fetches everything the report shows and assembles it (lib/report/build.ts). */
@@ -109,37 +125,65 @@ export async function buildReportData(
   d: JobDetail,
   meta: ReportInputs["meta"],
 ): Promise<{ data: ReportData; images: Map<string, Buffer> }> {
-  const [sigs, state, params, comparison, template, instrumentList, testPart, carried] = await Promise.all([
-    preIssueSignatures(d.job.id),
-    jobStateSha256(d.job.id),
-    approvedParameters(actor, d),
-    getComparison(actor, d.job.id),
-    d.job.templateId
-      ? db
-          .select({ name: procedureTemplates.name, version: procedureTemplates.version })
-          .from(procedureTemplates)
-          .where(eq(procedureTemplates.id, d.job.templateId))
-      : Promise.resolve([]),
-    jobInstruments(d.job.id),
-    jobTestPart(actor, d.job.id, d.job.decisionRule),
-    listDeviations(d.job.id),
-  ]);
-  // The latest picture of the 3D view saved for the approved fit (the job's access was checked above).
-  const view = params ? await latestJobView(d.job.id) : null;
+  const [sigs, state, params, comparison, template, instrumentList, testPart, carried, recordsBase] =
+    await Promise.all([
+      preIssueSignatures(d.job.id),
+      jobStateSha256(d.job.id),
+      approvedParameters(actor, d),
+      getComparison(actor, d.job.id),
+      d.job.templateId
+        ? db
+            .select({ name: procedureTemplates.name, version: procedureTemplates.version })
+            .from(procedureTemplates)
+            .where(eq(procedureTemplates.id, d.job.templateId))
+        : Promise.resolve([]),
+      jobInstruments(d.job.id),
+      jobTestPart(actor, d.job.id, d.job.decisionRule),
+      listDeviations(d.job.id),
+      recordsInputOf(d),
+    ]);
+  // The saved 3D views the engineer ticked for the report, of the approved fit and large enough
+  // (lib/report/view-choice; the job's access was checked above).
   const images = new Map<string, Buffer>();
   const figures: ReportData["figures"] = [];
-  if (view && view.analysisId === params?.analysisId) {
+  for (const view of params ? await reportFigureViews(d.job.id) : []) {
+    if (view.analysisId !== params?.analysisId) continue;
     const sha256 = sha256Hex(view.png);
     images.set(sha256, view.png);
     figures.push(figureOf({ ...view, sha256 }));
   }
+  const readingRows = readingSection(comparison?.rows ?? [], recordsBase.unitSystem);
+  const records = recordsSection({
+    ...recordsBase,
+    item: {
+      head: `two-axis head ${[d.head.maker, d.head.model].filter(Boolean).join(" ") || "(maker and model not recorded)"}, serial ${d.head.serial}`,
+      machine: `${d.machine.name} (${[d.machine.builder, d.machine.model].filter(Boolean).join(" ") || "builder and model not recorded"}, serial ${d.machine.serial ?? "not recorded"}) at ${d.customer.name}, ${d.site.name}`,
+    },
+    did: {
+      readings: readingRows.rows.length > 0,
+      fit: Boolean(params),
+      testPart: testPart.length > 0,
+      procedure: template[0] ? `${template[0].name}, version ${template[0].version}` : null,
+      decisionRule: d.job.decisionRule,
+    },
+    issuedAt: meta.draft ? null : meta.issuedAt,
+    fits: params ? [params.source] : [],
+    deviationCount: carried.length,
+  });
+  const issuer = recordsBase.issuer;
   const data = buildReportContent({
     meta,
     d,
+    issuer: {
+      name: issuer.name,
+      ...(issuer.address ? { address: issuer.address.replace(/\s*\n\s*/g, ", ") } : {}),
+      ...(records.issuer.contact !== NOT_RECORDED ? { contact: records.issuer.contact } : {}),
+    },
+    records,
     jobKindLabel: JOB_KIND_LABELS[d.job.kind],
     template: template[0] ?? null,
-    instruments: instrumentRows(instrumentList, meta.issuedAt),
-    readings: readingSection(comparison?.rows ?? []),
+    instruments: instrumentRows(instrumentList, meta.issuedAt, recordsBase.unitSystem),
+    readings: readingRows,
     photos: photoAppendixRows(comparison?.rows ?? [], await jobPhotosForReport(d.job.id)),
     parameters: params?.section ?? null,
     testPart,

@@ -4,6 +4,7 @@ import { sql } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
+import { ensureIssuerRow } from "@/db/queries/issuer";
 import { enqueueMail } from "@/db/queries/outbox";
 import { INVITE_TTL_MS, tokenHash } from "@/db/queries/users-admin";
 import { userTokens, users } from "@/db/schema";
@@ -37,6 +38,8 @@ export async function createFirstAdmin(input: z.infer<typeof firstAdminSchema>) 
         "This database already has accounts; the administrator invites people from the People register.",
       );
     const [u] = await tx.insert(users).values({ email, name, role: "admin", passwordHash: null }).returning();
+    // The issuer's details start empty: no report can be issued until the administrator fills them in.
+    await ensureIssuerRow(tx);
     await tx.insert(userTokens).values({
       userId: u!.id,
       purpose: "invite",

@@ -13,8 +13,15 @@ import type { StepDecision } from "@/lib/checklist";
 import { LIMIT_SOURCE_WORDS, parameterRows, type ParameterLimit } from "@/lib/fit-display";
 import { formatDateTimeUtc } from "@/lib/format";
 import { signed } from "@/lib/numbers";
-import { formatLimits, formatValue, type QuantityKind } from "@/lib/units";
+import type { QuantityKind, UnitSystem } from "@/lib/units";
 import { shownValue, TEXT_KINDS, type KindStep, type ShownReading } from "@/lib/step-kinds";
+import {
+  formatAngleExpandedArcsec,
+  formatExpanded,
+  formatRecorded,
+  formatRecordedLimits,
+} from "@/lib/recorded-units";
+import type { ReportRecords } from "@/lib/report/sections/records";
 import { sha256Hex } from "@/lib/report/signing";
 import type { Decision, ReportCharts, ReportData, ReportSignature } from "@/lib/report/types";
 
@@ -52,6 +59,15 @@ export function residualChartValues(
   return { valuesUm: out.map((v) => Math.round(v * 1000) / 1000), perPoint };
 }
 
+/** One phase's reading of a step, as the report needs it. */
+interface PhaseInput {
+  value: number;
+  U?: number;
+  resolution?: number | null;
+  instrument?: string | null;
+  shown?: ShownReading;
+}
+
 /** What the report needs of one checklist step's comparison row (db/queries/readings ComparisonRow). */
 export interface ComparisonInput {
   title: string;
@@ -61,8 +77,12 @@ export interface ComparisonInput {
   limitSource: string;
   limitSourceNote?: string | null;
   decisionRule?: string;
-  pre: { value: number; shown?: ShownReading } | null;
-  post: { value: number; shown?: ShownReading } | null;
+  /**
+   * U: the reading's expanded uncertainty (0 when no instrument gives one); resolution of its
+   * instrument (canonical); shown: what an answer, record, note or multi-point reading shows.
+   */
+  pre: PhaseInput | null;
+  post: PhaseInput | null;
   change: number | null;
   status: StepDecision;
   /** Answers, records, notes and multi-point readings are shown as their kind (lib/step-kinds). */
@@ -101,41 +121,70 @@ function limitSourceWords(source: string, note: string | null | undefined): stri
   return `${words}${note ? `: ${note}` : ""}`;
 }
 
-/** A reading in the report's metric units, or as its kind says (Yes/No, a value in its own unit, a note). */
-function readingText(r: ComparisonInput, x: { value: number; shown?: ShownReading }): string {
-  return r.kindStep && x.shown
-    ? shownValue(r.kindStep, x.shown, "metric")
-    : formatValue(x.value, r.quantityKind, "metric");
+/** A step shown as its kind (Yes/No, a value in its own unit, a note, a multi-point result). */
+function shownKind(r: ComparisonInput): KindStep | null {
+  return r.kindStep && r.kindStep.derivation !== "direct" && r.kindStep.derivation !== "angle_over_distance"
+    ? r.kindStep
+    : null;
 }
 
 /**
  * The checklist readings for the report: the latest current reading of each step and phase,
- * judged under the step's decision rule, formatted in metric units; and the same numbers for the
- * before/after chart (lengths in mm, angles in arc seconds, as the table).
+ * judged under the step's decision rule, in the unit system the job recorded them in (an inch job
+ * in inch with mm beside, ISO/IEC 17025:2017 §7.8.2.1), at the instrument's resolution, with the
+ * counting reading's U; and the same numbers for the before/after chart (lengths in mm, angles in
+ * arc seconds).
  */
-export function readingSection(rows: readonly ComparisonInput[]): {
+export function readingSection(
+  rows: readonly ComparisonInput[],
+  system: UnitSystem = "metric",
+): {
   rows: ReportData["readings"];
   chart: NonNullable<ReportCharts["readings"]>;
 } {
   const measured = rows.filter((r) => r.pre || r.post);
   return {
-    rows: measured.map((r) => ({
-      ...withBasis(
-        judgementBasis(
-          reportDecision(r.status),
-          r.decisionRule ?? "simple",
-          limitSourceWords(r.limitSource, r.limitSourceNote),
+    rows: measured.map((r) => {
+      const counting = r.post ?? r.pre!;
+      // A length instrument's resolution sets a length step's decimals; an angle derived from a
+      // length reading over a travel keeps the angle's usual 0.1″.
+      const resOf = (x: { resolution?: number | null } | null) =>
+        r.quantityKind === "length" ? (x?.resolution ?? null) : null;
+      const res = resOf(counting);
+      const kind = shownKind(r);
+      const isText = kind !== null && TEXT_KINDS.includes(kind.derivation);
+      const phaseText = (x: PhaseInput) =>
+        kind && x.shown
+          ? shownValue(kind, x.shown, system)
+          : formatRecorded(x.value, r.quantityKind, system, { resolution: resOf(x) });
+      return {
+        ...withBasis(
+          judgementBasis(
+            reportDecision(r.status),
+            r.decisionRule ?? "simple",
+            limitSourceWords(r.limitSource, r.limitSourceNote),
+          ),
         ),
-      ),
-      step: r.title,
-      limits: formatLimits(r.lowerLimit, r.upperLimit, r.quantityKind, "metric"),
-      pre: r.pre ? readingText(r, r.pre) : undefined,
-      post: r.post ? readingText(r, r.post) : undefined,
-      change:
-        r.change != null ? formatValue(r.change, r.quantityKind, "metric", { signed: true }) : undefined,
-      decision: reportDecision(r.status),
-      source: r.limitSource.replace("_", " "),
-    })),
+        step: r.title,
+        limits: formatRecordedLimits(r.lowerLimit, r.upperLimit, r.quantityKind, system),
+        pre: r.pre ? phaseText(r.pre) : undefined,
+        post: r.post ? phaseText(r.post) : undefined,
+        change:
+          r.change != null
+            ? formatRecorded(r.change, r.quantityKind, system, { signed: true, resolution: res })
+            : undefined,
+        ...(counting.U !== undefined && !isText
+          ? {
+              expanded: formatExpanded(counting.U, r.quantityKind, system, {
+                resolution: res,
+                reason: counting.instrument ? "the instrument states no uncertainty" : "no instrument named",
+              }),
+            }
+          : {}),
+        decision: reportDecision(r.status),
+        source: r.limitSource.replace("_", " "),
+      };
+    }),
     chart: measured
       .filter((r) => !r.kindStep || !TEXT_KINDS.includes(r.kindStep.derivation))
       .filter((r) => r.lowerLimit != null || r.upperLimit != null)
@@ -162,11 +211,24 @@ export interface InstrumentInput {
   due: string;
 }
 
-/** Instruments with their calibration status on the day `on` (the day of issue). */
-export function instrumentRows(rows: readonly InstrumentInput[], on: Date): ReportData["instruments"] {
+/**
+ * Instruments with their calibration status on the day `on` (the day of issue); on an inch job
+ * (`system`) the figures of a length instrument print in inch with mm beside.
+ */
+export function instrumentRows(
+  rows: readonly InstrumentInput[],
+  on: Date,
+  system: UnitSystem = "metric",
+): ReportData["instruments"] {
   const day = on.toISOString().slice(0, 10);
   const fmt = (v: number, kind: string) =>
-    kind === "angle" ? `${v.toFixed(1)}″` : v >= 0.001 ? `${v.toFixed(4)} mm` : `${(v * 1000).toFixed(2)} µm`;
+    kind === "angle"
+      ? `${v.toFixed(1)}″`
+      : system === "inch"
+        ? formatRecorded(v, "length", "inch", { resolution: v })
+        : v >= 0.001
+          ? `${v.toFixed(4)} mm`
+          : `${(v * 1000).toFixed(2)} µm`;
   return rows.map((r) => ({
     kind: r.kind,
     serial: r.serial,
@@ -196,7 +258,13 @@ export function testPartRows(rows: readonly TestPartResultRow[], rule = "simple"
       measured: v(r.measured),
       deviation: sign(r.deviation),
       limits,
-      expanded: r.U.toFixed(dp),
+      // Angles' U in arc seconds; an undefined U is a dash with its reason, never "0.000".
+      expanded:
+        r.unit === "deg" || r.unit === "arcsec"
+          ? formatAngleExpandedArcsec(r.U, r.unit)
+          : Number.isFinite(r.U) && r.U > 0
+            ? r.U.toFixed(dp)
+            : "— (not stated)",
       decision: r.decision,
       ...withBasis(judgementBasis(r.decision, rule, "test-part file")),
     };
@@ -420,6 +488,10 @@ export interface ReportInputs {
   signatures: ReportSignature[];
   deviations: readonly DeviationInput[];
   verifyUrl: string;
+  /** The issuer as the settings held it at issue (lib/report/sections/records for the rest). */
+  issuer: ReportData["issuer"];
+  /** The record details (ISO/IEC 17025:2017 §7.8.2.1); absent only where a caller has none to give. */
+  records?: ReportRecords;
 }
 
 /** Assembles the report's content and names it by the SHA-256 of its canonical JSON. */
@@ -433,7 +505,7 @@ export function buildReportContent(i: ReportInputs): ReportData {
     revision: meta.revision,
     ...(meta.amendment ? { amendment: meta.amendment } : {}),
     issuedAtUtc: meta.draft ? null : formatDateTimeUtc(meta.issuedAt),
-    issuer: { name: "Halvard Field Service" },
+    issuer: i.issuer,
     customer: {
       name: d.customer.name,
       site: d.site.name,
@@ -484,6 +556,7 @@ export function buildReportContent(i: ReportInputs): ReportData {
     safety: [...SAFETY_NOTES],
     signatures: meta.draft || !meta.approval ? [] : [...i.signatures, meta.approval],
     verifyUrl: i.verifyUrl,
+    ...(i.records ? { records: i.records } : {}),
   };
   return { ...data, contentSha256: sha256Hex(canonicalJson(data)) };
 }

@@ -25,6 +25,7 @@ import { BODY_FONT, MONO_FONT } from "./fonts";
 import { parameterChartRows, readingRows } from "./chart-data";
 import { LimitRowsChart, ResidualsChart } from "./charts";
 import { PhotoAppendix } from "./sections/photos";
+import { ClosingStatementsPdf, RecordDetailsPdf } from "./sections/records-pdf";
 
 const C = {
   ink: palette.graphite[900],
@@ -59,7 +60,7 @@ const s = StyleSheet.create({
   },
   title: { fontSize: 15, fontWeight: 700, lineHeight: 1.2 },
   subtitle: { fontSize: 9, color: C.muted, marginTop: 2 },
-  idBox: { alignItems: "flex-end" },
+  idBox: { alignItems: "flex-end", flexShrink: 0, marginLeft: 12 },
   mono: { fontFamily: MONO_FONT as unknown as string },
   h2: {
     fontSize: 10.5,
@@ -80,7 +81,7 @@ const s = StyleSheet.create({
   tr: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: C.rule },
   th: { backgroundColor: C.band, fontWeight: 700, color: C.muted, fontSize: 7.5 },
   td: { paddingVertical: 3, paddingHorizontal: 4 },
-  num: { fontFamily: MONO_FONT as unknown as string, textAlign: "right" },
+  num: { fontFamily: MONO_FONT as unknown as string, textAlign: "right", fontSize: 7.5 },
   footerRule: {
     position: "absolute",
     bottom: 36,
@@ -132,6 +133,12 @@ function DecisionCell({ d, width, basis }: { d: Decision; width: string; basis?:
       {basis ? <Text style={{ color: C.muted, fontSize: 6.5 }}>{basis}</Text> : null}
     </View>
   );
+}
+
+/** The mm beside an inch value on a line of its own: "0.0003 in (0.008 mm)" prints as "0.0003 in" over "(0.008 mm)". */
+function unitCell(v: string | undefined): string {
+  if (!v) return "—";
+  return v.replace(/ \(/, "\n(");
 }
 
 function Facts({ rows }: { rows: Array<[string, string | undefined]> }) {
@@ -327,14 +334,15 @@ export function ReportDocument({
         />
         <View>
           <View style={s.header} fixed>
-            <View style={{ flexDirection: "row", gap: 8, alignItems: "center" }}>
+            <View style={{ flexDirection: "row", gap: 8, alignItems: "center", flex: 1 }}>
               <Mark />
-              <View>
+              <View style={{ flex: 1 }}>
                 <Text style={s.title}>Acceptance report — two-axis head</Text>
                 <Text style={s.subtitle}>
                   {data.issuer.name}
                   {data.issuer.address ? ` · ${data.issuer.address}` : ""}
                 </Text>
+                {data.issuer.contact ? <Text style={s.subtitle}>{data.issuer.contact}</Text> : null}
               </View>
             </View>
             <View style={s.idBox}>
@@ -383,6 +391,7 @@ export function ReportDocument({
             2 Work, method and decision rule
           </Text>
           <Facts rows={facts.work} />
+          {data.records ? <RecordDetailsPdf r={data.records} /> : null}
 
           <Text style={s.h2} minPresenceAhead={40}>
             3 Instruments
@@ -393,8 +402,13 @@ export function ReportDocument({
             cols={[
               { header: "Instrument", width: "26%", cell: (r) => r.kind },
               { header: "Serial", width: "16%", cell: (r) => r.serial },
-              { header: "Resolution", width: "14%", cell: (r) => r.resolution, numeric: true },
-              { header: "Std. uncertainty", width: "16%", cell: (r) => r.uncertainty, numeric: true },
+              { header: "Resolution", width: "14%", cell: (r) => unitCell(r.resolution), numeric: true },
+              {
+                header: "Std. uncertainty",
+                width: "16%",
+                cell: (r) => unitCell(r.uncertainty),
+                numeric: true,
+              },
               { header: "Calibration due", width: "14%", cell: (r) => r.calibrationDue },
               { header: "Status", width: "14%", cell: (r) => r.status },
             ]}
@@ -410,11 +424,12 @@ export function ReportDocument({
             rows={data.readings}
             empty="No checklist readings."
             cols={[
-              { header: "Step", width: "30%", cell: (r) => r.step },
-              { header: "Limits", width: "17%", cell: (r) => r.limits },
-              { header: "Before", width: "13%", cell: (r) => r.pre ?? "—", numeric: true },
-              { header: "After", width: "13%", cell: (r) => r.post ?? "—", numeric: true },
-              { header: "Change", width: "12%", cell: (r) => r.change ?? "—", numeric: true },
+              { header: "Step", width: "19%", cell: (r) => r.step },
+              { header: "Limits", width: "15%", cell: (r) => unitCell(r.limits) },
+              { header: "Before", width: "13%", cell: (r) => unitCell(r.pre), numeric: true },
+              { header: "After", width: "13%", cell: (r) => unitCell(r.post), numeric: true },
+              { header: "Change", width: "12%", cell: (r) => unitCell(r.change), numeric: true },
+              { header: "U (k = 2)", width: "13%", cell: (r) => unitCell(r.expanded), numeric: true },
               {
                 header: "Result",
                 width: "15%",
@@ -567,6 +582,7 @@ export function ReportDocument({
               </View>
             </>
           )}
+          {data.records ? <ClosingStatementsPdf r={data.records} /> : null}
           <Text style={s.end}>END OF REPORT</Text>
         </View>
       </Page>

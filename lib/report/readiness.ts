@@ -14,6 +14,7 @@
  *   the job's recorded state (a later reading or dataset makes them stale).
  * - Every FAIL or undecided result is either measured again and passing (the current reading or
  *   fit is what is judged) or carried as a deviation with a written justification.
+ * - The issuer's name and address are filled in (ISO/IEC 17025:2017 §7.8.2.1 b).
  */
 import { AppError } from "@/lib/errors";
 import type { Decision } from "@/lib/report/types";
@@ -30,6 +31,7 @@ export const BLOCKER_CODES = [
   "signature_stale",
   "result_not_conforming",
   "photo_missing",
+  "issuer_details_missing",
 ] as const;
 export type BlockerCode = (typeof BLOCKER_CODES)[number];
 
@@ -87,6 +89,8 @@ export interface ReadinessInput {
   currentStateSha256: string;
   /** Subjects carried as deviations. */
   deviationSubjects: readonly string[];
+  /** The issuer's details that are empty ("name", "address"): lib/policy/issuer.issuerDetailsMissing. */
+  issuerMissing?: readonly string[];
 }
 
 /** The phase whose state the report vouches for. */
@@ -203,6 +207,14 @@ export function readiness(input: ReadinessInput): Readiness {
         `${r.label} is ${r.decision === "fail" ? "FAIL" : "undecided"}: measure it again, or record a deviation with its justification.`,
         `${job}/report#deviations`,
       );
+
+  const missing = input.issuerMissing ?? [];
+  if (missing.length)
+    add(
+      "issuer_details_missing",
+      `The issuer's ${missing.join(" and ")} ${missing.length === 1 ? "is" : "are"} missing: the administrator fills them in under Registers, Issuer details.`,
+      "/registers/settings",
+    );
 
   return { ready: blockers.length === 0, blockers };
 }

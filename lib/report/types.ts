@@ -6,6 +6,7 @@
  */
 import type { RecordedDecision } from "@/lib/domain/decisions";
 import type { PhotoAppendixRow } from "./sections/photos";
+import type { ReportRecords } from "@/lib/report/sections/records";
 
 /** geometry's decision, or "not_measured", or "recorded": a reading kept without a limit to judge it against. */
 export type Decision = RecordedDecision;
@@ -26,7 +27,7 @@ export interface ReportData {
   revision: number;
   amendment?: { supersedesRevision: number; reason: string };
   issuedAtUtc: string | null;
-  issuer: { name: string; address?: string };
+  issuer: { name: string; address?: string; contact?: string };
   customer: { name: string; site: string; address?: string };
   machine: { name: string; kind: string; builderModel?: string; serial?: string; control?: string };
   head: { serial: string; makerModel?: string; axes: string; nominalPivotLength: string; mass?: string };
@@ -57,6 +58,8 @@ export interface ReportData {
     source: string;
     /** The decision rule and limit source of a judged row; absent in reports issued before it was printed. */
     basis?: string;
+    /** The counting reading's expanded uncertainty, or "—" with the reason; absent in older reports. */
+    expanded?: string;
   }>;
   parameters: Array<{
     name: string;
@@ -103,6 +106,8 @@ export interface ReportData {
     approvedBy: string;
     recordedAtUtc: string;
   }>;
+  /** Record details and traceability (ISO/IEC 17025:2017 §7.8.2.1); absent in reports issued before them. */
+  records?: ReportRecords;
   remarks: string[];
   /** Photos of the steps that ask for one (lib/report/sections/photos.tsx); absent when none. */
   photos?: PhotoAppendixRow[];

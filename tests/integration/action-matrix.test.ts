@@ -11,6 +11,7 @@ import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 import { db } from "@/db";
 import { runHeadFit } from "@/db/queries/analyses";
+import { saveAnalysisView } from "@/db/queries/analysis-views";
 import { recordReading } from "@/db/queries/readings";
 import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
@@ -30,6 +31,7 @@ import {
   uploadDemoProbe,
   type JobBase,
 } from "./fixtures";
+import { PNG } from "pngjs";
 import { signInAs } from "./helpers";
 import { jobBaseOf } from "./ready-job";
 
@@ -45,6 +47,7 @@ const people = await import("@/app/(app)/registers/people/actions");
 const forgotPassword = await import("@/app/(auth)/forgot-password/actions");
 const procedures = await import("@/app/(app)/registers/procedures/actions");
 const jobOffice = await import("@/app/(app)/jobs/actions");
+const settings = await import("@/app/(app)/registers/settings/actions");
 
 const EMAIL = WHO;
 type Outcome = "pass" | "unauthorized" | "forbidden" | "not_found";
@@ -215,12 +218,50 @@ MATRIX.runFitAction = {
 MATRIX.approveFitAction = {
   expect: staffOnly(["engineer"]),
   call: async (who) => {
-    const jobId = await freshJob("measuring");
-    const datasetId = await uploadDemoProbe(jobId);
-    const { analysis: a } = await runHeadFit(await signInActor("engineer@halvard.example"), datasetId);
+    const { jobId, analysisId } = await freshFit();
+    const a = { id: analysisId };
     await db.update(jobs).set({ status: "in_review" }).where(eq(jobs.id, jobId));
     await signInAs(EMAIL[who]);
     return analysis.approveFitAction({ jobId, analysisId: a.id, password: PW });
+  },
+};
+
+/** A fresh Marlow Creek job with sphere-probe data uploaded by the installer and fitted by the engineer. */
+async function freshFit() {
+  const jobId = await freshJob("measuring");
+  const datasetId = await uploadDemoProbe(jobId);
+  const engineer = await signInActor("engineer@halvard.example");
+  const { analysis: a } = await runHeadFit(engineer, datasetId);
+  return { jobId, analysisId: a.id, engineer };
+}
+
+/** A saved 3D view (600 × 400 px) of a fresh fit on a fresh Marlow Creek job, saved by the engineer. */
+async function freshView(): Promise<{ jobId: string; viewId: string }> {
+  const { jobId, analysisId, engineer } = await freshFit();
+  const png = PNG.sync.write(new PNG({ width: 600, height: 400 }));
+  const v = await saveAnalysisView(engineer, analysisId, {
+    png,
+    factor: 1000,
+    overlayAnalysisId: null,
+    caption: null,
+  });
+  return { jobId, viewId: v.id };
+}
+// The people who measured record the probe, sphere or CMM behind the data; not the office, not customers.
+MATRIX.recordJobInstrumentAction = {
+  expect: { ...onMarlowJob(["installer", "inspector", "engineer"]) },
+  call: async () =>
+    report.recordJobInstrumentAction({ jobId: await freshJob("measuring"), instrumentId, use: "probe" }),
+};
+
+// The engineer who saves the views ticks them for the report; leaving a view out passes the door
+// whatever the fit's state, so the cell is about who asks.
+MATRIX.chooseReportViewAction = {
+  expect: onMarlowJob(["engineer"]),
+  call: async (who) => {
+    const { jobId, viewId } = await freshView();
+    await signInAs(EMAIL[who]);
+    return analysis.chooseReportViewAction({ jobId, viewId, include: false });
   },
 };
 
@@ -258,6 +299,12 @@ for (const name of [
     call: async () => (procedures[name] as (raw: unknown) => Promise<ActionResult<unknown>>)({}),
   };
 }
+// ---- issuer details: the administrator's. An empty form passes the door for the admin and is then
+// refused for its fields, so nothing is saved; everyone else is refused at the door.
+MATRIX.updateIssuerSettingsAction = {
+  expect: staffOnly(["admin"]),
+  call: async () => settings.updateIssuerSettingsAction({ contactEmail: 42 }),
+};
 
 // ---- set password: anonymous by design, the one-time token is the credential; a wrong token is
 // refused for its field, whoever asks.

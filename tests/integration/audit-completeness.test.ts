@@ -239,6 +239,8 @@ const AUDITED_TABLES = [
   "datasets",
   "analyses",
   "analysisViews",
+  "reportViews",
+  "jobInstruments",
   "signatures",
   "reports",
   "deviations",

@@ -10,6 +10,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { approveAnalysis, nonConformingParameters, runHeadFit } from "@/db/queries/analyses";
 import { saveAnalysisView } from "@/db/queries/analysis-views";
+import { chooseReportView } from "@/db/queries/report-views";
 import { changeJobStatus } from "@/db/queries/job-status";
 import { getJobConformity, issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
@@ -33,7 +34,8 @@ let pdf: Buffer;
 let provisional: Awaited<ReturnType<typeof getJobConformity>>;
 let provisionalForCustomer: Awaited<ReturnType<typeof getJobConformity>>;
 const viewPng = (() => {
-  const png = new PNG({ width: 64, height: 40 });
+  // At the report's least size for a view (lib/report/view-choice: 600 × 400 px).
+  const png = new PNG({ width: 600, height: 400 });
   for (let i = 0; i < png.data.length; i += 4) png.data.set([0x5f, 0x7d, 0x99, 255], i);
   return PNG.sync.write(png);
 })();
@@ -64,12 +66,13 @@ beforeAll(async () => {
     (await nonConformingParameters(as.engineer!, analysis.id)).map((p) => p.key),
   );
   await carryOpenResults(as.engineer!, jobId, "Within the machine builder's acceptance for this demo head.");
-  await saveAnalysisView(as.engineer!, analysis.id, {
+  const saved = await saveAnalysisView(as.engineer!, analysis.id, {
     png: viewPng,
     factor: 300,
     overlayAnalysisId: null,
     caption: "Looking along −Y",
   });
+  await chooseReportView(as.engineer!, { viewId: saved.id, include: true });
   provisional = await getJobConformity(as.engineer!, jobId);
   provisionalForCustomer = await getJobConformity(as.buyer!, jobId);
   const { reportId } = await issueReport(as.engineer!, { jobId, password: PW });
@@ -158,7 +161,7 @@ describe("the saved 3D view in the report", () => {
     expect(content.figures[0]!.sha256).toBe(createHash("sha256").update(viewPng).digest("hex"));
     expect(content.figures[0]!.caption).toMatch(/× 300.*Looking along −Y/);
     const file = pdfFile(pdf);
-    expect(pdfImageSizes(file)).toContain("64x40");
+    expect(pdfImageSizes(file)).toContain("600x400");
     const text = pdfText(file, true);
     expect(text).toContain("Fitted head parameters against the procedure's limits.");
     expect(text).toContain("Residuals of the approved head fit per pose.");

@@ -123,6 +123,13 @@ describe("npm run setup", () => {
         "procedure.library_loaded",
         "user.first_admin_created",
       ]);
+      // The issuer's details start empty (a readiness blocker until the administrator fills
+      // them in), with the usual statement about reproduction in full.
+      const issuer = await c.query("select name, address, reproduction_statement from issuer_settings");
+      expect(issuer.rows).toHaveLength(1);
+      expect(issuer.rows[0].name).toBe("");
+      expect(issuer.rows[0].address).toBe("");
+      expect(issuer.rows[0].reproduction_statement).toMatch(/except in full/);
     });
   }, 120_000);
 

@@ -72,6 +72,31 @@ describe("readingSection", () => {
   });
 });
 
+describe("readingSection in the unit the job recorded (ISO/IEC 17025:2017 §7.8.2.1)", () => {
+  // 1 in = 25.4 mm exactly (NIST SP 811): 0.0003 in = 0.00762 mm, 0.0005 in = 0.0127 mm.
+  const row = {
+    title: "Collar face",
+    quantityKind: "length" as const,
+    lowerLimit: null,
+    upperLimit: 0.0005 * 25.4,
+    limitSource: "common_practice",
+    pre: null,
+    post: { value: 0.0003 * 25.4, U: 0.0024, resolution: 0.00254, instrument: "DTI-1" },
+    change: null,
+    status: "pass" as const,
+  };
+  it("prints an inch job's reading and limit in inch with mm beside, with its U", () => {
+    const [r] = readingSection([row], "inch").rows;
+    expect(r!.post).toBe("0.0003 in (0.008 mm)");
+    expect(r!.limits).toBe("≤ 0.0005 in (≤ 0.0127 mm)");
+    expect(r!.expanded).toBe("± 0.00009 in (± 0.0024 mm)");
+  });
+  it("prints a dash with the reason for a reading without an instrument, never 0.000", () => {
+    const [r] = readingSection([{ ...row, post: { value: 0.001, U: 0, instrument: null } }], "metric").rows;
+    expect(r!.expanded).toBe("— (no instrument named)");
+  });
+});
+
 describe("instrumentRows", () => {
   it("is in calibration through its due date and past due the day after", () => {
     const i = {
@@ -239,6 +264,10 @@ describe("buildReportContent", () => {
     signatures: [],
     deviations: [],
     verifyUrl: "https://example.test/verify/r1",
+    issuer: { name: "Issuer Ltd", address: "1 Road" },
+  });
+  it("prints the issuer as the settings give it, not a fixed name (ISO/IEC 17025:2017 §7.8.2.1 b)", () => {
+    expect(data.issuer).toEqual({ name: "Issuer Ltd", address: "1 Road" });
   });
   it("names its content by the SHA-256 of the canonical JSON without the hash", () => {
     const { contentSha256, ...rest } = data;

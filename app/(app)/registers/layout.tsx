@@ -1,4 +1,5 @@
 import { RegisterTabs } from "@/components/registers/register-tabs";
+import { issuerSettingsRefusal } from "@/lib/policy/issuer";
 import { registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
 
@@ -13,7 +14,12 @@ const ALL = [
 
 export default async function RegistersLayout({ children }: { children: React.ReactNode }) {
   const user = await requirePageUser("/registers");
-  const items = ALL.filter((i) => registerReadRefusal(user, i.key) === null);
+  const items = [
+    ...ALL.filter((i) => registerReadRefusal(user, i.key) === null),
+    ...(issuerSettingsRefusal(user) === null
+      ? [{ href: "/registers/settings", label: "Issuer details" }]
+      : []),
+  ];
   return (
     <div className="space-y-6">
       <RegisterTabs items={items} />

@@ -4,6 +4,7 @@ import { fitApproverRefusal } from "@/lib/policy/analyses";
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
+import { chooseReportView } from "@/db/queries/report-views";
 import { action } from "@/lib/actions";
 import { zUuid } from "@/lib/domain/uuid";
 
@@ -43,6 +44,27 @@ export const approveFitAction = action(
     const keys = (acknowledged ?? "").split(",").filter((k) => k !== "");
     const r = await approveAnalysis(actor, analysisId, password, keys);
     revalidatePath(`/jobs/${jobId}`, "layout");
+    return r;
+  },
+);
+
+/**
+ * The engineer ticks (or unticks) a saved 3D view for the report; only views of the approved fit
+ * of at least 600 × 400 px may be ticked (db/queries/report-views.chooseReportView checks who and
+ * what, and refuses with the reason).
+ */
+export const chooseReportViewAction = action(
+  {
+    schema: z.object({
+      jobId: zUuid("jobId must be a job id"),
+      viewId: zUuid("viewId must be a saved view's id"),
+      include: z.preprocess((v) => v === true || v === "true" || v === "on", z.boolean()),
+    }),
+  },
+  async ({ jobId, viewId, include }, actor) => {
+    const r = await chooseReportView(actor, { viewId, include });
+    revalidatePath(`/jobs/${jobId}/analysis`);
+    revalidatePath(`/jobs/${jobId}/report`);
     return r;
   },
 );

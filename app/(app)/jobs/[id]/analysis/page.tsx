@@ -20,6 +20,7 @@ import {
   type AnalysisListRow,
 } from "@/db/queries/analyses";
 import { listJobViews } from "@/db/queries/analysis-views";
+import { reportViewChoices } from "@/db/queries/report-views";
 import { listDatasets } from "@/db/queries/datasets";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
 import { getJobDetail } from "@/db/queries/jobs";
@@ -132,7 +133,13 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
       ) : null}
 
       {shown || views.length ? (
-        <SavedViews jobId={id} views={views} approvedAnalysisId={approved?.detail.analysis.id ?? null} />
+        <SavedViews
+          jobId={id}
+          views={views}
+          approvedAnalysisId={approved?.detail.analysis.id ?? null}
+          choices={Object.fromEntries(await reportViewChoices(id))}
+          mayChoose={viewSaveRefusal(user) === null}
+        />
       ) : null}
     </div>
   );

@@ -6,7 +6,9 @@ import { z } from "zod";
 import { issueReport, respondToReport } from "@/db/queries/reports";
 import { recordDeviation } from "@/db/queries/readiness";
 import { signJobWork } from "@/db/queries/signatures";
+import { recordJobInstrument } from "@/db/queries/job-instruments";
 import { action } from "@/lib/actions";
+import { DATA_INSTRUMENT_USES } from "@/lib/domain/instruments";
 import { zUuid } from "@/lib/domain/uuid";
 
 const password = z.string().min(1, "Re-enter your password to sign.");
@@ -71,6 +73,22 @@ export const recordDeviationAction = action(
   async (input, actor) => {
     const row = await recordDeviation(actor, input);
     revalidatePath(`/jobs/${input.jobId}`, "layout");
+    return { id: row.id };
+  },
+);
+
+/** Records an instrument used for the job's measurement data (probe, reference sphere, CMM); checks in recordJobInstrument. */
+export const recordJobInstrumentAction = action(
+  {
+    schema: z.object({
+      jobId: zUuid(),
+      instrumentId: zUuid("Choose an instrument from the register."),
+      use: z.enum(DATA_INSTRUMENT_USES, { message: "Say what the instrument was used for." }),
+    }),
+  },
+  async (input, actor) => {
+    const row = await recordJobInstrument(actor, input);
+    revalidatePath(`/jobs/${input.jobId}/report`);
     return { id: row.id };
   },
 );

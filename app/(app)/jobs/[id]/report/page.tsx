@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { DataInstruments } from "@/components/report/data-instruments";
 import { DeviationForm } from "@/components/report/deviation-form";
 import { ReadinessList } from "@/components/report/readiness-list";
 import { ReportView } from "@/components/report/report-view";
@@ -15,7 +16,15 @@ import { signatureRefusal } from "@/lib/policy/signatures";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
 import { amendRefusal, deviationRefusal, draftPreviewRefusal, readinessRefusal } from "@/lib/policy/reports";
-import { issueReportAction, recordDeviationAction, respondAction, signWorkAction } from "./actions";
+import { listInstrumentsForPicker, listJobInstruments } from "@/db/queries/job-instruments";
+import { jobInstrumentRefusal, jobInstrumentsListRefusal } from "@/lib/policy/job-instruments";
+import {
+  issueReportAction,
+  recordDeviationAction,
+  recordJobInstrumentAction,
+  respondAction,
+  signWorkAction,
+} from "./actions";
 
 export const metadata: Metadata = { title: "Report" };
 type Props = { params: Promise<{ id: string }> };
@@ -45,6 +54,9 @@ export default async function ReportPage({ params }: Props) {
   // The issue form appears once nothing stands in the way (issueReport refuses otherwise, 409).
   const mayIssue = mayIssueRole && Boolean(view?.readiness.ready);
   const mayRecordDeviation = Boolean(view) && !deviationRefusal(user, d.job) && openResults.length > 0;
+  // The probe, reference sphere and CMM behind the data (staff only; added while the work is open).
+  const dataInstruments = jobInstrumentsListRefusal(user) ? null : await listJobInstruments(d.job.id);
+  const pickable = !current && !jobInstrumentRefusal(user, d.job) ? await listInstrumentsForPicker() : null;
 
   return (
     <div className="grid grid-cols-[minmax(0,1fr)] gap-6 xl:grid-cols-[minmax(0,1fr)_22rem]">
@@ -132,6 +144,20 @@ export default async function ReportPage({ params }: Props) {
             ) : null}
           </>
         )}
+        {dataInstruments ? (
+          <DataInstruments
+            jobId={d.job.id}
+            recorded={dataInstruments.map((x) => ({
+              id: x.id,
+              use: x.use,
+              serial: x.serial,
+              kind: x.kind,
+              size: x.calibratedSizeMm ? `${x.calibratedSizeMm.toFixed(4)} mm` : null,
+            }))}
+            register={pickable}
+            run={recordJobInstrumentAction}
+          />
+        ) : null}
       </div>
       <aside className="space-y-4" aria-label="Signatures">
         <Card title="Signatures">
