@@ -12,7 +12,7 @@ import path from "node:path";
 import { and, asc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { approveAnalysis, nonConformingParameters, runHeadFit } from "@/db/queries/analyses";
+import { runHeadFit } from "@/db/queries/analyses";
 import { saveAnalysisView } from "@/db/queries/analysis-views";
 import { deleteDataset } from "@/db/queries/datasets";
 import { changeJobStatus, createJobFromTemplate } from "@/db/queries/job-status";
@@ -40,6 +40,7 @@ import {
   firstStepOf,
   instrumentIdBySerial,
   uploadDemoProbe,
+  approveConfirmed,
 } from "./fixtures";
 import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
@@ -101,12 +102,7 @@ beforeAll(async () => {
   await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
   await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
   await changeJobStatus(as.installer!, jobId, "in_review");
-  await approveAnalysis(
-    as.engineer!,
-    analysis.id,
-    PW,
-    (await nonConformingParameters(as.engineer!, analysis.id)).map((p) => p.key),
-  );
+  await approveConfirmed(as.engineer!, analysis.id, PW);
   await carryOpenResults(
     as.engineer!,
     jobId,

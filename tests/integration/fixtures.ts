@@ -7,6 +7,7 @@
 import { asc, eq } from "drizzle-orm";
 import { expect } from "vitest";
 import { db } from "@/db";
+import { approveAnalysis, nonConformingParameters } from "@/db/queries/analyses";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { instruments, jobs, templateSteps } from "@/db/schema";
@@ -165,4 +166,18 @@ export async function instrumentIdBySerial(serial = "DTI-0112"): Promise<string>
     .from(instruments)
     .where(eq(instruments.serial, serial));
   return inst!.id;
+}
+
+/**
+ * Approves a fit as the engineer does in the browser: confirming each parameter that does not
+ * conform (the server refuses until every one is confirmed), with the password entered again.
+ */
+export async function approveConfirmed(engineer: Actor, analysisId: string, password = DEMO_PASSWORD) {
+  const open = await nonConformingParameters(engineer, analysisId);
+  return approveAnalysis(
+    engineer,
+    analysisId,
+    password,
+    open.map((p) => p.key),
+  );
 }

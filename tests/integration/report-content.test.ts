@@ -8,7 +8,7 @@ import { eq } from "drizzle-orm";
 import { PNG } from "pngjs";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { approveAnalysis, nonConformingParameters, runHeadFit } from "@/db/queries/analyses";
+import { runHeadFit } from "@/db/queries/analyses";
 import { saveAnalysisView } from "@/db/queries/analysis-views";
 import { chooseReportView } from "@/db/queries/report-views";
 import { changeJobStatus } from "@/db/queries/job-status";
@@ -20,7 +20,14 @@ import type { HeadFitJson } from "@/geometry";
 import type { Actor } from "@/lib/domain/roles";
 import type { ReportData } from "@/lib/report/types";
 import { pdfFile, pdfImageSizes, pdfText } from "../pdf-tools";
-import { allActors, BASE_JOB, DEMO_PASSWORD, insertTestJob, uploadDemoProbe } from "./fixtures";
+import {
+  allActors,
+  BASE_JOB,
+  DEMO_PASSWORD,
+  insertTestJob,
+  uploadDemoProbe,
+  approveConfirmed,
+} from "./fixtures";
 import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
 const PW = DEMO_PASSWORD;
@@ -59,12 +66,7 @@ beforeAll(async () => {
   await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
   await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
   await changeJobStatus(as.installer!, jobId, "in_review");
-  await approveAnalysis(
-    as.engineer!,
-    analysis.id,
-    PW,
-    (await nonConformingParameters(as.engineer!, analysis.id)).map((p) => p.key),
-  );
+  await approveConfirmed(as.engineer!, analysis.id, PW);
   await carryOpenResults(as.engineer!, jobId, "Within the machine builder's acceptance for this demo head.");
   const saved = await saveAnalysisView(as.engineer!, analysis.id, {
     png: viewPng,

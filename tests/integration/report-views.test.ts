@@ -7,7 +7,7 @@ import { and, desc, eq } from "drizzle-orm";
 import { PNG } from "pngjs";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
+import { runHeadFit } from "@/db/queries/analyses";
 import { saveAnalysisView } from "@/db/queries/analysis-views";
 import { changeJobStatus } from "@/db/queries/job-status";
 import { chooseReportView, reportViewChoices } from "@/db/queries/report-views";
@@ -22,6 +22,7 @@ import type { ReportData } from "@/lib/report/types";
 import { upload } from "./dataset-helpers";
 import { jobBaseOf, carryOpenResults, measureEveryStep } from "./ready-job";
 import { signInAs } from "./helpers";
+import { approveConfirmed } from "./fixtures";
 
 const PW = "trammel-demo";
 const as: Record<string, Actor> = {};
@@ -93,7 +94,7 @@ describe("choosing saved views for the report", () => {
     await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
     await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
     await changeJobStatus(as.installer!, jobId, "in_review");
-    await approveAnalysis(as.engineer!, analysisId, PW);
+    await approveConfirmed(as.engineer!, analysisId, PW);
     await carryOpenResults(as.engineer!, jobId, "Accepted for the test job.");
     const other = await save(otherAnalysisId, 800, 600, "other fit");
     expect((await refusal(chooseReportView(as.engineer!, { viewId: other, include: true }))).message).toMatch(

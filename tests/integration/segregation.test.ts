@@ -7,7 +7,7 @@
 import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it, onTestFinished } from "vitest";
 import { db } from "@/db";
-import { approveAnalysis, nonConformingParameters, runHeadFit } from "@/db/queries/analyses";
+import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
 import { recordReading } from "@/db/queries/readings";
 import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
@@ -25,6 +25,7 @@ import {
   instrumentIdBySerial,
   refusalOf,
   uploadDemoProbe,
+  approveConfirmed,
 } from "./fixtures";
 import { jobBaseOf } from "./ready-job";
 
@@ -131,12 +132,7 @@ describe("one person does not sign both 'performed' and an approval", () => {
     ).toEqual([]);
 
     // Another engineer approves; the one who performed the work still may not issue the report.
-    await approveAnalysis(
-      as.engineer!,
-      analysis.id,
-      PW,
-      (await nonConformingParameters(as.engineer!, analysis.id)).map((p) => p.key),
-    );
+    await approveConfirmed(as.engineer!, analysis.id, PW);
     const issue = await refusalOf(issueReport(asEngineer, { jobId, password: PW }));
     expect(issue?.status).toBe(403);
     expect(issue?.message).toMatch(/signed this work as performed/);
