@@ -494,6 +494,20 @@ export interface ReportInputs {
   records?: ReportRecords;
 }
 
+const METHOD_READINGS = "Indicator readings against the checklist limits";
+const METHOD_FIT =
+  "kinematic fit from sphere-probe data (geometry model stated in the product documentation)";
+
+/**
+ * The method the report states (ISO/IEC 17025:2017 §7.8.2.1 c): what this job did, so a job
+ * without an approved fit does not claim one. Readings are named unless the fit is all there is.
+ */
+function methodOf(i: Pick<ReportInputs, "readings" | "parameters">): string {
+  if (!i.parameters) return METHOD_READINGS;
+  if (!i.readings.rows.length) return METHOD_FIT.charAt(0).toUpperCase() + METHOD_FIT.slice(1);
+  return `${METHOD_READINGS}; ${METHOD_FIT}`;
+}
+
 /** Assembles the report's content and names it by the SHA-256 of its canonical JSON. */
 export function buildReportContent(i: ReportInputs): ReportData {
   const { d, meta } = i;
@@ -536,8 +550,7 @@ export function buildReportContent(i: ReportInputs): ReportData {
       procedure: i.template
         ? `${i.template.name}, version ${i.template.version}`
         : "Checklist as recorded on the job (no procedure version)",
-      method:
-        "Indicator readings against the checklist limits; kinematic fit from sphere-probe data (geometry model stated in the product documentation)",
+      method: methodOf(i),
       decisionRule,
     },
     instruments: i.instruments,

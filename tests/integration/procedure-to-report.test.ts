@@ -275,6 +275,9 @@ describe("a new procedure with a multi-point, a yes/no and a photo step, run end
     expect(res.headers.get("content-type")).toBe("application/pdf");
     const text = pdfText(Buffer.from(await res.arrayBuffer()), true);
     expect(text).toContain(reference);
+    // No sphere-probe data, no fit: the method names the readings only.
+    expect(text).toContain("Method Indicator readings against the checklist limits Decision rule");
+    expect(text).not.toContain("kinematic fit from sphere-probe data");
     for (const s of ["Collar run-out over one turn", "0.012 mm TIR", "Yes", "85 N·m", "0.003 mm"])
       expect(text).toContain(s);
     expect(text).toContain("Appendix: photos kept with the record");

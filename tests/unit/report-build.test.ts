@@ -6,6 +6,7 @@ import { describe, expect, it } from "vitest";
 import type { HeadFitJson } from "@/geometry";
 import { canonicalJson } from "@/lib/canonical-json";
 import { amendRefusal } from "@/lib/policy/reports";
+import type { ReportData } from "@/lib/report/types";
 import {
   buildReportContent,
   conformityStatement,
@@ -245,7 +246,7 @@ describe("buildReportContent", () => {
     meaning: "approved",
     signedAt: new Date("2026-03-03T08:00:00Z"),
   });
-  const data = buildReportContent({
+  const input: Parameters<typeof buildReportContent>[0] = {
     meta: {
       reportId: "r1",
       revision: 2,
@@ -265,7 +266,8 @@ describe("buildReportContent", () => {
     deviations: [],
     verifyUrl: "https://example.test/verify/r1",
     issuer: { name: "Issuer Ltd", address: "1 Road" },
-  });
+  };
+  const data = buildReportContent(input);
   it("prints the issuer as the settings give it, not a fixed name (ISO/IEC 17025:2017 §7.8.2.1 b)", () => {
     expect(data.issuer).toEqual({ name: "Issuer Ltd", address: "1 Road" });
   });
@@ -280,6 +282,18 @@ describe("buildReportContent", () => {
     expect(data.work.decisionRule).toContain("ISO 14253-1");
     expect(data.work.airTemperature).toBe("20.5 °C air temperature as entered");
     expect(data.charts).toEqual({});
+  });
+  it("states as its method only what the job did: no kinematic fit without one (ISO/IEC 17025:2017 §7.8.2.1 c)", () => {
+    const fit = { rows: [], note: "fit", charts: {} };
+    const withRow = { rows: [{ step: "Run-out" } as ReportData["readings"][number]], chart: [] };
+    expect(data.work.method).toBe("Indicator readings against the checklist limits");
+    expect(buildReportContent({ ...input, readings: withRow }).work.method).not.toMatch(/fit/);
+    expect(buildReportContent({ ...input, parameters: fit }).work.method).toMatch(
+      /^Kinematic fit from sphere-probe data/,
+    );
+    expect(buildReportContent({ ...input, readings: withRow, parameters: fit }).work.method).toBe(
+      "Indicator readings against the checklist limits; kinematic fit from sphere-probe data (geometry model stated in the product documentation)",
+    );
   });
   it("captions a figure with who saved it and the caption as plain text", () => {
     const f = figureOf({
