@@ -26,7 +26,7 @@ describe("registers (administrator)", () => {
     await p.getByLabel("Serial").fill(serial);
     await p.getByLabel("Resolution").fill("0.0001");
     await p.getByLabel("Standard uncertainty (k = 1)").fill("0.00005");
-    await p.getByLabel("Unit of both").selectOption("in");
+    await p.getByLabel("Unit of these numbers").selectOption("in");
     await p.getByRole("button", { name: "Add instrument" }).click();
     await expect.poll(() => p.locator('[data-error-for="calibrationDueOn"]').innerText()).not.toBe("");
     await p.getByLabel("Calibration due").fill("2027-11-30");
