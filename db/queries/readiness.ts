@@ -18,6 +18,7 @@ import { issuerDetailsMissing } from "@/lib/policy/issuer";
 import { deviationRefusal } from "@/lib/policy/reports";
 import { reportDecision } from "@/lib/report/build";
 import {
+  carriedCount,
   nonConformingResults,
   parameterSubject,
   readiness,
@@ -178,6 +179,19 @@ export async function getReadinessView(actor: Actor, jobId: string) {
       .filter((s) => (s.manifest as SignatureManifest).stateSha256 !== input.currentStateSha256)
       .map((s) => s.id),
   };
+}
+
+/**
+ * How many of the job's FAIL or undecided results are carried by a deviation recorded for that
+ * same result: what the statement of conformity counts (a deviation left over from a result that
+ * has since been measured again, or recorded for another result, carries nothing).
+ */
+export async function carriedResultCount(actor: Actor, d: JobDetail): Promise<number> {
+  const [input, carried] = await Promise.all([readinessInput(actor, d), listDeviations(d.job.id)]);
+  return carriedCount(
+    nonConformingResults(input),
+    carried.map((c) => c.subject),
+  );
 }
 
 /** Deviations recorded on a job, oldest first (the job's access is the caller's to check). */

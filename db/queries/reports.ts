@@ -8,7 +8,7 @@ import { getComparison } from "@/db/queries/readings";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
 import { reportFigureViews } from "@/db/queries/report-views";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
-import { countingTestPart, listDeviations, readinessInput } from "@/db/queries/readiness";
+import { carriedResultCount, countingTestPart, listDeviations, readinessInput } from "@/db/queries/readiness";
 import {
   jobStateSha256,
   manifestFor,
@@ -125,23 +125,34 @@ export async function buildReportData(
   d: JobDetail,
   meta: ReportInputs["meta"],
 ): Promise<{ data: ReportData; images: Map<string, Buffer> }> {
-  const [sigs, state, params, comparison, template, instrumentList, testPart, carried, recordsBase] =
-    await Promise.all([
-      preIssueSignatures(d.job.id),
-      jobStateSha256(d.job.id),
-      approvedParameters(actor, d),
-      getComparison(actor, d.job.id),
-      d.job.templateId
-        ? db
-            .select({ name: procedureTemplates.name, version: procedureTemplates.version })
-            .from(procedureTemplates)
-            .where(eq(procedureTemplates.id, d.job.templateId))
-        : Promise.resolve([]),
-      jobInstruments(d.job.id),
-      jobTestPart(actor, d.job.id, d.job.decisionRule),
-      listDeviations(d.job.id),
-      recordsInputOf(d),
-    ]);
+  const [
+    sigs,
+    state,
+    params,
+    comparison,
+    template,
+    instrumentList,
+    testPart,
+    carried,
+    recordsBase,
+    carriedCount,
+  ] = await Promise.all([
+    preIssueSignatures(d.job.id),
+    jobStateSha256(d.job.id),
+    approvedParameters(actor, d),
+    getComparison(actor, d.job.id),
+    d.job.templateId
+      ? db
+          .select({ name: procedureTemplates.name, version: procedureTemplates.version })
+          .from(procedureTemplates)
+          .where(eq(procedureTemplates.id, d.job.templateId))
+      : Promise.resolve([]),
+    jobInstruments(d.job.id),
+    jobTestPart(actor, d.job.id, d.job.decisionRule),
+    listDeviations(d.job.id),
+    recordsInputOf(d),
+    carriedResultCount(actor, d),
+  ]);
   // The saved 3D views the engineer ticked for the report, of the approved fit and large enough
   // (lib/report/view-choice; the job's access was checked above).
   const images = new Map<string, Buffer>();
@@ -193,6 +204,7 @@ export async function buildReportData(
       .filter((s) => (s.manifest as SignatureManifest).stateSha256 === state)
       .map(signatureLine),
     deviations: carried,
+    carried: carriedCount,
     verifyUrl: `${publicUrl}/verify/${meta.reportId}`,
   });
   return { data, images };
@@ -221,7 +233,7 @@ export async function getJobConformity(
     approvedParameters(actor, d),
     getComparison(actor, d.job.id),
     jobTestPart(actor, d.job.id, d.job.decisionRule),
-    listDeviations(d.job.id),
+    carriedResultCount(actor, d),
   ]);
   return {
     conformity: reportConformity(
@@ -229,7 +241,7 @@ export async function getJobConformity(
         readings: readingSection(comparison?.rows ?? []),
         parameters: params?.section ?? null,
         testPart,
-        deviations: carried,
+        carried,
       },
       d.job.decisionRule,
     ),

@@ -415,7 +415,8 @@ const NOT_CONFORMING: ReadonlySet<Decision> = new Set(["fail", "undecided"]);
  */
 export function conformityStatement(
   decisions: readonly Decision[],
-  deviationCount: number,
+  /** How many of the FAIL or undecided results a deviation recorded for that same result carries. */
+  carried: number,
   decisionRule: string,
 ): NonNullable<ReportData["conformity"]> {
   const judged = decisions.filter((x) => x !== "recorded" && x !== "not_measured");
@@ -427,7 +428,7 @@ export function conformityStatement(
       verdict: "conforms",
       text: `Conforms: all ${judged.length} judged results are within their limits. Decision rule: ${decisionRule}.`,
     };
-  if (deviationCount >= open)
+  if (carried >= open)
     return {
       verdict: "conforms_with_deviations",
       text: `Conforms with the listed deviations accepted: ${open} of ${judged.length} judged results are outside their limits or undecided and are carried as deviations (section 8). Decision rule: ${decisionRule}.`,
@@ -443,7 +444,7 @@ export function conformityStatement(
  * recorded deviations: one function for the issued report and the job's overview page.
  */
 export function reportConformity(
-  i: Pick<ReportInputs, "readings" | "parameters" | "testPart" | "deviations">,
+  i: Pick<ReportInputs, "readings" | "parameters" | "testPart" | "carried">,
   rule: string,
 ): NonNullable<ReportData["conformity"]> {
   const decisions = [
@@ -451,7 +452,7 @@ export function reportConformity(
     ...(i.parameters?.rows ?? []).map((r) => r.decision),
     ...i.testPart.map((r) => r.decision),
   ];
-  return conformityStatement(decisions, i.deviations.length, decisionRuleText(rule));
+  return conformityStatement(decisions, i.carried, decisionRuleText(rule));
 }
 
 export function deviationRows(list: readonly DeviationInput[]): NonNullable<ReportData["deviations"]> {
@@ -487,6 +488,12 @@ export interface ReportInputs {
   /** Pre-issue signatures, oldest first. */
   signatures: ReportSignature[];
   deviations: readonly DeviationInput[];
+  /**
+   * How many of the job's FAIL or undecided results are carried by a deviation recorded for that
+   * same result (matched by subject, db/queries/readiness.carriedResultCount): a deviation for
+   * another result, or for one measured again since, carries nothing.
+   */
+  carried: number;
   verifyUrl: string;
   /** The issuer as the settings held it at issue (lib/report/sections/records for the rest). */
   issuer: ReportData["issuer"];

@@ -119,6 +119,19 @@ export function nonConformingResults(
   return [...steps, ...input.results.filter((r) => NOT_CONFORMING.has(r.decision))];
 }
 
+/**
+ * How many FAIL or undecided results a recorded deviation carries: only a deviation recorded for
+ * that same result (its subject) counts; one left over from a result measured again since, or
+ * recorded for another result, carries nothing. What the statement of conformity counts.
+ */
+export function carriedCount(
+  results: readonly Pick<JudgedResult, "subject">[],
+  deviationSubjects: readonly string[],
+): number {
+  const subjects = new Set(deviationSubjects);
+  return results.filter((r) => subjects.has(r.subject)).length;
+}
+
 export function readiness(input: ReadinessInput): Readiness {
   const job = `/jobs/${input.jobId}`;
   const blockers: Blocker[] = [];

@@ -4,7 +4,7 @@
 // vouches for is measured, traceable (§7.8.4.1 / §6.5, instruments in calibration), signed and
 // either conforming or declared as a deviation (§7.8.2.1 p: deviations from the method).
 import { describe, expect, it } from "vitest";
-import { countingPhase, readiness, type ReadinessInput } from "@/lib/report/readiness";
+import { carriedCount, countingPhase, readiness, type ReadinessInput } from "@/lib/report/readiness";
 
 const ok = { decision: "pass" as const, instrumentSerial: "DTI-1" };
 function ready(): ReadinessInput {
@@ -118,5 +118,20 @@ describe("readiness", () => {
     expect(b[1]!.message).toContain("undecided");
     i.deviationSubjects = ["step:s1", "test_part:d9:1"];
     expect(readiness(i).ready).toBe(true);
+  });
+});
+
+// ISO/IEC 17025:2017 §7.8.6.1: the statement of conformity says "conforms with the listed
+// deviations" only when every FAIL or undecided result is itself carried; a count of deviations is
+// not enough (one may belong to a result measured again since, or to another result).
+describe("carriedCount", () => {
+  const open = [{ subject: "step:a" }, { subject: "parameter:pivot_length_error_um" }];
+  it("counts a deviation only for the result it was recorded for", () => {
+    expect(carriedCount(open, ["step:a"])).toBe(1);
+    expect(carriedCount(open, ["step:a", "parameter:pivot_length_error_um"])).toBe(2);
+  });
+  it("carries nothing with a deviation left over from another result", () => {
+    // Two deviations, two open results, but neither deviation names an open result.
+    expect(carriedCount(open, ["step:b", "test_part:x:1"])).toBe(0);
   });
 });

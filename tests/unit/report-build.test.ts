@@ -264,6 +264,7 @@ describe("buildReportContent", () => {
     figures: [],
     signatures: [],
     deviations: [],
+    carried: 0,
     verifyUrl: "https://example.test/verify/r1",
     issuer: { name: "Issuer Ltd", address: "1 Road" },
   };
