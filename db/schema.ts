@@ -27,6 +27,7 @@ import {
 // Relative imports: drizzle-kit loads this file without the app's path alias.
 import { DATASET_KINDS, DATASET_STATUSES, PHASES } from "../lib/domain/datasets";
 import { DECISION_RULES } from "../lib/domain/decisions";
+import { CONTROL_VALUE_STAGES, type ControlValueSet } from "../lib/domain/control-values";
 import { AXIS_LETTERS } from "../lib/domain/heads";
 import { JOB_KINDS, JOB_STATUSES } from "../lib/domain/jobs";
 import { ROLES } from "../lib/domain/roles";
@@ -654,3 +655,31 @@ export const deviations = pgTable(
   (t) => [uniqueIndex("deviations_subject_idx").on(t.jobId, t.subject)],
 );
 export type Deviation = typeof deviations.$inferSelect;
+
+export const controlValueStageEnum = pgEnum("control_value_stage", CONTROL_VALUE_STAGES);
+
+/**
+ * The control's kinematic values for a job's head, as found before the adjustment and as left
+ * after it (lib/domain/control-values: lengths in mm, angles in degrees, whatever the control's
+ * units). `unit_system` is the control's, so the values are shown as the control holds them. An
+ * as-left record names the approved analysis its values to enter were computed from. Written once;
+ * a correction is a new row and the newest of a stage is the current one.
+ */
+export const controlValueRecords = pgTable(
+  "control_value_records",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    stage: controlValueStageEnum("stage").notNull(),
+    unitSystem: unitSystemEnum("unit_system").notNull(),
+    values: jsonb("values").$type<ControlValueSet>().notNull(),
+    analysisId: uuid("analysis_id").references(() => analyses.id, { onDelete: "restrict" }),
+    note: text("note"),
+    recordedById: uuid("recorded_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("control_value_records_job_idx").on(t.jobId, t.stage, t.createdAt)],
+);
+export type ControlValueRecord = typeof controlValueRecords.$inferSelect;

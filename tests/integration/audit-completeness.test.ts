@@ -256,6 +256,7 @@ const AUDITED_TABLES = [
   "signatures",
   "reports",
   "deviations",
+  "controlValueRecords",
 ];
 const WRITE = new RegExp(`\\.(insert|update|delete)\\((${AUDITED_TABLES.join("|")})\\)`, "g");
 
