@@ -3,6 +3,7 @@
  * (mm or in for lengths, degrees for angles). Unknown keys are refused by name, never dropped.
  */
 import { z } from "zod";
+import { zUuid } from "@/lib/domain/uuid";
 import { CONTROL_VALUE_DEFS, CONTROL_VALUE_STAGES, type ControlValueKey } from "@/lib/domain/control-values";
 
 /** Largest magnitude accepted: a length of 2 m (a pivot longer than any head) or a full turn. */
@@ -48,3 +49,42 @@ export const controlValuesRecordSchema = z
     }
   });
 export type ControlValuesRecordInput = z.infer<typeof controlValuesRecordSchema>;
+
+const optionalNumber = (label: string) =>
+  z.preprocess((v) => (typeof v === "string" && v.trim() === "" ? undefined : v), number(label).optional());
+
+/**
+ * The page's form: one flat field per control value (empty = not recorded), turned into the same
+ * record the API takes, so both paths check the same ranges.
+ */
+export const controlValuesFormSchema = z
+  .object({
+    jobId: zUuid("No such job."),
+    stage: z.enum(CONTROL_VALUE_STAGES, { message: "Say whether these are the values as found or as left." }),
+    unitSystem: z.enum(["metric", "inch"], { message: "Say whether the control works in mm or in inch." }),
+    note: z.string().trim().max(2000, "At most 2000 characters.").optional(),
+    ...(Object.fromEntries(CONTROL_VALUE_DEFS.map((d) => [d.key, optionalNumber(d.label)])) as Record<
+      ControlValueKey,
+      ReturnType<typeof optionalNumber>
+    >),
+  })
+  .transform((f, ctx) => {
+    const values = Object.fromEntries(
+      CONTROL_VALUE_DEFS.flatMap((d) => (f[d.key] === undefined ? [] : [[d.key, f[d.key]]])),
+    );
+    const parsed = controlValuesRecordSchema.safeParse({
+      stage: f.stage,
+      unitSystem: f.unitSystem,
+      values,
+      note: f.note,
+    });
+    if (parsed.success) return { jobId: f.jobId, record: parsed.data };
+    // Report each problem on the form's own field (values.pivot_length_mm → pivot_length_mm).
+    for (const i of parsed.error.issues)
+      ctx.addIssue({
+        code: "custom",
+        path: i.path[0] === "values" && i.path.length > 1 ? [i.path[1]!] : i.path,
+        message: i.path.length === 1 && i.path[0] === "values" ? "Enter at least one value." : i.message,
+      });
+    return z.NEVER;
+  });

@@ -32,6 +32,7 @@ const registers = await import("@/app/(app)/registers/actions");
 const setPassword = await import("@/app/(auth)/set-password/actions");
 const people = await import("@/app/(app)/registers/people/actions");
 const forgotPassword = await import("@/app/(auth)/forgot-password/actions");
+const control = await import("@/app/(app)/jobs/[id]/control/actions");
 
 type Who =
   | "anonymous"
@@ -261,6 +262,19 @@ MATRIX.approveFitAction = {
     await signInAs(EMAIL[who]);
     return analysis.approveFitAction({ jobId, analysisId: a.id, password: PW });
   },
+};
+
+MATRIX.recordControlValuesAction = {
+  // The control's values are the application engineer's to record, refused to anyone else before
+  // the job is looked up (so another tenant's customer is refused, not told the job is missing).
+  expect: staffOnly(["engineer"]),
+  call: async () =>
+    control.recordControlValuesAction({
+      jobId: await freshJob("measuring"),
+      stage: "as_found",
+      unitSystem: "metric",
+      pivot_length_mm: "152.4",
+    }),
 };
 
 // ---- registers: the administrator's. An empty form passes the door for the admin and is then
