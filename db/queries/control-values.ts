@@ -25,6 +25,7 @@ import {
   controlValuesRecorderRefusal,
   controlValuesWriteRefusal,
 } from "@/lib/policy/control-values";
+import { controlValuesSection } from "@/lib/report/sections/control";
 import type { ControlValuesRecordInput } from "@/lib/validations/control-values";
 
 export interface ControlRecordMeta {
@@ -187,4 +188,16 @@ export function controlValuesJson(c: JobControlValues) {
     rows: c.loop.rows,
     flagged: c.loop.flagged.map((r) => ({ key: r.key, flag: r.flag, difference: r.difference })),
   };
+}
+
+/** The report's control-values section for a job whose access the report's query has checked. */
+export async function reportControlValues(actor: Actor, jobId: string, status: JobStatus) {
+  const c = await controlValuesOfJob(actor, jobId, status);
+  return controlValuesSection({
+    loop: c.loop,
+    asFound: c.asFound,
+    asLeft: c.asLeft,
+    approved: c.approved,
+    asLeftStale: c.asLeftStale,
+  });
 }

@@ -6,6 +6,7 @@ import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
 import { getComparison } from "@/db/queries/readings";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
+import { reportControlValues } from "@/db/queries/control-values";
 import { latestJobView } from "@/db/queries/analysis-views";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
 import { countingTestPart, listDeviations, readinessInput } from "@/db/queries/readiness";
@@ -152,6 +153,7 @@ export async function buildReportData(
       .map(signatureLine),
     deviations: carried,
     verifyUrl: `${publicUrl}/verify/${meta.reportId}`,
+    controlValues: await reportControlValues(actor, d.job.id, d.job.status),
   });
   return { data, images };
 }

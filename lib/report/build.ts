@@ -407,6 +407,8 @@ export interface ReportInputs {
   signatures: ReportSignature[];
   deviations: readonly DeviationInput[];
   verifyUrl: string;
+  /** lib/report/sections/control.ts; null or absent when no control values were recorded. */
+  controlValues?: ReportData["controlValues"] | null;
 }
 
 /** Assembles the report's content and names it by the SHA-256 of its canonical JSON. */
@@ -466,6 +468,7 @@ export function buildReportContent(i: ReportInputs): ReportData {
     },
     conformity: reportConformity(i, d.job.decisionRule),
     deviations: deviationRows(i.deviations),
+    ...(i.controlValues ? { controlValues: i.controlValues } : {}),
     remarks: [...(i.parameters ? [i.parameters.note] : []), ...(d.job.notes ? [d.job.notes] : [])],
     safety: [...SAFETY_NOTES],
     signatures: meta.draft || !meta.approval ? [] : [...i.signatures, meta.approval],

@@ -23,6 +23,7 @@ import type { Decision, ReportData } from "./types";
 import { BODY_FONT, MONO_FONT } from "./fonts";
 import { parameterChartRows, readingRows } from "./chart-data";
 import { LimitRowsChart, ResidualsChart } from "./charts";
+import { ControlValuesPdf } from "./sections/control-pdf";
 
 const C = {
   ink: palette.graphite[900],
@@ -483,6 +484,8 @@ export function ReportDocument({
               </View>
             ))}
           </View>
+
+          <ControlValuesPdf section={data.controlValues} />
 
           <Text style={s.h2} minPresenceAhead={40}>
             6 Test part

@@ -5,6 +5,7 @@
  * always say the same thing.
  */
 import type { RecordedDecision } from "@/lib/domain/decisions";
+import type { ReportControlValues } from "@/lib/report/sections/control";
 
 /** geometry's decision, or "not_measured", or "recorded": a reading kept without a limit to judge it against. */
 export type Decision = RecordedDecision;
@@ -102,6 +103,8 @@ export interface ReportData {
     approvedBy: string;
     recordedAtUtc: string;
   }>;
+  /** The control's values as found, to enter and as left; absent when none were recorded. */
+  controlValues?: ReportControlValues;
   remarks: string[];
   safety: string[];
   signatures: ReportSignature[];

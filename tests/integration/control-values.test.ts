@@ -9,7 +9,7 @@ import { GET as getRoute, PUT as putRoute } from "@/app/api/jobs/[id]/control-va
 import { db } from "@/db";
 import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
 import { changeJobStatus, createJobFromTemplate } from "@/db/queries/job-status";
-import { issueReport } from "@/db/queries/reports";
+import { getReportContent, issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
@@ -253,7 +253,16 @@ describe("one job through the control loop", () => {
     expect(refused).toMatch(/immutable/);
 
     await carryOpenResults(as.engineer!, ids.flow, "Carried for this test of the control loop.");
-    await issueReport(as.engineer!, { jobId: ids.flow, password: PW });
+    const { reportId } = await issueReport(as.engineer!, { jobId: ids.flow, password: PW });
+    // The issued report prints the loop with the flag (its content is what was signed).
+    const content = await getReportContent(as.engineer!, reportId);
+    expect(content?.controlValues?.flagged).toBe(1);
+    expect(content?.controlValues?.rows.map((r) => r.setting)).toEqual([
+      "Pivot length (tilt axis to gauge point)",
+      "Primary axis zero offset",
+      "Tilt axis zero offset",
+    ]);
+    expect(content?.controlValues?.rows[2]!.check).toMatch(/^Differs from the value to enter/);
     const fixed = await put(ids.flow, { ...asFoundBody, stage: "as_found" });
     expect(fixed.status).toBe(409);
     expect((await fixed.json()).error.message).toMatch(/issued/);
