@@ -304,6 +304,11 @@ export const procedureTemplates = pgTable(
     version: integer("version").notNull(),
     description: text("description"),
     isCurrent: boolean("is_current").notNull().default(true),
+    /** The procedure asks for a tool-centre-point check after compensation before the report is issued. */
+    tcpCheckRequired: boolean("tcp_check_required").notNull().default(false),
+    /** TCP-check limits, µm (null = recorded, not judged): range of x, y and z each, and distance from the mean centre. */
+    tcpRangeLimitUm: doublePrecision("tcp_range_limit_um"),
+    tcpDeviationLimitUm: doublePrecision("tcp_deviation_limit_um"),
     createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
     ...timestamps,
   },

@@ -1,4 +1,5 @@
 CREATE TYPE "public"."control_value_stage" AS ENUM('as_found', 'as_left');--> statement-breakpoint
+ALTER TYPE "public"."dataset_kind" ADD VALUE 'tcp_check';--> statement-breakpoint
 CREATE TABLE "control_value_records" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"job_id" uuid NOT NULL,
@@ -11,6 +12,9 @@ CREATE TABLE "control_value_records" (
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL
 );
 --> statement-breakpoint
+ALTER TABLE "procedure_templates" ADD COLUMN "tcp_check_required" boolean DEFAULT false NOT NULL;--> statement-breakpoint
+ALTER TABLE "procedure_templates" ADD COLUMN "tcp_range_limit_um" double precision;--> statement-breakpoint
+ALTER TABLE "procedure_templates" ADD COLUMN "tcp_deviation_limit_um" double precision;--> statement-breakpoint
 ALTER TABLE "control_value_records" ADD CONSTRAINT "control_value_records_job_id_jobs_id_fk" FOREIGN KEY ("job_id") REFERENCES "public"."jobs"("id") ON DELETE restrict ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "control_value_records" ADD CONSTRAINT "control_value_records_analysis_id_analyses_id_fk" FOREIGN KEY ("analysis_id") REFERENCES "public"."analyses"("id") ON DELETE restrict ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "control_value_records" ADD CONSTRAINT "control_value_records_recorded_by_id_users_id_fk" FOREIGN KEY ("recorded_by_id") REFERENCES "public"."users"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint

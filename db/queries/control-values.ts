@@ -10,7 +10,7 @@ import { db } from "@/db";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
 import { appendAudit } from "@/db/queries/audit";
 import { getJobDetail } from "@/db/queries/jobs";
-import { controlValueRecords, jobs, users } from "@/db/schema";
+import { controlValueRecords, datasets, jobs, procedureTemplates, users } from "@/db/schema";
 import { controlLoop, toControlCanonical, type ControlUnitSystem } from "@/lib/control-values";
 import {
   CONTROL_VALUE_DEFS,
@@ -26,6 +26,7 @@ import {
   controlValuesWriteRefusal,
 } from "@/lib/policy/control-values";
 import { controlValuesSection } from "@/lib/report/sections/control";
+import { judgeTcpCheck, type TcpCheckSummary, type TcpLimits } from "@/lib/tcp-check-display";
 import type { ControlValuesRecordInput } from "@/lib/validations/control-values";
 
 export interface ControlRecordMeta {
@@ -191,9 +192,16 @@ export function controlValuesJson(c: JobControlValues) {
 }
 
 /** The report's control-values section for a job whose access the report's query has checked. */
-export async function reportControlValues(actor: Actor, jobId: string, status: JobStatus) {
-  const c = await controlValuesOfJob(actor, jobId, status);
+export async function reportControlValues(
+  actor: Actor,
+  job: { id: string; status: JobStatus; templateId: string | null },
+) {
+  const [c, tcp] = await Promise.all([
+    controlValuesOfJob(actor, job.id, job.status),
+    jobTcpChecks(job.id, job.templateId),
+  ]);
   return controlValuesSection({
+    tcp: tcp.checks[0] ?? null,
     loop: c.loop,
     asFound: c.asFound,
     asLeft: c.asLeft,
@@ -201,3 +209,41 @@ export async function reportControlValues(actor: Actor, jobId: string, status: J
     asLeftStale: c.asLeftStale,
   });
 }
+
+/**
+ * The job's tool-centre-point checks, newest first, each judged against its procedure's limits
+ * (no access check: callers have checked the job).
+ */
+export async function jobTcpChecks(jobId: string, templateId: string | null) {
+  const [template] = templateId
+    ? await db
+        .select({
+          required: procedureTemplates.tcpCheckRequired,
+          rangeLimitUm: procedureTemplates.tcpRangeLimitUm,
+          deviationLimitUm: procedureTemplates.tcpDeviationLimitUm,
+        })
+        .from(procedureTemplates)
+        .where(eq(procedureTemplates.id, templateId))
+    : [];
+  const limits: TcpLimits = template ?? { required: false, rangeLimitUm: null, deviationLimitUm: null };
+  const rows = await db
+    .select({
+      id: datasets.id,
+      filename: datasets.originalFilename,
+      phase: datasets.phase,
+      uploadedAt: datasets.uploadedAt,
+      summary: datasets.summary,
+    })
+    .from(datasets)
+    .where(and(eq(datasets.jobId, jobId), eq(datasets.kind, "tcp_check"), eq(datasets.status, "stored")))
+    .orderBy(desc(datasets.uploadedAt), desc(datasets.id));
+  const checks = rows.map((r) => ({
+    datasetId: r.id,
+    filename: r.filename,
+    phase: r.phase,
+    uploadedAt: r.uploadedAt,
+    view: judgeTcpCheck((r.summary as { tcp: TcpCheckSummary }).tcp, limits),
+  }));
+  return { limits, checks };
+}
+export type JobTcpChecks = Awaited<ReturnType<typeof jobTcpChecks>>;

@@ -153,7 +153,7 @@ export async function buildReportData(
       .map(signatureLine),
     deviations: carried,
     verifyUrl: `${publicUrl}/verify/${meta.reportId}`,
-    controlValues: await reportControlValues(actor, d.job.id, d.job.status),
+    controlValues: await reportControlValues(actor, d.job),
   });
   return { data, images };
 }

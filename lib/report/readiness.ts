@@ -11,6 +11,8 @@
  *   parameters) is present in the phase that counts and evaluated; every test part is evaluated.
  * - The fit is approved; the "performed" and "inspected" signatures are present and still match
  *   the job's recorded state (a later reading or dataset makes them stale).
+ * - A procedure that asks for a tool-centre-point check after compensation has one stored; its
+ *   latest check is judged like any other result (FAIL: check again, or carry it as a deviation).
  * - Every FAIL or undecided result is either measured again and passing (the current reading or
  *   fit is what is judged) or carried as a deviation with a written justification.
  */
@@ -28,6 +30,7 @@ export const BLOCKER_CODES = [
   "signature_missing",
   "signature_stale",
   "result_not_conforming",
+  "tcp_check_missing",
 ] as const;
 export type BlockerCode = (typeof BLOCKER_CODES)[number];
 
@@ -80,6 +83,8 @@ export interface ReadinessInput {
   currentStateSha256: string;
   /** Subjects carried as deviations. */
   deviationSubjects: readonly string[];
+  /** The procedure asks for a TCP check, and the latest stored one (its judged result is in `results`). */
+  tcpCheck?: { required: boolean; latest: { datasetId: string; filename: string } | null };
 }
 
 /** The phase whose state the report vouches for. */
@@ -168,6 +173,13 @@ export function readiness(input: ReadinessInput): Readiness {
         `${job}/analysis`,
       );
   }
+
+  if (input.tcpCheck?.required && !input.tcpCheck.latest)
+    add(
+      "tcp_check_missing",
+      "The procedure asks for a tool-centre-point check after the new values are entered in the control; none is stored.",
+      `${job}/control`,
+    );
 
   for (const meaning of ["performed", "inspected"] as const) {
     const given = input.signatures.filter((s) => s.meaning === meaning);

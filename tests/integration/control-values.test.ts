@@ -13,7 +13,9 @@ import { getReportContent, issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { auditEvents, controlValueRecords } from "@/db/schema";
+import { auditEvents, controlValueRecords, jobs, procedureTemplates } from "@/db/schema";
+import { demoTcpCheckCsv } from "@/db/seed-control";
+import { getReadiness } from "@/db/queries/readiness";
 import type { Actor } from "@/lib/domain/roles";
 import { upload } from "./dataset-helpers";
 import { jobIdByReference, request, signInAs } from "./helpers";
@@ -269,4 +271,89 @@ describe("one job through the control loop", () => {
     const after = await (await get(ids.flow)).json();
     expect(after.asLeft.id).toBe(l.asLeft.id);
   }, 120_000);
+});
+
+describe("a procedure that asks for a tool-centre-point check", () => {
+  it("blocks issue until a TCP check is stored, takes it after approval, and reports it", async () => {
+    // A procedure version of our own (no steps) that requires the check, limits 15 µm / 10 µm.
+    const [t] = await db
+      .insert(procedureTemplates)
+      .values({
+        name: `TCP check procedure ${Date.now().toString(36)}`,
+        version: 1,
+        tcpCheckRequired: true,
+        tcpRangeLimitUm: 15,
+        tcpDeviationLimitUm: 10,
+      })
+      .returning();
+    const base = await jobBaseOf("TR-2026-0052");
+    const [job] = await db
+      .insert(jobs)
+      .values({
+        reference: `TR-TCP-${Date.now().toString(36)}`,
+        title: "TCP check job",
+        kind: "after_crash",
+        status: "approved",
+        customerId: base.customerId,
+        machineId: base.machineId,
+        headId: base.headId,
+        templateId: t!.id,
+        assignedInstallerId: as.installer!.id,
+      })
+      .returning();
+    const jobId = job!.id;
+    const sign = async () => {
+      await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
+      await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
+    };
+    await sign();
+    const before = await getReadiness(as.engineer!, jobId);
+    expect(before!.blockers.map((b) => b.code)).toEqual(["tcp_check_missing"]);
+    const refused = await issueReport(as.engineer!, { jobId, password: PW }).then(
+      () => "issued",
+      (e: { status?: number; code?: string }) => `${e.status} ${e.code}`,
+    );
+    expect(refused).toBe("409 not_ready");
+
+    // After approval the job takes a TCP check, and nothing else.
+    await signInAs("installer@halvard.example");
+    const probe = await upload(
+      jobId,
+      Buffer.from(demoSphereProbeCsv()),
+      { kind: "sphere_probe", phase: "post", units: "mm" },
+      "late-probe.csv",
+    );
+    expect(probe.status).toBe(409);
+    const up = await upload(
+      jobId,
+      Buffer.from(demoTcpCheckCsv()),
+      { kind: "tcp_check", phase: "post", units: "mm" },
+      "tcp-after.csv",
+    );
+    expect(up.status).toBe(201);
+    // The new data makes the work signatures stale: performed and inspected are signed again.
+    expect((await getReadiness(as.engineer!, jobId))!.blockers.map((b) => b.code)).toEqual([
+      "signature_stale",
+      "signature_stale",
+    ]);
+    await sign();
+    expect((await getReadiness(as.engineer!, jobId))!.ready).toBe(true);
+    const { reportId } = await issueReport(as.engineer!, { jobId, password: PW });
+    const content = await getReportContent(as.engineer!, reportId);
+    expect(content?.controlValues?.tcpCheck?.decision).toBe("pass");
+    expect(content?.controlValues?.tcpCheck?.rows).toHaveLength(4);
+    expect(content?.controlValues?.tcpCheck?.file).toBe("tcp-after.csv");
+  }, 60_000);
+
+  it("refuses a TCP check with every row at one pose, naming what is missing", async () => {
+    await signInAs("installer@halvard.example");
+    const res = await upload(
+      ids.marlow,
+      Buffer.from("primary_deg,secondary_deg,x,y,z\n0,0,1,2,3\n0,0,1,2,3.001\n"),
+      { kind: "tcp_check", phase: "post", units: "mm" },
+      "one-pose.csv",
+    );
+    expect(res.status).toBe(422);
+    expect(JSON.stringify(await res.json())).toMatch(/pose/);
+  });
 });

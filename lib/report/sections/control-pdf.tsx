@@ -40,6 +40,21 @@ const COLS = [
   ["Check", "18%"],
 ] as const;
 
+const TCP_COLS = [
+  ["Figure", "52%"],
+  ["Value", "16%"],
+  ["Limit", "16%"],
+  ["Result", "16%"],
+] as const;
+
+export const TCP_DECISION: Record<string, string> = {
+  pass: "Pass",
+  fail: "FAIL",
+  undecided: "Undecided",
+  recorded: "Recorded",
+  not_measured: "Not measured",
+};
+
 export function ControlValuesPdf({ section }: { section: ReportControlValues | undefined }) {
   if (!section) return null;
   return (
@@ -48,6 +63,7 @@ export function ControlValuesPdf({ section }: { section: ReportControlValues | u
         5.1 Values for the control: as found, to enter, as left
       </Text>
       <Text style={s.muted}>{section.basis}</Text>
+      {section.rows.length === 0 ? <Text style={s.muted}>No control values were recorded.</Text> : null}
       <View style={s.table}>
         <View style={[s.tr, s.th]} fixed>
           {COLS.map(([h, w]) => (
@@ -76,6 +92,34 @@ export function ControlValuesPdf({ section }: { section: ReportControlValues | u
       <View style={s.note} wrap={false}>
         <Text>⚠ {section.caution}</Text>
       </View>
+      {section.tcpCheck ? (
+        <View wrap={false}>
+          <Text style={s.h2}>5.2 Tool-centre-point check after compensation</Text>
+          <Text style={s.muted}>
+            {section.tcpCheck.file}: {section.tcpCheck.basis} Result:{" "}
+            {TCP_DECISION[section.tcpCheck.decision]}.
+          </Text>
+          <View style={s.table}>
+            <View style={[s.tr, s.th]}>
+              {TCP_COLS.map(([h, w]) => (
+                <Text key={h} style={[s.td, { width: w }]}>
+                  {h}
+                </Text>
+              ))}
+            </View>
+            {section.tcpCheck.rows.map((r) => (
+              <View key={r.quantity} style={s.tr}>
+                <Text style={[s.td, { width: TCP_COLS[0][1] }]}>{r.quantity}</Text>
+                <Text style={[s.td, s.num, { width: TCP_COLS[1][1] }]}>{r.value}</Text>
+                <Text style={[s.td, s.num, { width: TCP_COLS[2][1] }]}>{r.limit}</Text>
+                <Text style={[s.td, { width: TCP_COLS[3][1] }, r.decision === "fail" ? s.flag : {}]}>
+                  {TCP_DECISION[r.decision]}
+                </Text>
+              </View>
+            ))}
+          </View>
+        </View>
+      ) : null}
     </View>
   );
 }

@@ -6,6 +6,8 @@
  */
 import { CONTROL_CAUTION, SIGN_CONVENTION, type ControlLoop } from "@/lib/control-values";
 import { formatDateTimeUtc } from "@/lib/format";
+import type { Decision } from "@/lib/report/types";
+import type { TcpCheckView } from "@/lib/tcp-check-display";
 
 export interface ReportControlValues {
   unitSystem: "metric" | "inch";
@@ -24,6 +26,13 @@ export interface ReportControlValues {
   flagged: number;
   signConvention: string;
   caution: string;
+  /** The latest tool-centre-point check after compensation, judged against the procedure's limits. */
+  tcpCheck?: {
+    file: string;
+    basis: string;
+    rows: Array<{ quantity: string; value: string; limit: string; decision: Decision }>;
+    decision: Decision;
+  };
 }
 
 export interface ControlRecordInput {
@@ -39,9 +48,10 @@ export function controlValuesSection(input: {
   asLeft: ControlRecordInput | null;
   approved: { approvedBy: string | null; approvedAt: Date } | null;
   asLeftStale: boolean;
+  tcp?: { filename: string; uploadedAt: Date; view: TcpCheckView } | null;
 }): ReportControlValues | null {
-  const { loop, asFound, asLeft, approved } = input;
-  if (!asFound && !asLeft) return null;
+  const { loop, asFound, asLeft, approved, tcp } = input;
+  if (!asFound && !asLeft && !tcp) return null;
   const line = (what: string, r: ControlRecordInput | null) =>
     r
       ? `${what} recorded ${formatDateTimeUtc(r.createdAt)}${r.recordedBy ? ` by ${r.recordedBy}` : ""}${r.note ? `: ${r.note}` : ""}.`
@@ -69,5 +79,20 @@ export function controlValuesSection(input: {
     flagged: loop.flagged.length,
     signConvention: SIGN_CONVENTION,
     caution: CONTROL_CAUTION,
+    ...(tcp
+      ? {
+          tcpCheck: {
+            file: tcp.filename,
+            basis: `Sphere centres reported by the control with its tool-centre-point function on, ${tcp.view.poses} poses, uploaded ${formatDateTimeUtc(tcp.uploadedAt)}. Each figure is judged against the procedure's limit by simple acceptance.`,
+            rows: tcp.view.rows.map((r) => ({
+              quantity: r.quantity,
+              value: r.valueText,
+              limit: r.limitText,
+              decision: r.decision,
+            })),
+            decision: tcp.view.decision,
+          },
+        }
+      : {}),
   };
 }

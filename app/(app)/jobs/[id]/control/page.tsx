@@ -5,7 +5,8 @@ import { ControlValuesForm } from "@/components/control/control-values-form";
 import { ControlValuesLoopTable } from "@/components/control/control-values-table";
 import { Card } from "@/components/ui/card";
 import { SafetyNote } from "@/components/ui/safety-note";
-import { getControlValues } from "@/db/queries/control-values";
+import { getControlValues, jobTcpChecks } from "@/db/queries/control-values";
+import { TcpCheckCard } from "@/components/control/tcp-check-card";
 import { getJobDetail } from "@/db/queries/jobs";
 import { requirePageUser } from "@/lib/auth/session";
 import { CONTROL_CAUTION, fromControlCanonical, SIGN_CONVENTION } from "@/lib/control-values";
@@ -39,7 +40,10 @@ export default async function ControlPage({ params }: Props) {
         <p className="text-sm text-graphite-700">{readRefusal}</p>
       </Card>
     );
-  const c = (await getControlValues(user, id))!;
+  const [c, tcp] = await Promise.all([
+    getControlValues(user, id).then((x) => x!),
+    jobTcpChecks(id, d.job.templateId),
+  ]);
   const { loop } = c;
   const system = loop.unitSystem;
   const subject = { status: d.job.status, hasApprovedFit: c.approved !== null };
@@ -121,6 +125,8 @@ export default async function ControlPage({ params }: Props) {
           </SafetyNote>
         </div>
       </Card>
+
+      <TcpCheckCard jobId={id} tcp={tcp} />
 
       <section className="grid gap-6 xl:grid-cols-2">
         <Card title="Values as found">
