@@ -3,8 +3,19 @@
  * were entered, made with geometry's own forward model. With the control compensating all but a
  * few micrometres, the sphere centre the control reports moves by about that much over the swing.
  */
+import { createHash } from "node:crypto";
+import { and, eq } from "drizzle-orm";
+import { db } from "@/db";
+import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
+import { appendAudit } from "@/db/queries/audit";
+import { getControlValues, recordControlValues } from "@/db/queries/control-values";
+import { insertDataset } from "@/db/queries/datasets";
+import { getActor } from "@/db/queries/users";
+import { controlValueRecords, jobs, procedureTemplates, users } from "@/db/schema";
+import { DEMO_HEAD_CONFIG, demoSphereProbeCsv } from "@/db/seed-analyses";
 import { headPoseGrid, synthesiseSphereProbe, type HeadErrors } from "@/geometry";
-import { DEMO_HEAD_CONFIG } from "@/db/seed-analyses";
+import type { Actor } from "@/lib/domain/roles";
+import { parseDatasetText, parseUploadForm } from "@/lib/storage/parse-dataset";
 
 /** What is left after compensation in the demo: a few µm and arc seconds (invented). */
 export const DEMO_TCP_RESIDUAL_ERRORS: HeadErrors = {
@@ -33,4 +44,137 @@ export function demoTcpCheckCsv(errors: HeadErrors = DEMO_TCP_RESIDUAL_ERRORS, s
       ].join(","),
     );
   return lines.join("\n") + "\n";
+}
+
+export const DEMO_CONTROL_JOB = "TR-2026-0059";
+const DEMO_CONTROL_PROCEDURE = "Kinematic values after a crash (demo)";
+const TCP_FILENAME = "TR-2026-0059 TCP check after compensation (demo, synthetic).csv";
+const PROBE_FILENAME = "TR-2026-0059 sphere probe after the crash (demo, synthetic).csv";
+
+/** What the demo control held before the crash check (invented): nominal pivot, zero offsets at 0. */
+const DEMO_AS_FOUND = {
+  pivot_length_mm: 152.4,
+  tool_offset_along_tilt_mm: 0,
+  tool_offset_across_tilt_mm: 0,
+  secondary_offset_mm: 0,
+  primary_zero_deg: 0,
+  secondary_zero_deg: 0,
+  secondary_squareness_deg: 0,
+} as const;
+
+async function actorByEmail(email: string) {
+  const [u] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
+  const a = u ? await getActor(u.id) : null;
+  if (!a) throw new Error(`seed: no demo user ${email}`);
+  return a;
+}
+
+async function upload(
+  actor: Actor,
+  jobId: string,
+  kind: "sphere_probe" | "tcp_check",
+  filename: string,
+  text: string,
+) {
+  const data = Buffer.from(text, "utf8");
+  const form = parseUploadForm({ kind, phase: "post", units: "mm" });
+  return insertDataset(
+    actor,
+    jobId,
+    form,
+    { filename, contentType: "text/csv", data, sha256: createHash("sha256").update(data).digest("hex") },
+    parseDatasetText(form, text),
+  );
+}
+
+/**
+ * The control-loop demo (invented): after a spindle collision on G-7, the engineer recorded the
+ * control's values as found, the head was probed and its fit approved, the values to enter were
+ * entered and read back as left, and a TCP check was taken with the control's function on. Runs
+ * once: a job that already has control records is left as it is.
+ */
+export async function seedControlLoop(password: string): Promise<void> {
+  const [template] = await db.select().from(jobs).where(eq(jobs.reference, "TR-2026-0057"));
+  if (!template) return;
+  const engineer = await actorByEmail("engineer@halvard.example");
+  const installer = await actorByEmail("installer@halvard.example");
+  // A procedure version of the demo's own: no checklist steps, a TCP check required with limits of
+  // 15 µm range per axis and 10 µm from the mean (invented for the demo, like the customer's spec).
+  let [procedure] = await db
+    .select()
+    .from(procedureTemplates)
+    .where(and(eq(procedureTemplates.name, DEMO_CONTROL_PROCEDURE), eq(procedureTemplates.version, 1)));
+  if (!procedure)
+    [procedure] = await db
+      .insert(procedureTemplates)
+      .values({
+        name: DEMO_CONTROL_PROCEDURE,
+        version: 1,
+        description: "Demo: record the control's values, fit, enter, read back and check the TCP.",
+        tcpCheckRequired: true,
+        tcpRangeLimitUm: 15,
+        tcpDeviationLimitUm: 10,
+        createdById: engineer.id,
+      })
+      .returning();
+  let [job] = await db.select().from(jobs).where(eq(jobs.reference, DEMO_CONTROL_JOB));
+  if (!job) {
+    job = await db.transaction(async (tx) => {
+      const [row] = await tx
+        .insert(jobs)
+        .values({
+          reference: DEMO_CONTROL_JOB,
+          title: "Kinematic values after spindle collision on G-7",
+          kind: "after_crash",
+          status: "in_review",
+          customerId: template.customerId,
+          machineId: template.machineId,
+          headId: template.headId,
+          templateId: procedure!.id,
+          assignedInstallerId: installer.id,
+          decisionRule: "simple",
+          scheduledFor: new Date("2026-11-27T07:00:00Z"),
+          airTempC: 20.4,
+          createdById: engineer.id,
+        })
+        .returning();
+      await appendAudit(tx, {
+        actorId: engineer.id,
+        actorEmail: engineer.email,
+        action: "job.created",
+        entityType: "job",
+        entityId: row!.id,
+        jobId: row!.id,
+        newValues: { reference: row!.reference, status: row!.status, note: "demo data (invented)" },
+      });
+      return row!;
+    });
+  }
+  const [done] = await db
+    .select({ id: controlValueRecords.id })
+    .from(controlValueRecords)
+    .where(eq(controlValueRecords.jobId, job.id))
+    .limit(1);
+  if (done || job.status !== "in_review") return;
+  await recordControlValues(engineer, job.id, {
+    stage: "as_found",
+    unitSystem: "metric",
+    values: { ...DEMO_AS_FOUND },
+    note: "Read from the control's kinematic table before any change (demo).",
+  });
+  const probe = await upload(installer, job.id, "sphere_probe", PROBE_FILENAME, demoSphereProbeCsv());
+  const { analysis } = await runHeadFit(engineer, probe.id);
+  await approveAnalysis(engineer, analysis.id, password);
+  const loop = (await getControlValues(engineer, job.id))!.loop;
+  // As left: the values to enter as typed into the control, at the digits the control shows.
+  const asLeft = Object.fromEntries(
+    loop.rows.filter((r) => r.toEnter !== null).map((r) => [r.key, Number(r.toEnter!.toFixed(5))]),
+  );
+  await recordControlValues(engineer, job.id, {
+    stage: "as_left",
+    unitSystem: "metric",
+    values: asLeft,
+    note: "Read back from the control after entering (demo).",
+  });
+  await upload(installer, job.id, "tcp_check", TCP_FILENAME, demoTcpCheckCsv());
 }

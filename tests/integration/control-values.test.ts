@@ -16,6 +16,7 @@ import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { auditEvents, controlValueRecords, jobs, procedureTemplates } from "@/db/schema";
 import { demoTcpCheckCsv } from "@/db/seed-control";
 import { getReadiness } from "@/db/queries/readiness";
+import { jobTcpChecks } from "@/db/queries/control-values";
 import type { Actor } from "@/lib/domain/roles";
 import { upload } from "./dataset-helpers";
 import { jobIdByReference, request, signInAs } from "./helpers";
@@ -355,5 +356,25 @@ describe("a procedure that asks for a tool-centre-point check", () => {
     );
     expect(res.status).toBe(422);
     expect(JSON.stringify(await res.json())).toMatch(/pose/);
+  });
+});
+
+describe("the demo (invented data)", () => {
+  it("TR-2026-0059 carries as found, an approved fit, values to enter, as left and a passing TCP check", async () => {
+    const jobId = await jobIdByReference("TR-2026-0059");
+    await signInAs("inspector@halvard.example");
+    const body = await (await get(jobId)).json();
+    expect(body.asFound).not.toBeNull();
+    expect(body.approved).not.toBeNull();
+    expect(body.asLeft.analysisId).toBe(body.approved.analysisId);
+    expect(body.rows.filter((r: { toEnter: number | null }) => r.toEnter !== null)).toHaveLength(7);
+    expect(body.flagged).toEqual([]);
+    const [job] = await db.select({ templateId: jobs.templateId }).from(jobs).where(eq(jobs.id, jobId));
+    const tcp = await jobTcpChecks(jobId, job!.templateId);
+    expect(tcp.limits).toEqual({ required: true, rangeLimitUm: 15, deviationLimitUm: 10 });
+    expect(tcp.checks.map((c) => [c.view.poses, c.view.decision])).toEqual([[60, "pass"]]);
+    expect((await getReadiness(as.engineer!, jobId))!.blockers.map((b) => b.code)).not.toContain(
+      "tcp_check_missing",
+    );
   });
 });
