@@ -14,6 +14,7 @@ import { getActor } from "@/db/queries/users";
 import { controlValueRecords, jobs, procedureTemplates, users } from "@/db/schema";
 import { DEMO_HEAD_CONFIG, demoSphereProbeCsv } from "@/db/seed-analyses";
 import { headPoseGrid, synthesiseSphereProbe, type HeadErrors } from "@/geometry";
+import { CONTROL_DECIMALS } from "@/lib/control-values";
 import type { Actor } from "@/lib/domain/roles";
 import { parseDatasetText, parseUploadForm } from "@/lib/storage/parse-dataset";
 
@@ -166,9 +167,14 @@ export async function seedControlLoop(password: string): Promise<void> {
   const { analysis } = await runHeadFit(engineer, probe.id);
   await approveAnalysis(engineer, analysis.id, password);
   const loop = (await getControlValues(engineer, job.id))!.loop;
-  // As left: the values to enter as typed into the control, at the digits the control shows.
+  // As left: the values to enter as typed into the control, at the digits the page shows them.
   const asLeft = Object.fromEntries(
-    loop.rows.filter((r) => r.toEnter !== null).map((r) => [r.key, Number(r.toEnter!.toFixed(5))]),
+    loop.rows
+      .filter((r) => r.toEnter !== null)
+      .map((r) => [
+        r.key,
+        Number(r.toEnter!.toFixed(r.kind === "length" ? CONTROL_DECIMALS.mm : CONTROL_DECIMALS.deg)),
+      ]),
   );
   await recordControlValues(engineer, job.id, {
     stage: "as_left",

@@ -25,8 +25,8 @@ export type ControlUnitSystem = "metric" | "inch";
 export const CONTROL_DECIMALS = { mm: 4, in: 5, deg: 5 } as const;
 
 /**
- * A value left in the control counts as the computed one when it rounds to the same shown digits:
- * the tolerance is half the last shown digit in the control's units.
+ * A value left in the control counts as the computed one when it is within half the last shown
+ * digit of it, in the control's units (typing the shown value is never flagged).
  */
 export function flagTolerance(kind: "length" | "angle", system: ControlUnitSystem): number {
   if (kind === "angle") return 0.5 * 10 ** -CONTROL_DECIMALS.deg;

@@ -20,12 +20,12 @@ export function ControlValuesReportSection({ section }: { section: ReportControl
           r.correction,
           <strong key="e">{r.toEnter}</strong>,
           r.asLeft,
-          r.check ? (
+          r.check && r.check !== "As computed" ? (
             <span key="c" className="font-semibold text-fail-700">
               {r.check}
             </span>
           ) : (
-            "—"
+            r.check || "—"
           ),
         ])}
       />

@@ -161,7 +161,7 @@ describe("the control loop on an after-crash job", () => {
       "-r",
       "70",
       path.join(dir, "d.pdf"),
-      screenshotPath("control-loop-draft"),
+      screenshotPath("control-loop-draft").replace(/\.png$/, ""),
     ]);
   }, 120_000);
 

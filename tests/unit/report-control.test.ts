@@ -60,7 +60,7 @@ describe("the report's control-values section", () => {
 
   it("lists the recorded settings with the value to enter and flags the one left different", () => {
     expect(section.rows.map((r) => [r.setting, r.toEnter, r.check])).toEqual([
-      ["Pivot length (tilt axis to gauge point)", "152.4379 mm", ""],
+      ["Pivot length (tilt axis to gauge point)", "152.4379 mm", "As computed"],
       ["Tilt axis zero offset", "0.00500° (18.0″)", "Differs from the value to enter (+0.01000° (+36.0″))"],
     ]);
     expect(section.flagged).toBe(1);

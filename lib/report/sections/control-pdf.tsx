@@ -79,7 +79,9 @@ export function ControlValuesPdf({ section }: { section: ReportControlValues | u
             <Text style={[s.td, s.num, { width: COLS[2][1] }]}>{r.correction}</Text>
             <Text style={[s.td, s.num, { width: COLS[3][1], fontWeight: 700 }]}>{r.toEnter}</Text>
             <Text style={[s.td, s.num, { width: COLS[4][1] }]}>{r.asLeft}</Text>
-            <Text style={[s.td, { width: COLS[5][1] }, r.check ? s.flag : {}]}>{r.check || "—"}</Text>
+            <Text style={[s.td, { width: COLS[5][1] }, r.check && r.check !== "As computed" ? s.flag : {}]}>
+              {r.check || "—"}
+            </Text>
           </View>
         ))}
       </View>

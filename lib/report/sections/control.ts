@@ -19,7 +19,7 @@ export interface ReportControlValues {
     correction: string;
     toEnter: string;
     asLeft: string;
-    /** Empty when as left matches the value to enter or nothing was left yet; the flag in words otherwise. */
+    /** The flag in words; "As computed" when as left matches the value to enter; empty before as left. */
     check: string;
   }>;
   recorded: string[];
@@ -69,7 +69,11 @@ export function controlValuesSection(input: {
         correction: r.correctionText,
         toEnter: r.toEnterText,
         asLeft: r.asLeftText,
-        check: r.flag ? `${r.flagText}${r.flag === "differs" ? ` (${r.differenceText})` : ""}` : "",
+        check: r.flag
+          ? `${r.flagText}${r.flag === "differs" ? ` (${r.differenceText})` : ""}`
+          : r.asLeft !== null
+            ? "As computed"
+            : "",
       })),
     recorded: [
       line("As found", asFound),
