@@ -688,3 +688,35 @@ export const controlValueRecords = pgTable(
   (t) => [index("control_value_records_job_idx").on(t.jobId, t.stage, t.createdAt)],
 );
 export type ControlValueRecord = typeof controlValueRecords.$inferSelect;
+
+/**
+ * The Type B inputs of a head fit's uncertainty budget (JCGM 100), chosen by the engineer: which
+ * registered instruments (probe, reference sphere, tool-length presetter) and temperature band, and
+ * the standard uncertainties they gave at the time (µm, K, 1/K, mm), so the budget in the report is
+ * reproducible when a register changes later. Written once; a new choice is a new row.
+ */
+export const analysisBudgetInputs = pgTable(
+  "analysis_budget_inputs",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    analysisId: uuid("analysis_id")
+      .notNull()
+      .references(() => analyses.id, { onDelete: "restrict" }),
+    probeInstrumentId: uuid("probe_instrument_id").references(() => instruments.id, { onDelete: "restrict" }),
+    sphereInstrumentId: uuid("sphere_instrument_id").references(() => instruments.id, {
+      onDelete: "restrict",
+    }),
+    presetterInstrumentId: uuid("presetter_instrument_id").references(() => instruments.id, {
+      onDelete: "restrict",
+    }),
+    /** geometry's BudgetTypeB as resolved when chosen: uProbeUm, uSphereUm, uToolUm, deltaTK, alphaPerK, lengthMm. */
+    inputs: jsonb("inputs").$type<Record<string, number>>().notNull(),
+    createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("analysis_budget_inputs_analysis_idx").on(t.analysisId, t.createdAt)],
+);
+export type AnalysisBudgetInput = typeof analysisBudgetInputs.$inferSelect;

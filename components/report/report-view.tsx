@@ -1,5 +1,6 @@
 import { DECISION, ReportTable, Rows, Section } from "@/components/report/report-parts";
 import { ConformityStatement } from "@/components/report/conformity-statement";
+import { BudgetReportSection } from "@/components/report/budget-section";
 import { ControlValuesReportSection } from "@/components/report/control-values-section";
 import { ReportFigures } from "@/components/report/report-charts";
 import type { Decision, ReportData } from "@/lib/report/types";
@@ -127,6 +128,7 @@ export function ReportView({ data }: { data: ReportData }) {
           <p className="text-sm text-graphite-600">No kinematic fit is part of this report.</p>
         )}
         <ControlValuesReportSection section={data.controlValues} />
+        <BudgetReportSection budget={data.budget} />
       </Section>
       <Section n={6} title="Test part">
         {data.testPart.length ? (

@@ -6,6 +6,7 @@ import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
 import { getComparison } from "@/db/queries/readings";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
+import { reportBudget } from "@/db/queries/budget";
 import { reportControlValues } from "@/db/queries/control-values";
 import { latestJobView } from "@/db/queries/analysis-views";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
@@ -154,6 +155,7 @@ export async function buildReportData(
     deviations: carried,
     verifyUrl: `${publicUrl}/verify/${meta.reportId}`,
     controlValues: await reportControlValues(actor, d.job),
+    budget: await reportBudget(actor, d),
   });
   return { data, images };
 }

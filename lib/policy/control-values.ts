@@ -49,3 +49,17 @@ export function controlValuesWriteRefusal(
 export function isStateRefusal(actor: Pick<Actor, "role">, s: ControlValuesSubject): boolean {
   return controlValuesRecorderRefusal(actor) === null && controlValuesWriteRefusal(actor, s) !== null;
 }
+
+/** Who chooses the Type B inputs of a fit's uncertainty budget: an application engineer. */
+export function budgetRecorderRefusal(actor: Pick<Actor, "role">): string | null {
+  return actor.role === "engineer" ? null : "Only an application engineer chooses the inputs of the budget.";
+}
+
+/** The budget's inputs are chosen until the report is issued (it prints them). */
+export function budgetInputsRefusal(actor: Pick<Actor, "role">, job: { status: JobStatus }): string | null {
+  const who = budgetRecorderRefusal(actor);
+  if (who) return who;
+  return FIXED_STATUSES.includes(job.status)
+    ? `The job is ${STATUS_LABELS[job.status].toLowerCase()}; the budget printed in the report is fixed.`
+    : null;
+}

@@ -409,6 +409,7 @@ export interface ReportInputs {
   verifyUrl: string;
   /** lib/report/sections/control.ts; null or absent when no control values were recorded. */
   controlValues?: ReportData["controlValues"] | null;
+  budget?: ReportData["budget"] | null;
 }
 
 /** Assembles the report's content and names it by the SHA-256 of its canonical JSON. */
@@ -469,6 +470,7 @@ export function buildReportContent(i: ReportInputs): ReportData {
     conformity: reportConformity(i, d.job.decisionRule),
     deviations: deviationRows(i.deviations),
     ...(i.controlValues ? { controlValues: i.controlValues } : {}),
+    ...(i.budget ? { budget: i.budget } : {}),
     remarks: [...(i.parameters ? [i.parameters.note] : []), ...(d.job.notes ? [d.job.notes] : [])],
     safety: [...SAFETY_NOTES],
     signatures: meta.draft || !meta.approval ? [] : [...i.signatures, meta.approval],

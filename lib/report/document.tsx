@@ -23,6 +23,7 @@ import type { Decision, ReportData } from "./types";
 import { BODY_FONT, MONO_FONT } from "./fonts";
 import { parameterChartRows, readingRows } from "./chart-data";
 import { LimitRowsChart, ResidualsChart } from "./charts";
+import { BudgetPdf } from "./sections/budget";
 import { ControlValuesPdf } from "./sections/control-pdf";
 
 const C = {
@@ -486,6 +487,7 @@ export function ReportDocument({
           </View>
 
           <ControlValuesPdf section={data.controlValues} />
+          <BudgetPdf budget={data.budget} />
 
           <Text style={s.h2} minPresenceAhead={40}>
             6 Test part

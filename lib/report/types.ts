@@ -5,6 +5,7 @@
  * always say the same thing.
  */
 import type { RecordedDecision } from "@/lib/domain/decisions";
+import type { ReportBudget } from "@/lib/report/sections/budget";
 import type { ReportControlValues } from "@/lib/report/sections/control";
 
 /** geometry's decision, or "not_measured", or "recorded": a reading kept without a limit to judge it against. */
@@ -105,6 +106,8 @@ export interface ReportData {
   }>;
   /** The control's values as found, to enter and as left; absent when none were recorded. */
   controlValues?: ReportControlValues;
+  /** The approved fit's uncertainty budget; absent without an approved fit. */
+  budget?: ReportBudget;
   remarks: string[];
   safety: string[];
   signatures: ReportSignature[];

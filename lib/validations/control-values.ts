@@ -88,3 +88,23 @@ export const controlValuesFormSchema = z
       });
     return z.NEVER;
   });
+
+const optionalId = z.preprocess((v) => (v === "" || v === null ? undefined : v), zUuid().optional());
+const optionalRange = (label: string, max: number) =>
+  z.preprocess(
+    (v) => (typeof v === "string" && v.trim() === "" ? undefined : v),
+    number(label)
+      .refine((x) => x >= 0 && x <= max, `${label}: between 0 and ${max}.`)
+      .optional(),
+  );
+
+/** The budget form: instruments from the register and the temperature band (ΔT in K, α in 10⁻⁶/K). */
+export const budgetInputsFormSchema = z.object({
+  jobId: zUuid("No such job."),
+  analysisId: zUuid("No such analysis."),
+  probeInstrumentId: optionalId,
+  sphereInstrumentId: optionalId,
+  presetterInstrumentId: optionalId,
+  deltaTK: optionalRange("Temperature half-range", 50),
+  alphaPpmPerK: optionalRange("Expansion coefficient", 100),
+});

@@ -16,7 +16,7 @@ import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { instruments, jobs, templateSteps, users } from "@/db/schema";
+import { analyses, instruments, jobs, templateSteps, users } from "@/db/schema";
 import type { JobStatus } from "@/lib/domain/jobs";
 import type { ActionResult } from "@/lib/actions";
 import { upload } from "./dataset-helpers";
@@ -275,6 +275,24 @@ MATRIX.recordControlValuesAction = {
       unitSystem: "metric",
       pivot_length_mm: "152.4",
     }),
+};
+
+MATRIX.recordBudgetInputsAction = {
+  // The budget's inputs are the application engineer's, refused to anyone else before the analysis
+  // is looked up. The engineer's call chooses no instrument on the seeded TR-2026-0052 fit (Type A only).
+  expect: staffOnly(["engineer"]),
+  call: async () => {
+    const [a] = await db
+      .select({ id: analyses.id })
+      .from(analyses)
+      .where(eq(analyses.jobId, await jobIdByReference("TR-2026-0052")))
+      .limit(1);
+    return control.recordBudgetInputsAction({
+      jobId: await jobIdByReference("TR-2026-0052"),
+      analysisId: a!.id,
+      deltaTK: "0.5",
+    });
+  },
 };
 
 // ---- registers: the administrator's. An empty form passes the door for the admin and is then

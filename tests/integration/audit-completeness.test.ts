@@ -257,6 +257,7 @@ const AUDITED_TABLES = [
   "reports",
   "deviations",
   "controlValueRecords",
+  "analysisBudgetInputs",
 ];
 const WRITE = new RegExp(`\\.(insert|update|delete)\\((${AUDITED_TABLES.join("|")})\\)`, "g");
 

@@ -13,7 +13,8 @@ import { getReportContent, issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { auditEvents, controlValueRecords, jobs, procedureTemplates } from "@/db/schema";
+import { auditEvents, controlValueRecords, instruments, jobs, procedureTemplates } from "@/db/schema";
+import { recordBudgetInputs } from "@/db/queries/budget";
 import { demoTcpCheckCsv } from "@/db/seed-control";
 import { getReadiness } from "@/db/queries/readiness";
 import { jobTcpChecks } from "@/db/queries/control-values";
@@ -255,6 +256,18 @@ describe("one job through the control loop", () => {
       );
     expect(refused).toMatch(/immutable/);
 
+    // The budget's Type B inputs from the register (DTI-0112 as probe and as presetter, ΔT 1 K).
+    const [dti] = await db.select().from(instruments).where(eq(instruments.serial, "DTI-0112"));
+    await expect(
+      recordBudgetInputs(as.inspector!, { analysisId: analysis.id, probeInstrumentId: dti!.id }),
+    ).rejects.toMatchObject({ status: 403 });
+    await recordBudgetInputs(as.engineer!, {
+      analysisId: analysis.id,
+      probeInstrumentId: dti!.id,
+      presetterInstrumentId: dti!.id,
+      deltaTK: 1,
+    });
+
     await carryOpenResults(as.engineer!, ids.flow, "Carried for this test of the control loop.");
     const { reportId } = await issueReport(as.engineer!, { jobId: ids.flow, password: PW });
     // The issued report prints the loop with the flag (its content is what was signed).
@@ -266,6 +279,20 @@ describe("one job through the control loop", () => {
       "Tilt axis zero offset",
     ]);
     expect(content?.controlValues?.rows[2]!.check).toMatch(/^Differs from the value to enter/);
+    // The budget printed with it: the pivot row carries the presetter and the temperature band.
+    const uUm = (dti!.standardUncertainty * 1000).toFixed(3);
+    const pivotBudget = content?.budget?.rows.find((r) => r.parameter.includes("Pivot length"));
+    expect(pivotBudget?.components.map((c) => c.name)).toEqual([
+      "fit (Type A)",
+      "probe",
+      "tool-length presetter",
+      "temperature (ΔT·α·L, rectangular)",
+    ]);
+    expect(pivotBudget?.components[2]!.u).toBe(uUm);
+    expect(content?.budget?.inputs).toContain("±1 K");
+    await expect(
+      recordBudgetInputs(as.engineer!, { analysisId: analysis.id, deltaTK: 2 }),
+    ).rejects.toMatchObject({ status: 409 });
     const fixed = await put(ids.flow, { ...asFoundBody, stage: "as_found" });
     expect(fixed.status).toBe(409);
     expect((await fixed.json()).error.message).toMatch(/issued/);
