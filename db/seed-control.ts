@@ -11,7 +11,8 @@ import { appendAudit } from "@/db/queries/audit";
 import { getControlValues, recordControlValues } from "@/db/queries/control-values";
 import { insertDataset } from "@/db/queries/datasets";
 import { getActor } from "@/db/queries/users";
-import { controlValueRecords, jobs, procedureTemplates, users } from "@/db/schema";
+import { controlValueRecords, instruments, jobs, procedureTemplates, users } from "@/db/schema";
+import { recordBudgetInputs } from "@/db/queries/budget";
 import { DEMO_HEAD_CONFIG, demoSphereProbeCsv } from "@/db/seed-analyses";
 import { headPoseGrid, synthesiseSphereProbe, type HeadErrors } from "@/geometry";
 import { CONTROL_DECIMALS } from "@/lib/control-values";
@@ -62,6 +63,50 @@ const DEMO_AS_FOUND = {
   secondary_zero_deg: 0,
   secondary_squareness_deg: 0,
 } as const;
+
+/** Instruments the budget draws on (invented demo register entries; uncertainties in mm). */
+const DEMO_BUDGET_INSTRUMENTS: ReadonlyArray<typeof instruments.$inferInsert> = [
+  {
+    kind: "Touch probe",
+    serial: "TP-0311",
+    quantityKind: "length",
+    resolution: 0.0001,
+    standardUncertainty: 0.0005,
+    calibratedOn: "2026-06-02",
+    calibrationDueOn: "2027-06-02",
+    certificateRef: "CAL-TP-0311-26",
+  },
+  {
+    kind: "Reference sphere",
+    serial: "RS-0025",
+    quantityKind: "length",
+    resolution: 0.0001,
+    standardUncertainty: 0.0002,
+    calibratedOn: "2026-03-10",
+    calibrationDueOn: "2028-03-10",
+    certificateRef: "CAL-RS-0025-26",
+  },
+  {
+    kind: "Tool presetter",
+    serial: "TPS-0042",
+    quantityKind: "length",
+    resolution: 0.001,
+    standardUncertainty: 0.002,
+    calibratedOn: "2026-09-15",
+    calibrationDueOn: "2027-09-15",
+    certificateRef: "CAL-TPS-0042-26",
+  },
+];
+
+async function ensureInstrument(values: typeof instruments.$inferInsert): Promise<string> {
+  const [found] = await db
+    .select({ id: instruments.id })
+    .from(instruments)
+    .where(eq(instruments.serial, values.serial));
+  if (found) return found.id;
+  const [row] = await db.insert(instruments).values(values).returning({ id: instruments.id });
+  return row!.id;
+}
 
 async function actorByEmail(email: string) {
   const [u] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
@@ -166,6 +211,15 @@ export async function seedControlLoop(password: string): Promise<void> {
   const probe = await upload(installer, job.id, "sphere_probe", PROBE_FILENAME, demoSphereProbeCsv());
   const { analysis } = await runHeadFit(engineer, probe.id);
   await approveAnalysis(engineer, analysis.id, password);
+  // The budget's Type B inputs from the register (the demo's probe, sphere and presetter), ΔT ±1 K.
+  const [probeId, sphereId, presetterId] = await Promise.all(DEMO_BUDGET_INSTRUMENTS.map(ensureInstrument));
+  await recordBudgetInputs(engineer, {
+    analysisId: analysis.id,
+    probeInstrumentId: probeId,
+    sphereInstrumentId: sphereId,
+    presetterInstrumentId: presetterId,
+    deltaTK: 1,
+  });
   const loop = (await getControlValues(engineer, job.id))!.loop;
   // As left: the values to enter as typed into the control, at the digits the page shows them.
   const asLeft = Object.fromEntries(

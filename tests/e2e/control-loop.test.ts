@@ -156,6 +156,10 @@ describe("the control loop on an after-crash job", () => {
     expect(text).toContain("tcp-e2e.csv");
     expect(text).toContain("Value to enter = as found + correction");
     expect(text).toContain("qualified people");
+    // The approved fit's budget, with the demo's register inputs (probe 0.50 µm, presetter 2.00 µm).
+    expect(text).toContain("5.3 Uncertainty budget of the head parameters (JCGM 100)");
+    expect(text).toContain("tool-length presetter");
+    expect(text).toContain("probe 0.50 µm");
     execFileSync("pdftoppm", [
       "-png",
       "-r",

@@ -396,6 +396,13 @@ describe("the demo (invented data)", () => {
     expect(body.asLeft.analysisId).toBe(body.approved.analysisId);
     expect(body.rows.filter((r: { toEnter: number | null }) => r.toEnter !== null)).toHaveLength(7);
     expect(body.flagged).toEqual([]);
+    const { latestBudgetInputs } = await import("@/db/queries/budget");
+    expect((await latestBudgetInputs(body.approved.analysisId))?.inputs).toMatchObject({
+      uProbeUm: 0.5,
+      uSphereUm: 0.2,
+      uToolUm: 2,
+      deltaTK: 1,
+    });
     const [job] = await db.select({ templateId: jobs.templateId }).from(jobs).where(eq(jobs.id, jobId));
     const tcp = await jobTcpChecks(jobId, job!.templateId);
     expect(tcp.limits).toEqual({ required: true, rangeLimitUm: 15, deviationLimitUm: 10 });
