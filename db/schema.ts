@@ -28,6 +28,7 @@ import {
 // Relative imports: drizzle-kit loads this file without the app's path alias.
 import { DATASET_KINDS, DATASET_STATUSES, PHASES } from "../lib/domain/datasets";
 import { DECISION_RULES } from "../lib/domain/decisions";
+import { CONTROL_VALUE_STAGES, type ControlValueSet } from "../lib/domain/control-values";
 import { AXIS_LETTERS } from "../lib/domain/heads";
 import { JOB_KINDS, JOB_STATUSES } from "../lib/domain/jobs";
 import { MULTI_POINT_RESULTS, STEP_KINDS } from "../lib/domain/procedures";
@@ -327,6 +328,11 @@ export const procedureTemplates = pgTable(
     headModel: text("head_model"),
     /** Retired procedures are not offered for new jobs; jobs that use them keep them. */
     retiredAt: timestamp("retired_at", { withTimezone: true }),
+    /** The procedure asks for a tool-centre-point check after compensation before the report is issued. */
+    tcpCheckRequired: boolean("tcp_check_required").notNull().default(false),
+    /** TCP-check limits, µm (null = recorded, not judged): range of x, y and z each, and distance from the mean centre. */
+    tcpRangeLimitUm: doublePrecision("tcp_range_limit_um"),
+    tcpDeviationLimitUm: doublePrecision("tcp_deviation_limit_um"),
     createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
     ...timestamps,
   },
@@ -834,3 +840,63 @@ export const jobInstruments = pgTable(
   (t) => [uniqueIndex("job_instruments_uq").on(t.jobId, t.instrumentId, t.use)],
 );
 export type JobInstrument = typeof jobInstruments.$inferSelect;
+
+export const controlValueStageEnum = pgEnum("control_value_stage", CONTROL_VALUE_STAGES);
+
+/**
+ * The control's kinematic values for a job's head, as found before the adjustment and as left
+ * after it (lib/domain/control-values: lengths in mm, angles in degrees, whatever the control's
+ * units). `unit_system` is the control's, so the values are shown as the control holds them. An
+ * as-left record names the approved analysis its values to enter were computed from. Written once;
+ * a correction is a new row and the newest of a stage is the current one.
+ */
+export const controlValueRecords = pgTable(
+  "control_value_records",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    stage: controlValueStageEnum("stage").notNull(),
+    unitSystem: unitSystemEnum("unit_system").notNull(),
+    values: jsonb("values").$type<ControlValueSet>().notNull(),
+    analysisId: uuid("analysis_id").references(() => analyses.id, { onDelete: "restrict" }),
+    note: text("note"),
+    recordedById: uuid("recorded_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("control_value_records_job_idx").on(t.jobId, t.stage, t.createdAt)],
+);
+export type ControlValueRecord = typeof controlValueRecords.$inferSelect;
+
+/**
+ * The Type B inputs of a head fit's uncertainty budget (JCGM 100), chosen by the engineer: which
+ * registered instruments (probe, reference sphere, tool-length presetter) and temperature band, and
+ * the standard uncertainties they gave at the time (µm, K, 1/K, mm), so the budget in the report is
+ * reproducible when a register changes later. Written once; a new choice is a new row.
+ */
+export const analysisBudgetInputs = pgTable(
+  "analysis_budget_inputs",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    jobId: uuid("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "restrict" }),
+    analysisId: uuid("analysis_id")
+      .notNull()
+      .references(() => analyses.id, { onDelete: "restrict" }),
+    probeInstrumentId: uuid("probe_instrument_id").references(() => instruments.id, { onDelete: "restrict" }),
+    sphereInstrumentId: uuid("sphere_instrument_id").references(() => instruments.id, {
+      onDelete: "restrict",
+    }),
+    presetterInstrumentId: uuid("presetter_instrument_id").references(() => instruments.id, {
+      onDelete: "restrict",
+    }),
+    /** geometry's BudgetTypeB as resolved when chosen: uProbeUm, uSphereUm, uToolUm, deltaTK, alphaPerK, lengthMm. */
+    inputs: jsonb("inputs").$type<Record<string, number>>().notNull(),
+    createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("analysis_budget_inputs_analysis_idx").on(t.analysisId, t.createdAt)],
+);
+export type AnalysisBudgetInput = typeof analysisBudgetInputs.$inferSelect;

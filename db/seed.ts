@@ -261,6 +261,7 @@ export async function seed(): Promise<void> {
   await (await import("./seed-datasets")).seedDatasets();
   await (await import("./seed-analyses")).seedAnalyses();
   await (await import("./seed-records")).seedRecords();
+  await (await import("./seed-control")).seedControlLoop(DEMO_PASSWORD);
   // Last: the issued report renders whatever the steps above recorded.
   await seedReports(DEMO_PASSWORD);
 }

@@ -5,7 +5,7 @@
  * with geometry/'s readers.
  */
 import { CSV_COLUMNS } from "@/geometry/csv/columns";
-import type { DatasetKind } from "@/lib/domain/datasets";
+import { CSV_FORMAT_OF, type DatasetKind } from "@/lib/domain/datasets";
 
 export { DATASET_KIND_LABELS as KIND_LABELS, PHASE_LABELS } from "@/lib/domain/datasets";
 export type DatasetKindKey = DatasetKind;
@@ -27,27 +27,32 @@ export const KIND_HINTS: Record<DatasetKindKey, string> = {
   tram: "Indicator readings along a travel, for the tram slope and straightness.",
   sweep: "Indicator readings at angles around a circle of known radius, for tilt and flatness.",
   test_part: "Each measured characteristic of the cut test part with its nominal and tolerance.",
+  tcp_check:
+    "Sphere-probe data taken with the control's tool-centre-point function on, after the new values were entered: where the control reports the sphere centre at each pose.",
 };
 
 /** What the form shows for each column: a label and other header spellings that map to it. */
-export const PRESENTATION: Record<DatasetKindKey, Readonly<Record<string, Presentation>>> = {
-  sphere_probe: {
-    primary_deg: {
-      label: "Primary angle (°)",
-      aliases: ["primary", "primaryangle", "c", "cdeg", "c_deg", "rotary"],
-    },
-    secondary_deg: {
-      label: "Secondary angle (°)",
-      aliases: ["secondary", "secondaryangle", "a", "b", "adeg", "bdeg", "tilt"],
-    },
-    x: { label: "Centre x", aliases: ["xmm", "xin", "centrex", "centerx", "xcoord"] },
-    y: { label: "Centre y", aliases: ["ymm", "yin", "centrey", "centery", "ycoord"] },
-    z: { label: "Centre z", aliases: ["zmm", "zin", "centrez", "centerz", "zcoord"] },
-    point: { label: "Point number", aliases: ["pt", "pose", "no", "nr"] },
-    repeat: { label: "Repeat", aliases: ["rep", "run"] },
-    temp_c: { label: "Temperature (°C)", aliases: ["temp", "temperature", "tempc"] },
-    tool_mm: { label: "Tool length (mm)", aliases: ["tool", "toollength", "toolmm"] },
+const SPHERE_PROBE_PRESENTATION: Readonly<Record<string, Presentation>> = {
+  primary_deg: {
+    label: "Primary angle (°)",
+    aliases: ["primary", "primaryangle", "c", "cdeg", "c_deg", "rotary"],
   },
+  secondary_deg: {
+    label: "Secondary angle (°)",
+    aliases: ["secondary", "secondaryangle", "a", "b", "adeg", "bdeg", "tilt"],
+  },
+  x: { label: "Centre x", aliases: ["xmm", "xin", "centrex", "centerx", "xcoord"] },
+  y: { label: "Centre y", aliases: ["ymm", "yin", "centrey", "centery", "ycoord"] },
+  z: { label: "Centre z", aliases: ["zmm", "zin", "centrez", "centerz", "zcoord"] },
+  point: { label: "Point number", aliases: ["pt", "pose", "no", "nr"] },
+  repeat: { label: "Repeat", aliases: ["rep", "run"] },
+  temp_c: { label: "Temperature (°C)", aliases: ["temp", "temperature", "tempc"] },
+  tool_mm: { label: "Tool length (mm)", aliases: ["tool", "toollength", "toolmm"] },
+};
+
+export const PRESENTATION: Record<DatasetKindKey, Readonly<Record<string, Presentation>>> = {
+  sphere_probe: SPHERE_PROBE_PRESENTATION,
+  tcp_check: SPHERE_PROBE_PRESENTATION,
   tram: {
     travel: { label: "Travel", aliases: ["position", "pos", "distance", "x", "z"] },
     reading: { label: "Reading", aliases: ["indicator", "dial", "value", "tir"] },
@@ -80,7 +85,7 @@ interface Presentation {
 
 function columnsOf(kind: DatasetKindKey): readonly ColumnInfo[] {
   const shown = PRESENTATION[kind];
-  return CSV_COLUMNS[kind].map((c) => ({
+  return CSV_COLUMNS[CSV_FORMAT_OF[kind]].map((c) => ({
     name: c.name,
     label: shown[c.name]!.label,
     required: c.required,
@@ -96,6 +101,7 @@ export const COLUMNS: Record<DatasetKindKey, readonly ColumnInfo[]> = {
   tram: columnsOf("tram"),
   sweep: columnsOf("sweep"),
   test_part: columnsOf("test_part"),
+  tcp_check: columnsOf("tcp_check"),
 };
 
 export function normaliseHeader(h: string): string {

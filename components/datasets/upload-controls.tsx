@@ -78,7 +78,13 @@ const UNIT_CHOICES: ReadonlyArray<{
   field: keyof Units;
   options: ReadonlyArray<{ value: string; label: string }>;
 }> = [
-  { kinds: ["sphere_probe"], legend: "Unit of x, y, z", name: "units", field: "units", options: LENGTH },
+  {
+    kinds: ["sphere_probe", "tcp_check"],
+    legend: "Unit of x, y, z",
+    name: "units",
+    field: "units",
+    options: LENGTH,
+  },
   { kinds: ["tram"], legend: "Unit of the travel", name: "travel_units", field: "travel", options: LENGTH },
   {
     kinds: ["tram", "sweep"],

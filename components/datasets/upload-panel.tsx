@@ -20,7 +20,7 @@ function uploadForm(s: UploadState, file: File, header: string | undefined): For
   form.set("kind", s.kind);
   form.set("phase", s.phase);
   form.set("decimal", s.comma ? "comma" : "point");
-  if (s.kind === "sphere_probe") form.set("units", s.units.units);
+  if (s.kind === "sphere_probe" || s.kind === "tcp_check") form.set("units", s.units.units);
   if (s.kind === "tram") {
     form.set("travel_units", s.units.travel);
     form.set("reading_units", s.units.reading);

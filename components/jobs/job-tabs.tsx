@@ -13,6 +13,7 @@ export const JOB_TABS: ReadonlyArray<{ segment: string; label: string }> = [
   { segment: "compare", label: "Compare" },
   { segment: "data", label: "Data" },
   { segment: "analysis", label: "Analysis" },
+  { segment: "control", label: "Control" },
   { segment: "report", label: "Report" },
   { segment: "activity", label: "Activity" },
 ];

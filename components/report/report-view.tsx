@@ -1,5 +1,7 @@
 import { DECISION, ReportTable, Rows, Section } from "@/components/report/report-parts";
 import { ConformityStatement } from "@/components/report/conformity-statement";
+import { BudgetReportSection } from "@/components/report/budget-section";
+import { ControlValuesReportSection } from "@/components/report/control-values-section";
 import { ReportFigures } from "@/components/report/report-charts";
 import { reportFacts } from "@/lib/report/build";
 import { ClosingStatements, RecordsSection } from "@/components/report/records-section";
@@ -120,6 +122,8 @@ export function ReportView({ data }: { data: ReportData }) {
         ) : (
           <p className="text-sm text-graphite-600">No kinematic fit is part of this report.</p>
         )}
+        <ControlValuesReportSection section={data.controlValues} />
+        <BudgetReportSection budget={data.budget} />
       </Section>
       <Section n={6} title="Test part">
         {data.testPart.length ? (

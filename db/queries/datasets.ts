@@ -5,7 +5,7 @@ import { appendAudit } from "@/db/queries/audit";
 import { getJobDetail, jobAccessCondition } from "@/db/queries/jobs";
 import { datasetColumns, datasets, jobs, users } from "@/db/schema";
 import { evaluateTestPart, type TestPartRow } from "@/geometry";
-import type { DatasetListRow } from "@/lib/domain/datasets";
+import type { DatasetKind, DatasetListRow } from "@/lib/domain/datasets";
 import type { Actor } from "@/lib/domain/roles";
 import { dataHandlerRefusal, datasetDeleteRefusal, uploadRefusal } from "@/lib/policy/datasets";
 import { AppError, forbidden, notFound } from "@/lib/errors";
@@ -23,12 +23,12 @@ import { isUuid } from "@/lib/domain/uuid";
  * The job an upload goes to, checked before the body is read: 404 when the actor may not see it,
  * 403 when their role may not upload, 409 when the job is past the stage that takes data.
  */
-export async function requireUploadableJob(actor: Actor, jobId: string) {
+export async function requireUploadableJob(actor: Actor, jobId: string, kind?: DatasetKind) {
   const d = await getJobDetail(actor, jobId);
   if (!d) throw notFound("job");
   const who = dataHandlerRefusal(actor, "upload");
   if (who) throw forbidden(who);
-  const when = uploadRefusal(actor, d.job);
+  const when = uploadRefusal(actor, d.job, kind);
   if (when) throw new AppError(409, "job_closed", when);
   return d;
 }

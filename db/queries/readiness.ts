@@ -5,6 +5,7 @@ import { appendAudit } from "@/db/queries/audit";
 import { getApprovedAnalysis, listJobAnalyses } from "@/db/queries/analyses";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
 import { getIssuer } from "@/db/queries/issuer";
+import { jobTcpChecks } from "@/db/queries/control-values";
 import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
 import { getComparison } from "@/db/queries/readings";
@@ -27,6 +28,7 @@ import {
   type ReadinessInput,
 } from "@/lib/report/readiness";
 import type { SignatureManifest } from "@/lib/report/signing";
+import { tcpCheckSubject } from "@/lib/tcp-check-display";
 
 /**
  * Gathers what the readiness check (lib/report/readiness.ts) judges, and records deviations: a
@@ -72,6 +74,8 @@ export async function readinessInput(actor: Actor, d: JobDetail): Promise<Readin
       getIssuer(),
     ]);
   const photoCounts = new Map(photoRows.map((p) => [p.stepId, p.n]));
+  const tcp = await jobTcpChecks(jobId, d.job.templateId);
+  const latestTcp = tcp.checks[0];
   const stored = (list ?? []).filter((x) => x.status === "stored");
   const fitted = new Set((analysesList ?? []).map((a) => a.analysis.datasetId));
   const testPart = countingTestPart(stored);
@@ -99,6 +103,15 @@ export async function readinessInput(actor: Actor, d: JobDetail): Promise<Readin
           label: `Test part ${r.feature}, ${r.characteristic}`,
           decision: r.decision,
         }))
+      : []),
+    ...(latestTcp
+      ? [
+          {
+            subject: tcpCheckSubject(latestTcp.datasetId),
+            label: `Tool-centre-point check ${latestTcp.filename}`,
+            decision: latestTcp.view.decision,
+          },
+        ]
       : []),
   ];
   const step = (r: { decision: Parameters<typeof reportDecision>[0]; instrument: string | null } | null) =>
@@ -146,6 +159,10 @@ export async function readinessInput(actor: Actor, d: JobDetail): Promise<Readin
     ),
     currentStateSha256: state,
     deviationSubjects: carried.map((c) => c.subject),
+    tcpCheck: {
+      required: tcp.limits.required,
+      latest: latestTcp ? { datasetId: latestTcp.datasetId, filename: latestTcp.filename } : null,
+    },
   };
 }
 

@@ -7,6 +7,8 @@ import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
 import { getComparison } from "@/db/queries/readings";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
 import { reportFigureViews } from "@/db/queries/report-views";
+import { reportBudget } from "@/db/queries/budget";
+import { reportControlValues } from "@/db/queries/control-values";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
 import { carriedResultCount, countingTestPart, listDeviations, readinessInput } from "@/db/queries/readiness";
 import {
@@ -206,6 +208,8 @@ export async function buildReportData(
     deviations: carried,
     carried: carriedCount,
     verifyUrl: `${publicUrl}/verify/${meta.reportId}`,
+    controlValues: await reportControlValues(actor, d.job),
+    budget: await reportBudget(actor, d),
   });
   return { data, images };
 }

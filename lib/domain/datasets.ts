@@ -1,5 +1,5 @@
-/** Uploaded datasets: their four kinds, the two phases of the work, and the list row pages show. */
-export const DATASET_KINDS = ["sphere_probe", "tram", "sweep", "test_part"] as const;
+/** Uploaded datasets: their kinds, the two phases of the work, and the list row pages show. */
+export const DATASET_KINDS = ["sphere_probe", "tram", "sweep", "test_part", "tcp_check"] as const;
 export type DatasetKind = (typeof DATASET_KINDS)[number];
 
 export const DATASET_KIND_LABELS: Record<DatasetKind, string> = {
@@ -7,7 +7,17 @@ export const DATASET_KIND_LABELS: Record<DatasetKind, string> = {
   tram: "Indicator tram",
   sweep: "Indicator sweep",
   test_part: "Test-part measurements",
+  tcp_check: "Tool-centre-point check",
 };
+
+/** The CSV format each kind is read with: a TCP check is sphere-probe data (geometry/README.md). */
+export const CSV_FORMAT_OF = {
+  sphere_probe: "sphere_probe",
+  tram: "tram",
+  sweep: "sweep",
+  test_part: "test_part",
+  tcp_check: "sphere_probe",
+} as const satisfies Record<DatasetKind, string>;
 
 export const DATASET_STATUSES = ["stored", "deleted"] as const;
 export type DatasetStatus = (typeof DATASET_STATUSES)[number];

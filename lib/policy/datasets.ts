@@ -1,4 +1,5 @@
 /** Datasets: who uploads and deletes measurement data, and while the job is in which status. */
+import type { DatasetKind } from "@/lib/domain/datasets";
 import type { JobStatus } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
 
@@ -12,12 +13,23 @@ export function dataHandlerRefusal(actor: Actor, action: "upload" | "delete"): s
   return actor.role === "customer" ? `Your role may not ${action} data.` : null;
 }
 
-/** May this actor upload to a job (they can see) in this status now? */
-export function uploadRefusal(actor: Actor, job: { status: JobStatus }): string | null {
+/**
+ * After approval one kind of data is still taken: the tool-centre-point check, which verifies the
+ * values entered in the control from the approved fit (it cannot exist before them).
+ */
+export const AFTER_APPROVAL_KINDS: readonly DatasetKind[] = ["tcp_check"];
+
+/**
+ * May this actor upload to a job (they can see) in this status now? Without `kind`: could any
+ * upload be taken (checked before the body is read); with it: this kind of data.
+ */
+export function uploadRefusal(actor: Actor, job: { status: JobStatus }, kind?: DatasetKind): string | null {
   const who = dataHandlerRefusal(actor, "upload");
   if (who) return who;
-  return UPLOAD_STATUSES.includes(job.status)
-    ? null
+  if (UPLOAD_STATUSES.includes(job.status)) return null;
+  if (job.status === "approved" && (kind === undefined || AFTER_APPROVAL_KINDS.includes(kind))) return null;
+  return job.status === "approved"
+    ? "Once the parameters are approved, only a tool-centre-point check is added to the job."
     : `Data can be added while the job is draft, measuring or in review; this job is ${job.status.replace("_", " ")}.`;
 }
 

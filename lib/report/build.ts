@@ -499,6 +499,9 @@ export interface ReportInputs {
   issuer: ReportData["issuer"];
   /** The record details (ISO/IEC 17025:2017 §7.8.2.1); absent only where a caller has none to give. */
   records?: ReportRecords;
+  /** lib/report/sections/control.ts; null or absent when no control values were recorded. */
+  controlValues?: ReportData["controlValues"] | null;
+  budget?: ReportData["budget"] | null;
 }
 
 const METHOD_READINGS = "Indicator readings against the checklist limits";
@@ -571,6 +574,8 @@ export function buildReportContent(i: ReportInputs): ReportData {
     },
     conformity: reportConformity(i, d.job.decisionRule),
     deviations: deviationRows(i.deviations),
+    ...(i.controlValues ? { controlValues: i.controlValues } : {}),
+    ...(i.budget ? { budget: i.budget } : {}),
     remarks: [...(i.parameters ? [i.parameters.note] : []), ...(d.job.notes ? [d.job.notes] : [])],
     ...(i.photos?.length ? { photos: i.photos } : {}),
     safety: [...SAFETY_NOTES],

@@ -26,6 +26,8 @@ import { parameterChartRows, readingRows } from "./chart-data";
 import { LimitRowsChart, ResidualsChart } from "./charts";
 import { PhotoAppendix } from "./sections/photos";
 import { ClosingStatementsPdf, RecordDetailsPdf } from "./sections/records-pdf";
+import { BudgetPdf } from "./sections/budget";
+import { ControlValuesPdf } from "./sections/control-pdf";
 
 const C = {
   ink: palette.graphite[900],
@@ -475,6 +477,9 @@ export function ReportDocument({
               </View>
             ))}
           </View>
+
+          <ControlValuesPdf section={data.controlValues} />
+          <BudgetPdf budget={data.budget} />
 
           <Text style={s.h2} minPresenceAhead={40}>
             6 Test part

@@ -12,6 +12,8 @@
  *   parameters) is present in the phase that counts and evaluated; every test part is evaluated.
  * - The fit is approved; the "performed" and "inspected" signatures are present and still match
  *   the job's recorded state (a later reading or dataset makes them stale).
+ * - A procedure that asks for a tool-centre-point check after compensation has one stored; its
+ *   latest check is judged like any other result (FAIL: check again, or carry it as a deviation).
  * - Every FAIL or undecided result is either measured again and passing (the current reading or
  *   fit is what is judged) or carried as a deviation with a written justification.
  * - The issuer's name and address are filled in (ISO/IEC 17025:2017 §7.8.2.1 b).
@@ -32,6 +34,7 @@ export const BLOCKER_CODES = [
   "result_not_conforming",
   "photo_missing",
   "issuer_details_missing",
+  "tcp_check_missing",
 ] as const;
 export type BlockerCode = (typeof BLOCKER_CODES)[number];
 
@@ -91,6 +94,8 @@ export interface ReadinessInput {
   deviationSubjects: readonly string[];
   /** The issuer's details that are empty ("name", "address"): lib/policy/issuer.issuerDetailsMissing. */
   issuerMissing?: readonly string[];
+  /** The procedure asks for a TCP check, and the latest stored one (its judged result is in `results`). */
+  tcpCheck?: { required: boolean; latest: { datasetId: string; filename: string } | null };
 }
 
 /** The phase whose state the report vouches for. */
@@ -199,6 +204,13 @@ export function readiness(input: ReadinessInput): Readiness {
         `${job}/analysis`,
       );
   }
+
+  if (input.tcpCheck?.required && !input.tcpCheck.latest)
+    add(
+      "tcp_check_missing",
+      "The procedure asks for a tool-centre-point check after the new values are entered in the control; none is stored.",
+      `${job}/control`,
+    );
 
   for (const meaning of ["performed", "inspected"] as const) {
     const given = input.signatures.filter((s) => s.meaning === meaning);

@@ -7,6 +7,8 @@
 import type { RecordedDecision } from "@/lib/domain/decisions";
 import type { PhotoAppendixRow } from "./sections/photos";
 import type { ReportRecords } from "@/lib/report/sections/records";
+import type { ReportBudget } from "@/lib/report/sections/budget";
+import type { ReportControlValues } from "@/lib/report/sections/control";
 
 /** geometry's decision, or "not_measured", or "recorded": a reading kept without a limit to judge it against. */
 export type Decision = RecordedDecision;
@@ -108,6 +110,10 @@ export interface ReportData {
   }>;
   /** Record details and traceability (ISO/IEC 17025:2017 §7.8.2.1); absent in reports issued before them. */
   records?: ReportRecords;
+  /** The control's values as found, to enter and as left; absent when none were recorded. */
+  controlValues?: ReportControlValues;
+  /** The approved fit's uncertainty budget; absent without an approved fit. */
+  budget?: ReportBudget;
   remarks: string[];
   /** Photos of the steps that ask for one (lib/report/sections/photos.tsx); absent when none. */
   photos?: PhotoAppendixRow[];

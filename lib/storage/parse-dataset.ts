@@ -20,6 +20,8 @@ import {
   readSweepCsv,
   readTestPartCsv,
   readTramCsv,
+  tcpCheck,
+  tcpCheckToJson,
   type TestPartRow,
 } from "@/geometry";
 import { DATASET_KINDS, PHASES, type DatasetKind } from "@/lib/domain/datasets";
@@ -53,12 +55,16 @@ const headerLine = z
   )
   .optional();
 
+const sphereProbeForm = z.object({
+  units: z.enum(["mm", "in"], { error: "choose mm or in for the x, y, z columns" }),
+  decimal,
+  header: headerLine,
+});
+
 const formSchemas = {
-  sphere_probe: z.object({
-    units: z.enum(["mm", "in"], { error: "choose mm or in for the x, y, z columns" }),
-    decimal,
-    header: headerLine,
-  }),
+  sphere_probe: sphereProbeForm,
+  // The sphere-probe format, taken with the control's tool-centre-point function active.
+  tcp_check: sphereProbeForm,
   tram: z.object({
     travel_units: z.enum(["mm", "in"], { error: "choose mm or in for the travel" }),
     reading_units: z.enum(["um", "mm", "in"], { error: "choose um, mm or in for the readings" }),
@@ -92,7 +98,7 @@ const formSchemas = {
 } as const;
 
 export const uploadFormSchema = z.object({
-  kind: z.enum(DATASET_KINDS, { error: "kind must be sphere_probe, tram, sweep or test_part" }),
+  kind: z.enum(DATASET_KINDS, { error: "kind must be sphere_probe, tram, sweep, test_part or tcp_check" }),
   phase: z.enum(PHASES, { error: "phase must be pre or post" }),
 });
 
@@ -373,6 +379,23 @@ export function parseDatasetText(form: UploadForm, input: string): ParsedDataset
           d.warnings,
           extra,
         );
+      }
+      case "tcp_check": {
+        // Evaluated at upload (geometry/tcp-check.ts): a set with no swing is refused naming why.
+        const d = readSphereProbeCsv(text, { units: form.units!, decimal: form.decimal });
+        const r = tcpCheck(d);
+        const columns = [
+          copyColumn("primary_deg", "deg", d.primaryDeg),
+          copyColumn("secondary_deg", "deg", d.secondaryDeg),
+          copyColumn("x_mm", "mm", d.xMm),
+          copyColumn("y_mm", "mm", d.yMm),
+          copyColumn("z_mm", "mm", d.zMm),
+          ...(d.toolMm ? [copyColumn("tool_mm", "mm", d.toolMm)] : []),
+        ];
+        const tcp = { ...tcpCheckToJson(r), mean_centre_mm: r.mean_centre_mm };
+        return done(form, d.rows, columns, { units: form.units! }, options, { tcp }, d.warnings, [
+          ...r.warnings,
+        ]);
       }
       case "test_part": {
         const rows = readTestPartCsv(text, { decimal: form.decimal });

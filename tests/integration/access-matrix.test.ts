@@ -57,6 +57,8 @@ const COVERED = new Set([
   "app/api/analyses/[id]/views/route.ts",
   "app/api/analysis-views/[id]/image/route.ts",
   "app/api/heads/[id]/history/route.ts",
+  // tests/integration/control-values.test.ts
+  "app/api/jobs/[id]/control-values/route.ts",
   // tests/integration/registers-access.test.ts
   "app/api/customers/route.ts",
   "app/api/customers/[id]/route.ts",

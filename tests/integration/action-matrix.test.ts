@@ -16,7 +16,7 @@ import { recordReading } from "@/db/queries/readings";
 import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
-import { jobs, users } from "@/db/schema";
+import { analyses, jobs, users } from "@/db/schema";
 import type { JobStatus } from "@/lib/domain/jobs";
 import type { ActionResult } from "@/lib/actions";
 import {
@@ -32,7 +32,7 @@ import {
   type JobBase,
 } from "./fixtures";
 import { PNG } from "pngjs";
-import { signInAs } from "./helpers";
+import { jobIdByReference, signInAs } from "./helpers";
 import { jobBaseOf } from "./ready-job";
 
 // Outside a Next request there is no cache to revalidate; the actions' access checks run unchanged.
@@ -48,6 +48,7 @@ const forgotPassword = await import("@/app/(auth)/forgot-password/actions");
 const procedures = await import("@/app/(app)/registers/procedures/actions");
 const jobOffice = await import("@/app/(app)/jobs/actions");
 const settings = await import("@/app/(app)/registers/settings/actions");
+const control = await import("@/app/(app)/jobs/[id]/control/actions");
 
 const EMAIL = WHO;
 type Outcome = "pass" | "unauthorized" | "forbidden" | "not_found";
@@ -262,6 +263,37 @@ MATRIX.chooseReportViewAction = {
     const { jobId, viewId } = await freshView();
     await signInAs(EMAIL[who]);
     return analysis.chooseReportViewAction({ jobId, viewId, include: false });
+  },
+};
+
+MATRIX.recordControlValuesAction = {
+  // The control's values are the application engineer's to record, refused to anyone else before
+  // the job is looked up (so another tenant's customer is refused, not told the job is missing).
+  expect: staffOnly(["engineer"]),
+  call: async () =>
+    control.recordControlValuesAction({
+      jobId: await freshJob("measuring"),
+      stage: "as_found",
+      unitSystem: "metric",
+      pivot_length_mm: "152.4",
+    }),
+};
+
+MATRIX.recordBudgetInputsAction = {
+  // The budget's inputs are the application engineer's, refused to anyone else before the analysis
+  // is looked up. The engineer's call chooses no instrument on the seeded TR-2026-0052 fit (Type A only).
+  expect: staffOnly(["engineer"]),
+  call: async () => {
+    const [a] = await db
+      .select({ id: analyses.id })
+      .from(analyses)
+      .where(eq(analyses.jobId, await jobIdByReference("TR-2026-0052")))
+      .limit(1);
+    return control.recordBudgetInputsAction({
+      jobId: await jobIdByReference("TR-2026-0052"),
+      analysisId: a!.id,
+      deltaTK: "0.5",
+    });
   },
 };
 

@@ -242,6 +242,8 @@ const AUDITED_TABLES = [
   "deviations",
   "photos",
   "environmentRecords",
+  "controlValueRecords",
+  "analysisBudgetInputs",
 ];
 const WRITE = new RegExp(`\\.(insert|update|delete)\\((${AUDITED_TABLES.join("|")})\\)`, "g");
 

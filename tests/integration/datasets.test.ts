@@ -306,7 +306,7 @@ describe("rejected uploads: exact issues, nothing stored", () => {
     ]);
     const badKind = await upload(measuring, bytes, { kind: "photo", phase: "during" });
     expect((await badKind.json()).error.issues).toEqual([
-      { field: "kind", message: "kind must be sphere_probe, tram, sweep or test_part" },
+      { field: "kind", message: "kind must be sphere_probe, tram, sweep, test_part or tcp_check" },
       { field: "phase", message: "phase must be pre or post" },
     ]);
     const noRadius = await upload(measuring, fixture("sweep-good.csv"), {

@@ -3,16 +3,23 @@
 import { describe, expect, it } from "vitest";
 import { COLUMNS, guessMapping, normaliseHeader, PRESENTATION } from "@/components/datasets/kinds";
 import { CSV_COLUMNS } from "@/geometry/csv/columns";
-import { DATASET_KINDS } from "@/lib/domain/datasets";
+import { CSV_FORMAT_OF, DATASET_KINDS } from "@/lib/domain/datasets";
 
 describe("the form's columns are geometry's", () => {
   it("lists exactly the readers' columns, in their order, with their required and number flags", () => {
     for (const kind of DATASET_KINDS) {
       expect(COLUMNS[kind].map((c) => [c.name, c.required, c.numeric, Boolean(c.allowEmpty)])).toEqual(
-        CSV_COLUMNS[kind].map((c) => [c.name, c.required, c.kind === "number", Boolean(c.allowEmpty)]),
+        CSV_COLUMNS[CSV_FORMAT_OF[kind]].map((c) => [
+          c.name,
+          c.required,
+          c.kind === "number",
+          Boolean(c.allowEmpty),
+        ]),
       );
       // A label for a column the readers no longer have would be dead text.
-      expect(Object.keys(PRESENTATION[kind]).sort()).toEqual(CSV_COLUMNS[kind].map((c) => c.name).sort());
+      expect(Object.keys(PRESENTATION[kind]).sort()).toEqual(
+        CSV_COLUMNS[CSV_FORMAT_OF[kind]].map((c) => c.name).sort(),
+      );
     }
   });
 });

@@ -294,7 +294,13 @@ describe("moves on someone else's job, amendments, data and registers", () => {
       expect(uploadRefusal(actor(r), { status: "in_review" })).toBeNull();
       expect(datasetDeleteRefusal(actor(r), { status: "measuring" })).toBeNull();
       expect(datasetDeleteRefusal(actor(r), { status: "in_review" })).toMatch(/before review/);
-      expect(uploadRefusal(actor(r), { status: "approved" })).toMatch(/draft, measuring or in review/);
+      expect(uploadRefusal(actor(r), { status: "approved" }, "sphere_probe")).toMatch(
+        /only a tool-centre-point check/,
+      );
+      expect(uploadRefusal(actor(r), { status: "approved" }, "tcp_check")).toBeNull();
+      expect(uploadRefusal(actor(r), { status: "issued" }, "tcp_check")).toMatch(
+        /draft, measuring or in review/,
+      );
     }
     expect(uploadRefusal(actor("customer", "cA"), { status: "measuring" })).toMatch(/may not upload/);
     expect(datasetDeleteRefusal(actor("customer", "cA"), { status: "measuring" })).toMatch(/may not delete/);

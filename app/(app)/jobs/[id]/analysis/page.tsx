@@ -32,6 +32,7 @@ import type { Actor } from "@/lib/domain/roles";
 import { fitApproverRefusal, headFitRefusal, viewSaveRefusal } from "@/lib/policy/analyses";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
+import { BudgetSection } from "./budget-section";
 import { SavedViews } from "./saved-views";
 
 export const metadata: Metadata = { title: "Analysis" };
@@ -129,6 +130,16 @@ export default async function AnalysisPage({ params, searchParams }: Props) {
           jobStatus={d.job.status}
           approved={approved}
           limits={limits}
+        />
+      ) : null}
+
+      {shownWithPoses ? (
+        <BudgetSection
+          jobId={id}
+          analysis={shownWithPoses.analysis}
+          config={config}
+          user={user}
+          jobStatus={d.job.status}
         />
       ) : null}
 

@@ -25,6 +25,8 @@ export const POST = route<Ctx>(async (req, ctx) => {
   // 2. The body, streamed within the limit.
   const { fields, file } = await readMultipart(req, env.UPLOAD_MAX_BYTES);
   const form = parseUploadForm(fields);
+  // After approval only some kinds are taken: checked again now that the kind is known.
+  await requireUploadableJob(actor, id, form.kind);
   if (!file) throw invalid("Choose a CSV file to upload.", [{ field: "file", message: "no file was sent" }]);
   // 3. Re-parse with geometry/'s readers: 422 naming row and column on any problem.
   const parsed = parseDatasetFile(form, file.data);

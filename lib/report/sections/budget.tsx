@@ -1,0 +1,81 @@
+/** The report's uncertainty budget of the approved fit (5.3), for the PDF; absent without an approved fit. */
+import { StyleSheet, Text, View } from "@react-pdf/renderer";
+import type { BudgetTableRow } from "@/lib/budget-display";
+import { palette } from "@/lib/domain/theme";
+import { MONO_FONT } from "@/lib/report/fonts";
+
+export interface ReportBudget {
+  /** The Type B inputs in words, with their standard uncertainties. */
+  inputs: string;
+  rows: BudgetTableRow[];
+  notes: string[];
+}
+
+const s = StyleSheet.create({
+  h2: {
+    fontSize: 10.5,
+    lineHeight: 1.2,
+    fontWeight: 700,
+    marginTop: 12,
+    marginBottom: 5,
+    paddingBottom: 2,
+    borderBottomWidth: 0.75,
+    borderBottomColor: palette.graphite[200],
+  },
+  muted: { color: palette.graphite[600], marginBottom: 3 },
+  table: { borderWidth: 0.75, borderColor: palette.graphite[200] },
+  tr: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: palette.graphite[200] },
+  th: { backgroundColor: palette.graphite[50], fontWeight: 700, color: palette.graphite[600], fontSize: 7.5 },
+  td: { paddingVertical: 2, paddingHorizontal: 4 },
+  num: { fontFamily: MONO_FONT as unknown as string, textAlign: "right", fontSize: 7.5 },
+});
+
+const W = ["46%", "18%", "18%", "18%"] as const;
+
+export function BudgetPdf({ budget }: { budget: ReportBudget | undefined }) {
+  if (!budget) return null;
+  return (
+    <View>
+      <Text style={s.h2} minPresenceAhead={60}>
+        5.3 Uncertainty budget of the head parameters (JCGM 100)
+      </Text>
+      <Text style={s.muted}>
+        Each parameter&apos;s u_c is the root sum of squares of its contributions |c|·u (uncorrelated inputs);
+        U = 2·u_c (k = 2, about 95 %). {budget.inputs}
+      </Text>
+      <View style={s.table}>
+        <View style={[s.tr, s.th]} fixed>
+          {["Parameter / component", "u", "Sensitivity c", "Contribution"].map((h, i) => (
+            <Text key={h} style={[s.td, { width: W[i] }]}>
+              {h}
+            </Text>
+          ))}
+        </View>
+        {budget.rows.map((r) => (
+          <View key={r.parameter} wrap={false}>
+            <View style={s.tr}>
+              <Text style={[s.td, { width: "100%", fontWeight: 700 }]}>
+                {r.parameter}: u_c {r.uc} {r.unit}, U {r.U} {r.unit}
+              </Text>
+            </View>
+            {r.components.map((c) => (
+              <View key={c.name} style={s.tr}>
+                <Text style={[s.td, { width: W[0], paddingLeft: 12 }]}>{c.name}</Text>
+                <Text style={[s.td, s.num, { width: W[1] }]}>{c.u}</Text>
+                <Text style={[s.td, s.num, { width: W[2] }]}>{c.sensitivity}</Text>
+                <Text style={[s.td, s.num, { width: W[3] }]}>
+                  {c.contribution} {r.unit}
+                </Text>
+              </View>
+            ))}
+          </View>
+        ))}
+      </View>
+      {budget.notes.map((n) => (
+        <Text key={n} style={s.muted}>
+          Note: {n}.
+        </Text>
+      ))}
+    </View>
+  );
+}

@@ -1,0 +1,127 @@
+/** The PDF's control-values section (5.1), from the report's data; absent when nothing was recorded. */
+import { StyleSheet, Text, View } from "@react-pdf/renderer";
+import { drawing, palette } from "@/lib/domain/theme";
+import { MONO_FONT } from "@/lib/report/fonts";
+import type { ReportControlValues } from "./control";
+
+const s = StyleSheet.create({
+  h2: {
+    fontSize: 10.5,
+    lineHeight: 1.2,
+    fontWeight: 700,
+    marginTop: 12,
+    marginBottom: 5,
+    paddingBottom: 2,
+    borderBottomWidth: 0.75,
+    borderBottomColor: palette.graphite[200],
+  },
+  muted: { color: palette.graphite[600], marginBottom: 3 },
+  table: { borderWidth: 0.75, borderColor: palette.graphite[200] },
+  tr: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: palette.graphite[200] },
+  th: { backgroundColor: palette.graphite[50], fontWeight: 700, color: palette.graphite[600], fontSize: 7.5 },
+  td: { paddingVertical: 3, paddingHorizontal: 4 },
+  num: { fontFamily: MONO_FONT as unknown as string, textAlign: "right", fontSize: 7.5 },
+  flag: { color: palette.fail[700], fontWeight: 700 },
+  note: {
+    borderWidth: 1.2,
+    borderColor: drawing.accentLine,
+    padding: 7,
+    marginTop: 4,
+    backgroundColor: palette.accent[50],
+  },
+});
+
+const COLS = [
+  ["Setting", "24%"],
+  ["As found", "15%"],
+  ["Correction", "13%"],
+  ["Value to enter", "15%"],
+  ["As left", "15%"],
+  ["Check", "18%"],
+] as const;
+
+const TCP_COLS = [
+  ["Figure", "52%"],
+  ["Value", "16%"],
+  ["Limit", "16%"],
+  ["Result", "16%"],
+] as const;
+
+export const TCP_DECISION: Record<string, string> = {
+  pass: "Pass",
+  fail: "FAIL",
+  undecided: "Undecided",
+  recorded: "Recorded",
+  not_measured: "Not measured",
+};
+
+export function ControlValuesPdf({ section }: { section: ReportControlValues | undefined }) {
+  if (!section) return null;
+  return (
+    <View>
+      <Text style={s.h2} minPresenceAhead={60}>
+        5.1 Values for the control: as found, to enter, as left
+      </Text>
+      <Text style={s.muted}>{section.basis}</Text>
+      {section.rows.length === 0 ? <Text style={s.muted}>No control values were recorded.</Text> : null}
+      <View style={s.table}>
+        <View style={[s.tr, s.th]} fixed>
+          {COLS.map(([h, w]) => (
+            <Text key={h} style={[s.td, { width: w }]}>
+              {h}
+            </Text>
+          ))}
+        </View>
+        {section.rows.map((r) => (
+          <View key={r.setting} style={s.tr} wrap={false}>
+            <Text style={[s.td, { width: COLS[0][1] }]}>{r.setting}</Text>
+            <Text style={[s.td, s.num, { width: COLS[1][1] }]}>{r.asFound}</Text>
+            <Text style={[s.td, s.num, { width: COLS[2][1] }]}>{r.correction}</Text>
+            <Text style={[s.td, s.num, { width: COLS[3][1], fontWeight: 700 }]}>{r.toEnter}</Text>
+            <Text style={[s.td, s.num, { width: COLS[4][1] }]}>{r.asLeft}</Text>
+            <Text style={[s.td, { width: COLS[5][1] }, r.check && r.check !== "As computed" ? s.flag : {}]}>
+              {r.check || "—"}
+            </Text>
+          </View>
+        ))}
+      </View>
+      {section.recorded.map((t) => (
+        <Text key={t} style={s.muted}>
+          {t}
+        </Text>
+      ))}
+      <Text style={s.muted}>Sign convention: {section.signConvention}</Text>
+      <View style={s.note} wrap={false}>
+        <Text>⚠ {section.caution}</Text>
+      </View>
+      {section.tcpCheck ? (
+        <View wrap={false}>
+          <Text style={s.h2}>5.2 Tool-centre-point check after compensation</Text>
+          <Text style={s.muted}>
+            {section.tcpCheck.file}: {section.tcpCheck.basis} Result:{" "}
+            {TCP_DECISION[section.tcpCheck.decision]}.
+          </Text>
+          <View style={s.table}>
+            <View style={[s.tr, s.th]}>
+              {TCP_COLS.map(([h, w]) => (
+                <Text key={h} style={[s.td, { width: w }]}>
+                  {h}
+                </Text>
+              ))}
+            </View>
+            {section.tcpCheck.rows.map((r) => (
+              <View key={r.quantity} style={s.tr}>
+                <Text style={[s.td, { width: TCP_COLS[0][1] }]}>{r.quantity}</Text>
+                <Text style={[s.td, s.num, { width: TCP_COLS[1][1] }]}>{r.value}</Text>
+                <Text style={[s.td, s.num, { width: TCP_COLS[2][1] }]}>{r.limit}</Text>
+                <Text style={[s.td, { width: TCP_COLS[3][1] }, r.decision === "fail" ? s.flag : {}]}>
+                  {TCP_DECISION[r.decision]}
+                </Text>
+              </View>
+            ))}
+          </View>
+        </View>
+      ) : null}
+    </View>
+  );
+}

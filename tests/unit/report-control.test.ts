@@ -1,0 +1,99 @@
+// The report's control-values section: the rows and words built from the control loop, and the
+// same printed in the PDF, read back with poppler's pdftotext (an independent reader).
+import { execFileSync } from "node:child_process";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { describe, expect, it } from "vitest";
+import type { HeadFitJson } from "@/geometry";
+import { controlLoop } from "@/lib/control-values";
+import { renderReportPdf } from "@/lib/report/render";
+import { controlValuesSection } from "@/lib/report/sections/control";
+import { samplePng, samplePngSha256, sampleReport } from "../fixtures/report/sample-report";
+
+const fit: HeadFitJson = {
+  parameters: [
+    {
+      key: "pivot_length_error_um",
+      iso: "EZ0A",
+      value: 37.88,
+      unit: "um",
+      u: 0.6,
+      U: 1.2,
+      identifiable: "yes",
+    },
+    {
+      key: "secondary_zero_arcsec",
+      iso: "EA0A",
+      value: 18,
+      unit: "arcsec",
+      u: 0.3,
+      U: 0.6,
+      identifiable: "yes",
+    },
+  ],
+  sphere_centre_mm: [0, 0, 0],
+  rms_um: 1,
+  max_um: 2,
+  outliers: [],
+  outlier_count: 0,
+  iterations: 3,
+  warnings: [],
+};
+const at = new Date("2026-11-30T10:00:00Z");
+const record = { createdAt: at, recordedBy: "Ines Okafor", note: null };
+
+describe("the report's control-values section", () => {
+  // Worked by hand: 152.4 mm + 37.88 µm = 152.43788 mm; 0° + 18″ = 0.005°; as left 0.015° differs by +0.01°.
+  const section = controlValuesSection({
+    loop: controlLoop({
+      asFound: { pivot_length_mm: 152.4, secondary_zero_deg: 0 },
+      asLeft: { pivot_length_mm: 152.4379, secondary_zero_deg: 0.015 },
+      approvedFit: fit,
+      unitSystem: "metric",
+    }),
+    asFound: record,
+    asLeft: record,
+    approved: { approvedBy: "Ines Okafor", approvedAt: at },
+    asLeftStale: false,
+  })!;
+
+  it("lists the recorded settings with the value to enter and flags the one left different", () => {
+    expect(section.rows.map((r) => [r.setting, r.toEnter, r.check])).toEqual([
+      ["Pivot length (tilt axis to gauge point)", "152.4379 mm", "As computed"],
+      ["Tilt axis zero offset", "0.00500° (18.0″)", "Differs from the value to enter (+0.01000° (+36.0″))"],
+    ]);
+    expect(section.flagged).toBe(1);
+    expect(section.basis).toContain("Values to enter = as found + the correction");
+    expect(section.caution).toContain("control builder's manual");
+  });
+
+  it("is left out when no control values were recorded", () => {
+    const none = controlValuesSection({
+      loop: controlLoop({ asFound: null, asLeft: null, approvedFit: fit, unitSystem: "metric" }),
+      asFound: null,
+      asLeft: null,
+      approved: null,
+      asLeftStale: false,
+    });
+    expect(none).toBeNull();
+  });
+
+  it("prints the section in the PDF with its numbers, flag, sign convention and caution", async () => {
+    const pdf = await renderReportPdf(
+      { ...sampleReport, controlValues: section },
+      undefined,
+      new Map([[samplePngSha256, samplePng]]),
+    );
+    const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-ctl-"));
+    writeFileSync(path.join(dir, "r.pdf"), pdf);
+    const text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"])
+      .toString("utf8")
+      .replace(/\s+/g, " ");
+    expect(text).toContain("5.1 Values for the control: as found, to enter, as left");
+    expect(text).toContain("152.4379 mm");
+    expect(text).toContain("Differs from the value to enter");
+    expect(text).toContain("Value to enter = as found + correction");
+    expect(text).toContain("qualified people");
+  }, 30_000);
+});
