@@ -11,7 +11,15 @@ import { appendAudit } from "@/db/queries/audit";
 import { getControlValues, recordControlValues } from "@/db/queries/control-values";
 import { insertDataset } from "@/db/queries/datasets";
 import { getActor } from "@/db/queries/users";
-import { controlValueRecords, instruments, jobs, procedureTemplates, users } from "@/db/schema";
+import {
+  controlValueRecords,
+  instruments,
+  jobs,
+  procedureTemplates,
+  templateSteps,
+  users,
+} from "@/db/schema";
+import { DEFAULT_STEPS } from "@/db/seed-checklists";
 import { recordBudgetInputs } from "@/db/queries/budget";
 import { DEMO_HEAD_CONFIG, demoSphereProbeCsv } from "@/db/seed-analyses";
 import { headPoseGrid, synthesiseSphereProbe, type HeadErrors } from "@/geometry";
@@ -144,13 +152,13 @@ export async function seedControlLoop(password: string): Promise<void> {
   if (!template) return;
   const engineer = await actorByEmail("engineer@halvard.example");
   const installer = await actorByEmail("installer@halvard.example");
-  // A procedure version of the demo's own: no checklist steps, a TCP check required with limits of
+  // A procedure version of the demo's own: one checklist step, a TCP check required with limits of
   // 15 µm range per axis and 10 µm from the mean (invented for the demo, like the customer's spec).
   let [procedure] = await db
     .select()
     .from(procedureTemplates)
     .where(and(eq(procedureTemplates.name, DEMO_CONTROL_PROCEDURE), eq(procedureTemplates.version, 1)));
-  if (!procedure)
+  if (!procedure) {
     [procedure] = await db
       .insert(procedureTemplates)
       .values({
@@ -163,6 +171,9 @@ export async function seedControlLoop(password: string): Promise<void> {
         createdById: engineer.id,
       })
       .returning();
+    // One checklist step, the collar face (the demo's copy of the installation procedure's first step).
+    await db.insert(templateSteps).values({ ...DEFAULT_STEPS[0]!, templateId: procedure!.id });
+  }
   let [job] = await db.select().from(jobs).where(eq(jobs.reference, DEMO_CONTROL_JOB));
   if (!job) {
     job = await db.transaction(async (tx) => {

@@ -16,6 +16,7 @@ import { POST as upload } from "@/app/api/jobs/[id]/datasets/route";
 import { POST as recordReading } from "@/app/api/jobs/[id]/readings/route";
 import { POST as postPhoto } from "@/app/api/jobs/[id]/photos/route";
 import { POST as postEnvironment } from "@/app/api/jobs/[id]/environment/route";
+import { PUT as recordControlValues } from "@/app/api/jobs/[id]/control-values/route";
 import { POST as verifyUpload } from "@/app/api/verify/route";
 import { POST as postCustomers } from "@/app/api/customers/route";
 import { PATCH as patchCustomersItem } from "@/app/api/customers/[id]/route";
@@ -93,6 +94,13 @@ const WRITES: { name: string; file: string; method: string; handler: Handler; pa
     file: "app/api/jobs/[id]/readings/route.ts",
     method: "POST",
     handler: recordReading as Handler,
+    params: () => ({ id: ids.job }),
+  },
+  {
+    name: "PUT /api/jobs/{id}/control-values",
+    file: "app/api/jobs/[id]/control-values/route.ts",
+    method: "PUT",
+    handler: recordControlValues as Handler,
     params: () => ({ id: ids.job }),
   },
   {
