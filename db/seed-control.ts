@@ -6,7 +6,7 @@
 import { createHash } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db";
-import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
+import { approveAnalysis, nonConformingParameters, runHeadFit } from "@/db/queries/analyses";
 import { appendAudit } from "@/db/queries/audit";
 import { getControlValues, recordControlValues } from "@/db/queries/control-values";
 import { insertDataset } from "@/db/queries/datasets";
@@ -86,13 +86,13 @@ const DEMO_BUDGET_INSTRUMENTS: ReadonlyArray<typeof instruments.$inferInsert> = 
   },
   {
     kind: "Reference sphere",
-    serial: "RS-0025",
+    serial: "RS-0031",
     quantityKind: "length",
     resolution: 0.0001,
     standardUncertainty: 0.0002,
     calibratedOn: "2026-03-10",
     calibrationDueOn: "2028-03-10",
-    certificateRef: "CAL-RS-0025-26",
+    certificateRef: "CAL-RS-0031-26",
   },
   {
     kind: "Tool presetter",
@@ -221,7 +221,14 @@ export async function seedControlLoop(password: string): Promise<void> {
   });
   const probe = await upload(installer, job.id, "sphere_probe", PROBE_FILENAME, demoSphereProbeCsv());
   const { analysis } = await runHeadFit(engineer, probe.id);
-  await approveAnalysis(engineer, analysis.id, password);
+  // The engineer confirms any parameter that does not conform, as the approval form asks.
+  const open = await nonConformingParameters(engineer, analysis.id);
+  await approveAnalysis(
+    engineer,
+    analysis.id,
+    password,
+    open.map((p) => p.key),
+  );
   // The budget's Type B inputs from the register (the demo's probe, sphere and presetter), ΔT ±1 K.
   const [probeId, sphereId, presetterId] = await Promise.all(DEMO_BUDGET_INSTRUMENTS.map(ensureInstrument));
   await recordBudgetInputs(engineer, {

@@ -4,7 +4,7 @@
  */
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db";
-import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
+import { approveAnalysis, nonConformingParameters, runHeadFit } from "@/db/queries/analyses";
 import { getReadinessView, recordDeviation } from "@/db/queries/readiness";
 import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
@@ -51,7 +51,14 @@ export async function seedReports(password: string): Promise<void> {
     .where(and(eq(datasets.jobId, job.id), eq(datasets.kind, "sphere_probe"), eq(datasets.status, "stored")));
   if (probe) {
     const { analysis } = await runHeadFit(engineer, probe.id);
-    await approveAnalysis(engineer, analysis.id, password);
+    // The engineer confirms any parameter that does not conform, as the approval form asks.
+    const open = await nonConformingParameters(engineer, analysis.id);
+    await approveAnalysis(
+      engineer,
+      analysis.id,
+      password,
+      open.map((p) => p.key),
+    );
   } else {
     await db.update(jobs).set({ status: "approved" }).where(eq(jobs.id, job.id));
   }

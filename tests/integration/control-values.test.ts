@@ -7,7 +7,8 @@ import { and, desc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET as getRoute, PUT as putRoute } from "@/app/api/jobs/[id]/control-values/route";
 import { db } from "@/db";
-import { approveAnalysis, runHeadFit } from "@/db/queries/analyses";
+import { runHeadFit } from "@/db/queries/analyses";
+import { approveConfirmed } from "./fixtures";
 import { changeJobStatus, createJobFromTemplate } from "@/db/queries/job-status";
 import { getReportContent, issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
@@ -206,7 +207,7 @@ describe("one job through the control loop", () => {
     await signJobWork(as.installer!, { jobId: ids.flow, meaning: "performed", password: PW });
     await signJobWork(as.inspector!, { jobId: ids.flow, meaning: "inspected", password: PW });
     await changeJobStatus(as.installer!, ids.flow, "in_review");
-    await approveAnalysis(as.engineer!, analysis.id, PW);
+    await approveConfirmed(as.engineer!, analysis.id, PW);
 
     // Values to enter = as found + the approved fit's correction, in the control's units.
     await signInAs("inspector@halvard.example");
