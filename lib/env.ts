@@ -110,3 +110,11 @@ export const authSecret = env.NEXTAUTH_SECRET ?? "trammel-development-secret-not
 
 /** Base URL for links that leave the app (PDF QR codes, e-mails): PUBLIC_URL (required in production). */
 export const publicUrl = (env.PUBLIC_URL ?? env.NEXTAUTH_URL ?? "http://localhost:3000").replace(/\/$/, "");
+
+/**
+ * The git commit the app was built from, for the software version printed on reports. Written as
+ * a literal `process.env.` read so that Next replaces it at build time (next.config.mjs `env`):
+ * the running app reports the commit it was built from, not whatever its shell has set. Null
+ * outside a git checkout.
+ */
+export const buildCommit: string | null = process.env.TRAMMEL_BUILD_COMMIT?.trim() || null;
