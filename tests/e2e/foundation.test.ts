@@ -126,10 +126,14 @@ describe("jobs table and job page", () => {
     // The board filters as the status is chosen (tests/e2e/jobs-office.test.ts covers its queues).
     await p.getByLabel("Status").selectOption("measuring");
     await p.waitForURL(/status=measuring/);
-    await expect.poll(() => p.locator("[aria-busy=true]").count()).toBe(0);
-    const shown = await p.locator("tbody tr").allInnerTexts();
+    // The URL changes before React renders the new key, so "not busy" alone can be read too early:
+    // wait until every row shown is a measuring one (the issued TR-2026-0041 gone).
+    const rows = () => p.locator("tbody tr").allInnerTexts();
+    await expect
+      .poll(async () => (await rows()).every((r) => r.includes("Measuring")), { timeout: 10_000 })
+      .toBe(true);
+    const shown = await rows();
     expect(shown.some((r) => r.includes("TR-2026-0052"))).toBe(true);
-    for (const r of shown) expect(r).toContain("Measuring");
     expect(shown.some((r) => r.includes("TR-2026-0041"))).toBe(false);
     await p.goto("/jobs");
     await p.screenshot({ path: screenshotPath("jobs-table"), fullPage: true });
