@@ -70,6 +70,8 @@ interface Load {
   load_ms: number;
   scripts: { url: string; bytes: number; afterLoad: boolean }[];
   viewer_ready_ms?: number;
+  /** The 3D view was not drawn within the wait. */
+  viewer_missed?: boolean;
   placeholder_top_px?: number;
 }
 
@@ -122,6 +124,7 @@ async function loadOnce(ctx: BrowserContext, path: string): Promise<Load> {
   });
   const res = await page.goto(path, { waitUntil: "load" });
   let viewerReady: number | undefined;
+  let viewerMissed = false;
   if (
     path.endsWith("/analysis") &&
     (await page.locator("[data-testid=head-viewer-placeholder],[data-testid=head-viewer]").count())
@@ -132,7 +135,11 @@ async function loadOnce(ctx: BrowserContext, path: string): Promise<Load> {
         null,
         { timeout: 30_000, polling: 20 },
       )
-      .then((h) => h.jsonValue() as Promise<number>);
+      .then((h) => h.jsonValue() as Promise<number>)
+      // Software WebGL under load can miss the wait: count the load as "not drawn" rather than
+      // losing every figure measured so far (the row then says how many loads missed it).
+      .catch(() => undefined);
+    viewerMissed = viewerReady === undefined;
   } else {
     await page.waitForLoadState("networkidle").catch(() => {});
   }
@@ -156,6 +163,7 @@ async function loadOnce(ctx: BrowserContext, path: string): Promise<Load> {
     ...m,
     scripts,
     ...(viewerReady !== undefined ? { viewer_ready_ms: viewerReady } : {}),
+    ...(viewerMissed ? { viewer_missed: true } : {}),
   };
 }
 
@@ -212,6 +220,8 @@ const results = measured.map(({ role, page, loads }) => {
   };
   const ready = loads.map((l) => l.viewer_ready_ms).filter((x): x is number => x !== undefined);
   if (ready.length) row.viewer_ready_ms = Math.round(median(ready));
+  const missed = loads.filter((l) => l.viewer_missed).length;
+  if (missed) row.viewer_not_drawn_in_30s = `${missed} of ${loads.length} loads`;
   const top = loads[0]!.placeholder_top_px;
   if (ready.length && top !== undefined) row.viewer_box_top_at_first_paint_px = Math.round(top);
   return row;
