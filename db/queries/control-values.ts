@@ -9,8 +9,9 @@ import { and, desc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
 import { appendAudit } from "@/db/queries/audit";
+import { lockJob } from "@/db/queries/locks";
 import { getJobDetail } from "@/db/queries/jobs";
-import { controlValueRecords, datasets, jobs, procedureTemplates, users } from "@/db/schema";
+import { controlValueRecords, datasets, procedureTemplates, users } from "@/db/schema";
 import { controlLoop, toControlCanonical, type ControlUnitSystem } from "@/lib/control-values";
 import {
   CONTROL_VALUE_DEFS,
@@ -131,11 +132,7 @@ export async function recordControlValues(actor: Actor, jobId: string, input: Co
     if (v !== undefined) values[def.key] = toControlCanonical(v, def.kind, input.unitSystem);
   }
   return db.transaction(async (tx) => {
-    const [locked] = await tx
-      .select({ status: jobs.status })
-      .from(jobs)
-      .where(eq(jobs.id, jobId))
-      .for("update");
+    const locked = await lockJob(tx, jobId);
     if (!locked) throw notFound("job");
     const refusal = controlValuesWriteRefusal(actor, {
       status: locked.status,

@@ -2,8 +2,9 @@ import "server-only";
 import { and, desc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
+import { lockJob } from "@/db/queries/locks";
 import { getJobDetail } from "@/db/queries/jobs";
-import { environmentRecords, jobs, users, type EnvironmentRecord } from "@/db/schema";
+import { environmentRecords, users, type EnvironmentRecord } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
 import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
 import { readingsRefusal } from "@/lib/policy/readings";
@@ -47,11 +48,7 @@ export async function recordEnvironment(actor: Actor, jobId: string, input: Envi
   if (takenAt.getTime() > Date.now() + 5 * 60_000)
     throw invalid("The time is in the future.", [{ field: "takenAt", message: "in the future" }]);
   return db.transaction(async (tx) => {
-    const [locked] = await tx
-      .select({ status: jobs.status, assignedInstallerId: jobs.assignedInstallerId })
-      .from(jobs)
-      .where(eq(jobs.id, d.job.id))
-      .for("update");
+    const locked = await lockJob(tx, d.job.id);
     if (input.clientId) {
       const [again] = await tx
         .select()

@@ -2,6 +2,7 @@ import "server-only";
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
+import { lockJob } from "@/db/queries/locks";
 import { activeInstaller, queueAssignmentMails } from "@/db/queries/job-mail";
 import { getJobDetail } from "@/db/queries/jobs";
 import { listActiveInstallers } from "@/db/queries/users-admin";
@@ -194,11 +195,7 @@ export async function updateJobRecord(actor: Actor, jobId: string, input: JobRec
   }
   if (Object.keys(newValues).length === 0) return { job: d.job, changed: [] as string[] };
   return db.transaction(async (tx) => {
-    const [locked] = await tx
-      .select({ status: jobs.status, assignedInstallerId: jobs.assignedInstallerId })
-      .from(jobs)
-      .where(eq(jobs.id, d.job.id))
-      .for("update");
+    const locked = await lockJob(tx, d.job.id);
     if (locked?.status !== d.job.status || locked.assignedInstallerId !== d.job.assignedInstallerId)
       throw invalid("The job changed meanwhile; open it again.");
     const at = new Date();
@@ -259,11 +256,7 @@ export async function moveJob(actor: Actor, jobId: string, move: JobMoveInput) {
     set = { status: to, cancelReason: move.reason };
   }
   return db.transaction(async (tx) => {
-    const [locked] = await tx
-      .select({ status: jobs.status })
-      .from(jobs)
-      .where(eq(jobs.id, d.job.id))
-      .for("update");
+    const locked = await lockJob(tx, d.job.id);
     if (locked?.status !== d.job.status) throw invalid("The job changed meanwhile; open it again.");
     const at = new Date();
     const [row] = await tx
