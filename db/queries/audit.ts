@@ -22,6 +22,27 @@ export interface AuditInput {
   newValues?: unknown;
 }
 
+/**
+ * An event about the job itself (created, changed, moved to another status): the job is both the
+ * entity and the job the event belongs to.
+ */
+export function jobEvent(
+  actor: { id: string; email: string },
+  jobId: string,
+  action: string,
+  values: Pick<AuditInput, "oldValues" | "newValues">,
+): AuditInput {
+  return {
+    actorId: actor.id,
+    actorEmail: actor.email,
+    action,
+    entityType: "job",
+    entityId: jobId,
+    jobId,
+    ...values,
+  };
+}
+
 /** What an event records, as stored and hashed: a missing job or old/new value is null. */
 function auditContent(e: AuditInput) {
   return {

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
+import { appendAudit, jobEvent } from "@/db/queries/audit";
 import { lockJob } from "@/db/queries/locks";
 import { activeInstaller, queueAssignmentMails } from "@/db/queries/job-mail";
 import { getJobDetail } from "@/db/queries/jobs";
@@ -204,16 +204,10 @@ export async function updateJobRecord(actor: Actor, jobId: string, input: JobRec
       .set({ ...changes, updatedAt: at })
       .where(eq(jobs.id, d.job.id))
       .returning();
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
-      action: reassigning ? "job.assigned" : "job.updated",
-      entityType: "job",
-      entityId: d.job.id,
-      jobId: d.job.id,
-      oldValues,
-      newValues,
-    });
+    await appendAudit(
+      tx,
+      jobEvent(actor, d.job.id, reassigning ? "job.assigned" : "job.updated", { oldValues, newValues }),
+    );
     if (reassigning)
       await queueAssignmentMails(tx, actor, {
         job: row!,
@@ -227,6 +221,13 @@ export async function updateJobRecord(actor: Actor, jobId: string, input: JobRec
     return { job: row!, changed: Object.keys(newValues) };
   });
 }
+
+/** The audit action of each move: job.held, job.released, job.cancelled. */
+const MOVED: Record<JobMoveInput["action"], string> = {
+  hold: "held",
+  release: "released",
+  cancel: "cancelled",
+};
 
 /**
  * Hold, release and cancel (the office). On hold remembers the status the job left and release
@@ -264,16 +265,13 @@ export async function moveJob(actor: Actor, jobId: string, move: JobMoveInput) {
       .set({ ...set, updatedAt: at })
       .where(eq(jobs.id, d.job.id))
       .returning();
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
-      action: `job.${move.action === "hold" ? "held" : move.action === "release" ? "released" : "cancelled"}`,
-      entityType: "job",
-      entityId: d.job.id,
-      jobId: d.job.id,
-      oldValues: { status: d.job.status },
-      newValues: { status: to, ...("reason" in move && move.reason ? { reason: move.reason } : {}) },
-    });
+    await appendAudit(
+      tx,
+      jobEvent(actor, d.job.id, `job.${MOVED[move.action]}`, {
+        oldValues: { status: d.job.status },
+        newValues: { status: to, ...("reason" in move && move.reason ? { reason: move.reason } : {}) },
+      }),
+    );
     return row!;
   });
 }

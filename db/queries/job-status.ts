@@ -1,7 +1,7 @@
 import "server-only";
 import { and, eq, inArray, sql } from "drizzle-orm";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
+import { appendAudit, jobEvent } from "@/db/queries/audit";
 import { refuseRetired } from "@/db/queries/registers-admin";
 import { getJobDetail } from "@/db/queries/jobs";
 import { enqueueMail } from "@/db/queries/outbox";
@@ -52,16 +52,13 @@ export async function changeJobStatus(actor: Actor, jobId: string, to: JobStatus
     if (locked?.status !== d.job.status) throw invalid("The job changed meanwhile; open it again.");
     const at = new Date();
     await tx.update(jobs).set({ status: to, updatedAt: at }).where(eq(jobs.id, d.job.id));
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
-      action: "job.status_changed",
-      entityType: "job",
-      entityId: d.job.id,
-      jobId: d.job.id,
-      oldValues: { status: d.job.status },
-      newValues: { status: to },
-    });
+    await appendAudit(
+      tx,
+      jobEvent(actor, d.job.id, "job.status_changed", {
+        oldValues: { status: d.job.status },
+        newValues: { status: to },
+      }),
+    );
     for (const r of reviewers) {
       await enqueueMail(tx, {
         dedupeKey: `review:${d.job.id}:${at.getTime()}:${r.id}`,
@@ -160,23 +157,20 @@ export async function createJobFromTemplate(actor: Actor, input: JobCreateInput)
         createdById: actor.id,
       })
       .returning();
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
-      action: "job.created",
-      entityType: "job",
-      entityId: row!.id,
-      jobId: row!.id,
-      newValues: {
-        reference,
-        status: "draft",
-        template: `${t.name} v${t.version}`,
-        assignedInstallerId: row!.assignedInstallerId,
-        orderReference: row!.orderReference,
-        scheduledFor: row!.scheduledFor?.toISOString() ?? null,
-        timeZone: row!.timeZone,
-      },
-    });
+    await appendAudit(
+      tx,
+      jobEvent(actor, row!.id, "job.created", {
+        newValues: {
+          reference,
+          status: "draft",
+          template: `${t.name} v${t.version}`,
+          assignedInstallerId: row!.assignedInstallerId,
+          orderReference: row!.orderReference,
+          scheduledFor: row!.scheduledFor?.toISOString() ?? null,
+          timeZone: row!.timeZone,
+        },
+      }),
+    );
     await queueAssignmentMails(tx, actor, {
       job: row!,
       where: m,

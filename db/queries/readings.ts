@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, inArray, isNull } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
+import { appendAudit, jobEvent } from "@/db/queries/audit";
 import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
 import { instruments, jobs, procedureTemplates, readings, templateSteps, users } from "@/db/schema";
 import type { Reading, TemplateStep } from "@/db/schema";
@@ -367,16 +367,13 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
         );
     if (locked!.status === "draft") {
       await tx.update(jobs).set({ status: "measuring" }).where(eq(jobs.id, d.job.id));
-      await appendAudit(tx, {
-        actorId: actor.id,
-        actorEmail: actor.email,
-        action: "job.status_changed",
-        entityType: "job",
-        entityId: d.job.id,
-        jobId: d.job.id,
-        oldValues: { status: "draft" },
-        newValues: { status: "measuring", reason: "first reading recorded" },
-      });
+      await appendAudit(
+        tx,
+        jobEvent(actor, d.job.id, "job.status_changed", {
+          oldValues: { status: "draft" },
+          newValues: { status: "measuring", reason: "first reading recorded" },
+        }),
+      );
     } else {
       await tx.update(jobs).set({ updatedAt: new Date() }).where(eq(jobs.id, d.job.id));
     }
