@@ -24,6 +24,8 @@ import {
   tcpCheckToJson,
   type SphereProbeData,
   type TestPartRow,
+  sweepToJson,
+  tramToJson,
 } from "@/geometry";
 import { DATASET_KINDS, PHASES, type DatasetKind } from "@/lib/domain/datasets";
 import { AppError, invalid, type FieldIssue } from "@/lib/errors";
@@ -318,16 +320,7 @@ export function parseDatasetText(form: UploadForm, input: string): ParsedDataset
           copyColumn("reading_um", "um", d.readingUm),
         ];
         const extra: string[] = [];
-        const fit = fitOrNote(extra, "no line fit", () => {
-          const r = fitTram(d);
-          return {
-            slope_um_per_m: r.slope_um_per_m,
-            slope_u_um_per_m: r.slope_u_um_per_m,
-            angle_arcsec: r.angle_arcsec,
-            straightness_um: r.straightness_um,
-            tir_um: r.tir_um,
-          };
-        });
+        const fit = fitOrNote(extra, "no line fit", () => tramToJson(fitTram(d)));
         return done(
           form,
           d.rows,
@@ -346,17 +339,7 @@ export function parseDatasetText(form: UploadForm, input: string): ParsedDataset
           copyColumn("reading_um", "um", d.readingUm),
         ];
         const extra: string[] = [];
-        const fit = fitOrNote(extra, "no sweep fit", () => {
-          const r = fitSweep(d, form.radius_mm!);
-          return {
-            tilt_um_per_m: r.tilt_um_per_m,
-            tilt_arcsec: r.tilt_arcsec,
-            direction_deg: r.direction_deg,
-            tir_um: r.tir_um,
-            flatness_ls_um: r.flatness_ls_um,
-            flatness_mz_um: r.flatness_mz_um,
-          };
-        });
+        const fit = fitOrNote(extra, "no sweep fit", () => sweepToJson(fitSweep(d, form.radius_mm!)));
         return done(
           form,
           d.rows,
