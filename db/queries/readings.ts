@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, inArray, isNull } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { db } from "@/db";
 import { appendAudit, jobEvent } from "@/db/queries/audit";
@@ -560,4 +560,26 @@ export function comparisonJson(c: NonNullable<Awaited<ReturnType<typeof getCompa
       status: r.status,
     })),
   };
+}
+
+/**
+ * The instruments behind the job's current readings (superseded ones left out), by serial, each
+ * with the UTC day it was last used on, to check and print its calibration.
+ */
+export async function instrumentsInReadings(jobId: string) {
+  return db
+    .select({
+      id: instruments.id,
+      kind: instruments.kind,
+      serial: instruments.serial,
+      certificateRef: instruments.certificateRef,
+      calibratedOn: instruments.calibratedOn,
+      calibrationDueOn: instruments.calibrationDueOn,
+      lastUsedOn: sql<string>`to_char(max(${readings.takenAt}) at time zone 'UTC', 'YYYY-MM-DD')`,
+    })
+    .from(readings)
+    .innerJoin(instruments, eq(instruments.id, readings.instrumentId))
+    .where(and(eq(readings.jobId, jobId), isNull(readings.supersededById)))
+    .groupBy(instruments.id)
+    .orderBy(asc(instruments.serial));
 }
