@@ -4,14 +4,13 @@ import { and, desc, eq, getTableColumns, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit, jobEvent } from "@/db/queries/audit";
 import { getDataset, getDatasetColumns } from "@/db/queries/datasets";
-import { getJobDetail, jobAccessCondition } from "@/db/queries/jobs";
+import { getJobDetail, jobAccessCondition, visibleJob } from "@/db/queries/jobs";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
 import {
   jobStateSha256,
   manifestFor,
   refuseSameSigner,
   requirePasswordReentry,
-  visibleJob,
 } from "@/db/queries/signatures";
 import {
   analyses,

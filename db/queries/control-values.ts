@@ -10,7 +10,7 @@ import { db } from "@/db";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
 import { appendAudit } from "@/db/queries/audit";
 import { lockJob } from "@/db/queries/locks";
-import { getJobDetail } from "@/db/queries/jobs";
+import { getJobDetail, visibleJob } from "@/db/queries/jobs";
 import { controlValueRecords, datasets, procedureTemplates, users } from "@/db/schema";
 import { controlLoop, toControlCanonical, type ControlUnitSystem } from "@/lib/control-values";
 import {
@@ -121,8 +121,7 @@ export type JobControlValues = NonNullable<Awaited<ReturnType<typeof getControlV
  * row is locked so a concurrent issue or approval cannot slip between the check and the write.
  */
 export async function recordControlValues(actor: Actor, jobId: string, input: ControlValuesRecordInput) {
-  const d = await getJobDetail(actor, jobId);
-  if (!d) throw notFound("job");
+  await visibleJob(actor, jobId);
   const who = controlValuesRecorderRefusal(actor);
   if (who) throw forbidden(who);
   const approved = await getApprovedAnalysis(actor, jobId);

@@ -3,10 +3,10 @@ import { and, desc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { lockJob } from "@/db/queries/locks";
-import { getJobDetail } from "@/db/queries/jobs";
+import { getJobDetail, visibleJob } from "@/db/queries/jobs";
 import { environmentRecords, users, type EnvironmentRecord } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
-import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
+import { AppError, forbidden, invalid } from "@/lib/errors";
 import { readingsRefusal } from "@/lib/policy/readings";
 import type { EnvironmentCreateInput } from "@/lib/validations/environment";
 
@@ -42,8 +42,7 @@ export async function listEnvironment(actor: Actor, jobId: string): Promise<Envi
  * readings are open (403 otherwise); a repeated clientId answers with the stored record; audited.
  */
 export async function recordEnvironment(actor: Actor, jobId: string, input: EnvironmentCreateInput) {
-  const d = await getJobDetail(actor, jobId);
-  if (!d) throw notFound("job");
+  const d = await visibleJob(actor, jobId);
   const takenAt = input.takenAt ?? new Date();
   if (takenAt.getTime() > Date.now() + 5 * 60_000)
     throw invalid("The time is in the future.", [{ field: "takenAt", message: "in the future" }]);

@@ -4,13 +4,13 @@ import { db } from "@/db";
 import { appendAudit, jobEvent } from "@/db/queries/audit";
 import { lockJob } from "@/db/queries/locks";
 import { activeInstaller, queueAssignmentMails } from "@/db/queries/job-mail";
-import { getJobDetail } from "@/db/queries/jobs";
+import { visibleJob } from "@/db/queries/jobs";
 import { listActiveInstallers } from "@/db/queries/users-admin";
 import { createJobFromTemplate } from "@/db/queries/job-status";
 import { customers, heads, jobs, machines, procedureTemplates, sites } from "@/db/schema";
 import type { JobStatus } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
-import { forbidden, invalid, notFound } from "@/lib/errors";
+import { forbidden, invalid } from "@/lib/errors";
 import {
   jobAssignRefusal,
   jobCancelRefusal,
@@ -140,13 +140,6 @@ export async function openJob(actor: Actor, input: JobOpenInput) {
     timeZone: schedule?.timeZone ?? null,
     notes: input.notes ?? null,
   });
-}
-
-/** Loads the job the actor may see and locks its row; throws 404 for one they may not see. */
-async function visibleJob(actor: Actor, jobId: string) {
-  const d = await getJobDetail(actor, jobId);
-  if (!d) throw notFound("job");
-  return d;
 }
 
 const RECORD_KEYS = [

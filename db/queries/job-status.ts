@@ -3,14 +3,14 @@ import { and, eq, inArray, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit, jobEvent } from "@/db/queries/audit";
 import { refuseRetired } from "@/db/queries/registers-admin";
-import { getJobDetail } from "@/db/queries/jobs";
+import { visibleJob } from "@/db/queries/jobs";
 import { enqueueMail } from "@/db/queries/outbox";
 import { activeInstaller, queueAssignmentMails } from "@/db/queries/job-mail";
 import { customers, datasets, heads, jobs, machines, procedureTemplates, sites, users } from "@/db/schema";
 import type { JobStatus } from "@/lib/domain/jobs";
 import { type Actor } from "@/lib/domain/roles";
 import { jobCreateRefusal, transitionRefusal } from "@/lib/policy/jobs";
-import { forbidden, invalid, notFound } from "@/lib/errors";
+import { forbidden, invalid } from "@/lib/errors";
 import { publicUrl } from "@/lib/env";
 import { reviewRequestMessage } from "@/lib/mail/messages";
 import { activeUsers, lockJob } from "./locks";
@@ -24,8 +24,7 @@ const SIGNED_MOVES: readonly JobStatus[] = ["issued", "accepted", "rejected"];
  * queues an e-mail to every engineer and inspector in the same transaction.
  */
 export async function changeJobStatus(actor: Actor, jobId: string, to: JobStatus) {
-  const d = await getJobDetail(actor, jobId);
-  if (!d) throw notFound("job");
+  const d = await visibleJob(actor, jobId);
   if (SIGNED_MOVES.includes(to))
     throw forbidden("Issuing, accepting and rejecting are signed on the job's report page.");
   const refusal = transitionRefusal(actor, { job: d.job, to });

@@ -3,13 +3,13 @@ import { and, asc, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { db } from "@/db";
 import { appendAudit, jobEvent } from "@/db/queries/audit";
-import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
+import { getJobDetail, visibleJob } from "@/db/queries/jobs";
 import { instruments, jobs, procedureTemplates, readings, templateSteps, users } from "@/db/schema";
 import type { Reading, TemplateStep } from "@/db/schema";
 import { type Actor } from "@/lib/domain/roles";
 import { readingsRefusal } from "@/lib/policy/readings";
 import { calibrationRefusal, expandedUncertainty, judge, type StepDecision } from "@/lib/checklist";
-import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
+import { AppError, forbidden, invalid } from "@/lib/errors";
 import {
   needsInstrument,
   rangeProblem,
@@ -23,12 +23,6 @@ import type { ReadingCreateInput } from "@/lib/validations/readings";
 import { lockJob } from "./locks";
 
 const recorders = alias(users, "recorder");
-
-async function visibleJob(actor: Actor, jobId: string): Promise<JobDetail> {
-  const d = await getJobDetail(actor, jobId);
-  if (!d) throw notFound("job");
-  return d;
-}
 
 export async function listTemplateSteps(templateId: string | null): Promise<TemplateStep[]> {
   if (!templateId) return [];
