@@ -23,6 +23,7 @@ import {
   text,
   timestamp,
   uniqueIndex,
+  type UpdateDeleteAction,
   uuid,
 } from "drizzle-orm/pg-core";
 // Relative imports: drizzle-kit loads this file without the app's path alias.
@@ -35,9 +36,28 @@ import { MULTI_POINT_RESULTS, STEP_KINDS } from "../lib/domain/procedures";
 import { ROLES } from "../lib/domain/roles";
 import { SIGNATURE_MEANINGS } from "../lib/domain/signatures";
 
+/** Every instant is stored with its time zone (timestamptz). */
+const instant = (name: string) => timestamp(name, { withTimezone: true });
+/** An instant that defaults to when the row is written. */
+const instantNow = (name: string) => instant(name).notNull().defaultNow();
+/** The random UUID that identifies most rows. */
+const primaryId = () => uuid("id").primaryKey().defaultRandom();
+/** A reference to another row; by default that row cannot be deleted while this one names it. */
+const ref = (name: string, target: () => AnyPgColumn, onDelete: UpdateDeleteAction = "restrict") =>
+  uuid(name).references(target, { onDelete });
+/** The same, for a row this one cannot exist without. */
+const requiredRef = (name: string, target: () => AnyPgColumn, onDelete: UpdateDeleteAction = "restrict") =>
+  ref(name, target, onDelete).notNull();
+/** The job a record belongs to. */
+const jobRef = () => requiredRef("job_id", () => jobs.id);
+/** The user who did something; the record keeps its row (with null here) if the user row goes. */
+const byUser = (name: string) => ref(name, () => users.id, "set null");
+/** Retired rows stay readable on the jobs that name them and are left out of pickers for new work. */
+const retiredAt = () => instant("retired_at");
+
 const timestamps = {
-  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
-  updatedAt: timestamp("updated_at", { withTimezone: true })
+  createdAt: instantNow("created_at"),
+  updatedAt: instant("updated_at")
     .notNull()
     .defaultNow()
     .$onUpdate(() => new Date()),
@@ -72,11 +92,10 @@ export const analysisKindEnum = pgEnum("analysis_kind", ["head_fit"]);
 export const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
 
 export const customers = pgTable("customers", {
-  id: uuid("id").primaryKey().defaultRandom(),
+  id: primaryId(),
   name: text("name").notNull().unique(),
   contactEmail: text("contact_email"),
-  /** Retired rows stay readable on the jobs that name them and are left out of pickers for new work. */
-  retiredAt: timestamp("retired_at", { withTimezone: true }),
+  retiredAt: retiredAt(),
   ...timestamps,
 });
 export type Customer = typeof customers.$inferSelect;
@@ -84,17 +103,17 @@ export type Customer = typeof customers.$inferSelect;
 export const users = pgTable(
   "users",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
+    id: primaryId(),
     email: text("email").notNull(),
     name: text("name").notNull(),
     role: roleEnum("role").notNull(),
     /** Only customer users belong to a customer; staff of the service company have none. */
-    customerId: uuid("customer_id").references(() => customers.id, { onDelete: "restrict" }),
+    customerId: ref("customer_id", () => customers.id),
     passwordHash: text("password_hash"),
     disabled: boolean("disabled").notNull().default(false),
     unitSystem: unitSystemEnum("unit_system").notNull().default("metric"),
     /** Session tokens issued before this instant are refused (sign-out everywhere, disable, role change). */
-    sessionsValidAfter: timestamp("sessions_valid_after", { withTimezone: true }),
+    sessionsValidAfter: instant("sessions_valid_after"),
     ...timestamps,
   },
   (t) => [
@@ -107,14 +126,11 @@ export type User = typeof users.$inferSelect;
 export const sites = pgTable(
   "sites",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    customerId: uuid("customer_id")
-      .notNull()
-      .references(() => customers.id, { onDelete: "restrict" }),
+    id: primaryId(),
+    customerId: requiredRef("customer_id", () => customers.id),
     name: text("name").notNull(),
     address: text("address"),
-    /** Retired rows stay readable on the jobs that name them and are left out of pickers for new work. */
-    retiredAt: timestamp("retired_at", { withTimezone: true }),
+    retiredAt: retiredAt(),
     ...timestamps,
   },
   (t) => [index("sites_customer_idx").on(t.customerId)],
@@ -125,18 +141,15 @@ export type Site = typeof sites.$inferSelect;
 export const machines = pgTable(
   "machines",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    siteId: uuid("site_id")
-      .notNull()
-      .references(() => sites.id, { onDelete: "restrict" }),
+    id: primaryId(),
+    siteId: requiredRef("site_id", () => sites.id),
     name: text("name").notNull(),
     builder: text("builder"),
     model: text("model"),
     serial: text("serial"),
     kind: text("kind").notNull().default("machining centre"),
     control: text("control"),
-    /** Retired rows stay readable on the jobs that name them and are left out of pickers for new work. */
-    retiredAt: timestamp("retired_at", { withTimezone: true }),
+    retiredAt: retiredAt(),
     ...timestamps,
   },
   (t) => [index("machines_site_idx").on(t.siteId)],
@@ -147,7 +160,7 @@ export type Machine = typeof machines.$inferSelect;
 export const heads = pgTable(
   "heads",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
+    id: primaryId(),
     serial: text("serial").notNull().unique(),
     maker: text("maker"),
     model: text("model"),
@@ -159,9 +172,8 @@ export const heads = pgTable(
     toolAxisOffsetMm: doublePrecision("tool_axis_offset_mm").notNull().default(0),
     massKg: doublePrecision("mass_kg"),
     /** Where the head is mounted now (null: in the shop or in transit). */
-    machineId: uuid("machine_id").references(() => machines.id, { onDelete: "set null" }),
-    /** Retired rows stay readable on the jobs that name them and are left out of pickers for new work. */
-    retiredAt: timestamp("retired_at", { withTimezone: true }),
+    machineId: ref("machine_id", () => machines.id, "set null"),
+    retiredAt: retiredAt(),
     ...timestamps,
   },
   (t) => [index("heads_machine_idx").on(t.machineId)],
@@ -171,29 +183,21 @@ export type Head = typeof heads.$inferSelect;
 export const jobs = pgTable(
   "jobs",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
+    id: primaryId(),
     /** Human reference, e.g. TR-2026-0007; unique. */
     reference: text("reference").notNull().unique(),
     title: text("title").notNull(),
     kind: jobKindEnum("kind").notNull(),
     status: jobStatusEnum("status").notNull().default("draft"),
     /** Denormalised from machine → site → customer so every tenant check is one column. */
-    customerId: uuid("customer_id")
-      .notNull()
-      .references(() => customers.id, { onDelete: "restrict" }),
-    machineId: uuid("machine_id")
-      .notNull()
-      .references(() => machines.id, { onDelete: "restrict" }),
-    headId: uuid("head_id")
-      .notNull()
-      .references(() => heads.id, { onDelete: "restrict" }),
-    assignedInstallerId: uuid("assigned_installer_id").references(() => users.id, { onDelete: "set null" }),
+    customerId: requiredRef("customer_id", () => customers.id),
+    machineId: requiredRef("machine_id", () => machines.id),
+    headId: requiredRef("head_id", () => heads.id),
+    assignedInstallerId: byUser("assigned_installer_id"),
     decisionRule: decisionRuleEnum("decision_rule").notNull().default("simple"),
     /** The procedure template version the job started with; later edits of the template do not change it. */
-    templateId: uuid("template_id").references((): AnyPgColumn => procedureTemplates.id, {
-      onDelete: "restrict",
-    }),
-    scheduledFor: timestamp("scheduled_for", { withTimezone: true }),
+    templateId: ref("template_id", (): AnyPgColumn => procedureTemplates.id),
+    scheduledFor: instant("scheduled_for"),
     /** IANA zone the schedule was given in (e.g. Europe/Berlin); times are stored in UTC. */
     timeZone: text("time_zone"),
     airTempC: doublePrecision("air_temp_c"),
@@ -211,7 +215,7 @@ export const jobs = pgTable(
     holdReason: text("hold_reason"),
     /** Why the job was cancelled (required to cancel; the audit trail keeps who and when). */
     cancelReason: text("cancel_reason"),
-    createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdById: byUser("created_by_id"),
     ...timestamps,
   },
   (t) => [
@@ -230,7 +234,7 @@ export const auditEvents = pgTable(
   "audit_events",
   {
     id: bigserial("id", { mode: "number" }).primaryKey(),
-    at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
+    at: instantNow("at"),
     actorId: uuid("actor_id"),
     actorEmail: text("actor_email"),
     action: text("action").notNull(),
@@ -254,7 +258,7 @@ export const signInFailures = pgTable(
   "sign_in_failures",
   {
     id: bigserial("id", { mode: "number" }).primaryKey(),
-    at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
+    at: instantNow("at"),
     emailKey: text("email_key").notNull(),
     address: text("address").notNull(),
     attempts: integer("attempts").notNull().default(1),
@@ -267,7 +271,7 @@ export const signInFailures = pgTable(
 
 /** Measuring instruments with their calibration status. Resolution and uncertainty in the canonical unit of their quantity (mm or arcsec). */
 export const instruments = pgTable("instruments", {
-  id: uuid("id").primaryKey().defaultRandom(),
+  id: primaryId(),
   kind: text("kind").notNull(),
   serial: text("serial").notNull().unique(),
   maker: text("maker"),
@@ -285,8 +289,7 @@ export const instruments = pgTable("instruments", {
   calibratedSizeMm: doublePrecision("calibrated_size_mm"),
   /** Kept in step with retired_at (set together by db/queries/instruments.ts). */
   retired: boolean("retired").notNull().default(false),
-  /** Retired rows stay readable on the jobs that name them and are left out of pickers for new work. */
-  retiredAt: timestamp("retired_at", { withTimezone: true }),
+  retiredAt: retiredAt(),
   ...timestamps,
 });
 export type Instrument = typeof instruments.$inferSelect;
@@ -298,16 +301,14 @@ export type Instrument = typeof instruments.$inferSelect;
 export const instrumentCalibrations = pgTable(
   "instrument_calibrations",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    instrumentId: uuid("instrument_id")
-      .notNull()
-      .references(() => instruments.id, { onDelete: "restrict" }),
+    id: primaryId(),
+    instrumentId: requiredRef("instrument_id", () => instruments.id),
     calibratedOn: date("calibrated_on", { mode: "string" }).notNull(),
     dueOn: date("due_on", { mode: "string" }).notNull(),
     certificateRef: text("certificate_ref").notNull(),
     laboratory: text("laboratory").notNull(),
-    recordedById: uuid("recorded_by_id").references(() => users.id, { onDelete: "set null" }),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    recordedById: byUser("recorded_by_id"),
+    createdAt: instantNow("created_at"),
   },
   (t) => [index("instrument_calibrations_instrument_idx").on(t.instrumentId, t.calibratedOn)],
 );
@@ -317,7 +318,7 @@ export type InstrumentCalibration = typeof instrumentCalibrations.$inferSelect;
 export const procedureTemplates = pgTable(
   "procedure_templates",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
+    id: primaryId(),
     name: text("name").notNull(),
     version: integer("version").notNull(),
     description: text("description"),
@@ -327,13 +328,13 @@ export const procedureTemplates = pgTable(
     /** The head model it is written for; null = every model. */
     headModel: text("head_model"),
     /** Retired procedures are not offered for new jobs; jobs that use them keep them. */
-    retiredAt: timestamp("retired_at", { withTimezone: true }),
+    retiredAt: instant("retired_at"),
     /** The procedure asks for a tool-centre-point check after compensation before the report is issued. */
     tcpCheckRequired: boolean("tcp_check_required").notNull().default(false),
     /** TCP-check limits, µm (null = recorded, not judged): range of x, y and z each, and distance from the mean centre. */
     tcpRangeLimitUm: doublePrecision("tcp_range_limit_um"),
     tcpDeviationLimitUm: doublePrecision("tcp_deviation_limit_um"),
-    createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdById: byUser("created_by_id"),
     ...timestamps,
   },
   (t) => [uniqueIndex("procedure_templates_name_version_idx").on(t.name, t.version)],
@@ -347,10 +348,8 @@ export type ProcedureTemplate = typeof procedureTemplates.$inferSelect;
 export const templateSteps = pgTable(
   "template_steps",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    templateId: uuid("template_id")
-      .notNull()
-      .references(() => procedureTemplates.id, { onDelete: "cascade" }),
+    id: primaryId(),
+    templateId: requiredRef("template_id", () => procedureTemplates.id, "cascade"),
     position: integer("position").notNull(),
     title: text("title").notNull(),
     instructions: text("instructions"),
@@ -388,13 +387,9 @@ export type TemplateStep = typeof templateSteps.$inferSelect;
 export const readings = pgTable(
   "readings",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    jobId: uuid("job_id")
-      .notNull()
-      .references(() => jobs.id, { onDelete: "restrict" }),
-    stepId: uuid("step_id")
-      .notNull()
-      .references(() => templateSteps.id, { onDelete: "restrict" }),
+    id: primaryId(),
+    jobId: jobRef(),
+    stepId: requiredRef("step_id", () => templateSteps.id),
     phase: phaseEnum("phase").notNull(),
     /**
      * Canonical value (mm or arcsec); for a multi-point step the value derived from its points; for
@@ -413,18 +408,16 @@ export const readings = pgTable(
      * or where a recorded value applies (shim positions) for a record step.
      */
     textValue: text("text_value"),
-    instrumentId: uuid("instrument_id").references(() => instruments.id, { onDelete: "restrict" }),
+    instrumentId: ref("instrument_id", () => instruments.id),
     note: text("note"),
-    takenAt: timestamp("taken_at", { withTimezone: true }).notNull().defaultNow(),
-    recordedById: uuid("recorded_by_id").references(() => users.id, { onDelete: "set null" }),
-    supersededById: uuid("superseded_by_id").references((): AnyPgColumn => readings.id, {
-      onDelete: "restrict",
-    }),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    takenAt: instantNow("taken_at"),
+    recordedById: byUser("recorded_by_id"),
+    supersededById: ref("superseded_by_id", (): AnyPgColumn => readings.id),
+    createdAt: instantNow("created_at"),
     /** The id the tablet gave the reading when it was typed: a repeated send finds it instead of storing twice. */
     clientId: uuid("client_id"),
     /** The device's clock when the reading was entered; orders readings of one step from several tablets. */
-    deviceTime: timestamp("device_time", { withTimezone: true }),
+    deviceTime: instant("device_time"),
   },
   (t) => [
     index("readings_job_idx").on(t.jobId, t.stepId, t.phase),
@@ -440,10 +433,8 @@ export type Reading = typeof readings.$inferSelect;
 export const datasets = pgTable(
   "datasets",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    jobId: uuid("job_id")
-      .notNull()
-      .references(() => jobs.id, { onDelete: "restrict" }),
+    id: primaryId(),
+    jobId: jobRef(),
     kind: datasetKindEnum("kind").notNull(),
     phase: phaseEnum("phase").notNull(),
     status: datasetStatusEnum("status").notNull().default("stored"),
@@ -459,10 +450,10 @@ export const datasets = pgTable(
     options: jsonb("options"),
     warnings: jsonb("warnings").$type<string[]>().notNull().default([]),
     summary: jsonb("summary"),
-    uploadedById: uuid("uploaded_by_id").references(() => users.id, { onDelete: "set null" }),
-    uploadedAt: timestamp("uploaded_at", { withTimezone: true }).notNull().defaultNow(),
-    deletedAt: timestamp("deleted_at", { withTimezone: true }),
-    deletedById: uuid("deleted_by_id").references(() => users.id, { onDelete: "set null" }),
+    uploadedById: byUser("uploaded_by_id"),
+    uploadedAt: instantNow("uploaded_at"),
+    deletedAt: instant("deleted_at"),
+    deletedById: byUser("deleted_by_id"),
   },
   (t) => [index("datasets_job_idx").on(t.jobId)],
 );
@@ -472,9 +463,7 @@ export type Dataset = typeof datasets.$inferSelect;
 export const datasetColumns = pgTable(
   "dataset_columns",
   {
-    datasetId: uuid("dataset_id")
-      .notNull()
-      .references(() => datasets.id, { onDelete: "cascade" }),
+    datasetId: requiredRef("dataset_id", () => datasets.id, "cascade"),
     name: text("name").notNull(),
     unit: text("unit").notNull(),
     data: bytea("data").notNull(),
@@ -489,14 +478,14 @@ export const storageObjects = pgTable("storage_objects", {
   sha256: text("sha256").notNull(),
   sizeBytes: integer("size_bytes").notNull(),
   contentType: text("content_type").notNull(),
-  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  createdAt: instantNow("created_at"),
 });
 
 /** E-mail outbox: written in the transaction that causes the message; a worker sends it. */
 export const outbox = pgTable(
   "outbox",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
+    id: primaryId(),
     /** Makes a message idempotent: the same event never queues the same e-mail twice. */
     dedupeKey: text("dedupe_key").notNull().unique(),
     toAddress: text("to_address").notNull(),
@@ -505,11 +494,11 @@ export const outbox = pgTable(
     htmlBody: text("html_body"),
     status: outboxStatusEnum("status").notNull().default("pending"),
     attempts: integer("attempts").notNull().default(0),
-    nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }).notNull().defaultNow(),
+    nextAttemptAt: instantNow("next_attempt_at"),
     lastError: text("last_error"),
-    jobId: uuid("job_id").references(() => jobs.id, { onDelete: "set null" }),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
-    sentAt: timestamp("sent_at", { withTimezone: true }),
+    jobId: ref("job_id", () => jobs.id, "set null"),
+    createdAt: instantNow("created_at"),
+    sentAt: instant("sent_at"),
   },
   (t) => [index("outbox_pending_idx").on(t.status, t.nextAttemptAt)],
 );
@@ -519,15 +508,13 @@ export type OutboxMessage = typeof outbox.$inferSelect;
 export const userTokens = pgTable(
   "user_tokens",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    userId: uuid("user_id")
-      .notNull()
-      .references(() => users.id, { onDelete: "cascade" }),
+    id: primaryId(),
+    userId: requiredRef("user_id", () => users.id, "cascade"),
     purpose: text("purpose").notNull(),
     tokenHash: text("token_hash").notNull().unique(),
-    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
-    usedAt: timestamp("used_at", { withTimezone: true }),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    expiresAt: instant("expires_at").notNull(),
+    usedAt: instant("used_at"),
+    createdAt: instantNow("created_at"),
   },
   (t) => [index("user_tokens_user_idx").on(t.userId)],
 );
@@ -541,19 +528,17 @@ export const userTokens = pgTable(
 export const reports = pgTable(
   "reports",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    jobId: uuid("job_id")
-      .notNull()
-      .references(() => jobs.id, { onDelete: "restrict" }),
+    id: primaryId(),
+    jobId: jobRef(),
     revision: integer("revision").notNull(),
-    supersedesId: uuid("supersedes_id").references((): AnyPgColumn => reports.id, { onDelete: "restrict" }),
+    supersedesId: ref("supersedes_id", (): AnyPgColumn => reports.id),
     amendmentReason: text("amendment_reason"),
     pdf: bytea("pdf").notNull(),
     pdfSha256: text("pdf_sha256").notNull(),
     contentSha256: text("content_sha256").notNull(),
     content: jsonb("content").notNull(),
-    issuedAt: timestamp("issued_at", { withTimezone: true }).notNull().defaultNow(),
-    issuedById: uuid("issued_by_id").references(() => users.id, { onDelete: "restrict" }),
+    issuedAt: instantNow("issued_at"),
+    issuedById: ref("issued_by_id", () => users.id),
   },
   (t) => [
     uniqueIndex("reports_job_revision_idx").on(t.jobId, t.revision),
@@ -571,18 +556,14 @@ export type Report = typeof reports.$inferSelect;
 export const signatures = pgTable(
   "signatures",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    jobId: uuid("job_id")
-      .notNull()
-      .references(() => jobs.id, { onDelete: "restrict" }),
-    reportId: uuid("report_id").references(() => reports.id, { onDelete: "restrict" }),
+    id: primaryId(),
+    jobId: jobRef(),
+    reportId: ref("report_id", () => reports.id),
     meaning: signatureMeaningEnum("meaning").notNull(),
-    signerId: uuid("signer_id")
-      .notNull()
-      .references(() => users.id, { onDelete: "restrict" }),
+    signerId: requiredRef("signer_id", () => users.id),
     signerName: text("signer_name").notNull(),
     signerRole: roleEnum("signer_role").notNull(),
-    signedAt: timestamp("signed_at", { withTimezone: true }).notNull(),
+    signedAt: instant("signed_at").notNull(),
     comment: text("comment"),
     manifest: jsonb("manifest").notNull(),
     signature: text("signature").notNull(),
@@ -602,20 +583,16 @@ export type Signature = typeof signatures.$inferSelect;
 export const analyses = pgTable(
   "analyses",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    jobId: uuid("job_id")
-      .notNull()
-      .references(() => jobs.id, { onDelete: "restrict" }),
-    datasetId: uuid("dataset_id")
-      .notNull()
-      .references(() => datasets.id, { onDelete: "restrict" }),
+    id: primaryId(),
+    jobId: jobRef(),
+    datasetId: requiredRef("dataset_id", () => datasets.id),
     kind: analysisKindEnum("kind").notNull().default("head_fit"),
     geometryVersion: text("geometry_version").notNull(),
     inputSha256: text("input_sha256").notNull(),
     options: jsonb("options").notNull(),
     result: jsonb("result").notNull(),
-    createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdById: byUser("created_by_id"),
+    createdAt: instantNow("created_at"),
   },
   (t) => [
     uniqueIndex("analyses_input_idx").on(t.datasetId, t.inputSha256, t.geometryVersion),
@@ -633,10 +610,8 @@ export type Analysis = typeof analyses.$inferSelect;
 export const templateParameterLimits = pgTable(
   "template_parameter_limits",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    templateId: uuid("template_id")
-      .notNull()
-      .references(() => procedureTemplates.id, { onDelete: "cascade" }),
+    id: primaryId(),
+    templateId: requiredRef("template_id", () => procedureTemplates.id, "cascade"),
     parameter: text("parameter").notNull(),
     lowerLimit: doublePrecision("lower_limit"),
     upperLimit: doublePrecision("upper_limit"),
@@ -656,15 +631,11 @@ export type TemplateParameterLimit = typeof templateParameterLimits.$inferSelect
 export const analysisViews = pgTable(
   "analysis_views",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    jobId: uuid("job_id")
-      .notNull()
-      .references(() => jobs.id, { onDelete: "restrict" }),
-    analysisId: uuid("analysis_id")
-      .notNull()
-      .references(() => analyses.id, { onDelete: "restrict" }),
+    id: primaryId(),
+    jobId: jobRef(),
+    analysisId: requiredRef("analysis_id", () => analyses.id),
     /** The other phase's fit drawn with this one (before/after overlay), if any. */
-    overlayAnalysisId: uuid("overlay_analysis_id").references(() => analyses.id, { onDelete: "restrict" }),
+    overlayAnalysisId: ref("overlay_analysis_id", () => analyses.id),
     storageKey: text("storage_key").notNull(),
     sha256: text("sha256").notNull(),
     sizeBytes: integer("size_bytes").notNull(),
@@ -672,8 +643,8 @@ export const analysisViews = pgTable(
     heightPx: integer("height_px").notNull(),
     factor: doublePrecision("factor").notNull(),
     caption: text("caption"),
-    createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdById: byUser("created_by_id"),
+    createdAt: instantNow("created_at"),
   },
   (t) => [index("analysis_views_job_idx").on(t.jobId, t.createdAt)],
 );
@@ -688,20 +659,16 @@ export type AnalysisView = typeof analysisViews.$inferSelect;
 export const deviations = pgTable(
   "deviations",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    jobId: uuid("job_id")
-      .notNull()
-      .references(() => jobs.id, { onDelete: "restrict" }),
+    id: primaryId(),
+    jobId: jobRef(),
     subject: text("subject").notNull(),
     /** The result as the report names it, e.g. "Bore B, diameter" or "EC0C". */
     subjectLabel: text("subject_label").notNull(),
     decision: text("decision").notNull(),
     justification: text("justification").notNull(),
-    approvedById: uuid("approved_by_id")
-      .notNull()
-      .references(() => users.id, { onDelete: "restrict" }),
+    approvedById: requiredRef("approved_by_id", () => users.id),
     approvedByName: text("approved_by_name").notNull(),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: instantNow("created_at"),
   },
   (t) => [uniqueIndex("deviations_subject_idx").on(t.jobId, t.subject)],
 );
@@ -714,19 +681,17 @@ export type Deviation = typeof deviations.$inferSelect;
 export const environmentRecords = pgTable(
   "environment_records",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    jobId: uuid("job_id")
-      .notNull()
-      .references(() => jobs.id, { onDelete: "restrict" }),
+    id: primaryId(),
+    jobId: jobRef(),
     phase: phaseEnum("phase").notNull(),
     airTempC: doublePrecision("air_temp_c"),
     machineTempC: doublePrecision("machine_temp_c"),
     note: text("note"),
-    takenAt: timestamp("taken_at", { withTimezone: true }).notNull().defaultNow(),
-    recordedById: uuid("recorded_by_id").references(() => users.id, { onDelete: "set null" }),
+    takenAt: instantNow("taken_at"),
+    recordedById: byUser("recorded_by_id"),
     /** The id the tablet gave the record: a repeated send finds it instead of storing twice. */
     clientId: uuid("client_id"),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: instantNow("created_at"),
   },
   (t) => [
     index("environment_records_job_idx").on(t.jobId, t.takenAt),
@@ -743,15 +708,11 @@ export type EnvironmentRecord = typeof environmentRecords.$inferSelect;
 export const photos = pgTable(
   "photos",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    jobId: uuid("job_id")
-      .notNull()
-      .references(() => jobs.id, { onDelete: "restrict" }),
-    stepId: uuid("step_id")
-      .notNull()
-      .references(() => templateSteps.id, { onDelete: "restrict" }),
+    id: primaryId(),
+    jobId: jobRef(),
+    stepId: requiredRef("step_id", () => templateSteps.id),
     /** The reading it shows, when it was taken with one (null: a photo of the step itself). */
-    readingId: uuid("reading_id").references(() => readings.id, { onDelete: "restrict" }),
+    readingId: ref("reading_id", () => readings.id),
     phase: phaseEnum("phase").notNull(),
     storageKey: text("storage_key").notNull(),
     thumbKey: text("thumb_key").notNull(),
@@ -760,11 +721,11 @@ export const photos = pgTable(
     sizeBytes: integer("size_bytes").notNull(),
     width: integer("width").notNull(),
     height: integer("height").notNull(),
-    takenAt: timestamp("taken_at", { withTimezone: true }).notNull(),
-    uploadedById: uuid("uploaded_by_id").references(() => users.id, { onDelete: "set null" }),
+    takenAt: instant("taken_at").notNull(),
+    uploadedById: byUser("uploaded_by_id"),
     /** The id the tablet gave the photo: a repeated send finds it instead of storing twice. */
     clientId: uuid("client_id"),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: instantNow("created_at"),
   },
   (t) => [
     index("photos_job_idx").on(t.jobId, t.stepId),
@@ -789,8 +750,8 @@ export const issuerSettings = pgTable(
     accreditation: text("accreditation").notNull().default(""),
     /** The statement about reproducing the report only in full. */
     reproductionStatement: text("reproduction_statement").notNull().default(""),
-    updatedById: uuid("updated_by_id").references(() => users.id, { onDelete: "set null" }),
-    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedById: byUser("updated_by_id"),
+    updatedAt: instantNow("updated_at"),
   },
   (t) => [check("issuer_settings_single_row", sql`${t.id} = 1`)],
 );
@@ -807,12 +768,10 @@ export const reportViews = pgTable(
     viewId: uuid("view_id")
       .primaryKey()
       .references(() => analysisViews.id, { onDelete: "restrict" }),
-    jobId: uuid("job_id")
-      .notNull()
-      .references(() => jobs.id, { onDelete: "restrict" }),
+    jobId: jobRef(),
     included: boolean("included").notNull(),
-    chosenById: uuid("chosen_by_id").references(() => users.id, { onDelete: "set null" }),
-    chosenAt: timestamp("chosen_at", { withTimezone: true }).notNull().defaultNow(),
+    chosenById: byUser("chosen_by_id"),
+    chosenAt: instantNow("chosen_at"),
   },
   (t) => [index("report_views_job_idx").on(t.jobId)],
 );
@@ -826,16 +785,12 @@ export type ReportView = typeof reportViews.$inferSelect;
 export const jobInstruments = pgTable(
   "job_instruments",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    jobId: uuid("job_id")
-      .notNull()
-      .references(() => jobs.id, { onDelete: "restrict" }),
-    instrumentId: uuid("instrument_id")
-      .notNull()
-      .references(() => instruments.id, { onDelete: "restrict" }),
+    id: primaryId(),
+    jobId: jobRef(),
+    instrumentId: requiredRef("instrument_id", () => instruments.id),
     use: text("use").notNull(),
-    recordedById: uuid("recorded_by_id").references(() => users.id, { onDelete: "set null" }),
-    recordedAt: timestamp("recorded_at", { withTimezone: true }).notNull().defaultNow(),
+    recordedById: byUser("recorded_by_id"),
+    recordedAt: instantNow("recorded_at"),
   },
   (t) => [uniqueIndex("job_instruments_uq").on(t.jobId, t.instrumentId, t.use)],
 );
@@ -853,17 +808,15 @@ export const controlValueStageEnum = pgEnum("control_value_stage", CONTROL_VALUE
 export const controlValueRecords = pgTable(
   "control_value_records",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    jobId: uuid("job_id")
-      .notNull()
-      .references(() => jobs.id, { onDelete: "restrict" }),
+    id: primaryId(),
+    jobId: jobRef(),
     stage: controlValueStageEnum("stage").notNull(),
     unitSystem: unitSystemEnum("unit_system").notNull(),
     values: jsonb("values").$type<ControlValueSet>().notNull(),
-    analysisId: uuid("analysis_id").references(() => analyses.id, { onDelete: "restrict" }),
+    analysisId: ref("analysis_id", () => analyses.id),
     note: text("note"),
-    recordedById: uuid("recorded_by_id").references(() => users.id, { onDelete: "set null" }),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    recordedById: byUser("recorded_by_id"),
+    createdAt: instantNow("created_at"),
   },
   (t) => [index("control_value_records_job_idx").on(t.jobId, t.stage, t.createdAt)],
 );
@@ -878,24 +831,16 @@ export type ControlValueRecord = typeof controlValueRecords.$inferSelect;
 export const analysisBudgetInputs = pgTable(
   "analysis_budget_inputs",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    jobId: uuid("job_id")
-      .notNull()
-      .references(() => jobs.id, { onDelete: "restrict" }),
-    analysisId: uuid("analysis_id")
-      .notNull()
-      .references(() => analyses.id, { onDelete: "restrict" }),
-    probeInstrumentId: uuid("probe_instrument_id").references(() => instruments.id, { onDelete: "restrict" }),
-    sphereInstrumentId: uuid("sphere_instrument_id").references(() => instruments.id, {
-      onDelete: "restrict",
-    }),
-    presetterInstrumentId: uuid("presetter_instrument_id").references(() => instruments.id, {
-      onDelete: "restrict",
-    }),
+    id: primaryId(),
+    jobId: jobRef(),
+    analysisId: requiredRef("analysis_id", () => analyses.id),
+    probeInstrumentId: ref("probe_instrument_id", () => instruments.id),
+    sphereInstrumentId: ref("sphere_instrument_id", () => instruments.id),
+    presetterInstrumentId: ref("presetter_instrument_id", () => instruments.id),
     /** geometry's BudgetTypeB as resolved when chosen: uProbeUm, uSphereUm, uToolUm, deltaTK, alphaPerK, lengthMm. */
     inputs: jsonb("inputs").$type<Record<string, number>>().notNull(),
-    createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdById: byUser("created_by_id"),
+    createdAt: instantNow("created_at"),
   },
   (t) => [index("analysis_budget_inputs_analysis_idx").on(t.analysisId, t.createdAt)],
 );

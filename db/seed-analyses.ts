@@ -5,15 +5,12 @@
  * installer through the same validation and storage path as the app, and their head fits run by
  * the demo engineer through the same query the page uses (so the 3D view can overlay the two).
  */
-import { createHash } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { runHeadFit } from "@/db/queries/analyses";
-import { insertDataset } from "@/db/queries/datasets";
-import { getActor } from "@/db/queries/users";
-import { datasets, jobs, users } from "@/db/schema";
+import { datasets, jobs } from "@/db/schema";
+import { demoActor, sphereProbeCsvText, storeCsv } from "@/db/seed-helpers";
 import { headPoseGrid, synthesiseSphereProbe, type HeadConfig, type HeadErrors } from "@/geometry";
-import { parseDatasetText, parseUploadForm } from "@/lib/storage/parse-dataset";
 
 /** Invented errors of the demo head (µm and arc seconds, as the keys say). */
 export const DEMO_HEAD_ERRORS: HeadErrors = {
@@ -64,36 +61,14 @@ export function demoSphereProbeCsv(errors: HeadErrors = DEMO_HEAD_ERRORS, seed =
     seed,
     centreMm: [612.5, -204.0, 388.25],
   });
-  const lines = ["primary_deg,secondary_deg,x,y,z,tool_mm"];
-  for (let i = 0; i < d.rows; i++) {
-    lines.push(
-      [
-        d.primaryDeg[i]!,
-        d.secondaryDeg[i]!,
-        d.xMm[i]!.toFixed(5),
-        d.yMm[i]!.toFixed(5),
-        d.zMm[i]!.toFixed(5),
-        d.toolMm![i]!,
-      ].join(","),
-    );
-  }
-  return lines.join("\n") + "\n";
+  return sphereProbeCsvText(d, { toolColumn: true });
 }
 
 export async function seedAnalyses(): Promise<void> {
   const [job] = await db.select().from(jobs).where(eq(jobs.reference, "TR-2026-0052"));
   if (!job) return;
-  const [inst] = await db
-    .select({ id: users.id })
-    .from(users)
-    .where(eq(users.email, "installer@halvard.example"));
-  const [eng] = await db
-    .select({ id: users.id })
-    .from(users)
-    .where(eq(users.email, "engineer@halvard.example"));
-  const installer = inst ? await getActor(inst.id) : null;
-  const engineer = eng ? await getActor(eng.id) : null;
-  if (!installer || !engineer) throw new Error("seed: no demo installer or engineer");
+  const installer = await demoActor("installer@halvard.example");
+  const engineer = await demoActor("engineer@halvard.example");
   // Before the adjustment first, then after it: the later fit is the one the page shows first.
   for (const [filename, phase, errors, seed] of [
     [DEMO_PROBE_FILENAME, "pre", DEMO_HEAD_ERRORS, 52],
@@ -111,20 +86,14 @@ export async function seedAnalyses(): Promise<void> {
           eq(datasets.status, "stored"),
         ),
       );
-    if (!ds) {
-      const text = demoSphereProbeCsv(errors, seed);
-      const data = Buffer.from(text, "utf8");
-      const form = parseUploadForm({ kind: "sphere_probe", phase, units: "mm" });
-      const parsed = parseDatasetText(form, text);
-      const sha256 = createHash("sha256").update(data).digest("hex");
-      ds = await insertDataset(
+    if (!ds)
+      ds = await storeCsv(
         installer,
         job.id,
-        form,
-        { filename, contentType: "text/csv", data, sha256 },
-        parsed,
+        { kind: "sphere_probe", phase, units: "mm" },
+        filename,
+        demoSphereProbeCsv(errors, seed),
       );
-    }
     // Idempotent: the same input finds the stored analysis.
     await runHeadFit(engineer, ds.id);
   }

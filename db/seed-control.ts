@@ -3,29 +3,17 @@
  * were entered, made with geometry's own forward model. With the control compensating all but a
  * few micrometres, the sphere centre the control reports moves by about that much over the swing.
  */
-import { createHash } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db";
-import { approveAnalysis, nonConformingParameters, runHeadFit } from "@/db/queries/analyses";
 import { appendAudit } from "@/db/queries/audit";
 import { getControlValues, recordControlValues } from "@/db/queries/control-values";
-import { insertDataset } from "@/db/queries/datasets";
-import { getActor } from "@/db/queries/users";
-import {
-  controlValueRecords,
-  instruments,
-  jobs,
-  procedureTemplates,
-  templateSteps,
-  users,
-} from "@/db/schema";
+import { controlValueRecords, instruments, jobs, procedureTemplates, templateSteps } from "@/db/schema";
 import { DEFAULT_STEPS } from "@/db/seed-checklists";
 import { recordBudgetInputs } from "@/db/queries/budget";
 import { DEMO_HEAD_CONFIG, demoSphereProbeCsv } from "@/db/seed-analyses";
+import { demoActor, fitAndApprove, sphereProbeCsvText, storeCsv } from "@/db/seed-helpers";
 import { headPoseGrid, synthesiseSphereProbe, type HeadErrors } from "@/geometry";
 import { CONTROL_DECIMALS } from "@/lib/control-values";
-import type { Actor } from "@/lib/domain/roles";
-import { parseDatasetText, parseUploadForm } from "@/lib/storage/parse-dataset";
 
 /** What is left after compensation in the demo: a few µm and arc seconds (invented). */
 export const DEMO_TCP_RESIDUAL_ERRORS: HeadErrors = {
@@ -42,18 +30,7 @@ export function demoTcpCheckCsv(errors: HeadErrors = DEMO_TCP_RESIDUAL_ERRORS, s
     seed,
     centreMm: [612.5, -204.0, 388.25],
   });
-  const lines = ["primary_deg,secondary_deg,x,y,z"];
-  for (let i = 0; i < d.rows; i++)
-    lines.push(
-      [
-        d.primaryDeg[i]!,
-        d.secondaryDeg[i]!,
-        d.xMm[i]!.toFixed(5),
-        d.yMm[i]!.toFixed(5),
-        d.zMm[i]!.toFixed(5),
-      ].join(","),
-    );
-  return lines.join("\n") + "\n";
+  return sphereProbeCsvText(d, { toolColumn: false });
 }
 
 export const DEMO_CONTROL_JOB = "TR-2026-0059";
@@ -116,31 +93,6 @@ async function ensureInstrument(values: typeof instruments.$inferInsert): Promis
   return row!.id;
 }
 
-async function actorByEmail(email: string) {
-  const [u] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
-  const a = u ? await getActor(u.id) : null;
-  if (!a) throw new Error(`seed: no demo user ${email}`);
-  return a;
-}
-
-async function upload(
-  actor: Actor,
-  jobId: string,
-  kind: "sphere_probe" | "tcp_check",
-  filename: string,
-  text: string,
-) {
-  const data = Buffer.from(text, "utf8");
-  const form = parseUploadForm({ kind, phase: "post", units: "mm" });
-  return insertDataset(
-    actor,
-    jobId,
-    form,
-    { filename, contentType: "text/csv", data, sha256: createHash("sha256").update(data).digest("hex") },
-    parseDatasetText(form, text),
-  );
-}
-
 /**
  * The control-loop demo (invented): after a spindle collision on G-7, the engineer recorded the
  * control's values as found, the head was probed and its fit approved, the values to enter were
@@ -150,8 +102,8 @@ async function upload(
 export async function seedControlLoop(password: string): Promise<void> {
   const [template] = await db.select().from(jobs).where(eq(jobs.reference, "TR-2026-0057"));
   if (!template) return;
-  const engineer = await actorByEmail("engineer@halvard.example");
-  const installer = await actorByEmail("installer@halvard.example");
+  const engineer = await demoActor("engineer@halvard.example");
+  const installer = await demoActor("installer@halvard.example");
   // A procedure version of the demo's own: one checklist step, a TCP check required with limits of
   // 15 µm range per axis and 10 µm from the mean (invented for the demo, like the customer's spec).
   let [procedure] = await db
@@ -219,16 +171,14 @@ export async function seedControlLoop(password: string): Promise<void> {
     values: { ...DEMO_AS_FOUND },
     note: "Read from the control's kinematic table before any change (demo).",
   });
-  const probe = await upload(installer, job.id, "sphere_probe", PROBE_FILENAME, demoSphereProbeCsv());
-  const { analysis } = await runHeadFit(engineer, probe.id);
-  // The engineer confirms any parameter that does not conform, as the approval form asks.
-  const open = await nonConformingParameters(engineer, analysis.id);
-  await approveAnalysis(
-    engineer,
-    analysis.id,
-    password,
-    open.map((p) => p.key),
+  const probe = await storeCsv(
+    installer,
+    job.id,
+    { kind: "sphere_probe", phase: "post", units: "mm" },
+    PROBE_FILENAME,
+    demoSphereProbeCsv(),
   );
+  const analysis = await fitAndApprove(engineer, probe.id, password);
   // The budget's Type B inputs from the register (the demo's probe, sphere and presetter), ΔT ±1 K.
   const [probeId, sphereId, presetterId] = await Promise.all(DEMO_BUDGET_INSTRUMENTS.map(ensureInstrument));
   await recordBudgetInputs(engineer, {
@@ -254,5 +204,11 @@ export async function seedControlLoop(password: string): Promise<void> {
     values: asLeft,
     note: "Read back from the control after entering (demo).",
   });
-  await upload(installer, job.id, "tcp_check", TCP_FILENAME, demoTcpCheckCsv());
+  await storeCsv(
+    installer,
+    job.id,
+    { kind: "tcp_check", phase: "post", units: "mm" },
+    TCP_FILENAME,
+    demoTcpCheckCsv(),
+  );
 }

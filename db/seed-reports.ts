@@ -4,32 +4,24 @@
  */
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db";
-import { approveAnalysis, nonConformingParameters, runHeadFit } from "@/db/queries/analyses";
 import { getReadinessView, recordDeviation } from "@/db/queries/readiness";
 import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
-import { getActor } from "@/db/queries/users";
-import { datasets, jobs, reports, signatures, users } from "@/db/schema";
+import { datasets, jobs, reports, signatures } from "@/db/schema";
+import { demoActor, fitAndApprove } from "@/db/seed-helpers";
 
 /** Invented for the demo scenario: the customer's written concession for the one result outside its limit. */
 const DEMO_DEVIATION_JUSTIFICATION =
   "Outside the demo limit; the customer's quality engineer accepted it in writing (concession C-0041-1, invented demo) because the compensation table absorbs it.";
-
-async function actorByEmail(email: string) {
-  const [u] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
-  const actor = u ? await getActor(u.id) : null;
-  if (!actor) throw new Error(`seed: no user ${email}`);
-  return actor;
-}
 
 export async function seedReports(password: string): Promise<void> {
   const [job] = await db.select().from(jobs).where(eq(jobs.reference, "TR-2026-0041"));
   if (!job) return;
   const existing = await db.select({ id: reports.id }).from(reports).where(eq(reports.jobId, job.id));
   if (existing.length > 0) return;
-  const installer = await actorByEmail("installer@halvard.example");
-  const inspector = await actorByEmail("inspector@halvard.example");
-  const engineer = await actorByEmail("engineer@halvard.example");
+  const installer = await demoActor("installer@halvard.example");
+  const inspector = await demoActor("inspector@halvard.example");
+  const engineer = await demoActor("engineer@halvard.example");
   // The job walks the real flow: measuring while the work is signed, approved, then issued.
   await db.update(jobs).set({ status: "measuring" }).where(eq(jobs.id, job.id));
   for (const [actor, meaning] of [
@@ -50,15 +42,7 @@ export async function seedReports(password: string): Promise<void> {
     .from(datasets)
     .where(and(eq(datasets.jobId, job.id), eq(datasets.kind, "sphere_probe"), eq(datasets.status, "stored")));
   if (probe) {
-    const { analysis } = await runHeadFit(engineer, probe.id);
-    // The engineer confirms any parameter that does not conform, as the approval form asks.
-    const open = await nonConformingParameters(engineer, analysis.id);
-    await approveAnalysis(
-      engineer,
-      analysis.id,
-      password,
-      open.map((p) => p.key),
-    );
+    await fitAndApprove(engineer, probe.id, password);
   } else {
     await db.update(jobs).set({ status: "approved" }).where(eq(jobs.id, job.id));
   }

@@ -32,14 +32,9 @@ export interface ToleranceCheck {
 /** Why a decision is undecided for a reason other than the guard band. */
 export type DecisionReason = "U missing";
 
-export interface DecisionResult {
+/** The check as it was asked, with its decision. */
+export interface DecisionResult extends ToleranceCheck {
   readonly decision: Decision;
-  readonly measured: number;
-  readonly lower: number | null;
-  readonly upper: number;
-  readonly U: number | null;
-  readonly rule: DecisionRule;
-  readonly unit?: string;
   /** Present when the decision could not be made by the rule: guarded without U. */
   readonly reason?: DecisionReason;
 }

@@ -118,35 +118,43 @@ export function levenbergMarquardt(
     return g <= gtol;
   };
 
+  /**
+   * Solves the scaled damped system (A + λI) δs = −g at θ: δ = D⁻¹δs into `step`, θ + δ into
+   * `trial`; returns ‖δs‖ and ‖Dθ‖, or null when A + λI is not positive definite.
+   */
+  const dampedStep = (damping: number) => {
+    const a = new Matrix(p, p);
+    for (let i = 0; i < p; i++) {
+      for (let j = 0; j < p; j++) a.set(i, j, jtj[i * p + j]! / (d[i]! * d[j]!) + (i === j ? damping : 0));
+    }
+    const chol = new CholeskyDecomposition(a);
+    if (!chol.isPositiveDefinite()) return null;
+    const g = new Matrix(p, 1);
+    for (let j = 0; j < p; j++) g.set(j, 0, -jtr[j]! / d[j]!);
+    const ds = chol.solve(g);
+    let stepNorm = 0;
+    let thetaNorm = 0;
+    for (let j = 0; j < p; j++) {
+      step[j] = ds.get(j, 0) / d[j]!;
+      trial[j] = theta[j]! + step[j]!;
+      stepNorm += ds.get(j, 0) ** 2;
+      thetaNorm += (d[j]! * theta[j]!) ** 2;
+    }
+    return { stepNorm: Math.sqrt(stepNorm), thetaNorm: Math.sqrt(thetaNorm) };
+  };
+
   if (S === 0) reason = "exact";
   else if (gradientSmall()) reason = "gradient";
   else {
     while (iterations < maxIterations) {
       iterations++;
-      // Scaled damped system (A + λI) δs = −g.
-      const a = new Matrix(p, p);
-      for (let i = 0; i < p; i++) {
-        for (let j = 0; j < p; j++) a.set(i, j, jtj[i * p + j]! / (d[i]! * d[j]!) + (i === j ? lambda : 0));
-      }
-      const chol = new CholeskyDecomposition(a);
-      if (!chol.isPositiveDefinite()) {
+      const solved = dampedStep(lambda);
+      if (!solved) {
         lambda *= nu;
         nu *= 2;
         continue;
       }
-      const g = new Matrix(p, 1);
-      for (let j = 0; j < p; j++) g.set(j, 0, -jtr[j]! / d[j]!);
-      const ds = chol.solve(g);
-      let stepNorm = 0;
-      let thetaNorm = 0;
-      for (let j = 0; j < p; j++) {
-        step[j] = ds.get(j, 0) / d[j]!;
-        trial[j] = theta[j]! + step[j]!;
-        stepNorm += ds.get(j, 0) ** 2;
-        thetaNorm += (d[j]! * theta[j]!) ** 2;
-      }
-      stepNorm = Math.sqrt(stepNorm);
-      thetaNorm = Math.sqrt(thetaNorm);
+      const { stepNorm, thetaNorm } = solved;
       // Predicted reduction of S for the linear model: −2δᵀJᵀr − δᵀJᵀJδ.
       let pred = 0;
       for (let i = 0; i < p; i++) {
@@ -206,22 +214,10 @@ export function levenbergMarquardt(
     // stay above the step tolerance and at least halve the scaled gradient.
     let last = Infinity;
     for (let k = 0; k < 20; k++) {
-      const a = new Matrix(p, p);
-      for (let i = 0; i < p; i++) for (let j = 0; j < p; j++) a.set(i, j, jtj[i * p + j]! / (d[i]! * d[j]!));
-      const chol = new CholeskyDecomposition(a);
-      if (!chol.isPositiveDefinite()) break;
-      const g = new Matrix(p, 1);
-      for (let j = 0; j < p; j++) g.set(j, 0, -jtr[j]! / d[j]!);
-      const ds = chol.solve(g);
-      let stepNorm = 0;
-      let thetaNorm = 0;
-      for (let j = 0; j < p; j++) {
-        trial[j] = theta[j]! + ds.get(j, 0) / d[j]!;
-        stepNorm += ds.get(j, 0) ** 2;
-        thetaNorm += (d[j]! * theta[j]!) ** 2;
-      }
-      stepNorm = Math.sqrt(stepNorm);
-      if (!(stepNorm < last) || stepNorm <= xtol * (Math.sqrt(thetaNorm) + xtol)) break;
+      const solved = dampedStep(0);
+      if (!solved) break;
+      const { stepNorm, thetaNorm } = solved;
+      if (!(stepNorm < last) || stepNorm <= xtol * (thetaNorm + xtol)) break;
       const njtj = new Float64Array(p * p);
       const njtr = new Float64Array(p);
       const Snew = problem.normalEquations(trial, njtj, njtr);

@@ -256,3 +256,15 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
       throw new GeometryError("bad_number", `the sweep's ${key} is beyond the number range; check the units`);
   return result;
 }
+
+/** The CLI's JSON shape and the stored dataset summary (see geometry/README.md), in this order. */
+export function sweepToJson(r: SweepResult) {
+  return {
+    tilt_um_per_m: r.tilt_um_per_m,
+    tilt_arcsec: r.tilt_arcsec,
+    direction_deg: r.direction_deg,
+    tir_um: r.tir_um,
+    flatness_ls_um: r.flatness_ls_um,
+    flatness_mz_um: r.flatness_mz_um,
+  };
+}

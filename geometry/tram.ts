@@ -113,6 +113,17 @@ export function fitTram(input: TramInput): TramResult {
   return result;
 }
 
+/** The CLI's JSON shape and the stored dataset summary (see geometry/README.md), in this order. */
+export function tramToJson(r: TramResult) {
+  return {
+    slope_um_per_m: r.slope_um_per_m,
+    slope_u_um_per_m: r.slope_u_um_per_m,
+    angle_arcsec: r.angle_arcsec,
+    straightness_um: r.straightness_um,
+    tir_um: r.tir_um,
+  };
+}
+
 /** The power of two nearest above m (1 for 0), so that dividing by it is exact. */
 function pow2Scale(m: number): number {
   if (!(m > 0)) return 1;

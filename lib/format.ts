@@ -3,6 +3,7 @@
  * "2026-12-04 06:12 GMT+1", 24-hour, with the zone always shown — in the reader's zone on screen
  * and in UTC in exports and the PDF.
  */
+import { wallClock } from "@/lib/domain/schedule";
 
 const toDate = (d: Date | string) => (typeof d === "string" ? new Date(d) : d);
 
@@ -20,22 +21,12 @@ export function formatDateTime(d: Date | string | null | undefined, timeZone: st
   if (!d) return "—";
   const date = toDate(d);
   if (timeZone === "UTC" || timeZone === "Etc/UTC") return formatDateTimeUtc(date);
-  let parts: Intl.DateTimeFormatPart[];
+  let p: ReturnType<typeof wallClock>;
   try {
-    parts = new Intl.DateTimeFormat("en-GB", {
-      timeZone,
-      year: "numeric",
-      month: "2-digit",
-      day: "2-digit",
-      hour: "2-digit",
-      minute: "2-digit",
-      hourCycle: "h23",
-      timeZoneName: "shortOffset",
-    }).formatToParts(date);
+    p = wallClock(date, timeZone, { timeZoneName: "shortOffset" });
   } catch {
     return formatDateTimeUtc(date);
   }
-  const p = (t: Intl.DateTimeFormatPartTypes) => parts.find((x) => x.type === t)?.value ?? "";
   return `${p("year")}-${p("month")}-${p("day")} ${p("hour")}:${p("minute")} ${p("timeZoneName")}`;
 }
 

@@ -2,16 +2,15 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { and, desc, eq, getTableColumns, sql } from "drizzle-orm";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
+import { appendAudit, jobEvent } from "@/db/queries/audit";
 import { getDataset, getDatasetColumns } from "@/db/queries/datasets";
-import { getJobDetail, jobAccessCondition } from "@/db/queries/jobs";
+import { getJobDetail, jobAccessCondition, visibleJob } from "@/db/queries/jobs";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
 import {
   jobStateSha256,
   manifestFor,
   refuseSameSigner,
   requirePasswordReentry,
-  visibleJob,
 } from "@/db/queries/signatures";
 import {
   analyses,
@@ -545,16 +544,13 @@ export async function approveAnalysis(
         signatureId: sig!.id,
       },
     });
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
-      action: "job.status_changed",
-      entityType: "job",
-      entityId: a.job.id,
-      jobId: a.job.id,
-      oldValues: { status },
-      newValues: { status: "approved", analysisId: a.analysis.id },
-    });
+    await appendAudit(
+      tx,
+      jobEvent(actor, a.job.id, "job.status_changed", {
+        oldValues: { status },
+        newValues: { status: "approved", analysisId: a.analysis.id },
+      }),
+    );
     return { status: "approved" as const, analysisId: a.analysis.id, signatureId: sig!.id };
   });
 }

@@ -52,6 +52,19 @@ const viewColumns = {
   createdAt: analysisViews.createdAt,
   createdByName: users.name,
 };
+/** A saved view as the report draws it: where its PNG is, its size, factor, caption and author. */
+export const pictureColumns = {
+  id: analysisViews.id,
+  analysisId: analysisViews.analysisId,
+  storageKey: analysisViews.storageKey,
+  factor: analysisViews.factor,
+  caption: analysisViews.caption,
+  widthPx: analysisViews.widthPx,
+  heightPx: analysisViews.heightPx,
+  createdAt: analysisViews.createdAt,
+  createdByName: users.name,
+};
+
 export type ViewRow = {
   id: string;
   jobId: string;
@@ -263,17 +276,7 @@ export async function latestJobView(jobId: string): Promise<LatestJobView | null
   if (!approved) return null;
   const approval = { analysisId: approved };
   const [row] = await db
-    .select({
-      id: analysisViews.id,
-      analysisId: analysisViews.analysisId,
-      storageKey: analysisViews.storageKey,
-      factor: analysisViews.factor,
-      caption: analysisViews.caption,
-      widthPx: analysisViews.widthPx,
-      heightPx: analysisViews.heightPx,
-      createdAt: analysisViews.createdAt,
-      createdByName: users.name,
-    })
+    .select(pictureColumns)
     .from(analysisViews)
     .leftJoin(users, eq(users.id, analysisViews.createdById))
     .where(and(eq(analysisViews.jobId, jobId), eq(analysisViews.analysisId, approval.analysisId)))

@@ -22,10 +22,30 @@ export interface AuditInput {
   newValues?: unknown;
 }
 
-/** hash = SHA-256(prev_hash ‖ canonical JSON of the event's content), hex. */
-export function auditHash(prevHash: string, e: AuditInput & { at: Date }): string {
-  const content = canonicalJson({
-    at: e.at.toISOString(),
+/**
+ * An event about the job itself (created, changed, moved to another status): the job is both the
+ * entity and the job the event belongs to.
+ */
+export function jobEvent(
+  actor: { id: string; email: string },
+  jobId: string,
+  action: string,
+  values: Pick<AuditInput, "oldValues" | "newValues">,
+): AuditInput {
+  return {
+    actorId: actor.id,
+    actorEmail: actor.email,
+    action,
+    entityType: "job",
+    entityId: jobId,
+    jobId,
+    ...values,
+  };
+}
+
+/** What an event records, as stored and hashed: a missing job or old/new value is null. */
+function auditContent(e: AuditInput) {
+  return {
     actorId: e.actorId,
     actorEmail: e.actorEmail,
     action: e.action,
@@ -34,7 +54,12 @@ export function auditHash(prevHash: string, e: AuditInput & { at: Date }): strin
     jobId: e.jobId ?? null,
     oldValues: e.oldValues ?? null,
     newValues: e.newValues ?? null,
-  });
+  };
+}
+
+/** hash = SHA-256(prev_hash ‖ canonical JSON of the event's content), hex. */
+export function auditHash(prevHash: string, e: AuditInput & { at: Date }): string {
+  const content = canonicalJson({ at: e.at.toISOString(), ...auditContent(e) });
   return createHash("sha256").update(prevHash).update("\n").update(content).digest("hex");
 }
 
@@ -53,19 +78,7 @@ export async function appendAudit(tx: Executor, input: AuditInput): Promise<void
   // Millisecond precision, so the stored timestamp hashes the same when read back.
   const at = new Date(Math.floor(Date.now()));
   const hash = auditHash(prevHash, { ...input, at });
-  await tx.insert(auditEvents).values({
-    at,
-    actorId: input.actorId,
-    actorEmail: input.actorEmail,
-    action: input.action,
-    entityType: input.entityType,
-    entityId: input.entityId,
-    jobId: input.jobId ?? null,
-    oldValues: input.oldValues ?? null,
-    newValues: input.newValues ?? null,
-    prevHash,
-    hash,
-  });
+  await tx.insert(auditEvents).values({ at, ...auditContent(input), prevHash, hash });
 }
 
 /** Checks the whole chain; returns the id of the first event whose link is broken, or null. */
@@ -75,17 +88,7 @@ export async function verifyAuditChain(
   const rows = await tx.select().from(auditEvents).orderBy(asc(auditEvents.id));
   let prev = AUDIT_GENESIS;
   for (const r of rows) {
-    const expected = auditHash(prev, {
-      at: r.at,
-      actorId: r.actorId,
-      actorEmail: r.actorEmail,
-      action: r.action,
-      entityType: r.entityType,
-      entityId: r.entityId,
-      jobId: r.jobId,
-      oldValues: r.oldValues,
-      newValues: r.newValues,
-    });
+    const expected = auditHash(prev, r);
     if (r.prevHash !== prev || r.hash !== expected) return { checked: rows.length, firstBrokenId: r.id };
     prev = r.hash;
   }

@@ -15,6 +15,7 @@ import {
   type AnalysisRow,
 } from "@/db/queries/analyses";
 import { appendAudit } from "@/db/queries/audit";
+import { lockJob } from "@/db/queries/locks";
 import { analysisBudgetInputs, heads, instruments, jobs } from "@/db/schema";
 import type { HeadConfig } from "@/geometry";
 import { budgetTable, resolveTypeB, type BudgetInstrument } from "@/lib/budget-display";
@@ -95,11 +96,7 @@ export async function recordBudgetInputs(actor: Actor, input: BudgetInputsInput)
     lengthMm: head!.pivot,
   });
   return db.transaction(async (tx) => {
-    const [locked] = await tx
-      .select({ status: jobs.status })
-      .from(jobs)
-      .where(eq(jobs.id, a.job.id))
-      .for("update");
+    const locked = await lockJob(tx, a.job.id);
     const refusal = budgetInputsRefusal(actor, { status: locked!.status });
     if (refusal) throw new AppError(409, "fixed", refusal);
     const [row] = await tx

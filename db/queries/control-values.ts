@@ -9,8 +9,9 @@ import { and, desc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
 import { appendAudit } from "@/db/queries/audit";
-import { getJobDetail } from "@/db/queries/jobs";
-import { controlValueRecords, datasets, jobs, procedureTemplates, users } from "@/db/schema";
+import { lockJob } from "@/db/queries/locks";
+import { getJobDetail, visibleJob } from "@/db/queries/jobs";
+import { controlValueRecords, datasets, procedureTemplates, users } from "@/db/schema";
 import { controlLoop, toControlCanonical, type ControlUnitSystem } from "@/lib/control-values";
 import {
   CONTROL_VALUE_DEFS,
@@ -120,8 +121,7 @@ export type JobControlValues = NonNullable<Awaited<ReturnType<typeof getControlV
  * row is locked so a concurrent issue or approval cannot slip between the check and the write.
  */
 export async function recordControlValues(actor: Actor, jobId: string, input: ControlValuesRecordInput) {
-  const d = await getJobDetail(actor, jobId);
-  if (!d) throw notFound("job");
+  await visibleJob(actor, jobId);
   const who = controlValuesRecorderRefusal(actor);
   if (who) throw forbidden(who);
   const approved = await getApprovedAnalysis(actor, jobId);
@@ -131,11 +131,7 @@ export async function recordControlValues(actor: Actor, jobId: string, input: Co
     if (v !== undefined) values[def.key] = toControlCanonical(v, def.kind, input.unitSystem);
   }
   return db.transaction(async (tx) => {
-    const [locked] = await tx
-      .select({ status: jobs.status })
-      .from(jobs)
-      .where(eq(jobs.id, jobId))
-      .for("update");
+    const locked = await lockJob(tx, jobId);
     if (!locked) throw notFound("job");
     const refusal = controlValuesWriteRefusal(actor, {
       status: locked.status,

@@ -2,7 +2,7 @@ import "server-only";
 import { and, desc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { getJobDetail, jobAccessCondition } from "@/db/queries/jobs";
+import { getJobDetail, jobAccessCondition, visibleJob } from "@/db/queries/jobs";
 import { datasetColumns, datasets, jobs, users } from "@/db/schema";
 import { evaluateTestPart, type TestPartRow } from "@/geometry";
 import type { DatasetKind, DatasetListRow } from "@/lib/domain/datasets";
@@ -24,8 +24,7 @@ import { isUuid } from "@/lib/domain/uuid";
  * 403 when their role may not upload, 409 when the job is past the stage that takes data.
  */
 export async function requireUploadableJob(actor: Actor, jobId: string, kind?: DatasetKind) {
-  const d = await getJobDetail(actor, jobId);
-  if (!d) throw notFound("job");
+  const d = await visibleJob(actor, jobId);
   const who = dataHandlerRefusal(actor, "upload");
   if (who) throw forbidden(who);
   const when = uploadRefusal(actor, d.job, kind);

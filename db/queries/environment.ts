@@ -2,10 +2,11 @@ import "server-only";
 import { and, desc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { getJobDetail } from "@/db/queries/jobs";
-import { environmentRecords, jobs, users, type EnvironmentRecord } from "@/db/schema";
+import { lockJob } from "@/db/queries/locks";
+import { getJobDetail, visibleJob } from "@/db/queries/jobs";
+import { environmentRecords, users, type EnvironmentRecord } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
-import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
+import { AppError, forbidden, invalid } from "@/lib/errors";
 import { readingsRefusal } from "@/lib/policy/readings";
 import type { EnvironmentCreateInput } from "@/lib/validations/environment";
 
@@ -41,17 +42,12 @@ export async function listEnvironment(actor: Actor, jobId: string): Promise<Envi
  * readings are open (403 otherwise); a repeated clientId answers with the stored record; audited.
  */
 export async function recordEnvironment(actor: Actor, jobId: string, input: EnvironmentCreateInput) {
-  const d = await getJobDetail(actor, jobId);
-  if (!d) throw notFound("job");
+  const d = await visibleJob(actor, jobId);
   const takenAt = input.takenAt ?? new Date();
   if (takenAt.getTime() > Date.now() + 5 * 60_000)
     throw invalid("The time is in the future.", [{ field: "takenAt", message: "in the future" }]);
   return db.transaction(async (tx) => {
-    const [locked] = await tx
-      .select({ status: jobs.status, assignedInstallerId: jobs.assignedInstallerId })
-      .from(jobs)
-      .where(eq(jobs.id, d.job.id))
-      .for("update");
+    const locked = await lockJob(tx, d.job.id);
     if (input.clientId) {
       const [again] = await tx
         .select()

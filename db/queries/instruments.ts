@@ -14,7 +14,12 @@ import type {
   instrumentPatchSchema,
 } from "@/lib/validations/registers";
 import { isUuid } from "@/lib/domain/uuid";
-import { assertRegisterEdit, uniqueAs, updateRegisterRow } from "@/db/queries/registers-admin";
+import {
+  assertRegisterEdit,
+  insertRegisterRow,
+  uniqueAs,
+  updateRegisterRow,
+} from "@/db/queries/registers-admin";
 
 export async function listInstruments(actor: Actor) {
   const refusal = registerReadRefusal(actor, "instruments");
@@ -37,33 +42,25 @@ export async function createInstrument(actor: Actor, input: z.infer<typeof instr
     throw invalid("An instrument with that serial is already registered.", [
       { field: "serial", message: "Already registered." },
     ]);
-  return db.transaction(async (tx) => {
-    const [row] = await tx
-      .insert(instruments)
-      .values({
-        kind: input.kind,
-        serial: input.serial,
-        maker: input.maker || null,
-        quantityKind: input.quantityKind,
-        resolution: toCanonical(input.resolution, input.unit),
-        standardUncertainty: toCanonical(input.standardUncertainty, input.unit),
-        calibratedOn: input.calibratedOn || null,
-        calibrationDueOn: input.calibrationDueOn,
-        certificateRef: input.certificateRef || null,
-        rangeMin: input.rangeMin !== undefined ? toCanonical(input.rangeMin, input.unit) : null,
-        rangeMax: input.rangeMax !== undefined ? toCanonical(input.rangeMax, input.unit) : null,
-      })
-      .returning();
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
-      action: "instrument.created",
-      entityType: "instrument",
-      entityId: row!.id,
-      newValues: { serial: row!.serial, kind: row!.kind, calibrationDueOn: row!.calibrationDueOn },
-    });
-    return row!;
-  });
+  return insertRegisterRow(
+    actor,
+    instruments,
+    "instrument",
+    {
+      kind: input.kind,
+      serial: input.serial,
+      maker: input.maker || null,
+      quantityKind: input.quantityKind,
+      resolution: toCanonical(input.resolution, input.unit),
+      standardUncertainty: toCanonical(input.standardUncertainty, input.unit),
+      calibratedOn: input.calibratedOn || null,
+      calibrationDueOn: input.calibrationDueOn,
+      certificateRef: input.certificateRef || null,
+      rangeMin: input.rangeMin !== undefined ? toCanonical(input.rangeMin, input.unit) : null,
+      rangeMax: input.rangeMax !== undefined ? toCanonical(input.rangeMax, input.unit) : null,
+    },
+    (row) => ({ serial: row.serial, kind: row.kind, calibrationDueOn: row.calibrationDueOn }),
+  );
 }
 
 /**

@@ -1,8 +1,8 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import { db } from "@/db";
+import { visibleJob } from "@/db/queries/jobs";
 import { appendAudit } from "@/db/queries/audit";
-import { visibleJob } from "@/db/queries/signatures";
 import { instruments, jobInstruments } from "@/db/schema";
 import { DATA_INSTRUMENT_USE_LABELS, type DataInstrumentUse } from "@/lib/domain/instruments";
 import type { Actor } from "@/lib/domain/roles";

@@ -3,6 +3,7 @@ import { eq } from "drizzle-orm";
 import type { NodePgDatabase } from "drizzle-orm/node-postgres";
 import { db } from "@/db";
 import { enqueueMail } from "@/db/queries/outbox";
+import { personColumns } from "@/db/queries/users";
 import { users } from "@/db/schema";
 import type * as schema from "@/db/schema";
 import { invalid } from "@/lib/errors";
@@ -16,16 +17,7 @@ type Person = { id: string; name: string; email: string };
 
 /** The installer a job is being given to: an active installer, or 422 naming `assignedInstallerId`. */
 export async function activeInstaller(id: string): Promise<Person> {
-  const [u] = await db
-    .select({
-      id: users.id,
-      name: users.name,
-      email: users.email,
-      role: users.role,
-      disabled: users.disabled,
-    })
-    .from(users)
-    .where(eq(users.id, id));
+  const [u] = await db.select(personColumns).from(users).where(eq(users.id, id));
   if (!u || u.role !== "installer" || u.disabled)
     throw invalid("Assign an active installer.", [
       { field: "assignedInstallerId", message: "Not an active installer." },

@@ -1,15 +1,16 @@
 import "server-only";
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
+import { appendAudit, jobEvent } from "@/db/queries/audit";
+import { lockJob } from "@/db/queries/locks";
 import { activeInstaller, queueAssignmentMails } from "@/db/queries/job-mail";
-import { getJobDetail } from "@/db/queries/jobs";
+import { visibleJob } from "@/db/queries/jobs";
 import { listActiveInstallers } from "@/db/queries/users-admin";
 import { createJobFromTemplate } from "@/db/queries/job-status";
 import { customers, heads, jobs, machines, procedureTemplates, sites } from "@/db/schema";
 import type { JobStatus } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
-import { forbidden, invalid, notFound } from "@/lib/errors";
+import { forbidden, invalid } from "@/lib/errors";
 import {
   jobAssignRefusal,
   jobCancelRefusal,
@@ -141,13 +142,6 @@ export async function openJob(actor: Actor, input: JobOpenInput) {
   });
 }
 
-/** Loads the job the actor may see and locks its row; throws 404 for one they may not see. */
-async function visibleJob(actor: Actor, jobId: string) {
-  const d = await getJobDetail(actor, jobId);
-  if (!d) throw notFound("job");
-  return d;
-}
-
 const RECORD_KEYS = [
   "title",
   "orderReference",
@@ -194,11 +188,7 @@ export async function updateJobRecord(actor: Actor, jobId: string, input: JobRec
   }
   if (Object.keys(newValues).length === 0) return { job: d.job, changed: [] as string[] };
   return db.transaction(async (tx) => {
-    const [locked] = await tx
-      .select({ status: jobs.status, assignedInstallerId: jobs.assignedInstallerId })
-      .from(jobs)
-      .where(eq(jobs.id, d.job.id))
-      .for("update");
+    const locked = await lockJob(tx, d.job.id);
     if (locked?.status !== d.job.status || locked.assignedInstallerId !== d.job.assignedInstallerId)
       throw invalid("The job changed meanwhile; open it again.");
     const at = new Date();
@@ -207,16 +197,10 @@ export async function updateJobRecord(actor: Actor, jobId: string, input: JobRec
       .set({ ...changes, updatedAt: at })
       .where(eq(jobs.id, d.job.id))
       .returning();
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
-      action: reassigning ? "job.assigned" : "job.updated",
-      entityType: "job",
-      entityId: d.job.id,
-      jobId: d.job.id,
-      oldValues,
-      newValues,
-    });
+    await appendAudit(
+      tx,
+      jobEvent(actor, d.job.id, reassigning ? "job.assigned" : "job.updated", { oldValues, newValues }),
+    );
     if (reassigning)
       await queueAssignmentMails(tx, actor, {
         job: row!,
@@ -230,6 +214,13 @@ export async function updateJobRecord(actor: Actor, jobId: string, input: JobRec
     return { job: row!, changed: Object.keys(newValues) };
   });
 }
+
+/** The audit action of each move: job.held, job.released, job.cancelled. */
+const MOVED: Record<JobMoveInput["action"], string> = {
+  hold: "held",
+  release: "released",
+  cancel: "cancelled",
+};
 
 /**
  * Hold, release and cancel (the office). On hold remembers the status the job left and release
@@ -259,11 +250,7 @@ export async function moveJob(actor: Actor, jobId: string, move: JobMoveInput) {
     set = { status: to, cancelReason: move.reason };
   }
   return db.transaction(async (tx) => {
-    const [locked] = await tx
-      .select({ status: jobs.status })
-      .from(jobs)
-      .where(eq(jobs.id, d.job.id))
-      .for("update");
+    const locked = await lockJob(tx, d.job.id);
     if (locked?.status !== d.job.status) throw invalid("The job changed meanwhile; open it again.");
     const at = new Date();
     const [row] = await tx
@@ -271,16 +258,13 @@ export async function moveJob(actor: Actor, jobId: string, move: JobMoveInput) {
       .set({ ...set, updatedAt: at })
       .where(eq(jobs.id, d.job.id))
       .returning();
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
-      action: `job.${move.action === "hold" ? "held" : move.action === "release" ? "released" : "cancelled"}`,
-      entityType: "job",
-      entityId: d.job.id,
-      jobId: d.job.id,
-      oldValues: { status: d.job.status },
-      newValues: { status: to, ...("reason" in move && move.reason ? { reason: move.reason } : {}) },
-    });
+    await appendAudit(
+      tx,
+      jobEvent(actor, d.job.id, `job.${MOVED[move.action]}`, {
+        oldValues: { status: d.job.status },
+        newValues: { status: to, ...("reason" in move && move.reason ? { reason: move.reason } : {}) },
+      }),
+    );
     return row!;
   });
 }

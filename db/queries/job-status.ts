@@ -1,16 +1,16 @@
 import "server-only";
 import { and, eq, inArray, sql } from "drizzle-orm";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
+import { appendAudit, jobEvent } from "@/db/queries/audit";
 import { refuseRetired } from "@/db/queries/registers-admin";
-import { getJobDetail } from "@/db/queries/jobs";
+import { visibleJob } from "@/db/queries/jobs";
 import { enqueueMail } from "@/db/queries/outbox";
 import { activeInstaller, queueAssignmentMails } from "@/db/queries/job-mail";
 import { customers, datasets, heads, jobs, machines, procedureTemplates, sites, users } from "@/db/schema";
 import type { JobStatus } from "@/lib/domain/jobs";
 import { type Actor } from "@/lib/domain/roles";
 import { jobCreateRefusal, transitionRefusal } from "@/lib/policy/jobs";
-import { forbidden, invalid, notFound } from "@/lib/errors";
+import { forbidden, invalid } from "@/lib/errors";
 import { publicUrl } from "@/lib/env";
 import { reviewRequestMessage } from "@/lib/mail/messages";
 import { activeUsers, lockJob } from "./locks";
@@ -24,8 +24,7 @@ const SIGNED_MOVES: readonly JobStatus[] = ["issued", "accepted", "rejected"];
  * queues an e-mail to every engineer and inspector in the same transaction.
  */
 export async function changeJobStatus(actor: Actor, jobId: string, to: JobStatus) {
-  const d = await getJobDetail(actor, jobId);
-  if (!d) throw notFound("job");
+  const d = await visibleJob(actor, jobId);
   if (SIGNED_MOVES.includes(to))
     throw forbidden("Issuing, accepting and rejecting are signed on the job's report page.");
   const refusal = transitionRefusal(actor, { job: d.job, to });
@@ -52,16 +51,13 @@ export async function changeJobStatus(actor: Actor, jobId: string, to: JobStatus
     if (locked?.status !== d.job.status) throw invalid("The job changed meanwhile; open it again.");
     const at = new Date();
     await tx.update(jobs).set({ status: to, updatedAt: at }).where(eq(jobs.id, d.job.id));
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
-      action: "job.status_changed",
-      entityType: "job",
-      entityId: d.job.id,
-      jobId: d.job.id,
-      oldValues: { status: d.job.status },
-      newValues: { status: to },
-    });
+    await appendAudit(
+      tx,
+      jobEvent(actor, d.job.id, "job.status_changed", {
+        oldValues: { status: d.job.status },
+        newValues: { status: to },
+      }),
+    );
     for (const r of reviewers) {
       await enqueueMail(tx, {
         dedupeKey: `review:${d.job.id}:${at.getTime()}:${r.id}`,
@@ -160,23 +156,20 @@ export async function createJobFromTemplate(actor: Actor, input: JobCreateInput)
         createdById: actor.id,
       })
       .returning();
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
-      action: "job.created",
-      entityType: "job",
-      entityId: row!.id,
-      jobId: row!.id,
-      newValues: {
-        reference,
-        status: "draft",
-        template: `${t.name} v${t.version}`,
-        assignedInstallerId: row!.assignedInstallerId,
-        orderReference: row!.orderReference,
-        scheduledFor: row!.scheduledFor?.toISOString() ?? null,
-        timeZone: row!.timeZone,
-      },
-    });
+    await appendAudit(
+      tx,
+      jobEvent(actor, row!.id, "job.created", {
+        newValues: {
+          reference,
+          status: "draft",
+          template: `${t.name} v${t.version}`,
+          assignedInstallerId: row!.assignedInstallerId,
+          orderReference: row!.orderReference,
+          scheduledFor: row!.scheduledFor?.toISOString() ?? null,
+          timeZone: row!.timeZone,
+        },
+      }),
+    );
     await queueAssignmentMails(tx, actor, {
       job: row!,
       where: m,

@@ -8,6 +8,7 @@ import { JOB_SORT_KEYS, type JobListRow, type JobSortKey, type JobStatus } from 
 import { type Actor } from "@/lib/domain/roles";
 import { jobScope } from "@/lib/policy/jobs";
 import { isUuid } from "@/lib/domain/uuid";
+import { notFound } from "@/lib/errors";
 
 /** The SQL form of lib/policy/jobs.jobScope: every read of jobs goes through it. */
 export function jobAccessCondition(actor: Actor): SQL | undefined {
@@ -161,6 +162,13 @@ export const getJobDetail = cache(async function getJobDetail(actor: Actor, jobI
   return { ...row, installer: row.installer?.id ? row.installer : null };
 });
 export type JobDetail = NonNullable<Awaited<ReturnType<typeof getJobDetail>>>;
+
+/** The job as getJobDetail gives it, or 404 when there is none the actor may see. */
+export async function visibleJob(actor: Actor, jobId: string): Promise<JobDetail> {
+  const d = await getJobDetail(actor, jobId);
+  if (!d) throw notFound("job");
+  return d;
+}
 
 /** The API's JSON form of a job detail (no internal columns such as created_by). */
 export function jobDetailJson(d: JobDetail) {

@@ -3,13 +3,13 @@ import { randomUUID } from "node:crypto";
 import { and, asc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { getJobDetail, jobAccessCondition } from "@/db/queries/jobs";
+import { getJobDetail, jobAccessCondition, visibleJob } from "@/db/queries/jobs";
 import { stepOfJob } from "@/db/queries/readings";
 import { jobs, photos, readings, users, type Photo } from "@/db/schema";
 import { PHASES } from "@/lib/domain/datasets";
 import type { Actor } from "@/lib/domain/roles";
 import { isUuid } from "@/lib/domain/uuid";
-import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
+import { AppError, forbidden, invalid } from "@/lib/errors";
 import { processPhoto } from "@/lib/photos";
 import { photoViewRefusal } from "@/lib/policy/photos";
 import { readingsRefusal } from "@/lib/policy/readings";
@@ -17,8 +17,7 @@ import { getStorage } from "@/lib/storage";
 
 /** The job a photo may be added to now, or the refusal (404 unseen, 403 not the recorder or locked). */
 export async function requirePhotoJob(actor: Actor, jobId: string) {
-  const d = await getJobDetail(actor, jobId);
-  if (!d) throw notFound("job");
+  const d = await visibleJob(actor, jobId);
   const refusal = readingsRefusal(actor, d.job);
   if (refusal) throw forbidden(refusal);
   return d;
@@ -105,8 +104,7 @@ export async function addPhoto(
   form: PhotoForm,
   data: Buffer,
 ): Promise<{ photo: PhotoJson; replay: boolean }> {
-  const d = await getJobDetail(actor, jobId);
-  if (!d) throw notFound("job");
+  const d = await visibleJob(actor, jobId);
   const again = await byClientId(d.job.id, form.clientId);
   if (again) {
     if (again.uploadedById !== actor.id)

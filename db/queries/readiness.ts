@@ -1,16 +1,16 @@
 import "server-only";
-import { and, asc, eq, isNull, sql } from "drizzle-orm";
+import { and, asc, eq, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { getApprovedAnalysis, listJobAnalyses } from "@/db/queries/analyses";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
 import { getIssuer } from "@/db/queries/issuer";
 import { jobTcpChecks } from "@/db/queries/control-values";
-import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
+import { getJobDetail, type JobDetail, visibleJob } from "@/db/queries/jobs";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
-import { getComparison } from "@/db/queries/readings";
-import { jobStateSha256, preIssueSignatures, visibleJob } from "@/db/queries/signatures";
-import { deviations, instruments, photos, readings } from "@/db/schema";
+import { getComparison, instrumentsInReadings } from "@/db/queries/readings";
+import { jobStateSha256, preIssueSignatures } from "@/db/queries/signatures";
+import { deviations, photos } from "@/db/schema";
 import { needsInstrument } from "@/lib/step-kinds";
 import type { Actor } from "@/lib/domain/roles";
 import { forbidden, invalid, notFound } from "@/lib/errors";
@@ -48,17 +48,7 @@ export async function readinessInput(actor: Actor, d: JobDetail): Promise<Readin
   const [comparison, used, list, analysesList, limits, approved, sigs, state, carried, photoRows, issuer] =
     await Promise.all([
       getComparison(actor, jobId),
-      db
-        .select({
-          serial: instruments.serial,
-          calibrationDueOn: instruments.calibrationDueOn,
-          lastUsedOn: sql<string>`to_char(max(${readings.takenAt}) at time zone 'UTC', 'YYYY-MM-DD')`,
-        })
-        .from(readings)
-        .innerJoin(instruments, eq(instruments.id, readings.instrumentId))
-        .where(and(eq(readings.jobId, jobId), isNull(readings.supersededById)))
-        .groupBy(instruments.serial, instruments.calibrationDueOn)
-        .orderBy(asc(instruments.serial)),
+      instrumentsInReadings(jobId),
       listDatasets(actor, jobId),
       listJobAnalyses(actor, jobId),
       parameterLimitsOfTemplate(d.job.templateId),

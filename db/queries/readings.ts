@@ -1,15 +1,15 @@
 import "server-only";
-import { and, asc, desc, eq, inArray, isNull } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
-import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
+import { appendAudit, jobEvent } from "@/db/queries/audit";
+import { getJobDetail, visibleJob } from "@/db/queries/jobs";
 import { instruments, jobs, procedureTemplates, readings, templateSteps, users } from "@/db/schema";
 import type { Reading, TemplateStep } from "@/db/schema";
 import { type Actor } from "@/lib/domain/roles";
 import { readingsRefusal } from "@/lib/policy/readings";
 import { calibrationRefusal, expandedUncertainty, judge, type StepDecision } from "@/lib/checklist";
-import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
+import { AppError, forbidden, invalid } from "@/lib/errors";
 import {
   needsInstrument,
   rangeProblem,
@@ -23,12 +23,6 @@ import type { ReadingCreateInput } from "@/lib/validations/readings";
 import { lockJob } from "./locks";
 
 const recorders = alias(users, "recorder");
-
-async function visibleJob(actor: Actor, jobId: string): Promise<JobDetail> {
-  const d = await getJobDetail(actor, jobId);
-  if (!d) throw notFound("job");
-  return d;
-}
 
 export async function listTemplateSteps(templateId: string | null): Promise<TemplateStep[]> {
   if (!templateId) return [];
@@ -367,16 +361,13 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
         );
     if (locked!.status === "draft") {
       await tx.update(jobs).set({ status: "measuring" }).where(eq(jobs.id, d.job.id));
-      await appendAudit(tx, {
-        actorId: actor.id,
-        actorEmail: actor.email,
-        action: "job.status_changed",
-        entityType: "job",
-        entityId: d.job.id,
-        jobId: d.job.id,
-        oldValues: { status: "draft" },
-        newValues: { status: "measuring", reason: "first reading recorded" },
-      });
+      await appendAudit(
+        tx,
+        jobEvent(actor, d.job.id, "job.status_changed", {
+          oldValues: { status: "draft" },
+          newValues: { status: "measuring", reason: "first reading recorded" },
+        }),
+      );
     } else {
       await tx.update(jobs).set({ updatedAt: new Date() }).where(eq(jobs.id, d.job.id));
     }
@@ -563,4 +554,26 @@ export function comparisonJson(c: NonNullable<Awaited<ReturnType<typeof getCompa
       status: r.status,
     })),
   };
+}
+
+/**
+ * The instruments behind the job's current readings (superseded ones left out), by serial, each
+ * with the UTC day it was last used on, to check and print its calibration.
+ */
+export async function instrumentsInReadings(jobId: string) {
+  return db
+    .select({
+      id: instruments.id,
+      kind: instruments.kind,
+      serial: instruments.serial,
+      certificateRef: instruments.certificateRef,
+      calibratedOn: instruments.calibratedOn,
+      calibrationDueOn: instruments.calibrationDueOn,
+      lastUsedOn: sql<string>`to_char(max(${readings.takenAt}) at time zone 'UTC', 'YYYY-MM-DD')`,
+    })
+    .from(readings)
+    .innerJoin(instruments, eq(instruments.id, readings.instrumentId))
+    .where(and(eq(readings.jobId, jobId), isNull(readings.supersededById)))
+    .groupBy(instruments.id)
+    .orderBy(asc(instruments.serial));
 }

@@ -24,15 +24,6 @@ function requireAdmin(actor: Actor) {
   if (refusal) throw forbidden(refusal);
 }
 
-const audit = (actor: Actor, entityType: string, entityId: string, newValues: unknown) => ({
-  actorId: actor.id,
-  actorEmail: actor.email,
-  action: `${entityType}.created`,
-  entityType,
-  entityId,
-  newValues,
-});
-
 export async function createCustomer(actor: Actor, input: z.infer<typeof customerCreateSchema>) {
   requireAdmin(actor);
   const [dupe] = await db
@@ -43,14 +34,13 @@ export async function createCustomer(actor: Actor, input: z.infer<typeof custome
     throw invalid("A customer with that name is already registered.", [
       { field: "name", message: "Already registered." },
     ]);
-  return db.transaction(async (tx) => {
-    const [row] = await tx
-      .insert(customers)
-      .values({ name: input.name, contactEmail: input.contactEmail || null })
-      .returning();
-    await appendAudit(tx, audit(actor, "customer", row!.id, { name: row!.name }));
-    return row!;
-  });
+  return insertRegisterRow(
+    actor,
+    customers,
+    "customer",
+    { name: input.name, contactEmail: input.contactEmail || null },
+    (row) => ({ name: row.name }),
+  );
 }
 
 export async function createSite(actor: Actor, input: z.infer<typeof siteCreateSchema>) {
@@ -69,14 +59,13 @@ export async function createSite(actor: Actor, input: z.infer<typeof siteCreateS
     throw invalid("That customer already has a site of that name.", [
       { field: "name", message: "Already registered." },
     ]);
-  return db.transaction(async (tx) => {
-    const [row] = await tx
-      .insert(sites)
-      .values({ customerId: c.id, name: input.name, address: input.address || null })
-      .returning();
-    await appendAudit(tx, audit(actor, "site", row!.id, { name: row!.name, customerId: c.id }));
-    return row!;
-  });
+  return insertRegisterRow(
+    actor,
+    sites,
+    "site",
+    { customerId: c.id, name: input.name, address: input.address || null },
+    (row) => ({ name: row.name, customerId: c.id }),
+  );
 }
 
 export async function createMachine(actor: Actor, input: z.infer<typeof machineCreateSchema>) {
@@ -87,22 +76,21 @@ export async function createMachine(actor: Actor, input: z.infer<typeof machineC
     .where(eq(sites.id, input.siteId));
   if (!s) throw invalid("Choose a site.", [{ field: "siteId", message: "No such site." }]);
   refuseRetired(s, "siteId", "site");
-  return db.transaction(async (tx) => {
-    const [row] = await tx
-      .insert(machines)
-      .values({
-        siteId: s.id,
-        name: input.name,
-        kind: input.kind,
-        builder: input.builder || null,
-        model: input.model || null,
-        serial: input.serial || null,
-        control: input.control || null,
-      })
-      .returning();
-    await appendAudit(tx, audit(actor, "machine", row!.id, { name: row!.name, siteId: s.id }));
-    return row!;
-  });
+  return insertRegisterRow(
+    actor,
+    machines,
+    "machine",
+    {
+      siteId: s.id,
+      name: input.name,
+      kind: input.kind,
+      builder: input.builder || null,
+      model: input.model || null,
+      serial: input.serial || null,
+      control: input.control || null,
+    },
+    (row) => ({ name: row.name, siteId: s.id }),
+  );
 }
 
 export async function createHead(actor: Actor, input: z.infer<typeof headCreateSchema>) {
@@ -112,30 +100,26 @@ export async function createHead(actor: Actor, input: z.infer<typeof headCreateS
     throw invalid("A head with that serial is already registered.", [
       { field: "serial", message: "Already registered." },
     ]);
-  return db.transaction(async (tx) => {
-    const [row] = await tx
-      .insert(heads)
-      .values({
-        serial: input.serial,
-        maker: input.maker || null,
-        model: input.model || null,
-        primaryAxis: input.primaryAxis,
-        secondaryAxis: input.secondaryAxis,
-        nominalPivotLengthMm: input.nominalPivotLengthMm,
-        toolAxisOffsetMm: input.toolAxisOffsetMm,
-        massKg: input.massKg ?? null,
-      })
-      .returning();
-    await appendAudit(
-      tx,
-      audit(actor, "head", row!.id, {
-        serial: row!.serial,
-        axes: `${row!.primaryAxis}/${row!.secondaryAxis}`,
-        nominalPivotLengthMm: row!.nominalPivotLengthMm,
-      }),
-    );
-    return row!;
-  });
+  return insertRegisterRow(
+    actor,
+    heads,
+    "head",
+    {
+      serial: input.serial,
+      maker: input.maker || null,
+      model: input.model || null,
+      primaryAxis: input.primaryAxis,
+      secondaryAxis: input.secondaryAxis,
+      nominalPivotLengthMm: input.nominalPivotLengthMm,
+      toolAxisOffsetMm: input.toolAxisOffsetMm,
+      massKg: input.massKg ?? null,
+    },
+    (row) => ({
+      serial: row.serial,
+      axes: `${row.primaryAxis}/${row.secondaryAxis}`,
+      nominalPivotLengthMm: row.nominalPivotLengthMm,
+    }),
+  );
 }
 
 /** Sites that take new work (neither the site nor its customer retired), for pickers. */
@@ -155,6 +139,35 @@ export function assertRegisterEdit(actor: Actor, register: Register) {
 }
 
 type RegisterTable = typeof customers | typeof sites | typeof machines | typeof heads | typeof instruments;
+
+/**
+ * Adds one register row and audits it as `<entity>.created` with what `describe` picks of it, in
+ * one transaction. The caller has checked the actor and the input.
+ */
+export async function insertRegisterRow<T extends RegisterTable>(
+  actor: Actor,
+  table: T,
+  entityType: string,
+  values: T["$inferInsert"],
+  describe: (row: T["$inferSelect"]) => unknown,
+): Promise<T["$inferSelect"]> {
+  const t = table as typeof customers;
+  return db.transaction(async (tx) => {
+    const [row] = (await tx
+      .insert(t)
+      .values(values as typeof customers.$inferInsert)
+      .returning()) as T["$inferSelect"][];
+    await appendAudit(tx, {
+      actorId: actor.id,
+      actorEmail: actor.email,
+      action: `${entityType}.created`,
+      entityType,
+      entityId: row!.id,
+      newValues: describe(row!),
+    });
+    return row!;
+  });
+}
 
 /**
  * Applies a correction to one register row and audits what changed, in one transaction: the old

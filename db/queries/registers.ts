@@ -1,6 +1,7 @@
 import "server-only";
 import { asc, eq, sql } from "drizzle-orm";
 import { db } from "@/db";
+import { personColumns } from "@/db/queries/users";
 import { customers, heads, machines, sites, users } from "@/db/schema";
 import { type Actor, type Role } from "@/lib/domain/roles";
 import { registerReadRefusal, type Register } from "@/lib/policy/registers";
@@ -88,14 +89,7 @@ export async function listSites(actor: Actor) {
 export async function listPeople(actor: Actor, role?: Role) {
   check(actor, "people");
   return db
-    .select({
-      id: users.id,
-      name: users.name,
-      email: users.email,
-      role: users.role,
-      disabled: users.disabled,
-      customerName: customers.name,
-    })
+    .select({ ...personColumns, customerName: customers.name })
     .from(users)
     .leftJoin(customers, eq(customers.id, users.customerId))
     .where(role ? eq(users.role, role) : undefined)

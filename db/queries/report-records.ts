@@ -3,8 +3,9 @@ import { and, asc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { getIssuer } from "@/db/queries/issuer";
 import type { JobDetail } from "@/db/queries/jobs";
-import { datasets, environmentRecords, instrumentCalibrations, instruments, readings } from "@/db/schema";
+import { datasets, environmentRecords, instrumentCalibrations, readings } from "@/db/schema";
 import { listJobInstruments } from "@/db/queries/job-instruments";
+import { instrumentsInReadings } from "@/db/queries/readings";
 import { DATA_INSTRUMENT_PURPOSE, type DataInstrumentUse } from "@/lib/domain/instruments";
 import { recordedUnitSystem } from "@/lib/recorded-units";
 import type { Phase } from "@/lib/report/readiness";
@@ -32,24 +33,10 @@ export async function jobUnitSystem(jobId: string) {
  * date, laboratory), else the certificate and date kept on the instrument itself.
  */
 async function traceability(jobId: string): Promise<RecordsInput["instruments"]> {
-  const used = await db
-    .select({
-      id: instruments.id,
-      kind: instruments.kind,
-      serial: instruments.serial,
-      certificateRef: instruments.certificateRef,
-      calibratedOn: instruments.calibratedOn,
-      dueOn: instruments.calibrationDueOn,
-      lastUsedOn: sql<string>`to_char(max(${readings.takenAt}) at time zone 'UTC', 'YYYY-MM-DD')`,
-    })
-    .from(readings)
-    .innerJoin(instruments, eq(instruments.id, readings.instrumentId))
-    .where(and(eq(readings.jobId, jobId), isNull(readings.supersededById)))
-    .groupBy(instruments.id)
-    .orderBy(asc(instruments.serial));
+  const used = await instrumentsInReadings(jobId);
   const forData = await listJobInstruments(jobId);
   const all = [
-    ...used.map((u) => ({ ...u, label: u.kind })),
+    ...used.map((u) => ({ ...u, dueOn: u.calibrationDueOn, label: u.kind })),
     ...forData.map((x) => ({
       id: x.instrumentId,
       label: `${x.kind} (${DATA_INSTRUMENT_PURPOSE[x.use as DataInstrumentUse] ?? x.use})${

@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { approvedAnalysisIdOf } from "@/db/queries/analysis-views";
+import { approvedAnalysisIdOf, pictureColumns } from "@/db/queries/analysis-views";
 import { jobAccessCondition } from "@/db/queries/jobs";
 import { analysisViews, jobs, reportViews, users } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
@@ -84,17 +84,7 @@ export async function reportFigureViews(jobId: string) {
   const approved = await approvedAnalysisIdOf(jobId);
   if (!approved) return [];
   const rows = await db
-    .select({
-      id: analysisViews.id,
-      analysisId: analysisViews.analysisId,
-      storageKey: analysisViews.storageKey,
-      factor: analysisViews.factor,
-      caption: analysisViews.caption,
-      widthPx: analysisViews.widthPx,
-      heightPx: analysisViews.heightPx,
-      createdAt: analysisViews.createdAt,
-      createdByName: users.name,
-    })
+    .select(pictureColumns)
     .from(reportViews)
     .innerJoin(analysisViews, eq(analysisViews.id, reportViews.viewId))
     .leftJoin(users, eq(users.id, analysisViews.createdById))

@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
+import { getJobDetail, type JobDetail, visibleJob } from "@/db/queries/jobs";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
 import { getComparison } from "@/db/queries/readings";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
@@ -17,7 +17,6 @@ import {
   preIssueSignatures,
   refuseSameSigner,
   requirePasswordReentry,
-  visibleJob,
 } from "@/db/queries/signatures";
 import {
   datasets,

@@ -3,14 +3,14 @@ import { checkPasswordReentry } from "@/db/queries/sign-in";
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { getJobDetail, type JobDetail } from "@/db/queries/jobs";
+import { getJobDetail, visibleJob } from "@/db/queries/jobs";
 import { datasets, readings, signatures } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
 import { SIGNATURE_LABELS, type SignatureMeaningKey } from "@/lib/domain/signatures";
 import { sameSignerRefusal, signatureRefusal } from "@/lib/policy/signatures";
 import { env } from "@/lib/env";
 import { canonicalJson } from "@/lib/canonical-json";
-import { forbidden, invalid, notFound } from "@/lib/errors";
+import { forbidden, invalid } from "@/lib/errors";
 import { getSigningKey } from "@/lib/report/keys";
 import { sha256Hex, signManifest, type SignatureManifest } from "@/lib/report/signing";
 
@@ -24,12 +24,6 @@ import { sha256Hex, signManifest, type SignatureManifest } from "@/lib/report/si
 /** Re-entry of the password at signing (21 CFR 11.200): the signer proves it is them, now. */
 export async function requirePasswordReentry(actor: Actor, password: string): Promise<void> {
   await checkPasswordReentry(actor, password);
-}
-
-export async function visibleJob(actor: Actor, jobId: string): Promise<JobDetail> {
-  const d = await getJobDetail(actor, jobId);
-  if (!d) throw notFound("job");
-  return d;
 }
 
 /**

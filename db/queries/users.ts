@@ -15,6 +15,15 @@ export async function getUserForSignIn(email: string) {
   return rows[0] ?? null;
 }
 
+/** A person as the registers and pickers show them: who, how to reach them, their role and state. */
+export const personColumns = {
+  id: users.id,
+  name: users.name,
+  email: users.email,
+  role: users.role,
+  disabled: users.disabled,
+};
+
 // Built once: it runs on every signed-in request, so its SQL is not rebuilt each time.
 const actorById = db
   .select({

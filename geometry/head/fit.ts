@@ -620,15 +620,10 @@ function fitHeadUnchecked(config: HeadConfig, data: SphereProbeData, options: He
 
 /** The JSON `fit-head` prints (geometry/README.md, "Command line"), exactly these keys. */
 export interface HeadFitJson {
-  readonly parameters: readonly {
-    readonly key: HeadParameterKey;
-    readonly iso: string;
-    readonly value: number;
-    readonly unit: HeadParameterUnit;
-    readonly u: number | null;
-    readonly U: number | null;
-    readonly identifiable: Identifiability;
-  }[];
+  readonly parameters: readonly Pick<
+    HeadFitParameter,
+    "key" | "iso" | "value" | "unit" | "u" | "U" | "identifiable"
+  >[];
   readonly sphere_centre_mm: Vec3;
   readonly rms_um: number;
   readonly max_um: number;

@@ -18,6 +18,8 @@ import {
   readSweepCsv,
   readTestPartCsv,
   readTramCsv,
+  sweepToJson,
+  tramToJson,
   type CsvWarning,
 } from "@/geometry";
 import { readLarge } from "./chunked-csv";
@@ -86,7 +88,7 @@ const tram: CliCommand = {
       };
     }
     const r = fitTram(data);
-    return pick(r, ["slope_um_per_m", "slope_u_um_per_m", "angle_arcsec", "straightness_um", "tir_um"]);
+    return tramToJson(r);
   },
 };
 
@@ -104,14 +106,7 @@ const sweep: CliCommand = {
     passWarnings(ctx, data.warnings);
     const r = fitSweep(data, radius);
     r.notes.forEach((n) => ctx.warn(n));
-    return pick(r, [
-      "tilt_um_per_m",
-      "tilt_arcsec",
-      "direction_deg",
-      "tir_um",
-      "flatness_ls_um",
-      "flatness_mz_um",
-    ]);
+    return sweepToJson(r);
   },
 };
 

@@ -15,8 +15,11 @@ export function isTimeZone(zone: string): boolean {
   }
 }
 
-/** The zone's offset from UTC at this instant, in minutes (east positive). */
-function offsetMinutes(instantMs: number, zone: string): number {
+/**
+ * The wall-clock fields of an instant in `zone` (24-hour, zero-padded), looked up by part type;
+ * `more` asks for further parts (seconds, the zone's name). Throws RangeError for an unknown zone.
+ */
+export function wallClock(at: Date, zone: string, more: Intl.DateTimeFormatOptions = {}) {
   const parts = new Intl.DateTimeFormat("en-GB", {
     timeZone: zone,
     year: "numeric",
@@ -24,10 +27,16 @@ function offsetMinutes(instantMs: number, zone: string): number {
     day: "2-digit",
     hour: "2-digit",
     minute: "2-digit",
-    second: "2-digit",
     hourCycle: "h23",
-  }).formatToParts(new Date(instantMs));
-  const n = (t: Intl.DateTimeFormatPartTypes) => Number(parts.find((p) => p.type === t)?.value);
+    ...more,
+  }).formatToParts(at);
+  return (t: Intl.DateTimeFormatPartTypes) => parts.find((x) => x.type === t)?.value ?? "";
+}
+
+/** The zone's offset from UTC at this instant, in minutes (east positive). */
+function offsetMinutes(instantMs: number, zone: string): number {
+  const p = wallClock(new Date(instantMs), zone, { second: "2-digit" });
+  const n = (t: Intl.DateTimeFormatPartTypes) => Number(p(t));
   const wall = Date.UTC(n("year"), n("month") - 1, n("day"), n("hour"), n("minute"), n("second"));
   return Math.round((wall - Math.floor(instantMs / 1000) * 1000) / 60_000);
 }
@@ -66,15 +75,6 @@ export function zonedToUtc(date: string, time: string, zone: string): Date | nul
 
 /** The wall-clock date and time of an instant in `zone` (to fill the schedule fields back in). */
 export function utcToZoned(at: Date, zone: string): { date: string; time: string } {
-  const parts = new Intl.DateTimeFormat("en-GB", {
-    timeZone: isTimeZone(zone) ? zone : "UTC",
-    year: "numeric",
-    month: "2-digit",
-    day: "2-digit",
-    hour: "2-digit",
-    minute: "2-digit",
-    hourCycle: "h23",
-  }).formatToParts(at);
-  const p = (t: Intl.DateTimeFormatPartTypes) => parts.find((x) => x.type === t)?.value ?? "";
+  const p = wallClock(at, isTimeZone(zone) ? zone : "UTC");
   return { date: `${p("year")}-${p("month")}-${p("day")}`, time: `${p("hour")}:${p("minute")}` };
 }

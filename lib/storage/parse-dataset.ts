@@ -22,7 +22,10 @@ import {
   readTramCsv,
   tcpCheck,
   tcpCheckToJson,
+  type SphereProbeData,
   type TestPartRow,
+  sweepToJson,
+  tramToJson,
 } from "@/geometry";
 import { DATASET_KINDS, PHASES, type DatasetKind } from "@/lib/domain/datasets";
 import { AppError, invalid, type FieldIssue } from "@/lib/errors";
@@ -299,12 +302,7 @@ export function parseDatasetText(form: UploadForm, input: string): ParsedDataset
       case "sphere_probe": {
         const d = readSphereProbeCsv(text, { units: form.units!, decimal: form.decimal });
         const columns = [
-          copyColumn("primary_deg", "deg", d.primaryDeg),
-          copyColumn("secondary_deg", "deg", d.secondaryDeg),
-          copyColumn("x_mm", "mm", d.xMm),
-          copyColumn("y_mm", "mm", d.yMm),
-          copyColumn("z_mm", "mm", d.zMm),
-          ...(d.toolMm ? [copyColumn("tool_mm", "mm", d.toolMm)] : []),
+          ...poseColumns(d),
           ...(d.point ? [copyColumn("point", "1", d.point)] : []),
           ...(d.repeat ? [copyColumn("repeat", "1", d.repeat)] : []),
           ...(d.tempC ? [copyColumn("temp_c", "degC", d.tempC)] : []),
@@ -322,20 +320,7 @@ export function parseDatasetText(form: UploadForm, input: string): ParsedDataset
           copyColumn("reading_um", "um", d.readingUm),
         ];
         const extra: string[] = [];
-        let fit: Record<string, number> | null = null;
-        try {
-          const r = fitTram(d);
-          fit = {
-            slope_um_per_m: r.slope_um_per_m,
-            slope_u_um_per_m: r.slope_u_um_per_m,
-            angle_arcsec: r.angle_arcsec,
-            straightness_um: r.straightness_um,
-            tir_um: r.tir_um,
-          };
-        } catch (e) {
-          if (!(e instanceof GeometryError)) throw e;
-          extra.push(`no line fit: ${e.message}`);
-        }
+        const fit = fitOrNote(extra, "no line fit", () => tramToJson(fitTram(d)));
         return done(
           form,
           d.rows,
@@ -354,21 +339,7 @@ export function parseDatasetText(form: UploadForm, input: string): ParsedDataset
           copyColumn("reading_um", "um", d.readingUm),
         ];
         const extra: string[] = [];
-        let fit: Record<string, number | null> | null = null;
-        try {
-          const r = fitSweep(d, form.radius_mm!);
-          fit = {
-            tilt_um_per_m: r.tilt_um_per_m,
-            tilt_arcsec: r.tilt_arcsec,
-            direction_deg: r.direction_deg,
-            tir_um: r.tir_um,
-            flatness_ls_um: r.flatness_ls_um,
-            flatness_mz_um: r.flatness_mz_um,
-          };
-        } catch (e) {
-          if (!(e instanceof GeometryError)) throw e;
-          extra.push(`no sweep fit: ${e.message}`);
-        }
+        const fit = fitOrNote(extra, "no sweep fit", () => sweepToJson(fitSweep(d, form.radius_mm!)));
         return done(
           form,
           d.rows,
@@ -384,14 +355,7 @@ export function parseDatasetText(form: UploadForm, input: string): ParsedDataset
         // Evaluated at upload (geometry/tcp-check.ts): a set with no swing is refused naming why.
         const d = readSphereProbeCsv(text, { units: form.units!, decimal: form.decimal });
         const r = tcpCheck(d);
-        const columns = [
-          copyColumn("primary_deg", "deg", d.primaryDeg),
-          copyColumn("secondary_deg", "deg", d.secondaryDeg),
-          copyColumn("x_mm", "mm", d.xMm),
-          copyColumn("y_mm", "mm", d.yMm),
-          copyColumn("z_mm", "mm", d.zMm),
-          ...(d.toolMm ? [copyColumn("tool_mm", "mm", d.toolMm)] : []),
-        ];
+        const columns = [...poseColumns(d)];
         const tcp = { ...tcpCheckToJson(r), mean_centre_mm: r.mean_centre_mm };
         return done(form, d.rows, columns, { units: form.units! }, options, { tcp }, d.warnings, [
           ...r.warnings,
@@ -408,6 +372,29 @@ export function parseDatasetText(form: UploadForm, input: string): ParsedDataset
   } catch (err) {
     if (err instanceof GeometryError) throw geometryFailure(err);
     throw err;
+  }
+}
+
+/** The columns of a sphere-probe file (and of a TCP check): the pose, the centre, the tool length if given. */
+function poseColumns(d: SphereProbeData): StoredColumn[] {
+  return [
+    copyColumn("primary_deg", "deg", d.primaryDeg),
+    copyColumn("secondary_deg", "deg", d.secondaryDeg),
+    copyColumn("x_mm", "mm", d.xMm),
+    copyColumn("y_mm", "mm", d.yMm),
+    copyColumn("z_mm", "mm", d.zMm),
+    ...(d.toolMm ? [copyColumn("tool_mm", "mm", d.toolMm)] : []),
+  ];
+}
+
+/** The fit for the dataset's summary, or null with why not added to `notes` when geometry cannot fit the data. */
+function fitOrNote<T>(notes: string[], what: string, fit: () => T): T | null {
+  try {
+    return fit();
+  } catch (e) {
+    if (!(e instanceof GeometryError)) throw e;
+    notes.push(`${what}: ${e.message}`);
+    return null;
   }
 }
 
