@@ -10,44 +10,16 @@ import { instruments, jobs, templateSteps } from "@/db/schema";
 import { WHO, type Who } from "./fixtures";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
-/** GET of readings, comparison and its CSV: who may read which job. */
-const READ: Record<string, Record<Who, number>> = {
-  "TR-2026-0041": {
-    anonymous: 401,
-    admin: 200,
-    installer: 200,
-    inspector: 200,
-    engineer: 200,
-    "customer (Marlow Creek)": 200,
-    "customer (Tollan)": 404,
-  },
-  "TR-2026-0048": {
-    anonymous: 401,
-    admin: 200,
-    installer: 200,
-    inspector: 200,
-    engineer: 200,
-    "customer (Marlow Creek)": 404,
-    "customer (Tollan)": 200,
-  },
-  "TR-2026-0052": {
-    anonymous: 401,
-    admin: 200,
-    installer: 200,
-    inspector: 200,
-    engineer: 200,
-    "customer (Marlow Creek)": 200,
-    "customer (Tollan)": 404,
-  },
-  "TR-2026-0057": {
-    anonymous: 401,
-    admin: 200,
-    installer: 404,
-    inspector: 200,
-    engineer: 200,
-    "customer (Marlow Creek)": 200,
-    "customer (Tollan)": 404,
-  },
+/** GET of readings, comparison and its CSV: who may read which job (one column per job). */
+const READ_JOBS = ["TR-2026-0041", "TR-2026-0048", "TR-2026-0052", "TR-2026-0057"];
+const READ: Record<Who, [number, number, number, number]> = {
+  anonymous: [401, 401, 401, 401],
+  admin: [200, 200, 200, 200],
+  installer: [200, 200, 200, 404],
+  inspector: [200, 200, 200, 200],
+  engineer: [200, 200, 200, 200],
+  "customer (Marlow Creek)": [200, 404, 200, 200],
+  "customer (Tollan)": [404, 200, 404, 404],
 };
 
 /**
@@ -55,35 +27,20 @@ const READ: Record<string, Record<Who, number>> = {
  * office never records readings (segregation of duties, ISO/IEC 17025:2017 §7.5.1); the assigned
  * installer and an application engineer do.
  */
-const WRITE: Record<string, Record<Who, number>> = {
-  "TR-2026-0052": {
-    anonymous: 401,
-    admin: 403,
-    installer: 201,
-    inspector: 403,
-    engineer: 201,
-    "customer (Marlow Creek)": 403,
-    "customer (Tollan)": 404,
-  },
-  "TR-2026-0048": {
-    anonymous: 401,
-    admin: 403,
-    installer: 403,
-    inspector: 403,
-    engineer: 403,
-    "customer (Marlow Creek)": 404,
-    "customer (Tollan)": 403,
-  },
-  "TR-2026-0041": {
-    anonymous: 401,
-    admin: 403,
-    installer: 403,
-    inspector: 403,
-    engineer: 403,
-    "customer (Marlow Creek)": 403,
-    "customer (Tollan)": 404,
-  },
+const WRITE_JOBS = ["TR-2026-0052", "TR-2026-0048", "TR-2026-0041"];
+const WRITE: Record<Who, [number, number, number]> = {
+  anonymous: [401, 401, 401],
+  admin: [403, 403, 403],
+  installer: [201, 403, 403],
+  inspector: [403, 403, 403],
+  engineer: [201, 403, 403],
+  "customer (Marlow Creek)": [403, 404, 403],
+  "customer (Tollan)": [404, 403, 404],
 };
+
+/** The cells of one job's column, role by role. */
+const column = (table: Record<Who, number[]>, col: number) =>
+  (Object.keys(table) as Who[]).map((who) => [who, table[who][col]!] as const);
 
 const ids: Record<string, string> = {};
 let validInstrument: string;
@@ -105,14 +62,14 @@ async function bodyFor(ref: string) {
 }
 
 beforeAll(async () => {
-  for (const ref of Object.keys(READ)) ids[ref] = await jobIdByReference(ref);
+  for (const ref of READ_JOBS) ids[ref] = await jobIdByReference(ref);
   const [i] = await db.select().from(instruments).where(eq(instruments.serial, "DTI-0112"));
   validInstrument = i!.id;
 });
 
 describe("checklist routes: access matrix", () => {
-  for (const [ref, cells] of Object.entries(READ)) {
-    for (const [who, expected] of Object.entries(cells) as [Who, number][]) {
+  for (const [col, ref] of READ_JOBS.entries()) {
+    for (const [who, expected] of column(READ, col)) {
       it(`${who}: GET readings, comparison and CSV of ${ref} answer ${expected}`, async () => {
         await signInAs(WHO[who]);
         const ctx = { params: Promise.resolve({ id: ids[ref]! }) };
@@ -130,8 +87,8 @@ describe("checklist routes: access matrix", () => {
     }
   }
 
-  for (const [ref, cells] of Object.entries(WRITE)) {
-    for (const [who, expected] of Object.entries(cells) as [Who, number][]) {
+  for (const [col, ref] of WRITE_JOBS.entries()) {
+    for (const [who, expected] of column(WRITE, col)) {
       it(`${who}: POST a reading to ${ref} answers ${expected}`, async () => {
         await signInAs(WHO[who]);
         const body = await bodyFor(ref);
