@@ -6,6 +6,7 @@
 // (bringing a job to the state its report needs).
 import { asc, eq } from "drizzle-orm";
 import { expect } from "vitest";
+import { POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
 import { approveAnalysis, nonConformingParameters } from "@/db/queries/analyses";
 import { getActor } from "@/db/queries/users";
@@ -15,7 +16,7 @@ import type { JobKind, JobStatus } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import { upload } from "./dataset-helpers";
-import { signInAs } from "./helpers";
+import { request, signInAs } from "./helpers";
 import { jobBaseOf } from "./ready-job";
 
 /**
@@ -112,6 +113,22 @@ export async function uploadDemoProbe(
   );
   expect(res.status).toBe(201);
   return ((await res.json()) as { id: string }).id;
+}
+
+/**
+ * Posts a reading to the job through POST /api/jobs/{id}/readings as whoever is signed in, and
+ * returns the answer's status and JSON body.
+ */
+export async function postReading(jobId: string, body: Record<string, unknown>) {
+  const res = await readingsPost(
+    request(`/api/jobs/${jobId}/readings`, {
+      method: "POST",
+      body: JSON.stringify(body),
+      headers: { "content-type": "application/json" },
+    }),
+    { params: Promise.resolve({ id: jobId }) },
+  );
+  return { status: res.status, json: await res.json() };
 }
 
 /** The AppError a call was refused with; fails the test if it succeeded or threw something else. */

@@ -7,11 +7,10 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { GET as listRoute, POST as uploadRoute } from "@/app/api/jobs/[id]/photos/route";
 import { GET as imageRoute } from "@/app/api/photos/[id]/route";
 import { GET as thumbRoute } from "@/app/api/photos/[id]/thumb/route";
-import { POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
 import { GET as readinessRoute } from "@/app/api/jobs/[id]/readiness/route";
 import { db } from "@/db";
 import { auditEvents, jobs, photos, templateSteps } from "@/db/schema";
-import { WHO, type Who } from "./fixtures";
+import { postReading, WHO, type Who } from "./fixtures";
 import { jobIdByReference, request, signInAs } from "./helpers";
 import { jobLike } from "./tablet-helpers";
 
@@ -101,16 +100,15 @@ describe("adding a photo", () => {
     const readingClientId = crypto.randomUUID();
     const [check] = await db.select().from(templateSteps).where(eq(templateSteps.id, stepId));
     expect(check!.derivation).toBe("check");
-    const r = await readingsPost(
-      request(`/api/jobs/${jobId}/readings`, {
-        method: "POST",
-        body: JSON.stringify({ stepId, phase: "pre", unit: "mm", answer: "yes", clientId: readingClientId }),
-        headers: { "content-type": "application/json" },
-      }),
-      p(jobId),
-    );
+    const r = await postReading(jobId, {
+      stepId,
+      phase: "pre",
+      unit: "mm",
+      answer: "yes",
+      clientId: readingClientId,
+    });
     expect(r.status).toBe(201);
-    const readingId = (await r.json()).reading.id;
+    const readingId = r.json.reading.id;
     const clientId = crypto.randomUUID();
     const first = await upload(jobId, png, { stepId, phase: "pre", clientId, readingClientId });
     const again = await upload(jobId, png, { stepId, phase: "pre", clientId, readingClientId });
