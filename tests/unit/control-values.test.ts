@@ -3,7 +3,7 @@
 // project: 1 in = 25.4 mm exactly (NIST SP 811, 2008, B.8) and 1° = 3600″ (SI Brochure, 9th ed.,
 // Table 8). The sums are worked by hand beside each case.
 import { describe, expect, it } from "vitest";
-import { fitHead, headFitToJson, headPoseGrid, synthesiseSphereProbe, type HeadFitJson } from "@/geometry";
+import { fitHead, headFitToJson, headPoseGrid, synthesiseSphereProbe } from "@/geometry";
 import {
   controlLoop,
   controlValueText,
@@ -15,29 +15,9 @@ import {
   SIGN_CONVENTION,
 } from "@/lib/control-values";
 import { CONTROL_VALUE_DEFS, CONTROL_VALUE_KEYS } from "@/lib/domain/control-values";
+import { headFitJson, param } from "./fit-builders";
 
-type P = HeadFitJson["parameters"][number];
-const param = (key: P["key"], value: number, U: number | null, iso = "X"): P => ({
-  key,
-  iso,
-  value,
-  unit: key.endsWith("_um") ? "um" : "arcsec",
-  u: U === null ? null : U / 2,
-  U,
-  identifiable: U === null ? "no" : "yes",
-});
-const fit = (parameters: P[]): HeadFitJson => ({
-  parameters,
-  sphere_centre_mm: [0, 0, 0],
-  rms_um: 1,
-  max_um: 2,
-  outliers: [],
-  outlier_count: 0,
-  iterations: 3,
-  warnings: [],
-});
-
-const approved = fit([
+const approved = headFitJson([
   param("pivot_length_error_um", 37.88, 1.2, "EZ0A"),
   param("tip_offset_n_um", -12.5, 0.8),
   param("secondary_zero_arcsec", 18, 0.5),
