@@ -5,6 +5,7 @@
 // helpers.ts (session and requests), dataset-helpers.ts (upload routes) and ready-job.ts
 // (bringing a job to the state its report needs).
 import { asc, eq } from "drizzle-orm";
+import type { PgColumn, PgInsertValue, PgTable } from "drizzle-orm/pg-core";
 import { expect } from "vitest";
 import { POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
@@ -129,6 +130,15 @@ export async function postReading(jobId: string, body: Record<string, unknown>) 
     { params: Promise.resolve({ id: jobId }) },
   );
   return { status: res.status, json: await res.json() };
+}
+
+/** Inserts one row into a table whose key is `id` and returns that id. */
+export async function insertRow<T extends PgTable & { id: PgColumn }>(
+  table: T,
+  values: PgInsertValue<T>,
+): Promise<string> {
+  const [row] = await db.insert(table).values(values).returning({ id: table.id });
+  return row!.id as string;
 }
 
 /** The AppError a call was refused with; fails the test if it succeeded or threw something else. */
