@@ -5,8 +5,9 @@
 // other browser tests see the seeded statuses. The same journey on the tablet is in
 // journeys-tablet.test.ts.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Locator, Page } from "playwright-core";
+import type { BrowserContext, Page } from "playwright-core";
 import { newContext, screenshotPath, signIn } from "./browser";
+import { chooseInstrument, openStep } from "./steps";
 
 let ctx: BrowserContext;
 let jobHref: string;
@@ -17,20 +18,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await ctx?.close();
 });
-
-async function chooseInstrument(step: Locator, serial: string) {
-  const select = step.getByLabel("Instrument");
-  const label = (await select.locator("option", { hasText: serial }).textContent())!.trim();
-  await select.selectOption({ label });
-}
-
-/** One step is open at a time: open this one (its header button) unless it already is. */
-async function openStep(p: Page, n: number): Promise<Locator> {
-  const step = p.getByTestId(`step-${n}`);
-  const header = step.getByRole("button", { name: new RegExp(`^Step ${n}`) });
-  if ((await header.getAttribute("aria-expanded")) !== "true") await header.click();
-  return step;
-}
 
 async function openChecklist(p: Page) {
   await signIn(p, "installer@halvard.example");

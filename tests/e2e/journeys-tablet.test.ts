@@ -31,7 +31,7 @@ import {
   choose,
   signApproval,
 } from "./browser";
-import { uploadSyntheticProbe } from "./steps";
+import { chooseInstrument, uploadSyntheticProbe } from "./steps";
 
 let ctx: BrowserContext;
 let jobPath = "";
@@ -354,10 +354,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     await expect
       .poll(() => step5.getByTestId("live-5").innerText())
       .toMatch(/Pass[\s\S]*5\.2″ \(25\.0 µm\/m\)/);
-    const instrument = step5.getByLabel("Instrument");
-    await instrument.selectOption({
-      label: (await instrument.locator("option", { hasText: "DTI-0112" }).textContent())!.trim(),
-    });
+    await chooseInstrument(step5, "DTI-0112");
     await step5.getByRole("button", { name: "Save reading" }).click();
     await expect
       .poll(() => step5.getByRole("status").innerText(), { timeout: 15_000 })

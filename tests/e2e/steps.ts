@@ -1,8 +1,49 @@
 // Steps several browser tests share. Before writing a step into a test file, look here and in
 // browser.ts (contexts, sign-in, screenshots, accessibility, mail).
-import type { Page } from "playwright-core";
-import { expect } from "vitest";
+import type { BrowserContext, Locator, Page } from "playwright-core";
+import { afterAll, afterEach, beforeAll, expect } from "vitest";
 import { headPoseGrid, synthesiseSphereProbe, type HeadErrors } from "@/geometry";
+import { newContext, TABLET } from "./browser";
+
+/**
+ * A tablet-sized (820×1180) browser context for the file's tests: opened before them, closed after.
+ * The routes a test set (going offline) are removed after each test, so a failed test never leaves
+ * the next one offline. Returns the context.
+ */
+export function tabletForFile(): () => BrowserContext {
+  let ctx: BrowserContext | undefined;
+  beforeAll(async () => {
+    ctx = await newContext(TABLET);
+  });
+  afterAll(async () => {
+    await ctx?.close();
+  });
+  afterEach(async () => {
+    await ctx?.unrouteAll({ behavior: "ignoreErrors" });
+  });
+  return () => ctx!;
+}
+
+/**
+ * A route handler that makes the tablet offline: every request aborted, the service worker's own
+ * fetches too (the browser's offline switch is not reliable once a service worker controls the page).
+ */
+export const offline = (r: { abort: (code: string) => Promise<void> }) => r.abort("internetdisconnected");
+
+/** One step of the checklist is open at a time: open this one (its header button) unless it already is. */
+export async function openStep(p: Page, n: number): Promise<Locator> {
+  const step = p.getByTestId(`step-${n}`);
+  const header = step.getByRole("button", { name: new RegExp(`^Step ${n}`) });
+  if ((await header.getAttribute("aria-expanded")) !== "true") await header.click();
+  return step;
+}
+
+/** Chooses the registered instrument with this serial in a checklist step's instrument list. */
+export async function chooseInstrument(step: Locator, serial: string): Promise<void> {
+  const select = step.getByLabel("Instrument");
+  const label = (await select.locator("option", { hasText: serial }).textContent())!.trim();
+  await select.selectOption({ label });
+}
 
 /**
  * Invented sphere-probe data (demo only) from geometry's synthesiser for the job's own head, with
