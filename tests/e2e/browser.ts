@@ -40,6 +40,18 @@ export async function newContext(viewport = DESKTOP): Promise<BrowserContext> {
   return ctx;
 }
 
+/**
+ * A new page of the context, signed in as `email` through the sign-in page (the cookies of whoever
+ * used the context before cleared), on the jobs list it lands on.
+ */
+export async function pageAs(ctx: BrowserContext, email: string): Promise<Page> {
+  await ctx.clearCookies();
+  const p = await ctx.newPage();
+  await signIn(p, email);
+  await p.waitForURL("**/jobs");
+  return p;
+}
+
 /** Signs in through the real sign-in page, as a person would. */
 export async function signIn(page: Page, email: string, password = DEMO_PASSWORD): Promise<void> {
   if (!new URL(page.url(), "http://x").pathname.startsWith("/login")) await page.goto("/login");

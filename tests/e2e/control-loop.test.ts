@@ -12,7 +12,7 @@ import path from "node:path";
 import type { BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { headPoseGrid, synthesiseSphereProbe } from "@/geometry";
-import { newContext, screenshotPath, seriousViolations, signIn, TABLET } from "./browser";
+import { newContext, screenshotPath, seriousViolations, signIn, TABLET, pageAs } from "./browser";
 
 let ctx: BrowserContext;
 let tablet: BrowserContext;
@@ -64,10 +64,7 @@ function tcpCsv(): string {
 
 describe("the control loop on an after-crash job", () => {
   it("records as found and as left, flags a difference, passes a TCP check, and prints it all", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "engineer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx, "engineer@halvard.example");
     await openControl(p);
 
     // The seeded loop: values to enter shown, the sign convention and the caution beside them.

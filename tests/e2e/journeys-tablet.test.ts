@@ -25,13 +25,13 @@ import {
   screenshotPath,
   scrollsSideways,
   seriousViolations,
-  signIn,
   TABLET,
   waitForPicture,
   choose,
   signApproval,
+  pageAs,
 } from "./browser";
-import { chooseInstrument, uploadSyntheticProbe } from "./steps";
+import { chooseInstrument, decisionsOf, testPartEvaluation, uploadSyntheticProbe } from "./steps";
 
 let ctx: BrowserContext;
 let jobPath = "";
@@ -47,10 +47,7 @@ afterAll(async () => {
 
 /** A fresh page signed in as this person, on their jobs list. */
 async function as(email: string): Promise<Page> {
-  await ctx.clearCookies();
-  const p = await ctx.newPage();
-  await signIn(p, email);
-  await p.waitForURL("**/jobs");
+  const p = await pageAs(ctx, email);
   return p;
 }
 
@@ -100,7 +97,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     expect((await upload.boundingBox())!.height).toBeGreaterThanOrEqual(44);
     await upload.click();
     await p.waitForURL(/\/data\/[0-9a-f-]{36}$/);
-    const table = p.getByRole("table", { name: "Test-part evaluation" });
+    const table = testPartEvaluation(p);
     await table.waitFor();
     // TR-2026-0048 judges by simple acceptance: inside the tolerance zone conforms, whatever U is
     // (ISO 14253-1:2017, simple acceptance; ILAC-G8:09/2019, from memory). Worked by hand from
@@ -108,14 +105,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     // inside their zones (Face 1 0.0035 ≤ 0.004, Pocket D 8.0041 ≤ 8.005), where the guarded rule
     // of TR-2026-0052 leaves those two undecided (datasets.test.ts).
     expect(await p.getByTestId("decision-rule").innerText()).toContain("simple acceptance");
-    const rows = await table
-      .locator("tbody tr")
-      .evaluateAll((trs) =>
-        trs.map((tr) => [
-          tr.children[0]!.textContent,
-          tr.querySelector("[data-decision]")!.getAttribute("data-decision"),
-        ]),
-      );
+    const rows = await decisionsOf(table);
     expect(rows).toEqual([
       ["Bore A", "pass"],
       ["Bore B", "fail"],

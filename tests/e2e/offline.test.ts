@@ -7,17 +7,14 @@
 // of TR-2026-0052, which no other browser test records on.
 import { describe, expect, it } from "vitest";
 import type { Locator, Page } from "playwright-core";
-import { screenshotPath, scrollsSideways, signIn } from "./browser";
+import { screenshotPath, scrollsSideways, pageAs } from "./browser";
 import { chooseInstrument, offline, openStep, tabletForFile } from "./steps";
 
 const tablet = tabletForFile();
 let jobPath = "";
 
 async function openChecklist(): Promise<Page> {
-  await tablet().clearCookies();
-  const p = await tablet().newPage();
-  await signIn(p, "installer@halvard.example");
-  await p.waitForURL("**/jobs");
+  const p = await pageAs(tablet(), "installer@halvard.example");
   jobPath = (await p.getByRole("link", { name: "TR-2026-0052" }).getAttribute("href"))!;
   await p.goto(`${jobPath}/checklist`);
   await expect.poll(() => p.getByRole("heading", { name: "Procedure checklist" }).isVisible()).toBe(true);

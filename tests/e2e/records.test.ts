@@ -12,7 +12,15 @@ import { createHash } from "node:crypto";
 import { readFileSync, writeFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext } from "playwright-core";
-import { newContext, screenshotPath, scrollsSideways, seriousViolations, signIn, TABLET } from "./browser";
+import {
+  newContext,
+  screenshotPath,
+  scrollsSideways,
+  seriousViolations,
+  signIn,
+  TABLET,
+  pageAs,
+} from "./browser";
 
 let ctx: BrowserContext;
 
@@ -28,10 +36,7 @@ const pdfText = (file: string) =>
 
 describe("records on the report", () => {
   it("the administrator keeps the issuer's details; the engineer has no such page", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "admin@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx, "admin@halvard.example");
     await p.goto("/registers");
     await p
       .getByRole("navigation", { name: "Registers" })
@@ -61,10 +66,7 @@ describe("records on the report", () => {
       .toContainEqual(expect.stringContaining("Reports issued from now on"));
     await p.close();
 
-    await ctx.clearCookies();
-    const e = await ctx.newPage();
-    await signIn(e, "engineer@halvard.example");
-    await e.waitForURL("**/jobs");
+    const e = await pageAs(ctx, "engineer@halvard.example");
     const res = await e.goto("/registers/settings");
     expect(res?.status()).toBe(404);
     await e.close();
@@ -107,10 +109,7 @@ describe("records on the report", () => {
   });
 
   it("the customer downloads the issued report and the public page vouches for that file", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "buyer@marlowcreek.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx, "buyer@marlowcreek.example");
     await p.getByRole("link", { name: "TR-2026-0041" }).click();
     await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Report" }).click();
     const article = p.getByRole("article", { name: "Acceptance report" });

@@ -6,7 +6,7 @@ import { createHash } from "node:crypto";
 import { readFileSync, writeFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext } from "playwright-core";
-import { followReportMail, newContext, screenshotPath, signIn } from "./browser";
+import { followReportMail, newContext, screenshotPath, pageAs } from "./browser";
 
 let ctx: BrowserContext;
 let pdfPath = "";
@@ -58,10 +58,7 @@ describe("journey 3: the customer accepts the signed report", () => {
   });
 
   it("refuses to sign without the password, then accepts with it", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "buyer@marlowcreek.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx, "buyer@marlowcreek.example");
     await p.getByRole("link", { name: "TR-2026-0041" }).click();
     await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Report" }).click();
     const accept = p.getByRole("form", { name: "Accept the report" });
@@ -78,10 +75,7 @@ describe("journey 3: the customer accepts the signed report", () => {
   });
 
   it("the engineer sees the acceptance", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "engineer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx, "engineer@halvard.example");
     const row = p.locator("tr", { hasText: "TR-2026-0041" });
     await expect.poll(() => row.innerText()).toContain("Accepted");
     await row.getByRole("link", { name: "TR-2026-0041" }).click();

@@ -38,6 +38,21 @@ export async function openStep(p: Page, n: number): Promise<Locator> {
   return step;
 }
 
+/** The test-part evaluation table of an uploaded dataset's page. */
+export const testPartEvaluation = (p: Page) => p.getByRole("table", { name: "Test-part evaluation" });
+
+/** Each row of an evaluation table as [feature, decision] (the row's `data-decision`). */
+export function decisionsOf(table: Locator): Promise<(string | null)[][]> {
+  return table
+    .locator("tbody tr")
+    .evaluateAll((trs) =>
+      trs.map((tr) => [
+        tr.children[0]!.textContent,
+        tr.querySelector("[data-decision]")!.getAttribute("data-decision"),
+      ]),
+    );
+}
+
 /** Chooses the registered instrument with this serial in a checklist step's instrument list. */
 export async function chooseInstrument(step: Locator, serial: string): Promise<void> {
   const select = step.getByLabel("Instrument");

@@ -7,7 +7,7 @@
 import sharp from "sharp";
 import { describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
-import { screenshotPath, scrollsSideways, signIn, TABLET } from "./browser";
+import { screenshotPath, scrollsSideways, signIn, TABLET, pageAs } from "./browser";
 import { offline, openStep, tabletForFile } from "./steps";
 
 const tablet = tabletForFile();
@@ -60,10 +60,7 @@ describe("every kind of step on the tablet", () => {
 
   it("records a check, four points, a record value and a photo offline; online, each is stored once", async () => {
     expect(jobId).not.toBe("");
-    await tablet().clearCookies();
-    const p = await tablet().newPage();
-    await signIn(p, "installer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(tablet(), "installer@halvard.example");
     await p.goto(`/jobs/${jobId}/checklist`);
     await expect.poll(() => p.getByRole("heading", { name: "Procedure checklist" }).isVisible()).toBe(true);
     await p.getByTestId("offline-ready").waitFor({ timeout: 30_000 });
