@@ -6,13 +6,14 @@
 // page uses, and the page judges it Pass against the procedure's limits; the draft report (PDF,
 // read back with poppler's pdftotext) prints all of it with the sign convention and the caution.
 import { execFileSync } from "node:child_process";
-import { mkdirSync, mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { mkdirSync } from "node:fs";
 import path from "node:path";
 import type { BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { headPoseGrid, synthesiseSphereProbe } from "@/geometry";
 import { newContext, screenshotPath, seriousViolations, signIn, TABLET, pageAs } from "./browser";
+import { pdfFile, pdfText } from "../pdf-tools";
+import { jobSection } from "./steps";
 
 let ctx: BrowserContext;
 let tablet: BrowserContext;
@@ -30,7 +31,7 @@ afterAll(async () => {
 async function openControl(p: Page) {
   await p.goto("/jobs");
   await p.getByRole("link", { name: "TR-2026-0059" }).click();
-  await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Control" }).click();
+  await jobSection(p, "Control");
   await p.waitForURL(/\/control$/);
 }
 
@@ -141,11 +142,8 @@ describe("the control loop on an after-crash job", () => {
     await p.waitForURL("**/jobs");
     const pdf = await p.request.get(`/api/jobs/${jobId}/report/draft`);
     expect(pdf.status()).toBe(200);
-    const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-e2e-pdf-"));
-    writeFileSync(path.join(dir, "d.pdf"), await pdf.body());
-    const text = execFileSync("pdftotext", [path.join(dir, "d.pdf"), "-"])
-      .toString("utf8")
-      .replace(/\s+/g, " ");
+    const file = pdfFile(await pdf.body());
+    const text = pdfText(file, true);
     expect(text).toContain("5.1 Values for the control: as found, to enter, as left");
     expect(text).toContain(`${toEnter} mm`);
     expect(text).toContain("Differs from the value to enter");
@@ -161,7 +159,7 @@ describe("the control loop on an after-crash job", () => {
       "-png",
       "-r",
       "70",
-      path.join(dir, "d.pdf"),
+      file,
       screenshotPath("control-loop-draft").replace(/\.png$/, ""),
     ]);
   }, 120_000);

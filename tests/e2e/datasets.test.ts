@@ -6,7 +6,7 @@ import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
 import { newContext, screenshotPath, signIn, choose, pageAs } from "./browser";
-import { decisionsOf, testPartEvaluation } from "./steps";
+import { decisionsOf, testPartEvaluation, jobSection } from "./steps";
 
 let ctx: BrowserContext;
 let page: Page;
@@ -35,7 +35,7 @@ describe("inspector: test-part data to a judged table", () => {
     await page.waitForURL("**/jobs");
     await page.getByRole("link", { name: "TR-2026-0052" }).click();
     await page.waitForURL(/\/jobs\/[0-9a-f-]{36}$/);
-    await page.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Data" }).click();
+    await jobSection(page, "Data");
     await page.waitForURL(/\/data$/);
     await expect
       .poll(() => page.getByRole("heading", { name: "Add measurement data" }).isVisible())

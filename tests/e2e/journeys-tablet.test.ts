@@ -31,7 +31,14 @@ import {
   signApproval,
   pageAs,
 } from "./browser";
-import { chooseInstrument, decisionsOf, testPartEvaluation, uploadSyntheticProbe } from "./steps";
+import {
+  chooseInstrument,
+  decisionsOf,
+  testPartEvaluation,
+  uploadSyntheticProbe,
+  jobSection,
+  downloadSignedPdf,
+} from "./steps";
 
 let ctx: BrowserContext;
 let jobPath = "";
@@ -62,7 +69,7 @@ async function openSection(p: Page, reference: string, section: string) {
   await p.getByRole("link", { name: reference }).click();
   await p.waitForURL(/\/jobs\/[0-9a-f-]{36}$/);
   jobPath = new URL(p.url()).pathname;
-  await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: section }).click();
+  await jobSection(p, section);
   await p.waitForURL(new RegExp(`/${section.toLowerCase()}$`));
 }
 
@@ -119,7 +126,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     await p.screenshot({ path: screenshotPath("tablet-j1-evaluation"), fullPage: true });
 
     // Signs the work as inspected on the Report section: wrong password refused, then signed.
-    await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Report" }).click();
+    await jobSection(p, "Report");
     await p.waitForURL(/\/report$/);
     await fitsTheTablet(p, "report page before issue");
     const form = p.getByRole("form", { name: "Sign as inspected" });
@@ -183,7 +190,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     // Before issue the Report tab lists what stands in the way, each with a link: the work is not
     // signed as performed, the inspector's signature went stale when the sphere-probe data came
     // after it, and Bore B of the test part is a FAIL (ISO/IEC 17025:2017 §7.8.2.1 p, §7.8.6).
-    await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Report" }).click();
+    await jobSection(p, "Report");
     await p.waitForURL(/\/report$/);
     const blockers = p.getByRole("list", { name: "Before issue" });
     await blockers.waitFor();
@@ -256,12 +263,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     expect(await article.innerText()).toContain("TH-1907");
     await fitsTheTablet(p, "report page, customer");
     await p.screenshot({ path: screenshotPath("tablet-j3-report"), fullPage: true });
-    const [download] = await Promise.all([
-      p.waitForEvent("download"),
-      p.getByRole("link", { name: "Download signed PDF" }).click(),
-    ]);
-    pdfPath = screenshotPath("tablet-report").replace(/\.png$/, ".pdf");
-    await download.saveAs(pdfPath);
+    pdfPath = await downloadSignedPdf(p, "tablet-report");
     expect(readFileSync(pdfPath).subarray(0, 5).toString()).toBe("%PDF-");
 
     // A comment of spaces is refused by the server, naming the reason; then the rejection is signed.

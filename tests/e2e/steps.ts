@@ -3,7 +3,7 @@
 import type { BrowserContext, Locator, Page } from "playwright-core";
 import { afterAll, afterEach, beforeAll, expect } from "vitest";
 import { headPoseGrid, synthesiseSphereProbe, type HeadErrors } from "@/geometry";
-import { newContext, TABLET } from "./browser";
+import { newContext, screenshotPath, TABLET } from "./browser";
 
 /**
  * A tablet-sized (820×1180) browser context for the file's tests: opened before them, closed after.
@@ -36,6 +36,22 @@ export async function openStep(p: Page, n: number): Promise<Locator> {
   const header = step.getByRole("button", { name: new RegExp(`^Step ${n}`) });
   if ((await header.getAttribute("aria-expanded")) !== "true") await header.click();
   return step;
+}
+
+/** Opens a section of the job page (Data, Checklist, Report, …) from its "Job sections" navigation. */
+export async function jobSection(p: Page, section: string): Promise<void> {
+  await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: section }).click();
+}
+
+/** Downloads the report page's signed PDF beside the screenshots as `<name>.pdf` and returns its path. */
+export async function downloadSignedPdf(p: Page, name: string): Promise<string> {
+  const [download] = await Promise.all([
+    p.waitForEvent("download"),
+    p.getByRole("link", { name: "Download signed PDF" }).click(),
+  ]);
+  const file = screenshotPath(name).replace(/\.png$/, ".pdf");
+  await download.saveAs(file);
+  return file;
 }
 
 /** The test-part evaluation table of an uploaded dataset's page. */
