@@ -9,27 +9,23 @@
 // sees the values for the control.
 import { mkdirSync } from "node:fs";
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
 import {
   canvasPixels,
-  newContext,
   screenshotPath,
   seriousViolations,
   waitForPicture,
   signApproval,
   pageAs,
+  contextForFile,
 } from "./browser";
 import { uploadSyntheticProbe } from "./steps";
 
-let ctx: BrowserContext;
+const ctx = contextForFile({ width: 1440, height: 1000 });
 
 beforeAll(async () => {
   mkdirSync(path.dirname(screenshotPath("x")), { recursive: true });
-  ctx = await newContext({ width: 1440, height: 1000 });
-});
-afterAll(async () => {
-  await ctx?.close();
 });
 
 /** The 3D view with its printed factor, scrolled to the top so the page's sticky header does not cover it. */
@@ -50,7 +46,7 @@ async function openAnalysis(page: Page, reference: string) {
 
 describe("journey 2: the engineer reviews and approves the head fit", () => {
   it("opens TR-2026-0052's Analysis tab: parameters, residuals and a drawn 3D view", async () => {
-    const p = await pageAs(ctx, "engineer@halvard.example");
+    const p = await pageAs(ctx(), "engineer@halvard.example");
     await openAnalysis(p, "TR-2026-0052");
     const table = p.getByRole("table", { name: "Fitted parameters" });
     const text = await table.innerText();
@@ -92,7 +88,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
   });
 
   it("overlays the fit before adjustment on TR-2026-0052 (the drawn pixels change) and saves the view, which then appears on the page", async () => {
-    const p = await pageAs(ctx, "engineer@halvard.example");
+    const p = await pageAs(ctx(), "engineer@halvard.example");
     await openAnalysis(p, "TR-2026-0052");
     await waitForPicture(p);
     const plain = await canvasPixels(p);
@@ -168,7 +164,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
   });
 
   it("the head's page shows every job's fitted parameters side by side and their trend", async () => {
-    const p = await pageAs(ctx, "engineer@halvard.example");
+    const p = await pageAs(ctx(), "engineer@halvard.example");
     await p.getByRole("link", { name: "Heads" }).first().click();
     await p.getByRole("link", { name: "TH-2241" }).click();
     const table = p.getByRole("table", { name: "Fitted parameters by job" });
@@ -210,7 +206,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
   });
 
   it("the customer and the head's installer open its history; other companies and visitors do not", async () => {
-    const p = await pageAs(ctx, "buyer@marlowcreek.example");
+    const p = await pageAs(ctx(), "buyer@marlowcreek.example");
     await p.getByRole("link", { name: "TR-2026-0041" }).click();
     await p.getByRole("link", { name: "This head's fitted parameters, job by job" }).click();
     await p.waitForURL(/\/heads\/[0-9a-f-]{36}$/);
@@ -234,19 +230,19 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     await p.close();
 
     // Another company's buyer: not found, and nothing of this head's jobs in the page.
-    const q = await pageAs(ctx, "buyer@tollan.example");
+    const q = await pageAs(ctx(), "buyer@tollan.example");
     const res = await q.goto(historyPath);
     expect(res?.status()).toBe(404);
     expect(await q.content()).not.toContain("TR-2026-0041");
     await q.close();
     // The installer works on jobs on this head, so they read its history (what an after-crash
     // re-check needs).
-    const inst = await pageAs(ctx, "installer@halvard.example");
+    const inst = await pageAs(ctx(), "installer@halvard.example");
     expect((await inst.goto(historyPath))?.status()).toBe(200);
     expect(await inst.content()).toContain("TR-2026-0041");
     await inst.close();
-    await ctx.clearCookies();
-    const anon = await ctx.newPage();
+    await ctx().clearCookies();
+    const anon = await ctx().newPage();
     await anon.goto(historyPath);
     await anon.waitForURL(/\/login\?callbackUrl=/);
     await anon.close();
@@ -255,7 +251,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
   it("on a job the office moves to review through the checklist page, the engineer fits, is refused while measuring, then approves", async () => {
     // The seeded draft TR-2026-0057 (same head TH-2241): the administrator starts measuring on the
     // checklist page, as the office would for an unassigned job.
-    const admin = await pageAs(ctx, "admin@halvard.example");
+    const admin = await pageAs(ctx(), "admin@halvard.example");
     await admin.getByRole("link", { name: "TR-2026-0057" }).click();
     await admin
       .getByRole("navigation", { name: "Job sections" })
@@ -266,7 +262,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     const checklistUrl = admin.url();
     await admin.close();
 
-    const p = await pageAs(ctx, "engineer@halvard.example");
+    const p = await pageAs(ctx(), "engineer@halvard.example");
     const href = await p.getByRole("link", { name: "TR-2026-0057" }).getAttribute("href");
     const jobId = href!.split("/").pop()!;
     // Invented sphere-probe data from geometry's synthesiser (demo only) for this job's own head, uploaded through the datasets API.
@@ -289,7 +285,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     await p.close();
 
     // The office submits the job for review on the checklist page.
-    const admin2 = await pageAs(ctx, "admin@halvard.example");
+    const admin2 = await pageAs(ctx(), "admin@halvard.example");
     await admin2.goto(checklistUrl);
     await admin2.getByRole("button", { name: "Submit for review" }).click();
     // A summary first (steps not measured, FAILs, readings waiting on this device), then submit.
@@ -299,7 +295,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     expect(await admin2.getByRole("button", { name: "Submit for review" }).count()).toBe(0);
     await admin2.close();
 
-    const e = await pageAs(ctx, "engineer@halvard.example");
+    const e = await pageAs(ctx(), "engineer@halvard.example");
     await e.goto(analysisUrl);
     const approve2 = e.getByRole("button", { name: "Approve these parameters" });
     await approve2.waitFor();

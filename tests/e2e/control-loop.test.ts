@@ -8,24 +8,18 @@
 import { execFileSync } from "node:child_process";
 import { mkdirSync } from "node:fs";
 import path from "node:path";
-import type { BrowserContext, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
 import { headPoseGrid, synthesiseSphereProbe } from "@/geometry";
-import { newContext, screenshotPath, seriousViolations, signIn, TABLET, pageAs } from "./browser";
+import { screenshotPath, seriousViolations, signIn, TABLET, pageAs, contextForFile } from "./browser";
 import { pdfFile, pdfText } from "../pdf-tools";
 import { jobSection } from "./steps";
 
-let ctx: BrowserContext;
-let tablet: BrowserContext;
+const ctx = contextForFile({ width: 1440, height: 900 });
+const tablet = contextForFile(TABLET);
 
 beforeAll(async () => {
   mkdirSync(path.dirname(screenshotPath("x")), { recursive: true });
-  ctx = await newContext({ width: 1440, height: 900 });
-  tablet = await newContext(TABLET);
-});
-afterAll(async () => {
-  await ctx?.close();
-  await tablet?.close();
 });
 
 async function openControl(p: Page) {
@@ -65,7 +59,7 @@ function tcpCsv(): string {
 
 describe("the control loop on an after-crash job", () => {
   it("records as found and as left, flags a difference, passes a TCP check, and prints it all", async () => {
-    const p = await pageAs(ctx, "engineer@halvard.example");
+    const p = await pageAs(ctx(), "engineer@halvard.example");
     await openControl(p);
 
     // The seeded loop: values to enter shown, the sign convention and the caution beside them.
@@ -113,7 +107,7 @@ describe("the control loop on an after-crash job", () => {
     expect(await seriousViolations(p)).toEqual([]);
 
     // The installer uploads a TCP check (approved job: the one kind of data still taken).
-    await ctx.clearCookies();
+    await ctx().clearCookies();
     await p.goto("/login");
     await signIn(p, "installer@halvard.example");
     await p.waitForURL("**/jobs");
@@ -136,7 +130,7 @@ describe("the control loop on an after-crash job", () => {
     expect(await tcpCard.locator("[data-tcp-decision]").innerText()).toContain("Pass");
 
     // The draft report prints the loop and the check (staff only; read back with pdftotext).
-    await ctx.clearCookies();
+    await ctx().clearCookies();
     await p.goto("/login");
     await signIn(p, "engineer@halvard.example");
     await p.waitForURL("**/jobs");
@@ -165,9 +159,7 @@ describe("the control loop on an after-crash job", () => {
   }, 120_000);
 
   it("reads on the tablet without sideways scrolling of the page", async () => {
-    const p = await tablet.newPage();
-    await signIn(p, "inspector@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(tablet(), "inspector@halvard.example");
     await openControl(p);
     // Below 900 px the table's rows are cards: the setting is still read as text.
     await expect

@@ -3,20 +3,16 @@
 // before anything is sent, then a good one: preview, upload with progress, and the per-feature
 // pass/fail table with the job's decision rule stated; then signs the job as inspected.
 import { readFileSync } from "node:fs";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Page } from "playwright-core";
-import { newContext, screenshotPath, signIn, choose, pageAs } from "./browser";
+import { beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { screenshotPath, signIn, choose, pageAs, contextForFile } from "./browser";
 import { decisionsOf, testPartEvaluation, jobSection } from "./steps";
 
-let ctx: BrowserContext;
+const ctx = contextForFile();
 let page: Page;
 
 beforeAll(async () => {
-  ctx = await newContext();
-  page = await ctx.newPage();
-});
-afterAll(async () => {
-  await ctx?.close();
+  page = await ctx().newPage();
 });
 
 const BAD = Buffer.from(
@@ -149,7 +145,7 @@ describe("column mapping chosen by hand", () => {
 
 describe("customer: their own company's data only", () => {
   it("the Marlow Creek buyer lists and opens the seeded test-part data of TR-2026-0041 but may not upload", async () => {
-    const p = await pageAs(ctx, "buyer@marlowcreek.example");
+    const p = await pageAs(ctx(), "buyer@marlowcreek.example");
     const href = await p.getByRole("link", { name: "TR-2026-0041" }).getAttribute("href");
     await p.goto(`${href}/data`);
     await p.getByRole("link", { name: "Test-part measurements" }).first().click();
@@ -162,7 +158,7 @@ describe("customer: their own company's data only", () => {
     await p.screenshot({ path: screenshotPath("datasets-customer-list"), fullPage: true });
     await p.close();
 
-    const q = await pageAs(ctx, "buyer@tollan.example");
+    const q = await pageAs(ctx(), "buyer@tollan.example");
     const res = await q.goto(dataUrl);
     expect(res?.status()).toBe(404);
     expect(await q.content()).not.toContain("Bore A");

@@ -15,13 +15,12 @@
 // Journey 4 records an after-adjustment reading on TR-2026-0052 (step 5, which no other test
 // records on) and compares it with the one before.
 import { readFileSync } from "node:fs";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
 import {
   canvasPixels,
   followReportMail,
   mailTo,
-  newContext,
   screenshotPath,
   scrollsSideways,
   seriousViolations,
@@ -30,6 +29,7 @@ import {
   choose,
   signApproval,
   pageAs,
+  contextForFile,
 } from "./browser";
 import {
   chooseInstrument,
@@ -40,21 +40,14 @@ import {
   downloadSignedPdf,
 } from "./steps";
 
-let ctx: BrowserContext;
+const ctx = contextForFile(TABLET);
 let jobPath = "";
 let pdfPath = "";
 const REF = "TR-2026-0048";
 
-beforeAll(async () => {
-  ctx = await newContext(TABLET);
-});
-afterAll(async () => {
-  await ctx?.close();
-});
-
 /** A fresh page signed in as this person, on their jobs list. */
 async function as(email: string): Promise<Page> {
-  const p = await pageAs(ctx, email);
+  const p = await pageAs(ctx(), email);
   return p;
 }
 
@@ -254,7 +247,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
   });
 
   it("journey 3: the buyer follows the e-mail, reads the report, downloads the PDF and rejects it with a comment", async () => {
-    const p = await followReportMail(ctx, "buyer@tollan.example", REF, (page) =>
+    const p = await followReportMail(ctx(), "buyer@tollan.example", REF, (page) =>
       fitsTheTablet(page, "sign-in page"),
     );
     const article = p.getByRole("article", { name: "Acceptance report" });
@@ -310,8 +303,8 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
   });
 
   it("journey 3, last: anyone holding the PDF verifies it on the public page", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
+    await ctx().clearCookies();
+    const p = await ctx().newPage();
     await p.goto("/verify");
     await fitsTheTablet(p, "/verify");
     await p.getByLabel("Report PDF").setInputFiles(pdfPath);

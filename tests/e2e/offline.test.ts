@@ -7,10 +7,10 @@
 // of TR-2026-0052, which no other browser test records on.
 import { describe, expect, it } from "vitest";
 import type { Locator, Page } from "playwright-core";
-import { screenshotPath, scrollsSideways, pageAs } from "./browser";
-import { chooseInstrument, offline, openStep, tabletForFile } from "./steps";
+import { screenshotPath, scrollsSideways, pageAs, contextForFile, TABLET } from "./browser";
+import { chooseInstrument, offline, openStep } from "./steps";
 
-const tablet = tabletForFile();
+const tablet = contextForFile(TABLET);
 let jobPath = "";
 
 async function openChecklist(): Promise<Page> {

@@ -9,32 +9,24 @@
 // Resolving blockers with a deviation and issuing are walked end to end in journeys-tablet.test.ts.
 import { createHash } from "node:crypto";
 import { readFileSync, writeFileSync } from "node:fs";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext } from "playwright-core";
+import { describe, expect, it } from "vitest";
 import {
-  newContext,
   screenshotPath,
   scrollsSideways,
   seriousViolations,
   signIn,
   TABLET,
   pageAs,
+  contextForFile,
 } from "./browser";
 import { pdfText } from "../pdf-tools";
 import { jobSection, downloadSignedPdf } from "./steps";
 
-let ctx: BrowserContext;
-
-beforeAll(async () => {
-  ctx = await newContext({ width: 1440, height: 900 });
-});
-afterAll(async () => {
-  await ctx?.close();
-});
+const ctx = contextForFile({ width: 1440, height: 900 });
 
 describe("records on the report", () => {
   it("the administrator keeps the issuer's details; the engineer has no such page", async () => {
-    const p = await pageAs(ctx, "admin@halvard.example");
+    const p = await pageAs(ctx(), "admin@halvard.example");
     await p.goto("/registers");
     await p
       .getByRole("navigation", { name: "Registers" })
@@ -64,15 +56,15 @@ describe("records on the report", () => {
       .toContainEqual(expect.stringContaining("Reports issued from now on"));
     await p.close();
 
-    const e = await pageAs(ctx, "engineer@halvard.example");
+    const e = await pageAs(ctx(), "engineer@halvard.example");
     const res = await e.goto("/registers/settings");
     expect(res?.status()).toBe(404);
     await e.close();
   });
 
   it("the engineer sees the blockers and previews the draft with its record details", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
+    await ctx().clearCookies();
+    const p = await ctx().newPage();
     await p.setViewportSize({ width: 1440, height: 900 });
     await signIn(p, "engineer@halvard.example");
     await p.waitForURL("**/jobs");
@@ -107,7 +99,7 @@ describe("records on the report", () => {
   });
 
   it("the customer downloads the issued report and the public page vouches for that file", async () => {
-    const p = await pageAs(ctx, "buyer@marlowcreek.example");
+    const p = await pageAs(ctx(), "buyer@marlowcreek.example");
     await p.getByRole("link", { name: "TR-2026-0041" }).click();
     await jobSection(p, "Report");
     const article = p.getByRole("article", { name: "Acceptance report" });
@@ -117,8 +109,8 @@ describe("records on the report", () => {
     expect(pdfText(file, true)).toContain("The results relate only to the item tested");
     await p.close();
 
-    await ctx.clearCookies();
-    const v = await ctx.newPage();
+    await ctx().clearCookies();
+    const v = await ctx().newPage();
     await v.goto("/verify");
     await v.getByLabel("Report PDF").setInputFiles(file);
     const result = v.getByTestId("verification-result");

@@ -3,25 +3,17 @@
 // the acceptance; anyone holding the PDF verifies it on the public page, and a tampered copy fails.
 import { createHash } from "node:crypto";
 import { readFileSync, writeFileSync } from "node:fs";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext } from "playwright-core";
-import { followReportMail, newContext, screenshotPath, pageAs } from "./browser";
+import { describe, expect, it } from "vitest";
+import { followReportMail, screenshotPath, pageAs, contextForFile } from "./browser";
 import { pdfText } from "../pdf-tools";
 import { jobSection, downloadSignedPdf } from "./steps";
 
-let ctx: BrowserContext;
+const ctx = contextForFile();
 let pdfPath = "";
-
-beforeAll(async () => {
-  ctx = await newContext();
-});
-afterAll(async () => {
-  await ctx?.close();
-});
 
 describe("journey 3: the customer accepts the signed report", () => {
   it("gets the e-mail, follows its link, reads the report online and downloads the signed PDF", async () => {
-    const p = await followReportMail(ctx, "buyer@marlowcreek.example", "TR-2026-0041");
+    const p = await followReportMail(ctx(), "buyer@marlowcreek.example", "TR-2026-0041");
     const article = p.getByRole("article", { name: "Acceptance report" });
     await expect.poll(() => article.innerText()).toContain("END OF REPORT");
     expect(await article.innerText()).toContain("Marlow Creek Aerostructures");
@@ -54,7 +46,7 @@ describe("journey 3: the customer accepts the signed report", () => {
   });
 
   it("refuses to sign without the password, then accepts with it", async () => {
-    const p = await pageAs(ctx, "buyer@marlowcreek.example");
+    const p = await pageAs(ctx(), "buyer@marlowcreek.example");
     await p.getByRole("link", { name: "TR-2026-0041" }).click();
     await jobSection(p, "Report");
     const accept = p.getByRole("form", { name: "Accept the report" });
@@ -71,7 +63,7 @@ describe("journey 3: the customer accepts the signed report", () => {
   });
 
   it("the engineer sees the acceptance", async () => {
-    const p = await pageAs(ctx, "engineer@halvard.example");
+    const p = await pageAs(ctx(), "engineer@halvard.example");
     const row = p.locator("tr", { hasText: "TR-2026-0041" });
     await expect.poll(() => row.innerText()).toContain("Accepted");
     await row.getByRole("link", { name: "TR-2026-0041" }).click();
@@ -82,8 +74,8 @@ describe("journey 3: the customer accepts the signed report", () => {
   });
 
   it("anyone holding the PDF verifies it on the public page; a changed byte fails", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
+    await ctx().clearCookies();
+    const p = await ctx().newPage();
     await p.goto("/verify");
     await p.getByLabel("Report PDF").setInputFiles(pdfPath);
     const result = p.getByTestId("verification-result");

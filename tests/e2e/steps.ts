@@ -1,28 +1,9 @@
 // Steps several browser tests share. Before writing a step into a test file, look here and in
 // browser.ts (contexts, sign-in, screenshots, accessibility, mail).
-import type { BrowserContext, Locator, Page } from "playwright-core";
-import { afterAll, afterEach, beforeAll, expect } from "vitest";
+import type { Locator, Page } from "playwright-core";
+import { expect } from "vitest";
 import { headPoseGrid, synthesiseSphereProbe, type HeadErrors } from "@/geometry";
-import { newContext, screenshotPath, TABLET } from "./browser";
-
-/**
- * A tablet-sized (820×1180) browser context for the file's tests: opened before them, closed after.
- * The routes a test set (going offline) are removed after each test, so a failed test never leaves
- * the next one offline. Returns the context.
- */
-export function tabletForFile(): () => BrowserContext {
-  let ctx: BrowserContext | undefined;
-  beforeAll(async () => {
-    ctx = await newContext(TABLET);
-  });
-  afterAll(async () => {
-    await ctx?.close();
-  });
-  afterEach(async () => {
-    await ctx?.unrouteAll({ behavior: "ignoreErrors" });
-  });
-  return () => ctx!;
-}
+import { screenshotPath } from "./browser";
 
 /**
  * A route handler that makes the tablet offline: every request aborted, the service worker's own

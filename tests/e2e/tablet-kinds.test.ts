@@ -7,10 +7,10 @@
 import sharp from "sharp";
 import { describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
-import { screenshotPath, scrollsSideways, signIn, TABLET, pageAs } from "./browser";
-import { offline, openStep, tabletForFile } from "./steps";
+import { screenshotPath, scrollsSideways, TABLET, pageAs, contextForFile } from "./browser";
+import { offline, openStep } from "./steps";
 
-const tablet = tabletForFile();
+const tablet = contextForFile(TABLET);
 let jobId = "";
 const TITLE = `Tablet kinds ${Date.now().toString(36)}`;
 
@@ -20,9 +20,7 @@ async function queuedCount(p: Page): Promise<string> {
 
 describe("every kind of step on the tablet", () => {
   it("the office opens a job with the after-collision procedure for the installer", async () => {
-    const admin = await tablet().newPage();
-    await signIn(admin, "admin@halvard.example");
-    await admin.waitForURL("**/jobs");
+    const admin = await pageAs(tablet(), "admin@halvard.example");
     await admin.goto("/registers/procedures");
     const card = admin.locator("section, article, div").filter({
       has: admin.getByRole("heading", { name: /Two-axis head check after a collision/ }),
