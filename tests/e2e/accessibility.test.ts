@@ -2,7 +2,7 @@
 // and tablet viewports. Fails on serious or critical violations.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
-import { newContext, seriousViolations, signIn } from "./browser";
+import { newContext, seriousViolations, pageAs } from "./browser";
 
 let desktop: BrowserContext;
 let tablet: BrowserContext;
@@ -55,10 +55,7 @@ for (const [name, get] of [
     for (const person of name === "tablet" ? PEOPLE.filter((x) => x.email.startsWith("installer")) : PEOPLE) {
       it(`${person.email}: jobs, every job section and their own pages`, async () => {
         const ctx = get();
-        await ctx.clearCookies();
-        const p = await ctx.newPage();
-        await signIn(p, person.email);
-        await p.waitForURL("**/jobs");
+        const p = await pageAs(ctx, person.email);
         expect(await seriousViolations(p), "/jobs").toEqual([]);
         const pages = [
           ...(await jobPages(p, person.email.includes("installer") ? "TR-2026-0052" : "TR-2026-0041")),

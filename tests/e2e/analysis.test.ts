@@ -9,27 +9,23 @@
 // sees the values for the control.
 import { mkdirSync } from "node:fs";
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
 import {
   canvasPixels,
-  newContext,
   screenshotPath,
   seriousViolations,
-  signIn,
   waitForPicture,
   signApproval,
+  pageAs,
+  contextForFile,
 } from "./browser";
 import { uploadSyntheticProbe } from "./steps";
 
-let ctx: BrowserContext;
+const ctx = contextForFile({ width: 1440, height: 1000 });
 
 beforeAll(async () => {
   mkdirSync(path.dirname(screenshotPath("x")), { recursive: true });
-  ctx = await newContext({ width: 1440, height: 1000 });
-});
-afterAll(async () => {
-  await ctx?.close();
 });
 
 /** The 3D view with its printed factor, scrolled to the top so the page's sticky header does not cover it. */
@@ -50,10 +46,7 @@ async function openAnalysis(page: Page, reference: string) {
 
 describe("journey 2: the engineer reviews and approves the head fit", () => {
   it("opens TR-2026-0052's Analysis tab: parameters, residuals and a drawn 3D view", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "engineer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "engineer@halvard.example");
     await openAnalysis(p, "TR-2026-0052");
     const table = p.getByRole("table", { name: "Fitted parameters" });
     const text = await table.innerText();
@@ -95,10 +88,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
   });
 
   it("overlays the fit before adjustment on TR-2026-0052 (the drawn pixels change) and saves the view, which then appears on the page", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "engineer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "engineer@halvard.example");
     await openAnalysis(p, "TR-2026-0052");
     await waitForPicture(p);
     const plain = await canvasPixels(p);
@@ -174,10 +164,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
   });
 
   it("the head's page shows every job's fitted parameters side by side and their trend", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "engineer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "engineer@halvard.example");
     await p.getByRole("link", { name: "Heads" }).first().click();
     await p.getByRole("link", { name: "TH-2241" }).click();
     const table = p.getByRole("table", { name: "Fitted parameters by job" });
@@ -219,10 +206,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
   });
 
   it("the customer and the head's installer open its history; other companies and visitors do not", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "buyer@marlowcreek.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "buyer@marlowcreek.example");
     await p.getByRole("link", { name: "TR-2026-0041" }).click();
     await p.getByRole("link", { name: "This head's fitted parameters, job by job" }).click();
     await p.waitForURL(/\/heads\/[0-9a-f-]{36}$/);
@@ -246,25 +230,19 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     await p.close();
 
     // Another company's buyer: not found, and nothing of this head's jobs in the page.
-    await ctx.clearCookies();
-    const q = await ctx.newPage();
-    await signIn(q, "buyer@tollan.example");
-    await q.waitForURL("**/jobs");
+    const q = await pageAs(ctx(), "buyer@tollan.example");
     const res = await q.goto(historyPath);
     expect(res?.status()).toBe(404);
     expect(await q.content()).not.toContain("TR-2026-0041");
     await q.close();
     // The installer works on jobs on this head, so they read its history (what an after-crash
     // re-check needs).
-    await ctx.clearCookies();
-    const inst = await ctx.newPage();
-    await signIn(inst, "installer@halvard.example");
-    await inst.waitForURL("**/jobs");
+    const inst = await pageAs(ctx(), "installer@halvard.example");
     expect((await inst.goto(historyPath))?.status()).toBe(200);
     expect(await inst.content()).toContain("TR-2026-0041");
     await inst.close();
-    await ctx.clearCookies();
-    const anon = await ctx.newPage();
+    await ctx().clearCookies();
+    const anon = await ctx().newPage();
     await anon.goto(historyPath);
     await anon.waitForURL(/\/login\?callbackUrl=/);
     await anon.close();
@@ -273,10 +251,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
   it("on a job the office moves to review through the checklist page, the engineer fits, is refused while measuring, then approves", async () => {
     // The seeded draft TR-2026-0057 (same head TH-2241): the administrator starts measuring on the
     // checklist page, as the office would for an unassigned job.
-    await ctx.clearCookies();
-    const admin = await ctx.newPage();
-    await signIn(admin, "admin@halvard.example");
-    await admin.waitForURL("**/jobs");
+    const admin = await pageAs(ctx(), "admin@halvard.example");
     await admin.getByRole("link", { name: "TR-2026-0057" }).click();
     await admin
       .getByRole("navigation", { name: "Job sections" })
@@ -287,10 +262,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     const checklistUrl = admin.url();
     await admin.close();
 
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "engineer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "engineer@halvard.example");
     const href = await p.getByRole("link", { name: "TR-2026-0057" }).getAttribute("href");
     const jobId = href!.split("/").pop()!;
     // Invented sphere-probe data from geometry's synthesiser (demo only) for this job's own head, uploaded through the datasets API.
@@ -313,10 +285,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     await p.close();
 
     // The office submits the job for review on the checklist page.
-    await ctx.clearCookies();
-    const admin2 = await ctx.newPage();
-    await signIn(admin2, "admin@halvard.example");
-    await admin2.waitForURL("**/jobs");
+    const admin2 = await pageAs(ctx(), "admin@halvard.example");
     await admin2.goto(checklistUrl);
     await admin2.getByRole("button", { name: "Submit for review" }).click();
     // A summary first (steps not measured, FAILs, readings waiting on this device), then submit.
@@ -326,10 +295,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     expect(await admin2.getByRole("button", { name: "Submit for review" }).count()).toBe(0);
     await admin2.close();
 
-    await ctx.clearCookies();
-    const e = await ctx.newPage();
-    await signIn(e, "engineer@halvard.example");
-    await e.waitForURL("**/jobs");
+    const e = await pageAs(ctx(), "engineer@halvard.example");
     await e.goto(analysisUrl);
     const approve2 = e.getByRole("button", { name: "Approve these parameters" });
     await approve2.waitFor();

@@ -7,7 +7,7 @@ import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from "node
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { chromium, type BrowserContext, type Locator, type Page } from "playwright-core";
-import { expect } from "vitest";
+import { afterAll, afterEach, beforeAll, expect } from "vitest";
 import { CHROMIUM_ARGS } from "./chromium-args";
 
 export const BASE_URL = process.env.E2E_BASE_URL ?? "http://127.0.0.1:3100";
@@ -38,6 +38,37 @@ export async function newContext(viewport = DESKTOP): Promise<BrowserContext> {
     }
   };
   return ctx;
+}
+
+/**
+ * A browser context for a test file, at this viewport: opened before the file's tests and closed
+ * after them. The routes a test set (a tablet going offline) are removed after each test, so a
+ * failed test never leaves the next one offline. Returns the context.
+ */
+export function contextForFile(viewport = DESKTOP): () => BrowserContext {
+  let ctx: BrowserContext | undefined;
+  beforeAll(async () => {
+    ctx = await newContext(viewport);
+  });
+  afterAll(async () => {
+    await ctx?.close();
+  });
+  afterEach(async () => {
+    await ctx?.unrouteAll({ behavior: "ignoreErrors" });
+  });
+  return () => ctx!;
+}
+
+/**
+ * A new page of the context, signed in as `email` through the sign-in page (the cookies of whoever
+ * used the context before cleared), on the jobs list it lands on.
+ */
+export async function pageAs(ctx: BrowserContext, email: string): Promise<Page> {
+  await ctx.clearCookies();
+  const p = await ctx.newPage();
+  await signIn(p, email);
+  await p.waitForURL("**/jobs");
+  return p;
 }
 
 /** Signs in through the real sign-in page, as a person would. */

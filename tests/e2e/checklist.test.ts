@@ -4,33 +4,13 @@
 // The demo values are invented (db/seed-checklists.ts). Does not change the job's status, so the
 // other browser tests see the seeded statuses. The same journey on the tablet is in
 // journeys-tablet.test.ts.
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Locator, Page } from "playwright-core";
-import { newContext, screenshotPath, signIn } from "./browser";
+import { describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { screenshotPath, signIn, contextForFile } from "./browser";
+import { chooseInstrument, openStep } from "./steps";
 
-let ctx: BrowserContext;
+const ctx = contextForFile();
 let jobHref: string;
-
-beforeAll(async () => {
-  ctx = await newContext();
-});
-afterAll(async () => {
-  await ctx?.close();
-});
-
-async function chooseInstrument(step: Locator, serial: string) {
-  const select = step.getByLabel("Instrument");
-  const label = (await select.locator("option", { hasText: serial }).textContent())!.trim();
-  await select.selectOption({ label });
-}
-
-/** One step is open at a time: open this one (its header button) unless it already is. */
-async function openStep(p: Page, n: number): Promise<Locator> {
-  const step = p.getByTestId(`step-${n}`);
-  const header = step.getByRole("button", { name: new RegExp(`^Step ${n}`) });
-  if ((await header.getAttribute("aria-expanded")) !== "true") await header.click();
-  return step;
-}
 
 async function openChecklist(p: Page) {
   await signIn(p, "installer@halvard.example");
@@ -42,8 +22,8 @@ async function openChecklist(p: Page) {
 
 describe("journey 4: readings before and after an adjustment, compared side by side", () => {
   it("records, refuses an expired instrument, corrects, and compares", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
+    await ctx().clearCookies();
+    const p = await ctx().newPage();
     await openChecklist(p);
     const step1 = await openStep(p, 1);
     // The limit is shown in the installer's inch units, with its source.

@@ -6,31 +6,26 @@
 // page uses, and the page judges it Pass against the procedure's limits; the draft report (PDF,
 // read back with poppler's pdftotext) prints all of it with the sign convention and the caution.
 import { execFileSync } from "node:child_process";
-import { mkdirSync, mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { mkdirSync } from "node:fs";
 import path from "node:path";
-import type { BrowserContext, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
 import { headPoseGrid, synthesiseSphereProbe } from "@/geometry";
-import { newContext, screenshotPath, seriousViolations, signIn, TABLET } from "./browser";
+import { screenshotPath, seriousViolations, signIn, TABLET, pageAs, contextForFile } from "./browser";
+import { pdfFile, pdfText } from "../pdf-tools";
+import { jobSection } from "./steps";
 
-let ctx: BrowserContext;
-let tablet: BrowserContext;
+const ctx = contextForFile({ width: 1440, height: 900 });
+const tablet = contextForFile(TABLET);
 
 beforeAll(async () => {
   mkdirSync(path.dirname(screenshotPath("x")), { recursive: true });
-  ctx = await newContext({ width: 1440, height: 900 });
-  tablet = await newContext(TABLET);
-});
-afterAll(async () => {
-  await ctx?.close();
-  await tablet?.close();
 });
 
 async function openControl(p: Page) {
   await p.goto("/jobs");
   await p.getByRole("link", { name: "TR-2026-0059" }).click();
-  await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Control" }).click();
+  await jobSection(p, "Control");
   await p.waitForURL(/\/control$/);
 }
 
@@ -64,10 +59,7 @@ function tcpCsv(): string {
 
 describe("the control loop on an after-crash job", () => {
   it("records as found and as left, flags a difference, passes a TCP check, and prints it all", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "engineer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "engineer@halvard.example");
     await openControl(p);
 
     // The seeded loop: values to enter shown, the sign convention and the caution beside them.
@@ -115,7 +107,7 @@ describe("the control loop on an after-crash job", () => {
     expect(await seriousViolations(p)).toEqual([]);
 
     // The installer uploads a TCP check (approved job: the one kind of data still taken).
-    await ctx.clearCookies();
+    await ctx().clearCookies();
     await p.goto("/login");
     await signIn(p, "installer@halvard.example");
     await p.waitForURL("**/jobs");
@@ -138,17 +130,14 @@ describe("the control loop on an after-crash job", () => {
     expect(await tcpCard.locator("[data-tcp-decision]").innerText()).toContain("Pass");
 
     // The draft report prints the loop and the check (staff only; read back with pdftotext).
-    await ctx.clearCookies();
+    await ctx().clearCookies();
     await p.goto("/login");
     await signIn(p, "engineer@halvard.example");
     await p.waitForURL("**/jobs");
     const pdf = await p.request.get(`/api/jobs/${jobId}/report/draft`);
     expect(pdf.status()).toBe(200);
-    const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-e2e-pdf-"));
-    writeFileSync(path.join(dir, "d.pdf"), await pdf.body());
-    const text = execFileSync("pdftotext", [path.join(dir, "d.pdf"), "-"])
-      .toString("utf8")
-      .replace(/\s+/g, " ");
+    const file = pdfFile(await pdf.body());
+    const text = pdfText(file, true);
     expect(text).toContain("5.1 Values for the control: as found, to enter, as left");
     expect(text).toContain(`${toEnter} mm`);
     expect(text).toContain("Differs from the value to enter");
@@ -164,15 +153,13 @@ describe("the control loop on an after-crash job", () => {
       "-png",
       "-r",
       "70",
-      path.join(dir, "d.pdf"),
+      file,
       screenshotPath("control-loop-draft").replace(/\.png$/, ""),
     ]);
   }, 120_000);
 
   it("reads on the tablet without sideways scrolling of the page", async () => {
-    const p = await tablet.newPage();
-    await signIn(p, "inspector@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(tablet(), "inspector@halvard.example");
     await openControl(p);
     // Below 900 px the table's rows are cards: the setting is still read as text.
     await expect

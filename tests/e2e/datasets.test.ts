@@ -3,19 +3,16 @@
 // before anything is sent, then a good one: preview, upload with progress, and the per-feature
 // pass/fail table with the job's decision rule stated; then signs the job as inspected.
 import { readFileSync } from "node:fs";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Page } from "playwright-core";
-import { newContext, screenshotPath, signIn, choose } from "./browser";
+import { beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { screenshotPath, signIn, choose, pageAs, contextForFile } from "./browser";
+import { decisionsOf, testPartEvaluation, jobSection } from "./steps";
 
-let ctx: BrowserContext;
+const ctx = contextForFile();
 let page: Page;
 
 beforeAll(async () => {
-  ctx = await newContext();
-  page = await ctx.newPage();
-});
-afterAll(async () => {
-  await ctx?.close();
+  page = await ctx().newPage();
 });
 
 const BAD = Buffer.from(
@@ -34,7 +31,7 @@ describe("inspector: test-part data to a judged table", () => {
     await page.waitForURL("**/jobs");
     await page.getByRole("link", { name: "TR-2026-0052" }).click();
     await page.waitForURL(/\/jobs\/[0-9a-f-]{36}$/);
-    await page.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Data" }).click();
+    await jobSection(page, "Data");
     await page.waitForURL(/\/data$/);
     await expect
       .poll(() => page.getByRole("heading", { name: "Add measurement data" }).isVisible())
@@ -70,20 +67,12 @@ describe("inspector: test-part data to a judged table", () => {
     await page.screenshot({ path: screenshotPath("datasets-preview"), fullPage: true });
     await page.getByRole("button", { name: "Upload and check" }).click();
     await page.waitForURL(/\/data\/[0-9a-f-]{36}$/);
-    const table = page.getByRole("table", { name: "Test-part evaluation" });
-    await table.waitFor();
+    await testPartEvaluation(page).waitFor();
     const rule = await page.getByTestId("decision-rule").innerText();
     expect(rule).toContain("guarded acceptance");
     expect(rule).toContain("ISO 14253-1");
     // Same decisions as worked by hand in tests/integration/datasets.test.ts (ISO 14253-1, U = 0.002 mm).
-    const rows = await table
-      .locator("tbody tr")
-      .evaluateAll((trs) =>
-        trs.map((tr) => [
-          tr.children[0]!.textContent,
-          tr.querySelector("[data-decision]")!.getAttribute("data-decision"),
-        ]),
-      );
+    const rows = await decisionsOf(testPartEvaluation(page));
     expect(rows).toEqual([
       ["Bore A", "pass"],
       ["Bore B", "fail"],
@@ -156,15 +145,12 @@ describe("column mapping chosen by hand", () => {
 
 describe("customer: their own company's data only", () => {
   it("the Marlow Creek buyer lists and opens the seeded test-part data of TR-2026-0041 but may not upload", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "buyer@marlowcreek.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "buyer@marlowcreek.example");
     const href = await p.getByRole("link", { name: "TR-2026-0041" }).getAttribute("href");
     await p.goto(`${href}/data`);
     await p.getByRole("link", { name: "Test-part measurements" }).first().click();
     await p.waitForURL(/\/data\/[0-9a-f-]{36}$/);
-    await p.getByRole("table", { name: "Test-part evaluation" }).waitFor();
+    await testPartEvaluation(p).waitFor();
     expect(await p.getByTestId("decision-rule").innerText()).toContain("simple acceptance");
     const dataUrl = p.url();
     await p.goto(`${href}/data`);
@@ -172,10 +158,7 @@ describe("customer: their own company's data only", () => {
     await p.screenshot({ path: screenshotPath("datasets-customer-list"), fullPage: true });
     await p.close();
 
-    await ctx.clearCookies();
-    const q = await ctx.newPage();
-    await signIn(q, "buyer@tollan.example");
-    await q.waitForURL("**/jobs");
+    const q = await pageAs(ctx(), "buyer@tollan.example");
     const res = await q.goto(dataUrl);
     expect(res?.status()).toBe(404);
     expect(await q.content()).not.toContain("Bore A");

@@ -1,22 +1,15 @@
 // Journeys of the foundation in Debian's Chromium against the built app: sign in as each role
 // and see that role's navigation; tenant isolation by URL; sign-in errors; sign-out.
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Page } from "playwright-core";
-import { newContext, screenshotPath, signIn } from "./browser";
+import { describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { newContext, screenshotPath, signIn, contextForFile } from "./browser";
 
-let ctx: BrowserContext;
+const ctx = contextForFile();
 let page: Page;
 
-beforeAll(async () => {
-  ctx = await newContext();
-});
-afterAll(async () => {
-  await ctx?.close();
-});
-
 async function fresh(): Promise<Page> {
-  await ctx.clearCookies();
-  page = await ctx.newPage();
+  await ctx().clearCookies();
+  page = await ctx().newPage();
   return page;
 }
 

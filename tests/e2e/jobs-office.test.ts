@@ -4,7 +4,7 @@
 // on the tablet. Screenshots of the board and the form at 1440×900 and 820×1180.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
-import { mailTo, newContext, screenshotPath, scrollsSideways, signIn, TABLET } from "./browser";
+import { mailTo, newContext, screenshotPath, scrollsSideways, signIn, TABLET, pageAs } from "./browser";
 
 const OFFICE = { width: 1440, height: 900 };
 let office: BrowserContext;
@@ -105,10 +105,7 @@ describe("jobs office journey", () => {
   });
 
   it("the new-job form fits the tablet width", async () => {
-    await tablet.clearCookies();
-    const p = await tablet.newPage();
-    await signIn(p, "admin@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(tablet, "admin@halvard.example");
     await p.goto("/jobs/new");
     await expect.poll(() => p.getByRole("heading", { name: "New job" }).count()).toBe(1);
     expect(await scrollsSideways(p)).toBe(false);
@@ -119,10 +116,7 @@ describe("jobs office journey", () => {
   });
 
   it("the office puts the job on hold, releases it and cancels it with a reason; it stays readable", async () => {
-    await office.clearCookies();
-    const p = await office.newPage();
-    await signIn(p, "admin@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(office, "admin@halvard.example");
     await p.getByRole("link", { name: reference }).click();
     await p.waitForURL(/\/jobs\/[0-9a-f-]{36}$/);
     const status = () =>

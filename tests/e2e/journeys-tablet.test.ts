@@ -15,42 +15,39 @@
 // Journey 4 records an after-adjustment reading on TR-2026-0052 (step 5, which no other test
 // records on) and compares it with the one before.
 import { readFileSync } from "node:fs";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
 import {
   canvasPixels,
   followReportMail,
   mailTo,
-  newContext,
   screenshotPath,
   scrollsSideways,
   seriousViolations,
-  signIn,
   TABLET,
   waitForPicture,
   choose,
   signApproval,
+  pageAs,
+  contextForFile,
 } from "./browser";
-import { uploadSyntheticProbe } from "./steps";
+import {
+  chooseInstrument,
+  decisionsOf,
+  testPartEvaluation,
+  uploadSyntheticProbe,
+  jobSection,
+  downloadSignedPdf,
+} from "./steps";
 
-let ctx: BrowserContext;
+const ctx = contextForFile(TABLET);
 let jobPath = "";
 let pdfPath = "";
 const REF = "TR-2026-0048";
 
-beforeAll(async () => {
-  ctx = await newContext(TABLET);
-});
-afterAll(async () => {
-  await ctx?.close();
-});
-
 /** A fresh page signed in as this person, on their jobs list. */
 async function as(email: string): Promise<Page> {
-  await ctx.clearCookies();
-  const p = await ctx.newPage();
-  await signIn(p, email);
-  await p.waitForURL("**/jobs");
+  const p = await pageAs(ctx(), email);
   return p;
 }
 
@@ -65,7 +62,7 @@ async function openSection(p: Page, reference: string, section: string) {
   await p.getByRole("link", { name: reference }).click();
   await p.waitForURL(/\/jobs\/[0-9a-f-]{36}$/);
   jobPath = new URL(p.url()).pathname;
-  await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: section }).click();
+  await jobSection(p, section);
   await p.waitForURL(new RegExp(`/${section.toLowerCase()}$`));
 }
 
@@ -100,7 +97,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     expect((await upload.boundingBox())!.height).toBeGreaterThanOrEqual(44);
     await upload.click();
     await p.waitForURL(/\/data\/[0-9a-f-]{36}$/);
-    const table = p.getByRole("table", { name: "Test-part evaluation" });
+    const table = testPartEvaluation(p);
     await table.waitFor();
     // TR-2026-0048 judges by simple acceptance: inside the tolerance zone conforms, whatever U is
     // (ISO 14253-1:2017, simple acceptance; ILAC-G8:09/2019, from memory). Worked by hand from
@@ -108,14 +105,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     // inside their zones (Face 1 0.0035 ≤ 0.004, Pocket D 8.0041 ≤ 8.005), where the guarded rule
     // of TR-2026-0052 leaves those two undecided (datasets.test.ts).
     expect(await p.getByTestId("decision-rule").innerText()).toContain("simple acceptance");
-    const rows = await table
-      .locator("tbody tr")
-      .evaluateAll((trs) =>
-        trs.map((tr) => [
-          tr.children[0]!.textContent,
-          tr.querySelector("[data-decision]")!.getAttribute("data-decision"),
-        ]),
-      );
+    const rows = await decisionsOf(table);
     expect(rows).toEqual([
       ["Bore A", "pass"],
       ["Bore B", "fail"],
@@ -129,7 +119,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     await p.screenshot({ path: screenshotPath("tablet-j1-evaluation"), fullPage: true });
 
     // Signs the work as inspected on the Report section: wrong password refused, then signed.
-    await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Report" }).click();
+    await jobSection(p, "Report");
     await p.waitForURL(/\/report$/);
     await fitsTheTablet(p, "report page before issue");
     const form = p.getByRole("form", { name: "Sign as inspected" });
@@ -193,7 +183,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     // Before issue the Report tab lists what stands in the way, each with a link: the work is not
     // signed as performed, the inspector's signature went stale when the sphere-probe data came
     // after it, and Bore B of the test part is a FAIL (ISO/IEC 17025:2017 §7.8.2.1 p, §7.8.6).
-    await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Report" }).click();
+    await jobSection(p, "Report");
     await p.waitForURL(/\/report$/);
     const blockers = p.getByRole("list", { name: "Before issue" });
     await blockers.waitFor();
@@ -257,7 +247,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
   });
 
   it("journey 3: the buyer follows the e-mail, reads the report, downloads the PDF and rejects it with a comment", async () => {
-    const p = await followReportMail(ctx, "buyer@tollan.example", REF, (page) =>
+    const p = await followReportMail(ctx(), "buyer@tollan.example", REF, (page) =>
       fitsTheTablet(page, "sign-in page"),
     );
     const article = p.getByRole("article", { name: "Acceptance report" });
@@ -266,12 +256,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     expect(await article.innerText()).toContain("TH-1907");
     await fitsTheTablet(p, "report page, customer");
     await p.screenshot({ path: screenshotPath("tablet-j3-report"), fullPage: true });
-    const [download] = await Promise.all([
-      p.waitForEvent("download"),
-      p.getByRole("link", { name: "Download signed PDF" }).click(),
-    ]);
-    pdfPath = screenshotPath("tablet-report").replace(/\.png$/, ".pdf");
-    await download.saveAs(pdfPath);
+    pdfPath = await downloadSignedPdf(p, "tablet-report");
     expect(readFileSync(pdfPath).subarray(0, 5).toString()).toBe("%PDF-");
 
     // A comment of spaces is refused by the server, naming the reason; then the rejection is signed.
@@ -318,8 +303,8 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
   });
 
   it("journey 3, last: anyone holding the PDF verifies it on the public page", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
+    await ctx().clearCookies();
+    const p = await ctx().newPage();
     await p.goto("/verify");
     await fitsTheTablet(p, "/verify");
     await p.getByLabel("Report PDF").setInputFiles(pdfPath);
@@ -354,10 +339,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     await expect
       .poll(() => step5.getByTestId("live-5").innerText())
       .toMatch(/Pass[\s\S]*5\.2″ \(25\.0 µm\/m\)/);
-    const instrument = step5.getByLabel("Instrument");
-    await instrument.selectOption({
-      label: (await instrument.locator("option", { hasText: "DTI-0112" }).textContent())!.trim(),
-    });
+    await chooseInstrument(step5, "DTI-0112");
     await step5.getByRole("button", { name: "Save reading" }).click();
     await expect
       .poll(() => step5.getByRole("status").innerText(), { timeout: 15_000 })

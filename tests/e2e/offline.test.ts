@@ -5,31 +5,16 @@
 // context aborted (Playwright routes the service worker's own fetches too), because the browser's
 // offline switch is not reliable once a service worker controls the page. Works on steps 2 and 3
 // of TR-2026-0052, which no other browser test records on.
-import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Locator, Page } from "playwright-core";
-import { newContext, screenshotPath, scrollsSideways, signIn, TABLET } from "./browser";
+import { describe, expect, it } from "vitest";
+import type { Locator, Page } from "playwright-core";
+import { screenshotPath, scrollsSideways, pageAs, contextForFile, TABLET } from "./browser";
+import { chooseInstrument, offline, openStep } from "./steps";
 
-let ctx: BrowserContext;
+const tablet = contextForFile(TABLET);
 let jobPath = "";
 
-beforeAll(async () => {
-  ctx = await newContext(TABLET);
-});
-afterAll(async () => {
-  await ctx?.close();
-});
-// A failed test must not leave the next one offline.
-afterEach(async () => {
-  await ctx?.unrouteAll({ behavior: "ignoreErrors" });
-});
-
-const offline = (r: { abort: (code: string) => Promise<void> }) => r.abort("internetdisconnected");
-
 async function openChecklist(): Promise<Page> {
-  await ctx.clearCookies();
-  const p = await ctx.newPage();
-  await signIn(p, "installer@halvard.example");
-  await p.waitForURL("**/jobs");
+  const p = await pageAs(tablet(), "installer@halvard.example");
   jobPath = (await p.getByRole("link", { name: "TR-2026-0052" }).getAttribute("href"))!;
   await p.goto(`${jobPath}/checklist`);
   await expect.poll(() => p.getByRole("heading", { name: "Procedure checklist" }).isVisible()).toBe(true);
@@ -40,19 +25,9 @@ async function openChecklist(): Promise<Page> {
   return p;
 }
 
-async function openStep(p: Page, n: number): Promise<Locator> {
-  const step = p.getByTestId(`step-${n}`);
-  const header = step.getByRole("button", { name: new RegExp(`^Step ${n}`) });
-  if ((await header.getAttribute("aria-expanded")) !== "true") await header.click();
-  return step;
-}
-
 async function record(step: Locator, phase: string, value: string, serial: string, label: RegExp) {
   await step.getByLabel(phase).check();
-  const select = step.getByLabel("Instrument");
-  await select.selectOption({
-    label: (await select.locator("option", { hasText: serial }).textContent())!.trim(),
-  });
+  await chooseInstrument(step, serial);
   await step.getByLabel(label).fill(value);
   await step.getByRole("button", { name: "Save reading" }).click();
 }
@@ -90,7 +65,7 @@ const PRIMARY = /Primary axis: indicator difference.*\(in\)/;
 describe("offline capture on the tablet", () => {
   it("keeps three readings and a correction typed offline through a reload, then stores each once", async () => {
     const p = await openChecklist();
-    await ctx.route("**/*", offline);
+    await tablet().route("**/*", offline);
 
     const step2 = await openStep(p, 2);
     await record(step2, "Before adjustment", "0.0040", "FG-0031", GAP);
@@ -119,7 +94,7 @@ describe("offline capture on the tablet", () => {
     expect(ids).toHaveLength(4);
 
     // The connection returns: the installer taps "Send now" and the queue empties.
-    await ctx.unroute("**/*", offline);
+    await tablet().unroute("**/*", offline);
     await p.getByRole("button", { name: "Send now" }).click();
     await expect
       .poll(() => p.getByTestId("queue-status").innerText(), { timeout: 20_000 })
@@ -136,7 +111,7 @@ describe("offline capture on the tablet", () => {
   it("retries with backoff while the server answers 503, then stores the reading once", async () => {
     const p = await openChecklist();
     let refusedSends = 0;
-    await ctx.route("**/api/jobs/*/readings", async (route) => {
+    await tablet().route("**/api/jobs/*/readings", async (route) => {
       if (route.request().method() === "POST" && refusedSends < 2) {
         refusedSends++;
         await route.fulfill({
@@ -158,7 +133,7 @@ describe("offline capture on the tablet", () => {
     expect(refusedSends).toBe(2);
     const stored = await storedReadings(p);
     expect(stored.filter((r) => r.clientId === ids[0])).toHaveLength(1);
-    await ctx.unrouteAll();
+    await tablet().unrouteAll();
     await p.close();
   });
 

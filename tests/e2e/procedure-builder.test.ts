@@ -2,25 +2,25 @@
 // step whose missing limit source is named beside its field, and a photo-required record step;
 // moves a step with the keyboard (focus follows it), creates the procedure, saves the version,
 // retires it and brings it back. Screenshots at 1440×900 and on the tablet (820×1180).
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Page } from "playwright-core";
-import { newContext, screenshotPath, seriousViolations, signIn, TABLET } from "./browser";
+import { describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import {
+  newContext,
+  screenshotPath,
+  seriousViolations,
+  signIn,
+  TABLET,
+  contextForFile,
+  pageAs,
+} from "./browser";
 
-let ctx: BrowserContext;
-beforeAll(async () => {
-  ctx = await newContext({ width: 1440, height: 900 });
-});
-afterAll(async () => {
-  await ctx?.close();
-});
+const ctx = contextForFile({ width: 1440, height: 900 });
 
 const step = (p: Page, n: number) => p.getByRole("listitem", { name: new RegExp(`^Step ${n}:`) });
 
 describe("procedure builder (administrator)", () => {
   it("builds, reorders, creates, saves, retires and brings back a procedure", async () => {
-    const p = await ctx.newPage();
-    await signIn(p, "admin@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "admin@halvard.example");
     await p.goto("/registers/procedures");
     await p.getByRole("link", { name: "New procedure" }).click();
     await p.waitForURL("**/registers/procedures/new");

@@ -7,31 +7,26 @@
 //  - the customer downloads the demo's issued report, which says the results relate only to the
 //    item tested (§7.8.2.1 k), and the public page vouches for that very file by its SHA-256.
 // Resolving blockers with a deviation and issuing are walked end to end in journeys-tablet.test.ts.
-import { execFileSync } from "node:child_process";
 import { createHash } from "node:crypto";
 import { readFileSync, writeFileSync } from "node:fs";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext } from "playwright-core";
-import { newContext, screenshotPath, scrollsSideways, seriousViolations, signIn, TABLET } from "./browser";
+import { describe, expect, it } from "vitest";
+import {
+  screenshotPath,
+  scrollsSideways,
+  seriousViolations,
+  signIn,
+  TABLET,
+  pageAs,
+  contextForFile,
+} from "./browser";
+import { pdfText } from "../pdf-tools";
+import { jobSection, downloadSignedPdf } from "./steps";
 
-let ctx: BrowserContext;
-
-beforeAll(async () => {
-  ctx = await newContext({ width: 1440, height: 900 });
-});
-afterAll(async () => {
-  await ctx?.close();
-});
-
-const pdfText = (file: string) =>
-  execFileSync("pdftotext", [file, "-"]).toString("utf8").replace(/\s+/g, " ");
+const ctx = contextForFile({ width: 1440, height: 900 });
 
 describe("records on the report", () => {
   it("the administrator keeps the issuer's details; the engineer has no such page", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "admin@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "admin@halvard.example");
     await p.goto("/registers");
     await p
       .getByRole("navigation", { name: "Registers" })
@@ -61,23 +56,20 @@ describe("records on the report", () => {
       .toContainEqual(expect.stringContaining("Reports issued from now on"));
     await p.close();
 
-    await ctx.clearCookies();
-    const e = await ctx.newPage();
-    await signIn(e, "engineer@halvard.example");
-    await e.waitForURL("**/jobs");
+    const e = await pageAs(ctx(), "engineer@halvard.example");
     const res = await e.goto("/registers/settings");
     expect(res?.status()).toBe(404);
     await e.close();
   });
 
   it("the engineer sees the blockers and previews the draft with its record details", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
+    await ctx().clearCookies();
+    const p = await ctx().newPage();
     await p.setViewportSize({ width: 1440, height: 900 });
     await signIn(p, "engineer@halvard.example");
     await p.waitForURL("**/jobs");
     await p.getByRole("link", { name: "TR-2026-0052" }).click();
-    await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Report" }).click();
+    await jobSection(p, "Report");
     const blockers = p.getByRole("list", { name: "Before issue" });
     await blockers.waitFor();
     const codes = await blockers
@@ -91,7 +83,7 @@ describe("records on the report", () => {
     expect(draft.status()).toBe(200);
     const file = screenshotPath("records-draft").replace(/\.png$/, ".pdf");
     writeFileSync(file, await draft.body());
-    const text = pdfText(file);
+    const text = pdfText(file, true);
     expect(text).toContain("DRAFT");
     expect(text).toContain("2a Record details and traceability");
     // pdftotext reads the label column and the value column of a block apart, so each is checked.
@@ -107,26 +99,18 @@ describe("records on the report", () => {
   });
 
   it("the customer downloads the issued report and the public page vouches for that file", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "buyer@marlowcreek.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "buyer@marlowcreek.example");
     await p.getByRole("link", { name: "TR-2026-0041" }).click();
-    await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Report" }).click();
+    await jobSection(p, "Report");
     const article = p.getByRole("article", { name: "Acceptance report" });
     await expect.poll(() => article.innerText()).toContain("2a Record details and traceability");
     expect(await article.innerText()).toContain("PO 4500-7781 (invented)");
-    const [download] = await Promise.all([
-      p.waitForEvent("download"),
-      p.getByRole("link", { name: "Download signed PDF" }).click(),
-    ]);
-    const file = screenshotPath("records-issued").replace(/\.png$/, ".pdf");
-    await download.saveAs(file);
-    expect(pdfText(file)).toContain("The results relate only to the item tested");
+    const file = await downloadSignedPdf(p, "records-issued");
+    expect(pdfText(file, true)).toContain("The results relate only to the item tested");
     await p.close();
 
-    await ctx.clearCookies();
-    const v = await ctx.newPage();
+    await ctx().clearCookies();
+    const v = await ctx().newPage();
     await v.goto("/verify");
     await v.getByLabel("Report PDF").setInputFiles(file);
     const result = v.getByTestId("verification-result");

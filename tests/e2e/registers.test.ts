@@ -1,23 +1,14 @@
 // The administrator's registers in the browser: instruments with their calibration state (and
 // adding one), procedures with versioned limits, inviting a person (the e-mail goes through the
 // outbox and the app's worker), and the outbox page.
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext } from "playwright-core";
-import { newContext, screenshotPath, signIn } from "./browser";
+import { describe, expect, it } from "vitest";
+import { screenshotPath, contextForFile, pageAs } from "./browser";
 
-let ctx: BrowserContext;
-beforeAll(async () => {
-  ctx = await newContext();
-});
-afterAll(async () => {
-  await ctx?.close();
-});
+const ctx = contextForFile();
 
 describe("registers (administrator)", () => {
   it("instruments show their calibration state; a new one is added with a clear error first", async () => {
-    const p = await ctx.newPage();
-    await signIn(p, "admin@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "admin@halvard.example");
     await p.goto("/registers/instruments");
     const past = p.locator("tr", { hasText: "DTI-0417" });
     expect(await past.innerText()).toMatch(/Past due — refused/);
@@ -41,7 +32,7 @@ describe("registers (administrator)", () => {
   });
 
   it("invites a person by e-mail; the message is queued and sent by the app's worker", async () => {
-    const p = await ctx.newPage();
+    const p = await ctx().newPage();
     await p.goto("/registers/people");
     const email = `new.${Date.now().toString(36)}@halvard.example`;
     await p.getByLabel("Name").fill("Nadia Field");

@@ -1,46 +1,34 @@
 // Journey 3 of the product brief in Debian's Chromium: the customer reads the issued report
 // online, downloads the signed PDF and accepts it with a counter-signature; the engineer sees
 // the acceptance; anyone holding the PDF verifies it on the public page, and a tampered copy fails.
-import { execFileSync } from "node:child_process";
 import { createHash } from "node:crypto";
 import { readFileSync, writeFileSync } from "node:fs";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext } from "playwright-core";
-import { followReportMail, newContext, screenshotPath, signIn } from "./browser";
+import { describe, expect, it } from "vitest";
+import { followReportMail, screenshotPath, pageAs, contextForFile } from "./browser";
+import { pdfText } from "../pdf-tools";
+import { jobSection, downloadSignedPdf } from "./steps";
 
-let ctx: BrowserContext;
+const ctx = contextForFile();
 let pdfPath = "";
-
-beforeAll(async () => {
-  ctx = await newContext();
-});
-afterAll(async () => {
-  await ctx?.close();
-});
 
 describe("journey 3: the customer accepts the signed report", () => {
   it("gets the e-mail, follows its link, reads the report online and downloads the signed PDF", async () => {
-    const p = await followReportMail(ctx, "buyer@marlowcreek.example", "TR-2026-0041");
+    const p = await followReportMail(ctx(), "buyer@marlowcreek.example", "TR-2026-0041");
     const article = p.getByRole("article", { name: "Acceptance report" });
     await expect.poll(() => article.innerText()).toContain("END OF REPORT");
     expect(await article.innerText()).toContain("Marlow Creek Aerostructures");
     expect(await article.innerText()).toMatch(/Approved and issued[\s\S]*Emil Haraldsen[\s\S]*UTC/);
-    const [download] = await Promise.all([
-      p.waitForEvent("download"),
-      p.getByRole("link", { name: "Download signed PDF" }).click(),
-    ]);
-    pdfPath = screenshotPath("downloaded-report").replace(/\.png$/, ".pdf");
-    await download.saveAs(pdfPath);
+    pdfPath = await downloadSignedPdf(p, "downloaded-report");
     expect(readFileSync(pdfPath).subarray(0, 5).toString()).toBe("%PDF-");
     // The page and the signed file say the same: the same figures with the same captions, and
     // each parameter's limit and result (pdftotext, poppler's reader, for the file).
-    const pdfText = execFileSync("pdftotext", [pdfPath, "-"]).toString("utf8").replace(/\s+/g, " ");
+    const fileText = pdfText(pdfPath, true);
     const captions = (await article.locator("figcaption").allInnerTexts()).map((t) =>
       t.replace(/\s+/g, " ").trim(),
     );
     expect(captions.length, "the online report has figures").toBeGreaterThanOrEqual(2);
-    for (const c of captions) expect(pdfText, c).toContain(c.slice(0, 60));
-    expect(pdfText.match(/Figure \d+\./g)?.length).toBe(captions.length);
+    for (const c of captions) expect(fileText, c).toContain(c.slice(0, 60));
+    expect(fileText.match(/Figure \d+\./g)?.length).toBe(captions.length);
     const paramRows = await article
       .getByRole("table")
       .filter({ hasText: "ISO 230-1" })
@@ -49,21 +37,18 @@ describe("journey 3: the customer accepts the signed report", () => {
     expect(paramRows.length).toBe(10);
     for (const r of paramRows) {
       const [name, symbol, , , tolerance] = r.split("\t").map((x) => x.trim());
-      expect(pdfText).toContain(symbol!);
-      expect(pdfText).toContain(name!.slice(0, 20));
-      if (tolerance && tolerance !== "—") expect(pdfText).toContain(tolerance);
+      expect(fileText).toContain(symbol!);
+      expect(fileText).toContain(name!.slice(0, 20));
+      if (tolerance && tolerance !== "—") expect(fileText).toContain(tolerance);
     }
     await p.screenshot({ path: screenshotPath("report-customer"), fullPage: true });
     await p.close();
   });
 
   it("refuses to sign without the password, then accepts with it", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "buyer@marlowcreek.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "buyer@marlowcreek.example");
     await p.getByRole("link", { name: "TR-2026-0041" }).click();
-    await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Report" }).click();
+    await jobSection(p, "Report");
     const accept = p.getByRole("form", { name: "Accept the report" });
     await accept.getByLabel("Your password").fill("not-my-password");
     await accept.getByRole("button", { name: "Accept" }).click();
@@ -78,22 +63,19 @@ describe("journey 3: the customer accepts the signed report", () => {
   });
 
   it("the engineer sees the acceptance", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "engineer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "engineer@halvard.example");
     const row = p.locator("tr", { hasText: "TR-2026-0041" });
     await expect.poll(() => row.innerText()).toContain("Accepted");
     await row.getByRole("link", { name: "TR-2026-0041" }).click();
-    await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Report" }).click();
+    await jobSection(p, "Report");
     const sigs = await p.getByRole("complementary", { name: "Signatures" }).innerText();
     expect(sigs).toMatch(/Accepted by the customer[\s\S]*Morgan Tate — Customer[\s\S]*UTC/);
     await p.close();
   });
 
   it("anyone holding the PDF verifies it on the public page; a changed byte fails", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
+    await ctx().clearCookies();
+    const p = await ctx().newPage();
     await p.goto("/verify");
     await p.getByLabel("Report PDF").setInputFiles(pdfPath);
     const result = p.getByTestId("verification-result");
@@ -112,7 +94,7 @@ describe("journey 3: the customer accepts the signed report", () => {
     await expect.poll(() => result.innerText()).toContain("Not verified");
     // The QR code's page states what the service holds and vouches for no file by itself; the
     // customer's comments are not part of the public answer.
-    const text = execFileSync("pdftotext", [pdfPath, "-"]).toString("utf8");
+    const text = pdfText(pdfPath);
     const id = /\/verify\/([0-9a-f-]{36})/.exec(text.replace(/\s+/g, ""))![1]!;
     await p.goto(`/verify/${id}`);
     const held = p.getByTestId("verification-result");

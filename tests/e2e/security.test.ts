@@ -2,19 +2,13 @@
 // sign-in (OWASP ASVS v4.0.3 5.1.5) and getting back in with a forgotten password through a
 // single-use e-mailed link (2.5.1, 2.5.2, 2.5.4). The reset flow asks for one of the three reset
 // e-mails an account may get per hour, so more than three runs an hour against one database fail.
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
 import { existsSync, readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
-import { BASE_URL, DEMO_PASSWORD, newContext, signIn } from "./browser";
+import { BASE_URL, DEMO_PASSWORD, signIn, contextForFile } from "./browser";
 
-let ctx: BrowserContext;
-beforeAll(async () => {
-  ctx = await newContext();
-});
-afterAll(async () => {
-  await ctx?.close();
-});
+const ctx = contextForFile();
 
 const MAIL_DIR = process.env.E2E_MAIL_DIR ?? "";
 const mailFiles = () => new Set(existsSync(MAIL_DIR) ? readdirSync(MAIL_DIR) : []);
@@ -32,8 +26,8 @@ async function newMailTo(address: string, match: RegExp, before: Set<string>): P
 }
 
 async function fresh(): Promise<Page> {
-  await ctx.clearCookies();
-  return ctx.newPage();
+  await ctx().clearCookies();
+  return ctx().newPage();
 }
 
 describe("after sign-in the browser stays on the app", () => {

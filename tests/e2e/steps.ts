@@ -1,8 +1,61 @@
 // Steps several browser tests share. Before writing a step into a test file, look here and in
 // browser.ts (contexts, sign-in, screenshots, accessibility, mail).
-import type { Page } from "playwright-core";
+import type { Locator, Page } from "playwright-core";
 import { expect } from "vitest";
 import { headPoseGrid, synthesiseSphereProbe, type HeadErrors } from "@/geometry";
+import { screenshotPath } from "./browser";
+
+/**
+ * A route handler that makes the tablet offline: every request aborted, the service worker's own
+ * fetches too (the browser's offline switch is not reliable once a service worker controls the page).
+ */
+export const offline = (r: { abort: (code: string) => Promise<void> }) => r.abort("internetdisconnected");
+
+/** One step of the checklist is open at a time: open this one (its header button) unless it already is. */
+export async function openStep(p: Page, n: number): Promise<Locator> {
+  const step = p.getByTestId(`step-${n}`);
+  const header = step.getByRole("button", { name: new RegExp(`^Step ${n}`) });
+  if ((await header.getAttribute("aria-expanded")) !== "true") await header.click();
+  return step;
+}
+
+/** Opens a section of the job page (Data, Checklist, Report, …) from its "Job sections" navigation. */
+export async function jobSection(p: Page, section: string): Promise<void> {
+  await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: section }).click();
+}
+
+/** Downloads the report page's signed PDF beside the screenshots as `<name>.pdf` and returns its path. */
+export async function downloadSignedPdf(p: Page, name: string): Promise<string> {
+  const [download] = await Promise.all([
+    p.waitForEvent("download"),
+    p.getByRole("link", { name: "Download signed PDF" }).click(),
+  ]);
+  const file = screenshotPath(name).replace(/\.png$/, ".pdf");
+  await download.saveAs(file);
+  return file;
+}
+
+/** The test-part evaluation table of an uploaded dataset's page. */
+export const testPartEvaluation = (p: Page) => p.getByRole("table", { name: "Test-part evaluation" });
+
+/** Each row of an evaluation table as [feature, decision] (the row's `data-decision`). */
+export function decisionsOf(table: Locator): Promise<(string | null)[][]> {
+  return table
+    .locator("tbody tr")
+    .evaluateAll((trs) =>
+      trs.map((tr) => [
+        tr.children[0]!.textContent,
+        tr.querySelector("[data-decision]")!.getAttribute("data-decision"),
+      ]),
+    );
+}
+
+/** Chooses the registered instrument with this serial in a checklist step's instrument list. */
+export async function chooseInstrument(step: Locator, serial: string): Promise<void> {
+  const select = step.getByLabel("Instrument");
+  const label = (await select.locator("option", { hasText: serial }).textContent())!.trim();
+  await select.selectOption({ label });
+}
 
 /**
  * Invented sphere-probe data (demo only) from geometry's synthesiser for the job's own head, with

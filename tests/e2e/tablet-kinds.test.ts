@@ -5,32 +5,14 @@
 // stored exactly once and the photo is shown with its reading. "Offline" is every request of the
 // context aborted, as in offline.test.ts.
 import sharp from "sharp";
-import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Locator, Page } from "playwright-core";
-import { newContext, screenshotPath, scrollsSideways, signIn, TABLET } from "./browser";
+import { describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { screenshotPath, scrollsSideways, TABLET, pageAs, contextForFile } from "./browser";
+import { offline, openStep } from "./steps";
 
-let ctx: BrowserContext;
+const tablet = contextForFile(TABLET);
 let jobId = "";
 const TITLE = `Tablet kinds ${Date.now().toString(36)}`;
-
-beforeAll(async () => {
-  ctx = await newContext(TABLET);
-});
-afterAll(async () => {
-  await ctx?.close();
-});
-afterEach(async () => {
-  await ctx?.unrouteAll({ behavior: "ignoreErrors" });
-});
-
-const offline = (r: { abort: (code: string) => Promise<void> }) => r.abort("internetdisconnected");
-
-async function openStep(p: Page, n: number): Promise<Locator> {
-  const step = p.getByTestId(`step-${n}`);
-  const header = step.getByRole("button", { name: new RegExp(`^Step ${n}`) });
-  if ((await header.getAttribute("aria-expanded")) !== "true") await header.click();
-  return step;
-}
 
 async function queuedCount(p: Page): Promise<string> {
   return (await p.getByTestId("queue-count").count()) ? p.getByTestId("queue-count").innerText() : "0";
@@ -38,9 +20,7 @@ async function queuedCount(p: Page): Promise<string> {
 
 describe("every kind of step on the tablet", () => {
   it("the office opens a job with the after-collision procedure for the installer", async () => {
-    const admin = await ctx.newPage();
-    await signIn(admin, "admin@halvard.example");
-    await admin.waitForURL("**/jobs");
+    const admin = await pageAs(tablet(), "admin@halvard.example");
     await admin.goto("/registers/procedures");
     const card = admin.locator("section, article, div").filter({
       has: admin.getByRole("heading", { name: /Two-axis head check after a collision/ }),
@@ -78,14 +58,11 @@ describe("every kind of step on the tablet", () => {
 
   it("records a check, four points, a record value and a photo offline; online, each is stored once", async () => {
     expect(jobId).not.toBe("");
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "installer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(tablet(), "installer@halvard.example");
     await p.goto(`/jobs/${jobId}/checklist`);
     await expect.poll(() => p.getByRole("heading", { name: "Procedure checklist" }).isVisible()).toBe(true);
     await p.getByTestId("offline-ready").waitFor({ timeout: 30_000 });
-    await ctx.route("**/*", offline);
+    await tablet().route("**/*", offline);
 
     // Step 1: a yes/no check with two large buttons.
     const s1 = await openStep(p, 1);
@@ -132,7 +109,7 @@ describe("every kind of step on the tablet", () => {
     await expect.poll(() => s3.locator('tr[data-queued="waiting"]').innerText()).toMatch(/85 N·m/);
 
     // Back online: everything goes in order, each once.
-    await ctx.unroute("**/*", offline);
+    await tablet().unroute("**/*", offline);
     await p.getByRole("button", { name: "Send now" }).click();
     await expect
       .poll(() => p.getByTestId("queue-status").innerText(), { timeout: 30_000 })

@@ -21,7 +21,7 @@ import type { JobStatus } from "@/lib/domain/jobs";
 import type { ActionResult } from "@/lib/actions";
 import {
   BASE_JOB,
-  DEMO_PASSWORD,
+  DEMO_PASSWORD as PW,
   firstStepOf,
   insertTestJob,
   instrumentIdBySerial,
@@ -56,7 +56,6 @@ const ACCESS_CODES = new Set(["unauthorized", "forbidden", "not_found"]);
 /** Refusals about the input, not the person: a field to correct, a one-time link already used, or a job not yet ready for its report. */
 const DOMAIN_CODES = new Set(["invalid", "token_invalid", "not_ready"]);
 
-const PW = DEMO_PASSWORD;
 let marlow: JobBase;
 let installerId = "";
 let stepId = "";

@@ -36,7 +36,7 @@ import { upload } from "./dataset-helpers";
 import {
   allActors,
   BASE_JOB,
-  DEMO_PASSWORD,
+  DEMO_PASSWORD as PW,
   firstStepOf,
   instrumentIdBySerial,
   uploadDemoProbe,
@@ -44,7 +44,6 @@ import {
 } from "./fixtures";
 import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
-const PW = DEMO_PASSWORD;
 const as: Record<string, Actor> = {};
 let jobId = "";
 

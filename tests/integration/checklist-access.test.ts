@@ -4,86 +4,33 @@ import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET as comparisonCsvRoute } from "@/app/api/jobs/[id]/comparison/csv/route";
 import { GET as comparisonRoute } from "@/app/api/jobs/[id]/comparison/route";
-import { GET as readingsGet, POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
+import { GET as readingsGet } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
 import { instruments, jobs, templateSteps } from "@/db/schema";
-import { WHO, type Who } from "./fixtures";
+import { postReading, WHO, type Who } from "./fixtures";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
-/** GET of readings, comparison and its CSV: who may read which job. */
-const READ: Record<string, Record<Who, number>> = {
-  "TR-2026-0041": {
-    anonymous: 401,
-    admin: 200,
-    installer: 200,
-    inspector: 200,
-    engineer: 200,
-    "customer (Marlow Creek)": 200,
-    "customer (Tollan)": 404,
-  },
-  "TR-2026-0048": {
-    anonymous: 401,
-    admin: 200,
-    installer: 200,
-    inspector: 200,
-    engineer: 200,
-    "customer (Marlow Creek)": 404,
-    "customer (Tollan)": 200,
-  },
-  "TR-2026-0052": {
-    anonymous: 401,
-    admin: 200,
-    installer: 200,
-    inspector: 200,
-    engineer: 200,
-    "customer (Marlow Creek)": 200,
-    "customer (Tollan)": 404,
-  },
-  "TR-2026-0057": {
-    anonymous: 401,
-    admin: 200,
-    installer: 404,
-    inspector: 200,
-    engineer: 200,
-    "customer (Marlow Creek)": 200,
-    "customer (Tollan)": 404,
-  },
+/**
+ * Per role, one cell per job: `read` is GET of readings, comparison and its CSV; `write` is POST of
+ * a reading: 0052 is measuring (installer assigned), 0048 in review, 0041 issued. The office never
+ * records readings (segregation of duties, ISO/IEC 17025:2017 §7.5.1); the assigned installer and
+ * an application engineer do.
+ */
+const READ_JOBS = ["TR-2026-0041", "TR-2026-0048", "TR-2026-0052", "TR-2026-0057"];
+const WRITE_JOBS = ["TR-2026-0052", "TR-2026-0048", "TR-2026-0041"];
+const CELLS: Record<Who, { read: [number, number, number, number]; write: [number, number, number] }> = {
+  anonymous: { read: [401, 401, 401, 401], write: [401, 401, 401] },
+  admin: { read: [200, 200, 200, 200], write: [403, 403, 403] },
+  installer: { read: [200, 200, 200, 404], write: [201, 403, 403] },
+  inspector: { read: [200, 200, 200, 200], write: [403, 403, 403] },
+  engineer: { read: [200, 200, 200, 200], write: [201, 403, 403] },
+  "customer (Marlow Creek)": { read: [200, 404, 200, 200], write: [403, 404, 403] },
+  "customer (Tollan)": { read: [404, 200, 404, 404], write: [404, 403, 404] },
 };
 
-/**
- * POST of a reading: 0052 is measuring (installer assigned), 0048 in review, 0041 issued. The
- * office never records readings (segregation of duties, ISO/IEC 17025:2017 §7.5.1); the assigned
- * installer and an application engineer do.
- */
-const WRITE: Record<string, Record<Who, number>> = {
-  "TR-2026-0052": {
-    anonymous: 401,
-    admin: 403,
-    installer: 201,
-    inspector: 403,
-    engineer: 201,
-    "customer (Marlow Creek)": 403,
-    "customer (Tollan)": 404,
-  },
-  "TR-2026-0048": {
-    anonymous: 401,
-    admin: 403,
-    installer: 403,
-    inspector: 403,
-    engineer: 403,
-    "customer (Marlow Creek)": 404,
-    "customer (Tollan)": 403,
-  },
-  "TR-2026-0041": {
-    anonymous: 401,
-    admin: 403,
-    installer: 403,
-    inspector: 403,
-    engineer: 403,
-    "customer (Marlow Creek)": 403,
-    "customer (Tollan)": 404,
-  },
-};
+/** The cells of one job's column, role by role. */
+const column = (kind: "read" | "write", col: number) =>
+  (Object.keys(CELLS) as Who[]).map((who) => [who, CELLS[who][kind][col]!] as const);
 
 const ids: Record<string, string> = {};
 let validInstrument: string;
@@ -105,14 +52,14 @@ async function bodyFor(ref: string) {
 }
 
 beforeAll(async () => {
-  for (const ref of Object.keys(READ)) ids[ref] = await jobIdByReference(ref);
+  for (const ref of READ_JOBS) ids[ref] = await jobIdByReference(ref);
   const [i] = await db.select().from(instruments).where(eq(instruments.serial, "DTI-0112"));
   validInstrument = i!.id;
 });
 
 describe("checklist routes: access matrix", () => {
-  for (const [ref, cells] of Object.entries(READ)) {
-    for (const [who, expected] of Object.entries(cells) as [Who, number][]) {
+  for (const [col, ref] of READ_JOBS.entries()) {
+    for (const [who, expected] of column("read", col)) {
       it(`${who}: GET readings, comparison and CSV of ${ref} answer ${expected}`, async () => {
         await signInAs(WHO[who]);
         const ctx = { params: Promise.resolve({ id: ids[ref]! }) };
@@ -130,21 +77,13 @@ describe("checklist routes: access matrix", () => {
     }
   }
 
-  for (const [ref, cells] of Object.entries(WRITE)) {
-    for (const [who, expected] of Object.entries(cells) as [Who, number][]) {
+  for (const [col, ref] of WRITE_JOBS.entries()) {
+    for (const [who, expected] of column("write", col)) {
       it(`${who}: POST a reading to ${ref} answers ${expected}`, async () => {
         await signInAs(WHO[who]);
         const body = await bodyFor(ref);
-        const res = await readingsPost(
-          request(`/api/jobs/${ids[ref]}/readings`, {
-            method: "POST",
-            body: JSON.stringify(body),
-            headers: { "content-type": "application/json" },
-          }),
-          { params: Promise.resolve({ id: ids[ref]! }) },
-        );
-        expect(res.status).toBe(expected);
-        const json = await res.json();
+        const { status, json } = await postReading(ids[ref]!, body);
+        expect(status).toBe(expected);
         if (expected === 201)
           expect(json.reading).toMatchObject({ unit: "mm", entered: { value: 0.0004, unit: "in" } });
         if (expected === 404) expect(json).toEqual({ error: { code: "not_found", message: "No such job." } });

@@ -9,7 +9,7 @@ import { SMTPServer } from "smtp-server";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { GET as comparisonRoute } from "@/app/api/jobs/[id]/comparison/route";
 import { GET as comparisonCsvRoute } from "@/app/api/jobs/[id]/comparison/csv/route";
-import { GET as readingsGet, POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
+import { GET as readingsGet } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
 import { changeJobStatus } from "@/db/queries/job-status";
 import { getActor } from "@/db/queries/users";
@@ -24,6 +24,7 @@ import {
   insertTestJob,
   refusalOf,
   instrumentIdsBySerial,
+  postReading,
   stepIdsByPosition,
 } from "./fixtures";
 import { request, signInAs } from "./helpers";
@@ -42,17 +43,7 @@ const reading = (over: Record<string, unknown>) => ({
   ...over,
 });
 
-async function post(body: Record<string, unknown>, id = jobId) {
-  const res = await readingsPost(
-    request(`/api/jobs/${id}/readings`, {
-      method: "POST",
-      body: JSON.stringify(body),
-      headers: { "content-type": "application/json" },
-    }),
-    { params: Promise.resolve({ id }) },
-  );
-  return { status: res.status, json: await res.json() };
-}
+const post = (body: Record<string, unknown>, id = jobId) => postReading(id, body);
 
 beforeAll(async () => {
   Object.assign(as, await allActors());

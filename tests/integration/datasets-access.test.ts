@@ -12,31 +12,26 @@ import {
   summaryApi,
   upload,
 } from "./dataset-helpers";
+import { WHO, type Who } from "./fixtures";
 import { jobIdByReference, signInAs } from "./helpers";
 
 const TEST_PART = { kind: "test_part", phase: "post", uncertainty_mm: "0.002" };
 
-// Reads of the seeded Marlow Creek dataset (TR-2026-0041) and of a Tollan dataset (TR-2026-0048).
-const READ: Record<string, { email: string | null; marlow: number; tollan: number }> = {
-  anonymous: { email: null, marlow: 401, tollan: 401 },
-  admin: { email: "admin@halvard.example", marlow: 200, tollan: 200 },
-  installer: { email: "installer@halvard.example", marlow: 200, tollan: 200 },
-  inspector: { email: "inspector@halvard.example", marlow: 200, tollan: 200 },
-  engineer: { email: "engineer@halvard.example", marlow: 200, tollan: 200 },
-  "customer (Marlow Creek)": { email: "buyer@marlowcreek.example", marlow: 200, tollan: 404 },
-  "customer (Tollan)": { email: "buyer@tollan.example", marlow: 404, tollan: 200 },
+/**
+ * Per role: reads of the seeded Marlow Creek dataset (TR-2026-0041) and of a Tollan dataset
+ * (TR-2026-0048); upload to and delete from TR-2026-0052 (Marlow Creek, measuring, assigned to the
+ * installer).
+ */
+const CELLS: Record<Who, { marlow: number; tollan: number; upload: number; del: number }> = {
+  anonymous: { marlow: 401, tollan: 401, upload: 401, del: 401 },
+  admin: { marlow: 200, tollan: 200, upload: 201, del: 200 },
+  installer: { marlow: 200, tollan: 200, upload: 201, del: 200 },
+  inspector: { marlow: 200, tollan: 200, upload: 201, del: 200 },
+  engineer: { marlow: 200, tollan: 200, upload: 201, del: 200 },
+  "customer (Marlow Creek)": { marlow: 200, tollan: 404, upload: 403, del: 403 },
+  "customer (Tollan)": { marlow: 404, tollan: 200, upload: 404, del: 404 },
 };
-
-// Upload to and delete from TR-2026-0052 (Marlow Creek, measuring, assigned to the installer).
-const WRITE: Record<string, { email: string | null; upload: number; del: number }> = {
-  anonymous: { email: null, upload: 401, del: 401 },
-  admin: { email: "admin@halvard.example", upload: 201, del: 200 },
-  installer: { email: "installer@halvard.example", upload: 201, del: 200 },
-  inspector: { email: "inspector@halvard.example", upload: 201, del: 200 },
-  engineer: { email: "engineer@halvard.example", upload: 201, del: 200 },
-  "customer (Marlow Creek)": { email: "buyer@marlowcreek.example", upload: 403, del: 403 },
-  "customer (Tollan)": { email: "buyer@tollan.example", upload: 404, del: 404 },
-};
+const cells = Object.entries(CELLS) as [Who, (typeof CELLS)[Who]][];
 
 const ids: { marlowJob: string; tollanJob: string; marlow: string; tollan: string; measuring: string } = {
   marlowJob: "",
@@ -80,11 +75,11 @@ describe("demo seed", () => {
 });
 
 describe("dataset reads by role and tenant", () => {
-  for (const [who, cell] of Object.entries(READ)) {
+  for (const [who, cell] of cells) {
     for (const tenant of ["marlow", "tollan"] as const) {
       const expected = cell[tenant];
       it(`${who}: list, summary, file and evaluation of the ${tenant} dataset → ${expected}`, async () => {
-        await signInAs(cell.email);
+        await signInAs(WHO[who]);
         const job = tenant === "marlow" ? ids.marlowJob : ids.tollanJob;
         const id = ids[tenant];
         const answers = [
@@ -117,9 +112,9 @@ describe("dataset reads by role and tenant", () => {
 });
 
 describe("dataset writes by role and tenant", () => {
-  for (const [who, cell] of Object.entries(WRITE)) {
+  for (const [who, cell] of cells) {
     it(`${who}: upload → ${cell.upload}, delete → ${cell.del}`, async () => {
-      await signInAs(cell.email);
+      await signInAs(WHO[who]);
       expect(
         (
           await upload(ids.measuring, fixture("sweep-good.csv"), {
@@ -138,7 +133,7 @@ describe("dataset writes by role and tenant", () => {
         reading_units: "um",
       });
       const { id } = await made.json();
-      await signInAs(cell.email);
+      await signInAs(WHO[who]);
       expect((await deleteApi(id)).status).toBe(cell.del);
     });
   }

@@ -5,7 +5,9 @@
 // helpers.ts (session and requests), dataset-helpers.ts (upload routes) and ready-job.ts
 // (bringing a job to the state its report needs).
 import { asc, eq } from "drizzle-orm";
+import type { PgColumn, PgInsertValue, PgTable } from "drizzle-orm/pg-core";
 import { expect } from "vitest";
+import { POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
 import { approveAnalysis, nonConformingParameters } from "@/db/queries/analyses";
 import { getActor } from "@/db/queries/users";
@@ -15,7 +17,7 @@ import type { JobKind, JobStatus } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import { upload } from "./dataset-helpers";
-import { signInAs } from "./helpers";
+import { request, signInAs } from "./helpers";
 import { jobBaseOf } from "./ready-job";
 
 /**
@@ -112,6 +114,31 @@ export async function uploadDemoProbe(
   );
   expect(res.status).toBe(201);
   return ((await res.json()) as { id: string }).id;
+}
+
+/**
+ * Posts a reading to the job through POST /api/jobs/{id}/readings as whoever is signed in, and
+ * returns the answer's status and JSON body.
+ */
+export async function postReading(jobId: string, body: Record<string, unknown>) {
+  const res = await readingsPost(
+    request(`/api/jobs/${jobId}/readings`, {
+      method: "POST",
+      body: JSON.stringify(body),
+      headers: { "content-type": "application/json" },
+    }),
+    { params: Promise.resolve({ id: jobId }) },
+  );
+  return { status: res.status, json: await res.json() };
+}
+
+/** Inserts one row into a table whose key is `id` and returns that id. */
+export async function insertRow<T extends PgTable & { id: PgColumn }>(
+  table: T,
+  values: PgInsertValue<T>,
+): Promise<string> {
+  const [row] = await db.insert(table).values(values).returning({ id: table.id });
+  return row!.id as string;
 }
 
 /** The AppError a call was refused with; fails the test if it succeeded or threw something else. */

@@ -6,42 +6,26 @@ import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { listJobInstruments, recordJobInstrument } from "@/db/queries/job-instruments";
-import { getActor } from "@/db/queries/users";
 import { auditEvents, instruments, jobs } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
-import { AppError } from "@/lib/errors";
-import { jobBaseOf } from "./ready-job";
-import { signInAs } from "./helpers";
+import { actorsOf, insertTestJob, refusalOf } from "./fixtures";
 
 const as: Record<string, Actor> = {};
 let jobId = "";
 const ids: Record<string, string> = {};
 
-async function refused(p: Promise<unknown>): Promise<AppError> {
-  try {
-    await p;
-  } catch (e) {
-    if (e instanceof AppError) return e;
-    throw e;
-  }
-  throw new Error("not refused");
-}
-
 beforeAll(async () => {
-  for (const e of ["installer", "admin", "engineer"])
-    as[e] = (await getActor((await signInAs(`${e}@halvard.example`))!))!;
-  const [row] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-JI-${Date.now().toString(36)}`,
-      title: "Data instruments test job",
-      kind: "reverification",
-      status: "measuring",
-      ...(await jobBaseOf("TR-2026-0052")),
-      assignedInstallerId: as.installer!.id,
-    })
-    .returning();
-  jobId = row!.id;
+  Object.assign(
+    as,
+    await actorsOf(["installer@halvard.example", "admin@halvard.example", "engineer@halvard.example"]),
+  );
+  jobId = await insertTestJob({
+    tag: "JI",
+    title: "Data instruments test job",
+    status: "measuring",
+    template: true,
+    assignedInstallerId: as.installer!.id,
+  });
   const u = Date.now().toString(36);
   const add = async (key: string, v: Partial<typeof instruments.$inferInsert>) =>
     (ids[key] = (
@@ -82,20 +66,20 @@ describe("instruments behind the data", () => {
   it("refuses with the reason: a repeat, a sphere without diameter, an instrument past due", async () => {
     expect(
       (
-        await refused(
+        await refusalOf(
           recordJobInstrument(as.installer!, { jobId, instrumentId: ids.sphere!, use: "reference_sphere" }),
         )
       ).message,
     ).toMatch(/already recorded/);
     expect(
       (
-        await refused(
+        await refusalOf(
           recordJobInstrument(as.installer!, { jobId, instrumentId: ids.bare!, use: "reference_sphere" }),
         )
       ).message,
     ).toMatch(/no calibrated diameter/);
     expect(
-      (await refused(recordJobInstrument(as.installer!, { jobId, instrumentId: ids.due!, use: "probe" })))
+      (await refusalOf(recordJobInstrument(as.installer!, { jobId, instrumentId: ids.due!, use: "probe" })))
         .message,
     ).toMatch(/fell due for calibration on 2020-01-01/);
     expect(await listJobInstruments(jobId)).toHaveLength(1);
@@ -103,11 +87,12 @@ describe("instruments behind the data", () => {
 
   it("the office may not record it (attributable records), nor anyone once the job is approved", async () => {
     expect(
-      (await refused(recordJobInstrument(as.admin!, { jobId, instrumentId: ids.bare!, use: "cmm" }))).status,
+      (await refusalOf(recordJobInstrument(as.admin!, { jobId, instrumentId: ids.bare!, use: "cmm" })))
+        .status,
     ).toBe(403);
     await db.update(jobs).set({ status: "approved" }).where(eq(jobs.id, jobId));
     expect(
-      (await refused(recordJobInstrument(as.engineer!, { jobId, instrumentId: ids.bare!, use: "cmm" })))
+      (await refusalOf(recordJobInstrument(as.engineer!, { jobId, instrumentId: ids.bare!, use: "cmm" })))
         .message,
     ).toMatch(/this job is approved/);
     expect(await listJobInstruments(jobId)).toHaveLength(1);

@@ -11,17 +11,9 @@ import { GET as jobRoute, PATCH as patchRoute } from "@/app/api/jobs/[id]/route"
 import { POST as readingRoute } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
 import { auditEvents, heads, jobs, machines, outbox, procedureTemplates, users } from "@/db/schema";
+import { WHO } from "./fixtures";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
-const WHO: Record<string, string | null> = {
-  anonymous: null,
-  admin: "admin@halvard.example",
-  installer: "installer@halvard.example",
-  inspector: "inspector@halvard.example",
-  engineer: "engineer@halvard.example",
-  "customer (Marlow Creek)": "buyer@marlowcreek.example",
-  "customer (Tollan)": "buyer@tollan.example",
-};
 /** POST /api/jobs: the office opens jobs (201); everyone else is refused (401 anonymous, 403 others). */
 const CREATE: Record<string, number> = {
   anonymous: 401,

@@ -7,10 +7,10 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { GET as listRoute, POST as uploadRoute } from "@/app/api/jobs/[id]/photos/route";
 import { GET as imageRoute } from "@/app/api/photos/[id]/route";
 import { GET as thumbRoute } from "@/app/api/photos/[id]/thumb/route";
-import { POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
 import { GET as readinessRoute } from "@/app/api/jobs/[id]/readiness/route";
 import { db } from "@/db";
 import { auditEvents, jobs, photos, templateSteps } from "@/db/schema";
+import { postReading, WHO, type Who } from "./fixtures";
 import { jobIdByReference, request, signInAs } from "./helpers";
 import { jobLike } from "./tablet-helpers";
 
@@ -100,16 +100,15 @@ describe("adding a photo", () => {
     const readingClientId = crypto.randomUUID();
     const [check] = await db.select().from(templateSteps).where(eq(templateSteps.id, stepId));
     expect(check!.derivation).toBe("check");
-    const r = await readingsPost(
-      request(`/api/jobs/${jobId}/readings`, {
-        method: "POST",
-        body: JSON.stringify({ stepId, phase: "pre", unit: "mm", answer: "yes", clientId: readingClientId }),
-        headers: { "content-type": "application/json" },
-      }),
-      p(jobId),
-    );
+    const r = await postReading(jobId, {
+      stepId,
+      phase: "pre",
+      unit: "mm",
+      answer: "yes",
+      clientId: readingClientId,
+    });
     expect(r.status).toBe(201);
-    const readingId = (await r.json()).reading.id;
+    const readingId = r.json.reading.id;
     const clientId = crypto.randomUUID();
     const first = await upload(jobId, png, { stepId, phase: "pre", clientId, readingClientId });
     const again = await upload(jobId, png, { stepId, phase: "pre", clientId, readingClientId });
@@ -174,42 +173,16 @@ describe("a step that asks for a photo", () => {
  * only once the report is issued. Another tenant's photo is indistinguishable from a missing one.
  */
 describe("photo access matrix", () => {
-  type Who =
-    | "anonymous"
-    | "admin"
-    | "installer"
-    | "inspector"
-    | "engineer"
-    | "customer (Marlow Creek)"
-    | "customer (Tollan)";
-  const EMAIL: Record<Who, string | null> = {
-    anonymous: null,
-    admin: "admin@halvard.example",
-    installer: "installer@halvard.example",
-    inspector: "inspector@halvard.example",
-    engineer: "engineer@halvard.example",
-    "customer (Marlow Creek)": "buyer@marlowcreek.example",
-    "customer (Tollan)": "buyer@tollan.example",
+  /** Per role: [POST a photo, GET a photo of the measuring job, GET a photo of the issued job]. */
+  const CELLS: Record<Who, [number, number, number]> = {
+    anonymous: [401, 401, 401],
+    admin: [403, 200, 200],
+    installer: [201, 200, 200],
+    inspector: [403, 200, 200],
+    engineer: [201, 200, 200],
+    "customer (Marlow Creek)": [403, 403, 200],
+    "customer (Tollan)": [404, 404, 404],
   };
-  const ADD: Record<Who, number> = {
-    anonymous: 401,
-    admin: 403,
-    installer: 201,
-    inspector: 403,
-    engineer: 201,
-    "customer (Marlow Creek)": 403,
-    "customer (Tollan)": 404,
-  };
-  const SEE_MEASURING: Record<Who, number> = {
-    anonymous: 401,
-    admin: 200,
-    installer: 200,
-    inspector: 200,
-    engineer: 200,
-    "customer (Marlow Creek)": 403,
-    "customer (Tollan)": 404,
-  };
-  const SEE_ISSUED: Record<Who, number> = { ...SEE_MEASURING, "customer (Marlow Creek)": 200 };
   let measuringPhoto: string;
   let issuedPhoto: string;
 
@@ -223,14 +196,15 @@ describe("photo access matrix", () => {
     await db.update(jobs).set({ status: "issued" }).where(eq(jobs.id, issued.id));
   });
 
-  for (const who of Object.keys(EMAIL) as Who[]) {
-    it(`${who}: POST photo ${ADD[who]}, GET measuring ${SEE_MEASURING[who]}, GET issued ${SEE_ISSUED[who]}`, async () => {
-      await signInAs(EMAIL[who]);
-      const add = await upload(jobId, png, { stepId, phase: "post" });
-      expect(add.status).toBe(ADD[who]);
+  for (const who of Object.keys(WHO) as Who[]) {
+    const [add, seeMeasuring, seeIssued] = CELLS[who];
+    it(`${who}: POST photo ${add}, GET measuring ${seeMeasuring}, GET issued ${seeIssued}`, async () => {
+      await signInAs(WHO[who]);
+      const added = await upload(jobId, png, { stepId, phase: "post" });
+      expect(added.status).toBe(add);
       for (const [id, want] of [
-        [measuringPhoto, SEE_MEASURING[who]],
-        [issuedPhoto, SEE_ISSUED[who]],
+        [measuringPhoto, seeMeasuring],
+        [issuedPhoto, seeIssued],
       ] as const) {
         const img = await imageRoute(request(`/api/photos/${id}`), p(id));
         const th = await thumbRoute(request(`/api/photos/${id}/thumb`), p(id));
@@ -239,7 +213,7 @@ describe("photo access matrix", () => {
           expect(await img.json()).toEqual({ error: { code: "not_found", message: "No such photo." } });
       }
       const list = await listRoute(request(`/api/jobs/${jobId}/photos`), p(jobId));
-      const expectList = SEE_MEASURING[who] === 403 ? 200 : SEE_MEASURING[who];
+      const expectList = seeMeasuring === 403 ? 200 : seeMeasuring;
       expect(list.status).toBe(expectList);
       if (expectList === 200) {
         const n = ((await list.json()).photos as unknown[]).length;

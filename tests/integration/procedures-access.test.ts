@@ -13,6 +13,7 @@ import { createJobFromTemplate } from "@/db/queries/job-status";
 import { proceduresFor } from "@/db/queries/procedures";
 import { getActor } from "@/db/queries/users";
 import { auditEvents, jobs, procedureTemplates, templateSteps } from "@/db/schema";
+import { WHO } from "./fixtures";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
 // Outside a Next request there is no cache to revalidate.
@@ -58,15 +59,6 @@ const body = (name: string, extra: object = {}) => ({
   ...extra,
 });
 
-const WHO: Record<string, string | null> = {
-  anonymous: null,
-  admin: "admin@halvard.example",
-  installer: "installer@halvard.example",
-  inspector: "inspector@halvard.example",
-  engineer: "engineer@halvard.example",
-  "customer (Marlow Creek)": "buyer@marlowcreek.example",
-  "customer (Tollan)": "buyer@tollan.example",
-};
 /** Per role: [POST /api/procedures, POST …/{id}/versions, PATCH …/{id}, GET /api/procedures?jobKind=]. */
 const CELLS: Record<string, [number, number, number, number]> = {
   anonymous: [401, 401, 401, 401],

@@ -20,11 +20,10 @@ import type { BlockerCode } from "@/lib/report/readiness";
 import type { ReportData } from "@/lib/report/types";
 import { pdfText } from "../pdf-tools";
 import { upload } from "./dataset-helpers";
-import { allActors, BASE_JOB, DEMO_PASSWORD, insertTestJob, uploadDemoProbe } from "./fixtures";
+import { allActors, BASE_JOB, DEMO_PASSWORD as PW, insertTestJob, uploadDemoProbe } from "./fixtures";
 import { signInAs } from "./helpers";
 import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
-const PW = DEMO_PASSWORD;
 const as: Record<string, Actor> = {};
 let base: { customerId: string; machineId: string; headId: string; templateId: string };
 

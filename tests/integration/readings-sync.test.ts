@@ -5,11 +5,17 @@
 import { randomUUID } from "node:crypto";
 import { and, asc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
-import { POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
 import { auditEvents, jobs, readings, users } from "@/db/schema";
-import { BASE_JOB, insertTestJob, type JobBase, instrumentIdsBySerial, stepIdsByPosition } from "./fixtures";
-import { request, signInAs } from "./helpers";
+import {
+  BASE_JOB,
+  insertTestJob,
+  type JobBase,
+  instrumentIdsBySerial,
+  postReading,
+  stepIdsByPosition,
+} from "./fixtures";
+import { signInAs } from "./helpers";
 import { jobBaseOf } from "./ready-job";
 
 const step: Record<number, string> = {};
@@ -27,17 +33,7 @@ const newJob = (status: "draft" | "measuring" | "in_review" = "measuring") =>
     assignedInstallerId: installerId,
   });
 
-async function post(jobId: string, body: Record<string, unknown>) {
-  const res = await readingsPost(
-    request(`/api/jobs/${jobId}/readings`, {
-      method: "POST",
-      body: JSON.stringify(body),
-      headers: { "content-type": "application/json" },
-    }),
-    { params: Promise.resolve({ id: jobId }) },
-  );
-  return { status: res.status, json: await res.json() };
-}
+const post = postReading;
 
 const reading = (over: Record<string, unknown> = {}) => ({
   stepId: step[1],

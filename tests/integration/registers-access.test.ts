@@ -33,7 +33,7 @@ import {
   procedureTemplates,
   sites,
 } from "@/db/schema";
-import { WHO } from "./fixtures";
+import { insertRow, WHO } from "./fixtures";
 import { request, signInAs } from "./helpers";
 
 type Handler = (req: Request, ctx: { params: Promise<{ id: string }> }) => Promise<Response>;
@@ -99,36 +99,21 @@ beforeAll(async () => {
   ids.tollan = await byName("Tollan Mold Works");
   // Rows of this file's own, so the corrections below change nothing other test files rely on.
   const u = uniq();
-  ids.site = (
-    await db
-      .insert(sites)
-      .values({ customerId: ids.tollan, name: `Site ${u}` })
-      .returning()
-  )[0]!.id;
-  ids.machine = (
-    await db
-      .insert(machines)
-      .values({ siteId: ids.site, name: `Mill ${u}` })
-      .returning()
-  )[0]!.id;
-  ids.head = (
-    await db
-      .insert(heads)
-      .values({ serial: `H-${u}`, primaryAxis: "C", secondaryAxis: "A", nominalPivotLengthMm: 200 })
-      .returning()
-  )[0]!.id;
-  ids.instrument = (
-    await db
-      .insert(instruments)
-      .values({
-        kind: "dial test indicator",
-        serial: `I-${u}`,
-        resolution: 0.001,
-        standardUncertainty: 0.001,
-        calibrationDueOn: "2027-06-30",
-      })
-      .returning()
-  )[0]!.id;
+  ids.site = await insertRow(sites, { customerId: ids.tollan, name: `Site ${u}` });
+  ids.machine = await insertRow(machines, { siteId: ids.site, name: `Mill ${u}` });
+  ids.head = await insertRow(heads, {
+    serial: `H-${u}`,
+    primaryAxis: "C",
+    secondaryAxis: "A",
+    nominalPivotLengthMm: 200,
+  });
+  ids.instrument = await insertRow(instruments, {
+    kind: "dial test indicator",
+    serial: `I-${u}`,
+    resolution: 0.001,
+    standardUncertainty: 0.001,
+    calibrationDueOn: "2027-06-30",
+  });
   ids.procedure = (await db.select({ id: procedureTemplates.id }).from(procedureTemplates).limit(1))[0]!.id;
 });
 
@@ -536,39 +521,19 @@ describe("retiring register rows and recalibrating instruments (administrator)",
       return (await r.json()).error.issues.map((i: { field: string }) => i.field);
     };
     // Before the last calibration, due before calibrated, in the future, or missing the laboratory.
-    expect(
-      await fields(
-        await cal({
-          calibratedOn: "2026-02-15",
-          dueOn: "2027-02-15",
-          certificateRef: "C-4",
-          laboratory: "Lab",
-        }),
-      ),
-    ).toEqual(["calibratedOn"]);
-    expect(
-      await fields(
-        await cal({
-          calibratedOn: "2026-04-01",
-          dueOn: "2026-03-01",
-          certificateRef: "C-4",
-          laboratory: "Lab",
-        }),
-      ),
-    ).toEqual(["dueOn"]);
-    expect(
-      await fields(
-        await cal({
-          calibratedOn: "2999-01-01",
-          dueOn: "2999-06-01",
-          certificateRef: "C-4",
-          laboratory: "Lab",
-        }),
-      ),
-    ).toEqual(["calibratedOn"]);
-    expect(
-      await fields(await cal({ calibratedOn: "2026-04-01", dueOn: "2027-04-01", certificateRef: "C-4" })),
-    ).toEqual(["laboratory"]);
+    const calibration = (calibratedOn: string, dueOn: string) => ({
+      calibratedOn,
+      dueOn,
+      certificateRef: "C-4",
+      laboratory: "Lab",
+    });
+    for (const [body, field] of [
+      [calibration("2026-02-15", "2027-02-15"), "calibratedOn"],
+      [calibration("2026-04-01", "2026-03-01"), "dueOn"],
+      [calibration("2999-01-01", "2999-06-01"), "calibratedOn"],
+      [{ calibratedOn: "2026-04-01", dueOn: "2027-04-01", certificateRef: "C-4" }, "laboratory"],
+    ] as const)
+      expect(await fields(await cal(body))).toEqual([field]);
     expect(history).toHaveLength(2);
     const none = "00000000-0000-4000-8000-000000000000";
     const missing = await calibrationPost(

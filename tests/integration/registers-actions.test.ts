@@ -4,6 +4,7 @@ import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 import { db } from "@/db";
 import { instrumentCalibrations, instruments, machines, sites } from "@/db/schema";
+import { insertRow } from "./fixtures";
 import { signInAs } from "./helpers";
 
 vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn() }));
@@ -22,27 +23,17 @@ describe("register page actions (administrator)", () => {
     await signInAs("admin@halvard.example");
     const [site] = await db.select({ id: sites.id }).from(sites).limit(1);
     const u = Date.now().toString(36);
-    machineId = (
-      await db
-        .insert(machines)
-        .values({ siteId: site!.id, name: `Form mill ${u}` })
-        .returning()
-    )[0]!.id;
-    instrumentId = (
-      await db
-        .insert(instruments)
-        .values({
-          kind: "dial test indicator",
-          serial: `FORM-${u}`,
-          resolution: 0.001,
-          standardUncertainty: 0.001,
-          calibratedOn: "2024-05-01",
-          calibrationDueOn: "2025-05-01",
-          retired: true,
-          retiredAt: new Date("2025-05-02T00:00:00Z"),
-        })
-        .returning()
-    )[0]!.id;
+    machineId = await insertRow(machines, { siteId: site!.id, name: `Form mill ${u}` });
+    instrumentId = await insertRow(instruments, {
+      kind: "dial test indicator",
+      serial: `FORM-${u}`,
+      resolution: 0.001,
+      standardUncertainty: 0.001,
+      calibratedOn: "2024-05-01",
+      calibrationDueOn: "2025-05-01",
+      retired: true,
+      retiredAt: new Date("2025-05-02T00:00:00Z"),
+    });
   });
 
   it("retires a machine and brings it back", async () => {

@@ -23,14 +23,13 @@ import { pdfFile, pdfImageSizes, pdfText } from "../pdf-tools";
 import {
   allActors,
   BASE_JOB,
-  DEMO_PASSWORD,
+  DEMO_PASSWORD as PW,
   insertTestJob,
   uploadDemoProbe,
   approveConfirmed,
 } from "./fixtures";
 import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
-const PW = DEMO_PASSWORD;
 const as: Record<string, Actor> = {};
 let jobId = "";
 let templateId = "";

@@ -13,18 +13,19 @@ import { changeJobStatus } from "@/db/queries/job-status";
 import { chooseReportView, reportViewChoices } from "@/db/queries/report-views";
 import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
-import { getActor } from "@/db/queries/users";
-import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { auditEvents, jobs, reports } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
-import { AppError } from "@/lib/errors";
 import type { ReportData } from "@/lib/report/types";
-import { upload } from "./dataset-helpers";
-import { jobBaseOf, carryOpenResults, measureEveryStep } from "./ready-job";
-import { signInAs } from "./helpers";
-import { approveConfirmed } from "./fixtures";
+import { carryOpenResults, measureEveryStep } from "./ready-job";
+import {
+  allActors,
+  approveConfirmed,
+  DEMO_PASSWORD as PW,
+  insertTestJob,
+  refusalOf,
+  uploadDemoProbe,
+} from "./fixtures";
 
-const PW = "trammel-demo";
 const as: Record<string, Actor> = {};
 let jobId = "";
 let analysisId = "";
@@ -39,44 +40,18 @@ const save = async (analysis: string, w: number, h: number, caption: string) =>
       caption,
     })
   ).id;
-async function refusal(p: Promise<unknown>): Promise<AppError> {
-  try {
-    await p;
-  } catch (e) {
-    if (e instanceof AppError) return e;
-    throw e;
-  }
-  throw new Error("not refused");
-}
 
 beforeAll(async () => {
-  for (const e of ["installer", "inspector", "engineer", "admin"])
-    as[e] = (await getActor((await signInAs(`${e}@halvard.example`))!))!;
-  as.buyer = (await getActor((await signInAs("buyer@marlowcreek.example"))!))!;
-  as.tollan = (await getActor((await signInAs("buyer@tollan.example"))!))!;
-  const [row] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-VW-${Date.now().toString(36)}`,
-      title: "Report views test job",
-      kind: "reverification",
-      status: "measuring",
-      ...(await jobBaseOf("TR-2026-0052")),
-      assignedInstallerId: as.installer!.id,
-    })
-    .returning();
-  jobId = row!.id;
-  await signInAs("installer@halvard.example");
+  Object.assign(as, await allActors());
+  jobId = await insertTestJob({
+    tag: "VW",
+    title: "Report views test job",
+    status: "measuring",
+    template: true,
+    assignedInstallerId: as.installer!.id,
+  });
   const ids: string[] = [];
-  for (const name of ["a.csv", "b.csv"]) {
-    const up = await upload(
-      jobId,
-      Buffer.from(demoSphereProbeCsv()),
-      { kind: "sphere_probe", phase: "pre", units: "mm" },
-      name,
-    );
-    ids.push(((await up.json()) as { id: string }).id);
-  }
+  for (const name of ["a.csv", "b.csv"]) ids.push(await uploadDemoProbe(jobId, { filename: name }));
   analysisId = (await runHeadFit(as.engineer!, ids[0]!)).analysis.id;
   otherAnalysisId = (await runHeadFit(as.engineer!, ids[1]!)).analysis.id;
 }, 60_000);
@@ -84,7 +59,7 @@ beforeAll(async () => {
 describe("choosing saved views for the report", () => {
   it("refuses any view before a fit is approved", async () => {
     const v = await save(analysisId, 800, 600, "early");
-    const e = await refusal(chooseReportView(as.engineer!, { viewId: v, include: true }));
+    const e = await refusalOf(chooseReportView(as.engineer!, { viewId: v, include: true }));
     expect(e.status).toBe(422);
     expect(e.message).toMatch(/No fit is approved/);
   });
@@ -97,13 +72,13 @@ describe("choosing saved views for the report", () => {
     await approveConfirmed(as.engineer!, analysisId, PW);
     await carryOpenResults(as.engineer!, jobId, "Accepted for the test job.");
     const other = await save(otherAnalysisId, 800, 600, "other fit");
-    expect((await refusal(chooseReportView(as.engineer!, { viewId: other, include: true }))).message).toMatch(
-      /not the approved one/,
-    );
+    expect(
+      (await refusalOf(chooseReportView(as.engineer!, { viewId: other, include: true }))).message,
+    ).toMatch(/not the approved one/);
     const tiny = await save(analysisId, 64, 40, "tiny");
-    expect((await refusal(chooseReportView(as.engineer!, { viewId: tiny, include: true }))).message).toMatch(
-      /64 × 40 px.*600 × 400/,
-    );
+    expect(
+      (await refusalOf(chooseReportView(as.engineer!, { viewId: tiny, include: true }))).message,
+    ).toMatch(/64 × 40 px.*600 × 400/);
     const choices = await reportViewChoices(jobId);
     expect(choices.has(other)).toBe(false);
     expect(choices.has(tiny)).toBe(false);
@@ -112,8 +87,10 @@ describe("choosing saved views for the report", () => {
   it("other roles are refused (403), the other tenant's customer is told there is no such view (404)", async () => {
     const v = await save(analysisId, 600, 400, "for roles");
     for (const who of ["installer", "inspector", "admin", "buyer"])
-      expect((await refusal(chooseReportView(as[who]!, { viewId: v, include: true }))).status).toBe(403);
-    expect((await refusal(chooseReportView(as.tollan!, { viewId: v, include: true }))).status).toBe(404);
+      expect((await refusalOf(chooseReportView(as[who]!, { viewId: v, include: true }))).status).toBe(403);
+    expect(
+      (await refusalOf(chooseReportView(as["buyer-tollan"]!, { viewId: v, include: true }))).status,
+    ).toBe(404);
     expect((await reportViewChoices(jobId)).has(v)).toBe(false);
   });
 

@@ -9,9 +9,8 @@ import { signJobWork } from "@/db/queries/signatures";
 import { verifyPdfFile, verifyReport } from "@/db/queries/verification";
 import { jobs, outbox, reports, signatures } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
-import { allActors, dbError, DEMO_PASSWORD, refusalOf, insertTestJob } from "./fixtures";
+import { allActors, dbError, DEMO_PASSWORD as PW, refusalOf, insertTestJob } from "./fixtures";
 
-const PW = DEMO_PASSWORD;
 let jobId: string;
 const as: Record<string, Actor> = {};
 

@@ -19,7 +19,7 @@ import { env } from "@/lib/env";
 import {
   allActors,
   BASE_JOB,
-  DEMO_PASSWORD,
+  DEMO_PASSWORD as PW,
   firstStepOf,
   insertTestJob,
   instrumentIdBySerial,
@@ -29,7 +29,6 @@ import {
 } from "./fixtures";
 import { jobBaseOf } from "./ready-job";
 
-const PW = DEMO_PASSWORD;
 const as: Record<string, Actor> = {};
 let base: { customerId: string; machineId: string; headId: string; templateId: string };
 let stepId: string;

@@ -15,8 +15,7 @@ import { GET as historyRoute } from "@/app/api/heads/[id]/history/route";
 import { POST as runRoute } from "@/app/api/datasets/[id]/analyses/route";
 import { db } from "@/db";
 import { analyses, datasets, heads } from "@/db/schema";
-import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { upload } from "./dataset-helpers";
+import { uploadDemoProbe, WHO, type Who } from "./fixtures";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
@@ -34,80 +33,19 @@ const list = (id: string) => listRoute(request(`/api/analyses/${id}/views`), p(i
 const image = (id: string) => imageRoute(request(`/api/analysis-views/${id}/image`), p(id));
 const history = (id: string) => historyRoute(request(`/api/heads/${id}/history`), p(id));
 
-type Cell = {
-  email: string | null;
-  save: number;
-  listMarlow: number;
-  imageMarlow: number;
-  imageTollan: number;
-  historyMarlowHead: number;
-  historyTollanHead: number;
-};
-const CELLS: Record<string, Cell> = {
-  anonymous: {
-    email: null,
-    save: 401,
-    listMarlow: 401,
-    imageMarlow: 401,
-    imageTollan: 401,
-    historyMarlowHead: 401,
-    historyTollanHead: 401,
-  },
-  admin: {
-    email: "admin@halvard.example",
-    save: 403,
-    listMarlow: 200,
-    imageMarlow: 200,
-    imageTollan: 200,
-    historyMarlowHead: 200,
-    historyTollanHead: 200,
-  },
+/**
+ * Per role: [POST views of the Marlow fit, GET its views, GET a Marlow view's image, GET a Tollan
+ * view's image, GET history of TH-2241 (Marlow's head), GET history of TH-1907 (Tollan's head)].
+ */
+const CELLS: Record<Who, [number, number, number, number, number, number]> = {
+  anonymous: [401, 401, 401, 401, 401, 401],
+  admin: [403, 200, 200, 200, 200, 200],
   // The installer is assigned to TR-2026-0052 (Marlow) and TR-2026-0048 (Tollan).
-  installer: {
-    email: "installer@halvard.example",
-    save: 403,
-    listMarlow: 200,
-    imageMarlow: 200,
-    imageTollan: 200,
-    historyMarlowHead: 200,
-    historyTollanHead: 200,
-  },
-  inspector: {
-    email: "inspector@halvard.example",
-    save: 403,
-    listMarlow: 200,
-    imageMarlow: 200,
-    imageTollan: 200,
-    historyMarlowHead: 200,
-    historyTollanHead: 200,
-  },
-  engineer: {
-    email: "engineer@halvard.example",
-    save: 201,
-    listMarlow: 200,
-    imageMarlow: 200,
-    imageTollan: 200,
-    historyMarlowHead: 200,
-    historyTollanHead: 200,
-  },
-  "customer (Marlow Creek)": {
-    email: "buyer@marlowcreek.example",
-    save: 403,
-    listMarlow: 200,
-    imageMarlow: 200,
-    imageTollan: 404,
-    historyMarlowHead: 200,
-    historyTollanHead: 404,
-  },
-  "customer (Tollan)": {
-    email: "buyer@tollan.example",
-    save: 404,
-    listMarlow: 404,
-    imageMarlow: 404,
-    imageTollan: 200,
-    historyMarlowHead: 404,
-    historyTollanHead: 200,
-  },
+  installer: [403, 200, 200, 200, 200, 200],
+  inspector: [403, 200, 200, 200, 200, 200],
+  engineer: [201, 200, 200, 200, 200, 200],
+  "customer (Marlow Creek)": [403, 200, 200, 404, 200, 404],
+  "customer (Tollan)": [404, 404, 404, 200, 404, 200],
 };
 
 const ids = { marlowAnalysis: "", marlowView: "", tollanView: "", marlowHead: "", tollanHead: "" };
@@ -125,13 +63,10 @@ beforeAll(async () => {
   expect(m.status).toBe(201);
   ids.marlowView = (await m.json()).view.id;
   const tollanJob = await jobIdByReference("TR-2026-0048");
-  const up = await upload(
-    tollanJob,
-    Buffer.from(demoSphereProbeCsv()),
-    { kind: "sphere_probe", phase: "pre", units: "mm" },
-    "tollan-matrix.csv",
-  );
-  const dsId = (await up.json()).id as string;
+  const dsId = await uploadDemoProbe(tollanJob, {
+    email: "engineer@halvard.example",
+    filename: "tollan-matrix.csv",
+  });
   const run = await runRoute(request(`/api/datasets/${dsId}/analyses`, { method: "POST" }), p(dsId));
   const t = await save((await run.json()).analysis.id);
   expect(t.status).toBe(201);
@@ -141,9 +76,18 @@ beforeAll(async () => {
 });
 
 describe("saved views and head history by role and tenant", () => {
-  for (const [who, cell] of Object.entries(CELLS)) {
+  for (const who of Object.keys(CELLS) as Who[]) {
+    const [saveView, listMarlow, imageMarlow, imageTollan, historyMarlowHead, historyTollanHead] = CELLS[who];
+    const cell = {
+      save: saveView,
+      listMarlow,
+      imageMarlow,
+      imageTollan,
+      historyMarlowHead,
+      historyTollanHead,
+    };
     it(`${who}: POST views → ${cell.save}; GET views → ${cell.listMarlow}; images Marlow ${cell.imageMarlow}, Tollan ${cell.imageTollan}`, async () => {
-      await signInAs(cell.email);
+      await signInAs(WHO[who]);
       const s = await save(ids.marlowAnalysis);
       expect(s.status).toBe(cell.save);
       if (cell.save === 404)
@@ -166,7 +110,7 @@ describe("saved views and head history by role and tenant", () => {
     });
 
     it(`${who}: GET /api/heads/{TH-2241}/history → ${cell.historyMarlowHead}, {TH-1907} → ${cell.historyTollanHead}`, async () => {
-      await signInAs(cell.email);
+      await signInAs(WHO[who]);
       for (const [id, expected, customer] of [
         [ids.marlowHead, cell.historyMarlowHead, "marlow"],
         [ids.tollanHead, cell.historyTollanHead, "tollan"],

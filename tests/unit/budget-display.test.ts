@@ -1,39 +1,14 @@
 // The fit's uncertainty budget as shown: geometry's JCGM 100 combination (GUM eq. 10, root sum of
 // squared contributions; U = 2 u_c) fed from register figures. Values worked by hand beside each case.
 import { describe, expect, it } from "vitest";
-import type { HeadFitJson } from "@/geometry";
+import { headFitJson, param } from "./fit-builders";
 import { budgetTable, resolveTypeB } from "@/lib/budget-display";
 
-const fit: HeadFitJson = {
-  parameters: [
-    { key: "pivot_length_error_um", iso: "ΔL", value: 38, unit: "um", u: 0.3, U: 0.6, identifiable: "yes" },
-    {
-      key: "secondary_zero_arcsec",
-      iso: "EA0A",
-      value: -22,
-      unit: "arcsec",
-      u: 0.4,
-      U: 0.8,
-      identifiable: "yes",
-    },
-    {
-      key: "secondary_yaw_arcsec",
-      iso: "EC0A",
-      value: 0,
-      unit: "arcsec",
-      u: null,
-      U: null,
-      identifiable: "no",
-    },
-  ],
-  sphere_centre_mm: [0, 0, 0],
-  rms_um: 1,
-  max_um: 2,
-  outliers: [],
-  outlier_count: 0,
-  iterations: 3,
-  warnings: [],
-};
+const fit = headFitJson([
+  param("pivot_length_error_um", 38, 0.6, "ΔL"),
+  param("secondary_zero_arcsec", -22, 0.8, "EA0A"),
+  param("secondary_yaw_arcsec", 0, null, "EC0A"),
+]);
 
 describe("budget inputs from the registers", () => {
   it("converts register figures in mm to µm and fills steel's α (11.5e-6 /K) for a temperature band", () => {

@@ -3,7 +3,7 @@
 // project: 1 in = 25.4 mm exactly (NIST SP 811, 2008, B.8) and 1° = 3600″ (SI Brochure, 9th ed.,
 // Table 8). The sums are worked by hand beside each case.
 import { describe, expect, it } from "vitest";
-import { fitHead, headFitToJson, headPoseGrid, synthesiseSphereProbe, type HeadFitJson } from "@/geometry";
+import { fitHead, headFitToJson, headPoseGrid, synthesiseSphereProbe } from "@/geometry";
 import {
   controlLoop,
   controlValueText,
@@ -15,44 +15,30 @@ import {
   SIGN_CONVENTION,
 } from "@/lib/control-values";
 import { CONTROL_VALUE_DEFS, CONTROL_VALUE_KEYS } from "@/lib/domain/control-values";
+import { headFitJson, param } from "./fit-builders";
 
-type P = HeadFitJson["parameters"][number];
-const param = (key: P["key"], value: number, U: number | null, iso = "X"): P => ({
-  key,
-  iso,
-  value,
-  unit: key.endsWith("_um") ? "um" : "arcsec",
-  u: U === null ? null : U / 2,
-  U,
-  identifiable: U === null ? "no" : "yes",
-});
-const fit = (parameters: P[]): HeadFitJson => ({
-  parameters,
-  sphere_centre_mm: [0, 0, 0],
-  rms_um: 1,
-  max_um: 2,
-  outliers: [],
-  outlier_count: 0,
-  iterations: 3,
-  warnings: [],
-});
+type ControlLoopInput = Parameters<typeof controlLoop>[0];
 
-const approved = fit([
+const approved = headFitJson([
   param("pivot_length_error_um", 37.88, 1.2, "EZ0A"),
   param("tip_offset_n_um", -12.5, 0.8),
   param("secondary_zero_arcsec", 18, 0.5),
   param("secondary_yaw_arcsec", 0, null),
 ]);
 
+/** The control loop against the approved fit above, in metric controls unless told. */
+const loopOf = (
+  asFound: ControlLoopInput["asFound"],
+  asLeft: ControlLoopInput["asLeft"] = null,
+  unitSystem: ControlLoopInput["unitSystem"] = "metric",
+) => controlLoop({ asFound, asLeft, approvedFit: approved, unitSystem });
+/** A control's row in a loop. */
+const rowOf = (loop: ReturnType<typeof controlLoop>, key: string) => loop.rows.find((r) => r.key === key)!;
+
 describe("values to enter (worked by hand)", () => {
   it("adds the fitted length error in mm: 152.4000 mm + 37.88 µm = 152.43788 mm", () => {
-    const loop = controlLoop({
-      asFound: { pivot_length_mm: 152.4 },
-      asLeft: null,
-      approvedFit: approved,
-      unitSystem: "metric",
-    });
-    const row = loop.rows.find((r) => r.key === "pivot_length_mm")!;
+    const loop = loopOf({ pivot_length_mm: 152.4 });
+    const row = rowOf(loop, "pivot_length_mm");
     expect(row.correction).toBeCloseTo(0.03788, 12);
     expect(row.toEnter).toBeCloseTo(152.43788, 10);
     expect(row.iso).toBe("EZ0A");
@@ -62,38 +48,23 @@ describe("values to enter (worked by hand)", () => {
   });
 
   it("keeps the sign: a negative offset lowers the value (0.0100 mm − 12.5 µm = −0.0025 mm)", () => {
-    const loop = controlLoop({
-      asFound: { tool_offset_across_tilt_mm: 0.01 },
-      asLeft: null,
-      approvedFit: approved,
-      unitSystem: "metric",
-    });
-    const row = loop.rows.find((r) => r.key === "tool_offset_across_tilt_mm")!;
+    const loop = loopOf({ tool_offset_across_tilt_mm: 0.01 });
+    const row = rowOf(loop, "tool_offset_across_tilt_mm");
     expect(row.toEnter).toBeCloseTo(-0.0025, 12);
     expect(row.toEnterText).toBe("−0.0025 mm");
   });
 
   it("adds angles in degrees: 90.00000° + 18″ = 90.00500° (1° = 3600″, SI Brochure Table 8)", () => {
-    const loop = controlLoop({
-      asFound: { secondary_zero_deg: 90 },
-      asLeft: null,
-      approvedFit: approved,
-      unitSystem: "metric",
-    });
-    const row = loop.rows.find((r) => r.key === "secondary_zero_deg")!;
+    const loop = loopOf({ secondary_zero_deg: 90 });
+    const row = rowOf(loop, "secondary_zero_deg");
     expect(row.correction).toBeCloseTo(0.005, 14);
     expect(row.toEnter).toBeCloseTo(90.005, 12);
     expect(row.toEnterText).toBe("90.00500° (324018.0″)");
   });
 
   it("leaves a parameter held at zero unchanged and says so", () => {
-    const loop = controlLoop({
-      asFound: { secondary_yaw_deg: 0.01 },
-      asLeft: null,
-      approvedFit: approved,
-      unitSystem: "metric",
-    });
-    const row = loop.rows.find((r) => r.key === "secondary_yaw_deg")!;
+    const loop = loopOf({ secondary_yaw_deg: 0.01 });
+    const row = rowOf(loop, "secondary_yaw_deg");
     expect(row.held).toBe(true);
     expect(row.toEnter).toBe(0.01);
     expect(row.correctionText).toBe("held (no change)");
@@ -108,19 +79,14 @@ describe("values to enter (worked by hand)", () => {
     });
     expect(before.hasValuesToEnter).toBe(false);
     expect(before.rows.every((r) => r.toEnter === null && r.toEnterText === "—")).toBe(true);
-    const noFound = controlLoop({ asFound: {}, asLeft: null, approvedFit: approved, unitSystem: "metric" });
+    const noFound = loopOf({});
     expect(noFound.hasValuesToEnter).toBe(false);
   });
 
   it("shows inch controls in inch with mm beside (1 in = 25.4 mm exactly, NIST SP 811)", () => {
     // 6.00000 in = 152.4 mm; + 37.88 µm = 152.43788 mm = 6.0014913… in.
-    const loop = controlLoop({
-      asFound: { pivot_length_mm: 152.4 },
-      asLeft: null,
-      approvedFit: approved,
-      unitSystem: "inch",
-    });
-    const row = loop.rows.find((r) => r.key === "pivot_length_mm")!;
+    const loop = loopOf({ pivot_length_mm: 152.4 }, null, "inch");
+    const row = rowOf(loop, "pivot_length_mm");
     expect(row.asFoundText).toBe("6.00000 in (152.4000 mm)");
     expect(row.toEnterText).toBe("6.00149 in (152.4379 mm)");
     expect(toControlCanonical(6, "length", "inch")).toBeCloseTo(152.4, 12);
@@ -139,22 +105,12 @@ describe("as-left flags", () => {
 
   it("passes values that round to the shown digits of the value to enter", () => {
     // Value to enter 152.43788 mm; 152.4379 mm differs by 0.00002 mm < half of 0.0001 mm.
-    const loop = controlLoop({
-      asFound,
-      asLeft: { pivot_length_mm: 152.4379, secondary_zero_deg: 90.005 },
-      approvedFit: approved,
-      unitSystem: "metric",
-    });
+    const loop = loopOf(asFound, { pivot_length_mm: 152.4379, secondary_zero_deg: 90.005 });
     expect(loop.flagged).toEqual([]);
   });
 
   it("flags a value left different from the one computed, with the signed difference", () => {
-    const loop = controlLoop({
-      asFound,
-      asLeft: { pivot_length_mm: 152.4479, secondary_zero_deg: 90.005 },
-      approvedFit: approved,
-      unitSystem: "metric",
-    });
+    const loop = loopOf(asFound, { pivot_length_mm: 152.4479, secondary_zero_deg: 90.005 });
     expect(loop.flagged.map((r) => r.key)).toEqual(["pivot_length_mm"]);
     const row = loop.flagged[0]!;
     expect(row.flag).toBe("differs");
@@ -163,17 +119,12 @@ describe("as-left flags", () => {
   });
 
   it("flags a value to enter that has no as-left value", () => {
-    const loop = controlLoop({
-      asFound,
-      asLeft: { pivot_length_mm: 152.43788 },
-      approvedFit: approved,
-      unitSystem: "metric",
-    });
+    const loop = loopOf(asFound, { pivot_length_mm: 152.43788 });
     expect(loop.flagged.map((r) => [r.key, r.flag])).toEqual([["secondary_zero_deg", "not_left"]]);
   });
 
   it("flags nothing until an as-left set is recorded", () => {
-    const loop = controlLoop({ asFound, asLeft: null, approvedFit: approved, unitSystem: "metric" });
+    const loop = loopOf(asFound);
     expect(loop.flagged).toEqual([]);
   });
 
@@ -182,12 +133,7 @@ describe("as-left flags", () => {
     expect(flagTolerance("length", "inch")).toBeCloseTo(0.000005 * 25.4, 15);
     expect(flagTolerance("angle", "metric")).toBeCloseTo(0.000005, 15);
     // 0.0001 in left above the value to enter is flagged on an inch control (0.00254 mm).
-    const loop = controlLoop({
-      asFound: { pivot_length_mm: 152.4 },
-      asLeft: { pivot_length_mm: 152.43788 + 0.00254 },
-      approvedFit: approved,
-      unitSystem: "inch",
-    });
+    const loop = loopOf({ pivot_length_mm: 152.4 }, { pivot_length_mm: 152.43788 + 0.00254 }, "inch");
     expect(loop.flagged[0]?.flag).toBe("differs");
   });
 });
@@ -211,8 +157,8 @@ describe("the correction closes the loop", () => {
       approvedFit: f,
       unitSystem: "metric",
     });
-    expect(loop.rows.find((r) => r.key === "pivot_length_mm")!.toEnter).toBeCloseTo(152.44, 6);
-    expect(loop.rows.find((r) => r.key === "secondary_zero_deg")!.toEnter).toBeCloseTo(25 / 3600, 8);
+    expect(rowOf(loop, "pivot_length_mm").toEnter).toBeCloseTo(152.44, 6);
+    expect(rowOf(loop, "secondary_zero_deg").toEnter).toBeCloseTo(25 / 3600, 8);
   });
 
   it("maps every control value to one fitted parameter", () => {

@@ -1,5 +1,6 @@
 // The access rules of lib/policy (who uses the product, and the status flow), checked case by case.
 import { describe, expect, it } from "vitest";
+import type { JobStatus } from "@/lib/domain/jobs";
 import { ROLES, type Actor } from "@/lib/domain/roles";
 import { headHistoryRefusal, headHistoryScope } from "@/lib/policy/heads";
 import { datasetDeleteRefusal, uploadRefusal } from "@/lib/policy/datasets";
@@ -32,6 +33,15 @@ const actor = (role: Actor["role"], customerId: string | null = null): Actor => 
 });
 const jobA = { customerId: "cA", assignedInstallerId: "u1" };
 const jobB = { customerId: "cB", assignedInstallerId: "u2" };
+/** Whether the role may move a job from one status to another. */
+const mayMove = (role: Actor["role"], from: JobStatus, to: JobStatus) =>
+  transitionRefusal(actor(role), { job: { status: from }, to }) === null;
+/** Why `who` may not sign with this meaning a job of customer cA, assigned to installer u1, in this status. */
+const signRefusal = (
+  who: Actor,
+  meaning: Parameters<typeof signatureRefusal>[1]["meaning"],
+  status: JobStatus,
+) => signatureRefusal(who, { meaning, job: { status, customerId: "cA", assignedInstallerId: "u1" } });
 
 describe("who sees which job", () => {
   it("staff roles other than installer see every customer's jobs", () => {
@@ -56,36 +66,24 @@ describe("who sees which job", () => {
 
 describe("status flow", () => {
   it("follows draft → measuring → in review → approved → issued → accepted | rejected", () => {
-    expect(
-      transitionRefusal(actor("installer"), { job: { status: "draft" }, to: "measuring" }) === null,
-    ).toBe(true);
-    expect(
-      transitionRefusal(actor("installer"), { job: { status: "measuring" }, to: "in_review" }) === null,
-    ).toBe(true);
-    expect(
-      transitionRefusal(actor("engineer"), { job: { status: "in_review" }, to: "approved" }) === null,
-    ).toBe(true);
-    expect(transitionRefusal(actor("engineer"), { job: { status: "approved" }, to: "issued" }) === null).toBe(
-      true,
-    );
+    expect(mayMove("installer", "draft", "measuring")).toBe(true);
+    expect(mayMove("installer", "measuring", "in_review")).toBe(true);
+    expect(mayMove("engineer", "in_review", "approved")).toBe(true);
+    expect(mayMove("engineer", "approved", "issued")).toBe(true);
     expect(allowedTransitions(actor("customer"), { status: "issued" }).sort()).toEqual([
       "accepted",
       "rejected",
     ]);
   });
   it("an installer cannot approve or issue", () => {
-    expect(
-      transitionRefusal(actor("installer"), { job: { status: "in_review" }, to: "approved" }) === null,
-    ).toBe(false);
-    expect(
-      transitionRefusal(actor("installer"), { job: { status: "approved" }, to: "issued" }) === null,
-    ).toBe(false);
+    expect(mayMove("installer", "in_review", "approved")).toBe(false);
+    expect(mayMove("installer", "approved", "issued")).toBe(false);
   });
   it("nothing leaves accepted or rejected, and nobody skips a step", () => {
     for (const r of ROLES) {
       expect(allowedTransitions(actor(r), { status: "accepted" })).toEqual([]);
       expect(allowedTransitions(actor(r), { status: "rejected" })).toEqual([]);
-      expect(transitionRefusal(actor(r), { job: { status: "draft" }, to: "issued" }) === null).toBe(false);
+      expect(mayMove(r, "draft", "issued")).toBe(false);
     }
   });
   it("only customers accept or reject an issued report", () => {
@@ -125,66 +123,36 @@ describe("navigation and registers", () => {
 });
 
 describe("who signs what (21 CFR 11.50 meanings)", () => {
-  const job = (status: import("@/lib/domain/jobs").JobStatus) => ({
-    status,
-    customerId: "cA",
-    assignedInstallerId: "u1",
-  });
   it("the assigned installer signs performed; another installer cannot", () => {
-    expect(signatureRefusal(actor("installer"), { meaning: "performed", job: job("measuring") })).toBeNull();
-    expect(
-      signatureRefusal({ ...actor("installer"), id: "u9" }, { meaning: "performed", job: job("measuring") }),
-    ).toMatch(/assigned/);
+    expect(signRefusal(actor("installer"), "performed", "measuring")).toBeNull();
+    expect(signRefusal({ ...actor("installer"), id: "u9" }, "performed", "measuring")).toMatch(/assigned/);
   });
   it("only an inspector signs inspected, and not after issue", () => {
-    expect(signatureRefusal(actor("inspector"), { meaning: "inspected", job: job("in_review") })).toBeNull();
-    expect(signatureRefusal(actor("engineer"), { meaning: "inspected", job: job("in_review") })).toMatch(
-      /inspector/,
-    );
-    expect(signatureRefusal(actor("inspector"), { meaning: "inspected", job: job("issued") })).toMatch(
-      /while/,
-    );
+    expect(signRefusal(actor("inspector"), "inspected", "in_review")).toBeNull();
+    expect(signRefusal(actor("engineer"), "inspected", "in_review")).toMatch(/inspector/);
+    expect(signRefusal(actor("inspector"), "inspected", "issued")).toMatch(/while/);
   });
   it("only an engineer approves, and only an approved job", () => {
-    expect(signatureRefusal(actor("engineer"), { meaning: "approved", job: job("approved") })).toBeNull();
-    expect(signatureRefusal(actor("engineer"), { meaning: "approved", job: job("in_review") })).toMatch(
-      /approved/,
-    );
-    expect(signatureRefusal(actor("installer"), { meaning: "approved", job: job("approved") })).toMatch(
-      /engineer/,
-    );
+    expect(signRefusal(actor("engineer"), "approved", "approved")).toBeNull();
+    expect(signRefusal(actor("engineer"), "approved", "in_review")).toMatch(/approved/);
+    expect(signRefusal(actor("installer"), "approved", "approved")).toMatch(/engineer/);
   });
   it("only the job's own customer accepts or rejects an issued report", () => {
-    expect(signatureRefusal(actor("customer", "cA"), { meaning: "accepted", job: job("issued") })).toBeNull();
-    expect(signatureRefusal(actor("customer", "cB"), { meaning: "accepted", job: job("issued") })).toMatch(
-      /own users/,
-    );
-    expect(signatureRefusal(actor("customer", "cA"), { meaning: "rejected", job: job("approved") })).toMatch(
-      /issued/,
-    );
-    expect(signatureRefusal(actor("admin"), { meaning: "accepted", job: job("issued") })).toMatch(
-      /own users/,
-    );
+    expect(signRefusal(actor("customer", "cA"), "accepted", "issued")).toBeNull();
+    expect(signRefusal(actor("customer", "cB"), "accepted", "issued")).toMatch(/own users/);
+    expect(signRefusal(actor("customer", "cA"), "rejected", "approved")).toMatch(/issued/);
+    expect(signRefusal(actor("admin"), "accepted", "issued")).toMatch(/own users/);
   });
 });
 
 describe("parameters approved, and one person not signing both performed and an approval", () => {
-  const job = (status: import("@/lib/domain/jobs").JobStatus) => ({
-    status,
-    customerId: "cA",
-    assignedInstallerId: "u1",
-  });
   it("only an engineer approves parameters, and only while the job is in review", () => {
-    expect(
-      signatureRefusal(actor("engineer"), { meaning: "parameters_approved", job: job("in_review") }),
-    ).toBeNull();
-    expect(
-      signatureRefusal(actor("engineer"), { meaning: "parameters_approved", job: job("measuring") }),
-    ).toMatch(/submitted it for review/);
+    expect(signRefusal(actor("engineer"), "parameters_approved", "in_review")).toBeNull();
+    expect(signRefusal(actor("engineer"), "parameters_approved", "measuring")).toMatch(
+      /submitted it for review/,
+    );
     for (const r of ["admin", "inspector", "installer"] as const)
-      expect(signatureRefusal(actor(r), { meaning: "parameters_approved", job: job("in_review") })).toMatch(
-        /engineer/,
-      );
+      expect(signRefusal(actor(r), "parameters_approved", "in_review")).toMatch(/engineer/);
   });
   // Segregation of duties (ISO/IEC 17025:2017 §7.8.2.1 o; 21 CFR 11.50): common practice.
   const given = [{ meaning: "performed" as const, signerId: "u1" }];
@@ -247,18 +215,10 @@ describe("checklist readings and the status moves of the checklist", () => {
     expect(readingsRefusal(actor("engineer"), job("approved", "u2"))).toMatch(/locked/);
   });
   it("an installer submits for review but cannot approve; only an engineer approves", () => {
-    expect(
-      transitionRefusal(actor("installer"), { job: { status: "measuring" }, to: "in_review" }) === null,
-    ).toBe(true);
-    expect(
-      transitionRefusal(actor("installer"), { job: { status: "in_review" }, to: "approved" }) === null,
-    ).toBe(false);
-    expect(
-      transitionRefusal(actor("inspector"), { job: { status: "in_review" }, to: "approved" }) === null,
-    ).toBe(false);
-    expect(
-      transitionRefusal(actor("engineer"), { job: { status: "in_review" }, to: "approved" }) === null,
-    ).toBe(true);
+    expect(mayMove("installer", "measuring", "in_review")).toBe(true);
+    expect(mayMove("installer", "in_review", "approved")).toBe(false);
+    expect(mayMove("inspector", "in_review", "approved")).toBe(false);
+    expect(mayMove("engineer", "in_review", "approved")).toBe(true);
   });
   it("instruments and procedures are readable by staff, the outbox by the administrator only", () => {
     expect(registerReadRefusal(actor("installer"), "instruments") === null).toBe(true);

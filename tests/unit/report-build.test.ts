@@ -3,7 +3,7 @@
 // value against the limit, U stated); the content hash is checked with node:crypto directly.
 import { createHash } from "node:crypto";
 import { describe, expect, it } from "vitest";
-import type { HeadFitJson } from "@/geometry";
+import { headFitJson, param } from "./fit-builders";
 import { canonicalJson } from "@/lib/canonical-json";
 import { amendRefusal } from "@/lib/policy/reports";
 import type { ReportData } from "@/lib/report/types";
@@ -141,27 +141,10 @@ describe("testPartRows", () => {
   });
 });
 
-const fit: HeadFitJson = {
-  parameters: [
-    { key: "pivot_length_error_um", iso: "EZ", value: 31.2, unit: "um", u: 2, U: 4, identifiable: "yes" },
-    {
-      key: "secondary_zero_arcsec",
-      iso: "EC0C",
-      value: -5,
-      unit: "arcsec",
-      u: null,
-      U: null,
-      identifiable: "no",
-    },
-  ],
-  sphere_centre_mm: [0, 0, 0],
-  rms_um: 3.21,
-  max_um: 9.87,
-  outliers: [],
-  outlier_count: 0,
-  iterations: 4,
-  warnings: [],
-};
+const fit = headFitJson(
+  [param("pivot_length_error_um", 31.2, 4, "EZ"), param("secondary_zero_arcsec", -5, null, "EC0C")],
+  { rms_um: 3.21, max_um: 9.87, iterations: 4 },
+);
 
 describe("parameterSection", () => {
   const limits = [

@@ -5,41 +5,16 @@ import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import type { HeadFitJson } from "@/geometry";
+import { headFitJson, param } from "./fit-builders";
 import { controlLoop } from "@/lib/control-values";
 import { renderReportPdf } from "@/lib/report/render";
 import { controlValuesSection } from "@/lib/report/sections/control";
 import { samplePng, samplePngSha256, sampleReport } from "../fixtures/report/sample-report";
 
-const fit: HeadFitJson = {
-  parameters: [
-    {
-      key: "pivot_length_error_um",
-      iso: "EZ0A",
-      value: 37.88,
-      unit: "um",
-      u: 0.6,
-      U: 1.2,
-      identifiable: "yes",
-    },
-    {
-      key: "secondary_zero_arcsec",
-      iso: "EA0A",
-      value: 18,
-      unit: "arcsec",
-      u: 0.3,
-      U: 0.6,
-      identifiable: "yes",
-    },
-  ],
-  sphere_centre_mm: [0, 0, 0],
-  rms_um: 1,
-  max_um: 2,
-  outliers: [],
-  outlier_count: 0,
-  iterations: 3,
-  warnings: [],
-};
+const fit = headFitJson([
+  param("pivot_length_error_um", 37.88, 1.2, "EZ0A"),
+  param("secondary_zero_arcsec", 18, 0.6, "EA0A"),
+]);
 const at = new Date("2026-11-30T10:00:00Z");
 const record = { createdAt: at, recordedBy: "Ines Okafor", note: null };
 
