@@ -440,17 +440,25 @@ export function conformityStatement(
 }
 
 /**
- * The statement of conformity of a job's judged rows (readings, head parameters, test part) and
- * recorded deviations: one function for the issued report and the job's overview page.
+ * The statement of conformity of a job's judged rows (readings, head parameters, test part, the
+ * tool-centre-point check after compensation and each rotary axis's positioning test, one result
+ * each) and recorded deviations: one function for the issued report and the job's overview page.
+ * A FAIL or undecided check or test blocks issue unless a deviation carries it; carried, the
+ * report conforms with deviations, as for a parameter.
  */
 export function reportConformity(
-  i: Pick<ReportInputs, "readings" | "parameters" | "testPart" | "carried">,
+  i: Pick<
+    ReportInputs,
+    "readings" | "parameters" | "testPart" | "carried" | "controlValues" | "rotaryPositioning"
+  >,
   rule: string,
 ): NonNullable<ReportData["conformity"]> {
   const decisions = [
     ...i.readings.rows.map((r) => r.decision),
     ...(i.parameters?.rows ?? []).map((r) => r.decision),
     ...i.testPart.map((r) => r.decision),
+    ...(i.controlValues?.tcpCheck ? [i.controlValues.tcpCheck.decision] : []),
+    ...(i.rotaryPositioning ?? []).map((t) => t.decision),
   ];
   return conformityStatement(decisions, i.carried, decisionRuleText(rule));
 }
@@ -502,6 +510,8 @@ export interface ReportInputs {
   /** lib/report/sections/control.ts; null or absent when no control values were recorded. */
   controlValues?: ReportData["controlValues"] | null;
   budget?: ReportData["budget"] | null;
+  /** lib/report/sections/positioning.ts; empty or absent when no rotary axis was tested. */
+  rotaryPositioning?: ReportData["rotaryPositioning"] | null;
 }
 
 const METHOD_READINGS = "Indicator readings against the checklist limits";
@@ -576,6 +586,7 @@ export function buildReportContent(i: ReportInputs): ReportData {
     deviations: deviationRows(i.deviations),
     ...(i.controlValues ? { controlValues: i.controlValues } : {}),
     ...(i.budget ? { budget: i.budget } : {}),
+    ...(i.rotaryPositioning?.length ? { rotaryPositioning: i.rotaryPositioning } : {}),
     remarks: [...(i.parameters ? [i.parameters.note] : []), ...(d.job.notes ? [d.job.notes] : [])],
     ...(i.photos?.length ? { photos: i.photos } : {}),
     safety: [...SAFETY_NOTES],
