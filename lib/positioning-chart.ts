@@ -35,6 +35,13 @@ export interface PositioningChartLayout {
   neg: ChartMark[];
 }
 
+/** A tick value at the step's decimals (a float's −5.6e−17 is 0). */
+function tickText(v: number, step: number): string {
+  const decimals = Math.max(0, -Math.floor(Math.log10(step) + 1e-9));
+  const t = v.toFixed(Math.min(decimals, 6));
+  return Number(t) === 0 ? "0" : t;
+}
+
 export function positioningChartLayout(chart: {
   pos: readonly PositioningChartPoint[];
   neg: readonly PositioningChartPoint[];
@@ -73,7 +80,7 @@ export function positioningChartLayout(chart: {
     xTicks: targets
       .filter((_, i) => i % every === 0)
       .map((t) => ({ x: x(t), label: `${Number(t.toFixed(3))}°` })),
-    yTicks: yTicks.ticks.map((v) => ({ y: y(v), label: `${Number(v.toPrecision(6))}″` })),
+    yTicks: yTicks.ticks.map((v) => ({ y: y(v), label: `${tickText(v, yTicks.step)}″` })),
     zeroY: y(0),
     pos: marks(chart.pos, -SPLIT),
     neg: marks(chart.neg, SPLIT),

@@ -515,6 +515,7 @@ export interface ReportInputs {
 }
 
 const METHOD_READINGS = "Indicator readings against the checklist limits";
+const METHOD_POSITIONING = "positioning of the rotary axes by ISO 230-2";
 const METHOD_FIT =
   "kinematic fit from sphere-probe data (geometry model stated in the product documentation)";
 
@@ -570,7 +571,7 @@ export function buildReportContent(i: ReportInputs): ReportData {
       procedure: i.template
         ? `${i.template.name}, version ${i.template.version}`
         : "Checklist as recorded on the job (no procedure version)",
-      method: methodOf(i),
+      method: i.rotaryPositioning?.length ? `${methodOf(i)}; ${METHOD_POSITIONING}` : methodOf(i),
       decisionRule,
     },
     instruments: i.instruments,
