@@ -28,7 +28,8 @@ export interface PositioningChartLayout {
   height: number;
   plot: { x0: number; x1: number; y0: number; y1: number };
   xTicks: Array<{ x: number; label: string }>;
-  yTicks: Array<{ y: number; label: string }>;
+  /** `label` with the unit (the page), `value` without it (the PDF's chart font has no ″). */
+  yTicks: Array<{ y: number; label: string; value: string }>;
   /** y of the zero line. */
   zeroY: number;
   pos: ChartMark[];
@@ -80,7 +81,11 @@ export function positioningChartLayout(chart: {
     xTicks: targets
       .filter((_, i) => i % every === 0)
       .map((t) => ({ x: x(t), label: `${Number(t.toFixed(3))}°` })),
-    yTicks: yTicks.ticks.map((v) => ({ y: y(v), label: `${tickText(v, yTicks.step)}″` })),
+    yTicks: yTicks.ticks.map((v) => ({
+      y: y(v),
+      label: `${tickText(v, yTicks.step)}″`,
+      value: tickText(v, yTicks.step),
+    })),
     zeroY: y(0),
     pos: marks(chart.pos, -SPLIT),
     neg: marks(chart.neg, SPLIT),

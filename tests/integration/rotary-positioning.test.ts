@@ -197,7 +197,7 @@ describe("a rotary positioning test through the app", () => {
       "positioning of the rotary axes by ISO 230-2",
     ])
       expect(text).toContain(cell);
-    expect(text).toContain("Mean positional deviation in arc seconds at each target angle");
+    expect(text).toContain("Mean positional deviation in arc seconds (″, left scale) at each target angle");
 
     const { reportId } = await issueReport(as.engineer!, { jobId, password: PW });
     const content = await getReportContent(as.engineer!, reportId);

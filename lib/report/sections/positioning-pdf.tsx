@@ -4,6 +4,7 @@
  * mean positional deviation ± 2s per target (positive approach: filled circle; negative: hollow
  * square), drawn from lib/positioning-chart.ts like the page's chart.
  */
+import { Fragment } from "react";
 import { Circle, Line, Polyline, Rect, StyleSheet, Svg, Text, View } from "@react-pdf/renderer";
 import { drawing, palette } from "@/lib/domain/theme";
 import { positioningChartLayout, type ChartMark } from "@/lib/positioning-chart";
@@ -33,13 +34,13 @@ const s = StyleSheet.create({
 });
 
 const COLS = [
-  ["Quantity", "24%"],
-  ["Both", "12%"],
-  ["Positive ↑", "11%"],
-  ["Negative ↓", "11%"],
-  ["Limit", "11%"],
-  ["Source", "17%"],
-  ["Result", "14%"],
+  ["Quantity", "30%"],
+  ["Both", "10%"],
+  ["Positive ↑", "10%"],
+  ["Negative ↓", "10%"],
+  ["Limit", "10%"],
+  ["Source", "18%"],
+  ["Result", "12%"],
 ] as const;
 
 const POS = palette.accent[600];
@@ -112,7 +113,7 @@ function Chart({ test }: { test: ReportPositioningTest }) {
             style={{ fontSize: 8 }}
             fill={drawing.axisText}
           >
-            {t.label}
+            {t.value}
           </Text>
         ))}
         {l.xTicks.map((t) => (
@@ -149,8 +150,8 @@ function Chart({ test }: { test: ReportPositioningTest }) {
         <Marks marks={l.neg} colour={NEG} square />
       </Svg>
       <Text style={{ fontSize: 7, color: palette.graphite[600], marginTop: 2 }}>
-        Mean positional deviation in arc seconds at each target angle, bars ± 2s; positive approach: filled
-        circles, negative approach: hollow squares; dashed line: zero.
+        Mean positional deviation in arc seconds (″, left scale) at each target angle, bars ± 2s; positive
+        approach: filled circles, negative approach: hollow squares; dashed line: zero.
       </Text>
     </View>
   );
@@ -160,45 +161,46 @@ export function PositioningPdf({ tests }: { tests: ReportPositioningTest[] | und
   if (!tests?.length) return null;
   return (
     <View>
-      <Text style={s.h2} minPresenceAhead={80}>
-        5.4 Positioning of the rotary axes (ISO 230-2)
-      </Text>
-      {tests.map((t) => (
-        <View key={t.axis + t.file}>
-          <Text style={s.h3} minPresenceAhead={60}>
-            {t.axis[0]!.toUpperCase() + t.axis.slice(1)}: {TCP_DECISION[t.decision]}
-          </Text>
-          <Text style={s.muted}>
-            {t.file}: {t.basis}
-          </Text>
-          <View style={s.table} wrap={false}>
-            <View style={[s.tr, s.th]}>
-              {COLS.map(([h, w]) => (
-                <Text key={h} style={[s.td, { width: w }]}>
-                  {h}
-                </Text>
+      {tests.map((t, i) => (
+        <Fragment key={t.axis + t.file}>
+          {/* The section's heading stays with its first table. */}
+          <View wrap={false}>
+            {i === 0 ? <Text style={s.h2}>5.4 Positioning of the rotary axes (ISO 230-2)</Text> : null}
+            <Text style={s.h3}>
+              {t.axis[0]!.toUpperCase() + t.axis.slice(1)}: {TCP_DECISION[t.decision]}
+            </Text>
+            <Text style={s.muted}>
+              {t.file}: {t.basis}
+            </Text>
+            <View style={s.table}>
+              <View style={[s.tr, s.th]}>
+                {COLS.map(([h, w]) => (
+                  <Text key={h} style={[s.td, { width: w }]}>
+                    {h}
+                  </Text>
+                ))}
+              </View>
+              {t.rows.map((r) => (
+                <View key={r.symbol} style={s.tr}>
+                  <Text style={[s.td, { width: COLS[0][1] }]}>
+                    {r.quantity} ({r.symbol})
+                  </Text>
+                  <Text style={[s.td, s.num, { width: COLS[1][1] }]}>{r.both}</Text>
+                  <Text style={[s.td, s.num, { width: COLS[2][1] }]}>{r.pos}</Text>
+                  <Text style={[s.td, s.num, { width: COLS[3][1] }]}>{r.neg}</Text>
+                  <Text style={[s.td, s.num, { width: COLS[4][1] }]}>{r.limit}</Text>
+                  <Text style={[s.td, { width: COLS[5][1] }]}>{r.source}</Text>
+                  <Text style={[s.td, { width: COLS[6][1] }, r.decision === "fail" ? s.flag : {}]}>
+                    {TCP_DECISION[r.decision]}
+                    {r.reason ? ` — ${r.reason}` : ""}
+                  </Text>
+                </View>
               ))}
             </View>
-            {t.rows.map((r) => (
-              <View key={r.symbol} style={s.tr}>
-                <Text style={[s.td, { width: COLS[0][1] }]}>
-                  {r.quantity} ({r.symbol})
-                </Text>
-                <Text style={[s.td, s.num, { width: COLS[1][1] }]}>{r.both}</Text>
-                <Text style={[s.td, s.num, { width: COLS[2][1] }]}>{r.pos}</Text>
-                <Text style={[s.td, s.num, { width: COLS[3][1] }]}>{r.neg}</Text>
-                <Text style={[s.td, s.num, { width: COLS[4][1] }]}>{r.limit}</Text>
-                <Text style={[s.td, { width: COLS[5][1] }]}>{r.source}</Text>
-                <Text style={[s.td, { width: COLS[6][1] }, r.decision === "fail" ? s.flag : {}]}>
-                  {TCP_DECISION[r.decision]}
-                  {r.reason ? ` — ${r.reason}` : ""}
-                </Text>
-              </View>
-            ))}
           </View>
           {t.warnings.length ? <Text style={s.muted}>Note: {t.warnings.join(" ")}</Text> : null}
           <Chart test={t} />
-        </View>
+        </Fragment>
       ))}
     </View>
   );
