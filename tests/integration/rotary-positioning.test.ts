@@ -9,7 +9,12 @@ import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET as draftRoute } from "@/app/api/jobs/[id]/report/draft/route";
 import { db } from "@/db";
-import { jobRotaryPositioning, positioningJobOf } from "@/db/queries/positioning";
+import {
+  jobRotaryPositioning,
+  positioningJobOf,
+  positioningLimitsOfTemplate,
+} from "@/db/queries/positioning";
+import { createTemplateVersion } from "@/db/queries/templates";
 import { getReadiness, recordDeviation } from "@/db/queries/readiness";
 import { getReportContent, issueReport } from "@/db/queries/reports";
 import { getJobDetail } from "@/db/queries/jobs";
@@ -226,5 +231,18 @@ describe("the demo (invented data)", () => {
     expect((await getReadiness(as.engineer!, row!.id))!.blockers.map((b) => b.code)).not.toContain(
       "rotary_positioning_missing",
     );
+  });
+});
+
+describe("a new procedure version", () => {
+  it("keeps the positioning limits of the version it was made from", async () => {
+    const admin = (await getActor((await signInAs("admin@halvard.example"))!))!;
+    const [job] = await db.select({ templateId: jobs.templateId }).from(jobs).where(eq(jobs.id, jobId));
+    const next = await createTemplateVersion(admin, job!.templateId!, []);
+    const limits = await positioningLimitsOfTemplate(next.id);
+    expect(limits.map((l) => [l.axis, l.quantity, l.upperLimitArcsec, l.limitSource])).toEqual([
+      ["primary", "A", 0.25, "customer_spec"],
+      ["primary", "R", 0.3, "standard"],
+    ]);
   });
 });
