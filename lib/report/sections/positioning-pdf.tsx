@@ -8,30 +8,14 @@ import { Fragment } from "react";
 import { Circle, Line, Polyline, Rect, StyleSheet, Svg, Text, View } from "@react-pdf/renderer";
 import { drawing, palette } from "@/lib/domain/theme";
 import { positioningChartLayout, type ChartMark } from "@/lib/positioning-chart";
-import { MONO_FONT } from "@/lib/report/fonts";
-import { TCP_DECISION } from "./control-pdf";
+import { sectionStyles, TCP_DECISION } from "./control-pdf";
 import type { ReportPositioningTest } from "./positioning";
 
-const s = StyleSheet.create({
-  h2: {
-    fontSize: 10.5,
-    lineHeight: 1.2,
-    fontWeight: 700,
-    marginTop: 12,
-    marginBottom: 5,
-    paddingBottom: 2,
-    borderBottomWidth: 0.75,
-    borderBottomColor: palette.graphite[200],
-  },
-  h3: { fontWeight: 700, marginTop: 6, marginBottom: 2 },
-  muted: { color: palette.graphite[600], marginBottom: 3 },
-  table: { borderWidth: 0.75, borderColor: palette.graphite[200] },
-  tr: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: palette.graphite[200] },
-  th: { backgroundColor: palette.graphite[50], fontWeight: 700, color: palette.graphite[600], fontSize: 7.5 },
-  td: { paddingVertical: 2, paddingHorizontal: 4 },
-  num: { fontFamily: MONO_FONT as unknown as string, textAlign: "right", fontSize: 7.5 },
-  flag: { color: palette.fail[700], fontWeight: 700 },
-});
+// The 5.x sections' look (headings, tables, figures), plus a heading for each axis.
+const s = {
+  ...sectionStyles,
+  ...StyleSheet.create({ h3: { fontWeight: 700, marginTop: 6, marginBottom: 2 } }),
+};
 
 const COLS = [
   ["Quantity", "30%"],
