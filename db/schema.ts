@@ -31,6 +31,7 @@ import { DATASET_KINDS, DATASET_STATUSES, PHASES } from "../lib/domain/datasets"
 import { DECISION_RULES } from "../lib/domain/decisions";
 import { CONTROL_VALUE_STAGES, type ControlValueSet } from "../lib/domain/control-values";
 import { AXIS_LETTERS } from "../lib/domain/heads";
+import { HEAD_AXIS_ROLES } from "../lib/domain/positioning";
 import { JOB_KINDS, JOB_STATUSES } from "../lib/domain/jobs";
 import { MULTI_POINT_RESULTS, STEP_KINDS } from "../lib/domain/procedures";
 import { ROLES } from "../lib/domain/roles";
@@ -622,6 +623,36 @@ export const templateParameterLimits = pgTable(
   (t) => [uniqueIndex("template_parameter_limits_idx").on(t.templateId, t.parameter)],
 );
 export type TemplateParameterLimit = typeof templateParameterLimits.$inferSelect;
+
+/** The axis of the head a rotary-positioning test is about: the primary (rotary) or secondary (tilt) axis. */
+export const headAxisRoleEnum = pgEnum("head_axis_role", HEAD_AXIS_ROLES);
+
+/**
+ * Limits for the ISO 230-2 positioning quantities of the head's rotary axes, per procedure
+ * template version: an upper limit in arc seconds for one quantity (A, E, M, R or B,
+ * bidirectional) of one axis, with where it comes from. A procedure that carries a limit for an
+ * axis asks for that axis's positioning test before the report is issued.
+ */
+export const templatePositioningLimits = pgTable(
+  "template_positioning_limits",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    templateId: uuid("template_id")
+      .notNull()
+      .references(() => procedureTemplates.id, { onDelete: "cascade" }),
+    axis: headAxisRoleEnum("axis").notNull(),
+    quantity: text("quantity").notNull(),
+    upperLimitArcsec: doublePrecision("upper_limit_arcsec").notNull(),
+    limitSource: limitSourceEnum("limit_source").notNull(),
+    limitSourceNote: text("limit_source_note"),
+  },
+  (t) => [
+    uniqueIndex("template_positioning_limits_idx").on(t.templateId, t.axis, t.quantity),
+    check("template_positioning_limits_quantity", sql`${t.quantity} in ('A', 'E', 'M', 'R', 'B')`),
+    check("template_positioning_limits_upper", sql`${t.upperLimitArcsec} >= 0`),
+  ],
+);
+export type TemplatePositioningLimit = typeof templatePositioningLimits.$inferSelect;
 
 /**
  * A picture of the 3D view the engineer saved for the report: the PNG in object storage under a

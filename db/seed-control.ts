@@ -34,7 +34,7 @@ export function demoTcpCheckCsv(errors: HeadErrors = DEMO_TCP_RESIDUAL_ERRORS, s
 }
 
 export const DEMO_CONTROL_JOB = "TR-2026-0059";
-const DEMO_CONTROL_PROCEDURE = "Kinematic values after a crash (demo)";
+export const DEMO_CONTROL_PROCEDURE = "Kinematic values after a crash (demo)";
 const TCP_FILENAME = "TR-2026-0059 TCP check after compensation (demo, synthetic).csv";
 const PROBE_FILENAME = "TR-2026-0059 sphere probe after the crash (demo, synthetic).csv";
 

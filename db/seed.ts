@@ -262,6 +262,7 @@ export async function seed(): Promise<void> {
   await (await import("./seed-analyses")).seedAnalyses();
   await (await import("./seed-records")).seedRecords();
   await (await import("./seed-control")).seedControlLoop(DEMO_PASSWORD);
+  await (await import("./seed-positioning")).seedPositioning();
   // Last: the issued report renders whatever the steps above recorded.
   await seedReports(DEMO_PASSWORD);
 }

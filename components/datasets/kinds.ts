@@ -29,6 +29,8 @@ export const KIND_HINTS: Record<DatasetKindKey, string> = {
   test_part: "Each measured characteristic of the cut test part with its nominal and tolerance.",
   tcp_check:
     "Sphere-probe data taken with the control's tool-centre-point function on, after the new values were entered: where the control reports the sphere centre at each pose.",
+  rotary_positioning:
+    "ISO 230-2 positioning of one rotary axis: each target angle approached several times from both directions, with the angle measured by a reference (autocollimator and polygon, or an angle encoder).",
 };
 
 /** What the form shows for each column: a label and other header spellings that map to it. */
@@ -76,6 +78,13 @@ export const PRESENTATION: Record<DatasetKindKey, Readonly<Record<string, Presen
     upper_tol: { label: "Upper tolerance", aliases: ["uppertol", "uptol", "tolplus", "maxtol", "upper"] },
     unit: { label: "Unit", aliases: ["units", "uom"] },
   },
+  rotary_positioning: {
+    target_deg: { label: "Target angle (°)", aliases: ["target", "targetangle", "nominal", "commanded"] },
+    run: { label: "Run", aliases: ["j", "cycle", "repeat", "rep"] },
+    direction: { label: "Direction (pos or neg)", aliases: ["dir", "approach", "sense"] },
+    measured_deg: { label: "Measured angle (°)", aliases: ["measured", "actual", "angle", "reference"] },
+    axis: { label: "Axis letter", aliases: ["axisletter", "axisname"] },
+  },
 };
 
 interface Presentation {
@@ -102,6 +111,7 @@ export const COLUMNS: Record<DatasetKindKey, readonly ColumnInfo[]> = {
   sweep: columnsOf("sweep"),
   test_part: columnsOf("test_part"),
   tcp_check: columnsOf("tcp_check"),
+  rotary_positioning: columnsOf("rotary_positioning"),
 };
 
 export function normaliseHeader(h: string): string {

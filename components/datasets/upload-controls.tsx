@@ -2,6 +2,7 @@
 
 import { useRef, useState } from "react";
 import { buttonClass } from "@/components/ui/button";
+import { HEAD_AXIS_ROLE_WORDS, HEAD_AXIS_ROLES } from "@/lib/domain/positioning";
 import type { DatasetKindKey } from "./kinds";
 import type { Units, UploadState } from "./upload-state";
 
@@ -101,9 +102,9 @@ export function KindOptions({
   set,
 }: {
   state: UploadState;
-  set: (patch: Partial<Pick<UploadState, "units" | "radius" | "uncertainty" | "comma">>) => void;
+  set: (patch: Partial<Pick<UploadState, "units" | "radius" | "uncertainty" | "axis" | "comma">>) => void;
 }) {
-  const { kind, units, radius, uncertainty, scan, comma } = state;
+  const { kind, units, radius, uncertainty, scan, comma, axis } = state;
   return (
     <div className="flex flex-wrap gap-4">
       {UNIT_CHOICES.filter((c) => c.kinds.includes(kind)).map((c) => (
@@ -144,6 +145,32 @@ export function KindOptions({
             0.
           </span>
         </label>
+      ) : null}
+      {kind === "rotary_positioning" ? (
+        <>
+          <Choice
+            legend="Axis of the head tested"
+            name="axis"
+            value={axis}
+            options={HEAD_AXIS_ROLES.map((r) => ({ value: r, label: HEAD_AXIS_ROLE_WORDS[r] }))}
+            onChange={(v) => set({ axis: v })}
+          />
+          <label className="block max-w-md space-y-1">
+            <span className="text-sm font-medium text-graphite-800">
+              Expanded uncertainty U (k = 2) of the angle measurement, ″
+            </span>
+            <input
+              inputMode="decimal"
+              value={uncertainty}
+              placeholder="e.g. 0.5"
+              onChange={(e) => set({ uncertainty: e.target.value })}
+              className="num block min-h-touch w-40 rounded-lg border border-graphite-300 px-3 text-right"
+            />
+            <span className="block text-xs text-graphite-600">
+              From the reference&apos;s calibration; the guarded decision rule needs it. Empty: not stated.
+            </span>
+          </label>
+        </>
       ) : null}
       {scan?.delimiter === ";" ? (
         <Choice

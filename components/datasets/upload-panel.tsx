@@ -30,6 +30,10 @@ function uploadForm(s: UploadState, file: File, header: string | undefined): For
     form.set("radius_mm", s.radius);
   }
   if (s.kind === "test_part" && s.uncertainty !== "") form.set("uncertainty_mm", s.uncertainty);
+  if (s.kind === "rotary_positioning") {
+    form.set("axis", s.axis);
+    if (s.uncertainty !== "") form.set("uncertainty_arcsec", s.uncertainty);
+  }
   if (header) form.set("header", header);
   form.set("file", file, file.name);
   return form;
@@ -64,6 +68,8 @@ export function UploadPanel({ jobId }: { jobId: string }) {
   if (kind === "sweep" && !(Number(state.radius) > 0)) formProblems.push("Enter the sweep radius in mm.");
   if (kind === "test_part" && state.uncertainty !== "" && !(Number(state.uncertainty) >= 0))
     formProblems.push("The expanded uncertainty must be a number ≥ 0 mm.");
+  if (kind === "rotary_positioning" && state.uncertainty !== "" && !(Number(state.uncertainty) >= 0))
+    formProblems.push("The expanded uncertainty must be a number ≥ 0″.");
   const canSend =
     !!file &&
     !!scan &&

@@ -2,6 +2,7 @@
 import type { CsvScan } from "./csv-scan";
 import { COLUMNS, guessMapping, type DatasetKindKey } from "./kinds";
 import type { Issue } from "./upload-checks";
+import type { HeadAxisRole } from "@/lib/domain/positioning";
 
 export type Units = { units: "mm" | "in"; travel: "mm" | "in"; reading: "um" | "mm" | "in" };
 
@@ -10,7 +11,10 @@ export interface UploadState {
   phase: "pre" | "post";
   units: Units;
   radius: string;
+  /** The test part's U in mm, or the rotary positioning test's U in arc seconds. */
   uncertainty: string;
+  /** Which of the head's axes a rotary positioning file is about. */
+  axis: HeadAxisRole;
   comma: boolean;
   file: File | null;
   scan: CsvScan | null;
@@ -29,6 +33,7 @@ export const initialUploadState: UploadState = {
   units: { units: "mm", travel: "mm", reading: "um" },
   radius: "",
   uncertainty: "",
+  axis: "primary",
   comma: false,
   file: null,
   scan: null,
@@ -47,7 +52,7 @@ export type UploadAction =
       patch: Partial<
         Pick<
           UploadState,
-          "phase" | "units" | "radius" | "uncertainty" | "comma" | "mappingOpen" | "scanProgress"
+          "phase" | "units" | "radius" | "uncertainty" | "axis" | "comma" | "mappingOpen" | "scanProgress"
         >
       >;
     }

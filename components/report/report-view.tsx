@@ -2,6 +2,7 @@ import { DECISION, ReportTable, Rows, Section } from "@/components/report/report
 import { ConformityStatement } from "@/components/report/conformity-statement";
 import { BudgetReportSection } from "@/components/report/budget-section";
 import { ControlValuesReportSection } from "@/components/report/control-values-section";
+import { PositioningReportSection } from "@/components/report/positioning-section";
 import { ReportFigures } from "@/components/report/report-charts";
 import { reportFacts } from "@/lib/report/build";
 import { ClosingStatements, RecordsSection } from "@/components/report/records-section";
@@ -124,6 +125,7 @@ export function ReportView({ data }: { data: ReportData }) {
         )}
         <ControlValuesReportSection section={data.controlValues} />
         <BudgetReportSection budget={data.budget} />
+        <PositioningReportSection tests={data.rotaryPositioning} />
       </Section>
       <Section n={6} title="Test part">
         {data.testPart.length ? (

@@ -2,7 +2,13 @@ import "server-only";
 import { and, asc, count, desc, eq, inArray, isNull, max, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { jobs, procedureTemplates, templateParameterLimits, templateSteps } from "@/db/schema";
+import {
+  jobs,
+  procedureTemplates,
+  templateParameterLimits,
+  templatePositioningLimits,
+  templateSteps,
+} from "@/db/schema";
 import type { JobKind } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
 import { isUuid } from "@/lib/domain/uuid";
@@ -94,13 +100,18 @@ export async function listProcedures(
   const chosen = ts.filter((t) => matchesFilter(t, filter.jobKind ?? null, filter.headModel ?? null));
   const ids = chosen.map((t) => t.id);
   if (ids.length === 0) return [];
-  const [steps, limits, used] = await Promise.all([
+  const [steps, limits, positioning, used] = await Promise.all([
     db
       .select()
       .from(templateSteps)
       .where(inArray(templateSteps.templateId, ids))
       .orderBy(asc(templateSteps.position)),
     db.select().from(templateParameterLimits).where(inArray(templateParameterLimits.templateId, ids)),
+    db
+      .select()
+      .from(templatePositioningLimits)
+      .where(inArray(templatePositioningLimits.templateId, ids))
+      .orderBy(asc(templatePositioningLimits.axis), asc(templatePositioningLimits.quantity)),
     db
       .select({ templateId: jobs.templateId, n: count() })
       .from(jobs)
@@ -112,6 +123,7 @@ export async function listProcedures(
     jobsUsing: used.find((u) => u.templateId === t.id)?.n ?? 0,
     steps: steps.filter((s) => s.templateId === t.id),
     parameterLimits: limits.filter((l) => l.templateId === t.id),
+    positioningLimits: positioning.filter((l) => l.templateId === t.id),
   }));
 }
 
@@ -258,6 +270,7 @@ export async function saveProcedureVersion(actor: Actor, id: string, body: unkno
       await tx
         .insert(templateParameterLimits)
         .values(limits.map(({ id: _i, templateId: _t, ...l }) => ({ ...l, templateId: t!.id })));
+    await copyPositioningLimits(tx, base!.id, t!.id);
     await appendAudit(tx, {
       actorId: actor.id,
       actorEmail: actor.email,
@@ -295,4 +308,20 @@ export async function setProcedureRetired(actor: Actor, id: string, retired: boo
     });
     return { ...t, retiredAt: at };
   });
+}
+
+/** A new version keeps the rotary-axis positioning limits of the version it was made from. */
+export async function copyPositioningLimits(
+  tx: Pick<typeof db, "select" | "insert">,
+  fromTemplateId: string,
+  toTemplateId: string,
+) {
+  const rows = await tx
+    .select()
+    .from(templatePositioningLimits)
+    .where(eq(templatePositioningLimits.templateId, fromTemplateId));
+  if (rows.length)
+    await tx
+      .insert(templatePositioningLimits)
+      .values(rows.map(({ id: _i, templateId: _t, ...l }) => ({ ...l, templateId: toTemplateId })));
 }

@@ -6,6 +6,7 @@ import { getApprovedAnalysis, listJobAnalyses } from "@/db/queries/analyses";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
 import { getIssuer } from "@/db/queries/issuer";
 import { jobTcpChecks } from "@/db/queries/control-values";
+import { jobRotaryPositioning, positioningJobOf } from "@/db/queries/positioning";
 import { getJobDetail, type JobDetail, visibleJob } from "@/db/queries/jobs";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
 import { getComparison, instrumentsInReadings } from "@/db/queries/readings";
@@ -29,6 +30,8 @@ import {
 } from "@/lib/report/readiness";
 import type { SignatureManifest } from "@/lib/report/signing";
 import { tcpCheckSubject } from "@/lib/tcp-check-display";
+import { HEAD_AXIS_ROLES } from "@/lib/domain/positioning";
+import { rotaryPositioningSubject } from "@/lib/rotary-positioning-display";
 
 /**
  * Gathers what the readiness check (lib/report/readiness.ts) judges, and records deviations: a
@@ -64,7 +67,10 @@ export async function readinessInput(actor: Actor, d: JobDetail): Promise<Readin
       getIssuer(),
     ]);
   const photoCounts = new Map(photoRows.map((p) => [p.stepId, p.n]));
-  const tcp = await jobTcpChecks(jobId, d.job.templateId);
+  const [tcp, positioning] = await Promise.all([
+    jobTcpChecks(jobId, d.job.templateId),
+    jobRotaryPositioning(positioningJobOf(d)),
+  ]);
   const latestTcp = tcp.checks[0];
   const stored = (list ?? []).filter((x) => x.status === "stored");
   const fitted = new Set((analysesList ?? []).map((a) => a.analysis.datasetId));
@@ -103,6 +109,11 @@ export async function readinessInput(actor: Actor, d: JobDetail): Promise<Readin
           },
         ]
       : []),
+    ...Object.values(positioning.latest).map((t) => ({
+      subject: rotaryPositioningSubject(t.datasetId),
+      label: `Positioning of the ${t.view.axisText} ${t.filename}`,
+      decision: t.view.decision,
+    })),
   ];
   const step = (r: { decision: Parameters<typeof reportDecision>[0]; instrument: string | null } | null) =>
     r ? { decision: reportDecision(r.decision), instrumentSerial: r.instrument } : null;
@@ -152,6 +163,10 @@ export async function readinessInput(actor: Actor, d: JobDetail): Promise<Readin
     tcpCheck: {
       required: tcp.limits.required,
       latest: latestTcp ? { datasetId: latestTcp.datasetId, filename: latestTcp.filename } : null,
+    },
+    rotaryPositioning: {
+      required: positioning.required,
+      present: HEAD_AXIS_ROLES.filter((a) => positioning.latest[a]),
     },
   };
 }

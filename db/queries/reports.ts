@@ -10,6 +10,9 @@ import { reportFigureViews } from "@/db/queries/report-views";
 import { reportBudget } from "@/db/queries/budget";
 import { reportControlValues } from "@/db/queries/control-values";
 import { parameterLimitsOfTemplate } from "@/db/queries/parameter-limits";
+import { jobRotaryPositioning, positioningJobOf } from "@/db/queries/positioning";
+import { HEAD_AXIS_ROLES } from "@/lib/domain/positioning";
+import { positioningSection } from "@/lib/report/sections/positioning";
 import { carriedResultCount, countingTestPart, listDeviations, readinessInput } from "@/db/queries/readiness";
 import {
   jobStateSha256,
@@ -120,6 +123,15 @@ async function approvedParameters(actor: Actor, d: JobDetail) {
   };
 }
 
+/** The report's 5.4: the positioning test that counts for each rotary axis (the job's access is checked by the caller). */
+async function reportPositioning(d: JobDetail) {
+  const p = await jobRotaryPositioning(positioningJobOf(d));
+  return positioningSection(
+    HEAD_AXIS_ROLES.flatMap((a) => (p.latest[a] ? [p.latest[a]] : [])),
+    d.job.decisionRule,
+  );
+}
+
 /** Fetches everything the report shows and assembles it (lib/report/build.ts). */
 export async function buildReportData(
   actor: Actor,
@@ -209,6 +221,7 @@ export async function buildReportData(
     verifyUrl: `${publicUrl}/verify/${meta.reportId}`,
     controlValues: await reportControlValues(actor, d.job),
     budget: await reportBudget(actor, d),
+    rotaryPositioning: await reportPositioning(d),
   });
   return { data, images };
 }
@@ -232,11 +245,13 @@ export async function getJobConformity(
     return content?.conformity ? { conformity: content.conformity, issuedRevision: current.revision } : null;
   }
   if (provisionalConformityRefusal(actor)) return null;
-  const [params, comparison, testPart, carried] = await Promise.all([
+  const [params, comparison, testPart, carried, controlValues, rotaryPositioning] = await Promise.all([
     approvedParameters(actor, d),
     getComparison(actor, d.job.id),
     jobTestPart(actor, d.job.id, d.job.decisionRule),
     carriedResultCount(actor, d),
+    reportControlValues(actor, d.job),
+    reportPositioning(d),
   ]);
   return {
     conformity: reportConformity(
@@ -245,6 +260,8 @@ export async function getJobConformity(
         parameters: params?.section ?? null,
         testPart,
         carried,
+        controlValues,
+        rotaryPositioning,
       },
       d.job.decisionRule,
     ),

@@ -4,7 +4,7 @@ import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { getJobDetail, visibleJob } from "@/db/queries/jobs";
-import { datasets, readings, signatures } from "@/db/schema";
+import { datasets, photos, readings, signatures } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
 import { SIGNATURE_LABELS, type SignatureMeaningKey } from "@/lib/domain/signatures";
 import { sameSignerRefusal, signatureRefusal } from "@/lib/policy/signatures";
@@ -28,9 +28,21 @@ export async function requirePasswordReentry(actor: Actor, password: string): Pr
 
 /**
  * A hash of what has been recorded on the job (its current and superseded readings, with value,
- * phase and instrument, and its datasets with their SHA-256 and status), so a pre-issue signature
- * says what it covered: a reading or dataset recorded later changes it, and the readiness check
- * (lib/report/readiness.ts) then asks for the signature again. Status changes do not change it.
+ * phase and instrument, its datasets with their SHA-256 and status, and its photos with their
+ * SHA-256 and the reading each shows), so a pre-issue signature says what it covered: a reading,
+ * dataset or photo recorded later changes it, and the readiness check (lib/report/readiness.ts)
+ * then asks for the signature again. Status changes do not change it.
+ *
+ * The control's values (as found and as left, db/queries/control-values.ts) are deliberately not
+ * part of it. "Performed" and "inspected" vouch for the measurements taken on the head; the values
+ * to enter follow from the approved fit, and the as-left values are typed into the control and
+ * recorded only after approval, when the inspector has usually signed already: counting them here
+ * would make every inspection stale by the normal order of the work, and would let a value the
+ * inspector never saw pass as inspected after re-signing by habit. Each record carries its own
+ * author, time and audit event instead, and the issued report vouches for them: they are printed
+ * in 5.1 and are part of the report's content, whose SHA-256 (lib/report/build.ts) the approval
+ * signature covers with the PDF. The TCP check taken after approval is a dataset, so it does make
+ * the signatures stale: it is a measurement on the head.
  */
 export async function jobStateSha256(jobId: string): Promise<string> {
   const rs = await db
@@ -49,7 +61,16 @@ export async function jobStateSha256(jobId: string): Promise<string> {
     .from(datasets)
     .where(eq(datasets.jobId, jobId))
     .orderBy(asc(datasets.id));
-  return sha256Hex(canonicalJson({ state: 2, readings: rs, datasets: ds }));
+  const ph = await db
+    .select({ id: photos.id, sha256: photos.sha256, readingId: photos.readingId })
+    .from(photos)
+    .where(eq(photos.jobId, jobId))
+    .orderBy(asc(photos.id));
+  // Left out when the job has none, so a job without photos keeps the hash its signatures were
+  // given over before photos counted.
+  return sha256Hex(
+    canonicalJson({ state: 2, readings: rs, datasets: ds, ...(ph.length ? { photos: ph } : {}) }),
+  );
 }
 
 /** What a signature signs: who, meaning, when, and the report bytes or the job state it covers. */

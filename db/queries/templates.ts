@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, eq, max } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { listProcedures } from "@/db/queries/procedures";
+import { copyPositioningLimits, listProcedures } from "@/db/queries/procedures";
 import { procedureTemplates, templateParameterLimits, templateSteps } from "@/db/schema";
 import { HEAD_PARAMETER_KEYS, type HeadParameterKey } from "@/geometry";
 import { type Actor } from "@/lib/domain/roles";
@@ -151,6 +151,7 @@ export async function createTemplateVersion(
     const edited = parameterEdits.filter((e) => e.lowerLimit != null || e.upperLimit != null);
     const next = [...kept, ...edited].map((l) => ({ ...l, templateId: t!.id }));
     if (next.length) await tx.insert(templateParameterLimits).values(next);
+    await copyPositioningLimits(tx, base.id, t!.id);
     await appendAudit(tx, {
       actorId: actor.id,
       actorEmail: actor.email,

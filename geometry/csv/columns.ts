@@ -1,5 +1,5 @@
 /**
- * The columns of the four dataset CSV formats, as the readers check them: header name, number or
+ * The columns of the dataset CSV formats, as the readers check them: header name, number or
  * text, required or optional. The one list: the upload form (components/datasets/kinds.ts) takes
  * its columns from here and adds only labels and header aliases. Formats: geometry/README.md.
  */
@@ -40,12 +40,21 @@ export const TEST_PART_COLUMNS: readonly ColumnSpec[] = [
   { name: "unit", kind: "text", required: false },
 ];
 
+export const ROTARY_POSITIONING_COLUMNS: readonly ColumnSpec[] = [
+  { name: "target_deg", kind: "number", required: true },
+  { name: "run", kind: "number", required: true },
+  { name: "direction", kind: "text", required: true },
+  { name: "measured_deg", kind: "number", required: true },
+  { name: "axis", kind: "text", required: false },
+];
+
 /** Every format's columns by dataset kind (the database's dataset_kind values). */
 export const CSV_COLUMNS = {
   sphere_probe: SPHERE_PROBE_COLUMNS,
   tram: TRAM_COLUMNS,
   sweep: SWEEP_COLUMNS,
   test_part: TEST_PART_COLUMNS,
+  rotary_positioning: ROTARY_POSITIONING_COLUMNS,
 } as const;
 
 export type { ColumnSpec };

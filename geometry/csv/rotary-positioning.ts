@@ -3,23 +3,10 @@
  * `direction` is `pos` or `neg` (case-insensitive); angles in degrees; one axis per file.
  */
 import type { RotaryPositioningData } from "../types";
-import {
-  fail,
-  MAX_ISSUES,
-  readTable,
-  type CodedIssue,
-  type ColumnSpec,
-  type CsvDecimal,
-  type WithWarnings,
-} from "./table";
+import { ROTARY_POSITIONING_COLUMNS } from "./columns";
+import { fail, MAX_ISSUES, readTable, type CodedIssue, type CsvDecimal, type WithWarnings } from "./table";
 
-const COLUMNS: readonly ColumnSpec[] = [
-  { name: "target_deg", kind: "number", required: true },
-  { name: "run", kind: "number", required: true },
-  { name: "direction", kind: "text", required: true },
-  { name: "measured_deg", kind: "number", required: true },
-  { name: "axis", kind: "text", required: false },
-];
+const COLUMNS = ROTARY_POSITIONING_COLUMNS;
 
 /** Read a rotary-positioning CSV. Throws GeometryError naming row and column on malformed input. */
 export function readRotaryPositioningCsv(

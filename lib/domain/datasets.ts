@@ -1,5 +1,12 @@
 /** Uploaded datasets: their kinds, the two phases of the work, and the list row pages show. */
-export const DATASET_KINDS = ["sphere_probe", "tram", "sweep", "test_part", "tcp_check"] as const;
+export const DATASET_KINDS = [
+  "sphere_probe",
+  "tram",
+  "sweep",
+  "test_part",
+  "tcp_check",
+  "rotary_positioning",
+] as const;
 export type DatasetKind = (typeof DATASET_KINDS)[number];
 
 export const DATASET_KIND_LABELS: Record<DatasetKind, string> = {
@@ -8,6 +15,7 @@ export const DATASET_KIND_LABELS: Record<DatasetKind, string> = {
   sweep: "Indicator sweep",
   test_part: "Test-part measurements",
   tcp_check: "Tool-centre-point check",
+  rotary_positioning: "Rotary positioning (ISO 230-2)",
 };
 
 /** The CSV format each kind is read with: a TCP check is sphere-probe data (geometry/README.md). */
@@ -17,6 +25,7 @@ export const CSV_FORMAT_OF = {
   sweep: "sweep",
   test_part: "test_part",
   tcp_check: "sphere_probe",
+  rotary_positioning: "rotary_positioning",
 } as const satisfies Record<DatasetKind, string>;
 
 export const DATASET_STATUSES = ["stored", "deleted"] as const;

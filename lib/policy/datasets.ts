@@ -14,10 +14,12 @@ export function dataHandlerRefusal(actor: Actor, action: "upload" | "delete"): s
 }
 
 /**
- * After approval one kind of data is still taken: the tool-centre-point check, which verifies the
- * values entered in the control from the approved fit (it cannot exist before them).
+ * After approval two kinds of data are still taken: the tool-centre-point check, which verifies the
+ * values entered in the control from the approved fit (it cannot exist before them), and the
+ * ISO 230-2 positioning test of a rotary axis, which does not enter the fit and is often run once
+ * the head is compensated.
  */
-export const AFTER_APPROVAL_KINDS: readonly DatasetKind[] = ["tcp_check"];
+export const AFTER_APPROVAL_KINDS: readonly DatasetKind[] = ["tcp_check", "rotary_positioning"];
 
 /**
  * May this actor upload to a job (they can see) in this status now? Without `kind`: could any
@@ -29,7 +31,7 @@ export function uploadRefusal(actor: Actor, job: { status: JobStatus }, kind?: D
   if (UPLOAD_STATUSES.includes(job.status)) return null;
   if (job.status === "approved" && (kind === undefined || AFTER_APPROVAL_KINDS.includes(kind))) return null;
   return job.status === "approved"
-    ? "Once the parameters are approved, only a tool-centre-point check is added to the job."
+    ? "Once the parameters are approved, only a tool-centre-point check or a rotary positioning test is added to the job."
     : `Data can be added while the job is draft, measuring or in review; this job is ${job.status.replace("_", " ")}.`;
 }
 

@@ -440,17 +440,25 @@ export function conformityStatement(
 }
 
 /**
- * The statement of conformity of a job's judged rows (readings, head parameters, test part) and
- * recorded deviations: one function for the issued report and the job's overview page.
+ * The statement of conformity of a job's judged rows (readings, head parameters, test part, the
+ * tool-centre-point check after compensation and each rotary axis's positioning test, one result
+ * each) and recorded deviations: one function for the issued report and the job's overview page.
+ * A FAIL or undecided check or test blocks issue unless a deviation carries it; carried, the
+ * report conforms with deviations, as for a parameter.
  */
 export function reportConformity(
-  i: Pick<ReportInputs, "readings" | "parameters" | "testPart" | "carried">,
+  i: Pick<
+    ReportInputs,
+    "readings" | "parameters" | "testPart" | "carried" | "controlValues" | "rotaryPositioning"
+  >,
   rule: string,
 ): NonNullable<ReportData["conformity"]> {
   const decisions = [
     ...i.readings.rows.map((r) => r.decision),
     ...(i.parameters?.rows ?? []).map((r) => r.decision),
     ...i.testPart.map((r) => r.decision),
+    ...(i.controlValues?.tcpCheck ? [i.controlValues.tcpCheck.decision] : []),
+    ...(i.rotaryPositioning ?? []).map((t) => t.decision),
   ];
   return conformityStatement(decisions, i.carried, decisionRuleText(rule));
 }
@@ -502,9 +510,12 @@ export interface ReportInputs {
   /** lib/report/sections/control.ts; null or absent when no control values were recorded. */
   controlValues?: ReportData["controlValues"] | null;
   budget?: ReportData["budget"] | null;
+  /** lib/report/sections/positioning.ts; empty or absent when no rotary axis was tested. */
+  rotaryPositioning?: ReportData["rotaryPositioning"] | null;
 }
 
 const METHOD_READINGS = "Indicator readings against the checklist limits";
+const METHOD_POSITIONING = "positioning of the rotary axes by ISO 230-2";
 const METHOD_FIT =
   "kinematic fit from sphere-probe data (geometry model stated in the product documentation)";
 
@@ -560,7 +571,7 @@ export function buildReportContent(i: ReportInputs): ReportData {
       procedure: i.template
         ? `${i.template.name}, version ${i.template.version}`
         : "Checklist as recorded on the job (no procedure version)",
-      method: methodOf(i),
+      method: i.rotaryPositioning?.length ? `${methodOf(i)}; ${METHOD_POSITIONING}` : methodOf(i),
       decisionRule,
     },
     instruments: i.instruments,
@@ -576,6 +587,7 @@ export function buildReportContent(i: ReportInputs): ReportData {
     deviations: deviationRows(i.deviations),
     ...(i.controlValues ? { controlValues: i.controlValues } : {}),
     ...(i.budget ? { budget: i.budget } : {}),
+    ...(i.rotaryPositioning?.length ? { rotaryPositioning: i.rotaryPositioning } : {}),
     remarks: [...(i.parameters ? [i.parameters.note] : []), ...(d.job.notes ? [d.job.notes] : [])],
     ...(i.photos?.length ? { photos: i.photos } : {}),
     safety: [...SAFETY_NOTES],

@@ -28,6 +28,7 @@ import { PhotoAppendix } from "./sections/photos";
 import { ClosingStatementsPdf, RecordDetailsPdf } from "./sections/records-pdf";
 import { BudgetPdf } from "./sections/budget";
 import { ControlValuesPdf } from "./sections/control-pdf";
+import { PositioningPdf } from "./sections/positioning-pdf";
 
 const C = {
   ink: palette.graphite[900],
@@ -480,6 +481,7 @@ export function ReportDocument({
 
           <ControlValuesPdf section={data.controlValues} />
           <BudgetPdf budget={data.budget} />
+          <PositioningPdf tests={data.rotaryPositioning} />
 
           <Text style={s.h2} minPresenceAhead={40}>
             6 Test part

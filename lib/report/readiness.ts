@@ -14,10 +14,13 @@
  *   the job's recorded state (a later reading or dataset makes them stale).
  * - A procedure that asks for a tool-centre-point check after compensation has one stored; its
  *   latest check is judged like any other result (FAIL: check again, or carry it as a deviation).
+ * - A procedure that sets ISO 230-2 positioning limits for a rotary axis has a positioning test of
+ *   that axis stored; the test that counts is judged like any other result.
  * - Every FAIL or undecided result is either measured again and passing (the current reading or
  *   fit is what is judged) or carried as a deviation with a written justification.
  * - The issuer's name and address are filled in (ISO/IEC 17025:2017 §7.8.2.1 b).
  */
+import { HEAD_AXIS_ROLE_WORDS, type HeadAxisRole } from "@/lib/domain/positioning";
 import { AppError } from "@/lib/errors";
 import type { Decision } from "@/lib/report/types";
 
@@ -35,6 +38,7 @@ export const BLOCKER_CODES = [
   "photo_missing",
   "issuer_details_missing",
   "tcp_check_missing",
+  "rotary_positioning_missing",
 ] as const;
 export type BlockerCode = (typeof BLOCKER_CODES)[number];
 
@@ -96,6 +100,8 @@ export interface ReadinessInput {
   issuerMissing?: readonly string[];
   /** The procedure asks for a TCP check, and the latest stored one (its judged result is in `results`). */
   tcpCheck?: { required: boolean; latest: { datasetId: string; filename: string } | null };
+  /** The axes the procedure sets positioning limits for, and the axes with a stored test (its result is in `results`). */
+  rotaryPositioning?: { required: readonly HeadAxisRole[]; present: readonly HeadAxisRole[] };
 }
 
 /** The phase whose state the report vouches for. */
@@ -211,6 +217,14 @@ export function readiness(input: ReadinessInput): Readiness {
       "The procedure asks for a tool-centre-point check after the new values are entered in the control; none is stored.",
       `${job}/control`,
     );
+
+  for (const axis of input.rotaryPositioning?.required ?? [])
+    if (!input.rotaryPositioning!.present.includes(axis))
+      add(
+        "rotary_positioning_missing",
+        `The procedure sets ISO 230-2 positioning limits for the ${HEAD_AXIS_ROLE_WORDS[axis]}; no positioning test of it is stored.`,
+        `${job}/data`,
+      );
 
   for (const meaning of ["performed", "inspected"] as const) {
     const given = input.signatures.filter((s) => s.meaning === meaning);

@@ -8,6 +8,7 @@ import type { RecordedDecision } from "@/lib/domain/decisions";
 import type { PhotoAppendixRow } from "./sections/photos";
 import type { ReportRecords } from "@/lib/report/sections/records";
 import type { ReportBudget } from "@/lib/report/sections/budget";
+import type { ReportPositioningTest } from "@/lib/report/sections/positioning";
 import type { ReportControlValues } from "@/lib/report/sections/control";
 
 /** geometry's decision, or "not_measured", or "recorded": a reading kept without a limit to judge it against. */
@@ -114,6 +115,8 @@ export interface ReportData {
   controlValues?: ReportControlValues;
   /** The approved fit's uncertainty budget; absent without an approved fit. */
   budget?: ReportBudget;
+  /** ISO 230-2 positioning of the rotary axes (5.4), one test per axis; absent when none is stored. */
+  rotaryPositioning?: ReportPositioningTest[];
   remarks: string[];
   /** Photos of the steps that ask for one (lib/report/sections/photos.tsx); absent when none. */
   photos?: PhotoAppendixRow[];

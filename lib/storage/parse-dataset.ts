@@ -20,6 +20,9 @@ import {
   readSweepCsv,
   readTestPartCsv,
   readTramCsv,
+  readRotaryPositioningCsv,
+  rotaryPositioning,
+  rotaryPositioningToJson,
   tcpCheck,
   tcpCheckToJson,
   type SphereProbeData,
@@ -28,6 +31,7 @@ import {
   tramToJson,
 } from "@/geometry";
 import { DATASET_KINDS, PHASES, type DatasetKind } from "@/lib/domain/datasets";
+import { HEAD_AXIS_ROLE_WORDS, HEAD_AXIS_ROLES, type HeadAxisRole } from "@/lib/domain/positioning";
 import { AppError, invalid, type FieldIssue } from "@/lib/errors";
 
 export { DATASET_KINDS, PHASES, type DatasetKind };
@@ -84,6 +88,21 @@ const formSchemas = {
     decimal,
     header: headerLine,
   }),
+  rotary_positioning: z.object({
+    axis: z.enum(HEAD_AXIS_ROLES, { error: "choose the primary (rotary) or the secondary (tilt) axis" }),
+    decimal,
+    header: headerLine,
+    /** Expanded uncertainty U (k = 2) of the angle measurement, arc seconds (for the guarded rule). */
+    uncertainty_arcsec: z.preprocess(
+      (v) => (v === "" ? undefined : v),
+      z.coerce
+        .number({ error: "the expanded uncertainty must be a number (arc seconds)" })
+        .finite()
+        .min(0, "the expanded uncertainty must be ≥ 0″")
+        .max(36_000)
+        .optional(),
+    ),
+  }),
   test_part: z.object({
     decimal,
     header: headerLine,
@@ -101,7 +120,9 @@ const formSchemas = {
 } as const;
 
 export const uploadFormSchema = z.object({
-  kind: z.enum(DATASET_KINDS, { error: "kind must be sphere_probe, tram, sweep, test_part or tcp_check" }),
+  kind: z.enum(DATASET_KINDS, {
+    error: "kind must be sphere_probe, tram, sweep, test_part, tcp_check or rotary_positioning",
+  }),
   phase: z.enum(PHASES, { error: "phase must be pre or post" }),
 });
 
@@ -125,6 +146,8 @@ export function parseUploadForm(fields: Readonly<Record<string, string>>) {
       reading_units?: "um" | "mm" | "in";
       radius_mm?: number;
       uncertainty_mm?: number;
+      axis?: HeadAxisRole;
+      uncertainty_arcsec?: number;
     }),
   };
 }
@@ -361,6 +384,27 @@ export function parseDatasetText(form: UploadForm, input: string): ParsedDataset
           ...r.warnings,
         ]);
       }
+      case "rotary_positioning": {
+        // Evaluated at upload (geometry/rotary-positioning.ts, ISO 230-2): too few runs are refused
+        // naming the target and direction. The axis is the form's; a letter in the file is kept.
+        const d = readRotaryPositioningCsv(text, { decimal: form.decimal });
+        const rotary = rotaryPositioningToJson(rotaryPositioning(d));
+        const columns = [
+          copyColumn("target_deg", "deg", d.targetDeg),
+          copyColumn("run", "1", d.run),
+          copyColumn(
+            "direction_pos",
+            "1",
+            d.direction.map((x) => (x === "pos" ? 1 : 0)),
+          ),
+          copyColumn("measured_deg", "deg", d.measuredDeg),
+        ];
+        const units: Record<string, string | number> = {
+          axis: form.axis!,
+          ...(form.uncertainty_arcsec !== undefined ? { uncertainty_arcsec: form.uncertainty_arcsec } : {}),
+        };
+        return done(form, d.rows, columns, units, options, { rotary }, d.warnings, [...rotary.warnings]);
+      }
       case "test_part": {
         const rows = readTestPartCsv(text, { decimal: form.decimal });
         const plain: TestPartRow[] = rows.map((r) => ({ ...r }));
@@ -418,6 +462,30 @@ function done(
     summary: { ...summary, columns: ranges },
     warnings: [...warnings.map(formatIssue), ...extra],
   };
+}
+
+/**
+ * A rotary positioning file that names its axis letter must name the letter the job's head has for
+ * the axis chosen at upload (a C-axis file filed as the tilt axis of a C/A head is refused, 422).
+ */
+export function checkPositioningAxisLetter(
+  parsed: ParsedDataset,
+  head: { primaryAxis: string; secondaryAxis: string },
+): void {
+  if (parsed.kind !== "rotary_positioning") return;
+  const letter = (parsed.summary.rotary as { axis?: string }).axis;
+  const axis = parsed.units.axis as HeadAxisRole;
+  const expected = axis === "primary" ? head.primaryAxis : head.secondaryAxis;
+  if (letter !== undefined && letter !== expected)
+    throw invalid(
+      `The file is for axis ${letter}; the head's ${HEAD_AXIS_ROLE_WORDS[axis]} is ${expected}.`,
+      [
+        {
+          field: "axis",
+          message: `the file's axis column says ${letter}, the head's ${HEAD_AXIS_ROLE_WORDS[axis]} is ${expected}`,
+        },
+      ],
+    );
 }
 
 /** Bytes → validated dataset (decode, the limits, then the readers). */

@@ -11,7 +11,9 @@ import { runHeadFit } from "@/db/queries/analyses";
 import { approveConfirmed } from "./fixtures";
 import { changeJobStatus, createJobFromTemplate } from "@/db/queries/job-status";
 import { getReportContent, issueReport } from "@/db/queries/reports";
-import { signJobWork } from "@/db/queries/signatures";
+import { jobStateSha256, signJobWork } from "@/db/queries/signatures";
+import { canonicalJson } from "@/lib/canonical-json";
+import { sha256Hex } from "@/lib/report/signing";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { auditEvents, controlValueRecords, instruments, jobs, procedureTemplates } from "@/db/schema";
@@ -221,6 +223,7 @@ describe("one job through the control loop", () => {
     expect(loop.approved.analysisId).toBe(analysis.id);
 
     // As left: the pivot as computed, the zeros left off by 0.01° (flagged).
+    const stateBeforeAsLeft = await jobStateSha256(ids.flow);
     await signInAs("engineer@halvard.example");
     const zero = loop.rows.find((r: { key: string }) => r.key === "secondary_zero_deg");
     const left = await put(ids.flow, {
@@ -238,6 +241,12 @@ describe("one job through the control loop", () => {
       { key: "secondary_zero_deg", flag: "differs", difference: expect.closeTo(0.01, 9) },
     ]);
     expect(l.asLeft.analysisId).toBe(analysis.id);
+    // Entered after approval, the as-left values leave the earlier "performed" and "inspected"
+    // signatures standing (db/queries/signatures.jobStateSha256 says why); the report vouches for them.
+    expect(await jobStateSha256(ids.flow)).toBe(stateBeforeAsLeft);
+    expect((await getReadiness(as.engineer!, ids.flow))!.blockers.map((b) => b.code)).not.toContain(
+      "signature_stale",
+    );
     const [ev] = await db
       .select()
       .from(auditEvents)
@@ -280,6 +289,13 @@ describe("one job through the control loop", () => {
       "Tilt axis zero offset",
     ]);
     expect(content?.controlValues?.rows[2]!.check).toMatch(/^Differs from the value to enter/);
+    // The report's content hash covers the as-left values: it is the hash of the content that
+    // prints them (checked here by recomputing it over that content).
+    const { contentSha256, ...rest } = content!;
+    expect(sha256Hex(canonicalJson(rest))).toBe(contentSha256);
+    const asLeftCell = rest.controlValues!.rows[2]!.asLeft;
+    expect(asLeftCell).toMatch(/\d/);
+    expect(canonicalJson(rest)).toContain(JSON.stringify(asLeftCell));
     // The budget printed with it: the pivot row carries the presetter and the temperature band.
     const uUm = (dti!.standardUncertainty * 1000).toFixed(3);
     const pivotBudget = content?.budget?.rows.find((r) => r.parameter.includes("Pivot length"));

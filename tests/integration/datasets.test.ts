@@ -306,7 +306,10 @@ describe("rejected uploads: exact issues, nothing stored", () => {
     ]);
     const badKind = await upload(measuring, bytes, { kind: "photo", phase: "during" });
     expect((await badKind.json()).error.issues).toEqual([
-      { field: "kind", message: "kind must be sphere_probe, tram, sweep, test_part or tcp_check" },
+      {
+        field: "kind",
+        message: "kind must be sphere_probe, tram, sweep, test_part, tcp_check or rotary_positioning",
+      },
       { field: "phase", message: "phase must be pre or post" },
     ]);
     const noRadius = await upload(measuring, fixture("sweep-good.csv"), {

@@ -13,6 +13,9 @@ import { auditEvents, jobs, photos, templateSteps } from "@/db/schema";
 import { postReading, WHO, type Who } from "./fixtures";
 import { jobIdByReference, request, signInAs } from "./helpers";
 import { jobLike } from "./tablet-helpers";
+import { getReadiness } from "@/db/queries/readiness";
+import { jobStateSha256, signJobWork } from "@/db/queries/signatures";
+import { getActor } from "@/db/queries/users";
 
 let jobId: string; // measuring, Marlow Creek, the demo installer assigned
 let issuedJobId: string; // TR-2026-0041, issued, Marlow Creek
@@ -223,4 +226,32 @@ describe("photo access matrix", () => {
       }
     });
   }
+});
+
+describe("photos and the work signatures", () => {
+  it("a photo added after 'performed' and 'inspected' makes both stale: they vouch for the photos too", async () => {
+    const job = await newJob("TR-2026-0057", "measuring");
+    const installer = (await getActor((await signInAs("installer@halvard.example"))!))!;
+    const inspector = (await getActor((await signInAs("inspector@halvard.example"))!))!;
+    await signJobWork(installer, { jobId: job.id, meaning: "performed", password: "trammel-demo" });
+    await signJobWork(inspector, { jobId: job.id, meaning: "inspected", password: "trammel-demo" });
+    const codes = async () => (await getReadiness(inspector, job.id))!.blockers.map((b) => b.code);
+    expect(await codes()).not.toContain("signature_stale");
+    const before = await jobStateSha256(job.id);
+
+    await signInAs("installer@halvard.example");
+    expect((await upload(job.id, png, { stepId: job.stepId, phase: "pre" })).status).toBe(201);
+    const after = await jobStateSha256(job.id);
+    expect(after).not.toBe(before);
+    expect((await codes()).filter((c) => c === "signature_stale")).toHaveLength(2);
+
+    // Signed again, the signatures cover the photo; the same photo sent again (same bytes, new id)
+    // is a new record and makes them stale once more.
+    await signJobWork(installer, { jobId: job.id, meaning: "performed", password: "trammel-demo" });
+    await signJobWork(inspector, { jobId: job.id, meaning: "inspected", password: "trammel-demo" });
+    expect(await codes()).not.toContain("signature_stale");
+    await signInAs("installer@halvard.example");
+    expect((await upload(job.id, png, { stepId: job.stepId, phase: "pre" })).status).toBe(201);
+    expect((await codes()).filter((c) => c === "signature_stale")).toHaveLength(2);
+  }, 60_000);
 });

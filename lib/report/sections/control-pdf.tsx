@@ -125,3 +125,6 @@ export function ControlValuesPdf({ section }: { section: ReportControlValues | u
     </View>
   );
 }
+
+/** The look of the 5.x sections' headings and tables, for the sections that follow this one. */
+export { s as sectionStyles };

@@ -18,6 +18,12 @@ import { formatDateTimeUtc } from "@/lib/format";
 import { HEAD_PARAMETER_KEYS, headParameterUnit } from "@/geometry";
 import { limitText, PARAMETER_WORDS } from "@/lib/fit-display";
 import { fromCanonical, formatLimits } from "@/lib/units";
+import {
+  HEAD_AXIS_ROLE_WORDS,
+  POSITIONING_QUANTITY_WORDS,
+  type PositioningQuantity,
+} from "@/lib/domain/positioning";
+import { arcsecText } from "@/lib/rotary-positioning-display";
 
 export const metadata: Metadata = { title: "Procedures" };
 
@@ -125,6 +131,36 @@ export default async function ProceduresPage() {
               ]}
             />
           )}
+          {t.positioningLimits.length ? (
+            <>
+              <h3 className="mb-2 mt-5 text-sm font-semibold">
+                Limits for the positioning of the rotary axes (ISO 230-2)
+              </h3>
+              <p className="mb-2 text-sm text-graphite-600">
+                A job with this version needs a positioning test of each axis listed before its report is
+                issued. Kept by each later version of this procedure.
+              </p>
+              <Table
+                caption={`Rotary positioning limits, version ${t.version}`}
+                empty={null}
+                bare
+                data={t.positioningLimits}
+                getRowId={(l) => l.id}
+                columns={(column) => [
+                  column("Axis", (l) => HEAD_AXIS_ROLE_WORDS[l.axis]),
+                  column(
+                    "Quantity",
+                    (l) =>
+                      `${POSITIONING_QUANTITY_WORDS[l.quantity as PositioningQuantity] ?? l.quantity} (${l.quantity})`,
+                  ),
+                  column("Limit", (l) => `≤ ${arcsecText(l.upperLimitArcsec)}`, { numeric: true }),
+                  column("Source", (l) => LIMIT_SOURCE_LABELS[l.limitSource], {
+                    cellProps: (l) => ({ title: l.limitSourceNote ?? undefined }),
+                  }),
+                ]}
+              />
+            </>
+          ) : null}
           {mayEdit && t.isCurrent ? (
             <details className="mt-4 rounded-card border border-graphite-200 p-4">
               <summary className="min-h-touch cursor-pointer py-2 font-medium">

@@ -7,7 +7,7 @@ import { env } from "@/lib/env";
 import { invalid } from "@/lib/errors";
 import { route } from "@/lib/http";
 import { readMultipart } from "@/lib/storage/multipart";
-import { parseDatasetFile, parseUploadForm } from "@/lib/storage/parse-dataset";
+import { checkPositioningAxisLetter, parseDatasetFile, parseUploadForm } from "@/lib/storage/parse-dataset";
 import { readRoute } from "@/lib/read-route";
 
 export const runtime = "nodejs";
@@ -26,10 +26,11 @@ export const POST = route<Ctx>(async (req, ctx) => {
   const { fields, file } = await readMultipart(req, env.UPLOAD_MAX_BYTES);
   const form = parseUploadForm(fields);
   // After approval only some kinds are taken: checked again now that the kind is known.
-  await requireUploadableJob(actor, id, form.kind);
+  const d = await requireUploadableJob(actor, id, form.kind);
   if (!file) throw invalid("Choose a CSV file to upload.", [{ field: "file", message: "no file was sent" }]);
   // 3. Re-parse with geometry/'s readers: 422 naming row and column on any problem.
   const parsed = parseDatasetFile(form, file.data);
+  checkPositioningAxisLetter(parsed, d.head);
   // 4. Store the original unchanged, then the rows, in one transaction.
   const row = await insertDataset(actor, id, form, file, parsed);
   return Response.json(

@@ -7,10 +7,15 @@ import { KIND_LABELS, PHASE_LABELS } from "@/components/datasets/kinds";
 import { Table } from "@/components/ui/table";
 import { Card, Facts } from "@/components/ui/card";
 import { getTestPartEvaluation } from "@/db/queries/datasets";
+import { getJobDetail } from "@/db/queries/jobs";
+import { positioningTestOf } from "@/db/queries/positioning";
+import { PositioningTestBlock } from "@/components/report/positioning-section";
+import { positioningSection } from "@/lib/report/sections/positioning";
 import { datasetDeleteRefusal } from "@/lib/policy/datasets";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
 import { pageUuid } from "@/lib/domain/uuid";
+import { HEAD_AXIS_ROLE_WORDS, type HeadAxisRole } from "@/lib/domain/positioning";
 
 export const metadata: Metadata = { title: "Dataset" };
 
@@ -31,6 +36,8 @@ function unitsText(units: Record<string, unknown>): string {
   if (units.reading_units) parts.push(`readings in ${UNIT_WORDS[String(units.reading_units)]}`);
   if (units.radius_mm !== undefined) parts.push(`sweep radius ${Number(units.radius_mm)} mm`);
   if (units.uncertainty_mm !== undefined) parts.push(`U = ${Number(units.uncertainty_mm)} mm (k = 2)`);
+  if (units.axis) parts.push(`angles in degrees, ${HEAD_AXIS_ROLE_WORDS[units.axis as HeadAxisRole]}`);
+  if (units.uncertainty_arcsec !== undefined) parts.push(`U = ${Number(units.uncertainty_arcsec)}″ (k = 2)`);
   return parts.join(" · ") || "as written in each row (mm unless the row says otherwise)";
 }
 
@@ -58,6 +65,22 @@ export default async function DatasetPage({ params, searchParams }: Props) {
     columns?: Record<string, { unit: string; min: number; max: number }>;
   };
   const mayDelete = ds.status === "stored" && datasetDeleteRefusal(user, detail.job) === null;
+  const job = ds.kind === "rotary_positioning" ? await getJobDetail(user, id) : null;
+  const positioning = job
+    ? positioningSection(
+        [
+          await positioningTestOf(job, {
+            id: ds.id,
+            filename: ds.originalFilename,
+            phase: ds.phase,
+            uploadedAt: ds.uploadedAt,
+            units: ds.units,
+            summary: ds.summary,
+          }),
+        ],
+        job.job.decisionRule,
+      )[0]
+    : undefined;
 
   return (
     <div className="space-y-6">
@@ -136,6 +159,20 @@ export default async function DatasetPage({ params, searchParams }: Props) {
               ) : null}
             </nav>
           ) : null}
+        </section>
+      ) : null}
+
+      {positioning ? (
+        <section aria-labelledby="positioning-title" className="space-y-3">
+          <h3 id="positioning-title" className="text-base font-semibold">
+            Positioning of the {positioning.axis} (ISO 230-2)
+          </h3>
+          <PositioningTestBlock test={positioning} />
+          <p className="text-sm text-graphite-700">
+            Limits come from the job&apos;s procedure version; a quantity without a limit is recorded, not
+            judged. Move the axis at reduced speed with the guards closed while the test runs, and follow the
+            machine builder&apos;s manual for the test cycle.
+          </p>
         </section>
       ) : null}
 
