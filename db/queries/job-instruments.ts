@@ -1,6 +1,7 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import { db } from "@/db";
+import { listUsableInstruments } from "@/db/queries/readings";
 import { visibleJob } from "@/db/queries/jobs";
 import { appendAudit } from "@/db/queries/audit";
 import { instruments, jobInstruments } from "@/db/schema";
@@ -95,15 +96,8 @@ export async function listJobInstruments(jobId: string) {
 /** Instruments in use (not retired, in calibration today) for the picker, labelled kind and serial. */
 export async function listInstrumentsForPicker(): Promise<Array<{ id: string; label: string }>> {
   const today = new Date().toISOString().slice(0, 10);
-  const rows = await db
-    .select({
-      id: instruments.id,
-      kind: instruments.kind,
-      serial: instruments.serial,
-      due: instruments.calibrationDueOn,
-    })
-    .from(instruments)
-    .where(eq(instruments.retired, false))
-    .orderBy(asc(instruments.kind), asc(instruments.serial));
-  return rows.filter((r) => r.due >= today).map((r) => ({ id: r.id, label: `${r.kind} ${r.serial}` }));
+  const rows = await listUsableInstruments();
+  return rows
+    .filter((r) => r.calibrationDueOn >= today)
+    .map((r) => ({ id: r.id, label: `${r.kind} ${r.serial}` }));
 }
