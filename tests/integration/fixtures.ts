@@ -66,13 +66,11 @@ export const allActors = () => actorsOf(PEOPLE);
 
 export type JobBase = Awaited<ReturnType<typeof jobBaseOf>>;
 
-/** The demo installer's user id (db/seed.ts). */
-async function demoInstallerId(): Promise<string> {
-  const [u] = await db
-    .select({ id: users.id })
-    .from(users)
-    .where(eq(users.email, "installer@halvard.example"));
-  return u!.id;
+/** The user id of a demo person by e-mail (db/seed.ts), without signing in. */
+export async function demoUserId(email: string): Promise<string> {
+  const [u] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
+  if (!u) throw new Error(`no demo user ${email}`);
+  return u.id;
 }
 
 /**
@@ -91,7 +89,9 @@ export async function insertTestJob(opts: {
 }): Promise<string> {
   const base = opts.base ?? (await jobBaseOf(BASE_JOB));
   const installerId =
-    opts.assignedInstallerId === undefined ? await demoInstallerId() : opts.assignedInstallerId;
+    opts.assignedInstallerId === undefined
+      ? await demoUserId("installer@halvard.example")
+      : opts.assignedInstallerId;
   const [row] = await db
     .insert(jobs)
     .values({
