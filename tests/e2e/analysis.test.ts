@@ -20,7 +20,7 @@ import {
   pageAs,
   contextForFile,
 } from "./browser";
-import { uploadSyntheticProbe } from "./steps";
+import { uploadSyntheticProbe, exaggerateTenThousandfold, expectNotFound } from "./steps";
 
 const ctx = contextForFile({ width: 1440, height: 1000 });
 
@@ -73,11 +73,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     await p.screenshot({ path: screenshotPath("analysis-engineer"), fullPage: true });
     await viewerShot(p, "analysis-3d-x300");
 
-    await p.getByLabel("Exaggeration factor").fill("4");
-    await expect.poll(() => p.getByTestId("factor-label").innerText()).toMatch(/×10\u2009000/);
-    await expect
-      .poll(async () => (await canvasPixels(p)).digest, { timeout: 10_000 })
-      .not.toBe(before.digest);
+    await exaggerateTenThousandfold(p, before.digest);
     await viewerShot(p, "analysis-3d-x10000");
 
     // Approval is refused while the job is measuring: the button is off and says why.
@@ -230,11 +226,7 @@ describe("journey 2: the engineer reviews and approves the head fit", () => {
     await p.close();
 
     // Another company's buyer: not found, and nothing of this head's jobs in the page.
-    const q = await pageAs(ctx(), "buyer@tollan.example");
-    const res = await q.goto(historyPath);
-    expect(res?.status()).toBe(404);
-    expect(await q.content()).not.toContain("TR-2026-0041");
-    await q.close();
+    await expectNotFound(ctx(), "buyer@tollan.example", historyPath, "TR-2026-0041");
     // The installer works on jobs on this head, so they read its history (what an after-crash
     // re-check needs).
     const inst = await pageAs(ctx(), "installer@halvard.example");

@@ -13,7 +13,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { headPoseGrid, synthesiseSphereProbe } from "@/geometry";
 import { screenshotPath, seriousViolations, signIn, TABLET, pageAs, contextForFile } from "./browser";
 import { pdfFile, pdfText } from "../pdf-tools";
-import { jobSection } from "./steps";
+import { openJobSection } from "./steps";
 
 const ctx = contextForFile({ width: 1440, height: 900 });
 const tablet = contextForFile(TABLET);
@@ -24,8 +24,7 @@ beforeAll(async () => {
 
 async function openControl(p: Page) {
   await p.goto("/jobs");
-  await p.getByRole("link", { name: "TR-2026-0059" }).click();
-  await jobSection(p, "Control");
+  await openJobSection(p, "TR-2026-0059", "Control");
   await p.waitForURL(/\/control$/);
 }
 

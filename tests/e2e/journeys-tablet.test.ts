@@ -38,6 +38,7 @@ import {
   uploadSyntheticProbe,
   jobSection,
   downloadSignedPdf,
+  exaggerateTenThousandfold,
 } from "./steps";
 
 const ctx = contextForFile(TABLET);
@@ -158,11 +159,7 @@ describe(`journeys on the tablet (${TABLET.width} × ${TABLET.height})`, () => {
     // The legend sits under the picture on the tablet instead of covering part of it.
     const legend = (await p.locator('[aria-label="Legend"]').boundingBox())!;
     expect(legend.y).toBeGreaterThanOrEqual(box.y + box.height - 1);
-    await p.getByLabel("Exaggeration factor").fill("4");
-    await expect.poll(() => p.getByTestId("factor-label").innerText()).toMatch(/×10\u2009000/);
-    await expect
-      .poll(async () => (await canvasPixels(p)).digest, { timeout: 10_000 })
-      .not.toBe(before.digest);
+    await exaggerateTenThousandfold(p, before.digest);
     await fitsTheTablet(p, "analysis page");
     await p.evaluate(() => window.scrollTo(0, 0));
     await p.screenshot({ path: screenshotPath("tablet-j2-analysis"), fullPage: true });

@@ -20,7 +20,7 @@ import {
   contextForFile,
 } from "./browser";
 import { pdfText } from "../pdf-tools";
-import { jobSection, downloadSignedPdf } from "./steps";
+import { downloadSignedPdf, openJobSection } from "./steps";
 
 const ctx = contextForFile({ width: 1440, height: 900 });
 
@@ -68,8 +68,7 @@ describe("records on the report", () => {
     await p.setViewportSize({ width: 1440, height: 900 });
     await signIn(p, "engineer@halvard.example");
     await p.waitForURL("**/jobs");
-    await p.getByRole("link", { name: "TR-2026-0052" }).click();
-    await jobSection(p, "Report");
+    await openJobSection(p, "TR-2026-0052", "Report");
     const blockers = p.getByRole("list", { name: "Before issue" });
     await blockers.waitFor();
     const codes = await blockers
@@ -100,8 +99,7 @@ describe("records on the report", () => {
 
   it("the customer downloads the issued report and the public page vouches for that file", async () => {
     const p = await pageAs(ctx(), "buyer@marlowcreek.example");
-    await p.getByRole("link", { name: "TR-2026-0041" }).click();
-    await jobSection(p, "Report");
+    await openJobSection(p, "TR-2026-0041", "Report");
     const article = p.getByRole("article", { name: "Acceptance report" });
     await expect.poll(() => article.innerText()).toContain("2a Record details and traceability");
     expect(await article.innerText()).toContain("PO 4500-7781 (invented)");

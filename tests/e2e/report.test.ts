@@ -6,7 +6,7 @@ import { readFileSync, writeFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { followReportMail, screenshotPath, pageAs, contextForFile } from "./browser";
 import { pdfText } from "../pdf-tools";
-import { jobSection, downloadSignedPdf } from "./steps";
+import { jobSection, downloadSignedPdf, openJobSection } from "./steps";
 
 const ctx = contextForFile();
 let pdfPath = "";
@@ -47,8 +47,7 @@ describe("journey 3: the customer accepts the signed report", () => {
 
   it("refuses to sign without the password, then accepts with it", async () => {
     const p = await pageAs(ctx(), "buyer@marlowcreek.example");
-    await p.getByRole("link", { name: "TR-2026-0041" }).click();
-    await jobSection(p, "Report");
+    await openJobSection(p, "TR-2026-0041", "Report");
     const accept = p.getByRole("form", { name: "Accept the report" });
     await accept.getByLabel("Your password").fill("not-my-password");
     await accept.getByRole("button", { name: "Accept" }).click();

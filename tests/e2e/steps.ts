@@ -1,9 +1,9 @@
 // Steps several browser tests share. Before writing a step into a test file, look here and in
 // browser.ts (contexts, sign-in, screenshots, accessibility, mail).
-import type { Locator, Page } from "playwright-core";
+import type { BrowserContext, Locator, Page } from "playwright-core";
 import { expect } from "vitest";
 import { headPoseGrid, synthesiseSphereProbe, type HeadErrors } from "@/geometry";
-import { screenshotPath } from "./browser";
+import { canvasPixels, pageAs, screenshotPath } from "./browser";
 
 /**
  * A route handler that makes the tablet offline: every request aborted, the service worker's own
@@ -22,6 +22,34 @@ export async function openStep(p: Page, n: number): Promise<Locator> {
 /** Opens a section of the job page (Data, Checklist, Report, …) from its "Job sections" navigation. */
 export async function jobSection(p: Page, section: string): Promise<void> {
   await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: section }).click();
+}
+
+/** Opens a job from the jobs list by its reference, then a section of its page. */
+export async function openJobSection(p: Page, reference: string, section: string): Promise<void> {
+  await p.getByRole("link", { name: reference }).click();
+  await jobSection(p, section);
+}
+
+/**
+ * Signed in as `email`, the page at `url` answers 404 and shows nothing of `hidden`: another
+ * company's record is as absent as a missing one.
+ */
+export async function expectNotFound(ctx: BrowserContext, email: string, url: string, hidden: string) {
+  const q = await pageAs(ctx, email);
+  const res = await q.goto(url);
+  expect(res?.status()).toBe(404);
+  expect(await q.content()).not.toContain(hidden);
+  await q.close();
+}
+
+/**
+ * Sets the 3-D viewer's exaggeration slider to its fourth step (×10 000) and waits until the
+ * drawn picture differs from the one whose digest is `before`.
+ */
+export async function exaggerateTenThousandfold(p: Page, before: string): Promise<void> {
+  await p.getByLabel("Exaggeration factor").fill("4");
+  await expect.poll(() => p.getByTestId("factor-label").innerText()).toMatch(/×10\u2009000/);
+  await expect.poll(async () => (await canvasPixels(p)).digest, { timeout: 10_000 }).not.toBe(before);
 }
 
 /** Downloads the report page's signed PDF beside the screenshots as `<name>.pdf` and returns its path. */

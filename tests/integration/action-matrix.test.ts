@@ -22,6 +22,7 @@ import type { ActionResult } from "@/lib/actions";
 import {
   BASE_JOB,
   DEMO_PASSWORD as PW,
+  demoUserId,
   firstStepOf,
   insertTestJob,
   instrumentIdBySerial,
@@ -350,13 +351,7 @@ MATRIX.setPasswordAction = {
 };
 
 // ---- account recovery: only the administrator clears a sign-in delay or sends a reset link.
-async function engineerId(): Promise<string> {
-  const [u] = await db
-    .select({ id: users.id })
-    .from(users)
-    .where(eq(users.email, "engineer@halvard.example"));
-  return u!.id;
-}
+const engineerId = () => demoUserId("engineer@halvard.example");
 MATRIX.clearSignInDelayAction = {
   expect: staffOnly(["admin"]),
   call: async () => people.clearSignInDelayAction({ userId: await engineerId() }),

@@ -47,8 +47,6 @@ beforeAll(async () => {
   jobId = await insertTestJob({
     tag: "FIT",
     title: "Head fit test job",
-    status: "measuring",
-    assignedInstallerId: as.installer!.id,
   });
   datasetId = await uploadDemoProbe(jobId);
 });

@@ -8,7 +8,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { GET as getRoute, PUT as putRoute } from "@/app/api/jobs/[id]/control-values/route";
 import { db } from "@/db";
 import { runHeadFit } from "@/db/queries/analyses";
-import { approveConfirmed } from "./fixtures";
+import { approveConfirmed, uploadDemoProbe } from "./fixtures";
 import { changeJobStatus, createJobFromTemplate } from "@/db/queries/job-status";
 import { getReportContent, issueReport } from "@/db/queries/reports";
 import { jobStateSha256, signJobWork } from "@/db/queries/signatures";
@@ -194,15 +194,8 @@ describe("one job through the control loop", () => {
     expect(f.rows.find((r: { key: string }) => r.key === "pivot_length_mm").asFound).toBeCloseTo(152.4, 10);
     expect(f.rows.every((r: { toEnter: number | null }) => r.toEnter === null)).toBe(true);
 
-    await signInAs("installer@halvard.example");
-    const probe = await upload(
-      ids.flow,
-      Buffer.from(demoSphereProbeCsv()),
-      { kind: "sphere_probe", phase: "post", units: "mm" },
-      "probe.csv",
-    );
-    expect(probe.status).toBe(201);
-    const { analysis } = await runHeadFit(as.engineer!, (await probe.json()).id);
+    const probe = await uploadDemoProbe(ids.flow, { phase: "post" });
+    const { analysis } = await runHeadFit(as.engineer!, probe);
     ids.analysis = analysis.id;
     await measureEveryStep(as.installer!, ids.flow, "pre");
     await measureEveryStep(as.installer!, ids.flow, "post");
@@ -362,19 +355,10 @@ describe("a procedure that asks for a tool-centre-point check", () => {
 
     // After approval the job takes a TCP check, and nothing else.
     await signInAs("installer@halvard.example");
-    const probe = await upload(
-      jobId,
-      Buffer.from(demoSphereProbeCsv()),
-      { kind: "sphere_probe", phase: "post", units: "mm" },
-      "late-probe.csv",
-    );
-    expect(probe.status).toBe(409);
-    const up = await upload(
-      jobId,
-      Buffer.from(demoTcpCheckCsv()),
-      { kind: "tcp_check", phase: "post", units: "mm" },
-      "tcp-after.csv",
-    );
+    const uploadAfter = (kind: string, csv: string, name: string) =>
+      upload(jobId, Buffer.from(csv), { kind, phase: "post", units: "mm" }, name);
+    expect((await uploadAfter("sphere_probe", demoSphereProbeCsv(), "late-probe.csv")).status).toBe(409);
+    const up = await uploadAfter("tcp_check", demoTcpCheckCsv(), "tcp-after.csv");
     expect(up.status).toBe(201);
     // The new data makes the work signatures stale: performed and inspected are signed again.
     expect((await getReadiness(as.engineer!, jobId))!.blockers.map((b) => b.code)).toEqual([

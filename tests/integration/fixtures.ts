@@ -12,7 +12,7 @@ import { db } from "@/db";
 import { approveAnalysis, nonConformingParameters } from "@/db/queries/analyses";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { instruments, jobs, templateSteps } from "@/db/schema";
+import { instruments, jobs, templateSteps, users } from "@/db/schema";
 import type { JobKind, JobStatus } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
@@ -66,32 +66,44 @@ export const allActors = () => actorsOf(PEOPLE);
 
 export type JobBase = Awaited<ReturnType<typeof jobBaseOf>>;
 
+/** The user id of a demo person by e-mail (db/seed.ts), without signing in. */
+export async function demoUserId(email: string): Promise<string> {
+  const [u] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
+  if (!u) throw new Error(`no demo user ${email}`);
+  return u.id;
+}
+
 /**
  * Inserts a job of the test's own on a seeded job's customer, machine and head (and its procedure
  * when `template` is set), so the seeded jobs keep their states. The reference is `TR-<tag>-…`, unique.
+ * Unless told, the job is measuring and assigned to the demo installer.
  */
 export async function insertTestJob(opts: {
   tag: string;
   title: string;
-  status: JobStatus;
-  assignedInstallerId: string | null;
+  status?: JobStatus;
+  assignedInstallerId?: string | null;
   kind?: JobKind;
   template?: boolean;
   base?: JobBase;
 }): Promise<string> {
   const base = opts.base ?? (await jobBaseOf(BASE_JOB));
+  const installerId =
+    opts.assignedInstallerId === undefined
+      ? await demoUserId("installer@halvard.example")
+      : opts.assignedInstallerId;
   const [row] = await db
     .insert(jobs)
     .values({
       reference: `TR-${opts.tag}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`,
       title: opts.title,
       kind: opts.kind ?? "reverification",
-      status: opts.status,
+      status: opts.status ?? "measuring",
       customerId: base.customerId,
       machineId: base.machineId,
       headId: base.headId,
       ...(opts.template ? { templateId: base.templateId } : {}),
-      assignedInstallerId: opts.assignedInstallerId,
+      assignedInstallerId: installerId,
     })
     .returning();
   return row!.id;

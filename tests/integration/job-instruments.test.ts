@@ -22,9 +22,7 @@ beforeAll(async () => {
   jobId = await insertTestJob({
     tag: "JI",
     title: "Data instruments test job",
-    status: "measuring",
     template: true,
-    assignedInstallerId: as.installer!.id,
   });
   const u = Date.now().toString(36);
   const add = async (key: string, v: Partial<typeof instruments.$inferInsert>) =>

@@ -52,9 +52,7 @@ beforeAll(async () => {
   jobId = await insertTestJob({
     tag: "RPT",
     title: "Report content test job",
-    status: "measuring",
     template: true,
-    assignedInstallerId: as.installer!.id,
   });
   const { analysis } = await runHeadFit(as.engineer!, await uploadDemoProbe(jobId));
   fit = analysis.result.fit;

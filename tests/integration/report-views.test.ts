@@ -46,9 +46,7 @@ beforeAll(async () => {
   jobId = await insertTestJob({
     tag: "VW",
     title: "Report views test job",
-    status: "measuring",
     template: true,
-    assignedInstallerId: as.installer!.id,
   });
   const ids: string[] = [];
   for (const name of ["a.csv", "b.csv"]) ids.push(await uploadDemoProbe(jobId, { filename: name }));

@@ -20,8 +20,6 @@ beforeAll(async () => {
   jobId = await insertTestJob({
     tag: "TEST",
     title: "Report test job",
-    status: "measuring",
-    assignedInstallerId: as.installer!.id,
   });
 });
 

@@ -171,27 +171,25 @@ describe("the correction closes the loop", () => {
 
 describe("the form's input", () => {
   const jobId = "4f3a1c2e-5b6d-4e7f-8a9b-0c1d2e3f4a5b";
+  /** The form's fields for the as-found values in inch, with these values typed. */
+  const asFoundInInch = (values: Record<string, string>) => ({
+    jobId,
+    stage: "as_found",
+    unitSystem: "inch",
+    ...values,
+  });
   it("turns flat fields into one record and drops empty ones", async () => {
     const { controlValuesFormSchema } = await import("@/lib/validations/control-values");
-    const r = controlValuesFormSchema.parse({
-      jobId,
-      stage: "as_found",
-      unitSystem: "inch",
-      pivot_length_mm: "6,0000",
-      secondary_zero_deg: "",
-    });
+    const r = controlValuesFormSchema.parse(
+      asFoundInInch({ pivot_length_mm: "6,0000", secondary_zero_deg: "" }),
+    );
     expect(r.record.values).toEqual({ pivot_length_mm: 6 });
     expect(r.record.unitSystem).toBe("inch");
   });
 
   it("names the field of a value out of range (2000 mm = 78.74 in) and asks for at least one", async () => {
     const { controlValuesFormSchema } = await import("@/lib/validations/control-values");
-    const big = controlValuesFormSchema.safeParse({
-      jobId,
-      stage: "as_found",
-      unitSystem: "inch",
-      pivot_length_mm: "80",
-    });
+    const big = controlValuesFormSchema.safeParse(asFoundInInch({ pivot_length_mm: "80" }));
     expect(big.success).toBe(false);
     expect(big.error!.issues.map((i) => i.path.join("."))).toEqual(["pivot_length_mm"]);
     const none = controlValuesFormSchema.safeParse({ jobId, stage: "as_left", unitSystem: "metric" });

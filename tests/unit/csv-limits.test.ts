@@ -15,20 +15,13 @@ import {
   parseDatasetFile,
   parseUploadForm,
 } from "@/lib/storage/parse-dataset";
+import { thrownAs } from "./thrown";
 
 const good = readFileSync(path.resolve(import.meta.dirname, "../fixtures/csv/test-part-good.csv"), "utf8");
 const form = parseUploadForm({ kind: "test_part", phase: "post" });
 const bytes = (s: string) => new TextEncoder().encode(s);
 
-function refusal(fn: () => unknown): AppError {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof AppError) return e;
-    throw e;
-  }
-  throw new Error("expected a 422");
-}
+const refusal = (fn: () => unknown) => thrownAs(AppError, fn);
 
 describe("CSV limits", () => {
   it("the good test-part file passes", () => {

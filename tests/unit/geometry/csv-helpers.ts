@@ -2,17 +2,12 @@
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { GeometryError } from "@/geometry";
+import { thrownAs } from "../thrown";
 
 export function fixture(name: string): string {
   return readFileSync(join(import.meta.dirname, "../../fixtures/csv", name), "utf8");
 }
 
 export function thrown(fn: () => unknown): GeometryError {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof GeometryError) return e;
-    throw e;
-  }
-  throw new Error("expected a GeometryError, nothing was thrown");
+  return thrownAs(GeometryError, fn);
 }

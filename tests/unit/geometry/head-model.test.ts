@@ -17,6 +17,7 @@ import {
 } from "@/geometry";
 import { headAxes } from "@/geometry/head/config";
 import { HeadKernel } from "@/geometry/head/kernel";
+import { vec3 } from "./arbitraries";
 
 const CA: HeadConfig = { primary: "C", secondary: "A", pivotLengthMm: 152.4 };
 const configs: HeadConfig[] = [
@@ -44,11 +45,7 @@ describe("Rodrigues' rotation formula", () => {
           )
           .filter((a) => Math.hypot(...a) > 0.1),
         fc.double({ min: -7, max: 7, noNaN: true }),
-        fc.tuple(
-          fc.double({ min: -500, max: 500, noNaN: true }),
-          fc.double({ min: -500, max: 500, noNaN: true }),
-          fc.double({ min: -500, max: 500, noNaN: true }),
-        ),
+        vec3(-500, 500),
         (a0, phi, x) => {
           const n = Math.hypot(...a0);
           const a = [a0[0] / n, a0[1] / n, a0[2] / n] as const;

@@ -5,6 +5,7 @@ import fc from "fast-check";
 import { max, mean, min, norm, subtract } from "mathjs";
 import { describe, expect, it } from "vitest";
 import { GeometryError, readSphereProbeCsv, tcpCheck, tcpCheckToJson } from "@/geometry";
+import { vec3 } from "./arbitraries";
 
 describe("tcpCheck", () => {
   it("hand-derived: four poses on a 10 µm square in x–y and 4 µm in z", () => {
@@ -35,14 +36,7 @@ describe("tcpCheck", () => {
   it("agrees with mathjs min/max/mean/norm on random centres far from the origin", () => {
     fc.assert(
       fc.property(
-        fc.array(
-          fc.tuple(
-            fc.double({ min: -0.05, max: 0.05, noNaN: true }),
-            fc.double({ min: -0.05, max: 0.05, noNaN: true }),
-            fc.double({ min: -0.05, max: 0.05, noNaN: true }),
-          ),
-          { minLength: 2, maxLength: 30 },
-        ),
+        fc.array(vec3(-0.05, 0.05), { minLength: 2, maxLength: 30 }),
         fc.double({ min: -2000, max: 2000, noNaN: true }),
         (pts, offset) => {
           const P = pts.map(([x, y, z]) => [x + offset, y - offset, z + 500]);
