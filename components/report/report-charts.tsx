@@ -1,5 +1,11 @@
 import { drawing, palette } from "@/lib/domain/theme";
-import { parameterChartRows, readingRows, rowDomain, type LimitRow } from "@/lib/report/chart-data";
+import {
+  parameterChartRows,
+  readingRows,
+  rowDomain,
+  rowLimits,
+  type LimitRow,
+} from "@/lib/report/chart-data";
 import type { ReportData } from "@/lib/report/types";
 import { Residuals } from "@/components/report/residuals-figure";
 
@@ -103,26 +109,17 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                       height={H - 4}
                       fill={drawing.limitBand}
                     />
-                    {r.lower != null ? (
+                    {rowLimits(r).map((v, j) => (
                       <line
-                        x1={x(r.lower)}
-                        x2={x(r.lower)}
+                        key={`l${j}`}
+                        x1={x(v)}
+                        x2={x(v)}
                         y1={0}
                         y2={H}
                         stroke={palette.pass[700]}
                         strokeWidth={1.4}
                       />
-                    ) : null}
-                    {r.upper != null ? (
-                      <line
-                        x1={x(r.upper)}
-                        x2={x(r.upper)}
-                        y1={0}
-                        y2={H}
-                        stroke={palette.pass[700]}
-                        strokeWidth={1.4}
-                      />
-                    ) : null}
+                    ))}
                     {from < 0 && to > 0 ? (
                       <line
                         x1={x(0)}

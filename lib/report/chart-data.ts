@@ -42,6 +42,11 @@ export function rowDomain(row: Pick<LimitRow, "lower" | "upper" | "marks">): { f
   return { from: Math.min(lo - span / 3, ...ends), to: Math.max(hi + span / 3, ...ends) };
 }
 
+/** The limits a row has (none, one or both), each drawn as a line across the row. */
+export function rowLimits(row: Pick<LimitRow, "lower" | "upper">): number[] {
+  return [row.lower, row.upper].filter((v): v is number => v != null);
+}
+
 const fmt = (v: number, d = 1) => signed(v, d);
 /** A value with its unit: arc seconds sit on the number (+5.2″), other units after a space. */
 const withUnit = (text: string, unit: string) => (unit === "″" ? `${text}″` : `${text} ${unit}`);
