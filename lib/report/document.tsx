@@ -23,7 +23,7 @@ import { reportFacts } from "./build";
 import type { Decision, ReportData } from "./types";
 import { BODY_FONT } from "./fonts";
 import { pdfColours, pdfSectionStyles } from "./pdf-styles";
-import { parameterChartRows, readingRows } from "./chart-data";
+import { reportCharts } from "./chart-data";
 import { LimitRowsChart, ResidualsChart } from "./charts";
 import { PhotoAppendix } from "./sections/photos";
 import { ClosingStatementsPdf, RecordDetailsPdf } from "./sections/records-pdf";
@@ -201,15 +201,14 @@ function figureSize(w: number, h: number) {
  * Figures are numbered in order; a missing picture is said, not skipped silently.
  */
 function FiguresAndCharts({ data, images }: { data: ReportData; images: ReadonlyMap<string, Buffer> }) {
-  const charts = data.charts ?? {};
+  const chartList = reportCharts(data.charts);
   let n = 0;
   const caption = (text: string) => (
     <Text style={{ color: C.muted, marginTop: 3, marginBottom: 8 }}>
       Figure {++n}. {text}
     </Text>
   );
-  const none =
-    data.figures.length === 0 && !charts.readings?.length && !charts.parameters?.length && !charts.residuals;
+  const none = data.figures.length === 0 && chartList.length === 0;
   return (
     <View break={!none}>
       <Text style={s.h2}>7 Figures and charts</Text>
@@ -236,30 +235,16 @@ function FiguresAndCharts({ data, images }: { data: ReportData; images: Readonly
           No picture of the 3D view was saved for this report.
         </Text>
       ) : null}
-      {charts.readings?.length ? (
-        <View wrap={false}>
-          <LimitRowsChart
-            rows={readingRows(charts.readings)}
-            legend="Hollow ring: before adjustment; filled dot: after; green lines: the limits, shaded between. Each row has its own scale; lengths in mm, angles in arc seconds, as in the readings table."
-          />
-          {caption("Checklist readings before and after adjustment against their limits.")}
+      {chartList.map((c) => (
+        <View key={c.caption} wrap={false}>
+          {c.kind === "limits" ? (
+            <LimitRowsChart rows={c.rows} legend={c.legend} />
+          ) : (
+            <ResidualsChart residuals={c.residuals} />
+          )}
+          {caption(c.caption)}
         </View>
-      ) : null}
-      {charts.parameters?.length ? (
-        <View wrap={false}>
-          <LimitRowsChart
-            rows={parameterChartRows(charts.parameters)}
-            legend="Dot: the fitted value; bar: ± U (k = 2); green lines: the procedure's limits, shaded between. Each row has its own scale."
-          />
-          {caption("Fitted head parameters against the procedure's limits.")}
-        </View>
-      ) : null}
-      {charts.residuals ? (
-        <View wrap={false}>
-          <ResidualsChart residuals={charts.residuals} />
-          {caption("Residuals of the approved head fit per pose.")}
-        </View>
-      ) : null}
+      ))}
     </View>
   );
 }
