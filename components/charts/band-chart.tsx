@@ -5,6 +5,7 @@
  * (circle pass, cross fail, diamond undecided) so colour is never the only signal.
  */
 import { palette } from "@/lib/domain/theme";
+import { rowLimits } from "@/lib/report/chart-data";
 import { PHASE_LABELS } from "@/lib/domain/datasets";
 import { ScrollRegion } from "@/components/ui/scroll-region";
 import type { StepDecision } from "@/lib/checklist";
@@ -159,26 +160,17 @@ export function BandChart({ rows }: { rows: BandRow[] }) {
                           rx="2"
                         />
                       ) : null}
-                      {row.lower != null ? (
+                      {rowLimits(row).map((v, j) => (
                         <line
-                          x1={sx(row.lower)}
-                          x2={sx(row.lower)}
+                          key={`l${j}`}
+                          x1={sx(v)}
+                          x2={sx(v)}
                           y1={y - 13}
                           y2={y + 13}
                           stroke={palette.nominal[700]}
                           strokeWidth="2"
                         />
-                      ) : null}
-                      {row.upper != null ? (
-                        <line
-                          x1={sx(row.upper)}
-                          x2={sx(row.upper)}
-                          y1={y - 13}
-                          y2={y + 13}
-                          stroke={palette.nominal[700]}
-                          strokeWidth="2"
-                        />
-                      ) : null}
+                      ))}
                       {r ? (
                         <>
                           <Marker x={sx(r.value)} y={y} decision={r.decision} />

@@ -45,29 +45,11 @@ export function ParameterTrend({
       <figcaption className="mt-3 flex flex-wrap items-center gap-x-5 gap-y-1 text-xs text-graphite-600">
         <span>{caption ?? "Each panel has its own scale; bars are ± U (k = 2); dashed: zero."}</span>
         <span className="inline-flex items-center gap-1">
-          <svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true">
-            <circle
-              cx="6"
-              cy="6"
-              r="4.5"
-              fill={palette.accent[500]}
-              stroke={palette.accent[800]}
-              strokeWidth="1.5"
-            />
-          </svg>
+          <FitSwatch fill={palette.accent[500]} />
           approved fit
         </span>
         <span className="inline-flex items-center gap-1">
-          <svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true">
-            <circle
-              cx="6"
-              cy="6"
-              r="4.5"
-              fill={palette.white}
-              stroke={palette.accent[800]}
-              strokeWidth="1.5"
-            />
-          </svg>
+          <FitSwatch fill={palette.white} />
           latest fit, not approved
         </span>
       </figcaption>
@@ -103,5 +85,14 @@ export function ParameterTrend({
         />
       </details>
     </figure>
+  );
+}
+
+/** The legend's mark for a fit: filled for the approved one, hollow for one not approved. */
+function FitSwatch({ fill }: { fill: string }) {
+  return (
+    <svg viewBox="0 0 12 12" className="h-3 w-3" aria-hidden="true">
+      <circle cx="6" cy="6" r="4.5" fill={fill} stroke={palette.accent[800]} strokeWidth="1.5" />
+    </svg>
   );
 }

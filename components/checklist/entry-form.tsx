@@ -7,6 +7,7 @@ import type { StepDecision } from "@/lib/checklist";
 import { arcsecToUmPerM, formatValue, UNIT_SYMBOL, type EntryUnit, type UnitSystem } from "@/lib/units";
 import type { PanelStep } from "@/components/checklist/step-panel";
 import { NoteInput, PointGrid, RecordInputs, YesNo } from "@/components/checklist/kind-inputs";
+import { inputCls, labelCls, ValueWithUnit } from "@/components/checklist/entry-fields";
 import { MULTI_POINT_SHORT, needsInstrument } from "@/lib/step-kinds";
 
 export interface PanelInstrument {
@@ -37,10 +38,6 @@ export interface EntryValues {
   note: string;
   takenAt: string;
 }
-
-const inputCls =
-  "min-h-touch w-full rounded-md border border-graphite-300 bg-white px-3 text-base focus:border-accent-500 focus:outline-none focus:ring-2 focus:ring-accent-500/40";
-const labelCls = "mb-1 block text-sm font-medium text-graphite-700";
 
 /** The entry form of one step: phase, value with its checks as you type, instrument, time, note. */
 export function EntryForm({
@@ -131,23 +128,16 @@ export function EntryForm({
         {kind === "record" ? <RecordInputs form={form} step={step} problem={problem} /> : null}
         {kind === "note" ? <NoteInput form={form} step={step} /> : null}
         {single ? (
-          <div>
-            <label htmlFor={id("value")} className={labelCls}>
-              {isAngleFromReading ? "Change in reading over the travel" : step.quantity} (
-              {UNIT_SYMBOL[entryUnit]})
-            </label>
-            <div className="flex items-center gap-2">
-              <input
-                id={id("value")}
-                inputMode="decimal"
-                autoComplete="off"
-                className={`${inputCls} num text-right text-lg`}
-                aria-invalid={Boolean(problem)}
-                aria-describedby={`${id("problem")} ${id("live")}`}
-                {...register("value")}
-              />
-              <span className="num w-10 text-graphite-600">{UNIT_SYMBOL[entryUnit]}</span>
-            </div>
+          <ValueWithUnit
+            id={id("value")}
+            label={`${isAngleFromReading ? "Change in reading over the travel" : step.quantity} (${UNIT_SYMBOL[entryUnit]})`}
+            unit={UNIT_SYMBOL[entryUnit]}
+            input={{
+              "aria-invalid": Boolean(problem),
+              "aria-describedby": `${id("problem")} ${id("live")}`,
+              ...register("value"),
+            }}
+          >
             <p
               id={id("problem")}
               className="mt-1 text-sm text-fail-700"
@@ -155,24 +145,15 @@ export function EntryForm({
             >
               {problem ?? ""}
             </p>
-          </div>
+          </ValueWithUnit>
         ) : null}
         {isAngleFromReading ? (
-          <div>
-            <label htmlFor={id("travel")} className={labelCls}>
-              Z travel ({travelUnit})
-            </label>
-            <div className="flex items-center gap-2">
-              <input
-                id={id("travel")}
-                inputMode="decimal"
-                autoComplete="off"
-                className={`${inputCls} num text-right text-lg`}
-                {...register("travel")}
-              />
-              <span className="num w-10 text-graphite-600">{travelUnit}</span>
-            </div>
-          </div>
+          <ValueWithUnit
+            id={id("travel")}
+            label={`Z travel (${travelUnit})`}
+            unit={travelUnit}
+            input={register("travel")}
+          />
         ) : null}
         {needsInstrument(kind) ? (
           <div>

@@ -19,6 +19,29 @@ export interface PanelEnvironment {
 const fieldCls =
   "min-h-touch w-full rounded-md border border-graphite-300 bg-white px-3 text-base focus:border-accent-500 focus:outline-none focus:ring-2 focus:ring-accent-500/40";
 const inputCls = `${fieldCls} text-right`;
+function TemperatureInput({
+  label,
+  value,
+  onChange,
+}: {
+  label: string;
+  value: string;
+  onChange: (v: string) => void;
+}) {
+  return (
+    <label className="text-sm font-medium text-graphite-700">
+      {label}
+      <input
+        inputMode="decimal"
+        autoComplete="off"
+        className={`${inputCls} num mt-1`}
+        value={value}
+        onChange={(e) => onChange(e.target.value)}
+      />
+    </label>
+  );
+}
+
 const deg = (t: number | null) => (t == null ? "—" : `${t.toFixed(1)} °C`);
 
 /**
@@ -104,26 +127,8 @@ export function EnvironmentPanel({
       </div>
       {canWrite ? (
         <form onSubmit={save} className="mt-3 grid grid-cols-2 items-end gap-3 lg:grid-cols-4" noValidate>
-          <label className="text-sm font-medium text-graphite-700">
-            Air (°C)
-            <input
-              inputMode="decimal"
-              autoComplete="off"
-              className={`${inputCls} num mt-1`}
-              value={air}
-              onChange={(e) => setAir(e.target.value)}
-            />
-          </label>
-          <label className="text-sm font-medium text-graphite-700">
-            Machine (°C)
-            <input
-              inputMode="decimal"
-              autoComplete="off"
-              className={`${inputCls} num mt-1`}
-              value={machine}
-              onChange={(e) => setMachine(e.target.value)}
-            />
-          </label>
+          <TemperatureInput label="Air (°C)" value={air} onChange={setAir} />
+          <TemperatureInput label="Machine (°C)" value={machine} onChange={setMachine} />
           <label className="text-sm font-medium text-graphite-700">
             Phase
             <select

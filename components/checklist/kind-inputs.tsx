@@ -4,10 +4,7 @@ import type { UseFormReturn } from "react-hook-form";
 import type { EntryValues } from "@/components/checklist/entry-form";
 import type { PanelStep } from "@/components/checklist/step-panel";
 import { UNIT_SYMBOL, type EntryUnit } from "@/lib/units";
-
-const inputCls =
-  "min-h-touch w-full rounded-md border border-graphite-300 bg-white px-3 text-base focus:border-accent-500 focus:outline-none focus:ring-2 focus:ring-accent-500/40";
-const labelCls = "mb-1 block text-sm font-medium text-graphite-700";
+import { inputCls, labelCls, ValueWithUnit } from "@/components/checklist/entry-fields";
 
 /** The readings of a multi-point step, one small field per point in the procedure's order. */
 export function PointGrid({
@@ -93,25 +90,17 @@ export function RecordInputs({
   const id = (what: string) => `${what}-${step.id}`;
   return (
     <>
-      <div>
-        <label htmlFor={id("value")} className={labelCls}>
-          {step.quantity} ({step.recordUnit ?? "as written"})
-        </label>
-        <div className="flex items-center gap-2">
-          <input
-            id={id("value")}
-            inputMode="decimal"
-            autoComplete="off"
-            className={`${inputCls} num text-right text-lg`}
-            aria-invalid={Boolean(problem)}
-            {...form.register("value")}
-          />
-          <span className="num min-w-10 whitespace-nowrap text-graphite-600">{step.recordUnit ?? ""}</span>
-        </div>
+      <ValueWithUnit
+        id={id("value")}
+        label={`${step.quantity} (${step.recordUnit ?? "as written"})`}
+        unit={step.recordUnit ?? ""}
+        wideUnit
+        input={{ "aria-invalid": Boolean(problem), ...form.register("value") }}
+      >
         <p className="mt-1 text-sm text-fail-700" data-testid={`problem-${step.position}`}>
           {problem ?? ""}
         </p>
-      </div>
+      </ValueWithUnit>
       <div>
         <label htmlFor={id("where")} className={labelCls}>
           Where (optional, e.g. shims at 3 and 9 o&apos;clock)

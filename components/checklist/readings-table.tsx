@@ -35,6 +35,16 @@ export type CorrectionTarget =
 const btn =
   "min-h-touch rounded-md border border-graphite-300 bg-white px-3 font-medium text-graphite-800 hover:bg-graphite-100";
 const th = "py-2 pr-3 font-medium";
+/** The table's columns before the actions, with the value right-aligned. */
+const COLUMNS = [
+  ["Phase", ""],
+  ["Value", "text-right"],
+  ["Result", ""],
+  ["Instrument", ""],
+  ["Taken", ""],
+  ["By", ""],
+  ["Note", ""],
+] as const;
 
 /** The step's readings: those stored on the server, then those still on this tablet. */
 export function ReadingsTable({
@@ -69,27 +79,11 @@ export function ReadingsTable({
         <caption className="sr-only">Readings of step {position}</caption>
         <thead className="text-left text-graphite-600">
           <tr className="border-b border-graphite-200">
-            <th scope="col" className={th}>
-              Phase
-            </th>
-            <th scope="col" className={`${th} text-right`}>
-              Value
-            </th>
-            <th scope="col" className={th}>
-              Result
-            </th>
-            <th scope="col" className={th}>
-              Instrument
-            </th>
-            <th scope="col" className={th}>
-              Taken
-            </th>
-            <th scope="col" className={th}>
-              By
-            </th>
-            <th scope="col" className={th}>
-              Note
-            </th>
+            {COLUMNS.map(([label, align]) => (
+              <th key={label} scope="col" className={align ? `${th} ${align}` : th}>
+                {label}
+              </th>
+            ))}
             {canWrite ? (
               <th scope="col" className="py-2 font-medium">
                 <span className="sr-only">Actions</span>

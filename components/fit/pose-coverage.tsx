@@ -1,4 +1,5 @@
 import { drawing, palette } from "@/lib/domain/theme";
+import { YGrid } from "@/components/charts/axis";
 import type { NextVisitPlan } from "@/lib/pose-coverage";
 import { PRIMARY_SECTOR_DEG, TILT_REFERENCE_DEG } from "@/lib/pose-coverage";
 
@@ -75,14 +76,7 @@ export function PoseCoverage({
             fill={drawing.limitBand}
             opacity={0.6}
           />
-          {tiltTicks.map((t) => (
-            <g key={`t${t}`}>
-              <line x1={m.l} x2={W - m.r} y1={y(t)} y2={y(t)} stroke={drawing.grid} />
-              <text x={m.l - 6} y={y(t) + 4} textAnchor="end" fontSize="11" fill={drawing.axisText}>
-                {t}°
-              </text>
-            </g>
-          ))}
+          <YGrid ticks={tiltTicks} y={y} left={m.l} right={W - m.r} label={(t) => `${t}°`} />
           {primaryTicks.map((p) => (
             <g key={`p${p}`}>
               <line x1={x(p)} x2={x(p)} y1={m.t} y2={H - m.b} stroke={drawing.grid} />

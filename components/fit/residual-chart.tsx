@@ -1,4 +1,5 @@
 import { drawing, palette } from "@/lib/domain/theme";
+import { YGrid } from "@/components/charts/axis";
 import { niceTicks } from "@/lib/chart-ticks";
 
 /**
@@ -68,21 +69,7 @@ export function ResidualChart({
         role="img"
         aria-label={`Largest residual component per pose for ${residuals.length} poses; ${worst.filter((w) => w > limit).length} beyond 3 s = ${limit.toFixed(2)} µm`}
       >
-        {ticks.map((t) => (
-          <g key={t}>
-            <line x1={m.l} x2={W - m.r} y1={y(t)} y2={y(t)} stroke={drawing.grid} />
-            <text
-              x={m.l - 6}
-              y={y(t) + 4}
-              textAnchor="end"
-              fontSize="11"
-              fill={drawing.axisText}
-              className="num"
-            >
-              {t.toFixed(tickDigits)}
-            </text>
-          </g>
-        ))}
+        <YGrid ticks={ticks} y={y} left={m.l} right={W - m.r} label={(t) => t.toFixed(tickDigits)} numeric />
         <text
           x={12}
           y={m.t + (H - m.t - m.b) / 2}

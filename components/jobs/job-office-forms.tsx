@@ -4,6 +4,7 @@ import { useState } from "react";
 import { moveJobAction, updateJobAction } from "@/app/(app)/jobs/actions";
 import { Field, inputClass, SelectField, TextField } from "@/components/ui/field";
 import { Form } from "@/components/ui/form";
+import { FormFields, HiddenFields } from "@/components/ui/form-fields";
 import { jobMoveFormSchema, jobRecordFormSchema } from "@/lib/validations/jobs";
 
 export interface JobRecordValues {
@@ -32,17 +33,20 @@ export function JobRecordForm({ v }: { v: JobRecordValues }) {
       aria-label="Edit the job's record"
     >
       <input type="hidden" name="jobId" value={v.jobId} />
-      <div className="grid gap-4 sm:grid-cols-2">
-        <TextField name="title" label="Title" defaultValue={v.title} />
-        <TextField name="orderReference" label="Order reference" defaultValue={v.orderReference} numeric />
-        <TextField name="customerContactName" label="Customer contact" defaultValue={v.customerContactName} />
-        <TextField
-          name="customerContactEmail"
-          label="Contact e-mail"
-          type="email"
-          defaultValue={v.customerContactEmail}
-        />
-      </div>
+      <FormFields
+        columns={2}
+        fields={[
+          { name: "title", label: "Title", defaultValue: v.title },
+          { name: "orderReference", label: "Order reference", defaultValue: v.orderReference, numeric: true },
+          { name: "customerContactName", label: "Customer contact", defaultValue: v.customerContactName },
+          {
+            name: "customerContactEmail",
+            label: "Contact e-mail",
+            type: "email",
+            defaultValue: v.customerContactEmail,
+          },
+        ]}
+      />
       <div className="grid gap-4 sm:grid-cols-3">
         <TextField name="scheduledDate" label="Date" type="date" defaultValue={v.scheduledDate} />
         <TextField name="scheduledTime" label="Time (24 h)" type="time" defaultValue={v.scheduledTime} />
@@ -121,8 +125,7 @@ export function JobMoveControls({
             successMessage="Released."
             aria-label="Release from hold"
           >
-            <input type="hidden" name="jobId" value={jobId} />
-            <input type="hidden" name="action" value="release" />
+            <HiddenFields values={{ jobId, action: "release" }} />
           </Form>
         ) : null}
         {mayHold ? (
@@ -155,8 +158,7 @@ export function JobMoveControls({
           variant="secondary"
           aria-label="Put on hold"
         >
-          <input type="hidden" name="jobId" value={jobId} />
-          <input type="hidden" name="action" value="hold" />
+          <HiddenFields values={{ jobId, action: "hold" }} />
           <TextField name="reason" label="Why (optional)" placeholder="Crane out of service until …" />
         </Form>
       ) : null}
@@ -169,8 +171,7 @@ export function JobMoveControls({
           variant="danger"
           aria-label="Cancel the job"
         >
-          <input type="hidden" name="jobId" value={jobId} />
-          <input type="hidden" name="action" value="cancel" />
+          <HiddenFields values={{ jobId, action: "cancel" }} />
           <TextField
             name="reason"
             label="Reason (required)"

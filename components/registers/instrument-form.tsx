@@ -1,7 +1,7 @@
 "use client";
 
 import { createInstrumentAction } from "@/app/(app)/registers/actions";
-import { SelectField, TextField } from "@/components/ui/field";
+import { FormFields } from "@/components/ui/form-fields";
 import { Form } from "@/components/ui/form";
 import { instrumentCreateSchema } from "@/lib/validations/registers";
 
@@ -24,25 +24,23 @@ export function InstrumentForm() {
       submitLabel="Add instrument"
       successMessage="Instrument added to the register."
     >
-      <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-        <TextField name="kind" label="Kind" placeholder="Dial test indicator" />
-        <TextField name="serial" label="Serial" numeric />
-        <TextField name="maker" label="Maker" />
-        <SelectField name="quantityKind" label="Measures" options={QUANTITIES} defaultValue="length" />
-        <TextField name="resolution" label="Resolution" inputMode="decimal" numeric />
-        <TextField
-          name="standardUncertainty"
-          label="Standard uncertainty (k = 1)"
-          inputMode="decimal"
-          numeric
-        />
-        <SelectField name="unit" label="Unit of these numbers" options={UNITS} defaultValue="mm" />
-        <TextField name="rangeMin" label="Reads from (optional)" inputMode="decimal" numeric />
-        <TextField name="rangeMax" label="Reads to (optional)" inputMode="decimal" numeric />
-        <TextField name="certificateRef" label="Certificate" />
-        <TextField name="calibratedOn" label="Calibrated on" type="date" />
-        <TextField name="calibrationDueOn" label="Calibration due" type="date" />
-      </div>
+      <FormFields
+        columns={4}
+        fields={[
+          { name: "kind", label: "Kind", placeholder: "Dial test indicator" },
+          { name: "serial", label: "Serial", numeric: true },
+          { name: "maker", label: "Maker" },
+          { name: "quantityKind", label: "Measures", options: QUANTITIES, defaultValue: "length" },
+          { name: "resolution", label: "Resolution", decimal: true },
+          { name: "standardUncertainty", label: "Standard uncertainty (k = 1)", decimal: true },
+          { name: "unit", label: "Unit of these numbers", options: UNITS, defaultValue: "mm" },
+          { name: "rangeMin", label: "Reads from (optional)", decimal: true },
+          { name: "rangeMax", label: "Reads to (optional)", decimal: true },
+          { name: "certificateRef", label: "Certificate" },
+          { name: "calibratedOn", label: "Calibrated on", type: "date" },
+          { name: "calibrationDueOn", label: "Calibration due", type: "date" },
+        ]}
+      />
     </Form>
   );
 }

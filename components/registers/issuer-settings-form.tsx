@@ -1,7 +1,7 @@
 "use client";
 
 import { updateIssuerSettingsAction } from "@/app/(app)/registers/settings/actions";
-import { Field, inputClass, TextField } from "@/components/ui/field";
+import { FormFields } from "@/components/ui/form-fields";
 import { Form } from "@/components/ui/form";
 import { issuerSettingsSchema, type IssuerSettingsInput } from "@/lib/validations/issuer";
 
@@ -15,38 +15,45 @@ export function IssuerSettingsForm({ current }: { current: IssuerSettingsInput }
       successMessage="Saved. Reports issued from now on print these details; issued reports keep theirs."
       resetOnSuccess={false}
     >
-      <div className="grid gap-4 sm:grid-cols-2">
-        <TextField
-          name="name"
-          label="Company name"
-          defaultValue={current.name}
-          hint="Required before a report can be issued."
-        />
-        <TextField
-          name="contactEmail"
-          label="Contact e-mail"
-          type="email"
-          defaultValue={current.contactEmail}
-        />
-        <Field name="address" label="Postal address" hint="Required before a report can be issued.">
-          <textarea className={inputClass} rows={3} defaultValue={current.address} />
-        </Field>
-        <TextField name="contactPhone" label="Contact phone" defaultValue={current.contactPhone} numeric />
-        <Field
-          name="accreditation"
-          label="Accreditation (if any)"
-          hint="Body, number and scope as your certificate states them; leave empty if not accredited."
-        >
-          <textarea className={inputClass} rows={2} defaultValue={current.accreditation} />
-        </Field>
-        <Field
-          name="reproductionStatement"
-          label="Statement about partial reproduction"
-          hint="Printed at the end of every report."
-        >
-          <textarea className={inputClass} rows={3} defaultValue={current.reproductionStatement} />
-        </Field>
-      </div>
+      <FormFields
+        columns={2}
+        fields={[
+          {
+            name: "name",
+            label: "Company name",
+            defaultValue: current.name,
+            hint: "Required before a report can be issued.",
+          },
+          {
+            name: "contactEmail",
+            label: "Contact e-mail",
+            type: "email",
+            defaultValue: current.contactEmail,
+          },
+          {
+            name: "address",
+            label: "Postal address",
+            hint: "Required before a report can be issued.",
+            rows: 3,
+            defaultValue: current.address,
+          },
+          { name: "contactPhone", label: "Contact phone", defaultValue: current.contactPhone, numeric: true },
+          {
+            name: "accreditation",
+            label: "Accreditation (if any)",
+            hint: "Body, number and scope as your certificate states them; leave empty if not accredited.",
+            rows: 2,
+            defaultValue: current.accreditation,
+          },
+          {
+            name: "reproductionStatement",
+            label: "Statement about partial reproduction",
+            hint: "Printed at the end of every report.",
+            rows: 3,
+            defaultValue: current.reproductionStatement,
+          },
+        ]}
+      />
     </Form>
   );
 }

@@ -2,7 +2,7 @@
 
 import { inviteUserAction, updateUserAction } from "@/app/(app)/registers/actions";
 import { ROLE_LABELS, ROLES, type Role } from "@/lib/domain/roles";
-import { SelectField, TextField } from "@/components/ui/field";
+import { FormFields, HiddenFields } from "@/components/ui/form-fields";
 import { Form } from "@/components/ui/form";
 import { userInviteSchema, userUpdateSchema } from "@/lib/validations/registers";
 
@@ -16,17 +16,20 @@ export function InviteForm({ customers }: { customers: ReadonlyArray<{ id: strin
       submitLabel="Send invitation"
       successMessage="Invitation queued; the e-mail carries a one-time link to set a password."
     >
-      <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-        <TextField name="name" label="Name" />
-        <TextField name="email" label="E-mail" type="email" />
-        <SelectField name="role" label="Role" options={ROLE_OPTIONS} defaultValue="installer" />
-        <SelectField
-          name="customerId"
-          label="Company (customer users only)"
-          placeholder="Service company (staff)"
-          options={customers.map((c) => ({ value: c.id, label: c.name }))}
-        />
-      </div>
+      <FormFields
+        columns={4}
+        fields={[
+          { name: "name", label: "Name" },
+          { name: "email", label: "E-mail", type: "email" },
+          { name: "role", label: "Role", options: ROLE_OPTIONS, defaultValue: "installer" },
+          {
+            name: "customerId",
+            label: "Company (customer users only)",
+            placeholder: "Service company (staff)",
+            options: customers.map((c) => ({ value: c.id, label: c.name })),
+          },
+        ]}
+      />
     </Form>
   );
 }
@@ -81,8 +84,7 @@ export function PersonControls({
         successMessage={disabled ? "Enabled." : "Disabled; open sessions end now."}
         className="space-y-0"
       >
-        <input type="hidden" name="userId" value={userId} />
-        <input type="hidden" name="disabled" value={disabled ? "false" : "true"} />
+        <HiddenFields values={{ userId, disabled: disabled ? "false" : "true" }} />
       </Form>
     </div>
   );

@@ -6,7 +6,8 @@ import {
   createMachineAction,
   createSiteAction,
 } from "@/app/(app)/registers/actions";
-import { optionsOf, SelectField, TextField } from "@/components/ui/field";
+import { optionsOf } from "@/components/ui/field";
+import { FormFields } from "@/components/ui/form-fields";
 import { Form } from "@/components/ui/form";
 import {
   customerCreateSchema,
@@ -25,10 +26,13 @@ export function CustomerForm() {
       submitLabel="Add customer"
       successMessage="Customer added."
     >
-      <div className="grid gap-4 sm:grid-cols-2">
-        <TextField name="name" label="Customer name" />
-        <TextField name="contactEmail" label="Contact e-mail" type="email" />
-      </div>
+      <FormFields
+        columns={2}
+        fields={[
+          { name: "name", label: "Customer name" },
+          { name: "contactEmail", label: "Contact e-mail", type: "email" },
+        ]}
+      />
     </Form>
   );
 }
@@ -41,16 +45,14 @@ export function SiteForm({ customers }: { customers: Opt[] }) {
       submitLabel="Add site"
       successMessage="Site added."
     >
-      <div className="grid gap-4 sm:grid-cols-3">
-        <SelectField
-          name="customerId"
-          label="Customer"
-          placeholder="Choose…"
-          options={optionsOf(customers)}
-        />
-        <TextField name="name" label="Site name" />
-        <TextField name="address" label="Address" />
-      </div>
+      <FormFields
+        columns={3}
+        fields={[
+          { name: "customerId", label: "Customer", placeholder: "Choose…", options: optionsOf(customers) },
+          { name: "name", label: "Site name" },
+          { name: "address", label: "Address" },
+        ]}
+      />
     </Form>
   );
 }
@@ -63,15 +65,18 @@ export function MachineForm({ sites }: { sites: Opt[] }) {
       submitLabel="Add host machine"
       successMessage="Machine added."
     >
-      <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-        <SelectField name="siteId" label="Site" placeholder="Choose…" options={optionsOf(sites)} />
-        <TextField name="name" label="Machine name" />
-        <TextField name="kind" label="Kind" defaultValue="machining centre" />
-        <TextField name="serial" label="Serial" numeric />
-        <TextField name="builder" label="Builder" />
-        <TextField name="model" label="Model" />
-        <TextField name="control" label="Control" />
-      </div>
+      <FormFields
+        columns={4}
+        fields={[
+          { name: "siteId", label: "Site", placeholder: "Choose…", options: optionsOf(sites) },
+          { name: "name", label: "Machine name" },
+          { name: "kind", label: "Kind", defaultValue: "machining centre" },
+          { name: "serial", label: "Serial", numeric: true },
+          { name: "builder", label: "Builder" },
+          { name: "model", label: "Model" },
+          { name: "control", label: "Control" },
+        ]}
+      />
     </Form>
   );
 }
@@ -86,37 +91,19 @@ export function HeadForm() {
       submitLabel="Add head"
       successMessage="Head added; record where it is mounted on its page."
     >
-      <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-        <TextField name="serial" label="Serial" numeric />
-        <TextField name="maker" label="Maker" />
-        <TextField name="model" label="Model" />
-        <TextField name="massKg" label="Mass (kg)" inputMode="decimal" numeric />
-        <SelectField
-          name="primaryAxis"
-          label="Primary (rotary) axis letter"
-          options={AXES}
-          defaultValue="C"
-        />
-        <SelectField
-          name="secondaryAxis"
-          label="Secondary (tilt) axis letter"
-          options={AXES}
-          defaultValue="A"
-        />
-        <TextField
-          name="nominalPivotLengthMm"
-          label="Nominal pivot length (mm)"
-          inputMode="decimal"
-          numeric
-        />
-        <TextField
-          name="toolAxisOffsetMm"
-          label="Tool-axis offset (mm)"
-          inputMode="decimal"
-          numeric
-          defaultValue="0"
-        />
-      </div>
+      <FormFields
+        columns={4}
+        fields={[
+          { name: "serial", label: "Serial", numeric: true },
+          { name: "maker", label: "Maker" },
+          { name: "model", label: "Model" },
+          { name: "massKg", label: "Mass (kg)", decimal: true },
+          { name: "primaryAxis", label: "Primary (rotary) axis letter", options: AXES, defaultValue: "C" },
+          { name: "secondaryAxis", label: "Secondary (tilt) axis letter", options: AXES, defaultValue: "A" },
+          { name: "nominalPivotLengthMm", label: "Nominal pivot length (mm)", decimal: true },
+          { name: "toolAxisOffsetMm", label: "Tool-axis offset (mm)", decimal: true, defaultValue: "0" },
+        ]}
+      />
     </Form>
   );
 }

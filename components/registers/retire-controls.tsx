@@ -1,7 +1,8 @@
 "use client";
 
 import { recordCalibrationAction, retireRegisterRowAction } from "@/app/(app)/registers/actions";
-import { Field, inputClass } from "@/components/ui/field";
+import { optionsOf } from "@/components/ui/field";
+import { FormFields, HiddenFields } from "@/components/ui/form-fields";
 import { Form } from "@/components/ui/form";
 import { calibrationFormSchema, retireFormSchema, RETIRABLE_REGISTERS } from "@/lib/validations/registers";
 
@@ -32,9 +33,7 @@ export function RetireButton({
       successMessage={retired ? "Back in use." : "Retired."}
       className="space-y-0"
     >
-      <input type="hidden" name="register" value={register} />
-      <input type="hidden" name="id" value={id} />
-      <input type="hidden" name="retired" value={retired ? "false" : "true"} />
+      <HiddenFields values={{ register, id, retired: retired ? "false" : "true" }} />
     </Form>
   );
 }
@@ -48,30 +47,21 @@ export function CalibrationForm({ instruments }: { instruments: { id: string; la
       submitLabel="Record calibration"
       successMessage="Calibration recorded; the instrument is in use."
     >
-      <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-5">
-        <Field name="instrumentId" label="Instrument">
-          <select name="instrumentId" className={inputClass} defaultValue="">
-            <option value="">Choose…</option>
-            {instruments.map((i) => (
-              <option key={i.id} value={i.id}>
-                {i.label}
-              </option>
-            ))}
-          </select>
-        </Field>
-        <Field name="calibratedOn" label="Calibrated on">
-          <input name="calibratedOn" type="date" className={inputClass} />
-        </Field>
-        <Field name="dueOn" label="Due on">
-          <input name="dueOn" type="date" className={inputClass} />
-        </Field>
-        <Field name="certificateRef" label="Certificate number">
-          <input name="certificateRef" className={inputClass} />
-        </Field>
-        <Field name="laboratory" label="Laboratory">
-          <input name="laboratory" className={inputClass} />
-        </Field>
-      </div>
+      <FormFields
+        columns={5}
+        fields={[
+          {
+            name: "instrumentId",
+            label: "Instrument",
+            placeholder: "Choose…",
+            options: optionsOf(instruments),
+          },
+          { name: "calibratedOn", label: "Calibrated on", type: "date" },
+          { name: "dueOn", label: "Due on", type: "date" },
+          { name: "certificateRef", label: "Certificate number" },
+          { name: "laboratory", label: "Laboratory" },
+        ]}
+      />
     </Form>
   );
 }

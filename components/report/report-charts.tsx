@@ -1,5 +1,5 @@
 import { drawing, palette } from "@/lib/domain/theme";
-import { parameterChartRows, readingRows, rowDomain, type LimitRow } from "@/lib/report/chart-data";
+import { reportCharts, rowDomain, rowLimits, type LimitRow } from "@/lib/report/chart-data";
 import type { ReportData } from "@/lib/report/types";
 import { Residuals } from "@/components/report/residuals-figure";
 
@@ -9,15 +9,14 @@ import { Residuals } from "@/components/report/residuals-figure";
  * well as colour: a hollow ring is before adjustment, a filled dot after.
  */
 export function ReportFigures({ data }: { data: ReportData }) {
-  const charts = data.charts ?? {};
+  const chartList = reportCharts(data.charts);
   let n = 0;
   const caption = (text: string) => (
     <figcaption className="mt-1 text-sm text-graphite-600">
       Figure {++n}. {text}
     </figcaption>
   );
-  const none =
-    data.figures.length === 0 && !charts.readings?.length && !charts.parameters?.length && !charts.residuals;
+  const none = data.figures.length === 0 && chartList.length === 0;
   if (none)
     return (
       <p className="text-sm text-graphite-600">No figures: nothing measured on this job gives a chart.</p>
@@ -41,32 +40,16 @@ export function ReportFigures({ data }: { data: ReportData }) {
       {data.figures.length === 0 && data.parameters.length > 0 ? (
         <p className="text-sm text-graphite-600">No picture of the 3D view was saved for this report.</p>
       ) : null}
-      {charts.readings?.length ? (
-        <figure>
-          <LimitRows
-            rows={readingRows(charts.readings)}
-            title="Readings before and after adjustment"
-            legend="Hollow ring: before adjustment; filled dot: after; green lines: the limits, shaded between. Each row has its own scale; lengths in mm, angles in arc seconds, as in the readings table."
-          />
-          {caption("Checklist readings before and after adjustment against their limits.")}
+      {chartList.map((c) => (
+        <figure key={c.caption}>
+          {c.kind === "limits" ? (
+            <LimitRows rows={c.rows} title={c.title} legend={c.legend} />
+          ) : (
+            <Residuals r={c.residuals} />
+          )}
+          {caption(c.caption)}
         </figure>
-      ) : null}
-      {charts.parameters?.length ? (
-        <figure>
-          <LimitRows
-            rows={parameterChartRows(charts.parameters)}
-            title="Head parameters against limits"
-            legend="Dot: the fitted value; bar: ± U (k = 2); green lines: the procedure's limits, shaded between. Each row has its own scale."
-          />
-          {caption("Fitted head parameters against the procedure's limits.")}
-        </figure>
-      ) : null}
-      {charts.residuals ? (
-        <figure>
-          <Residuals r={charts.residuals} />
-          {caption("Residuals of the approved head fit per pose.")}
-        </figure>
-      ) : null}
+      ))}
     </div>
   );
 }
@@ -103,26 +86,17 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                       height={H - 4}
                       fill={drawing.limitBand}
                     />
-                    {r.lower != null ? (
+                    {rowLimits(r).map((v, j) => (
                       <line
-                        x1={x(r.lower)}
-                        x2={x(r.lower)}
+                        key={`l${j}`}
+                        x1={x(v)}
+                        x2={x(v)}
                         y1={0}
                         y2={H}
                         stroke={palette.pass[700]}
                         strokeWidth={1.4}
                       />
-                    ) : null}
-                    {r.upper != null ? (
-                      <line
-                        x1={x(r.upper)}
-                        x2={x(r.upper)}
-                        y1={0}
-                        y2={H}
-                        stroke={palette.pass[700]}
-                        strokeWidth={1.4}
-                      />
-                    ) : null}
+                    ))}
                     {from < 0 && to > 0 ? (
                       <line
                         x1={x(0)}

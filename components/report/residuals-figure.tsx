@@ -1,5 +1,6 @@
 /** The fit's residual per pose as the online report draws it: bars against the 3 s line. */
 import { drawing, palette } from "@/lib/domain/theme";
+import { YGrid } from "@/components/charts/axis";
 import { niceTicks } from "@/lib/chart-ticks";
 import type { ReportData } from "@/lib/report/types";
 
@@ -24,14 +25,7 @@ export function Residuals({ r }: { r: NonNullable<NonNullable<ReportData["charts
         role="img"
         aria-label={`Largest residual component per pose, ${r.totalPoses} poses; ${over} beyond 3 s = ${limit.toFixed(2)} µm`}
       >
-        {ticks.map((t) => (
-          <g key={t}>
-            <line x1={m.l} x2={w - m.r} y1={y(t)} y2={y(t)} stroke={drawing.grid} />
-            <text x={m.l - 6} y={y(t) + 4} textAnchor="end" fontSize="11" fill={drawing.axisText}>
-              {t}
-            </text>
-          </g>
-        ))}
+        <YGrid ticks={ticks} y={y} left={m.l} right={w - m.r} />
         {r.valuesUm.map((v, i) => (
           <rect
             key={i}

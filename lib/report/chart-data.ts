@@ -42,6 +42,11 @@ export function rowDomain(row: Pick<LimitRow, "lower" | "upper" | "marks">): { f
   return { from: Math.min(lo - span / 3, ...ends), to: Math.max(hi + span / 3, ...ends) };
 }
 
+/** The limits a row has (none, one or both), each drawn as a line across the row. */
+export function rowLimits(row: Pick<LimitRow, "lower" | "upper">): number[] {
+  return [row.lower, row.upper].filter((v): v is number => v != null);
+}
+
 const fmt = (v: number, d = 1) => signed(v, d);
 /** A value with its unit: arc seconds sit on the number (+5.2″), other units after a space. */
 const withUnit = (text: string, unit: string) => (unit === "″" ? `${text}″` : `${text} ${unit}`);
@@ -80,4 +85,42 @@ export function parameterChartRows(params: NonNullable<ReportCharts["parameters"
     marks: [{ value: p.value, U: p.U, kind: "value" as const }],
     note: `${fmt(p.value)} ± ${withUnit(p.U.toFixed(1), p.unit)}; limits ${limitsText(p.lower, p.upper, p.unit)}; ${DECISION_WORD[p.decision]}`,
   }));
+}
+
+/** One chart of the report's section 7, in the order printed: what it draws and the words around it. */
+export type ReportChart =
+  | { kind: "limits"; title: string; rows: LimitRow[]; legend: string; caption: string }
+  | { kind: "residuals"; residuals: NonNullable<ReportCharts["residuals"]>; caption: string };
+
+/**
+ * The charts the report's numbers give, with their legends and captions: the PDF and the report
+ * page draw the same list, so the two never say different things.
+ */
+export function reportCharts(charts: ReportCharts | undefined): ReportChart[] {
+  const out: ReportChart[] = [];
+  if (charts?.readings?.length)
+    out.push({
+      kind: "limits",
+      title: "Readings before and after adjustment",
+      rows: readingRows(charts.readings),
+      legend:
+        "Hollow ring: before adjustment; filled dot: after; green lines: the limits, shaded between. Each row has its own scale; lengths in mm, angles in arc seconds, as in the readings table.",
+      caption: "Checklist readings before and after adjustment against their limits.",
+    });
+  if (charts?.parameters?.length)
+    out.push({
+      kind: "limits",
+      title: "Head parameters against limits",
+      rows: parameterChartRows(charts.parameters),
+      legend:
+        "Dot: the fitted value; bar: ± U (k = 2); green lines: the procedure's limits, shaded between. Each row has its own scale.",
+      caption: "Fitted head parameters against the procedure's limits.",
+    });
+  if (charts?.residuals)
+    out.push({
+      kind: "residuals",
+      residuals: charts.residuals,
+      caption: "Residuals of the approved head fit per pose.",
+    });
+  return out;
 }

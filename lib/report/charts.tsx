@@ -8,19 +8,16 @@
 import { drawing, palette } from "@/lib/domain/theme";
 import { Circle, Line, Rect, Svg, Text, View } from "@react-pdf/renderer";
 import { niceTicks } from "@/lib/chart-ticks";
-import { rowDomain, type LimitRow } from "./chart-data";
+import { rowDomain, rowLimits, type LimitRow } from "./chart-data";
+import { pdfColours } from "./pdf-styles";
 import type { ReportCharts } from "./types";
 
 const C = {
-  ink: palette.graphite[900],
-  muted: palette.graphite[600],
-  rule: palette.graphite[200],
-  band: drawing.limitBand,
+  ...pdfColours,
+  limitBand: drawing.limitBand,
   limit: palette.pass[700],
   before: palette.nominal[500],
   after: palette.graphite[900],
-  fail: palette.fail[700],
-  accent: drawing.accentLine,
 };
 
 const ROW_W = 225;
@@ -36,27 +33,24 @@ function RowPlot({ row }: { row: LimitRow }) {
   const after = row.marks.find((m) => m.kind === "after");
   return (
     <Svg width={ROW_W} height={ROW_H} viewBox={`0 0 ${ROW_W} ${ROW_H}`}>
-      <Rect x={bandFrom} y={1.5} width={Math.max(0.5, bandTo - bandFrom)} height={ROW_H - 3} fill={C.band} />
-      {row.lower != null ? (
+      <Rect
+        x={bandFrom}
+        y={1.5}
+        width={Math.max(0.5, bandTo - bandFrom)}
+        height={ROW_H - 3}
+        fill={C.limitBand}
+      />
+      {rowLimits(row).map((v, i) => (
         <Line
-          x1={x(row.lower)}
-          x2={x(row.lower)}
+          key={`l${i}`}
+          x1={x(v)}
+          x2={x(v)}
           y1={0.5}
           y2={ROW_H - 0.5}
           stroke={C.limit}
           strokeWidth={0.9}
         />
-      ) : null}
-      {row.upper != null ? (
-        <Line
-          x1={x(row.upper)}
-          x2={x(row.upper)}
-          y1={0.5}
-          y2={ROW_H - 0.5}
-          stroke={C.limit}
-          strokeWidth={0.9}
-        />
-      ) : null}
+      ))}
       {from < 0 && to > 0 ? (
         <Line
           x1={x(0)}

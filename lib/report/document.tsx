@@ -5,7 +5,7 @@
  * their calibration status; environment; results with limits and uncertainty; deviations and
  * remarks; signatures with name, meaning and time; a clear end of report.
  */
-import { drawing, palette } from "@/lib/domain/theme";
+import { palette } from "@/lib/domain/theme";
 import {
   Circle,
   Document,
@@ -21,8 +21,9 @@ import {
 } from "@react-pdf/renderer";
 import { reportFacts } from "./build";
 import type { Decision, ReportData } from "./types";
-import { BODY_FONT, MONO_FONT } from "./fonts";
-import { parameterChartRows, readingRows } from "./chart-data";
+import { BODY_FONT } from "./fonts";
+import { pdfColours, pdfSectionStyles } from "./pdf-styles";
+import { reportCharts } from "./chart-data";
 import { LimitRowsChart, ResidualsChart } from "./charts";
 import { PhotoAppendix } from "./sections/photos";
 import { ClosingStatementsPdf, RecordDetailsPdf } from "./sections/records-pdf";
@@ -31,87 +32,62 @@ import { ControlValuesPdf } from "./sections/control-pdf";
 import { PositioningPdf } from "./sections/positioning-pdf";
 
 const C = {
-  ink: palette.graphite[900],
-  muted: palette.graphite[600],
-  rule: palette.graphite[200],
-  band: palette.graphite[50],
-  accent: drawing.accentLine,
+  ...pdfColours,
   nominal: palette.nominal[500],
   pass: palette.pass[700],
-  fail: palette.fail[700],
   undecided: palette.undecided[700],
   none: palette.unmeasured[600],
 };
 
-const s = StyleSheet.create({
-  page: {
-    fontFamily: BODY_FONT as unknown as string,
-    fontSize: 8.5,
-    color: C.ink,
-    paddingTop: 44,
-    paddingBottom: 56,
-    paddingHorizontal: 40,
-  },
-  header: {
-    flexDirection: "row",
-    justifyContent: "space-between",
-    alignItems: "flex-start",
-    borderBottomWidth: 1.5,
-    borderBottomColor: C.ink,
-    paddingBottom: 8,
-    marginBottom: 12,
-  },
-  title: { fontSize: 15, fontWeight: 700, lineHeight: 1.2 },
-  subtitle: { fontSize: 9, color: C.muted, marginTop: 2 },
-  idBox: { alignItems: "flex-end", flexShrink: 0, marginLeft: 12 },
-  mono: { fontFamily: MONO_FONT as unknown as string },
-  h2: {
-    fontSize: 10.5,
-    lineHeight: 1.2,
-    fontWeight: 700,
-    marginTop: 12,
-    marginBottom: 5,
-    paddingBottom: 2,
-    borderBottomWidth: 0.75,
-    borderBottomColor: C.rule,
-  },
-  grid: { flexDirection: "row", gap: 16 },
-  col: { flex: 1 },
-  factRow: { flexDirection: "row", marginBottom: 2 },
-  factLabel: { width: 92, color: C.muted },
-  factValue: { flex: 1 },
-  table: { borderWidth: 0.75, borderColor: C.rule },
-  tr: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: C.rule },
-  th: { backgroundColor: C.band, fontWeight: 700, color: C.muted, fontSize: 7.5 },
-  td: { paddingVertical: 3, paddingHorizontal: 4 },
-  num: { fontFamily: MONO_FONT as unknown as string, textAlign: "right", fontSize: 7.5 },
-  footerRule: {
-    position: "absolute",
-    bottom: 36,
-    left: 40,
-    right: 40,
-    borderTopWidth: 0.5,
-    borderTopColor: C.rule,
-  },
-  // Dynamic (render) text vanishes under a line height: none here, nor on the page.
-  footerText: { position: "absolute", bottom: 24, fontSize: 7, color: C.muted, fontFamily: "PlexSans" },
-  note: {
-    borderWidth: 1.2,
-    borderColor: C.accent,
-    padding: 7,
-    marginTop: 4,
-    backgroundColor: palette.accent[50],
-  },
-  sigBox: { width: "48%", borderWidth: 0.75, borderColor: C.rule, padding: 7, marginBottom: 8 },
-  end: {
-    marginTop: 14,
-    paddingTop: 6,
-    borderTopWidth: 1.5,
-    borderTopColor: C.ink,
-    textAlign: "center",
-    fontWeight: 700,
-  },
-});
+const s = {
+  ...pdfSectionStyles,
+  ...StyleSheet.create({
+    page: {
+      fontFamily: BODY_FONT as unknown as string,
+      fontSize: 8.5,
+      color: C.ink,
+      paddingTop: 44,
+      paddingBottom: 56,
+      paddingHorizontal: 40,
+    },
+    header: {
+      flexDirection: "row",
+      justifyContent: "space-between",
+      alignItems: "flex-start",
+      borderBottomWidth: 1.5,
+      borderBottomColor: C.ink,
+      paddingBottom: 8,
+      marginBottom: 12,
+    },
+    title: { fontSize: 15, fontWeight: 700, lineHeight: 1.2 },
+    subtitle: { fontSize: 9, color: C.muted, marginTop: 2 },
+    idBox: { alignItems: "flex-end", flexShrink: 0, marginLeft: 12 },
+    grid: { flexDirection: "row", gap: 16 },
+    col: { flex: 1 },
+    factRow: { flexDirection: "row", marginBottom: 2 },
+    factLabel: { width: 92, color: C.muted },
+    factValue: { flex: 1 },
+    footerRule: {
+      position: "absolute",
+      bottom: 36,
+      left: 40,
+      right: 40,
+      borderTopWidth: 0.5,
+      borderTopColor: C.rule,
+    },
+    // Dynamic (render) text vanishes under a line height: none here, nor on the page.
+    footerText: { position: "absolute", bottom: 24, fontSize: 7, color: C.muted, fontFamily: "PlexSans" },
+    sigBox: { width: "48%", borderWidth: 0.75, borderColor: C.rule, padding: 7, marginBottom: 8 },
+    end: {
+      marginTop: 14,
+      paddingTop: 6,
+      borderTopWidth: 1.5,
+      borderTopColor: C.ink,
+      textAlign: "center",
+      fontWeight: 700,
+    },
+  }),
+};
 
 const DECISION_TEXT: Record<Decision, string> = {
   pass: "✓ Pass",
@@ -226,15 +202,14 @@ function figureSize(w: number, h: number) {
  * Figures are numbered in order; a missing picture is said, not skipped silently.
  */
 function FiguresAndCharts({ data, images }: { data: ReportData; images: ReadonlyMap<string, Buffer> }) {
-  const charts = data.charts ?? {};
+  const chartList = reportCharts(data.charts);
   let n = 0;
   const caption = (text: string) => (
     <Text style={{ color: C.muted, marginTop: 3, marginBottom: 8 }}>
       Figure {++n}. {text}
     </Text>
   );
-  const none =
-    data.figures.length === 0 && !charts.readings?.length && !charts.parameters?.length && !charts.residuals;
+  const none = data.figures.length === 0 && chartList.length === 0;
   return (
     <View break={!none}>
       <Text style={s.h2}>7 Figures and charts</Text>
@@ -261,30 +236,16 @@ function FiguresAndCharts({ data, images }: { data: ReportData; images: Readonly
           No picture of the 3D view was saved for this report.
         </Text>
       ) : null}
-      {charts.readings?.length ? (
-        <View wrap={false}>
-          <LimitRowsChart
-            rows={readingRows(charts.readings)}
-            legend="Hollow ring: before adjustment; filled dot: after; green lines: the limits, shaded between. Each row has its own scale; lengths in mm, angles in arc seconds, as in the readings table."
-          />
-          {caption("Checklist readings before and after adjustment against their limits.")}
+      {chartList.map((c) => (
+        <View key={c.caption} wrap={false}>
+          {c.kind === "limits" ? (
+            <LimitRowsChart rows={c.rows} legend={c.legend} />
+          ) : (
+            <ResidualsChart residuals={c.residuals} />
+          )}
+          {caption(c.caption)}
         </View>
-      ) : null}
-      {charts.parameters?.length ? (
-        <View wrap={false}>
-          <LimitRowsChart
-            rows={parameterChartRows(charts.parameters)}
-            legend="Dot: the fitted value; bar: ± U (k = 2); green lines: the procedure's limits, shaded between. Each row has its own scale."
-          />
-          {caption("Fitted head parameters against the procedure's limits.")}
-        </View>
-      ) : null}
-      {charts.residuals ? (
-        <View wrap={false}>
-          <ResidualsChart residuals={charts.residuals} />
-          {caption("Residuals of the approved head fit per pose.")}
-        </View>
-      ) : null}
+      ))}
     </View>
   );
 }
@@ -536,7 +497,7 @@ export function ReportDocument({
             </View>
           </View>
 
-          <PhotoAppendix rows={data.photos} h2={s.h2} />
+          <PhotoAppendix rows={data.photos} />
 
           {data.draft ? (
             <View wrap={false} style={s.note}>

@@ -4,6 +4,7 @@ import { createElement } from "react";
 import { renderToString } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import { mapActionErrors } from "@/components/ui/form-errors";
+import { FormFields, HiddenFields } from "@/components/ui/form-fields";
 import { buildTable, column, Table, type ColumnDef, type TableProps } from "@/components/ui/table";
 
 type Row = { id: string; ref: string; n: number | null };
@@ -123,5 +124,45 @@ describe("mapActionErrors", () => {
       isField,
     );
     expect(r).toEqual({ message: "Only an administrator may.", fields: [] });
+  });
+});
+
+describe("FormFields", () => {
+  const html = renderToString(
+    createElement(FormFields, {
+      columns: 4,
+      fields: [
+        { name: "serial", label: "Serial", numeric: true },
+        { name: "massKg", label: "Mass (kg)", decimal: true, defaultValue: "12" },
+        { name: "axis", label: "Axis", options: [{ value: "A", label: "A" }], placeholder: "Choose…" },
+        { name: "notes", label: "Notes", rows: 3, hint: "Printed on the report." },
+      ],
+    }),
+  );
+  it("gives every field its label, its control by name and an inline error place", () => {
+    for (const [name, label] of [
+      ["serial", "Serial"],
+      ["massKg", "Mass (kg)"],
+      ["axis", "Axis"],
+      ["notes", "Notes"],
+    ]) {
+      expect(html).toContain(`>${label}</label>`);
+      expect(html).toMatch(new RegExp(`name="${name}"`));
+      expect(html).toContain(`data-error-for="${name}"`);
+    }
+  });
+  it("draws numbers with tabular figures, decimals with the decimal keypad, and the other kinds", () => {
+    expect(html).toMatch(/<input[^>]*class="[^"]*\bnum\b[^"]*"[^>]*name="serial"/);
+    expect(html).toMatch(/<input[^>]*inputMode="decimal"[^>]*name="massKg"[^>]*value="12"/);
+    expect(html).toMatch(/<select[^>]*name="axis"[^>]*><option value=""[^>]*>Choose…<\/option>/);
+    expect(html).toMatch(/<textarea[^>]*rows="3"[^>]*name="notes"/);
+    expect(html).toContain("Printed on the report.");
+    expect(html).toContain("lg:grid-cols-4");
+  });
+  it("sends fixed values as hidden inputs", () => {
+    const hidden = renderToString(createElement(HiddenFields, { values: { jobId: "j1", action: "hold" } }));
+    expect(hidden).toBe(
+      '<input type="hidden" name="jobId" value="j1"/><input type="hidden" name="action" value="hold"/>',
+    );
   });
 });

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { PageHeading } from "@/components/ui/page-heading";
 import { notFound } from "next/navigation";
 import { HeadsTable } from "@/components/registers/heads-table";
 import { CustomerForm, HeadForm, MachineForm, SiteForm } from "@/components/registers/register-forms";
@@ -24,13 +25,10 @@ export default async function RegistersPage() {
   ]);
   return (
     <div className="space-y-8">
-      <div>
-        <h1 className="text-2xl font-semibold">Registers</h1>
-        <p className="text-sm text-graphite-600">
-          Customers and their sites, host machines and heads. People, instruments and procedures have their
-          own tabs.
-        </p>
-      </div>
+      <PageHeading title="Registers">
+        Customers and their sites, host machines and heads. People, instruments and procedures have their own
+        tabs.
+      </PageHeading>
       <section className="space-y-3" aria-labelledby="customers">
         <h2 id="customers" className="text-lg font-semibold">
           Customers

@@ -1,8 +1,7 @@
 /** The report's uncertainty budget of the approved fit (5.3), for the PDF; absent without an approved fit. */
-import { StyleSheet, Text, View } from "@react-pdf/renderer";
+import { Text, View } from "@react-pdf/renderer";
 import type { BudgetTableRow } from "@/lib/budget-display";
-import { palette } from "@/lib/domain/theme";
-import { MONO_FONT } from "@/lib/report/fonts";
+import { pdfSectionStyles } from "@/lib/report/pdf-styles";
 
 export interface ReportBudget {
   /** The Type B inputs in words, with their standard uncertainties. */
@@ -11,24 +10,8 @@ export interface ReportBudget {
   notes: string[];
 }
 
-const s = StyleSheet.create({
-  h2: {
-    fontSize: 10.5,
-    lineHeight: 1.2,
-    fontWeight: 700,
-    marginTop: 12,
-    marginBottom: 5,
-    paddingBottom: 2,
-    borderBottomWidth: 0.75,
-    borderBottomColor: palette.graphite[200],
-  },
-  muted: { color: palette.graphite[600], marginBottom: 3 },
-  table: { borderWidth: 0.75, borderColor: palette.graphite[200] },
-  tr: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: palette.graphite[200] },
-  th: { backgroundColor: palette.graphite[50], fontWeight: 700, color: palette.graphite[600], fontSize: 7.5 },
-  td: { paddingVertical: 2, paddingHorizontal: 4 },
-  num: { fontFamily: MONO_FONT as unknown as string, textAlign: "right", fontSize: 7.5 },
-});
+/** The budget's rows sit closer together than the other tables: one parameter spans several. */
+const s = { ...pdfSectionStyles, td: { ...pdfSectionStyles.td, paddingVertical: 2 } };
 
 const W = ["46%", "18%", "18%", "18%"] as const;
 

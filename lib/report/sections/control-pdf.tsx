@@ -1,35 +1,9 @@
 /** The PDF's control-values section (5.1), from the report's data; absent when nothing was recorded. */
-import { StyleSheet, Text, View } from "@react-pdf/renderer";
-import { drawing, palette } from "@/lib/domain/theme";
-import { MONO_FONT } from "@/lib/report/fonts";
+import { Text, View } from "@react-pdf/renderer";
+import { pdfSectionStyles } from "@/lib/report/pdf-styles";
 import type { ReportControlValues } from "./control";
 
-const s = StyleSheet.create({
-  h2: {
-    fontSize: 10.5,
-    lineHeight: 1.2,
-    fontWeight: 700,
-    marginTop: 12,
-    marginBottom: 5,
-    paddingBottom: 2,
-    borderBottomWidth: 0.75,
-    borderBottomColor: palette.graphite[200],
-  },
-  muted: { color: palette.graphite[600], marginBottom: 3 },
-  table: { borderWidth: 0.75, borderColor: palette.graphite[200] },
-  tr: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: palette.graphite[200] },
-  th: { backgroundColor: palette.graphite[50], fontWeight: 700, color: palette.graphite[600], fontSize: 7.5 },
-  td: { paddingVertical: 3, paddingHorizontal: 4 },
-  num: { fontFamily: MONO_FONT as unknown as string, textAlign: "right", fontSize: 7.5 },
-  flag: { color: palette.fail[700], fontWeight: 700 },
-  note: {
-    borderWidth: 1.2,
-    borderColor: drawing.accentLine,
-    padding: 7,
-    marginTop: 4,
-    backgroundColor: palette.accent[50],
-  },
-});
+const s = pdfSectionStyles;
 
 const COLS = [
   ["Setting", "24%"],

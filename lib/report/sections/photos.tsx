@@ -3,7 +3,8 @@
  * with it, listed by step, phase, time (UTC), who took them, size and SHA-256 (so the stored image
  * can be matched to the signed report). The images themselves stay in the job's record.
  */
-import { Text, View, type Styles } from "@react-pdf/renderer";
+import { Text, View } from "@react-pdf/renderer";
+import { pdfSectionStyles } from "../pdf-styles";
 import { formatDateTimeUtc } from "@/lib/format";
 
 export interface PhotoAppendixRow {
@@ -49,17 +50,11 @@ export function photoAppendixRows(
 }
 
 /** The appendix in the PDF; nothing when no step asks for a photo. */
-export function PhotoAppendix({
-  rows,
-  h2,
-}: {
-  rows: readonly PhotoAppendixRow[] | undefined;
-  h2: Styles[string];
-}) {
+export function PhotoAppendix({ rows }: { rows: readonly PhotoAppendixRow[] | undefined }) {
   if (!rows?.length) return null;
   return (
     <View>
-      <Text style={h2} minPresenceAhead={40}>
+      <Text style={pdfSectionStyles.h2} minPresenceAhead={40}>
         Appendix: photos kept with the record
       </Text>
       {rows.map((r, i) => (

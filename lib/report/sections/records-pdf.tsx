@@ -4,32 +4,17 @@
  * end of the report. Styled like lib/report/document.tsx's own sections.
  */
 import { StyleSheet, Text, View } from "@react-pdf/renderer";
-import { palette } from "@/lib/domain/theme";
-import { MONO_FONT } from "../fonts";
+import { pdfColours, pdfSectionStyles } from "../pdf-styles";
 import type { ReportRecords } from "./records";
 
-const C = { muted: palette.graphite[600], rule: palette.graphite[200], band: palette.graphite[50] };
-const s = StyleSheet.create({
-  h2: {
-    fontSize: 10.5,
-    lineHeight: 1.2,
-    fontWeight: 700,
-    marginTop: 12,
-    marginBottom: 5,
-    paddingBottom: 2,
-    borderBottomWidth: 0.75,
-    borderBottomColor: C.rule,
-  },
-  h3: { fontSize: 9, fontWeight: 700, marginTop: 7, marginBottom: 3 },
-  row: { flexDirection: "row", marginBottom: 2 },
-  label: { width: 110, color: C.muted },
-  value: { flex: 1 },
-  table: { borderWidth: 0.75, borderColor: C.rule },
-  tr: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: C.rule },
-  th: { backgroundColor: C.band, fontWeight: 700, color: C.muted, fontSize: 7.5 },
-  td: { paddingVertical: 3, paddingHorizontal: 4 },
-  mono: { fontFamily: MONO_FONT as unknown as string, fontSize: 7 },
-});
+const s = {
+  ...pdfSectionStyles,
+  ...StyleSheet.create({
+    row: { flexDirection: "row", marginBottom: 2 },
+    label: { width: 110, color: pdfColours.muted },
+    value: { flex: 1 },
+  }),
+};
 
 function Fact({ k, v }: { k: string; v: string }) {
   return (
@@ -113,7 +98,7 @@ export function RecordDetailsPdf({ r }: { r: ReportRecords }) {
           ])}
         />
       ) : (
-        <Text style={{ color: C.muted }}>No instrument is recorded with the readings.</Text>
+        <Text style={{ color: pdfColours.muted }}>No instrument is recorded with the readings.</Text>
       )}
 
       <Text style={s.h3} minPresenceAhead={30}>
@@ -125,14 +110,14 @@ export function RecordDetailsPdf({ r }: { r: ReportRecords }) {
             <Fact k="Data file" v={f.file} />
             <View style={s.row}>
               <Text style={s.label}>SHA-256</Text>
-              <Text style={[s.value, s.mono]}>{f.sha256}</Text>
+              <Text style={[s.value, s.mono, { fontSize: 7 }]}>{f.sha256}</Text>
             </View>
             <Fact k="Phase" v={f.phase} />
             <Fact k="Computation version" v={f.computation} />
           </View>
         ))
       ) : (
-        <Text style={{ color: C.muted }}>No fit is part of this report.</Text>
+        <Text style={{ color: pdfColours.muted }}>No fit is part of this report.</Text>
       )}
     </View>
   );

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { Breadcrumb } from "@/components/ui/breadcrumb";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { FitHistory } from "@/components/heads/fit-history";
@@ -27,12 +28,9 @@ export default async function HeadHistoryPage({ params }: Props) {
   const staff = registerReadRefusal(user, "heads") === null;
   return (
     <div className="space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm text-graphite-600">
-        <Link href="/jobs" className="hover:underline">
-          Jobs
-        </Link>{" "}
-        / Head <span className="num">{head.serial}</span>
-      </nav>
+      <Breadcrumb parent={{ href: "/jobs", label: "Jobs" }}>
+        Head <span className="num">{head.serial}</span>
+      </Breadcrumb>
       <div className="space-y-1">
         <h1 className="text-2xl font-semibold">
           Head <span className="num">{head.serial}</span>: fitted parameters over time

@@ -1,5 +1,5 @@
-import Link from "next/link";
 import { notFound } from "next/navigation";
+import { Breadcrumb } from "@/components/ui/breadcrumb";
 import { JobTabs } from "@/components/jobs/job-tabs";
 import { StatusBadge } from "@/components/ui/status-badge";
 import { getJobDetail } from "@/db/queries/jobs";
@@ -18,12 +18,9 @@ export default async function JobLayout({ params, children }: Props) {
   const { job, customer, site } = d;
   return (
     <div className="space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm text-graphite-600">
-        <Link href="/jobs" className="hover:text-graphite-900 hover:underline">
-          Jobs
-        </Link>{" "}
-        / <span className="num">{job.reference}</span>
-      </nav>
+      <Breadcrumb parent={{ href: "/jobs", label: "Jobs" }}>
+        <span className="num">{job.reference}</span>
+      </Breadcrumb>
       <div className="flex flex-wrap items-start justify-between gap-4">
         <div>
           <p className="num text-sm text-graphite-600">{job.reference}</p>

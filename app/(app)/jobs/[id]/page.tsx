@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { headFacts } from "@/components/heads/head-facts";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { StatusFlow } from "@/components/jobs/status-flow";
@@ -72,24 +73,7 @@ export default async function JobPage({ params }: Props) {
           />
         </Card>
         <Card title="Head">
-          <Facts
-            items={[
-              { label: "Serial", value: head.serial, mono: true },
-              { label: "Maker and model", value: [head.maker, head.model].filter(Boolean).join(" ") || null },
-              {
-                label: "Axes",
-                value: `${head.primaryAxis} primary (rotary) / ${head.secondaryAxis} secondary (tilt)`,
-              },
-              {
-                label: "Nominal pivot length",
-                value: `${head.nominalPivotLengthMm.toFixed(3)} mm`,
-                mono: true,
-              },
-              { label: "Tool-axis offset", value: `${head.toolAxisOffsetMm.toFixed(3)} mm`, mono: true },
-              { label: "Tool direction at zero", value: `(${head.toolDirection.join(", ")})`, mono: true },
-              { label: "Mass", value: head.massKg ? `${head.massKg} kg` : null, mono: true },
-            ]}
-          />
+          <Facts items={[{ label: "Serial", value: head.serial, mono: true }, ...headFacts(head)]} />
           {headHistoryRefusal(user) === null ? (
             <p className="mt-4 border-t border-graphite-100 pt-3 text-sm">
               <Link href={`/heads/${head.id}`} className="font-medium text-accent-700 underline">

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { Breadcrumb } from "@/components/ui/breadcrumb";
 import { NewJobForm } from "@/components/jobs/new-job-form";
 import { Card } from "@/components/ui/card";
 import { SafetyNote } from "@/components/ui/safety-note";
@@ -14,12 +14,7 @@ export default async function NewJobPage() {
   const refusal = jobCreateRefusal(user);
   return (
     <div className="space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm text-graphite-600">
-        <Link href="/jobs" className="hover:text-graphite-900 hover:underline">
-          Jobs
-        </Link>{" "}
-        / New job
-      </nav>
+      <Breadcrumb parent={{ href: "/jobs", label: "Jobs" }}>New job</Breadcrumb>
       <h1 className="text-2xl font-semibold">New job</h1>
       {refusal ? (
         <Card>

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { PageHeading } from "@/components/ui/page-heading";
 import { notFound } from "next/navigation";
 import { listHeads } from "@/db/queries/registers";
 import { registerReadRefusal } from "@/lib/policy/registers";
@@ -13,12 +14,9 @@ export default async function HeadsPage() {
   const heads = await listHeads(user);
   return (
     <div className="space-y-5">
-      <div>
-        <h1 className="text-2xl font-semibold">Heads</h1>
-        <p className="text-sm text-graphite-600">
-          Every two-axis head on record, its axis configuration and where it is mounted now.
-        </p>
-      </div>
+      <PageHeading title="Heads">
+        Every two-axis head on record, its axis configuration and where it is mounted now.
+      </PageHeading>
       <HeadsTable rows={heads} />
     </div>
   );

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { PageHeading } from "@/components/ui/page-heading";
 import { notFound } from "next/navigation";
 import { InstrumentForm } from "@/components/registers/instrument-form";
 import { CalibrationForm } from "@/components/registers/retire-controls";
@@ -55,13 +56,10 @@ export default async function InstrumentsPage() {
   const today = new Date().toISOString().slice(0, 10);
   return (
     <div className="space-y-6">
-      <div>
-        <h1 className="text-2xl font-semibold">Instruments</h1>
-        <p className="text-sm text-graphite-600">
-          Every instrument a reading may name, with its resolution, standard uncertainty and calibration. A
-          reading with an instrument past its due date is refused.
-        </p>
-      </div>
+      <PageHeading title="Instruments">
+        Every instrument a reading may name, with its resolution, standard uncertainty and calibration. A
+        reading with an instrument past its due date is refused.
+      </PageHeading>
       <Table
         caption="Instruments"
         empty="No instruments in the register yet."

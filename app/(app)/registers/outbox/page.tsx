@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { PageHeading } from "@/components/ui/page-heading";
 import { notFound } from "next/navigation";
 import { listOutbox } from "@/db/queries/outbox";
 import { registerReadRefusal } from "@/lib/policy/registers";
@@ -16,14 +17,11 @@ export default async function OutboxPage() {
   const rows = await listOutbox(user);
   return (
     <div className="space-y-6">
-      <div>
-        <h1 className="text-2xl font-semibold">Outbox</h1>
-        <p className="text-sm text-graphite-600">
-          E-mail queued by the app, newest first. A worker inside the app sends due messages every few seconds
-          through SMTP (in the demo, a local fake that keeps them under{" "}
-          <span className="num">.data/mail</span>), retrying with growing waits.
-        </p>
-      </div>
+      <PageHeading title="Outbox">
+        E-mail queued by the app, newest first. A worker inside the app sends due messages every few seconds
+        through SMTP (in the demo, a local fake that keeps them under <span className="num">.data/mail</span>
+        ), retrying with growing waits.
+      </PageHeading>
       {rows.length === 0 ? <p className="text-sm text-graphite-600">Nothing has been queued yet.</p> : null}
       <ul className="space-y-3">
         {rows.map((m) => (

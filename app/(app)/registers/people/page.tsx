@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { PageHeading } from "@/components/ui/page-heading";
 import { notFound } from "next/navigation";
 import { AccountRecoveryButtons } from "@/components/registers/account-recovery-buttons";
 import { InviteForm, PersonControls } from "@/components/registers/people-forms";
@@ -18,13 +19,10 @@ export default async function PeoplePage() {
   const [people, customers] = await Promise.all([listPeople(user), listCustomersForSelect()]);
   return (
     <div className="space-y-6">
-      <div>
-        <h1 className="text-2xl font-semibold">People</h1>
-        <p className="text-sm text-graphite-600">
-          Who signs in, in which role. A role change or disabling takes effect on the person&apos;s next
-          request and ends their open sessions.
-        </p>
-      </div>
+      <PageHeading title="People">
+        Who signs in, in which role. A role change or disabling takes effect on the person&apos;s next request
+        and ends their open sessions.
+      </PageHeading>
       <Table
         caption="People"
         empty="Nobody has an account yet."

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { PageHeading } from "@/components/ui/page-heading";
 import { notFound } from "next/navigation";
 import { IssuerSettingsForm } from "@/components/registers/issuer-settings-form";
 import { getIssuerForEdit } from "@/db/queries/issuer";
@@ -15,13 +16,10 @@ export default async function IssuerSettingsPage() {
   const missing = issuerDetailsMissing(current);
   return (
     <div className="space-y-6">
-      <div>
-        <h1 className="text-2xl font-semibold">Issuer details</h1>
-        <p className="text-sm text-graphite-600">
-          The company that issues the reports, as printed at the head of each one (ISO/IEC 17025:2017 §7.8.2.1
-          b). A report already issued keeps the details it was issued with.
-        </p>
-      </div>
+      <PageHeading title="Issuer details">
+        The company that issues the reports, as printed at the head of each one (ISO/IEC 17025:2017 §7.8.2.1
+        b). A report already issued keeps the details it was issued with.
+      </PageHeading>
       {missing.length ? (
         <p role="status" className="rounded-card border border-accent-300 bg-accent-50 p-3 text-sm">
           No report can be issued until the issuer&apos;s {missing.join(" and ")}{" "}

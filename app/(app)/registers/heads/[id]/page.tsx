@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { Breadcrumb } from "@/components/ui/breadcrumb";
+import { headFacts } from "@/components/heads/head-facts";
 import { notFound } from "next/navigation";
 import { MountHeadForm } from "@/components/registers/mount-head-form";
 import { Card, Facts } from "@/components/ui/card";
@@ -26,12 +27,9 @@ export default async function HeadPage({ params }: Props) {
   const { head } = h;
   return (
     <div className="space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm text-graphite-600">
-        <Link href="/registers/heads" className="hover:underline">
-          Heads
-        </Link>{" "}
-        / <span className="num">{head.serial}</span>
-      </nav>
+      <Breadcrumb parent={{ href: "/registers/heads", label: "Heads" }}>
+        <span className="num">{head.serial}</span>
+      </Breadcrumb>
       <h1 className="text-2xl font-semibold">
         Head <span className="num">{head.serial}</span>
       </h1>
@@ -39,19 +37,7 @@ export default async function HeadPage({ params }: Props) {
         <Card title="Configuration">
           <Facts
             items={[
-              { label: "Maker and model", value: [head.maker, head.model].filter(Boolean).join(" ") || null },
-              {
-                label: "Axes",
-                value: `${head.primaryAxis} primary (rotary) / ${head.secondaryAxis} secondary (tilt)`,
-              },
-              {
-                label: "Nominal pivot length",
-                value: `${head.nominalPivotLengthMm.toFixed(3)} mm`,
-                mono: true,
-              },
-              { label: "Tool-axis offset", value: `${head.toolAxisOffsetMm.toFixed(3)} mm`, mono: true },
-              { label: "Tool direction at zero", value: `(${head.toolDirection.join(", ")})`, mono: true },
-              { label: "Mass", value: head.massKg ? `${head.massKg} kg` : null, mono: true },
+              ...headFacts(head),
               {
                 label: "Mounted on",
                 value: h.machineName ? `${h.machineName} — ${h.customerName}, ${h.siteName}` : "Not mounted",

@@ -1,0 +1,88 @@
+"use client";
+
+import { Field, inputClass, SelectField, TextField, type Option } from "./field";
+
+/**
+ * One field of a form, described rather than written out: a text input (optionally numeric, a
+ * decimal number, an e-mail or a date), a select (`options`) or a multi-line text (`rows`).
+ * `FormFields` lays a list of them out in a grid; every field is still a `Field` with its label,
+ * hint and inline error, registered with the surrounding `Form`.
+ */
+export type FieldSpec = {
+  name: string;
+  label: string;
+  hint?: string;
+  defaultValue?: string;
+} & (
+  | { options: readonly Option[]; placeholder?: string }
+  | { rows: number }
+  | {
+      type?: "text" | "email" | "date" | "time";
+      /** A decimal number: the numeric keypad on a tablet and tabular figures. */
+      decimal?: boolean;
+      /** Tabular figures (serials, references, phone numbers). */
+      numeric?: boolean;
+      placeholder?: string;
+    }
+);
+
+/** Grid layouts by column count at full width (one column on a phone). */
+const GRID = {
+  2: "grid gap-4 sm:grid-cols-2",
+  3: "grid gap-4 sm:grid-cols-3",
+  4: "grid gap-4 sm:grid-cols-2 lg:grid-cols-4",
+  5: "grid gap-4 sm:grid-cols-2 lg:grid-cols-5",
+} as const;
+
+export function FormFields({
+  fields,
+  columns,
+}: {
+  fields: readonly FieldSpec[];
+  columns: keyof typeof GRID;
+}) {
+  return (
+    <div className={GRID[columns]}>
+      {fields.map((f) => (
+        <FormField key={f.name} spec={f} />
+      ))}
+    </div>
+  );
+}
+
+function FormField({ spec }: { spec: FieldSpec }) {
+  const { name, label, hint, defaultValue } = spec;
+  if ("options" in spec)
+    return (
+      <SelectField
+        {...{ name, label, hint, defaultValue }}
+        options={spec.options}
+        placeholder={spec.placeholder}
+      />
+    );
+  if ("rows" in spec)
+    return (
+      <Field {...{ name, label, hint }}>
+        <textarea className={inputClass} rows={spec.rows} defaultValue={defaultValue} />
+      </Field>
+    );
+  const { type, placeholder, numeric, decimal } = spec;
+  return (
+    <TextField
+      {...{ name, label, hint, defaultValue, type, placeholder }}
+      numeric={numeric || decimal}
+      inputMode={decimal ? "decimal" : undefined}
+    />
+  );
+}
+
+/** The fixed values a form sends with its fields (the record it acts on, the action it asks for). */
+export function HiddenFields({ values }: { values: Record<string, string> }) {
+  return (
+    <>
+      {Object.entries(values).map(([name, value]) => (
+        <input key={name} type="hidden" name={name} value={value} />
+      ))}
+    </>
+  );
+}

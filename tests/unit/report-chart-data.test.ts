@@ -1,0 +1,54 @@
+// The charts of the report's section 7 as the PDF and the report page both draw them: which
+// charts there are, in which order, and which limit lines each row has. The limit wording is the
+// project's own; the interval arithmetic is checked by hand below.
+import { describe, expect, it } from "vitest";
+import { reportCharts, rowDomain, rowLimits } from "@/lib/report/chart-data";
+
+const readings = [{ step: "1 Collar face", lower: -0.01, upper: 0.01, pre: 0.02, post: 0.004, unit: "mm" }];
+const parameters = [
+  { symbol: "EB0C", value: 12, U: 3, lower: null, upper: 20, unit: "″", decision: "pass" as const },
+];
+const residuals = { valuesUm: [1, 2, 9], totalPoses: 3, sUm: 2, perPoint: 1 };
+
+describe("reportCharts", () => {
+  it("lists nothing when the report has no numbers to chart", () => {
+    expect(reportCharts(undefined)).toEqual([]);
+    expect(reportCharts({ readings: [], parameters: [] })).toEqual([]);
+  });
+  it("lists readings, then parameters, then residuals, each with its own caption", () => {
+    const list = reportCharts({ readings, parameters, residuals });
+    expect(list.map((c) => c.kind)).toEqual(["limits", "limits", "residuals"]);
+    expect(list.map((c) => c.caption)).toEqual([
+      "Checklist readings before and after adjustment against their limits.",
+      "Fitted head parameters against the procedure's limits.",
+      "Residuals of the approved head fit per pose.",
+    ]);
+    const [r, p] = list;
+    expect(r?.kind === "limits" && r.rows[0]?.marks.map((m) => m.kind)).toEqual(["before", "after"]);
+    expect(p?.kind === "limits" && p.rows[0]?.marks[0]).toEqual({ value: 12, U: 3, kind: "value" });
+  });
+  it("leaves out a chart whose numbers are missing, keeping the order of the rest", () => {
+    expect(reportCharts({ parameters, residuals }).map((c) => c.caption)).toEqual([
+      "Fitted head parameters against the procedure's limits.",
+      "Residuals of the approved head fit per pose.",
+    ]);
+  });
+});
+
+describe("rowLimits", () => {
+  it("gives the limits a row has: both, only the upper, or none", () => {
+    expect(rowLimits({ lower: -0.01, upper: 0.01 })).toEqual([-0.01, 0.01]);
+    expect(rowLimits({ lower: null, upper: 20 })).toEqual([20]);
+    expect(rowLimits({ lower: null, upper: null })).toEqual([]);
+    // A limit of zero is a limit (checked by hand: 0 is not "missing").
+    expect(rowLimits({ lower: 0, upper: null })).toEqual([0]);
+  });
+  it("every limit lies inside the row's drawn domain", () => {
+    for (const row of reportCharts({ readings, parameters }).flatMap((c) =>
+      c.kind === "limits" ? c.rows : [],
+    )) {
+      const { from, to } = rowDomain(row);
+      for (const v of rowLimits(row)) expect(v > from && v < to).toBe(true);
+    }
+  });
+});
