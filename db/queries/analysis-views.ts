@@ -160,12 +160,9 @@ export async function saveAnalysisView(
         .insert(analysisViews)
         .values({ jobId: a.job.id, ...picture, storageKey: key, createdById: actor.id })
         .returning({ id: analysisViews.id });
-      await appendAudit(tx, {
-        actorId: actor.id,
-        actorEmail: actor.email,
+      await appendAudit(tx, actor, {
         action: "analysis_view.saved",
-        entityType: "analysis_view",
-        entityId: row!.id,
+        entity: { type: "analysis_view", id: row!.id },
         jobId: a.job.id,
         newValues: picture,
       });

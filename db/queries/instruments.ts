@@ -156,12 +156,9 @@ export async function recordCalibration(
       })
       .where(eq(instruments.id, id))
       .returning();
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "instrument.calibrated",
-      entityType: "instrument",
-      entityId: id,
+      entity: { type: "instrument", id: id },
       oldValues: {
         calibratedOn: before.calibratedOn,
         calibrationDueOn: before.calibrationDueOn,

@@ -199,7 +199,8 @@ export async function updateJobRecord(actor: Actor, jobId: string, input: JobRec
       .returning();
     await appendAudit(
       tx,
-      jobEvent(actor, d.job.id, reassigning ? "job.assigned" : "job.updated", { oldValues, newValues }),
+      actor,
+      jobEvent(d.job.id, reassigning ? "job.assigned" : "job.updated", { oldValues, newValues }),
     );
     if (reassigning)
       await queueAssignmentMails(tx, actor, {
@@ -260,7 +261,8 @@ export async function moveJob(actor: Actor, jobId: string, move: JobMoveInput) {
       .returning();
     await appendAudit(
       tx,
-      jobEvent(actor, d.job.id, `job.${MOVED[move.action]}`, {
+      actor,
+      jobEvent(d.job.id, `job.${MOVED[move.action]}`, {
         oldValues: { status: d.job.status },
         newValues: { status: to, ...("reason" in move && move.reason ? { reason: move.reason } : {}) },
       }),

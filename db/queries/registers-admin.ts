@@ -157,12 +157,9 @@ export async function insertRegisterRow<T extends RegisterTable>(
       .insert(t)
       .values(values as typeof customers.$inferInsert)
       .returning()) as T["$inferSelect"][];
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: `${entityType}.created`,
-      entityType,
-      entityId: row!.id,
+      entity: { type: entityType, id: row!.id },
       newValues: describe(row!),
     });
     return row!;
@@ -206,12 +203,9 @@ export async function updateRegisterRow<T extends RegisterTable>(
     const next = Object.fromEntries(changed);
     const [row] = await tx.update(t).set(next).where(eq(t.id, id)).returning();
     const onlyRetirement = retiring && changed.every(([k]) => k === "retiredAt" || k === "retired");
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: `${entityType}.${onlyRetirement ? (retired ? "retired" : "restored") : "updated"}`,
-      entityType,
-      entityId: id,
+      entity: { type: entityType, id: id },
       oldValues: Object.fromEntries(changed.map(([k]) => [k, before[k] ?? null])),
       newValues: next,
     });
