@@ -47,17 +47,9 @@ export function jobEvent(
   return { action, entity: { type: "job", id: jobId }, jobId, ...values };
 }
 
-function auditRow(actor: AuditActor, e: AuditEvent): AuditInput {
-  return {
-    actorId: actor?.id ?? null,
-    actorEmail: actor?.email ?? null,
-    action: e.action,
-    entityType: e.entity.type,
-    entityId: e.entity.id,
-    jobId: e.jobId,
-    oldValues: e.oldValues,
-    newValues: e.newValues,
-  };
+function auditRow(actor: AuditActor, { entity, ...event }: AuditEvent): AuditInput {
+  const by = { actorId: actor?.id ?? null, actorEmail: actor?.email ?? null };
+  return { ...by, entityType: entity.type, entityId: entity.id, ...event };
 }
 
 /** What an event records, as stored and hashed: a missing job or old/new value is null. */
