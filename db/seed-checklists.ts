@@ -510,14 +510,15 @@ async function ensureTemplate(
       })
       .returning();
     await tx.insert(templateSteps).values(steps.map((s) => ({ ...s, templateId: t!.id })));
-    await appendAudit(tx, {
-      actorId: adminId,
-      actorEmail: "admin@halvard.example",
-      action: "template.created",
-      entityType: "procedure_template",
-      entityId: t!.id,
-      newValues: { name: t!.name, version: 1, steps: steps.length, note: "demo data (invented)" },
-    });
+    await appendAudit(
+      tx,
+      { id: adminId, email: "admin@halvard.example" },
+      {
+        action: "template.created",
+        entity: { type: "procedure_template", id: t!.id },
+        newValues: { name: t!.name, version: 1, steps: steps.length, note: "demo data (invented)" },
+      },
+    );
     return t!;
   });
 }
@@ -554,23 +555,24 @@ async function seedReadings(reference: string, start: Date, list: DemoReading[],
           recordedById: installerId,
         })
         .returning();
-      await appendAudit(tx, {
-        actorId: installerId,
-        actorEmail: "installer@halvard.example",
-        action: "reading.recorded",
-        entityType: "reading",
-        entityId: row!.id,
-        jobId: job.id,
-        newValues: {
-          step: r.step,
-          phase: r.phase,
-          value: derived.value,
-          enteredValue: r.value,
-          enteredUnit: r.unit,
-          instrument: r.instrument,
-          note: "demo data (invented)",
+      await appendAudit(
+        tx,
+        { id: installerId, email: "installer@halvard.example" },
+        {
+          action: "reading.recorded",
+          entity: { type: "reading", id: row!.id },
+          jobId: job.id,
+          newValues: {
+            step: r.step,
+            phase: r.phase,
+            value: derived.value,
+            enteredValue: r.value,
+            enteredUnit: r.unit,
+            instrument: r.instrument,
+            note: "demo data (invented)",
+          },
         },
-      });
+      );
     }
   });
 }

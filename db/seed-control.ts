@@ -147,12 +147,9 @@ export async function seedControlLoop(password: string): Promise<void> {
           createdById: engineer.id,
         })
         .returning();
-      await appendAudit(tx, {
-        actorId: engineer.id,
-        actorEmail: engineer.email,
+      await appendAudit(tx, engineer, {
         action: "job.created",
-        entityType: "job",
-        entityId: row!.id,
+        entity: { type: "job", id: row!.id },
         jobId: row!.id,
         newValues: { reference: row!.reference, status: row!.status, note: "demo data (invented)" },
       });

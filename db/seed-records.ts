@@ -126,12 +126,9 @@ export async function seedRecords(): Promise<void> {
           recordedAt: new Date("2026-10-12T07:20:00Z"),
         })
         .returning();
-      await appendAudit(tx, {
-        actorId: installer?.id ?? null,
-        actorEmail: installer?.email ?? null,
+      await appendAudit(tx, installer ?? null, {
         action: "job_instrument.recorded",
-        entityType: "job_instrument",
-        entityId: row!.id,
+        entity: { type: "job_instrument", id: row!.id },
         jobId: job.id,
         newValues: { instrument: d.serial, use: d.use, note: "demo data (invented)" },
       });
@@ -151,12 +148,9 @@ export async function seedRecords(): Promise<void> {
           recordedById: installer?.id ?? null,
         })
         .returning();
-      await appendAudit(tx, {
-        actorId: installer?.id ?? null,
-        actorEmail: installer?.email ?? null,
+      await appendAudit(tx, installer ?? null, {
         action: "environment.recorded",
-        entityType: "environment_record",
-        entityId: row!.id,
+        entity: { type: "environment_record", id: row!.id },
         jobId: job.id,
         newValues: { phase: e.phase, airTempC: e.air, machineTempC: e.machine, note: "demo data (invented)" },
       });

@@ -244,15 +244,16 @@ export async function seed(): Promise<void> {
         .insert(jobs)
         .values({ ...j, createdById: engineer })
         .returning();
-      await appendAudit(tx, {
-        actorId: engineer,
-        actorEmail: "engineer@halvard.example",
-        action: "job.created",
-        entityType: "job",
-        entityId: row!.id,
-        jobId: row!.id,
-        newValues: { reference: row!.reference, status: row!.status, note: "demo data (invented)" },
-      });
+      await appendAudit(
+        tx,
+        { id: engineer, email: "engineer@halvard.example" },
+        {
+          action: "job.created",
+          entity: { type: "job", id: row!.id },
+          jobId: row!.id,
+          newValues: { reference: row!.reference, status: row!.status, note: "demo data (invented)" },
+        },
+      );
     });
   }
   // The starter procedures every install has (not demo data), beside the demo's own.

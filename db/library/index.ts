@@ -36,12 +36,9 @@ export async function loadStarterLibrary(): Promise<string[]> {
         })
         .returning();
       await tx.insert(templateSteps).values(rows.steps.map((s) => ({ ...s, templateId: t!.id })));
-      await appendAudit(tx, {
-        actorId: null,
-        actorEmail: null,
+      await appendAudit(tx, null, {
         action: "procedure.library_loaded",
-        entityType: "procedure_template",
-        entityId: t!.id,
+        entity: { type: "procedure_template", id: t!.id },
         newValues: { name, version: LIBRARY_VERSION, steps: rows.steps.length },
       });
       loaded.push(name);

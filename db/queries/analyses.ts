@@ -252,12 +252,9 @@ export async function runHeadFit(
       .onConflictDoNothing()
       .returning();
     if (!inserted) return null;
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "analysis.created",
-      entityType: "analysis",
-      entityId: inserted.id,
+      entity: { type: "analysis", id: inserted.id },
       jobId: inserted.jobId,
       newValues: {
         kind: "head_fit",
@@ -516,12 +513,9 @@ export async function approveAnalysis(
         keyId: manifest.keyId,
       })
       .returning({ id: signatures.id });
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "signature.parameters_approved",
-      entityType: "signature",
-      entityId: sig!.id,
+      entity: { type: "signature", id: sig!.id },
       jobId: job.id,
       newValues: {
         meaning: "parameters_approved",
@@ -529,12 +523,9 @@ export async function approveAnalysis(
         analysisId: a.analysis.id,
       },
     });
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "analysis.approved",
-      entityType: "analysis",
-      entityId: a.analysis.id,
+      entity: { type: "analysis", id: a.analysis.id },
       jobId: a.job.id,
       newValues: {
         inputSha256: a.analysis.inputSha256,
@@ -546,7 +537,8 @@ export async function approveAnalysis(
     });
     await appendAudit(
       tx,
-      jobEvent(actor, a.job.id, "job.status_changed", {
+      actor,
+      jobEvent(a.job.id, "job.status_changed", {
         oldValues: { status },
         newValues: { status: "approved", analysisId: a.analysis.id },
       }),

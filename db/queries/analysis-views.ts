@@ -7,6 +7,7 @@
 import "server-only";
 import { createHash, randomUUID } from "node:crypto";
 import { and, desc, eq } from "drizzle-orm";
+import type { SelectedFields } from "drizzle-orm/pg-core";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { getAnalysis } from "@/db/queries/analyses";
@@ -160,12 +161,9 @@ export async function saveAnalysisView(
         .insert(analysisViews)
         .values({ jobId: a.job.id, ...picture, storageKey: key, createdById: actor.id })
         .returning({ id: analysisViews.id });
-      await appendAudit(tx, {
-        actorId: actor.id,
-        actorEmail: actor.email,
+      await appendAudit(tx, actor, {
         action: "analysis_view.saved",
-        entityType: "analysis_view",
-        entityId: row!.id,
+        entity: { type: "analysis_view", id: row!.id },
         jobId: a.job.id,
         newValues: picture,
       });
@@ -179,9 +177,13 @@ export async function saveAnalysisView(
   }
 }
 
-function selectViews() {
+/** Newest first, ties by id: the order every list of views is shown in. */
+const newestViewsFirst = [desc(analysisViews.createdAt), desc(analysisViews.id)];
+
+/** Saved views with their job (for jobAccessCondition) and author's name, plus any extra columns. */
+function selectViews<X extends SelectedFields>(extra: X = {} as X) {
   return db
-    .select(viewColumns)
+    .select({ ...viewColumns, ...extra })
     .from(analysisViews)
     .innerJoin(jobs, eq(jobs.id, analysisViews.jobId))
     .leftJoin(users, eq(users.id, analysisViews.createdById))
@@ -194,21 +196,17 @@ export async function listAnalysisViews(actor: Actor, analysisId: string): Promi
   if (!a) return null;
   return (await selectViews()
     .where(and(eq(analysisViews.analysisId, analysisId), jobAccessCondition(actor)))
-    .orderBy(desc(analysisViews.createdAt), desc(analysisViews.id))) as ViewRow[];
+    .orderBy(...newestViewsFirst)) as ViewRow[];
 }
 
 /** Views of every fit of a job, newest first, with the dataset each fit came from (empty when the job is not visible). */
 export async function listJobViews(actor: Actor, jobId: string) {
   if (!isUuid(jobId)) return [];
-  return db
-    .select({ ...viewColumns, datasetFilename: datasets.originalFilename, phase: datasets.phase })
-    .from(analysisViews)
-    .innerJoin(jobs, eq(jobs.id, analysisViews.jobId))
+  return selectViews({ datasetFilename: datasets.originalFilename, phase: datasets.phase })
     .innerJoin(analyses, eq(analyses.id, analysisViews.analysisId))
     .innerJoin(datasets, eq(datasets.id, analyses.datasetId))
-    .leftJoin(users, eq(users.id, analysisViews.createdById))
     .where(and(eq(analysisViews.jobId, jobId), jobAccessCondition(actor)))
-    .orderBy(desc(analysisViews.createdAt), desc(analysisViews.id))
+    .orderBy(...newestViewsFirst)
     .limit(60);
 }
 
@@ -218,11 +216,7 @@ export async function getViewImage(
   viewId: string,
 ): Promise<{ view: ViewRow; png: Buffer } | null> {
   if (!isUuid(viewId)) return null;
-  const [row] = await db
-    .select({ ...viewColumns, storageKey: analysisViews.storageKey })
-    .from(analysisViews)
-    .innerJoin(jobs, eq(jobs.id, analysisViews.jobId))
-    .leftJoin(users, eq(users.id, analysisViews.createdById))
+  const [row] = await selectViews({ storageKey: analysisViews.storageKey })
     .where(and(eq(analysisViews.id, viewId), jobAccessCondition(actor)))
     .limit(1);
   if (!row) return null;
@@ -280,7 +274,7 @@ export async function latestJobView(jobId: string): Promise<LatestJobView | null
     .from(analysisViews)
     .leftJoin(users, eq(users.id, analysisViews.createdById))
     .where(and(eq(analysisViews.jobId, jobId), eq(analysisViews.analysisId, approval.analysisId)))
-    .orderBy(desc(analysisViews.createdAt), desc(analysisViews.id))
+    .orderBy(...newestViewsFirst)
     .limit(1);
   if (!row) return null;
   const png = await getStorage().get(row.storageKey);

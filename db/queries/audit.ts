@@ -11,6 +11,7 @@ type Executor = NodePgDatabase<typeof schema>;
 export const AUDIT_GENESIS = "0".repeat(64);
 const AUDIT_CHAIN_LOCK = 724_002;
 
+/** One event as stored and hashed: who, what, on which entity, in which job, and the values. */
 export interface AuditInput {
   actorId: string | null;
   actorEmail: string | null;
@@ -22,25 +23,33 @@ export interface AuditInput {
   newValues?: unknown;
 }
 
+/** Who made a change: a signed-in user, or null for the system (first setup, a reset request). */
+export type AuditActor = { id: string | null; email: string | null } | null;
+
+/** What a caller says about a change; the actor is passed beside it. */
+export interface AuditEvent {
+  action: string;
+  entity: { type: string; id: string };
+  jobId?: string | null;
+  oldValues?: unknown;
+  newValues?: unknown;
+}
+
 /**
  * An event about the job itself (created, changed, moved to another status): the job is both the
  * entity and the job the event belongs to.
  */
 export function jobEvent(
-  actor: { id: string; email: string },
   jobId: string,
   action: string,
-  values: Pick<AuditInput, "oldValues" | "newValues">,
-): AuditInput {
-  return {
-    actorId: actor.id,
-    actorEmail: actor.email,
-    action,
-    entityType: "job",
-    entityId: jobId,
-    jobId,
-    ...values,
-  };
+  values: Pick<AuditEvent, "oldValues" | "newValues">,
+): AuditEvent {
+  return { action, entity: { type: "job", id: jobId }, jobId, ...values };
+}
+
+function auditRow(actor: AuditActor, { entity, ...event }: AuditEvent): AuditInput {
+  const by = { actorId: actor?.id ?? null, actorEmail: actor?.email ?? null };
+  return { ...by, entityType: entity.type, entityId: entity.id, ...event };
 }
 
 /** What an event records, as stored and hashed: a missing job or old/new value is null. */
@@ -65,9 +74,17 @@ export function auditHash(prevHash: string, e: AuditInput & { at: Date }): strin
 
 /**
  * Appends one event to the chain. Call inside the transaction that makes the change, so the
- * change and its record commit together; the advisory lock orders concurrent writers.
+ * change and its record commit together; the advisory lock orders concurrent writers. Callers
+ * pass the actor and the event; the stored row itself is also accepted as it is.
  */
-export async function appendAudit(tx: Executor, input: AuditInput): Promise<void> {
+export async function appendAudit(tx: Executor, actor: AuditActor, event: AuditEvent): Promise<void>;
+export async function appendAudit(tx: Executor, row: AuditInput): Promise<void>;
+export async function appendAudit(
+  tx: Executor,
+  actorOrRow: AuditActor | AuditInput,
+  event?: AuditEvent,
+): Promise<void> {
+  const input = event ? auditRow(actorOrRow as AuditActor, event) : (actorOrRow as AuditInput);
   await tx.execute(sql`select pg_advisory_xact_lock(${AUDIT_CHAIN_LOCK})`);
   const [last] = await tx
     .select({ hash: auditEvents.hash })

@@ -111,12 +111,9 @@ export async function recordBudgetInputs(actor: Actor, input: BudgetInputsInput)
         createdById: actor.id,
       })
       .returning();
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "analysis.budget_inputs_recorded",
-      entityType: "analysis_budget_inputs",
-      entityId: row!.id,
+      entity: { type: "analysis_budget_inputs", id: row!.id },
       jobId: a.job.id,
       newValues: {
         analysisId: a.analysis.id,

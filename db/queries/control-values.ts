@@ -158,12 +158,9 @@ export async function recordControlValues(actor: Actor, jobId: string, input: Co
         recordedById: actor.id,
       })
       .returning();
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: `control_values.${input.stage}_recorded`,
-      entityType: "control_values",
-      entityId: row!.id,
+      entity: { type: "control_values", id: row!.id },
       jobId,
       oldValues: previous ? { recordId: previous.id, values: previous.values } : null,
       newValues: { stage: input.stage, unitSystem: input.unitSystem, values, analysisId, note: row!.note },

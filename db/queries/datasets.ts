@@ -73,12 +73,9 @@ export async function insertDataset(
           .insert(datasetColumns)
           .values({ datasetId: row!.id, name: c.name, unit: c.unit, data: columnToBytes(c.values) });
       }
-      await appendAudit(tx, {
-        actorId: actor.id,
-        actorEmail: actor.email,
+      await appendAudit(tx, actor, {
         action: "dataset.uploaded",
-        entityType: "dataset",
-        entityId: row!.id,
+        entity: { type: "dataset", id: row!.id },
         jobId,
         newValues: {
           kind: row!.kind,
@@ -218,12 +215,9 @@ export async function deleteDataset(actor: Actor, datasetId: string) {
       .where(and(eq(datasets.id, datasetId), eq(datasets.status, "stored")))
       .returning();
     if (!row) throw new AppError(409, "already_deleted", "This dataset is already deleted.");
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "dataset.deleted",
-      entityType: "dataset",
-      entityId: row.id,
+      entity: { type: "dataset", id: row.id },
       jobId: row.jobId,
       oldValues: { status: "stored" },
       newValues: { status: "deleted" },

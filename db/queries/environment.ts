@@ -74,12 +74,9 @@ export async function recordEnvironment(actor: Actor, jobId: string, input: Envi
         clientId: input.clientId ?? null,
       })
       .returning();
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "environment.recorded",
-      entityType: "environment_record",
-      entityId: row!.id,
+      entity: { type: "environment_record", id: row!.id },
       jobId: d.job.id,
       newValues: {
         phase: row!.phase,

@@ -63,12 +63,9 @@ export async function mountHead(actor: Actor, headId: string, machineId: string 
     : [];
   await db.transaction(async (tx) => {
     await tx.update(heads).set({ machineId }).where(eq(heads.id, headId));
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: machineId ? "head.mounted" : "head.removed",
-      entityType: "head",
-      entityId: headId,
+      entity: { type: "head", id: headId },
       oldValues: { machineId: h.machineId, machine: old?.name ?? null },
       newValues: { machineId, machine: label },
     });

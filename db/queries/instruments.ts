@@ -34,32 +34,27 @@ export async function listInstruments(actor: Actor) {
 export async function createInstrument(actor: Actor, input: z.infer<typeof instrumentCreateSchema>) {
   const refusal = registerEditRefusal(actor, "instruments");
   if (refusal) throw forbidden(refusal);
-  const [dupe] = await db
-    .select({ id: instruments.id })
-    .from(instruments)
-    .where(eq(instruments.serial, input.serial));
-  if (dupe)
-    throw invalid("An instrument with that serial is already registered.", [
-      { field: "serial", message: "Already registered." },
-    ]);
-  return insertRegisterRow(
-    actor,
-    instruments,
-    "instrument",
-    {
-      kind: input.kind,
-      serial: input.serial,
-      maker: input.maker || null,
-      quantityKind: input.quantityKind,
-      resolution: toCanonical(input.resolution, input.unit),
-      standardUncertainty: toCanonical(input.standardUncertainty, input.unit),
-      calibratedOn: input.calibratedOn || null,
-      calibrationDueOn: input.calibrationDueOn,
-      certificateRef: input.certificateRef || null,
-      rangeMin: input.rangeMin !== undefined ? toCanonical(input.rangeMin, input.unit) : null,
-      rangeMax: input.rangeMax !== undefined ? toCanonical(input.rangeMax, input.unit) : null,
-    },
-    (row) => ({ serial: row.serial, kind: row.kind, calibrationDueOn: row.calibrationDueOn }),
+  // The serial's unique constraint refuses a second instrument, as it does when a serial is changed.
+  return uniqueAs("serial", "An instrument with that serial is already registered.", () =>
+    insertRegisterRow(
+      actor,
+      instruments,
+      "instrument",
+      {
+        kind: input.kind,
+        serial: input.serial,
+        maker: input.maker || null,
+        quantityKind: input.quantityKind,
+        resolution: toCanonical(input.resolution, input.unit),
+        standardUncertainty: toCanonical(input.standardUncertainty, input.unit),
+        calibratedOn: input.calibratedOn || null,
+        calibrationDueOn: input.calibrationDueOn,
+        certificateRef: input.certificateRef || null,
+        rangeMin: input.rangeMin !== undefined ? toCanonical(input.rangeMin, input.unit) : null,
+        rangeMax: input.rangeMax !== undefined ? toCanonical(input.rangeMax, input.unit) : null,
+      },
+      (row) => ({ serial: row.serial, kind: row.kind, calibrationDueOn: row.calibrationDueOn }),
+    ),
   );
 }
 
@@ -156,12 +151,9 @@ export async function recordCalibration(
       })
       .where(eq(instruments.id, id))
       .returning();
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "instrument.calibrated",
-      entityType: "instrument",
-      entityId: id,
+      entity: { type: "instrument", id: id },
       oldValues: {
         calibratedOn: before.calibratedOn,
         calibrationDueOn: before.calibrationDueOn,

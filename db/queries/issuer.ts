@@ -70,12 +70,9 @@ export async function updateIssuer(actor: Actor, raw: IssuerSettingsInput): Prom
       .insert(issuerSettings)
       .values({ id: 1, ...values })
       .onConflictDoUpdate({ target: issuerSettings.id, set: values });
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "issuer_settings.update",
-      entityType: "issuer_settings",
-      entityId: "1",
+      entity: { type: "issuer_settings", id: "1" },
       oldValues: old
         ? {
             name: old.name,

@@ -59,12 +59,9 @@ export async function recordJobInstrument(
       .insert(jobInstruments)
       .values({ jobId: d.job.id, instrumentId: inst.id, use: input.use, recordedById: actor.id })
       .returning();
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "job_instrument.recorded",
-      entityType: "job_instrument",
-      entityId: row!.id,
+      entity: { type: "job_instrument", id: row!.id },
       jobId: d.job.id,
       newValues: { instrument: inst.serial, use: input.use },
     });

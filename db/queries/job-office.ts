@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
-import { appendAudit, jobEvent } from "@/db/queries/audit";
+import { appendAudit, jobEvent, type AuditEvent } from "@/db/queries/audit";
 import { lockJob } from "@/db/queries/locks";
 import { activeInstaller, queueAssignmentMails } from "@/db/queries/job-mail";
 import { visibleJob } from "@/db/queries/jobs";
@@ -192,26 +192,24 @@ export async function updateJobRecord(actor: Actor, jobId: string, input: JobRec
     if (locked?.status !== d.job.status || locked.assignedInstallerId !== d.job.assignedInstallerId)
       throw invalid("The job changed meanwhile; open it again.");
     const at = new Date();
-    const [row] = await tx
-      .update(jobs)
-      .set({ ...changes, updatedAt: at })
-      .where(eq(jobs.id, d.job.id))
-      .returning();
-    await appendAudit(
+    const row = await writeJob(
       tx,
-      jobEvent(actor, d.job.id, reassigning ? "job.assigned" : "job.updated", { oldValues, newValues }),
+      actor,
+      d.job.id,
+      { ...changes, updatedAt: at },
+      { action: reassigning ? "job.assigned" : "job.updated", oldValues, newValues },
     );
     if (reassigning)
       await queueAssignmentMails(tx, actor, {
-        job: row!,
+        job: row,
         where: { customerName: d.customer.name, siteName: d.site.name, machineName: d.machine.name },
-        scheduledFor: row!.scheduledFor,
-        timeZone: row!.timeZone,
+        scheduledFor: row.scheduledFor,
+        timeZone: row.timeZone,
         from: d.installer,
         to,
         at,
       });
-    return { job: row!, changed: Object.keys(newValues) };
+    return { job: row, changed: Object.keys(newValues) };
   });
 }
 
@@ -252,19 +250,31 @@ export async function moveJob(actor: Actor, jobId: string, move: JobMoveInput) {
   return db.transaction(async (tx) => {
     const locked = await lockJob(tx, d.job.id);
     if (locked?.status !== d.job.status) throw invalid("The job changed meanwhile; open it again.");
-    const at = new Date();
-    const [row] = await tx
-      .update(jobs)
-      .set({ ...set, updatedAt: at })
-      .where(eq(jobs.id, d.job.id))
-      .returning();
-    await appendAudit(
+    return writeJob(
       tx,
-      jobEvent(actor, d.job.id, `job.${MOVED[move.action]}`, {
+      actor,
+      d.job.id,
+      { ...set, updatedAt: new Date() },
+      {
+        action: `job.${MOVED[move.action]}`,
         oldValues: { status: d.job.status },
         newValues: { status: to, ...("reason" in move && move.reason ? { reason: move.reason } : {}) },
-      }),
+      },
     );
-    return row!;
   });
+}
+
+type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
+/** Writes a change to the job's row together with the job event that records it. */
+async function writeJob(
+  tx: Tx,
+  actor: Actor,
+  jobId: string,
+  set: Partial<typeof jobs.$inferInsert>,
+  { action, ...values }: Pick<AuditEvent, "action" | "oldValues" | "newValues">,
+) {
+  const [row] = await tx.update(jobs).set(set).where(eq(jobs.id, jobId)).returning();
+  await appendAudit(tx, actor, jobEvent(jobId, action, values));
+  return row!;
 }

@@ -53,7 +53,8 @@ export async function changeJobStatus(actor: Actor, jobId: string, to: JobStatus
     await tx.update(jobs).set({ status: to, updatedAt: at }).where(eq(jobs.id, d.job.id));
     await appendAudit(
       tx,
-      jobEvent(actor, d.job.id, "job.status_changed", {
+      actor,
+      jobEvent(d.job.id, "job.status_changed", {
         oldValues: { status: d.job.status },
         newValues: { status: to },
       }),
@@ -158,7 +159,8 @@ export async function createJobFromTemplate(actor: Actor, input: JobCreateInput)
       .returning();
     await appendAudit(
       tx,
-      jobEvent(actor, row!.id, "job.created", {
+      actor,
+      jobEvent(row!.id, "job.created", {
         newValues: {
           reference,
           status: "draft",

@@ -165,12 +165,9 @@ export async function addPhoto(
           clientId: form.clientId,
         })
         .returning();
-      await appendAudit(tx, {
-        actorId: actor.id,
-        actorEmail: actor.email,
+      await appendAudit(tx, actor, {
         action: "photo.added",
-        entityType: "photo",
-        entityId: p!.id,
+        entity: { type: "photo", id: p!.id },
         jobId: d.job.id,
         newValues: {
           step: step.position,

@@ -168,12 +168,9 @@ export async function createProcedure(actor: Actor, body: unknown) {
       })
       .returning();
     await insertSteps(tx, t!.id, rows);
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "procedure.created",
-      entityType: "procedure_template",
-      entityId: t!.id,
+      entity: { type: "procedure_template", id: t!.id },
       newValues: { name, version: 1, jobKinds: rows.jobKinds, headModel: rows.headModel, steps: rows.steps },
     });
     return { ...t!, steps: rows.steps };
@@ -227,12 +224,9 @@ export async function saveProcedureVersion(actor: Actor, id: string, body: unkno
         .set(meta)
         .where(eq(procedureTemplates.id, id))
         .returning();
-      await appendAudit(tx, {
-        actorId: actor.id,
-        actorEmail: actor.email,
+      await appendAudit(tx, actor, {
         action: "procedure.draft_saved",
-        entityType: "procedure_template",
-        entityId: id,
+        entity: { type: "procedure_template", id: id },
         oldValues: {
           version: base!.version,
           jobKinds: base!.jobKinds,
@@ -271,12 +265,9 @@ export async function saveProcedureVersion(actor: Actor, id: string, body: unkno
         .insert(templateParameterLimits)
         .values(limits.map(({ id: _i, templateId: _t, ...l }) => ({ ...l, templateId: t!.id })));
     await copyPositioningLimits(tx, base!.id, t!.id);
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "procedure.versioned",
-      entityType: "procedure_template",
-      entityId: t!.id,
+      entity: { type: "procedure_template", id: t!.id },
       oldValues: { id: base!.id, version: base!.version },
       newValues: { version: t!.version, ...meta, steps: rows.steps },
     });
@@ -297,12 +288,9 @@ export async function setProcedureRetired(actor: Actor, id: string, retired: boo
     if (!t) throw notFound("procedure");
     const at = retired ? new Date() : null;
     await tx.update(procedureTemplates).set({ retiredAt: at }).where(eq(procedureTemplates.name, t.name));
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: retired ? "procedure.retired" : "procedure.restored",
-      entityType: "procedure_template",
-      entityId: t.id,
+      entity: { type: "procedure_template", id: t.id },
       oldValues: { retiredAt: t.retiredAt },
       newValues: { name: t.name, retiredAt: at },
     });

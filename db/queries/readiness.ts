@@ -260,12 +260,9 @@ export async function recordDeviation(
         approvedByName: actor.name,
       })
       .returning();
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "deviation.recorded",
-      entityType: "deviation",
-      entityId: row!.id,
+      entity: { type: "deviation", id: row!.id },
       jobId: d.job.id,
       newValues: { subject: result.subject, label: result.label, decision: result.decision, justification },
     });

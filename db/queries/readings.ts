@@ -363,7 +363,8 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
       await tx.update(jobs).set({ status: "measuring" }).where(eq(jobs.id, d.job.id));
       await appendAudit(
         tx,
-        jobEvent(actor, d.job.id, "job.status_changed", {
+        actor,
+        jobEvent(d.job.id, "job.status_changed", {
           oldValues: { status: "draft" },
           newValues: { status: "measuring", reason: "first reading recorded" },
         }),
@@ -371,12 +372,9 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
     } else {
       await tx.update(jobs).set({ updatedAt: new Date() }).where(eq(jobs.id, d.job.id));
     }
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: old ? "reading.corrected" : "reading.recorded",
-      entityType: "reading",
-      entityId: row!.id,
+      entity: { type: "reading", id: row!.id },
       jobId: d.job.id,
       oldValues: old
         ? { id: old.id, value: old.value, enteredValue: old.enteredValue, enteredUnit: old.enteredUnit }

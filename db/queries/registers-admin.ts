@@ -95,30 +95,28 @@ export async function createMachine(actor: Actor, input: z.infer<typeof machineC
 
 export async function createHead(actor: Actor, input: z.infer<typeof headCreateSchema>) {
   requireAdmin(actor);
-  const [dupe] = await db.select({ id: heads.id }).from(heads).where(eq(heads.serial, input.serial));
-  if (dupe)
-    throw invalid("A head with that serial is already registered.", [
-      { field: "serial", message: "Already registered." },
-    ]);
-  return insertRegisterRow(
-    actor,
-    heads,
-    "head",
-    {
-      serial: input.serial,
-      maker: input.maker || null,
-      model: input.model || null,
-      primaryAxis: input.primaryAxis,
-      secondaryAxis: input.secondaryAxis,
-      nominalPivotLengthMm: input.nominalPivotLengthMm,
-      toolAxisOffsetMm: input.toolAxisOffsetMm,
-      massKg: input.massKg ?? null,
-    },
-    (row) => ({
-      serial: row.serial,
-      axes: `${row.primaryAxis}/${row.secondaryAxis}`,
-      nominalPivotLengthMm: row.nominalPivotLengthMm,
-    }),
+  // The serial's unique constraint refuses a second head, as it does when a serial is changed.
+  return uniqueAs("serial", "A head with that serial is already registered.", () =>
+    insertRegisterRow(
+      actor,
+      heads,
+      "head",
+      {
+        serial: input.serial,
+        maker: input.maker || null,
+        model: input.model || null,
+        primaryAxis: input.primaryAxis,
+        secondaryAxis: input.secondaryAxis,
+        nominalPivotLengthMm: input.nominalPivotLengthMm,
+        toolAxisOffsetMm: input.toolAxisOffsetMm,
+        massKg: input.massKg ?? null,
+      },
+      (row) => ({
+        serial: row.serial,
+        axes: `${row.primaryAxis}/${row.secondaryAxis}`,
+        nominalPivotLengthMm: row.nominalPivotLengthMm,
+      }),
+    ),
   );
 }
 
@@ -157,12 +155,9 @@ export async function insertRegisterRow<T extends RegisterTable>(
       .insert(t)
       .values(values as typeof customers.$inferInsert)
       .returning()) as T["$inferSelect"][];
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: `${entityType}.created`,
-      entityType,
-      entityId: row!.id,
+      entity: { type: entityType, id: row!.id },
       newValues: describe(row!),
     });
     return row!;
@@ -206,12 +201,9 @@ export async function updateRegisterRow<T extends RegisterTable>(
     const next = Object.fromEntries(changed);
     const [row] = await tx.update(t).set(next).where(eq(t.id, id)).returning();
     const onlyRetirement = retiring && changed.every(([k]) => k === "retiredAt" || k === "retired");
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: `${entityType}.${onlyRetirement ? (retired ? "retired" : "restored") : "updated"}`,
-      entityType,
-      entityId: id,
+      entity: { type: entityType, id: id },
       oldValues: Object.fromEntries(changed.map(([k]) => [k, before[k] ?? null])),
       newValues: next,
     });

@@ -52,12 +52,9 @@ export async function chooseReportView(actor: Actor, input: { viewId: string; in
       .insert(reportViews)
       .values({ viewId: view.id, jobId: view.jobId, ...values })
       .onConflictDoUpdate({ target: reportViews.viewId, set: values });
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: input.include ? "analysis_view.included_in_report" : "analysis_view.left_out_of_report",
-      entityType: "analysis_view",
-      entityId: view.id,
+      entity: { type: "analysis_view", id: view.id },
       jobId: view.jobId,
       oldValues: old ? { included: old.included } : null,
       newValues: { included: input.include },

@@ -384,12 +384,9 @@ export async function issueReport(
       keyId: manifest.keyId,
     });
     await tx.update(jobs).set({ status: "issued" }).where(eq(jobs.id, d.job.id));
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: amending ? "report.amended" : "report.issued",
-      entityType: "report",
-      entityId: reportId,
+      entity: { type: "report", id: reportId },
       jobId: d.job.id,
       oldValues: { status: d.job.status, revision: current?.revision ?? null },
       newValues: { status: "issued", revision, pdfSha256 },
@@ -464,12 +461,9 @@ export async function respondToReport(
       })
       .returning();
     await tx.update(jobs).set({ status: input.decision }).where(eq(jobs.id, d.job.id));
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: `report.${input.decision}`,
-      entityType: "report",
-      entityId: report.id,
+      entity: { type: "report", id: report.id },
       jobId: d.job.id,
       oldValues: { status: "issued" },
       newValues: { status: input.decision, comment: comment || null },

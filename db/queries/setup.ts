@@ -53,12 +53,9 @@ export async function createFirstAdmin(input: z.infer<typeof firstAdminSchema>) 
       subject: "Your Trammel administrator account",
       text: `Hello ${name},\n\nTrammel is installed and you are its first administrator.\nSet your password here within 72 hours (the link works once):\n${link}\n`,
     });
-    await appendAudit(tx, {
-      actorId: null,
-      actorEmail: null,
+    await appendAudit(tx, null, {
       action: "user.first_admin_created",
-      entityType: "user",
-      entityId: u!.id,
+      entity: { type: "user", id: u!.id },
       newValues: { email, name, role: "admin" },
     });
     return { userId: u!.id, link };

@@ -81,12 +81,9 @@ export async function checkPasswordReentry(actor: Actor, password: string, jobId
   const limit = await signInLimit(actor.email, SIGNING_REENTRY_KEY);
   if (limit.limited) {
     await db.transaction(async (tx) => {
-      await appendAudit(tx, {
-        actorId: actor.id,
-        actorEmail: actor.email,
+      await appendAudit(tx, actor, {
         action: "signature.password_limited",
-        entityType: "user",
-        entityId: actor.id,
+        entity: { type: "user", id: actor.id },
         jobId: jobId ?? null,
         newValues: { retryAfterS: limit.retryAfterS },
       });

@@ -153,12 +153,9 @@ export async function signJobWork(
         keyId: manifest.keyId,
       })
       .returning();
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: `signature.${input.meaning}`,
-      entityType: "signature",
-      entityId: row!.id,
+      entity: { type: "signature", id: row!.id },
       jobId: d.job.id,
       newValues: { meaning: input.meaning, signedAtUtc: manifest.signedAtUtc },
     });

@@ -152,12 +152,9 @@ export async function createTemplateVersion(
     const next = [...kept, ...edited].map((l) => ({ ...l, templateId: t!.id }));
     if (next.length) await tx.insert(templateParameterLimits).values(next);
     await copyPositioningLimits(tx, base.id, t!.id);
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "template.versioned",
-      entityType: "procedure_template",
-      entityId: t!.id,
+      entity: { type: "procedure_template", id: t!.id },
       oldValues: { id: base.id, version: base.version },
       newValues: { version: t!.version, edits, parameterEdits },
     });

@@ -87,12 +87,9 @@ export async function inviteUser(actor: Actor, input: z.infer<typeof userInviteS
         token,
       }),
     });
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "user.invited",
-      entityType: "user",
-      entityId: u!.id,
+      entity: { type: "user", id: u!.id },
       newValues: { email, name: input.name, role: input.role, customerId: input.customerId ?? null },
     });
     return { userId: u!.id, token };
@@ -132,14 +129,15 @@ export async function setPasswordWithToken(token: string, password: string) {
     const [u] = await tx.select({ email: users.email }).from(users).where(eq(users.id, t.userId));
     // A new password also lifts any sign-in delay on the account.
     if (u) await tx.delete(signInFailures).where(eq(signInFailures.emailKey, emailKey(u.email)));
-    await appendAudit(tx, {
-      actorId: t.userId,
-      actorEmail: u?.email ?? null,
-      action: "user.password_set",
-      entityType: "user",
-      entityId: t.userId,
-      newValues: { purpose: t.purpose },
-    });
+    await appendAudit(
+      tx,
+      { id: t.userId, email: u?.email ?? null },
+      {
+        action: "user.password_set",
+        entity: { type: "user", id: t.userId },
+        newValues: { purpose: t.purpose },
+      },
+    );
     return { email: u?.email ?? "" };
   });
 }
@@ -167,12 +165,9 @@ export async function updateUser(actor: Actor, input: z.infer<typeof userUpdateS
   set.sessionsValidAfter = new Date();
   await db.transaction(async (tx) => {
     await tx.update(users).set(set).where(eq(users.id, before.id));
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "user.updated",
-      entityType: "user",
-      entityId: before.id,
+      entity: { type: "user", id: before.id },
       oldValues: { role: before.role, disabled: before.disabled },
       newValues: { role: set.role ?? before.role, disabled: set.disabled ?? before.disabled },
     });
@@ -244,12 +239,9 @@ export async function requestPasswordReset(email: string): Promise<{ token: stri
   if ((recent?.n ?? 0) >= RESET_MAX_PER_HOUR) return { token: null };
   return db.transaction(async (tx) => {
     const token = await queueResetLink(tx, u, "Someone (we hope you) asked to reset your password.");
-    await appendAudit(tx, {
-      actorId: null,
-      actorEmail: null,
+    await appendAudit(tx, null, {
       action: "user.password_reset_requested",
-      entityType: "user",
-      entityId: u.id,
+      entity: { type: "user", id: u.id },
     });
     return { token };
   });
@@ -272,13 +264,7 @@ export async function sendResetLink(actor: Actor, userId: string): Promise<{ tok
   if (u.disabled) throw invalid("This account is disabled; enable it before sending a reset link.");
   return db.transaction(async (tx) => {
     const token = await queueResetLink(tx, u, `${actor.name} sent you a link to choose a new password.`);
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
-      action: "user.password_reset_sent",
-      entityType: "user",
-      entityId: u.id,
-    });
+    await appendAudit(tx, actor, { action: "user.password_reset_sent", entity: { type: "user", id: u.id } });
     return { token };
   });
 }
@@ -291,12 +277,9 @@ export async function clearSignInDelay(actor: Actor, userId: string): Promise<{ 
       .delete(signInFailures)
       .where(eq(signInFailures.emailKey, emailKey(u.email)))
       .returning({ id: signInFailures.id });
-    await appendAudit(tx, {
-      actorId: actor.id,
-      actorEmail: actor.email,
+    await appendAudit(tx, actor, {
       action: "user.sign_in_delay_cleared",
-      entityType: "user",
-      entityId: u.id,
+      entity: { type: "user", id: u.id },
       oldValues: { failures: gone.length },
     });
     return { cleared: gone.length };
