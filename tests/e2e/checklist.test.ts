@@ -7,6 +7,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Locator, Page } from "playwright-core";
 import { newContext, screenshotPath, signIn } from "./browser";
+import { openStep } from "./steps";
 
 let ctx: BrowserContext;
 let jobHref: string;
@@ -22,14 +23,6 @@ async function chooseInstrument(step: Locator, serial: string) {
   const select = step.getByLabel("Instrument");
   const label = (await select.locator("option", { hasText: serial }).textContent())!.trim();
   await select.selectOption({ label });
-}
-
-/** One step is open at a time: open this one (its header button) unless it already is. */
-async function openStep(p: Page, n: number): Promise<Locator> {
-  const step = p.getByTestId(`step-${n}`);
-  const header = step.getByRole("button", { name: new RegExp(`^Step ${n}`) });
-  if ((await header.getAttribute("aria-expanded")) !== "true") await header.click();
-  return step;
 }
 
 async function openChecklist(p: Page) {

@@ -8,6 +8,7 @@
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Locator, Page } from "playwright-core";
 import { newContext, screenshotPath, scrollsSideways, signIn, TABLET } from "./browser";
+import { openStep } from "./steps";
 
 let ctx: BrowserContext;
 let jobPath = "";
@@ -38,13 +39,6 @@ async function openChecklist(): Promise<Page> {
   await p.getByTestId("offline-ready").waitFor({ timeout: 30_000 });
   expect(await p.evaluate(async () => Boolean(await caches.match(location.pathname)))).toBe(true);
   return p;
-}
-
-async function openStep(p: Page, n: number): Promise<Locator> {
-  const step = p.getByTestId(`step-${n}`);
-  const header = step.getByRole("button", { name: new RegExp(`^Step ${n}`) });
-  if ((await header.getAttribute("aria-expanded")) !== "true") await header.click();
-  return step;
 }
 
 async function record(step: Locator, phase: string, value: string, serial: string, label: RegExp) {

@@ -1,6 +1,6 @@
 // Steps several browser tests share. Before writing a step into a test file, look here and in
 // browser.ts (contexts, sign-in, screenshots, accessibility, mail).
-import type { Page } from "playwright-core";
+import type { Locator, Page } from "playwright-core";
 import { expect } from "vitest";
 import { headPoseGrid, synthesiseSphereProbe, type HeadErrors } from "@/geometry";
 
@@ -53,4 +53,20 @@ export async function uploadSyntheticProbe(
   });
   expect(up.status()).toBe(201);
   return head;
+}
+
+/** One checklist step is open at a time: open step n (its header button) unless it already is. */
+export async function openStep(p: Page, n: number): Promise<Locator> {
+  const step = p.getByTestId(`step-${n}`);
+  const header = step.getByRole("button", { name: new RegExp(`^Step ${n}`) });
+  if ((await header.getAttribute("aria-expanded")) !== "true") await header.click();
+  return step;
+}
+
+/** Picks the first real option of a select (after its "Choose…" placeholder) once it has one. */
+export async function pickFirst(p: Page, label: string): Promise<void> {
+  const select = p.getByLabel(label, { exact: true });
+  await expect.poll(() => select.locator("option").count()).toBeGreaterThan(1);
+  const value = await select.locator("option").nth(1).getAttribute("value");
+  await select.selectOption(value!);
 }

@@ -2,12 +2,15 @@
 // office opens a job with the demo after-collision procedure (one step of each kind) and assigns
 // the installer; the installer, OFFLINE, records a yes/no check, readings at four clock positions
 // point by point (the TIR shown live), a value for the record and a photo; back online, each is
-// stored exactly once and the photo is shown with its reading. "Offline" is every request of the
-// context aborted, as in offline.test.ts.
+// stored exactly once and the photo is shown with its reading. Offline, the photo waiting on the
+// tablet is drawn from its own file, and once stored its thumbnail is kept by the service worker
+// and drawn after an offline reload. "Offline" is every request of the context aborted, as in
+// offline.test.ts.
 import sharp from "sharp";
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Locator, Page } from "playwright-core";
+import type { BrowserContext, Page } from "playwright-core";
 import { newContext, screenshotPath, scrollsSideways, signIn, TABLET } from "./browser";
+import { openStep } from "./steps";
 
 let ctx: BrowserContext;
 let jobId = "";
@@ -24,13 +27,6 @@ afterEach(async () => {
 });
 
 const offline = (r: { abort: (code: string) => Promise<void> }) => r.abort("internetdisconnected");
-
-async function openStep(p: Page, n: number): Promise<Locator> {
-  const step = p.getByTestId(`step-${n}`);
-  const header = step.getByRole("button", { name: new RegExp(`^Step ${n}`) });
-  if ((await header.getAttribute("aria-expanded")) !== "true") await header.click();
-  return step;
-}
 
 async function queuedCount(p: Page): Promise<string> {
   return (await p.getByTestId("queue-count").count()) ? p.getByTestId("queue-count").innerText() : "0";
@@ -130,6 +126,18 @@ describe("every kind of step on the tablet", () => {
     await s3.getByRole("button", { name: "Save reading" }).click();
     await expect.poll(() => queuedCount(p)).toBe("4");
     await expect.poll(() => s3.locator('tr[data-queued="waiting"]').innerText()).toMatch(/85 N·m/);
+    // Reloaded without signal, the photo still on the tablet is drawn from its own file.
+    await p.reload();
+    await expect.poll(() => queuedCount(p), { timeout: 10_000 }).toBe("4");
+    const kept = await openStep(p, 2);
+    await expect
+      .poll(() =>
+        kept
+          .getByTestId("queued-photos-2")
+          .locator("img")
+          .evaluate((i: HTMLImageElement) => i.naturalWidth),
+      )
+      .toBeGreaterThan(0);
 
     // Back online: everything goes in order, each once.
     await ctx.unroute("**/*", offline);
@@ -173,6 +181,26 @@ describe("every kind of step on the tablet", () => {
     expect(await again.getByTestId("points").innerText()).toMatch(
       /12: 0 · 3: 0\.0002 · 6: 0\.0004 · 9: −0\.0001 in/,
     );
+    // The thumbnail is kept on the tablet: offline again, the reloaded checklist still draws it.
+    const thumb = (await again.getByTestId("photos-2").locator("img").getAttribute("src"))!;
+    expect(thumb).toMatch(/^\/api\/photos\/[0-9a-f-]{36}\/thumb$/);
+    await expect
+      .poll(() => p.evaluate(async (u) => Boolean(await caches.match(u, { ignoreVary: true })), thumb))
+      .toBe(true);
+    await ctx.route("**/*", offline);
+    await p.reload();
+    const cached = await openStep(p, 2);
+    await expect
+      .poll(
+        () =>
+          cached
+            .getByTestId("photos-2")
+            .locator("img")
+            .evaluate((i: HTMLImageElement) => i.naturalWidth),
+        { timeout: 10_000 },
+      )
+      .toBeGreaterThan(0);
+    await ctx.unroute("**/*", offline);
     const one = await openStep(p, 1);
     expect(await one.locator("tbody tr").first().innerText()).toMatch(/Yes/);
     expect(await one.locator("tbody tr").first().innerText()).not.toMatch(/mm|in\b/);
