@@ -27,7 +27,9 @@ function rowsOrThrow(body: unknown, version: boolean): ProcedureRows {
   const out = procedureRows(parsed);
   if (!out.rows)
     throw invalid(
-      out.issues.length === 1 ? out.issues[0]!.message : "Some steps are not complete.",
+      out.issues.length === 1
+        ? out.issues[0]!.message
+        : `${out.issues.length} fields need attention; each is named beside it.`,
       out.issues,
     );
   return out.rows;
