@@ -6,6 +6,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
 import { newContext, screenshotPath, seriousViolations, signIn, TABLET } from "./browser";
+import { buildPhotoRecordStep, buildRunOutStep } from "./steps";
 
 let ctx: BrowserContext;
 beforeAll(async () => {
@@ -32,15 +33,7 @@ describe("procedure builder (administrator)", () => {
 
     // Step 1: readings at four clock positions, judged by their TIR.
     const s1 = step(p, 1);
-    await s1.getByLabel("Title").fill("Collar run-out");
-    await s1.getByLabel("Kind of step").selectOption("multi_point");
-    await s1.getByRole("button", { name: "12 · 3 · 6 · 9" }).click();
-    expect(await s1.getByLabel("Points, in the order they are read").inputValue()).toBe("12, 3, 6, 9");
-    await s1.getByLabel("Unit of the limits").selectOption("in");
-    await s1.getByLabel("Upper limit").fill("0.0005");
-    await s1.getByLabel("Value judged from the points").selectOption("tir");
-    await s1.getByLabel("Where the limit comes from").selectOption("common_practice");
-    await s1.getByLabel("Source note").fill("The trade's usual collar figure.");
+    await buildRunOutStep(s1);
 
     // Step 2: a yes/no check, first without its limit source.
     await p.getByRole("button", { name: "Add a step" }).click();
@@ -51,10 +44,7 @@ describe("procedure builder (administrator)", () => {
     // Step 3: a value for the record that needs a photo.
     await p.getByRole("button", { name: "Add a step" }).click();
     const s3 = step(p, 3);
-    await s3.getByLabel("Title").fill("Shims under the collar");
-    await s3.getByLabel("Kind of step").selectOption("record");
-    await s3.getByLabel("Unit of the recorded value").fill("mm");
-    await s3.getByLabel("Photo required").check();
+    await buildPhotoRecordStep(s3, "Shims under the collar", "mm");
     await s3.getByLabel("Safety note").fill("Lock out before hands go near the spindle nose.");
 
     // The head as a whole: a TCP check with limits (their source still missing), and one

@@ -5,11 +5,17 @@
 // tablet (820×1180), records the four clock-position readings and the check, and attaches a photo;
 // the engineer opens the job's report page and its draft preview, whose text (read back with
 // pdftotext) prints the points behind the run-out and lists the photo in its appendix by SHA-256.
-import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
 import { mailTo, newContext, screenshotPath, scrollsSideways, signIn, TABLET } from "./browser";
-import { openStep, pickFirst } from "./steps";
+import {
+  attachPhoto,
+  buildPhotoRecordStep,
+  buildRunOutStep,
+  enterRunOutPoints,
+  openStep,
+  pickFirst,
+} from "./steps";
 import { pdfText } from "../pdf-tools";
 
 const OFFICE = { width: 1440, height: 900 };
@@ -42,14 +48,7 @@ describe("a service job from the procedure to the report", () => {
     await p.getByLabel("Installation").check();
 
     const s1 = step(p, 1);
-    await s1.getByLabel("Title").fill("Collar run-out");
-    await s1.getByLabel("Kind of step").selectOption("multi_point");
-    await s1.getByRole("button", { name: "12 · 3 · 6 · 9" }).click();
-    await s1.getByLabel("Unit of the limits").selectOption("in");
-    await s1.getByLabel("Upper limit").fill("0.0005");
-    await s1.getByLabel("Value judged from the points").selectOption("tir");
-    await s1.getByLabel("Where the limit comes from").selectOption("common_practice");
-    await s1.getByLabel("Source note").fill("The trade's usual collar figure.");
+    await buildRunOutStep(s1);
 
     await p.getByRole("button", { name: "Add a step" }).click();
     const s2 = step(p, 2);
@@ -61,10 +60,7 @@ describe("a service job from the procedure to the report", () => {
 
     await p.getByRole("button", { name: "Add a step" }).click();
     const s3 = step(p, 3);
-    await s3.getByLabel("Title").fill("Shim stack under the collar");
-    await s3.getByLabel("Kind of step").selectOption("record");
-    await s3.getByLabel("Unit of the recorded value").fill("mm");
-    await s3.getByLabel("Photo required").check();
+    await buildPhotoRecordStep(s3, "Shim stack under the collar", "mm");
 
     await p.getByRole("button", { name: "Create procedure" }).click();
     await p.waitForURL(/\/registers\/procedures\/[0-9a-f-]{36}$/);
@@ -122,18 +118,8 @@ describe("a service job from the procedure to the report", () => {
     // Step 1: the collar at 12, 3, 6 and 9 o'clock; TIR = largest − smallest = 0.0004 − (−0.0001)
     // = 0.0005 in (ASME B89.3.4 definition of run-out), on the limit, so it passes.
     const s1 = await openStep(p, 1);
-    const inst = s1.getByLabel("Instrument");
-    await inst.selectOption({
-      label: (await inst.locator("option", { hasText: "DTI-0112" }).textContent())!.trim(),
-    });
-    for (const [point, v] of [
-      ["12", "0"],
-      ["3", "0.0002"],
-      ["6", "0.0004"],
-      ["9", "-0.0001"],
-    ] as const)
-      await s1.getByTestId(`point-1-${point}`).fill(v);
-    await expect.poll(() => s1.getByTestId("live-1").innerText()).toMatch(/TIR = 0\.0005 in/);
+    await enterRunOutPoints(s1, 1);
+    await expect.poll(() => s1.getByTestId("live-1").innerText()).toMatch(/Pass/);
     await p.screenshot({ path: screenshotPath("journey-points-820") });
     await s1.getByRole("button", { name: "Save reading" }).click();
 
@@ -152,14 +138,7 @@ describe("a service job from the procedure to the report", () => {
         return ((await r.json()).readings as unknown[]).length;
       })
       .toBe(3);
-    const png = await sharp({
-      create: { width: 640, height: 480, channels: 3, background: { r: 120, g: 130, b: 140 } },
-    })
-      .png()
-      .toBuffer();
-    await s3
-      .getByTestId("photo-input-3")
-      .setInputFiles({ name: "shims.png", mimeType: "image/png", buffer: png });
+    await attachPhoto(s3, 3, 640, 480);
     await expect
       .poll(async () => {
         const r = await p.request.get(`/api/jobs/${jobId}/photos`);

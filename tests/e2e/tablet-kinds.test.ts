@@ -6,11 +6,10 @@
 // tablet is drawn from its own file, and once stored its thumbnail is kept by the service worker
 // and drawn after an offline reload. "Offline" is every request of the context aborted, as in
 // offline.test.ts.
-import sharp from "sharp";
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
 import { newContext, screenshotPath, scrollsSideways, signIn, TABLET } from "./browser";
-import { openStep } from "./steps";
+import { attachPhoto, enterRunOutPoints, openStep } from "./steps";
 
 let ctx: BrowserContext;
 let jobId = "";
@@ -92,32 +91,13 @@ describe("every kind of step on the tablet", () => {
 
     // Step 2: the collar at 12, 3, 6 and 9 o'clock, point by point, the TIR live and judged.
     const s2 = await openStep(p, 2);
-    const inst = s2.getByLabel("Instrument");
-    await inst.selectOption({
-      label: (await inst.locator("option", { hasText: "DTI-0112" }).textContent())!.trim(),
-    });
-    for (const [point, v] of [
-      ["12", "0"],
-      ["3", "0.0002"],
-      ["6", "0.0004"],
-      ["9", "-0.0001"],
-    ] as const)
-      await s2.getByTestId(`point-2-${point}`).fill(v);
-    // TIR = largest − smallest = 0.0004 − (−0.0001) = 0.0005 in (ASME B89.3.4 definition of run-out).
-    await expect.poll(() => s2.getByTestId("live-2").innerText()).toMatch(/TIR = 0\.0005 in/);
+    await enterRunOutPoints(s2, 2);
     await expect.poll(() => s2.getByTestId("live-2").innerText()).toMatch(/Pass/);
     await p.screenshot({ path: screenshotPath("tablet-kinds-points-820"), fullPage: false });
     await s2.getByRole("button", { name: "Save reading" }).click();
     await expect.poll(() => queuedCount(p)).toBe("2");
     // A photo of the dial at the high point, taken with the reading (kept as a blob offline).
-    const png = await sharp({
-      create: { width: 800, height: 600, channels: 3, background: { r: 30, g: 90, b: 160 } },
-    })
-      .png()
-      .toBuffer();
-    await s2
-      .getByTestId("photo-input-2")
-      .setInputFiles({ name: "dial.png", mimeType: "image/png", buffer: png });
+    await attachPhoto(s2, 2, 800, 600);
     await expect.poll(() => queuedCount(p)).toBe("3");
 
     // Step 3: the collar bolt torque, for the record, in its own unit.
