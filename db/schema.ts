@@ -335,6 +335,9 @@ export const procedureTemplates = pgTable(
     /** TCP-check limits, µm (null = recorded, not judged): range of x, y and z each, and distance from the mean centre. */
     tcpRangeLimitUm: doublePrecision("tcp_range_limit_um"),
     tcpDeviationLimitUm: doublePrecision("tcp_deviation_limit_um"),
+    /** Where the TCP-check limits come from (null when there is no limit), as for a step's limits. */
+    tcpLimitSource: limitSourceEnum("tcp_limit_source"),
+    tcpLimitSourceNote: text("tcp_limit_source_note"),
     createdById: byUser("created_by_id"),
     ...timestamps,
   },

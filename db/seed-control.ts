@@ -120,6 +120,8 @@ export async function seedControlLoop(password: string): Promise<void> {
         tcpCheckRequired: true,
         tcpRangeLimitUm: 15,
         tcpDeviationLimitUm: 10,
+        tcpLimitSource: "customer_spec",
+        tcpLimitSourceNote: "The demo customer's acceptance sheet (invented).",
         createdById: engineer.id,
       })
       .returning();

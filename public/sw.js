@@ -3,9 +3,11 @@
 // procedure, instruments and last readings, and its comparison) are fetched from the network
 // first and kept; without a connection, or when the server cannot answer, the kept copy is shown.
 // The app's own scripts, styles and fonts are kept once fetched (their names change with each
-// build). Readings typed offline never pass through here: the page keeps them in IndexedDB and
+// build). The thumbnails of a job's photos (/api/photos/{id}/thumb, never changed once made) are
+// kept with the job's pages, so they show without signal and go when the user signs out.
+// Readings and photos typed offline never pass through here: the page keeps them in IndexedDB and
 // sends them itself. Nothing but GET requests of this origin is touched.
-const VERSION = "v1";
+const VERSION = "v2";
 const PAGES = `trammel-pages-${VERSION}`;
 const ASSETS = `trammel-assets-${VERSION}`;
 
@@ -24,6 +26,8 @@ self.addEventListener("activate", (event) => {
 const isAsset = (url) =>
   url.pathname.startsWith("/_next/static/") || /\.(woff2|ttf|svg|png|ico)$/.test(url.pathname);
 const isJobData = (url) => /^\/(jobs|api\/jobs)\/[^/]+(\/(checklist|compare|readings|comparison))?$/.test(url.pathname);
+
+const isPhotoThumb = (url) => /^\/api\/photos\/[0-9a-f-]{36}\/thumb$/.test(url.pathname);
 
 async function keep(cacheName, request, response) {
   if (response && response.ok && !response.redirected && response.type === "basic")
@@ -58,10 +62,10 @@ async function networkFirst(request) {
   }
 }
 
-async function cacheFirst(request) {
-  const kept = await caches.match(request);
+async function cacheFirst(request, cacheName = ASSETS) {
+  const kept = await caches.match(request, { ignoreVary: true });
   if (kept) return kept;
-  return keep(ASSETS, request, await fetch(request));
+  return keep(cacheName, request, await fetch(request));
 }
 
 self.addEventListener("fetch", (event) => {
@@ -73,10 +77,12 @@ self.addEventListener("fetch", (event) => {
   // React Server Component requests (in-app navigation, refresh) go to the network as they are.
   if (request.headers.get("RSC") === "1" || url.searchParams.has("_rsc")) return;
   if (isJobData(url)) return event.respondWith(networkFirst(request));
+  if (isPhotoThumb(url)) return event.respondWith(cacheFirst(request, PAGES));
 });
 
 // The checklist page asks for its job to be kept: the page, the comparison, the job's JSON and
-// readings, and the scripts the page already loaded before this worker controlled it.
+// readings, its photos' thumbnails, and the scripts the page already loaded before this worker
+// controlled it.
 self.addEventListener("message", (event) => {
   const data = event.data;
   if (!data || data.type !== "keep-job" || !Array.isArray(data.urls)) return;
@@ -90,6 +96,9 @@ self.addEventListener("message", (event) => {
           if (isAsset(url)) {
             if (!(await caches.match(request))) await keep(ASSETS, request, await fetch(request));
           } else if (isJobData(url)) await keep(PAGES, request, await fetch(request));
+          else if (isPhotoThumb(url)) {
+            if (!(await caches.match(request, { ignoreVary: true }))) await keep(PAGES, request, await fetch(request));
+          }
         } catch {
           /* kept next time the job is opened */
         }

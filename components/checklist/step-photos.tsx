@@ -1,9 +1,10 @@
 "use client";
 
-import { useRef, useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import { PHASE_LABELS } from "@/components/checklist/readings-table";
 import { LocalTime } from "@/components/readings/local-time";
 import { useReadingQueue } from "@/components/readings/queue-provider";
+import type { QueuedReading } from "@/lib/readings-queue";
 import { newClientId } from "@/lib/readings-sync";
 
 /** Largest photo the tablet sends (the server refuses more): a full-size tablet JPEG fits. */
@@ -45,7 +46,8 @@ export function StepPhotos({
   attachTo: { readingId: string } | { readingClientId: string } | null;
 }) {
   const queue = useReadingQueue();
-  const waiting = queue.items.filter((q) => q.photo && q.body.stepId === stepId).length;
+  const queued = queue.items.filter((q) => q.photo && q.body.stepId === stepId);
+  const waiting = queued.length;
   const input = useRef<HTMLInputElement>(null);
   const [problem, setProblem] = useState<string | null>(null);
 
@@ -115,6 +117,13 @@ export function StepPhotos({
           Photo not kept: {problem}
         </p>
       ) : null}
+      {queued.length ? (
+        <ul className="flex flex-wrap gap-3" data-testid={`queued-photos-${position}`}>
+          {queued.map((q) => (
+            <QueuedPhoto key={q.clientId} item={q} position={position} />
+          ))}
+        </ul>
+      ) : null}
       {photos.length ? (
         <ul className="flex flex-wrap gap-3" data-testid={`photos-${position}`}>
           {photos.map((p) => (
@@ -139,5 +148,29 @@ export function StepPhotos({
         <p className="text-xs text-graphite-500">No photos yet.</p>
       ) : null}
     </section>
+  );
+}
+
+/** A photo still on this tablet (offline, or waiting to be sent): drawn from its own file. */
+function QueuedPhoto({ item, position }: { item: QueuedReading; position: number }) {
+  const img = useRef<HTMLImageElement>(null);
+  useEffect(() => {
+    const url = URL.createObjectURL(item.photo!);
+    if (img.current) img.current.src = url;
+    return () => URL.revokeObjectURL(url);
+  }, [item.photo]);
+  return (
+    <li className="w-36 text-xs text-graphite-600">
+      {/* eslint-disable-next-line @next/next/no-img-element -- a local file on the tablet, not yet stored */}
+      <img
+        ref={img}
+        alt={`Photo of step ${position}, ${PHASE_LABELS[item.body.phase].toLowerCase()}, not yet sent`}
+        className="h-24 w-36 rounded border border-dashed border-graphite-400 bg-graphite-100 object-cover"
+      />
+      <span className="mt-1 block">
+        {PHASE_LABELS[item.body.phase]} ·{" "}
+        {item.state === "refused" ? `refused: ${item.reason ?? ""}` : "on this tablet, not yet sent"}
+      </span>
+    </li>
   );
 }

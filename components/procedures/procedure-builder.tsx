@@ -17,6 +17,8 @@ import {
   type Resolver,
 } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
+import { EMPTY_STEP, type BuilderStep, type BuilderValues } from "@/components/procedures/builder-values";
+import { HeadJudgingFields } from "@/components/procedures/head-judging-fields";
 import { ActionNotice, Button } from "@/components/ui/button";
 import { Field, FieldError, inputClass } from "@/components/ui/field";
 import { INVALID_MESSAGE, mapActionErrors } from "@/components/ui/form-errors";
@@ -37,53 +39,6 @@ import {
   procedureSchema,
   procedureVersionSchema,
 } from "@/lib/validations/procedures";
-
-/** One step as the form holds it: every field a string or a boolean, points as "12, 3, 6, 9". */
-export interface BuilderStep {
-  title: string;
-  kind: string;
-  instructions: string;
-  safety: string;
-  quantity: string;
-  unit: string;
-  lower: string;
-  upper: string;
-  decisionRule: string;
-  limitSource: string;
-  limitSourceNote: string;
-  points: string;
-  pointResult: string;
-  distanceMm: string;
-  recordUnit: string;
-  photoRequired: boolean;
-}
-
-export interface BuilderValues {
-  name: string;
-  description: string;
-  jobKinds: string[];
-  headModel: string;
-  steps: BuilderStep[];
-}
-
-export const EMPTY_STEP: BuilderStep = {
-  title: "",
-  kind: "direct",
-  instructions: "",
-  safety: "",
-  quantity: "",
-  unit: "mm",
-  lower: "",
-  upper: "",
-  decisionRule: "simple",
-  limitSource: "",
-  limitSourceNote: "",
-  points: CLOCK_POINTS_4.join(", "),
-  pointResult: "tir",
-  distanceMm: "",
-  recordUnit: "",
-  photoRequired: false,
-};
 
 const UNIT_OPTIONS = [
   ["mm", "mm"],
@@ -157,7 +112,9 @@ export function ProcedureBuilder({
         return;
       }
       const known = (name: string) =>
-        ["name", "description", "headModel", "jobKinds"].includes(name) || /^steps\.\d+\.\w+$/.test(name);
+        ["name", "description", "headModel", "jobKinds"].includes(name) ||
+        /^tcp\w+$/.test(name) ||
+        /^(steps|parameterLimits)\.\d+\.\w+$/.test(name);
       const mapped = mapActionErrors(res, known);
       for (const [name, message] of mapped.fields) form.setError(name as never, { type: "server", message });
       setNotice({ ok: false, message: mapped.message });
@@ -226,6 +183,7 @@ export function ProcedureBuilder({
         <Button type="button" variant="secondary" onClick={() => steps.append({ ...EMPTY_STEP })}>
           Add a step
         </Button>
+        <HeadJudgingFields />
         <div className="flex flex-wrap items-center gap-3 border-t border-graphite-200 pt-4">
           <Button type="submit" pending={pending}>
             {submitLabel}

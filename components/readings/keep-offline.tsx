@@ -4,11 +4,14 @@ import { useEffect, useState } from "react";
 
 /**
  * Registers the service worker (public/sw.js) and asks it to keep this job on the tablet: its
- * checklist and comparison pages, its JSON and readings, and the scripts this page has loaded.
+ * checklist and comparison pages, its JSON and readings, its photos' thumbnails, and the scripts
+ * this page has loaded.
  * Says so once the worker has kept them, so the installer knows the job works without signal.
  */
-export function KeepJobOffline({ jobId }: { jobId: string }) {
+export function KeepJobOffline({ jobId, photoThumbs = [] }: { jobId: string; photoThumbs?: string[] }) {
   const [kept, setKept] = useState(false);
+  // The thumbnails as one value, so a new photo (not a new array) asks for the job to be kept again.
+  const thumbs = photoThumbs.join(" ");
   useEffect(() => {
     if (!("serviceWorker" in navigator)) return;
     let cancelled = false;
@@ -32,6 +35,7 @@ export function KeepJobOffline({ jobId }: { jobId: string }) {
             `/jobs/${jobId}/compare`,
             `/api/jobs/${jobId}`,
             `/api/jobs/${jobId}/readings`,
+            ...(thumbs ? thumbs.split(" ") : []),
             ...assets,
           ],
         });
@@ -43,7 +47,7 @@ export function KeepJobOffline({ jobId }: { jobId: string }) {
       cancelled = true;
       navigator.serviceWorker.removeEventListener("message", onMessage);
     };
-  }, [jobId]);
+  }, [jobId, thumbs]);
   return kept ? (
     <p className="text-sm text-graphite-600" data-testid="offline-ready">
       This job is kept on this tablet: it opens without signal.

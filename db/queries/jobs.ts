@@ -57,7 +57,8 @@ const listColumns = {
 
 export type { JobListRow };
 
-function baseJobQuery() {
+/** The jobs list's columns and joins (customer, machine and site, head, installer). */
+export function baseJobQuery() {
   return db
     .select(listColumns)
     .from(jobs)
@@ -68,44 +69,8 @@ function baseJobQuery() {
     .leftJoin(installers, eq(installers.id, jobs.assignedInstallerId));
 }
 
-/**
- * The unfiltered list (what GET /api/jobs and the jobs page ask for most), built once per scope
- * kind with the scope's id as a placeholder: the same SQL as listJobs' general path, without
- * rebuilding it on every request.
- */
-const defaultOrder = [desc(jobs.updatedAt), asc(jobs.reference)] as const;
-const defaultListAll = baseJobQuery()
-  .orderBy(...defaultOrder)
-  .limit(500)
-  .prepare("jobs_list_all");
-const defaultListAssigned = baseJobQuery()
-  .where(eq(jobs.assignedInstallerId, sql.placeholder("id")))
-  .orderBy(...defaultOrder)
-  .limit(500)
-  .prepare("jobs_list_assigned");
-const defaultListCustomer = baseJobQuery()
-  .where(eq(jobs.customerId, sql.placeholder("id")))
-  .orderBy(...defaultOrder)
-  .limit(500)
-  .prepare("jobs_list_customer");
-
-function defaultJobList(actor: Actor): Promise<JobListRow[]> {
-  const scope = jobScope(actor);
-  switch (scope.kind) {
-    case "all":
-      return defaultListAll.execute() as Promise<JobListRow[]>;
-    case "assigned":
-      return defaultListAssigned.execute({ id: scope.installerId }) as Promise<JobListRow[]>;
-    case "customer":
-      return defaultListCustomer.execute({ id: scope.customerId }) as Promise<JobListRow[]>;
-    case "none":
-      return Promise.resolve([]);
-  }
-}
-
-/** Jobs the actor may see, filtered and sorted. */
-export async function listJobs(actor: Actor, filters: JobListFilters = {}): Promise<JobListRow[]> {
-  if (!filters.status && !filters.q?.trim() && !filters.sort && !filters.dir) return defaultJobList(actor);
+/** The list's conditions: the actor's scope, then the filters (over the joins of baseJobQuery). */
+export function jobListConditions(actor: Actor, filters: JobListFilters = {}): (SQL | undefined)[] {
   const conditions: (SQL | undefined)[] = [jobAccessCondition(actor)];
   if (filters.status) conditions.push(eq(jobs.status, filters.status));
   const q = filters.q?.trim();
@@ -121,6 +86,11 @@ export async function listJobs(actor: Actor, filters: JobListFilters = {}): Prom
       ),
     );
   }
+  return conditions;
+}
+
+/** The list's order: the chosen column (newest change first by default), then the reference. */
+export function jobListOrder(filters: JobListFilters = {}): SQL[] {
   const sortColumn = {
     reference: jobs.reference,
     title: jobs.title,
@@ -131,10 +101,7 @@ export async function listJobs(actor: Actor, filters: JobListFilters = {}): Prom
   }[filters.sort ?? "updated"];
   const order =
     (filters.dir ?? (filters.sort ? "asc" : "desc")) === "asc" ? asc(sortColumn) : desc(sortColumn);
-  return baseJobQuery()
-    .where(and(...conditions))
-    .orderBy(order, asc(jobs.reference))
-    .limit(500) as Promise<JobListRow[]>;
+  return [order, asc(jobs.reference)];
 }
 
 /** One job with its machine, head and people; null when missing *or* not visible to the actor. */

@@ -22,6 +22,7 @@ import {
   procedureVersionSchema,
   versionPlan,
   type ProcedureRows,
+  type TcpRows,
 } from "@/lib/validations/procedures";
 
 type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
@@ -32,7 +33,9 @@ function rowsOrThrow(body: unknown, version: boolean): ProcedureRows {
   const out = procedureRows(parsed);
   if (!out.rows)
     throw invalid(
-      out.issues.length === 1 ? out.issues[0]!.message : "Some steps are not complete.",
+      out.issues.length === 1
+        ? out.issues[0]!.message
+        : `${out.issues.length} fields need attention; each is named beside it.`,
       out.issues,
     );
   return out.rows;
@@ -40,6 +43,40 @@ function rowsOrThrow(body: unknown, version: boolean): ProcedureRows {
 
 async function insertSteps(tx: Tx, templateId: string, rows: ProcedureRows) {
   await tx.insert(templateSteps).values(rows.steps.map((s) => ({ ...s, templateId })));
+}
+
+/**
+ * The head-parameter limits of a version: those sent replace what it had; none sent, a version
+ * changed in place keeps its own and a new version copies those of `keepFrom`.
+ */
+async function writeParameterLimits(tx: Tx, templateId: string, rows: ProcedureRows, keepFrom: string) {
+  if (templateId === keepFrom) {
+    if (rows.parameterLimits === null) return;
+    await tx.delete(templateParameterLimits).where(eq(templateParameterLimits.templateId, templateId));
+  }
+  const limits: Omit<typeof templateParameterLimits.$inferInsert, "templateId">[] =
+    rows.parameterLimits ??
+    (await tx
+      .select()
+      .from(templateParameterLimits)
+      .where(eq(templateParameterLimits.templateId, keepFrom))
+      .then((ls) => ls.map(({ id: _i, templateId: _t, ...l }) => l)));
+  if (limits.length)
+    await tx.insert(templateParameterLimits).values(limits.map((l) => ({ ...l, templateId })));
+}
+
+/** The TCP-check columns of a version: those sent, or (none sent) those of `base`. */
+function tcpColumns(rows: ProcedureRows, base: TcpRows | null): Partial<TcpRows> {
+  const t = rows.tcp ?? base;
+  return t
+    ? {
+        tcpCheckRequired: t.tcpCheckRequired,
+        tcpRangeLimitUm: t.tcpRangeLimitUm,
+        tcpDeviationLimitUm: t.tcpDeviationLimitUm,
+        tcpLimitSource: t.tcpLimitSource,
+        tcpLimitSourceNote: t.tcpLimitSourceNote,
+      }
+    : {};
 }
 
 /**
@@ -164,14 +201,27 @@ export async function createProcedure(actor: Actor, body: unknown) {
         isCurrent: true,
         jobKinds: rows.jobKinds,
         headModel: rows.headModel,
+        ...tcpColumns(rows, null),
         createdById: actor.id,
       })
       .returning();
     await insertSteps(tx, t!.id, rows);
+    if (rows.parameterLimits?.length)
+      await tx
+        .insert(templateParameterLimits)
+        .values(rows.parameterLimits.map((l) => ({ ...l, templateId: t!.id })));
     await appendAudit(tx, actor, {
       action: "procedure.created",
       entity: { type: "procedure_template", id: t!.id },
-      newValues: { name, version: 1, jobKinds: rows.jobKinds, headModel: rows.headModel, steps: rows.steps },
+      newValues: {
+        name,
+        version: 1,
+        jobKinds: rows.jobKinds,
+        headModel: rows.headModel,
+        steps: rows.steps,
+        tcp: rows.tcp,
+        parameterLimits: rows.parameterLimits,
+      },
     });
     return { ...t!, steps: rows.steps };
   });
@@ -214,11 +264,17 @@ export async function saveProcedureVersion(actor: Actor, id: string, body: unkno
       description: rows.description ?? base!.description,
       jobKinds: rows.jobKinds,
       headModel: rows.headModel,
+      ...tcpColumns(rows, base!),
     };
     if (current && current.id === id && versionPlan(n) === "replace") {
       const oldSteps = await tx.select().from(templateSteps).where(eq(templateSteps.templateId, id));
+      const oldLimits = await tx
+        .select()
+        .from(templateParameterLimits)
+        .where(eq(templateParameterLimits.templateId, id));
       await tx.delete(templateSteps).where(eq(templateSteps.templateId, id));
       await insertSteps(tx, id, rows);
+      await writeParameterLimits(tx, id, rows, id);
       const [t] = await tx
         .update(procedureTemplates)
         .set(meta)
@@ -231,9 +287,11 @@ export async function saveProcedureVersion(actor: Actor, id: string, body: unkno
           version: base!.version,
           jobKinds: base!.jobKinds,
           headModel: base!.headModel,
+          ...tcpColumns({ ...rows, tcp: null }, base!),
           steps: oldSteps.map(({ id: _i, templateId: _t, ...s }) => s),
+          parameterLimits: oldLimits.map(({ id: _i, templateId: _t, ...l }) => l),
         },
-        newValues: { version: t!.version, ...meta, steps: rows.steps },
+        newValues: { version: t!.version, ...meta, steps: rows.steps, parameterLimits: rows.parameterLimits },
       });
       return { ...t!, steps: rows.steps, replaced: true };
     }
@@ -256,20 +314,13 @@ export async function saveProcedureVersion(actor: Actor, id: string, body: unkno
       })
       .returning();
     await insertSteps(tx, t!.id, rows);
-    const limits = await tx
-      .select()
-      .from(templateParameterLimits)
-      .where(eq(templateParameterLimits.templateId, base!.id));
-    if (limits.length)
-      await tx
-        .insert(templateParameterLimits)
-        .values(limits.map(({ id: _i, templateId: _t, ...l }) => ({ ...l, templateId: t!.id })));
+    await writeParameterLimits(tx, t!.id, rows, base!.id);
     await copyPositioningLimits(tx, base!.id, t!.id);
     await appendAudit(tx, actor, {
       action: "procedure.versioned",
       entity: { type: "procedure_template", id: t!.id },
       oldValues: { id: base!.id, version: base!.version },
-      newValues: { version: t!.version, ...meta, steps: rows.steps },
+      newValues: { version: t!.version, ...meta, steps: rows.steps, parameterLimits: rows.parameterLimits },
     });
     return { ...t!, steps: rows.steps, replaced: false };
   });

@@ -1,7 +1,10 @@
 /**
- * What waits on whom: each role's queues on the jobs board ("to measure", "to inspect", …), as a
- * pure predicate over one list row, so the board's tabs, their counts and GET /api/jobs?queue= all
- * agree (unit-tested in tests/unit/jobs-office.test.ts).
+ * What waits on whom: each role's queues on the jobs board ("to measure", "to inspect", …). The
+ * one home of the rule, in two forms: `inQueue`, a predicate over one list row, and
+ * `queueCondition`, the same rule as plain data that db/queries/job-board.ts writes as SQL, so
+ * the board's tabs, their counts and GET /api/jobs?queue= agree for any number of jobs. A unit
+ * test (tests/unit/jobs-office.test.ts) checks the two forms against each other on every status,
+ * role, assignment, schedule and customer.
  */
 import type { JobStatus } from "@/lib/domain/jobs";
 import type { Actor, Role } from "@/lib/domain/roles";
@@ -65,6 +68,49 @@ export function inQueue(
     case "to_accept":
       return row.status === "issued" && row.customerId === actor.customerId;
   }
+}
+
+/**
+ * A queue as a condition on jobs columns: every part must hold. `statuses`: the job's status is
+ * one of these; `installerId`: assigned to this user; `customerId`: the job is this customer's;
+ * `unplanned`: no installer or no scheduled time yet. null: the queue holds nothing for the actor.
+ */
+export interface QueueCondition {
+  readonly statuses: readonly JobStatus[];
+  readonly installerId?: string;
+  readonly customerId?: string;
+  readonly unplanned?: true;
+}
+
+export function queueCondition(
+  queue: JobQueue,
+  actor: Pick<Actor, "id" | "role" | "customerId">,
+): QueueCondition | null {
+  if (!ROLE_QUEUES[actor.role].includes(queue)) return null;
+  switch (queue) {
+    case "to_schedule":
+      return { statuses: ["draft"], unplanned: true };
+    case "to_measure":
+      return { statuses: ["draft", "measuring"], installerId: actor.id };
+    case "to_inspect":
+    case "to_approve":
+      return { statuses: ["in_review"] };
+    case "to_issue":
+      return { statuses: ["approved"] };
+    case "to_accept":
+      return actor.customerId ? { statuses: ["issued"], customerId: actor.customerId } : null;
+  }
+}
+
+/** A QueueCondition read over one row, as the SQL reads it over the table. */
+export function conditionHolds(c: QueueCondition | null, row: QueueRow): boolean {
+  if (!c) return false;
+  return (
+    c.statuses.includes(row.status) &&
+    (c.installerId === undefined || row.assignedInstallerId === c.installerId) &&
+    (c.customerId === undefined || row.customerId === c.customerId) &&
+    (!c.unplanned || row.assignedInstallerId === null || row.scheduledFor === null)
+  );
 }
 
 /** How many of these rows wait in each of the actor's queues. */

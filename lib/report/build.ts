@@ -14,7 +14,7 @@ import { LIMIT_SOURCE_WORDS, parameterRows, type ParameterLimit } from "@/lib/fi
 import { formatDateTimeUtc } from "@/lib/format";
 import { signed } from "@/lib/numbers";
 import type { QuantityKind, UnitSystem } from "@/lib/units";
-import { shownValue, TEXT_KINDS, type KindStep, type ShownReading } from "@/lib/step-kinds";
+import { shownPoints, shownValue, TEXT_KINDS, type KindStep, type ShownReading } from "@/lib/step-kinds";
 import {
   formatAngleExpandedArcsec,
   formatExpanded,
@@ -157,7 +157,24 @@ export function readingSection(
         kind && x.shown
           ? shownValue(kind, x.shown, system)
           : formatRecorded(x.value, r.quantityKind, system, { resolution: resOf(x) });
+      // A multi-point step prints its points under its title, before and after, as entered.
+      const points =
+        kind?.derivation === "multi_point"
+          ? (
+              [
+                ["Before", r.pre],
+                ["After", r.post],
+              ] as const
+            )
+              .map(([label, x]) => {
+                const p = x?.shown ? shownPoints(x.shown, kind.points) : null;
+                return p ? `${label}: ${p}` : null;
+              })
+              .filter(Boolean)
+              .join("; ")
+          : "";
       return {
+        ...(points ? { points } : {}),
         ...withBasis(
           judgementBasis(
             reportDecision(r.status),

@@ -388,7 +388,17 @@ export function ReportDocument({
             rows={data.readings}
             empty="No checklist readings."
             cols={[
-              { header: "Step", width: "19%", cell: (r) => r.step },
+              {
+                header: "Step",
+                width: "19%",
+                cell: (r) => r.step,
+                node: (r, w) => (
+                  <View style={[s.td, { width: w }]}>
+                    <Text>{r.step}</Text>
+                    {r.points ? <Text style={{ color: C.muted, fontSize: 6.5 }}>{r.points}</Text> : null}
+                  </View>
+                ),
+              },
               { header: "Limits", width: "15%", cell: (r) => unitCell(r.limits) },
               { header: "Before", width: "13%", cell: (r) => unitCell(r.pre), numeric: true },
               { header: "After", width: "13%", cell: (r) => unitCell(r.post), numeric: true },

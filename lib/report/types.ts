@@ -63,6 +63,8 @@ export interface ReportData {
     basis?: string;
     /** The counting reading's expanded uncertainty, or "—" with the reason; absent in older reports. */
     expanded?: string;
+    /** A multi-point step's points as entered, per phase ("After: 12: 0.004 · 3: 0.006 … mm"); absent otherwise. */
+    points?: string;
   }>;
   parameters: Array<{
     name: string;

@@ -152,7 +152,7 @@ export const jobBoardQuerySchema = z.object({
   dir: z.enum(["asc", "desc"]).optional(),
   queue: z.enum(JOB_QUEUES).optional(),
   page: z.coerce.number().int().min(1).max(1000).optional(),
-  /** Without it the API answers every matching job (at most 500), as it always has. */
+  /** Without it a page holds 500 jobs; `total` says how many match. */
   pageSize: z.coerce.number().int().min(5).max(500).optional(),
 });
 export type JobBoardQuery = z.infer<typeof jobBoardQuerySchema>;

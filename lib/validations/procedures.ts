@@ -9,6 +9,7 @@ import { z } from "zod";
 import { JOB_KINDS, type JobKind } from "@/lib/domain/jobs";
 import { JUDGED_STEP_KINDS, MULTI_POINT_RESULTS, STEP_KINDS, type StepKind } from "@/lib/domain/procedures";
 import { fromCanonical, toCanonical, unitKind, type EntryUnit } from "@/lib/units";
+import { HEAD_PARAMETER_KEYS, type HeadParameterKey } from "@/geometry/head/config";
 
 export const LIMIT_UNITS = ["mm", "um", "in", "arcsec"] as const satisfies readonly EntryUnit[];
 export const LIMIT_SOURCES = ["standard", "maker_manual", "customer_spec", "common_practice"] as const;
@@ -78,6 +79,30 @@ export const procedureStepSchema = z.object({
 });
 export type ProcedureStepInput = z.input<typeof procedureStepSchema>;
 
+/** A limit for one fitted head parameter, in µm or arc seconds as the parameter's key says. */
+export const parameterLimitSchema = z.object({
+  parameter: z.enum(HEAD_PARAMETER_KEYS),
+  lower: limit,
+  upper: limit,
+  decisionRule: choice(z.enum(["simple", "guarded"])),
+  limitSource: choice(z.enum(LIMIT_SOURCES)),
+  limitSourceNote: text(1000),
+});
+
+/**
+ * What judges the head as a whole: the tool-centre-point check after compensation (limits in µm,
+ * with their source) and the limits of the fitted head parameters. Left out (undefined), a new
+ * version keeps what the version it replaces had; the builder always sends them.
+ */
+const wholeHeadFields = {
+  tcpCheckRequired: z.boolean().optional(),
+  tcpRangeLimitUm: limit.optional(),
+  tcpDeviationLimitUm: limit.optional(),
+  tcpLimitSource: choice(z.enum(LIMIT_SOURCES)).optional(),
+  tcpLimitSourceNote: text(1000).optional(),
+  parameterLimits: z.array(parameterLimitSchema).max(HEAD_PARAMETER_KEYS.length).optional(),
+};
+
 export const procedureSchema = z.object({
   name: z.string().trim().min(3, "Give the procedure a name.").max(160),
   description: text(2000),
@@ -90,6 +115,7 @@ export const procedureSchema = z.object({
   ),
   headModel: text(120),
   steps: z.array(procedureStepSchema).min(1, "A procedure needs at least one step.").max(80),
+  ...wholeHeadFields,
 });
 export type ProcedureInput = z.input<typeof procedureSchema>;
 
@@ -120,12 +146,35 @@ export interface StepRow {
   photoRequired: boolean;
 }
 
+/** The TCP-check columns of procedure_templates. */
+export interface TcpRows {
+  tcpCheckRequired: boolean;
+  tcpRangeLimitUm: number | null;
+  tcpDeviationLimitUm: number | null;
+  tcpLimitSource: LimitSource | null;
+  tcpLimitSourceNote: string | null;
+}
+
+/** One row of template_parameter_limits (without its template). */
+export interface ParameterLimitRow {
+  parameter: HeadParameterKey;
+  lowerLimit: number | null;
+  upperLimit: number | null;
+  decisionRule: "simple" | "guarded";
+  limitSource: LimitSource;
+  limitSourceNote: string | null;
+}
+
 export interface ProcedureRows {
   name: string | null;
   description: string | null;
   jobKinds: JobKind[] | null;
   headModel: string | null;
   steps: StepRow[];
+  /** null: not sent; a new version keeps the TCP check of the version it replaces. */
+  tcp: TcpRows | null;
+  /** null: not sent; a new version keeps the parameter limits of the version it replaces. */
+  parameterLimits: ParameterLimitRow[] | null;
 }
 
 export interface ProcedureIssue {
@@ -217,6 +266,76 @@ export function procedureRows(
       photoRequired: s.photoRequired ?? false,
     };
   });
+  const sourceIssues = (at: (f: string) => string, source: string | null | undefined, note: unknown) => {
+    if (!source)
+      issues.push({
+        field: at("limitSource"),
+        message:
+          "Say where the limit comes from (a standard and clause, the maker's figure, the customer's specification, or \"common practice, no published source\").",
+      });
+    if ((source === "standard" || source === "customer_spec") && !note)
+      issues.push({
+        field: at("limitSourceNote"),
+        message:
+          source === "standard" ? "Name the standard and its clause." : "Name the customer's specification.",
+      });
+  };
+  let tcp: TcpRows | null = null;
+  const tcpSent =
+    input.tcpCheckRequired !== undefined ||
+    input.tcpRangeLimitUm !== undefined ||
+    input.tcpDeviationLimitUm !== undefined;
+  if (tcpSent) {
+    const range = input.tcpRangeLimitUm ?? null;
+    const deviation = input.tcpDeviationLimitUm ?? null;
+    if (range !== null && range <= 0)
+      issues.push({ field: "tcpRangeLimitUm", message: "A range limit is a positive number of µm." });
+    if (deviation !== null && deviation <= 0)
+      issues.push({ field: "tcpDeviationLimitUm", message: "A distance limit is a positive number of µm." });
+    const limited = range !== null || deviation !== null;
+    // The TCP fields are named tcpLimitSource / tcpLimitSourceNote.
+    if (limited)
+      sourceIssues(
+        (f) => `tcp${f[0]!.toUpperCase()}${f.slice(1)}`,
+        input.tcpLimitSource,
+        input.tcpLimitSourceNote,
+      );
+    tcp = {
+      tcpCheckRequired: input.tcpCheckRequired ?? false,
+      tcpRangeLimitUm: range,
+      tcpDeviationLimitUm: deviation,
+      tcpLimitSource: limited ? (input.tcpLimitSource ?? null) : null,
+      tcpLimitSourceNote: limited ? (input.tcpLimitSourceNote ?? null) : null,
+    };
+  }
+  let parameterLimits: ParameterLimitRow[] | null = null;
+  if (input.parameterLimits !== undefined) {
+    parameterLimits = [];
+    const seen = new Set<string>();
+    input.parameterLimits.forEach((l, i) => {
+      const at = (f: string) => `parameterLimits.${i}.${f}`;
+      if (seen.has(l.parameter))
+        issues.push({ field: at("parameter"), message: "This parameter has a limit already." });
+      seen.add(l.parameter);
+      const lower = l.lower ?? null;
+      const upper = l.upper ?? null;
+      // Both limits empty: the parameter is recorded, not judged.
+      if (lower === null && upper === null) return;
+      if (lower !== null && upper !== null && lower > upper)
+        issues.push({ field: at("lower"), message: "The lower limit is above the upper limit." });
+      if (l.decisionRule === "guarded" && upper === null)
+        issues.push({ field: at("upper"), message: "Guarded acceptance needs an upper limit." });
+      sourceIssues(at, l.limitSource, l.limitSourceNote);
+      parameterLimits!.push({
+        parameter: l.parameter,
+        lowerLimit: lower,
+        upperLimit: upper,
+        decisionRule: l.decisionRule ?? "simple",
+        limitSource: l.limitSource ?? "common_practice",
+        limitSourceNote: l.limitSourceNote ?? null,
+      });
+    });
+  }
   if (issues.length) return { rows: null, issues };
   const kinds = [...(input.jobKind ? [input.jobKind] : []), ...(input.jobKinds ?? [])].map(normaliseJobKind);
   return {
@@ -226,6 +345,8 @@ export function procedureRows(
       jobKinds: kinds.length ? [...new Set(kinds)] : null,
       headModel: input.headModel ?? null,
       steps,
+      tcp,
+      parameterLimits,
     },
     issues: [],
   };

@@ -3,8 +3,9 @@
 // e-mail (delivered through the outbox to the local SMTP fake) and finds the job under "To measure"
 // on the tablet. Screenshots of the board and the form at 1440×900 and 820×1180.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Page } from "playwright-core";
+import type { BrowserContext } from "playwright-core";
 import { mailTo, newContext, screenshotPath, scrollsSideways, signIn, TABLET, pageAs } from "./browser";
+import { pickFirst } from "./steps";
 
 const OFFICE = { width: 1440, height: 900 };
 let office: BrowserContext;
@@ -19,14 +20,6 @@ afterAll(async () => {
   await office?.close();
   await tablet?.close();
 });
-
-/** Picks the first real option of a select (after its "Choose…" placeholder) once it has one. */
-async function pickFirst(p: Page, label: string) {
-  const select = p.getByLabel(label, { exact: true });
-  await expect.poll(() => select.locator("option").count()).toBeGreaterThan(1);
-  const value = await select.locator("option").nth(1).getAttribute("value");
-  await select.selectOption(value!);
-}
 
 describe("jobs office journey", () => {
   it("the administrator opens, schedules and assigns a new job", async () => {

@@ -1,5 +1,6 @@
 // The administrator builds a procedure in the browser: a multi-point step at 12/3/6/9, a yes/no
-// step whose missing limit source is named beside its field, and a photo-required record step;
+// step whose missing limit source is named beside its field, a photo-required record step, a TCP
+// check with its limits and their source, and one fitted-parameter limit;
 // moves a step with the keyboard (focus follows it), creates the procedure, saves the version,
 // retires it and brings it back. Screenshots at 1440×900 and on the tablet (820×1180).
 import { describe, expect, it } from "vitest";
@@ -13,6 +14,7 @@ import {
   contextForFile,
   pageAs,
 } from "./browser";
+import { buildPhotoRecordStep, buildRunOutStep } from "./steps";
 
 const ctx = contextForFile({ width: 1440, height: 900 });
 
@@ -31,15 +33,7 @@ describe("procedure builder (administrator)", () => {
 
     // Step 1: readings at four clock positions, judged by their TIR.
     const s1 = step(p, 1);
-    await s1.getByLabel("Title").fill("Collar run-out");
-    await s1.getByLabel("Kind of step").selectOption("multi_point");
-    await s1.getByRole("button", { name: "12 · 3 · 6 · 9" }).click();
-    expect(await s1.getByLabel("Points, in the order they are read").inputValue()).toBe("12, 3, 6, 9");
-    await s1.getByLabel("Unit of the limits").selectOption("in");
-    await s1.getByLabel("Upper limit").fill("0.0005");
-    await s1.getByLabel("Value judged from the points").selectOption("tir");
-    await s1.getByLabel("Where the limit comes from").selectOption("common_practice");
-    await s1.getByLabel("Source note").fill("The trade's usual collar figure.");
+    await buildRunOutStep(s1);
 
     // Step 2: a yes/no check, first without its limit source.
     await p.getByRole("button", { name: "Add a step" }).click();
@@ -50,17 +44,29 @@ describe("procedure builder (administrator)", () => {
     // Step 3: a value for the record that needs a photo.
     await p.getByRole("button", { name: "Add a step" }).click();
     const s3 = step(p, 3);
-    await s3.getByLabel("Title").fill("Shims under the collar");
-    await s3.getByLabel("Kind of step").selectOption("record");
-    await s3.getByLabel("Unit of the recorded value").fill("mm");
-    await s3.getByLabel("Photo required").check();
+    await buildPhotoRecordStep(s3, "Shims under the collar", "mm");
     await s3.getByLabel("Safety note").fill("Lock out before hands go near the spindle nose.");
 
+    // The head as a whole: a TCP check with limits (their source still missing), and one
+    // fitted-parameter limit with its source.
+    await p.getByLabel("Ask for a TCP check after compensation before the report is issued").check();
+    await p.getByLabel("Range of the centre in X, Y and Z, each (µm)").fill("15");
+    await p.getByLabel("Largest distance from the mean centre (µm)").fill("10");
+    const tilt = "Squareness of the tilt axis to the primary axis";
+    await p.getByLabel(`${tilt}: lower limit`).fill("-12");
+    await p.getByLabel(`${tilt}: upper limit`).fill("12");
+    await p.getByLabel(`${tilt}: limit source`).selectOption("common_practice");
+
     await p.getByRole("button", { name: "Create procedure" }).click();
-    // The server names the missing source beside step 2's field.
+    // The server names the missing source beside step 2's field, and the TCP limits' too.
     await expect
       .poll(() => p.locator('[data-error-for="steps.1.limitSource"]').innerText())
       .toMatch(/where the limit comes from/i);
+    expect(await p.locator('[data-error-for="tcpLimitSource"]').innerText()).toMatch(
+      /where the limit comes from/i,
+    );
+    await p.getByLabel("Where the TCP limits come from").selectOption("customer_spec");
+    await p.getByLabel("TCP source note").fill("Acceptance sheet 3");
     expect(await p.getByRole("alert").first().innerText()).toMatch(/where the limit comes from|attention/i);
     await s2.getByLabel("Where the limit comes from").selectOption("maker_manual");
     await s2.getByLabel("Source note").fill("Head maker's manual, mounting section.");
@@ -84,6 +90,18 @@ describe("procedure builder (administrator)", () => {
     expect(await rows.nth(1).innerText()).toMatch(/Shims under the collar[\s\S]*photo/);
     expect(await rows.nth(2).innerText()).toMatch(/Motor plate on its dowels[\s\S]*Maker's figure/);
     expect(await p.getByText("0 jobs follow this version").count()).toBe(1);
+    const judging = p
+      .getByRole("heading", { name: "Judging the head as a whole" })
+      .first()
+      .locator("xpath=../..");
+    await expect
+      .poll(() => judging.innerText())
+      .toMatch(
+        /required[\s\S]*≤ 15 µm in X, Y and Z[\s\S]*≤ 10 µm[\s\S]*Acceptance sheet 3[\s\S]*1 fitted head parameter has a limit/,
+      );
+    // The builder below reads them back.
+    expect(await p.getByLabel("Range of the centre in X, Y and Z, each (µm)").inputValue()).toBe("15");
+    expect(await p.getByLabel(`${tilt}: upper limit`).inputValue()).toBe("12");
 
     // No job follows version 1 yet: saving changes it in place.
     await step(p, 3).getByLabel("Title").fill("Motor plate home on its dowels");

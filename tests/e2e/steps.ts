@@ -1,6 +1,7 @@
 // Steps several browser tests share. Before writing a step into a test file, look here and in
 // browser.ts (contexts, sign-in, screenshots, accessibility, mail).
 import type { BrowserContext, Locator, Page } from "playwright-core";
+import sharp from "sharp";
 import { expect } from "vitest";
 import { headPoseGrid, synthesiseSphereProbe, type HeadErrors } from "@/geometry";
 import { canvasPixels, pageAs, screenshotPath } from "./browser";
@@ -134,4 +135,66 @@ export async function uploadSyntheticProbe(
   });
   expect(up.status()).toBe(201);
   return head;
+}
+
+/** Picks the first real option of a select (after its "Choose…" placeholder) once it has one. */
+export async function pickFirst(p: Page, label: string): Promise<void> {
+  const select = p.getByLabel(label, { exact: true });
+  await expect.poll(() => select.locator("option").count()).toBeGreaterThan(1);
+  const value = await select.locator("option").nth(1).getAttribute("value");
+  await select.selectOption(value!);
+}
+
+/**
+ * In the procedure builder: makes `s` the collar run-out step, readings at 12, 3, 6 and 9 o'clock
+ * judged by their TIR against ≤ 0.0005 in ("common practice", the trade's usual collar figure).
+ */
+export async function buildRunOutStep(s: Locator): Promise<void> {
+  await s.getByLabel("Title").fill("Collar run-out");
+  await s.getByLabel("Kind of step").selectOption("multi_point");
+  await s.getByRole("button", { name: "12 · 3 · 6 · 9" }).click();
+  expect(await s.getByLabel("Points, in the order they are read").inputValue()).toBe("12, 3, 6, 9");
+  await s.getByLabel("Unit of the limits").selectOption("in");
+  await s.getByLabel("Upper limit").fill("0.0005");
+  await s.getByLabel("Value judged from the points").selectOption("tir");
+  await s.getByLabel("Where the limit comes from").selectOption("common_practice");
+  await s.getByLabel("Source note").fill("The trade's usual collar figure.");
+}
+
+/** In the procedure builder: makes `s` a value for the record in `unit` that needs a photo. */
+export async function buildPhotoRecordStep(s: Locator, title: string, unit: string): Promise<void> {
+  await s.getByLabel("Title").fill(title);
+  await s.getByLabel("Kind of step").selectOption("record");
+  await s.getByLabel("Unit of the recorded value").fill(unit);
+  await s.getByLabel("Photo required").check();
+}
+
+/**
+ * On the tablet: enters the collar run-out of open step n at 12, 3, 6 and 9 o'clock with
+ * DTI-0112 (0, 0.0002, 0.0004, −0.0001 in) and waits for the live TIR: largest − smallest =
+ * 0.0004 − (−0.0001) = 0.0005 in (ASME B89.3.4 definition of run-out). Nothing is saved yet.
+ */
+export async function enterRunOutPoints(s: Locator, n: number): Promise<void> {
+  const inst = s.getByLabel("Instrument");
+  await inst.selectOption({
+    label: (await inst.locator("option", { hasText: "DTI-0112" }).textContent())!.trim(),
+  });
+  for (const [point, v] of [
+    ["12", "0"],
+    ["3", "0.0002"],
+    ["6", "0.0004"],
+    ["9", "-0.0001"],
+  ] as const)
+    await s.getByTestId(`point-${n}-${point}`).fill(v);
+  await expect.poll(() => s.getByTestId(`live-${n}`).innerText()).toMatch(/TIR = 0\.0005 in/);
+}
+
+/** On the tablet: attaches a plain PNG of this size to open step n, as the camera or a file would. */
+export async function attachPhoto(s: Locator, n: number, width: number, height: number): Promise<void> {
+  const png = await sharp({ create: { width, height, channels: 3, background: { r: 30, g: 90, b: 160 } } })
+    .png()
+    .toBuffer();
+  await s
+    .getByTestId(`photo-input-${n}`)
+    .setInputFiles({ name: "photo.png", mimeType: "image/png", buffer: png });
 }

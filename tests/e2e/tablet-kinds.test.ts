@@ -2,13 +2,14 @@
 // office opens a job with the demo after-collision procedure (one step of each kind) and assigns
 // the installer; the installer, OFFLINE, records a yes/no check, readings at four clock positions
 // point by point (the TIR shown live), a value for the record and a photo; back online, each is
-// stored exactly once and the photo is shown with its reading. "Offline" is every request of the
-// context aborted, as in offline.test.ts.
-import sharp from "sharp";
+// stored exactly once and the photo is shown with its reading. Offline, the photo waiting on the
+// tablet is drawn from its own file, and once stored its thumbnail is kept by the service worker
+// and drawn after an offline reload. "Offline" is every request of the context aborted, as in
+// offline.test.ts.
 import { describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import { screenshotPath, scrollsSideways, TABLET, pageAs, contextForFile } from "./browser";
-import { offline, openStep } from "./steps";
+import { attachPhoto, enterRunOutPoints, offline, openStep } from "./steps";
 
 const tablet = contextForFile(TABLET);
 let jobId = "";
@@ -73,32 +74,13 @@ describe("every kind of step on the tablet", () => {
 
     // Step 2: the collar at 12, 3, 6 and 9 o'clock, point by point, the TIR live and judged.
     const s2 = await openStep(p, 2);
-    const inst = s2.getByLabel("Instrument");
-    await inst.selectOption({
-      label: (await inst.locator("option", { hasText: "DTI-0112" }).textContent())!.trim(),
-    });
-    for (const [point, v] of [
-      ["12", "0"],
-      ["3", "0.0002"],
-      ["6", "0.0004"],
-      ["9", "-0.0001"],
-    ] as const)
-      await s2.getByTestId(`point-2-${point}`).fill(v);
-    // TIR = largest − smallest = 0.0004 − (−0.0001) = 0.0005 in (ASME B89.3.4 definition of run-out).
-    await expect.poll(() => s2.getByTestId("live-2").innerText()).toMatch(/TIR = 0\.0005 in/);
+    await enterRunOutPoints(s2, 2);
     await expect.poll(() => s2.getByTestId("live-2").innerText()).toMatch(/Pass/);
     await p.screenshot({ path: screenshotPath("tablet-kinds-points-820"), fullPage: false });
     await s2.getByRole("button", { name: "Save reading" }).click();
     await expect.poll(() => queuedCount(p)).toBe("2");
     // A photo of the dial at the high point, taken with the reading (kept as a blob offline).
-    const png = await sharp({
-      create: { width: 800, height: 600, channels: 3, background: { r: 30, g: 90, b: 160 } },
-    })
-      .png()
-      .toBuffer();
-    await s2
-      .getByTestId("photo-input-2")
-      .setInputFiles({ name: "dial.png", mimeType: "image/png", buffer: png });
+    await attachPhoto(s2, 2, 800, 600);
     await expect.poll(() => queuedCount(p)).toBe("3");
 
     // Step 3: the collar bolt torque, for the record, in its own unit.
@@ -107,6 +89,18 @@ describe("every kind of step on the tablet", () => {
     await s3.getByRole("button", { name: "Save reading" }).click();
     await expect.poll(() => queuedCount(p)).toBe("4");
     await expect.poll(() => s3.locator('tr[data-queued="waiting"]').innerText()).toMatch(/85 N·m/);
+    // Reloaded without signal, the photo still on the tablet is drawn from its own file.
+    await p.reload();
+    await expect.poll(() => queuedCount(p), { timeout: 10_000 }).toBe("4");
+    const kept = await openStep(p, 2);
+    await expect
+      .poll(() =>
+        kept
+          .getByTestId("queued-photos-2")
+          .locator("img")
+          .evaluate((i: HTMLImageElement) => i.naturalWidth),
+      )
+      .toBeGreaterThan(0);
 
     // Back online: everything goes in order, each once.
     await tablet().unroute("**/*", offline);
@@ -150,6 +144,26 @@ describe("every kind of step on the tablet", () => {
     expect(await again.getByTestId("points").innerText()).toMatch(
       /12: 0 · 3: 0\.0002 · 6: 0\.0004 · 9: −0\.0001 in/,
     );
+    // The thumbnail is kept on the tablet: offline again, the reloaded checklist still draws it.
+    const thumb = (await again.getByTestId("photos-2").locator("img").getAttribute("src"))!;
+    expect(thumb).toMatch(/^\/api\/photos\/[0-9a-f-]{36}\/thumb$/);
+    await expect
+      .poll(() => p.evaluate(async (u) => Boolean(await caches.match(u, { ignoreVary: true })), thumb))
+      .toBe(true);
+    await tablet().route("**/*", offline);
+    await p.reload();
+    const cached = await openStep(p, 2);
+    await expect
+      .poll(
+        () =>
+          cached
+            .getByTestId("photos-2")
+            .locator("img")
+            .evaluate((i: HTMLImageElement) => i.naturalWidth),
+        { timeout: 10_000 },
+      )
+      .toBeGreaterThan(0);
+    await tablet().unroute("**/*", offline);
     const one = await openStep(p, 1);
     expect(await one.locator("tbody tr").first().innerText()).toMatch(/Yes/);
     expect(await one.locator("tbody tr").first().innerText()).not.toMatch(/mm|in\b/);

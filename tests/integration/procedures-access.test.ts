@@ -12,7 +12,7 @@ import { db } from "@/db";
 import { createJobFromTemplate } from "@/db/queries/job-status";
 import { proceduresFor } from "@/db/queries/procedures";
 import { getActor } from "@/db/queries/users";
-import { auditEvents, jobs, procedureTemplates, templateSteps } from "@/db/schema";
+import { auditEvents, jobs, procedureTemplates, templateParameterLimits, templateSteps } from "@/db/schema";
 import { WHO } from "./fixtures";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
@@ -299,5 +299,126 @@ describe("builder actions", () => {
     const retired = await actions.setProcedureRetiredAction({ id: made.data.id, retired: "true" });
     expect(retired).toEqual({ ok: true, data: { id: made.data.id, retired: true } });
     expect((await proceduresFor("installation", "HX-40")).map((x) => x.name)).not.toContain(name);
+  });
+});
+
+describe("judging the head as a whole", () => {
+  it("a TCP limit needs its source; the check, its limits and the parameter limits are stored and kept", async () => {
+    await signInAs("admin@halvard.example");
+    const name = `TCP ${uniq()}`;
+    // A limit without its source is refused, naming the field the builder shows.
+    const noSource = await actions.createProcedureAction(
+      body(name, { tcpCheckRequired: true, tcpRangeLimitUm: "15", tcpDeviationLimitUm: "" }),
+    );
+    expect(noSource.ok).toBe(false);
+    if (noSource.ok) return;
+    expect(Object.keys(noSource.fieldErrors ?? {})).toEqual(["tcpLimitSource"]);
+    const negative = await createPost(
+      request(
+        "/api/procedures",
+        json("POST", body(name, { tcpRangeLimitUm: -3, tcpLimitSource: "common_practice" })),
+      ),
+    );
+    expect(negative.status).toBe(422);
+    expect((await negative.json()).error.issues[0].field).toBe("tcpRangeLimitUm");
+    const badParam = await actions.createProcedureAction(
+      body(name, {
+        parameterLimits: [
+          { parameter: "pivot_length_error_um", lower: "5", upper: "-5", limitSource: "customer_spec" },
+        ],
+      }),
+    );
+    expect(badParam.ok).toBe(false);
+    if (badParam.ok) return;
+    expect(Object.keys(badParam.fieldErrors ?? {}).sort()).toEqual([
+      "parameterLimits.0.limitSourceNote",
+      "parameterLimits.0.lower",
+    ]);
+    expect(await db.select().from(procedureTemplates).where(eq(procedureTemplates.name, name))).toEqual([]);
+
+    const made = await actions.createProcedureAction(
+      body(name, {
+        tcpCheckRequired: true,
+        tcpRangeLimitUm: "15",
+        tcpDeviationLimitUm: "10",
+        tcpLimitSource: "customer_spec",
+        tcpLimitSourceNote: "Acceptance sheet 3, TCP",
+        parameterLimits: [
+          // Both limits empty: recorded, not judged, so not stored.
+          { parameter: "tip_offset_s_um", lower: "", upper: "", decisionRule: "simple", limitSource: "" },
+          {
+            parameter: "secondary_tilt_arcsec",
+            lower: "-12",
+            upper: "12",
+            decisionRule: "simple",
+            limitSource: "common_practice",
+            limitSourceNote: "",
+          },
+        ],
+      }),
+    );
+    expect(made.ok).toBe(true);
+    if (!made.ok) return;
+    const [t] = await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, made.data.id));
+    expect(t).toMatchObject({
+      tcpCheckRequired: true,
+      tcpRangeLimitUm: 15,
+      tcpDeviationLimitUm: 10,
+      tcpLimitSource: "customer_spec",
+      tcpLimitSourceNote: "Acceptance sheet 3, TCP",
+    });
+    const limits = await db
+      .select()
+      .from(templateParameterLimits)
+      .where(eq(templateParameterLimits.templateId, made.data.id));
+    expect(limits.map((l) => [l.parameter, l.lowerLimit, l.upperLimit, l.limitSource])).toEqual([
+      ["secondary_tilt_arcsec", -12, 12, "common_practice"],
+    ]);
+
+    // The API's version body without these fields keeps them (in place, no job uses it yet).
+    const res = await versionPost(
+      request(`/api/procedures/${made.data.id}/versions`, json("POST", body(name))),
+      p(made.data.id),
+    );
+    expect(res.status).toBe(200);
+    const detail = (await (await itemGet(request(`/api/procedures/${made.data.id}`), p(made.data.id))).json())
+      .procedure;
+    expect(detail).toMatchObject({
+      tcpCheckRequired: true,
+      tcpRangeLimitUm: 15,
+      tcpLimitSource: "customer_spec",
+    });
+    expect(
+      await db
+        .select({ n: templateParameterLimits.parameter })
+        .from(templateParameterLimits)
+        .where(eq(templateParameterLimits.templateId, made.data.id)),
+    ).toEqual([{ n: "secondary_tilt_arcsec" }]);
+
+    // Cleared in the builder: no check asked for, no limits, nothing left to source.
+    const cleared = await actions.saveProcedureVersionAction({
+      ...body(name),
+      id: made.data.id,
+      tcpCheckRequired: false,
+      tcpRangeLimitUm: "",
+      tcpDeviationLimitUm: "",
+      tcpLimitSource: "customer_spec",
+      tcpLimitSourceNote: "",
+      parameterLimits: [],
+    });
+    expect(cleared.ok).toBe(true);
+    const [c] = await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, made.data.id));
+    expect(c).toMatchObject({
+      tcpCheckRequired: false,
+      tcpRangeLimitUm: null,
+      tcpDeviationLimitUm: null,
+      tcpLimitSource: null,
+    });
+    expect(
+      await db
+        .select()
+        .from(templateParameterLimits)
+        .where(eq(templateParameterLimits.templateId, made.data.id)),
+    ).toEqual([]);
   });
 });

@@ -14,11 +14,13 @@ import { chooseReportView } from "@/db/queries/report-views";
 import { changeJobStatus } from "@/db/queries/job-status";
 import { getJobConformity, issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
-import { createTemplateVersion } from "@/db/queries/templates";
+import { saveProcedureVersion } from "@/db/queries/procedures";
+import { getTemplate } from "@/db/queries/templates";
 import { procedureTemplates, reports, templateParameterLimits, templateSteps } from "@/db/schema";
 import type { HeadFitJson } from "@/geometry";
 import type { Actor } from "@/lib/domain/roles";
 import type { ReportData } from "@/lib/report/types";
+import { stepInputFromRow, type StepRow } from "@/lib/validations/procedures";
 import { pdfFile, pdfImageSizes, pdfText } from "../pdf-tools";
 import {
   allActors,
@@ -168,11 +170,15 @@ describe("the saved 3D view in the report", () => {
 });
 
 describe("procedure versions", () => {
-  it("carry the head-parameter limits into the new version unchanged", async () => {
-    // A procedure of its own, so the demo procedure's current version is untouched for other tests.
+  /** A procedure of its own (so the demo procedure's current version is untouched) with one step and two limits, followed by a job. */
+  async function versionInUse(tag: string) {
     const [base] = await db
       .insert(procedureTemplates)
-      .values({ name: `Limits copy test ${Date.now().toString(36)}`, version: 1, createdById: as.admin!.id })
+      .values({
+        name: `Limits ${tag} test ${Date.now().toString(36)}`,
+        version: 1,
+        createdById: as.admin!.id,
+      })
       .returning();
     const [step] = await db
       .select()
@@ -201,107 +207,84 @@ describe("procedure versions", () => {
         limitSourceNote: null,
       },
     ]);
-    const before = await db
-      .select()
-      .from(templateParameterLimits)
-      .where(eq(templateParameterLimits.templateId, base!.id));
-    const next = await createTemplateVersion(as.admin!, base!.id, []);
+    // A job follows version 1, so saving publishes version 2.
+    await insertTestJob({
+      tag: "VER",
+      title: "Follows version 1",
+      status: "draft",
+      template: true,
+      assignedInstallerId: null,
+      base: { ...(await jobBaseOf(BASE_JOB)), templateId: base!.id },
+    });
+    const t = await getTemplate(as.admin!, base!.id);
+    // The body the builder sends back: the same steps, in their own units.
+    return { base: base!, body: { steps: t!.steps.map((x) => stepInputFromRow(x as StepRow)) } };
+  }
+  const limitsOf = (id: string) =>
+    db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, id));
+
+  it("carry the head-parameter limits into the new version unchanged when the body leaves them out", async () => {
+    const { base, body } = await versionInUse("copy");
+    const before = await limitsOf(base.id);
+    const next = await saveProcedureVersion(as.admin!, base.id, body);
     expect(next.version).toBe(2);
-    const after = await db
-      .select()
-      .from(templateParameterLimits)
-      .where(eq(templateParameterLimits.templateId, next.id));
+    const after = await limitsOf(next.id);
     const strip = ({ id: _i, templateId: _tt, ...l }: (typeof before)[number]) => l;
     const byKey = (a: { parameter: string }, b: { parameter: string }) =>
       a.parameter.localeCompare(b.parameter);
     expect(after.map(strip).sort(byKey)).toEqual(before.map(strip).sort(byKey));
   });
 
-  it("apply parameter-limit edits in the new version: changed, removed, added; a bad edit creates nothing", async () => {
-    const [base] = await db
-      .insert(procedureTemplates)
-      .values({ name: `Limits edit test ${Date.now().toString(36)}`, version: 1, createdById: as.admin!.id })
-      .returning();
-    await db.insert(templateParameterLimits).values([
-      {
-        templateId: base!.id,
-        parameter: "pivot_length_error_um",
-        lowerLimit: -30,
-        upperLimit: 30,
-        decisionRule: "simple",
-        limitSource: "customer_spec",
-        limitSourceNote: null,
-      },
-      {
-        templateId: base!.id,
-        parameter: "secondary_tilt_arcsec",
-        lowerLimit: -12,
-        upperLimit: 12,
-        decisionRule: "simple",
-        limitSource: "common_practice",
-        limitSourceNote: null,
-      },
-    ]);
-    const refused = await createTemplateVersion(
-      as.admin!,
-      base!.id,
-      [],
-      [
+  it("apply the parameter limits sent in the new version: changed, removed, added; a bad one creates nothing", async () => {
+    const { base, body } = await versionInUse("edit");
+    const refused = await saveProcedureVersion(as.admin!, base.id, {
+      ...body,
+      parameterLimits: [
         {
           parameter: "tip_offset_s_um",
-          lowerLimit: 5,
-          upperLimit: -5,
+          lower: 5,
+          upper: -5,
           decisionRule: "simple",
           limitSource: "standard",
-          limitSourceNote: null,
         },
       ],
-    ).then(
+    }).then(
       () => null,
-      (e: { status?: number; message: string }) => e,
+      (e: { status?: number; message: string; issues?: { field: string }[] }) => e,
     );
     expect(refused?.status).toBe(422);
-    expect(refused?.message).toMatch(/lower limit is above the upper limit/);
+    expect(refused?.issues?.map((i) => i.field)).toEqual([
+      "parameterLimits.0.lower",
+      "parameterLimits.0.limitSourceNote",
+    ]);
     expect(
-      await db.select().from(procedureTemplates).where(eq(procedureTemplates.name, base!.name)),
+      await db.select().from(procedureTemplates).where(eq(procedureTemplates.name, base.name)),
     ).toHaveLength(1);
 
-    const next = await createTemplateVersion(
-      as.admin!,
-      base!.id,
-      [],
-      [
+    const next = await saveProcedureVersion(as.admin!, base.id, {
+      ...body,
+      parameterLimits: [
         {
           parameter: "pivot_length_error_um",
-          lowerLimit: -25,
-          upperLimit: 25,
+          lower: -25,
+          upper: 25,
           decisionRule: "guarded",
           limitSource: "maker_manual",
           limitSourceNote: "sheet 4",
         },
-        {
-          parameter: "secondary_tilt_arcsec",
-          lowerLimit: null,
-          upperLimit: null,
-          decisionRule: "simple",
-          limitSource: "customer_spec",
-          limitSourceNote: null,
-        },
+        // Both limits empty: recorded, not judged.
+        { parameter: "secondary_tilt_arcsec", lower: null, upper: null, limitSource: "customer_spec" },
         {
           parameter: "primary_zero_arcsec",
-          lowerLimit: -40,
-          upperLimit: 40,
+          lower: -40,
+          upper: 40,
           decisionRule: "simple",
           limitSource: "customer_spec",
-          limitSourceNote: null,
+          limitSourceNote: "acceptance sheet",
         },
       ],
-    );
-    const after = await db
-      .select()
-      .from(templateParameterLimits)
-      .where(eq(templateParameterLimits.templateId, next.id));
-    const by = Object.fromEntries(after.map((l) => [l.parameter, l]));
+    });
+    const by = Object.fromEntries((await limitsOf(next.id)).map((l) => [l.parameter, l]));
     expect(Object.keys(by).sort()).toEqual(["pivot_length_error_um", "primary_zero_arcsec"]);
     expect(by.pivot_length_error_um).toMatchObject({
       lowerLimit: -25,
@@ -311,8 +294,6 @@ describe("procedure versions", () => {
       limitSourceNote: "sheet 4",
     });
     // The earlier version keeps its own limits.
-    expect(
-      await db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, base!.id)),
-    ).toHaveLength(2);
+    expect(await limitsOf(base.id)).toHaveLength(2);
   });
 });

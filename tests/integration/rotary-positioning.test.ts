@@ -14,7 +14,9 @@ import {
   positioningJobOf,
   positioningLimitsOfTemplate,
 } from "@/db/queries/positioning";
-import { createTemplateVersion } from "@/db/queries/templates";
+import { saveProcedureVersion } from "@/db/queries/procedures";
+import { getTemplate } from "@/db/queries/templates";
+import { stepInputFromRow, type StepRow } from "@/lib/validations/procedures";
 import { getReadiness, recordDeviation } from "@/db/queries/readiness";
 import { getReportContent, issueReport } from "@/db/queries/reports";
 import { getJobDetail } from "@/db/queries/jobs";
@@ -238,7 +240,11 @@ describe("a new procedure version", () => {
   it("keeps the positioning limits of the version it was made from", async () => {
     const admin = (await getActor((await signInAs("admin@halvard.example"))!))!;
     const [job] = await db.select({ templateId: jobs.templateId }).from(jobs).where(eq(jobs.id, jobId));
-    const next = await createTemplateVersion(admin, job!.templateId!, []);
+    // The body the builder sends back: the same steps, unchanged.
+    const t = await getTemplate(admin, job!.templateId!);
+    const next = await saveProcedureVersion(admin, job!.templateId!, {
+      steps: t!.steps.map((x) => stepInputFromRow(x as StepRow)),
+    });
     const limits = await positioningLimitsOfTemplate(next.id);
     expect(limits.map((l) => [l.axis, l.quantity, l.upperLimitArcsec, l.limitSource])).toEqual([
       ["primary", "A", 0.25, "customer_spec"],

@@ -5,7 +5,17 @@
 // 01:00 UTC (EU Directive 2000/84/EC); America/New_York EST UTC−5; Asia/Kolkata IST UTC+5:30, no DST.
 import { describe, expect, it } from "vitest";
 import { isTimeZone, utcToZoned, zonedToUtc } from "@/lib/domain/schedule";
-import { inQueue, queueCounts, queuesFor, type QueueRow } from "@/lib/policy/job-queues";
+import {
+  conditionHolds,
+  inQueue,
+  JOB_QUEUES,
+  queueCondition,
+  queueCounts,
+  queuesFor,
+  type QueueRow,
+} from "@/lib/policy/job-queues";
+import { JOB_STATUSES } from "@/lib/domain/jobs";
+import { ROLES } from "@/lib/domain/roles";
 import {
   jobAssignRefusal,
   jobCancelRefusal,
@@ -192,6 +202,41 @@ describe("role queues", () => {
       { queue: "to_accept", label: "To accept", count: 1 },
     ]);
     expect(queueCounts(actor("customer", "b-2", "c-2"), rows)[0]!.count).toBe(0);
+  });
+});
+
+describe("the queues' two forms", () => {
+  it("the predicate and the condition the SQL is written from agree on every status, role, assignment, schedule and customer", () => {
+    const when = new Date("2027-01-01T08:00:00Z");
+    let checked = 0;
+    let held = 0;
+    for (const role of ROLES)
+      for (const me of [actor(role, "u-1", role === "customer" ? "c-1" : null), actor(role, "u-1", null)])
+        for (const queue of JOB_QUEUES)
+          for (const status of JOB_STATUSES)
+            for (const assignedInstallerId of [null, "u-1", "u-2"])
+              for (const scheduledFor of [null, when])
+                for (const customerId of ["c-1", "c-2"]) {
+                  const r: QueueRow = { status, assignedInstallerId, scheduledFor, customerId };
+                  const expected = inQueue(queue, me, r);
+                  expect(conditionHolds(queueCondition(queue, me), r), `${role} ${queue} ${status}`).toBe(
+                    expected,
+                  );
+                  checked++;
+                  if (expected) held++;
+                }
+    // Every combination was compared, and some of them are in a queue (the check is not vacuous).
+    expect(checked).toBe(ROLES.length * 2 * JOB_QUEUES.length * JOB_STATUSES.length * 12);
+    expect(held).toBeGreaterThan(0);
+  });
+
+  it("a queue not offered to the role, or acceptance for a customer without a customer, holds nothing", () => {
+    expect(queueCondition("to_schedule", actor("installer"))).toBeNull();
+    expect(queueCondition("to_accept", actor("customer", "u-9", null))).toBeNull();
+    expect(queueCondition("to_measure", actor("installer", "i-7"))).toEqual({
+      statuses: ["draft", "measuring"],
+      installerId: "i-7",
+    });
   });
 });
 

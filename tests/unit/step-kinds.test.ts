@@ -217,4 +217,51 @@ describe("the report's readings per kind", () => {
     expect(s.rows.map((r) => r.pre)).toEqual(["Yes", "85 N·m", "0.005 mm"]);
     expect(s.chart.map((c) => c.step)).toEqual(["direct"]);
   });
+
+  it("prints a multi-point step's points, before and after, under its derived value", () => {
+    const entered = (points: Record<string, string>) => {
+      const r = stepEntry(collar, { unit: "mm", points });
+      if (!r.ok) throw new Error("the entry was refused");
+      return { value: r.stored.value, shown: r.stored };
+    };
+    const pre = entered({ "12": "0", "3": "0.004", "6": "0.010", "9": "-0.002" });
+    const post = entered({ "12": "0", "3": "0.001", "6": "0.003", "9": "0.002" });
+    const [row] = readingSection([
+      {
+        title: "Collar run-out",
+        quantityKind: "length" as const,
+        lowerLimit: null,
+        upperLimit: collar.upperLimit,
+        limitSource: "common_practice",
+        pre,
+        post,
+        change: post.value - pre.value,
+        status: judge(collar, post.value),
+        kindStep: collar,
+      },
+    ]).rows;
+    // TIR = largest − smallest: 0.010 − (−0.002) = 0.012 before, 0.003 − 0 = 0.003 after.
+    expect(row!.pre).toMatch(/^0\.012\d* mm TIR$/);
+    expect(row!.points).toBe(
+      "Before: 12: 0 · 3: 0.004 · 6: 0.01 · 9: −0.002 mm; After: 12: 0 · 3: 0.001 · 6: 0.003 · 9: 0.002 mm",
+    );
+    // A step of another kind prints no points.
+    expect(
+      readingSection([
+        {
+          ...row!,
+          title: "x",
+          quantityKind: "length",
+          lowerLimit: null,
+          upperLimit: 0.01,
+          limitSource: "common_practice",
+          pre,
+          post: null,
+          change: null,
+          status: "pass",
+          kindStep: base,
+        },
+      ]).rows[0]!.points,
+    ).toBeUndefined();
+  });
 });

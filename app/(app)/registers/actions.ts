@@ -1,7 +1,6 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import type { HeadParameterKey } from "@/geometry";
 import { z } from "zod";
 import { createInstrument, recordCalibration, updateInstrument } from "@/db/queries/instruments";
 import { createJobFromTemplate } from "@/db/queries/job-status";
@@ -16,15 +15,13 @@ import {
   updateMachine,
   updateSite,
 } from "@/db/queries/registers-admin";
-import { createTemplateVersion } from "@/db/queries/templates";
 import { inviteUser, updateUser } from "@/db/queries/users-admin";
 import { action } from "@/lib/actions";
 import { DECISION_RULES } from "@/lib/domain/decisions";
 import { JOB_KINDS } from "@/lib/domain/jobs";
 import { jobOpenFormRefusal } from "@/lib/policy/jobs";
 import { registerEditRefusal } from "@/lib/policy/registers";
-import { invalid, notFound } from "@/lib/errors";
-import { toCanonical } from "@/lib/units";
+import { notFound } from "@/lib/errors";
 import {
   calibrationFormSchema,
   customerCreateSchema,
@@ -63,90 +60,6 @@ export const updateUserAction = action(
     const r = await updateUser(actor, input);
     revalidatePath("/registers/people");
     return r;
-  },
-);
-
-const limit = z.preprocess(
-  (v) => (v === "" || v == null ? null : typeof v === "string" ? v.replace(",", ".") : v),
-  z.coerce.number({ message: "Enter a number or leave it empty." }).nullable(),
-);
-
-/** Form fields step.<position>.<field>; lengths in `unit` (mm or in), angles in arcsec. */
-const templateVersionSchema = z
-  .object({ templateId: zUuid(), unit: z.enum(["mm", "in"]) })
-  .catchall(z.unknown());
-
-const LIMIT_SOURCES = ["standard", "maker_manual", "common_practice", "customer_spec"] as const;
-function invalidSource(p: number): never {
-  throw invalid(`Step ${p}: say where the limit comes from.`, [
-    { field: `step.${p}.limitSource`, message: "Choose a source." },
-  ]);
-}
-
-export const createTemplateVersionAction = action(
-  { schema: templateVersionSchema, refusal: (a) => registerEditRefusal(a, "procedures") },
-  async (input, actor) => {
-    const positions = new Set<number>();
-    for (const k of Object.keys(input)) {
-      const m = /^step\.(\d+)\./.exec(k);
-      if (m) positions.add(Number(m[1]));
-    }
-    const edits = [...positions].map((p) => {
-      const get = (f: string) => (input as Record<string, unknown>)[`step.${p}.${f}`];
-      const kind = get("kind") === "angle" ? "angle" : "length";
-      const conv = (v: number | null) =>
-        v == null ? null : kind === "angle" ? v : toCanonical(v, input.unit);
-      const lo = limit.safeParse(get("lowerLimit"));
-      const hi = limit.safeParse(get("upperLimit"));
-      if (!lo.success || !hi.success)
-        throw invalid(`Step ${p}: a limit is not a number.`, [
-          {
-            field: `step.${p}.${lo.success ? "upperLimit" : "lowerLimit"}`,
-            message: "Enter a number or leave it empty.",
-          },
-        ]);
-      return {
-        position: p,
-        lowerLimit: conv(lo.data),
-        upperLimit: conv(hi.data),
-        decisionRule: get("decisionRule") === "guarded" ? ("guarded" as const) : ("simple" as const),
-        limitSource: LIMIT_SOURCES.find((x) => x === get("limitSource")) ?? invalidSource(p),
-        limitSourceNote:
-          typeof get("limitSourceNote") === "string" && (get("limitSourceNote") as string).trim()
-            ? (get("limitSourceNote") as string).trim().slice(0, 500)
-            : null,
-      };
-    });
-    // Head parameter limits: fields param.<key>.*, in µm or arc seconds as the key says.
-    const keys = new Set<string>();
-    for (const k of Object.keys(input)) {
-      const m = /^param\.([a-z_]+)\./.exec(k);
-      if (m) keys.add(m[1]!);
-    }
-    const parameterEdits = [...keys].map((key) => {
-      const get = (f: string) => (input as Record<string, unknown>)[`param.${key}.${f}`];
-      const lo = limit.safeParse(get("lowerLimit"));
-      const hi = limit.safeParse(get("upperLimit"));
-      if (!lo.success || !hi.success)
-        throw invalid(`${key}: a limit is not a number.`, [
-          {
-            field: `param.${key}.${lo.success ? "upperLimit" : "lowerLimit"}`,
-            message: "Enter a number or leave it empty.",
-          },
-        ]);
-      const note = get("limitSourceNote");
-      return {
-        parameter: key as HeadParameterKey,
-        lowerLimit: lo.data,
-        upperLimit: hi.data,
-        decisionRule: get("decisionRule") === "guarded" ? ("guarded" as const) : ("simple" as const),
-        limitSource: LIMIT_SOURCES.find((x) => x === get("limitSource")) ?? "customer_spec",
-        limitSourceNote: typeof note === "string" && note.trim() ? note.trim().slice(0, 500) : null,
-      };
-    });
-    const t = await createTemplateVersion(actor, input.templateId, edits, parameterEdits);
-    revalidatePath("/registers/procedures");
-    return { id: t.id, version: t.version };
   },
 );
 

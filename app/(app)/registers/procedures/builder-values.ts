@@ -1,23 +1,30 @@
 /** Stored procedure rows → the builder's form values (every field a string, limits in the step's unit). */
-import type { BuilderStep, BuilderValues } from "@/components/procedures/procedure-builder";
+import {
+  headJudgingValues,
+  type BuilderStep,
+  type BuilderValues,
+} from "@/components/procedures/builder-values";
 import { stepInputFromRow, type StepRow } from "@/lib/validations/procedures";
 
 const str = (v: string | number | null | undefined) => (v == null ? "" : String(v));
 
-export function builderValuesFrom(t: {
-  name: string;
-  description: string | null;
-  jobKinds: string[] | null;
-  headModel: string | null;
-  steps: (Omit<StepRow, "limitUnit" | "limitSource" | "derivation" | "pointResult" | "quantityKind"> & {
-    limitUnit: string | null;
-    limitSource: string;
-    derivation: string;
-    pointResult: string | null;
-    quantityKind: string;
-  })[];
-}): BuilderValues {
+export function builderValuesFrom(
+  t: Parameters<typeof headJudgingValues>[0] & {
+    name: string;
+    description: string | null;
+    jobKinds: string[] | null;
+    headModel: string | null;
+    steps: (Omit<StepRow, "limitUnit" | "limitSource" | "derivation" | "pointResult" | "quantityKind"> & {
+      limitUnit: string | null;
+      limitSource: string;
+      derivation: string;
+      pointResult: string | null;
+      quantityKind: string;
+    })[];
+  },
+): BuilderValues {
   return {
+    ...headJudgingValues(t),
     name: t.name,
     description: str(t.description),
     jobKinds: t.jobKinds ?? [],

@@ -3,7 +3,6 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { LIMIT_SOURCE_LABELS } from "@/components/readings/decision-badge";
 import { JobCreateForm } from "@/components/registers/job-create-form";
-import { TemplateVersionForm } from "@/components/registers/template-version-form";
 import { buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { Table } from "@/components/ui/table";
@@ -17,7 +16,7 @@ import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
 import { HEAD_PARAMETER_KEYS, headParameterUnit } from "@/geometry";
 import { limitText, PARAMETER_WORDS } from "@/lib/fit-display";
-import { fromCanonical, formatLimits } from "@/lib/units";
+import { formatLimits } from "@/lib/units";
 import {
   HEAD_AXIS_ROLE_WORDS,
   POSITIONING_QUANTITY_WORDS,
@@ -33,7 +32,6 @@ export default async function ProceduresPage() {
   const mayEdit = registerEditRefusal(user, "procedures") === null;
   const mayBuild = procedureEditRefusal(user, null) === null;
   const [templates, unitSystem] = await Promise.all([listTemplatesWithSteps(user), getUnitSystem(user)]);
-  const unit = unitSystem === "inch" ? "in" : "mm";
   // Retired machines and heads are left out of the pickers for new work.
   const [machines, heads, installers] = mayEdit
     ? await Promise.all([
@@ -160,49 +158,6 @@ export default async function ProceduresPage() {
                 ]}
               />
             </>
-          ) : null}
-          {mayEdit && t.isCurrent ? (
-            <details className="mt-4 rounded-card border border-graphite-200 p-4">
-              <summary className="min-h-touch cursor-pointer py-2 font-medium">
-                Edit limits (makes version {t.version + 1})
-              </summary>
-              <TemplateVersionForm
-                templateId={t.id}
-                unit={unit}
-                steps={t.steps.map((s) => {
-                  const show = (v: number | null) =>
-                    v == null
-                      ? ""
-                      : s.quantityKind === "angle"
-                        ? String(v)
-                        : String(Number(fromCanonical(v, unit).toPrecision(10)));
-                  return {
-                    position: s.position,
-                    title: s.title,
-                    kind: s.quantityKind,
-                    lower: show(s.lowerLimit),
-                    upper: show(s.upperLimit),
-                    decisionRule: s.decisionRule,
-                    limitSource: s.limitSource,
-                    limitSourceNote: s.limitSourceNote ?? "",
-                  };
-                })}
-                parameters={HEAD_PARAMETER_KEYS.map((key) => {
-                  const l = t.parameterLimits.find((x) => x.parameter === key);
-                  const show = (v: number | null | undefined) => (v == null ? "" : String(v));
-                  return {
-                    key,
-                    words: PARAMETER_WORDS[key],
-                    unit: headParameterUnit(key) === "um" ? ("µm" as const) : ("″" as const),
-                    lower: show(l?.lowerLimit),
-                    upper: show(l?.upperLimit),
-                    decisionRule: l?.decisionRule ?? "simple",
-                    limitSource: l?.limitSource ?? "customer_spec",
-                    limitSourceNote: l?.limitSourceNote ?? "",
-                  };
-                })}
-              />
-            </details>
           ) : null}
           {mayEdit && t.isCurrent ? (
             <details className="mt-4 rounded-card border border-graphite-200 p-4">

@@ -107,7 +107,7 @@ export default async function ChecklistPage({ params }: Props) {
             </div>
           </div>
           {canWrite ? <QueueStatus /> : null}
-          <KeepJobOffline jobId={id} />
+          <KeepJobOffline jobId={id} photoThumbs={photos.map((p) => p.thumbUrl)} />
           {!canWrite ? (
             <p
               className="rounded-md border border-graphite-200 bg-white px-4 py-3 text-sm text-graphite-700"

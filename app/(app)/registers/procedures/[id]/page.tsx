@@ -123,6 +123,31 @@ export default async function ProcedurePage({ params }: { params: Promise<{ id: 
         />
       </Card>
 
+      <Card title="Judging the head as a whole">
+        <p className="text-sm">
+          {t.tcpCheckRequired
+            ? "A tool-centre-point check after compensation is required before the report is issued."
+            : "No tool-centre-point check is required; one that is uploaded is still judged."}{" "}
+          {t.tcpRangeLimitUm != null || t.tcpDeviationLimitUm != null ? (
+            <>
+              Limits: range of the centre{" "}
+              {t.tcpRangeLimitUm != null ? `≤ ${t.tcpRangeLimitUm} µm in X, Y and Z each` : "recorded"};
+              distance from the mean centre{" "}
+              {t.tcpDeviationLimitUm != null ? `≤ ${t.tcpDeviationLimitUm} µm` : "recorded"} (
+              {t.tcpLimitSource ? LIMIT_SOURCE_LABELS[t.tcpLimitSource] : "source not recorded"}
+              {t.tcpLimitSourceNote ? `: ${t.tcpLimitSourceNote}` : ""}).
+            </>
+          ) : (
+            "Its figures are recorded, not judged."
+          )}
+        </p>
+        <p className="mt-1 text-sm text-graphite-600">
+          {t.parameterLimits.length} fitted head{" "}
+          {t.parameterLimits.length === 1 ? "parameter has a limit" : "parameters have limits"}
+          {t.parameterLimits.length ? "" : "; a head fit on a job with this version is recorded, not judged"}.
+        </p>
+      </Card>
+
       {versions.length > 1 ? (
         <Card title="Versions">
           <ul className="space-y-1 text-sm">

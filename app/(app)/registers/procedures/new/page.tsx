@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { ProcedureBuilder, EMPTY_STEP } from "@/components/procedures/procedure-builder";
+import { emptyBuilderValues } from "@/components/procedures/builder-values";
+import { ProcedureBuilder } from "@/components/procedures/procedure-builder";
 import { BuilderCaution } from "@/components/procedures/builder-caution";
 import { requirePageUser } from "@/lib/auth/session";
 import { procedureEditRefusal } from "@/lib/policy/procedures";
@@ -28,7 +29,7 @@ export default async function NewProcedurePage() {
       <BuilderCaution />
       <ProcedureBuilder
         mode="new"
-        initial={{ name: "", description: "", jobKinds: [], headModel: "", steps: [{ ...EMPTY_STEP }] }}
+        initial={emptyBuilderValues()}
         submitLabel="Create procedure"
         action={createProcedureAction}
       />

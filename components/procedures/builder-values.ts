@@ -1,0 +1,123 @@
+/**
+ * The procedure builder's form values (every field a string or a boolean, points as "12, 3, 6, 9")
+ * and how a new or stored procedure fills them. A plain module, so server pages can build the
+ * initial values that the client builder (procedure-builder.tsx) edits.
+ */
+import { HEAD_PARAMETER_KEYS, type HeadParameterKey } from "@/geometry/head/config";
+import { CLOCK_POINTS_4 } from "@/lib/domain/procedures";
+
+/** One step as the form holds it: every field a string or a boolean, points as "12, 3, 6, 9". */
+export interface BuilderStep {
+  title: string;
+  kind: string;
+  instructions: string;
+  safety: string;
+  quantity: string;
+  unit: string;
+  lower: string;
+  upper: string;
+  decisionRule: string;
+  limitSource: string;
+  limitSourceNote: string;
+  points: string;
+  pointResult: string;
+  distanceMm: string;
+  recordUnit: string;
+  photoRequired: boolean;
+}
+
+export interface BuilderValues extends BuilderHeadJudging {
+  name: string;
+  description: string;
+  jobKinds: string[];
+  headModel: string;
+  steps: BuilderStep[];
+}
+
+/** A new procedure's form: one empty step, no TCP check, no parameter limits. */
+export const emptyBuilderValues = (): BuilderValues => ({
+  name: "",
+  description: "",
+  jobKinds: [],
+  headModel: "",
+  steps: [{ ...EMPTY_STEP }],
+  ...headJudgingValues(null),
+});
+
+export const EMPTY_STEP: BuilderStep = {
+  title: "",
+  kind: "direct",
+  instructions: "",
+  safety: "",
+  quantity: "",
+  unit: "mm",
+  lower: "",
+  upper: "",
+  decisionRule: "simple",
+  limitSource: "",
+  limitSourceNote: "",
+  points: CLOCK_POINTS_4.join(", "),
+  pointResult: "tir",
+  distanceMm: "",
+  recordUnit: "",
+  photoRequired: false,
+};
+
+/** One fitted parameter's limit as the form holds it (strings; both limits empty = recorded only). */
+export interface BuilderParameterLimit {
+  parameter: HeadParameterKey;
+  lower: string;
+  upper: string;
+  decisionRule: string;
+  limitSource: string;
+  limitSourceNote: string;
+}
+
+export interface BuilderHeadJudging {
+  tcpCheckRequired: boolean;
+  tcpRangeLimitUm: string;
+  tcpDeviationLimitUm: string;
+  tcpLimitSource: string;
+  tcpLimitSourceNote: string;
+  parameterLimits: BuilderParameterLimit[];
+}
+
+const str = (v: string | number | null | undefined) => (v == null ? "" : String(v));
+
+/** The form values from what a version stores (every parameter gets a row, limited or not). */
+export function headJudgingValues(
+  t: {
+    tcpCheckRequired: boolean;
+    tcpRangeLimitUm: number | null;
+    tcpDeviationLimitUm: number | null;
+    tcpLimitSource: string | null;
+    tcpLimitSourceNote: string | null;
+    parameterLimits: {
+      parameter: string;
+      lowerLimit: number | null;
+      upperLimit: number | null;
+      decisionRule: string;
+      limitSource: string;
+      limitSourceNote: string | null;
+    }[];
+  } | null,
+): BuilderHeadJudging {
+  return {
+    tcpCheckRequired: t?.tcpCheckRequired ?? false,
+    tcpRangeLimitUm: str(t?.tcpRangeLimitUm),
+    tcpDeviationLimitUm: str(t?.tcpDeviationLimitUm),
+    tcpLimitSource: str(t?.tcpLimitSource),
+    tcpLimitSourceNote: str(t?.tcpLimitSourceNote),
+    parameterLimits: HEAD_PARAMETER_KEYS.map((parameter) => {
+      const l = t?.parameterLimits.find((x) => x.parameter === parameter);
+      return {
+        parameter,
+        lower: str(l?.lowerLimit),
+        upper: str(l?.upperLimit),
+        decisionRule: l?.decisionRule ?? "simple",
+        limitSource: str(l?.limitSource),
+        limitSourceNote: str(l?.limitSourceNote),
+      };
+    }),
+  };
+}

@@ -1,0 +1,165 @@
+"use client";
+
+/**
+ * The part of the procedure builder that judges the head as a whole rather than one step: the
+ * tool-centre-point check after compensation (asked for or not, its limits in µm and where they
+ * come from) and the limits of the fitted head parameters (µm or arc seconds as each says).
+ * Checked by the same schema as the API (lib/validations/procedures.ts).
+ */
+import { useFormContext, useWatch } from "react-hook-form";
+import { Field, FieldError, inputClass } from "@/components/ui/field";
+import type { BuilderHeadJudging, BuilderParameterLimit } from "@/components/procedures/builder-values";
+import { headParameterUnit } from "@/geometry/head/config";
+import { PARAMETER_WORDS } from "@/lib/fit-display";
+import { LIMIT_SOURCE_LABELS, LIMIT_SOURCES } from "@/lib/validations/procedures";
+
+function SourceSelect({
+  label,
+  ...props
+}: React.SelectHTMLAttributes<HTMLSelectElement> & { label?: string }) {
+  return (
+    <select aria-label={label} className={`${inputClass} text-sm`} {...props}>
+      <option value="">Choose…</option>
+      {LIMIT_SOURCES.map((s) => (
+        <option key={s} value={s}>
+          {LIMIT_SOURCE_LABELS[s]}
+        </option>
+      ))}
+    </select>
+  );
+}
+
+export function HeadJudgingFields() {
+  const form = useFormContext<BuilderHeadJudging>();
+  const rows = (useWatch({ name: "parameterLimits" }) as BuilderParameterLimit[] | undefined) ?? [];
+  return (
+    <section aria-labelledby="head-judging" className="space-y-4 border-t border-graphite-200 pt-4">
+      <div>
+        <h2 id="head-judging" className="text-lg font-semibold">
+          Judging the head as a whole
+        </h2>
+        <p className="text-sm text-graphite-600">
+          Beyond the steps: the check of the tool centre point after the values are entered in the control,
+          and the limits of the fitted head parameters. Every limit says where it comes from.
+        </p>
+      </div>
+      <fieldset className="grid gap-4 rounded-card border border-graphite-200 p-4 md:grid-cols-2">
+        <legend className="px-1 font-medium">Tool-centre-point check</legend>
+        <label className="flex min-h-touch items-center gap-2 text-sm md:col-span-2">
+          <input type="checkbox" className="size-5" {...form.register("tcpCheckRequired")} />
+          Ask for a TCP check after compensation before the report is issued
+        </label>
+        <Field
+          name="tcpRangeLimitUm"
+          label="Range of the centre in X, Y and Z, each (µm)"
+          hint="Empty: recorded, not judged."
+        >
+          <input className={`${inputClass} num`} inputMode="decimal" autoComplete="off" />
+        </Field>
+        <Field
+          name="tcpDeviationLimitUm"
+          label="Largest distance from the mean centre (µm)"
+          hint="Empty: recorded, not judged."
+        >
+          <input className={`${inputClass} num`} inputMode="decimal" autoComplete="off" />
+        </Field>
+        <Field name="tcpLimitSource" label="Where the TCP limits come from">
+          <SourceSelect />
+        </Field>
+        <Field
+          name="tcpLimitSourceNote"
+          label="TCP source note"
+          hint="The standard and clause, the maker's document, or why it is common practice."
+        >
+          <input className={inputClass} autoComplete="off" />
+        </Field>
+      </fieldset>
+      <fieldset className="rounded-card border border-graphite-200 p-4">
+        <legend className="px-1 font-medium">Limits for the fitted head parameters</legend>
+        <p className="text-xs text-graphite-600">
+          Lengths in µm, angles in arc seconds. Leave both limits empty for a parameter that is recorded, not
+          judged.
+        </p>
+        <div className="mt-2 overflow-x-auto">
+          <table className="w-full text-sm">
+            <caption className="sr-only">Limits for the fitted head parameters</caption>
+            <thead className="text-left text-graphite-600">
+              <tr>
+                <th scope="col" className="py-1 pr-2 font-medium">
+                  Parameter
+                </th>
+                <th scope="col" className="w-24 px-1 font-medium">
+                  Lower
+                </th>
+                <th scope="col" className="w-24 px-1 font-medium">
+                  Upper
+                </th>
+                <th scope="col" className="w-28 px-1 font-medium">
+                  Rule
+                </th>
+                <th scope="col" className="w-48 px-1 font-medium">
+                  Source
+                </th>
+                <th scope="col" className="px-1 font-medium">
+                  Note on the source
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {rows.map((r, i) => {
+                const words = PARAMETER_WORDS[r.parameter];
+                const at = (f: keyof BuilderParameterLimit) => `parameterLimits.${i}.${f}` as const;
+                const errors = ["lower", "upper", "limitSource", "limitSourceNote"] as const;
+                return (
+                  <tr key={r.parameter} className="border-t border-graphite-100 align-top">
+                    <th scope="row" className="py-2 pr-2 text-left font-normal">
+                      {words}
+                      <span className="block text-xs text-graphite-500">
+                        in {headParameterUnit(r.parameter) === "um" ? "µm" : "arc seconds"}
+                      </span>
+                      {errors.map((f) => (
+                        <FieldError key={f} name={at(f)} className="text-xs" />
+                      ))}
+                    </th>
+                    {(["lower", "upper"] as const).map((w) => (
+                      <td key={w} className="px-1 py-1">
+                        <input
+                          aria-label={`${words}: ${w} limit`}
+                          className={`${inputClass} num text-right text-sm`}
+                          inputMode="decimal"
+                          autoComplete="off"
+                          {...form.register(at(w))}
+                        />
+                      </td>
+                    ))}
+                    <td className="px-1 py-1">
+                      <select
+                        aria-label={`${words}: decision rule`}
+                        className={`${inputClass} text-sm`}
+                        {...form.register(at("decisionRule"))}
+                      >
+                        <option value="simple">Simple</option>
+                        <option value="guarded">Guarded</option>
+                      </select>
+                    </td>
+                    <td className="px-1 py-1">
+                      <SourceSelect label={`${words}: limit source`} {...form.register(at("limitSource"))} />
+                    </td>
+                    <td className="px-1 py-1">
+                      <input
+                        aria-label={`${words}: note on the source`}
+                        className={`${inputClass} text-sm`}
+                        autoComplete="off"
+                        {...form.register(at("limitSourceNote"))}
+                      />
+                    </td>
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+        </div>
+      </fieldset>
+    </section>
+  );
+}
