@@ -2,28 +2,18 @@
 // schedules it in the machine's time zone and assigns the installer; the installer gets the
 // e-mail (delivered through the outbox to the local SMTP fake) and finds the job under "To measure"
 // on the tablet. Screenshots of the board and the form at 1440×900 and 820×1180.
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext } from "playwright-core";
-import { mailTo, newContext, screenshotPath, scrollsSideways, signIn, TABLET, pageAs } from "./browser";
+import { describe, expect, it } from "vitest";
+import { contextForFile, mailTo, screenshotPath, scrollsSideways, signIn, TABLET, pageAs } from "./browser";
 import { pickFirst } from "./steps";
 
 const OFFICE = { width: 1440, height: 900 };
-let office: BrowserContext;
-let tablet: BrowserContext;
+const office = contextForFile(OFFICE);
+const tablet = contextForFile(TABLET);
 let reference = "";
-
-beforeAll(async () => {
-  office = await newContext(OFFICE);
-  tablet = await newContext(TABLET);
-});
-afterAll(async () => {
-  await office?.close();
-  await tablet?.close();
-});
 
 describe("jobs office journey", () => {
   it("the administrator opens, schedules and assigns a new job", async () => {
-    const p = await office.newPage();
+    const p = await office().newPage();
     await signIn(p, "admin@halvard.example");
     await p.waitForURL("**/jobs");
     // The board shows the administrator's queue with its count.
@@ -78,7 +68,7 @@ describe("jobs office journey", () => {
   });
 
   it("the installer sees the job under To measure on the tablet", async () => {
-    const p = await tablet.newPage();
+    const p = await tablet().newPage();
     await signIn(p, "installer@halvard.example");
     await p.waitForURL("**/jobs");
     const chip = p.getByRole("button", { name: /To measure/ });
@@ -98,7 +88,7 @@ describe("jobs office journey", () => {
   });
 
   it("the new-job form fits the tablet width", async () => {
-    const p = await pageAs(tablet, "admin@halvard.example");
+    const p = await pageAs(tablet(), "admin@halvard.example");
     await p.goto("/jobs/new");
     await expect.poll(() => p.getByRole("heading", { name: "New job" }).count()).toBe(1);
     expect(await scrollsSideways(p)).toBe(false);
@@ -109,7 +99,7 @@ describe("jobs office journey", () => {
   });
 
   it("the office puts the job on hold, releases it and cancels it with a reason; it stays readable", async () => {
-    const p = await pageAs(office, "admin@halvard.example");
+    const p = await pageAs(office(), "admin@halvard.example");
     await p.getByRole("link", { name: reference }).click();
     await p.waitForURL(/\/jobs\/[0-9a-f-]{36}$/);
     const status = () =>

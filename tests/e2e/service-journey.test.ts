@@ -5,9 +5,9 @@
 // tablet (820×1180), records the four clock-position readings and the check, and attaches a photo;
 // the engineer opens the job's report page and its draft preview, whose text (read back with
 // pdftotext) prints the points behind the run-out and lists the photo in its appendix by SHA-256.
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Page } from "playwright-core";
-import { mailTo, newContext, screenshotPath, scrollsSideways, signIn, TABLET } from "./browser";
+import { describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { contextForFile, mailTo, screenshotPath, scrollsSideways, signIn, TABLET } from "./browser";
 import {
   attachPhoto,
   buildPhotoRecordStep,
@@ -22,25 +22,16 @@ const OFFICE = { width: 1440, height: 900 };
 const TAG = Date.now().toString(36);
 const PROCEDURE = `Head on its collar ${TAG}`;
 const TITLE = `Head installation, bay 4 (${TAG})`;
-let office: BrowserContext;
-let tablet: BrowserContext;
+const office = contextForFile(OFFICE);
+const tablet = contextForFile(TABLET);
 let jobId = "";
 let reference = "";
-
-beforeAll(async () => {
-  office = await newContext(OFFICE);
-  tablet = await newContext(TABLET);
-});
-afterAll(async () => {
-  await office?.close();
-  await tablet?.close();
-});
 
 const step = (p: Page, n: number) => p.getByRole("listitem", { name: new RegExp(`^Step ${n}:`) });
 
 describe("a service job from the procedure to the report", () => {
   it("the administrator builds the procedure", async () => {
-    const p = await office.newPage();
+    const p = await office().newPage();
     await signIn(p, "admin@halvard.example");
     await p.waitForURL("**/jobs");
     await p.goto("/registers/procedures/new");
@@ -71,7 +62,7 @@ describe("a service job from the procedure to the report", () => {
   });
 
   it("opens a job with it and assigns the installer", async () => {
-    const p = await office.newPage();
+    const p = await office().newPage();
     await p.goto("/jobs");
     await p.getByRole("link", { name: "New job" }).click();
     await p.waitForURL("**/jobs/new");
@@ -107,7 +98,7 @@ describe("a service job from the procedure to the report", () => {
     expect(link, "the e-mail links to the job").toBeTruthy();
     expect(new URL(link!).pathname).toBe(`/jobs/${jobId}`);
 
-    const p = await tablet.newPage();
+    const p = await tablet().newPage();
     await p.goto(new URL(link!).pathname);
     await p.waitForURL(/\/login\?callbackUrl=/);
     await signIn(p, "installer@halvard.example");
@@ -162,8 +153,8 @@ describe("a service job from the procedure to the report", () => {
 
   it("the job's report prints the points behind the run-out and lists the photo in its appendix", async () => {
     expect(jobId).not.toBe("");
-    await office.clearCookies();
-    const p = await office.newPage();
+    await office().clearCookies();
+    const p = await office().newPage();
     await signIn(p, "engineer@halvard.example");
     await p.waitForURL("**/jobs");
     await p.goto(`/jobs/${jobId}/report`);

@@ -8,7 +8,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { GET as getRoute, PUT as putRoute } from "@/app/api/jobs/[id]/control-values/route";
 import { db } from "@/db";
 import { runHeadFit } from "@/db/queries/analyses";
-import { approveConfirmed, uploadDemoProbe } from "./fixtures";
+import { approveConfirmed, insertTestJob, uploadDemoProbe } from "./fixtures";
 import { changeJobStatus, createJobFromTemplate } from "@/db/queries/job-status";
 import { getReportContent, issueReport } from "@/db/queries/reports";
 import { jobStateSha256, signJobWork } from "@/db/queries/signatures";
@@ -324,22 +324,14 @@ describe("a procedure that asks for a tool-centre-point check", () => {
         tcpDeviationLimitUm: 10,
       })
       .returning();
-    const base = await jobBaseOf("TR-2026-0052");
-    const [job] = await db
-      .insert(jobs)
-      .values({
-        reference: `TR-TCP-${Date.now().toString(36)}`,
-        title: "TCP check job",
-        kind: "after_crash",
-        status: "approved",
-        customerId: base.customerId,
-        machineId: base.machineId,
-        headId: base.headId,
-        templateId: t!.id,
-        assignedInstallerId: as.installer!.id,
-      })
-      .returning();
-    const jobId = job!.id;
+    const jobId = await insertTestJob({
+      tag: "TCP",
+      title: "TCP check job",
+      kind: "after_crash",
+      status: "approved",
+      template: true,
+      base: { ...(await jobBaseOf("TR-2026-0052")), templateId: t!.id },
+    });
     const sign = async () => {
       await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
       await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });

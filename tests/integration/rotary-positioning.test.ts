@@ -27,6 +27,7 @@ import { pdfText } from "../pdf-tools";
 import { publicDataCsv } from "../fixtures/iso230-2-public";
 import { upload } from "./dataset-helpers";
 import { request, signInAs } from "./helpers";
+import { insertTestJob } from "./fixtures";
 import { jobBaseOf } from "./ready-job";
 
 const PW = "trammel-demo";
@@ -64,22 +65,14 @@ beforeAll(async () => {
     },
   ]);
   // Head TH-2241 (invented demo head): primary axis C, secondary A.
-  const base = await jobBaseOf("TR-2026-0052");
-  const [job] = await db
-    .insert(jobs)
-    .values({
-      reference: `TR-ROT-${Date.now().toString(36)}`,
-      title: "Rotary positioning job",
-      kind: "after_crash",
-      status: "approved",
-      customerId: base.customerId,
-      machineId: base.machineId,
-      headId: base.headId,
-      templateId: t!.id,
-      assignedInstallerId: as.installer!.id,
-    })
-    .returning();
-  jobId = job!.id;
+  jobId = await insertTestJob({
+    tag: "ROT",
+    title: "Rotary positioning job",
+    kind: "after_crash",
+    status: "approved",
+    template: true,
+    base: { ...(await jobBaseOf("TR-2026-0052")), templateId: t!.id },
+  });
 }, 30_000);
 
 const codes = async () => (await getReadiness(as.engineer!, jobId))!.blockers.map((b) => b.code);

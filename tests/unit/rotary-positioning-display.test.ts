@@ -8,7 +8,7 @@ import { readRotaryPositioningCsv, rotaryPositioning, rotaryPositioningToJson } 
 import { demoRotaryPositioningCsv } from "@/db/seed-positioning";
 import { positioningChartLayout } from "@/lib/positioning-chart";
 import { readingSection, reportConformity } from "@/lib/report/build";
-import { readiness, type ReadinessInput } from "@/lib/report/readiness";
+import { readiness } from "@/lib/report/readiness";
 import { positioningSection } from "@/lib/report/sections/positioning";
 import {
   arcsecText,
@@ -16,6 +16,7 @@ import {
   type PositioningLimit,
   type RotaryPositioningSummary,
 } from "@/lib/rotary-positioning-display";
+import { signedEmptyJob } from "./readiness-inputs";
 
 const summary: RotaryPositioningSummary = {
   unit: "arcsec",
@@ -189,21 +190,7 @@ describe("the positioning chart's layout", () => {
 });
 
 describe("readiness and the statement of conformity", () => {
-  const base: ReadinessInput = {
-    jobId: "j",
-    steps: [],
-    instruments: [],
-    datasets: [],
-    requiresFit: false,
-    approvedFit: null,
-    results: [],
-    signatures: [
-      { meaning: "performed", signerName: "A", stateSha256: "s" },
-      { meaning: "inspected", signerName: "B", stateSha256: "s" },
-    ],
-    currentStateSha256: "s",
-    deviationSubjects: [],
-  };
+  const base = signedEmptyJob;
 
   it("blocks issue while an axis the procedure limits has no positioning test", () => {
     const r = readiness({ ...base, rotaryPositioning: { required: ["primary"], present: [] } });

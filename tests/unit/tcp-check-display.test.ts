@@ -5,8 +5,9 @@ import { describe, expect, it } from "vitest";
 import { tcpCheck } from "@/geometry";
 import { readSphereProbeCsv } from "@/geometry";
 import { demoTcpCheckCsv } from "@/db/seed-control";
-import { readiness, type ReadinessInput } from "@/lib/report/readiness";
+import { readiness } from "@/lib/report/readiness";
 import { judgeTcpCheck, tcpCheckSubject } from "@/lib/tcp-check-display";
+import { signedEmptyJob } from "./readiness-inputs";
 
 const summary = {
   range_um: { x: 8.2, y: 3.1, z: 12.5 },
@@ -54,21 +55,7 @@ describe("judging a TCP check", () => {
 });
 
 describe("readiness with a procedure that asks for a TCP check", () => {
-  const base: ReadinessInput = {
-    jobId: "j",
-    steps: [],
-    instruments: [],
-    datasets: [],
-    requiresFit: false,
-    approvedFit: null,
-    results: [],
-    signatures: [
-      { meaning: "performed", signerName: "A", stateSha256: "s" },
-      { meaning: "inspected", signerName: "B", stateSha256: "s" },
-    ],
-    currentStateSha256: "s",
-    deviationSubjects: [],
-  };
+  const base = signedEmptyJob;
 
   it("blocks issue while no TCP check is stored, and names where to resolve it", () => {
     const r = readiness({ ...base, tcpCheck: { required: true, latest: null } });
