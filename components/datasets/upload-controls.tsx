@@ -129,22 +129,13 @@ export function KindOptions({
         </label>
       ) : null}
       {kind === "test_part" ? (
-        <label className="block max-w-md space-y-1">
-          <span className="text-sm font-medium text-graphite-800">
-            Expanded uncertainty U (k = 2) of the part measurement, mm
-          </span>
-          <input
-            inputMode="decimal"
-            value={uncertainty}
-            placeholder="e.g. 0.002"
-            onChange={(e) => set({ uncertainty: e.target.value })}
-            className="num block min-h-touch w-40 rounded-lg border border-graphite-300 px-3 text-right"
-          />
-          <span className="block text-xs text-graphite-600">
-            From the measuring machine&apos;s calibration; converted for rows in inch or µm. Empty counts as
-            0.
-          </span>
-        </label>
+        <UncertaintyInput
+          label="Expanded uncertainty U (k = 2) of the part measurement, mm"
+          value={uncertainty}
+          placeholder="e.g. 0.002"
+          onChange={(v) => set({ uncertainty: v })}
+          hint="From the measuring machine's calibration; converted for rows in inch or µm. Empty counts as 0."
+        />
       ) : null}
       {kind === "rotary_positioning" ? (
         <>
@@ -155,21 +146,13 @@ export function KindOptions({
             options={HEAD_AXIS_ROLES.map((r) => ({ value: r, label: HEAD_AXIS_ROLE_WORDS[r] }))}
             onChange={(v) => set({ axis: v })}
           />
-          <label className="block max-w-md space-y-1">
-            <span className="text-sm font-medium text-graphite-800">
-              Expanded uncertainty U (k = 2) of the angle measurement, ″
-            </span>
-            <input
-              inputMode="decimal"
-              value={uncertainty}
-              placeholder="e.g. 0.5"
-              onChange={(e) => set({ uncertainty: e.target.value })}
-              className="num block min-h-touch w-40 rounded-lg border border-graphite-300 px-3 text-right"
-            />
-            <span className="block text-xs text-graphite-600">
-              From the reference&apos;s calibration; the guarded decision rule needs it. Empty: not stated.
-            </span>
-          </label>
+          <UncertaintyInput
+            label="Expanded uncertainty U (k = 2) of the angle measurement, ″"
+            value={uncertainty}
+            placeholder="e.g. 0.5"
+            onChange={(v) => set({ uncertainty: v })}
+            hint="From the reference's calibration; the guarded decision rule needs it. Empty: not stated."
+          />
         </>
       ) : null}
       {scan?.delimiter === ";" ? (
@@ -238,5 +221,34 @@ export function DropZone({ file, onPick }: { file: File | null; onPick: (f: File
         </p>
       ) : null}
     </div>
+  );
+}
+
+/** The expanded uncertainty U (k = 2) a file's measurements carry, typed beside the upload. */
+function UncertaintyInput({
+  label,
+  value,
+  placeholder,
+  onChange,
+  hint,
+}: {
+  label: string;
+  value: string;
+  placeholder: string;
+  onChange: (value: string) => void;
+  hint: string;
+}) {
+  return (
+    <label className="block max-w-md space-y-1">
+      <span className="text-sm font-medium text-graphite-800">{label}</span>
+      <input
+        inputMode="decimal"
+        value={value}
+        placeholder={placeholder}
+        onChange={(e) => onChange(e.target.value)}
+        className="num block min-h-touch w-40 rounded-lg border border-graphite-300 px-3 text-right"
+      />
+      <span className="block text-xs text-graphite-600">{hint}</span>
+    </label>
   );
 }

@@ -29,6 +29,16 @@ function SourceSelect({
   );
 }
 
+/** The head-parameter limits table's columns: heading and width. */
+const LIMIT_COLUMNS: readonly [string, string][] = [
+  ["Parameter", ""],
+  ["Lower", "w-24"],
+  ["Upper", "w-24"],
+  ["Rule", "w-28"],
+  ["Source", "w-48"],
+  ["Note on the source", ""],
+];
+
 export function HeadJudgingFields() {
   const form = useFormContext<BuilderHeadJudging>();
   const rows = (useWatch({ name: "parameterLimits" }) as BuilderParameterLimit[] | undefined) ?? [];
@@ -85,24 +95,15 @@ export function HeadJudgingFields() {
             <caption className="sr-only">Limits for the fitted head parameters</caption>
             <thead className="text-left text-graphite-600">
               <tr>
-                <th scope="col" className="py-1 pr-2 font-medium">
-                  Parameter
-                </th>
-                <th scope="col" className="w-24 px-1 font-medium">
-                  Lower
-                </th>
-                <th scope="col" className="w-24 px-1 font-medium">
-                  Upper
-                </th>
-                <th scope="col" className="w-28 px-1 font-medium">
-                  Rule
-                </th>
-                <th scope="col" className="w-48 px-1 font-medium">
-                  Source
-                </th>
-                <th scope="col" className="px-1 font-medium">
-                  Note on the source
-                </th>
+                {LIMIT_COLUMNS.map(([label, width], i) => (
+                  <th
+                    key={label}
+                    scope="col"
+                    className={[i ? "px-1" : "py-1 pr-2", width, "font-medium"].filter(Boolean).join(" ")}
+                  >
+                    {label}
+                  </th>
+                ))}
               </tr>
             </thead>
             <tbody>
