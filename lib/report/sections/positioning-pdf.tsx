@@ -167,7 +167,8 @@ export function PositioningPdf({ tests }: { tests: ReportPositioningTest[] | und
               {t.rows.map((r) => (
                 <View key={r.symbol} style={s.tr}>
                   <Text style={[s.td, { width: COLS[0][1] }]}>
-                    {r.quantity} ({r.symbol})
+                    {/* One string, the symbol bound to its last word: split fragments broke as "(-M)". */}
+                    {`${r.quantity}\u00a0(${r.symbol})`}
                   </Text>
                   <Text style={[s.td, s.num, { width: COLS[1][1] }]}>{r.both}</Text>
                   <Text style={[s.td, s.num, { width: COLS[2][1] }]}>{r.pos}</Text>
