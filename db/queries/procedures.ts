@@ -45,24 +45,55 @@ async function insertSteps(tx: Tx, templateId: string, rows: ProcedureRows) {
   await tx.insert(templateSteps).values(rows.steps.map((s) => ({ ...s, templateId })));
 }
 
+type LimitTable = typeof templateParameterLimits | typeof templatePositioningLimits;
+
 /**
- * The head-parameter limits of a version: those sent replace what it had; none sent, a version
- * changed in place keeps its own and a new version copies those of `keepFrom`.
+ * The limits of a version in one limits table (head parameters or rotary-axis positioning): those
+ * sent replace what it had; none sent, a version changed in place keeps its own and a new version
+ * copies those of `keepFrom`.
  */
-async function writeParameterLimits(tx: Tx, templateId: string, rows: ProcedureRows, keepFrom: string) {
+async function writeLimits<T extends LimitTable>(
+  tx: Tx,
+  table: T,
+  templateId: string,
+  sent: Omit<T["$inferInsert"], "templateId">[] | null,
+  keepFrom: string,
+) {
+  // Both tables key their rows by id and templateId; the cast lets one set of queries serve both.
+  const t = table as typeof templateParameterLimits;
   if (templateId === keepFrom) {
-    if (rows.parameterLimits === null) return;
-    await tx.delete(templateParameterLimits).where(eq(templateParameterLimits.templateId, templateId));
+    if (sent === null) return;
+    await tx.delete(t).where(eq(t.templateId, templateId));
   }
-  const limits: Omit<typeof templateParameterLimits.$inferInsert, "templateId">[] =
-    rows.parameterLimits ??
+  const limits: object[] =
+    sent ??
     (await tx
       .select()
-      .from(templateParameterLimits)
-      .where(eq(templateParameterLimits.templateId, keepFrom))
+      .from(t)
+      .where(eq(t.templateId, keepFrom))
       .then((ls) => ls.map(({ id: _i, templateId: _t, ...l }) => l)));
-  if (limits.length)
-    await tx.insert(templateParameterLimits).values(limits.map((l) => ({ ...l, templateId })));
+  if (limits.length) await tx.insert(t).values(limits.map((l) => ({ ...l, templateId }) as never));
+}
+
+/** Both limits tables of a version (see writeLimits). */
+async function writeAllLimits(tx: Tx, templateId: string, rows: ProcedureRows, keepFrom: string) {
+  await writeLimits(tx, templateParameterLimits, templateId, rows.parameterLimits, keepFrom);
+  await writeLimits(tx, templatePositioningLimits, templateId, rows.positioningLimits, keepFrom);
+}
+
+/** A version's stored limits rows without their ids, for the audit trail. */
+async function limitsOf(tx: Tx, templateId: string) {
+  const strip = <R extends { id: string; templateId: string }>({ id: _i, templateId: _t, ...l }: R) => l;
+  const parameterLimits = await tx
+    .select()
+    .from(templateParameterLimits)
+    .where(eq(templateParameterLimits.templateId, templateId));
+  const positioningLimits = await tx
+    .select()
+    .from(templatePositioningLimits)
+    .where(eq(templatePositioningLimits.templateId, templateId))
+    .orderBy(asc(templatePositioningLimits.axis), asc(templatePositioningLimits.quantity));
+  return { parameterLimits: parameterLimits.map(strip), positioningLimits: positioningLimits.map(strip) };
 }
 
 /** The TCP-check columns of a version: those sent, or (none sent) those of `base`. */
@@ -206,10 +237,17 @@ export async function createProcedure(actor: Actor, body: unknown) {
       })
       .returning();
     await insertSteps(tx, t!.id, rows);
-    if (rows.parameterLimits?.length)
-      await tx
-        .insert(templateParameterLimits)
-        .values(rows.parameterLimits.map((l) => ({ ...l, templateId: t!.id })));
+    // A new procedure has nothing to keep: what is not sent is empty.
+    await writeAllLimits(
+      tx,
+      t!.id,
+      {
+        ...rows,
+        parameterLimits: rows.parameterLimits ?? [],
+        positioningLimits: rows.positioningLimits ?? [],
+      },
+      t!.id,
+    );
     await appendAudit(tx, actor, {
       action: "procedure.created",
       entity: { type: "procedure_template", id: t!.id },
@@ -221,6 +259,7 @@ export async function createProcedure(actor: Actor, body: unknown) {
         steps: rows.steps,
         tcp: rows.tcp,
         parameterLimits: rows.parameterLimits,
+        positioningLimits: rows.positioningLimits,
       },
     });
     return { ...t!, steps: rows.steps };
@@ -268,13 +307,10 @@ export async function saveProcedureVersion(actor: Actor, id: string, body: unkno
     };
     if (current && current.id === id && versionPlan(n) === "replace") {
       const oldSteps = await tx.select().from(templateSteps).where(eq(templateSteps.templateId, id));
-      const oldLimits = await tx
-        .select()
-        .from(templateParameterLimits)
-        .where(eq(templateParameterLimits.templateId, id));
+      const oldLimits = await limitsOf(tx, id);
       await tx.delete(templateSteps).where(eq(templateSteps.templateId, id));
       await insertSteps(tx, id, rows);
-      await writeParameterLimits(tx, id, rows, id);
+      await writeAllLimits(tx, id, rows, id);
       const [t] = await tx
         .update(procedureTemplates)
         .set(meta)
@@ -289,9 +325,9 @@ export async function saveProcedureVersion(actor: Actor, id: string, body: unkno
           headModel: base!.headModel,
           ...tcpColumns({ ...rows, tcp: null }, base!),
           steps: oldSteps.map(({ id: _i, templateId: _t, ...s }) => s),
-          parameterLimits: oldLimits.map(({ id: _i, templateId: _t, ...l }) => l),
+          ...oldLimits,
         },
-        newValues: { version: t!.version, ...meta, steps: rows.steps, parameterLimits: rows.parameterLimits },
+        newValues: { version: t!.version, ...meta, steps: rows.steps, ...(await limitsOf(tx, id)) },
       });
       return { ...t!, steps: rows.steps, replaced: true };
     }
@@ -314,13 +350,12 @@ export async function saveProcedureVersion(actor: Actor, id: string, body: unkno
       })
       .returning();
     await insertSteps(tx, t!.id, rows);
-    await writeParameterLimits(tx, t!.id, rows, base!.id);
-    await copyPositioningLimits(tx, base!.id, t!.id);
+    await writeAllLimits(tx, t!.id, rows, base!.id);
     await appendAudit(tx, actor, {
       action: "procedure.versioned",
       entity: { type: "procedure_template", id: t!.id },
       oldValues: { id: base!.id, version: base!.version },
-      newValues: { version: t!.version, ...meta, steps: rows.steps, parameterLimits: rows.parameterLimits },
+      newValues: { version: t!.version, ...meta, steps: rows.steps, ...(await limitsOf(tx, t!.id)) },
     });
     return { ...t!, steps: rows.steps, replaced: false };
   });
@@ -347,20 +382,4 @@ export async function setProcedureRetired(actor: Actor, id: string, retired: boo
     });
     return { ...t, retiredAt: at };
   });
-}
-
-/** A new version keeps the rotary-axis positioning limits of the version it was made from. */
-export async function copyPositioningLimits(
-  tx: Pick<typeof db, "select" | "insert">,
-  fromTemplateId: string,
-  toTemplateId: string,
-) {
-  const rows = await tx
-    .select()
-    .from(templatePositioningLimits)
-    .where(eq(templatePositioningLimits.templateId, fromTemplateId));
-  if (rows.length)
-    await tx
-      .insert(templatePositioningLimits)
-      .values(rows.map(({ id: _i, templateId: _t, ...l }) => ({ ...l, templateId: toTemplateId })));
 }

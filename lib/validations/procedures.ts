@@ -10,6 +10,12 @@ import { JOB_KINDS, type JobKind } from "@/lib/domain/jobs";
 import { JUDGED_STEP_KINDS, MULTI_POINT_RESULTS, STEP_KINDS, type StepKind } from "@/lib/domain/procedures";
 import { fromCanonical, toCanonical, unitKind, type EntryUnit } from "@/lib/units";
 import { HEAD_PARAMETER_KEYS, type HeadParameterKey } from "@/geometry/head/config";
+import {
+  HEAD_AXIS_ROLES,
+  POSITIONING_QUANTITIES,
+  type HeadAxisRole,
+  type PositioningQuantity,
+} from "@/lib/domain/positioning";
 
 export const LIMIT_UNITS = ["mm", "um", "in", "arcsec"] as const satisfies readonly EntryUnit[];
 export const LIMIT_SOURCES = ["standard", "maker_manual", "customer_spec", "common_practice"] as const;
@@ -90,6 +96,18 @@ export const parameterLimitSchema = z.object({
 });
 
 /**
+ * An upper limit in arc seconds for one ISO 230-2 quantity (bidirectional A, E, M, R or B) of one
+ * rotary axis of the head; an empty limit means that quantity is recorded, not judged.
+ */
+export const positioningLimitSchema = z.object({
+  axis: z.enum(HEAD_AXIS_ROLES, { message: "Choose the primary (rotary) or the secondary (tilt) axis." }),
+  quantity: z.enum(POSITIONING_QUANTITIES, { message: "Choose one of A, E, M, R or B (ISO 230-2)." }),
+  upper: limit,
+  limitSource: choice(z.enum(LIMIT_SOURCES)),
+  limitSourceNote: text(1000),
+});
+
+/**
  * What judges the head as a whole: the tool-centre-point check after compensation (limits in µm,
  * with their source) and the limits of the fitted head parameters. Left out (undefined), a new
  * version keeps what the version it replaces had; the builder always sends them.
@@ -101,6 +119,10 @@ const wholeHeadFields = {
   tcpLimitSource: choice(z.enum(LIMIT_SOURCES)).optional(),
   tcpLimitSourceNote: text(1000).optional(),
   parameterLimits: z.array(parameterLimitSchema).max(HEAD_PARAMETER_KEYS.length).optional(),
+  positioningLimits: z
+    .array(positioningLimitSchema)
+    .max(HEAD_AXIS_ROLES.length * POSITIONING_QUANTITIES.length)
+    .optional(),
 };
 
 export const procedureSchema = z.object({
@@ -165,6 +187,15 @@ export interface ParameterLimitRow {
   limitSourceNote: string | null;
 }
 
+/** One row of template_positioning_limits (without its template). */
+export interface PositioningLimitRow {
+  axis: HeadAxisRole;
+  quantity: PositioningQuantity;
+  upperLimitArcsec: number;
+  limitSource: LimitSource;
+  limitSourceNote: string | null;
+}
+
 export interface ProcedureRows {
   name: string | null;
   description: string | null;
@@ -175,6 +206,8 @@ export interface ProcedureRows {
   tcp: TcpRows | null;
   /** null: not sent; a new version keeps the parameter limits of the version it replaces. */
   parameterLimits: ParameterLimitRow[] | null;
+  /** null: not sent; a new version keeps the positioning limits of the version it replaces. */
+  positioningLimits: PositioningLimitRow[] | null;
 }
 
 export interface ProcedureIssue {
@@ -336,6 +369,34 @@ export function procedureRows(
       });
     });
   }
+  let positioningLimits: PositioningLimitRow[] | null = null;
+  if (input.positioningLimits !== undefined) {
+    positioningLimits = [];
+    const seen = new Set<string>();
+    input.positioningLimits.forEach((l, i) => {
+      const at = (f: string) => `positioningLimits.${i}.${f}`;
+      const key = `${l.axis}:${l.quantity}`;
+      if (seen.has(key))
+        issues.push({ field: at("quantity"), message: "This axis has a limit for this quantity already." });
+      seen.add(key);
+      const upper = l.upper ?? null;
+      // An empty limit: the quantity is recorded, not judged.
+      if (upper === null) return;
+      if (upper <= 0)
+        issues.push({
+          field: at("upper"),
+          message: "A positioning limit is a positive number of arc seconds.",
+        });
+      sourceIssues(at, l.limitSource, l.limitSourceNote);
+      positioningLimits!.push({
+        axis: l.axis,
+        quantity: l.quantity,
+        upperLimitArcsec: upper,
+        limitSource: l.limitSource ?? "common_practice",
+        limitSourceNote: l.limitSourceNote ?? null,
+      });
+    });
+  }
   if (issues.length) return { rows: null, issues };
   const kinds = [...(input.jobKind ? [input.jobKind] : []), ...(input.jobKinds ?? [])].map(normaliseJobKind);
   return {
@@ -347,6 +408,7 @@ export function procedureRows(
       steps,
       tcp,
       parameterLimits,
+      positioningLimits,
     },
     issues: [],
   };

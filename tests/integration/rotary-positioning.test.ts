@@ -5,9 +5,11 @@
 // × 3600 here: the same numbers read as degrees give arc seconds); then a procedure that limits
 // the primary axis blocks issue until a test is stored, judges it, takes a deviation for its FAIL,
 // and the report (content and the PDF read back with pdftotext) prints section 5.4.
-import { eq } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET as draftRoute } from "@/app/api/jobs/[id]/report/draft/route";
+import { GET as procedureGet } from "@/app/api/procedures/[id]/route";
+import { POST as versionPost } from "@/app/api/procedures/[id]/versions/route";
 import { db } from "@/db";
 import {
   jobRotaryPositioning,
@@ -20,7 +22,7 @@ import { getReportContent, issueReport } from "@/db/queries/reports";
 import { getJobDetail } from "@/db/queries/jobs";
 import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
-import { datasets, jobs, procedureTemplates, templatePositioningLimits } from "@/db/schema";
+import { auditEvents, datasets, jobs, procedureTemplates, templatePositioningLimits } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
 import { rotaryPositioningSubject } from "@/lib/rotary-positioning-display";
 import { pdfText } from "../pdf-tools";
@@ -241,4 +243,115 @@ describe("a new procedure version", () => {
       ["primary", "R", 0.3, "standard"],
     ]);
   });
+
+  it("takes new limits through the API's version body, reads them back, and judges a job on that version by them", async () => {
+    await signInAs("admin@halvard.example");
+    const [job] = await db.select({ templateId: jobs.templateId }).from(jobs).where(eq(jobs.id, jobId));
+    const from = job!.templateId!;
+    const post = (body: unknown, id = from) =>
+      versionPost(
+        request(`/api/procedures/${id}/versions`, {
+          method: "POST",
+          headers: { "content-type": "application/json" },
+          body: JSON.stringify(body),
+        }),
+        p(id),
+      );
+    const steps = [{ title: "Findings", kind: "note" }];
+    // A limit without its source is refused, naming the field; nothing is stored.
+    const refused = await post({
+      steps,
+      positioningLimits: [{ axis: "primary", quantity: "A", upper: 0.4 }],
+    });
+    expect(refused.status).toBe(422);
+    expect((await refused.json()).error.issues.map((i: { field: string }) => i.field)).toEqual([
+      "positioningLimits.0.limitSource",
+    ]);
+    const unknown = await post({ steps, positioningLimits: [{ axis: "primary", quantity: "Q", upper: 1 }] });
+    expect(unknown.status).toBe(422);
+    expect((await unknown.json()).error.issues.map((i: { field: string }) => i.field)).toEqual([
+      "positioningLimits.0.quantity",
+    ]);
+
+    // A job follows `from`, so the body becomes a new version with the new limits.
+    const res = await post({
+      steps,
+      positioningLimits: [
+        {
+          axis: "primary",
+          quantity: "A",
+          upper: "0.4",
+          limitSource: "maker_manual",
+          limitSourceNote: "Head data sheet",
+        },
+        { axis: "primary", quantity: "E", upper: 0.1, limitSource: "common_practice" },
+        { axis: "secondary", quantity: "R", upper: "", limitSource: "" },
+      ],
+    });
+    expect(res.status).toBe(201);
+    const { procedure } = await res.json();
+    const read = await (
+      await procedureGet(request(`/api/procedures/${procedure.id}`), p(procedure.id))
+    ).json();
+    const rowsOf = (ls: ReadonlyArray<object>) =>
+      (ls as Array<Record<string, unknown>>).map((l) => [
+        l.axis,
+        l.quantity,
+        l.upperLimitArcsec,
+        l.limitSource,
+        l.limitSourceNote,
+      ]);
+    expect(rowsOf(read.procedure.positioningLimits)).toEqual([
+      ["primary", "A", 0.4, "maker_manual", "Head data sheet"],
+      ["primary", "E", 0.1, "common_practice", null],
+    ]);
+    // The version it came from keeps its own.
+    expect((await positioningLimitsOfTemplate(from)).map((l) => [l.quantity, l.upperLimitArcsec])).toEqual([
+      ["A", 0.25],
+      ["R", 0.3],
+    ]);
+    const [audit] = await db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.entityId, procedure.id), eq(auditEvents.action, "procedure.versioned")));
+    expect(
+      rowsOf((audit!.newValues as { positioningLimits: Array<Record<string, unknown>> }).positioningLimits),
+    ).toEqual(rowsOf(read.procedure.positioningLimits));
+
+    // Saved again without them (no job follows it yet, so in place), the version keeps them.
+    const again = await post({ steps: [{ title: "Findings and photos", kind: "note" }] }, procedure.id);
+    expect(again.status).toBe(200);
+    expect(rowsOf(await positioningLimitsOfTemplate(procedure.id))).toEqual(
+      rowsOf(read.procedure.positioningLimits),
+    );
+
+    // A job on the new version: the public data set (ecmccfg fat_sat report, × 3600) is judged by
+    // the new limits: A 0.32″ ≤ 0.4″ passes, E 0.13″ > 0.1″ fails.
+    const newJob = await insertTestJob({
+      tag: "ROT2",
+      title: "Rotary positioning job on the new version",
+      kind: "after_crash",
+      status: "approved",
+      template: true,
+      base: { ...(await jobBaseOf("TR-2026-0052")), templateId: procedure.id },
+    });
+    await signInAs("installer@halvard.example");
+    const up = await upload(
+      newJob,
+      Buffer.from(publicDataCsv("C")),
+      { kind: "rotary_positioning", phase: "post", axis: "primary" },
+      "c-axis-new-limits.csv",
+    );
+    expect(up.status).toBe(201);
+    const judged = await jobRotaryPositioning(positioningJobOf((await getJobDetail(as.engineer!, newJob))!));
+    expect(judged.required).toEqual(["primary"]);
+    expect(
+      judged.latest
+        .primary!.view.rows.filter((r) => r.decision !== "recorded")
+        .map((r) => [r.symbol, r.limitText, r.decision]),
+    ).toEqual([
+      ["A", "≤ 0.40″", "pass"],
+      ["E", "≤ 0.10″", "fail"],
+    ]);
+  }, 60_000);
 });

@@ -130,3 +130,94 @@ describe("starter library", () => {
         expect(s.limitSourceNote, s.title).toBeTruthy();
   });
 });
+
+describe("positioning limits of the rotary axes", () => {
+  const withLimits = (positioningLimits: unknown) => ({ ...one({ kind: "note" }), positioningLimits });
+  /** Parse and check; zod's own issues come back as field paths, like the API's 422. */
+  const fieldsOf = (body: unknown) => {
+    const parsed = procedureSchema.safeParse(body);
+    if (!parsed.success) return parsed.error.issues.map((i) => i.path.join("."));
+    return procedureRows(parsed.data).issues.map((i) => i.field);
+  };
+
+  it("store an upper limit in arc seconds per axis and ISO 230-2 quantity, with its source", () => {
+    // The bidirectional quantities A, E, M, R and B are those ISO 230-2:2014 defines for an axis.
+    const r = rowsOf(
+      withLimits([
+        {
+          axis: "primary",
+          quantity: "A",
+          upper: "20",
+          limitSource: "customer_spec",
+          limitSourceNote: "CS-7",
+        },
+        { axis: "primary", quantity: "R", upper: 6, limitSource: "common_practice" },
+        { axis: "secondary", quantity: "B", upper: "", limitSource: "" },
+      ]),
+    );
+    expect(r.issues).toEqual([]);
+    expect(r.rows!.positioningLimits).toEqual([
+      {
+        axis: "primary",
+        quantity: "A",
+        upperLimitArcsec: 20,
+        limitSource: "customer_spec",
+        limitSourceNote: "CS-7",
+      },
+      {
+        axis: "primary",
+        quantity: "R",
+        upperLimitArcsec: 6,
+        limitSource: "common_practice",
+        limitSourceNote: null,
+      },
+    ]);
+  });
+
+  it("leave them out and the body keeps what the version had (null); an empty list clears them", () => {
+    expect(rowsOf(one({ kind: "note" })).rows!.positioningLimits).toBeNull();
+    expect(rowsOf(withLimits([])).rows!.positioningLimits).toEqual([]);
+  });
+
+  it("require a source for a limit, and the note for a standard", () => {
+    expect(fieldsOf(withLimits([{ axis: "primary", quantity: "A", upper: 20 }]))).toEqual([
+      "positioningLimits.0.limitSource",
+    ]);
+    expect(
+      fieldsOf(withLimits([{ axis: "secondary", quantity: "E", upper: 12, limitSource: "standard" }])),
+    ).toEqual(["positioningLimits.0.limitSourceNote"]);
+  });
+
+  it("refuse a negative or zero limit, and a second limit for the same axis and quantity", () => {
+    const r = rowsOf(
+      withLimits([
+        { axis: "primary", quantity: "M", upper: -3, limitSource: "common_practice" },
+        { axis: "primary", quantity: "A", upper: 0, limitSource: "common_practice" },
+        { axis: "primary", quantity: "A", upper: 5, limitSource: "common_practice" },
+      ]),
+    );
+    expect(r.issues).toEqual([
+      {
+        field: "positioningLimits.0.upper",
+        message: "A positioning limit is a positive number of arc seconds.",
+      },
+      {
+        field: "positioningLimits.1.upper",
+        message: "A positioning limit is a positive number of arc seconds.",
+      },
+      { field: "positioningLimits.2.quantity", message: "This axis has a limit for this quantity already." },
+    ]);
+  });
+
+  it("refuse an unknown quantity, an unknown axis and a limit that is not a number, by field", () => {
+    expect(
+      fieldsOf(
+        withLimits([
+          { axis: "primary", quantity: "B_mean", upper: 5, limitSource: "common_practice" },
+          { axis: "tertiary", quantity: "A", upper: 5, limitSource: "common_practice" },
+          { axis: "secondary", quantity: "R", upper: "five", limitSource: "common_practice" },
+        ]),
+      ),
+    ).toEqual(["positioningLimits.0.quantity", "positioningLimits.1.axis", "positioningLimits.2.upper"]);
+  });
+});

@@ -1,4 +1,5 @@
-// One procedure version with its steps and head-parameter limits; 404 when there is none.
+// One procedure version with its steps, head-parameter and rotary-axis positioning limits; 404
+// when there is none.
 // PATCH `{ retired: true|false }` retires the procedure (every version) or brings it back.
 import { z } from "zod";
 import { setProcedureRetired } from "@/db/queries/procedures";
