@@ -1,4 +1,4 @@
-import { DECISION, ReportTable } from "@/components/report/report-parts";
+import { DecisionText, ReportTable } from "@/components/report/report-parts";
 import type { ReportControlValues } from "@/lib/report/sections/control";
 
 /** The report page's control-values part of section 5: the same rows and words as the PDF's 5.1. */
@@ -51,9 +51,7 @@ export function ControlValuesReportSection({ section }: { section: ReportControl
               r.quantity,
               r.value,
               r.limit,
-              <span key="d" className={DECISION[r.decision].cls}>
-                {DECISION[r.decision].text}
-              </span>,
+              <DecisionText key="d" d={r.decision} basis={r.basis} bold={false} />,
             ])}
           />
         </div>

@@ -10,6 +10,24 @@ export const DECISION: Record<Decision, { text: string; cls: string }> = {
   recorded: { text: "• Recorded", cls: "text-unmeasured-600" },
 };
 
+/** A decision, and under it the rule and limit source it was judged by (ISO/IEC 17025:2017 §7.8.6.1). */
+export function DecisionText({
+  d,
+  basis,
+  bold = true,
+}: {
+  d: Decision;
+  basis?: string | undefined;
+  bold?: boolean;
+}) {
+  return (
+    <>
+      <span className={`${bold ? "font-semibold " : ""}${DECISION[d].cls}`}>{DECISION[d].text}</span>
+      {basis ? <span className="block text-xs font-normal text-graphite-600">{basis}</span> : null}
+    </>
+  );
+}
+
 export function Section({ n, title, children }: { n: number; title: string; children: React.ReactNode }) {
   return (
     <section className="space-y-2">

@@ -1,4 +1,4 @@
-import { DECISION, ReportTable, Rows, Section } from "@/components/report/report-parts";
+import { DecisionText, ReportTable, Rows, Section } from "@/components/report/report-parts";
 import { ConformityStatement } from "@/components/report/conformity-statement";
 import { BudgetReportSection } from "@/components/report/budget-section";
 import { ControlValuesReportSection } from "@/components/report/control-values-section";
@@ -23,13 +23,7 @@ function UnitLines({ v }: { v: string | undefined }) {
 
 /** The report read online: the same content, in the same order, as the signed PDF. */
 export function ReportView({ data }: { data: ReportData }) {
-  // The decision, and under it the rule and limit source it was judged by (ISO/IEC 17025:2017 §7.8.6.1).
-  const dec = (d: Decision, basis?: string) => (
-    <>
-      <span className={`font-semibold ${DECISION[d].cls}`}>{DECISION[d].text}</span>
-      {basis ? <span className="block text-xs font-normal text-graphite-600">{basis}</span> : null}
-    </>
-  );
+  const dec = (d: Decision, basis?: string) => <DecisionText d={d} basis={basis} />;
   const facts = reportFacts(data);
   return (
     <article

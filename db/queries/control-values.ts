@@ -195,6 +195,7 @@ export async function reportControlValues(
   ]);
   return controlValuesSection({
     tcp: tcp.checks[0] ?? null,
+    tcpLimitSource: tcp.source,
     loop: c.loop,
     asFound: c.asFound,
     asLeft: c.asLeft,
@@ -214,11 +215,20 @@ export async function jobTcpChecks(jobId: string, templateId: string | null) {
           required: procedureTemplates.tcpCheckRequired,
           rangeLimitUm: procedureTemplates.tcpRangeLimitUm,
           deviationLimitUm: procedureTemplates.tcpDeviationLimitUm,
+          source: procedureTemplates.tcpLimitSource,
+          note: procedureTemplates.tcpLimitSourceNote,
         })
         .from(procedureTemplates)
         .where(eq(procedureTemplates.id, templateId))
     : [];
-  const limits: TcpLimits = template ?? { required: false, rangeLimitUm: null, deviationLimitUm: null };
+  const limits: TcpLimits = template
+    ? {
+        required: template.required,
+        rangeLimitUm: template.rangeLimitUm,
+        deviationLimitUm: template.deviationLimitUm,
+      }
+    : { required: false, rangeLimitUm: null, deviationLimitUm: null };
+  const source = template ? { source: template.source, note: template.note } : null;
   const rows = await db
     .select({
       id: datasets.id,
@@ -237,6 +247,6 @@ export async function jobTcpChecks(jobId: string, templateId: string | null) {
     uploadedAt: r.uploadedAt,
     view: judgeTcpCheck((r.summary as { tcp: TcpCheckSummary }).tcp, limits),
   }));
-  return { limits, checks };
+  return { limits, source, checks };
 }
 export type JobTcpChecks = Awaited<ReturnType<typeof jobTcpChecks>>;

@@ -116,7 +116,8 @@ export function judgementBasis(
   return `Rule: ${RULE_WORDS[rule] ?? rule}${source ? `; limit: ${source}` : ""}`;
 }
 
-function limitSourceWords(source: string, note: string | null | undefined): string {
+/** Where a limit comes from, in the report's words, with its note: "Standard: ISO 230-1". */
+export function limitSourceWords(source: string, note: string | null | undefined): string {
   const words = LIMIT_SOURCE_WORDS[source as keyof typeof LIMIT_SOURCE_WORDS] ?? source.replace("_", " ");
   return `${words}${note ? `: ${note}` : ""}`;
 }

@@ -41,6 +41,8 @@ export const pdfSectionStyles = StyleSheet.create({
     backgroundColor: palette.accent[50],
   },
   flag: { color: pdfColours.fail, fontWeight: 700 },
+  /** Under a decision: the rule and the limit source it was judged by. */
+  basis: { color: pdfColours.muted, fontSize: 6.5 },
   table: { borderWidth: 0.75, borderColor: pdfColours.rule },
   tr: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: pdfColours.rule },
   th: { backgroundColor: pdfColours.band, fontWeight: 700, color: pdfColours.muted, fontSize: 7.5 },

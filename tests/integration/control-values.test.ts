@@ -322,6 +322,8 @@ describe("a procedure that asks for a tool-centre-point check", () => {
         tcpCheckRequired: true,
         tcpRangeLimitUm: 15,
         tcpDeviationLimitUm: 10,
+        tcpLimitSource: "maker_manual",
+        tcpLimitSourceNote: "Head data sheet, TCP figures",
       })
       .returning();
     const jobId = await insertTestJob({
@@ -364,6 +366,10 @@ describe("a procedure that asks for a tool-centre-point check", () => {
     expect(content?.controlValues?.tcpCheck?.decision).toBe("pass");
     expect(content?.controlValues?.tcpCheck?.rows).toHaveLength(4);
     expect(content?.controlValues?.tcpCheck?.file).toBe("tcp-after.csv");
+    // Each judged figure says the rule and where the procedure's limit comes from.
+    expect(content?.controlValues?.tcpCheck?.rows.map((r) => r.basis)).toEqual(
+      Array(4).fill("Rule: simple; limit: Maker's manual: Head data sheet, TCP figures"),
+    );
   }, 60_000);
 
   it("refuses a TCP check with every row at one pose, naming what is missing", async () => {

@@ -9,6 +9,7 @@ import { headFitJson, param } from "./fit-builders";
 import { controlLoop } from "@/lib/control-values";
 import { renderReportPdf } from "@/lib/report/render";
 import { controlValuesSection } from "@/lib/report/sections/control";
+import { judgeTcpCheck } from "@/lib/tcp-check-display";
 import { samplePng, samplePngSha256, sampleReport } from "../fixtures/report/sample-report";
 
 const fit = headFitJson([
@@ -71,4 +72,54 @@ describe("the report's control-values section", () => {
     expect(text).toContain("Value to enter = as found + correction");
     expect(text).toContain("qualified people");
   }, 30_000);
+
+  describe("the TCP check after compensation", () => {
+    // Worked by hand: ranges 8.2, 3.1 and 12.5 µm against ≤ 15 µm pass; 11.0 µm from the mean
+    // against ≤ 10 µm fails (simple acceptance, ISO 14253-1: the value against the limit).
+    const view = judgeTcpCheck(
+      { range_um: { x: 8.2, y: 3.1, z: 12.5 }, max_from_mean_um: 11, worst_row: 14, poses: 60, warnings: [] },
+      { required: true, rangeLimitUm: 15, deviationLimitUm: 10 },
+    );
+    const withTcp = (tcpLimitSource: { source: string | null; note: string | null } | null) =>
+      controlValuesSection({
+        loop: controlLoop({ asFound: null, asLeft: null, approvedFit: fit, unitSystem: "metric" }),
+        asFound: null,
+        asLeft: null,
+        approved: null,
+        asLeftStale: false,
+        tcp: { filename: "tcp-after.csv", uploadedAt: at, view },
+        tcpLimitSource,
+      })!;
+
+    it("prints the rule and the limits' source beside each judged figure", () => {
+      const section = withTcp({ source: "customer_spec", note: "Acceptance sheet 3, TCP" });
+      expect(section.tcpCheck!.rows.map((r) => [r.limit, r.decision, r.basis])).toEqual([
+        ["≤ 15.0 µm", "pass", "Rule: simple; limit: Customer specification: Acceptance sheet 3, TCP"],
+        ["≤ 15.0 µm", "pass", "Rule: simple; limit: Customer specification: Acceptance sheet 3, TCP"],
+        ["≤ 15.0 µm", "pass", "Rule: simple; limit: Customer specification: Acceptance sheet 3, TCP"],
+        ["≤ 10.0 µm", "fail", "Rule: simple; limit: Customer specification: Acceptance sheet 3, TCP"],
+      ]);
+      // A version stored before sources were asked for says so rather than printing nothing.
+      expect(withTcp(null).tcpCheck!.rows[0]!.basis).toBe("Rule: simple; limit: source not recorded");
+    });
+
+    it("prints them in the PDF's 5.2", async () => {
+      const pdf = await renderReportPdf(
+        {
+          ...sampleReport,
+          controlValues: withTcp({ source: "standard", note: "ISO 10791-6:2014, annex K" }),
+        },
+        undefined,
+        new Map([[samplePngSha256, samplePng]]),
+      );
+      const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-tcp-"));
+      writeFileSync(path.join(dir, "r.pdf"), pdf);
+      const text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"])
+        .toString("utf8")
+        .replace(/\s+/g, " ");
+      expect(text).toContain("5.2 Tool-centre-point check after compensation");
+      expect(text).toContain("Rule: simple; limit: Standard: ISO 10791-6:2014, annex K");
+      expect(text).toMatch(/≤ 10\.0 µm FAIL Rule: simple; limit: Standard/);
+    }, 30_000);
+  });
 });

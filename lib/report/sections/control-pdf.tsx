@@ -15,10 +15,10 @@ const COLS = [
 ] as const;
 
 const TCP_COLS = [
-  ["Figure", "52%"],
-  ["Value", "16%"],
-  ["Limit", "16%"],
-  ["Result", "16%"],
+  ["Figure", "40%"],
+  ["Value", "14%"],
+  ["Limit", "14%"],
+  ["Result", "32%"],
 ] as const;
 
 export const TCP_DECISION: Record<string, string> = {
@@ -88,9 +88,10 @@ export function ControlValuesPdf({ section }: { section: ReportControlValues | u
                 <Text style={[s.td, { width: TCP_COLS[0][1] }]}>{r.quantity}</Text>
                 <Text style={[s.td, s.num, { width: TCP_COLS[1][1] }]}>{r.value}</Text>
                 <Text style={[s.td, s.num, { width: TCP_COLS[2][1] }]}>{r.limit}</Text>
-                <Text style={[s.td, { width: TCP_COLS[3][1] }, r.decision === "fail" ? s.flag : {}]}>
-                  {TCP_DECISION[r.decision]}
-                </Text>
+                <View style={[s.td, { width: TCP_COLS[3][1] }]}>
+                  <Text style={r.decision === "fail" ? s.flag : {}}>{TCP_DECISION[r.decision]}</Text>
+                  {r.basis ? <Text style={s.basis}>{r.basis}</Text> : null}
+                </View>
               </View>
             ))}
           </View>

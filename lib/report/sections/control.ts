@@ -6,6 +6,7 @@
  */
 import { CONTROL_CAUTION, SIGN_CONVENTION, type ControlLoop } from "@/lib/control-values";
 import { formatDateTimeUtc } from "@/lib/format";
+import { judgementBasis, limitSourceWords } from "@/lib/report/build";
 import type { Decision } from "@/lib/report/types";
 import type { TcpCheckView } from "@/lib/tcp-check-display";
 
@@ -30,7 +31,8 @@ export interface ReportControlValues {
   tcpCheck?: {
     file: string;
     basis: string;
-    rows: Array<{ quantity: string; value: string; limit: string; decision: Decision }>;
+    /** basis: the rule and the limit's source a judged row was judged by (as every judged row prints). */
+    rows: Array<{ quantity: string; value: string; limit: string; decision: Decision; basis?: string }>;
     decision: Decision;
   };
 }
@@ -49,6 +51,8 @@ export function controlValuesSection(input: {
   approved: { approvedBy: string | null; approvedAt: Date } | null;
   asLeftStale: boolean;
   tcp?: { filename: string; uploadedAt: Date; view: TcpCheckView } | null;
+  /** Where the procedure's TCP-check limits come from (procedure_templates), and its note. */
+  tcpLimitSource?: { source: string | null; note: string | null } | null;
 }): ReportControlValues | null {
   const { loop, asFound, asLeft, approved, tcp } = input;
   if (!asFound && !asLeft && !tcp) return null;
@@ -88,12 +92,21 @@ export function controlValuesSection(input: {
           tcpCheck: {
             file: tcp.filename,
             basis: `Sphere centres reported by the control with its tool-centre-point function on, ${tcp.view.poses} poses, uploaded ${formatDateTimeUtc(tcp.uploadedAt)}. Each figure is judged against the procedure's limit by simple acceptance.`,
-            rows: tcp.view.rows.map((r) => ({
-              quantity: r.quantity,
-              value: r.valueText,
-              limit: r.limitText,
-              decision: r.decision,
-            })),
+            rows: tcp.view.rows.map((r) => {
+              const from = input.tcpLimitSource?.source;
+              const basis = judgementBasis(
+                r.decision,
+                "simple",
+                from ? limitSourceWords(from, input.tcpLimitSource?.note) : "source not recorded",
+              );
+              return {
+                quantity: r.quantity,
+                value: r.valueText,
+                limit: r.limitText,
+                decision: r.decision,
+                ...(basis ? { basis } : {}),
+              };
+            }),
             decision: tcp.view.decision,
           },
         }
