@@ -4,6 +4,7 @@
  * initial values that the client builder (procedure-builder.tsx) edits.
  */
 import { HEAD_PARAMETER_KEYS, type HeadParameterKey } from "@/geometry/head/config";
+import { HEAD_AXIS_ROLES, POSITIONING_QUANTITIES, type HeadAxisRole } from "@/lib/domain/positioning";
 import { CLOCK_POINTS_4 } from "@/lib/domain/procedures";
 
 /** One step as the form holds it: every field a string or a boolean, points as "12, 3, 6, 9". */
@@ -34,7 +35,7 @@ export interface BuilderValues extends BuilderHeadJudging {
   steps: BuilderStep[];
 }
 
-/** A new procedure's form: one empty step, no TCP check, no parameter limits. */
+/** A new procedure's form: one empty step, no TCP check, no parameter or positioning limits. */
 export const emptyBuilderValues = (): BuilderValues => ({
   name: "",
   description: "",
@@ -73,6 +74,15 @@ export interface BuilderParameterLimit {
   limitSourceNote: string;
 }
 
+/** One ISO 230-2 quantity of one rotary axis as the form holds it (an empty limit = recorded only). */
+export interface BuilderPositioningLimit {
+  axis: HeadAxisRole;
+  quantity: string;
+  upper: string;
+  limitSource: string;
+  limitSourceNote: string;
+}
+
 export interface BuilderHeadJudging {
   tcpCheckRequired: boolean;
   tcpRangeLimitUm: string;
@@ -80,11 +90,16 @@ export interface BuilderHeadJudging {
   tcpLimitSource: string;
   tcpLimitSourceNote: string;
   parameterLimits: BuilderParameterLimit[];
+  /** Every axis × quantity, primary first, in the order of POSITIONING_QUANTITIES. */
+  positioningLimits: BuilderPositioningLimit[];
 }
 
 const str = (v: string | number | null | undefined) => (v == null ? "" : String(v));
 
-/** The form values from what a version stores (every parameter gets a row, limited or not). */
+/**
+ * The form values from what a version stores (every parameter, and every quantity of each rotary
+ * axis, gets a row, limited or not).
+ */
 export function headJudgingValues(
   t: {
     tcpCheckRequired: boolean;
@@ -97,6 +112,13 @@ export function headJudgingValues(
       lowerLimit: number | null;
       upperLimit: number | null;
       decisionRule: string;
+      limitSource: string;
+      limitSourceNote: string | null;
+    }[];
+    positioningLimits: {
+      axis: string;
+      quantity: string;
+      upperLimitArcsec: number;
       limitSource: string;
       limitSourceNote: string | null;
     }[];
@@ -119,5 +141,17 @@ export function headJudgingValues(
         limitSourceNote: str(l?.limitSourceNote),
       };
     }),
+    positioningLimits: HEAD_AXIS_ROLES.flatMap((axis) =>
+      POSITIONING_QUANTITIES.map((quantity) => {
+        const l = t?.positioningLimits.find((x) => x.axis === axis && x.quantity === quantity);
+        return {
+          axis,
+          quantity,
+          upper: str(l?.upperLimitArcsec),
+          limitSource: str(l?.limitSource),
+          limitSourceNote: str(l?.limitSourceNote),
+        };
+      }),
+    ),
   };
 }

@@ -3,14 +3,25 @@
 /**
  * The part of the procedure builder that judges the head as a whole rather than one step: the
  * tool-centre-point check after compensation (asked for or not, its limits in µm and where they
- * come from) and the limits of the fitted head parameters (µm or arc seconds as each says).
+ * come from), the limits of the fitted head parameters (µm or arc seconds as each says) and the
+ * upper limits of the ISO 230-2 positioning quantities of each rotary axis (arc seconds).
  * Checked by the same schema as the API (lib/validations/procedures.ts).
  */
 import { useFormContext, useWatch } from "react-hook-form";
 import { Field, FieldError, inputClass } from "@/components/ui/field";
-import type { BuilderHeadJudging, BuilderParameterLimit } from "@/components/procedures/builder-values";
+import type {
+  BuilderHeadJudging,
+  BuilderParameterLimit,
+  BuilderPositioningLimit,
+} from "@/components/procedures/builder-values";
 import { headParameterUnit } from "@/geometry/head/config";
 import { PARAMETER_WORDS } from "@/lib/fit-display";
+import {
+  HEAD_AXIS_ROLES,
+  POSITIONING_QUANTITY_WORDS,
+  type HeadAxisRole,
+  type PositioningQuantity,
+} from "@/lib/domain/positioning";
 import { LIMIT_SOURCE_LABELS, LIMIT_SOURCES } from "@/lib/validations/procedures";
 
 function SourceSelect({
@@ -39,6 +50,128 @@ const LIMIT_COLUMNS: readonly [string, string][] = [
   ["Note on the source", ""],
 ];
 
+/** A compact limits table: its caption for screen readers, its column headings, and its rows. */
+function LimitsTable({
+  caption,
+  columns,
+  children,
+}: {
+  caption: string;
+  columns: readonly (readonly [string, string])[];
+  children: React.ReactNode;
+}) {
+  return (
+    <div className="mt-2 overflow-x-auto">
+      <table className="w-full text-sm">
+        <caption className="sr-only">{caption}</caption>
+        <thead className="text-left text-graphite-600">
+          <tr>
+            {columns.map(([label, width], i) => (
+              <th
+                key={label}
+                scope="col"
+                className={[i ? "px-1" : "py-1 pr-2", width, "font-medium"].filter(Boolean).join(" ")}
+              >
+                {label}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>{children}</tbody>
+      </table>
+    </div>
+  );
+}
+
+/** One source cell and one note cell of a limits row, with the row's words in their labels. */
+function SourceCells({ words, source, note }: { words: string; source: string; note: string }) {
+  const form = useFormContext();
+  return (
+    <>
+      <td className="px-1 py-1">
+        <SourceSelect label={`${words}: limit source`} {...form.register(source)} />
+      </td>
+      <td className="px-1 py-1">
+        <input
+          aria-label={`${words}: note on the source`}
+          className={`${inputClass} text-sm`}
+          autoComplete="off"
+          {...form.register(note)}
+        />
+      </td>
+    </>
+  );
+}
+
+const POSITIONING_COLUMNS: readonly [string, string][] = [
+  ["Quantity", ""],
+  ["Upper limit (″)", "w-28"],
+  ["Source", "w-48"],
+  ["Note on the source", ""],
+];
+
+const AXIS_HEADINGS: Record<HeadAxisRole, string> = {
+  primary: "Primary (rotary) axis",
+  secondary: "Secondary (tilt) axis",
+};
+
+/**
+ * The ISO 230-2 positioning limits: one table per rotary axis of the head, one row per quantity.
+ * A procedure with any limit for an axis asks for that axis's positioning test before issue.
+ */
+function PositioningLimitsFields() {
+  const form = useFormContext<BuilderHeadJudging>();
+  const rows = (useWatch({ name: "positioningLimits" }) as BuilderPositioningLimit[] | undefined) ?? [];
+  return (
+    <fieldset className="rounded-card border border-graphite-200 p-4">
+      <legend className="px-1 font-medium">Positioning of the rotary axes (ISO 230-2)</legend>
+      <p className="text-xs text-graphite-600">
+        Upper limits in arc seconds for the bidirectional figures of the standard. Leave a limit empty for a
+        figure that is recorded, not judged. Any limit for an axis makes its positioning test part of the job
+        before the report is issued.
+      </p>
+      <div className="mt-2 grid gap-4">
+        {HEAD_AXIS_ROLES.map((axis) => (
+          <div key={axis}>
+            <h3 className="text-sm font-semibold">{AXIS_HEADINGS[axis]}</h3>
+            <LimitsTable
+              caption={`Positioning limits, ${AXIS_HEADINGS[axis].toLowerCase()}`}
+              columns={POSITIONING_COLUMNS}
+            >
+              {rows.map((r, i) => {
+                if (r.axis !== axis) return null;
+                const q = r.quantity as PositioningQuantity;
+                const words = `${AXIS_HEADINGS[axis]}, ${q}`;
+                const at = (f: keyof BuilderPositioningLimit) => `positioningLimits.${i}.${f}` as const;
+                return (
+                  <tr key={`${axis}-${q}`} className="border-t border-graphite-100 align-top">
+                    <th scope="row" className="py-2 pr-2 text-left font-normal">
+                      {POSITIONING_QUANTITY_WORDS[q]} ({q})
+                      {(["upper", "quantity", "limitSource", "limitSourceNote"] as const).map((f) => (
+                        <FieldError key={f} name={at(f)} className="text-xs" />
+                      ))}
+                    </th>
+                    <td className="px-1 py-1">
+                      <input
+                        aria-label={`${words}: upper limit in arc seconds`}
+                        className={`${inputClass} num text-right text-sm`}
+                        inputMode="decimal"
+                        autoComplete="off"
+                        {...form.register(at("upper"))}
+                      />
+                    </td>
+                    <SourceCells words={words} source={at("limitSource")} note={at("limitSourceNote")} />
+                  </tr>
+                );
+              })}
+            </LimitsTable>
+          </div>
+        ))}
+      </div>
+    </fieldset>
+  );
+}
+
 export function HeadJudgingFields() {
   const form = useFormContext<BuilderHeadJudging>();
   const rows = (useWatch({ name: "parameterLimits" }) as BuilderParameterLimit[] | undefined) ?? [];
@@ -50,7 +183,8 @@ export function HeadJudgingFields() {
         </h2>
         <p className="text-sm text-graphite-600">
           Beyond the steps: the check of the tool centre point after the values are entered in the control,
-          and the limits of the fitted head parameters. Every limit says where it comes from.
+          the limits of the fitted head parameters and the positioning limits of the rotary axes. Every limit
+          says where it comes from.
         </p>
       </div>
       <fieldset className="grid gap-4 rounded-card border border-graphite-200 p-4 md:grid-cols-2">
@@ -90,77 +224,50 @@ export function HeadJudgingFields() {
           Lengths in µm, angles in arc seconds. Leave both limits empty for a parameter that is recorded, not
           judged.
         </p>
-        <div className="mt-2 overflow-x-auto">
-          <table className="w-full text-sm">
-            <caption className="sr-only">Limits for the fitted head parameters</caption>
-            <thead className="text-left text-graphite-600">
-              <tr>
-                {LIMIT_COLUMNS.map(([label, width], i) => (
-                  <th
-                    key={label}
-                    scope="col"
-                    className={[i ? "px-1" : "py-1 pr-2", width, "font-medium"].filter(Boolean).join(" ")}
-                  >
-                    {label}
-                  </th>
+        <LimitsTable caption="Limits for the fitted head parameters" columns={LIMIT_COLUMNS}>
+          {rows.map((r, i) => {
+            const words = PARAMETER_WORDS[r.parameter];
+            const at = (f: keyof BuilderParameterLimit) => `parameterLimits.${i}.${f}` as const;
+            const errors = ["lower", "upper", "limitSource", "limitSourceNote"] as const;
+            return (
+              <tr key={r.parameter} className="border-t border-graphite-100 align-top">
+                <th scope="row" className="py-2 pr-2 text-left font-normal">
+                  {words}
+                  <span className="block text-xs text-graphite-500">
+                    in {headParameterUnit(r.parameter) === "um" ? "µm" : "arc seconds"}
+                  </span>
+                  {errors.map((f) => (
+                    <FieldError key={f} name={at(f)} className="text-xs" />
+                  ))}
+                </th>
+                {(["lower", "upper"] as const).map((w) => (
+                  <td key={w} className="px-1 py-1">
+                    <input
+                      aria-label={`${words}: ${w} limit`}
+                      className={`${inputClass} num text-right text-sm`}
+                      inputMode="decimal"
+                      autoComplete="off"
+                      {...form.register(at(w))}
+                    />
+                  </td>
                 ))}
+                <td className="px-1 py-1">
+                  <select
+                    aria-label={`${words}: decision rule`}
+                    className={`${inputClass} text-sm`}
+                    {...form.register(at("decisionRule"))}
+                  >
+                    <option value="simple">Simple</option>
+                    <option value="guarded">Guarded</option>
+                  </select>
+                </td>
+                <SourceCells words={words} source={at("limitSource")} note={at("limitSourceNote")} />
               </tr>
-            </thead>
-            <tbody>
-              {rows.map((r, i) => {
-                const words = PARAMETER_WORDS[r.parameter];
-                const at = (f: keyof BuilderParameterLimit) => `parameterLimits.${i}.${f}` as const;
-                const errors = ["lower", "upper", "limitSource", "limitSourceNote"] as const;
-                return (
-                  <tr key={r.parameter} className="border-t border-graphite-100 align-top">
-                    <th scope="row" className="py-2 pr-2 text-left font-normal">
-                      {words}
-                      <span className="block text-xs text-graphite-500">
-                        in {headParameterUnit(r.parameter) === "um" ? "µm" : "arc seconds"}
-                      </span>
-                      {errors.map((f) => (
-                        <FieldError key={f} name={at(f)} className="text-xs" />
-                      ))}
-                    </th>
-                    {(["lower", "upper"] as const).map((w) => (
-                      <td key={w} className="px-1 py-1">
-                        <input
-                          aria-label={`${words}: ${w} limit`}
-                          className={`${inputClass} num text-right text-sm`}
-                          inputMode="decimal"
-                          autoComplete="off"
-                          {...form.register(at(w))}
-                        />
-                      </td>
-                    ))}
-                    <td className="px-1 py-1">
-                      <select
-                        aria-label={`${words}: decision rule`}
-                        className={`${inputClass} text-sm`}
-                        {...form.register(at("decisionRule"))}
-                      >
-                        <option value="simple">Simple</option>
-                        <option value="guarded">Guarded</option>
-                      </select>
-                    </td>
-                    <td className="px-1 py-1">
-                      <SourceSelect label={`${words}: limit source`} {...form.register(at("limitSource"))} />
-                    </td>
-                    <td className="px-1 py-1">
-                      <input
-                        aria-label={`${words}: note on the source`}
-                        className={`${inputClass} text-sm`}
-                        autoComplete="off"
-                        {...form.register(at("limitSourceNote"))}
-                      />
-                    </td>
-                  </tr>
-                );
-              })}
-            </tbody>
-          </table>
-        </div>
+            );
+          })}
+        </LimitsTable>
       </fieldset>
+      <PositioningLimitsFields />
     </section>
   );
 }

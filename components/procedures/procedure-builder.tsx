@@ -114,7 +114,7 @@ export function ProcedureBuilder({
       const known = (name: string) =>
         ["name", "description", "headModel", "jobKinds"].includes(name) ||
         /^tcp\w+$/.test(name) ||
-        /^(steps|parameterLimits)\.\d+\.\w+$/.test(name);
+        /^(steps|parameterLimits|positioningLimits)\.\d+\.\w+$/.test(name);
       const mapped = mapActionErrors(res, known);
       for (const [name, message] of mapped.fields) form.setError(name as never, { type: "server", message });
       setNotice({ ok: false, message: mapped.message });

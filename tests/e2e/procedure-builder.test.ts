@@ -1,6 +1,7 @@
 // The administrator builds a procedure in the browser: a multi-point step at 12/3/6/9, a yes/no
 // step whose missing limit source is named beside its field, a photo-required record step, a TCP
-// check with its limits and their source, and one fitted-parameter limit;
+// check with its limits and their source, one fitted-parameter limit and one ISO 230-2 positioning
+// limit of the primary axis (its missing source named beside it, then given);
 // moves a step with the keyboard (focus follows it), creates the procedure, saves the version,
 // retires it and brings it back. Screenshots at 1440×900 and on the tablet (820×1180).
 import { describe, expect, it } from "vitest";
@@ -56,6 +57,8 @@ describe("procedure builder (administrator)", () => {
     await p.getByLabel(`${tilt}: lower limit`).fill("-12");
     await p.getByLabel(`${tilt}: upper limit`).fill("12");
     await p.getByLabel(`${tilt}: limit source`).selectOption("common_practice");
+    const accuracy = "Primary (rotary) axis, A";
+    await p.getByLabel(`${accuracy}: upper limit in arc seconds`).fill("20");
 
     await p.getByRole("button", { name: "Create procedure" }).click();
     // The server names the missing source beside step 2's field, and the TCP limits' too.
@@ -65,6 +68,11 @@ describe("procedure builder (administrator)", () => {
     expect(await p.locator('[data-error-for="tcpLimitSource"]').innerText()).toMatch(
       /where the limit comes from/i,
     );
+    expect(await p.locator('[data-error-for="positioningLimits.0.limitSource"]').innerText()).toMatch(
+      /where the limit comes from/i,
+    );
+    await p.getByLabel(`${accuracy}: limit source`).selectOption("standard");
+    await p.getByLabel(`${accuracy}: note on the source`).fill("Customer acceptance, C axis");
     await p.getByLabel("Where the TCP limits come from").selectOption("customer_spec");
     await p.getByLabel("TCP source note").fill("Acceptance sheet 3");
     expect(await p.getByRole("alert").first().innerText()).toMatch(/where the limit comes from|attention/i);
@@ -97,11 +105,13 @@ describe("procedure builder (administrator)", () => {
     await expect
       .poll(() => judging.innerText())
       .toMatch(
-        /required[\s\S]*≤ 15 µm in X, Y and Z[\s\S]*≤ 10 µm[\s\S]*Acceptance sheet 3[\s\S]*1 fitted head parameter has a limit/,
+        /required[\s\S]*≤ 15 µm in X, Y and Z[\s\S]*≤ 10 µm[\s\S]*Acceptance sheet 3[\s\S]*1 fitted head parameter has a limit[\s\S]*primary \(rotary\) axis A ≤ 20″ \(Standard and clause: Customer acceptance, C axis\)/,
       );
     // The builder below reads them back.
     expect(await p.getByLabel("Range of the centre in X, Y and Z, each (µm)").inputValue()).toBe("15");
     expect(await p.getByLabel(`${tilt}: upper limit`).inputValue()).toBe("12");
+    expect(await p.getByLabel(`${accuracy}: upper limit in arc seconds`).inputValue()).toBe("20");
+    expect(await p.getByLabel(`${accuracy}: limit source`).inputValue()).toBe("standard");
 
     // No job follows version 1 yet: saving changes it in place.
     await step(p, 3).getByLabel("Title").fill("Motor plate home on its dowels");

@@ -10,6 +10,7 @@ import { jobsUsingVersion, listProcedures } from "@/db/queries/procedures";
 import { getTemplate } from "@/db/queries/templates";
 import { requirePageUser } from "@/lib/auth/session";
 import { JOB_KIND_LABELS } from "@/lib/domain/jobs";
+import { HEAD_AXIS_ROLE_WORDS } from "@/lib/domain/positioning";
 import { MULTI_POINT_RESULT_LABELS, STEP_KIND_LABELS } from "@/lib/domain/procedures";
 import { pageUuid } from "@/lib/domain/uuid";
 import { formatDateTimeUtc } from "@/lib/format";
@@ -145,6 +146,16 @@ export default async function ProcedurePage({ params }: { params: Promise<{ id: 
           {t.parameterLimits.length} fitted head{" "}
           {t.parameterLimits.length === 1 ? "parameter has a limit" : "parameters have limits"}
           {t.parameterLimits.length ? "" : "; a head fit on a job with this version is recorded, not judged"}.
+        </p>
+        <p className="mt-1 text-sm text-graphite-600">
+          {t.positioningLimits.length
+            ? `Positioning of the rotary axes (ISO 230-2), asked for before issue: ${t.positioningLimits
+                .map(
+                  (l) =>
+                    `${HEAD_AXIS_ROLE_WORDS[l.axis]} ${l.quantity} ≤ ${l.upperLimitArcsec}″ (${LIMIT_SOURCE_LABELS[l.limitSource]}${l.limitSourceNote ? `: ${l.limitSourceNote}` : ""})`,
+                )
+                .join("; ")}.`
+            : "No positioning limits for the rotary axes; a positioning test that is uploaded is recorded, not judged."}
         </p>
       </Card>
 
