@@ -341,62 +341,81 @@ export function procedureRows(
       tcpLimitSourceNote: limited ? (input.tcpLimitSourceNote ?? null) : null,
     };
   }
-  let parameterLimits: ParameterLimitRow[] | null = null;
-  if (input.parameterLimits !== undefined) {
-    parameterLimits = [];
+  /**
+   * The rows of one list of limits: null when the list is not sent (a new version keeps what it
+   * had); a second entry for the same key is named; `row` checks one entry and returns its row, or
+   * null when it sets no limit (recorded, not judged).
+   */
+  const limitRows = <L, R>(
+    list: readonly L[] | undefined,
+    name: string,
+    duplicate: { field: string; message: string; key: (l: L) => string },
+    row: (l: L, at: (f: string) => string) => R | null,
+  ): R[] | null => {
+    if (list === undefined) return null;
     const seen = new Set<string>();
-    input.parameterLimits.forEach((l, i) => {
-      const at = (f: string) => `parameterLimits.${i}.${f}`;
-      if (seen.has(l.parameter))
-        issues.push({ field: at("parameter"), message: "This parameter has a limit already." });
-      seen.add(l.parameter);
+    const out: R[] = [];
+    list.forEach((l, i) => {
+      const at = (f: string) => `${name}.${i}.${f}`;
+      const key = duplicate.key(l);
+      if (seen.has(key)) issues.push({ field: at(duplicate.field), message: duplicate.message });
+      seen.add(key);
+      const r = row(l, at);
+      if (r) out.push(r);
+    });
+    return out;
+  };
+  const parameterLimits = limitRows(
+    input.parameterLimits,
+    "parameterLimits",
+    { field: "parameter", message: "This parameter has a limit already.", key: (l) => l.parameter },
+    (l, at): ParameterLimitRow | null => {
       const lower = l.lower ?? null;
       const upper = l.upper ?? null;
       // Both limits empty: the parameter is recorded, not judged.
-      if (lower === null && upper === null) return;
+      if (lower === null && upper === null) return null;
       if (lower !== null && upper !== null && lower > upper)
         issues.push({ field: at("lower"), message: "The lower limit is above the upper limit." });
       if (l.decisionRule === "guarded" && upper === null)
         issues.push({ field: at("upper"), message: "Guarded acceptance needs an upper limit." });
       sourceIssues(at, l.limitSource, l.limitSourceNote);
-      parameterLimits!.push({
+      return {
         parameter: l.parameter,
         lowerLimit: lower,
         upperLimit: upper,
         decisionRule: l.decisionRule ?? "simple",
         limitSource: l.limitSource ?? "common_practice",
         limitSourceNote: l.limitSourceNote ?? null,
-      });
-    });
-  }
-  let positioningLimits: PositioningLimitRow[] | null = null;
-  if (input.positioningLimits !== undefined) {
-    positioningLimits = [];
-    const seen = new Set<string>();
-    input.positioningLimits.forEach((l, i) => {
-      const at = (f: string) => `positioningLimits.${i}.${f}`;
-      const key = `${l.axis}:${l.quantity}`;
-      if (seen.has(key))
-        issues.push({ field: at("quantity"), message: "This axis has a limit for this quantity already." });
-      seen.add(key);
+      };
+    },
+  );
+  const positioningLimits = limitRows(
+    input.positioningLimits,
+    "positioningLimits",
+    {
+      field: "quantity",
+      message: "This axis has a limit for this quantity already.",
+      key: (l) => `${l.axis}:${l.quantity}`,
+    },
+    (l, at): PositioningLimitRow | null => {
       const upper = l.upper ?? null;
       // An empty limit: the quantity is recorded, not judged.
-      if (upper === null) return;
+      if (upper === null) return null;
       if (upper <= 0)
         issues.push({
           field: at("upper"),
           message: "A positioning limit is a positive number of arc seconds.",
         });
       sourceIssues(at, l.limitSource, l.limitSourceNote);
-      positioningLimits!.push({
+      return {
         axis: l.axis,
         quantity: l.quantity,
         upperLimitArcsec: upper,
         limitSource: l.limitSource ?? "common_practice",
         limitSourceNote: l.limitSourceNote ?? null,
-      });
-    });
-  }
+      };
+    },
+  );
   if (issues.length) return { rows: null, issues };
   const kinds = [...(input.jobKind ? [input.jobKind] : []), ...(input.jobKinds ?? [])].map(normaliseJobKind);
   return {

@@ -1,9 +1,5 @@
 // The report's control-values section: the rows and words built from the control loop, and the
 // same printed in the PDF, read back with poppler's pdftotext (an independent reader).
-import { execFileSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { headFitJson, param } from "./fit-builders";
 import { controlLoop } from "@/lib/control-values";
@@ -11,6 +7,17 @@ import { renderReportPdf } from "@/lib/report/render";
 import { controlValuesSection } from "@/lib/report/sections/control";
 import { judgeTcpCheck } from "@/lib/tcp-check-display";
 import { samplePng, samplePngSha256, sampleReport } from "../fixtures/report/sample-report";
+import { pdfText } from "../pdf-tools";
+
+/** The sample report with this control-values section, printed and read back by pdftotext. */
+async function printed(controlValues: NonNullable<ReturnType<typeof controlValuesSection>>) {
+  const pdf = await renderReportPdf(
+    { ...sampleReport, controlValues },
+    undefined,
+    new Map([[samplePngSha256, samplePng]]),
+  );
+  return pdfText(pdf, true);
+}
 
 const fit = headFitJson([
   param("pivot_length_error_um", 37.88, 1.2, "EZ0A"),
@@ -56,16 +63,7 @@ describe("the report's control-values section", () => {
   });
 
   it("prints the section in the PDF with its numbers, flag, sign convention and caution", async () => {
-    const pdf = await renderReportPdf(
-      { ...sampleReport, controlValues: section },
-      undefined,
-      new Map([[samplePngSha256, samplePng]]),
-    );
-    const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-ctl-"));
-    writeFileSync(path.join(dir, "r.pdf"), pdf);
-    const text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"])
-      .toString("utf8")
-      .replace(/\s+/g, " ");
+    const text = await printed(section);
     expect(text).toContain("5.1 Values for the control: as found, to enter, as left");
     expect(text).toContain("152.4379 mm");
     expect(text).toContain("Differs from the value to enter");
@@ -104,19 +102,7 @@ describe("the report's control-values section", () => {
     });
 
     it("prints them in the PDF's 5.2", async () => {
-      const pdf = await renderReportPdf(
-        {
-          ...sampleReport,
-          controlValues: withTcp({ source: "standard", note: "ISO 10791-6:2014, annex K" }),
-        },
-        undefined,
-        new Map([[samplePngSha256, samplePng]]),
-      );
-      const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-tcp-"));
-      writeFileSync(path.join(dir, "r.pdf"), pdf);
-      const text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"])
-        .toString("utf8")
-        .replace(/\s+/g, " ");
+      const text = await printed(withTcp({ source: "standard", note: "ISO 10791-6:2014, annex K" }));
       expect(text).toContain("5.2 Tool-centre-point check after compensation");
       expect(text).toContain("Rule: simple; limit: Standard: ISO 10791-6:2014, annex K");
       expect(text).toMatch(/≤ 10\.0 µm FAIL Rule: simple; limit: Standard/);
