@@ -155,3 +155,31 @@ export function headJudgingValues(
     ),
   };
 }
+
+/** The axis letters of the heads of one model in the register (one row per distinct pair). */
+export interface HeadModelAxes {
+  model: string;
+  primaryAxis: string;
+  secondaryAxis: string;
+}
+
+/**
+ * The axis letters the builder can name for a procedure's head model: those of the register's
+ * heads of that model (compared trimmed and case-blind, as the procedure list filters), when they
+ * all agree; null for no model, an unknown model, or heads of one model with different letters.
+ */
+export function axisLettersFor(
+  heads: readonly HeadModelAxes[],
+  headModel: string | null | undefined,
+): Record<HeadAxisRole, string> | null {
+  const key = headModel?.trim().toLowerCase();
+  if (!key) return null;
+  const pairs = new Set(
+    heads
+      .filter((h) => h.model.trim().toLowerCase() === key)
+      .map((h) => `${h.primaryAxis}/${h.secondaryAxis}`),
+  );
+  if (pairs.size !== 1) return null;
+  const [primary, secondary] = [...pairs][0]!.split("/") as [string, string];
+  return { primary, secondary };
+}

@@ -9,10 +9,12 @@
  */
 import { useFormContext, useWatch } from "react-hook-form";
 import { Field, FieldError, inputClass } from "@/components/ui/field";
-import type {
-  BuilderHeadJudging,
-  BuilderParameterLimit,
-  BuilderPositioningLimit,
+import {
+  axisLettersFor,
+  type BuilderHeadJudging,
+  type BuilderParameterLimit,
+  type BuilderPositioningLimit,
+  type HeadModelAxes,
 } from "@/components/procedures/builder-values";
 import { headParameterUnit } from "@/geometry/head/config";
 import { PARAMETER_WORDS } from "@/lib/fit-display";
@@ -119,9 +121,11 @@ const AXIS_HEADINGS: Record<HeadAxisRole, string> = {
  * The ISO 230-2 positioning limits: one table per rotary axis of the head, one row per quantity.
  * A procedure with any limit for an axis asks for that axis's positioning test before issue.
  */
-function PositioningLimitsFields() {
+function PositioningLimitsFields({ headAxes }: { headAxes: readonly HeadModelAxes[] }) {
   const form = useFormContext<BuilderHeadJudging>();
   const rows = (useWatch({ name: "positioningLimits" }) as BuilderPositioningLimit[] | undefined) ?? [];
+  const headModel = useWatch({ name: "headModel" }) as string | undefined;
+  const letters = axisLettersFor(headAxes, headModel);
   return (
     <fieldset className="rounded-card border border-graphite-200 p-4">
       <legend className="px-1 font-medium">Positioning of the rotary axes (ISO 230-2)</legend>
@@ -133,7 +137,10 @@ function PositioningLimitsFields() {
       <div className="mt-2 grid gap-4">
         {HEAD_AXIS_ROLES.map((axis) => (
           <div key={axis}>
-            <h3 className="text-sm font-semibold">{AXIS_HEADINGS[axis]}</h3>
+            <h3 className="text-sm font-semibold">
+              {AXIS_HEADINGS[axis]}
+              {letters ? ` ${letters[axis]}` : ""}
+            </h3>
             <LimitsTable
               caption={`Positioning limits, ${AXIS_HEADINGS[axis].toLowerCase()}`}
               columns={POSITIONING_COLUMNS}
@@ -172,7 +179,7 @@ function PositioningLimitsFields() {
   );
 }
 
-export function HeadJudgingFields() {
+export function HeadJudgingFields({ headAxes = [] }: { headAxes?: readonly HeadModelAxes[] }) {
   const form = useFormContext<BuilderHeadJudging>();
   const rows = (useWatch({ name: "parameterLimits" }) as BuilderParameterLimit[] | undefined) ?? [];
   return (
@@ -267,7 +274,7 @@ export function HeadJudgingFields() {
           })}
         </LimitsTable>
       </fieldset>
-      <PositioningLimitsFields />
+      <PositioningLimitsFields headAxes={headAxes} />
     </section>
   );
 }

@@ -17,7 +17,12 @@ import {
   type Resolver,
 } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
-import { EMPTY_STEP, type BuilderStep, type BuilderValues } from "@/components/procedures/builder-values";
+import {
+  EMPTY_STEP,
+  type BuilderStep,
+  type BuilderValues,
+  type HeadModelAxes,
+} from "@/components/procedures/builder-values";
 import { HeadJudgingFields } from "@/components/procedures/head-judging-fields";
 import { ActionNotice, Button } from "@/components/ui/button";
 import { Field, FieldError, inputClass } from "@/components/ui/field";
@@ -58,12 +63,15 @@ export function ProcedureBuilder({
   initial,
   submitLabel,
   action,
+  headAxes = [],
 }: {
   mode: "new" | "version";
   procedureId?: string;
   initial: BuilderValues;
   submitLabel: string;
   action: (raw: unknown) => Promise<ActionResult<Saved>>;
+  /** The register's heads' axis letters per model, to name the rotary axes of the head model. */
+  headAxes?: readonly HeadModelAxes[];
 }) {
   const router = useRouter();
   const form = useForm<BuilderValues>({
@@ -183,7 +191,7 @@ export function ProcedureBuilder({
         <Button type="button" variant="secondary" onClick={() => steps.append({ ...EMPTY_STEP })}>
           Add a step
         </Button>
-        <HeadJudgingFields />
+        <HeadJudgingFields headAxes={headAxes} />
         <div className="flex flex-wrap items-center gap-3 border-t border-graphite-200 pt-4">
           <Button type="submit" pending={pending}>
             {submitLabel}

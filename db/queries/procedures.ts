@@ -1,8 +1,9 @@
 import "server-only";
-import { and, asc, count, desc, eq, inArray, isNull, max, sql } from "drizzle-orm";
+import { and, asc, count, desc, eq, inArray, isNotNull, isNull, max, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import {
+  heads,
   jobs,
   procedureTemplates,
   templateParameterLimits,
@@ -382,4 +383,23 @@ export async function setProcedureRetired(actor: Actor, id: string, retired: boo
     });
     return { ...t, retiredAt: at };
   });
+}
+
+/**
+ * The distinct axis letters of the register's heads per model, for the builder to name a
+ * procedure's rotary axes (components/procedures/builder-values.ts axisLettersFor). The caller
+ * has checked that the actor may edit procedures.
+ */
+export async function headAxesByModel(): Promise<
+  { model: string; primaryAxis: string; secondaryAxis: string }[]
+> {
+  const rows = await db
+    .selectDistinct({
+      model: heads.model,
+      primaryAxis: heads.primaryAxis,
+      secondaryAxis: heads.secondaryAxis,
+    })
+    .from(heads)
+    .where(isNotNull(heads.model));
+  return rows.map((r) => ({ ...r, model: r.model! }));
 }

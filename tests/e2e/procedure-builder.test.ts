@@ -112,6 +112,18 @@ describe("procedure builder (administrator)", () => {
     expect(await p.getByLabel(`${tilt}: upper limit`).inputValue()).toBe("12");
     expect(await p.getByLabel(`${accuracy}: upper limit in arc seconds`).inputValue()).toBe("20");
     expect(await p.getByLabel(`${accuracy}: limit source`).inputValue()).toBe("standard");
+    // For a head model in the register, the axes are named by its heads' letters (demo CA-40: C and A).
+    await p.getByLabel("Head model").fill("CA-40");
+    await expect
+      .poll(() => p.getByRole("heading", { name: /^Primary \(rotary\) axis/ }).innerText())
+      .toBe("Primary (rotary) axis C");
+    expect(await p.getByRole("heading", { name: /^Secondary \(tilt\) axis/ }).innerText()).toBe(
+      "Secondary (tilt) axis A",
+    );
+    await p.getByLabel("Head model").fill("HX-40");
+    await expect
+      .poll(() => p.getByRole("heading", { name: /^Primary \(rotary\) axis/ }).innerText())
+      .toBe("Primary (rotary) axis");
 
     // No job follows version 1 yet: saving changes it in place.
     await step(p, 3).getByLabel("Title").fill("Motor plate home on its dowels");

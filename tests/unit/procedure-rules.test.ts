@@ -1,5 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
+import { axisLettersFor, headJudgingValues } from "@/components/procedures/builder-values";
 import { starterLibraryRows } from "@/db/library/starter";
 import {
   equalPoints,
@@ -219,5 +220,65 @@ describe("positioning limits of the rotary axes", () => {
         ]),
       ),
     ).toEqual(["positioningLimits.0.quantity", "positioningLimits.1.axis", "positioningLimits.2.upper"]);
+  });
+});
+
+describe("the builder's positioning rows", () => {
+  it("hold every quantity of each axis, a stored limit in its row and the rest empty", () => {
+    const v = headJudgingValues({
+      tcpCheckRequired: false,
+      tcpRangeLimitUm: null,
+      tcpDeviationLimitUm: null,
+      tcpLimitSource: null,
+      tcpLimitSourceNote: null,
+      parameterLimits: [],
+      positioningLimits: [
+        {
+          axis: "secondary",
+          quantity: "R",
+          upperLimitArcsec: 6,
+          limitSource: "standard",
+          limitSourceNote: "x",
+        },
+      ],
+    });
+    expect(v.positioningLimits.map((r) => `${r.axis}:${r.quantity}`)).toEqual([
+      "primary:A",
+      "primary:E",
+      "primary:M",
+      "primary:R",
+      "primary:B",
+      "secondary:A",
+      "secondary:E",
+      "secondary:M",
+      "secondary:R",
+      "secondary:B",
+    ]);
+    expect(v.positioningLimits.filter((r) => r.upper !== "")).toEqual([
+      { axis: "secondary", quantity: "R", upper: "6", limitSource: "standard", limitSourceNote: "x" },
+    ]);
+    // What the form sends back is what was stored.
+    const back = rowsOf({ ...one({ kind: "note" }), positioningLimits: v.positioningLimits });
+    expect(back.rows!.positioningLimits).toEqual([
+      {
+        axis: "secondary",
+        quantity: "R",
+        upperLimitArcsec: 6,
+        limitSource: "standard",
+        limitSourceNote: "x",
+      },
+    ]);
+  });
+
+  it("name the axis letters only when the register's heads of that model agree", () => {
+    const heads = [
+      { model: "CA-40", primaryAxis: "C", secondaryAxis: "A" },
+      { model: "MIX-1", primaryAxis: "C", secondaryAxis: "A" },
+      { model: "MIX-1", primaryAxis: "B", secondaryAxis: "A" },
+    ];
+    expect(axisLettersFor(heads, " ca-40 ")).toEqual({ primary: "C", secondary: "A" });
+    expect(axisLettersFor(heads, "MIX-1")).toBeNull();
+    expect(axisLettersFor(heads, "HX-40")).toBeNull();
+    expect(axisLettersFor(heads, "")).toBeNull();
   });
 });

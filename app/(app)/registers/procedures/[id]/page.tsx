@@ -6,7 +6,7 @@ import { ProcedureBuilder } from "@/components/procedures/procedure-builder";
 import { RetireProcedureButton } from "@/components/procedures/retire-button";
 import { Card } from "@/components/ui/card";
 import { Table } from "@/components/ui/table";
-import { jobsUsingVersion, listProcedures } from "@/db/queries/procedures";
+import { headAxesByModel, jobsUsingVersion, listProcedures } from "@/db/queries/procedures";
 import { getTemplate } from "@/db/queries/templates";
 import { requirePageUser } from "@/lib/auth/session";
 import { JOB_KIND_LABELS } from "@/lib/domain/jobs";
@@ -199,6 +199,7 @@ export default async function ProcedurePage({ params }: { params: Promise<{ id: 
                 : `Save version ${t.version}`
             }
             action={saveProcedureVersionAction}
+            headAxes={await headAxesByModel()}
           />
         </section>
       ) : null}

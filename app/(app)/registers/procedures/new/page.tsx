@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 import { emptyBuilderValues } from "@/components/procedures/builder-values";
 import { ProcedureBuilder } from "@/components/procedures/procedure-builder";
 import { BuilderCaution } from "@/components/procedures/builder-caution";
+import { headAxesByModel } from "@/db/queries/procedures";
 import { requirePageUser } from "@/lib/auth/session";
 import { procedureEditRefusal } from "@/lib/policy/procedures";
 import { createProcedureAction } from "../actions";
@@ -32,6 +33,7 @@ export default async function NewProcedurePage() {
         initial={emptyBuilderValues()}
         submitLabel="Create procedure"
         action={createProcedureAction}
+        headAxes={await headAxesByModel()}
       />
     </div>
   );
