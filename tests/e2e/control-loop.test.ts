@@ -142,6 +142,8 @@ describe("the control loop on an after-crash job", () => {
     expect(text).toContain("Differs from the value to enter");
     expect(text).toContain("5.2 Tool-centre-point check after compensation");
     expect(text).toContain("tcp-e2e.csv");
+    // Each judged TCP figure says the rule and where the procedure's limit comes from.
+    expect(text).toContain("Rule: simple; limit: Customer specification");
     expect(text).toContain("Value to enter = as found + correction");
     expect(text).toContain("qualified people");
     // The approved fit's budget, with the demo's register inputs (probe 0.50 µm, presetter 2.00 µm).
