@@ -133,6 +133,7 @@ function PositioningLimitsFields({ headAxes }: { headAxes: readonly HeadModelAxe
         Upper limits in arc seconds for the bidirectional figures of the standard. Leave a limit empty for a
         figure that is recorded, not judged. Any limit for an axis makes its positioning test part of the job
         before the report is issued.
+        {letters ? ` The axis letters are those of the register's heads of model ${headModel!.trim()}.` : ""}
       </p>
       <div className="mt-2 grid gap-4">
         {HEAD_AXIS_ROLES.map((axis) => (
