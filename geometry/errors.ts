@@ -36,3 +36,13 @@ export class GeometryError extends Error {
     this.issues = issues.length > 0 ? issues : [{ message }];
   }
 }
+
+/**
+ * Throw bad_number naming the first top-level number of `result` that is not finite, e.g. "the
+ * sweep's tilt_arcsec is beyond the number range; check the units" (`what` = "the sweep").
+ */
+export function assertFiniteFields(result: object, what: string): void {
+  for (const [key, v] of Object.entries(result))
+    if (typeof v === "number" && !Number.isFinite(v))
+      throw new GeometryError("bad_number", `${what}'s ${key} is beyond the number range; check the units`);
+}

@@ -3,7 +3,8 @@
  * table, an adapter collar). Readings at angles θ reveal the face's tilt to the spindle axis.
  */
 import { Matrix, solve } from "ml-matrix";
-import { GeometryError } from "./errors";
+import { assertFiniteFields, GeometryError } from "./errors";
+import { pickFields } from "./json";
 import { ColumnQr } from "./qr";
 import { RAD_PER_ARCSEC, RAD_PER_DEG } from "./units";
 
@@ -251,20 +252,18 @@ export function fitSweep(input: SweepInput, radiusMm: number): SweepResult {
     residuals_um: residuals,
     notes,
   };
-  for (const [key, v] of Object.entries(result))
-    if (typeof v === "number" && !Number.isFinite(v))
-      throw new GeometryError("bad_number", `the sweep's ${key} is beyond the number range; check the units`);
+  assertFiniteFields(result, "the sweep");
   return result;
 }
 
 /** The CLI's JSON shape and the stored dataset summary (see geometry/README.md), in this order. */
 export function sweepToJson(r: SweepResult) {
-  return {
-    tilt_um_per_m: r.tilt_um_per_m,
-    tilt_arcsec: r.tilt_arcsec,
-    direction_deg: r.direction_deg,
-    tir_um: r.tir_um,
-    flatness_ls_um: r.flatness_ls_um,
-    flatness_mz_um: r.flatness_mz_um,
-  };
+  return pickFields(r, [
+    "tilt_um_per_m",
+    "tilt_arcsec",
+    "direction_deg",
+    "tir_um",
+    "flatness_ls_um",
+    "flatness_mz_um",
+  ]);
 }

@@ -6,6 +6,7 @@
  * from the procedure (judge them with decide()).
  */
 import { GeometryError } from "./errors";
+import { pickFields } from "./json";
 import { assertFiniteDeep } from "./positioning";
 
 export interface TcpCheckInput {
@@ -115,11 +116,5 @@ export function tcpCheck(input: TcpCheckInput): TcpCheckResult {
 
 /** The CLI's JSON shape (see geometry/README.md). */
 export function tcpCheckToJson(r: TcpCheckResult) {
-  return {
-    range_um: r.range_um,
-    max_from_mean_um: r.max_from_mean_um,
-    worst_row: r.worst_row,
-    poses: r.poses,
-    warnings: r.warnings,
-  };
+  return pickFields(r, ["range_um", "max_from_mean_um", "worst_row", "poses", "warnings"]);
 }

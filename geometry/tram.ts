@@ -2,7 +2,8 @@
  * Indicator tram: readings taken along a travel (an indicator on the spindle while one machine
  * axis moves, or the head's face indicated along a straight edge).
  */
-import { GeometryError } from "./errors";
+import { assertFiniteFields, GeometryError } from "./errors";
+import { pickFields } from "./json";
 import { RAD_PER_ARCSEC } from "./units";
 
 export interface TramInput {
@@ -107,21 +108,13 @@ export function fitTram(input: TramInput): TramResult {
     tir_um: ymax - ymin,
     residuals_um: residuals,
   };
-  for (const [key, v] of Object.entries(result))
-    if (typeof v === "number" && !Number.isFinite(v))
-      throw new GeometryError("bad_number", `the tram's ${key} is beyond the number range; check the units`);
+  assertFiniteFields(result, "the tram");
   return result;
 }
 
 /** The CLI's JSON shape and the stored dataset summary (see geometry/README.md), in this order. */
 export function tramToJson(r: TramResult) {
-  return {
-    slope_um_per_m: r.slope_um_per_m,
-    slope_u_um_per_m: r.slope_u_um_per_m,
-    angle_arcsec: r.angle_arcsec,
-    straightness_um: r.straightness_um,
-    tir_um: r.tir_um,
-  };
+  return pickFields(r, ["slope_um_per_m", "slope_u_um_per_m", "angle_arcsec", "straightness_um", "tir_um"]);
 }
 
 /** The power of two nearest above m (1 for 0), so that dividing by it is exact. */

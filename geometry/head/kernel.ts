@@ -205,29 +205,21 @@ export class HeadKernel {
       s6 = Rs[6]!,
       s7 = Rs[7]!,
       s8 = Rs[8]!;
-    let x0: number, x1: number, x2: number;
+    let x0 = 0,
+      x1 = 0,
+      x2 = 0;
     // Column j = f·Rp·(x0, x1, x2).
-    // 0: Rp Rs t
-    x0 = s0 * t[0] + s1 * t[1] + s2 * t[2];
-    x1 = s3 * t[0] + s4 * t[1] + s5 * t[2];
-    x2 = s6 * t[0] + s7 * t[1] + s8 * t[2];
-    J[0] = U * (r0 * x0 + r1 * x1 + r2 * x2);
-    J[10] = U * (r3 * x0 + r4 * x1 + r5 * x2);
-    J[20] = U * (r6 * x0 + r7 * x1 + r8 * x2);
-    // 1: Rp Rs s
-    x0 = s0 * s[0] + s1 * s[1] + s2 * s[2];
-    x1 = s3 * s[0] + s4 * s[1] + s5 * s[2];
-    x2 = s6 * s[0] + s7 * s[1] + s8 * s[2];
-    J[1] = U * (r0 * x0 + r1 * x1 + r2 * x2);
-    J[11] = U * (r3 * x0 + r4 * x1 + r5 * x2);
-    J[21] = U * (r6 * x0 + r7 * x1 + r8 * x2);
-    // 2: Rp Rs n; 3: Rp (n − Rs n)
-    x0 = s0 * n[0] + s1 * n[1] + s2 * n[2];
-    x1 = s3 * n[0] + s4 * n[1] + s5 * n[2];
-    x2 = s6 * n[0] + s7 * n[1] + s8 * n[2];
-    J[2] = U * (r0 * x0 + r1 * x1 + r2 * x2);
-    J[12] = U * (r3 * x0 + r4 * x1 + r5 * x2);
-    J[22] = U * (r6 * x0 + r7 * x1 + r8 * x2);
+    // 0, 1, 2: Rp Rs u for u = t, s, n (the loop leaves x = Rs n for column 3)
+    for (let j = 0; j <= 2; j++) {
+      const u = j === 0 ? t : j === 1 ? s : n;
+      x0 = s0 * u[0] + s1 * u[1] + s2 * u[2];
+      x1 = s3 * u[0] + s4 * u[1] + s5 * u[2];
+      x2 = s6 * u[0] + s7 * u[1] + s8 * u[2];
+      J[j] = U * (r0 * x0 + r1 * x1 + r2 * x2);
+      J[10 + j] = U * (r3 * x0 + r4 * x1 + r5 * x2);
+      J[20 + j] = U * (r6 * x0 + r7 * x1 + r8 * x2);
+    }
+    // 3: Rp (n − Rs n)
     x0 = n[0] - x0;
     x1 = n[1] - x1;
     x2 = n[2] - x2;

@@ -11,7 +11,6 @@
  *     Prints { range_um: { x, y, z }, max_from_mean_um, worst_row, poses, warnings }.
  */
 import {
-  formatIssue,
   readRotaryPositioningCsv,
   readSphereProbeCsv,
   rotaryPositioning,
@@ -19,9 +18,7 @@ import {
   tcpCheck,
   tcpCheckToJson,
 } from "@/geometry";
-import { choiceOption, type CliCommand, type CliContext } from "./command";
-
-const decimalOf = (ctx: CliContext) => choiceOption(ctx, "decimal", ["point", "comma"] as const, "point");
+import { decimalOf, lengthUnitsOf, passWarnings, type CliCommand } from "./command";
 
 const rotaryPositioningCommand: CliCommand = {
   usage: "rotary-positioning <positions.csv> [--decimal point|comma]",
@@ -30,7 +27,7 @@ const rotaryPositioningCommand: CliCommand = {
   options: ["decimal"],
   run(ctx) {
     const data = readRotaryPositioningCsv(ctx.text, { decimal: decimalOf(ctx) });
-    data.warnings.forEach((w) => ctx.warn(formatIssue(w)));
+    passWarnings(ctx, data.warnings);
     return rotaryPositioningToJson(rotaryPositioning(data));
   },
 };
@@ -42,10 +39,10 @@ const tcpCheckCommand: CliCommand = {
   options: ["units", "decimal"],
   run(ctx) {
     const data = readSphereProbeCsv(ctx.text, {
-      units: choiceOption(ctx, "units", ["mm", "in"] as const, "mm"),
+      units: lengthUnitsOf(ctx),
       decimal: decimalOf(ctx),
     });
-    data.warnings.forEach((w) => ctx.warn(formatIssue(w)));
+    passWarnings(ctx, data.warnings);
     return tcpCheckToJson(tcpCheck(data));
   },
 };

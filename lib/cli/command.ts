@@ -1,7 +1,9 @@
 /**
  * The shape of a `npm run geometry` command, shared by the dispatcher (geometry.ts) and the command
- * modules that register into it (head-commands.ts), so neither imports the other's internals.
+ * modules that register into it (head-commands.ts, check-commands.ts), so neither imports the
+ * other's internals; and the options and warnings every command reads and prints the same way.
  */
+import { formatIssue, type CsvWarning } from "@/geometry";
 
 /** Parsed command line after the command name: the input file and its `--name value` options. */
 export interface CliContext {
@@ -69,7 +71,19 @@ export function numberOption(
   return n;
 }
 
-/** The named fields of a result, in the order given: a command's documented JSON. */
-export function pick<T, K extends keyof T>(result: T, keys: readonly K[]): Pick<T, K> {
-  return Object.fromEntries(keys.map((k) => [k, result[k]])) as Pick<T, K>;
+/** --decimal point|comma: the decimal mark the CSV file is written with. */
+export const decimalOf = (ctx: CliContext) =>
+  choiceOption(ctx, "decimal", ["point", "comma"] as const, "point");
+
+/** A length unit option, mm or in (default mm): --units, --travel-units. */
+export const lengthUnitsOf = (ctx: CliContext, name = "units") =>
+  choiceOption(ctx, name, ["mm", "in"] as const, "mm");
+
+/** --reading-units um|mm|in: the unit the indicator readings are written in (default µm). */
+export const readingUnitsOf = (ctx: CliContext) =>
+  choiceOption(ctx, "reading-units", ["um", "mm", "in"] as const, "um");
+
+/** A CSV reader's warnings on stderr, one line each naming its row and column. */
+export function passWarnings(ctx: CliContext, warnings: readonly CsvWarning[]): void {
+  warnings.forEach((w) => ctx.warn(formatIssue(w)));
 }

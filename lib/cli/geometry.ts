@@ -20,10 +20,20 @@ import {
   readTramCsv,
   sweepToJson,
   tramToJson,
-  type CsvWarning,
 } from "@/geometry";
 import { readLarge } from "./chunked-csv";
-import { choiceOption, CliUsageError, numberOption, pick, type CliCommand, type CliContext } from "./command";
+import { pickFields } from "@/geometry/json";
+import {
+  choiceOption,
+  CliUsageError,
+  decimalOf,
+  lengthUnitsOf,
+  numberOption,
+  passWarnings,
+  readingUnitsOf,
+  type CliCommand,
+  type CliContext,
+} from "./command";
 // ── HEAD COMMANDS (fit-head, plan) ─────────────────────────────────────────────────────────────
 // ./head-commands.ts (owned by the head-model work) exports
 //   `export const headCommands: Record<string, CliCommand> = { "fit-head": …, plan: … }`
@@ -32,24 +42,20 @@ import { choiceOption, CliUsageError, numberOption, pick, type CliCommand, type 
 import { headCommands } from "./head-commands";
 import { checkCommands } from "./check-commands";
 
-const decimalOf = (ctx: CliContext) => choiceOption(ctx, "decimal", ["point", "comma"] as const, "point");
-const passWarnings = (ctx: CliContext, warnings: readonly CsvWarning[]) =>
-  warnings.forEach((w) => ctx.warn(formatIssue(w)));
-
 const circle: CliCommand = {
   usage: "circle <points.csv> [--units mm|in] [--decimal point|comma]",
   summary: "fit a circle to x,y,z points taken while one axis turns: axis direction, a point on it, radius",
   options: ["units", "decimal"],
   run(ctx) {
     const options = {
-      units: choiceOption(ctx, "units", ["mm", "in"] as const, "mm"),
+      units: lengthUnitsOf(ctx),
       decimal: decimalOf(ctx),
     };
     const data = readLarge(ctx, (text) => readPointsCsv(text, options));
     passWarnings(ctx, data.warnings);
     const f = fitCircle(data);
     f.warnings.forEach((w) => ctx.warn(w));
-    return pick(f, [
+    return pickFields(f, [
       "centre_mm",
       "normal",
       "radius_mm",
@@ -68,8 +74,8 @@ const tram: CliCommand = {
   options: ["travel-units", "reading-units", "decimal"],
   run(ctx) {
     const options = {
-      travelUnits: choiceOption(ctx, "travel-units", ["mm", "in"] as const, "mm"),
-      readingUnits: choiceOption(ctx, "reading-units", ["um", "mm", "in"] as const, "um"),
+      travelUnits: lengthUnitsOf(ctx, "travel-units"),
+      readingUnits: readingUnitsOf(ctx),
       decimal: decimalOf(ctx),
     };
     const data = readLarge(ctx, (text) => readTramCsv(text, options));
@@ -99,7 +105,7 @@ const sweep: CliCommand = {
   run(ctx) {
     const radius = numberOption(ctx, "radius-mm", { required: true, positive: true })!;
     const options = {
-      readingUnits: choiceOption(ctx, "reading-units", ["um", "mm", "in"] as const, "um"),
+      readingUnits: readingUnitsOf(ctx),
       decimal: decimalOf(ctx),
     };
     const data = readLarge(ctx, (text) => readSweepCsv(text, options));

@@ -30,14 +30,21 @@ import {
   parseHeadConfig,
   planHeadPoses,
   readSphereProbeCsv,
-  formatIssue,
   type HeadConfig,
 } from "@/geometry";
 // The pose list uses the shared table reader of geometry/csv (the same tokeniser and number checks
 // as every product CSV); it has no reader of its own in geometry/csv's public index.
 import { readTable } from "@/geometry/csv/table";
 import { readLarge } from "./chunked-csv";
-import { choiceOption, CliUsageError, numberOption, type CliCommand, type CliContext } from "./command";
+import {
+  CliUsageError,
+  decimalOf,
+  lengthUnitsOf,
+  numberOption,
+  passWarnings,
+  type CliCommand,
+  type CliContext,
+} from "./command";
 
 function readHead(ctx: CliContext): HeadConfig {
   const path = ctx.options.head;
@@ -61,8 +68,6 @@ function readHead(ctx: CliContext): HeadConfig {
   return parseHeadConfig(json);
 }
 
-const decimalOf = (ctx: CliContext) => choiceOption(ctx, "decimal", ["point", "comma"] as const, "point");
-
 const fitHeadCommand: CliCommand = {
   usage:
     "fit-head <sphere.csv> --head head.json [--units mm|in] [--decimal point|comma] [--u-probe-um u] [--u-tool-um u] [--delta-t-k ΔT]",
@@ -72,11 +77,11 @@ const fitHeadCommand: CliCommand = {
   run(ctx) {
     const config = readHead(ctx);
     const options = {
-      units: choiceOption(ctx, "units", ["mm", "in"] as const, "mm"),
+      units: lengthUnitsOf(ctx),
       decimal: decimalOf(ctx),
     };
     const data = readLarge(ctx, (text) => readSphereProbeCsv(text, options));
-    data.warnings.forEach((w) => ctx.warn(formatIssue(w)));
+    passWarnings(ctx, data.warnings);
     const json = headFitToJson(fitHead(config, data));
     // JCGM 100 budget (geometry/budget.ts) when Type B inputs are given.
     const typeB = {
@@ -111,7 +116,7 @@ const planCommand: CliCommand = {
       ],
       { decimal: decimalOf(ctx) },
     );
-    t.warnings.forEach((w) => ctx.warn(formatIssue(w)));
+    passWarnings(ctx, t.warnings);
     const toolMm = t.numbers.get("tool_mm");
     const plan = planHeadPoses(config, {
       rows: t.rows,

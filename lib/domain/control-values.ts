@@ -6,15 +6,14 @@
  */
 // Relative import: db/schema.ts loads this file under drizzle-kit, without the app's path alias.
 import type { HeadParameterKey } from "../../geometry/head/config";
+import { closedSet } from "./closed-set";
 
 /** As found before any change, and as left after the engineer entered the new values. */
-export const CONTROL_VALUE_STAGES = ["as_found", "as_left"] as const;
-export type ControlValueStage = (typeof CONTROL_VALUE_STAGES)[number];
-
-export const CONTROL_VALUE_STAGE_LABELS: Record<ControlValueStage, string> = {
+export const { values: CONTROL_VALUE_STAGES, labels: CONTROL_VALUE_STAGE_LABELS } = closedSet({
   as_found: "As found",
   as_left: "As left",
-};
+});
+export type ControlValueStage = (typeof CONTROL_VALUE_STAGES)[number];
 
 export const CONTROL_VALUE_KEYS = [
   "pivot_length_mm",

@@ -1,22 +1,15 @@
 /** Uploaded datasets: their kinds, the two phases of the work, and the list row pages show. */
-export const DATASET_KINDS = [
-  "sphere_probe",
-  "tram",
-  "sweep",
-  "test_part",
-  "tcp_check",
-  "rotary_positioning",
-] as const;
-export type DatasetKind = (typeof DATASET_KINDS)[number];
+import { closedSet } from "./closed-set";
 
-export const DATASET_KIND_LABELS: Record<DatasetKind, string> = {
+export const { values: DATASET_KINDS, labels: DATASET_KIND_LABELS } = closedSet({
   sphere_probe: "Sphere probing",
   tram: "Indicator tram",
   sweep: "Indicator sweep",
   test_part: "Test-part measurements",
   tcp_check: "Tool-centre-point check",
   rotary_positioning: "Rotary positioning (ISO 230-2)",
-};
+});
+export type DatasetKind = (typeof DATASET_KINDS)[number];
 
 /** The CSV format each kind is read with: a TCP check is sphere-probe data (geometry/README.md). */
 export const CSV_FORMAT_OF = {
@@ -32,10 +25,11 @@ export const DATASET_STATUSES = ["stored", "deleted"] as const;
 export type DatasetStatus = (typeof DATASET_STATUSES)[number];
 
 /** Before or after the adjustment: readings, datasets and fits each belong to one. */
-export const PHASES = ["pre", "post"] as const;
+export const { values: PHASES, labels: PHASE_LABELS } = closedSet({
+  pre: "Before adjustment",
+  post: "After adjustment",
+});
 export type Phase = (typeof PHASES)[number];
-
-export const PHASE_LABELS: Record<Phase, string> = { pre: "Before adjustment", post: "After adjustment" };
 
 /** The same in running text ("the before adjustment reading"). */
 export function phaseText(phase: Phase): string {

@@ -1,20 +1,7 @@
 /** A job's closed sets: its status flow and its kind, with one label each. */
-export const JOB_STATUSES = [
-  "draft",
-  "measuring",
-  "in_review",
-  "approved",
-  "issued",
-  "accepted",
-  "rejected",
-  /** Paused by the office; the job remembers the status it left (jobs.held_from_status). */
-  "on_hold",
-  /** Stopped for good with a reason; kept and readable, every write refused. */
-  "cancelled",
-] as const;
-export type JobStatus = (typeof JOB_STATUSES)[number];
+import { closedSet } from "./closed-set";
 
-export const STATUS_LABELS: Record<JobStatus, string> = {
+export const { values: JOB_STATUSES, labels: STATUS_LABELS } = closedSet({
   draft: "Draft",
   measuring: "Measuring",
   in_review: "In review",
@@ -22,9 +9,12 @@ export const STATUS_LABELS: Record<JobStatus, string> = {
   issued: "Issued",
   accepted: "Accepted",
   rejected: "Rejected",
+  /** Paused by the office; the job remembers the status it left (jobs.held_from_status). */
   on_hold: "On hold",
+  /** Stopped for good with a reason; kept and readable, every write refused. */
   cancelled: "Cancelled",
-};
+});
+export type JobStatus = (typeof JOB_STATUSES)[number];
 
 /** Statuses after which the job's record fields (title, order, contact, schedule…) are fixed. */
 export const JOB_RECORD_CLOSED_STATUSES: readonly JobStatus[] = [
@@ -34,14 +24,12 @@ export const JOB_RECORD_CLOSED_STATUSES: readonly JobStatus[] = [
   "cancelled",
 ];
 
-export const JOB_KINDS = ["installation", "reverification", "after_crash"] as const;
-export type JobKind = (typeof JOB_KINDS)[number];
-
-export const JOB_KIND_LABELS: Record<JobKind, string> = {
+export const { values: JOB_KINDS, labels: JOB_KIND_LABELS } = closedSet({
   installation: "Installation",
   reverification: "Re-verification",
   after_crash: "Check after a crash",
-};
+});
+export type JobKind = (typeof JOB_KINDS)[number];
 
 /** The columns the jobs list sorts by (the API's `sort` parameter). */
 export const JOB_SORT_KEYS = ["reference", "title", "status", "customer", "machine", "updated"] as const;

@@ -3,6 +3,7 @@
  * its points. db/schema.ts builds its enums from these arrays; forms, labels and the checklist
  * read them from here.
  */
+import { closedSet } from "./closed-set";
 
 /**
  * How a step's value is obtained.
@@ -16,18 +17,7 @@
  *   thickness), with free text beside it (where the shims went).
  * - note: text only (stored as value 0 with the text in text_value); never judged.
  */
-export const STEP_KINDS = [
-  "direct",
-  "angle_over_distance",
-  "sweep_flatness",
-  "check",
-  "multi_point",
-  "record",
-  "note",
-] as const;
-export type StepKind = (typeof STEP_KINDS)[number];
-
-export const STEP_KIND_LABELS: Record<StepKind, string> = {
+export const { values: STEP_KINDS, labels: STEP_KIND_LABELS } = closedSet({
   direct: "Single reading",
   angle_over_distance: "Angle from a reading over a distance",
   sweep_flatness: "From an uploaded sweep",
@@ -35,7 +25,8 @@ export const STEP_KIND_LABELS: Record<StepKind, string> = {
   multi_point: "Readings at several points",
   record: "Value for the record",
   note: "Note",
-};
+});
+export type StepKind = (typeof STEP_KINDS)[number];
 
 /** Step kinds whose value is judged against limits. */
 export const JUDGED_STEP_KINDS: readonly StepKind[] = [
@@ -53,14 +44,12 @@ export const JUDGED_STEP_KINDS: readonly StepKind[] = [
  * - flatness: spread of the readings about the least-squares plane through them (face readings
  *   at clock positions).
  */
-export const MULTI_POINT_RESULTS = ["tir", "mean", "flatness"] as const;
-export type MultiPointResult = (typeof MULTI_POINT_RESULTS)[number];
-
-export const MULTI_POINT_RESULT_LABELS: Record<MultiPointResult, string> = {
+export const { values: MULTI_POINT_RESULTS, labels: MULTI_POINT_RESULT_LABELS } = closedSet({
   tir: "Total indicator reading (largest − smallest)",
   mean: "Mean of the points",
   flatness: "Flatness about the best-fit plane",
-};
+});
+export type MultiPointResult = (typeof MULTI_POINT_RESULTS)[number];
 
 /** The usual point sets a procedure offers (clock positions seen from the operator's side). */
 export const CLOCK_POINTS_4 = ["12", "3", "6", "9"] as const;

@@ -3,16 +3,16 @@
  * database enum (db/schema.ts), the zod enums and every label are derived from ROLES. What each
  * role may do lives in lib/policy.
  */
-export const ROLES = ["admin", "installer", "inspector", "engineer", "customer"] as const;
-export type Role = (typeof ROLES)[number];
+import { closedSet } from "./closed-set";
 
-export const ROLE_LABELS: Record<Role, string> = {
+export const { values: ROLES, labels: ROLE_LABELS } = closedSet({
   admin: "Administrator",
   installer: "Installer",
   inspector: "Inspector",
   engineer: "Application engineer",
   customer: "Customer",
-};
+});
+export type Role = (typeof ROLES)[number];
 
 export function isRole(value: unknown): value is Role {
   return typeof value === "string" && (ROLES as readonly string[]).includes(value);

@@ -8,25 +8,17 @@
  */
 import type { JobStatus } from "@/lib/domain/jobs";
 import type { Actor, Role } from "@/lib/domain/roles";
+import { closedSet } from "@/lib/domain/closed-set";
 
-export const JOB_QUEUES = [
-  "to_schedule",
-  "to_measure",
-  "to_inspect",
-  "to_approve",
-  "to_issue",
-  "to_accept",
-] as const;
-export type JobQueue = (typeof JOB_QUEUES)[number];
-
-export const QUEUE_LABELS: Record<JobQueue, string> = {
+export const { values: JOB_QUEUES, labels: QUEUE_LABELS } = closedSet({
   to_schedule: "To schedule",
   to_measure: "To measure",
   to_inspect: "To inspect",
   to_approve: "To approve",
   to_issue: "To issue",
   to_accept: "To accept",
-};
+});
+export type JobQueue = (typeof JOB_QUEUES)[number];
 
 const ROLE_QUEUES: Record<Role, readonly JobQueue[]> = {
   admin: ["to_schedule"],

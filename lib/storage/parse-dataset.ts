@@ -62,6 +62,18 @@ const headerLine = z
   )
   .optional();
 
+/** An expanded uncertainty U (k = 2) in `unit`, at most `max`; a blank field means none stated. */
+const expandedUncertainty = (unit: { name: string; symbol: string }, max: number) =>
+  z.preprocess(
+    (v) => (v === "" ? undefined : v),
+    z.coerce
+      .number({ error: `the expanded uncertainty must be a number (${unit.name})` })
+      .finite()
+      .min(0, `the expanded uncertainty must be ≥ 0${unit.symbol}`)
+      .max(max)
+      .optional(),
+  );
+
 const sphereProbeForm = z.object({
   units: z.enum(["mm", "in"], { error: "choose mm or in for the x, y, z columns" }),
   decimal,
@@ -93,29 +105,13 @@ const formSchemas = {
     decimal,
     header: headerLine,
     /** Expanded uncertainty U (k = 2) of the angle measurement, arc seconds (for the guarded rule). */
-    uncertainty_arcsec: z.preprocess(
-      (v) => (v === "" ? undefined : v),
-      z.coerce
-        .number({ error: "the expanded uncertainty must be a number (arc seconds)" })
-        .finite()
-        .min(0, "the expanded uncertainty must be ≥ 0″")
-        .max(36_000)
-        .optional(),
-    ),
+    uncertainty_arcsec: expandedUncertainty({ name: "arc seconds", symbol: "″" }, 36_000),
   }),
   test_part: z.object({
     decimal,
     header: headerLine,
     /** Expanded uncertainty U (k = 2) of the part measurement for length rows, mm (converted to in/µm per row). */
-    uncertainty_mm: z.preprocess(
-      (v) => (v === "" ? undefined : v),
-      z.coerce
-        .number({ error: "the expanded uncertainty must be a number (mm)" })
-        .finite()
-        .min(0, "the expanded uncertainty must be ≥ 0 mm")
-        .max(10)
-        .optional(),
-    ),
+    uncertainty_mm: expandedUncertainty({ name: "mm", symbol: " mm" }, 10),
   }),
 } as const;
 
