@@ -18,6 +18,7 @@ import {
   templateSteps,
   users,
 } from "@/db/schema";
+import { hasRows } from "@/db/seed-helpers";
 import { deriveReading } from "@/lib/checklist";
 import type { EntryUnit } from "@/lib/units";
 
@@ -473,12 +474,7 @@ export const DEFAULT_PARAMETER_LIMITS: ReadonlyArray<
 
 /** Adds the default parameter limits to the demo template version when it has none (demo databases made before they existed). */
 async function ensureParameterLimits(templateId: string) {
-  const [any] = await db
-    .select({ id: templateParameterLimits.id })
-    .from(templateParameterLimits)
-    .where(eq(templateParameterLimits.templateId, templateId))
-    .limit(1);
-  if (any) return;
+  if (await hasRows(templateParameterLimits, eq(templateParameterLimits.templateId, templateId))) return;
   await db
     .insert(templateParameterLimits)
     .values(DEFAULT_PARAMETER_LIMITS.map((l) => ({ ...l, templateId })));
@@ -522,12 +518,7 @@ async function ensureTemplate(
 async function seedReadings(reference: string, start: Date, list: DemoReading[], installerId: string) {
   const [job] = await db.select().from(jobs).where(eq(jobs.reference, reference));
   if (!job?.templateId) return;
-  const existing = await db
-    .select({ id: readings.id })
-    .from(readings)
-    .where(eq(readings.jobId, job.id))
-    .limit(1);
-  if (existing.length) return;
+  if (await hasRows(readings, eq(readings.jobId, job.id))) return;
   const steps = await db.select().from(templateSteps).where(eq(templateSteps.templateId, job.templateId));
   const insts = await db.select().from(instruments);
   await db.transaction(async (tx) => {

@@ -11,7 +11,7 @@ import { controlValueRecords, instruments, jobs, procedureTemplates, templateSte
 import { DEFAULT_STEPS } from "@/db/seed-checklists";
 import { recordBudgetInputs } from "@/db/queries/budget";
 import { DEMO_HEAD_CONFIG, demoSphereProbeCsv } from "@/db/seed-analyses";
-import { demoActor, fitAndApprove, sphereProbeCsvText, storeCsv } from "@/db/seed-helpers";
+import { demoActor, fitAndApprove, hasRows, sphereProbeCsvText, storeCsv } from "@/db/seed-helpers";
 import { headPoseGrid, synthesiseSphereProbe, type HeadErrors } from "@/geometry";
 import { CONTROL_DECIMALS } from "@/lib/control-values";
 
@@ -158,12 +158,11 @@ export async function seedControlLoop(password: string): Promise<void> {
       return row!;
     });
   }
-  const [done] = await db
-    .select({ id: controlValueRecords.id })
-    .from(controlValueRecords)
-    .where(eq(controlValueRecords.jobId, job.id))
-    .limit(1);
-  if (done || job.status !== "in_review") return;
+  if (
+    job.status !== "in_review" ||
+    (await hasRows(controlValueRecords, eq(controlValueRecords.jobId, job.id)))
+  )
+    return;
   await recordControlValues(engineer, job.id, {
     stage: "as_found",
     unitSystem: "metric",

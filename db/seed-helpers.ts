@@ -1,10 +1,12 @@
 /**
- * What the demo seeds share: the demo people as actors, storing a CSV through the same parse and
+ * What the demo seeds share: the demo people as actors, whether a step's rows are already there,
+ * storing a CSV through the same parse and
  * insert path as the upload route, writing synthesised sphere-probe data as CSV text, and the
  * engineer's approval of a fit (confirming any parameter that does not conform, as the form asks).
  */
 import { createHash } from "node:crypto";
-import { eq } from "drizzle-orm";
+import { eq, sql, type SQL } from "drizzle-orm";
+import type { PgTable } from "drizzle-orm/pg-core";
 import { db } from "@/db";
 import { approveAnalysis, nonConformingParameters, runHeadFit } from "@/db/queries/analyses";
 import { insertDataset } from "@/db/queries/datasets";
@@ -20,6 +22,16 @@ export async function demoActor(email: string): Promise<Actor> {
   const a = u ? await getActor(u.id) : null;
   if (!a) throw new Error(`seed: no demo user ${email}`);
   return a;
+}
+
+/** Whether `table` has a row matching `where`: a seed step whose rows are already there skips them. */
+export async function hasRows(table: PgTable, where: SQL): Promise<boolean> {
+  const found = await db
+    .select({ one: sql`1` })
+    .from(table)
+    .where(where)
+    .limit(1);
+  return found.length > 0;
 }
 
 /** Stores CSV text as a dataset of the job, parsed and checked as an upload with these form fields is. */
