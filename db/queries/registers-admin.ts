@@ -30,10 +30,7 @@ export async function createCustomer(actor: Actor, input: z.infer<typeof custome
     .select({ id: customers.id })
     .from(customers)
     .where(sql`lower(${customers.name}) = ${input.name.toLowerCase()}`);
-  if (dupe)
-    throw invalid("A customer with that name is already registered.", [
-      { field: "name", message: "Already registered." },
-    ]);
+  if (dupe) throw alreadyRegistered("A customer with that name is already registered.");
   return insertRegisterRow(
     actor,
     customers,
@@ -50,10 +47,7 @@ export async function createSite(actor: Actor, input: z.infer<typeof siteCreateS
     .select({ id: sites.id })
     .from(sites)
     .where(and(eq(sites.customerId, c.id), eq(sites.name, input.name)));
-  if (dupe)
-    throw invalid("That customer already has a site of that name.", [
-      { field: "name", message: "Already registered." },
-    ]);
+  if (dupe) throw alreadyRegistered("That customer already has a site of that name.");
   return insertRegisterRow(
     actor,
     sites,
@@ -249,6 +243,11 @@ export async function activeHostMachine(machineId: string) {
   return refuseUnusable(m, "machineId", "host machine", "machine");
 }
 
+/** The 422 for a register entry that would repeat one already there, naming the field. */
+function alreadyRegistered(message: string, field = "name") {
+  return invalid(message, [{ field, message: "Already registered." }]);
+}
+
 /** Turns a PostgreSQL unique violation on `column` into a 422 naming the field; rethrows anything else. */
 export async function uniqueAs<R>(field: string, message: string, work: () => Promise<R>): Promise<R> {
   try {
@@ -256,8 +255,7 @@ export async function uniqueAs<R>(field: string, message: string, work: () => Pr
   } catch (err) {
     let e: unknown = err;
     while (e instanceof Error && (e as { code?: string }).code !== "23505" && e.cause) e = e.cause;
-    if ((e as { code?: string })?.code === "23505")
-      throw invalid(message, [{ field, message: "Already registered." }]);
+    if ((e as { code?: string })?.code === "23505") throw alreadyRegistered(message, field);
     throw err;
   }
 }
@@ -291,10 +289,7 @@ export async function updateSite(actor: Actor, id: string, input: z.infer<typeof
           .from(sites)
           .where(and(eq(sites.customerId, own.customerId), eq(sites.name, input.name), ne(sites.id, id)))
       : [];
-    if (dupe)
-      throw invalid("That customer already has a site of that name.", [
-        { field: "name", message: "Already registered." },
-      ]);
+    if (dupe) throw alreadyRegistered("That customer already has a site of that name.");
   }
   return updateRegisterRow(
     actor,
