@@ -639,10 +639,8 @@ export const headAxisRoleEnum = pgEnum("head_axis_role", HEAD_AXIS_ROLES);
 export const templatePositioningLimits = pgTable(
   "template_positioning_limits",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    templateId: uuid("template_id")
-      .notNull()
-      .references(() => procedureTemplates.id, { onDelete: "cascade" }),
+    id: primaryId(),
+    templateId: requiredRef("template_id", () => procedureTemplates.id, "cascade"),
     axis: headAxisRoleEnum("axis").notNull(),
     quantity: text("quantity").notNull(),
     upperLimitArcsec: doublePrecision("upper_limit_arcsec").notNull(),
@@ -799,9 +797,7 @@ export type IssuerSettings = typeof issuerSettings.$inferSelect;
 export const reportViews = pgTable(
   "report_views",
   {
-    viewId: uuid("view_id")
-      .primaryKey()
-      .references(() => analysisViews.id, { onDelete: "restrict" }),
+    viewId: ref("view_id", () => analysisViews.id).primaryKey(),
     jobId: jobRef(),
     included: boolean("included").notNull(),
     chosenById: byUser("chosen_by_id"),

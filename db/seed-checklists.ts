@@ -18,6 +18,7 @@ import {
   templateSteps,
   users,
 } from "@/db/schema";
+import { hasRows } from "@/db/seed-helpers";
 import { deriveReading } from "@/lib/checklist";
 import type { EntryUnit } from "@/lib/units";
 
@@ -34,8 +35,36 @@ const JOG =
 const CUT =
   "The spindle rotates and chips fly: guards closed, eye protection on, nobody inside the machine's working area. Follow the machine builder's manual, local codes and licensed practice.";
 
+type StepInsert = Omit<typeof templateSteps.$inferInsert, "templateId">;
+
+/** Indicating a face across the head at an axis zero: the same limit for either axis. */
+const ACROSS_HEAD_LIMIT = {
+  quantityKind: "length",
+  derivation: "direct",
+  lowerLimit: -0.0004 * IN,
+  upperLimit: 0.0004 * IN,
+  decisionRule: "simple",
+  limitSource: "maker_manual",
+  limitSourceNote: "As entered from the head maker's manual (figure invented for the demo).",
+  safetyNote: JOG,
+} satisfies Partial<StepInsert>;
+
+/** The tilt axis checked with a test bar over 4 in of Z travel, as both procedures do it. */
+const TEST_BAR_TILT = {
+  title: "Check the tilt axis with a test bar travelled in Z",
+  quantity: "Tilt of the tool axis from Z",
+  quantityKind: "angle",
+  derivation: "angle_over_distance",
+  distanceMm: 4 * IN,
+  lowerLimit: -10,
+  upperLimit: 10,
+  decisionRule: "simple",
+  limitSource: "maker_manual",
+  safetyNote: JOG,
+} satisfies Partial<StepInsert>;
+
 /** The default steps. Limits in canonical units: mm for length, arcsec for angle. */
-export const DEFAULT_STEPS: ReadonlyArray<Omit<typeof templateSteps.$inferInsert, "templateId">> = [
+export const DEFAULT_STEPS: ReadonlyArray<StepInsert> = [
   {
     position: 1,
     title: "Mount the adapter collar and prove its face",
@@ -73,14 +102,7 @@ export const DEFAULT_STEPS: ReadonlyArray<Omit<typeof templateSteps.$inferInsert
     instructions:
       "Indicate the reference face across the head at the primary axis zero; record the difference end to end (signed). Adjust the zero offset until it is inside the limit.",
     quantity: "Primary axis: indicator difference across the head",
-    quantityKind: "length",
-    derivation: "direct",
-    lowerLimit: -0.0004 * IN,
-    upperLimit: 0.0004 * IN,
-    decisionRule: "simple",
-    limitSource: "maker_manual",
-    limitSourceNote: "As entered from the head maker's manual (figure invented for the demo).",
-    safetyNote: JOG,
+    ...ACROSS_HEAD_LIMIT,
   },
   {
     position: 4,
@@ -88,31 +110,15 @@ export const DEFAULT_STEPS: ReadonlyArray<Omit<typeof templateSteps.$inferInsert
     instructions:
       "Indicate the reference face across the head at the secondary (tilt) axis zero; record the signed difference end to end.",
     quantity: "Secondary axis: indicator difference across the head",
-    quantityKind: "length",
-    derivation: "direct",
-    lowerLimit: -0.0004 * IN,
-    upperLimit: 0.0004 * IN,
-    decisionRule: "simple",
-    limitSource: "maker_manual",
-    limitSourceNote: "As entered from the head maker's manual (figure invented for the demo).",
-    safetyNote: JOG,
+    ...ACROSS_HEAD_LIMIT,
   },
   {
     position: 5,
-    title: "Check the tilt axis with a test bar travelled in Z",
+    ...TEST_BAR_TILT,
     instructions:
       "Hold a 1/2 in test bar or drill blank in the head, indicate its side and travel Z over the stated distance; record the change in reading. Trammel converts reading over travel to an angle (arc seconds).",
-    quantity: "Tilt of the tool axis from Z",
-    quantityKind: "angle",
-    derivation: "angle_over_distance",
-    distanceMm: 4 * IN,
-    lowerLimit: -10,
-    upperLimit: 10,
-    decisionRule: "simple",
-    limitSource: "maker_manual",
     limitSourceNote:
       "As entered from the head maker's manual (figure invented for the demo); the test bar is common practice.",
-    safetyNote: JOG,
   },
   {
     position: 6,
@@ -138,7 +144,7 @@ export const COLLISION_TEMPLATE_NAME = "Two-axis head check after a collision";
  * at clock positions with their TIR and a photo of the dial, values for the record, a reading
  * over a travel and a note. The after-collision draft TR-2026-0057 follows it.
  */
-export const COLLISION_STEPS: ReadonlyArray<Omit<typeof templateSteps.$inferInsert, "templateId">> = [
+export const COLLISION_STEPS: ReadonlyArray<StepInsert> = [
   {
     position: 1,
     title: "Lock out the machine before touching the head",
@@ -206,19 +212,10 @@ export const COLLISION_STEPS: ReadonlyArray<Omit<typeof templateSteps.$inferInse
   },
   {
     position: 5,
-    title: "Check the tilt axis with a test bar travelled in Z",
+    ...TEST_BAR_TILT,
     instructions:
       "Hold a test bar in the head, indicate its side and travel Z over the stated distance; record the change in reading.",
-    quantity: "Tilt of the tool axis from Z",
-    quantityKind: "angle",
-    derivation: "angle_over_distance",
-    distanceMm: 4 * IN,
-    lowerLimit: -10,
-    upperLimit: 10,
-    decisionRule: "simple",
-    limitSource: "maker_manual",
     limitSourceNote: "As entered from the head maker's manual (figure invented for the demo).",
-    safetyNote: JOG,
   },
   {
     position: 6,
@@ -477,12 +474,7 @@ export const DEFAULT_PARAMETER_LIMITS: ReadonlyArray<
 
 /** Adds the default parameter limits to the demo template version when it has none (demo databases made before they existed). */
 async function ensureParameterLimits(templateId: string) {
-  const [any] = await db
-    .select({ id: templateParameterLimits.id })
-    .from(templateParameterLimits)
-    .where(eq(templateParameterLimits.templateId, templateId))
-    .limit(1);
-  if (any) return;
+  if (await hasRows(templateParameterLimits, eq(templateParameterLimits.templateId, templateId))) return;
   await db
     .insert(templateParameterLimits)
     .values(DEFAULT_PARAMETER_LIMITS.map((l) => ({ ...l, templateId })));
@@ -526,12 +518,7 @@ async function ensureTemplate(
 async function seedReadings(reference: string, start: Date, list: DemoReading[], installerId: string) {
   const [job] = await db.select().from(jobs).where(eq(jobs.reference, reference));
   if (!job?.templateId) return;
-  const existing = await db
-    .select({ id: readings.id })
-    .from(readings)
-    .where(eq(readings.jobId, job.id))
-    .limit(1);
-  if (existing.length) return;
+  if (await hasRows(readings, eq(readings.jobId, job.id))) return;
   const steps = await db.select().from(templateSteps).where(eq(templateSteps.templateId, job.templateId));
   const insts = await db.select().from(instruments);
   await db.transaction(async (tx) => {

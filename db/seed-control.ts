@@ -5,13 +5,19 @@
  */
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
 import { getControlValues, recordControlValues } from "@/db/queries/control-values";
 import { controlValueRecords, instruments, jobs, procedureTemplates, templateSteps } from "@/db/schema";
 import { DEFAULT_STEPS } from "@/db/seed-checklists";
 import { recordBudgetInputs } from "@/db/queries/budget";
 import { DEMO_HEAD_CONFIG, demoSphereProbeCsv } from "@/db/seed-analyses";
-import { demoActor, fitAndApprove, sphereProbeCsvText, storeCsv } from "@/db/seed-helpers";
+import {
+  demoActor,
+  fitAndApprove,
+  hasRows,
+  insertDemoJob,
+  sphereProbeCsvText,
+  storeCsv,
+} from "@/db/seed-helpers";
 import { headPoseGrid, synthesiseSphereProbe, type HeadErrors } from "@/geometry";
 import { CONTROL_DECIMALS } from "@/lib/control-values";
 
@@ -130,40 +136,27 @@ export async function seedControlLoop(password: string): Promise<void> {
   }
   let [job] = await db.select().from(jobs).where(eq(jobs.reference, DEMO_CONTROL_JOB));
   if (!job) {
-    job = await db.transaction(async (tx) => {
-      const [row] = await tx
-        .insert(jobs)
-        .values({
-          reference: DEMO_CONTROL_JOB,
-          title: "Kinematic values after spindle collision on G-7",
-          kind: "after_crash",
-          status: "in_review",
-          customerId: template.customerId,
-          machineId: template.machineId,
-          headId: template.headId,
-          templateId: procedure!.id,
-          assignedInstallerId: installer.id,
-          decisionRule: "simple",
-          scheduledFor: new Date("2026-11-27T07:00:00Z"),
-          airTempC: 20.4,
-          createdById: engineer.id,
-        })
-        .returning();
-      await appendAudit(tx, engineer, {
-        action: "job.created",
-        entity: { type: "job", id: row!.id },
-        jobId: row!.id,
-        newValues: { reference: row!.reference, status: row!.status, note: "demo data (invented)" },
-      });
-      return row!;
+    job = await insertDemoJob(engineer, {
+      reference: DEMO_CONTROL_JOB,
+      title: "Kinematic values after spindle collision on G-7",
+      kind: "after_crash",
+      status: "in_review",
+      customerId: template.customerId,
+      machineId: template.machineId,
+      headId: template.headId,
+      templateId: procedure!.id,
+      assignedInstallerId: installer.id,
+      decisionRule: "simple",
+      scheduledFor: new Date("2026-11-27T07:00:00Z"),
+      airTempC: 20.4,
+      createdById: engineer.id,
     });
   }
-  const [done] = await db
-    .select({ id: controlValueRecords.id })
-    .from(controlValueRecords)
-    .where(eq(controlValueRecords.jobId, job.id))
-    .limit(1);
-  if (done || job.status !== "in_review") return;
+  if (
+    job.status !== "in_review" ||
+    (await hasRows(controlValueRecords, eq(controlValueRecords.jobId, job.id)))
+  )
+    return;
   await recordControlValues(engineer, job.id, {
     stage: "as_found",
     unitSystem: "metric",

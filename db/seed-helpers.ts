@@ -1,15 +1,18 @@
 /**
- * What the demo seeds share: the demo people as actors, storing a CSV through the same parse and
+ * What the demo seeds share: the demo people as actors, whether a step's rows are already there,
+ * a demo job with its audit event, storing a CSV through the same parse and
  * insert path as the upload route, writing synthesised sphere-probe data as CSV text, and the
  * engineer's approval of a fit (confirming any parameter that does not conform, as the form asks).
  */
 import { createHash } from "node:crypto";
-import { eq } from "drizzle-orm";
+import { eq, sql, type SQL } from "drizzle-orm";
+import type { PgTable } from "drizzle-orm/pg-core";
 import { db } from "@/db";
 import { approveAnalysis, nonConformingParameters, runHeadFit } from "@/db/queries/analyses";
+import { appendAudit, jobEvent, type AuditActor } from "@/db/queries/audit";
 import { insertDataset } from "@/db/queries/datasets";
 import { getActor } from "@/db/queries/users";
-import { users } from "@/db/schema";
+import { jobs, users } from "@/db/schema";
 import type { SphereProbeData } from "@/geometry";
 import type { Actor } from "@/lib/domain/roles";
 import { parseDatasetText, parseUploadForm } from "@/lib/storage/parse-dataset";
@@ -20,6 +23,31 @@ export async function demoActor(email: string): Promise<Actor> {
   const a = u ? await getActor(u.id) : null;
   if (!a) throw new Error(`seed: no demo user ${email}`);
   return a;
+}
+
+/** Whether `table` has a row matching `where`: a seed step whose rows are already there skips them. */
+export async function hasRows(table: PgTable, where: SQL): Promise<boolean> {
+  const found = await db
+    .select({ one: sql`1` })
+    .from(table)
+    .where(where)
+    .limit(1);
+  return found.length > 0;
+}
+
+/** Adds a demo job with its `job.created` event, in one transaction as the app's own job creation. */
+export async function insertDemoJob(actor: AuditActor, values: typeof jobs.$inferInsert) {
+  return db.transaction(async (tx) => {
+    const [row] = await tx.insert(jobs).values(values).returning();
+    await appendAudit(
+      tx,
+      actor,
+      jobEvent(row!.id, "job.created", {
+        newValues: { reference: row!.reference, status: row!.status, note: "demo data (invented)" },
+      }),
+    );
+    return row!;
+  });
 }
 
 /** Stores CSV text as a dataset of the job, parsed and checked as an upload with these form fields is. */

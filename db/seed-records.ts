@@ -8,6 +8,7 @@
 import { eq } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
+import { hasRows } from "@/db/seed-helpers";
 import {
   environmentRecords,
   instrumentCalibrations,
@@ -86,12 +87,7 @@ export async function seedRecords(): Promise<void> {
   const list = await db.select().from(instruments);
   for (const i of list) {
     if (!i.calibratedOn || !i.certificateRef) continue;
-    const has = await db
-      .select({ id: instrumentCalibrations.id })
-      .from(instrumentCalibrations)
-      .where(eq(instrumentCalibrations.instrumentId, i.id))
-      .limit(1);
-    if (has.length) continue;
+    if (await hasRows(instrumentCalibrations, eq(instrumentCalibrations.instrumentId, i.id))) continue;
     await db.insert(instrumentCalibrations).values({
       instrumentId: i.id,
       calibratedOn: i.calibratedOn,
@@ -103,12 +99,7 @@ export async function seedRecords(): Promise<void> {
 
   const [job] = await db.select({ id: jobs.id }).from(jobs).where(eq(jobs.reference, "TR-2026-0041"));
   if (!job) return;
-  const done = await db
-    .select({ id: environmentRecords.id })
-    .from(environmentRecords)
-    .where(eq(environmentRecords.jobId, job.id))
-    .limit(1);
-  if (done.length) return;
+  if (await hasRows(environmentRecords, eq(environmentRecords.jobId, job.id))) return;
   const [installer] = await db
     .select({ id: users.id, email: users.email })
     .from(users)

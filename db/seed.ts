@@ -6,7 +6,7 @@
 import { env } from "@/lib/env";
 import { and, eq, sql } from "drizzle-orm";
 import { db, pool } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
+import { hasRows, insertDemoJob } from "@/db/seed-helpers";
 import { customers, heads, issuerSettings, jobs, machines, sites, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import { seedReports } from "./seed-reports";
@@ -233,28 +233,8 @@ export async function seed(): Promise<void> {
     },
   ];
   for (const j of demoJobs) {
-    const existing = await db
-      .select({ id: jobs.id })
-      .from(jobs)
-      .where(eq(jobs.reference, j.reference))
-      .limit(1);
-    if (existing[0]) continue;
-    await db.transaction(async (tx) => {
-      const [row] = await tx
-        .insert(jobs)
-        .values({ ...j, createdById: engineer })
-        .returning();
-      await appendAudit(
-        tx,
-        { id: engineer, email: "engineer@halvard.example" },
-        {
-          action: "job.created",
-          entity: { type: "job", id: row!.id },
-          jobId: row!.id,
-          newValues: { reference: row!.reference, status: row!.status, note: "demo data (invented)" },
-        },
-      );
-    });
+    if (await hasRows(jobs, eq(jobs.reference, j.reference))) continue;
+    await insertDemoJob({ id: engineer, email: "engineer@halvard.example" }, { ...j, createdById: engineer });
   }
   // The starter procedures every install has (not demo data), beside the demo's own.
   await (await import("./library")).loadStarterLibrary();

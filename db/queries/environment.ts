@@ -2,12 +2,11 @@ import "server-only";
 import { and, desc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { lockJob } from "@/db/queries/locks";
+import { lockJob, refuseLockedReadings } from "@/db/queries/locks";
 import { getJobDetail, visibleJob } from "@/db/queries/jobs";
 import { environmentRecords, users, type EnvironmentRecord } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
-import { AppError, forbidden, invalid } from "@/lib/errors";
-import { readingsRefusal } from "@/lib/policy/readings";
+import { AppError, invalid } from "@/lib/errors";
 import type { EnvironmentCreateInput } from "@/lib/validations/environment";
 
 function environmentJson(r: EnvironmentRecord & { recordedByName?: string | null }) {
@@ -59,8 +58,7 @@ export async function recordEnvironment(actor: Actor, jobId: string, input: Envi
         return { record: environmentJson({ ...again, recordedByName: actor.name }), replay: true };
       }
     }
-    const refusal = locked ? readingsRefusal(actor, locked) : "gone";
-    if (refusal) throw forbidden(refusal);
+    refuseLockedReadings(actor, locked);
     const [row] = await tx
       .insert(environmentRecords)
       .values({

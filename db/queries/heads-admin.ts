@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { refuseRetired } from "@/db/queries/registers-admin";
+import { activeHostMachine } from "@/db/queries/registers-admin";
 import type { StoredHeadFit } from "@/db/queries/analyses";
 import { jobAccessCondition } from "@/db/queries/jobs";
 import { analyses, auditEvents, customers, datasets, heads, jobs, machines, sites } from "@/db/schema";
@@ -10,7 +10,7 @@ import type { HeadHistoryJob } from "@/lib/domain/heads";
 import { type Actor } from "@/lib/domain/roles";
 import { headHistoryRefusal, headHistoryScope } from "@/lib/policy/heads";
 import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
-import { forbidden, invalid, notFound } from "@/lib/errors";
+import { forbidden, notFound } from "@/lib/errors";
 import { isUuid } from "@/lib/domain/uuid";
 
 /** One head with where it is mounted now and its mounting history (from the audit trail). */
@@ -42,20 +42,8 @@ export async function mountHead(actor: Actor, headId: string, machineId: string 
   if (!h) throw notFound("head");
   let label = "not mounted";
   if (machineId) {
-    const [m] = await db
-      .select({
-        name: machines.name,
-        site: sites.name,
-        customer: customers.name,
-        retiredAt: machines.retiredAt,
-      })
-      .from(machines)
-      .innerJoin(sites, eq(sites.id, machines.siteId))
-      .innerJoin(customers, eq(customers.id, sites.customerId))
-      .where(eq(machines.id, machineId));
-    if (!m) throw invalid("Choose a host machine.", [{ field: "machineId", message: "No such machine." }]);
-    refuseRetired(m, "machineId", "host machine");
-    label = `${m.name} (${m.customer}, ${m.site})`;
+    const m = await activeHostMachine(machineId);
+    label = `${m.machineName} (${m.customerName}, ${m.siteName})`;
   }
   if (h.machineId === machineId) return { changed: false };
   const [old] = h.machineId

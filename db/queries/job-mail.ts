@@ -10,7 +10,7 @@ import { invalid } from "@/lib/errors";
 import type { Actor } from "@/lib/domain/roles";
 import { publicUrl } from "@/lib/env";
 import { formatDateTime } from "@/lib/format";
-import { assignmentMessage, unassignmentMessage } from "@/lib/mail/messages";
+import { assignmentMessage, unassignmentMessage, type MailText } from "@/lib/mail/messages";
 
 type Executor = NodePgDatabase<typeof schema>;
 type Person = { id: string; name: string; email: string };
@@ -44,11 +44,19 @@ export async function queueAssignmentMails(
 ): Promise<void> {
   if (m.from?.id === m.to?.id) return;
   const stamp = m.at.getTime();
+  // The outbox keeps one message per key: one per job, change and person.
+  const send = (kind: "assign" | "unassign", person: Person, message: MailText) =>
+    enqueueMail(tx, {
+      dedupeKey: `${kind}:${m.job.id}:${stamp}:${person.id}`,
+      to: person.email,
+      ...message,
+      jobId: m.job.id,
+    });
   if (m.to)
-    await enqueueMail(tx, {
-      dedupeKey: `assign:${m.job.id}:${stamp}:${m.to.id}`,
-      to: m.to.email,
-      ...assignmentMessage({
+    await send(
+      "assign",
+      m.to,
+      assignmentMessage({
         baseUrl: publicUrl,
         recipientName: m.to.name,
         assignedBy: actor.name,
@@ -58,19 +66,17 @@ export async function queueAssignmentMails(
           ? `${formatDateTime(m.scheduledFor, m.timeZone ?? "UTC")} (${m.timeZone ?? "UTC"})`
           : null,
       }),
-      jobId: m.job.id,
-    });
+    );
   if (m.from)
-    await enqueueMail(tx, {
-      dedupeKey: `unassign:${m.job.id}:${stamp}:${m.from.id}`,
-      to: m.from.email,
-      ...unassignmentMessage({
+    await send(
+      "unassign",
+      m.from,
+      unassignmentMessage({
         baseUrl: publicUrl,
         recipientName: m.from.name,
         changedBy: actor.name,
         job: m.job,
         newInstallerName: m.to?.name ?? null,
       }),
-      jobId: m.job.id,
-    });
+    );
 }

@@ -2,11 +2,11 @@ import "server-only";
 import { and, eq, inArray, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit, jobEvent } from "@/db/queries/audit";
-import { refuseRetired } from "@/db/queries/registers-admin";
+import { activeHostMachine, activeRegisterRow } from "@/db/queries/registers-admin";
 import { visibleJob } from "@/db/queries/jobs";
 import { enqueueMail } from "@/db/queries/outbox";
 import { activeInstaller, queueAssignmentMails } from "@/db/queries/job-mail";
-import { customers, datasets, heads, jobs, machines, procedureTemplates, sites, users } from "@/db/schema";
+import { datasets, heads, jobs, procedureTemplates, users } from "@/db/schema";
 import type { JobStatus } from "@/lib/domain/jobs";
 import { type Actor } from "@/lib/domain/roles";
 import { jobCreateRefusal, transitionRefusal } from "@/lib/policy/jobs";
@@ -104,27 +104,8 @@ export async function createJobFromTemplate(actor: Actor, input: JobCreateInput)
   if (refusal) throw forbidden(refusal);
   const [t] = await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, input.templateId));
   if (!t) throw invalid("Choose a procedure.", [{ field: "templateId", message: "No such procedure." }]);
-  const [m] = await db
-    .select({
-      id: machines.id,
-      customerId: sites.customerId,
-      retiredAt: machines.retiredAt,
-      machineName: machines.name,
-      siteName: sites.name,
-      customerName: customers.name,
-    })
-    .from(machines)
-    .innerJoin(sites, eq(sites.id, machines.siteId))
-    .innerJoin(customers, eq(customers.id, sites.customerId))
-    .where(eq(machines.id, input.machineId));
-  if (!m) throw invalid("Choose a host machine.", [{ field: "machineId", message: "No such machine." }]);
-  refuseRetired(m, "machineId", "host machine");
-  const [h] = await db
-    .select({ id: heads.id, retiredAt: heads.retiredAt })
-    .from(heads)
-    .where(eq(heads.id, input.headId));
-  if (!h) throw invalid("Choose a head.", [{ field: "headId", message: "No such head." }]);
-  refuseRetired(h, "headId", "head");
+  const m = await activeHostMachine(input.machineId);
+  const h = await activeRegisterRow(heads, input.headId, "headId", "head");
   const installer = input.assignedInstallerId ? await activeInstaller(input.assignedInstallerId) : null;
   return db.transaction(async (tx) => {
     await tx.execute(sql`select pg_advisory_xact_lock(724003)`);

@@ -4,6 +4,9 @@ import type { NodePgDatabase } from "drizzle-orm/node-postgres";
 import { db } from "@/db";
 import { jobs, users } from "@/db/schema";
 import type * as schema from "@/db/schema";
+import type { Actor } from "@/lib/domain/roles";
+import { forbidden } from "@/lib/errors";
+import { readingsRefusal } from "@/lib/policy/readings";
 
 type Executor = NodePgDatabase<typeof schema>;
 
@@ -19,6 +22,15 @@ export async function lockJob(tx: Executor, jobId: string) {
     .where(eq(jobs.id, jobId))
     .for("update");
   return locked;
+}
+
+/**
+ * Refuses (403) a reading, photo or environment record on a job locked by `lockJob` when the job
+ * is gone or the readings policy says no for it as it is now.
+ */
+export function refuseLockedReadings(actor: Actor, locked: Awaited<ReturnType<typeof lockJob>>) {
+  const refusal = locked ? readingsRefusal(actor, locked) : "gone";
+  if (refusal) throw forbidden(refusal);
 }
 
 /** The users matching `where` whose accounts are not disabled: id, e-mail and name, to notify them. */

@@ -4,6 +4,7 @@ import { and, asc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { getJobDetail, jobAccessCondition, visibleJob } from "@/db/queries/jobs";
+import { lockJob, refuseLockedReadings } from "@/db/queries/locks";
 import { stepOfJob } from "@/db/queries/readings";
 import { jobs, photos, readings, users, type Photo } from "@/db/schema";
 import { PHASES } from "@/lib/domain/datasets";
@@ -139,13 +140,7 @@ export async function addPhoto(
   await storage.put(keys.thumb, processed.thumb, { contentType: "image/jpeg", sha256: "" });
   try {
     const row = await db.transaction(async (tx) => {
-      const [locked] = await tx
-        .select({ status: jobs.status, assignedInstallerId: jobs.assignedInstallerId })
-        .from(jobs)
-        .where(eq(jobs.id, d.job.id))
-        .for("update");
-      const refused = locked ? readingsRefusal(actor, locked) : "gone";
-      if (refused) throw forbidden(refused);
+      refuseLockedReadings(actor, await lockJob(tx, d.job.id));
       const [p] = await tx
         .insert(photos)
         .values({

@@ -20,7 +20,7 @@ import {
 } from "@/lib/step-kinds";
 import { CANONICAL_UNIT, toCanonical } from "@/lib/units";
 import type { ReadingCreateInput } from "@/lib/validations/readings";
-import { lockJob } from "./locks";
+import { lockJob, refuseLockedReadings } from "./locks";
 
 const recorders = alias(users, "recorder");
 
@@ -277,8 +277,7 @@ export async function recordReading(actor: Actor, jobId: string, input: ReadingC
     const locked = await lockJob(tx, d.job.id);
     const again = await storedByClientId(tx, actor, d.job.id, input);
     if (again) return { ...again, replay: true };
-    const refused = locked ? readingsRefusal(actor, locked) : "gone";
-    if (refused) throw forbidden(refused);
+    refuseLockedReadings(actor, locked);
     let old: Reading | undefined;
     if (input.supersedesId || input.supersedesClientId) {
       [old] = await tx

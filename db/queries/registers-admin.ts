@@ -30,10 +30,7 @@ export async function createCustomer(actor: Actor, input: z.infer<typeof custome
     .select({ id: customers.id })
     .from(customers)
     .where(sql`lower(${customers.name}) = ${input.name.toLowerCase()}`);
-  if (dupe)
-    throw invalid("A customer with that name is already registered.", [
-      { field: "name", message: "Already registered." },
-    ]);
+  if (dupe) throw alreadyRegistered("A customer with that name is already registered.");
   return insertRegisterRow(
     actor,
     customers,
@@ -45,20 +42,12 @@ export async function createCustomer(actor: Actor, input: z.infer<typeof custome
 
 export async function createSite(actor: Actor, input: z.infer<typeof siteCreateSchema>) {
   requireAdmin(actor);
-  const [c] = await db
-    .select({ id: customers.id, retiredAt: customers.retiredAt })
-    .from(customers)
-    .where(eq(customers.id, input.customerId));
-  if (!c) throw invalid("Choose a customer.", [{ field: "customerId", message: "No such customer." }]);
-  refuseRetired(c, "customerId", "customer");
+  const c = await activeRegisterRow(customers, input.customerId, "customerId", "customer");
   const [dupe] = await db
     .select({ id: sites.id })
     .from(sites)
     .where(and(eq(sites.customerId, c.id), eq(sites.name, input.name)));
-  if (dupe)
-    throw invalid("That customer already has a site of that name.", [
-      { field: "name", message: "Already registered." },
-    ]);
+  if (dupe) throw alreadyRegistered("That customer already has a site of that name.");
   return insertRegisterRow(
     actor,
     sites,
@@ -70,12 +59,7 @@ export async function createSite(actor: Actor, input: z.infer<typeof siteCreateS
 
 export async function createMachine(actor: Actor, input: z.infer<typeof machineCreateSchema>) {
   requireAdmin(actor);
-  const [s] = await db
-    .select({ id: sites.id, retiredAt: sites.retiredAt })
-    .from(sites)
-    .where(eq(sites.id, input.siteId));
-  if (!s) throw invalid("Choose a site.", [{ field: "siteId", message: "No such site." }]);
-  refuseRetired(s, "siteId", "site");
+  const s = await activeRegisterRow(sites, input.siteId, "siteId", "site");
   return insertRegisterRow(
     actor,
     machines,
@@ -211,12 +195,57 @@ export async function updateRegisterRow<T extends RegisterTable>(
   });
 }
 
-/** Refuses (422, naming the field) a new row under a retired parent: retired rows take no new work. */
-export function refuseRetired(parent: { retiredAt: Date | null } | undefined, field: string, what: string) {
-  if (parent?.retiredAt)
+/**
+ * The row a form chose (by id, in `field`) for new work, once it is known to exist and not to be
+ * retired: refuses (422, naming the field) a missing one, and a retired one, which takes no new work.
+ */
+function refuseUnusable<R extends { retiredAt: Date | null }>(
+  row: R | undefined,
+  field: string,
+  what: string,
+  noun = what,
+): R {
+  if (!row) throw invalid(`Choose a ${what}.`, [{ field, message: `No such ${noun}.` }]);
+  if (row.retiredAt)
     throw invalid(`The ${what} is retired; bring it back in the register first.`, [
       { field, message: `This ${what} is retired.` },
     ]);
+  return row;
+}
+
+/** A customer, site or head a form chose for new work (see refuseUnusable): its id and retirement. */
+export async function activeRegisterRow(
+  table: typeof customers | typeof sites | typeof heads,
+  id: string,
+  field: string,
+  what: string,
+) {
+  const t = table as typeof customers;
+  const [row] = await db.select({ id: t.id, retiredAt: t.retiredAt }).from(t).where(eq(t.id, id));
+  return refuseUnusable(row, field, what);
+}
+
+/** The host machine a form chose for new work (see refuseUnusable), with its site and customer. */
+export async function activeHostMachine(machineId: string) {
+  const [m] = await db
+    .select({
+      id: machines.id,
+      customerId: sites.customerId,
+      retiredAt: machines.retiredAt,
+      machineName: machines.name,
+      siteName: sites.name,
+      customerName: customers.name,
+    })
+    .from(machines)
+    .innerJoin(sites, eq(sites.id, machines.siteId))
+    .innerJoin(customers, eq(customers.id, sites.customerId))
+    .where(eq(machines.id, machineId));
+  return refuseUnusable(m, "machineId", "host machine", "machine");
+}
+
+/** The 422 for a register entry that would repeat one already there, naming the field. */
+function alreadyRegistered(message: string, field = "name") {
+  return invalid(message, [{ field, message: "Already registered." }]);
 }
 
 /** Turns a PostgreSQL unique violation on `column` into a 422 naming the field; rethrows anything else. */
@@ -226,8 +255,7 @@ export async function uniqueAs<R>(field: string, message: string, work: () => Pr
   } catch (err) {
     let e: unknown = err;
     while (e instanceof Error && (e as { code?: string }).code !== "23505" && e.cause) e = e.cause;
-    if ((e as { code?: string })?.code === "23505")
-      throw invalid(message, [{ field, message: "Already registered." }]);
+    if ((e as { code?: string })?.code === "23505") throw alreadyRegistered(message, field);
     throw err;
   }
 }
@@ -261,10 +289,7 @@ export async function updateSite(actor: Actor, id: string, input: z.infer<typeof
           .from(sites)
           .where(and(eq(sites.customerId, own.customerId), eq(sites.name, input.name), ne(sites.id, id)))
       : [];
-    if (dupe)
-      throw invalid("That customer already has a site of that name.", [
-        { field: "name", message: "Already registered." },
-      ]);
+    if (dupe) throw alreadyRegistered("That customer already has a site of that name.");
   }
   return updateRegisterRow(
     actor,

@@ -60,6 +60,7 @@ import type { ReportData } from "@/lib/report/types";
 import { photoAppendixRows } from "@/lib/report/sections/photos";
 import { jobPhotosForReport } from "@/db/queries/photos";
 import { activeUsers, lockJob } from "./locks";
+import { isUuid } from "@/lib/domain/uuid";
 
 /**
  * Reports: what goes into one (fetched here, shaped by lib/report/build.ts), issuing a revision,
@@ -483,7 +484,7 @@ export async function respondToReport(
 
 /** Report metadata for a user who may see its job; null otherwise (including another tenant's). */
 export async function getReportMeta(actor: Actor, reportId: string) {
-  if (!/^[0-9a-f-]{36}$/i.test(reportId)) return null;
+  if (!isUuid(reportId)) return null;
   const [r] = await db
     .select({
       id: reports.id,

@@ -8,6 +8,7 @@ import { formatDateTimeUtc } from "@/lib/format";
 import { getSigningKey } from "@/lib/report/keys";
 import { sha256Hex, verifyManifest, type SignatureManifest } from "@/lib/report/signing";
 import type { VerificationResult } from "@/lib/report/types";
+import { isUuid } from "@/lib/domain/uuid";
 
 export type { VerificationResult };
 
@@ -27,7 +28,7 @@ export async function verifyReport(
     statement: NO_RECORD,
     reason: "There is no report with this id.",
   };
-  if (!/^[0-9a-f-]{36}$/i.test(reportId)) return none;
+  if (!isUuid(reportId)) return none;
   const [r] = await exec
     .select({
       id: reports.id,
