@@ -5,7 +5,7 @@
  */
 import { StyleSheet, Text, View } from "@react-pdf/renderer";
 import { pdfColours, pdfSectionStyles } from "../pdf-styles";
-import type { ReportRecords } from "./records";
+import { TRACEABILITY_HEAD, traceabilityRows, type ReportRecords } from "./records";
 
 const s = {
   ...pdfSectionStyles,
@@ -86,16 +86,9 @@ export function RecordDetailsPdf({ r }: { r: ReportRecords }) {
       </Text>
       {r.traceability.length ? (
         <Grid
-          head={["Instrument", "Serial", "Certificate", "Calibrated", "Laboratory", "Due"]}
+          head={TRACEABILITY_HEAD}
           widths={["22%", "13%", "18%", "13%", "21%", "13%"]}
-          rows={r.traceability.map((t) => [
-            t.instrument,
-            t.serial,
-            t.certificate,
-            t.calibratedOn,
-            t.laboratory,
-            t.due,
-          ])}
+          rows={traceabilityRows(r)}
         />
       ) : (
         <Text style={{ color: pdfColours.muted }}>No instrument is recorded with the readings.</Text>
