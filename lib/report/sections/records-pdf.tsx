@@ -5,6 +5,7 @@
  */
 import { StyleSheet, Text, View } from "@react-pdf/renderer";
 import { pdfColours, pdfSectionStyles } from "../pdf-styles";
+import { PdfHeadRow } from "./pdf-head-row";
 import { TRACEABILITY_HEAD, traceabilityRows, type ReportRecords } from "./records";
 
 const s = {
@@ -28,13 +29,7 @@ function Fact({ k, v }: { k: string; v: string }) {
 function Grid({ head, widths, rows }: { head: string[]; widths: string[]; rows: string[][] }) {
   return (
     <View style={s.table}>
-      <View style={[s.tr, s.th]}>
-        {head.map((h, i) => (
-          <Text key={h} style={[s.td, { width: widths[i] }]}>
-            {h}
-          </Text>
-        ))}
-      </View>
+      <PdfHeadRow cols={head.map((h, i) => [h, widths[i]!] as const)} />
       {rows.map((r, i) => (
         <View key={i} style={s.tr} wrap={false}>
           {r.map((c, j) => (
