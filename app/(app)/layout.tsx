@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { LogoMark } from "@/components/brand/logo";
+import { Wordmark } from "@/components/brand/logo";
 import { MainNav } from "@/components/shell/main-nav";
 import { SignOutButton } from "@/components/shell/sign-out-button";
 import { ROLE_LABELS } from "@/lib/domain/roles";
@@ -12,9 +12,8 @@ export default async function AppLayout({ children }: { children: React.ReactNod
     <div className="flex min-h-screen flex-col">
       <header className="sticky top-0 z-20 bg-graphite-900 text-white shadow">
         <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-1 px-4 py-2 sm:px-6">
-          <Link href="/jobs" className="flex min-h-touch items-center gap-2" aria-label="Trammel, jobs">
-            <LogoMark />
-            <span className="text-lg font-semibold tracking-tight">Trammel</span>
+          <Link href="/jobs" className="flex min-h-touch items-center" aria-label="Trammel, jobs">
+            <Wordmark />
           </Link>
           <MainNav items={navigationFor(user)} />
           <div className="ml-auto flex items-center gap-3">

@@ -29,11 +29,25 @@ export function LogoMark({ className = "h-7 w-7" }: { className?: string }) {
   );
 }
 
-export function Wordmark() {
+/** The mark and the name side by side, in three sizes: the header's, a form page's, the sign-in panel's. */
+const WORDMARK = {
+  md: { gap: "gap-2", mark: "h-7 w-7", name: "text-lg font-semibold tracking-tight" },
+  lg: { gap: "gap-3", mark: "h-9 w-9", name: "text-xl font-semibold" },
+  xl: { gap: "gap-3", mark: "h-10 w-10", name: "text-2xl font-semibold tracking-tight text-white" },
+} as const;
+
+export function Wordmark({
+  size = "md",
+  className = "",
+}: {
+  size?: keyof typeof WORDMARK;
+  className?: string;
+}) {
+  const w = WORDMARK[size];
   return (
-    <span className="flex items-center gap-2">
-      <LogoMark />
-      <span className="text-lg font-semibold tracking-tight">Trammel</span>
-    </span>
+    <div className={`flex items-center ${w.gap} ${className}`.trim()}>
+      <LogoMark className={w.mark} />
+      <span className={w.name}>Trammel</span>
+    </div>
   );
 }

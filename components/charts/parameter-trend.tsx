@@ -7,7 +7,8 @@
  */
 import { Panel } from "@/components/charts/trend-panel";
 import { palette } from "@/lib/domain/theme";
-import { Table, type ColumnDef } from "@/components/ui/table";
+import type { ColumnDef } from "@/components/ui/table";
+import { ChartedValues } from "./charted-values";
 
 export interface TrendJob {
   key: string;
@@ -53,37 +54,31 @@ export function ParameterTrend({
           latest fit, not approved
         </span>
       </figcaption>
-      <details className="mt-3 text-sm">
-        <summary className="min-h-touch cursor-pointer py-2 font-medium text-graphite-800">
-          The charted values as a table
-        </summary>
-        <Table
-          caption="Charted parameter values"
-          empty="Nothing charted."
-          bare
-          layout="scroll"
-          data={series}
-          getRowId={(s) => s.key}
-          columns={[
-            {
-              id: "parameter",
-              header: "Parameter",
-              cell: ({ row }) => <span className="font-medium">{row.original.symbol}</span>,
-              meta: { rowHeader: true },
-            },
-            ...jobs.map((j, i): ColumnDef<TrendSeries, unknown> => ({
-              id: j.key,
-              header: () => (
-                <>
-                  {j.reference} <span className="font-normal">({j.dateText})</span>
-                </>
-              ),
-              cell: ({ row }) => row.original.points[i]?.text ?? "—",
-              meta: { numeric: true, label: `${j.reference} (${j.dateText})` },
-            })),
-          ]}
-        />
-      </details>
+      <ChartedValues
+        className="mt-3"
+        caption="Charted parameter values"
+        empty="Nothing charted."
+        data={series}
+        getRowId={(s) => s.key}
+        columns={[
+          {
+            id: "parameter",
+            header: "Parameter",
+            cell: ({ row }) => <span className="font-medium">{row.original.symbol}</span>,
+            meta: { rowHeader: true },
+          },
+          ...jobs.map((j, i): ColumnDef<TrendSeries, unknown> => ({
+            id: j.key,
+            header: () => (
+              <>
+                {j.reference} <span className="font-normal">({j.dateText})</span>
+              </>
+            ),
+            cell: ({ row }) => row.original.points[i]?.text ?? "—",
+            meta: { numeric: true, label: `${j.reference} (${j.dateText})` },
+          })),
+        ]}
+      />
     </figure>
   );
 }

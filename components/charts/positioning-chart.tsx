@@ -4,7 +4,7 @@
  * square, blue-grey) side by side, so shape as well as colour tells the directions apart.
  * Server-rendered SVG with its title and description; the numbers follow as a table.
  */
-import { Table } from "@/components/ui/table";
+import { ChartedValues } from "./charted-values";
 import { drawing, palette } from "@/lib/domain/theme";
 import { positioningChartLayout, type ChartMark } from "@/lib/positioning-chart";
 import { arcsecText, type PositioningChartPoint } from "@/lib/rotary-positioning-display";
@@ -139,26 +139,19 @@ export function PositioningChart({
         </span>
         <span>bars: mean ± 2s; dashed: zero</span>
       </figcaption>
-      <details className="text-sm">
-        <summary className="min-h-touch cursor-pointer py-2 font-medium text-graphite-800">
-          The charted values as a table
-        </summary>
-        <Table
-          caption="Mean positional deviation and standard deviation per target"
-          empty="No targets."
-          bare
-          layout="scroll"
-          data={rows}
-          getRowId={(r) => String(r.p.targetDeg)}
-          columns={(column) => [
-            column("Target", (r) => `${r.p.targetDeg}°`, { rowHeader: true, numeric: true }),
-            column("Mean ↑", (r) => arcsecText(r.p.mean), { numeric: true }),
-            column("± 2s ↑", (r) => arcsecText((r.p.hi - r.p.lo) / 2), { numeric: true }),
-            column("Mean ↓", (r) => arcsecText(r.n.mean), { numeric: true }),
-            column("± 2s ↓", (r) => arcsecText((r.n.hi - r.n.lo) / 2), { numeric: true }),
-          ]}
-        />
-      </details>
+      <ChartedValues
+        caption="Mean positional deviation and standard deviation per target"
+        empty="No targets."
+        data={rows}
+        getRowId={(r) => String(r.p.targetDeg)}
+        columns={(column) => [
+          column("Target", (r) => `${r.p.targetDeg}°`, { rowHeader: true, numeric: true }),
+          column("Mean ↑", (r) => arcsecText(r.p.mean), { numeric: true }),
+          column("± 2s ↑", (r) => arcsecText((r.p.hi - r.p.lo) / 2), { numeric: true }),
+          column("Mean ↓", (r) => arcsecText(r.n.mean), { numeric: true }),
+          column("± 2s ↓", (r) => arcsecText((r.n.hi - r.n.lo) / 2), { numeric: true }),
+        ]}
+      />
     </figure>
   );
 }

@@ -33,6 +33,22 @@ export const KIND_HINTS: Record<DatasetKindKey, string> = {
     "ISO 230-2 positioning of one rotary axis: each target angle approached several times from both directions, with the angle measured by a reference (autocollimator and polygon, or an angle encoder).",
 };
 
+/** The kinds whose files carry a stated expanded uncertainty, and how the field asks for it. */
+export const UNCERTAINTY_WORDS: Partial<
+  Record<DatasetKindKey, { label: string; placeholder: string; hint: string }>
+> = {
+  test_part: {
+    label: "Expanded uncertainty U (k = 2) of the part measurement, mm",
+    placeholder: "e.g. 0.002",
+    hint: "From the measuring machine's calibration; converted for rows in inch or µm. Empty counts as 0.",
+  },
+  rotary_positioning: {
+    label: "Expanded uncertainty U (k = 2) of the angle measurement, ″",
+    placeholder: "e.g. 0.5",
+    hint: "From the reference's calibration; the guarded decision rule needs it. Empty: not stated.",
+  },
+};
+
 /** What the form shows for each column: a label and other header spellings that map to it. */
 const SPHERE_PROBE_PRESENTATION: Readonly<Record<string, Presentation>> = {
   primary_deg: {

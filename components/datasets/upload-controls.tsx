@@ -3,7 +3,7 @@
 import { useRef, useState } from "react";
 import { buttonClass } from "@/components/ui/button";
 import { HEAD_AXIS_ROLE_WORDS, HEAD_AXIS_ROLES } from "@/lib/domain/positioning";
-import type { DatasetKindKey } from "./kinds";
+import { UNCERTAINTY_WORDS, type DatasetKindKey } from "./kinds";
 import type { Units, UploadState } from "./upload-state";
 
 export function Choice<T extends string>({
@@ -128,32 +128,21 @@ export function KindOptions({
           />
         </label>
       ) : null}
-      {kind === "test_part" ? (
-        <UncertaintyInput
-          label="Expanded uncertainty U (k = 2) of the part measurement, mm"
-          value={uncertainty}
-          placeholder="e.g. 0.002"
-          onChange={(v) => set({ uncertainty: v })}
-          hint="From the measuring machine's calibration; converted for rows in inch or µm. Empty counts as 0."
+      {kind === "rotary_positioning" ? (
+        <Choice
+          legend="Axis of the head tested"
+          name="axis"
+          value={axis}
+          options={HEAD_AXIS_ROLES.map((r) => ({ value: r, label: HEAD_AXIS_ROLE_WORDS[r] }))}
+          onChange={(v) => set({ axis: v })}
         />
       ) : null}
-      {kind === "rotary_positioning" ? (
-        <>
-          <Choice
-            legend="Axis of the head tested"
-            name="axis"
-            value={axis}
-            options={HEAD_AXIS_ROLES.map((r) => ({ value: r, label: HEAD_AXIS_ROLE_WORDS[r] }))}
-            onChange={(v) => set({ axis: v })}
-          />
-          <UncertaintyInput
-            label="Expanded uncertainty U (k = 2) of the angle measurement, ″"
-            value={uncertainty}
-            placeholder="e.g. 0.5"
-            onChange={(v) => set({ uncertainty: v })}
-            hint="From the reference's calibration; the guarded decision rule needs it. Empty: not stated."
-          />
-        </>
+      {UNCERTAINTY_WORDS[kind] ? (
+        <UncertaintyInput
+          {...UNCERTAINTY_WORDS[kind]}
+          value={uncertainty}
+          onChange={(v) => set({ uncertainty: v })}
+        />
       ) : null}
       {scan?.delimiter === ";" ? (
         <Choice

@@ -102,6 +102,32 @@ export function AssignInstallerForm({
   );
 }
 
+/** The two moves that ask for a reason first, in a form opened below the buttons; cancelling is final. */
+const REASONED_MOVES = [
+  {
+    move: "hold",
+    opener: "Put on hold…",
+    tone: "text-graphite-800 ring-graphite-300",
+    submitLabel: "Put on hold",
+    successMessage: "On hold.",
+    variant: "secondary",
+    reasonLabel: "Why (optional)",
+    placeholder: "Crane out of service until …",
+    note: null,
+  },
+  {
+    move: "cancel",
+    opener: "Cancel the job…",
+    tone: "text-fail-700 ring-fail-600/40",
+    submitLabel: "Cancel the job",
+    successMessage: "Cancelled.",
+    variant: "danger",
+    reasonLabel: "Reason (required)",
+    placeholder: "Customer postponed the machine move",
+    note: "A cancelled job is kept and stays readable, with its readings; it takes no more changes.",
+  },
+] as const;
+
 /** Put on hold (reason optional), release, or cancel (reason required; final). */
 export function JobMoveControls({
   jobId,
@@ -128,60 +154,33 @@ export function JobMoveControls({
             <HiddenFields values={{ jobId, action: "release" }} />
           </Form>
         ) : null}
-        {mayHold ? (
+        {REASONED_MOVES.filter((o) => (o.move === "hold" ? mayHold : mayCancel)).map((o) => (
           <button
+            key={o.move}
             type="button"
-            className="min-h-touch rounded-md px-3 text-sm font-medium text-graphite-800 ring-1 ring-graphite-300"
-            aria-expanded={open === "hold"}
-            onClick={() => setOpen(open === "hold" ? null : "hold")}
+            className={`min-h-touch rounded-md px-3 text-sm font-medium ring-1 ${o.tone}`}
+            aria-expanded={open === o.move}
+            onClick={() => setOpen(open === o.move ? null : o.move)}
           >
-            Put on hold…
+            {o.opener}
           </button>
-        ) : null}
-        {mayCancel ? (
-          <button
-            type="button"
-            className="min-h-touch rounded-md px-3 text-sm font-medium text-fail-700 ring-1 ring-fail-600/40"
-            aria-expanded={open === "cancel"}
-            onClick={() => setOpen(open === "cancel" ? null : "cancel")}
-          >
-            Cancel the job…
-          </button>
-        ) : null}
+        ))}
       </div>
-      {open === "hold" ? (
+      {REASONED_MOVES.filter((o) => o.move === open).map((o) => (
         <Form
+          key={o.move}
           action={moveJobAction}
           schema={jobMoveFormSchema}
-          submitLabel="Put on hold"
-          successMessage="On hold."
-          variant="secondary"
-          aria-label="Put on hold"
+          submitLabel={o.submitLabel}
+          successMessage={o.successMessage}
+          variant={o.variant}
+          aria-label={o.submitLabel}
         >
-          <HiddenFields values={{ jobId, action: "hold" }} />
-          <TextField name="reason" label="Why (optional)" placeholder="Crane out of service until …" />
+          <HiddenFields values={{ jobId, action: o.move }} />
+          <TextField name="reason" label={o.reasonLabel} placeholder={o.placeholder} />
+          {o.note ? <p className="text-sm text-graphite-600">{o.note}</p> : null}
         </Form>
-      ) : null}
-      {open === "cancel" ? (
-        <Form
-          action={moveJobAction}
-          schema={jobMoveFormSchema}
-          submitLabel="Cancel the job"
-          successMessage="Cancelled."
-          variant="danger"
-          aria-label="Cancel the job"
-        >
-          <HiddenFields values={{ jobId, action: "cancel" }} />
-          <TextField
-            name="reason"
-            label="Reason (required)"
-            placeholder="Customer postponed the machine move"
-          />
-          <p className="text-sm text-graphite-600">
-            A cancelled job is kept and stays readable, with its readings; it takes no more changes.
-          </p>
-        </Form>
-      ) : null}
+      ))}
     </div>
   );
 }

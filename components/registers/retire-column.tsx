@@ -15,3 +15,10 @@ export function retireColumn<T>(
 ): ColumnDef<T, unknown>[] {
   return show ? [column("Retirement", (r) => <RetireButton register={register} {...row(r)} />)] : [];
 }
+
+/** What a retire button says of a row known by its name (customers, machines). */
+export const namedRow = (r: { id: string; name: string; retiredAt: unknown }) => ({
+  id: r.id,
+  retired: Boolean(r.retiredAt),
+  label: r.name,
+});

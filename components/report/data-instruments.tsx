@@ -1,9 +1,9 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { useState, useTransition } from "react";
 import { Card } from "@/components/ui/card";
-import { ActionNotice } from "@/components/ui/button";
+import { optionsOf, SelectField } from "@/components/ui/field";
+import { Form } from "@/components/ui/form";
+import { HiddenFields } from "@/components/ui/form-fields";
 import type { ActionResult } from "@/lib/actions";
 import { DATA_INSTRUMENT_USE_LABELS, DATA_INSTRUMENT_USES } from "@/lib/domain/instruments";
 
@@ -22,11 +22,8 @@ export function DataInstruments({
   recorded: ReadonlyArray<{ id: string; use: string; serial: string; kind: string; size: string | null }>;
   /** Instruments that may be added; null when the actor may not add. */
   register: ReadonlyArray<{ id: string; label: string }> | null;
-  run: (data: Record<string, string>) => Promise<ActionResult<unknown>>;
+  run: (raw: unknown) => Promise<ActionResult<unknown>>;
 }) {
-  const router = useRouter();
-  const [pending, start] = useTransition();
-  const [notice, setNotice] = useState<{ ok: boolean; text: string } | null>(null);
   const label = (u: string) => DATA_INSTRUMENT_USE_LABELS[u as keyof typeof DATA_INSTRUMENT_USE_LABELS] ?? u;
   return (
     <Card title="Instruments behind the data">
@@ -47,67 +44,22 @@ export function DataInstruments({
         </p>
       )}
       {register ? (
-        <form
-          aria-label="Add an instrument used for the data"
+        <Form
+          action={run}
+          submitLabel="Add instrument"
+          successMessage="Recorded."
+          variant="dark"
           className="space-y-2"
-          onSubmit={(e) => {
-            e.preventDefault();
-            const f = new FormData(e.currentTarget);
-            const el = e.currentTarget;
-            start(async () => {
-              const r = await run({
-                jobId,
-                instrumentId: String(f.get("instrumentId") ?? ""),
-                use: String(f.get("use") ?? ""),
-              });
-              if (r.ok) {
-                el.reset();
-                setNotice({ ok: true, text: "Recorded." });
-                router.refresh();
-              } else {
-                const fe = r.fieldErrors ? Object.values(r.fieldErrors).flat().join(" ") : "";
-                setNotice({ ok: false, text: `${r.message}${fe ? ` ${fe}` : ""}` });
-              }
-            });
-          }}
+          aria-label="Add an instrument used for the data"
         >
-          <label className="block space-y-1 text-sm">
-            <span className="font-medium">Used as</span>
-            <select
-              name="use"
-              required
-              className="block min-h-touch w-full rounded-lg border border-graphite-300 px-2"
-            >
-              {DATA_INSTRUMENT_USES.map((u) => (
-                <option key={u} value={u}>
-                  {label(u)}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="block space-y-1 text-sm">
-            <span className="font-medium">Instrument</span>
-            <select
-              name="instrumentId"
-              required
-              className="block min-h-touch w-full rounded-lg border border-graphite-300 px-2"
-            >
-              {register.map((i) => (
-                <option key={i.id} value={i.id}>
-                  {i.label}
-                </option>
-              ))}
-            </select>
-          </label>
-          <button
-            type="submit"
-            disabled={pending}
-            className="min-h-touch rounded-lg bg-graphite-800 px-4 font-semibold text-white disabled:opacity-60"
-          >
-            {pending ? "Saving…" : "Add instrument"}
-          </button>
-          {notice ? <ActionNotice ok={notice.ok}>{notice.text}</ActionNotice> : null}
-        </form>
+          <HiddenFields values={{ jobId }} />
+          <SelectField
+            name="use"
+            label="Used as"
+            options={DATA_INSTRUMENT_USES.map((u) => ({ value: u, label: label(u) }))}
+          />
+          <SelectField name="instrumentId" label="Instrument" options={optionsOf(register)} />
+        </Form>
       ) : null}
     </Card>
   );

@@ -1,6 +1,6 @@
 /** The record details and traceability on the report page: the same content as the PDF's section 2a. */
 import { ReportTable, Rows } from "@/components/report/report-parts";
-import type { ReportRecords } from "@/lib/report/sections/records";
+import { TRACEABILITY_HEAD, traceabilityRows, type ReportRecords } from "@/lib/report/sections/records";
 
 export function RecordsSection({ r }: { r: ReportRecords }) {
   return (
@@ -34,17 +34,7 @@ export function RecordsSection({ r }: { r: ReportRecords }) {
       </ul>
       <h4 className="text-sm font-semibold">Calibration traceability of the instruments</h4>
       {r.traceability.length ? (
-        <ReportTable
-          head={["Instrument", "Serial", "Certificate", "Calibrated", "Laboratory", "Due"]}
-          rows={r.traceability.map((t) => [
-            t.instrument,
-            t.serial,
-            t.certificate,
-            t.calibratedOn,
-            t.laboratory,
-            t.due,
-          ])}
-        />
+        <ReportTable head={TRACEABILITY_HEAD} rows={traceabilityRows(r)} />
       ) : (
         <p className="text-sm text-graphite-600">No instrument is recorded with the readings.</p>
       )}

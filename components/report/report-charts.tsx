@@ -2,6 +2,7 @@ import { drawing, palette } from "@/lib/domain/theme";
 import { reportCharts, rowDomain, rowLimits, type LimitRow } from "@/lib/report/chart-data";
 import type { ReportData } from "@/lib/report/types";
 import { Residuals } from "@/components/report/residuals-figure";
+import { StoredViewImage } from "@/components/viewer/stored-view-image";
 
 /**
  * Section 7 of the report read online: the saved pictures and the same charts as the PDF, drawn
@@ -25,10 +26,8 @@ export function ReportFigures({ data }: { data: ReportData }) {
     <div className="space-y-6">
       {data.figures.map((f) => (
         <figure key={f.sha256}>
-          {/* The stored picture of a signed record, behind the session: served as is, not through the image optimizer. */}
-          {/* eslint-disable-next-line @next/next/no-img-element */}
-          <img
-            src={`/api/analysis-views/${f.viewId}/image`}
+          <StoredViewImage
+            viewId={f.viewId}
             alt={f.caption}
             width={f.widthPx}
             height={f.heightPx}

@@ -5,6 +5,7 @@ import { useState } from "react";
 import { ActionNotice, Button } from "@/components/ui/button";
 import { Field, inputClass } from "@/components/ui/field";
 import { refusalText } from "@/components/ui/form-errors";
+import { useFormSubmit } from "@/components/ui/use-form-submit";
 import type { ActionResult } from "@/lib/actions";
 
 /**
@@ -36,26 +37,16 @@ export function SignForm({
   children?: React.ReactNode;
 }) {
   const router = useRouter();
-  const [error, setError] = useState<string | null>(null);
   const [done, setDone] = useState(false);
-  const [pending, setPending] = useState(false);
-
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const form = new FormData(e.currentTarget);
-    setPending(true);
-    setError(null);
+  const { pending, error, onSubmit } = useFormSubmit(async (form) => {
     const data: Record<string, string> = { ...hidden };
     for (const [k, v] of form.entries()) if (typeof v === "string" && v !== "") data[k] = v;
     const res = await run(data);
-    setPending(false);
-    if (res.ok) {
-      setDone(true);
-      router.refresh();
-    } else {
-      setError(refusalText(res));
-    }
-  }
+    if (!res.ok) return refusalText(res);
+    setDone(true);
+    router.refresh();
+    return null;
+  });
 
   if (done)
     return (

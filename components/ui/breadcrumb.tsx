@@ -17,3 +17,14 @@ export function Breadcrumb({
     </nav>
   );
 }
+
+/** A plain link back to the list, above the heading of a page that edits one of its entries. */
+export function BackLink({ href, children }: { href: string; children: React.ReactNode }) {
+  return (
+    <p className="text-sm">
+      <Link href={href} className="underline">
+        {children}
+      </Link>
+    </p>
+  );
+}

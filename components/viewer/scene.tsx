@@ -106,40 +106,63 @@ function lineEnds(l: SceneLine, from: number, to: number): [number, number, numb
   ];
 }
 
+/** One rotary axis: the nominal line dashed, the fitted one solid over it, and its name at the fitted end. */
+function AxisLines({
+  nominal,
+  fitted,
+  from,
+  to,
+  L,
+  name,
+}: {
+  nominal: SceneLine;
+  fitted: SceneLine;
+  from: number;
+  to: number;
+  L: number;
+  name: string;
+}) {
+  const fittedEnds = lineEnds(fitted, from * L, to * L);
+  return (
+    <>
+      <Line
+        points={lineEnds(nominal, from * L, to * L)}
+        color={NOMINAL}
+        lineWidth={2}
+        dashed
+        dashSize={0.06 * L}
+        gapSize={0.04 * L}
+      />
+      <Line points={fittedEnds} color={FITTED} lineWidth={3} />
+      <Html position={fittedEnds[1]} center zIndexRange={[10, 0]}>
+        <span className="whitespace-nowrap rounded bg-white/90 px-1.5 py-0.5 text-xs font-semibold text-graphite-800">
+          {name} axis
+        </span>
+      </Html>
+    </>
+  );
+}
+
+/** The two rotary axes, each drawn from `from`·L to `to`·L along itself (the primary reaches past the head). */
+const AXIS_SPANS = [
+  { nominal: "nominalPrimary", fitted: "fittedPrimary", from: -0.5, to: 1.55, role: "primary" },
+  { nominal: "nominalSecondary", fitted: "fittedSecondary", from: -0.95, to: 0.95, role: "secondary" },
+] as const;
+
 function Axes({ scene, L, config }: { scene: HeadSceneData; L: number; config: HeadConfig }) {
-  const a = scene.axes;
-  const pEnd = lineEnds(a.fittedPrimary, -0.5 * L, 1.55 * L)[1]!;
-  const sEnd = lineEnds(a.fittedSecondary, -0.95 * L, 0.95 * L)[1]!;
   return (
     <group>
-      <Line
-        points={lineEnds(a.nominalPrimary, -0.5 * L, 1.55 * L)}
-        color={NOMINAL}
-        lineWidth={2}
-        dashed
-        dashSize={0.06 * L}
-        gapSize={0.04 * L}
-      />
-      <Line points={lineEnds(a.fittedPrimary, -0.5 * L, 1.55 * L)} color={FITTED} lineWidth={3} />
-      <Line
-        points={lineEnds(a.nominalSecondary, -0.95 * L, 0.95 * L)}
-        color={NOMINAL}
-        lineWidth={2}
-        dashed
-        dashSize={0.06 * L}
-        gapSize={0.04 * L}
-      />
-      <Line points={lineEnds(a.fittedSecondary, -0.95 * L, 0.95 * L)} color={FITTED} lineWidth={3} />
-      <Html position={pEnd} center zIndexRange={[10, 0]}>
-        <span className="whitespace-nowrap rounded bg-white/90 px-1.5 py-0.5 text-xs font-semibold text-graphite-800">
-          {config.primary} axis
-        </span>
-      </Html>
-      <Html position={sEnd} center zIndexRange={[10, 0]}>
-        <span className="whitespace-nowrap rounded bg-white/90 px-1.5 py-0.5 text-xs font-semibold text-graphite-800">
-          {config.secondary} axis
-        </span>
-      </Html>
+      {AXIS_SPANS.map((x) => (
+        <AxisLines
+          key={x.role}
+          nominal={scene.axes[x.nominal]}
+          fitted={scene.axes[x.fitted]}
+          from={x.from}
+          to={x.to}
+          L={L}
+          name={config[x.role]}
+        />
+      ))}
     </group>
   );
 }
@@ -218,22 +241,17 @@ function OtherFit({ other, L }: { other: HeadOverlayData; L: number }) {
   }, [other.actualPathMm]);
   return (
     <group>
-      <Line
-        points={lineEnds(other.axes.primary, -0.5 * L, 1.55 * L)}
-        color={OTHER}
-        lineWidth={2.5}
-        dashed
-        dashSize={0.035 * L}
-        gapSize={0.025 * L}
-      />
-      <Line
-        points={lineEnds(other.axes.secondary, -0.95 * L, 0.95 * L)}
-        color={OTHER}
-        lineWidth={2.5}
-        dashed
-        dashSize={0.035 * L}
-        gapSize={0.025 * L}
-      />
+      {AXIS_SPANS.map((x) => (
+        <Line
+          key={x.role}
+          points={lineEnds(other.axes[x.role], x.from * L, x.to * L)}
+          color={OTHER}
+          lineWidth={2.5}
+          dashed
+          dashSize={0.035 * L}
+          gapSize={0.025 * L}
+        />
+      ))}
       {path.length >= 2 ? (
         <Line
           points={path}

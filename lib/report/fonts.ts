@@ -11,39 +11,30 @@ let registered = false;
 export const BODY_FONT = ["PlexSans", "DejaVu"];
 export const MONO_FONT = ["PlexMono", "DejaVuMono"];
 
+/**
+ * Each family with the files for its regular (400) and bold (700) weights: Plex Mono's Medium
+ * stands in for bold; DejaVu Sans Mono ships no bold here, so its regular serves both.
+ */
+const FACES: ReadonlyArray<readonly [family: string, regular: string, bold: string]> = [
+  ["PlexSans", "IBMPlexSans-Regular.woff", "IBMPlexSans-Bold.woff"],
+  ["PlexMono", "IBMPlexMono-Regular.woff", "IBMPlexMono-Medium.woff"],
+  ["DejaVu", "DejaVuSans.ttf", "DejaVuSans-Bold.ttf"],
+  ["DejaVuMono", "DejaVuSansMono.ttf", "DejaVuSansMono.ttf"],
+];
+
 export function registerReportFonts(
   fontsDir = path.join(/*turbopackIgnore: true*/ process.cwd(), "fonts"),
 ): void {
   if (registered) return;
-  const f = (name: string) => path.join(fontsDir, name);
-  Font.register({
-    family: "PlexSans",
-    fonts: [
-      { src: f("IBMPlexSans-Regular.woff"), fontWeight: 400 },
-      { src: f("IBMPlexSans-Bold.woff"), fontWeight: 700 },
-    ],
-  });
-  Font.register({
-    family: "PlexMono",
-    fonts: [
-      { src: f("IBMPlexMono-Regular.woff"), fontWeight: 400 },
-      { src: f("IBMPlexMono-Medium.woff"), fontWeight: 700 },
-    ],
-  });
-  Font.register({
-    family: "DejaVu",
-    fonts: [
-      { src: f("DejaVuSans.ttf"), fontWeight: 400 },
-      { src: f("DejaVuSans-Bold.ttf"), fontWeight: 700 },
-    ],
-  });
-  Font.register({
-    family: "DejaVuMono",
-    fonts: [
-      { src: f("DejaVuSansMono.ttf"), fontWeight: 400 },
-      { src: f("DejaVuSansMono.ttf"), fontWeight: 700 },
-    ],
-  });
+  for (const [family, regular, bold] of FACES) {
+    Font.register({
+      family,
+      fonts: [
+        { src: path.join(fontsDir, regular), fontWeight: 400 },
+        { src: path.join(fontsDir, bold), fontWeight: 700 },
+      ],
+    });
+  }
   // Numbers and identifiers must never be hyphenated across lines.
   Font.registerHyphenationCallback((word) => [word]);
   registered = true;

@@ -17,10 +17,11 @@ import {
 } from "@/db/queries/registers-admin";
 import { inviteUser, updateUser } from "@/db/queries/users-admin";
 import { action } from "@/lib/actions";
+import type { Actor } from "@/lib/domain/roles";
 import { DECISION_RULES } from "@/lib/domain/decisions";
 import { JOB_KINDS } from "@/lib/domain/jobs";
 import { jobOpenFormRefusal } from "@/lib/policy/jobs";
-import { registerEditRefusal } from "@/lib/policy/registers";
+import { registerEditRefusal, type Register } from "@/lib/policy/registers";
 import { notFound } from "@/lib/errors";
 import {
   calibrationFormSchema,
@@ -97,39 +98,30 @@ export const mountHeadAction = action(
   },
 );
 
-export const createCustomerAction = action(
-  { schema: customerCreateSchema, refusal: (a) => registerEditRefusal(a, "customers") },
-  async (input, actor) => {
-    const r = await createCustomer(actor, input);
-    revalidatePath("/registers");
+/**
+ * "Add …" on the registers page: the register's edit rule, then the new row, then the pages that
+ * list it are refreshed.
+ */
+function registerCreateAction<S extends z.ZodType>(
+  schema: S,
+  register: Register,
+  create: (actor: Actor, input: z.infer<S>) => Promise<{ id: string }>,
+  listedOn: readonly string[] = ["/registers"],
+) {
+  return action({ schema, refusal: (a) => registerEditRefusal(a, register) }, async (input, actor) => {
+    const r = await create(actor, input);
+    for (const page of listedOn) revalidatePath(page);
     return { id: r.id };
-  },
-);
-export const createSiteAction = action(
-  { schema: siteCreateSchema, refusal: (a) => registerEditRefusal(a, "customers") },
-  async (input, actor) => {
-    const r = await createSite(actor, input);
-    revalidatePath("/registers");
-    return { id: r.id };
-  },
-);
-export const createMachineAction = action(
-  { schema: machineCreateSchema, refusal: (a) => registerEditRefusal(a, "machines") },
-  async (input, actor) => {
-    const r = await createMachine(actor, input);
-    revalidatePath("/registers");
-    return { id: r.id };
-  },
-);
-export const createHeadAction = action(
-  { schema: headCreateSchema, refusal: (a) => registerEditRefusal(a, "heads") },
-  async (input, actor) => {
-    const r = await createHead(actor, input);
-    revalidatePath("/registers");
-    revalidatePath("/registers/heads");
-    return { id: r.id };
-  },
-);
+  });
+}
+
+export const createCustomerAction = registerCreateAction(customerCreateSchema, "customers", createCustomer);
+export const createSiteAction = registerCreateAction(siteCreateSchema, "customers", createSite);
+export const createMachineAction = registerCreateAction(machineCreateSchema, "machines", createMachine);
+export const createHeadAction = registerCreateAction(headCreateSchema, "heads", createHead, [
+  "/registers",
+  "/registers/heads",
+]);
 
 /** Retire a register row, or bring it back: the same correction as `PATCH …/{id}` `{ retired }`. */
 export const retireRegisterRowAction = action(

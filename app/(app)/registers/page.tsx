@@ -9,7 +9,8 @@ import { Table } from "@/components/ui/table";
 import { listCustomersWithSites, listHeads, listMachines } from "@/db/queries/registers";
 import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
-import { retireColumn } from "@/components/registers/retire-column";
+import { namedRow, retireColumn } from "@/components/registers/retire-column";
+import { RegisterSection } from "@/components/registers/register-section";
 
 export const metadata: Metadata = { title: "Registers" };
 
@@ -29,10 +30,7 @@ export default async function RegistersPage() {
         Customers and their sites, host machines and heads. People, instruments and procedures have their own
         tabs.
       </PageHeading>
-      <section className="space-y-3" aria-labelledby="customers">
-        <h2 id="customers" className="text-lg font-semibold">
-          Customers
-        </h2>
+      <RegisterSection id="customers" title="Customers">
         <Table
           caption="Customers"
           empty="No customers yet."
@@ -41,18 +39,11 @@ export default async function RegistersPage() {
             column("Name", (c) => c.name),
             column("Sites", (c) => c.sites.join(", ") || "—"),
             column("Contact", (c) => (c.retiredAt ? "Retired" : (c.contactEmail ?? "—"))),
-            ...retireColumn(column, mayEdit, "customers", (c) => ({
-              id: c.id,
-              retired: Boolean(c.retiredAt),
-              label: c.name,
-            })),
+            ...retireColumn(column, mayEdit, "customers", namedRow),
           ]}
         />
-      </section>
-      <section className="space-y-3" aria-labelledby="machines">
-        <h2 id="machines" className="text-lg font-semibold">
-          Host machines
-        </h2>
+      </RegisterSection>
+      <RegisterSection id="machines" title="Host machines">
         <Table
           caption="Host machines"
           empty="No host machines yet."
@@ -65,20 +56,13 @@ export default async function RegistersPage() {
             column("Customer, site", (m) =>
               m.retiredAt ? `${m.customerName}, ${m.siteName} (retired)` : `${m.customerName}, ${m.siteName}`,
             ),
-            ...retireColumn(column, mayEdit, "machines", (m) => ({
-              id: m.id,
-              retired: Boolean(m.retiredAt),
-              label: m.name,
-            })),
+            ...retireColumn(column, mayEdit, "machines", namedRow),
           ]}
         />
-      </section>
-      <section className="space-y-3" aria-labelledby="heads">
-        <h2 id="heads" className="text-lg font-semibold">
-          Heads
-        </h2>
+      </RegisterSection>
+      <RegisterSection id="heads" title="Heads">
         <HeadsTable rows={heads} mayRetire={mayEdit} />
-      </section>
+      </RegisterSection>
       {mayEdit ? (
         <section className="grid gap-6 lg:grid-cols-2" aria-label="Add to the registers">
           <Card title="Add a customer">

@@ -1,7 +1,7 @@
 import { palette } from "@/lib/domain/theme";
 import type { Metadata } from "next";
 import { redirect } from "next/navigation";
-import { LogoMark } from "@/components/brand/logo";
+import { Wordmark } from "@/components/brand/logo";
 import { safeRedirectPath } from "@/lib/auth/redirect";
 import { getCurrentUser } from "@/lib/auth/session";
 import { SignInForm } from "./sign-in-form";
@@ -16,10 +16,7 @@ export default async function LoginPage({ searchParams }: Props) {
   return (
     <main className="grid min-h-screen lg:grid-cols-[1.1fr_1fr]">
       <section className="relative hidden overflow-hidden bg-graphite-900 p-12 text-graphite-100 lg:flex lg:flex-col lg:justify-between">
-        <div className="flex items-center gap-3">
-          <LogoMark className="h-10 w-10" />
-          <span className="text-2xl font-semibold tracking-tight text-white">Trammel</span>
-        </div>
+        <Wordmark size="xl" />
         <div className="max-w-md space-y-4">
           <p className="text-3xl font-semibold leading-tight text-white">
             Every reading against its tolerance. Every head proven, signed and accepted.
@@ -59,10 +56,7 @@ export default async function LoginPage({ searchParams }: Props) {
       </section>
       <section className="flex items-center justify-center p-6">
         <div className="w-full max-w-sm space-y-8">
-          <div className="flex items-center gap-3 lg:hidden">
-            <LogoMark className="h-9 w-9" />
-            <span className="text-xl font-semibold">Trammel</span>
-          </div>
+          <Wordmark size="lg" className="lg:hidden" />
           <div>
             <h1 className="text-2xl font-semibold text-graphite-900">Sign in</h1>
             <p className="mt-1 text-sm text-graphite-600">

@@ -2,10 +2,10 @@
 
 import { signIn } from "next-auth/react";
 import Link from "next/link";
-import { useState } from "react";
 import { rateLimitMessage } from "@/lib/auth/throttle";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { useFormSubmit } from "@/components/ui/use-form-submit";
 
 const INPUT =
   "block min-h-touch w-full rounded-lg border border-graphite-300 bg-white px-3 text-base text-graphite-900 shadow-sm focus:border-accent-500";
@@ -37,31 +37,22 @@ export function SignInForm({
   initialError?: string;
   initialWaitS?: number;
 }) {
-  const [error, setError] = useState<string | null>(
+  const { pending, error, onSubmit } = useFormSubmit(
+    async (form) => {
+      const res = await signIn("credentials", {
+        email: String(form.get("email") ?? ""),
+        password: String(form.get("password") ?? ""),
+        redirect: false,
+        callbackUrl,
+      });
+      if (res?.ok && !res.error) {
+        window.location.assign(callbackUrl);
+        return null;
+      }
+      return res?.status === 429 ? messageFor("RateLimited", waitFrom(res.url)) : MESSAGES.CredentialsSignin!;
+    },
     initialError ? messageFor(initialError, initialWaitS) : null,
   );
-  const [pending, setPending] = useState(false);
-
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const form = new FormData(e.currentTarget);
-    setPending(true);
-    setError(null);
-    const res = await signIn("credentials", {
-      email: String(form.get("email") ?? ""),
-      password: String(form.get("password") ?? ""),
-      redirect: false,
-      callbackUrl,
-    });
-    if (res?.ok && !res.error) {
-      window.location.assign(callbackUrl);
-      return;
-    }
-    setPending(false);
-    setError(
-      res?.status === 429 ? messageFor("RateLimited", waitFrom(res.url)) : MESSAGES.CredentialsSignin!,
-    );
-  }
 
   return (
     <form onSubmit={onSubmit} className="space-y-5" noValidate>

@@ -2,6 +2,7 @@
 import { Text, View } from "@react-pdf/renderer";
 import type { BudgetTableRow } from "@/lib/budget-display";
 import { pdfSectionStyles } from "@/lib/report/pdf-styles";
+import { PdfHeadRow } from "./pdf-head-row";
 
 export interface ReportBudget {
   /** The Type B inputs in words, with their standard uncertainties. */
@@ -14,6 +15,9 @@ export interface ReportBudget {
 const s = { ...pdfSectionStyles, td: { ...pdfSectionStyles.td, paddingVertical: 2 } };
 
 const W = ["46%", "18%", "18%", "18%"] as const;
+const HEAD = ["Parameter / component", "u", "Sensitivity c", "Contribution"].map(
+  (h, i) => [h, W[i]!] as const,
+);
 
 export function BudgetPdf({ budget }: { budget: ReportBudget | undefined }) {
   if (!budget) return null;
@@ -27,13 +31,7 @@ export function BudgetPdf({ budget }: { budget: ReportBudget | undefined }) {
         U = 2·u_c (k = 2, about 95 %). {budget.inputs}
       </Text>
       <View style={s.table}>
-        <View style={[s.tr, s.th]} fixed>
-          {["Parameter / component", "u", "Sensitivity c", "Contribution"].map((h, i) => (
-            <Text key={h} style={[s.td, { width: W[i] }]}>
-              {h}
-            </Text>
-          ))}
-        </View>
+        <PdfHeadRow cols={HEAD} fixed cellStyle={s.td} />
         {budget.rows.map((r) => (
           <View key={r.parameter} wrap={false}>
             <View style={s.tr}>

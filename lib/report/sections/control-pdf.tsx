@@ -2,6 +2,7 @@
 import { Text, View } from "@react-pdf/renderer";
 import { pdfSectionStyles } from "@/lib/report/pdf-styles";
 import type { ReportControlValues } from "./control";
+import { PdfHeadRow } from "./pdf-head-row";
 
 const s = pdfSectionStyles;
 
@@ -39,13 +40,7 @@ export function ControlValuesPdf({ section }: { section: ReportControlValues | u
       <Text style={s.muted}>{section.basis}</Text>
       {section.rows.length === 0 ? <Text style={s.muted}>No control values were recorded.</Text> : null}
       <View style={s.table}>
-        <View style={[s.tr, s.th]} fixed>
-          {COLS.map(([h, w]) => (
-            <Text key={h} style={[s.td, { width: w }]}>
-              {h}
-            </Text>
-          ))}
-        </View>
+        <PdfHeadRow cols={COLS} fixed />
         {section.rows.map((r) => (
           <View key={r.setting} style={s.tr} wrap={false}>
             <Text style={[s.td, { width: COLS[0][1] }]}>{r.setting}</Text>
@@ -76,13 +71,7 @@ export function ControlValuesPdf({ section }: { section: ReportControlValues | u
             {TCP_DECISION[section.tcpCheck.decision]}.
           </Text>
           <View style={s.table}>
-            <View style={[s.tr, s.th]}>
-              {TCP_COLS.map(([h, w]) => (
-                <Text key={h} style={[s.td, { width: w }]}>
-                  {h}
-                </Text>
-              ))}
-            </View>
+            <PdfHeadRow cols={TCP_COLS} />
             {section.tcpCheck.rows.map((r) => (
               <View key={r.quantity} style={s.tr}>
                 <Text style={[s.td, { width: TCP_COLS[0][1] }]}>{r.quantity}</Text>

@@ -9,6 +9,7 @@ import { Circle, Line, Polyline, Rect, StyleSheet, Svg, Text, View } from "@reac
 import { drawing, palette } from "@/lib/domain/theme";
 import { positioningChartLayout, type ChartMark } from "@/lib/positioning-chart";
 import { sectionStyles, TCP_DECISION } from "./control-pdf";
+import { PdfHeadRow } from "./pdf-head-row";
 import type { ReportPositioningTest } from "./positioning";
 
 // The 5.x sections' look (headings, tables, figures), plus a heading for each axis.
@@ -157,13 +158,7 @@ export function PositioningPdf({ tests }: { tests: ReportPositioningTest[] | und
               {t.file}: {t.basis}
             </Text>
             <View style={s.table}>
-              <View style={[s.tr, s.th]}>
-                {COLS.map(([h, w]) => (
-                  <Text key={h} style={[s.td, { width: w }]}>
-                    {h}
-                  </Text>
-                ))}
-              </View>
+              <PdfHeadRow cols={COLS} />
               {t.rows.map((r) => (
                 <View key={r.symbol} style={s.tr}>
                   <Text style={[s.td, { width: COLS[0][1] }]}>

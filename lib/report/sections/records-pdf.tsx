@@ -5,7 +5,8 @@
  */
 import { StyleSheet, Text, View } from "@react-pdf/renderer";
 import { pdfColours, pdfSectionStyles } from "../pdf-styles";
-import type { ReportRecords } from "./records";
+import { PdfHeadRow } from "./pdf-head-row";
+import { TRACEABILITY_HEAD, traceabilityRows, type ReportRecords } from "./records";
 
 const s = {
   ...pdfSectionStyles,
@@ -28,13 +29,7 @@ function Fact({ k, v }: { k: string; v: string }) {
 function Grid({ head, widths, rows }: { head: string[]; widths: string[]; rows: string[][] }) {
   return (
     <View style={s.table}>
-      <View style={[s.tr, s.th]}>
-        {head.map((h, i) => (
-          <Text key={h} style={[s.td, { width: widths[i] }]}>
-            {h}
-          </Text>
-        ))}
-      </View>
+      <PdfHeadRow cols={head.map((h, i) => [h, widths[i]!] as const)} />
       {rows.map((r, i) => (
         <View key={i} style={s.tr} wrap={false}>
           {r.map((c, j) => (
@@ -86,16 +81,9 @@ export function RecordDetailsPdf({ r }: { r: ReportRecords }) {
       </Text>
       {r.traceability.length ? (
         <Grid
-          head={["Instrument", "Serial", "Certificate", "Calibrated", "Laboratory", "Due"]}
+          head={TRACEABILITY_HEAD}
           widths={["22%", "13%", "18%", "13%", "21%", "13%"]}
-          rows={r.traceability.map((t) => [
-            t.instrument,
-            t.serial,
-            t.certificate,
-            t.calibratedOn,
-            t.laboratory,
-            t.due,
-          ])}
+          rows={traceabilityRows(r)}
         />
       ) : (
         <Text style={{ color: pdfColours.muted }}>No instrument is recorded with the readings.</Text>

@@ -43,6 +43,20 @@ export interface ReportRecords {
   nextRecheck: string;
 }
 
+/** The traceability table as the report page and the PDF both print it: its head, then a row per instrument. */
+export const TRACEABILITY_HEAD = ["Instrument", "Serial", "Certificate", "Calibrated", "Laboratory", "Due"];
+
+export function traceabilityRows(r: ReportRecords): string[][] {
+  return r.traceability.map((t) => [
+    t.instrument,
+    t.serial,
+    t.certificate,
+    t.calibratedOn,
+    t.laboratory,
+    t.due,
+  ]);
+}
+
 export interface RecordsInput {
   issuer: {
     name: string;

@@ -3,6 +3,7 @@ import type { listJobViews } from "@/db/queries/analysis-views";
 import { phaseText } from "@/lib/domain/datasets";
 import { formatDateTimeUtc } from "@/lib/format";
 import { formatFactor } from "@/components/viewer/factor";
+import { StoredViewImage, storedViewUrl } from "@/components/viewer/stored-view-image";
 import { reportViewRefusal } from "@/lib/report/view-choice";
 import { ReportViewToggle } from "./report-view-toggle";
 
@@ -49,15 +50,13 @@ export function SavedViews({
                 data-view-id={v.id}
               >
                 <a
-                  href={`/api/analysis-views/${v.id}/image`}
+                  href={storedViewUrl(v.id)}
                   target="_blank"
                   rel="noreferrer"
                   className="block bg-graphite-50"
                 >
-                  {/* The stored picture of a signed record, behind the session: served as is, not through the image optimizer. */}
-                  {/* eslint-disable-next-line @next/next/no-img-element */}
-                  <img
-                    src={`/api/analysis-views/${v.id}/image`}
+                  <StoredViewImage
+                    viewId={v.id}
                     width={v.widthPx}
                     height={v.heightPx}
                     alt={`Saved 3D view, errors drawn ×${formatFactor(v.factor)}${v.caption ? `: ${v.caption}` : ""}`}

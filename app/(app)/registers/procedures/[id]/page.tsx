@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { BackLink } from "@/components/ui/breadcrumb";
 import { BuilderCaution } from "@/components/procedures/builder-caution";
 import { ProcedureBuilder } from "@/components/procedures/procedure-builder";
 import { RetireProcedureButton } from "@/components/procedures/retire-button";
@@ -49,11 +50,7 @@ export default async function ProcedurePage({ params }: { params: Promise<{ id: 
   return (
     <div className="space-y-6">
       <div>
-        <p className="text-sm">
-          <Link href="/registers/procedures" className="underline">
-            Procedures
-          </Link>
-        </p>
+        <BackLink href="/registers/procedures">Procedures</BackLink>
         <h1 className="text-2xl font-semibold">
           {t.name} <span className="text-graphite-500">· version {t.version}</span>
         </h1>

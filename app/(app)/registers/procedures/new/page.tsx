@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { notFound } from "next/navigation";
+import { BackLink } from "@/components/ui/breadcrumb";
 import { emptyBuilderValues } from "@/components/procedures/builder-values";
 import { ProcedureBuilder } from "@/components/procedures/procedure-builder";
 import { BuilderCaution } from "@/components/procedures/builder-caution";
@@ -17,11 +17,7 @@ export default async function NewProcedurePage() {
   return (
     <div className="space-y-6">
       <div>
-        <p className="text-sm">
-          <Link href="/registers/procedures" className="underline">
-            Procedures
-          </Link>
-        </p>
+        <BackLink href="/registers/procedures">Procedures</BackLink>
         <h1 className="text-2xl font-semibold">New procedure</h1>
         <p className="text-sm text-graphite-600">
           Write the steps in the order the installer works. Nothing is stored until you create it.

@@ -1,17 +1,6 @@
 // A photo's thumbnail (JPEG, at most 320 px), for anyone who may see its job's photos.
-import { getPhotoBytes } from "@/db/queries/photos";
-import { requireUser } from "@/lib/auth/session";
-import { notFound } from "@/lib/errors";
-import { route } from "@/lib/http";
-import { photoResponse } from "@/lib/photo-response";
+import { photoRoute } from "../../photo-route";
 
 export const runtime = "nodejs";
-type Ctx = { params: Promise<{ id: string }> };
 
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const { id } = await ctx.params;
-  const actor = await requireUser();
-  const found = await getPhotoBytes(actor, id, "thumb");
-  if (!found) throw notFound("photo");
-  return photoResponse(found.data, null);
-});
+export const GET = photoRoute("thumb");
