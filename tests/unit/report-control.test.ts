@@ -1,15 +1,12 @@
 // The report's control-values section: the rows and words built from the control loop, and the
 // same printed in the PDF, read back with poppler's pdftotext (an independent reader).
-import { execFileSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { headFitJson, param } from "./fit-builders";
 import { controlLoop } from "@/lib/control-values";
 import { renderReportPdf } from "@/lib/report/render";
 import { controlValuesSection } from "@/lib/report/sections/control";
 import { samplePng, samplePngSha256, sampleReport } from "../fixtures/report/sample-report";
+import { expectPhrases, pdfText } from "../pdf-tools";
 
 const fit = headFitJson([
   param("pivot_length_error_um", 37.88, 1.2, "EZ0A"),
@@ -60,15 +57,12 @@ describe("the report's control-values section", () => {
       undefined,
       new Map([[samplePngSha256, samplePng]]),
     );
-    const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-ctl-"));
-    writeFileSync(path.join(dir, "r.pdf"), pdf);
-    const text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"])
-      .toString("utf8")
-      .replace(/\s+/g, " ");
-    expect(text).toContain("5.1 Values for the control: as found, to enter, as left");
-    expect(text).toContain("152.4379 mm");
-    expect(text).toContain("Differs from the value to enter");
-    expect(text).toContain("Value to enter = as found + correction");
-    expect(text).toContain("qualified people");
+    expectPhrases(pdfText(pdf, true), [
+      "5.1 Values for the control: as found, to enter, as left",
+      "152.4379 mm",
+      "Differs from the value to enter",
+      "Value to enter = as found + correction",
+      "qualified people",
+    ]);
   }, 30_000);
 });
