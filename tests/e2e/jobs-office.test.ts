@@ -4,7 +4,7 @@
 // on the tablet. Screenshots of the board and the form at 1440×900 and 820×1180.
 import { describe, expect, it } from "vitest";
 import { contextForFile, mailTo, screenshotPath, scrollsSideways, signIn, TABLET, pageAs } from "./browser";
-import { pickFirst } from "./steps";
+import { pickFirst, startInstallationJob } from "./steps";
 
 const OFFICE = { width: 1440, height: 900 };
 const office = contextForFile(OFFICE);
@@ -20,14 +20,7 @@ describe("jobs office journey", () => {
     await expect.poll(() => p.getByRole("button", { name: /To schedule/ }).count()).toBe(1);
     await p.screenshot({ path: screenshotPath("jobs-board-admin-1440"), fullPage: true });
 
-    await p.getByRole("link", { name: "New job" }).click();
-    await p.waitForURL("**/jobs/new");
-    await p.getByLabel("Customer", { exact: true }).selectOption({ label: "Marlow Creek Aerostructures" });
-    await pickFirst(p, "Site");
-    await pickFirst(p, "Host machine");
-    await pickFirst(p, "Head");
-    await p.getByLabel("Kind of job").selectOption("installation");
-    await p.getByLabel("Title", { exact: true }).fill("Head installation, bay 2 (office journey)");
+    await startInstallationJob(p, "Head installation, bay 2 (office journey)");
     await pickFirst(p, "Procedure");
     await p.getByLabel("Order reference").fill("PO-55120");
     await p.getByLabel("Contact name").fill("Dana Reyes");
