@@ -19,7 +19,7 @@ import type { Actor } from "@/lib/domain/roles";
 import { canonicalJson } from "@/lib/canonical-json";
 import { AppError } from "@/lib/errors";
 import { upload } from "./dataset-helpers";
-import { allActors, insertTestJob, uploadDemoProbe } from "./fixtures";
+import { allActors, insertTestJob, uploadDemoProbe, auditEventsOf } from "./fixtures";
 import { request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
@@ -78,10 +78,7 @@ describe("running a fit", () => {
     expect(b.reused).toBe(true);
     expect(b.analysis.id).toBe(analysisId);
     expect(await db.select().from(analyses).where(eq(analyses.datasetId, datasetId))).toHaveLength(1);
-    const created = await db
-      .select()
-      .from(auditEvents)
-      .where(and(eq(auditEvents.entityId, analysisId), eq(auditEvents.action, "analysis.created")));
+    const created = await auditEventsOf({ entityId: analysisId }, "analysis.created");
     expect(created).toHaveLength(1);
   });
 

@@ -4,7 +4,7 @@
 // 4 MiB cap is 413; only engineers save (403); another tenant's view is 404; each save is audited
 // in the hash chain; the row cannot be changed afterwards (migration 0006).
 import { createHash } from "node:crypto";
-import { and, eq, sql } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import { PNG } from "pngjs";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET as listRoute, POST as saveRoute } from "@/app/api/analyses/[id]/views/route";
@@ -13,9 +13,9 @@ import { db } from "@/db";
 import { approveAnalysis } from "@/db/queries/analyses";
 import { latestJobView, VIEW_MAX_BYTES } from "@/db/queries/analysis-views";
 import { verifyAuditChain } from "@/db/queries/audit";
-import { analyses, analysisViews, auditEvents, datasets, jobs } from "@/db/schema";
-import { insertTestJob, signInActor, uploadDemoProbe } from "./fixtures";
-import { jobIdByReference, request, signInAs } from "./helpers";
+import { analyses, analysisViews, datasets, jobs } from "@/db/schema";
+import { insertTestJob, signInActor, uploadDemoProbe, auditEventsOf } from "./fixtures";
+import { formPost, jobIdByReference, request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
 
@@ -31,10 +31,11 @@ function saveRequest(
   fields: Record<string, string>,
   type = "image/png",
 ): Request {
-  const form = new FormData();
-  for (const [k, v] of Object.entries(fields)) form.set(k, v);
-  if (file) form.set("file", new Blob([new Uint8Array(file)], { type }), "view.png");
-  return request(`/api/analyses/${analysisId}/views`, { method: "POST", body: form });
+  return formPost(
+    `/api/analyses/${analysisId}/views`,
+    fields,
+    file && { bytes: file, type, name: "view.png" },
+  );
 }
 const save = (analysisId: string, file: Buffer | null, fields: Record<string, string>) =>
   saveRoute(saveRequest(analysisId, file, fields), p(analysisId));
@@ -101,10 +102,7 @@ describe("saving a view of the 3D view", () => {
     const [row] = await db.select().from(analysisViews).where(eq(analysisViews.id, view.id));
     expect(row!.storageKey).toMatch(new RegExp(`^views/${ids.job}/[0-9a-f-]{36}$`));
     // Audited in the same chain, and the chain still verifies.
-    const [ev] = await db
-      .select()
-      .from(auditEvents)
-      .where(and(eq(auditEvents.entityId, view.id), eq(auditEvents.action, "analysis_view.saved")));
+    const [ev] = await auditEventsOf({ entityId: view.id }, "analysis_view.saved");
     expect(ev).toMatchObject({
       jobId: ids.job,
       entityType: "analysis_view",

@@ -4,7 +4,7 @@
 // decides an outcome a test checks. Before writing a set-up into a test file, look here, in
 // helpers.ts (session and requests), dataset-helpers.ts (upload routes) and ready-job.ts
 // (bringing a job to the state its report needs).
-import { asc, eq } from "drizzle-orm";
+import { and, asc, eq } from "drizzle-orm";
 import type { PgColumn, PgInsertValue, PgTable } from "drizzle-orm/pg-core";
 import { expect } from "vitest";
 import { POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
@@ -12,7 +12,7 @@ import { db } from "@/db";
 import { approveAnalysis, nonConformingParameters } from "@/db/queries/analyses";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { instruments, jobs, templateSteps, users } from "@/db/schema";
+import { auditEvents, instruments, jobs, templateSteps, users } from "@/db/schema";
 import type { JobKind, JobStatus } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
@@ -162,6 +162,16 @@ export async function refusalOf(p: Promise<unknown>): Promise<AppError> {
     throw e;
   }
   throw new Error("expected a refusal");
+}
+
+/** The audit events of this action on a job (`jobId`) or on one record (`entityId`), oldest first. */
+export function auditEventsOf(on: { jobId: string } | { entityId: string }, action: string) {
+  const subject = "jobId" in on ? eq(auditEvents.jobId, on.jobId) : eq(auditEvents.entityId, on.entityId);
+  return db
+    .select()
+    .from(auditEvents)
+    .where(and(subject, eq(auditEvents.action, action)))
+    .orderBy(asc(auditEvents.id));
 }
 
 /** Drizzle wraps the driver's error; the database's own message is in `cause`. */

@@ -16,18 +16,13 @@ import { POST as runRoute } from "@/app/api/datasets/[id]/analyses/route";
 import { db } from "@/db";
 import { analyses, datasets, heads } from "@/db/schema";
 import { uploadDemoProbe, WHO, type Who } from "./fixtures";
-import { jobIdByReference, request, signInAs } from "./helpers";
+import { formPost, jobIdByReference, request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
 const png = () => PNG.sync.write(new PNG({ width: 12, height: 8 }));
 function save(analysisId: string) {
-  const form = new FormData();
-  form.set("factor", "300");
-  form.set("file", new Blob([new Uint8Array(png())], { type: "image/png" }), "view.png");
-  return saveRoute(
-    request(`/api/analyses/${analysisId}/views`, { method: "POST", body: form }),
-    p(analysisId),
-  );
+  const file = { bytes: png(), type: "image/png", name: "view.png" };
+  return saveRoute(formPost(`/api/analyses/${analysisId}/views`, { factor: "300" }, file), p(analysisId));
 }
 const list = (id: string) => listRoute(request(`/api/analyses/${id}/views`), p(id));
 const image = (id: string) => imageRoute(request(`/api/analysis-views/${id}/image`), p(id));
