@@ -12,13 +12,13 @@ import { db } from "@/db";
 import { approveAnalysis, nonConformingParameters } from "@/db/queries/analyses";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { auditEvents, instruments, jobs, templateSteps, users } from "@/db/schema";
+import { auditEvents, instruments, jobs, users } from "@/db/schema";
 import type { JobKind, JobStatus } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import { upload } from "./dataset-helpers";
 import { request, signInAs } from "./helpers";
-import { jobBaseOf } from "./ready-job";
+import { jobBaseOf, procedureSteps } from "./ready-job";
 
 /**
  * Who the access tables ask about: anonymous, each staff role and each tenant's customer, with the
@@ -187,18 +187,13 @@ export async function dbError(p: Promise<unknown>): Promise<string> {
 
 /** The id of the first step of a procedure (by position). */
 export async function firstStepOf(templateId: string): Promise<string> {
-  const [step] = await db
-    .select({ id: templateSteps.id })
-    .from(templateSteps)
-    .where(eq(templateSteps.templateId, templateId))
-    .orderBy(asc(templateSteps.position))
-    .limit(1);
+  const [step] = await procedureSteps(templateId);
   return step!.id;
 }
 
 /** The ids of a procedure's steps by their position (1, 2, …). */
 export async function stepIdsByPosition(templateId: string): Promise<Record<number, string>> {
-  const rows = await db.select().from(templateSteps).where(eq(templateSteps.templateId, templateId));
+  const rows = await procedureSteps(templateId);
   return Object.fromEntries(rows.map((s) => [s.position, s.id]));
 }
 
