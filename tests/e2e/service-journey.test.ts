@@ -6,7 +6,7 @@
 // the engineer opens the job's report page and its draft preview, whose text (read back with
 // pdftotext) prints the points behind the run-out and lists the photo in its appendix by SHA-256.
 import { describe, expect, it } from "vitest";
-import { contextForFile, mailTo, screenshotPath, scrollsSideways, signIn, TABLET } from "./browser";
+import { contextForFile, mailTo, pageAs, screenshotPath, scrollsSideways, signIn, TABLET } from "./browser";
 import {
   addBuilderStep,
   attachPhoto,
@@ -32,9 +32,7 @@ let reference = "";
 
 describe("a service job from the procedure to the report", () => {
   it("the administrator builds the procedure", async () => {
-    const p = await office().newPage();
-    await signIn(p, "admin@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(office(), "admin@halvard.example");
     await p.goto("/registers/procedures/new");
     await p.getByLabel("Name").fill(PROCEDURE);
     await p.getByLabel("Installation").check();
@@ -135,10 +133,7 @@ describe("a service job from the procedure to the report", () => {
 
   it("the job's report prints the points behind the run-out and lists the photo in its appendix", async () => {
     expect(jobId).not.toBe("");
-    await office().clearCookies();
-    const p = await office().newPage();
-    await signIn(p, "engineer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(office(), "engineer@halvard.example");
     await p.goto(`/jobs/${jobId}/report`);
     const draft = p.locator(`a[href="/api/jobs/${jobId}/report/draft"]`);
     await expect.poll(() => draft.count()).toBe(1);
