@@ -14,7 +14,7 @@ import { approveAnalysis } from "@/db/queries/analyses";
 import { latestJobView, VIEW_MAX_BYTES } from "@/db/queries/analysis-views";
 import { verifyAuditChain } from "@/db/queries/audit";
 import { analyses, analysisViews, datasets, jobs } from "@/db/schema";
-import { insertTestJob, signInActor, uploadDemoProbe, auditEventsOf } from "./fixtures";
+import { insertTestJob, signInActor, auditEventsOf, fitDemoProbe } from "./fixtures";
 import { formPost, jobIdByReference, request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
@@ -25,20 +25,11 @@ function pngOf(width: number, height: number, seed = 1): Buffer {
   return PNG.sync.write(img);
 }
 
-function saveRequest(
-  analysisId: string,
-  file: Buffer | null,
-  fields: Record<string, string>,
-  type = "image/png",
-): Request {
-  return formPost(
-    `/api/analyses/${analysisId}/views`,
-    fields,
-    file && { bytes: file, type, name: "view.png" },
-  );
-}
-const save = (analysisId: string, file: Buffer | null, fields: Record<string, string>) =>
-  saveRoute(saveRequest(analysisId, file, fields), p(analysisId));
+/** POST /api/analyses/{id}/views: these fields and, when given, the picture sent as view.png (image/png). */
+const save = (analysisId: string, file: Buffer | null, fields: Record<string, string>) => {
+  const picture = file && { bytes: file, type: "image/png", name: "view.png" };
+  return saveRoute(formPost(`/api/analyses/${analysisId}/views`, fields, picture), p(analysisId));
+};
 const image = (viewId: string) => imageRoute(request(`/api/analysis-views/${viewId}/image`), p(viewId));
 const list = (analysisId: string) => listRoute(request(`/api/analyses/${analysisId}/views`), p(analysisId));
 
@@ -56,14 +47,7 @@ beforeAll(async () => {
   ids.post = fits.find((f) => f.phase === "post")!.id;
   // A Tollan fit on TR-2026-0048 (in review).
   const tollanJob = await jobIdByReference("TR-2026-0048");
-  const { POST: runRoute } = await import("@/app/api/datasets/[id]/analyses/route");
-  const dsId = await uploadDemoProbe(tollanJob, {
-    email: "engineer@halvard.example",
-    filename: "tollan-views.csv",
-  });
-  const run = await runRoute(request(`/api/datasets/${dsId}/analyses`, { method: "POST" }), p(dsId));
-  expect([200, 201]).toContain(run.status);
-  ids.tollanAnalysis = (await run.json()).analysis.id;
+  ids.tollanAnalysis = (await fitDemoProbe(tollanJob, "tollan-views.csv")).analysisId;
 });
 
 describe("saving a view of the 3D view", () => {
@@ -222,14 +206,7 @@ describe("latestJobView (for the report)", () => {
       status: "measuring",
       assignedInstallerId: t!.assignedInstallerId,
     });
-    const dsId = await uploadDemoProbe(jobId, {
-      email: "engineer@halvard.example",
-      filename: "views-probe.csv",
-    });
-    const { POST: runRoute } = await import("@/app/api/datasets/[id]/analyses/route");
-    const analysisId = (
-      await (await runRoute(request(`/api/datasets/${dsId}/analyses`, { method: "POST" }), p(dsId))).json()
-    ).analysis.id as string;
+    const { analysisId } = await fitDemoProbe(jobId, "views-probe.csv");
 
     const first = pngOf(40, 30, 1);
     const second = pngOf(64, 48, 2);

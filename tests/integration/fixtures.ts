@@ -7,6 +7,7 @@
 import { and, asc, eq } from "drizzle-orm";
 import type { PgColumn, PgInsertValue, PgTable } from "drizzle-orm/pg-core";
 import { expect } from "vitest";
+import { POST as fitRoute } from "@/app/api/datasets/[id]/analyses/route";
 import { POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
 import { approveAnalysis, nonConformingParameters } from "@/db/queries/analyses";
@@ -126,6 +127,27 @@ export async function uploadDemoProbe(
   );
   expect(res.status).toBe(201);
   return ((await res.json()) as { id: string }).id;
+}
+
+/** Runs the head fit of a dataset through POST /api/datasets/{id}/analyses as whoever is signed in. */
+export function runFit(datasetId: string): Promise<Response> {
+  return fitRoute(request(`/api/datasets/${datasetId}/analyses`, { method: "POST" }), {
+    params: Promise.resolve({ id: datasetId }),
+  });
+}
+
+/**
+ * Uploads the demo sphere-probe CSV to the job as the demo engineer and fits it through the route,
+ * checks the new fit was stored (201) and returns the dataset's and the analysis's ids.
+ */
+export async function fitDemoProbe(
+  jobId: string,
+  filename: string,
+): Promise<{ datasetId: string; analysisId: string }> {
+  const datasetId = await uploadDemoProbe(jobId, { email: "engineer@halvard.example", filename });
+  const res = await runFit(datasetId);
+  expect(res.status).toBe(201);
+  return { datasetId, analysisId: ((await res.json()) as { analysis: { id: string } }).analysis.id };
 }
 
 /**
