@@ -1,7 +1,7 @@
 // Reading a PDF back with poppler's command-line tools (an independent reader, installed from
 // Debian), for the tests that check what a report file says and holds.
 import { execFileSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
+import { mkdirSync, mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { expect } from "vitest";
@@ -28,8 +28,9 @@ export function expectPhrases(text: string, phrases: readonly string[]): void {
   for (const phrase of phrases) expect(text, `the PDF says "${phrase}"`).toContain(phrase);
 }
 
-/** Renders every page of the file as a PNG at this resolution (dpi), as `<prefix>-<page>.png`. */
+/** Renders every page of the file as a PNG at this resolution (dpi), as `<prefix>-<page>.png` (its folder made if missing). */
 export function pdfPagesToPng(pdf: Uint8Array | string, prefix: string, dpi: number): void {
+  mkdirSync(path.dirname(prefix), { recursive: true });
   execFileSync("pdftoppm", ["-png", "-r", String(dpi), pdfFile(pdf), prefix]);
 }
 

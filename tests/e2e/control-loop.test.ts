@@ -5,10 +5,8 @@
 // flagged; the installer uploads a tool-centre-point check through the datasets API the upload
 // page uses, and the page judges it Pass against the procedure's limits; the draft report (PDF,
 // read back with poppler's pdftotext) prints all of it with the sign convention and the caution.
-import { mkdirSync } from "node:fs";
-import path from "node:path";
 import type { Page } from "playwright-core";
-import { beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { headPoseGrid, synthesiseSphereProbe } from "@/geometry";
 import { screenshotPath, seriousViolations, signIn, TABLET, pageAs, contextForFile } from "./browser";
 import { expectPhrases, pdfFile, pdfPagesToPng, pdfText } from "../pdf-tools";
@@ -16,10 +14,6 @@ import { openJobSection } from "./steps";
 
 const ctx = contextForFile({ width: 1440, height: 900 });
 const tablet = contextForFile(TABLET);
-
-beforeAll(async () => {
-  mkdirSync(path.dirname(screenshotPath("x")), { recursive: true });
-});
 
 async function openControl(p: Page) {
   await p.goto("/jobs");

@@ -5,10 +5,8 @@
 // of the means ± 2s; the seeded C-axis test is judged Pass against the procedure's limits; the
 // draft report (PDF, read back with poppler's pdftotext) prints section 5.4 for both axes. On the
 // tablet the page does not scroll sideways.
-import { mkdirSync } from "node:fs";
-import path from "node:path";
 import type { Page } from "playwright-core";
-import { beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { demoRotaryPositioningCsv } from "@/db/seed-positioning";
 import { choose, contextForFile, pageAs, screenshotPath, seriousViolations, TABLET } from "./browser";
 import { expectPhrases, pdfPagesToPng, pdfText } from "../pdf-tools";
@@ -17,10 +15,6 @@ import { openJobSection } from "./steps";
 const ctx = contextForFile({ width: 1440, height: 900 });
 const tablet = contextForFile(TABLET);
 let datasetUrl = "";
-
-beforeAll(async () => {
-  mkdirSync(path.dirname(screenshotPath("x")), { recursive: true });
-});
 
 async function openData(p: Page) {
   await p.goto("/jobs");
