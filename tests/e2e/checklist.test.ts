@@ -5,12 +5,23 @@
 // other browser tests see the seeded statuses. The same journey on the tablet is in
 // journeys-tablet.test.ts.
 import { describe, expect, it } from "vitest";
-import type { Page } from "playwright-core";
+import type { Locator, Page } from "playwright-core";
 import { screenshotPath, signIn, contextForFile } from "./browser";
 import { chooseInstrument, openStep } from "./steps";
 
 const ctx = contextForFile();
 let jobHref: string;
+
+/** Presses a step's save button (for a reading or a correction) and waits until its status line says `said`. */
+async function save(step: Locator, button: "Save reading" | "Save correction", said: RegExp) {
+  await step.getByRole("button", { name: button }).click();
+  await expect.poll(() => step.getByRole("status").innerText()).toMatch(said);
+}
+
+/** Waits until at least one of these table rows is shown. */
+async function expectShown(rows: Locator) {
+  await expect.poll(() => rows.count()).toBeGreaterThan(0);
+}
 
 async function openChecklist(p: Page) {
   await signIn(p, "installer@halvard.example");
@@ -48,24 +59,21 @@ describe("journey 4: readings before and after an adjustment, compared side by s
 
     // Checked as you type: not a number, or finer than the instrument reads; Save waits.
     await chooseInstrument(step1, "DTI-0112");
-    const save = step1.getByRole("button", { name: "Save reading" });
+    const saveButton = step1.getByRole("button", { name: "Save reading" });
     await value.fill("abc");
     await expect.poll(() => step1.getByTestId("problem-1").innerText()).toMatch(/Not a number/);
-    expect(await save.isDisabled()).toBe(true);
+    expect(await saveButton.isDisabled()).toBe(true);
     await value.fill("0.00031");
     await expect
       .poll(() => step1.getByTestId("problem-1").innerText())
       .toMatch(/More decimals than DTI-0112/);
-    expect(await save.isDisabled()).toBe(true);
+    expect(await saveButton.isDisabled()).toBe(true);
     await value.fill("0.0003");
     await expect.poll(() => step1.getByTestId("problem-1").innerText()).toBe("");
 
     await step1.getByLabel(/^Note/).fill("after a 0.0004 in shim at 4 o'clock");
-    await step1.getByRole("button", { name: "Save reading" }).click();
-    await expect.poll(() => step1.getByRole("status").innerText()).toMatch(/Reading saved: pass/);
-    await expect
-      .poll(() => step1.locator("tbody tr").filter({ hasText: "0.0003 in" }).count())
-      .toBeGreaterThan(0);
+    await save(step1, "Save reading", /Reading saved: pass/);
+    await expectShown(step1.locator("tbody tr").filter({ hasText: "0.0003 in" }));
 
     // Step 4 before and after setting the secondary zero; the post reading is first mistyped, then corrected.
     const step4 = await openStep(p, 4);
@@ -73,8 +81,7 @@ describe("journey 4: readings before and after an adjustment, compared side by s
     await step4.getByLabel("After adjustment").check();
     await chooseInstrument(step4, "DTI-0112");
     await v4.fill("0.0010");
-    await step4.getByRole("button", { name: "Save reading" }).click();
-    await expect.poll(() => step4.getByRole("status").innerText()).toMatch(/Reading saved: fail/);
+    await save(step4, "Save reading", /Reading saved: fail/);
     const wrongRow = step4
       .locator("tbody tr:not([data-superseded])")
       .filter({ hasText: "0.0010 in" })
@@ -82,12 +89,9 @@ describe("journey 4: readings before and after an adjustment, compared side by s
     await wrongRow.getByRole("button", { name: "Correct" }).click();
     await v4.fill("0.0001");
     await step4.getByLabel(/^Note/).fill("misread the dial");
-    await step4.getByRole("button", { name: "Save correction" }).click();
-    await expect.poll(() => step4.getByRole("status").innerText()).toMatch(/Correction saved: pass/);
+    await save(step4, "Save correction", /Correction saved: pass/);
     // The mistyped reading is kept and marked as corrected, not overwritten.
-    await expect
-      .poll(() => step4.locator('tr[data-superseded="true"]').filter({ hasText: "0.0010 in" }).count())
-      .toBeGreaterThan(0);
+    await expectShown(step4.locator('tr[data-superseded="true"]').filter({ hasText: "0.0010 in" }));
     await p.screenshot({ path: screenshotPath("checklist-desktop"), fullPage: true });
 
     // Compare: every step with before, after, change, limits and result.

@@ -5,22 +5,15 @@
 // flagged; the installer uploads a tool-centre-point check through the datasets API the upload
 // page uses, and the page judges it Pass against the procedure's limits; the draft report (PDF,
 // read back with poppler's pdftotext) prints all of it with the sign convention and the caution.
-import { execFileSync } from "node:child_process";
-import { mkdirSync } from "node:fs";
-import path from "node:path";
 import type { Page } from "playwright-core";
-import { beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { headPoseGrid, synthesiseSphereProbe } from "@/geometry";
 import { screenshotPath, seriousViolations, signIn, TABLET, pageAs, contextForFile } from "./browser";
-import { pdfFile, pdfText } from "../pdf-tools";
+import { expectPhrases, pdfFile, pdfPagesToPng, pdfText } from "../pdf-tools";
 import { openJobSection } from "./steps";
 
 const ctx = contextForFile({ width: 1440, height: 900 });
 const tablet = contextForFile(TABLET);
-
-beforeAll(async () => {
-  mkdirSync(path.dirname(screenshotPath("x")), { recursive: true });
-});
 
 async function openControl(p: Page) {
   await p.goto("/jobs");
@@ -137,26 +130,22 @@ describe("the control loop on an after-crash job", () => {
     expect(pdf.status()).toBe(200);
     const file = pdfFile(await pdf.body());
     const text = pdfText(file, true);
-    expect(text).toContain("5.1 Values for the control: as found, to enter, as left");
-    expect(text).toContain(`${toEnter} mm`);
-    expect(text).toContain("Differs from the value to enter");
-    expect(text).toContain("5.2 Tool-centre-point check after compensation");
-    expect(text).toContain("tcp-e2e.csv");
-    // Each judged TCP figure says the rule and where the procedure's limit comes from.
-    expect(text).toContain("Rule: simple; limit: Customer specification");
-    expect(text).toContain("Value to enter = as found + correction");
-    expect(text).toContain("qualified people");
-    // The approved fit's budget, with the demo's register inputs (probe 0.50 µm, presetter 2.00 µm).
-    expect(text).toContain("5.3 Uncertainty budget of the head parameters (JCGM 100)");
-    expect(text).toContain("tool-length presetter");
-    expect(text).toContain("probe 0.50 µm");
-    execFileSync("pdftoppm", [
-      "-png",
-      "-r",
-      "70",
-      file,
-      screenshotPath("control-loop-draft").replace(/\.png$/, ""),
+    expectPhrases(text, [
+      "5.1 Values for the control: as found, to enter, as left",
+      `${toEnter} mm`,
+      "Differs from the value to enter",
+      "5.2 Tool-centre-point check after compensation",
+      "tcp-e2e.csv",
+      // Each judged TCP figure says the rule and where the procedure's limit comes from.
+      "Rule: simple; limit: Customer specification",
+      "Value to enter = as found + correction",
+      "qualified people",
+      // The approved fit's budget, with the demo's register inputs (probe 0.50 µm, presetter 2.00 µm).
+      "5.3 Uncertainty budget of the head parameters (JCGM 100)",
+      "tool-length presetter",
+      "probe 0.50 µm",
     ]);
+    pdfPagesToPng(file, screenshotPath("control-loop-draft").replace(/\.png$/, ""), 70);
   }, 120_000);
 
   it("reads on the tablet without sideways scrolling of the page", async () => {

@@ -2,15 +2,13 @@
 // and see that role's navigation; tenant isolation by URL; sign-in errors; sign-out.
 import { describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
-import { newContext, screenshotPath, signIn, contextForFile } from "./browser";
+import { contextForFile, newContext, pageAs, screenshotPath, signIn } from "./browser";
 
 const ctx = contextForFile();
-let page: Page;
-
+/** A new page of the file's context, signed out. */
 async function fresh(): Promise<Page> {
   await ctx().clearCookies();
-  page = await ctx().newPage();
-  return page;
+  return ctx().newPage();
 }
 
 const ROLES = [
@@ -25,9 +23,7 @@ const ROLES = [
 describe("sign in as each role", () => {
   for (const r of ROLES) {
     it(`${r.email} lands on the jobs table with the ${r.role}'s navigation`, async () => {
-      const p = await fresh();
-      await signIn(p, r.email);
-      await p.waitForURL("**/jobs");
+      const p = await pageAs(ctx(), r.email);
       await expect.poll(() => p.getByTestId("current-user").innerText()).toContain(r.role);
       const nav = await p.getByRole("navigation", { name: "Main" }).getByRole("link").allInnerTexts();
       expect(nav).toEqual(r.nav);
@@ -41,16 +37,12 @@ describe("sign in as each role", () => {
 describe("tenant isolation and access", () => {
   it("a customer opening another tenant's job URL gets not-found", async () => {
     // Find a Marlow Creek job id as the Marlow customer, then try it as Tollan's.
-    const p = await fresh();
-    await signIn(p, "buyer@marlowcreek.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "buyer@marlowcreek.example");
     const href = await p.getByRole("link", { name: "TR-2026-0041" }).getAttribute("href");
     expect(href).toMatch(/^\/jobs\/[0-9a-f-]{36}$/);
     await p.close();
 
-    const q = await fresh();
-    await signIn(q, "buyer@tollan.example");
-    await q.waitForURL("**/jobs");
+    const q = await pageAs(ctx(), "buyer@tollan.example");
     const res = await q.goto(href!);
     expect(res?.status()).toBe(404);
     await expect.poll(() => q.getByRole("heading", { level: 1 }).innerText()).toBe("Job not found");
@@ -69,9 +61,7 @@ describe("tenant isolation and access", () => {
   });
 
   it("an installer cannot open the registers", async () => {
-    const p = await fresh();
-    await signIn(p, "installer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "installer@halvard.example");
     const res = await p.goto("/registers");
     expect(res?.status()).toBe(404);
     await p.close();
@@ -95,9 +85,7 @@ describe("sign-in page", () => {
   });
 
   it("sign-out ends the session", async () => {
-    const p = await fresh();
-    await signIn(p, "engineer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "engineer@halvard.example");
     await p.getByRole("button", { name: "Sign out" }).click();
     await p.waitForURL("**/login");
     await p.goto("/jobs");
@@ -108,9 +96,7 @@ describe("sign-in page", () => {
 
 describe("jobs table and job page", () => {
   it("sorts, filters and opens a job", async () => {
-    const p = await fresh();
-    await signIn(p, "engineer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "engineer@halvard.example");
     await p.getByRole("link", { name: /^Reference/ }).click();
     await p.waitForURL(/sort=reference&dir=asc/);
     const refs = await p.locator("tbody tr td:first-child").allInnerTexts();

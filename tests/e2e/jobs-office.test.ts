@@ -3,8 +3,8 @@
 // e-mail (delivered through the outbox to the local SMTP fake) and finds the job under "To measure"
 // on the tablet. Screenshots of the board and the form at 1440×900 and 820×1180.
 import { describe, expect, it } from "vitest";
-import { contextForFile, mailTo, screenshotPath, scrollsSideways, signIn, TABLET, pageAs } from "./browser";
-import { pickFirst } from "./steps";
+import { contextForFile, mailTo, screenshotPath, scrollsSideways, TABLET, pageAs } from "./browser";
+import { pickFirst, startInstallationJob } from "./steps";
 
 const OFFICE = { width: 1440, height: 900 };
 const office = contextForFile(OFFICE);
@@ -13,21 +13,12 @@ let reference = "";
 
 describe("jobs office journey", () => {
   it("the administrator opens, schedules and assigns a new job", async () => {
-    const p = await office().newPage();
-    await signIn(p, "admin@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(office(), "admin@halvard.example");
     // The board shows the administrator's queue with its count.
     await expect.poll(() => p.getByRole("button", { name: /To schedule/ }).count()).toBe(1);
     await p.screenshot({ path: screenshotPath("jobs-board-admin-1440"), fullPage: true });
 
-    await p.getByRole("link", { name: "New job" }).click();
-    await p.waitForURL("**/jobs/new");
-    await p.getByLabel("Customer", { exact: true }).selectOption({ label: "Marlow Creek Aerostructures" });
-    await pickFirst(p, "Site");
-    await pickFirst(p, "Host machine");
-    await pickFirst(p, "Head");
-    await p.getByLabel("Kind of job").selectOption("installation");
-    await p.getByLabel("Title", { exact: true }).fill("Head installation, bay 2 (office journey)");
+    await startInstallationJob(p, "Head installation, bay 2 (office journey)");
     await pickFirst(p, "Procedure");
     await p.getByLabel("Order reference").fill("PO-55120");
     await p.getByLabel("Contact name").fill("Dana Reyes");
@@ -68,9 +59,7 @@ describe("jobs office journey", () => {
   });
 
   it("the installer sees the job under To measure on the tablet", async () => {
-    const p = await tablet().newPage();
-    await signIn(p, "installer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(tablet(), "installer@halvard.example");
     const chip = p.getByRole("button", { name: /To measure/ });
     await chip.click();
     await p.waitForURL(/queue=to_measure/);

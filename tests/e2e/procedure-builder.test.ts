@@ -5,7 +5,6 @@
 // moves a step with the keyboard (focus follows it), creates the procedure, saves the version,
 // retires it and brings it back. Screenshots at 1440×900 and on the tablet (820×1180).
 import { describe, expect, it } from "vitest";
-import type { Page } from "playwright-core";
 import {
   newContext,
   screenshotPath,
@@ -15,11 +14,9 @@ import {
   contextForFile,
   pageAs,
 } from "./browser";
-import { buildPhotoRecordStep, buildRunOutStep } from "./steps";
+import { addBuilderStep, buildCheckStep, builderStep, buildPhotoRecordStep, buildRunOutStep } from "./steps";
 
 const ctx = contextForFile({ width: 1440, height: 900 });
-
-const step = (p: Page, n: number) => p.getByRole("listitem", { name: new RegExp(`^Step ${n}:`) });
 
 describe("procedure builder (administrator)", () => {
   it("builds, reorders, creates, saves, retires and brings back a procedure", async () => {
@@ -33,18 +30,15 @@ describe("procedure builder (administrator)", () => {
     await p.getByLabel("Head model").fill("HX-40");
 
     // Step 1: readings at four clock positions, judged by their TIR.
-    const s1 = step(p, 1);
+    const s1 = builderStep(p, 1);
     await buildRunOutStep(s1);
 
     // Step 2: a yes/no check, first without its limit source.
-    await p.getByRole("button", { name: "Add a step" }).click();
-    const s2 = step(p, 2);
-    await s2.getByLabel("Title").fill("Motor plate on its dowels");
-    await s2.getByLabel("Kind of step").selectOption("check");
+    const s2 = await addBuilderStep(p, 2);
+    await buildCheckStep(s2, "Motor plate on its dowels");
 
     // Step 3: a value for the record that needs a photo.
-    await p.getByRole("button", { name: "Add a step" }).click();
-    const s3 = step(p, 3);
+    const s3 = await addBuilderStep(p, 3);
     await buildPhotoRecordStep(s3, "Shims under the collar", "mm");
     await s3.getByLabel("Safety note").fill("Lock out before hands go near the spindle nose.");
 
@@ -82,7 +76,9 @@ describe("procedure builder (administrator)", () => {
     // Move step 3 up with the keyboard; focus stays on the moved step's button.
     await s3.getByRole("button", { name: "Move step 3 up" }).focus();
     await p.keyboard.press("Enter");
-    await expect.poll(() => step(p, 2).getByLabel("Title").inputValue()).toBe("Shims under the collar");
+    await expect
+      .poll(() => builderStep(p, 2).getByLabel("Title").inputValue())
+      .toBe("Shims under the collar");
     await expect
       .poll(() => p.evaluate(() => document.activeElement?.getAttribute("aria-label")))
       .toBe("Move step 2 up");
@@ -126,7 +122,7 @@ describe("procedure builder (administrator)", () => {
       .toBe("Primary (rotary) axis");
 
     // No job follows version 1 yet: saving changes it in place.
-    await step(p, 3).getByLabel("Title").fill("Motor plate home on its dowels");
+    await builderStep(p, 3).getByLabel("Title").fill("Motor plate home on its dowels");
     await p.getByRole("button", { name: "Save version 1" }).click();
     await expect
       .poll(() => p.locator("table").first().locator("tbody tr").nth(2).innerText())

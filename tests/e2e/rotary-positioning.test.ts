@@ -5,42 +5,26 @@
 // of the means ± 2s; the seeded C-axis test is judged Pass against the procedure's limits; the
 // draft report (PDF, read back with poppler's pdftotext) prints section 5.4 for both axes. On the
 // tablet the page does not scroll sideways.
-import { execFileSync } from "node:child_process";
-import { mkdirSync, mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import path from "node:path";
-import type { BrowserContext, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
 import { demoRotaryPositioningCsv } from "@/db/seed-positioning";
-import { choose, newContext, screenshotPath, seriousViolations, signIn, TABLET } from "./browser";
+import { choose, contextForFile, pageAs, screenshotPath, seriousViolations, TABLET } from "./browser";
+import { expectPhrases, pdfPagesToPng, pdfText } from "../pdf-tools";
+import { openJobSection } from "./steps";
 
-let ctx: BrowserContext;
-let tablet: BrowserContext;
+const ctx = contextForFile({ width: 1440, height: 900 });
+const tablet = contextForFile(TABLET);
 let datasetUrl = "";
-
-beforeAll(async () => {
-  mkdirSync(path.dirname(screenshotPath("x")), { recursive: true });
-  ctx = await newContext({ width: 1440, height: 900 });
-  tablet = await newContext(TABLET);
-});
-afterAll(async () => {
-  await ctx?.close();
-  await tablet?.close();
-});
 
 async function openData(p: Page) {
   await p.goto("/jobs");
-  await p.getByRole("link", { name: "TR-2026-0059" }).click();
-  await p.getByRole("navigation", { name: "Job sections" }).getByRole("link", { name: "Data" }).click();
+  await openJobSection(p, "TR-2026-0059", "Data");
   await p.waitForURL(/\/data$/);
 }
 
 describe("rotary positioning on the demo job", () => {
   it("uploads a tilt-axis test through the form and shows its quantities and chart", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "installer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "installer@halvard.example");
     await openData(p);
     await choose(p, "Rotary positioning (ISO 230-2)");
     await choose(p, "secondary (tilt) axis");
@@ -100,36 +84,23 @@ describe("rotary positioning on the demo job", () => {
   }, 120_000);
 
   it("prints 5.4 for both axes in the draft report", async () => {
-    await ctx.clearCookies();
-    const p = await ctx.newPage();
-    await signIn(p, "engineer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(ctx(), "engineer@halvard.example");
     const jobId = datasetUrl.match(/\/jobs\/([0-9a-f-]{36})\//)![1]!;
     const pdf = await p.request.get(`/api/jobs/${jobId}/report/draft`);
     expect(pdf.status()).toBe(200);
-    const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-e2e-pdf-"));
-    writeFileSync(path.join(dir, "d.pdf"), await pdf.body());
-    const text = execFileSync("pdftotext", [path.join(dir, "d.pdf"), "-"])
-      .toString("utf8")
-      .replace(/\s+/g, " ");
-    expect(text).toContain("5.4 Positioning of the rotary axes (ISO 230-2)");
-    expect(text).toContain("Primary (rotary) axis C: Pass");
-    expect(text).toContain("Secondary (tilt) axis A: Recorded");
-    expect(text).toContain("a-axis-e2e.csv");
-    execFileSync("pdftoppm", [
-      "-png",
-      "-r",
-      "80",
-      path.join(dir, "d.pdf"),
-      screenshotPath("rotary-positioning-draft").replace(/\.png$/, ""),
+    const body = await pdf.body();
+    expectPhrases(pdfText(body, true), [
+      "5.4 Positioning of the rotary axes (ISO 230-2)",
+      "Primary (rotary) axis C: Pass",
+      "Secondary (tilt) axis A: Recorded",
+      "a-axis-e2e.csv",
     ]);
+    pdfPagesToPng(body, screenshotPath("rotary-positioning-draft").replace(/\.png$/, ""), 80);
     await p.close();
   }, 120_000);
 
   it("reads on the tablet without sideways scrolling of the page", async () => {
-    const p = await tablet.newPage();
-    await signIn(p, "inspector@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(tablet(), "inspector@halvard.example");
     await p.goto(datasetUrl);
     await p.getByTestId("positioning-chart").waitFor();
     expect(await p.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth)).toBe(true);

@@ -6,15 +6,18 @@
 // the engineer opens the job's report page and its draft preview, whose text (read back with
 // pdftotext) prints the points behind the run-out and lists the photo in its appendix by SHA-256.
 import { describe, expect, it } from "vitest";
-import type { Page } from "playwright-core";
-import { contextForFile, mailTo, screenshotPath, scrollsSideways, signIn, TABLET } from "./browser";
+import { contextForFile, mailTo, pageAs, screenshotPath, scrollsSideways, signIn, TABLET } from "./browser";
 import {
+  addBuilderStep,
   attachPhoto,
+  buildCheckStep,
+  builderStep,
   buildPhotoRecordStep,
   buildRunOutStep,
   enterRunOutPoints,
+  expectPhotoDrawn,
   openStep,
-  pickFirst,
+  startInstallationJob,
 } from "./steps";
 import { pdfText } from "../pdf-tools";
 
@@ -27,31 +30,22 @@ const tablet = contextForFile(TABLET);
 let jobId = "";
 let reference = "";
 
-const step = (p: Page, n: number) => p.getByRole("listitem", { name: new RegExp(`^Step ${n}:`) });
-
 describe("a service job from the procedure to the report", () => {
   it("the administrator builds the procedure", async () => {
-    const p = await office().newPage();
-    await signIn(p, "admin@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(office(), "admin@halvard.example");
     await p.goto("/registers/procedures/new");
     await p.getByLabel("Name").fill(PROCEDURE);
     await p.getByLabel("Installation").check();
 
-    const s1 = step(p, 1);
-    await buildRunOutStep(s1);
+    await buildRunOutStep(builderStep(p, 1));
 
-    await p.getByRole("button", { name: "Add a step" }).click();
-    const s2 = step(p, 2);
-    await s2.getByLabel("Title").fill("Motor plate home on its dowels");
-    await s2.getByLabel("Kind of step").selectOption("check");
+    const s2 = await addBuilderStep(p, 2);
+    await buildCheckStep(s2, "Motor plate home on its dowels");
     await s2.getByLabel("Where the limit comes from").selectOption("maker_manual");
     await s2.getByLabel("Source note").fill("Head maker's manual, mounting section.");
     await s2.getByLabel("Safety note").fill("Lock out the axis drives before hands go near the motor plate.");
 
-    await p.getByRole("button", { name: "Add a step" }).click();
-    const s3 = step(p, 3);
-    await buildPhotoRecordStep(s3, "Shim stack under the collar", "mm");
+    await buildPhotoRecordStep(await addBuilderStep(p, 3), "Shim stack under the collar", "mm");
 
     await p.getByRole("button", { name: "Create procedure" }).click();
     await p.waitForURL(/\/registers\/procedures\/[0-9a-f-]{36}$/);
@@ -64,14 +58,7 @@ describe("a service job from the procedure to the report", () => {
   it("opens a job with it and assigns the installer", async () => {
     const p = await office().newPage();
     await p.goto("/jobs");
-    await p.getByRole("link", { name: "New job" }).click();
-    await p.waitForURL("**/jobs/new");
-    await p.getByLabel("Customer", { exact: true }).selectOption({ label: "Marlow Creek Aerostructures" });
-    await pickFirst(p, "Site");
-    await pickFirst(p, "Host machine");
-    await pickFirst(p, "Head");
-    await p.getByLabel("Kind of job").selectOption("installation");
-    await p.getByLabel("Title", { exact: true }).fill(TITLE);
+    await startInstallationJob(p, TITLE);
     await p.getByLabel("Procedure", { exact: true }).selectOption({ label: `${PROCEDURE} v1` });
     await p.getByLabel("Date", { exact: true }).fill("2027-09-06");
     await p.getByLabel("Time (24 h)").fill("08:00");
@@ -138,14 +125,7 @@ describe("a service job from the procedure to the report", () => {
       .toBe(1);
     await p.reload();
     const shown = await openStep(p, 3);
-    await expect
-      .poll(() =>
-        shown
-          .getByTestId("photos-3")
-          .locator("img")
-          .evaluate((i: HTMLImageElement) => i.naturalWidth),
-      )
-      .toBeGreaterThan(0);
+    await expectPhotoDrawn(shown.getByTestId("photos-3"));
     expect(await scrollsSideways(p)).toBe(false);
     await p.screenshot({ path: screenshotPath("journey-checklist-820"), fullPage: true });
     await p.close();
@@ -153,10 +133,7 @@ describe("a service job from the procedure to the report", () => {
 
   it("the job's report prints the points behind the run-out and lists the photo in its appendix", async () => {
     expect(jobId).not.toBe("");
-    await office().clearCookies();
-    const p = await office().newPage();
-    await signIn(p, "engineer@halvard.example");
-    await p.waitForURL("**/jobs");
+    const p = await pageAs(office(), "engineer@halvard.example");
     await p.goto(`/jobs/${jobId}/report`);
     const draft = p.locator(`a[href="/api/jobs/${jobId}/report/draft"]`);
     await expect.poll(() => draft.count()).toBe(1);

@@ -1,5 +1,7 @@
 // Steps several browser tests share. Before writing a step into a test file, look here and in
 // browser.ts (contexts, sign-in, screenshots, accessibility, mail).
+import { createHash } from "node:crypto";
+import { readFileSync } from "node:fs";
 import type { BrowserContext, Locator, Page } from "playwright-core";
 import sharp from "sharp";
 import { expect } from "vitest";
@@ -64,6 +66,26 @@ export async function downloadSignedPdf(p: Page, name: string): Promise<string> 
   return file;
 }
 
+/**
+ * Signed out, checks the PDF file on the public verification page and expects it vouched for:
+ * "Authentic", naming the checked file by its SHA-256 (only a checked file is vouched for). Returns
+ * the page and its result.
+ */
+export async function verifyAuthentic(
+  ctx: BrowserContext,
+  file: string,
+): Promise<{ page: Page; result: Locator }> {
+  await ctx.clearCookies();
+  const page = await ctx.newPage();
+  await page.goto("/verify");
+  await page.getByLabel("Report PDF").setInputFiles(file);
+  const result = page.getByTestId("verification-result");
+  await expect.poll(() => result.innerText()).toContain("Authentic");
+  const sha = createHash("sha256").update(readFileSync(file)).digest("hex");
+  expect(await result.innerText()).toContain(`SHA-256 of the checked file: ${sha}`);
+  return { page, result };
+}
+
 /** The test-part evaluation table of an uploaded dataset's page. */
 export const testPartEvaluation = (p: Page) => p.getByRole("table", { name: "Test-part evaluation" });
 
@@ -77,6 +99,13 @@ export function decisionsOf(table: Locator): Promise<(string | null)[][]> {
         tr.querySelector("[data-decision]")!.getAttribute("data-decision"),
       ]),
     );
+}
+
+/** Waits until the photo in `list` (its one img) is drawn: the browser has decoded it, so its natural width is above 0. */
+export async function expectPhotoDrawn(list: Locator, timeout?: number): Promise<void> {
+  await expect
+    .poll(() => list.locator("img").evaluate((i: HTMLImageElement) => i.naturalWidth), { timeout })
+    .toBeGreaterThan(0);
 }
 
 /** Chooses the registered instrument with this serial in a checklist step's instrument list. */
@@ -143,6 +172,37 @@ export async function pickFirst(p: Page, label: string): Promise<void> {
   await expect.poll(() => select.locator("option").count()).toBeGreaterThan(1);
   const value = await select.locator("option").nth(1).getAttribute("value");
   await select.selectOption(value!);
+}
+
+/**
+ * On the jobs board: opens the new-job form and fills who and what the job is for: Marlow Creek's
+ * first site, host machine and head, an installation with this title. The rest is the caller's.
+ */
+export async function startInstallationJob(p: Page, title: string): Promise<void> {
+  await p.getByRole("link", { name: "New job" }).click();
+  await p.waitForURL("**/jobs/new");
+  await p.getByLabel("Customer", { exact: true }).selectOption({ label: "Marlow Creek Aerostructures" });
+  await pickFirst(p, "Site");
+  await pickFirst(p, "Host machine");
+  await pickFirst(p, "Head");
+  await p.getByLabel("Kind of job").selectOption("installation");
+  await p.getByLabel("Title", { exact: true }).fill(title);
+}
+
+/** Step n of the procedure builder's list of steps. */
+export const builderStep = (p: Page, n: number): Locator =>
+  p.getByRole("listitem", { name: new RegExp(`^Step ${n}:`) });
+
+/** In the procedure builder: adds a step at the end of the list, step n, and returns it. */
+export async function addBuilderStep(p: Page, n: number): Promise<Locator> {
+  await p.getByRole("button", { name: "Add a step" }).click();
+  return builderStep(p, n);
+}
+
+/** In the procedure builder: makes `s` a yes/no check with this title (its limit source not yet said). */
+export async function buildCheckStep(s: Locator, title: string): Promise<void> {
+  await s.getByLabel("Title").fill(title);
+  await s.getByLabel("Kind of step").selectOption("check");
 }
 
 /**

@@ -9,7 +9,7 @@
 import { describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import { screenshotPath, scrollsSideways, TABLET, pageAs, contextForFile } from "./browser";
-import { attachPhoto, enterRunOutPoints, offline, openStep } from "./steps";
+import { attachPhoto, enterRunOutPoints, expectPhotoDrawn, offline, openStep } from "./steps";
 
 const tablet = contextForFile(TABLET);
 let jobId = "";
@@ -93,14 +93,7 @@ describe("every kind of step on the tablet", () => {
     await p.reload();
     await expect.poll(() => queuedCount(p), { timeout: 10_000 }).toBe("4");
     const kept = await openStep(p, 2);
-    await expect
-      .poll(() =>
-        kept
-          .getByTestId("queued-photos-2")
-          .locator("img")
-          .evaluate((i: HTMLImageElement) => i.naturalWidth),
-      )
-      .toBeGreaterThan(0);
+    await expectPhotoDrawn(kept.getByTestId("queued-photos-2"));
 
     // Back online: everything goes in order, each once.
     await tablet().unroute("**/*", offline);
@@ -133,14 +126,7 @@ describe("every kind of step on the tablet", () => {
     await p.reload();
     const again = await openStep(p, 2);
     await expect.poll(() => again.getByTestId("photos-2").locator("img").count()).toBe(1);
-    await expect
-      .poll(() =>
-        again
-          .getByTestId("photos-2")
-          .locator("img")
-          .evaluate((i: HTMLImageElement) => i.naturalWidth),
-      )
-      .toBeGreaterThan(0);
+    await expectPhotoDrawn(again.getByTestId("photos-2"));
     expect(await again.getByTestId("points").innerText()).toMatch(
       /12: 0 · 3: 0\.0002 · 6: 0\.0004 · 9: −0\.0001 in/,
     );
@@ -153,16 +139,7 @@ describe("every kind of step on the tablet", () => {
     await tablet().route("**/*", offline);
     await p.reload();
     const cached = await openStep(p, 2);
-    await expect
-      .poll(
-        () =>
-          cached
-            .getByTestId("photos-2")
-            .locator("img")
-            .evaluate((i: HTMLImageElement) => i.naturalWidth),
-        { timeout: 10_000 },
-      )
-      .toBeGreaterThan(0);
+    await expectPhotoDrawn(cached.getByTestId("photos-2"), 10_000);
     await tablet().unroute("**/*", offline);
     const one = await openStep(p, 1);
     expect(await one.locator("tbody tr").first().innerText()).toMatch(/Yes/);

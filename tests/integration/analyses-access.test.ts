@@ -4,16 +4,13 @@
 // their own company's records; another tenant's record is 404, exactly like a missing one.
 import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
-import { POST as runRoute } from "@/app/api/datasets/[id]/analyses/route";
 import { GET as getRoute } from "@/app/api/analyses/[id]/route";
 import { db } from "@/db";
 import { datasets } from "@/db/schema";
-import { uploadDemoProbe } from "./fixtures";
+import { fitDemoProbe, runFit as run } from "./fixtures";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
-const run = (datasetId: string) =>
-  runRoute(request(`/api/datasets/${datasetId}/analyses`, { method: "POST" }), p(datasetId));
 const read = (id: string) => getRoute(request(`/api/analyses/${id}`), p(id));
 
 // POST on the seeded Marlow Creek dataset (TR-2026-0052, measuring; its fit is stored by the seed,
@@ -48,13 +45,9 @@ beforeAll(async () => {
   ids.marlowAnalysis = (await first.json()).analysis.id;
   // A Tollan sphere-probe dataset on TR-2026-0048 (in review), fitted by the engineer.
   const tollanJob = await jobIdByReference("TR-2026-0048");
-  ids.tollanDataset = await uploadDemoProbe(tollanJob, {
-    email: "engineer@halvard.example",
-    filename: "tollan-probe.csv",
-  });
-  const t = await run(ids.tollanDataset);
-  expect(t.status).toBe(201);
-  ids.tollanAnalysis = (await t.json()).analysis.id;
+  const t = await fitDemoProbe(tollanJob, "tollan-probe.csv");
+  ids.tollanDataset = t.datasetId;
+  ids.tollanAnalysis = t.analysisId;
 });
 
 describe("analysis routes by role and tenant", () => {

@@ -4,7 +4,6 @@
 import { createHash } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
-import { POST as runRoute } from "@/app/api/datasets/[id]/analyses/route";
 import { GET as getRoute } from "@/app/api/analyses/[id]/route";
 import { parameterRows } from "@/lib/fit-display";
 import { signed } from "@/lib/numbers";
@@ -19,12 +18,10 @@ import type { Actor } from "@/lib/domain/roles";
 import { canonicalJson } from "@/lib/canonical-json";
 import { AppError } from "@/lib/errors";
 import { upload } from "./dataset-helpers";
-import { allActors, insertTestJob, uploadDemoProbe } from "./fixtures";
+import { allActors, insertTestJob, uploadDemoProbe, auditEventsOf, runFit as run } from "./fixtures";
 import { request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
-const run = (datasetId: string) =>
-  runRoute(request(`/api/datasets/${datasetId}/analyses`, { method: "POST" }), p(datasetId));
 const read = (id: string) => getRoute(request(`/api/analyses/${id}`), p(id));
 
 const as: Record<string, Actor> = {};
@@ -78,10 +75,7 @@ describe("running a fit", () => {
     expect(b.reused).toBe(true);
     expect(b.analysis.id).toBe(analysisId);
     expect(await db.select().from(analyses).where(eq(analyses.datasetId, datasetId))).toHaveLength(1);
-    const created = await db
-      .select()
-      .from(auditEvents)
-      .where(and(eq(auditEvents.entityId, analysisId), eq(auditEvents.action, "analysis.created")));
+    const created = await auditEventsOf({ entityId: analysisId }, "analysis.created");
     expect(created).toHaveLength(1);
   });
 

@@ -4,7 +4,7 @@
 // 4 MiB cap is 413; only engineers save (403); another tenant's view is 404; each save is audited
 // in the hash chain; the row cannot be changed afterwards (migration 0006).
 import { createHash } from "node:crypto";
-import { and, eq, sql } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import { PNG } from "pngjs";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET as listRoute, POST as saveRoute } from "@/app/api/analyses/[id]/views/route";
@@ -13,9 +13,9 @@ import { db } from "@/db";
 import { approveAnalysis } from "@/db/queries/analyses";
 import { latestJobView, VIEW_MAX_BYTES } from "@/db/queries/analysis-views";
 import { verifyAuditChain } from "@/db/queries/audit";
-import { analyses, analysisViews, auditEvents, datasets, jobs } from "@/db/schema";
-import { insertTestJob, signInActor, uploadDemoProbe } from "./fixtures";
-import { jobIdByReference, request, signInAs } from "./helpers";
+import { analyses, analysisViews, datasets, jobs } from "@/db/schema";
+import { insertTestJob, signInActor, auditEventsOf, fitDemoProbe } from "./fixtures";
+import { formPost, jobIdByReference, request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
 
@@ -25,19 +25,11 @@ function pngOf(width: number, height: number, seed = 1): Buffer {
   return PNG.sync.write(img);
 }
 
-function saveRequest(
-  analysisId: string,
-  file: Buffer | null,
-  fields: Record<string, string>,
-  type = "image/png",
-): Request {
-  const form = new FormData();
-  for (const [k, v] of Object.entries(fields)) form.set(k, v);
-  if (file) form.set("file", new Blob([new Uint8Array(file)], { type }), "view.png");
-  return request(`/api/analyses/${analysisId}/views`, { method: "POST", body: form });
-}
-const save = (analysisId: string, file: Buffer | null, fields: Record<string, string>) =>
-  saveRoute(saveRequest(analysisId, file, fields), p(analysisId));
+/** POST /api/analyses/{id}/views: these fields and, when given, the picture sent as view.png (image/png). */
+const save = (analysisId: string, file: Buffer | null, fields: Record<string, string>) => {
+  const picture = file && { bytes: file, type: "image/png", name: "view.png" };
+  return saveRoute(formPost(`/api/analyses/${analysisId}/views`, fields, picture), p(analysisId));
+};
 const image = (viewId: string) => imageRoute(request(`/api/analysis-views/${viewId}/image`), p(viewId));
 const list = (analysisId: string) => listRoute(request(`/api/analyses/${analysisId}/views`), p(analysisId));
 
@@ -55,14 +47,7 @@ beforeAll(async () => {
   ids.post = fits.find((f) => f.phase === "post")!.id;
   // A Tollan fit on TR-2026-0048 (in review).
   const tollanJob = await jobIdByReference("TR-2026-0048");
-  const { POST: runRoute } = await import("@/app/api/datasets/[id]/analyses/route");
-  const dsId = await uploadDemoProbe(tollanJob, {
-    email: "engineer@halvard.example",
-    filename: "tollan-views.csv",
-  });
-  const run = await runRoute(request(`/api/datasets/${dsId}/analyses`, { method: "POST" }), p(dsId));
-  expect([200, 201]).toContain(run.status);
-  ids.tollanAnalysis = (await run.json()).analysis.id;
+  ids.tollanAnalysis = (await fitDemoProbe(tollanJob, "tollan-views.csv")).analysisId;
 });
 
 describe("saving a view of the 3D view", () => {
@@ -101,10 +86,7 @@ describe("saving a view of the 3D view", () => {
     const [row] = await db.select().from(analysisViews).where(eq(analysisViews.id, view.id));
     expect(row!.storageKey).toMatch(new RegExp(`^views/${ids.job}/[0-9a-f-]{36}$`));
     // Audited in the same chain, and the chain still verifies.
-    const [ev] = await db
-      .select()
-      .from(auditEvents)
-      .where(and(eq(auditEvents.entityId, view.id), eq(auditEvents.action, "analysis_view.saved")));
+    const [ev] = await auditEventsOf({ entityId: view.id }, "analysis_view.saved");
     expect(ev).toMatchObject({
       jobId: ids.job,
       entityType: "analysis_view",
@@ -224,14 +206,7 @@ describe("latestJobView (for the report)", () => {
       status: "measuring",
       assignedInstallerId: t!.assignedInstallerId,
     });
-    const dsId = await uploadDemoProbe(jobId, {
-      email: "engineer@halvard.example",
-      filename: "views-probe.csv",
-    });
-    const { POST: runRoute } = await import("@/app/api/datasets/[id]/analyses/route");
-    const analysisId = (
-      await (await runRoute(request(`/api/datasets/${dsId}/analyses`, { method: "POST" }), p(dsId))).json()
-    ).analysis.id as string;
+    const { analysisId } = await fitDemoProbe(jobId, "views-probe.csv");
 
     const first = pngOf(40, 30, 1);
     const second = pngOf(64, 48, 2);

@@ -41,6 +41,7 @@ import {
   instrumentIdBySerial,
   uploadDemoProbe,
   approveConfirmed,
+  auditEventsOf,
 } from "./fixtures";
 import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
@@ -207,21 +208,13 @@ describe("a whole job's changes are in the audit trail", () => {
     const correction = all.find((r) => r.note === "misread");
     const old = all.filter((r) => correction && r.supersededById === correction.id);
     expect(old).toHaveLength(1);
-    const [fix] = await db
-      .select()
-      .from(auditEvents)
-      .where(
-        and(eq(auditEvents.entityId, old[0]!.supersededById!), eq(auditEvents.action, "reading.corrected")),
-      );
+    const [fix] = await auditEventsOf({ entityId: old[0]!.supersededById! }, "reading.corrected");
     expect(fix!.oldValues).toMatchObject({ id: old[0]!.id, value: old[0]!.value });
     const [gone] = await db
       .select()
       .from(datasets)
       .where(and(eq(datasets.jobId, jobId), eq(datasets.status, "deleted")));
-    const [del] = await db
-      .select()
-      .from(auditEvents)
-      .where(and(eq(auditEvents.entityId, gone!.id), eq(auditEvents.action, "dataset.deleted")));
+    const [del] = await auditEventsOf({ entityId: gone!.id }, "dataset.deleted");
     expect(del).toMatchObject({ oldValues: { status: "stored" }, newValues: { status: "deleted" } });
   });
 });

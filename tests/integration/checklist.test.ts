@@ -26,6 +26,7 @@ import {
   instrumentIdsBySerial,
   postReading,
   stepIdsByPosition,
+  auditEventsOf,
 } from "./fixtures";
 import { request, signInAs } from "./helpers";
 import { jobBaseOf } from "./ready-job";
@@ -75,10 +76,7 @@ describe("recording readings", () => {
     });
     const [j] = await db.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, jobId));
     expect(j!.status).toBe("measuring");
-    const audit = await db
-      .select()
-      .from(auditEvents)
-      .where(and(eq(auditEvents.jobId, jobId), eq(auditEvents.action, "reading.recorded")));
+    const audit = await auditEventsOf({ jobId }, "reading.recorded");
     expect(audit).toHaveLength(1);
   });
 
@@ -142,10 +140,7 @@ describe("recording readings", () => {
     expect(body.readings.find((r: { id: string }) => r.id === first.json.reading.id).supersededById).toBe(
       fix.json.reading.id,
     );
-    const audit = await db
-      .select()
-      .from(auditEvents)
-      .where(and(eq(auditEvents.entityId, fix.json.reading.id), eq(auditEvents.action, "reading.corrected")));
+    const audit = await auditEventsOf({ entityId: fix.json.reading.id }, "reading.corrected");
     expect(audit).toHaveLength(1);
   });
 
@@ -373,10 +368,7 @@ describe("registers and jobs from a procedure", () => {
       templateId: base!.templateId,
       customerId: base!.customerId,
     });
-    const audit = await db
-      .select()
-      .from(auditEvents)
-      .where(and(eq(auditEvents.entityId, job.id), eq(auditEvents.action, "job.created")));
+    const audit = await auditEventsOf({ entityId: job.id }, "job.created");
     expect(audit).toHaveLength(1);
     const next = await createJobFromTemplate(as.admin!, input);
     expect(Number(next.reference.slice(-4))).toBe(Number(job.reference.slice(-4)) + 1);

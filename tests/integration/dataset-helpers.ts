@@ -7,7 +7,7 @@ import { POST as uploadRoute, GET as listRoute } from "@/app/api/jobs/[id]/datas
 import { GET as summaryRoute, DELETE as deleteRoute } from "@/app/api/datasets/[id]/route";
 import { GET as fileRoute } from "@/app/api/datasets/[id]/file/route";
 import { GET as evaluationRoute } from "@/app/api/datasets/[id]/evaluation/route";
-import { request } from "./helpers";
+import { formPost, request } from "./helpers";
 
 export const fixture = (name: string): Buffer => readFileSync(`tests/fixtures/uploads/${name}`);
 
@@ -17,10 +17,11 @@ export function uploadRequest(
   fields: Record<string, string>,
   filename = "data.csv",
 ): Request {
-  const form = new FormData();
-  for (const [k, v] of Object.entries(fields)) form.set(k, v);
-  if (file) form.set("file", new Blob([new Uint8Array(file)], { type: "text/csv" }), filename);
-  return request(`/api/jobs/${jobId}/datasets`, { method: "POST", body: form });
+  return formPost(
+    `/api/jobs/${jobId}/datasets`,
+    fields,
+    file && { bytes: file, type: "text/csv", name: filename },
+  );
 }
 
 export async function upload(

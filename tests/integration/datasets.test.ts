@@ -23,10 +23,13 @@ import {
   uploadRoute,
 } from "./dataset-helpers";
 import { jobIdByReference, request, signInAs } from "./helpers";
+import { GOOD_TEST_PART_DECISIONS, GOOD_TEST_PART_TOTALS } from "../fixtures/test-part-decisions";
 
 const sha = (b: Uint8Array) => createHash("sha256").update(b).digest("hex");
 const SPHERE = { kind: "sphere_probe", phase: "pre", units: "mm" };
 const TEST_PART = { kind: "test_part", phase: "post", uncertainty_mm: "0.002" };
+const TRAM = { kind: "tram", phase: "pre", travel_units: "mm", reading_units: "um" };
+const SWEEP = { kind: "sweep", phase: "pre", reading_units: "um", radius_mm: "50" };
 
 let measuring: string; // TR-2026-0052, Marlow Creek, measuring, guarded rule
 let draft: string; // TR-2026-0057, Marlow Creek, draft, nobody assigned
@@ -123,22 +126,12 @@ describe("accepted uploads", () => {
 
   it("tram and sweep files are stored with their line and sweep fits in the summary", async () => {
     await signInAs("installer@halvard.example");
-    const tram = await upload(measuring, fixture("tram-good.csv"), {
-      kind: "tram",
-      phase: "pre",
-      travel_units: "mm",
-      reading_units: "um",
-    });
+    const tram = await upload(measuring, fixture("tram-good.csv"), TRAM);
     expect(tram.status).toBe(201);
     const t = await (await summaryApi((await tram.json()).id)).json();
     // Least-squares slope of (0,0) (100,1.2) (200,2.3) (300,3.7): Σ(x−x̄)(y−ȳ)/Σ(x−x̄)² = 610/50000 µm/mm, by hand.
     expect(t.dataset.summary.tram.slope_um_per_m).toBeCloseTo(12.2, 10);
-    const sweep = await upload(measuring, fixture("sweep-good.csv"), {
-      kind: "sweep",
-      phase: "pre",
-      reading_units: "um",
-      radius_mm: "50",
-    });
+    const sweep = await upload(measuring, fixture("sweep-good.csv"), SWEEP);
     expect(sweep.status).toBe(201);
     const s = await (await summaryApi((await sweep.json()).id)).json();
     // a + b cosθ + c sinθ through 2, 0.5, −2, −0.5 at 0/90/180/270°: b = 2, c = 0.5 µm; tilt √(b²+c²)/r (geometry/README.md) = 2.0616 µm / 50 mm.
@@ -312,12 +305,7 @@ describe("rejected uploads: exact issues, nothing stored", () => {
       },
       { field: "phase", message: "phase must be pre or post" },
     ]);
-    const noRadius = await upload(measuring, fixture("sweep-good.csv"), {
-      kind: "sweep",
-      phase: "pre",
-      reading_units: "um",
-      radius_mm: "-3",
-    });
+    const noRadius = await upload(measuring, fixture("sweep-good.csv"), { ...SWEEP, radius_mm: "-3" });
     expect((await noRadius.json()).error.issues).toEqual([
       { field: "radius_mm", message: "the sweep radius must be above 0 mm" },
     ]);
@@ -483,7 +471,7 @@ describe("who may upload and delete", () => {
   it("delete is a soft delete, audited, while the job is measuring; refused after review and for customers", async () => {
     await signInAs("inspector@halvard.example");
     const res = await upload(measuring, fixture("tram-good.csv"), {
-      kind: "tram",
+      ...TRAM,
       phase: "post",
       travel_units: "in",
       reading_units: "in",
@@ -527,18 +515,11 @@ describe("test-part evaluation", () => {
     expect(res.status).toBe(200);
     const ev = await res.json();
     expect(ev.rule).toBe("guarded");
-    // Worked by hand from ISO 14253-1 guarded acceptance with U = 0.002 mm: pass inside [LSL+U, USL−U],
-    // fail outside [LSL−U, USL+U]. Bore A 20.0018 ≤ 20.003 pass; Bore B 20.0085 > 20.007 fail;
-    // Face 0.0035 in (0.002, 0.006] undecided; Slot 11.9968 ≥ 11.992 pass; Pocket 8.0041 in (8.003, 8.007] undecided; Side 0.0011 ≤ 0.003 pass.
-    expect(ev.rows.map((r: { feature: string; decision: string }) => [r.feature, r.decision])).toEqual([
-      ["Bore A", "pass"],
-      ["Bore B", "fail"],
-      ["Face 1", "undecided"],
-      ["Slot C", "pass"],
-      ["Pocket D", "undecided"],
-      ["Side E", "pass"],
-    ]);
-    expect(ev.totals).toEqual({ pass: 3, fail: 1, undecided: 2, total: 6 });
+    // Worked by hand from ISO 14253-1 guarded acceptance with U = 0.002 mm (the working is beside the values).
+    expect(ev.rows.map((r: { feature: string; decision: string }) => [r.feature, r.decision])).toEqual(
+      GOOD_TEST_PART_DECISIONS,
+    );
+    expect(ev.totals).toEqual(GOOD_TEST_PART_TOTALS);
     expect(ev.rows[1]).toMatchObject({
       nominal: 20,
       measured: 20.0085,

@@ -4,21 +4,22 @@
 // decides an outcome a test checks. Before writing a set-up into a test file, look here, in
 // helpers.ts (session and requests), dataset-helpers.ts (upload routes) and ready-job.ts
 // (bringing a job to the state its report needs).
-import { asc, eq } from "drizzle-orm";
+import { and, asc, eq } from "drizzle-orm";
 import type { PgColumn, PgInsertValue, PgTable } from "drizzle-orm/pg-core";
 import { expect } from "vitest";
+import { POST as fitRoute } from "@/app/api/datasets/[id]/analyses/route";
 import { POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
 import { approveAnalysis, nonConformingParameters } from "@/db/queries/analyses";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { instruments, jobs, templateSteps, users } from "@/db/schema";
+import { auditEvents, instruments, jobs, users } from "@/db/schema";
 import type { JobKind, JobStatus } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import { upload } from "./dataset-helpers";
 import { request, signInAs } from "./helpers";
-import { jobBaseOf } from "./ready-job";
+import { jobBaseOf, procedureSteps } from "./ready-job";
 
 /**
  * Who the access tables ask about: anonymous, each staff role and each tenant's customer, with the
@@ -128,6 +129,27 @@ export async function uploadDemoProbe(
   return ((await res.json()) as { id: string }).id;
 }
 
+/** Runs the head fit of a dataset through POST /api/datasets/{id}/analyses as whoever is signed in. */
+export function runFit(datasetId: string): Promise<Response> {
+  return fitRoute(request(`/api/datasets/${datasetId}/analyses`, { method: "POST" }), {
+    params: Promise.resolve({ id: datasetId }),
+  });
+}
+
+/**
+ * Uploads the demo sphere-probe CSV to the job as the demo engineer and fits it through the route,
+ * checks the new fit was stored (201) and returns the dataset's and the analysis's ids.
+ */
+export async function fitDemoProbe(
+  jobId: string,
+  filename: string,
+): Promise<{ datasetId: string; analysisId: string }> {
+  const datasetId = await uploadDemoProbe(jobId, { email: "engineer@halvard.example", filename });
+  const res = await runFit(datasetId);
+  expect(res.status).toBe(201);
+  return { datasetId, analysisId: ((await res.json()) as { analysis: { id: string } }).analysis.id };
+}
+
 /**
  * Posts a reading to the job through POST /api/jobs/{id}/readings as whoever is signed in, and
  * returns the answer's status and JSON body.
@@ -164,6 +186,16 @@ export async function refusalOf(p: Promise<unknown>): Promise<AppError> {
   throw new Error("expected a refusal");
 }
 
+/** The audit events of this action on a job (`jobId`) or on one record (`entityId`), oldest first. */
+export function auditEventsOf(on: { jobId: string } | { entityId: string }, action: string) {
+  const subject = "jobId" in on ? eq(auditEvents.jobId, on.jobId) : eq(auditEvents.entityId, on.entityId);
+  return db
+    .select()
+    .from(auditEvents)
+    .where(and(subject, eq(auditEvents.action, action)))
+    .orderBy(asc(auditEvents.id));
+}
+
 /** Drizzle wraps the driver's error; the database's own message is in `cause`. */
 export async function dbError(p: Promise<unknown>): Promise<string> {
   try {
@@ -177,18 +209,13 @@ export async function dbError(p: Promise<unknown>): Promise<string> {
 
 /** The id of the first step of a procedure (by position). */
 export async function firstStepOf(templateId: string): Promise<string> {
-  const [step] = await db
-    .select({ id: templateSteps.id })
-    .from(templateSteps)
-    .where(eq(templateSteps.templateId, templateId))
-    .orderBy(asc(templateSteps.position))
-    .limit(1);
+  const [step] = await procedureSteps(templateId);
   return step!.id;
 }
 
 /** The ids of a procedure's steps by their position (1, 2, …). */
 export async function stepIdsByPosition(templateId: string): Promise<Record<number, string>> {
-  const rows = await db.select().from(templateSteps).where(eq(templateSteps.templateId, templateId));
+  const rows = await procedureSteps(templateId);
   return Object.fromEntries(rows.map((s) => [s.position, s.id]));
 }
 

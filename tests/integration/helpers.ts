@@ -27,3 +27,23 @@ export async function jobIdByReference(reference: string): Promise<string> {
 export function request(path: string, init?: RequestInit): Request {
   return new Request(`http://localhost${path}`, init);
 }
+
+/** A file field of a form: its bytes, type and name. */
+export interface FormFile {
+  bytes: Uint8Array;
+  type: string;
+  name: string;
+}
+
+/** These fields (and the file, when given) as FormData, the way a browser's form sends them. */
+export function formData(fields: Record<string, string>, file?: FormFile | null): FormData {
+  const form = new FormData();
+  for (const [k, v] of Object.entries(fields)) form.set(k, v);
+  if (file) form.set("file", new Blob([new Uint8Array(file.bytes)], { type: file.type }), file.name);
+  return form;
+}
+
+/** A multipart POST to `path` of these fields and, when given, the file. */
+export function formPost(path: string, fields: Record<string, string>, file?: FormFile | null): Request {
+  return request(path, { method: "POST", body: formData(fields, file) });
+}

@@ -11,16 +11,10 @@ import { getReadiness } from "@/db/queries/readiness";
 import { getActor } from "@/db/queries/users";
 import { auditEvents, issuerSettings } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
-import { jobIdByReference, signInAs } from "./helpers";
+import { formData, jobIdByReference, signInAs } from "./helpers";
 
 vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn() }));
 const { updateIssuerSettingsAction } = await import("@/app/(app)/registers/settings/actions");
-
-const form = (fields: Record<string, string>) => {
-  const f = new FormData();
-  for (const [k, v] of Object.entries(fields)) f.set(k, v);
-  return f;
-};
 
 let original: Awaited<ReturnType<typeof getIssuer>>;
 let engineer: Actor;
@@ -52,7 +46,7 @@ describe("issuer settings", () => {
 
   it("the administrator saves them; the audit trail names old and new values", async () => {
     await signInAs("admin@halvard.example");
-    const r = await updateIssuerSettingsAction(form(filled));
+    const r = await updateIssuerSettingsAction(formData(filled));
     expect(r.ok).toBe(true);
     expect(await getIssuer()).toEqual(filled);
     const [ev] = await db
@@ -68,7 +62,7 @@ describe("issuer settings", () => {
   it("a bad e-mail is refused for its field and nothing is stored", async () => {
     await signInAs("admin@halvard.example");
     const r = await updateIssuerSettingsAction(
-      form({ ...filled, name: "Changed", contactEmail: "not-mail" }),
+      formData({ ...filled, name: "Changed", contactEmail: "not-mail" }),
     );
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.fieldErrors?.contactEmail).toBeDefined();
@@ -78,7 +72,7 @@ describe("issuer settings", () => {
   for (const who of ["engineer", "inspector", "installer", "buyer"] as const) {
     it(`${who} is refused and nothing changes`, async () => {
       await signInAs(who === "buyer" ? "buyer@marlowcreek.example" : `${who}@halvard.example`);
-      const r = await updateIssuerSettingsAction(form({ ...filled, name: `Set by ${who}` }));
+      const r = await updateIssuerSettingsAction(formData({ ...filled, name: `Set by ${who}` }));
       expect(r).toMatchObject({ ok: false, code: "forbidden" });
       expect((await getIssuer()).name).toBe(filled.name);
     });
@@ -89,13 +83,13 @@ describe("issuer settings", () => {
     const codes = async () => (await getReadiness(engineer, jobId))!.blockers;
     expect((await codes()).map((b) => b.code)).not.toContain("issuer_details_missing");
     await signInAs("admin@halvard.example");
-    expect((await updateIssuerSettingsAction(form({ ...filled, address: "  " }))).ok).toBe(true);
+    expect((await updateIssuerSettingsAction(formData({ ...filled, address: "  " }))).ok).toBe(true);
     const missing = (await codes()).filter((b) => b.code === "issuer_details_missing");
     expect(missing).toHaveLength(1);
     expect(missing[0]!.message).toMatch(/address/);
     expect(missing[0]!.message).not.toMatch(/name and/);
     expect(missing[0]!.href).toBe("/registers/settings");
-    expect((await updateIssuerSettingsAction(form({ ...filled, name: "", address: "" }))).ok).toBe(true);
+    expect((await updateIssuerSettingsAction(formData({ ...filled, name: "", address: "" }))).ok).toBe(true);
     expect((await codes()).find((b) => b.code === "issuer_details_missing")!.message).toMatch(
       /name and address/,
     );

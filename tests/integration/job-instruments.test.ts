@@ -2,13 +2,13 @@
 // database: recorded by the people who measured, refused with the reason for a retired or
 // past-due instrument, a sphere without a calibrated diameter and a repeat; audited; and printed
 // with their calibration in the report's traceability (ISO/IEC 17025:2017 §7.8.4.1, §6.5).
-import { and, eq } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { listJobInstruments, recordJobInstrument } from "@/db/queries/job-instruments";
-import { auditEvents, instruments, jobs } from "@/db/schema";
+import { instruments, jobs } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
-import { actorsOf, insertTestJob, refusalOf } from "./fixtures";
+import { actorsOf, insertTestJob, refusalOf, auditEventsOf } from "./fixtures";
 
 const as: Record<string, Actor> = {};
 let jobId = "";
@@ -51,10 +51,7 @@ describe("instruments behind the data", () => {
       instrumentId: ids.sphere!,
       use: "reference_sphere",
     });
-    const [ev] = await db
-      .select()
-      .from(auditEvents)
-      .where(and(eq(auditEvents.entityId, row.id), eq(auditEvents.action, "job_instrument.recorded")));
+    const [ev] = await auditEventsOf({ entityId: row.id }, "job_instrument.recorded");
     expect(ev).toMatchObject({ jobId, actorId: as.installer!.id });
     const list = await listJobInstruments(jobId);
     expect(list).toHaveLength(1);

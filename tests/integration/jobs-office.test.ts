@@ -11,7 +11,7 @@ import { GET as jobRoute, PATCH as patchRoute } from "@/app/api/jobs/[id]/route"
 import { POST as readingRoute } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
 import { auditEvents, heads, jobs, machines, outbox, procedureTemplates, users } from "@/db/schema";
-import { WHO } from "./fixtures";
+import { WHO, auditEventsOf } from "./fixtures";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
 /** POST /api/jobs: the office opens jobs (201); everyone else is refused (401 anonymous, 403 others). */
@@ -291,10 +291,7 @@ describe("assignment e-mails through the outbox", () => {
     expect(toNew?.subject).toMatch(/is assigned to you$/);
     expect(toOld?.subject).toMatch(/is no longer assigned to you$/);
     expect(toOld?.textBody).toContain("assigned it to Sofie Lind");
-    const ev = await db
-      .select()
-      .from(auditEvents)
-      .where(and(eq(auditEvents.entityId, id), eq(auditEvents.action, "job.assigned")));
+    const ev = await auditEventsOf({ entityId: id }, "job.assigned");
     expect(ev).toHaveLength(1);
     expect(ev[0]!.oldValues).toEqual({ assignedInstallerId: ids.installer });
     expect(ev[0]!.newValues).toEqual({ assignedInstallerId: ids.second });
@@ -306,13 +303,24 @@ describe("assignment e-mails through the outbox", () => {
 });
 
 describe("hold, release and cancel", () => {
-  it("hold remembers the status it left and release restores it; both audited", async () => {
+  /** A draft assigned to the demo installer, set straight to measuring in the table. */
+  async function newMeasuringJob(): Promise<string> {
     const id = await newDraft({ assignedInstallerId: ids.installer });
     await db.update(jobs).set({ status: "measuring" }).where(eq(jobs.id, id));
+    return id;
+  }
+
+  /** PATCHes the job as whoever is signed in, checks it answered 200 and returns the job it sent. */
+  async function patched(id: string, body: Record<string, unknown>) {
+    const res = await patch(id, body);
+    expect(res.status, JSON.stringify(body)).toBe(200);
+    return (await res.json()).job;
+  }
+
+  it("hold remembers the status it left and release restores it; both audited", async () => {
+    const id = await newMeasuringJob();
     await signInAs("admin@halvard.example");
-    const held = await patch(id, { action: "hold", reason: "Crane out of service" });
-    expect(held.status).toBe(200);
-    expect((await held.json()).job).toMatchObject({
+    expect(await patched(id, { action: "hold", reason: "Crane out of service" })).toMatchObject({
       status: "on_hold",
       heldFromStatus: "measuring",
       holdReason: "Crane out of service",
@@ -322,9 +330,10 @@ describe("hold, release and cancel", () => {
     await signInAs("installer@halvard.example");
     expect((await patch(id, { action: "release" })).status).toBe(403);
     await signInAs("engineer@halvard.example");
-    const released = await patch(id, { action: "release" });
-    expect(released.status).toBe(200);
-    expect((await released.json()).job).toMatchObject({ status: "measuring", heldFromStatus: null });
+    expect(await patched(id, { action: "release" })).toMatchObject({
+      status: "measuring",
+      heldFromStatus: null,
+    });
     const events = await db
       .select({
         action: auditEvents.action,
@@ -345,8 +354,7 @@ describe("hold, release and cancel", () => {
   });
 
   it("cancel needs a reason; a cancelled job stays readable and refuses every write, readings included", async () => {
-    const id = await newDraft({ assignedInstallerId: ids.installer });
-    await db.update(jobs).set({ status: "measuring" }).where(eq(jobs.id, id));
+    const id = await newMeasuringJob();
     await signInAs("admin@halvard.example");
     const noReason = await patch(id, { action: "cancel" });
     expect(noReason.status).toBe(422);
@@ -354,9 +362,9 @@ describe("hold, release and cancel", () => {
     await signInAs("installer@halvard.example");
     expect((await patch(id, { action: "cancel", reason: "Customer postponed" })).status).toBe(403);
     await signInAs("admin@halvard.example");
-    const cancelled = await patch(id, { action: "cancel", reason: "Customer postponed the machine move" });
-    expect(cancelled.status).toBe(200);
-    expect((await cancelled.json()).job).toMatchObject({
+    expect(
+      await patched(id, { action: "cancel", reason: "Customer postponed the machine move" }),
+    ).toMatchObject({
       status: "cancelled",
       cancelReason: "Customer postponed the machine move",
     });

@@ -11,7 +11,7 @@ import { GET as readinessRoute } from "@/app/api/jobs/[id]/readiness/route";
 import { db } from "@/db";
 import { auditEvents, jobs, photos, templateSteps } from "@/db/schema";
 import { postReading, WHO, type Who } from "./fixtures";
-import { jobIdByReference, request, signInAs } from "./helpers";
+import { formPost, jobIdByReference, request, signInAs } from "./helpers";
 import { jobLike } from "./tablet-helpers";
 import { getReadiness } from "@/db/queries/readiness";
 import { jobStateSha256, signJobWork } from "@/db/queries/signatures";
@@ -26,10 +26,7 @@ let png: Buffer;
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
 
 function photoRequest(id: string, file: Buffer | null, fields: Record<string, string>, type = "image/png") {
-  const form = new FormData();
-  for (const [k, v] of Object.entries(fields)) form.set(k, v);
-  if (file) form.set("file", new Blob([new Uint8Array(file)], { type }), "photo.png");
-  return request(`/api/jobs/${id}/photos`, { method: "POST", body: form });
+  return formPost(`/api/jobs/${id}/photos`, fields, file && { bytes: file, type, name: "photo.png" });
 }
 const upload = (id: string, file: Buffer | null, fields: Record<string, string>, type?: string) =>
   uploadRoute(photoRequest(id, file, fields, type), p(id));

@@ -27,7 +27,7 @@ import {
   stepIdsByPosition,
   type JobBase,
 } from "./fixtures";
-import { request, signInAs } from "./helpers";
+import { formPost, request, signInAs } from "./helpers";
 import { jobBaseOf } from "./ready-job";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
@@ -227,16 +227,10 @@ describe("a new procedure with a multi-point, a yes/no and a photo step, run end
     // A 64 × 48 PNG made by pngjs (an independent encoder), one flat colour.
     const png = new PNG({ width: 64, height: 48 });
     for (let i = 0; i < png.data.length; i += 4) png.data.set([0x2e, 0x6b, 0x8f, 255], i);
-    const form = new FormData();
-    form.set("stepId", step[4]!);
-    form.set("phase", "pre");
-    form.set("readingId", directReadingId);
-    form.set("file", new Blob([new Uint8Array(PNG.sync.write(png))], { type: "image/png" }), "dial.png");
+    const fields = { stepId: step[4]!, phase: "pre", readingId: directReadingId };
+    const file = { bytes: PNG.sync.write(png), type: "image/png", name: "dial.png" };
     await signInAs(WHO.installer);
-    const res = await photoRoute(
-      request(`/api/jobs/${jobId}/photos`, { method: "POST", body: form }),
-      p(jobId),
-    );
+    const res = await photoRoute(formPost(`/api/jobs/${jobId}/photos`, fields, file), p(jobId));
     expect(res.status).toBe(201);
     const { photo } = await res.json();
     expect(photo).toMatchObject({ stepId: step[4], readingId: directReadingId, width: 64, height: 48 });

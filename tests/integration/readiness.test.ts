@@ -5,7 +5,7 @@
 // accurately and unambiguously), §7.8.2.1 b/e/p (method, item and deviations identified),
 // §7.8.4.1 with §6.4/§6.5 (calibrated equipment, traceability) and §7.8.6 (statement of
 // conformity) are the clauses these gates protect.
-import { and, asc, eq } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { approveAnalysis, nonConformingParameters, runHeadFit } from "@/db/queries/analyses";
@@ -13,16 +13,23 @@ import { getReadiness, getReadinessView, recordDeviation } from "@/db/queries/re
 import { recordReading } from "@/db/queries/readings";
 import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
-import { auditEvents, deviations, instruments, jobs, readings, reports, templateSteps } from "@/db/schema";
+import { auditEvents, deviations, instruments, jobs, readings, reports } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import type { BlockerCode } from "@/lib/report/readiness";
 import type { ReportData } from "@/lib/report/types";
 import { pdfText } from "../pdf-tools";
 import { upload } from "./dataset-helpers";
-import { allActors, BASE_JOB, DEMO_PASSWORD as PW, insertTestJob, uploadDemoProbe } from "./fixtures";
+import {
+  allActors,
+  BASE_JOB,
+  DEMO_PASSWORD as PW,
+  firstStepOf,
+  insertTestJob,
+  uploadDemoProbe,
+} from "./fixtures";
 import { signInAs } from "./helpers";
-import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
+import { carryOpenResults, jobBaseOf, measureEveryStep, procedureSteps } from "./ready-job";
 
 const as: Record<string, Actor> = {};
 let base: { customerId: string; machineId: string; headId: string; templateId: string };
@@ -78,12 +85,7 @@ describe("issue is refused while any blocker stands", () => {
   it("data uploaded but not fitted is not evaluated; a FAIL reading blocks until it is carried", async () => {
     await setStatus(jobId, "measuring");
     await measureEveryStep(as.installer!, jobId);
-    [{ id: step1 }] = (await db
-      .select({ id: templateSteps.id })
-      .from(templateSteps)
-      .where(eq(templateSteps.templateId, base.templateId))
-      .orderBy(asc(templateSteps.position))
-      .limit(1)) as [{ id: string }];
+    step1 = await firstStepOf(base.templateId);
     const [current] = await db
       .select({ id: readings.id })
       .from(readings)
@@ -238,11 +240,7 @@ async function refusedCodesAt(jobId: string): Promise<BlockerCode[]> {
 describe("readings kept before the check existed", () => {
   it("a reading with no instrument, or taken after the instrument fell due, blocks issue", async () => {
     const jobId = await newJob("approved");
-    const steps = await db
-      .select()
-      .from(templateSteps)
-      .where(eq(templateSteps.templateId, base.templateId))
-      .orderBy(asc(templateSteps.position));
+    const steps = await procedureSteps(base.templateId);
     const [late] = await db.select().from(instruments).where(eq(instruments.serial, "DTI-0417"));
     // Written straight to the table, as an import of old records would: the app refuses both.
     await db.insert(readings).values([

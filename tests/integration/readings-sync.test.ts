@@ -3,10 +3,10 @@
 // a correction can name the reading it replaces by its clientId, and a refusal is a 4xx that
 // says why. Each test works on a job of its own, against the real database.
 import { randomUUID } from "node:crypto";
-import { and, asc, eq } from "drizzle-orm";
+import { asc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { auditEvents, jobs, readings, users } from "@/db/schema";
+import { jobs, readings, users } from "@/db/schema";
 import {
   BASE_JOB,
   insertTestJob,
@@ -14,6 +14,7 @@ import {
   instrumentIdsBySerial,
   postReading,
   stepIdsByPosition,
+  auditEventsOf,
 } from "./fixtures";
 import { signInAs } from "./helpers";
 import { jobBaseOf } from "./ready-job";
@@ -72,10 +73,7 @@ describe("idempotent sync by clientId", () => {
     expect(second.json.reading.id).toBe(first.json.reading.id);
     const rows = await stored(jobId);
     expect(rows).toHaveLength(1);
-    const audits = await db
-      .select()
-      .from(auditEvents)
-      .where(and(eq(auditEvents.jobId, jobId), eq(auditEvents.action, "reading.recorded")));
+    const audits = await auditEventsOf({ jobId }, "reading.recorded");
     expect(audits).toHaveLength(1);
   });
 
@@ -158,10 +156,7 @@ describe("two devices, one step", () => {
     const rows = await stored(jobId);
     const old = rows.find((r) => r.clientId === original.clientId)!;
     expect(old.supersededById).toBe(fix.json.reading.id);
-    const audit = await db
-      .select()
-      .from(auditEvents)
-      .where(and(eq(auditEvents.jobId, jobId), eq(auditEvents.action, "reading.corrected")));
+    const audit = await auditEventsOf({ jobId }, "reading.corrected");
     expect(audit).toHaveLength(1);
   });
 });

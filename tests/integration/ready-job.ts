@@ -10,15 +10,20 @@ import { instruments, jobs, readings, templateSteps } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
 import { jobIdByReference } from "./helpers";
 
+/** The steps of a procedure version, in their order. */
+export function procedureSteps(templateId: string) {
+  return db
+    .select()
+    .from(templateSteps)
+    .where(eq(templateSteps.templateId, templateId))
+    .orderBy(asc(templateSteps.position));
+}
+
 /** Records a conforming reading (the middle of the step's limits) for every step of the job's procedure. */
 export async function measureEveryStep(installer: Actor, jobId: string, phase: "pre" | "post" = "pre") {
   const [job] = await db.select({ templateId: jobs.templateId }).from(jobs).where(eq(jobs.id, jobId));
   if (!job?.templateId) return;
-  const steps = await db
-    .select()
-    .from(templateSteps)
-    .where(eq(templateSteps.templateId, job.templateId))
-    .orderBy(asc(templateSteps.position));
+  const steps = await procedureSteps(job.templateId);
   const [inst] = await db.select().from(instruments).where(eq(instruments.serial, "DTI-0112"));
   // A step already measured in this phase keeps its reading (recording again would supersede it).
   const measured = new Set(

@@ -5,16 +5,10 @@ import { beforeAll, describe, expect, it, vi } from "vitest";
 import { db } from "@/db";
 import { instrumentCalibrations, instruments, machines, sites } from "@/db/schema";
 import { insertRow } from "./fixtures";
-import { signInAs } from "./helpers";
+import { formData, signInAs } from "./helpers";
 
 vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn() }));
 const { recordCalibrationAction, retireRegisterRowAction } = await import("@/app/(app)/registers/actions");
-
-const form = (fields: Record<string, string>) => {
-  const f = new FormData();
-  for (const [k, v] of Object.entries(fields)) f.set(k, v);
-  return f;
-};
 
 describe("register page actions (administrator)", () => {
   let machineId = "";
@@ -37,28 +31,34 @@ describe("register page actions (administrator)", () => {
   });
 
   it("retires a machine and brings it back", async () => {
-    const r1 = await retireRegisterRowAction(form({ register: "machines", id: machineId, retired: "true" }));
+    const r1 = await retireRegisterRowAction(
+      formData({ register: "machines", id: machineId, retired: "true" }),
+    );
     expect(r1).toEqual({ ok: true, data: { retired: true } });
     const [m1] = await db.select({ at: machines.retiredAt }).from(machines).where(eq(machines.id, machineId));
     expect(m1!.at).toBeInstanceOf(Date);
-    const r2 = await retireRegisterRowAction(form({ register: "machines", id: machineId, retired: "false" }));
+    const r2 = await retireRegisterRowAction(
+      formData({ register: "machines", id: machineId, retired: "false" }),
+    );
     expect(r2.ok).toBe(true);
     const [m2] = await db.select({ at: machines.retiredAt }).from(machines).where(eq(machines.id, machineId));
     expect(m2!.at).toBeNull();
   });
 
   it("an unknown register or a missing row is refused", async () => {
-    const bad = await retireRegisterRowAction(form({ register: "people", id: machineId, retired: "true" }));
+    const bad = await retireRegisterRowAction(
+      formData({ register: "people", id: machineId, retired: "true" }),
+    );
     expect(bad).toMatchObject({ ok: false, code: "invalid" });
     const none = await retireRegisterRowAction(
-      form({ register: "heads", id: "00000000-0000-4000-8000-000000000000", retired: "true" }),
+      formData({ register: "heads", id: "00000000-0000-4000-8000-000000000000", retired: "true" }),
     );
     expect(none).toMatchObject({ ok: false, code: "not_found" });
   });
 
   it("a recalibration from the form brings a retired, past-due instrument back into use", async () => {
     const r = await recordCalibrationAction(
-      form({
+      formData({
         instrumentId,
         calibratedOn: "2026-06-01",
         dueOn: "2027-06-01",
@@ -75,7 +75,7 @@ describe("register page actions (administrator)", () => {
       .where(eq(instrumentCalibrations.instrumentId, instrumentId));
     expect(rows).toHaveLength(1);
     const early = await recordCalibrationAction(
-      form({
+      formData({
         instrumentId,
         calibratedOn: "2026-07-01",
         dueOn: "2026-01-01",

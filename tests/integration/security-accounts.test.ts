@@ -6,7 +6,7 @@
 // 2.3.1/2.5.4 (time-limited one-time links), 2.4.x / 8.3.4 (secrets stored as hashes, not kept
 // once used), 7.2.2 (recovery actions audited).
 import { createHash } from "node:crypto";
-import { and, desc, eq, sql } from "drizzle-orm";
+import { desc, eq, sql } from "drizzle-orm";
 import nodemailer from "nodemailer";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { requestPasswordResetAction } from "@/app/(auth)/forgot-password/actions";
@@ -20,10 +20,11 @@ import {
   sendResetLink,
   setPasswordWithToken,
 } from "@/db/queries/users-admin";
-import { auditEvents, outbox, signInFailures, userTokens, users } from "@/db/schema";
+import { outbox, signInFailures, userTokens, users } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import { processOutbox } from "@/lib/mail/worker";
 import { signInAs } from "./helpers";
+import { auditEventsOf } from "./fixtures";
 
 const sha256 = (t: string) => createHash("sha256").update(t, "utf8").digest("hex");
 const actorOf = async (email: string) => (await getActor((await signInAs(email))!))!;
@@ -121,12 +122,7 @@ describe("the administrator helps someone back in", () => {
     const admin = await actorOf("admin@halvard.example");
     expect(await clearSignInDelay(admin, engineer.id)).toEqual({ cleared: 5 });
     expect(await isSignInLimited("engineer@halvard.example", "10.7.0.1")).toBe(false);
-    const [event] = await db
-      .select()
-      .from(auditEvents)
-      .where(
-        and(eq(auditEvents.action, "user.sign_in_delay_cleared"), eq(auditEvents.entityId, engineer.id)),
-      );
+    const [event] = await auditEventsOf({ entityId: engineer.id }, "user.sign_in_delay_cleared");
     expect(event!.actorEmail).toBe("admin@halvard.example");
   });
 

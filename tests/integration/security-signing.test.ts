@@ -3,15 +3,16 @@
 // the delay, even with the right password, and the refusal is in the audit trail.
 // OWASP ASVS v4.0.3 2.2.1 (anti-automation on every credential check) and 7.2.1 (authentication
 // decisions logged).
-import { and, eq } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import { afterAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { SIGNING_REENTRY_KEY } from "@/db/queries/sign-in";
 import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
-import { auditEvents, signInFailures } from "@/db/schema";
+import { signInFailures } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import { jobIdByReference, signInAs } from "./helpers";
+import { auditEventsOf } from "./fixtures";
 
 afterAll(async () => {
   await db.delete(signInFailures);
@@ -37,10 +38,7 @@ describe("password re-entry at signing", () => {
     expect(limited.status).toBe(429);
     expect(limited.code).toBe("rate_limited");
     expect(limited.message).toMatch(/Signing is paused for 1 minute/);
-    const events = await db
-      .select()
-      .from(auditEvents)
-      .where(and(eq(auditEvents.action, "signature.password_limited"), eq(auditEvents.entityId, actor.id)));
+    const events = await auditEventsOf({ entityId: actor.id }, "signature.password_limited");
     expect(events.length).toBeGreaterThanOrEqual(1);
     // The failures count against the account like sign-in failures do, under their own key.
     const rows = await db

@@ -1,12 +1,12 @@
 // Every kind of checklist step posted through POST /api/jobs/{id}/readings against the real
 // database: what is stored per kind, the 422 that names the point or field, and the instrument's
 // range. The job follows the seeded after-collision procedure (one step of each kind).
-import { and, eq } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import { beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { GET as readingsGet } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
-import { auditEvents, instruments, readings } from "@/db/schema";
-import { postReading } from "./fixtures";
+import { instruments, readings } from "@/db/schema";
+import { postReading, auditEventsOf } from "./fixtures";
 import { request, signInAs } from "./helpers";
 import { jobLike } from "./tablet-helpers";
 
@@ -97,10 +97,7 @@ describe("each kind of step", () => {
     });
     const [stored] = await db.select().from(readings).where(eq(readings.id, reading.id));
     expect(stored!.enteredValue).toBeCloseTo(0.0005, 12);
-    const audit = await db
-      .select()
-      .from(auditEvents)
-      .where(and(eq(auditEvents.entityId, reading.id), eq(auditEvents.action, "reading.recorded")));
+    const audit = await auditEventsOf({ entityId: reading.id }, "reading.recorded");
     expect(audit[0]!.newValues).toMatchObject({ inputs: { points: { "6": 0.0004 } } });
   });
 

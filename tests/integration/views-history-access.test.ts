@@ -12,22 +12,16 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { GET as listRoute, POST as saveRoute } from "@/app/api/analyses/[id]/views/route";
 import { GET as imageRoute } from "@/app/api/analysis-views/[id]/image/route";
 import { GET as historyRoute } from "@/app/api/heads/[id]/history/route";
-import { POST as runRoute } from "@/app/api/datasets/[id]/analyses/route";
 import { db } from "@/db";
 import { analyses, datasets, heads } from "@/db/schema";
-import { uploadDemoProbe, WHO, type Who } from "./fixtures";
-import { jobIdByReference, request, signInAs } from "./helpers";
+import { fitDemoProbe, WHO, type Who } from "./fixtures";
+import { formPost, jobIdByReference, request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
 const png = () => PNG.sync.write(new PNG({ width: 12, height: 8 }));
 function save(analysisId: string) {
-  const form = new FormData();
-  form.set("factor", "300");
-  form.set("file", new Blob([new Uint8Array(png())], { type: "image/png" }), "view.png");
-  return saveRoute(
-    request(`/api/analyses/${analysisId}/views`, { method: "POST", body: form }),
-    p(analysisId),
-  );
+  const file = { bytes: png(), type: "image/png", name: "view.png" };
+  return saveRoute(formPost(`/api/analyses/${analysisId}/views`, { factor: "300" }, file), p(analysisId));
 }
 const list = (id: string) => listRoute(request(`/api/analyses/${id}/views`), p(id));
 const image = (id: string) => imageRoute(request(`/api/analysis-views/${id}/image`), p(id));
@@ -63,12 +57,7 @@ beforeAll(async () => {
   expect(m.status).toBe(201);
   ids.marlowView = (await m.json()).view.id;
   const tollanJob = await jobIdByReference("TR-2026-0048");
-  const dsId = await uploadDemoProbe(tollanJob, {
-    email: "engineer@halvard.example",
-    filename: "tollan-matrix.csv",
-  });
-  const run = await runRoute(request(`/api/datasets/${dsId}/analyses`, { method: "POST" }), p(dsId));
-  const t = await save((await run.json()).analysis.id);
+  const t = await save((await fitDemoProbe(tollanJob, "tollan-matrix.csv")).analysisId);
   expect(t.status).toBe(201);
   ids.tollanView = (await t.json()).view.id;
   ids.marlowHead = (await db.select({ id: heads.id }).from(heads).where(eq(heads.serial, "TH-2241")))[0]!.id;

@@ -34,6 +34,9 @@ const loopOf = (
 ) => controlLoop({ asFound, asLeft, approvedFit: approved, unitSystem });
 /** A control's row in a loop. */
 const rowOf = (loop: ReturnType<typeof controlLoop>, key: string) => loop.rows.find((r) => r.key === key)!;
+/** The row of one control setting in a loop where only it was found, at this value. */
+const onlyRow = (key: string, asFound: number, unitSystem: ControlLoopInput["unitSystem"] = "metric") =>
+  rowOf(loopOf({ [key]: asFound }, null, unitSystem), key);
 
 describe("values to enter (worked by hand)", () => {
   it("adds the fitted length error in mm: 152.4000 mm + 37.88 µm = 152.43788 mm", () => {
@@ -48,23 +51,20 @@ describe("values to enter (worked by hand)", () => {
   });
 
   it("keeps the sign: a negative offset lowers the value (0.0100 mm − 12.5 µm = −0.0025 mm)", () => {
-    const loop = loopOf({ tool_offset_across_tilt_mm: 0.01 });
-    const row = rowOf(loop, "tool_offset_across_tilt_mm");
+    const row = onlyRow("tool_offset_across_tilt_mm", 0.01);
     expect(row.toEnter).toBeCloseTo(-0.0025, 12);
     expect(row.toEnterText).toBe("−0.0025 mm");
   });
 
   it("adds angles in degrees: 90.00000° + 18″ = 90.00500° (1° = 3600″, SI Brochure Table 8)", () => {
-    const loop = loopOf({ secondary_zero_deg: 90 });
-    const row = rowOf(loop, "secondary_zero_deg");
+    const row = onlyRow("secondary_zero_deg", 90);
     expect(row.correction).toBeCloseTo(0.005, 14);
     expect(row.toEnter).toBeCloseTo(90.005, 12);
     expect(row.toEnterText).toBe("90.00500° (324018.0″)");
   });
 
   it("leaves a parameter held at zero unchanged and says so", () => {
-    const loop = loopOf({ secondary_yaw_deg: 0.01 });
-    const row = rowOf(loop, "secondary_yaw_deg");
+    const row = onlyRow("secondary_yaw_deg", 0.01);
     expect(row.held).toBe(true);
     expect(row.toEnter).toBe(0.01);
     expect(row.correctionText).toBe("held (no change)");
@@ -85,8 +85,7 @@ describe("values to enter (worked by hand)", () => {
 
   it("shows inch controls in inch with mm beside (1 in = 25.4 mm exactly, NIST SP 811)", () => {
     // 6.00000 in = 152.4 mm; + 37.88 µm = 152.43788 mm = 6.0014913… in.
-    const loop = loopOf({ pivot_length_mm: 152.4 }, null, "inch");
-    const row = rowOf(loop, "pivot_length_mm");
+    const row = onlyRow("pivot_length_mm", 152.4, "inch");
     expect(row.asFoundText).toBe("6.00000 in (152.4000 mm)");
     expect(row.toEnterText).toBe("6.00149 in (152.4379 mm)");
     expect(toControlCanonical(6, "length", "inch")).toBeCloseTo(152.4, 12);

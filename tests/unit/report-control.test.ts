@@ -7,7 +7,7 @@ import { renderReportPdf } from "@/lib/report/render";
 import { controlValuesSection } from "@/lib/report/sections/control";
 import { judgeTcpCheck } from "@/lib/tcp-check-display";
 import { samplePng, samplePngSha256, sampleReport } from "../fixtures/report/sample-report";
-import { pdfText } from "../pdf-tools";
+import { expectPhrases, pdfText } from "../pdf-tools";
 
 /** The sample report with this control-values section, printed and read back by pdftotext. */
 async function printed(controlValues: NonNullable<ReturnType<typeof controlValuesSection>>) {
@@ -63,12 +63,13 @@ describe("the report's control-values section", () => {
   });
 
   it("prints the section in the PDF with its numbers, flag, sign convention and caution", async () => {
-    const text = await printed(section);
-    expect(text).toContain("5.1 Values for the control: as found, to enter, as left");
-    expect(text).toContain("152.4379 mm");
-    expect(text).toContain("Differs from the value to enter");
-    expect(text).toContain("Value to enter = as found + correction");
-    expect(text).toContain("qualified people");
+    expectPhrases(await printed(section), [
+      "5.1 Values for the control: as found, to enter, as left",
+      "152.4379 mm",
+      "Differs from the value to enter",
+      "Value to enter = as found + correction",
+      "qualified people",
+    ]);
   }, 30_000);
 
   describe("the TCP check after compensation", () => {

@@ -1,13 +1,10 @@
 // The report's appendix of photos: only steps that ask for a photo, in step order, times in UTC;
 // rendered into the PDF (read back with poppler's pdftotext, an independent reader).
-import { execFileSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { renderReportPdf } from "@/lib/report/render";
 import { photoAppendixRows } from "@/lib/report/sections/photos";
 import { samplePng, samplePngSha256, sampleReport } from "../fixtures/report/sample-report";
+import { pdfText } from "../pdf-tools";
 
 const steps = [
   { stepId: "b", position: 4, title: "Shims", photoRequired: true },
@@ -50,9 +47,7 @@ describe("photo appendix", () => {
       undefined,
       new Map([[samplePngSha256, samplePng]]),
     );
-    const dir = mkdtempSync(path.join(process.env.TMPDIR ?? tmpdir(), "trammel-pdf-"));
-    writeFileSync(path.join(dir, "r.pdf"), pdf);
-    const text = execFileSync("pdftotext", [path.join(dir, "r.pdf"), "-"]).toString("utf8");
+    const text = pdfText(pdf);
     expect(text).toContain("Appendix: photos kept with the record");
     expect(text).toContain("Step 2 Collar, before adjustment");
     expect(text.replace(/\s+/g, "")).toContain(`SHA-256${sha}`);

@@ -52,15 +52,21 @@ const limit = (
   limitSourceNote: "spec 12",
 });
 
+/**
+ * Judges a test (`summary` above unless `of` is given) against these limits: the primary axis by
+ * the simple rule without U, unless the options say otherwise.
+ */
+const judge = (
+  limits: PositioningLimit[],
+  {
+    of = summary,
+    ...o
+  }: Partial<Parameters<typeof judgeRotaryPositioning>[1]> & { of?: RotaryPositioningSummary } = {},
+) => judgeRotaryPositioning(of, { axis: "primary", rule: "simple", U: null, limits, ...o });
+
 describe("judging a rotary positioning test", () => {
   it("shows every quantity both ways and per direction, and passes A 9.2″ ≤ 20″ and R 2.4″ ≤ 6″ (simple)", () => {
-    const v = judgeRotaryPositioning(summary, {
-      axis: "primary",
-      letter: "C",
-      limits: [limit("A", 20), limit("R", 6)],
-      rule: "simple",
-      U: null,
-    });
+    const v = judge([limit("A", 20), limit("R", 6)], { letter: "C" });
     expect(v.axisText).toBe("primary (rotary) axis C");
     expect(v.rows.map((r) => [r.symbol, r.both, r.pos, r.neg, r.limitText, r.decision])).toEqual([
       ["A", "9.20″", "7.90″", "7.85″", "≤ 20.00″", "pass"],
@@ -75,61 +81,31 @@ describe("judging a rotary positioning test", () => {
   });
 
   it("fails the test when one quantity is over its limit (R 2.4″ > 2″); a value on the limit passes", () => {
-    const fail = judgeRotaryPositioning(summary, {
-      axis: "primary",
-      limits: [limit("A", 20), limit("R", 2)],
-      rule: "simple",
-      U: null,
-    });
+    const fail = judge([limit("A", 20), limit("R", 2)]);
     expect(fail.rows.find((r) => r.key === "R")!.decision).toBe("fail");
     expect(fail.decision).toBe("fail");
-    const on = judgeRotaryPositioning(summary, {
-      axis: "primary",
-      limits: [limit("A", 9.2)],
-      rule: "simple",
-      U: null,
-    });
+    const on = judge([limit("A", 9.2)]);
     expect(on.decision).toBe("pass");
   });
 
   it("guarded: undecided — U missing without U; with U 1″, A 9.2″ against 10″ lies in the band 9″…11″", () => {
-    const noU = judgeRotaryPositioning(summary, {
-      axis: "primary",
-      limits: [limit("A", 20)],
-      rule: "guarded",
-      U: null,
-    });
+    const noU = judge([limit("A", 20)], { rule: "guarded" });
     expect(noU.rows[0]).toMatchObject({ decision: "undecided", reason: "U missing" });
     expect(noU.decision).toBe("undecided");
-    const band = judgeRotaryPositioning(summary, {
-      axis: "primary",
-      limits: [limit("A", 10)],
-      rule: "guarded",
-      U: 1,
-    });
+    const band = judge([limit("A", 10)], { rule: "guarded", U: 1 });
     expect(band.rows[0]!.decision).toBe("undecided");
-    const clear = judgeRotaryPositioning(summary, {
-      axis: "primary",
-      limits: [limit("A", 10.2)],
-      rule: "guarded",
-      U: 1,
-    });
+    const clear = judge([limit("A", 10.2)], { rule: "guarded", U: 1 });
     expect(clear.rows[0]!.decision).toBe("pass"); // 9.2 ≤ 10.2 − 1
   });
 
   it("takes only the limits of its own axis; none: recorded, not judged", () => {
-    const v = judgeRotaryPositioning(summary, {
-      axis: "secondary",
-      limits: [limit("A", 1)],
-      rule: "simple",
-      U: null,
-    });
+    const v = judge([limit("A", 1)], { axis: "secondary" });
     expect(v.axisText).toBe("secondary (tilt) axis C");
     expect(v.decision).toBe("recorded");
   });
 
   it("charts mean ± 2s per target and direction (1.5″ ± 2·0.25″ → 1.0″…2.0″)", () => {
-    const v = judgeRotaryPositioning(summary, { axis: "primary", limits: [], rule: "simple", U: null });
+    const v = judge([]);
     expect(v.chart.pos[0]).toEqual({ targetDeg: 0, mean: 1.5, lo: 1, hi: 2 });
     expect(v.chart.neg[1]).toEqual({ targetDeg: 90, mean: -3, lo: -3.5, hi: -2.5 });
   });
@@ -143,12 +119,7 @@ describe("judging a rotary positioning test", () => {
     const s = rotaryPositioningToJson(
       rotaryPositioning(readRotaryPositioningCsv(demoRotaryPositioningCsv())),
     );
-    const v = judgeRotaryPositioning(s, {
-      axis: "primary",
-      limits: [limit("A", 20), limit("R", 6)],
-      rule: "simple",
-      U: 0.5,
-    });
+    const v = judge([limit("A", 20), limit("R", 6)], { of: s, U: 0.5 });
     expect(v.targets).toBe(12);
     expect(v.decision).toBe("pass");
     // Its once-round error of 3″ and twice-round of 1.5″ make E at least 2·3″ less the overlap (invented data).
@@ -212,12 +183,7 @@ describe("readiness and the statement of conformity", () => {
           phase: "post",
           uploadedAt: new Date("2026-12-01T10:00:00Z"),
           U: null,
-          view: judgeRotaryPositioning(summary, {
-            axis: "primary",
-            limits: [limit("A", d === "pass" ? 20 : 5)],
-            rule: "simple",
-            U: null,
-          }),
+          view: judge([limit("A", d === "pass" ? 20 : 5)]),
         },
       ],
       "simple",

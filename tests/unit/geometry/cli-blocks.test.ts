@@ -3,10 +3,7 @@
 // whole-file reader (undefined) whenever a block cannot decide alone. The reference is the
 // whole-file path of geometry/csv itself, as the streaming commands promise identical results; the
 // commands' figures are then checked end to end against fits of the whole-file data.
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
-import { afterAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import {
   fitCircle,
   fitSweep,
@@ -17,16 +14,11 @@ import {
   readTramCsv,
 } from "@/geometry";
 import { readCsvInBlocks } from "@/lib/cli/chunked-csv";
-import { main } from "@/lib/cli/geometry";
+import { runCli, tempFiles } from "./cli-helpers";
 
-const dir = mkdtempSync(join(tmpdir(), "trammel-cli-blocks-"));
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
+const temp = tempFiles("cli-blocks");
 let fileCount = 0;
-function file(text: string): string {
-  const p = join(dir, `f${fileCount++}.csv`);
-  writeFileSync(p, text);
-  return p;
-}
+const file = (text: string): string => temp.file(`f${fileCount++}.csv`, text);
 
 /** Plain-object form of a reader result, typed arrays as arrays, for deep comparison. */
 const plain = (r: object) =>
@@ -99,14 +91,8 @@ describe("readCsvInBlocks", () => {
 
 describe("sweep, circle, tram commands on files larger than one block", () => {
   async function run(...args: string[]) {
-    let out = "";
-    let err = "";
-    const code = await main(
-      args,
-      (s) => void (out += s),
-      (s) => void (err += s),
-    );
-    return { code, json: code === 0 ? JSON.parse(out) : undefined, err };
+    const { code, stdout, stderr } = await runCli(...args);
+    return { code, json: code === 0 ? JSON.parse(stdout) : undefined, err: stderr };
   }
 
   it("print the figures of the fits on the whole-file data (to 1e-9 relative; here exactly)", async () => {

@@ -45,8 +45,10 @@ const num = fc.oneof(
   fc.constantFrom(1e155, -1e155, 1.7e308, -1.7e308, 5e-324),
 );
 const fmt = (x: number) => (Object.is(x, -0) ? "0" : String(x));
-const rows = (cols: number, max = 12) =>
-  fc.array(fc.array(num, { minLength: cols, maxLength: cols }), { minLength: 1, maxLength: max });
+/** Tables of 1 to `max` rows of this shape. */
+const tableOf = <T>(row: fc.Arbitrary<T>, max = 12) => fc.array(row, { minLength: 1, maxLength: max });
+/** Tables of `cols` numbers a row. */
+const rows = (cols: number, max = 12) => tableOf(fc.array(num, { minLength: cols, maxLength: cols }), max);
 const csv = (header: string, rs: readonly (readonly (number | string)[])[]) =>
   [header, ...rs.map((r) => r.map((x) => (typeof x === "number" ? fmt(x) : x)).join(","))].join("\n") + "\n";
 const RUNS = { numRuns: 150 };
@@ -65,10 +67,7 @@ describe("no finite input crashes a command (fast-check)", { timeout: 120_000 },
     );
     await fc.assert(
       fc.asyncProperty(
-        fc.array(fc.tuple(num, num, fc.constantFrom("XZ", "YZ"), fc.constantFrom(0, 180)), {
-          minLength: 1,
-          maxLength: 16,
-        }),
+        tableOf(fc.tuple(num, num, fc.constantFrom("XZ", "YZ"), fc.constantFrom(0, 180)), 16),
         (rs) => checkCommand("tram", csv("travel,reading,plane,bar_deg", rs)),
       ),
       RUNS,
@@ -85,17 +84,14 @@ describe("no finite input crashes a command (fast-check)", { timeout: 120_000 },
   it("rotary-positioning", async () => {
     await fc.assert(
       fc.asyncProperty(
-        fc.array(
+        tableOf(
           fc.tuple(
             fc.oneof(num, fc.constantFrom(0, 90, 360)),
             fc.integer({ min: 1, max: 3 }),
             fc.constantFrom("pos", "neg"),
             num,
           ),
-          {
-            minLength: 1,
-            maxLength: 24,
-          },
+          24,
         ),
         (rs) => checkCommand("rotary-positioning", csv("target_deg,run,direction,measured_deg", rs)),
       ),

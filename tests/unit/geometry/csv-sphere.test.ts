@@ -1,7 +1,10 @@
 // Sphere-probe CSV reader against the rules of geometry/README.md "CSV formats" (RFC 4180 quoting).
 import { describe, expect, it } from "vitest";
 import { readSphereProbeCsv } from "@/geometry";
-import { fixture, thrown } from "./csv-helpers";
+import { fixture, refused, thrown } from "./csv-helpers";
+
+/** Reading this fixture file in mm, to hand to `refused`. */
+const readingMm = (name: string) => () => readSphereProbeCsv(fixture(name), { units: "mm" });
 
 describe("readSphereProbeCsv", () => {
   it("reads a good file with optional columns", () => {
@@ -41,11 +44,7 @@ describe("readSphereProbeCsv", () => {
   });
 
   it("decimal comma in a semicolon file without the option is an error naming row and column", () => {
-    const e = thrown(() =>
-      readSphereProbeCsv(fixture("sphere-bom-semicolon-decimal-comma.csv"), { units: "mm" }),
-    );
-    expect(e.code).toBe("decimal_comma");
-    expect(e.issues).toEqual([
+    const e = refused(readingMm("sphere-bom-semicolon-decimal-comma.csv"), "decimal_comma", [
       {
         row: 2,
         column: "X",
@@ -75,14 +74,10 @@ describe("readSphereProbeCsv", () => {
   });
 
   it("decimal comma (quoted) in a comma file is an error", () => {
-    const e = thrown(() =>
-      readSphereProbeCsv(fixture("sphere-decimal-comma-in-comma-file.csv"), { units: "mm" }),
-    );
-    expect(e.code).toBe("decimal_comma");
-    expect(e.message).toBe("row 5, column x: '1,25' uses a decimal comma; write a decimal point (1.25)");
-    expect(e.issues).toEqual([
+    const e = refused(readingMm("sphere-decimal-comma-in-comma-file.csv"), "decimal_comma", [
       { row: 5, column: "x", message: "'1,25' uses a decimal comma; write a decimal point (1.25)" },
     ]);
+    expect(e.message).toBe("row 5, column x: '1,25' uses a decimal comma; write a decimal point (1.25)");
   });
 
   it("the decimal-comma option with a comma-separated file is refused", () => {
@@ -105,9 +100,7 @@ describe("readSphereProbeCsv", () => {
   });
 
   it("missing column", () => {
-    const e = thrown(() => readSphereProbeCsv(fixture("sphere-missing-column.csv"), { units: "mm" }));
-    expect(e.code).toBe("missing_column");
-    expect(e.issues).toEqual([
+    refused(readingMm("sphere-missing-column.csv"), "missing_column", [
       {
         row: 1,
         column: "z",
@@ -117,17 +110,13 @@ describe("readSphereProbeCsv", () => {
   });
 
   it("duplicated column (case-insensitive)", () => {
-    const e = thrown(() => readSphereProbeCsv(fixture("sphere-duplicate-column.csv"), { units: "mm" }));
-    expect(e.code).toBe("duplicate_column");
-    expect(e.issues).toEqual([
+    refused(readingMm("sphere-duplicate-column.csv"), "duplicate_column", [
       { row: 1, column: "X", message: "the column 'x' appears more than once in the header" },
     ]);
   });
 
   it("text, NaN, Infinity, empty and overflowing numbers: all collected", () => {
-    const e = thrown(() => readSphereProbeCsv(fixture("sphere-bad-numbers.csv"), { units: "mm" }));
-    expect(e.code).toBe("bad_number");
-    expect(e.issues).toEqual([
+    refused(readingMm("sphere-bad-numbers.csv"), "bad_number", [
       { row: 2, column: "x", message: "'abc' is not a number" },
       { row: 3, column: "y", message: "'NaN' is not a finite number" },
       { row: 4, column: "z", message: "'Infinity' is not a finite number" },
@@ -137,9 +126,7 @@ describe("readSphereProbeCsv", () => {
   });
 
   it("ragged rows: too few and too many fields", () => {
-    const e = thrown(() => readSphereProbeCsv(fixture("sphere-ragged.csv"), { units: "mm" }));
-    expect(e.code).toBe("ragged_row");
-    expect(e.issues).toEqual([
+    refused(readingMm("sphere-ragged.csv"), "ragged_row", [
       { row: 3, message: "has 4 fields, the header has 5" },
       {
         row: 4,
@@ -150,19 +137,19 @@ describe("readSphereProbeCsv", () => {
   });
 
   it("unclosed quote names the row and column where it opens", () => {
-    const e = thrown(() => readSphereProbeCsv(fixture("sphere-unclosed-quote.csv"), { units: "mm" }));
-    expect(e.code).toBe("quote");
-    expect(e.issues).toEqual([{ row: 3, column: "x", message: "a quote opens here and is never closed" }]);
+    refused(readingMm("sphere-unclosed-quote.csv"), "quote", [
+      { row: 3, column: "x", message: "a quote opens here and is never closed" },
+    ]);
   });
 
   it("empty file and header only", () => {
-    const empty = thrown(() => readSphereProbeCsv(fixture("empty.csv"), { units: "mm" }));
-    expect(empty.code).toBe("empty");
-    expect(empty.issues).toEqual([{ row: 1, message: "the file is empty; a header row is required" }]);
+    refused(readingMm("empty.csv"), "empty", [
+      { row: 1, message: "the file is empty; a header row is required" },
+    ]);
     expect(thrown(() => readSphereProbeCsv("\ufeff \r\n\n", { units: "mm" })).code).toBe("empty");
-    const head = thrown(() => readSphereProbeCsv(fixture("sphere-header-only.csv"), { units: "mm" }));
-    expect(head.code).toBe("too_few_rows");
-    expect(head.issues).toEqual([{ row: 1, message: "the file has a header row but no data rows" }]);
+    refused(readingMm("sphere-header-only.csv"), "too_few_rows", [
+      { row: 1, message: "the file has a header row but no data rows" },
+    ]);
   });
 
   it("unknown columns and interior blank rows are warnings, not errors", () => {
