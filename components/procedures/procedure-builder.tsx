@@ -24,6 +24,7 @@ import {
   type HeadModelAxes,
 } from "@/components/procedures/builder-values";
 import { HeadJudgingFields } from "@/components/procedures/head-judging-fields";
+import { SourceSelect } from "@/components/procedures/limit-cells";
 import { ActionNotice, Button } from "@/components/ui/button";
 import { Field, FieldError, inputClass } from "@/components/ui/field";
 import { INVALID_MESSAGE, mapActionErrors } from "@/components/ui/form-errors";
@@ -37,13 +38,7 @@ import {
   STEP_KIND_LABELS,
   STEP_KINDS,
 } from "@/lib/domain/procedures";
-import {
-  equalPoints,
-  LIMIT_SOURCE_LABELS,
-  LIMIT_SOURCES,
-  procedureSchema,
-  procedureVersionSchema,
-} from "@/lib/validations/procedures";
+import { equalPoints, procedureSchema, procedureVersionSchema } from "@/lib/validations/procedures";
 
 const UNIT_OPTIONS = [
   ["mm", "mm"],
@@ -318,14 +313,7 @@ function StepCard({
         {JUDGED.has(kind) ? (
           <>
             <Field name={at("limitSource")} label="Where the limit comes from">
-              <select className={inputClass}>
-                <option value="">Choose…</option>
-                {LIMIT_SOURCES.map((s) => (
-                  <option key={s} value={s}>
-                    {LIMIT_SOURCE_LABELS[s]}
-                  </option>
-                ))}
-              </select>
+              <SourceSelect className={inputClass} />
             </Field>
             <Field
               name={at("limitSourceNote")}
