@@ -83,8 +83,15 @@ export function screenshotPath(name: string): string {
   return path.join(process.cwd(), ".data", "screenshots", `${name}.png`);
 }
 
-/** Serious or critical WCAG 2 A/AA violations on the page as it is now (axe-core), one line each. */
+/**
+ * Serious or critical WCAG 2 A/AA violations on the page as it is now (axe-core), one line each.
+ * Next streams a page's metadata after its body, and a server action's refresh sends it again, so the
+ * check first gives the <title> a few seconds to arrive; a page that never gets one is still reported.
+ */
 export async function seriousViolations(page: Page): Promise<string[]> {
+  await page
+    .waitForFunction(() => document.title.trim() !== "", undefined, { timeout: 5_000 })
+    .catch(() => undefined);
   const result = await new AxeBuilder({ page })
     .withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"])
     .analyze();
