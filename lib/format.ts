@@ -34,3 +34,9 @@ export function formatDate(d: Date | string | null | undefined): string {
   if (!d) return "—";
   return toDate(d).toISOString().slice(0, 10);
 }
+
+/** The text closed with a full stop, unless it already ends with one (or with ? or !): notes people type often do. */
+export function endSentence(text: string): string {
+  const t = text.trimEnd();
+  return /[.!?]$/.test(t) ? t : `${t}.`;
+}

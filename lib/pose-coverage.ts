@@ -7,6 +7,7 @@
  * Identifiability advice comes from geometry's pose planner (planHeadPoses) on the same poses.
  */
 import { planHeadPoses, type HeadConfig, type HeadPlanResult } from "@/geometry";
+import { endSentence } from "@/lib/format";
 
 export const PRIMARY_SECTOR_DEG = 30;
 export const TILT_REFERENCE_DEG = 90;
@@ -133,8 +134,6 @@ export function nextVisitPlan(
   } catch {
     plan = null;
   }
-  const fromPlan = (plan?.advice ?? []).map(
-    (a) => a.charAt(0).toUpperCase() + a.slice(1) + (a.endsWith(".") ? "" : "."),
-  );
+  const fromPlan = (plan?.advice ?? []).map((a) => endSentence(a.charAt(0).toUpperCase() + a.slice(1)));
   return { coverage, plan, advice: [...coverageAdvice(coverage), ...fromPlan] };
 }

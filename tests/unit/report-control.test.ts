@@ -51,6 +51,26 @@ describe("the report's control-values section", () => {
     expect(section.caution).toContain("control builder's manual");
   });
 
+  it("closes each recorded line with one full stop, whether or not the note ends with one", () => {
+    const withNotes = controlValuesSection({
+      loop: controlLoop({
+        asFound: { pivot_length_mm: 152.4 },
+        asLeft: null,
+        approvedFit: fit,
+        unitSystem: "metric",
+      }),
+      asFound: { ...record, note: "Read off the control's page 3." },
+      asLeft: { ...record, note: "Entered by the service engineer" },
+      approved: null,
+      asLeftStale: false,
+    })!;
+    expect(withNotes.recorded).toEqual([
+      "As found recorded 2026-11-30 10:00 UTC by Ines Okafor: Read off the control's page 3.",
+      "As left recorded 2026-11-30 10:00 UTC by Ines Okafor: Entered by the service engineer.",
+    ]);
+    expect(section.recorded[0]).toBe("As found recorded 2026-11-30 10:00 UTC by Ines Okafor.");
+  });
+
   it("is left out when no control values were recorded", () => {
     const none = controlValuesSection({
       loop: controlLoop({ asFound: null, asLeft: null, approvedFit: fit, unitSystem: "metric" }),

@@ -5,7 +5,7 @@
  * components/report/control-values-section.tsx.
  */
 import { CONTROL_CAUTION, SIGN_CONVENTION, type ControlLoop } from "@/lib/control-values";
-import { formatDateTimeUtc } from "@/lib/format";
+import { endSentence, formatDateTimeUtc } from "@/lib/format";
 import { judgementBasis, limitSourceWords } from "@/lib/report/build";
 import type { Decision } from "@/lib/report/types";
 import type { TcpCheckView } from "@/lib/tcp-check-display";
@@ -58,7 +58,7 @@ export function controlValuesSection(input: {
   if (!asFound && !asLeft && !tcp) return null;
   const line = (what: string, r: ControlRecordInput | null) =>
     r
-      ? `${what} recorded ${formatDateTimeUtc(r.createdAt)}${r.recordedBy ? ` by ${r.recordedBy}` : ""}${r.note ? `: ${r.note}` : ""}.`
+      ? `${what} recorded ${formatDateTimeUtc(r.createdAt)}${r.recordedBy ? ` by ${r.recordedBy}` : ""}${r.note ? `: ${endSentence(r.note)}` : "."}`
       : `${what}: not recorded.`;
   return {
     unitSystem: loop.unitSystem,
