@@ -66,6 +66,12 @@ export const LIMIT_SOURCE_WORDS: Record<ParameterLimit["limitSource"], string> =
   customer_spec: "Customer specification",
 };
 
+/** Where a limit comes from, in the printed words, with its note: "Standard: ISO 230-1". One wording for every section. */
+export function limitSourceWords(source: string, note: string | null | undefined): string {
+  const words = LIMIT_SOURCE_WORDS[source as keyof typeof LIMIT_SOURCE_WORDS] ?? source.replace("_", " ");
+  return `${words}${note ? `: ${note}` : ""}`;
+}
+
 const PARAMETER_DECISION_TEXT: Record<StepDecision, string> = {
   pass: "Pass",
   fail: "Fail",
@@ -124,9 +130,7 @@ export function parameterRows(fit: HeadFitJson, limits: readonly ParameterLimit[
       identifiableText: IDENTIFIABILITY_WORDS[p.identifiable],
       heldAtZero: held,
       toleranceText: lim ? limitText(lim.lowerLimit, lim.upperLimit, p.unit) : null,
-      limitSourceText: lim
-        ? `${LIMIT_SOURCE_WORDS[lim.limitSource]}${lim.limitSourceNote ? `: ${lim.limitSourceNote}` : ""}`
-        : null,
+      limitSourceText: lim ? limitSourceWords(lim.limitSource, lim.limitSourceNote) : null,
       decisionRule: lim ? lim.decisionRule : null,
       decision,
       decisionText: PARAMETER_DECISION_TEXT[decision],

@@ -13,6 +13,7 @@ import {
   type HeadAxisRole,
   type PositioningQuantity,
 } from "@/lib/domain/positioning";
+import { limitSourceWords } from "@/lib/fit-display";
 import type { Decision } from "@/lib/report/types";
 
 /** What geometry stored in the dataset's summary (rotaryPositioningToJson), arc seconds. */
@@ -86,13 +87,6 @@ export interface RotaryPositioningView {
   warnings: readonly string[];
 }
 
-const SOURCE_WORDS: Record<string, string> = {
-  standard: "standard",
-  maker_manual: "head maker's manual",
-  common_practice: "common practice",
-  customer_spec: "customer specification",
-};
-
 /** Arc seconds with two decimals; beyond one degree in degrees as well. */
 export function arcsecText(v: number): string {
   const s = `${v.toFixed(2)}″`;
@@ -135,11 +129,7 @@ export function judgeRotaryPositioning(
       neg: neg === null ? null : arcsecText(neg),
       valueArcsec: both,
       limitText: limit ? `≤ ${arcsecText(limit.upperLimitArcsec)}` : "—",
-      source: limit
-        ? [SOURCE_WORDS[limit.limitSource] ?? limit.limitSource, limit.limitSourceNote]
-            .filter(Boolean)
-            .join(": ")
-        : "—",
+      source: limit ? limitSourceWords(limit.limitSource, limit.limitSourceNote) : "—",
       decision: judged ? judged.decision : "recorded",
       ...(judged?.reason ? { reason: judged.reason } : {}),
     };

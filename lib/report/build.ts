@@ -10,7 +10,7 @@ import { ROLE_LABELS } from "@/lib/domain/roles";
 import { SIGNATURE_LABELS, type SignatureMeaningKey } from "@/lib/domain/signatures";
 import { canonicalJson } from "@/lib/canonical-json";
 import type { StepDecision } from "@/lib/checklist";
-import { LIMIT_SOURCE_WORDS, parameterRows, type ParameterLimit } from "@/lib/fit-display";
+import { limitSourceWords, parameterRows, type ParameterLimit } from "@/lib/fit-display";
 import { formatDateTimeUtc } from "@/lib/format";
 import { signed } from "@/lib/numbers";
 import type { QuantityKind, UnitSystem } from "@/lib/units";
@@ -114,12 +114,6 @@ export function judgementBasis(
 ): string | undefined {
   if (decision === "recorded" || decision === "not_measured") return undefined;
   return `Rule: ${RULE_WORDS[rule] ?? rule}${source ? `; limit: ${source}` : ""}`;
-}
-
-/** Where a limit comes from, in the report's words, with its note: "Standard: ISO 230-1". */
-export function limitSourceWords(source: string, note: string | null | undefined): string {
-  const words = LIMIT_SOURCE_WORDS[source as keyof typeof LIMIT_SOURCE_WORDS] ?? source.replace("_", " ");
-  return `${words}${note ? `: ${note}` : ""}`;
 }
 
 /** A step shown as its kind (Yes/No, a value in its own unit, a note, a multi-point result). */

@@ -180,8 +180,8 @@ describe("a rotary positioning test through the app", () => {
       "Mean reversal value (B̄)",
       "≤ 0.25″",
       "≤ 0.30″",
-      "customer specification FAIL",
-      "standard: ISO 230-2 test of record Pass",
+      "Customer specification FAIL",
+      "Standard: ISO 230-2 test of record Pass",
       "-10° -4.88° 0.24° 5.36° 10.48°",
       "positioning of the rotary axes by ISO 230-2",
     ])

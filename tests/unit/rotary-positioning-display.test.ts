@@ -76,7 +76,7 @@ describe("judging a rotary positioning test", () => {
       ["B", "1.40″", null, null, "—", "recorded"],
       ["B̄", "1.20″", null, null, "—", "recorded"],
     ]);
-    expect(v.rows[0]!.source).toBe("customer specification: spec 12");
+    expect(v.rows[0]!.source).toBe("Customer specification: spec 12");
     expect(v.decision).toBe("pass");
   });
 

@@ -6,7 +6,8 @@
  */
 import { CONTROL_CAUTION, SIGN_CONVENTION, type ControlLoop } from "@/lib/control-values";
 import { endSentence, formatDateTimeUtc } from "@/lib/format";
-import { judgementBasis, limitSourceWords } from "@/lib/report/build";
+import { limitSourceWords } from "@/lib/fit-display";
+import { judgementBasis } from "@/lib/report/build";
 import type { Decision } from "@/lib/report/types";
 import type { TcpCheckView } from "@/lib/tcp-check-display";
 
