@@ -2,7 +2,8 @@ import Link from "next/link";
 import { DECISION } from "@/components/report/report-parts";
 import { Card } from "@/components/ui/card";
 import { Table } from "@/components/ui/table";
-import { formatDateTimeUtc } from "@/lib/format";
+import { limitSourceWords } from "@/lib/fit-display";
+import { endSentence, formatDateTimeUtc } from "@/lib/format";
 import type { TcpCheckView, TcpLimits } from "@/lib/tcp-check-display";
 
 /** The job's tool-centre-point checks after compensation: the latest judged in full, earlier ones listed. */
@@ -13,6 +14,8 @@ export function TcpCheckCard({
   jobId: string;
   tcp: {
     limits: TcpLimits;
+    /** Where the procedure's limits come from; null when the job has no procedure. */
+    source: { source: string | null; note: string | null } | null;
     checks: ReadonlyArray<{ datasetId: string; filename: string; uploadedAt: Date; view: TcpCheckView }>;
   };
 }) {
@@ -56,6 +59,17 @@ export function TcpCheckCard({
                 )),
               ]}
             />
+            {tcp.limits.rangeLimitUm !== null || tcp.limits.deviationLimitUm !== null ? (
+              <p className="text-graphite-700" data-tcp-limit-source>
+                {endSentence(
+                  `Limits from the procedure; source: ${
+                    tcp.source?.source
+                      ? limitSourceWords(tcp.source.source, tcp.source.note)
+                      : "not recorded (the version was saved before sources were asked for)"
+                  }`,
+                )}
+              </p>
+            ) : null}
             {earlier.length ? (
               <p className="text-graphite-600">
                 Earlier checks (the latest counts):{" "}

@@ -120,6 +120,10 @@ describe("the control loop on an after-crash job", () => {
       .filter({ has: p.getByRole("heading", { name: "Tool-centre-point check after compensation" }) });
     await expect.poll(() => tcpCard.innerText()).toContain("tcp-e2e.csv");
     expect(await tcpCard.locator("[data-tcp-decision]").innerText()).toContain("Pass");
+    // The card says where the limits it judged against come from, as the report does.
+    expect(await tcpCard.locator("[data-tcp-limit-source]").innerText()).toContain(
+      "source: Customer specification",
+    );
 
     // The draft report prints the loop and the check (staff only; read back with pdftotext).
     await ctx().clearCookies();
