@@ -6,6 +6,7 @@ import { usePathname, useSearchParams } from "next/navigation";
 import useSWR from "swr";
 import { JobsTable } from "@/components/jobs/jobs-table";
 import { buttonClass } from "@/components/ui/button";
+import { closedSetOptions, OptionList } from "@/components/ui/field";
 import { JOB_STATUSES, STATUS_LABELS, type JobListRow, type JobSortKey } from "@/lib/domain/jobs";
 import { boardQuery } from "@/lib/jobs-board-query";
 import type { JobQueue } from "@/lib/policy/job-queues";
@@ -175,11 +176,7 @@ export function JobsBoard({
             className="min-h-touch rounded-lg border border-graphite-300 bg-white px-3 text-sm"
           >
             <option value="">Any status</option>
-            {JOB_STATUSES.map((s) => (
-              <option key={s} value={s}>
-                {STATUS_LABELS[s]}
-              </option>
-            ))}
+            <OptionList options={closedSetOptions(JOB_STATUSES, STATUS_LABELS)} />
           </select>
         </label>
       </div>

@@ -2,8 +2,10 @@
 
 /** The cells the builder's limits tables share: a source choice, a compact table, source and note. */
 import { useFormContext } from "react-hook-form";
-import { inputClass } from "@/components/ui/field";
+import { closedSetOptions, inputClass, OptionList } from "@/components/ui/field";
 import { LIMIT_SOURCE_LABELS, LIMIT_SOURCES } from "@/lib/validations/procedures";
+
+const SOURCE_OPTIONS = closedSetOptions(LIMIT_SOURCES, LIMIT_SOURCE_LABELS);
 
 /** A choice among the limit sources; `className` replaces the compact default. */
 export function SourceSelect({
@@ -13,11 +15,7 @@ export function SourceSelect({
   return (
     <select aria-label={label} className={`${inputClass} text-sm`} {...props}>
       <option value="">Choose…</option>
-      {LIMIT_SOURCES.map((s) => (
-        <option key={s} value={s}>
-          {LIMIT_SOURCE_LABELS[s]}
-        </option>
-      ))}
+      <OptionList options={SOURCE_OPTIONS} />
     </select>
   );
 }

@@ -4,9 +4,11 @@ import { inviteUserAction, updateUserAction } from "@/app/(app)/registers/action
 import { ROLE_LABELS, ROLES, type Role } from "@/lib/domain/roles";
 import { FormFields, HiddenFields } from "@/components/ui/form-fields";
 import { Form } from "@/components/ui/form";
+import { closedSetOptions, OptionList } from "@/components/ui/field";
 import { userInviteSchema, userUpdateSchema } from "@/lib/validations/registers";
 
-const ROLE_OPTIONS = ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }));
+const ROLE_OPTIONS = closedSetOptions(ROLES, ROLE_LABELS);
+const STAFF_ROLE_OPTIONS = ROLE_OPTIONS.filter((o) => o.value !== "customer");
 
 export function InviteForm({ customers }: { customers: ReadonlyArray<{ id: string; name: string }> }) {
   return (
@@ -67,11 +69,7 @@ export function PersonControls({
             defaultValue={role}
             className="min-h-touch rounded-md border border-graphite-300 bg-white px-2 text-sm"
           >
-            {ROLES.filter((r) => r !== "customer").map((r) => (
-              <option key={r} value={r}>
-                {ROLE_LABELS[r]}
-              </option>
-            ))}
+            <OptionList options={STAFF_ROLE_OPTIONS} />
           </select>
         </Form>
       ) : null}

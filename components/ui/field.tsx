@@ -129,11 +129,7 @@ export function SelectField({
     <Field name={name} label={label} hint={hint}>
       <select className={inputClass} defaultValue={defaultValue}>
         {placeholder !== undefined ? <option value="">{placeholder}</option> : null}
-        {options.map((o) => (
-          <option key={o.value} value={o.value}>
-            {o.label}
-          </option>
-        ))}
+        <OptionList options={options} />
       </select>
     </Field>
   );
@@ -142,3 +138,18 @@ export function SelectField({
 /** Options from `{ id, label }` rows, as the register lists give them. */
 export const optionsOf = (rows: ReadonlyArray<{ id: string; label: string }>): Option[] =>
   rows.map((r) => ({ value: r.id, label: r.label }));
+
+/** A closed set's values as options, each with its label from the set's labels map (lib/domain). */
+export const closedSetOptions = <K extends string>(
+  values: readonly K[],
+  labels: Record<K, string>,
+): Option[] => values.map((v) => ({ value: v, label: labels[v] }));
+
+/** The <option> elements of a select, in the order given. */
+export function OptionList({ options }: { options: readonly Option[] }) {
+  return options.map((o) => (
+    <option key={o.value} value={o.value}>
+      {o.label}
+    </option>
+  ));
+}

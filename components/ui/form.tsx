@@ -83,13 +83,40 @@ export function Form<T>({
     <FormProvider {...form}>
       <form onSubmit={onSubmit} aria-label={ariaLabel} className={`space-y-4 ${className}`} noValidate>
         {children}
-        <div className="flex flex-wrap items-center gap-3">
-          <Button type="submit" variant={variant} pending={pending} className={submitClassName}>
-            {submitLabel}
-          </Button>
-          {notice ? <ActionNotice ok={notice.ok}>{notice.message}</ActionNotice> : null}
-        </div>
+        <SubmitRow
+          label={submitLabel}
+          pending={pending}
+          notice={notice}
+          variant={variant}
+          buttonClassName={submitClassName}
+        />
       </form>
     </FormProvider>
+  );
+}
+
+/** A form's footer: the submit button ("Saving…" while pending) and the action's notice beside it. */
+export function SubmitRow({
+  label,
+  pending,
+  notice,
+  variant = "primary",
+  buttonClassName = "",
+  className = "",
+}: {
+  label: string;
+  pending: boolean;
+  notice: Notice | null;
+  variant?: ButtonVariant;
+  buttonClassName?: string;
+  className?: string;
+}) {
+  return (
+    <div className={`flex flex-wrap items-center gap-3 ${className}`}>
+      <Button type="submit" variant={variant} pending={pending} className={buttonClassName}>
+        {label}
+      </Button>
+      {notice ? <ActionNotice ok={notice.ok}>{notice.message}</ActionNotice> : null}
+    </div>
   );
 }
