@@ -45,3 +45,36 @@ export function ValueWithUnit({
     </div>
   );
 }
+
+/** The instrument a reading is taken with, from the register; one past its calibration date cannot be chosen. */
+export function InstrumentSelect({
+  id,
+  instruments,
+  today,
+  input,
+}: {
+  id: string;
+  instruments: ReadonlyArray<{ id: string; serial: string; kind: string; calibrationDueOn: string }>;
+  today: string;
+  input: React.ComponentProps<"select">;
+}) {
+  return (
+    <div>
+      <label htmlFor={id} className={labelCls}>
+        Instrument
+      </label>
+      <select id={id} className={inputCls} {...input}>
+        <option value="">Choose from the register…</option>
+        {instruments.map((i) => {
+          const pastDue = i.calibrationDueOn < today;
+          return (
+            <option key={i.id} value={i.id} disabled={pastDue}>
+              {i.serial} · {i.kind} ·{" "}
+              {pastDue ? `calibration past due since ${i.calibrationDueOn}` : `due ${i.calibrationDueOn}`}
+            </option>
+          );
+        })}
+      </select>
+    </div>
+  );
+}

@@ -1,14 +1,15 @@
 "use client";
 
 import type { UseFormReturn } from "react-hook-form";
-import { DecisionBadge } from "@/components/readings/decision-badge";
+import type { EntryValues } from "@/lib/reading-entry";
+import { LiveResult } from "@/components/checklist/live-result";
 import { PHASE_LABELS, type CorrectionTarget } from "@/components/checklist/readings-table";
 import type { StepDecision } from "@/lib/checklist";
-import { arcsecToUmPerM, formatValue, UNIT_SYMBOL, type EntryUnit, type UnitSystem } from "@/lib/units";
+import { UNIT_SYMBOL, type EntryUnit, type UnitSystem } from "@/lib/units";
 import type { PanelStep } from "@/components/checklist/step-panel";
 import { NoteInput, PointGrid, RecordInputs, YesNo } from "@/components/checklist/kind-inputs";
-import { inputCls, labelCls, ValueWithUnit } from "@/components/checklist/entry-fields";
-import { MULTI_POINT_SHORT, needsInstrument } from "@/lib/step-kinds";
+import { InstrumentSelect, inputCls, labelCls, ValueWithUnit } from "@/components/checklist/entry-fields";
+import { needsInstrument } from "@/lib/step-kinds";
 
 export interface PanelInstrument {
   id: string;
@@ -24,20 +25,7 @@ export interface PanelInstrument {
   rangeMax: number | null;
 }
 
-export interface EntryValues {
-  phase: "pre" | "post";
-  value: string;
-  /** check steps: "yes" or "no" ("" until answered). */
-  answer: "" | "yes" | "no";
-  /** multi_point steps: the reading at each point, in the procedure's order. */
-  pointValues: string[];
-  /** note steps: the note; record steps: where the value applies. */
-  text: string;
-  travel: string;
-  instrumentId: string;
-  note: string;
-  takenAt: string;
-}
+export type { EntryValues } from "@/lib/reading-entry";
 
 /** The entry form of one step: phase, value with its checks as you type, instrument, time, note. */
 export function EntryForm({
@@ -156,25 +144,12 @@ export function EntryForm({
           />
         ) : null}
         {needsInstrument(kind) ? (
-          <div>
-            <label htmlFor={id("instrument")} className={labelCls}>
-              Instrument
-            </label>
-            <select id={id("instrument")} className={inputCls} {...register("instrumentId")}>
-              <option value="">Choose from the register…</option>
-              {instruments.map((i) => {
-                const pastDue = i.calibrationDueOn < today;
-                return (
-                  <option key={i.id} value={i.id} disabled={pastDue}>
-                    {i.serial} · {i.kind} ·{" "}
-                    {pastDue
-                      ? `calibration past due since ${i.calibrationDueOn}`
-                      : `due ${i.calibrationDueOn}`}
-                  </option>
-                );
-              })}
-            </select>
-          </div>
+          <InstrumentSelect
+            id={id("instrument")}
+            instruments={instruments}
+            today={today}
+            input={register("instrumentId")}
+          />
         ) : null}
         <div>
           <label htmlFor={id("taken")} className={labelCls}>
@@ -197,45 +172,14 @@ export function EntryForm({
         </div>
       </div>
       <div className="flex flex-wrap items-center gap-4">
-        <div
+        <LiveResult
           id={id("live")}
-          aria-live="polite"
-          className="flex min-h-touch flex-1 flex-wrap items-center gap-3"
-          data-testid={`live-${step.position}`}
-        >
-          {live?.error ? (
-            <span className="text-sm text-fail-700">{live.error}</span>
-          ) : live ? (
-            <>
-              <DecisionBadge decision={live.decision} size="lg" />
-              {kind === "multi_point" ? (
-                <span className="num text-graphite-700">
-                  {MULTI_POINT_SHORT[step.pointResult ?? "tir"]} ={" "}
-                  {formatValue(live.value, step.quantityKind, unitSystem)}
-                </span>
-              ) : null}
-              {isAngleFromReading ? (
-                <span className="num text-graphite-700">
-                  = {formatValue(live.value, "angle", unitSystem)} ({arcsecToUmPerM(live.value).toFixed(1)}{" "}
-                  µm/m)
-                </span>
-              ) : null}
-              {blocked ? <span className="text-sm text-graphite-600">{blocked}</span> : null}
-            </>
-          ) : (
-            <span className="text-sm text-graphite-500">
-              {blocked && (String(value).trim() || kind === "multi_point")
-                ? blocked
-                : kind === "check"
-                  ? "Answer yes or no."
-                  : kind === "note"
-                    ? "Write the note."
-                    : kind === "record"
-                      ? "Kept for the record; not judged."
-                      : "Enter a value to see pass or fail against the limits."}
-            </span>
-          )}
-        </div>
+          step={step}
+          live={live}
+          blocked={blocked}
+          typed={Boolean(String(value).trim())}
+          unitSystem={unitSystem}
+        />
         <button
           type="submit"
           disabled={pending || Boolean(blocked)}

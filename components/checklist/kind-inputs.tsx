@@ -1,7 +1,7 @@
 "use client";
 
 import type { UseFormReturn } from "react-hook-form";
-import type { EntryValues } from "@/components/checklist/entry-form";
+import type { EntryValues } from "@/lib/reading-entry";
 import type { PanelStep } from "@/components/checklist/step-panel";
 import { UNIT_SYMBOL, type EntryUnit } from "@/lib/units";
 import { inputCls, labelCls, ValueWithUnit } from "@/components/checklist/entry-fields";

@@ -1,27 +1,28 @@
 "use client";
 
 import { useMemo, useState } from "react";
-import { useForm, useWatch } from "react-hook-form";
-import { EntryForm, type EntryValues, type PanelInstrument } from "@/components/checklist/entry-form";
+import { useForm } from "react-hook-form";
+import { EntryForm, type PanelInstrument } from "@/components/checklist/entry-form";
 import {
   ReadingsTable,
   type CorrectionTarget,
   type PanelReading,
 } from "@/components/checklist/readings-table";
 import { StepPhotos, type PanelPhoto } from "@/components/checklist/step-photos";
+import { useEntryChecks } from "@/components/checklist/use-entry-checks";
 import { useReadingQueue } from "@/components/readings/queue-provider";
+import { DECISION_LABELS, type StepDecision } from "@/lib/checklist";
 import {
-  DECISION_LABELS,
-  entryProblem,
-  expandedUncertainty,
-  judge,
-  resolutionDecimals,
-  type StepDecision,
-} from "@/lib/checklist";
-import { needsInstrument, rangeProblem, shownValue, stepEntry, type KindStep } from "@/lib/step-kinds";
+  clearedEntry,
+  entryFromQueued,
+  localNow,
+  readingRequestBody,
+  type EntryValues,
+} from "@/lib/reading-entry";
+import { needsInstrument, shownValue, type KindStep } from "@/lib/step-kinds";
 import type { QueuedReading } from "@/lib/readings-queue";
 import { newClientId } from "@/lib/readings-sync";
-import { displayUnit, fromCanonical, type UnitSystem } from "@/lib/units";
+import { displayUnit, type UnitSystem } from "@/lib/units";
 
 export type { PanelInstrument } from "@/components/checklist/entry-form";
 export type { PanelReading } from "@/components/checklist/readings-table";
@@ -32,21 +33,6 @@ export interface PanelStep extends KindStep {
   position: number;
   title: string;
   quantity: string;
-}
-
-/** This tablet's time now as "YYYY-MM-DD HH:MM" (24-hour), the one format the app writes times in. */
-function localNow(): string {
-  const d = new Date();
-  d.setMinutes(d.getMinutes() - d.getTimezoneOffset());
-  return d.toISOString().slice(0, 16).replace("T", " ");
-}
-
-/** "YYYY-MM-DD HH:MM" in this tablet's zone → the instant, or null when it is not such a time. */
-function parseLocal(text: string): Date | null {
-  const t = text.trim();
-  if (!/^\d{4}-\d{2}-\d{2}[ T]\d{2}:\d{2}$/.test(t)) return null;
-  const d = new Date(t.replace(" ", "T"));
-  return Number.isNaN(d.getTime()) ? null : d;
 }
 
 /**
@@ -110,68 +96,14 @@ export function StepPanel({
       takenAt: localNow(),
     },
   });
-  const [value, travel, instrumentId, takenAtText, answer, pointValues, text] = useWatch({
-    control: form.control,
-    name: ["value", "travel", "instrumentId", "takenAt", "answer", "pointValues", "text"],
+  const { instrument, pointsTyped, pointProblems, problem, outcome, live, blocked } = useEntryChecks({
+    form,
+    step,
+    instruments: choosable,
+    withInstrument,
+    entryUnit,
+    travelUnit,
   });
-  const takenAt = parseLocal(takenAtText);
-  const instrument = withInstrument ? choosable.find((i) => i.id === instrumentId) : undefined;
-  const pointsTyped = useMemo(
-    () => Object.fromEntries(pointNames.map((p, i) => [p, String(pointValues?.[i] ?? "")])),
-    [pointNames, pointValues],
-  );
-
-  // What is wrong as it is typed: not a number, or finer than the instrument reads.
-  const decimals = instrument
-    ? resolutionDecimals(fromCanonical(instrument.resolution, entryUnit))
-    : Infinity;
-  const pointProblems = useMemo(() => {
-    const out: Record<string, string> = {};
-    if (kind !== "multi_point") return out;
-    for (const p of pointNames) {
-      const m = entryProblem(pointsTyped[p] ?? "", decimals, instrument?.serial);
-      if (m) out[p] = m;
-    }
-    return out;
-  }, [kind, pointNames, pointsTyped, decimals, instrument]);
-  const problem = useMemo(() => {
-    if (kind === "check" || kind === "note") return null;
-    if (kind === "multi_point") {
-      const first = pointNames.find((p) => pointProblems[p]);
-      return first ? `At ${first}: ${pointProblems[first]}` : null;
-    }
-    return entryProblem(String(value), kind === "record" ? Infinity : decimals, instrument?.serial);
-  }, [kind, pointNames, pointProblems, value, decimals, instrument]);
-
-  // The same per-kind check the server makes, so what the tablet accepts the server stores.
-  const outcome = useMemo(() => {
-    const t = Number(String(travel).trim().replace(",", "."));
-    const travelMm =
-      isAngleFromReading && Number.isFinite(t) && t > 0 ? (travelUnit === "in" ? t * 25.4 : t) : null;
-    return stepEntry(step, { value, unit: entryUnit, travelMm, answer, points: pointsTyped, text });
-  }, [step, value, entryUnit, travel, isAngleFromReading, travelUnit, answer, pointsTyped, text]);
-
-  const outside =
-    outcome.ok && instrument
-      ? rangeProblem(
-          instrument,
-          outcome.stored.instrumentReadings,
-          kind === "multi_point" ? pointNames : null,
-        )
-      : null;
-  const live = useMemo(() => {
-    if (problem || !outcome.ok) return null;
-    const U = expandedUncertainty(step, instrument?.standardUncertainty);
-    const v = outcome.stored.value;
-    return { value: v, decision: judge(step, v, U), error: null as string | null };
-  }, [problem, outcome, step, instrument]);
-
-  const blocked =
-    withInstrument && !instrument
-      ? "Choose the instrument used."
-      : !takenAt
-        ? "Write the time taken as YYYY-MM-DD HH:MM (24-hour)."
-        : (problem ?? outside?.message ?? (outcome.ok ? null : outcome.problems[0]!.message));
 
   const onSubmit = form.handleSubmit(async (f) => {
     if (blocked || pending) return;
@@ -180,25 +112,23 @@ export function StepPanel({
     setPending(true);
     const clientId = newClientId();
     const phase = correcting ? correcting.phase : f.phase;
-    const body = {
+    const body = readingRequestBody({
       stepId: step.id,
+      kind,
+      values: f,
       phase,
       unit: entryUnit,
-      ...(kind === "check" ? { answer: f.answer } : {}),
-      ...(kind === "note" || kind === "record" ? { text: f.text } : {}),
-      ...(kind === "multi_point" ? { points: pointsTyped } : {}),
-      ...(kind !== "check" && kind !== "note" && kind !== "multi_point"
-        ? { value: f.value.trim().replace(",", ".") }
-        : {}),
-      ...(isAngleFromReading ? { travel: f.travel, travelUnit } : {}),
-      ...(withInstrument ? { instrumentId: f.instrumentId } : {}),
-      note: f.note,
-      takenAt: (parseLocal(f.takenAt) ?? new Date()).toISOString(),
+      travelUnit,
+      points: pointsTyped,
+      withInstrument,
       clientId,
-      deviceTime: new Date().toISOString(),
-      ...(correcting?.kind === "stored" ? { supersedesId: correcting.id } : {}),
-      ...(correcting?.kind === "queued" ? { supersedesClientId: correcting.clientId } : {}),
-    };
+      supersedes:
+        correcting?.kind === "stored"
+          ? { id: correcting.id }
+          : correcting?.kind === "queued"
+            ? { clientId: correcting.clientId }
+            : null,
+    });
     const shown = {
       value: outcome.ok ? shownValue(step, outcome.stored, unitSystem) : "",
       instrument: instrument?.serial ?? "—",
@@ -223,31 +153,11 @@ export function StepPanel({
     );
     setCorrecting(null);
     setReplacing(null);
-    form.reset({
-      ...f,
-      value: "",
-      answer: "",
-      text: "",
-      pointValues: pointNames.map(() => ""),
-      note: "",
-      takenAt: localNow(),
-    });
+    form.reset(clearedEntry(f, pointNames));
   });
 
   const edit = (q: QueuedReading) => {
-    const b = q.body as Record<string, string>;
-    const pts = (q.body.points ?? {}) as Record<string, string>;
-    form.reset({
-      phase: q.body.phase,
-      value: b.value ?? "",
-      answer: b.answer === "yes" || b.answer === "no" ? b.answer : "",
-      text: b.text ?? "",
-      pointValues: pointNames.map((p) => String(pts[p] ?? "")),
-      travel: b.travel ?? form.getValues("travel"),
-      instrumentId: b.instrumentId ?? "",
-      note: b.note ?? "",
-      takenAt: localNow(),
-    });
+    form.reset(entryFromQueued(q.body, pointNames, form.getValues("travel")));
     setReplacing(q.clientId);
     setCorrecting(null);
     setRefusal(q.reason);

@@ -4,6 +4,14 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { cautionOf, entryProblem, resolutionDecimals } from "@/lib/checklist";
 import { formatDateTime, formatDateTimeUtc } from "@/lib/format";
+import {
+  clearedEntry,
+  entryFromQueued,
+  localNow,
+  parseLocal,
+  readingRequestBody,
+  type EntryValues,
+} from "@/lib/reading-entry";
 import { backoffMs, classifyAnswer, newClientId } from "@/lib/readings-sync";
 import { fromCanonical } from "@/lib/units";
 
@@ -87,5 +95,97 @@ describe("safety notes", () => {
     expect(cautionOf("The spindle rotates and chips fly").severe).toBe(true);
     expect(cautionOf("Lock out and tag out the machine").severe).toBe(false);
     expect(cautionOf("Axes move under power while you indicate").severe).toBe(false);
+  });
+});
+
+describe("the reading a save sends, and the form around it", () => {
+  const values: EntryValues = {
+    phase: "pre",
+    value: " 0,0125 ",
+    answer: "yes",
+    pointValues: ["1", "2"],
+    text: "torque wrench",
+    travel: "150",
+    instrumentId: "i-1",
+    note: "after shimming",
+    takenAt: "2026-12-04 09:30",
+  };
+  const base = {
+    stepId: "s-1",
+    values,
+    phase: "post" as const,
+    unit: "mm",
+    travelUnit: "mm" as const,
+    points: { "12": "1", "6": "2" },
+    withInstrument: true,
+    clientId: "c-1",
+    supersedes: null,
+    now: new Date("2026-12-04T10:00:00Z"),
+  };
+
+  it("sends only the fields the step's kind reads", () => {
+    const direct = readingRequestBody({ ...base, kind: "direct" });
+    expect(direct).toMatchObject({ stepId: "s-1", phase: "post", value: "0.0125", instrumentId: "i-1" });
+    expect(direct).not.toHaveProperty("answer");
+    expect(direct).not.toHaveProperty("travel");
+    const check = readingRequestBody({ ...base, kind: "check", withInstrument: false });
+    expect(check).toMatchObject({ answer: "yes" });
+    expect(check).not.toHaveProperty("value");
+    expect(check).not.toHaveProperty("instrumentId");
+    expect(readingRequestBody({ ...base, kind: "multi_point" })).toMatchObject({ points: base.points });
+    expect(readingRequestBody({ ...base, kind: "multi_point" })).not.toHaveProperty("value");
+    expect(readingRequestBody({ ...base, kind: "angle_over_distance" })).toMatchObject({
+      value: "0.0125",
+      travel: "150",
+      travelUnit: "mm",
+    });
+    expect(readingRequestBody({ ...base, kind: "record" })).toMatchObject({
+      text: "torque wrench",
+      value: "0.0125",
+    });
+    expect(readingRequestBody({ ...base, kind: "note" })).not.toHaveProperty("value");
+  });
+
+  it("names the reading it replaces, stored or still queued, and the times", () => {
+    expect(readingRequestBody({ ...base, kind: "direct", supersedes: { id: "r-9" } })).toMatchObject({
+      supersedesId: "r-9",
+    });
+    const queued = readingRequestBody({ ...base, kind: "direct", supersedes: { clientId: "c-0" } });
+    expect(queued).toMatchObject({ supersedesClientId: "c-0" });
+    expect(queued).not.toHaveProperty("supersedesId");
+    expect(queued.deviceTime).toBe("2026-12-04T10:00:00.000Z");
+    expect(queued.takenAt).toBe(parseLocal("2026-12-04 09:30")!.toISOString());
+  });
+
+  it("reads only whole YYYY-MM-DD HH:MM times, and writes the tablet's time in that form", () => {
+    expect(parseLocal("2026-12-04 09:30")).toBeInstanceOf(Date);
+    expect(parseLocal("2026-12-04T09:30")).toBeInstanceOf(Date);
+    expect(parseLocal("4.12.2026 09:30")).toBeNull();
+    expect(parseLocal("2026-13-40 09:30")).toBeNull();
+    expect(localNow()).toMatch(/^\d{4}-\d{2}-\d{2} \d{2}:\d{2}$/);
+    expect(parseLocal(localNow(new Date("2026-12-04T10:00:00Z")))!.toISOString()).toBe(
+      "2026-12-04T10:00:00.000Z",
+    );
+  });
+
+  it("clears what was read after a save and keeps the phase, travel and instrument", () => {
+    const next = clearedEntry(values, ["12", "6"]);
+    expect(next).toMatchObject({ phase: "pre", travel: "150", instrumentId: "i-1" });
+    expect(next).toMatchObject({ value: "", answer: "", text: "", note: "", pointValues: ["", ""] });
+  });
+
+  it("fills the form from a queued reading, its points in the step's order", () => {
+    const back = entryFromQueued(
+      { stepId: "s-1", phase: "post", points: { "6": "2", "12": "1" }, answer: "maybe", note: "n" },
+      ["12", "6"],
+      "150",
+    );
+    expect(back).toMatchObject({
+      phase: "post",
+      pointValues: ["1", "2"],
+      answer: "",
+      travel: "150",
+      note: "n",
+    });
   });
 });
