@@ -4,7 +4,6 @@
  * coloured by residual, and optionally the other fit of a pre/post pair. Geometry comes from
  * geometry/head-scene.ts; this file only draws. Z up, lengths in mm.
  */
-import { drawing } from "@/lib/domain/theme";
 import { Html, Line, OrbitControls } from "@react-three/drei";
 import { useThree } from "@react-three/fiber";
 import { useEffect, useLayoutEffect, useMemo, useRef, type RefObject } from "react";
@@ -17,6 +16,7 @@ import {
   type SceneLine,
 } from "@/geometry/head-scene";
 import type { HeadConfig } from "@/geometry";
+import { HeadModel } from "./head-model";
 import { FITTED, NOMINAL, OTHER } from "./palette";
 
 /** Lights, head, axes, paths, measured points, the other fit when asked, and the orbit controls. */
@@ -53,47 +53,6 @@ export function HeadScene({
         enableDamping={false}
       />
     </>
-  );
-}
-
-/** A simplified head at zero: collar, body, tilt-axis housing, spindle and tool (translucent, so the axes show). */
-function HeadModel({ L }: { L: number }) {
-  const body = {
-    color: drawing.faint,
-    transparent: true,
-    opacity: 0.28,
-    roughness: 0.7,
-    metalness: 0.1,
-    depthWrite: false,
-  };
-  return (
-    <group>
-      {/* Cylinders are along +Y by default; rotate to Z (primary) or X (tilt axis). */}
-      <mesh position={[0, 0, 1.26 * L]} rotation={[Math.PI / 2, 0, 0]}>
-        <cylinderGeometry args={[0.6 * L, 0.6 * L, 0.12 * L, 48]} />
-        <meshStandardMaterial {...body} color={drawing.zeroLine} opacity={0.35} />
-      </mesh>
-      <mesh position={[0, 0, 0.78 * L]} rotation={[Math.PI / 2, 0, 0]}>
-        <cylinderGeometry args={[0.42 * L, 0.46 * L, 0.84 * L, 48]} />
-        <meshStandardMaterial {...body} />
-      </mesh>
-      <mesh rotation={[0, 0, Math.PI / 2]}>
-        <cylinderGeometry args={[0.3 * L, 0.3 * L, 0.84 * L, 40]} />
-        <meshStandardMaterial {...body} />
-      </mesh>
-      <mesh position={[0, 0, -0.36 * L]} rotation={[Math.PI / 2, 0, 0]}>
-        <cylinderGeometry args={[0.16 * L, 0.19 * L, 0.72 * L, 32]} />
-        <meshStandardMaterial {...body} opacity={0.4} />
-      </mesh>
-      <mesh position={[0, 0, -0.86 * L]} rotation={[Math.PI / 2, 0, 0]}>
-        <cylinderGeometry args={[0.045 * L, 0.045 * L, 0.28 * L, 20]} />
-        <meshStandardMaterial color={drawing.axisText} roughness={0.4} metalness={0.5} />
-      </mesh>
-      <mesh position={[0, 0, -L]}>
-        <sphereGeometry args={[0.035 * L, 20, 14]} />
-        <meshStandardMaterial color={drawing.labelText} />
-      </mesh>
-    </group>
   );
 }
 
