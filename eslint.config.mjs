@@ -58,6 +58,8 @@ export default tseslint.config(
   {
     files: ["components/**/*.{ts,tsx}"],
     rules: {
+      // A component longer than this does more than one job: split it along its seams.
+      "max-lines": ["error", { max: 250 }],
       "no-restricted-imports": [
         "error",
         {

@@ -51,6 +51,14 @@ describe("lint rules that guard the architecture", { timeout: 60_000 }, () => {
     ).toEqual([]);
   });
 
+  it("no component file runs past 250 lines", async () => {
+    const long = (lines: number) =>
+      Array.from({ length: lines }, (_, i) => `export const line${i} = ${i};`).join("\n") + "\n";
+    expect(await rulesHit("components/ui/planted.tsx", long(251))).toContain("max-lines");
+    expect(await rulesHit("components/ui/planted.tsx", long(250))).not.toContain("max-lines");
+    expect(await rulesHit("lib/planted.ts", long(251))).not.toContain("max-lines");
+  });
+
   it("settings are read only in lib/env.ts", async () => {
     const code = `export const from = process.env.MAIL_FROM;\n`;
     expect(await rulesHit("lib/mail/planted.ts", code)).toContain("no-restricted-properties");
