@@ -59,7 +59,6 @@ export function ParameterTrend({
         caption="Charted parameter values"
         empty="Nothing charted."
         data={series}
-        getRowId={(s) => s.key}
         columns={[
           {
             id: "parameter",

@@ -9,7 +9,6 @@ export function ControlValuesLoopTable({ rows }: { rows: readonly ControlRow[] }
       empty="No control values."
       bare
       data={rows}
-      getRowId={(r) => r.key}
       columns={(column) => [
         column("Setting", (r) => r.label, { rowHeader: true, className: "font-medium" }),
         column("As found", (r) => r.asFoundText, { numeric: true }),

@@ -11,7 +11,6 @@ export function DatasetTable({ jobId, rows }: { jobId: string; rows: readonly Da
       caption="Datasets of this job"
       empty="No measurement data has been added to this job yet."
       data={rows}
-      getRowId={(d) => d.id}
       rowProps={(d) => ({ className: d.status === "deleted" ? "text-graphite-500" : "" })}
       columns={(column) => [
         column("Data", (d) => (

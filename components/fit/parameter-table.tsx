@@ -23,7 +23,6 @@ export function ParameterTable({
         empty="The fit gave no parameters."
         bare
         data={rows}
-        getRowId={(p) => p.key}
         rowProps={(p) => ({ "data-key": p.key, "data-decision": p.decision, className: "align-top" })}
         columns={(column) => [
           column("Symbol", (p) => p.iso, { className: "num font-semibold" }),

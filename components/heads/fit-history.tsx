@@ -54,7 +54,6 @@ export function FitHistory({ history }: { history: { readonly jobs: readonly Hea
             tableClassName="min-w-[40rem]"
             tableProps={{ "data-testid": "head-history" }}
             data={[...HEAD_PARAMETER_KEYS.map((key) => ({ key })), { key: "rms" as const }]}
-            getRowId={(r) => r.key}
             rowProps={(r) => (r.key === "rms" ? {} : { "data-key": r.key })}
             columns={[
               {

@@ -31,7 +31,6 @@ export function JobsTable({
       caption="Jobs"
       empty="No jobs match. Clear the filter to see every job you may open."
       data={rows}
-      getRowId={(r) => r.id}
       sorting={[{ id: sort.sort, desc: sort.dir === "desc" }]}
       sortHref={sortHref}
       tableClassName="min-w-[48rem] max-[900px]:min-w-0"

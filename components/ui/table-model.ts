@@ -77,6 +77,7 @@ export interface TableProps<T> {
   empty: React.ReactNode;
   /** "cards" (default): one card per row below 900 px. "scroll": stays a table and scrolls sideways. */
   layout?: "cards" | "scroll";
+  /** A row's React key and TanStack id; by default its `id`, else its `key`, else its index. */
   getRowId?: (row: T) => string;
   rowProps?: (
     row: T,
@@ -95,6 +96,14 @@ export interface TableProps<T> {
   bare?: boolean;
 }
 
+/** A row's own identity when it carries one (`id`, else `key`), so the rows keep their keys when sorted. */
+export function defaultRowId(row: unknown, index: number): string {
+  const r = row as { id?: unknown; key?: unknown };
+  if (typeof r.id === "string" || typeof r.id === "number") return String(r.id);
+  if (typeof r.key === "string" || typeof r.key === "number") return String(r.key);
+  return String(index);
+}
+
 /** Builds the TanStack table without React state, so it works in server and client components alike. */
 export function buildTable<T>(
   props: Pick<TableProps<T>, "data" | "columns" | "getRowId" | "sorting" | "onSortingChange" | "sortHref">,
@@ -108,7 +117,7 @@ export function buildTable<T>(
     manualSorting: Boolean(props.sortHref),
     enableSorting: Boolean(props.sortHref || props.onSortingChange),
     enableSortingRemoval: false,
-    ...(props.getRowId ? { getRowId: (row: T) => props.getRowId!(row) } : {}),
+    getRowId: props.getRowId ? (row: T) => props.getRowId!(row) : defaultRowId,
     state: {},
     onStateChange: () => {},
     onSortingChange: (updater) =>

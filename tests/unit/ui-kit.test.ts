@@ -31,6 +31,17 @@ describe("Table", () => {
   it("keeps the data's order when nothing is sorted", () => {
     expect(order([])).toEqual(["a", "b", "c"]);
   });
+  it("keys each row by its own id, else its key, else its place, and by getRowId when given", () => {
+    const ids = <T>(data: readonly T[], getRowId?: (r: T) => string) =>
+      buildTable<T>({ data, columns: [], getRowId })
+        .getRowModel()
+        .rows.map((r) => r.id);
+    expect(ids(rows)).toEqual(["a", "b", "c"]);
+    expect(ids([{ key: "pivot" }, { key: "offset" }])).toEqual(["pivot", "offset"]);
+    expect(ids([{ id: 7, key: "k" }])).toEqual(["7"]);
+    expect(ids([{ label: "x" }, { label: "y" }])).toEqual(["0", "1"]);
+    expect(ids(rows, (r: Row) => r.ref)).toEqual(["TR-2026-0052", "TR-2026-0041", "TR-2026-0057"]);
+  });
   it("sorts text both ways", () => {
     expect(order([{ id: "ref", desc: false }])).toEqual(["b", "a", "c"]);
     expect(order([{ id: "ref", desc: true }])).toEqual(["c", "a", "b"]);

@@ -76,7 +76,6 @@ export default async function ProceduresPage() {
             empty="This version has no steps."
             bare
             data={t.steps}
-            getRowId={(s) => s.id}
             columns={(column) => [
               column("Step", (s) => (
                 <>
@@ -112,7 +111,6 @@ export default async function ProceduresPage() {
                 const l = t.parameterLimits.find((x) => x.parameter === key);
                 return l ? [{ key, ...l }] : [];
               })}
-              getRowId={(l) => l.key}
               columns={(column) => [
                 column("Parameter", (l) => PARAMETER_WORDS[l.key]),
                 column(
@@ -143,7 +141,6 @@ export default async function ProceduresPage() {
                 empty={null}
                 bare
                 data={t.positioningLimits}
-                getRowId={(l) => l.id}
                 columns={(column) => [
                   column("Axis", (l) => HEAD_AXIS_ROLE_WORDS[l.axis]),
                   column(

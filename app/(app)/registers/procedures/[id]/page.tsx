@@ -86,7 +86,6 @@ export default async function ProcedurePage({ params }: { params: Promise<{ id: 
           empty="This version has no steps."
           bare
           data={steps}
-          getRowId={(s) => s.id}
           columns={(column) => [
             column("Step", (s) => (
               <>
