@@ -7,7 +7,7 @@
  */
 import { drawing, palette } from "@/lib/domain/theme";
 import { Circle, Line, Rect, Svg, Text, View } from "@react-pdf/renderer";
-import { niceTicks } from "@/lib/chart-ticks";
+import { residualsLayout } from "@/lib/report/residuals-layout";
 import { rowDomain, rowLimits, type LimitRow } from "./chart-data";
 import { pdfColours } from "./pdf-styles";
 import type { ReportCharts } from "./types";
@@ -127,27 +127,31 @@ export function LimitRowsChart({ rows, legend }: { rows: readonly LimitRow[]; le
 export function ResidualsChart({ residuals }: { residuals: NonNullable<ReportCharts["residuals"]> }) {
   const W = 515;
   const H = 110;
-  const m = { l: 26, r: 6, t: 6, b: 14 };
-  const n = residuals.valuesUm.length;
-  const limit = 3 * residuals.sUm;
-  const axis = niceTicks(0, Math.max(limit * 1.25, ...residuals.valuesUm) || 1);
-  const yMax = axis.max;
-  const ticks = axis.ticks;
-  const x = (i: number) => m.l + (i / Math.max(1, n)) * (W - m.l - m.r);
-  const y = (v: number) => H - m.b - (v / yMax) * (H - m.t - m.b);
-  const bw = Math.max(0.4, ((W - m.l - m.r) / Math.max(1, n)) * 0.7);
-  const over = residuals.valuesUm.filter((v) => v > limit).length;
+  const c = residualsLayout(residuals, {
+    width: W,
+    height: H,
+    margin: { l: 26, r: 6, t: 6, b: 14 },
+    minBar: { width: 0.4, height: 0.3 },
+  });
   return (
     <View>
       <Svg width={W} height={H} viewBox={`0 0 ${W} ${H}`}>
-        {ticks.map((t) => (
-          <Line key={`g${t}`} x1={m.l} x2={W - m.r} y1={y(t)} y2={y(t)} stroke={C.rule} strokeWidth={0.4} />
+        {c.ticks.map((t) => (
+          <Line
+            key={`g${t}`}
+            x1={c.left}
+            x2={c.right}
+            y1={c.y(t)}
+            y2={c.y(t)}
+            stroke={C.rule}
+            strokeWidth={0.4}
+          />
         ))}
-        {ticks.map((t) => (
+        {c.ticks.map((t) => (
           <Text
             key={`t${t}`}
-            x={m.l - 3}
-            y={y(t) + 2}
+            x={c.left - 3}
+            y={c.y(t) + 2}
             textAnchor="end"
             style={{ fontSize: 6 }}
             fill={C.muted}
@@ -155,36 +159,24 @@ export function ResidualsChart({ residuals }: { residuals: NonNullable<ReportCha
             {String(t)}
           </Text>
         ))}
-        {residuals.valuesUm.map((v, i) => (
-          <Rect
-            key={i}
-            x={x(i)}
-            y={y(v)}
-            width={bw}
-            height={Math.max(0.3, y(0) - y(v))}
-            fill={v > limit ? C.fail : C.before}
-          />
+        {c.bars.map((b, i) => (
+          <Rect key={i} x={b.x} y={b.y} width={b.width} height={b.height} fill={b.over ? C.fail : C.before} />
         ))}
         <Line
-          x1={m.l}
-          x2={W - m.r}
-          y1={y(limit)}
-          y2={y(limit)}
+          x1={c.left}
+          x2={c.right}
+          y1={c.limitY}
+          y2={c.limitY}
           stroke={C.accent}
           strokeWidth={0.9}
           strokeDasharray="3 2"
         />
-        <Line x1={m.l} x2={W - m.r} y1={y(0)} y2={y(0)} stroke={C.ink} strokeWidth={0.6} />
-        <Text x={W - m.r} y={y(limit) - 2} textAnchor="end" style={{ fontSize: 6 }} fill={C.accent}>
-          {`3 s = ${limit.toFixed(2)}`}
+        <Line x1={c.left} x2={c.right} y1={c.zeroY} y2={c.zeroY} stroke={C.ink} strokeWidth={0.6} />
+        <Text x={c.right} y={c.limitY - 2} textAnchor="end" style={{ fontSize: 6 }} fill={C.accent}>
+          {`3 s = ${c.limit.toFixed(2)}`}
         </Text>
       </Svg>
-      <Text style={{ fontSize: 7, color: C.muted, marginTop: 2 }}>
-        Largest residual component per pose in µm, {residuals.totalPoses} poses in file order
-        {residuals.perPoint > 1 ? ` (each bar the largest of ${residuals.perPoint} consecutive poses)` : ""};
-        dashed line: 3 s, beyond which a pose is reported as an outlier ({over} bar{over === 1 ? "" : "s"}{" "}
-        beyond it, drawn in red). s = {residuals.sUm.toFixed(2)} µm per coordinate.
-      </Text>
+      <Text style={{ fontSize: 7, color: C.muted, marginTop: 2 }}>{c.caption}</Text>
     </View>
   );
 }

@@ -2,6 +2,7 @@
 // charts there are, in which order, and which limit lines each row has. The limit wording is the
 // project's own; the interval arithmetic is checked by hand below.
 import { describe, expect, it } from "vitest";
+import { residualsLayout } from "@/lib/report/residuals-layout";
 import { reportCharts, rowDomain, rowLimits } from "@/lib/report/chart-data";
 
 const readings = [{ step: "1 Collar face", lower: -0.01, upper: 0.01, pre: 0.02, post: 0.004, unit: "mm" }];
@@ -50,5 +51,40 @@ describe("rowLimits", () => {
       const { from, to } = rowDomain(row);
       for (const v of rowLimits(row)) expect(v > from && v < to).toBe(true);
     }
+  });
+});
+
+describe("the residual chart's layout (page and PDF alike)", () => {
+  // s = 1 µm, so the 3 s line sits at 3 µm; the y axis runs from 0 to a nice value above 3.75 µm.
+  const series = { valuesUm: [0.5, 3.2, 1, 0], totalPoses: 8, sUm: 1, perPoint: 2 };
+  const box = {
+    width: 100,
+    height: 60,
+    margin: { l: 10, r: 10, t: 5, b: 5 },
+    minBar: { width: 1, height: 0.5 },
+  };
+  const c = residualsLayout(series, box);
+
+  it("draws one bar per value, flags and counts those above 3 s", () => {
+    expect(c.limit).toBe(3);
+    expect(c.bars.map((b) => b.over)).toEqual([false, true, false, false]);
+    expect(c.over).toBe(1);
+    expect(c.bars.map((b) => b.x)).toEqual([10, 30, 50, 70]);
+    expect(c.bars[0]!.width).toBeCloseTo(14, 12); // 80 px over 4 bars, 70 % filled
+  });
+
+  it("puts zero at the bottom of the plot and gives an empty bar its least height", () => {
+    expect(c.zeroY).toBe(55);
+    expect(c.ticks[0]).toBe(0);
+    expect(c.y(c.ticks.at(-1)!)).toBe(5);
+    expect(c.limitY).toBeLessThan(c.zeroY);
+    expect(c.bars[3]!.height).toBe(0.5);
+  });
+
+  it("says what the bars are, in one caption for both", () => {
+    expect(c.caption).toBe(
+      "Largest residual component per pose in µm, 8 poses in file order (each bar the largest of 2 consecutive poses); " +
+        "dashed line: 3 s, beyond which a pose is reported as an outlier (1 bar beyond it, drawn in red). s = 1.00 µm per coordinate.",
+    );
   });
 });
