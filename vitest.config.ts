@@ -39,6 +39,9 @@ export default defineConfig({
           fileParallelism: false,
           testTimeout: 60_000,
           hookTimeout: 60_000,
+          // A server action and the page's refresh take more than vitest's 1 s default on a busy
+          // two-core machine; a poll still fails, with its message, when the page never gets there.
+          expect: { poll: { timeout: 10_000 } },
         },
       },
       {
