@@ -1,9 +1,6 @@
 "use client";
 
-import { createInstrumentAction } from "@/app/(app)/registers/actions";
-import { FormFields } from "@/components/ui/form-fields";
-import { Form } from "@/components/ui/form";
-import { instrumentCreateSchema } from "@/lib/validations/registers";
+import { AddForm } from "@/components/registers/add-form";
 
 const QUANTITIES = [
   { value: "length", label: "Length" },
@@ -18,29 +15,23 @@ const UNITS = [
 
 export function InstrumentForm() {
   return (
-    <Form
-      action={createInstrumentAction}
-      schema={instrumentCreateSchema}
-      submitLabel="Add instrument"
-      successMessage="Instrument added to the register."
-    >
-      <FormFields
-        columns={4}
-        fields={[
-          { name: "kind", label: "Kind", placeholder: "Dial test indicator" },
-          { name: "serial", label: "Serial", numeric: true },
-          { name: "maker", label: "Maker" },
-          { name: "quantityKind", label: "Measures", options: QUANTITIES, defaultValue: "length" },
-          { name: "resolution", label: "Resolution", decimal: true },
-          { name: "standardUncertainty", label: "Standard uncertainty (k = 1)", decimal: true },
-          { name: "unit", label: "Unit of these numbers", options: UNITS, defaultValue: "mm" },
-          { name: "rangeMin", label: "Reads from (optional)", decimal: true },
-          { name: "rangeMax", label: "Reads to (optional)", decimal: true },
-          { name: "certificateRef", label: "Certificate" },
-          { name: "calibratedOn", label: "Calibrated on", type: "date" },
-          { name: "calibrationDueOn", label: "Calibration due", type: "date" },
-        ]}
-      />
-    </Form>
+    <AddForm
+      to="instrument"
+      columns={4}
+      fields={[
+        { name: "kind", label: "Kind", placeholder: "Dial test indicator" },
+        { name: "serial", label: "Serial", numeric: true },
+        { name: "maker", label: "Maker" },
+        { name: "quantityKind", label: "Measures", options: QUANTITIES, defaultValue: "length" },
+        { name: "resolution", label: "Resolution", decimal: true },
+        { name: "standardUncertainty", label: "Standard uncertainty (k = 1)", decimal: true },
+        { name: "unit", label: "Unit of these numbers", options: UNITS, defaultValue: "mm" },
+        { name: "rangeMin", label: "Reads from (optional)", decimal: true },
+        { name: "rangeMax", label: "Reads to (optional)", decimal: true },
+        { name: "certificateRef", label: "Certificate" },
+        { name: "calibratedOn", label: "Calibrated on", type: "date" },
+        { name: "calibrationDueOn", label: "Calibration due", type: "date" },
+      ]}
+    />
   );
 }

@@ -2,7 +2,7 @@
 
 import { inviteUserAction, updateUserAction } from "@/app/(app)/registers/actions";
 import { ROLE_LABELS, ROLES, type Role } from "@/lib/domain/roles";
-import { FormFields, HiddenFields } from "@/components/ui/form-fields";
+import { FieldsForm, HiddenFields } from "@/components/ui/form-fields";
 import { Form } from "@/components/ui/form";
 import { closedSetOptions, OptionList } from "@/components/ui/field";
 import { userInviteSchema, userUpdateSchema } from "@/lib/validations/registers";
@@ -12,27 +12,24 @@ const STAFF_ROLE_OPTIONS = ROLE_OPTIONS.filter((o) => o.value !== "customer");
 
 export function InviteForm({ customers }: { customers: ReadonlyArray<{ id: string; name: string }> }) {
   return (
-    <Form
+    <FieldsForm
       action={inviteUserAction}
       schema={userInviteSchema}
       submitLabel="Send invitation"
       successMessage="Invitation queued; the e-mail carries a one-time link to set a password."
-    >
-      <FormFields
-        columns={4}
-        fields={[
-          { name: "name", label: "Name" },
-          { name: "email", label: "E-mail", type: "email" },
-          { name: "role", label: "Role", options: ROLE_OPTIONS, defaultValue: "installer" },
-          {
-            name: "customerId",
-            label: "Company (customer users only)",
-            placeholder: "Service company (staff)",
-            options: customers.map((c) => ({ value: c.id, label: c.name })),
-          },
-        ]}
-      />
-    </Form>
+      columns={4}
+      fields={[
+        { name: "name", label: "Name" },
+        { name: "email", label: "E-mail", type: "email" },
+        { name: "role", label: "Role", options: ROLE_OPTIONS, defaultValue: "installer" },
+        {
+          name: "customerId",
+          label: "Company (customer users only)",
+          placeholder: "Service company (staff)",
+          options: customers.map((c) => ({ value: c.id, label: c.name })),
+        },
+      ]}
+    />
   );
 }
 

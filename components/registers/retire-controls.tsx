@@ -2,7 +2,7 @@
 
 import { recordCalibrationAction, retireRegisterRowAction } from "@/app/(app)/registers/actions";
 import { optionsOf } from "@/components/ui/field";
-import { FormFields, HiddenFields } from "@/components/ui/form-fields";
+import { FieldsForm, HiddenFields } from "@/components/ui/form-fields";
 import { Form } from "@/components/ui/form";
 import { calibrationFormSchema, retireFormSchema, RETIRABLE_REGISTERS } from "@/lib/validations/registers";
 
@@ -41,27 +41,24 @@ export function RetireButton({
 /** A recalibration as its certificate states it; the instrument's history keeps every one. */
 export function CalibrationForm({ instruments }: { instruments: { id: string; label: string }[] }) {
   return (
-    <Form
+    <FieldsForm
       action={recordCalibrationAction}
       schema={calibrationFormSchema}
       submitLabel="Record calibration"
       successMessage="Calibration recorded; the instrument is in use."
-    >
-      <FormFields
-        columns={5}
-        fields={[
-          {
-            name: "instrumentId",
-            label: "Instrument",
-            placeholder: "Choose…",
-            options: optionsOf(instruments),
-          },
-          { name: "calibratedOn", label: "Calibrated on", type: "date" },
-          { name: "dueOn", label: "Due on", type: "date" },
-          { name: "certificateRef", label: "Certificate number" },
-          { name: "laboratory", label: "Laboratory" },
-        ]}
-      />
-    </Form>
+      columns={5}
+      fields={[
+        {
+          name: "instrumentId",
+          label: "Instrument",
+          placeholder: "Choose…",
+          options: optionsOf(instruments),
+        },
+        { name: "calibratedOn", label: "Calibrated on", type: "date" },
+        { name: "dueOn", label: "Due on", type: "date" },
+        { name: "certificateRef", label: "Certificate number" },
+        { name: "laboratory", label: "Laboratory" },
+      ]}
+    />
   );
 }

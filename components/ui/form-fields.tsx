@@ -1,6 +1,7 @@
 "use client";
 
 import { Field, inputClass, SelectField, TextField, type Option } from "./field";
+import { Form, type FormProps } from "./form";
 
 /**
  * One field of a form, described rather than written out: a text input (optionally numeric, a
@@ -33,6 +34,19 @@ const GRID = {
   4: "grid gap-4 sm:grid-cols-2 lg:grid-cols-4",
   5: "grid gap-4 sm:grid-cols-2 lg:grid-cols-5",
 } as const;
+
+/** A form that is only a grid of described fields: the kit's Form around FormFields. */
+export function FieldsForm<T>({
+  fields,
+  columns,
+  ...form
+}: FormProps<T> & { fields: readonly FieldSpec[]; columns: keyof typeof GRID }) {
+  return (
+    <Form {...form}>
+      <FormFields fields={fields} columns={columns} />
+    </Form>
+  );
+}
 
 export function FormFields({
   fields,

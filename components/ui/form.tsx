@@ -11,6 +11,21 @@ import { INVALID_MESSAGE, mapActionErrors } from "./form-errors";
 
 type Notice = { ok: boolean; message: string };
 
+/** What every form of the kit takes besides its fields. */
+export type FormProps<T> = {
+  action: (raw: unknown) => Promise<ActionResult<T>>;
+  /** The action's own input schema; without one only the server checks. */
+  schema?: z.ZodType;
+  submitLabel: string;
+  successMessage?: string;
+  resetOnSuccess?: boolean;
+  variant?: ButtonVariant;
+  className?: string;
+  submitClassName?: string;
+  onSuccess?: (data: T) => void;
+  "aria-label"?: string;
+};
+
 /**
  * The one form pattern: react-hook-form checks the fields with the same zod schema the server
  * action parses, then the form's values go to the action as FormData. The server's field errors
@@ -29,20 +44,7 @@ export function Form<T>({
   submitClassName = "",
   onSuccess,
   "aria-label": ariaLabel,
-}: {
-  action: (raw: unknown) => Promise<ActionResult<T>>;
-  /** The action's own input schema; without one only the server checks. */
-  schema?: z.ZodType;
-  children: React.ReactNode;
-  submitLabel: string;
-  successMessage?: string;
-  resetOnSuccess?: boolean;
-  variant?: ButtonVariant;
-  className?: string;
-  submitClassName?: string;
-  onSuccess?: (data: T) => void;
-  "aria-label"?: string;
-}) {
+}: FormProps<T> & { children: React.ReactNode }) {
   const router = useRouter();
   const form = useForm<FieldValues>({
     resolver: schema ? (zodResolver(schema as never) as Resolver<FieldValues>) : undefined,
