@@ -2,6 +2,7 @@ import { DecisionText, ReportTable, Rows, Section } from "@/components/report/re
 import { ConformityStatement } from "@/components/report/conformity-statement";
 import { BudgetReportSection } from "@/components/report/budget-section";
 import { ControlValuesReportSection } from "@/components/report/control-values-section";
+import { PhotoAppendixSection } from "@/components/report/photo-appendix";
 import { PositioningReportSection } from "@/components/report/positioning-section";
 import { ReportFigures } from "@/components/report/report-charts";
 import { reportFacts } from "@/lib/report/build";
@@ -168,6 +169,7 @@ export function ReportView({ data }: { data: ReportData }) {
           ))}
         </ul>
       </Section>
+      <PhotoAppendixSection rows={data.photos} />
       <Section n={10} title="Signatures">
         <ul className="grid gap-3 md:grid-cols-2">
           {data.signatures.map((g, i) => (

@@ -1,6 +1,10 @@
 // The report's appendix of photos: only steps that ask for a photo, in step order, times in UTC;
-// rendered into the PDF (read back with poppler's pdftotext, an independent reader).
+// rendered into the PDF (read back with poppler's pdftotext, an independent reader) and listed
+// the same way on the report page.
+import { createElement } from "react";
+import { renderToString } from "react-dom/server";
 import { describe, expect, it } from "vitest";
+import { ReportView } from "@/components/report/report-view";
 import { renderReportPdf } from "@/lib/report/render";
 import { photoAppendixRows } from "@/lib/report/sections/photos";
 import { samplePng, samplePngSha256, sampleReport } from "../fixtures/report/sample-report";
@@ -52,4 +56,26 @@ describe("photo appendix", () => {
     expect(text).toContain("Step 2 Collar, before adjustment");
     expect(text.replace(/\s+/g, "")).toContain(`SHA-256${sha}`);
   }, 30_000);
+
+  it("is listed on the report page as in the PDF, and left out when there is no photo", () => {
+    const sha = "4e".repeat(32);
+    // React's server HTML marks text joins with empty comments; a reader sees the text without them.
+    const page = renderToString(
+      createElement(ReportView, {
+        data: {
+          ...sampleReport,
+          photos: photoAppendixRows(steps, [photo("b", "2026-12-04T09:10:00Z", sha)]),
+        },
+      }),
+    ).replaceAll("<!-- -->", "");
+    expect(page).toContain("Appendix: photos kept with the record");
+    expect(page).toContain(
+      "Step 4 Shims, before adjustment, 2026-12-04 09:10 UTC, by Iver Sandvik, 800 × 600 px",
+    );
+    expect(page).toContain(`SHA-256 ${sha}`);
+    // Before the signatures, as in the PDF.
+    expect(page.indexOf("Appendix: photos")).toBeLessThan(page.indexOf("10 Signatures"));
+    const without = renderToString(createElement(ReportView, { data: { ...sampleReport, photos: [] } }));
+    expect(without).not.toContain("Appendix: photos");
+  });
 });

@@ -49,19 +49,24 @@ export function photoAppendixRows(
     );
 }
 
+/** One photo as the appendix lists it, on the page and in the PDF alike. */
+export function photoLine(r: PhotoAppendixRow): string {
+  return `Step ${r.step}, ${r.phase}, ${r.takenAtUtc}, by ${r.by}, ${r.size}`;
+}
+
+export const PHOTO_APPENDIX_TITLE = "Appendix: photos kept with the record";
+
 /** The appendix in the PDF; nothing when no step asks for a photo. */
 export function PhotoAppendix({ rows }: { rows: readonly PhotoAppendixRow[] | undefined }) {
   if (!rows?.length) return null;
   return (
     <View>
       <Text style={pdfSectionStyles.h2} minPresenceAhead={40}>
-        Appendix: photos kept with the record
+        {PHOTO_APPENDIX_TITLE}
       </Text>
       {rows.map((r, i) => (
         <View key={i} wrap={false} style={{ marginBottom: 3 }}>
-          <Text>
-            • Step {r.step}, {r.phase}, {r.takenAtUtc}, by {r.by}, {r.size}
-          </Text>
+          <Text>• {photoLine(r)}</Text>
           <Text style={{ fontSize: 6.5, color: "#555" }}>SHA-256 {r.sha256}</Text>
         </View>
       ))}
