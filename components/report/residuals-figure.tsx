@@ -1,22 +1,15 @@
 /** The fit's residual per pose as the online report draws it: bars against the 3 s line. */
 import { drawing, palette } from "@/lib/domain/theme";
 import { YGrid } from "@/components/charts/axis";
-import { residualsLayout } from "@/lib/report/residuals-layout";
+import { RESIDUALS_BOX, residualsLayout } from "@/lib/report/residuals-layout";
 import type { ReportData } from "@/lib/report/types";
 
 export function Residuals({ r }: { r: NonNullable<NonNullable<ReportData["charts"]>["residuals"]> }) {
-  const w = 880;
-  const h = 200;
-  const c = residualsLayout(r, {
-    width: w,
-    height: h,
-    margin: { l: 40, r: 10, t: 10, b: 22 },
-    minBar: { width: 0.6, height: 0.5 },
-  });
+  const c = residualsLayout(r, RESIDUALS_BOX.page);
   return (
     <div>
       <svg
-        viewBox={`0 0 ${w} ${h}`}
+        viewBox={`0 0 ${c.width} ${c.height}`}
         className="h-auto w-full"
         role="img"
         aria-label={`Largest residual component per pose, ${r.totalPoses} poses; ${c.over} beyond 3 s = ${c.limit.toFixed(2)} µm`}

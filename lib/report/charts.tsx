@@ -7,7 +7,7 @@
  */
 import { drawing, palette } from "@/lib/domain/theme";
 import { Circle, Line, Rect, Svg, Text, View } from "@react-pdf/renderer";
-import { residualsLayout } from "@/lib/report/residuals-layout";
+import { RESIDUALS_BOX, residualsLayout } from "@/lib/report/residuals-layout";
 import { rowDomain, rowLimits, type LimitRow } from "./chart-data";
 import { pdfColours } from "./pdf-styles";
 import type { ReportCharts } from "./types";
@@ -125,17 +125,10 @@ export function LimitRowsChart({ rows, legend }: { rows: readonly LimitRow[]; le
 
 /** The largest residual component per pose (µm), with the 3 s line; bars above it are drawn in red and counted. */
 export function ResidualsChart({ residuals }: { residuals: NonNullable<ReportCharts["residuals"]> }) {
-  const W = 515;
-  const H = 110;
-  const c = residualsLayout(residuals, {
-    width: W,
-    height: H,
-    margin: { l: 26, r: 6, t: 6, b: 14 },
-    minBar: { width: 0.4, height: 0.3 },
-  });
+  const c = residualsLayout(residuals, RESIDUALS_BOX.pdf);
   return (
     <View>
-      <Svg width={W} height={H} viewBox={`0 0 ${W} ${H}`}>
+      <Svg width={c.width} height={c.height} viewBox={`0 0 ${c.width} ${c.height}`}>
         {c.ticks.map((t) => (
           <Line
             key={`g${t}`}

@@ -22,6 +22,17 @@ export interface ResidualsBox {
   minBar: { width: number; height: number };
 }
 
+/** The chart's box on the report page (SVG px) and in the PDF (pt, the width of the text block). */
+export const RESIDUALS_BOX = {
+  page: {
+    width: 880,
+    height: 200,
+    margin: { l: 40, r: 10, t: 10, b: 22 },
+    minBar: { width: 0.6, height: 0.5 },
+  },
+  pdf: { width: 515, height: 110, margin: { l: 26, r: 6, t: 6, b: 14 }, minBar: { width: 0.4, height: 0.3 } },
+} satisfies Record<string, ResidualsBox>;
+
 export function residualsLayout(r: ResidualsSeries, box: ResidualsBox) {
   const { width: w, height: h, margin: m, minBar } = box;
   const limit = 3 * r.sUm;
@@ -48,6 +59,8 @@ export function residualsLayout(r: ResidualsSeries, box: ResidualsBox) {
     /** The 3 s line, end to end, and the zero line. */
     limitY: y(limit),
     zeroY: y(0),
+    width: w,
+    height: h,
     left: m.l,
     right: w - m.r,
     caption:
