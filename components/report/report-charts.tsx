@@ -1,5 +1,5 @@
 import { drawing, palette } from "@/lib/domain/theme";
-import { reportCharts, rowDomain, rowLimits, type LimitRow } from "@/lib/report/chart-data";
+import { limitRowLayout, reportCharts, type LimitRow } from "@/lib/report/chart-data";
 import type { ReportData } from "@/lib/report/types";
 import { Residuals } from "@/components/report/residuals-figure";
 import { StoredViewImage } from "@/components/viewer/stored-view-image";
@@ -62,10 +62,7 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
       <table className="w-full text-sm" aria-label={title}>
         <tbody className="divide-y divide-graphite-100">
           {rows.map((r, i) => {
-            const { from, to } = rowDomain(r);
-            const x = (v: number) => 4 + ((v - from) / (to - from)) * (W - 8);
-            const before = r.marks.find((m) => m.kind === "before");
-            const after = r.marks.find((m) => m.kind === "after");
+            const l = limitRowLayout(r, W);
             return (
               <tr key={i}>
                 <th scope="row" className="w-56 py-1 pr-3 text-left font-normal">
@@ -78,28 +75,22 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                     role="img"
                     aria-label={r.note}
                   >
-                    <rect
-                      x={x(r.lower ?? from)}
-                      y={2}
-                      width={Math.max(0.5, x(r.upper ?? to) - x(r.lower ?? from))}
-                      height={H - 4}
-                      fill={drawing.limitBand}
-                    />
-                    {rowLimits(r).map((v, j) => (
+                    <rect x={l.band.x} y={2} width={l.band.width} height={H - 4} fill={drawing.limitBand} />
+                    {l.limits.map((x, j) => (
                       <line
                         key={`l${j}`}
-                        x1={x(v)}
-                        x2={x(v)}
+                        x1={x}
+                        x2={x}
                         y1={0}
                         y2={H}
                         stroke={palette.pass[700]}
                         strokeWidth={1.4}
                       />
                     ))}
-                    {from < 0 && to > 0 ? (
+                    {l.zero !== null ? (
                       <line
-                        x1={x(0)}
-                        x2={x(0)}
+                        x1={l.zero}
+                        x2={l.zero}
                         y1={3}
                         y2={H - 3}
                         stroke={palette.graphite[600]}
@@ -107,34 +98,30 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                         strokeDasharray="2 2"
                       />
                     ) : null}
-                    {before && after ? (
+                    {l.travel ? (
                       <line
-                        x1={x(before.value)}
-                        x2={x(after.value)}
+                        {...l.travel}
                         y1={H / 2}
                         y2={H / 2}
                         stroke={palette.graphite[600]}
                         strokeWidth={1}
                       />
                     ) : null}
-                    {r.marks.map((m, j) =>
-                      m.U ? (
-                        <line
-                          key={`u${j}`}
-                          x1={x(m.value - m.U)}
-                          x2={x(m.value + m.U)}
-                          y1={H / 2}
-                          y2={H / 2}
-                          stroke={palette.graphite[900]}
-                          strokeWidth={1.4}
-                        />
-                      ) : null,
-                    )}
-                    {r.marks.map((m, j) =>
+                    {l.uBars.map((b, j) => (
+                      <line
+                        key={`u${j}`}
+                        {...b}
+                        y1={H / 2}
+                        y2={H / 2}
+                        stroke={palette.graphite[900]}
+                        strokeWidth={1.4}
+                      />
+                    ))}
+                    {l.marks.map((m, j) =>
                       m.kind === "before" ? (
                         <circle
                           key={j}
-                          cx={x(m.value)}
+                          cx={m.x}
                           cy={H / 2}
                           r={4}
                           fill={palette.white}
@@ -144,7 +131,7 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                       ) : (
                         <circle
                           key={j}
-                          cx={x(m.value)}
+                          cx={m.x}
                           cy={H / 2}
                           r={3.6}
                           fill={m.kind === "after" ? palette.graphite[900] : drawing.accentLine}

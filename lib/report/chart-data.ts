@@ -47,6 +47,27 @@ export function rowLimits(row: Pick<LimitRow, "lower" | "upper">): number[] {
   return [row.lower, row.upper].filter((v): v is number => v != null);
 }
 
+/**
+ * Where a limit row's pieces sit along a plot `width` wide (4 units of margin each side), the same
+ * for the page and the PDF: the shaded band between the limits, a line at each limit, the zero line
+ * when zero is inside, the travel from before to after, each value's ± U bar and its mark.
+ */
+export function limitRowLayout(row: Pick<LimitRow, "lower" | "upper" | "marks">, width: number) {
+  const { from, to } = rowDomain(row);
+  const x = (v: number) => 4 + ((v - from) / (to - from)) * (width - 8);
+  const bandFrom = x(row.lower ?? from);
+  const before = row.marks.find((m) => m.kind === "before");
+  const after = row.marks.find((m) => m.kind === "after");
+  return {
+    band: { x: bandFrom, width: Math.max(0.5, x(row.upper ?? to) - bandFrom) },
+    limits: rowLimits(row).map(x),
+    zero: from < 0 && to > 0 ? x(0) : null,
+    travel: before && after ? { x1: x(before.value), x2: x(after.value) } : null,
+    uBars: row.marks.flatMap((m) => (m.U ? [{ x1: x(m.value - m.U), x2: x(m.value + m.U) }] : [])),
+    marks: row.marks.map((m) => ({ kind: m.kind, x: x(m.value) })),
+  };
+}
+
 const fmt = (v: number, d = 1) => signed(v, d);
 /** A value with its unit: arc seconds sit on the number (+5.2″), other units after a space. */
 const withUnit = (text: string, unit: string) => (unit === "″" ? `${text}″` : `${text} ${unit}`);

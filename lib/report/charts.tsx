@@ -8,7 +8,7 @@
 import { drawing, palette } from "@/lib/domain/theme";
 import { Circle, Line, Rect, Svg, Text, View } from "@react-pdf/renderer";
 import { RESIDUALS_BOX, residualsLayout } from "@/lib/report/residuals-layout";
-import { rowDomain, rowLimits, type LimitRow } from "./chart-data";
+import { limitRowLayout, type LimitRow } from "./chart-data";
 import { pdfColours } from "./pdf-styles";
 import type { ReportCharts } from "./types";
 
@@ -24,37 +24,18 @@ const ROW_W = 225;
 const ROW_H = 13;
 
 function RowPlot({ row }: { row: LimitRow }) {
-  const { from, to } = rowDomain(row);
-  const x = (v: number) => 4 + ((v - from) / (to - from)) * (ROW_W - 8);
-  const bandFrom = x(row.lower ?? from);
-  const bandTo = x(row.upper ?? to);
+  const l = limitRowLayout(row, ROW_W);
   const mid = ROW_H / 2;
-  const before = row.marks.find((m) => m.kind === "before");
-  const after = row.marks.find((m) => m.kind === "after");
   return (
     <Svg width={ROW_W} height={ROW_H} viewBox={`0 0 ${ROW_W} ${ROW_H}`}>
-      <Rect
-        x={bandFrom}
-        y={1.5}
-        width={Math.max(0.5, bandTo - bandFrom)}
-        height={ROW_H - 3}
-        fill={C.limitBand}
-      />
-      {rowLimits(row).map((v, i) => (
-        <Line
-          key={`l${i}`}
-          x1={x(v)}
-          x2={x(v)}
-          y1={0.5}
-          y2={ROW_H - 0.5}
-          stroke={C.limit}
-          strokeWidth={0.9}
-        />
+      <Rect x={l.band.x} y={1.5} width={l.band.width} height={ROW_H - 3} fill={C.limitBand} />
+      {l.limits.map((x, i) => (
+        <Line key={`l${i}`} x1={x} x2={x} y1={0.5} y2={ROW_H - 0.5} stroke={C.limit} strokeWidth={0.9} />
       ))}
-      {from < 0 && to > 0 ? (
+      {l.zero !== null ? (
         <Line
-          x1={x(0)}
-          x2={x(0)}
+          x1={l.zero}
+          x2={l.zero}
           y1={2}
           y2={ROW_H - 2}
           stroke={C.muted}
@@ -62,27 +43,15 @@ function RowPlot({ row }: { row: LimitRow }) {
           strokeDasharray="1 1"
         />
       ) : null}
-      {before && after ? (
-        <Line x1={x(before.value)} x2={x(after.value)} y1={mid} y2={mid} stroke={C.muted} strokeWidth={0.6} />
-      ) : null}
-      {row.marks.map((m, i) =>
-        m.U ? (
-          <Line
-            key={`u${i}`}
-            x1={x(m.value - m.U)}
-            x2={x(m.value + m.U)}
-            y1={mid}
-            y2={mid}
-            stroke={C.ink}
-            strokeWidth={0.8}
-          />
-        ) : null,
-      )}
-      {row.marks.map((m, i) =>
+      {l.travel ? <Line {...l.travel} y1={mid} y2={mid} stroke={C.muted} strokeWidth={0.6} /> : null}
+      {l.uBars.map((b, i) => (
+        <Line key={`u${i}`} {...b} y1={mid} y2={mid} stroke={C.ink} strokeWidth={0.8} />
+      ))}
+      {l.marks.map((m, i) =>
         m.kind === "before" ? (
           <Circle
             key={i}
-            cx={x(m.value)}
+            cx={m.x}
             cy={mid}
             r={2.6}
             fill={palette.white}
@@ -90,7 +59,7 @@ function RowPlot({ row }: { row: LimitRow }) {
             strokeWidth={1.1}
           />
         ) : (
-          <Circle key={i} cx={x(m.value)} cy={mid} r={2.4} fill={m.kind === "after" ? C.after : C.accent} />
+          <Circle key={i} cx={m.x} cy={mid} r={2.4} fill={m.kind === "after" ? C.after : C.accent} />
         ),
       )}
     </Svg>

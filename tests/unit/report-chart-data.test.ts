@@ -3,7 +3,7 @@
 // project's own; the interval arithmetic is checked by hand below.
 import { describe, expect, it } from "vitest";
 import { residualsLayout } from "@/lib/report/residuals-layout";
-import { reportCharts, rowDomain, rowLimits } from "@/lib/report/chart-data";
+import { limitRowLayout, reportCharts, rowDomain, rowLimits } from "@/lib/report/chart-data";
 
 const readings = [{ step: "1 Collar face", lower: -0.01, upper: 0.01, pre: 0.02, post: 0.004, unit: "mm" }];
 const parameters = [
@@ -86,5 +86,41 @@ describe("the residual chart's layout (page and PDF alike)", () => {
       "Largest residual component per pose in µm, 8 poses in file order (each bar the largest of 2 consecutive poses); " +
         "dashed line: 3 s, beyond which a pose is reported as an outlier (1 bar beyond it, drawn in red). s = 1.00 µm per coordinate.",
     );
+  });
+});
+
+describe("a limit row's layout (page and PDF alike)", () => {
+  // Limits ±10″, before 14.2″, after 3.1″: the domain is the limits widened by a third of their
+  // span each side, −16.67 … +16.67″, over 352 of the 360 units (4 each side). Worked by hand.
+  const l = limitRowLayout(
+    {
+      lower: -10,
+      upper: 10,
+      marks: [
+        { kind: "before", value: 14.2 },
+        { kind: "after", value: 3.1, U: 0.5 },
+      ],
+    },
+    360,
+  );
+  it("places the band, the limits and the zero line", () => {
+    expect(l.band.x).toBeCloseTo(74.4, 9);
+    expect(l.band.width).toBeCloseTo(211.2, 9);
+    expect(l.limits[0]).toBeCloseTo(74.4, 9);
+    expect(l.limits[1]).toBeCloseTo(285.6, 9);
+    expect(l.zero).toBeCloseTo(180, 9);
+  });
+  it("draws the travel from before to after, the U bar and each mark", () => {
+    expect(l.travel!.x1).toBeCloseTo(329.952, 9);
+    expect(l.travel!.x2).toBeCloseTo(212.736, 9);
+    expect(l.uBars).toHaveLength(1);
+    expect(l.uBars[0]!.x2 - l.uBars[0]!.x1).toBeCloseTo(10.56, 9); // 1″ of 33.33″ over 352
+    expect(l.marks.map((m) => m.kind)).toEqual(["before", "after"]);
+  });
+  it("leaves out the zero line when zero is outside, and the travel without a before", () => {
+    const one = limitRowLayout({ lower: 5, upper: 9, marks: [{ kind: "value", value: 7 }] }, 360);
+    expect(one.zero).toBeNull();
+    expect(one.travel).toBeNull();
+    expect(one.uBars).toEqual([]);
   });
 });
