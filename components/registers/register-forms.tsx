@@ -9,7 +9,6 @@ export function CustomerForm() {
   return (
     <AddForm
       to="customer"
-      columns={2}
       fields={[
         { name: "name", label: "Customer name" },
         { name: "contactEmail", label: "Contact e-mail", type: "email" },
@@ -22,7 +21,6 @@ export function SiteForm({ customers }: { customers: Opt[] }) {
   return (
     <AddForm
       to="site"
-      columns={3}
       fields={[
         { name: "customerId", label: "Customer", placeholder: "Choose…", options: optionsOf(customers) },
         { name: "name", label: "Site name" },
@@ -36,7 +34,6 @@ export function MachineForm({ sites }: { sites: Opt[] }) {
   return (
     <AddForm
       to="machine"
-      columns={4}
       fields={[
         { name: "siteId", label: "Site", placeholder: "Choose…", options: optionsOf(sites) },
         { name: "name", label: "Machine name" },
@@ -56,7 +53,6 @@ export function HeadForm() {
   return (
     <AddForm
       to="head"
-      columns={4}
       next="record where it is mounted on its page"
       fields={[
         { name: "serial", label: "Serial", numeric: true },

@@ -46,7 +46,6 @@ export function CalibrationForm({ instruments }: { instruments: { id: string; la
       schema={calibrationFormSchema}
       submitLabel="Record calibration"
       successMessage="Calibration recorded; the instrument is in use."
-      columns={5}
       fields={[
         {
           name: "instrumentId",

@@ -35,12 +35,14 @@ const GRID = {
   5: "grid gap-4 sm:grid-cols-2 lg:grid-cols-5",
 } as const;
 
+type GridColumns = keyof typeof GRID;
+
 /** A form that is only a grid of described fields: the kit's Form around FormFields. */
 export function FieldsForm<T>({
   fields,
   columns,
   ...form
-}: FormProps<T> & { fields: readonly FieldSpec[]; columns: keyof typeof GRID }) {
+}: FormProps<T> & { fields: readonly FieldSpec[]; columns?: GridColumns }) {
   return (
     <Form {...form}>
       <FormFields fields={fields} columns={columns} />
@@ -48,15 +50,17 @@ export function FieldsForm<T>({
   );
 }
 
-export function FormFields({
-  fields,
-  columns,
-}: {
-  fields: readonly FieldSpec[];
-  columns: keyof typeof GRID;
-}) {
+/**
+ * Up to five fields stand in one row at full width (at least two columns); a longer list wraps
+ * in four columns. Give `columns` for any other layout.
+ */
+function defaultColumns(count: number): GridColumns {
+  return count > 5 ? 4 : (Math.max(count, 2) as GridColumns);
+}
+
+export function FormFields({ fields, columns }: { fields: readonly FieldSpec[]; columns?: GridColumns }) {
   return (
-    <div className={GRID[columns]}>
+    <div className={GRID[columns ?? defaultColumns(fields.length)]}>
       {fields.map((f) => (
         <FormField key={f.name} spec={f} />
       ))}
