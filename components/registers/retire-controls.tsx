@@ -1,8 +1,7 @@
 "use client";
 
 import { recordCalibrationAction, retireRegisterRowAction } from "@/app/(app)/registers/actions";
-import { optionsOf } from "@/components/ui/field";
-import { FieldsForm, HiddenFields } from "@/components/ui/form-fields";
+import { FieldsForm, HiddenFields, pickField } from "@/components/ui/form-fields";
 import { Form } from "@/components/ui/form";
 import { calibrationFormSchema, retireFormSchema, RETIRABLE_REGISTERS } from "@/lib/validations/registers";
 
@@ -47,12 +46,7 @@ export function CalibrationForm({ instruments }: { instruments: { id: string; la
       submitLabel="Record calibration"
       successMessage="Calibration recorded; the instrument is in use."
       fields={[
-        {
-          name: "instrumentId",
-          label: "Instrument",
-          placeholder: "Choose…",
-          options: optionsOf(instruments),
-        },
+        pickField("instrumentId", "Instrument", instruments),
         { name: "calibratedOn", label: "Calibrated on", type: "date" },
         { name: "dueOn", label: "Due on", type: "date" },
         { name: "certificateRef", label: "Certificate number" },

@@ -1,6 +1,6 @@
 "use client";
 
-import { Field, inputClass, SelectField, TextField, type Option } from "./field";
+import { Field, inputClass, optionsOf, SelectField, TextField, type Option } from "./field";
 import { Form, type FormProps } from "./form";
 
 /**
@@ -26,6 +26,15 @@ export type FieldSpec = {
       placeholder?: string;
     }
 );
+
+/** A select of register rows (`{ id, label }`) with nothing chosen at first: the row a new one belongs to. */
+export function pickField(
+  name: string,
+  label: string,
+  rows: ReadonlyArray<{ id: string; label: string }>,
+): FieldSpec {
+  return { name, label, placeholder: "Choose…", options: optionsOf(rows) };
+}
 
 /** Grid layouts by column count at full width (one column on a phone). */
 const GRID = {
