@@ -46,15 +46,19 @@ const GRID = {
 
 type GridColumns = keyof typeof GRID;
 
+/** A fields-only form, declared once as one object: what it sends, how it words it, its fields. */
+export type FieldsFormDefinition<T> = FormProps<T> & {
+  fields: readonly FieldSpec[];
+  columns?: GridColumns;
+  /** The stored record's values by field name, shown in the fields it edits (a field's own defaultValue wins). */
+  values?: Readonly<Record<string, string | undefined>>;
+};
+
 /** A form that is only a grid of described fields: the kit's Form around FormFields. */
-export function FieldsForm<T>({
-  fields,
-  columns,
-  ...form
-}: FormProps<T> & { fields: readonly FieldSpec[]; columns?: GridColumns }) {
+export function FieldsForm<T>({ fields, columns, values, ...form }: FieldsFormDefinition<T>) {
   return (
     <Form {...form}>
-      <FormFields fields={fields} columns={columns} />
+      <FormFields fields={fields} columns={columns} values={values} />
     </Form>
   );
 }
@@ -67,11 +71,19 @@ function defaultColumns(count: number): GridColumns {
   return count > 5 ? 4 : (Math.max(count, 2) as GridColumns);
 }
 
-export function FormFields({ fields, columns }: { fields: readonly FieldSpec[]; columns?: GridColumns }) {
+export function FormFields({
+  fields,
+  columns,
+  values,
+}: {
+  fields: readonly FieldSpec[];
+  columns?: GridColumns;
+  values?: Readonly<Record<string, string | undefined>>;
+}) {
   return (
     <div className={GRID[columns ?? defaultColumns(fields.length)]}>
       {fields.map((f) => (
-        <FormField key={f.name} spec={f} />
+        <FormField key={f.name} spec={{ ...f, defaultValue: f.defaultValue ?? values?.[f.name] }} />
       ))}
     </div>
   );
