@@ -74,24 +74,17 @@ export function Panel({ jobs, s, index }: { jobs: TrendJob[]; s: TrendSeries; in
       </text>
       <line x1={M.left} x2={M.left} y1={M.top} y2={M.top + ph} stroke={palette.graphite[300]} />
       {jobs.map((j, i) => (
-        <g key={j.key}>
+        <g key={j.key} textAnchor="middle">
           <text
             x={x(i)}
             y={H - M.bottom + 16}
             fontSize="10.5"
-            textAnchor="middle"
             className="fill-graphite-800"
             fontFamily="var(--font-mono), monospace"
           >
             {j.reference.replace(/^TR-\d{4}-/, "")}
           </text>
-          <text
-            x={x(i)}
-            y={H - M.bottom + 29}
-            fontSize="9.5"
-            textAnchor="middle"
-            className="fill-graphite-600"
-          >
+          <text x={x(i)} y={H - M.bottom + 29} fontSize="9.5" className="fill-graphite-600">
             {j.dateText}
           </text>
         </g>

@@ -1,8 +1,8 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { useState, useTransition } from "react";
+import { useState } from "react";
 import { ActionNotice, Button } from "@/components/ui/button";
+import { useActionButton } from "@/components/ui/use-action-button";
 import { SignForm } from "@/components/report/sign-form";
 import { approveFitAction, runFitAction } from "@/app/(app)/jobs/[id]/analysis/actions";
 
@@ -15,36 +15,26 @@ export function RunFitButton({
   datasetId: string;
   label?: string;
 }) {
-  const router = useRouter();
-  const [pending, start] = useTransition();
-  const [msg, setMsg] = useState<{ ok: boolean; text: string } | null>(null);
+  const { pending, notice, run } = useActionButton();
   return (
     <div className="flex flex-col items-end gap-1">
       <Button
         pending={pending}
         pendingLabel="Fitting…"
         onClick={() =>
-          start(async () => {
-            setMsg(null);
-            const r = await runFitAction({ jobId, datasetId });
-            if (!r.ok) setMsg({ ok: false, text: r.message });
-            else {
-              setMsg({
-                ok: true,
-                text: r.data.reused ? "Same input as a stored fit: that fit is shown." : "Fit stored.",
-              });
-              router.refresh();
-            }
-          })
+          run(
+            () => runFitAction({ jobId, datasetId }),
+            (fit) => (fit.reused ? "Same input as a stored fit: that fit is shown." : "Fit stored."),
+          )
         }
         variant="amber"
         className="px-5"
       >
         {label}
       </Button>
-      {msg ? (
-        <ActionNotice ok={msg.ok} className={msg.ok ? "text-graphite-700" : ""}>
-          {msg.text}
+      {notice ? (
+        <ActionNotice ok={notice.ok} className={notice.ok ? "text-graphite-700" : ""}>
+          {notice.message}
         </ActionNotice>
       ) : null}
     </div>

@@ -1,4 +1,4 @@
-import { Table } from "@/components/ui/table";
+import { defineTable, Table } from "@/components/ui/table";
 import type { ControlValue } from "@/lib/fit-display";
 import { signed } from "@/lib/numbers";
 
@@ -43,20 +43,18 @@ export function OutlierTable({
   );
 }
 
+const VALUES_TABLE = defineTable<ControlValue>({
+  caption: "Values for the control",
+  empty: "The fit determined no value the control takes.",
+  getRowId: (c) => c.label,
+  columns: (column) => [
+    column("Setting", (c) => c.label, { rowHeader: true, className: "font-medium" }),
+    column("Value", (c) => c.text, { numeric: true, className: "text-base font-semibold" }),
+    column("Note", (c) => c.note, { className: "text-graphite-600" }),
+  ],
+});
+
 /** The approved values to enter in the control, each with what it means. */
 export function ControlValuesTable({ values }: { values: readonly ControlValue[] }) {
-  return (
-    <Table
-      caption="Values for the control"
-      empty="The fit determined no value the control takes."
-      bare
-      data={values}
-      getRowId={(c) => c.label}
-      columns={(column) => [
-        column("Setting", (c) => c.label, { rowHeader: true, className: "font-medium" }),
-        column("Value", (c) => c.text, { numeric: true, className: "text-base font-semibold" }),
-        column("Note", (c) => c.note, { className: "text-graphite-600" }),
-      ]}
-    />
-  );
+  return <Table {...VALUES_TABLE} bare data={values} />;
 }

@@ -35,12 +35,10 @@ const ADD = {
 /** "Add customer" … "Customer added." and, where the new row needs a next step, what it is. */
 export function AddForm({
   to,
-  columns,
   fields,
   next,
 }: {
   to: keyof typeof ADD;
-  columns: 2 | 3 | 4;
   fields: readonly FieldSpec[];
   /** What to do next, said after the confirmation ("record where it is mounted on its page"). */
   next?: string;
@@ -53,7 +51,6 @@ export function AddForm({
       schema={schema}
       submitLabel={`Add ${thing}`}
       successMessage={next ? `${added}; ${next}.` : `${added}.`}
-      columns={columns}
       fields={fields}
     />
   );

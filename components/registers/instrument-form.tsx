@@ -17,7 +17,6 @@ export function InstrumentForm() {
   return (
     <AddForm
       to="instrument"
-      columns={4}
       fields={[
         { name: "kind", label: "Kind", placeholder: "Dial test indicator" },
         { name: "serial", label: "Serial", numeric: true },

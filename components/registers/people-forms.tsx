@@ -17,7 +17,6 @@ export function InviteForm({ customers }: { customers: ReadonlyArray<{ id: strin
       schema={userInviteSchema}
       submitLabel="Send invitation"
       successMessage="Invitation queued; the e-mail carries a one-time link to set a password."
-      columns={4}
       fields={[
         { name: "name", label: "Name" },
         { name: "email", label: "E-mail", type: "email" },

@@ -1,8 +1,7 @@
 "use client";
 
 import { recordCalibrationAction, retireRegisterRowAction } from "@/app/(app)/registers/actions";
-import { optionsOf } from "@/components/ui/field";
-import { FieldsForm, HiddenFields } from "@/components/ui/form-fields";
+import { FieldsForm, HiddenFields, pickField } from "@/components/ui/form-fields";
 import { Form } from "@/components/ui/form";
 import { calibrationFormSchema, retireFormSchema, RETIRABLE_REGISTERS } from "@/lib/validations/registers";
 
@@ -46,14 +45,8 @@ export function CalibrationForm({ instruments }: { instruments: { id: string; la
       schema={calibrationFormSchema}
       submitLabel="Record calibration"
       successMessage="Calibration recorded; the instrument is in use."
-      columns={5}
       fields={[
-        {
-          name: "instrumentId",
-          label: "Instrument",
-          placeholder: "Choose…",
-          options: optionsOf(instruments),
-        },
+        pickField("instrumentId", "Instrument", instruments),
         { name: "calibratedOn", label: "Calibrated on", type: "date" },
         { name: "dueOn", label: "Due on", type: "date" },
         { name: "certificateRef", label: "Certificate number" },

@@ -5,6 +5,17 @@ export const badgeMark = {
   dashedCircle: () => (
     <circle cx="6" cy="6" r="4" fill="none" stroke="currentColor" strokeWidth="1.6" strokeDasharray="2 1.6" />
   ),
+  /** One stroked path, open (`fill` none) or as drawn. */
+  stroke: (d: string, width: number, fill?: "none") => (
+    <path d={d} fill={fill} stroke="currentColor" strokeWidth={width} />
+  ),
+  /** A ring (centre x, y and radius) and one stroke `d` at the same width: a magnifier, a struck-out circle. */
+  ringAndStroke: ([cx, cy, r]: [number, number, number], d: string, width: number) => (
+    <>
+      <circle cx={cx} cy={cy} r={r} fill="none" stroke="currentColor" strokeWidth={width} />
+      <path d={d} stroke="currentColor" strokeWidth={width} />
+    </>
+  ),
 };
 
 /** A rounded badge: a mark and a word, so colour is never the only signal. */

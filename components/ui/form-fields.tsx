@@ -1,6 +1,6 @@
 "use client";
 
-import { Field, inputClass, SelectField, TextField, type Option } from "./field";
+import { Field, inputClass, optionsOf, SelectField, TextField, type Option } from "./field";
 import { Form, type FormProps } from "./form";
 
 /**
@@ -27,6 +27,15 @@ export type FieldSpec = {
     }
 );
 
+/** A select of register rows (`{ id, label }`) with nothing chosen at first: the row a new one belongs to. */
+export function pickField(
+  name: string,
+  label: string,
+  rows: ReadonlyArray<{ id: string; label: string }>,
+): FieldSpec {
+  return { name, label, placeholder: "Choose…", options: optionsOf(rows) };
+}
+
 /** Grid layouts by column count at full width (one column on a phone). */
 const GRID = {
   2: "grid gap-4 sm:grid-cols-2",
@@ -35,30 +44,46 @@ const GRID = {
   5: "grid gap-4 sm:grid-cols-2 lg:grid-cols-5",
 } as const;
 
+type GridColumns = keyof typeof GRID;
+
+/** A fields-only form, declared once as one object: what it sends, how it words it, its fields. */
+export type FieldsFormDefinition<T> = FormProps<T> & {
+  fields: readonly FieldSpec[];
+  columns?: GridColumns;
+  /** The stored record's values by field name, shown in the fields it edits (a field's own defaultValue wins). */
+  values?: Readonly<Record<string, string | undefined>>;
+};
+
 /** A form that is only a grid of described fields: the kit's Form around FormFields. */
-export function FieldsForm<T>({
-  fields,
-  columns,
-  ...form
-}: FormProps<T> & { fields: readonly FieldSpec[]; columns: keyof typeof GRID }) {
+export function FieldsForm<T>({ fields, columns, values, ...form }: FieldsFormDefinition<T>) {
   return (
     <Form {...form}>
-      <FormFields fields={fields} columns={columns} />
+      <FormFields fields={fields} columns={columns} values={values} />
     </Form>
   );
+}
+
+/**
+ * Up to five fields stand in one row at full width (at least two columns); a longer list wraps
+ * in four columns. Give `columns` for any other layout.
+ */
+function defaultColumns(count: number): GridColumns {
+  return count > 5 ? 4 : (Math.max(count, 2) as GridColumns);
 }
 
 export function FormFields({
   fields,
   columns,
+  values,
 }: {
   fields: readonly FieldSpec[];
-  columns: keyof typeof GRID;
+  columns?: GridColumns;
+  values?: Readonly<Record<string, string | undefined>>;
 }) {
   return (
-    <div className={GRID[columns]}>
+    <div className={GRID[columns ?? defaultColumns(fields.length)]}>
       {fields.map((f) => (
-        <FormField key={f.name} spec={f} />
+        <FormField key={f.name} spec={{ ...f, defaultValue: f.defaultValue ?? values?.[f.name] }} />
       ))}
     </div>
   );

@@ -10,16 +10,11 @@ const STYLES: Record<JobStatus, { cls: string; icon: React.ReactNode }> = {
   },
   measuring: {
     cls: "bg-nominal-100 text-nominal-700 ring-nominal-300",
-    icon: <path d="M6 1.5v9M1.5 6h9" stroke="currentColor" strokeWidth="1.6" />,
+    icon: badgeMark.stroke("M6 1.5v9M1.5 6h9", 1.6),
   },
   in_review: {
     cls: "bg-accent-50 text-accent-800 ring-accent-300",
-    icon: (
-      <>
-        <circle cx="5" cy="5" r="3.2" fill="none" stroke="currentColor" strokeWidth="1.6" />
-        <path d="M7.5 7.5 10.5 10.5" stroke="currentColor" strokeWidth="1.6" />
-      </>
-    ),
+    icon: badgeMark.ringAndStroke([5, 5, 3.2], "M7.5 7.5 10.5 10.5", 1.6),
   },
   approved: {
     cls: "bg-pass-50 text-pass-700 ring-pass-600/30",
@@ -27,7 +22,7 @@ const STYLES: Record<JobStatus, { cls: string; icon: React.ReactNode }> = {
   },
   issued: {
     cls: "bg-graphite-800 text-white ring-graphite-800",
-    icon: <path d="M2.5 1.5h5l2 2v7h-7z" fill="none" stroke="currentColor" strokeWidth="1.4" />,
+    icon: badgeMark.stroke("M2.5 1.5h5l2 2v7h-7z", 1.4, "none"),
   },
   accepted: {
     cls: "bg-pass-600 text-white ring-pass-600",
@@ -39,16 +34,11 @@ const STYLES: Record<JobStatus, { cls: string; icon: React.ReactNode }> = {
   },
   on_hold: {
     cls: "bg-white text-graphite-800 ring-graphite-400",
-    icon: <path d="M4 2.5v7M8 2.5v7" stroke="currentColor" strokeWidth="1.8" />,
+    icon: badgeMark.stroke("M4 2.5v7M8 2.5v7", 1.8),
   },
   cancelled: {
     cls: "bg-graphite-100 text-graphite-600 ring-graphite-300 line-through decoration-graphite-400",
-    icon: (
-      <>
-        <circle cx="6" cy="6" r="4" fill="none" stroke="currentColor" strokeWidth="1.5" />
-        <path d="M3.2 8.8 8.8 3.2" stroke="currentColor" strokeWidth="1.5" />
-      </>
-    ),
+    icon: badgeMark.ringAndStroke([6, 6, 4], "M3.2 8.8 8.8 3.2", 1.5),
   },
 };
 

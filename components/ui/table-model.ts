@@ -96,6 +96,17 @@ export interface TableProps<T> {
   bare?: boolean;
 }
 
+/**
+ * What a table is, declared once beside its row type: its caption, what it says when empty, its
+ * columns (and how rows are told apart, when not by `id` or `key`). Pages and components render it
+ * with `<Table {...definition} data={rows} />`, adding only how this place shows it (`bare`, a class).
+ */
+export type TableDefinition<T> = Pick<TableProps<T>, "caption" | "empty" | "columns" | "getRowId">;
+
+export function defineTable<T>(definition: TableDefinition<T>): TableDefinition<T> {
+  return definition;
+}
+
 /** A row's own identity when it carries one (`id`, else `key`), so the rows keep their keys when sorted. */
 export function defaultRowId(row: unknown, index: number): string {
   const r = row as { id?: unknown; key?: unknown };

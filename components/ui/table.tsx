@@ -10,8 +10,8 @@ import Link from "next/link";
 import { ScrollRegion } from "./scroll-region";
 import { buildTable, type TableProps } from "./table-model";
 
-export { buildTable, column } from "./table-model";
-export type { ColumnDef, ColumnFactory, SortingState, TableProps } from "./table-model";
+export { buildTable, column, defineTable } from "./table-model";
+export type { ColumnDef, ColumnFactory, SortingState, TableDefinition, TableProps } from "./table-model";
 
 // Below 900 px a "cards" table turns each row into a card (Tailwind needs the class names written out).
 const CARDS = {

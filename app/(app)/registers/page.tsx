@@ -5,7 +5,7 @@ import { HeadsTable } from "@/components/registers/heads-table";
 import { CustomerForm, HeadForm, MachineForm, SiteForm } from "@/components/registers/register-forms";
 import { Card } from "@/components/ui/card";
 import { listSitesForSelect } from "@/db/queries/registers-admin";
-import { Table } from "@/components/ui/table";
+import { defineTable, Table } from "@/components/ui/table";
 import { listCustomersWithSites, listHeads, listMachines } from "@/db/queries/registers";
 import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
@@ -13,6 +13,37 @@ import { namedRow, retireColumn } from "@/components/registers/retire-column";
 import { RegisterSection } from "@/components/registers/register-section";
 
 export const metadata: Metadata = { title: "Registers" };
+
+type CustomerRow = Awaited<ReturnType<typeof listCustomersWithSites>>[number];
+type MachineRow = Awaited<ReturnType<typeof listMachines>>[number];
+
+/** The page's two register tables; `mayEdit` adds the retire / bring back column to each. */
+const registerTables = (mayEdit: boolean) => ({
+  customers: defineTable<CustomerRow>({
+    caption: "Customers",
+    empty: "No customers yet.",
+    columns: (column) => [
+      column("Name", (c) => c.name),
+      column("Sites", (c) => c.sites.join(", ") || "—"),
+      column("Contact", (c) => (c.retiredAt ? "Retired" : (c.contactEmail ?? "—"))),
+      ...retireColumn(column, mayEdit, "customers", namedRow),
+    ],
+  }),
+  machines: defineTable<MachineRow>({
+    caption: "Host machines",
+    empty: "No host machines yet.",
+    columns: (column) => [
+      column("Machine", (m) => m.name),
+      column("Kind", (m) => m.kind),
+      column("Builder and model", (m) => [m.builder, m.model].filter(Boolean).join(" ") || "—"),
+      column("Serial", (m) => <span className="num">{m.serial ?? "—"}</span>),
+      column("Customer, site", (m) =>
+        m.retiredAt ? `${m.customerName}, ${m.siteName} (retired)` : `${m.customerName}, ${m.siteName}`,
+      ),
+      ...retireColumn(column, mayEdit, "machines", namedRow),
+    ],
+  }),
+});
 
 export default async function RegistersPage() {
   const user = await requirePageUser("/registers");
@@ -24,6 +55,7 @@ export default async function RegistersPage() {
     listHeads(user),
     listSitesForSelect(),
   ]);
+  const tables = registerTables(mayEdit);
   return (
     <div className="space-y-8">
       <PageHeading title="Registers">
@@ -31,34 +63,10 @@ export default async function RegistersPage() {
         tabs.
       </PageHeading>
       <RegisterSection id="customers" title="Customers">
-        <Table
-          caption="Customers"
-          empty="No customers yet."
-          data={customers}
-          columns={(column) => [
-            column("Name", (c) => c.name),
-            column("Sites", (c) => c.sites.join(", ") || "—"),
-            column("Contact", (c) => (c.retiredAt ? "Retired" : (c.contactEmail ?? "—"))),
-            ...retireColumn(column, mayEdit, "customers", namedRow),
-          ]}
-        />
+        <Table {...tables.customers} data={customers} />
       </RegisterSection>
       <RegisterSection id="machines" title="Host machines">
-        <Table
-          caption="Host machines"
-          empty="No host machines yet."
-          data={machines}
-          columns={(column) => [
-            column("Machine", (m) => m.name),
-            column("Kind", (m) => m.kind),
-            column("Builder and model", (m) => [m.builder, m.model].filter(Boolean).join(" ") || "—"),
-            column("Serial", (m) => <span className="num">{m.serial ?? "—"}</span>),
-            column("Customer, site", (m) =>
-              m.retiredAt ? `${m.customerName}, ${m.siteName} (retired)` : `${m.customerName}, ${m.siteName}`,
-            ),
-            ...retireColumn(column, mayEdit, "machines", namedRow),
-          ]}
-        />
+        <Table {...tables.machines} data={machines} />
       </RegisterSection>
       <RegisterSection id="heads" title="Heads">
         <HeadsTable rows={heads} mayRetire={mayEdit} />

@@ -4,7 +4,7 @@ import { notFound } from "next/navigation";
 import { InstrumentForm } from "@/components/registers/instrument-form";
 import { CalibrationForm } from "@/components/registers/retire-controls";
 import { Card } from "@/components/ui/card";
-import { Table } from "@/components/ui/table";
+import { defineTable, Table } from "@/components/ui/table";
 import { listInstruments } from "@/db/queries/instruments";
 import { getUnitSystem } from "@/db/queries/user-prefs";
 import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
@@ -20,6 +20,41 @@ function small(v: number, kind: "length" | "angle", system: UnitSystem): string 
 }
 
 export const metadata: Metadata = { title: "Instruments" };
+
+type InstrumentRow = Awaited<ReturnType<typeof listInstruments>>[number];
+
+/** The register in the reader's units, each row's calibration state as of `today`; `mayEdit` adds retiring. */
+const instrumentsTable = ({
+  mayEdit,
+  unitSystem,
+  today,
+}: {
+  mayEdit: boolean;
+  unitSystem: UnitSystem;
+  today: string;
+}) =>
+  defineTable<InstrumentRow>({
+    caption: "Instruments",
+    empty: "No instruments in the register yet.",
+    columns: (column) => [
+      column("Serial", (i) => <span className="num">{i.serial}</span>),
+      column("Kind", (i) => `${i.kind}${i.maker ? ` (${i.maker})` : ""}`),
+      column("Resolution", (i) => small(i.resolution, i.quantityKind, unitSystem), { numeric: true }),
+      column("Std. uncertainty", (i) => small(i.standardUncertainty, i.quantityKind, unitSystem), {
+        numeric: true,
+      }),
+      column("Calibrated", (i) => <span className="num">{i.calibratedOn ?? "—"}</span>),
+      column("Due", (i) => <span className="num">{i.calibrationDueOn}</span>),
+      column("State", (i) =>
+        i.retired ? "Retired" : <CalibrationState due={i.calibrationDueOn} today={today} />,
+      ),
+      ...retireColumn(column, mayEdit, "instruments", (i) => ({
+        id: i.id,
+        retired: i.retired,
+        label: `instrument ${i.serial}`,
+      })),
+    ],
+  });
 
 function CalibrationState({ due, today }: { due: string; today: string }) {
   const past = due < today;
@@ -60,29 +95,7 @@ export default async function InstrumentsPage() {
         Every instrument a reading may name, with its resolution, standard uncertainty and calibration. A
         reading with an instrument past its due date is refused.
       </PageHeading>
-      <Table
-        caption="Instruments"
-        empty="No instruments in the register yet."
-        data={rows}
-        columns={(column) => [
-          column("Serial", (i) => <span className="num">{i.serial}</span>),
-          column("Kind", (i) => `${i.kind}${i.maker ? ` (${i.maker})` : ""}`),
-          column("Resolution", (i) => small(i.resolution, i.quantityKind, unitSystem), { numeric: true }),
-          column("Std. uncertainty", (i) => small(i.standardUncertainty, i.quantityKind, unitSystem), {
-            numeric: true,
-          }),
-          column("Calibrated", (i) => <span className="num">{i.calibratedOn ?? "—"}</span>),
-          column("Due", (i) => <span className="num">{i.calibrationDueOn}</span>),
-          column("State", (i) =>
-            i.retired ? "Retired" : <CalibrationState due={i.calibrationDueOn} today={today} />,
-          ),
-          ...retireColumn(column, mayEdit, "instruments", (i) => ({
-            id: i.id,
-            retired: i.retired,
-            label: `instrument ${i.serial}`,
-          })),
-        ]}
-      />
+      <Table {...instrumentsTable({ mayEdit, unitSystem, today })} data={rows} />
       {mayEdit ? (
         <>
           <Card title="Record a recalibration">

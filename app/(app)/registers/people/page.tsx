@@ -4,7 +4,7 @@ import { notFound } from "next/navigation";
 import { AccountRecoveryButtons } from "@/components/registers/account-recovery-buttons";
 import { InviteForm, PersonControls } from "@/components/registers/people-forms";
 import { Card } from "@/components/ui/card";
-import { Table } from "@/components/ui/table";
+import { defineTable, Table } from "@/components/ui/table";
 import { listPeople } from "@/db/queries/registers";
 import { listCustomersForSelect } from "@/db/queries/users-admin";
 import { ROLE_LABELS } from "@/lib/domain/roles";
@@ -12,6 +12,38 @@ import { registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
 
 export const metadata: Metadata = { title: "People" };
+
+type PersonRow = Awaited<ReturnType<typeof listPeople>>[number];
+
+/** Everyone with an account; the signed-in person (`selfId`) cannot change their own role here. */
+const peopleTable = (selfId: string) =>
+  defineTable<PersonRow>({
+    caption: "People",
+    empty: "Nobody has an account yet.",
+    columns: (column) => [
+      column("Name", (p) => p.name),
+      column("E-mail", (p) => p.email),
+      column("Role", (p) => ROLE_LABELS[p.role]),
+      column("Company", (p) => p.customerName ?? "Service company"),
+      column("Account", (p) => (p.disabled ? "Disabled" : "Active")),
+      column(
+        "Change",
+        (p) =>
+          p.id === selfId ? (
+            <span className="text-xs text-graphite-500">You</span>
+          ) : (
+            <PersonControls
+              userId={p.id}
+              role={p.role}
+              disabled={p.disabled}
+              isCustomer={p.role === "customer"}
+            />
+          ),
+        { wide: true },
+      ),
+      column("Sign-in help", (p) => <AccountRecoveryButtons userId={p.id} disabled={p.disabled} />),
+    ],
+  });
 
 export default async function PeoplePage() {
   const user = await requirePageUser("/registers/people");
@@ -23,34 +55,7 @@ export default async function PeoplePage() {
         Who signs in, in which role. A role change or disabling takes effect on the person&apos;s next request
         and ends their open sessions.
       </PageHeading>
-      <Table
-        caption="People"
-        empty="Nobody has an account yet."
-        data={people}
-        columns={(column) => [
-          column("Name", (p) => p.name),
-          column("E-mail", (p) => p.email),
-          column("Role", (p) => ROLE_LABELS[p.role]),
-          column("Company", (p) => p.customerName ?? "Service company"),
-          column("Account", (p) => (p.disabled ? "Disabled" : "Active")),
-          column(
-            "Change",
-            (p) =>
-              p.id === user.id ? (
-                <span className="text-xs text-graphite-500">You</span>
-              ) : (
-                <PersonControls
-                  userId={p.id}
-                  role={p.role}
-                  disabled={p.disabled}
-                  isCustomer={p.role === "customer"}
-                />
-              ),
-            { wide: true },
-          ),
-          column("Sign-in help", (p) => <AccountRecoveryButtons userId={p.id} disabled={p.disabled} />),
-        ]}
-      />
+      <Table {...peopleTable(user.id)} data={people} />
       <Card title="Invite someone">
         <InviteForm customers={customers} />
       </Card>
