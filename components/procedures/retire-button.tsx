@@ -1,8 +1,7 @@
 "use client";
 
-import { useState, useTransition } from "react";
-import { useRouter } from "next/navigation";
 import { ActionNotice, Button } from "@/components/ui/button";
+import { useActionButton } from "@/components/ui/use-action-button";
 import type { ActionResult } from "@/lib/actions";
 
 /** Retire a procedure (no longer offered for new jobs; its jobs keep it) or bring it back. */
@@ -15,9 +14,7 @@ export function RetireProcedureButton({
   retired: boolean;
   action: (raw: unknown) => Promise<ActionResult<{ id: string; retired: boolean }>>;
 }) {
-  const router = useRouter();
-  const [pending, start] = useTransition();
-  const [notice, setNotice] = useState<{ ok: boolean; message: string } | null>(null);
+  const { pending, notice, run } = useActionButton();
   return (
     <div className="flex flex-wrap items-center gap-3">
       <Button
@@ -25,15 +22,10 @@ export function RetireProcedureButton({
         variant={retired ? "secondary" : "danger"}
         pending={pending}
         onClick={() =>
-          start(async () => {
-            const res = await action({ id, retired: !retired });
-            setNotice(
-              res.ok
-                ? { ok: true, message: res.data.retired ? "Retired." : "Brought back into use." }
-                : { ok: false, message: res.message },
-            );
-            if (res.ok) router.refresh();
-          })
+          run(
+            () => action({ id, retired: !retired }),
+            (r) => (r.retired ? "Retired." : "Brought back into use."),
+          )
         }
       >
         {retired ? "Bring back into use" : "Retire this procedure"}
