@@ -1,5 +1,6 @@
 "use client";
 
+import { closedSetOptions } from "@/components/ui/field";
 import { useRef, useState } from "react";
 import { buttonClass } from "@/components/ui/button";
 import { HEAD_AXIS_ROLE_WORDS, HEAD_AXIS_ROLES } from "@/lib/domain/positioning";
@@ -133,7 +134,7 @@ export function KindOptions({
           legend="Axis of the head tested"
           name="axis"
           value={axis}
-          options={HEAD_AXIS_ROLES.map((r) => ({ value: r, label: HEAD_AXIS_ROLE_WORDS[r] }))}
+          options={closedSetOptions(HEAD_AXIS_ROLES, HEAD_AXIS_ROLE_WORDS)}
           onChange={(v) => set({ axis: v })}
         />
       ) : null}

@@ -1,5 +1,6 @@
 "use client";
 
+import { closedSetOptions } from "@/components/ui/field";
 import { useRouter } from "next/navigation";
 import { useMemo, useReducer } from "react";
 import { Button } from "@/components/ui/button";
@@ -128,14 +129,14 @@ export function UploadPanel({ jobId }: { jobId: string }) {
           legend="What the file holds"
           name="kind"
           value={kind}
-          options={KINDS.map((k) => ({ value: k, label: KIND_LABELS[k] }))}
+          options={closedSetOptions(KINDS, KIND_LABELS)}
           onChange={(k) => dispatch({ type: "kind", kind: k })}
         />
         <Choice
           legend="When it was measured"
           name="phase"
           value={phase}
-          options={(["pre", "post"] as const).map((p) => ({ value: p, label: PHASE_LABELS[p] }))}
+          options={closedSetOptions(["pre", "post"] as const, PHASE_LABELS)}
           onChange={(p) => dispatch({ type: "set", patch: { phase: p } })}
         />
       </div>

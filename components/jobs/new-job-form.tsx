@@ -4,7 +4,14 @@ import { useEffect, useSyncExternalStore } from "react";
 import { useRouter } from "next/navigation";
 import { useFormContext } from "react-hook-form";
 import { openJobAction } from "@/app/(app)/jobs/actions";
-import { Field, inputClass, SelectField, TextField, type Option } from "@/components/ui/field";
+import {
+  closedSetOptions,
+  Field,
+  inputClass,
+  SelectField,
+  TextField,
+  type Option,
+} from "@/components/ui/field";
 import { Form } from "@/components/ui/form";
 import { JOB_KIND_LABELS, JOB_KINDS, type JobKind } from "@/lib/domain/jobs";
 import { procedureApplies } from "@/lib/policy/jobs";
@@ -35,7 +42,7 @@ const RULES: Option[] = [
   { value: "simple", label: "Simple acceptance" },
   { value: "guarded", label: "Guarded acceptance (ISO 14253-1)" },
 ];
-const KINDS: Option[] = JOB_KINDS.map((k) => ({ value: k, label: JOB_KIND_LABELS[k] }));
+const KINDS: Option[] = closedSetOptions(JOB_KINDS, JOB_KIND_LABELS);
 
 const noChange = () => () => {};
 const browserZone = () => Intl.DateTimeFormat().resolvedOptions().timeZone || "UTC";

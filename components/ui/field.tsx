@@ -143,7 +143,7 @@ export const optionsOf = (rows: ReadonlyArray<{ id: string; label: string }>): O
 export const closedSetOptions = <K extends string>(
   values: readonly K[],
   labels: Record<K, string>,
-): Option[] => values.map((v) => ({ value: v, label: labels[v] }));
+): Array<{ value: K; label: string }> => values.map((v) => ({ value: v, label: labels[v] }));
 
 /** The <option> elements of a select, in the order given. */
 export function OptionList({ options }: { options: readonly Option[] }) {
