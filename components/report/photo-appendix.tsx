@@ -2,7 +2,7 @@
  * The report page's appendix of photos, as the PDF lists them: step, phase, time (UTC), who took
  * each, its size and SHA-256, so a stored image can be matched to the signed report.
  */
-import { PHOTO_APPENDIX_TITLE, photoLine, type PhotoAppendixRow } from "@/lib/report/sections/photos";
+import { PHOTO_APPENDIX_TITLE, photoLine, type PhotoAppendixRow } from "@/lib/report/sections/photo-rows";
 
 export function PhotoAppendixSection({ rows }: { rows: readonly PhotoAppendixRow[] | undefined }) {
   if (!rows?.length) return null;

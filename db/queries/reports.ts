@@ -57,7 +57,7 @@ import { NOT_RECORDED, recordsSection } from "@/lib/report/sections/records";
 import { recordsInputOf } from "@/db/queries/report-records";
 import { sha256Hex, signManifest, type SignatureManifest } from "@/lib/report/signing";
 import type { ReportData } from "@/lib/report/types";
-import { photoAppendixRows } from "@/lib/report/sections/photos";
+import { photoAppendixRows } from "@/lib/report/sections/photo-rows";
 import { jobPhotosForReport } from "@/db/queries/photos";
 import { activeUsers, lockJob } from "./locks";
 import { isUuid } from "@/lib/domain/uuid";

@@ -500,7 +500,7 @@ export interface ReportInputs {
   template: { name: string; version: number } | null;
   instruments: ReportData["instruments"];
   readings: ReturnType<typeof readingSection>;
-  /** The appendix of photos (sections/photos.tsx); absent or empty when no step asks for one. */
+  /** The appendix of photos (sections/photo-rows.ts); absent or empty when no step asks for one. */
   photos?: ReportData["photos"];
   parameters: ReturnType<typeof parameterSection> | null;
   testPart: ReportData["testPart"];

@@ -5,7 +5,7 @@
  * always say the same thing.
  */
 import type { RecordedDecision } from "@/lib/domain/decisions";
-import type { PhotoAppendixRow } from "./sections/photos";
+import type { PhotoAppendixRow } from "./sections/photo-rows";
 import type { ReportRecords } from "@/lib/report/sections/records";
 import type { ReportBudget } from "@/lib/report/sections/budget";
 import type { ReportPositioningTest } from "@/lib/report/sections/positioning";
@@ -120,7 +120,7 @@ export interface ReportData {
   /** ISO 230-2 positioning of the rotary axes (5.4), one test per axis; absent when none is stored. */
   rotaryPositioning?: ReportPositioningTest[];
   remarks: string[];
-  /** Photos of the steps that ask for one (lib/report/sections/photos.tsx); absent when none. */
+  /** Photos of the steps that ask for one (lib/report/sections/photo-rows.ts); absent when none. */
   photos?: PhotoAppendixRow[];
   safety: string[];
   signatures: ReportSignature[];

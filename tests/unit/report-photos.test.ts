@@ -6,7 +6,7 @@ import { renderToString } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import { ReportView } from "@/components/report/report-view";
 import { renderReportPdf } from "@/lib/report/render";
-import { photoAppendixRows } from "@/lib/report/sections/photos";
+import { photoAppendixRows } from "@/lib/report/sections/photo-rows";
 import { samplePng, samplePngSha256, sampleReport } from "../fixtures/report/sample-report";
 import { pdfText } from "../pdf-tools";
 
