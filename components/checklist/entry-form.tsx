@@ -4,12 +4,12 @@ import type { UseFormReturn } from "react-hook-form";
 import type { EntryValues } from "@/lib/reading-entry";
 import { LiveResult } from "@/components/checklist/live-result";
 import { PHASE_LABELS, type CorrectionTarget } from "@/components/checklist/readings-table";
-import type { StepDecision } from "@/lib/checklist";
 import { UNIT_SYMBOL, type EntryUnit, type UnitSystem } from "@/lib/units";
 import type { PanelStep } from "@/components/checklist/step-panel";
 import { NoteInput, PointGrid, RecordInputs, YesNo } from "@/components/checklist/kind-inputs";
 import { InstrumentSelect, inputCls, labelCls, ValueWithUnit } from "@/components/checklist/entry-fields";
 import { needsInstrument } from "@/lib/step-kinds";
+import type { EntryChecks } from "@/components/checklist/use-entry-checks";
 
 export interface PanelInstrument {
   id: string;
@@ -27,43 +27,38 @@ export interface PanelInstrument {
 
 export type { EntryValues } from "@/lib/reading-entry";
 
+/** What the form shows as it is typed (from `useEntryChecks`). */
+export type EntryFormChecks = Pick<EntryChecks, "problem" | "pointProblems" | "live" | "blocked">;
+
+/** Where the last send stands: sending, refused with a reason, or saved with a message. */
+export interface EntrySending {
+  pending: boolean;
+  refusal: string | null;
+  saved: string | null;
+}
+
 /** The entry form of one step: phase, value with its checks as you type, instrument, time, note. */
 export function EntryForm({
   form,
   onSubmit,
   step,
-  entryUnit,
-  travelUnit,
+  units: { entryUnit, travelUnit, unitSystem },
   instruments,
   today,
-  correcting,
-  onCancelCorrection,
-  problem,
-  pointProblems,
-  live,
-  blocked,
-  pending,
-  refusal,
-  saved,
-  unitSystem,
+  correction: { target: correcting, cancel: onCancelCorrection },
+  checks: { problem, pointProblems, live, blocked },
+  sending: { pending, refusal, saved },
 }: {
   form: UseFormReturn<EntryValues>;
   onSubmit: (e?: React.BaseSyntheticEvent) => Promise<void>;
   step: PanelStep;
-  entryUnit: EntryUnit;
-  travelUnit: "in" | "mm";
+  units: { entryUnit: EntryUnit; travelUnit: "in" | "mm"; unitSystem: UnitSystem };
   instruments: PanelInstrument[];
   today: string;
-  correcting: CorrectionTarget | null;
-  onCancelCorrection: () => void;
-  problem: string | null;
-  pointProblems: Record<string, string>;
-  live: { value: number; decision: StepDecision; error: string | null } | null;
-  blocked: string | null;
-  pending: boolean;
-  refusal: string | null;
-  saved: string | null;
-  unitSystem: UnitSystem;
+  /** The reading being corrected, if any, and how to stop correcting it. */
+  correction: { target: CorrectionTarget | null; cancel: () => void };
+  checks: EntryFormChecks;
+  sending: EntrySending;
 }) {
   const { register, watch } = form;
   const [phase, value] = watch(["phase", "value"]);

@@ -96,7 +96,7 @@ export function StepPanel({
       takenAt: localNow(),
     },
   });
-  const { instrument, pointsTyped, pointProblems, problem, outcome, live, blocked } = useEntryChecks({
+  const checks = useEntryChecks({
     form,
     step,
     instruments: choosable,
@@ -104,6 +104,7 @@ export function StepPanel({
     entryUnit,
     travelUnit,
   });
+  const { instrument, pointsTyped, outcome, blocked } = checks;
 
   const onSubmit = form.handleSubmit(async (f) => {
     if (blocked || pending) return;
@@ -209,20 +210,12 @@ export function StepPanel({
           form={form}
           onSubmit={onSubmit}
           step={step}
-          entryUnit={entryUnit}
-          travelUnit={travelUnit}
+          units={{ entryUnit, travelUnit, unitSystem }}
           instruments={choosable}
           today={today}
-          correcting={correcting}
-          onCancelCorrection={() => setCorrecting(null)}
-          problem={problem}
-          pointProblems={pointProblems}
-          live={live}
-          blocked={blocked}
-          pending={pending}
-          refusal={refusal}
-          saved={saved}
-          unitSystem={unitSystem}
+          correction={{ target: correcting, cancel: () => setCorrecting(null) }}
+          checks={checks}
+          sending={{ pending, refusal, saved }}
         />
       ) : null}
     </div>

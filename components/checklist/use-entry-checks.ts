@@ -95,3 +95,6 @@ export function useEntryChecks({
 
   return { instrument, pointsTyped, pointProblems, problem, outcome, live, blocked };
 }
+
+/** Everything `useEntryChecks` works out for the form and its submit. */
+export type EntryChecks = ReturnType<typeof useEntryChecks>;
