@@ -138,6 +138,28 @@ export function parameterRows(fit: HeadFitJson, limits: readonly ParameterLimit[
   });
 }
 
+/** A parameter the approver is warned about before approving: it fails its limit or is undecided. */
+export interface NonConformingParameter {
+  key: string;
+  label: string;
+  decisionText: string;
+  valueText: string;
+  toleranceText: string | null;
+}
+
+/** The rows that do not conform (fail, or undecided under the rule with U), named for the warning. */
+export function nonConformingParameters(rows: readonly ParameterRow[]): NonConformingParameter[] {
+  return rows
+    .filter((p) => p.decision === "fail" || p.decision === "undecided")
+    .map((p) => ({
+      key: p.key,
+      label: `${p.iso} (${p.words})`,
+      decisionText: p.decisionText,
+      valueText: p.valueText,
+      toleranceText: p.toleranceText,
+    }));
+}
+
 export interface ControlValue {
   label: string;
   /** Value as entered, with unit. */

@@ -5,6 +5,7 @@ import { ActionNotice, Button } from "@/components/ui/button";
 import { useActionButton } from "@/components/ui/use-action-button";
 import { SignForm } from "@/components/report/sign-form";
 import { approveFitAction, runFitAction } from "@/app/(app)/jobs/[id]/analysis/actions";
+import type { NonConformingParameter } from "@/lib/fit-display";
 
 export function RunFitButton({
   jobId,
@@ -42,14 +43,6 @@ export function RunFitButton({
 }
 
 /** A parameter the engineer is about to approve although it is FAIL or undecided, in words. */
-export interface NonConformingParameter {
-  key: string;
-  label: string;
-  decisionText: string;
-  valueText: string;
-  toleranceText: string | null;
-}
-
 export function ApproveButton({
   jobId,
   analysisId,

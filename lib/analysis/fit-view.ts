@@ -4,8 +4,9 @@
  * draws, and why the shown fit may or may not be approved. Pure, so it is unit-tested
  * (tests/unit/fit-view.test.ts); the page only renders the result.
  */
+import type { HeadErrors, HeadParameterKey, HeadPose, HeadVec3 } from "@/geometry";
 import { STATUS_LABELS, type JobStatus } from "@/lib/domain/jobs";
-import type { Phase } from "@/lib/domain/datasets";
+import { phaseText, type Phase } from "@/lib/domain/datasets";
 import type { Actor } from "@/lib/domain/roles";
 import { fitApprovalRefusal, fitApproverRefusal } from "@/lib/policy/analyses";
 
@@ -69,4 +70,78 @@ export function approvalNote(
   return job.status === "draft" || job.status === "measuring"
     ? `The job is ${status}: parameters are approved once the installer has submitted the job for review.`
     : `The job is ${status} without a parameter set approved here, so none is recorded for it; a correction needs the job sent back for review.`;
+}
+
+interface FittedParameter {
+  readonly key: HeadParameterKey;
+  readonly value: number;
+  /** Expanded uncertainty; null when the data could not separate the parameter. */
+  readonly U: number | null;
+}
+
+/** A fit as listed for the page: its dataset's file name and the fitted parameters. */
+interface ListedFit {
+  readonly analysis: {
+    readonly id: string;
+    readonly datasetId: string;
+    readonly result: { readonly fit: { readonly parameters: readonly FittedParameter[] } };
+  };
+  readonly datasetFilename: string;
+}
+
+/** The shown fit, with the per-pose arrays the 3D view draws. */
+interface ShownFit extends ListedFit {
+  readonly analysis: ListedFit["analysis"] & {
+    readonly result: ListedFit["analysis"]["result"] & {
+      readonly poses: {
+        readonly row: readonly number[];
+        readonly primary_deg: readonly number[];
+        readonly secondary_deg: readonly number[];
+        readonly tool_mm: readonly number[];
+        readonly residual_um: readonly HeadVec3[];
+      };
+    };
+  };
+}
+
+/** The errors a fit found: each parameter the data separated; the others stay out (drawn as 0). */
+export function fittedErrors(parameters: readonly FittedParameter[]): HeadErrors {
+  return Object.fromEntries(parameters.filter((p) => p.U !== null).map((p) => [p.key, p.value]));
+}
+
+/** How the legend names a fit: its phase in words and its dataset. */
+function fitLabel(f: ListedFit, phaseOf: ReadonlyMap<string, Phase>) {
+  return {
+    analysisId: f.analysis.id,
+    phaseText: phaseText(phaseOf.get(f.analysis.datasetId) ?? "pre"),
+    dataset: f.datasetFilename,
+  };
+}
+
+/**
+ * What the 3D view draws of the shown fit: its errors, every step-th pose with its residual, its
+ * label, and the other phase's fit (errors and label) drawn over the same poses, if there is one.
+ */
+export function headViewInput(shown: ShownFit, other: ListedFit | undefined, phaseOf: ReadonlyMap<string, Phase>) {
+  const p = shown.analysis.result.poses;
+  const { step, indices } = thinPoses(p.row.length);
+  const poses: HeadPose[] = indices.map((i) => ({
+    primaryDeg: p.primary_deg[i]!,
+    secondaryDeg: p.secondary_deg[i]!,
+    toolMm: p.tool_mm[i]!,
+  }));
+  return {
+    /** Every step-th pose is drawn, of `total`. */
+    step,
+    total: p.row.length,
+    viewer: {
+      errors: fittedErrors(shown.analysis.result.fit.parameters),
+      poses,
+      residualsUm: indices.map((i) => p.residual_um[i]!),
+      shown: fitLabel(shown, phaseOf),
+      overlay: other
+        ? { ...fitLabel(other, phaseOf), errors: fittedErrors(other.analysis.result.fit.parameters) }
+        : null,
+    },
+  };
 }
