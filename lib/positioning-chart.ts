@@ -5,12 +5,15 @@
  * positive approach a little left of the target, the negative a little right, so the bars never
  * hide each other). Pure: numbers in, coordinates out.
  */
+import { boxOf, horizontal, vertical, type Box, type Segment } from "@/lib/chart-lines";
 import { niceTicks } from "@/lib/chart-ticks";
 import type { PositioningChartPoint } from "@/lib/rotary-positioning-display";
 
 export const POSITIONING_CHART = { width: 560, height: 230, left: 52, right: 14, top: 14, bottom: 36 };
 /** How far each direction's marker sits from its target, px. */
 const SPLIT = 5;
+/** Half the width of the caps that end a ± 2s bar, px. */
+const CAP = 3;
 
 export interface ChartMark {
   targetDeg: number;
@@ -21,17 +24,22 @@ export interface ChartMark {
   mean: number;
   lo: number;
   hi: number;
+  /** The ± 2s bar and the caps at its two ends. */
+  bar: Segment;
+  caps: [Segment, Segment];
 }
 
 export interface PositioningChartLayout {
   width: number;
   height: number;
   plot: { x0: number; x1: number; y0: number; y1: number };
+  /** The plot's frame. */
+  frame: Box;
   xTicks: Array<{ x: number; label: string }>;
   /** `label` with the unit (the page), `value` without it (the PDF's chart font has no ″). */
-  yTicks: Array<{ y: number; label: string; value: string }>;
-  /** y of the zero line. */
-  zeroY: number;
+  yTicks: Array<{ y: number; label: string; value: string; grid: Segment }>;
+  /** The dashed zero line across the plot. */
+  zeroLine: Segment;
   pos: ChartMark[];
   neg: ChartMark[];
 }
@@ -62,22 +70,29 @@ export function positioningChartLayout(chart: {
   const yTicks = niceTicks(Math.min(0, ...all.map((p) => p.lo)), Math.max(0, ...all.map((p) => p.hi)), 5);
   const y = (v: number) => plot.y1 - ((v - yTicks.min) / (yTicks.max - yTicks.min)) * (plot.y1 - plot.y0);
   const marks = (ps: readonly PositioningChartPoint[], dx: number): ChartMark[] =>
-    ps.map((p) => ({
-      targetDeg: p.targetDeg,
-      x: x(p.targetDeg) + dx,
-      y: y(p.mean),
-      yLo: y(p.lo),
-      yHi: y(p.hi),
-      mean: p.mean,
-      lo: p.lo,
-      hi: p.hi,
-    }));
+    ps.map((p) => {
+      const at = x(p.targetDeg) + dx;
+      const [yLo, yHi] = [y(p.lo), y(p.hi)];
+      return {
+        targetDeg: p.targetDeg,
+        x: at,
+        y: y(p.mean),
+        yLo,
+        yHi,
+        mean: p.mean,
+        lo: p.lo,
+        hi: p.hi,
+        bar: vertical(at, yLo, yHi),
+        caps: [horizontal(at - CAP, at + CAP, yLo), horizontal(at - CAP, at + CAP, yHi)],
+      };
+    });
   // Label at most about 12 targets so the labels do not run into each other.
   const every = Math.max(1, Math.ceil(targets.length / 12));
   return {
     width,
     height,
     plot,
+    frame: boxOf(plot),
     xTicks: targets
       .filter((_, i) => i % every === 0)
       .map((t) => ({ x: x(t), label: `${Number(t.toFixed(3))}°` })),
@@ -85,8 +100,9 @@ export function positioningChartLayout(chart: {
       y: y(v),
       label: `${tickText(v, yTicks.step)}″`,
       value: tickText(v, yTicks.step),
+      grid: horizontal(plot.x0, plot.x1, y(v)),
     })),
-    zeroY: y(0),
+    zeroLine: horizontal(plot.x0, plot.x1, y(0)),
     pos: marks(chart.pos, -SPLIT),
     neg: marks(chart.neg, SPLIT),
   };

@@ -32,9 +32,9 @@ function Series({
       />
       {marks.map((m) => (
         <g key={m.targetDeg}>
-          <line x1={m.x} x2={m.x} y1={m.yLo} y2={m.yHi} stroke={colour} strokeWidth="1.5" />
-          <line x1={m.x - 3} x2={m.x + 3} y1={m.yLo} y2={m.yLo} stroke={colour} strokeWidth="1.5" />
-          <line x1={m.x - 3} x2={m.x + 3} y1={m.yHi} y2={m.yHi} stroke={colour} strokeWidth="1.5" />
+          {[m.bar, ...m.caps].map((seg, i) => (
+            <line key={i} {...seg} stroke={colour} strokeWidth="1.5" />
+          ))}
           {shape === "circle" ? (
             <circle cx={m.x} cy={m.y} r="3.6" fill={colour} />
           ) : (
@@ -78,20 +78,13 @@ export function PositioningChart({
         </desc>
         {l.yTicks.map((t) => (
           <g key={t.label}>
-            <line x1={l.plot.x0} x2={l.plot.x1} y1={t.y} y2={t.y} stroke={drawing.grid} />
+            <line {...t.grid} stroke={drawing.grid} />
             <text x={l.plot.x0 - 6} y={t.y + 3.5} textAnchor="end" fontSize="10" fill={drawing.axisText}>
               {t.label}
             </text>
           </g>
         ))}
-        <line
-          x1={l.plot.x0}
-          x2={l.plot.x1}
-          y1={l.zeroY}
-          y2={l.zeroY}
-          stroke={drawing.zeroLine}
-          strokeDasharray="4 3"
-        />
+        <line {...l.zeroLine} stroke={drawing.zeroLine} strokeDasharray="4 3" />
         {l.xTicks.map((t) => (
           <text
             key={t.label}
@@ -113,14 +106,7 @@ export function PositioningChart({
         >
           Target angle
         </text>
-        <rect
-          x={l.plot.x0}
-          y={l.plot.y0}
-          width={l.plot.x1 - l.plot.x0}
-          height={l.plot.y1 - l.plot.y0}
-          fill="none"
-          stroke={palette.graphite[200]}
-        />
+        <rect {...l.frame} fill="none" stroke={palette.graphite[200]} />
         <Series marks={l.pos} colour={POS} shape="circle" />
         <Series marks={l.neg} colour={NEG} shape="square" />
       </svg>

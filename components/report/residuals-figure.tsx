@@ -25,15 +25,7 @@ export function Residuals({ r }: { r: NonNullable<NonNullable<ReportData["charts
             fill={b.over ? palette.fail[700] : palette.nominal[500]}
           />
         ))}
-        <line
-          x1={c.left}
-          x2={c.right}
-          y1={c.limitY}
-          y2={c.limitY}
-          stroke={drawing.accentLine}
-          strokeWidth={1.5}
-          strokeDasharray="6 4"
-        />
+        <line {...c.limitLine} stroke={drawing.accentLine} strokeWidth={1.5} strokeDasharray="6 4" />
         <text x={c.right} y={c.limitY - 4} textAnchor="end" fontSize="11" fill={drawing.accentText}>
           3 s = {c.limit.toFixed(2)} µm
         </text>

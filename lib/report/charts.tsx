@@ -98,16 +98,8 @@ export function ResidualsChart({ residuals }: { residuals: NonNullable<ReportCha
   return (
     <View>
       <Svg width={c.width} height={c.height} viewBox={`0 0 ${c.width} ${c.height}`}>
-        {c.ticks.map((t) => (
-          <Line
-            key={`g${t}`}
-            x1={c.left}
-            x2={c.right}
-            y1={c.y(t)}
-            y2={c.y(t)}
-            stroke={C.rule}
-            strokeWidth={0.4}
-          />
+        {c.grid.map((g) => (
+          <Line key={`g${g.value}`} {...g.line} stroke={C.rule} strokeWidth={0.4} />
         ))}
         {c.ticks.map((t) => (
           <Text
@@ -124,16 +116,8 @@ export function ResidualsChart({ residuals }: { residuals: NonNullable<ReportCha
         {c.bars.map((b, i) => (
           <Rect key={i} x={b.x} y={b.y} width={b.width} height={b.height} fill={b.over ? C.fail : C.before} />
         ))}
-        <Line
-          x1={c.left}
-          x2={c.right}
-          y1={c.limitY}
-          y2={c.limitY}
-          stroke={C.accent}
-          strokeWidth={0.9}
-          strokeDasharray="3 2"
-        />
-        <Line x1={c.left} x2={c.right} y1={c.zeroY} y2={c.zeroY} stroke={C.ink} strokeWidth={0.6} />
+        <Line {...c.limitLine} stroke={C.accent} strokeWidth={0.9} strokeDasharray="3 2" />
+        <Line {...c.zeroLine} stroke={C.ink} strokeWidth={0.6} />
         <Text x={c.right} y={c.limitY - 2} textAnchor="end" style={{ fontSize: 6 }} fill={C.accent}>
           {`3 s = ${c.limit.toFixed(2)}`}
         </Text>

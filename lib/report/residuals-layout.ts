@@ -5,6 +5,7 @@
  * and the 3 s line of the outlier rule; bars above it are counted and drawn in the fail colour.
  * Pure: numbers in, coordinates and the caption out.
  */
+import { horizontal } from "@/lib/chart-lines";
 import { niceTicks } from "@/lib/chart-ticks";
 
 export interface ResidualsSeries {
@@ -56,9 +57,13 @@ export function residualsLayout(r: ResidualsSeries, box: ResidualsBox) {
     y,
     bars,
     over,
+    /** A grid line across the plot at each tick. */
+    grid: axis.ticks.map((t) => ({ value: t, line: horizontal(m.l, w - m.r, y(t)) })),
     /** The 3 s line, end to end, and the zero line. */
     limitY: y(limit),
     zeroY: y(0),
+    limitLine: horizontal(m.l, w - m.r, y(limit)),
+    zeroLine: horizontal(m.l, w - m.r, y(0)),
     width: w,
     height: h,
     left: m.l,

@@ -81,6 +81,13 @@ describe("the residual chart's layout (page and PDF alike)", () => {
     expect(c.bars[3]!.height).toBe(0.5);
   });
 
+  it("runs the 3 s line, the zero line and each grid line across the plot, 10 to 90", () => {
+    expect(c.zeroLine).toEqual({ x1: 10, x2: 90, y1: 55, y2: 55 });
+    expect(c.limitLine).toEqual({ x1: 10, x2: 90, y1: c.y(3), y2: c.y(3) });
+    expect(c.grid.map((g) => g.value)).toEqual(c.ticks);
+    expect(c.grid.at(-1)!.line).toEqual({ x1: 10, x2: 90, y1: 5, y2: 5 });
+  });
+
   it("says what the bars are, in one caption for both", () => {
     expect(c.caption).toBe(
       "Largest residual component per pose in µm, 8 poses in file order (each bar the largest of 2 consecutive poses); " +

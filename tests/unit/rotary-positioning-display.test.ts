@@ -142,8 +142,8 @@ describe("the positioning chart's layout", () => {
   it("puts targets left to right, the positive approach left of the negative, larger values higher", () => {
     expect(l.pos[0]!.x).toBeLessThan(l.pos[1]!.x);
     expect(l.neg[0]!.x - l.pos[0]!.x).toBe(10);
-    expect(l.pos[0]!.y).toBeLessThan(l.zeroY);
-    expect(l.pos[1]!.y).toBeGreaterThan(l.zeroY);
+    expect(l.pos[0]!.y).toBeLessThan(l.zeroLine.y1);
+    expect(l.pos[1]!.y).toBeGreaterThan(l.zeroLine.y1);
     expect(l.pos[0]!.yHi).toBeLessThan(l.pos[0]!.yLo);
   });
 
@@ -157,6 +157,25 @@ describe("the positioning chart's layout", () => {
     expect(l.xTicks.map((t) => t.label)).toEqual(["0°", "90°"]);
     expect(l.yTicks[0]!.label).toBe("-4″");
     expect(l.yTicks[l.yTicks.length - 1]!.label).toBe("2″");
+  });
+
+  it("draws each ± 2s bar from lo to hi with a 6 px cap at each end, and lines across the plot", () => {
+    const m = l.neg[1]!;
+    expect(m.bar).toEqual({ x1: m.x, x2: m.x, y1: m.yLo, y2: m.yHi });
+    expect(m.caps).toEqual([
+      { x1: m.x - 3, x2: m.x + 3, y1: m.yLo, y2: m.yLo },
+      { x1: m.x - 3, x2: m.x + 3, y1: m.yHi, y2: m.yHi },
+    ]);
+    const across = { x1: l.plot.x0, x2: l.plot.x1 };
+    expect(l.zeroLine).toMatchObject(across);
+    expect(l.zeroLine.y1).toBe(l.zeroLine.y2);
+    for (const t of l.yTicks) expect(t.grid).toEqual({ ...across, y1: t.y, y2: t.y });
+    expect(l.frame).toEqual({
+      x: l.plot.x0,
+      y: l.plot.y0,
+      width: l.plot.x1 - l.plot.x0,
+      height: l.plot.y1 - l.plot.y0,
+    });
   });
 });
 

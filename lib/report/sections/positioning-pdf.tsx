@@ -42,17 +42,11 @@ function Marks({ marks, colour, square }: { marks: ChartMark[]; colour: string; 
         strokeWidth={0.8}
         strokeOpacity={0.6}
       />
-      {marks.map((m) => (
-        <Line
-          key={`b${m.targetDeg}`}
-          x1={m.x}
-          x2={m.x}
-          y1={m.yLo}
-          y2={m.yHi}
-          stroke={colour}
-          strokeWidth={1.1}
-        />
-      ))}
+      {marks.flatMap((m) =>
+        [m.bar, ...m.caps].map((seg, i) => (
+          <Line key={`b${m.targetDeg}-${i}`} {...seg} stroke={colour} strokeWidth={1.1} />
+        )),
+      )}
       {marks.map((m) =>
         square ? (
           <Rect
@@ -79,15 +73,7 @@ function Chart({ test }: { test: ReportPositioningTest }) {
     <View wrap={false} style={{ marginTop: 4 }}>
       <Svg width={CHART_W} height={(CHART_W * l.height) / l.width} viewBox={`0 0 ${l.width} ${l.height}`}>
         {l.yTicks.map((t) => (
-          <Line
-            key={`g${t.label}`}
-            x1={l.plot.x0}
-            x2={l.plot.x1}
-            y1={t.y}
-            y2={t.y}
-            stroke={drawing.grid}
-            strokeWidth={0.5}
-          />
+          <Line key={`g${t.label}`} {...t.grid} stroke={drawing.grid} strokeWidth={0.5} />
         ))}
         {l.yTicks.map((t) => (
           <Text
@@ -113,24 +99,8 @@ function Chart({ test }: { test: ReportPositioningTest }) {
             {t.label}
           </Text>
         ))}
-        <Line
-          x1={l.plot.x0}
-          x2={l.plot.x1}
-          y1={l.zeroY}
-          y2={l.zeroY}
-          stroke={drawing.zeroLine}
-          strokeWidth={0.7}
-          strokeDasharray="3 2"
-        />
-        <Rect
-          x={l.plot.x0}
-          y={l.plot.y0}
-          width={l.plot.x1 - l.plot.x0}
-          height={l.plot.y1 - l.plot.y0}
-          fill="none"
-          stroke={palette.graphite[200]}
-          strokeWidth={0.6}
-        />
+        <Line {...l.zeroLine} stroke={drawing.zeroLine} strokeWidth={0.7} strokeDasharray="3 2" />
+        <Rect {...l.frame} fill="none" stroke={palette.graphite[200]} strokeWidth={0.6} />
         <Marks marks={l.pos} colour={POS} />
         <Marks marks={l.neg} colour={NEG} square />
       </Svg>
