@@ -57,7 +57,9 @@ export function Field({
   children: React.ReactElement<ControlProps>;
   className?: string;
 }) {
-  const id = `${useId()}-${name}`;
+  const generated = `${useId()}-${name}`;
+  // A control that names its own id keeps it (the builder moves focus to a step's title by id).
+  const id = (isValidElement(children) ? children.props.id : undefined) ?? generated;
   const form = useFormContext();
   const error = useFieldError(name);
   const hintId = hint ? `${id}-hint` : undefined;
@@ -86,12 +88,16 @@ export function Field({
   );
 }
 
-/** A labelled text input; `numeric` for serials and numbers (tabular figures). */
+/**
+ * A labelled text input; `numeric` for serials and numbers (tabular figures); `decimal` for a
+ * decimal number (also the numeric keypad on a tablet, and no autofill).
+ */
 export function TextField({
   name,
   label,
   hint,
   numeric = false,
+  decimal = false,
   className = "",
   ...input
 }: {
@@ -99,10 +105,16 @@ export function TextField({
   label: string;
   hint?: string;
   numeric?: boolean;
+  decimal?: boolean;
 } & Omit<React.InputHTMLAttributes<HTMLInputElement>, "name">) {
+  const number = decimal ? ({ inputMode: "decimal", autoComplete: "off" } as const) : {};
   return (
     <Field name={name} label={label} hint={hint}>
-      <input className={`${inputClass} ${numeric ? "num" : ""} ${className}`} {...input} />
+      <input
+        className={`${inputClass} ${numeric || decimal ? "num" : ""} ${className}`}
+        {...number}
+        {...input}
+      />
     </Field>
   );
 }

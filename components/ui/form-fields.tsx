@@ -106,13 +106,7 @@ function FormField({ spec }: { spec: FieldSpec }) {
       </Field>
     );
   const { type, placeholder, numeric, decimal } = spec;
-  return (
-    <TextField
-      {...{ name, label, hint, defaultValue, type, placeholder }}
-      numeric={numeric || decimal}
-      inputMode={decimal ? "decimal" : undefined}
-    />
-  );
+  return <TextField {...{ name, label, hint, defaultValue, type, placeholder, numeric, decimal }} />;
 }
 
 /** The fixed values a form sends with its fields (the record it acts on, the action it asks for). */

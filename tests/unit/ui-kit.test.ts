@@ -4,6 +4,7 @@ import { createElement } from "react";
 import { renderToString } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import { mapActionErrors } from "@/components/ui/form-errors";
+import { Field, TextField } from "@/components/ui/field";
 import { FormFields, HiddenFields } from "@/components/ui/form-fields";
 import { buildTable, column, Table, type ColumnDef, type TableProps } from "@/components/ui/table";
 
@@ -164,7 +165,9 @@ describe("FormFields", () => {
   });
   it("draws numbers with tabular figures, decimals with the decimal keypad, and the other kinds", () => {
     expect(html).toMatch(/<input[^>]*class="[^"]*\bnum\b[^"]*"[^>]*name="serial"/);
-    expect(html).toMatch(/<input[^>]*inputMode="decimal"[^>]*name="massKg"[^>]*value="12"/);
+    expect(html).toMatch(
+      /<input[^>]*inputMode="decimal"[^>]*autoComplete="off"[^>]*name="massKg"[^>]*value="12"/,
+    );
     expect(html).toMatch(/<select[^>]*name="axis"[^>]*><option value=""[^>]*>Choose…<\/option>/);
     expect(html).toMatch(/<textarea[^>]*rows="3"[^>]*name="notes"/);
     expect(html).toContain("Printed on the report.");
@@ -174,6 +177,25 @@ describe("FormFields", () => {
     const hidden = renderToString(createElement(HiddenFields, { values: { jobId: "j1", action: "hold" } }));
     expect(hidden).toBe(
       '<input type="hidden" name="jobId" value="j1"/><input type="hidden" name="action" value="hold"/>',
+    );
+  });
+});
+
+describe("Field", () => {
+  it("keeps an id the control names itself, so a page can move focus to it, and labels it", () => {
+    const html = renderToString(
+      createElement(Field, { name: "title", label: "Title" }, createElement("input", { id: "step-2-title" })),
+    );
+    expect(html).toMatch(/<label for="step-2-title"[^>]*>Title<\/label><input id="step-2-title"/);
+  });
+  it("gives a control without an id one of its own, tied to the label", () => {
+    const html = renderToString(
+      createElement(TextField, { name: "lower", label: "Lower limit", decimal: true }),
+    );
+    const id = /<label for="([^"]+)"/.exec(html)?.[1];
+    expect(id).toMatch(/lower$/);
+    expect(html).toMatch(
+      new RegExp(`<input class="[^"]*\\bnum\\b[^"]*" inputMode="decimal" autoComplete="off" id="${id}"`),
     );
   });
 });
