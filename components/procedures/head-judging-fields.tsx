@@ -8,7 +8,7 @@
  * Checked by the same schema as the API (lib/validations/procedures.ts).
  */
 import { useFormContext, useWatch } from "react-hook-form";
-import { Field, FieldError, inputClass } from "@/components/ui/field";
+import { Field, FieldError, inputClass, TextField } from "@/components/ui/field";
 import {
   type BuilderHeadJudging,
   type BuilderParameterLimit,
@@ -18,6 +18,12 @@ import { headParameterUnit } from "@/geometry/head/config";
 import { PARAMETER_WORDS } from "@/lib/fit-display";
 import { LIMIT_COLUMNS, LimitsTable, SourceCells, SourceSelect } from "@/components/procedures/limit-cells";
 import { PositioningLimitsFields } from "@/components/procedures/positioning-limit-fields";
+
+/** The TCP check's two limits, in µm: field and label. */
+const TCP_LIMITS = [
+  ["tcpRangeLimitUm", "Range of the centre in X, Y and Z, each (µm)"],
+  ["tcpDeviationLimitUm", "Largest distance from the mean centre (µm)"],
+] as const;
 
 export function HeadJudgingFields({ headAxes = [] }: { headAxes?: readonly HeadModelAxes[] }) {
   const form = useFormContext<BuilderHeadJudging>();
@@ -40,30 +46,18 @@ export function HeadJudgingFields({ headAxes = [] }: { headAxes?: readonly HeadM
           <input type="checkbox" className="size-5" {...form.register("tcpCheckRequired")} />
           Ask for a TCP check after compensation before the report is issued
         </label>
-        <Field
-          name="tcpRangeLimitUm"
-          label="Range of the centre in X, Y and Z, each (µm)"
-          hint="Empty: recorded, not judged."
-        >
-          <input className={`${inputClass} num`} inputMode="decimal" autoComplete="off" />
-        </Field>
-        <Field
-          name="tcpDeviationLimitUm"
-          label="Largest distance from the mean centre (µm)"
-          hint="Empty: recorded, not judged."
-        >
-          <input className={`${inputClass} num`} inputMode="decimal" autoComplete="off" />
-        </Field>
+        {TCP_LIMITS.map(([name, label]) => (
+          <TextField key={name} name={name} label={label} hint="Empty: recorded, not judged." decimal />
+        ))}
         <Field name="tcpLimitSource" label="Where the TCP limits come from">
           <SourceSelect />
         </Field>
-        <Field
+        <TextField
           name="tcpLimitSourceNote"
           label="TCP source note"
           hint="The standard and clause, the maker's document, or why it is common practice."
-        >
-          <input className={inputClass} autoComplete="off" />
-        </Field>
+          autoComplete="off"
+        />
       </fieldset>
       <fieldset className="rounded-card border border-graphite-200 p-4">
         <legend className="px-1 font-medium">Limits for the fitted head parameters</legend>

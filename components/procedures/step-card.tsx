@@ -10,7 +10,14 @@ import type { BuilderStep, BuilderValues } from "@/components/procedures/builder
 import { SourceSelect } from "@/components/procedures/limit-cells";
 import { PointsFields } from "@/components/procedures/points-fields";
 import { Button } from "@/components/ui/button";
-import { closedSetOptions, Field, inputClass, OptionList, type Option } from "@/components/ui/field";
+import {
+  closedSetOptions,
+  Field,
+  inputClass,
+  OptionList,
+  TextField,
+  type Option,
+} from "@/components/ui/field";
 import { STEP_KIND_LABELS, STEP_KINDS } from "@/lib/domain/procedures";
 
 const UNIT_OPTIONS: readonly Option[] = [
@@ -95,24 +102,19 @@ export function StepCard({
         </Field>
         {MEASURED.has(kind) ? (
           <>
-            <Field
+            <TextField
               name={at("quantity")}
               label="What is measured"
               hint="Shown on the checklist and the report."
-            >
-              <input className={inputClass} autoComplete="off" />
-            </Field>
+              autoComplete="off"
+            />
             <Field name={at("unit")} label="Unit of the limits">
               <select className={inputClass}>
                 <OptionList options={UNIT_OPTIONS} />
               </select>
             </Field>
-            <Field name={at("lower")} label="Lower limit" hint="Empty: no lower limit.">
-              <input className={`${inputClass} num`} inputMode="decimal" autoComplete="off" />
-            </Field>
-            <Field name={at("upper")} label="Upper limit" hint="Empty: no upper limit.">
-              <input className={`${inputClass} num`} inputMode="decimal" autoComplete="off" />
-            </Field>
+            <TextField name={at("lower")} label="Lower limit" hint="Empty: no lower limit." decimal />
+            <TextField name={at("upper")} label="Upper limit" hint="Empty: no upper limit." decimal />
             <Field name={at("decisionRule")} label="Decision rule">
               <select className={inputClass}>
                 <OptionList options={RULE_OPTIONS} />
@@ -121,28 +123,28 @@ export function StepCard({
           </>
         ) : null}
         {kind === "angle_over_distance" ? (
-          <Field name={at("distanceMm")} label="Distance the reading is taken over (mm)">
-            <input className={`${inputClass} num`} inputMode="decimal" autoComplete="off" />
-          </Field>
+          <TextField name={at("distanceMm")} label="Distance the reading is taken over (mm)" decimal />
         ) : null}
         {kind === "multi_point" ? <PointsFields index={i} /> : null}
         {kind === "record" ? (
-          <Field name={at("recordUnit")} label="Unit of the recorded value" hint="N·m, mm, °, min …">
-            <input className={inputClass} autoComplete="off" />
-          </Field>
+          <TextField
+            name={at("recordUnit")}
+            label="Unit of the recorded value"
+            hint="N·m, mm, °, min …"
+            autoComplete="off"
+          />
         ) : null}
         {JUDGED.has(kind) ? (
           <>
             <Field name={at("limitSource")} label="Where the limit comes from">
               <SourceSelect className={inputClass} />
             </Field>
-            <Field
+            <TextField
               name={at("limitSourceNote")}
               label="Source note"
               hint="The standard and clause, the maker's document, or why it is common practice."
-            >
-              <input className={inputClass} autoComplete="off" />
-            </Field>
+              autoComplete="off"
+            />
           </>
         ) : null}
         <Field
