@@ -1,6 +1,6 @@
 // The UI kit's pure parts: the Table's sorting, empty state and card labels (rendered to HTML on
 // the server, as a server page renders them), and how a server action's refusal maps onto a form.
-import { createElement } from "react";
+import { createElement, type ReactElement } from "react";
 import { renderToString } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import { mapActionErrors } from "@/components/ui/form-errors";
@@ -184,7 +184,11 @@ describe("FormFields", () => {
 describe("Field", () => {
   it("keeps an id the control names itself, so a page can move focus to it, and labels it", () => {
     const html = renderToString(
-      createElement(Field, { name: "title", label: "Title" }, createElement("input", { id: "step-2-title" })),
+      createElement(Field, {
+        name: "title",
+        label: "Title",
+        children: createElement("input", { id: "step-2-title" }) as ReactElement<{ id?: string }>,
+      }),
     );
     expect(html).toMatch(/<label for="step-2-title"[^>]*>Title<\/label><input id="step-2-title"/);
   });
