@@ -6,6 +6,7 @@ import { buttonClass } from "@/components/ui/button";
 import { HEAD_AXIS_ROLE_WORDS, HEAD_AXIS_ROLES } from "@/lib/domain/positioning";
 import { UNCERTAINTY_WORDS, type DatasetKindKey } from "./kinds";
 import type { Units, UploadState } from "./upload-state";
+import { UploadIcon } from "@/components/ui/icons";
 
 export function Choice<T extends string>({
   legend,
@@ -179,16 +180,7 @@ export function DropZone({ file, onPick }: { file: File | null; onPick: (f: File
       }}
       className={`flex flex-col items-center gap-2 rounded-card border-2 border-dashed p-6 text-center ${dragging ? "border-accent-500 bg-accent-50" : "border-graphite-300 bg-graphite-50"}`}
     >
-      <svg viewBox="0 0 24 24" className="h-8 w-8 text-graphite-500" aria-hidden="true">
-        <path
-          d="M12 16V4m0 0-4 4m4-4 4 4M4 16v3a1 1 0 0 0 1 1h14a1 1 0 0 0 1-1v-3"
-          fill="none"
-          stroke="currentColor"
-          strokeWidth="1.8"
-          strokeLinecap="round"
-          strokeLinejoin="round"
-        />
-      </svg>
+      <UploadIcon className="h-8 w-8 text-graphite-500" />
       <p className="text-sm text-graphite-700">Drop a CSV file here, or</p>
       <button type="button" onClick={() => inputRef.current?.click()} className={buttonClass("secondary")}>
         Choose a file
