@@ -4,21 +4,16 @@
  * the answer. The route files that read one thing by its id are one call of `readRoute`.
  */
 import "server-only";
-import { requireUser } from "@/lib/auth/session";
+import { signedInRoute } from "@/lib/auth/route";
 import type { Actor } from "@/lib/domain/roles";
 import { notFound } from "@/lib/errors";
-import { route } from "@/lib/http";
-
-type IdCtx = { params: Promise<{ id: string }> };
 
 export function readRoute<T>(
   what: string,
   read: (actor: Actor, id: string) => Promise<T | null | undefined>,
   answer: (found: T, at: { req: Request; actor: Actor; id: string }) => Response | Promise<Response>,
 ) {
-  return route<IdCtx>(async (req, ctx) => {
-    const { id } = await ctx.params;
-    const actor = await requireUser();
+  return signedInRoute<{ id: string }>(async (req, actor, { id }) => {
     const found = await read(actor, id);
     if (!found) throw notFound(what);
     return answer(found, { req, actor, id });

@@ -11,14 +11,12 @@ import type { z } from "zod";
 import { createInstrument, listInstruments, updateInstrument } from "@/db/queries/instruments";
 import * as lists from "@/db/queries/registers";
 import * as admin from "@/db/queries/registers-admin";
-import { requireUser } from "@/lib/auth/session";
+import { signedInRoute } from "@/lib/auth/route";
 import type { Actor } from "@/lib/domain/roles";
 import { notFound } from "@/lib/errors";
-import { readJson, route } from "@/lib/http";
+import { readJson } from "@/lib/http";
 import type { Register } from "@/lib/policy/registers";
 import * as v from "@/lib/validations/registers";
-
-type IdCtx = { params: Promise<{ id: string }> };
 
 /** `GET` answers `{ <plural>: [...] }`; `POST` answers 201 `{ <singular>: row }`. */
 export function registerCollection<S extends z.ZodType>(o: {
@@ -30,12 +28,10 @@ export function registerCollection<S extends z.ZodType>(o: {
   create: (actor: Actor, input: z.infer<S>) => Promise<unknown>;
 }) {
   return {
-    GET: route(async () => {
-      const actor = await requireUser();
+    GET: signedInRoute(async (_req, actor) => {
       return Response.json({ [o.plural]: await o.list(actor) });
     }),
-    POST: route(async (req) => {
-      const actor = await requireUser();
+    POST: signedInRoute(async (req, actor) => {
       admin.assertRegisterEdit(actor, o.register);
       const input = o.schema.parse(await readJson(req));
       return Response.json({ [o.singular]: await o.create(actor, input) }, { status: 201 });
@@ -51,9 +47,7 @@ export function registerItem<S extends z.ZodType>(o: {
   update: (actor: Actor, id: string, input: z.infer<S>) => Promise<unknown>;
 }) {
   return {
-    PATCH: route<IdCtx>(async (req, ctx) => {
-      const { id } = await ctx.params;
-      const actor = await requireUser();
+    PATCH: signedInRoute<{ id: string }>(async (req, actor, { id }) => {
       admin.assertRegisterEdit(actor, o.register);
       const input = o.schema.parse(await readJson(req));
       const row = await o.update(actor, id, input);

@@ -2,10 +2,10 @@
 // `?jobKind=&headModel=` keeps those that apply. POST creates a procedure (office and engineers).
 import { z } from "zod";
 import { createProcedure, listProcedures } from "@/db/queries/procedures";
-import { requireUser } from "@/lib/auth/session";
+import { signedInRoute } from "@/lib/auth/route";
 import { JOB_KINDS } from "@/lib/domain/jobs";
 import { forbidden } from "@/lib/errors";
-import { readJson, route } from "@/lib/http";
+import { readJson } from "@/lib/http";
 import { procedureEditRefusal } from "@/lib/policy/procedures";
 
 export const runtime = "nodejs";
@@ -18,8 +18,7 @@ const filterSchema = z.object({
   headModel: z.string().trim().min(1).max(120).optional(),
 });
 
-export const GET = route(async (req) => {
-  const actor = await requireUser();
+export const GET = signedInRoute(async (req, actor) => {
   const q = new URL(req.url).searchParams;
   const filter = filterSchema.parse({
     jobKind: q.get("jobKind") || undefined,
@@ -28,8 +27,7 @@ export const GET = route(async (req) => {
   return Response.json({ procedures: await listProcedures(actor, filter) });
 });
 
-export const POST = route(async (req) => {
-  const actor = await requireUser();
+export const POST = signedInRoute(async (req, actor) => {
   const refusal = procedureEditRefusal(actor, null);
   if (refusal) throw forbidden(refusal);
   const procedure = await createProcedure(actor, await readJson(req));

@@ -1,12 +1,10 @@
 import { getJobDetail, jobDetailJson } from "@/db/queries/jobs";
 import { moveJob, updateJobRecord } from "@/db/queries/job-office";
-import { requireUser } from "@/lib/auth/session";
+import { signedInRoute } from "@/lib/auth/route";
 import { notFound } from "@/lib/errors";
-import { readJson, route } from "@/lib/http";
+import { readJson } from "@/lib/http";
 import { readRoute } from "@/lib/read-route";
 import { jobMoveSchema, jobRecordSchema } from "@/lib/validations/jobs";
-
-type Ctx = { params: Promise<{ id: string }> };
 
 // Another tenant's job is "not found", exactly like a missing one.
 export const GET = readRoute("job", getJobDetail, (detail) => Response.json({ job: jobDetailJson(detail) }));
@@ -15,9 +13,7 @@ export const GET = readRoute("job", getJobDetail, (detail) => Response.json({ jo
  * The office's changes to a job: a body with `action` ("hold" | "release" | "cancel", with a
  * `reason`) moves it; any other body edits record fields and/or the installer. → 200 `{ job }`.
  */
-export const PATCH = route<Ctx>(async (req, ctx) => {
-  const { id } = await ctx.params;
-  const actor = await requireUser();
+export const PATCH = signedInRoute<{ id: string }>(async (req, actor, { id }) => {
   const body = await readJson(req);
   if (body && typeof body === "object" && "action" in body)
     await moveJob(actor, id, jobMoveSchema.parse(body));

@@ -4,22 +4,18 @@
 import { z } from "zod";
 import { setProcedureRetired } from "@/db/queries/procedures";
 import { getTemplate } from "@/db/queries/templates";
-import { requireUser } from "@/lib/auth/session";
+import { signedInRoute } from "@/lib/auth/route";
 import { forbidden } from "@/lib/errors";
-import { readJson, route } from "@/lib/http";
+import { readJson } from "@/lib/http";
 import { procedureRetireRefusal } from "@/lib/policy/procedures";
 import { readRoute } from "@/lib/read-route";
 
 export const runtime = "nodejs";
-type Ctx = { params: Promise<{ id: string }> };
-
 export const GET = readRoute("procedure", getTemplate, (procedure) => Response.json({ procedure }));
 
 const patchSchema = z.object({ retired: z.boolean() });
 
-export const PATCH = route<Ctx>(async (req, ctx) => {
-  const { id } = await ctx.params;
-  const actor = await requireUser();
+export const PATCH = signedInRoute<{ id: string }>(async (req, actor, { id }) => {
   const refusal = procedureRetireRefusal(actor);
   if (refusal) throw forbidden(refusal);
   const procedure = await setProcedureRetired(actor, id, patchSchema.parse(await readJson(req)).retired);

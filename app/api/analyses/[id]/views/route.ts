@@ -9,16 +9,14 @@ import {
   VIEW_MAX_BYTES,
   viewJson,
 } from "@/db/queries/analysis-views";
-import { requireUser } from "@/lib/auth/session";
+import { signedInRoute } from "@/lib/auth/route";
 import { forbidden, invalid, notFound } from "@/lib/errors";
 import { viewSaveRefusal } from "@/lib/policy/analyses";
-import { route } from "@/lib/http";
+import { readRoute } from "@/lib/read-route";
 import { readMultipart } from "@/lib/storage/multipart";
 import { zUuid } from "@/lib/domain/uuid";
 
 export const runtime = "nodejs";
-type Ctx = { params: Promise<{ id: string }> };
-
 /** Room for the form fields and multipart boundaries beside the picture itself. */
 const BODY_OVERHEAD_BYTES = 64 * 1024;
 
@@ -36,18 +34,12 @@ const fieldsSchema = z.object({
     .transform((v) => v?.trim() || null),
 });
 
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const { id } = await ctx.params;
-  const actor = await requireUser();
-  const views = await listAnalysisViews(actor, id);
-  if (!views) throw notFound("analysis");
-  return Response.json({ views: views.map(viewJson) });
-});
+export const GET = readRoute("analysis", listAnalysisViews, (views) =>
+  Response.json({ views: views.map(viewJson) }),
+);
 
-export const POST = route<Ctx>(async (req, ctx) => {
+export const POST = signedInRoute<{ id: string }>(async (req, actor, { id }) => {
   // Steps: who, may they see it, may they save, then read the (capped) body, then store.
-  const { id } = await ctx.params;
-  const actor = await requireUser();
   if (!(await getAnalysis(actor, id))) throw notFound("analysis");
   const refusal = viewSaveRefusal(actor);
   if (refusal) throw forbidden(refusal);

@@ -2,10 +2,9 @@
 // the unit fields of geometry/README.md, "CSV formats"), streamed within the size limit, re-parsed by geometry/'s
 // readers and stored only when valid.
 import { insertDataset, listDatasets, requireUploadableJob } from "@/db/queries/datasets";
-import { requireUser } from "@/lib/auth/session";
+import { signedInRoute } from "@/lib/auth/route";
 import { env } from "@/lib/env";
 import { invalid } from "@/lib/errors";
-import { route } from "@/lib/http";
 import { readMultipart } from "@/lib/storage/multipart";
 import { checkPositioningAxisLetter, parseDatasetFile, parseUploadForm } from "@/lib/storage/parse-dataset";
 import { readRoute } from "@/lib/read-route";
@@ -13,14 +12,10 @@ import { readRoute } from "@/lib/read-route";
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
-type Ctx = { params: Promise<{ id: string }> };
-
 export const GET = readRoute("job", listDatasets, (rows) => Response.json({ datasets: rows }));
 
-export const POST = route<Ctx>(async (req, ctx) => {
+export const POST = signedInRoute<{ id: string }>(async (req, actor, { id }) => {
   // 1. Who and where, before a byte of the body is read.
-  const { id } = await ctx.params;
-  const actor = await requireUser();
   await requireUploadableJob(actor, id);
   // 2. The body, streamed within the limit.
   const { fields, file } = await readMultipart(req, env.UPLOAD_MAX_BYTES);

@@ -4,27 +4,20 @@
 // clientId was already sent.
 import { addPhoto, listPhotos, parsePhotoForm, requirePhotoJob } from "@/db/queries/photos";
 import { getJobDetail } from "@/db/queries/jobs";
-import { requireUser } from "@/lib/auth/session";
+import { signedInRoute } from "@/lib/auth/route";
 import { invalid, notFound } from "@/lib/errors";
-import { route } from "@/lib/http";
 import { PHOTO_MAX_BYTES } from "@/lib/photos";
 import { readMultipart } from "@/lib/storage/multipart";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
-type Ctx = { params: Promise<{ id: string }> };
-
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const { id } = await ctx.params;
-  const actor = await requireUser();
+export const GET = signedInRoute<{ id: string }>(async (_req, actor, { id }) => {
   if (!(await getJobDetail(actor, id))) throw notFound("job");
   return Response.json({ photos: await listPhotos(actor, id) });
 });
 
-export const POST = route<Ctx>(async (req, ctx) => {
-  const { id } = await ctx.params;
-  const actor = await requireUser();
+export const POST = signedInRoute<{ id: string }>(async (req, actor, { id }) => {
   // Who and where before a byte of the body is read (a repeated send is still answered below).
   await requirePhotoJob(actor, id).catch(async (err) => {
     await req.body?.cancel().catch(() => undefined);
