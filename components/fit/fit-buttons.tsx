@@ -6,6 +6,7 @@ import { useActionButton } from "@/components/ui/use-action-button";
 import { SignForm } from "@/components/report/sign-form";
 import { approveFitAction, runFitAction } from "@/app/(app)/jobs/[id]/analysis/actions";
 import type { NonConformingParameter } from "@/lib/fit-display";
+import { SIGNING_WORDS } from "@/lib/domain/signatures";
 
 export function RunFitButton({
   jobId,
@@ -74,9 +75,7 @@ export function ApproveButton({
       ) : null}
       {open ? (
         <SignForm
-          title="Sign: parameters approved"
-          meaning="You approve this fit as the head's parameter set for the job. The job moves to approved and no other fit can be run; the report is issued separately."
-          submitLabel="Sign the approval"
+          {...SIGNING_WORDS.parameters_approved}
           hidden={{ jobId, analysisId }}
           run={approveFitAction}
         >

@@ -11,7 +11,7 @@ import { getReadinessView } from "@/db/queries/readiness";
 import { getReportContent, listJobReports } from "@/db/queries/reports";
 import { listJobSignatures } from "@/db/queries/signatures";
 import { ROLE_LABELS } from "@/lib/domain/roles";
-import { SIGNATURE_LABELS } from "@/lib/domain/signatures";
+import { SIGNATURE_LABELS, SIGNING_WORDS } from "@/lib/domain/signatures";
 import { signatureRefusal } from "@/lib/policy/signatures";
 import { requirePageUser } from "@/lib/auth/session";
 import { formatDateTimeUtc } from "@/lib/format";
@@ -187,57 +187,29 @@ export default async function ReportPage({ params }: Props) {
           {work.map((m) => (
             <SignForm
               key={m}
-              title={`Sign as ${SIGNATURE_LABELS[m].toLowerCase()}`}
-              meaning={
-                m === "performed"
-                  ? "You confirm you carried out the recorded work and readings on this machine and head."
-                  : "You confirm you inspected the recorded readings and measurements and they are complete."
-              }
-              submitLabel="Sign"
+              {...SIGNING_WORDS[m]}
               hidden={{ jobId: d.job.id, meaning: m }}
               run={signWorkAction}
             />
           ))}
         </div>
         {mayIssue ? (
-          <SignForm
-            title="Approve and issue the report"
-            meaning="You approve the results and issue the report to the customer. The PDF is rendered once and its SHA-256 is signed; it can never change afterwards."
-            submitLabel="Approve and issue"
-            hidden={{ jobId: d.job.id }}
-            run={issueReportAction}
-          />
+          <SignForm {...SIGNING_WORDS.approved} hidden={{ jobId: d.job.id }} run={issueReportAction} />
         ) : null}
         {mayAmend ? (
-          <SignForm
-            title="Issue an amendment"
-            meaning="A new revision that supersedes the current one; the earlier revision stays on record, marked as superseded."
-            submitLabel="Issue amendment"
-            hidden={{ jobId: d.job.id }}
-            withComment="amendmentReason"
-            commentLabel="What the amendment corrects"
-            commentRequired
-            run={issueReportAction}
-          />
+          <SignForm {...SIGNING_WORDS.amendment} hidden={{ jobId: d.job.id }} run={issueReportAction} />
         ) : null}
         {mayRespond ? (
           <>
             <SignForm
-              title="Accept the report"
-              meaning="Your counter-signature: you accept the head as reported."
-              submitLabel="Accept"
+              {...SIGNING_WORDS.accepted}
               hidden={{ jobId: d.job.id, reportId: current!.id, decision: "accepted" }}
               run={respondAction}
             />
             <SignForm
-              title="Reject the report"
-              meaning="Say what is wrong; the application engineer is told and can issue an amendment."
-              submitLabel="Reject"
+              {...SIGNING_WORDS.rejected}
               tone="danger"
               hidden={{ jobId: d.job.id, reportId: current!.id, decision: "rejected" }}
-              withComment="comment"
-              commentLabel="Why you reject it"
-              commentRequired
               run={respondAction}
             />
           </>
