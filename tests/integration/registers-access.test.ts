@@ -91,6 +91,21 @@ const CELLS: Record<string, Cells> = {
 const ids = { marlow: "", tollan: "", site: "", machine: "", head: "", instrument: "", procedure: "" };
 let n = 0;
 const uniq = () => `${Date.now().toString(36)}-${++n}`;
+/**
+ * POST /api/instruments as whoever is signed in: a dial test indicator reading in µm, with a serial
+ * of its own, unless the test gives other fields.
+ */
+const postInstrument = (fields: Record<string, unknown> = {}) =>
+  post(instrumentsPost, "/api/instruments", {
+    kind: "dial test indicator",
+    serial: `DTI-${uniq()}`,
+    quantityKind: "length",
+    resolution: 1,
+    standardUncertainty: 1.5,
+    unit: "um",
+    calibrationDueOn: "2027-06-30",
+    ...fields,
+  });
 
 beforeAll(async () => {
   const byName = async (name: string) =>
@@ -168,15 +183,7 @@ describe("register API access matrix", () => {
             secondaryAxis: "A",
             nominalPivotLengthMm: 250,
           }),
-          await post(instrumentsPost, "/api/instruments", {
-            kind: "dial test indicator",
-            serial: `DTI-${u}`,
-            quantityKind: "length",
-            resolution: 1,
-            standardUncertainty: 1.5,
-            unit: "um",
-            calibrationDueOn: "2027-06-30",
-          }),
+          await postInstrument(),
         ];
         expect(answers.map((r) => r.status)).toEqual([created, created, created, created, created]);
       });
@@ -318,17 +325,7 @@ describe("register API: creating, correcting and refusing bad input (administrat
   });
 
   it("an instrument's resolution is stored in mm from µm; an angle unit on a length instrument is 422 `unit`", async () => {
-    const created = await (
-      await post(instrumentsPost, "/api/instruments", {
-        kind: "dial test indicator",
-        serial: `DTI-P-${uniq()}`,
-        quantityKind: "length",
-        resolution: 10,
-        standardUncertainty: 5,
-        unit: "um",
-        calibrationDueOn: "2027-06-30",
-      })
-    ).json();
+    const created = await (await postInstrument({ resolution: 10, standardUncertainty: 5 })).json();
     const id = created.instrument.id as string;
     const res = await patch(instrumentPatch, "/api/instruments", id, {
       resolution: 2,
@@ -463,11 +460,10 @@ describe("retiring register rows and recalibrating instruments (administrator)",
   it("a recalibration is a new record with the history kept, and brings a retired instrument back", async () => {
     const u = uniq();
     const created = await (
-      await post(instrumentsPost, "/api/instruments", {
+      await postInstrument({
         kind: "electronic level",
         serial: `LVL-${u}`,
         quantityKind: "angle",
-        resolution: 1,
         standardUncertainty: 2,
         unit: "arcsec",
         calibratedOn: "2025-01-10",
