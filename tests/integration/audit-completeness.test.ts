@@ -30,11 +30,10 @@ import {
   reports,
   signatures,
 } from "@/db/schema";
-import type { Actor } from "@/lib/domain/roles";
 import { PNG } from "pngjs";
 import { upload } from "./dataset-helpers";
 import {
-  allActors,
+  actorsBeforeAll,
   BASE_JOB,
   DEMO_PASSWORD as PW,
   firstStepOf,
@@ -45,11 +44,10 @@ import {
 } from "./fixtures";
 import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
-const as: Record<string, Actor> = {};
+const as = actorsBeforeAll();
 let jobId = "";
 
 beforeAll(async () => {
-  Object.assign(as, await allActors());
   const t = await jobBaseOf(BASE_JOB);
   const job = await createJobFromTemplate(as.admin!, {
     templateId: t.templateId,

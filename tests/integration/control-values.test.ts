@@ -8,20 +8,18 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { GET as getRoute, PUT as putRoute } from "@/app/api/jobs/[id]/control-values/route";
 import { db } from "@/db";
 import { runHeadFit } from "@/db/queries/analyses";
-import { approveConfirmed, insertTestJob, uploadDemoProbe } from "./fixtures";
+import { actorsBeforeAll, approveConfirmed, insertTestJob, uploadDemoProbe } from "./fixtures";
 import { changeJobStatus, createJobFromTemplate } from "@/db/queries/job-status";
 import { getReportContent, issueReport } from "@/db/queries/reports";
 import { jobStateSha256, signJobWork } from "@/db/queries/signatures";
 import { canonicalJson } from "@/lib/canonical-json";
 import { sha256Hex } from "@/lib/report/signing";
-import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { auditEvents, controlValueRecords, instruments, jobs, procedureTemplates } from "@/db/schema";
 import { recordBudgetInputs } from "@/db/queries/budget";
 import { demoTcpCheckCsv } from "@/db/seed-control";
 import { getReadiness } from "@/db/queries/readiness";
 import { jobTcpChecks } from "@/db/queries/control-values";
-import type { Actor } from "@/lib/domain/roles";
 import { upload } from "./dataset-helpers";
 import { jobIdByReference, request, signInAs } from "./helpers";
 import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
@@ -90,7 +88,12 @@ const CELLS: Record<
   },
 };
 
-const as: Record<string, Actor> = {};
+const as = actorsBeforeAll([
+  "admin@halvard.example",
+  "installer@halvard.example",
+  "inspector@halvard.example",
+  "engineer@halvard.example",
+]);
 const ids = { marlow: "", tollan: "", flow: "", analysis: "" };
 
 async function newJob(title: string) {
@@ -109,13 +112,6 @@ async function newJob(title: string) {
 }
 
 beforeAll(async () => {
-  for (const e of [
-    "admin@halvard.example",
-    "installer@halvard.example",
-    "inspector@halvard.example",
-    "engineer@halvard.example",
-  ])
-    as[e.split("@")[0]!] = (await getActor((await signInAs(e))!))!;
   ids.marlow = await newJob("Control values access job");
   ids.tollan = await jobIdByReference("TR-2026-0048");
 }, 30_000);

@@ -6,7 +6,7 @@
 // (bringing a job to the state its report needs).
 import { and, asc, eq } from "drizzle-orm";
 import type { PgColumn, PgInsertValue, PgTable } from "drizzle-orm/pg-core";
-import { expect } from "vitest";
+import { beforeAll, expect } from "vitest";
 import { POST as fitRoute } from "@/app/api/datasets/[id]/analyses/route";
 import { POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
@@ -62,8 +62,19 @@ export async function actorsOf(emails: readonly string[]): Promise<Record<string
   return as;
 }
 
-/** actorsOf every demo person: admin, installer, inspector, engineer, buyer, buyer-tollan. */
-export const allActors = () => actorsOf(PEOPLE);
+/**
+ * The actors of these demo people (every one unless told), keyed as actorsOf keys them and filled
+ * in by a beforeAll hook registered here: call it at the top of a test file, before the file's own
+ * beforeAll, which then runs after it (vitest runs "before" hooks in order) with the last of them
+ * signed in.
+ */
+export function actorsBeforeAll(emails: readonly string[] = PEOPLE): Record<string, Actor> {
+  const as: Record<string, Actor> = {};
+  beforeAll(async () => {
+    Object.assign(as, await actorsOf(emails));
+  });
+  return as;
+}
 
 export type JobBase = Awaited<ReturnType<typeof jobBaseOf>>;
 

@@ -14,14 +14,13 @@ import { recordReading } from "@/db/queries/readings";
 import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
 import { auditEvents, deviations, instruments, jobs, readings, reports } from "@/db/schema";
-import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import type { BlockerCode } from "@/lib/report/readiness";
 import type { ReportData } from "@/lib/report/types";
 import { pdfText } from "../pdf-tools";
 import { upload } from "./dataset-helpers";
 import {
-  allActors,
+  actorsBeforeAll,
   BASE_JOB,
   DEMO_PASSWORD as PW,
   firstStepOf,
@@ -31,7 +30,7 @@ import {
 import { signInAs } from "./helpers";
 import { carryOpenResults, jobBaseOf, measureEveryStep, procedureSteps } from "./ready-job";
 
-const as: Record<string, Actor> = {};
+const as = actorsBeforeAll();
 let base: { customerId: string; machineId: string; headId: string; templateId: string };
 
 const newJob = (status: "measuring" | "approved" = "measuring") =>
@@ -62,7 +61,6 @@ async function refusedCodes(jobId: string): Promise<BlockerCode[]> {
 }
 
 beforeAll(async () => {
-  Object.assign(as, await allActors());
   base = await jobBaseOf(BASE_JOB);
 });
 

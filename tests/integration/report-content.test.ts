@@ -18,12 +18,11 @@ import { saveProcedureVersion } from "@/db/queries/procedures";
 import { getTemplate } from "@/db/queries/templates";
 import { procedureTemplates, reports, templateParameterLimits, templateSteps } from "@/db/schema";
 import type { HeadFitJson } from "@/geometry";
-import type { Actor } from "@/lib/domain/roles";
 import type { ReportData } from "@/lib/report/types";
 import { stepInputFromRow, type StepRow } from "@/lib/validations/procedures";
 import { pdfFile, pdfImageSizes, pdfText } from "../pdf-tools";
 import {
-  allActors,
+  actorsBeforeAll,
   BASE_JOB,
   DEMO_PASSWORD as PW,
   insertTestJob,
@@ -32,7 +31,7 @@ import {
 } from "./fixtures";
 import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
-const as: Record<string, Actor> = {};
+const as = actorsBeforeAll();
 let jobId = "";
 let templateId = "";
 let fit: HeadFitJson;
@@ -49,7 +48,6 @@ const viewPng = (() => {
 })();
 
 beforeAll(async () => {
-  Object.assign(as, await allActors());
   templateId = (await jobBaseOf(BASE_JOB)).templateId;
   jobId = await insertTestJob({
     tag: "RPT",

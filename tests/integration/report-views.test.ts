@@ -14,11 +14,10 @@ import { chooseReportView, reportViewChoices } from "@/db/queries/report-views";
 import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
 import { auditEvents, jobs, reports } from "@/db/schema";
-import type { Actor } from "@/lib/domain/roles";
 import type { ReportData } from "@/lib/report/types";
 import { carryOpenResults, measureEveryStep } from "./ready-job";
 import {
-  allActors,
+  actorsBeforeAll,
   approveConfirmed,
   DEMO_PASSWORD as PW,
   insertTestJob,
@@ -26,7 +25,7 @@ import {
   uploadDemoProbe,
 } from "./fixtures";
 
-const as: Record<string, Actor> = {};
+const as = actorsBeforeAll();
 let jobId = "";
 let analysisId = "";
 let otherAnalysisId = "";
@@ -42,7 +41,6 @@ const save = async (analysis: string, w: number, h: number, caption: string) =>
   ).id;
 
 beforeAll(async () => {
-  Object.assign(as, await allActors());
   jobId = await insertTestJob({
     tag: "VW",
     title: "Report views test job",

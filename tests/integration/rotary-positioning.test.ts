@@ -23,17 +23,20 @@ import { getJobDetail } from "@/db/queries/jobs";
 import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
 import { auditEvents, datasets, jobs, procedureTemplates, templatePositioningLimits } from "@/db/schema";
-import type { Actor } from "@/lib/domain/roles";
 import { rotaryPositioningSubject } from "@/lib/rotary-positioning-display";
 import { pdfText } from "../pdf-tools";
 import { BIDIRECTIONAL, PRINTED_AXIS, publicDataCsv } from "../fixtures/iso230-2-public";
 import { upload } from "./dataset-helpers";
 import { request, signInAs } from "./helpers";
-import { insertTestJob } from "./fixtures";
+import { actorsBeforeAll, insertTestJob } from "./fixtures";
 import { jobBaseOf } from "./ready-job";
 
 const PW = "trammel-demo";
-const as: Record<string, Actor> = {};
+const as = actorsBeforeAll([
+  "installer@halvard.example",
+  "inspector@halvard.example",
+  "engineer@halvard.example",
+]);
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
 let jobId = "";
 
@@ -42,8 +45,6 @@ const printedArcsec = (value: number, printedMm: number, what?: string) =>
   expect(Math.abs(value - printedMm * 3600), what).toBeLessThanOrEqual(0.5e-8 * 3600 + 1e-12);
 
 beforeAll(async () => {
-  for (const e of ["installer@halvard.example", "inspector@halvard.example", "engineer@halvard.example"])
-    as[e.split("@")[0]!] = (await getActor((await signInAs(e))!))!;
   // A procedure version of our own (no steps) that limits the primary axis: A ≤ 0.25″, R ≤ 0.3″.
   const [t] = await db
     .insert(procedureTemplates)
