@@ -13,12 +13,12 @@ import { db } from "@/db";
 import { approveAnalysis, nonConformingParameters } from "@/db/queries/analyses";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { auditEvents, instruments, jobs, users } from "@/db/schema";
+import { analyses, auditEvents, datasets, instruments, jobs, users } from "@/db/schema";
 import type { JobKind, JobStatus } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import { upload } from "./dataset-helpers";
-import { request, signInAs } from "./helpers";
+import { jobIdByReference, request, signInAs } from "./helpers";
 import { jobBaseOf, procedureSteps } from "./ready-job";
 
 /**
@@ -42,6 +42,8 @@ export const PEOPLE = Object.values(WHO).filter((e) => e !== null);
 export const DEMO_PASSWORD = "trammel-demo";
 /** The seeded Marlow Creek job (measuring) whose customer, machine, head and procedure test jobs borrow. */
 export const BASE_JOB = "TR-2026-0052";
+/** The seeded Tollan Mold Works job (in review): the other tenant's job in the access tests. */
+export const TOLLAN_JOB = "TR-2026-0048";
 
 /** Signs in as the demo user and returns the actor the app reads for them (role and company). */
 export async function signInActor(email: string): Promise<Actor> {
@@ -159,6 +161,24 @@ export async function fitDemoProbe(
   const res = await runFit(datasetId);
   expect(res.status).toBe(201);
   return { datasetId, analysisId: ((await res.json()) as { analysis: { id: string } }).analysis.id };
+}
+
+/**
+ * The head fits db/seed-analyses.ts stores on BASE_JOB, with their sphere-probe datasets, by phase:
+ * "pre" (as found) and "post" (after adjustment).
+ */
+export async function seededFits() {
+  const rows = await db
+    .select({ analysisId: analyses.id, datasetId: datasets.id, phase: datasets.phase })
+    .from(analyses)
+    .innerJoin(datasets, eq(datasets.id, analyses.datasetId))
+    .where(eq(analyses.jobId, await jobIdByReference(BASE_JOB)));
+  const ofPhase = (phase: "pre" | "post") => {
+    const fit = rows.find((r) => r.phase === phase);
+    if (!fit) throw new Error(`no seeded ${phase} fit on ${BASE_JOB}`);
+    return fit;
+  };
+  return { pre: ofPhase("pre"), post: ofPhase("post") };
 }
 
 /**
