@@ -15,10 +15,9 @@ import { db } from "@/db";
 import { runHeadFit } from "@/db/queries/analyses";
 import { saveAnalysisView } from "@/db/queries/analysis-views";
 import { deleteDataset } from "@/db/queries/datasets";
-import { changeJobStatus, createJobFromTemplate } from "@/db/queries/job-status";
+import { createJobFromTemplate } from "@/db/queries/job-status";
 import { recordReading } from "@/db/queries/readings";
 import { issueReport, respondToReport } from "@/db/queries/reports";
-import { signJobWork } from "@/db/queries/signatures";
 import {
   analyses,
   analysisViews,
@@ -39,10 +38,10 @@ import {
   firstStepOf,
   instrumentIdBySerial,
   uploadDemoProbe,
-  approveConfirmed,
+  measureSignAndApprove,
   auditEventsOf,
 } from "./fixtures";
-import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
+import { carryOpenResults, jobBaseOf } from "./ready-job";
 
 const as = actorsBeforeAll();
 let jobId = "";
@@ -96,11 +95,7 @@ beforeAll(async () => {
   );
   await deleteDataset(as.installer!, (await extra.json()).id);
   const { analysis } = await runHeadFit(as.engineer!, probeId);
-  await measureEveryStep(as.installer!, jobId, "post");
-  await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
-  await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
-  await changeJobStatus(as.installer!, jobId, "in_review");
-  await approveConfirmed(as.engineer!, analysis.id, PW);
+  await measureSignAndApprove(as, jobId, analysis.id, "post");
   await carryOpenResults(
     as.engineer!,
     jobId,

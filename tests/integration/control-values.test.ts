@@ -8,10 +8,16 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { GET as getRoute, PUT as putRoute } from "@/app/api/jobs/[id]/control-values/route";
 import { db } from "@/db";
 import { runHeadFit } from "@/db/queries/analyses";
-import { actorsBeforeAll, approveConfirmed, insertTestJob, uploadDemoProbe } from "./fixtures";
+import {
+  actorsBeforeAll,
+  insertTestJob,
+  measureSignAndApprove,
+  signPerformedAndInspected,
+  uploadDemoProbe,
+} from "./fixtures";
 import { changeJobStatus, createJobFromTemplate } from "@/db/queries/job-status";
 import { getReportContent, issueReport } from "@/db/queries/reports";
-import { jobStateSha256, signJobWork } from "@/db/queries/signatures";
+import { jobStateSha256 } from "@/db/queries/signatures";
 import { canonicalJson } from "@/lib/canonical-json";
 import { sha256Hex } from "@/lib/report/signing";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
@@ -194,11 +200,7 @@ describe("one job through the control loop", () => {
     const { analysis } = await runHeadFit(as.engineer!, probe);
     ids.analysis = analysis.id;
     await measureEveryStep(as.installer!, ids.flow, "pre");
-    await measureEveryStep(as.installer!, ids.flow, "post");
-    await signJobWork(as.installer!, { jobId: ids.flow, meaning: "performed", password: PW });
-    await signJobWork(as.inspector!, { jobId: ids.flow, meaning: "inspected", password: PW });
-    await changeJobStatus(as.installer!, ids.flow, "in_review");
-    await approveConfirmed(as.engineer!, analysis.id, PW);
+    await measureSignAndApprove(as, ids.flow, analysis.id, "post");
 
     // Values to enter = as found + the approved fit's correction, in the control's units.
     await signInAs("inspector@halvard.example");
@@ -330,11 +332,7 @@ describe("a procedure that asks for a tool-centre-point check", () => {
       template: true,
       base: { ...(await jobBaseOf("TR-2026-0052")), templateId: t!.id },
     });
-    const sign = async () => {
-      await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
-      await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
-    };
-    await sign();
+    await signPerformedAndInspected(as, jobId);
     const before = await getReadiness(as.engineer!, jobId);
     expect(before!.blockers.map((b) => b.code)).toEqual(["tcp_check_missing"]);
     const refused = await issueReport(as.engineer!, { jobId, password: PW }).then(
@@ -355,7 +353,7 @@ describe("a procedure that asks for a tool-centre-point check", () => {
       "signature_stale",
       "signature_stale",
     ]);
-    await sign();
+    await signPerformedAndInspected(as, jobId);
     expect((await getReadiness(as.engineer!, jobId))!.ready).toBe(true);
     const { reportId } = await issueReport(as.engineer!, { jobId, password: PW });
     const content = await getReportContent(as.engineer!, reportId);

@@ -11,6 +11,8 @@ import { POST as fitRoute } from "@/app/api/datasets/[id]/analyses/route";
 import { POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
 import { approveAnalysis, nonConformingParameters } from "@/db/queries/analyses";
+import { changeJobStatus } from "@/db/queries/job-status";
+import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { analyses, auditEvents, datasets, instruments, jobs, users } from "@/db/schema";
@@ -19,7 +21,7 @@ import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import { upload } from "./dataset-helpers";
 import { jobIdByReference, request, signInAs } from "./helpers";
-import { jobBaseOf, procedureSteps } from "./ready-job";
+import { jobBaseOf, measureEveryStep, procedureSteps } from "./ready-job";
 
 /**
  * Who the access tables ask about: anonymous, each staff role and each tenant's customer, with the
@@ -277,4 +279,27 @@ export async function approveConfirmed(engineer: Actor, analysisId: string, pass
     password,
     open.map((p) => p.key),
   );
+}
+
+/** The installer signs the job's work as performed, then the inspector as inspected (21 CFR 11.50 meanings). */
+export async function signPerformedAndInspected(as: Record<string, Actor>, jobId: string) {
+  await signJobWork(as.installer!, { jobId, meaning: "performed", password: DEMO_PASSWORD });
+  await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: DEMO_PASSWORD });
+}
+
+/**
+ * Takes a job with a fit through review as its people do: the installer measures every step in
+ * `phase`, the installer and the inspector sign, the installer sends the job to review and the
+ * engineer approves the fit (approveConfirmed). Open FAIL results are left for the test to carry.
+ */
+export async function measureSignAndApprove(
+  as: Record<string, Actor>,
+  jobId: string,
+  analysisId: string,
+  phase: "pre" | "post" = "pre",
+) {
+  await measureEveryStep(as.installer!, jobId, phase);
+  await signPerformedAndInspected(as, jobId);
+  await changeJobStatus(as.installer!, jobId, "in_review");
+  await approveConfirmed(as.engineer!, analysisId);
 }

@@ -25,13 +25,15 @@ import {
   DEMO_PASSWORD as PW,
   firstStepOf,
   insertTestJob,
+  type JobBase,
+  signPerformedAndInspected,
   uploadDemoProbe,
 } from "./fixtures";
 import { signInAs } from "./helpers";
 import { carryOpenResults, jobBaseOf, measureEveryStep, procedureSteps } from "./ready-job";
 
 const as = actorsBeforeAll();
-let base: { customerId: string; machineId: string; headId: string; templateId: string };
+let base: JobBase;
 
 const newJob = (status: "measuring" | "approved" = "measuring") =>
   insertTestJob({
@@ -163,8 +165,7 @@ describe("issue is refused while any blocker stands", () => {
     const codes = await refusedCodesAt(jobId);
     // Both signatures covered a record without the test part.
     expect(codes.filter((c) => c === "signature_stale")).toHaveLength(2);
-    await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
-    await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
+    await signPerformedAndInspected(as, jobId);
     expect(await refusedCodesAt(jobId)).not.toContain("signature_stale");
   });
 

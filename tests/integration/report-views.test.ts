@@ -9,16 +9,14 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { runHeadFit } from "@/db/queries/analyses";
 import { saveAnalysisView } from "@/db/queries/analysis-views";
-import { changeJobStatus } from "@/db/queries/job-status";
 import { chooseReportView, reportViewChoices } from "@/db/queries/report-views";
 import { issueReport } from "@/db/queries/reports";
-import { signJobWork } from "@/db/queries/signatures";
 import { auditEvents, jobs, reports } from "@/db/schema";
 import type { ReportData } from "@/lib/report/types";
-import { carryOpenResults, measureEveryStep } from "./ready-job";
+import { carryOpenResults } from "./ready-job";
 import {
   actorsBeforeAll,
-  approveConfirmed,
+  measureSignAndApprove,
   DEMO_PASSWORD as PW,
   insertTestJob,
   refusalOf,
@@ -61,11 +59,7 @@ describe("choosing saved views for the report", () => {
   });
 
   it("refuses a view of another fit and a view under 600 × 400 px, with the reason; nothing stored", async () => {
-    await measureEveryStep(as.installer!, jobId);
-    await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
-    await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
-    await changeJobStatus(as.installer!, jobId, "in_review");
-    await approveConfirmed(as.engineer!, analysisId, PW);
+    await measureSignAndApprove(as, jobId, analysisId);
     await carryOpenResults(as.engineer!, jobId, "Accepted for the test job.");
     const other = await save(otherAnalysisId, 800, 600, "other fit");
     expect(

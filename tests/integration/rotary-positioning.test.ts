@@ -20,7 +20,6 @@ import { saveProcedureVersion } from "@/db/queries/procedures";
 import { getReadiness, recordDeviation } from "@/db/queries/readiness";
 import { getReportContent, issueReport } from "@/db/queries/reports";
 import { getJobDetail } from "@/db/queries/jobs";
-import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
 import { auditEvents, datasets, jobs, procedureTemplates, templatePositioningLimits } from "@/db/schema";
 import { rotaryPositioningSubject } from "@/lib/rotary-positioning-display";
@@ -28,7 +27,7 @@ import { pdfText } from "../pdf-tools";
 import { BIDIRECTIONAL, PRINTED_AXIS, publicDataCsv } from "../fixtures/iso230-2-public";
 import { upload } from "./dataset-helpers";
 import { request, signInAs } from "./helpers";
-import { actorsBeforeAll, insertTestJob } from "./fixtures";
+import { actorsBeforeAll, insertTestJob, signPerformedAndInspected } from "./fixtures";
 import { jobBaseOf } from "./ready-job";
 
 const PW = "trammel-demo";
@@ -79,14 +78,10 @@ beforeAll(async () => {
 }, 30_000);
 
 const codes = async () => (await getReadiness(as.engineer!, jobId))!.blockers.map((b) => b.code);
-const sign = async () => {
-  await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
-  await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
-};
 
 describe("a rotary positioning test through the app", () => {
   it("blocks issue while the limited axis has no test", async () => {
-    await sign();
+    await signPerformedAndInspected(as, jobId);
     expect(await codes()).toEqual(["rotary_positioning_missing"]);
     const refused = await issueReport(as.engineer!, { jobId, password: PW }).then(
       () => "issued",
@@ -156,7 +151,7 @@ describe("a rotary positioning test through the app", () => {
 
     // The new data makes the signatures stale; signed again, the FAIL is what stands.
     expect(await codes()).toEqual(["signature_stale", "signature_stale", "result_not_conforming"]);
-    await sign();
+    await signPerformedAndInspected(as, jobId);
     expect(await codes()).toEqual(["result_not_conforming"]);
     await recordDeviation(as.engineer!, {
       jobId,

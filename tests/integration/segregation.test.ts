@@ -21,6 +21,7 @@ import {
   DEMO_PASSWORD as PW,
   firstStepOf,
   insertTestJob,
+  type JobBase,
   instrumentIdBySerial,
   refusalOf,
   uploadDemoProbe,
@@ -29,7 +30,7 @@ import {
 import { jobBaseOf } from "./ready-job";
 
 const as = actorsBeforeAll();
-let base: { customerId: string; machineId: string; headId: string; templateId: string };
+let base: JobBase;
 let stepId: string;
 let instrumentId: string;
 
