@@ -27,21 +27,14 @@ import { demoTcpCheckCsv } from "@/db/seed-control";
 import { getReadiness } from "@/db/queries/readiness";
 import { jobTcpChecks } from "@/db/queries/control-values";
 import { upload } from "./dataset-helpers";
-import { jobIdByReference, request, signInAs } from "./helpers";
+import { jobIdByReference, jsonBody, request, signInAs } from "./helpers";
 import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
 const PW = "trammel-demo";
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
 const get = (id: string) => getRoute(request(`/api/jobs/${id}/control-values`), p(id));
 const put = (id: string, body: unknown) =>
-  putRoute(
-    request(`/api/jobs/${id}/control-values`, {
-      method: "PUT",
-      headers: { "content-type": "application/json" },
-      body: JSON.stringify(body),
-    }),
-    p(id),
-  );
+  putRoute(request(`/api/jobs/${id}/control-values`, jsonBody("PUT", body)), p(id));
 const asFoundBody = {
   stage: "as_found",
   unitSystem: "metric",

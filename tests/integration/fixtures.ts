@@ -20,7 +20,7 @@ import type { JobKind, JobStatus } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import { upload } from "./dataset-helpers";
-import { jobIdByReference, request, signInAs } from "./helpers";
+import { jobIdByReference, jsonBody, request, signInAs } from "./helpers";
 import { jobBaseOf, measureEveryStep, procedureSteps } from "./ready-job";
 
 /**
@@ -188,14 +188,9 @@ export async function seededFits() {
  * returns the answer's status and JSON body.
  */
 export async function postReading(jobId: string, body: Record<string, unknown>) {
-  const res = await readingsPost(
-    request(`/api/jobs/${jobId}/readings`, {
-      method: "POST",
-      body: JSON.stringify(body),
-      headers: { "content-type": "application/json" },
-    }),
-    { params: Promise.resolve({ id: jobId }) },
-  );
+  const res = await readingsPost(request(`/api/jobs/${jobId}/readings`, jsonBody("POST", body)), {
+    params: Promise.resolve({ id: jobId }),
+  });
   return { status: res.status, json: await res.json() };
 }
 

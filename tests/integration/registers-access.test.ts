@@ -34,21 +34,16 @@ import {
   sites,
 } from "@/db/schema";
 import { insertRow, WHO } from "./fixtures";
-import { request, signInAs } from "./helpers";
+import { jsonBody, request, signInAs } from "./helpers";
 
 type Handler = (req: Request, ctx: { params: Promise<{ id: string }> }) => Promise<Response>;
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
-const json = (method: string, body: unknown): RequestInit => ({
-  method,
-  headers: { "content-type": "application/json" },
-  body: JSON.stringify(body),
-});
 const get = (h: (req: Request, ctx: never) => Promise<Response>, path: string) =>
   h(request(path), undefined as never);
 const post = (h: (req: Request, ctx: never) => Promise<Response>, path: string, body: unknown) =>
-  h(request(path, json("POST", body)), undefined as never);
+  h(request(path, jsonBody("POST", body)), undefined as never);
 const patch = (h: Handler, path: string, id: string, body: unknown) =>
-  h(request(`${path}/${id}`, json("PATCH", body)), p(id));
+  h(request(`${path}/${id}`, jsonBody("PATCH", body)), p(id));
 
 /** Per role: [customers, sites, machines, heads, instruments, users, procedures] for read; write is the admin's alone. */
 type Cells = { read: Record<string, number>; write: number };
@@ -194,7 +189,7 @@ describe("register API access matrix", () => {
         const res = await calibrationPost(
           request(
             `/api/instruments/${ids.instrument}/calibrations`,
-            json("POST", {
+            jsonBody("POST", {
               calibratedOn: "2026-01-15",
               dueOn: "2027-01-15",
               certificateRef: `CERT-${uniq()}`,
@@ -477,7 +472,7 @@ describe("retiring register rows and recalibrating instruments (administrator)",
     expect(retired.instrument.retiredAt).not.toBeNull();
 
     const cal = (body: unknown) =>
-      calibrationPost(request(`/api/instruments/${id}/calibrations`, json("POST", body)), p(id));
+      calibrationPost(request(`/api/instruments/${id}/calibrations`, jsonBody("POST", body)), p(id));
     const first = await cal({
       calibratedOn: "2026-02-01",
       dueOn: "2027-02-01",
@@ -535,7 +530,7 @@ describe("retiring register rows and recalibrating instruments (administrator)",
     const missing = await calibrationPost(
       request(
         `/api/instruments/${none}/calibrations`,
-        json("POST", {
+        jsonBody("POST", {
           calibratedOn: "2026-01-01",
           dueOn: "2027-01-01",
           certificateRef: "X",

@@ -26,7 +26,7 @@ import { rotaryPositioningSubject } from "@/lib/rotary-positioning-display";
 import { pdfText } from "../pdf-tools";
 import { BIDIRECTIONAL, PRINTED_AXIS, publicDataCsv } from "../fixtures/iso230-2-public";
 import { upload } from "./dataset-helpers";
-import { request, signInAs } from "./helpers";
+import { jsonBody, request, signInAs } from "./helpers";
 import { actorsBeforeAll, insertTestJob, signPerformedAndInspected } from "./fixtures";
 import { jobBaseOf } from "./ready-job";
 
@@ -234,14 +234,7 @@ describe("a new procedure version", () => {
     const [job] = await db.select({ templateId: jobs.templateId }).from(jobs).where(eq(jobs.id, jobId));
     const from = job!.templateId!;
     const post = (body: unknown, id = from) =>
-      versionPost(
-        request(`/api/procedures/${id}/versions`, {
-          method: "POST",
-          headers: { "content-type": "application/json" },
-          body: JSON.stringify(body),
-        }),
-        p(id),
-      );
+      versionPost(request(`/api/procedures/${id}/versions`, jsonBody("POST", body)), p(id));
     const steps = [{ title: "Findings", kind: "note" }];
     // A limit without its source is refused, naming the field; nothing is stored.
     const refused = await post({
