@@ -12,7 +12,7 @@ import { POST as readingRoute } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
 import { auditEvents, heads, jobs, machines, outbox, procedureTemplates, users } from "@/db/schema";
 import { WHO, auditEventsOf } from "./fixtures";
-import { jobIdByReference, jsonBody, request, signInAs } from "./helpers";
+import { jobIdByReference, issueFields, jsonBody, request, signInAs } from "./helpers";
 
 /** POST /api/jobs: the office opens jobs (201); everyone else is refused (401 anonymous, 403 others). */
 const CREATE: Record<string, number> = {
@@ -253,9 +253,7 @@ describe("PATCH /api/jobs/{id}: record fields per role and tenant", () => {
     expect(unknown.status).toBe(422);
     const half = await patch(id, { scheduledDate: "2027-02-02", timeZone: "Europe/Berlin" });
     expect(half.status).toBe(422);
-    expect((await half.json()).error.issues.map((i: { field: string }) => i.field)).toEqual([
-      "scheduledTime",
-    ]);
+    expect(await issueFields(half)).toEqual(["scheduledTime"]);
     expect(await getJob(id)).toEqual(before);
   });
 });

@@ -34,7 +34,7 @@ import {
   sites,
 } from "@/db/schema";
 import { insertRow, WHO } from "./fixtures";
-import { jsonBody, request, signInAs } from "./helpers";
+import { issueFields, jsonBody, request, signInAs } from "./helpers";
 
 type Handler = (req: Request, ctx: { params: Promise<{ id: string }> }) => Promise<Response>;
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
@@ -243,7 +243,7 @@ describe("register API: creating, correcting and refusing bad input (administrat
     const before = (await db.select({ c: sql<number>`count(*)::int` }).from(sites))[0]!.c;
     const res = await post(sitesPost, "/api/sites", { name: "No customer" });
     expect(res.status).toBe(422);
-    expect((await res.json()).error.issues.map((i: { field: string }) => i.field)).toEqual(["customerId"]);
+    expect(await issueFields(res)).toEqual(["customerId"]);
     expect((await db.select({ c: sql<number>`count(*)::int` }).from(sites))[0]!.c).toBe(before);
   });
 
@@ -301,22 +301,18 @@ describe("register API: creating, correcting and refusing bad input (administrat
   it("a field that cannot be changed, a bad value, or nothing at all is 422 naming the field", async () => {
     const axes = await patch(headPatch, "/api/heads", ids.head, { primaryAxis: "A" });
     expect(axes.status).toBe(422);
-    expect((await axes.json()).error.issues.map((i: { field: string }) => i.field)).toEqual(["primaryAxis"]);
+    expect(await issueFields(axes)).toEqual(["primaryAxis"]);
     const owner = await patch(sitePatch, "/api/sites", ids.site, { customerId: ids.marlow });
-    expect((await owner.json()).error.issues.map((i: { field: string }) => i.field)).toEqual(["customerId"]);
+    expect(await issueFields(owner)).toEqual(["customerId"]);
     const neg = await patch(headPatch, "/api/heads", ids.head, { nominalPivotLengthMm: -5 });
     expect(neg.status).toBe(422);
-    expect((await neg.json()).error.issues.map((i: { field: string }) => i.field)).toEqual([
-      "nominalPivotLengthMm",
-    ]);
+    expect(await issueFields(neg)).toEqual(["nominalPivotLengthMm"]);
     const empty = await patch(machinePatch, "/api/machines", ids.machine, {});
     expect(empty.status).toBe(422);
     const email = await patch(customerPatch, "/api/customers", ids.tollan, {
       contactEmail: "not an address",
     });
-    expect((await email.json()).error.issues.map((i: { field: string }) => i.field)).toEqual([
-      "contactEmail",
-    ]);
+    expect(await issueFields(email)).toEqual(["contactEmail"]);
   });
 
   it("an instrument's resolution is stored in mm from µm; an angle unit on a length instrument is 422 `unit`", async () => {
@@ -334,9 +330,9 @@ describe("register API: creating, correcting and refusing bad input (administrat
     expect(instrument.standardUncertainty).toBeCloseTo(0.001, 12);
     const wrong = await patch(instrumentPatch, "/api/instruments", id, { resolution: 2, unit: "arcsec" });
     expect(wrong.status).toBe(422);
-    expect((await wrong.json()).error.issues.map((i: { field: string }) => i.field)).toEqual(["unit"]);
+    expect(await issueFields(wrong)).toEqual(["unit"]);
     const noUnit = await patch(instrumentPatch, "/api/instruments", id, { resolution: 2 });
-    expect((await noUnit.json()).error.issues.map((i: { field: string }) => i.field)).toEqual(["unit"]);
+    expect(await issueFields(noUnit)).toEqual(["unit"]);
   });
 
   it("a row that does not exist, or an id that is not one, is 404", async () => {
@@ -509,7 +505,7 @@ describe("retiring register rows and recalibrating instruments (administrator)",
 
     const fields = async (r: Response) => {
       expect(r.status).toBe(422);
-      return (await r.json()).error.issues.map((i: { field: string }) => i.field);
+      return await issueFields(r);
     };
     // Before the last calibration, due before calibrated, in the future, or missing the laboratory.
     const calibration = (calibratedOn: string, dueOn: string) => ({

@@ -26,7 +26,7 @@ import { rotaryPositioningSubject } from "@/lib/rotary-positioning-display";
 import { pdfText } from "../pdf-tools";
 import { BIDIRECTIONAL, PRINTED_AXIS, publicDataCsv } from "../fixtures/iso230-2-public";
 import { upload } from "./dataset-helpers";
-import { jsonBody, request, signInAs } from "./helpers";
+import { issueFields, jsonBody, request, signInAs } from "./helpers";
 import { actorsBeforeAll, insertTestJob, signPerformedAndInspected } from "./fixtures";
 import { jobBaseOf } from "./ready-job";
 
@@ -242,14 +242,10 @@ describe("a new procedure version", () => {
       positioningLimits: [{ axis: "primary", quantity: "A", upper: 0.4 }],
     });
     expect(refused.status).toBe(422);
-    expect((await refused.json()).error.issues.map((i: { field: string }) => i.field)).toEqual([
-      "positioningLimits.0.limitSource",
-    ]);
+    expect(await issueFields(refused)).toEqual(["positioningLimits.0.limitSource"]);
     const unknown = await post({ steps, positioningLimits: [{ axis: "primary", quantity: "Q", upper: 1 }] });
     expect(unknown.status).toBe(422);
-    expect((await unknown.json()).error.issues.map((i: { field: string }) => i.field)).toEqual([
-      "positioningLimits.0.quantity",
-    ]);
+    expect(await issueFields(unknown)).toEqual(["positioningLimits.0.quantity"]);
 
     // A job follows `from`, so the body becomes a new version with the new limits.
     const res = await post({
