@@ -2,12 +2,9 @@
 // written out by hand from the product's rules (README.md, "Who uses it"): inspectors and
 // engineers (and the office) run fits, installers upload but do not fit, a customer reads only
 // their own company's records; another tenant's record is 404, exactly like a missing one.
-import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET as getRoute } from "@/app/api/analyses/[id]/route";
-import { db } from "@/db";
-import { datasets } from "@/db/schema";
-import { fitDemoProbe, runFit as run } from "./fixtures";
+import { fitDemoProbe, runFit as run, seededFits, TOLLAN_JOB } from "./fixtures";
 import { jobIdByReference, request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
@@ -33,19 +30,13 @@ const CELLS: Record<string, { email: string | null; post: number; getMarlow: num
 const ids = { marlowDataset: "", marlowAnalysis: "", tollanDataset: "", tollanAnalysis: "" };
 
 beforeAll(async () => {
-  const job = await jobIdByReference("TR-2026-0052");
-  const [ds] = await db
-    .select()
-    .from(datasets)
-    .where(and(eq(datasets.jobId, job), eq(datasets.kind, "sphere_probe")));
-  ids.marlowDataset = ds!.id;
+  ids.marlowDataset = (await seededFits()).pre.datasetId;
   await signInAs("engineer@halvard.example");
   const first = await run(ids.marlowDataset);
   expect(first.status).toBe(200);
   ids.marlowAnalysis = (await first.json()).analysis.id;
   // A Tollan sphere-probe dataset on TR-2026-0048 (in review), fitted by the engineer.
-  const tollanJob = await jobIdByReference("TR-2026-0048");
-  const t = await fitDemoProbe(tollanJob, "tollan-probe.csv");
+  const t = await fitDemoProbe(await jobIdByReference(TOLLAN_JOB), "tollan-probe.csv");
   ids.tollanDataset = t.datasetId;
   ids.tollanAnalysis = t.analysisId;
 });

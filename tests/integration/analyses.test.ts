@@ -14,17 +14,16 @@ import { changeJobStatus } from "@/db/queries/job-status";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { analyses, auditEvents, jobs, signatures } from "@/db/schema";
 import { fitHead, GEOMETRY_VERSION, headFitToJson, readSphereProbeCsv } from "@/geometry";
-import type { Actor } from "@/lib/domain/roles";
 import { canonicalJson } from "@/lib/canonical-json";
 import { AppError } from "@/lib/errors";
 import { upload } from "./dataset-helpers";
-import { allActors, insertTestJob, uploadDemoProbe, auditEventsOf, runFit as run } from "./fixtures";
+import { actorsBeforeAll, insertTestJob, uploadDemoProbe, auditEventsOf, runFit as run } from "./fixtures";
 import { request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
 const read = (id: string) => getRoute(request(`/api/analyses/${id}`), p(id));
 
-const as: Record<string, Actor> = {};
+const as = actorsBeforeAll();
 let jobId = "";
 let datasetId = "";
 let analysisId = "";
@@ -40,7 +39,6 @@ async function status(promise: Promise<unknown>): Promise<number> {
 }
 
 beforeAll(async () => {
-  Object.assign(as, await allActors());
   jobId = await insertTestJob({
     tag: "FIT",
     title: "Head fit test job",

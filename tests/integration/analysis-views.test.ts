@@ -13,8 +13,16 @@ import { db } from "@/db";
 import { approveAnalysis } from "@/db/queries/analyses";
 import { latestJobView, VIEW_MAX_BYTES } from "@/db/queries/analysis-views";
 import { verifyAuditChain } from "@/db/queries/audit";
-import { analyses, analysisViews, datasets, jobs } from "@/db/schema";
-import { insertTestJob, signInActor, auditEventsOf, fitDemoProbe } from "./fixtures";
+import { analysisViews, jobs } from "@/db/schema";
+import {
+  BASE_JOB,
+  insertTestJob,
+  signInActor,
+  auditEventsOf,
+  fitDemoProbe,
+  seededFits,
+  TOLLAN_JOB,
+} from "./fixtures";
 import { formPost, jobIdByReference, request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
@@ -37,17 +45,14 @@ const ids = { job: "", pre: "", post: "", tollanAnalysis: "" };
 
 beforeAll(async () => {
   // The seeded before/after fits of TR-2026-0052 (Marlow Creek, measuring).
-  ids.job = await jobIdByReference("TR-2026-0052");
-  const fits = await db
-    .select({ id: analyses.id, phase: datasets.phase })
-    .from(analyses)
-    .innerJoin(datasets, eq(datasets.id, analyses.datasetId))
-    .where(eq(analyses.jobId, ids.job));
-  ids.pre = fits.find((f) => f.phase === "pre")!.id;
-  ids.post = fits.find((f) => f.phase === "post")!.id;
+  ids.job = await jobIdByReference(BASE_JOB);
+  const fits = await seededFits();
+  ids.pre = fits.pre.analysisId;
+  ids.post = fits.post.analysisId;
   // A Tollan fit on TR-2026-0048 (in review).
-  const tollanJob = await jobIdByReference("TR-2026-0048");
-  ids.tollanAnalysis = (await fitDemoProbe(tollanJob, "tollan-views.csv")).analysisId;
+  ids.tollanAnalysis = (
+    await fitDemoProbe(await jobIdByReference(TOLLAN_JOB), "tollan-views.csv")
+  ).analysisId;
 });
 
 describe("saving a view of the 3D view", () => {

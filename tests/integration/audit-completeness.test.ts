@@ -15,10 +15,9 @@ import { db } from "@/db";
 import { runHeadFit } from "@/db/queries/analyses";
 import { saveAnalysisView } from "@/db/queries/analysis-views";
 import { deleteDataset } from "@/db/queries/datasets";
-import { changeJobStatus, createJobFromTemplate } from "@/db/queries/job-status";
+import { createJobFromTemplate } from "@/db/queries/job-status";
 import { recordReading } from "@/db/queries/readings";
 import { issueReport, respondToReport } from "@/db/queries/reports";
-import { signJobWork } from "@/db/queries/signatures";
 import {
   analyses,
   analysisViews,
@@ -30,26 +29,24 @@ import {
   reports,
   signatures,
 } from "@/db/schema";
-import type { Actor } from "@/lib/domain/roles";
 import { PNG } from "pngjs";
 import { upload } from "./dataset-helpers";
 import {
-  allActors,
+  actorsBeforeAll,
   BASE_JOB,
   DEMO_PASSWORD as PW,
   firstStepOf,
   instrumentIdBySerial,
   uploadDemoProbe,
-  approveConfirmed,
+  measureSignAndApprove,
   auditEventsOf,
 } from "./fixtures";
-import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
+import { carryOpenResults, jobBaseOf } from "./ready-job";
 
-const as: Record<string, Actor> = {};
+const as = actorsBeforeAll();
 let jobId = "";
 
 beforeAll(async () => {
-  Object.assign(as, await allActors());
   const t = await jobBaseOf(BASE_JOB);
   const job = await createJobFromTemplate(as.admin!, {
     templateId: t.templateId,
@@ -98,11 +95,7 @@ beforeAll(async () => {
   );
   await deleteDataset(as.installer!, (await extra.json()).id);
   const { analysis } = await runHeadFit(as.engineer!, probeId);
-  await measureEveryStep(as.installer!, jobId, "post");
-  await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
-  await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
-  await changeJobStatus(as.installer!, jobId, "in_review");
-  await approveConfirmed(as.engineer!, analysis.id, PW);
+  await measureSignAndApprove(as, jobId, analysis.id, "post");
   await carryOpenResults(
     as.engineer!,
     jobId,

@@ -16,10 +16,9 @@ import { getActor } from "@/db/queries/users";
 import { inviteUser, setPasswordWithToken, tokenHash, updateUser } from "@/db/queries/users-admin";
 import { auditEvents, jobs, outbox, readings, userTokens, users } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
-import type { Actor } from "@/lib/domain/roles";
 import { processOutbox } from "@/lib/mail/worker";
 import {
-  allActors,
+  actorsBeforeAll,
   BASE_JOB,
   insertTestJob,
   refusalOf,
@@ -34,7 +33,7 @@ import { jobBaseOf } from "./ready-job";
 let jobId: string;
 const step: Record<number, string> = {};
 const inst: Record<string, string> = {};
-const as: Record<string, Actor> = {};
+const as = actorsBeforeAll();
 
 /** A reading in inches on step 1 with the seed's dial indicator, unless `over` says otherwise. */
 const reading = (over: Record<string, unknown>) => ({
@@ -47,7 +46,6 @@ const reading = (over: Record<string, unknown>) => ({
 const post = (body: Record<string, unknown>, id = jobId) => postReading(id, body);
 
 beforeAll(async () => {
-  Object.assign(as, await allActors());
   const base = await jobBaseOf(BASE_JOB);
   jobId = await insertTestJob({
     tag: "CHK",

@@ -8,36 +8,33 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { GET as getRoute, PUT as putRoute } from "@/app/api/jobs/[id]/control-values/route";
 import { db } from "@/db";
 import { runHeadFit } from "@/db/queries/analyses";
-import { approveConfirmed, insertTestJob, uploadDemoProbe } from "./fixtures";
+import {
+  actorsBeforeAll,
+  insertTestJob,
+  measureSignAndApprove,
+  signPerformedAndInspected,
+  uploadDemoProbe,
+} from "./fixtures";
 import { changeJobStatus, createJobFromTemplate } from "@/db/queries/job-status";
 import { getReportContent, issueReport } from "@/db/queries/reports";
-import { jobStateSha256, signJobWork } from "@/db/queries/signatures";
+import { jobStateSha256 } from "@/db/queries/signatures";
 import { canonicalJson } from "@/lib/canonical-json";
 import { sha256Hex } from "@/lib/report/signing";
-import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
 import { auditEvents, controlValueRecords, instruments, jobs, procedureTemplates } from "@/db/schema";
 import { recordBudgetInputs } from "@/db/queries/budget";
 import { demoTcpCheckCsv } from "@/db/seed-control";
 import { getReadiness } from "@/db/queries/readiness";
 import { jobTcpChecks } from "@/db/queries/control-values";
-import type { Actor } from "@/lib/domain/roles";
 import { upload } from "./dataset-helpers";
-import { jobIdByReference, request, signInAs } from "./helpers";
+import { jobIdByReference, jsonBody, request, signInAs } from "./helpers";
 import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
 
 const PW = "trammel-demo";
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
 const get = (id: string) => getRoute(request(`/api/jobs/${id}/control-values`), p(id));
 const put = (id: string, body: unknown) =>
-  putRoute(
-    request(`/api/jobs/${id}/control-values`, {
-      method: "PUT",
-      headers: { "content-type": "application/json" },
-      body: JSON.stringify(body),
-    }),
-    p(id),
-  );
+  putRoute(request(`/api/jobs/${id}/control-values`, jsonBody("PUT", body)), p(id));
 const asFoundBody = {
   stage: "as_found",
   unitSystem: "metric",
@@ -90,7 +87,12 @@ const CELLS: Record<
   },
 };
 
-const as: Record<string, Actor> = {};
+const as = actorsBeforeAll([
+  "admin@halvard.example",
+  "installer@halvard.example",
+  "inspector@halvard.example",
+  "engineer@halvard.example",
+]);
 const ids = { marlow: "", tollan: "", flow: "", analysis: "" };
 
 async function newJob(title: string) {
@@ -109,13 +111,6 @@ async function newJob(title: string) {
 }
 
 beforeAll(async () => {
-  for (const e of [
-    "admin@halvard.example",
-    "installer@halvard.example",
-    "inspector@halvard.example",
-    "engineer@halvard.example",
-  ])
-    as[e.split("@")[0]!] = (await getActor((await signInAs(e))!))!;
   ids.marlow = await newJob("Control values access job");
   ids.tollan = await jobIdByReference("TR-2026-0048");
 }, 30_000);
@@ -198,11 +193,7 @@ describe("one job through the control loop", () => {
     const { analysis } = await runHeadFit(as.engineer!, probe);
     ids.analysis = analysis.id;
     await measureEveryStep(as.installer!, ids.flow, "pre");
-    await measureEveryStep(as.installer!, ids.flow, "post");
-    await signJobWork(as.installer!, { jobId: ids.flow, meaning: "performed", password: PW });
-    await signJobWork(as.inspector!, { jobId: ids.flow, meaning: "inspected", password: PW });
-    await changeJobStatus(as.installer!, ids.flow, "in_review");
-    await approveConfirmed(as.engineer!, analysis.id, PW);
+    await measureSignAndApprove(as, ids.flow, analysis.id, "post");
 
     // Values to enter = as found + the approved fit's correction, in the control's units.
     await signInAs("inspector@halvard.example");
@@ -334,11 +325,7 @@ describe("a procedure that asks for a tool-centre-point check", () => {
       template: true,
       base: { ...(await jobBaseOf("TR-2026-0052")), templateId: t!.id },
     });
-    const sign = async () => {
-      await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
-      await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
-    };
-    await sign();
+    await signPerformedAndInspected(as, jobId);
     const before = await getReadiness(as.engineer!, jobId);
     expect(before!.blockers.map((b) => b.code)).toEqual(["tcp_check_missing"]);
     const refused = await issueReport(as.engineer!, { jobId, password: PW }).then(
@@ -359,7 +346,7 @@ describe("a procedure that asks for a tool-centre-point check", () => {
       "signature_stale",
       "signature_stale",
     ]);
-    await sign();
+    await signPerformedAndInspected(as, jobId);
     expect((await getReadiness(as.engineer!, jobId))!.ready).toBe(true);
     const { reportId } = await issueReport(as.engineer!, { jobId, password: PW });
     const content = await getReportContent(as.engineer!, reportId);

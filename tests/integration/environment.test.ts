@@ -6,21 +6,14 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { GET as listRoute, POST as postRoute } from "@/app/api/jobs/[id]/environment/route";
 import { db } from "@/db";
 import { auditEvents, environmentRecords } from "@/db/schema";
-import { request, signInAs } from "./helpers";
+import { jsonBody, request, signInAs } from "./helpers";
 import { jobLike } from "./tablet-helpers";
 
 let jobId: string; // measuring, Marlow Creek, the demo installer assigned
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
 
 async function post(body: Record<string, unknown>, id = jobId) {
-  const res = await postRoute(
-    request(`/api/jobs/${id}/environment`, {
-      method: "POST",
-      body: JSON.stringify(body),
-      headers: { "content-type": "application/json" },
-    }),
-    p(id),
-  );
+  const res = await postRoute(request(`/api/jobs/${id}/environment`, jsonBody("POST", body)), p(id));
   return { status: res.status, json: await res.json() };
 }
 

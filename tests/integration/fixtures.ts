@@ -6,20 +6,22 @@
 // (bringing a job to the state its report needs).
 import { and, asc, eq } from "drizzle-orm";
 import type { PgColumn, PgInsertValue, PgTable } from "drizzle-orm/pg-core";
-import { expect } from "vitest";
+import { beforeAll, expect } from "vitest";
 import { POST as fitRoute } from "@/app/api/datasets/[id]/analyses/route";
 import { POST as readingsPost } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
 import { approveAnalysis, nonConformingParameters } from "@/db/queries/analyses";
+import { changeJobStatus } from "@/db/queries/job-status";
+import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
 import { demoSphereProbeCsv } from "@/db/seed-analyses";
-import { auditEvents, instruments, jobs, users } from "@/db/schema";
+import { analyses, auditEvents, datasets, instruments, jobs, users } from "@/db/schema";
 import type { JobKind, JobStatus } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import { upload } from "./dataset-helpers";
-import { request, signInAs } from "./helpers";
-import { jobBaseOf, procedureSteps } from "./ready-job";
+import { jobIdByReference, jsonBody, request, signInAs } from "./helpers";
+import { jobBaseOf, measureEveryStep, procedureSteps } from "./ready-job";
 
 /**
  * Who the access tables ask about: anonymous, each staff role and each tenant's customer, with the
@@ -42,6 +44,8 @@ export const PEOPLE = Object.values(WHO).filter((e) => e !== null);
 export const DEMO_PASSWORD = "trammel-demo";
 /** The seeded Marlow Creek job (measuring) whose customer, machine, head and procedure test jobs borrow. */
 export const BASE_JOB = "TR-2026-0052";
+/** The seeded Tollan Mold Works job (in review): the other tenant's job in the access tests. */
+export const TOLLAN_JOB = "TR-2026-0048";
 
 /** Signs in as the demo user and returns the actor the app reads for them (role and company). */
 export async function signInActor(email: string): Promise<Actor> {
@@ -62,8 +66,19 @@ export async function actorsOf(emails: readonly string[]): Promise<Record<string
   return as;
 }
 
-/** actorsOf every demo person: admin, installer, inspector, engineer, buyer, buyer-tollan. */
-export const allActors = () => actorsOf(PEOPLE);
+/**
+ * The actors of these demo people (every one unless told), keyed as actorsOf keys them and filled
+ * in by a beforeAll hook registered here: call it at the top of a test file, before the file's own
+ * beforeAll, which then runs after it (vitest runs "before" hooks in order) with the last of them
+ * signed in.
+ */
+export function actorsBeforeAll(emails: readonly string[] = PEOPLE): Record<string, Actor> {
+  const as: Record<string, Actor> = {};
+  beforeAll(async () => {
+    Object.assign(as, await actorsOf(emails));
+  });
+  return as;
+}
 
 export type JobBase = Awaited<ReturnType<typeof jobBaseOf>>;
 
@@ -151,18 +166,31 @@ export async function fitDemoProbe(
 }
 
 /**
+ * The head fits db/seed-analyses.ts stores on BASE_JOB, with their sphere-probe datasets, by phase:
+ * "pre" (as found) and "post" (after adjustment).
+ */
+export async function seededFits() {
+  const rows = await db
+    .select({ analysisId: analyses.id, datasetId: datasets.id, phase: datasets.phase })
+    .from(analyses)
+    .innerJoin(datasets, eq(datasets.id, analyses.datasetId))
+    .where(eq(analyses.jobId, await jobIdByReference(BASE_JOB)));
+  const ofPhase = (phase: "pre" | "post") => {
+    const fit = rows.find((r) => r.phase === phase);
+    if (!fit) throw new Error(`no seeded ${phase} fit on ${BASE_JOB}`);
+    return fit;
+  };
+  return { pre: ofPhase("pre"), post: ofPhase("post") };
+}
+
+/**
  * Posts a reading to the job through POST /api/jobs/{id}/readings as whoever is signed in, and
  * returns the answer's status and JSON body.
  */
 export async function postReading(jobId: string, body: Record<string, unknown>) {
-  const res = await readingsPost(
-    request(`/api/jobs/${jobId}/readings`, {
-      method: "POST",
-      body: JSON.stringify(body),
-      headers: { "content-type": "application/json" },
-    }),
-    { params: Promise.resolve({ id: jobId }) },
-  );
+  const res = await readingsPost(request(`/api/jobs/${jobId}/readings`, jsonBody("POST", body)), {
+    params: Promise.resolve({ id: jobId }),
+  });
   return { status: res.status, json: await res.json() };
 }
 
@@ -246,4 +274,27 @@ export async function approveConfirmed(engineer: Actor, analysisId: string, pass
     password,
     open.map((p) => p.key),
   );
+}
+
+/** The installer signs the job's work as performed, then the inspector as inspected (21 CFR 11.50 meanings). */
+export async function signPerformedAndInspected(as: Record<string, Actor>, jobId: string) {
+  await signJobWork(as.installer!, { jobId, meaning: "performed", password: DEMO_PASSWORD });
+  await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: DEMO_PASSWORD });
+}
+
+/**
+ * Takes a job with a fit through review as its people do: the installer measures every step in
+ * `phase`, the installer and the inspector sign, the installer sends the job to review and the
+ * engineer approves the fit (approveConfirmed). Open FAIL results are left for the test to carry.
+ */
+export async function measureSignAndApprove(
+  as: Record<string, Actor>,
+  jobId: string,
+  analysisId: string,
+  phase: "pre" | "post" = "pre",
+) {
+  await measureEveryStep(as.installer!, jobId, phase);
+  await signPerformedAndInspected(as, jobId);
+  await changeJobStatus(as.installer!, jobId, "in_review");
+  await approveConfirmed(as.engineer!, analysisId);
 }

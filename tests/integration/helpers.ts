@@ -28,6 +28,17 @@ export function request(path: string, init?: RequestInit): Request {
   return new Request(`http://localhost${path}`, init);
 }
 
+/** The fields a refused answer's issues name (the API's 422 body), in its order. */
+export async function issueFields(res: Response): Promise<string[]> {
+  const body = (await res.json()) as { error: { issues: { field: string }[] } };
+  return body.error.issues.map((i) => i.field);
+}
+
+/** The init of a request whose body is this value as JSON, the way the app's forms send it. */
+export function jsonBody(method: string, body: unknown): RequestInit {
+  return { method, headers: { "content-type": "application/json" }, body: JSON.stringify(body) };
+}
+
 /** A file field of a form: its bytes, type and name. */
 export interface FormFile {
   bytes: Uint8Array;

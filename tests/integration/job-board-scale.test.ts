@@ -11,15 +11,14 @@ import { jobBoard } from "@/db/queries/job-board";
 import { jobAccessCondition } from "@/db/queries/jobs";
 import { jobs } from "@/db/schema";
 import type { JobStatus } from "@/lib/domain/jobs";
-import type { Actor } from "@/lib/domain/roles";
 import { inQueue, queuesFor, type JobQueue } from "@/lib/policy/job-queues";
-import { allActors, BASE_JOB } from "./fixtures";
+import { actorsBeforeAll, BASE_JOB } from "./fixtures";
 import { request, signInAs } from "./helpers";
 import { jobBaseOf } from "./ready-job";
 
 const N = 620;
 const TAG = `TR-BULK-${Date.now().toString(36)}`;
-const as: Record<string, Actor> = {};
+const as = actorsBeforeAll();
 type Board = Awaited<ReturnType<typeof jobBoard>>;
 const before: Record<string, Board> = {};
 const after: Record<string, Board> = {};
@@ -47,7 +46,6 @@ const ADDED: Record<(typeof WHO)[number], Partial<Record<JobQueue, number>> & { 
 const countsOf = (b: Board) => Object.fromEntries(b.queues.map((q) => [q.queue, q.count]));
 
 beforeAll(async () => {
-  Object.assign(as, await allActors());
   for (const w of WHO) before[w] = await jobBoard(as[w]!, { pageSize: 5 });
   const base = await jobBaseOf(BASE_JOB);
   const when = new Date("2027-03-01T07:00:00Z");

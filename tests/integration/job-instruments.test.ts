@@ -7,18 +7,17 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { listJobInstruments, recordJobInstrument } from "@/db/queries/job-instruments";
 import { instruments, jobs } from "@/db/schema";
-import type { Actor } from "@/lib/domain/roles";
-import { actorsOf, insertTestJob, refusalOf, auditEventsOf } from "./fixtures";
+import { actorsBeforeAll, insertTestJob, refusalOf, auditEventsOf } from "./fixtures";
 
-const as: Record<string, Actor> = {};
+const as = actorsBeforeAll([
+  "installer@halvard.example",
+  "admin@halvard.example",
+  "engineer@halvard.example",
+]);
 let jobId = "";
 const ids: Record<string, string> = {};
 
 beforeAll(async () => {
-  Object.assign(
-    as,
-    await actorsOf(["installer@halvard.example", "admin@halvard.example", "engineer@halvard.example"]),
-  );
   jobId = await insertTestJob({
     tag: "JI",
     title: "Data instruments test job",

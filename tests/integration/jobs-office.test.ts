@@ -12,7 +12,7 @@ import { POST as readingRoute } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
 import { auditEvents, heads, jobs, machines, outbox, procedureTemplates, users } from "@/db/schema";
 import { WHO, auditEventsOf } from "./fixtures";
-import { jobIdByReference, request, signInAs } from "./helpers";
+import { jobIdByReference, issueFields, jsonBody, request, signInAs } from "./helpers";
 
 /** POST /api/jobs: the office opens jobs (201); everyone else is refused (401 anonymous, 403 others). */
 const CREATE: Record<string, number> = {
@@ -39,15 +39,10 @@ const EDIT: Record<string, number> = {
   "customer (Tollan)": 404,
 };
 
-const json = (method: string, body: unknown): RequestInit => ({
-  method,
-  headers: { "content-type": "application/json" },
-  body: JSON.stringify(body),
-});
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
-const create = (body: unknown) => createRoute(request("/api/jobs", json("POST", body)), undefined);
+const create = (body: unknown) => createRoute(request("/api/jobs", jsonBody("POST", body)), undefined);
 const patch = (id: string, body: unknown) =>
-  patchRoute(request(`/api/jobs/${id}`, json("PATCH", body)), p(id));
+  patchRoute(request(`/api/jobs/${id}`, jsonBody("PATCH", body)), p(id));
 const getJob = async (id: string) => (await (await jobRoute(request(`/api/jobs/${id}`), p(id))).json()).job;
 
 const ids = { installer: "", second: "", machine: "", head: "", template: "", marlow: "" };
@@ -258,9 +253,7 @@ describe("PATCH /api/jobs/{id}: record fields per role and tenant", () => {
     expect(unknown.status).toBe(422);
     const half = await patch(id, { scheduledDate: "2027-02-02", timeZone: "Europe/Berlin" });
     expect(half.status).toBe(422);
-    expect((await half.json()).error.issues.map((i: { field: string }) => i.field)).toEqual([
-      "scheduledTime",
-    ]);
+    expect(await issueFields(half)).toEqual(["scheduledTime"]);
     expect(await getJob(id)).toEqual(before);
   });
 });
@@ -396,7 +389,7 @@ describe("hold, release and cancel", () => {
     const reading = await readingRoute(
       request(
         `/api/jobs/${id}/readings`,
-        json("POST", {
+        jsonBody("POST", {
           stepId: step!.id,
           phase: "pre",
           value: 0.01,

@@ -27,15 +27,10 @@ import {
   stepIdsByPosition,
   type JobBase,
 } from "./fixtures";
-import { formPost, request, signInAs } from "./helpers";
+import { formPost, jsonBody, request, signInAs } from "./helpers";
 import { jobBaseOf } from "./ready-job";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
-const json = (body: unknown): RequestInit => ({
-  method: "POST",
-  headers: { "content-type": "application/json" },
-  body: JSON.stringify(body),
-});
 
 /** The points entered on the run-out step, mm, read with the demo digital indicator (0.001 mm). */
 const POINTS = { "12": "0.004", "3": "-0.003", "6": "0.009", "9": "0.001" };
@@ -60,7 +55,7 @@ let directReadingId = "";
 let photoSha = "";
 
 const postReading = async (body: Record<string, unknown>) => {
-  const res = await readingsRoute(request(`/api/jobs/${jobId}/readings`, json(body)), p(jobId));
+  const res = await readingsRoute(request(`/api/jobs/${jobId}/readings`, jsonBody("POST", body)), p(jobId));
   return { status: res.status, reading: (await res.json()).reading };
 };
 
@@ -88,7 +83,7 @@ describe("a new procedure with a multi-point, a yes/no and a photo step, run end
     const res = await createProcedureRoute(
       request(
         "/api/procedures",
-        json({
+        jsonBody("POST", {
           name: `Collar and drawbar check ${Date.now().toString(36)}`,
           jobKind: "installation",
           headModel: head!.model,
@@ -145,7 +140,7 @@ describe("a new procedure with a multi-point, a yes/no and a photo step, run end
     const res = await createJobRoute(
       request(
         "/api/jobs",
-        json({
+        jsonBody("POST", {
           customerId: base.customerId,
           machineId: base.machineId,
           headId: base.headId,

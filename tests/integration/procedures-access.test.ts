@@ -14,18 +14,13 @@ import { proceduresFor } from "@/db/queries/procedures";
 import { getActor } from "@/db/queries/users";
 import { auditEvents, jobs, procedureTemplates, templateParameterLimits, templateSteps } from "@/db/schema";
 import { WHO } from "./fixtures";
-import { jobIdByReference, request, signInAs } from "./helpers";
+import { jobIdByReference, jsonBody, request, signInAs } from "./helpers";
 
 // Outside a Next request there is no cache to revalidate.
 vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn() }));
 const actions = await import("@/app/(app)/registers/procedures/actions");
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
-const json = (method: string, body: unknown): RequestInit => ({
-  method,
-  headers: { "content-type": "application/json" },
-  body: JSON.stringify(body),
-});
 const createPost = (req: Request) => rawCreate(req, undefined as never);
 const listGet = (req: Request, _ctx: undefined) => rawList(req, undefined as never);
 let n = 0;
@@ -73,7 +68,7 @@ const CELLS: Record<string, [number, number, number, number]> = {
 let shared = "";
 beforeAll(async () => {
   await signInAs("admin@halvard.example");
-  const res = await createPost(request("/api/procedures", json("POST", body(`Matrix ${uniq()}`))));
+  const res = await createPost(request("/api/procedures", jsonBody("POST", body(`Matrix ${uniq()}`))));
   expect(res.status).toBe(201);
   shared = (await res.json()).procedure.id;
 });
@@ -84,7 +79,9 @@ describe("procedure API access matrix", () => {
     describe(who, () => {
       it(`POST /api/procedures answers ${create}`, async () => {
         await signInAs(email);
-        const res = await createPost(request("/api/procedures", json("POST", body(`By ${who} ${uniq()}`))));
+        const res = await createPost(
+          request("/api/procedures", jsonBody("POST", body(`By ${who} ${uniq()}`))),
+        );
         expect(res.status).toBe(create);
         const out = await res.json();
         if (create === 201) {
@@ -101,7 +98,7 @@ describe("procedure API access matrix", () => {
       it(`POST /api/procedures/{id}/versions answers ${version}`, async () => {
         await signInAs(email);
         const res = await versionPost(
-          request(`/api/procedures/${shared}/versions`, json("POST", body(undefined as never))),
+          request(`/api/procedures/${shared}/versions`, jsonBody("POST", body(undefined as never))),
           p(shared),
         );
         expect(res.status).toBe(version);
@@ -110,7 +107,7 @@ describe("procedure API access matrix", () => {
       it(`PATCH /api/procedures/{id} answers ${retire}`, async () => {
         await signInAs(email);
         const res = await itemPatch(
-          request(`/api/procedures/${shared}`, json("PATCH", { retired: false })),
+          request(`/api/procedures/${shared}`, jsonBody("PATCH", { retired: false })),
           p(shared),
         );
         expect(res.status).toBe(retire);
@@ -135,13 +132,13 @@ describe("procedure bodies", () => {
     const bad = body(`Bad ${uniq()}`);
     (bad.steps[0] as Record<string, unknown>).limitSource = undefined;
     (bad.steps[1] as Record<string, unknown>).kind = "guess";
-    let res = await createPost(request("/api/procedures", json("POST", bad)));
+    let res = await createPost(request("/api/procedures", jsonBody("POST", bad)));
     expect(res.status).toBe(422);
     expect((await res.json()).error.issues).toContainEqual(
       expect.objectContaining({ field: "steps.1.kind" }),
     );
     (bad.steps[1] as Record<string, unknown>).kind = "check";
-    res = await createPost(request("/api/procedures", json("POST", bad)));
+    res = await createPost(request("/api/procedures", jsonBody("POST", bad)));
     expect(res.status).toBe(422);
     const issues = (await res.json()).error.issues as { field: string }[];
     expect(issues.map((i) => i.field)).toEqual(["steps.0.limitSource"]);
@@ -149,7 +146,7 @@ describe("procedure bodies", () => {
 
   it("stores limits canonically (mm) and gives them back in the step's unit", async () => {
     await signInAs("admin@halvard.example");
-    const res = await createPost(request("/api/procedures", json("POST", body(`Units ${uniq()}`))));
+    const res = await createPost(request("/api/procedures", jsonBody("POST", body(`Units ${uniq()}`))));
     const id = (await res.json()).procedure.id;
     const [s] = await db
       .select()
@@ -166,8 +163,8 @@ describe("procedure bodies", () => {
   it("refuse a second procedure of the same name with 409", async () => {
     await signInAs("admin@halvard.example");
     const name = `Twice ${uniq()}`;
-    expect((await createPost(request("/api/procedures", json("POST", body(name))))).status).toBe(201);
-    const again = await createPost(request("/api/procedures", json("POST", body(name))));
+    expect((await createPost(request("/api/procedures", jsonBody("POST", body(name))))).status).toBe(201);
+    const again = await createPost(request("/api/procedures", jsonBody("POST", body(name))));
     expect(again.status).toBe(409);
   });
 });
@@ -176,11 +173,14 @@ describe("versions", () => {
   it("change a version in place until a job uses it; then a new version, and the job keeps its own", async () => {
     const admin = (await getActor((await signInAs("admin@halvard.example"))!))!;
     const name = `Versioned ${uniq()}`;
-    const v1 = (await (await createPost(request("/api/procedures", json("POST", body(name))))).json())
+    const v1 = (await (await createPost(request("/api/procedures", jsonBody("POST", body(name))))).json())
       .procedure;
     const draft = body(name);
     draft.steps = draft.steps.slice().reverse();
-    let res = await versionPost(request(`/api/procedures/${v1.id}/versions`, json("POST", draft)), p(v1.id));
+    let res = await versionPost(
+      request(`/api/procedures/${v1.id}/versions`, jsonBody("POST", draft)),
+      p(v1.id),
+    );
     expect(res.status).toBe(200);
     const replaced = await res.json();
     expect(replaced.replaced).toBe(true);
@@ -206,7 +206,10 @@ describe("versions", () => {
       .where(eq(templateSteps.templateId, v1.id))
       .orderBy(asc(templateSteps.position));
 
-    res = await versionPost(request(`/api/procedures/${v1.id}/versions`, json("POST", body(name))), p(v1.id));
+    res = await versionPost(
+      request(`/api/procedures/${v1.id}/versions`, jsonBody("POST", body(name))),
+      p(v1.id),
+    );
     expect(res.status).toBe(201);
     const v2 = (await res.json()).procedure;
     expect(v2.version).toBe(2);
@@ -240,7 +243,7 @@ describe("versions", () => {
 
     // A rename through a version is refused with the field named.
     res = await versionPost(
-      request(`/api/procedures/${v2.id}/versions`, json("POST", body(`${name} renamed`))),
+      request(`/api/procedures/${v2.id}/versions`, jsonBody("POST", body(`${name} renamed`))),
       p(v2.id),
     );
     expect(res.status).toBe(422);
@@ -252,7 +255,7 @@ describe("versions", () => {
     const name = `Offered ${uniq()}`;
     const t = (
       await (
-        await createPost(request("/api/procedures", json("POST", body(name, { headModel: "HX-77" }))))
+        await createPost(request("/api/procedures", jsonBody("POST", body(name, { headModel: "HX-77" }))))
       ).json()
     ).procedure;
     const names = async (kind: "installation" | "after_crash", model: string | null) =>
@@ -267,13 +270,19 @@ describe("versions", () => {
     // The head model's own procedure comes first.
     expect((await names("installation", "HX-77"))[0]).toBe(name);
 
-    let res = await itemPatch(request(`/api/procedures/${t.id}`, json("PATCH", { retired: true })), p(t.id));
+    let res = await itemPatch(
+      request(`/api/procedures/${t.id}`, jsonBody("PATCH", { retired: true })),
+      p(t.id),
+    );
     expect(res.status).toBe(200);
     expect(await names("installation", "HX-77")).not.toContain(name);
     // A retired procedure cannot be changed until it is brought back.
-    res = await versionPost(request(`/api/procedures/${t.id}/versions`, json("POST", body(name))), p(t.id));
+    res = await versionPost(
+      request(`/api/procedures/${t.id}/versions`, jsonBody("POST", body(name))),
+      p(t.id),
+    );
     expect(res.status).toBe(409);
-    res = await itemPatch(request(`/api/procedures/${t.id}`, json("PATCH", { retired: false })), p(t.id));
+    res = await itemPatch(request(`/api/procedures/${t.id}`, jsonBody("PATCH", { retired: false })), p(t.id));
     expect(res.status).toBe(200);
     expect(await names("installation", "HX-77")).toContain(name);
   });
@@ -316,7 +325,7 @@ describe("judging the head as a whole", () => {
     const negative = await createPost(
       request(
         "/api/procedures",
-        json("POST", body(name, { tcpRangeLimitUm: -3, tcpLimitSource: "common_practice" })),
+        jsonBody("POST", body(name, { tcpRangeLimitUm: -3, tcpLimitSource: "common_practice" })),
       ),
     );
     expect(negative.status).toBe(422);
@@ -377,7 +386,7 @@ describe("judging the head as a whole", () => {
 
     // The API's version body without these fields keeps them (in place, no job uses it yet).
     const res = await versionPost(
-      request(`/api/procedures/${made.data.id}/versions`, json("POST", body(name))),
+      request(`/api/procedures/${made.data.id}/versions`, jsonBody("POST", body(name))),
       p(made.data.id),
     );
     expect(res.status).toBe(200);

@@ -14,25 +14,26 @@ import { recordReading } from "@/db/queries/readings";
 import { issueReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
 import { auditEvents, deviations, instruments, jobs, readings, reports } from "@/db/schema";
-import type { Actor } from "@/lib/domain/roles";
 import { AppError } from "@/lib/errors";
 import type { BlockerCode } from "@/lib/report/readiness";
 import type { ReportData } from "@/lib/report/types";
 import { pdfText } from "../pdf-tools";
 import { upload } from "./dataset-helpers";
 import {
-  allActors,
+  actorsBeforeAll,
   BASE_JOB,
   DEMO_PASSWORD as PW,
   firstStepOf,
   insertTestJob,
+  type JobBase,
+  signPerformedAndInspected,
   uploadDemoProbe,
 } from "./fixtures";
 import { signInAs } from "./helpers";
 import { carryOpenResults, jobBaseOf, measureEveryStep, procedureSteps } from "./ready-job";
 
-const as: Record<string, Actor> = {};
-let base: { customerId: string; machineId: string; headId: string; templateId: string };
+const as = actorsBeforeAll();
+let base: JobBase;
 
 const newJob = (status: "measuring" | "approved" = "measuring") =>
   insertTestJob({
@@ -62,7 +63,6 @@ async function refusedCodes(jobId: string): Promise<BlockerCode[]> {
 }
 
 beforeAll(async () => {
-  Object.assign(as, await allActors());
   base = await jobBaseOf(BASE_JOB);
 });
 
@@ -165,8 +165,7 @@ describe("issue is refused while any blocker stands", () => {
     const codes = await refusedCodesAt(jobId);
     // Both signatures covered a record without the test part.
     expect(codes.filter((c) => c === "signature_stale")).toHaveLength(2);
-    await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
-    await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
+    await signPerformedAndInspected(as, jobId);
     expect(await refusedCodesAt(jobId)).not.toContain("signature_stale");
   });
 

@@ -34,21 +34,16 @@ import {
   sites,
 } from "@/db/schema";
 import { insertRow, WHO } from "./fixtures";
-import { request, signInAs } from "./helpers";
+import { issueFields, jsonBody, request, signInAs } from "./helpers";
 
 type Handler = (req: Request, ctx: { params: Promise<{ id: string }> }) => Promise<Response>;
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
-const json = (method: string, body: unknown): RequestInit => ({
-  method,
-  headers: { "content-type": "application/json" },
-  body: JSON.stringify(body),
-});
 const get = (h: (req: Request, ctx: never) => Promise<Response>, path: string) =>
   h(request(path), undefined as never);
 const post = (h: (req: Request, ctx: never) => Promise<Response>, path: string, body: unknown) =>
-  h(request(path, json("POST", body)), undefined as never);
+  h(request(path, jsonBody("POST", body)), undefined as never);
 const patch = (h: Handler, path: string, id: string, body: unknown) =>
-  h(request(`${path}/${id}`, json("PATCH", body)), p(id));
+  h(request(`${path}/${id}`, jsonBody("PATCH", body)), p(id));
 
 /** Per role: [customers, sites, machines, heads, instruments, users, procedures] for read; write is the admin's alone. */
 type Cells = { read: Record<string, number>; write: number };
@@ -91,6 +86,21 @@ const CELLS: Record<string, Cells> = {
 const ids = { marlow: "", tollan: "", site: "", machine: "", head: "", instrument: "", procedure: "" };
 let n = 0;
 const uniq = () => `${Date.now().toString(36)}-${++n}`;
+/**
+ * POST /api/instruments as whoever is signed in: a dial test indicator reading in µm, with a serial
+ * of its own, unless the test gives other fields.
+ */
+const postInstrument = (fields: Record<string, unknown> = {}) =>
+  post(instrumentsPost, "/api/instruments", {
+    kind: "dial test indicator",
+    serial: `DTI-${uniq()}`,
+    quantityKind: "length",
+    resolution: 1,
+    standardUncertainty: 1.5,
+    unit: "um",
+    calibrationDueOn: "2027-06-30",
+    ...fields,
+  });
 
 beforeAll(async () => {
   const byName = async (name: string) =>
@@ -168,15 +178,7 @@ describe("register API access matrix", () => {
             secondaryAxis: "A",
             nominalPivotLengthMm: 250,
           }),
-          await post(instrumentsPost, "/api/instruments", {
-            kind: "dial test indicator",
-            serial: `DTI-${u}`,
-            quantityKind: "length",
-            resolution: 1,
-            standardUncertainty: 1.5,
-            unit: "um",
-            calibrationDueOn: "2027-06-30",
-          }),
+          await postInstrument(),
         ];
         expect(answers.map((r) => r.status)).toEqual([created, created, created, created, created]);
       });
@@ -187,7 +189,7 @@ describe("register API access matrix", () => {
         const res = await calibrationPost(
           request(
             `/api/instruments/${ids.instrument}/calibrations`,
-            json("POST", {
+            jsonBody("POST", {
               calibratedOn: "2026-01-15",
               dueOn: "2027-01-15",
               certificateRef: `CERT-${uniq()}`,
@@ -241,7 +243,7 @@ describe("register API: creating, correcting and refusing bad input (administrat
     const before = (await db.select({ c: sql<number>`count(*)::int` }).from(sites))[0]!.c;
     const res = await post(sitesPost, "/api/sites", { name: "No customer" });
     expect(res.status).toBe(422);
-    expect((await res.json()).error.issues.map((i: { field: string }) => i.field)).toEqual(["customerId"]);
+    expect(await issueFields(res)).toEqual(["customerId"]);
     expect((await db.select({ c: sql<number>`count(*)::int` }).from(sites))[0]!.c).toBe(before);
   });
 
@@ -299,36 +301,22 @@ describe("register API: creating, correcting and refusing bad input (administrat
   it("a field that cannot be changed, a bad value, or nothing at all is 422 naming the field", async () => {
     const axes = await patch(headPatch, "/api/heads", ids.head, { primaryAxis: "A" });
     expect(axes.status).toBe(422);
-    expect((await axes.json()).error.issues.map((i: { field: string }) => i.field)).toEqual(["primaryAxis"]);
+    expect(await issueFields(axes)).toEqual(["primaryAxis"]);
     const owner = await patch(sitePatch, "/api/sites", ids.site, { customerId: ids.marlow });
-    expect((await owner.json()).error.issues.map((i: { field: string }) => i.field)).toEqual(["customerId"]);
+    expect(await issueFields(owner)).toEqual(["customerId"]);
     const neg = await patch(headPatch, "/api/heads", ids.head, { nominalPivotLengthMm: -5 });
     expect(neg.status).toBe(422);
-    expect((await neg.json()).error.issues.map((i: { field: string }) => i.field)).toEqual([
-      "nominalPivotLengthMm",
-    ]);
+    expect(await issueFields(neg)).toEqual(["nominalPivotLengthMm"]);
     const empty = await patch(machinePatch, "/api/machines", ids.machine, {});
     expect(empty.status).toBe(422);
     const email = await patch(customerPatch, "/api/customers", ids.tollan, {
       contactEmail: "not an address",
     });
-    expect((await email.json()).error.issues.map((i: { field: string }) => i.field)).toEqual([
-      "contactEmail",
-    ]);
+    expect(await issueFields(email)).toEqual(["contactEmail"]);
   });
 
   it("an instrument's resolution is stored in mm from µm; an angle unit on a length instrument is 422 `unit`", async () => {
-    const created = await (
-      await post(instrumentsPost, "/api/instruments", {
-        kind: "dial test indicator",
-        serial: `DTI-P-${uniq()}`,
-        quantityKind: "length",
-        resolution: 10,
-        standardUncertainty: 5,
-        unit: "um",
-        calibrationDueOn: "2027-06-30",
-      })
-    ).json();
+    const created = await (await postInstrument({ resolution: 10, standardUncertainty: 5 })).json();
     const id = created.instrument.id as string;
     const res = await patch(instrumentPatch, "/api/instruments", id, {
       resolution: 2,
@@ -342,9 +330,9 @@ describe("register API: creating, correcting and refusing bad input (administrat
     expect(instrument.standardUncertainty).toBeCloseTo(0.001, 12);
     const wrong = await patch(instrumentPatch, "/api/instruments", id, { resolution: 2, unit: "arcsec" });
     expect(wrong.status).toBe(422);
-    expect((await wrong.json()).error.issues.map((i: { field: string }) => i.field)).toEqual(["unit"]);
+    expect(await issueFields(wrong)).toEqual(["unit"]);
     const noUnit = await patch(instrumentPatch, "/api/instruments", id, { resolution: 2 });
-    expect((await noUnit.json()).error.issues.map((i: { field: string }) => i.field)).toEqual(["unit"]);
+    expect(await issueFields(noUnit)).toEqual(["unit"]);
   });
 
   it("a row that does not exist, or an id that is not one, is 404", async () => {
@@ -463,11 +451,10 @@ describe("retiring register rows and recalibrating instruments (administrator)",
   it("a recalibration is a new record with the history kept, and brings a retired instrument back", async () => {
     const u = uniq();
     const created = await (
-      await post(instrumentsPost, "/api/instruments", {
+      await postInstrument({
         kind: "electronic level",
         serial: `LVL-${u}`,
         quantityKind: "angle",
-        resolution: 1,
         standardUncertainty: 2,
         unit: "arcsec",
         calibratedOn: "2025-01-10",
@@ -481,7 +468,7 @@ describe("retiring register rows and recalibrating instruments (administrator)",
     expect(retired.instrument.retiredAt).not.toBeNull();
 
     const cal = (body: unknown) =>
-      calibrationPost(request(`/api/instruments/${id}/calibrations`, json("POST", body)), p(id));
+      calibrationPost(request(`/api/instruments/${id}/calibrations`, jsonBody("POST", body)), p(id));
     const first = await cal({
       calibratedOn: "2026-02-01",
       dueOn: "2027-02-01",
@@ -518,7 +505,7 @@ describe("retiring register rows and recalibrating instruments (administrator)",
 
     const fields = async (r: Response) => {
       expect(r.status).toBe(422);
-      return (await r.json()).error.issues.map((i: { field: string }) => i.field);
+      return await issueFields(r);
     };
     // Before the last calibration, due before calibrated, in the future, or missing the laboratory.
     const calibration = (calibratedOn: string, dueOn: string) => ({
@@ -539,7 +526,7 @@ describe("retiring register rows and recalibrating instruments (administrator)",
     const missing = await calibrationPost(
       request(
         `/api/instruments/${none}/calibrations`,
-        json("POST", {
+        jsonBody("POST", {
           calibratedOn: "2026-01-01",
           dueOn: "2027-01-01",
           certificateRef: "X",

@@ -11,28 +11,25 @@ import { db } from "@/db";
 import { runHeadFit } from "@/db/queries/analyses";
 import { saveAnalysisView } from "@/db/queries/analysis-views";
 import { chooseReportView } from "@/db/queries/report-views";
-import { changeJobStatus } from "@/db/queries/job-status";
 import { getJobConformity, issueReport } from "@/db/queries/reports";
-import { signJobWork } from "@/db/queries/signatures";
 import { saveProcedureVersion } from "@/db/queries/procedures";
 import { getTemplate } from "@/db/queries/templates";
 import { procedureTemplates, reports, templateParameterLimits, templateSteps } from "@/db/schema";
 import type { HeadFitJson } from "@/geometry";
-import type { Actor } from "@/lib/domain/roles";
 import type { ReportData } from "@/lib/report/types";
 import { stepInputFromRow, type StepRow } from "@/lib/validations/procedures";
 import { pdfFile, pdfImageSizes, pdfText } from "../pdf-tools";
 import {
-  allActors,
+  actorsBeforeAll,
   BASE_JOB,
   DEMO_PASSWORD as PW,
   insertTestJob,
   uploadDemoProbe,
-  approveConfirmed,
+  measureSignAndApprove,
 } from "./fixtures";
-import { carryOpenResults, jobBaseOf, measureEveryStep } from "./ready-job";
+import { carryOpenResults, jobBaseOf } from "./ready-job";
 
-const as: Record<string, Actor> = {};
+const as = actorsBeforeAll();
 let jobId = "";
 let templateId = "";
 let fit: HeadFitJson;
@@ -49,7 +46,6 @@ const viewPng = (() => {
 })();
 
 beforeAll(async () => {
-  Object.assign(as, await allActors());
   templateId = (await jobBaseOf(BASE_JOB)).templateId;
   jobId = await insertTestJob({
     tag: "RPT",
@@ -61,11 +57,7 @@ beforeAll(async () => {
   poseResiduals = analysis.result.poses.residual_um.map((r) => [...r]);
   // The gates before issue (lib/report/readiness.ts): every step measured, signed over that record,
   // and each FAIL or undecided parameter carried as a deviation.
-  await measureEveryStep(as.installer!, jobId);
-  await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
-  await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
-  await changeJobStatus(as.installer!, jobId, "in_review");
-  await approveConfirmed(as.engineer!, analysis.id, PW);
+  await measureSignAndApprove(as, jobId, analysis.id);
   await carryOpenResults(as.engineer!, jobId, "Within the machine builder's acceptance for this demo head.");
   const saved = await saveAnalysisView(as.engineer!, analysis.id, {
     png: viewPng,

@@ -9,24 +9,21 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { runHeadFit } from "@/db/queries/analyses";
 import { saveAnalysisView } from "@/db/queries/analysis-views";
-import { changeJobStatus } from "@/db/queries/job-status";
 import { chooseReportView, reportViewChoices } from "@/db/queries/report-views";
 import { issueReport } from "@/db/queries/reports";
-import { signJobWork } from "@/db/queries/signatures";
 import { auditEvents, jobs, reports } from "@/db/schema";
-import type { Actor } from "@/lib/domain/roles";
 import type { ReportData } from "@/lib/report/types";
-import { carryOpenResults, measureEveryStep } from "./ready-job";
+import { carryOpenResults } from "./ready-job";
 import {
-  allActors,
-  approveConfirmed,
+  actorsBeforeAll,
+  measureSignAndApprove,
   DEMO_PASSWORD as PW,
   insertTestJob,
   refusalOf,
   uploadDemoProbe,
 } from "./fixtures";
 
-const as: Record<string, Actor> = {};
+const as = actorsBeforeAll();
 let jobId = "";
 let analysisId = "";
 let otherAnalysisId = "";
@@ -42,7 +39,6 @@ const save = async (analysis: string, w: number, h: number, caption: string) =>
   ).id;
 
 beforeAll(async () => {
-  Object.assign(as, await allActors());
   jobId = await insertTestJob({
     tag: "VW",
     title: "Report views test job",
@@ -63,11 +59,7 @@ describe("choosing saved views for the report", () => {
   });
 
   it("refuses a view of another fit and a view under 600 × 400 px, with the reason; nothing stored", async () => {
-    await measureEveryStep(as.installer!, jobId);
-    await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
-    await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
-    await changeJobStatus(as.installer!, jobId, "in_review");
-    await approveConfirmed(as.engineer!, analysisId, PW);
+    await measureSignAndApprove(as, jobId, analysisId);
     await carryOpenResults(as.engineer!, jobId, "Accepted for the test job.");
     const other = await save(otherAnalysisId, 800, 600, "other fit");
     expect(

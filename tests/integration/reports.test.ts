@@ -8,14 +8,12 @@ import { issueReport, respondToReport } from "@/db/queries/reports";
 import { signJobWork } from "@/db/queries/signatures";
 import { verifyPdfFile, verifyReport } from "@/db/queries/verification";
 import { jobs, outbox, reports, signatures } from "@/db/schema";
-import type { Actor } from "@/lib/domain/roles";
-import { allActors, dbError, DEMO_PASSWORD as PW, refusalOf, insertTestJob } from "./fixtures";
+import { actorsBeforeAll, dbError, DEMO_PASSWORD as PW, refusalOf, insertTestJob } from "./fixtures";
 
 let jobId: string;
-const as: Record<string, Actor> = {};
+const as = actorsBeforeAll();
 
 beforeAll(async () => {
-  Object.assign(as, await allActors());
   // A job of its own, so other tests' data is untouched.
   jobId = await insertTestJob({
     tag: "TEST",

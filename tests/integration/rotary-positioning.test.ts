@@ -20,20 +20,22 @@ import { saveProcedureVersion } from "@/db/queries/procedures";
 import { getReadiness, recordDeviation } from "@/db/queries/readiness";
 import { getReportContent, issueReport } from "@/db/queries/reports";
 import { getJobDetail } from "@/db/queries/jobs";
-import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
 import { auditEvents, datasets, jobs, procedureTemplates, templatePositioningLimits } from "@/db/schema";
-import type { Actor } from "@/lib/domain/roles";
 import { rotaryPositioningSubject } from "@/lib/rotary-positioning-display";
 import { pdfText } from "../pdf-tools";
 import { BIDIRECTIONAL, PRINTED_AXIS, publicDataCsv } from "../fixtures/iso230-2-public";
 import { upload } from "./dataset-helpers";
-import { request, signInAs } from "./helpers";
-import { insertTestJob } from "./fixtures";
+import { issueFields, jsonBody, request, signInAs } from "./helpers";
+import { actorsBeforeAll, insertTestJob, signPerformedAndInspected } from "./fixtures";
 import { jobBaseOf } from "./ready-job";
 
 const PW = "trammel-demo";
-const as: Record<string, Actor> = {};
+const as = actorsBeforeAll([
+  "installer@halvard.example",
+  "inspector@halvard.example",
+  "engineer@halvard.example",
+]);
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
 let jobId = "";
 
@@ -42,8 +44,6 @@ const printedArcsec = (value: number, printedMm: number, what?: string) =>
   expect(Math.abs(value - printedMm * 3600), what).toBeLessThanOrEqual(0.5e-8 * 3600 + 1e-12);
 
 beforeAll(async () => {
-  for (const e of ["installer@halvard.example", "inspector@halvard.example", "engineer@halvard.example"])
-    as[e.split("@")[0]!] = (await getActor((await signInAs(e))!))!;
   // A procedure version of our own (no steps) that limits the primary axis: A ≤ 0.25″, R ≤ 0.3″.
   const [t] = await db
     .insert(procedureTemplates)
@@ -78,14 +78,10 @@ beforeAll(async () => {
 }, 30_000);
 
 const codes = async () => (await getReadiness(as.engineer!, jobId))!.blockers.map((b) => b.code);
-const sign = async () => {
-  await signJobWork(as.installer!, { jobId, meaning: "performed", password: PW });
-  await signJobWork(as.inspector!, { jobId, meaning: "inspected", password: PW });
-};
 
 describe("a rotary positioning test through the app", () => {
   it("blocks issue while the limited axis has no test", async () => {
-    await sign();
+    await signPerformedAndInspected(as, jobId);
     expect(await codes()).toEqual(["rotary_positioning_missing"]);
     const refused = await issueReport(as.engineer!, { jobId, password: PW }).then(
       () => "issued",
@@ -155,7 +151,7 @@ describe("a rotary positioning test through the app", () => {
 
     // The new data makes the signatures stale; signed again, the FAIL is what stands.
     expect(await codes()).toEqual(["signature_stale", "signature_stale", "result_not_conforming"]);
-    await sign();
+    await signPerformedAndInspected(as, jobId);
     expect(await codes()).toEqual(["result_not_conforming"]);
     await recordDeviation(as.engineer!, {
       jobId,
@@ -238,14 +234,7 @@ describe("a new procedure version", () => {
     const [job] = await db.select({ templateId: jobs.templateId }).from(jobs).where(eq(jobs.id, jobId));
     const from = job!.templateId!;
     const post = (body: unknown, id = from) =>
-      versionPost(
-        request(`/api/procedures/${id}/versions`, {
-          method: "POST",
-          headers: { "content-type": "application/json" },
-          body: JSON.stringify(body),
-        }),
-        p(id),
-      );
+      versionPost(request(`/api/procedures/${id}/versions`, jsonBody("POST", body)), p(id));
     const steps = [{ title: "Findings", kind: "note" }];
     // A limit without its source is refused, naming the field; nothing is stored.
     const refused = await post({
@@ -253,14 +242,10 @@ describe("a new procedure version", () => {
       positioningLimits: [{ axis: "primary", quantity: "A", upper: 0.4 }],
     });
     expect(refused.status).toBe(422);
-    expect((await refused.json()).error.issues.map((i: { field: string }) => i.field)).toEqual([
-      "positioningLimits.0.limitSource",
-    ]);
+    expect(await issueFields(refused)).toEqual(["positioningLimits.0.limitSource"]);
     const unknown = await post({ steps, positioningLimits: [{ axis: "primary", quantity: "Q", upper: 1 }] });
     expect(unknown.status).toBe(422);
-    expect((await unknown.json()).error.issues.map((i: { field: string }) => i.field)).toEqual([
-      "positioningLimits.0.quantity",
-    ]);
+    expect(await issueFields(unknown)).toEqual(["positioningLimits.0.quantity"]);
 
     // A job follows `from`, so the body becomes a new version with the new limits.
     const res = await post({

@@ -14,14 +14,14 @@ import { signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
 import { jobs, readings, signatures, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
-import type { Actor } from "@/lib/domain/roles";
 import { env } from "@/lib/env";
 import {
-  allActors,
+  actorsBeforeAll,
   BASE_JOB,
   DEMO_PASSWORD as PW,
   firstStepOf,
   insertTestJob,
+  type JobBase,
   instrumentIdBySerial,
   refusalOf,
   uploadDemoProbe,
@@ -29,8 +29,8 @@ import {
 } from "./fixtures";
 import { jobBaseOf } from "./ready-job";
 
-const as: Record<string, Actor> = {};
-let base: { customerId: string; machineId: string; headId: string; templateId: string };
+const as = actorsBeforeAll();
+let base: JobBase;
 let stepId: string;
 let instrumentId: string;
 
@@ -46,7 +46,6 @@ const newJob = (installerId: string) =>
   });
 
 beforeAll(async () => {
-  Object.assign(as, await allActors());
   base = await jobBaseOf(BASE_JOB);
   stepId = await firstStepOf(base.templateId);
   instrumentId = await instrumentIdBySerial();

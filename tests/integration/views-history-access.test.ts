@@ -13,8 +13,8 @@ import { GET as listRoute, POST as saveRoute } from "@/app/api/analyses/[id]/vie
 import { GET as imageRoute } from "@/app/api/analysis-views/[id]/image/route";
 import { GET as historyRoute } from "@/app/api/heads/[id]/history/route";
 import { db } from "@/db";
-import { analyses, datasets, heads } from "@/db/schema";
-import { fitDemoProbe, WHO, type Who } from "./fixtures";
+import { heads } from "@/db/schema";
+import { fitDemoProbe, seededFits, TOLLAN_JOB, WHO, type Who } from "./fixtures";
 import { formPost, jobIdByReference, request, signInAs } from "./helpers";
 
 const p = (id: string) => ({ params: Promise.resolve({ id }) });
@@ -45,19 +45,14 @@ const CELLS: Record<Who, [number, number, number, number, number, number]> = {
 const ids = { marlowAnalysis: "", marlowView: "", tollanView: "", marlowHead: "", tollanHead: "" };
 
 beforeAll(async () => {
-  const job = await jobIdByReference("TR-2026-0052");
-  const [a] = await db
-    .select({ id: analyses.id })
-    .from(analyses)
-    .innerJoin(datasets, eq(datasets.id, analyses.datasetId))
-    .where(eq(analyses.jobId, job));
-  ids.marlowAnalysis = a!.id;
+  ids.marlowAnalysis = (await seededFits()).pre.analysisId;
   await signInAs("engineer@halvard.example");
   const m = await save(ids.marlowAnalysis);
   expect(m.status).toBe(201);
   ids.marlowView = (await m.json()).view.id;
-  const tollanJob = await jobIdByReference("TR-2026-0048");
-  const t = await save((await fitDemoProbe(tollanJob, "tollan-matrix.csv")).analysisId);
+  const t = await save(
+    (await fitDemoProbe(await jobIdByReference(TOLLAN_JOB), "tollan-matrix.csv")).analysisId,
+  );
   expect(t.status).toBe(201);
   ids.tollanView = (await t.json()).view.id;
   ids.marlowHead = (await db.select({ id: heads.id }).from(heads).where(eq(heads.serial, "TH-2241")))[0]!.id;
