@@ -1,5 +1,5 @@
 import { drawing, palette } from "@/lib/domain/theme";
-import { limitRowLayout, reportCharts, type LimitRow } from "@/lib/report/chart-data";
+import { LIMIT_ROW_BOX, limitRowLayout, reportCharts, type LimitRow } from "@/lib/report/chart-data";
 import type { ReportData } from "@/lib/report/types";
 import { Residuals } from "@/components/report/residuals-figure";
 import { StoredViewImage } from "@/components/viewer/stored-view-image";
@@ -53,8 +53,7 @@ export function ReportFigures({ data }: { data: ReportData }) {
   );
 }
 
-const W = 360;
-const H = 18;
+const { width: W, height: H } = LIMIT_ROW_BOX.page;
 
 function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: string; legend: string }) {
   return (
@@ -62,7 +61,7 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
       <table className="w-full text-sm" aria-label={title}>
         <tbody className="divide-y divide-graphite-100">
           {rows.map((r, i) => {
-            const l = limitRowLayout(r, W);
+            const l = limitRowLayout(r, LIMIT_ROW_BOX.page);
             return (
               <tr key={i}>
                 <th scope="row" className="w-56 py-1 pr-3 text-left font-normal">
@@ -75,54 +74,28 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                     role="img"
                     aria-label={r.note}
                   >
-                    <rect x={l.band.x} y={2} width={l.band.width} height={H - 4} fill={drawing.limitBand} />
-                    {l.limits.map((x, j) => (
-                      <line
-                        key={`l${j}`}
-                        x1={x}
-                        x2={x}
-                        y1={0}
-                        y2={H}
-                        stroke={palette.pass[700]}
-                        strokeWidth={1.4}
-                      />
+                    <rect {...l.band} fill={drawing.limitBand} />
+                    {l.limits.map((seg, j) => (
+                      <line key={`l${j}`} {...seg} stroke={palette.pass[700]} strokeWidth={1.4} />
                     ))}
-                    {l.zero !== null ? (
+                    {l.zero ? (
                       <line
-                        x1={l.zero}
-                        x2={l.zero}
-                        y1={3}
-                        y2={H - 3}
+                        {...l.zero}
                         stroke={palette.graphite[600]}
                         strokeWidth={0.6}
                         strokeDasharray="2 2"
                       />
                     ) : null}
-                    {l.travel ? (
-                      <line
-                        {...l.travel}
-                        y1={H / 2}
-                        y2={H / 2}
-                        stroke={palette.graphite[600]}
-                        strokeWidth={1}
-                      />
-                    ) : null}
-                    {l.uBars.map((b, j) => (
-                      <line
-                        key={`u${j}`}
-                        {...b}
-                        y1={H / 2}
-                        y2={H / 2}
-                        stroke={palette.graphite[900]}
-                        strokeWidth={1.4}
-                      />
+                    {l.travel ? <line {...l.travel} stroke={palette.graphite[600]} strokeWidth={1} /> : null}
+                    {l.uBars.map((seg, j) => (
+                      <line key={`u${j}`} {...seg} stroke={palette.graphite[900]} strokeWidth={1.4} />
                     ))}
                     {l.marks.map((m, j) =>
                       m.kind === "before" ? (
                         <circle
                           key={j}
                           cx={m.x}
-                          cy={H / 2}
+                          cy={l.mid}
                           r={4}
                           fill={palette.white}
                           stroke={palette.nominal[500]}
@@ -132,7 +105,7 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                         <circle
                           key={j}
                           cx={m.x}
-                          cy={H / 2}
+                          cy={l.mid}
                           r={3.6}
                           fill={m.kind === "after" ? palette.graphite[900] : drawing.accentLine}
                         />

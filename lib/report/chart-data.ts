@@ -2,6 +2,7 @@
  * The numbers behind the report's charts, shared by the PDF (lib/report/charts.tsx) and the page
  * (components/report/report-charts.tsx) so both draw the same thing. Pure.
  */
+import { horizontal, vertical } from "@/lib/chart-lines";
 import { signed } from "@/lib/numbers";
 import type { Decision, ReportCharts } from "./types";
 
@@ -47,23 +48,45 @@ export function rowLimits(row: Pick<LimitRow, "lower" | "upper">): number[] {
   return [row.lower, row.upper].filter((v): v is number => v != null);
 }
 
+/** A limit row's drawing: its size, and how far the band, the limit lines and the zero line stay off its edges. */
+export interface LimitRowBox {
+  width: number;
+  height: number;
+  insets: { band: number; limit: number; zero: number };
+}
+
+/** A limit row on the report page (SVG px) and in the PDF (pt). */
+export const LIMIT_ROW_BOX = {
+  page: { width: 360, height: 18, insets: { band: 2, limit: 0, zero: 3 } },
+  pdf: { width: 225, height: 13, insets: { band: 1.5, limit: 0.5, zero: 2 } },
+} satisfies Record<string, LimitRowBox>;
+
 /**
- * Where a limit row's pieces sit along a plot `width` wide (4 units of margin each side), the same
- * for the page and the PDF: the shaded band between the limits, a line at each limit, the zero line
- * when zero is inside, the travel from before to after, each value's ± U bar and its mark.
+ * Where a limit row's pieces sit in a box (4 units of margin each side), the same for the page and
+ * the PDF: the shaded band between the limits, a line at each limit, the zero line when zero is
+ * inside, the travel from before to after, each value's ± U bar and its mark, on the row's middle.
  */
-export function limitRowLayout(row: Pick<LimitRow, "lower" | "upper" | "marks">, width: number) {
+export function limitRowLayout(row: Pick<LimitRow, "lower" | "upper" | "marks">, box: LimitRowBox) {
+  const { width, height, insets } = box;
   const { from, to } = rowDomain(row);
   const x = (v: number) => 4 + ((v - from) / (to - from)) * (width - 8);
+  const mid = height / 2;
   const bandFrom = x(row.lower ?? from);
   const before = row.marks.find((m) => m.kind === "before");
   const after = row.marks.find((m) => m.kind === "after");
+  const across = (inset: number, at: number) => vertical(at, inset, height - inset);
   return {
-    band: { x: bandFrom, width: Math.max(0.5, x(row.upper ?? to) - bandFrom) },
-    limits: rowLimits(row).map(x),
-    zero: from < 0 && to > 0 ? x(0) : null,
-    travel: before && after ? { x1: x(before.value), x2: x(after.value) } : null,
-    uBars: row.marks.flatMap((m) => (m.U ? [{ x1: x(m.value - m.U), x2: x(m.value + m.U) }] : [])),
+    mid,
+    band: {
+      x: bandFrom,
+      y: insets.band,
+      width: Math.max(0.5, x(row.upper ?? to) - bandFrom),
+      height: height - 2 * insets.band,
+    },
+    limits: rowLimits(row).map((v) => across(insets.limit, x(v))),
+    zero: from < 0 && to > 0 ? across(insets.zero, x(0)) : null,
+    travel: before && after ? horizontal(x(before.value), x(after.value), mid) : null,
+    uBars: row.marks.flatMap((m) => (m.U ? [horizontal(x(m.value - m.U), x(m.value + m.U), mid)] : [])),
     marks: row.marks.map((m) => ({ kind: m.kind, x: x(m.value) })),
   };
 }

@@ -8,7 +8,7 @@
 import { drawing, palette } from "@/lib/domain/theme";
 import { Circle, Line, Rect, Svg, Text, View } from "@react-pdf/renderer";
 import { RESIDUALS_BOX, residualsLayout } from "@/lib/report/residuals-layout";
-import { limitRowLayout, type LimitRow } from "./chart-data";
+import { LIMIT_ROW_BOX, limitRowLayout, type LimitRow } from "./chart-data";
 import { pdfColours } from "./pdf-styles";
 import type { ReportCharts } from "./types";
 
@@ -20,46 +20,34 @@ const C = {
   after: palette.graphite[900],
 };
 
-const ROW_W = 225;
-const ROW_H = 13;
+const { width: ROW_W, height: ROW_H } = LIMIT_ROW_BOX.pdf;
 
 function RowPlot({ row }: { row: LimitRow }) {
-  const l = limitRowLayout(row, ROW_W);
-  const mid = ROW_H / 2;
+  const l = limitRowLayout(row, LIMIT_ROW_BOX.pdf);
   return (
     <Svg width={ROW_W} height={ROW_H} viewBox={`0 0 ${ROW_W} ${ROW_H}`}>
-      <Rect x={l.band.x} y={1.5} width={l.band.width} height={ROW_H - 3} fill={C.limitBand} />
-      {l.limits.map((x, i) => (
-        <Line key={`l${i}`} x1={x} x2={x} y1={0.5} y2={ROW_H - 0.5} stroke={C.limit} strokeWidth={0.9} />
+      <Rect {...l.band} fill={C.limitBand} />
+      {l.limits.map((seg, i) => (
+        <Line key={`l${i}`} {...seg} stroke={C.limit} strokeWidth={0.9} />
       ))}
-      {l.zero !== null ? (
-        <Line
-          x1={l.zero}
-          x2={l.zero}
-          y1={2}
-          y2={ROW_H - 2}
-          stroke={C.muted}
-          strokeWidth={0.4}
-          strokeDasharray="1 1"
-        />
-      ) : null}
-      {l.travel ? <Line {...l.travel} y1={mid} y2={mid} stroke={C.muted} strokeWidth={0.6} /> : null}
-      {l.uBars.map((b, i) => (
-        <Line key={`u${i}`} {...b} y1={mid} y2={mid} stroke={C.ink} strokeWidth={0.8} />
+      {l.zero ? <Line {...l.zero} stroke={C.muted} strokeWidth={0.4} strokeDasharray="1 1" /> : null}
+      {l.travel ? <Line {...l.travel} stroke={C.muted} strokeWidth={0.6} /> : null}
+      {l.uBars.map((seg, i) => (
+        <Line key={`u${i}`} {...seg} stroke={C.ink} strokeWidth={0.8} />
       ))}
       {l.marks.map((m, i) =>
         m.kind === "before" ? (
           <Circle
             key={i}
             cx={m.x}
-            cy={mid}
+            cy={l.mid}
             r={2.6}
             fill={palette.white}
             stroke={C.before}
             strokeWidth={1.1}
           />
         ) : (
-          <Circle key={i} cx={m.x} cy={mid} r={2.4} fill={m.kind === "after" ? C.after : C.accent} />
+          <Circle key={i} cx={m.x} cy={l.mid} r={2.4} fill={m.kind === "after" ? C.after : C.accent} />
         ),
       )}
     </Svg>

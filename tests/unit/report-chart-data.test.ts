@@ -3,7 +3,7 @@
 // project's own; the interval arithmetic is checked by hand below.
 import { describe, expect, it } from "vitest";
 import { residualsLayout } from "@/lib/report/residuals-layout";
-import { limitRowLayout, reportCharts, rowDomain, rowLimits } from "@/lib/report/chart-data";
+import { LIMIT_ROW_BOX, limitRowLayout, reportCharts, rowDomain, rowLimits } from "@/lib/report/chart-data";
 
 const readings = [{ step: "1 Collar face", lower: -0.01, upper: 0.01, pre: 0.02, post: 0.004, unit: "mm" }];
 const parameters = [
@@ -98,7 +98,8 @@ describe("the residual chart's layout (page and PDF alike)", () => {
 
 describe("a limit row's layout (page and PDF alike)", () => {
   // Limits ±10″, before 14.2″, after 3.1″: the domain is the limits widened by a third of their
-  // span each side, −16.67 … +16.67″, over 352 of the 360 units (4 each side). Worked by hand.
+  // span each side, −16.67 … +16.67″, over 352 of the 360 units (4 each side), in a row 18 high.
+  // Worked by hand.
   const l = limitRowLayout(
     {
       lower: -10,
@@ -108,24 +109,31 @@ describe("a limit row's layout (page and PDF alike)", () => {
         { kind: "after", value: 3.1, U: 0.5 },
       ],
     },
-    360,
+    LIMIT_ROW_BOX.page,
   );
   it("places the band, the limits and the zero line", () => {
     expect(l.band.x).toBeCloseTo(74.4, 9);
     expect(l.band.width).toBeCloseTo(211.2, 9);
-    expect(l.limits[0]).toBeCloseTo(74.4, 9);
-    expect(l.limits[1]).toBeCloseTo(285.6, 9);
-    expect(l.zero).toBeCloseTo(180, 9);
+    expect([l.band.y, l.band.height]).toEqual([2, 14]); // 2 off the top and bottom of 18
+    expect(l.limits[0]!.x1).toBeCloseTo(74.4, 9);
+    expect(l.limits[1]!.x2).toBeCloseTo(285.6, 9);
+    expect([l.limits[0]!.y1, l.limits[0]!.y2]).toEqual([0, 18]);
+    expect(l.zero!.x1).toBeCloseTo(180, 9);
+    expect([l.zero!.y1, l.zero!.y2]).toEqual([3, 15]);
   });
   it("draws the travel from before to after, the U bar and each mark", () => {
     expect(l.travel!.x1).toBeCloseTo(329.952, 9);
     expect(l.travel!.x2).toBeCloseTo(212.736, 9);
+    expect([l.mid, l.travel!.y1, l.travel!.y2, l.uBars[0]!.y1]).toEqual([9, 9, 9, 9]);
     expect(l.uBars).toHaveLength(1);
     expect(l.uBars[0]!.x2 - l.uBars[0]!.x1).toBeCloseTo(10.56, 9); // 1″ of 33.33″ over 352
     expect(l.marks.map((m) => m.kind)).toEqual(["before", "after"]);
   });
   it("leaves out the zero line when zero is outside, and the travel without a before", () => {
-    const one = limitRowLayout({ lower: 5, upper: 9, marks: [{ kind: "value", value: 7 }] }, 360);
+    const one = limitRowLayout(
+      { lower: 5, upper: 9, marks: [{ kind: "value", value: 7 }] },
+      LIMIT_ROW_BOX.pdf,
+    );
     expect(one.zero).toBeNull();
     expect(one.travel).toBeNull();
     expect(one.uBars).toEqual([]);
