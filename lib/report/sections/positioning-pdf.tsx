@@ -73,6 +73,25 @@ function Marks({ marks, colour, square }: { marks: ChartMark[]; colour: string; 
   );
 }
 
+/** A number on one of the chart's scales. */
+function ScaleLabel({
+  x,
+  y,
+  anchor,
+  text,
+}: {
+  x: number;
+  y: number;
+  anchor: "end" | "middle";
+  text: string;
+}) {
+  return (
+    <Text x={x} y={y} textAnchor={anchor} style={{ fontSize: 8 }} fill={drawing.axisText}>
+      {text}
+    </Text>
+  );
+}
+
 function Chart({ test }: { test: ReportPositioningTest }) {
   const l = positioningChartLayout(test.chart);
   return (
@@ -90,28 +109,10 @@ function Chart({ test }: { test: ReportPositioningTest }) {
           />
         ))}
         {l.yTicks.map((t) => (
-          <Text
-            key={`y${t.label}`}
-            x={l.plot.x0 - 4}
-            y={t.y + 3}
-            textAnchor="end"
-            style={{ fontSize: 8 }}
-            fill={drawing.axisText}
-          >
-            {t.value}
-          </Text>
+          <ScaleLabel key={`y${t.label}`} x={l.plot.x0 - 4} y={t.y + 3} anchor="end" text={t.value} />
         ))}
         {l.xTicks.map((t) => (
-          <Text
-            key={`x${t.label}`}
-            x={t.x}
-            y={l.plot.y1 + 12}
-            textAnchor="middle"
-            style={{ fontSize: 8 }}
-            fill={drawing.axisText}
-          >
-            {t.label}
-          </Text>
+          <ScaleLabel key={`x${t.label}`} x={t.x} y={l.plot.y1 + 12} anchor="middle" text={t.label} />
         ))}
         <Line
           x1={l.plot.x0}
