@@ -73,6 +73,21 @@ function Marks({ marks, colour, square }: { marks: ChartMark[]; colour: string; 
   );
 }
 
+/** A horizontal line across the plot at height `y`: a grid line, or the dashed zero line. */
+function PlotRule({
+  plot,
+  y,
+  ...style
+}: {
+  plot: { x0: number; x1: number };
+  y: number;
+  stroke: string;
+  strokeWidth: number;
+  strokeDasharray?: string;
+}) {
+  return <Line x1={plot.x0} x2={plot.x1} y1={y} y2={y} {...style} />;
+}
+
 /** A number on one of the chart's scales. */
 function ScaleLabel({
   x,
@@ -98,15 +113,7 @@ function Chart({ test }: { test: ReportPositioningTest }) {
     <View wrap={false} style={{ marginTop: 4 }}>
       <Svg width={CHART_W} height={(CHART_W * l.height) / l.width} viewBox={`0 0 ${l.width} ${l.height}`}>
         {l.yTicks.map((t) => (
-          <Line
-            key={`g${t.label}`}
-            x1={l.plot.x0}
-            x2={l.plot.x1}
-            y1={t.y}
-            y2={t.y}
-            stroke={drawing.grid}
-            strokeWidth={0.5}
-          />
+          <PlotRule key={`g${t.label}`} plot={l.plot} y={t.y} stroke={drawing.grid} strokeWidth={0.5} />
         ))}
         {l.yTicks.map((t) => (
           <ScaleLabel key={`y${t.label}`} x={l.plot.x0 - 4} y={t.y + 3} anchor="end" text={t.value} />
@@ -114,11 +121,9 @@ function Chart({ test }: { test: ReportPositioningTest }) {
         {l.xTicks.map((t) => (
           <ScaleLabel key={`x${t.label}`} x={t.x} y={l.plot.y1 + 12} anchor="middle" text={t.label} />
         ))}
-        <Line
-          x1={l.plot.x0}
-          x2={l.plot.x1}
-          y1={l.zeroY}
-          y2={l.zeroY}
+        <PlotRule
+          plot={l.plot}
+          y={l.zeroY}
           stroke={drawing.zeroLine}
           strokeWidth={0.7}
           strokeDasharray="3 2"
