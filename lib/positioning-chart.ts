@@ -27,6 +27,8 @@ export interface PositioningChartLayout {
   width: number;
   height: number;
   plot: { x0: number; x1: number; y0: number; y1: number };
+  /** The plot's frame as a rectangle, for either renderer's rect. */
+  frame: { x: number; y: number; width: number; height: number };
   xTicks: Array<{ x: number; label: string }>;
   /** `label` with the unit (the page), `value` without it (the PDF's chart font has no ″). */
   yTicks: Array<{ y: number; label: string; value: string }>;
@@ -78,6 +80,7 @@ export function positioningChartLayout(chart: {
     width,
     height,
     plot,
+    frame: { x: plot.x0, y: plot.y0, width: plot.x1 - plot.x0, height: plot.y1 - plot.y0 },
     xTicks: targets
       .filter((_, i) => i % every === 0)
       .map((t) => ({ x: x(t), label: `${Number(t.toFixed(3))}°` })),

@@ -128,15 +128,7 @@ function Chart({ test }: { test: ReportPositioningTest }) {
           strokeWidth={0.7}
           strokeDasharray="3 2"
         />
-        <Rect
-          x={l.plot.x0}
-          y={l.plot.y0}
-          width={l.plot.x1 - l.plot.x0}
-          height={l.plot.y1 - l.plot.y0}
-          fill="none"
-          stroke={palette.graphite[200]}
-          strokeWidth={0.6}
-        />
+        <Rect {...l.frame} fill="none" stroke={palette.graphite[200]} strokeWidth={0.6} />
         <Marks marks={l.pos} colour={POS} />
         <Marks marks={l.neg} colour={NEG} square />
       </Svg>
