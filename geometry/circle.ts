@@ -5,15 +5,13 @@
 import { inverse, Matrix, SVD, solve } from "ml-matrix";
 import { GeometryError } from "./errors";
 import { ColumnQr } from "./qr";
+import type { NumberColumns, SphereProbeData } from "./types";
 import { RAD_PER_ARCSEC } from "./units";
 
 export type Vec3 = readonly [number, number, number];
 
-export interface PointsInput {
-  readonly xMm: ArrayLike<number>;
-  readonly yMm: ArrayLike<number>;
-  readonly zMm: ArrayLike<number>;
-}
+/** Measured points in machine coordinates, mm (named as in sphere-probe data and the points reader's). */
+export type PointsInput = NumberColumns<SphereProbeData, "xMm" | "yMm" | "zMm">;
 
 export interface CircleFit {
   readonly n: number;

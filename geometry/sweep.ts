@@ -6,12 +6,10 @@ import { Matrix, solve } from "ml-matrix";
 import { assertFiniteFields, GeometryError } from "./errors";
 import { pickFields } from "./json";
 import { ColumnQr } from "./qr";
+import type { NumberColumns, SweepData } from "./types";
 import { RAD_PER_ARCSEC, RAD_PER_DEG } from "./units";
 
-export interface SweepInput {
-  readonly angleDeg: ArrayLike<number>;
-  readonly readingUm: ArrayLike<number>;
-}
+export type SweepInput = NumberColumns<SweepData, "angleDeg" | "readingUm">;
 
 export interface SweepResult {
   readonly n: number;

@@ -4,12 +4,10 @@
  */
 import { assertFiniteFields, GeometryError } from "./errors";
 import { pickFields } from "./json";
+import type { NumberColumns, TramData } from "./types";
 import { RAD_PER_ARCSEC } from "./units";
 
-export interface TramInput {
-  readonly travelMm: ArrayLike<number>;
-  readonly readingUm: ArrayLike<number>;
-}
+export type TramInput = NumberColumns<TramData, "travelMm" | "readingUm">;
 
 export interface TramResult {
   readonly n: number;

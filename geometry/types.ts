@@ -3,6 +3,12 @@
  * compact; every length is in mm and every angle in degrees at this edge (names carry the unit).
  */
 
+/**
+ * Named number columns as a fit takes them: any array of numbers per name (a reader's Float64Array,
+ * or a plain array from a caller). `K` names the columns of the data shape `T` the fit reads.
+ */
+export type NumberColumns<T, K extends keyof T> = { readonly [P in K]: ArrayLike<number> };
+
 /** Sphere-probe data: one row per probed pose, the measured sphere centre in machine coordinates. */
 export interface SphereProbeData {
   readonly rows: number;

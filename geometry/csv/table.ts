@@ -312,14 +312,16 @@ export function readTable(
   if (rec.unclosedField !== -1) {
     fail([{ code: "quote", row: 1, message: "the header has a quote that is never closed" }]);
   }
+  /** A quoting fault in field `field` of `row`, named by the field's header column. */
+  const quoteIssue = (row: number, field: number, message: string): CodedIssue => ({
+    code: "quote",
+    row,
+    column: headerNames[field],
+    message,
+  });
   const issues: CodedIssue[] = [];
   if (rec.strayAfterQuote !== -1) {
-    issues.push({
-      code: "quote",
-      row: 1,
-      column: headerNames[rec.strayAfterQuote],
-      message: "text after the closing quote of a header name",
-    });
+    issues.push(quoteIssue(1, rec.strayAfterQuote, "text after the closing quote of a header name"));
   }
   const specByName = new Map(columns.map((c) => [c.name, c]));
   const fieldOfSpec = new Map<string, number>();
@@ -411,21 +413,17 @@ export function readTable(
       pendingBlank = [];
     }
     if (rec.unclosedField !== -1) {
-      issues.push({
-        code: "quote",
-        row,
-        column: headerNames[rec.unclosedField],
-        message: "a quote opens here and is never closed",
-      });
+      issues.push(quoteIssue(row, rec.unclosedField, "a quote opens here and is never closed"));
       break;
     }
     if (rec.strayAfterQuote !== -1) {
-      issues.push({
-        code: "quote",
-        row,
-        column: headerNames[rec.strayAfterQuote],
-        message: "text after the closing quote; quote the whole field and double any quote inside it",
-      });
+      issues.push(
+        quoteIssue(
+          row,
+          rec.strayAfterQuote,
+          "text after the closing quote; quote the whole field and double any quote inside it",
+        ),
+      );
     }
     if (buf.count !== headerCount) {
       const hint =

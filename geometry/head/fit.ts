@@ -13,19 +13,17 @@ import { covarianceFromNormal, levenbergMarquardt } from "../lm";
 import type { SphereProbeData } from "../types";
 import {
   headAxes,
-  headParameterSymbols,
-  headParameterUnit,
   HEAD_PARAMETER_KEYS,
   type HeadConfig,
   type HeadParameterKey,
-  type HeadParameterUnit,
   type HeadVec3 as Vec3,
 } from "./config";
 import {
   analyseHeadIdentifiability,
   initialFreeSet,
+  parameterStandings,
   separationAdvice,
-  type Identifiability,
+  type HeadParameterStanding,
   type ParameterSelection,
 } from "./identifiability";
 import { NP } from "./kernel";
@@ -67,18 +65,14 @@ export interface HeadFitOptions extends ParameterSelection {
   readonly limits?: Partial<Record<HeadParameterKey, number>>;
 }
 
-export interface HeadFitParameter {
-  readonly key: HeadParameterKey;
-  /** Symbol beside the key (ISO 230-1 style where one applies; see headParameterSymbols). */
-  readonly iso: string;
+/** `identifiable` is the analysis's, or "weak" where U exceeds the parameter's limit (HeadFitOptions). */
+export interface HeadFitParameter extends HeadParameterStanding {
   /** Estimate, in `unit`; 0 when pinned. */
   readonly value: number;
-  readonly unit: HeadParameterUnit;
   /** Standard uncertainty in `unit`; null when the parameter is held at 0. */
   readonly u: number | null;
   /** Expanded uncertainty U = 2u in `unit`; null when held at 0. */
   readonly U: number | null;
-  readonly identifiable: Identifiability;
   readonly pinned: boolean;
 }
 
@@ -328,7 +322,6 @@ function requireFinite(r: HeadFitResult): void {
 
 function fitHeadUnchecked(config: HeadConfig, data: SphereProbeData, options: HeadFitOptions): HeadFitResult {
   const axes = headAxes(config);
-  const symbols = headParameterSymbols(config);
   const n = data.rows;
   const startFree = initialFreeSet(options);
   if (n < 3 + startFree.length) {
@@ -500,42 +493,21 @@ function fitHeadUnchecked(config: HeadConfig, data: SphereProbeData, options: He
 
   const largeU: string[] = [];
   const largeUKeys: HeadParameterKey[] = [];
-  const parameters: HeadFitParameter[] = HEAD_PARAMETER_KEYS.map((key, j) => {
-    const st = ident.parameters[j]!;
-    const col = free.indexOf(j);
-    const unit = headParameterUnit(key);
-    if (col < 0)
-      return {
-        key,
-        iso: symbols[key],
-        value: 0,
-        unit,
-        u: null,
-        U: null,
-        identifiable: st.identifiable,
-        pinned: true,
-      };
-    const u = Math.sqrt(cov[(3 + col) * np + 3 + col]!);
+  const parameters = parameterStandings(config, ident).map(({ column, ...standing }): HeadFitParameter => {
+    if (column < 0) return { ...standing, value: 0, u: null, U: null, pinned: true };
+    const { key, iso, unit } = standing;
+    const u = Math.sqrt(cov[(3 + column) * np + 3 + column]!);
     // "yes" needs the singular-value test and U within the parameter's limit (or the scale).
     const limit = options.limits?.[key] ?? IDENTIFIABLE_SCALE;
-    let identifiable = st.identifiable;
+    let identifiable = standing.identifiable;
     if (identifiable === "yes" && !(2 * u <= limit)) {
       identifiable = "weak";
       largeU.push(
-        `${key} (${symbols[key]}): U = ${+(2 * u).toPrecision(3)} ${unit === "um" ? "µm" : "″"} exceeds ${limit} ${unit === "um" ? "µm" : "″"}${options.limits?.[key] !== undefined ? " (its limit)" : " (the scale used where no limit is given)"}`,
+        `${key} (${iso}): U = ${+(2 * u).toPrecision(3)} ${unit === "um" ? "µm" : "″"} exceeds ${limit} ${unit === "um" ? "µm" : "″"}${options.limits?.[key] !== undefined ? " (its limit)" : " (the scale used where no limit is given)"}`,
       );
       largeUKeys.push(key);
     }
-    return {
-      key,
-      iso: symbols[key],
-      value: lm.theta[3 + col]!,
-      unit,
-      u,
-      U: 2 * u,
-      identifiable,
-      pinned: false,
-    };
+    return { ...standing, value: lm.theta[3 + column]!, u, U: 2 * u, identifiable, pinned: false };
   });
   if (largeU.length > 0)
     warnings.push(

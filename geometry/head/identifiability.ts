@@ -23,10 +23,12 @@ import {
   DEFAULT_PINNED,
   headAxes,
   headParameterSymbols,
+  headParameterUnit,
   HEAD_PARAMETER_KEYS,
   type HeadAxes,
   type HeadConfig,
   type HeadParameterKey,
+  type HeadParameterUnit,
 } from "./config";
 import { NP } from "./kernel";
 import { headNormalEquations, type PoseColumns } from "./normal";
@@ -185,6 +187,33 @@ export function separationAdvice(group: readonly HeadParameterKey[], poses: Pose
   if (parts.length === 0)
     parts.push("more poses at other primary and secondary angles, or a second tool length");
   return parts.join(", and ");
+}
+
+/** A parameter as the fit and the planner list it: its key, symbol and unit, and whether the poses identify it. */
+export interface HeadParameterStanding {
+  readonly key: HeadParameterKey;
+  /** Symbol beside the key (ISO 230-1 style where one applies; see headParameterSymbols). */
+  readonly iso: string;
+  readonly unit: HeadParameterUnit;
+  readonly identifiable: Identifiability;
+}
+
+/**
+ * Every parameter in HEAD_PARAMETER_KEYS order with its standing in `report` and its column among
+ * the report's free parameters (−1 when it is held at 0).
+ */
+export function parameterStandings(
+  config: HeadConfig,
+  report: IdentifiabilityReport,
+): Array<HeadParameterStanding & { readonly column: number }> {
+  const symbols = headParameterSymbols(config);
+  return HEAD_PARAMETER_KEYS.map((key, j) => ({
+    key,
+    iso: symbols[key],
+    unit: headParameterUnit(key),
+    identifiable: report.parameters[j]!.identifiable,
+    column: report.freeIndices.indexOf(j),
+  }));
 }
 
 /**

@@ -10,30 +10,19 @@
  */
 import { GeometryError } from "../errors";
 import { covarianceFromNormal } from "../lm";
-import {
-  headAxes,
-  headParameterSymbols,
-  headParameterUnit,
-  HEAD_PARAMETER_KEYS,
-  type HeadConfig,
-  type HeadParameterKey,
-  type HeadParameterUnit,
-} from "./config";
+import { headAxes, type HeadConfig } from "./config";
 import {
   analyseHeadIdentifiability,
   initialFreeSet,
-  type Identifiability,
+  parameterStandings,
+  type HeadParameterStanding,
   type ParameterSelection,
 } from "./identifiability";
 import { NP } from "./kernel";
 import type { HeadPose } from "./model";
 import type { PoseColumns } from "./normal";
 
-export interface HeadPlanParameter {
-  readonly key: HeadParameterKey;
-  readonly iso: string;
-  readonly unit: HeadParameterUnit;
-  readonly identifiable: Identifiability;
+export interface HeadPlanParameter extends HeadParameterStanding {
   readonly pinned: boolean;
   /** Predicted standard uncertainty per 1 µm of probing noise, in `unit` per µm; null when held at 0. */
   readonly u_per_um_noise: number | null;
@@ -96,7 +85,6 @@ export function planHeadPoses(
       `${n} poses for ${3 + start.length} unknowns (the sphere centre and ${start.length} parameters): plan at least ${3 + start.length} poses`,
     );
   }
-  const symbols = headParameterSymbols(config);
   const ident = analyseHeadIdentifiability(config, cols, selection);
   const free = ident.freeIndices;
   const idx = [0, 1, 2, ...free.map((j) => 3 + j)];
@@ -106,18 +94,11 @@ export function planHeadPoses(
   for (let a = 0; a < m; a++)
     for (let b = 0; b < m; b++) sub[a * m + b] = ident.fullNormal[idx[a]! * N + idx[b]!]!;
   const cov = covarianceFromNormal(sub, m, 1);
-  const parameters = HEAD_PARAMETER_KEYS.map((key, j): HeadPlanParameter => {
-    const st = ident.parameters[j]!;
-    const col = free.indexOf(j);
-    return {
-      key,
-      iso: symbols[key],
-      unit: headParameterUnit(key),
-      identifiable: st.identifiable,
-      pinned: col < 0,
-      u_per_um_noise: col < 0 ? null : Math.sqrt(cov[(3 + col) * m + 3 + col]!),
-    };
-  });
+  const parameters = parameterStandings(config, ident).map(({ column, ...standing }): HeadPlanParameter => ({
+    ...standing,
+    pinned: column < 0,
+    u_per_um_noise: column < 0 ? null : Math.sqrt(cov[(3 + column) * m + 3 + column]!),
+  }));
   const tools = cols.toolMm ? [...new Set(cols.toolMm)].sort((a, b) => a - b) : [0];
   const advice = [...ident.warnings];
   const clean = parameters.filter((p) => !p.pinned && p.identifiable === "yes");

@@ -18,7 +18,8 @@ import {
   tcpCheck,
   tcpCheckToJson,
 } from "@/geometry";
-import { decimalOf, lengthUnitsOf, passWarnings, type CliCommand } from "./command";
+import { readInput } from "./chunked-csv";
+import type { CliCommand } from "./command";
 
 const rotaryPositioningCommand: CliCommand = {
   usage: "rotary-positioning <positions.csv> [--decimal point|comma]",
@@ -26,9 +27,7 @@ const rotaryPositioningCommand: CliCommand = {
     "ISO 230-2 accuracy, repeatability and reversal of a rotary axis (target_deg,run,direction,measured_deg)",
   options: ["decimal"],
   run(ctx) {
-    const data = readRotaryPositioningCsv(ctx.text, { decimal: decimalOf(ctx) });
-    passWarnings(ctx, data.warnings);
-    return rotaryPositioningToJson(rotaryPositioning(data));
+    return rotaryPositioningToJson(rotaryPositioning(readInput(ctx, readRotaryPositioningCsv)));
   },
 };
 
@@ -38,12 +37,7 @@ const tcpCheckCommand: CliCommand = {
     "tool-centre-point check: range of the sphere centre in x, y, z over the swing and the largest distance from the mean",
   options: ["units", "decimal"],
   run(ctx) {
-    const data = readSphereProbeCsv(ctx.text, {
-      units: lengthUnitsOf(ctx),
-      decimal: decimalOf(ctx),
-    });
-    passWarnings(ctx, data.warnings);
-    return tcpCheckToJson(tcpCheck(data));
+    return tcpCheckToJson(tcpCheck(readInput(ctx, readSphereProbeCsv)));
   },
 };
 

@@ -1,8 +1,8 @@
 /**
- * Reading a large CSV file for the `sweep`, `circle` and `tram` commands in bounded memory: the
- * file is read in blocks of whole lines, each block is read by the same geometry/csv reader with
- * the header line put in front, and the blocks' typed columns are appended into one set of typed
- * arrays. The file's text is never held whole (a 10^6-row file is 20–60 MB of text; as a string,
+ * Reading a large CSV file for the `sweep`, `circle`, `tram` and `fit-head` commands in bounded
+ * memory: the file is read in blocks of whole lines, each block is read by the same geometry/csv
+ * reader with the header line put in front, and the blocks' typed columns are appended into one set
+ * of typed arrays. The file's text is never held whole (a 10^6-row file is 20–60 MB of text; as a string,
  * plus the bytes it was decoded from, that is most of a process's memory).
  *
  * The result is the reader's result on the whole text, value for value: the same numbers, the
@@ -17,8 +17,8 @@
  * Blank lines at the very end of the file are ignored, as the whole-file reader ignores them.
  */
 import { closeSync, openSync, readSync } from "node:fs";
-import { GeometryError } from "@/geometry";
-import type { CliContext } from "./command";
+import { GeometryError, type CsvWarning } from "@/geometry";
+import { csvOptionsOf, passWarnings, type CliContext, type CsvOptions } from "./command";
 
 /** What the readers of geometry/csv return: columns of equal length, rows, warnings. */
 interface ReaderResult {
@@ -184,7 +184,29 @@ export function readCsvInBlocks<T extends ReaderResult>(
   }
 }
 
-/** A command's input file read block by block into typed columns, else (see above) its whole text. */
-export function readLarge<T extends ReaderResult>(ctx: CliContext, read: (text: string) => T): T {
-  return readCsvInBlocks(ctx.file, read) ?? read(ctx.text);
+type Warned = { readonly warnings: readonly CsvWarning[] };
+type Reader<T> = (text: string, options: CsvOptions) => T;
+
+/**
+ * A command's input file (its whole text) through one of the readers of geometry/csv with the
+ * command line's options (csvOptionsOf), its warnings printed.
+ */
+export function readInput<T extends Warned>(ctx: CliContext, read: Reader<T>): T {
+  const options = csvOptionsOf(ctx);
+  return printingWarnings(ctx, read(ctx.text, options));
+}
+
+/**
+ * As readInput, for the readers of numeric columns: block by block into typed columns where the
+ * file allows, else (see above) its whole text.
+ */
+export function readLargeInput<T extends ReaderResult & Warned>(ctx: CliContext, read: Reader<T>): T {
+  const options = csvOptionsOf(ctx);
+  const readText = (text: string) => read(text, options);
+  return printingWarnings(ctx, readCsvInBlocks(ctx.file, readText) ?? readText(ctx.text));
+}
+
+function printingWarnings<T extends Warned>(ctx: CliContext, data: T): T {
+  passWarnings(ctx, data.warnings);
+  return data;
 }

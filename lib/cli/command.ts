@@ -72,16 +72,29 @@ export function numberOption(
 }
 
 /** --decimal point|comma: the decimal mark the CSV file is written with. */
-export const decimalOf = (ctx: CliContext) =>
-  choiceOption(ctx, "decimal", ["point", "comma"] as const, "point");
+const decimalOf = (ctx: CliContext) => choiceOption(ctx, "decimal", ["point", "comma"] as const, "point");
 
 /** A length unit option, mm or in (default mm): --units, --travel-units. */
-export const lengthUnitsOf = (ctx: CliContext, name = "units") =>
+const lengthUnitsOf = (ctx: CliContext, name = "units") =>
   choiceOption(ctx, name, ["mm", "in"] as const, "mm");
 
 /** --reading-units um|mm|in: the unit the indicator readings are written in (default µm). */
-export const readingUnitsOf = (ctx: CliContext) =>
+const readingUnitsOf = (ctx: CliContext) =>
   choiceOption(ctx, "reading-units", ["um", "mm", "in"] as const, "um");
+
+/**
+ * The options of the geometry/csv readers as the command line gives them, each with its default
+ * (the dispatcher has already refused an option the command does not take).
+ */
+export function csvOptionsOf(ctx: CliContext) {
+  return {
+    units: lengthUnitsOf(ctx),
+    travelUnits: lengthUnitsOf(ctx, "travel-units"),
+    readingUnits: readingUnitsOf(ctx),
+    decimal: decimalOf(ctx),
+  };
+}
+export type CsvOptions = ReturnType<typeof csvOptionsOf>;
 
 /** A CSV reader's warnings on stderr, one line each naming its row and column. */
 export function passWarnings(ctx: CliContext, warnings: readonly CsvWarning[]): void {

@@ -21,19 +21,9 @@ import {
   sweepToJson,
   tramToJson,
 } from "@/geometry";
-import { readLarge } from "./chunked-csv";
+import { readInput, readLargeInput } from "./chunked-csv";
 import { pickFields } from "@/geometry/json";
-import {
-  choiceOption,
-  CliUsageError,
-  decimalOf,
-  lengthUnitsOf,
-  numberOption,
-  passWarnings,
-  readingUnitsOf,
-  type CliCommand,
-  type CliContext,
-} from "./command";
+import { choiceOption, CliUsageError, numberOption, type CliCommand, type CliContext } from "./command";
 // ── HEAD COMMANDS (fit-head, plan) ─────────────────────────────────────────────────────────────
 // ./head-commands.ts (owned by the head-model work) exports
 //   `export const headCommands: Record<string, CliCommand> = { "fit-head": …, plan: … }`
@@ -47,13 +37,7 @@ const circle: CliCommand = {
   summary: "fit a circle to x,y,z points taken while one axis turns: axis direction, a point on it, radius",
   options: ["units", "decimal"],
   run(ctx) {
-    const options = {
-      units: lengthUnitsOf(ctx),
-      decimal: decimalOf(ctx),
-    };
-    const data = readLarge(ctx, (text) => readPointsCsv(text, options));
-    passWarnings(ctx, data.warnings);
-    const f = fitCircle(data);
+    const f = fitCircle(readLargeInput(ctx, readPointsCsv));
     f.warnings.forEach((w) => ctx.warn(w));
     return pickFields(f, [
       "centre_mm",
@@ -73,13 +57,7 @@ const tram: CliCommand = {
   summary: "least-squares line of indicator reading vs travel: slope, angle, straightness, TIR",
   options: ["travel-units", "reading-units", "decimal"],
   run(ctx) {
-    const options = {
-      travelUnits: lengthUnitsOf(ctx, "travel-units"),
-      readingUnits: readingUnitsOf(ctx),
-      decimal: decimalOf(ctx),
-    };
-    const data = readLarge(ctx, (text) => readTramCsv(text, options));
-    passWarnings(ctx, data.warnings);
+    const data = readLargeInput(ctx, readTramCsv);
     if (data.plane) {
       const p = fitTramPlanes({ ...data, plane: data.plane });
       p.warnings.forEach((w) => ctx.warn(w));
@@ -104,13 +82,7 @@ const sweep: CliCommand = {
   options: ["radius-mm", "reading-units", "decimal"],
   run(ctx) {
     const radius = numberOption(ctx, "radius-mm", { required: true, positive: true })!;
-    const options = {
-      readingUnits: readingUnitsOf(ctx),
-      decimal: decimalOf(ctx),
-    };
-    const data = readLarge(ctx, (text) => readSweepCsv(text, options));
-    passWarnings(ctx, data.warnings);
-    const r = fitSweep(data, radius);
+    const r = fitSweep(readLargeInput(ctx, readSweepCsv), radius);
     r.notes.forEach((n) => ctx.warn(n));
     return sweepToJson(r);
   },
@@ -121,8 +93,7 @@ const testPart: CliCommand = {
   summary: "judge each test-part characteristic against its tolerance (ISO 14253-1 decision rule)",
   options: ["rule", "u-mm", "decimal"],
   run(ctx) {
-    const rows = readTestPartCsv(ctx.text, { decimal: decimalOf(ctx) });
-    passWarnings(ctx, rows.warnings);
+    const rows = readInput(ctx, readTestPartCsv);
     const result = evaluateTestPart(rows, {
       rule: choiceOption(ctx, "rule", ["simple", "guarded"] as const, "simple"),
       defaultUMm: numberOption(ctx, "u-mm", { nonNegative: true }),

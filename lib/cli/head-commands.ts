@@ -34,17 +34,9 @@ import {
 } from "@/geometry";
 // The pose list uses the shared table reader of geometry/csv (the same tokeniser and number checks
 // as every product CSV); it has no reader of its own in geometry/csv's public index.
-import { readTable } from "@/geometry/csv/table";
-import { readLarge } from "./chunked-csv";
-import {
-  CliUsageError,
-  decimalOf,
-  lengthUnitsOf,
-  numberOption,
-  passWarnings,
-  type CliCommand,
-  type CliContext,
-} from "./command";
+import { readTable, type ColumnSpec } from "@/geometry/csv/table";
+import { readInput, readLargeInput } from "./chunked-csv";
+import { CliUsageError, numberOption, type CliCommand, type CliContext } from "./command";
 
 function readHead(ctx: CliContext): HeadConfig {
   const path = ctx.options.head;
@@ -76,12 +68,7 @@ const fitHeadCommand: CliCommand = {
   options: ["head", "units", "decimal", "u-probe-um", "u-tool-um", "delta-t-k"],
   run(ctx) {
     const config = readHead(ctx);
-    const options = {
-      units: lengthUnitsOf(ctx),
-      decimal: decimalOf(ctx),
-    };
-    const data = readLarge(ctx, (text) => readSphereProbeCsv(text, options));
-    passWarnings(ctx, data.warnings);
+    const data = readLargeInput(ctx, readSphereProbeCsv);
     const json = headFitToJson(fitHead(config, data));
     // JCGM 100 budget (geometry/budget.ts) when Type B inputs are given.
     const typeB = {
@@ -100,6 +87,13 @@ const fitHeadCommand: CliCommand = {
   },
 };
 
+/** The pose list's columns: the commanded angles (degrees) and the tool length (mm, default 0). */
+const POSE_COLUMNS: readonly ColumnSpec[] = [
+  { name: "primary_deg", kind: "number", required: true },
+  { name: "secondary_deg", kind: "number", required: true },
+  { name: "tool_mm", kind: "number", required: false },
+];
+
 const planCommand: CliCommand = {
   usage: "plan <poses.csv> --head head.json [--decimal point|comma]",
   summary:
@@ -107,16 +101,7 @@ const planCommand: CliCommand = {
   options: ["head", "decimal"],
   run(ctx) {
     const config = readHead(ctx);
-    const t = readTable(
-      ctx.text,
-      [
-        { name: "primary_deg", kind: "number", required: true },
-        { name: "secondary_deg", kind: "number", required: true },
-        { name: "tool_mm", kind: "number", required: false },
-      ],
-      { decimal: decimalOf(ctx) },
-    );
-    passWarnings(ctx, t.warnings);
+    const t = readInput(ctx, (text, options) => readTable(text, POSE_COLUMNS, options));
     const toolMm = t.numbers.get("tool_mm");
     const plan = planHeadPoses(config, {
       rows: t.rows,

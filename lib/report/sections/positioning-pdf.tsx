@@ -67,6 +67,25 @@ function Marks({ marks, colour, square }: { marks: ChartMark[]; colour: string; 
   );
 }
 
+/** A number on one of the chart's scales. */
+function ScaleLabel({
+  x,
+  y,
+  anchor,
+  text,
+}: {
+  x: number;
+  y: number;
+  anchor: "end" | "middle";
+  text: string;
+}) {
+  return (
+    <Text x={x} y={y} textAnchor={anchor} style={{ fontSize: 8 }} fill={drawing.axisText}>
+      {text}
+    </Text>
+  );
+}
+
 function Chart({ test }: { test: ReportPositioningTest }) {
   const l = positioningChartLayout(test.chart);
   return (
@@ -76,28 +95,10 @@ function Chart({ test }: { test: ReportPositioningTest }) {
           <Line key={`g${t.label}`} {...t.grid} stroke={drawing.grid} strokeWidth={0.5} />
         ))}
         {l.yTicks.map((t) => (
-          <Text
-            key={`y${t.label}`}
-            x={l.plot.x0 - 4}
-            y={t.y + 3}
-            textAnchor="end"
-            style={{ fontSize: 8 }}
-            fill={drawing.axisText}
-          >
-            {t.value}
-          </Text>
+          <ScaleLabel key={`y${t.label}`} x={l.plot.x0 - 4} y={t.y + 3} anchor="end" text={t.value} />
         ))}
         {l.xTicks.map((t) => (
-          <Text
-            key={`x${t.label}`}
-            x={t.x}
-            y={l.plot.y1 + 12}
-            textAnchor="middle"
-            style={{ fontSize: 8 }}
-            fill={drawing.axisText}
-          >
-            {t.label}
-          </Text>
+          <ScaleLabel key={`x${t.label}`} x={t.x} y={l.plot.y1 + 12} anchor="middle" text={t.label} />
         ))}
         <Line {...l.zeroLine} stroke={drawing.zeroLine} strokeWidth={0.7} strokeDasharray="3 2" />
         <Rect {...l.frame} fill="none" stroke={palette.graphite[200]} strokeWidth={0.6} />
