@@ -16,16 +16,17 @@ import type { FitSectionProps } from "./fit-section";
 export function ApprovalCard({ job, fits: { shown, approved }, config, user, limits }: FitSectionProps) {
   const a = shown.analysis;
   const fit = a.result.fit;
-  const isApproved = approved?.detail.analysis.id === a.id;
+  // The approval of this fit, if it is the approved one.
+  const approval = approved?.detail.analysis.id === a.id ? approved : null;
   const refusal = approvalNote(user, job, approved?.detail.analysis.id);
   const mayApprove = fitApproverRefusal(user) === null;
   return (
-    <Card title={isApproved ? "Approved parameters: values for the control" : "Approval"}>
-      {isApproved ? (
+    <Card title={approval ? "Approved parameters: values for the control" : "Approval"}>
+      {approval ? (
         <div className="space-y-4">
           <p className="text-sm text-graphite-700">
-            Approved {formatDateTimeUtc(approved!.approvedAt)}
-            {approved!.approvedBy ? ` by ${approved!.approvedBy}` : ""}. Enter these in the control&apos;s
+            Approved {formatDateTimeUtc(approval.approvedAt)}
+            {approval.approvedBy ? ` by ${approval.approvedBy}` : ""}. Enter these in the control&apos;s
             kinematic (tool centre point) settings for this head:
           </p>
           <ControlValuesTable values={controlValues(fit, config)} />
