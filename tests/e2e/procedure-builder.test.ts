@@ -82,6 +82,14 @@ describe("procedure builder (administrator)", () => {
     await expect
       .poll(() => p.evaluate(() => document.activeElement?.getAttribute("aria-label")))
       .toBe("Move step 2 up");
+    // Moved to the top, its Up button is disabled, so focus goes to the step's title; then back down.
+    await p.keyboard.press("Enter");
+    await expect.poll(() => p.evaluate(() => document.activeElement?.id)).toBe("step-0-title");
+    expect(await builderStep(p, 1).getByLabel("Title").inputValue()).toBe("Shims under the collar");
+    await builderStep(p, 1).getByRole("button", { name: "Move step 1 down" }).click();
+    await expect
+      .poll(() => builderStep(p, 2).getByLabel("Title").inputValue())
+      .toBe("Shims under the collar");
     expect(await seriousViolations(p)).toEqual([]);
     await p.screenshot({ path: screenshotPath("procedure-builder"), fullPage: true });
 
