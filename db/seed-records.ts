@@ -7,7 +7,7 @@
  */
 import { eq } from "drizzle-orm";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
+import { insertJobRecord } from "@/db/queries/audit";
 import { hasRows } from "@/db/seed-helpers";
 import {
   environmentRecords,
@@ -107,29 +107,32 @@ export async function seedRecords(): Promise<void> {
   for (const d of DATA_INSTRUMENTS) {
     const inst = list.find((x) => x.serial === d.serial)!;
     await db.transaction(async (tx) => {
-      const [row] = await tx
-        .insert(jobInstruments)
-        .values({
+      await insertJobRecord(
+        tx,
+        installer ?? null,
+        jobInstruments,
+        {
           jobId: job.id,
           instrumentId: inst.id,
           use: d.use,
           recordedById: installer?.id ?? null,
           recordedAt: new Date("2026-10-12T07:20:00Z"),
-        })
-        .returning();
-      await appendAudit(tx, installer ?? null, {
-        action: "job_instrument.recorded",
-        entity: { type: "job_instrument", id: row!.id },
-        jobId: job.id,
-        newValues: { instrument: d.serial, use: d.use, note: "demo data (invented)" },
-      });
+        },
+        {
+          action: "job_instrument.recorded",
+          entityType: "job_instrument",
+          newValues: () => ({ instrument: d.serial, use: d.use, note: "demo data (invented)" }),
+        },
+      );
     });
   }
   for (const e of ENVIRONMENT_0041)
     await db.transaction(async (tx) => {
-      const [row] = await tx
-        .insert(environmentRecords)
-        .values({
+      await insertJobRecord(
+        tx,
+        installer ?? null,
+        environmentRecords,
+        {
           jobId: job.id,
           phase: e.phase,
           airTempC: e.air,
@@ -137,13 +140,17 @@ export async function seedRecords(): Promise<void> {
           note: e.note,
           takenAt: new Date(e.at),
           recordedById: installer?.id ?? null,
-        })
-        .returning();
-      await appendAudit(tx, installer ?? null, {
-        action: "environment.recorded",
-        entity: { type: "environment_record", id: row!.id },
-        jobId: job.id,
-        newValues: { phase: e.phase, airTempC: e.air, machineTempC: e.machine, note: "demo data (invented)" },
-      });
+        },
+        {
+          action: "environment.recorded",
+          entityType: "environment_record",
+          newValues: () => ({
+            phase: e.phase,
+            airTempC: e.air,
+            machineTempC: e.machine,
+            note: "demo data (invented)",
+          }),
+        },
+      );
     });
 }

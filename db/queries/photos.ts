@@ -2,7 +2,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { and, asc, eq } from "drizzle-orm";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
+import { insertJobRecord } from "@/db/queries/audit";
 import { getJobDetail, jobAccessCondition, visibleJob } from "@/db/queries/jobs";
 import { lockJob, refuseLockedReadings } from "@/db/queries/locks";
 import { stepOfJob } from "@/db/queries/readings";
@@ -141,9 +141,11 @@ export async function addPhoto(
   try {
     const row = await db.transaction(async (tx) => {
       refuseLockedReadings(actor, await lockJob(tx, d.job.id));
-      const [p] = await tx
-        .insert(photos)
-        .values({
+      return insertJobRecord(
+        tx,
+        actor,
+        photos,
+        {
           jobId: d.job.id,
           stepId: step.id,
           readingId,
@@ -158,23 +160,21 @@ export async function addPhoto(
           takenAt: form.takenAt,
           uploadedById: actor.id,
           clientId: form.clientId,
-        })
-        .returning();
-      await appendAudit(tx, actor, {
-        action: "photo.added",
-        entity: { type: "photo", id: p!.id },
-        jobId: d.job.id,
-        newValues: {
-          step: step.position,
-          phase: form.phase,
-          readingId,
-          sha256: processed.sha256,
-          width: processed.width,
-          height: processed.height,
-          clientId: form.clientId,
         },
-      });
-      return p!;
+        {
+          action: "photo.added",
+          entityType: "photo",
+          newValues: () => ({
+            step: step.position,
+            phase: form.phase,
+            readingId,
+            sha256: processed.sha256,
+            width: processed.width,
+            height: processed.height,
+            clientId: form.clientId,
+          }),
+        },
+      );
     });
     return { photo: photoJson({ ...row, uploadedByName: actor.name }), replay: false };
   } catch (err) {

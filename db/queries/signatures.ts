@@ -2,7 +2,7 @@ import "server-only";
 import { checkPasswordReentry } from "@/db/queries/sign-in";
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
+import { insertJobRecord } from "@/db/queries/audit";
 import { getJobDetail, visibleJob } from "@/db/queries/jobs";
 import { datasets, photos, readings, signatures } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
@@ -138,9 +138,11 @@ export async function signJobWork(
   const manifest = manifestFor(actor, input.meaning, d.job, { stateSha256 }, signedAt);
   const signature = signManifest(manifest, getSigningKey());
   return db.transaction(async (tx) => {
-    const [row] = await tx
-      .insert(signatures)
-      .values({
+    return insertJobRecord(
+      tx,
+      actor,
+      signatures,
+      {
         jobId: d.job.id,
         meaning: input.meaning,
         signerId: actor.id,
@@ -151,15 +153,13 @@ export async function signJobWork(
         manifest,
         signature,
         keyId: manifest.keyId,
-      })
-      .returning();
-    await appendAudit(tx, actor, {
-      action: `signature.${input.meaning}`,
-      entity: { type: "signature", id: row!.id },
-      jobId: d.job.id,
-      newValues: { meaning: input.meaning, signedAtUtc: manifest.signedAtUtc },
-    });
-    return row!;
+      },
+      {
+        action: `signature.${input.meaning}`,
+        entityType: "signature",
+        newValues: () => ({ meaning: input.meaning, signedAtUtc: manifest.signedAtUtc }),
+      },
+    );
   });
 }
 
