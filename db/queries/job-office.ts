@@ -124,7 +124,7 @@ export async function openJob(actor: Actor, input: JobOpenInput) {
         message: "Not a current procedure for this kind of job and head model.",
       },
     ]);
-  const schedule = scheduleOf(input);
+  // createJobFromTemplate stores an absent record field as empty.
   return createJobFromTemplate(actor, {
     templateId: input.templateId,
     machineId: input.machineId,
@@ -133,12 +133,11 @@ export async function openJob(actor: Actor, input: JobOpenInput) {
     title: input.title,
     decisionRule: input.decisionRule,
     assignedInstallerId: input.assignedInstallerId ?? undefined,
-    orderReference: input.orderReference ?? null,
-    customerContactName: input.customerContactName ?? null,
-    customerContactEmail: input.customerContactEmail ?? null,
-    scheduledFor: schedule?.scheduledFor ?? null,
-    timeZone: schedule?.timeZone ?? null,
-    notes: input.notes ?? null,
+    orderReference: input.orderReference,
+    customerContactName: input.customerContactName,
+    customerContactEmail: input.customerContactEmail,
+    notes: input.notes,
+    ...scheduleOf(input),
   });
 }
 
