@@ -5,9 +5,10 @@ import { appendAudit, jobEvent, type AuditEvent } from "@/db/queries/audit";
 import { lockJob } from "@/db/queries/locks";
 import { activeInstaller, queueAssignmentMails } from "@/db/queries/job-mail";
 import { visibleJob } from "@/db/queries/jobs";
-import { listActiveInstallers } from "@/db/queries/users-admin";
+import { rowsInUse } from "@/db/queries/registers";
+import { listActiveInstallers, listCustomersForSelect } from "@/db/queries/users-admin";
 import { createJobFromTemplate } from "@/db/queries/job-status";
-import { customers, heads, jobs, machines, procedureTemplates, sites } from "@/db/schema";
+import { heads, jobs, machines, procedureTemplates, sites } from "@/db/schema";
 import type { JobStatus } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
 import { forbidden, invalid } from "@/lib/errors";
@@ -32,32 +33,24 @@ export async function newJobChoices(actor: Actor) {
   const refusal = jobCreateRefusal(actor);
   if (refusal) throw forbidden(refusal);
   const [customerRows, siteRows, machineRows, headRows, templateRows, installerRows] = await Promise.all([
-    db
-      .select({ id: customers.id, name: customers.name })
-      .from(customers)
-      .where(isNull(customers.retiredAt))
-      .orderBy(asc(customers.name)),
-    db
-      .select({ id: sites.id, name: sites.name, customerId: sites.customerId })
-      .from(sites)
-      .where(isNull(sites.retiredAt))
-      .orderBy(asc(sites.name)),
-    db
-      .select({ id: machines.id, name: machines.name, siteId: machines.siteId, model: machines.model })
-      .from(machines)
-      .where(isNull(machines.retiredAt))
-      .orderBy(asc(machines.name)),
-    db
-      .select({
+    listCustomersForSelect(),
+    rowsInUse(sites, { id: sites.id, name: sites.name, customerId: sites.customerId }, sites.name),
+    rowsInUse(
+      machines,
+      { id: machines.id, name: machines.name, siteId: machines.siteId, model: machines.model },
+      machines.name,
+    ),
+    rowsInUse(
+      heads,
+      {
         id: heads.id,
         serial: heads.serial,
         maker: heads.maker,
         model: heads.model,
         machineId: heads.machineId,
-      })
-      .from(heads)
-      .where(isNull(heads.retiredAt))
-      .orderBy(asc(heads.serial)),
+      },
+      heads.serial,
+    ),
     db
       .select({
         id: procedureTemplates.id,
