@@ -3,6 +3,7 @@ import { and, eq, isNull, ne, sql } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
+import { selectMachinesWithPlace } from "@/db/queries/registers";
 import { customers, heads, instruments, machines, sites } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
 import { isUuid } from "@/lib/domain/uuid";
@@ -227,19 +228,12 @@ export async function activeRegisterRow(
 
 /** The host machine a form chose for new work (see refuseUnusable), with its site and customer. */
 export async function activeHostMachine(machineId: string) {
-  const [m] = await db
-    .select({
-      id: machines.id,
-      customerId: sites.customerId,
-      retiredAt: machines.retiredAt,
-      machineName: machines.name,
-      siteName: sites.name,
-      customerName: customers.name,
-    })
-    .from(machines)
-    .innerJoin(sites, eq(sites.id, machines.siteId))
-    .innerJoin(customers, eq(customers.id, sites.customerId))
-    .where(eq(machines.id, machineId));
+  const [m] = await selectMachinesWithPlace({
+    id: machines.id,
+    customerId: sites.customerId,
+    retiredAt: machines.retiredAt,
+    machineName: machines.name,
+  }).where(eq(machines.id, machineId));
   return refuseUnusable(m, "machineId", "host machine", "machine");
 }
 

@@ -26,6 +26,19 @@ export async function rowsInUse<S extends SelectedFields>(
   return rows as SelectResultFields<S>[];
 }
 
+/**
+ * Machines with the names of the site they stand at and its customer, plus the given columns; the
+ * caller filters and sorts.
+ */
+export function selectMachinesWithPlace<S extends SelectedFields>(columns: S) {
+  return db
+    .select({ ...columns, siteName: sites.name, customerName: customers.name })
+    .from(machines)
+    .innerJoin(sites, eq(sites.id, machines.siteId))
+    .innerJoin(customers, eq(customers.id, sites.customerId))
+    .$dynamic();
+}
+
 function check(actor: Actor, register: Register) {
   if (registerReadRefusal(actor, register)) throw forbidden("Registers are kept by the administrator.");
 }
@@ -50,22 +63,15 @@ export async function listCustomersWithSites(actor: Actor) {
 
 export async function listMachines(actor: Actor) {
   check(actor, "machines");
-  return db
-    .select({
-      id: machines.id,
-      name: machines.name,
-      kind: machines.kind,
-      builder: machines.builder,
-      model: machines.model,
-      serial: machines.serial,
-      retiredAt: machines.retiredAt,
-      siteName: sites.name,
-      customerName: customers.name,
-    })
-    .from(machines)
-    .innerJoin(sites, eq(sites.id, machines.siteId))
-    .innerJoin(customers, eq(customers.id, sites.customerId))
-    .orderBy(asc(customers.name), asc(machines.name));
+  return selectMachinesWithPlace({
+    id: machines.id,
+    name: machines.name,
+    kind: machines.kind,
+    builder: machines.builder,
+    model: machines.model,
+    serial: machines.serial,
+    retiredAt: machines.retiredAt,
+  }).orderBy(asc(customers.name), asc(machines.name));
 }
 
 export async function listHeads(actor: Actor) {
