@@ -153,6 +153,31 @@ export async function proceduresFor(jobKind: JobKind, headModel: string | null) 
 }
 
 /**
+ * The steps (in order), head-parameter limits and rotary-axis positioning limits of procedure
+ * versions, read together; returns a function giving one version's three lists by its id.
+ */
+export async function templateContents(ids: string[]) {
+  const [steps, limits, positioning] = await Promise.all([
+    db
+      .select()
+      .from(templateSteps)
+      .where(inArray(templateSteps.templateId, ids))
+      .orderBy(asc(templateSteps.position)),
+    db.select().from(templateParameterLimits).where(inArray(templateParameterLimits.templateId, ids)),
+    db
+      .select()
+      .from(templatePositioningLimits)
+      .where(inArray(templatePositioningLimits.templateId, ids))
+      .orderBy(asc(templatePositioningLimits.axis), asc(templatePositioningLimits.quantity)),
+  ]);
+  return (id: string) => ({
+    steps: steps.filter((s) => s.templateId === id),
+    parameterLimits: limits.filter((l) => l.templateId === id),
+    positioningLimits: positioning.filter((l) => l.templateId === id),
+  });
+}
+
+/**
  * Every procedure version with its steps, for the staff (the API's list and the builder's list),
  * optionally only those that apply to a job kind and a head model.
  */
@@ -169,18 +194,8 @@ export async function listProcedures(
   const chosen = ts.filter((t) => matchesFilter(t, filter.jobKind ?? null, filter.headModel ?? null));
   const ids = chosen.map((t) => t.id);
   if (ids.length === 0) return [];
-  const [steps, limits, positioning, used] = await Promise.all([
-    db
-      .select()
-      .from(templateSteps)
-      .where(inArray(templateSteps.templateId, ids))
-      .orderBy(asc(templateSteps.position)),
-    db.select().from(templateParameterLimits).where(inArray(templateParameterLimits.templateId, ids)),
-    db
-      .select()
-      .from(templatePositioningLimits)
-      .where(inArray(templatePositioningLimits.templateId, ids))
-      .orderBy(asc(templatePositioningLimits.axis), asc(templatePositioningLimits.quantity)),
+  const [contentsOf, used] = await Promise.all([
+    templateContents(ids),
     db
       .select({ templateId: jobs.templateId, n: count() })
       .from(jobs)
@@ -190,9 +205,7 @@ export async function listProcedures(
   return chosen.map((t) => ({
     ...t,
     jobsUsing: used.find((u) => u.templateId === t.id)?.n ?? 0,
-    steps: steps.filter((s) => s.templateId === t.id),
-    parameterLimits: limits.filter((l) => l.templateId === t.id),
-    positioningLimits: positioning.filter((l) => l.templateId === t.id),
+    ...contentsOf(t.id),
   }));
 }
 
