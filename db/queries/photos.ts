@@ -186,16 +186,21 @@ export async function addPhoto(
   }
 }
 
+/** A job's photos with the name of who uploaded each, in the order they were taken. */
+function photosOfJob(jobId: string) {
+  return db
+    .select({ p: photos, name: users.name })
+    .from(photos)
+    .leftJoin(users, eq(users.id, photos.uploadedById))
+    .where(eq(photos.jobId, jobId))
+    .orderBy(asc(photos.takenAt), asc(photos.createdAt));
+}
+
 /** The job's photos for the checklist (staff who see the job; customers once it is issued). */
 export async function listPhotos(actor: Actor, jobId: string): Promise<PhotoJson[]> {
   const d = await getJobDetail(actor, jobId);
   if (!d || photoViewRefusal(actor, d.job)) return [];
-  const rows = await db
-    .select({ p: photos, name: users.name })
-    .from(photos)
-    .leftJoin(users, eq(users.id, photos.uploadedById))
-    .where(eq(photos.jobId, d.job.id))
-    .orderBy(asc(photos.takenAt), asc(photos.createdAt));
+  const rows = await photosOfJob(d.job.id);
   return rows.map((r) => photoJson({ ...r.p, uploadedByName: r.name }));
 }
 
@@ -221,18 +226,6 @@ export async function getPhotoBytes(actor: Actor, photoId: string, which: "image
 
 /** The job's photos for its report (the caller has checked the job's access). */
 export async function jobPhotosForReport(jobId: string) {
-  return db
-    .select({
-      stepId: photos.stepId,
-      phase: photos.phase,
-      takenAt: photos.takenAt,
-      uploadedBy: users.name,
-      width: photos.width,
-      height: photos.height,
-      sha256: photos.sha256,
-    })
-    .from(photos)
-    .leftJoin(users, eq(users.id, photos.uploadedById))
-    .where(eq(photos.jobId, jobId))
-    .orderBy(asc(photos.takenAt));
+  const rows = await photosOfJob(jobId);
+  return rows.map((r) => ({ ...r.p, uploadedBy: r.name }));
 }
