@@ -1,9 +1,22 @@
 import "server-only";
 import { and, asc, desc, eq, ilike, or, sql, type SQL } from "drizzle-orm";
-import { alias } from "drizzle-orm/pg-core";
+import { alias, type SelectedFields } from "drizzle-orm/pg-core";
+import type { SelectResultFields } from "drizzle-orm/query-builders/select.types";
 import { cache } from "react";
 import { db } from "@/db";
-import { customers, heads, jobs, machines, sites, users } from "@/db/schema";
+import {
+  customers,
+  datasets,
+  heads,
+  jobs,
+  machines,
+  photos,
+  readings,
+  reports,
+  signatures,
+  sites,
+  users,
+} from "@/db/schema";
 import { JOB_SORT_KEYS, type JobListRow, type JobSortKey, type JobStatus } from "@/lib/domain/jobs";
 import { type Actor } from "@/lib/domain/roles";
 import { jobScope } from "@/lib/policy/jobs";
@@ -181,4 +194,26 @@ export function jobDetailJson(d: JobDetail) {
     },
     installer: d.installer,
   };
+}
+
+/** Tables of records that belong to one job: each row carries its job's id. */
+type JobRowsTable = typeof readings | typeof datasets | typeof photos | typeof signatures | typeof reports;
+
+/**
+ * The given columns of a job's rows in `table`, sorted by `order` (no access check: callers have
+ * checked the job).
+ */
+export async function rowsOfJob<S extends SelectedFields>(
+  table: JobRowsTable,
+  columns: S,
+  jobId: string,
+  ...order: SQL[]
+): Promise<SelectResultFields<S>[]> {
+  const t = table as typeof readings;
+  const rows = await db
+    .select(columns)
+    .from(t)
+    .where(eq(t.jobId, jobId))
+    .orderBy(...order);
+  return rows as SelectResultFields<S>[];
 }

@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { getJobDetail, type JobDetail, visibleJob } from "@/db/queries/jobs";
+import { getJobDetail, rowsOfJob, type JobDetail, visibleJob } from "@/db/queries/jobs";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
 import { getComparison } from "@/db/queries/readings";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
@@ -518,9 +518,5 @@ export async function getReportPdf(
 export async function listJobReports(actor: Actor, jobId: string) {
   const d = await getJobDetail(actor, jobId);
   if (!d) return null;
-  return db
-    .select(revisionColumns)
-    .from(reports)
-    .where(eq(reports.jobId, jobId))
-    .orderBy(desc(reports.revision));
+  return rowsOfJob(reports, revisionColumns, jobId, desc(reports.revision));
 }
