@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, ilike, or, sql, type SQL } from "drizzle-orm";
+import { and, asc, desc, eq, ilike, or, sql, type AnyColumn, type SQL } from "drizzle-orm";
 import { alias, type SelectedFields } from "drizzle-orm/pg-core";
 import type { SelectResultFields } from "drizzle-orm/query-builders/select.types";
 import { cache } from "react";
@@ -15,6 +15,8 @@ import {
   reports,
   signatures,
   sites,
+  templateParameterLimits,
+  templateSteps,
   users,
 } from "@/db/schema";
 import { JOB_SORT_KEYS, type JobListRow, type JobSortKey, type JobStatus } from "@/lib/domain/jobs";
@@ -216,4 +218,18 @@ export async function rowsOfJob<S extends SelectedFields>(
     .where(eq(t.jobId, jobId))
     .orderBy(...order);
   return rows as SelectResultFields<S>[];
+}
+
+/**
+ * The rows of a procedure version in `table`, sorted by `order`; none for a job without a version
+ * (no access check: callers have checked the job or the register).
+ */
+export async function rowsOfTemplate<T extends typeof templateSteps | typeof templateParameterLimits>(
+  table: T,
+  templateId: string | null,
+  order: AnyColumn,
+): Promise<T["$inferSelect"][]> {
+  if (!templateId) return [];
+  const t = table as typeof templateSteps;
+  return db.select().from(t).where(eq(t.templateId, templateId)).orderBy(asc(order));
 }
