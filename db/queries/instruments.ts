@@ -1,5 +1,5 @@
 import "server-only";
-import { asc, desc, eq } from "drizzle-orm";
+import { asc, desc, eq, max } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
@@ -126,11 +126,9 @@ export async function recordCalibration(
     const [before] = await tx.select().from(instruments).where(eq(instruments.id, id)).for("update");
     if (!before) return null;
     const [last] = await tx
-      .select({ calibratedOn: instrumentCalibrations.calibratedOn })
+      .select({ calibratedOn: max(instrumentCalibrations.calibratedOn) })
       .from(instrumentCalibrations)
-      .where(eq(instrumentCalibrations.instrumentId, id))
-      .orderBy(desc(instrumentCalibrations.calibratedOn))
-      .limit(1);
+      .where(eq(instrumentCalibrations.instrumentId, id));
     const previous = last?.calibratedOn ?? before.calibratedOn;
     if (previous && input.calibratedOn < previous)
       throw invalid(`The instrument was last calibrated on ${previous}; a recalibration follows it.`, [
