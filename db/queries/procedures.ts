@@ -2,6 +2,7 @@ import "server-only";
 import { and, asc, count, desc, eq, inArray, isNotNull, isNull, max, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
+import { updateAudited } from "@/db/queries/registers-admin";
 import {
   heads,
   jobs,
@@ -325,14 +326,10 @@ export async function saveProcedureVersion(actor: Actor, id: string, body: unkno
       await tx.delete(templateSteps).where(eq(templateSteps.templateId, id));
       await insertSteps(tx, id, rows);
       await writeAllLimits(tx, id, rows, id);
-      const [t] = await tx
-        .update(procedureTemplates)
-        .set(meta)
-        .where(eq(procedureTemplates.id, id))
-        .returning();
-      await appendAudit(tx, actor, {
+      const newLimits = await limitsOf(tx, id);
+      const t = await updateAudited(tx, actor, procedureTemplates, id, meta, {
         action: "procedure.draft_saved",
-        entity: { type: "procedure_template", id: id },
+        entityType: "procedure_template",
         oldValues: {
           version: base!.version,
           jobKinds: base!.jobKinds,
@@ -341,9 +338,9 @@ export async function saveProcedureVersion(actor: Actor, id: string, body: unkno
           steps: oldSteps.map(({ id: _i, templateId: _t, ...s }) => s),
           ...oldLimits,
         },
-        newValues: { version: t!.version, ...meta, steps: rows.steps, ...(await limitsOf(tx, id)) },
+        newValues: (row) => ({ version: row.version, ...meta, steps: rows.steps, ...newLimits }),
       });
-      return { ...t!, steps: rows.steps, replaced: true };
+      return { ...t, steps: rows.steps, replaced: true };
     }
     const [{ v } = { v: 0 }] = await tx
       .select({ v: max(procedureTemplates.version) })
