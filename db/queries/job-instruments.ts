@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq } from "drizzle-orm";
+import { asc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { listUsableInstruments } from "@/db/queries/readings";
 import { visibleJob } from "@/db/queries/jobs";
@@ -40,17 +40,8 @@ export async function recordJobInstrument(
       `${inst.serial} has no calibrated diameter in the register; the administrator enters it from the certificate.`,
       [{ field: "instrumentId", message: "No calibrated diameter." }],
     );
-  const [dupe] = await db
-    .select({ id: jobInstruments.id })
-    .from(jobInstruments)
-    .where(
-      and(
-        eq(jobInstruments.jobId, d.job.id),
-        eq(jobInstruments.instrumentId, inst.id),
-        eq(jobInstruments.use, input.use),
-      ),
-    );
-  if (dupe)
+  const recorded = await listJobInstruments(d.job.id);
+  if (recorded.some((r) => r.instrumentId === inst.id && r.use === input.use))
     throw invalid(
       `${inst.serial} is already recorded as ${DATA_INSTRUMENT_USE_LABELS[input.use].toLowerCase()}.`,
     );

@@ -118,17 +118,9 @@ export async function signJobWork(
   await requirePasswordReentry(actor, input.password);
   // One current signature per signer and meaning; a stale one (the record changed after it) is signed again.
   const stateSha256 = await jobStateSha256(d.job.id);
-  const existing = await db
-    .select({ manifest: signatures.manifest })
-    .from(signatures)
-    .where(
-      and(
-        eq(signatures.jobId, d.job.id),
-        eq(signatures.meaning, input.meaning),
-        eq(signatures.signerId, actor.id),
-        isNull(signatures.reportId),
-      ),
-    );
+  const existing = (await preIssueSignatures(d.job.id)).filter(
+    (s) => s.meaning === input.meaning && s.signerId === actor.id,
+  );
   if (existing.some((s) => (s.manifest as SignatureManifest).stateSha256 === stateSha256))
     throw invalid(`You have already signed this job as ${SIGNATURE_LABELS[input.meaning].toLowerCase()}.`);
   const signedAt = new Date();
