@@ -7,7 +7,7 @@
  */
 import { eq } from "drizzle-orm";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
+import { insertJobRecord, type JobRecordEvent } from "@/db/queries/audit";
 import { hasRows } from "@/db/seed-helpers";
 import {
   environmentRecords,
@@ -104,46 +104,46 @@ export async function seedRecords(): Promise<void> {
     .select({ id: users.id, email: users.email })
     .from(users)
     .where(eq(users.email, "installer@halvard.example"));
+  // Recorded by the demo installer on the job, each with its audit event as the app records it.
+  const recordAsInstaller = <T extends typeof jobInstruments | typeof environmentRecords>(
+    table: T,
+    values: Omit<T["$inferInsert"], "jobId" | "recordedById">,
+    event: JobRecordEvent<T["$inferSelect"]>,
+  ) =>
+    db.transaction((tx) =>
+      insertJobRecord(
+        tx,
+        installer ?? null,
+        table,
+        { ...values, jobId: job.id, recordedById: installer?.id ?? null } as T["$inferInsert"],
+        event,
+      ),
+    );
   for (const d of DATA_INSTRUMENTS) {
     const inst = list.find((x) => x.serial === d.serial)!;
-    await db.transaction(async (tx) => {
-      const [row] = await tx
-        .insert(jobInstruments)
-        .values({
-          jobId: job.id,
-          instrumentId: inst.id,
-          use: d.use,
-          recordedById: installer?.id ?? null,
-          recordedAt: new Date("2026-10-12T07:20:00Z"),
-        })
-        .returning();
-      await appendAudit(tx, installer ?? null, {
+    await recordAsInstaller(
+      jobInstruments,
+      { instrumentId: inst.id, use: d.use, recordedAt: new Date("2026-10-12T07:20:00Z") },
+      {
         action: "job_instrument.recorded",
-        entity: { type: "job_instrument", id: row!.id },
-        jobId: job.id,
-        newValues: { instrument: d.serial, use: d.use, note: "demo data (invented)" },
-      });
-    });
+        entityType: "job_instrument",
+        newValues: () => ({ instrument: d.serial, use: d.use, note: "demo data (invented)" }),
+      },
+    );
   }
   for (const e of ENVIRONMENT_0041)
-    await db.transaction(async (tx) => {
-      const [row] = await tx
-        .insert(environmentRecords)
-        .values({
-          jobId: job.id,
+    await recordAsInstaller(
+      environmentRecords,
+      { phase: e.phase, airTempC: e.air, machineTempC: e.machine, note: e.note, takenAt: new Date(e.at) },
+      {
+        action: "environment.recorded",
+        entityType: "environment_record",
+        newValues: () => ({
           phase: e.phase,
           airTempC: e.air,
           machineTempC: e.machine,
-          note: e.note,
-          takenAt: new Date(e.at),
-          recordedById: installer?.id ?? null,
-        })
-        .returning();
-      await appendAudit(tx, installer ?? null, {
-        action: "environment.recorded",
-        entity: { type: "environment_record", id: row!.id },
-        jobId: job.id,
-        newValues: { phase: e.phase, airTempC: e.air, machineTempC: e.machine, note: "demo data (invented)" },
-      });
-    });
+          note: "demo data (invented)",
+        }),
+      },
+    );
 }

@@ -1,6 +1,7 @@
 import "server-only";
 import { createHash } from "node:crypto";
 import { and, desc, eq, getTableColumns, sql } from "drizzle-orm";
+import type { SelectedFields } from "drizzle-orm/pg-core";
 import { db } from "@/db";
 import { appendAudit, jobEvent } from "@/db/queries/audit";
 import { getDataset, getDatasetColumns } from "@/db/queries/datasets";
@@ -291,25 +292,33 @@ async function findAnalysis(datasetId: string, inputSha256: string): Promise<Ana
   return (row as AnalysisRow | undefined) ?? null;
 }
 
-/** One analysis the actor may see (through its job's tenant rule); null otherwise, also for a malformed id. */
-export async function getAnalysis(actor: Actor, id: string) {
-  if (!isUuid(id)) return null;
-  const [row] = await db
-    .select({
-      analysis: analyses,
-      job: { id: jobs.id, reference: jobs.reference, status: jobs.status },
-      dataset: {
-        id: datasets.id,
-        sha256: datasets.sha256,
-        originalFilename: datasets.originalFilename,
-        rows: datasets.rows,
-      },
-      createdByName: users.name,
-    })
+/**
+ * Analyses joined to their job (for jobAccessCondition), their dataset and their author, with the
+ * author's name beside the given columns; the caller filters and sorts.
+ */
+function selectAnalyses<S extends SelectedFields>(columns: S) {
+  return db
+    .select({ ...columns, createdByName: users.name })
     .from(analyses)
     .innerJoin(jobs, eq(jobs.id, analyses.jobId))
     .innerJoin(datasets, eq(datasets.id, analyses.datasetId))
     .leftJoin(users, eq(users.id, analyses.createdById))
+    .$dynamic();
+}
+
+/** One analysis the actor may see (through its job's tenant rule); null otherwise, also for a malformed id. */
+export async function getAnalysis(actor: Actor, id: string) {
+  if (!isUuid(id)) return null;
+  const [row] = await selectAnalyses({
+    analysis: analyses,
+    job: { id: jobs.id, reference: jobs.reference, status: jobs.status },
+    dataset: {
+      id: datasets.id,
+      sha256: datasets.sha256,
+      originalFilename: datasets.originalFilename,
+      rows: datasets.rows,
+    },
+  })
     .where(and(eq(analyses.id, id), jobAccessCondition(actor)))
     .limit(1);
   if (!row) return null;
@@ -341,25 +350,29 @@ export type StoredHeadFitSummary = Omit<StoredHeadFit, "poses">;
 export type AnalysisSummaryRow = Omit<Analysis, "result"> & { result: StoredHeadFitSummary };
 
 /**
- * Analyses of a job, newest first (with the dataset's file name), without the per-pose arrays,
- * which grow with the dataset (about 150 bytes a pose) and are read for the fit shown only
- * (withPoses); null when the job is not visible.
+ * Analyses with their dataset's file name and phase and their author's name, without the per-pose
+ * arrays, which grow with the dataset (about 150 bytes a pose) and are read for the fit shown only
+ * (withPoses). No access check: the caller filters (and checks) and sorts.
  */
+export function selectAnalysisSummaries() {
+  const { result: _result, ...columns } = getTableColumns(analyses);
+  return selectAnalyses({
+    analysis: { ...columns, result: sql<StoredHeadFitSummary>`${analyses.result} - 'poses'` },
+    datasetFilename: datasets.originalFilename,
+    datasetPhase: datasets.phase,
+  });
+}
+
+/** Newest first, ties by id: the order analyses are listed in. */
+export const newestAnalysesFirst = [desc(analyses.createdAt), desc(analyses.id)];
+
+/** Analyses of a job, newest first (see selectAnalysisSummaries); null when the job is not visible. */
 export async function listJobAnalyses(actor: Actor, jobId: string) {
   const d = await getJobDetail(actor, jobId);
   if (!d) return null;
-  const { result: _result, ...columns } = getTableColumns(analyses);
-  const rows = await db
-    .select({
-      analysis: { ...columns, result: sql<StoredHeadFitSummary>`${analyses.result} - 'poses'` },
-      datasetFilename: datasets.originalFilename,
-      createdByName: users.name,
-    })
-    .from(analyses)
-    .innerJoin(datasets, eq(datasets.id, analyses.datasetId))
-    .leftJoin(users, eq(users.id, analyses.createdById))
+  const rows = await selectAnalysisSummaries()
     .where(eq(analyses.jobId, jobId))
-    .orderBy(desc(analyses.createdAt), desc(analyses.id));
+    .orderBy(...newestAnalysesFirst);
   return rows.map((r) => ({ ...r, analysis: r.analysis as AnalysisSummaryRow }));
 }
 export type AnalysisListRow = NonNullable<Awaited<ReturnType<typeof listJobAnalyses>>>[number];

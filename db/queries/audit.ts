@@ -2,7 +2,16 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { asc, desc, eq, sql } from "drizzle-orm";
 import type { NodePgDatabase } from "drizzle-orm/node-postgres";
-import { auditEvents } from "@/db/schema";
+import {
+  analysisBudgetInputs,
+  auditEvents,
+  controlValueRecords,
+  deviations,
+  environmentRecords,
+  jobInstruments,
+  photos,
+  signatures,
+} from "@/db/schema";
 import type * as schema from "@/db/schema";
 import { canonicalJson } from "@/lib/canonical-json";
 
@@ -96,6 +105,51 @@ export async function appendAudit(
   const at = new Date(Math.floor(Date.now()));
   const hash = auditHash(prevHash, { ...input, at });
   await tx.insert(auditEvents).values({ at, ...auditContent(input), prevHash, hash });
+}
+
+/** The audited tables of records added to a job: each row has its own id and its job's id. */
+type JobRecordTable =
+  | typeof analysisBudgetInputs
+  | typeof controlValueRecords
+  | typeof deviations
+  | typeof environmentRecords
+  | typeof jobInstruments
+  | typeof photos
+  | typeof signatures;
+
+/** What the event announcing a new record of a job says, besides the record and its job. */
+export interface JobRecordEvent<Row> {
+  action: string;
+  entityType: string;
+  oldValues?: unknown;
+  newValues: (row: Row) => unknown;
+}
+
+/**
+ * Adds one record to a job and appends the event that announces it, in the caller's transaction
+ * so that both commit together: the new row is the event's entity and its job the event's job.
+ * Returns the row.
+ */
+export async function insertJobRecord<T extends JobRecordTable>(
+  tx: Executor,
+  actor: AuditActor,
+  table: T,
+  values: T["$inferInsert"],
+  event: JobRecordEvent<T["$inferSelect"]>,
+): Promise<T["$inferSelect"]> {
+  const t = table as typeof photos;
+  const [row] = (await tx
+    .insert(t)
+    .values(values as typeof photos.$inferInsert)
+    .returning()) as T["$inferSelect"][];
+  await appendAudit(tx, actor, {
+    action: event.action,
+    entity: { type: event.entityType, id: row!.id },
+    jobId: row!.jobId,
+    oldValues: event.oldValues,
+    newValues: event.newValues(row!),
+  });
+  return row!;
 }
 
 /** Checks the whole chain; returns the id of the first event whose link is broken, or null. */

@@ -14,7 +14,7 @@ import {
   visitPlanOf,
   type AnalysisRow,
 } from "@/db/queries/analyses";
-import { appendAudit } from "@/db/queries/audit";
+import { insertJobRecord } from "@/db/queries/audit";
 import { lockJob } from "@/db/queries/locks";
 import { analysisBudgetInputs, heads, instruments, jobs } from "@/db/schema";
 import type { HeadConfig } from "@/geometry";
@@ -99,9 +99,11 @@ export async function recordBudgetInputs(actor: Actor, input: BudgetInputsInput)
     const locked = await lockJob(tx, a.job.id);
     const refusal = budgetInputsRefusal(actor, { status: locked!.status });
     if (refusal) throw new AppError(409, "fixed", refusal);
-    const [row] = await tx
-      .insert(analysisBudgetInputs)
-      .values({
+    return insertJobRecord(
+      tx,
+      actor,
+      analysisBudgetInputs,
+      {
         jobId: a.job.id,
         analysisId: a.analysis.id,
         probeInstrumentId: probe?.id ?? null,
@@ -109,19 +111,17 @@ export async function recordBudgetInputs(actor: Actor, input: BudgetInputsInput)
         presetterInstrumentId: presetter?.id ?? null,
         inputs,
         createdById: actor.id,
-      })
-      .returning();
-    await appendAudit(tx, actor, {
-      action: "analysis.budget_inputs_recorded",
-      entity: { type: "analysis_budget_inputs", id: row!.id },
-      jobId: a.job.id,
-      newValues: {
-        analysisId: a.analysis.id,
-        instruments: { probe: probe?.label, sphere: sphere?.label, presetter: presetter?.label },
-        inputs,
       },
-    });
-    return row!;
+      {
+        action: "analysis.budget_inputs_recorded",
+        entityType: "analysis_budget_inputs",
+        newValues: () => ({
+          analysisId: a.analysis.id,
+          instruments: { probe: probe?.label, sphere: sphere?.label, presetter: presetter?.label },
+          inputs,
+        }),
+      },
+    );
   });
 }
 

@@ -8,7 +8,7 @@ import "server-only";
 import { and, desc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
-import { appendAudit } from "@/db/queries/audit";
+import { insertJobRecord } from "@/db/queries/audit";
 import { lockJob } from "@/db/queries/locks";
 import { getJobDetail, visibleJob } from "@/db/queries/jobs";
 import { controlValueRecords, datasets, procedureTemplates, users } from "@/db/schema";
@@ -146,9 +146,11 @@ export async function recordControlValues(actor: Actor, jobId: string, input: Co
       .orderBy(desc(controlValueRecords.createdAt), desc(controlValueRecords.id))
       .limit(1);
     const analysisId = input.stage === "as_left" ? approved!.detail.analysis.id : null;
-    const [row] = await tx
-      .insert(controlValueRecords)
-      .values({
+    return insertJobRecord(
+      tx,
+      actor,
+      controlValueRecords,
+      {
         jobId,
         stage: input.stage,
         unitSystem: input.unitSystem,
@@ -156,16 +158,20 @@ export async function recordControlValues(actor: Actor, jobId: string, input: Co
         analysisId,
         note: input.note ?? null,
         recordedById: actor.id,
-      })
-      .returning();
-    await appendAudit(tx, actor, {
-      action: `control_values.${input.stage}_recorded`,
-      entity: { type: "control_values", id: row!.id },
-      jobId,
-      oldValues: previous ? { recordId: previous.id, values: previous.values } : null,
-      newValues: { stage: input.stage, unitSystem: input.unitSystem, values, analysisId, note: row!.note },
-    });
-    return row!;
+      },
+      {
+        action: `control_values.${input.stage}_recorded`,
+        entityType: "control_values",
+        oldValues: previous ? { recordId: previous.id, values: previous.values } : null,
+        newValues: (r) => ({
+          stage: input.stage,
+          unitSystem: input.unitSystem,
+          values,
+          analysisId,
+          note: r.note,
+        }),
+      },
+    );
   });
 }
 

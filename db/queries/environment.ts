@@ -1,7 +1,7 @@
 import "server-only";
 import { and, desc, eq } from "drizzle-orm";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
+import { insertJobRecord } from "@/db/queries/audit";
 import { lockJob, refuseLockedReadings } from "@/db/queries/locks";
 import { getJobDetail, visibleJob } from "@/db/queries/jobs";
 import { environmentRecords, users, type EnvironmentRecord } from "@/db/schema";
@@ -59,9 +59,11 @@ export async function recordEnvironment(actor: Actor, jobId: string, input: Envi
       }
     }
     refuseLockedReadings(actor, locked);
-    const [row] = await tx
-      .insert(environmentRecords)
-      .values({
+    const row = await insertJobRecord(
+      tx,
+      actor,
+      environmentRecords,
+      {
         jobId: d.job.id,
         phase: input.phase,
         airTempC: input.airTempC ?? null,
@@ -70,21 +72,20 @@ export async function recordEnvironment(actor: Actor, jobId: string, input: Envi
         takenAt,
         recordedById: actor.id,
         clientId: input.clientId ?? null,
-      })
-      .returning();
-    await appendAudit(tx, actor, {
-      action: "environment.recorded",
-      entity: { type: "environment_record", id: row!.id },
-      jobId: d.job.id,
-      newValues: {
-        phase: row!.phase,
-        airTempC: row!.airTempC,
-        machineTempC: row!.machineTempC,
-        note: row!.note,
-        takenAt: row!.takenAt.toISOString(),
-        clientId: row!.clientId,
       },
-    });
-    return { record: environmentJson({ ...row!, recordedByName: actor.name }), replay: false };
+      {
+        action: "environment.recorded",
+        entityType: "environment_record",
+        newValues: (r) => ({
+          phase: r.phase,
+          airTempC: r.airTempC,
+          machineTempC: r.machineTempC,
+          note: r.note,
+          takenAt: r.takenAt.toISOString(),
+          clientId: r.clientId,
+        }),
+      },
+    );
+    return { record: environmentJson({ ...row, recordedByName: actor.name }), replay: false };
   });
 }

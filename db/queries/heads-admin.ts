@@ -3,9 +3,9 @@ import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { activeHostMachine } from "@/db/queries/registers-admin";
-import type { StoredHeadFit } from "@/db/queries/analyses";
+import { newestAnalysesFirst, selectAnalysisSummaries } from "@/db/queries/analyses";
 import { jobAccessCondition } from "@/db/queries/jobs";
-import { analyses, auditEvents, customers, datasets, heads, jobs, machines, sites } from "@/db/schema";
+import { analyses, auditEvents, customers, heads, jobs, machines, sites } from "@/db/schema";
 import type { HeadHistoryJob } from "@/lib/domain/heads";
 import { type Actor } from "@/lib/domain/roles";
 import { headHistoryRefusal, headHistoryScope } from "@/lib/policy/heads";
@@ -97,20 +97,9 @@ export async function getHeadFitHistory(actor: Actor, headId: string) {
   const ids = jobRows.map((j) => j.id);
   const [fits, approvals] = ids.length
     ? await Promise.all([
-        db
-          .select({
-            id: analyses.id,
-            jobId: analyses.jobId,
-            createdAt: analyses.createdAt,
-            result: analyses.result,
-            geometryVersion: analyses.geometryVersion,
-            datasetFilename: datasets.originalFilename,
-            phase: datasets.phase,
-          })
-          .from(analyses)
-          .innerJoin(datasets, eq(datasets.id, analyses.datasetId))
+        selectAnalysisSummaries()
           .where(inArray(analyses.jobId, ids))
-          .orderBy(desc(analyses.createdAt), desc(analyses.id)),
+          .orderBy(...newestAnalysesFirst),
         db
           .select({ jobId: auditEvents.jobId, analysisId: auditEvents.entityId })
           .from(auditEvents)
@@ -123,8 +112,8 @@ export async function getHeadFitHistory(actor: Actor, headId: string) {
   const history: HeadHistoryJob[] = jobRows
     .map((j) => {
       const approvedId = approvedOf.get(j.id);
-      const own = fits.filter((f) => f.jobId === j.id);
-      const f = (approvedId ? own.find((x) => x.id === approvedId) : undefined) ?? own[0];
+      const own = fits.filter((f) => f.analysis.jobId === j.id);
+      const f = (approvedId ? own.find((x) => x.analysis.id === approvedId) : undefined) ?? own[0];
       return {
         id: j.id,
         reference: j.reference,
@@ -135,13 +124,13 @@ export async function getHeadFitHistory(actor: Actor, headId: string) {
         open: scope === "all" || visible.some((v) => v.id === j.id),
         fit: f
           ? {
-              analysisId: f.id,
-              approved: f.id === approvedId,
-              createdAt: f.createdAt,
+              analysisId: f.analysis.id,
+              approved: f.analysis.id === approvedId,
+              createdAt: f.analysis.createdAt,
               datasetFilename: f.datasetFilename,
-              phase: f.phase,
-              geometryVersion: f.geometryVersion,
-              fit: (f.result as StoredHeadFit).fit,
+              phase: f.datasetPhase,
+              geometryVersion: f.analysis.geometryVersion,
+              fit: f.analysis.result.fit,
             }
           : null,
       };

@@ -1,8 +1,7 @@
 import "server-only";
-import { asc, desc, eq } from "drizzle-orm";
+import { asc, desc, eq, max } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
 import { instrumentCalibrations, instruments } from "@/db/schema";
 import { type Actor } from "@/lib/domain/roles";
 import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
@@ -18,6 +17,7 @@ import {
   assertRegisterEdit,
   insertRegisterRow,
   uniqueAs,
+  updateAudited,
   updateRegisterRow,
 } from "@/db/queries/registers-admin";
 
@@ -126,11 +126,9 @@ export async function recordCalibration(
     const [before] = await tx.select().from(instruments).where(eq(instruments.id, id)).for("update");
     if (!before) return null;
     const [last] = await tx
-      .select({ calibratedOn: instrumentCalibrations.calibratedOn })
+      .select({ calibratedOn: max(instrumentCalibrations.calibratedOn) })
       .from(instrumentCalibrations)
-      .where(eq(instrumentCalibrations.instrumentId, id))
-      .orderBy(desc(instrumentCalibrations.calibratedOn))
-      .limit(1);
+      .where(eq(instrumentCalibrations.instrumentId, id));
     const previous = last?.calibratedOn ?? before.calibratedOn;
     if (previous && input.calibratedOn < previous)
       throw invalid(`The instrument was last calibrated on ${previous}; a recalibration follows it.`, [
@@ -140,29 +138,31 @@ export async function recordCalibration(
       .insert(instrumentCalibrations)
       .values({ instrumentId: id, ...input, recordedById: actor.id })
       .returning();
-    const [instrument] = await tx
-      .update(instruments)
-      .set({
+    const instrument = await updateAudited(
+      tx,
+      actor,
+      instruments,
+      id,
+      {
         calibratedOn: input.calibratedOn,
         calibrationDueOn: input.dueOn,
         certificateRef: input.certificateRef,
         retired: false,
         retiredAt: null,
-      })
-      .where(eq(instruments.id, id))
-      .returning();
-    await appendAudit(tx, actor, {
-      action: "instrument.calibrated",
-      entity: { type: "instrument", id: id },
-      oldValues: {
-        calibratedOn: before.calibratedOn,
-        calibrationDueOn: before.calibrationDueOn,
-        certificateRef: before.certificateRef,
-        retired: before.retired,
       },
-      newValues: { calibrationId: calibration!.id, ...input, retired: false },
-    });
-    return { calibration: calibration!, instrument: instrument! };
+      {
+        action: "instrument.calibrated",
+        entityType: "instrument",
+        oldValues: {
+          calibratedOn: before.calibratedOn,
+          calibrationDueOn: before.calibrationDueOn,
+          certificateRef: before.certificateRef,
+          retired: before.retired,
+        },
+        newValues: () => ({ calibrationId: calibration!.id, ...input, retired: false }),
+      },
+    );
+    return { calibration: calibration!, instrument };
   });
 }
 

@@ -1,9 +1,9 @@
 import "server-only";
-import { and, asc, eq } from "drizzle-orm";
+import { asc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { listUsableInstruments } from "@/db/queries/readings";
 import { visibleJob } from "@/db/queries/jobs";
-import { appendAudit } from "@/db/queries/audit";
+import { insertJobRecord } from "@/db/queries/audit";
 import { instruments, jobInstruments } from "@/db/schema";
 import { DATA_INSTRUMENT_USE_LABELS, type DataInstrumentUse } from "@/lib/domain/instruments";
 import type { Actor } from "@/lib/domain/roles";
@@ -40,32 +40,23 @@ export async function recordJobInstrument(
       `${inst.serial} has no calibrated diameter in the register; the administrator enters it from the certificate.`,
       [{ field: "instrumentId", message: "No calibrated diameter." }],
     );
-  const [dupe] = await db
-    .select({ id: jobInstruments.id })
-    .from(jobInstruments)
-    .where(
-      and(
-        eq(jobInstruments.jobId, d.job.id),
-        eq(jobInstruments.instrumentId, inst.id),
-        eq(jobInstruments.use, input.use),
-      ),
-    );
-  if (dupe)
+  const recorded = await listJobInstruments(d.job.id);
+  if (recorded.some((r) => r.instrumentId === inst.id && r.use === input.use))
     throw invalid(
       `${inst.serial} is already recorded as ${DATA_INSTRUMENT_USE_LABELS[input.use].toLowerCase()}.`,
     );
   return db.transaction(async (tx) => {
-    const [row] = await tx
-      .insert(jobInstruments)
-      .values({ jobId: d.job.id, instrumentId: inst.id, use: input.use, recordedById: actor.id })
-      .returning();
-    await appendAudit(tx, actor, {
-      action: "job_instrument.recorded",
-      entity: { type: "job_instrument", id: row!.id },
-      jobId: d.job.id,
-      newValues: { instrument: inst.serial, use: input.use },
-    });
-    return row!;
+    return insertJobRecord(
+      tx,
+      actor,
+      jobInstruments,
+      { jobId: d.job.id, instrumentId: inst.id, use: input.use, recordedById: actor.id },
+      {
+        action: "job_instrument.recorded",
+        entityType: "job_instrument",
+        newValues: () => ({ instrument: inst.serial, use: input.use }),
+      },
+    );
   });
 }
 

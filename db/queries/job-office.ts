@@ -5,9 +5,10 @@ import { appendAudit, jobEvent, type AuditEvent } from "@/db/queries/audit";
 import { lockJob } from "@/db/queries/locks";
 import { activeInstaller, queueAssignmentMails } from "@/db/queries/job-mail";
 import { visibleJob } from "@/db/queries/jobs";
-import { listActiveInstallers } from "@/db/queries/users-admin";
+import { rowsInUse } from "@/db/queries/registers";
+import { listActiveInstallers, listCustomersForSelect } from "@/db/queries/users-admin";
 import { createJobFromTemplate } from "@/db/queries/job-status";
-import { customers, heads, jobs, machines, procedureTemplates, sites } from "@/db/schema";
+import { heads, jobs, machines, procedureTemplates, sites } from "@/db/schema";
 import type { JobStatus } from "@/lib/domain/jobs";
 import type { Actor } from "@/lib/domain/roles";
 import { forbidden, invalid } from "@/lib/errors";
@@ -32,32 +33,24 @@ export async function newJobChoices(actor: Actor) {
   const refusal = jobCreateRefusal(actor);
   if (refusal) throw forbidden(refusal);
   const [customerRows, siteRows, machineRows, headRows, templateRows, installerRows] = await Promise.all([
-    db
-      .select({ id: customers.id, name: customers.name })
-      .from(customers)
-      .where(isNull(customers.retiredAt))
-      .orderBy(asc(customers.name)),
-    db
-      .select({ id: sites.id, name: sites.name, customerId: sites.customerId })
-      .from(sites)
-      .where(isNull(sites.retiredAt))
-      .orderBy(asc(sites.name)),
-    db
-      .select({ id: machines.id, name: machines.name, siteId: machines.siteId, model: machines.model })
-      .from(machines)
-      .where(isNull(machines.retiredAt))
-      .orderBy(asc(machines.name)),
-    db
-      .select({
+    listCustomersForSelect(),
+    rowsInUse(sites, { id: sites.id, name: sites.name, customerId: sites.customerId }, sites.name),
+    rowsInUse(
+      machines,
+      { id: machines.id, name: machines.name, siteId: machines.siteId, model: machines.model },
+      machines.name,
+    ),
+    rowsInUse(
+      heads,
+      {
         id: heads.id,
         serial: heads.serial,
         maker: heads.maker,
         model: heads.model,
         machineId: heads.machineId,
-      })
-      .from(heads)
-      .where(isNull(heads.retiredAt))
-      .orderBy(asc(heads.serial)),
+      },
+      heads.serial,
+    ),
     db
       .select({
         id: procedureTemplates.id,
@@ -124,7 +117,7 @@ export async function openJob(actor: Actor, input: JobOpenInput) {
         message: "Not a current procedure for this kind of job and head model.",
       },
     ]);
-  const schedule = scheduleOf(input);
+  // createJobFromTemplate stores an absent record field as empty.
   return createJobFromTemplate(actor, {
     templateId: input.templateId,
     machineId: input.machineId,
@@ -133,12 +126,11 @@ export async function openJob(actor: Actor, input: JobOpenInput) {
     title: input.title,
     decisionRule: input.decisionRule,
     assignedInstallerId: input.assignedInstallerId ?? undefined,
-    orderReference: input.orderReference ?? null,
-    customerContactName: input.customerContactName ?? null,
-    customerContactEmail: input.customerContactEmail ?? null,
-    scheduledFor: schedule?.scheduledFor ?? null,
-    timeZone: schedule?.timeZone ?? null,
-    notes: input.notes ?? null,
+    orderReference: input.orderReference,
+    customerContactName: input.customerContactName,
+    customerContactEmail: input.customerContactEmail,
+    notes: input.notes,
+    ...scheduleOf(input),
   });
 }
 

@@ -1,9 +1,24 @@
 import "server-only";
-import { and, asc, desc, eq, ilike, or, sql, type SQL } from "drizzle-orm";
-import { alias } from "drizzle-orm/pg-core";
+import { and, asc, desc, eq, ilike, or, sql, type AnyColumn, type SQL } from "drizzle-orm";
+import { alias, type SelectedFields } from "drizzle-orm/pg-core";
+import type { SelectResultFields } from "drizzle-orm/query-builders/select.types";
 import { cache } from "react";
 import { db } from "@/db";
-import { customers, heads, jobs, machines, sites, users } from "@/db/schema";
+import {
+  customers,
+  datasets,
+  heads,
+  jobs,
+  machines,
+  photos,
+  readings,
+  reports,
+  signatures,
+  sites,
+  templateParameterLimits,
+  templateSteps,
+  users,
+} from "@/db/schema";
 import { JOB_SORT_KEYS, type JobListRow, type JobSortKey, type JobStatus } from "@/lib/domain/jobs";
 import { type Actor } from "@/lib/domain/roles";
 import { jobScope } from "@/lib/policy/jobs";
@@ -181,4 +196,40 @@ export function jobDetailJson(d: JobDetail) {
     },
     installer: d.installer,
   };
+}
+
+/** Tables of records that belong to one job: each row carries its job's id. */
+type JobRowsTable = typeof readings | typeof datasets | typeof photos | typeof signatures | typeof reports;
+
+/**
+ * The given columns of a job's rows in `table`, sorted by `order` (no access check: callers have
+ * checked the job).
+ */
+export async function rowsOfJob<S extends SelectedFields>(
+  table: JobRowsTable,
+  columns: S,
+  jobId: string,
+  ...order: SQL[]
+): Promise<SelectResultFields<S>[]> {
+  const t = table as typeof readings;
+  const rows = await db
+    .select(columns)
+    .from(t)
+    .where(eq(t.jobId, jobId))
+    .orderBy(...order);
+  return rows as SelectResultFields<S>[];
+}
+
+/**
+ * The rows of a procedure version in `table`, sorted by `order`; none for a job without a version
+ * (no access check: callers have checked the job or the register).
+ */
+export async function rowsOfTemplate<T extends typeof templateSteps | typeof templateParameterLimits>(
+  table: T,
+  templateId: string | null,
+  order: AnyColumn,
+): Promise<T["$inferSelect"][]> {
+  if (!templateId) return [];
+  const t = table as typeof templateSteps;
+  return db.select().from(t).where(eq(t.templateId, templateId)).orderBy(asc(order));
 }

@@ -4,21 +4,14 @@
  * no limit: its value is recorded, not judged.
  */
 import "server-only";
-import { asc, eq } from "drizzle-orm";
-import { db } from "@/db";
-import { getJobDetail } from "@/db/queries/jobs";
+import { getJobDetail, rowsOfTemplate } from "@/db/queries/jobs";
 import { templateParameterLimits } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
 import type { ParameterLimit } from "@/lib/fit-display";
 
 /** The limits of a template version (no access check: callers have checked the job or register). */
 export async function parameterLimitsOfTemplate(templateId: string | null): Promise<ParameterLimit[]> {
-  if (!templateId) return [];
-  return db
-    .select()
-    .from(templateParameterLimits)
-    .where(eq(templateParameterLimits.templateId, templateId))
-    .orderBy(asc(templateParameterLimits.parameter));
+  return rowsOfTemplate(templateParameterLimits, templateId, templateParameterLimits.parameter);
 }
 
 /** The parameter limits that apply to a job the actor may see; null when the job is not theirs to see. */

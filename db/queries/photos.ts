@@ -2,7 +2,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { and, asc, eq } from "drizzle-orm";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
+import { insertJobRecord } from "@/db/queries/audit";
 import { getJobDetail, jobAccessCondition, visibleJob } from "@/db/queries/jobs";
 import { lockJob, refuseLockedReadings } from "@/db/queries/locks";
 import { stepOfJob } from "@/db/queries/readings";
@@ -141,9 +141,11 @@ export async function addPhoto(
   try {
     const row = await db.transaction(async (tx) => {
       refuseLockedReadings(actor, await lockJob(tx, d.job.id));
-      const [p] = await tx
-        .insert(photos)
-        .values({
+      return insertJobRecord(
+        tx,
+        actor,
+        photos,
+        {
           jobId: d.job.id,
           stepId: step.id,
           readingId,
@@ -158,23 +160,21 @@ export async function addPhoto(
           takenAt: form.takenAt,
           uploadedById: actor.id,
           clientId: form.clientId,
-        })
-        .returning();
-      await appendAudit(tx, actor, {
-        action: "photo.added",
-        entity: { type: "photo", id: p!.id },
-        jobId: d.job.id,
-        newValues: {
-          step: step.position,
-          phase: form.phase,
-          readingId,
-          sha256: processed.sha256,
-          width: processed.width,
-          height: processed.height,
-          clientId: form.clientId,
         },
-      });
-      return p!;
+        {
+          action: "photo.added",
+          entityType: "photo",
+          newValues: () => ({
+            step: step.position,
+            phase: form.phase,
+            readingId,
+            sha256: processed.sha256,
+            width: processed.width,
+            height: processed.height,
+            clientId: form.clientId,
+          }),
+        },
+      );
     });
     return { photo: photoJson({ ...row, uploadedByName: actor.name }), replay: false };
   } catch (err) {
@@ -186,16 +186,21 @@ export async function addPhoto(
   }
 }
 
+/** A job's photos with the name of who uploaded each, in the order they were taken. */
+function photosOfJob(jobId: string) {
+  return db
+    .select({ p: photos, name: users.name })
+    .from(photos)
+    .leftJoin(users, eq(users.id, photos.uploadedById))
+    .where(eq(photos.jobId, jobId))
+    .orderBy(asc(photos.takenAt), asc(photos.createdAt));
+}
+
 /** The job's photos for the checklist (staff who see the job; customers once it is issued). */
 export async function listPhotos(actor: Actor, jobId: string): Promise<PhotoJson[]> {
   const d = await getJobDetail(actor, jobId);
   if (!d || photoViewRefusal(actor, d.job)) return [];
-  const rows = await db
-    .select({ p: photos, name: users.name })
-    .from(photos)
-    .leftJoin(users, eq(users.id, photos.uploadedById))
-    .where(eq(photos.jobId, d.job.id))
-    .orderBy(asc(photos.takenAt), asc(photos.createdAt));
+  const rows = await photosOfJob(d.job.id);
   return rows.map((r) => photoJson({ ...r.p, uploadedByName: r.name }));
 }
 
@@ -221,18 +226,6 @@ export async function getPhotoBytes(actor: Actor, photoId: string, which: "image
 
 /** The job's photos for its report (the caller has checked the job's access). */
 export async function jobPhotosForReport(jobId: string) {
-  return db
-    .select({
-      stepId: photos.stepId,
-      phase: photos.phase,
-      takenAt: photos.takenAt,
-      uploadedBy: users.name,
-      width: photos.width,
-      height: photos.height,
-      sha256: photos.sha256,
-    })
-    .from(photos)
-    .leftJoin(users, eq(users.id, photos.uploadedById))
-    .where(eq(photos.jobId, jobId))
-    .orderBy(asc(photos.takenAt));
+  const rows = await photosOfJob(jobId);
+  return rows.map((r) => ({ ...r.p, uploadedBy: r.name }));
 }

@@ -2,6 +2,7 @@ import "server-only";
 import { and, asc, count, desc, eq, inArray, isNotNull, isNull, max, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
+import { updateAudited } from "@/db/queries/registers-admin";
 import {
   heads,
   jobs,
@@ -153,6 +154,31 @@ export async function proceduresFor(jobKind: JobKind, headModel: string | null) 
 }
 
 /**
+ * The steps (in order), head-parameter limits and rotary-axis positioning limits of procedure
+ * versions, read together; returns a function giving one version's three lists by its id.
+ */
+export async function templateContents(ids: string[]) {
+  const [steps, limits, positioning] = await Promise.all([
+    db
+      .select()
+      .from(templateSteps)
+      .where(inArray(templateSteps.templateId, ids))
+      .orderBy(asc(templateSteps.position)),
+    db.select().from(templateParameterLimits).where(inArray(templateParameterLimits.templateId, ids)),
+    db
+      .select()
+      .from(templatePositioningLimits)
+      .where(inArray(templatePositioningLimits.templateId, ids))
+      .orderBy(asc(templatePositioningLimits.axis), asc(templatePositioningLimits.quantity)),
+  ]);
+  return (id: string) => ({
+    steps: steps.filter((s) => s.templateId === id),
+    parameterLimits: limits.filter((l) => l.templateId === id),
+    positioningLimits: positioning.filter((l) => l.templateId === id),
+  });
+}
+
+/**
  * Every procedure version with its steps, for the staff (the API's list and the builder's list),
  * optionally only those that apply to a job kind and a head model.
  */
@@ -169,18 +195,8 @@ export async function listProcedures(
   const chosen = ts.filter((t) => matchesFilter(t, filter.jobKind ?? null, filter.headModel ?? null));
   const ids = chosen.map((t) => t.id);
   if (ids.length === 0) return [];
-  const [steps, limits, positioning, used] = await Promise.all([
-    db
-      .select()
-      .from(templateSteps)
-      .where(inArray(templateSteps.templateId, ids))
-      .orderBy(asc(templateSteps.position)),
-    db.select().from(templateParameterLimits).where(inArray(templateParameterLimits.templateId, ids)),
-    db
-      .select()
-      .from(templatePositioningLimits)
-      .where(inArray(templatePositioningLimits.templateId, ids))
-      .orderBy(asc(templatePositioningLimits.axis), asc(templatePositioningLimits.quantity)),
+  const [contentsOf, used] = await Promise.all([
+    templateContents(ids),
     db
       .select({ templateId: jobs.templateId, n: count() })
       .from(jobs)
@@ -190,9 +206,7 @@ export async function listProcedures(
   return chosen.map((t) => ({
     ...t,
     jobsUsing: used.find((u) => u.templateId === t.id)?.n ?? 0,
-    steps: steps.filter((s) => s.templateId === t.id),
-    parameterLimits: limits.filter((l) => l.templateId === t.id),
-    positioningLimits: positioning.filter((l) => l.templateId === t.id),
+    ...contentsOf(t.id),
   }));
 }
 
@@ -312,14 +326,10 @@ export async function saveProcedureVersion(actor: Actor, id: string, body: unkno
       await tx.delete(templateSteps).where(eq(templateSteps.templateId, id));
       await insertSteps(tx, id, rows);
       await writeAllLimits(tx, id, rows, id);
-      const [t] = await tx
-        .update(procedureTemplates)
-        .set(meta)
-        .where(eq(procedureTemplates.id, id))
-        .returning();
-      await appendAudit(tx, actor, {
+      const newLimits = await limitsOf(tx, id);
+      const t = await updateAudited(tx, actor, procedureTemplates, id, meta, {
         action: "procedure.draft_saved",
-        entity: { type: "procedure_template", id: id },
+        entityType: "procedure_template",
         oldValues: {
           version: base!.version,
           jobKinds: base!.jobKinds,
@@ -328,9 +338,9 @@ export async function saveProcedureVersion(actor: Actor, id: string, body: unkno
           steps: oldSteps.map(({ id: _i, templateId: _t, ...s }) => s),
           ...oldLimits,
         },
-        newValues: { version: t!.version, ...meta, steps: rows.steps, ...(await limitsOf(tx, id)) },
+        newValues: (row) => ({ version: row.version, ...meta, steps: rows.steps, ...newLimits }),
       });
-      return { ...t!, steps: rows.steps, replaced: true };
+      return { ...t, steps: rows.steps, replaced: true };
     }
     const [{ v } = { v: 0 }] = await tx
       .select({ v: max(procedureTemplates.version) })

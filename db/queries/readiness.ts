@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, eq, sql } from "drizzle-orm";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
+import { insertJobRecord } from "@/db/queries/audit";
 import { getApprovedAnalysis, listJobAnalyses } from "@/db/queries/analyses";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
 import { getIssuer } from "@/db/queries/issuer";
@@ -248,9 +248,11 @@ export async function recordDeviation(
       .from(deviations)
       .where(and(eq(deviations.jobId, d.job.id), eq(deviations.subject, result.subject)));
     if (existing) throw invalid("A deviation is already recorded for this result.");
-    const [row] = await tx
-      .insert(deviations)
-      .values({
+    return insertJobRecord(
+      tx,
+      actor,
+      deviations,
+      {
         jobId: d.job.id,
         subject: result.subject,
         subjectLabel: result.label,
@@ -258,14 +260,17 @@ export async function recordDeviation(
         justification,
         approvedById: actor.id,
         approvedByName: actor.name,
-      })
-      .returning();
-    await appendAudit(tx, actor, {
-      action: "deviation.recorded",
-      entity: { type: "deviation", id: row!.id },
-      jobId: d.job.id,
-      newValues: { subject: result.subject, label: result.label, decision: result.decision, justification },
-    });
-    return row!;
+      },
+      {
+        action: "deviation.recorded",
+        entityType: "deviation",
+        newValues: () => ({
+          subject: result.subject,
+          label: result.label,
+          decision: result.decision,
+          justification,
+        }),
+      },
+    );
   });
 }

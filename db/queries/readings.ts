@@ -3,7 +3,7 @@ import { and, asc, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { db } from "@/db";
 import { appendAudit, jobEvent } from "@/db/queries/audit";
-import { getJobDetail, visibleJob } from "@/db/queries/jobs";
+import { getJobDetail, rowsOfTemplate, visibleJob } from "@/db/queries/jobs";
 import { instruments, jobs, procedureTemplates, readings, templateSteps, users } from "@/db/schema";
 import type { Reading, TemplateStep } from "@/db/schema";
 import { type Actor } from "@/lib/domain/roles";
@@ -25,12 +25,7 @@ import { lockJob, refuseLockedReadings } from "./locks";
 const recorders = alias(users, "recorder");
 
 export async function listTemplateSteps(templateId: string | null): Promise<TemplateStep[]> {
-  if (!templateId) return [];
-  return db
-    .select()
-    .from(templateSteps)
-    .where(eq(templateSteps.templateId, templateId))
-    .orderBy(asc(templateSteps.position));
+  return rowsOfTemplate(templateSteps, templateId, templateSteps.position);
 }
 
 export type ReadingRow = Reading & {

@@ -3,7 +3,8 @@ import { and, eq, isNull, ne, sql } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { customers, heads, instruments, machines, sites } from "@/db/schema";
+import { selectMachinesWithPlace } from "@/db/queries/registers";
+import { customers, heads, instruments, machines, procedureTemplates, sites } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
 import { isUuid } from "@/lib/domain/uuid";
 import { registerEditRefusal, type Register } from "@/lib/policy/registers";
@@ -148,6 +149,41 @@ export async function insertRegisterRow<T extends RegisterTable>(
   });
 }
 
+type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
+/**
+ * Changes one register or procedure row by id and appends the event that announces the change,
+ * in the caller's transaction so that both commit together: the row is the event's entity, and
+ * `newValues` is given the row as changed. Returns that row.
+ */
+export async function updateAudited<T extends RegisterTable | typeof procedureTemplates>(
+  tx: Tx,
+  actor: Actor,
+  table: T,
+  id: string,
+  set: Partial<T["$inferInsert"]>,
+  event: {
+    action: string;
+    entityType: string;
+    oldValues: unknown;
+    newValues: (row: T["$inferSelect"]) => unknown;
+  },
+): Promise<T["$inferSelect"]> {
+  const t = table as typeof customers;
+  const [row] = (await tx
+    .update(t)
+    .set(set as Partial<typeof customers.$inferInsert>)
+    .where(eq(t.id, id))
+    .returning()) as T["$inferSelect"][];
+  await appendAudit(tx, actor, {
+    action: event.action,
+    entity: { type: event.entityType, id },
+    oldValues: event.oldValues,
+    newValues: event.newValues(row!),
+  });
+  return row!;
+}
+
 /**
  * Applies a correction to one register row and audits what changed, in one transaction: the old
  * and new values of the changed fields only, as `<entity>.updated` — or `<entity>.retired` /
@@ -183,15 +219,13 @@ export async function updateRegisterRow<T extends RegisterTable>(
     }
     if (changed.length === 0) return before as T["$inferSelect"];
     const next = Object.fromEntries(changed);
-    const [row] = await tx.update(t).set(next).where(eq(t.id, id)).returning();
     const onlyRetirement = retiring && changed.every(([k]) => k === "retiredAt" || k === "retired");
-    await appendAudit(tx, actor, {
+    return updateAudited(tx, actor, table, id, next as Partial<T["$inferInsert"]>, {
       action: `${entityType}.${onlyRetirement ? (retired ? "retired" : "restored") : "updated"}`,
-      entity: { type: entityType, id: id },
+      entityType,
       oldValues: Object.fromEntries(changed.map(([k]) => [k, before[k] ?? null])),
-      newValues: next,
+      newValues: () => next,
     });
-    return row as T["$inferSelect"];
   });
 }
 
@@ -227,19 +261,12 @@ export async function activeRegisterRow(
 
 /** The host machine a form chose for new work (see refuseUnusable), with its site and customer. */
 export async function activeHostMachine(machineId: string) {
-  const [m] = await db
-    .select({
-      id: machines.id,
-      customerId: sites.customerId,
-      retiredAt: machines.retiredAt,
-      machineName: machines.name,
-      siteName: sites.name,
-      customerName: customers.name,
-    })
-    .from(machines)
-    .innerJoin(sites, eq(sites.id, machines.siteId))
-    .innerJoin(customers, eq(customers.id, sites.customerId))
-    .where(eq(machines.id, machineId));
+  const [m] = await selectMachinesWithPlace({
+    id: machines.id,
+    customerId: sites.customerId,
+    retiredAt: machines.retiredAt,
+    machineName: machines.name,
+  }).where(eq(machines.id, machineId));
   return refuseUnusable(m, "machineId", "host machine", "machine");
 }
 

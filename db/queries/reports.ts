@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
-import { getJobDetail, type JobDetail, visibleJob } from "@/db/queries/jobs";
+import { getJobDetail, rowsOfJob, type JobDetail, visibleJob } from "@/db/queries/jobs";
 import { getTestPartEvaluation, listDatasets } from "@/db/queries/datasets";
 import { getComparison } from "@/db/queries/readings";
 import { getApprovedAnalysis } from "@/db/queries/analyses";
@@ -59,6 +59,7 @@ import { sha256Hex, signManifest, type SignatureManifest } from "@/lib/report/si
 import type { ReportData } from "@/lib/report/types";
 import { photoAppendixRows } from "@/lib/report/sections/photo-rows";
 import { jobPhotosForReport } from "@/db/queries/photos";
+import { revisionColumns } from "@/db/queries/verification";
 import { activeUsers, lockJob } from "./locks";
 import { isUuid } from "@/lib/domain/uuid";
 
@@ -485,19 +486,7 @@ export async function respondToReport(
 /** Report metadata for a user who may see its job; null otherwise (including another tenant's). */
 export async function getReportMeta(actor: Actor, reportId: string) {
   if (!isUuid(reportId)) return null;
-  const [r] = await db
-    .select({
-      id: reports.id,
-      jobId: reports.jobId,
-      revision: reports.revision,
-      pdfSha256: reports.pdfSha256,
-      contentSha256: reports.contentSha256,
-      issuedAt: reports.issuedAt,
-      supersedesId: reports.supersedesId,
-      amendmentReason: reports.amendmentReason,
-    })
-    .from(reports)
-    .where(eq(reports.id, reportId));
+  const [r] = await db.select(revisionColumns).from(reports).where(eq(reports.id, reportId));
   if (!r) return null;
   if (!(await getJobDetail(actor, r.jobId))) return null;
   const [newer] = await db.select({ id: reports.id }).from(reports).where(eq(reports.supersedesId, r.id));
@@ -529,16 +518,5 @@ export async function getReportPdf(
 export async function listJobReports(actor: Actor, jobId: string) {
   const d = await getJobDetail(actor, jobId);
   if (!d) return null;
-  return db
-    .select({
-      id: reports.id,
-      revision: reports.revision,
-      issuedAt: reports.issuedAt,
-      pdfSha256: reports.pdfSha256,
-      supersedesId: reports.supersedesId,
-      amendmentReason: reports.amendmentReason,
-    })
-    .from(reports)
-    .where(eq(reports.jobId, jobId))
-    .orderBy(desc(reports.revision));
+  return rowsOfJob(reports, revisionColumns, jobId, desc(reports.revision));
 }

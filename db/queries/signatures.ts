@@ -2,8 +2,8 @@ import "server-only";
 import { checkPasswordReentry } from "@/db/queries/sign-in";
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
-import { appendAudit } from "@/db/queries/audit";
-import { getJobDetail, visibleJob } from "@/db/queries/jobs";
+import { insertJobRecord } from "@/db/queries/audit";
+import { getJobDetail, rowsOfJob, visibleJob } from "@/db/queries/jobs";
 import { datasets, photos, readings, signatures } from "@/db/schema";
 import type { Actor } from "@/lib/domain/roles";
 import { SIGNATURE_LABELS, type SignatureMeaningKey } from "@/lib/domain/signatures";
@@ -26,6 +26,19 @@ export async function requirePasswordReentry(actor: Actor, password: string): Pr
   await checkPasswordReentry(actor, password);
 }
 
+/** What the job-state hash covers of each reading, dataset and photo (see jobStateSha256). */
+const STATE_COLUMNS = {
+  readings: {
+    id: readings.id,
+    value: readings.value,
+    phase: readings.phase,
+    instrumentId: readings.instrumentId,
+    supersededById: readings.supersededById,
+  },
+  datasets: { id: datasets.id, sha256: datasets.sha256, status: datasets.status },
+  photos: { id: photos.id, sha256: photos.sha256, readingId: photos.readingId },
+};
+
 /**
  * A hash of what has been recorded on the job (its current and superseded readings, with value,
  * phase and instrument, its datasets with their SHA-256 and status, and its photos with their
@@ -45,27 +58,11 @@ export async function requirePasswordReentry(actor: Actor, password: string): Pr
  * the signatures stale: it is a measurement on the head.
  */
 export async function jobStateSha256(jobId: string): Promise<string> {
-  const rs = await db
-    .select({
-      id: readings.id,
-      value: readings.value,
-      phase: readings.phase,
-      instrumentId: readings.instrumentId,
-      supersededById: readings.supersededById,
-    })
-    .from(readings)
-    .where(eq(readings.jobId, jobId))
-    .orderBy(asc(readings.id));
-  const ds = await db
-    .select({ id: datasets.id, sha256: datasets.sha256, status: datasets.status })
-    .from(datasets)
-    .where(eq(datasets.jobId, jobId))
-    .orderBy(asc(datasets.id));
-  const ph = await db
-    .select({ id: photos.id, sha256: photos.sha256, readingId: photos.readingId })
-    .from(photos)
-    .where(eq(photos.jobId, jobId))
-    .orderBy(asc(photos.id));
+  const [rs, ds, ph] = await Promise.all([
+    rowsOfJob(readings, STATE_COLUMNS.readings, jobId, asc(readings.id)),
+    rowsOfJob(datasets, STATE_COLUMNS.datasets, jobId, asc(datasets.id)),
+    rowsOfJob(photos, STATE_COLUMNS.photos, jobId, asc(photos.id)),
+  ]);
   // Left out when the job has none, so a job without photos keeps the hash its signatures were
   // given over before photos counted.
   return sha256Hex(
@@ -121,26 +118,20 @@ export async function signJobWork(
   await requirePasswordReentry(actor, input.password);
   // One current signature per signer and meaning; a stale one (the record changed after it) is signed again.
   const stateSha256 = await jobStateSha256(d.job.id);
-  const existing = await db
-    .select({ manifest: signatures.manifest })
-    .from(signatures)
-    .where(
-      and(
-        eq(signatures.jobId, d.job.id),
-        eq(signatures.meaning, input.meaning),
-        eq(signatures.signerId, actor.id),
-        isNull(signatures.reportId),
-      ),
-    );
+  const existing = (await preIssueSignatures(d.job.id)).filter(
+    (s) => s.meaning === input.meaning && s.signerId === actor.id,
+  );
   if (existing.some((s) => (s.manifest as SignatureManifest).stateSha256 === stateSha256))
     throw invalid(`You have already signed this job as ${SIGNATURE_LABELS[input.meaning].toLowerCase()}.`);
   const signedAt = new Date();
   const manifest = manifestFor(actor, input.meaning, d.job, { stateSha256 }, signedAt);
   const signature = signManifest(manifest, getSigningKey());
   return db.transaction(async (tx) => {
-    const [row] = await tx
-      .insert(signatures)
-      .values({
+    return insertJobRecord(
+      tx,
+      actor,
+      signatures,
+      {
         jobId: d.job.id,
         meaning: input.meaning,
         signerId: actor.id,
@@ -151,15 +142,13 @@ export async function signJobWork(
         manifest,
         signature,
         keyId: manifest.keyId,
-      })
-      .returning();
-    await appendAudit(tx, actor, {
-      action: `signature.${input.meaning}`,
-      entity: { type: "signature", id: row!.id },
-      jobId: d.job.id,
-      newValues: { meaning: input.meaning, signedAtUtc: manifest.signedAtUtc },
-    });
-    return row!;
+      },
+      {
+        action: `signature.${input.meaning}`,
+        entityType: "signature",
+        newValues: () => ({ meaning: input.meaning, signedAtUtc: manifest.signedAtUtc }),
+      },
+    );
   });
 }
 
@@ -172,11 +161,13 @@ export async function preIssueSignatures(jobId: string) {
     .orderBy(asc(signatures.signedAt));
 }
 
+/** The job's signatures, oldest first; null when the actor may not see the job. */
 export async function listJobSignatures(actor: Actor, jobId: string) {
   const d = await getJobDetail(actor, jobId);
   if (!d) return null;
-  return db
-    .select({
+  return rowsOfJob(
+    signatures,
+    {
       id: signatures.id,
       reportId: signatures.reportId,
       meaning: signatures.meaning,
@@ -185,8 +176,8 @@ export async function listJobSignatures(actor: Actor, jobId: string) {
       signerRole: signatures.signerRole,
       signedAt: signatures.signedAt,
       comment: signatures.comment,
-    })
-    .from(signatures)
-    .where(eq(signatures.jobId, jobId))
-    .orderBy(asc(signatures.signedAt));
+    },
+    jobId,
+    asc(signatures.signedAt),
+  );
 }

@@ -1,13 +1,8 @@
 import "server-only";
-import { asc, eq } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import { db } from "@/db";
-import { listProcedures } from "@/db/queries/procedures";
-import {
-  procedureTemplates,
-  templateParameterLimits,
-  templatePositioningLimits,
-  templateSteps,
-} from "@/db/schema";
+import { listProcedures, templateContents } from "@/db/queries/procedures";
+import { procedureTemplates } from "@/db/schema";
 import { type Actor } from "@/lib/domain/roles";
 import { isUuid } from "@/lib/domain/uuid";
 import { registerReadRefusal } from "@/lib/policy/registers";
@@ -27,18 +22,6 @@ export async function getTemplate(actor: Actor, id: string) {
   if (!isUuid(id)) return null;
   const [t] = await db.select().from(procedureTemplates).where(eq(procedureTemplates.id, id));
   if (!t) return null;
-  const [steps, parameterLimits, positioningLimits] = await Promise.all([
-    db
-      .select()
-      .from(templateSteps)
-      .where(eq(templateSteps.templateId, id))
-      .orderBy(asc(templateSteps.position)),
-    db.select().from(templateParameterLimits).where(eq(templateParameterLimits.templateId, id)),
-    db
-      .select()
-      .from(templatePositioningLimits)
-      .where(eq(templatePositioningLimits.templateId, id))
-      .orderBy(asc(templatePositioningLimits.axis), asc(templatePositioningLimits.quantity)),
-  ]);
-  return { ...t, steps, parameterLimits, positioningLimits };
+  const contentsOf = await templateContents([id]);
+  return { ...t, ...contentsOf(id) };
 }

@@ -5,6 +5,7 @@ import { z } from "zod";
 import { db } from "@/db";
 import { appendAudit } from "@/db/queries/audit";
 import { enqueueMail } from "@/db/queries/outbox";
+import { rowsInUse } from "@/db/queries/registers";
 import { emailKey } from "@/db/queries/sign-in";
 import { customers, signInFailures, userTokens, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
@@ -176,11 +177,7 @@ export async function updateUser(actor: Actor, input: z.infer<typeof userUpdateS
 }
 
 export async function listCustomersForSelect() {
-  return db
-    .select({ id: customers.id, name: customers.name })
-    .from(customers)
-    .where(isNull(customers.retiredAt))
-    .orderBy(asc(customers.name));
+  return rowsInUse(customers, { id: customers.id, name: customers.name }, customers.name);
 }
 
 export async function listActiveInstallers() {

@@ -13,6 +13,21 @@ import { isUuid } from "@/lib/domain/uuid";
 export type { VerificationResult };
 
 /**
+ * What is read of an issued revision wherever it is listed or checked: which revision of which
+ * job, the hashes it vouches for, when, and what it amends.
+ */
+export const revisionColumns = {
+  id: reports.id,
+  jobId: reports.jobId,
+  revision: reports.revision,
+  pdfSha256: reports.pdfSha256,
+  contentSha256: reports.contentSha256,
+  issuedAt: reports.issuedAt,
+  supersedesId: reports.supersedesId,
+  amendmentReason: reports.amendmentReason,
+};
+
+/**
  * Public verification of an issued revision, from the stored bytes (never a re-render): the
  * stored PDF must still hash to the recorded SHA-256, and every signature over it, and every
  * signature given before issue, must verify with the published key.
@@ -30,17 +45,7 @@ export async function verifyReport(
   };
   if (!isUuid(reportId)) return none;
   const [r] = await exec
-    .select({
-      id: reports.id,
-      jobId: reports.jobId,
-      revision: reports.revision,
-      pdf: reports.pdf,
-      pdfSha256: reports.pdfSha256,
-      contentSha256: reports.contentSha256,
-      issuedAt: reports.issuedAt,
-      supersedesId: reports.supersedesId,
-      reference: jobs.reference,
-    })
+    .select({ ...revisionColumns, pdf: reports.pdf, reference: jobs.reference })
     .from(reports)
     .innerJoin(jobs, eq(jobs.id, reports.jobId))
     .where(eq(reports.id, reportId));
