@@ -1,5 +1,11 @@
 import { drawing, palette } from "@/lib/domain/theme";
-import { LIMIT_ROW_BOX, limitRowLayout, reportCharts, type LimitRow } from "@/lib/report/chart-data";
+import {
+  LIMIT_ROW_BOX,
+  limitRowLayout,
+  reportCharts,
+  type LimitRow,
+  type LimitRowMark,
+} from "@/lib/report/chart-data";
 import type { ReportData } from "@/lib/report/types";
 import { Residuals } from "@/components/report/residuals-figure";
 import { StoredViewImage } from "@/components/viewer/stored-view-image";
@@ -55,6 +61,13 @@ export function ReportFigures({ data }: { data: ReportData }) {
 
 const { width: W, height: H } = LIMIT_ROW_BOX.page;
 
+/** Each kind of mark: before adjustment a hollow ring, after it a filled dot, a single value an accent dot. */
+const MARK: Record<LimitRowMark["kind"], React.SVGProps<SVGCircleElement>> = {
+  before: { r: 4, fill: palette.white, stroke: palette.nominal[500], strokeWidth: 1.6 },
+  after: { r: 3.6, fill: palette.graphite[900] },
+  value: { r: 3.6, fill: drawing.accentLine },
+};
+
 function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: string; legend: string }) {
   return (
     <div>
@@ -90,27 +103,9 @@ function LimitRows({ rows, title, legend }: { rows: readonly LimitRow[]; title: 
                     {l.uBars.map((seg, j) => (
                       <line key={`u${j}`} {...seg} stroke={palette.graphite[900]} strokeWidth={1.4} />
                     ))}
-                    {l.marks.map((m, j) =>
-                      m.kind === "before" ? (
-                        <circle
-                          key={j}
-                          cx={m.x}
-                          cy={l.mid}
-                          r={4}
-                          fill={palette.white}
-                          stroke={palette.nominal[500]}
-                          strokeWidth={1.6}
-                        />
-                      ) : (
-                        <circle
-                          key={j}
-                          cx={m.x}
-                          cy={l.mid}
-                          r={3.6}
-                          fill={m.kind === "after" ? palette.graphite[900] : drawing.accentLine}
-                        />
-                      ),
-                    )}
+                    {l.marks.map((m, j) => (
+                      <circle key={j} cx={m.x} cy={l.mid} {...MARK[m.kind]} />
+                    ))}
                   </svg>
                 </td>
                 <td className="num py-1 text-xs text-graphite-600">{r.note}</td>

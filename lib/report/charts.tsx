@@ -8,7 +8,7 @@
 import { drawing, palette } from "@/lib/domain/theme";
 import { Circle, Line, Rect, Svg, Text, View } from "@react-pdf/renderer";
 import { RESIDUALS_BOX, residualsLayout } from "@/lib/report/residuals-layout";
-import { LIMIT_ROW_BOX, limitRowLayout, type LimitRow } from "./chart-data";
+import { LIMIT_ROW_BOX, limitRowLayout, type LimitRow, type LimitRowMark } from "./chart-data";
 import { pdfColours } from "./pdf-styles";
 import type { ReportCharts } from "./types";
 
@@ -21,6 +21,14 @@ const C = {
 };
 
 const { width: ROW_W, height: ROW_H } = LIMIT_ROW_BOX.pdf;
+
+/** Each kind of mark: before adjustment a hollow ring, after it a filled dot, a single value an accent dot. */
+const MARK: Record<LimitRowMark["kind"], { r: number; fill: string; stroke?: string; strokeWidth?: number }> =
+  {
+    before: { r: 2.6, fill: palette.white, stroke: C.before, strokeWidth: 1.1 },
+    after: { r: 2.4, fill: C.after },
+    value: { r: 2.4, fill: C.accent },
+  };
 
 function RowPlot({ row }: { row: LimitRow }) {
   const l = limitRowLayout(row, LIMIT_ROW_BOX.pdf);
@@ -35,21 +43,9 @@ function RowPlot({ row }: { row: LimitRow }) {
       {l.uBars.map((seg, i) => (
         <Line key={`u${i}`} {...seg} stroke={C.ink} strokeWidth={0.8} />
       ))}
-      {l.marks.map((m, i) =>
-        m.kind === "before" ? (
-          <Circle
-            key={i}
-            cx={m.x}
-            cy={l.mid}
-            r={2.6}
-            fill={palette.white}
-            stroke={C.before}
-            strokeWidth={1.1}
-          />
-        ) : (
-          <Circle key={i} cx={m.x} cy={l.mid} r={2.4} fill={m.kind === "after" ? C.after : C.accent} />
-        ),
-      )}
+      {l.marks.map((m, i) => (
+        <Circle key={i} cx={m.x} cy={l.mid} {...MARK[m.kind]} />
+      ))}
     </Svg>
   );
 }
