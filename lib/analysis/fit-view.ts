@@ -122,7 +122,11 @@ function fitLabel(f: ListedFit, phaseOf: ReadonlyMap<string, Phase>) {
  * What the 3D view draws of the shown fit: its errors, every step-th pose with its residual, its
  * label, and the other phase's fit (errors and label) drawn over the same poses, if there is one.
  */
-export function headViewInput(shown: ShownFit, other: ListedFit | undefined, phaseOf: ReadonlyMap<string, Phase>) {
+export function headViewInput(
+  shown: ShownFit,
+  other: ListedFit | undefined,
+  phaseOf: ReadonlyMap<string, Phase>,
+) {
   const p = shown.analysis.result.poses;
   const { step, indices } = thinPoses(p.row.length);
   const poses: HeadPose[] = indices.map((i) => ({
