@@ -13,13 +13,6 @@ function fmt(v: number | null, unit: string, signed = false): string {
   return signed && v >= 0 ? `+${s}` : s.replace("-", "−");
 }
 
-export const RULE_TEXT = {
-  simple:
-    "Simple acceptance: a value inside its limits passes and outside fails; the expanded uncertainty U is shown, not subtracted.",
-  guarded:
-    "Per ISO 14253-1, a feature passes only inside its limits shrunk by U, fails only outside its limits grown by U, and is undecided between — there neither conformance nor non-conformance is proven.",
-} as const;
-
 /** Each feature's nominal, measured, limits, deviation, U and decision, with the totals. */
 export function EvaluationTable({ result }: { result: TestPartResult }) {
   const { totals } = result;

@@ -1,6 +1,7 @@
 import { Table } from "@/components/ui/table";
 import { DecisionBadge } from "@/components/readings/decision-badge";
 import type { ParameterRow } from "@/lib/fit-display";
+import { DECISION_RULE_MEANINGS } from "@/lib/domain/decisions";
 
 /**
  * The fitted parameters: ISO 230-1 symbol, words, value, expanded uncertainty, the job's limit and
@@ -47,7 +48,7 @@ export function ParameterTable({
       />
       <p className="mt-3 text-xs text-graphite-600">
         {anyLimit
-          ? "Limits come from the job's procedure version. Simple acceptance: pass inside the limits, U shown but not subtracted. Guarded acceptance (ISO 14253-1): pass only inside the limits narrowed by U, fail only outside them widened by U, undecided between."
+          ? `Limits come from the job's procedure version. ${DECISION_RULE_MEANINGS.simple} ${DECISION_RULE_MEANINGS.guarded}`
           : "The job's procedure sets no limits for the head parameters: the values are recorded, not judged."}
         {sources.length ? ` Source of the limits: ${sources.join("; ")}.` : ""}
       </p>

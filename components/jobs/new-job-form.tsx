@@ -13,6 +13,7 @@ import {
   type Option,
 } from "@/components/ui/field";
 import { Form } from "@/components/ui/form";
+import { DECISION_RULE_LABELS, DECISION_RULES } from "@/lib/domain/decisions";
 import { JOB_KIND_LABELS, JOB_KINDS, type JobKind } from "@/lib/domain/jobs";
 import { procedureApplies } from "@/lib/policy/jobs";
 import { jobOpenSchema } from "@/lib/validations/jobs";
@@ -38,10 +39,7 @@ export interface NewJobChoicesProps {
   installers: { id: string; name: string }[];
 }
 
-const RULES: Option[] = [
-  { value: "simple", label: "Simple acceptance" },
-  { value: "guarded", label: "Guarded acceptance (ISO 14253-1)" },
-];
+const RULES = closedSetOptions(DECISION_RULES, DECISION_RULE_LABELS);
 const KINDS: Option[] = closedSetOptions(JOB_KINDS, JOB_KIND_LABELS);
 
 const noChange = () => () => {};

@@ -18,6 +18,7 @@ import {
   TextField,
   type Option,
 } from "@/components/ui/field";
+import { DECISION_RULE_LABELS, DECISION_RULES } from "@/lib/domain/decisions";
 import { STEP_KIND_LABELS, STEP_KINDS } from "@/lib/domain/procedures";
 
 const UNIT_OPTIONS: readonly Option[] = [
@@ -26,10 +27,7 @@ const UNIT_OPTIONS: readonly Option[] = [
   { value: "in", label: "in" },
   { value: "arcsec", label: "″ (arc seconds)" },
 ];
-const RULE_OPTIONS: readonly Option[] = [
-  { value: "simple", label: "Simple acceptance (uncertainty shown)" },
-  { value: "guarded", label: "Guarded acceptance (ISO 14253-1)" },
-];
+const RULE_OPTIONS = closedSetOptions(DECISION_RULES, DECISION_RULE_LABELS);
 const STEP_KIND_OPTIONS = closedSetOptions(STEP_KINDS, STEP_KIND_LABELS);
 
 const MEASURED = new Set(["direct", "angle_over_distance", "sweep_flatness", "multi_point"]);

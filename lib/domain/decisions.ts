@@ -4,10 +4,23 @@
  * decisions (nothing measured, or a value kept without a limit).
  */
 import type { Decision, DecisionRule } from "@/geometry/decision";
+import { closedSet } from "./closed-set";
 
 export type { Decision, DecisionRule };
 
-export const DECISION_RULES = ["simple", "guarded"] as const satisfies readonly DecisionRule[];
+/** The decision rules a job or a limit is judged by (ISO 14253-1), with their names. */
+export const { values: DECISION_RULES, labels: DECISION_RULE_LABELS } = closedSet({
+  simple: "Simple acceptance",
+  guarded: "Guarded acceptance (ISO 14253-1)",
+} satisfies Record<DecisionRule, string>);
+
+/** What each rule decides, in one sentence, wherever a page explains the rule it judged by. */
+export const DECISION_RULE_MEANINGS: Readonly<Record<DecisionRule, string>> = {
+  simple:
+    "Simple acceptance: a value inside its limits passes and outside fails; the expanded uncertainty U is shown, not subtracted.",
+  guarded:
+    "Guarded acceptance (ISO 14253-1): a value passes only inside its limits narrowed by U, fails only outside them widened by U, and is undecided between, where neither conformance nor non-conformance is proven.",
+};
 
 /** A report line's outcome: a decision, nothing measured, or a reading kept without a limit. */
 export type RecordedDecision = Decision | "not_measured" | "recorded";

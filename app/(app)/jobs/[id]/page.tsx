@@ -10,6 +10,7 @@ import { getJobDetail } from "@/db/queries/jobs";
 import { getJobConformity } from "@/db/queries/reports";
 import { headHistoryRefusal } from "@/lib/policy/heads";
 import { requirePageUser } from "@/lib/auth/session";
+import { DECISION_RULE_MEANINGS } from "@/lib/domain/decisions";
 import { formatDateTimeUtc } from "@/lib/format";
 import { JobRecordCard, jobOfficeControls } from "@/components/jobs/job-record-card";
 import { listActiveInstallers } from "@/db/queries/users-admin";
@@ -17,13 +18,6 @@ import { listActiveInstallers } from "@/db/queries/users-admin";
 type Props = { params: Promise<{ id: string }> };
 
 export const metadata: Metadata = { title: "Job" };
-
-const DECISION_RULES = {
-  simple:
-    "Simple acceptance: a value inside its limits passes; the expanded uncertainty is shown, not subtracted.",
-  guarded:
-    "Guarded acceptance (ISO 14253-1): pass only inside the limits shrunk by U, fail only outside the limits grown by U, undecided between.",
-} as const;
 
 export default async function JobPage({ params }: Props) {
   const { id } = await params;
@@ -90,7 +84,7 @@ export default async function JobPage({ params }: Props) {
                 value: job.airTempC != null ? `${job.airTempC.toFixed(1)} °C` : "Not recorded",
                 mono: true,
               },
-              { label: "Decision rule", value: DECISION_RULES[job.decisionRule] },
+              { label: "Decision rule", value: DECISION_RULE_MEANINGS[job.decisionRule] },
               { label: "Last change", value: formatDateTimeUtc(job.updatedAt) },
             ]}
           />

@@ -2,7 +2,8 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { DeleteDatasetButton } from "@/components/datasets/delete-button";
-import { EvaluationTable, RULE_TEXT } from "@/components/datasets/evaluation-table";
+import { EvaluationTable } from "@/components/datasets/evaluation-table";
+import { DECISION_RULE_MEANINGS } from "@/lib/domain/decisions";
 import { KIND_LABELS, PHASE_LABELS } from "@/components/datasets/kinds";
 import { Table } from "@/components/ui/table";
 import { Card, Facts } from "@/components/ui/card";
@@ -131,7 +132,7 @@ export default async function DatasetPage({ params, searchParams }: Props) {
               Decision rule of this job —{" "}
               {detail.job.decisionRule === "guarded" ? "guarded acceptance" : "simple acceptance"}.
             </span>{" "}
-            {RULE_TEXT[detail.job.decisionRule]}
+            {DECISION_RULE_MEANINGS[detail.job.decisionRule]}
           </p>
           {evaluation.warnings.length > 0 ? (
             <p className="text-sm text-accent-800">{evaluation.warnings.join(" ")}</p>
