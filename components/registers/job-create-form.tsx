@@ -1,22 +1,22 @@
 "use client";
 
-import { createJobAction } from "@/app/(app)/registers/actions";
-import { optionsOf, SelectField, TextField } from "@/components/ui/field";
+import { openJobAction } from "@/app/(app)/jobs/actions";
+import { closedSetOptions, optionsOf, SelectField, TextField } from "@/components/ui/field";
 import { Form } from "@/components/ui/form";
+import { DECISION_RULE_LABELS, DECISION_RULES } from "@/lib/domain/decisions";
+import { JOB_KIND_LABELS, JOB_KINDS } from "@/lib/domain/jobs";
+import { jobOpenSchema } from "@/lib/validations/jobs";
 
 type Opt = { id: string; label: string };
 
-const KINDS = [
-  { value: "installation", label: "Installation" },
-  { value: "reverification", label: "Re-verification" },
-  { value: "after_crash", label: "Check after a crash" },
-];
-const RULES = [
-  { value: "simple", label: "Simple acceptance" },
-  { value: "guarded", label: "Guarded acceptance (ISO 14253-1)" },
-];
+const KINDS = closedSetOptions(JOB_KINDS, JOB_KIND_LABELS);
+const RULES = closedSetOptions(DECISION_RULES, DECISION_RULE_LABELS);
 
-/** Opens a job from the current version of a procedure; the job keeps that version. */
+/**
+ * Opens a job from the current version of a procedure; the job keeps that version. A shortcut to
+ * the jobs list's "New job": the same action and the same checks (the procedure fits the kind and
+ * the head's model, the head is not mounted on another machine).
+ */
 export function JobCreateForm({
   templateId,
   machines,
@@ -30,7 +30,8 @@ export function JobCreateForm({
 }) {
   return (
     <Form
-      action={createJobAction}
+      action={openJobAction}
+      schema={jobOpenSchema}
       submitLabel="Open the job"
       successMessage="Job opened as a draft; it is on the jobs list."
     >

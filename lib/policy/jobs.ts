@@ -54,11 +54,6 @@ export function jobCreateRefusal(actor: Actor): string | null {
     : "Jobs are opened by the office (administrator or engineer).";
 }
 
-/** The registers' "open a job" form is the administrator's. */
-export function jobOpenFormRefusal(actor: Actor): string | null {
-  return actor.role === "admin" ? null : "Jobs are opened from the registers by the administrator.";
-}
-
 /**
  * The status flow: draft → measuring → in review → approved → issued → accepted | rejected,
  * with "send back" from review to measuring. Who may make each move.

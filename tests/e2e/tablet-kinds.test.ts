@@ -34,10 +34,21 @@ describe("every kind of step on the tablet", () => {
       .filter({ has: admin.getByRole("button", { name: "Open the job" }) });
     await form.getByLabel("Title", { exact: true }).fill(TITLE);
     await form.getByLabel("Host machine").selectOption({ index: 1 });
-    await form.getByLabel("Head", { exact: true }).selectOption({ index: 1 });
+    const machine = (await form.getByLabel("Host machine").locator("option:checked").innerText()).split(
+      " — ",
+    )[0]!;
+    const head = form.getByLabel("Head", { exact: true });
+    const heads = (await head.locator("option").allInnerTexts()).map((t) => t.trim());
+    const mountedHere = heads.find((t) => t.endsWith(` on ${machine}`))!;
+    const mountedElsewhere = heads.find((t) => t.includes(" on ") && !t.endsWith(` on ${machine}`))!;
     await form.getByLabel("Kind", { exact: true }).selectOption("after_crash");
     // The demo installer (invented name in the seed).
     await form.getByLabel("Installer", { exact: true }).selectOption({ label: "Iver Sandvik" });
+    // A head mounted on another machine is refused with the reason, as on "New job"; nothing is opened.
+    await head.selectOption({ label: mountedElsewhere });
+    await form.getByRole("button", { name: "Open the job" }).click();
+    await expect.poll(() => form.innerText()).toMatch(/mounted on another machine/);
+    await head.selectOption({ label: mountedHere });
     await form.getByRole("button", { name: "Open the job" }).click();
     await expect
       .poll(

@@ -303,7 +303,6 @@ for (const name of [
   "createInstrumentAction",
   "inviteUserAction",
   "updateUserAction",
-  "createJobAction",
   "mountHeadAction",
   "createCustomerAction",
   "createSiteAction",

@@ -7,7 +7,6 @@ import { datasetDeleteRefusal, uploadRefusal } from "@/lib/policy/datasets";
 import {
   allowedTransitions,
   jobCreateRefusal,
-  jobOpenFormRefusal,
   jobRefusal,
   jobScope,
   transitionRefusal,
@@ -291,10 +290,5 @@ describe("the rules server actions check before anything else", () => {
     expect(reportResponderRefusal(actor("customer", null))).toMatch(/customer's own users/);
     for (const r of ["admin", "installer", "inspector", "engineer"] as const)
       expect(reportResponderRefusal(actor(r))).toMatch(/customer's own users/);
-  });
-  it("the registers' job form is the administrator's", () => {
-    expect(jobOpenFormRefusal(actor("admin"))).toBeNull();
-    for (const r of ["installer", "inspector", "engineer", "customer"] as const)
-      expect(jobOpenFormRefusal(actor(r))).toMatch(/administrator/);
   });
 });

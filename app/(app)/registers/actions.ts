@@ -3,7 +3,6 @@
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { createInstrument, recordCalibration, updateInstrument } from "@/db/queries/instruments";
-import { createJobFromTemplate } from "@/db/queries/job-status";
 import { mountHead } from "@/db/queries/heads-admin";
 import {
   createCustomer,
@@ -18,9 +17,6 @@ import {
 import { inviteUser, updateUser } from "@/db/queries/users-admin";
 import { action } from "@/lib/actions";
 import type { Actor } from "@/lib/domain/roles";
-import { DECISION_RULES } from "@/lib/domain/decisions";
-import { JOB_KINDS } from "@/lib/domain/jobs";
-import { jobOpenFormRefusal } from "@/lib/policy/jobs";
 import { registerEditRefusal, type Register } from "@/lib/policy/registers";
 import { notFound } from "@/lib/errors";
 import {
@@ -61,25 +57,6 @@ export const updateUserAction = action(
     const r = await updateUser(actor, input);
     revalidatePath("/registers/people");
     return r;
-  },
-);
-
-const jobCreateSchema = z.object({
-  templateId: zUuid("Choose a procedure."),
-  machineId: zUuid("Choose a host machine."),
-  headId: zUuid("Choose a head."),
-  kind: z.enum(JOB_KINDS),
-  title: z.string().trim().min(3, "Give the job a title.").max(200),
-  assignedInstallerId: z.preprocess((v) => (v === "" ? undefined : v), zUuid().optional()),
-  decisionRule: z.enum(DECISION_RULES),
-});
-
-export const createJobAction = action(
-  { schema: jobCreateSchema, refusal: jobOpenFormRefusal },
-  async (input, actor) => {
-    const job = await createJobFromTemplate(actor, input);
-    revalidatePath("/jobs");
-    return { id: job.id, reference: job.reference };
   },
 );
 
