@@ -33,7 +33,7 @@ import { CONTROL_VALUE_STAGES, type ControlValueSet } from "../lib/domain/contro
 import { AXIS_LETTERS } from "../lib/domain/heads";
 import { HEAD_AXIS_ROLES } from "../lib/domain/positioning";
 import { JOB_KINDS, JOB_STATUSES } from "../lib/domain/jobs";
-import { MULTI_POINT_RESULTS, STEP_KINDS } from "../lib/domain/procedures";
+import { LIMIT_SOURCES, MULTI_POINT_RESULTS, STEP_KINDS } from "../lib/domain/procedures";
 import { ROLES } from "../lib/domain/roles";
 import { SIGNATURE_MEANINGS } from "../lib/domain/signatures";
 
@@ -77,12 +77,7 @@ export const quantityKindEnum = pgEnum("quantity_kind", ["length", "angle"]);
 /** How a step's value is obtained: read directly, or derived by geometry/ from the inputs. */
 export const stepDerivationEnum = pgEnum("step_derivation", STEP_KINDS);
 export const multiPointResultEnum = pgEnum("multi_point_result", MULTI_POINT_RESULTS);
-export const limitSourceEnum = pgEnum("limit_source", [
-  "standard",
-  "maker_manual",
-  "common_practice",
-  "customer_spec",
-]);
+export const limitSourceEnum = pgEnum("limit_source", LIMIT_SOURCES);
 export const datasetKindEnum = pgEnum("dataset_kind", DATASET_KINDS);
 export const datasetStatusEnum = pgEnum("dataset_status", DATASET_STATUSES);
 export const outboxStatusEnum = pgEnum("outbox_status", ["pending", "sent", "failed"]);

@@ -8,6 +8,7 @@ import { headAxes, type AxisLetter, type HeadConfig, type HeadParameterKey } fro
 import type { HeadFitJson } from "@/geometry";
 import type { DecisionRule } from "@/geometry/decision";
 import { judge, type StepDecision } from "@/lib/checklist";
+import { LIMIT_SOURCE_LABELS, type LimitSource } from "@/lib/domain/procedures";
 import { signed } from "@/lib/numbers";
 
 export const PARAMETER_WORDS: Record<HeadParameterKey, string> = {
@@ -55,20 +56,13 @@ export interface ParameterLimit {
   readonly lowerLimit: number | null;
   readonly upperLimit: number | null;
   readonly decisionRule: DecisionRule;
-  readonly limitSource: "standard" | "maker_manual" | "common_practice" | "customer_spec";
+  readonly limitSource: LimitSource;
   readonly limitSourceNote: string | null;
 }
 
-export const LIMIT_SOURCE_WORDS: Record<ParameterLimit["limitSource"], string> = {
-  standard: "Standard",
-  maker_manual: "Maker's manual",
-  common_practice: "Common practice",
-  customer_spec: "Customer specification",
-};
-
 /** Where a limit comes from, in the printed words, with its note: "Standard: ISO 230-1". One wording for every section. */
 export function limitSourceWords(source: string, note: string | null | undefined): string {
-  const words = LIMIT_SOURCE_WORDS[source as keyof typeof LIMIT_SOURCE_WORDS] ?? source.replace("_", " ");
+  const words = LIMIT_SOURCE_LABELS[source as LimitSource] ?? source.replace("_", " ");
   return `${words}${note ? `: ${note}` : ""}`;
 }
 

@@ -8,7 +8,15 @@
  * Checked by the same schema as the API (lib/validations/procedures.ts).
  */
 import { useFormContext, useWatch } from "react-hook-form";
-import { Field, FieldError, inputClass, TextField } from "@/components/ui/field";
+import {
+  closedSetOptions,
+  Field,
+  FieldError,
+  inputClass,
+  OptionList,
+  TextField,
+} from "@/components/ui/field";
+import { DECISION_RULE_WORDS, DECISION_RULES } from "@/lib/domain/decisions";
 import {
   type BuilderHeadJudging,
   type BuilderParameterLimit,
@@ -98,8 +106,7 @@ export function HeadJudgingFields({ headAxes = [] }: { headAxes?: readonly HeadM
                     className={`${inputClass} text-sm`}
                     {...form.register(at("decisionRule"))}
                   >
-                    <option value="simple">Simple</option>
-                    <option value="guarded">Guarded</option>
+                    <OptionList options={closedSetOptions(DECISION_RULES, DECISION_RULE_WORDS)} />
                   </select>
                 </td>
                 <SourceCells words={words} source={at("limitSource")} note={at("limitSourceNote")} />

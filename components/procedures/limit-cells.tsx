@@ -3,7 +3,7 @@
 /** The cells the builder's limits tables share: a source choice, a compact table, source and note. */
 import { useFormContext } from "react-hook-form";
 import { closedSetOptions, inputClass, OptionList } from "@/components/ui/field";
-import { LIMIT_SOURCE_LABELS, LIMIT_SOURCES } from "@/lib/validations/procedures";
+import { LIMIT_SOURCE_LABELS, LIMIT_SOURCES } from "@/lib/domain/procedures";
 
 const SOURCE_OPTIONS = closedSetOptions(LIMIT_SOURCES, LIMIT_SOURCE_LABELS);
 

@@ -56,10 +56,3 @@ export function DecisionBadge({
     </IconBadge>
   );
 }
-
-export const LIMIT_SOURCE_LABELS = {
-  standard: "Standard",
-  maker_manual: "Maker's manual (as entered)",
-  common_practice: "Common practice",
-  customer_spec: "Customer specification",
-} as const;

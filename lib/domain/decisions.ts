@@ -14,6 +14,12 @@ export const { values: DECISION_RULES, labels: DECISION_RULE_LABELS } = closedSe
   guarded: "Guarded acceptance (ISO 14253-1)",
 } satisfies Record<DecisionRule, string>);
 
+/** A rule in one word, where a table column or a select in a table row has no room for its name. */
+export const DECISION_RULE_WORDS: Readonly<Record<DecisionRule, string>> = {
+  simple: "Simple",
+  guarded: "Guarded",
+};
+
 /** What each rule decides, in one sentence, wherever a page explains the rule it judged by. */
 export const DECISION_RULE_MEANINGS: Readonly<Record<DecisionRule, string>> = {
   simple:

@@ -54,3 +54,16 @@ export type MultiPointResult = (typeof MULTI_POINT_RESULTS)[number];
 /** The usual point sets a procedure offers (clock positions seen from the operator's side). */
 export const CLOCK_POINTS_4 = ["12", "3", "6", "9"] as const;
 export const CLOCK_POINTS_8 = ["12", "1:30", "3", "4:30", "6", "7:30", "9", "10:30"] as const;
+
+/**
+ * Where a limit comes from, in the database enum's order, with the words every page, form and the
+ * report print ("Limit: Maker's manual: HC-40 manual §4.2"). The note beside it names the clause,
+ * the document or why a figure is common practice.
+ */
+export const { values: LIMIT_SOURCES, labels: LIMIT_SOURCE_LABELS } = closedSet({
+  standard: "Standard",
+  maker_manual: "Maker's manual",
+  common_practice: "Common practice",
+  customer_spec: "Customer specification",
+});
+export type LimitSource = (typeof LIMIT_SOURCES)[number];

@@ -6,9 +6,15 @@
  * error names the same field (`steps.3.upper`) everywhere.
  */
 import { z } from "zod";
-import { closedSet } from "@/lib/domain/closed-set";
 import { JOB_KINDS, type JobKind } from "@/lib/domain/jobs";
-import { JUDGED_STEP_KINDS, MULTI_POINT_RESULTS, STEP_KINDS, type StepKind } from "@/lib/domain/procedures";
+import {
+  JUDGED_STEP_KINDS,
+  LIMIT_SOURCES,
+  MULTI_POINT_RESULTS,
+  STEP_KINDS,
+  type LimitSource,
+  type StepKind,
+} from "@/lib/domain/procedures";
 import { fromCanonical, toCanonical, unitKind, type EntryUnit } from "@/lib/units";
 import { HEAD_PARAMETER_KEYS, type HeadParameterKey } from "@/geometry/head/config";
 import {
@@ -19,13 +25,6 @@ import {
 } from "@/lib/domain/positioning";
 
 export const LIMIT_UNITS = ["mm", "um", "in", "arcsec"] as const satisfies readonly EntryUnit[];
-export const { values: LIMIT_SOURCES, labels: LIMIT_SOURCE_LABELS } = closedSet({
-  standard: "Standard and clause",
-  maker_manual: "Maker's figure",
-  customer_spec: "Customer specification",
-  common_practice: "Common practice, no published source",
-});
-export type LimitSource = (typeof LIMIT_SOURCES)[number];
 
 /** The API's step kinds: ours, plus "reading" as the plain word for a single reading. */
 const API_STEP_KINDS = [...STEP_KINDS, "reading"] as const;

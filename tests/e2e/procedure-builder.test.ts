@@ -100,7 +100,7 @@ describe("procedure builder (administrator)", () => {
     await expect.poll(() => rows.count()).toBe(3);
     expect(await rows.nth(0).innerText()).toMatch(/Collar run-out[\s\S]*12 · 3 · 6 · 9[\s\S]*≤ 0.0005 in/);
     expect(await rows.nth(1).innerText()).toMatch(/Shims under the collar[\s\S]*photo/);
-    expect(await rows.nth(2).innerText()).toMatch(/Motor plate on its dowels[\s\S]*Maker's figure/);
+    expect(await rows.nth(2).innerText()).toMatch(/Motor plate on its dowels[\s\S]*Maker's manual/);
     expect(await p.getByText("0 jobs follow this version").count()).toBe(1);
     const judging = p
       .getByRole("heading", { name: "Judging the head as a whole" })
@@ -109,7 +109,7 @@ describe("procedure builder (administrator)", () => {
     await expect
       .poll(() => judging.innerText())
       .toMatch(
-        /required[\s\S]*≤ 15 µm in X, Y and Z[\s\S]*≤ 10 µm[\s\S]*Acceptance sheet 3[\s\S]*1 fitted head parameter has a limit[\s\S]*primary \(rotary\) axis A ≤ 20″ \(Standard and clause: Customer acceptance, C axis\)/,
+        /required[\s\S]*≤ 15 µm in X, Y and Z[\s\S]*≤ 10 µm[\s\S]*Acceptance sheet 3[\s\S]*1 fitted head parameter has a limit[\s\S]*primary \(rotary\) axis A ≤ 20″ \(Standard: Customer acceptance, C axis\)/,
       );
     // The builder below reads them back.
     expect(await p.getByLabel("Range of the centre in X, Y and Z, each (µm)").inputValue()).toBe("15");

@@ -11,7 +11,7 @@ import { CONTROL_VALUE_STAGES } from "@/lib/domain/control-values";
 import { DATASET_KINDS, PHASES } from "@/lib/domain/datasets";
 import { JOB_KINDS, JOB_STATUSES, STATUS_LABELS } from "@/lib/domain/jobs";
 import { HEAD_AXIS_ROLES } from "@/lib/domain/positioning";
-import { MULTI_POINT_RESULTS, STEP_KINDS } from "@/lib/domain/procedures";
+import { LIMIT_SOURCES, MULTI_POINT_RESULTS, STEP_KINDS } from "@/lib/domain/procedures";
 import { ROLES } from "@/lib/domain/roles";
 import { SIGNATURE_MEANINGS } from "@/lib/domain/signatures";
 
@@ -92,6 +92,7 @@ describe("closed sets and the database enums made from them", () => {
     ["phase", PHASES],
     ["step_derivation", STEP_KINDS],
     ["multi_point_result", MULTI_POINT_RESULTS],
+    ["limit_source", LIMIT_SOURCES],
     ["dataset_kind", DATASET_KINDS],
     ["signature_meaning", SIGNATURE_MEANINGS],
     ["head_axis_role", HEAD_AXIS_ROLES],

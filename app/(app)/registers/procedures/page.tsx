@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { LIMIT_SOURCE_LABELS } from "@/components/readings/decision-badge";
+import { LIMIT_SOURCE_LABELS } from "@/lib/domain/procedures";
 import { JobCreateForm } from "@/components/registers/job-create-form";
 import { buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
@@ -13,6 +13,7 @@ import { getUnitSystem } from "@/db/queries/user-prefs";
 import { procedureEditRefusal } from "@/lib/policy/procedures";
 import { registerEditRefusal, registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
+import { DECISION_RULE_WORDS } from "@/lib/domain/decisions";
 import { formatDateTimeUtc } from "@/lib/format";
 import { HEAD_PARAMETER_KEYS, headParameterUnit } from "@/geometry";
 import { limitText, PARAMETER_WORDS } from "@/lib/fit-display";
@@ -91,7 +92,7 @@ export default async function ProceduresPage() {
               column("Limits", (s) => formatLimits(s.lowerLimit, s.upperLimit, s.quantityKind, unitSystem), {
                 numeric: true,
               }),
-              column("Rule", (s) => (s.decisionRule === "guarded" ? "Guarded" : "Simple")),
+              column("Rule", (s) => DECISION_RULE_WORDS[s.decisionRule]),
               column("Source", (s) => LIMIT_SOURCE_LABELS[s.limitSource], {
                 cellProps: (s) => ({ title: s.limitSourceNote ?? undefined }),
               }),
@@ -120,7 +121,7 @@ export default async function ProceduresPage() {
                     numeric: true,
                   },
                 ),
-                column("Rule", (l) => (l.decisionRule === "guarded" ? "Guarded" : "Simple")),
+                column("Rule", (l) => DECISION_RULE_WORDS[l.decisionRule]),
                 column("Source", (l) => LIMIT_SOURCE_LABELS[l.limitSource], {
                   cellProps: (l) => ({ title: l.limitSourceNote ?? undefined }),
                 }),

@@ -7,7 +7,7 @@ import { StepCaution } from "@/components/checklist/step-caution";
 import { StepPanel } from "@/components/checklist/step-panel";
 import { StepAccordion, StepJumpList, StepShell, type StepLine } from "@/components/checklist/step-shell";
 import { SubmitForReview } from "@/components/checklist/submit-review";
-import { LIMIT_SOURCE_LABELS } from "@/components/readings/decision-badge";
+import { LIMIT_SOURCE_LABELS } from "@/lib/domain/procedures";
 import { KeepJobOffline } from "@/components/readings/keep-offline";
 import { ReadingQueueProvider } from "@/components/readings/queue-provider";
 import { QueueStatus } from "@/components/readings/queue-status";
