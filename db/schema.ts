@@ -27,7 +27,7 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 // Relative imports: drizzle-kit loads this file without the app's path alias.
-import { DATASET_KINDS, DATASET_STATUSES, PHASES } from "../lib/domain/datasets";
+import { ANALYSIS_KINDS, DATASET_KINDS, DATASET_STATUSES, PHASES } from "../lib/domain/datasets";
 import { DECISION_RULES } from "../lib/domain/decisions";
 import { CONTROL_VALUE_STAGES, type ControlValueSet } from "../lib/domain/control-values";
 import { AXIS_LETTERS } from "../lib/domain/heads";
@@ -35,7 +35,9 @@ import { HEAD_AXIS_ROLES } from "../lib/domain/positioning";
 import { JOB_KINDS, JOB_STATUSES } from "../lib/domain/jobs";
 import { LIMIT_SOURCES, MULTI_POINT_RESULTS, STEP_KINDS } from "../lib/domain/procedures";
 import { ROLES } from "../lib/domain/roles";
+import { OUTBOX_STATUSES } from "../lib/domain/outbox";
 import { SIGNATURE_MEANINGS } from "../lib/domain/signatures";
+import { QUANTITY_KINDS, UNIT_SYSTEMS } from "../lib/domain/units";
 
 /** Every instant is stored with its time zone (timestamptz). */
 const instant = (name: string) => timestamp(name, { withTimezone: true });
@@ -70,19 +72,19 @@ export const jobKindEnum = pgEnum("job_kind", JOB_KINDS);
 export const jobStatusEnum = pgEnum("job_status", JOB_STATUSES);
 export const axisLetterEnum = pgEnum("axis_letter", AXIS_LETTERS);
 export const decisionRuleEnum = pgEnum("decision_rule", DECISION_RULES);
-export const unitSystemEnum = pgEnum("unit_system", ["metric", "inch"]);
+export const unitSystemEnum = pgEnum("unit_system", UNIT_SYSTEMS);
 export const phaseEnum = pgEnum("phase", PHASES);
 /** What a checklist step measures; fixes the canonical unit its values are stored in. */
-export const quantityKindEnum = pgEnum("quantity_kind", ["length", "angle"]);
+export const quantityKindEnum = pgEnum("quantity_kind", QUANTITY_KINDS);
 /** How a step's value is obtained: read directly, or derived by geometry/ from the inputs. */
 export const stepDerivationEnum = pgEnum("step_derivation", STEP_KINDS);
 export const multiPointResultEnum = pgEnum("multi_point_result", MULTI_POINT_RESULTS);
 export const limitSourceEnum = pgEnum("limit_source", LIMIT_SOURCES);
 export const datasetKindEnum = pgEnum("dataset_kind", DATASET_KINDS);
 export const datasetStatusEnum = pgEnum("dataset_status", DATASET_STATUSES);
-export const outboxStatusEnum = pgEnum("outbox_status", ["pending", "sent", "failed"]);
+export const outboxStatusEnum = pgEnum("outbox_status", OUTBOX_STATUSES);
 export const signatureMeaningEnum = pgEnum("signature_meaning", SIGNATURE_MEANINGS);
-export const analysisKindEnum = pgEnum("analysis_kind", ["head_fit"]);
+export const analysisKindEnum = pgEnum("analysis_kind", ANALYSIS_KINDS);
 
 /** bytea: drizzle 0.45 has no built-in type for it. Buffers round-trip exactly. */
 export const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });

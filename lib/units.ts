@@ -6,8 +6,9 @@
  */
 import { fromMm, MM_PER_INCH, RAD_PER_ARCSEC, toMm } from "@/geometry/units";
 
-export type UnitSystem = "metric" | "inch";
-export type QuantityKind = "length" | "angle";
+import type { QuantityKind, UnitSystem } from "@/lib/domain/units";
+
+export type { QuantityKind, UnitSystem };
 export type EntryUnit = "mm" | "in" | "um" | "arcsec";
 
 export const CANONICAL_UNIT: Record<QuantityKind, "mm" | "arcsec"> = { length: "mm", angle: "arcsec" };

@@ -4,6 +4,7 @@ import { useState, useTransition } from "react";
 import { useRouter } from "next/navigation";
 import { changeStatusAction, setUnitSystemAction } from "@/app/(app)/jobs/[id]/checklist/actions";
 import type { JobStatus } from "@/lib/domain/jobs";
+import { UNIT_SYSTEM_LABELS, type UnitSystem } from "@/lib/domain/units";
 
 /** Status moves this user may make from the checklist (checked again on the server). */
 export function StatusButtons({
@@ -47,7 +48,7 @@ export function StatusButtons({
 }
 
 /** Inch or metric for this user; only the display changes, stored values stay canonical. */
-export function UnitToggle({ current, path }: { current: "metric" | "inch"; path: string }) {
+export function UnitToggle({ current, path }: { current: UnitSystem; path: string }) {
   const router = useRouter();
   const [pending, start] = useTransition();
   return (
@@ -70,7 +71,7 @@ export function UnitToggle({ current, path }: { current: "metric" | "inch"; path
           }
           className={`min-h-touch rounded px-4 text-sm font-medium ${current === u ? "bg-graphite-900 text-white" : "text-graphite-700 hover:bg-graphite-100"}`}
         >
-          {u === "inch" ? "Inch" : "Metric"}
+          {UNIT_SYSTEM_LABELS[u]}
         </button>
       ))}
     </div>

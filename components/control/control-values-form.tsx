@@ -1,7 +1,8 @@
 "use client";
 
 import { recordControlValuesAction } from "@/app/(app)/jobs/[id]/control/actions";
-import { SelectField, TextField } from "@/components/ui/field";
+import { closedSetOptions, SelectField, TextField } from "@/components/ui/field";
+import { UNIT_SYSTEM_LABELS, UNIT_SYSTEMS } from "@/lib/domain/units";
 import { Form } from "@/components/ui/form";
 import {
   CONTROL_VALUE_DEFS,
@@ -49,10 +50,7 @@ export function ControlValuesForm({
           label="The control works in"
           hint="Lengths are typed in these units; angles always in degrees."
           defaultValue={unitSystem}
-          options={[
-            { value: "metric", label: "Millimetres" },
-            { value: "inch", label: "Inch" },
-          ]}
+          options={closedSetOptions(UNIT_SYSTEMS, UNIT_SYSTEM_LABELS)}
         />
       )}
       <div className="grid gap-x-4 sm:grid-cols-2">

@@ -1,11 +1,10 @@
 "use client";
 
 import { AddForm } from "@/components/registers/add-form";
+import { closedSetOptions } from "@/components/ui/field";
+import { QUANTITY_KIND_LABELS, QUANTITY_KINDS } from "@/lib/domain/units";
 
-const QUANTITIES = [
-  { value: "length", label: "Length" },
-  { value: "angle", label: "Angle" },
-];
+const QUANTITIES = closedSetOptions(QUANTITY_KINDS, QUANTITY_KIND_LABELS);
 const UNITS = [
   { value: "mm", label: "mm" },
   { value: "in", label: "in" },

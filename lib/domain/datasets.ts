@@ -11,6 +11,9 @@ export const { values: DATASET_KINDS, labels: DATASET_KIND_LABELS } = closedSet(
 });
 export type DatasetKind = (typeof DATASET_KINDS)[number];
 
+/** What a stored analysis is: today only the head fit of a sphere-probe dataset. */
+export const { values: ANALYSIS_KINDS, labels: ANALYSIS_KIND_LABELS } = closedSet({ head_fit: "Head fit" });
+
 /** The CSV format each kind is read with: a TCP check is sphere-probe data (geometry/README.md). */
 export const CSV_FORMAT_OF = {
   sphere_probe: "sphere_probe",

@@ -2,6 +2,7 @@
 import { z } from "zod";
 import { AXIS_LETTERS } from "@/lib/domain/heads";
 import { ROLES } from "@/lib/domain/roles";
+import { QUANTITY_KINDS } from "@/lib/domain/units";
 import { zUuid } from "@/lib/domain/uuid";
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use a date like 2027-03-31.");
@@ -15,7 +16,7 @@ const instrumentFields = z.object({
   kind: z.string().trim().min(2, "Say what kind of instrument it is.").max(120),
   serial: z.string().trim().min(1, "The serial is required.").max(80),
   maker: z.string().trim().max(120).optional(),
-  quantityKind: z.enum(["length", "angle"]),
+  quantityKind: z.enum(QUANTITY_KINDS),
   /** In the unit below; stored canonically (mm or arcsec). */
   resolution: z.coerce.number({ message: "Enter a number." }).positive("The resolution must be positive."),
   standardUncertainty: z.coerce

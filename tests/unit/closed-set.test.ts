@@ -8,12 +8,16 @@ import { z } from "zod";
 import { describe, expect, it } from "vitest";
 import { closedSet } from "@/lib/domain/closed-set";
 import { CONTROL_VALUE_STAGES } from "@/lib/domain/control-values";
-import { DATASET_KINDS, PHASES } from "@/lib/domain/datasets";
+import { ANALYSIS_KINDS, DATASET_KINDS, DATASET_STATUSES, PHASES } from "@/lib/domain/datasets";
+import { DECISION_RULES } from "@/lib/domain/decisions";
+import { AXIS_LETTERS } from "@/lib/domain/heads";
 import { JOB_KINDS, JOB_STATUSES, STATUS_LABELS } from "@/lib/domain/jobs";
 import { HEAD_AXIS_ROLES } from "@/lib/domain/positioning";
 import { LIMIT_SOURCES, MULTI_POINT_RESULTS, STEP_KINDS } from "@/lib/domain/procedures";
 import { ROLES } from "@/lib/domain/roles";
+import { OUTBOX_STATUSES } from "@/lib/domain/outbox";
 import { SIGNATURE_MEANINGS } from "@/lib/domain/signatures";
+import { QUANTITY_KINDS, UNIT_SYSTEMS } from "@/lib/domain/units";
 
 describe("closedSet", () => {
   it("gives the keys in the order written and the map itself as the labels", () => {
@@ -83,21 +87,38 @@ function enumsFromMigrations(): Map<string, string[]> {
   return enums;
 }
 
+const DATABASE_ENUMS = [
+  ["role", ROLES],
+  ["job_kind", JOB_KINDS],
+  ["job_status", JOB_STATUSES],
+  ["phase", PHASES],
+  ["step_derivation", STEP_KINDS],
+  ["multi_point_result", MULTI_POINT_RESULTS],
+  ["limit_source", LIMIT_SOURCES],
+  ["unit_system", UNIT_SYSTEMS],
+  ["quantity_kind", QUANTITY_KINDS],
+  ["outbox_status", OUTBOX_STATUSES],
+  ["analysis_kind", ANALYSIS_KINDS],
+  ["dataset_kind", DATASET_KINDS],
+  ["signature_meaning", SIGNATURE_MEANINGS],
+  ["head_axis_role", HEAD_AXIS_ROLES],
+  ["control_value_stage", CONTROL_VALUE_STAGES],
+  ["decision_rule", DECISION_RULES],
+  ["axis_letter", AXIS_LETTERS],
+  ["dataset_status", DATASET_STATUSES],
+] as const;
+
 describe("closed sets and the database enums made from them", () => {
   const enums = enumsFromMigrations();
-  it.each([
-    ["role", ROLES],
-    ["job_kind", JOB_KINDS],
-    ["job_status", JOB_STATUSES],
-    ["phase", PHASES],
-    ["step_derivation", STEP_KINDS],
-    ["multi_point_result", MULTI_POINT_RESULTS],
-    ["limit_source", LIMIT_SOURCES],
-    ["dataset_kind", DATASET_KINDS],
-    ["signature_meaning", SIGNATURE_MEANINGS],
-    ["head_axis_role", HEAD_AXIS_ROLES],
-    ["control_value_stage", CONTROL_VALUE_STAGES],
-  ] as const)("%s holds the set's values in the set's order", (name, values) => {
+  it.each(DATABASE_ENUMS)("%s holds the set's values in the set's order", (name, values) => {
     expect(enums.get(name)).toEqual([...values]);
+  });
+  it("checks every enum the migrations made", () => {
+    expect([...enums.keys()].sort()).toEqual(DATABASE_ENUMS.map(([name]) => name).sort());
+  });
+  it("builds every enum of db/schema.ts from a set in lib/domain, never from a list written there", () => {
+    const schema = readFileSync(path.join(process.cwd(), "db/schema.ts"), "utf8");
+    expect([...schema.matchAll(/pgEnum\("(\w+)",\s*\[/g)].map((m) => m[1])).toEqual([]);
+    expect(schema.match(/pgEnum\(/g)).toHaveLength(DATABASE_ENUMS.length);
   });
 });

@@ -4,11 +4,10 @@ import { notFound } from "next/navigation";
 import { listOutbox } from "@/db/queries/outbox";
 import { registerReadRefusal } from "@/lib/policy/registers";
 import { requirePageUser } from "@/lib/auth/session";
+import { OUTBOX_STATUS_LABELS } from "@/lib/domain/outbox";
 import { formatDateTimeUtc } from "@/lib/format";
 
 export const metadata: Metadata = { title: "Outbox" };
-
-const STATE = { pending: "Waiting to send", sent: "Sent", failed: "Gave up" } as const;
 
 /** The dev inbox: every e-mail the app has queued, with its delivery state. */
 export default async function OutboxPage() {
@@ -33,7 +32,7 @@ export default async function OutboxPage() {
                 <span
                   className={`ml-auto rounded-full px-2.5 py-0.5 text-xs font-medium ring-1 ring-inset ${m.status === "sent" ? "bg-pass-50 text-pass-700 ring-pass-600/40" : m.status === "failed" ? "bg-fail-50 text-fail-700 ring-fail-600/40" : "bg-accent-50 text-accent-800 ring-accent-300"}`}
                 >
-                  {STATE[m.status]}
+                  {OUTBOX_STATUS_LABELS[m.status]}
                 </span>
               </summary>
               <dl className="mt-3 grid grid-cols-[10rem_1fr] gap-x-4 gap-y-1 text-sm">
