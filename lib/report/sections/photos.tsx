@@ -1,6 +1,6 @@
 /** The report's appendix of photos in the PDF (its rows: photo-rows.ts). */
 import { Text, View } from "@react-pdf/renderer";
-import { pdfSectionStyles } from "../pdf-styles";
+import { pdfColours, pdfSectionStyles } from "../pdf-styles";
 import { PHOTO_APPENDIX_TITLE, photoLine, type PhotoAppendixRow } from "./photo-rows";
 
 /** The appendix in the PDF; nothing when no step asks for a photo. */
@@ -14,7 +14,7 @@ export function PhotoAppendix({ rows }: { rows: readonly PhotoAppendixRow[] | un
       {rows.map((r, i) => (
         <View key={i} wrap={false} style={{ marginBottom: 3 }}>
           <Text>• {photoLine(r)}</Text>
-          <Text style={{ fontSize: 6.5, color: "#555" }}>SHA-256 {r.sha256}</Text>
+          <Text style={{ fontSize: 6.5, color: pdfColours.muted }}>SHA-256 {r.sha256}</Text>
         </View>
       ))}
     </View>
