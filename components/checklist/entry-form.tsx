@@ -3,7 +3,8 @@
 import type { UseFormReturn } from "react-hook-form";
 import type { EntryValues } from "@/lib/reading-entry";
 import { LiveResult } from "@/components/checklist/live-result";
-import { PHASE_LABELS, type CorrectionTarget } from "@/components/checklist/readings-table";
+import type { CorrectionTarget } from "@/components/checklist/readings-table";
+import { PHASE_LABELS } from "@/lib/domain/datasets";
 import { UNIT_SYMBOL, type EntryUnit, type UnitSystem } from "@/lib/units";
 import type { PanelStep } from "@/components/checklist/step-panel";
 import { NoteInput, PointGrid, RecordInputs, YesNo } from "@/components/checklist/kind-inputs";

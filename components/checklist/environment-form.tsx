@@ -1,7 +1,8 @@
 "use client";
 
 import { useState } from "react";
-import { PHASE_LABELS } from "@/components/checklist/readings-table";
+import { closedSetOptions, OptionList } from "@/components/ui/field";
+import { PHASE_LABELS, PHASES, type Phase } from "@/lib/domain/datasets";
 import { LocalTime } from "@/components/readings/local-time";
 import { useReadingQueue } from "@/components/readings/queue-provider";
 import { newClientId } from "@/lib/readings-sync";
@@ -134,10 +135,9 @@ export function EnvironmentPanel({
             <select
               className={`${fieldCls} mt-1`}
               value={phase}
-              onChange={(e) => setPhase(e.target.value as "pre" | "post")}
+              onChange={(e) => setPhase(e.target.value as Phase)}
             >
-              <option value="pre">{PHASE_LABELS.pre}</option>
-              <option value="post">{PHASE_LABELS.post}</option>
+              <OptionList options={closedSetOptions(PHASES, PHASE_LABELS)} />
             </select>
           </label>
           <button

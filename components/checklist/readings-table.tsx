@@ -7,8 +7,7 @@ import type { StepDecision } from "@/lib/checklist";
 import { shownPoints, shownValue, type KindStep } from "@/lib/step-kinds";
 import type { QueuedReading } from "@/lib/readings-queue";
 import type { UnitSystem } from "@/lib/units";
-
-export const PHASE_LABELS = { pre: "Before adjustment", post: "After adjustment" } as const;
+import { PHASE_LABELS } from "@/lib/domain/datasets";
 
 export interface PanelReading {
   id: string;

@@ -1,7 +1,7 @@
 "use client";
 
 import { useEffect, useRef, useState } from "react";
-import { PHASE_LABELS } from "@/components/checklist/readings-table";
+import { PHASE_LABELS } from "@/lib/domain/datasets";
 import { LocalTime } from "@/components/readings/local-time";
 import { useReadingQueue } from "@/components/readings/queue-provider";
 import type { QueuedReading } from "@/lib/readings-queue";
