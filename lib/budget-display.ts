@@ -7,6 +7,7 @@
  */
 import { headFitBudget, STEEL_EXPANSION_PER_K, type BudgetTypeB, type HeadFitJson } from "@/geometry";
 import { PARAMETER_WORDS } from "@/lib/fit-display";
+import { UNIT_SYMBOL } from "@/lib/units";
 
 /** A registered instrument as the budget uses it: its standard uncertainty in mm (length instruments). */
 export interface BudgetInstrument {
@@ -47,8 +48,6 @@ export interface BudgetTableRow {
   U: string;
 }
 
-const UNIT = { um: "µm", arcsec: "″" } as const;
-
 /**
  * The budget rows of a fit: `uPerUmNoise` is the pose plan's u per µm of probing noise per
  * parameter (the probe's sensitivity coefficient); `symbols` the ISO-style symbol per key.
@@ -63,7 +62,7 @@ export function budgetTable(
   return {
     rows: b.rows.map((r) => ({
       parameter: `${iso.get(r.key as never) ?? r.key} — ${PARAMETER_WORDS[r.key as keyof typeof PARAMETER_WORDS] ?? r.key}`,
-      unit: UNIT[r.unit],
+      unit: UNIT_SYMBOL[r.unit],
       components: r.components.map((c) => ({
         name: c.name,
         u: c.u.toFixed(3),

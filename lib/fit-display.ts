@@ -10,6 +10,7 @@ import type { DecisionRule } from "@/geometry/decision";
 import { judge, type StepDecision } from "@/lib/checklist";
 import { LIMIT_SOURCE_LABELS, type LimitSource } from "@/lib/domain/procedures";
 import { signed } from "@/lib/numbers";
+import { UNIT_SYMBOL } from "@/lib/units";
 
 export const PARAMETER_WORDS: Record<HeadParameterKey, string> = {
   pivot_length_error_um: "Pivot length error (tilt axis to gauge point, along the tool)",
@@ -25,8 +26,6 @@ export const PARAMETER_WORDS: Record<HeadParameterKey, string> = {
 };
 
 export const IDENTIFIABILITY_WORDS = { yes: "Yes", weak: "Weak", no: "Not separable" } as const;
-
-const UNIT_TEXT = { um: "µm", arcsec: "″" } as const;
 
 export interface ParameterRow {
   key: HeadParameterKey;
@@ -118,8 +117,8 @@ export function parameterRows(fit: HeadFitJson, limits: readonly ParameterLimit[
       words: PARAMETER_WORDS[p.key],
       value: p.value,
       unit: p.unit,
-      valueText: held ? "held at 0" : `${signed(p.value, 2)} ${UNIT_TEXT[p.unit]}`,
-      UText: held || p.U === null ? "—" : `± ${p.U.toFixed(2)} ${UNIT_TEXT[p.unit]}`,
+      valueText: held ? "held at 0" : `${signed(p.value, 2)} ${UNIT_SYMBOL[p.unit]}`,
+      UText: held || p.U === null ? "—" : `± ${p.U.toFixed(2)} ${UNIT_SYMBOL[p.unit]}`,
       identifiable: p.identifiable,
       identifiableText: IDENTIFIABILITY_WORDS[p.identifiable],
       heldAtZero: held,

@@ -21,7 +21,10 @@ export function displayUnit(kind: QuantityKind, system: UnitSystem): EntryUnit {
 
 /** Decimals shown for a unit: tenths of a thou for inch, a micrometre for mm, 0.1″ for angles. */
 export const UNIT_DECIMALS: Record<EntryUnit, number> = { in: 4, mm: 3, um: 1, arcsec: 1 };
-export const UNIT_SYMBOL: Record<EntryUnit, string> = { in: "in", mm: "mm", um: "µm", arcsec: "″" };
+export const UNIT_SYMBOL = { in: "in", mm: "mm", um: "µm", arcsec: "″" } as const satisfies Record<
+  EntryUnit,
+  string
+>;
 
 /** Entered value → canonical value (mm or arcsec). */
 export function toCanonical(value: number, unit: EntryUnit): number {

@@ -8,8 +8,7 @@ import { HEAD_PARAMETER_KEYS } from "@/geometry";
 import { parameterRows, PARAMETER_WORDS, type ParameterRow } from "@/lib/fit-display";
 import { JOB_KIND_LABELS } from "@/lib/domain/jobs";
 import { formatDate, formatDateTimeUtc } from "@/lib/format";
-
-const UNIT_TEXT = { um: "µm", arcsec: "″" } as const;
+import { UNIT_SYMBOL } from "@/lib/units";
 
 type HistoryJob = HeadHistoryJob;
 type HistoryRow = { key: (typeof HEAD_PARAMETER_KEYS)[number] | "rms" };
@@ -114,7 +113,7 @@ export function FitHistory({ history }: { history: { readonly jobs: readonly Hea
 }
 
 function valuePlusMinus(r: ParameterRow): string {
-  return `${r.valueText.replace(` ${UNIT_TEXT[r.unit]}`, "")} ${r.UText}`.trim();
+  return `${r.valueText.replace(` ${UNIT_SYMBOL[r.unit]}`, "")} ${r.UText}`.trim();
 }
 
 function JobHeading({ job: j }: { job: HistoryJob }) {
