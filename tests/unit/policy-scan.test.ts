@@ -1,11 +1,9 @@
 // Every access rule lives in lib/policy: this scans the app's source for role checks written
 // anywhere else (comparing the acting user's role, `.includes(role)`, `X_ROLES` lists, a switch on
 // the role) and fails on one. The scanner itself is tested on planted violations below.
-import { readdirSync, readFileSync, statSync } from "node:fs";
-import path from "node:path";
 import { describe, expect, it } from "vitest";
+import { scanSource } from "./source-scan";
 
-const ROOT = path.resolve(__dirname, "../..");
 const SCANNED = ["app", "components", "db", "lib", "proxy.ts", "instrumentation.ts"];
 /** lib/policy owns the rules; lib/domain defines the roles themselves; the seed writes demo people. */
 const ALLOWED = [/^lib\/policy\//, /^lib\/domain\//, /^db\/seed\.ts$/, /^db\/migrations\//];
@@ -30,21 +28,11 @@ export function roleChecks(text: string): string[] {
   return found;
 }
 
-function sourceFiles(rel: string): string[] {
-  const abs = path.join(ROOT, rel);
-  if (!statSync(abs, { throwIfNoEntry: false })) return [];
-  if (statSync(abs).isFile()) return /\.(ts|tsx|mjs)$/.test(rel) ? [rel] : [];
-  return readdirSync(abs).flatMap((e) => sourceFiles(path.posix.join(rel, e)));
-}
-
 describe("role checks live only in lib/policy", () => {
   it("finds none anywhere else in the app's source", () => {
-    const files = SCANNED.flatMap(sourceFiles).filter((f) => !ALLOWED.some((a) => a.test(f)));
-    expect(files.length).toBeGreaterThan(100);
-    const offences = files.flatMap((f) =>
-      roleChecks(readFileSync(path.join(ROOT, f), "utf8")).map((o) => `${f}:${o}`),
-    );
-    expect(offences).toEqual([]);
+    const { files, found } = scanSource(SCANNED, ALLOWED, roleChecks);
+    expect(files).toBeGreaterThan(100);
+    expect(found).toEqual([]);
   });
 
   it("catches each kind of role check when one is planted", () => {

@@ -1,11 +1,9 @@
 // Every colour comes from lib/domain/theme.ts, shared by Tailwind, the PDF and the 3D view: this
 // scans the app's source for a colour written as a hex literal anywhere else and fails on one. The
 // scanner itself is tested on planted colours below.
-import { readdirSync, readFileSync, statSync } from "node:fs";
-import path from "node:path";
 import { describe, expect, it } from "vitest";
+import { scanSource } from "./source-scan";
 
-const ROOT = path.resolve(__dirname, "../..");
 const SCANNED = ["app", "components", "lib"];
 const ALLOWED = [/^lib\/domain\/theme\.ts$/];
 
@@ -17,19 +15,10 @@ export function hexColours(text: string): string[] {
   return text.split("\n").flatMap((line, i) => (HEX.test(line) ? [`${i + 1}: ${line.trim()}`] : []));
 }
 
-function sourceFiles(rel: string): string[] {
-  const abs = path.join(ROOT, rel);
-  if (statSync(abs).isFile()) return /\.(ts|tsx)$/.test(rel) ? [rel] : [];
-  return readdirSync(abs).flatMap((e) => sourceFiles(path.posix.join(rel, e)));
-}
-
 describe("colours come from the theme", () => {
   it("finds no hex colour outside lib/domain/theme.ts", () => {
-    const files = SCANNED.flatMap(sourceFiles).filter((f) => !ALLOWED.some((a) => a.test(f)));
-    expect(files.length).toBeGreaterThan(100);
-    const found = files.flatMap((f) =>
-      hexColours(readFileSync(path.join(ROOT, f), "utf8")).map((o) => `${f}:${o}`),
-    );
+    const { files, found } = scanSource(SCANNED, ALLOWED, hexColours);
+    expect(files).toBeGreaterThan(100);
     expect(found).toEqual([]);
   });
 
