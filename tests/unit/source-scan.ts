@@ -3,6 +3,7 @@
 // ones, each with what the scanner found in it as "path:line: what".
 import { readdirSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
+import { expect } from "vitest";
 
 const ROOT = path.resolve(__dirname, "../..");
 
@@ -22,4 +23,15 @@ export function scanSource(
   const files = roots.flatMap(sourceFiles).filter((f) => !allowed.some((a) => a.test(f)));
   const found = files.flatMap((f) => scan(readFileSync(path.join(ROOT, f), "utf8")).map((o) => `${f}:${o}`));
   return { files: files.length, found };
+}
+
+/** The scan finds nothing, and it did read the app (a scan of no files would pass trivially). */
+export function expectNothingFound(
+  roots: readonly string[],
+  allowed: readonly RegExp[],
+  scan: (text: string) => string[],
+): void {
+  const { files, found } = scanSource(roots, allowed, scan);
+  expect(files).toBeGreaterThan(100);
+  expect(found).toEqual([]);
 }
