@@ -1,5 +1,6 @@
 import Link from "next/link";
-import { DECISION } from "@/components/report/report-parts";
+import { DECISION_CLASS } from "@/components/report/report-parts";
+import { RECORDED_DECISION_TEXT } from "@/lib/domain/decisions";
 import { Card } from "@/components/ui/card";
 import { Table } from "@/components/ui/table";
 import { limitSourceWords } from "@/lib/fit-display";
@@ -40,8 +41,8 @@ export function TcpCheckCard({
             <p>
               <span className="font-semibold">{latest.filename}</span>, {latest.view.poses} poses, uploaded{" "}
               {formatDateTimeUtc(latest.uploadedAt)}:{" "}
-              <span className={`font-semibold ${DECISION[latest.view.decision].cls}`} data-tcp-decision>
-                {DECISION[latest.view.decision].text}
+              <span className={`font-semibold ${DECISION_CLASS[latest.view.decision]}`} data-tcp-decision>
+                {RECORDED_DECISION_TEXT[latest.view.decision]}
               </span>
             </p>
             <Table
@@ -55,7 +56,7 @@ export function TcpCheckCard({
                 column("Value", (r) => r.valueText, { numeric: true }),
                 column("Limit", (r) => r.limitText, { numeric: true }),
                 column("Result", (r) => (
-                  <span className={DECISION[r.decision].cls}>{DECISION[r.decision].text}</span>
+                  <span className={DECISION_CLASS[r.decision]}>{RECORDED_DECISION_TEXT[r.decision]}</span>
                 )),
               ]}
             />
@@ -73,7 +74,7 @@ export function TcpCheckCard({
             {earlier.length ? (
               <p className="text-graphite-600">
                 Earlier checks (the latest counts):{" "}
-                {earlier.map((e) => `${e.filename} (${DECISION[e.view.decision].text})`).join(", ")}.
+                {earlier.map((e) => `${e.filename} (${RECORDED_DECISION_TEXT[e.view.decision]})`).join(", ")}.
               </p>
             ) : null}
           </>

@@ -1,5 +1,6 @@
 import { PositioningChart } from "@/components/charts/positioning-chart";
-import { DECISION, ReportTable } from "@/components/report/report-parts";
+import { DECISION_CLASS, ReportTable } from "@/components/report/report-parts";
+import { RECORDED_DECISION_TEXT } from "@/lib/domain/decisions";
 import type { ReportPositioningTest } from "@/lib/report/sections/positioning";
 
 /**
@@ -12,8 +13,8 @@ export function PositioningTestBlock({ test }: { test: ReportPositioningTest }) 
     <div className="space-y-2" data-testid="positioning-test">
       <p className="text-sm text-graphite-600">
         {test.file}: {test.basis} Result:{" "}
-        <span className={`font-semibold ${DECISION[test.decision].cls}`} data-positioning-decision>
-          {DECISION[test.decision].text}
+        <span className={`font-semibold ${DECISION_CLASS[test.decision]}`} data-positioning-decision>
+          {RECORDED_DECISION_TEXT[test.decision]}
         </span>
       </p>
       <ReportTable
@@ -36,8 +37,8 @@ export function PositioningTestBlock({ test }: { test: ReportPositioningTest }) 
           r.neg,
           r.limit,
           r.source,
-          <span key="d" className={DECISION[r.decision].cls}>
-            {DECISION[r.decision].text}
+          <span key="d" className={DECISION_CLASS[r.decision]}>
+            {RECORDED_DECISION_TEXT[r.decision]}
             {r.reason ? ` — ${r.reason}` : ""}
           </span>,
         ])}

@@ -1,13 +1,15 @@
 /** The report's building blocks on the page: numbered sections, label/value rows, tables, decision text. */
 import { ScrollRegion } from "@/components/ui/scroll-region";
+import { RECORDED_DECISION_TEXT } from "@/lib/domain/decisions";
 import type { Decision } from "@/lib/report/types";
 
-export const DECISION: Record<Decision, { text: string; cls: string }> = {
-  pass: { text: "✓ Pass", cls: "text-pass-700" },
-  fail: { text: "✗ Fail", cls: "text-fail-700" },
-  undecided: { text: "? Undecided", cls: "text-undecided-700" },
-  not_measured: { text: "– Not measured", cls: "text-unmeasured-600" },
-  recorded: { text: "• Recorded", cls: "text-unmeasured-600" },
+/** The colour of an outcome on the online report; its words are RECORDED_DECISION_TEXT. */
+export const DECISION_CLASS: Record<Decision, string> = {
+  pass: "text-pass-700",
+  fail: "text-fail-700",
+  undecided: "text-undecided-700",
+  not_measured: "text-unmeasured-600",
+  recorded: "text-unmeasured-600",
 };
 
 /** A decision, and under it the rule and limit source it was judged by (ISO/IEC 17025:2017 §7.8.6.1). */
@@ -22,7 +24,9 @@ export function DecisionText({
 }) {
   return (
     <>
-      <span className={`${bold ? "font-semibold " : ""}${DECISION[d].cls}`}>{DECISION[d].text}</span>
+      <span className={`${bold ? "font-semibold " : ""}${DECISION_CLASS[d]}`}>
+        {RECORDED_DECISION_TEXT[d]}
+      </span>
       {basis ? <span className="block text-xs font-normal text-graphite-600">{basis}</span> : null}
     </>
   );

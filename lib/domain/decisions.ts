@@ -30,3 +30,12 @@ export const DECISION_RULE_MEANINGS: Readonly<Record<DecisionRule, string>> = {
 
 /** A report line's outcome: a decision, nothing measured, or a reading kept without a limit. */
 export type RecordedDecision = Decision | "not_measured" | "recorded";
+
+/** A report line's outcome as the report prints it, online and in the PDF: a mark carries it without colour. */
+export const RECORDED_DECISION_TEXT: Readonly<Record<RecordedDecision, string>> = {
+  pass: "✓ Pass",
+  fail: "✗ Fail",
+  undecided: "? Undecided",
+  not_measured: "– Not measured",
+  recorded: "• Recorded",
+};

@@ -5,6 +5,7 @@
  * their calibration status; environment; results with limits and uncertainty; deviations and
  * remarks; signatures with name, meaning and time; a clear end of report.
  */
+import { RECORDED_DECISION_TEXT } from "@/lib/domain/decisions";
 import { palette } from "@/lib/domain/theme";
 import {
   Circle,
@@ -89,13 +90,6 @@ const s = {
   }),
 };
 
-const DECISION_TEXT: Record<Decision, string> = {
-  pass: "✓ Pass",
-  fail: "✗ Fail",
-  undecided: "? Undecided",
-  not_measured: "– Not measured",
-  recorded: "• Recorded",
-};
 const DECISION_COLOUR: Record<Decision, string> = {
   pass: C.pass,
   fail: C.fail,
@@ -108,7 +102,7 @@ const DECISION_COLOUR: Record<Decision, string> = {
 function DecisionCell({ d, width, basis }: { d: Decision; width: string; basis?: string | undefined }) {
   return (
     <View style={[s.td, { width }]}>
-      <Text style={{ color: DECISION_COLOUR[d], fontWeight: 700 }}>{DECISION_TEXT[d]}</Text>
+      <Text style={{ color: DECISION_COLOUR[d], fontWeight: 700 }}>{RECORDED_DECISION_TEXT[d]}</Text>
       {basis ? <Text style={{ color: C.muted, fontSize: 6.5 }}>{basis}</Text> : null}
     </View>
   );
@@ -407,7 +401,7 @@ export function ReportDocument({
               {
                 header: "Result",
                 width: "15%",
-                cell: (r) => DECISION_TEXT[r.decision],
+                cell: (r) => RECORDED_DECISION_TEXT[r.decision],
                 node: (r, w) => <DecisionCell d={r.decision} width={w} basis={r.basis} />,
               },
             ]}
@@ -472,7 +466,7 @@ export function ReportDocument({
               {
                 header: "Result",
                 width: "13%",
-                cell: (r) => DECISION_TEXT[r.decision],
+                cell: (r) => RECORDED_DECISION_TEXT[r.decision],
                 node: (r, w) => <DecisionCell d={r.decision} width={w} basis={r.basis} />,
               },
             ]}
