@@ -5,13 +5,14 @@
 // Schedules are checked against the IANA time zone database's offsets (Europe/Berlin is UTC+2 in
 // summer time, UTC+1 in winter; America/Chicago is UTC−6 in winter).
 import { and, eq, sql } from "drizzle-orm";
-import { beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it, onTestFinished } from "vitest";
 import { GET as listRoute, POST as createRoute } from "@/app/api/jobs/route";
 import { GET as jobRoute, PATCH as patchRoute } from "@/app/api/jobs/[id]/route";
 import { POST as readingRoute } from "@/app/api/jobs/[id]/readings/route";
 import { db } from "@/db";
-import { auditEvents, heads, jobs, machines, outbox, procedureTemplates, users } from "@/db/schema";
-import { WHO, auditEventsOf } from "./fixtures";
+import { newJobChoices } from "@/db/queries/job-office";
+import { auditEvents, heads, jobs, machines, outbox, procedureTemplates, sites, users } from "@/db/schema";
+import { WHO, auditEventsOf, refusalOf, signInActor } from "./fixtures";
 import { jobIdByReference, issueFields, jsonBody, request, signInAs } from "./helpers";
 
 /** POST /api/jobs: the office opens jobs (201); everyone else is refused (401 anonymous, 403 others). */
@@ -191,6 +192,30 @@ describe("POST /api/jobs", () => {
     const res = await create({ ...base, customerId: tollanJob!.customerId });
     expect(res.status).toBe(422);
     expect((await res.json()).error.issues[0].field).toBe("machineId");
+  });
+});
+
+describe("New job's choices", () => {
+  it("offer the office every machine in use and none that is retired; nobody else gets them", async () => {
+    const [site] = await db.select({ id: sites.id }).from(sites).limit(1);
+    const tag = Date.now().toString(36);
+    const made = await db
+      .insert(machines)
+      .values([
+        { siteId: site!.id, name: `Choices in use ${tag}` },
+        { siteId: site!.id, name: `Choices retired ${tag}`, retiredAt: new Date() },
+      ])
+      .returning({ id: machines.id, retiredAt: machines.retiredAt });
+    onTestFinished(async () => {
+      await db.delete(machines).where(sql`${machines.id} in ${made.map((m) => m.id)}`);
+    });
+    const [inUse, retired] = made;
+    const offered = (await newJobChoices(await signInActor("engineer@halvard.example"))).machines.map(
+      (m) => m.id,
+    );
+    expect(offered).toContain(inUse!.id);
+    expect(offered).not.toContain(retired!.id);
+    expect((await refusalOf(newJobChoices(await signInActor("installer@halvard.example")))).status).toBe(403);
   });
 });
 

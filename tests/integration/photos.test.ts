@@ -10,11 +10,11 @@ import { GET as thumbRoute } from "@/app/api/photos/[id]/thumb/route";
 import { GET as readinessRoute } from "@/app/api/jobs/[id]/readiness/route";
 import { db } from "@/db";
 import { auditEvents, jobs, photos, templateSteps } from "@/db/schema";
-import { postReading, WHO, type Who } from "./fixtures";
+import { postReading, refusalOf, WHO, type Who } from "./fixtures";
 import { formPost, jobIdByReference, request, signInAs } from "./helpers";
 import { jobLike } from "./tablet-helpers";
 import { getReadiness } from "@/db/queries/readiness";
-import { jobStateSha256, signJobWork } from "@/db/queries/signatures";
+import { jobStateSha256, preIssueSignatures, signJobWork } from "@/db/queries/signatures";
 import { getActor } from "@/db/queries/users";
 
 let jobId: string; // measuring, Marlow Creek, the demo installer assigned
@@ -234,6 +234,15 @@ describe("photos and the work signatures", () => {
     await signJobWork(inspector, { jobId: job.id, meaning: "inspected", password: "trammel-demo" });
     const codes = async () => (await getReadiness(inspector, job.id))!.blockers.map((b) => b.code);
     expect(await codes()).not.toContain("signature_stale");
+    // Signing the same state again is refused, naming the meaning; nothing more is stored.
+    const again = await refusalOf(
+      signJobWork(installer, { jobId: job.id, meaning: "performed", password: "trammel-demo" }),
+    );
+    expect([again.status, again.message]).toEqual([
+      422,
+      "You have already signed this job as work performed.",
+    ]);
+    expect(await preIssueSignatures(job.id)).toHaveLength(2);
     const before = await jobStateSha256(job.id);
 
     await signInAs("installer@halvard.example");
